@@ -1,0 +1,72 @@
+import { INestApplication, LogLevel, ValidationPipe } from '@nestjs/common';
+import { NestFactory } from '@nestjs/core';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import helmet from 'helmet';
+import { AppModule } from './app.module';
+import { AppConfig } from './config/app.config';
+import { APP_CONFIG } from './config/config.module';
+import { HttpExceptionFilter } from './common/errors/http-exception.filter';
+import { serveClient } from './client-assets';
+import { GYRE_VERSION } from './version';
+
+const LEVELS: LogLevel[] = ['fatal', 'error', 'warn', 'log', 'debug', 'verbose'];
+
+export interface CreateAppOptions {
+  /** The environment to validate; defaults to process.env. */
+  env?: Record<string, unknown>;
+}
+
+/** Builds the configured application (not yet listening); used by main.ts and the tests. */
+export async function createApp(options: CreateAppOptions = {}): Promise<NestExpressApplication> {
+  const env = options.env ?? process.env;
+  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(env), {
+    bufferLogs: true,
+    logger: LEVELS.slice(0, LEVELS.indexOf(logLevelOf(env)) + 1),
+  });
+  const config = app.get<AppConfig>(APP_CONFIG);
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // antd writes its CSS-in-JS into <style> elements at run time.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'upgrade-insecure-requests': null,
+        },
+      },
+    }),
+  );
+  app.setGlobalPrefix('api');
+  app.useGlobalPipes(
+    new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }),
+  );
+  app.useGlobalFilters(new HttpExceptionFilter());
+  app.enableShutdownHooks();
+  setUpOpenApi(app);
+  serveClient(app.getHttpAdapter().getInstance());
+  void config;
+  return app;
+}
+
+function setUpOpenApi(app: INestApplication): void {
+  const document = SwaggerModule.createDocument(
+    app,
+    new DocumentBuilder()
+      .setTitle('Gyre API')
+      .setDescription(
+        'Alpha-frequency review for clinical-research EEG studies. Research use only.',
+      )
+      .setVersion(GYRE_VERSION)
+      .addBearerAuth()
+      .build(),
+  );
+  SwaggerModule.setup('api/docs', app, document, { jsonDocumentUrl: 'api/docs/openapi.json' });
+}
+
+function logLevelOf(env: Record<string, unknown>): LogLevel {
+  const level = env.LOG_LEVEL;
+  if (typeof level === 'string' && (LEVELS as string[]).includes(level)) return level as LogLevel;
+  return env.NODE_ENV === 'test' ? 'warn' : 'log';
+}

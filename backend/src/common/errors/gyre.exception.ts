@@ -1,0 +1,32 @@
+/** What kind of failure an error is; the exception filter maps each kind to one HTTP status. */
+export enum ErrorKind {
+  BadInput = 'bad_input',
+  Unprocessable = 'unprocessable',
+  Unauthenticated = 'unauthenticated',
+  Forbidden = 'forbidden',
+  NotFound = 'not_found',
+  Conflict = 'conflict',
+  PayloadTooLarge = 'payload_too_large',
+  TooManyRequests = 'too_many_requests',
+  Unavailable = 'unavailable',
+}
+
+/**
+ * The one exception class Gyre's modules throw. Each module names its codes in its own
+ * `*.errors.ts` enum; `code` is what clients switch on, `message` is for people.
+ */
+export class GyreException extends Error {
+  constructor(
+    readonly kind: ErrorKind,
+    readonly code: string,
+    message: string,
+    readonly details?: Record<string, unknown>,
+  ) {
+    super(message);
+    this.name = 'GyreException';
+  }
+}
+
+export function assertUnreachable(value: never): never {
+  throw new Error(`Unhandled case: ${String(value)}`);
+}

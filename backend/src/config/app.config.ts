@@ -1,0 +1,71 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { EnvironmentError, EnvironmentVariables, NodeEnv } from './environment';
+
+export interface AppConfig {
+  nodeEnv: NodeEnv;
+  port: number;
+  /** Everything Gyre writes lives here: database, uploads, secrets, mail. */
+  dataDir: string;
+  databaseFile: string;
+  uploadsDir: string;
+  mailDir: string;
+  jwtSecret: string;
+  /** Where the generated secret came from, for the start-up message. */
+  jwtSecretSource: 'environment' | 'generated' | 'data-dir';
+  smtpUrl: string | null;
+  publicUrl: string;
+  uploadMaxBytes: number;
+  logLevel: string;
+}
+
+const DEFAULT_UPLOAD_MAX_BYTES = 2 * 1024 ** 3;
+const PLACEHOLDER_SECRETS = ['secret', 'changeme', 'change-me', 'jwt-secret', 'password', 'test'];
+
+/** Resolves validated variables into Gyre's configuration, creating the data folder. */
+export function buildAppConfig(env: EnvironmentVariables): AppConfig {
+  const nodeEnv = env.NODE_ENV ?? 'development';
+  const port = env.PORT ?? 3000;
+  const dataDir = resolve(env.DATA_DIR ?? './data');
+  mkdirSync(dataDir, { recursive: true });
+  const { secret, source } = resolveJwtSecret(env.JWT_SECRET, dataDir, nodeEnv);
+  return {
+    nodeEnv,
+    port,
+    dataDir,
+    databaseFile: join(dataDir, 'gyre.sqlite'),
+    uploadsDir: join(dataDir, 'uploads'),
+    mailDir: join(dataDir, 'mail'),
+    jwtSecret: secret,
+    jwtSecretSource: source,
+    smtpUrl: env.SMTP_URL ?? null,
+    publicUrl: (env.PUBLIC_URL ?? `http://localhost:${port}`).replace(/\/+$/, ''),
+    uploadMaxBytes: env.UPLOAD_MAX_BYTES ?? DEFAULT_UPLOAD_MAX_BYTES,
+    logLevel: env.LOG_LEVEL ?? (nodeEnv === 'test' ? 'warn' : 'log'),
+  };
+}
+
+function resolveJwtSecret(
+  configured: string | undefined,
+  dataDir: string,
+  nodeEnv: NodeEnv,
+): { secret: string; source: AppConfig['jwtSecretSource'] } {
+  if (configured !== undefined) {
+    const placeholder =
+      configured.length < 32 || PLACEHOLDER_SECRETS.includes(configured.toLowerCase());
+    if (placeholder && nodeEnv === 'production') {
+      throw new EnvironmentError([
+        'JWT_SECRET: a placeholder or short secret (under 32 characters) is refused when NODE_ENV=production',
+      ]);
+    }
+    return { secret: configured, source: 'environment' };
+  }
+  const secretsDir = join(dataDir, 'secrets');
+  const file = join(secretsDir, 'jwt-secret');
+  if (existsSync(file)) return { secret: readFileSync(file, 'utf8').trim(), source: 'data-dir' };
+  mkdirSync(secretsDir, { recursive: true, mode: 0o700 });
+  const secret = randomBytes(48).toString('base64url');
+  writeFileSync(file, `${secret}\n`, { mode: 0o600, flag: 'wx' });
+  return { secret, source: 'generated' };
+}

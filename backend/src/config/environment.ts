@@ -1,0 +1,103 @@
+import { plainToInstance, Transform } from 'class-transformer';
+import {
+  IsIn,
+  IsInt,
+  IsOptional,
+  IsString,
+  IsUrl,
+  Max,
+  MaxLength,
+  Min,
+  MinLength,
+  validateSync,
+} from 'class-validator';
+
+export const NODE_ENVS = ['development', 'production', 'test'] as const;
+export type NodeEnv = (typeof NODE_ENVS)[number];
+
+const toInt = ({ value }: { value: unknown }): unknown =>
+  typeof value === 'string' && /^-?\d+$/.test(value.trim()) ? Number(value) : value;
+
+/** Every environment variable Gyre reads, validated once at boot. */
+export class EnvironmentVariables {
+  @IsOptional()
+  @IsIn(NODE_ENVS)
+  NODE_ENV?: NodeEnv;
+
+  @IsOptional()
+  @Transform(toInt)
+  @IsInt()
+  @Min(0)
+  @Max(65535)
+  PORT?: number;
+
+  @IsOptional()
+  @IsString()
+  @MinLength(1)
+  DATA_DIR?: string;
+
+  @IsOptional()
+  @IsString()
+  @MinLength(1)
+  @MaxLength(512)
+  JWT_SECRET?: string;
+
+  @IsOptional()
+  @IsUrl({ protocols: ['smtp', 'smtps'], require_tld: false, require_protocol: true })
+  SMTP_URL?: string;
+
+  @IsOptional()
+  @IsUrl({ protocols: ['http', 'https'], require_tld: false, require_protocol: true })
+  PUBLIC_URL?: string;
+
+  @IsOptional()
+  @Transform(toInt)
+  @IsInt()
+  @Min(1024)
+  UPLOAD_MAX_BYTES?: number;
+
+  @IsOptional()
+  @IsIn(['error', 'warn', 'log', 'debug', 'verbose'])
+  LOG_LEVEL?: string;
+}
+
+/** Thrown when the environment is invalid: one line per bad variable, each naming it. */
+export class EnvironmentError extends Error {
+  constructor(readonly problems: string[]) {
+    super(`Invalid environment:\n${problems.map((p) => `  - ${p}`).join('\n')}`);
+    this.name = 'EnvironmentError';
+  }
+}
+
+/** Validates the raw environment; the result carries only Gyre's variables, typed. */
+export function validateEnvironment(raw: Record<string, unknown>): EnvironmentVariables {
+  const known = Object.keys(new EnvironmentVariablesKeys());
+  const picked: Record<string, unknown> = {};
+  for (const key of known) {
+    const value = raw[key];
+    if (value !== undefined && value !== '') picked[key] = value;
+  }
+  const env = plainToInstance(EnvironmentVariables, picked);
+  const errors = validateSync(env, { whitelist: true });
+  if (errors.length > 0) {
+    throw new EnvironmentError(
+      errors.map((error) => {
+        const reasons = Object.values(error.constraints ?? {}).join('; ');
+        return `${error.property}=${JSON.stringify(picked[error.property])}: ${reasons}`;
+      }),
+    );
+  }
+  return env;
+}
+
+/** The names of the variables, for picking them out of process.env. */
+class EnvironmentVariablesKeys implements Record<keyof EnvironmentVariables, undefined> {
+  NODE_ENV = undefined;
+  PORT = undefined;
+  DATA_DIR = undefined;
+  JWT_SECRET = undefined;
+  SMTP_URL = undefined;
+  PUBLIC_URL = undefined;
+  UPLOAD_MAX_BYTES = undefined;
+  LOG_LEVEL = undefined;
+}

@@ -1,0 +1,2 @@
+/** Every TypeORM entity, listed once; feature modules add theirs here. */
+export const ENTITIES: Function[] = [];

@@ -1,0 +1,7 @@
+/** @type {import('jest').Config} */
+module.exports = {
+  testEnvironment: 'node',
+  roots: ['<rootDir>/src'],
+  testRegex: '\\.spec\\.ts$',
+  transform: { '^.+\\.ts$': ['@swc/jest'] },
+};
