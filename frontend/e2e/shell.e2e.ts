@@ -1,0 +1,76 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext } from 'playwright-core';
+import { openBrowser, screenshot, watchConsole } from './support/browser';
+import { startGyre, type RunningGyre } from './support/gyre-server';
+
+const CAUTION =
+  'Research use only. Not a diagnostic device: do not use these results for clinical decisions. Follow your study protocol, local regulations and licensed clinicians.';
+
+describe('the built app in Chromium', () => {
+  let gyre: RunningGyre;
+  let browser: { context: BrowserContext; close: () => Promise<void> };
+
+  beforeAll(async () => {
+    gyre = await startGyre();
+    browser = await openBrowser();
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+    await gyre?.stop();
+  });
+
+  it('serves the shell with the caution, in IBM Plex Sans, without console errors', async () => {
+    const page = await browser.context.newPage();
+    const problems = watchConsole(page);
+    const response = await page.goto(`${gyre.baseUrl}/sign-in`, { waitUntil: 'networkidle' });
+    expect(response?.status()).toBe(200);
+    await expect(
+      page.getByRole('note', { name: 'Research use caution' }).innerText(),
+    ).resolves.toContain(CAUTION);
+    await page.evaluate(() => document.fonts.ready);
+    const fonts = await page.evaluate(() => {
+      const loaded = [...document.fonts]
+        .filter((f) => f.status === 'loaded')
+        .map((f) => f.family.replace(/["']/g, ''));
+      const bodyFamily = getComputedStyle(document.body).fontFamily;
+      const usesPlex = document.fonts.check("16px 'IBM Plex Sans'");
+      return { loaded, bodyFamily, usesPlex };
+    });
+    // The font must be loaded from /fonts, not just named: a fallback would leave it unloaded.
+    expect(fonts.loaded).toContain('IBM Plex Sans');
+    expect(
+      fonts.bodyFamily.startsWith("'IBM Plex Sans'") ||
+        fonts.bodyFamily.startsWith('"IBM Plex Sans"'),
+    ).toBe(true);
+    expect(fonts.usesPlex).toBe(true);
+    await screenshot(page, 'shell-sign-in');
+    expect(problems).toEqual([]);
+    await page.close();
+  });
+
+  it('falls back to the client for deep links and shows the not-found page', async () => {
+    const page = await browser.context.newPage();
+    const problems = watchConsole(page);
+    const response = await page.goto(`${gyre.baseUrl}/no/such/screen`, {
+      waitUntil: 'networkidle',
+    });
+    expect(response?.status()).toBe(200);
+    await expect(page.getByText('No such page').isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('link', { name: 'Gyre home' }).isVisible()).resolves.toBe(true);
+    await screenshot(page, 'shell-not-found');
+    expect(problems).toEqual([]);
+    await page.close();
+  });
+
+  it('keeps /api answering JSON, not the client page', async () => {
+    const health = await fetch(`${gyre.baseUrl}/api/health`);
+    expect(health.headers.get('content-type')).toContain('application/json');
+    expect(await health.json()).toMatchObject({ status: 'ok', database: { reachable: true } });
+    const missing = await fetch(`${gyre.baseUrl}/api/does-not-exist`, {
+      headers: { accept: 'text/html' },
+    });
+    expect(missing.status).toBe(404);
+    expect(await missing.json()).toMatchObject({ statusCode: 404, code: 'NOT_FOUND' });
+  });
+});

@@ -1,0 +1,18 @@
+import { StrictMode } from 'react';
+import { createRoot } from 'react-dom/client';
+import { RouterProvider } from 'react-router-dom';
+import { AppProvider } from './app/provider';
+import { createRouter } from './app/router';
+import './app/fonts.css';
+import './app/global.css';
+
+const root = document.getElementById('root');
+if (root === null) throw new Error('Gyre: #root element missing from index.html');
+
+createRoot(root).render(
+  <StrictMode>
+    <AppProvider>
+      <RouterProvider router={createRouter()} />
+    </AppProvider>
+  </StrictMode>,
+);
