@@ -1,0 +1,59 @@
+/**
+ * Blanking of identifying header fields before a file is stored.
+ * Header layout from Kemp et al. 1992; EDF+ subfields from Kemp & Olivan 2003.
+ */
+import { EdfFormatError } from './edf-format-error';
+
+const PATIENT_OFFSET = 8;
+const RECORDING_OFFSET = 88;
+const FIELD_WIDTH = 80;
+const RESERVED_OFFSET = 192;
+
+function isEdfPlusHeader(bytes: Uint8Array): boolean {
+  return String.fromCharCode(...bytes.subarray(RESERVED_OFFSET, RESERVED_OFFSET + 4)) === 'EDF+';
+}
+
+function writeField(bytes: Uint8Array, offset: number, text: string): void {
+  const padded = text.padEnd(FIELD_WIDTH, ' ');
+  for (let i = 0; i < FIELD_WIDTH; i++) bytes[offset + i] = padded.charCodeAt(i);
+}
+
+function assertHeader(bytes: Uint8Array): void {
+  if (bytes.byteLength < 256) {
+    throw new EdfFormatError(
+      'file length',
+      `${bytes.byteLength} bytes`,
+      'at least 256 bytes (the fixed header)',
+    );
+  }
+}
+
+/**
+ * Writes IN PLACE over the local patient identification (header bytes 8..87):
+ * EDF+ gets `X X X X` (code, sex, birthdate and name all unknown, Kemp & Olivan 2003)
+ * padded with spaces, so the file stays valid EDF+; plain EDF gets 80 spaces.
+ * The recording field (bytes 88..167) is left as is: see `blankRecordingField`.
+ */
+export function blankPatientField(bytes: Uint8Array): void {
+  assertHeader(bytes);
+  writeField(bytes, PATIENT_OFFSET, isEdfPlusHeader(bytes) ? 'X X X X' : '');
+}
+
+/**
+ * Writes IN PLACE over the local recording identification (header bytes 88..167),
+ * which can name the hospital (admin code), technician and equipment. EDF+ keeps its
+ * `Startdate dd-MMM-yyyy` subfield, which holds the year after 2084 and must stay
+ * (Kemp & Olivan 2003), and gets `X` for the other subfields; plain EDF gets spaces.
+ */
+export function blankRecordingField(bytes: Uint8Array): void {
+  assertHeader(bytes);
+  if (!isEdfPlusHeader(bytes)) {
+    writeField(bytes, RECORDING_OFFSET, '');
+    return;
+  }
+  const current = String.fromCharCode(
+    ...bytes.subarray(RECORDING_OFFSET, RECORDING_OFFSET + FIELD_WIDTH),
+  );
+  const startdate = /^Startdate (\S+)/.exec(current);
+  writeField(bytes, RECORDING_OFFSET, `Startdate ${startdate ? startdate[1] : 'X'} X X X`);
+}
