@@ -1,0 +1,102 @@
+// `npm test`: every check of every workspace, then one closing line `N passed, N failed`.
+// Lint, format and type checks count as one check each; test runners count their tests.
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { buildIfStale } from './build-if-stale.mjs';
+
+const root = resolve(import.meta.dirname, '..');
+const reports = mkdtempSync(join(tmpdir(), 'gyre-test-reports-'));
+const results = [];
+
+function run(command, args, cwd = root) {
+  console.log(
+    `\n$ ${[command, ...args].join(' ')}${cwd === root ? '' : `   (in ${cwd.slice(root.length + 1)})`}`,
+  );
+  const outcome = spawnSync(command, args, {
+    cwd,
+    stdio: 'inherit',
+    env: { ...process.env, FORCE_COLOR: '0' },
+  });
+  return outcome.status === 0;
+}
+
+function check(name, command, args, cwd) {
+  const ok = run(command, args, cwd);
+  results.push({ name, passed: ok ? 1 : 0, failed: ok ? 0 : 1 });
+}
+
+/** Runs a jest or vitest suite with its JSON report and counts its tests. */
+function suite(name, command, args, cwd) {
+  const reportFile = join(reports, `${name.replace(/\W+/g, '-')}.json`);
+  const ok = run(command, [...args, '--json', `--outputFile=${reportFile}`], cwd);
+  let passed = 0;
+  let failed = 0;
+  if (existsSync(reportFile)) {
+    const report = JSON.parse(readFileSync(reportFile, 'utf8'));
+    passed = report.numPassedTests ?? 0;
+    failed = (report.numFailedTests ?? 0) + (report.numRuntimeErrorTestSuites ?? 0);
+  }
+  // A runner that failed without a failed test (a suite that did not load, no tests found) still fails.
+  if (!ok && failed === 0) failed = 1;
+  results.push({ name, passed, failed });
+}
+
+function vitestSuite(name, args, cwd) {
+  const reportFile = join(reports, `${name.replace(/\W+/g, '-')}.json`);
+  const ok = run(
+    'npx',
+    [
+      'vitest',
+      'run',
+      ...args,
+      '--reporter=default',
+      '--reporter=json',
+      `--outputFile.json=${reportFile}`,
+    ],
+    cwd,
+  );
+  let passed = 0;
+  let failed = 0;
+  if (existsSync(reportFile)) {
+    const report = JSON.parse(readFileSync(reportFile, 'utf8'));
+    passed = report.numPassedTests ?? 0;
+    failed = report.numFailedTests ?? 0;
+  }
+  if (!ok && failed === 0) failed = 1;
+  results.push({ name, passed, failed });
+}
+
+try {
+  buildIfStale();
+  results.push({ name: 'build', passed: 1, failed: 0 });
+} catch {
+  results.push({ name: 'build', passed: 0, failed: 1 });
+}
+
+check('eslint', 'npx', ['eslint', '--max-warnings=0', '.']);
+check('prettier', 'npx', ['prettier', '--check', '.']);
+for (const workspace of ['shared', 'backend', 'frontend']) {
+  check(`tsc ${workspace}`, 'npx', ['tsc', '--noEmit', '-p', `${workspace}/tsconfig.json`]);
+}
+suite('shared jest', 'npx', ['jest', '--ci'], join(root, 'shared'));
+suite('backend jest', 'npx', ['jest', '--ci'], join(root, 'backend'));
+vitestSuite('frontend vitest', [], join(root, 'frontend'));
+vitestSuite(
+  'frontend e2e (Chromium)',
+  ['--config', 'vitest.e2e.config.ts'],
+  join(root, 'frontend'),
+);
+
+rmSync(reports, { recursive: true, force: true });
+console.log('\nSummary:');
+for (const result of results) {
+  console.log(
+    `  ${result.failed === 0 ? 'ok  ' : 'FAIL'} ${result.name}: ${result.passed} passed, ${result.failed} failed`,
+  );
+}
+const passed = results.reduce((sum, r) => sum + r.passed, 0);
+const failed = results.reduce((sum, r) => sum + r.failed, 0);
+console.log(`${passed} passed, ${failed} failed`);
+process.exit(failed === 0 ? 0 : 1);
