@@ -1,1 +1,3 @@
 export * from './api';
+export * from './roles';
+export * from './permissions';

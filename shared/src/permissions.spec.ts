@@ -1,0 +1,141 @@
+import {
+  abilityFromPackedRules,
+  AbilityUser,
+  Action,
+  defineAbilityFor,
+  packRulesFor,
+  subject,
+  SubjectName,
+} from './permissions';
+
+// Expected answers come from DESIGN.md's role table ("what they do" / "what they may not do").
+const STUDY = 'study-1';
+const OTHER_STUDY = 'study-2';
+const SITE = 'site-a';
+const OTHER_SITE = 'site-b';
+
+const users: Record<AbilityUser['role'], AbilityUser> = {
+  technician: { id: 'u-tech', role: 'technician', studyId: STUDY, siteId: SITE },
+  analyst: { id: 'u-analyst', role: 'analyst', studyId: STUDY, siteId: null },
+  monitor: { id: 'u-monitor', role: 'monitor', studyId: STUDY, siteId: null },
+  coordinator: { id: 'u-coord', role: 'coordinator', studyId: STUDY, siteId: SITE },
+  admin: { id: 'u-admin', role: 'admin', studyId: null, siteId: null },
+};
+
+const row = (type: SubjectName, fields: Record<string, string | null> = {}) =>
+  subject(type, { studyId: STUDY, siteId: SITE, ...fields });
+
+describe('type-level rules (may this role ever do this?)', () => {
+  const cases: [AbilityUser['role'], Action, SubjectName, boolean][] = [
+    ['technician', 'create', 'Visit', true],
+    ['technician', 'upload', 'Recording', true],
+    ['technician', 'read', 'Result', false],
+    ['technician', 'read', 'Flag', false],
+    ['technician', 'read', 'Report', false],
+    ['technician', 'read', 'AuditEntry', false],
+    ['analyst', 'update', 'AnalysisSettings', true],
+    ['analyst', 'rerun', 'AnalysisRun', true],
+    ['analyst', 'create', 'Flag', true],
+    ['analyst', 'sign', 'Report', true],
+    ['analyst', 'delete', 'Recording', false],
+    ['analyst', 'update', 'AuditEntry', false],
+    ['analyst', 'delete', 'AuditEntry', false],
+    ['monitor', 'read', 'Result', true],
+    ['monitor', 'read', 'AuditEntry', true],
+    ['monitor', 'export', 'AuditEntry', true],
+    ['monitor', 'update', 'Flag', false],
+    ['monitor', 'create', 'Participant', false],
+    ['monitor', 'sign', 'Report', false],
+    ['coordinator', 'read', 'Report', true],
+    ['coordinator', 'read', 'Result', false],
+    ['coordinator', 'read', 'Flag', false],
+    ['admin', 'create', 'Study', true],
+    ['admin', 'invite', 'User', true],
+    ['admin', 'update', 'User', true],
+    ['admin', 'read', 'Outbox', true],
+    ['admin', 'sign', 'Report', false],
+    ['admin', 'create', 'Flag', false],
+    ['admin', 'update', 'Flag', false],
+  ];
+  it.each(cases)('%s may %s %s: %s', (role, action, subjectName, expected) => {
+    expect(defineAbilityFor(users[role]).can(action, subjectName)).toBe(expected);
+  });
+
+  it('no role but admin reads the mail outbox', () => {
+    for (const role of ['technician', 'analyst', 'monitor', 'coordinator'] as const) {
+      expect(defineAbilityFor(users[role]).can('read', 'Outbox')).toBe(false);
+    }
+  });
+
+  it('nobody may change or remove audit entries', () => {
+    for (const user of Object.values(users)) {
+      const ability = defineAbilityFor(user);
+      expect(ability.can('update', 'AuditEntry')).toBe(false);
+      expect(ability.can('delete', 'AuditEntry')).toBe(false);
+    }
+  });
+});
+
+describe('row-level rules (this row, in or out of scope)', () => {
+  it('a technician sees participants of their own site only', () => {
+    const ability = defineAbilityFor(users.technician);
+    expect(ability.can('read', row('Participant'))).toBe(true);
+    expect(ability.can('read', row('Participant', { siteId: OTHER_SITE }))).toBe(false);
+    expect(ability.can('read', row('Participant', { studyId: OTHER_STUDY }))).toBe(false);
+  });
+
+  it('an analyst sees every site of their study and no other study', () => {
+    const ability = defineAbilityFor(users.analyst);
+    expect(ability.can('read', row('Result', { siteId: OTHER_SITE }))).toBe(true);
+    expect(ability.can('read', row('Result', { studyId: OTHER_STUDY }))).toBe(false);
+  });
+
+  it('a monitor reads audit entries of their study only', () => {
+    const ability = defineAbilityFor(users.monitor);
+    expect(ability.can('read', row('AuditEntry', { siteId: null }))).toBe(true);
+    expect(ability.can('read', row('AuditEntry', { studyId: OTHER_STUDY }))).toBe(false);
+  });
+
+  it('a coordinator sees signed or sent reports of their own site, never drafts', () => {
+    const ability = defineAbilityFor(users.coordinator);
+    expect(ability.can('read', row('Report', { state: 'signed' }))).toBe(true);
+    expect(ability.can('read', row('Report', { state: 'sent' }))).toBe(true);
+    expect(ability.can('read', row('Report', { state: 'draft' }))).toBe(false);
+    expect(ability.can('read', row('Report', { state: 'signed', siteId: OTHER_SITE }))).toBe(false);
+  });
+
+  it('study rows are matched on their own id', () => {
+    const ability = defineAbilityFor(users.technician);
+    expect(ability.can('read', subject('Study', { id: STUDY }))).toBe(true);
+    expect(ability.can('read', subject('Study', { id: OTHER_STUDY }))).toBe(false);
+  });
+
+  it('an admin manages users of every study', () => {
+    const ability = defineAbilityFor(users.admin);
+    expect(ability.can('update', row('User', { studyId: OTHER_STUDY }))).toBe(true);
+  });
+});
+
+describe('rules for the client', () => {
+  it('packed rules unpack to an ability that answers the same', () => {
+    for (const user of Object.values(users)) {
+      const server = defineAbilityFor(user);
+      const client = abilityFromPackedRules(JSON.parse(JSON.stringify(packRulesFor(user))));
+      for (const [action, subjectName] of [
+        ['read', 'Result'],
+        ['sign', 'Report'],
+        ['create', 'Visit'],
+        ['invite', 'User'],
+      ] as const) {
+        expect(client.can(action, subjectName)).toBe(server.can(action, subjectName));
+      }
+      expect(client.can('read', row('Participant', { siteId: OTHER_SITE }))).toBe(
+        server.can('read', row('Participant', { siteId: OTHER_SITE })),
+      );
+    }
+  });
+
+  it('a site role without a site is refused with the field named', () => {
+    expect(() => defineAbilityFor({ ...users.technician, siteId: null })).toThrow(/siteId/);
+  });
+});
