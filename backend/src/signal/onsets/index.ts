@@ -1,0 +1,2 @@
+export { OnsetCsvError, parseOnsetCsv } from './onset-csv';
+export type { ParseOnsetCsvOptions, StimulusOnset } from './onset-csv';
