@@ -1,0 +1,93 @@
+import { Column, Entity, Index, PrimaryColumn } from 'typeorm';
+import type { BandSource, RecordingKind } from '@gyre/shared';
+
+/**
+ * The results of one finished computation. The headline numbers have their own columns
+ * (for trajectories and lists); the rest is `summaryJson` (per-channel table, QC) and
+ * `series`, a packed blob of the curves (see result-series-codec.ts).
+ */
+@Entity('analysis_run')
+@Index('IDX_analysis_run_recording', ['recordingId', 'createdAt'])
+@Index('IDX_analysis_run_visit', ['visitId', 'createdAt'])
+export class AnalysisRun {
+  @PrimaryColumn('varchar', { length: 36 })
+  id: string;
+
+  @Column('varchar', { length: 36 })
+  recordingId: string;
+
+  @Column('varchar', { length: 36 })
+  visitId: string;
+
+  @Column('varchar', { length: 36 })
+  participantId: string;
+
+  @Column('varchar', { length: 36 })
+  studyId: string;
+
+  @Column('varchar', { length: 36 })
+  siteId: string;
+
+  @Column('varchar', { length: 36 })
+  jobId: string;
+
+  @Column('varchar', { length: 16 })
+  kind: RecordingKind;
+
+  @Column('varchar', { length: 36 })
+  settingsId: string;
+
+  @Column('integer')
+  settingsVersion: number;
+
+  @Column('varchar', { length: 40 })
+  codeVersion: string;
+
+  @Column('varchar', { length: 64 })
+  inputChecksumSha256: string;
+
+  @Column('real')
+  bandLowHz: number;
+
+  @Column('real')
+  bandHighHz: number;
+
+  @Column('varchar', { length: 16 })
+  bandSource: BandSource;
+
+  @Column('real', { nullable: true })
+  roiDeltaFHz: number | null;
+
+  @Column('real', { nullable: true })
+  roiCiLowHz: number | null;
+
+  @Column('real', { nullable: true })
+  roiCiHighHz: number | null;
+
+  @Column('real', { nullable: true })
+  roiPValue: number | null;
+
+  @Column('integer', { nullable: true })
+  trialsKept: number | null;
+
+  @Column('integer', { nullable: true })
+  trialsTotal: number | null;
+
+  @Column('real', { nullable: true })
+  pafHz: number | null;
+
+  @Column('real', { nullable: true })
+  cogHz: number | null;
+
+  @Column('boolean', { nullable: true })
+  suggestsSlowing: boolean | null;
+
+  @Column('text')
+  summaryJson: string;
+
+  @Column('blob')
+  series: Buffer;
+
+  @Column('varchar', { length: 30 })
+  createdAt: string;
+}

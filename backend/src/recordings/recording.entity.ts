@@ -1,0 +1,73 @@
+import { Column, Entity, Index, PrimaryColumn } from 'typeorm';
+import type { RecordingKind, RecordingState } from '@gyre/shared';
+
+/**
+ * One uploaded file of a visit. `studyId`/`siteId`/`participantId` are copied from the
+ * visit so that every query can be scoped without a join. The file itself lives under
+ * `data/uploads/<checksum>.edf` (patient field blanked); a rejected recording keeps
+ * only its checksum and the reason.
+ */
+@Entity('recording')
+@Index('IDX_recording_visit', ['visitId', 'createdAt'])
+export class Recording {
+  @PrimaryColumn('varchar', { length: 36 })
+  id: string;
+
+  @Column('varchar', { length: 36 })
+  studyId: string;
+
+  @Column('varchar', { length: 36 })
+  siteId: string;
+
+  @Column('varchar', { length: 36 })
+  participantId: string;
+
+  @Column('varchar', { length: 36 })
+  visitId: string;
+
+  @Column('varchar', { length: 16 })
+  kind: RecordingKind;
+
+  @Column('varchar', { length: 16 })
+  state: RecordingState;
+
+  /** SHA-256 (hex) of the stored, blanked copy. */
+  @Column('varchar', { length: 64 })
+  checksumSha256: string;
+
+  @Column('integer')
+  sizeBytes: number;
+
+  /** File name under the uploads folder, null while received and once rejected. */
+  @Column('varchar', { length: 80, nullable: true })
+  storedFile: string | null;
+
+  /** JSON of the validated file's facts (RecordingFacts). */
+  @Column('text', { nullable: true })
+  factsJson: string | null;
+
+  /** JSON list of `{ onsetS, label }` from the onset CSV, when one came with the file. */
+  @Column('text', { nullable: true })
+  csvOnsetsJson: string | null;
+
+  /** SHA-256 of the onset CSV as received. */
+  @Column('varchar', { length: 64, nullable: true })
+  onsetsChecksumSha256: string | null;
+
+  /** JSON `{ message, field, found, expected }` when rejected. */
+  @Column('text', { nullable: true })
+  rejectionJson: string | null;
+
+  /** The last computation error, when failed. */
+  @Column('text', { nullable: true })
+  failureMessage: string | null;
+
+  @Column('varchar', { length: 36 })
+  uploadedById: string;
+
+  @Column('varchar', { length: 30 })
+  createdAt: string;
+
+  @Column('varchar', { length: 30 })
+  updatedAt: string;
+}

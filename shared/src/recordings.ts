@@ -1,0 +1,289 @@
+/**
+ * API types of recordings, background jobs, analysis settings, runs and results,
+ * slowing flags, draft reports and participant trajectories.
+ */
+
+export const RECORDING_KINDS = ['resting', 'task'] as const;
+export type RecordingKind = (typeof RECORDING_KINDS)[number];
+
+/** received → queued → computing → ready, or rejected (bad file), or failed (retry possible). */
+export const RECORDING_STATES = [
+  'received',
+  'queued',
+  'computing',
+  'ready',
+  'rejected',
+  'failed',
+] as const;
+export type RecordingState = (typeof RECORDING_STATES)[number];
+
+export const JOB_STATES = ['queued', 'running', 'done', 'failed'] as const;
+export type JobState = (typeof JOB_STATES)[number];
+
+export const ANALYSIS_METHODS = ['filter', 'morlet'] as const;
+export type AnalysisMethod = (typeof ANALYSIS_METHODS)[number];
+
+/** Where a run's band came from: the study setting, the visit's resting IAF ± 2 Hz, or 8–13 Hz. */
+export type BandSource = 'settings' | 'iaf' | 'default';
+
+export const FLAG_STATES = ['raised', 'cleared'] as const;
+export type FlagState = (typeof FLAG_STATES)[number];
+
+export const REPORT_STATES = ['draft', 'signed', 'sent'] as const;
+export type ReportState = (typeof REPORT_STATES)[number];
+
+/** Why a file was refused: the reader's message and, when it names one, the field. */
+export interface RecordingRejection {
+  message: string;
+  field: string | null;
+  found: string | null;
+  expected: string | null;
+}
+
+/** What validation learnt about an accepted file (no patient data: that field is blanked). */
+export interface RecordingFactsDto {
+  format: 'EDF' | 'EDF+C' | 'EDF+D';
+  durationS: number;
+  recordCount: number;
+  recordDurationS: number;
+  channelLabels: string[];
+  sampleRatesHz: number[];
+  roiChannels: string[];
+  annotationCount: number;
+  csvOnsetCount: number | null;
+  warnings: string[];
+}
+
+export interface JobDto {
+  id: string;
+  recordingId: string;
+  state: JobState;
+  attempts: number;
+  maxAttempts: number;
+  progressPercent: number;
+  settingsVersion: number;
+  error: string | null;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+}
+
+export interface RecordingDto {
+  id: string;
+  studyId: string;
+  siteId: string;
+  participantId: string;
+  visitId: string;
+  kind: RecordingKind;
+  state: RecordingState;
+  checksumSha256: string;
+  sizeBytes: number;
+  /** Progress of the current or last job, 0–100; null before any job. */
+  progressPercent: number | null;
+  facts: RecordingFactsDto | null;
+  rejection: RecordingRejection | null;
+  failureMessage: string | null;
+  latestJob: JobDto | null;
+  latestRunId: string | null;
+  uploadedById: string;
+  createdAt: string;
+  updatedAt: string;
+}
+
+/** `GET /api/recordings/:id/events` (Server-Sent Events, event name `recording`). */
+export interface RecordingEvent {
+  recordingId: string;
+  state: RecordingState;
+  progressPercent: number | null;
+  error: string | null;
+}
+
+export interface AnalysisSettingsValues {
+  /** Null: IAF ± 2 Hz of the visit's resting recording when there is one, else 8–13 Hz. */
+  bandHz: [number, number] | null;
+  method: AnalysisMethod;
+  /** Cycles of the complex Morlet wavelet (method `morlet`). */
+  morletCycles: number;
+  epochWindowS: [number, number];
+  baselineWindowS: [number, number];
+  postWindowS: [number, number];
+  /** Epochs whose mean-removed amplitude exceeds ± this are dropped. */
+  rejectionThresholdUv: number;
+  /** A slowing flag is suggested when ROI Δf ≤ this (Hz, negative) and the CI excludes 0. */
+  flagThresholdHz: number;
+  /** 10-10 channel names of the region of interest. */
+  roi: string[];
+  /** Which onsets to use (annotation text / CSV label); null = every onset. */
+  onsetLabel: string | null;
+}
+
+/** `POST /api/studies/:studyId/analysis-settings`: a new version. */
+export interface AnalysisSettingsChange extends AnalysisSettingsValues {
+  reason: string;
+}
+
+export interface AnalysisSettingsDto extends AnalysisSettingsValues {
+  id: string;
+  studyId: string;
+  version: number;
+  reason: string;
+  createdById: string | null;
+  createdAt: string;
+}
+
+export interface AnalysisRunDto {
+  id: string;
+  recordingId: string;
+  visitId: string;
+  participantId: string;
+  kind: RecordingKind;
+  settingsId: string;
+  settingsVersion: number;
+  codeVersion: string;
+  inputChecksumSha256: string;
+  bandHz: [number, number];
+  bandSource: BandSource;
+  /** Task: ROI Δf = post − baseline in Hz (negative = slowing). */
+  roiDeltaFHz: number | null;
+  roiCiHz: [number, number] | null;
+  roiPValue: number | null;
+  trialsKept: number | null;
+  trialsTotal: number | null;
+  /** Rest: ROI peak alpha frequency; null = no clear peak. */
+  pafHz: number | null;
+  cogHz: number | null;
+  suggestsSlowing: boolean | null;
+  createdAt: string;
+}
+
+/** Mean instantaneous frequency around onset, for one channel or the ROI. */
+export interface OnsetCurveDto {
+  name: string;
+  meanHz: Array<number | null>;
+  ciLowHz: Array<number | null>;
+  ciHighHz: Array<number | null>;
+}
+
+export interface ChannelStatsDto {
+  label: string;
+  canonical: string | null;
+  inRoi: boolean;
+  baselineHz: number | null;
+  postHz: number | null;
+  deltaFHz: number | null;
+  ciHz: [number, number] | null;
+  pValue: number | null;
+  trials: number | null;
+  pafHz: number | null;
+  cogHz: number | null;
+}
+
+export interface TaskResultsDto {
+  /** Seconds relative to onset, one per curve point. */
+  timeS: number[];
+  baselineWindowS: [number, number];
+  postWindowS: [number, number];
+  roi: OnsetCurveDto;
+  channels: OnsetCurveDto[];
+  /** ROI trial raster: trials × time (at most 500 points), Hz; null = dropped/undefined. */
+  raster: { timeS: number[]; trials: Array<Array<number | null>>; trialOnsetsS: number[] };
+  /** Per-trial Δf of the ROI, Hz. */
+  trialDeltaFHz: Array<number | null>;
+  epochs: { total: number; kept: number; dropped: Record<string, number> };
+}
+
+export interface RestResultsDto {
+  frequencyHz: number[];
+  /** ROI power spectral density, µV²/Hz. */
+  powerUv2PerHz: number[];
+  pafHz: number | null;
+  cogHz: number | null;
+  alphaWindowHz: [number, number];
+}
+
+export interface QualityDto {
+  durationS: number;
+  sampleRateHz: number;
+  roiChannelsFound: string[];
+  flatChannels: string[];
+  saturatedChannels: string[];
+  lineNoiseRatio: number | null;
+  lineFrequencyHz: number | null;
+  epochsDroppedShare: number | null;
+  phaseSlipRate: number | null;
+  alphaPeakProminence: number | null;
+  warnings: string[];
+  /** Everything else the signal core reported, as it reported it. */
+  details: Record<string, unknown>;
+}
+
+export interface RecordingResultsDto {
+  run: AnalysisRunDto;
+  channels: ChannelStatsDto[];
+  task: TaskResultsDto | null;
+  rest: RestResultsDto | null;
+  quality: QualityDto;
+}
+
+export interface FlagDto {
+  id: string;
+  visitId: string;
+  state: FlagState;
+  raisedById: string;
+  raiseReason: string;
+  raisedAt: string;
+  clearedById: string | null;
+  clearReason: string | null;
+  clearedAt: string | null;
+}
+
+/** What the computation suggests for a visit; shown beside the flag, never acting alone. */
+export interface FlagSuggestion {
+  suggestsSlowing: boolean;
+  runId: string;
+  roiDeltaFHz: number | null;
+  roiCiHz: [number, number] | null;
+  flagThresholdHz: number;
+}
+
+export interface VisitFlagDto {
+  visitId: string;
+  current: FlagDto | null;
+  suggestion: FlagSuggestion | null;
+  history: FlagDto[];
+}
+
+export interface FlagChange {
+  reason: string;
+}
+
+export interface ReportDto {
+  id: string;
+  visitId: string;
+  participantId: string;
+  siteId: string;
+  state: ReportState;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface TrajectoryVisitDto {
+  visitId: string;
+  label: string;
+  date: string;
+  pafHz: number | null;
+  cogHz: number | null;
+  deltaFHz: number | null;
+  /** Change from the first visit that has the value. */
+  pafChangeHz: number | null;
+  cogChangeHz: number | null;
+  deltaFChangeHz: number | null;
+  flagged: boolean;
+}
+
+export interface TrajectoryDto {
+  participantId: string;
+  visits: TrajectoryVisitDto[];
+  /** Theil–Sen slopes over visit dates, Hz per year; null with fewer than two visits. */
+  slopesHzPerYear: { paf: number | null; cog: number | null; deltaF: number | null };
+}
