@@ -152,7 +152,7 @@ function parseStartDate(
       throw new EdfFormatError(
         FIXED_FIELDS.recordingId[0],
         recordingDate ? `Startdate year ${recordingDate.year}` : 'no Startdate dd-MMM-yyyy',
-        "'Startdate dd-MMM-yyyy' with a year after 2084 when the start date year is 'yy'",
+        "a year after 2084 in 'Startdate dd-MMM-yyyy' (the start date year is 'yy')",
       );
     }
     year = recordingDate.year;
@@ -306,8 +306,8 @@ export function readEdfHeader(headerBytes: Uint8Array, fileSizeBytes: number): E
   if (recordCount === -1) {
     throw new EdfFormatError(
       recordCountName,
-      '-1 (unknown length, written only while recording)',
-      'the final number of records; files of unknown length are not supported',
+      '-1 (unknown length, allowed only while recording)',
+      'a known record count (files of unknown length are not supported)',
     );
   }
   if (recordCount < 1) {
@@ -381,8 +381,9 @@ function parseSignalHeaders(
   }
   const signals: EdfSignalHeader[] = [];
   for (let i = 0; i < signalCount; i++) {
-    const name = (field: number): string => `signal ${i + 1} ${SIGNAL_FIELDS[field][0]}`;
     const label = columns[0][i].trim();
+    const name = (field: number): string =>
+      `signal ${i + 1} ('${label}') ${SIGNAL_FIELDS[field][0]}`;
     const isAnnotation = label === EDF_ANNOTATIONS_LABEL;
     const samplesPerRecord = parseEdfInteger(columns[8][i], name(8));
     if (samplesPerRecord <= 0) {
