@@ -226,15 +226,11 @@ function parseSignalCount(bytes: Uint8Array): number {
 }
 
 /**
- * Reads and validates the whole header (fixed part and signal headers) and checks the
- * sizes it claims against `fileSizeBytes`. Throws `EdfFormatError` on the first
- * problem; collects non-fatal ones in `warnings`.
- *
- * @param headerBytes at least the first 256 × (1 + signals) bytes of the file (more is fine).
- * @param fileSizeBytes length of the whole file in bytes.
+ * Checks of the fixed 256-byte header that need nothing else: version, printable
+ * ASCII, signal count, header-bytes field, and that the header fits `fileSizeBytes`
+ * (Kemp et al. 1992). Returns the full header length to read next.
  */
-export function readEdfHeader(headerBytes: Uint8Array, fileSizeBytes: number): EdfHeaderInfo {
-  const warnings: string[] = [];
+export function checkFixedHeader(headerBytes: Uint8Array, fileSizeBytes: number): number {
   if (fileSizeBytes < EDF_FIXED_HEADER_BYTES || headerBytes.byteLength < EDF_FIXED_HEADER_BYTES) {
     throw new EdfFormatError(
       'file length',
@@ -262,11 +258,26 @@ export function readEdfHeader(headerBytes: Uint8Array, fileSizeBytes: number): E
       `at least the header's 256 × (1 + ${signalCount} signals) = ${expectedHeaderBytes} bytes`,
     );
   }
+  return expectedHeaderBytes;
+}
+
+/**
+ * Reads and validates the whole header (fixed part and signal headers) and checks the
+ * sizes it claims against `fileSizeBytes`. Throws `EdfFormatError` on the first
+ * problem; collects non-fatal ones in `warnings`.
+ *
+ * @param headerBytes at least the first 256 × (1 + signals) bytes of the file (more is fine).
+ * @param fileSizeBytes length of the whole file in bytes.
+ */
+export function readEdfHeader(headerBytes: Uint8Array, fileSizeBytes: number): EdfHeaderInfo {
+  const warnings: string[] = [];
+  const expectedHeaderBytes = checkFixedHeader(headerBytes, fileSizeBytes);
+  const signalCount = expectedHeaderBytes / EDF_BYTES_PER_SIGNAL_HEADER - 1;
   if (headerBytes.byteLength < expectedHeaderBytes) {
     throw new EdfFormatError(
       'header bytes given',
       String(headerBytes.byteLength),
-      `${expectedHeaderBytes} (call requiredHeaderBytes first)`,
+      `${expectedHeaderBytes} (read checkFixedHeader's length first)`,
     );
   }
   assertPrintable(headerBytes, EDF_FIXED_HEADER_BYTES, expectedHeaderBytes, signalCount);

@@ -14,3 +14,4 @@ export { writeEdf } from './edf-writer';
 export type { EdfWriteSignal, EdfWriteSpec } from './edf-writer';
 export { blankPatientField, blankRecordingField } from './edf-patient-field';
 export { toMicrovolts } from './edf-units';
+export { EdfStreamReader } from './edf-stream-reader';
