@@ -1,0 +1,103 @@
+import { dftPlan } from './dft-any-length';
+import { fftPlan, nextPowerOfTwo } from './fft-plan';
+
+/** Generated test signal (deterministic). */
+function generated(n: number, seed: number): Float64Array {
+  const x = new Float64Array(n);
+  let s = seed;
+  for (let i = 0; i < n; i++) {
+    s = (s * 1103515245 + 12345) % 2147483648;
+    x[i] = s / 2147483648 - 0.5 + Math.sin(i / 7);
+  }
+  return x;
+}
+
+function toComplex(x: Float64Array): Float64Array {
+  const c = new Float64Array(2 * x.length);
+  for (let i = 0; i < x.length; i++) c[2 * i] = x[i];
+  return c;
+}
+
+/** DFT straight from its definition X[k] = Σ x[n]·e^(−2πikn/N). */
+function naiveDft(c: Float64Array): Float64Array {
+  const n = c.length / 2;
+  const out = new Float64Array(2 * n);
+  for (let k = 0; k < n; k++) {
+    let re = 0;
+    let im = 0;
+    for (let j = 0; j < n; j++) {
+      const a = (-2 * Math.PI * ((k * j) % n)) / n;
+      re += c[2 * j] * Math.cos(a) - c[2 * j + 1] * Math.sin(a);
+      im += c[2 * j] * Math.sin(a) + c[2 * j + 1] * Math.cos(a);
+    }
+    out[2 * k] = re;
+    out[2 * k + 1] = im;
+  }
+  return out;
+}
+
+function maxAbs(a: Float64Array): number {
+  let m = 0;
+  for (const v of a) m = Math.max(m, Math.abs(v));
+  return m;
+}
+
+function maxDiff(a: Float64Array, b: Float64Array): number {
+  let m = 0;
+  for (let i = 0; i < a.length; i++) m = Math.max(m, Math.abs(a[i] - b[i]));
+  return m;
+}
+
+describe('FFT plans', () => {
+  it('rounds lengths up to a power of two', () => {
+    expect([1, 2, 3, 1000, 1024, 1025].map(nextPowerOfTwo)).toEqual([2, 2, 4, 1024, 1024, 2048]);
+    expect(() => fftPlan(1000)).toThrow(/power of two/);
+  });
+
+  // Property: the inverse DFT undoes the forward DFT; tolerance scaled to N·log2 N·ε.
+  it.each([8, 1024, 65536])('round-trips forward then inverse (N = %i)', (n) => {
+    const x = toComplex(generated(n, 7));
+    const plan = fftPlan(n);
+    const spectrum = new Float64Array(2 * n);
+    const back = new Float64Array(2 * n);
+    plan.forward(x, spectrum);
+    plan.inverse(spectrum, back);
+    expect(maxDiff(back, x)).toBeLessThan(maxAbs(x) * Math.log2(n) * 8 * Number.EPSILON * 4);
+  });
+
+  // Property: Parseval's theorem Σ|x[n]|² = (1/N)·Σ|X[k]|².
+  it.each([16, 4096])('keeps the energy (Parseval, N = %i)', (n) => {
+    const x = generated(n, 3);
+    const spectrum = new Float64Array(2 * n);
+    fftPlan(n).forward(toComplex(x), spectrum);
+    let timeEnergy = 0;
+    for (const v of x) timeEnergy += v * v;
+    let freqEnergy = 0;
+    for (const v of spectrum) freqEnergy += v * v;
+    expect(Math.abs(freqEnergy / n - timeEnergy) / timeEnergy).toBeLessThan(n * Number.EPSILON);
+  });
+
+  it('gives the same half spectrum from the real transform as from the complex one', () => {
+    const n = 2048;
+    const x = generated(n, 11);
+    const plan = fftPlan(n);
+    const real = new Float64Array(2 * n);
+    const complex = new Float64Array(2 * n);
+    plan.forwardReal(x, real);
+    plan.forward(toComplex(x), complex);
+    expect(maxDiff(real.subarray(0, n + 2), complex.subarray(0, n + 2))).toBeLessThan(
+      maxAbs(complex) * 1e-13,
+    );
+  });
+
+  // Against the DFT definition, for lengths that are not powers of two (Bluestein path).
+  it.each([7, 100, 1000])('matches the DFT definition at any length (N = %i)', (n) => {
+    const x = toComplex(generated(n, 5));
+    for (let i = 0; i < n; i++) x[2 * i + 1] = Math.cos(i);
+    const plan = dftPlan(n);
+    const out = new Float64Array(2 * n);
+    plan.forward(x, out, plan.createScratch());
+    const expected = naiveDft(x);
+    expect(maxDiff(out, expected)).toBeLessThan(maxAbs(expected) * 1e-12);
+  });
+});

@@ -1,0 +1,203 @@
+import {
+  AnalyticWorkspace,
+  analyticFftSize,
+  analyticSignal,
+  ComplexSeries,
+} from './analytic-signal';
+import { phaseDifferenceFrequency } from './instantaneous-frequency';
+import { medianAcross } from './median-across';
+import { RunningMedianWorkspace, runningMedians } from './running-median';
+import {
+  DEFAULT_MORLET_CYCLES,
+  DEFAULT_TRANSITION_FRACTION,
+  morletWavelet,
+  plateauBandPass,
+  SpectralWeight,
+} from './spectral-weights';
+
+export type NarrowBandMethod = 'plateau' | 'morlet';
+
+export const DEFAULT_ALPHA_BAND_HZ: readonly [number, number] = [8, 13];
+/** Half-width of the band around a resting IAF (METHOD.md §2: IAF ± 2 Hz). */
+export const DEFAULT_IAF_HALF_WIDTH_HZ = 2;
+
+export interface MedianWindowOptions {
+  sampleRateHz: number;
+  /** Shortest window in ms (default 10, Cohen 2014). */
+  shortestMs?: number;
+  /** Longest window in ms (default 400, Cohen 2014). */
+  longestMs?: number;
+  /** Number of window lengths, evenly spaced (default 10, Cohen 2014). */
+  count?: number;
+}
+
+/**
+ * Median window lengths in samples: `count` lengths evenly spaced from `shortestMs`
+ * to `longestMs` (Cohen 2014), each rounded to the nearest sample and made odd by
+ * adding one when even, so that every window has a centre sample.
+ */
+export function medianWindowLengths(options: MedianWindowOptions): number[] {
+  const shortest = options.shortestMs ?? 10;
+  const longest = options.longestMs ?? 400;
+  const count = options.count ?? 10;
+  if (!(shortest > 0) || !(longest >= shortest)) {
+    throw new RangeError(
+      `median windows: expected 0 < shortestMs ≤ longestMs, got ${shortest} and ${longest} ms`,
+    );
+  }
+  if (!Number.isInteger(count) || count < 1) {
+    throw new RangeError(`median windows count: expected a positive integer, got ${count}`);
+  }
+  const lengths: number[] = [];
+  for (let i = 0; i < count; i++) {
+    const ms = count === 1 ? shortest : shortest + ((longest - shortest) * i) / (count - 1);
+    let samples = Math.max(1, Math.round((ms * options.sampleRateHz) / 1000));
+    if (samples % 2 === 0) samples += 1;
+    lengths.push(samples);
+  }
+  return lengths;
+}
+
+export interface FrequencySlidingOptions {
+  sampleRateHz: number;
+  /** Analysis band in Hz; default IAF ± 2 Hz when `iafHz` is given, otherwise 8–13 Hz. */
+  bandHz?: readonly [number, number];
+  /** The participant's resting individual alpha frequency, when known. */
+  iafHz?: number | null;
+  /** 'plateau' (default): zero-phase plateau band-pass; 'morlet': complex Morlet wavelet. */
+  method?: NarrowBandMethod;
+  /** Transition zones of the plateau filter as a fraction of the band edges (default 0.15). */
+  transitionFraction?: number;
+  /** Morlet cycles (default 7), centred on the IAF or on the band centre. */
+  morletCycles?: number;
+  /** Median windows (default: 10 lengths from 10 to 400 ms). */
+  medianWindows?: Omit<MedianWindowOptions, 'sampleRateHz'>;
+  /** Mirrored samples at each end before the transform, in s (default: from the filter). */
+  edgePaddingS?: number;
+}
+
+/** The analysis band chosen by the options (METHOD.md §2). */
+export function resolveBandHz(options: {
+  bandHz?: readonly [number, number];
+  iafHz?: number | null;
+}): [number, number] {
+  if (options.bandHz) return [options.bandHz[0], options.bandHz[1]];
+  if (options.iafHz !== undefined && options.iafHz !== null) {
+    return [options.iafHz - DEFAULT_IAF_HALF_WIDTH_HZ, options.iafHz + DEFAULT_IAF_HALF_WIDTH_HZ];
+  }
+  return [DEFAULT_ALPHA_BAND_HZ[0], DEFAULT_ALPHA_BAND_HZ[1]];
+}
+
+/** The spectral weight (filter or wavelet) the options ask for. */
+export function narrowBandWeight(options: FrequencySlidingOptions): SpectralWeight {
+  const bandHz = resolveBandHz(options);
+  if ((options.method ?? 'plateau') === 'morlet') {
+    const centreHz = options.iafHz ?? (bandHz[0] + bandHz[1]) / 2;
+    return morletWavelet({ centreHz, cycles: options.morletCycles ?? DEFAULT_MORLET_CYCLES });
+  }
+  return plateauBandPass({ bandHz, transitionFraction: options.transitionFraction });
+}
+
+/**
+ * Mirrored edge samples for the transform: at least 2 s, and at least four times the
+ * inverse width of the lower transition zone, where the impulse response is longest
+ * (common practice: pad by a few impulse-response lengths).
+ */
+export function defaultEdgePaddingS(options: FrequencySlidingOptions): number {
+  const bandHz = resolveBandHz(options);
+  const t = options.transitionFraction ?? DEFAULT_TRANSITION_FRACTION;
+  return Math.max(2, 4 / (bandHz[0] * t));
+}
+
+/** Buffers reused across the channels of one caller; never shared between concurrent calls. */
+export class FrequencySlidingWorkspace {
+  analytic: AnalyticWorkspace | null = null;
+  readonly median = new RunningMedianWorkspace();
+  filtered: Float64Array[] = [];
+
+  analyticFor(size: number): AnalyticWorkspace {
+    if (!this.analytic || this.analytic.size !== size) this.analytic = new AnalyticWorkspace(size);
+    return this.analytic;
+  }
+
+  filteredFor(count: number, length: number): Float64Array[] {
+    if (this.filtered.length !== count || this.filtered[0].length !== length) {
+      this.filtered = Array.from({ length: count }, () => new Float64Array(length));
+    }
+    return this.filtered;
+  }
+}
+
+export interface FrequencySlidingResult {
+  /** Median-filtered instantaneous frequency in Hz, N−1 values. */
+  frequencyHz: Float64Array;
+  /** Instantaneous frequency before median filtering, N−1 values. */
+  rawFrequencyHz: Float64Array;
+  /** Time of value 0 in s after the first sample: the midpoint 0.5/fs (Boashash 1992). */
+  firstTimeS: number;
+  sampleRateHz: number;
+  bandHz: [number, number];
+  medianWindowsSamples: number[];
+  /** Share of raw values outside `bandHz` (phase slips, METHOD.md §6). */
+  outOfBandShare: number;
+}
+
+/**
+ * "Frequency sliding" of one channel (METHOD.md §2): zero-phase narrow-band analytic
+ * signal in one spectral multiplication (Marple 1999), phase-difference frequency
+ * (Boashash 1992), then the median across running medians of 10 window lengths
+ * (Cohen 2014, "Fluctuations in oscillation frequency control spike timing and
+ * coordinate neural networks", J. Neurosci. 34:8988–8998).
+ * Run it on the whole continuous recording, never on short epochs.
+ */
+export function frequencySliding(
+  samples: Float32Array | Float64Array,
+  options: FrequencySlidingOptions,
+  workspace: FrequencySlidingWorkspace = new FrequencySlidingWorkspace(),
+): FrequencySlidingResult {
+  const fs = options.sampleRateHz;
+  const bandHz = resolveBandHz(options);
+  const z = narrowBandAnalytic(samples, options, workspace);
+  const raw = phaseDifferenceFrequency(z, { sampleRateHz: fs });
+  const windows = medianWindowLengths({ sampleRateHz: fs, ...options.medianWindows });
+  const frequencyHz = medianFilterFrequency(raw, windows, workspace);
+  let outside = 0;
+  for (let i = 0; i < raw.length; i++) if (raw[i] < bandHz[0] || raw[i] > bandHz[1]) outside++;
+  return {
+    frequencyHz,
+    rawFrequencyHz: raw,
+    firstTimeS: 0.5 / fs,
+    sampleRateHz: fs,
+    bandHz,
+    medianWindowsSamples: windows,
+    outOfBandShare: raw.length > 0 ? outside / raw.length : 0,
+  };
+}
+
+/** Step 1–2 of `frequencySliding`: the narrow-band analytic signal of one channel. */
+export function narrowBandAnalytic(
+  samples: Float32Array | Float64Array,
+  options: FrequencySlidingOptions,
+  workspace: FrequencySlidingWorkspace,
+): ComplexSeries {
+  const fs = options.sampleRateHz;
+  const paddingS = options.edgePaddingS ?? defaultEdgePaddingS(options);
+  const padding = Math.min(samples.length - 1, Math.ceil(paddingS * fs));
+  const size = analyticFftSize(samples.length, padding, false);
+  return analyticSignal(
+    samples,
+    { sampleRateHz: fs, weight: narrowBandWeight(options), edgePaddingSamples: padding },
+    workspace.analyticFor(size),
+  );
+}
+
+/** Step 5 of `frequencySliding`: median across the running medians of `windowsSamples`. */
+export function medianFilterFrequency(
+  raw: Float64Array,
+  windowsSamples: readonly number[],
+  workspace: FrequencySlidingWorkspace,
+): Float64Array {
+  const filtered = workspace.filteredFor(windowsSamples.length, raw.length);
+  runningMedians(raw, { windowsSamples }, workspace.median, filtered);
+  return medianAcross(filtered, new Float64Array(raw.length));
+}

@@ -1,0 +1,124 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { medianWindowLengths } from './frequency-sliding';
+import { medianAcross, TEN_INPUT_NETWORK } from './median-across';
+import { runningMedian, runningMedians, RunningMedianWorkspace } from './running-median';
+
+interface MedianFixture {
+  input: number[];
+  windowsSamples: number[];
+  filtered: number[][];
+  medianAcross: number[];
+}
+
+const fixture = JSON.parse(
+  readFileSync(join(__dirname, '../../../test/fixtures/scipy/median-filter.json'), 'utf8'),
+) as MedianFixture;
+
+/** Median of each centred window by sorting it: the definition, with scipy's 'reflect' edges. */
+function sortedWindowMedian(x: Float64Array, k: number): Float64Array {
+  const n = x.length;
+  const h = (k - 1) / 2;
+  const reflect = (i: number): number => {
+    const p = 2 * n;
+    const j = ((i % p) + p) % p;
+    return j < n ? j : p - 1 - j;
+  };
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const w: number[] = [];
+    for (let j = -h; j <= h; j++) w.push(x[reflect(i + j)]);
+    w.sort((a, b) => a - b);
+    out[i] = w[h];
+  }
+  return out;
+}
+
+describe('running median', () => {
+  it('is identical to scipy.ndimage.median_filter(mode="reflect") for all 10 windows', () => {
+    const x = Float64Array.from(fixture.input);
+    const outputs = fixture.windowsSamples.map(() => new Float64Array(x.length));
+    runningMedians(
+      x,
+      { windowsSamples: fixture.windowsSamples },
+      new RunningMedianWorkspace(),
+      outputs,
+    );
+    outputs.forEach((out, i) => {
+      // Exact: a median selects one of the inputs, so the values must be equal, edges included.
+      expect(Array.from(out)).toEqual(fixture.filtered[i]);
+    });
+  });
+
+  it('takes the median across the 10 filtered series like numpy.median(axis=0)', () => {
+    const series = fixture.filtered.map((f) => Float64Array.from(f));
+    const out = medianAcross(series, new Float64Array(fixture.input.length));
+    // The mean of the two middle values is rounded to 13 digits in the fixture.
+    let worst = 0;
+    out.forEach((v, i) => {
+      worst = Math.max(
+        worst,
+        Math.abs(v - fixture.medianAcross[i]) / Math.abs(fixture.medianAcross[i]),
+      );
+    });
+    expect(worst).toBeLessThan(1e-12);
+  });
+
+  it('agrees with sorting every window, for short inputs, ties and windows longer than the input', () => {
+    // Generated inputs: small integers plus fractions, so many values tie.
+    let seed = 5;
+    const random = (): number => {
+      seed = (seed * 1103515245 + 12345) % 2147483648;
+      return seed / 2147483648;
+    };
+    const ws = new RunningMedianWorkspace();
+    for (const n of [1, 2, 3, 10, 37, 256]) {
+      for (const k of [1, 3, 5, 9, 21, 51, 201]) {
+        const x = new Float64Array(n);
+        for (let i = 0; i < n; i++)
+          x[i] = Math.floor(random() * 7) - 3 + (random() < 0.5 ? 0 : random());
+        expect(Array.from(runningMedian(x, { windowSamples: k }, ws))).toEqual(
+          Array.from(sortedWindowMedian(x, k)),
+        );
+      }
+    }
+  });
+
+  it('refuses an even window', () => {
+    expect(() => runningMedian(new Float64Array(10), { windowSamples: 4 })).toThrow(
+      /odd positive integer, got 4/,
+    );
+  });
+
+  it('spaces 10 odd windows from 10 to 400 ms (Cohen 2014)', () => {
+    expect(medianWindowLengths({ sampleRateHz: 500 })).toEqual([
+      5, 27, 49, 71, 93, 113, 135, 157, 179, 201,
+    ]);
+    for (const fs of [250, 256, 1000]) {
+      const lengths = medianWindowLengths({ sampleRateHz: fs });
+      expect(lengths).toHaveLength(10);
+      expect(lengths.every((k) => k % 2 === 1)).toBe(true);
+      expect(Math.abs(lengths[9] - 0.4 * fs)).toBeLessThanOrEqual(1);
+    }
+  });
+
+  it('uses a ten-input network that sorts every zero-one input (0-1 principle)', () => {
+    // Knuth's 0-1 principle: a comparator network sorts all inputs iff it sorts all 0-1 inputs.
+    for (let mask = 0; mask < 1 << 10; mask++) {
+      const v = Array.from({ length: 10 }, (_, i) => (mask >> i) & 1);
+      for (const [a, b] of TEN_INPUT_NETWORK) {
+        if (v[a] > v[b]) [v[a], v[b]] = [v[b], v[a]];
+      }
+      expect(v.every((x, i) => i === 0 || v[i - 1] <= x)).toBe(true);
+    }
+    // The unrolled code must match the listed network: compare with a plain sort.
+    const series = Array.from({ length: 10 }, (_, s) =>
+      Float64Array.from({ length: 200 }, (_, i) => Math.sin(i * (s + 1) * 0.37) + s * 0.01),
+    );
+    const out = medianAcross(series, new Float64Array(200));
+    for (let i = 0; i < 200; i++) {
+      const column = series.map((x) => x[i]).sort((a, b) => a - b);
+      expect(out[i]).toBe((column[4] + column[5]) / 2);
+    }
+  });
+});

@@ -1,0 +1,122 @@
+export type EpochDropReason = 'edge' | 'amplitude' | 'artefact';
+
+export interface EpochWindowsS {
+  /** Epoch around each onset, s (default −1 to +2, METHOD.md §3). */
+  epochS: readonly [number, number];
+  /** Baseline window, s (default −0.5 to 0). */
+  baselineS: readonly [number, number];
+  /** Post-onset window, s (default +0.2 to +0.8). */
+  postS: readonly [number, number];
+}
+
+export const DEFAULT_EPOCH_WINDOWS_S: EpochWindowsS = {
+  epochS: [-1, 2],
+  baselineS: [-0.5, 0],
+  postS: [0.2, 0.8],
+};
+
+/** A span of the recording marked as artefact, in s from the recording start. */
+export interface ArtefactSpan {
+  startS: number;
+  endS: number;
+}
+
+export interface TrialScreenOptions {
+  recordingDurationS: number;
+  epochS: readonly [number, number];
+  /** Epochs starting or ending closer than this to a recording edge are dropped (default 1 s). */
+  edgeGuardS?: number;
+  artefacts?: readonly ArtefactSpan[];
+}
+
+/**
+ * Reasons that drop a trial on every channel (METHOD.md §3): the epoch starts or ends
+ * within `edgeGuardS` of the recording's edges (the transform's edge artefacts live
+ * there), or it overlaps an artefact span. Null keeps the trial.
+ */
+export function screenTrials(
+  onsetsS: readonly number[],
+  options: TrialScreenOptions,
+): (EpochDropReason | null)[] {
+  const guard = options.edgeGuardS ?? 1;
+  const [e0, e1] = options.epochS;
+  const artefacts = options.artefacts ?? [];
+  return onsetsS.map((t) => {
+    const start = t + e0;
+    const end = t + e1;
+    if (start < guard || end > options.recordingDurationS - guard) return 'edge';
+    if (artefacts.some((a) => a.startS <= end && a.endS >= start)) return 'artefact';
+    return null;
+  });
+}
+
+/**
+ * Whether the raw epoch exceeds ±`limit` (same unit as the samples) after its mean is
+ * removed (common practice: ±100 µV; METHOD.md §3).
+ */
+export function epochExceedsAmplitude(
+  samples: Float32Array | Float64Array,
+  options: {
+    sampleRateHz: number;
+    onsetS: number;
+    epochS: readonly [number, number];
+    limit: number;
+  },
+): boolean {
+  const fs = options.sampleRateHz;
+  const first = Math.max(0, Math.round((options.onsetS + options.epochS[0]) * fs));
+  const last = Math.min(samples.length - 1, Math.round((options.onsetS + options.epochS[1]) * fs));
+  if (last < first) return false;
+  let mean = 0;
+  for (let i = first; i <= last; i++) mean += samples[i];
+  mean /= last - first + 1;
+  for (let i = first; i <= last; i++) {
+    if (Math.abs(samples[i] - mean) > options.limit) return true;
+  }
+  return false;
+}
+
+/** Index range [start, end) of epoch points whose time lies in [fromS, toS). */
+export function epochPointRange(
+  epochS: readonly [number, number],
+  sampleRateHz: number,
+  windowS: readonly [number, number],
+): [number, number] {
+  // A small tolerance keeps points that sit exactly on a window edge on the right side.
+  const start = Math.ceil((windowS[0] - epochS[0]) * sampleRateHz - 1e-9);
+  const end = Math.ceil((windowS[1] - epochS[0]) * sampleRateHz - 1e-9);
+  return [Math.max(0, start), end];
+}
+
+/** Number of points of an epoch: one per frequency value from epochS[0] to epochS[1]. */
+export function epochPointCount(epochS: readonly [number, number], sampleRateHz: number): number {
+  return Math.floor((epochS[1] - epochS[0]) * sampleRateHz + 1e-9) + 1;
+}
+
+/**
+ * Frequency epochs cut from a continuous frequency series (trials × points, row-major).
+ * Value j of the series belongs to time firstTimeS + j/fs (a sample midpoint); point i of
+ * an epoch to onset + epochS[0] + i/fs, taken from the nearest value. Points that fall
+ * outside the series are NaN (screenTrials drops such epochs anyway).
+ */
+export function cutFrequencyEpochs(
+  frequencyHz: Float64Array,
+  options: {
+    sampleRateHz: number;
+    firstTimeS: number;
+    onsetsS: readonly number[];
+    epochS: readonly [number, number];
+  },
+): Float64Array {
+  const fs = options.sampleRateHz;
+  const points = epochPointCount(options.epochS, fs);
+  const out = new Float64Array(options.onsetsS.length * points);
+  options.onsetsS.forEach((t, trial) => {
+    const j0 = Math.round((t + options.epochS[0] - options.firstTimeS) * fs);
+    for (let i = 0; i < points; i++) {
+      const j = j0 + i;
+      out[trial * points + i] = j >= 0 && j < frequencyHz.length ? frequencyHz[j] : NaN;
+    }
+  });
+  return out;
+}

@@ -1,0 +1,205 @@
+import { seededUniform } from './random';
+import { wilcoxonSignedRank, WilcoxonMethod } from './wilcoxon';
+
+export interface BootstrapOptions {
+  /** Resamples (default 2000, METHOD.md §3). */
+  resamples?: number;
+  /** Seed of the generator, so that a rerun gives the same interval (default 1). */
+  seed?: number;
+  /** Coverage (default 0.95). */
+  level?: number;
+}
+
+/**
+ * Percentile bootstrap interval of the mean (Efron & Tibshirani 1993, "An Introduction
+ * to the Bootstrap", ch. 13): resample the values with replacement, take each mean,
+ * and read the (1−level)/2 and (1+level)/2 quantiles of the sorted means (linear
+ * interpolation between order statistics, as numpy.quantile's default).
+ */
+export function bootstrapMeanInterval(
+  values: ArrayLike<number>,
+  options: BootstrapOptions = {},
+): [number, number] | null {
+  const n = values.length;
+  if (n === 0) return null;
+  const resamples = options.resamples ?? 2000;
+  const level = options.level ?? 0.95;
+  const random = seededUniform(options.seed ?? 1);
+  const means = new Float64Array(resamples);
+  for (let r = 0; r < resamples; r++) {
+    let sum = 0;
+    for (let i = 0; i < n; i++) sum += values[Math.floor(random() * n)];
+    means[r] = sum / n;
+  }
+  means.sort();
+  return [quantileSorted(means, (1 - level) / 2), quantileSorted(means, (1 + level) / 2)];
+}
+
+/** Quantile of sorted values with linear interpolation (numpy.quantile 'linear'). */
+export function quantileSorted(sorted: Float64Array, q: number): number {
+  const position = q * (sorted.length - 1);
+  const below = Math.floor(position);
+  const above = Math.min(sorted.length - 1, below + 1);
+  const weight = position - below;
+  return sorted[below] + (sorted[above] - sorted[below]) * weight;
+}
+
+export interface OnsetStatisticsOptions extends BootstrapOptions {
+  /** Δf at or below which Gyre suggests a slowing flag (default −0.2 Hz, a study setting). */
+  slowingThresholdHz?: number;
+}
+
+export interface OnsetStatistics {
+  /** Mean frequency in the baseline window over trials, Hz. */
+  baselineHz: number | null;
+  /** Mean frequency in the post window over trials, Hz. */
+  postHz: number | null;
+  /** Mean of post − baseline over trials, Hz (negative = slowing). */
+  deltaHz: number | null;
+  /** Bootstrap 95 % interval of the mean Δf, Hz. */
+  ci95Hz: [number, number] | null;
+  /** Two-sided Wilcoxon signed-rank p of the trial Δf values. */
+  p: number | null;
+  wilcoxonMethod: WilcoxonMethod | null;
+  /** Δf ≤ threshold and the interval excludes 0: Gyre suggests, an analyst decides. */
+  suggestedFlag: boolean;
+}
+
+/**
+ * Baseline, post and Δf over trials (METHOD.md §3), with the bootstrap interval of
+ * the mean Δf (Efron & Tibshirani 1993) and the Wilcoxon signed-rank test.
+ */
+export function onsetStatistics(
+  baselineHz: ArrayLike<number>,
+  postHz: ArrayLike<number>,
+  options: OnsetStatisticsOptions = {},
+): OnsetStatistics {
+  const n = baselineHz.length;
+  if (postHz.length !== n) {
+    throw new RangeError(`postHz: expected ${n} trials like baselineHz, got ${postHz.length}`);
+  }
+  if (n === 0) {
+    return {
+      baselineHz: null,
+      postHz: null,
+      deltaHz: null,
+      ci95Hz: null,
+      p: null,
+      wilcoxonMethod: null,
+      suggestedFlag: false,
+    };
+  }
+  const delta = new Float64Array(n);
+  let sumBase = 0;
+  let sumPost = 0;
+  for (let i = 0; i < n; i++) {
+    delta[i] = postHz[i] - baselineHz[i];
+    sumBase += baselineHz[i];
+    sumPost += postHz[i];
+  }
+  let sumDelta = 0;
+  for (let i = 0; i < n; i++) sumDelta += delta[i];
+  const deltaHz = sumDelta / n;
+  const ci95Hz = bootstrapMeanInterval(delta, options);
+  const test = wilcoxonSignedRank(delta);
+  const threshold = options.slowingThresholdHz ?? -0.2;
+  return {
+    baselineHz: sumBase / n,
+    postHz: sumPost / n,
+    deltaHz,
+    ci95Hz,
+    p: Number.isNaN(test.pValue) ? null : test.pValue,
+    wilcoxonMethod: Number.isNaN(test.pValue) ? null : test.method,
+    suggestedFlag: deltaHz <= threshold && ci95Hz !== null && ci95Hz[1] < 0,
+  };
+}
+
+/** Mean of each trial's values in the point range [start, end) of its epoch. */
+export function trialWindowMeans(
+  epochs: Float64Array,
+  points: number,
+  trials: readonly number[],
+  range: readonly [number, number],
+): Float64Array {
+  const out = new Float64Array(trials.length);
+  trials.forEach((trial, k) => {
+    let sum = 0;
+    let count = 0;
+    for (let i = range[0]; i < range[1]; i++) {
+      const v = epochs[trial * points + i];
+      if (!Number.isNaN(v)) {
+        sum += v;
+        count++;
+      }
+    }
+    out[k] = count > 0 ? sum / count : NaN;
+  });
+  return out;
+}
+
+export interface OnsetCurve {
+  /** Time of each point relative to onset, s. */
+  timesS: Float64Array;
+  /** Mean frequency over trials, Hz. */
+  meanHz: Float64Array;
+  /** Pointwise 95 % band: mean ∓ 1.96·SD/√n (normal approximation, common practice). */
+  lowerHz: Float64Array;
+  upperHz: Float64Array;
+  /** Trials × points, row-major, Hz: each trial's frequency, binned like the curve. */
+  raster: Float32Array;
+  trialCount: number;
+}
+
+/**
+ * Mean onset curve with a pointwise band and the trial raster, binned by averaging
+ * consecutive points so that at most `maxPoints` remain (for display).
+ */
+export function onsetCurve(
+  epochs: Float64Array,
+  options: {
+    points: number;
+    trials: readonly number[];
+    epochS: readonly [number, number];
+    sampleRateHz: number;
+    maxPoints?: number;
+  },
+): OnsetCurve {
+  const { points, trials, sampleRateHz } = options;
+  const maxPoints = options.maxPoints ?? 500;
+  const factor = Math.max(1, Math.ceil(points / maxPoints));
+  const bins = Math.ceil(points / factor);
+  const n = trials.length;
+  const raster = new Float32Array(n * bins);
+  const timesS = new Float64Array(bins);
+  for (let b = 0; b < bins; b++) {
+    const first = b * factor;
+    const last = Math.min(points, first + factor);
+    timesS[b] = options.epochS[0] + (first + last - 1) / 2 / sampleRateHz;
+  }
+  const binned = new Float64Array(n * bins);
+  trials.forEach((trial, k) => {
+    for (let b = 0; b < bins; b++) {
+      const first = b * factor;
+      const last = Math.min(points, first + factor);
+      let sum = 0;
+      for (let i = first; i < last; i++) sum += epochs[trial * points + i];
+      binned[k * bins + b] = sum / (last - first);
+      raster[k * bins + b] = binned[k * bins + b];
+    }
+  });
+  const meanHz = new Float64Array(bins);
+  const lowerHz = new Float64Array(bins);
+  const upperHz = new Float64Array(bins);
+  for (let b = 0; b < bins; b++) {
+    let sum = 0;
+    for (let k = 0; k < n; k++) sum += binned[k * bins + b];
+    const mean = n > 0 ? sum / n : NaN;
+    let ss = 0;
+    for (let k = 0; k < n; k++) ss += (binned[k * bins + b] - mean) ** 2;
+    const sem = n > 1 ? Math.sqrt(ss / (n - 1) / n) : NaN;
+    meanHz[b] = mean;
+    lowerHz[b] = mean - 1.96 * sem;
+    upperHz[b] = mean + 1.96 * sem;
+  }
+  return { timesS, meanHz, lowerHz, upperHz, raster, trialCount: n };
+}
