@@ -1,0 +1,36 @@
+import type { Page, ParticipantView } from '@gyre/shared';
+import useSWR from 'swr';
+import { apiFetch, withQuery } from '../../../lib/api-client';
+
+export const PARTICIPANT_SORTS = ['code', 'createdAt', 'updatedAt'] as const;
+export type ParticipantSort = (typeof PARTICIPANT_SORTS)[number];
+
+export interface ParticipantQuery {
+  page: number;
+  pageSize: number;
+  sort: ParticipantSort;
+  order: 'asc' | 'desc';
+  /** Part of a participant code; empty for all. */
+  search: string;
+}
+
+/** `GET /api/participants`: search, sort and paging are done by the server. */
+export const participantsKey = (query: ParticipantQuery) =>
+  withQuery('/api/participants', {
+    page: query.page,
+    pageSize: query.pageSize,
+    sort: query.sort,
+    order: query.order,
+    search: query.search.trim(),
+  });
+
+export function getParticipants(query: ParticipantQuery): Promise<Page<ParticipantView>> {
+  return apiFetch<Page<ParticipantView>>(participantsKey(query));
+}
+
+/** Keeps the last page on screen while the next one loads, so the table does not jump. */
+export function useParticipants(query: ParticipantQuery) {
+  return useSWR<Page<ParticipantView>>(participantsKey(query), () => getParticipants(query), {
+    keepPreviousData: true,
+  });
+}

@@ -1,0 +1,195 @@
+import type { TrajectoryVisitDto, VisitView } from '@gyre/shared';
+import { Button, Card, Descriptions, Table, Tag } from 'antd';
+import { Link, useParams } from 'react-router-dom';
+import { paths } from '../../../app/paths';
+import { GYRE_COLORS } from '../../../app/theme';
+import { PageHeader } from '../../../components/page-header';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
+import { ResearchCaution } from '../../../components/research-caution';
+import { formatDate, formatHz } from '../../../lib/format';
+import { useParticipant } from '../api/get-participant';
+import { useParticipantVisits } from '../api/get-participant-visits';
+import { useTrajectory } from '../api/get-trajectory';
+import { TrajectoryCharts } from './trajectory-charts';
+
+export interface VisitRow {
+  visitId: string;
+  label: string;
+  date: string;
+  numbers: TrajectoryVisitDto | null;
+}
+
+/** Every visit, with the trajectory's numbers where the visit has results. */
+export function visitRows(visits: VisitView[], trajectory: TrajectoryVisitDto[]): VisitRow[] {
+  const byId = new Map(trajectory.map((t) => [t.visitId, t]));
+  const rows: VisitRow[] = visits.map((v) => ({
+    visitId: v.id,
+    label: v.label,
+    date: v.visitDate,
+    numbers: byId.get(v.id) ?? null,
+  }));
+  for (const t of trajectory) {
+    if (!visits.some((v) => v.id === t.visitId)) {
+      rows.push({ visitId: t.visitId, label: t.label, date: t.date, numbers: t });
+    }
+  }
+  return rows.sort((a, b) => a.date.localeCompare(b.date));
+}
+
+/** A change from the first visit, signed: "+0.12 Hz", "−0.30 Hz". */
+export function formatChange(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  const text = formatHz(Math.abs(value));
+  return value > 0 ? `+${text}` : value < 0 ? `−${text}` : text;
+}
+
+function valueWithChange(value: number | null | undefined, change: number | null | undefined) {
+  if (value === null || value === undefined) return '—';
+  return (
+    <span>
+      {formatHz(value)}
+      <br />
+      <span style={{ color: 'rgba(29,43,47,0.6)', fontSize: 12 }}>{formatChange(change)}</span>
+    </span>
+  );
+}
+
+export function ParticipantPage() {
+  const { participantId = '' } = useParams();
+  const participant = useParticipant(participantId);
+  const trajectory = useTrajectory(participantId);
+  const visits = useParticipantVisits(participantId);
+
+  const failed = participant.error ?? trajectory.error ?? visits.error;
+  if (failed !== undefined) {
+    return (
+      <>
+        <ResearchCaution />
+        <ErrorState
+          title="This participant could not be loaded"
+          error={failed}
+          onRetry={() => {
+            void participant.mutate();
+            void trajectory.mutate();
+            void visits.mutate();
+          }}
+        />
+      </>
+    );
+  }
+  if (
+    participant.data === undefined ||
+    trajectory.data === undefined ||
+    visits.data === undefined
+  ) {
+    return (
+      <>
+        <ResearchCaution />
+        <LoadingState label="Loading the trajectory" rows={12} />
+      </>
+    );
+  }
+  const rows = visitRows(visits.data, trajectory.data.visits);
+  const withResults = trajectory.data.visits.filter(
+    (v) => v.pafHz !== null || v.cogHz !== null || v.deltaFHz !== null,
+  );
+  const code = participant.data.code;
+  return (
+    <>
+      <ResearchCaution />
+      <PageHeader
+        title={`Participant ${code}`}
+        description={`${rows.length} visit${rows.length === 1 ? '' : 's'}; change is measured from the first visit with a value.`}
+        extra={
+          <Link to={paths.participants}>
+            <Button>All participants</Button>
+          </Link>
+        }
+      />
+      <Card title="Trajectory" style={{ marginBottom: 20 }}>
+        {withResults.length === 0 ? (
+          <EmptyState description="No visit has computed results yet, so there is no trajectory to draw." />
+        ) : (
+          <>
+            <TrajectoryCharts trajectory={trajectory.data} />
+            <Descriptions
+              size="small"
+              style={{ marginTop: 16 }}
+              className="gyre-figures"
+              column={{ xs: 1, md: 3 }}
+              items={(['paf', 'cog', 'deltaF'] as const).map((key) => {
+                const slope = trajectory.data?.slopesHzPerYear[key] ?? null;
+                return {
+                  key,
+                  label: `${key === 'paf' ? 'PAF' : key === 'cog' ? 'CoG' : 'Δf'} trend (Theil–Sen)`,
+                  children:
+                    slope === null
+                      ? 'needs two visits'
+                      : `${slope >= 0 ? '+' : '−'}${Math.abs(slope).toFixed(2)} Hz/year`,
+                };
+              })}
+            />
+          </>
+        )}
+      </Card>
+      <Card title="Visits">
+        <Table<VisitRow>
+          aria-label="Visits"
+          rowKey="visitId"
+          size="middle"
+          pagination={false}
+          dataSource={rows}
+          locale={{ emptyText: 'No visit registered for this participant yet.' }}
+          columns={[
+            {
+              key: 'label',
+              title: 'Visit',
+              sorter: (a, b) => a.label.localeCompare(b.label),
+              render: (_, row) => (
+                <Link to={paths.review(row.visitId)} aria-label={`Review ${row.label}`}>
+                  {row.label}
+                </Link>
+              ),
+            },
+            {
+              key: 'date',
+              title: 'Date',
+              defaultSortOrder: 'ascend',
+              sorter: (a, b) => a.date.localeCompare(b.date),
+              render: (_, row) => formatDate(row.date),
+            },
+            {
+              key: 'paf',
+              title: 'PAF (change)',
+              align: 'right',
+              render: (_, row) => valueWithChange(row.numbers?.pafHz, row.numbers?.pafChangeHz),
+            },
+            {
+              key: 'cog',
+              title: 'CoG (change)',
+              align: 'right',
+              render: (_, row) => valueWithChange(row.numbers?.cogHz, row.numbers?.cogChangeHz),
+            },
+            {
+              key: 'deltaF',
+              title: 'Onset Δf (change)',
+              align: 'right',
+              render: (_, row) =>
+                valueWithChange(row.numbers?.deltaFHz, row.numbers?.deltaFChangeHz),
+            },
+            {
+              key: 'flag',
+              title: 'Slowing flag',
+              render: (_, row) =>
+                row.numbers?.flagged === true ? (
+                  <Tag color={GYRE_COLORS.amber}>flagged</Tag>
+                ) : (
+                  <span style={{ color: 'rgba(29,43,47,0.55)' }}>none</span>
+                ),
+            },
+          ]}
+        />
+      </Card>
+    </>
+  );
+}

@@ -1,0 +1,159 @@
+import type { ParticipantView } from '@gyre/shared';
+import { Card, Input, Table } from 'antd';
+import type { TablePaginationConfig, TableProps } from 'antd';
+import { useEffect, useState } from 'react';
+import { Link, useSearchParams } from 'react-router-dom';
+import { paths } from '../../../app/paths';
+import { PageHeader } from '../../../components/page-header';
+import { ErrorState, LoadingState } from '../../../components/page-states';
+import { ResearchCaution } from '../../../components/research-caution';
+import { formatDate } from '../../../lib/format';
+import {
+  PARTICIPANT_SORTS,
+  useParticipants,
+  type ParticipantQuery,
+  type ParticipantSort,
+} from '../api/get-participants';
+
+const PAGE_SIZES = [20, 50, 100];
+
+/** The table's state lives in the address, so a link or the back button restores it. */
+function queryFrom(params: URLSearchParams): ParticipantQuery {
+  const sort = params.get('sort');
+  const page = Number(params.get('page'));
+  const pageSize = Number(params.get('pageSize'));
+  return {
+    page: Number.isInteger(page) && page >= 1 ? page : 1,
+    pageSize: PAGE_SIZES.includes(pageSize) ? pageSize : PAGE_SIZES[0],
+    sort: PARTICIPANT_SORTS.includes(sort as ParticipantSort) ? (sort as ParticipantSort) : 'code',
+    order: params.get('order') === 'desc' ? 'desc' : 'asc',
+    search: params.get('search') ?? '',
+  };
+}
+
+export function ParticipantsPage() {
+  const [params, setParams] = useSearchParams();
+  const query = queryFrom(params);
+  const [searchText, setSearchText] = useState(query.search);
+  const participants = useParticipants(query);
+
+  const update = (change: Partial<ParticipantQuery>) => {
+    const next = { ...query, ...change };
+    setParams(
+      {
+        page: String(next.page),
+        pageSize: String(next.pageSize),
+        sort: next.sort,
+        order: next.order,
+        ...(next.search === '' ? {} : { search: next.search }),
+      },
+      { replace: true },
+    );
+  };
+
+  // Ask the server once typing pauses, not on every key.
+  useEffect(() => {
+    if (searchText.trim() === query.search) return;
+    const timer = setTimeout(() => update({ search: searchText.trim(), page: 1 }), 300);
+    return () => clearTimeout(timer);
+  });
+
+  const sortOrder = (column: ParticipantSort) =>
+    query.sort === column ? (query.order === 'asc' ? 'ascend' : 'descend') : null;
+
+  const onChange: TableProps<ParticipantView>['onChange'] = (
+    pagination: TablePaginationConfig,
+    _filters,
+    sorter,
+  ) => {
+    const single = Array.isArray(sorter) ? sorter[0] : sorter;
+    const column = single?.columnKey as ParticipantSort | undefined;
+    const ordered = single?.order !== undefined && single.order !== null;
+    update({
+      page: pagination.current ?? 1,
+      pageSize: pagination.pageSize ?? query.pageSize,
+      sort: ordered && column !== undefined ? column : 'code',
+      order: ordered && single.order === 'descend' ? 'desc' : 'asc',
+    });
+  };
+
+  return (
+    <>
+      <ResearchCaution />
+      <PageHeader
+        title="Participants"
+        description="Everyone enrolled in your study, by pseudonymous code. Open one to follow their alpha rhythm across visits."
+      />
+      <Card>
+        <Input.Search
+          aria-label="Search participant codes"
+          placeholder="Search by code, e.g. AC-0042"
+          allowClear
+          value={searchText}
+          onChange={(event) => setSearchText(event.target.value)}
+          onSearch={(value) => update({ search: value.trim(), page: 1 })}
+          style={{ maxWidth: 360, marginBottom: 16 }}
+        />
+        {participants.error !== undefined && participants.data === undefined ? (
+          <ErrorState
+            title="The participants could not be loaded"
+            error={participants.error}
+            onRetry={() => void participants.mutate()}
+          />
+        ) : participants.data === undefined ? (
+          <LoadingState label="Loading participants" rows={8} />
+        ) : (
+          <Table<ParticipantView>
+            aria-label="Participants"
+            rowKey="id"
+            loading={participants.isValidating}
+            dataSource={participants.data.items}
+            onChange={onChange}
+            showSorterTooltip={false}
+            locale={{
+              emptyText:
+                query.search === ''
+                  ? 'No participants in this study yet.'
+                  : `No participant code contains “${query.search}”.`,
+            }}
+            pagination={{
+              current: query.page,
+              pageSize: query.pageSize,
+              total: participants.data.total,
+              showSizeChanger: true,
+              pageSizeOptions: PAGE_SIZES,
+              showTotal: (total) => `${total} participant${total === 1 ? '' : 's'}`,
+            }}
+            columns={[
+              {
+                key: 'code',
+                title: 'Participant',
+                sorter: true,
+                sortOrder: sortOrder('code'),
+                render: (_, row) => (
+                  <Link to={paths.participant(row.id)} className="gyre-figures">
+                    {row.code}
+                  </Link>
+                ),
+              },
+              {
+                key: 'createdAt',
+                title: 'Enrolled in Gyre',
+                sorter: true,
+                sortOrder: sortOrder('createdAt'),
+                render: (_, row) => formatDate(row.createdAt),
+              },
+              {
+                key: 'updatedAt',
+                title: 'Last change',
+                sorter: true,
+                sortOrder: sortOrder('updatedAt'),
+                render: (_, row) => formatDate(row.updatedAt),
+              },
+            ]}
+          />
+        )}
+      </Card>
+    </>
+  );
+}

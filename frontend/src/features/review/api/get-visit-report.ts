@@ -1,0 +1,20 @@
+import type { ReportDto } from '@gyre/shared';
+import useSWR from 'swr';
+import { ApiError, apiFetch } from '../../../lib/api-client';
+
+/** `GET /api/visits/:visitId/report`; a visit without a report answers 404, shown as none. */
+export const visitReportKey = (visitId: string) =>
+  `/api/visits/${encodeURIComponent(visitId)}/report`;
+
+export async function getVisitReport(visitId: string): Promise<ReportDto | null> {
+  try {
+    return await apiFetch<ReportDto>(visitReportKey(visitId));
+  } catch (error) {
+    if (error instanceof ApiError && error.status === 404) return null;
+    throw error;
+  }
+}
+
+export function useVisitReport(visitId: string) {
+  return useSWR<ReportDto | null>(visitReportKey(visitId), () => getVisitReport(visitId));
+}

@@ -1,0 +1,195 @@
+import type { FlagChange, FlagDto, FlagSuggestion, VisitFlagDto } from '@gyre/shared';
+import { Alert, Button, Flex, Form, Input, Tag, Timeline, Typography } from 'antd';
+import { useState } from 'react';
+import { GYRE_COLORS } from '../../../app/theme';
+import { ApiError } from '../../../lib/api-client';
+import { formatDateTime, formatHz } from '../../../lib/format';
+import { formatCi } from './channel-table';
+
+export const FLAG_REASON_MIN_LENGTH = 10;
+
+/** What the computation proposes, in words; it never raises a flag by itself. */
+function SuggestionBox({ suggestion }: { suggestion: FlagSuggestion | null }) {
+  let text: string;
+  if (suggestion === null) {
+    text = 'No task result yet, so the computation has nothing to suggest.';
+  } else {
+    const numbers = `ROI Δf ${formatHz(suggestion.roiDeltaFHz)}, 95 % CI ${formatCi(suggestion.roiCiHz)}; study threshold ${formatHz(suggestion.flagThresholdHz)}.`;
+    text = suggestion.suggestsSlowing
+      ? `Suggests a slowing flag: the change is at or below the threshold and its interval excludes 0. ${numbers}`
+      : `Does not suggest a slowing flag. ${numbers}`;
+  }
+  return (
+    <section
+      aria-label="Computation's suggestion"
+      style={{
+        border: `1px dashed ${GYRE_COLORS.line}`,
+        background: GYRE_COLORS.mist,
+        borderRadius: 6,
+        padding: '10px 12px',
+      }}
+    >
+      <Typography.Text type="secondary" style={{ fontSize: 12, letterSpacing: 0.3 }}>
+        COMPUTATION&apos;S SUGGESTION
+      </Typography.Text>
+      <div className="gyre-figures" style={{ marginTop: 4 }}>
+        {text}
+      </div>
+    </section>
+  );
+}
+
+function who(userId: string, meId: string): string {
+  return userId === meId ? 'you' : `analyst ${userId.slice(0, 8)}`;
+}
+
+/** The analyst's decision: amber while a flag is raised. */
+function DecisionBox({ current, meId }: { current: FlagDto | null; meId: string }) {
+  const raised = current !== null && current.state === 'raised';
+  return (
+    <section
+      aria-label="Analyst's decision"
+      style={{
+        border: `1px solid ${raised ? GYRE_COLORS.amber : GYRE_COLORS.line}`,
+        background: raised ? '#FDF5E6' : GYRE_COLORS.paper,
+        borderRadius: 6,
+        padding: '10px 12px',
+      }}
+    >
+      <Typography.Text type="secondary" style={{ fontSize: 12, letterSpacing: 0.3 }}>
+        ANALYST&apos;S DECISION
+      </Typography.Text>
+      <div style={{ marginTop: 4 }}>
+        {current === null ? (
+          'No slowing flag has been raised for this visit.'
+        ) : raised ? (
+          <>
+            <Tag color={GYRE_COLORS.amber}>Slowing flag raised</Tag>
+            by {who(current.raisedById, meId)}, {formatDateTime(current.raisedAt)}:{' '}
+            <q>{current.raiseReason}</q>
+          </>
+        ) : (
+          <>
+            <Tag>Flag cleared</Tag>
+            by {who(current.clearedById ?? '', meId)}, {formatDateTime(current.clearedAt)}:{' '}
+            <q>{current.clearReason}</q>
+          </>
+        )}
+      </div>
+    </section>
+  );
+}
+
+/** Raise or clear, always with a written reason. */
+function FlagForm({
+  raised,
+  onSubmit,
+}: {
+  raised: boolean;
+  onSubmit: (change: FlagChange) => Promise<void>;
+}) {
+  const [form] = Form.useForm<{ reason: string }>();
+  const [saving, setSaving] = useState(false);
+  const [failure, setFailure] = useState<string | null>(null);
+  const action = raised ? 'Clear the flag' : 'Raise a slowing flag';
+  return (
+    <Form
+      form={form}
+      layout="vertical"
+      requiredMark={false}
+      aria-label={action}
+      onFinish={async ({ reason }) => {
+        setSaving(true);
+        setFailure(null);
+        try {
+          await onSubmit({ reason: reason.trim() });
+          form.resetFields();
+        } catch (error) {
+          setFailure(error instanceof ApiError ? error.message : 'The flag could not be saved.');
+        } finally {
+          setSaving(false);
+        }
+      }}
+    >
+      <Form.Item
+        name="reason"
+        label={raised ? 'Why clear it?' : 'Why raise it?'}
+        rules={[
+          { required: true, whitespace: true, message: 'A reason is required.' },
+          {
+            validator: async (_rule, value: string | undefined) => {
+              const length = (value ?? '').trim().length;
+              if (length > 0 && length < FLAG_REASON_MIN_LENGTH) {
+                throw new Error(
+                  `Write at least ${FLAG_REASON_MIN_LENGTH} characters (${length} so far).`,
+                );
+              }
+            },
+          },
+        ]}
+      >
+        <Input.TextArea rows={3} maxLength={2000} />
+      </Form.Item>
+      {failure !== null && (
+        <Alert type="error" showIcon title={failure} role="alert" style={{ marginBottom: 12 }} />
+      )}
+      <Button
+        htmlType="submit"
+        loading={saving}
+        type={raised ? 'default' : 'primary'}
+        style={raised ? undefined : { background: GYRE_COLORS.amber }}
+      >
+        {action}
+      </Button>
+    </Form>
+  );
+}
+
+/** The slowing flag of one visit: suggestion, decision, form (analysts only) and history. */
+export function FlagPanel({
+  flag,
+  meId,
+  canChange,
+  onRaise,
+  onClear,
+}: {
+  flag: VisitFlagDto;
+  meId: string;
+  canChange: boolean;
+  onRaise: (change: FlagChange) => Promise<void>;
+  onClear: (change: FlagChange) => Promise<void>;
+}) {
+  const raised = flag.current?.state === 'raised';
+  const earlier = flag.history.filter((f) => f.id !== flag.current?.id || f.state === 'cleared');
+  return (
+    <Flex vertical gap={12}>
+      <SuggestionBox suggestion={flag.suggestion} />
+      <DecisionBox current={flag.current} meId={meId} />
+      {canChange && <FlagForm raised={raised} onSubmit={raised ? onClear : onRaise} />}
+      {earlier.length > 0 && (
+        <div>
+          <Typography.Text strong>History</Typography.Text>
+          <Timeline
+            style={{ marginTop: 12 }}
+            items={earlier.flatMap((f) => [
+              {
+                key: `${f.id}-raised`,
+                color: GYRE_COLORS.amber,
+                content: `${formatDateTime(f.raisedAt)} raised by ${who(f.raisedById, meId)}: “${f.raiseReason}”`,
+              },
+              ...(f.clearedAt === null
+                ? []
+                : [
+                    {
+                      key: `${f.id}-cleared`,
+                      color: 'gray',
+                      content: `${formatDateTime(f.clearedAt)} cleared by ${who(f.clearedById ?? '', meId)}: “${f.clearReason ?? ''}”`,
+                    },
+                  ]),
+            ])}
+          />
+        </div>
+      )}
+    </Flex>
+  );
+}

@@ -1,0 +1,122 @@
+import type { TaskResultsDto } from '@gyre/shared';
+import { Flex, Select, Typography } from 'antd';
+import { useMemo, useState } from 'react';
+import { PlotFigure } from '../../../components/charts/plot-figure';
+import { formatHz } from '../../../lib/format';
+import {
+  BASELINE_COLOUR,
+  MEAN_COLOUR,
+  onsetCurvePoints,
+  onsetCurveSpec,
+  POST_COLOUR,
+} from './onset-curve-spec';
+
+const ROI = '__roi__';
+
+function windowText([start, end]: [number, number]): string {
+  const signed = (v: number) => (v > 0 ? `+${v.toFixed(1)}` : v.toFixed(1));
+  return `${signed(start)} to ${signed(end)} s`;
+}
+
+function Swatch({
+  colour,
+  opacity = 1,
+  line = false,
+}: {
+  colour: string;
+  opacity?: number;
+  line?: boolean;
+}) {
+  return (
+    <span
+      aria-hidden="true"
+      style={{
+        display: 'inline-block',
+        width: 18,
+        height: line ? 3 : 12,
+        background: colour,
+        opacity,
+        borderRadius: 2,
+        verticalAlign: 'middle',
+        marginRight: 6,
+      }}
+    />
+  );
+}
+
+/** The onset curve of the region of interest, or of one channel the analyst picks. */
+export function OnsetCurveChart({ task, roiLabel }: { task: TaskResultsDto; roiLabel: string }) {
+  const [series, setSeries] = useState<string>(ROI);
+  const curve =
+    series === ROI ? task.roi : (task.channels.find((c) => c.name === series) ?? task.roi);
+  const seriesName = series === ROI ? `Mean, ${roiLabel}` : `Mean, ${curve.name}`;
+  const points = useMemo(() => onsetCurvePoints(task.timeS, curve), [task.timeS, curve]);
+  const spec = useMemo(
+    () =>
+      onsetCurveSpec({
+        points,
+        baselineWindowS: task.baselineWindowS,
+        postWindowS: task.postWindowS,
+        seriesName,
+      }),
+    [points, task.baselineWindowS, task.postWindowS, seriesName],
+  );
+  const meanOf = (window: [number, number]) => {
+    const inside = points.filter((p) => p.timeS >= window[0] && p.timeS <= window[1]);
+    return inside.length === 0 ? null : inside.reduce((s, p) => s + p.meanHz, 0) / inside.length;
+  };
+  return (
+    <div>
+      <Flex justify="space-between" align="center" wrap gap={12} style={{ marginBottom: 8 }}>
+        <Flex gap={16} wrap style={{ fontSize: 13 }}>
+          <span>
+            <Swatch colour={MEAN_COLOUR} line />
+            {seriesName}
+          </span>
+          <span>
+            <Swatch colour={MEAN_COLOUR} opacity={0.25} />
+            95 % confidence band
+          </span>
+          <span>
+            <Swatch colour={BASELINE_COLOUR} opacity={0.3} />
+            Baseline {windowText(task.baselineWindowS)}
+          </span>
+          <span>
+            <Swatch colour={POST_COLOUR} opacity={0.3} />
+            Post {windowText(task.postWindowS)}
+          </span>
+        </Flex>
+        <Select
+          aria-label="Curve shown"
+          value={series}
+          onChange={setSeries}
+          style={{ minWidth: 200 }}
+          options={[
+            { value: ROI, label: `Region of interest (${roiLabel})` },
+            ...task.channels.map((c) => ({ value: c.name, label: c.name })),
+          ]}
+        />
+      </Flex>
+      {points.length === 0 ? (
+        <Typography.Text type="secondary">
+          No curve: no trial was kept for this series.
+        </Typography.Text>
+      ) : (
+        <PlotFigure
+          label="Onset curve"
+          spec={spec}
+          heightPx={300}
+          caption={
+            <>
+              Mean instantaneous frequency from {points[0].timeS.toFixed(1)} s to{' '}
+              {points[points.length - 1].timeS.toFixed(1)} s around stimulus onset. Baseline mean{' '}
+              <span className="gyre-figures">{formatHz(meanOf(task.baselineWindowS))}</span>, post
+              mean <span className="gyre-figures">{formatHz(meanOf(task.postWindowS))}</span> (curve
+              averages; the table's Δf is averaged over trials).
+            </>
+          }
+        />
+      )}
+    </div>
+  );
+}

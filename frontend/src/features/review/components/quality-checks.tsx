@@ -1,0 +1,62 @@
+import type { QualityDto } from '@gyre/shared';
+import { Alert, Flex, Table, Tag } from 'antd';
+import { GYRE_COLORS } from '../../../app/theme';
+import { qualityFindings, type QualityFinding } from './quality-findings';
+
+/** The quality checks of one recording, with warnings in plain words. */
+export function QualityChecks({
+  quality,
+  kind,
+}: {
+  quality: QualityDto;
+  kind: 'task' | 'resting';
+}) {
+  const findings = qualityFindings(quality, kind);
+  const warnings = [
+    ...quality.warnings,
+    ...findings.flatMap((f) => (f.warning === null ? [] : [f.warning])),
+  ];
+  return (
+    <Flex vertical gap={12}>
+      {warnings.length === 0 ? (
+        <Alert type="success" showIcon title="No quality warning for this recording." />
+      ) : (
+        <Alert
+          type="warning"
+          showIcon
+          title={`${warnings.length} quality warning${warnings.length === 1 ? '' : 's'}`}
+          description={
+            <ul style={{ margin: 0, paddingLeft: 18 }}>
+              {warnings.map((w) => (
+                <li key={w}>{w}</li>
+              ))}
+            </ul>
+          }
+        />
+      )}
+      <Table<QualityFinding>
+        aria-label={`Quality checks, ${kind === 'task' ? 'task' : 'resting'} recording`}
+        size="small"
+        rowKey="check"
+        pagination={false}
+        showHeader={false}
+        dataSource={findings}
+        columns={[
+          { key: 'check', dataIndex: 'check', width: '45%' },
+          {
+            key: 'value',
+            render: (_, row) =>
+              row.warning === null ? (
+                row.value
+              ) : (
+                <span>
+                  <Tag color={GYRE_COLORS.amber}>check</Tag>
+                  {row.value}
+                </span>
+              ),
+          },
+        ]}
+      />
+    </Flex>
+  );
+}

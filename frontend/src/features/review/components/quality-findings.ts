@@ -1,0 +1,100 @@
+import type { QualityDto } from '@gyre/shared';
+
+export interface QualityFinding {
+  check: string;
+  value: string;
+  /** A plain-word warning when the check needs the analyst's attention. */
+  warning: string | null;
+}
+
+const list = (names: string[]) => names.join(', ');
+const percent = (share: number) => `${(share * 100).toFixed(1)} %`;
+
+/**
+ * The quality checks of METHOD.md §6 in plain words. The limits that turn a value into a
+ * warning are common practice for reviewing alpha recordings, not published rules; the
+ * server's own warnings are shown beside these, word for word.
+ */
+export function qualityFindings(quality: QualityDto, kind: 'task' | 'resting'): QualityFinding[] {
+  const minutes = quality.durationS / 60;
+  const findings: QualityFinding[] = [
+    {
+      check: 'Duration',
+      value: minutes >= 1 ? `${minutes.toFixed(1)} min` : `${quality.durationS.toFixed(1)} s`,
+      warning:
+        quality.durationS < 60
+          ? 'The recording is shorter than a minute, so the estimates rest on little data.'
+          : null,
+    },
+    {
+      check: 'Sampling rate',
+      value: `${quality.sampleRateHz.toFixed(0)} Hz`,
+      warning:
+        quality.sampleRateHz < 100
+          ? 'The sampling rate is low for alpha work; frequencies near the band edges may be distorted.'
+          : null,
+    },
+    {
+      check: 'Region-of-interest channels found',
+      value: quality.roiChannelsFound.length === 0 ? 'none' : list(quality.roiChannelsFound),
+      warning:
+        quality.roiChannelsFound.length === 0
+          ? 'None of the region-of-interest channels is in the file, so there is no ROI result.'
+          : quality.roiChannelsFound.length < 3
+            ? `Only ${quality.roiChannelsFound.length} region-of-interest channel(s) found; the ROI average is fragile.`
+            : null,
+    },
+    {
+      check: 'Flat channels',
+      value: quality.flatChannels.length === 0 ? 'none' : list(quality.flatChannels),
+      warning:
+        quality.flatChannels.length === 0
+          ? null
+          : `No signal on ${list(quality.flatChannels)}: check the electrodes and their connection.`,
+    },
+    {
+      check: 'Saturated channels',
+      value: quality.saturatedChannels.length === 0 ? 'none' : list(quality.saturatedChannels),
+      warning:
+        quality.saturatedChannels.length === 0
+          ? null
+          : `${list(quality.saturatedChannels)} reached the amplifier's limits: parts of the signal are clipped.`,
+    },
+    {
+      check: 'Line noise',
+      value:
+        quality.lineNoiseRatio === null
+          ? '—'
+          : `${quality.lineNoiseRatio.toFixed(2)} (power ratio at ${quality.lineFrequencyHz?.toFixed(0) ?? '50/60'} Hz)`,
+      warning: null,
+    },
+  ];
+  if (kind === 'task') {
+    findings.push(
+      {
+        check: 'Epochs dropped',
+        value: quality.epochsDroppedShare === null ? '—' : percent(quality.epochsDroppedShare),
+        warning:
+          quality.epochsDroppedShare !== null && quality.epochsDroppedShare > 0.5
+            ? 'More than half of the epochs were dropped; the onset result rests on few trials.'
+            : null,
+      },
+      {
+        check: 'Phase-slip rate',
+        value: quality.phaseSlipRate === null ? '—' : percent(quality.phaseSlipRate),
+        warning:
+          quality.phaseSlipRate !== null && quality.phaseSlipRate > 0.1
+            ? 'Many instantaneous-frequency samples fall outside the band: the alpha rhythm may be weak here.'
+            : null,
+      },
+    );
+  }
+  if (kind === 'resting') {
+    findings.push({
+      check: 'Alpha peak prominence',
+      value: quality.alphaPeakProminence === null ? '—' : quality.alphaPeakProminence.toFixed(2),
+      warning: null,
+    });
+  }
+  return findings;
+}

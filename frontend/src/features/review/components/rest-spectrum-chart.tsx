@@ -1,0 +1,64 @@
+import type { RestResultsDto } from '@gyre/shared';
+import { Flex, Typography } from 'antd';
+import { useMemo } from 'react';
+import { PlotFigure } from '../../../components/charts/plot-figure';
+import { formatHz } from '../../../lib/format';
+import { COG_COLOUR, PAF_COLOUR, restSpectrumSpec, spectrumPoints } from './rest-spectrum-spec';
+
+/** The resting power spectrum with the individual alpha frequency marked two ways. */
+export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsDto; roiLabel: string }) {
+  const points = useMemo(
+    () => spectrumPoints(rest.frequencyHz, rest.powerUv2PerHz),
+    [rest.frequencyHz, rest.powerUv2PerHz],
+  );
+  const spec = useMemo(
+    () =>
+      restSpectrumSpec({
+        points,
+        alphaWindowHz: rest.alphaWindowHz,
+        pafHz: rest.pafHz,
+        cogHz: rest.cogHz,
+      }),
+    [points, rest.alphaWindowHz, rest.pafHz, rest.cogHz],
+  );
+  return (
+    <div>
+      <Flex gap={24} wrap style={{ marginBottom: 8 }} className="gyre-figures">
+        <span data-testid="rest-paf">
+          <Typography.Text strong style={{ color: PAF_COLOUR }}>
+            PAF
+          </Typography.Text>{' '}
+          {rest.pafHz === null ? (
+            <Typography.Text type="warning">no clear peak</Typography.Text>
+          ) : (
+            formatHz(rest.pafHz)
+          )}
+        </span>
+        <span data-testid="rest-cog">
+          <Typography.Text strong style={{ color: COG_COLOUR }}>
+            CoG
+          </Typography.Text>{' '}
+          {formatHz(rest.cogHz)}
+        </span>
+        <Typography.Text type="secondary">
+          Alpha window {rest.alphaWindowHz[0].toFixed(1)}–{rest.alphaWindowHz[1].toFixed(1)} Hz ·{' '}
+          {roiLabel}
+        </Typography.Text>
+      </Flex>
+      {points.length === 0 ? (
+        <Typography.Text type="secondary">No spectrum to draw.</Typography.Text>
+      ) : (
+        <PlotFigure
+          label="Rest spectrum"
+          spec={spec}
+          heightPx={280}
+          caption={
+            rest.pafHz === null
+              ? 'Welch power spectrum of the resting recording. No clear alpha peak stands out of the background, so no PAF is given.'
+              : 'Welch power spectrum of the resting recording; the dashed lines mark the peak alpha frequency (PAF) and the alpha centre of gravity (CoG).'
+          }
+        />
+      )}
+    </div>
+  );
+}

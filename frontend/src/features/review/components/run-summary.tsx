@@ -1,0 +1,63 @@
+import type { AnalysisRunDto } from '@gyre/shared';
+import { Descriptions, Tag } from 'antd';
+import { formatDateTime, formatHz } from '../../../lib/format';
+import { formatCi, formatPValue } from './channel-table';
+
+const BAND_SOURCE: Record<AnalysisRunDto['bandSource'], string> = {
+  settings: 'study setting',
+  iaf: "visit's resting IAF ± 2 Hz",
+  default: 'default 8–13 Hz',
+};
+
+/** The headline numbers of a run, and the settings version they were computed with. */
+export function RunSummary({ run }: { run: AnalysisRunDto }) {
+  const band = `${run.bandHz[0].toFixed(2)}–${run.bandHz[1].toFixed(2)} Hz (${BAND_SOURCE[run.bandSource]})`;
+  const items =
+    run.kind === 'task'
+      ? [
+          {
+            key: 'df',
+            label: 'ROI Δf',
+            children: <span data-testid="roi-delta-f">{formatHz(run.roiDeltaFHz)}</span>,
+          },
+          { key: 'ci', label: '95 % CI', children: formatCi(run.roiCiHz) },
+          { key: 'p', label: 'p (Wilcoxon)', children: formatPValue(run.roiPValue) },
+          {
+            key: 'trials',
+            label: 'Trials kept',
+            children:
+              run.trialsKept === null ? '—' : `${run.trialsKept} of ${run.trialsTotal ?? '—'}`,
+          },
+        ]
+      : [
+          {
+            key: 'paf',
+            label: 'PAF',
+            children: (
+              <span data-testid="run-paf">
+                {run.pafHz === null ? 'no clear peak' : formatHz(run.pafHz)}
+              </span>
+            ),
+          },
+          { key: 'cog', label: 'CoG', children: formatHz(run.cogHz) },
+        ];
+  return (
+    <Descriptions
+      size="small"
+      column={{ xs: 1, sm: 2, md: 4 }}
+      className="gyre-figures"
+      items={[
+        ...items,
+        { key: 'band', label: 'Band', children: band, span: 2 },
+        {
+          key: 'version',
+          label: 'Settings',
+          children: (
+            <Tag data-testid={`settings-version-${run.kind}`}>version {run.settingsVersion}</Tag>
+          ),
+        },
+        { key: 'computed', label: 'Computed', children: formatDateTime(run.createdAt) },
+      ]}
+    />
+  );
+}

@@ -1,0 +1,325 @@
+import type { AnalysisSettingsChange, AnalysisSettingsDto } from '@gyre/shared';
+import { Alert, Button, Col, Form, Input, InputNumber, Radio, Row, Select, Typography } from 'antd';
+import type { FormRule } from 'antd';
+import { useState } from 'react';
+import { ApiError } from '../../../lib/api-client';
+import {
+  changeOf,
+  formValuesOf,
+  REASON_MIN_LENGTH,
+  type SettingsFormValues,
+} from './settings-form-values';
+
+type Values = SettingsFormValues;
+type Getter = (name: keyof Values) => unknown;
+
+const required = (what: string): FormRule => ({ required: true, message: `Enter ${what}.` });
+
+/** A rule comparing this field with others; limits are those the server checks (common practice). */
+function check(
+  test: (value: number, get: (name: keyof Values) => number | null) => string | null,
+): FormRule {
+  return ({ getFieldValue }: { getFieldValue: Getter }) => ({
+    validator: async (_rule: unknown, value: number | null) => {
+      if (value === null || value === undefined) return;
+      const get = (name: keyof Values) => {
+        const v = getFieldValue(name);
+        return typeof v === 'number' ? v : null;
+      };
+      const problem = test(value, get);
+      if (problem !== null) throw new Error(problem);
+    },
+  });
+}
+
+const seconds = { suffix: 's', step: 0.1, style: { width: '100%' } } as const;
+
+/**
+ * Changes the study's analysis settings (a new version, with a reason) and re-runs this
+ * visit's recordings with it.
+ */
+export function SettingsForm({
+  current,
+  onSave,
+}: {
+  current: AnalysisSettingsDto;
+  onSave: (change: AnalysisSettingsChange) => Promise<void>;
+}) {
+  const [form] = Form.useForm<Values>();
+  const [saving, setSaving] = useState(false);
+  const [failure, setFailure] = useState<string | null>(null);
+  const bandMode = Form.useWatch('bandMode', form);
+  const method = Form.useWatch('method', form);
+
+  const submit = async (values: Values) => {
+    setSaving(true);
+    setFailure(null);
+    try {
+      await onSave(changeOf(values));
+      form.setFieldValue('reason', '');
+    } catch (error) {
+      setFailure(error instanceof ApiError ? error.message : 'The settings could not be saved.');
+    } finally {
+      setSaving(false);
+    }
+  };
+
+  const windowRule = (label: string, startField: keyof Values, isEnd: boolean) =>
+    check((value, get) => {
+      const epochStart = get('epochStartS');
+      const epochEnd = get('epochEndS');
+      const start = isEnd ? get(startField) : value;
+      const end = isEnd ? value : null;
+      if (isEnd && start !== null && end !== null && !(start < end)) {
+        return `The ${label} must end after it starts.`;
+      }
+      if (epochStart !== null && epochEnd !== null && (value < epochStart || value > epochEnd)) {
+        return `The ${label} must lie inside the epoch (${epochStart} to ${epochEnd} s).`;
+      }
+      return null;
+    });
+
+  return (
+    <Form<Values>
+      form={form}
+      layout="vertical"
+      requiredMark={false}
+      initialValues={formValuesOf(current)}
+      onFinish={submit}
+      aria-label="Analysis settings"
+    >
+      <Form.Item name="bandMode" label="Alpha band">
+        <Radio.Group
+          options={[
+            { value: 'auto', label: "Visit's IAF ± 2 Hz (8–13 Hz without one)" },
+            { value: 'fixed', label: 'Fixed band' },
+          ]}
+        />
+      </Form.Item>
+      {bandMode === 'fixed' && (
+        <Row gutter={12}>
+          <Col span={12}>
+            <Form.Item
+              name="bandLowHz"
+              label="Band low edge"
+              rules={[
+                required('the low edge in Hz'),
+                check((v) => (v < 1 ? 'The low edge must be at least 1 Hz.' : null)),
+              ]}
+            >
+              <InputNumber suffix="Hz" step={0.5} style={{ width: '100%' }} />
+            </Form.Item>
+          </Col>
+          <Col span={12}>
+            <Form.Item
+              name="bandHighHz"
+              label="Band high edge"
+              dependencies={['bandLowHz']}
+              rules={[
+                required('the high edge in Hz'),
+                check((v, get) => {
+                  if (v > 40) return 'The high edge must be at most 40 Hz.';
+                  const low = get('bandLowHz');
+                  return low !== null && v - low < 1
+                    ? 'The band must be at least 1 Hz wide (high edge above the low edge).'
+                    : null;
+                }),
+              ]}
+            >
+              <InputNumber suffix="Hz" step={0.5} style={{ width: '100%' }} />
+            </Form.Item>
+          </Col>
+        </Row>
+      )}
+      <Row gutter={12}>
+        <Col span={method === 'morlet' ? 14 : 24}>
+          <Form.Item name="method" label="Narrow-band method">
+            <Radio.Group
+              options={[
+                { value: 'filter', label: 'Zero-phase band-pass' },
+                { value: 'morlet', label: 'Morlet wavelet' },
+              ]}
+            />
+          </Form.Item>
+        </Col>
+        {method === 'morlet' && (
+          <Col span={10}>
+            <Form.Item
+              name="morletCycles"
+              label="Wavelet cycles"
+              rules={[
+                required('the number of cycles'),
+                check((v) => (v < 3 || v > 20 ? 'Use 3 to 20 cycles.' : null)),
+              ]}
+            >
+              <InputNumber step={1} style={{ width: '100%' }} />
+            </Form.Item>
+          </Col>
+        )}
+      </Row>
+      <Row gutter={12}>
+        <Col span={12}>
+          <Form.Item
+            name="epochStartS"
+            label="Epoch start"
+            rules={[
+              required('the epoch start'),
+              check((v) => (v >= 0 ? 'The epoch must start before onset (below 0 s).' : null)),
+            ]}
+          >
+            <InputNumber {...seconds} />
+          </Form.Item>
+        </Col>
+        <Col span={12}>
+          <Form.Item
+            name="epochEndS"
+            label="Epoch end"
+            dependencies={['epochStartS']}
+            rules={[
+              required('the epoch end'),
+              check((v, get) => {
+                if (v <= 0) return 'The epoch must end after onset (above 0 s).';
+                const start = get('epochStartS');
+                return start !== null && v - start > 20
+                  ? 'An epoch can be at most 20 s long.'
+                  : null;
+              }),
+            ]}
+          >
+            <InputNumber {...seconds} />
+          </Form.Item>
+        </Col>
+        <Col span={12}>
+          <Form.Item
+            name="baselineStartS"
+            label="Baseline start"
+            dependencies={['epochStartS', 'epochEndS']}
+            rules={[
+              required('the baseline start'),
+              windowRule('baseline', 'baselineStartS', false),
+            ]}
+          >
+            <InputNumber {...seconds} />
+          </Form.Item>
+        </Col>
+        <Col span={12}>
+          <Form.Item
+            name="baselineEndS"
+            label="Baseline end"
+            dependencies={['baselineStartS', 'epochStartS', 'epochEndS']}
+            rules={[
+              required('the baseline end'),
+              windowRule('baseline', 'baselineStartS', true),
+              check((v) => (v > 0 ? 'The baseline must end at or before onset (0 s).' : null)),
+            ]}
+          >
+            <InputNumber {...seconds} />
+          </Form.Item>
+        </Col>
+        <Col span={12}>
+          <Form.Item
+            name="postStartS"
+            label="Post start"
+            dependencies={['baselineEndS', 'epochStartS', 'epochEndS']}
+            rules={[
+              required('the post-window start'),
+              windowRule('post window', 'postStartS', false),
+              check((v, get) => {
+                const baselineEnd = get('baselineEndS');
+                return baselineEnd !== null && v < baselineEnd
+                  ? `The post window must start at or after the baseline's end (${baselineEnd} s).`
+                  : null;
+              }),
+            ]}
+          >
+            <InputNumber {...seconds} />
+          </Form.Item>
+        </Col>
+        <Col span={12}>
+          <Form.Item
+            name="postEndS"
+            label="Post end"
+            dependencies={['postStartS', 'epochStartS', 'epochEndS']}
+            rules={[required('the post-window end'), windowRule('post window', 'postStartS', true)]}
+          >
+            <InputNumber {...seconds} />
+          </Form.Item>
+        </Col>
+        <Col span={12}>
+          <Form.Item
+            name="rejectionThresholdUv"
+            label="Reject epochs above"
+            rules={[
+              required('the rejection threshold'),
+              check((v) =>
+                v <= 0 || v > 10_000 ? 'Use a threshold above 0 and at most 10000 µV.' : null,
+              ),
+            ]}
+          >
+            <InputNumber suffix="µV" step={10} style={{ width: '100%' }} />
+          </Form.Item>
+        </Col>
+        <Col span={12}>
+          <Form.Item
+            name="flagThresholdHz"
+            label="Suggest a flag at Δf ≤"
+            rules={[
+              required('the flag threshold'),
+              check((v) =>
+                v >= 0 || v < -5 ? 'Use a negative change between −5 and 0 Hz.' : null,
+              ),
+            ]}
+          >
+            <InputNumber suffix="Hz" step={0.05} style={{ width: '100%' }} />
+          </Form.Item>
+        </Col>
+      </Row>
+      <Form.Item
+        name="roi"
+        label="Region of interest (10-10 names)"
+        rules={[
+          { required: true, type: 'array', min: 1, message: 'Name at least one channel.' },
+          {
+            validator: async (_rule, names: string[] | undefined) => {
+              const wrong = (names ?? []).filter((n) => !/^[A-Za-z]{1,2}([1-9]|10|z|Z)$/.test(n));
+              if (wrong.length > 0)
+                throw new Error(`Not a 10-10 electrode name: ${wrong.join(', ')}.`);
+            },
+          },
+        ]}
+      >
+        <Select mode="tags" tokenSeparators={[',', ' ']} open={false} suffixIcon={null} />
+      </Form.Item>
+      <Form.Item
+        name="onsetLabel"
+        label="Onset label"
+        extra="Annotation text or CSV label of the onsets to use; leave empty to use every onset."
+      >
+        <Input maxLength={200} />
+      </Form.Item>
+      <Form.Item
+        name="reason"
+        label="Reason for the change"
+        rules={[
+          { required: true, whitespace: true, message: 'Say why the settings change.' },
+          {
+            min: REASON_MIN_LENGTH,
+            message: `Write at least ${REASON_MIN_LENGTH} characters, so that the trail says why.`,
+          },
+        ]}
+      >
+        <Input.TextArea rows={2} maxLength={2000} />
+      </Form.Item>
+      {failure !== null && (
+        <Alert type="error" showIcon title={failure} style={{ marginBottom: 12 }} role="alert" />
+      )}
+      <Typography.Paragraph type="secondary" style={{ fontSize: 13 }}>
+        Saving creates settings version {current.version + 1} for the whole study and re-runs this
+        visit's recordings with it. Earlier results keep the version they were computed with.
+      </Typography.Paragraph>
+      <Button type="primary" htmlType="submit" loading={saving}>
+        Save version {current.version + 1} and re-run
+      </Button>
+    </Form>
+  );
+}
