@@ -2,6 +2,7 @@
 export const paths = {
   home: '/',
   signIn: '/sign-in',
+  forgotPassword: '/forgot-password',
   resetPassword: '/reset-password',
   acceptInvite: '/accept-invite',
   intake: '/intake',
@@ -11,4 +12,29 @@ export const paths = {
   ledger: '/ledger',
   reports: '/reports',
   team: '/team',
+  outbox: '/outbox',
 } as const;
+
+/** The sign-in address that brings the user back to `returnTo` afterwards. */
+export type SignInReason = 'expired' | 'signed-out' | 'password-reset' | 'invitation-accepted';
+
+export function signInPath(returnTo?: string, reason?: SignInReason): string {
+  const search = new URLSearchParams();
+  if (returnTo !== undefined && isSafeReturnPath(returnTo) && returnTo !== paths.home) {
+    search.set('next', returnTo);
+  }
+  if (reason !== undefined) search.set('reason', reason);
+  const query = search.toString();
+  return query.length > 0 ? `${paths.signIn}?${query}` : paths.signIn;
+}
+
+/** Only paths inside Gyre: never another site (`//host`, `https:`), never the sign-in page. */
+export function isSafeReturnPath(value: string | null): value is string {
+  return (
+    value !== null &&
+    value.startsWith('/') &&
+    !value.startsWith('//') &&
+    !value.startsWith('/\\') &&
+    !value.startsWith(paths.signIn)
+  );
+}

@@ -1,7 +1,16 @@
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it } from 'vitest';
 import { server, installMswServer } from '../test/msw-server';
-import { ApiError, apiFetch, setAccessToken } from './api-client';
+import {
+  ApiError,
+  apiFetch,
+  apiSend,
+  apiUpload,
+  getAccessToken,
+  onSessionEnded,
+  setAccessToken,
+  withQuery,
+} from './api-client';
 
 installMswServer();
 
@@ -46,5 +55,147 @@ describe('apiFetch', () => {
       status: 502,
       code: 'HTTP_ERROR',
     });
+  });
+});
+
+describe('silent renewal', () => {
+  const refused = () =>
+    HttpResponse.json(
+      { statusCode: 401, code: 'AUTH_TOKEN_INVALID', message: 'Token expired', details: null },
+      { status: 401 },
+    );
+
+  it('renews the token once on a 401 and repeats the request with the new one', async () => {
+    const seen: (string | null)[] = [];
+    let refreshes = 0;
+    server.use(
+      http.get('/api/visits', ({ request }) => {
+        seen.push(request.headers.get('authorization'));
+        return request.headers.get('authorization') === 'Bearer new'
+          ? HttpResponse.json([1])
+          : refused();
+      }),
+      http.post('/api/auth/refresh', () => {
+        refreshes += 1;
+        return HttpResponse.json({ accessToken: 'new', tokenType: 'Bearer', expiresInS: 900 });
+      }),
+    );
+    setAccessToken('old');
+    await expect(apiFetch('/api/visits')).resolves.toEqual([1]);
+    expect(seen).toEqual(['Bearer old', 'Bearer new']);
+    expect(refreshes).toBe(1);
+    setAccessToken(null);
+  });
+
+  it('shares one renewal between requests refused at the same time', async () => {
+    let refreshes = 0;
+    server.use(
+      http.get('/api/a', ({ request }) =>
+        request.headers.get('authorization') === 'Bearer new' ? HttpResponse.json('a') : refused(),
+      ),
+      http.get('/api/b', ({ request }) =>
+        request.headers.get('authorization') === 'Bearer new' ? HttpResponse.json('b') : refused(),
+      ),
+      http.post('/api/auth/refresh', async () => {
+        refreshes += 1;
+        await new Promise((wait) => setTimeout(wait, 20));
+        return HttpResponse.json({ accessToken: 'new' });
+      }),
+    );
+    setAccessToken('old');
+    await expect(Promise.all([apiFetch('/api/a'), apiFetch('/api/b')])).resolves.toEqual([
+      'a',
+      'b',
+    ]);
+    expect(refreshes).toBe(1);
+    setAccessToken(null);
+  });
+
+  it('ends the session when renewal is refused, and asks only once', async () => {
+    let calls = 0;
+    server.use(
+      http.get('/api/visits', () => {
+        calls += 1;
+        return refused();
+      }),
+      http.post('/api/auth/refresh', () => refused()),
+    );
+    let ended = 0;
+    const stop = onSessionEnded(() => (ended += 1));
+    setAccessToken('old');
+    await expect(apiFetch('/api/visits')).rejects.toMatchObject({ status: 401 });
+    expect(calls).toBe(1);
+    expect(ended).toBe(1);
+    expect(getAccessToken()).toBeNull();
+    stop();
+  });
+
+  it('never tries to renew after a refused sign-in', async () => {
+    server.use(
+      http.post('/api/auth/sign-in', () =>
+        HttpResponse.json(
+          { statusCode: 401, code: 'AUTH_WRONG_CREDENTIALS', message: 'Wrong', details: null },
+          { status: 401 },
+        ),
+      ),
+    );
+    // No refresh handler: an attempt to renew would be an unhandled request and fail the test.
+    await expect(apiSend('/api/auth/sign-in', 'POST', { email: 'a@b.c' })).rejects.toMatchObject({
+      code: 'AUTH_WRONG_CREDENTIALS',
+    });
+  });
+});
+
+describe('apiUpload', () => {
+  it('posts the form with the token and reports the server error as ApiError', async () => {
+    let authorization: string | null = null;
+    let kind: string | null = null;
+    server.use(
+      http.post('/api/visits/v1/recordings', async ({ request }) => {
+        authorization = request.headers.get('authorization');
+        const form = await request.formData();
+        // jsdom's XMLHttpRequest drops a part's file name on the way, so check a text field.
+        kind = form.has('file') ? String(form.get('kind')) : null;
+        return HttpResponse.json(
+          {
+            statusCode: 422,
+            code: 'RECORDING_REJECTED',
+            message: 'Header field "number of signals": found "x", expected a whole number',
+            details: { field: 'number of signals' },
+          },
+          { status: 422 },
+        );
+      }),
+    );
+    setAccessToken('tok');
+    const form = new FormData();
+    form.append('kind', 'resting');
+    form.append('file', new File([new Uint8Array(300)], 'rest.edf'));
+    const error = await apiUpload('/api/visits/v1/recordings', form).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(ApiError);
+    expect(error).toMatchObject({ status: 422, code: 'RECORDING_REJECTED' });
+    expect(authorization).toBe('Bearer tok');
+    expect(kind).toBe('resting');
+    setAccessToken(null);
+  });
+
+  it('returns the JSON body of a success', async () => {
+    server.use(
+      http.post('/api/visits/v1/recordings', () =>
+        HttpResponse.json({ id: 'r1' }, { status: 201 }),
+      ),
+    );
+    const form = new FormData();
+    form.append('file', new File(['x'], 'a.edf'));
+    await expect(apiUpload('/api/visits/v1/recordings', form)).resolves.toEqual({ id: 'r1' });
+  });
+});
+
+describe('withQuery', () => {
+  it('leaves out empty values and encodes the rest', () => {
+    expect(withQuery('/api/audit', { actor: 'a b', action: '', page: 2, from: undefined })).toBe(
+      '/api/audit?actor=a+b&page=2',
+    );
+    expect(withQuery('/api/audit', {})).toBe('/api/audit');
   });
 });

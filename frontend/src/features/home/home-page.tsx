@@ -1,20 +1,49 @@
-import { Card, Typography } from 'antd';
-import { ResearchCaution } from '../../components/research-caution';
+import { Card, Col, Row, Typography } from 'antd';
+import { Link } from 'react-router-dom';
+import { navEntriesFor } from '../../app/navigation';
+import { useAppAbility } from '../../lib/session/ability';
+import { useSession } from '../../lib/session/session-context';
 
-/** The start screen after sign-in; later screens are reached from the navigation. */
+const WHAT_EACH_SCREEN_IS_FOR: Record<string, string> = {
+  Intake: 'Register visits and upload resting and task recordings; follow their checks.',
+  Participants: 'Participants of the study and the course of their alpha rhythm over visits.',
+  Ledger: 'The audit trail: who changed what, when and why, with its integrity check.',
+  Reports: 'Signed visit reports of your site, ready to download.',
+  Team: 'Users, roles, sites and invitations.',
+  Outbox: 'E-mail Gyre has sent or is about to send.',
+};
+
+/** The start screen after sign-in: the screens of the user's role, one line each. */
 export function HomePage() {
+  const { me } = useSession();
+  const ability = useAppAbility();
+  const entries = navEntriesFor(me.user.role, ability);
   return (
     <>
-      <ResearchCaution />
-      <Card>
-        <Typography.Title level={3} style={{ marginTop: 0 }}>
-          Welcome to Gyre
-        </Typography.Title>
-        <Typography.Paragraph>
-          Gyre follows each participant&apos;s alpha rhythm from visit to visit: the individual
-          alpha frequency at rest, and whether the rhythm slows after stimulus onset in the task.
-        </Typography.Paragraph>
-      </Card>
+      <Typography.Title level={2} style={{ marginTop: 0 }}>
+        Welcome, {me.user.name}
+      </Typography.Title>
+      <Typography.Paragraph type="secondary" style={{ maxWidth: 720 }}>
+        Gyre follows each participant&apos;s alpha rhythm from visit to visit: the individual alpha
+        frequency at rest, and whether the rhythm slows after stimulus onset in the task.
+        {me.study !== null && ` You work in ${me.study.name} (${me.study.code}).`}
+      </Typography.Paragraph>
+      <Row gutter={[16, 16]}>
+        {entries.map((entry) => (
+          <Col key={entry.path} xs={24} md={12} xl={8}>
+            <Link to={entry.path} style={{ display: 'block', height: '100%' }}>
+              <Card hoverable style={{ height: '100%' }}>
+                <Typography.Title level={4} style={{ marginTop: 0, color: '#24525A' }}>
+                  {entry.label}
+                </Typography.Title>
+                <Typography.Text type="secondary">
+                  {WHAT_EACH_SCREEN_IS_FOR[entry.label] ?? ''}
+                </Typography.Text>
+              </Card>
+            </Link>
+          </Col>
+        ))}
+      </Row>
     </>
   );
 }

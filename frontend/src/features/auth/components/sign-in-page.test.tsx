@@ -1,13 +1,21 @@
 import { render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import { MemoryRouter } from 'react-router-dom';
 import { describe, expect, it, vi } from 'vitest';
 import { ApiError } from '../../../lib/api-client';
-import { SignInPage } from './sign-in-page';
+import { SignInPage, type SignInValues } from './sign-in-page';
+
+const renderPage = (onSignIn: (values: SignInValues) => Promise<void>) =>
+  render(
+    <MemoryRouter>
+      <SignInPage onSignIn={onSignIn} />
+    </MemoryRouter>,
+  );
 
 describe('SignInPage', () => {
   it('asks for a valid e-mail and a password before calling the server', async () => {
     const onSignIn = vi.fn(async () => undefined);
-    render(<SignInPage onSignIn={onSignIn} />);
+    renderPage(onSignIn);
     await userEvent.type(screen.getByLabelText('E-mail'), 'not-an-address');
     await userEvent.click(screen.getByRole('button', { name: 'Sign in' }));
     expect(await screen.findByText('This is not an e-mail address.')).toBeInTheDocument();
@@ -19,7 +27,7 @@ describe('SignInPage', () => {
     const onSignIn = vi.fn(async () => {
       throw new ApiError(401, 'AUTH_INVALID_CREDENTIALS', 'E-mail or password is wrong.');
     });
-    render(<SignInPage onSignIn={onSignIn} />);
+    renderPage(onSignIn);
     await userEvent.type(screen.getByLabelText('E-mail'), 'ana@example.org');
     await userEvent.type(screen.getByLabelText('Password'), 'a long password');
     await userEvent.click(screen.getByRole('button', { name: 'Sign in' }));

@@ -1,0 +1,163 @@
+import type { MeResponse, Role } from '@gyre/shared';
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { http, HttpResponse } from 'msw';
+import { describe, expect, it } from 'vitest';
+import { getAccessToken } from '../lib/api-client';
+import { meFor } from '../test/fixtures';
+import { installMswServer, server } from '../test/msw-server';
+import { renderApp } from '../test/render-app';
+
+installMswServer();
+
+const unauthenticated = () =>
+  HttpResponse.json(
+    { statusCode: 401, code: 'AUTH_SIGN_IN_REQUIRED', message: 'Sign in first.', details: null },
+    { status: 401 },
+  );
+
+async function menuLabels(): Promise<string[]> {
+  const nav = await screen.findByRole('navigation', { name: 'Main' });
+  return within(nav)
+    .queryAllByRole('menuitem')
+    .map((item) => item.textContent ?? '');
+}
+
+describe('navigation by role', () => {
+  // Expected menus: the issue's list (technician: Intake; analyst: Participants; monitor:
+  // Participants, Ledger; coordinator: Reports; admin: Team, Ledger, Outbox).
+  const expected: [Role, string[]][] = [
+    ['technician', ['Intake']],
+    ['analyst', ['Participants']],
+    ['monitor', ['Participants', 'Ledger']],
+    ['coordinator', ['Reports']],
+    ['admin', ['Ledger', 'Team', 'Outbox']],
+  ];
+  it.each(expected)('a %s sees %j in the menu', async (role, labels) => {
+    renderApp('/', meFor(role));
+    expect(await screen.findByText(`Welcome, ${meFor(role).user.name}`)).toBeInTheDocument();
+    expect(await menuLabels()).toEqual(labels);
+  });
+
+  it.each([
+    ['/ledger', 'technician'],
+    ['/intake', 'monitor'],
+    ['/team', 'analyst'],
+    ['/reports', 'technician'],
+    ['/outbox', 'coordinator'],
+  ] as const)('%s tells a %s it is not available for their role', async (path, role) => {
+    renderApp(path, meFor(role));
+    expect(await screen.findByText('Not available for your role')).toBeInTheDocument();
+    expect(screen.getByText(new RegExp(`not part of the ${role} role`))).toBeInTheDocument();
+  });
+});
+
+describe('the session', () => {
+  it('sends a visitor without a session to sign-in and back to where they were', async () => {
+    const me = meFor('monitor');
+    let signedIn = false;
+    server.use(
+      http.get('/api/auth/me', () => (signedIn ? HttpResponse.json(me) : unauthenticated())),
+      http.post('/api/auth/refresh', () => unauthenticated()),
+      http.post('/api/auth/sign-in', () => {
+        signedIn = true;
+        return HttpResponse.json({
+          accessToken: 'fresh-token',
+          tokenType: 'Bearer',
+          expiresInS: 900,
+          user: me.user,
+        });
+      }),
+      http.get('/api/audit', () =>
+        HttpResponse.json({ items: [], total: 0, page: 1, pageSize: 50 }),
+      ),
+      http.get('/api/audit/verify', () =>
+        HttpResponse.json({ intact: true, checked: 0, firstBroken: null, lastHash: null }),
+      ),
+    );
+    const { router } = renderApp('/ledger?action=update', null);
+    expect(await screen.findByRole('button', { name: 'Sign in' })).toBeInTheDocument();
+    expect(router.state.location.pathname).toBe('/sign-in');
+    expect(router.state.location.search).toBe(
+      `?next=${encodeURIComponent('/ledger?action=update')}`,
+    );
+    await userEvent.type(screen.getByLabelText('E-mail'), me.user.email);
+    await userEvent.type(screen.getByLabelText('Password'), 'correct horse battery');
+    await userEvent.click(screen.getByRole('button', { name: 'Sign in' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/ledger'));
+    expect(router.state.location.search).toBe('?action=update');
+    expect(getAccessToken()).toBe('fresh-token');
+  });
+
+  it('renews an expired access token silently and keeps the user where they are', async () => {
+    const me: MeResponse = meFor('technician');
+    let meCalls = 0;
+    server.use(
+      http.get('/api/auth/me', ({ request }) => {
+        meCalls += 1;
+        return request.headers.get('authorization') === 'Bearer renewed'
+          ? HttpResponse.json(me)
+          : unauthenticated();
+      }),
+      http.post('/api/auth/refresh', () =>
+        HttpResponse.json({
+          accessToken: 'renewed',
+          tokenType: 'Bearer',
+          expiresInS: 900,
+          user: me.user,
+        }),
+      ),
+    );
+    renderApp('/', null);
+    expect(await screen.findByText(`Welcome, ${me.user.name}`)).toBeInTheDocument();
+    expect(meCalls).toBe(2);
+  });
+
+  it('after the session ends mid-use, sign-in says so and keeps the way back', async () => {
+    const me = meFor('admin');
+    server.use(
+      http.post('/api/auth/refresh', () => unauthenticated()),
+      http.get('/api/mail/outbox', () => unauthenticated()),
+    );
+    const { router } = renderApp('/outbox', me);
+    expect(
+      await screen.findByText('Your session has ended. Sign in again to go on where you were.'),
+    ).toBeInTheDocument();
+    expect(router.state.location.pathname).toBe('/sign-in');
+    expect(new URLSearchParams(router.state.location.search).get('next')).toBe('/outbox');
+  });
+
+  it('signs out: tells the server and shows sign-in', async () => {
+    let signedOut = false;
+    server.use(
+      http.post('/api/auth/sign-out', () => {
+        signedOut = true;
+        return new HttpResponse(null, { status: 204 });
+      }),
+    );
+    const { router } = renderApp('/', meFor('coordinator'));
+    await userEvent.click(await screen.findByRole('button', { name: 'Sign out' }));
+    expect(
+      await screen.findByText('You are signed out.', { selector: '.ant-alert *' }),
+    ).toBeInTheDocument();
+    expect(signedOut).toBe(true);
+    expect(router.state.location.pathname).toBe('/sign-in');
+    expect(getAccessToken()).toBeNull();
+  });
+
+  it('shows a retry when the server cannot be reached at start', async () => {
+    let calls = 0;
+    server.use(
+      http.get('/api/auth/me', () => {
+        calls += 1;
+        return calls === 1 ? HttpResponse.error() : HttpResponse.json(meFor('analyst'));
+      }),
+    );
+    setTimeout(() => undefined);
+    renderApp('/', null);
+    expect(await screen.findByText('Gyre could not start')).toBeInTheDocument();
+    expect(screen.getByRole('alert')).toHaveTextContent('Gyre could not reach the server');
+    await userEvent.click(screen.getByRole('button', { name: 'Try again' }));
+    expect(await screen.findByText('Welcome, Ana Lyst')).toBeInTheDocument();
+  });
+});

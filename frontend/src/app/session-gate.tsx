@@ -1,0 +1,106 @@
+import { AbilityProvider } from '@casl/react';
+import { App } from 'antd';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { Navigate, useLocation, useNavigate } from 'react-router-dom';
+import { useSWRConfig } from 'swr';
+import { AppFrame } from '../components/app-frame';
+import { ErrorState, LoadingState } from '../components/page-states';
+import { UserMenu } from '../components/user-menu';
+import { ApiError, onSessionEnded } from '../lib/api-client';
+import { abilityFromRules } from '../lib/session/ability';
+import { useMe } from '../lib/session/me';
+import { SessionContext, type Session } from '../lib/session/session-context';
+import { signOut } from '../lib/session/sign-out';
+import { navEntriesFor } from './navigation';
+import { signInPath } from './paths';
+
+/**
+ * Every signed-in screen sits inside this gate: it loads who is signed in, provides their
+ * abilities, and sends anyone without a session to sign-in and back to where they were.
+ */
+export function SessionGate() {
+  const { data: me, error, isLoading, mutate: reloadMe } = useMe();
+  const { mutate } = useSWRConfig();
+  const location = useLocation();
+  const navigate = useNavigate();
+  const { message } = App.useApp();
+  const [signingOut, setSigningOut] = useState(false);
+  const here = `${location.pathname}${location.search}`;
+  const hereRef = useRef(here);
+  useEffect(() => {
+    hereRef.current = here;
+  }, [here]);
+
+  useEffect(
+    () =>
+      onSessionEnded(() => {
+        // Forget every cached answer: the next person to sign in must not see them.
+        void mutate(() => true, undefined, { revalidate: false });
+        navigate(signInPath(hereRef.current, 'expired'), { replace: true });
+      }),
+    [mutate, navigate],
+  );
+
+  const ability = useMemo(() => (me ? abilityFromRules(me.rules) : null), [me]);
+
+  const session = useMemo<Session | null>(
+    () =>
+      me
+        ? {
+            me,
+            signOut: async () => {
+              setSigningOut(true);
+              try {
+                await signOut();
+              } catch {
+                // The server may already have ended the session; the client forgets it anyway.
+              } finally {
+                setSigningOut(false);
+              }
+              await mutate(() => true, undefined, { revalidate: false });
+              message.success('You are signed out.');
+              navigate(signInPath(undefined, 'signed-out'), { replace: true });
+            },
+          }
+        : null,
+    [me, mutate, navigate, message],
+  );
+
+  if (error instanceof ApiError && error.isUnauthenticated) {
+    return <Navigate to={signInPath(here)} replace />;
+  }
+  if (error !== undefined) {
+    return (
+      <div style={{ padding: 48 }}>
+        <ErrorState error={error} onRetry={() => void reloadMe()} title="Gyre could not start" />
+      </div>
+    );
+  }
+  if (isLoading || me === undefined || ability === null || session === null) {
+    return (
+      <div style={{ padding: 48 }}>
+        <LoadingState label="Signing you in" />
+      </div>
+    );
+  }
+
+  const place = [me.study?.code, me.site?.name].filter(Boolean).join(' · ');
+  return (
+    <SessionContext.Provider value={session}>
+      <AbilityProvider value={ability}>
+        <AppFrame
+          navItems={navEntriesFor(me.user.role, ability)}
+          aside={
+            <UserMenu
+              name={me.user.name}
+              role={me.user.role}
+              place={place.length > 0 ? place : null}
+              onSignOut={() => void session.signOut()}
+              signingOut={signingOut}
+            />
+          }
+        />
+      </AbilityProvider>
+    </SessionContext.Provider>
+  );
+}

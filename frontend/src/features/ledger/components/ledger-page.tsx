@@ -1,0 +1,3 @@
+export function LedgerPage() {
+  return null;
+}

@@ -1,0 +1,3 @@
+export function ReportsPage() {
+  return null;
+}

@@ -1,0 +1,3 @@
+export function TeamPage() {
+  return null;
+}

@@ -1,0 +1,18 @@
+import type { MeResponse } from '@gyre/shared';
+import useSWR from 'swr';
+import { apiFetch } from '../api-client';
+
+/** `GET /api/auth/me`: the signed-in user, their study and site, and their packed rules. */
+export const meKey = '/api/auth/me';
+
+export function getMe(): Promise<MeResponse> {
+  return apiFetch<MeResponse>(meKey);
+}
+
+export function useMe() {
+  return useSWR<MeResponse>(meKey, getMe, {
+    // Who is signed in changes only by signing in or out, both of which revalidate this key.
+    revalidateIfStale: false,
+    shouldRetryOnError: false,
+  });
+}
