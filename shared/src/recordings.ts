@@ -174,8 +174,6 @@ export interface ChannelStatsDto {
   ciHz: [number, number] | null;
   pValue: number | null;
   trials: number | null;
-  pafHz: number | null;
-  cogHz: number | null;
 }
 
 export interface TaskResultsDto {
@@ -198,23 +196,42 @@ export interface RestResultsDto {
   powerUv2PerHz: number[];
   pafHz: number | null;
   cogHz: number | null;
+  /** Peak height over the 1/f background, dB; null without a clear peak. */
+  prominenceDb: number | null;
+  /** Why no PAF was reported (e.g. `below-prominence`), else null. */
+  noPeakReason: string | null;
+  /** Where the peak was searched, Hz. */
   alphaWindowHz: [number, number];
 }
 
+export interface ChannelQualityDto {
+  label: string;
+  standardDeviationUv: number | null;
+  flat: boolean;
+  saturatedShare: number | null;
+  saturated: boolean;
+  lineNoiseRatio50Hz: number | null;
+  lineNoiseRatio60Hz: number | null;
+  /** Share of raw instantaneous-frequency values outside the band (phase slips). */
+  phaseSlipShare: number | null;
+}
+
+/** Quality checks shown with every result (METHOD.md §6). */
 export interface QualityDto {
   durationS: number;
-  sampleRateHz: number;
+  sampleRatesHz: number[];
   roiChannelsFound: string[];
+  roiChannelsMissing: string[];
   flatChannels: string[];
   saturatedChannels: string[];
-  lineNoiseRatio: number | null;
-  lineFrequencyHz: number | null;
+  /** Median over channels of the line-noise ratios. */
+  lineNoiseRatio50Hz: number | null;
+  lineNoiseRatio60Hz: number | null;
   epochsDroppedShare: number | null;
-  phaseSlipRate: number | null;
-  alphaPeakProminence: number | null;
+  phaseSlipShare: number | null;
+  alphaPeakProminenceDb: number | null;
+  channels: ChannelQualityDto[];
   warnings: string[];
-  /** Everything else the signal core reported, as it reported it. */
-  details: Record<string, unknown>;
 }
 
 export interface RecordingResultsDto {

@@ -29,6 +29,13 @@ export async function validateRecording(task: ValidateTask): Promise<ValidateOut
       if (parsed.length === 0) return reject('onsets', 'no onset rows', 'at least one onset');
       csvOnsets = parsed.map((o) => ({ onsetS: o.onsetS, label: o.label }));
     }
+    if (task.kind === 'task' && csvOnsets === null && recording.annotations.length === 0) {
+      return reject(
+        'onsets',
+        'no onset CSV and no EDF+ annotations',
+        'stimulus onsets for a task recording (an onset_s,label CSV or EDF+ annotations)',
+      );
+    }
     const labels = recording.signals.map((s) => s.label);
     return {
       ok: true,

@@ -3,6 +3,7 @@
  * only, so they cross the thread boundary by structured clone (arrays by transfer).
  */
 import type { MessagePort } from 'node:worker_threads';
+import type { ChannelStatsDto, QualityDto } from '@gyre/shared';
 
 export type RecordingKindName = 'resting' | 'task';
 
@@ -73,8 +74,46 @@ export interface AnalyzeTask {
 /** Named numeric series of one run, moved (not copied) out of the worker. */
 export type ResultSeries = Record<string, Float64Array>;
 
+/** The small, JSON-friendly part of a run's results. */
+export interface RunSummary {
+  channels: ChannelStatsDto[];
+  /** Task recordings: the region of interest's statistics over trials. */
+  roi: {
+    baselineHz: number | null;
+    postHz: number | null;
+    deltaFHz: number | null;
+    ciHz: [number, number] | null;
+    pValue: number | null;
+    trialsKept: number;
+    trialsTotal: number;
+  } | null;
+  task: {
+    baselineWindowS: [number, number];
+    postWindowS: [number, number];
+    epochs: { total: number; kept: number; dropped: Record<string, number> };
+    trialOnsetsS: number[];
+    /** Names of the per-channel curves in `series` (`channel:<label>:mean|ciLow|ciHigh`). */
+    curveChannels: string[];
+    rasterTrials: number;
+    rasterPoints: number;
+  } | null;
+  rest: {
+    pafHz: number | null;
+    cogHz: number | null;
+    prominenceDb: number | null;
+    noPeakReason: string | null;
+    alphaWindowHz: [number, number];
+  } | null;
+  quality: QualityDto;
+  suggestsSlowing: boolean | null;
+}
+
+/**
+ * Series names: `timeS`, `roi:mean|ciLow|ciHigh`, `channel:<label>:mean|ciLow|ciHigh`,
+ * `raster:timeS`, `raster` (trials × points, row-major), `trialDeltaFHz`,
+ * `rest:frequencyHz`, `rest:powerUv2PerHz`. NaN stands for "no value".
+ */
 export interface AnalyzeOutcome {
-  /** Small, JSON-friendly part: per-channel table, ROI statistics, QC, PAF/CoG. */
-  summary: Record<string, unknown>;
+  summary: RunSummary;
   series: ResultSeries;
 }

@@ -1,0 +1,88 @@
+import { ApiProperty } from '@nestjs/swagger';
+import {
+  ArrayMaxSize,
+  ArrayMinSize,
+  IsArray,
+  IsIn,
+  IsNumber,
+  IsOptional,
+  IsString,
+  Matches,
+  MaxLength,
+  MinLength,
+  ValidateIf,
+} from 'class-validator';
+import { ANALYSIS_METHODS } from '@gyre/shared';
+import type { AnalysisMethod, AnalysisSettingsChange } from '@gyre/shared';
+
+const finite = { allowNaN: false, allowInfinity: false };
+const pair = (): PropertyDecorator => {
+  const decorators = [
+    IsArray(),
+    ArrayMinSize(2),
+    ArrayMaxSize(2),
+    IsNumber(finite, { each: true }),
+  ];
+  return (target, key) => decorators.forEach((d) => d(target, key));
+};
+
+/** A new version of a study's analysis settings; every field is given, with a reason. */
+export class AnalysisSettingsChangeDto implements AnalysisSettingsChange {
+  @ApiProperty({
+    type: [Number],
+    nullable: true,
+    example: null,
+    description: '[low, high] Hz; null = visit IAF ± 2 Hz when known, else 8–13 Hz',
+  })
+  @ValidateIf((o: AnalysisSettingsChangeDto) => o.bandHz !== null)
+  @pair()
+  bandHz: [number, number] | null;
+
+  @ApiProperty({ enum: ANALYSIS_METHODS })
+  @IsIn(ANALYSIS_METHODS)
+  method: AnalysisMethod;
+
+  @ApiProperty({ example: 7 })
+  @IsNumber(finite)
+  morletCycles: number;
+
+  @ApiProperty({ type: [Number], example: [-1, 2] })
+  @pair()
+  epochWindowS: [number, number];
+
+  @ApiProperty({ type: [Number], example: [-0.5, 0] })
+  @pair()
+  baselineWindowS: [number, number];
+
+  @ApiProperty({ type: [Number], example: [0.2, 0.8] })
+  @pair()
+  postWindowS: [number, number];
+
+  @ApiProperty({ example: 100 })
+  @IsNumber(finite)
+  rejectionThresholdUv: number;
+
+  @ApiProperty({ example: -0.2 })
+  @IsNumber(finite)
+  flagThresholdHz: number;
+
+  @ApiProperty({ type: [String], example: ['O1', 'O2', 'Oz', 'Pz'] })
+  @IsArray()
+  @ArrayMinSize(1)
+  @ArrayMaxSize(64)
+  @IsString({ each: true })
+  @Matches(/^[A-Za-z]{1,2}([1-9]|10|z|Z)$/, { each: true })
+  roi: string[];
+
+  @ApiProperty({ nullable: true, example: null })
+  @IsOptional()
+  @IsString()
+  @MaxLength(200)
+  onsetLabel: string | null;
+
+  @ApiProperty({ minLength: 10, example: 'Narrower band after the pilot review' })
+  @IsString()
+  @MinLength(10)
+  @MaxLength(2000)
+  reason: string;
+}

@@ -1,0 +1,54 @@
+import { Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import type { FlagDto, Page, VisitFlagDto } from '@gyre/shared';
+import { CurrentCaller, RequirePermission } from '../auth/decorators';
+import type { Caller } from '../auth/decorators';
+import { FlagChangeDto } from './dto/flag-change.dto';
+import { FlagListQueryDto } from './dto/flag-list-query.dto';
+import { FlagsService } from './flags.service';
+
+@ApiTags('flags')
+@ApiBearerAuth()
+@Controller()
+export class FlagsController {
+  constructor(private readonly flags: FlagsService) {}
+
+  @Get('flags')
+  @RequirePermission('read', 'Flag')
+  @ApiOkResponse({ description: 'Flags in scope; filter by state, participant, site' })
+  list(@CurrentCaller() caller: Caller, @Query() query: FlagListQueryDto): Promise<Page<FlagDto>> {
+    return this.flags.list(caller, query);
+  }
+
+  @Get('visits/:visitId/flag')
+  @RequirePermission('read', 'Flag')
+  @ApiOkResponse({ description: "The visit's flag, its history and the computation's suggestion" })
+  forVisit(
+    @CurrentCaller() caller: Caller,
+    @Param('visitId') visitId: string,
+  ): Promise<VisitFlagDto> {
+    return this.flags.forVisit(caller, visitId);
+  }
+
+  @Post('visits/:visitId/flag/raise')
+  @RequirePermission('create', 'Flag')
+  @ApiCreatedResponse({ description: 'Raises the slowing flag (reason ≥ 10 characters, audited)' })
+  raise(
+    @CurrentCaller() caller: Caller,
+    @Param('visitId') visitId: string,
+    @Body() body: FlagChangeDto,
+  ): Promise<VisitFlagDto> {
+    return this.flags.raise(caller, visitId, body.reason);
+  }
+
+  @Post('visits/:visitId/flag/clear')
+  @RequirePermission('update', 'Flag')
+  @ApiCreatedResponse({ description: 'Clears the raised flag (reason ≥ 10 characters, audited)' })
+  clear(
+    @CurrentCaller() caller: Caller,
+    @Param('visitId') visitId: string,
+    @Body() body: FlagChangeDto,
+  ): Promise<VisitFlagDto> {
+    return this.flags.clear(caller, visitId, body.reason);
+  }
+}

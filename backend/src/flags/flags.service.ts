@@ -1,0 +1,209 @@
+import { randomUUID } from 'node:crypto';
+import { Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource, EntityManager, FindOptionsWhere } from 'typeorm';
+import type { FlagDto, FlagSuggestion, Page, VisitFlagDto } from '@gyre/shared';
+import { AnalysisRun } from '../analysis/analysis-run.entity';
+import { AnalysisSettings } from '../analysis/analysis-settings.entity';
+import { AuditService } from '../audit/audit.service';
+import { scopedWhere } from '../auth/access-scope';
+import type { Caller } from '../auth/decorators';
+import { WriteTransactions } from '../common/database/write-transactions.service';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { toPage } from '../common/pagination/page';
+import { nowIso } from '../common/time';
+import { Visit } from '../visits/visit.entity';
+import { FlagListQueryDto } from './dto/flag-list-query.dto';
+import { Flag } from './flag.entity';
+import { FlagsError } from './flags.errors';
+
+/**
+ * Slowing flags on visits. Only an analyst raises or clears one, with a reason; the
+ * computation's suggestion is shown beside it and never raises a flag by itself.
+ */
+@Injectable()
+export class FlagsService {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly writes: WriteTransactions,
+    private readonly audit: AuditService,
+  ) {}
+
+  async forVisit(caller: Caller, visitId: string): Promise<VisitFlagDto> {
+    await this.visitInScope(caller, visitId, 'read');
+    const history = await this.dataSource
+      .getRepository(Flag)
+      .find({ where: { visitId }, order: { raisedAt: 'DESC', id: 'DESC' } });
+    const current = history.find((f) => f.state === 'raised') ?? null;
+    return {
+      visitId,
+      current: current === null ? null : toFlagDto(current),
+      suggestion: await this.suggestion(this.dataSource.manager, visitId),
+      history: history.map(toFlagDto),
+    };
+  }
+
+  async list(caller: Caller, query: FlagListQueryDto): Promise<Page<FlagDto>> {
+    const window = pageWindowOf(query, 'desc');
+    const filters: Partial<Record<'state' | 'participantId' | 'siteId', string>> = {};
+    for (const key of ['state', 'participantId', 'siteId'] as const) {
+      const value = query[key];
+      if (value !== undefined) filters[key] = value;
+    }
+    const found = await this.dataSource.getRepository(Flag).findAndCount({
+      where: scopedWhere<Flag>(caller.ability, 'read', 'Flag', filters as FindOptionsWhere<Flag>),
+      order: { [query.sort ?? 'raisedAt']: window.order, id: window.order },
+      skip: window.skip,
+      take: window.take,
+    });
+    return toPage(found, window, toFlagDto);
+  }
+
+  async raise(caller: Caller, visitId: string, reason: string): Promise<VisitFlagDto> {
+    const visit = await this.visitInScope(caller, visitId, 'create');
+    await this.writes.run(async (manager) => {
+      const raised = await manager.getRepository(Flag).findOneBy({ visitId, state: 'raised' });
+      if (raised !== null) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          FlagsError.AlreadyRaised,
+          `Visit ${visitId} already has a raised slowing flag (${raised.id}); clear it first.`,
+          { flagId: raised.id },
+        );
+      }
+      const suggestion = await this.suggestion(manager, visitId);
+      const flag = Object.assign(new Flag(), {
+        id: randomUUID(),
+        visitId,
+        participantId: visit.participantId,
+        studyId: visit.studyId,
+        siteId: visit.siteId,
+        state: 'raised' as const,
+        raisedById: caller.user.id,
+        raiseReason: reason,
+        raisedAt: nowIso(),
+        suggestionJson: suggestion === null ? null : JSON.stringify(suggestion),
+        clearedById: null,
+        clearReason: null,
+        clearedAt: null,
+      });
+      await manager.getRepository(Flag).insert(flag);
+      await this.audit.record({
+        actor: caller.user,
+        action: 'raise',
+        objectType: 'Flag',
+        objectId: flag.id,
+        studyId: visit.studyId,
+        siteId: visit.siteId,
+        before: { visitId, state: null },
+        after: { ...toFlagDto(flag), suggestion },
+        reason,
+        clientIp: caller.clientIp,
+      });
+    });
+    return this.forVisit(caller, visitId);
+  }
+
+  async clear(caller: Caller, visitId: string, reason: string): Promise<VisitFlagDto> {
+    const visit = await this.visitInScope(caller, visitId, 'update');
+    await this.writes.run(async (manager) => {
+      const raised = await manager.getRepository(Flag).findOneBy({ visitId, state: 'raised' });
+      if (raised === null) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          FlagsError.NotRaised,
+          `Visit ${visitId} has no raised slowing flag to clear.`,
+          { visitId },
+        );
+      }
+      const before = toFlagDto(raised);
+      const changes = {
+        state: 'cleared' as const,
+        clearedById: caller.user.id,
+        clearReason: reason,
+        clearedAt: nowIso(),
+      };
+      await manager.getRepository(Flag).update({ id: raised.id }, changes);
+      await this.audit.record({
+        actor: caller.user,
+        action: 'clear',
+        objectType: 'Flag',
+        objectId: raised.id,
+        studyId: visit.studyId,
+        siteId: visit.siteId,
+        before,
+        after: toFlagDto(Object.assign(raised, changes)),
+        reason,
+        clientIp: caller.clientIp,
+      });
+    });
+    return this.forVisit(caller, visitId);
+  }
+
+  /** What the latest task run of the visit suggests (METHOD.md §3). */
+  private async suggestion(
+    manager: EntityManager,
+    visitId: string,
+  ): Promise<FlagSuggestion | null> {
+    const run = await manager.getRepository(AnalysisRun).findOne({
+      where: { visitId, kind: 'task' },
+      select: {
+        id: true,
+        settingsId: true,
+        roiDeltaFHz: true,
+        roiCiLowHz: true,
+        roiCiHighHz: true,
+        suggestsSlowing: true,
+      },
+      order: { createdAt: 'DESC', id: 'DESC' },
+    });
+    if (run === null) return null;
+    const settings = await manager
+      .getRepository(AnalysisSettings)
+      .findOneByOrFail({ id: run.settingsId });
+    return {
+      suggestsSlowing: Boolean(run.suggestsSlowing),
+      runId: run.id,
+      roiDeltaFHz: run.roiDeltaFHz,
+      roiCiHz:
+        run.roiCiLowHz === null || run.roiCiHighHz === null
+          ? null
+          : [run.roiCiLowHz, run.roiCiHighHz],
+      flagThresholdHz: settings.flagThresholdHz,
+    };
+  }
+
+  private async visitInScope(
+    caller: Caller,
+    visitId: string,
+    action: 'read' | 'create' | 'update',
+  ): Promise<Visit> {
+    const visit = await this.dataSource.getRepository(Visit).findOne({
+      where: scopedWhere<Visit>(caller.ability, action, 'Flag', { id: visitId }),
+    });
+    if (visit === null) {
+      throw new GyreException(
+        ErrorKind.NotFound,
+        FlagsError.VisitNotFound,
+        `No visit ${visitId}.`,
+        { visitId },
+      );
+    }
+    return visit;
+  }
+}
+
+export function toFlagDto(flag: Flag): FlagDto {
+  return {
+    id: flag.id,
+    visitId: flag.visitId,
+    state: flag.state,
+    raisedById: flag.raisedById,
+    raiseReason: flag.raiseReason,
+    raisedAt: flag.raisedAt,
+    clearedById: flag.clearedById,
+    clearReason: flag.clearReason,
+    clearedAt: flag.clearedAt,
+  };
+}

@@ -1,0 +1,31 @@
+import { Controller, Get, Param, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import type { Page, ReportDto } from '@gyre/shared';
+import { CurrentCaller, RequirePermission } from '../auth/decorators';
+import type { Caller } from '../auth/decorators';
+import { ReportListQueryDto } from './dto/report-list-query.dto';
+import { ReportsService } from './reports.service';
+
+@ApiTags('reports')
+@ApiBearerAuth()
+@Controller()
+export class ReportsController {
+  constructor(private readonly reports: ReportsService) {}
+
+  @Get('reports')
+  @RequirePermission('read', 'Report')
+  @ApiOkResponse({ description: 'Reports in scope (coordinators: signed reports of their site)' })
+  list(
+    @CurrentCaller() caller: Caller,
+    @Query() query: ReportListQueryDto,
+  ): Promise<Page<ReportDto>> {
+    return this.reports.list(caller, query);
+  }
+
+  @Get('visits/:visitId/report')
+  @RequirePermission('read', 'Report')
+  @ApiOkResponse({ description: "The visit's report (a draft until signing exists)" })
+  forVisit(@CurrentCaller() caller: Caller, @Param('visitId') visitId: string): Promise<ReportDto> {
+    return this.reports.forVisit(caller, visitId);
+  }
+}

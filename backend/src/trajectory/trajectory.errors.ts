@@ -1,0 +1,4 @@
+/** Error codes of participant trajectories. */
+export enum TrajectoryError {
+  ParticipantNotFound = 'TRAJECTORY_PARTICIPANT_NOT_FOUND',
+}
