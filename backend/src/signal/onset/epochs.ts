@@ -21,8 +21,16 @@ export interface ArtefactSpan {
   endS: number;
 }
 
+/** A stretch of recording without gaps, s from the recording start. */
+export interface DataSegmentS {
+  startS: number;
+  endS: number;
+}
+
 export interface TrialScreenOptions {
   recordingDurationS: number;
+  /** Gap-free stretches (EDF+D); default one stretch from 0 to the duration. */
+  segmentsS?: readonly DataSegmentS[];
   epochS: readonly [number, number];
   /** Epochs starting or ending closer than this to a recording edge are dropped (default 1 s). */
   edgeGuardS?: number;
@@ -32,7 +40,8 @@ export interface TrialScreenOptions {
 /**
  * Reasons that drop a trial on every channel (METHOD.md §3): the epoch starts or ends
  * within `edgeGuardS` of the recording's edges (the transform's edge artefacts live
- * there), or it overlaps an artefact span. Null keeps the trial.
+ * there; a gap of EDF+D counts as an edge too), or it overlaps an artefact span. Null
+ * keeps the trial.
  */
 export function screenTrials(
   onsetsS: readonly number[],
@@ -41,10 +50,12 @@ export function screenTrials(
   const guard = options.edgeGuardS ?? 1;
   const [e0, e1] = options.epochS;
   const artefacts = options.artefacts ?? [];
+  const segments = options.segmentsS ?? [{ startS: 0, endS: options.recordingDurationS }];
   return onsetsS.map((t) => {
     const start = t + e0;
     const end = t + e1;
-    if (start < guard || end > options.recordingDurationS - guard) return 'edge';
+    const inside = segments.some((g) => start >= g.startS + guard && end <= g.endS - guard);
+    if (!inside) return 'edge';
     if (artefacts.some((a) => a.startS <= end && a.endS >= start)) return 'artefact';
     return null;
   });
