@@ -3,6 +3,21 @@ import { AppConfigModule } from './config/config.module';
 import { DatabaseModule } from './database/database.module';
 import { HealthModule } from './health/health.module';
 import { RequestLoggerMiddleware } from './common/logging/request-logger.middleware';
+import { CommonDatabaseModule } from './common/database/common-database.module';
+import { AuditModule } from './audit/audit.module';
+import { MailModule } from './mail/mail.module';
+import { AuthModule } from './auth/auth.module';
+import { UsersModule } from './users/users.module';
+import { StudiesModule } from './studies/studies.module';
+import { SitesModule } from './sites/sites.module';
+import { ParticipantsModule } from './participants/participants.module';
+import { VisitsModule } from './visits/visits.module';
+import { AnalysisModule } from './analysis/analysis.module';
+import { ReportsModule } from './reports/reports.module';
+import { JobsModule } from './jobs/jobs.module';
+import { RecordingsModule } from './recordings/recordings.module';
+import { FlagsModule } from './flags/flags.module';
+import { TrajectoryModule } from './trajectory/trajectory.module';
 
 @Module({})
 export class AppModule implements NestModule {
@@ -10,7 +25,26 @@ export class AppModule implements NestModule {
   static forRoot(env: Record<string, unknown> = process.env): DynamicModule {
     return {
       module: AppModule,
-      imports: [AppConfigModule.forRoot(env), DatabaseModule, HealthModule],
+      imports: [
+        AppConfigModule.forRoot(env),
+        DatabaseModule,
+        CommonDatabaseModule,
+        HealthModule,
+        AuditModule,
+        MailModule,
+        AuthModule,
+        UsersModule,
+        StudiesModule,
+        SitesModule,
+        ParticipantsModule,
+        VisitsModule,
+        AnalysisModule,
+        ReportsModule,
+        JobsModule,
+        RecordingsModule,
+        FlagsModule,
+        TrajectoryModule,
+      ],
     };
   }
 

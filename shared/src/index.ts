@@ -5,3 +5,4 @@ export * from './accounts';
 export * from './study-model';
 export * from './audit';
 export * from './mail';
+export * from './recordings';

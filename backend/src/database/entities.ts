@@ -1,2 +1,34 @@
-/** Every TypeORM entity, listed once; feature modules add theirs here. */
-export const ENTITIES: Function[] = [];
+import { AuditEntry } from '../audit/audit-entry.entity';
+import { OneTimeToken } from '../auth/one-time-token.entity';
+import { RefreshToken } from '../auth/refresh-token.entity';
+import { OutboxMessage } from '../mail/outbox-message.entity';
+import { Participant } from '../participants/participant.entity';
+import { Site } from '../sites/site.entity';
+import { Study } from '../studies/study.entity';
+import { User } from '../users/user.entity';
+import { Visit } from '../visits/visit.entity';
+import { Recording } from '../recordings/recording.entity';
+import { Job } from '../jobs/job.entity';
+import { AnalysisSettings } from '../analysis/analysis-settings.entity';
+import { AnalysisRun } from '../analysis/analysis-run.entity';
+import { Flag } from '../flags/flag.entity';
+import { Report } from '../reports/report.entity';
+
+/** Every TypeORM entity, listed once; feature modules add theirs here (append only). */
+export const ENTITIES: Function[] = [
+  Study,
+  Site,
+  User,
+  Participant,
+  Visit,
+  RefreshToken,
+  OneTimeToken,
+  AuditEntry,
+  OutboxMessage,
+  Recording,
+  Job,
+  AnalysisSettings,
+  AnalysisRun,
+  Flag,
+  Report,
+];

@@ -8,6 +8,8 @@ export enum ErrorKind {
   Conflict = 'conflict',
   PayloadTooLarge = 'payload_too_large',
   TooManyRequests = 'too_many_requests',
+  /** The resource is temporarily locked (an account after too many wrong passwords). */
+  Locked = 'locked',
   Unavailable = 'unavailable',
 }
 

@@ -28,6 +28,8 @@ export function statusForKind(kind: ErrorKind): HttpStatus {
       return HttpStatus.PAYLOAD_TOO_LARGE;
     case ErrorKind.TooManyRequests:
       return HttpStatus.TOO_MANY_REQUESTS;
+    case ErrorKind.Locked:
+      return HttpStatus.LOCKED;
     case ErrorKind.Unavailable:
       return HttpStatus.SERVICE_UNAVAILABLE;
     default:
@@ -43,6 +45,7 @@ const CODE_FOR_STATUS: Partial<Record<number, string>> = {
   409: 'CONFLICT',
   413: 'PAYLOAD_TOO_LARGE',
   422: 'UNPROCESSABLE',
+  423: 'LOCKED',
   429: 'TOO_MANY_REQUESTS',
 };
 

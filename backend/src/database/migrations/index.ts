@@ -1,4 +1,14 @@
 import { Initial1764633600000 } from './1764633600000-initial';
+import { StudyModelAndAccounts1764633700000 } from './1764633700000-study-model-and-accounts';
+import { AuditTrail1764633700100 } from './1764633700100-audit-trail';
+import { MailOutbox1764633700200 } from './1764633700200-mail-outbox';
+import { RecordingsAndAnalysis1764633800000 } from './1764633800000-recordings-and-analysis';
 
 /** Every migration in order; add new ones at the end (see DEVELOPERS.md). */
-export const MIGRATIONS = [Initial1764633600000];
+export const MIGRATIONS = [
+  Initial1764633600000,
+  StudyModelAndAccounts1764633700000,
+  AuditTrail1764633700100,
+  MailOutbox1764633700200,
+  RecordingsAndAnalysis1764633800000,
+];

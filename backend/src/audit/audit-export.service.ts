@@ -1,0 +1,37 @@
+import { Injectable } from '@nestjs/common';
+import type { Response } from 'express';
+import { Caller } from '../auth/decorators';
+import { csvHeader, csvLine } from './audit-csv';
+import { AuditService } from './audit.service';
+import { AuditQueryDto } from './dto/audit-query.dto';
+
+@Injectable()
+export class AuditExportService {
+  constructor(private readonly audit: AuditService) {}
+
+  /** Records the export first (so it is in the trail even if the download breaks), then streams. */
+  async streamCsv(caller: Caller, query: AuditQueryDto, response: Response): Promise<void> {
+    const filters = { ...query, page: undefined, pageSize: undefined };
+    await this.audit.record({
+      actor: caller.user,
+      action: 'export',
+      objectType: 'AuditEntry',
+      objectId: null,
+      after: { format: 'csv', filters },
+      clientIp: caller.clientIp,
+    });
+    response.status(200);
+    response.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    response.setHeader(
+      'Content-Disposition',
+      `attachment; filename="gyre-audit-${new Date().toISOString().slice(0, 10)}.csv"`,
+    );
+    response.write(csvHeader());
+    for await (const entry of this.audit.iterate(caller.ability, query)) {
+      if (!response.write(csvLine(entry))) {
+        await new Promise<void>((resolve) => response.once('drain', () => resolve()));
+      }
+    }
+    response.end();
+  }
+}

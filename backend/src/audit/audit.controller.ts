@@ -1,0 +1,59 @@
+import { Controller, Get, Query, Res } from '@nestjs/common';
+import {
+  ApiBearerAuth,
+  ApiForbiddenResponse,
+  ApiOkResponse,
+  ApiOperation,
+  ApiProduces,
+  ApiTags,
+} from '@nestjs/swagger';
+import type { Response } from 'express';
+import type { AuditEntryView, AuditVerifyResult, Page } from '@gyre/shared';
+import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
+import { AuditExportService } from './audit-export.service';
+import { AuditService } from './audit.service';
+import { AuditQueryDto } from './dto/audit-query.dto';
+import { AuditPageDto, AuditVerifyResponseDto } from './dto/audit-responses.dto';
+
+@ApiTags('audit')
+@ApiBearerAuth()
+@ApiForbiddenResponse({ description: 'Only monitors (their study) and admins read the trail' })
+@Controller('audit')
+export class AuditController {
+  constructor(
+    private readonly audit: AuditService,
+    private readonly exporter: AuditExportService,
+  ) {}
+
+  @Get()
+  @RequirePermission('read', 'AuditEntry')
+  @ApiOperation({ summary: 'Audit entries, filtered by actor, action, object and time range' })
+  @ApiOkResponse({ type: AuditPageDto })
+  list(
+    @CurrentCaller() caller: Caller,
+    @Query() query: AuditQueryDto,
+  ): Promise<Page<AuditEntryView>> {
+    return this.audit.list(caller.ability, query);
+  }
+
+  @Get('verify')
+  @RequirePermission('read', 'AuditEntry')
+  @ApiOperation({ summary: 'Whether the hash chain is intact, and the first broken entry' })
+  @ApiOkResponse({ type: AuditVerifyResponseDto })
+  verify(): Promise<AuditVerifyResult> {
+    return this.audit.verify();
+  }
+
+  @Get('export.csv')
+  @RequirePermission('export', 'AuditEntry')
+  @ApiOperation({ summary: 'The filtered entries as CSV (the export itself is audited)' })
+  @ApiProduces('text/csv')
+  @ApiOkResponse({ description: 'text/csv, one line per entry, oldest first' })
+  async export(
+    @CurrentCaller() caller: Caller,
+    @Query() query: AuditQueryDto,
+    @Res() response: Response,
+  ): Promise<void> {
+    await this.exporter.streamCsv(caller, query, response);
+  }
+}

@@ -1,0 +1,3 @@
+export enum AuditError {
+  BadTimeRange = 'AUDIT_BAD_TIME_RANGE',
+}

@@ -1,0 +1,16 @@
+import { Global, Module } from '@nestjs/common';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { AuditEntry } from './audit-entry.entity';
+import { AuditController } from './audit.controller';
+import { AuditExportService } from './audit-export.service';
+import { AuditService } from './audit.service';
+
+/** Global: every feature module records into the one trail. */
+@Global()
+@Module({
+  imports: [TypeOrmModule.forFeature([AuditEntry])],
+  controllers: [AuditController],
+  providers: [AuditService, AuditExportService],
+  exports: [AuditService],
+})
+export class AuditModule {}

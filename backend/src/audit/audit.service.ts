@@ -1,0 +1,223 @@
+import { Injectable } from '@nestjs/common';
+import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
+import {
+  Between,
+  DataSource,
+  FindOptionsWhere,
+  LessThanOrEqual,
+  MoreThanOrEqual,
+  Repository,
+} from 'typeorm';
+import type { AppAbility, AuditEntryView, AuditVerifyResult, Page } from '@gyre/shared';
+import { scopedWhere } from '../auth/access-scope';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { toPage } from '../common/pagination/page';
+import { sqliteHandleOf } from '../common/database/sqlite-handle';
+import { nowIso } from '../common/time';
+import { canonicalJson, chainHash, ChainedContent, GENESIS_HASH } from './audit-chain';
+import { AuditEntry } from './audit-entry.entity';
+import { AuditError } from './audit.errors';
+import { AuditQueryDto } from './dto/audit-query.dto';
+
+/** Who did it. An `AuthUser` fits; `null` for the system or an unknown caller. */
+export interface AuditActor {
+  id: string | null;
+  email: string | null;
+  studyId?: string | null;
+  siteId?: string | null;
+}
+
+export interface AuditRecordInput {
+  actor: AuditActor | null;
+  /** A verb from `AUDIT_ACTIONS` or a module's own (`upload`, `sign`, `rerun`, …). */
+  action: string;
+  /** A CASL subject name (`Participant`, `Recording`, …) or `Session` for sign-ins. */
+  objectType: string;
+  objectId: string | null;
+  /** The study/site the object belongs to (who may read the entry); default: the actor's. */
+  studyId?: string | null;
+  siteId?: string | null;
+  /** Response views, never entities: whatever is here is kept for ever. */
+  before?: unknown;
+  after?: unknown;
+  reason?: string | null;
+  clientIp?: string | null;
+}
+
+interface Row extends ChainedContent {
+  prevHash: string;
+  hash: string;
+}
+
+/**
+ * The audit trail. Appends run as one synchronous SQLite transaction that reads the last hash
+ * and inserts the next entry, so concurrent requests cannot fork the chain; when called inside
+ * a `WriteTransactions.run`, the entry commits or rolls back with the change it describes.
+ */
+@Injectable()
+export class AuditService {
+  private readonly append: (input: AuditRecordInput) => Row;
+
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    @InjectRepository(AuditEntry) private readonly entries: Repository<AuditEntry>,
+  ) {
+    this.append = (input) => {
+      const db = sqliteHandleOf(this.dataSource);
+      const write = db.transaction((entry: AuditRecordInput): Row => {
+        const last = db
+          .prepare(`SELECT "seq", "hash" FROM "audit_entry" ORDER BY "seq" DESC LIMIT 1`)
+          .get() as { seq: number; hash: string } | undefined;
+        const content: ChainedContent = {
+          seq: (last?.seq ?? 0) + 1,
+          at: nowIso(),
+          actorId: entry.actor?.id ?? null,
+          actorEmail: entry.actor?.email ?? null,
+          action: entry.action,
+          objectType: entry.objectType,
+          objectId: entry.objectId,
+          studyId: entry.studyId !== undefined ? entry.studyId : (entry.actor?.studyId ?? null),
+          siteId: entry.siteId !== undefined ? entry.siteId : (entry.actor?.siteId ?? null),
+          before: entry.before === undefined ? null : canonicalJson(entry.before),
+          after: entry.after === undefined ? null : canonicalJson(entry.after),
+          reason: entry.reason ?? null,
+          clientIp: entry.clientIp ?? null,
+        };
+        const prevHash = last?.hash ?? GENESIS_HASH;
+        const row: Row = { ...content, prevHash, hash: chainHash(prevHash, content) };
+        db.prepare(
+          `INSERT INTO "audit_entry" ("seq", "at", "actorId", "actorEmail", "action", "objectType",
+            "objectId", "studyId", "siteId", "before", "after", "reason", "clientIp", "prevHash", "hash")
+           VALUES (@seq, @at, @actorId, @actorEmail, @action, @objectType, @objectId, @studyId,
+            @siteId, @before, @after, @reason, @clientIp, @prevHash, @hash)`,
+        ).run(row);
+        return row;
+      });
+      // Inside an open transaction better-sqlite3 nests as a savepoint; otherwise take the
+      // write lock up front (BEGIN IMMEDIATE) so another process cannot slip in between.
+      return db.inTransaction ? write(input) : write.immediate(input);
+    };
+  }
+
+  /** Appends one entry and returns it. */
+  async record(input: AuditRecordInput): Promise<AuditEntryView> {
+    return toView(this.append(input));
+  }
+
+  async list(ability: AppAbility, query: AuditQueryDto): Promise<Page<AuditEntryView>> {
+    const window = pageWindowOf(query, 'desc');
+    const rows = await this.entries.findAndCount({
+      where: scopedWhere<AuditEntry>(ability, 'read', 'AuditEntry', filtersOf(query)),
+      order: { [query.sort ?? 'seq']: window.order, seq: window.order },
+      skip: window.skip,
+      take: window.take,
+    });
+    return toPage(rows, window, toView);
+  }
+
+  /** Every matching entry, oldest first, in pages of 500 so memory stays flat. */
+  async *iterate(ability: AppAbility, query: AuditQueryDto): AsyncGenerator<AuditEntryView> {
+    const where = scopedWhere<AuditEntry>(ability, 'read', 'AuditEntry', filtersOf(query));
+    for (let skip = 0; ; skip += 500) {
+      const batch = await this.entries.find({ where, order: { seq: 'ASC' }, skip, take: 500 });
+      for (const row of batch) yield toView(row);
+      if (batch.length < 500) return;
+    }
+  }
+
+  /** Recomputes every hash in sequence order and names the first entry that does not hold. */
+  async verify(): Promise<AuditVerifyResult> {
+    let previous = GENESIS_HASH;
+    let expectedSeq = 1;
+    let checked = 0;
+    for (let afterSeq = 0; ;) {
+      const batch = await this.entries
+        .createQueryBuilder('e')
+        .where('e.seq > :afterSeq', { afterSeq })
+        .orderBy('e.seq', 'ASC')
+        .take(1000)
+        .getMany();
+      for (const row of batch) {
+        const broken = (reason: string): AuditVerifyResult => ({
+          intact: false,
+          checked,
+          firstBroken: { seq: row.seq, reason },
+          lastHash: previous,
+        });
+        if (row.seq !== expectedSeq) {
+          return broken(
+            `sequence jumps from ${expectedSeq - 1} to ${row.seq}: entries are missing`,
+          );
+        }
+        if (row.prevHash !== previous) {
+          return broken('its previous-hash link does not match the entry before it');
+        }
+        if (chainHash(row.prevHash, contentOf(row)) !== row.hash) {
+          return broken('its content does not match its hash: the entry was altered');
+        }
+        previous = row.hash;
+        expectedSeq += 1;
+        checked += 1;
+      }
+      if (batch.length < 1000) break;
+      afterSeq = batch[batch.length - 1].seq;
+    }
+    return { intact: true, checked, firstBroken: null, lastHash: checked === 0 ? null : previous };
+  }
+}
+
+function filtersOf(query: AuditQueryDto): FindOptionsWhere<AuditEntry> {
+  const where: FindOptionsWhere<AuditEntry> = {};
+  if (query.actorId !== undefined) where.actorId = query.actorId;
+  if (query.action !== undefined) where.action = query.action;
+  if (query.objectType !== undefined) where.objectType = query.objectType;
+  if (query.objectId !== undefined) where.objectId = query.objectId;
+  const from = query.from === undefined ? undefined : new Date(query.from).toISOString();
+  const to = query.to === undefined ? undefined : new Date(query.to).toISOString();
+  if (from !== undefined && to !== undefined) {
+    if (from > to) {
+      throw new GyreException(
+        ErrorKind.BadInput,
+        AuditError.BadTimeRange,
+        `from (${query.from}) is after to (${query.to})`,
+        { field: 'from', from: query.from, to: query.to },
+      );
+    }
+    where.at = Between(from, to);
+  } else if (from !== undefined) where.at = MoreThanOrEqual(from);
+  else if (to !== undefined) where.at = LessThanOrEqual(to);
+  return where;
+}
+
+function contentOf(row: ChainedContent): ChainedContent {
+  return {
+    seq: row.seq,
+    at: row.at,
+    actorId: row.actorId,
+    actorEmail: row.actorEmail,
+    action: row.action,
+    objectType: row.objectType,
+    objectId: row.objectId,
+    studyId: row.studyId,
+    siteId: row.siteId,
+    before: row.before,
+    after: row.after,
+    reason: row.reason,
+    clientIp: row.clientIp,
+  };
+}
+
+function parseJson(text: string | null): unknown {
+  return text === null ? null : JSON.parse(text);
+}
+
+export function toView(row: Row | AuditEntry): AuditEntryView {
+  return {
+    ...contentOf(row),
+    before: parseJson(row.before),
+    after: parseJson(row.after),
+    prevHash: row.prevHash,
+    hash: row.hash,
+  };
+}

@@ -1,0 +1,53 @@
+import { Module } from '@nestjs/common';
+import { APP_GUARD } from '@nestjs/core';
+import { JwtModule } from '@nestjs/jwt';
+import { PassportModule } from '@nestjs/passport';
+import { ThrottlerModule } from '@nestjs/throttler';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import type { AppConfig } from '../config/app.config';
+import { APP_CONFIG } from '../config/config.module';
+import { Site } from '../sites/site.entity';
+import { Study } from '../studies/study.entity';
+import { User } from '../users/user.entity';
+import { AccessTokens } from './access-tokens.service';
+import { AuthController } from './auth.controller';
+import { AuthService } from './auth.service';
+import { JwtAuthGuard } from './jwt-auth.guard';
+import { JwtStrategy } from './jwt.strategy';
+import { OneTimeTokens } from './one-time-tokens.service';
+import { PasswordHasher } from './password-hasher.service';
+import { PermissionsGuard } from './permissions.guard';
+import { RefreshTokens } from './refresh-tokens.service';
+
+/** Requests per minute per client address on `/api/auth/*`. */
+export const AUTH_THROTTLE_LIMIT = 60;
+
+@Module({
+  imports: [
+    PassportModule,
+    JwtModule.registerAsync({
+      inject: [APP_CONFIG],
+      useFactory: (config: AppConfig) => ({
+        secret: config.jwtSecret,
+        signOptions: { algorithm: 'HS256' },
+        verifyOptions: { algorithms: ['HS256'] },
+      }),
+    }),
+    ThrottlerModule.forRoot([{ name: 'auth', ttl: 60_000, limit: AUTH_THROTTLE_LIMIT }]),
+    TypeOrmModule.forFeature([User, Study, Site]),
+  ],
+  controllers: [AuthController],
+  providers: [
+    AuthService,
+    AccessTokens,
+    RefreshTokens,
+    OneTimeTokens,
+    PasswordHasher,
+    JwtStrategy,
+    // Order matters: sign-in first, then the permission check that needs the user.
+    { provide: APP_GUARD, useClass: JwtAuthGuard },
+    { provide: APP_GUARD, useClass: PermissionsGuard },
+  ],
+  exports: [PasswordHasher, OneTimeTokens, RefreshTokens, AccessTokens],
+})
+export class AuthModule {}

@@ -1,0 +1,51 @@
+import { ApiPropertyOptional } from '@nestjs/swagger';
+import { Type } from 'class-transformer';
+import { IsIn, IsInt, IsOptional, Max, Min } from 'class-validator';
+
+export const MAX_PAGE_SIZE = 200;
+
+/** `?page=&pageSize=&order=`; each list adds its own `sort` with the columns it allows. */
+export class PageQueryDto {
+  @ApiPropertyOptional({ minimum: 1, default: 1 })
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt()
+  @Min(1)
+  page?: number;
+
+  @ApiPropertyOptional({ minimum: 1, maximum: MAX_PAGE_SIZE, default: 20 })
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt()
+  @Min(1)
+  @Max(MAX_PAGE_SIZE)
+  pageSize?: number;
+
+  @ApiPropertyOptional({ enum: ['asc', 'desc'], default: 'asc' })
+  @IsOptional()
+  @IsIn(['asc', 'desc'])
+  order?: 'asc' | 'desc';
+}
+
+export interface PageWindow {
+  page: number;
+  pageSize: number;
+  skip: number;
+  take: number;
+  order: 'ASC' | 'DESC';
+}
+
+export function pageWindowOf(
+  query: PageQueryDto,
+  defaultOrder: 'asc' | 'desc' = 'asc',
+): PageWindow {
+  const page = query.page ?? 1;
+  const pageSize = query.pageSize ?? 20;
+  return {
+    page,
+    pageSize,
+    skip: (page - 1) * pageSize,
+    take: pageSize,
+    order: (query.order ?? defaultOrder) === 'asc' ? 'ASC' : 'DESC',
+  };
+}

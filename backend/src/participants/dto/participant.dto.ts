@@ -1,0 +1,74 @@
+import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { Transform } from 'class-transformer';
+import { IsIn, IsOptional, IsString, IsUUID, Matches, MaxLength } from 'class-validator';
+import { PARTICIPANT_CODE_PATTERN, type Page, type ParticipantView } from '@gyre/shared';
+import { PageQueryDto } from '../../common/pagination/page-query.dto';
+
+const CODE_MESSAGE =
+  'code must be a pseudonymous code: 3–24 upper-case letters and digits in hyphen-separated groups with at least one digit (e.g. AC-0042), never a name';
+
+const trimmed = ({ value }: { value: unknown }): unknown =>
+  typeof value === 'string' ? value.trim() : value;
+
+export class CreateParticipantDto {
+  @ApiPropertyOptional({ description: 'Defaults to your own site (technicians)' })
+  @IsOptional()
+  @IsUUID()
+  siteId?: string;
+
+  @ApiProperty({ example: 'AC-0042', pattern: PARTICIPANT_CODE_PATTERN.source })
+  @Transform(trimmed)
+  @IsString()
+  @Matches(PARTICIPANT_CODE_PATTERN, { message: CODE_MESSAGE })
+  code: string;
+}
+
+export class UpdateParticipantDto {
+  @ApiProperty({ example: 'AC-0043', pattern: PARTICIPANT_CODE_PATTERN.source })
+  @Transform(trimmed)
+  @IsString()
+  @Matches(PARTICIPANT_CODE_PATTERN, { message: CODE_MESSAGE })
+  code: string;
+
+  @ApiPropertyOptional({ description: 'Why the code changes; kept in the audit trail' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(2000)
+  reason?: string;
+}
+
+export const PARTICIPANT_SORT_FIELDS = ['code', 'createdAt'] as const;
+
+export class ParticipantQueryDto extends PageQueryDto {
+  @ApiPropertyOptional({ enum: PARTICIPANT_SORT_FIELDS, default: 'code' })
+  @IsOptional()
+  @IsIn(PARTICIPANT_SORT_FIELDS)
+  sort?: (typeof PARTICIPANT_SORT_FIELDS)[number];
+
+  @ApiPropertyOptional()
+  @IsOptional()
+  @IsUUID()
+  siteId?: string;
+
+  @ApiPropertyOptional({ description: 'Part of the code' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(24)
+  q?: string;
+}
+
+export class ParticipantResponseDto implements ParticipantView {
+  @ApiProperty() id: string;
+  @ApiProperty() studyId: string;
+  @ApiProperty() siteId: string;
+  @ApiProperty({ example: 'AC-0042' }) code: string;
+  @ApiProperty() createdAt: string;
+  @ApiProperty() updatedAt: string;
+}
+
+export class ParticipantPageDto implements Page<ParticipantView> {
+  @ApiProperty({ type: [ParticipantResponseDto] }) items: ParticipantView[];
+  @ApiProperty() total: number;
+  @ApiProperty() page: number;
+  @ApiProperty() pageSize: number;
+}

@@ -1,0 +1,5 @@
+export enum ParticipantsError {
+  NotFound = 'PARTICIPANT_NOT_FOUND',
+  CodeTaken = 'PARTICIPANT_CODE_TAKEN',
+  SiteRequired = 'PARTICIPANT_SITE_REQUIRED',
+}

@@ -1,0 +1,14 @@
+import { Module } from '@nestjs/common';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { SitesModule } from '../sites/sites.module';
+import { Participant } from './participant.entity';
+import { ParticipantsController } from './participants.controller';
+import { ParticipantsService } from './participants.service';
+
+@Module({
+  imports: [TypeOrmModule.forFeature([Participant]), SitesModule],
+  controllers: [ParticipantsController],
+  providers: [ParticipantsService],
+  exports: [ParticipantsService],
+})
+export class ParticipantsModule {}

@@ -1,0 +1,143 @@
+import { randomUUID } from 'node:crypto';
+import { Injectable } from '@nestjs/common';
+import { InjectRepository } from '@nestjs/typeorm';
+import { FindOptionsWhere, Repository } from 'typeorm';
+import { subject, type Page, type ParticipantView } from '@gyre/shared';
+import { scopedWhere } from '../auth/access-scope';
+import { Caller } from '../auth/decorators';
+import { AuditService } from '../audit/audit.service';
+import { WriteTransactions } from '../common/database/write-transactions.service';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { isUniqueViolation } from '../common/errors/unique-violation';
+import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { toPage } from '../common/pagination/page';
+import { containsText } from '../common/pagination/text-filter';
+import { nowIso } from '../common/time';
+import { SitesService } from '../sites/sites.service';
+import {
+  CreateParticipantDto,
+  ParticipantQueryDto,
+  UpdateParticipantDto,
+} from './dto/participant.dto';
+import { Participant } from './participant.entity';
+import { toParticipantView } from './participant-view';
+import { ParticipantsError } from './participants.errors';
+
+@Injectable()
+export class ParticipantsService {
+  constructor(
+    @InjectRepository(Participant) private readonly participants: Repository<Participant>,
+    private readonly sites: SitesService,
+    private readonly writes: WriteTransactions,
+    private readonly audit: AuditService,
+  ) {}
+
+  async list(caller: Caller, query: ParticipantQueryDto): Promise<Page<ParticipantView>> {
+    const window = pageWindowOf(query);
+    const filter: FindOptionsWhere<Participant> = {};
+    if (query.siteId !== undefined) filter.siteId = query.siteId;
+    if (query.q !== undefined) filter.code = containsText(query.q.toUpperCase());
+    const rows = await this.participants.findAndCount({
+      where: scopedWhere<Participant>(caller.ability, 'read', 'Participant', filter),
+      order: { [query.sort ?? 'code']: window.order, id: 'ASC' },
+      skip: window.skip,
+      take: window.take,
+    });
+    return toPage(rows, window, toParticipantView);
+  }
+
+  async get(caller: Caller, id: string): Promise<ParticipantView> {
+    return toParticipantView(await this.findInScope(caller, 'read', id));
+  }
+
+  async create(caller: Caller, dto: CreateParticipantDto): Promise<ParticipantView> {
+    const siteId = dto.siteId ?? caller.user.siteId;
+    if (siteId === null) {
+      throw new GyreException(
+        ErrorKind.BadInput,
+        ParticipantsError.SiteRequired,
+        'siteId: required for your role (you belong to no single site)',
+        { field: 'siteId' },
+      );
+    }
+    const site = await this.sites.findInScope(caller, 'read', siteId);
+    // A site the caller can see but may not register at is still "not yours": 404, not 403.
+    if (!caller.ability.can('create', subject('Participant', { studyId: site.studyId, siteId }))) {
+      throw notFound(siteId, 'siteId');
+    }
+    const at = nowIso();
+    const participant: Participant = {
+      id: randomUUID(),
+      studyId: site.studyId,
+      siteId: site.id,
+      code: dto.code,
+      createdAt: at,
+      updatedAt: at,
+    };
+    return this.save(caller, null, participant, undefined);
+  }
+
+  async update(caller: Caller, id: string, dto: UpdateParticipantDto): Promise<ParticipantView> {
+    const current = await this.findInScope(caller, 'update', id);
+    return this.save(
+      caller,
+      current,
+      { ...current, code: dto.code, updatedAt: nowIso() },
+      dto.reason,
+    );
+  }
+
+  private async save(
+    caller: Caller,
+    before: Participant | null,
+    participant: Participant,
+    reason: string | undefined,
+  ): Promise<ParticipantView> {
+    try {
+      return await this.writes.run(async (manager) => {
+        await manager.save(Participant, participant);
+        const view = toParticipantView(participant);
+        await this.audit.record({
+          actor: caller.user,
+          action: before === null ? 'create' : 'update',
+          objectType: 'Participant',
+          objectId: participant.id,
+          studyId: participant.studyId,
+          siteId: participant.siteId,
+          before: before === null ? undefined : toParticipantView(before),
+          after: view,
+          reason: reason ?? null,
+          clientIp: caller.clientIp,
+        });
+        return view;
+      });
+    } catch (error) {
+      if (isUniqueViolation(error)) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          ParticipantsError.CodeTaken,
+          `code: the study already has a participant ${participant.code}`,
+          { field: 'code', value: participant.code },
+        );
+      }
+      throw error;
+    }
+  }
+
+  async findInScope(caller: Caller, action: 'read' | 'update', id: string): Promise<Participant> {
+    const participant = await this.participants.findOne({
+      where: scopedWhere<Participant>(caller.ability, action, 'Participant', { id }),
+    });
+    if (participant === null) throw notFound(id, 'id');
+    return participant;
+  }
+}
+
+function notFound(id: string, field: string): GyreException {
+  return new GyreException(
+    ErrorKind.NotFound,
+    field === 'siteId' ? 'SITE_NOT_FOUND' : ParticipantsError.NotFound,
+    field === 'siteId' ? `siteId: no site ${id} in your scope` : `No participant ${id}`,
+    { field, id },
+  );
+}

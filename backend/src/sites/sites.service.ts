@@ -1,0 +1,161 @@
+import { randomUUID } from 'node:crypto';
+import { Injectable } from '@nestjs/common';
+import { InjectRepository } from '@nestjs/typeorm';
+import { FindOptionsWhere, Repository } from 'typeorm';
+import { subject, type Page, type SiteView } from '@gyre/shared';
+import { scopedWhere } from '../auth/access-scope';
+import { Caller } from '../auth/decorators';
+import { AuditService } from '../audit/audit.service';
+import { WriteTransactions } from '../common/database/write-transactions.service';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { isUniqueViolation } from '../common/errors/unique-violation';
+import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { toPage } from '../common/pagination/page';
+import { containsText } from '../common/pagination/text-filter';
+import { nowIso } from '../common/time';
+import { StudiesService } from '../studies/studies.service';
+import { CreateSiteDto, SiteQueryDto, UpdateSiteDto } from './dto/site.dto';
+import { Site } from './site.entity';
+import { toSiteView } from './site-view';
+import { SitesError } from './sites.errors';
+
+@Injectable()
+export class SitesService {
+  constructor(
+    @InjectRepository(Site) private readonly sites: Repository<Site>,
+    private readonly studies: StudiesService,
+    private readonly writes: WriteTransactions,
+    private readonly audit: AuditService,
+  ) {}
+
+  async list(caller: Caller, query: SiteQueryDto): Promise<Page<SiteView>> {
+    const window = pageWindowOf(query);
+    const base: FindOptionsWhere<Site> =
+      query.studyId === undefined ? {} : { studyId: query.studyId };
+    const filters: FindOptionsWhere<Site>[] =
+      query.q === undefined
+        ? [base]
+        : [
+            { ...base, code: containsText(query.q) },
+            { ...base, name: containsText(query.q) },
+          ];
+    const rows = await this.sites.findAndCount({
+      where: filters.flatMap((filter) => scopedWhere<Site>(caller.ability, 'read', 'Site', filter)),
+      order: { [query.sort ?? 'code']: window.order, id: 'ASC' },
+      skip: window.skip,
+      take: window.take,
+    });
+    return toPage(rows, window, toSiteView);
+  }
+
+  async get(caller: Caller, id: string): Promise<SiteView> {
+    return toSiteView(await this.findInScope(caller, 'read', id));
+  }
+
+  async create(caller: Caller, dto: CreateSiteDto): Promise<SiteView> {
+    const study = await this.studies.findInScope(caller, 'read', dto.studyId);
+    if (!caller.ability.can('create', subject('Site', { studyId: study.id }))) {
+      throw notFound(dto.studyId, 'studyId');
+    }
+    const at = nowIso();
+    const site: Site = {
+      id: randomUUID(),
+      studyId: study.id,
+      code: dto.code,
+      name: dto.name.trim(),
+      createdAt: at,
+      updatedAt: at,
+    };
+    return this.save(caller, null, site);
+  }
+
+  async update(caller: Caller, id: string, dto: UpdateSiteDto): Promise<SiteView> {
+    const current = await this.findInScope(caller, 'update', id);
+    const next: Site = {
+      ...current,
+      code: dto.code ?? current.code,
+      name: dto.name?.trim() ?? current.name,
+      updatedAt: nowIso(),
+    };
+    return this.save(caller, current, next);
+  }
+
+  /** Only an empty site can go: participants and accounts keep theirs for the trail. */
+  async remove(caller: Caller, id: string, reason: string | undefined): Promise<void> {
+    const site = await this.findInScope(caller, 'delete', id);
+    await this.writes.run(async (manager) => {
+      const [{ participants, users }] = (await manager.query(
+        `SELECT (SELECT COUNT(*) FROM "participant" WHERE "siteId" = ?) AS participants,
+                (SELECT COUNT(*) FROM "user" WHERE "siteId" = ?) AS users`,
+        [id, id],
+      )) as { participants: number; users: number }[];
+      if (participants > 0 || users > 0) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          SitesError.InUse,
+          `Site ${site.code} still has ${participants} participant(s) and ${users} user(s)`,
+          { participants, users },
+        );
+      }
+      await manager.delete(Site, { id });
+      await this.audit.record({
+        actor: caller.user,
+        action: 'delete',
+        objectType: 'Site',
+        objectId: id,
+        studyId: site.studyId,
+        siteId: site.id,
+        before: toSiteView(site),
+        reason: reason ?? null,
+        clientIp: caller.clientIp,
+      });
+    });
+  }
+
+  private async save(caller: Caller, before: Site | null, site: Site): Promise<SiteView> {
+    try {
+      return await this.writes.run(async (manager) => {
+        await manager.save(Site, site);
+        const view = toSiteView(site);
+        await this.audit.record({
+          actor: caller.user,
+          action: before === null ? 'create' : 'update',
+          objectType: 'Site',
+          objectId: site.id,
+          studyId: site.studyId,
+          siteId: site.id,
+          before: before === null ? undefined : toSiteView(before),
+          after: view,
+          clientIp: caller.clientIp,
+        });
+        return view;
+      });
+    } catch (error) {
+      if (isUniqueViolation(error)) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          SitesError.CodeTaken,
+          `code: this study already has a site with code ${site.code}`,
+          { field: 'code', value: site.code },
+        );
+      }
+      throw error;
+    }
+  }
+
+  async findInScope(
+    caller: Caller,
+    action: 'read' | 'update' | 'delete',
+    id: string,
+  ): Promise<Site> {
+    const site = await this.sites.findOne({
+      where: scopedWhere<Site>(caller.ability, action, 'Site', { id }),
+    });
+    if (site === null) throw notFound(id, 'id');
+    return site;
+  }
+}
+
+function notFound(id: string, field: string): GyreException {
+  return new GyreException(ErrorKind.NotFound, SitesError.NotFound, `No site ${id}`, { field, id });
+}

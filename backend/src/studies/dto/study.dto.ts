@@ -1,0 +1,49 @@
+import { ApiProperty, ApiPropertyOptional, PartialType } from '@nestjs/swagger';
+import { IsIn, IsNotEmpty, IsOptional, IsString, Matches, MaxLength } from 'class-validator';
+import { STUDY_CODE_PATTERN, type Page, type StudyView } from '@gyre/shared';
+import { PageQueryDto } from '../../common/pagination/page-query.dto';
+import { StudyResponseDto } from './study-responses.dto';
+
+export class CreateStudyDto {
+  @ApiProperty({ example: 'ALPHA-AGE', pattern: STUDY_CODE_PATTERN.source })
+  @Matches(STUDY_CODE_PATTERN, {
+    message: 'code must be 2–32 upper-case letters, digits or inner hyphens, e.g. ALPHA-AGE',
+  })
+  code: string;
+
+  @ApiProperty({ example: 'Alpha rhythm in healthy ageing' })
+  @IsString()
+  @IsNotEmpty()
+  @MaxLength(200)
+  name: string;
+
+  @ApiPropertyOptional()
+  @IsOptional()
+  @IsString()
+  @MaxLength(4000)
+  description?: string;
+}
+
+export class UpdateStudyDto extends PartialType(CreateStudyDto) {}
+
+export const STUDY_SORT_FIELDS = ['code', 'name', 'createdAt'] as const;
+
+export class StudyQueryDto extends PageQueryDto {
+  @ApiPropertyOptional({ enum: STUDY_SORT_FIELDS, default: 'code' })
+  @IsOptional()
+  @IsIn(STUDY_SORT_FIELDS)
+  sort?: (typeof STUDY_SORT_FIELDS)[number];
+
+  @ApiPropertyOptional({ description: 'Part of the code or name' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(100)
+  q?: string;
+}
+
+export class StudyPageDto implements Page<StudyView> {
+  @ApiProperty({ type: [StudyResponseDto] }) items: StudyView[];
+  @ApiProperty() total: number;
+  @ApiProperty() page: number;
+  @ApiProperty() pageSize: number;
+}

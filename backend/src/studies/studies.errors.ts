@@ -1,0 +1,4 @@
+export enum StudiesError {
+  NotFound = 'STUDY_NOT_FOUND',
+  CodeTaken = 'STUDY_CODE_TAKEN',
+}

@@ -1,0 +1,120 @@
+import { randomUUID } from 'node:crypto';
+import { Injectable } from '@nestjs/common';
+import { InjectRepository } from '@nestjs/typeorm';
+import { FindOptionsWhere, Repository } from 'typeorm';
+import type { Page, StudyView } from '@gyre/shared';
+import { scopedWhere } from '../auth/access-scope';
+import { Caller } from '../auth/decorators';
+import { AuditService } from '../audit/audit.service';
+import { WriteTransactions } from '../common/database/write-transactions.service';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { isUniqueViolation } from '../common/errors/unique-violation';
+import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { toPage } from '../common/pagination/page';
+import { containsText } from '../common/pagination/text-filter';
+import { nowIso } from '../common/time';
+import { CreateStudyDto, StudyQueryDto, UpdateStudyDto } from './dto/study.dto';
+import { StudiesError } from './studies.errors';
+import { Study } from './study.entity';
+import { toStudyView } from './study-view';
+
+@Injectable()
+export class StudiesService {
+  constructor(
+    @InjectRepository(Study) private readonly studies: Repository<Study>,
+    private readonly writes: WriteTransactions,
+    private readonly audit: AuditService,
+  ) {}
+
+  async list(caller: Caller, query: StudyQueryDto): Promise<Page<StudyView>> {
+    const window = pageWindowOf(query);
+    const filters: FindOptionsWhere<Study>[] =
+      query.q === undefined
+        ? [{}]
+        : [{ code: containsText(query.q) }, { name: containsText(query.q) }];
+    const where = filters.flatMap((filter) =>
+      scopedWhere<Study>(caller.ability, 'read', 'Study', filter),
+    );
+    const rows = await this.studies.findAndCount({
+      where,
+      order: { [query.sort ?? 'code']: window.order, id: 'ASC' },
+      skip: window.skip,
+      take: window.take,
+    });
+    return toPage(rows, window, toStudyView);
+  }
+
+  async get(caller: Caller, id: string): Promise<StudyView> {
+    return toStudyView(await this.findInScope(caller, 'read', id));
+  }
+
+  async create(caller: Caller, dto: CreateStudyDto): Promise<StudyView> {
+    const at = nowIso();
+    const study: Study = {
+      id: randomUUID(),
+      code: dto.code,
+      name: dto.name.trim(),
+      description: dto.description?.trim() ?? '',
+      createdAt: at,
+      updatedAt: at,
+    };
+    return this.save(caller, null, study);
+  }
+
+  async update(caller: Caller, id: string, dto: UpdateStudyDto): Promise<StudyView> {
+    const current = await this.findInScope(caller, 'update', id);
+    const next: Study = {
+      ...current,
+      code: dto.code ?? current.code,
+      name: dto.name?.trim() ?? current.name,
+      description: dto.description?.trim() ?? current.description,
+      updatedAt: nowIso(),
+    };
+    return this.save(caller, current, next);
+  }
+
+  private async save(caller: Caller, before: Study | null, study: Study): Promise<StudyView> {
+    try {
+      return await this.writes.run(async (manager) => {
+        await manager.save(Study, study);
+        const view = toStudyView(study);
+        await this.audit.record({
+          actor: caller.user,
+          action: before === null ? 'create' : 'update',
+          objectType: 'Study',
+          objectId: study.id,
+          studyId: study.id,
+          siteId: null,
+          before: before === null ? undefined : toStudyView(before),
+          after: view,
+          clientIp: caller.clientIp,
+        });
+        return view;
+      });
+    } catch (error) {
+      if (isUniqueViolation(error)) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          StudiesError.CodeTaken,
+          `code: a study with code ${study.code} exists`,
+          {
+            field: 'code',
+            value: study.code,
+          },
+        );
+      }
+      throw error;
+    }
+  }
+
+  /** Row-level scope inside the query: a study outside it is reported as not found. */
+  async findInScope(caller: Caller, action: 'read' | 'update', id: string): Promise<Study> {
+    const study = await this.studies.findOne({
+      where: scopedWhere<Study>(caller.ability, action, 'Study', { id }),
+    });
+    if (study === null) {
+      throw new GyreException(ErrorKind.NotFound, StudiesError.NotFound, `No study ${id}`, { id });
+    }
+    return study;
+  }
+}

@@ -1,0 +1,13 @@
+import type { StudyView } from '@gyre/shared';
+import { Study } from './study.entity';
+
+export function toStudyView(study: Study): StudyView {
+  return {
+    id: study.id,
+    code: study.code,
+    name: study.name,
+    description: study.description,
+    createdAt: study.createdAt,
+    updatedAt: study.updatedAt,
+  };
+}

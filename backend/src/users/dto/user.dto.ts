@@ -1,0 +1,135 @@
+import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { Transform } from 'class-transformer';
+import {
+  IsEmail,
+  IsIn,
+  IsNotEmpty,
+  IsOptional,
+  IsString,
+  IsUUID,
+  MaxLength,
+  ValidateIf,
+} from 'class-validator';
+import {
+  ROLES,
+  USER_STATES,
+  type Page,
+  type Role,
+  type UserState,
+  type UserView,
+} from '@gyre/shared';
+import { PageQueryDto } from '../../common/pagination/page-query.dto';
+import { UserResponseDto } from '../../auth/dto/auth-responses.dto';
+
+const lowerTrimmed = ({ value }: { value: unknown }): unknown =>
+  typeof value === 'string' ? value.trim().toLowerCase() : value;
+
+export class InviteUserDto {
+  @ApiProperty({ example: 'new.analyst@example.org' })
+  @Transform(lowerTrimmed)
+  @IsEmail({}, { message: 'email must be an e-mail address' })
+  @MaxLength(254)
+  email: string;
+
+  @ApiProperty({ example: 'Dana Analyst' })
+  @IsString()
+  @IsNotEmpty()
+  @MaxLength(200)
+  name: string;
+
+  @ApiProperty({ enum: ROLES })
+  @IsIn(ROLES)
+  role: Role;
+
+  @ApiPropertyOptional({ description: 'Required for every role but admin' })
+  @IsOptional()
+  @IsUUID()
+  studyId?: string;
+
+  @ApiPropertyOptional({ description: 'Required for technicians and coordinators' })
+  @IsOptional()
+  @IsUUID()
+  siteId?: string;
+}
+
+export class UpdateUserDto {
+  @ApiPropertyOptional()
+  @IsOptional()
+  @IsString()
+  @IsNotEmpty()
+  @MaxLength(200)
+  name?: string;
+
+  @ApiPropertyOptional({ enum: ROLES })
+  @IsOptional()
+  @IsIn(ROLES)
+  role?: Role;
+
+  @ApiPropertyOptional({ type: String, nullable: true })
+  @IsOptional()
+  @ValidateIf((_o, value) => value !== null)
+  @IsUUID()
+  studyId?: string | null;
+
+  @ApiPropertyOptional({ type: String, nullable: true })
+  @IsOptional()
+  @ValidateIf((_o, value) => value !== null)
+  @IsUUID()
+  siteId?: string | null;
+
+  @ApiPropertyOptional({
+    enum: ['active', 'deactivated'],
+    description: 'Deactivation ends every session',
+  })
+  @IsOptional()
+  @IsIn(['active', 'deactivated'])
+  state?: 'active' | 'deactivated';
+
+  @ApiPropertyOptional({ description: 'Why; kept in the audit trail' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(2000)
+  reason?: string;
+}
+
+export const USER_SORT_FIELDS = ['email', 'name', 'role', 'createdAt', 'lastSignInAt'] as const;
+
+export class UserQueryDto extends PageQueryDto {
+  @ApiPropertyOptional({ enum: USER_SORT_FIELDS, default: 'email' })
+  @IsOptional()
+  @IsIn(USER_SORT_FIELDS)
+  sort?: (typeof USER_SORT_FIELDS)[number];
+
+  @ApiPropertyOptional({ enum: ROLES })
+  @IsOptional()
+  @IsIn(ROLES)
+  role?: Role;
+
+  @ApiPropertyOptional({ enum: USER_STATES })
+  @IsOptional()
+  @IsIn(USER_STATES)
+  state?: UserState;
+
+  @ApiPropertyOptional()
+  @IsOptional()
+  @IsUUID()
+  studyId?: string;
+
+  @ApiPropertyOptional()
+  @IsOptional()
+  @IsUUID()
+  siteId?: string;
+
+  @ApiPropertyOptional({ description: 'Part of the name or e-mail' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(100)
+  q?: string;
+}
+
+export class UserPageDto implements Page<UserView> {
+  @ApiProperty({ type: [UserResponseDto] }) items: UserView[];
+  @ApiProperty() total: number;
+  @ApiProperty() page: number;
+  @ApiProperty() pageSize: number;
+}

@@ -1,0 +1,285 @@
+import { randomUUID } from 'node:crypto';
+import { Inject, Injectable } from '@nestjs/common';
+import { InjectRepository } from '@nestjs/typeorm';
+import { EntityManager, FindOptionsWhere, Repository } from 'typeorm';
+import { membershipOf, type Page, type Role, type UserView } from '@gyre/shared';
+import { scopedWhere } from '../auth/access-scope';
+import { Caller } from '../auth/decorators';
+import { OneTimeTokens } from '../auth/one-time-tokens.service';
+import { RefreshTokens } from '../auth/refresh-tokens.service';
+import { AuditService } from '../audit/audit.service';
+import { WriteTransactions } from '../common/database/write-transactions.service';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { isUniqueViolation } from '../common/errors/unique-violation';
+import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { toPage } from '../common/pagination/page';
+import { containsText } from '../common/pagination/text-filter';
+import { nowIso } from '../common/time';
+import type { AppConfig } from '../config/app.config';
+import { APP_CONFIG } from '../config/config.module';
+import { clientLink, invitationMail } from '../mail/mail-templates';
+import { OutboxService } from '../mail/outbox.service';
+import { Site } from '../sites/site.entity';
+import { Study } from '../studies/study.entity';
+import { InviteUserDto, UpdateUserDto, UserQueryDto } from './dto/user.dto';
+import { User } from './user.entity';
+import { toUserView } from './user-view';
+import { UsersError } from './users.errors';
+
+@Injectable()
+export class UsersService {
+  constructor(
+    @Inject(APP_CONFIG) private readonly config: AppConfig,
+    @InjectRepository(User) private readonly users: Repository<User>,
+    private readonly writes: WriteTransactions,
+    private readonly audit: AuditService,
+    private readonly outbox: OutboxService,
+    private readonly oneTimeTokens: OneTimeTokens,
+    private readonly refreshTokens: RefreshTokens,
+  ) {}
+
+  async list(caller: Caller, query: UserQueryDto): Promise<Page<UserView>> {
+    const window = pageWindowOf(query);
+    const base: FindOptionsWhere<User> = {};
+    if (query.role !== undefined) base.role = query.role;
+    if (query.state !== undefined) base.state = query.state;
+    if (query.studyId !== undefined) base.studyId = query.studyId;
+    if (query.siteId !== undefined) base.siteId = query.siteId;
+    const filters =
+      query.q === undefined
+        ? [base]
+        : [
+            { ...base, name: containsText(query.q) },
+            { ...base, email: containsText(query.q.toLowerCase()) },
+          ];
+    const rows = await this.users.findAndCount({
+      where: filters.flatMap((filter) => scopedWhere<User>(caller.ability, 'read', 'User', filter)),
+      order: { [query.sort ?? 'email']: window.order, id: 'ASC' },
+      skip: window.skip,
+      take: window.take,
+    });
+    return toPage(rows, window, toUserView);
+  }
+
+  async get(caller: Caller, id: string): Promise<UserView> {
+    return toUserView(await this.findInScope(caller, 'read', id));
+  }
+
+  /** Creates the account in state `invited` and e-mails a single-use link to choose a password. */
+  async invite(caller: Caller, dto: InviteUserDto): Promise<UserView> {
+    const at = nowIso();
+    const user = await this.writes
+      .run(async (manager) => {
+        const membership = await this.checkMembership(
+          manager,
+          dto.role,
+          dto.studyId ?? null,
+          dto.siteId ?? null,
+        );
+        const created: User = {
+          id: randomUUID(),
+          email: dto.email,
+          name: dto.name.trim(),
+          role: dto.role,
+          ...membership,
+          passwordHash: null,
+          state: 'invited',
+          failedSignIns: 0,
+          lockedUntil: null,
+          lastSignInAt: null,
+          passwordChangedAt: null,
+          createdAt: at,
+          updatedAt: at,
+        };
+        await manager.insert(User, created);
+        await this.audit.record({
+          actor: caller.user,
+          action: 'invite',
+          objectType: 'User',
+          objectId: created.id,
+          studyId: created.studyId,
+          siteId: created.siteId,
+          after: toUserView(created),
+          clientIp: caller.clientIp,
+        });
+        await this.sendInvitation(manager, created);
+        return created;
+      })
+      .catch((error: unknown) => {
+        if (isUniqueViolation(error)) {
+          throw new GyreException(
+            ErrorKind.Conflict,
+            UsersError.EmailTaken,
+            `email: ${dto.email} already has an account`,
+            {
+              field: 'email',
+              value: dto.email,
+            },
+          );
+        }
+        throw error;
+      });
+    this.outbox.kick();
+    return toUserView(user);
+  }
+
+  /** A fresh invitation link; the previous one stops working. */
+  async resendInvitation(caller: Caller, id: string): Promise<UserView> {
+    const user = await this.findInScope(caller, 'invite', id);
+    if (user.state !== 'invited') {
+      throw new GyreException(
+        ErrorKind.Conflict,
+        UsersError.NotInvited,
+        `The account is ${user.state}, not invited`,
+        {
+          state: user.state,
+        },
+      );
+    }
+    await this.writes.run(async (manager) => {
+      await this.sendInvitation(manager, user);
+      await this.audit.record({
+        actor: caller.user,
+        action: 'invite',
+        objectType: 'User',
+        objectId: user.id,
+        studyId: user.studyId,
+        siteId: user.siteId,
+        reason: 'invitation sent again; the earlier link no longer works',
+        clientIp: caller.clientIp,
+      });
+    });
+    this.outbox.kick();
+    return toUserView(user);
+  }
+
+  async update(caller: Caller, id: string, dto: UpdateUserDto): Promise<UserView> {
+    const current = await this.findInScope(caller, 'update', id);
+    if (
+      current.id === caller.user.id &&
+      (dto.state === 'deactivated' || (dto.role !== undefined && dto.role !== current.role))
+    ) {
+      throw new GyreException(
+        ErrorKind.Conflict,
+        UsersError.SelfLockout,
+        'You cannot deactivate yourself or change your own role; ask another admin',
+      );
+    }
+    const role = dto.role ?? current.role;
+    const next = await this.writes.run(async (manager) => {
+      const membership = await this.checkMembership(
+        manager,
+        role,
+        dto.studyId !== undefined ? dto.studyId : current.studyId,
+        dto.siteId !== undefined ? dto.siteId : current.siteId,
+      );
+      if (dto.state === 'active' && current.state === 'invited') {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          UsersError.NotInvited,
+          'state: an invited account becomes active only when the invitation is accepted',
+          { field: 'state' },
+        );
+      }
+      const updated: User = {
+        ...current,
+        name: dto.name?.trim() ?? current.name,
+        role,
+        ...membership,
+        state: dto.state ?? current.state,
+        updatedAt: nowIso(),
+      };
+      await manager.save(User, updated);
+      const roleChanged =
+        updated.role !== current.role ||
+        updated.studyId !== current.studyId ||
+        updated.siteId !== current.siteId;
+      if (updated.state === 'deactivated' && current.state !== 'deactivated') {
+        await this.refreshTokens.revokeAllOfUser(manager, current.id, 'deactivated');
+      } else if (roleChanged) {
+        // A session carries its holder's rights: a new role starts with a new sign-in.
+        await this.refreshTokens.revokeAllOfUser(manager, current.id, 'role-change');
+      }
+      await this.audit.record({
+        actor: caller.user,
+        action: roleChanged ? 'role-change' : 'update',
+        objectType: 'User',
+        objectId: current.id,
+        studyId: updated.studyId ?? current.studyId,
+        siteId: updated.siteId ?? current.siteId,
+        before: toUserView(current),
+        after: toUserView(updated),
+        reason: dto.reason ?? null,
+        clientIp: caller.clientIp,
+      });
+      return updated;
+    });
+    return toUserView(next);
+  }
+
+  private async sendInvitation(manager: EntityManager, user: User): Promise<void> {
+    const { secret, expiresAt } = await this.oneTimeTokens.issue(manager, user.id, 'invitation');
+    const study =
+      user.studyId === null ? null : await manager.findOneBy(Study, { id: user.studyId });
+    const site = user.siteId === null ? null : await manager.findOneBy(Site, { id: user.siteId });
+    const where = [study?.name ?? 'the whole installation', site?.name].filter(Boolean).join(', ');
+    await this.outbox.enqueue(
+      manager,
+      user.email,
+      invitationMail({
+        name: user.name,
+        roleLabel: user.role,
+        where,
+        link: clientLink(this.config.publicUrl, '/accept-invite', secret),
+        expiresAt,
+      }),
+    );
+  }
+
+  /** Role and membership must agree: admins belong to no study, site roles to one site of it. */
+  private async checkMembership(
+    manager: EntityManager,
+    role: Role,
+    studyId: string | null,
+    siteId: string | null,
+  ): Promise<{ studyId: string | null; siteId: string | null }> {
+    const kind = membershipOf(role);
+    const refuse = (field: string, message: string, value: unknown): never => {
+      throw new GyreException(
+        ErrorKind.BadInput,
+        UsersError.MembershipInvalid,
+        `${field}: ${message}`,
+        {
+          field,
+          value,
+          role,
+        },
+      );
+    };
+    if (kind === 'installation') return { studyId: null, siteId: null };
+    if (studyId === null) return refuse('studyId', `a ${role} must belong to a study`, studyId);
+    if ((await manager.countBy(Study, { id: studyId })) === 0) {
+      return refuse('studyId', `no study ${studyId}`, studyId);
+    }
+    if (kind === 'study') return { studyId, siteId: null };
+    if (siteId === null) return refuse('siteId', `a ${role} must belong to a site`, siteId);
+    if ((await manager.countBy(Site, { id: siteId, studyId })) === 0) {
+      return refuse('siteId', `no site ${siteId} in study ${studyId}`, siteId);
+    }
+    return { studyId, siteId };
+  }
+
+  private async findInScope(
+    caller: Caller,
+    action: 'read' | 'update' | 'invite',
+    id: string,
+  ): Promise<User> {
+    const user = await this.users.findOne({
+      where: scopedWhere<User>(caller.ability, action, 'User', { id }),
+    });
+    if (user === null) {
+      throw new GyreException(ErrorKind.NotFound, UsersError.NotFound, `No user ${id}`, { id });
+    }
+    return user;
+  }
+}
