@@ -16,10 +16,11 @@ export async function analyze(task: AnalyzeTask): Promise<unknown> {
   try {
     const outcome = await runAnalysis(task, (percent) => task.progressPort.postMessage(percent));
     const buffers = Object.values(outcome.series).map((values) => values.buffer);
-    return {
+    // A transferable wrapper must also be marked movable (Piscina.move) to be unwrapped.
+    return Piscina.move({
       [Piscina.transferableSymbol]: buffers,
       [Piscina.valueSymbol]: outcome,
-    };
+    });
   } finally {
     task.progressPort.close();
   }
