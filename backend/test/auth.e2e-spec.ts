@@ -1,0 +1,340 @@
+import request from 'supertest';
+import { abilityFromPackedRules, type PackedRules } from '@gyre/shared';
+import { accessPayload, forgeJwt } from './helpers/jwt-forge';
+import { SEED_PASSWORD } from './helpers/seed';
+import { startTestApp, TEST_JWT_SECRET, TestApp } from './helpers/test-app';
+
+const REFRESH_COOKIE = 'gyre_refresh';
+
+/** The refresh cookie's `name=value` from a response, and its attributes. */
+function refreshCookieOf(response: request.Response): { pair: string; attributes: string } {
+  const raw = response.headers['set-cookie'] as unknown;
+  const cookies = Array.isArray(raw) ? (raw as string[]) : [];
+  const cookie = cookies.find((c) => c.startsWith(`${REFRESH_COOKIE}=`));
+  if (cookie === undefined)
+    throw new Error(`No ${REFRESH_COOKIE} cookie in ${JSON.stringify(cookies)}`);
+  const [pair, ...attributes] = cookie.split(';');
+  return { pair, attributes: attributes.join(';') };
+}
+
+describe('sign-in, tokens and sessions', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await startTestApp();
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  const signIn = (email: string, password: string) =>
+    request(t.url).post('/api/auth/sign-in').send({ email, password });
+
+  describe('sign-in', () => {
+    it('answers an HS256 access token of 15 minutes and an httpOnly SameSite=Strict cookie', async () => {
+      const response = await signIn(t.seed.users.analyst.email, SEED_PASSWORD);
+      expect(response.status).toBe(200);
+      expect(response.body.tokenType).toBe('Bearer');
+      expect(response.body.expiresInS).toBe(900);
+      const [header, payload] = (response.body.accessToken as string)
+        .split('.')
+        .slice(0, 2)
+        .map((part) => JSON.parse(Buffer.from(part, 'base64url').toString('utf8')));
+      expect(header.alg).toBe('HS256');
+      expect(payload.exp - payload.iat).toBe(900);
+      expect(payload.sub).toBe(t.seed.users.analyst.id);
+      const { attributes } = refreshCookieOf(response);
+      expect(attributes).toMatch(/HttpOnly/i);
+      expect(attributes).toMatch(/SameSite=Strict/i);
+      expect(attributes).toMatch(/Path=\/api\/auth/i);
+      expect(JSON.stringify(response.body)).not.toMatch(/passwordHash|\$2[aby]\$/);
+    });
+
+    it('stores the password with bcrypt cost ≥ 10 (bcrypt hash format $2b$NN$)', async () => {
+      const [row] = (await t.dataSource.query(`SELECT "passwordHash" FROM "user" WHERE "id" = ?`, [
+        t.seed.users.analyst.id,
+      ])) as { passwordHash: string }[];
+      const cost = Number(/^\$2[aby]\$(\d\d)\$/.exec(row.passwordHash)?.[1]);
+      expect(cost).toBeGreaterThanOrEqual(10);
+    });
+
+    it('refuses a wrong password and an unknown e-mail with the same answer', async () => {
+      const wrong = await signIn(t.seed.users.monitor.email, 'not-the-password-at-all');
+      const unknown = await signIn('nobody@gyre.test', 'not-the-password-at-all');
+      expect(wrong.status).toBe(401);
+      expect(unknown.status).toBe(401);
+      expect(wrong.body.code).toBe('AUTH_WRONG_CREDENTIALS');
+      expect(unknown.body).toEqual(wrong.body);
+    });
+
+    it('refuses a body without the password, naming the field', async () => {
+      const response = await request(t.url)
+        .post('/api/auth/sign-in')
+        .send({ email: 'x@gyre.test' });
+      expect(response.status).toBe(400);
+      expect(response.body.message).toMatch(/password/);
+    });
+  });
+
+  describe('lockout', () => {
+    it('locks the account for 15 minutes after 5 wrong passwords, even for the right one', async () => {
+      const email = t.seed.users.coordinatorB.email;
+      for (let attempt = 1; attempt <= 4; attempt += 1) {
+        expect((await signIn(email, `wrong-password-${attempt}`)).status).toBe(401);
+      }
+      const fifth = await signIn(email, 'wrong-password-5');
+      expect(fifth.status).toBe(423);
+      expect(fifth.body.code).toBe('AUTH_ACCOUNT_LOCKED');
+      const lockedUntil = Date.parse(fifth.body.details.lockedUntil as string);
+      // 15 minutes from now, within the few seconds this test takes.
+      expect(lockedUntil - Date.now()).toBeGreaterThan(14 * 60 * 1000);
+      expect(lockedUntil - Date.now()).toBeLessThanOrEqual(15 * 60 * 1000);
+
+      const right = await signIn(email, SEED_PASSWORD);
+      expect(right.status).toBe(423);
+
+      // When the lock has run out (moved into the past here), the right password works again.
+      await t.dataSource.query(`UPDATE "user" SET "lockedUntil" = ? WHERE "email" = ?`, [
+        new Date(Date.now() - 1000).toISOString(),
+        email,
+      ]);
+      expect((await signIn(email, SEED_PASSWORD)).status).toBe(200);
+    });
+
+    it('a successful sign-in resets the count of wrong passwords', async () => {
+      const email = t.seed.users.analystB.email;
+      for (let attempt = 1; attempt <= 4; attempt += 1) await signIn(email, 'wrong-password-xx');
+      expect((await signIn(email, SEED_PASSWORD)).status).toBe(200);
+      for (let attempt = 1; attempt <= 4; attempt += 1) {
+        expect((await signIn(email, 'wrong-password-yy')).status).toBe(401);
+      }
+      expect((await signIn(email, SEED_PASSWORD)).status).toBe(200);
+    });
+  });
+
+  describe('access tokens the server must refuse', () => {
+    const me = (token: string) =>
+      request(t.url).get('/api/auth/me').set('Authorization', `Bearer ${token}`);
+
+    it('accepts a token it signed itself (control for the cases below)', async () => {
+      const token = forgeJwt({
+        header: { alg: 'HS256', typ: 'JWT' },
+        payload: accessPayload(t.seed.users.analyst.id),
+        secret: TEST_JWT_SECRET,
+      });
+      expect((await me(token)).status).toBe(200);
+    });
+
+    it('refuses alg: none (RFC 7518 §3.6 unsecured JWS)', async () => {
+      const token = forgeJwt({
+        header: { alg: 'none', typ: 'JWT' },
+        payload: accessPayload(t.seed.users.admin.id),
+      });
+      const response = await me(token);
+      expect(response.status).toBe(401);
+      expect(response.body.code).toBe('AUTH_TOKEN_INVALID');
+    });
+
+    it('refuses a token signed with another secret', async () => {
+      const token = forgeJwt({
+        header: { alg: 'HS256', typ: 'JWT' },
+        payload: accessPayload(t.seed.users.admin.id),
+        secret: 'some-other-secret-that-is-long-enough-1234567890',
+      });
+      expect((await me(token)).status).toBe(401);
+    });
+
+    it('refuses an expired token', async () => {
+      const token = forgeJwt({
+        header: { alg: 'HS256', typ: 'JWT' },
+        payload: accessPayload(t.seed.users.analyst.id, -60),
+        secret: TEST_JWT_SECRET,
+      });
+      expect((await me(token)).status).toBe(401);
+    });
+
+    it('refuses HS512 even with the right secret (HS256 only)', async () => {
+      const { createHmac } = await import('node:crypto');
+      const encode = (part: object) => Buffer.from(JSON.stringify(part)).toString('base64url');
+      const input = `${encode({ alg: 'HS512', typ: 'JWT' })}.${encode(accessPayload(t.seed.users.analyst.id))}`;
+      const token = `${input}.${createHmac('sha512', TEST_JWT_SECRET).update(input).digest('base64url')}`;
+      expect((await me(token)).status).toBe(401);
+    });
+
+    it('refuses a token whose signature was kept but payload changed (role escalation)', async () => {
+      const good = await t.tokenFor('technician');
+      const [header, , signature] = good.split('.');
+      const payload = Buffer.from(
+        JSON.stringify({ ...accessPayload(t.seed.users.admin.id), role: 'admin' }),
+      ).toString('base64url');
+      expect((await me(`${header}.${payload}.${signature}`)).status).toBe(401);
+    });
+  });
+
+  describe('refresh tokens', () => {
+    it('rotates on every use: the new cookie works, the old one is refused', async () => {
+      const first = refreshCookieOf(
+        await signIn(t.seed.users.technicianB.email, SEED_PASSWORD),
+      ).pair;
+      const refreshed = await request(t.url).post('/api/auth/refresh').set('Cookie', first);
+      expect(refreshed.status).toBe(200);
+      expect(typeof refreshed.body.accessToken).toBe('string');
+      const second = refreshCookieOf(refreshed).pair;
+      expect(second).not.toBe(first);
+      const third = await request(t.url).post('/api/auth/refresh').set('Cookie', second);
+      expect(third.status).toBe(200);
+      expect((await request(t.url).post('/api/auth/refresh').set('Cookie', first)).status).toBe(
+        401,
+      );
+    });
+
+    it('reuse of a rotated token revokes the whole family, including the newest token', async () => {
+      const first = refreshCookieOf(await signIn(t.seed.users.monitorB.email, SEED_PASSWORD)).pair;
+      const second = refreshCookieOf(
+        await request(t.url).post('/api/auth/refresh').set('Cookie', first),
+      ).pair;
+      const reuse = await request(t.url).post('/api/auth/refresh').set('Cookie', first);
+      expect(reuse.status).toBe(401);
+      expect(reuse.body.code).toBe('AUTH_REFRESH_REUSED');
+      const newest = await request(t.url).post('/api/auth/refresh').set('Cookie', second);
+      expect(newest.status).toBe(401);
+      expect(newest.body.code).toBe('AUTH_REFRESH_INVALID');
+      const [entry] = (await t.dataSource.query(
+        `SELECT "action", "actorId" FROM "audit_entry" WHERE "action" = 'refresh-reuse' ORDER BY "seq" DESC LIMIT 1`,
+      )) as { action: string; actorId: string }[];
+      expect(entry.actorId).toBe(t.seed.users.monitorB.id);
+    });
+
+    it('sign-out revokes the session on the server', async () => {
+      const cookie = refreshCookieOf(
+        await signIn(t.seed.users.coordinatorA2.email, SEED_PASSWORD),
+      ).pair;
+      expect((await request(t.url).post('/api/auth/sign-out').set('Cookie', cookie)).status).toBe(
+        204,
+      );
+      const after = await request(t.url).post('/api/auth/refresh').set('Cookie', cookie);
+      expect(after.status).toBe(401);
+    });
+
+    it('refuses a missing or made-up refresh cookie', async () => {
+      const missing = await request(t.url).post('/api/auth/refresh');
+      expect(missing.status).toBe(401);
+      expect(missing.body.code).toBe('AUTH_REFRESH_MISSING');
+      const madeUp = await request(t.url)
+        .post('/api/auth/refresh')
+        .set('Cookie', `${REFRESH_COOKIE}=abc`);
+      expect(madeUp.status).toBe(401);
+    });
+
+    it('a password change ends every session of the user', async () => {
+      const email = t.seed.users.technicianA2.email;
+      const session = await signIn(email, SEED_PASSWORD);
+      const cookie = refreshCookieOf(session).pair;
+      const otherDevice = refreshCookieOf(await signIn(email, SEED_PASSWORD)).pair;
+      const newPassword = 'teal-river-88-onset-window';
+      const change = await request(t.url)
+        .post('/api/auth/password')
+        .set('Authorization', `Bearer ${session.body.accessToken as string}`)
+        .send({ currentPassword: SEED_PASSWORD, newPassword });
+      expect(change.status).toBe(204);
+      for (const c of [cookie, otherDevice]) {
+        expect((await request(t.url).post('/api/auth/refresh').set('Cookie', c)).status).toBe(401);
+      }
+      expect((await signIn(email, SEED_PASSWORD)).status).toBe(401);
+      expect((await signIn(email, newPassword)).status).toBe(200);
+    });
+
+    it('refuses a short or common new password, naming the field', async () => {
+      const token = await t.tokenFor('analyst');
+      for (const newPassword of ['short-pw', 'password1234', 'Qwerty123456']) {
+        const response = await request(t.url)
+          .post('/api/auth/password')
+          .set('Authorization', `Bearer ${token}`)
+          .send({ currentPassword: SEED_PASSWORD, newPassword });
+        expect(response.status).toBe(400);
+        expect(response.body.code).toBe('AUTH_PASSWORD_TOO_WEAK');
+        expect(response.body.message).toMatch(/^newPassword: /);
+      }
+    });
+
+    it('deactivation by an admin ends the sessions and refuses the access token at once', async () => {
+      const email = t.seed.users.coordinator.email;
+      const session = await signIn(email, SEED_PASSWORD);
+      const cookie = refreshCookieOf(session).pair;
+      const deactivate = await request(t.url)
+        .patch(`/api/users/${t.seed.users.coordinator.id}`)
+        .set(await t.authHeader('admin'))
+        .send({ state: 'deactivated', reason: 'left the study' });
+      expect(deactivate.status).toBe(200);
+      expect(deactivate.body.state).toBe('deactivated');
+      expect((await request(t.url).post('/api/auth/refresh').set('Cookie', cookie)).status).toBe(
+        401,
+      );
+      const me = await request(t.url)
+        .get('/api/auth/me')
+        .set('Authorization', `Bearer ${session.body.accessToken as string}`);
+      expect(me.status).toBe(401);
+      expect((await signIn(email, SEED_PASSWORD)).status).toBe(401);
+    });
+  });
+
+  describe('GET /api/auth/me', () => {
+    it('returns user, study, site and packed rules that unpack to the role’s ability', async () => {
+      const response = await request(t.url)
+        .get('/api/auth/me')
+        .set(await t.authHeader('technician'));
+      expect(response.status).toBe(200);
+      expect(response.body.user.id).toBe(t.seed.users.technician.id);
+      expect(response.body.study.id).toBe(t.seed.studies.A.id);
+      expect(response.body.site.id).toBe(t.seed.sites.A1.id);
+      const ability = abilityFromPackedRules(response.body.rules as PackedRules);
+      expect(ability.can('upload', 'Recording')).toBe(true);
+      expect(ability.can('read', 'Result')).toBe(false);
+      expect(JSON.stringify(response.body)).not.toMatch(/passwordHash|failedSignIns/);
+    });
+
+    it('an admin has no study and no site', async () => {
+      const response = await request(t.url)
+        .get('/api/auth/me')
+        .set(await t.authHeader('admin'));
+      expect(response.body.study).toBeNull();
+      expect(response.body.site).toBeNull();
+    });
+  });
+
+  describe('audit of sign-ins', () => {
+    it('records sign-in and failed sign-in with the client address', async () => {
+      await signIn(t.seed.users.monitor.email, 'wrong-password-audit');
+      await signIn(t.seed.users.monitor.email, SEED_PASSWORD);
+      const rows = (await t.dataSource.query(
+        `SELECT "action", "reason", "clientIp" FROM "audit_entry" WHERE "actorId" = ? ORDER BY "seq"`,
+        [t.seed.users.monitor.id],
+      )) as { action: string; reason: string | null; clientIp: string }[];
+      const actions = rows.map((row) => row.action);
+      expect(actions).toContain('sign-in-failed');
+      expect(actions).toContain('sign-in');
+      expect(rows.every((row) => /127\.0\.0\.1/.test(row.clientIp))).toBe(true);
+      expect(rows.find((row) => row.action === 'sign-in-failed')?.reason).toBe('wrong password');
+    });
+  });
+});
+
+describe('throttling of /api/auth/*', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await startTestApp({ seed: false });
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  it('answers 429 once an address exceeds 60 requests a minute', async () => {
+    const statuses: number[] = [];
+    for (let i = 0; i < 61; i += 1) {
+      statuses.push((await request(t.url).post('/api/auth/refresh')).status);
+    }
+    expect(statuses.slice(0, 60).every((status) => status === 401)).toBe(true);
+    expect(statuses[60]).toBe(429);
+    // Other routes are not throttled by it.
+    expect((await request(t.url).get('/api/health')).status).toBe(200);
+  });
+});
