@@ -9,6 +9,9 @@ import { HomePage } from '../features/home/home-page';
 import { IntakePage } from '../features/intake/components/intake-page';
 import { LedgerPage } from '../features/ledger/components/ledger-page';
 import { ReportsPage } from '../features/reports/components/reports-page';
+import { ParticipantPage } from '../features/participants/components/participant-page';
+import { ParticipantsPage } from '../features/participants/components/participants-page';
+import { ReviewPage } from '../features/review/components/review-page';
 import { OutboxPage } from '../features/team/components/outbox-page';
 import { TeamPage } from '../features/team/components/team-page';
 import { paths } from './paths';
@@ -58,7 +61,21 @@ const SCREENS: ScreenRoute[] = [
  * Screens of `features/review` and `features/participants`: add them here (and their menu
  * entries in `navigation.ts`). Review needs ['read', 'Result'].
  */
-const REVIEW_AND_PARTICIPANT_SCREENS: ScreenRoute[] = [];
+const REVIEW_AND_PARTICIPANT_SCREENS: ScreenRoute[] = [
+  { path: paths.review(), screen: 'Review', requires: ['read', 'Result'], element: <ReviewPage /> },
+  {
+    path: paths.participants,
+    screen: 'Participants',
+    requires: ['read', 'Result'],
+    element: <ParticipantsPage />,
+  },
+  {
+    path: paths.participant(),
+    screen: 'The participant trajectory',
+    requires: ['read', 'Result'],
+    element: <ParticipantPage />,
+  },
+];
 
 function guarded({ path, screen, requires, element }: ScreenRoute): RouteObject {
   return {

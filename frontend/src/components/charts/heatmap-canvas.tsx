@@ -170,19 +170,25 @@ export function HeatmapCanvas({
           aria-hidden="true"
         />
         <div className="gyre-figures" style={{ position: 'relative', height: 18, fontSize: 12 }}>
-          {legendTicks.map((t) => (
-            <span
-              key={t}
-              style={{
-                position: 'absolute',
-                left: `${((t - colourDomain[0]) / legendSpan) * 100}%`,
-                transform: 'translateX(-50%)',
-                top: 2,
-              }}
-            >
-              {formatLegend(t)}
-            </span>
-          ))}
+          {legendTicks.map((t) => {
+            const at = (t - colourDomain[0]) / legendSpan;
+            // End labels align inwards so that none spills past the bar.
+            const shift = at <= 0.001 ? '0' : at >= 0.999 ? '-100%' : '-50%';
+            return (
+              <span
+                key={t}
+                style={{
+                  position: 'absolute',
+                  left: `${at * 100}%`,
+                  transform: `translateX(${shift})`,
+                  top: 2,
+                  whiteSpace: 'nowrap',
+                }}
+              >
+                {formatLegend(t)}
+              </span>
+            );
+          })}
         </div>
       </div>
     </figure>

@@ -2,7 +2,7 @@ import type { Page, ParticipantView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
 
-export const PARTICIPANT_SORTS = ['code', 'createdAt', 'updatedAt'] as const;
+export const PARTICIPANT_SORTS = ['code', 'createdAt'] as const;
 export type ParticipantSort = (typeof PARTICIPANT_SORTS)[number];
 
 export interface ParticipantQuery {
@@ -21,7 +21,7 @@ export const participantsKey = (query: ParticipantQuery) =>
     pageSize: query.pageSize,
     sort: query.sort,
     order: query.order,
-    search: query.search.trim(),
+    q: query.search.trim(),
   });
 
 export function getParticipants(query: ParticipantQuery): Promise<Page<ParticipantView>> {

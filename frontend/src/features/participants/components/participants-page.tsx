@@ -146,8 +146,6 @@ export function ParticipantsPage() {
               {
                 key: 'updatedAt',
                 title: 'Last change',
-                sorter: true,
-                sortOrder: sortOrder('updatedAt'),
                 render: (_, row) => formatDate(row.updatedAt),
               },
             ]}

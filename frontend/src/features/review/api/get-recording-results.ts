@@ -1,19 +1,22 @@
 import type { RecordingResultsDto } from '@gyre/shared';
 import useSWR from 'swr';
-import { apiFetch } from '../../../lib/api-client';
+import { apiFetch, withQuery } from '../../../lib/api-client';
 
-/** `GET /api/recordings/:recordingId/results`: the latest run's results. */
-export const recordingResultsKey = (recordingId: string) =>
-  `/api/recordings/${encodeURIComponent(recordingId)}/results`;
+/** `GET /api/recordings/:recordingId/results?runId=`: one run's results (the latest without runId). */
+export const recordingResultsKey = (recordingId: string, runId: string) =>
+  withQuery(`/api/recordings/${encodeURIComponent(recordingId)}/results`, { runId });
 
-export function getRecordingResults(recordingId: string): Promise<RecordingResultsDto> {
-  return apiFetch<RecordingResultsDto>(recordingResultsKey(recordingId));
+export function getRecordingResults(
+  recordingId: string,
+  runId: string,
+): Promise<RecordingResultsDto> {
+  return apiFetch<RecordingResultsDto>(recordingResultsKey(recordingId, runId));
 }
 
-/** `runId` is part of the cache entry so that a new run replaces the old results at once. */
+/** Asked by run, so that a new run is a new cache entry and old results never linger under it. */
 export function useRecordingResults(recordingId: string | null, runId: string | null) {
   return useSWR<RecordingResultsDto>(
-    recordingId === null || runId === null ? null : [recordingResultsKey(recordingId), runId],
-    () => getRecordingResults(recordingId ?? ''),
+    recordingId === null || runId === null ? null : recordingResultsKey(recordingId, runId),
+    () => getRecordingResults(recordingId ?? '', runId ?? ''),
   );
 }

@@ -25,14 +25,8 @@ function byNumber(pick: (row: ChannelStatsDto) => number | null) {
   };
 }
 
-/** Per-channel results; the kind of recording decides which columns apply. */
-export function ChannelTable({
-  channels,
-  kind,
-}: {
-  channels: ChannelStatsDto[];
-  kind: 'task' | 'resting';
-}) {
+/** Per-channel onset results of the task recording; every column sorts. */
+export function ChannelTable({ channels }: { channels: ChannelStatsDto[] }) {
   const name: TableColumnsType<ChannelStatsDto>[number] = {
     title: 'Channel',
     key: 'label',
@@ -64,39 +58,36 @@ export function ChannelTable({
     defaultSortOrder,
     render: (_, row) => formatHz(pick(row)),
   });
-  const columns: TableColumnsType<ChannelStatsDto> =
-    kind === 'task'
-      ? [
-          name,
-          hzColumn('Baseline', 'baselineHz', (r) => r.baselineHz),
-          hzColumn('Post', 'postHz', (r) => r.postHz),
-          hzColumn('Δf', 'deltaFHz', (r) => r.deltaFHz, 'ascend'),
-          {
-            title: '95 % CI of Δf',
-            key: 'ciHz',
-            align: 'right',
-            sorter: byNumber((r) => r.ciHz?.[0] ?? null),
-            render: (_, row) => formatCi(row.ciHz),
-          },
-          {
-            title: 'p (Wilcoxon)',
-            key: 'pValue',
-            align: 'right',
-            sorter: byNumber((r) => r.pValue),
-            render: (_, row) => formatPValue(row.pValue),
-          },
-          {
-            title: 'Trials kept',
-            key: 'trials',
-            align: 'right',
-            sorter: byNumber((r) => r.trials),
-            render: (_, row) => (row.trials === null ? '—' : String(row.trials)),
-          },
-        ]
-      : [name, hzColumn('PAF', 'pafHz', (r) => r.pafHz), hzColumn('CoG', 'cogHz', (r) => r.cogHz)];
+  const columns: TableColumnsType<ChannelStatsDto> = [
+    name,
+    hzColumn('Baseline', 'baselineHz', (r) => r.baselineHz),
+    hzColumn('Post', 'postHz', (r) => r.postHz),
+    hzColumn('Δf', 'deltaFHz', (r) => r.deltaFHz, 'ascend'),
+    {
+      title: '95 % CI of Δf',
+      key: 'ciHz',
+      align: 'right',
+      sorter: byNumber((r) => r.ciHz?.[0] ?? null),
+      render: (_, row) => formatCi(row.ciHz),
+    },
+    {
+      title: 'p (Wilcoxon)',
+      key: 'pValue',
+      align: 'right',
+      sorter: byNumber((r) => r.pValue),
+      render: (_, row) => formatPValue(row.pValue),
+    },
+    {
+      title: 'Trials kept',
+      key: 'trials',
+      align: 'right',
+      sorter: byNumber((r) => r.trials),
+      render: (_, row) => (row.trials === null ? '—' : String(row.trials)),
+    },
+  ];
   return (
     <Table<ChannelStatsDto>
-      aria-label={kind === 'task' ? 'Per-channel task results' : 'Per-channel rest results'}
+      aria-label="Per-channel task results"
       rowKey="label"
       size="small"
       columns={columns}

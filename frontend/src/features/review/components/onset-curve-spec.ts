@@ -114,7 +114,14 @@ export function onsetCurveSpec(options: {
         data: [0],
         style: { stroke: GYRE_COLORS.ink, lineDash: [4, 3], lineWidth: 1.5 },
         labels: [
-          { text: 'Onset', position: 'top-right', dx: 4, fill: GYRE_COLORS.ink, fontSize: 11 },
+          {
+            text: 'Onset',
+            position: 'bottom-right',
+            dx: 4,
+            dy: -4,
+            fill: GYRE_COLORS.ink,
+            fontSize: 11,
+          },
         ],
         tooltip: false,
       },

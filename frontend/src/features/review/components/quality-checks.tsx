@@ -1,6 +1,7 @@
 import type { QualityDto } from '@gyre/shared';
 import { Alert, Flex, Table, Tag } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
+import { ChannelQualityTable } from './channel-quality-table';
 import { qualityFindings, type QualityFinding } from './quality-findings';
 
 /** The quality checks of one recording, with warnings in plain words. */
@@ -56,6 +57,10 @@ export function QualityChecks({
               ),
           },
         ]}
+      />
+      <ChannelQualityTable
+        channels={quality.channels}
+        label={`Channel checks, ${kind === 'task' ? 'task' : 'resting'} recording`}
       />
     </Flex>
   );

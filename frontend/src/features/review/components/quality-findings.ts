@@ -9,6 +9,11 @@ export interface QualityFinding {
 
 const list = (names: string[]) => names.join(', ');
 const percent = (share: number) => `${(share * 100).toFixed(1)} %`;
+const ratio = (value: number | null) => (value === null ? '—' : value.toFixed(2));
+const rates = (ratesHz: number[]) => {
+  const distinct = [...new Set(ratesHz)].sort((a, b) => a - b);
+  return distinct.length === 0 ? '—' : distinct.map((r) => `${r.toFixed(0)} Hz`).join(', ');
+};
 
 /**
  * The quality checks of METHOD.md §6 in plain words. The limits that turn a value into a
@@ -28,15 +33,19 @@ export function qualityFindings(quality: QualityDto, kind: 'task' | 'resting'): 
     },
     {
       check: 'Sampling rate',
-      value: `${quality.sampleRateHz.toFixed(0)} Hz`,
+      value: rates(quality.sampleRatesHz),
       warning:
-        quality.sampleRateHz < 100
+        quality.sampleRatesHz.length > 0 && Math.min(...quality.sampleRatesHz) < 100
           ? 'The sampling rate is low for alpha work; frequencies near the band edges may be distorted.'
           : null,
     },
     {
       check: 'Region-of-interest channels found',
-      value: quality.roiChannelsFound.length === 0 ? 'none' : list(quality.roiChannelsFound),
+      value:
+        (quality.roiChannelsFound.length === 0 ? 'none' : list(quality.roiChannelsFound)) +
+        (quality.roiChannelsMissing.length === 0
+          ? ''
+          : ` (missing: ${list(quality.roiChannelsMissing)})`),
       warning:
         quality.roiChannelsFound.length === 0
           ? 'None of the region-of-interest channels is in the file, so there is no ROI result.'
@@ -61,11 +70,8 @@ export function qualityFindings(quality: QualityDto, kind: 'task' | 'resting'): 
           : `${list(quality.saturatedChannels)} reached the amplifier's limits: parts of the signal are clipped.`,
     },
     {
-      check: 'Line noise',
-      value:
-        quality.lineNoiseRatio === null
-          ? '—'
-          : `${quality.lineNoiseRatio.toFixed(2)} (power ratio at ${quality.lineFrequencyHz?.toFixed(0) ?? '50/60'} Hz)`,
+      check: 'Line noise (50 Hz / 60 Hz)',
+      value: `${ratio(quality.lineNoiseRatio50Hz)} / ${ratio(quality.lineNoiseRatio60Hz)} (median power ratio over channels)`,
       warning: null,
     },
   ];
@@ -80,10 +86,10 @@ export function qualityFindings(quality: QualityDto, kind: 'task' | 'resting'): 
             : null,
       },
       {
-        check: 'Phase-slip rate',
-        value: quality.phaseSlipRate === null ? '—' : percent(quality.phaseSlipRate),
+        check: 'Phase slips',
+        value: quality.phaseSlipShare === null ? '—' : percent(quality.phaseSlipShare),
         warning:
-          quality.phaseSlipRate !== null && quality.phaseSlipRate > 0.1
+          quality.phaseSlipShare !== null && quality.phaseSlipShare > 0.1
             ? 'Many instantaneous-frequency samples fall outside the band: the alpha rhythm may be weak here.'
             : null,
       },
@@ -92,8 +98,14 @@ export function qualityFindings(quality: QualityDto, kind: 'task' | 'resting'): 
   if (kind === 'resting') {
     findings.push({
       check: 'Alpha peak prominence',
-      value: quality.alphaPeakProminence === null ? '—' : quality.alphaPeakProminence.toFixed(2),
-      warning: null,
+      value:
+        quality.alphaPeakProminenceDb === null
+          ? 'no clear peak'
+          : `${quality.alphaPeakProminenceDb.toFixed(1)} dB over the background`,
+      warning:
+        quality.alphaPeakProminenceDb === null
+          ? 'No alpha peak stands out of the background, so the PAF is not given; the CoG still is.'
+          : null,
     });
   }
   return findings;

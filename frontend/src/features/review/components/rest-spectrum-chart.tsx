@@ -40,6 +40,12 @@ export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsDto; ro
           </Typography.Text>{' '}
           {formatHz(rest.cogHz)}
         </span>
+        {rest.prominenceDb !== null && (
+          <span>
+            <Typography.Text strong>Peak prominence</Typography.Text> {rest.prominenceDb.toFixed(1)}{' '}
+            dB
+          </span>
+        )}
         <Typography.Text type="secondary">
           Alpha window {rest.alphaWindowHz[0].toFixed(1)}–{rest.alphaWindowHz[1].toFixed(1)} Hz ·{' '}
           {roiLabel}

@@ -77,14 +77,22 @@ export function restSpectrumSpec(options: {
     children.push(marker(pafHz, PAF_COLOUR, `PAF ${pafHz.toFixed(2)} Hz`, 'top-left'));
   if (cogHz !== null)
     children.push(marker(cogHz, COG_COLOUR, `CoG ${cogHz.toFixed(2)} Hz`, 'bottom-right'));
-  if (pafHz === null) {
+  if (pafHz === null && points.length > 0) {
+    // Placed just above the spectrum's highest point, so it never hides the curve.
+    const top = Math.max(...points.map((p) => p.powerUv2PerHz));
     children.push({
       type: 'text',
-      data: [{ x: (alphaWindowHz[0] + alphaWindowHz[1]) / 2, text: 'No clear peak' }],
-      encode: { x: 'x', text: 'text' },
+      data: [
+        {
+          frequencyHz: (alphaWindowHz[0] + alphaWindowHz[1]) / 2,
+          powerUv2PerHz: top,
+          text: 'No clear peak',
+        },
+      ],
+      encode: { x: 'frequencyHz', y: 'powerUv2PerHz', text: 'text' },
       style: {
-        y: '12%',
         textAlign: 'center',
+        dy: -4,
         fill: GYRE_COLORS.amber,
         fontSize: 12,
         fontWeight: 600,

@@ -25,6 +25,7 @@ import { useVisitRecordings } from '../api/get-visit-recordings';
 import { useVisitReport } from '../api/get-visit-report';
 import { raiseFlag } from '../api/raise-flag';
 import { rerunRecording } from '../api/rerun-recording';
+import { rerunVisit } from '../api/rerun-visit';
 import { ChannelTable } from './channel-table';
 import { FlagPanel } from './flag-panel';
 import { OnsetCurveChart } from './onset-curve-chart';
@@ -71,7 +72,12 @@ function StaleNotice({
       title={`Computed with settings version ${results.run.settingsVersion}; the study's current version is ${current.version}.`}
       action={
         canRerun ? (
-          <Button size="small" onClick={() => void rerunRecording(recording)}>
+          <Button
+            size="small"
+            onClick={() =>
+              void rerunRecording(recording, `Bring up to settings version ${current.version}`)
+            }
+          >
             Re-run with version {current.version}
           </Button>
         ) : undefined
@@ -151,13 +157,8 @@ export function ReviewPage() {
   const code = participant.data?.code ?? '…';
 
   const saveSettings = async (change: AnalysisSettingsChange) => {
-    await createAnalysisSettings(visit.data?.studyId ?? '', change);
-    // Resting first: the task band may follow the visit's resting IAF.
-    for (const recording of [rest, task]) {
-      if (recording !== null && (recording.state === 'ready' || recording.state === 'failed')) {
-        await rerunRecording(recording);
-      }
-    }
+    const created = await createAnalysisSettings(visit.data?.studyId ?? '', change);
+    await rerunVisit(visitId, `Settings version ${created.version}: ${change.reason}`);
   };
 
   return (
@@ -266,29 +267,10 @@ export function ReviewPage() {
                   )}
                 </ResultsOf>
               </Card>
-              <Card title="Per channel" aria-label="Per-channel results">
-                <Tabs
-                  items={[
-                    {
-                      key: 'task',
-                      label: 'Task',
-                      children: (
-                        <ResultsOf recording={task} kindName="task">
-                          {(results) => <ChannelTable channels={results.channels} kind="task" />}
-                        </ResultsOf>
-                      ),
-                    },
-                    {
-                      key: 'rest',
-                      label: 'Rest',
-                      children: (
-                        <ResultsOf recording={rest} kindName="resting">
-                          {(results) => <ChannelTable channels={results.channels} kind="resting" />}
-                        </ResultsOf>
-                      ),
-                    },
-                  ]}
-                />
+              <Card title="Per channel: task" aria-label="Per-channel results">
+                <ResultsOf recording={task} kindName="task">
+                  {(results) => <ChannelTable channels={results.channels} />}
+                </ResultsOf>
               </Card>
               <Card title="Quality checks" aria-label="Quality checks">
                 <Tabs
