@@ -8,7 +8,7 @@ import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { isUniqueViolation } from '../common/errors/unique-violation';
+import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { containsText } from '../common/pagination/text-filter';
@@ -95,6 +95,12 @@ export class ParticipantsService {
   ): Promise<ParticipantView> {
     try {
       return await this.writes.run(async (manager) => {
+        await assertUnique(
+          manager,
+          Participant,
+          { studyId: participant.studyId, code: participant.code },
+          participant.id,
+        );
         await manager.save(Participant, participant);
         const view = toParticipantView(participant);
         await this.audit.record({

@@ -8,7 +8,7 @@ import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { isUniqueViolation } from '../common/errors/unique-violation';
+import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { containsText } from '../common/pagination/text-filter';
@@ -115,6 +115,7 @@ export class SitesService {
   private async save(caller: Caller, before: Site | null, site: Site): Promise<SiteView> {
     try {
       return await this.writes.run(async (manager) => {
+        await assertUnique(manager, Site, { studyId: site.studyId, code: site.code }, site.id);
         await manager.save(Site, site);
         const view = toSiteView(site);
         await this.audit.record({

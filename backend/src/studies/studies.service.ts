@@ -8,7 +8,7 @@ import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { isUniqueViolation } from '../common/errors/unique-violation';
+import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { containsText } from '../common/pagination/text-filter';
@@ -76,6 +76,7 @@ export class StudiesService {
   private async save(caller: Caller, before: Study | null, study: Study): Promise<StudyView> {
     try {
       return await this.writes.run(async (manager) => {
+        await assertUnique(manager, Study, { code: study.code }, study.id);
         await manager.save(Study, study);
         const view = toStudyView(study);
         await this.audit.record({

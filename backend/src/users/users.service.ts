@@ -70,6 +70,8 @@ export class UsersService {
     const at = nowIso();
     const user = await this.writes
       .run(async (manager) => {
+        // Checked first so that the usual case is a clean 409, not a logged constraint error.
+        if (await manager.existsBy(User, { email: dto.email })) throw emailTaken(dto.email);
         const membership = await this.checkMembership(
           manager,
           dto.role,
@@ -106,17 +108,7 @@ export class UsersService {
         return created;
       })
       .catch((error: unknown) => {
-        if (isUniqueViolation(error)) {
-          throw new GyreException(
-            ErrorKind.Conflict,
-            UsersError.EmailTaken,
-            `email: ${dto.email} already has an account`,
-            {
-              field: 'email',
-              value: dto.email,
-            },
-          );
-        }
+        if (isUniqueViolation(error)) throw emailTaken(dto.email);
         throw error;
       });
     this.outbox.kick();
@@ -282,4 +274,16 @@ export class UsersService {
     }
     return user;
   }
+}
+
+function emailTaken(email: string): GyreException {
+  return new GyreException(
+    ErrorKind.Conflict,
+    UsersError.EmailTaken,
+    `email: ${email} already has an account`,
+    {
+      field: 'email',
+      value: email,
+    },
+  );
 }

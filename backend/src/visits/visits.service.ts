@@ -9,7 +9,7 @@ import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { isUniqueViolation } from '../common/errors/unique-violation';
+import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
@@ -88,6 +88,12 @@ export class VisitsService {
   ): Promise<VisitView> {
     try {
       return await this.writes.run(async (manager) => {
+        await assertUnique(
+          manager,
+          Visit,
+          { participantId: visit.participantId, label: visit.label },
+          visit.id,
+        );
         await manager.save(Visit, visit);
         const view = toVisitView(visit);
         await this.audit.record({
