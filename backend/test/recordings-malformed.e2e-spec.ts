@@ -1,0 +1,242 @@
+/**
+ * Malformed uploads, built byte by byte or by corrupting a generated valid EDF+ file at the
+ * offsets of the EDF/EDF+ specification (Kemp et al. 1992; Kemp & Olivan 2003). Each must
+ * end `rejected` with the reader's message and leave nothing but the rejected row and its
+ * audit entry: no file on disk, no job, no run, no report.
+ */
+import { createHash } from 'node:crypto';
+import { readdirSync } from 'node:fs';
+import { join } from 'node:path';
+import request from 'supertest';
+import type { RecordingDto } from '@gyre/shared';
+import { blankPatientField } from '../src/signal/edf';
+import { startTestApp, TestApp } from './helpers/test-app';
+import { syntheticTaskEdf, upload } from './recordings-fixtures';
+
+/** Generated valid file: 10 s, 2 EEG channels + the EDF+ annotation signal, onsets at 3 and 6 s. */
+const VALID = syntheticTaskEdf({
+  durationS: 10,
+  channels: ['EEG O1-REF', 'EEG O2-REF'],
+  onsetsS: [3, 6],
+});
+const SIGNALS = 3;
+/** Per-signal header fields and widths in file order (Kemp et al. 1992). */
+const SIGNAL_FIELDS: Array<[string, number]> = [
+  ['label', 16],
+  ['transducer', 80],
+  ['dimension', 8],
+  ['physicalMin', 8],
+  ['physicalMax', 8],
+  ['digitalMin', 8],
+  ['digitalMax', 8],
+  ['prefiltering', 80],
+  ['samples', 8],
+  ['reserved', 32],
+];
+
+function signalFieldOffset(field: string, signal: number): number {
+  let offset = 256;
+  for (const [name, width] of SIGNAL_FIELDS) {
+    if (name === field) return offset + width * signal;
+    offset += width * SIGNALS;
+  }
+  throw new Error(field);
+}
+
+function widthOf(field: string): number {
+  return SIGNAL_FIELDS.find(([name]) => name === field)?.[1] ?? 0;
+}
+
+/** A copy of the valid file with an ASCII field overwritten, space padded. */
+function withField(offset: number, width: number, text: string): Uint8Array {
+  const bytes = Uint8Array.from(VALID);
+  const padded = text.padEnd(width, ' ');
+  for (let i = 0; i < width; i++) bytes[offset + i] = padded.charCodeAt(i);
+  return bytes;
+}
+
+const withSignalField = (field: string, signal: number, text: string): Uint8Array =>
+  withField(signalFieldOffset(field, signal), widthOf(field), text);
+
+/** The first TAL of record 0 starts with '+0' (Kemp & Olivan 2003); break its sign. */
+function withBrokenTal(): Uint8Array {
+  const bytes = Uint8Array.from(VALID);
+  const headerBytes = 256 * (1 + SIGNALS);
+  const tal = Buffer.from(bytes).indexOf(Buffer.from('+0\x14\x14', 'latin1'), headerBytes);
+  if (tal < 0) throw new Error('no time-keeping TAL found');
+  bytes[tal] = 'x'.charCodeAt(0);
+  return bytes;
+}
+
+interface Case {
+  name: string;
+  bytes: Uint8Array;
+  kind?: 'task' | 'resting';
+  onsetsCsv?: string;
+  /** Part of the message: the field the reader names. */
+  field: RegExp;
+}
+
+const CASES: Case[] = [
+  { name: 'an empty file', bytes: new Uint8Array(0), field: /file length/ },
+  { name: 'a short text file', bytes: Buffer.from('onset_s,label\n1,go\n'), field: /file length/ },
+  { name: "version '1'", bytes: withField(0, 8, '1'), field: /version/ },
+  {
+    name: 'a BDF (24-bit) header',
+    bytes: (() => {
+      const b = Uint8Array.from(VALID);
+      b.set([0xff, ...Buffer.from('BIOSEMI', 'latin1')], 0);
+      return b;
+    })(),
+    field: /version/,
+  },
+  {
+    name: 'header bytes disagreeing with the signal count',
+    bytes: withField(184, 8, '999'),
+    field: /header bytes/,
+  },
+  { name: 'zero signals', bytes: withField(252, 4, '0'), field: /number of signals/ },
+  {
+    name: 'a non-numeric signal count',
+    bytes: withField(252, 4, 'ab'),
+    field: /number of signals/,
+  },
+  { name: 'a record count of −1', bytes: withField(236, 8, '-1'), field: /number of data records/ },
+  {
+    name: 'more records than the file holds',
+    bytes: withField(236, 8, '11'),
+    field: /file length|data records/,
+  },
+  {
+    name: 'a truncated data section',
+    bytes: VALID.subarray(0, VALID.byteLength - 100),
+    field: /file length|data records/,
+  },
+  {
+    name: 'a record duration of 0',
+    bytes: withField(244, 8, '0'),
+    field: /duration of a data record/,
+  },
+  {
+    name: 'digital minimum ≥ digital maximum',
+    bytes: withSignalField('digitalMin', 0, '40000'),
+    field: /digital/,
+  },
+  {
+    name: 'physical minimum = physical maximum',
+    bytes: withSignalField('physicalMax', 1, '-500'),
+    field: /physical/,
+  },
+  {
+    name: 'non-numeric samples per record',
+    bytes: withSignalField('samples', 0, 'many'),
+    field: /samples/,
+  },
+  {
+    name: 'a non-ASCII byte in a signal label',
+    bytes: (() => {
+      const b = Uint8Array.from(VALID);
+      b[signalFieldOffset('label', 0) + 3] = 0xe9;
+      return b;
+    })(),
+    field: /label|ASCII|printable/i,
+  },
+  { name: 'a broken EDF+ annotation (TAL)', bytes: withBrokenTal(), field: /annotation|TAL/i },
+  {
+    name: 'a task recording without any onsets',
+    bytes: syntheticTaskEdf({ durationS: 10, channels: ['EEG O1-REF'], annotate: false }),
+    field: /onsets/,
+  },
+  {
+    name: 'an onset CSV with an onset after the recording ends',
+    bytes: syntheticTaskEdf({ durationS: 10, channels: ['EEG O1-REF'], annotate: false, seed: 2 }),
+    onsetsCsv: 'onset_s,label\n3,stimulus\n42,stimulus\n',
+    field: /onset CSV, line 3/,
+  },
+  {
+    name: 'an onset CSV with the wrong header',
+    bytes: syntheticTaskEdf({ durationS: 10, channels: ['EEG O1-REF'], annotate: false, seed: 3 }),
+    onsetsCsv: 'time,label\n3,stimulus\n',
+    field: /onset CSV, line 1/,
+  },
+];
+
+describe('malformed uploads', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await startTestApp();
+    await t.authHeader('technician'); // the sign-in writes its own audit entry; do it first
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  const count = async (table: string): Promise<number> =>
+    Number(
+      (
+        (await t.dataSource.query(`SELECT count(*) AS n FROM "${table}"`)) as Array<{ n: number }>
+      )[0].n,
+    );
+
+  it.each(CASES.map((c) => [c.name, c] as const))(
+    'rejects %s with the reader’s message',
+    async (_name, c) => {
+      const auditBefore = await count('audit_entry');
+      const recordingsBefore = await count('recording');
+      const response = await upload(t, 'technician', t.seed.visits.A1.id, {
+        kind: c.kind ?? 'task',
+        bytes: c.bytes,
+        onsetsCsv: c.onsetsCsv,
+      });
+      expect(response.status).toBe(422);
+      expect(response.body.code).toBe('RECORDING_REJECTED');
+      expect(response.body.message).toMatch(c.field);
+      // The message says what was found and what was expected.
+      expect(response.body.message).toMatch(/found, .* expected/);
+      const recording = response.body.details.recording as RecordingDto;
+      expect(recording.state).toBe('rejected');
+      expect(recording.rejection?.message).toBe(response.body.message);
+      // The checksum is of the bytes as they would have been stored (patient field blanked).
+      const blanked = Buffer.from(c.bytes);
+      if (blanked.byteLength >= 256) blankPatientField(blanked);
+      else if (blanked.byteLength > 8) blanked.fill(0x20, 8, Math.min(88, blanked.byteLength));
+      expect(recording.checksumSha256).toBe(createHash('sha256').update(blanked).digest('hex'));
+
+      const stored = await request(t.url)
+        .get(`/api/recordings/${recording.id}`)
+        .set(await t.authHeader('technician'));
+      expect(stored.body).toMatchObject({
+        state: 'rejected',
+        facts: null,
+        latestJob: null,
+        latestRunId: null,
+      });
+
+      // Nothing else: one new row, one new audit entry, no file, no job, no run, no report.
+      expect(await count('recording')).toBe(recordingsBefore + 1);
+      expect(await count('audit_entry')).toBe(auditBefore + 1);
+      const [entry] = (await t.dataSource.query(
+        `SELECT "action", "objectType", "objectId", "reason" FROM "audit_entry" ORDER BY "seq" DESC LIMIT 1`,
+      )) as Array<{ action: string; objectType: string; objectId: string; reason: string }>;
+      expect(entry).toEqual({
+        action: 'reject',
+        objectType: 'Recording',
+        objectId: recording.id,
+        reason: response.body.message,
+      });
+      for (const table of ['job', 'analysis_run', 'report', 'flag'])
+        expect(await count(table)).toBe(0);
+      expect(readdirSync(t.config.uploadsDir).filter((f) => f !== 'tmp')).toEqual([]);
+      expect(readdirSync(join(t.config.uploadsDir, 'tmp'))).toEqual([]);
+    },
+  );
+
+  it('lets the technician upload the corrected file afterwards (a rejection does not block it)', async () => {
+    const fixed = await upload(t, 'technician', t.seed.visits.A1.id, {
+      kind: 'task',
+      bytes: VALID,
+    });
+    expect(fixed.status).toBe(201);
+    expect(CASES.length).toBeGreaterThanOrEqual(10);
+  });
+});
