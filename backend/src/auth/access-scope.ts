@@ -1,4 +1,14 @@
-import { Brackets, FindOptionsWhere, In, IsNull, ObjectLiteral, SelectQueryBuilder } from 'typeorm';
+import {
+  And,
+  Brackets,
+  Equal,
+  FindOperator,
+  FindOptionsWhere,
+  In,
+  IsNull,
+  ObjectLiteral,
+  SelectQueryBuilder,
+} from 'typeorm';
 import type { Action, AppAbility, SubjectName } from '@gyre/shared';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { AuthError } from './auth.errors';
@@ -84,15 +94,22 @@ export function scopedWhere<T extends ObjectLiteral>(
   extra: FindOptionsWhere<T> = {},
 ): FindOptionsWhere<T>[] {
   return scopeConditionsOf(ability, action, subjectName).map((branch) => {
-    const where: Record<string, unknown> = {};
+    const where: Record<string, unknown> = { ...extra };
     for (const [field, value] of Object.entries(branch)) {
       // TypeORM refuses a bare null in `where` (invalidWhereValuesBehavior defaults to throw).
-      if (value === null) where[field] = IsNull();
-      else where[field] = typeof value === 'object' ? In(value.$in) : value;
+      const scope = value === null ? IsNull() : typeof value === 'object' ? In(value.$in) : value;
+      // A filter on a scoped column is AND-ed with the scope: it may narrow it, never widen it.
+      where[field] =
+        field in extra
+          ? And(asOperator(extra[field as keyof typeof extra]), asOperator(scope))
+          : scope;
     }
-    // A filter may narrow the scope; it may never widen it, so scope fields win.
-    return { ...extra, ...where } as FindOptionsWhere<T>;
+    return where as FindOptionsWhere<T>;
   });
+}
+
+function asOperator(value: unknown): FindOperator<unknown> {
+  return value instanceof FindOperator ? value : Equal(value);
 }
 
 /** For query builders: adds `AND ((alias.f1 = :p AND …) OR (…))` with bound parameters. */
