@@ -77,11 +77,12 @@ try {
 
 check('eslint', 'npx', ['eslint', '--max-warnings=0', '.']);
 check('prettier', 'npx', ['prettier', '--check', '.']);
-for (const workspace of ['shared', 'backend', 'frontend']) {
+for (const workspace of ['shared', 'backend', 'frontend', 'seed']) {
   check(`tsc ${workspace}`, 'npx', ['tsc', '--noEmit', '-p', `${workspace}/tsconfig.json`]);
 }
 suite('shared jest', 'npx', ['jest', '--ci'], join(root, 'shared'));
 suite('backend jest', 'npx', ['jest', '--ci'], join(root, 'backend'));
+suite('seed jest', 'npx', ['jest', '--ci'], join(root, 'seed'));
 vitestSuite('frontend vitest', [], join(root, 'frontend'));
 vitestSuite(
   'frontend e2e (Chromium)',
