@@ -28,9 +28,8 @@ export const REFRESH_PATH = '/api/auth/refresh';
 const NO_REFRESH_PATHS = [
   REFRESH_PATH,
   '/api/auth/sign-in',
-  '/api/auth/login',
   '/api/auth/password-reset',
-  '/api/auth/invitations',
+  '/api/auth/accept-invitation',
 ];
 
 let accessToken: string | null = null;

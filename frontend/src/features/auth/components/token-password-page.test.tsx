@@ -54,7 +54,7 @@ describe('choosing a password from an e-mailed link', () => {
 
   it("shows the server's reason when the link has expired", async () => {
     server.use(
-      http.post('/api/auth/invitations/accept', () =>
+      http.post('/api/auth/accept-invitation', () =>
         HttpResponse.json(
           {
             statusCode: 400,

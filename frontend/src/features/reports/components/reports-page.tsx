@@ -1,3 +1,180 @@
+import type { ReportDto, ReportState } from '@gyre/shared';
+import { subject } from '@gyre/shared';
+import { App, Button, Card, Segmented, Table, Typography } from 'antd';
+import type { TableColumnsType } from 'antd';
+import { useState } from 'react';
+import { PageHeader } from '../../../components/page-header';
+import { EmptyState, ErrorState } from '../../../components/page-states';
+import { ResearchCaution } from '../../../components/research-caution';
+import { ApiError } from '../../../lib/api-client';
+import { formatDate, formatDateTime } from '../../../lib/format';
+import { useAppAbility } from '../../../lib/session/ability';
+import { useSession } from '../../../lib/session/session-context';
+import { downloadReport } from '../api/download-report';
+import { useReportContext } from '../api/report-context';
+import { useReports } from '../api/reports';
+import { ReportStateTag } from './report-state-tag';
+
+const PAGE_SIZE = 20;
+
+/** A report has a file once it is signed; a draft has none yet. */
+export function hasFile(report: ReportDto): boolean {
+  return report.state === 'signed' || report.state === 'sent';
+}
+
+/** Reports (coordinator): the visit reports of their site, with download. */
 export function ReportsPage() {
-  return null;
+  const { me } = useSession();
+  const ability = useAppAbility();
+  const { message } = App.useApp();
+  const [state, setState] = useState<ReportState | 'all'>('all');
+  const [page, setPage] = useState(1);
+  const { data, error, isLoading, mutate } = useReports(
+    state === 'all' ? null : state,
+    page,
+    PAGE_SIZE,
+  );
+  const context = useReportContext();
+  const [downloading, setDownloading] = useState<string | null>(null);
+  const seesDrafts = ability.can(
+    'read',
+    subject('Report', { state: 'draft', studyId: me.user.studyId, siteId: me.user.siteId }),
+  );
+
+  const download = async (report: ReportDto, name: string) => {
+    setDownloading(report.id);
+    try {
+      await downloadReport(report.id, `gyre-report-${name}.pdf`);
+    } catch (caught) {
+      message.error(
+        caught instanceof ApiError ? caught.message : 'The report could not be downloaded.',
+      );
+    } finally {
+      setDownloading(null);
+    }
+  };
+
+  const columns: TableColumnsType<ReportDto> = [
+    {
+      title: 'Participant',
+      dataIndex: 'participantId',
+      render: (id: string) =>
+        context.participantCode(id) ?? <Typography.Text code>{id.slice(0, 8)}</Typography.Text>,
+    },
+    {
+      title: 'Visit',
+      dataIndex: 'visitId',
+      render: (id: string) => {
+        const visit = context.visit(id);
+        return visit === null ? (
+          <Typography.Text code>{id.slice(0, 8)}</Typography.Text>
+        ) : (
+          <>
+            {visit.label}{' '}
+            <Typography.Text type="secondary">· {formatDate(visit.visitDate)}</Typography.Text>
+          </>
+        );
+      },
+    },
+    {
+      title: 'State',
+      dataIndex: 'state',
+      width: 110,
+      render: (value: ReportState) => <ReportStateTag state={value} />,
+    },
+    {
+      title: 'Last change',
+      dataIndex: 'updatedAt',
+      width: 200,
+      render: (at: string) => <span className="gyre-figures">{formatDateTime(at)}</span>,
+    },
+    {
+      title: 'File',
+      key: 'file',
+      width: 150,
+      render: (_, report) => {
+        const name = `${context.participantCode(report.participantId) ?? report.participantId.slice(0, 8)}-${context.visit(report.visitId)?.label ?? report.visitId.slice(0, 8)}`;
+        return hasFile(report) ? (
+          <Button
+            size="small"
+            onClick={() => void download(report, name)}
+            loading={downloading === report.id}
+            aria-label={`Download the report of ${name}`}
+          >
+            Download PDF
+          </Button>
+        ) : (
+          <Typography.Text type="secondary">Not signed yet</Typography.Text>
+        );
+      },
+    },
+  ];
+
+  const options: { label: string; value: ReportState | 'all' }[] = [
+    { label: 'All', value: 'all' },
+    ...(seesDrafts ? [{ label: 'Draft', value: 'draft' as const }] : []),
+    { label: 'Signed', value: 'signed' },
+    { label: 'Sent', value: 'sent' },
+  ];
+
+  return (
+    <>
+      <ResearchCaution />
+      <PageHeader
+        title="Reports"
+        description={
+          me.site !== null
+            ? `Visit reports of ${me.site.name}, once an analyst has signed them.`
+            : 'Visit reports of the study.'
+        }
+        extra={
+          <Segmented<ReportState | 'all'>
+            value={state}
+            onChange={(value) => {
+              setState(value);
+              setPage(1);
+            }}
+            options={options}
+            aria-label="Show reports in this state"
+          />
+        }
+      />
+      <Card>
+        {error !== undefined ? (
+          <ErrorState
+            error={error}
+            onRetry={() => void mutate()}
+            title="The reports could not be loaded"
+          />
+        ) : (
+          <Table<ReportDto>
+            rowKey="id"
+            size="middle"
+            loading={isLoading}
+            columns={columns}
+            dataSource={data?.items ?? []}
+            pagination={{
+              current: page,
+              pageSize: PAGE_SIZE,
+              total: data?.total ?? 0,
+              showSizeChanger: false,
+              hideOnSinglePage: true,
+              onChange: setPage,
+            }}
+            locale={{
+              emptyText: (
+                <EmptyState
+                  description={
+                    state === 'all'
+                      ? 'No reports yet. A report appears here once an analyst signs a visit.'
+                      : `No ${state} reports.`
+                  }
+                />
+              ),
+            }}
+          />
+        )}
+      </Card>
+    </>
+  );
 }

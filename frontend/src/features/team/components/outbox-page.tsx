@@ -1,3 +1,119 @@
+import type { OutboxMessageView, OutboxState } from '@gyre/shared';
+import { Card, Segmented, Table, Tag, Typography } from 'antd';
+import type { TableColumnsType } from 'antd';
+import { useState } from 'react';
+import { PageHeader } from '../../../components/page-header';
+import { EmptyState, ErrorState } from '../../../components/page-states';
+import { formatDateTime } from '../../../lib/format';
+import { useOutbox } from '../api/outbox';
+
+const STATE_LOOK: Record<OutboxState, { label: string; color: string }> = {
+  queued: { label: 'Queued', color: 'blue' },
+  sent: { label: 'Sent', color: 'success' },
+  failed: { label: 'Failed', color: '#C77C02' },
+};
+
+const columns: TableColumnsType<OutboxMessageView> = [
+  {
+    title: 'Created',
+    dataIndex: 'createdAt',
+    width: 190,
+    render: (at: string) => <span className="gyre-figures">{formatDateTime(at)}</span>,
+  },
+  { title: 'To', dataIndex: 'to', width: 240, ellipsis: true },
+  { title: 'Subject', dataIndex: 'subject', ellipsis: true },
+  {
+    title: 'State',
+    dataIndex: 'state',
+    width: 110,
+    render: (state: OutboxState) => (
+      <Tag color={STATE_LOOK[state].color}>{STATE_LOOK[state].label}</Tag>
+    ),
+  },
+  {
+    title: 'Attempts',
+    dataIndex: 'attempts',
+    width: 90,
+    align: 'right',
+    render: (attempts: number) => <span className="gyre-figures">{attempts}</span>,
+  },
+  {
+    title: 'Delivery',
+    key: 'delivery',
+    width: 260,
+    render: (_, message) =>
+      message.state === 'sent' ? (
+        <span className="gyre-figures">{formatDateTime(message.sentAt)}</span>
+      ) : message.lastError !== null ? (
+        <Typography.Text style={{ color: '#C77C02' }}>
+          {message.lastError}
+          {message.nextAttemptAt !== null && ` Next try ${formatDateTime(message.nextAttemptAt)}.`}
+        </Typography.Text>
+      ) : (
+        <Typography.Text type="secondary">Waiting to be sent</Typography.Text>
+      ),
+  },
+];
+
+const PAGE_SIZE = 25;
+
+/** The outbox (admin): what Gyre has e-mailed or is about to, and whether it arrived. */
 export function OutboxPage() {
-  return null;
+  const [state, setState] = useState<OutboxState | 'all'>('all');
+  const [page, setPage] = useState(1);
+  const { data, error, isLoading, mutate } = useOutbox(
+    state === 'all' ? null : state,
+    page,
+    PAGE_SIZE,
+  );
+  return (
+    <>
+      <PageHeader
+        title="Outbox"
+        description="Invitations, reset links and report notices, with their delivery. Bodies are never shown."
+        extra={
+          <Segmented<OutboxState | 'all'>
+            value={state}
+            onChange={(value) => {
+              setState(value);
+              setPage(1);
+            }}
+            aria-label="Show messages in this state"
+            options={[
+              { label: 'All', value: 'all' },
+              { label: 'Queued', value: 'queued' },
+              { label: 'Sent', value: 'sent' },
+              { label: 'Failed', value: 'failed' },
+            ]}
+          />
+        }
+      />
+      <Card>
+        {error !== undefined ? (
+          <ErrorState
+            error={error}
+            onRetry={() => void mutate()}
+            title="The outbox could not be loaded"
+          />
+        ) : (
+          <Table<OutboxMessageView>
+            rowKey="id"
+            size="middle"
+            loading={isLoading}
+            columns={columns}
+            dataSource={data?.items ?? []}
+            pagination={{
+              current: page,
+              pageSize: PAGE_SIZE,
+              total: data?.total ?? 0,
+              showSizeChanger: false,
+              hideOnSinglePage: true,
+              onChange: setPage,
+            }}
+            locale={{ emptyText: <EmptyState description="No e-mail yet." /> }}
+          />
+        )}
+      </Card>
+    </>
+  );
 }

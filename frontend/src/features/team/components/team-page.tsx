@@ -1,3 +1,243 @@
+import { ROLES, type Role, type UserState, type UserView } from '@gyre/shared';
+import {
+  App,
+  Button,
+  Card,
+  Flex,
+  Input,
+  Segmented,
+  Select,
+  Space,
+  Table,
+  Tag,
+  Typography,
+} from 'antd';
+import type { TableColumnsType } from 'antd';
+import { useState } from 'react';
+import { PageHeader } from '../../../components/page-header';
+import { EmptyState, ErrorState } from '../../../components/page-states';
+import { ApiError } from '../../../lib/api-client';
+import { formatDateTime } from '../../../lib/format';
+import { useSession } from '../../../lib/session/session-context';
+import { useResendInvitation } from '../api/resend-invitation';
+import { useSites } from '../api/sites';
+import { useStudies } from '../api/studies';
+import { useUsers, type UserFilters } from '../api/users';
+import { AccountStateForm } from './account-state-form';
+import { EditUserForm } from './edit-user-form';
+import { InviteUserForm } from './invite-user-form';
+import { ROLE_LABELS } from './role-labels';
+
+const STATE_LOOK: Record<UserState, { label: string; color: string }> = {
+  invited: { label: 'Invited', color: '#C77C02' },
+  active: { label: 'Active', color: 'success' },
+  deactivated: { label: 'Deactivated', color: 'default' },
+};
+
+const PAGE_SIZE = 20;
+
+type Dialog =
+  | { kind: 'invite' }
+  | { kind: 'edit'; user: UserView }
+  | { kind: 'state'; user: UserView; target: 'active' | 'deactivated' }
+  | null;
+
+/** Team (admin): accounts, their role and site, invitations and deactivation. */
 export function TeamPage() {
-  return null;
+  const { me } = useSession();
+  const { message } = App.useApp();
+  const [filters, setFilters] = useState<UserFilters>({});
+  const [page, setPage] = useState(1);
+  const { data, error, isLoading, mutate } = useUsers(filters, page, PAGE_SIZE);
+  const studies = useStudies();
+  const sites = useSites();
+  const resend = useResendInvitation();
+  const [dialog, setDialog] = useState<Dialog>(null);
+
+  const studyCode = (id: string | null) =>
+    id === null ? null : (studies.data?.items.find((s) => s.id === id)?.code ?? id.slice(0, 8));
+  const siteName = (id: string | null) =>
+    id === null ? null : (sites.data?.items.find((s) => s.id === id)?.name ?? id.slice(0, 8));
+
+  const filter = (change: Partial<UserFilters>) => {
+    setFilters((current) => ({ ...current, ...change }));
+    setPage(1);
+  };
+
+  const columns: TableColumnsType<UserView> = [
+    {
+      title: 'Name',
+      dataIndex: 'name',
+      render: (name: string, user) => (
+        <>
+          <Typography.Text strong>{name}</Typography.Text>
+          <br />
+          <Typography.Text type="secondary">{user.email}</Typography.Text>
+        </>
+      ),
+    },
+    { title: 'Role', dataIndex: 'role', width: 130, render: (role: Role) => ROLE_LABELS[role] },
+    {
+      title: 'Study · site',
+      key: 'membership',
+      width: 210,
+      render: (_, user) =>
+        user.studyId === null ? (
+          <Typography.Text type="secondary">Whole installation</Typography.Text>
+        ) : (
+          [studyCode(user.studyId), siteName(user.siteId)].filter(Boolean).join(' · ')
+        ),
+    },
+    {
+      title: 'State',
+      dataIndex: 'state',
+      width: 120,
+      render: (state: UserState) => (
+        <Tag color={STATE_LOOK[state].color}>{STATE_LOOK[state].label}</Tag>
+      ),
+    },
+    {
+      title: 'Last sign-in',
+      dataIndex: 'lastSignInAt',
+      width: 190,
+      render: (at: string | null) => <span className="gyre-figures">{formatDateTime(at)}</span>,
+    },
+    {
+      title: '',
+      key: 'actions',
+      width: 300,
+      render: (_, user) => {
+        const self = user.id === me.user.id;
+        return (
+          <Space size={4} wrap>
+            <Button size="small" onClick={() => setDialog({ kind: 'edit', user })} disabled={self}>
+              Role and site
+            </Button>
+            {user.state === 'invited' && (
+              <Button
+                size="small"
+                onClick={() =>
+                  void resend(user.id).then(
+                    () => message.success(`A new invitation is on its way to ${user.email}.`),
+                    (caught: unknown) =>
+                      message.error(
+                        caught instanceof ApiError
+                          ? caught.message
+                          : 'The invitation could not be sent.',
+                      ),
+                  )
+                }
+              >
+                Send again
+              </Button>
+            )}
+            {user.state === 'active' && !self && (
+              <Button
+                size="small"
+                danger
+                onClick={() => setDialog({ kind: 'state', user, target: 'deactivated' })}
+              >
+                Deactivate
+              </Button>
+            )}
+            {user.state === 'deactivated' && (
+              <Button
+                size="small"
+                onClick={() => setDialog({ kind: 'state', user, target: 'active' })}
+              >
+                Reactivate
+              </Button>
+            )}
+          </Space>
+        );
+      },
+    },
+  ];
+
+  return (
+    <>
+      <PageHeader
+        title="Team"
+        description="Who works in Gyre, in which role and where. Invitations go out by e-mail."
+        extra={
+          <Button type="primary" onClick={() => setDialog({ kind: 'invite' })}>
+            Invite someone
+          </Button>
+        }
+      />
+      <Card>
+        <Flex gap={16} wrap style={{ marginBottom: 16 }}>
+          <Input.Search
+            allowClear
+            placeholder="Name or e-mail"
+            aria-label="Search by name or e-mail"
+            style={{ width: 260 }}
+            onSearch={(q) => filter({ q: q.trim() || undefined })}
+          />
+          <Select
+            allowClear
+            placeholder="Any role"
+            aria-label="Role"
+            style={{ width: 180 }}
+            value={filters.role}
+            onChange={(role: Role | undefined) => filter({ role })}
+            options={ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }))}
+          />
+          <Segmented<UserState | 'all'>
+            value={filters.state ?? 'all'}
+            onChange={(state) => filter({ state: state === 'all' ? undefined : state })}
+            aria-label="Account state"
+            options={[
+              { label: 'All', value: 'all' },
+              { label: 'Active', value: 'active' },
+              { label: 'Invited', value: 'invited' },
+              { label: 'Deactivated', value: 'deactivated' },
+            ]}
+          />
+        </Flex>
+        {error !== undefined ? (
+          <ErrorState
+            error={error}
+            onRetry={() => void mutate()}
+            title="The accounts could not be loaded"
+          />
+        ) : (
+          <Table<UserView>
+            rowKey="id"
+            size="middle"
+            loading={isLoading}
+            columns={columns}
+            dataSource={data?.items ?? []}
+            pagination={{
+              current: page,
+              pageSize: PAGE_SIZE,
+              total: data?.total ?? 0,
+              showSizeChanger: false,
+              hideOnSinglePage: true,
+              onChange: setPage,
+            }}
+            locale={{ emptyText: <EmptyState description="No account matches." /> }}
+          />
+        )}
+      </Card>
+      <InviteUserForm
+        open={dialog?.kind === 'invite'}
+        onClose={() => setDialog(null)}
+        onInvited={(user) => {
+          setDialog(null);
+          message.success(`${user.email} is invited; the e-mail is on its way.`);
+        }}
+      />
+      {dialog?.kind === 'edit' && (
+        <EditUserForm user={dialog.user} onClose={() => setDialog(null)} />
+      )}
+      {dialog?.kind === 'state' && (
+        <AccountStateForm
+          user={dialog.user}
+          target={dialog.target}
+          onClose={() => setDialog(null)}
+        />
+      )}
+    </>
+  );
 }
