@@ -7,6 +7,7 @@ import {
   subject,
   SubjectName,
 } from './permissions';
+import { PARTICIPANT_CODE_PATTERN } from './study-model';
 
 // Expected answers come from DESIGN.md's role table ("what they do" / "what they may not do").
 const STUDY = 'study-1';
@@ -137,5 +138,24 @@ describe('rules for the client', () => {
 
   it('a site role without a site is refused with the field named', () => {
     expect(() => defineAbilityFor({ ...users.technician, siteId: null })).toThrow(/siteId/);
+  });
+});
+
+describe('participant codes (PARTICIPANT_CODE_PATTERN: pseudonymous codes only, never a name)', () => {
+  it.each(['AC-0042', 'A1-0001', 'X9Y', '123'])('accepts %s', (code) => {
+    expect(PARTICIPANT_CODE_PATTERN.test(code)).toBe(true);
+  });
+  it.each([
+    'JOHN-SMITH',
+    'Maria',
+    'ac-0042',
+    'A--1',
+    '-A1',
+    'A1-',
+    'A 1',
+    'P1',
+    'A'.repeat(23) + '12',
+  ])('refuses %s', (code) => {
+    expect(PARTICIPANT_CODE_PATTERN.test(code)).toBe(false);
   });
 });
