@@ -1,0 +1,114 @@
+/**
+ * Everything a visit report prints, as plain data: no entities, no I/O. The service that
+ * signs reports builds one of these from the database; the renderer only draws it.
+ */
+export interface VisitReportModel {
+  reportId: string;
+  /** 1 for the first report of the visit; each new revision after a signature adds one. */
+  revision: number;
+  /** When this document was generated, ISO 8601 (printed in UTC). */
+  generatedAtIso: string;
+  study: { name: string; code: string | null };
+  site: { name: string };
+  /** The pseudonymous participant code (never a name). */
+  participantCode: string;
+  visit: { label: string; /** YYYY-MM-DD */ date: string };
+  rest: RestSection | null;
+  task: TaskSection | null;
+  /** One entry per recording that was analysed. */
+  quality: QualitySection[];
+  /** Flags of the visit, current first; empty when none was ever raised. */
+  flags: FlagEntry[];
+  /** What the computation suggested for the flag (never acting alone); null when no task result. */
+  flagSuggestion: FlagSuggestionEntry | null;
+  /** One entry per analysis run the report rests on. */
+  provenance: ProvenanceEntry[];
+  /** The earlier signed revision this one replaces, if any. */
+  supersedes: { revision: number; sha256: string } | null;
+  /** Present once signed; a draft has none and says so on every page. */
+  signature: SignatureEntry | null;
+}
+
+export interface RestSection {
+  /** Null = no clear peak (METHOD.md §4: no forced answer). */
+  pafHz: number | null;
+  cogHz: number | null;
+  /** Peak height over the 1/f background, dB; null without a clear peak. */
+  prominenceDb: number | null;
+  /** Why no PAF was reported (e.g. `below-prominence`), else null. */
+  noPeakReason: string | null;
+  alphaWindowHz: [number, number];
+  spectrum: { frequencyHz: number[]; powerUv2PerHz: number[] };
+  /** Frequencies drawn on the spectrum plot; default [1, 30] Hz. */
+  displayRangeHz?: [number, number];
+}
+
+export interface TaskSection {
+  /** ROI Δf = post − baseline, Hz; negative = slowing. */
+  deltaFHz: number | null;
+  ciHz: [number, number] | null;
+  /** Wilcoxon signed-rank test over trials. */
+  pValue: number | null;
+  trialsKept: number | null;
+  trialsTotal: number | null;
+  /** Dropped epochs by reason, e.g. { amplitude: 3, edge: 1 }. */
+  droppedByReason: Record<string, number>;
+  bandHz: [number, number];
+  baselineWindowS: [number, number];
+  postWindowS: [number, number];
+  onsetCurve: {
+    timeS: number[];
+    meanHz: Array<number | null>;
+    ciLowHz: Array<number | null>;
+    ciHighHz: Array<number | null>;
+  };
+}
+
+/** Quality checks of one recording (METHOD.md §6), as the analysis reported them. */
+export interface QualitySection {
+  kind: 'resting' | 'task';
+  durationS: number;
+  sampleRatesHz: number[];
+  roiChannelsFound: string[];
+  roiChannelsMissing: string[];
+  flatChannels: string[];
+  saturatedChannels: string[];
+  /** Mean power density within ±1 Hz of the mains frequency over that 2–6 Hz away; ≈1 = none. */
+  lineNoiseRatio50Hz: number | null;
+  lineNoiseRatio60Hz: number | null;
+  epochsDroppedShare: number | null;
+  /** Share of raw instantaneous-frequency samples outside the band. */
+  phaseSlipShare: number | null;
+  alphaPeakProminenceDb: number | null;
+  warnings: string[];
+}
+
+export interface FlagEntry {
+  state: 'raised' | 'cleared';
+  raisedByName: string;
+  raisedAtIso: string;
+  raiseReason: string;
+  clearedByName: string | null;
+  clearedAtIso: string | null;
+  clearReason: string | null;
+}
+
+export interface FlagSuggestionEntry {
+  suggestsSlowing: boolean;
+  flagThresholdHz: number;
+}
+
+export interface ProvenanceEntry {
+  kind: 'resting' | 'task';
+  analysisRunId: string;
+  settingsVersion: number;
+  codeVersion: string;
+  inputChecksumSha256: string;
+}
+
+export interface SignatureEntry {
+  signerName: string;
+  signedAtIso: string;
+  /** The meaning the signer confirmed (21 CFR Part 11 §11.50(a)(3)). */
+  meaning: string;
+}
