@@ -329,7 +329,12 @@ export class JobsService implements OnApplicationBootstrap, OnModuleDestroy {
     } catch (error) {
       await progress.stop();
       if (this.stopping) return;
-      await this.fail(job, recording, error instanceof Error ? error.message : String(error));
+      // Errors cross the thread boundary as text; drop the class name piscina puts in front.
+      const message = (error instanceof Error ? error.message : String(error)).replace(
+        /^Error: /,
+        '',
+      );
+      await this.fail(job, recording, message);
     }
   }
 
