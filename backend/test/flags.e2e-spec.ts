@@ -1,0 +1,196 @@
+/**
+ * Slowing flags, draft reports and the participant trajectory through the API, on
+ * generated recordings (see recordings-fixtures.ts).
+ */
+import { randomUUID } from 'node:crypto';
+import request from 'supertest';
+import type { RecordingDto, ReportDto, TrajectoryDto, VisitFlagDto } from '@gyre/shared';
+import { Visit } from '../src/visits/visit.entity';
+import { startTestApp, TestApp } from './helpers/test-app';
+import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
+
+describe('flags, reports and trajectory', () => {
+  let t: TestApp;
+  let visit1: string;
+  let visit2: string;
+
+  async function computeVisit(visitId: string, peakHz: number, seed: number): Promise<void> {
+    const rest = await upload(t, 'technician', visitId, {
+      kind: 'resting',
+      bytes: syntheticRestEdf({ peakHz, seed }),
+    });
+    const task = await upload(t, 'technician', visitId, {
+      kind: 'task',
+      bytes: syntheticTaskEdf({ durationS: 60, seed }),
+    });
+    expect([rest.status, task.status]).toEqual([201, 201]);
+    await waitForState(t, 'technician', (rest.body as RecordingDto).id, ['ready']);
+    await waitForState(t, 'technician', (task.body as RecordingDto).id, ['ready']);
+  }
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    visit1 = t.seed.visits.A1.id;
+    // A second, later visit of the same participant (generated test data).
+    const at = new Date().toISOString();
+    const second: Visit = {
+      ...t.seed.visits.A1,
+      id: randomUUID(),
+      label: 'V2',
+      visitDate: '2026-07-16',
+      createdAt: at,
+      updatedAt: at,
+    };
+    await t.dataSource.getRepository(Visit).insert(second);
+    visit2 = second.id;
+    await computeVisit(visit1, 10, 41);
+    await computeVisit(visit2, 9, 42);
+  }, 120_000);
+  afterAll(async () => {
+    await t.close();
+  });
+
+  it("shows the computation's suggestion and never raises a flag by itself", async () => {
+    const response = await request(t.url)
+      .get(`/api/visits/${visit1}/flag`)
+      .set(await t.authHeader('analyst'));
+    expect(response.status).toBe(200);
+    const status = response.body as VisitFlagDto;
+    expect(status.current).toBeNull();
+    expect(status.history).toEqual([]);
+    // Generated −0.6 Hz dip, below the default −0.2 Hz threshold (METHOD.md §3).
+    expect(status.suggestion).toMatchObject({ suggestsSlowing: true, flagThresholdHz: -0.2 });
+    expect(status.suggestion?.roiDeltaFHz).toBeLessThan(-0.2);
+    expect(await t.dataSource.query(`SELECT count(*) AS n FROM "flag"`)).toEqual([{ n: 0 }]);
+  });
+
+  it('refuses a reason shorter than 10 characters', async () => {
+    const analyst = await t.authHeader('analyst');
+    for (const reason of ['', 'too short', '   nine c   ']) {
+      const response = await request(t.url)
+        .post(`/api/visits/${visit1}/flag/raise`)
+        .set(analyst)
+        .send({ reason });
+      expect(response.status).toBe(400);
+      expect(response.body.message).toMatch(/reason must be longer than or equal to 10 characters/);
+    }
+  });
+
+  it('raises and clears a flag with reasons, audited with before and after', async () => {
+    const analyst = await t.authHeader('analyst');
+    const raised = await request(t.url)
+      .post(`/api/visits/${visit1}/flag/raise`)
+      .set(analyst)
+      .send({ reason: 'Consistent slowing on O1, O2 and Pz' });
+    expect(raised.status).toBe(201);
+    expect((raised.body as VisitFlagDto).current).toMatchObject({
+      state: 'raised',
+      raiseReason: 'Consistent slowing on O1, O2 and Pz',
+    });
+    const twice = await request(t.url)
+      .post(`/api/visits/${visit1}/flag/raise`)
+      .set(analyst)
+      .send({ reason: 'Raising it a second time' });
+    expect(twice.status).toBe(409);
+    expect(twice.body.code).toBe('FLAG_ALREADY_RAISED');
+
+    const trajectory = await request(t.url)
+      .get(`/api/participants/${t.seed.participants.A1.id}/trajectory`)
+      .set(analyst);
+    expect((trajectory.body as TrajectoryDto).visits.map((v) => v.flagged)).toEqual([true, false]);
+
+    const cleared = await request(t.url)
+      .post(`/api/visits/${visit1}/flag/clear`)
+      .set(analyst)
+      .send({ reason: 'Artefact on review of the raw trace' });
+    expect(cleared.status).toBe(201);
+    const after = cleared.body as VisitFlagDto;
+    expect(after.current).toBeNull();
+    expect(after.history[0]).toMatchObject({
+      state: 'cleared',
+      clearReason: 'Artefact on review of the raw trace',
+    });
+    const again = await request(t.url)
+      .post(`/api/visits/${visit1}/flag/clear`)
+      .set(analyst)
+      .send({ reason: 'Clearing it a second time' });
+    expect(again.status).toBe(409);
+
+    const entries = (await t.dataSource.query(
+      `SELECT "action", "before", "after", "reason" FROM "audit_entry" WHERE "objectType" = 'Flag' ORDER BY "seq"`,
+    )) as Array<{ action: string; before: string; after: string; reason: string }>;
+    expect(entries.map((e) => [e.action, e.reason])).toEqual([
+      ['raise', 'Consistent slowing on O1, O2 and Pz'],
+      ['clear', 'Artefact on review of the raw trace'],
+    ]);
+    expect(JSON.parse(entries[0].before)).toEqual({ visitId: visit1, state: null });
+    expect(JSON.parse(entries[0].after)).toMatchObject({
+      state: 'raised',
+      suggestion: { suggestsSlowing: true },
+    });
+    expect(JSON.parse(entries[1].before)).toMatchObject({ state: 'raised' });
+    expect(JSON.parse(entries[1].after)).toMatchObject({ state: 'cleared' });
+  });
+
+  it('lists flags with a state filter', async () => {
+    const response = await request(t.url)
+      .get('/api/flags')
+      .query({ state: 'cleared' })
+      .set(await t.authHeader('monitor'));
+    expect(response.status).toBe(200);
+    expect(response.body.total).toBe(1);
+    const none = await request(t.url)
+      .get('/api/flags')
+      .query({ state: 'raised' })
+      .set(await t.authHeader('monitor'));
+    expect(none.body.total).toBe(0);
+  });
+
+  it('keeps one draft report per computed visit, hidden from coordinators until signed', async () => {
+    const analyst = await t.authHeader('analyst');
+    const report = await request(t.url).get(`/api/visits/${visit1}/report`).set(analyst);
+    expect(report.status).toBe(200);
+    expect((report.body as ReportDto).state).toBe('draft');
+    const list = await request(t.url).get('/api/reports').query({ state: 'draft' }).set(analyst);
+    expect(list.body.total).toBe(2);
+    const coordinator = await request(t.url)
+      .get(`/api/visits/${visit1}/report`)
+      .set(await t.authHeader('coordinator'));
+    expect(coordinator.status).toBe(404);
+    const coordinatorList = await request(t.url)
+      .get('/api/reports')
+      .set(await t.authHeader('coordinator'));
+    expect(coordinatorList.body.total).toBe(0);
+  });
+
+  it("gives the participant's trajectory: values per visit, change from the first, Theil–Sen slope per year", async () => {
+    const response = await request(t.url)
+      .get(`/api/participants/${t.seed.participants.A1.id}/trajectory`)
+      .set(await t.authHeader('monitor'));
+    expect(response.status).toBe(200);
+    const trajectory = response.body as TrajectoryDto;
+    expect(trajectory.visits.map((v) => [v.label, v.date])).toEqual([
+      ['V1', '2026-01-15'],
+      ['V2', '2026-07-16'],
+    ]);
+    const [v1, v2] = trajectory.visits;
+    // Generated truth: resting peaks at 10 and 9 Hz.
+    expect(v1.pafHz).toBeCloseTo(10, 0);
+    expect(v2.pafHz).toBeCloseTo(9, 0);
+    expect(v1.pafChangeHz).toBe(0);
+    expect(v2.pafChangeHz).toBeCloseTo((v2.pafHz ?? 0) - (v1.pafHz ?? 0), 12);
+    expect(v2.deltaFHz).toBeLessThan(-0.5);
+    // Two points: the Theil–Sen slope is the slope of the line through them;
+    // 2026-01-15 → 2026-07-16 is 182 days (calendar), years of 365.25 days.
+    const years = 182 / 365.25;
+    expect(trajectory.slopesHzPerYear.paf).toBeCloseTo(
+      ((v2.pafHz ?? 0) - (v1.pafHz ?? 0)) / years,
+      10,
+    );
+    expect(trajectory.slopesHzPerYear.cog).toBeCloseTo(
+      ((v2.cogHz ?? 0) - (v1.cogHz ?? 0)) / years,
+      10,
+    );
+    expect(trajectory.visits.every((v) => !v.flagged)).toBe(true);
+  });
+});
