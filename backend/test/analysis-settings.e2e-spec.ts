@@ -1,0 +1,137 @@
+/** Versioned analysis settings per study: defaults, validation, new versions, audit. */
+import request from 'supertest';
+import type { AnalysisSettingsDto } from '@gyre/shared';
+import { startTestApp, TestApp } from './helpers/test-app';
+
+describe('analysis settings', () => {
+  let t: TestApp;
+  let path: string;
+  beforeAll(async () => {
+    t = await startTestApp();
+    path = `/api/studies/${t.seed.studies.A.id}/analysis-settings`;
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  const valid = {
+    bandHz: [7.5, 12.5],
+    method: 'morlet',
+    morletCycles: 6,
+    epochWindowS: [-1, 2],
+    baselineWindowS: [-0.5, 0],
+    postWindowS: [0.3, 0.9],
+    rejectionThresholdUv: 120,
+    flagThresholdHz: -0.25,
+    roi: ['O1', 'O2', 'Oz'],
+    onsetLabel: 'stimulus',
+    reason: 'Pilot review: narrower window after onset',
+  };
+
+  it('starts at version 1 with the defaults of METHOD.md §2–3', async () => {
+    const response = await request(t.url)
+      .get(path)
+      .set(await t.authHeader('monitor'));
+    expect(response.status).toBe(200);
+    expect(response.body).toMatchObject({
+      version: 1,
+      bandHz: null,
+      method: 'filter',
+      morletCycles: 7,
+      epochWindowS: [-1, 2],
+      baselineWindowS: [-0.5, 0],
+      postWindowS: [0.2, 0.8],
+      rejectionThresholdUv: 100,
+      flagThresholdHz: -0.2,
+      roi: ['O1', 'O2', 'Oz', 'POz', 'PO3', 'PO4', 'PO7', 'PO8', 'Pz', 'P3', 'P4'],
+      onsetLabel: null,
+    });
+  });
+
+  it.each([
+    ['a band wider than 1–40 Hz', { bandHz: [0.5, 13] }, /bandHz: \[0.5,13\] found/],
+    [
+      'a baseline ending after the post window starts',
+      { baselineWindowS: [-0.5, 0.4] },
+      /postWindowS: .* found, a start at or after/,
+    ],
+    [
+      'a post window outside the epoch',
+      { postWindowS: [0.2, 2.5] },
+      /postWindowS: \[0.2,2.5\] found, start < end, inside epochWindowS/,
+    ],
+    [
+      'a positive flag threshold',
+      { flagThresholdHz: 0.2 },
+      /flagThresholdHz: 0.2 found, a negative change/,
+    ],
+    ['an unknown electrode', { roi: ['O1', 'Q7'] }, /roi: \["Q7"\] found, 10-10 electrode names/],
+    [
+      'a reason under 10 characters',
+      { reason: 'short' },
+      /reason must be longer than or equal to 10 characters/,
+    ],
+    ['an unknown method', { method: 'wavelet' }, /method must be one of/],
+  ])('refuses %s (400, naming the field and value)', async (_name, change, message) => {
+    const response = await request(t.url)
+      .post(path)
+      .set(await t.authHeader('analyst'))
+      .send({ ...valid, ...change });
+    expect(response.status).toBe(400);
+    expect(response.body.message).toMatch(message);
+    const current = await request(t.url)
+      .get(path)
+      .set(await t.authHeader('analyst'));
+    expect(current.body.version).toBe(1);
+  });
+
+  it('adds a version (audited with before, after and reason) and lists versions newest first', async () => {
+    const analyst = await t.authHeader('analyst');
+    const response = await request(t.url).post(path).set(analyst).send(valid);
+    expect(response.status).toBe(201);
+    const created = response.body as AnalysisSettingsDto;
+    expect(created).toMatchObject({
+      version: 2,
+      bandHz: [7.5, 12.5],
+      method: 'morlet',
+      roi: ['O1', 'O2', 'Oz'],
+    });
+    expect(created.createdById).toBe(t.seed.users.analyst.id);
+
+    const [entry] = (await t.dataSource.query(
+      `SELECT "action", "objectId", "before", "after", "reason", "actorId" FROM "audit_entry" WHERE "objectType" = 'AnalysisSettings'`,
+    )) as Array<{
+      action: string;
+      objectId: string;
+      before: string;
+      after: string;
+      reason: string;
+      actorId: string;
+    }>;
+    expect(entry).toMatchObject({
+      action: 'update',
+      objectId: created.id,
+      reason: valid.reason,
+      actorId: t.seed.users.analyst.id,
+    });
+    expect(JSON.parse(entry.before)).toMatchObject({ version: 1, bandHz: null, method: 'filter' });
+    expect(JSON.parse(entry.after)).toMatchObject({
+      version: 2,
+      bandHz: [7.5, 12.5],
+      method: 'morlet',
+    });
+
+    const versions = await request(t.url)
+      .get(`${path}/versions`)
+      .query({ pageSize: 1 })
+      .set(analyst);
+    expect(versions.status).toBe(200);
+    expect(versions.body).toMatchObject({ total: 2, page: 1, pageSize: 1 });
+    expect(versions.body.items[0].version).toBe(2);
+    const oldest = await request(t.url)
+      .get(`${path}/versions`)
+      .query({ order: 'asc' })
+      .set(analyst);
+    expect(oldest.body.items.map((s: AnalysisSettingsDto) => s.version)).toEqual([1, 2]);
+  });
+});
