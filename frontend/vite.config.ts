@@ -22,5 +22,7 @@ export default defineConfig({
     setupFiles: ['./src/test/setup.ts'],
     include: ['src/**/*.test.{ts,tsx}'],
     css: false,
+    // antd's forms and tables render slowly in jsdom on a 2-core machine.
+    testTimeout: 30_000,
   },
 });

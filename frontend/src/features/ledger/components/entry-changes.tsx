@@ -12,7 +12,7 @@ const isRecord = (value: unknown): value is Record<string, unknown> =>
   typeof value === 'object' && value !== null && !Array.isArray(value);
 
 function show(value: unknown): string {
-  if (value === undefined) return '';
+  if (value === undefined) return '(none)';
   if (value === null) return '(empty)';
   if (typeof value === 'string') return value;
   return JSON.stringify(value);
