@@ -1,5 +1,6 @@
 import { dftPlan } from './dft-any-length';
 import { fftPlan, nextPowerOfTwo } from './fft-plan';
+import { mixedRadixLength, mixedRadixPlan } from './mixed-radix-fft';
 
 /** Generated test signal (deterministic). */
 function generated(n: number, seed: number): Float64Array {
@@ -99,5 +100,31 @@ describe('FFT plans', () => {
     plan.forward(x, out, plan.createScratch());
     const expected = naiveDft(x);
     expect(maxDiff(out, expected)).toBeLessThan(maxAbs(expected) * 1e-12);
+  });
+
+  // Against the DFT definition for lengths p·2^a (one Cooley–Tukey step over fft.js).
+  it.each([12, 20, 28, 192, 320, 448])('matches the DFT definition for mixed-radix N = %i', (n) => {
+    const real = generated(n, 9);
+    const x = toComplex(real);
+    for (let i = 0; i < n; i++) x[2 * i + 1] = Math.sin(0.3 * i);
+    const plan = mixedRadixPlan(n);
+    const scratch = plan.createScratch();
+    const out = new Float64Array(2 * n);
+    plan.forward(x, out, scratch);
+    const expected = naiveDft(x);
+    expect(maxDiff(out, expected)).toBeLessThan(maxAbs(expected) * 1e-12);
+    const half = new Float64Array(2 * n);
+    plan.forwardReal(real, half, scratch);
+    const expectedReal = naiveDft(toComplex(real));
+    expect(maxDiff(half.subarray(0, n + 2), expectedReal.subarray(0, n + 2))).toBeLessThan(
+      maxAbs(expectedReal) * 1e-12,
+    );
+  });
+
+  it('picks the shortest p·2^a length that holds the samples', () => {
+    expect(mixedRadixLength(303334)).toBe(327680); // 5·2^16
+    expect(mixedRadixLength(1803334)).toBe(1835008); // 7·2^18
+    expect(mixedRadixLength(4096)).toBe(4096);
+    expect(mixedRadixLength(4097)).toBe(5120); // 5·2^10
   });
 });

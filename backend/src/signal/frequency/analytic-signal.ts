@@ -1,4 +1,5 @@
-import { fftPlan, isPowerOfTwo, nextPowerOfTwo } from '../fft/fft-plan';
+import { isPowerOfTwo } from '../fft/fft-plan';
+import { mixedRadixLength, mixedRadixPlan, MixedRadixScratch } from '../fft/mixed-radix-fft';
 import { SpectralWeight } from './spectral-weights';
 
 /** A complex time series as two parallel arrays (transferable to a worker thread). */
@@ -32,19 +33,28 @@ export class AnalyticWorkspace {
   readonly real: Float64Array;
   readonly spectrum: Float64Array;
   readonly shaped: Float64Array;
+  /** Bins of `shaped` that the last call wrote (all others are zero). */
+  shapedFirstBin = 0;
+  shapedLastBin = 0;
+
+  readonly scratch: MixedRadixScratch;
 
   constructor(size: number) {
-    if (!isPowerOfTwo(size)) {
-      throw new RangeError(`workspace size: expected a power of two, got ${size}`);
+    if (mixedRadixLength(size) !== size) {
+      throw new RangeError(`workspace size: expected a length p·2^a (p = 1, 3, 5, 7), got ${size}`);
     }
     this.size = size;
+    this.scratch = mixedRadixPlan(size).createScratch();
     this.real = new Float64Array(size);
     this.spectrum = new Float64Array(2 * size);
     this.shaped = new Float64Array(2 * size);
   }
 }
 
-/** FFT length used for `n` samples with `padding` mirrored samples on each side. */
+/**
+ * FFT length used for `n` samples with `padding` mirrored samples on each side: the
+ * shortest p·2^a (p = 1, 3, 5, 7) that holds them, or exactly n for the circular form.
+ */
 export function analyticFftSize(n: number, padding: number, circular: boolean): number {
   if (circular) {
     if (!isPowerOfTwo(n)) {
@@ -52,7 +62,7 @@ export function analyticFftSize(n: number, padding: number, circular: boolean): 
     }
     return n;
   }
-  return nextPowerOfTwo(n + 2 * padding);
+  return mixedRadixLength(n + 2 * padding);
 }
 
 /**
@@ -89,39 +99,34 @@ export function analyticSignal(
   for (let j = 1; j <= padding; j++) real[padding + n - 1 + j] = samples[n - 1 - j];
   real.fill(0, n + 2 * padding);
 
-  const plan = fftPlan(m);
-  plan.forwardReal(real, spectrum);
+  const plan = mixedRadixPlan(m);
+  plan.forwardReal(real, spectrum, ws.scratch);
 
   const half = m / 2;
   const binHz = fs / m;
-  shaped.fill(0);
+  // Only the bins written last time can be non-zero: clear just those.
+  shaped.fill(0, 2 * ws.shapedFirstBin, 2 * ws.shapedLastBin + 2);
   const weight = options.weight;
-  if (weight === null) {
-    shaped[0] = spectrum[0];
-    shaped[1] = spectrum[1];
-    for (let k = 1; k < half; k++) {
-      shaped[2 * k] = 2 * spectrum[2 * k];
-      shaped[2 * k + 1] = 2 * spectrum[2 * k + 1];
-    }
-    shaped[2 * half] = spectrum[2 * half];
-    shaped[2 * half + 1] = spectrum[2 * half + 1];
-  } else {
-    const first = Math.max(0, Math.ceil(weight.supportHz[0] / binHz));
-    const last = Math.min(half, Math.floor(weight.supportHz[1] / binHz));
-    for (let k = first; k <= last; k++) {
-      const g = weight.weightAt(k * binHz) * (k === 0 || k === half ? 1 : 2);
-      shaped[2 * k] = g * spectrum[2 * k];
-      shaped[2 * k + 1] = g * spectrum[2 * k + 1];
-    }
+  const first = weight === null ? 0 : Math.max(0, Math.ceil(weight.supportHz[0] / binHz));
+  const last = weight === null ? half : Math.min(half, Math.floor(weight.supportHz[1] / binHz));
+  ws.shapedFirstBin = first;
+  ws.shapedLastBin = Math.max(first, last);
+  // The inverse DFT is computed as conj(DFT(conj Z))/M: the conjugate is written here and
+  // the scaling is folded into the copy-out, which saves a pass over 2·M values.
+  for (let k = first; k <= last; k++) {
+    const g = (weight === null ? 1 : weight.weightAt(k * binHz)) * (k === 0 || k === half ? 1 : 2);
+    shaped[2 * k] = g * spectrum[2 * k];
+    shaped[2 * k + 1] = -g * spectrum[2 * k + 1];
   }
-  // The inverse goes into `spectrum`, which is no longer needed.
-  plan.inverse(shaped, spectrum);
+  // The transform goes into `spectrum`, which is no longer needed.
+  plan.forward(shaped, spectrum, ws.scratch);
 
   const re = new Float64Array(n);
   const im = new Float64Array(n);
+  const scale = 1 / m;
   for (let i = 0, j = 2 * padding; i < n; i++, j += 2) {
-    re[i] = spectrum[j];
-    im[i] = spectrum[j + 1];
+    re[i] = spectrum[j] * scale;
+    im[i] = -spectrum[j + 1] * scale;
   }
   return { re, im };
 }

@@ -9,7 +9,6 @@ export class RunningMedianWorkspace {
   padded = new Float64Array(0);
   order = new Int32Array(0);
   rank = new Int32Array(0);
-  sorted = new Float64Array(0);
   nodeRank = new Int32Array(0);
   next = new Int32Array(0);
   prev = new Int32Array(0);
@@ -20,7 +19,6 @@ export class RunningMedianWorkspace {
     this.padded = new Float64Array(n);
     this.order = new Int32Array(n);
     this.rank = new Int32Array(n);
-    this.sorted = new Float64Array(n);
   }
 
   ensureNodes(nodes: number, blocks: number): void {
@@ -70,12 +68,7 @@ function rankInput(
   const order = ws.order;
   argsortFloat64(padded, order, ws.argsort);
   const rank = ws.rank;
-  const sorted = ws.sorted;
-  for (let r = 0; r < total; r++) {
-    const p = order[r];
-    rank[p] = r;
-    sorted[r] = padded[p];
-  }
+  for (let r = 0; r < total; r++) rank[order[r]] = r;
   return new RankedInput(n, maxHalfWidth, ws);
 }
 
@@ -101,7 +94,7 @@ function medianOfWindow(ranked: RankedInput, windowSamples: number, output: Floa
   const elements = blocks * k;
   const nodes = elements + 2 * blocks;
   ws.ensureNodes(nodes, blocks);
-  const { nodeRank, next, prev, last, rank, order, sorted } = ws;
+  const { nodeRank, next, prev, last, rank, order } = ws;
   const total = n + 2 * ranked.maxHalfWidth;
 
   for (let q = 0; q < span; q++) nodeRank[q] = rank[offset + q];
@@ -136,12 +129,14 @@ function medianOfWindow(ranked: RankedInput, windowSamples: number, output: Floa
     prev[tail] = last[b];
   }
 
+  const padded = ws.padded;
   for (let b = 0; b * k < n; b++) {
     const startA = b * k;
     // Median of the full block b: the (h+1)-th node of its list.
     let mA = next[elements + 2 * b];
     for (let j = 0; j < h; j++) mA = next[mA];
-    output[startA] = sorted[nodeRank[mA]];
+    let rmA = nodeRank[mA];
+    output[startA] = padded[offset + mA];
     if (startA + 1 >= n) break;
     // Empty block b+1 by unlinking from its last position down to its first.
     const startB = startA + k;
@@ -150,43 +145,60 @@ function medianOfWindow(ranked: RankedInput, windowSamples: number, output: Floa
       prev[next[q]] = prev[q];
     }
     let mB = elements + 2 * (b + 1) + 1;
+    let rmB = RANK_TAIL;
     let i = 1;
     for (; i < k; i++) {
       const s = startA + i;
       if (s >= n) break;
-      // Slide: drop node a from list A, restore node x in list B.
-      const a = startA + i - 1;
+      // Slide: drop node a from list A, restore node x in list B. The cursors' ranks
+      // are kept in rmA/rmB so that each step reads few arrays.
+      const a = s - 1;
       const ra = nodeRank[a];
-      const rmA = nodeRank[mA];
       const aSmall = ra < rmA;
-      if (a === mA) mA = next[a];
-      next[prev[a]] = next[a];
-      prev[next[a]] = prev[a];
+      const na = next[a];
+      const pa = prev[a];
+      if (a === mA) {
+        mA = na;
+        rmA = nodeRank[na];
+      }
+      next[pa] = na;
+      prev[na] = pa;
       const x = startB + i - 1;
       next[prev[x]] = x;
       prev[next[x]] = x;
       const rx = nodeRank[x];
-      const xSmall = rx < nodeRank[mB];
+      const xSmall = rx < rmB;
       if (aSmall) {
         if (xSmall) {
           // Still h small elements, but x may exceed A's smallest large element.
-          if (rx > nodeRank[mA]) {
+          if (rx > rmA) {
             mB = x;
+            rmB = rx;
             mA = next[mA];
+            rmA = nodeRank[mA];
           }
+        } else if (rmA < rmB) {
+          mA = next[mA];
+          rmA = nodeRank[mA];
         } else {
-          if (nodeRank[mA] < nodeRank[mB]) mA = next[mA];
-          else mB = next[mB];
+          mB = next[mB];
+          rmB = nodeRank[mB];
         }
       } else if (xSmall) {
-        const pa = prev[mA];
-        const pb = prev[mB];
-        if (nodeRank[pa] > nodeRank[pb]) mA = pa;
-        else mB = pb;
+        const p1 = prev[mA];
+        const p2 = prev[mB];
+        const r1 = nodeRank[p1];
+        const r2 = nodeRank[p2];
+        if (r1 > r2) {
+          mA = p1;
+          rmA = r1;
+        } else {
+          mB = p2;
+          rmB = r2;
+        }
       }
-      const r1 = nodeRank[mA];
-      const r2 = nodeRank[mB];
-      output[s] = sorted[r1 < r2 ? r1 : r2];
+      // The median node lies in blocks b or b+1: read its value near the others.
+      output[s] = padded[offset + (rmA < rmB ? mA : mB)];
     }
     // Restore the rest of block b+1 so that it is complete as the next block A.
     for (let q = startB + i - 1; q < startB + k; q++) {

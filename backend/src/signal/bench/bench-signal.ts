@@ -1,0 +1,270 @@
+/**
+ * Benchmark of the frequency-sliding pipeline against numpy/scipy (a script, not a
+ * test): `npm run bench:signal [-- --minutes 10,60 --channels 64 --rate 500 --repeat 2]`.
+ *
+ * For each duration it writes a generated 64-channel 500 Hz EDF+ recording, then in
+ * fresh processes (so that each peak memory is its own) runs
+ *   - Gyre: read the EDF, then per channel band-pass + analytic signal (one FFT pair),
+ *     instantaneous frequency, and the median across 10 running medians;
+ *   - scripts/bench_scipy.py: the same steps with scipy.fft and scipy.ndimage.median_filter,
+ * one after the other, both single-threaded, and prints wall time per stage, peak
+ * memory and the ratio Gyre / scipy. With `--repeat R` (default 2) both sides run R
+ * times in turn and each stage keeps its fastest run, as the machine may be shared. Reading the EDF is reported but left out of the
+ * totals (the two readers do different work: Gyre's validates the whole file).
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { performance } from 'node:perf_hooks';
+import { readEdf } from '../edf/edf-reader';
+import { writeEdf } from '../edf/edf-writer';
+import {
+  defaultEdgePaddingS,
+  FrequencySlidingOptions,
+  FrequencySlidingWorkspace,
+  medianFilterFrequency,
+  medianWindowLengths,
+  narrowBandAnalytic,
+  resolveBandHz,
+} from '../frequency/frequency-sliding';
+import { phaseDifferenceFrequency } from '../frequency/instantaneous-frequency';
+import { DEFAULT_TRANSITION_FRACTION } from '../frequency/spectral-weights';
+import { syntheticTaskRecording } from '../synthetic/synthetic-eeg';
+
+/** 64 labels of the 10-10 system (ACNS 2016). */
+const LABELS_64 = (
+  'Fp1 Fpz Fp2 AF7 AF3 AFz AF4 AF8 F7 F5 F3 F1 Fz F2 F4 F6 F8 FT7 FC5 FC3 FC1 FCz FC2 FC4 ' +
+  'FC6 FT8 T7 C5 C3 C1 Cz C2 C4 C6 T8 TP7 CP5 CP3 CP1 CPz CP2 CP4 CP6 TP8 P7 P5 P3 P1 Pz ' +
+  'P2 P4 P6 P8 PO7 PO3 POz PO4 PO8 O1 Oz O2 Iz F9 F10'
+).split(' ');
+
+interface Stages {
+  bandPassAnalytic: number;
+  frequency: number;
+  median: number;
+}
+
+interface GyreMeasurement {
+  channels: number;
+  samplesPerChannel: number;
+  readEdfS: number;
+  stagesS: Stages;
+  peakRssMb: number;
+}
+
+interface ScipyMeasurement {
+  numpy: string;
+  scipy: string;
+  channels: number;
+  readEdfS: number;
+  stagesS: Stages;
+  peakRssMb: number;
+}
+
+function argument(name: string, fallback: string): string {
+  const i = process.argv.indexOf(name);
+  return i >= 0 && process.argv[i + 1] !== undefined ? process.argv[i + 1] : fallback;
+}
+
+function sliderOptions(fs: number): FrequencySlidingOptions {
+  return { sampleRateHz: fs, bandHz: [8, 13] };
+}
+
+/** Child process 1: generate the recording and write the EDF+ file. */
+function writeCase(path: string, minutes: number, channels: number, fs: number): void {
+  const durationS = minutes * 60;
+  const onsetsS: number[] = [];
+  for (let t = 3; t < durationS - 3; t += 4) onsetsS.push(t);
+  const recording = syntheticTaskRecording({
+    sampleRateHz: fs,
+    durationS,
+    channelLabels: LABELS_64.slice(0, channels),
+    onsetsS,
+    seed: 42,
+  });
+  const bytes = writeEdf({
+    startDate: '2024-03-01T09:00:00',
+    signals: recording.signals.map((s) => ({
+      label: s.label,
+      sampleRateHz: fs,
+      physicalMin: -500,
+      physicalMax: 500,
+      samples: s.samples,
+    })),
+    annotations: recording.annotations,
+  });
+  writeFileSync(path, bytes);
+}
+
+/** Child process 2: Gyre's pipeline on the file, stage by stage, single-threaded. */
+function measureGyre(path: string, checkPath: string): GyreMeasurement {
+  const t0 = performance.now();
+  const recording = readEdf(readFileSync(path));
+  const readEdfS = (performance.now() - t0) / 1000;
+  const stages: Stages = { bandPassAnalytic: 0, frequency: 0, median: 0 };
+  const workspace = new FrequencySlidingWorkspace();
+  recording.signals.forEach((signal, index) => {
+    const options = sliderOptions(signal.sampleRateHz);
+    const windows = medianWindowLengths({ sampleRateHz: signal.sampleRateHz });
+    const a = performance.now();
+    const z = narrowBandAnalytic(signal.samples, options, workspace);
+    const b = performance.now();
+    const raw = phaseDifferenceFrequency(z, { sampleRateHz: signal.sampleRateHz });
+    const c = performance.now();
+    const filtered = medianFilterFrequency(raw, windows, workspace);
+    const d = performance.now();
+    stages.bandPassAnalytic += (b - a) / 1000;
+    stages.frequency += (c - b) / 1000;
+    stages.median += (d - c) / 1000;
+    if (index === 0) writeFileSync(checkPath, new Uint8Array(filtered.buffer));
+  });
+  return {
+    channels: recording.signals.length,
+    samplesPerChannel: recording.signals[0].samples.length,
+    readEdfS,
+    stagesS: stages,
+    peakRssMb: process.resourceUsage().maxRSS / 1024,
+  };
+}
+
+function runChild(args: string[]): string {
+  const child = spawnSync(process.execPath, [__filename, ...args], {
+    encoding: 'utf8',
+    maxBuffer: 1 << 24,
+  });
+  if (child.status !== 0) {
+    throw new Error(`bench child ${args.join(' ')} failed:\n${child.stderr}`);
+  }
+  return child.stdout;
+}
+
+function format(seconds: number): string {
+  return seconds.toFixed(2).padStart(8);
+}
+
+function compareCheck(gyrePath: string, scipyPath: string, fs: number): number {
+  const read = (p: string): Float64Array => {
+    const b = readFileSync(p);
+    return new Float64Array(b.buffer.slice(b.byteOffset, b.byteOffset + b.byteLength));
+  };
+  const a = read(gyrePath);
+  const b = read(scipyPath);
+  let worst = 0;
+  for (let i = fs; i < Math.min(a.length, b.length) - fs; i++)
+    worst = Math.max(worst, Math.abs(a[i] - b[i]));
+  return worst;
+}
+
+function runCase(minutes: number, channels: number, fs: number, dir: string, repeat: number): void {
+  const path = join(dir, `bench-${minutes}min.edf`);
+  const gyreCheck = join(dir, `gyre-${minutes}.f64`);
+  const scipyCheck = join(dir, `scipy-${minutes}.f64`);
+  const w0 = performance.now();
+  runChild(['--child-write', path, String(minutes), String(channels), String(fs)]);
+  console.log(
+    `\n${channels} channels × ${minutes} min at ${fs} Hz (generated, written in ${((performance.now() - w0) / 1000).toFixed(1)} s)`,
+  );
+  const options = sliderOptions(fs);
+  const band = resolveBandHz(options);
+  const runScipy = (): ScipyMeasurement => {
+    const python = spawnSync(
+      'python3',
+      [
+        resolve(__dirname, '../../../scripts/bench_scipy.py'),
+        path,
+        '--band',
+        band.join(','),
+        '--transition',
+        String(DEFAULT_TRANSITION_FRACTION),
+        '--padding-s',
+        String(defaultEdgePaddingS(options)),
+        '--windows',
+        medianWindowLengths({ sampleRateHz: fs }).join(','),
+        '--check-out',
+        scipyCheck,
+      ],
+      { encoding: 'utf8', maxBuffer: 1 << 24 },
+    );
+    if (python.status !== 0) throw new Error(`bench_scipy.py failed:\n${python.stderr}`);
+    return JSON.parse(python.stdout) as ScipyMeasurement;
+  };
+  // The machine may be shared: run both sides in turn `repeat` times and keep each
+  // side's fastest run per stage (the least disturbed one).
+  const gyreRuns: GyreMeasurement[] = [];
+  const scipyRuns: ScipyMeasurement[] = [];
+  for (let r = 0; r < repeat; r++) {
+    gyreRuns.push(JSON.parse(runChild(['--child-measure', path, gyreCheck])) as GyreMeasurement);
+    scipyRuns.push(runScipy());
+  }
+  const fastest = <T extends { stagesS: Stages; readEdfS: number; peakRssMb: number }>(
+    runs: T[],
+  ): T => ({
+    ...runs[0],
+    readEdfS: Math.min(...runs.map((x) => x.readEdfS)),
+    peakRssMb: Math.max(...runs.map((x) => x.peakRssMb)),
+    stagesS: {
+      bandPassAnalytic: Math.min(...runs.map((x) => x.stagesS.bandPassAnalytic)),
+      frequency: Math.min(...runs.map((x) => x.stagesS.frequency)),
+      median: Math.min(...runs.map((x) => x.stagesS.median)),
+    },
+  });
+  const gyre = fastest(gyreRuns);
+  const scipy = fastest(scipyRuns);
+  const totals = (runs: { stagesS: Stages }[]): string =>
+    runs
+      .map((x) => (x.stagesS.bandPassAnalytic + x.stagesS.frequency + x.stagesS.median).toFixed(2))
+      .join(', ');
+  console.log(`runs (total s): Gyre ${totals(gyreRuns)}; scipy ${totals(scipyRuns)}`);
+  const rows: [string, number, number][] = [
+    ['band-pass + analytic', gyre.stagesS.bandPassAnalytic, scipy.stagesS.bandPassAnalytic],
+    ['instantaneous freq.', gyre.stagesS.frequency, scipy.stagesS.frequency],
+    ['10-window median', gyre.stagesS.median, scipy.stagesS.median],
+  ];
+  const gyreTotal = rows.reduce((s, r) => s + r[1], 0);
+  const scipyTotal = rows.reduce((s, r) => s + r[2], 0);
+  console.log(
+    `stage                   Gyre (s)  scipy (s)  Gyre/scipy   [numpy ${scipy.numpy}, scipy ${scipy.scipy}]`,
+  );
+  for (const [name, g, s] of [
+    ...rows,
+    ['total', gyreTotal, scipyTotal] as [string, number, number],
+  ]) {
+    console.log(
+      `${name.padEnd(22)}${format(g)}  ${format(s)}   ${(g / s).toFixed(2).padStart(8)}×`,
+    );
+  }
+  console.log(`read EDF (not in total)${format(gyre.readEdfS)}  ${format(scipy.readEdfS)}`);
+  console.log(
+    `peak memory             ${gyre.peakRssMb.toFixed(0).padStart(5)} MB  ${scipy.peakRssMb.toFixed(0).padStart(6)} MB`,
+  );
+  console.log(
+    `check: channel 1 final frequency, max |Gyre − scipy| 1 s away from the edges = ${compareCheck(gyreCheck, scipyCheck, fs).toExponential(2)} Hz`,
+  );
+  for (const p of [path, gyreCheck, scipyCheck]) rmSync(p, { force: true });
+}
+
+function main(): void {
+  const argv = process.argv;
+  if (argv[2] === '--child-write') {
+    writeCase(argv[3], Number(argv[4]), Number(argv[5]), Number(argv[6]));
+    return;
+  }
+  if (argv[2] === '--child-measure') {
+    process.stdout.write(JSON.stringify(measureGyre(argv[3], argv[4])));
+    return;
+  }
+  const minutes = argument('--minutes', '10,60').split(',').map(Number);
+  const channels = Number(argument('--channels', '64'));
+  const fs = Number(argument('--rate', '500'));
+  const repeat = Math.max(1, Number(argument('--repeat', '2')));
+  const dir = mkdtempSync(join(tmpdir(), 'gyre-bench-'));
+  console.log('Gyre signal benchmark: single-threaded, Gyre and scipy run one after the other.');
+  try {
+    for (const m of minutes) runCase(m, channels, fs, dir, repeat);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+main();
