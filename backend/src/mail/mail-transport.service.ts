@@ -1,4 +1,4 @@
-import { Inject, Injectable, Logger, OnModuleDestroy } from '@nestjs/common';
+import { Inject, Injectable, Logger, OnModuleDestroy, OnModuleInit } from '@nestjs/common';
 import { createTransport, Transporter } from 'nodemailer';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
@@ -8,15 +8,19 @@ export const MAIL_FROM = 'Gyre <no-reply@gyre.invalid>';
 
 /**
  * nodemailer over SMTP to `SMTP_URL`; without it, to Gyre's local fake SMTP server, which is
- * started on first use and keeps messages under `data/mail/`.
+ * started with the application and keeps messages under `data/mail/`.
  */
 @Injectable()
-export class MailTransport implements OnModuleDestroy {
+export class MailTransport implements OnModuleInit, OnModuleDestroy {
   private readonly logger = new Logger('Mail');
   private transporter: Promise<Transporter> | null = null;
   private fakeServer: FakeSmtpServer | null = null;
 
   constructor(@Inject(APP_CONFIG) private readonly config: AppConfig) {}
+
+  async onModuleInit(): Promise<void> {
+    await this.transporterOnce();
+  }
 
   async send(message: { to: string; subject: string; text: string }): Promise<string> {
     const transporter = await this.transporterOnce();
