@@ -1,0 +1,29 @@
+import { DynamicModule, Module } from '@nestjs/common';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { AuditModule } from '../audit/audit.module';
+import { PasswordHasher } from '../auth/password-hasher.service';
+import { AppConfigModule } from '../config/config.module';
+import { DatabaseModule } from '../database/database.module';
+import { User } from '../users/user.entity';
+import { DemoSeedService } from './demo-seed.service';
+
+/**
+ * A standalone application context for the demo seeder (see `create-first-admin.ts`): the
+ * configuration, the database (migrations applied) and the audit trail, nothing that serves HTTP.
+ */
+@Module({})
+export class DemoModule {
+  static forRoot(env: Record<string, unknown> = process.env): DynamicModule {
+    return {
+      module: DemoModule,
+      imports: [
+        AppConfigModule.forRoot(env),
+        DatabaseModule,
+        AuditModule,
+        TypeOrmModule.forFeature([User]),
+      ],
+      providers: [DemoSeedService, PasswordHasher],
+      exports: [DemoSeedService],
+    };
+  }
+}

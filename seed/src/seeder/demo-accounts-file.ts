@@ -1,0 +1,48 @@
+/**
+ * Generated passwords of the demo accounts and the file that lists them,
+ * DATA_DIR/demo-accounts.txt, readable by its owner only (mode 600).
+ */
+import { randomBytes } from 'node:crypto';
+import { chmodSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { DemoAccount } from '../scenario/demo-scenario';
+
+export const DEMO_ACCOUNTS_FILE = 'demo-accounts.txt';
+
+export interface DemoCredential extends DemoAccount {
+  password: string;
+  siteName: string | null;
+}
+
+/** 20 characters from 120 random bits (base64url): far past Gyre's 12-character minimum. */
+export function generatePassword(): string {
+  return randomBytes(15).toString('base64url');
+}
+
+/** The accounts as an aligned text table, as written to the file and printed at first start. */
+export function formatAccounts(credentials: readonly DemoCredential[], signInUrl: string): string {
+  const rows = credentials.map((c) => [c.role, c.siteName ?? '—', c.email, c.password]);
+  const header = ['role', 'site', 'e-mail', 'password'];
+  const widths = header.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i].length)));
+  const line = (cells: string[]): string =>
+    cells
+      .map((cell, i) => cell.padEnd(widths[i]))
+      .join('  ')
+      .trimEnd();
+  return [
+    'Gyre demo accounts (generated passwords; the demo study and its people are invented)',
+    `Sign in at ${signInUrl}`,
+    '',
+    line(header),
+    ...rows.map(line),
+    '',
+  ].join('\n');
+}
+
+/** Writes DATA_DIR/demo-accounts.txt with mode 600 (also when the file was already there). */
+export function writeAccountsFile(dataDir: string, text: string): string {
+  const file = join(dataDir, DEMO_ACCOUNTS_FILE);
+  writeFileSync(file, text, { mode: 0o600 });
+  chmodSync(file, 0o600);
+  return file;
+}

@@ -1,0 +1,347 @@
+/**
+ * Loads the invented demo study into a running, empty Gyre through its own HTTP API, the way
+ * its people would: the admin sets up the study, sites and invitations; each invited person
+ * activates their account from the e-mail; each site's technician registers participants
+ * and visits and uploads both recordings of every visit (multipart, as the Intake screen
+ * does); the server validates and computes them; the analyst raises one slowing flag.
+ * No result is written by the seeder: every number comes out of Gyre's own pipeline.
+ */
+import { join } from 'node:path';
+import type {
+  DemoAccount,
+  DemoParticipant,
+  DemoScenario,
+  DemoVisit,
+} from '../scenario/demo-scenario';
+import { generateVisitRecordings, truncatedCopy } from '../scenario/demo-recordings';
+import { waitForLinkToken } from './captured-mail';
+import {
+  DemoCredential,
+  formatAccounts,
+  generatePassword,
+  writeAccountsFile,
+} from './demo-accounts-file';
+import { GyreApiError, GyreClient } from './gyre-client';
+
+/** The only step outside the API: the first admin of an empty installation. */
+export type CreateFirstAdmin = (input: {
+  email: string;
+  name: string;
+  password: string;
+}) => Promise<{ created: boolean }>;
+
+export interface SeedDemoOptions {
+  /** The running server, e.g. `http://127.0.0.1:3000`. */
+  baseUrl: string;
+  /** The server's DATA_DIR: invitation e-mails are read from its `mail/`, the accounts file goes here. */
+  dataDir: string;
+  /** Shown in the accounts file. */
+  signInUrl: string;
+  scenario: DemoScenario;
+  createFirstAdmin: CreateFirstAdmin;
+  log?: (line: string) => void;
+  /** Wait until every recording is computed, then raise the flag (default true). */
+  waitForResults?: boolean;
+  /** Default 15 minutes. */
+  resultTimeoutMs?: number;
+}
+
+export interface SeededVisit {
+  label: string;
+  visitId: string;
+  /** The generated truth of this visit. */
+  truth: DemoVisit;
+  restingRecordingId: string;
+  taskRecordingId: string;
+}
+
+export interface SeededParticipant {
+  code: string;
+  participantId: string;
+  truth: DemoParticipant;
+  visits: SeededVisit[];
+}
+
+export interface DemoSeedResult {
+  status: 'seeded' | 'not-empty';
+  credentials: DemoCredential[];
+  accountsFile: string | null;
+  studyId: string | null;
+  participants: SeededParticipant[];
+  rejectedRecordingId: string | null;
+  flaggedVisitId: string | null;
+  /** Recordings by state when seeding ended. */
+  recordingStates: Record<string, number>;
+  timingsMs: { accounts: number; uploads: number; results: number; total: number };
+}
+
+interface IdOnly {
+  id: string;
+}
+
+interface RecordingSummary {
+  id: string;
+  state: string;
+  progressPercent: number | null;
+  failureMessage: string | null;
+}
+
+const SETTLED = new Set(['ready', 'rejected', 'failed']);
+const POLL_MS = 1000;
+const PROGRESS_EVERY_MS = 10_000;
+
+/** Seeds the demo; answers `not-empty` (and changes nothing) when the installation has users. */
+export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult> {
+  const log = options.log ?? (() => undefined);
+  const { scenario } = options;
+  const startedAt = Date.now();
+  const anonymous = new GyreClient(options.baseUrl);
+  const siteName = (key: string | null): string | null =>
+    key === null ? null : (scenario.sites.find((s) => s.key === key)?.name ?? key);
+  const credentials: DemoCredential[] = scenario.accounts.map((account) => ({
+    ...account,
+    password: generatePassword(),
+    siteName: siteName(account.siteKey),
+  }));
+  const credentialOf = (
+    role: DemoAccount['role'],
+    siteKey: string | null = null,
+  ): DemoCredential => {
+    const found = credentials.find((c) => c.role === role && c.siteKey === siteKey);
+    if (found === undefined)
+      throw new Error(`The scenario has no ${role} account for site ${siteKey}`);
+    return found;
+  };
+
+  const admin = credentialOf('admin');
+  const first = await options.createFirstAdmin({
+    email: admin.email,
+    name: admin.displayName,
+    password: admin.password,
+  });
+  if (!first.created) {
+    return {
+      status: 'not-empty',
+      credentials: [],
+      accountsFile: null,
+      studyId: null,
+      participants: [],
+      rejectedRecordingId: null,
+      flaggedVisitId: null,
+      recordingStates: {},
+      timingsMs: { accounts: 0, uploads: 0, results: 0, total: Date.now() - startedAt },
+    };
+  }
+  log(`created the first admin ${admin.email}`);
+  const asAdmin = await anonymous.signIn(admin.email, admin.password);
+
+  // The admin's part: study, sites, invitations (Team screen).
+  const study = await asAdmin.post<IdOnly>('/api/studies', scenario.study);
+  const siteIds = new Map<string, string>();
+  for (const site of scenario.sites) {
+    const created = await asAdmin.post<IdOnly>('/api/sites', {
+      studyId: study.id,
+      code: site.code,
+      name: site.name,
+    });
+    siteIds.set(site.key, created.id);
+  }
+  const siteIdOf = (key: string): string => {
+    const id = siteIds.get(key);
+    if (id === undefined) throw new Error(`The scenario names an unknown site '${key}'`);
+    return id;
+  };
+  const mailDir = join(options.dataDir, 'mail');
+  for (const account of credentials.filter((c) => c.role !== 'admin')) {
+    await asAdmin.post('/api/users/invitations', {
+      email: account.email,
+      name: account.displayName,
+      role: account.role,
+      studyId: study.id,
+      ...(account.siteKey === null ? {} : { siteId: siteIdOf(account.siteKey) }),
+    });
+  }
+  // Each invited person follows the link in their e-mail and chooses a password.
+  for (const account of credentials.filter((c) => c.role !== 'admin')) {
+    const token = await waitForLinkToken({ mailDir, to: account.email, route: '/accept-invite' });
+    await anonymous.post('/api/auth/accept-invitation', { token, password: account.password });
+  }
+  const accountsFile = writeAccountsFile(
+    options.dataDir,
+    formatAccounts(credentials, options.signInUrl),
+  );
+  const accountsMs = Date.now() - startedAt;
+  log(`${credentials.length} demo accounts ready (${accountsFile})`);
+  log(formatAccounts(credentials, options.signInUrl));
+
+  // The technicians' part: participants, visits and uploads (Intake screen).
+  const technicians = new Map<string, GyreClient>();
+  for (const site of scenario.sites) {
+    const technician = credentialOf('technician', site.key);
+    technicians.set(site.key, await anonymous.signIn(technician.email, technician.password));
+  }
+  const uploadsStartedAt = Date.now();
+  const participants: SeededParticipant[] = [];
+  let rejectedRecordingId: string | null = null;
+  let uploadCount = 0;
+  for (const participant of scenario.participants) {
+    const technician = technicians.get(participant.siteKey);
+    if (technician === undefined)
+      throw new Error(`No technician for site '${participant.siteKey}'`);
+    const created = await technician.post<IdOnly>('/api/participants', { code: participant.code });
+    const seeded: SeededParticipant = {
+      code: participant.code,
+      participantId: created.id,
+      truth: participant,
+      visits: [],
+    };
+    for (const visit of participant.visits) {
+      const visitRow = await technician.post<IdOnly>('/api/visits', {
+        participantId: created.id,
+        label: visit.label,
+        visitDate: visit.date,
+      });
+      const files = generateVisitRecordings(scenario, participant, visit);
+      const baseName = `${participant.code}_${visit.label.replace(/\s+/g, '-').toLowerCase()}`;
+      // Resting first: the server computes a visit's task with the band around its resting IAF.
+      const resting = await technician.upload<IdOnly>(visitRow.id, {
+        kind: 'resting',
+        fileName: `${baseName}_resting.edf`,
+        edf: files.resting.edf,
+      });
+      const onsetCsv =
+        visit.withOnsetCsv && files.task.onsetCsv !== null
+          ? { fileName: `${baseName}_onsets.csv`, text: files.task.onsetCsv }
+          : null;
+      const target = scenario.malformedUpload;
+      if (target.participantCode === participant.code && target.visitLabel === visit.label) {
+        rejectedRecordingId = await uploadBroken(technician, visitRow.id, {
+          fileName: `${baseName}_task.edf`,
+          edf: truncatedCopy(files.task.edf),
+        });
+        log(`${participant.code} ${visit.label}: the cut-off task file was rejected, as intended`);
+        uploadCount++;
+      }
+      const task = await technician.upload<IdOnly>(visitRow.id, {
+        kind: 'task',
+        fileName: `${baseName}_task.edf`,
+        edf: files.task.edf,
+        onsetCsv,
+      });
+      uploadCount += 2;
+      seeded.visits.push({
+        label: visit.label,
+        visitId: visitRow.id,
+        truth: visit,
+        restingRecordingId: resting.id,
+        taskRecordingId: task.id,
+      });
+    }
+    participants.push(seeded);
+    log(
+      `${participant.code}: ${participant.visits.length} visits uploaded (${uploadCount} files so far)`,
+    );
+  }
+  const uploadsMs = Date.now() - uploadsStartedAt;
+  log(`all ${uploadCount} uploads done in ${(uploadsMs / 1000).toFixed(1)} s; computing goes on`);
+
+  const analyst = credentialOf('analyst');
+  const asAnalyst = await anonymous.signIn(analyst.email, analyst.password);
+  const resultsStartedAt = Date.now();
+  let recordingStates: Record<string, number> = {};
+  let flaggedVisitId: string | null = null;
+  if (options.waitForResults ?? true) {
+    recordingStates = await waitUntilSettled(asAnalyst, {
+      expected: uploadCount,
+      timeoutMs: options.resultTimeoutMs ?? 15 * 60_000,
+      log,
+    });
+    // The analyst's part: one slowing flag with a written reason (Review screen).
+    const flagTarget = participants
+      .find((p) => p.code === scenario.flag.participantCode)
+      ?.visits.find((v) => v.label === scenario.flag.visitLabel);
+    if (flagTarget === undefined) throw new Error('The scenario flags a visit it does not have');
+    await asAnalyst.post(`/api/visits/${flagTarget.visitId}/flag/raise`, {
+      reason: scenario.flag.reason,
+    });
+    flaggedVisitId = flagTarget.visitId;
+    log(
+      `${scenario.flag.participantCode} ${scenario.flag.visitLabel}: slowing flag raised by the analyst`,
+    );
+  }
+  const resultsMs = Date.now() - resultsStartedAt;
+  return {
+    status: 'seeded',
+    credentials,
+    accountsFile,
+    studyId: study.id,
+    participants,
+    rejectedRecordingId,
+    flaggedVisitId,
+    recordingStates,
+    timingsMs: {
+      accounts: accountsMs,
+      uploads: uploadsMs,
+      results: resultsMs,
+      total: Date.now() - startedAt,
+    },
+  };
+}
+
+/** Sends a file the server must refuse; returns the id of the `rejected` recording it keeps. */
+async function uploadBroken(
+  technician: GyreClient,
+  visitId: string,
+  file: { fileName: string; edf: Uint8Array },
+): Promise<string> {
+  try {
+    await technician.upload(visitId, { kind: 'task', ...file });
+  } catch (error) {
+    if (error instanceof GyreApiError && error.code === 'RECORDING_REJECTED') {
+      const details = error.details as { recording?: { id?: unknown } } | null;
+      const id = details?.recording?.id;
+      if (typeof id === 'string') return id;
+    }
+    throw error;
+  }
+  throw new Error('The cut-off demo file was accepted: Gyre should have rejected it');
+}
+
+/** Polls `GET /api/recordings` until all `expected` recordings are ready, rejected or failed. */
+async function waitUntilSettled(
+  client: GyreClient,
+  options: { expected: number; timeoutMs: number; log: (line: string) => void },
+): Promise<Record<string, number>> {
+  const deadline = Date.now() + options.timeoutMs;
+  let lastReport = Date.now();
+  for (;;) {
+    const all: RecordingSummary[] = [];
+    for (let page = 1; ; page++) {
+      const result = await client.get<{ items: RecordingSummary[]; total: number }>(
+        `/api/recordings?pageSize=200&page=${page}`,
+      );
+      all.push(...result.items);
+      if (all.length >= result.total || result.items.length === 0) break;
+    }
+    const states: Record<string, number> = {};
+    for (const r of all) states[r.state] = (states[r.state] ?? 0) + 1;
+    const settled = all.filter((r) => SETTLED.has(r.state)).length;
+    if (all.length >= options.expected && settled === all.length) {
+      for (const failed of all.filter((r) => r.state === 'failed')) {
+        options.log(`recording ${failed.id} failed: ${failed.failureMessage ?? 'no message'}`);
+      }
+      return states;
+    }
+    if (Date.now() - lastReport >= PROGRESS_EVERY_MS) {
+      lastReport = Date.now();
+      const summary = Object.entries(states)
+        .map(([state, count]) => `${count} ${state}`)
+        .join(', ');
+      options.log(`computing: ${summary}`);
+    }
+    if (Date.now() > deadline) {
+      throw new Error(`Recordings still computing after ${options.timeoutMs / 1000} s`);
+    }
+    await new Promise((resolve) => setTimeout(resolve, POLL_MS));
+  }
+}
