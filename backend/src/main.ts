@@ -8,7 +8,7 @@ import { EnvironmentError } from './config/environment';
 async function bootstrap(): Promise<void> {
   const app = await createApp();
   const config = app.get<AppConfig>(APP_CONFIG);
-  await app.listen(config.port, '0.0.0.0');
+  await app.listen(config.port, config.host);
   const url = `http://localhost:${config.port}`;
   Logger.log(`Gyre is running at ${url} (API ${url}/api, data in ${config.dataDir})`, 'Gyre');
   if (config.jwtSecretSource === 'generated') {

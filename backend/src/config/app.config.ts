@@ -6,6 +6,8 @@ import { EnvironmentError, EnvironmentVariables, NodeEnv } from './environment';
 export interface AppConfig {
   nodeEnv: NodeEnv;
   port: number;
+  /** The address to listen on: loopback unless HOST says otherwise (e.g. 0.0.0.0). */
+  host: string;
   /** Everything Gyre writes lives here: database, uploads, secrets, mail. */
   dataDir: string;
   databaseFile: string;
@@ -33,6 +35,7 @@ export function buildAppConfig(env: EnvironmentVariables): AppConfig {
   return {
     nodeEnv,
     port,
+    host: env.HOST ?? '127.0.0.1',
     dataDir,
     databaseFile: join(dataDir, 'gyre.sqlite'),
     uploadsDir: join(dataDir, 'uploads'),

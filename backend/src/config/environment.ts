@@ -2,6 +2,7 @@ import { plainToInstance, Transform } from 'class-transformer';
 import {
   IsIn,
   IsInt,
+  IsIP,
   IsOptional,
   IsString,
   IsUrl,
@@ -30,6 +31,10 @@ export class EnvironmentVariables {
   @Min(0)
   @Max(65535)
   PORT?: number;
+
+  @IsOptional()
+  @IsIP()
+  HOST?: string;
 
   @IsOptional()
   @IsString()
@@ -94,6 +99,7 @@ export function validateEnvironment(raw: Record<string, unknown>): EnvironmentVa
 class EnvironmentVariablesKeys implements Record<keyof EnvironmentVariables, undefined> {
   NODE_ENV = undefined;
   PORT = undefined;
+  HOST = undefined;
   DATA_DIR = undefined;
   JWT_SECRET = undefined;
   SMTP_URL = undefined;
