@@ -1,18 +1,26 @@
 import type { JobDto, RecordingDto } from '@gyre/shared';
-import { mutate } from 'swr';
+import { useCallback } from 'react';
+import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
 import { visitRecordingsKey } from './get-visit-recordings';
 
 /** `POST /api/recordings/:recordingId/runs`: computes one recording again with the current settings. */
-export async function rerunRecording(
-  recording: RecordingDto,
-  reason: string | null,
-): Promise<JobDto> {
-  const job = await apiSend<JobDto>(
-    `/api/recordings/${encodeURIComponent(recording.id)}/runs`,
+export function rerunRecording(recordingId: string, reason: string | null): Promise<JobDto> {
+  return apiSend<JobDto>(
+    `/api/recordings/${encodeURIComponent(recordingId)}/runs`,
     'POST',
     reason === null ? {} : { reason },
   );
-  await mutate(visitRecordingsKey(recording.visitId));
-  return job;
+}
+
+export function useRerunRecording() {
+  const { mutate } = useSWRConfig();
+  return useCallback(
+    async (recording: RecordingDto, reason: string | null) => {
+      const job = await rerunRecording(recording.id, reason);
+      await mutate(visitRecordingsKey(recording.visitId));
+      return job;
+    },
+    [mutate],
+  );
 }

@@ -95,6 +95,7 @@ function FlagForm({
   return (
     <Form
       form={form}
+      name="flag"
       layout="vertical"
       requiredMark={false}
       aria-label={action}

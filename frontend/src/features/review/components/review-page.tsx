@@ -14,8 +14,8 @@ import { ResearchCaution } from '../../../components/research-caution';
 import { formatDate, formatHz } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
-import { clearFlag } from '../api/clear-flag';
-import { createAnalysisSettings } from '../api/create-analysis-settings';
+import { useClearFlag } from '../api/clear-flag';
+import { useCreateAnalysisSettings } from '../api/create-analysis-settings';
 import { useAnalysisSettings } from '../api/get-analysis-settings';
 import { useParticipant } from '../api/get-participant';
 import { useRecordingResults } from '../api/get-recording-results';
@@ -23,9 +23,9 @@ import { useVisit } from '../api/get-visit';
 import { useVisitFlag } from '../api/get-visit-flag';
 import { useVisitRecordings } from '../api/get-visit-recordings';
 import { useVisitReport } from '../api/get-visit-report';
-import { raiseFlag } from '../api/raise-flag';
-import { rerunRecording } from '../api/rerun-recording';
-import { rerunVisit } from '../api/rerun-visit';
+import { useRaiseFlag } from '../api/raise-flag';
+import { useRerunRecording } from '../api/rerun-recording';
+import { useRerunVisit } from '../api/rerun-visit';
 import { ChannelTable } from './channel-table';
 import { FlagPanel } from './flag-panel';
 import { OnsetCurveChart } from './onset-curve-chart';
@@ -63,6 +63,7 @@ function StaleNotice({
   recording: RecordingDto;
   canRerun: boolean;
 }) {
+  const rerun = useRerunRecording();
   if (current === undefined || results.run.settingsVersion >= current.version) return null;
   return (
     <Alert
@@ -74,9 +75,7 @@ function StaleNotice({
         canRerun ? (
           <Button
             size="small"
-            onClick={() =>
-              void rerunRecording(recording, `Bring up to settings version ${current.version}`)
-            }
+            onClick={() => void rerun(recording, `Bring up to settings version ${current.version}`)}
           >
             Re-run with version {current.version}
           </Button>
@@ -125,6 +124,10 @@ export function ReviewPage() {
   const settings = useAnalysisSettings(visit.data?.studyId);
   const flag = useVisitFlag(visitId);
   const report = useVisitReport(visitId);
+  const raiseFlag = useRaiseFlag(visitId);
+  const clearFlag = useClearFlag(visitId);
+  const createAnalysisSettings = useCreateAnalysisSettings();
+  const rerunVisit = useRerunVisit();
 
   const canChangeSettings =
     ability.can('create', 'AnalysisSettings') && ability.can('rerun', 'AnalysisRun');
@@ -315,10 +318,10 @@ export function ReviewPage() {
                     meId={me.user.id}
                     canChange={canFlag}
                     onRaise={async (change) => {
-                      await raiseFlag(visitId, change);
+                      await raiseFlag(change);
                     }}
                     onClear={async (change) => {
-                      await clearFlag(visitId, change);
+                      await clearFlag(change);
                     }}
                   />
                 )}

@@ -48,7 +48,7 @@ export function RunSummary({ run }: { run: AnalysisRunDto }) {
       className="gyre-figures"
       items={[
         ...items,
-        { key: 'band', label: 'Band', children: band, span: 2 },
+        { key: 'band', label: 'Band', children: band },
         {
           key: 'version',
           label: 'Settings',

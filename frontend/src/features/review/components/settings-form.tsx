@@ -51,10 +51,13 @@ export function SettingsForm({
   const bandMode = Form.useWatch('bandMode', form);
   const method = Form.useWatch('method', form);
 
-  const submit = async (values: Values) => {
+  const submit = async () => {
     setSaving(true);
     setFailure(null);
     try {
+      // Every value, also of fields hidden now (the wavelet cycles, a fixed band's edges):
+      // a settings version is complete, whatever the form shows.
+      const values: Values = { ...formValuesOf(current), ...form.getFieldsValue(true) };
       await onSave(changeOf(values));
       form.setFieldValue('reason', '');
     } catch (error) {
@@ -82,6 +85,7 @@ export function SettingsForm({
   return (
     <Form<Values>
       form={form}
+      name="analysis-settings"
       layout="vertical"
       requiredMark={false}
       initialValues={formValuesOf(current)}

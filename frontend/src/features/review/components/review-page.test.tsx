@@ -1,0 +1,168 @@
+import type { Role } from '@gyre/shared';
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { http, HttpResponse } from 'msw';
+import { describe, expect, it, vi } from 'vitest';
+import { installCanvasMock } from '../../../components/charts/testing/canvas-mock';
+import { meFor, STUDY } from '../../../test/fixtures';
+import { installMswServer, server } from '../../../test/msw-server';
+import { renderApp } from '../../../test/render-app';
+import {
+  NO_FLAG,
+  PARTICIPANT,
+  RECORDINGS,
+  REPORT,
+  REST_RESULTS,
+  SETTINGS,
+  TASK_RESULTS,
+  VISIT,
+} from '../testing/review-fixtures';
+
+// jsdom has no canvas for the chart library: a stand-in shows which marks would be drawn.
+vi.mock(
+  '../../../components/charts/g2-plot',
+  () => import('../../../components/charts/testing/fake-g2-plot'),
+);
+
+installMswServer();
+const canvas = installCanvasMock();
+
+function serveVisit() {
+  server.use(
+    http.get(`/api/visits/${VISIT.id}`, () => HttpResponse.json(VISIT)),
+    http.get(`/api/participants/${PARTICIPANT.id}`, () => HttpResponse.json(PARTICIPANT)),
+    http.get('/api/recordings', ({ request }) => {
+      expect(new URL(request.url).searchParams.get('visitId')).toBe(VISIT.id);
+      return HttpResponse.json({ items: RECORDINGS, total: 2, page: 1, pageSize: 200 });
+    }),
+    http.get('/api/recordings/rec-task/results', () => HttpResponse.json(TASK_RESULTS)),
+    http.get('/api/recordings/rec-resting/results', () => HttpResponse.json(REST_RESULTS)),
+    http.get(`/api/studies/${STUDY.id}/analysis-settings`, () => HttpResponse.json(SETTINGS)),
+    http.get(`/api/visits/${VISIT.id}/flag`, () => HttpResponse.json(NO_FLAG)),
+    http.get(`/api/visits/${VISIT.id}/report`, () => HttpResponse.json(REPORT)),
+  );
+}
+
+async function openReview(role: Role) {
+  serveVisit();
+  renderApp(`/review/${VISIT.id}`, meFor(role));
+  await screen.findByText(`Review · ${PARTICIPANT.code} · ${VISIT.label}`, {}, { timeout: 15_000 });
+  await screen.findByTestId('roi-delta-f', {}, { timeout: 15_000 });
+  await screen.findByRole('region', { name: "Computation's suggestion" }, { timeout: 15_000 });
+}
+
+// A whole screen renders slowly in jsdom on a shared 2-core machine.
+describe('Review', { timeout: 60_000 }, () => {
+  it('shows the caution, the results with units and two decimals, and draws every chart', async () => {
+    await openReview('analyst');
+    expect(screen.getByRole('note', { name: 'Research use caution' })).toBeInTheDocument();
+    // −0.3125 Hz to two decimals (the rounding of Number.prototype.toFixed).
+    expect(screen.getByTestId('roi-delta-f')).toHaveTextContent('-0.31 Hz');
+    expect(await screen.findByTestId('run-paf')).toHaveTextContent('10.24 Hz');
+    const onset = screen.getByRole('figure', { name: 'Onset curve' });
+    expect(within(onset).getByTestId('g2-plot').dataset.marks).toBe('rangeX area line lineX');
+    const spectrum = screen.getByRole('figure', { name: 'Rest spectrum' });
+    expect(within(spectrum).getByTestId('g2-plot').dataset.marks).toBe('rangeX line lineX lineX');
+    // The raster painted one pixel per cell: 4 trials × 8 time points.
+    await waitFor(() => expect(canvas.putImageData).toBeGreaterThan(0));
+    expect(canvas.lastImage?.width).toBe(8);
+    expect(canvas.lastImage?.height).toBe(4);
+    expect(
+      screen.getByRole('group', { name: 'Instantaneous frequency (Hz) colour legend' }),
+    ).toHaveTextContent('8.0 Hz');
+    expect(screen.getByText('Report: draft')).toBeInTheDocument();
+  });
+
+  it('gives the analyst the flag and settings forms, with the suggestion apart from the decision', async () => {
+    await openReview('analyst');
+    const suggestion = screen.getByRole('region', { name: "Computation's suggestion" });
+    expect(suggestion).toHaveTextContent('Suggests a slowing flag');
+    const decision = screen.getByRole('region', { name: "Analyst's decision" });
+    expect(decision).toHaveTextContent('No slowing flag has been raised');
+    expect(screen.getByRole('button', { name: 'Raise a slowing flag' })).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Save version 2 and re-run' })).toBeInTheDocument();
+  });
+
+  it('shows the monitor the same results read-only: no flag form, no settings form', async () => {
+    await openReview('monitor');
+    expect(screen.getByRole('region', { name: "Computation's suggestion" })).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Raise a slowing flag' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('form', { name: 'Analysis settings' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /re-run/i })).not.toBeInTheDocument();
+    expect(screen.queryByRole('textbox')).not.toBeInTheDocument();
+    // The read-only summary names the settings in force.
+    expect(screen.getByText('Defaults written by Gyre')).toBeInTheDocument();
+  });
+
+  it('raises a flag with the reason and shows the decision the server answers', async () => {
+    await openReview('analyst');
+    let sent: unknown = null;
+    server.use(
+      http.post(`/api/visits/${VISIT.id}/flag/raise`, async ({ request }) => {
+        sent = await request.json();
+        return HttpResponse.json({
+          ...NO_FLAG,
+          current: {
+            id: 'flag-1',
+            visitId: VISIT.id,
+            state: 'raised',
+            raisedById: 'user-analyst',
+            raiseReason: 'Clear slowing over O1 and Pz',
+            raisedAt: '2025-02-04T09:00:00.000Z',
+            clearedById: null,
+            clearReason: null,
+            clearedAt: null,
+          },
+        });
+      }),
+    );
+    // Pasted, not typed key by key: each key re-renders the whole screen, slowly in jsdom.
+    await userEvent.click(screen.getByLabelText('Why raise it?'));
+    await userEvent.paste('Clear slowing over O1 and Pz');
+    await userEvent.click(screen.getByRole('button', { name: 'Raise a slowing flag' }));
+    const decision = screen.getByRole('region', { name: "Analyst's decision" });
+    await waitFor(() => expect(decision).toHaveTextContent('Slowing flag raised'), {
+      timeout: 10_000,
+    });
+    expect(decision).toHaveTextContent('Clear slowing over O1 and Pz');
+    expect(sent).toEqual({ reason: 'Clear slowing over O1 and Pz' });
+    expect(
+      await screen.findByRole('button', { name: 'Clear the flag' }, { timeout: 10_000 }),
+    ).toBeInTheDocument();
+  });
+
+  it('shows an error with a retry that loads the visit once the server answers', async () => {
+    serveVisit();
+    let attempts = 0;
+    server.use(
+      http.get(`/api/visits/${VISIT.id}`, () => {
+        attempts += 1;
+        return attempts === 1
+          ? HttpResponse.json(
+              {
+                statusCode: 503,
+                code: 'UNAVAILABLE',
+                message: 'The database is busy.',
+                details: null,
+              },
+              { status: 503 },
+            )
+          : HttpResponse.json(VISIT);
+      }),
+    );
+    renderApp(`/review/${VISIT.id}`, meFor('analyst'));
+    expect(
+      await screen.findByText('This visit could not be loaded', {}, { timeout: 15_000 }),
+    ).toBeInTheDocument();
+    expect(screen.getByRole('alert')).toHaveTextContent('The database is busy.');
+    await userEvent.click(screen.getByRole('button', { name: 'Try again' }));
+    expect(
+      await screen.findByText(`Review · ${PARTICIPANT.code} · ${VISIT.label}`),
+    ).toBeInTheDocument();
+  });
+
+  it('is not available to a technician, who may not see results', async () => {
+    renderApp(`/review/${VISIT.id}`, meFor('technician'));
+    expect(await screen.findByText(/not available/i, {}, { timeout: 15_000 })).toBeInTheDocument();
+  });
+});

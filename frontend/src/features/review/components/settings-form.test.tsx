@@ -1,0 +1,94 @@
+import { render, screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it, vi } from 'vitest';
+import { SETTINGS } from '../testing/review-fixtures';
+import { SettingsForm } from './settings-form';
+
+function renderForm() {
+  const onSave = vi.fn(async () => undefined);
+  render(<SettingsForm current={SETTINGS} onSave={onSave} />);
+  return { onSave };
+}
+
+async function replace(label: string, text: string) {
+  const field = screen.getByLabelText(label);
+  await userEvent.clear(field);
+  await userEvent.type(field, text);
+}
+
+const save = () =>
+  userEvent.click(screen.getByRole('button', { name: 'Save version 2 and re-run' }));
+
+describe('SettingsForm', { timeout: 30_000 }, () => {
+  it('needs a reason of at least 10 characters', async () => {
+    const { onSave } = renderForm();
+    await save();
+    expect(await screen.findByText('Say why the settings change.')).toBeInTheDocument();
+    await userEvent.type(screen.getByLabelText('Reason for the change'), 'shorter');
+    await save();
+    expect(
+      await screen.findByText('Write at least 10 characters, so that the trail says why.'),
+    ).toBeInTheDocument();
+    expect(onSave).not.toHaveBeenCalled();
+  });
+
+  it('refuses windows the computation cannot use, naming the window', async () => {
+    const { onSave } = renderForm();
+    await replace('Baseline end', '0.1');
+    await replace('Post start', '-0.7');
+    await replace('Suggest a flag at Δf ≤', '0.1');
+    await userEvent.type(screen.getByLabelText('Reason for the change'), 'Trying other windows');
+    await save();
+    expect(
+      await screen.findByText('The baseline must end at or before onset (0 s).'),
+    ).toBeInTheDocument();
+    expect(
+      screen.getByText("The post window must start at or after the baseline's end (0.1 s)."),
+    ).toBeInTheDocument();
+    expect(screen.getByText('Use a negative change between −5 and 0 Hz.')).toBeInTheDocument();
+    expect(onSave).not.toHaveBeenCalled();
+  });
+
+  it('asks for a band at least 1 Hz wide when the band is fixed', async () => {
+    const { onSave } = renderForm();
+    await userEvent.click(screen.getByLabelText('Fixed band'));
+    await replace('Band low edge', '9');
+    await replace('Band high edge', '9.5');
+    await userEvent.type(screen.getByLabelText('Reason for the change'), 'Narrow band for a test');
+    await save();
+    expect(
+      await screen.findByText(
+        'The band must be at least 1 Hz wide (high edge above the low edge).',
+      ),
+    ).toBeInTheDocument();
+    expect(onSave).not.toHaveBeenCalled();
+  });
+
+  it('sends every setting with the reason when the form is valid', async () => {
+    const { onSave } = renderForm();
+    await userEvent.click(screen.getByLabelText('Fixed band'));
+    await replace('Band low edge', '8.5');
+    await replace('Band high edge', '12.5');
+    await replace('Post end', '1');
+    await userEvent.type(
+      screen.getByLabelText('Reason for the change'),
+      'Narrower band after the pilot',
+    );
+    await save();
+    await waitFor(() =>
+      expect(onSave).toHaveBeenCalledWith({
+        bandHz: [8.5, 12.5],
+        method: 'filter',
+        morletCycles: 7,
+        epochWindowS: [-1, 2],
+        baselineWindowS: [-0.5, 0],
+        postWindowS: [0.2, 1],
+        rejectionThresholdUv: 100,
+        flagThresholdHz: -0.2,
+        roi: ['O1', 'O2', 'Pz'],
+        onsetLabel: null,
+        reason: 'Narrower band after the pilot',
+      }),
+    );
+  });
+});

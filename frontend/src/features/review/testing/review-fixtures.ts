@@ -1,0 +1,224 @@
+import type {
+  AnalysisRunDto,
+  AnalysisSettingsDto,
+  ParticipantView,
+  RecordingDto,
+  RecordingResultsDto,
+  ReportDto,
+  VisitFlagDto,
+  VisitView,
+} from '@gyre/shared';
+import { STUDY, SITE } from '../../../test/fixtures';
+
+// Generated test data: one invented visit with a task and a resting recording.
+
+export const PARTICIPANT: ParticipantView = {
+  id: 'p-1',
+  studyId: STUDY.id,
+  siteId: SITE.id,
+  code: 'AC-0042',
+  createdAt: '2025-01-06T09:00:00.000Z',
+  updatedAt: '2025-01-06T09:00:00.000Z',
+};
+
+export const VISIT: VisitView = {
+  id: 'v-1',
+  participantId: PARTICIPANT.id,
+  studyId: STUDY.id,
+  siteId: SITE.id,
+  label: 'Baseline visit',
+  visitDate: '2025-02-03',
+  createdAt: '2025-02-03T09:00:00.000Z',
+  updatedAt: '2025-02-03T09:00:00.000Z',
+};
+
+function recording(kind: 'task' | 'resting', runId: string): RecordingDto {
+  return {
+    id: `rec-${kind}`,
+    studyId: STUDY.id,
+    siteId: SITE.id,
+    participantId: PARTICIPANT.id,
+    visitId: VISIT.id,
+    kind,
+    state: 'ready',
+    checksumSha256: 'a'.repeat(64),
+    sizeBytes: 1_000_000,
+    progressPercent: 100,
+    facts: null,
+    rejection: null,
+    failureMessage: null,
+    latestJob: null,
+    latestRunId: runId,
+    uploadedById: 'user-technician',
+    createdAt: '2025-02-03T10:00:00.000Z',
+    updatedAt: '2025-02-03T10:05:00.000Z',
+  };
+}
+
+export const RECORDINGS: RecordingDto[] = [
+  recording('task', 'run-task'),
+  recording('resting', 'run-rest'),
+];
+
+function run(kind: 'task' | 'resting'): AnalysisRunDto {
+  return {
+    id: kind === 'task' ? 'run-task' : 'run-rest',
+    recordingId: `rec-${kind}`,
+    visitId: VISIT.id,
+    participantId: PARTICIPANT.id,
+    kind,
+    settingsId: 'set-1',
+    settingsVersion: 1,
+    codeVersion: 'test',
+    inputChecksumSha256: 'a'.repeat(64),
+    bandHz: [8, 13],
+    bandSource: 'default',
+    roiDeltaFHz: kind === 'task' ? -0.3125 : null,
+    roiCiHz: kind === 'task' ? [-0.45, -0.18] : null,
+    roiPValue: kind === 'task' ? 0.0004 : null,
+    trialsKept: kind === 'task' ? 3 : null,
+    trialsTotal: kind === 'task' ? 4 : null,
+    pafHz: kind === 'resting' ? 10.236 : null,
+    cogHz: kind === 'resting' ? 10.104 : null,
+    suggestsSlowing: kind === 'task' ? true : null,
+    createdAt: '2025-02-03T10:05:00.000Z',
+  };
+}
+
+const quality = {
+  durationS: 300,
+  sampleRatesHz: [256],
+  roiChannelsFound: ['O1', 'O2', 'Pz'],
+  roiChannelsMissing: [],
+  flatChannels: [],
+  saturatedChannels: [],
+  lineNoiseRatio50Hz: 1.2,
+  lineNoiseRatio60Hz: 1.0,
+  epochsDroppedShare: 0.25,
+  phaseSlipShare: 0.02,
+  alphaPeakProminenceDb: 6.5,
+  channels: [],
+  warnings: [],
+};
+
+const timeS = [-1, -0.5, -0.25, 0, 0.25, 0.5, 1, 2];
+const curve = (name: string, shift: number) => ({
+  name,
+  meanHz: timeS.map((t) => (t > 0.1 && t < 1 ? 9.7 : 10) + shift),
+  ciLowHz: timeS.map((t) => (t > 0.1 && t < 1 ? 9.5 : 9.8) + shift),
+  ciHighHz: timeS.map((t) => (t > 0.1 && t < 1 ? 9.9 : 10.2) + shift),
+});
+
+export const TASK_RESULTS: RecordingResultsDto = {
+  run: run('task'),
+  channels: [
+    {
+      label: 'EEG O1-REF',
+      canonical: 'O1',
+      inRoi: true,
+      baselineHz: 10.01,
+      postHz: 9.65,
+      deltaFHz: -0.36,
+      ciHz: [-0.5, -0.2],
+      pValue: 0.002,
+      trials: 3,
+    },
+    {
+      label: 'EEG Fz-REF',
+      canonical: 'Fz',
+      inRoi: false,
+      baselineHz: 9.9,
+      postHz: 9.95,
+      deltaFHz: 0.05,
+      ciHz: [-0.1, 0.2],
+      pValue: 0.41,
+      trials: 3,
+    },
+    {
+      label: 'EEG Pz-REF',
+      canonical: 'Pz',
+      inRoi: true,
+      baselineHz: 10.2,
+      postHz: 9.98,
+      deltaFHz: -0.22,
+      ciHz: [-0.4, -0.05],
+      pValue: 0.03,
+      trials: 2,
+    },
+  ],
+  task: {
+    timeS,
+    baselineWindowS: [-0.5, 0],
+    postWindowS: [0.2, 0.8],
+    roi: curve('ROI', 0),
+    channels: [curve('O1', 0.05)],
+    raster: {
+      timeS,
+      trials: [timeS.map(() => 9), timeS.map(() => 10), timeS.map(() => null), timeS.map(() => 12)],
+      trialOnsetsS: [10, 20, 30, 40],
+    },
+    trialDeltaFHz: [-0.3, -0.2, null, -0.4],
+    epochs: { total: 4, kept: 3, dropped: { amplitude: 1 } },
+  },
+  rest: null,
+  quality,
+};
+
+const frequencyHz = Array.from({ length: 81 }, (_, i) => i * 0.5);
+export const REST_RESULTS: RecordingResultsDto = {
+  run: run('resting'),
+  channels: [],
+  task: null,
+  rest: {
+    frequencyHz,
+    powerUv2PerHz: frequencyHz.map((f) => 10 / (f + 1) + 5 * Math.exp(-((f - 10.2) ** 2))),
+    pafHz: 10.236,
+    cogHz: 10.104,
+    prominenceDb: 6.5,
+    noPeakReason: null,
+    alphaWindowHz: [7, 13],
+  },
+  quality,
+};
+
+export const SETTINGS: AnalysisSettingsDto = {
+  id: 'set-1',
+  studyId: STUDY.id,
+  version: 1,
+  reason: 'Defaults written by Gyre',
+  createdById: null,
+  createdAt: '2025-01-06T09:00:00.000Z',
+  bandHz: null,
+  method: 'filter',
+  morletCycles: 7,
+  epochWindowS: [-1, 2],
+  baselineWindowS: [-0.5, 0],
+  postWindowS: [0.2, 0.8],
+  rejectionThresholdUv: 100,
+  flagThresholdHz: -0.2,
+  roi: ['O1', 'O2', 'Pz'],
+  onsetLabel: null,
+};
+
+export const NO_FLAG: VisitFlagDto = {
+  visitId: VISIT.id,
+  current: null,
+  suggestion: {
+    suggestsSlowing: true,
+    runId: 'run-task',
+    roiDeltaFHz: -0.3125,
+    roiCiHz: [-0.45, -0.18],
+    flagThresholdHz: -0.2,
+  },
+  history: [],
+};
+
+export const REPORT: ReportDto = {
+  id: 'rep-1',
+  visitId: VISIT.id,
+  participantId: PARTICIPANT.id,
+  siteId: SITE.id,
+  state: 'draft',
+  createdAt: '2025-02-03T10:05:00.000Z',
+  updatedAt: '2025-02-03T10:05:00.000Z',
+};
