@@ -130,21 +130,116 @@ export class MixedRadixFftPlan {
 
   /** Writes output bins k < `bins` from the p sub-spectra. */
   private combine(subSpectrum: Float64Array[], output: Float64Array, bins: number): void {
+    if (this.factor === 3) this.combine3(subSpectrum, output, bins);
+    else if (this.factor === 5) this.combine5(subSpectrum, output, bins);
+    else this.combineAny(subSpectrum, output, bins);
+  }
+
+  /** Radix-3 butterfly: X_s = y0 + y1·W3^s + y2·W3^(2s), W3 = −½ − i·√3/2. */
+  private combine3(sub: Float64Array[], out: Float64Array, bins: number): void {
+    const l = this.subSize;
+    const w = this.twiddle;
+    const [x0, x1, x2] = sub;
+    const h = Math.sqrt(3) / 2;
+    for (let q = 0; q < l; q++) {
+      const i = 2 * q;
+      const y0r = x0[i];
+      const y0i = x0[i + 1];
+      let c = w[2 * q];
+      let d = w[2 * q + 1];
+      const y1r = x1[i] * c - x1[i + 1] * d;
+      const y1i = x1[i] * d + x1[i + 1] * c;
+      c = w[4 * q];
+      d = w[4 * q + 1];
+      const y2r = x2[i] * c - x2[i + 1] * d;
+      const y2i = x2[i] * d + x2[i + 1] * c;
+      const ar = y1r + y2r;
+      const ai = y1i + y2i;
+      const ur = h * (y1r - y2r);
+      const ui = h * (y1i - y2i);
+      const tr = y0r - 0.5 * ar;
+      const ti = y0i - 0.5 * ai;
+      put(out, bins, q, y0r + ar, y0i + ai);
+      put(out, bins, q + l, tr + ui, ti - ur);
+      put(out, bins, q + 2 * l, tr - ui, ti + ur);
+    }
+  }
+
+  /**
+   * Radix-5 butterfly with c_j = cos(2πj/5), s_j = sin(2πj/5): a1 = y1 + y4,
+   * b1 = y1 − y4, a2 = y2 + y3, b2 = y2 − y3; X1,4 = y0 + c1·a1 + c2·a2 ∓ i(s1·b1 + s2·b2),
+   * X2,3 = y0 + c2·a1 + c1·a2 ∓ i(s2·b1 − s1·b2).
+   */
+  private combine5(sub: Float64Array[], out: Float64Array, bins: number): void {
+    const l = this.subSize;
+    const w = this.twiddle;
+    const [x0, x1, x2, x3, x4] = sub;
+    const c1 = Math.cos((2 * Math.PI) / 5);
+    const c2 = Math.cos((4 * Math.PI) / 5);
+    const s1 = Math.sin((2 * Math.PI) / 5);
+    const s2 = Math.sin((4 * Math.PI) / 5);
+    for (let q = 0; q < l; q++) {
+      const i = 2 * q;
+      const y0r = x0[i];
+      const y0i = x0[i + 1];
+      let c = w[2 * q];
+      let d = w[2 * q + 1];
+      const y1r = x1[i] * c - x1[i + 1] * d;
+      const y1i = x1[i] * d + x1[i + 1] * c;
+      c = w[4 * q];
+      d = w[4 * q + 1];
+      const y2r = x2[i] * c - x2[i + 1] * d;
+      const y2i = x2[i] * d + x2[i + 1] * c;
+      c = w[6 * q];
+      d = w[6 * q + 1];
+      const y3r = x3[i] * c - x3[i + 1] * d;
+      const y3i = x3[i] * d + x3[i + 1] * c;
+      c = w[8 * q];
+      d = w[8 * q + 1];
+      const y4r = x4[i] * c - x4[i + 1] * d;
+      const y4i = x4[i] * d + x4[i + 1] * c;
+      const a1r = y1r + y4r;
+      const a1i = y1i + y4i;
+      const b1r = y1r - y4r;
+      const b1i = y1i - y4i;
+      const a2r = y2r + y3r;
+      const a2i = y2i + y3i;
+      const b2r = y2r - y3r;
+      const b2i = y2i - y3i;
+      const t1r = y0r + c1 * a1r + c2 * a2r;
+      const t1i = y0i + c1 * a1i + c2 * a2i;
+      const t2r = y0r + c2 * a1r + c1 * a2r;
+      const t2i = y0i + c2 * a1i + c1 * a2i;
+      const u1r = s1 * b1r + s2 * b2r;
+      const u1i = s1 * b1i + s2 * b2i;
+      const u2r = s2 * b1r - s1 * b2r;
+      const u2i = s2 * b1i - s1 * b2i;
+      put(out, bins, q, y0r + a1r + a2r, y0i + a1i + a2i);
+      put(out, bins, q + l, t1r + u1i, t1i - u1r);
+      put(out, bins, q + 2 * l, t2r + u2i, t2i - u2r);
+      put(out, bins, q + 3 * l, t2r - u2i, t2i + u2r);
+      put(out, bins, q + 4 * l, t1r - u1i, t1i + u1r);
+    }
+  }
+
+  /** Any factor: the p-point DFT of the twiddled values, straight from its definition. */
+  private combineAny(sub: Float64Array[], out: Float64Array, bins: number): void {
     const p = this.factor;
     const l = this.subSize;
     const w = this.twiddle;
     const root = this.root;
     const yr = new Float64Array(p);
     const yi = new Float64Array(p);
+    const rootIndex = new Int32Array(p * p);
+    for (let r = 0; r < p; r++)
+      for (let s = 0; s < p; s++) rootIndex[s * p + r] = 2 * ((r * s) % p);
     for (let q = 0; q < l; q++) {
       for (let r = 0; r < p; r++) {
-        const xr = subSpectrum[r][2 * q];
-        const xi = subSpectrum[r][2 * q + 1];
+        const xr = sub[r][2 * q];
+        const xi = sub[r][2 * q + 1];
         const t = 2 * r * q;
-        const cr = w[t];
-        const ci = w[t + 1];
-        yr[r] = xr * cr - xi * ci;
-        yi[r] = xr * ci + xi * cr;
+        yr[r] = xr * w[t] - xi * w[t + 1];
+        yi[r] = xr * w[t + 1] + xi * w[t];
       }
       for (let s = 0; s < p; s++) {
         const k = q + l * s;
@@ -152,14 +247,12 @@ export class MixedRadixFftPlan {
         let sr = 0;
         let si = 0;
         for (let r = 0; r < p; r++) {
-          const j = 2 * ((r * s) % p);
-          const cr = root[j];
-          const ci = root[j + 1];
-          sr += yr[r] * cr - yi[r] * ci;
-          si += yr[r] * ci + yi[r] * cr;
+          const j = rootIndex[s * p + r];
+          sr += yr[r] * root[j] - yi[r] * root[j + 1];
+          si += yr[r] * root[j + 1] + yi[r] * root[j];
         }
-        output[2 * k] = sr;
-        output[2 * k + 1] = si;
+        out[2 * k] = sr;
+        out[2 * k + 1] = si;
       }
     }
   }
@@ -181,4 +274,12 @@ export function mixedRadixPlan(size: number): MixedRadixFftPlan {
     plans.set(size, plan);
   }
   return plan;
+}
+
+/** Writes bin k of an interleaved spectrum when k < bins. */
+function put(out: Float64Array, bins: number, k: number, re: number, im: number): void {
+  if (k < bins) {
+    out[2 * k] = re;
+    out[2 * k + 1] = im;
+  }
 }
