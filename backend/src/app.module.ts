@@ -18,6 +18,7 @@ import { JobsModule } from './jobs/jobs.module';
 import { RecordingsModule } from './recordings/recordings.module';
 import { FlagsModule } from './flags/flags.module';
 import { TrajectoryModule } from './trajectory/trajectory.module';
+import { SignoffModule } from './signoff/signoff.module';
 
 @Module({})
 export class AppModule implements NestModule {
@@ -44,6 +45,7 @@ export class AppModule implements NestModule {
         RecordingsModule,
         FlagsModule,
         TrajectoryModule,
+        SignoffModule,
       ],
     };
   }

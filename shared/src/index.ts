@@ -6,3 +6,4 @@ export * from './study-model';
 export * from './audit';
 export * from './mail';
 export * from './recordings';
+export * from './signoff';

@@ -13,6 +13,8 @@ import { AnalysisSettings } from '../analysis/analysis-settings.entity';
 import { AnalysisRun } from '../analysis/analysis-run.entity';
 import { Flag } from '../flags/flag.entity';
 import { Report } from '../reports/report.entity';
+import { ReportRevision } from '../signoff/report-revision.entity';
+import { ReportNotification } from '../signoff/report-notification.entity';
 
 /** Every TypeORM entity, listed once; feature modules add theirs here (append only). */
 // A constructor type rather than `Function`, which the lint rules refuse.
@@ -32,4 +34,6 @@ export const ENTITIES: (new () => object)[] = [
   AnalysisRun,
   Flag,
   Report,
+  ReportRevision,
+  ReportNotification,
 ];

@@ -36,10 +36,11 @@ export class FakeSmtpServer {
     });
   }
 
-  async start(): Promise<number> {
+  /** Listens on `port` (default: any free one); a test restarts a stopped server on its old port. */
+  async start(port = 0): Promise<number> {
     await new Promise<void>((resolve, reject) => {
       this.server.once('error', reject);
-      this.server.listen(0, '127.0.0.1', () => resolve());
+      this.server.listen(port, '127.0.0.1', () => resolve());
     });
     this.port = (this.server.server.address() as AddressInfo).port;
     return this.port;

@@ -3,6 +3,7 @@ import { StudyModelAndAccounts1764633700000 } from './1764633700000-study-model-
 import { AuditTrail1764633700100 } from './1764633700100-audit-trail';
 import { MailOutbox1764633700200 } from './1764633700200-mail-outbox';
 import { RecordingsAndAnalysis1764633800000 } from './1764633800000-recordings-and-analysis';
+import { ReportSignoff1764633900000 } from './1764633900000-report-signoff';
 
 /** Every migration in order; add new ones at the end (see DEVELOPERS.md). */
 export const MIGRATIONS = [
@@ -11,4 +12,5 @@ export const MIGRATIONS = [
   AuditTrail1764633700100,
   MailOutbox1764633700200,
   RecordingsAndAnalysis1764633800000,
+  ReportSignoff1764633900000,
 ];

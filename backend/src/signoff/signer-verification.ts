@@ -1,0 +1,88 @@
+import { Injectable } from '@nestjs/common';
+import { AuditService } from '../audit/audit.service';
+import { LOCKOUT_MS, MAX_FAILED_SIGN_INS } from '../auth/auth.service';
+import type { Caller } from '../auth/decorators';
+import { PasswordHasher } from '../auth/password-hasher.service';
+import { WriteTransactions } from '../common/database/write-transactions.service';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { isoAfter, nowIso } from '../common/time';
+import { User } from '../users/user.entity';
+import { SignoffError } from './signoff.errors';
+
+/**
+ * The signer proves again who they are: their password, entered at signing (21 CFR Part 11
+ * §11.200(a)(1): a signature outside one continuous session uses all its components). Wrong
+ * passwords count toward the same lockout as sign-in (five, then fifteen minutes).
+ */
+@Injectable()
+export class SignerVerification {
+  constructor(
+    private readonly writes: WriteTransactions,
+    private readonly hasher: PasswordHasher,
+    private readonly audit: AuditService,
+  ) {}
+
+  async verify(caller: Caller, password: string, reportId: string): Promise<User> {
+    const user = await this.writes.run((manager) =>
+      manager.findOneBy(User, { id: caller.user.id }),
+    );
+    if (user === null || user.state !== 'active' || user.passwordHash === null) {
+      throw wrongPassword();
+    }
+    if (user.lockedUntil !== null && user.lockedUntil > nowIso()) throw locked(user.lockedUntil);
+    if (await this.hasher.verify(password, user.passwordHash)) {
+      if (user.failedSignIns > 0) {
+        await this.writes.run((m) => m.update(User, { id: user.id }, { failedSignIns: 0 }));
+      }
+      return user;
+    }
+    const lockedUntil = await this.writes.run(async (manager) => {
+      await manager.increment(User, { id: user.id }, 'failedSignIns', 1);
+      const fresh = await manager.findOneByOrFail(User, { id: user.id });
+      await this.audit.record({
+        actor: caller.user,
+        action: 'sign-refused',
+        objectType: 'Report',
+        objectId: reportId,
+        reason: 'wrong password at signing',
+        clientIp: caller.clientIp,
+      });
+      if (fresh.failedSignIns < MAX_FAILED_SIGN_INS) return null;
+      const until = isoAfter(LOCKOUT_MS);
+      await manager.update(User, { id: user.id }, { failedSignIns: 0, lockedUntil: until });
+      await this.audit.record({
+        actor: null,
+        action: 'account-locked',
+        objectType: 'User',
+        objectId: user.id,
+        studyId: user.studyId,
+        siteId: user.siteId,
+        after: { lockedUntil: until },
+        reason: `${MAX_FAILED_SIGN_INS} wrong passwords in a row`,
+        clientIp: caller.clientIp,
+      });
+      return until;
+    });
+    throw lockedUntil === null ? wrongPassword() : locked(lockedUntil);
+  }
+}
+
+// 422, not 401: the session is fine, only the re-entered password is wrong (a 401 would make
+// the client think its session expired).
+function wrongPassword(): GyreException {
+  return new GyreException(
+    ErrorKind.Unprocessable,
+    SignoffError.WrongPassword,
+    'password: does not match your password; the report was not signed.',
+    { field: 'password' },
+  );
+}
+
+function locked(lockedUntil: string): GyreException {
+  return new GyreException(
+    ErrorKind.Locked,
+    SignoffError.AccountLocked,
+    `Too many wrong passwords: your account is locked until ${lockedUntil}.`,
+    { lockedUntil },
+  );
+}

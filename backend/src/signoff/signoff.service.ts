@@ -1,0 +1,301 @@
+import { randomUUID } from 'node:crypto';
+import { Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource, EntityManager } from 'typeorm';
+import { SIGNATURE_MEANING, subject } from '@gyre/shared';
+import type { Action, ReportRevisionDto, ReportSignOffDto } from '@gyre/shared';
+import { AuditService } from '../audit/audit.service';
+import { scopedWhere } from '../auth/access-scope';
+import type { Caller } from '../auth/decorators';
+import { WriteTransactions } from '../common/database/write-transactions.service';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { nowIso } from '../common/time';
+import { renderVisitReport } from '../report-document/render-visit-report';
+import { VisitReportModel } from '../report-document/visit-report-model';
+import { Report } from '../reports/report.entity';
+import { toReportDto } from '../reports/reports.service';
+import { SignReportDto } from './dto/sign-report.dto';
+import { ReportFiles } from './report-files';
+import { ReportNotifications } from './report-notifications';
+import { ReportRevision } from './report-revision.entity';
+import { revisionFileName, toRevisionDtos } from './revision-view';
+import { SignerVerification } from './signer-verification';
+import { SignoffError } from './signoff.errors';
+import { ReportContent, VisitReportContent } from './visit-report-content';
+
+export interface PdfFile {
+  bytes: Buffer;
+  fileName: string;
+  sha256: string | null;
+  fingerprint: string | null;
+}
+
+/**
+ * Sign-off of visit reports: the draft preview, the signature (password again, the stated
+ * meaning, the content the signer saw), immutable revisions stored by SHA-256, and the
+ * reopening of a signed report when its results or flags change.
+ */
+@Injectable()
+export class SignoffService {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly writes: WriteTransactions,
+    private readonly audit: AuditService,
+    private readonly content: VisitReportContent,
+    private readonly files: ReportFiles,
+    private readonly signer: SignerVerification,
+    private readonly notifications: ReportNotifications,
+  ) {}
+
+  async status(caller: Caller, visitId: string): Promise<ReportSignOffDto> {
+    const found = await this.reportInScope(caller, visitId, 'read');
+    await this.notifications.markDelivered();
+    const report = await this.reopenIfChanged(
+      found.visitId,
+      'seen changed when the report was opened',
+    );
+    const content = await this.content.build(this.dataSource.manager, report);
+    const revisions = await this.revisionsOf(this.dataSource.manager, report.id);
+    const latest = revisions[0] ?? null;
+    const changed = latest === null || latest.contentFingerprint !== content.fingerprint;
+    const maySign = caller.ability.can('sign', subject('Report', report));
+    const cannotSignReason = !content.hasResults
+      ? 'No recording of this visit has a result yet.'
+      : !changed
+        ? `Revision ${latest?.revision} is signed and nothing has changed since.`
+        : !maySign
+          ? 'Your role does not sign reports.'
+          : null;
+    return {
+      report: toReportDto(report),
+      meaning: SIGNATURE_MEANING,
+      draftFingerprint: content.hasResults ? content.fingerprint : null,
+      pendingRevision: content.hasResults && changed ? (latest?.revision ?? 0) + 1 : null,
+      canSign: cannotSignReason === null,
+      cannotSignReason,
+      revisions: await toRevisionDtos(this.dataSource.manager, revisions),
+    };
+  }
+
+  /** The draft as it would be signed now, marked DRAFT; rendered on demand, never stored. */
+  async preview(caller: Caller, visitId: string): Promise<PdfFile> {
+    const report = await this.reportInScope(caller, visitId, 'read');
+    const content = await this.content.build(this.dataSource.manager, report);
+    const latest = (await this.revisionsOf(this.dataSource.manager, report.id))[0] ?? null;
+    const revision = (latest?.revision ?? 0) + 1;
+    const bytes = await renderVisitReport(
+      this.modelOf(content, {
+        revision,
+        generatedAtIso: nowIso(),
+        supersedes:
+          latest === null ? null : { revision: latest.revision, sha256: latest.pdfSha256 },
+        signature: null,
+      }),
+    );
+    await this.writes.run(() =>
+      this.audit.record({
+        actor: caller.user,
+        action: 'preview',
+        objectType: 'Report',
+        objectId: report.id,
+        studyId: report.studyId,
+        siteId: report.siteId,
+        after: { revision, fingerprint: content.fingerprint },
+        clientIp: caller.clientIp,
+      }),
+    );
+    return {
+      bytes,
+      sha256: null,
+      fingerprint: content.fingerprint,
+      fileName: revisionFileName({
+        participantCode: content.participant.code,
+        visitLabel: content.visit.label,
+        revision: null,
+      }),
+    };
+  }
+
+  async sign(caller: Caller, visitId: string, input: SignReportDto): Promise<ReportRevisionDto> {
+    if (input.meaning.trim() !== SIGNATURE_MEANING) {
+      throw new GyreException(
+        ErrorKind.BadInput,
+        SignoffError.WrongMeaning,
+        `meaning: found ${JSON.stringify(input.meaning)}, expected ${JSON.stringify(SIGNATURE_MEANING)}`,
+        { field: 'meaning', found: input.meaning, expected: SIGNATURE_MEANING },
+      );
+    }
+    const report = await this.reportInScope(caller, visitId, 'sign');
+    const signer = await this.signer.verify(caller, input.password, report.id);
+
+    // Render outside the transaction (it takes a moment); check again inside that nothing moved.
+    const content = await this.content.build(this.dataSource.manager, report);
+    const latest = (await this.revisionsOf(this.dataSource.manager, report.id))[0] ?? null;
+    assertSignable(content, latest, input.fingerprint);
+    const signedAt = nowIso();
+    const revisionNumber = (latest?.revision ?? 0) + 1;
+    const pdf = await renderVisitReport(
+      this.modelOf(content, {
+        revision: revisionNumber,
+        generatedAtIso: signedAt,
+        supersedes:
+          latest === null ? null : { revision: latest.revision, sha256: latest.pdfSha256 },
+        signature: { signerName: signer.name, signedAtIso: signedAt, meaning: SIGNATURE_MEANING },
+      }),
+    );
+    const pdfSha256 = await this.files.store(pdf);
+
+    const revision = await this.writes.run(async (manager) => {
+      const now = await this.content.build(manager, report);
+      const latestNow = (await this.revisionsOf(manager, report.id))[0] ?? null;
+      if ((latestNow?.id ?? null) !== (latest?.id ?? null)) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          SignoffError.AlreadySigned,
+          `Someone signed revision ${latestNow?.revision} of this report meanwhile; review it again.`,
+          { revision: latestNow?.revision ?? null },
+        );
+      }
+      assertSignable(now, latestNow, input.fingerprint);
+      const before = await manager.findOneByOrFail(Report, { id: report.id });
+      const row: ReportRevision = Object.assign(new ReportRevision(), {
+        id: randomUUID(),
+        reportId: report.id,
+        visitId: report.visitId,
+        participantId: report.participantId,
+        studyId: report.studyId,
+        siteId: report.siteId,
+        revision: revisionNumber,
+        state: 'signed' as const,
+        signedById: signer.id,
+        signerName: signer.name,
+        signerEmail: signer.email,
+        signedAt,
+        meaning: SIGNATURE_MEANING,
+        contentFingerprint: content.fingerprint,
+        pdfSha256,
+        pdfSizeBytes: pdf.length,
+        supersedesId: latest?.id ?? null,
+        sentAt: null,
+      });
+      await manager.insert(ReportRevision, row);
+      await manager.update(Report, { id: report.id }, { state: 'signed', updatedAt: signedAt });
+      const [view] = await toRevisionDtos(manager, [row]);
+      await this.audit.record({
+        actor: caller.user,
+        action: 'sign',
+        objectType: 'Report',
+        objectId: report.id,
+        studyId: report.studyId,
+        siteId: report.siteId,
+        before: toReportDto(before),
+        after: {
+          ...toReportDto({ ...before, state: 'signed', updatedAt: signedAt }),
+          revision: view,
+        },
+        reason: `electronic signature, meaning: ${SIGNATURE_MEANING}`,
+        clientIp: caller.clientIp,
+      });
+      await this.notifications.queueFor(manager, row, { site: now.site, study: now.study });
+      return view;
+    });
+    this.notifications.send();
+    return revision;
+  }
+
+  /**
+   * Inside or outside a transaction: when the visit's content no longer matches its latest
+   * signed revision, the report goes back to `draft` (the next signature makes a new
+   * revision; earlier ones stay as they are). Returns the report as it is afterwards.
+   */
+  async reopenIfChanged(visitId: string, cause: string, manager?: EntityManager): Promise<Report> {
+    const work = async (m: EntityManager): Promise<Report> => {
+      const report = await m.findOneByOrFail(Report, { visitId });
+      if (report.state === 'draft') return report;
+      const latest = (await this.revisionsOf(m, report.id))[0] ?? null;
+      if (latest === null) return report;
+      const content = await this.content.build(m, report);
+      if (content.fingerprint === latest.contentFingerprint) return report;
+      const updatedAt = nowIso();
+      await m.update(Report, { id: report.id }, { state: 'draft', updatedAt });
+      const after = { ...report, state: 'draft' as const, updatedAt };
+      await this.audit.record({
+        actor: null,
+        action: 'reopen',
+        objectType: 'Report',
+        objectId: report.id,
+        studyId: report.studyId,
+        siteId: report.siteId,
+        before: toReportDto(report),
+        after: { ...toReportDto(after), pendingRevision: latest.revision + 1 },
+        reason: `content changed since signed revision ${latest.revision}: ${cause}`,
+      });
+      return after;
+    };
+    if (manager !== undefined) return work(manager);
+    // Most reads find nothing to do: look first, write only when needed.
+    const current = await this.dataSource.getRepository(Report).findOneByOrFail({ visitId });
+    if (current.state === 'draft') return current;
+    const latest = (await this.revisionsOf(this.dataSource.manager, current.id))[0] ?? null;
+    if (latest === null) return current;
+    const content = await this.content.build(this.dataSource.manager, current);
+    if (content.fingerprint === latest.contentFingerprint) return current;
+    return this.writes.run(work);
+  }
+
+  private modelOf(
+    content: ReportContent,
+    extra: Pick<VisitReportModel, 'revision' | 'generatedAtIso' | 'supersedes' | 'signature'>,
+  ): VisitReportModel {
+    return { ...content.body, ...extra };
+  }
+
+  private revisionsOf(manager: EntityManager, reportId: string): Promise<ReportRevision[]> {
+    return manager.find(ReportRevision, { where: { reportId }, order: { revision: 'DESC' } });
+  }
+
+  private async reportInScope(caller: Caller, visitId: string, action: Action): Promise<Report> {
+    const report = await this.dataSource.getRepository(Report).findOne({
+      where: scopedWhere<Report>(caller.ability, action, 'Report', { visitId }),
+    });
+    if (report === null) {
+      throw new GyreException(
+        ErrorKind.NotFound,
+        SignoffError.ReportNotFound,
+        `No report for visit ${visitId}.`,
+        { visitId },
+      );
+    }
+    return report;
+  }
+}
+
+function assertSignable(
+  content: ReportContent,
+  latest: ReportRevision | null,
+  fingerprint: string,
+): void {
+  if (!content.hasResults) {
+    throw new GyreException(
+      ErrorKind.Conflict,
+      SignoffError.NothingToSign,
+      'No recording of this visit has a result yet: there is nothing to sign.',
+    );
+  }
+  if (latest !== null && latest.contentFingerprint === content.fingerprint) {
+    throw new GyreException(
+      ErrorKind.Conflict,
+      SignoffError.AlreadySigned,
+      `Revision ${latest.revision} is signed and nothing has changed since; a signed report is not signed again.`,
+      { revision: latest.revision, revisionId: latest.id },
+    );
+  }
+  if (content.fingerprint !== fingerprint) {
+    throw new GyreException(
+      ErrorKind.Conflict,
+      SignoffError.ContentChanged,
+      'fingerprint: the visit changed since this draft was previewed (new results or a flag); preview it again before signing.',
+      { field: 'fingerprint', found: fingerprint, expected: content.fingerprint },
+    );
+  }
+}
