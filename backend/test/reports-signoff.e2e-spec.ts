@@ -10,6 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { hash } from 'bcryptjs';
 import request from 'supertest';
+import { IsNull } from 'typeorm';
 import type {
   AuditEntryView,
   OutboxMessageView,
@@ -23,9 +24,10 @@ import { SIGNATURE_MEANING } from '@gyre/shared';
 import { sqliteHandleOf } from '../src/common/database/sqlite-handle';
 import { FakeSmtpServer } from '../src/mail/fake-smtp-server';
 import { OutboxMessage } from '../src/mail/outbox-message.entity';
-import { OutboxService } from '../src/mail/outbox.service';
+import { MAX_BACKOFF_MS, MAX_SEND_ATTEMPTS, OutboxService } from '../src/mail/outbox.service';
 import { RESEARCH_CAUTION } from '../src/report-document/report-wording';
 import { readPdfText } from '../src/report-document/testing/read-pdf-text';
+import { ReportRevision } from '../src/signoff/report-revision.entity';
 import { User } from '../src/users/user.entity';
 import { SEED_PASSWORD, UserKey } from './helpers/seed';
 import { CaughtMail, readMails, waitForMail } from './helpers/mail-catcher';
@@ -327,6 +329,20 @@ describe('visit report sign-off', () => {
     expect(mailsTo('coordinatorb@gyre.test')).toEqual([]);
   });
 
+  it('marks the revision and the report sent as soon as the last message is delivered', async () => {
+    // Straight after delivery, before any read of the sign-off routes (the outbox's listener).
+    const row = await t.dataSource
+      .getRepository(ReportRevision)
+      .findOneByOrFail({ id: revision1.id });
+    expect(row.state).toBe('sent');
+    expect(row.sentAt).not.toBeNull();
+    const report = await request(t.url)
+      .get(`/api/visits/${visitId}/report`)
+      .set(await as('coordinator'));
+    expect(report.status).toBe(200);
+    expect(report.body.state).toBe('sent');
+  });
+
   it('shows admins the messages as sent in the outbox, and the revision becomes sent', async () => {
     const outbox = await request(t.url)
       .get('/api/mail/outbox')
@@ -502,6 +518,25 @@ describe('visit report sign-off', () => {
     expect(readMails(mailDir)).toHaveLength(before);
     expect((await signOff()).revisions[0]).toMatchObject({ id: revision3.id, state: 'signed' });
 
+    // A long outage: past MAX_SEND_ATTEMPTS the message still waits (an unreachable server
+    // is transient), with the backoff capped at MAX_BACKOFF_MS.
+    const sender = t.app.get(OutboxService);
+    await outbox.update(
+      { kind: 'report_signed', state: 'queued' },
+      { attempts: MAX_SEND_ATTEMPTS + 3, nextAttemptAt: new Date().toISOString() },
+    );
+    sender.kick();
+    await t.mailIdle();
+    for (const message of await outbox.find({
+      where: { kind: 'report_signed', sentAt: IsNull() },
+    })) {
+      expect(message).toMatchObject({ state: 'queued', attempts: MAX_SEND_ATTEMPTS + 4 });
+      expect(message.textBody).toContain(revision3.id);
+      const waitMs = Date.parse(message.nextAttemptAt ?? '') - Date.now();
+      expect(waitMs).toBeGreaterThan(MAX_BACKOFF_MS - 60_000);
+      expect(waitMs).toBeLessThanOrEqual(MAX_BACKOFF_MS);
+    }
+
     // The server comes back on its old port; the backoff delay (30 s) is skipped by making
     // the messages due now instead of waiting for it.
     smtp = new FakeSmtpServer(mailDir);
@@ -510,7 +545,6 @@ describe('visit report sign-off', () => {
       { kind: 'report_signed', state: 'queued' },
       { nextAttemptAt: new Date().toISOString() },
     );
-    const sender = t.app.get(OutboxService);
     sender.kick();
     sender.kick();
     await t.mailIdle();
@@ -524,7 +558,13 @@ describe('visit report sign-off', () => {
     for (const mail of delivered) expect(mail.text).toContain(`revision=${revision3.id}`);
     const after = await outbox.find({ where: { kind: 'report_signed' } });
     expect(after.filter((m) => m.state !== 'sent')).toEqual([]);
-    expect(after.filter((m) => m.attempts === 2)).toHaveLength(2);
+    expect(after.filter((m) => m.attempts === MAX_SEND_ATTEMPTS + 5)).toHaveLength(2);
+    // Each delivered message carries its outbox id as Message-ID (the same on every attempt).
+    const ids = after.filter((m) => m.attempts === MAX_SEND_ATTEMPTS + 5).map((m) => m.id);
+    for (const mail of delivered) {
+      const header = /^message-id:\s*<([^@>]+)@gyre\.invalid>/im.exec(mail.raw);
+      expect(ids).toContain(header?.[1]);
+    }
     expect((await signOff()).revisions[0]).toMatchObject({ id: revision3.id, state: 'sent' });
   });
 

@@ -22,7 +22,12 @@ export class MailTransport implements OnModuleInit, OnModuleDestroy {
     await this.transporterOnce();
   }
 
-  async send(message: { to: string; subject: string; text: string }): Promise<string> {
+  async send(message: {
+    to: string;
+    subject: string;
+    text: string;
+    messageId?: string;
+  }): Promise<string> {
     const transporter = await this.transporterOnce();
     const info = (await transporter.sendMail({ from: MAIL_FROM, ...message })) as {
       messageId?: unknown;

@@ -12,12 +12,30 @@ import { MailTransport } from './mail-transport.service';
 import { OutboxMessage } from './outbox-message.entity';
 import { OutboxQueryDto } from './dto/outbox-query.dto';
 
-/** After this many failed attempts a message is marked `failed` and left for an admin. */
+/**
+ * After this many refusals by the SMTP server (5xx replies) a message is marked `failed` and
+ * left for an admin. An unreachable server or a 4xx reply is transient: the message stays
+ * queued however long the outage lasts, so it is never lost.
+ */
 export const MAX_SEND_ATTEMPTS = 6;
-/** Backoff before attempt n+1: 30 s · 2^(n−1), i.e. 30 s, 1 min, 2 min, 4 min, 8 min. */
+/** Longest wait between two attempts (the backoff stops doubling here). */
+export const MAX_BACKOFF_MS = 60 * 60 * 1000;
+/** Backoff before attempt n+1: 30 s · 2^(n−1), i.e. 30 s, 1 min, 2 min, 4 min, 8 min … 1 h. */
 export function backoffMs(attemptsSoFar: number): number {
-  return 30_000 * 2 ** Math.max(0, attemptsSoFar - 1);
+  return Math.min(MAX_BACKOFF_MS, 30_000 * 2 ** Math.max(0, Math.min(20, attemptsSoFar - 1)));
 }
+
+/** A 5xx SMTP reply is permanent (RFC 5321 §4.2.1); no reply at all, or 4xx, is transient. */
+export function isPermanentSmtpFailure(error: unknown): boolean {
+  const code =
+    typeof error === 'object' && error !== null && 'responseCode' in error
+      ? Number((error as { responseCode: unknown }).responseCode)
+      : NaN;
+  return code >= 500 && code < 600;
+}
+
+/** Called after a message was handed to SMTP and marked sent (e.g. reports then mark `sent`). */
+export type SentListener = (message: { id: string; kind: string }) => Promise<void> | void;
 const POLL_INTERVAL_MS = 15_000;
 
 /**
@@ -31,6 +49,7 @@ export class OutboxService implements OnModuleInit, OnModuleDestroy {
   private draining: Promise<void> | null = null;
   private again = false;
   private stopped = false;
+  private readonly sentListeners: SentListener[] = [];
 
   constructor(
     @InjectRepository(OutboxMessage) private readonly messages: Repository<OutboxMessage>,
@@ -67,6 +86,11 @@ export class OutboxService implements OnModuleInit, OnModuleDestroy {
       sentAt: null,
     });
     return id;
+  }
+
+  /** Registers a listener for delivered messages; a failing listener never undoes the send. */
+  onSent(listener: SentListener): void {
+    this.sentListeners.push(listener);
   }
 
   /** Starts sending what is due, unless a round is already running (then one more follows). */
@@ -111,6 +135,8 @@ export class OutboxService implements OnModuleInit, OnModuleDestroy {
         to: message.toAddress,
         subject: message.subject,
         text: message.textBody ?? '',
+        // The same Message-ID on every attempt: a receiver can tell a repeat from a new message.
+        messageId: `<${message.id}@gyre.invalid>`,
       });
       await this.writes.run((m) =>
         m.update(
@@ -128,9 +154,16 @@ export class OutboxService implements OnModuleInit, OnModuleDestroy {
           },
         ),
       );
+      for (const listener of this.sentListeners) {
+        try {
+          await listener({ id: message.id, kind: message.kind });
+        } catch (error) {
+          this.logger.error(error instanceof Error ? error.stack : error);
+        }
+      }
     } catch (error) {
       const reason = error instanceof Error ? error.message : String(error);
-      const failed = attempts >= MAX_SEND_ATTEMPTS;
+      const failed = attempts >= MAX_SEND_ATTEMPTS && isPermanentSmtpFailure(error);
       this.logger.warn(
         `Sending ${message.kind} to ${message.toAddress} failed (attempt ${attempts}): ${reason}`,
       );

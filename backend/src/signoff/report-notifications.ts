@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { Inject, Injectable } from '@nestjs/common';
+import { Inject, Injectable, OnModuleInit } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, In } from 'typeorm';
 import { AuditService } from '../audit/audit.service';
@@ -15,7 +15,7 @@ import { Study } from '../studies/study.entity';
 import { User } from '../users/user.entity';
 import { ReportNotification } from './report-notification.entity';
 import { ReportRevision } from './report-revision.entity';
-import { reportSignedMail, revisionLink } from './report-signed-mail';
+import { REPORT_SIGNED_KIND, reportSignedMail, revisionLink } from './report-signed-mail';
 
 /**
  * E-mail to coordinators about a signed revision, through the mail outbox (which retries
@@ -23,7 +23,7 @@ import { reportSignedMail, revisionLink } from './report-signed-mail';
  * every message of the revision is delivered.
  */
 @Injectable()
-export class ReportNotifications {
+export class ReportNotifications implements OnModuleInit {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
@@ -31,6 +31,13 @@ export class ReportNotifications {
     private readonly outbox: OutboxService,
     private readonly audit: AuditService,
   ) {}
+
+  onModuleInit(): void {
+    // Delivery moves a revision to `sent` at once; reads also catch up (markDelivered).
+    this.outbox.onSent(async (message) => {
+      if (message.kind === REPORT_SIGNED_KIND) await this.markDelivered();
+    });
+  }
 
   /**
    * Inside the signing transaction: one message per active coordinator of the report's site,

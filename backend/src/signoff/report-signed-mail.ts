@@ -5,6 +5,8 @@ import type { MailContent } from '../mail/mail-templates';
  * nothing else. No participant code, no result, no attachment: all of that stays behind
  * the sign-in.
  */
+export const REPORT_SIGNED_KIND = 'report_signed';
+
 export function reportSignedMail(options: {
   name: string;
   siteName: string;
@@ -13,7 +15,7 @@ export function reportSignedMail(options: {
   link: string;
 }): MailContent {
   return {
-    kind: 'report_signed',
+    kind: REPORT_SIGNED_KIND,
     subject: `Gyre: a visit report of ${options.siteName} was signed`,
     text: [
       `Hello ${options.name},`,
