@@ -1,0 +1,31 @@
+import { describe, expect, it } from 'vitest';
+import { CHART_PALETTE } from '../../app/theme';
+import { MISSING_CELL_RGB, niceTicks, rampRgb } from './frequency-colour-scale';
+
+const rgbOf = (hex: string) => [1, 3, 5].map((i) => Number.parseInt(hex.slice(i, i + 2), 16));
+
+describe('frequency colour ramp', () => {
+  it('runs from the palette teal at the low edge to the palette amber at the high edge', () => {
+    expect(rampRgb(8, [8, 13])).toEqual(rgbOf(CHART_PALETTE[0]));
+    expect(rampRgb(13, [8, 13])).toEqual(rgbOf(CHART_PALETTE[1]));
+    // Values outside the band are clamped to its ends, not wrapped or dropped.
+    expect(rampRgb(2, [8, 13])).toEqual(rgbOf(CHART_PALETTE[0]));
+    expect(rampRgb(40, [8, 13])).toEqual(rgbOf(CHART_PALETTE[1]));
+  });
+
+  it('interpolates linearly between stops', () => {
+    // Four stops over [0, 3]: 0.5 lies halfway between the first two (teal and sage).
+    const [a, b] = [rgbOf(CHART_PALETTE[0]), rgbOf(CHART_PALETTE[2])];
+    expect(rampRgb(0.5, [0, 3])).toEqual(a.map((v, i) => Math.round((v + b[i]) / 2)));
+  });
+
+  it('gives missing cells their own grey', () => {
+    expect(rampRgb(Number.NaN, [8, 13])).toEqual([...MISSING_CELL_RGB]);
+  });
+
+  it('picks round ticks 1, 2 or 5 × 10^k apart', () => {
+    expect(niceTicks([8, 13], 5)).toEqual([8, 9, 10, 11, 12, 13]);
+    expect(niceTicks([-1, 2], 6)).toEqual([-1, -0.5, 0, 0.5, 1, 1.5, 2]);
+    expect(niceTicks([0, 45], 4)).toEqual([0, 20, 40]);
+  });
+});

@@ -1,0 +1,85 @@
+import { screen, within } from '@testing-library/react';
+import { http, HttpResponse } from 'msw';
+import { describe, expect, it, vi } from 'vitest';
+import { meFor } from '../../../test/fixtures';
+import { installMswServer, server } from '../../../test/msw-server';
+import { renderApp } from '../../../test/render-app';
+import { PARTICIPANT, TRAJECTORY, VISITS } from '../testing/participant-fixtures';
+
+// jsdom has no canvas for the chart library: a stand-in shows which marks would be drawn.
+vi.mock(
+  '../../../components/charts/g2-plot',
+  () => import('../../../components/charts/testing/fake-g2-plot'),
+);
+
+installMswServer();
+
+function serve() {
+  server.use(
+    http.get(`/api/participants/${PARTICIPANT.id}`, () => HttpResponse.json(PARTICIPANT)),
+    http.get(`/api/participants/${PARTICIPANT.id}/trajectory`, () => HttpResponse.json(TRAJECTORY)),
+    http.get('/api/visits', ({ request }) => {
+      expect(new URL(request.url).searchParams.get('participantId')).toBe(PARTICIPANT.id);
+      return HttpResponse.json({ items: VISITS, total: VISITS.length, page: 1, pageSize: 200 });
+    }),
+  );
+}
+
+describe('Participant trajectory', { timeout: 60_000 }, () => {
+  it('draws PAF, CoG and Δf with trends and flagged visits, and links every visit to Review', async () => {
+    serve();
+    renderApp(`/participants/${PARTICIPANT.id}`, meFor('monitor'));
+    expect(
+      await screen.findByText('Participant AC-0042', {}, { timeout: 15_000 }),
+    ).toBeInTheDocument();
+    expect(screen.getByRole('note', { name: 'Research use caution' })).toBeInTheDocument();
+
+    // Two visits have values: line, points and trend per series, and the flagged visit's line.
+    const alpha = await screen.findByRole('figure', { name: 'Alpha frequency trajectory' });
+    expect(within(alpha).getByTestId('g2-plot').dataset.marks).toBe(
+      'lineX line point line line point line',
+    );
+    const onset = screen.getByRole('figure', { name: 'Onset change trajectory' });
+    expect(within(onset).getByTestId('g2-plot').dataset.marks).toBe('lineX lineY line point line');
+    expect(screen.getByText('PAF (trend −0.40 Hz/year)')).toBeInTheDocument();
+
+    const rows = within(screen.getByRole('table', { name: 'Visits' })).getAllByRole('row');
+    expect(rows).toHaveLength(4);
+    // Hz to two decimals, changes signed with a true minus.
+    expect(rows[1]).toHaveTextContent('10.30 Hz');
+    expect(rows[2]).toHaveTextContent('10.10 Hz−0.20 Hz');
+    expect(rows[2]).toHaveTextContent('-0.25 Hz−0.15 Hz');
+    expect(within(rows[2]).getByText('flagged')).toBeInTheDocument();
+    // The third visit has no results yet but still opens in Review.
+    expect(rows[3]).toHaveTextContent('Month 12');
+    expect(within(rows[3]).getByRole('link', { name: 'Review Month 12' })).toHaveAttribute(
+      'href',
+      '/review/v-3',
+    );
+    expect(within(rows[1]).getByRole('link', { name: 'Review Baseline' })).toHaveAttribute(
+      'href',
+      '/review/v-1',
+    );
+  });
+
+  it('shows an empty trajectory in words when no visit has results', async () => {
+    serve();
+    server.use(
+      http.get(`/api/participants/${PARTICIPANT.id}/trajectory`, () =>
+        HttpResponse.json({
+          ...TRAJECTORY,
+          visits: [],
+          slopesHzPerYear: { paf: null, cog: null, deltaF: null },
+        }),
+      ),
+    );
+    renderApp(`/participants/${PARTICIPANT.id}`, meFor('analyst'));
+    expect(
+      await screen.findByText(
+        'No visit has computed results yet, so there is no trajectory to draw.',
+        {},
+        { timeout: 15_000 },
+      ),
+    ).toBeInTheDocument();
+  });
+});
