@@ -82,15 +82,18 @@ describe('buildDemoScenario (the invented demo study)', () => {
       expect(participant?.visits.some((v) => v.label === target.visitLabel)).toBe(true);
     }
     expect(scenario.flag.reason.length).toBeGreaterThan(20);
+    const flagged = scenario.participants.find((p) => p.code === scenario.flag.participantCode);
+    expect(flagged?.profile).toBe('onset-slowing');
   });
 
   it('is the same every time it is built', () => {
     expect(buildDemoScenario('full')).toEqual(scenario);
   });
 
-  it('has a small version for tests: four participants of every kind, three visits, short files', () => {
+  it('has a small version for tests: one participant of each kind, both sites, three visits, short files', () => {
     const small = buildDemoScenario('small');
-    expect(small.participants).toHaveLength(4);
+    expect(small.participants).toHaveLength(3);
+    expect(new Set(small.participants.map((p) => p.siteKey)).size).toBe(2);
     expect(new Set(small.participants.map((p) => p.profile)).size).toBe(3);
     expect(small.participants.every((p) => p.visits.length === 3)).toBe(true);
     expect(small.recording.restDurationS).toBeLessThan(scenario.recording.restDurationS);

@@ -112,8 +112,8 @@ const PARTICIPANTS: ParticipantPlan[] = [
   p('LAF-A206', 'amber', 'onset-slowing', 9.55, 0, -0.55, 3, 51, true),
 ];
 
-/** The small version for tests: one participant of each kind, three visits, shorter files. */
-const SMALL_PARTICIPANTS = ['LAF-C101', 'LAF-C102', 'LAF-A201', 'LAF-A202'];
+/** The small version for tests: one participant of each kind over both sites, three visits, shorter files. */
+const SMALL_PARTICIPANTS = ['LAF-C101', 'LAF-C102', 'LAF-A201'];
 
 function p(
   code: string,
@@ -159,7 +159,7 @@ const FIRST_ENROLMENT_UTC = Date.UTC(2024, 0, 15);
 const isoDate = (ms: number): string => new Date(ms).toISOString().slice(0, 10);
 const round = (value: number, decimals: number): number => Number(value.toFixed(decimals));
 
-/** Builds the demo study; `small` keeps four participants, three visits and shorter recordings. */
+/** Builds the demo study; `small` keeps three participants, three visits and shorter recordings. */
 export function buildDemoScenario(size: DemoSize = 'full'): DemoScenario {
   const plans =
     size === 'full'
@@ -214,13 +214,14 @@ export function buildDemoScenario(size: DemoSize = 'full'): DemoScenario {
     recording:
       size === 'full'
         ? { sampleRateHz: 250, restDurationS: 150, taskTrialCount: 48 }
-        : { sampleRateHz: 250, restDurationS: 60, taskTrialCount: 30 },
+        : { sampleRateHz: 250, restDurationS: 45, taskTrialCount: 30 },
     malformedUpload:
       size === 'full'
         ? { participantCode: 'LAF-A203', visitLabel: 'Month 8', kind: 'task' }
         : { participantCode: 'LAF-A201', visitLabel: 'Month 6', kind: 'task' },
     flag: {
-      participantCode: size === 'full' ? 'LAF-C102' : 'LAF-C101',
+      // A participant with clear onset slowing, present in both versions.
+      participantCode: 'LAF-C102',
       visitLabel: 'Month 12',
       reason:
         'Clear post-onset slowing at this visit; the interval excludes zero. Flagged for the study review (demo).',

@@ -1,8 +1,11 @@
 /**
  * A small client of Gyre's HTTP API for the demo seeder: JSON requests with a bearer token
- * and the multipart recording upload a technician's browser sends. Node's own fetch,
- * FormData and Blob; nothing here talks to the database.
+ * and the multipart/form-data recording upload a technician's browser sends (RFC 7578).
+ * One connection per request (no keep-alive), so a long pause between two uploads can never
+ * meet a socket the server has just closed. Nothing here talks to the database.
  */
+import { randomBytes } from 'node:crypto';
+import { request as httpRequest } from 'node:http';
 
 /** An answer other than the one expected, with Gyre's error body when there is one. */
 export class GyreApiError extends Error {
@@ -26,6 +29,11 @@ export interface UploadInput {
   onsetCsv?: { fileName: string; text: string } | null;
 }
 
+interface RequestBody {
+  contentType: string;
+  bytes: Buffer;
+}
+
 export class GyreClient {
   constructor(
     /** e.g. `http://127.0.0.1:3000` (no trailing slash, no `/api`). */
@@ -38,30 +46,47 @@ export class GyreClient {
   }
 
   get<T>(path: string): Promise<T> {
-    return this.send<T>('GET', path, undefined, [200]);
+    return this.exchange<T>('GET', path, undefined, [200]);
   }
 
   post<T>(path: string, body: unknown, expected: number[] = [200, 201, 204]): Promise<T> {
-    return this.send<T>('POST', path, body, expected);
+    return this.exchange<T>(
+      'POST',
+      path,
+      { contentType: 'application/json', bytes: Buffer.from(JSON.stringify(body), 'utf8') },
+      expected,
+    );
   }
 
   /** `POST /api/visits/:visitId/recordings`, as the Intake screen sends it. */
-  async upload<T>(visitId: string, input: UploadInput): Promise<T> {
-    const form = new FormData();
-    form.append('kind', input.kind);
-    form.append(
-      'file',
-      new Blob([input.edf], { type: 'application/octet-stream' }),
-      input.fileName,
+  upload<T>(visitId: string, input: UploadInput): Promise<T> {
+    const boundary = `gyre-demo-${randomBytes(12).toString('hex')}`;
+    const parts: Buffer[] = [];
+    const head = (disposition: string, type: string | null): Buffer =>
+      Buffer.from(
+        `--${boundary}\r\nContent-Disposition: form-data; ${disposition}\r\n` +
+          (type === null ? '' : `Content-Type: ${type}\r\n`) +
+          '\r\n',
+      );
+    parts.push(head('name="kind"', null), Buffer.from(`${input.kind}\r\n`));
+    parts.push(
+      head(`name="file"; filename="${input.fileName}"`, 'application/octet-stream'),
+      Buffer.from(input.edf.buffer, input.edf.byteOffset, input.edf.byteLength),
+      Buffer.from('\r\n'),
     );
     if (input.onsetCsv) {
-      form.append(
-        'onsets',
-        new Blob([input.onsetCsv.text], { type: 'text/csv' }),
-        input.onsetCsv.fileName,
+      parts.push(
+        head(`name="onsets"; filename="${input.onsetCsv.fileName}"`, 'text/csv'),
+        Buffer.from(`${input.onsetCsv.text}\r\n`, 'utf8'),
       );
     }
-    return this.exchange<T>('POST', `/api/visits/${visitId}/recordings`, form, [201]);
+    parts.push(Buffer.from(`--${boundary}--\r\n`));
+    return this.exchange<T>(
+      'POST',
+      `/api/visits/${visitId}/recordings`,
+      { contentType: `multipart/form-data; boundary=${boundary}`, bytes: Buffer.concat(parts) },
+      [201],
+    );
   }
 
   /** Signs in through `POST /api/auth/sign-in` and returns a client holding the access token. */
@@ -74,32 +99,25 @@ export class GyreClient {
     return this.withToken(session.accessToken);
   }
 
-  private send<T>(method: string, path: string, body: unknown, expected: number[]): Promise<T> {
-    return this.exchange<T>(
-      method,
-      path,
-      body === undefined ? undefined : JSON.stringify(body),
-      expected,
-    );
-  }
-
   private async exchange<T>(
     method: string,
     path: string,
-    body: string | FormData | undefined,
+    body: RequestBody | undefined,
     expected: number[],
   ): Promise<T> {
-    const headers: Record<string, string> = { Accept: 'application/json' };
-    if (typeof body === 'string') headers['Content-Type'] = 'application/json';
+    const headers: Record<string, string | number> = { Accept: 'application/json' };
+    if (body !== undefined) {
+      headers['Content-Type'] = body.contentType;
+      headers['Content-Length'] = body.bytes.length;
+    }
     if (this.token !== null) headers.Authorization = `Bearer ${this.token}`;
-    const response = await fetch(`${this.baseUrl}${path}`, { method, headers, body });
-    const text = await response.text();
+    const response = await roundTrip(new URL(`${this.baseUrl}${path}`), method, headers, body);
     let parsed: unknown = null;
-    if (text.length > 0) {
+    if (response.text.length > 0) {
       try {
-        parsed = JSON.parse(text);
+        parsed = JSON.parse(response.text);
       } catch {
-        parsed = text;
+        parsed = response.text;
       }
     }
     if (!expected.includes(response.status)) {
@@ -111,9 +129,30 @@ export class GyreClient {
         response.status,
         typeof error.code === 'string' ? error.code : null,
         error.details ?? null,
-        typeof error.message === 'string' ? error.message : String(text).slice(0, 300),
+        typeof error.message === 'string' ? error.message : response.text.slice(0, 300),
       );
     }
     return parsed as T;
   }
+}
+
+/** One HTTP exchange on its own connection (`agent: false`: no keep-alive). */
+function roundTrip(
+  url: URL,
+  method: string,
+  headers: Record<string, string | number>,
+  body: RequestBody | undefined,
+): Promise<{ status: number; text: string }> {
+  return new Promise((resolve, reject) => {
+    const req = httpRequest(url, { method, headers, agent: false }, (res) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (chunk: Buffer) => chunks.push(chunk));
+      res.on('end', () =>
+        resolve({ status: res.statusCode ?? 0, text: Buffer.concat(chunks).toString('utf8') }),
+      );
+      res.on('error', reject);
+    });
+    req.on('error', (error) => reject(new Error(`${method} ${url.pathname}: ${error.message}`)));
+    req.end(body?.bytes);
+  });
 }

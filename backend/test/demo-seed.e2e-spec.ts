@@ -1,0 +1,205 @@
+/**
+ * The demo seeder end to end: the small demo study goes into a real, empty server through
+ * the HTTP API (invitations over the local SMTP capture, multipart uploads by each site's
+ * technician, the worker pool computing), and each participant's known answer comes back
+ * through the API.
+ *
+ * Generated data: every recording is made by seed/'s generator; the "truth" is what it was
+ * generated with (resting IAF per visit, post-onset Δf per visit, IAF drift per year), not a
+ * measurement.
+ */
+import { statSync, readFileSync } from 'node:fs';
+import request from 'supertest';
+import type { RecordingDto, TrajectoryDto, VisitFlagDto } from '@gyre/shared';
+import { buildDemoScenario } from '../../seed/src/scenario/demo-scenario';
+import { DemoSeedResult, seedDemo } from '../../seed/src/seeder/demo-seeder';
+import { AuditService } from '../src/audit/audit.service';
+import { PasswordHasher } from '../src/auth/password-hasher.service';
+import { DemoSeedService } from '../src/demo/demo-seed.service';
+import { startTestApp, TestApp } from './helpers/test-app';
+
+let t: TestApp;
+let seeded: DemoSeedResult;
+const tokens = new Map<string, string>();
+
+async function tokenOf(role: string, siteKey: string | null = null): Promise<string> {
+  const key = `${role}/${siteKey}`;
+  const cached = tokens.get(key);
+  if (cached !== undefined) return cached;
+  const account = seeded.credentials.find((c) => c.role === role && c.siteKey === siteKey);
+  if (account === undefined) throw new Error(`no demo ${role} for ${siteKey}`);
+  const response = await request(t.url)
+    .post('/api/auth/sign-in')
+    .send({ email: account.email, password: account.password });
+  expect(response.status).toBe(200);
+  const token = (response.body as { accessToken: string }).accessToken;
+  tokens.set(key, token);
+  return token;
+}
+
+beforeAll(async () => {
+  t = await startTestApp({ seed: false });
+  const demo = new DemoSeedService(
+    t.dataSource,
+    t.app.get(AuditService),
+    new PasswordHasher(t.config),
+  );
+  seeded = await seedDemo({
+    baseUrl: t.url,
+    dataDir: t.dataDir,
+    signInUrl: t.config.publicUrl,
+    scenario: buildDemoScenario('small'),
+    createFirstAdmin: (input) => demo.createFirstAdmin(input),
+    resultTimeoutMs: 8 * 60_000,
+  });
+}, 10 * 60_000);
+
+afterAll(async () => {
+  await t?.close();
+});
+
+describe('demo seed (small version, generated data)', () => {
+  it('seeds every upload, computes all but the one deliberately broken file', () => {
+    expect(seeded.status).toBe('seeded');
+    // 3 participants × 3 visits × 2 recordings, plus the cut-off task file.
+    expect(seeded.recordingStates).toEqual({ ready: 18, rejected: 1 });
+  });
+
+  it("gives back each participant's known answer: PAF within 0.1 Hz, Δf within 0.05 Hz, the IAF trend's sign", async () => {
+    const analyst = await tokenOf('analyst');
+    for (const participant of seeded.participants) {
+      const response = await request(t.url)
+        .get(`/api/participants/${participant.participantId}/trajectory`)
+        .set('Authorization', `Bearer ${analyst}`);
+      expect(response.status).toBe(200);
+      const trajectory = response.body as TrajectoryDto;
+      expect(trajectory.visits).toHaveLength(participant.visits.length);
+      for (const visit of participant.visits) {
+        const measured = trajectory.visits.find((v) => v.visitId === visit.visitId);
+        const where = `${participant.code} ${visit.label}`;
+        expect({ where, paf: measured?.pafHz ?? null }).toEqual({ where, paf: expect.any(Number) });
+        expect({
+          where,
+          pafError: Math.abs((measured?.pafHz ?? NaN) - visit.truth.iafHz) < 0.1,
+        }).toEqual({
+          where,
+          pafError: true,
+        });
+        expect({
+          where,
+          deltaFError: Math.abs((measured?.deltaFHz ?? NaN) - visit.truth.deltaFHz) < 0.05,
+        }).toEqual({ where, deltaFError: true });
+      }
+      const slope = trajectory.slopesHzPerYear.paf;
+      expect(slope).not.toBeNull();
+      const trend = participant.truth.iafTrendHzPerYear;
+      if (trend < 0) {
+        // Drifting slower: a clearly negative Theil–Sen slope, near the generated one.
+        expect({ code: participant.code, slope: (slope ?? 0) < 0 }).toEqual({
+          code: participant.code,
+          slope: true,
+        });
+        expect(Math.abs((slope ?? 0) - trend)).toBeLessThan(0.15);
+      } else {
+        // Stable: only the ±0.03 Hz visit wobble, so the slope stays near zero.
+        expect({ code: participant.code, flat: Math.abs(slope ?? 1) < 0.1 }).toEqual({
+          code: participant.code,
+          flat: true,
+        });
+      }
+    }
+  });
+
+  it('shows the rejected upload with its reason to the technician of its site', async () => {
+    const scenario = buildDemoScenario('small');
+    const participant = scenario.participants.find(
+      (p) => p.code === scenario.malformedUpload.participantCode,
+    );
+    const technician = await tokenOf('technician', participant?.siteKey ?? null);
+    const response = await request(t.url)
+      .get(`/api/recordings/${seeded.rejectedRecordingId}`)
+      .set('Authorization', `Bearer ${technician}`);
+    expect(response.status).toBe(200);
+    const recording = response.body as RecordingDto;
+    expect(recording.state).toBe('rejected');
+    expect(recording.kind).toBe('task');
+    expect(recording.rejection?.message ?? '').not.toBe('');
+  });
+
+  it("carries the analyst's flag with its reason on the scenario's visit", async () => {
+    const monitor = await tokenOf('monitor');
+    const response = await request(t.url)
+      .get(`/api/visits/${seeded.flaggedVisitId}/flag`)
+      .set('Authorization', `Bearer ${monitor}`);
+    expect(response.status).toBe(200);
+    const flag = response.body as VisitFlagDto;
+    expect(flag.current?.state).toBe('raised');
+    expect(flag.current?.raiseReason).toBe(buildDemoScenario('small').flag.reason);
+  });
+
+  it('uploaded every recording through a technician of its own site', async () => {
+    const analyst = await tokenOf('analyst');
+    const me = async (role: string, siteKey: string): Promise<string> => {
+      const response = await request(t.url)
+        .get('/api/auth/me')
+        .set('Authorization', `Bearer ${await tokenOf(role, siteKey)}`);
+      return (response.body as { user: { id: string } }).user.id;
+    };
+    const technicianIds = new Map<string, string>();
+    for (const key of ['cedar', 'amber']) technicianIds.set(key, await me('technician', key));
+    const response = await request(t.url)
+      .get('/api/recordings?pageSize=200')
+      .set('Authorization', `Bearer ${analyst}`);
+    const recordings = (response.body as { items: RecordingDto[] }).items;
+    expect(recordings).toHaveLength(19);
+    for (const participant of seeded.participants) {
+      const expected = technicianIds.get(participant.truth.siteKey);
+      for (const recording of recordings.filter(
+        (r) => r.participantId === participant.participantId,
+      )) {
+        expect(recording.uploadedById).toBe(expected);
+      }
+    }
+  });
+
+  it('writes every demo account to demo-accounts.txt (mode 600), and each one signs in', async () => {
+    const file = seeded.accountsFile ?? '';
+    // Owner read/write only (POSIX permission bits).
+    expect(statSync(file).mode & 0o777).toBe(0o600);
+    const text = readFileSync(file, 'utf8');
+    expect(seeded.credentials).toHaveLength(7);
+    for (const account of seeded.credentials) {
+      expect(text).toContain(account.email);
+      expect(text).toContain(account.password);
+      const response = await request(t.url)
+        .post('/api/auth/sign-in')
+        .send({ email: account.email, password: account.password });
+      expect({ email: account.email, status: response.status }).toEqual({
+        email: account.email,
+        status: 200,
+      });
+      expect((response.body as { user: { role: string } }).user.role).toBe(account.role);
+    }
+  });
+
+  it('refuses to seed an installation that already has accounts, and changes nothing', async () => {
+    const demo = new DemoSeedService(
+      t.dataSource,
+      t.app.get(AuditService),
+      new PasswordHasher(t.config),
+    );
+    const again = await seedDemo({
+      baseUrl: t.url,
+      dataDir: t.dataDir,
+      signInUrl: t.config.publicUrl,
+      scenario: buildDemoScenario('small'),
+      createFirstAdmin: (input) => demo.createFirstAdmin(input),
+    });
+    expect(again.status).toBe('not-empty');
+    const analyst = await tokenOf('analyst');
+    const response = await request(t.url)
+      .get('/api/recordings?pageSize=200')
+      .set('Authorization', `Bearer ${analyst}`);
+    expect((response.body as { total: number }).total).toBe(19);
+  });
+});
