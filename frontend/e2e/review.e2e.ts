@@ -1,0 +1,392 @@
+import { createRequire } from 'node:module';
+import { join, resolve } from 'node:path';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type {
+  ParticipantView,
+  RecordingDto,
+  RecordingKind,
+  RecordingResultsDto,
+  SiteView,
+  StudyView,
+  TrajectoryDto,
+  VisitFlagDto,
+  VisitView,
+} from '@gyre/shared';
+import {
+  api,
+  createFirstAdmin,
+  E2E_PASSWORD,
+  inviteAndAccept,
+  signInApi,
+} from './support/accounts';
+import { openBrowser, screenshot, watchConsole } from './support/browser';
+import { startGyre, type RunningGyre } from './support/gyre-server';
+
+const require = createRequire(import.meta.url);
+const REPO_ROOT = resolve(import.meta.dirname, '..', '..');
+
+interface EdfWriter {
+  writeEdf(spec: {
+    format?: 'EDF+C';
+    startDate: string;
+    signals: Array<{
+      label: string;
+      sampleRateHz: number;
+      physicalMin: number;
+      physicalMax: number;
+      samples: Float32Array;
+    }>;
+    annotations?: Array<{ onsetS: number; durationS: number | null; text: string }>;
+  }): Uint8Array;
+}
+
+/** The signal core's own EDF+ writer (Kemp & Olivan 2003), as built in backend/dist. */
+const edfWriter = () =>
+  require(join(REPO_ROOT, 'backend', 'dist', 'signal', 'edf', 'edf-writer.js')) as EdfWriter;
+
+const SAMPLE_RATE_HZ = 256;
+const CHANNELS = ['O1', 'O2', 'Oz', 'Pz', 'P3', 'P4'];
+
+function seededNoise(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    // Numerical Recipes' LCG constants (from memory), scaled to −1..1.
+    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
+    return state / 2 ** 31 - 1;
+  };
+}
+
+/**
+ * Generated test data: 20 µV alpha on six posterior 10-10 channels over ±3 µV noise. Its
+ * frequency is `alphaHz`, lowered by `dipHz` from +0.2 to +0.8 s after each onset (a smooth
+ * dip), so the task has a known slowing; the phase is the running integral of the frequency.
+ */
+function writeRecording(options: {
+  kind: RecordingKind;
+  alphaHz: number;
+  dipHz: number;
+  durationS: number;
+  startDate: string;
+}): Uint8Array {
+  const n = SAMPLE_RATE_HZ * options.durationS;
+  const onsetsS: number[] = [];
+  if (options.kind === 'task') for (let t = 5; t <= options.durationS - 5; t += 4) onsetsS.push(t);
+  const frequencyHz = new Float64Array(n).fill(options.alphaHz);
+  for (const onset of onsetsS) {
+    for (
+      let i = Math.floor((onset + 0.1) * SAMPLE_RATE_HZ);
+      i < (onset + 0.9) * SAMPLE_RATE_HZ;
+      i++
+    ) {
+      const u = (i / SAMPLE_RATE_HZ - onset - 0.1) / 0.8;
+      frequencyHz[i] -= options.dipHz * Math.sin(Math.PI * u) ** 2;
+    }
+  }
+  const noise = seededNoise(options.kind === 'task' ? 7 : 11);
+  const signals = CHANNELS.map((label, channel) => {
+    const samples = new Float32Array(n);
+    let phase = channel * 0.7;
+    for (let i = 0; i < n; i++) {
+      samples[i] = 20 * Math.sin(phase) + 3 * noise();
+      phase += (2 * Math.PI * frequencyHz[i]) / SAMPLE_RATE_HZ;
+    }
+    return { label, sampleRateHz: SAMPLE_RATE_HZ, physicalMin: -500, physicalMax: 500, samples };
+  });
+  return edfWriter().writeEdf({
+    format: 'EDF+C',
+    startDate: options.startDate,
+    signals,
+    annotations: onsetsS.map((onsetS) => ({ onsetS, durationS: null, text: 'stimulus' })),
+  });
+}
+
+const CAUTION =
+  'Research use only. Not a diagnostic device: do not use these results for clinical decisions. Follow your study protocol, local regulations and licensed clinicians.';
+// Generated test accounts of an invented study.
+const ADMIN = { email: 'rae.admin@gyre.test', name: 'Rae Admin', password: E2E_PASSWORD };
+const TECHNICIAN = { email: 'theo.tech@gyre.test', name: 'Theo Tech' };
+const ANALYST = { email: 'ava.analyst@gyre.test', name: 'Ava Analyst' };
+const MONITOR = { email: 'milo.monitor@gyre.test', name: 'Milo Monitor' };
+const FLAG_REASON = 'Alpha slows after onset over the ROI; the interval excludes zero';
+
+const formatHz = (value: number | null) => (value === null ? '—' : `${value.toFixed(2)} Hz`);
+
+describe('Review and Participants in Chromium, on a real server', () => {
+  let gyre: RunningGyre;
+  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  let analystToken: string;
+  let participant: ParticipantView;
+  const visits: VisitView[] = [];
+  const recordings: Record<string, RecordingDto> = {};
+
+  async function upload(token: string, visit: VisitView, kind: RecordingKind, bytes: Uint8Array) {
+    const form = new FormData();
+    form.append('kind', kind);
+    form.append('file', new Blob([new Uint8Array(bytes)]), `${visit.label}-${kind}.edf`);
+    const response = await fetch(`${gyre.baseUrl}/api/visits/${visit.id}/recordings`, {
+      method: 'POST',
+      headers: { authorization: `Bearer ${token}` },
+      body: form,
+    });
+    const text = await response.text();
+    if (!response.ok) throw new Error(`upload answered ${response.status}: ${text}`);
+    return JSON.parse(text) as RecordingDto;
+  }
+
+  async function waitReady(token: string, recording: RecordingDto): Promise<RecordingDto> {
+    const deadline = Date.now() + 240_000;
+    for (;;) {
+      const now = await api<RecordingDto>(
+        gyre.baseUrl,
+        token,
+        'GET',
+        `/api/recordings/${recording.id}`,
+      );
+      if (now.state === 'ready') return now;
+      if (now.state === 'rejected' || now.state === 'failed') {
+        throw new Error(`${recording.kind} recording ${now.state}: ${JSON.stringify(now)}`);
+      }
+      if (Date.now() > deadline) throw new Error(`${recording.kind} recording still ${now.state}`);
+      await new Promise((wait) => setTimeout(wait, 500));
+    }
+  }
+
+  /**
+   * Signs in on the sign-in page and lets it bring the user on to `next` (a full page load
+   * would drop the in-memory access token; the product's own return path keeps it).
+   */
+  async function signIn(page: Page, email: string, next: string): Promise<void> {
+    await page.goto(`${gyre.baseUrl}/sign-in?next=${encodeURIComponent(next)}`, {
+      waitUntil: 'networkidle',
+    });
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(E2E_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL((url) => url.pathname === next);
+  }
+
+  /** Pixels of a canvas that are drawn on (alpha > 0), read back from the page. */
+  async function drawnPixels(page: Page, figure: string): Promise<number> {
+    return page.getByRole('figure', { name: figure }).evaluate((element) => {
+      let drawn = 0;
+      for (const canvas of element.querySelectorAll('canvas')) {
+        const context = canvas.getContext('2d');
+        if (context === null || canvas.width === 0 || canvas.height === 0) continue;
+        const { data } = context.getImageData(0, 0, canvas.width, canvas.height);
+        for (let i = 3; i < data.length; i += 4) if (data[i] > 0) drawn += 1;
+      }
+      return drawn;
+    });
+  }
+
+  async function expectDrawn(page: Page, figure: string, atLeast: number): Promise<void> {
+    await page.getByRole('figure', { name: figure }).locator('canvas').first().waitFor();
+    await expect
+      .poll(() => drawnPixels(page, figure), { timeout: 30_000, interval: 500 })
+      .toBeGreaterThan(atLeast);
+  }
+
+  beforeAll(async () => {
+    gyre = await startGyre();
+    browser = await openBrowser();
+    await createFirstAdmin(gyre.dataDir, ADMIN);
+    const adminToken = await signInApi(gyre.baseUrl, ADMIN.email, ADMIN.password);
+    const study = await api<StudyView>(gyre.baseUrl, adminToken, 'POST', '/api/studies', {
+      code: 'ALPHA-REVIEW',
+      name: 'Alpha review (invented)',
+    });
+    const site = await api<SiteView>(gyre.baseUrl, adminToken, 'POST', '/api/sites', {
+      studyId: study.id,
+      code: 'EAST',
+      name: 'East clinic',
+    });
+    await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
+      ...TECHNICIAN,
+      role: 'technician',
+      studyId: study.id,
+      siteId: site.id,
+    });
+    for (const [person, role] of [
+      [ANALYST, 'analyst'],
+      [MONITOR, 'monitor'],
+    ] as const) {
+      await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
+        ...person,
+        role,
+        studyId: study.id,
+      });
+    }
+    const techToken = await signInApi(gyre.baseUrl, TECHNICIAN.email, E2E_PASSWORD);
+    analystToken = await signInApi(gyre.baseUrl, ANALYST.email, E2E_PASSWORD);
+    participant = await api<ParticipantView>(gyre.baseUrl, techToken, 'POST', '/api/participants', {
+      code: 'EC-0007',
+    });
+    // Two visits a year apart; at the second the alpha rhythm runs slower and slows more.
+    for (const [label, visitDate, alphaHz, dipHz] of [
+      ['V1', '2024-03-04', 10.2, 0.5],
+      ['V2', '2025-03-10', 9.9, 0.7],
+    ] as const) {
+      const visit = await api<VisitView>(gyre.baseUrl, techToken, 'POST', '/api/visits', {
+        participantId: participant.id,
+        label,
+        visitDate,
+      });
+      visits.push(visit);
+      const startDate = `${visitDate}T09:30:00`;
+      const rest = await upload(
+        techToken,
+        visit,
+        'resting',
+        writeRecording({ kind: 'resting', alphaHz, dipHz: 0, durationS: 60, startDate }),
+      );
+      recordings[`${label}-resting`] = await waitReady(techToken, rest);
+      const task = await upload(
+        techToken,
+        visit,
+        'task',
+        writeRecording({ kind: 'task', alphaHz, dipHz, durationS: 120, startDate }),
+      );
+      recordings[`${label}-task`] = await waitReady(techToken, task);
+    }
+  }, 600_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await gyre?.stop();
+  });
+
+  it('an analyst reviews a visit: every chart drawn, the numbers those of the API, and raises a flag', async () => {
+    const visit = visits[0];
+    const task = await api<RecordingResultsDto>(
+      gyre.baseUrl,
+      analystToken,
+      'GET',
+      `/api/recordings/${recordings['V1-task'].id}/results`,
+    );
+    const rest = await api<RecordingResultsDto>(
+      gyre.baseUrl,
+      analystToken,
+      'GET',
+      `/api/recordings/${recordings['V1-resting'].id}/results`,
+    );
+    expect(task.task).not.toBeNull();
+    expect(rest.rest).not.toBeNull();
+
+    const page = await browser.context.newPage();
+    const problems = watchConsole(page);
+    await signIn(page, ANALYST.email, `/review/${visit.id}`);
+    await page.getByText(`Review · ${participant.code} · ${visit.label}`).waitFor();
+    await expect(
+      page.getByRole('note', { name: 'Research use caution' }).innerText(),
+    ).resolves.toContain(CAUTION);
+
+    await expectDrawn(page, 'Onset curve', 5000);
+    await expectDrawn(page, 'Trial raster', 5000);
+    await expectDrawn(page, 'Rest spectrum', 3000);
+    // Δf, PAF and CoG on screen, as the API computed them, to two decimals with the unit.
+    await expect(page.getByTestId('roi-delta-f').innerText()).resolves.toBe(
+      formatHz(task.run.roiDeltaFHz),
+    );
+    await expect(page.getByTestId('run-paf').innerText()).resolves.toBe(
+      rest.run.pafHz === null ? 'no clear peak' : formatHz(rest.run.pafHz),
+    );
+    await expect(page.getByTestId('rest-cog').innerText()).resolves.toContain(
+      formatHz(rest.run.cogHz),
+    );
+    // The generated task slows by 0.5 Hz for part of the post window: Δf must be negative.
+    expect(task.run.roiDeltaFHz).toBeLessThan(0);
+    await expect(page.getByTestId('settings-version-task').innerText()).resolves.toBe(
+      `version ${task.run.settingsVersion}`,
+    );
+    const firstChannel = [...task.channels].sort(
+      (a, b) => (a.deltaFHz ?? 0) - (b.deltaFHz ?? 0),
+    )[0];
+    const table = page.getByRole('table', { name: 'Per-channel task results' });
+    await expect(table.getByRole('row').nth(1).innerText()).resolves.toContain(
+      formatHz(firstChannel.deltaFHz),
+    );
+    await screenshot(page, 'review-analyst');
+
+    // The flag form refuses a short reason, then raises the flag with a proper one.
+    await page.getByLabel('Why raise it?').fill('too short');
+    await page.getByRole('button', { name: 'Raise a slowing flag' }).click();
+    await page.getByText('Write at least 10 characters (9 so far).').waitFor();
+    await page.getByLabel('Why raise it?').fill(FLAG_REASON);
+    await page.getByRole('button', { name: 'Raise a slowing flag' }).click();
+    const decision = page.getByRole('region', { name: "Analyst's decision" });
+    await decision.getByText('Slowing flag raised').waitFor();
+    await expect(decision.innerText()).resolves.toContain(FLAG_REASON);
+    const flag = await api<VisitFlagDto>(
+      gyre.baseUrl,
+      analystToken,
+      'GET',
+      `/api/visits/${visit.id}/flag`,
+    );
+    expect(flag.current?.state).toBe('raised');
+    expect(flag.current?.raiseReason).toBe(FLAG_REASON);
+    await screenshot(page, 'review-analyst-flagged');
+
+    // Participants: the list, then this participant's trajectory with the flagged visit.
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Participants' })
+      .click();
+    await page.getByRole('link', { name: participant.code }).waitFor();
+    await screenshot(page, 'participants-analyst');
+    await page.getByRole('link', { name: participant.code }).click();
+    await page.getByText(`Participant ${participant.code}`).waitFor();
+    await expectDrawn(page, 'Alpha frequency trajectory', 3000);
+    await expectDrawn(page, 'Onset change trajectory', 3000);
+    const trajectory = await api<TrajectoryDto>(
+      gyre.baseUrl,
+      analystToken,
+      'GET',
+      `/api/participants/${participant.id}/trajectory`,
+    );
+    const visitsTable = page.getByRole('table', { name: 'Visits' });
+    await expect(visitsTable.getByRole('row').nth(1).innerText()).resolves.toContain(
+      formatHz(trajectory.visits[0].pafHz),
+    );
+    await expect(visitsTable.getByRole('row').nth(1).innerText()).resolves.toContain('flagged');
+    await screenshot(page, 'participant-trajectory-analyst');
+    await page.getByRole('link', { name: 'Review V2' }).click();
+    await page.getByText(`Review · ${participant.code} · V2`).waitFor();
+    expect(problems).toEqual([]);
+    await page.close();
+  });
+
+  it('a monitor sees the same screens read-only', async () => {
+    const page = await browser.context.newPage();
+    const problems = watchConsole(page);
+    await signIn(page, MONITOR.email, `/review/${visits[0].id}`);
+    await page.getByText(`Review · ${participant.code} · V1`).waitFor();
+    await expectDrawn(page, 'Onset curve', 5000);
+    await expectDrawn(page, 'Trial raster', 5000);
+    await page
+      .getByRole('region', { name: "Analyst's decision" })
+      .getByText('Slowing flag raised')
+      .waitFor();
+    await expect(page.getByRole('button', { name: 'Raise a slowing flag' }).count()).resolves.toBe(
+      0,
+    );
+    await expect(page.getByRole('button', { name: 'Clear the flag' }).count()).resolves.toBe(0);
+    await expect(page.getByRole('form', { name: 'Analysis settings' }).count()).resolves.toBe(0);
+    await expect(page.locator('textarea').count()).resolves.toBe(0);
+    await screenshot(page, 'review-monitor');
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Participants' })
+      .click();
+    await page.getByRole('link', { name: participant.code }).waitFor();
+    await expect(
+      page.getByRole('note', { name: 'Research use caution' }).innerText(),
+    ).resolves.toContain(CAUTION);
+    await screenshot(page, 'participants-monitor');
+    await page.getByRole('link', { name: participant.code }).click();
+    await expectDrawn(page, 'Alpha frequency trajectory', 3000);
+    await screenshot(page, 'participant-trajectory-monitor');
+    expect(problems).toEqual([]);
+    await page.close();
+  });
+});
