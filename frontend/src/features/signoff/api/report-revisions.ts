@@ -1,0 +1,34 @@
+import type { Page, ReportRevisionDto } from '@gyre/shared';
+import useSWR from 'swr';
+import { apiDownload, apiFetch, saveBlob, withQuery } from '../../../lib/api-client';
+
+/** `GET /api/report-revisions`: signed revisions in scope (a coordinator: their site's). */
+export function reportRevisionsKey(page: number, pageSize: number): string {
+  return withQuery('/api/report-revisions', { page, pageSize, sort: 'signedAt', order: 'desc' });
+}
+
+export function getReportRevisions(key: string): Promise<Page<ReportRevisionDto>> {
+  return apiFetch<Page<ReportRevisionDto>>(key);
+}
+
+export function useReportRevisions(page: number, pageSize: number) {
+  return useSWR<Page<ReportRevisionDto>>(reportRevisionsKey(page, pageSize), getReportRevisions, {
+    keepPreviousData: true,
+  });
+}
+
+/** `GET /api/report-revisions/:id`: one revision (the e-mail's link names it). */
+export const reportRevisionKey = (revisionId: string) =>
+  `/api/report-revisions/${encodeURIComponent(revisionId)}`;
+
+export function useReportRevision(revisionId: string | null) {
+  return useSWR<ReportRevisionDto>(revisionId === null ? null : reportRevisionKey(revisionId), () =>
+    apiFetch<ReportRevisionDto>(reportRevisionKey(revisionId ?? '')),
+  );
+}
+
+/** `GET /api/report-revisions/:id/file`: the signed PDF, saved under the server's file name. */
+export async function downloadRevision(revision: ReportRevisionDto): Promise<void> {
+  const { blob, fileName } = await apiDownload(`${reportRevisionKey(revision.id)}/file`);
+  saveBlob(blob, fileName ?? `gyre-report-${revision.participantCode}-r${revision.revision}.pdf`);
+}

@@ -1,0 +1,152 @@
+import type { ReportRevisionDto, ReportState } from '@gyre/shared';
+import { App, Button, Flex, List, Skeleton, Tag, Typography } from 'antd';
+import { useEffect, useState } from 'react';
+import { ErrorState } from '../../../components/page-states';
+import { ApiError } from '../../../lib/api-client';
+import { formatDateTime } from '../../../lib/format';
+import { useAppAbility } from '../../../lib/session/ability';
+import { useSignOff } from '../api/get-sign-off';
+import { downloadRevision } from '../api/report-revisions';
+import { SignReportDialog } from './sign-report-dialog';
+
+const STATE_LOOK: Record<ReportState, { label: string; color: string }> = {
+  draft: { label: 'Draft', color: 'default' },
+  signed: { label: 'Signed', color: '#24525A' },
+  sent: { label: 'Sent to coordinators', color: 'success' },
+};
+
+/** One signed revision with its signature and a download. */
+function RevisionItem({ revision }: { revision: ReportRevisionDto }) {
+  const { message } = App.useApp();
+  const [busy, setBusy] = useState(false);
+  const download = async () => {
+    setBusy(true);
+    try {
+      await downloadRevision(revision);
+    } catch (error) {
+      message.error(error instanceof ApiError ? error.message : 'The PDF could not be downloaded.');
+    } finally {
+      setBusy(false);
+    }
+  };
+  return (
+    <List.Item
+      actions={[
+        <Button
+          key="download"
+          size="small"
+          loading={busy}
+          onClick={() => void download()}
+          aria-label={`Download revision ${revision.revision}`}
+        >
+          PDF
+        </Button>,
+      ]}
+    >
+      <List.Item.Meta
+        title={
+          <span>
+            Revision {revision.revision}{' '}
+            <Tag color={revision.state === 'sent' ? 'success' : '#24525A'}>
+              {revision.state === 'sent' ? 'Sent' : 'Signed'}
+            </Tag>
+          </span>
+        }
+        description={
+          <span className="gyre-figures">
+            {revision.signerName}, {formatDateTime(revision.signedAt)}: {revision.meaning}
+          </span>
+        }
+      />
+    </List.Item>
+  );
+}
+
+/**
+ * The Review screen's report panel: the report's state, the draft preview, signing (for
+ * analysts) and every signed revision with its PDF. `watch` is anything whose change means
+ * the report may have changed (e.g. the visit's flag), so the panel reloads.
+ */
+export function ReportSignOff({ visitId, watch }: { visitId: string; watch?: unknown }) {
+  const ability = useAppAbility();
+  const { message } = App.useApp();
+  const { data, error, mutate } = useSignOff(visitId);
+  const [dialog, setDialog] = useState<'closed' | 'preview' | 'sign'>('closed');
+
+  useEffect(() => {
+    if (watch !== undefined) void mutate();
+  }, [watch, mutate]);
+
+  if (error !== undefined) {
+    return (
+      <ErrorState
+        title="The report could not be loaded"
+        error={error}
+        onRetry={() => void mutate()}
+      />
+    );
+  }
+  if (data === undefined) return <Skeleton active paragraph={{ rows: 2 }} />;
+  if (data === null) return <span>No report has been drafted for this visit yet.</span>;
+
+  // The report is in the user's scope (the server answered it): the type-level rule decides.
+  const maySign = ability.can('sign', 'Report');
+  const look = STATE_LOOK[data.report.state];
+  const open = async (mode: 'preview' | 'sign') => {
+    await mutate();
+    setDialog(mode);
+  };
+
+  return (
+    <Flex vertical gap={12}>
+      <div>
+        <Tag color={look.color}>{look.label}</Tag>
+        {data.pendingRevision !== null
+          ? data.revisions.length === 0
+            ? 'Not signed yet.'
+            : `Changed since revision ${data.revisions[0].revision}: revision ${data.pendingRevision} awaits signing.`
+          : data.cannotSignReason}
+      </div>
+      <Flex gap={8} wrap>
+        <Button disabled={data.draftFingerprint === null} onClick={() => void open('preview')}>
+          Preview draft
+        </Button>
+        {maySign && (
+          <Button
+            type="primary"
+            disabled={!data.canSign}
+            onClick={() => void open('sign')}
+            title={data.cannotSignReason ?? undefined}
+          >
+            {data.pendingRevision === null
+              ? 'Sign report'
+              : `Preview and sign revision ${data.pendingRevision}`}
+          </Button>
+        )}
+      </Flex>
+      {data.revisions.length > 0 && (
+        <List
+          size="small"
+          header={<Typography.Text type="secondary">Signed revisions</Typography.Text>}
+          dataSource={data.revisions}
+          renderItem={(revision) => <RevisionItem revision={revision} />}
+        />
+      )}
+      {dialog !== 'closed' && (
+        <SignReportDialog
+          visitId={visitId}
+          signOff={data}
+          canSign={dialog === 'sign' && maySign && data.canSign}
+          onClose={() => setDialog('closed')}
+          onStale={() => mutate()}
+          onSigned={(revision) => {
+            setDialog('closed');
+            message.success(
+              `Signed: revision ${revision.revision}. The site's coordinators are told by e-mail.`,
+            );
+          }}
+        />
+      )}
+    </Flex>
+  );
+}

@@ -1,0 +1,163 @@
+import type { ReportRevisionDto } from '@gyre/shared';
+import { Alert, App, Button, Card, Table, Tag, Typography } from 'antd';
+import type { TableColumnsType } from 'antd';
+import { useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import { EmptyState, ErrorState } from '../../../components/page-states';
+import { ApiError } from '../../../lib/api-client';
+import { formatDate, formatDateTime } from '../../../lib/format';
+import { downloadRevision, useReportRevision, useReportRevisions } from '../api/report-revisions';
+
+const PAGE_SIZE = 20;
+
+function useDownload() {
+  const { message } = App.useApp();
+  const [busy, setBusy] = useState<string | null>(null);
+  const download = async (revision: ReportRevisionDto) => {
+    setBusy(revision.id);
+    try {
+      await downloadRevision(revision);
+    } catch (error) {
+      message.error(error instanceof ApiError ? error.message : 'The PDF could not be downloaded.');
+    } finally {
+      setBusy(null);
+    }
+  };
+  return { busy, download };
+}
+
+const nameOf = (r: ReportRevisionDto) =>
+  `${r.participantCode} ${r.visitLabel} revision ${r.revision}`;
+
+/** The revision an e-mail linked to (`/reports?revision=…`), with its download up front. */
+function LinkedRevision({ revisionId }: { revisionId: string }) {
+  const { data, error } = useReportRevision(revisionId);
+  const { busy, download } = useDownload();
+  if (error !== undefined) {
+    return (
+      <Alert
+        type="error"
+        showIcon
+        style={{ marginBottom: 16 }}
+        title="The report of this link is not available to you"
+        description={error instanceof ApiError ? error.message : undefined}
+      />
+    );
+  }
+  if (data === undefined) return null;
+  return (
+    <Card role="region" style={{ marginBottom: 16 }} aria-label="The report you were sent">
+      <Typography.Text strong>
+        {data.participantCode}, {data.visitLabel} ({formatDate(data.visitDate)}), revision{' '}
+        {data.revision}
+      </Typography.Text>{' '}
+      <Typography.Text type="secondary" className="gyre-figures">
+        signed by {data.signerName}, {formatDateTime(data.signedAt)}
+      </Typography.Text>{' '}
+      <Button
+        type="primary"
+        size="small"
+        loading={busy === data.id}
+        onClick={() => void download(data)}
+        aria-label={`Download ${nameOf(data)}`}
+      >
+        Download PDF
+      </Button>
+    </Card>
+  );
+}
+
+/**
+ * Reports for those who see signed reports only (coordinators): every signed revision of
+ * their site, newest first, each downloadable; earlier revisions stay listed after a new one.
+ */
+export function SignedReports() {
+  const [params] = useSearchParams();
+  const linked = params.get('revision');
+  const [page, setPage] = useState(1);
+  const { data, error, isLoading, mutate } = useReportRevisions(page, PAGE_SIZE);
+  const { busy, download } = useDownload();
+
+  const columns: TableColumnsType<ReportRevisionDto> = [
+    { title: 'Participant', dataIndex: 'participantCode' },
+    {
+      title: 'Visit',
+      key: 'visit',
+      render: (_, r) => (
+        <>
+          {r.visitLabel}{' '}
+          <Typography.Text type="secondary">· {formatDate(r.visitDate)}</Typography.Text>
+        </>
+      ),
+    },
+    { title: 'Revision', dataIndex: 'revision', width: 90, className: 'gyre-figures' },
+    {
+      title: 'Signed',
+      key: 'signed',
+      render: (_, r) => (
+        <span className="gyre-figures">
+          {r.signerName}, {formatDateTime(r.signedAt)}
+        </span>
+      ),
+    },
+    {
+      title: 'State',
+      dataIndex: 'state',
+      width: 90,
+      render: (state: ReportRevisionDto['state']) =>
+        state === 'sent' ? <Tag color="success">Sent</Tag> : <Tag color="#24525A">Signed</Tag>,
+    },
+    {
+      title: 'File',
+      key: 'file',
+      width: 140,
+      render: (_, r) => (
+        <Button
+          size="small"
+          loading={busy === r.id}
+          onClick={() => void download(r)}
+          aria-label={`Download ${nameOf(r)}`}
+        >
+          Download PDF
+        </Button>
+      ),
+    },
+  ];
+
+  return (
+    <>
+      {linked !== null && <LinkedRevision revisionId={linked} />}
+      <Card>
+        {error !== undefined ? (
+          <ErrorState
+            error={error}
+            onRetry={() => void mutate()}
+            title="The signed reports could not be loaded"
+          />
+        ) : (
+          <Table<ReportRevisionDto>
+            rowKey="id"
+            size="middle"
+            loading={isLoading}
+            columns={columns}
+            dataSource={data?.items ?? []}
+            rowClassName={(r) => (r.id === linked ? 'ant-table-row-selected' : '')}
+            pagination={{
+              current: page,
+              pageSize: PAGE_SIZE,
+              total: data?.total ?? 0,
+              showSizeChanger: false,
+              hideOnSinglePage: true,
+              onChange: setPage,
+            }}
+            locale={{
+              emptyText: (
+                <EmptyState description="No signed reports yet. A report appears here once an analyst signs a visit." />
+              ),
+            }}
+          />
+        )}
+      </Card>
+    </>
+  );
+}
