@@ -34,6 +34,9 @@ function findRepoRoot(from: string): string {
 const REPO_ROOT = findRepoRoot(__dirname);
 const HEALTH_TIMEOUT_MS = 60_000;
 
+/** A request the CLI turns down; nothing was changed. */
+class Refusal extends Error {}
+
 interface CliOptions {
   reset: boolean;
   small: boolean;
@@ -104,7 +107,7 @@ async function main(): Promise<void> {
 
   if (options.reset) {
     if (await isServing(baseUrl)) {
-      throw new Error(
+      throw new Refusal(
         `Gyre is running on port ${port} and holds the database: stop it first, then run npm run seed -- --reset`,
       );
     }
@@ -117,6 +120,17 @@ async function main(): Promise<void> {
     say('  (kept: secrets/, the sign-in secret)');
   }
 
+  if (options.attach) {
+    // npm start passes Ctrl-C on to us too: say how to get a complete demo afterwards.
+    for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+      process.on(signal, () => {
+        say(
+          'demo seeding interrupted; for the complete demo: stop Gyre, then npm run seed -- --reset',
+        );
+        process.exit(130);
+      });
+    }
+  }
   let server: ChildProcess | null = null;
   if (!options.attach && !(await isServing(baseUrl))) {
     say(`starting Gyre on port ${port} for seeding`);
@@ -145,7 +159,7 @@ async function main(): Promise<void> {
     });
     if (result.status === 'not-empty') {
       if (!options.attach) {
-        throw new Error(
+        throw new Refusal(
           'this installation already has accounts; to replace it with the demo, stop Gyre and run npm run seed -- --reset',
         );
       }
@@ -172,6 +186,10 @@ async function main(): Promise<void> {
 }
 
 main().catch((error: unknown) => {
+  if (error instanceof Refusal) {
+    say(`not seeding: ${error.message}`);
+    process.exit(2);
+  }
   say(`seeding failed: ${error instanceof Error ? error.message : String(error)}`);
   say('to start over: stop Gyre, then npm run seed -- --reset');
   process.exit(1);
