@@ -312,7 +312,7 @@ describe('visit report sign-off', () => {
     const second = await waitForMail(mailDir, { to: secondCoordinator.email });
     await t.mailIdle();
     for (const mail of [first, second]) {
-      expect(mail.text).toContain(`${TEST_PUBLIC_URL}/reports?revision=${revision1.id}`);
+      expect(mail.text).toContain(`${TEST_PUBLIC_URL}/reports/revisions?revision=${revision1.id}`);
       // No health data in the mail: no participant code, no number of the report.
       expect(mail.text).not.toContain('A1-0001');
       expect(mail.text).not.toContain(restResults.rest!.pafHz!.toFixed(2));
@@ -460,8 +460,10 @@ describe('visit report sign-off', () => {
       .send({ reason });
     expect(raised.status).toBe(201);
     const status = await signOff();
-    expect(status.report.state).toBe('draft');
+    // The report stays what it was (sent); the change waits as revision 2.
+    expect(status.report.state).toBe('sent');
     expect(status).toMatchObject({ canSign: true, pendingRevision: 2 });
+    expect(status.draftFingerprint).not.toBe(null);
     const response = await sign({
       password: SEED_PASSWORD,
       meaning: SIGNATURE_MEANING,
@@ -584,7 +586,6 @@ describe('visit report sign-off', () => {
       'notify',
       'sent',
       'download',
-      'reopen',
     ]) {
       expect(actions).toContain(action);
     }

@@ -34,5 +34,5 @@ export function reportSignedMail(options: {
 
 /** The client route that opens one signed revision. */
 export function revisionLink(publicUrl: string, revisionId: string): string {
-  return `${publicUrl}/reports?revision=${encodeURIComponent(revisionId)}`;
+  return `${publicUrl}/reports/revisions?revision=${encodeURIComponent(revisionId)}`;
 }

@@ -32,8 +32,12 @@ export interface PdfFile {
 
 /**
  * Sign-off of visit reports: the draft preview, the signature (password again, the stated
- * meaning, the content the signer saw), immutable revisions stored by SHA-256, and the
- * reopening of a signed report when its results or flags change.
+ * meaning, the content the signer saw) and immutable revisions stored by SHA-256.
+ *
+ * The report's state follows draft → signed → sent and then tells the state of its newest
+ * signed revision. New results or a changed flag after signing never touch a signed revision:
+ * they change the draft's fingerprint, so `pendingRevision` says the next signature makes a
+ * new revision, and the earlier ones stay as they are.
  */
 @Injectable()
 export class SignoffService {
@@ -48,12 +52,8 @@ export class SignoffService {
   ) {}
 
   async status(caller: Caller, visitId: string): Promise<ReportSignOffDto> {
-    const found = await this.reportInScope(caller, visitId, 'read');
     await this.notifications.markDelivered();
-    const report = await this.reopenIfChanged(
-      found.visitId,
-      'seen changed when the report was opened',
-    );
+    const report = await this.reportInScope(caller, visitId, 'read');
     const content = await this.content.build(this.dataSource.manager, report);
     const revisions = await this.revisionsOf(this.dataSource.manager, report.id);
     const latest = revisions[0] ?? null;
@@ -201,46 +201,6 @@ export class SignoffService {
     });
     this.notifications.send();
     return revision;
-  }
-
-  /**
-   * Inside or outside a transaction: when the visit's content no longer matches its latest
-   * signed revision, the report goes back to `draft` (the next signature makes a new
-   * revision; earlier ones stay as they are). Returns the report as it is afterwards.
-   */
-  async reopenIfChanged(visitId: string, cause: string, manager?: EntityManager): Promise<Report> {
-    const work = async (m: EntityManager): Promise<Report> => {
-      const report = await m.findOneByOrFail(Report, { visitId });
-      if (report.state === 'draft') return report;
-      const latest = (await this.revisionsOf(m, report.id))[0] ?? null;
-      if (latest === null) return report;
-      const content = await this.content.build(m, report);
-      if (content.fingerprint === latest.contentFingerprint) return report;
-      const updatedAt = nowIso();
-      await m.update(Report, { id: report.id }, { state: 'draft', updatedAt });
-      const after = { ...report, state: 'draft' as const, updatedAt };
-      await this.audit.record({
-        actor: null,
-        action: 'reopen',
-        objectType: 'Report',
-        objectId: report.id,
-        studyId: report.studyId,
-        siteId: report.siteId,
-        before: toReportDto(report),
-        after: { ...toReportDto(after), pendingRevision: latest.revision + 1 },
-        reason: `content changed since signed revision ${latest.revision}: ${cause}`,
-      });
-      return after;
-    };
-    if (manager !== undefined) return work(manager);
-    // Most reads find nothing to do: look first, write only when needed.
-    const current = await this.dataSource.getRepository(Report).findOneByOrFail({ visitId });
-    if (current.state === 'draft') return current;
-    const latest = (await this.revisionsOf(this.dataSource.manager, current.id))[0] ?? null;
-    if (latest === null) return current;
-    const content = await this.content.build(this.dataSource.manager, current);
-    if (content.fingerprint === latest.contentFingerprint) return current;
-    return this.writes.run(work);
   }
 
   private modelOf(

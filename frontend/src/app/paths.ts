@@ -11,6 +11,8 @@ export const paths = {
   participant: (participantId = ':participantId') => `/participants/${participantId}`,
   ledger: '/ledger',
   reports: '/reports',
+  /** Signed revisions; `?revision=<id>` opens one (the coordinators' e-mail links here). */
+  reportRevisions: '/reports/revisions',
   team: '/team',
   outbox: '/outbox',
 } as const;

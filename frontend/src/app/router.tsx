@@ -12,6 +12,7 @@ import { ReportsPage } from '../features/reports/components/reports-page';
 import { ParticipantPage } from '../features/participants/components/participant-page';
 import { ParticipantsPage } from '../features/participants/components/participants-page';
 import { ReviewPage } from '../features/review/components/review-page';
+import { SignedReportsPage } from '../features/signoff/components/signed-reports-page';
 import { OutboxPage } from '../features/team/components/outbox-page';
 import { TeamPage } from '../features/team/components/team-page';
 import { paths } from './paths';
@@ -47,6 +48,12 @@ const SCREENS: ScreenRoute[] = [
     screen: 'Reports',
     requires: ['read', 'Report'],
     element: <ReportsPage />,
+  },
+  {
+    path: paths.reportRevisions,
+    screen: 'Signed report revisions',
+    requires: ['read', 'Report'],
+    element: <SignedReportsPage />,
   },
   { path: paths.team, screen: 'Team', requires: ['update', 'User'], element: <TeamPage /> },
   {

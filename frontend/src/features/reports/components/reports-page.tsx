@@ -3,6 +3,8 @@ import { subject } from '@gyre/shared';
 import { App, Button, Card, Segmented, Table, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { paths } from '../../../app/paths';
 import { PageHeader } from '../../../components/page-header';
 import { EmptyState, ErrorState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
@@ -123,9 +125,12 @@ export function ReportsPage() {
       <PageHeader
         title="Reports"
         description={
-          me.site !== null
-            ? `Visit reports of ${me.site.name}, once an analyst has signed them.`
-            : 'Visit reports of the study.'
+          <>
+            {me.site !== null
+              ? `Visit reports of ${me.site.name}, once an analyst has signed them.`
+              : 'Visit reports of the study.'}{' '}
+            <Link to={paths.reportRevisions}>Every signed revision</Link>
+          </>
         }
         extra={
           <Segmented<ReportState | 'all'>
