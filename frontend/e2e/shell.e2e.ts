@@ -49,16 +49,16 @@ describe('the built app in Chromium', () => {
     await page.close();
   });
 
-  it('falls back to the client for deep links and shows the not-found page', async () => {
+  it('falls back to the client for deep links and asks a visitor to sign in first', async () => {
     const page = await browser.context.newPage();
     const problems = watchConsole(page);
     const response = await page.goto(`${gyre.baseUrl}/no/such/screen`, {
       waitUntil: 'networkidle',
     });
     expect(response?.status()).toBe(200);
-    await expect(page.getByText('No such page').isVisible()).resolves.toBe(true);
-    await expect(page.getByRole('link', { name: 'Gyre home' }).isVisible()).resolves.toBe(true);
-    await screenshot(page, 'shell-not-found');
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+    expect(new URL(page.url()).searchParams.get('next')).toBe('/no/such/screen');
+    // This browser never signed in, so the client did not even ask the server (no 401 logged).
     expect(problems).toEqual([]);
     await page.close();
   });

@@ -6,10 +6,11 @@ import { useSWRConfig } from 'swr';
 import { AppFrame } from '../components/app-frame';
 import { ErrorState, LoadingState } from '../components/page-states';
 import { UserMenu } from '../components/user-menu';
-import { ApiError, onSessionEnded } from '../lib/api-client';
+import { ApiError, getAccessToken, onSessionEnded } from '../lib/api-client';
 import { abilityFromRules } from '../lib/session/ability';
 import { useMe } from '../lib/session/me';
 import { SessionContext, type Session } from '../lib/session/session-context';
+import { mightHaveSession } from '../lib/session/session-hint';
 import { signOut } from '../lib/session/sign-out';
 import { navEntriesFor } from './navigation';
 import { signInPath } from './paths';
@@ -19,7 +20,9 @@ import { signInPath } from './paths';
  * abilities, and sends anyone without a session to sign-in and back to where they were.
  */
 export function SessionGate() {
-  const { data: me, error, isLoading, mutate: reloadMe } = useMe();
+  // Someone who never signed in here, or signed out, goes straight to sign-in.
+  const [askServer] = useState(() => getAccessToken() !== null || mightHaveSession());
+  const { data: me, error, isLoading, mutate: reloadMe } = useMe(askServer);
   const { mutate } = useSWRConfig();
   const location = useLocation();
   const navigate = useNavigate();
@@ -66,7 +69,7 @@ export function SessionGate() {
     [me, mutate, navigate, message],
   );
 
-  if (error instanceof ApiError && error.isUnauthenticated) {
+  if (!askServer || (error instanceof ApiError && error.isUnauthenticated)) {
     return <Navigate to={signInPath(here)} replace />;
   }
   if (error !== undefined) {

@@ -1,11 +1,12 @@
 import { Button, Result } from 'antd';
 import { Link } from 'react-router-dom';
 import { paths } from '../app/paths';
+import { LostIcon } from './state-icons';
 
 export function NotFoundPage() {
   return (
     <Result
-      status="404"
+      icon={<LostIcon />}
       title="No such page"
       subTitle="The address does not match any screen in Gyre."
       extra={

@@ -1,4 +1,5 @@
 import type { ErrorBody } from '@gyre/shared';
+import { forgetSession, mightHaveSession } from './session/session-hint';
 
 /** An error the API answered with, typed after the server's `{ statusCode, code, message, details }`. */
 export class ApiError extends Error {
@@ -57,6 +58,7 @@ export function onSessionEnded(listener: SessionListener): () => void {
 
 function endSession(): void {
   accessToken = null;
+  forgetSession();
   for (const listener of [...sessionEndedListeners]) listener();
 }
 
@@ -112,7 +114,11 @@ export function refreshAccessToken(): Promise<boolean> {
         headers: { Accept: 'application/json' },
         credentials: 'include',
       });
-      if (!response.ok) return false;
+      if (!response.ok) {
+        // The cookie is gone or spent: stop assuming this browser has a session.
+        if (response.status === 401) forgetSession();
+        return false;
+      }
       const body = safeJson(await response.text());
       const token =
         typeof body === 'object' && body !== null && 'accessToken' in body
@@ -138,6 +144,10 @@ async function withRefresh<R extends { status: number }>(
   url: string,
   send: () => Promise<R>,
 ): Promise<R> {
+  // After a reload the token is gone from memory; renew it first rather than be refused.
+  if (accessToken === null && mayRefreshFor(url) && mightHaveSession()) {
+    await refreshAccessToken();
+  }
   const first = await send();
   if (first.status !== 401 || !mayRefreshFor(url)) return first;
   const hadToken = accessToken !== null;

@@ -1,6 +1,9 @@
 import '@testing-library/jest-dom/vitest';
-import { cleanup } from '@testing-library/react';
+import { cleanup, configure } from '@testing-library/react';
 import { afterEach } from 'vitest';
+
+// A 2-core machine shared with other work renders antd slowly; wait longer than the 1 s default.
+configure({ asyncUtilTimeout: 5000 });
 
 afterEach(() => cleanup());
 

@@ -9,8 +9,9 @@ export function getMe(): Promise<MeResponse> {
   return apiFetch<MeResponse>(meKey);
 }
 
-export function useMe() {
-  return useSWR<MeResponse>(meKey, getMe, {
+/** `enabled: false` asks nothing (nobody can be signed in). */
+export function useMe(enabled = true) {
+  return useSWR<MeResponse>(enabled ? meKey : null, getMe, {
     // Who is signed in changes only by signing in or out, both of which revalidate this key.
     revalidateIfStale: false,
     shouldRetryOnError: false,

@@ -1,5 +1,6 @@
 import type { SessionResponse } from '@gyre/shared';
 import { apiSend, setAccessToken } from '../../../lib/api-client';
+import { rememberSession } from '../../../lib/session/session-hint';
 
 export interface SignInBody {
   email: string;
@@ -10,5 +11,6 @@ export interface SignInBody {
 export async function signIn(body: SignInBody): Promise<SessionResponse> {
   const session = await apiSend<SessionResponse>('/api/auth/sign-in', 'POST', body);
   setAccessToken(session.accessToken);
+  rememberSession();
   return session;
 }

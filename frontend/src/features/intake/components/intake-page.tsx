@@ -24,7 +24,10 @@ export function IntakePage() {
   const participantId = search.get('participant');
   const visitId = search.get('visit');
   const participants = useParticipants();
-  const visits = useVisits(participantId);
+  // An id from an old or edited address that is not in the list is not asked about.
+  const knownParticipantId =
+    participants.data?.items.some((p) => p.id === participantId) === true ? participantId : null;
+  const visits = useVisits(knownParticipantId);
   const [visitFormOpen, setVisitFormOpen] = useState(false);
   const [participantFormOpen, setParticipantFormOpen] = useState(false);
 

@@ -40,8 +40,8 @@ export function LedgerFilters({
 
   return (
     <Form layout="vertical" component="div" style={{ marginBottom: 8 }}>
-      <Flex gap={16} wrap>
-        <Form.Item label="Person" htmlFor="ledger-person" style={{ width: 260, marginBottom: 8 }}>
+      <Flex gap={12} wrap>
+        <Form.Item label="Person" htmlFor="ledger-person" style={{ width: 240, marginBottom: 8 }}>
           <Select
             id="ledger-person"
             allowClear
@@ -59,7 +59,7 @@ export function LedgerFilters({
             }))}
           />
         </Form.Item>
-        <Form.Item label="Action" htmlFor="ledger-action" style={{ width: 200, marginBottom: 8 }}>
+        <Form.Item label="Action" htmlFor="ledger-action" style={{ width: 170, marginBottom: 8 }}>
           <Select
             id="ledger-action"
             allowClear
@@ -70,7 +70,7 @@ export function LedgerFilters({
             options={ACTIONS.map((action) => ({ value: action, label: action }))}
           />
         </Form.Item>
-        <Form.Item label="Object" htmlFor="ledger-object" style={{ width: 190, marginBottom: 8 }}>
+        <Form.Item label="Object" htmlFor="ledger-object" style={{ width: 170, marginBottom: 8 }}>
           <Select
             id="ledger-object"
             allowClear
@@ -84,7 +84,7 @@ export function LedgerFilters({
         <Form.Item
           label="Object id"
           htmlFor="ledger-object-id"
-          style={{ width: 200, marginBottom: 8 }}
+          style={{ width: 170, marginBottom: 8 }}
         >
           <Input.Search
             id="ledger-object-id"

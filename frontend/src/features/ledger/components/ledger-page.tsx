@@ -147,7 +147,8 @@ export function LedgerPage() {
               pageSize: PAGE_SIZE,
               total: data?.total ?? 0,
               showSizeChanger: false,
-              showTotal: (total) => `${total.toLocaleString('en-GB')} entries`,
+              showTotal: (total) =>
+                `${total.toLocaleString('en-GB')} ${total === 1 ? 'entry' : 'entries'}`,
               onChange: setPage,
             }}
             locale={{

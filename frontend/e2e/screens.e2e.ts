@@ -1,0 +1,347 @@
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { Page } from 'playwright-core';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import type { SiteView, StudyView } from '@gyre/shared';
+import {
+  api,
+  createFirstAdmin,
+  E2E_PASSWORD,
+  invitationToken,
+  inviteAndAccept,
+  resetToken,
+  signInApi,
+} from './support/accounts';
+import { openBrowser, screenshot, watchConsole } from './support/browser';
+import { writeRestingEdf, writeTruncatedEdf } from './support/edf-files';
+import { startGyre, type RunningGyre } from './support/gyre-server';
+
+const CAUTION =
+  'Research use only. Not a diagnostic device: do not use these results for clinical decisions. Follow your study protocol, local regulations and licensed clinicians.';
+
+// Generated test accounts of an invented study.
+const ADMIN = { email: 'ada.admin@gyre.test', name: 'Ada Admin', password: E2E_PASSWORD };
+const PEOPLE = {
+  technician: { email: 'tess.tech@gyre.test', name: 'Tess Tech' },
+  analyst: { email: 'alan.analyst@gyre.test', name: 'Alan Analyst' },
+  monitor: { email: 'mira.monitor@gyre.test', name: 'Mira Monitor' },
+  coordinator: { email: 'cole.coord@gyre.test', name: 'Cole Coordinator' },
+} as const;
+const FLAG_REASON = 'Alpha slows by about 0.4 Hz after onset in the ROI; checked by eye';
+
+describe('every screen of this part in Chromium, on a real server', () => {
+  let gyre: RunningGyre;
+  const browsers: Awaited<ReturnType<typeof openBrowser>>[] = [];
+  let files: string;
+  let adminToken: string;
+  let study: StudyView;
+  let site: SiteView;
+  let visitId = '';
+
+  /**
+   * A page in a browser of its own: each person has their own refresh cookie and storage, as
+   * on their own machine (one profile would share one cookie among everyone signing in).
+   */
+  async function newPage(): Promise<{ page: Page; problems: string[] }> {
+    const browser = await openBrowser();
+    browsers.push(browser);
+    const page = await browser.context.newPage();
+    return { page, problems: watchConsole(page) };
+  }
+
+  async function closeBrowsers(): Promise<void> {
+    for (const browser of browsers.splice(0)) await browser.close();
+  }
+
+  async function signIn(page: Page, email: string, password = E2E_PASSWORD): Promise<void> {
+    await page.goto(`${gyre.baseUrl}/sign-in`, { waitUntil: 'networkidle' });
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText(/^Welcome, /).waitFor();
+  }
+
+  /** The menu's entries among this part's screens (other parts may add their own). */
+  async function menu(page: Page): Promise<string[]> {
+    const screens = ['Intake', 'Participants', 'Ledger', 'Reports', 'Team', 'Outbox'];
+    const labels = await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('menuitem')
+      .allInnerTexts();
+    return labels.filter((label) => screens.includes(label));
+  }
+
+  beforeAll(async () => {
+    files = mkdtempSync(join(tmpdir(), 'gyre-e2e-files-'));
+    gyre = await startGyre();
+    await createFirstAdmin(gyre.dataDir, ADMIN);
+    adminToken = await signInApi(gyre.baseUrl, ADMIN.email, ADMIN.password);
+    study = await api<StudyView>(gyre.baseUrl, adminToken, 'POST', '/api/studies', {
+      code: 'ALPHA-AGE',
+      name: 'Alpha in ageing (invented)',
+    });
+    site = await api<SiteView>(gyre.baseUrl, adminToken, 'POST', '/api/sites', {
+      studyId: study.id,
+      code: 'NORTH',
+      name: 'North clinic',
+    });
+    for (const role of ['analyst', 'monitor', 'coordinator'] as const) {
+      await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
+        ...PEOPLE[role],
+        role,
+        studyId: study.id,
+        ...(role === 'coordinator' ? { siteId: site.id } : {}),
+      });
+    }
+  });
+
+  afterEach(async () => {
+    await closeBrowsers();
+  });
+
+  afterAll(async () => {
+    await closeBrowsers();
+    await gyre?.stop();
+    if (files) rmSync(files, { recursive: true, force: true });
+  });
+
+  it('an admin invites a technician on Team, who accepts from the e-mailed link', async () => {
+    const { page, problems } = await newPage();
+    await signIn(page, ADMIN.email);
+    expect(await menu(page)).toEqual(['Ledger', 'Team', 'Outbox']);
+    await screenshot(page, 'home-admin');
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Team' })
+      .click();
+    await page.getByText(PEOPLE.monitor.email).waitFor();
+    await page.getByRole('button', { name: 'Invite someone' }).click();
+    const dialog = page.getByRole('dialog');
+    await dialog.getByLabel('E-mail').fill(PEOPLE.technician.email);
+    await dialog.getByLabel('Name').fill(PEOPLE.technician.name);
+    await dialog.getByLabel('Role').click();
+    await page.getByTitle('Technician', { exact: true }).click();
+    await dialog.getByLabel('Study').click();
+    await page.getByTitle('ALPHA-AGE · Alpha in ageing (invented)').click();
+    await dialog.getByLabel('Site').click();
+    await page.getByTitle('NORTH · North clinic').click();
+    await screenshot(page, 'team-admin-invite');
+    await dialog.getByRole('button', { name: 'Send invitation' }).click();
+    await page
+      .getByText(`${PEOPLE.technician.email} is invited; the e-mail is on its way.`)
+      .waitFor();
+    await page
+      .getByRole('row', { name: new RegExp(PEOPLE.technician.email) })
+      .getByText('Invited')
+      .waitFor();
+    await dialog.waitFor({ state: 'hidden' });
+    await screenshot(page, 'team-admin');
+    await page.getByRole('link', { name: 'Outbox' }).click();
+    await page.getByText('You are invited to Gyre').first().waitFor();
+    await screenshot(page, 'outbox-admin');
+    await page.getByRole('link', { name: 'Ledger' }).click();
+    await page.getByText('The trail is intact').waitFor();
+    await expect(
+      page.getByRole('note', { name: 'Research use caution' }).innerText(),
+    ).resolves.toContain(CAUTION);
+    await screenshot(page, 'ledger-admin');
+
+    // The technician opens the link from the fake SMTP server's copy of the message.
+    const token = await invitationToken(gyre.dataDir, PEOPLE.technician.email);
+    const { page: invited, problems: invitedProblems } = await newPage();
+    await invited.goto(`${gyre.baseUrl}/accept-invite?token=${encodeURIComponent(token)}`, {
+      waitUntil: 'networkidle',
+    });
+    await invited.getByLabel('New password').fill('too short');
+    await invited.getByLabel('Repeat the password').fill('too short');
+    await invited.getByRole('button', { name: 'Create my account' }).click();
+    await invited.getByText('The password has 9 characters; at least 12 are needed.').waitFor();
+    await screenshot(invited, 'accept-invite-validation');
+    await invited.getByLabel('New password').fill(E2E_PASSWORD);
+    await invited.getByLabel('Repeat the password').fill(E2E_PASSWORD);
+    await invited.getByRole('button', { name: 'Create my account' }).click();
+    await invited
+      .getByText('Your account is ready. Sign in with your e-mail and new password.')
+      .waitFor();
+    await invited.close();
+    expect(problems).toEqual([]);
+    expect(invitedProblems).toEqual([]);
+  });
+
+  it('a technician uploads an EDF+ file and sees it reach ready; a bad file is refused in plain words', async () => {
+    const { page, problems } = await newPage();
+    await signIn(page, PEOPLE.technician.email);
+    expect(await menu(page)).toEqual(['Intake']);
+    await screenshot(page, 'home-technician');
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Intake' })
+      .click();
+    await page.getByRole('button', { name: 'Register a new participant' }).click();
+    let dialog = page.getByRole('dialog');
+    await dialog.getByLabel('Participant code').fill('ana lopez');
+    await dialog.getByRole('button', { name: 'Register participant' }).click();
+    await dialog.getByText(/A code is 3–24 capital letters/).waitFor();
+    await dialog.getByLabel('Participant code').fill('ac-0042');
+    await dialog.getByRole('button', { name: 'Register participant' }).click();
+    await dialog.waitFor({ state: 'hidden' });
+    await page.getByRole('button', { name: 'Register a new visit' }).click();
+    dialog = page.getByRole('dialog');
+    await dialog.getByLabel('Visit label').fill('V1');
+    await dialog.getByLabel('Visit date').click();
+    await dialog.getByLabel('Visit date').fill('3 Feb 2025');
+    await dialog.getByLabel('Visit date').press('Enter');
+    await dialog.getByRole('button', { name: 'Register visit' }).click();
+    await page.getByText('Upload recordings for AC-0042, V1').waitFor();
+    visitId = new URL(page.url()).searchParams.get('visit') ?? '';
+    expect(visitId).not.toBe('');
+
+    const dropzoneInput = page.locator('input[type=file][accept*=".edf"]');
+    await dropzoneInput.setInputFiles(writeRestingEdf(files));
+    await page
+      .getByText('Received and checked; the computation is queued.')
+      .waitFor({ timeout: 60_000 });
+    const table = page.locator('.ant-card', { hasText: 'Recordings of this visit' });
+    await table.locator('[data-state="ready"]').waitFor({ timeout: 120_000 });
+    await expect(
+      table.getByText(/EDF\+C · 60\.0 s · 6 channels · 256\.00 Hz/).count(),
+    ).resolves.toBe(1);
+
+    await dropzoneInput.setInputFiles(writeTruncatedEdf(files));
+    const refused = page.getByRole('list', { name: 'Uploads' }).getByRole('alert');
+    await refused.waitFor({ timeout: 60_000 });
+    const refusal = await refused.innerText();
+    expect(refusal).toContain('Not accepted.');
+    // The EDF spec ties the file size to the header's record count; the reader names the field.
+    expect(refusal.toLowerCase()).toMatch(/record/);
+    await table.locator('[data-state="rejected"]').waitFor();
+    await screenshot(page, 'intake-technician');
+    // The refusal itself is a 422 answer, which Chromium logs as a failed load; nothing else may.
+    expect(problems).toEqual([
+      'error: Failed to load resource: the server responded with a status of 422 (Unprocessable Entity)',
+    ]);
+    problems.length = 0;
+
+    // The access token lives in memory only: after a reload the refresh cookie renews it.
+    const intakeAddress = page.url().slice(gyre.baseUrl.length);
+    await page.reload({ waitUntil: 'networkidle' });
+    await page.getByText('Upload recordings for AC-0042, V1').waitFor();
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.getByText('You are signed out.').first().waitFor();
+    await page.goto(`${gyre.baseUrl}${intakeAddress}`, { waitUntil: 'networkidle' });
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+    expect(new URL(page.url()).searchParams.get('next')).toBe(intakeAddress);
+    await screenshot(page, 'sign-in');
+    await page.getByLabel('E-mail').fill(PEOPLE.technician.email);
+    await page.getByLabel('Password', { exact: true }).fill(E2E_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(`${gyre.baseUrl}${intakeAddress}`);
+    await page.locator('[data-state="ready"]').waitFor();
+    expect(problems).toEqual([]);
+  });
+
+  it("the monitor finds the analyst's flag in the Ledger with its reason, and exports it", async () => {
+    const analystToken = await signInApi(gyre.baseUrl, PEOPLE.analyst.email, E2E_PASSWORD);
+    await api(gyre.baseUrl, analystToken, 'POST', `/api/visits/${visitId}/flag/raise`, {
+      reason: FLAG_REASON,
+    });
+    const { page, problems } = await newPage();
+    await signIn(page, PEOPLE.monitor.email);
+    expect(await menu(page)).toEqual(['Participants', 'Ledger']);
+    await screenshot(page, 'home-monitor');
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Ledger' })
+      .click();
+    await page.getByText('The trail is intact').waitFor();
+    await page.getByLabel('Action').fill('raise');
+    await page.getByTitle('raise', { exact: true }).click();
+    await page.waitForURL(/action=raise/);
+    // Only the one raise is left: sign-ins and the invitation acceptance are filtered out.
+    await page.getByText('1 entry', { exact: true }).waitFor();
+    const row = page.getByRole('row').filter({ hasText: PEOPLE.analyst.email });
+    await expect(row.innerText()).resolves.toContain(FLAG_REASON);
+    await expect(row.innerText()).resolves.toContain('Flag');
+    await row.getByRole('button', { name: /expand/i }).click();
+    const changes = page.getByRole('table', { name: /Before and after of entry/ });
+    await changes.getByText('raiseReason').waitFor();
+    await expect(
+      page.getByRole('note', { name: 'Research use caution' }).innerText(),
+    ).resolves.toContain(CAUTION);
+    await screenshot(page, 'ledger-monitor');
+
+    const download = page.waitForEvent('download');
+    await page.getByRole('button', { name: 'Export CSV' }).click();
+    const saved = await download;
+    const csv = readFileSync((await saved.path()) ?? '', 'utf8');
+    expect(csv.split('\r\n')[0]).toContain('seq,at,actorId');
+    expect(csv).toContain(FLAG_REASON);
+    expect(csv).not.toContain('sign-in');
+    await page.getByText('The CSV is downloaded. The export itself is now in the trail.').waitFor();
+    expect(problems).toEqual([]);
+  });
+
+  it('a coordinator sees Reports and cannot open Review', async () => {
+    const { page, problems } = await newPage();
+    await signIn(page, PEOPLE.coordinator.email);
+    expect(await menu(page)).toEqual(['Reports']);
+    await screenshot(page, 'home-coordinator');
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Reports' })
+      .click();
+    await page
+      .getByText('No reports yet. A report appears here once an analyst signs a visit.')
+      .waitFor();
+    await expect(
+      page.getByRole('note', { name: 'Research use caution' }).innerText(),
+    ).resolves.toContain(CAUTION);
+    await screenshot(page, 'reports-coordinator');
+    await page.goto(`${gyre.baseUrl}/review/${visitId}`, { waitUntil: 'networkidle' });
+    await page.getByText('Not available for your role').waitFor();
+    await expect(
+      page.getByText('Review is not part of the coordinator role').count(),
+    ).resolves.toBe(1);
+    await screenshot(page, 'review-coordinator-not-available');
+    expect(problems).toEqual([]);
+  });
+
+  it('an analyst may open Reports by address, not the Ledger; unknown addresses say so', async () => {
+    const { page, problems } = await newPage();
+    await signIn(page, PEOPLE.analyst.email);
+    expect(await menu(page)).toEqual(['Participants']);
+    await screenshot(page, 'home-analyst');
+    await page.goto(`${gyre.baseUrl}/reports`, { waitUntil: 'networkidle' });
+    await page.getByRole('heading', { name: 'Reports' }).waitFor();
+    await screenshot(page, 'reports-analyst');
+    await page.goto(`${gyre.baseUrl}/ledger`, { waitUntil: 'networkidle' });
+    await page.getByText('Not available for your role').waitFor();
+    await screenshot(page, 'ledger-analyst-not-available');
+    await page.goto(`${gyre.baseUrl}/no/such/screen`, { waitUntil: 'networkidle' });
+    await page.getByText('No such page').waitFor();
+    await screenshot(page, 'not-found');
+    expect(problems).toEqual([]);
+  });
+
+  it('resets a forgotten password through the e-mailed link', async () => {
+    const { page, problems } = await newPage();
+    await page.goto(`${gyre.baseUrl}/sign-in`, { waitUntil: 'networkidle' });
+    await page.getByRole('link', { name: 'Forgot your password?' }).click();
+    await page.getByLabel('E-mail').fill(PEOPLE.coordinator.email);
+    await page.getByRole('button', { name: 'Send the link' }).click();
+    await page.getByText('Check your e-mail').waitFor();
+    await screenshot(page, 'forgot-password');
+    const token = await resetToken(gyre.dataDir, PEOPLE.coordinator.email);
+    await page.goto(`${gyre.baseUrl}/reset-password?token=${encodeURIComponent(token)}`, {
+      waitUntil: 'networkidle',
+    });
+    await page.getByLabel('New password').fill('amber-harbour-lantern-7');
+    await page.getByLabel('Repeat the password').fill('amber-harbour-lantern-7');
+    await screenshot(page, 'reset-password');
+    await page.getByRole('button', { name: 'Save the new password' }).click();
+    await page.getByText('Your password is changed. Sign in with the new one.').waitFor();
+    await signIn(page, PEOPLE.coordinator.email, 'amber-harbour-lantern-7');
+    expect(problems).toEqual([]);
+  });
+});

@@ -1,0 +1,35 @@
+/** Gyre's own pictures for "not for you" and "not here", drawn inline in its colours. */
+
+export function LockedIcon({ size = 72 }: { size?: number }) {
+  return (
+    <svg width={size} height={size} viewBox="0 0 72 72" aria-hidden="true" focusable="false">
+      <circle cx="36" cy="36" r="35" fill="#E3ECEC" />
+      <rect x="22" y="33" width="28" height="21" rx="4" fill="#24525A" />
+      <path
+        d="M27 33v-6a9 9 0 0 1 18 0v6"
+        fill="none"
+        stroke="#24525A"
+        strokeWidth="4"
+        strokeLinecap="round"
+      />
+      <circle cx="36" cy="42" r="3" fill="#F3EBDD" />
+      <rect x="34.6" y="43" width="2.8" height="6" rx="1.4" fill="#F3EBDD" />
+    </svg>
+  );
+}
+
+export function LostIcon({ size = 72 }: { size?: number }) {
+  return (
+    <svg width={size} height={size} viewBox="0 0 72 72" aria-hidden="true" focusable="false">
+      <circle cx="36" cy="36" r="35" fill="#E3ECEC" />
+      <path
+        d="M36 16a20 20 0 1 0 20 20 14 14 0 0 0-14-14 9 9 0 0 0-9 9 5 5 0 0 0 5 5"
+        fill="none"
+        stroke="#24525A"
+        strokeWidth="4"
+        strokeLinecap="round"
+      />
+      <circle cx="38" cy="36" r="2.5" fill="#C77C02" />
+    </svg>
+  );
+}
