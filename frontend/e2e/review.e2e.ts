@@ -288,8 +288,8 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await expect(page.getByTestId('roi-delta-f').innerText()).resolves.toBe(
       formatHz(task.run.roiDeltaFHz),
     );
-    await expect(page.getByTestId('run-paf').innerText()).resolves.toBe(
-      rest.run.pafHz === null ? 'no clear peak' : formatHz(rest.run.pafHz),
+    await expect(page.getByTestId('rest-paf').innerText()).resolves.toBe(
+      `PAF ${rest.run.pafHz === null ? 'no clear peak' : formatHz(rest.run.pafHz)}`,
     );
     await expect(page.getByTestId('rest-cog').innerText()).resolves.toContain(
       formatHz(rest.run.cogHz),
@@ -366,6 +366,11 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await page
       .getByRole('region', { name: "Analyst's decision" })
       .getByText('Slowing flag raised')
+      .waitFor();
+    // A monitor may read the study's users: the decision names the analyst who made it.
+    await page
+      .getByRole('region', { name: "Analyst's decision" })
+      .getByText(`by ${ANALYST.name}`, { exact: false })
       .waitFor();
     await expect(page.getByRole('button', { name: 'Raise a slowing flag' }).count()).resolves.toBe(
       0,

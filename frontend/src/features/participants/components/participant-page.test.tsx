@@ -41,14 +41,14 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
     );
     const onset = screen.getByRole('figure', { name: 'Onset change trajectory' });
     expect(within(onset).getByTestId('g2-plot').dataset.marks).toBe('lineX lineY line point line');
-    expect(screen.getByText('PAF (trend −0.40 Hz/year)')).toBeInTheDocument();
+    expect(screen.getByText('PAF (trend -0.40 Hz/year)')).toBeInTheDocument();
 
     const rows = within(screen.getByRole('table', { name: 'Visits' })).getAllByRole('row');
     expect(rows).toHaveLength(4);
-    // Hz to two decimals, changes signed with a true minus.
-    expect(rows[1]).toHaveTextContent('10.30 Hz');
-    expect(rows[2]).toHaveTextContent('10.10 Hz−0.20 Hz');
-    expect(rows[2]).toHaveTextContent('-0.25 Hz−0.15 Hz');
+    // Hz to two decimals; the first visit is where the change is measured from.
+    expect(rows[1]).toHaveTextContent('10.30 Hzfirst value');
+    expect(rows[2]).toHaveTextContent('10.10 Hz-0.20 Hz');
+    expect(rows[2]).toHaveTextContent('-0.25 Hz-0.15 Hz');
     expect(within(rows[2]).getByText('flagged')).toBeInTheDocument();
     // The third visit has no results yet but still opens in Review.
     expect(rows[3]).toHaveTextContent('Month 12');

@@ -36,22 +36,34 @@ export function visitRows(visits: VisitView[], trajectory: TrajectoryVisitDto[])
   return rows.sort((a, b) => a.date.localeCompare(b.date));
 }
 
-/** A change from the first visit, signed: "+0.12 Hz", "−0.30 Hz". */
+/** A change from the first visit, signed like every number on screen: "+0.12 Hz", "-0.30 Hz". */
 export function formatChange(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  const text = formatHz(Math.abs(value));
-  return value > 0 ? `+${text}` : value < 0 ? `−${text}` : text;
+  return value > 0 ? `+${formatHz(value)}` : formatHz(value);
 }
 
-function valueWithChange(value: number | null | undefined, change: number | null | undefined) {
+function valueWithChange(
+  value: number | null | undefined,
+  change: number | null | undefined,
+  isFirst: boolean,
+) {
   if (value === null || value === undefined) return '—';
   return (
     <span>
       {formatHz(value)}
       <br />
-      <span style={{ color: 'rgba(29,43,47,0.6)', fontSize: 12 }}>{formatChange(change)}</span>
+      <span style={{ color: 'rgba(29,43,47,0.6)', fontSize: 12 }}>
+        {isFirst ? 'first value' : formatChange(change)}
+      </span>
     </span>
   );
+}
+
+type Series = 'pafHz' | 'cogHz' | 'deltaFHz';
+
+/** The visit each series is measured from: the first, by date, that has a value. */
+function firstWithValue(rows: VisitRow[], series: Series): string | null {
+  return rows.find((r) => r.numbers !== null && r.numbers[series] !== null)?.visitId ?? null;
 }
 
 export function ParticipantPage() {
@@ -94,6 +106,11 @@ export function ParticipantPage() {
     (v) => v.pafHz !== null || v.cogHz !== null || v.deltaFHz !== null,
   );
   const code = participant.data.code;
+  const first: Record<Series, string | null> = {
+    pafHz: firstWithValue(rows, 'pafHz'),
+    cogHz: firstWithValue(rows, 'cogHz'),
+    deltaFHz: firstWithValue(rows, 'deltaFHz'),
+  };
   return (
     <>
       <ResearchCaution />
@@ -125,7 +142,7 @@ export function ParticipantPage() {
                   children:
                     slope === null
                       ? 'needs two visits'
-                      : `${slope >= 0 ? '+' : '−'}${Math.abs(slope).toFixed(2)} Hz/year`,
+                      : `${slope > 0 ? '+' : ''}${slope.toFixed(2)} Hz/year`,
                 };
               })}
             />
@@ -162,20 +179,34 @@ export function ParticipantPage() {
               key: 'paf',
               title: 'PAF (change)',
               align: 'right',
-              render: (_, row) => valueWithChange(row.numbers?.pafHz, row.numbers?.pafChangeHz),
+              render: (_, row) =>
+                valueWithChange(
+                  row.numbers?.pafHz,
+                  row.numbers?.pafChangeHz,
+                  first.pafHz === row.visitId,
+                ),
             },
             {
               key: 'cog',
               title: 'CoG (change)',
               align: 'right',
-              render: (_, row) => valueWithChange(row.numbers?.cogHz, row.numbers?.cogChangeHz),
+              render: (_, row) =>
+                valueWithChange(
+                  row.numbers?.cogHz,
+                  row.numbers?.cogChangeHz,
+                  first.cogHz === row.visitId,
+                ),
             },
             {
               key: 'deltaF',
               title: 'Onset Δf (change)',
               align: 'right',
               render: (_, row) =>
-                valueWithChange(row.numbers?.deltaFHz, row.numbers?.deltaFChangeHz),
+                valueWithChange(
+                  row.numbers?.deltaFHz,
+                  row.numbers?.deltaFChangeHz,
+                  first.deltaFHz === row.visitId,
+                ),
             },
             {
               key: 'flag',

@@ -6,7 +6,7 @@ import { PlotFigure } from '../../../components/charts/plot-figure';
 import { alphaFrequencySpec, onsetChangeSpec, SERIES_COLOUR } from './trajectory-spec';
 
 function slopeText(slope: number | null): string {
-  return slope === null ? '—' : `${slope >= 0 ? '+' : '−'}${Math.abs(slope).toFixed(2)} Hz/year`;
+  return slope === null ? '—' : `${slope > 0 ? '+' : ''}${slope.toFixed(2)} Hz/year`;
 }
 
 function Key({ colour, text, dashed = false }: { colour: string; text: string; dashed?: boolean }) {

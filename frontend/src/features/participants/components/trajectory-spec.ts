@@ -130,9 +130,13 @@ function view(visits: TrajectoryVisitDto[], yTitle: string, children: MarkSpec[]
       y: { nice: true, zero: false },
     },
     axis: {
-      x: axisWithUnit('Visit date', null, {
-        labelFormatter: (v) => dayjs(v).format('MMM YYYY'),
-      }),
+      x: {
+        ...axisWithUnit('Visit date', null, {
+          labelFormatter: (v) => dayjs(v).format('MMM YYYY'),
+        }),
+        labelAutoRotate: false,
+        labelAutoHide: true,
+      },
       y: axisWithUnit(yTitle, 'Hz', { labelFormatter: (v) => v.toFixed(2) }),
     },
     legend: false,

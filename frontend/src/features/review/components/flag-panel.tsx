@@ -39,12 +39,16 @@ function SuggestionBox({ suggestion }: { suggestion: FlagSuggestion | null }) {
   );
 }
 
-function who(userId: string, meId: string): string {
-  return userId === meId ? 'you' : `analyst ${userId.slice(0, 8)}`;
-}
+/** Names a person; the screen passes one that can look names up, tests a plain one. */
+export type PersonRenderer = (userId: string) => React.ReactNode;
+
+const plainPerson =
+  (meId: string): PersonRenderer =>
+  (userId) =>
+    userId === meId ? 'you' : 'another analyst';
 
 /** The analyst's decision: amber while a flag is raised. */
-function DecisionBox({ current, meId }: { current: FlagDto | null; meId: string }) {
+function DecisionBox({ current, who }: { current: FlagDto | null; who: PersonRenderer }) {
   const raised = current !== null && current.state === 'raised';
   return (
     <section
@@ -65,13 +69,13 @@ function DecisionBox({ current, meId }: { current: FlagDto | null; meId: string 
         ) : raised ? (
           <>
             <Tag color={GYRE_COLORS.amber}>Slowing flag raised</Tag>
-            by {who(current.raisedById, meId)}, {formatDateTime(current.raisedAt)}:{' '}
+            by {who(current.raisedById)}, {formatDateTime(current.raisedAt)}:{' '}
             <q>{current.raiseReason}</q>
           </>
         ) : (
           <>
             <Tag>Flag cleared</Tag>
-            by {who(current.clearedById ?? '', meId)}, {formatDateTime(current.clearedAt)}:{' '}
+            by {who(current.clearedById ?? '')}, {formatDateTime(current.clearedAt)}:{' '}
             <q>{current.clearReason}</q>
           </>
         )}
@@ -153,19 +157,22 @@ export function FlagPanel({
   canChange,
   onRaise,
   onClear,
+  renderPerson,
 }: {
   flag: VisitFlagDto;
   meId: string;
+  renderPerson?: PersonRenderer;
   canChange: boolean;
   onRaise: (change: FlagChange) => Promise<void>;
   onClear: (change: FlagChange) => Promise<void>;
 }) {
   const raised = flag.current?.state === 'raised';
+  const who = renderPerson ?? plainPerson(meId);
   const earlier = flag.history.filter((f) => f.id !== flag.current?.id || f.state === 'cleared');
   return (
     <Flex vertical gap={12}>
       <SuggestionBox suggestion={flag.suggestion} />
-      <DecisionBox current={flag.current} meId={meId} />
+      <DecisionBox current={flag.current} who={who} />
       {canChange && <FlagForm raised={raised} onSubmit={raised ? onClear : onRaise} />}
       {earlier.length > 0 && (
         <div>
@@ -176,7 +183,11 @@ export function FlagPanel({
               {
                 key: `${f.id}-raised`,
                 color: GYRE_COLORS.amber,
-                content: `${formatDateTime(f.raisedAt)} raised by ${who(f.raisedById, meId)}: “${f.raiseReason}”`,
+                content: (
+                  <>
+                    {formatDateTime(f.raisedAt)} raised by {who(f.raisedById)}: “{f.raiseReason}”
+                  </>
+                ),
               },
               ...(f.clearedAt === null
                 ? []
@@ -184,7 +195,12 @@ export function FlagPanel({
                     {
                       key: `${f.id}-cleared`,
                       color: 'gray',
-                      content: `${formatDateTime(f.clearedAt)} cleared by ${who(f.clearedById ?? '', meId)}: “${f.clearReason ?? ''}”`,
+                      content: (
+                        <>
+                          {formatDateTime(f.clearedAt)} cleared by {who(f.clearedById ?? '')}: “
+                          {f.clearReason ?? ''}”
+                        </>
+                      ),
                     },
                   ]),
             ])}

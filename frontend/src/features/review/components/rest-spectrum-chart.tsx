@@ -5,6 +5,21 @@ import { PlotFigure } from '../../../components/charts/plot-figure';
 import { formatHz } from '../../../lib/format';
 import { COG_COLOUR, PAF_COLOUR, restSpectrumSpec, spectrumPoints } from './rest-spectrum-spec';
 
+function DashKey({ colour }: { colour: string }) {
+  return (
+    <span
+      aria-hidden="true"
+      style={{
+        display: 'inline-block',
+        width: 18,
+        borderTop: `2px dashed ${colour}`,
+        verticalAlign: 'middle',
+        marginRight: 6,
+      }}
+    />
+  );
+}
+
 /** The resting power spectrum with the individual alpha frequency marked two ways. */
 export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsDto; roiLabel: string }) {
   const points = useMemo(
@@ -25,9 +40,8 @@ export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsDto; ro
     <div>
       <Flex gap={24} wrap style={{ marginBottom: 8 }} className="gyre-figures">
         <span data-testid="rest-paf">
-          <Typography.Text strong style={{ color: PAF_COLOUR }}>
-            PAF
-          </Typography.Text>{' '}
+          <DashKey colour={PAF_COLOUR} />
+          PAF{' '}
           {rest.pafHz === null ? (
             <Typography.Text type="warning">no clear peak</Typography.Text>
           ) : (
@@ -35,16 +49,11 @@ export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsDto; ro
           )}
         </span>
         <span data-testid="rest-cog">
-          <Typography.Text strong style={{ color: COG_COLOUR }}>
-            CoG
-          </Typography.Text>{' '}
-          {formatHz(rest.cogHz)}
+          <DashKey colour={COG_COLOUR} />
+          CoG {formatHz(rest.cogHz)}
         </span>
         {rest.prominenceDb !== null && (
-          <span>
-            <Typography.Text strong>Peak prominence</Typography.Text> {rest.prominenceDb.toFixed(1)}{' '}
-            dB
-          </span>
+          <span>Peak prominence {rest.prominenceDb.toFixed(1)} dB</span>
         )}
         <Typography.Text type="secondary">
           Alpha window {rest.alphaWindowHz[0].toFixed(1)}–{rest.alphaWindowHz[1].toFixed(1)} Hz ·{' '}

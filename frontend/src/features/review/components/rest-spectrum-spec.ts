@@ -30,6 +30,11 @@ export function spectrumPoints(
   return points;
 }
 
+/** Plain decimals on the log axis (0.02, 5, 100), never "1.0e+2". */
+export function powerLabel(value: number): string {
+  return String(Number(value.toPrecision(2)));
+}
+
 function marker(frequencyHz: number, colour: string, text: string, position: string): MarkSpec {
   return {
     type: 'lineX',
@@ -112,7 +117,7 @@ export function restSpectrumSpec(options: {
     },
     axis: {
       x: axisWithUnit('Frequency', 'Hz', { labelFormatter: (v) => v.toFixed(0) }),
-      y: axisWithUnit('Power (log scale)', 'µV²/Hz', { labelFormatter: (v) => v.toPrecision(2) }),
+      y: axisWithUnit('Power (log scale)', 'µV²/Hz', { labelFormatter: powerLabel }),
     },
     legend: false,
     children,

@@ -27,7 +27,10 @@ vi.mock(
 installMswServer();
 const canvas = installCanvasMock();
 
-function serveVisit() {
+/** Handlers for one visit; `keepFlag` leaves a test's own flag handler in front. */
+function serveVisit(keepFlag = false) {
+  if (!keepFlag)
+    server.use(http.get(`/api/visits/${VISIT.id}/flag`, () => HttpResponse.json(NO_FLAG)));
   server.use(
     http.get(`/api/visits/${VISIT.id}`, () => HttpResponse.json(VISIT)),
     http.get(`/api/participants/${PARTICIPANT.id}`, () => HttpResponse.json(PARTICIPANT)),
@@ -38,13 +41,12 @@ function serveVisit() {
     http.get('/api/recordings/rec-task/results', () => HttpResponse.json(TASK_RESULTS)),
     http.get('/api/recordings/rec-resting/results', () => HttpResponse.json(REST_RESULTS)),
     http.get(`/api/studies/${STUDY.id}/analysis-settings`, () => HttpResponse.json(SETTINGS)),
-    http.get(`/api/visits/${VISIT.id}/flag`, () => HttpResponse.json(NO_FLAG)),
     http.get(`/api/visits/${VISIT.id}/report`, () => HttpResponse.json(REPORT)),
   );
 }
 
-async function openReview(role: Role) {
-  serveVisit();
+async function openReview(role: Role, options: { keepFlag?: boolean } = {}) {
+  serveVisit(options.keepFlag === true);
   renderApp(`/review/${VISIT.id}`, meFor(role));
   await screen.findByText(`Review · ${PARTICIPANT.code} · ${VISIT.label}`, {}, { timeout: 15_000 });
   await screen.findByTestId('roi-delta-f', {}, { timeout: 15_000 });
@@ -58,7 +60,7 @@ describe('Review', { timeout: 60_000 }, () => {
     expect(screen.getByRole('note', { name: 'Research use caution' })).toBeInTheDocument();
     // −0.3125 Hz to two decimals (the rounding of Number.prototype.toFixed).
     expect(screen.getByTestId('roi-delta-f')).toHaveTextContent('-0.31 Hz');
-    expect(await screen.findByTestId('run-paf')).toHaveTextContent('10.24 Hz');
+    expect(await screen.findByTestId('rest-paf')).toHaveTextContent('PAF 10.24 Hz');
     const onset = screen.getByRole('figure', { name: 'Onset curve' });
     expect(within(onset).getByTestId('g2-plot').dataset.marks).toBe('rangeX area line lineX');
     const spectrum = screen.getByRole('figure', { name: 'Rest spectrum' });
@@ -84,7 +86,33 @@ describe('Review', { timeout: 60_000 }, () => {
   });
 
   it('shows the monitor the same results read-only: no flag form, no settings form', async () => {
-    await openReview('monitor');
+    const analyst = meFor('analyst').user;
+    server.use(
+      http.get(`/api/visits/${VISIT.id}/flag`, () =>
+        HttpResponse.json({
+          ...NO_FLAG,
+          current: {
+            id: 'flag-1',
+            visitId: VISIT.id,
+            state: 'raised',
+            raisedById: analyst.id,
+            raiseReason: 'Clear slowing over O1 and Pz',
+            raisedAt: '2025-02-04T09:00:00.000Z',
+            clearedById: null,
+            clearReason: null,
+            clearedAt: null,
+          },
+        }),
+      ),
+      http.get(`/api/users/${analyst.id}`, () => HttpResponse.json(analyst)),
+    );
+    await openReview('monitor', { keepFlag: true });
+    // A monitor may read the study's users, so the decision names who made it.
+    await waitFor(() =>
+      expect(screen.getByRole('region', { name: "Analyst's decision" })).toHaveTextContent(
+        `by ${analyst.name}`,
+      ),
+    );
     expect(screen.getByRole('region', { name: "Computation's suggestion" })).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Raise a slowing flag' })).not.toBeInTheDocument();
     expect(screen.queryByRole('form', { name: 'Analysis settings' })).not.toBeInTheDocument();
@@ -127,7 +155,8 @@ describe('Review', { timeout: 60_000 }, () => {
     expect(decision).toHaveTextContent('Clear slowing over O1 and Pz');
     expect(sent).toEqual({ reason: 'Clear slowing over O1 and Pz' });
     expect(
-      await screen.findByRole('button', { name: 'Clear the flag' }, { timeout: 10_000 }),
+      // The name may still carry the "loading" icon's label while the form settles.
+      await screen.findByRole('button', { name: /Clear the flag$/ }, { timeout: 20_000 }),
     ).toBeInTheDocument();
   });
 

@@ -28,6 +28,7 @@ import { useRerunRecording } from '../api/rerun-recording';
 import { useRerunVisit } from '../api/rerun-visit';
 import { ChannelTable } from './channel-table';
 import { FlagPanel } from './flag-panel';
+import { PersonName } from './person-name';
 import { OnsetCurveChart } from './onset-curve-chart';
 import { QualityChecks } from './quality-checks';
 import { RecordingStateNotice } from './recording-state-notice';
@@ -316,6 +317,13 @@ export function ReviewPage() {
                   <FlagPanel
                     flag={flag.data}
                     meId={me.user.id}
+                    renderPerson={(userId) => (
+                      <PersonName
+                        userId={userId}
+                        meId={me.user.id}
+                        studyId={visit.data?.studyId ?? ''}
+                      />
+                    )}
                     canChange={canFlag}
                     onRaise={async (change) => {
                       await raiseFlag(change);

@@ -24,31 +24,21 @@ export function RunSummary({ run }: { run: AnalysisRunDto }) {
           { key: 'p', label: 'p (Wilcoxon)', children: formatPValue(run.roiPValue) },
           {
             key: 'trials',
-            label: 'Trials kept',
+            label: 'Trials',
             children:
-              run.trialsKept === null ? '—' : `${run.trialsKept} of ${run.trialsTotal ?? '—'}`,
+              run.trialsKept === null ? '—' : `${run.trialsKept} kept of ${run.trialsTotal ?? '—'}`,
           },
         ]
-      : [
-          {
-            key: 'paf',
-            label: 'PAF',
-            children: (
-              <span data-testid="run-paf">
-                {run.pafHz === null ? 'no clear peak' : formatHz(run.pafHz)}
-              </span>
-            ),
-          },
-          { key: 'cog', label: 'CoG', children: formatHz(run.cogHz) },
-        ];
+      : // The resting numbers sit beside the spectrum, as the key to its markers.
+        [];
   return (
     <Descriptions
       size="small"
-      column={{ xs: 1, sm: 2, md: 4 }}
+      column={{ xs: 1, sm: 2, xl: 3 }}
       className="gyre-figures"
       items={[
         ...items,
-        { key: 'band', label: 'Band', children: band },
+        ...(run.kind === 'task' ? [{ key: 'band', label: 'Band', children: band }] : []),
         {
           key: 'version',
           label: 'Settings',
