@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { renderVisitReport } from './render-visit-report';
+import { ReportRenderer } from './report-renderer';
 import { ReportModelError } from './validate-report-model';
 import { RESEARCH_CAUTION, SIGNATURE_MEANING } from './report-wording';
 import { readPdfText } from './testing/read-pdf-text';
@@ -150,6 +151,16 @@ describe('renderVisitReport', () => {
     const again = await renderVisitReport(sampleVisitReportModel());
     const hash = (b: Buffer) => createHash('sha256').update(b).digest('hex');
     expect(hash(again)).toBe(hash(draftPdf));
+  });
+
+  it('renders the same bytes on the worker thread as on the caller', async () => {
+    const renderer = new ReportRenderer();
+    try {
+      const fromWorker = await renderer.render(sampleVisitReportModel());
+      expect(Buffer.compare(fromWorker, draftPdf)).toBe(0);
+    } finally {
+      await renderer.close();
+    }
   });
 
   it('sets Greek and Latin Extended text from the shipped subsets', async () => {

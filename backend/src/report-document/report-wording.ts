@@ -7,7 +7,7 @@ export const RESEARCH_CAUTION =
   'decisions. Follow your study protocol, local regulations and licensed clinicians.';
 
 /** What a signature means, as the signer confirms it (21 CFR Part 11 §11.50(a)(3)). */
-export const SIGNATURE_MEANING = 'reviewed and approved for the study record';
+export { SIGNATURE_MEANING } from '@gyre/shared';
 
 const KIND_NAMES: Record<QualitySection['kind'], string> = {
   resting: 'Resting recording',

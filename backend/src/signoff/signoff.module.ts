@@ -6,6 +6,7 @@ import { ReportFiles } from './report-files';
 import { ReportNotification } from './report-notification.entity';
 import { ReportNotifications } from './report-notifications';
 import { ReportRevision } from './report-revision.entity';
+import { ReportRendering } from './report-rendering';
 import { ReportRevisionsService } from './report-revisions.service';
 import { SignerVerification } from './signer-verification';
 import { SignoffController } from './signoff.controller';
@@ -21,6 +22,7 @@ import { VisitReportContent } from './visit-report-content';
     ReportRevisionsService,
     ReportNotifications,
     ReportFiles,
+    ReportRendering,
     SignerVerification,
     VisitReportContent,
   ],

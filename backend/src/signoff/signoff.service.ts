@@ -10,12 +10,12 @@ import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
-import { renderVisitReport } from '../report-document/render-visit-report';
 import { VisitReportModel } from '../report-document/visit-report-model';
 import { Report } from '../reports/report.entity';
 import { toReportDto } from '../reports/reports.service';
 import { SignReportDto } from './dto/sign-report.dto';
 import { ReportFiles } from './report-files';
+import { ReportRendering } from './report-rendering';
 import { ReportNotifications } from './report-notifications';
 import { ReportRevision } from './report-revision.entity';
 import { revisionFileName, toRevisionDtos } from './revision-view';
@@ -49,6 +49,7 @@ export class SignoffService {
     private readonly files: ReportFiles,
     private readonly signer: SignerVerification,
     private readonly notifications: ReportNotifications,
+    private readonly renderer: ReportRendering,
   ) {}
 
   async status(caller: Caller, visitId: string): Promise<ReportSignOffDto> {
@@ -83,7 +84,7 @@ export class SignoffService {
     const content = await this.content.build(this.dataSource.manager, report);
     const latest = (await this.revisionsOf(this.dataSource.manager, report.id))[0] ?? null;
     const revision = (latest?.revision ?? 0) + 1;
-    const bytes = await renderVisitReport(
+    const bytes = await this.renderer.render(
       this.modelOf(content, {
         revision,
         generatedAtIso: nowIso(),
@@ -134,7 +135,7 @@ export class SignoffService {
     assertSignable(content, latest, input.fingerprint);
     const signedAt = nowIso();
     const revisionNumber = (latest?.revision ?? 0) + 1;
-    const pdf = await renderVisitReport(
+    const pdf = await this.renderer.render(
       this.modelOf(content, {
         revision: revisionNumber,
         generatedAtIso: signedAt,
