@@ -10,12 +10,13 @@
  */
 import { statSync, readFileSync } from 'node:fs';
 import request from 'supertest';
-import type { RecordingDto, TrajectoryDto, VisitFlagDto } from '@gyre/shared';
+import type { ReportDto, RecordingDto, TrajectoryDto, VisitFlagDto } from '@gyre/shared';
 import { buildDemoScenario } from '../../seed/src/scenario/demo-scenario';
 import { DemoSeedResult, seedDemo } from '../../seed/src/seeder/demo-seeder';
 import { AuditService } from '../src/audit/audit.service';
 import { PasswordHasher } from '../src/auth/password-hasher.service';
 import { DemoSeedService } from '../src/demo/demo-seed.service';
+import { waitForMail } from './helpers/mail-catcher';
 import { startTestApp, TestApp } from './helpers/test-app';
 
 let t: TestApp;
@@ -124,6 +125,10 @@ describe('demo seed (small version, generated data)', () => {
     expect(recording.state).toBe('rejected');
     expect(recording.kind).toBe('task');
     expect(recording.rejection?.message ?? '').not.toBe('');
+    // The copy was cut inside its last data record, so the file is shorter than the header's
+    // record count × record size (Kemp et al. 1992) and the reader names that record.
+    expect(recording.rejection?.field).toBe('data records');
+    expect(recording.rejection?.found ?? '').toMatch(/into record (\d+) of \1$/);
   });
 
   it("carries the analyst's flag with its reason on the scenario's visit", async () => {
@@ -135,6 +140,25 @@ describe('demo seed (small version, generated data)', () => {
     const flag = response.body as VisitFlagDto;
     expect(flag.current?.state).toBe('raised');
     expect(flag.current?.raiseReason).toBe(buildDemoScenario('small').flag.reason);
+  });
+
+  it("gives each site's coordinator the signed report of their site, and an e-mail about it", async () => {
+    expect(seeded.signedVisitIds).toHaveLength(2);
+    for (const siteKey of ['cedar', 'amber']) {
+      const coordinator = await tokenOf('coordinator', siteKey);
+      const response = await request(t.url)
+        .get('/api/reports')
+        .set('Authorization', `Bearer ${coordinator}`);
+      expect(response.status).toBe(200);
+      const reports = (response.body as { items: ReportDto[] }).items;
+      expect(reports).toHaveLength(1);
+      expect(['signed', 'sent']).toContain(reports[0].state);
+      expect(seeded.signedVisitIds).toContain(reports[0].visitId);
+      const account = seeded.credentials.find(
+        (c) => c.role === 'coordinator' && c.siteKey === siteKey,
+      );
+      await waitForMail(t.config.mailDir, { to: account?.email ?? '', subject: /sign|report/i });
+    }
   });
 
   it('uploaded every recording through a technician of its own site', async () => {

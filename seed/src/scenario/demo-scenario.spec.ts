@@ -76,14 +76,19 @@ describe('buildDemoScenario (the invented demo study)', () => {
     for (const account of scenario.accounts) expect(account.email).toMatch(/\.example$/);
   });
 
-  it('names an existing visit for the rejected upload and for the analyst flag', () => {
-    for (const target of [scenario.malformedUpload, scenario.flag]) {
+  it('names existing visits for the rejected upload, the analyst flag and the signed reports', () => {
+    for (const target of [scenario.malformedUpload, scenario.flag, ...scenario.signedReports]) {
       const participant = scenario.participants.find((p) => p.code === target.participantCode);
       expect(participant?.visits.some((v) => v.label === target.visitLabel)).toBe(true);
     }
     expect(scenario.flag.reason.length).toBeGreaterThan(20);
     const flagged = scenario.participants.find((p) => p.code === scenario.flag.participantCode);
     expect(flagged?.profile).toBe('onset-slowing');
+    // One signed report per site, so each coordinator has one.
+    const sitesSigned = scenario.signedReports.map(
+      (r) => scenario.participants.find((p) => p.code === r.participantCode)?.siteKey,
+    );
+    expect(new Set(sitesSigned)).toEqual(new Set(scenario.sites.map((s) => s.key)));
   });
 
   it('is the same every time it is built', () => {
@@ -97,7 +102,7 @@ describe('buildDemoScenario (the invented demo study)', () => {
     expect(new Set(small.participants.map((p) => p.profile)).size).toBe(3);
     expect(small.participants.every((p) => p.visits.length === 3)).toBe(true);
     expect(small.recording.restDurationS).toBeLessThan(scenario.recording.restDurationS);
-    for (const target of [small.malformedUpload, small.flag]) {
+    for (const target of [small.malformedUpload, small.flag, ...small.signedReports]) {
       const participant = small.participants.find((p) => p.code === target.participantCode);
       expect(participant?.visits.some((v) => v.label === target.visitLabel)).toBe(true);
     }

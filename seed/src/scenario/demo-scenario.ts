@@ -64,6 +64,8 @@ export interface DemoScenario {
   malformedUpload: { participantCode: string; visitLabel: string; kind: 'task' };
   /** One visit carries an analyst's slowing flag. */
   flag: { participantCode: string; visitLabel: string; reason: string };
+  /** Visits whose report the analyst signs, so each site's coordinator has one to open. */
+  signedReports: Array<{ participantCode: string; visitLabel: string }>;
 }
 
 export type DemoSize = 'full' | 'small';
@@ -226,6 +228,10 @@ export function buildDemoScenario(size: DemoSize = 'full'): DemoScenario {
       reason:
         'Clear post-onset slowing at this visit; the interval excludes zero. Flagged for the study review (demo).',
     },
+    signedReports: [
+      { participantCode: 'LAF-C102', visitLabel: 'Month 12' },
+      { participantCode: 'LAF-A201', visitLabel: 'Month 12' },
+    ],
   };
 }
 

@@ -3,7 +3,8 @@
  * its people would: the admin sets up the study, sites and invitations; each invited person
  * activates their account from the e-mail; each site's technician registers participants
  * and visits and uploads both recordings of every visit (multipart, as the Intake screen
- * does); the server validates and computes them; the analyst raises one slowing flag.
+ * does); the server validates and computes them; the analyst raises one slowing flag and
+ * signs one visit report per site.
  * No result is written by the seeder: every number comes out of Gyre's own pipeline.
  */
 import { join } from 'node:path';
@@ -70,6 +71,8 @@ export interface DemoSeedResult {
   participants: SeededParticipant[];
   rejectedRecordingId: string | null;
   flaggedVisitId: string | null;
+  /** Visits whose report the analyst signed. */
+  signedVisitIds: string[];
   /** Recordings by state when seeding ended. */
   recordingStates: Record<string, number>;
   timingsMs: { accounts: number; uploads: number; results: number; total: number };
@@ -77,6 +80,13 @@ export interface DemoSeedResult {
 
 interface IdOnly {
   id: string;
+}
+
+interface SignOffStatus {
+  meaning: string;
+  draftFingerprint: string | null;
+  canSign: boolean;
+  cannotSignReason: string | null;
 }
 
 interface RecordingSummary {
@@ -128,6 +138,7 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
       participants: [],
       rejectedRecordingId: null,
       flaggedVisitId: null,
+      signedVisitIds: [],
       recordingStates: {},
       timingsMs: { accounts: 0, uploads: 0, results: 0, total: Date.now() - startedAt },
     };
@@ -250,6 +261,7 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
   const resultsStartedAt = Date.now();
   let recordingStates: Record<string, number> = {};
   let flaggedVisitId: string | null = null;
+  const signedVisitIds: string[] = [];
   if (options.waitForResults ?? true) {
     recordingStates = await waitUntilSettled(asAnalyst, {
       expected: uploadCount,
@@ -268,6 +280,34 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
     log(
       `${scenario.flag.participantCode} ${scenario.flag.visitLabel}: slowing flag raised by the analyst`,
     );
+    // The analyst signs a report per site (Review sign-off): password again, the stated
+    // meaning and the fingerprint of the draft; the server e-mails the site's coordinator.
+    for (const target of scenario.signedReports) {
+      const visit = participants
+        .find((p) => p.code === target.participantCode)
+        ?.visits.find((v) => v.label === target.visitLabel);
+      if (visit === undefined)
+        throw new Error('The scenario signs a report of a visit it does not have');
+      const signOff = await asAnalyst.get<SignOffStatus>(
+        `/api/visits/${visit.visitId}/report/sign-off`,
+      );
+      if (!signOff.canSign || signOff.draftFingerprint === null) {
+        throw new Error(
+          `${target.participantCode} ${target.visitLabel}: the report cannot be signed: ${signOff.cannotSignReason ?? 'no reason given'}`,
+        );
+      }
+      await asAnalyst.post(
+        `/api/visits/${visit.visitId}/report/sign`,
+        {
+          password: analyst.password,
+          meaning: signOff.meaning,
+          fingerprint: signOff.draftFingerprint,
+        },
+        [201],
+      );
+      signedVisitIds.push(visit.visitId);
+      log(`${target.participantCode} ${target.visitLabel}: report signed by the analyst`);
+    }
   }
   const resultsMs = Date.now() - resultsStartedAt;
   return {
@@ -278,6 +318,7 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
     participants,
     rejectedRecordingId,
     flaggedVisitId,
+    signedVisitIds,
     recordingStates,
     timingsMs: {
       accounts: accountsMs,
