@@ -33,6 +33,10 @@ export async function createApp(options: CreateAppOptions = {}): Promise<NestExp
           // antd writes its CSS-in-JS into <style> elements at run time.
           'style-src': ["'self'", "'unsafe-inline'"],
           'img-src': ["'self'", 'data:', 'blob:'],
+          // The report preview shows the draft PDF (a blob: URL) in a frame with the
+          // browser's PDF viewer, which the default frame-src/object-src would block.
+          'frame-src': ["'self'", 'blob:'],
+          'object-src': ["'self'", 'blob:'],
           'upgrade-insecure-requests': null,
         },
       },

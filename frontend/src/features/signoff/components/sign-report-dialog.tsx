@@ -134,6 +134,15 @@ export function SignReportDialog({
           />
         )}
       </div>
+      {preview.url !== null && (
+        <Typography.Paragraph type="secondary">
+          No preview above?{' '}
+          <a href={preview.url} download="gyre-report-draft.pdf">
+            Download the draft PDF
+          </a>{' '}
+          and open it with any PDF reader.
+        </Typography.Paragraph>
+      )}
       {canSign && revision !== null && (
         <Form<SignFormValues>
           form={form}
