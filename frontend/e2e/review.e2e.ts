@@ -327,6 +327,40 @@ describe('Review and Participants in Chromium, on a real server', () => {
     expect(flag.current?.raiseReason).toBe(FLAG_REASON);
     await screenshot(page, 'review-analyst-flagged');
 
+    // A new settings version (post window to +0.9 s) re-runs the visit; each result names it.
+    const settings = page.getByRole('form', { name: 'Analysis settings' });
+    await settings.getByLabel('Post end').fill('0.9');
+    await settings.getByRole('button', { name: 'Save version 2 and re-run' }).click();
+    await settings.getByText('Say why the settings change.').waitFor();
+    await settings.getByLabel('Reason for the change').fill('Longer post window after the pilot');
+    await settings.getByRole('button', { name: 'Save version 2 and re-run' }).click();
+    await page
+      .getByTestId('settings-version-task')
+      .getByText('version 2')
+      .waitFor({ timeout: 240_000 });
+    await page
+      .getByTestId('settings-version-resting')
+      .getByText('version 2')
+      .waitFor({ timeout: 240_000 });
+    const rerun = await api<RecordingResultsDto>(
+      gyre.baseUrl,
+      analystToken,
+      'GET',
+      `/api/recordings/${recordings['V1-task'].id}/results`,
+    );
+    expect(rerun.run.settingsVersion).toBe(2);
+    expect(rerun.task?.postWindowS).toEqual([0.2, 0.9]);
+    await expect(page.getByTestId('roi-delta-f').innerText()).resolves.toBe(
+      formatHz(rerun.run.roiDeltaFHz),
+    );
+    // The computation's suggestion follows the new run.
+    await page
+      .getByRole('region', { name: "Computation's suggestion" })
+      .getByText(`ROI Δf ${formatHz(rerun.run.roiDeltaFHz)}`, { exact: false })
+      .waitFor();
+    await expectDrawn(page, 'Onset curve', 5000);
+    await screenshot(page, 'review-analyst-rerun');
+
     // Participants: the list, then this participant's trajectory with the flagged visit.
     await page
       .getByRole('navigation', { name: 'Main' })

@@ -6,6 +6,7 @@ import type {
   RecordingResultsDto,
 } from '@gyre/shared';
 import { Alert, Button, Card, Col, Descriptions, Flex, Row, Skeleton, Tabs, Tag } from 'antd';
+import { useEffect } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { PageHeader } from '../../../components/page-header';
@@ -86,7 +87,16 @@ function StaleNotice({
   );
 }
 
-/** One kind of recording's results, or why there are none yet. */
+const IN_PROGRESS: ReadonlySet<RecordingDto['state']> = new Set([
+  'received',
+  'queued',
+  'computing',
+]);
+
+/**
+ * One kind of recording's results, or why there are none yet. While a re-run is on its way
+ * the last results stay on screen under a notice, so the analyst never loses the picture.
+ */
 function ResultsOf({
   recording,
   kindName,
@@ -96,12 +106,24 @@ function ResultsOf({
   kindName: string;
   children: (results: RecordingResultsDto) => React.ReactNode;
 }) {
-  const ready = recording !== null && recording.state === 'ready' ? recording : null;
-  const results = useRecordingResults(ready?.id ?? null, ready?.latestRunId ?? null);
-  if (recording === null)
+  const showable =
+    recording !== null &&
+    recording.latestRunId !== null &&
+    (recording.state === 'ready' || IN_PROGRESS.has(recording.state));
+  const results = useRecordingResults(
+    showable ? recording.id : null,
+    showable ? recording.latestRunId : null,
+  );
+  if (recording === null) {
     return <EmptyState description={`No ${kindName} recording for this visit yet.`} />;
-  if (ready === null) return <RecordingStateNotice recording={recording} />;
-  if (ready.latestRunId === null) return <EmptyState description="No computed results yet." />;
+  }
+  if (!showable) {
+    return recording.state === 'ready' ? (
+      <EmptyState description="No computed results yet." />
+    ) : (
+      <RecordingStateNotice recording={recording} />
+    );
+  }
   if (results.error !== undefined) {
     return (
       <ErrorState
@@ -112,7 +134,21 @@ function ResultsOf({
     );
   }
   if (results.data === undefined) return <Skeleton active paragraph={{ rows: 6 }} />;
-  return <>{children(results.data)}</>;
+  return (
+    <>
+      {IN_PROGRESS.has(recording.state) && (
+        <div style={{ marginBottom: 12 }}>
+          <Alert
+            type="info"
+            showIcon
+            title="Computing again with the current settings; these are the previous results."
+          />
+          <RecordingStateNotice recording={recording} />
+        </div>
+      )}
+      {children(results.data)}
+    </>
+  );
 }
 
 export function ReviewPage() {
@@ -129,6 +165,15 @@ export function ReviewPage() {
   const clearFlag = useClearFlag(visitId);
   const createAnalysisSettings = useCreateAnalysisSettings();
   const rerunVisit = useRerunVisit();
+
+  const task = recordings.data === undefined ? null : recordingOfKind(recordings.data, 'task');
+  const rest = recordings.data === undefined ? null : recordingOfKind(recordings.data, 'resting');
+  // The suggestion follows the latest task run: ask again whenever a new run lands.
+  const taskRunId = task?.latestRunId ?? null;
+  const reloadFlag = flag.mutate;
+  useEffect(() => {
+    if (taskRunId !== null) void reloadFlag();
+  }, [taskRunId, reloadFlag]);
 
   const canChangeSettings =
     ability.can('create', 'AnalysisSettings') && ability.can('rerun', 'AnalysisRun');
@@ -156,8 +201,6 @@ export function ReviewPage() {
     );
   }
 
-  const task = recordings.data === undefined ? null : recordingOfKind(recordings.data, 'task');
-  const rest = recordings.data === undefined ? null : recordingOfKind(recordings.data, 'resting');
   const code = participant.data?.code ?? '…';
 
   const saveSettings = async (change: AnalysisSettingsChange) => {
