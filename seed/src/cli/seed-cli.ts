@@ -4,7 +4,7 @@
  *   npm run seed                  seed an empty installation (starts a server if none is running)
  *   npm run seed -- --reset       first delete the database, uploads, captured mail and
  *                                 demo-accounts.txt of DATA_DIR (refused while Gyre is running)
- *   options: --small (four participants, short files) · --attach (used by npm start: the
+ *   options: --small (three participants, short files) · --attach (used by npm start: the
  *            server is starting, seed it if empty)
  *
  * Environment: DATA_DIR (default ./data) and PORT (default 3000), as for the server.
