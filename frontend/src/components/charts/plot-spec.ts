@@ -57,12 +57,16 @@ export function axisWithUnit(
   };
 }
 
-/** A view with Gyre's palette and no entry animation (results should not wiggle in). */
+/**
+ * A view with Gyre's palette and no entry animation (results should not wiggle in). G2 animates
+ * each mark on its own, so every mark is told too.
+ */
 export function gyreView(spec: Omit<PlotSpec, 'type' | 'theme' | 'animate'>): PlotSpec {
   return {
     type: 'view',
     animate: false,
     theme: { category10: CHART_PALETTE, color: CHART_PALETTE[0] },
     ...spec,
+    children: spec.children.map((mark) => ({ animate: false, ...mark })),
   };
 }
