@@ -12,6 +12,7 @@ import { ReportsPage } from '../features/reports/components/reports-page';
 import { ParticipantPage } from '../features/participants/components/participant-page';
 import { ParticipantsPage } from '../features/participants/components/participants-page';
 import { ReviewPage } from '../features/review/components/review-page';
+import { ReportSignOff } from '../features/signoff/components/report-sign-off';
 import { SignedReportsPage } from '../features/signoff/components/signed-reports-page';
 import { OutboxPage } from '../features/team/components/outbox-page';
 import { TeamPage } from '../features/team/components/team-page';
@@ -69,7 +70,16 @@ const SCREENS: ScreenRoute[] = [
  * entries in `navigation.ts`). Review needs ['read', 'Result'].
  */
 const REVIEW_AND_PARTICIPANT_SCREENS: ScreenRoute[] = [
-  { path: paths.review(), screen: 'Review', requires: ['read', 'Result'], element: <ReviewPage /> },
+  {
+    path: paths.review(),
+    screen: 'Review',
+    requires: ['read', 'Result'],
+    element: (
+      <ReviewPage
+        reportPanel={(visitId, watch) => <ReportSignOff visitId={visitId} watch={watch} />}
+      />
+    ),
+  },
   {
     path: paths.participants,
     screen: 'Participants',

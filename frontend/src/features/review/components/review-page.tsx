@@ -151,7 +151,15 @@ function ResultsOf({
   );
 }
 
-export function ReviewPage() {
+/**
+ * `reportPanel` draws the report card's body (the app passes the sign-off feature's panel);
+ * `watch` changes whenever the visit's flag does, so the panel can reload.
+ */
+export function ReviewPage({
+  reportPanel,
+}: {
+  reportPanel?: (visitId: string, watch: unknown) => React.ReactNode;
+} = {}) {
   const { visitId = '' } = useParams();
   const { me } = useSession();
   const ability = useAppAbility();
@@ -403,6 +411,8 @@ export function ReviewPage() {
                   <Skeleton active paragraph={{ rows: 1 }} />
                 ) : report.data === null ? (
                   'No report has been drafted for this visit yet.'
+                ) : reportPanel !== undefined ? (
+                  reportPanel(visitId, flag.data)
                 ) : (
                   <span>
                     <Tag>{report.data.state}</Tag> The visit report is a {report.data.state};
