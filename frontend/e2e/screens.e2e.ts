@@ -3,7 +3,12 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { SiteView, StudyView } from '@gyre/shared';
+import {
+  SIGNATURE_MEANING,
+  type ReportSignOffDto,
+  type SiteView,
+  type StudyView,
+} from '@gyre/shared';
 import {
   api,
   createFirstAdmin,
@@ -282,7 +287,21 @@ describe('every screen of this part in Chromium, on a real server', () => {
     expect(problems).toEqual([]);
   });
 
-  it('a coordinator sees Reports and cannot open Review', async () => {
+  it('a coordinator downloads the signed report from Reports and cannot open Review', async () => {
+    // The analyst signs the visit's report through the API (the sign-off screen is elsewhere).
+    const analystToken = await signInApi(gyre.baseUrl, PEOPLE.analyst.email, E2E_PASSWORD);
+    const signOff = await api<ReportSignOffDto>(
+      gyre.baseUrl,
+      analystToken,
+      'GET',
+      `/api/visits/${visitId}/report/sign-off`,
+    );
+    expect(signOff.cannotSignReason).toBeNull();
+    await api(gyre.baseUrl, analystToken, 'POST', `/api/visits/${visitId}/report/sign`, {
+      password: E2E_PASSWORD,
+      meaning: SIGNATURE_MEANING,
+      fingerprint: signOff.draftFingerprint,
+    });
     const { page, problems } = await newPage();
     await signIn(page, PEOPLE.coordinator.email);
     expect(await menu(page)).toEqual(['Reports']);
@@ -291,9 +310,13 @@ describe('every screen of this part in Chromium, on a real server', () => {
       .getByRole('navigation', { name: 'Main' })
       .getByRole('link', { name: 'Reports' })
       .click();
-    await page
-      .getByText('No reports yet. A report appears here once an analyst signs a visit.')
-      .waitFor();
+    const row = page.getByRole('row').filter({ hasText: 'AC-0042' });
+    await row.getByText(/^(Signed|Sent)$/).waitFor();
+    const download = page.waitForEvent('download');
+    await row.getByRole('button', { name: 'Download the report of AC-0042-V1' }).click();
+    const pdf = readFileSync((await (await download).path()) ?? '');
+    // Every PDF file starts with its header "%PDF-" (ISO 32000-1, 7.5.2).
+    expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
     ).resolves.toContain(CAUTION);

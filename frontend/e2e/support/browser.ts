@@ -49,6 +49,21 @@ export function watchConsole(page: Page): string[] {
 
 export async function screenshot(page: Page, name: string): Promise<string> {
   mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  // Let fades settle so the picture shows the screen, not a transition (endless spinners aside).
+  await page
+    .waitForFunction(
+      () =>
+        document
+          .getAnimations()
+          .every(
+            (animation) =>
+              animation.playState !== 'running' ||
+              animation.effect?.getTiming().iterations === Infinity,
+          ),
+      undefined,
+      { timeout: 3000 },
+    )
+    .catch(() => undefined);
   const file = join(SCREENSHOT_DIR, `${name}.png`);
   await page.screenshot({ path: file, fullPage: true });
   return file;

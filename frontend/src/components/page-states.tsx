@@ -10,6 +10,15 @@ export function LoadingState({ rows = 6, label = 'Loading' }: { rows?: number; l
   );
 }
 
+/** Grey rows inside a table while its first page loads (instead of "nothing here"). */
+export function TableSkeleton() {
+  return (
+    <div aria-busy="true" aria-label="Loading" style={{ padding: '8px 0', textAlign: 'left' }}>
+      <Skeleton active title={false} paragraph={{ rows: 4 }} />
+    </div>
+  );
+}
+
 /** A failed load in plain words, with the way to try again. */
 export function ErrorState({
   error,

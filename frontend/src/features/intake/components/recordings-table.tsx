@@ -1,7 +1,7 @@
 import type { RecordingDto } from '@gyre/shared';
 import { App, Button, Card, Progress, Table, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
-import { ErrorState, EmptyState } from '../../../components/page-states';
+import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
 import { formatBytes, formatDateTime, formatHz, formatSeconds } from '../../../lib/format';
 import { useRecordings } from '../api/recordings';
@@ -128,12 +128,14 @@ export function RecordingsTable({ visitId }: { visitId: string }) {
         <Table<RecordingDto>
           rowKey="id"
           size="middle"
-          loading={isLoading}
+          loading={isLoading && data !== undefined}
           columns={columns}
           dataSource={data?.items ?? []}
           pagination={false}
           locale={{
-            emptyText: (
+            emptyText: isLoading ? (
+              <TableSkeleton />
+            ) : (
               <EmptyState description="No recordings yet. Drop the visit's EDF files above." />
             ),
           }}

@@ -6,7 +6,7 @@ import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { useSWRConfig } from 'swr';
 import { PageHeader } from '../../../components/page-header';
-import { EmptyState, ErrorState } from '../../../components/page-states';
+import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { ApiError } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
@@ -137,7 +137,7 @@ export function LedgerPage() {
             size="middle"
             columns={columns}
             dataSource={data?.items ?? []}
-            loading={isLoading}
+            loading={isLoading && data !== undefined}
             expandable={{
               expandedRowRender: (entry) => <EntryChanges entry={entry} />,
               expandRowByClick: false,
@@ -152,7 +152,9 @@ export function LedgerPage() {
               onChange: setPage,
             }}
             locale={{
-              emptyText: (
+              emptyText: isLoading ? (
+                <TableSkeleton />
+              ) : (
                 <EmptyState
                   description={
                     Object.keys(filters).length > 0

@@ -6,7 +6,7 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { PageHeader } from '../../../components/page-header';
-import { EmptyState, ErrorState } from '../../../components/page-states';
+import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { ApiError } from '../../../lib/api-client';
 import { formatDate, formatDateTime } from '../../../lib/format';
@@ -155,7 +155,7 @@ export function ReportsPage() {
           <Table<ReportDto>
             rowKey="id"
             size="middle"
-            loading={isLoading}
+            loading={isLoading && data !== undefined}
             columns={columns}
             dataSource={data?.items ?? []}
             pagination={{
@@ -167,7 +167,9 @@ export function ReportsPage() {
               onChange: setPage,
             }}
             locale={{
-              emptyText: (
+              emptyText: isLoading ? (
+                <TableSkeleton />
+              ) : (
                 <EmptyState
                   description={
                     state === 'all'

@@ -3,7 +3,7 @@ import { Card, Segmented, Table, Tag, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
 import { PageHeader } from '../../../components/page-header';
-import { EmptyState, ErrorState } from '../../../components/page-states';
+import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { formatDateTime } from '../../../lib/format';
 import { useOutbox } from '../api/outbox';
 
@@ -99,7 +99,7 @@ export function OutboxPage() {
           <Table<OutboxMessageView>
             rowKey="id"
             size="middle"
-            loading={isLoading}
+            loading={isLoading && data !== undefined}
             columns={columns}
             dataSource={data?.items ?? []}
             pagination={{
@@ -110,7 +110,13 @@ export function OutboxPage() {
               hideOnSinglePage: true,
               onChange: setPage,
             }}
-            locale={{ emptyText: <EmptyState description="No e-mail yet." /> }}
+            locale={{
+              emptyText: isLoading ? (
+                <TableSkeleton />
+              ) : (
+                <EmptyState description="No e-mail yet." />
+              ),
+            }}
           />
         )}
       </Card>

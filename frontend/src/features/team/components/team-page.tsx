@@ -15,7 +15,7 @@ import {
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
 import { PageHeader } from '../../../components/page-header';
-import { EmptyState, ErrorState } from '../../../components/page-states';
+import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
 import { useSession } from '../../../lib/session/session-context';
@@ -205,7 +205,7 @@ export function TeamPage() {
           <Table<UserView>
             rowKey="id"
             size="middle"
-            loading={isLoading}
+            loading={isLoading && data !== undefined}
             columns={columns}
             dataSource={data?.items ?? []}
             pagination={{
@@ -216,7 +216,13 @@ export function TeamPage() {
               hideOnSinglePage: true,
               onChange: setPage,
             }}
-            locale={{ emptyText: <EmptyState description="No account matches." /> }}
+            locale={{
+              emptyText: isLoading ? (
+                <TableSkeleton />
+              ) : (
+                <EmptyState description="No account matches." />
+              ),
+            }}
           />
         )}
       </Card>
