@@ -224,7 +224,7 @@ describe('Report sign-off in Chromium, on a real server', () => {
     await dialog.getByLabel('Your password, entered again').fill(E2E_PASSWORD);
     await dialog.getByRole('button', { name: 'Sign revision 1' }).click();
     await page.getByText('Signed: revision 1.', { exact: false }).waitFor();
-    await panel.getByText('Revision 1').waitFor();
+    await panel.getByRole('button', { name: 'Download revision 1' }).waitFor();
     await screenshot(page, 'signoff-signed');
     const status = await api<ReportSignOffDto>(
       gyre.baseUrl,
