@@ -404,6 +404,33 @@ describe('visit report sign-off', () => {
     expect((await pdf(`/api/reports/${reportId}/file`, 'coordinatorB')).status).toBe(404);
   });
 
+  it('answers each role as DESIGN.md says: 403 never allowed, 404 outside their study or site', async () => {
+    const expected: Array<[UserKey, number, number, number]> = [
+      // [user, sign-off state, preview, signed file]
+      ['analyst', 200, 200, 200],
+      ['monitor', 200, 200, 200],
+      ['coordinator', 403, 403, 200],
+      ['technician', 403, 403, 403],
+      ['admin', 403, 403, 403],
+      ['coordinatorA2', 403, 403, 404],
+      ['coordinatorB', 403, 403, 404],
+      ['analystB', 404, 404, 404],
+      ['monitorB', 404, 404, 404],
+    ];
+    for (const [user, stateStatus, previewStatus, fileStatus] of expected) {
+      const header = await as(user);
+      const state = await request(t.url).get(`/api/visits/${visitId}/report/sign-off`).set(header);
+      const preview = await pdf(`/api/visits/${visitId}/report/preview`, user);
+      const file = await pdf(`/api/report-revisions/${revision1.id}/file`, user);
+      expect([user, state.status, preview.status, file.status]).toEqual([
+        user,
+        stateStatus,
+        previewStatus,
+        fileStatus,
+      ]);
+    }
+  });
+
   it('cannot alter a signed report through any route', async () => {
     const { draftFingerprint, canSign } = await signOff();
     expect(canSign).toBe(false);
