@@ -35,12 +35,18 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
     expect(screen.getByRole('note', { name: 'Research use caution' })).toBeInTheDocument();
 
     // Two visits have values: line, points and trend per series, and the flagged visit's line.
-    const alpha = await screen.findByRole('figure', { name: 'Alpha frequency trajectory' });
-    expect(within(alpha).getByTestId('g2-plot').dataset.marks).toBe(
-      'lineX line point line line point line',
+    const alpha = await screen.findByRole(
+      'figure',
+      { name: 'Alpha frequency trajectory' },
+      { timeout: 15_000 },
     );
+    expect(
+      (await within(alpha).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
+    ).toBe('lineX line point line line point line');
     const onset = screen.getByRole('figure', { name: 'Onset change trajectory' });
-    expect(within(onset).getByTestId('g2-plot').dataset.marks).toBe('lineX lineY line point line');
+    expect(
+      (await within(onset).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
+    ).toBe('lineX lineY line point line');
     expect(screen.getByText('PAF (trend -0.40 Hz/year)')).toBeInTheDocument();
 
     const rows = within(screen.getByRole('table', { name: 'Visits' })).getAllByRole('row');

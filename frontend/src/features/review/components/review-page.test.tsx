@@ -62,9 +62,17 @@ describe('Review', { timeout: 60_000 }, () => {
     expect(screen.getByTestId('roi-delta-f')).toHaveTextContent('-0.31 Hz');
     expect(await screen.findByTestId('rest-paf')).toHaveTextContent('PAF 10.24 Hz');
     const onset = screen.getByRole('figure', { name: 'Onset curve' });
-    expect(within(onset).getByTestId('g2-plot').dataset.marks).toBe('rangeX area line lineX');
-    const spectrum = screen.getByRole('figure', { name: 'Rest spectrum' });
-    expect(within(spectrum).getByTestId('g2-plot').dataset.marks).toBe('rangeX line lineX lineX');
+    expect(
+      (await within(onset).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
+    ).toBe('rangeX area line lineX');
+    const spectrum = await screen.findByRole(
+      'figure',
+      { name: 'Rest spectrum' },
+      { timeout: 15_000 },
+    );
+    expect(
+      (await within(spectrum).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
+    ).toBe('rangeX line lineX lineX');
     // The raster painted one pixel per cell: 4 trials × 8 time points.
     await waitFor(() => expect(canvas.putImageData).toBeGreaterThan(0));
     expect(canvas.lastImage?.width).toBe(8);
