@@ -12,6 +12,8 @@ export interface ParticipantQuery {
   order: 'asc' | 'desc';
   /** Part of a participant code; empty for all. */
   search: string;
+  /** One site, or null for every site in scope. */
+  siteId: string | null;
 }
 
 /** `GET /api/participants`: search, sort and paging are done by the server. */
@@ -22,6 +24,7 @@ export const participantsKey = (query: ParticipantQuery) =>
     sort: query.sort,
     order: query.order,
     q: query.search.trim(),
+    siteId: query.siteId,
   });
 
 export function getParticipants(query: ParticipantQuery): Promise<Page<ParticipantView>> {

@@ -2,28 +2,37 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it } from 'vitest';
-import { meFor } from '../../../test/fixtures';
+import { meFor, SITE } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
 import { participant } from '../testing/participant-fixtures';
 
 installMswServer();
 
-const ALL = Array.from({ length: 45 }, (_, i) => participant(i + 1));
+const OTHER_SITE = { ...SITE, id: 'site-b', code: 'SOUTH', name: 'South clinic' };
+// Generated test data: 45 participants, every fifth at the second site.
+const ALL = Array.from({ length: 45 }, (_, i) => ({
+  ...participant(i + 1),
+  siteId: (i + 1) % 5 === 0 ? OTHER_SITE.id : SITE.id,
+}));
 
 /** A stand-in for the server's list: it filters, sorts and pages as the query asks. */
 function serveParticipants(requests: URLSearchParams[]) {
   server.use(
+    http.get('/api/sites', () =>
+      HttpResponse.json({ items: [SITE, OTHER_SITE], total: 2, page: 1, pageSize: 200 }),
+    ),
     http.get('/api/participants', ({ request }) => {
       const query = new URL(request.url).searchParams;
       requests.push(query);
       const q = query.get('q') ?? '';
+      const siteId = query.get('siteId');
       const order = query.get('order') === 'desc' ? -1 : 1;
       const page = Number(query.get('page'));
       const pageSize = Number(query.get('pageSize'));
-      const found = ALL.filter((p) => p.code.includes(q)).sort(
-        (a, b) => order * a.code.localeCompare(b.code),
-      );
+      const found = ALL.filter(
+        (p) => p.code.includes(q) && (siteId === null || p.siteId === siteId),
+      ).sort((a, b) => order * a.code.localeCompare(b.code));
       return HttpResponse.json({
         items: found.slice((page - 1) * pageSize, page * pageSize),
         total: found.length,
@@ -69,6 +78,20 @@ describe('Participants', { timeout: 60_000 }, () => {
     expect(requests.at(-1)?.get('page')).toBe('1');
   });
 
+  it("filters by site on the server and shows each participant's site", async () => {
+    const requests: URLSearchParams[] = [];
+    serveParticipants(requests);
+    renderApp('/participants', meFor('monitor'));
+    expect(await screen.findByText('AC-0001', {}, { timeout: 15_000 })).toBeInTheDocument();
+    await waitFor(() => expect(screen.getAllByText(SITE.code).length).toBeGreaterThan(0));
+    await userEvent.click(screen.getByRole('button', { name: /filter/i }));
+    await userEvent.click(await screen.findByText(`${OTHER_SITE.code} · ${OTHER_SITE.name}`));
+    await userEvent.click(screen.getByRole('button', { name: 'OK' }));
+    await waitFor(() => expect(requests.at(-1)?.get('siteId')).toBe(OTHER_SITE.id));
+    await waitFor(() => expect(codesShown()).toHaveLength(9));
+    expect(codesShown()[0]).toBe('AC-0005');
+  });
+
   it('says so when a search finds nobody', async () => {
     serveParticipants([]);
     renderApp('/participants?search=ZZ-9', meFor('monitor'));
@@ -81,6 +104,9 @@ describe('Participants', { timeout: 60_000 }, () => {
     // Every request fails until the user asks again, whatever SWR retries on its own.
     let userRetried = false;
     server.use(
+      http.get('/api/sites', () =>
+        HttpResponse.json({ items: [SITE], total: 1, page: 1, pageSize: 200 }),
+      ),
       http.get('/api/participants', () =>
         userRetried
           ? HttpResponse.json({ items: ALL.slice(0, 20), total: 45, page: 1, pageSize: 20 })

@@ -8,6 +8,7 @@ import { PageHeader } from '../../../components/page-header';
 import { ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { formatDate } from '../../../lib/format';
+import { useSites } from '../api/get-sites';
 import {
   PARTICIPANT_SORTS,
   useParticipants,
@@ -28,6 +29,7 @@ function queryFrom(params: URLSearchParams): ParticipantQuery {
     sort: PARTICIPANT_SORTS.includes(sort as ParticipantSort) ? (sort as ParticipantSort) : 'code',
     order: params.get('order') === 'desc' ? 'desc' : 'asc',
     search: params.get('search') ?? '',
+    siteId: params.get('site'),
   };
 }
 
@@ -36,6 +38,8 @@ export function ParticipantsPage() {
   const query = queryFrom(params);
   const [searchText, setSearchText] = useState(query.search);
   const participants = useParticipants(query);
+  const sites = useSites();
+  const siteCode = (siteId: string) => sites.data?.find((site) => site.id === siteId)?.code ?? '…';
 
   const update = (change: Partial<ParticipantQuery>) => {
     const next = { ...query, ...change };
@@ -46,6 +50,7 @@ export function ParticipantsPage() {
         sort: next.sort,
         order: next.order,
         ...(next.search === '' ? {} : { search: next.search }),
+        ...(next.siteId === null ? {} : { site: next.siteId }),
       },
       { replace: true },
     );
@@ -63,9 +68,10 @@ export function ParticipantsPage() {
 
   const onChange: TableProps<ParticipantView>['onChange'] = (
     pagination: TablePaginationConfig,
-    _filters,
+    filters,
     sorter,
   ) => {
+    const site = filters.site?.[0];
     const single = Array.isArray(sorter) ? sorter[0] : sorter;
     const column = single?.columnKey as ParticipantSort | undefined;
     const ordered = single?.order !== undefined && single.order !== null;
@@ -74,6 +80,9 @@ export function ParticipantsPage() {
       pageSize: pagination.pageSize ?? query.pageSize,
       sort: ordered && column !== undefined ? column : 'code',
       order: ordered && single.order === 'descend' ? 'desc' : 'asc',
+      siteId: typeof site === 'string' ? site : null,
+      // A new filter starts again from the first page.
+      ...((typeof site === 'string' ? site : null) === query.siteId ? {} : { page: 1 }),
     });
   };
 
@@ -112,9 +121,11 @@ export function ParticipantsPage() {
             showSorterTooltip={false}
             locale={{
               emptyText:
-                query.search === ''
-                  ? 'No participants in this study yet.'
-                  : `No participant code contains “${query.search}”.`,
+                query.search !== ''
+                  ? `No participant code contains “${query.search}”.`
+                  : query.siteId !== null
+                    ? 'No participants at this site yet.'
+                    : 'No participants in this study yet.',
             }}
             pagination={{
               current: query.page,
@@ -135,6 +146,17 @@ export function ParticipantsPage() {
                     {row.code}
                   </Link>
                 ),
+              },
+              {
+                key: 'site',
+                title: 'Site',
+                filters: (sites.data ?? []).map((site) => ({
+                  text: `${site.code} · ${site.name}`,
+                  value: site.id,
+                })),
+                filterMultiple: false,
+                filteredValue: query.siteId === null ? null : [query.siteId],
+                render: (_, row) => siteCode(row.siteId),
               },
               {
                 key: 'createdAt',
