@@ -422,7 +422,14 @@ describe('Review and Participants in Chromium, on a real server', () => {
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
     ).resolves.toContain(CAUTION);
     await screenshot(page, 'participants-monitor');
-    await page.getByRole('link', { name: participant.code }).click();
+    // Keyboard only: Tab to the participant's link and open it with Enter.
+    let focused = '';
+    for (let presses = 0; presses < 40 && focused !== participant.code; presses++) {
+      await page.keyboard.press('Tab');
+      focused = await page.evaluate(() => document.activeElement?.textContent ?? '');
+    }
+    expect(focused).toBe(participant.code);
+    await page.keyboard.press('Enter');
     await expectDrawn(page, 'Alpha frequency trajectory', 3000);
     await screenshot(page, 'participant-trajectory-monitor');
     expect(problems).toEqual([]);
