@@ -1,4 +1,5 @@
-import type { Role } from '@gyre/shared';
+import type { ReportSignOffDto, Role } from '@gyre/shared';
+import { SIGNATURE_MEANING } from '@gyre/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
@@ -42,6 +43,18 @@ function serveVisit(keepFlag = false) {
     http.get('/api/recordings/rec-resting/results', () => HttpResponse.json(REST_RESULTS)),
     http.get(`/api/studies/${STUDY.id}/analysis-settings`, () => HttpResponse.json(SETTINGS)),
     http.get(`/api/visits/${VISIT.id}/report`, () => HttpResponse.json(REPORT)),
+    // The report card's sign-off panel (features/signoff): a draft nobody has signed yet.
+    http.get(`/api/visits/${VISIT.id}/report/sign-off`, () =>
+      HttpResponse.json({
+        report: REPORT,
+        meaning: SIGNATURE_MEANING,
+        draftFingerprint: 'f'.repeat(64),
+        pendingRevision: 1,
+        canSign: true,
+        cannotSignReason: null,
+        revisions: [],
+      } satisfies ReportSignOffDto),
+    ),
   );
 }
 
