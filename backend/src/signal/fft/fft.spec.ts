@@ -1,5 +1,6 @@
 import { dftPlan } from './dft-any-length';
 import { fftPlan, nextPowerOfTwo } from './fft-plan';
+import { BandDftPlan, BandDftScratch, bandSubSize, PhaseSink, PhaseSource } from './band-dft';
 import { mixedRadixLength, mixedRadixPlan } from './mixed-radix-fft';
 
 /** Generated test signal (deterministic). */
@@ -126,5 +127,74 @@ describe('FFT plans', () => {
     expect(mixedRadixLength(1803334)).toBe(1835008); // 7·2^18
     expect(mixedRadixLength(4096)).toBe(4096);
     expect(mixedRadixLength(4097)).toBe(5120); // 5·2^10
+  });
+});
+
+describe('band DFT (decimated, pruned to a band of bins)', () => {
+  class ArraySource implements PhaseSource {
+    constructor(
+      private readonly x: Float64Array,
+      private readonly decimation: number,
+    ) {}
+    readPhases(firstPhase: number, out: readonly Float64Array[]): void {
+      out.forEach((phase, j) => {
+        for (let u = 0; u < phase.length; u++)
+          phase[u] = this.x[u * this.decimation + firstPhase + j];
+      });
+    }
+  }
+  class ArraySink implements PhaseSink {
+    readonly y: Float64Array;
+    constructor(
+      size: number,
+      private readonly decimation: number,
+    ) {
+      this.y = new Float64Array(2 * size);
+    }
+    takePhases(firstPhase: number, y: readonly Float64Array[]): void {
+      y.forEach((phase, j) => {
+        for (let u = 0; 2 * u < phase.length; u++) {
+          const t = u * this.decimation + firstPhase + j;
+          this.y[2 * t] = phase[2 * u];
+          this.y[2 * t + 1] = phase[2 * u + 1];
+        }
+      });
+    }
+  }
+
+  // Against the DFT definition; the band folds onto the short transform when it is
+  // wider than L (cases 2 and 4) and the decimation D is not a multiple of the phase group.
+  it.each([
+    [448, 16, 30, 41],
+    [448, 16, 3, 150],
+    [320, 64, 0, 160],
+    [96, 8, 40, 95],
+    [640, 32, 30, 180],
+  ])('matches the DFT definition for M = %i, L = %i, bins %i…%i', (m, l, first, last) => {
+    const x = generated(m, 13);
+    const plan = new BandDftPlan(m, l);
+    const scratch = new BandDftScratch();
+    const band = new Float64Array(2 * (last - first + 1));
+    plan.forwardRealBand(new ArraySource(x, plan.decimation), first, last, band, scratch);
+    const expected = naiveDft(toComplex(x));
+    const wanted = expected.subarray(2 * first, 2 * last + 2);
+    expect(maxDiff(band, wanted)).toBeLessThan(maxAbs(expected) * 1e-12);
+
+    // Inverse of a spectrum that is zero outside the band: conj(M·IDFT(Z)) = DFT(conj Z).
+    const conjBand = Float64Array.from(band, (v, i) => (i % 2 === 0 ? v : -v));
+    const sink = new ArraySink(m, plan.decimation);
+    plan.inverseBand(conjBand, first, last, sink, scratch);
+    const full = new Float64Array(2 * m);
+    full.set(conjBand, 2 * first);
+    const direct = naiveDft(full);
+    expect(maxDiff(sink.y, direct)).toBeLessThan(maxAbs(direct) * 1e-12);
+  });
+
+  it('chooses a power-of-two short length that divides M and holds the band', () => {
+    expect(bandSubSize(1835008, 24955, 54867)).toBe(32768); // 7·2^18: 29 913 bins
+    expect(bandSubSize(327680, 4456, 9795)).toBe(8192); // 5·2^16: 5 340 bins
+    expect(bandSubSize(448, 0, 224)).toBe(64); // only 2^6 divides 448
+    expect(bandSubSize(1 << 20, 0, 10)).toBe(4096); // at least M/256
+    expect(() => new BandDftPlan(448, 128)).toThrow(/size = D·subSize/);
   });
 });

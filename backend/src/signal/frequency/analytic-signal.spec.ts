@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { analyticSignal, envelope } from './analytic-signal';
+import { analyticFftSize, analyticSignal, AnalyticWorkspace, envelope } from './analytic-signal';
 import { frequencySliding } from './frequency-sliding';
 import { phaseDifferenceFrequency } from './instantaneous-frequency';
 import { plateauBandPass } from './spectral-weights';
@@ -54,6 +54,25 @@ describe('analytic signal against scipy.signal.hilbert', () => {
     const z = analyticSignal(x, { sampleRateHz: fixture.sampleRateHz, weight, circular: true });
     expect(relativeError(z.re, fixture.bandPassed)).toBeLessThan(1e-9);
     expect(relativeError(z.im, fixture.bandAnalyticIm)).toBeLessThan(1e-9);
+  });
+
+  it('writes into caller-owned buffers, reused across calls, with the same values', () => {
+    // Property: the output buffers change where the result goes, not what it is.
+    const weight = plateauBandPass({ bandHz: fixture.bandHz });
+    const options = { sampleRateHz: fixture.sampleRateHz, weight, edgePaddingSamples: 300 };
+    const fresh = analyticSignal(x, options);
+    const output = { re: new Float64Array(x.length), im: new Float64Array(x.length) };
+    const workspace = new AnalyticWorkspace(analyticFftSize(x.length, 300, false));
+    analyticSignal(
+      x.map((v) => -v),
+      options,
+      workspace,
+      output,
+    );
+    const again = analyticSignal(x, options, workspace, output);
+    expect(again.re).toBe(output.re);
+    expect(Array.from(again.re)).toEqual(Array.from(fresh.re));
+    expect(Array.from(again.im)).toEqual(Array.from(fresh.im));
   });
 
   it('refuses a circular transform of a length that is not a power of two', () => {

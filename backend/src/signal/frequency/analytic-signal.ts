@@ -1,5 +1,6 @@
 import { isPowerOfTwo } from '../fft/fft-plan';
-import { mixedRadixLength, mixedRadixPlan, MixedRadixScratch } from '../fft/mixed-radix-fft';
+import { BandDftPlan, BandDftScratch, bandSubSize, PhaseSink, PhaseSource } from '../fft/band-dft';
+import { mixedRadixLength } from '../fft/mixed-radix-fft';
 import { SpectralWeight } from './spectral-weights';
 
 /** A complex time series as two parallel arrays (transferable to a worker thread). */
@@ -30,24 +31,20 @@ export interface AnalyticSignalOptions {
  */
 export class AnalyticWorkspace {
   readonly size: number;
-  readonly real: Float64Array;
-  readonly spectrum: Float64Array;
-  readonly shaped: Float64Array;
-  /** Bins of `shaped` that the last call wrote (all others are zero). */
-  shapedFirstBin = 0;
-  shapedLastBin = 0;
-
-  readonly scratch: MixedRadixScratch;
+  /** Spectrum bins of the weight's support, interleaved. */
+  band = new Float64Array(0);
+  readonly scratch = new BandDftScratch();
 
   constructor(size: number) {
     if (mixedRadixLength(size) !== size) {
       throw new RangeError(`workspace size: expected a length p·2^a (p = 1, 3, 5, 7), got ${size}`);
     }
     this.size = size;
-    this.scratch = mixedRadixPlan(size).createScratch();
-    this.real = new Float64Array(size);
-    this.spectrum = new Float64Array(2 * size);
-    this.shaped = new Float64Array(2 * size);
+  }
+
+  bandFor(count: number): Float64Array {
+    if (this.band.length < 2 * count) this.band = new Float64Array(2 * count);
+    return this.band;
   }
 }
 
@@ -73,11 +70,15 @@ export function analyticFftSize(n: number, padding: number, circular: boolean): 
  *   Z[0] = G(0)·X[0], Z[M/2] = G(fs/2)·X[M/2], Z[k] = 2·G(k·fs/M)·X[k] for 0 < k < M/2,
  *   Z[k] = 0 for M/2 < k < M, and z = IDFT(Z).
  * Re z is the zero-phase filtered signal, Im z its Hilbert transform.
+ * Only the bins inside the weight's support are non-zero, so both transforms run as
+ * `BandDftPlan`: the same M-point DFT, computed as short cache-sized transforms and
+ * pruned to the band (results equal to rounding). Writes into `output` when given.
  */
 export function analyticSignal(
   samples: Float32Array | Float64Array,
   options: AnalyticSignalOptions,
   workspace?: AnalyticWorkspace,
+  output?: ComplexSeries,
 ): ComplexSeries {
   const n = samples.length;
   if (n < 2) throw new RangeError(`samples: expected at least 2 samples, got ${n}`);
@@ -90,45 +91,118 @@ export function analyticSignal(
   }
   const m = analyticFftSize(n, padding, circular);
   const ws = workspace && workspace.size === m ? workspace : new AnalyticWorkspace(m);
-  const { real, spectrum, shaped } = ws;
-
-  // Mirror about the end samples, x[-j] = x[j]: no jump in value at the edges, and an
-  // outlying end sample is not amplified (as an odd reflection 2·x[0] − x[j] would).
-  for (let j = 1; j <= padding; j++) real[padding - j] = samples[j];
-  for (let i = 0; i < n; i++) real[padding + i] = samples[i];
-  for (let j = 1; j <= padding; j++) real[padding + n - 1 + j] = samples[n - 1 - j];
-  real.fill(0, n + 2 * padding);
-
-  const plan = mixedRadixPlan(m);
-  plan.forwardReal(real, spectrum, ws.scratch);
+  const re = output?.re ?? new Float64Array(n);
+  const im = output?.im ?? new Float64Array(n);
+  if (re.length !== n || im.length !== n) {
+    throw new RangeError(
+      `output: expected re and im of length ${n}, got ${re.length}, ${im.length}`,
+    );
+  }
 
   const half = m / 2;
   const binHz = fs / m;
-  // Only the bins written last time can be non-zero: clear just those.
-  shaped.fill(0, 2 * ws.shapedFirstBin, 2 * ws.shapedLastBin + 2);
   const weight = options.weight;
   const first = weight === null ? 0 : Math.max(0, Math.ceil(weight.supportHz[0] / binHz));
   const last = weight === null ? half : Math.min(half, Math.floor(weight.supportHz[1] / binHz));
-  ws.shapedFirstBin = first;
-  ws.shapedLastBin = Math.max(first, last);
-  // The inverse DFT is computed as conj(DFT(conj Z))/M: the conjugate is written here and
-  // the scaling is folded into the copy-out, which saves a pass over 2·M values.
-  for (let k = first; k <= last; k++) {
-    const g = (weight === null ? 1 : weight.weightAt(k * binHz)) * (k === 0 || k === half ? 1 : 2);
-    shaped[2 * k] = g * spectrum[2 * k];
-    shaped[2 * k + 1] = -g * spectrum[2 * k + 1];
+  if (last < first) {
+    // The weight's support holds no bin: the filtered signal is zero.
+    re.fill(0);
+    im.fill(0);
+    return { re, im };
   }
-  // The transform goes into `spectrum`, which is no longer needed.
-  plan.forward(shaped, spectrum, ws.scratch);
+  const count = last - first + 1;
+  const plan = new BandDftPlan(m, bandSubSize(m, first, last));
+  const d = plan.decimation;
+  const l = plan.subSize;
+  const band = ws.bandFor(count);
 
-  const re = new Float64Array(n);
-  const im = new Float64Array(n);
-  const scale = 1 / m;
-  for (let i = 0, j = 2 * padding; i < n; i++, j += 2) {
-    re[i] = spectrum[j] * scale;
-    im[i] = -spectrum[j + 1] * scale;
+  const input = new MirroredInput(samples, padding, d, l);
+  plan.forwardRealBand(input, first, last, band, ws.scratch);
+
+  // Z[k] = g·X[k] with g = G(k·fs/M), doubled for 0 < k < M/2 (Marple 1999); stored
+  // conjugated for the inverse by forward short transforms.
+  for (let i = 0; i < count; i++) {
+    const k = first + i;
+    const g = (weight === null ? 1 : weight.weightAt(k * binHz)) * (k === 0 || k === half ? 1 : 2);
+    band[2 * i] *= g;
+    band[2 * i + 1] *= -g;
   }
+  const sink = new PaddedOutput(re, im, padding, d, l, 1 / m);
+  plan.inverseBand(band, first, last, sink, ws.scratch);
   return { re, im };
+}
+
+/**
+ * The input mirrored about its end samples, x[-j] = x[j]: no jump in value at the
+ * edges, and an outlying end sample is not amplified (as an odd reflection 2·x[0] − x[j]
+ * would); zero after the mirrored tail. Read straight from the samples, phase by phase.
+ */
+class MirroredInput implements PhaseSource {
+  private readonly n: number;
+
+  constructor(
+    private readonly samples: Float32Array | Float64Array,
+    private readonly padding: number,
+    private readonly decimation: number,
+    private readonly subSize: number,
+  ) {
+    this.n = samples.length;
+  }
+
+  private at(t: number): number {
+    const { samples, padding, n } = this;
+    if (t < padding) return samples[padding - t];
+    if (t < padding + n) return samples[t - padding];
+    if (t < n + 2 * padding) return samples[2 * n - 2 + padding - t];
+    return 0;
+  }
+
+  readPhases(firstPhase: number, out: readonly Float64Array[]): void {
+    const { samples, padding, n, decimation, subSize } = this;
+    const g = out.length;
+    for (let u = 0, base = firstPhase; u < subSize; u++, base += decimation) {
+      if (base >= padding && base + g <= padding + n) {
+        const s0 = base - padding;
+        for (let j = 0; j < g; j++) out[j][u] = samples[s0 + j];
+      } else {
+        for (let j = 0; j < g; j++) out[j][u] = this.at(base + j);
+      }
+    }
+  }
+}
+
+/** Keeps z[t] for the samples inside the padding: re z = y·scale, im z = −y·scale. */
+class PaddedOutput implements PhaseSink {
+  constructor(
+    private readonly re: Float64Array,
+    private readonly im: Float64Array,
+    private readonly padding: number,
+    private readonly decimation: number,
+    private readonly subSize: number,
+    private readonly scale: number,
+  ) {}
+
+  takePhases(firstPhase: number, y: readonly Float64Array[]): void {
+    const { re, im, padding, decimation, subSize, scale } = this;
+    const n = re.length;
+    const g = y.length;
+    for (let u = 0, base = firstPhase; u < subSize; u++, base += decimation) {
+      if (base >= padding && base + g <= padding + n) {
+        const i0 = base - padding;
+        for (let j = 0; j < g; j++) {
+          re[i0 + j] = y[j][2 * u] * scale;
+          im[i0 + j] = -y[j][2 * u + 1] * scale;
+        }
+      } else {
+        for (let j = 0; j < g; j++) {
+          const i = base + j - padding;
+          if (i < 0 || i >= n) continue;
+          re[i] = y[j][2 * u] * scale;
+          im[i] = -y[j][2 * u + 1] * scale;
+        }
+      }
+    }
+  }
 }
 
 /** Envelope |z[n]| of a complex series. */
