@@ -6,7 +6,7 @@ import {
 } from './analytic-signal';
 import { phaseDifferenceFrequency } from './instantaneous-frequency';
 import { medianAcross } from './median-across';
-import { RunningMedianWorkspace, runningMedians } from './running-median';
+import { RunningMedianWorkspace, runningMedianChunks } from './running-median';
 import {
   DEFAULT_MORLET_CYCLES,
   DEFAULT_TRANSITION_FRACTION,
@@ -113,18 +113,10 @@ export function defaultEdgePaddingS(options: FrequencySlidingOptions): number {
 export class FrequencySlidingWorkspace {
   analytic: AnalyticWorkspace | null = null;
   readonly median = new RunningMedianWorkspace();
-  filtered: Float64Array[] = [];
 
   analyticFor(size: number): AnalyticWorkspace {
     if (!this.analytic || this.analytic.size !== size) this.analytic = new AnalyticWorkspace(size);
     return this.analytic;
-  }
-
-  filteredFor(count: number, length: number): Float64Array[] {
-    if (this.filtered.length !== count || this.filtered[0].length !== length) {
-      this.filtered = Array.from({ length: count }, () => new Float64Array(length));
-    }
-    return this.filtered;
   }
 }
 
@@ -191,13 +183,24 @@ export function narrowBandAnalytic(
   );
 }
 
-/** Step 5 of `frequencySliding`: median across the running medians of `windowsSamples`. */
+/**
+ * Step 5 of `frequencySliding`: median across the running medians of `windowsSamples`,
+ * chunk by chunk (exact: each chunk ranks its own samples plus the window margins),
+ * so no full-length series per window is ever held. Writes into `output` when given.
+ */
 export function medianFilterFrequency(
   raw: Float64Array,
   windowsSamples: readonly number[],
   workspace: FrequencySlidingWorkspace,
+  output: Float64Array = new Float64Array(raw.length),
 ): Float64Array {
-  const filtered = workspace.filteredFor(windowsSamples.length, raw.length);
-  runningMedians(raw, { windowsSamples }, workspace.median, filtered);
-  return medianAcross(filtered, new Float64Array(raw.length));
+  if (output.length !== raw.length) {
+    throw new RangeError(`output: expected length ${raw.length}, got ${output.length}`);
+  }
+  // No window: medianAcross names the problem as before.
+  if (windowsSamples.length === 0) return medianAcross([], output);
+  runningMedianChunks(raw, { windowsSamples }, workspace.median, (start, medians) => {
+    medianAcross(medians, output.subarray(start, start + medians[0].length));
+  });
+  return output;
 }

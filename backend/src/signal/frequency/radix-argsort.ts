@@ -1,3 +1,9 @@
+/** 11-bit digits: three passes cover a 32-bit word, and the 2048 counters stay in L1 cache. */
+const DIGIT_BITS = 11;
+const DIGIT_VALUES = 1 << DIGIT_BITS;
+/** Runs of equal high words longer than this are sorted by comparison, not by insertion. */
+const INSERTION_RUN = 32;
+
 /**
  * Buffers for `argsortFloat64`; sized for the largest input seen, reused across calls
  * of one owner (never shared between concurrent calls).
@@ -7,10 +13,9 @@ export class ArgsortWorkspace {
   keyLo = new Uint32Array(0);
   keyHi = new Uint32Array(0);
   index = new Int32Array(0);
-  keyLo2 = new Uint32Array(0);
   keyHi2 = new Uint32Array(0);
   index2 = new Int32Array(0);
-  readonly counts = new Int32Array(65536);
+  readonly counts = new Int32Array(DIGIT_VALUES);
 
   ensure(n: number): void {
     if (n <= this.capacity) return;
@@ -18,7 +23,6 @@ export class ArgsortWorkspace {
     this.keyLo = new Uint32Array(n);
     this.keyHi = new Uint32Array(n);
     this.index = new Int32Array(n);
-    this.keyLo2 = new Uint32Array(n);
     this.keyHi2 = new Uint32Array(n);
     this.index2 = new Int32Array(n);
   }
@@ -28,9 +32,11 @@ export class ArgsortWorkspace {
  * Sort order of `values` (ascending, NaN last): writes into `order` the indices such
  * that values[order[0]] ≤ values[order[1]] ≤ …, stable for equal values.
  *
- * LSD radix sort on the IEEE-754 bit pattern, made monotone by flipping all bits of
- * negative numbers and the sign bit of the others (common practice); 16-bit digits,
- * four passes at most, and a pass is skipped when all keys share that digit.
+ * The IEEE-754 bit pattern is made monotone by flipping all bits of negative numbers
+ * and the sign bit of the others (common practice). An LSD radix sort (11-bit digits,
+ * a pass skipped when all keys share that digit) orders the high 32-bit words; runs
+ * of equal high words, which are short for measured data, are then ordered by their
+ * low words by insertion (a comparison sort for long runs).
  */
 export function argsortFloat64(
   values: Float64Array,
@@ -41,12 +47,12 @@ export function argsortFloat64(
   if (order.length < n) {
     throw new RangeError(`order: expected length ≥ ${n}, got ${order.length}`);
   }
+  if (n === 0) return;
   workspace.ensure(n);
   const bits = new Uint32Array(values.buffer, values.byteOffset, 2 * n);
-  let lo = workspace.keyLo;
+  const lo = workspace.keyLo;
   let hi = workspace.keyHi;
   let idx = workspace.index;
-  let lo2 = workspace.keyLo2;
   let hi2 = workspace.keyHi2;
   let idx2 = workspace.index2;
   // Little-endian platforms (every Node target): low word first.
@@ -63,35 +69,53 @@ export function argsortFloat64(
     idx[i] = i;
   }
   const counts = workspace.counts;
-  for (let pass = 0; pass < 4; pass++) {
-    const useHi = pass >= 2;
-    const shift = pass % 2 === 0 ? 0 : 16;
-    const src = useHi ? hi : lo;
+  const mask = DIGIT_VALUES - 1;
+  for (let shift = 0; shift < 32; shift += DIGIT_BITS) {
     counts.fill(0);
-    for (let i = 0; i < n; i++) counts[(src[i] >>> shift) & 0xffff]++;
-    if (counts[(src[0] >>> shift) & 0xffff] === n) continue;
+    for (let i = 0; i < n; i++) counts[(hi[i] >>> shift) & mask]++;
+    if (counts[(hi[0] >>> shift) & mask] === n) continue;
     let sum = 0;
-    for (let d = 0; d < 65536; d++) {
+    for (let d = 0; d < DIGIT_VALUES; d++) {
       const c = counts[d];
       counts[d] = sum;
       sum += c;
     }
     for (let i = 0; i < n; i++) {
-      const d = (src[i] >>> shift) & 0xffff;
-      const p = counts[d]++;
-      lo2[p] = lo[i];
-      hi2[p] = hi[i];
+      const h = hi[i];
+      const p = counts[(h >>> shift) & mask]++;
+      hi2[p] = h;
       idx2[p] = idx[i];
     }
-    let t32 = lo;
-    lo = lo2;
-    lo2 = t32;
-    t32 = hi;
+    const th = hi;
     hi = hi2;
-    hi2 = t32;
+    hi2 = th;
     const ti = idx;
     idx = idx2;
     idx2 = ti;
+  }
+  // `lo` is still indexed by input position: runs of equal high words by low word.
+  let start = 0;
+  while (start < n) {
+    const h = hi[start];
+    let end = start + 1;
+    while (end < n && hi[end] === h) end++;
+    if (end - start > INSERTION_RUN) {
+      const run = Array.from(idx.subarray(start, end));
+      run.sort((a, b) => lo[a] - lo[b] || a - b);
+      idx.set(run, start);
+    } else {
+      for (let i = start + 1; i < end; i++) {
+        const moving = idx[i];
+        const key = lo[moving];
+        let j = i - 1;
+        while (j >= start && lo[idx[j]] > key) {
+          idx[j + 1] = idx[j];
+          j--;
+        }
+        idx[j + 1] = moving;
+      }
+    }
+    start = end;
   }
   order.set(idx.subarray(0, n));
 }

@@ -1,7 +1,12 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { medianWindowLengths } from './frequency-sliding';
+import {
+  FrequencySlidingWorkspace,
+  medianFilterFrequency,
+  medianWindowLengths,
+} from './frequency-sliding';
 import { medianAcross, TEN_INPUT_NETWORK } from './median-across';
+import { ArgsortWorkspace, argsortFloat64 } from './radix-argsort';
 import { runningMedian, runningMedians, RunningMedianWorkspace } from './running-median';
 
 interface MedianFixture {
@@ -120,5 +125,89 @@ describe('running median', () => {
       const column = series.map((x) => x[i]).sort((a, b) => a - b);
       expect(out[i]).toBe((column[4] + column[5]) / 2);
     }
+  });
+});
+
+describe('running median in chunks', () => {
+  // Generated input with ties and outliers; values are compared exactly, because a median
+  // selects one of the inputs (the chunking must not change a single value).
+  let seed = 11;
+  const random = (): number => {
+    seed = (seed * 1103515245 + 12345) % 2147483648;
+    return seed / 2147483648;
+  };
+  const n = 3001;
+  const x = Float64Array.from({ length: n }, (_, i) =>
+    random() < 0.02 ? 40 * random() : 10 + Math.sin(i / 50) + Math.round(random() * 8) / 8,
+  );
+  const windows = [1, 5, 27, 201];
+
+  it.each([1, 7, 100, 1024, 5000])(
+    'equals sorting every window for chunks of %i outputs',
+    (chunkSamples) => {
+      const outputs = windows.map(() => new Float64Array(n));
+      runningMedians(
+        x,
+        { windowsSamples: windows, chunkSamples },
+        new RunningMedianWorkspace(),
+        outputs,
+      );
+      windows.forEach((k, i) => {
+        expect(Array.from(outputs[i])).toEqual(Array.from(sortedWindowMedian(x, k)));
+      });
+    },
+  );
+
+  it('fuses the median across windows chunk by chunk (medianFilterFrequency)', () => {
+    const ten = medianWindowLengths({ sampleRateHz: 500 });
+    const outputs = ten.map(() => new Float64Array(n));
+    runningMedians(
+      x,
+      { windowsSamples: ten, chunkSamples: n },
+      new RunningMedianWorkspace(),
+      outputs,
+    );
+    const expected = medianAcross(outputs, new Float64Array(n));
+    const fused = medianFilterFrequency(x, ten, new FrequencySlidingWorkspace());
+    expect(Array.from(fused)).toEqual(Array.from(expected));
+  });
+
+  it('refuses a chunk length that is not a positive integer', () => {
+    expect(() =>
+      runningMedian(x, { windowSamples: 5, chunkSamples: 0 }, new RunningMedianWorkspace()),
+    ).toThrow(/chunkSamples: expected a positive integer, got 0/);
+  });
+});
+
+describe('argsortFloat64', () => {
+  it('orders like a stable comparison sort, also where high 32-bit words tie', () => {
+    // Generated: 100 values 1 + k·2^-40 share their high word (the long-run path), plus
+    // negatives, zeros, repeated values and NaN (sorted last, as the doc says).
+    const values = Float64Array.from([
+      ...Array.from({ length: 100 }, (_, k) => 1 + ((k * 37) % 100) * 2 ** -40),
+      -3.5,
+      2,
+      -0.25,
+      0,
+      2,
+      1e-300,
+      -1e300,
+      NaN,
+      7,
+      1 + 2 ** -40,
+      5,
+      5,
+      5,
+      -3.5,
+    ]);
+    const order = new Int32Array(values.length);
+    argsortFloat64(values, order, new ArgsortWorkspace());
+    const expected = Array.from(values.keys()).sort((a, b) => {
+      const [x, y] = [values[a], values[b]];
+      if (Number.isNaN(x) || Number.isNaN(y))
+        return Number(Number.isNaN(x)) - Number(Number.isNaN(y));
+      return x - y || a - b;
+    });
+    expect(Array.from(order)).toEqual(expected);
   });
 });

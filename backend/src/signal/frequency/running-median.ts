@@ -13,12 +13,21 @@ export class RunningMedianWorkspace {
   next = new Int32Array(0);
   prev = new Int32Array(0);
   last = new Int32Array(0);
+  private chunks: Float64Array[] = [];
 
   ensurePadded(n: number): void {
     if (this.padded.length >= n) return;
     this.padded = new Float64Array(n);
     this.order = new Int32Array(n);
     this.rank = new Int32Array(n);
+  }
+
+  /** `count` series of `length` values, reused from call to call. */
+  chunkOutputs(count: number, length: number): Float64Array[] {
+    if (this.chunks.length !== count || this.chunks[0].length !== length) {
+      this.chunks = Array.from({ length: count }, () => new Float64Array(length));
+    }
+    return this.chunks;
   }
 
   ensureNodes(nodes: number, blocks: number): void {
@@ -43,9 +52,18 @@ const RANK_HEAD = -1;
 const RANK_TAIL = 0x7fffffff;
 
 /**
- * The input mirrored by `maxHalfWidth` on both sides, ranked once. Every window length
- * up to 2·maxHalfWidth + 1 then reads a sub-range of the same ranking, so sorting the
- * blocks of each window length costs one linear pass instead of a sort.
+ * Outputs per chunk (default): the chunk with its margins, ranks and linked lists then
+ * take about 1 MB, so a whole pass stays in a core's L2 cache.
+ */
+export const DEFAULT_MEDIAN_CHUNK_SAMPLES = 16384;
+
+/**
+ * Outputs [start, start + length) of the input mirrored about its edges, with
+ * `maxHalfWidth` neighbours on both sides, ranked once. Every window length up to
+ * 2·maxHalfWidth + 1 then reads a sub-range of the same ranking, so sorting the blocks
+ * of each window length costs one linear pass instead of a sort. A window only sees
+ * its own neighbours, so a chunk's medians equal those of the whole series: chunks
+ * keep the working set small without changing a value.
  */
 class RankedInput {
   constructor(
@@ -57,19 +75,26 @@ class RankedInput {
 
 function rankInput(
   input: Float64Array,
+  start: number,
+  length: number,
   maxHalfWidth: number,
   ws: RunningMedianWorkspace,
 ): RankedInput {
   const n = input.length;
-  const total = n + 2 * maxHalfWidth;
+  const total = length + 2 * maxHalfWidth;
   ws.ensurePadded(total);
   const padded = ws.padded.subarray(0, total);
-  for (let i = 0; i < total; i++) padded[i] = input[reflectIndex(i - maxHalfWidth, n)];
+  const from = start - maxHalfWidth;
+  if (from >= 0 && from + total <= n) {
+    padded.set(input.subarray(from, from + total));
+  } else {
+    for (let i = 0; i < total; i++) padded[i] = input[reflectIndex(from + i, n)];
+  }
   const order = ws.order;
   argsortFloat64(padded, order, ws.argsort);
   const rank = ws.rank;
   for (let r = 0; r < total; r++) rank[order[r]] = r;
-  return new RankedInput(n, maxHalfWidth, ws);
+  return new RankedInput(length, maxHalfWidth, ws);
 }
 
 /**
@@ -220,7 +245,7 @@ function checkWindow(windowSamples: number): void {
  */
 export function runningMedian(
   input: Float64Array,
-  options: { windowSamples: number },
+  options: { windowSamples: number; chunkSamples?: number },
   workspace: RunningMedianWorkspace = new RunningMedianWorkspace(),
   output: Float64Array = new Float64Array(input.length),
 ): Float64Array {
@@ -229,18 +254,23 @@ export function runningMedian(
   if (output.length !== input.length) {
     throw new RangeError(`output: expected length ${input.length}, got ${output.length}`);
   }
-  const ranked = rankInput(input, (options.windowSamples - 1) >> 1, workspace);
-  medianOfWindow(ranked, options.windowSamples, output);
+  runningMedians(
+    input,
+    { windowsSamples: [options.windowSamples], chunkSamples: options.chunkSamples },
+    workspace,
+    [output],
+  );
   return output;
 }
 
 /**
- * Running medians of several odd window lengths over the same input; one ranking
- * serves all of them. `outputs[i]` receives the median for `windowsSamples[i]`.
+ * Running medians of several odd window lengths over the same input; one ranking per
+ * chunk of `chunkSamples` outputs serves all of them. `outputs[i]` receives the median
+ * for `windowsSamples[i]`.
  */
 export function runningMedians(
   input: Float64Array,
-  options: { windowsSamples: readonly number[] },
+  options: { windowsSamples: readonly number[]; chunkSamples?: number },
   workspace: RunningMedianWorkspace,
   outputs: Float64Array[],
 ): void {
@@ -248,16 +278,45 @@ export function runningMedians(
   if (outputs.length !== windows.length) {
     throw new RangeError(`outputs: expected ${windows.length} arrays, got ${outputs.length}`);
   }
-  windows.forEach(checkWindow);
-  if (input.length === 0) return;
-  const maxHalfWidth = (Math.max(...windows) - 1) >> 1;
-  const ranked = rankInput(input, maxHalfWidth, workspace);
-  windows.forEach((w, i) => {
-    if (outputs[i].length !== input.length) {
-      throw new RangeError(
-        `outputs[${i}]: expected length ${input.length}, got ${outputs[i].length}`,
-      );
+  outputs.forEach((out, i) => {
+    if (out.length !== input.length) {
+      throw new RangeError(`outputs[${i}]: expected length ${input.length}, got ${out.length}`);
     }
-    medianOfWindow(ranked, w, outputs[i]);
   });
+  runningMedianChunks(input, options, workspace, (start, medians) => {
+    medians.forEach((m, i) => outputs[i].set(m, start));
+  });
+}
+
+/**
+ * The running medians of `runningMedians`, chunk by chunk: `take(start, medians)`
+ * receives, for the outputs [start, start + medians[0].length), one series per window
+ * length. The series are the workspace's buffers, valid only during the call, so a
+ * caller that reduces them at once (e.g. the median across windows) never holds
+ * full-length series per window.
+ */
+export function runningMedianChunks(
+  input: Float64Array,
+  options: { windowsSamples: readonly number[]; chunkSamples?: number },
+  workspace: RunningMedianWorkspace,
+  take: (start: number, medians: readonly Float64Array[]) => void,
+): void {
+  const windows = options.windowsSamples;
+  windows.forEach(checkWindow);
+  const chunk = options.chunkSamples ?? DEFAULT_MEDIAN_CHUNK_SAMPLES;
+  if (!Number.isInteger(chunk) || chunk < 1) {
+    throw new RangeError(`chunkSamples: expected a positive integer, got ${chunk}`);
+  }
+  const n = input.length;
+  if (n === 0 || windows.length === 0) return;
+  const maxHalfWidth = (Math.max(...windows) - 1) >> 1;
+  const buffers = workspace.chunkOutputs(windows.length, Math.min(chunk, n));
+  for (let start = 0; start < n; start += chunk) {
+    const length = Math.min(n, start + chunk) - start;
+    const ranked = rankInput(input, start, length, maxHalfWidth, workspace);
+    const medians =
+      length === buffers[0].length ? buffers : buffers.map((b) => b.subarray(0, length));
+    windows.forEach((w, i) => medianOfWindow(ranked, w, medians[i]));
+    take(start, medians);
+  }
 }
