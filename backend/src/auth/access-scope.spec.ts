@@ -32,16 +32,14 @@ describe('row scope in the query', () => {
       ['p2', 'S1', 'B'],
       ['p3', 'S2', 'C'],
     ]) {
-      await db
-        .getRepository(Participant)
-        .insert({
-          id,
-          studyId,
-          siteId,
-          code: `${id.toUpperCase()}-1`,
-          createdAt: at,
-          updatedAt: at,
-        });
+      await db.getRepository(Participant).insert({
+        id,
+        studyId,
+        siteId,
+        code: `${id.toUpperCase()}-1`,
+        createdAt: at,
+        updatedAt: at,
+      });
     }
   });
   afterAll(async () => {
