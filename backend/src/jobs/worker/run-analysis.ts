@@ -1,9 +1,10 @@
 import { createHash } from 'node:crypto';
-import { readFile } from 'node:fs/promises';
 import type { ChannelStatsDto, QualityDto } from '@gyre/shared';
-import { readEdf } from '../../signal/edf';
+import { normaliseChannelLabel } from '../../signal/channels';
+import type { EdfSignalHeader } from '../../signal/edf';
 import { analyzeRecording } from '../../signal/pipeline/analyze-recording';
 import type { AnalysisResult, OnsetResult } from '../../signal/pipeline/analysis.types';
+import { readEdfFile } from '../../signal/pipeline/read-edf-file';
 import type { AnalyzeOutcome, AnalyzeTask, ResultSeries, RunSummary } from './worker-tasks';
 
 /**
@@ -16,15 +17,21 @@ export async function runAnalysis(
   task: Omit<AnalyzeTask, 'progressPort'>,
   onProgress: (percent: number) => void,
 ): Promise<AnalyzeOutcome> {
-  const bytes = await readFile(task.filePath);
-  const actual = createHash('sha256').update(bytes).digest('hex');
+  // Streamed from disk: the file is hashed and decoded chunk by chunk, and only the
+  // channels the analysis uses are decoded (never the whole file in memory).
+  const hash = createHash('sha256');
+  const read = await readEdfFile(task.filePath, {
+    selectSignal: analysedSignals,
+    onChunk: (chunk) => hash.update(chunk),
+  });
+  const actual = hash.digest('hex');
   if (actual !== task.checksumSha256) {
     throw new Error(
       `stored file: SHA-256 ${actual} found, ${task.checksumSha256} expected (the file changed on disk)`,
     );
   }
   onProgress(2);
-  const recording = readEdf(bytes);
+  const recording = read.finish();
   onProgress(5);
   const { options } = task;
   const result = analyzeRecording(recording, {
@@ -46,6 +53,21 @@ export async function runAnalysis(
     onProgress: (fraction) => onProgress(5 + 94 * fraction),
   });
   return toOutcome(result, recording.warnings);
+}
+
+/**
+ * The signals `analyzeRecording` analyses: the 10-10 electrodes, or every signal when no
+ * label is one (decided from the header alone, before any sample is decoded).
+ */
+function analysedSignals(
+  signal: EdfSignalHeader,
+  _fileIndex: number,
+  all: readonly EdfSignalHeader[],
+): boolean {
+  return (
+    normaliseChannelLabel(signal.label) !== null ||
+    all.every((s) => normaliseChannelLabel(s.label) === null)
+  );
 }
 
 const copy = (values: ArrayLike<number>): Float64Array => Float64Array.from(values);

@@ -1,19 +1,23 @@
-import { readFile } from 'node:fs/promises';
 import { roiChannels } from '../../signal/channels';
-import { EdfFormatError, readEdf } from '../../signal/edf';
+import { EdfFormatError } from '../../signal/edf';
 import { OnsetCsvError, parseOnsetCsv } from '../../signal/onsets';
+import { readEdfFile } from '../../signal/pipeline/read-edf-file';
 import type { ValidateOutcome, ValidateTask } from './worker-tasks';
 
 /**
  * Reads the whole uploaded file with the signal core's EDF/EDF+ reader (every record,
- * every annotation) and the onset CSV against the recording's duration. Any problem
- * becomes a rejection carrying the reader's own message.
+ * every annotation; streamed, no samples kept) and the onset CSV against the
+ * recording's duration. Any problem becomes a rejection carrying the reader's own message.
  */
 export async function validateRecording(task: ValidateTask): Promise<ValidateOutcome> {
-  const bytes = await readFile(task.filePath);
+  // Streamed from disk with no signal decoded: every record and annotation is still
+  // checked, and digital values outside their range are still counted, without holding
+  // the file or its samples in memory.
+  const read = await readEdfFile(task.filePath, { selectSignal: () => false });
   try {
-    const recording = readEdf(bytes);
-    if (recording.signals.length === 0) {
+    const recording = read.finish();
+    const signals = read.ordinarySignals ?? [];
+    if (signals.length === 0) {
       return reject('signals', 'only annotation signals', 'at least one EEG signal');
     }
     let csvOnsets: Array<{ onsetS: number; label: string }> | null = null;
@@ -36,7 +40,7 @@ export async function validateRecording(task: ValidateTask): Promise<ValidateOut
         'stimulus onsets for a task recording (an onset_s,label CSV or EDF+ annotations)',
       );
     }
-    const labels = recording.signals.map((s) => s.label);
+    const labels = signals.map((s) => s.label);
     return {
       ok: true,
       facts: {
@@ -45,7 +49,7 @@ export async function validateRecording(task: ValidateTask): Promise<ValidateOut
         recordCount: recording.header.recordCount,
         recordDurationS: recording.header.recordDurationS,
         channelLabels: labels,
-        sampleRatesHz: recording.signals.map((s) => s.sampleRateHz),
+        sampleRatesHz: signals.map((s) => s.sampleRateHz),
         roiChannels: roiChannels(labels).map((c) => c.canonical),
         annotationCount: recording.annotations.length,
         csvOnsets,

@@ -1,0 +1,139 @@
+/**
+ * Peak memory of one analysis run by the server's worker code on a 64-channel,
+ * 60-minute, 500 Hz EDF+C task recording (~230 MB). Not a test: run by hand, one
+ * process per step, because peak RSS is per process.
+ *
+ *   cd backend && npx tsc -p tsconfig.build.json --outDir /tmp/gyre-memory
+ *   export NODE_PATH=$PWD/../node_modules   # fft.js, from outside the tree
+ *   node /tmp/gyre-memory/signal/bench/measure-analysis-memory.js generate /tmp/big.edf
+ *   node /tmp/gyre-memory/signal/bench/measure-analysis-memory.js whole-file /tmp/big.edf
+ *   node /tmp/gyre-memory/signal/bench/measure-analysis-memory.js streamed /tmp/big.edf
+ *   node /tmp/gyre-memory/signal/bench/measure-analysis-memory.js validate-whole-file /tmp/big.edf
+ *   node /tmp/gyre-memory/signal/bench/measure-analysis-memory.js validate-streamed /tmp/big.edf
+ *
+ * `whole-file` is the worker's former path (readFile, SHA-256, readEdf of the bytes,
+ * analyzeRecording); `streamed` is `runAnalysis` as the worker runs it now (hash and
+ * decode chunk by chunk from disk). The `validate-…` pair does the same for the upload
+ * check (`readEdf` of the bytes, or `validateRecording` streamed with no samples kept).
+ * The recording is generated test data.
+ */
+import { createHash } from 'node:crypto';
+import { createReadStream, readFileSync, writeFileSync } from 'node:fs';
+import { performance } from 'node:perf_hooks';
+import { runAnalysis, toOutcome } from '../../jobs/worker/run-analysis';
+import { validateRecording } from '../../jobs/worker/validate-recording';
+import type { ResolvedAnalysisOptions } from '../../jobs/worker/worker-tasks';
+import { readEdf } from '../edf/edf-reader';
+import { writeEdf } from '../edf/edf-writer';
+import { analyzeRecording } from '../pipeline/analyze-recording';
+import { syntheticTaskRecording } from '../synthetic/synthetic-eeg';
+
+/** 64 labels of the 10-10 system (ACNS 2016). */
+const LABELS_64 = (
+  'Fp1 Fpz Fp2 AF7 AF3 AFz AF4 AF8 F7 F5 F3 F1 Fz F2 F4 F6 F8 FT7 FC5 FC3 FC1 FCz FC2 FC4 ' +
+  'FC6 FT8 T7 C5 C3 C1 Cz C2 C4 C6 T8 TP7 CP5 CP3 CP1 CPz CP2 CP4 CP6 TP8 P7 P5 P3 P1 Pz ' +
+  'P2 P4 P6 P8 PO7 PO3 POz PO4 PO8 O1 Oz O2 Iz F9 F10'
+).split(' ');
+
+/** The worker's default settings (METHOD.md §2–§3 defaults). */
+const OPTIONS: ResolvedAnalysisOptions = {
+  bandHz: [8, 13],
+  method: 'filter',
+  morletCycles: 7,
+  epochWindowS: [-1, 2],
+  baselineWindowS: [-0.5, 0],
+  postWindowS: [0.2, 0.8],
+  rejectionThresholdUv: 100,
+  flagThresholdHz: -0.2,
+  roi: ['O1', 'O2', 'Oz', 'POz', 'PO3', 'PO4', 'PO7', 'PO8', 'Pz', 'P3', 'P4'],
+  onsetLabel: null,
+  bootstrapResamples: 2000,
+  bootstrapSeed: 1,
+};
+
+function generate(path: string): void {
+  const durationS = 60 * 60;
+  const onsetsS: number[] = [];
+  for (let t = 3; t < durationS - 3; t += 4) onsetsS.push(t);
+  const recording = syntheticTaskRecording({
+    sampleRateHz: 500,
+    durationS,
+    channelLabels: LABELS_64,
+    onsetsS,
+    seed: 42,
+  });
+  const bytes = writeEdf({
+    startDate: '2024-03-01T09:00:00',
+    signals: recording.signals.map((s) => ({
+      label: s.label,
+      sampleRateHz: 500,
+      physicalMin: -500,
+      physicalMax: 500,
+      samples: s.samples,
+    })),
+    annotations: recording.annotations,
+  });
+  writeFileSync(path, bytes);
+  console.log(`wrote ${path}: ${(bytes.byteLength / 2 ** 20).toFixed(1)} MiB`);
+}
+
+async function main(): Promise<void> {
+  const [mode, path] = process.argv.slice(2);
+  if (mode === 'generate') return generate(path);
+  // The checksum the run must find, hashed from a stream so it adds nothing to the peak.
+  const hash = createHash('sha256');
+  for await (const chunk of createReadStream(path)) hash.update(chunk as Buffer);
+  const checksum = hash.digest('hex');
+  const baseMb = process.memoryUsage().rss / 2 ** 20;
+  const t0 = performance.now();
+  let channels: number;
+  if (mode === 'whole-file') {
+    const bytes = readFileSync(path);
+    const actual = createHash('sha256').update(bytes).digest('hex');
+    if (actual !== checksum) throw new Error('checksum changed');
+    const recording = readEdf(bytes);
+    const result = analyzeRecording(recording, {
+      kind: 'task',
+      bandHz: OPTIONS.bandHz,
+      iafHz: (OPTIONS.bandHz[0] + OPTIONS.bandHz[1]) / 2,
+      method: 'plateau',
+      morletCycles: OPTIONS.morletCycles,
+      epochS: OPTIONS.epochWindowS,
+      baselineS: OPTIONS.baselineWindowS,
+      postS: OPTIONS.postWindowS,
+      amplitudeLimitUv: OPTIONS.rejectionThresholdUv,
+      bootstrapResamples: OPTIONS.bootstrapResamples,
+      bootstrapSeed: OPTIONS.bootstrapSeed,
+      slowingThresholdHz: OPTIONS.flagThresholdHz,
+      roiLabels: OPTIONS.roi,
+    });
+    channels = toOutcome(result, recording.warnings).summary.channels.length;
+  } else if (mode === 'streamed') {
+    const outcome = await runAnalysis(
+      { filePath: path, checksumSha256: checksum, kind: 'task', csvOnsets: null, options: OPTIONS },
+      () => undefined,
+    );
+    channels = outcome.summary.channels.length;
+  } else if (mode === 'validate-whole-file') {
+    channels = readEdf(readFileSync(path)).signals.length;
+  } else if (mode === 'validate-streamed') {
+    const outcome = await validateRecording({ filePath: path, kind: 'task', onsetsCsv: null });
+    channels = outcome.ok ? outcome.facts.channelLabels.length : 0;
+  } else {
+    throw new Error(
+      `mode: expected generate, whole-file, streamed, validate-whole-file or validate-streamed, got '${mode}'`,
+    );
+  }
+  const peakMb = process.resourceUsage().maxRSS / 1024;
+  console.log(
+    JSON.stringify({
+      mode,
+      channels,
+      seconds: Number(((performance.now() - t0) / 1000).toFixed(1)),
+      rssBeforeRunMb: Math.round(baseMb),
+      peakRssMb: Math.round(peakMb),
+    }),
+  );
+}
+
+void main();
