@@ -104,15 +104,22 @@ function measureGyre(path: string, checkPath: string): GyreMeasurement {
   const readEdfS = (performance.now() - t0) / 1000;
   const stages: Stages = { bandPassAnalytic: 0, frequency: 0, median: 0 };
   const workspace = new FrequencySlidingWorkspace();
+  // Caller-owned outputs, reused by every channel of the same length (no per-channel garbage).
+  let raw = new Float64Array(0);
+  let filtered = new Float64Array(0);
   recording.signals.forEach((signal, index) => {
     const options = sliderOptions(signal.sampleRateHz);
     const windows = medianWindowLengths({ sampleRateHz: signal.sampleRateHz });
+    if (raw.length !== signal.samples.length - 1) {
+      raw = new Float64Array(signal.samples.length - 1);
+      filtered = new Float64Array(signal.samples.length - 1);
+    }
     const a = performance.now();
     const z = narrowBandAnalytic(signal.samples, options, workspace);
     const b = performance.now();
-    const raw = phaseDifferenceFrequency(z, { sampleRateHz: signal.sampleRateHz });
+    phaseDifferenceFrequency(z, { sampleRateHz: signal.sampleRateHz }, raw);
     const c = performance.now();
-    const filtered = medianFilterFrequency(raw, windows, workspace);
+    medianFilterFrequency(raw, windows, workspace, filtered);
     const d = performance.now();
     stages.bandPassAnalytic += (b - a) / 1000;
     stages.frequency += (c - b) / 1000;

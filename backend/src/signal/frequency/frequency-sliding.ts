@@ -112,11 +112,20 @@ export function defaultEdgePaddingS(options: FrequencySlidingOptions): number {
 /** Buffers reused across the channels of one caller; never shared between concurrent calls. */
 export class FrequencySlidingWorkspace {
   analytic: AnalyticWorkspace | null = null;
+  private analyticOutput: ComplexSeries | null = null;
   readonly median = new RunningMedianWorkspace();
 
   analyticFor(size: number): AnalyticWorkspace {
     if (!this.analytic || this.analytic.size !== size) this.analytic = new AnalyticWorkspace(size);
     return this.analytic;
+  }
+
+  /** The analytic signal's output buffers for `n` samples, reused across channels. */
+  analyticOutputFor(n: number): ComplexSeries {
+    if (!this.analyticOutput || this.analyticOutput.re.length !== n) {
+      this.analyticOutput = { re: new Float64Array(n), im: new Float64Array(n) };
+    }
+    return this.analyticOutput;
   }
 }
 
@@ -166,7 +175,11 @@ export function frequencySliding(
   };
 }
 
-/** Step 1–2 of `frequencySliding`: the narrow-band analytic signal of one channel. */
+/**
+ * Step 1–2 of `frequencySliding`: the narrow-band analytic signal of one channel, in
+ * the workspace's buffers (overwritten by the next call with the same workspace), so
+ * that a channel loop allocates nothing per channel.
+ */
 export function narrowBandAnalytic(
   samples: Float32Array | Float64Array,
   options: FrequencySlidingOptions,
@@ -180,6 +193,7 @@ export function narrowBandAnalytic(
     samples,
     { sampleRateHz: fs, weight: narrowBandWeight(options), edgePaddingSamples: padding },
     workspace.analyticFor(size),
+    workspace.analyticOutputFor(samples.length),
   );
 }
 
