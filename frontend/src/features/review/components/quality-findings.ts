@@ -15,6 +15,21 @@ const rates = (ratesHz: number[]) => {
   return distinct.length === 0 ? '—' : distinct.map((r) => `${r.toFixed(0)} Hz`).join(', ');
 };
 
+/** Mains power this many times its neighbours' is worth a look (common practice). */
+export const LINE_NOISE_WARNING_RATIO = 10;
+
+function lineNoiseWarning(quality: QualityDto): string | null {
+  const worst = [
+    [50, quality.lineNoiseRatio50Hz],
+    [60, quality.lineNoiseRatio60Hz],
+  ].filter(
+    (entry): entry is [number, number] => entry[1] !== null && entry[1] >= LINE_NOISE_WARNING_RATIO,
+  );
+  if (worst.length === 0) return null;
+  const [lineHz, value] = worst.sort((a, b) => b[1] - a[1])[0];
+  return `Strong mains noise at ${lineHz} Hz (${value.toFixed(1)} times the neighbouring power): the alpha band-pass removes it, but it often means poor electrode contact or ungrounded equipment.`;
+}
+
 /**
  * The quality checks of METHOD.md §6 in plain words. The limits that turn a value into a
  * warning are common practice for reviewing alpha recordings, not published rules; the
@@ -72,7 +87,7 @@ export function qualityFindings(quality: QualityDto, kind: 'task' | 'resting'): 
     {
       check: 'Line noise (50 Hz / 60 Hz)',
       value: `${ratio(quality.lineNoiseRatio50Hz)} / ${ratio(quality.lineNoiseRatio60Hz)} (median power ratio over channels)`,
-      warning: null,
+      warning: lineNoiseWarning(quality),
     },
   ];
   if (kind === 'task') {
