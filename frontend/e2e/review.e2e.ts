@@ -1,5 +1,3 @@
-import { createRequire } from 'node:module';
-import { join, resolve } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type {
@@ -20,42 +18,12 @@ import {
   inviteAndAccept,
   signInApi,
 } from './support/accounts';
+import { edfWriter, seededNoise } from './support/edf-files';
 import { openBrowser, screenshot, watchConsole } from './support/browser';
 import { startGyre, type RunningGyre } from './support/gyre-server';
 
-const require = createRequire(import.meta.url);
-const REPO_ROOT = resolve(import.meta.dirname, '..', '..');
-
-interface EdfWriter {
-  writeEdf(spec: {
-    format?: 'EDF+C';
-    startDate: string;
-    signals: Array<{
-      label: string;
-      sampleRateHz: number;
-      physicalMin: number;
-      physicalMax: number;
-      samples: Float32Array;
-    }>;
-    annotations?: Array<{ onsetS: number; durationS: number | null; text: string }>;
-  }): Uint8Array;
-}
-
-/** The signal core's own EDF+ writer (Kemp & Olivan 2003), as built in backend/dist. */
-const edfWriter = () =>
-  require(join(REPO_ROOT, 'backend', 'dist', 'signal', 'edf', 'edf-writer.js')) as EdfWriter;
-
 const SAMPLE_RATE_HZ = 256;
 const CHANNELS = ['O1', 'O2', 'Oz', 'Pz', 'P3', 'P4'];
-
-function seededNoise(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    // Numerical Recipes' LCG constants (from memory), scaled to −1..1.
-    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
-    return state / 2 ** 31 - 1;
-  };
-}
 
 /**
  * Generated test data: 20 µV alpha on six posterior 10-10 channels over ±3 µV noise. Its

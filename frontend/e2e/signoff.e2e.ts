@@ -1,7 +1,6 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type {
@@ -23,30 +22,9 @@ import {
   inviteAndAccept,
   signInApi,
 } from './support/accounts';
+import { edfWriter } from './support/edf-files';
 import { openBrowser, screenshot, watchConsole } from './support/browser';
 import { startGyre, type RunningGyre } from './support/gyre-server';
-
-const require = createRequire(import.meta.url);
-const REPO_ROOT = resolve(import.meta.dirname, '..', '..');
-
-interface EdfWriter {
-  writeEdf(spec: {
-    format?: 'EDF+C';
-    startDate: string;
-    signals: Array<{
-      label: string;
-      sampleRateHz: number;
-      physicalMin: number;
-      physicalMax: number;
-      samples: Float32Array;
-    }>;
-    annotations?: Array<{ onsetS: number; durationS: number | null; text: string }>;
-  }): Uint8Array;
-}
-
-/** The signal core's own EDF+ writer (Kemp & Olivan 2003), as built in backend/dist. */
-const edfWriter = () =>
-  require(join(REPO_ROOT, 'backend', 'dist', 'signal', 'edf', 'edf-writer.js')) as EdfWriter;
 
 const SAMPLE_RATE_HZ = 256;
 

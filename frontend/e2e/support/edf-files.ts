@@ -17,16 +17,17 @@ interface EdfWriter {
     format?: 'EDF' | 'EDF+C';
     startDate: string;
     signals: EdfWriteSignal[];
+    annotations?: Array<{ onsetS: number; durationS: number | null; text: string }>;
   }): Uint8Array;
 }
 
 /** The signal core's own EDF/EDF+ writer (Kemp et al. 1992; Kemp & Olivan 2003), as built. */
-function edfWriter(): EdfWriter {
+export function edfWriter(): EdfWriter {
   return require(join(REPO_ROOT, 'backend', 'dist', 'signal', 'edf', 'edf-writer.js')) as EdfWriter;
 }
 
 /** A small deterministic generator, so every run writes the same bytes. */
-function seededNoise(seed: number): () => number {
+export function seededNoise(seed: number): () => number {
   let state = seed >>> 0;
   return () => {
     // Numerical Recipes' LCG constants (from memory), scaled to −1..1.
