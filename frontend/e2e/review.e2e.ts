@@ -19,6 +19,7 @@ import {
   signInApi,
 } from './support/accounts';
 import { edfWriter, seededNoise } from './support/edf-files';
+import { signInThroughPage } from './support/sign-in-page';
 import { openBrowser, screenshot, watchConsole } from './support/browser';
 import { startGyre, type RunningGyre } from './support/gyre-server';
 
@@ -120,19 +121,8 @@ describe('Review and Participants in Chromium, on a real server', () => {
     }
   }
 
-  /**
-   * Signs in on the sign-in page and lets it bring the user on to `next` (a full page load
-   * would drop the in-memory access token; the product's own return path keeps it).
-   */
-  async function signIn(page: Page, email: string, next: string): Promise<void> {
-    await page.goto(`${gyre.baseUrl}/sign-in?next=${encodeURIComponent(next)}`, {
-      waitUntil: 'networkidle',
-    });
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password', { exact: true }).fill(E2E_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL((url) => url.pathname === next);
-  }
+  const signIn = (page: Page, email: string, next: string) =>
+    signInThroughPage(page, gyre.baseUrl, email, next);
 
   /** Pixels of a canvas that are drawn on (alpha > 0), read back from the page. */
   async function drawnPixels(page: Page, figure: string): Promise<number> {

@@ -23,6 +23,7 @@ import {
   signInApi,
 } from './support/accounts';
 import { edfWriter } from './support/edf-files';
+import { signInThroughPage } from './support/sign-in-page';
 import { openBrowser, screenshot, watchConsole } from './support/browser';
 import { startGyre, type RunningGyre } from './support/gyre-server';
 
@@ -112,17 +113,8 @@ describe('Report sign-off in Chromium, on a real server', () => {
     }
   }
 
-  /** Signs in on the sign-in page, which brings the user on to `next` (path and query). */
-  async function signIn(page: Page, email: string, next: string): Promise<void> {
-    await page.goto(`${gyre.baseUrl}/sign-in?next=${encodeURIComponent(next)}`, {
-      waitUntil: 'networkidle',
-    });
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password', { exact: true }).fill(E2E_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    const path = next.split('?')[0];
-    await page.waitForURL((url) => url.pathname === path);
-  }
+  const signIn = (page: Page, email: string, next: string) =>
+    signInThroughPage(page, gyre.baseUrl, email, next);
 
   beforeAll(async () => {
     gyre = await startGyre();
