@@ -1,5 +1,6 @@
 // Compiles the demo seeder (seed/ → seed/dist/) when its output is older than its sources.
-// The seeder reuses the backend's EDF writer, so backend/src/signal/edf counts as a source.
+// The seeder uses the signal core's public API (`@gyre/backend/signal`, from backend/dist: build
+// the backend first, as `npm run seed` does), so its sources and the package entry count too.
 import { execFileSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
@@ -10,7 +11,8 @@ const INPUTS = [
   'seed/src',
   'seed/tsconfig.json',
   'seed/tsconfig.build.json',
-  'backend/src/signal/edf',
+  'backend/src/signal',
+  'backend/package.json',
 ];
 
 function newestMtime(path) {

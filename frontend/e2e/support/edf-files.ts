@@ -1,9 +1,8 @@
 import { writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 
 const require = createRequire(import.meta.url);
-const REPO_ROOT = resolve(import.meta.dirname, '..', '..', '..');
 
 interface EdfWriteSignal {
   label: string;
@@ -21,9 +20,12 @@ interface EdfWriter {
   }): Uint8Array;
 }
 
-/** The signal core's own EDF/EDF+ writer (Kemp et al. 1992; Kemp & Olivan 2003), as built. */
+/**
+ * The signal core's own EDF/EDF+ writer (Kemp et al. 1992; Kemp & Olivan 2003), through its
+ * public entry `@gyre/backend/signal` as built (CommonJS, hence `require`).
+ */
 export function edfWriter(): EdfWriter {
-  return require(join(REPO_ROOT, 'backend', 'dist', 'signal', 'edf', 'edf-writer.js')) as EdfWriter;
+  return require('@gyre/backend/signal') as EdfWriter;
 }
 
 /** A small deterministic generator, so every run writes the same bytes. */

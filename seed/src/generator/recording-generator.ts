@@ -11,8 +11,8 @@
  * - eye-blink-like deflections, scaled by the electrode's blink gain;
  * - 50 Hz line noise.
  */
-import { writeEdf } from '../../../backend/src/signal/edf/edf-writer';
-import type { EdfAnnotation } from '../../../backend/src/signal/edf/edf.types';
+import { writeEdf } from '@gyre/backend/signal';
+import type { EdfAnnotation } from '@gyre/backend/signal';
 import { frequencyTrack, phaseFromFrequency } from './alpha-rhythm';
 import { addPinkNoise, fillSlowNoise } from './background-noise';
 import { addBlinks, Blink, BLINK_DURATION_S } from './eye-blinks';

@@ -1,6 +1,12 @@
 import { roiChannels } from '../../signal/channels';
 import { EdfFormatError } from '../../signal/edf';
-import { OnsetCsvError, parseOnsetCsv } from '../../signal/onsets';
+import {
+  artefactRegExp,
+  OnsetCsvError,
+  parseOnsetCsv,
+  stimulusAnnotations,
+} from '../../signal/onsets';
+import { DEFAULT_ANALYSIS_COMPUTATION } from '../../signal/pipeline/analysis-computation';
 import { readEdfFile } from '../../signal/pipeline/read-edf-file';
 import type { ValidateOutcome, ValidateTask } from './worker-tasks';
 
@@ -8,6 +14,9 @@ import type { ValidateOutcome, ValidateTask } from './worker-tasks';
  * Reads the whole uploaded file with the signal core's EDF/EDF+ reader (every record,
  * every annotation; streamed, no samples kept) and the onset CSV against the
  * recording's duration. Any problem becomes a rejection carrying the reader's own message.
+ * Whether the file fits the kind chosen (stimulus onsets for a task, none for a resting
+ * recording) is not decided here: the facts carry `stimulusOnsetCount` and the upload
+ * asks the technician to confirm a mismatch.
  */
 export async function validateRecording(task: ValidateTask): Promise<ValidateOutcome> {
   // Streamed from disk with no signal decoded: every record and annotation is still
@@ -33,13 +42,12 @@ export async function validateRecording(task: ValidateTask): Promise<ValidateOut
       if (parsed.length === 0) return reject('onsets', 'no onset rows', 'at least one onset');
       csvOnsets = parsed.map((o) => ({ onsetS: o.onsetS, label: o.label }));
     }
-    if (task.kind === 'task' && csvOnsets === null && recording.annotations.length === 0) {
-      return reject(
-        'onsets',
-        'no onset CSV and no EDF+ annotations',
-        'stimulus onsets for a task recording (an onset_s,label CSV or EDF+ annotations)',
-      );
-    }
+    // The analysis's own rule for which annotations are stimuli, so both count the same.
+    const artefact = artefactRegExp(DEFAULT_ANALYSIS_COMPUTATION.artefactPattern) as RegExp;
+    const stimulusOnsetCount =
+      csvOnsets !== null
+        ? csvOnsets.length
+        : stimulusAnnotations(recording.annotations, artefact).length;
     const labels = signals.map((s) => s.label);
     return {
       ok: true,
@@ -52,6 +60,7 @@ export async function validateRecording(task: ValidateTask): Promise<ValidateOut
         sampleRatesHz: signals.map((s) => s.sampleRateHz),
         roiChannels: roiChannels(labels).map((c) => c.canonical),
         annotationCount: recording.annotations.length,
+        stimulusOnsetCount,
         csvOnsets,
         warnings: recording.warnings,
       },

@@ -26,10 +26,10 @@ import {
   medianFilterFrequency,
   medianWindowLengths,
   narrowBandAnalytic,
-  resolveBandHz,
 } from '../frequency/frequency-sliding';
 import { phaseDifferenceFrequency } from '../frequency/instantaneous-frequency';
 import { DEFAULT_TRANSITION_FRACTION } from '../frequency/spectral-weights';
+import { DEFAULT_ANALYSIS_SETTINGS, resolveAnalysisBand } from '../pipeline/analysis-settings';
 import { syntheticTaskRecording } from '../synthetic/synthetic-eeg';
 
 /** 64 labels of the 10-10 system (ACNS 2016). */
@@ -67,8 +67,11 @@ function argument(name: string, fallback: string): string {
   return i >= 0 && process.argv[i + 1] !== undefined ? process.argv[i + 1] : fallback;
 }
 
+/** Gyre's default settings without a resting IAF: the band every new study starts with. */
+const BENCH_BAND_HZ = resolveAnalysisBand(DEFAULT_ANALYSIS_SETTINGS, null).bandHz;
+
 function sliderOptions(fs: number): FrequencySlidingOptions {
-  return { sampleRateHz: fs, bandHz: [8, 13] };
+  return { sampleRateHz: fs, bandHz: BENCH_BAND_HZ };
 }
 
 /** Child process 1: generate the recording and write the EDF+ file. */
@@ -173,7 +176,7 @@ function runCase(minutes: number, channels: number, fs: number, dir: string, rep
     `\n${channels} channels × ${minutes} min at ${fs} Hz (generated, written in ${((performance.now() - w0) / 1000).toFixed(1)} s)`,
   );
   const options = sliderOptions(fs);
-  const band = resolveBandHz(options);
+  const band = options.bandHz;
   const runScipy = (): ScipyMeasurement => {
     const python = spawnSync(
       'python3',

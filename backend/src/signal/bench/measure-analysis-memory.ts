@@ -11,21 +11,25 @@
  *   node /tmp/gyre-memory/signal/bench/measure-analysis-memory.js validate-whole-file /tmp/big.edf
  *   node /tmp/gyre-memory/signal/bench/measure-analysis-memory.js validate-streamed /tmp/big.edf
  *
- * `whole-file` is the worker's former path (readFile, SHA-256, readEdf of the bytes,
- * analyzeRecording); `streamed` is `runAnalysis` as the worker runs it now (hash and
- * decode chunk by chunk from disk). The `validate-…` pair does the same for the upload
- * check (`readEdf` of the bytes, or `validateRecording` streamed with no samples kept).
- * The recording is generated test data.
+ * `whole-file` is the worker's former path (readFile, SHA-256, readEdf of the bytes, then
+ * the analysis); `streamed` is the path the worker runs now (`readRecordingForAnalysis`:
+ * hash and decode chunk by chunk from disk, then `analyzeEdfRecording`). The `validate-…`
+ * pair does the same for the upload check (`readEdf` of the bytes, or `readEdfFile`
+ * streamed with no signal decoded, as the worker's validation reads). Both use Gyre's
+ * default settings without an IAF. The recording is generated test data.
  */
 import { createHash } from 'node:crypto';
 import { createReadStream, readFileSync, writeFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
-import { runAnalysis, toOutcome } from '../../jobs/worker/run-analysis';
-import { validateRecording } from '../../jobs/worker/validate-recording';
-import type { ResolvedAnalysisOptions } from '../../jobs/worker/worker-tasks';
 import { readEdf } from '../edf/edf-reader';
 import { writeEdf } from '../edf/edf-writer';
-import { analyzeRecording } from '../pipeline/analyze-recording';
+import { DEFAULT_ANALYSIS_SETTINGS } from '../pipeline/analysis-settings';
+import {
+  AnalysisRunRequest,
+  analyzeEdfRecording,
+  readRecordingForAnalysis,
+} from '../pipeline/analyze-edf-recording';
+import { readEdfFile } from '../pipeline/read-edf-file';
 import { syntheticTaskRecording } from '../synthetic/synthetic-eeg';
 
 /** 64 labels of the 10-10 system (ACNS 2016). */
@@ -35,20 +39,12 @@ const LABELS_64 = (
   'P2 P4 P6 P8 PO7 PO3 POz PO4 PO8 O1 Oz O2 Iz F9 F10'
 ).split(' ');
 
-/** The worker's default settings (METHOD.md §2–§3 defaults). */
-const OPTIONS: ResolvedAnalysisOptions = {
-  bandHz: [8, 13],
-  method: 'filter',
-  morletCycles: 7,
-  epochWindowS: [-1, 2],
-  baselineWindowS: [-0.5, 0],
-  postWindowS: [0.2, 0.8],
-  rejectionThresholdUv: 100,
-  flagThresholdHz: -0.2,
-  roi: ['O1', 'O2', 'Oz', 'POz', 'PO3', 'PO4', 'PO7', 'PO8', 'Pz', 'P3', 'P4'],
-  onsetLabel: null,
-  bootstrapResamples: 2000,
-  bootstrapSeed: 1,
+/** A task run with Gyre's default settings and no resting IAF (band 8–13 Hz). */
+const REQUEST: AnalysisRunRequest = {
+  kind: 'task',
+  settings: DEFAULT_ANALYSIS_SETTINGS,
+  iafHz: null,
+  onsets: null,
 };
 
 function generate(path: string): void {
@@ -92,33 +88,21 @@ async function main(): Promise<void> {
     const actual = createHash('sha256').update(bytes).digest('hex');
     if (actual !== checksum) throw new Error('checksum changed');
     const recording = readEdf(bytes);
-    const result = analyzeRecording(recording, {
-      kind: 'task',
-      bandHz: OPTIONS.bandHz,
-      iafHz: (OPTIONS.bandHz[0] + OPTIONS.bandHz[1]) / 2,
-      method: 'plateau',
-      morletCycles: OPTIONS.morletCycles,
-      epochS: OPTIONS.epochWindowS,
-      baselineS: OPTIONS.baselineWindowS,
-      postS: OPTIONS.postWindowS,
-      amplitudeLimitUv: OPTIONS.rejectionThresholdUv,
-      bootstrapResamples: OPTIONS.bootstrapResamples,
-      bootstrapSeed: OPTIONS.bootstrapSeed,
-      slowingThresholdHz: OPTIONS.flagThresholdHz,
-      roiLabels: OPTIONS.roi,
-    });
-    channels = toOutcome(result, recording.warnings).summary.channels.length;
+    channels = analyzeEdfRecording(recording, REQUEST).outcome.summary.channels.length;
   } else if (mode === 'streamed') {
-    const outcome = await runAnalysis(
-      { filePath: path, checksumSha256: checksum, kind: 'task', csvOnsets: null, options: OPTIONS },
-      () => undefined,
-    );
+    const streamHash = createHash('sha256');
+    const read = await readRecordingForAnalysis(path, {
+      onChunk: (chunk) => streamHash.update(chunk),
+    });
+    if (streamHash.digest('hex') !== checksum) throw new Error('checksum changed');
+    const outcome = analyzeEdfRecording(read.finish(), REQUEST).outcome;
     channels = outcome.summary.channels.length;
   } else if (mode === 'validate-whole-file') {
     channels = readEdf(readFileSync(path)).signals.length;
   } else if (mode === 'validate-streamed') {
-    const outcome = await validateRecording({ filePath: path, kind: 'task', onsetsCsv: null });
-    channels = outcome.ok ? outcome.facts.channelLabels.length : 0;
+    const read = await readEdfFile(path, { selectSignal: () => false });
+    read.finish();
+    channels = read.ordinarySignals?.length ?? 0;
   } else {
     throw new Error(
       `mode: expected generate, whole-file, streamed, validate-whole-file or validate-streamed, got '${mode}'`,

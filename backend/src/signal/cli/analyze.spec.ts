@@ -2,11 +2,23 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { writeEdf } from '../edf/edf-writer';
+import { bootstrapMeanInterval } from '../onset/onset-statistics';
+import { BOOTSTRAP_RESAMPLES, BOOTSTRAP_SEED } from '../pipeline/analysis-settings';
+import type { RunSummary } from '../pipeline/run-summary';
 import { syntheticTaskRecording } from '../synthetic/synthetic-eeg';
 import { main } from './analyze';
 
+interface Report {
+  kind: string;
+  iafHz: number | null;
+  settings: { bandHz: number[] | null; method: string; roi: string[]; onsetLabel: string | null };
+  computation: { bootstrapSeed: number; morletCentreHz: number | null };
+  summary: RunSummary;
+  series?: Record<string, (number | null)[]>;
+}
+
 /** Runs the CLI in-process and captures what it writes. */
-function run(argv: string[]): { code: number; stdout: string; stderr: string } {
+async function run(argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
   let stdout = '';
   let stderr = '';
   const out = jest.spyOn(process.stdout, 'write').mockImplementation((chunk) => {
@@ -18,18 +30,25 @@ function run(argv: string[]): { code: number; stdout: string; stderr: string } {
     return true;
   });
   try {
-    return { code: main(argv), stdout, stderr };
+    return { code: await main(argv), stdout, stderr };
   } finally {
     out.mockRestore();
     err.mockRestore();
   }
 }
 
+async function report(argv: string[]): Promise<Report> {
+  const { code, stdout, stderr } = await run(argv);
+  if (code !== 0) throw new Error(`analyze exited with ${code}: ${stderr}`);
+  return JSON.parse(stdout) as Report;
+}
+
 describe('analyze CLI', () => {
   const dir = mkdtempSync(join(tmpdir(), 'gyre-cli-'));
   afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-  // Generated EDF+ task recording (Δf = −0.6 Hz by construction), written to the spec.
+  // Generated EDF+ task recording, written to the spec: the frequency is 10 Hz, and 9.4 Hz
+  // from +0.2 to +0.8 s after each onset, so Δf = −0.6 Hz by construction.
   const onsetsS = Array.from({ length: 20 }, (_, i) => 3 + 4 * i);
   const recording = syntheticTaskRecording({
     sampleRateHz: 250,
@@ -38,9 +57,11 @@ describe('analyze CLI', () => {
     onsetsS,
     seed: 5,
   });
-  const annotations = [
-    ...onsetsS.map((t, i) => ({ onsetS: t, durationS: null, text: i % 2 === 0 ? 'go' : 'nogo' })),
-  ];
+  const annotations = onsetsS.map((t, i) => ({
+    onsetS: t,
+    durationS: null,
+    text: i % 2 === 0 ? 'go' : 'nogo',
+  }));
   const edfPath = join(dir, 'task.edf');
   writeFileSync(
     edfPath,
@@ -57,35 +78,45 @@ describe('analyze CLI', () => {
     }),
   );
 
-  it('prints the task summary as JSON', () => {
-    const { code, stdout } = run([edfPath]);
-    expect(code).toBe(0);
-    const report = JSON.parse(stdout) as {
-      kind: string;
-      channels: {
-        label: string;
-        deltaHz: number;
-        ci95Hz: number[];
-        p: number;
-        trialsKept: number;
-      }[];
-      roi: { deltaHz: number; trialsKept: number; trialsDropped: number };
-      rest: unknown;
-      qc: { sampleRatesHz: number[] };
-    };
-    expect(report.kind).toBe('task');
-    expect(report.channels.map((c) => c.label)).toEqual(['EEG O1-REF', 'EEG O2-REF', 'EEG Cz-REF']);
-    expect(report.roi.trialsKept).toBe(20);
-    expect(Math.abs(report.roi.deltaHz + 0.6)).toBeLessThan(0.05);
-    expect(report.channels[0].ci95Hz).toHaveLength(2);
-    expect(report.qc.sampleRatesHz).toEqual([250]);
+  it('prints the task RunSummary as JSON, Δf near the generated −0.6 Hz', async () => {
+    const r = await report([edfPath]);
+    expect(r.kind).toBe('task');
+    expect(r.summary.channels.map((c) => c.label)).toEqual([
+      'EEG O1-REF',
+      'EEG O2-REF',
+      'EEG Cz-REF',
+    ]);
+    expect(r.summary.channels.map((c) => c.inRoi)).toEqual([true, true, false]);
+    expect(r.summary.roi?.trialsKept).toBe(20);
+    expect(Math.abs((r.summary.roi?.deltaFHz as number) + 0.6)).toBeLessThan(0.05);
+    expect(r.summary.roi?.ciHz).toHaveLength(2);
+    expect(r.summary.task?.trialOnsetsS).toEqual(onsetsS);
+    expect(r.summary.quality.sampleRatesHz).toEqual([250]);
+    expect(r.summary.bandHz).toEqual([8, 13]);
+    expect(r.summary.bandSource).toBe('default');
+    expect(r.summary.roiUsage.used).toEqual(['EEG O1-REF', 'EEG O2-REF']);
+    // Default region: the posterior names the montage lacks are no doubt about the number.
+    expect(r.summary.roiUsage.status).toBe('complete');
   });
 
-  it('chooses onsets by label and from a CSV', () => {
-    const byLabel = JSON.parse(run([edfPath, '--onset-label', 'go']).stdout) as {
-      roi: { trialsKept: number };
-    };
-    expect(byLabel.roi.trialsKept).toBe(10);
+  it('bootstraps with the seed every caller uses', async () => {
+    const r = await report([edfPath, '--full']);
+    expect(r.computation.bootstrapSeed).toBe(BOOTSTRAP_SEED);
+    // The printed interval is the percentile bootstrap of the printed trial Δf values with
+    // the shared seed and resamples (Efron & Tibshirani 1993).
+    const trials = (r.series?.trialDeltaFHz ?? []) as number[];
+    expect(trials).toHaveLength(20);
+    expect(r.summary.roi?.ciHz).toEqual(
+      bootstrapMeanInterval(trials, { seed: BOOTSTRAP_SEED, resamples: BOOTSTRAP_RESAMPLES }),
+    );
+    expect(r.summary.roi?.ciHz).not.toEqual(
+      bootstrapMeanInterval(trials, { seed: 1, resamples: BOOTSTRAP_RESAMPLES }),
+    );
+  });
+
+  it('chooses onsets by label and from a CSV', async () => {
+    const byLabel = await report([edfPath, '--onset-label', 'go']);
+    expect(byLabel.summary.roi?.trialsKept).toBe(10);
     const csvPath = join(dir, 'onsets.csv');
     writeFileSync(
       csvPath,
@@ -95,27 +126,65 @@ describe('analyze CLI', () => {
           .map((t) => `${t},cue`)
           .join('\n'),
     );
-    const fromCsv = JSON.parse(run([edfPath, '--onsets', csvPath, '--band', '8,13']).stdout) as {
-      roi: { trialsKept: number };
-      settings: { bandHz: number[] };
-    };
-    expect(fromCsv.roi.trialsKept).toBe(5);
-    expect(fromCsv.settings.bandHz).toEqual([8, 13]);
+    const fromCsv = await report([edfPath, '--onsets', csvPath]);
+    expect(fromCsv.summary.roi?.trialsKept).toBe(5);
   });
 
-  it('exits non-zero with the reader message for a bad file', () => {
+  it('takes the band from --band, else from --iaf (IAF ± 2 Hz)', async () => {
+    const banded = await report([edfPath, '--band', '7.5,12.5', '--iaf', '10']);
+    expect(banded.summary.bandHz).toEqual([7.5, 12.5]);
+    expect(banded.summary.bandSource).toBe('settings');
+    const byIaf = await report([edfPath, '--iaf', '9.6', '--method', 'morlet']);
+    expect(byIaf.summary.bandHz).toEqual([7.6, 11.6]);
+    expect(byIaf.summary.bandSource).toBe('iaf');
+    expect(byIaf.computation.morletCentreHz).toBe(9.6);
+  });
+
+  it('reads a settings file, then the single flags over it', async () => {
+    const settingsPath = join(dir, 'settings.json');
+    writeFileSync(settingsPath, JSON.stringify({ roi: ['Cz'], bandHz: [8, 12] }));
+    const r = await report([edfPath, '--settings', settingsPath, '--band', '8,13']);
+    expect(r.settings.roi).toEqual(['Cz']);
+    expect(r.summary.bandHz).toEqual([8, 13]);
+    expect(r.summary.roiUsage).toEqual({
+      wanted: ['Cz'],
+      used: ['EEG Cz-REF'],
+      leftOut: [],
+      status: 'complete',
+    });
+    expect((await report([edfPath, '--roi', 'O1'])).summary.roi?.deltaFHz).toBe(
+      (await report([edfPath, '--roi', 'O1', '--kind', 'task'])).summary.channels[0].deltaFHz,
+    );
+  });
+
+  it('reads a resting recording as such with --kind resting', async () => {
+    const r = await report([edfPath, '--kind', 'resting']);
+    expect(r.kind).toBe('rest');
+    expect(r.summary.roi).toBeNull();
+    expect(r.summary.rest?.alphaWindowHz).toEqual([7, 13]);
+  });
+
+  it('exits 1 with the reader message for a bad file', async () => {
     const badPath = join(dir, 'bad.edf');
     writeFileSync(badPath, Buffer.from('not an EDF file at all'));
-    const { code, stdout, stderr } = run([badPath]);
+    const { code, stdout, stderr } = await run([badPath]);
     expect(code).toBe(1);
     expect(stdout).toBe('');
     expect(stderr).toMatch(/^analyze: .+ found, .+ expected/);
   });
 
-  it('exits non-zero for a task without onsets and for a bad option', () => {
-    expect(run([edfPath, '--onset-label', 'absent', '--kind', 'task']).code).toBe(1);
-    const bad = run([edfPath, '--band', '13']);
+  it('exits 1 for a task without onsets, 2 for a bad option', async () => {
+    expect((await run([edfPath, '--onset-label', 'absent', '--kind', 'task'])).code).toBe(1);
+    const bad = await run([edfPath, '--band', '13']);
     expect(bad.code).toBe(2);
     expect(bad.stderr).toMatch(/--band: expected 2 number/);
+    const oldMethod = await run([edfPath, '--method', 'plateau']);
+    expect(oldMethod.code).toBe(2);
+    expect(oldMethod.stderr).toMatch(/--method: expected filter or morlet, got "plateau"/);
+    const settingsPath = join(dir, 'unknown.json');
+    writeFileSync(settingsPath, JSON.stringify({ epochS: [-1, 2] }));
+    const unknown = await run([edfPath, '--settings', settingsPath]);
+    expect(unknown.code).toBe(2);
+    expect(unknown.stderr).toMatch(/unknown setting\(s\) epochS/);
   });
 });

@@ -2,29 +2,46 @@
  * Command-line analysis of one recording, printing JSON on stdout:
  *
  *   npm run analyze -- FILE.edf [--onsets FILE.csv] [--onset-label TEXT]
- *                      [--kind task|rest] [--band LO,HI] [--iaf HZ] [--method plateau|morlet] [--full]
+ *     [--kind task|resting|auto] [--iaf HZ] [--band LO,HI] [--method filter|morlet]
+ *     [--roi NAME,NAME,…] [--settings FILE.json] [--full]
  *
+ * The settings start as Gyre's defaults (`DEFAULT_ANALYSIS_SETTINGS`), then the fields of
+ * `--settings` (a JSON object with `AnalysisSettings` fields, e.g. a study's settings version),
+ * then the single flags. `--iaf` is the visit's resting IAF: without a fixed band the band is
+ * IAF ± 2 Hz. The run takes the worker's own path (`analyzeEdfRecording`), so `summary` is the
+ * `RunSummary` the server stores, to the bit, for the same file, settings and IAF.
  * Without --onset-label every annotation (time-keeping and artefact annotations aside)
  * counts as an onset. Without --kind the kind is inferred: onsets present → task.
- * A bad file or option ends with exit code 1 and the reason on stderr.
+ * A bad file or setting ends with exit code 1, a bad option with 2; the reason on stderr.
  */
 import { readFileSync } from 'node:fs';
 import { EdfFormatError } from '../edf/edf-format-error';
-import { readEdf } from '../edf/edf-reader';
 import { OnsetCsvError, parseOnsetCsv } from '../onsets/onset-csv';
-import { analyzeRecording, AnalysisInputError } from '../pipeline/analyze-recording';
-import { AnalysisOptions, AnalysisResult, OnsetResult } from '../pipeline/analysis.types';
+import {
+  AnalysisSettings,
+  copyAnalysisSettings,
+  DEFAULT_ANALYSIS_SETTINGS,
+} from '../pipeline/analysis-settings';
+import type { OnsetInput, RecordingKindChoice } from '../pipeline/analysis.types';
+import { analyzeEdfRecording, readRecordingForAnalysis } from '../pipeline/analyze-edf-recording';
+import { AnalysisInputError } from '../pipeline/analyze-recording';
+import type { EdfFileRead } from '../pipeline/read-edf-file';
 
 class UsageError extends Error {}
 
 const USAGE =
-  'usage: analyze FILE.edf [--onsets FILE.csv] [--onset-label TEXT] [--kind task|rest] ' +
-  '[--band LO,HI] [--iaf HZ] [--method plateau|morlet] [--full]';
+  'usage: analyze FILE.edf [--onsets FILE.csv] [--onset-label TEXT] [--kind task|resting|auto] ' +
+  '[--iaf HZ] [--band LO,HI] [--method filter|morlet] [--roi NAME,NAME,…] ' +
+  '[--settings FILE.json] [--full]';
 
-interface CliArguments {
+export interface CliArguments {
   file: string;
   onsetsFile: string | null;
-  options: AnalysisOptions;
+  settingsFile: string | null;
+  kind: RecordingKindChoice;
+  iafHz: number | null;
+  /** Single flags, applied over the defaults and the settings file. */
+  overrides: Partial<AnalysisSettings>;
   full: boolean;
 }
 
@@ -38,9 +55,14 @@ function parseNumberList(flag: string, text: string, count: number): number[] {
 
 export function parseArguments(argv: readonly string[]): CliArguments {
   let file: string | null = null;
-  let onsetsFile: string | null = null;
-  let full = false;
-  const options: AnalysisOptions = {};
+  const args: Omit<CliArguments, 'file'> = {
+    onsetsFile: null,
+    settingsFile: null,
+    kind: 'auto',
+    iafHz: null,
+    overrides: {},
+    full: false,
+  };
   for (let i = 0; i < argv.length; i++) {
     const arg = argv[i];
     const value = (): string => {
@@ -50,93 +72,104 @@ export function parseArguments(argv: readonly string[]): CliArguments {
     };
     switch (arg) {
       case '--onsets':
-        onsetsFile = value();
+        args.onsetsFile = value();
+        break;
+      case '--settings':
+        args.settingsFile = value();
         break;
       case '--onset-label':
-        options.onsetLabel = value();
+        args.overrides.onsetLabel = value();
         break;
       case '--kind': {
         const kind = value();
-        if (kind !== 'task' && kind !== 'rest' && kind !== 'auto') {
-          throw new UsageError(`--kind: expected task, rest or auto, got "${kind}"`);
-        }
-        options.kind = kind;
+        // The server says 'resting'; 'rest' is the signal core's word for the same.
+        if (kind === 'resting' || kind === 'rest') args.kind = 'rest';
+        else if (kind === 'task' || kind === 'auto') args.kind = kind;
+        else throw new UsageError(`--kind: expected task, resting or auto, got "${kind}"`);
         break;
       }
       case '--band': {
         const [lo, hi] = parseNumberList('--band', value(), 2);
-        if (!(lo > 0 && hi > lo))
+        if (!(lo > 0 && hi > lo)) {
           throw new UsageError(`--band: expected 0 < LO < HI, got ${lo},${hi}`);
-        options.bandHz = [lo, hi];
+        }
+        args.overrides.bandHz = [lo, hi];
         break;
       }
-      case '--iaf':
-        options.iafHz = parseNumberList('--iaf', value(), 1)[0];
+      case '--iaf': {
+        const [iaf] = parseNumberList('--iaf', value(), 1);
+        if (!(iaf > 0)) throw new UsageError(`--iaf: expected a positive frequency, got ${iaf}`);
+        args.iafHz = iaf;
         break;
+      }
       case '--method': {
         const method = value();
-        if (method !== 'plateau' && method !== 'morlet') {
-          throw new UsageError(`--method: expected plateau or morlet, got "${method}"`);
+        if (method !== 'filter' && method !== 'morlet') {
+          throw new UsageError(`--method: expected filter or morlet, got "${method}"`);
         }
-        options.method = method;
+        args.overrides.method = method;
+        break;
+      }
+      case '--roi': {
+        const names = value()
+          .split(',')
+          .map((n) => n.trim())
+          .filter((n) => n !== '');
+        if (names.length === 0) throw new UsageError('--roi: expected at least one channel name');
+        args.overrides.roi = names;
         break;
       }
       case '--full':
-        full = true;
+        args.full = true;
         break;
       case '--help':
         throw new UsageError(USAGE);
       default:
         if (arg.startsWith('--')) throw new UsageError(`unknown option ${arg}\n${USAGE}`);
-        if (file !== null)
+        if (file !== null) {
           throw new UsageError(`one recording expected, got "${file}" and "${arg}"`);
+        }
         file = arg;
     }
   }
   if (file === null) throw new UsageError(`no recording given\n${USAGE}`);
-  return { file, onsetsFile, options, full };
+  return { file, ...args };
 }
 
-function onsetSummary(r: OnsetResult): Record<string, unknown> {
-  return {
-    baselineHz: r.baselineHz,
-    postHz: r.postHz,
-    deltaHz: r.deltaHz,
-    ci95Hz: r.ci95Hz,
-    p: r.p,
-    wilcoxonMethod: r.wilcoxonMethod,
-    suggestedFlag: r.suggestedFlag,
-    trialsKept: r.trialsKept,
-    trialsDropped: r.trialsDropped,
-    dropReasons: r.dropReasons,
-  };
+function readText(path: string): string {
+  try {
+    return readFileSync(path, 'utf8');
+  } catch (error) {
+    throw new UsageError(`${path}: cannot read the file (${(error as Error).message})`);
+  }
 }
 
-/** The JSON document the CLI prints: the summary, or everything with `full`. */
-export function cliReport(result: AnalysisResult, full: boolean): unknown {
-  if (full) return result;
-  return {
-    kind: result.kind,
-    channels: result.channels.map((c) => ({
-      label: c.label,
-      electrode: c.electrode,
-      inRoi: c.inRoi,
-      ...onsetSummary(c),
-    })),
-    roi: result.roi ? { channels: result.roi.channels, ...onsetSummary(result.roi) } : null,
-    rest: result.rest
-      ? {
-          pafHz: result.rest.pafHz,
-          cogHz: result.rest.cogHz,
-          prominenceDb: result.rest.prominenceDb,
-          noPeakReason: result.rest.noPeakReason,
-          channels: result.rest.channels,
-        }
-      : null,
-    qc: result.qc,
-    settings: result.settings,
-    warnings: result.warnings,
-  };
+/** The fields of a settings file over Gyre's defaults; unknown fields are refused. */
+function settingsFromFile(path: string): Partial<AnalysisSettings> {
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(readText(path));
+  } catch (error) {
+    if (error instanceof UsageError) throw error;
+    throw new UsageError(`${path}: not JSON (${(error as Error).message})`);
+  }
+  if (typeof parsed !== 'object' || parsed === null || Array.isArray(parsed)) {
+    throw new UsageError(`${path}: expected a JSON object of analysis settings`);
+  }
+  const known = Object.keys(DEFAULT_ANALYSIS_SETTINGS);
+  const unknown = Object.keys(parsed).filter((key) => !known.includes(key));
+  if (unknown.length > 0) {
+    throw new UsageError(
+      `${path}: unknown setting(s) ${unknown.join(', ')}; known: ${known.join(', ')}`,
+    );
+  }
+  return parsed as Partial<AnalysisSettings>;
+}
+
+/** The effective settings: defaults, then the settings file, then the single flags. */
+export function effectiveSettings(args: CliArguments): AnalysisSettings {
+  const fromFile = args.settingsFile !== null ? settingsFromFile(args.settingsFile) : {};
+  return copyAnalysisSettings({ ...DEFAULT_ANALYSIS_SETTINGS, ...fromFile, ...args.overrides });
 }
 
 /** Typed arrays become plain arrays; NaN and infinities become null (JSON has neither). */
@@ -149,31 +182,40 @@ function toJson(value: unknown): string {
   );
 }
 
-export function main(argv: readonly string[]): number {
+export async function main(argv: readonly string[]): Promise<number> {
   try {
     const args = parseArguments(argv);
-    let bytes: Uint8Array;
+    const settings = effectiveSettings(args);
+    let read: EdfFileRead;
     try {
-      bytes = readFileSync(args.file);
+      read = await readRecordingForAnalysis(args.file);
     } catch (error) {
       throw new UsageError(`${args.file}: cannot read the file (${(error as Error).message})`);
     }
-    const recording = readEdf(bytes);
+    const recording = read.finish();
+    let onsets: OnsetInput[] | null = null;
     if (args.onsetsFile !== null) {
-      let text: string;
-      try {
-        text = readFileSync(args.onsetsFile, 'utf8');
-      } catch (error) {
-        throw new UsageError(
-          `${args.onsetsFile}: cannot read the file (${(error as Error).message})`,
-        );
-      }
-      const onsets = parseOnsetCsv(text, { recordingDurationS: recording.durationS });
-      args.options.onsets = onsets.map((o) => ({ onsetS: o.onsetS, label: o.label }));
+      const parsed = parseOnsetCsv(readText(args.onsetsFile), {
+        recordingDurationS: recording.durationS,
+      });
+      onsets = parsed.map((o) => ({ onsetS: o.onsetS, label: o.label }));
     }
-    const result = analyzeRecording(recording, args.options);
-    result.warnings.unshift(...recording.warnings);
-    process.stdout.write(toJson(cliReport(result, args.full)) + '\n');
+    const { result, outcome } = analyzeEdfRecording(recording, {
+      kind: args.kind,
+      settings,
+      iafHz: args.iafHz,
+      onsets,
+    });
+    const report = {
+      file: args.file,
+      kind: result.kind,
+      iafHz: result.iafHz,
+      settings: result.settings,
+      computation: result.computation,
+      summary: outcome.summary,
+      ...(args.full ? { series: outcome.series, result } : {}),
+    };
+    process.stdout.write(toJson(report) + '\n');
     return 0;
   } catch (error) {
     if (
@@ -190,5 +232,7 @@ export function main(argv: readonly string[]): number {
 }
 
 if (require.main === module) {
-  process.exitCode = main(process.argv.slice(2));
+  void main(process.argv.slice(2)).then((code) => {
+    process.exitCode = code;
+  });
 }

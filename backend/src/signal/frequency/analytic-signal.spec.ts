@@ -167,7 +167,12 @@ describe('instantaneous frequency against closed form (Boashash 1992)', () => {
     const n = 20 * fs;
     const x = new Float64Array(n);
     for (let i = 0; i < n; i++) x[i] = 10 * Math.cos((2 * Math.PI * 9.5 * i) / fs);
-    const result = frequencySliding(x, { sampleRateHz: fs, method: 'morlet', iafHz: 9.5 });
+    const result = frequencySliding(x, {
+      sampleRateHz: fs,
+      bandHz: [7.5, 11.5],
+      method: 'morlet',
+      morletCentreHz: 9.5,
+    });
     expect(rmsAwayFromEdges(result.frequencyHz, () => 9.5, fs, 20)).toBeLessThan(1e-3);
   });
 });

@@ -14,12 +14,7 @@ import {
   plateauBandPass,
   SpectralWeight,
 } from './spectral-weights';
-
-export type NarrowBandMethod = 'plateau' | 'morlet';
-
-export const DEFAULT_ALPHA_BAND_HZ: readonly [number, number] = [8, 13];
-/** Half-width of the band around a resting IAF (METHOD.md §2: IAF ± 2 Hz). */
-export const DEFAULT_IAF_HALF_WIDTH_HZ = 2;
+import type { NarrowBandMethodName } from '../pipeline/analysis-settings';
 
 export interface MedianWindowOptions {
   sampleRateHz: number;
@@ -60,39 +55,30 @@ export function medianWindowLengths(options: MedianWindowOptions): number[] {
 
 export interface FrequencySlidingOptions {
   sampleRateHz: number;
-  /** Analysis band in Hz; default IAF ± 2 Hz when `iafHz` is given, otherwise 8–13 Hz. */
-  bandHz?: readonly [number, number];
-  /** The participant's resting individual alpha frequency, when known. */
-  iafHz?: number | null;
-  /** 'plateau' (default): zero-phase plateau band-pass; 'morlet': complex Morlet wavelet. */
-  method?: NarrowBandMethod;
+  /**
+   * Analysis band in Hz, already resolved: the analysis takes it from `resolveAnalysisBand`,
+   * the one place a band is chosen.
+   */
+  bandHz: readonly [number, number];
+  /** 'filter' (default): zero-phase plateau band-pass; 'morlet': complex Morlet wavelet. */
+  method?: NarrowBandMethodName;
   /** Transition zones of the plateau filter as a fraction of the band edges (default 0.15). */
   transitionFraction?: number;
-  /** Morlet cycles (default 7), centred on the IAF or on the band centre. */
+  /** Morlet cycles (default 7). */
   morletCycles?: number;
+  /** Centre of the Morlet wavelet, Hz (default the band centre; the analysis gives the IAF when known). */
+  morletCentreHz?: number;
   /** Median windows (default: 10 lengths from 10 to 400 ms). */
   medianWindows?: Omit<MedianWindowOptions, 'sampleRateHz'>;
   /** Mirrored samples at each end before the transform, in s (default: from the filter). */
   edgePaddingS?: number;
 }
 
-/** The analysis band chosen by the options (METHOD.md §2). */
-export function resolveBandHz(options: {
-  bandHz?: readonly [number, number];
-  iafHz?: number | null;
-}): [number, number] {
-  if (options.bandHz) return [options.bandHz[0], options.bandHz[1]];
-  if (options.iafHz !== undefined && options.iafHz !== null) {
-    return [options.iafHz - DEFAULT_IAF_HALF_WIDTH_HZ, options.iafHz + DEFAULT_IAF_HALF_WIDTH_HZ];
-  }
-  return [DEFAULT_ALPHA_BAND_HZ[0], DEFAULT_ALPHA_BAND_HZ[1]];
-}
-
 /** The spectral weight (filter or wavelet) the options ask for. */
 export function narrowBandWeight(options: FrequencySlidingOptions): SpectralWeight {
-  const bandHz = resolveBandHz(options);
-  if ((options.method ?? 'plateau') === 'morlet') {
-    const centreHz = options.iafHz ?? (bandHz[0] + bandHz[1]) / 2;
+  const bandHz = options.bandHz;
+  if ((options.method ?? 'filter') === 'morlet') {
+    const centreHz = options.morletCentreHz ?? (bandHz[0] + bandHz[1]) / 2;
     return morletWavelet({ centreHz, cycles: options.morletCycles ?? DEFAULT_MORLET_CYCLES });
   }
   return plateauBandPass({ bandHz, transitionFraction: options.transitionFraction });
@@ -104,7 +90,7 @@ export function narrowBandWeight(options: FrequencySlidingOptions): SpectralWeig
  * (common practice: pad by a few impulse-response lengths).
  */
 export function defaultEdgePaddingS(options: FrequencySlidingOptions): number {
-  const bandHz = resolveBandHz(options);
+  const bandHz = options.bandHz;
   const t = options.transitionFraction ?? DEFAULT_TRANSITION_FRACTION;
   return Math.max(2, 4 / (bandHz[0] * t));
 }
@@ -157,7 +143,7 @@ export function frequencySliding(
   workspace: FrequencySlidingWorkspace = new FrequencySlidingWorkspace(),
 ): FrequencySlidingResult {
   const fs = options.sampleRateHz;
-  const bandHz = resolveBandHz(options);
+  const bandHz: [number, number] = [options.bandHz[0], options.bandHz[1]];
   const z = narrowBandAnalytic(samples, options, workspace);
   const raw = phaseDifferenceFrequency(z, { sampleRateHz: fs });
   const windows = medianWindowLengths({ sampleRateHz: fs, ...options.medianWindows });

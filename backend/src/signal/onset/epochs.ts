@@ -1,20 +1,5 @@
 export type EpochDropReason = 'edge' | 'amplitude' | 'artefact';
 
-export interface EpochWindowsS {
-  /** Epoch around each onset, s (default −1 to +2, METHOD.md §3). */
-  epochS: readonly [number, number];
-  /** Baseline window, s (default −0.5 to 0). */
-  baselineS: readonly [number, number];
-  /** Post-onset window, s (default +0.2 to +0.8). */
-  postS: readonly [number, number];
-}
-
-export const DEFAULT_EPOCH_WINDOWS_S: EpochWindowsS = {
-  epochS: [-1, 2],
-  baselineS: [-0.5, 0],
-  postS: [0.2, 0.8],
-};
-
 /** A span of the recording marked as artefact, in s from the recording start. */
 export interface ArtefactSpan {
   startS: number;
@@ -31,7 +16,8 @@ export interface TrialScreenOptions {
   recordingDurationS: number;
   /** Gap-free stretches (EDF+D); default one stretch from 0 to the duration. */
   segmentsS?: readonly DataSegmentS[];
-  epochS: readonly [number, number];
+  /** Epoch around each onset, s (`AnalysisSettings.epochWindowS`). */
+  epochWindowS: readonly [number, number];
   /** Epochs starting or ending closer than this to a recording edge are dropped (default 1 s). */
   edgeGuardS?: number;
   artefacts?: readonly ArtefactSpan[];
@@ -48,7 +34,7 @@ export function screenTrials(
   options: TrialScreenOptions,
 ): (EpochDropReason | null)[] {
   const guard = options.edgeGuardS ?? 1;
-  const [e0, e1] = options.epochS;
+  const [e0, e1] = options.epochWindowS;
   const artefacts = options.artefacts ?? [];
   const segments = options.segmentsS ?? [{ startS: 0, endS: options.recordingDurationS }];
   return onsetsS.map((t) => {
@@ -70,13 +56,16 @@ export function epochExceedsAmplitude(
   options: {
     sampleRateHz: number;
     onsetS: number;
-    epochS: readonly [number, number];
+    epochWindowS: readonly [number, number];
     limit: number;
   },
 ): boolean {
   const fs = options.sampleRateHz;
-  const first = Math.max(0, Math.round((options.onsetS + options.epochS[0]) * fs));
-  const last = Math.min(samples.length - 1, Math.round((options.onsetS + options.epochS[1]) * fs));
+  const first = Math.max(0, Math.round((options.onsetS + options.epochWindowS[0]) * fs));
+  const last = Math.min(
+    samples.length - 1,
+    Math.round((options.onsetS + options.epochWindowS[1]) * fs),
+  );
   if (last < first) return false;
   let mean = 0;
   for (let i = first; i <= last; i++) mean += samples[i];
@@ -89,25 +78,28 @@ export function epochExceedsAmplitude(
 
 /** Index range [start, end) of epoch points whose time lies in [fromS, toS). */
 export function epochPointRange(
-  epochS: readonly [number, number],
+  epochWindowS: readonly [number, number],
   sampleRateHz: number,
   windowS: readonly [number, number],
 ): [number, number] {
   // A small tolerance keeps points that sit exactly on a window edge on the right side.
-  const start = Math.ceil((windowS[0] - epochS[0]) * sampleRateHz - 1e-9);
-  const end = Math.ceil((windowS[1] - epochS[0]) * sampleRateHz - 1e-9);
+  const start = Math.ceil((windowS[0] - epochWindowS[0]) * sampleRateHz - 1e-9);
+  const end = Math.ceil((windowS[1] - epochWindowS[0]) * sampleRateHz - 1e-9);
   return [Math.max(0, start), end];
 }
 
-/** Number of points of an epoch: one per frequency value from epochS[0] to epochS[1]. */
-export function epochPointCount(epochS: readonly [number, number], sampleRateHz: number): number {
-  return Math.floor((epochS[1] - epochS[0]) * sampleRateHz + 1e-9) + 1;
+/** Number of points of an epoch: one per frequency value from its start to its end. */
+export function epochPointCount(
+  epochWindowS: readonly [number, number],
+  sampleRateHz: number,
+): number {
+  return Math.floor((epochWindowS[1] - epochWindowS[0]) * sampleRateHz + 1e-9) + 1;
 }
 
 /**
  * Frequency epochs cut from a continuous frequency series (trials × points, row-major).
  * Value j of the series belongs to time firstTimeS + j/fs (a sample midpoint); point i of
- * an epoch to onset + epochS[0] + i/fs, taken from the nearest value. Points that fall
+ * an epoch to onset + epochWindowS[0] + i/fs, taken from the nearest value. Points that fall
  * outside the series are NaN (screenTrials drops such epochs anyway).
  */
 export function cutFrequencyEpochs(
@@ -116,14 +108,14 @@ export function cutFrequencyEpochs(
     sampleRateHz: number;
     firstTimeS: number;
     onsetsS: readonly number[];
-    epochS: readonly [number, number];
+    epochWindowS: readonly [number, number];
   },
 ): Float64Array {
   const fs = options.sampleRateHz;
-  const points = epochPointCount(options.epochS, fs);
+  const points = epochPointCount(options.epochWindowS, fs);
   const out = new Float64Array(options.onsetsS.length * points);
   options.onsetsS.forEach((t, trial) => {
-    const j0 = Math.round((t + options.epochS[0] - options.firstTimeS) * fs);
+    const j0 = Math.round((t + options.epochWindowS[0] - options.firstTimeS) * fs);
     for (let i = 0; i < points; i++) {
       const j = j0 + i;
       out[trial * points + i] = j >= 0 && j < frequencyHz.length ? frequencyHz[j] : NaN;

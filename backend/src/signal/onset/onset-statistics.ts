@@ -1,10 +1,18 @@
+import {
+  BOOTSTRAP_RESAMPLES,
+  BOOTSTRAP_SEED,
+  DEFAULT_ANALYSIS_SETTINGS,
+} from '../pipeline/analysis-settings';
 import { seededUniform } from './random';
 import { wilcoxonSignedRank, WilcoxonMethod } from './wilcoxon';
 
 export interface BootstrapOptions {
-  /** Resamples (default 2000, METHOD.md §3). */
+  /** Resamples (default `BOOTSTRAP_RESAMPLES`, METHOD.md §3). */
   resamples?: number;
-  /** Seed of the generator, so that a rerun gives the same interval (default 1). */
+  /**
+   * Seed of the generator (default `BOOTSTRAP_SEED`): every caller that leaves it out gets
+   * the same interval as the server for the same trials.
+   */
   seed?: number;
   /** Coverage (default 0.95). */
   level?: number;
@@ -22,9 +30,9 @@ export function bootstrapMeanInterval(
 ): [number, number] | null {
   const n = values.length;
   if (n === 0) return null;
-  const resamples = options.resamples ?? 2000;
+  const resamples = options.resamples ?? BOOTSTRAP_RESAMPLES;
   const level = options.level ?? 0.95;
-  const random = seededUniform(options.seed ?? 1);
+  const random = seededUniform(options.seed ?? BOOTSTRAP_SEED);
   const means = new Float64Array(resamples);
   for (let r = 0; r < resamples; r++) {
     let sum = 0;
@@ -45,8 +53,8 @@ export function quantileSorted(sorted: Float64Array, q: number): number {
 }
 
 export interface OnsetStatisticsOptions extends BootstrapOptions {
-  /** Δf at or below which Gyre suggests a slowing flag (default −0.2 Hz, a study setting). */
-  slowingThresholdHz?: number;
+  /** Δf at or below which Gyre suggests a slowing flag (a study setting; default Gyre's −0.2 Hz). */
+  flagThresholdHz?: number;
 }
 
 export interface OnsetStatistics {
@@ -55,14 +63,14 @@ export interface OnsetStatistics {
   /** Mean frequency in the post window over trials, Hz. */
   postHz: number | null;
   /** Mean of post − baseline over trials, Hz (negative = slowing). */
-  deltaHz: number | null;
+  deltaFHz: number | null;
   /** Bootstrap 95 % interval of the mean Δf, Hz. */
-  ci95Hz: [number, number] | null;
+  ciHz: [number, number] | null;
   /** Two-sided Wilcoxon signed-rank p of the trial Δf values. */
-  p: number | null;
+  pValue: number | null;
   wilcoxonMethod: WilcoxonMethod | null;
   /** Δf ≤ threshold and the interval excludes 0: Gyre suggests, an analyst decides. */
-  suggestedFlag: boolean;
+  suggestsSlowing: boolean;
 }
 
 /**
@@ -82,11 +90,11 @@ export function onsetStatistics(
     return {
       baselineHz: null,
       postHz: null,
-      deltaHz: null,
-      ci95Hz: null,
-      p: null,
+      deltaFHz: null,
+      ciHz: null,
+      pValue: null,
       wilcoxonMethod: null,
-      suggestedFlag: false,
+      suggestsSlowing: false,
     };
   }
   const delta = new Float64Array(n);
@@ -99,18 +107,18 @@ export function onsetStatistics(
   }
   let sumDelta = 0;
   for (let i = 0; i < n; i++) sumDelta += delta[i];
-  const deltaHz = sumDelta / n;
-  const ci95Hz = bootstrapMeanInterval(delta, options);
+  const deltaFHz = sumDelta / n;
+  const ciHz = bootstrapMeanInterval(delta, options);
   const test = wilcoxonSignedRank(delta);
-  const threshold = options.slowingThresholdHz ?? -0.2;
+  const threshold = options.flagThresholdHz ?? DEFAULT_ANALYSIS_SETTINGS.flagThresholdHz;
   return {
     baselineHz: sumBase / n,
     postHz: sumPost / n,
-    deltaHz,
-    ci95Hz,
-    p: Number.isNaN(test.pValue) ? null : test.pValue,
+    deltaFHz,
+    ciHz,
+    pValue: Number.isNaN(test.pValue) ? null : test.pValue,
     wilcoxonMethod: Number.isNaN(test.pValue) ? null : test.method,
-    suggestedFlag: deltaHz <= threshold && ci95Hz !== null && ci95Hz[1] < 0,
+    suggestsSlowing: deltaFHz <= threshold && ciHz !== null && ciHz[1] < 0,
   };
 }
 
@@ -159,7 +167,7 @@ export function onsetCurve(
   options: {
     points: number;
     trials: readonly number[];
-    epochS: readonly [number, number];
+    epochWindowS: readonly [number, number];
     sampleRateHz: number;
     maxPoints?: number;
   },
@@ -174,7 +182,7 @@ export function onsetCurve(
   for (let b = 0; b < bins; b++) {
     const first = b * factor;
     const last = Math.min(points, first + factor);
-    timesS[b] = options.epochS[0] + (first + last - 1) / 2 / sampleRateHz;
+    timesS[b] = options.epochWindowS[0] + (first + last - 1) / 2 / sampleRateHz;
   }
   const binned = new Float64Array(n * bins);
   trials.forEach((trial, k) => {

@@ -1,7 +1,9 @@
-import { NarrowBandMethod } from '../frequency/frequency-sliding';
+import type { RoiUsageDto } from '@gyre/shared';
 import { WilcoxonMethod } from '../onset/wilcoxon';
 import { ChannelQuality } from '../quality/quality-checks';
 import { NoPeakReason } from '../spectrum/alpha-peak';
+import type { AnalysisComputation } from './analysis-computation';
+import type { AnalysisBandSource, AnalysisSettings } from './analysis-settings';
 
 /** One ordinary signal; an `EdfSignal` of the EDF reader fits as it is. */
 export interface AnalysisSignal {
@@ -10,8 +12,12 @@ export interface AnalysisSignal {
   /** Physical values in `physicalDimension` (µV if absent). */
   samples: Float32Array;
   physicalDimension?: string;
+  /** Physical values of the converter's rails; with them the saturation check runs. */
   physicalMin?: number;
   physicalMax?: number;
+  /** Digital rails (EDF header); default the EDF 16-bit range. */
+  digitalMin?: number;
+  digitalMax?: number;
   samplesPerRecord?: number;
 }
 
@@ -41,43 +47,24 @@ export interface OnsetInput {
 
 export type RecordingKindChoice = 'task' | 'rest' | 'auto';
 
-export interface AnalysisOptions {
-  /** 'auto' (default): task when onsets are found, rest otherwise. */
-  kind?: RecordingKindChoice;
-  /** Analysis band, Hz (default IAF ± 2 Hz with `iafHz`, else 8–13 Hz). */
-  bandHz?: readonly [number, number];
-  /** The participant's resting IAF for this visit, Hz, when known. */
-  iafHz?: number | null;
-  method?: NarrowBandMethod;
-  transitionFraction?: number;
-  morletCycles?: number;
+/** What one run knows besides the recording and the settings. */
+export interface AnalysisContext {
+  /** 'auto': task when stimulus onsets are found, rest otherwise. */
+  kind: RecordingKindChoice;
+  /** The participant's resting IAF for this visit (PAF, else CoG), Hz; null when unknown. */
+  iafHz: number | null;
   /** Onsets from a CSV; when given, annotations are not used as onsets. */
   onsets?: readonly OnsetInput[];
-  /** Only onsets with this label (annotation text or CSV label, case-insensitive). */
-  onsetLabel?: string | null;
-  /** Regular expression source for artefact annotations (default "artefact|artifact", case-insensitive). */
-  artefactPattern?: string;
-  epochS?: readonly [number, number];
-  baselineS?: readonly [number, number];
-  postS?: readonly [number, number];
-  edgeGuardS?: number;
-  /** ± limit on the raw epoch after mean removal, µV (default 100, common practice). */
-  amplitudeLimitUv?: number;
-  bootstrapResamples?: number;
-  bootstrapSeed?: number;
-  slowingThresholdHz?: number;
-  /** Region of interest as 10-10 names (default: the posterior set of METHOD.md §1). */
-  roiLabels?: readonly string[];
-  welchSegmentS?: number;
-  welchOverlapFraction?: number;
-  alphaSearchHz?: readonly [number, number];
-  cogBandHz?: readonly [number, number];
-  minPeakProminenceDb?: number;
-  /** Curve and raster points at most (default 500). */
-  maxCurvePoints?: number;
   /** Called with the share of work done, 0…1. */
   onProgress?: (fraction: number) => void;
 }
+
+/**
+ * Which region-of-interest channels a result comes from and why others were left out
+ * (the API's `RoiUsageDto`). The signal core never says 'excluded': that is the server's
+ * word for a channel a visit override removed from the settings' `roi`.
+ */
+export type RoiUsage = RoiUsageDto;
 
 export interface DropCounts {
   edge: number;
@@ -95,11 +82,15 @@ export interface OnsetCurveResult {
 export interface OnsetResult {
   baselineHz: number | null;
   postHz: number | null;
-  deltaHz: number | null;
-  ci95Hz: [number, number] | null;
-  p: number | null;
+  /** Mean of post − baseline over kept trials, Hz. */
+  deltaFHz: number | null;
+  /** Bootstrap 95 % interval of the mean Δf, Hz. */
+  ciHz: [number, number] | null;
+  /** Two-sided Wilcoxon signed-rank p of the trial Δf values. */
+  pValue: number | null;
   wilcoxonMethod: WilcoxonMethod | null;
-  suggestedFlag: boolean;
+  /** Δf ≤ the flag threshold and the interval excludes 0 (a suggestion, never a decision). */
+  suggestsSlowing: boolean;
   trialsKept: number;
   trialsDropped: number;
   dropReasons: DropCounts;
@@ -113,12 +104,15 @@ export interface ChannelResult extends OnsetResult {
   label: string;
   /** Canonical 10-10 name, null when the label is not one. */
   electrode: string | null;
+  /** True only when the channel contributed to the region-of-interest result. */
   inRoi: boolean;
 }
 
 export interface RoiResult extends OnsetResult {
   /** Labels of the channels averaged. */
   channels: string[];
+  /** Onset of each kept trial (one per raster row), s from the recording start. */
+  trialOnsetsS: number[];
   /** Trials × curve points, Hz, row-major (kept trials only). */
   raster: Float32Array;
   rasterTrials: number;
@@ -138,7 +132,9 @@ export interface RestResult {
 export interface QualityResult {
   durationS: number;
   sampleRatesHz: number[];
+  /** Region-of-interest channels present in the file (usable or not), file labels. */
   roiChannelsFound: string[];
+  /** Region-of-interest names not in the file. */
   roiChannelsMissing: string[];
   flatChannels: string[];
   saturatedChannels: string[];
@@ -153,33 +149,29 @@ export interface QualityResult {
   channels: ChannelQuality[];
 }
 
-export interface ResolvedSettings {
-  kind: 'task' | 'rest';
-  bandHz: [number, number];
-  method: NarrowBandMethod;
-  transitionFraction: number;
-  morletCycles: number;
-  medianWindowsSamples: Record<string, number[]>;
-  epochS: [number, number];
-  baselineS: [number, number];
-  postS: [number, number];
-  edgeGuardS: number;
-  amplitudeLimitUv: number;
+/** The computation knobs of a run with what followed from them. */
+export interface ComputationUsed extends AnalysisComputation {
+  /** Centre of the Morlet wavelet, Hz (the IAF when known, else the band centre); null for 'filter'. */
+  morletCentreHz: number | null;
   bootstrapResamples: number;
   bootstrapSeed: number;
-  slowingThresholdHz: number;
-  onsetLabel: string | null;
+  /** Median window lengths per sampling rate (key: rate in Hz), samples. */
+  medianWindowsSamples: Record<string, number[]>;
+  /** Onsets chosen (after the onset label), before any epoch was dropped. */
   onsetCount: number;
-  welchSegmentS: number;
-  welchOverlapFraction: number;
-  alphaSearchHz: [number, number];
-  cogBandHz: [number, number];
-  minPeakProminenceDb: number;
 }
 
 export interface AnalysisResult {
   kind: 'task' | 'rest';
-  settings: ResolvedSettings;
+  /** The settings the run was given (a copy). */
+  settings: AnalysisSettings;
+  /** The resting IAF the run was given, Hz. */
+  iafHz: number | null;
+  /** The band used and where it came from (`resolveAnalysisBand`). */
+  bandHz: [number, number];
+  bandSource: AnalysisBandSource;
+  computation: ComputationUsed;
+  roiUsage: RoiUsage;
   channels: ChannelResult[];
   roi: RoiResult | null;
   rest: RestResult | null;

@@ -1,14 +1,8 @@
-import { DEFAULT_POSTERIOR_ROI, normaliseChannelLabel, roiChannels } from '../channels';
-import {
-  FrequencySlidingWorkspace,
-  frequencySliding,
-  resolveBandHz,
-} from '../frequency/frequency-sliding';
-import { DEFAULT_MORLET_CYCLES, DEFAULT_TRANSITION_FRACTION } from '../frequency/spectral-weights';
+import { normaliseChannelLabel } from '../channels';
+import { FrequencySlidingWorkspace, frequencySliding } from '../frequency/frequency-sliding';
 import {
   cutFrequencyEpochs,
   DataSegmentS,
-  DEFAULT_EPOCH_WINDOWS_S,
   epochExceedsAmplitude,
   epochPointCount,
   epochPointRange,
@@ -16,6 +10,7 @@ import {
   screenTrials,
 } from '../onset/epochs';
 import { onsetCurve, onsetStatistics, trialWindowMeans } from '../onset/onset-statistics';
+import { artefactRegExp, stimulusAnnotations } from '../onsets/stimulus-annotations';
 import {
   channelQuality,
   ChannelQuality,
@@ -26,19 +21,32 @@ import {
 import { alphaPeak, centreOfGravity } from '../spectrum/alpha-peak';
 import { meanSpectrum, PowerSpectrum, welchPowerSpectrum } from '../spectrum/welch';
 import {
-  AnalysisOptions,
+  AnalysisComputation,
+  AnalysisComputationOptions,
+  resolveComputation,
+} from './analysis-computation';
+import {
+  AnalysisSettings,
+  BOOTSTRAP_RESAMPLES,
+  BOOTSTRAP_SEED,
+  copyAnalysisSettings,
+  resolveAnalysisBand,
+} from './analysis-settings';
+import {
+  AnalysisContext,
   AnalysisRecording,
   AnalysisResult,
   AnalysisSignal,
   ChannelResult,
+  ComputationUsed,
   DropCounts,
   OnsetInput,
   OnsetResult,
   QualityResult,
-  ResolvedSettings,
   RestResult,
   RoiResult,
 } from './analysis.types';
+import { decideRoiUsage } from './roi-usage';
 
 /** Input that cannot be analysed; `field` names what is wrong. */
 export class AnalysisInputError extends Error {
@@ -51,43 +59,55 @@ export class AnalysisInputError extends Error {
   }
 }
 
-const DEFAULT_ARTEFACT_PATTERN = 'artefact|artifact';
-
 interface Channel {
   signal: AnalysisSignal;
   electrode: string | null;
-  inRoi: boolean;
 }
 
-/** Resolve every default once, so the result records the settings it was computed with. */
-function resolveSettings(
-  options: AnalysisOptions,
-  kind: 'task' | 'rest',
-  onsetCount: number,
-): ResolvedSettings {
-  return {
-    kind,
-    bandHz: resolveBandHz(options),
-    method: options.method ?? 'plateau',
-    transitionFraction: options.transitionFraction ?? DEFAULT_TRANSITION_FRACTION,
-    morletCycles: options.morletCycles ?? DEFAULT_MORLET_CYCLES,
-    medianWindowsSamples: {},
-    epochS: [...(options.epochS ?? DEFAULT_EPOCH_WINDOWS_S.epochS)] as [number, number],
-    baselineS: [...(options.baselineS ?? DEFAULT_EPOCH_WINDOWS_S.baselineS)] as [number, number],
-    postS: [...(options.postS ?? DEFAULT_EPOCH_WINDOWS_S.postS)] as [number, number],
-    edgeGuardS: options.edgeGuardS ?? 1,
-    amplitudeLimitUv: options.amplitudeLimitUv ?? 100,
-    bootstrapResamples: options.bootstrapResamples ?? 2000,
-    bootstrapSeed: options.bootstrapSeed ?? 1,
-    slowingThresholdHz: options.slowingThresholdHz ?? -0.2,
-    onsetLabel: options.onsetLabel ?? null,
-    onsetCount,
-    welchSegmentS: options.welchSegmentS ?? 4,
-    welchOverlapFraction: options.welchOverlapFraction ?? 0.5,
-    alphaSearchHz: [...(options.alphaSearchHz ?? [7, 13])] as [number, number],
-    cogBandHz: [...(options.cogBandHz ?? options.alphaSearchHz ?? [7, 13])] as [number, number],
-    minPeakProminenceDb: options.minPeakProminenceDb ?? 3,
+const isPair = (v: unknown): v is [number, number] =>
+  Array.isArray(v) && v.length === 2 && v.every((x) => typeof x === 'number' && Number.isFinite(x));
+
+/**
+ * Settings the computation cannot run with. The server validates settings when they are
+ * saved; this catches what reaches the core by another way (command line, tests).
+ */
+function checkSettings(settings: Readonly<AnalysisSettings>, iafHz: number | null): void {
+  const fail = (field: string, found: string, expected: string): never => {
+    throw new AnalysisInputError(field, `${field}: ${found} found, ${expected} expected`);
   };
+  const text = (v: unknown): string => JSON.stringify(v) ?? String(v);
+  if (settings.bandHz !== null) {
+    const b = settings.bandHz;
+    if (!isPair(b) || !(b[0] > 0 && b[1] > b[0]))
+      fail('bandHz', text(b), '[low, high] with 0 < low < high');
+  }
+  if (settings.method !== 'filter' && settings.method !== 'morlet') {
+    fail('method', text(settings.method), '"filter" or "morlet"');
+  }
+  if (!(settings.morletCycles > 0))
+    fail('morletCycles', text(settings.morletCycles), 'a positive number');
+  for (const field of ['epochWindowS', 'baselineWindowS', 'postWindowS'] as const) {
+    const w = settings[field];
+    if (!isPair(w) || !(w[1] > w[0])) fail(field, text(w), '[start, end] with start < end, s');
+  }
+  const [e0, e1] = settings.epochWindowS;
+  for (const field of ['baselineWindowS', 'postWindowS'] as const) {
+    const w = settings[field];
+    if (w[0] < e0 || w[1] > e1)
+      fail(field, text(w), `a window inside the epoch ${text(settings.epochWindowS)}`);
+  }
+  if (!(settings.rejectionThresholdUv > 0)) {
+    fail('rejectionThresholdUv', text(settings.rejectionThresholdUv), 'a positive number of µV');
+  }
+  if (!Number.isFinite(settings.flagThresholdHz)) {
+    fail('flagThresholdHz', text(settings.flagThresholdHz), 'a number of Hz');
+  }
+  if (!Array.isArray(settings.roi) || settings.roi.some((n) => typeof n !== 'string')) {
+    fail('roi', text(settings.roi), 'a list of 10-10 channel names');
+  }
+  if (iafHz !== null && !(Number.isFinite(iafHz) && iafHz > 0)) {
+    fail('iafHz', text(iafHz), 'a positive frequency in Hz or null');
+  }
 }
 
 /** Gap-free stretches of the recording and how recording time maps to sample time. */
@@ -123,15 +143,17 @@ function toDataTimeS(t: number, segments: readonly Segment[]): number {
 
 function chooseOnsets(
   recording: AnalysisRecording,
-  options: AnalysisOptions,
+  onsetLabel: string | null,
+  given: readonly OnsetInput[] | undefined,
   artefactPattern: RegExp,
 ): OnsetInput[] {
-  let onsets: OnsetInput[] = options.onsets
-    ? options.onsets.map((o) => ({ onsetS: o.onsetS, label: o.label }))
-    : (recording.annotations ?? [])
-        .filter((a) => a.text.trim() !== '' && !artefactPattern.test(a.text))
-        .map((a) => ({ onsetS: a.onsetS, label: a.text }));
-  const wanted = options.onsetLabel?.trim().toLowerCase();
+  let onsets: OnsetInput[] = given
+    ? given.map((o) => ({ onsetS: o.onsetS, label: o.label }))
+    : stimulusAnnotations(recording.annotations ?? [], artefactPattern).map((a) => ({
+        onsetS: a.onsetS,
+        label: a.text,
+      }));
+  const wanted = onsetLabel?.trim().toLowerCase();
   if (wanted) onsets = onsets.filter((o) => o.label.trim().toLowerCase() === wanted);
   return onsets.sort((a, b) => a.onsetS - b.onsetS);
 }
@@ -145,16 +167,24 @@ function countDrops(reasons: readonly (EpochDropReason | null)[]): DropCounts {
 /**
  * The whole computation for one recording (METHOD.md §2–§4, §6): per channel the
  * frequency sliding on the continuous recording, the epochs around each onset with
- * their rejection reasons, baseline/post/Δf with bootstrap interval and Wilcoxon test,
- * the same over the region of interest, the resting spectrum with PAF and CoG, and the
- * quality checks. Pure and synchronous: the server runs it in a worker thread; results
- * are plain objects and typed arrays. `options.onProgress` receives the share done.
+ * their rejection reasons, baseline/post/Δf with bootstrap interval (Efron & Tibshirani
+ * 1993) and Wilcoxon test, the same over the region of interest, the resting spectrum
+ * (Welch 1967) with PAF and CoG, and the quality checks.
+ *
+ * The band comes only from `resolveAnalysisBand(settings, context.iafHz)`; the Morlet
+ * wavelet is centred on the IAF when known, else on the band centre; the bootstrap always
+ * uses `BOOTSTRAP_SEED` and `BOOTSTRAP_RESAMPLES`. The region-of-interest result averages
+ * only the channels `decideRoiUsage` keeps; with none there is no region number at all.
+ * Pure and synchronous: the server runs it in a worker thread; results are plain objects
+ * and typed arrays. `context.onProgress` receives the share done.
  */
 export function analyzeRecording(
   recording: AnalysisRecording,
-  options: AnalysisOptions = {},
+  settingsIn: Readonly<AnalysisSettings>,
+  context: AnalysisContext,
+  computationOptions: AnalysisComputationOptions = {},
 ): AnalysisResult {
-  const progress = options.onProgress ?? ((): void => undefined);
+  const progress = context.onProgress ?? ((): void => undefined);
   const warnings: string[] = [];
   if (recording.signals.length === 0) {
     throw new AnalysisInputError('signals', 'recording: expected at least one signal, got none');
@@ -167,54 +197,66 @@ export function analyzeRecording(
       );
     }
   }
+  const iafHz = context.iafHz;
+  checkSettings(settingsIn, iafHz);
+  const settings = copyAnalysisSettings(settingsIn);
+  const computation = resolveComputation(computationOptions);
   const durationS =
     recording.durationS ??
     Math.max(...recording.signals.map((s) => s.samples.length / s.sampleRateHz));
 
-  let artefactPattern: RegExp;
-  try {
-    artefactPattern = new RegExp(options.artefactPattern ?? DEFAULT_ARTEFACT_PATTERN, 'i');
-  } catch {
+  const artefactPattern = artefactRegExp(computation.artefactPattern);
+  if (artefactPattern === null) {
     throw new AnalysisInputError(
       'artefactPattern',
-      `artefactPattern: expected a regular expression, got "${options.artefactPattern}"`,
+      `artefactPattern: expected a regular expression, got "${computation.artefactPattern}"`,
     );
   }
-  const onsets = chooseOnsets(recording, options, artefactPattern);
-  const kindChoice = options.kind ?? 'auto';
-  const kind = kindChoice === 'auto' ? (onsets.length > 0 ? 'task' : 'rest') : kindChoice;
+  const onsets = chooseOnsets(recording, settings.onsetLabel, context.onsets, artefactPattern);
+  const kind = context.kind === 'auto' ? (onsets.length > 0 ? 'task' : 'rest') : context.kind;
   if (kind === 'task' && onsets.length === 0) {
-    const where = options.onsets ? 'the onset list' : 'the annotations';
-    const label = options.onsetLabel ? ` labelled "${options.onsetLabel}"` : '';
+    const where = context.onsets ? 'the onset list' : 'the annotations';
+    const label = settings.onsetLabel ? ` labelled "${settings.onsetLabel}"` : '';
     throw new AnalysisInputError(
       'onsets',
       `onsets: a task analysis needs stimulus onsets, found none${label} in ${where}`,
     );
   }
-  const settings = resolveSettings(options, kind, onsets.length);
+  const { bandHz, bandSource } = resolveAnalysisBand(settings, iafHz);
+  const iafKnown = iafHz !== null && Number.isFinite(iafHz);
+  const used: ComputationUsed = {
+    ...computation,
+    morletCentreHz:
+      settings.method === 'morlet' ? (iafKnown ? iafHz : (bandHz[0] + bandHz[1]) / 2) : null,
+    bootstrapResamples: BOOTSTRAP_RESAMPLES,
+    bootstrapSeed: BOOTSTRAP_SEED,
+    medianWindowsSamples: {},
+    onsetCount: onsets.length,
+  };
 
   // Channels: the 10-10 scalp electrodes, or every signal when none is recognised.
   let channels: Channel[] = recording.signals.map((signal) => ({
     signal,
     electrode: normaliseChannelLabel(signal.label),
-    inRoi: false,
   }));
   if (channels.every((c) => c.electrode === null)) {
     warnings.push('No channel label is a 10-10 electrode: every signal is analysed.');
   } else {
     channels = channels.filter((c) => c.electrode !== null);
   }
-  const roiWanted = options.roiLabels ?? DEFAULT_POSTERIOR_ROI;
-  const roiFound = roiChannels(
-    channels.map((c) => c.signal.label),
-    roiWanted,
+  // Flat and saturation checks first: they decide the region before any channel is averaged.
+  const basics = channels.map((c) => channelQuality(c.signal));
+  const roiDecision = decideRoiUsage(
+    settings.roi,
+    channels.map((c, i) => ({
+      label: c.signal.label,
+      sampleRateHz: c.signal.sampleRateHz,
+      flat: basics[i].flat,
+      saturated: basics[i].saturated,
+    })),
   );
-  for (const r of roiFound) channels[r.index].inRoi = true;
-  const foundNames = new Set(roiFound.map((r) => r.canonical));
-  const roiMissing = roiWanted.filter(
-    (name) => !foundNames.has(normaliseChannelLabel(name) ?? name),
-  );
-  if (roiFound.length === 0) warnings.push('No channel of the region of interest was found.');
+  warnings.push(...roiDecision.warnings);
+  const inRoi = (index: number): boolean => roiDecision.used.has(index);
 
   const segments = dataSegments(recording, durationS);
   if (segments.length > 1) {
@@ -229,8 +271,8 @@ export function analyzeRecording(
   const trialReasons = screenTrials(onsetTimes, {
     recordingDurationS: durationS,
     segmentsS: segments,
-    epochS: settings.epochS,
-    edgeGuardS: settings.edgeGuardS,
+    epochWindowS: settings.epochWindowS,
+    edgeGuardS: computation.edgeGuardS,
     artefacts,
   });
   const dataTimes = onsetTimes.map((t) => toDataTimeS(t, segments));
@@ -239,62 +281,56 @@ export function analyzeRecording(
   const spectra: (PowerSpectrum | null)[] = [];
   const channelResults: ChannelResult[] = [];
   const workspace = new FrequencySlidingWorkspace();
-  const roiUsable = (c: Channel, q: ChannelQuality): boolean => c.inRoi && !q.flat && !q.saturated;
-  const roiRate = roiFound.length > 0 ? channels[roiFound[0].index].signal.sampleRateHz : null;
-  const roiPoints = roiRate ? epochPointCount(settings.epochS, roiRate) : 0;
+  const roiRate = roiDecision.sampleRateHz;
+  const roiPoints = roiRate ? epochPointCount(settings.epochWindowS, roiRate) : 0;
   const roiSum = new Float64Array(kind === 'task' ? onsets.length * roiPoints : 0);
   const roiCount = new Int32Array(onsets.length);
-  const roiChannelLabels: string[] = [];
+  let unknownUnitWarned = false;
 
   channels.forEach((channel, index) => {
     const { signal } = channel;
     const fs = signal.sampleRateHz;
-    const basic = channelQuality(signal);
     let spectrum: PowerSpectrum | null = null;
-    if (signal.samples.length >= Math.round(settings.welchSegmentS * fs)) {
+    if (signal.samples.length >= Math.round(computation.welchSegmentS * fs)) {
       spectrum = welchPowerSpectrum(signal.samples, {
         sampleRateHz: fs,
-        segmentS: settings.welchSegmentS,
-        overlapFraction: settings.welchOverlapFraction,
+        segmentS: computation.welchSegmentS,
+        overlapFraction: computation.welchOverlapFraction,
       });
     }
     const quality: ChannelQuality = {
-      ...basic,
+      ...basics[index],
       lineNoiseRatio50Hz: spectrum ? lineNoiseRatio(spectrum, 50) : null,
       lineNoiseRatio60Hz: spectrum ? lineNoiseRatio(spectrum, 60) : null,
       phaseSlipShare: null,
     };
-    if (channel.inRoi && !roiUsable(channel, quality)) {
-      warnings.push(
-        `Channel ${signal.label} is ${quality.flat ? 'flat' : 'saturated'}: left out of the region of interest.`,
-      );
-    }
     if (kind === 'task') {
       const sliding = frequencySliding(
         signal.samples,
         {
           sampleRateHz: fs,
-          bandHz: settings.bandHz,
+          bandHz,
           method: settings.method,
-          transitionFraction: settings.transitionFraction,
+          transitionFraction: computation.transitionFraction,
           morletCycles: settings.morletCycles,
-          iafHz: options.iafHz,
+          morletCentreHz: used.morletCentreHz ?? undefined,
         },
         workspace,
       );
-      settings.medianWindowsSamples[String(fs)] = sliding.medianWindowsSamples;
+      used.medianWindowsSamples[String(fs)] = sliding.medianWindowsSamples;
       quality.phaseSlipShare = sliding.outOfBandShare;
       const toUv = microvoltsPerUnit(signal.physicalDimension ?? 'uV');
-      if (toUv === null && index === 0) {
+      if (toUv === null && !unknownUnitWarned) {
+        unknownUnitWarned = true;
         warnings.push(`Unknown unit "${signal.physicalDimension}": amplitudes read as µV.`);
       }
-      const limit = settings.amplitudeLimitUv / (toUv ?? 1);
+      const limit = settings.rejectionThresholdUv / (toUv ?? 1);
       const reasons = trialReasons.map((r, trial) => {
         if (r) return r;
         const exceeds = epochExceedsAmplitude(signal.samples, {
           sampleRateHz: fs,
           onsetS: dataTimes[trial],
-          epochS: settings.epochS,
+          epochWindowS: settings.epochWindowS,
           limit,
         });
         return exceeds ? ('amplitude' as const) : null;
@@ -304,26 +340,21 @@ export function analyzeRecording(
         sampleRateHz: fs,
         firstTimeS: sliding.firstTimeS,
         onsetsS: dataTimes,
-        epochS: settings.epochS,
+        epochWindowS: settings.epochWindowS,
       });
-      const result = summariseOnsets(epochs, kept, reasons, fs, settings, options);
+      const result = summariseOnsets(epochs, kept, reasons, fs, settings, computation);
       channelResults.push({
         label: signal.label,
         electrode: channel.electrode,
-        inRoi: channel.inRoi,
+        inRoi: inRoi(index),
         ...result.summary,
       });
-      if (roiUsable(channel, quality) && fs === roiRate) {
-        roiChannelLabels.push(signal.label);
+      if (inRoi(index)) {
         for (const trial of kept) {
           roiCount[trial]++;
           const offset = trial * roiPoints;
           for (let i = 0; i < roiPoints; i++) roiSum[offset + i] += epochs[offset + i];
         }
-      } else if (roiUsable(channel, quality)) {
-        warnings.push(
-          `Channel ${signal.label} has another sampling rate: left out of the region of interest.`,
-        );
       }
     }
     qualities.push(quality);
@@ -332,7 +363,7 @@ export function analyzeRecording(
   });
 
   let roi: RoiResult | null = null;
-  if (kind === 'task' && roiRate !== null && roiChannelLabels.length > 0) {
+  if (kind === 'task' && roiRate !== null) {
     const reasons = trialReasons.map(
       (r, trial) => r ?? (roiCount[trial] > 0 ? null : ('amplitude' as const)),
     );
@@ -341,41 +372,29 @@ export function analyzeRecording(
       const offset = trial * roiPoints;
       for (let i = 0; i < roiPoints; i++) roiSum[offset + i] /= roiCount[trial];
     }
-    const result = summariseOnsets(roiSum, kept, reasons, roiRate, settings, options);
+    const result = summariseOnsets(roiSum, kept, reasons, roiRate, settings, computation);
     roi = {
       ...result.summary,
-      channels: roiChannelLabels,
+      channels: [...roiDecision.usage.used],
+      trialOnsetsS: kept.map((trial) => onsetTimes[trial]),
       raster: result.raster,
       rasterTrials: kept.length,
       rasterPoints: result.summary.curve.timesS.length,
     };
   }
 
-  // Resting spectrum over the usable region-of-interest channels (all channels if none).
-  const roiSpectra = spectra.filter(
-    (s, i): s is PowerSpectrum => s !== null && roiUsable(channels[i], qualities[i]),
-  );
-  const spectrumChannels =
-    roiSpectra.length > 0 ? roiSpectra : spectra.filter((s): s is PowerSpectrum => s !== null);
-  const spectrumLabels = channels
-    .filter(
-      (c, i) => spectra[i] !== null && (roiSpectra.length === 0 || roiUsable(c, qualities[i])),
-    )
-    .map((c) => c.signal.label);
+  // The resting spectrum averages the region's channels only: never a silent fallback.
+  const roiIndices = channels.flatMap((_, i) => (inRoi(i) && spectra[i] !== null ? [i] : []));
   let restSpectrum: PowerSpectrum | null = null;
-  if (spectrumChannels.length > 0) {
-    const first = spectrumChannels[0];
-    const sameBins = spectrumChannels.filter(
-      (s) => s.segmentSamples === first.segmentSamples && s.frequencyHz[1] === first.frequencyHz[1],
-    );
-    restSpectrum = meanSpectrum(sameBins);
-  } else {
+  if (roiIndices.length > 0) {
+    restSpectrum = meanSpectrum(roiIndices.map((i) => spectra[i] as PowerSpectrum));
+  } else if (roiRate !== null) {
     warnings.push('The recording is shorter than one Welch segment: no spectrum.');
   }
   const peak = restSpectrum
     ? alphaPeak(restSpectrum, {
-        searchHz: settings.alphaSearchHz,
-        minProminenceDb: settings.minPeakProminenceDb,
+        searchHz: computation.alphaSearchHz,
+        minProminenceDb: computation.minPeakProminenceDb,
       })
     : null;
   let rest: RestResult | null = null;
@@ -384,24 +403,26 @@ export function analyzeRecording(
     while (bins < restSpectrum.frequencyHz.length && restSpectrum.frequencyHz[bins] <= 60) bins++;
     rest = {
       pafHz: peak.pafHz,
-      cogHz: centreOfGravity(restSpectrum, { bandHz: settings.cogBandHz }),
+      cogHz: centreOfGravity(restSpectrum, { bandHz: computation.cogBandHz }),
       prominenceDb: peak.prominenceDb,
       noPeakReason: peak.noPeakReason,
       spectrum: {
         frequencyHz: restSpectrum.frequencyHz.slice(0, bins),
         powerPerHz: restSpectrum.powerPerHz.slice(0, bins),
       },
-      channels: spectrumLabels,
+      channels: roiIndices.map((i) => channels[i].signal.label),
     };
   }
 
-  const roiQualities = qualities.filter((q, i) => roiUsable(channels[i], q));
+  const roiQualities = qualities.filter((_, i) => inRoi(i));
   const slips = roiQualities.map((q) => q.phaseSlipShare).filter((v): v is number => v !== null);
   const qc: QualityResult = {
     durationS,
     sampleRatesHz: [...new Set(channels.map((c) => c.signal.sampleRateHz))],
-    roiChannelsFound: roiFound.map((r) => r.label),
-    roiChannelsMissing: roiMissing,
+    roiChannelsFound: roiDecision.found,
+    roiChannelsMissing: roiDecision.usage.leftOut
+      .filter((o) => o.reason === 'missing')
+      .map((o) => o.label),
     flatChannels: qualities.filter((q) => q.flat).map((q) => q.label),
     saturatedChannels: qualities.filter((q) => q.saturated).map((q) => q.label),
     lineNoiseRatio50Hz: medianOf(
@@ -416,7 +437,20 @@ export function analyzeRecording(
     channels: qualities,
   };
   progress(1);
-  return { kind, settings, channels: channelResults, roi, rest, qc, warnings };
+  return {
+    kind,
+    settings,
+    iafHz,
+    bandHz,
+    bandSource,
+    computation: used,
+    roiUsage: roiDecision.usage,
+    channels: channelResults,
+    roi,
+    rest,
+    qc,
+    warnings,
+  };
 }
 
 function summariseOnsets(
@@ -424,33 +458,34 @@ function summariseOnsets(
   kept: readonly number[],
   reasons: readonly (EpochDropReason | null)[],
   sampleRateHz: number,
-  settings: ResolvedSettings,
-  options: AnalysisOptions,
+  settings: Readonly<AnalysisSettings>,
+  computation: AnalysisComputation,
 ): { summary: OnsetResult; raster: Float32Array } {
-  const points = epochPointCount(settings.epochS, sampleRateHz);
+  const { epochWindowS } = settings;
+  const points = epochPointCount(epochWindowS, sampleRateHz);
   const baseline = trialWindowMeans(
     epochs,
     points,
     kept,
-    epochPointRange(settings.epochS, sampleRateHz, settings.baselineS),
+    epochPointRange(epochWindowS, sampleRateHz, settings.baselineWindowS),
   );
   const post = trialWindowMeans(
     epochs,
     points,
     kept,
-    epochPointRange(settings.epochS, sampleRateHz, settings.postS),
+    epochPointRange(epochWindowS, sampleRateHz, settings.postWindowS),
   );
   const stats = onsetStatistics(baseline, post, {
-    resamples: settings.bootstrapResamples,
-    seed: settings.bootstrapSeed,
-    slowingThresholdHz: settings.slowingThresholdHz,
+    resamples: BOOTSTRAP_RESAMPLES,
+    seed: BOOTSTRAP_SEED,
+    flagThresholdHz: settings.flagThresholdHz,
   });
   const curve = onsetCurve(epochs, {
     points,
     trials: kept,
-    epochS: settings.epochS,
+    epochWindowS,
     sampleRateHz,
-    maxPoints: options.maxCurvePoints,
+    maxPoints: computation.maxCurvePoints,
   });
   return {
     summary: {

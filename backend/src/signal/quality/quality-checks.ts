@@ -32,21 +32,75 @@ export function standardDeviation(samples: Float32Array | Float64Array): number 
 }
 
 /**
- * Share of samples at the physical minimum or maximum of the signal, where the
- * amplifier or the converter clips (within 0.1 % of the range, common practice).
+ * The converter's range of one signal: physical values of its lowest and highest digital
+ * value (EDF: physicalMin/Max written for digitalMin/Max, Kemp et al. 1992).
  */
-export function saturatedShare(
+export interface ConverterRange {
+  physicalMin: number;
+  physicalMax: number;
+  /** Lowest digital value; default −32768, the EDF 16-bit floor (Kemp et al. 1992). */
+  digitalMin?: number;
+  /** Highest digital value; default 32767, the EDF 16-bit ceiling (Kemp et al. 1992). */
+  digitalMax?: number;
+}
+
+/** The 16-bit two's-complement range of EDF samples (Kemp et al. 1992). */
+export const EDF_DIGITAL_RANGE: readonly [number, number] = [-32768, 32767];
+
+/**
+ * Shortest run of consecutive samples at one rail of the converter that counts as clipping:
+ * 5 samples (common practice). A smooth rhythm whose header range was written at or just
+ * above its peak touches the rail for a sample or two at most; an amplifier or converter
+ * that saturates sits there for many.
+ */
+export const SATURATION_MIN_RUN_SAMPLES = 5;
+
+/**
+ * A channel is saturated when its rail runs (see `SATURATION_MIN_RUN_SAMPLES`) cover more
+ * than this share of its samples: 1 % (common practice).
+ */
+export const SATURATION_MAX_SHARE = 0.01;
+
+/**
+ * One quantisation step in physical units: (pmax − pmin) / (dmax − dmin), the gain of
+ * Kemp et al. 1992's physical-value formula.
+ */
+export function quantisationStep(range: ConverterRange): number {
+  const dmin = range.digitalMin ?? EDF_DIGITAL_RANGE[0];
+  const dmax = range.digitalMax ?? EDF_DIGITAL_RANGE[1];
+  return Math.abs(range.physicalMax - range.physicalMin) / Math.abs(dmax - dmin);
+}
+
+/**
+ * Share of samples that lie in runs of at least `minRunSamples` consecutive samples at one
+ * rail of the converter. A sample is at a rail when it is within half a quantisation step of
+ * physicalMin or physicalMax (its digital value is digitalMin or digitalMax), or beyond it.
+ */
+export function railRunShare(
   samples: Float32Array | Float64Array,
-  physicalRange: { min: number; max: number },
+  range: ConverterRange,
+  minRunSamples: number = SATURATION_MIN_RUN_SAMPLES,
 ): number {
-  if (samples.length === 0) return 0;
-  const tolerance = Math.abs(physicalRange.max - physicalRange.min) * 1e-3;
-  let count = 0;
-  for (let i = 0; i < samples.length; i++) {
-    const v = samples[i];
-    if (v <= physicalRange.min + tolerance || v >= physicalRange.max - tolerance) count++;
+  const n = samples.length;
+  if (n === 0) return 0;
+  const halfStep = quantisationStep(range) / 2;
+  const low = Math.min(range.physicalMin, range.physicalMax) + halfStep;
+  const high = Math.max(range.physicalMin, range.physicalMax) - halfStep;
+  let inRuns = 0;
+  let rail = 0;
+  let run = 0;
+  for (let i = 0; i <= n; i++) {
+    const v = i < n ? samples[i] : NaN;
+    const at = v <= low ? -1 : v >= high ? 1 : 0;
+    if (at !== 0 && at === rail) {
+      run++;
+      continue;
+    }
+    if (rail !== 0 && run >= minRunSamples) inRuns += run;
+    rail = at;
+    run = at === 0 ? 0 : 1;
   }
-  return count / samples.length;
+  return inRuns / n;
 }
 
 /**
@@ -78,19 +132,23 @@ export function lineNoiseRatio(spectrum: PowerSpectrum, lineHz: number): number 
 export interface ChannelQualityThresholds {
   /** Standard deviation below which a channel counts as flat, µV (default 0.5, common practice). */
   flatBelowUv?: number;
-  /** Share of clipped samples above which a channel counts as saturated (default 0.01). */
+  /** Shortest rail run that counts as clipping, samples (default `SATURATION_MIN_RUN_SAMPLES`). */
+  saturationMinRunSamples?: number;
+  /** Share of samples in rail runs above which a channel is saturated (default `SATURATION_MAX_SHARE`). */
   saturatedAboveShare?: number;
 }
 
-export const DEFAULT_QUALITY_THRESHOLDS: Required<ChannelQualityThresholds> = {
+export const DEFAULT_QUALITY_THRESHOLDS: Readonly<Required<ChannelQualityThresholds>> = {
   flatBelowUv: 0.5,
-  saturatedAboveShare: 0.01,
+  saturationMinRunSamples: SATURATION_MIN_RUN_SAMPLES,
+  saturatedAboveShare: SATURATION_MAX_SHARE,
 };
 
 export interface ChannelQuality {
   label: string;
   standardDeviationUv: number | null;
   flat: boolean;
+  /** Share of samples in runs at the converter's rails (see `railRunShare`); null without a range. */
   saturatedShare: number | null;
   saturated: boolean;
   lineNoiseRatio50Hz: number | null;
@@ -99,7 +157,10 @@ export interface ChannelQuality {
   phaseSlipShare: number | null;
 }
 
-/** Flat and saturation checks of one channel (METHOD.md §6). */
+/**
+ * Flat and saturation checks of one channel (METHOD.md §6). Saturated: rail runs of at least
+ * `saturationMinRunSamples` cover more than `saturatedAboveShare` of the samples.
+ */
 export function channelQuality(
   signal: {
     label: string;
@@ -107,6 +168,8 @@ export function channelQuality(
     physicalDimension?: string;
     physicalMin?: number;
     physicalMax?: number;
+    digitalMin?: number;
+    digitalMax?: number;
   },
   thresholds: ChannelQualityThresholds = {},
 ): Pick<ChannelQuality, 'label' | 'standardDeviationUv' | 'flat' | 'saturatedShare' | 'saturated'> {
@@ -116,7 +179,16 @@ export function channelQuality(
   const sdUv = toUv === null ? null : sd * toUv;
   const share =
     signal.physicalMin !== undefined && signal.physicalMax !== undefined
-      ? saturatedShare(signal.samples, { min: signal.physicalMin, max: signal.physicalMax })
+      ? railRunShare(
+          signal.samples,
+          {
+            physicalMin: signal.physicalMin,
+            physicalMax: signal.physicalMax,
+            digitalMin: signal.digitalMin,
+            digitalMax: signal.digitalMax,
+          },
+          t.saturationMinRunSamples,
+        )
       : null;
   return {
     label: signal.label,

@@ -1,0 +1,120 @@
+/**
+ * The signal core's public API, published as `@gyre/backend/signal` (built to
+ * `dist/signal/index.js` with its declarations). Other workspaces (the demo seeder, the
+ * browser tests) import from here only, never by a path into `backend/src` or `backend/dist`.
+ * The core itself imports nothing from the rest of the backend.
+ */
+
+// EDF/EDF+ reading and writing (Kemp et al. 1992; Kemp & Olivan 2003).
+export {
+  blankPatientField,
+  blankRecordingField,
+  EDF_ANNOTATIONS_LABEL,
+  EdfFormatError,
+  EdfStreamReader,
+  readEdf,
+  readEdfHeader,
+  toMicrovolts,
+  writeEdf,
+} from './edf';
+export type {
+  EdfAnnotation,
+  EdfHeader,
+  EdfHeaderInfo,
+  EdfRecording,
+  EdfSignal,
+  EdfSignalHeader,
+  EdfWriteSignal,
+  EdfWriteSpec,
+  ReadEdfOptions,
+} from './edf';
+export { readEdfFile } from './pipeline/read-edf-file';
+export type { EdfFileRead, ReadEdfFileOptions } from './pipeline/read-edf-file';
+
+// Onsets and channel names.
+export {
+  artefactRegExp,
+  isStimulusAnnotation,
+  OnsetCsvError,
+  parseOnsetCsv,
+  stimulusAnnotations,
+} from './onsets';
+export type { ParseOnsetCsvOptions, StimulusOnset } from './onsets';
+export {
+  canonicalElectrodeName,
+  DEFAULT_POSTERIOR_ROI,
+  normaliseChannelLabel,
+  roiChannels,
+} from './channels';
+export type { RoiChannel } from './channels';
+
+// The one settings vocabulary and the computation knobs.
+export {
+  BOOTSTRAP_RESAMPLES,
+  BOOTSTRAP_SEED,
+  copyAnalysisSettings,
+  DEFAULT_ALPHA_BAND_HZ,
+  DEFAULT_ANALYSIS_SETTINGS,
+  IAF_HALF_WIDTH_HZ,
+  resolveAnalysisBand,
+} from './pipeline/analysis-settings';
+export type {
+  AnalysisBandSource,
+  AnalysisSettings,
+  NarrowBandMethodName,
+} from './pipeline/analysis-settings';
+export {
+  DEFAULT_ANALYSIS_COMPUTATION,
+  DEFAULT_ARTEFACT_PATTERN,
+  resolveComputation,
+} from './pipeline/analysis-computation';
+export type {
+  AnalysisComputation,
+  AnalysisComputationOptions,
+} from './pipeline/analysis-computation';
+
+// The analysis and its results.
+export { AnalysisInputError, analyzeRecording } from './pipeline/analyze-recording';
+export type {
+  AnalysisAnnotation,
+  AnalysisContext,
+  AnalysisRecording,
+  AnalysisResult,
+  AnalysisSignal,
+  ChannelResult,
+  ComputationUsed,
+  DropCounts,
+  OnsetCurveResult,
+  OnsetInput,
+  OnsetResult,
+  QualityResult,
+  RecordingKindChoice,
+  RestResult,
+  RoiResult,
+  RoiUsage,
+} from './pipeline/analysis.types';
+export {
+  analyzeEdfRecording,
+  isAnalysedSignal,
+  readRecordingForAnalysis,
+} from './pipeline/analyze-edf-recording';
+export type { AnalysisRunRequest } from './pipeline/analyze-edf-recording';
+export { toAnalyzeOutcome } from './pipeline/run-summary';
+export type { AnalyzeOutcome, ResultSeries, RunSummary } from './pipeline/run-summary';
+
+// Quality checks (flat and saturated channels, line noise).
+export {
+  channelQuality,
+  DEFAULT_QUALITY_THRESHOLDS,
+  EDF_DIGITAL_RANGE,
+  lineNoiseRatio,
+  quantisationStep,
+  railRunShare,
+  SATURATION_MAX_SHARE,
+  SATURATION_MIN_RUN_SAMPLES,
+} from './quality/quality-checks';
+export type {
+  ChannelQuality,
+  ChannelQualityThresholds,
+  ConverterRange,
+} from './quality/quality-checks';

@@ -1,0 +1,78 @@
+import type { AnalysisSettingsValues, BandSource } from '@gyre/shared';
+import {
+  AnalysisBandSource,
+  AnalysisSettings,
+  copyAnalysisSettings,
+  DEFAULT_ANALYSIS_SETTINGS,
+  resolveAnalysisBand,
+} from './analysis-settings';
+
+/**
+ * True only when A and B are the same type (mutually assignable with the same optional and
+ * readonly modifiers): the conditional types compare equal only for identical types, a
+ * known property of TypeScript's type checker.
+ */
+type Same<A, B> =
+  (<T>() => T extends A ? 1 : 2) extends <T>() => T extends B ? 1 : 2 ? true : false;
+
+// Compile-time checks (`tsc --noEmit -p backend/tsconfig.json`): each line stops compiling
+// when the signal core's settings and the API's settings drift apart.
+const sameSettings: Same<AnalysisSettings, AnalysisSettingsValues> = true;
+const sameKeys: Same<keyof AnalysisSettings, keyof AnalysisSettingsValues> = true;
+const sameBandSource: Same<AnalysisBandSource, BandSource> = true;
+const toApi = (s: AnalysisSettings): AnalysisSettingsValues => s;
+const fromApi = (s: AnalysisSettingsValues): AnalysisSettings => s;
+
+/** Every key of the API type, enforced by the compiler (a missing or extra key does not compile). */
+const API_KEYS: Record<keyof AnalysisSettingsValues, true> = {
+  bandHz: true,
+  method: true,
+  morletCycles: true,
+  epochWindowS: true,
+  baselineWindowS: true,
+  postWindowS: true,
+  rejectionThresholdUv: true,
+  flagThresholdHz: true,
+  roi: true,
+  onsetLabel: true,
+};
+
+describe('AnalysisSettings is the API settings type', () => {
+  it('compiles as the same type as @gyre/shared AnalysisSettingsValues', () => {
+    expect([sameSettings, sameKeys, sameBandSource]).toEqual([true, true, true]);
+    const copy = copyAnalysisSettings(DEFAULT_ANALYSIS_SETTINGS);
+    expect(fromApi(toApi(copy))).toBe(copy);
+  });
+
+  it('has defaults with exactly the API keys', () => {
+    expect(Object.keys(DEFAULT_ANALYSIS_SETTINGS).sort()).toEqual(Object.keys(API_KEYS).sort());
+  });
+
+  it('copies without sharing arrays', () => {
+    const copy = copyAnalysisSettings(DEFAULT_ANALYSIS_SETTINGS);
+    expect(copy).toEqual(DEFAULT_ANALYSIS_SETTINGS);
+    copy.roi.push('Fz');
+    copy.epochWindowS[0] = -2;
+    expect(DEFAULT_ANALYSIS_SETTINGS.roi).not.toContain('Fz');
+    expect(DEFAULT_ANALYSIS_SETTINGS.epochWindowS[0]).toBe(-1);
+  });
+});
+
+describe('resolveAnalysisBand', () => {
+  // Gyre's rule (common practice): a fixed band wins, else the resting IAF ± 2 Hz, else 8–13 Hz.
+  it('takes the fixed band, the IAF ± 2 Hz, or 8–13 Hz, and says which', () => {
+    expect(resolveAnalysisBand({ bandHz: [7, 12] }, 10)).toEqual({
+      bandHz: [7, 12],
+      bandSource: 'settings',
+    });
+    expect(resolveAnalysisBand({ bandHz: null }, 9.5)).toEqual({
+      bandHz: [7.5, 11.5],
+      bandSource: 'iaf',
+    });
+    expect(resolveAnalysisBand({ bandHz: null }, null)).toEqual({
+      bandHz: [8, 13],
+      bandSource: 'default',
+    });
+    expect(resolveAnalysisBand({ bandHz: null }, Number.NaN).bandSource).toBe('default');
+  });
+});

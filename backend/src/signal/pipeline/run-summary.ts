@@ -1,0 +1,206 @@
+/**
+ * The one shape of a run's results, owned by the signal core: the worker stores it, the
+ * command line prints it. Plain data and Float64Arrays only, so it crosses a thread boundary
+ * by structured clone (series by transfer).
+ */
+import type { ChannelStatsDto, QualityDto, RoiUsageDto } from '@gyre/shared';
+import type { AnalysisBandSource } from './analysis-settings';
+import type { AnalysisResult, OnsetResult } from './analysis.types';
+
+/**
+ * Named numeric series of one run: `timeS`, `roi:mean|ciLow|ciHigh`,
+ * `channel:<label>:mean|ciLow|ciHigh`, `raster:timeS`, `raster` (trials × points,
+ * row-major), `trialDeltaFHz`, `rest:frequencyHz`, `rest:powerUv2PerHz`. NaN stands for
+ * "no value".
+ */
+export type ResultSeries = Record<string, Float64Array>;
+
+/** The small, JSON-friendly part of a run's results. */
+export interface RunSummary {
+  /** The band the run used and where it came from (`resolveAnalysisBand`). */
+  bandHz: [number, number];
+  bandSource: AnalysisBandSource;
+  /** Which region-of-interest channels the numbers come from, and why others were left out. */
+  roiUsage: RoiUsageDto;
+  channels: ChannelStatsDto[];
+  /** Task recordings: the region of interest's statistics over trials; null without a region. */
+  roi: {
+    baselineHz: number | null;
+    postHz: number | null;
+    deltaFHz: number | null;
+    ciHz: [number, number] | null;
+    pValue: number | null;
+    trialsKept: number;
+    trialsTotal: number;
+  } | null;
+  task: {
+    baselineWindowS: [number, number];
+    postWindowS: [number, number];
+    epochs: { total: number; kept: number; dropped: Record<string, number> };
+    /** Onset of each raster row (kept trial), s from the recording start. */
+    trialOnsetsS: number[];
+    /** Names of the per-channel curves in `series` (`channel:<label>:mean|ciLow|ciHigh`). */
+    curveChannels: string[];
+    rasterTrials: number;
+    rasterPoints: number;
+  } | null;
+  /** Resting recordings: null when no region-of-interest channel remains. */
+  rest: {
+    pafHz: number | null;
+    cogHz: number | null;
+    prominenceDb: number | null;
+    noPeakReason: string | null;
+    alphaWindowHz: [number, number];
+  } | null;
+  quality: QualityDto;
+  suggestsSlowing: boolean | null;
+}
+
+export interface AnalyzeOutcome {
+  summary: RunSummary;
+  series: ResultSeries;
+}
+
+const copy = (values: ArrayLike<number>): Float64Array => Float64Array.from(values);
+
+/**
+ * A result in Gyre's stored shape. Every series is a fresh Float64Array, so each has its own
+ * buffer to transfer; `readerWarnings` (the EDF reader's) come first in the quality warnings.
+ */
+export function toAnalyzeOutcome(
+  result: AnalysisResult,
+  readerWarnings: readonly string[],
+): AnalyzeOutcome {
+  const series: ResultSeries = {};
+  let task: RunSummary['task'] = null;
+  let roi: RunSummary['roi'] = null;
+  const curveChannels: string[] = [];
+  if (result.kind === 'task' && result.roi !== null) {
+    const r = result.roi;
+    series.timeS = copy(r.curve.timesS);
+    putCurve(series, 'roi', r);
+    for (const channel of result.channels) {
+      if (channel.curve.meanHz.length === 0) continue;
+      putCurve(series, `channel:${channel.label}`, channel);
+      curveChannels.push(channel.label);
+    }
+    series['raster:timeS'] =
+      r.rasterPoints === r.curve.timesS.length
+        ? copy(r.curve.timesS)
+        : evenlySpaced(result.settings.epochWindowS, r.rasterPoints);
+    series.raster = copy(r.raster);
+    series.trialDeltaFHz = Float64Array.from(
+      r.trialPostHz,
+      (post, i) => post - r.trialBaselineHz[i],
+    );
+    roi = {
+      baselineHz: r.baselineHz,
+      postHz: r.postHz,
+      deltaFHz: r.deltaFHz,
+      ciHz: r.ciHz,
+      pValue: r.pValue,
+      trialsKept: r.trialsKept,
+      trialsTotal: r.trialsKept + r.trialsDropped,
+    };
+    task = {
+      baselineWindowS: [...result.settings.baselineWindowS],
+      postWindowS: [...result.settings.postWindowS],
+      epochs: {
+        total: r.trialsKept + r.trialsDropped,
+        kept: r.trialsKept,
+        dropped: { ...r.dropReasons },
+      },
+      trialOnsetsS: [...r.trialOnsetsS],
+      curveChannels,
+      rasterTrials: r.rasterTrials,
+      rasterPoints: r.rasterPoints,
+    };
+  }
+  let rest: RunSummary['rest'] = null;
+  if (result.rest !== null) {
+    series['rest:frequencyHz'] = copy(result.rest.spectrum.frequencyHz);
+    series['rest:powerUv2PerHz'] = copy(result.rest.spectrum.powerPerHz);
+    rest = {
+      pafHz: result.rest.pafHz,
+      cogHz: result.rest.cogHz,
+      prominenceDb: result.rest.prominenceDb,
+      noPeakReason: result.rest.noPeakReason,
+      alphaWindowHz: [...result.computation.alphaSearchHz],
+    };
+  }
+  const used = new Set(result.roiUsage.used);
+  const channels: ChannelStatsDto[] =
+    result.channels.length > 0
+      ? result.channels.map((c) => ({
+          label: c.label,
+          canonical: c.electrode,
+          inRoi: c.inRoi,
+          baselineHz: c.baselineHz,
+          postHz: c.postHz,
+          deltaFHz: c.deltaFHz,
+          ciHz: c.ciHz,
+          pValue: c.pValue,
+          trials: c.trialsKept,
+        }))
+      : result.qc.channels.map((c) => ({
+          label: c.label,
+          canonical: null,
+          inRoi: used.has(c.label),
+          baselineHz: null,
+          postHz: null,
+          deltaFHz: null,
+          ciHz: null,
+          pValue: null,
+          trials: null,
+        }));
+  const qc = result.qc;
+  const quality: QualityDto = {
+    durationS: qc.durationS,
+    sampleRatesHz: [...qc.sampleRatesHz],
+    roiChannelsFound: [...qc.roiChannelsFound],
+    roiChannelsMissing: [...qc.roiChannelsMissing],
+    flatChannels: [...qc.flatChannels],
+    saturatedChannels: [...qc.saturatedChannels],
+    lineNoiseRatio50Hz: qc.lineNoiseRatio50Hz,
+    lineNoiseRatio60Hz: qc.lineNoiseRatio60Hz,
+    epochsDroppedShare: qc.epochsDroppedShare,
+    phaseSlipShare: qc.phaseSlipShare,
+    alphaPeakProminenceDb: qc.alphaPeakProminenceDb,
+    channels: qc.channels.map((c) => ({ ...c })),
+    warnings: [...readerWarnings, ...result.warnings],
+  };
+  return {
+    summary: {
+      bandHz: [...result.bandHz],
+      bandSource: result.bandSource,
+      roiUsage: {
+        wanted: [...result.roiUsage.wanted],
+        used: [...result.roiUsage.used],
+        leftOut: result.roiUsage.leftOut.map((o) => ({ ...o })),
+        status: result.roiUsage.status,
+      },
+      channels,
+      roi,
+      task,
+      rest,
+      quality,
+      suggestsSlowing:
+        result.kind === 'task' && result.roi !== null ? result.roi.suggestsSlowing : null,
+    },
+    series,
+  };
+}
+
+function putCurve(series: ResultSeries, prefix: string, result: OnsetResult): void {
+  series[`${prefix}:mean`] = copy(result.curve.meanHz);
+  series[`${prefix}:ciLow`] = copy(result.curve.lowerHz);
+  series[`${prefix}:ciHigh`] = copy(result.curve.upperHz);
+}
+
+function evenlySpaced([start, end]: readonly [number, number], points: number): Float64Array {
+  if (points <= 1) return Float64Array.of(start);
+  return Float64Array.from(
+    { length: points },
+    (_, i) => start + ((end - start) * i) / (points - 1),
+  );
+}
