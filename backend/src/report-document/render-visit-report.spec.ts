@@ -4,8 +4,8 @@ import { ReportRenderer } from './report-renderer';
 import { ReportModelError } from './validate-report-model';
 import { RESEARCH_CAUTION, SIGNATURE_MEANING } from './report-wording';
 import { readPdfText } from './testing/read-pdf-text';
-import { sampleVisitReportModel } from './testing/sample-visit-report-model';
-import { VisitReportModel } from './visit-report-model';
+import { SAMPLE_NO_ROI, sampleVisitReportModel } from './testing/sample-visit-report-model';
+import { RestSection, TaskSection, VisitReportModel } from './visit-report-model';
 
 // The model is generated (sampleVisitReportModel); every PDF is read back with pdf-parse 2
 // (pdf.js) in a separate process, so the checks are on what a reader of the file sees.
@@ -26,6 +26,45 @@ const signature = {
   signedAtIso: '2026-12-01T22:40:05.000Z',
   meaning: SIGNATURE_MEANING,
 };
+
+/** The text of one section: from its heading up to the next section's heading. */
+function section(text: string, heading: string, nextHeading: string): string {
+  const start = text.indexOf(heading);
+  const end = text.indexOf(nextHeading, start);
+  if (start < 0 || end < 0) throw new Error(`No section "${heading}" … "${nextHeading}".`);
+  return text.slice(start, end);
+}
+
+const TASK_HEADING = 'Task: alpha frequency around stimulus onset';
+const REST_HEADING = 'Rest: individual alpha frequency';
+
+/** The sample's task section with no region-of-interest channel left. */
+function noRoiTask(): TaskSection {
+  return {
+    ...sampleVisitReportModel().task!,
+    deltaFHz: null,
+    ciHz: null,
+    pValue: null,
+    onsetCurve: { timeS: [], meanHz: [], ciLowHz: [], ciHighHz: [] },
+    roiUsage: SAMPLE_NO_ROI,
+  };
+}
+
+/** The sample's rest section with no region-of-interest channel left. */
+function noRoiRest(): RestSection {
+  return {
+    ...sampleVisitReportModel().rest!,
+    pafHz: null,
+    cogHz: null,
+    prominenceDb: null,
+    spectrum: { frequencyHz: [], powerUv2PerHz: [] },
+    roiUsage: SAMPLE_NO_ROI,
+  };
+}
+
+async function renderText(model: VisitReportModel): Promise<string> {
+  return squash((await readPdfText(await renderVisitReport(model))).text);
+}
 
 describe('renderVisitReport', () => {
   let draftModel: VisitReportModel;
@@ -173,7 +212,7 @@ describe('renderVisitReport', () => {
     expect(text).toContain('Reason Δf < 0 in Ωz-free ROI');
   });
 
-  it('says "no clear peak" with the reason instead of forcing a PAF (METHOD.md §4)', async () => {
+  it('says "no clear peak" with the reason instead of forcing a PAF (docs/method.md §4)', async () => {
     const base = sampleVisitReportModel();
     const model = sampleVisitReportModel({
       rest: { ...base.rest!, pafHz: null, prominenceDb: null, noPeakReason: 'below-prominence' },
@@ -213,5 +252,182 @@ describe('renderVisitReport', () => {
     await expect(
       renderVisitReport(sampleVisitReportModel({ visit: { label: 'V1', date: '20/11/2026' } })),
     ).rejects.toThrow('Report field visit.date: found "20/11/2026", expected YYYY-MM-DD.');
+  });
+  it('names the region-of-interest channels each result rests on, and why some were left out', () => {
+    const text = draftPages.join(' ');
+    expect(section(text, REST_HEADING, TASK_HEADING)).toContain(
+      'Region of interest: O1, O2, Oz, Pz (all 4 wanted).',
+    );
+    expect(section(text, TASK_HEADING, 'Quality checks')).toContain(
+      'Region of interest: O1, O2, Pz (3 of 5 wanted). Left out: Oz — saturated (runs at the ' +
+        "converter's limit); POz — not in the file.",
+    );
+  });
+
+  it('marks a headline number that rests on part of the region of interest on its own row', async () => {
+    const draft = draftPages.join(' ');
+    expect(section(draft, TASK_HEADING, 'Quality checks')).toContain(
+      'Δf (post − baseline) \u22120.287 Hz (negative = slowing); from 3 of 5 region-of-interest ' +
+        'channels',
+    );
+    expect(section(draft, REST_HEADING, TASK_HEADING)).not.toContain('region-of-interest channels');
+    const base = sampleVisitReportModel();
+    const text = await renderText(
+      sampleVisitReportModel({ rest: { ...base.rest!, roiUsage: base.task!.roiUsage } }),
+    );
+    expect(section(text, REST_HEADING, TASK_HEADING)).toContain(
+      'Peak alpha frequency (PAF) 10.21 Hz; from 3 of 5 region-of-interest channels',
+    );
+  });
+
+  it('prints the recording the numbers come from, and the one it replaced with the reason', () => {
+    const text = draftPages.join(' ');
+    expect(section(text, REST_HEADING, TASK_HEADING)).toContain(
+      'Numbers from recording 7a3e9c10, uploaded 2026-11-20 09:14:02 UTC.',
+    );
+    expect(section(text, REST_HEADING, TASK_HEADING)).not.toContain('replaces recording');
+    expect(section(text, TASK_HEADING, 'Quality checks')).toContain(
+      'Numbers from recording e41b07d2, uploaded 2026-11-20 10:02:47 UTC; replaces recording ' +
+        '5c2f8a61: Wrong onset file attached to the first upload.',
+    );
+  });
+
+  it('says "no reason recorded" when a replacement came without one', async () => {
+    const base = sampleVisitReportModel();
+    const text = await renderText(
+      sampleVisitReportModel({
+        task: { ...base.task!, source: { ...base.task!.source, replacementReason: '  ' } },
+      }),
+    );
+    expect(text).toContain('replaces recording 5c2f8a61 (no reason recorded).');
+  });
+
+  it('says beside the flag suggestion how many channels it rests on when some were left out', () => {
+    const text = section(draftPages.join(' '), 'Slowing flag', 'Provenance');
+    expect(text).toContain('The computation suggests a slowing flag');
+    expect(text).toContain('It rests on 3 of 5 region-of-interest channels (see Task).');
+  });
+
+  it('prints no Δf, no plot and the reasons when no task ROI channel remains', async () => {
+    // Stored as false by a caller that coerced "no suggestion": must not read as "no slowing".
+    const model = sampleVisitReportModel({
+      task: noRoiTask(),
+      flagSuggestion: { suggestsSlowing: false, flagThresholdHz: -0.2 },
+    });
+    const text = await renderText(model);
+    const task = section(text, TASK_HEADING, 'Quality checks');
+    expect(task).toContain(
+      'No region-of-interest channel remains: O1 — flat; O2 — saturated (runs at the ' +
+        "converter's limit); Oz — another sampling rate; Pz — left out by the analyst's visit " +
+        'setting; POz — not in the file. No Δf is reported.',
+    );
+    expect(task).toContain('Analysed recording e41b07d2, uploaded 2026-11-20 10:02:47 UTC;');
+    expect(task).not.toContain('Numbers from');
+    expect(task).not.toMatch(/\d\.\d{3} Hz/);
+    expect(task).not.toContain('Δf (post − baseline)');
+    expect(task).not.toContain('Wilcoxon');
+    expect(text).not.toContain('Time from stimulus onset (s)');
+    expect(text).not.toContain('No task result');
+    const flag = section(text, 'Slowing flag', 'Provenance');
+    expect(flag).toContain('No suggestion: no region-of-interest channel remains');
+    expect(flag).not.toContain('does not suggest');
+  });
+
+  it('says "No suggestion" for a task without ROI channels even when no suggestion was stored', async () => {
+    const text = await renderText(
+      sampleVisitReportModel({ task: noRoiTask(), flagSuggestion: null }),
+    );
+    expect(section(text, 'Slowing flag', 'Provenance')).toContain(
+      'No suggestion: no region-of-interest channel remains.',
+    );
+  });
+
+  it('prints no PAF, no CoG, no spectrum and the reasons when no rest ROI channel remains', async () => {
+    const text = await renderText(sampleVisitReportModel({ rest: noRoiRest() }));
+    const rest = section(text, REST_HEADING, TASK_HEADING);
+    expect(rest).toContain(
+      'No region-of-interest channel remains: O1 — flat; O2 — saturated (runs at the ' +
+        "converter's limit); Oz — another sampling rate; Pz — left out by the analyst's visit " +
+        'setting; POz — not in the file. No PAF or CoG is reported.',
+    );
+    expect(rest).toContain('Analysed recording 7a3e9c10, uploaded 2026-11-20 09:14:02 UTC.');
+    expect(rest).not.toContain('Numbers from');
+    expect(rest).not.toMatch(/\d\.\d{2} Hz/);
+    expect(rest).not.toContain('Peak alpha frequency (PAF)');
+    expect(text).not.toContain('Power spectral density');
+    expect(text).not.toContain('No resting result');
+  });
+
+  it('says "No suggestion" when the computation gave none for a task with channels', async () => {
+    const text = await renderText(
+      sampleVisitReportModel({ flagSuggestion: { suggestsSlowing: null, flagThresholdHz: -0.2 } }),
+    );
+    const flag = section(text, 'Slowing flag', 'Provenance');
+    expect(flag).toContain('No suggestion: the computation gave no Δf to apply the rule to');
+    expect(flag).not.toContain('suggests a slowing flag');
+  });
+
+  it('prints a Δf that rounds to zero without a sign, and never a hyphen for minus', async () => {
+    const base = sampleVisitReportModel();
+    const text = await renderText(
+      sampleVisitReportModel({ task: { ...base.task!, deltaFHz: -0.0004, ciHz: [-0.0003, 0.2] } }),
+    );
+    expect(text).toContain('Δf (post − baseline) 0.000 Hz (negative = slowing)');
+    expect(text).toContain('95 % CI of mean Δf 0.000 to +0.200 Hz');
+    expect(text).not.toContain('\u22120.000');
+    expect(draftPages.join(' ')).not.toMatch(/(^|[\s(])-\d/);
+  });
+
+  it('refuses a number beside a region of interest with no channel left', async () => {
+    const task = { ...noRoiTask(), deltaFHz: -0.3 };
+    await expect(renderVisitReport(sampleVisitReportModel({ task }))).rejects.toThrow(
+      'Report field task.deltaFHz: found -0.3, expected null when no region-of-interest ' +
+        'channel remains.',
+    );
+    const rest = { ...noRoiRest(), pafHz: 10.1 };
+    await expect(renderVisitReport(sampleVisitReportModel({ rest }))).rejects.toThrow(
+      'Report field rest.pafHz: found 10.1, expected null when no region-of-interest channel ' +
+        'remains.',
+    );
+    await expect(
+      renderVisitReport(
+        sampleVisitReportModel({
+          task: noRoiTask(),
+          flagSuggestion: { suggestsSlowing: true, flagThresholdHz: -0.2 },
+        }),
+      ),
+    ).rejects.toThrow('Report field flagSuggestion.suggestsSlowing: found true');
+  });
+
+  it('refuses region-of-interest usage whose status or counts disagree with its lists', async () => {
+    const base = sampleVisitReportModel();
+    const withUsage = (roiUsage: TaskSection['roiUsage']) =>
+      renderVisitReport(sampleVisitReportModel({ task: { ...base.task!, roiUsage } }));
+    const partial = base.task!.roiUsage;
+    await expect(withUsage({ ...partial, status: 'complete' })).rejects.toThrow(
+      'Report field task.roiUsage.status: found "complete", expected "partial" for 3 used and 2 ' +
+        'left out.',
+    );
+    await expect(withUsage({ ...partial, wanted: ['O1', 'O2', 'Pz'] })).rejects.toThrow(
+      'Report field task.roiUsage: found 3 used and 2 left out, expected together the 3 wanted ' +
+        'channels.',
+    );
+    await expect(
+      withUsage({
+        ...partial,
+        leftOut: [{ label: 'Oz', reason: 'unplugged' as 'flat' }, partial.leftOut[1]],
+      }),
+    ).rejects.toThrow('Report field task.roiUsage.leftOut[0].reason: found "unplugged"');
+  });
+
+  it('refuses a replacement reason without the recording it replaced', async () => {
+    const base = sampleVisitReportModel();
+    const source = { ...base.rest!.source, replacesId: null, replacementReason: 'Noisy' };
+    await expect(
+      renderVisitReport(sampleVisitReportModel({ rest: { ...base.rest!, source } })),
+    ).rejects.toThrow(
+      'Report field rest.source.replacementReason: found "Noisy", expected null when no ' +
+        'recording is replaced.',
+    );
   });
 });

@@ -1,4 +1,5 @@
 import PDFDocument from 'pdfkit';
+import type { RoiUsageDto } from '@gyre/shared';
 import { BODY_WIDTH_PT, PAGE, REPORT_COLORS, ReportCanvas } from './report-canvas';
 import { ReportFonts } from './report-fonts';
 import {
@@ -14,11 +15,22 @@ import {
   droppedWords,
   kindName,
   noPeakWords,
+  noRoiWords,
+  partialRoiNote,
   qualitySentences,
   RESEARCH_CAUTION,
+  roiUsageWords,
+  sourceWords,
 } from './report-wording';
 import { assertValidModel } from './validate-report-model';
-import { FlagEntry, RestSection, TaskSection, VisitReportModel } from './visit-report-model';
+import {
+  FlagEntry,
+  FlagSuggestionEntry,
+  RecordingSource,
+  RestSection,
+  TaskSection,
+  VisitReportModel,
+} from './visit-report-model';
 
 export interface RenderVisitReportOptions {
   /** Folder of the shipped woff2 fonts; default the repository's `fonts/`. */
@@ -133,15 +145,28 @@ function drawRest(canvas: ReportCanvas, rest: RestSection | null): void {
     canvas.paragraph('No resting result for this visit.', { color: REPORT_COLORS.muted });
     return;
   }
+  if (rest.roiUsage.status === 'none') {
+    drawNoRoi(canvas, rest.roiUsage, 'PAF or CoG', rest.source);
+    return;
+  }
+  // A headline number from part of the ROI says so on its own row, not only further down.
+  const note = partialRoiNote(rest.roiUsage);
   canvas.facts([
-    ['Peak alpha frequency (PAF)', rest.pafHz === null ? noPeakWords(rest) : formatHz(rest.pafHz)],
-    ['Centre of gravity (CoG)', rest.cogHz === null ? 'not available' : formatHz(rest.cogHz)],
+    [
+      'Peak alpha frequency (PAF)',
+      rest.pafHz === null ? noPeakWords(rest) : `${formatHz(rest.pafHz)}${note}`,
+    ],
+    [
+      'Centre of gravity (CoG)',
+      rest.cogHz === null ? 'not available' : `${formatHz(rest.cogHz)}${note}`,
+    ],
     ['Alpha window', `${formatHz(rest.alphaWindowHz[0])} to ${formatHz(rest.alphaWindowHz[1])}`],
     [
       'Peak prominence',
       rest.prominenceDb === null ? 'no clear peak' : `${formatNumber(rest.prominenceDb, 1)} dB`,
     ],
   ]);
+  drawRoiAndSource(canvas, rest.roiUsage, rest.source);
   canvas.paragraph(
     'Welch power spectrum of the region of interest (4 s Hann windows, 50 % overlap); PAF by ' +
       'parabolic interpolation of the highest peak, CoG as Σ f·P(f) / Σ P(f) over the alpha window.',
@@ -156,6 +181,10 @@ function drawTask(canvas: ReportCanvas, task: TaskSection | null): void {
     canvas.paragraph('No task result for this visit.', { color: REPORT_COLORS.muted });
     return;
   }
+  if (task.roiUsage.status === 'none') {
+    drawNoRoi(canvas, task.roiUsage, 'Δf', task.source);
+    return;
+  }
   const trials =
     task.trialsKept === null || task.trialsTotal === null
       ? 'not available'
@@ -165,7 +194,7 @@ function drawTask(canvas: ReportCanvas, task: TaskSection | null): void {
       'Δf (post − baseline)',
       task.deltaFHz === null
         ? 'not available'
-        : `${formatDeltaHz(task.deltaFHz)} (negative = slowing)`,
+        : `${formatDeltaHz(task.deltaFHz)} (negative = slowing)${partialRoiNote(task.roiUsage)}`,
     ],
     ['95 % CI of mean Δf', task.ciHz === null ? 'not available' : formatCiHz(task.ciHz)],
     ['Wilcoxon signed-rank p', task.pValue === null ? 'not available' : formatPValue(task.pValue)],
@@ -176,12 +205,40 @@ function drawTask(canvas: ReportCanvas, task: TaskSection | null): void {
       `baseline ${windowWords(task.baselineWindowS)}, post ${windowWords(task.postWindowS)}`,
     ],
   ]);
+  drawRoiAndSource(canvas, task.roiUsage, task.source);
   canvas.paragraph(
     'Instantaneous frequency from the phase of the analytic signal, median-filtered, averaged ' +
       'over the region of interest; confidence interval by bootstrap over trials (2000 resamples).',
     { sizePt: 8, color: REPORT_COLORS.muted },
   );
   drawOnsetCurvePlot(canvas, task);
+}
+
+/** Which channels the numbers rest on, right below them; amber when some were left out. */
+function drawRoiAndSource(canvas: ReportCanvas, usage: RoiUsageDto, source: RecordingSource): void {
+  canvas.gap(2);
+  canvas.paragraph(roiUsageWords(usage), {
+    sizePt: 9,
+    color: usage.status === 'complete' ? REPORT_COLORS.ink : REPORT_COLORS.amber,
+  });
+  canvas.gap(1);
+  canvas.paragraph(sourceWords(source), { sizePt: 9, color: REPORT_COLORS.muted });
+  canvas.gap(3);
+}
+
+/** No channel left: the reasons in the warning colour, and no number or plot at all. */
+function drawNoRoi(
+  canvas: ReportCanvas,
+  usage: RoiUsageDto,
+  whatIsMissing: string,
+  source: RecordingSource,
+): void {
+  canvas.paragraph(noRoiWords(usage, whatIsMissing), {
+    role: 'medium',
+    color: REPORT_COLORS.amber,
+  });
+  canvas.gap(2);
+  canvas.paragraph(sourceWords(source, false), { sizePt: 9, color: REPORT_COLORS.muted });
 }
 
 function windowWords([fromS, toS]: [number, number]): string {
@@ -210,15 +267,9 @@ function drawQuality(canvas: ReportCanvas, model: VisitReportModel): void {
 
 function drawFlags(canvas: ReportCanvas, model: VisitReportModel): void {
   canvas.heading('Slowing flag');
-  const suggestion = model.flagSuggestion;
-  if (suggestion !== null) {
-    const rule = `Δf at or below ${formatDeltaHz(suggestion.flagThresholdHz)} and the 95 % CI excluding 0`;
-    canvas.paragraph(
-      suggestion.suggestsSlowing
-        ? `The computation suggests a slowing flag (${rule}). Only an analyst raises a flag.`
-        : `The computation does not suggest a slowing flag (rule: ${rule}).`,
-      { color: REPORT_COLORS.muted, sizePt: 9 },
-    );
+  const line = suggestionLine(model);
+  if (line !== null) {
+    canvas.paragraph(line.text, { color: line.color, sizePt: 9 });
     canvas.gap(4);
   }
   if (model.flags.length === 0) {
@@ -226,6 +277,43 @@ function drawFlags(canvas: ReportCanvas, model: VisitReportModel): void {
     return;
   }
   for (const flag of model.flags) drawFlag(canvas, flag);
+}
+
+/** What the computation suggests, or why it suggests nothing; null when there is no task. */
+function suggestionLine(model: VisitReportModel): { text: string; color: string } | null {
+  const suggestion = model.flagSuggestion;
+  const usage = model.task?.roiUsage ?? null;
+  const ruleNote = suggestion === null ? '' : ` (rule: ${flagRule(suggestion)})`;
+  // Checked first: a suggestion stored as false must not read as "no slowing" without a Δf.
+  if (usage?.status === 'none') {
+    return {
+      text: `No suggestion: no region-of-interest channel remains${ruleNote}.`,
+      color: REPORT_COLORS.amber,
+    };
+  }
+  if (suggestion === null) return null;
+  if (suggestion.suggestsSlowing === null) {
+    return {
+      text: `No suggestion: the computation gave no Δf to apply the rule to${ruleNote}.`,
+      color: REPORT_COLORS.muted,
+    };
+  }
+  const text = suggestion.suggestsSlowing
+    ? `The computation suggests a slowing flag (${flagRule(suggestion)}). Only an analyst ` +
+      'raises a flag.'
+    : `The computation does not suggest a slowing flag${ruleNote}.`;
+  if (usage?.status !== 'partial') return { text, color: REPORT_COLORS.muted };
+  // The suggestion is only as good as the channels behind it: say so beside it.
+  return {
+    text:
+      `${text} It rests on ${usage.used.length} of ${usage.wanted.length} ` +
+      'region-of-interest channels (see Task).',
+    color: REPORT_COLORS.amber,
+  };
+}
+
+function flagRule(suggestion: FlagSuggestionEntry): string {
+  return `Δf at or below ${formatDeltaHz(suggestion.flagThresholdHz)} and the 95 % CI excluding 0`;
 }
 
 function drawFlag(canvas: ReportCanvas, flag: FlagEntry): void {

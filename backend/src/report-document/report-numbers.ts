@@ -26,7 +26,7 @@ export function formatPValue(p: number): string {
 }
 
 export function formatPercent(share: number, decimals = 1): string {
-  return `${(share * 100).toFixed(decimals)} %`;
+  return `${signed(share * 100, decimals, false)} %`;
 }
 
 export function formatSeconds(valueS: number, decimals = 1): string {
@@ -45,9 +45,9 @@ export function formatUtc(iso: string): string {
   return `${parsed.format('YYYY-MM-DD HH:mm:ss')} UTC`;
 }
 
+/** Rounds first, then signs: a value that rounds to zero prints without a sign, never −0.00. */
 function signed(value: number, decimals: number, alwaysSign: boolean): string {
   const text = Math.abs(value).toFixed(decimals);
-  // -0.000 must not print as a negative number.
   const isZero = Number(text) === 0;
   if (value < 0 && !isZero) return `${MINUS}${text}`;
   return alwaysSign && !isZero ? `+${text}` : text;

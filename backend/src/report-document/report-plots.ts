@@ -144,7 +144,7 @@ export function drawOnsetCurvePlot(canvas: ReportCanvas, task: TaskSection, heig
 }
 
 function windowText([fromS, toS]: [number, number]): string {
-  const f = (v: number) => v.toString().replace('-', '\u2212');
+  const f = (v: number) => v.toString().replace(/-/g, '\u2212');
   return `${f(fromS)} to ${f(toS)} s`;
 }
 

@@ -1,7 +1,8 @@
-import { formatNumber, formatPercent, formatSeconds } from './report-numbers';
-import { QualitySection, RestSection, TaskSection } from './visit-report-model';
+import type { RoiOmissionReason, RoiUsageDto } from '@gyre/shared';
+import { formatNumber, formatPercent, formatSeconds, formatUtc } from './report-numbers';
+import { QualitySection, RecordingSource, RestSection, TaskSection } from './visit-report-model';
 
-/** Research-use caution of DESIGN.md, printed on every page. */
+/** Gyre's research-use caution, printed on every page. */
 export const RESEARCH_CAUTION =
   'Research use only. Not a diagnostic device: do not use these results for clinical ' +
   'decisions. Follow your study protocol, local regulations and licensed clinicians.';
@@ -44,6 +45,75 @@ export function droppedWords(task: TaskSection): string {
   if (parts.length === 0) return 'none dropped';
   const total = Object.values(task.droppedByReason).reduce((sum, n) => sum + n, 0);
   return `${total} dropped (${parts.join('; ')})`;
+}
+
+/** Why a region-of-interest channel was left out, in Gyre's words. */
+export const ROI_OMISSION_WORDS: Record<RoiOmissionReason, string> = {
+  missing: 'not in the file',
+  flat: 'flat',
+  saturated: "saturated (runs at the converter's limit)",
+  'sample-rate': 'another sampling rate',
+  excluded: "left out by the analyst's visit setting",
+};
+
+/** "Oz — saturated (…); POz — not in the file", or a note when nothing was asked for. */
+function leftOutWords(usage: RoiUsageDto): string {
+  if (usage.leftOut.length === 0) return 'the settings name no channel for it';
+  return usage.leftOut
+    .map((omission) => `${omission.label} — ${ROI_OMISSION_WORDS[omission.reason]}`)
+    .join('; ');
+}
+
+/**
+ * Which region-of-interest channels a section's numbers rest on, e.g. "Region of interest:
+ * O1, O2, Pz (3 of 5 wanted). Left out: Oz — saturated (…); POz — not in the file."
+ * For status `none` see `noRoiWords`.
+ */
+export function roiUsageWords(usage: RoiUsageDto): string {
+  const count =
+    usage.leftOut.length === 0
+      ? `all ${usage.wanted.length} wanted`
+      : `${usage.used.length} of ${usage.wanted.length} wanted`;
+  const head = `Region of interest: ${list(usage.used)} (${count}).`;
+  return usage.leftOut.length === 0 ? head : `${head} Left out: ${leftOutWords(usage)}.`;
+}
+
+/** Printed instead of any number when no region-of-interest channel remains. */
+export function noRoiWords(usage: RoiUsageDto, whatIsMissing: string): string {
+  return (
+    `No region-of-interest channel remains: ${leftOutWords(usage)}. ` +
+    `No ${whatIsMissing} is reported.`
+  );
+}
+
+/**
+ * "Numbers from recording 3f2a9c1e, uploaded … UTC; replaces recording 9d0e1f2a: reason."
+ * Without numbers (no ROI channel left) it begins "Analysed recording" instead.
+ */
+export function sourceWords(source: RecordingSource, hasNumbers = true): string {
+  const head =
+    `${hasNumbers ? 'Numbers from' : 'Analysed'} recording ${shortId(source.recordingId)}, ` +
+    `uploaded ${formatUtc(source.uploadedAtIso)}`;
+  if (source.replacesId === null) return `${head}.`;
+  const reason = source.replacementReason?.trim() ?? '';
+  const why = reason === '' ? ' (no reason recorded)' : `: ${reason}`;
+  return endSentence(`${head}; replaces recording ${shortId(source.replacesId)}${why}`);
+}
+
+/** Beside a headline number resting on part of the ROI: "; from 3 of 5 … channels". */
+export function partialRoiNote(usage: RoiUsageDto): string {
+  if (usage.status !== 'partial') return '';
+  return `; from ${usage.used.length} of ${usage.wanted.length} region-of-interest channels`;
+}
+
+/** The first 8 characters of an id (a UUID's first group), enough to tell recordings apart. */
+export function shortId(id: string): string {
+  return id.slice(0, 8);
+}
+
+/** Adds a full stop unless the text (e.g. a typed reason) already ends a sentence. */
+function endSentence(text: string): string {
+  return /[.!?]$/.test(text) ? text : `${text}.`;
 }
 
 function list(names: string[]): string {

@@ -1,4 +1,6 @@
-import { VisitReportModel } from './visit-report-model';
+import type { RoiUsageDto } from '@gyre/shared';
+import { ROI_OMISSION_WORDS } from './report-wording';
+import { RecordingSource, VisitReportModel } from './visit-report-model';
 
 /** A report model that cannot be drawn faithfully; names the field, what was found and expected. */
 export class ReportModelError extends Error {
@@ -14,7 +16,8 @@ export class ReportModelError extends Error {
 
 /**
  * Checks what the renderer relies on, so that a wrong model fails loudly instead of drawing
- * a plot that misstates the numbers (series of unequal length, non-finite headline values).
+ * a plot that misstates the numbers (series of unequal length, non-finite headline values,
+ * a number beside a region of interest that has no channel left).
  */
 export function assertValidModel(model: VisitReportModel): void {
   requireText('participantCode', model.participantCode);
@@ -31,6 +34,14 @@ export function assertValidModel(model: VisitReportModel): void {
     sameLength('rest.spectrum.powerUv2PerHz', powerUv2PerHz.length, frequencyHz.length);
     optionalFinite('rest.pafHz', model.rest.pafHz);
     optionalFinite('rest.cogHz', model.rest.cogHz);
+    optionalFinite('rest.prominenceDb', model.rest.prominenceDb);
+    checkRoiUsage('rest.roiUsage', model.rest.roiUsage);
+    checkSource('rest.source', model.rest.source);
+    if (model.rest.roiUsage.status === 'none') {
+      nullWithoutRoi('rest.pafHz', model.rest.pafHz);
+      nullWithoutRoi('rest.cogHz', model.rest.cogHz);
+      nullWithoutRoi('rest.prominenceDb', model.rest.prominenceDb);
+    }
   }
   if (model.task !== null) {
     const curve = model.task.onsetCurve;
@@ -38,12 +49,94 @@ export function assertValidModel(model: VisitReportModel): void {
     sameLength('task.onsetCurve.ciLowHz', curve.ciLowHz.length, curve.timeS.length);
     sameLength('task.onsetCurve.ciHighHz', curve.ciHighHz.length, curve.timeS.length);
     optionalFinite('task.deltaFHz', model.task.deltaFHz);
+    optionalFinite('task.ciHz[0]', model.task.ciHz?.[0] ?? null);
+    optionalFinite('task.ciHz[1]', model.task.ciHz?.[1] ?? null);
     optionalFinite('task.pValue', model.task.pValue);
+    checkRoiUsage('task.roiUsage', model.task.roiUsage);
+    checkSource('task.source', model.task.source);
+    if (model.task.roiUsage.status === 'none') {
+      nullWithoutRoi('task.deltaFHz', model.task.deltaFHz);
+      nullWithoutRoi('task.ciHz', model.task.ciHz);
+      nullWithoutRoi('task.pValue', model.task.pValue);
+    }
+  }
+  if (model.flagSuggestion !== null) {
+    optionalFinite('flagSuggestion.flagThresholdHz', model.flagSuggestion.flagThresholdHz);
+    if (model.flagSuggestion.suggestsSlowing === true && model.task?.roiUsage.status === 'none') {
+      throw new ReportModelError(
+        'flagSuggestion.suggestsSlowing',
+        'true',
+        'null or false when no region-of-interest channel of the task remains',
+      );
+    }
   }
   if (model.signature !== null) {
     requireText('signature.signerName', model.signature.signerName);
     requireText('signature.meaning', model.signature.meaning);
     requireIso('signature.signedAtIso', model.signature.signedAtIso);
+  }
+}
+
+const STATUSES: ReadonlyArray<RoiUsageDto['status']> = ['complete', 'partial', 'none'];
+
+/** The printed "n of m wanted" and the status must agree with the channel lists. */
+function checkRoiUsage(field: string, usage: RoiUsageDto): void {
+  if (!STATUSES.includes(usage.status)) {
+    throw new ReportModelError(
+      `${field}.status`,
+      JSON.stringify(usage.status),
+      STATUSES.join(', '),
+    );
+  }
+  usage.leftOut.forEach((omission, i) => {
+    if (!Object.hasOwn(ROI_OMISSION_WORDS, omission.reason)) {
+      throw new ReportModelError(
+        `${field}.leftOut[${i}].reason`,
+        JSON.stringify(omission.reason),
+        Object.keys(ROI_OMISSION_WORDS).join(', '),
+      );
+    }
+  });
+  const accounted = usage.used.length + usage.leftOut.length;
+  if (accounted !== usage.wanted.length) {
+    throw new ReportModelError(
+      field,
+      `${usage.used.length} used and ${usage.leftOut.length} left out`,
+      `together the ${usage.wanted.length} wanted channels`,
+    );
+  }
+  const expected =
+    usage.used.length === 0 ? 'none' : usage.leftOut.length === 0 ? 'complete' : 'partial';
+  if (usage.status !== expected) {
+    throw new ReportModelError(
+      `${field}.status`,
+      JSON.stringify(usage.status),
+      `"${expected}" for ${usage.used.length} used and ${usage.leftOut.length} left out`,
+    );
+  }
+}
+
+function checkSource(field: string, source: RecordingSource): void {
+  requireText(`${field}.recordingId`, source.recordingId);
+  requireIso(`${field}.uploadedAtIso`, source.uploadedAtIso);
+  if (source.replacesId !== null) requireText(`${field}.replacesId`, source.replacesId);
+  if (source.replacesId === null && source.replacementReason !== null) {
+    throw new ReportModelError(
+      `${field}.replacementReason`,
+      JSON.stringify(source.replacementReason),
+      'null when no recording is replaced',
+    );
+  }
+}
+
+/** A number that rests on no channel cannot be right, so it is not printed silently. */
+function nullWithoutRoi(field: string, value: unknown): void {
+  if (value !== null) {
+    throw new ReportModelError(
+      field,
+      JSON.stringify(value),
+      'null when no region-of-interest channel remains',
+    );
   }
 }
 

@@ -1,3 +1,5 @@
+import type { RoiUsageDto } from '@gyre/shared';
+
 /**
  * Everything a visit report prints, as plain data: no entities, no I/O. The service that
  * signs reports builds one of these from the database; the renderer only draws it.
@@ -19,7 +21,7 @@ export interface VisitReportModel {
   quality: QualitySection[];
   /** Flags of the visit, current first; empty when none was ever raised. */
   flags: FlagEntry[];
-  /** What the computation suggested for the flag (never acting alone); null when no task result. */
+  /** What the computation suggested for the flag (never acting alone); null when no task section. */
   flagSuggestion: FlagSuggestionEntry | null;
   /** One entry per analysis run the report rests on. */
   provenance: ProvenanceEntry[];
@@ -29,8 +31,23 @@ export interface VisitReportModel {
   signature: SignatureEntry | null;
 }
 
+/** The recording a section's numbers come from (a visit may also hold superseded ones). */
+export interface RecordingSource {
+  recordingId: string;
+  uploadedAtIso: string;
+  /** The earlier recording of the same kind this one replaced, if any. */
+  replacesId: string | null;
+  /** Why it was replaced, as entered at upload; null when none was recorded. */
+  replacementReason: string | null;
+}
+
+/**
+ * A resting recording's result. With `roiUsage.status === 'none'` the recording was analysed
+ * but no region-of-interest channel remained: PAF, CoG and prominence are then null and the
+ * spectrum is not drawn (a section that is absent altogether means no resting recording).
+ */
 export interface RestSection {
-  /** Null = no clear peak (METHOD.md §4: no forced answer). */
+  /** Null = no clear peak (docs/method.md §4: no forced answer), or no ROI channel left. */
   pafHz: number | null;
   cogHz: number | null;
   /** Peak height over the 1/f background, dB; null without a clear peak. */
@@ -38,11 +55,19 @@ export interface RestSection {
   /** Why no PAF was reported (e.g. `below-prominence`), else null. */
   noPeakReason: string | null;
   alphaWindowHz: [number, number];
+  /** ROI spectrum; may be empty when no ROI channel remains. */
   spectrum: { frequencyHz: number[]; powerUv2PerHz: number[] };
   /** Frequencies drawn on the spectrum plot; default [1, 30] Hz. */
   displayRangeHz?: [number, number];
+  /** Which region-of-interest channels the numbers rest on. */
+  roiUsage: RoiUsageDto;
+  source: RecordingSource;
 }
 
+/**
+ * A task recording's result. With `roiUsage.status === 'none'` no region-of-interest channel
+ * remained: Δf, its CI and p are null and the onset curve is not drawn (may be empty).
+ */
 export interface TaskSection {
   /** ROI Δf = post − baseline, Hz; negative = slowing. */
   deltaFHz: number | null;
@@ -62,9 +87,12 @@ export interface TaskSection {
     ciLowHz: Array<number | null>;
     ciHighHz: Array<number | null>;
   };
+  /** Which region-of-interest channels the numbers rest on. */
+  roiUsage: RoiUsageDto;
+  source: RecordingSource;
 }
 
-/** Quality checks of one recording (METHOD.md §6), as the analysis reported them. */
+/** Quality checks of one recording (docs/method.md §6), as the analysis reported them. */
 export interface QualitySection {
   kind: 'resting' | 'task';
   durationS: number;
@@ -94,7 +122,11 @@ export interface FlagEntry {
 }
 
 export interface FlagSuggestionEntry {
-  suggestsSlowing: boolean;
+  /**
+   * Null when the computation could make no suggestion (no Δf, e.g. no region-of-interest
+   * channel remains); the report then says "No suggestion" and why.
+   */
+  suggestsSlowing: boolean | null;
   flagThresholdHz: number;
 }
 

@@ -1,4 +1,53 @@
-import { VisitReportModel } from '../visit-report-model';
+import type { RoiUsageDto } from '@gyre/shared';
+import { RecordingSource, VisitReportModel } from '../visit-report-model';
+
+/** Every wanted channel used: the ROI of the synthetic study. */
+export const SAMPLE_COMPLETE_ROI: RoiUsageDto = {
+  wanted: ['O1', 'O2', 'Oz', 'Pz'],
+  used: ['O1', 'O2', 'Oz', 'Pz'],
+  leftOut: [],
+  status: 'complete',
+};
+
+/** Three of five wanted channels used; one saturated, one not in the file. */
+export const SAMPLE_PARTIAL_ROI: RoiUsageDto = {
+  wanted: ['O1', 'O2', 'Oz', 'Pz', 'POz'],
+  used: ['O1', 'O2', 'Pz'],
+  leftOut: [
+    { label: 'Oz', reason: 'saturated' },
+    { label: 'POz', reason: 'missing' },
+  ],
+  status: 'partial',
+};
+
+/** No wanted channel left, one for each reason. */
+export const SAMPLE_NO_ROI: RoiUsageDto = {
+  wanted: ['O1', 'O2', 'Oz', 'Pz', 'POz'],
+  used: [],
+  leftOut: [
+    { label: 'O1', reason: 'flat' },
+    { label: 'O2', reason: 'saturated' },
+    { label: 'Oz', reason: 'sample-rate' },
+    { label: 'Pz', reason: 'excluded' },
+    { label: 'POz', reason: 'missing' },
+  ],
+  status: 'none',
+};
+
+export const SAMPLE_REST_SOURCE: RecordingSource = {
+  recordingId: '7a3e9c10-2b4d-4f6a-8c1e-5d9b0a7f3e21',
+  uploadedAtIso: '2026-11-20T09:14:02.000Z',
+  replacesId: null,
+  replacementReason: null,
+};
+
+/** A task recording that replaced an earlier upload of the same visit. */
+export const SAMPLE_TASK_SOURCE: RecordingSource = {
+  recordingId: 'e41b07d2-9c5a-4e13-b6f8-2a0d3c7e9b54',
+  uploadedAtIso: '2026-11-20T10:02:47.000Z',
+  replacesId: '5c2f8a61-0d7e-4b39-a1c4-8e6f2b9d0a73',
+  replacementReason: 'Wrong onset file attached to the first upload',
+};
 
 /**
  * A generated (synthetic) report model for tests and previews: a 1/f spectrum with a
@@ -31,6 +80,8 @@ export function sampleVisitReportModel(
       noPeakReason: null,
       alphaWindowHz: [7, 13],
       spectrum: { frequencyHz, powerUv2PerHz },
+      roiUsage: SAMPLE_COMPLETE_ROI,
+      source: SAMPLE_REST_SOURCE,
     },
     task: {
       deltaFHz: -0.2871,
@@ -48,6 +99,8 @@ export function sampleVisitReportModel(
         ciLowHz: meanHz.map((m) => m - 0.12),
         ciHighHz: meanHz.map((m) => m + 0.12),
       },
+      roiUsage: SAMPLE_PARTIAL_ROI,
+      source: SAMPLE_TASK_SOURCE,
     },
     quality: [
       {
@@ -70,9 +123,9 @@ export function sampleVisitReportModel(
         durationS: 420.5,
         sampleRatesHz: [256],
         roiChannelsFound: ['O1', 'O2', 'Oz', 'Pz'],
-        roiChannelsMissing: [],
+        roiChannelsMissing: ['POz'],
         flatChannels: ['T7'],
-        saturatedChannels: [],
+        saturatedChannels: ['Oz'],
         lineNoiseRatio50Hz: 3.4,
         lineNoiseRatio60Hz: null,
         epochsDroppedShare: 0.05,
