@@ -1,4 +1,5 @@
 import { DynamicModule, MiddlewareConsumer, Module, NestModule } from '@nestjs/common';
+import { EventEmitterModule } from '@nestjs/event-emitter';
 import { AppConfigModule } from './config/config.module';
 import { DatabaseModule } from './database/database.module';
 import { HealthModule } from './health/health.module';
@@ -15,6 +16,8 @@ import { VisitsModule } from './visits/visits.module';
 import { AnalysisModule } from './analysis/analysis.module';
 import { ReportsModule } from './reports/reports.module';
 import { JobsModule } from './jobs/jobs.module';
+import { QueueModule } from './queue/queue.module';
+import { ProcessingModule } from './processing/processing.module';
 import { RecordingsModule } from './recordings/recordings.module';
 import { FlagsModule } from './flags/flags.module';
 import { TrajectoryModule } from './trajectory/trajectory.module';
@@ -28,6 +31,7 @@ export class AppModule implements NestModule {
       module: AppModule,
       imports: [
         AppConfigModule.forRoot(env),
+        EventEmitterModule.forRoot(),
         DatabaseModule,
         CommonDatabaseModule,
         HealthModule,
@@ -41,8 +45,10 @@ export class AppModule implements NestModule {
         VisitsModule,
         AnalysisModule,
         ReportsModule,
+        QueueModule,
         JobsModule,
         RecordingsModule,
+        ProcessingModule,
         FlagsModule,
         TrajectoryModule,
         SignoffModule,

@@ -101,7 +101,8 @@ describe('job queue', () => {
     expect(JSON.parse(first?.before ?? 'null')).toEqual({ state: 'ready' });
     expect(JSON.parse(first?.after ?? 'null')).toMatchObject({
       state: 'queued',
-      settingsVersion: 1,
+      trigger: 'rerun',
+      automatic: false,
     });
   });
 
@@ -112,6 +113,8 @@ describe('job queue', () => {
     });
     expect(rest.status).toBe(201);
     await waitForState(t, 'technician', (rest.body as RecordingDto).id, ['ready']);
+    // The task follows the new resting IAF by itself; wait for that before re-running.
+    await t.computationsIdle();
     const analyst = await t.authHeader('analyst');
     const current = await request(t.url)
       .get(`/api/studies/${t.seed.studies.A.id}/analysis-settings`)
@@ -123,6 +126,7 @@ describe('job queue', () => {
       createdById: _c,
       createdAt: _a,
       reason: _r,
+      changes: _d,
       ...values
     } = current.body;
     const changed = await request(t.url)
@@ -142,7 +146,7 @@ describe('job queue', () => {
       .send({ reason: 'settings v2' });
     expect(rerun.status).toBe(201);
     const jobs = rerun.body as JobDto[];
-    expect(jobs.map((j) => j.settingsVersion)).toEqual([2, 2]);
+    expect(jobs.map((j) => j.trigger)).toEqual(['rerun', 'rerun']);
     for (const job of jobs) await waitForState(t, 'analyst', job.recordingId, ['ready']);
 
     const taskRuns = await request(t.url).get(`/api/recordings/${broken.id}/runs`).set(analyst);

@@ -143,7 +143,7 @@ describe('a server killed mid-job', () => {
     server = null;
 
     const [stuck] = (await dataSource.query(
-      `SELECT "state", "attempts" FROM "job" WHERE "recordingId" = ?`,
+      `SELECT "state", "attempts" FROM "job" WHERE "subjectId" = ?`,
       [id],
     )) as Array<{
       state: string;

@@ -78,20 +78,30 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
       createdById: _c,
       createdAt: _a,
       reason: _r,
+      changes: _d,
       ...values
     } = settings;
+    // Each allowed call adds a version: a new threshold each time (identical values are refused).
+    let settingsCalls = 0;
     const get = (path: string) => (auth: Record<string, string>) =>
       request(t.url).get(path).set(auth);
     const post = (path: string, body: object) => (auth: Record<string, string>) =>
       request(t.url).post(path).set(auth).send(body);
     let uploads = 0;
+    // Uploads go to a visit of their own: the seeded visit already has its task recording.
+    const uploadVisit = (
+      await request(t.url)
+        .post('/api/visits')
+        .set(await t.authHeader('technician'))
+        .send({ participantId: participant, label: 'V-upload', visitDate: '2026-04-01' })
+    ).body.id as string;
     routes = [
       {
         name: 'POST /visits/:visitId/recordings',
         expect: matrix({ technician: 'ok', technicianA2: 404, technicianB: 404 }),
         call: (auth) =>
           request(t.url)
-            .post(`/api/visits/${visit}/recordings`)
+            .post(`/api/visits/${uploadVisit}/recordings`)
             .set(auth)
             .field('kind', 'task')
             .attach(
@@ -117,6 +127,11 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
         name: 'GET /recordings/:id',
         expect: READ_RECORDING,
         call: get(`/api/recordings/${recordingId}`),
+      },
+      {
+        name: 'GET /recordings/:id/file',
+        expect: READ_RECORDING,
+        call: get(`/api/recordings/${recordingId}/file`),
       },
       {
         name: 'GET /recordings/:id/events',
@@ -151,10 +166,12 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
       {
         name: 'POST /studies/:id/analysis-settings',
         expect: ANALYST_ONLY,
-        call: post(`/api/studies/${study}/analysis-settings`, {
-          ...values,
-          reason: 'Matrix test: same values again',
-        }),
+        call: (auth: Record<string, string>) =>
+          post(`/api/studies/${study}/analysis-settings`, {
+            ...values,
+            rejectionThresholdUv: 100 + ++settingsCalls,
+            reason: 'Matrix test: one more settings version',
+          })(auth),
       },
       {
         name: 'POST /recordings/:id/runs',
@@ -222,6 +239,26 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
         expect: READ_RESULT,
         call: get(`/api/participants/${participant}/trajectory`),
       },
+      {
+        name: 'GET /visits/:id/analysis-override',
+        expect: READ_RESULT,
+        call: get(`/api/visits/${visit}/analysis-override`),
+      },
+      {
+        // Last: an allowed change re-runs the visit.
+        name: 'PUT /visits/:id/analysis-override',
+        expect: ANALYST_ONLY,
+        call: (auth: Record<string, string>) =>
+          request(t.url)
+            .put(`/api/visits/${visit}/analysis-override`)
+            .set(auth)
+            .send({
+              roi: ['O1', 'O2'],
+              bandHz: null,
+              onsetLabel: null,
+              reason: 'Matrix test: the visit keeps two channels',
+            }),
+      },
     ];
     for (const user of USERS) await t.authHeader(user);
   }, 120_000);
@@ -238,10 +275,11 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
     const signOff = /report\/(sign|preview)|report-revisions|reports\/\{reportId\}\/file/;
     const mine = paths.filter(
       (p) =>
-        /recordings|analysis-settings|\/runs|flag|report|trajectory/.test(p) && !signOff.test(p),
+        /recordings|analysis-settings|analysis-override|\/runs|flag|report|trajectory/.test(p) &&
+        !signOff.test(p),
     );
     const covered = new Set(routes.map((r) => r.name.split(' ')[1].replace(/:(\w+)/g, '{$1}')));
-    expect(mine.length).toBe(18);
+    expect(mine.length).toBe(20);
     for (const path of mine) {
       const short = path
         .replace('/api', '')

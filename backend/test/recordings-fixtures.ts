@@ -31,6 +31,13 @@ export interface TaskFileOptions {
   patientId?: string;
   /** Write the onsets as EDF+ annotations (default true). */
   annotate?: boolean;
+  /** Alpha frequency outside the dips, Hz (default 10). */
+  baseFrequencyHz?: number;
+  /**
+   * 'hug': each signal's physical range written 0.01 % beyond its own largest sample, as many
+   * exporting programs write it (default: a fixed ±500 µV).
+   */
+  physicalRange?: 'fixed' | 'hug';
 }
 
 export function taskOnsets(durationS: number, everyS = 4): number[] {
@@ -49,6 +56,7 @@ export function syntheticTaskEdf(options: TaskFileOptions = {}): Uint8Array {
     channelLabels: options.channels ?? TASK_CHANNELS,
     onsetsS,
     dipHz: options.dipHz ?? -0.6,
+    baseFrequencyHz: options.baseFrequencyHz,
     seed: options.seed ?? 7,
   });
   return writeEdf({
@@ -57,12 +65,20 @@ export function syntheticTaskEdf(options: TaskFileOptions = {}): Uint8Array {
     signals: recording.signals.map((s) => ({
       label: s.label,
       sampleRateHz: s.sampleRateHz,
-      physicalMin: -500,
-      physicalMax: 500,
+      ...(options.physicalRange === 'hug' ? huggingRange(s.samples) : FIXED_RANGE),
       samples: s.samples,
     })),
     annotations: options.annotate === false ? [] : (recording.annotations as EdfAnnotation[]),
   });
+}
+
+const FIXED_RANGE = { physicalMin: -500, physicalMax: 500 };
+
+/** A physical range 0.01 % wider than the largest absolute sample, on both sides. */
+function huggingRange(samples: Float32Array): { physicalMin: number; physicalMax: number } {
+  let peak = 0;
+  for (const v of samples) peak = Math.max(peak, Math.abs(v));
+  return { physicalMin: -peak * 1.0001, physicalMax: peak * 1.0001 };
 }
 
 /** Generated EDF+C resting recording with an alpha peak at `peakHz`. */
@@ -94,6 +110,8 @@ export interface UploadInput {
   bytes: Uint8Array;
   onsetsCsv?: string;
   fileName?: string;
+  confirmKind?: boolean;
+  replaces?: { recordingId: string; reason: string };
 }
 
 export async function upload(
@@ -105,11 +123,17 @@ export async function upload(
   let req = request(t.url)
     .post(`/api/visits/${visitId}/recordings`)
     .set(await t.authHeader(user))
-    .field('kind', input.kind)
-    .attach('file', Buffer.from(input.bytes), {
-      filename: input.fileName ?? 'recording.edf',
-      contentType: 'application/octet-stream',
-    });
+    .field('kind', input.kind);
+  if (input.confirmKind === true) req = req.field('confirmKind', 'true');
+  if (input.replaces !== undefined) {
+    req = req
+      .field('replaces', input.replaces.recordingId)
+      .field('replacementReason', input.replaces.reason);
+  }
+  req = req.attach('file', Buffer.from(input.bytes), {
+    filename: input.fileName ?? 'recording.edf',
+    contentType: 'application/octet-stream',
+  });
   if (input.onsetsCsv !== undefined) {
     req = req.attach('onsets', Buffer.from(input.onsetsCsv, 'utf8'), {
       filename: 'onsets.csv',

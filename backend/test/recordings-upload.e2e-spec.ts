@@ -7,7 +7,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import request from 'supertest';
 import type { RecordingDto, RecordingResultsDto } from '@gyre/shared';
-import { BOOTSTRAP_SEED } from '../src/analysis/analysis-settings.defaults';
+import { DEFAULT_ANALYSIS_SETTINGS } from '../src/signal/pipeline/analysis-settings';
 import { blankPatientField, readEdf } from '../src/signal/edf';
 import { analyzeRecording } from '../src/signal/pipeline/analyze-recording';
 import { startTestApp, TestApp } from './helpers/test-app';
@@ -51,7 +51,7 @@ describe('recording uploads', () => {
       state: 'done',
       attempts: 1,
       progressPercent: 100,
-      settingsVersion: 1,
+      trigger: 'upload',
     });
   });
 
@@ -75,14 +75,14 @@ describe('recording uploads', () => {
       .set(await t.authHeader('analyst'));
     expect(response.status).toBe(200);
     const results = response.body as RecordingResultsDto;
-    const direct = analyzeRecording(readEdf(original), {
+    // The same settings and no IAF (the visit has no resting recording): the same numbers.
+    const direct = analyzeRecording(readEdf(original), DEFAULT_ANALYSIS_SETTINGS, {
       kind: 'task',
-      bandHz: [8, 13],
-      bootstrapSeed: BOOTSTRAP_SEED,
+      iafHz: null,
     });
     expect(direct.roi).not.toBeNull();
-    expect(results.run.roiDeltaFHz).toBe(direct.roi?.deltaHz);
-    expect(results.run.roiCiHz).toEqual(direct.roi?.ci95Hz);
+    expect(results.run.roiDeltaFHz).toBe(direct.roi?.deltaFHz);
+    expect(results.run.roiCiHz).toEqual(direct.roi?.ciHz);
     expect(results.run.trialsKept).toBe(direct.roi?.trialsKept);
     // Generated truth: the synthetic frequency dips by 0.6 Hz from +0.2 to +0.8 s.
     expect(results.run.roiDeltaFHz).toBeGreaterThan(-0.65);
@@ -125,7 +125,13 @@ describe('recording uploads', () => {
   it('takes an onset CSV beside a task recording and counts its onsets', async () => {
     const bytes = syntheticTaskEdf({ durationS: 40, seed: 12, annotate: false });
     const csv = ['onset_s,label', ...taskOnsets(40).map((s) => `${s},stimulus`)].join('\n');
-    const response = await upload(t, 'technician', t.seed.visits.A1.id, {
+    // Another visit: the seeded one already has its task recording.
+    const visit = await request(t.url)
+      .post('/api/visits')
+      .set(await t.authHeader('technician'))
+      .send({ participantId: t.seed.participants.A1.id, label: 'V2', visitDate: '2026-02-01' });
+    expect(visit.status).toBe(201);
+    const response = await upload(t, 'technician', visit.body.id as string, {
       kind: 'task',
       bytes,
       onsetsCsv: csv,
@@ -191,7 +197,8 @@ describe('recording uploads', () => {
       .query({ visitId: t.seed.visits.A1.id, sort: 'createdAt', order: 'asc', pageSize: 2 })
       .set(await t.authHeader('analyst'));
     expect(all.status).toBe(200);
-    expect(all.body.total).toBeGreaterThanOrEqual(3);
+    // The task and the resting recording of the visit (refused uploads leave no row).
+    expect(all.body.total).toBe(2);
     expect(all.body.items).toHaveLength(2);
     expect(all.body.items[0].id).toBe(accepted.id);
     const resting = await request(t.url)

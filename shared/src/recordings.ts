@@ -6,16 +6,88 @@
 export const RECORDING_KINDS = ['resting', 'task'] as const;
 export type RecordingKind = (typeof RECORDING_KINDS)[number];
 
-/** received → queued → computing → ready, or rejected (bad file), or failed (retry possible). */
+/**
+ * received → validating → queued → computing → ready, or rejected (bad file), or failed
+ * (retry possible); a ready or failed recording replaced by a newer one of the same kind
+ * becomes superseded (kept, shown and downloadable, never computed again). The table of
+ * allowed moves lives in the backend's `recordings/recording-lifecycle.ts`.
+ */
 export const RECORDING_STATES = [
   'received',
+  'validating',
   'queued',
   'computing',
   'ready',
   'rejected',
   'failed',
+  'superseded',
 ] as const;
 export type RecordingState = (typeof RECORDING_STATES)[number];
+
+/** States in which a recording will not change again by itself. */
+export const SETTLED_RECORDING_STATES: readonly RecordingState[] = [
+  'ready',
+  'rejected',
+  'failed',
+  'superseded',
+];
+
+/**
+ * Why a region-of-interest channel did not contribute to a result: not in the file, flat,
+ * saturated (runs at the converter's rail), another sampling rate than the rest of the region,
+ * or left out by the analyst's visit override.
+ */
+export type RoiOmissionReason = 'missing' | 'flat' | 'saturated' | 'sample-rate' | 'excluded';
+
+export interface RoiChannelOmission {
+  /** The 10-10 name asked for (or the file's label when present). */
+  label: string;
+  reason: RoiOmissionReason;
+}
+
+/**
+ * Which region-of-interest channels a run actually used. `complete`: every wanted channel;
+ * `partial`: some left out (see `leftOut`); `none`: no channel remains, so there is no
+ * region-of-interest result at all.
+ */
+export interface RoiUsageDto {
+  wanted: string[];
+  used: string[];
+  leftOut: RoiChannelOmission[];
+  status: 'complete' | 'partial' | 'none';
+}
+
+/** Upload form fields beside `file` (and optional `onsets`). */
+export interface UploadRecordingFields {
+  kind: RecordingKind;
+  /**
+   * 'true' when the technician confirms the kind although the file looks like the other kind
+   * (a resting file with stimulus annotations, a task file without onsets); kept as a warning.
+   */
+  confirmKind?: 'true';
+  /** Id of the visit's current recording of the same kind that this upload replaces. */
+  replaces?: string;
+  /** Why the earlier recording is replaced (required with `replaces`). */
+  replacementReason?: string;
+}
+
+/** Details of 422 RECORDING_KIND_UNCONFIRMED: what the file holds against the kind chosen. */
+export interface KindMismatchDetails {
+  kind: RecordingKind;
+  /** Stimulus annotations found (resting upload) or onsets found (task upload). */
+  onsetCount: number;
+  found: string;
+  expected: string;
+}
+
+/** Details of 409 RECORDING_KIND_TAKEN: the visit already has a current recording of this kind. */
+export interface KindTakenDetails {
+  kind: RecordingKind;
+  recordingId: string;
+}
+
+/** What started a run. `rest-changed`: automatic, the visit's resting IAF appeared or changed. */
+export type RunTrigger = 'upload' | 'rerun' | 'retry' | 'rest-changed' | 'override' | 'replacement';
 
 export const JOB_STATES = ['queued', 'running', 'done', 'failed'] as const;
 export type JobState = (typeof JOB_STATES)[number];
@@ -50,6 +122,8 @@ export interface RecordingFactsDto {
   sampleRatesHz: number[];
   roiChannels: string[];
   annotationCount: number;
+  /** Stimulus onsets found (CSV rows, else EDF+ stimulus annotations). */
+  stimulusOnsetCount: number;
   csvOnsetCount: number | null;
   warnings: string[];
 }
@@ -61,7 +135,8 @@ export interface JobDto {
   attempts: number;
   maxAttempts: number;
   progressPercent: number;
-  settingsVersion: number;
+  /** What asked for the computation (the run it makes names its settings version). */
+  trigger: RunTrigger;
   error: string | null;
   createdAt: string;
   startedAt: string | null;
@@ -85,6 +160,21 @@ export interface RecordingDto {
   failureMessage: string | null;
   latestJob: JobDto | null;
   latestRunId: string | null;
+  /** The kind was confirmed by the technician against what the file holds. */
+  kindConfirmed: boolean;
+  /**
+   * Standing warnings a technician should see while the participant may still be in the
+   * room: a confirmed kind, region-of-interest channels left out by the latest run, reader
+   * warnings. Empty when there is nothing to say.
+   */
+  warnings: string[];
+  /** The latest run's region-of-interest usage; null before any run. */
+  roiUsage: RoiUsageDto | null;
+  /** The earlier recording this one replaced, and why. */
+  replacesId: string | null;
+  replacementReason: string | null;
+  /** The newer recording that replaced this one (state `superseded`). */
+  supersededById: string | null;
   uploadedById: string;
   createdAt: string;
   updatedAt: string;
@@ -126,6 +216,8 @@ export interface AnalysisSettingsDto extends AnalysisSettingsValues {
   id: string;
   studyId: string;
   version: number;
+  /** Fields that differ from the previous version (empty for version 1). */
+  changes: SettingsFieldChange[];
   reason: string;
   createdById: string | null;
   createdAt: string;
@@ -153,7 +245,50 @@ export interface AnalysisRunDto {
   pafHz: number | null;
   cogHz: number | null;
   suggestsSlowing: boolean | null;
+  /** What started the run (automatic re-runs say why). */
+  trigger: RunTrigger;
+  /** Which region-of-interest channels the numbers come from. */
+  roiUsage: RoiUsageDto;
+  /** The visit override in force when the run was made, if any (its revision). */
+  overrideRevision: number | null;
+  /**
+   * What the study's current settings (with the visit's override) would compute differently
+   * from this run, in words ("post window 0.2–0.8 s → 0.3–0.9 s"); empty when nothing would
+   * change. Only then is a "computed with older settings" notice shown.
+   */
+  staleSettings: string[];
   createdAt: string;
+}
+
+/**
+ * A visit's own analysis choices over the study's settings (audited): region of interest,
+ * band and onset label. Null fields fall back to the study's settings.
+ */
+export interface VisitAnalysisOverrideValues {
+  roi: string[] | null;
+  bandHz: [number, number] | null;
+  onsetLabel: string | null;
+}
+
+/** `PUT /api/visits/:visitId/analysis-override` (a reason is required; identical values → 409). */
+export interface VisitAnalysisOverrideChange extends VisitAnalysisOverrideValues {
+  reason: string;
+}
+
+export interface VisitAnalysisOverrideDto extends VisitAnalysisOverrideValues {
+  visitId: string;
+  /** 1 for the first override of the visit, +1 per change; 0 = none (study settings only). */
+  revision: number;
+  reason: string | null;
+  updatedById: string | null;
+  updatedAt: string | null;
+}
+
+/** One field of a settings version that differs from the previous version. */
+export interface SettingsFieldChange {
+  field: keyof AnalysisSettingsValues;
+  before: unknown;
+  after: unknown;
 }
 
 /** Mean instantaneous frequency around onset, for one channel or the ROI. */
@@ -236,6 +371,15 @@ export interface QualityDto {
 
 export interface RecordingResultsDto {
   run: AnalysisRunDto;
+  /** The recording the numbers come from (a visit may hold superseded recordings too). */
+  source: {
+    recordingId: string;
+    kind: RecordingKind;
+    uploadedAt: string;
+    checksumSha256: string;
+    replacesId: string | null;
+    replacementReason: string | null;
+  };
   channels: ChannelStatsDto[];
   task: TaskResultsDto | null;
   rest: RestResultsDto | null;
@@ -261,6 +405,8 @@ export interface FlagSuggestion {
   roiDeltaFHz: number | null;
   roiCiHz: [number, number] | null;
   flagThresholdHz: number;
+  /** The region-of-interest channels behind the suggestion; `status: 'none'` = no suggestion possible. */
+  roiUsage: RoiUsageDto;
 }
 
 export interface VisitFlagDto {

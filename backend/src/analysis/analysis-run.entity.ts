@@ -1,5 +1,5 @@
 import { Column, Entity, Index, PrimaryColumn } from 'typeorm';
-import type { BandSource, RecordingKind } from '@gyre/shared';
+import type { BandSource, RecordingKind, RunTrigger } from '@gyre/shared';
 
 /**
  * The results of one finished computation. The headline numbers have their own columns
@@ -34,17 +34,37 @@ export class AnalysisRun {
   @Column('varchar', { length: 16 })
   kind: RecordingKind;
 
+  /** What started the run (upload, re-run, retry, the visit's resting IAF changing, …). */
+  @Column('varchar', { length: 16 })
+  trigger: RunTrigger;
+
   @Column('varchar', { length: 36 })
   settingsId: string;
 
   @Column('integer')
   settingsVersion: number;
 
+  /** The effective `AnalysisSettings` (study version with the visit's override) as JSON. */
+  @Column('text')
+  settingsJson: string;
+
+  /** The visit override revision in force, null without one. */
+  @Column('integer', { nullable: true })
+  overrideRevision: number | null;
+
+  /** The resting IAF the band followed, Hz; null when none was known. */
+  @Column('real', { nullable: true })
+  iafHz: number | null;
+
   @Column('varchar', { length: 40 })
   codeVersion: string;
 
   @Column('varchar', { length: 64 })
   inputChecksumSha256: string;
+
+  /** SHA-256 over the stored summary and curves: equal numbers, equal hash. */
+  @Column('varchar', { length: 64, nullable: true })
+  resultsSha256: string | null;
 
   @Column('real')
   bandLowHz: number;

@@ -1,14 +1,15 @@
-import { randomUUID } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, EntityManager } from 'typeorm';
+import { DataSource, EntityManager, In } from 'typeorm';
 import type {
   AnalysisRunDto,
-  BandSource,
   OnsetCurveDto,
   Page,
   QualityDto,
   RecordingResultsDto,
+  RoiUsageDto,
+  RunTrigger,
 } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
@@ -16,40 +17,98 @@ import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { PageQueryDto, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
-import { Job } from '../jobs/job.entity';
-import type {
-  AnalyzeOutcome,
-  ResolvedAnalysisOptions,
-  RunSummary,
-} from '../jobs/worker/worker-tasks';
+import type { AnalyzeOutcome, RunSummary } from '../jobs/worker/worker-tasks';
 import { Recording } from '../recordings/recording.entity';
+import { RecordingsService } from '../recordings/recordings.service';
+import type { AnalysisSettings as SettingsValues } from '../signal/pipeline/analysis-settings';
 import { GYRE_VERSION } from '../version';
 import { AnalysisError } from './analysis.errors';
 import { AnalysisRun } from './analysis-run.entity';
 import { AnalysisSettings } from './analysis-settings.entity';
 import { decodeResultSeries, encodeResultSeries } from './result-series-codec';
+import { staleSettingsPhrases } from './settings-differences';
+import { parseStoredSettings, settingsJson } from './settings-values';
+import { VisitAnalysisOverridesService } from './visit-analysis-overrides.service';
 
 export interface StoreRunInput {
-  job: Job;
+  jobId: string;
+  trigger: RunTrigger;
   recording: Recording;
-  settings: AnalysisSettings;
-  options: ResolvedAnalysisOptions;
-  bandSource: BandSource;
+  version: AnalysisSettings;
+  settings: SettingsValues;
+  overrideRevision: number | null;
+  iafHz: number | null;
   outcome: AnalyzeOutcome;
 }
 
+/** What storing a computation did. */
+export interface StoredRun {
+  runId: string;
+  /** False when the computation reproduced the recording's current run exactly (nothing stored). */
+  stored: boolean;
+  /** False when the numbers equal those of the recording's previous run. */
+  numbersChanged: boolean;
+  roiUsage: RoiUsageDto;
+  warnings: string[];
+  pafHz: number | null;
+  cogHz: number | null;
+}
+
 /**
- * Analysis runs and their results. Results live in SQLite: headline numbers in columns,
- * the summary as JSON and the curves as one packed Float64 blob per run. Each run names
- * its settings version, Gyre's version and the SHA-256 of the file it read.
+ * Analysis runs and their results. Results live in SQLite: headline numbers in columns, the
+ * summary as JSON and the curves as one packed Float64 blob per run. Each run names its
+ * effective settings, Gyre's version, the SHA-256 of the file it read and of its own numbers.
  */
 @Injectable()
 export class AnalysisRunsService {
-  constructor(@InjectDataSource() private readonly dataSource: DataSource) {}
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly recordings: RecordingsService,
+    private readonly overrides: VisitAnalysisOverridesService,
+  ) {}
 
-  async store(manager: EntityManager, input: StoreRunInput): Promise<AnalysisRun> {
-    const { job, recording, settings, options, bandSource, outcome } = input;
+  /**
+   * Inside the caller's transaction: stores a finished computation, unless it reproduced the
+   * recording's current run with the same settings and input exactly (a re-run that changes
+   * nothing leaves nothing behind but its audit entry).
+   */
+  async store(tx: EntityManager, input: StoreRunInput): Promise<StoredRun> {
+    const { recording, version, outcome } = input;
     const summary = outcome.summary;
+    const summaryJson = JSON.stringify(summary);
+    const series = encodeResultSeries(outcome.series);
+    const resultsSha256 = createHash('sha256').update(summaryJson).update(series).digest('hex');
+    const effective = settingsJson(input.settings);
+    const previous =
+      recording.latestRunId === null
+        ? null
+        : await tx.getRepository(AnalysisRun).findOne({
+            where: { id: recording.latestRunId },
+            select: {
+              id: true,
+              resultsSha256: true,
+              settingsJson: true,
+              iafHz: true,
+              inputChecksumSha256: true,
+            },
+          });
+    const numbersChanged = previous?.resultsSha256 !== resultsSha256;
+    const facts = {
+      numbersChanged,
+      roiUsage: summary.roiUsage,
+      warnings: summary.quality.warnings,
+      pafHz: summary.rest?.pafHz ?? null,
+      cogHz: summary.rest?.cogHz ?? null,
+    };
+    if (
+      previous !== null &&
+      !numbersChanged &&
+      previous.settingsJson === effective &&
+      previous.iafHz === input.iafHz &&
+      previous.inputChecksumSha256 === recording.checksumSha256
+    ) {
+      return { runId: previous.id, stored: false, ...facts };
+    }
     const run = Object.assign(new AnalysisRun(), {
       id: randomUUID(),
       recordingId: recording.id,
@@ -57,15 +116,20 @@ export class AnalysisRunsService {
       participantId: recording.participantId,
       studyId: recording.studyId,
       siteId: recording.siteId,
-      jobId: job.id,
+      jobId: input.jobId,
       kind: recording.kind,
-      settingsId: settings.id,
-      settingsVersion: settings.version,
+      trigger: input.trigger,
+      settingsId: version.id,
+      settingsVersion: version.version,
+      settingsJson: effective,
+      overrideRevision: input.overrideRevision,
+      iafHz: input.iafHz,
       codeVersion: GYRE_VERSION,
       inputChecksumSha256: recording.checksumSha256,
-      bandLowHz: options.bandHz[0],
-      bandHighHz: options.bandHz[1],
-      bandSource,
+      resultsSha256,
+      bandLowHz: summary.bandHz[0],
+      bandHighHz: summary.bandHz[1],
+      bandSource: summary.bandSource,
       roiDeltaFHz: summary.roi?.deltaFHz ?? null,
       roiCiLowHz: summary.roi?.ciHz?.[0] ?? null,
       roiCiHighHz: summary.roi?.ciHz?.[1] ?? null,
@@ -75,12 +139,47 @@ export class AnalysisRunsService {
       pafHz: summary.rest?.pafHz ?? null,
       cogHz: summary.rest?.cogHz ?? null,
       suggestsSlowing: summary.suggestsSlowing,
-      summaryJson: JSON.stringify(summary),
-      series: encodeResultSeries(outcome.series),
+      summaryJson,
+      series,
       createdAt: nowIso(),
     });
-    await manager.getRepository(AnalysisRun).insert(run);
-    return run;
+    await tx.getRepository(AnalysisRun).insert(run);
+    return { runId: run.id, stored: true, ...facts };
+  }
+
+  /** The visit's resting IAF now: PAF (else CoG) of its current resting recording's numbers. */
+  async currentIafOfVisit(visitId: string): Promise<number | null> {
+    const current = await this.recordings.currentOfVisits([visitId]);
+    const rest = current.find((r) => r.kind === 'resting' && r.state === 'ready');
+    return rest === undefined ? null : this.iafOfRun(rest.latestRunId);
+  }
+
+  /** The resting IAF a run found: PAF, else CoG (no clear peak), else null. */
+  async iafOfRun(runId: string | null): Promise<number | null> {
+    if (runId === null) return null;
+    const run = await this.dataSource.getRepository(AnalysisRun).findOne({
+      where: { id: runId },
+      select: { id: true, pafHz: true, cogHz: true },
+    });
+    return run?.pafHz ?? run?.cogHz ?? null;
+  }
+
+  /** The resting IAF each run's band followed (null = none was known), by run id. */
+  async iafUsedByRuns(runIds: readonly string[]): Promise<Map<string, number | null>> {
+    if (runIds.length === 0) return new Map();
+    const rows = await this.dataSource.getRepository(AnalysisRun).find({
+      where: { id: In([...runIds]) },
+      select: { id: true, iafHz: true },
+    });
+    return new Map(rows.map((r) => [r.id, r.iafHz]));
+  }
+
+  /** The runs behind the current numbers of each visit: one per kind at most. */
+  async currentRunsOfVisits(visitIds: readonly string[]): Promise<AnalysisRun[]> {
+    const current = await this.recordings.currentOfVisits(visitIds);
+    const runIds = current.flatMap((r) => (r.latestRunId === null ? [] : [r.latestRunId]));
+    if (runIds.length === 0) return [];
+    return this.dataSource.getRepository(AnalysisRun).find({ where: { id: In(runIds) } });
   }
 
   async listForRecording(
@@ -88,7 +187,7 @@ export class AnalysisRunsService {
     recordingId: string,
     query: PageQueryDto,
   ): Promise<Page<AnalysisRunDto>> {
-    await this.recordingInScope(caller, recordingId, 'AnalysisRun');
+    await this.recordings.findInScope(caller, recordingId, 'read', 'AnalysisRun');
     const window = pageWindowOf(query, 'desc');
     const found = await this.dataSource.getRepository(AnalysisRun).findAndCount({
       where: scopedWhere<AnalysisRun>(caller.ability, 'read', 'AnalysisRun', { recordingId }),
@@ -97,19 +196,23 @@ export class AnalysisRunsService {
       skip: window.skip,
       take: window.take,
     });
-    return toPage(found, window, toRunDto);
+    const stale = await this.staleness(found[0]);
+    return toPage(found, window, (run) => toRunDto(run, stale.get(run.id) ?? []));
   }
 
-  /** Full results of the latest run of a recording, or of `runId`. */
+  /** Full results of the recording's current run, or of `runId`. */
   async results(caller: Caller, recordingId: string, runId?: string): Promise<RecordingResultsDto> {
-    await this.recordingInScope(caller, recordingId, 'Result');
-    const run = await this.dataSource.getRepository(AnalysisRun).findOne({
-      where: scopedWhere<AnalysisRun>(caller.ability, 'read', 'Result', {
-        recordingId,
-        ...(runId === undefined ? {} : { id: runId }),
-      }),
-      order: { createdAt: 'DESC', id: 'DESC' },
-    });
+    const recording = await this.recordings.findInScope(caller, recordingId, 'read', 'Result');
+    const wanted = runId ?? recording.latestRunId;
+    const run =
+      wanted === null
+        ? null
+        : await this.dataSource.getRepository(AnalysisRun).findOne({
+            where: scopedWhere<AnalysisRun>(caller.ability, 'read', 'Result', {
+              recordingId,
+              id: wanted,
+            }),
+          });
     if (run === null) {
       throw new GyreException(
         ErrorKind.NotFound,
@@ -120,39 +223,37 @@ export class AnalysisRunsService {
         { recordingId, runId: runId ?? null },
       );
     }
-    return toResultsDto(run);
+    const stale = await this.staleness([run]);
+    return toResultsDto(run, recording, stale.get(run.id) ?? []);
   }
 
   /** Quality checks only: what technicians see beside the processing state. */
   async quality(caller: Caller, recordingId: string): Promise<QualityDto | null> {
-    await this.recordingInScope(caller, recordingId, 'Recording');
+    const recording = await this.recordings.findInScope(caller, recordingId, 'read', 'Recording');
+    if (recording.latestRunId === null) return null;
     const run = await this.dataSource.getRepository(AnalysisRun).findOne({
-      where: { recordingId },
+      where: { id: recording.latestRunId },
       select: { id: true, summaryJson: true },
-      order: { createdAt: 'DESC', id: 'DESC' },
     });
     return run === null ? null : (JSON.parse(run.summaryJson) as RunSummary).quality;
   }
 
-  private async recordingInScope(
-    caller: Caller,
-    recordingId: string,
-    subjectName: 'AnalysisRun' | 'Result' | 'Recording',
-  ): Promise<Recording> {
-    const recording = await this.dataSource.getRepository(Recording).findOne({
-      where: scopedWhere<Recording>(caller.ability, 'read', subjectName, { id: recordingId }),
-    });
-    if (recording === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        AnalysisError.RecordingNotFound,
-        `No recording ${recordingId}.`,
-        {
-          recordingId,
-        },
+  /** For each run: what the visit's current settings would compute differently, in words. */
+  async staleness(runs: readonly AnalysisRun[]): Promise<Map<string, string[]>> {
+    const out = new Map<string, string[]>();
+    const byVisit = new Map<string, SettingsValues>();
+    for (const run of runs) {
+      let current = byVisit.get(run.visitId);
+      if (current === undefined) {
+        current = (await this.overrides.effectiveFor(run.studyId, run.visitId)).settings;
+        byVisit.set(run.visitId, current);
+      }
+      out.set(
+        run.id,
+        staleSettingsPhrases(run.kind, parseStoredSettings(run.settingsJson), current),
       );
     }
-    return recording;
+    return out;
   }
 }
 
@@ -161,9 +262,15 @@ const RUN_COLUMNS = {
   recordingId: true,
   visitId: true,
   participantId: true,
+  studyId: true,
+  siteId: true,
   kind: true,
+  trigger: true,
   settingsId: true,
   settingsVersion: true,
+  settingsJson: true,
+  overrideRevision: true,
+  iafHz: true,
   codeVersion: true,
   inputChecksumSha256: true,
   bandLowHz: true,
@@ -178,10 +285,15 @@ const RUN_COLUMNS = {
   pafHz: true,
   cogHz: true,
   suggestsSlowing: true,
+  summaryJson: true,
   createdAt: true,
 } as const;
 
-export function toRunDto(run: AnalysisRun): AnalysisRunDto {
+export function roiUsageOf(run: Pick<AnalysisRun, 'summaryJson'>): RoiUsageDto {
+  return (JSON.parse(run.summaryJson) as RunSummary).roiUsage;
+}
+
+export function toRunDto(run: AnalysisRun, staleSettings: string[]): AnalysisRunDto {
   return {
     id: run.id,
     recordingId: run.recordingId,
@@ -205,6 +317,10 @@ export function toRunDto(run: AnalysisRun): AnalysisRunDto {
     pafHz: run.pafHz,
     cogHz: run.cogHz,
     suggestsSlowing: run.suggestsSlowing === null ? null : Boolean(run.suggestsSlowing),
+    trigger: run.trigger,
+    roiUsage: roiUsageOf(run),
+    overrideRevision: run.overrideRevision,
+    staleSettings,
     createdAt: run.createdAt,
   };
 }
@@ -228,7 +344,11 @@ function curve(series: Record<string, Float64Array>, prefix: string, name: strin
   };
 }
 
-export function toResultsDto(run: AnalysisRun): RecordingResultsDto {
+export function toResultsDto(
+  run: AnalysisRun,
+  recording: Recording,
+  staleSettings: string[],
+): RecordingResultsDto {
   const summary = JSON.parse(run.summaryJson) as RunSummary;
   const series = decodeResultSeries(run.series);
   let task: RecordingResultsDto['task'] = null;
@@ -266,5 +386,19 @@ export function toResultsDto(run: AnalysisRun): RecordingResultsDto {
           noPeakReason: summary.rest.noPeakReason,
           alphaWindowHz: summary.rest.alphaWindowHz,
         };
-  return { run: toRunDto(run), channels: summary.channels, task, rest, quality: summary.quality };
+  return {
+    run: toRunDto(run, staleSettings),
+    source: {
+      recordingId: recording.id,
+      kind: recording.kind,
+      uploadedAt: recording.createdAt,
+      checksumSha256: recording.checksumSha256,
+      replacesId: recording.replacesId,
+      replacementReason: recording.replacementReason,
+    },
+    channels: summary.channels,
+    task,
+    rest,
+    quality: summary.quality,
+  };
 }

@@ -1,7 +1,9 @@
 import { Column, Entity, PrimaryColumn, Unique } from 'typeorm';
-import type { AnalysisMethod } from '@gyre/shared';
 
-/** One version of a study's analysis settings; a change adds a row, never edits one. */
+/**
+ * One version of a study's analysis settings; a change adds a row, never edits one. The values
+ * are the signal core's `AnalysisSettings`, stored as validated JSON, field for field.
+ */
 @Entity('analysis_settings')
 @Unique('UQ_analysis_settings_version', ['studyId', 'version'])
 export class AnalysisSettings {
@@ -14,49 +16,9 @@ export class AnalysisSettings {
   @Column('integer')
   version: number;
 
-  /** Null: the visit's resting IAF ± 2 Hz when there is one, else 8–13 Hz. */
-  @Column('real', { nullable: true })
-  bandLowHz: number | null;
-
-  @Column('real', { nullable: true })
-  bandHighHz: number | null;
-
-  @Column('varchar', { length: 16 })
-  method: AnalysisMethod;
-
-  @Column('real')
-  morletCycles: number;
-
-  @Column('real')
-  epochStartS: number;
-
-  @Column('real')
-  epochEndS: number;
-
-  @Column('real')
-  baselineStartS: number;
-
-  @Column('real')
-  baselineEndS: number;
-
-  @Column('real')
-  postStartS: number;
-
-  @Column('real')
-  postEndS: number;
-
-  @Column('real')
-  rejectionThresholdUv: number;
-
-  @Column('real')
-  flagThresholdHz: number;
-
-  /** JSON list of 10-10 channel names. */
+  /** JSON of `AnalysisSettings` (checked by `analysis-settings.rules.ts` before it is written). */
   @Column('text')
-  roiJson: string;
-
-  @Column('varchar', { length: 200, nullable: true })
-  onsetLabel: string | null;
+  valuesJson: string;
 
   @Column('text')
   reason: string;

@@ -3,34 +3,44 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@gyre/shared';
-import type { AnalysisSettingsDto, AnalysisSettingsValues, Page } from '@gyre/shared';
+import type { AnalysisSettingsDto, Page } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
-import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { PageQueryDto, pageWindowOf } from '../common/pagination/page-query.dto';
-import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
-import { Study } from '../studies/study.entity';
+import {
+  AnalysisSettings as SettingsValues,
+  DEFAULT_ANALYSIS_SETTINGS,
+} from '../signal/pipeline/analysis-settings';
+import { StudiesService } from '../studies/studies.service';
 import { AnalysisError } from './analysis.errors';
-import { DEFAULT_ANALYSIS_SETTINGS } from './analysis-settings.defaults';
 import { AnalysisSettings } from './analysis-settings.entity';
 import { settingsProblems } from './analysis-settings.rules';
 import { AnalysisSettingsChangeDto } from './dto/analysis-settings-change.dto';
+import { settingsFieldChanges } from './settings-differences';
+import { parseStoredSettings, settingsJson } from './settings-values';
 
-/** Versioned analysis settings per study: version 1 is Gyre's defaults, each change adds one. */
+/**
+ * Versioned analysis settings per study: version 1 is Gyre's defaults, each change adds one.
+ * A new version computes nothing by itself: runs keep the settings they were made with, and
+ * Review says where the current version would give different numbers.
+ */
 @Injectable()
 export class AnalysisSettingsService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly writes: WriteTransactions,
     private readonly audit: AuditService,
+    private readonly studies: StudiesService,
   ) {}
 
   async current(caller: Caller, studyId: string): Promise<AnalysisSettingsDto> {
     await this.studyInScope(caller, studyId, 'read');
-    return toSettingsDto(await this.currentFor(studyId));
+    const current = await this.currentFor(studyId);
+    const previous = await this.byVersion(studyId, current.version - 1);
+    return toSettingsDto(current, previous);
   }
 
   async versions(
@@ -41,16 +51,20 @@ export class AnalysisSettingsService {
     await this.studyInScope(caller, studyId, 'read');
     await this.currentFor(studyId);
     const window = pageWindowOf(query, 'desc');
-    const found = await this.dataSource.getRepository(AnalysisSettings).findAndCount({
-      where: scopedWhere<AnalysisSettings>(caller.ability, 'read', 'AnalysisSettings', { studyId }),
+    const [rows, total] = await this.dataSource.getRepository(AnalysisSettings).findAndCount({
+      where: { studyId },
       order: { version: window.order },
       skip: window.skip,
       take: window.take,
     });
-    return toPage(found, window, toSettingsDto);
+    const items: AnalysisSettingsDto[] = [];
+    for (const row of rows) {
+      items.push(toSettingsDto(row, await this.byVersion(studyId, row.version - 1)));
+    }
+    return { items, total, page: window.page, pageSize: window.pageSize };
   }
 
-  /** Adds a new version (audited); runs already made keep the version they were made with. */
+  /** Adds a new version (audited); refused when it would change nothing. */
   async change(
     caller: Caller,
     studyId: string,
@@ -71,10 +85,20 @@ export class AnalysisSettingsService {
     }
     return this.writes.run(async (manager) => {
       const previous = await this.ensureCurrent(manager, studyId);
-      const row = toRow(values, {
+      const changes = settingsFieldChanges(valuesOf(previous), values);
+      if (changes.length === 0) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          AnalysisError.SettingsUnchanged,
+          `Nothing changed: these are the values of version ${previous.version}.`,
+          { version: previous.version },
+        );
+      }
+      const row = Object.assign(new AnalysisSettings(), {
         id: randomUUID(),
         studyId,
         version: previous.version + 1,
+        valuesJson: settingsJson(values),
         reason: reason.trim(),
         createdById: caller.user.id,
         createdAt: nowIso(),
@@ -87,12 +111,12 @@ export class AnalysisSettingsService {
         objectId: row.id,
         studyId,
         siteId: null,
-        before: { version: previous.version, ...valuesOf(previous) },
-        after: { version: row.version, ...values },
+        before: { version: previous.version, ...pick(valuesOf(previous), changes) },
+        after: { version: row.version, ...pick(values, changes) },
         reason: row.reason,
         clientIp: caller.clientIp,
       });
-      return toSettingsDto(row);
+      return toSettingsDto(row, previous);
     });
   }
 
@@ -103,27 +127,26 @@ export class AnalysisSettingsService {
     return this.writes.run((manager) => this.ensureCurrent(manager, studyId));
   }
 
-  async byId(
-    id: string,
-    manager: EntityManager = this.dataSource.manager,
-  ): Promise<AnalysisSettings> {
-    return manager.getRepository(AnalysisSettings).findOneByOrFail({ id });
-  }
-
   /** Inside a write transaction: the newest version, or a new version 1. */
   async ensureCurrent(manager: EntityManager, studyId: string): Promise<AnalysisSettings> {
     const found = await this.latest(manager, studyId);
     if (found !== null) return found;
-    const row = toRow(DEFAULT_ANALYSIS_SETTINGS, {
+    const row = Object.assign(new AnalysisSettings(), {
       id: randomUUID(),
       studyId,
       version: 1,
-      reason: 'Gyre defaults (METHOD.md)',
+      valuesJson: settingsJson(DEFAULT_ANALYSIS_SETTINGS),
+      reason: "Gyre's defaults",
       createdById: null,
       createdAt: nowIso(),
     });
     await manager.getRepository(AnalysisSettings).insert(row);
     return row;
+  }
+
+  private byVersion(studyId: string, version: number): Promise<AnalysisSettings | null> {
+    if (version < 1) return Promise.resolve(null);
+    return this.dataSource.getRepository(AnalysisSettings).findOneBy({ studyId, version });
   }
 
   private latest(manager: EntityManager, studyId: string): Promise<AnalysisSettings | null> {
@@ -138,10 +161,11 @@ export class AnalysisSettingsService {
     studyId: string,
     action: 'read' | 'create',
   ): Promise<void> {
-    const study = await this.dataSource.getRepository(Study).findOne({
-      where: scopedWhere<Study>(caller.ability, 'read', 'Study', { id: studyId }),
-    });
-    if (study === null || !caller.ability.can(action, subject('AnalysisSettings', { studyId }))) {
+    const visible = await this.studies.findInScope(caller, 'read', studyId).then(
+      () => true,
+      () => false,
+    );
+    if (!visible || !caller.ability.can(action, subject('AnalysisSettings', { studyId }))) {
       throw new GyreException(
         ErrorKind.NotFound,
         AnalysisError.StudyNotFound,
@@ -154,54 +178,28 @@ export class AnalysisSettingsService {
   }
 }
 
-type RowMeta = Pick<
-  AnalysisSettings,
-  'id' | 'studyId' | 'version' | 'reason' | 'createdById' | 'createdAt'
->;
-
-function toRow(values: AnalysisSettingsValues, meta: RowMeta): AnalysisSettings {
-  const row = new AnalysisSettings();
-  Object.assign(row, meta, {
-    bandLowHz: values.bandHz?.[0] ?? null,
-    bandHighHz: values.bandHz?.[1] ?? null,
-    method: values.method,
-    morletCycles: values.morletCycles,
-    epochStartS: values.epochWindowS[0],
-    epochEndS: values.epochWindowS[1],
-    baselineStartS: values.baselineWindowS[0],
-    baselineEndS: values.baselineWindowS[1],
-    postStartS: values.postWindowS[0],
-    postEndS: values.postWindowS[1],
-    rejectionThresholdUv: values.rejectionThresholdUv,
-    flagThresholdHz: values.flagThresholdHz,
-    roiJson: JSON.stringify(values.roi),
-    onsetLabel: values.onsetLabel ?? null,
-  });
-  return row;
+export function valuesOf(row: AnalysisSettings): SettingsValues {
+  return parseStoredSettings(row.valuesJson);
 }
 
-export function valuesOf(row: AnalysisSettings): AnalysisSettingsValues {
-  return {
-    bandHz:
-      row.bandLowHz === null || row.bandHighHz === null ? null : [row.bandLowHz, row.bandHighHz],
-    method: row.method,
-    morletCycles: row.morletCycles,
-    epochWindowS: [row.epochStartS, row.epochEndS],
-    baselineWindowS: [row.baselineStartS, row.baselineEndS],
-    postWindowS: [row.postStartS, row.postEndS],
-    rejectionThresholdUv: row.rejectionThresholdUv,
-    flagThresholdHz: row.flagThresholdHz,
-    roi: JSON.parse(row.roiJson) as string[],
-    onsetLabel: row.onsetLabel,
-  };
+function pick(
+  values: SettingsValues,
+  changes: { field: keyof SettingsValues }[],
+): Partial<SettingsValues> {
+  return Object.fromEntries(changes.map((c) => [c.field, values[c.field]]));
 }
 
-export function toSettingsDto(row: AnalysisSettings): AnalysisSettingsDto {
+export function toSettingsDto(
+  row: AnalysisSettings,
+  previous: AnalysisSettings | null,
+): AnalysisSettingsDto {
+  const values = valuesOf(row);
   return {
     id: row.id,
     studyId: row.studyId,
     version: row.version,
-    ...valuesOf(row),
+    ...values,
+    changes: previous === null ? [] : settingsFieldChanges(valuesOf(previous), values),
     reason: row.reason,
     createdById: row.createdById,
     createdAt: row.createdAt,

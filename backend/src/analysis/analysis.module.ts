@@ -1,12 +1,23 @@
 import { Module } from '@nestjs/common';
+import { RecordingsModule } from '../recordings/recordings.module';
+import { StudiesModule } from '../studies/studies.module';
+import { VisitsModule } from '../visits/visits.module';
 import { AnalysisResultsController } from './analysis-results.controller';
 import { AnalysisRunsService } from './analysis-runs.service';
 import { AnalysisSettingsController } from './analysis-settings.controller';
 import { AnalysisSettingsService } from './analysis-settings.service';
+import { VisitAnalysisOverrideController } from './visit-analysis-override.controller';
+import { VisitAnalysisOverridesService } from './visit-analysis-overrides.service';
 
+/** Analysis settings (study versions, visit overrides), runs and their results. */
 @Module({
-  controllers: [AnalysisSettingsController, AnalysisResultsController],
-  providers: [AnalysisSettingsService, AnalysisRunsService],
-  exports: [AnalysisSettingsService, AnalysisRunsService],
+  imports: [RecordingsModule, StudiesModule, VisitsModule],
+  controllers: [
+    AnalysisSettingsController,
+    AnalysisResultsController,
+    VisitAnalysisOverrideController,
+  ],
+  providers: [AnalysisSettingsService, AnalysisRunsService, VisitAnalysisOverridesService],
+  exports: [AnalysisSettingsService, AnalysisRunsService, VisitAnalysisOverridesService],
 })
 export class AnalysisModule {}

@@ -6,8 +6,8 @@ import { ThrottlerModule } from '@nestjs/throttler';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
-import { Site } from '../sites/site.entity';
-import { Study } from '../studies/study.entity';
+import { SitesModule } from '../sites/sites.module';
+import { StudiesModule } from '../studies/studies.module';
 import { User } from '../users/user.entity';
 import { AccessTokens } from './access-tokens.service';
 import { AuthController } from './auth.controller';
@@ -34,7 +34,9 @@ export const AUTH_THROTTLE_LIMIT = 60;
       }),
     }),
     ThrottlerModule.forRoot([{ name: 'auth', ttl: 60_000, limit: AUTH_THROTTLE_LIMIT }]),
-    TypeOrmModule.forFeature([User, Study, Site]),
+    TypeOrmModule.forFeature([User]),
+    StudiesModule,
+    SitesModule,
   ],
   controllers: [AuthController],
   providers: [

@@ -10,9 +10,9 @@ import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import { clientLink, passwordResetMail } from '../mail/mail-templates';
 import { OutboxService } from '../mail/outbox.service';
-import { Site } from '../sites/site.entity';
 import { toSiteView } from '../sites/site-view';
-import { Study } from '../studies/study.entity';
+import { SitesService } from '../sites/sites.service';
+import { StudiesService } from '../studies/studies.service';
 import { toStudyView } from '../studies/study-view';
 import { User } from '../users/user.entity';
 import { toUserView } from '../users/user-view';
@@ -40,8 +40,6 @@ export class AuthService {
   constructor(
     @Inject(APP_CONFIG) private readonly config: AppConfig,
     @InjectRepository(User) private readonly users: Repository<User>,
-    @InjectRepository(Study) private readonly studies: Repository<Study>,
-    @InjectRepository(Site) private readonly sites: Repository<Site>,
     private readonly writes: WriteTransactions,
     private readonly hasher: PasswordHasher,
     private readonly accessTokens: AccessTokens,
@@ -49,6 +47,8 @@ export class AuthService {
     private readonly oneTimeTokens: OneTimeTokens,
     private readonly audit: AuditService,
     private readonly outbox: OutboxService,
+    private readonly studies: StudiesService,
+    private readonly sites: SitesService,
   ) {}
 
   async signIn(
@@ -201,8 +201,8 @@ export class AuthService {
 
   async me(authUser: AuthUser): Promise<MeResponse> {
     const user = await this.users.findOneByOrFail({ id: authUser.id });
-    const study = user.studyId === null ? null : await this.studies.findOneBy({ id: user.studyId });
-    const site = user.siteId === null ? null : await this.sites.findOneBy({ id: user.siteId });
+    const study = user.studyId === null ? null : await this.studies.findById(user.studyId);
+    const site = user.siteId === null ? null : await this.sites.findById(user.siteId);
     return {
       user: toUserView(user),
       study: study === null ? null : toStudyView(study),

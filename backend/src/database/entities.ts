@@ -8,9 +8,10 @@ import { Study } from '../studies/study.entity';
 import { User } from '../users/user.entity';
 import { Visit } from '../visits/visit.entity';
 import { Recording } from '../recordings/recording.entity';
-import { Job } from '../jobs/job.entity';
+import { QueueJob } from '../queue/queue-job.entity';
 import { AnalysisSettings } from '../analysis/analysis-settings.entity';
 import { AnalysisRun } from '../analysis/analysis-run.entity';
+import { VisitAnalysisOverride } from '../analysis/visit-analysis-override.entity';
 import { Flag } from '../flags/flag.entity';
 import { Report } from '../reports/report.entity';
 import { ReportRevision } from '../signoff/report-revision.entity';
@@ -29,11 +30,12 @@ export const ENTITIES: (new () => object)[] = [
   AuditEntry,
   OutboxMessage,
   Recording,
-  Job,
+  QueueJob,
   AnalysisSettings,
   AnalysisRun,
   Flag,
   Report,
   ReportRevision,
   ReportNotification,
+  VisitAnalysisOverride,
 ];

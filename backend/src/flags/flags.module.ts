@@ -1,6 +1,13 @@
 import { Module } from '@nestjs/common';
+import { AnalysisModule } from '../analysis/analysis.module';
+import { VisitsModule } from '../visits/visits.module';
 import { FlagsController } from './flags.controller';
 import { FlagsService } from './flags.service';
 
-@Module({ controllers: [FlagsController], providers: [FlagsService], exports: [FlagsService] })
+@Module({
+  imports: [AnalysisModule, VisitsModule],
+  controllers: [FlagsController],
+  providers: [FlagsService],
+  exports: [FlagsService],
+})
 export class FlagsModule {}

@@ -1,10 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, EntityManager, FindOptionsWhere } from 'typeorm';
+import { DataSource, EntityManager, FindOptionsWhere, In } from 'typeorm';
 import type { FlagDto, FlagSuggestion, Page, VisitFlagDto } from '@gyre/shared';
-import { AnalysisRun } from '../analysis/analysis-run.entity';
-import { AnalysisSettings } from '../analysis/analysis-settings.entity';
+import { AnalysisRunsService, roiUsageOf } from '../analysis/analysis-runs.service';
+import { parseStoredSettings } from '../analysis/settings-values';
 import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
@@ -13,7 +13,8 @@ import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
-import { Visit } from '../visits/visit.entity';
+import type { Visit } from '../visits/visit.entity';
+import { VisitsService } from '../visits/visits.service';
 import { FlagListQueryDto } from './dto/flag-list-query.dto';
 import { Flag } from './flag.entity';
 import { FlagsError } from './flags.errors';
@@ -28,6 +29,8 @@ export class FlagsService {
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly writes: WriteTransactions,
     private readonly audit: AuditService,
+    private readonly runs: AnalysisRunsService,
+    private readonly visits: VisitsService,
   ) {}
 
   async forVisit(caller: Caller, visitId: string): Promise<VisitFlagDto> {
@@ -39,7 +42,7 @@ export class FlagsService {
     return {
       visitId,
       current: current === null ? null : toFlagDto(current),
-      suggestion: await this.suggestion(this.dataSource.manager, visitId),
+      suggestion: await this.suggestion(visitId),
       history: history.map(toFlagDto),
     };
   }
@@ -72,7 +75,7 @@ export class FlagsService {
           { flagId: raised.id },
         );
       }
-      const suggestion = await this.suggestion(manager, visitId);
+      const suggestion = await this.suggestion(visitId);
       const flag = Object.assign(new Flag(), {
         id: randomUUID(),
         visitId,
@@ -141,27 +144,22 @@ export class FlagsService {
     return this.forVisit(caller, visitId);
   }
 
-  /** What the latest task run of the visit suggests (METHOD.md §3). */
-  private async suggestion(
-    manager: EntityManager,
-    visitId: string,
-  ): Promise<FlagSuggestion | null> {
-    const run = await manager.getRepository(AnalysisRun).findOne({
-      where: { visitId, kind: 'task' },
-      select: {
-        id: true,
-        settingsId: true,
-        roiDeltaFHz: true,
-        roiCiLowHz: true,
-        roiCiHighHz: true,
-        suggestsSlowing: true,
-      },
-      order: { createdAt: 'DESC', id: 'DESC' },
+  /**
+   * For other modules, unscoped: every flag of the visits, newest raised first; pass `manager`
+   * inside a transaction.
+   */
+  async forVisits(visitIds: string[], manager?: EntityManager): Promise<Flag[]> {
+    if (visitIds.length === 0) return [];
+    return (manager ?? this.dataSource.manager).getRepository(Flag).find({
+      where: { visitId: In(visitIds) },
+      order: { raisedAt: 'DESC', id: 'DESC' },
     });
-    if (run === null) return null;
-    const settings = await manager
-      .getRepository(AnalysisSettings)
-      .findOneByOrFail({ id: run.settingsId });
+  }
+
+  /** What the numbers of the visit's current task recording suggest (docs/method.md §3). */
+  private async suggestion(visitId: string): Promise<FlagSuggestion | null> {
+    const [run] = (await this.runs.currentRunsOfVisits([visitId])).filter((r) => r.kind === 'task');
+    if (run === undefined) return null;
     return {
       suggestsSlowing: Boolean(run.suggestsSlowing),
       runId: run.id,
@@ -170,7 +168,8 @@ export class FlagsService {
         run.roiCiLowHz === null || run.roiCiHighHz === null
           ? null
           : [run.roiCiLowHz, run.roiCiHighHz],
-      flagThresholdHz: settings.flagThresholdHz,
+      flagThresholdHz: parseStoredSettings(run.settingsJson).flagThresholdHz,
+      roiUsage: roiUsageOf(run),
     };
   }
 
@@ -179,9 +178,7 @@ export class FlagsService {
     visitId: string,
     action: 'read' | 'create' | 'update',
   ): Promise<Visit> {
-    const visit = await this.dataSource.getRepository(Visit).findOne({
-      where: scopedWhere<Visit>(caller.ability, action, 'Flag', { id: visitId }),
-    });
+    const visit = await this.visits.inScopeOf(caller, action, 'Flag', visitId);
     if (visit === null) {
       throw new GyreException(
         ErrorKind.NotFound,

@@ -11,23 +11,31 @@ import type {
 } from './worker/worker-tasks';
 
 /**
- * One piscina pool of worker threads, as wide as the machine's cores, for everything
- * heavy: full validation of uploads and the analyses. The event loop only moves bytes.
+ * Worker threads for everything heavy, in two lanes of their own: analyses get as many threads
+ * as the machine has cores; validation of uploads has its own thread, so an upload is checked
+ * at once even while every core is computing (it reads the file once and is short).
  */
 @Injectable()
 export class WorkerPoolService implements OnModuleDestroy {
-  readonly threads = Math.max(1, availableParallelism());
-  private readonly pool = new Piscina({
+  readonly analysisThreads = Math.max(1, availableParallelism());
+  private readonly analysisPool = new Piscina({
     filename: analysisWorkerFile(),
     minThreads: 0,
-    maxThreads: this.threads,
+    maxThreads: this.analysisThreads,
     idleTimeout: 30_000,
     // Analyses hold whole recordings in memory: never stack tasks on one thread.
     concurrentTasksPerWorker: 1,
   });
+  private readonly validationPool = new Piscina({
+    filename: analysisWorkerFile(),
+    minThreads: 0,
+    maxThreads: 1,
+    idleTimeout: 30_000,
+    concurrentTasksPerWorker: 1,
+  });
 
   validate(task: ValidateTask): Promise<ValidateOutcome> {
-    return this.pool.run(task, { name: 'validate' }) as Promise<ValidateOutcome>;
+    return this.validationPool.run(task, { name: 'validate' }) as Promise<ValidateOutcome>;
   }
 
   /** Runs one analysis; `onProgress` gets 0–100 as the worker reports it. */
@@ -41,7 +49,7 @@ export class WorkerPoolService implements OnModuleDestroy {
     });
     try {
       const full: AnalyzeTask = { ...task, progressPort: channel.port2 };
-      return (await this.pool.run(full, {
+      return (await this.analysisPool.run(full, {
         name: 'analyze',
         transferList: [channel.port2],
       })) as AnalyzeOutcome;
@@ -51,6 +59,9 @@ export class WorkerPoolService implements OnModuleDestroy {
   }
 
   async onModuleDestroy(): Promise<void> {
-    await this.pool.close({ force: true });
+    await Promise.all([
+      this.analysisPool.close({ force: true }),
+      this.validationPool.close({ force: true }),
+    ]);
   }
 }

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable, Logger, OnModuleDestroy, OnModuleInit } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
-import { EntityManager, FindOptionsWhere, IsNull, LessThanOrEqual, Repository } from 'typeorm';
+import { EntityManager, FindOptionsWhere, In, IsNull, LessThanOrEqual, Repository } from 'typeorm';
 import type { OutboxMessageView, Page } from '@gyre/shared';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
@@ -196,6 +196,15 @@ export class OutboxService implements OnModuleInit, OnModuleDestroy {
       take: window.take,
     });
     return toPage(rows, window, toOutboxView);
+  }
+
+  /** For other modules: where the given messages stand (missing ones are left out). */
+  async deliveryOf(ids: string[]): Promise<Pick<OutboxMessage, 'id' | 'state' | 'sentAt'>[]> {
+    if (ids.length === 0) return [];
+    return this.messages.find({
+      where: { id: In(ids) },
+      select: { id: true, state: true, sentAt: true },
+    });
   }
 
   /** Queued messages never attempted: for the tests and the admin view. */

@@ -1,8 +1,14 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
-import { FindOptionsWhere, Repository } from 'typeorm';
-import { subject, type Page, type ParticipantView } from '@gyre/shared';
+import { EntityManager, FindOptionsWhere, In, Repository } from 'typeorm';
+import {
+  subject,
+  type Action,
+  type Page,
+  type ParticipantView,
+  type SubjectName,
+} from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
@@ -136,6 +142,36 @@ export class ParticipantsService {
     });
     if (participant === null) throw notFound(id, 'id');
     return participant;
+  }
+
+  /**
+   * For other modules: the participant if the caller may `action` a `subjectName` of it
+   * (that subject's scope, applied to the participant row in the query), else null.
+   */
+  inScopeOf(
+    caller: Caller,
+    action: Action,
+    subjectName: SubjectName,
+    id: string,
+  ): Promise<Participant | null> {
+    return this.participants.findOne({
+      where: scopedWhere<Participant>(caller.ability, action, subjectName, { id }),
+    });
+  }
+
+  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
+  byId(id: string, manager?: EntityManager): Promise<Participant> {
+    return this.repo(manager).findOneByOrFail({ id });
+  }
+
+  /** For other modules, unscoped: the participants among `ids` (missing ones are left out). */
+  async byIds(ids: string[], manager?: EntityManager): Promise<Participant[]> {
+    if (ids.length === 0) return [];
+    return this.repo(manager).find({ where: { id: In(ids) } });
+  }
+
+  private repo(manager: EntityManager | undefined): Repository<Participant> {
+    return manager?.getRepository(Participant) ?? this.participants;
   }
 }
 

@@ -58,6 +58,33 @@ export class Recording {
   @Column('text', { nullable: true })
   rejectionJson: string | null;
 
+  /** The technician confirmed the kind although the file looks like the other kind. */
+  @Column('boolean', { default: false })
+  kindConfirmed: boolean;
+
+  /** The earlier recording of the same kind this one replaced, and why. */
+  @Column('varchar', { length: 36, nullable: true })
+  replacesId: string | null;
+
+  @Column('text', { nullable: true })
+  replacementReason: string | null;
+
+  /** The newer recording that replaced this one. */
+  @Column('varchar', { length: 36, nullable: true })
+  supersededById: string | null;
+
+  /** The run behind the recording's current numbers (set when it becomes ready). */
+  @Column('varchar', { length: 36, nullable: true })
+  latestRunId: string | null;
+
+  /** JSON RoiUsageDto of that run. */
+  @Column('text', { nullable: true })
+  roiUsageJson: string | null;
+
+  /** JSON list of that run's warnings (reader and analysis). */
+  @Column('text', { nullable: true })
+  resultWarningsJson: string | null;
+
   /** The last computation error, when failed. */
   @Column('text', { nullable: true })
   failureMessage: string | null;

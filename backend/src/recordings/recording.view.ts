@@ -1,17 +1,25 @@
-import type { JobDto, RecordingDto, RecordingFactsDto, RecordingRejection } from '@gyre/shared';
-import { Job } from '../jobs/job.entity';
+import type {
+  JobDto,
+  RecordingDto,
+  RecordingFactsDto,
+  RecordingRejection,
+  RoiUsageDto,
+} from '@gyre/shared';
 import type { RecordingFacts } from '../jobs/worker/worker-tasks';
+import type { QueuedJob } from '../queue/job-queue';
 import { Recording } from './recording.entity';
+import type { ComputationPayload } from './recordings.events';
+import { kindWarning } from './kind-check';
 
-export function toJobDto(job: Job, settingsVersion: number): JobDto {
+export function toJobDto(job: QueuedJob<ComputationPayload>): JobDto {
   return {
     id: job.id,
-    recordingId: job.recordingId,
+    recordingId: job.payload.recordingId,
     state: job.state,
     attempts: job.attempts,
     maxAttempts: job.maxAttempts,
     progressPercent: job.progressPercent,
-    settingsVersion,
+    trigger: job.payload.trigger,
     error: job.error,
     createdAt: job.createdAt,
     startedAt: job.startedAt,
@@ -26,11 +34,20 @@ export function factsOf(row: Recording): RecordingFactsDto | null {
   return { ...facts, csvOnsetCount: csv === null ? null : csv.length };
 }
 
-export function toRecordingDto(
-  row: Recording,
-  latestJob: JobDto | null,
-  latestRunId: string | null,
-): RecordingDto {
+/** What a technician should know about the recording while the participant may still be there. */
+function warningsOf(row: Recording, facts: RecordingFactsDto | null): string[] {
+  const warnings: string[] = [];
+  if (row.kindConfirmed) warnings.push(kindWarning(row.kind, facts?.stimulusOnsetCount ?? 0));
+  if (row.resultWarningsJson !== null) {
+    warnings.push(...(JSON.parse(row.resultWarningsJson) as string[]));
+  } else if (facts !== null) {
+    warnings.push(...facts.warnings);
+  }
+  return warnings;
+}
+
+export function toRecordingDto(row: Recording, latestJob: JobDto | null): RecordingDto {
+  const facts = factsOf(row);
   return {
     id: row.id,
     studyId: row.studyId,
@@ -42,12 +59,18 @@ export function toRecordingDto(
     checksumSha256: row.checksumSha256,
     sizeBytes: row.sizeBytes,
     progressPercent: latestJob?.progressPercent ?? null,
-    facts: factsOf(row),
+    facts,
     rejection:
       row.rejectionJson === null ? null : (JSON.parse(row.rejectionJson) as RecordingRejection),
     failureMessage: row.failureMessage,
     latestJob,
-    latestRunId,
+    latestRunId: row.latestRunId,
+    kindConfirmed: row.kindConfirmed,
+    warnings: warningsOf(row, facts),
+    roiUsage: row.roiUsageJson === null ? null : (JSON.parse(row.roiUsageJson) as RoiUsageDto),
+    replacesId: row.replacesId,
+    replacementReason: row.replacementReason,
+    supersededById: row.supersededById,
     uploadedById: row.uploadedById,
     createdAt: row.createdAt,
     updatedAt: row.updatedAt,

@@ -1,4 +1,14 @@
-import { Controller, Get, MessageEvent, Param, Post, Query, Req, Sse } from '@nestjs/common';
+import {
+  Controller,
+  Get,
+  MessageEvent,
+  Param,
+  Post,
+  Query,
+  Req,
+  Sse,
+  StreamableFile,
+} from '@nestjs/common';
 import {
   ApiBearerAuth,
   ApiBody,
@@ -12,14 +22,20 @@ import { map, Observable } from 'rxjs';
 import type { Page, RecordingDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
+import { VisitsService } from '../visits/visits.service';
 import { RecordingListQueryDto } from './dto/recording-list-query.dto';
 import { RecordingsService } from './recordings.service';
+import { UploadReceiver } from './upload/upload-receiver';
 
 @ApiTags('recordings')
 @ApiBearerAuth()
 @Controller()
 export class RecordingsController {
-  constructor(private readonly recordings: RecordingsService) {}
+  constructor(
+    private readonly recordings: RecordingsService,
+    private readonly visits: VisitsService,
+    private readonly uploads: UploadReceiver,
+  ) {}
 
   @Post('visits/:visitId/recordings')
   @RequirePermission('upload', 'Recording')
@@ -30,6 +46,16 @@ export class RecordingsController {
       required: ['kind', 'file'],
       properties: {
         kind: { type: 'string', enum: ['resting', 'task'] },
+        confirmKind: {
+          type: 'string',
+          enum: ['true', 'false'],
+          description: 'true: keep the kind although the file looks like the other kind',
+        },
+        replaces: {
+          type: 'string',
+          description: "the visit's current recording of this kind that this file replaces",
+        },
+        replacementReason: { type: 'string', description: 'why (required with replaces)' },
         file: { type: 'string', format: 'binary', description: 'EDF or EDF+ recording' },
         onsets: {
           type: 'string',
@@ -41,14 +67,16 @@ export class RecordingsController {
   })
   @ApiCreatedResponse({
     description:
-      'Accepted and queued. 422 RECORDING_REJECTED (details.recording) for a bad file, 409 for a duplicate, 413 beyond UPLOAD_MAX_BYTES',
+      'Accepted and queued. 422 RECORDING_REJECTED (details.recording) for a bad file, 422 RECORDING_KIND_UNCONFIRMED when the file looks like the other kind, 409 RECORDING_KIND_TAKEN when the visit has a current recording of the kind (send replaces), 409 for a duplicate, 413 beyond UPLOAD_MAX_BYTES',
   })
-  upload(
+  async upload(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
     @Req() request: Request,
   ): Promise<RecordingDto> {
-    return this.recordings.upload(caller, visitId, request);
+    // The visit is found in the caller's scope before a byte of the body is read.
+    const visit = await this.visits.findInScope(caller, 'read', visitId);
+    return this.recordings.upload(caller, visit, await this.uploads.receive(request));
   }
 
   @Get('recordings')
@@ -70,6 +98,24 @@ export class RecordingsController {
   })
   get(@CurrentCaller() caller: Caller, @Param('recordingId') id: string): Promise<RecordingDto> {
     return this.recordings.get(caller, id);
+  }
+
+  @Get('recordings/:recordingId/file')
+  @RequirePermission('read', 'Recording')
+  @ApiOkResponse({
+    description:
+      'The stored copy (patient field blanked), current or superseded; 404 once rejected',
+  })
+  async file(
+    @CurrentCaller() caller: Caller,
+    @Param('recordingId') id: string,
+  ): Promise<StreamableFile> {
+    const file = await this.recordings.file(caller, id);
+    return new StreamableFile(file.stream, {
+      type: 'application/octet-stream',
+      disposition: `attachment; filename="${file.fileName}"`,
+      length: file.sizeBytes,
+    });
   }
 
   @Sse('recordings/:recordingId/events')

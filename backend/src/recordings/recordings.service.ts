@@ -1,12 +1,14 @@
 import { createHash, randomUUID } from 'node:crypto';
+import { createReadStream } from 'node:fs';
 import { mkdir, rename, rm, stat, unlink } from 'node:fs/promises';
 import { join } from 'node:path';
+import type { Readable } from 'node:stream';
 import { Inject, Injectable, Logger } from '@nestjs/common';
+import { EventEmitter2 } from '@nestjs/event-emitter';
 import { InjectDataSource } from '@nestjs/typeorm';
-import type { Request } from 'express';
 import { concat, from, Observable, of, takeWhile } from 'rxjs';
 import { DataSource, EntityManager, FindOptionsWhere, In, Not } from 'typeorm';
-import { RECORDING_KINDS } from '@gyre/shared';
+import { SETTLED_RECORDING_STATES } from '@gyre/shared';
 import type {
   Page,
   RecordingDto,
@@ -14,44 +16,73 @@ import type {
   RecordingKind,
   RecordingRejection,
   RecordingState,
+  RunTrigger,
 } from '@gyre/shared';
-import { AnalysisRun } from '../analysis/analysis-run.entity';
-import { AnalysisSettings } from '../analysis/analysis-settings.entity';
 import { AuditService } from '../audit/audit.service';
+import type { AuditActor } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
-import { nowIso } from '../common/time';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
-import { Job } from '../jobs/job.entity';
-import { JobsService } from '../jobs/jobs.service';
-import { RecordingEventsService } from '../jobs/recording-events.service';
 import { WorkerPoolService } from '../jobs/worker-pool.service';
 import type { RecordingFacts } from '../jobs/worker/worker-tasks';
-import { Visit } from '../visits/visit.entity';
+import { JOB_QUEUE } from '../queue/job-queue';
+import type { FailOutcome, JobQueue, QueuedJob, RecoveredJob } from '../queue/job-queue';
+import type { Visit } from '../visits/visit.entity';
 import { RecordingListQueryDto } from './dto/recording-list-query.dto';
+import { RecordingEventsService } from './recording-events.service';
+import { RecordingLifecycle } from './recording-lifecycle';
 import { Recording } from './recording.entity';
 import { toJobDto, toRecordingDto } from './recording.view';
-import { RecordingsError } from './recordings.errors';
 import {
-  receiveUpload,
-  ReceivedUpload,
-  UploadFormError,
-  UploadTooLargeError,
-} from './upload/multipart-upload';
+  ANALYSIS_LANE,
+  ComputationInput,
+  ComputationPayload,
+  RecordingEvents,
+} from './recordings.events';
+import { RecordingsError } from './recordings.errors';
+import { kindMismatch, kindWarning } from './kind-check';
+import { formError, StoredUpload } from './upload/upload-receiver';
 
-const MAX_ONSETS_CSV_BYTES = 4 * 1024 * 1024;
-const TERMINAL: readonly RecordingState[] = ['ready', 'rejected', 'failed'];
+/** States in which a recording is the visit's current one of its kind. */
+export const CURRENT_STATES: readonly RecordingState[] = ['queued', 'computing', 'ready', 'failed'];
+
+/** Who asks for a computation, and why. */
+export interface ComputationRequest {
+  trigger: RunTrigger;
+  actor: AuditActor | null;
+  reason: string | null;
+  clientIp?: string | null;
+}
+
+/** What a finished computation tells the recording. */
+export interface ComputationResult {
+  runId: string;
+  stored: boolean;
+  numbersChanged: boolean;
+  roiUsage: unknown;
+  warnings: string[];
+}
+
+const AUDIT_ACTION: Record<RunTrigger, string> = {
+  upload: 'accept',
+  rerun: 'rerun',
+  retry: 'retry',
+  'rest-changed': 'recompute',
+  override: 'recompute',
+  replacement: 'accept',
+};
 
 /**
- * Uploads and the recordings they create. An upload streams to a temporary file with the
- * patient field blanked (see PatientFieldBlanker), is checked completely by the signal core
- * in a worker thread, and only then becomes `queued` under `uploads/<checksum>.edf`; a bad
- * file becomes `rejected` with the reader's message, and nothing of it is kept.
+ * A recording's whole life, and the only writer of its state (through RecordingLifecycle):
+ * upload (stream → validate in the validation lane → accept or reject), the kind check and
+ * explicit replacement, queueing computations, the moves the computation makes, recovery after
+ * a restart, and what the API shows of it. Computations themselves run elsewhere (processing/).
  */
 @Injectable()
 export class RecordingsService {
@@ -60,49 +91,40 @@ export class RecordingsService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
+    @Inject(JOB_QUEUE) private readonly queue: JobQueue,
     private readonly writes: WriteTransactions,
+    private readonly lifecycle: RecordingLifecycle,
     private readonly audit: AuditService,
     private readonly pool: WorkerPoolService,
-    private readonly jobs: JobsService,
-    private readonly events: RecordingEventsService,
+    private readonly stateEvents: RecordingEventsService,
+    private readonly events: EventEmitter2,
   ) {}
 
-  get tempDir(): string {
-    return join(this.config.uploadsDir, 'tmp');
-  }
-
-  async upload(caller: Caller, visitId: string, request: Request): Promise<RecordingDto> {
-    const visit = await this.dataSource.getRepository(Visit).findOne({
-      where: scopedWhere<Visit>(caller.ability, 'upload', 'Recording', { id: visitId }),
-    });
-    if (visit === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        RecordingsError.VisitNotFound,
-        `No visit ${visitId}.`,
-        {
-          visitId,
-        },
-      );
-    }
-    const received = await this.receive(request);
-    const tempPath = received.recording.tempPath;
+  async upload(caller: Caller, visit: Visit, upload: StoredUpload): Promise<RecordingDto> {
+    const tempPath = upload.file.tempPath;
     try {
-      const kind = kindOf(received.fields.kind);
-      if (received.onsetsCsv !== null && kind !== 'task') {
+      if (upload.onsetsCsv !== null && upload.kind !== 'task') {
         throw formError(
           'onsets',
           'an onset CSV with a resting recording',
           'onsets only beside a task recording',
         );
       }
-      const row = await this.insertReceived(caller, visit, kind, received);
-      this.emit(row, null);
+      await this.assertKindFree(visit.id, upload);
+      const row = await this.insertReceived(caller, visit, upload);
+      const validating = await this.writes.run((tx) =>
+        this.lifecycle.transition(tx, row, 'validating', {
+          actor: caller.user,
+          action: 'validate',
+          clientIp: caller.clientIp,
+        }),
+      );
+      this.emit(validating, null);
       const outcome = await this.pool
         .validate({
           filePath: tempPath,
-          kind,
-          onsetsCsv: received.onsetsCsv === null ? null : received.onsetsCsv.toString('utf8'),
+          kind: upload.kind,
+          onsetsCsv: upload.onsetsCsv === null ? null : upload.onsetsCsv.toString('utf8'),
         })
         .catch((error: unknown) => ({
           ok: false as const,
@@ -113,7 +135,7 @@ export class RecordingsService {
         }));
       if (!outcome.ok) {
         const { ok: _ok, ...rejection } = outcome;
-        const rejected = await this.reject(caller, row, rejection);
+        const rejected = await this.reject(caller, validating, rejection);
         throw new GyreException(
           ErrorKind.Unprocessable,
           RecordingsError.Rejected,
@@ -124,7 +146,17 @@ export class RecordingsService {
           },
         );
       }
-      return await this.accept(caller, row, tempPath, outcome.facts, received.onsetsCsv);
+      const mismatch = kindMismatch(upload.kind, outcome.facts.stimulusOnsetCount);
+      if (mismatch !== null && !upload.confirmKind) {
+        const rejected = await this.reject(caller, validating, mismatch.rejection);
+        throw new GyreException(
+          ErrorKind.Unprocessable,
+          RecordingsError.KindUnconfirmed,
+          mismatch.rejection.message,
+          { ...mismatch.details, recording: rejected },
+        );
+      }
+      return await this.accept(caller, validating, upload, outcome.facts, mismatch !== null);
     } finally {
       await unlink(tempPath).catch(() => undefined);
     }
@@ -159,7 +191,41 @@ export class RecordingsService {
     return view;
   }
 
-  /** The recording's current state first, then every change until a final state. */
+  /** The stored copy (patient field blanked) of an accepted recording, current or superseded. */
+  async file(
+    caller: Caller,
+    id: string,
+  ): Promise<{ stream: Readable; fileName: string; sizeBytes: number }> {
+    const row = await this.findInScope(caller, id, 'read');
+    const path = row.storedFile === null ? null : join(this.config.uploadsDir, row.storedFile);
+    const found = path === null ? null : await stat(path).catch(() => null);
+    if (path === null || found === null) {
+      throw new GyreException(
+        ErrorKind.NotFound,
+        RecordingsError.FileMissing,
+        `Recording ${id} has no stored file (${row.state === 'rejected' ? 'it was rejected: only its checksum and reason are kept' : 'not accepted yet'}).`,
+        { recordingId: id, state: row.state },
+      );
+    }
+    // Who took a copy of a recording is part of the trail, like every change.
+    await this.audit.record({
+      actor: caller.user,
+      action: 'download',
+      objectType: 'Recording',
+      objectId: row.id,
+      studyId: row.studyId,
+      siteId: row.siteId,
+      after: { checksumSha256: row.checksumSha256, state: row.state },
+      clientIp: caller.clientIp,
+    });
+    return {
+      stream: createReadStream(path),
+      fileName: `gyre-${row.kind}-${row.id.slice(0, 8)}.edf`,
+      sizeBytes: found.size,
+    };
+  }
+
+  /** The recording's current state first, then every change until a settled state. */
   async events$(caller: Caller, id: string): Promise<Observable<RecordingEvent>> {
     const current = await this.get(caller, id);
     const first: RecordingEvent = {
@@ -168,10 +234,12 @@ export class RecordingsService {
       progressPercent: current.progressPercent,
       error: current.failureMessage,
     };
-    if (TERMINAL.includes(current.state)) return of(first);
+    if (SETTLED_RECORDING_STATES.includes(current.state)) return of(first);
     return concat(
       from([first]),
-      this.events.of(id).pipe(takeWhile((event) => !TERMINAL.includes(event.state), true)),
+      this.stateEvents
+        .of(id)
+        .pipe(takeWhile((event) => !SETTLED_RECORDING_STATES.includes(event.state), true)),
     );
   }
 
@@ -186,18 +254,61 @@ export class RecordingsService {
         { state: row.state },
       );
     }
-    await this.jobs.requeue(caller, [row], 'retry', null);
+    await this.requestComputations([row], {
+      trigger: 'retry',
+      actor: caller.user,
+      reason: null,
+      clientIp: caller.clientIp,
+    });
     return this.get(caller, id);
+  }
+
+  /**
+   * Queues a computation of each recording (audited with the trigger). Refused for a recording
+   * that has no accepted file, is superseded, or is already queued or computing.
+   */
+  async requestComputations(
+    recordings: readonly Recording[],
+    request: ComputationRequest,
+  ): Promise<QueuedJob<ComputationPayload>[]> {
+    const jobs = await this.writes.run(async (tx) => {
+      const out: QueuedJob<ComputationPayload>[] = [];
+      for (const stale of recordings) {
+        const row = await tx.getRepository(Recording).findOneByOrFail({ id: stale.id });
+        if (row.state === 'queued' || row.state === 'computing') {
+          throw new GyreException(
+            ErrorKind.Conflict,
+            RecordingsError.AlreadyQueued,
+            `Recording ${row.id} is already ${row.state}.`,
+            { recordingId: row.id, state: row.state },
+          );
+        }
+        if (row.state !== 'ready' && row.state !== 'failed') {
+          throw new GyreException(
+            ErrorKind.Conflict,
+            RecordingsError.NotComputable,
+            `Recording ${row.id} is ${row.state}: ${row.state === 'superseded' ? 'a newer recording replaced it' : 'there is no accepted file to compute'}.`,
+            { recordingId: row.id, state: row.state },
+          );
+        }
+        out.push(await this.queueComputation(tx, row, request));
+      }
+      return out;
+    });
+    await this.announce(jobs.map((job) => job.subjectId));
+    this.events.emit(RecordingEvents.ComputationQueued);
+    return jobs;
   }
 
   /** 404 when the recording does not exist or lies outside the caller's scope for `action`. */
   async findInScope(
     caller: Caller,
     id: string,
-    action: 'read' | 'retry' | 'update',
+    action: 'read' | 'retry' | 'update' | 'rerun',
+    subjectName: 'Recording' | 'Result' | 'AnalysisRun' = 'Recording',
   ): Promise<Recording> {
     const row = await this.dataSource.getRepository(Recording).findOne({
-      where: scopedWhere<Recording>(caller.ability, action, 'Recording', { id }),
+      where: scopedWhere<Recording>(caller.ability, action, subjectName, { id }),
     });
     if (row === null) {
       throw new GyreException(ErrorKind.NotFound, RecordingsError.NotFound, `No recording ${id}.`, {
@@ -207,154 +318,325 @@ export class RecordingsService {
     return row;
   }
 
+  /** The current recording of each kind of these visits (never a superseded or rejected one). */
+  currentOfVisits(visitIds: readonly string[]): Promise<Recording[]> {
+    if (visitIds.length === 0) return Promise.resolve([]);
+    return this.dataSource.getRepository(Recording).find({
+      where: { visitId: In([...visitIds]), state: In([...CURRENT_STATES]) },
+      order: { createdAt: 'ASC' },
+    });
+  }
+
+  /** Visits that have a current recording of this kind. */
+  async visitsWithCurrentKind(kind: RecordingKind): Promise<string[]> {
+    const rows: Array<{ visitId: string }> = await this.dataSource
+      .getRepository(Recording)
+      .createQueryBuilder('r')
+      .select('DISTINCT r.visitId', 'visitId')
+      .where('r.kind = :kind AND r.state IN (:...states)', { kind, states: CURRENT_STATES })
+      .getRawMany();
+    return rows.map((r) => r.visitId);
+  }
+
+  /**
+   * Whether a task recording should wait: its visit's resting recording is still queued or
+   * computing, and the task's band follows the IAF that computation will give.
+   */
+  async waitsForRest(recordingId: string): Promise<boolean> {
+    const row = await this.dataSource
+      .getRepository(Recording)
+      .findOne({ where: { id: recordingId }, select: { id: true, kind: true, visitId: true } });
+    if (row === null || row.kind !== 'task') return false;
+    const count = await this.dataSource.getRepository(Recording).count({
+      where: { visitId: row.visitId, kind: 'resting', state: In(['queued', 'computing']) },
+    });
+    return count > 0;
+  }
+
+  /**
+   * The queued recording a claimed job is about becomes `computing`; null when it is no longer
+   * queued (replaced meanwhile), so the job has nothing to do.
+   */
+  async startComputing(job: QueuedJob<ComputationPayload>): Promise<ComputationInput | null> {
+    const input = await this.writes.run(async (tx) => {
+      const row = await tx.getRepository(Recording).findOneBy({ id: job.payload.recordingId });
+      if (row === null || row.state !== 'queued' || row.storedFile === null) return null;
+      await this.lifecycle.transition(tx, row, 'computing', {
+        actor: null,
+        action: 'compute',
+        after: { jobId: job.id, attempt: job.attempts, trigger: job.payload.trigger },
+      });
+      return toComputationInput(row, this.config.uploadsDir);
+    });
+    if (input !== null) await this.announce([input.recording.id]);
+    return input;
+  }
+
+  /** Inside the processing transaction: the computation's numbers are now the recording's. */
+  async finishComputing(
+    tx: EntityManager,
+    recordingId: string,
+    result: ComputationResult,
+  ): Promise<Recording | null> {
+    const row = await tx.getRepository(Recording).findOneBy({ id: recordingId });
+    // Replaced while computing: its numbers are not the visit's any more.
+    if (row === null || row.state !== 'computing') return null;
+    return this.lifecycle.transition(
+      tx,
+      row,
+      'ready',
+      {
+        actor: null,
+        action: 'ready',
+        after: {
+          runId: result.runId,
+          newRun: result.stored,
+          numbersChanged: result.numbersChanged,
+        },
+        reason: result.stored ? null : 'the computation reproduced the current numbers exactly',
+      },
+      {
+        latestRunId: result.runId,
+        roiUsageJson: JSON.stringify(result.roiUsage),
+        resultWarningsJson: JSON.stringify(result.warnings),
+        failureMessage: null,
+      },
+    );
+  }
+
+  /** Inside the processing transaction: an attempt failed; queued again or failed for good. */
+  async failComputing(
+    tx: EntityManager,
+    recordingId: string,
+    outcome: FailOutcome,
+    error: string,
+  ): Promise<void> {
+    const row = await tx.getRepository(Recording).findOneBy({ id: recordingId });
+    if (row === null || row.state !== 'computing') return;
+    await this.lifecycle.transition(
+      tx,
+      row,
+      outcome.willRetry ? 'queued' : 'failed',
+      {
+        actor: null,
+        action: outcome.willRetry ? 'attempt-failed' : 'fail',
+        reason: error,
+        after: { attempts: outcome.attempts, maxAttempts: outcome.maxAttempts },
+      },
+      { failureMessage: error },
+    );
+  }
+
+  /** After a restart: recordings whose job the stopped server left running. */
+  async recoverComputations(recovered: readonly RecoveredJob[]): Promise<void> {
+    await this.writes.run(async (tx) => {
+      for (const { job, willRetry } of recovered) {
+        const payload = job.payload as ComputationPayload;
+        const row = await tx.getRepository(Recording).findOneBy({ id: payload.recordingId });
+        if (row === null || row.state !== 'computing') continue;
+        await this.lifecycle.transition(
+          tx,
+          row,
+          willRetry ? 'queued' : 'failed',
+          { actor: null, action: willRetry ? 'attempt-failed' : 'fail', reason: job.error },
+          { failureMessage: job.error },
+        );
+      }
+    });
+  }
+
+  /**
+   * After a restart: a recording left queued without a live job (its job finished or failed
+   * but the recording's move was lost) gets a fresh job, so nothing waits for ever.
+   */
+  async requeueOrphans(): Promise<number> {
+    const waiting = await this.dataSource
+      .getRepository(Recording)
+      .find({ where: { state: In(['queued', 'computing']) } });
+    if (waiting.length === 0) return 0;
+    const jobs = await this.queue.latestBySubject(waiting.map((r) => r.id));
+    const orphans = waiting.filter((r) => {
+      const job = jobs.get(r.id);
+      return job === undefined || job.state === 'done' || job.state === 'failed';
+    });
+    await this.writes.run(async (tx) => {
+      for (const row of orphans) {
+        const fresh = await tx.getRepository(Recording).findOneByOrFail({ id: row.id });
+        if (fresh.state === 'computing') {
+          await this.lifecycle.transition(tx, fresh, 'queued', {
+            actor: null,
+            action: 'attempt-failed',
+            reason: 'the server stopped during the computation',
+          });
+        }
+        await this.queue.enqueue<ComputationPayload>(tx, {
+          lane: ANALYSIS_LANE,
+          subjectId: row.id,
+          payload: { recordingId: row.id, trigger: 'retry', requestedById: null, reason: null },
+        });
+      }
+    });
+    if (orphans.length > 0) this.logger.warn(`Queued ${orphans.length} recording(s) again`);
+    return orphans.length;
+  }
+
   async views(rows: Recording[]): Promise<RecordingDto[]> {
     if (rows.length === 0) return [];
-    const ids = rows.map((r) => r.id);
-    const jobs = await this.dataSource
-      .getRepository(Job)
-      .find({ where: { recordingId: In(ids) }, order: { createdAt: 'DESC', id: 'DESC' } });
-    const settingsIds = [...new Set(jobs.map((j) => j.settingsId))];
-    const versions = new Map(
-      (settingsIds.length === 0
-        ? []
-        : await this.dataSource.getRepository(AnalysisSettings).find({
-            where: { id: In(settingsIds) },
-            select: { id: true, version: true },
-          })
-      ).map((s) => [s.id, s.version]),
-    );
-    const runs = await this.dataSource.getRepository(AnalysisRun).find({
-      where: { recordingId: In(ids) },
-      select: { id: true, recordingId: true, createdAt: true },
-      order: { createdAt: 'DESC', id: 'DESC' },
-    });
-    const latestJob = new Map<string, Job>();
-    for (const job of jobs)
-      if (!latestJob.has(job.recordingId)) latestJob.set(job.recordingId, job);
-    const latestRun = new Map<string, string>();
-    for (const run of runs)
-      if (!latestRun.has(run.recordingId)) latestRun.set(run.recordingId, run.id);
+    const jobs = await this.queue.latestBySubject(rows.map((r) => r.id));
     return rows.map((row) => {
-      const job = latestJob.get(row.id);
-      return toRecordingDto(
-        row,
-        job === undefined ? null : toJobDto(job, versions.get(job.settingsId) ?? 0),
-        latestRun.get(row.id) ?? null,
-      );
+      const job = jobs.get(row.id) as QueuedJob<ComputationPayload> | undefined;
+      return toRecordingDto(row, job === undefined ? null : toJobDto(job));
     });
   }
 
   /** Uploads cut short by a restart: their temporary files are gone with the request. */
-  async recoverInterruptedUploads(): Promise<void> {
-    await rm(this.tempDir, { recursive: true, force: true });
+  async recoverInterruptedUploads(tempDir: string): Promise<void> {
+    await rm(tempDir, { recursive: true, force: true });
     const stale = await this.dataSource
       .getRepository(Recording)
-      .find({ where: { state: 'received' } });
+      .find({ where: { state: In(['received', 'validating']) } });
     for (const row of stale) {
-      await this.writes.run(async (manager) => {
-        await this.setRejected(manager, row, {
-          message:
-            'The upload was interrupted by a server restart before the file was checked; upload it again.',
-          field: null,
-          found: null,
-          expected: null,
-        });
-        await this.audit.record({
-          actor: null,
-          action: 'reject',
-          objectType: 'Recording',
-          objectId: row.id,
-          studyId: row.studyId,
-          siteId: row.siteId,
-          before: { state: 'received' },
-          after: { state: 'rejected', checksumSha256: row.checksumSha256 },
-          reason: 'upload interrupted by a restart',
-        });
-      });
+      await this.writes.run((tx) =>
+        this.lifecycle.transition(
+          tx,
+          row,
+          'rejected',
+          {
+            actor: null,
+            action: 'reject',
+            reason: 'upload interrupted by a restart',
+            after: { checksumSha256: row.checksumSha256 },
+          },
+          {
+            rejectionJson: JSON.stringify({
+              message:
+                'The upload was interrupted by a server restart before the file was checked; upload it again.',
+              field: null,
+              found: null,
+              expected: null,
+            } satisfies RecordingRejection),
+          },
+        ),
+      );
     }
     if (stale.length > 0) this.logger.warn(`${stale.length} interrupted upload(s) marked rejected`);
   }
 
-  private async receive(
-    request: Request,
-  ): Promise<ReceivedUpload & { recording: NonNullable<ReceivedUpload['recording']> }> {
-    try {
-      const received = await receiveUpload(request, {
-        tempDir: this.tempDir,
-        maxRecordingBytes: this.config.uploadMaxBytes,
-        maxOnsetsCsvBytes: MAX_ONSETS_CSV_BYTES,
-        recordingField: 'file',
-        onsetsField: 'onsets',
-        allowedFields: ['kind'],
-      });
-      if (received.recording === null) throw formError('file', 'none', 'an EDF/EDF+ file part');
-      return { ...received, recording: received.recording };
-    } catch (error) {
-      if (error instanceof UploadTooLargeError) {
-        // Stop reading: the rest of an oversize body is not worth receiving.
-        request.unpipe();
-        request.resume();
-        throw new GyreException(
-          ErrorKind.PayloadTooLarge,
-          RecordingsError.TooLarge,
-          error.message,
-          {
-            field: error.part,
-            limitBytes: error.limitBytes,
-          },
-        );
-      }
-      if (error instanceof UploadFormError)
-        throw formError(error.field, error.found, error.expected);
-      throw error;
+  /** Tells state listeners (SSE) the committed state of these recordings. */
+  async announce(ids: readonly string[]): Promise<void> {
+    if (ids.length === 0) return;
+    const rows = await this.dataSource
+      .getRepository(Recording)
+      .find({ where: { id: In([...ids]) } });
+    for (const row of rows) this.emit(row, row.state === 'failed' ? row.failureMessage : null);
+  }
+
+  /** Progress of a computing recording, for SSE only. */
+  emitProgress(recordingId: string, percent: number): void {
+    this.stateEvents.emit({
+      recordingId,
+      state: 'computing',
+      progressPercent: percent,
+      error: null,
+    });
+  }
+
+  /**
+   * 409 for the same file again in the visit, or when the visit has a current recording of
+   * the kind that the upload does not explicitly replace.
+   */
+  private async assertKindFree(visitId: string, upload: StoredUpload): Promise<void> {
+    const duplicate = await this.dataSource.getRepository(Recording).findOne({
+      where: { visitId, checksumSha256: upload.file.sha256, state: Not('rejected') },
+    });
+    if (duplicate !== null) throw duplicateError(duplicate.id, upload.file.sha256);
+    const current = await this.dataSource.getRepository(Recording).findOne({
+      where: { visitId, kind: upload.kind, state: In([...CURRENT_STATES]) },
+    });
+    if (current === null && upload.replaces === null) return;
+    if (current === null || upload.replaces === null) {
+      throw current === null
+        ? new GyreException(
+            ErrorKind.Conflict,
+            RecordingsError.ReplacementInvalid,
+            `replaces: recording ${upload.replaces?.recordingId} is not this visit's current ${upload.kind} recording (there is none).`,
+            { field: 'replaces', recordingId: upload.replaces?.recordingId ?? null },
+          )
+        : new GyreException(
+            ErrorKind.Conflict,
+            RecordingsError.KindTaken,
+            `This visit already has a ${upload.kind} recording (${current.id}, ${current.state}). Replace it explicitly, with a reason, or upload to another visit.`,
+            { kind: upload.kind, recordingId: current.id },
+          );
+    }
+    if (current.id !== upload.replaces.recordingId) {
+      throw new GyreException(
+        ErrorKind.Conflict,
+        RecordingsError.ReplacementInvalid,
+        `replaces: recording ${upload.replaces.recordingId} found, the visit's current ${upload.kind} recording ${current.id} expected.`,
+        { field: 'replaces', recordingId: upload.replaces.recordingId, currentId: current.id },
+      );
     }
   }
 
   private async insertReceived(
     caller: Caller,
     visit: Visit,
-    kind: RecordingKind,
-    received: ReceivedUpload & { recording: NonNullable<ReceivedUpload['recording']> },
+    upload: StoredUpload,
   ): Promise<Recording> {
-    const now = nowIso();
+    const now = new Date().toISOString();
     const row = Object.assign(new Recording(), {
       id: randomUUID(),
       studyId: visit.studyId,
       siteId: visit.siteId,
       participantId: visit.participantId,
       visitId: visit.id,
-      kind,
+      kind: upload.kind,
       state: 'received' as const,
-      checksumSha256: received.recording.sha256,
-      sizeBytes: received.recording.sizeBytes,
+      checksumSha256: upload.file.sha256,
+      sizeBytes: upload.file.sizeBytes,
       storedFile: null,
       factsJson: null,
       csvOnsetsJson: null,
       onsetsChecksumSha256:
-        received.onsetsCsv === null
+        upload.onsetsCsv === null
           ? null
-          : createHash('sha256').update(received.onsetsCsv).digest('hex'),
+          : createHash('sha256').update(upload.onsetsCsv).digest('hex'),
       rejectionJson: null,
+      kindConfirmed: false,
+      replacesId: upload.replaces?.recordingId ?? null,
+      replacementReason: upload.replaces?.reason ?? null,
+      supersededById: null,
+      latestRunId: null,
+      roiUsageJson: null,
+      resultWarningsJson: null,
       failureMessage: null,
       uploadedById: caller.user.id,
       createdAt: now,
       updatedAt: now,
     });
-    return this.writes.run(async (manager) => {
-      const duplicate = await manager.getRepository(Recording).findOne({
+    await this.writes.run(async (tx) => {
+      const duplicate = await tx.getRepository(Recording).findOne({
         where: { visitId: visit.id, checksumSha256: row.checksumSha256, state: Not('rejected') },
       });
-      if (duplicate !== null) {
-        throw new GyreException(
-          ErrorKind.Conflict,
-          RecordingsError.Duplicate,
-          `This file (SHA-256 ${row.checksumSha256}) is already recording ${duplicate.id} of this visit.`,
-          { recordingId: duplicate.id, checksumSha256: row.checksumSha256 },
-        );
-      }
-      await manager.getRepository(Recording).insert(row);
-      return row;
+      if (duplicate !== null) throw duplicateError(duplicate.id, row.checksumSha256);
+      await this.lifecycle.create(tx, row, {
+        actor: caller.user,
+        action: 'upload',
+        clientIp: caller.clientIp,
+        after: {
+          kind: row.kind,
+          visitId: row.visitId,
+          checksumSha256: row.checksumSha256,
+          sizeBytes: row.sizeBytes,
+          onsetsChecksumSha256: row.onsetsChecksumSha256,
+          replacesId: row.replacesId,
+        },
+        reason: row.replacementReason,
+      });
     });
+    this.emit(row, null);
+    return row;
   }
 
   private async reject(
@@ -362,54 +644,32 @@ export class RecordingsService {
     row: Recording,
     rejection: RecordingRejection,
   ): Promise<RecordingDto> {
-    const rejected = await this.writes.run(async (manager) => {
-      const updated = await this.setRejected(manager, row, rejection);
-      await this.audit.record({
-        actor: caller.user,
-        action: 'reject',
-        objectType: 'Recording',
-        objectId: row.id,
-        studyId: row.studyId,
-        siteId: row.siteId,
-        before: null,
-        after: {
-          state: 'rejected',
-          kind: row.kind,
-          visitId: row.visitId,
-          checksumSha256: row.checksumSha256,
-          sizeBytes: row.sizeBytes,
-          rejection,
+    const rejected = await this.writes.run((tx) =>
+      this.lifecycle.transition(
+        tx,
+        row,
+        'rejected',
+        {
+          actor: caller.user,
+          action: 'reject',
+          reason: rejection.message,
+          clientIp: caller.clientIp,
+          after: { checksumSha256: row.checksumSha256, rejection },
         },
-        reason: rejection.message,
-        clientIp: caller.clientIp,
-      });
-      return updated;
-    });
+        { rejectionJson: JSON.stringify(rejection) },
+      ),
+    );
     this.emit(rejected, rejection.message);
     const [view] = await this.views([rejected]);
     return view;
   }
 
-  private async setRejected(
-    manager: EntityManager,
-    row: Recording,
-    rejection: RecordingRejection,
-  ): Promise<Recording> {
-    const changes = {
-      state: 'rejected' as const,
-      rejectionJson: JSON.stringify(rejection),
-      updatedAt: nowIso(),
-    };
-    await manager.getRepository(Recording).update({ id: row.id }, changes);
-    return Object.assign(row, changes);
-  }
-
   private async accept(
     caller: Caller,
     row: Recording,
-    tempPath: string,
+    upload: StoredUpload,
     facts: RecordingFacts,
-    onsetsCsv: Buffer | null,
+    kindConfirmed: boolean,
   ): Promise<RecordingDto> {
     const storedFile = `${row.checksumSha256}.edf`;
     const target = join(this.config.uploadsDir, storedFile);
@@ -419,69 +679,136 @@ export class RecordingsService {
       () => true,
       () => false,
     );
-    if (!exists) await rename(tempPath, target);
+    if (!exists) await rename(upload.file.tempPath, target);
     const { csvOnsets, ...rest } = facts;
-    const queued = await this.writes.run(async (manager) => {
-      const changes = {
-        storedFile,
-        factsJson: JSON.stringify(rest),
-        csvOnsetsJson: csvOnsets === null ? null : JSON.stringify(csvOnsets),
-        updatedAt: nowIso(),
-      };
-      await manager.getRepository(Recording).update({ id: row.id }, changes);
-      Object.assign(row, changes);
-      await this.jobs.enqueue(manager, row, caller.user.id);
-      await this.audit.record({
-        actor: caller.user,
-        action: 'upload',
-        objectType: 'Recording',
-        objectId: row.id,
-        studyId: row.studyId,
-        siteId: row.siteId,
-        before: null,
-        after: {
-          state: 'queued',
-          kind: row.kind,
-          visitId: row.visitId,
-          checksumSha256: row.checksumSha256,
-          sizeBytes: row.sizeBytes,
-          onsetsChecksumSha256: row.onsetsChecksumSha256,
-          csvOnsetCount: csvOnsets?.length ?? null,
-          durationS: facts.durationS,
-          channels: facts.channelLabels.length,
-        },
-        reason: null,
-        clientIp: caller.clientIp,
+    const superseded: string[] = [];
+    let queued: Recording;
+    try {
+      queued = await this.writes.run(async (tx) => {
+        if (upload.replaces !== null) {
+          const earlier = await tx
+            .getRepository(Recording)
+            .findOneByOrFail({ id: upload.replaces.recordingId });
+          await this.lifecycle.transition(
+            tx,
+            earlier,
+            'superseded',
+            {
+              actor: caller.user,
+              action: 'supersede',
+              reason: upload.replaces.reason,
+              clientIp: caller.clientIp,
+              after: { supersededById: row.id },
+            },
+            { supersededById: row.id },
+          );
+          superseded.push(earlier.id);
+        }
+        const accepted = await this.lifecycle.transition(
+          tx,
+          row,
+          'queued',
+          {
+            actor: caller.user,
+            action: 'accept',
+            clientIp: caller.clientIp,
+            reason: kindConfirmed ? kindWarning(row.kind, facts.stimulusOnsetCount) : null,
+            after: {
+              durationS: facts.durationS,
+              channels: facts.channelLabels.length,
+              stimulusOnsetCount: facts.stimulusOnsetCount,
+              csvOnsetCount: csvOnsets?.length ?? null,
+              kindConfirmed,
+            },
+          },
+          {
+            storedFile,
+            factsJson: JSON.stringify(rest),
+            csvOnsetsJson: csvOnsets === null ? null : JSON.stringify(csvOnsets),
+            kindConfirmed,
+          },
+        );
+        await this.queue.enqueue<ComputationPayload>(tx, {
+          lane: ANALYSIS_LANE,
+          subjectId: row.id,
+          payload: {
+            recordingId: row.id,
+            trigger: upload.replaces === null ? 'upload' : 'replacement',
+            requestedById: caller.user.id,
+            reason: upload.replaces?.reason ?? null,
+          },
+        });
+        return accepted;
       });
-      return row;
-    });
-    void onsetsCsv;
-    this.jobs.pump();
+    } catch (error) {
+      // Another upload of this kind was accepted for the visit meanwhile.
+      if (!isUniqueViolation(error)) throw error;
+      const rejection: RecordingRejection = {
+        message: `Another ${row.kind} recording was accepted for this visit while this one was checked; replace it explicitly if this file should count.`,
+        field: 'kind',
+        found: row.kind,
+        expected: 'one current recording of each kind per visit',
+      };
+      const rejected = await this.reject(caller, row, rejection);
+      throw new GyreException(ErrorKind.Conflict, RecordingsError.KindTaken, rejection.message, {
+        kind: row.kind,
+        recording: rejected,
+      });
+    }
+    await this.announce([...superseded, queued.id]);
+    this.events.emit(RecordingEvents.ComputationQueued);
+    if (superseded.length > 0) {
+      this.events.emit(RecordingEvents.Superseded, { visitId: row.visitId, kind: row.kind });
+    }
     const [view] = await this.views([queued]);
     return view;
   }
 
+  private async queueComputation(
+    tx: EntityManager,
+    row: Recording,
+    request: ComputationRequest,
+  ): Promise<QueuedJob<ComputationPayload>> {
+    await this.lifecycle.transition(tx, row, 'queued', {
+      actor: request.actor,
+      action: AUDIT_ACTION[request.trigger],
+      reason: request.reason,
+      clientIp: request.clientIp ?? null,
+      after: { trigger: request.trigger, automatic: request.actor === null },
+    });
+    return this.queue.enqueue<ComputationPayload>(tx, {
+      lane: ANALYSIS_LANE,
+      subjectId: row.id,
+      payload: {
+        recordingId: row.id,
+        trigger: request.trigger,
+        requestedById: request.actor?.id ?? null,
+        reason: request.reason,
+      },
+    });
+  }
+
   private emit(row: Recording, error: string | null): void {
-    this.events.emit({ recordingId: row.id, state: row.state, progressPercent: null, error });
+    this.stateEvents.emit({ recordingId: row.id, state: row.state, progressPercent: null, error });
   }
 }
 
-function kindOf(value: string | undefined): RecordingKind {
-  if (value === undefined || !(RECORDING_KINDS as readonly string[]).includes(value)) {
-    throw formError(
-      'kind',
-      value === undefined ? 'none' : `'${value}'`,
-      `one of ${RECORDING_KINDS.join(', ')}`,
-    );
-  }
-  return value as RecordingKind;
-}
-
-function formError(field: string, found: string, expected: string): GyreException {
+function duplicateError(recordingId: string, checksumSha256: string): GyreException {
   return new GyreException(
-    ErrorKind.BadInput,
-    RecordingsError.FormInvalid,
-    `${field}: ${found} found, ${expected} expected`,
-    { field, found, expected },
+    ErrorKind.Conflict,
+    RecordingsError.Duplicate,
+    `This file (SHA-256 ${checksumSha256}) is already recording ${recordingId} of this visit.`,
+    { recordingId, checksumSha256 },
   );
+}
+
+function toComputationInput(row: Recording, uploadsDir: string): ComputationInput {
+  return {
+    recording: row,
+    filePath: join(uploadsDir, row.storedFile ?? ''),
+    csvOnsets:
+      row.csvOnsetsJson === null
+        ? null
+        : (JSON.parse(row.csvOnsetsJson) as Array<{ onsetS: number; label: string }>),
+  };
 }

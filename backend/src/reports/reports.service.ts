@@ -1,8 +1,9 @@
 import { randomUUID } from 'node:crypto';
-import { Injectable } from '@nestjs/common';
+import { Injectable, Logger } from '@nestjs/common';
+import { OnEvent } from '@nestjs/event-emitter';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, FindOptionsWhere } from 'typeorm';
-import type { Page, ReportDto } from '@gyre/shared';
+import type { Action, Page, ReportDto } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
@@ -10,33 +11,51 @@ import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
-import { Recording } from '../recordings/recording.entity';
+import { AnalysisEvents } from '../analysis/analysis.events';
+import type { VisitResultsChanged } from '../analysis/analysis.events';
+import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ReportListQueryDto } from './dto/report-list-query.dto';
 import { Report } from './report.entity';
 import { ReportsError } from './reports.errors';
 
+/** The visit a report belongs to, with the columns its scope needs. */
+type ReportVisit = Pick<VisitResultsChanged, 'visitId' | 'participantId' | 'studyId' | 'siteId'>;
+
 /**
- * Visit reports. Here only drafts exist: one per visit, created (audited) when the visit's
- * first computation finishes. Signing comes in a later issue.
+ * Visit reports: one per visit, created as a draft (audited) when the visit's first result
+ * is computed. Their content is built when asked for (signoff/), so new numbers reach the
+ * draft without this service being told more than "the visit has results".
  */
 @Injectable()
 export class ReportsService {
+  private readonly logger = new Logger('Reports');
+
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly writes: WriteTransactions,
     private readonly audit: AuditService,
   ) {}
 
+  @OnEvent(AnalysisEvents.VisitResultsChanged, { async: true, promisify: true })
+  async onVisitResults(event: VisitResultsChanged): Promise<void> {
+    try {
+      await this.writes.run((tx) => this.ensureDraft(tx, event));
+    } catch (error) {
+      this.logger.error(`Visit ${event.visitId}: ${String(error)}`);
+    }
+  }
+
   /** Inside a write transaction: the visit's report, created as a draft when missing. */
-  async ensureDraft(manager: EntityManager, recording: Recording): Promise<Report> {
-    const found = await manager.getRepository(Report).findOneBy({ visitId: recording.visitId });
+  async ensureDraft(manager: EntityManager, visit: ReportVisit): Promise<Report> {
+    const found = await manager.getRepository(Report).findOneBy({ visitId: visit.visitId });
     if (found !== null) return found;
     const now = nowIso();
     const report = Object.assign(new Report(), {
       id: randomUUID(),
-      visitId: recording.visitId,
-      participantId: recording.participantId,
-      studyId: recording.studyId,
-      siteId: recording.siteId,
+      visitId: visit.visitId,
+      participantId: visit.participantId,
+      studyId: visit.studyId,
+      siteId: visit.siteId,
       state: 'draft' as const,
       createdAt: now,
       updatedAt: now,
@@ -92,6 +111,18 @@ export class ReportsService {
       );
     }
     return toReportDto(report);
+  }
+
+  /** For other modules: the visit's report if the caller may `action` it, else null (their 404). */
+  inScopeForVisit(caller: Caller, action: Action, visitId: string): Promise<Report | null> {
+    return this.dataSource.getRepository(Report).findOne({
+      where: scopedWhere<Report>(caller.ability, action, 'Report', { visitId }),
+    });
+  }
+
+  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
+  byId(id: string, manager?: EntityManager): Promise<Report> {
+    return (manager ?? this.dataSource.manager).getRepository(Report).findOneByOrFail({ id });
   }
 }
 

@@ -7,12 +7,10 @@ import { WriteTransactions } from '../common/database/write-transactions.service
 import { nowIso } from '../common/time';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
-import { OutboxMessage } from '../mail/outbox-message.entity';
 import { OutboxService } from '../mail/outbox.service';
 import { Report } from '../reports/report.entity';
-import { Site } from '../sites/site.entity';
-import { Study } from '../studies/study.entity';
-import { User } from '../users/user.entity';
+import { ReportsService } from '../reports/reports.service';
+import { UsersService } from '../users/users.service';
 import { ReportNotification } from './report-notification.entity';
 import { ReportRevision } from './report-revision.entity';
 import { REPORT_SIGNED_KIND, reportSignedMail, revisionLink } from './report-signed-mail';
@@ -30,6 +28,8 @@ export class ReportNotifications implements OnModuleInit {
     private readonly writes: WriteTransactions,
     private readonly outbox: OutboxService,
     private readonly audit: AuditService,
+    private readonly reports: ReportsService,
+    private readonly users: UsersService,
   ) {}
 
   onModuleInit(): void {
@@ -46,17 +46,13 @@ export class ReportNotifications implements OnModuleInit {
   async queueFor(
     manager: EntityManager,
     revision: ReportRevision,
-    context: { site: Site; study: Study },
+    context: { site: { name: string }; study: { code: string } },
   ): Promise<string[]> {
-    const coordinators = await manager.find(User, {
-      where: {
-        role: 'coordinator',
-        studyId: revision.studyId,
-        siteId: revision.siteId,
-        state: 'active',
-      },
-      order: { email: 'ASC' },
-    });
+    const coordinators = await this.users.activeCoordinatorsOf(
+      revision.studyId,
+      revision.siteId,
+      manager,
+    );
     const link = revisionLink(this.config.publicUrl, revision.id);
     for (const coordinator of coordinators) {
       const content = reportSignedMail({
@@ -114,10 +110,7 @@ export class ReportNotifications implements OnModuleInit {
       .getRepository(ReportNotification)
       .find({ where: { revisionId: In(ids) } });
     if (notifications.length === 0) return [];
-    const messages = await this.dataSource.getRepository(OutboxMessage).find({
-      where: { id: In(notifications.map((n) => n.outboxMessageId)) },
-      select: { id: true, state: true, sentAt: true },
-    });
+    const messages = await this.outbox.deliveryOf(notifications.map((n) => n.outboxMessageId));
     const byId = new Map(messages.map((m) => [m.id, m]));
     const delivered: string[] = [];
     for (const revisionId of new Set(notifications.map((n) => n.revisionId))) {
@@ -139,7 +132,7 @@ export class ReportNotifications implements OnModuleInit {
       const revision = await manager.findOneBy(ReportRevision, { id: revisionId });
       if (revision === null || revision.state !== 'signed') return false;
       await manager.update(ReportRevision, { id: revisionId }, { state: 'sent', sentAt });
-      const report = await manager.findOneByOrFail(Report, { id: revision.reportId });
+      const report = await this.reports.byId(revision.reportId, manager);
       const latest = await manager.findOne(ReportRevision, {
         where: { reportId: report.id },
         order: { revision: 'DESC' },

@@ -12,7 +12,7 @@ import { RevisionListQueryDto } from './dto/revision-list-query.dto';
 import { ReportFiles } from './report-files';
 import { ReportNotifications } from './report-notifications';
 import { ReportRevision } from './report-revision.entity';
-import { revisionFileName, toRevisionDtos } from './revision-view';
+import { revisionFileName, RevisionViews } from './revision-view';
 import type { PdfFile } from './signoff.service';
 import { SignoffError } from './signoff.errors';
 
@@ -29,6 +29,7 @@ export class ReportRevisionsService {
     private readonly audit: AuditService,
     private readonly files: ReportFiles,
     private readonly notifications: ReportNotifications,
+    private readonly views: RevisionViews,
   ) {}
 
   async list(caller: Caller, query: RevisionListQueryDto): Promise<Page<ReportRevisionDto>> {
@@ -47,7 +48,7 @@ export class ReportRevisionsService {
       take: window.take,
     });
     return {
-      items: await toRevisionDtos(this.dataSource.manager, rows),
+      items: await this.views.of(this.dataSource.manager, rows),
       total,
       page: window.page,
       pageSize: window.pageSize,
@@ -56,7 +57,7 @@ export class ReportRevisionsService {
 
   async get(caller: Caller, revisionId: string): Promise<ReportRevisionDto> {
     const row = await this.inScope(caller, 'read', { id: revisionId }, revisionId);
-    const [view] = await toRevisionDtos(this.dataSource.manager, [row]);
+    const [view] = await this.views.of(this.dataSource.manager, [row]);
     return view;
   }
 
@@ -85,7 +86,7 @@ export class ReportRevisionsService {
 
   private async serve(caller: Caller, row: ReportRevision): Promise<PdfFile> {
     const bytes = await this.files.read(row.pdfSha256);
-    const [view] = await toRevisionDtos(this.dataSource.manager, [row]);
+    const [view] = await this.views.of(this.dataSource.manager, [row]);
     await this.writes.run(() =>
       this.audit.record({
         actor: caller.user,

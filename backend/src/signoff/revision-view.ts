@@ -1,48 +1,51 @@
-import { EntityManager, In } from 'typeorm';
+import { Injectable } from '@nestjs/common';
+import { EntityManager } from 'typeorm';
 import type { ReportRevisionDto } from '@gyre/shared';
-import { Participant } from '../participants/participant.entity';
-import { Visit } from '../visits/visit.entity';
+import { ParticipantsService } from '../participants/participants.service';
+import { VisitsService } from '../visits/visits.service';
 import { ReportRevision } from './report-revision.entity';
 
-/** Response views of revisions, with the participant code and visit they belong to. */
-export async function toRevisionDtos(
-  manager: EntityManager,
-  rows: ReportRevision[],
-): Promise<ReportRevisionDto[]> {
-  if (rows.length === 0) return [];
-  const participants = await manager.find(Participant, {
-    where: { id: In([...new Set(rows.map((r) => r.participantId))]) },
-    select: { id: true, code: true },
-  });
-  const visits = await manager.find(Visit, {
-    where: { id: In([...new Set(rows.map((r) => r.visitId))]) },
-    select: { id: true, label: true, visitDate: true },
-  });
-  const codes = new Map(participants.map((p) => [p.id, p.code]));
-  const visitById = new Map(visits.map((v) => [v.id, v]));
-  return rows.map((row) => {
-    const visit = visitById.get(row.visitId);
-    return {
-      id: row.id,
-      reportId: row.reportId,
-      visitId: row.visitId,
-      participantId: row.participantId,
-      siteId: row.siteId,
-      revision: row.revision,
-      state: row.state,
-      participantCode: codes.get(row.participantId) ?? '',
-      visitLabel: visit?.label ?? '',
-      visitDate: visit?.visitDate ?? '',
-      signedById: row.signedById,
-      signerName: row.signerName,
-      signedAt: row.signedAt,
-      meaning: row.meaning,
-      pdfSha256: row.pdfSha256,
-      pdfSizeBytes: row.pdfSizeBytes,
-      supersedesId: row.supersedesId,
-      sentAt: row.sentAt,
-    };
-  });
+@Injectable()
+export class RevisionViews {
+  constructor(
+    private readonly participants: ParticipantsService,
+    private readonly visits: VisitsService,
+  ) {}
+
+  /** Response views of revisions, with the participant code and visit they belong to. */
+  async of(manager: EntityManager, rows: ReportRevision[]): Promise<ReportRevisionDto[]> {
+    if (rows.length === 0) return [];
+    const participants = await this.participants.byIds(
+      [...new Set(rows.map((r) => r.participantId))],
+      manager,
+    );
+    const visits = await this.visits.byIds([...new Set(rows.map((r) => r.visitId))], manager);
+    const codes = new Map(participants.map((p) => [p.id, p.code]));
+    const visitById = new Map(visits.map((v) => [v.id, v]));
+    return rows.map((row) => {
+      const visit = visitById.get(row.visitId);
+      return {
+        id: row.id,
+        reportId: row.reportId,
+        visitId: row.visitId,
+        participantId: row.participantId,
+        siteId: row.siteId,
+        revision: row.revision,
+        state: row.state,
+        participantCode: codes.get(row.participantId) ?? '',
+        visitLabel: visit?.label ?? '',
+        visitDate: visit?.visitDate ?? '',
+        signedById: row.signedById,
+        signerName: row.signerName,
+        signedAt: row.signedAt,
+        meaning: row.meaning,
+        pdfSha256: row.pdfSha256,
+        pdfSizeBytes: row.pdfSizeBytes,
+        supersedesId: row.supersedesId,
+        sentAt: row.sentAt,
+      };
+    });
+  }
 }
 
 /** `gyre-report-A1-0001-V1-r2.pdf`: only characters every file system and header takes. */

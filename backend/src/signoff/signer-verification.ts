@@ -7,6 +7,7 @@ import { WriteTransactions } from '../common/database/write-transactions.service
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { isoAfter, nowIso } from '../common/time';
 import { User } from '../users/user.entity';
+import { UsersService } from '../users/users.service';
 import { SignoffError } from './signoff.errors';
 
 /**
@@ -20,12 +21,11 @@ export class SignerVerification {
     private readonly writes: WriteTransactions,
     private readonly hasher: PasswordHasher,
     private readonly audit: AuditService,
+    private readonly users: UsersService,
   ) {}
 
   async verify(caller: Caller, password: string, reportId: string): Promise<User> {
-    const user = await this.writes.run((manager) =>
-      manager.findOneBy(User, { id: caller.user.id }),
-    );
+    const user = await this.writes.run((manager) => this.users.findById(caller.user.id, manager));
     if (user === null || user.state !== 'active' || user.passwordHash === null) {
       throw wrongPassword();
     }
@@ -38,7 +38,7 @@ export class SignerVerification {
     }
     const lockedUntil = await this.writes.run(async (manager) => {
       await manager.increment(User, { id: user.id }, 'failedSignIns', 1);
-      const fresh = await manager.findOneByOrFail(User, { id: user.id });
+      const fresh = await this.users.byId(user.id, manager);
       await this.audit.record({
         actor: caller.user,
         action: 'sign-refused',

@@ -1,13 +1,22 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { AnalysisModule } from '../analysis/analysis.module';
 import { AuthModule } from '../auth/auth.module';
-import { User } from '../users/user.entity';
+import { FlagsModule } from '../flags/flags.module';
+import { ParticipantsModule } from '../participants/participants.module';
+import { RecordingsModule } from '../recordings/recordings.module';
+import { ReportsModule } from '../reports/reports.module';
+import { SitesModule } from '../sites/sites.module';
+import { StudiesModule } from '../studies/studies.module';
+import { UsersModule } from '../users/users.module';
+import { VisitsModule } from '../visits/visits.module';
 import { ReportFiles } from './report-files';
 import { ReportNotification } from './report-notification.entity';
 import { ReportNotifications } from './report-notifications';
 import { ReportRevision } from './report-revision.entity';
 import { ReportRendering } from './report-rendering';
 import { ReportRevisionsService } from './report-revisions.service';
+import { RevisionViews } from './revision-view';
 import { SignerVerification } from './signer-verification';
 import { SignoffController } from './signoff.controller';
 import { SignoffService } from './signoff.service';
@@ -15,7 +24,19 @@ import { VisitReportContent } from './visit-report-content';
 
 /** Report sign-off, signed revisions, their PDFs and the coordinator e-mail (issue 7). */
 @Module({
-  imports: [AuthModule, TypeOrmModule.forFeature([ReportRevision, ReportNotification, User])],
+  imports: [
+    AuthModule,
+    AnalysisModule,
+    RecordingsModule,
+    ReportsModule,
+    FlagsModule,
+    UsersModule,
+    StudiesModule,
+    SitesModule,
+    ParticipantsModule,
+    VisitsModule,
+    TypeOrmModule.forFeature([ReportRevision, ReportNotification]),
+  ],
   controllers: [SignoffController],
   providers: [
     SignoffService,
@@ -25,6 +46,7 @@ import { VisitReportContent } from './visit-report-content';
     ReportRendering,
     SignerVerification,
     VisitReportContent,
+    RevisionViews,
   ],
   exports: [SignoffService],
 })

@@ -5,20 +5,19 @@ import { DataSource, EntityManager } from 'typeorm';
 import { SIGNATURE_MEANING, subject } from '@gyre/shared';
 import type { Action, ReportRevisionDto, ReportSignOffDto } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
-import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
 import { VisitReportModel } from '../report-document/visit-report-model';
 import { Report } from '../reports/report.entity';
-import { toReportDto } from '../reports/reports.service';
+import { ReportsService, toReportDto } from '../reports/reports.service';
 import { SignReportDto } from './dto/sign-report.dto';
 import { ReportFiles } from './report-files';
 import { ReportRendering } from './report-rendering';
 import { ReportNotifications } from './report-notifications';
 import { ReportRevision } from './report-revision.entity';
-import { revisionFileName, toRevisionDtos } from './revision-view';
+import { revisionFileName, RevisionViews } from './revision-view';
 import { SignerVerification } from './signer-verification';
 import { SignoffError } from './signoff.errors';
 import { ReportContent, VisitReportContent } from './visit-report-content';
@@ -50,6 +49,8 @@ export class SignoffService {
     private readonly signer: SignerVerification,
     private readonly notifications: ReportNotifications,
     private readonly renderer: ReportRendering,
+    private readonly reports: ReportsService,
+    private readonly views: RevisionViews,
   ) {}
 
   async status(caller: Caller, visitId: string): Promise<ReportSignOffDto> {
@@ -74,7 +75,7 @@ export class SignoffService {
       pendingRevision: content.hasResults && changed ? (latest?.revision ?? 0) + 1 : null,
       canSign: cannotSignReason === null,
       cannotSignReason,
-      revisions: await toRevisionDtos(this.dataSource.manager, revisions),
+      revisions: await this.views.of(this.dataSource.manager, revisions),
     };
   }
 
@@ -158,7 +159,7 @@ export class SignoffService {
         );
       }
       assertSignable(now, latestNow, input.fingerprint);
-      const before = await manager.findOneByOrFail(Report, { id: report.id });
+      const before = await this.reports.byId(report.id, manager);
       const row: ReportRevision = Object.assign(new ReportRevision(), {
         id: randomUUID(),
         reportId: report.id,
@@ -181,7 +182,7 @@ export class SignoffService {
       });
       await manager.insert(ReportRevision, row);
       await manager.update(Report, { id: report.id }, { state: 'signed', updatedAt: signedAt });
-      const [view] = await toRevisionDtos(manager, [row]);
+      const [view] = await this.views.of(manager, [row]);
       await this.audit.record({
         actor: caller.user,
         action: 'sign',
@@ -216,9 +217,7 @@ export class SignoffService {
   }
 
   private async reportInScope(caller: Caller, visitId: string, action: Action): Promise<Report> {
-    const report = await this.dataSource.getRepository(Report).findOne({
-      where: scopedWhere<Report>(caller.ability, action, 'Report', { visitId }),
-    });
+    const report = await this.reports.inScopeForVisit(caller, action, visitId);
     if (report === null) {
       throw new GyreException(
         ErrorKind.NotFound,

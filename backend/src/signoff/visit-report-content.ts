@@ -1,25 +1,34 @@
 import { createHash } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
-import { EntityManager, In } from 'typeorm';
-import type { FlagSuggestion, QualityDto, RecordingResultsDto } from '@gyre/shared';
-import { AnalysisRun } from '../analysis/analysis-run.entity';
-import { toResultsDto } from '../analysis/analysis-runs.service';
-import { AnalysisSettings } from '../analysis/analysis-settings.entity';
-import { Flag } from '../flags/flag.entity';
-import { Participant } from '../participants/participant.entity';
-import { Report } from '../reports/report.entity';
+import { EntityManager } from 'typeorm';
+import type { QualityDto, RecordingResultsDto } from '@gyre/shared';
+import type { AnalysisSettings as AnalysisSettingsValues } from '../signal/pipeline/analysis-settings';
+import type { AnalysisRun } from '../analysis/analysis-run.entity';
+import { AnalysisRunsService, toResultsDto } from '../analysis/analysis-runs.service';
+import { parseStoredSettings } from '../analysis/settings-values';
+import type { Recording } from '../recordings/recording.entity';
+import { RecordingsService } from '../recordings/recordings.service';
+import type { Flag } from '../flags/flag.entity';
+import { FlagsService } from '../flags/flags.service';
+import type { Participant } from '../participants/participant.entity';
+import { ParticipantsService } from '../participants/participants.service';
+import type { Report } from '../reports/report.entity';
 import {
   FlagEntry,
   ProvenanceEntry,
+  RecordingSource,
   QualitySection,
   RestSection,
   TaskSection,
   VisitReportModel,
 } from '../report-document/visit-report-model';
-import { Site } from '../sites/site.entity';
-import { Study } from '../studies/study.entity';
-import { User } from '../users/user.entity';
-import { Visit } from '../visits/visit.entity';
+import type { Site } from '../sites/site.entity';
+import { SitesService } from '../sites/sites.service';
+import type { Study } from '../studies/study.entity';
+import { StudiesService } from '../studies/studies.service';
+import { UsersService } from '../users/users.service';
+import type { Visit } from '../visits/visit.entity';
+import { VisitsService } from '../visits/visits.service';
 
 /** What a report says, before it gets a revision number, a date and a signature. */
 export type ReportBody = Omit<
@@ -29,7 +38,11 @@ export type ReportBody = Omit<
 
 export interface ReportContent {
   body: ReportBody;
-  /** SHA-256 over the body: equal bodies, equal fingerprints; any printed change alters it. */
+  /**
+   * SHA-256 over what the report states (numbers, quality, flags), not over which run ids
+   * carry them: a re-run that reproduces the same numbers leaves the fingerprint, and so the
+   * signed revision, as it was.
+   */
   fingerprint: string;
   /** Whether any recording of the visit has a result (without one there is nothing to sign). */
   hasResults: boolean;
@@ -47,35 +60,40 @@ export interface ReportContent {
  */
 @Injectable()
 export class VisitReportContent {
-  async build(manager: EntityManager, report: Report): Promise<ReportContent> {
-    const visit = await manager.findOneByOrFail(Visit, { id: report.visitId });
-    const participant = await manager.findOneByOrFail(Participant, { id: report.participantId });
-    const site = await manager.findOneByOrFail(Site, { id: report.siteId });
-    const study = await manager.findOneByOrFail(Study, { id: report.studyId });
+  constructor(
+    private readonly runs: AnalysisRunsService,
+    private readonly recordings: RecordingsService,
+    private readonly visits: VisitsService,
+    private readonly participants: ParticipantsService,
+    private readonly sites: SitesService,
+    private readonly studies: StudiesService,
+    private readonly flags: FlagsService,
+    private readonly users: UsersService,
+  ) {}
 
-    // Heads first: a visit re-run many times must not load every run's curves.
-    const heads = await manager.find(AnalysisRun, {
-      where: { visitId: report.visitId },
-      select: { id: true, kind: true, createdAt: true },
-      order: { createdAt: 'DESC', id: 'DESC' },
-    });
-    const latestOf = async (kind: AnalysisRun['kind']): Promise<AnalysisRun | null> => {
-      const head = heads.find((run) => run.kind === kind);
-      return head === undefined ? null : manager.findOneByOrFail(AnalysisRun, { id: head.id });
-    };
-    const latestRest = await latestOf('resting');
-    const latestTask = await latestOf('task');
-    const used = [latestRest, latestTask]
-      .filter((run): run is AnalysisRun => run !== null)
-      .map((run) => ({ run, results: toResultsDto(run) }));
+  async build(manager: EntityManager, report: Report): Promise<ReportContent> {
+    const visit = await this.visits.byId(report.visitId, manager);
+    const participant = await this.participants.byId(report.participantId, manager);
+    const site = await this.sites.byId(report.siteId, manager);
+    const study = await this.studies.byId(report.studyId, manager);
+
+    // The visit's current recordings only: a superseded recording's numbers are not the visit's.
+    const current = await this.recordings.currentOfVisits([report.visitId]);
+    const runs = await this.runs.currentRunsOfVisits([report.visitId]);
+    const used = runs
+      .map((run) => {
+        const recording = current.find((r) => r.id === run.recordingId) as Recording;
+        return { run, recording, results: toResultsDto(run, recording, []) };
+      })
+      .sort((a, b) => (a.run.kind < b.run.kind ? -1 : 1));
     const rest = used.find((u) => u.run.kind === 'resting');
     const task = used.find((u) => u.run.kind === 'task');
 
-    const flags = await manager.find(Flag, {
-      where: { visitId: report.visitId },
-      order: { raisedAt: 'DESC', id: 'DESC' },
-    });
-    const names = await this.userNames(manager, flags);
+    const flags = await this.flags.forVisits([report.visitId], manager);
+    const names = await this.users.namesOf(
+      flags.flatMap((f) => [f.raisedById, f.clearedById]).filter((id) => id !== null),
+      manager,
+    );
 
     const body: ReportBody = {
       reportId: report.id,
@@ -83,11 +101,14 @@ export class VisitReportContent {
       site: { name: site.name },
       participantCode: participant.code,
       visit: { label: visit.label, date: visit.visitDate },
-      rest: rest === undefined ? null : restSection(rest.results),
-      task: task === undefined ? null : taskSection(task.results),
+      rest: rest === undefined ? null : restSection(rest.results, rest.recording),
+      task:
+        task === undefined
+          ? null
+          : taskSection(task.results, task.recording, parseStoredSettings(task.run.settingsJson)),
       quality: used.map((u) => qualitySection(u.run.kind, u.results.quality)),
       flags: flags.map((flag) => flagEntry(flag, names)),
-      flagSuggestion: await this.suggestion(manager, latestTask),
+      flagSuggestion: task === undefined ? null : suggestion(task.run),
       provenance: used.map((u) => provenance(u.run)),
     };
     return {
@@ -100,43 +121,49 @@ export class VisitReportContent {
       study,
     };
   }
-
-  private async userNames(manager: EntityManager, flags: Flag[]): Promise<Map<string, string>> {
-    const ids = [
-      ...new Set(flags.flatMap((f) => [f.raisedById, f.clearedById]).filter((id) => id !== null)),
-    ];
-    if (ids.length === 0) return new Map();
-    const users = await manager.find(User, {
-      where: { id: In(ids) },
-      select: { id: true, name: true },
-    });
-    return new Map(users.map((u) => [u.id, u.name]));
-  }
-
-  /** The suggestion the flag form shows (FlagsService), from the latest task run. */
-  private async suggestion(
-    manager: EntityManager,
-    run: AnalysisRun | null,
-  ): Promise<VisitReportModel['flagSuggestion']> {
-    if (run === null) return null;
-    const settings = await manager.findOneByOrFail(AnalysisSettings, { id: run.settingsId });
-    const suggestion: Pick<FlagSuggestion, 'suggestsSlowing' | 'flagThresholdHz'> = {
-      suggestsSlowing: Boolean(run.suggestsSlowing),
-      flagThresholdHz: settings.flagThresholdHz,
-    };
-    return suggestion;
-  }
 }
 
-/** SHA-256 of the body's JSON (built in a fixed key order, so equal content hashes equal). */
+/** SHA-256 of the body's JSON without its provenance (built in a fixed key order). */
 export function fingerprintOf(body: ReportBody): string {
-  return createHash('sha256').update(JSON.stringify(body)).digest('hex');
+  const { provenance: _provenance, ...stated } = body;
+  return createHash('sha256').update(JSON.stringify(stated)).digest('hex');
 }
 
-function restSection(results: RecordingResultsDto): RestSection | null {
-  const rest = results.rest;
-  if (rest === null) return null;
+/** The suggestion the flag form shows (FlagsService), from the current task numbers. */
+function suggestion(run: AnalysisRun): VisitReportModel['flagSuggestion'] {
   return {
+    suggestsSlowing: run.suggestsSlowing === null ? null : Boolean(run.suggestsSlowing),
+    flagThresholdHz: parseStoredSettings(run.settingsJson).flagThresholdHz,
+  };
+}
+
+function sourceOf(recording: Recording): RecordingSource {
+  return {
+    recordingId: recording.id,
+    uploadedAtIso: recording.createdAt,
+    replacesId: recording.replacesId,
+    replacementReason: recording.replacementReason,
+  };
+}
+
+function restSection(results: RecordingResultsDto, recording: Recording): RestSection {
+  const roiUsage = results.run.roiUsage;
+  const rest = results.rest;
+  if (rest === null || roiUsage.status === 'none') {
+    return {
+      pafHz: null,
+      cogHz: null,
+      prominenceDb: null,
+      noPeakReason: rest?.noPeakReason ?? null,
+      alphaWindowHz: rest?.alphaWindowHz ?? [7, 13],
+      spectrum: { frequencyHz: [], powerUv2PerHz: [] },
+      roiUsage,
+      source: sourceOf(recording),
+    };
+  }
+  return {
+    roiUsage,
+    source: sourceOf(recording),
     pafHz: rest.pafHz,
     cogHz: rest.cogHz,
     prominenceDb: rest.prominenceDb,
@@ -146,11 +173,32 @@ function restSection(results: RecordingResultsDto): RestSection | null {
   };
 }
 
-function taskSection(results: RecordingResultsDto): TaskSection | null {
+function taskSection(
+  results: RecordingResultsDto,
+  recording: Recording,
+  settings: AnalysisSettingsValues,
+): TaskSection {
   const task = results.task;
-  if (task === null) return null;
   const run = results.run;
+  if (task === null || run.roiUsage.status === 'none') {
+    return {
+      deltaFHz: null,
+      ciHz: null,
+      pValue: null,
+      trialsKept: null,
+      trialsTotal: null,
+      droppedByReason: task?.epochs.dropped ?? {},
+      bandHz: run.bandHz,
+      baselineWindowS: task?.baselineWindowS ?? settings.baselineWindowS,
+      postWindowS: task?.postWindowS ?? settings.postWindowS,
+      onsetCurve: { timeS: [], meanHz: [], ciLowHz: [], ciHighHz: [] },
+      roiUsage: run.roiUsage,
+      source: sourceOf(recording),
+    };
+  }
   return {
+    roiUsage: run.roiUsage,
+    source: sourceOf(recording),
     deltaFHz: run.roiDeltaFHz,
     ciHz: run.roiCiHz,
     pValue: run.roiPValue,

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
-import { FindOptionsWhere, Repository } from 'typeorm';
+import { EntityManager, FindOptionsWhere, Repository } from 'typeorm';
 import { subject, type Page, type SiteView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
@@ -154,6 +154,25 @@ export class SitesService {
     });
     if (site === null) throw notFound(id, 'id');
     return site;
+  }
+
+  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
+  byId(id: string, manager?: EntityManager): Promise<Site> {
+    return this.repo(manager).findOneByOrFail({ id });
+  }
+
+  /** For other modules, unscoped: the site, or null when there is none. */
+  findById(id: string, manager?: EntityManager): Promise<Site | null> {
+    return this.repo(manager).findOneBy({ id });
+  }
+
+  /** For other modules, unscoped: whether site `id` exists and belongs to study `studyId`. */
+  async existsInStudy(id: string, studyId: string, manager?: EntityManager): Promise<boolean> {
+    return (await this.repo(manager).countBy({ id, studyId })) > 0;
+  }
+
+  private repo(manager: EntityManager | undefined): Repository<Site> {
+    return manager?.getRepository(Site) ?? this.sites;
   }
 }
 

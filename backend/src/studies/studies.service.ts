@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
-import { FindOptionsWhere, Repository } from 'typeorm';
+import { EntityManager, FindOptionsWhere, Repository } from 'typeorm';
 import type { Page, StudyView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
@@ -117,5 +117,24 @@ export class StudiesService {
       throw new GyreException(ErrorKind.NotFound, StudiesError.NotFound, `No study ${id}`, { id });
     }
     return study;
+  }
+
+  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
+  byId(id: string, manager?: EntityManager): Promise<Study> {
+    return this.repo(manager).findOneByOrFail({ id });
+  }
+
+  /** For other modules, unscoped: the study, or null when there is none. */
+  findById(id: string, manager?: EntityManager): Promise<Study | null> {
+    return this.repo(manager).findOneBy({ id });
+  }
+
+  /** For other modules, unscoped: whether study `id` exists. */
+  async exists(id: string, manager?: EntityManager): Promise<boolean> {
+    return (await this.repo(manager).countBy({ id })) > 0;
+  }
+
+  private repo(manager: EntityManager | undefined): Repository<Study> {
+    return manager?.getRepository(Study) ?? this.studies;
   }
 }

@@ -1,6 +1,6 @@
 /**
  * Theil–Sen slope: the median of the slopes of every pair of points with different x,
- * robust to one bad visit (METHOD.md §5; as `scipy.stats.theilslopes` computes it).
+ * robust to one bad visit (docs/method.md §5; as `scipy.stats.theilslopes` computes it).
  * Returns null with fewer than two distinct x values.
  */
 export function theilSenSlope(points: ReadonlyArray<{ x: number; y: number }>): number | null {

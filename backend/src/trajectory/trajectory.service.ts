@@ -1,32 +1,33 @@
 import { Injectable } from '@nestjs/common';
-import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, In } from 'typeorm';
 import type { TrajectoryDto, TrajectoryVisitDto } from '@gyre/shared';
-import { AnalysisRun } from '../analysis/analysis-run.entity';
-import { scopedWhere } from '../auth/access-scope';
+import { AnalysisRunsService } from '../analysis/analysis-runs.service';
 import type { Caller } from '../auth/decorators';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { Flag } from '../flags/flag.entity';
-import { Participant } from '../participants/participant.entity';
-import { Visit } from '../visits/visit.entity';
+import { FlagsService } from '../flags/flags.service';
+import { ParticipantsService } from '../participants/participants.service';
+import { VisitsService } from '../visits/visits.service';
 import { theilSenSlope, yearsBetween } from './theil-sen';
 import { TrajectoryError } from './trajectory.errors';
 
 type Metric = 'pafHz' | 'cogHz' | 'deltaFHz';
 
 /**
- * A participant's course over visits (METHOD.md §5): PAF and CoG of the latest resting
- * run and Δf of the latest task run per visit, change from the first visit with a value,
- * Theil–Sen slope in Hz per year over visit dates, and the visits an analyst flagged.
+ * A participant's course over visits (docs/method.md §5): PAF and CoG of the current resting
+ * numbers and Δf of the current task numbers per visit (never a superseded recording's),
+ * change from the first visit with a value, Theil–Sen slope in Hz per year over visit dates,
+ * and the visits an analyst flagged.
  */
 @Injectable()
 export class TrajectoryService {
-  constructor(@InjectDataSource() private readonly dataSource: DataSource) {}
+  constructor(
+    private readonly runs: AnalysisRunsService,
+    private readonly participants: ParticipantsService,
+    private readonly visits: VisitsService,
+    private readonly flags: FlagsService,
+  ) {}
 
   async forParticipant(caller: Caller, participantId: string): Promise<TrajectoryDto> {
-    const participant = await this.dataSource.getRepository(Participant).findOne({
-      where: scopedWhere<Participant>(caller.ability, 'read', 'Result', { id: participantId }),
-    });
+    const participant = await this.participants.inScopeOf(caller, 'read', 'Result', participantId);
     if (participant === null) {
       throw new GyreException(
         ErrorKind.NotFound,
@@ -35,33 +36,11 @@ export class TrajectoryService {
         { participantId },
       );
     }
-    const visits = await this.dataSource
-      .getRepository(Visit)
-      .find({ where: { participantId }, order: { visitDate: 'ASC', label: 'ASC' } });
+    const visits = await this.visits.ofParticipant(participantId);
     const visitIds = visits.map((v) => v.id);
-    const runs =
-      visitIds.length === 0
-        ? []
-        : await this.dataSource.getRepository(AnalysisRun).find({
-            where: { visitId: In(visitIds) },
-            select: {
-              id: true,
-              visitId: true,
-              kind: true,
-              pafHz: true,
-              cogHz: true,
-              roiDeltaFHz: true,
-              createdAt: true,
-            },
-            order: { createdAt: 'DESC', id: 'DESC' },
-          });
-    const raised =
-      visitIds.length === 0
-        ? []
-        : await this.dataSource
-            .getRepository(Flag)
-            .find({ where: { visitId: In(visitIds), state: 'raised' }, select: { visitId: true } });
-    const flagged = new Set(raised.map((f) => f.visitId));
+    const runs = await this.runs.currentRunsOfVisits(visitIds);
+    const flags = await this.flags.forVisits(visitIds);
+    const flagged = new Set(flags.filter((f) => f.state === 'raised').map((f) => f.visitId));
 
     const rows = visits.map((visit) => {
       const rest = runs.find((r) => r.visitId === visit.id && r.kind === 'resting');

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
-import { EntityManager, FindOptionsWhere, Repository } from 'typeorm';
+import { EntityManager, FindOptionsWhere, In, Repository } from 'typeorm';
 import { membershipOf, type Page, type Role, type UserView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
@@ -19,8 +19,8 @@ import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import { clientLink, invitationMail } from '../mail/mail-templates';
 import { OutboxService } from '../mail/outbox.service';
-import { Site } from '../sites/site.entity';
-import { Study } from '../studies/study.entity';
+import { SitesService } from '../sites/sites.service';
+import { StudiesService } from '../studies/studies.service';
 import { InviteUserDto, UpdateUserDto, UserQueryDto } from './dto/user.dto';
 import { User } from './user.entity';
 import { toUserView } from './user-view';
@@ -36,6 +36,8 @@ export class UsersService {
     private readonly outbox: OutboxService,
     private readonly oneTimeTokens: OneTimeTokens,
     private readonly refreshTokens: RefreshTokens,
+    private readonly studies: StudiesService,
+    private readonly sites: SitesService,
   ) {}
 
   async list(caller: Caller, query: UserQueryDto): Promise<Page<UserView>> {
@@ -211,9 +213,8 @@ export class UsersService {
 
   private async sendInvitation(manager: EntityManager, user: User): Promise<void> {
     const { secret, expiresAt } = await this.oneTimeTokens.issue(manager, user.id, 'invitation');
-    const study =
-      user.studyId === null ? null : await manager.findOneBy(Study, { id: user.studyId });
-    const site = user.siteId === null ? null : await manager.findOneBy(Site, { id: user.siteId });
+    const study = user.studyId === null ? null : await this.studies.findById(user.studyId, manager);
+    const site = user.siteId === null ? null : await this.sites.findById(user.siteId, manager);
     const where = [study?.name ?? 'the whole installation', site?.name].filter(Boolean).join(', ');
     await this.outbox.enqueue(
       manager,
@@ -250,15 +251,48 @@ export class UsersService {
     };
     if (kind === 'installation') return { studyId: null, siteId: null };
     if (studyId === null) return refuse('studyId', `a ${role} must belong to a study`, studyId);
-    if ((await manager.countBy(Study, { id: studyId })) === 0) {
+    if (!(await this.studies.exists(studyId, manager))) {
       return refuse('studyId', `no study ${studyId}`, studyId);
     }
     if (kind === 'study') return { studyId, siteId: null };
     if (siteId === null) return refuse('siteId', `a ${role} must belong to a site`, siteId);
-    if ((await manager.countBy(Site, { id: siteId, studyId })) === 0) {
+    if (!(await this.sites.existsInStudy(siteId, studyId, manager))) {
       return refuse('siteId', `no site ${siteId} in study ${studyId}`, siteId);
     }
     return { studyId, siteId };
+  }
+
+  /** For other modules (unscoped): the user or null; `manager` reads inside their transaction. */
+  findById(id: string, manager?: EntityManager): Promise<User | null> {
+    return this.repo(manager).findOneBy({ id });
+  }
+
+  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
+  byId(id: string, manager?: EntityManager): Promise<User> {
+    return this.repo(manager).findOneByOrFail({ id });
+  }
+
+  /** For other modules, unscoped: display names by user id (unknown ids are left out). */
+  async namesOf(ids: string[], manager?: EntityManager): Promise<Map<string, string>> {
+    const unique = [...new Set(ids)];
+    if (unique.length === 0) return new Map();
+    const users = await this.repo(manager).find({
+      where: { id: In(unique) },
+      select: { id: true, name: true },
+    });
+    return new Map(users.map((u) => [u.id, u.name]));
+  }
+
+  /** For other modules, unscoped: the active coordinators of one site, by e-mail address. */
+  activeCoordinatorsOf(studyId: string, siteId: string, manager?: EntityManager): Promise<User[]> {
+    return this.repo(manager).find({
+      where: { role: 'coordinator', studyId, siteId, state: 'active' },
+      order: { email: 'ASC' },
+    });
+  }
+
+  private repo(manager: EntityManager | undefined): Repository<User> {
+    return manager?.getRepository(User) ?? this.users;
   }
 
   private async findInScope(

@@ -2,8 +2,16 @@ import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import dayjs from 'dayjs';
-import { Between, FindOptionsWhere, LessThanOrEqual, MoreThanOrEqual, Repository } from 'typeorm';
-import { subject, type Page, type VisitView } from '@gyre/shared';
+import {
+  Between,
+  EntityManager,
+  FindOptionsWhere,
+  In,
+  LessThanOrEqual,
+  MoreThanOrEqual,
+  Repository,
+} from 'typeorm';
+import { subject, type Action, type Page, type SubjectName, type VisitView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
@@ -130,6 +138,44 @@ export class VisitsService {
     });
     if (visit === null) throw notFound(id, 'id');
     return visit;
+  }
+
+  /**
+   * For other modules: the visit if the caller may `action` a `subjectName` of it (that
+   * subject's scope, applied to the visit row in the query), else null for their own 404.
+   */
+  inScopeOf(
+    caller: Caller,
+    action: Action,
+    subjectName: SubjectName,
+    id: string,
+  ): Promise<Visit | null> {
+    return this.visits.findOne({
+      where: scopedWhere<Visit>(caller.ability, action, subjectName, { id }),
+    });
+  }
+
+  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
+  byId(id: string, manager?: EntityManager): Promise<Visit> {
+    return this.repo(manager).findOneByOrFail({ id });
+  }
+
+  /** For other modules, unscoped: the visits among `ids` (missing ones are left out). */
+  async byIds(ids: string[], manager?: EntityManager): Promise<Visit[]> {
+    if (ids.length === 0) return [];
+    return this.repo(manager).find({ where: { id: In(ids) } });
+  }
+
+  /** For other modules, unscoped: a participant's visits by date, then label. */
+  ofParticipant(participantId: string): Promise<Visit[]> {
+    return this.visits.find({
+      where: { participantId },
+      order: { visitDate: 'ASC', label: 'ASC' },
+    });
+  }
+
+  private repo(manager: EntityManager | undefined): Repository<Visit> {
+    return manager?.getRepository(Visit) ?? this.visits;
   }
 }
 

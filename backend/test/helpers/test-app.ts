@@ -8,6 +8,7 @@ import { DataSource } from 'typeorm';
 import { createApp } from '../../src/app.factory';
 import { AppConfig } from '../../src/config/app.config';
 import { APP_CONFIG } from '../../src/config/config.module';
+import { ComputationsService } from '../../src/processing/computations.service';
 import { OutboxService } from '../../src/mail/outbox.service';
 import { Seed, SEED_PASSWORD, seedDatabase, UserKey } from './seed';
 
@@ -29,6 +30,8 @@ export interface TestApp {
   authHeader(user: UserKey): Promise<{ Authorization: string }>;
   /** Waits until the outbox has handed every due message to SMTP. */
   mailIdle(): Promise<void>;
+  /** Waits until no computation is queued or running. */
+  computationsIdle(): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -83,6 +86,7 @@ export async function startTestApp(options: StartTestAppOptions = {}): Promise<T
     tokenFor,
     authHeader: async (user) => ({ Authorization: `Bearer ${await tokenFor(user)}` }),
     mailIdle: () => app.get(OutboxService).idle(),
+    computationsIdle: () => app.get(ComputationsService).idle(),
     close: async () => {
       await app.close();
       rmSync(dataDir, { recursive: true, force: true });

@@ -15,8 +15,8 @@ import {
 import { ANALYSIS_METHODS } from '@gyre/shared';
 import type { AnalysisMethod, AnalysisSettingsChange } from '@gyre/shared';
 
-const finite = { allowNaN: false, allowInfinity: false };
-const pair = (): PropertyDecorator => {
+export const finite = { allowNaN: false, allowInfinity: false };
+export const pair = (): PropertyDecorator => {
   const decorators = [
     IsArray(),
     ArrayMinSize(2),

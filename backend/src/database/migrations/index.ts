@@ -4,6 +4,7 @@ import { AuditTrail1764633700100 } from './1764633700100-audit-trail';
 import { MailOutbox1764633700200 } from './1764633700200-mail-outbox';
 import { RecordingsAndAnalysis1764633800000 } from './1764633800000-recordings-and-analysis';
 import { ReportSignoff1764633900000 } from './1764633900000-report-signoff';
+import { RecordingPipeline1764700000000 } from './1764700000000-recording-pipeline';
 
 /** Every migration in order; add new ones at the end (see DEVELOPERS.md). */
 export const MIGRATIONS = [
@@ -13,4 +14,5 @@ export const MIGRATIONS = [
   MailOutbox1764633700200,
   RecordingsAndAnalysis1764633800000,
   ReportSignoff1764633900000,
+  RecordingPipeline1764700000000,
 ];

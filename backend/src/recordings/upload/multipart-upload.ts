@@ -101,12 +101,17 @@ export async function receiveUpload(
       fileSize: options.maxRecordingBytes,
       files: 2,
       fields: options.allowedFields.length,
-      fieldSize: 1024,
+      // Room for a replacement reason (at most 2000 characters, up to 4 bytes each in UTF-8).
+      fieldSize: 8192,
       parts: options.allowedFields.length + 2,
     },
   });
 
-  parser.on('field', (name, value) => {
+  parser.on('field', (name, value, info: { valueTruncated: boolean }) => {
+    if (info.valueTruncated) {
+      fail(new UploadFormError(`form field '${name}'`, 'more than 8192 bytes', 'a shorter value'));
+      return;
+    }
     if (!options.allowedFields.includes(name)) {
       fail(
         new UploadFormError(

@@ -1,0 +1,198 @@
+import { randomUUID } from 'node:crypto';
+import { Injectable } from '@nestjs/common';
+import { EventEmitter2 } from '@nestjs/event-emitter';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource } from 'typeorm';
+import { subject } from '@gyre/shared';
+import type { VisitAnalysisOverrideDto, VisitAnalysisOverrideValues } from '@gyre/shared';
+import { AuditService } from '../audit/audit.service';
+import type { Caller } from '../auth/decorators';
+import { WriteTransactions } from '../common/database/write-transactions.service';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { nowIso } from '../common/time';
+import { VisitsService } from '../visits/visits.service';
+import { AnalysisError } from './analysis.errors';
+import { settingsProblems } from './analysis-settings.rules';
+import { AnalysisSettingsService, valuesOf } from './analysis-settings.service';
+import { AnalysisSettings } from './analysis-settings.entity';
+import { VisitAnalysisOverrideChangeDto } from './dto/visit-analysis-override-change.dto';
+import { AnalysisEvents, VisitOverrideChanged } from './analysis.events';
+import { sameValue } from './settings-differences';
+import { withOverride } from './settings-values';
+import { VisitAnalysisOverride } from './visit-analysis-override.entity';
+import type { AnalysisSettings as SettingsValues } from '../signal/pipeline/analysis-settings';
+
+/** The settings one computation of a visit uses: the study's version and the visit's override. */
+export interface EffectiveSettings {
+  version: AnalysisSettings;
+  settings: SettingsValues;
+  overrideRevision: number | null;
+}
+
+/**
+ * A visit's own analysis choices over the study's settings, for the visit that needs them (a
+ * saturated channel, another onset label). Each change is a new audited revision; a change
+ * announces itself so the visit's recordings are computed again.
+ */
+@Injectable()
+export class VisitAnalysisOverridesService {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly writes: WriteTransactions,
+    private readonly audit: AuditService,
+    private readonly settings: AnalysisSettingsService,
+    private readonly visits: VisitsService,
+    private readonly events: EventEmitter2,
+  ) {}
+
+  async get(caller: Caller, visitId: string): Promise<VisitAnalysisOverrideDto> {
+    const visit = await this.visits.findInScope(caller, 'read', visitId);
+    this.assertMay(caller, 'read', visit.studyId, visitId);
+    return toOverrideDto(visitId, await this.latest(visitId));
+  }
+
+  async change(
+    caller: Caller,
+    visitId: string,
+    change: VisitAnalysisOverrideChangeDto,
+  ): Promise<VisitAnalysisOverrideDto> {
+    const visit = await this.visits.findInScope(caller, 'read', visitId);
+    this.assertMay(caller, 'update', visit.studyId, visitId);
+    const { reason, ...values } = change;
+    const study = valuesOf(await this.settings.currentFor(visit.studyId));
+    const problems = settingsProblems(withOverride(study, values));
+    if (problems.length > 0) {
+      throw new GyreException(
+        ErrorKind.BadInput,
+        AnalysisError.OverrideInvalid,
+        problems.join('; '),
+        {
+          problems,
+        },
+      );
+    }
+    const row = await this.writes.run(async (tx) => {
+      const previous = await this.latest(visitId, tx.getRepository(VisitAnalysisOverride));
+      const before = previous === null ? NO_OVERRIDE : valuesOfOverride(previous);
+      if (sameValue(before, normalised(values))) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          AnalysisError.OverrideUnchanged,
+          'Nothing changed: the visit already uses these choices.',
+          { visitId, revision: previous?.revision ?? 0 },
+        );
+      }
+      const next = Object.assign(new VisitAnalysisOverride(), {
+        id: randomUUID(),
+        visitId,
+        studyId: visit.studyId,
+        siteId: visit.siteId,
+        revision: (previous?.revision ?? 0) + 1,
+        valuesJson: JSON.stringify(normalised(values)),
+        reason: reason.trim(),
+        createdById: caller.user.id,
+        createdAt: nowIso(),
+      });
+      await tx.getRepository(VisitAnalysisOverride).insert(next);
+      await this.audit.record({
+        actor: caller.user,
+        action: 'update',
+        objectType: 'VisitAnalysisOverride',
+        objectId: visitId,
+        studyId: visit.studyId,
+        siteId: visit.siteId,
+        before: { revision: previous?.revision ?? 0, ...before },
+        after: { revision: next.revision, ...normalised(values) },
+        reason: next.reason,
+        clientIp: caller.clientIp,
+      });
+      return next;
+    });
+    const event: VisitOverrideChanged = {
+      visitId,
+      revision: row.revision,
+      actor: { id: caller.user.id, email: caller.user.email },
+      reason: row.reason,
+    };
+    await this.events.emitAsync(AnalysisEvents.VisitOverrideChanged, event);
+    return toOverrideDto(visitId, row);
+  }
+
+  /** The settings a computation of this visit uses now. */
+  async effectiveFor(studyId: string, visitId: string): Promise<EffectiveSettings> {
+    const version = await this.settings.currentFor(studyId);
+    const override = await this.latest(visitId);
+    return {
+      version,
+      settings: withOverride(
+        valuesOf(version),
+        override === null ? null : valuesOfOverride(override),
+      ),
+      overrideRevision: override?.revision ?? null,
+    };
+  }
+
+  private latest(
+    visitId: string,
+    repository = this.dataSource.getRepository(VisitAnalysisOverride),
+  ): Promise<VisitAnalysisOverride | null> {
+    return repository.findOne({ where: { visitId }, order: { revision: 'DESC' } });
+  }
+
+  private assertMay(
+    caller: Caller,
+    action: 'read' | 'update',
+    studyId: string,
+    visitId: string,
+  ): void {
+    if (!caller.ability.can(action, subject('AnalysisSettings', { studyId }))) {
+      throw new GyreException(
+        ErrorKind.NotFound,
+        AnalysisError.StudyNotFound,
+        `No visit ${visitId}.`,
+        {
+          visitId,
+        },
+      );
+    }
+  }
+}
+
+const NO_OVERRIDE: VisitAnalysisOverrideValues = { roi: null, bandHz: null, onsetLabel: null };
+
+function normalised(values: VisitAnalysisOverrideValues): VisitAnalysisOverrideValues {
+  const label = values.onsetLabel?.trim() ?? null;
+  return {
+    roi: values.roi === null ? null : [...values.roi],
+    bandHz: values.bandHz === null ? null : [values.bandHz[0], values.bandHz[1]],
+    onsetLabel: label === '' ? null : label,
+  };
+}
+
+function valuesOfOverride(row: VisitAnalysisOverride): VisitAnalysisOverrideValues {
+  return normalised(JSON.parse(row.valuesJson) as VisitAnalysisOverrideValues);
+}
+
+function toOverrideDto(
+  visitId: string,
+  row: VisitAnalysisOverride | null,
+): VisitAnalysisOverrideDto {
+  if (row === null) {
+    return {
+      visitId,
+      ...NO_OVERRIDE,
+      revision: 0,
+      reason: null,
+      updatedById: null,
+      updatedAt: null,
+    };
+  }
+  return {
+    visitId,
+    ...valuesOfOverride(row),
+    revision: row.revision,
+    reason: row.reason,
+    updatedById: row.createdById,
+    updatedAt: row.createdAt,
+  };
+}

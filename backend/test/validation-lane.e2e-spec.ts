@@ -1,0 +1,88 @@
+/**
+ * Validation has a lane of its own: an upload is checked and answered while every analysis
+ * thread is busy with long computations. Recordings are generated (recordings-fixtures.ts).
+ */
+import type { RecordingDto } from '@gyre/shared';
+import { startTestApp, TestApp } from './helpers/test-app';
+import { syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
+
+/** 32 scalp electrodes of the 10-10 system (ACNS Guideline 2, 2016). */
+const LABELS = [
+  'Fp1',
+  'Fp2',
+  'AF3',
+  'AF4',
+  'F7',
+  'F3',
+  'Fz',
+  'F4',
+  'F8',
+  'FC5',
+  'FC1',
+  'FC2',
+  'FC6',
+  'T7',
+  'C3',
+  'Cz',
+  'C4',
+  'T8',
+  'CP5',
+  'CP1',
+  'CP2',
+  'CP6',
+  'P7',
+  'P3',
+  'Pz',
+  'P4',
+  'P8',
+  'PO3',
+  'PO4',
+  'O1',
+  'Oz',
+  'O2',
+];
+
+describe('validation lane', () => {
+  let t: TestApp;
+
+  beforeAll(async () => {
+    t = await startTestApp();
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  it('answers an upload while two long analyses hold both analysis threads', async () => {
+    const long = (seed: number): Uint8Array =>
+      syntheticTaskEdf({ durationS: 600, sampleRateHz: 500, channels: LABELS, seed });
+    const first = await upload(t, 'technician', t.seed.visits.A1.id, {
+      kind: 'task',
+      bytes: long(51),
+    });
+    const second = await upload(t, 'technicianA2', t.seed.visits.A2.id, {
+      kind: 'task',
+      bytes: long(52),
+    });
+    expect([first.status, second.status]).toEqual([201, 201]);
+    const a = first.body as RecordingDto;
+    const b = second.body as RecordingDto;
+    await waitForState(t, 'technician', a.id, ['computing']);
+    await waitForState(t, 'technicianA2', b.id, ['computing']);
+
+    const started = Date.now();
+    const small = await upload(t, 'technicianB', t.seed.visits.B1.id, {
+      kind: 'task',
+      bytes: syntheticTaskEdf({ durationS: 30, seed: 53 }),
+    });
+    const answeredAfterMs = Date.now() - started;
+    expect(small.status).toBe(201);
+    // Both analyses are still running when the validated upload has been answered.
+    const [stillA, stillB] = await Promise.all([
+      waitForState(t, 'technician', a.id, ['computing', 'ready']),
+      waitForState(t, 'technicianA2', b.id, ['computing', 'ready']),
+    ]);
+    expect([stillA.state, stillB.state]).toEqual(['computing', 'computing']);
+    expect(answeredAfterMs).toBeLessThan(10_000);
+    await t.computationsIdle();
+  }, 240_000);
+});
