@@ -70,6 +70,11 @@ function leftOutWords(usage: RoiUsageDto): string {
  * For status `none` see `noRoiWords`.
  */
 export function roiUsageWords(usage: RoiUsageDto): string {
+  if (usage.status === 'complete' && usage.leftOut.length > 0) {
+    // The default set's names the montage lacks: listed, not a doubt about the number.
+    const absent = usage.leftOut.map((omission) => omission.label);
+    return `Region of interest: ${list(usage.used)} (those present; not in the file: ${list(absent)}).`;
+  }
   const count =
     usage.leftOut.length === 0
       ? `all ${usage.wanted.length} wanted`

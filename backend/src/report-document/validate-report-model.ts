@@ -105,8 +105,17 @@ function checkRoiUsage(field: string, usage: RoiUsageDto): void {
       `together the ${usage.wanted.length} wanted channels`,
     );
   }
+  // Names of the default set that the montage lacks ('missing') may leave a region complete:
+  // the default means "those present" (docs/method.md §1); any other reason makes it partial.
+  const onlyMissing = usage.leftOut.every((omission) => omission.reason === 'missing');
   const expected =
-    usage.used.length === 0 ? 'none' : usage.leftOut.length === 0 ? 'complete' : 'partial';
+    usage.used.length === 0
+      ? 'none'
+      : usage.leftOut.length === 0
+        ? 'complete'
+        : onlyMissing && usage.status === 'complete'
+          ? 'complete'
+          : 'partial';
   if (usage.status !== expected) {
     throw new ReportModelError(
       `${field}.status`,

@@ -134,7 +134,7 @@ async function main(): Promise<void> {
   let server: ChildProcess | null = null;
   if (!options.attach && !(await isServing(baseUrl))) {
     say(`starting Gyre on port ${port} for seeding`);
-    server = spawn(process.execPath, [join(REPO_ROOT, 'backend', 'dist', 'main.js')], {
+    server = spawn(process.execPath, [require.resolve('@gyre/backend')], {
       cwd: REPO_ROOT,
       env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), LOG_LEVEL: 'warn' },
       stdio: ['ignore', 'inherit', 'inherit'],
@@ -154,7 +154,7 @@ async function main(): Promise<void> {
       dataDir,
       signInUrl,
       scenario,
-      createFirstAdmin: firstAdminThroughCli({ repoRoot: REPO_ROOT, dataDir }),
+      createFirstAdmin: firstAdminThroughCli({ dataDir }),
       log: say,
     });
     if (result.status === 'not-empty') {

@@ -1,22 +1,22 @@
 /**
- * Creates the first admin through the backend's demo hook, `backend/dist/demo/create-first-admin.js`,
- * in a child process against the same DATA_DIR. The password travels on stdin only.
+ * Creates the first admin through the backend's demo hook (its package entry
+ * `@gyre/backend/create-first-admin`), in a child process against the same DATA_DIR. The
+ * password travels on stdin only.
  */
 import { spawn } from 'node:child_process';
-import { existsSync } from 'node:fs';
-import { join } from 'node:path';
 import type { CreateFirstAdmin } from './demo-seeder';
 
-export function firstAdminThroughCli(options: {
-  repoRoot: string;
-  dataDir: string;
-}): CreateFirstAdmin {
-  const script = join(options.repoRoot, 'backend', 'dist', 'demo', 'create-first-admin.js');
+export function firstAdminThroughCli(options: { dataDir: string }): CreateFirstAdmin {
   return (input) =>
     new Promise((resolve, reject) => {
-      if (!existsSync(script)) {
+      let script: string;
+      try {
+        script = require.resolve('@gyre/backend/create-first-admin');
+      } catch {
         reject(
-          new Error(`${script} is missing: build the backend first (npm run build -w backend)`),
+          new Error(
+            '@gyre/backend/create-first-admin is missing: build the backend first (npm run build -w backend)',
+          ),
         );
         return;
       }
