@@ -4,7 +4,9 @@
  */
 import type { RecordingDto } from '@gyre/shared';
 import { startTestApp, TestApp } from './helpers/test-app';
-import { syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
+import { writeEdf } from '../src/signal/edf';
+import { syntheticTaskRecording } from '../src/signal/synthetic/synthetic-eeg';
+import { syntheticTaskEdf, taskOnsets, upload, waitForState } from './recordings-fixtures';
 
 /** 32 scalp electrodes of the 10-10 system (ACNS Guideline 2, 2016). */
 const LABELS = [
@@ -53,8 +55,30 @@ describe('validation lane', () => {
   });
 
   it('answers an upload while two long analyses hold both analysis threads', async () => {
-    const long = (seed: number): Uint8Array =>
-      syntheticTaskEdf({ durationS: 600, sampleRateHz: 500, channels: LABELS, seed });
+    // One generated channel under 32 labels: generating 32 would take longer than the test.
+    const long = (seed: number): Uint8Array => {
+      const onsetsS = taskOnsets(600);
+      const one = syntheticTaskRecording({
+        sampleRateHz: 500,
+        durationS: 600,
+        channelLabels: ['O1'],
+        onsetsS,
+        seed,
+      });
+      const samples = one.signals[0].samples;
+      return writeEdf({
+        startDate: '2026-01-15T09:30:00',
+        patientId: 'X X X X',
+        signals: LABELS.map((label) => ({
+          label,
+          sampleRateHz: 500,
+          physicalMin: -500,
+          physicalMax: 500,
+          samples,
+        })),
+        annotations: (one.annotations ?? []).map((a) => ({ ...a })),
+      });
+    };
     const first = await upload(t, 'technician', t.seed.visits.A1.id, {
       kind: 'task',
       bytes: long(51),
