@@ -7,6 +7,9 @@ import { AppModule } from './app.module';
 import { AppConfig } from './config/app.config';
 import { APP_CONFIG } from './config/config.module';
 import { HttpExceptionFilter } from './common/errors/http-exception.filter';
+import { rejectDeepBodies } from './common/http/json-depth';
+import { noStore } from './common/http/no-store';
+import { restrictUmask } from './config/data-dir-permissions';
 import { serveClient } from './client-assets';
 import { GYRE_VERSION } from './version';
 
@@ -20,12 +23,16 @@ export interface CreateAppOptions {
 /** Builds the configured application (not yet listening); used by main.ts and the tests. */
 export async function createApp(options: CreateAppOptions = {}): Promise<NestExpressApplication> {
   const env = options.env ?? process.env;
+  // Files the app creates (database, WAL, uploads, mail) are its owner's only.
+  restrictUmask();
   const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(env), {
     bufferLogs: true,
     logger: LEVELS.slice(0, LEVELS.indexOf(logLevelOf(env)) + 1),
   });
   const config = app.get<AppConfig>(APP_CONFIG);
-  app.set('trust proxy', 'loopback');
+  // X-Forwarded-For is believed only from the proxies TRUST_PROXY names (default: none).
+  app.set('trust proxy', config.trustProxy);
+  app.use('/api', noStore);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -42,6 +49,10 @@ export async function createApp(options: CreateAppOptions = {}): Promise<NestExp
       },
     }),
   );
+  // Our own parsers (Nest then skips its defaults), so the depth check runs right after them.
+  app.useBodyParser('json');
+  app.useBodyParser('urlencoded', { extended: true });
+  app.use(rejectDeepBodies);
   app.setGlobalPrefix('api');
   app.useGlobalPipes(
     new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }),
@@ -50,7 +61,6 @@ export async function createApp(options: CreateAppOptions = {}): Promise<NestExp
   app.enableShutdownHooks();
   setUpOpenApi(app);
   serveClient(app.getHttpAdapter().getInstance());
-  void config;
   return app;
 }
 

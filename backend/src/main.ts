@@ -3,9 +3,12 @@ import { Logger } from '@nestjs/common';
 import { createApp } from './app.factory';
 import { AppConfig } from './config/app.config';
 import { APP_CONFIG } from './config/config.module';
+import { restrictUmask } from './config/data-dir-permissions';
 import { EnvironmentError } from './config/environment';
 
 async function bootstrap(): Promise<void> {
+  // First of all: nothing Gyre writes may be readable by other local users.
+  restrictUmask();
   const app = await createApp();
   const config = app.get<AppConfig>(APP_CONFIG);
   await app.listen(config.port, config.host);

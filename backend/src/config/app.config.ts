@@ -1,7 +1,9 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { makeDataDirPrivate } from './data-dir-permissions';
 import { EnvironmentError, EnvironmentVariables, NodeEnv } from './environment';
+import { parseTrustProxy, TrustProxy } from './trust-proxy';
 
 export interface AppConfig {
   nodeEnv: NodeEnv;
@@ -18,8 +20,11 @@ export interface AppConfig {
   jwtSecretSource: 'environment' | 'generated' | 'data-dir';
   smtpUrl: string | null;
   publicUrl: string;
+  /** The largest recording accepted, in bytes (inclusive). */
   uploadMaxBytes: number;
   logLevel: string;
+  /** Express's `trust proxy`: false (the default) believes no X-Forwarded-For at all. */
+  trustProxy: TrustProxy;
 }
 
 const DEFAULT_UPLOAD_MAX_BYTES = 2 * 1024 ** 3;
@@ -30,7 +35,8 @@ export function buildAppConfig(env: EnvironmentVariables): AppConfig {
   const nodeEnv = env.NODE_ENV ?? 'development';
   const port = env.PORT ?? 3000;
   const dataDir = resolve(env.DATA_DIR ?? './data');
-  mkdirSync(dataDir, { recursive: true });
+  // Before anything is written: the database, uploads, secrets and mail are the owner's only.
+  makeDataDirPrivate(dataDir);
   const { secret, source } = resolveJwtSecret(env.JWT_SECRET, dataDir, nodeEnv);
   return {
     nodeEnv,
@@ -46,7 +52,16 @@ export function buildAppConfig(env: EnvironmentVariables): AppConfig {
     publicUrl: (env.PUBLIC_URL ?? `http://localhost:${port}`).replace(/\/+$/, ''),
     uploadMaxBytes: env.UPLOAD_MAX_BYTES ?? DEFAULT_UPLOAD_MAX_BYTES,
     logLevel: env.LOG_LEVEL ?? (nodeEnv === 'test' ? 'warn' : 'log'),
+    trustProxy: trustProxyOf(env.TRUST_PROXY),
   };
+}
+
+function trustProxyOf(raw: string | undefined): TrustProxy {
+  if (raw === undefined) return false;
+  const parsed = parseTrustProxy(raw);
+  if (!parsed.ok)
+    throw new EnvironmentError([`TRUST_PROXY=${JSON.stringify(raw)}: ${parsed.problem}`]);
+  return parsed.value;
 }
 
 function resolveJwtSecret(

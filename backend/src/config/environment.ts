@@ -10,14 +10,31 @@ import {
   MaxLength,
   Min,
   MinLength,
+  Validate,
+  ValidationArguments,
   validateSync,
+  ValidatorConstraint,
+  ValidatorConstraintInterface,
 } from 'class-validator';
+import { parseTrustProxy } from './trust-proxy';
 
 export const NODE_ENVS = ['development', 'production', 'test'] as const;
 export type NodeEnv = (typeof NODE_ENVS)[number];
 
 const toInt = ({ value }: { value: unknown }): unknown =>
   typeof value === 'string' && /^-?\d+$/.test(value.trim()) ? Number(value) : value;
+
+@ValidatorConstraint({ name: 'trustProxy' })
+class TrustProxyFormat implements ValidatorConstraintInterface {
+  validate(value: unknown): boolean {
+    return parseTrustProxy(String(value)).ok;
+  }
+
+  defaultMessage(args: ValidationArguments): string {
+    const parsed = parseTrustProxy(String(args.value));
+    return parsed.ok ? '' : parsed.problem;
+  }
+}
 
 /** Every environment variable Gyre reads, validated once at boot. */
 export class EnvironmentVariables {
@@ -64,6 +81,12 @@ export class EnvironmentVariables {
   @IsOptional()
   @IsIn(['error', 'warn', 'log', 'debug', 'verbose'])
   LOG_LEVEL?: string;
+
+  /** The reverse proxies whose X-Forwarded-For is believed; unset: none (see trust-proxy.ts). */
+  @IsOptional()
+  @IsString()
+  @Validate(TrustProxyFormat)
+  TRUST_PROXY?: string;
 }
 
 /** Thrown when the environment is invalid: one line per bad variable, each naming it. */
@@ -106,4 +129,5 @@ class EnvironmentVariablesKeys implements Record<keyof EnvironmentVariables, und
   PUBLIC_URL = undefined;
   UPLOAD_MAX_BYTES = undefined;
   LOG_LEVEL = undefined;
+  TRUST_PROXY = undefined;
 }

@@ -14,7 +14,8 @@ export class FakeSmtpServer {
   private port: number | null = null;
 
   constructor(private readonly mailDir: string) {
-    mkdirSync(mailDir, { recursive: true });
+    // The messages hold live reset and invitation links: the owner's eyes only.
+    mkdirSync(mailDir, { recursive: true, mode: 0o700 });
     this.server = new SMTPServer({
       authOptional: true,
       disabledCommands: ['STARTTLS', 'AUTH'],
@@ -27,7 +28,7 @@ export class FakeSmtpServer {
         stream.on('error', callback);
         stream.on('end', () => {
           const name = `${new Date().toISOString().replace(/[:.]/g, '-')}-${randomUUID()}.eml`;
-          writeFile(join(this.mailDir, name), Buffer.concat(chunks)).then(
+          writeFile(join(this.mailDir, name), Buffer.concat(chunks), { mode: 0o600 }).then(
             () => callback(),
             (error: unknown) => callback(error instanceof Error ? error : new Error(String(error))),
           );

@@ -13,7 +13,7 @@ import { ChildProcess, spawn } from 'node:child_process';
 import { existsSync, readFileSync, rmSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { buildDemoScenario } from '../scenario/demo-scenario';
-import { formatAccounts } from '../seeder/demo-accounts-file';
+import { formatAccountsForLog } from '../seeder/demo-accounts-file';
 import { seedDemo } from '../seeder/demo-seeder';
 import { firstAdminThroughCli } from '../seeder/first-admin-cli';
 
@@ -173,8 +173,10 @@ async function main(): Promise<void> {
         `(accounts ${(result.timingsMs.accounts / 1000).toFixed(1)} s, uploads ${(result.timingsMs.uploads / 1000).toFixed(1)} s, ` +
         `computing after the last upload ${(result.timingsMs.results / 1000).toFixed(1)} s): ${states}`,
     );
-    say(formatAccounts(result.credentials, signInUrl));
-    say(`the same list is in ${result.accountsFile} (readable by you only)`);
+    // Passwords stay in the 0600 accounts file; the log only says who and where.
+    say(
+      formatAccountsForLog(result.credentials, signInUrl, result.accountsFile ?? 'the data folder'),
+    );
   } finally {
     if (server !== null && server.exitCode === null) {
       const exited = new Promise((r) => server?.once('exit', r));

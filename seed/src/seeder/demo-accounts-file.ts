@@ -19,24 +19,45 @@ export function generatePassword(): string {
   return randomBytes(15).toString('base64url');
 }
 
-/** The accounts as an aligned text table, as written to the file and printed at first start. */
+/** The accounts with their passwords as an aligned text table: for the mode-600 file only. */
 export function formatAccounts(credentials: readonly DemoCredential[], signInUrl: string): string {
-  const rows = credentials.map((c) => [c.role, c.siteName ?? '—', c.email, c.password]);
-  const header = ['role', 'site', 'e-mail', 'password'];
+  return [
+    'Gyre demo accounts (generated passwords; the demo study and its people are invented)',
+    `Sign in at ${signInUrl}`,
+    '',
+    ...alignedTable(
+      ['role', 'site', 'e-mail', 'password'],
+      credentials.map((c) => [c.role, c.siteName ?? '—', c.email, c.password]),
+    ),
+    '',
+  ].join('\n');
+}
+
+/** The accounts for a log or terminal, without passwords: a log has more readers than its owner. */
+export function formatAccountsForLog(
+  credentials: readonly DemoCredential[],
+  signInUrl: string,
+  accountsFile: string,
+): string {
+  return [
+    `Gyre demo accounts (sign in at ${signInUrl}); their passwords are in ${accountsFile} (readable by its owner only)`,
+    '',
+    ...alignedTable(
+      ['role', 'site', 'e-mail'],
+      credentials.map((c) => [c.role, c.siteName ?? '—', c.email]),
+    ),
+    '',
+  ].join('\n');
+}
+
+function alignedTable(header: string[], rows: string[][]): string[] {
   const widths = header.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i].length)));
   const line = (cells: string[]): string =>
     cells
       .map((cell, i) => cell.padEnd(widths[i]))
       .join('  ')
       .trimEnd();
-  return [
-    'Gyre demo accounts (generated passwords; the demo study and its people are invented)',
-    `Sign in at ${signInUrl}`,
-    '',
-    line(header),
-    ...rows.map(line),
-    '',
-  ].join('\n');
+  return [line(header), ...rows.map(line)];
 }
 
 /** Writes DATA_DIR/demo-accounts.txt with mode 600 (also when the file was already there). */

@@ -19,6 +19,7 @@ import { waitForLinkToken } from './captured-mail';
 import {
   DemoCredential,
   formatAccounts,
+  formatAccountsForLog,
   generatePassword,
   writeAccountsFile,
 } from './demo-accounts-file';
@@ -183,7 +184,8 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
   );
   const accountsMs = Date.now() - startedAt;
   log(`${credentials.length} demo accounts ready (${accountsFile})`);
-  log(formatAccounts(credentials, options.signInUrl));
+  // Passwords stay in the 0600 accounts file; the log only says who and where.
+  log(formatAccountsForLog(credentials, options.signInUrl, accountsFile));
 
   // The technicians' part: participants, visits and uploads (Intake screen).
   const technicians = new Map<string, GyreClient>();

@@ -1,6 +1,15 @@
-import { FindOperator, Like } from 'typeorm';
+import { FindOperator, Raw } from 'typeorm';
 
-/** `?q=` as a case-insensitive substring match (SQLite LIKE is ASCII case-insensitive). */
+let parameterCount = 0;
+
+/**
+ * `?q=` as a case-insensitive substring match (SQLite LIKE is ASCII case-insensitive).
+ * `\`, `%` and `_` in `q` match themselves: they are escaped, and SQLite's LIKE knows no
+ * escape character unless the ESCAPE clause names one.
+ */
 export function containsText(q: string): FindOperator<string> {
-  return Like(`%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
+  // Unique per call: two filters in one query (code OR name) must not share a parameter.
+  const name = `containsText${++parameterCount}`;
+  const pattern = `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+  return Raw((column) => `${column} LIKE :${name} ESCAPE '\\'`, { [name]: pattern });
 }

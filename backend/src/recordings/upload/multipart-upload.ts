@@ -3,12 +3,12 @@ import { createWriteStream } from 'node:fs';
 import { mkdir, unlink } from 'node:fs/promises';
 import type { IncomingMessage } from 'node:http';
 import { join } from 'node:path';
-import { PassThrough, Readable } from 'node:stream';
-import { pipeline } from 'node:stream/promises';
+import { PassThrough, Readable, Writable } from 'node:stream';
+import { finished, pipeline } from 'node:stream/promises';
 import busboy from 'busboy';
-import { PatientFieldBlanker } from './patient-field-blanker';
+import { IdentifyingFieldsBlanker } from './identifying-fields-blanker';
 
-/** The recording as it landed in the temporary folder, patient field already blanked. */
+/** The recording as it landed in the temporary folder, patient and recording fields blanked. */
 export interface ReceivedFile {
   tempPath: string;
   /** SHA-256 (hex) of the bytes written, i.e. of the blanked copy. */
@@ -25,7 +25,7 @@ export interface ReceivedUpload {
 
 export interface ReceiveUploadOptions {
   tempDir: string;
-  /** Largest recording accepted; beyond it the upload fails with `UploadTooLargeError`. */
+  /** Largest recording accepted (inclusive); beyond it the upload fails with `UploadTooLargeError`. */
   maxRecordingBytes: number;
   maxOnsetsCsvBytes: number;
   recordingField: string;
@@ -61,10 +61,10 @@ const MULTIPART_OVERHEAD_BYTES = 64 * 1024;
 
 /**
  * Streams a multipart/form-data request to disk with busboy: the recording goes
- * through the patient-field blanker, then the SHA-256 hash and a byte counter, into a
- * temporary file, so it never sits whole in memory and the original patient field
- * never reaches the disk. On any failure the temporary file is removed before the
- * error is thrown.
+ * through the identifying-fields blanker, then the SHA-256 hash and a byte counter, into a
+ * temporary file, so it never sits whole in memory and the original patient and recording
+ * fields never reach the disk. A malformed body (RFC 7578) is an `UploadFormError`. On any
+ * failure the temporary file is removed before the error is thrown.
  */
 export async function receiveUpload(
   request: IncomingMessage,
@@ -83,6 +83,29 @@ export async function receiveUpload(
   if (Number.isFinite(declared) && declared > ceiling) {
     throw new UploadTooLargeError(options.recordingField, options.maxRecordingBytes);
   }
+
+  let parser: Writable;
+  try {
+    parser = busboy({
+      headers: request.headers,
+      limits: {
+        // busboy cuts a file on reaching this: one past the largest part, so a limit is inclusive.
+        fileSize: Math.max(options.maxRecordingBytes, options.maxOnsetsCsvBytes) + 1,
+        files: 2,
+        fields: options.allowedFields.length,
+        // Room for a replacement reason (at most 2000 characters, up to 4 bytes each in UTF-8).
+        fieldSize: 8192,
+        parts: options.allowedFields.length + 2,
+      },
+    });
+  } catch (error) {
+    // busboy refuses a Content-Type without a boundary at once, before reading anything.
+    throw new UploadFormError(
+      'Content-Type',
+      `'${contentType.slice(0, 200)}' (${messageOf(error)})`,
+      "'multipart/form-data; boundary=…' (RFC 7578 §4.1)",
+    );
+  }
   await mkdir(options.tempDir, { recursive: true });
 
   const fields: Record<string, string> = {};
@@ -91,23 +114,20 @@ export async function receiveUpload(
   let tempPath: string | null = null;
   let onsetsCsv: Buffer | null = null;
   let failure: Error | null = null;
+  // Set when Gyre itself stops the parser (a disk error): not the client's fault.
+  let stoppedBy: Error | null = null;
   const fail = (error: Error): void => {
     failure ??= error;
   };
+  const failWrite = (error: Error): void => {
+    fail(error);
+    // A destroyed parser is where the error came from; a running one would stall for good.
+    if (isClientError(error) || parser.destroyed) return;
+    stoppedBy ??= error;
+    parser.destroy(error);
+  };
 
-  const parser = busboy({
-    headers: request.headers,
-    limits: {
-      fileSize: options.maxRecordingBytes,
-      files: 2,
-      fields: options.allowedFields.length,
-      // Room for a replacement reason (at most 2000 characters, up to 4 bytes each in UTF-8).
-      fieldSize: 8192,
-      parts: options.allowedFields.length + 2,
-    },
-  });
-
-  parser.on('field', (name, value, info: { valueTruncated: boolean }) => {
+  parser.on('field', (name: string, value: string, info: { valueTruncated: boolean }) => {
     if (info.valueTruncated) {
       fail(new UploadFormError(`form field '${name}'`, 'more than 8192 bytes', 'a shorter value'));
       return;
@@ -124,8 +144,17 @@ export async function receiveUpload(
     }
     fields[name] = value;
   });
-  parser.on('file', (name, stream) => {
-    if (name === options.recordingField && tempPath === null) {
+  parser.on('file', (name: string, stream: Readable, info: { filename?: string }) => {
+    if (hasControlCharacter(info.filename ?? '')) {
+      stream.resume();
+      fail(
+        new UploadFormError(
+          `file name of part '${name}'`,
+          'a control character (such as CR or LF)',
+          'a file name without control characters (RFC 7578 §4.2)',
+        ),
+      );
+    } else if (name === options.recordingField && tempPath === null) {
       const path = join(options.tempDir, `${randomUUID()}.part`);
       tempPath = path;
       writes.push(
@@ -133,7 +162,7 @@ export async function receiveUpload(
           (file) => {
             recording = file;
           },
-          (error: Error) => fail(error),
+          (error: Error) => failWrite(error),
         ),
       );
     } else if (name === options.onsetsField && onsetsCsv === null) {
@@ -142,7 +171,7 @@ export async function receiveUpload(
           (bytes) => {
             onsetsCsv = bytes;
           },
-          (error: Error) => fail(error),
+          (error: Error) => failWrite(error),
         ),
       );
     } else {
@@ -164,21 +193,93 @@ export async function receiveUpload(
   parser.on('fieldsLimit', () =>
     fail(new UploadFormError('fields', 'too many form fields', options.allowedFields.join(', '))),
   );
+  parser.on('partsLimit', () =>
+    fail(
+      new UploadFormError(
+        'parts',
+        `more than ${options.allowedFields.length + 2} parts`,
+        `a '${options.recordingField}' part, an optional '${options.onsetsField}' part and the fields ${options.allowedFields.join(', ')}`,
+      ),
+    ),
+  );
 
-  try {
-    await pipeline(request, parser);
-  } catch (error) {
-    fail(error instanceof Error ? error : new Error(String(error)));
-  }
+  const parserError = await parseBody(request, parser);
   await Promise.all(writes);
-  if (failure !== null || recording === null) {
+  const malformed =
+    parserError !== null && parserError !== stoppedBy ? malformedBody(parserError) : null;
+  // A broken body explains whatever the parts saw after it (they end with busboy's error).
+  const problem = isClientError(failure) ? failure : (malformed ?? failure);
+  if (problem !== null || recording === null) {
     if (tempPath !== null) await unlink(tempPath).catch(() => undefined);
     throw (
-      failure ??
-      new UploadFormError(`file part '${options.recordingField}'`, 'none', 'an EDF/EDF+ file')
+      problem ??
+      new UploadFormError(
+        `file part '${options.recordingField}'`,
+        // busboy skips a part whose Content-Disposition it cannot read (say, split by CR LF).
+        'none with a readable Content-Disposition header',
+        'an EDF/EDF+ file (RFC 7578 §4.2)',
+      )
     );
   }
   return { fields, recording, onsetsCsv };
+}
+
+/** C0 controls and DEL; RFC 5987 `filename*` can smuggle CR/LF past the header syntax. */
+function hasControlCharacter(text: string): boolean {
+  for (let i = 0; i < text.length; i++) {
+    const code = text.charCodeAt(i);
+    if (code < 0x20 || code === 0x7f) return true;
+  }
+  return false;
+}
+
+function isClientError(error: Error | null): boolean {
+  return error instanceof UploadFormError || error instanceof UploadTooLargeError;
+}
+
+function messageOf(error: unknown): string {
+  return error instanceof Error ? error.message : String(error);
+}
+
+/**
+ * Feeds the request to the parser; resolves with the parser's error, or null once it has
+ * read the whole form. Unlike `pipeline`, a parser failure does not destroy the request, so
+ * the socket stays open for the 400 (the caller drains the rest of the body).
+ */
+async function parseBody(request: IncomingMessage, parser: Writable): Promise<Error | null> {
+  request.once('error', (error) => parser.destroy(error));
+  request.once('close', () => {
+    if (!request.complete) parser.destroy(new Error('the request ended before its body did'));
+  });
+  request.pipe(parser);
+  try {
+    await finished(parser);
+    return null;
+  } catch (error) {
+    request.unpipe(parser);
+    return error instanceof Error ? error : new Error(String(error));
+  }
+}
+
+/** busboy's parse errors, as the field, what was found and what RFC 7578 expects. */
+function malformedBody(error: Error): UploadFormError {
+  const expected = 'a complete multipart/form-data body (RFC 7578)';
+  switch (error.message) {
+    case 'Unexpected end of form':
+      return new UploadFormError(
+        'multipart body',
+        'a body that ends before its closing boundary',
+        `${expected}, ending with '--' + boundary + '--' (RFC 7578 §4.1)`,
+      );
+    case 'Malformed part header':
+      return new UploadFormError(
+        'multipart body',
+        'a malformed part header (e.g. a file name broken by CR or LF)',
+        `${expected} whose part headers are single lines (RFC 7578 §4.2)`,
+      );
+    default:
+      return new UploadFormError('multipart body', `'${error.message}'`, expected);
+  }
 }
 
 async function writeRecording(
@@ -199,18 +300,23 @@ async function writeRecording(
   });
   await pipeline(
     stream,
-    new PatientFieldBlanker(),
+    new IdentifyingFieldsBlanker(),
     meter,
     createWriteStream(path, { flags: 'wx', mode: 0o600 }),
   );
-  if (truncated || stream.truncated) {
+  // The limit is the largest size accepted: exactly UPLOAD_MAX_BYTES is fine, one more is not.
+  if (truncated || stream.truncated || sizeBytes > options.maxRecordingBytes) {
     await unlink(path).catch(() => undefined);
     throw new UploadTooLargeError(options.recordingField, options.maxRecordingBytes);
   }
   return { tempPath: path, sha256: hash.digest('hex'), sizeBytes };
 }
 
-async function collectSmallFile(stream: Readable, part: string, maxBytes: number): Promise<Buffer> {
+async function collectSmallFile(
+  stream: Readable & { truncated?: boolean },
+  part: string,
+  maxBytes: number,
+): Promise<Buffer> {
   const chunks: Buffer[] = [];
   let total = 0;
   let tooLarge = false;
@@ -220,6 +326,6 @@ async function collectSmallFile(stream: Readable, part: string, maxBytes: number
     if (total > maxBytes) tooLarge = true;
     else chunks.push(bytes);
   }
-  if (tooLarge) throw new UploadTooLargeError(part, maxBytes);
+  if (tooLarge || stream.truncated) throw new UploadTooLargeError(part, maxBytes);
   return Buffer.concat(chunks);
 }

@@ -55,10 +55,10 @@ export class UploadReceiver {
         allowedFields: ['kind', 'confirmKind', 'replaces', 'replacementReason'],
       });
     } catch (error) {
+      // Drain, not keep, the rest: a client still sending then gets the answer, not a reset.
+      request.unpipe();
+      request.resume();
       if (error instanceof UploadTooLargeError) {
-        // Stop reading: the rest of an oversize body is not worth receiving.
-        request.unpipe();
-        request.resume();
         throw new GyreException(
           ErrorKind.PayloadTooLarge,
           RecordingsError.TooLarge,

@@ -45,6 +45,26 @@ describe('blankRecordingField (writes in place)', () => {
     expect(readEdf(bytes).header.startDate).toBe('2002-03-02T14:30:00');
   });
 
+  it.each([
+    ['free text in place of the date', 'Startdate Dr_Invented_Person HOSP-1 T1 EQ1'],
+    ['a date in another format', 'Startdate 2002-03-02 HOSP-1 T1 EQ1'],
+    ['no Startdate subfield', 'HOSP-1 Invented_Technician EQ1'],
+    ['Startdate X with codes', 'Startdate X HOSP-1 Invented_Technician EQ1'],
+  ])('EDF+: %s becomes Startdate X X X X (Kemp & Olivan 2003)', (_name, field) => {
+    const bytes = edfPlus();
+    for (let i = 0; i < 80; i++) bytes[88 + i] = field.padEnd(80, ' ').charCodeAt(i);
+    blankRecordingField(bytes);
+    expect(text(bytes, 88, 168)).toBe('Startdate X X X X'.padEnd(80, ' '));
+  });
+
+  it('EDF+: additional subfields after the equipment code are dropped', () => {
+    const bytes = edfPlus();
+    const field = 'Startdate 02-MAR-2002 HOSP-1 T1 EQ1 Invented_Extra_Note';
+    for (let i = 0; i < 80; i++) bytes[88 + i] = field.padEnd(80, ' ').charCodeAt(i);
+    blankRecordingField(bytes);
+    expect(text(bytes, 88, 168)).toBe('Startdate 02-MAR-2002 X X X'.padEnd(80, ' '));
+  });
+
   it('plain EDF: recording field becomes spaces', () => {
     const bytes = plainEdf();
     blankRecordingField(bytes);

@@ -39,11 +39,17 @@ export function blankPatientField(bytes: Uint8Array): void {
   writeField(bytes, PATIENT_OFFSET, isEdfPlusHeader(bytes) ? 'X X X X' : '');
 }
 
+/** `dd-MMM-yyyy` with an English month abbreviation in capitals (Kemp & Olivan 2003). */
+const STARTDATE_SUBFIELD =
+  /^Startdate ([0-9]{2}-(?:JAN|FEB|MAR|APR|MAY|JUN|JUL|AUG|SEP|OCT|NOV|DEC)-[0-9]{4})(?: |$)/;
+
 /**
  * Writes IN PLACE over the local recording identification (header bytes 88..167),
- * which can name the hospital (admin code), technician and equipment. EDF+ keeps its
- * `Startdate dd-MMM-yyyy` subfield, which holds the year after 2084 and must stay
- * (Kemp & Olivan 2003), and gets `X` for the other subfields; plain EDF gets spaces.
+ * which can name the hospital (admin code), technician and equipment. EDF+ gets
+ * `Startdate <date> X X X`: the mandatory `Startdate dd-MMM-yyyy` subfield, which holds
+ * the year after 2084 (Kemp & Olivan 2003), is kept when it is a date and becomes `X`
+ * (unknown) otherwise, so free text there is not kept either; the three code subfields
+ * become `X` and any additional subfields are dropped. Plain EDF gets spaces.
  */
 export function blankRecordingField(bytes: Uint8Array): void {
   assertHeader(bytes);
@@ -54,6 +60,6 @@ export function blankRecordingField(bytes: Uint8Array): void {
   const current = String.fromCharCode(
     ...bytes.subarray(RECORDING_OFFSET, RECORDING_OFFSET + FIELD_WIDTH),
   );
-  const startdate = /^Startdate (\S+)/.exec(current);
+  const startdate = STARTDATE_SUBFIELD.exec(current);
   writeField(bytes, RECORDING_OFFSET, `Startdate ${startdate ? startdate[1] : 'X'} X X X`);
 }

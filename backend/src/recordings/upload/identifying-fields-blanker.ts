@@ -1,19 +1,20 @@
 import { Transform, TransformCallback } from 'node:stream';
-import { blankPatientField } from '../../signal/edf/edf-patient-field';
+import { blankPatientField, blankRecordingField } from '../../signal/edf/edf-patient-field';
 
-/** The fixed EDF header is the first 256 bytes; the patient field is bytes 8..87 (Kemp et al. 1992). */
+/** The fixed EDF header is the first 256 bytes (Kemp et al. 1992). */
 const FIXED_HEADER_BYTES = 256;
-const PATIENT_FIELD_START = 8;
-const PATIENT_FIELD_END = 88;
+/** Patient field bytes 8..87 and recording field bytes 88..167, kept together as one span. */
+const IDENTIFYING_START = 8;
+const IDENTIFYING_END = 168;
 
 /**
- * Holds back the first 256 bytes of an upload, blanks the EDF patient field in them
- * (the signal core's `blankPatientField`) and only then lets them through, so the
- * original field never reaches whatever is downstream (hash, disk). Later bytes pass
- * unchanged. A stream shorter than 256 bytes (not EDF at all) gets bytes 8..87 set to
- * spaces, as far as they exist.
+ * Holds back the first 256 bytes of an upload, blanks the EDF patient field (bytes 8..87)
+ * and recording field (bytes 88..167) in them with the signal core's `blankPatientField`
+ * and `blankRecordingField`, and only then lets them through, so the original fields never
+ * reach whatever is downstream (hash, disk). Later bytes pass unchanged. A stream shorter
+ * than 256 bytes (not EDF at all) gets bytes 8..167 set to spaces, as far as they exist.
  */
-export class PatientFieldBlanker extends Transform {
+export class IdentifyingFieldsBlanker extends Transform {
   private held: Buffer[] = [];
   private heldBytes = 0;
   private passing = false;
@@ -28,6 +29,7 @@ export class PatientFieldBlanker extends Transform {
     if (this.heldBytes >= FIXED_HEADER_BYTES) {
       const head = this.releaseHeld();
       blankPatientField(head);
+      blankRecordingField(head);
       this.passing = true;
       done(null, head);
       return;
@@ -41,19 +43,19 @@ export class PatientFieldBlanker extends Transform {
       return;
     }
     const head = this.releaseHeld();
-    const end = Math.min(PATIENT_FIELD_END, head.byteLength);
-    if (end > PATIENT_FIELD_START) head.fill(0x20, PATIENT_FIELD_START, end);
+    const end = Math.min(IDENTIFYING_END, head.byteLength);
+    if (end > IDENTIFYING_START) head.fill(0x20, IDENTIFYING_START, end);
     done(null, head);
   }
 
   /** Joins the held chunks into one new buffer and overwrites the originals with spaces. */
   private releaseHeld(): Buffer {
     const head = Buffer.concat(this.held, this.heldBytes);
-    // The caller's chunks held the original field: do not leave it lying in them.
+    // The caller's chunks held the original fields: do not leave them lying in them.
     let offset = 0;
     for (const chunk of this.held) {
-      const from = Math.max(PATIENT_FIELD_START - offset, 0);
-      const to = Math.min(PATIENT_FIELD_END - offset, chunk.byteLength);
+      const from = Math.max(IDENTIFYING_START - offset, 0);
+      const to = Math.min(IDENTIFYING_END - offset, chunk.byteLength);
       if (from < to) chunk.fill(0x20, from, to);
       offset += chunk.byteLength;
     }
