@@ -1,6 +1,8 @@
+import { createHash } from 'node:crypto';
 import request from 'supertest';
 import { abilityFromPackedRules, type PackedRules } from '@gyre/shared';
 import { accessPayload, forgeJwt } from './helpers/jwt-forge';
+import { REFRESH_REUSE_GRACE_MS } from '../src/auth/refresh-tokens.service';
 import { SEED_PASSWORD } from './helpers/seed';
 import { startTestApp, TEST_JWT_SECRET, TestApp } from './helpers/test-app';
 
@@ -75,29 +77,21 @@ describe('sign-in, tokens and sessions', () => {
     });
   });
 
-  describe('lockout', () => {
-    it('locks the account for 15 minutes after 5 wrong passwords, even for the right one', async () => {
+  describe('failed sign-ins', () => {
+    // OWASP ASVS 4.0 2.2.1: anti-automation must not let a stranger lock the owner out.
+    it('never locks the account: after 5 wrong passwords the right one still works', async () => {
       const email = t.seed.users.coordinatorB.email;
-      for (let attempt = 1; attempt <= 4; attempt += 1) {
-        expect((await signIn(email, `wrong-password-${attempt}`)).status).toBe(401);
+      for (let attempt = 1; attempt <= 5; attempt += 1) {
+        const wrong = await signIn(email, `wrong-password-${attempt}`);
+        expect(wrong.status).toBe(401);
+        expect(wrong.body.code).toBe('AUTH_WRONG_CREDENTIALS');
       }
-      const fifth = await signIn(email, 'wrong-password-5');
-      expect(fifth.status).toBe(423);
-      expect(fifth.body.code).toBe('AUTH_ACCOUNT_LOCKED');
-      const lockedUntil = Date.parse(fifth.body.details.lockedUntil as string);
-      // 15 minutes from now, within the few seconds this test takes.
-      expect(lockedUntil - Date.now()).toBeGreaterThan(14 * 60 * 1000);
-      expect(lockedUntil - Date.now()).toBeLessThanOrEqual(15 * 60 * 1000);
-
-      const right = await signIn(email, SEED_PASSWORD);
-      expect(right.status).toBe(423);
-
-      // When the lock has run out (moved into the past here), the right password works again.
-      await t.dataSource.query(`UPDATE "user" SET "lockedUntil" = ? WHERE "email" = ?`, [
-        new Date(Date.now() - 1000).toISOString(),
-        email,
-      ]);
       expect((await signIn(email, SEED_PASSWORD)).status).toBe(200);
+      const [row] = (await t.dataSource.query(
+        `SELECT "lockedUntil" FROM "user" WHERE "email" = ?`,
+        [email],
+      )) as { lockedUntil: string | null }[];
+      expect(row.lockedUntil).toBeNull();
     });
 
     it('a successful sign-in resets the count of wrong passwords', async () => {
@@ -114,14 +108,37 @@ describe('sign-in, tokens and sessions', () => {
   describe('access tokens the server must refuse', () => {
     const me = (token: string) =>
       request(t.url).get('/api/auth/me').set('Authorization', `Bearer ${token}`);
+    const sessionIdOf = async (user: 'analyst' | 'monitor'): Promise<string> => {
+      const [, payload] = (await t.tokenFor(user)).split('.');
+      return (JSON.parse(Buffer.from(payload, 'base64url').toString('utf8')) as { sid: string })
+        .sid;
+    };
 
     it('accepts a token it signed itself (control for the cases below)', async () => {
       const token = forgeJwt({
         header: { alg: 'HS256', typ: 'JWT' },
-        payload: accessPayload(t.seed.users.analyst.id),
+        payload: { ...accessPayload(t.seed.users.analyst.id), sid: await sessionIdOf('analyst') },
         secret: TEST_JWT_SECRET,
       });
       expect((await me(token)).status).toBe(200);
+    });
+
+    // Common practice: an access token is bound to the session it was issued to.
+    it('refuses a well-signed token without a session or with another user’s session', async () => {
+      const withoutSession = forgeJwt({
+        header: { alg: 'HS256', typ: 'JWT' },
+        payload: accessPayload(t.seed.users.analyst.id),
+        secret: TEST_JWT_SECRET,
+      });
+      expect((await me(withoutSession)).status).toBe(401);
+      const othersSession = forgeJwt({
+        header: { alg: 'HS256', typ: 'JWT' },
+        payload: { ...accessPayload(t.seed.users.analyst.id), sid: await sessionIdOf('monitor') },
+        secret: TEST_JWT_SECRET,
+      });
+      const response = await me(othersSession);
+      expect(response.status).toBe(401);
+      expect(response.body.code).toBe('AUTH_SESSION_ENDED');
     });
 
     it('refuses alg: none (RFC 7518 §3.6 unsecured JWS)', async () => {
@@ -171,7 +188,16 @@ describe('sign-in, tokens and sessions', () => {
   });
 
   describe('refresh tokens', () => {
-    it('rotates on every use: the new cookie works, the old one is refused', async () => {
+    /** Moves the rotation of `cookie` back past the grace period, instead of waiting for it. */
+    const afterGrace = async (cookie: string): Promise<void> => {
+      const secret = cookie.slice(`${REFRESH_COOKIE}=`.length);
+      await t.dataSource.query(`UPDATE "refresh_token" SET "usedAt" = ? WHERE "tokenHash" = ?`, [
+        new Date(Date.now() - REFRESH_REUSE_GRACE_MS - 1000).toISOString(),
+        createHash('sha256').update(secret).digest('hex'),
+      ]);
+    };
+
+    it('rotates on every use: the new cookie works, the old one is refused after the grace', async () => {
       const first = refreshCookieOf(
         await signIn(t.seed.users.technicianB.email, SEED_PASSWORD),
       ).pair;
@@ -182,16 +208,18 @@ describe('sign-in, tokens and sessions', () => {
       expect(second).not.toBe(first);
       const third = await request(t.url).post('/api/auth/refresh').set('Cookie', second);
       expect(third.status).toBe(200);
+      await afterGrace(first);
       expect((await request(t.url).post('/api/auth/refresh').set('Cookie', first)).status).toBe(
         401,
       );
     });
 
-    it('reuse of a rotated token revokes the whole family, including the newest token', async () => {
+    it('reuse of a rotated token after the grace revokes the whole family, including the newest token', async () => {
       const first = refreshCookieOf(await signIn(t.seed.users.monitorB.email, SEED_PASSWORD)).pair;
       const second = refreshCookieOf(
         await request(t.url).post('/api/auth/refresh').set('Cookie', first),
       ).pair;
+      await afterGrace(first);
       const reuse = await request(t.url).post('/api/auth/refresh').set('Cookie', first);
       expect(reuse.status).toBe(401);
       expect(reuse.body.code).toBe('AUTH_REFRESH_REUSED');
@@ -336,5 +364,68 @@ describe('throttling of /api/auth/*', () => {
     expect(statuses[60]).toBe(429);
     // Other routes are not throttled by it.
     expect((await request(t.url).get('/api/health')).status).toBe(200);
+  });
+
+  // RFC 9110 §10.2.3 (Retry-After: delay-seconds) and RFC 6585 §4 (429 MAY carry Retry-After).
+  it('says how long to wait in a standard Retry-After and answers in Gyre’s error shape', async () => {
+    const response = await request(t.url).post('/api/auth/refresh');
+    expect(response.status).toBe(429);
+    expect(response.headers['retry-after']).toMatch(/^\d+$/);
+    const seconds = Number(response.headers['retry-after']);
+    expect(seconds).toBeGreaterThanOrEqual(1);
+    expect(seconds).toBeLessThanOrEqual(60);
+    expect(
+      Object.keys(response.headers).filter((name) => /retry-after-|ratelimit/i.test(name)),
+    ).toEqual([]);
+    expect(response.body).toEqual({
+      statusCode: 429,
+      code: 'AUTH_TOO_MANY_REQUESTS',
+      message: `Too many requests from this address: wait ${seconds} s before trying again.`,
+      details: { retryAfterS: seconds },
+    });
+  });
+});
+
+// Common practice: messages built from a role read as English ("an analyst", not "a analyst").
+describe('messages that name a role', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await startTestApp();
+  });
+  afterAll(async () => {
+    await t.close();
+  });
+
+  it('a refused permission says "An analyst may not …"', async () => {
+    const response = await request(t.url)
+      .post('/api/users/invitations')
+      .set(await t.authHeader('analyst'))
+      .send({ email: 'new.person@gyre.test', name: 'New Person', role: 'monitor' });
+    expect(response.status).toBe(403);
+    expect(response.body.message).toBe('An analyst may not invite User.');
+  });
+
+  it('a missing membership says "an analyst must belong to a study"', async () => {
+    const response = await request(t.url)
+      .post('/api/users/invitations')
+      .set(await t.authHeader('admin'))
+      .send({ email: 'new.analyst@gyre.test', name: 'New Analyst', role: 'analyst' });
+    expect(response.status).toBe(400);
+    expect(response.body.message).toBe('studyId: an analyst must belong to a study');
+  });
+
+  it('an admin is "An admin" and a technician stays "A technician"', async () => {
+    const admin = await request(t.url)
+      .post(`/api/visits/${t.seed.visits.A1.id}/report/sign`)
+      .set(await t.authHeader('admin'))
+      .send({ password: 'x', meaning: 'x', fingerprint: 'a'.repeat(64) });
+    expect(admin.status).toBe(403);
+    expect(admin.body.message).toMatch(/^An admin may not /);
+    const technician = await request(t.url)
+      .post('/api/users/invitations')
+      .set(await t.authHeader('technician'))
+      .send({ email: 'new.person@gyre.test', name: 'New Person', role: 'monitor' });
+    expect(technician.status).toBe(403);
+    expect(technician.body.message).toMatch(/^A technician may not /);
   });
 });

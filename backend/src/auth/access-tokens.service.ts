@@ -10,9 +10,10 @@ export const ACCESS_TOKEN_LIFETIME_S = 15 * 60;
 export class AccessTokens {
   constructor(private readonly jwt: JwtService) {}
 
-  issue(user: { id: string; role: string }): string {
+  /** `sid` names the session (refresh family): the token is refused once that session ends. */
+  issue(user: { id: string; role: string }, sessionId: string): string {
     return this.jwt.sign(
-      { sub: user.id, role: user.role, typ: 'access' },
+      { sub: user.id, sid: sessionId, role: user.role, typ: 'access' },
       {
         algorithm: 'HS256',
         expiresIn: ACCESS_TOKEN_LIFETIME_S,

@@ -9,13 +9,14 @@ import {
   ApiTags,
   ApiTooManyRequestsResponse,
 } from '@nestjs/swagger';
-import { ThrottlerGuard } from '@nestjs/throttler';
 import type { Request, Response } from 'express';
 import type { MeResponse, SessionResponse } from '@gyre/shared';
 import { Public } from '../common/decorators/public.decorator';
+import { GyreException } from '../common/errors/gyre.exception';
 import { readCookie } from '../common/http/cookies';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
+import { AuthThrottlerGuard } from './auth-throttler.guard';
 import { AuthService, IssuedSession } from './auth.service';
 import type { AuthUser } from './auth-user';
 import { ClientIp, CurrentUser, SignedInOnly } from './decorators';
@@ -33,8 +34,11 @@ export const REFRESH_COOKIE = 'gyre_refresh';
 const REFRESH_COOKIE_PATH = '/api/auth';
 
 @ApiTags('auth')
-@ApiTooManyRequestsResponse({ description: 'Too many requests to /api/auth from this address' })
-@UseGuards(ThrottlerGuard)
+@ApiTooManyRequestsResponse({
+  description:
+    'Too many requests to /api/auth from this address, or (sign-in) too many failed sign-ins; `Retry-After` gives the seconds to wait',
+})
+@UseGuards(AuthThrottlerGuard)
 @Controller('auth')
 export class AuthController {
   constructor(
@@ -52,7 +56,12 @@ export class AuthController {
     @ClientIp() clientIp: string | null,
     @Res({ passthrough: true }) response: Response,
   ): Promise<SessionResponse> {
-    return this.withCookie(response, await this.auth.signIn(body.email, body.password, clientIp));
+    try {
+      return this.withCookie(response, await this.auth.signIn(body.email, body.password, clientIp));
+    } catch (error) {
+      setRetryAfter(response, error);
+      throw error;
+    }
   }
 
   @Public()
@@ -173,4 +182,10 @@ export class AuthController {
       path: REFRESH_COOKIE_PATH,
     });
   }
+}
+
+/** A throttled sign-in says how long to wait in the standard header (RFC 9110 §10.2.3). */
+function setRetryAfter(response: Response, error: unknown): void {
+  const seconds = error instanceof GyreException ? error.details?.retryAfterS : undefined;
+  if (typeof seconds === 'number') response.setHeader('Retry-After', String(seconds));
 }

@@ -10,6 +10,7 @@ import { SitesModule } from '../sites/sites.module';
 import { StudiesModule } from '../studies/studies.module';
 import { User } from '../users/user.entity';
 import { AccessTokens } from './access-tokens.service';
+import { AuthThrottlerGuard } from './auth-throttler.guard';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
 import { JwtAuthGuard } from './jwt-auth.guard';
@@ -17,7 +18,12 @@ import { JwtStrategy } from './jwt.strategy';
 import { OneTimeTokens } from './one-time-tokens.service';
 import { PasswordHasher } from './password-hasher.service';
 import { PermissionsGuard } from './permissions.guard';
-import { RefreshTokens } from './refresh-tokens.service';
+import {
+  REFRESH_REUSE_GRACE,
+  REFRESH_REUSE_GRACE_MS,
+  RefreshTokens,
+} from './refresh-tokens.service';
+import { SignInThrottles } from './sign-in-throttle.service';
 
 /** Requests per minute per client address on `/api/auth/*`. */
 export const AUTH_THROTTLE_LIMIT = 60;
@@ -33,7 +39,11 @@ export const AUTH_THROTTLE_LIMIT = 60;
         verifyOptions: { algorithms: ['HS256'] },
       }),
     }),
-    ThrottlerModule.forRoot([{ name: 'auth', ttl: 60_000, limit: AUTH_THROTTLE_LIMIT }]),
+    ThrottlerModule.forRoot({
+      throttlers: [{ name: 'auth', ttl: 60_000, limit: AUTH_THROTTLE_LIMIT }],
+      // The library's headers are suffixed with the throttler's name (`Retry-After-auth`).
+      setHeaders: false,
+    }),
     TypeOrmModule.forFeature([User]),
     StudiesModule,
     SitesModule,
@@ -45,6 +55,9 @@ export const AUTH_THROTTLE_LIMIT = 60;
     RefreshTokens,
     OneTimeTokens,
     PasswordHasher,
+    SignInThrottles,
+    AuthThrottlerGuard,
+    { provide: REFRESH_REUSE_GRACE, useValue: REFRESH_REUSE_GRACE_MS },
     JwtStrategy,
     // Order matters: sign-in first, then the permission check that needs the user.
     { provide: APP_GUARD, useClass: JwtAuthGuard },

@@ -5,7 +5,7 @@ import { MeResponse, packRulesFor, SessionResponse } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { isoAfter, nowIso } from '../common/time';
+import { nowIso } from '../common/time';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import { clientLink, passwordResetMail } from '../mail/mail-templates';
@@ -23,8 +23,20 @@ import { OneTimeTokens } from './one-time-tokens.service';
 import { assertPasswordAcceptable } from './password-policy';
 import { PasswordHasher } from './password-hasher.service';
 import { RefreshTokens } from './refresh-tokens.service';
+import type { SignInThrottleScope } from './sign-in-throttle.entity';
+import {
+  newlyThrottled,
+  retryAfterSeconds,
+  SIGN_IN_THROTTLE_POLICIES,
+  SignInReservation,
+  SignInThrottles,
+} from './sign-in-throttle.service';
 
-/** Five wrong passwords in a row lock the account for fifteen minutes. */
+/**
+ * Signing a report with five wrong passwords in a row locks the account for fifteen minutes
+ * (`signoff/signer-verification.ts`; the lock ends every session, see the migration
+ * `1764700100000-session-revocation.ts`). Sign-in itself never locks: it throttles.
+ */
 export const MAX_FAILED_SIGN_INS = 5;
 export const LOCKOUT_MS = 15 * 60 * 1000;
 
@@ -45,91 +57,123 @@ export class AuthService {
     private readonly accessTokens: AccessTokens,
     private readonly refreshTokens: RefreshTokens,
     private readonly oneTimeTokens: OneTimeTokens,
+    private readonly throttles: SignInThrottles,
     private readonly audit: AuditService,
     private readonly outbox: OutboxService,
     private readonly studies: StudiesService,
     private readonly sites: SitesService,
   ) {}
 
+  /**
+   * Known and unknown accounts take the same path: the same throttle, one bcrypt comparison
+   * (against a dummy hash when there is no usable account) and the same answer.
+   */
   async signIn(
     emailInput: string,
     password: string,
     clientIp: string | null,
   ): Promise<IssuedSession> {
     const email = emailInput.trim().toLowerCase();
+    const admission = await this.writes.run((manager) =>
+      this.throttles.admit(manager, email, clientIp),
+    );
+    if (admission.kind === 'refused') throw throttledError(admission.retryAfterMs);
     const user = await this.users.findOneBy({ email });
-    const failed = (reason: string, actor: User | null): Promise<unknown> =>
-      this.audit.record({
-        actor: actor ?? { id: null, email },
-        action: 'sign-in-failed',
-        objectType: 'Session',
-        objectId: actor?.id ?? null,
-        reason,
-        clientIp,
+    const usable =
+      user !== null && user.state === 'active' && user.passwordHash !== null ? user : null;
+    const passwordRight =
+      usable === null || usable.passwordHash === null
+        ? await this.hasher.verifyAgainstNothing(password)
+        : await this.hasher.verify(password, usable.passwordHash);
+    if (usable === null || !passwordRight) {
+      await this.writes.run(async () => {
+        await this.audit.record({
+          actor: user ?? { id: null, email },
+          action: 'sign-in-failed',
+          objectType: 'Session',
+          objectId: user?.id ?? null,
+          reason:
+            user === null
+              ? 'unknown e-mail'
+              : usable === null
+                ? `account ${user.state}`
+                : 'wrong password',
+          clientIp,
+        });
+        await this.recordThrottling(admission, email, user, clientIp);
       });
-    if (user === null || user.state !== 'active' || user.passwordHash === null) {
-      await this.hasher.verifyAgainstNothing(password);
-      await failed(user === null ? 'unknown e-mail' : `account ${user.state}`, user);
       throw new GyreException(
         ErrorKind.Unauthenticated,
         AuthError.WrongCredentials,
         WRONG_CREDENTIALS,
       );
     }
-    if (user.lockedUntil !== null && user.lockedUntil > nowIso()) {
-      await failed('account locked', user);
-      throw lockedError(user.lockedUntil);
-    }
-    if (!(await this.hasher.verify(password, user.passwordHash))) {
-      const lockedUntil = await this.countFailure(user, clientIp);
-      await failed('wrong password', user);
-      if (lockedUntil !== null) throw lockedError(lockedUntil);
-      throw new GyreException(
-        ErrorKind.Unauthenticated,
-        AuthError.WrongCredentials,
-        WRONG_CREDENTIALS,
-      );
+    if (usable.lockedUntil !== null && usable.lockedUntil > nowIso()) {
+      // Only someone who knows the password learns of the lock.
+      const lockedUntil = usable.lockedUntil;
+      await this.writes.run(async (manager) => {
+        await this.throttles.succeeded(manager, admission);
+        await this.audit.record({
+          actor: usable,
+          action: 'sign-in-failed',
+          objectType: 'Session',
+          objectId: usable.id,
+          reason: 'account locked',
+          clientIp,
+        });
+      });
+      throw lockedError(lockedUntil);
     }
     return this.writes.run(async (manager) => {
+      await this.throttles.succeeded(manager, admission);
       const at = nowIso();
       await manager.update(
         User,
-        { id: user.id },
+        { id: usable.id },
         { failedSignIns: 0, lockedUntil: null, lastSignInAt: at },
       );
-      const refresh = await this.refreshTokens.issue(manager, user.id);
+      const refresh = await this.refreshTokens.issue(manager, usable.id);
       await this.audit.record({
-        actor: user,
+        actor: usable,
         action: 'sign-in',
         objectType: 'Session',
-        objectId: user.id,
+        objectId: usable.id,
         clientIp,
       });
-      return { response: this.session({ ...user, lastSignInAt: at }), refresh };
+      return {
+        response: this.session({ ...usable, lastSignInAt: at }, refresh.familyId),
+        refresh,
+      };
     });
   }
 
-  /** Counts one wrong password atomically; returns the lock's end if this one locked it. */
-  private countFailure(user: User, clientIp: string | null): Promise<string | null> {
-    return this.writes.run(async (manager) => {
-      await manager.increment(User, { id: user.id }, 'failedSignIns', 1);
-      const fresh = await manager.findOneByOrFail(User, { id: user.id });
-      if (fresh.failedSignIns < MAX_FAILED_SIGN_INS) return null;
-      const lockedUntil = isoAfter(LOCKOUT_MS);
-      await manager.update(User, { id: user.id }, { failedSignIns: 0, lockedUntil });
+  /** One entry when a delay starts for a scope (not one per refused attempt). */
+  private async recordThrottling(
+    admission: SignInReservation,
+    email: string,
+    user: User | null,
+    clientIp: string | null,
+  ): Promise<void> {
+    for (const started of newlyThrottled(admission)) {
+      const policy = SIGN_IN_THROTTLE_POLICIES[started.scope];
+      const about = started.scope === 'address' ? null : user;
       await this.audit.record({
         actor: null,
-        action: 'account-locked',
-        objectType: 'User',
-        objectId: user.id,
-        studyId: user.studyId,
-        siteId: user.siteId,
-        after: { lockedUntil },
-        reason: `${MAX_FAILED_SIGN_INS} wrong passwords in a row`,
+        action: 'sign-in-throttled',
+        objectType: started.scope === 'address' ? 'Session' : 'User',
+        objectId: about?.id ?? null,
+        studyId: about?.studyId ?? null,
+        siteId: about?.siteId ?? null,
+        after: {
+          scope: started.scope,
+          email: started.scope === 'address' ? null : email,
+          failures: started.failures,
+          nextAttemptAt: started.blockedUntil,
+        },
+        reason: `${THROTTLE_REASON[started.scope]}; further attempts wait, the wait doubling up to ${policy.maxDelayMs / 1000} s`,
         clientIp,
       });
-      return lockedUntil;
-    });
+    }
   }
 
   async refresh(secret: string | null, clientIp: string | null): Promise<IssuedSession> {
@@ -162,6 +206,7 @@ export class AuthService {
       return {
         kind: 'ok' as const,
         user,
+        familyId: rotation.familyId,
         refresh: { secret: rotation.secret, expiresAt: rotation.expiresAt },
       };
     });
@@ -180,7 +225,10 @@ export class AuthService {
         'The account is not active.',
       );
     }
-    return { response: this.session(outcome.user), refresh: outcome.refresh };
+    return {
+      response: this.session(outcome.user, outcome.familyId),
+      refresh: outcome.refresh,
+    };
   }
 
   async signOut(secret: string | null, clientIp: string | null): Promise<void> {
@@ -365,14 +413,30 @@ export class AuthService {
     await this.refreshTokens.revokeAllOfUser(manager, userId, 'password-change');
   }
 
-  private session(user: User): SessionResponse {
+  private session(user: User, familyId: string): SessionResponse {
     return {
-      accessToken: this.accessTokens.issue(user),
+      accessToken: this.accessTokens.issue(user, familyId),
       tokenType: 'Bearer',
       expiresInS: ACCESS_TOKEN_LIFETIME_S,
       user: toUserView(user),
     };
   }
+}
+
+const THROTTLE_REASON: Record<SignInThrottleScope, string> = {
+  pair: 'repeated failed sign-ins to this account from this address',
+  address: 'repeated failed sign-ins from this address',
+  account: 'repeated failed sign-ins to this account from several addresses',
+};
+
+function throttledError(retryAfterMs: number): GyreException {
+  const retryAfterS = retryAfterSeconds(retryAfterMs);
+  return new GyreException(
+    ErrorKind.TooManyRequests,
+    AuthError.SignInThrottled,
+    `Too many failed sign-ins: wait ${retryAfterS} s before trying again.`,
+    { retryAfterS },
+  );
 }
 
 function lockedError(lockedUntil: string): GyreException {

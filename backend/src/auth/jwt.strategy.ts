@@ -3,21 +3,26 @@ import { PassportStrategy } from '@nestjs/passport';
 import { InjectRepository } from '@nestjs/typeorm';
 import { ExtractJwt, Strategy } from 'passport-jwt';
 import { Repository } from 'typeorm';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import { User } from '../users/user.entity';
+import { AuthError } from './auth.errors';
 import { AuthUser } from './auth-user';
 import { ACCESS_TOKEN_AUDIENCE, ACCESS_TOKEN_ISSUER } from './access-tokens.service';
+import { RefreshTokens } from './refresh-tokens.service';
 
 /**
- * Verifies the bearer token (HS256 only: `alg: none` and every other algorithm are refused)
- * and loads the user, so that a deactivation or role change applies at once.
+ * Verifies the bearer token (HS256 only: `alg: none` and every other algorithm are refused),
+ * loads the user and checks that the token's session is still open, so that a deactivation,
+ * role or site change, sign-out, password change or lock applies at the next request.
  */
 @Injectable()
 export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
   constructor(
     @Inject(APP_CONFIG) config: AppConfig,
     @InjectRepository(User) private readonly users: Repository<User>,
+    private readonly refreshTokens: RefreshTokens,
   ) {
     super({
       jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
@@ -32,10 +37,17 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
   /** Returning `false` makes passport answer 401. */
   async validate(payload: unknown): Promise<AuthUser | false> {
     if (typeof payload !== 'object' || payload === null) return false;
-    const { sub, typ } = payload as Record<string, unknown>;
-    if (typeof sub !== 'string' || typ !== 'access') return false;
+    const { sub, sid, typ } = payload as Record<string, unknown>;
+    if (typeof sub !== 'string' || typeof sid !== 'string' || typ !== 'access') return false;
     const user = await this.users.findOneBy({ id: sub });
     if (user === null || user.state !== 'active') return false;
+    if (!(await this.refreshTokens.isLive(this.users.manager, user.id, sid))) {
+      throw new GyreException(
+        ErrorKind.Unauthenticated,
+        AuthError.SessionEnded,
+        'This session has ended (signed out, password or role changed, or account locked): sign in again.',
+      );
+    }
     return {
       id: user.id,
       email: user.email,

@@ -1,4 +1,4 @@
-import { Inject, Injectable } from '@nestjs/common';
+import { Inject, Injectable, OnModuleInit } from '@nestjs/common';
 import { compare, hash } from 'bcryptjs';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
@@ -8,12 +8,17 @@ import { APP_CONFIG } from '../config/config.module';
  * that the suites stay quick on two cores.
  */
 @Injectable()
-export class PasswordHasher {
+export class PasswordHasher implements OnModuleInit {
   readonly cost: number;
   private dummyHash: Promise<string> | null = null;
 
   constructor(@Inject(APP_CONFIG) config: AppConfig) {
     this.cost = config.nodeEnv === 'test' ? 10 : 12;
+  }
+
+  /** Made at start-up, so that the first unknown e-mail does not take a hash longer. */
+  async onModuleInit(): Promise<void> {
+    await this.dummy();
   }
 
   hash(password: string): Promise<string> {
@@ -26,8 +31,12 @@ export class PasswordHasher {
 
   /** Spends the same time as a real check, so that an unknown e-mail cannot be told apart. */
   async verifyAgainstNothing(password: string): Promise<false> {
-    this.dummyHash ??= hash('gyre-unknown-account-placeholder', this.cost);
-    await compare(password, await this.dummyHash);
+    await compare(password, await this.dummy());
     return false;
+  }
+
+  private dummy(): Promise<string> {
+    this.dummyHash ??= hash('gyre-unknown-account-placeholder', this.cost);
+    return this.dummyHash;
   }
 }

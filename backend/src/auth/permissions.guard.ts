@@ -6,6 +6,7 @@ import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { AuthError } from './auth.errors';
 import { GyreRequest } from './auth-user';
 import { REQUIRED_PERMISSION_KEY, RequiredPermission, SIGNED_IN_ONLY_KEY } from './decorators';
+import { aRole, capitalise } from './role-wording';
 
 /**
  * Runs after the sign-in guard: builds the user's CASL ability and checks the route's
@@ -47,7 +48,7 @@ export class PermissionsGuard implements CanActivate {
       throw new GyreException(
         ErrorKind.Forbidden,
         AuthError.Forbidden,
-        `A ${request.user.role} may not ${required.action} ${required.subject}.`,
+        `${capitalise(aRole(request.user.role))} may not ${required.action} ${required.subject}.`,
         { action: required.action, subject: required.subject, role: request.user.role },
       );
     }

@@ -30,4 +30,8 @@ export class RefreshToken {
 
   @Column({ type: 'varchar', nullable: true })
   revokedReason: string | null;
+
+  /** The successor's secret, sealed with this token's secret: see `sealSuccessor`. */
+  @Column({ type: 'varchar', nullable: true })
+  successorSealed: string | null;
 }

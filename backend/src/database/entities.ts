@@ -16,6 +16,7 @@ import { Flag } from '../flags/flag.entity';
 import { Report } from '../reports/report.entity';
 import { ReportRevision } from '../signoff/report-revision.entity';
 import { ReportNotification } from '../signoff/report-notification.entity';
+import { SignInThrottle } from '../auth/sign-in-throttle.entity';
 
 /** Every TypeORM entity, listed once; feature modules add theirs here (append only). */
 // A constructor type rather than `Function`, which the lint rules refuse.
@@ -38,4 +39,5 @@ export const ENTITIES: (new () => object)[] = [
   ReportRevision,
   ReportNotification,
   VisitAnalysisOverride,
+  SignInThrottle,
 ];

@@ -5,6 +5,7 @@ import { EntityManager, FindOptionsWhere, In, Repository } from 'typeorm';
 import { membershipOf, type Page, type Role, type UserView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
+import { aRole } from '../auth/role-wording';
 import { OneTimeTokens } from '../auth/one-time-tokens.service';
 import { RefreshTokens } from '../auth/refresh-tokens.service';
 import { AuditService } from '../audit/audit.service';
@@ -250,12 +251,14 @@ export class UsersService {
       );
     };
     if (kind === 'installation') return { studyId: null, siteId: null };
-    if (studyId === null) return refuse('studyId', `a ${role} must belong to a study`, studyId);
+    if (studyId === null) {
+      return refuse('studyId', `${aRole(role)} must belong to a study`, studyId);
+    }
     if (!(await this.studies.exists(studyId, manager))) {
       return refuse('studyId', `no study ${studyId}`, studyId);
     }
     if (kind === 'study') return { studyId, siteId: null };
-    if (siteId === null) return refuse('siteId', `a ${role} must belong to a site`, siteId);
+    if (siteId === null) return refuse('siteId', `${aRole(role)} must belong to a site`, siteId);
     if (!(await this.sites.existsInStudy(siteId, studyId, manager))) {
       return refuse('siteId', `no site ${siteId} in study ${studyId}`, siteId);
     }

@@ -5,6 +5,7 @@ import { MailOutbox1764633700200 } from './1764633700200-mail-outbox';
 import { RecordingsAndAnalysis1764633800000 } from './1764633800000-recordings-and-analysis';
 import { ReportSignoff1764633900000 } from './1764633900000-report-signoff';
 import { RecordingPipeline1764700000000 } from './1764700000000-recording-pipeline';
+import { SessionRevocation1764700100000 } from './1764700100000-session-revocation';
 
 /** Every migration in order; add new ones at the end (see DEVELOPERS.md). */
 export const MIGRATIONS = [
@@ -15,4 +16,5 @@ export const MIGRATIONS = [
   RecordingsAndAnalysis1764633800000,
   ReportSignoff1764633900000,
   RecordingPipeline1764700000000,
+  SessionRevocation1764700100000,
 ];
