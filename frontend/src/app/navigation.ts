@@ -21,6 +21,12 @@ export const NAV_ENTRIES: readonly NavEntry[] = [
     roles: ['analyst', 'monitor'],
     can: ['read', 'Result'],
   },
+  {
+    path: paths.studySettings,
+    label: 'Study settings',
+    roles: ['analyst', 'monitor'],
+    can: ['read', 'AnalysisSettings'],
+  },
   { path: paths.ledger, label: 'Ledger', roles: ['monitor', 'admin'], can: ['read', 'AuditEntry'] },
   { path: paths.reports, label: 'Reports', roles: ['coordinator'], can: ['read', 'Report'] },
   { path: paths.team, label: 'Team', roles: ['admin'], can: ['update', 'User'] },

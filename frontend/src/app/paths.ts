@@ -13,6 +13,8 @@ export const paths = {
   reports: '/reports',
   /** Signed revisions; `?revision=<id>` opens one (the coordinators' e-mail links here). */
   reportRevisions: '/reports/revisions',
+  /** The study's analysis settings, version by version. */
+  studySettings: '/study-settings',
   team: '/team',
   outbox: '/outbox',
 } as const;

@@ -14,6 +14,7 @@ import { ParticipantsPage } from '../features/participants/components/participan
 import { ReviewPage } from '../features/review/components/review-page';
 import { ReportSignOff } from '../features/signoff/components/report-sign-off';
 import { SignedReportsPage } from '../features/signoff/components/signed-reports-page';
+import { StudySettingsPage } from '../features/study-settings/components/study-settings-page';
 import { OutboxPage } from '../features/team/components/outbox-page';
 import { TeamPage } from '../features/team/components/team-page';
 import { paths } from './paths';
@@ -55,6 +56,12 @@ const SCREENS: ScreenRoute[] = [
     screen: 'Signed report revisions',
     requires: ['read', 'Report'],
     element: <SignedReportsPage />,
+  },
+  {
+    path: paths.studySettings,
+    screen: 'Study settings',
+    requires: ['read', 'AnalysisSettings'],
+    element: <StudySettingsPage />,
   },
   { path: paths.team, screen: 'Team', requires: ['update', 'User'], element: <TeamPage /> },
   {

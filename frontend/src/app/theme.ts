@@ -17,6 +17,9 @@ export const gyreTheme: ThemeConfig = {
   token: {
     colorPrimary: GYRE_COLORS.primary,
     colorInfo: GYRE_COLORS.primary,
+    // antd derives a mid grey from the dark primary for info notices; a light teal tint reads.
+    colorInfoBg: '#EAF2F3',
+    colorInfoBorder: '#BCD2D5',
     colorWarning: GYRE_COLORS.amber,
     colorTextBase: GYRE_COLORS.ink,
     colorBgLayout: GYRE_COLORS.mist,

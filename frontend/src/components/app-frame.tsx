@@ -1,4 +1,4 @@
-import { Layout, Menu, Typography } from 'antd';
+import { Grid, Layout, Menu, Typography } from 'antd';
 import type { MenuProps } from 'antd';
 import { Link, Outlet, useLocation } from 'react-router-dom';
 import { GyreMark } from './gyre-mark';
@@ -18,6 +18,8 @@ export function AppFrame({
   aside?: React.ReactNode;
 }) {
   const location = useLocation();
+  // Below `md` (a phone) the menu takes its own row, so it is never squeezed out by the user menu.
+  const wide = Grid.useBreakpoint().md !== false;
   const selected = navItems
     .filter((item) => location.pathname.startsWith(item.path))
     .map((item) => item.path);
@@ -31,8 +33,11 @@ export function AppFrame({
         style={{
           display: 'flex',
           alignItems: 'center',
-          gap: 24,
+          gap: wide ? 24 : 8,
           borderBottom: '1px solid #DCE5E6',
+          ...(wide
+            ? {}
+            : { flexWrap: 'wrap', height: 'auto', lineHeight: 1.5, padding: '8px 12px 0' }),
         }}
       >
         <Link
@@ -45,13 +50,21 @@ export function AppFrame({
             Gyre
           </Typography.Text>
         </Link>
-        <nav aria-label="Main" style={{ flex: 1, minWidth: 0 }}>
+        <nav
+          aria-label="Main"
+          style={wide ? { flex: 1, minWidth: 0 } : { flex: '1 1 100%', minWidth: 0, order: 3 }}
+        >
           <Menu mode="horizontal" selectedKeys={selected} items={items} style={{ border: 0 }} />
         </nav>
-        {aside}
+        {wide ? aside : <div style={{ marginLeft: 'auto' }}>{aside}</div>}
       </Layout.Header>
       <Layout.Content
-        style={{ padding: '28px 32px', maxWidth: 1440, width: '100%', margin: '0 auto' }}
+        style={{
+          padding: wide ? '28px 32px' : '16px 12px',
+          maxWidth: 1440,
+          width: '100%',
+          margin: '0 auto',
+        }}
       >
         <Outlet />
       </Layout.Content>

@@ -7,6 +7,8 @@ import { useSession } from '../../lib/session/session-context';
 const WHAT_EACH_SCREEN_IS_FOR: Record<string, string> = {
   Intake: 'Register visits and upload resting and task recordings; follow their checks.',
   Participants: 'Participants of the study and the course of their alpha rhythm over visits.',
+  'Study settings':
+    'The analysis settings of the study, every version with what it changed and why.',
   Ledger: 'The audit trail: who changed what, when and why, with its integrity check.',
   Reports: 'Signed visit reports of your site, ready to download.',
   Team: 'Users, roles, sites and invitations.',

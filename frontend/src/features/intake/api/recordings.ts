@@ -1,9 +1,7 @@
+import { SETTLED_RECORDING_STATES } from '@gyre/shared';
 import type { Page, RecordingDto, RecordingState } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
-
-/** States after which a recording changes no more without someone acting. */
-const SETTLED: readonly RecordingState[] = ['ready', 'rejected', 'failed'];
 
 /** How often the list is asked again while a recording is still on its way (ms). */
 export const RECORDINGS_POLL_MS = 1500;
@@ -18,10 +16,10 @@ export function getRecordings(visitId: string): Promise<Page<RecordingDto>> {
 }
 
 export function isSettled(state: RecordingState): boolean {
-  return SETTLED.includes(state);
+  return SETTLED_RECORDING_STATES.includes(state);
 }
 
-/** The visit's recordings, asked again every 1.5 s while any is received, queued or computing. */
+/** The visit's recordings, asked again every 1.5 s while any is still on its way. */
 export function useRecordings(visitId: string | null) {
   return useSWR<Page<RecordingDto>>(
     visitId === null ? null : recordingsKey(visitId),

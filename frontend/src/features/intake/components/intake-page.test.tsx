@@ -1,66 +1,14 @@
-import type { Page, ParticipantView, RecordingDto, VisitView } from '@gyre/shared';
+import type { VisitView } from '@gyre/shared';
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it } from 'vitest';
-import { meFor, SITE, STUDY } from '../../../test/fixtures';
+import { meFor } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
+import { page, participant, recording, useIntakeHandlers, visit } from '../testing/intake-fixtures';
 
 installMswServer();
-
-// Generated test data.
-const participant: ParticipantView = {
-  id: 'p-1',
-  studyId: STUDY.id,
-  siteId: SITE.id,
-  code: 'AC-0042',
-  createdAt: '2025-02-01T10:00:00.000Z',
-  updatedAt: '2025-02-01T10:00:00.000Z',
-};
-const visit: VisitView = {
-  id: 'v-1',
-  participantId: participant.id,
-  studyId: STUDY.id,
-  siteId: SITE.id,
-  label: 'V1',
-  visitDate: '2025-02-03',
-  createdAt: '2025-02-03T10:00:00.000Z',
-  updatedAt: '2025-02-03T10:00:00.000Z',
-};
-const page = <T,>(items: T[]): Page<T> => ({ items, total: items.length, page: 1, pageSize: 200 });
-
-function recording(change: Partial<RecordingDto>): RecordingDto {
-  return {
-    id: 'r-1',
-    studyId: STUDY.id,
-    siteId: SITE.id,
-    participantId: participant.id,
-    visitId: visit.id,
-    kind: 'resting',
-    state: 'ready',
-    checksumSha256: 'a'.repeat(64),
-    sizeBytes: 1_234_567,
-    progressPercent: 100,
-    facts: null,
-    rejection: null,
-    failureMessage: null,
-    latestJob: null,
-    latestRunId: null,
-    uploadedById: 'user-technician',
-    createdAt: '2025-02-03T10:05:00.000Z',
-    updatedAt: '2025-02-03T10:06:00.000Z',
-    ...change,
-  };
-}
-
-function useIntakeHandlers(recordings: () => RecordingDto[]) {
-  server.use(
-    http.get('/api/participants', () => HttpResponse.json(page([participant]))),
-    http.get('/api/visits', () => HttpResponse.json(page([visit]))),
-    http.get('/api/recordings', () => HttpResponse.json(page(recordings()))),
-  );
-}
 
 describe('Intake', () => {
   it('validates the new visit before it is sent: both fields needed, label not taken', async () => {
@@ -174,6 +122,7 @@ describe('Intake', () => {
                 sampleRatesHz: [256, 256, 256],
                 roiChannels: ['O1', 'O2', 'Pz'],
                 annotationCount: 0,
+                stimulusOnsetCount: 0,
                 csvOnsetCount: null,
                 warnings: [],
               },

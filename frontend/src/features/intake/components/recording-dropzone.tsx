@@ -1,29 +1,53 @@
-import type { RecordingKind, RecordingRejection } from '@gyre/shared';
-import { Button, Card, Flex, Form, Progress, Segmented, Typography, Upload } from 'antd';
+import type { KindMismatchDetails, KindTakenDetails, RecordingKind } from '@gyre/shared';
+import { RECORDING_KINDS } from '@gyre/shared';
+import { Button, Card, Flex, Form, Grid, Segmented, Typography, Upload } from 'antd';
 import type { UploadFile, UploadProps } from 'antd';
 import { useState } from 'react';
 import { ApiError } from '../../../lib/api-client';
-import { formatBytes } from '../../../lib/format';
-import { useUploadRecording } from '../api/upload-recording';
-import { RejectionText, rejectionFromDetails } from './rejection-text';
-
-interface UploadItem {
-  uid: string;
-  name: string;
-  sizeBytes: number;
-  kind: RecordingKind;
-  percent: number;
-  status: 'uploading' | 'accepted' | 'rejected' | 'error';
-  rejection?: RecordingRejection;
-  message?: string;
-}
+import { KIND_TAKEN, KIND_UNCONFIRMED, useUploadRecording } from '../api/upload-recording';
+import { rejectionFromDetails } from './rejection-text';
+import { UploadItemView, type UploadItem } from './upload-item';
 
 const EDF_NAME = /\.(edf|rec)$/i;
 const CSV_NAME = /\.csv$/i;
 
+function isKind(value: unknown): value is RecordingKind {
+  return typeof value === 'string' && (RECORDING_KINDS as readonly string[]).includes(value);
+}
+
+/** The details of a 422 `RECORDING_KIND_UNCONFIRMED`, when they have the expected shape. */
+export function kindMismatchOf(
+  details: Record<string, unknown> | null,
+): KindMismatchDetails | null {
+  if (
+    details === null ||
+    !isKind(details.kind) ||
+    typeof details.onsetCount !== 'number' ||
+    typeof details.found !== 'string' ||
+    typeof details.expected !== 'string'
+  ) {
+    return null;
+  }
+  return {
+    kind: details.kind,
+    onsetCount: details.onsetCount,
+    found: details.found,
+    expected: details.expected,
+  };
+}
+
+/** The details of a 409 `RECORDING_KIND_TAKEN`, when they have the expected shape. */
+export function kindTakenOf(details: Record<string, unknown> | null): KindTakenDetails | null {
+  if (details === null || !isKind(details.kind) || typeof details.recordingId !== 'string') {
+    return null;
+  }
+  return { kind: details.kind, recordingId: details.recordingId };
+}
+
 /** Drop one or more EDF/EDF+ files (and, for a task, an onset CSV); each shows its progress. */
 export function RecordingDropzone({ visitId, visitName }: { visitId: string; visitName: string }) {
   const upload = useUploadRecording();
+  const screens = Grid.useBreakpoint();
   const [kind, setKind] = useState<RecordingKind>('resting');
   const [onsets, setOnsets] = useState<UploadFile[]>([]);
   const [items, setItems] = useState<UploadItem[]>([]);
@@ -33,25 +57,81 @@ export function RecordingDropzone({ visitId, visitName }: { visitId: string; vis
 
   const onsetsFile = onsets[0]?.originFileObj ?? null;
 
-  const beforeUpload: UploadProps['beforeUpload'] = (file) => {
-    if (EDF_NAME.test(file.name)) return true;
+  const refuseBeforeSending = (
+    item: Omit<UploadItem, 'file' | 'onsets' | 'confirmKind' | 'replaces' | 'percent' | 'status'>,
+  ) =>
     setItems((all) => [
       {
-        uid: file.uid,
-        name: file.name,
-        sizeBytes: file.size,
-        kind,
+        ...item,
+        file: null,
+        onsets: null,
+        confirmKind: false,
+        replaces: null,
         percent: 0,
         status: 'rejected',
-        rejection: {
-          message: `${file.name} is not an EDF or EDF+ file, so it was not sent.`,
-          field: 'file name',
-          found: file.name.includes('.') ? `.${file.name.split('.').pop() ?? ''}` : 'no extension',
-          expected: '.edf',
-        },
       },
       ...all,
     ]);
+
+  /** Sends (or sends again) one item as it now stands; the answer decides its next status. */
+  const send = (item: UploadItem, controller = new AbortController()) => {
+    if (item.file === null) return;
+    update(item.uid, { ...item, status: 'uploading', percent: 0 });
+    return upload(
+      {
+        visitId,
+        kind: item.kind,
+        file: item.file,
+        onsets: item.kind === 'task' ? item.onsets : null,
+        confirmKind: item.confirmKind,
+        replaces: item.replaces,
+      },
+      { signal: controller.signal, onProgress: ({ percent }) => update(item.uid, { percent }) },
+    ).then(
+      () => update(item.uid, { status: 'accepted', percent: 100 }),
+      (caught: unknown) => {
+        const mismatch =
+          caught instanceof ApiError && caught.code === KIND_UNCONFIRMED
+            ? kindMismatchOf(caught.details)
+            : null;
+        const taken =
+          caught instanceof ApiError && caught.code === KIND_TAKEN
+            ? kindTakenOf(caught.details)
+            : null;
+        if (mismatch !== null && caught instanceof ApiError) {
+          update(item.uid, { status: 'kind-unconfirmed', mismatch, message: caught.message });
+        } else if (taken !== null && caught instanceof ApiError) {
+          update(item.uid, { status: 'kind-taken', taken, message: caught.message });
+        } else if (caught instanceof ApiError && caught.status === 422) {
+          update(item.uid, {
+            status: 'rejected',
+            rejection: rejectionFromDetails(caught.details, caught.message),
+          });
+        } else {
+          update(item.uid, {
+            status: 'error',
+            message: caught instanceof ApiError ? caught.message : 'The upload failed.',
+          });
+        }
+        throw caught;
+      },
+    );
+  };
+
+  const beforeUpload: UploadProps['beforeUpload'] = (file) => {
+    if (EDF_NAME.test(file.name)) return true;
+    refuseBeforeSending({
+      uid: file.uid,
+      name: file.name,
+      sizeBytes: file.size,
+      kind,
+      rejection: {
+        message: `${file.name} is not an EDF or EDF+ file, so it was not sent.`,
+        field: 'file name',
+        found: file.name.includes('.') ? `.${file.name.split('.').pop() ?? ''}` : 'no extension',
+        expected: '.edf',
+      },
+    });
     return Upload.LIST_IGNORE;
   };
 
@@ -62,35 +142,23 @@ export function RecordingDropzone({ visitId, visitName }: { visitId: string; vis
       'uid' in file && typeof file.uid === 'string' ? file.uid : `${file.name}-${Date.now()}`;
     const csv = kind === 'task' ? onsetsFile : null;
     const controller = new AbortController();
-    setItems((all) => [
-      { uid, name: file.name, sizeBytes: file.size, kind, percent: 0, status: 'uploading' },
-      ...all,
-    ]);
-    upload(
-      { visitId, kind, file, onsets: csv },
-      {
-        signal: controller.signal,
-        onProgress: ({ percent }) => update(uid, { percent }),
-      },
-    ).then(
-      (recording) => {
-        update(uid, { status: 'accepted', percent: 100 });
-        options.onSuccess?.(recording);
-      },
-      (caught: unknown) => {
-        if (caught instanceof ApiError && caught.status === 422) {
-          update(uid, {
-            status: 'rejected',
-            rejection: rejectionFromDetails(caught.details, caught.message),
-          });
-        } else {
-          update(uid, {
-            status: 'error',
-            message: caught instanceof ApiError ? caught.message : 'The upload failed.',
-          });
-        }
-        options.onError?.(caught instanceof Error ? caught : new Error(String(caught)));
-      },
+    const item: UploadItem = {
+      uid,
+      name: file.name,
+      sizeBytes: file.size,
+      file,
+      onsets: csv,
+      kind,
+      confirmKind: false,
+      replaces: null,
+      percent: 0,
+      status: 'uploading',
+    };
+    setItems((all) => [item, ...all]);
+    void send(item, controller)?.then(
+      () => options.onSuccess?.(null),
+      (caught: unknown) =>
+        options.onError?.(caught instanceof Error ? caught : new Error(String(caught))),
     );
     // The onset CSV belongs to this one task recording.
     if (csv !== null) setOnsets([]);
@@ -105,6 +173,8 @@ export function RecordingDropzone({ visitId, visitName }: { visitId: string; vis
             <Segmented<RecordingKind>
               value={kind}
               onChange={setKind}
+              // Two long labels do not fit side by side on a phone.
+              orientation={screens.sm === true ? 'horizontal' : 'vertical'}
               options={[
                 { label: 'Resting (eyes closed)', value: 'resting' },
                 { label: 'Task (with stimulus onsets)', value: 'task' },
@@ -123,23 +193,18 @@ export function RecordingDropzone({ visitId, visitName }: { visitId: string; vis
                 fileList={onsets}
                 beforeUpload={(file) => {
                   if (!CSV_NAME.test(file.name)) {
-                    setItems((all) => [
-                      {
-                        uid: file.uid,
-                        name: file.name,
-                        sizeBytes: file.size,
-                        kind,
-                        percent: 0,
-                        status: 'rejected',
-                        rejection: {
-                          message: `${file.name} is not a CSV file, so it was not kept as the onset list.`,
-                          field: 'onset file name',
-                          found: file.name,
-                          expected: 'a name ending in .csv',
-                        },
+                    refuseBeforeSending({
+                      uid: file.uid,
+                      name: file.name,
+                      sizeBytes: file.size,
+                      kind,
+                      rejection: {
+                        message: `${file.name} is not a CSV file, so it was not kept as the onset list.`,
+                        field: 'onset file name',
+                        found: file.name,
+                        expected: 'a name ending in .csv',
                       },
-                      ...all,
-                    ]);
+                    });
                     return Upload.LIST_IGNORE;
                   }
                   return false;
@@ -174,44 +239,13 @@ export function RecordingDropzone({ visitId, visitName }: { visitId: string; vis
       {items.length > 0 && (
         <ul aria-label="Uploads" style={{ listStyle: 'none', padding: 0, margin: '16px 0 0' }}>
           {items.map((item) => (
-            <li
+            <UploadItemView
               key={item.uid}
-              style={{ padding: '10px 0', borderBottom: '1px solid #DCE5E6' }}
-              data-upload-status={item.status}
-            >
-              <Flex justify="space-between" gap={16}>
-                <Typography.Text strong>{item.name}</Typography.Text>
-                <Typography.Text type="secondary" className="gyre-figures">
-                  {item.kind} · {formatBytes(item.sizeBytes)}
-                </Typography.Text>
-              </Flex>
-              {item.status === 'uploading' && (
-                <Progress
-                  percent={Math.round(item.percent)}
-                  size="small"
-                  status="active"
-                  aria-label={`Upload of ${item.name}`}
-                />
-              )}
-              {item.status === 'accepted' && (
-                <Typography.Text type="success">
-                  Received and checked; the computation is queued.
-                </Typography.Text>
-              )}
-              {item.status === 'rejected' && item.rejection !== undefined && (
-                <div role="alert">
-                  <Typography.Text type="danger" strong>
-                    Not accepted.{' '}
-                  </Typography.Text>
-                  <RejectionText rejection={item.rejection} />
-                </div>
-              )}
-              {item.status === 'error' && (
-                <Typography.Text type="danger" role="alert">
-                  {item.message}
-                </Typography.Text>
-              )}
-            </li>
+              item={item}
+              visitId={visitId}
+              onResend={(next) => void send(next)?.catch(() => undefined)}
+              onDismiss={() => update(item.uid, { status: 'dismissed' })}
+            />
           ))}
         </ul>
       )}

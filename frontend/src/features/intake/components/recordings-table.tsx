@@ -1,15 +1,27 @@
 import type { RecordingDto } from '@gyre/shared';
-import { App, Button, Card, Progress, Table, Typography } from 'antd';
+import { App, Button, Card, Flex, Grid, Progress, Table, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
+import { useState } from 'react';
+import { GYRE_COLORS } from '../../../app/theme';
 import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
 import { formatBytes, formatDateTime, formatHz, formatSeconds } from '../../../lib/format';
+import { useDownloadRecording } from '../api/download-recording';
 import { useRecordings } from '../api/recordings';
 import { useRetryRecording } from '../api/retry-recording';
+import { KIND_LABELS } from './kind-labels';
+import { recordingNotes } from './recording-notes';
 import { RecordingStateTag } from './recording-state-tag';
 import { RejectionText } from './rejection-text';
 
-const KIND_LABELS = { resting: 'Resting', task: 'Task' } as const;
+/** States whose stored file can be downloaded (a rejected file is not kept). */
+const DOWNLOADABLE: ReadonlySet<RecordingDto['state']> = new Set([
+  'queued',
+  'computing',
+  'ready',
+  'failed',
+  'superseded',
+]);
 
 function FileFacts({ recording }: { recording: RecordingDto }) {
   const facts = recording.facts;
@@ -18,7 +30,7 @@ function FileFacts({ recording }: { recording: RecordingDto }) {
   }
   const rates = [...new Set(facts.sampleRatesHz)];
   return (
-    <Typography.Text className="gyre-figures">
+    <Typography.Text className="gyre-figures" style={{ color: 'inherit' }}>
       {facts.format} · {formatSeconds(facts.durationS)} · {facts.channelLabels.length} channels ·{' '}
       {rates.map((rate) => formatHz(rate)).join(', ')} · {formatBytes(recording.sizeBytes)}
       {facts.csvOnsetCount !== null && ` · ${facts.csvOnsetCount} onsets from CSV`}
@@ -29,9 +41,62 @@ function FileFacts({ recording }: { recording: RecordingDto }) {
   );
 }
 
-function Progression({ recording }: { recording: RecordingDto }) {
-  if (recording.state === 'queued' || recording.state === 'computing') {
+/** The standing warnings, always in view: the participant may still be in the room. */
+function Notes({ recording }: { recording: RecordingDto }) {
+  const notes = recordingNotes(recording);
+  if (notes.length === 0) return null;
+  return (
+    <ul
+      aria-label={`Warnings about the ${recording.kind} recording`}
+      style={{ margin: '4px 0 0', paddingLeft: 18, color: GYRE_COLORS.amber }}
+    >
+      {notes.map((note) => (
+        <li key={note}>{note}</li>
+      ))}
+    </ul>
+  );
+}
+
+function Replacement({ recording, all }: { recording: RecordingDto; all: RecordingDto[] }) {
+  if (recording.state === 'superseded') {
+    const newer = all.find((r) => r.id === recording.supersededById) ?? null;
     return (
+      <Typography.Text type="secondary">
+        Replaced
+        {newer !== null && (
+          <>
+            {' '}
+            by the upload of <span className="gyre-figures">{formatDateTime(newer.createdAt)}</span>
+          </>
+        )}
+        {newer?.replacementReason ? <>: “{newer.replacementReason}”.</> : '.'} Kept for the record;
+        never computed again.
+      </Typography.Text>
+    );
+  }
+  if (recording.replacesId === null) return null;
+  const earlier = all.find((r) => r.id === recording.replacesId) ?? null;
+  return (
+    <div>
+      <Typography.Text>
+        Replaces{' '}
+        {earlier === null ? (
+          'an earlier upload'
+        ) : (
+          <>
+            the upload of <span className="gyre-figures">{formatDateTime(earlier.createdAt)}</span>
+          </>
+        )}
+        {recording.replacementReason ? <>: “{recording.replacementReason}”.</> : '.'}
+      </Typography.Text>
+    </div>
+  );
+}
+
+function Progression({ recording, all }: { recording: RecordingDto; all: RecordingDto[] }) {
+  let main: React.ReactNode = null;
+  if (recording.state === 'queued' || recording.state === 'computing') {
+    main = (
       <Progress
         percent={Math.round(recording.progressPercent ?? 0)}
         size="small"
@@ -39,82 +104,156 @@ function Progression({ recording }: { recording: RecordingDto }) {
         aria-label={`Computation progress of the ${recording.kind} recording`}
       />
     );
-  }
-  if (recording.state === 'rejected' && recording.rejection !== null) {
+  } else if (recording.state === 'received' || recording.state === 'validating') {
+    main = <Typography.Text type="secondary">The file is being checked.</Typography.Text>;
+  } else if (recording.state === 'rejected' && recording.rejection !== null) {
     return <RejectionText rejection={recording.rejection} />;
-  }
-  if (recording.state === 'failed') {
-    return (
+  } else if (recording.state === 'failed') {
+    main = (
       <Typography.Text>{recording.failureMessage ?? 'The computation stopped.'}</Typography.Text>
     );
+  } else if (recording.state === 'superseded') {
+    return <Replacement recording={recording} all={all} />;
   }
-  if (
-    recording.state === 'ready' &&
-    recording.facts !== null &&
-    recording.facts.warnings.length > 0
-  ) {
-    return (
-      <Typography.Text style={{ color: '#C77C02' }}>
-        {recording.facts.warnings.join(' ')}
-      </Typography.Text>
-    );
-  }
-  return null;
+  return (
+    <>
+      {main}
+      <Replacement recording={recording} all={all} />
+      <Notes recording={recording} />
+    </>
+  );
 }
 
 /** The visit's recordings with their state, asked again while any is on its way. */
 export function RecordingsTable({ visitId }: { visitId: string }) {
   const { data, error, isLoading, mutate } = useRecordings(visitId);
   const retry = useRetryRecording();
+  const download = useDownloadRecording();
+  const [downloading, setDownloading] = useState<string | null>(null);
   const { message } = App.useApp();
+  const screens = Grid.useBreakpoint();
+  const all = data?.items ?? [];
+  // Below `lg` the upload time moves under the kind, so a narrow screen still tells them apart.
+  const wide = screens.lg === true;
 
-  const columns: TableColumnsType<RecordingDto> = [
-    {
-      title: 'Kind',
-      dataIndex: 'kind',
-      width: 90,
-      render: (kind: RecordingDto['kind']) => KIND_LABELS[kind],
-    },
-    { title: 'File', key: 'facts', render: (_, recording) => <FileFacts recording={recording} /> },
-    {
-      title: 'State',
-      dataIndex: 'state',
-      width: 110,
-      render: (state: RecordingDto['state']) => <RecordingStateTag state={state} />,
-    },
-    {
-      title: 'Progress or reason',
-      key: 'progress',
-      width: 340,
-      render: (_, recording) => <Progression recording={recording} />,
-    },
-    {
-      title: 'Uploaded',
-      dataIndex: 'createdAt',
-      width: 180,
-      render: (at: string) => <span className="gyre-figures">{formatDateTime(at)}</span>,
-    },
-    {
-      title: '',
-      key: 'actions',
-      width: 90,
-      render: (_, recording) =>
-        recording.state === 'failed' ? (
-          <Button
-            size="small"
-            onClick={() =>
-              void retry(recording).then(
-                () => message.success('The computation is queued again.'),
-                (caught: unknown) =>
-                  message.error(caught instanceof ApiError ? caught.message : 'Retry failed.'),
-              )
-            }
-          >
-            Retry
-          </Button>
-        ) : null,
-    },
-  ];
+  const startDownload = async (recording: RecordingDto) => {
+    setDownloading(recording.id);
+    try {
+      await download(recording);
+    } catch (caught) {
+      message.error(
+        caught instanceof ApiError ? caught.message : 'The file could not be downloaded.',
+      );
+    } finally {
+      setDownloading(null);
+    }
+  };
+
+  const actions = (recording: RecordingDto, direction: 'row' | 'column') => (
+    <Flex vertical={direction === 'column'} gap={6} align="flex-start">
+      {DOWNLOADABLE.has(recording.state) && (
+        <Button
+          size="small"
+          loading={downloading === recording.id}
+          aria-label={`Download the ${recording.state === 'superseded' ? 'superseded ' : ''}${recording.kind} recording uploaded ${formatDateTime(recording.createdAt)}`}
+          onClick={() => void startDownload(recording)}
+        >
+          Download
+        </Button>
+      )}
+      {recording.state === 'failed' && (
+        <Button
+          size="small"
+          onClick={() =>
+            void retry(recording).then(
+              () => message.success('The computation is queued again.'),
+              (caught: unknown) =>
+                message.error(caught instanceof ApiError ? caught.message : 'Retry failed.'),
+            )
+          }
+        >
+          Retry
+        </Button>
+      )}
+    </Flex>
+  );
+
+  const kindAndState = (recording: RecordingDto) => (
+    <>
+      <Typography.Text strong style={{ color: 'inherit' }}>
+        {KIND_LABELS[recording.kind]}
+      </Typography.Text>
+      <RecordingStateTag recording={recording} />
+    </>
+  );
+
+  // A phone gets one column per recording, its words at full width; wider screens a table.
+  const columns: TableColumnsType<RecordingDto> =
+    screens.md === false
+      ? [
+          {
+            title: 'Recordings',
+            key: 'recording',
+            render: (_, recording) => (
+              <Flex vertical gap={6}>
+                <Flex justify="space-between" align="center" gap={8} wrap>
+                  <Flex gap={8} align="center" wrap>
+                    {kindAndState(recording)}
+                  </Flex>
+                  {actions(recording, 'row')}
+                </Flex>
+                <Typography.Text type="secondary" className="gyre-figures" style={{ fontSize: 12 }}>
+                  Uploaded {formatDateTime(recording.createdAt)}
+                </Typography.Text>
+                <Progression recording={recording} all={all} />
+              </Flex>
+            ),
+          },
+        ]
+      : [
+          {
+            title: 'Recording',
+            key: 'recording',
+            width: 150,
+            render: (_, recording) => (
+              <Flex vertical gap={4} align="flex-start">
+                {kindAndState(recording)}
+                {!wide && (
+                  <Typography.Text
+                    type="secondary"
+                    className="gyre-figures"
+                    style={{ fontSize: 12 }}
+                  >
+                    {formatDateTime(recording.createdAt)}
+                  </Typography.Text>
+                )}
+              </Flex>
+            ),
+          },
+          {
+            title: 'File',
+            key: 'facts',
+            render: (_, recording) => <FileFacts recording={recording} />,
+          },
+          {
+            title: 'Progress, warnings or reason',
+            key: 'progress',
+            render: (_, recording) => <Progression recording={recording} all={all} />,
+          },
+          {
+            title: 'Uploaded',
+            dataIndex: 'createdAt',
+            width: 180,
+            responsive: ['lg'],
+            render: (at: string) => <span className="gyre-figures">{formatDateTime(at)}</span>,
+          },
+          {
+            title: '',
+            key: 'actions',
+            width: 110,
+            render: (_, recording) => actions(recording, 'column'),
+          },
+        ];
 
   return (
     <Card title="Recordings of this visit">
@@ -127,11 +266,17 @@ export function RecordingsTable({ visitId }: { visitId: string }) {
       ) : (
         <Table<RecordingDto>
           rowKey="id"
-          size="middle"
+          size={wide ? 'middle' : 'small'}
           loading={isLoading && data !== undefined}
           columns={columns}
-          dataSource={data?.items ?? []}
+          dataSource={all}
           pagination={false}
+          // A superseded recording stays listed for the record, but set back.
+          onRow={(recording) =>
+            recording.state === 'superseded'
+              ? { style: { background: GYRE_COLORS.mist, color: 'rgba(29, 43, 47, 0.6)' } }
+              : {}
+          }
           locale={{
             emptyText: isLoading ? (
               <TableSkeleton />

@@ -1,3 +1,4 @@
+import { SETTLED_RECORDING_STATES } from '@gyre/shared';
 import type { Page, RecordingDto } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
@@ -11,8 +12,7 @@ export async function getVisitRecordings(visitId: string): Promise<RecordingDto[
   return page.items;
 }
 
-const inProgress = (r: RecordingDto) =>
-  r.state === 'received' || r.state === 'queued' || r.state === 'computing';
+const inProgress = (r: RecordingDto) => !SETTLED_RECORDING_STATES.includes(r.state);
 
 /** Polls while a recording is still on its way to `ready`, so a re-run shows up by itself. */
 export function useVisitRecordings(visitId: string) {

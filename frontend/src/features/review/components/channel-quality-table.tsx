@@ -24,6 +24,8 @@ export function ChannelQualityTable({
       dataSource={channels}
       pagination={channels.length > 20 ? { pageSize: 20, showSizeChanger: false } : false}
       showSorterTooltip={false}
+      // Too many columns for a phone: the table scrolls sideways instead of squeezing.
+      scroll={{ x: 'max-content' }}
       locale={{ emptyText: 'No channel checks.' }}
       columns={[
         {

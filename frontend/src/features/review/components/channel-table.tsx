@@ -1,7 +1,16 @@
-import type { ChannelStatsDto } from '@gyre/shared';
-import { Table, Tag } from 'antd';
+import type { ChannelStatsDto, RoiUsageDto } from '@gyre/shared';
+import { Alert, Table, Tag } from 'antd';
 import type { TableColumnsType } from 'antd';
+import { GYRE_COLORS } from '../../../app/theme';
 import { formatHz } from '../../../lib/format';
+import {
+  NO_ROI_CHANNEL_REMAINS,
+  leftOutText,
+  omissionOf,
+  omissionWords,
+  roiUsageSentence,
+  usedInRoi,
+} from '../../../lib/roi-usage';
 
 /** p-values to three decimals, and "< 0.001" below that (common practice in reporting). */
 export function formatPValue(value: number | null): string {
@@ -25,25 +34,64 @@ function byNumber(pick: (row: ChannelStatsDto) => number | null) {
   };
 }
 
-/** Per-channel onset results of the task recording; every column sorts. */
-export function ChannelTable({ channels }: { channels: ChannelStatsDto[] }) {
+/** Which region-of-interest channels the numbers come from, above the table. */
+function RoiCaption({ usage }: { usage: RoiUsageDto }) {
+  if (usage.status === 'complete') return null;
+  return (
+    <Alert
+      type="warning"
+      showIcon
+      style={{ marginBottom: 12 }}
+      aria-label="Region of interest of this table"
+      title={
+        usage.status === 'none'
+          ? `${NO_ROI_CHANNEL_REMAINS}: no channel below is averaged into a region-of-interest result.`
+          : roiUsageSentence(usage)
+      }
+      description={
+        usage.status === 'none' && usage.leftOut.length > 0
+          ? `Left out: ${leftOutText(usage.leftOut)}.`
+          : undefined
+      }
+    />
+  );
+}
+
+/**
+ * Per-channel onset results of the task recording; every column sorts. The ROI badge marks
+ * only the channels the run averaged; a region channel it left out says why.
+ */
+export function ChannelTable({
+  channels,
+  roiUsage,
+}: {
+  channels: ChannelStatsDto[];
+  roiUsage: RoiUsageDto;
+}) {
   const name: TableColumnsType<ChannelStatsDto>[number] = {
     title: 'Channel',
     key: 'label',
     sorter: (a, b) => (a.canonical ?? a.label).localeCompare(b.canonical ?? b.label),
-    render: (_, row) => (
-      <span>
-        {row.canonical ?? row.label}
-        {row.canonical !== null && row.canonical !== row.label ? (
-          <span style={{ color: 'rgba(29,43,47,0.55)', marginLeft: 6 }}>({row.label})</span>
-        ) : null}
-        {row.inRoi ? (
-          <Tag color="#24525A" style={{ marginLeft: 8 }}>
-            ROI
-          </Tag>
-        ) : null}
-      </span>
-    ),
+    render: (_, row) => {
+      const omission = omissionOf(roiUsage, row.label, row.canonical);
+      return (
+        <span>
+          {row.canonical ?? row.label}
+          {row.canonical !== null && row.canonical !== row.label ? (
+            <span style={{ color: 'rgba(29,43,47,0.55)', marginLeft: 6 }}>({row.label})</span>
+          ) : null}
+          {usedInRoi(roiUsage, row.label, row.canonical) ? (
+            <Tag color={GYRE_COLORS.primary} style={{ marginLeft: 8 }}>
+              ROI
+            </Tag>
+          ) : omission !== null ? (
+            <Tag color={GYRE_COLORS.amber} style={{ marginLeft: 8 }}>
+              left out of ROI: {omissionWords(omission.reason)}
+            </Tag>
+          ) : null}
+        </span>
+      );
+    },
   };
   const hzColumn = (
     title: string,
@@ -86,15 +134,20 @@ export function ChannelTable({ channels }: { channels: ChannelStatsDto[] }) {
     },
   ];
   return (
-    <Table<ChannelStatsDto>
-      aria-label="Per-channel task results"
-      rowKey="label"
-      size="small"
-      columns={columns}
-      dataSource={channels}
-      pagination={channels.length > 20 ? { pageSize: 20, showSizeChanger: false } : false}
-      showSorterTooltip={false}
-      locale={{ emptyText: 'No channel results.' }}
-    />
+    <>
+      <RoiCaption usage={roiUsage} />
+      <Table<ChannelStatsDto>
+        aria-label="Per-channel task results"
+        rowKey="label"
+        size="small"
+        columns={columns}
+        dataSource={channels}
+        pagination={channels.length > 20 ? { pageSize: 20, showSizeChanger: false } : false}
+        showSorterTooltip={false}
+        // Seven columns do not fit a phone: the table scrolls sideways instead of squeezing.
+        scroll={{ x: 'max-content' }}
+        locale={{ emptyText: 'No channel results.' }}
+      />
+    </>
   );
 }

@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
 import { ApiError } from '../../../lib/api-client';
 import { formatDateTime, formatHz } from '../../../lib/format';
+import { NO_ROI_CHANNEL_REMAINS, leftOutText, roiUsageSentence } from '../../../lib/roi-usage';
 import { formatCi } from './channel-table';
 
 export const FLAG_REASON_MIN_LENGTH = 10;
@@ -11,9 +12,17 @@ export const FLAG_REASON_MIN_LENGTH = 10;
 /** What the computation proposes, in words; it never raises a flag by itself. */
 function SuggestionBox({ suggestion }: { suggestion: FlagSuggestion | null }) {
   let text: string;
+  let roiNote: string | null = null;
   if (suggestion === null) {
     text = 'No task result yet, so the computation has nothing to suggest.';
+  } else if (suggestion.roiUsage.status === 'none') {
+    text = `${NO_ROI_CHANNEL_REMAINS}, so the computation has nothing to suggest.`;
+    roiNote =
+      suggestion.roiUsage.leftOut.length === 0
+        ? null
+        : `Left out: ${leftOutText(suggestion.roiUsage.leftOut)}.`;
   } else {
+    roiNote = roiUsageSentence(suggestion.roiUsage);
     const numbers = `ROI Δf ${formatHz(suggestion.roiDeltaFHz)}, 95 % CI ${formatCi(suggestion.roiCiHz)}; study threshold ${formatHz(suggestion.flagThresholdHz)}.`;
     text = suggestion.suggestsSlowing
       ? `Suggests a slowing flag: the change is at or below the threshold and its interval excludes 0. ${numbers}`
@@ -35,6 +44,11 @@ function SuggestionBox({ suggestion }: { suggestion: FlagSuggestion | null }) {
       <div className="gyre-figures" style={{ marginTop: 4 }}>
         {text}
       </div>
+      {roiNote !== null && (
+        <div style={{ marginTop: 4, color: GYRE_COLORS.amber }} data-testid="suggestion-roi">
+          {roiNote}
+        </div>
+      )}
     </section>
   );
 }

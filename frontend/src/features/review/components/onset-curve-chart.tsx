@@ -3,6 +3,7 @@ import { Flex, Select, Typography } from 'antd';
 import { useMemo, useState } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
 import { formatHz } from '../../../lib/format';
+import { NO_ROI_CHANNEL_REMAINS } from '../../../lib/roi-usage';
 import {
   BASELINE_COLOUR,
   MEAN_COLOUR,
@@ -45,8 +46,19 @@ function Swatch({
 }
 
 /** The onset curve of the region of interest, or of one channel the analyst picks. */
-export function OnsetCurveChart({ task, roiLabel }: { task: TaskResultsDto; roiLabel: string }) {
-  const [series, setSeries] = useState<string>(ROI);
+export function OnsetCurveChart({
+  task,
+  roiLabel,
+  roiAvailable = true,
+}: {
+  task: TaskResultsDto;
+  roiLabel: string;
+  /** False when no region-of-interest channel remains: the channels' curves only. */
+  roiAvailable?: boolean;
+}) {
+  const [series, setSeries] = useState<string>(
+    roiAvailable ? ROI : (task.channels[0]?.name ?? ROI),
+  );
   const curve =
     series === ROI ? task.roi : (task.channels.find((c) => c.name === series) ?? task.roi);
   const seriesName = series === ROI ? `Mean, ${roiLabel}` : `Mean, ${curve.name}`;
@@ -92,7 +104,13 @@ export function OnsetCurveChart({ task, roiLabel }: { task: TaskResultsDto; roiL
           onChange={setSeries}
           style={{ minWidth: 200 }}
           options={[
-            { value: ROI, label: `Region of interest (${roiLabel})` },
+            roiAvailable
+              ? { value: ROI, label: `Region of interest (${roiLabel})` }
+              : {
+                  value: ROI,
+                  label: `Region of interest: ${NO_ROI_CHANNEL_REMAINS}`,
+                  disabled: true,
+                },
             ...task.channels.map((c) => ({ value: c.name, label: c.name })),
           ]}
         />

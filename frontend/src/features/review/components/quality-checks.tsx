@@ -1,4 +1,4 @@
-import type { QualityDto } from '@gyre/shared';
+import type { QualityDto, RoiUsageDto } from '@gyre/shared';
 import { Alert, Flex, Table, Tag } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
 import { ChannelQualityTable } from './channel-quality-table';
@@ -8,11 +8,13 @@ import { qualityFindings, type QualityFinding } from './quality-findings';
 export function QualityChecks({
   quality,
   kind,
+  roiUsage,
 }: {
   quality: QualityDto;
   kind: 'task' | 'resting';
+  roiUsage?: RoiUsageDto;
 }) {
-  const findings = qualityFindings(quality, kind);
+  const findings = qualityFindings(quality, kind, roiUsage);
   const warnings = [
     ...quality.warnings,
     ...findings.flatMap((f) => (f.warning === null ? [] : [f.warning])),

@@ -39,3 +39,32 @@ describe('qualityFindings: line noise', () => {
     expect(lineNoise({ ...clean, lineNoiseRatio50Hz: 9.99 })?.warning).toBeNull();
   });
 });
+
+describe('qualityFindings: region of interest', () => {
+  const used = (roiUsage: Parameters<typeof qualityFindings>[2]) =>
+    qualityFindings(clean, 'task', roiUsage).find(
+      (f) => f.check === 'Region-of-interest channels used',
+    );
+
+  it('warns when channels were found but none was used', () => {
+    const finding = used({
+      wanted: ['O1', 'O2'],
+      used: [],
+      leftOut: [
+        { label: 'O1', reason: 'flat' },
+        { label: 'O2', reason: 'sample-rate' },
+      ],
+      status: 'none',
+    });
+    expect(finding?.value).toBe('none');
+    expect(finding?.warning).toBe(
+      'No region-of-interest channel remains: O1 (flat), O2 (another sampling rate).',
+    );
+  });
+
+  it('says nothing more when every wanted channel was used', () => {
+    const finding = used({ wanted: ['O1'], used: ['O1'], leftOut: [], status: 'complete' });
+    expect(finding?.value).toBe('O1');
+    expect(finding?.warning).toBeNull();
+  });
+});

@@ -1,4 +1,5 @@
-import type { QualityDto } from '@gyre/shared';
+import type { QualityDto, RoiUsageDto } from '@gyre/shared';
+import { NO_ROI_CHANNEL_REMAINS, roiUsageSentence } from '../../../lib/roi-usage';
 
 export interface QualityFinding {
   check: string;
@@ -35,7 +36,12 @@ function lineNoiseWarning(quality: QualityDto): string | null {
  * warning are common practice for reviewing alpha recordings, not published rules; the
  * server's own warnings are shown beside these, word for word.
  */
-export function qualityFindings(quality: QualityDto, kind: 'task' | 'resting'): QualityFinding[] {
+export function qualityFindings(
+  quality: QualityDto,
+  kind: 'task' | 'resting',
+  /** The run's region-of-interest usage: what was found is not always what was used. */
+  roiUsage?: RoiUsageDto,
+): QualityFinding[] {
   const minutes = quality.durationS / 60;
   const findings: QualityFinding[] = [
     {
@@ -63,11 +69,22 @@ export function qualityFindings(quality: QualityDto, kind: 'task' | 'resting'): 
           : ` (missing: ${list(quality.roiChannelsMissing)})`),
       warning:
         quality.roiChannelsFound.length === 0
-          ? 'None of the region-of-interest channels is in the file, so there is no ROI result.'
+          ? `${NO_ROI_CHANNEL_REMAINS}: none of them is in the file, so there is no ROI result.`
           : quality.roiChannelsFound.length < 3
             ? `Only ${quality.roiChannelsFound.length} region-of-interest channel(s) found; the ROI average is fragile.`
             : null,
     },
+    ...(roiUsage === undefined
+      ? []
+      : [
+          {
+            check: 'Region-of-interest channels used',
+            value: roiUsage.used.length === 0 ? 'none' : list(roiUsage.used),
+            warning:
+              // A file without any region channel is already said above.
+              quality.roiChannelsFound.length === 0 ? null : roiUsageSentence(roiUsage),
+          },
+        ]),
     {
       check: 'Flat channels',
       value: quality.flatChannels.length === 0 ? 'none' : list(quality.flatChannels),

@@ -5,6 +5,8 @@ import { Alert, Progress } from 'antd';
 export function RecordingStateNotice({ recording }: { recording: RecordingDto }) {
   switch (recording.state) {
     case 'received':
+    case 'validating':
+      return <Alert type="info" showIcon title="The file is being checked." />;
     case 'queued':
       return <Alert type="info" showIcon title="Waiting for its turn to be computed." />;
     case 'computing':
@@ -29,6 +31,14 @@ export function RecordingStateNotice({ recording }: { recording: RecordingDto })
           showIcon
           title="The file was rejected at upload."
           description={recording.rejection?.message ?? 'No reason was recorded.'}
+        />
+      );
+    case 'superseded':
+      return (
+        <Alert
+          type="info"
+          showIcon
+          title="Superseded: a newer recording of this kind replaced it."
         />
       );
     case 'ready':

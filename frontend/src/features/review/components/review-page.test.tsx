@@ -1,23 +1,14 @@
-import type { ReportSignOffDto, Role } from '@gyre/shared';
-import { SIGNATURE_MEANING } from '@gyre/shared';
+import type { Role } from '@gyre/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it, vi } from 'vitest';
 import { installCanvasMock } from '../../../components/charts/testing/canvas-mock';
-import { meFor, STUDY } from '../../../test/fixtures';
+import { meFor } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
-import {
-  NO_FLAG,
-  PARTICIPANT,
-  RECORDINGS,
-  REPORT,
-  REST_RESULTS,
-  SETTINGS,
-  TASK_RESULTS,
-  VISIT,
-} from '../testing/review-fixtures';
+import { NO_FLAG, PARTICIPANT, VISIT } from '../testing/review-fixtures';
+import { serveReview } from '../testing/serve-review';
 
 // jsdom has no canvas for the chart library: a stand-in shows which marks would be drawn.
 vi.mock(
@@ -30,32 +21,7 @@ const canvas = installCanvasMock();
 
 /** Handlers for one visit; `keepFlag` leaves a test's own flag handler in front. */
 function serveVisit(keepFlag = false) {
-  if (!keepFlag)
-    server.use(http.get(`/api/visits/${VISIT.id}/flag`, () => HttpResponse.json(NO_FLAG)));
-  server.use(
-    http.get(`/api/visits/${VISIT.id}`, () => HttpResponse.json(VISIT)),
-    http.get(`/api/participants/${PARTICIPANT.id}`, () => HttpResponse.json(PARTICIPANT)),
-    http.get('/api/recordings', ({ request }) => {
-      expect(new URL(request.url).searchParams.get('visitId')).toBe(VISIT.id);
-      return HttpResponse.json({ items: RECORDINGS, total: 2, page: 1, pageSize: 200 });
-    }),
-    http.get('/api/recordings/rec-task/results', () => HttpResponse.json(TASK_RESULTS)),
-    http.get('/api/recordings/rec-resting/results', () => HttpResponse.json(REST_RESULTS)),
-    http.get(`/api/studies/${STUDY.id}/analysis-settings`, () => HttpResponse.json(SETTINGS)),
-    http.get(`/api/visits/${VISIT.id}/report`, () => HttpResponse.json(REPORT)),
-    // The report card's sign-off panel (features/signoff): a draft nobody has signed yet.
-    http.get(`/api/visits/${VISIT.id}/report/sign-off`, () =>
-      HttpResponse.json({
-        report: REPORT,
-        meaning: SIGNATURE_MEANING,
-        draftFingerprint: 'f'.repeat(64),
-        pendingRevision: 1,
-        canSign: true,
-        cannotSignReason: null,
-        revisions: [],
-      } satisfies ReportSignOffDto),
-    ),
-  );
+  serveReview(keepFlag ? { flag: null } : {});
 }
 
 async function openReview(role: Role, options: { keepFlag?: boolean } = {}) {
@@ -96,14 +62,35 @@ describe('Review', { timeout: 60_000 }, () => {
     expect(screen.getByText('Report: draft')).toBeInTheDocument();
   });
 
-  it('gives the analyst the flag and settings forms, with the suggestion apart from the decision', async () => {
+  it("gives the analyst the flag form and the visit's own choices, but no study-wide settings form", async () => {
     await openReview('analyst');
     const suggestion = screen.getByRole('region', { name: "Computation's suggestion" });
     expect(suggestion).toHaveTextContent('Suggests a slowing flag');
     const decision = screen.getByRole('region', { name: "Analyst's decision" });
     expect(decision).toHaveTextContent('No slowing flag has been raised');
     expect(screen.getByRole('button', { name: 'Raise a slowing flag' })).toBeInTheDocument();
-    expect(screen.getByRole('button', { name: 'Save version 2 and re-run' })).toBeInTheDocument();
+    const choices = screen.getByLabelText('Visit analysis choices');
+    expect(
+      await within(choices).findByText(
+        "This visit uses the study's settings (version 1): no choices of its own.",
+      ),
+    ).toBeInTheDocument();
+    expect(
+      within(choices).getByRole('button', { name: "Change this visit's choices" }),
+    ).toBeInTheDocument();
+    // The study-wide settings live on their own screen now.
+    expect(within(choices).getByRole('link', { name: 'Study settings' })).toHaveAttribute(
+      'href',
+      '/study-settings',
+    );
+    expect(screen.queryByRole('form', { name: 'Analysis settings' })).not.toBeInTheDocument();
+    // Every number says where it comes from, and nothing here is doubtful.
+    expect(screen.getByTestId('source-task')).toHaveTextContent(
+      'Task: the recording uploaded 3 Feb 2025, 10:00:00 (SHA-256 c0ffeec0ffee…), computed 3 Feb 2025, 10:05:00 after upload, settings version 1.',
+    );
+    expect(screen.queryByText(/left out/i)).not.toBeInTheDocument();
+    expect(screen.queryByText(/No region-of-interest channel remains/)).not.toBeInTheDocument();
+    expect(screen.queryByText(/Computed with older settings/)).not.toBeInTheDocument();
   });
 
   it('shows the monitor the same results read-only: no flag form, no settings form', async () => {
@@ -139,8 +126,15 @@ describe('Review', { timeout: 60_000 }, () => {
     expect(screen.queryByRole('form', { name: 'Analysis settings' })).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: /re-run/i })).not.toBeInTheDocument();
     expect(screen.queryByRole('textbox')).not.toBeInTheDocument();
-    // The read-only summary names the settings in force.
-    expect(screen.getByText('Defaults written by Gyre')).toBeInTheDocument();
+    // The read-only card says which settings are in force, without a way to change them.
+    expect(
+      await screen.findByText(
+        "This visit uses the study's settings (version 1): no choices of its own.",
+      ),
+    ).toBeInTheDocument();
+    expect(
+      screen.queryByRole('button', { name: "Change this visit's choices" }),
+    ).not.toBeInTheDocument();
   });
 
   it('raises a flag with the reason and shows the decision the server answers', async () => {

@@ -1,44 +1,53 @@
-import type {
-  AnalysisSettingsChange,
-  AnalysisSettingsDto,
-  RecordingDto,
-  RecordingKind,
-  RecordingResultsDto,
-} from '@gyre/shared';
-import { Alert, Button, Card, Col, Descriptions, Flex, Row, Skeleton, Tabs, Tag } from 'antd';
-import { useEffect } from 'react';
+import type { RecordingDto, RecordingKind, RecordingResultsDto } from '@gyre/shared';
+import { Alert, App, Button, Card, Col, Descriptions, Flex, Row, Skeleton, Tabs, Tag } from 'antd';
+import { useEffect, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { PageHeader } from '../../../components/page-header';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
-import { formatDate, formatHz } from '../../../lib/format';
+import { formatDate } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
 import { useClearFlag } from '../api/clear-flag';
-import { useCreateAnalysisSettings } from '../api/create-analysis-settings';
 import { useAnalysisSettings } from '../api/get-analysis-settings';
 import { useParticipant } from '../api/get-participant';
-import { useRecordingResults } from '../api/get-recording-results';
 import { useVisit } from '../api/get-visit';
 import { useVisitFlag } from '../api/get-visit-flag';
+import { useVisitOverride } from '../api/get-visit-override';
 import { useVisitRecordings } from '../api/get-visit-recordings';
 import { useVisitReport } from '../api/get-visit-report';
 import { useRaiseFlag } from '../api/raise-flag';
-import { useRerunRecording } from '../api/rerun-recording';
-import { useRerunVisit } from '../api/rerun-visit';
+import { useSaveVisitOverride } from '../api/save-visit-override';
+import { channelOptionsOf } from './channel-names';
 import { ChannelTable } from './channel-table';
 import { FlagPanel } from './flag-panel';
-import { PersonName } from './person-name';
 import { OnsetCurveChart } from './onset-curve-chart';
+import { OverrideCard } from './override-card';
+import { OverrideForm } from './override-form';
+import { PersonName } from './person-name';
 import { QualityChecks } from './quality-checks';
 import { RecordingStateNotice } from './recording-state-notice';
 import { RestSpectrumChart } from './rest-spectrum-chart';
+import { RunNotices } from './run-notices';
 import { RunSummary } from './run-summary';
-import { SettingsForm } from './settings-form';
+import { IN_PROGRESS, useShownResults } from './shown-results';
 import { TrialRaster } from './trial-raster';
+import { VisitSources } from './visit-sources';
 
-/** The recording of a kind that Review shows: the newest that was not rejected, else the newest. */
+/** A visit's current recording of a kind: the one a newer upload has not replaced. */
+const CURRENT: ReadonlySet<RecordingDto['state']> = new Set([
+  'queued',
+  'computing',
+  'ready',
+  'failed',
+]);
+
+/**
+ * The recording of a kind that Review shows: the newest current one, else the newest still
+ * being checked, else the newest (a rejected file, to say why). Never a superseded one while
+ * another exists.
+ */
 export function recordingOfKind(
   recordings: RecordingDto[],
   kind: RecordingKind,
@@ -46,52 +55,19 @@ export function recordingOfKind(
   const ofKind = recordings
     .filter((r) => r.kind === kind)
     .sort((a, b) => b.createdAt.localeCompare(a.createdAt));
-  return ofKind.find((r) => r.state !== 'rejected') ?? ofKind[0] ?? null;
-}
-
-function roiLabelOf(results: RecordingResultsDto | undefined): string {
-  const found = results?.quality.roiChannelsFound ?? [];
-  return found.length === 0 ? 'ROI' : `ROI: ${found.join(', ')}`;
-}
-
-function StaleNotice({
-  results,
-  current,
-  recording,
-  canRerun,
-}: {
-  results: RecordingResultsDto;
-  current: AnalysisSettingsDto | undefined;
-  recording: RecordingDto;
-  canRerun: boolean;
-}) {
-  const rerun = useRerunRecording();
-  if (current === undefined || results.run.settingsVersion >= current.version) return null;
   return (
-    <Alert
-      type="info"
-      showIcon
-      style={{ marginBottom: 12 }}
-      title={`Computed with settings version ${results.run.settingsVersion}; the study's current version is ${current.version}.`}
-      action={
-        canRerun ? (
-          <Button
-            size="small"
-            onClick={() => void rerun(recording, `Bring up to settings version ${current.version}`)}
-          >
-            Re-run with version {current.version}
-          </Button>
-        ) : undefined
-      }
-    />
+    ofKind.find((r) => CURRENT.has(r.state)) ??
+    ofKind.find((r) => r.state === 'received' || r.state === 'validating') ??
+    ofKind.find((r) => r.state !== 'superseded') ??
+    ofKind[0] ??
+    null
   );
 }
 
-const IN_PROGRESS: ReadonlySet<RecordingDto['state']> = new Set([
-  'received',
-  'queued',
-  'computing',
-]);
+function roiLabelOf(results: RecordingResultsDto): string {
+  const usage = results.run.roiUsage;
+  return usage.used.length === 0 ? 'ROI: no channel' : `ROI: ${usage.used.join(', ')}`;
+}
 
 /**
  * One kind of recording's results, or why there are none yet. While a re-run is on its way
@@ -104,16 +80,9 @@ function ResultsOf({
 }: {
   recording: RecordingDto | null;
   kindName: string;
-  children: (results: RecordingResultsDto) => React.ReactNode;
+  children: (results: RecordingResultsDto, recording: RecordingDto) => React.ReactNode;
 }) {
-  const showable =
-    recording !== null &&
-    recording.latestRunId !== null &&
-    (recording.state === 'ready' || IN_PROGRESS.has(recording.state));
-  const results = useRecordingResults(
-    showable ? recording.id : null,
-    showable ? recording.latestRunId : null,
-  );
+  const { showable, results } = useShownResults(recording);
   if (recording === null) {
     return <EmptyState description={`No ${kindName} recording for this visit yet.`} />;
   }
@@ -138,15 +107,11 @@ function ResultsOf({
     <>
       {IN_PROGRESS.has(recording.state) && (
         <div style={{ marginBottom: 12 }}>
-          <Alert
-            type="info"
-            showIcon
-            title="Computing again with the current settings; these are the previous results."
-          />
+          <Alert type="info" showIcon title="Computing again; these are the previous results." />
           <RecordingStateNotice recording={recording} />
         </div>
       )}
-      {children(results.data)}
+      {children(results.data, recording)}
     </>
   );
 }
@@ -163,19 +128,23 @@ export function ReviewPage({
   const { visitId = '' } = useParams();
   const { me } = useSession();
   const ability = useAppAbility();
+  const { message } = App.useApp();
+  const canReadSettings = ability.can('read', 'AnalysisSettings');
   const visit = useVisit(visitId);
   const participant = useParticipant(visit.data?.participantId);
   const recordings = useVisitRecordings(visitId);
-  const settings = useAnalysisSettings(visit.data?.studyId);
+  const settings = useAnalysisSettings(canReadSettings ? visit.data?.studyId : undefined);
+  const override = useVisitOverride(visitId, canReadSettings);
   const flag = useVisitFlag(visitId);
   const report = useVisitReport(visitId);
   const raiseFlag = useRaiseFlag(visitId);
   const clearFlag = useClearFlag(visitId);
-  const createAnalysisSettings = useCreateAnalysisSettings();
-  const rerunVisit = useRerunVisit();
+  const saveOverride = useSaveVisitOverride(visitId);
+  const [overrideOpen, setOverrideOpen] = useState(false);
 
   const task = recordings.data === undefined ? null : recordingOfKind(recordings.data, 'task');
   const rest = recordings.data === undefined ? null : recordingOfKind(recordings.data, 'resting');
+  const taskResults = useShownResults(task).results.data;
   // The suggestion follows the latest task run: ask again whenever a new run lands.
   const taskRunId = task?.latestRunId ?? null;
   const reloadFlag = flag.mutate;
@@ -183,10 +152,11 @@ export function ReviewPage({
     if (taskRunId !== null) void reloadFlag();
   }, [taskRunId, reloadFlag]);
 
-  const canChangeSettings =
-    ability.can('create', 'AnalysisSettings') && ability.can('rerun', 'AnalysisRun');
   const canRerun = ability.can('rerun', 'AnalysisRun');
+  const canChangeOverride = ability.can('update', 'AnalysisSettings') && canRerun;
   const canFlag = ability.can('create', 'Flag') && ability.can('update', 'Flag');
+  const openOverride =
+    canChangeOverride && override.data !== undefined ? () => setOverrideOpen(true) : undefined;
 
   if (visit.error !== undefined) {
     return (
@@ -210,11 +180,11 @@ export function ReviewPage({
   }
 
   const code = participant.data?.code ?? '…';
-
-  const saveSettings = async (change: AnalysisSettingsChange) => {
-    const created = await createAnalysisSettings(visit.data?.studyId ?? '', change);
-    await rerunVisit(visitId, `Settings version ${created.version}: ${change.reason}`);
-  };
+  // The channels the override may choose: those of the visit's files, by 10-10 name.
+  const fileLabels = [...(task?.facts?.channelLabels ?? []), ...(rest?.facts?.channelLabels ?? [])];
+  const channelOptions = channelOptionsOf(
+    fileLabels.length > 0 ? fileLabels : (taskResults?.channels.map((c) => c.label) ?? []),
+  );
 
   return (
     <>
@@ -244,232 +214,232 @@ export function ReviewPage({
       ) : recordings.data === undefined ? (
         <LoadingState label="Loading the recordings" rows={12} />
       ) : (
-        <Row gutter={[20, 20]}>
-          <Col xs={24} xl={16}>
-            <Flex vertical gap={20}>
-              <Card title="Onset: task recording" aria-label="Task results">
-                <ResultsOf recording={task} kindName="task">
-                  {(results) => (
-                    <>
-                      {task !== null && (
-                        <StaleNotice
+        <>
+          <VisitSources task={task} rest={rest} all={recordings.data} />
+          <Row gutter={[20, 20]}>
+            <Col xs={24} xl={16}>
+              <Flex vertical gap={20}>
+                <Card title="Onset: task recording" aria-label="Task results">
+                  <ResultsOf recording={task} kindName="task">
+                    {(results, recording) => (
+                      <>
+                        <RunNotices
                           results={results}
-                          current={settings.data}
-                          recording={task}
+                          recording={recording}
                           canRerun={canRerun}
+                          onChooseChannels={openOverride}
                         />
-                      )}
-                      <RunSummary run={results.run} />
-                      {results.task === null ? (
-                        <EmptyState description="This run has no task curves." />
-                      ) : (
-                        <>
-                          <OnsetCurveChart task={results.task} roiLabel={roiLabelOf(results)} />
-                          <div style={{ marginTop: 24 }}>
-                            <TrialRaster task={results.task} bandHz={results.run.bandHz} />
-                          </div>
-                          <Descriptions
-                            size="small"
-                            style={{ marginTop: 16 }}
-                            className="gyre-figures"
-                            items={[
-                              {
-                                key: 'total',
-                                label: 'Epochs',
-                                children: String(results.task.epochs.total),
-                              },
-                              {
-                                key: 'kept',
-                                label: 'Kept',
-                                children: String(results.task.epochs.kept),
-                              },
-                              {
-                                key: 'dropped',
-                                label: 'Dropped',
-                                children:
-                                  Object.entries(results.task.epochs.dropped)
-                                    .filter(([, n]) => n > 0)
-                                    .map(([why, n]) => `${n} ${why}`)
-                                    .join(', ') || 'none',
-                              },
-                            ]}
-                          />
-                        </>
-                      )}
-                    </>
-                  )}
-                </ResultsOf>
-              </Card>
-              <Card title="Individual alpha frequency: resting recording" aria-label="Rest results">
-                <ResultsOf recording={rest} kindName="resting">
-                  {(results) => (
-                    <>
-                      {rest !== null && (
-                        <StaleNotice
+                        <RunSummary run={results.run} />
+                        {results.task === null ? (
+                          // With no region channel left, the notice above already says why.
+                          results.run.roiUsage.status !== 'none' && (
+                            <EmptyState description="No onset curves were computed for this run; the quality checks below say what the file held." />
+                          )
+                        ) : (
+                          <>
+                            <OnsetCurveChart
+                              task={results.task}
+                              roiLabel={roiLabelOf(results)}
+                              roiAvailable={results.run.roiUsage.status !== 'none'}
+                            />
+                            <div style={{ marginTop: 24 }}>
+                              <TrialRaster task={results.task} bandHz={results.run.bandHz} />
+                            </div>
+                            <Descriptions
+                              size="small"
+                              style={{ marginTop: 16 }}
+                              className="gyre-figures"
+                              items={[
+                                {
+                                  key: 'total',
+                                  label: 'Epochs',
+                                  children: String(results.task.epochs.total),
+                                },
+                                {
+                                  key: 'kept',
+                                  label: 'Kept',
+                                  children: String(results.task.epochs.kept),
+                                },
+                                {
+                                  key: 'dropped',
+                                  label: 'Dropped',
+                                  children:
+                                    Object.entries(results.task.epochs.dropped)
+                                      .filter(([, n]) => n > 0)
+                                      .map(([why, n]) => `${n} ${why}`)
+                                      .join(', ') || 'none',
+                                },
+                              ]}
+                            />
+                          </>
+                        )}
+                      </>
+                    )}
+                  </ResultsOf>
+                </Card>
+                <Card
+                  title="Individual alpha frequency: resting recording"
+                  aria-label="Rest results"
+                >
+                  <ResultsOf recording={rest} kindName="resting">
+                    {(results, recording) => (
+                      <>
+                        <RunNotices
                           results={results}
-                          current={settings.data}
-                          recording={rest}
+                          recording={recording}
                           canRerun={canRerun}
+                          onChooseChannels={openOverride}
                         />
-                      )}
-                      <RunSummary run={results.run} />
-                      {results.rest === null ? (
-                        <EmptyState description="This run has no spectrum." />
-                      ) : (
-                        <RestSpectrumChart rest={results.rest} roiLabel={roiLabelOf(results)} />
-                      )}
-                    </>
-                  )}
-                </ResultsOf>
-              </Card>
-              <Card title="Per channel: task" aria-label="Per-channel results">
-                <ResultsOf recording={task} kindName="task">
-                  {(results) => <ChannelTable channels={results.channels} />}
-                </ResultsOf>
-              </Card>
-              <Card title="Quality checks" aria-label="Quality checks">
-                <Tabs
-                  items={[
-                    {
-                      key: 'task',
-                      label: 'Task',
-                      children: (
-                        <ResultsOf recording={task} kindName="task">
-                          {(results) => <QualityChecks quality={results.quality} kind="task" />}
-                        </ResultsOf>
-                      ),
-                    },
-                    {
-                      key: 'rest',
-                      label: 'Rest',
-                      children: (
-                        <ResultsOf recording={rest} kindName="resting">
-                          {(results) => <QualityChecks quality={results.quality} kind="resting" />}
-                        </ResultsOf>
-                      ),
-                    },
-                  ]}
-                />
-              </Card>
-            </Flex>
-          </Col>
-          <Col xs={24} xl={8}>
-            <Flex vertical gap={20}>
-              <Card title="Slowing flag" aria-label="Slowing flag">
-                {flag.error !== undefined ? (
-                  <ErrorState
-                    title="The flag could not be loaded"
-                    error={flag.error}
-                    onRetry={() => void flag.mutate()}
+                        <RunSummary run={results.run} />
+                        {results.rest === null ? (
+                          results.run.roiUsage.status !== 'none' && (
+                            <EmptyState description="No spectrum was computed for this run; the quality checks below say what the file held." />
+                          )
+                        ) : (
+                          <RestSpectrumChart rest={results.rest} roiLabel={roiLabelOf(results)} />
+                        )}
+                      </>
+                    )}
+                  </ResultsOf>
+                </Card>
+                <Card title="Per channel: task" aria-label="Per-channel results">
+                  <ResultsOf recording={task} kindName="task">
+                    {(results) => (
+                      <ChannelTable channels={results.channels} roiUsage={results.run.roiUsage} />
+                    )}
+                  </ResultsOf>
+                </Card>
+                <Card title="Quality checks" aria-label="Quality checks">
+                  <Tabs
+                    items={[
+                      {
+                        key: 'task',
+                        label: 'Task',
+                        children: (
+                          <ResultsOf recording={task} kindName="task">
+                            {(results) => (
+                              <QualityChecks
+                                quality={results.quality}
+                                kind="task"
+                                roiUsage={results.run.roiUsage}
+                              />
+                            )}
+                          </ResultsOf>
+                        ),
+                      },
+                      {
+                        key: 'rest',
+                        label: 'Rest',
+                        children: (
+                          <ResultsOf recording={rest} kindName="resting">
+                            {(results) => (
+                              <QualityChecks
+                                quality={results.quality}
+                                kind="resting"
+                                roiUsage={results.run.roiUsage}
+                              />
+                            )}
+                          </ResultsOf>
+                        ),
+                      },
+                    ]}
                   />
-                ) : flag.data === undefined ? (
-                  <Skeleton active />
-                ) : (
-                  <FlagPanel
-                    flag={flag.data}
-                    meId={me.user.id}
-                    renderPerson={(userId) => (
-                      <PersonName
-                        userId={userId}
-                        meId={me.user.id}
-                        studyId={visit.data?.studyId ?? ''}
+                </Card>
+              </Flex>
+            </Col>
+            <Col xs={24} xl={8}>
+              <Flex vertical gap={20}>
+                <Card title="Slowing flag" aria-label="Slowing flag">
+                  {flag.error !== undefined ? (
+                    <ErrorState
+                      title="The flag could not be loaded"
+                      error={flag.error}
+                      onRetry={() => void flag.mutate()}
+                    />
+                  ) : flag.data === undefined ? (
+                    <Skeleton active />
+                  ) : (
+                    <FlagPanel
+                      flag={flag.data}
+                      meId={me.user.id}
+                      renderPerson={(userId) => (
+                        <PersonName
+                          userId={userId}
+                          meId={me.user.id}
+                          studyId={visit.data?.studyId ?? ''}
+                        />
+                      )}
+                      canChange={canFlag}
+                      onRaise={async (change) => {
+                        await raiseFlag(change);
+                      }}
+                      onClear={async (change) => {
+                        await clearFlag(change);
+                      }}
+                    />
+                  )}
+                </Card>
+                {canReadSettings && (
+                  <Card title="This visit's analysis choices" aria-label="Visit analysis choices">
+                    {override.error !== undefined ? (
+                      <ErrorState
+                        title="The visit's choices could not be loaded"
+                        error={override.error}
+                        onRetry={() => void override.mutate()}
+                      />
+                    ) : override.data === undefined ? (
+                      <Skeleton active paragraph={{ rows: 2 }} />
+                    ) : (
+                      <OverrideCard
+                        override={override.data}
+                        study={settings.data}
+                        canChange={canChangeOverride}
+                        onChange={() => setOverrideOpen(true)}
                       />
                     )}
-                    canChange={canFlag}
-                    onRaise={async (change) => {
-                      await raiseFlag(change);
-                    }}
-                    onClear={async (change) => {
-                      await clearFlag(change);
-                    }}
-                  />
+                  </Card>
                 )}
-              </Card>
-              <Card title="Analysis settings" aria-label="Analysis settings">
-                {settings.error !== undefined ? (
-                  <ErrorState
-                    title="The settings could not be loaded"
-                    error={settings.error}
-                    onRetry={() => void settings.mutate()}
-                  />
-                ) : settings.data === undefined ? (
-                  <Skeleton active />
-                ) : canChangeSettings ? (
-                  <SettingsForm current={settings.data} onSave={saveSettings} />
-                ) : (
-                  <SettingsSummary settings={settings.data} />
-                )}
-              </Card>
-              <Card title="Report" aria-label="Report">
-                {report.error !== undefined ? (
-                  <ErrorState
-                    title="The report could not be loaded"
-                    error={report.error}
-                    onRetry={() => void report.mutate()}
-                  />
-                ) : report.data === undefined ? (
-                  <Skeleton active paragraph={{ rows: 1 }} />
-                ) : report.data === null ? (
-                  'No report has been drafted for this visit yet.'
-                ) : reportPanel !== undefined ? (
-                  reportPanel(visitId, flag.data)
-                ) : (
-                  <span>
-                    <Tag>{report.data.state}</Tag> The visit report is a {report.data.state};
-                    sign-off comes with the report screen.
-                  </span>
-                )}
-              </Card>
-            </Flex>
-          </Col>
-        </Row>
+                <Card title="Report" aria-label="Report">
+                  {report.error !== undefined ? (
+                    <ErrorState
+                      title="The report could not be loaded"
+                      error={report.error}
+                      onRetry={() => void report.mutate()}
+                    />
+                  ) : report.data === undefined ? (
+                    <Skeleton active paragraph={{ rows: 1 }} />
+                  ) : report.data === null ? (
+                    'No report has been drafted for this visit yet.'
+                  ) : reportPanel !== undefined ? (
+                    reportPanel(visitId, flag.data)
+                  ) : (
+                    <span>
+                      <Tag>{report.data.state}</Tag> The visit report is a {report.data.state};
+                      sign-off comes with the report screen.
+                    </span>
+                  )}
+                </Card>
+              </Flex>
+            </Col>
+          </Row>
+        </>
+      )}
+      {canChangeOverride && override.data !== undefined && (
+        <OverrideForm
+          open={overrideOpen}
+          override={override.data}
+          study={settings.data}
+          channelOptions={channelOptions}
+          onSave={saveOverride}
+          onClose={() => setOverrideOpen(false)}
+          onSaved={(saved) => {
+            setOverrideOpen(false);
+            message.success(
+              `This visit's choices are saved (revision ${saved.revision}); its recordings are being computed again.`,
+            );
+          }}
+        />
       )}
     </>
-  );
-}
-
-/** The current settings, read-only (for those who may not change them). */
-function SettingsSummary({ settings }: { settings: AnalysisSettingsDto }) {
-  const window = ([a, b]: [number, number]) => `${a.toFixed(2)} to ${b.toFixed(2)} s`;
-  return (
-    <Descriptions
-      size="small"
-      column={1}
-      className="gyre-figures"
-      items={[
-        { key: 'version', label: 'Version', children: String(settings.version) },
-        {
-          key: 'band',
-          label: 'Band',
-          children:
-            settings.bandHz === null
-              ? "visit's IAF ± 2 Hz (8–13 Hz without one)"
-              : `${formatHz(settings.bandHz[0])} to ${formatHz(settings.bandHz[1])}`,
-        },
-        {
-          key: 'method',
-          label: 'Method',
-          children:
-            settings.method === 'filter'
-              ? 'zero-phase band-pass'
-              : `Morlet, ${settings.morletCycles} cycles`,
-        },
-        { key: 'epoch', label: 'Epoch', children: window(settings.epochWindowS) },
-        { key: 'baseline', label: 'Baseline', children: window(settings.baselineWindowS) },
-        { key: 'post', label: 'Post', children: window(settings.postWindowS) },
-        {
-          key: 'reject',
-          label: 'Reject above',
-          children: `${settings.rejectionThresholdUv.toFixed(0)} µV`,
-        },
-        {
-          key: 'flag',
-          label: 'Suggest flag at',
-          children: `Δf ≤ ${formatHz(settings.flagThresholdHz)}`,
-        },
-        { key: 'roi', label: 'ROI', children: settings.roi.join(', ') },
-        { key: 'reason', label: 'Why this version', children: settings.reason },
-      ]}
-    />
   );
 }

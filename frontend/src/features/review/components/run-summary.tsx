@@ -1,7 +1,10 @@
 import type { AnalysisRunDto } from '@gyre/shared';
-import { Descriptions, Tag } from 'antd';
+import { Descriptions, Tag, Typography } from 'antd';
+import { GYRE_COLORS } from '../../../app/theme';
 import { formatDateTime, formatHz } from '../../../lib/format';
+import { NO_ROI_CHANNEL_REMAINS } from '../../../lib/roi-usage';
 import { formatCi, formatPValue } from './channel-table';
+import { TRIGGER_WORDS } from './run-words';
 
 const BAND_SOURCE: Record<AnalysisRunDto['bandSource'], string> = {
   settings: 'study setting',
@@ -9,17 +12,34 @@ const BAND_SOURCE: Record<AnalysisRunDto['bandSource'], string> = {
   default: 'default 8–13 Hz',
 };
 
-/** The headline numbers of a run, and the settings version they were computed with. */
+/** The ROI Δf, never without saying when its region is incomplete or empty. */
+function RoiDeltaF({ run }: { run: AnalysisRunDto }) {
+  if (run.roiUsage.status === 'none') {
+    return (
+      <Typography.Text data-testid="roi-delta-f" style={{ color: GYRE_COLORS.amber }}>
+        — ({NO_ROI_CHANNEL_REMAINS})
+      </Typography.Text>
+    );
+  }
+  return (
+    <span data-testid="roi-delta-f">
+      {formatHz(run.roiDeltaFHz)}
+      {run.roiUsage.status === 'partial' && (
+        <Tag color={GYRE_COLORS.amber} style={{ marginLeft: 8 }}>
+          from {run.roiUsage.used.join(', ')} only
+        </Tag>
+      )}
+    </span>
+  );
+}
+
+/** The headline numbers of a run, and the settings they were computed with. */
 export function RunSummary({ run }: { run: AnalysisRunDto }) {
   const band = `${run.bandHz[0].toFixed(2)}–${run.bandHz[1].toFixed(2)} Hz (${BAND_SOURCE[run.bandSource]})`;
   const items =
     run.kind === 'task'
       ? [
-          {
-            key: 'df',
-            label: 'ROI Δf',
-            children: <span data-testid="roi-delta-f">{formatHz(run.roiDeltaFHz)}</span>,
-          },
+          { key: 'df', label: 'ROI Δf', children: <RoiDeltaF run={run} /> },
           { key: 'ci', label: '95 % CI', children: formatCi(run.roiCiHz) },
           { key: 'p', label: 'p (Wilcoxon)', children: formatPValue(run.roiPValue) },
           {
@@ -43,10 +63,21 @@ export function RunSummary({ run }: { run: AnalysisRunDto }) {
           key: 'version',
           label: 'Settings',
           children: (
-            <Tag data-testid={`settings-version-${run.kind}`}>version {run.settingsVersion}</Tag>
+            <>
+              <Tag data-testid={`settings-version-${run.kind}`}>version {run.settingsVersion}</Tag>
+              {run.overrideRevision !== null && (
+                <Tag color={GYRE_COLORS.primary}>
+                  visit choices, revision {run.overrideRevision}
+                </Tag>
+              )}
+            </>
           ),
         },
-        { key: 'computed', label: 'Computed', children: formatDateTime(run.createdAt) },
+        {
+          key: 'computed',
+          label: 'Computed',
+          children: `${formatDateTime(run.createdAt)}, ${TRIGGER_WORDS[run.trigger]}`,
+        },
       ]}
     />
   );

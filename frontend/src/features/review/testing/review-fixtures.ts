@@ -5,6 +5,8 @@ import type {
   RecordingDto,
   RecordingResultsDto,
   ReportDto,
+  RoiUsageDto,
+  VisitAnalysisOverrideDto,
   VisitFlagDto,
   VisitView,
 } from '@gyre/shared';
@@ -32,7 +34,35 @@ export const VISIT: VisitView = {
   updatedAt: '2025-02-03T09:00:00.000Z',
 };
 
-function recording(kind: 'task' | 'resting', runId: string): RecordingDto {
+/** Every region-of-interest channel used (the file's labels, as the server reports them). */
+export const COMPLETE_ROI: RoiUsageDto = {
+  wanted: ['O1', 'O2', 'Pz'],
+  used: ['EEG O1-REF', 'EEG O2-REF', 'EEG Pz-REF'],
+  leftOut: [],
+  status: 'complete',
+};
+
+/** O2 flat, so the region averages O1 and Pz only. */
+export const PARTIAL_ROI: RoiUsageDto = {
+  wanted: ['O1', 'O2', 'Pz'],
+  used: ['EEG O1-REF', 'EEG Pz-REF'],
+  leftOut: [{ label: 'EEG O2-REF', reason: 'flat' }],
+  status: 'partial',
+};
+
+/** No region channel left: O1 and Pz saturated, O2 flat. */
+export const NO_ROI: RoiUsageDto = {
+  wanted: ['O1', 'O2', 'Pz'],
+  used: [],
+  leftOut: [
+    { label: 'EEG O1-REF', reason: 'saturated' },
+    { label: 'EEG O2-REF', reason: 'flat' },
+    { label: 'EEG Pz-REF', reason: 'saturated' },
+  ],
+  status: 'none',
+};
+
+export function recording(kind: 'task' | 'resting', runId: string): RecordingDto {
   return {
     id: `rec-${kind}`,
     studyId: STUDY.id,
@@ -49,6 +79,12 @@ function recording(kind: 'task' | 'resting', runId: string): RecordingDto {
     failureMessage: null,
     latestJob: null,
     latestRunId: runId,
+    kindConfirmed: false,
+    warnings: [],
+    roiUsage: COMPLETE_ROI,
+    replacesId: null,
+    replacementReason: null,
+    supersededById: null,
     uploadedById: 'user-technician',
     createdAt: '2025-02-03T10:00:00.000Z',
     updatedAt: '2025-02-03T10:05:00.000Z',
@@ -81,7 +117,22 @@ function run(kind: 'task' | 'resting'): AnalysisRunDto {
     pafHz: kind === 'resting' ? 10.236 : null,
     cogHz: kind === 'resting' ? 10.104 : null,
     suggestsSlowing: kind === 'task' ? true : null,
+    trigger: 'upload',
+    roiUsage: COMPLETE_ROI,
+    overrideRevision: null,
+    staleSettings: [],
     createdAt: '2025-02-03T10:05:00.000Z',
+  };
+}
+
+function source(kind: 'task' | 'resting'): RecordingResultsDto['source'] {
+  return {
+    recordingId: `rec-${kind}`,
+    kind,
+    uploadedAt: '2025-02-03T10:00:00.000Z',
+    checksumSha256: kind === 'task' ? 'c0ffee'.repeat(10) + 'abcd' : 'b'.repeat(64),
+    replacesId: null,
+    replacementReason: null,
   };
 }
 
@@ -111,6 +162,7 @@ const curve = (name: string, shift: number) => ({
 
 export const TASK_RESULTS: RecordingResultsDto = {
   run: run('task'),
+  source: source('task'),
   channels: [
     {
       label: 'EEG O1-REF',
@@ -121,6 +173,17 @@ export const TASK_RESULTS: RecordingResultsDto = {
       deltaFHz: -0.36,
       ciHz: [-0.5, -0.2],
       pValue: 0.002,
+      trials: 3,
+    },
+    {
+      label: 'EEG O2-REF',
+      canonical: 'O2',
+      inRoi: true,
+      baselineHz: 10.05,
+      postHz: 9.8,
+      deltaFHz: -0.25,
+      ciHz: [-0.45, -0.05],
+      pValue: 0.02,
       trials: 3,
     },
     {
@@ -167,6 +230,7 @@ export const TASK_RESULTS: RecordingResultsDto = {
 const frequencyHz = Array.from({ length: 81 }, (_, i) => i * 0.5);
 export const REST_RESULTS: RecordingResultsDto = {
   run: run('resting'),
+  source: source('resting'),
   channels: [],
   task: null,
   rest: {
@@ -185,6 +249,7 @@ export const SETTINGS: AnalysisSettingsDto = {
   id: 'set-1',
   studyId: STUDY.id,
   version: 1,
+  changes: [],
   reason: 'Defaults written by Gyre',
   createdById: null,
   createdAt: '2025-01-06T09:00:00.000Z',
@@ -209,8 +274,20 @@ export const NO_FLAG: VisitFlagDto = {
     roiDeltaFHz: -0.3125,
     roiCiHz: [-0.45, -0.18],
     flagThresholdHz: -0.2,
+    roiUsage: COMPLETE_ROI,
   },
   history: [],
+};
+
+export const NO_OVERRIDE: VisitAnalysisOverrideDto = {
+  visitId: VISIT.id,
+  revision: 0,
+  roi: null,
+  bandHz: null,
+  onsetLabel: null,
+  reason: null,
+  updatedById: null,
+  updatedAt: null,
 };
 
 export const REPORT: ReportDto = {

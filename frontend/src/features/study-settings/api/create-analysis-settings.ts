@@ -3,8 +3,15 @@ import { useCallback } from 'react';
 import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
 import { analysisSettingsKey } from './get-analysis-settings';
+import { isAnalysisSettingsVersionsKey } from './get-analysis-settings-versions';
 
-/** `POST /api/studies/:studyId/analysis-settings`: saves a new settings version. */
+/** The answer when a new version would equal the current one (409). */
+export const ANALYSIS_SETTINGS_UNCHANGED = 'ANALYSIS_SETTINGS_UNCHANGED';
+
+/**
+ * `POST /api/studies/:studyId/analysis-settings`: saves a new settings version. It re-runs
+ * nothing: runs keep their numbers, and Review says which would change.
+ */
 export function createAnalysisSettings(
   studyId: string,
   change: AnalysisSettingsChange,
@@ -18,6 +25,7 @@ export function useCreateAnalysisSettings() {
     async (studyId: string, change: AnalysisSettingsChange) => {
       const created = await createAnalysisSettings(studyId, change);
       await mutate(analysisSettingsKey(studyId), created, { revalidate: false });
+      await mutate(isAnalysisSettingsVersionsKey(studyId));
       return created;
     },
     [mutate],

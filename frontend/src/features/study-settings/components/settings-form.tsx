@@ -1,8 +1,21 @@
 import type { AnalysisSettingsChange, AnalysisSettingsDto } from '@gyre/shared';
-import { Alert, Button, Col, Form, Input, InputNumber, Radio, Row, Select, Typography } from 'antd';
+import {
+  Alert,
+  Button,
+  Col,
+  Flex,
+  Form,
+  Input,
+  InputNumber,
+  Radio,
+  Row,
+  Select,
+  Typography,
+} from 'antd';
 import type { FormRule } from 'antd';
 import { useState } from 'react';
 import { ApiError } from '../../../lib/api-client';
+import { ANALYSIS_SETTINGS_UNCHANGED } from '../api/create-analysis-settings';
 import {
   changeOf,
   formValuesOf,
@@ -34,9 +47,12 @@ function check(
 
 const seconds = { suffix: 's', step: 0.1, style: { width: '100%' } } as const;
 
+/** What went wrong with the last save: the server's refusal, or "nothing changed". */
+type Failure = { kind: 'unchanged'; message: string } | { kind: 'error'; message: string };
+
 /**
- * Changes the study's analysis settings (a new version, with a reason) and re-runs this
- * visit's recordings with it.
+ * Changes the study's analysis settings: a new version, with a reason. Nothing is computed
+ * again by it; Review shows which runs the new version would change.
  */
 export function SettingsForm({
   current,
@@ -47,7 +63,7 @@ export function SettingsForm({
 }) {
   const [form] = Form.useForm<Values>();
   const [saving, setSaving] = useState(false);
-  const [failure, setFailure] = useState<string | null>(null);
+  const [failure, setFailure] = useState<Failure | null>(null);
   const bandMode = Form.useWatch('bandMode', form);
   const method = Form.useWatch('method', form);
 
@@ -61,7 +77,15 @@ export function SettingsForm({
       await onSave(changeOf(values));
       form.setFieldValue('reason', '');
     } catch (error) {
-      setFailure(error instanceof ApiError ? error.message : 'The settings could not be saved.');
+      setFailure(
+        error instanceof ApiError && error.code === ANALYSIS_SETTINGS_UNCHANGED
+          ? { kind: 'unchanged', message: error.message }
+          : {
+              kind: 'error',
+              message:
+                error instanceof ApiError ? error.message : 'The settings could not be saved.',
+            },
+      );
     } finally {
       setSaving(false);
     }
@@ -102,7 +126,7 @@ export function SettingsForm({
       </Form.Item>
       {bandMode === 'fixed' && (
         <Row gutter={12}>
-          <Col span={12}>
+          <Col xs={24} sm={12}>
             <Form.Item
               name="bandLowHz"
               label="Band low edge"
@@ -114,7 +138,7 @@ export function SettingsForm({
               <InputNumber suffix="Hz" step={0.5} style={{ width: '100%' }} />
             </Form.Item>
           </Col>
-          <Col span={12}>
+          <Col xs={24} sm={12}>
             <Form.Item
               name="bandHighHz"
               label="Band high edge"
@@ -136,7 +160,7 @@ export function SettingsForm({
         </Row>
       )}
       <Row gutter={12}>
-        <Col span={method === 'morlet' ? 14 : 24}>
+        <Col xs={24} sm={method === 'morlet' ? 14 : 24}>
           <Form.Item name="method" label="Narrow-band method">
             <Radio.Group
               options={[
@@ -147,7 +171,7 @@ export function SettingsForm({
           </Form.Item>
         </Col>
         {method === 'morlet' && (
-          <Col span={10}>
+          <Col xs={24} sm={10}>
             <Form.Item
               name="morletCycles"
               label="Wavelet cycles"
@@ -162,7 +186,7 @@ export function SettingsForm({
         )}
       </Row>
       <Row gutter={12}>
-        <Col span={12}>
+        <Col xs={24} sm={12}>
           <Form.Item
             name="epochStartS"
             label="Epoch start"
@@ -174,7 +198,7 @@ export function SettingsForm({
             <InputNumber {...seconds} />
           </Form.Item>
         </Col>
-        <Col span={12}>
+        <Col xs={24} sm={12}>
           <Form.Item
             name="epochEndS"
             label="Epoch end"
@@ -193,7 +217,7 @@ export function SettingsForm({
             <InputNumber {...seconds} />
           </Form.Item>
         </Col>
-        <Col span={12}>
+        <Col xs={24} sm={12}>
           <Form.Item
             name="baselineStartS"
             label="Baseline start"
@@ -206,7 +230,7 @@ export function SettingsForm({
             <InputNumber {...seconds} />
           </Form.Item>
         </Col>
-        <Col span={12}>
+        <Col xs={24} sm={12}>
           <Form.Item
             name="baselineEndS"
             label="Baseline end"
@@ -220,7 +244,7 @@ export function SettingsForm({
             <InputNumber {...seconds} />
           </Form.Item>
         </Col>
-        <Col span={12}>
+        <Col xs={24} sm={12}>
           <Form.Item
             name="postStartS"
             label="Post start"
@@ -239,7 +263,7 @@ export function SettingsForm({
             <InputNumber {...seconds} />
           </Form.Item>
         </Col>
-        <Col span={12}>
+        <Col xs={24} sm={12}>
           <Form.Item
             name="postEndS"
             label="Post end"
@@ -249,7 +273,7 @@ export function SettingsForm({
             <InputNumber {...seconds} />
           </Form.Item>
         </Col>
-        <Col span={12}>
+        <Col xs={24} sm={12}>
           <Form.Item
             name="rejectionThresholdUv"
             label="Reject epochs above"
@@ -263,7 +287,7 @@ export function SettingsForm({
             <InputNumber suffix="µV" step={10} style={{ width: '100%' }} />
           </Form.Item>
         </Col>
-        <Col span={12}>
+        <Col xs={24} sm={12}>
           <Form.Item
             name="flagThresholdHz"
             label="Suggest a flag at Δf ≤"
@@ -314,16 +338,34 @@ export function SettingsForm({
       >
         <Input.TextArea rows={2} maxLength={2000} />
       </Form.Item>
-      {failure !== null && (
-        <Alert type="error" showIcon title={failure} style={{ marginBottom: 12 }} role="alert" />
+      {failure?.kind === 'unchanged' && (
+        <Alert
+          type="info"
+          showIcon
+          role="alert"
+          title="Nothing changed"
+          description={`${failure.message} No version was saved.`}
+          style={{ marginBottom: 12 }}
+        />
       )}
-      <Typography.Paragraph type="secondary" style={{ fontSize: 13 }}>
-        Saving creates settings version {current.version + 1} for the whole study and re-runs this
-        visit's recordings with it. Earlier results keep the version they were computed with.
-      </Typography.Paragraph>
-      <Button type="primary" htmlType="submit" loading={saving}>
-        Save version {current.version + 1} and re-run
-      </Button>
+      {failure?.kind === 'error' && (
+        <Alert
+          type="error"
+          showIcon
+          title={failure.message}
+          style={{ marginBottom: 12 }}
+          role="alert"
+        />
+      )}
+      <Flex gap={12} align="center" wrap>
+        <Button type="primary" htmlType="submit" loading={saving}>
+          Save version {current.version + 1}
+        </Button>
+        <Typography.Text type="secondary" style={{ fontSize: 13, flex: '1 1 220px' }}>
+          Saving creates version {current.version + 1} for the whole study and re-runs nothing: runs
+          keep their numbers; visits whose results would change show a notice in Review.
+        </Typography.Text>
+      </Flex>
     </Form>
   );
 }

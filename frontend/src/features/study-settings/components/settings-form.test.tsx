@@ -1,12 +1,12 @@
 import { render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
-import { SETTINGS } from '../testing/review-fixtures';
+import { ApiError } from '../../../lib/api-client';
+import { VERSION_1 } from '../testing/settings-fixtures';
 import { SettingsForm } from './settings-form';
 
-function renderForm() {
-  const onSave = vi.fn(async () => undefined);
-  render(<SettingsForm current={SETTINGS} onSave={onSave} />);
+function renderForm(onSave = vi.fn(async () => undefined)) {
+  render(<SettingsForm current={VERSION_1} onSave={onSave} />);
   return { onSave };
 }
 
@@ -16,10 +16,19 @@ async function replace(label: string, text: string) {
   await userEvent.type(field, text);
 }
 
-const save = () =>
-  userEvent.click(screen.getByRole('button', { name: 'Save version 2 and re-run' }));
+const save = () => userEvent.click(screen.getByRole('button', { name: 'Save version 2' }));
 
-describe('SettingsForm', { timeout: 30_000 }, () => {
+describe('SettingsForm', { timeout: 60_000 }, () => {
+  it('says next to the button that a new version re-runs nothing', () => {
+    renderForm();
+    expect(
+      screen.getByText(
+        /runs keep their numbers; visits whose results would change show a notice in Review/,
+      ),
+    ).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /re-run/i })).not.toBeInTheDocument();
+  });
+
   it('needs a reason of at least 10 characters', async () => {
     const { onSave } = renderForm();
     await save();
@@ -90,5 +99,22 @@ describe('SettingsForm', { timeout: 30_000 }, () => {
         reason: 'Narrower band after the pilot',
       }),
     );
+  });
+
+  it('shows "Nothing changed" apart from errors when the server finds no difference', async () => {
+    const onSave = vi.fn(async () => {
+      throw new ApiError(
+        409,
+        'ANALYSIS_SETTINGS_UNCHANGED',
+        'These are the settings of version 1 already.',
+      );
+    });
+    renderForm(onSave);
+    await userEvent.type(screen.getByLabelText('Reason for the change'), 'Same values again');
+    await save();
+    const alert = await screen.findByRole('alert');
+    expect(alert).toHaveTextContent('Nothing changed');
+    expect(alert).toHaveTextContent('These are the settings of version 1 already.');
+    expect(alert).not.toHaveClass('ant-alert-error');
   });
 });

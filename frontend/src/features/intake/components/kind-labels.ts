@@ -1,0 +1,3 @@
+import type { RecordingKind } from '@gyre/shared';
+
+export const KIND_LABELS: Record<RecordingKind, string> = { resting: 'Resting', task: 'Task' };

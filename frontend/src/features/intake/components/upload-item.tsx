@@ -1,0 +1,260 @@
+import type {
+  KindMismatchDetails,
+  KindTakenDetails,
+  RecordingKind,
+  RecordingRejection,
+} from '@gyre/shared';
+import { Alert, Button, Checkbox, Flex, Form, Input, Progress, Typography } from 'antd';
+import { useState } from 'react';
+import { GYRE_COLORS } from '../../../app/theme';
+import { formatBytes, formatDateTime } from '../../../lib/format';
+import { useRecordings } from '../api/recordings';
+import { KIND_LABELS } from './kind-labels';
+import { RejectionText } from './rejection-text';
+
+export const REPLACEMENT_REASON_MIN_LENGTH = 10;
+
+/** One dropped file, from its upload to the server's answer and what the technician did about it. */
+export interface UploadItem {
+  uid: string;
+  name: string;
+  sizeBytes: number;
+  /** Null for a file refused before sending (nothing to send again). */
+  file: File | null;
+  onsets: File | null;
+  kind: RecordingKind;
+  confirmKind: boolean;
+  replaces: { recordingId: string; reason: string } | null;
+  percent: number;
+  status:
+    | 'uploading'
+    | 'accepted'
+    | 'rejected'
+    | 'error'
+    | 'kind-unconfirmed'
+    | 'kind-taken'
+    | 'dismissed';
+  rejection?: RecordingRejection;
+  message?: string;
+  mismatch?: KindMismatchDetails;
+  taken?: KindTakenDetails;
+}
+
+export type Resend = (next: UploadItem) => void;
+
+const otherKind = (kind: RecordingKind): RecordingKind => (kind === 'resting' ? 'task' : 'resting');
+const lower = (kind: RecordingKind) => KIND_LABELS[kind].toLowerCase();
+
+/** The server's sentence without its leading field name (`kind: …`), as a sentence. */
+function plainSentence(text: string): string {
+  const body = text.replace(/^kind:\s*/i, '');
+  return body.charAt(0).toUpperCase() + body.slice(1);
+}
+
+/**
+ * The file looks like the other kind: say what was found, then let the technician send it as
+ * the other kind, or confirm this kind explicitly.
+ */
+function KindMismatch({ item, onResend }: { item: UploadItem; onResend: Resend }) {
+  const [confirmed, setConfirmed] = useState(false);
+  const mismatch = item.mismatch;
+  if (mismatch === undefined) return null;
+  const other = otherKind(item.kind);
+  return (
+    <section aria-label={`Kind of ${item.name}`} style={{ marginTop: 6 }}>
+      <div role="alert">
+        <Typography.Text strong style={{ color: GYRE_COLORS.amber }}>
+          Not kept yet: this file looks like a {lower(other)} recording.{' '}
+        </Typography.Text>
+        <Typography.Text>{plainSentence(item.message ?? '')}</Typography.Text>
+        <br />
+        <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+          Chosen: {lower(item.kind)} · found {mismatch.found} · expected {mismatch.expected}
+        </Typography.Text>
+      </div>
+      <Flex vertical gap={8} align="flex-start" style={{ marginTop: 8 }}>
+        <Button
+          onClick={() =>
+            onResend({
+              ...item,
+              kind: other,
+              confirmKind: false,
+              // The onset CSV and a replacement belonged to the kind first chosen.
+              onsets: null,
+              replaces: null,
+            })
+          }
+        >
+          Send it as a {lower(other)} recording
+        </Button>
+        <Checkbox checked={confirmed} onChange={(event) => setConfirmed(event.target.checked)}>
+          I confirm that this is a {lower(item.kind)} recording, although the file holds{' '}
+          {mismatch.found}.
+        </Checkbox>
+        <Button
+          type="primary"
+          disabled={!confirmed}
+          onClick={() => onResend({ ...item, confirmKind: true })}
+        >
+          Send as {lower(item.kind)}, kind confirmed
+        </Button>
+      </Flex>
+    </section>
+  );
+}
+
+/**
+ * The visit already has a current recording of this kind: replacing it needs a reason; the
+ * earlier one stays listed, superseded.
+ */
+function KindTaken({
+  item,
+  visitId,
+  onResend,
+  onDismiss,
+}: {
+  item: UploadItem;
+  visitId: string;
+  onResend: Resend;
+  onDismiss: () => void;
+}) {
+  const [replacing, setReplacing] = useState(false);
+  const [form] = Form.useForm<{ reason: string }>();
+  const recordings = useRecordings(visitId);
+  const taken = item.taken;
+  if (taken === undefined) return null;
+  const earlier = recordings.data?.items.find((r) => r.id === taken.recordingId) ?? null;
+  return (
+    <section aria-label={`Replace the ${lower(taken.kind)} recording`} style={{ marginTop: 6 }}>
+      <div role="alert">
+        <Typography.Text strong style={{ color: GYRE_COLORS.amber }}>
+          Not sent on: this visit already has a {lower(taken.kind)} recording
+          {earlier !== null && <>, uploaded {formatDateTime(earlier.createdAt)}</>}.{' '}
+        </Typography.Text>
+        <Typography.Text>
+          A visit keeps one current {lower(taken.kind)} recording. Replace it only if this file
+          should be used instead.
+        </Typography.Text>
+      </div>
+      {!replacing ? (
+        <Flex gap={8} wrap style={{ marginTop: 8 }}>
+          <Button onClick={() => setReplacing(true)}>Replace it</Button>
+          <Button type="text" onClick={onDismiss}>
+            Keep the earlier recording
+          </Button>
+        </Flex>
+      ) : (
+        <Form
+          form={form}
+          layout="vertical"
+          requiredMark={false}
+          style={{ marginTop: 8 }}
+          aria-label={`Why replace the ${lower(taken.kind)} recording`}
+          onFinish={({ reason }) =>
+            onResend({
+              ...item,
+              replaces: { recordingId: taken.recordingId, reason: reason.trim() },
+            })
+          }
+        >
+          <Form.Item
+            name="reason"
+            label={`Why replace the earlier ${lower(taken.kind)} recording?`}
+            extra="The earlier recording stays listed and downloadable, marked superseded."
+            rules={[
+              { required: true, whitespace: true, message: 'A reason is required.' },
+              {
+                validator: async (_rule, value: string | undefined) => {
+                  const length = (value ?? '').trim().length;
+                  if (length > 0 && length < REPLACEMENT_REASON_MIN_LENGTH) {
+                    throw new Error(
+                      `Write at least ${REPLACEMENT_REASON_MIN_LENGTH} characters (${length} so far).`,
+                    );
+                  }
+                },
+              },
+            ]}
+          >
+            <Input.TextArea rows={2} maxLength={2000} />
+          </Form.Item>
+          <Flex gap={8} wrap>
+            <Button type="primary" htmlType="submit">
+              Replace and send
+            </Button>
+            <Button onClick={() => setReplacing(false)}>Cancel</Button>
+          </Flex>
+        </Form>
+      )}
+    </section>
+  );
+}
+
+/** One line of the upload list: progress, the server's answer, and any choice it asks for. */
+export function UploadItemView({
+  item,
+  visitId,
+  onResend,
+  onDismiss,
+}: {
+  item: UploadItem;
+  visitId: string;
+  onResend: Resend;
+  onDismiss: () => void;
+}) {
+  return (
+    <li
+      style={{ padding: '10px 0', borderBottom: `1px solid ${GYRE_COLORS.line}` }}
+      data-upload-status={item.status}
+    >
+      <Flex justify="space-between" gap={16} wrap>
+        <Typography.Text strong style={{ wordBreak: 'break-all' }}>
+          {item.name}
+        </Typography.Text>
+        <Typography.Text type="secondary" className="gyre-figures">
+          {item.kind} · {formatBytes(item.sizeBytes)}
+        </Typography.Text>
+      </Flex>
+      {item.status === 'uploading' && (
+        <Progress
+          percent={Math.round(item.percent)}
+          size="small"
+          status="active"
+          aria-label={`Upload of ${item.name}`}
+        />
+      )}
+      {item.status === 'accepted' && (
+        <Typography.Text type="success">
+          Received and checked; the computation is queued.
+          {item.replaces !== null &&
+            ' It replaces the earlier recording, which stays listed as superseded.'}
+          {item.confirmKind && ' The confirmed kind stays on the recording as a warning.'}
+        </Typography.Text>
+      )}
+      {item.status === 'rejected' && item.rejection !== undefined && (
+        <div role="alert">
+          <Typography.Text type="danger" strong>
+            Not accepted.{' '}
+          </Typography.Text>
+          <RejectionText rejection={item.rejection} />
+        </div>
+      )}
+      {item.status === 'error' && (
+        <Typography.Text type="danger" role="alert">
+          {item.message}
+        </Typography.Text>
+      )}
+      {item.status === 'kind-unconfirmed' && <KindMismatch item={item} onResend={onResend} />}
+      {item.status === 'kind-taken' && (
+        <KindTaken item={item} visitId={visitId} onResend={onResend} onDismiss={onDismiss} />
+      )}
+      {item.status === 'dismissed' && (
+        <Alert
+          type="info"
+          showIcon
+          style={{ marginTop: 6 }}
+          title="Not sent; the earlier recording stays the visit's current one."
+        />
+      )}
+    </li>
+  );
+}

@@ -1,0 +1,34 @@
+import type { VisitAnalysisOverrideChange, VisitAnalysisOverrideDto } from '@gyre/shared';
+import { useCallback } from 'react';
+import { useSWRConfig } from 'swr';
+import { apiSend } from '../../../lib/api-client';
+import { visitRecordingsKey } from './get-visit-recordings';
+import { visitOverrideKey } from './get-visit-override';
+
+/** The answer when the choices equal the visit's current ones (409). */
+export const ANALYSIS_OVERRIDE_UNCHANGED = 'ANALYSIS_OVERRIDE_UNCHANGED';
+
+/**
+ * `PUT /api/visits/:visitId/analysis-override`: a new revision of the visit's own choices
+ * (audited, with a reason); the server then computes the visit's recordings again.
+ */
+export function saveVisitOverride(
+  visitId: string,
+  change: VisitAnalysisOverrideChange,
+): Promise<VisitAnalysisOverrideDto> {
+  return apiSend<VisitAnalysisOverrideDto>(visitOverrideKey(visitId), 'PUT', change);
+}
+
+export function useSaveVisitOverride(visitId: string) {
+  const { mutate } = useSWRConfig();
+  return useCallback(
+    async (change: VisitAnalysisOverrideChange) => {
+      const saved = await saveVisitOverride(visitId, change);
+      await mutate(visitOverrideKey(visitId), saved, { revalidate: false });
+      // The re-run shows up in the recordings' states.
+      await mutate(visitRecordingsKey(visitId));
+      return saved;
+    },
+    [mutate, visitId],
+  );
+}

@@ -1,0 +1,287 @@
+import type {
+  AnalysisSettingsValues,
+  VisitAnalysisOverrideChange,
+  VisitAnalysisOverrideDto,
+} from '@gyre/shared';
+import { Alert, Col, Form, Input, InputNumber, Modal, Radio, Row, Select, Typography } from 'antd';
+import type { FormRule } from 'antd';
+import { useState } from 'react';
+import { ApiError } from '../../../lib/api-client';
+import { ANALYSIS_OVERRIDE_UNCHANGED } from '../api/save-visit-override';
+import type { ChannelOption } from './channel-names';
+
+export const OVERRIDE_REASON_MIN_LENGTH = 10;
+
+type Choice = 'study' | 'visit';
+
+export interface OverrideFormValues {
+  roiMode: Choice;
+  roi: string[];
+  bandMode: Choice;
+  bandLowHz: number | null;
+  bandHighHz: number | null;
+  onsetMode: Choice;
+  onsetLabel: string;
+  reason: string;
+}
+
+type StudyValues = Pick<AnalysisSettingsValues, 'roi' | 'bandHz' | 'onsetLabel'>;
+
+export function overrideFormValuesOf(
+  override: VisitAnalysisOverrideDto,
+  study: StudyValues | undefined,
+): OverrideFormValues {
+  const band = override.bandHz ?? study?.bandHz ?? [8, 13];
+  return {
+    roiMode: override.roi === null ? 'study' : 'visit',
+    roi: override.roi ?? study?.roi ?? [],
+    bandMode: override.bandHz === null ? 'study' : 'visit',
+    bandLowHz: band[0],
+    bandHighHz: band[1],
+    onsetMode: override.onsetLabel === null ? 'study' : 'visit',
+    onsetLabel: override.onsetLabel ?? study?.onsetLabel ?? '',
+    reason: '',
+  };
+}
+
+/** The change to send; each choice left to the study is null. */
+export function overrideChangeOf(values: OverrideFormValues): VisitAnalysisOverrideChange {
+  return {
+    roi: values.roiMode === 'visit' ? values.roi : null,
+    bandHz:
+      values.bandMode === 'visit' && values.bandLowHz !== null && values.bandHighHz !== null
+        ? [values.bandLowHz, values.bandHighHz]
+        : null,
+    onsetLabel: values.onsetMode === 'visit' ? values.onsetLabel.trim() : null,
+    reason: values.reason.trim(),
+  };
+}
+
+const studyBandText = (study: StudyValues | undefined) =>
+  study === undefined
+    ? "The study's band"
+    : study.bandHz === null
+      ? "The study's: the visit's IAF ± 2 Hz (8–13 Hz without one)"
+      : `The study's: ${study.bandHz[0].toFixed(2)} to ${study.bandHz[1].toFixed(2)} Hz`;
+
+function numberRule(test: (value: number, get: (name: 'bandLowHz') => unknown) => string | null) {
+  return (({ getFieldValue }: { getFieldValue: (name: 'bandLowHz') => unknown }) => ({
+    validator: async (_rule: unknown, value: number | null) => {
+      if (value === null || value === undefined) return;
+      const problem = test(value, getFieldValue);
+      if (problem !== null) throw new Error(problem);
+    },
+  })) as FormRule;
+}
+
+/**
+ * The visit's own region of interest, band and onset label over the study's settings, with a
+ * reason; saving computes the visit's recordings again.
+ */
+export function OverrideForm({
+  open,
+  override,
+  study,
+  channelOptions,
+  onSave,
+  onClose,
+  onSaved,
+}: {
+  open: boolean;
+  override: VisitAnalysisOverrideDto;
+  study: StudyValues | undefined;
+  /** The file's channels, by their 10-10 names. */
+  channelOptions: ChannelOption[];
+  onSave: (change: VisitAnalysisOverrideChange) => Promise<VisitAnalysisOverrideDto>;
+  onClose: () => void;
+  onSaved: (saved: VisitAnalysisOverrideDto) => void;
+}) {
+  const [form] = Form.useForm<OverrideFormValues>();
+  const [saving, setSaving] = useState(false);
+  const [failure, setFailure] = useState<{ unchanged: boolean; message: string } | null>(null);
+  const roiMode = Form.useWatch('roiMode', form);
+  const bandMode = Form.useWatch('bandMode', form);
+  const onsetMode = Form.useWatch('onsetMode', form);
+  const initial = overrideFormValuesOf(override, study);
+  // A chosen name the files do not hold still shows, so nothing is dropped silently.
+  const options = [
+    ...channelOptions,
+    ...initial.roi
+      .filter((name) => !channelOptions.some((o) => o.value === name))
+      .map((name) => ({ value: name, label: `${name} (not in this visit's files)` })),
+  ];
+
+  const submit = async (values: OverrideFormValues) => {
+    setSaving(true);
+    setFailure(null);
+    try {
+      onSaved(await onSave(overrideChangeOf({ ...initial, ...values })));
+    } catch (error) {
+      setFailure(
+        error instanceof ApiError && error.code === ANALYSIS_OVERRIDE_UNCHANGED
+          ? { unchanged: true, message: error.message }
+          : {
+              unchanged: false,
+              message:
+                error instanceof ApiError
+                  ? error.message
+                  : "The visit's choices could not be saved.",
+            },
+      );
+    } finally {
+      setSaving(false);
+    }
+  };
+
+  return (
+    <Modal
+      open={open}
+      title="This visit's analysis choices"
+      okText="Save and re-run this visit"
+      onOk={() => form.submit()}
+      okButtonProps={{ loading: saving }}
+      onCancel={onClose}
+      destroyOnHidden
+    >
+      <Typography.Paragraph type="secondary">
+        For this visit only: other visits keep the study&apos;s settings. Saving computes this
+        visit&apos;s recordings again with these choices.
+      </Typography.Paragraph>
+      <Form<OverrideFormValues>
+        form={form}
+        name="visit-override"
+        aria-label="This visit's analysis choices"
+        layout="vertical"
+        requiredMark={false}
+        initialValues={initial}
+        onFinish={submit}
+      >
+        <Form.Item name="roiMode" label="Region of interest">
+          <Radio.Group
+            options={[
+              {
+                value: 'study',
+                label:
+                  study === undefined
+                    ? "The study's region of interest"
+                    : `The study's: ${study.roi.join(', ')}`,
+              },
+              { value: 'visit', label: 'Channels chosen for this visit' },
+            ]}
+          />
+        </Form.Item>
+        {roiMode === 'visit' && (
+          <Form.Item
+            name="roi"
+            label="Channels for this visit"
+            extra="The scalp channels of this visit's files, by their 10-10 names."
+            rules={[
+              { required: true, type: 'array', min: 1, message: 'Choose at least one channel.' },
+            ]}
+          >
+            <Select mode="multiple" options={options} optionFilterProp="label" />
+          </Form.Item>
+        )}
+        <Form.Item name="bandMode" label="Alpha band">
+          <Radio.Group
+            options={[
+              { value: 'study', label: studyBandText(study) },
+              { value: 'visit', label: 'A fixed band for this visit' },
+            ]}
+          />
+        </Form.Item>
+        {bandMode === 'visit' && (
+          <Row gutter={12}>
+            <Col xs={24} sm={12}>
+              <Form.Item
+                name="bandLowHz"
+                label="Band low edge"
+                rules={[
+                  { required: true, message: 'Enter the low edge in Hz.' },
+                  numberRule((v) => (v < 1 ? 'The low edge must be at least 1 Hz.' : null)),
+                ]}
+              >
+                <InputNumber suffix="Hz" step={0.5} style={{ width: '100%' }} />
+              </Form.Item>
+            </Col>
+            <Col xs={24} sm={12}>
+              <Form.Item
+                name="bandHighHz"
+                label="Band high edge"
+                dependencies={['bandLowHz']}
+                rules={[
+                  { required: true, message: 'Enter the high edge in Hz.' },
+                  numberRule((v, get) => {
+                    if (v > 40) return 'The high edge must be at most 40 Hz.';
+                    const low = get('bandLowHz');
+                    return typeof low === 'number' && v - low < 1
+                      ? 'The band must be at least 1 Hz wide (high edge above the low edge).'
+                      : null;
+                  }),
+                ]}
+              >
+                <InputNumber suffix="Hz" step={0.5} style={{ width: '100%' }} />
+              </Form.Item>
+            </Col>
+          </Row>
+        )}
+        <Form.Item name="onsetMode" label="Onsets">
+          <Radio.Group
+            options={[
+              {
+                value: 'study',
+                label:
+                  study === undefined
+                    ? "The study's onset label"
+                    : study.onsetLabel === null
+                      ? "The study's: every onset"
+                      : `The study's: “${study.onsetLabel}”`,
+              },
+              { value: 'visit', label: 'Another onset label for this visit' },
+            ]}
+          />
+        </Form.Item>
+        {onsetMode === 'visit' && (
+          <Form.Item
+            name="onsetLabel"
+            label="Onset label for this visit"
+            extra="Annotation text or CSV label of the onsets to use."
+            rules={[{ required: true, whitespace: true, message: 'Enter the onset label.' }]}
+          >
+            <Input maxLength={200} />
+          </Form.Item>
+        )}
+        <Form.Item
+          name="reason"
+          label="Why this visit needs its own choices"
+          rules={[
+            { required: true, whitespace: true, message: 'A reason is required.' },
+            {
+              validator: async (_rule, value: string | undefined) => {
+                const length = (value ?? '').trim().length;
+                if (length > 0 && length < OVERRIDE_REASON_MIN_LENGTH) {
+                  throw new Error(
+                    `Write at least ${OVERRIDE_REASON_MIN_LENGTH} characters (${length} so far).`,
+                  );
+                }
+              },
+            },
+          ]}
+        >
+          <Input.TextArea rows={2} maxLength={2000} />
+        </Form.Item>
+        {failure !== null && (
+          <Alert
+            role="alert"
+            type={failure.unchanged ? 'info' : 'error'}
+            showIcon
+            title={failure.unchanged ? 'Nothing changed' : failure.message}
+            description={
+              failure.unchanged ? `${failure.message} Nothing was saved or re-run.` : undefined
+            }
+          />
+        )}
+      </Form>
+    </Modal>
+  );
+}

@@ -1,0 +1,83 @@
+import type {
+  AnalysisSettingsDto,
+  RecordingDto,
+  RecordingResultsDto,
+  ReportSignOffDto,
+  VisitAnalysisOverrideDto,
+  VisitFlagDto,
+} from '@gyre/shared';
+import { SIGNATURE_MEANING } from '@gyre/shared';
+import { http, HttpResponse } from 'msw';
+import { STUDY } from '../../../test/fixtures';
+import { server } from '../../../test/msw-server';
+import {
+  NO_FLAG,
+  NO_OVERRIDE,
+  PARTICIPANT,
+  RECORDINGS,
+  REPORT,
+  REST_RESULTS,
+  SETTINGS,
+  TASK_RESULTS,
+  VISIT,
+} from './review-fixtures';
+
+export interface ReviewServed {
+  recordings?: RecordingDto[];
+  task?: RecordingResultsDto;
+  rest?: RecordingResultsDto;
+  /** `null` leaves the flag to the test's own handler. */
+  flag?: VisitFlagDto | null;
+  override?: VisitAnalysisOverrideDto;
+  settings?: AnalysisSettingsDto;
+}
+
+/** Every request the Review screen makes for one visit, answered from the fixtures. */
+export function serveReview(served: ReviewServed = {}) {
+  const recordings = served.recordings ?? RECORDINGS;
+  if (served.flag !== null) {
+    server.use(
+      http.get(`/api/visits/${VISIT.id}/flag`, () => HttpResponse.json(served.flag ?? NO_FLAG)),
+    );
+  }
+  server.use(
+    http.get(`/api/visits/${VISIT.id}`, () => HttpResponse.json(VISIT)),
+    http.get(`/api/participants/${PARTICIPANT.id}`, () => HttpResponse.json(PARTICIPANT)),
+    http.get('/api/recordings', ({ request }) => {
+      if (new URL(request.url).searchParams.get('visitId') !== VISIT.id) {
+        return HttpResponse.json({ message: 'another visit' }, { status: 400 });
+      }
+      return HttpResponse.json({
+        items: recordings,
+        total: recordings.length,
+        page: 1,
+        pageSize: 200,
+      });
+    }),
+    http.get('/api/recordings/rec-task/results', () =>
+      HttpResponse.json(served.task ?? TASK_RESULTS),
+    ),
+    http.get('/api/recordings/rec-resting/results', () =>
+      HttpResponse.json(served.rest ?? REST_RESULTS),
+    ),
+    http.get(`/api/studies/${STUDY.id}/analysis-settings`, () =>
+      HttpResponse.json(served.settings ?? SETTINGS),
+    ),
+    http.get(`/api/visits/${VISIT.id}/analysis-override`, () =>
+      HttpResponse.json(served.override ?? NO_OVERRIDE),
+    ),
+    http.get(`/api/visits/${VISIT.id}/report`, () => HttpResponse.json(REPORT)),
+    // The report card's sign-off panel (features/signoff): a draft nobody has signed yet.
+    http.get(`/api/visits/${VISIT.id}/report/sign-off`, () =>
+      HttpResponse.json({
+        report: REPORT,
+        meaning: SIGNATURE_MEANING,
+        draftFingerprint: 'f'.repeat(64),
+        pendingRevision: 1,
+        canSign: true,
+        cannotSignReason: null,
+        revisions: [],
+      } satisfies ReportSignOffDto),
+    ),
+  );
+}

@@ -1,0 +1,33 @@
+import type { AnalysisSettingsDto, Page } from '@gyre/shared';
+import useSWR from 'swr';
+import { apiFetch, withQuery } from '../../../lib/api-client';
+import { analysisSettingsKey } from './get-analysis-settings';
+
+export const VERSIONS_PAGE_SIZE = 10;
+
+/** `GET /api/studies/:studyId/analysis-settings/versions`: every version, newest first. */
+export const analysisSettingsVersionsKey = (studyId: string, page: number) =>
+  withQuery(`${analysisSettingsKey(studyId)}/versions`, {
+    page,
+    pageSize: VERSIONS_PAGE_SIZE,
+    order: 'desc',
+  });
+
+/** Every page of the versions list, so that a new version refreshes whichever page is shown. */
+export const isAnalysisSettingsVersionsKey = (studyId: string) => (key: unknown) =>
+  typeof key === 'string' && key.startsWith(`${analysisSettingsKey(studyId)}/versions`);
+
+export function getAnalysisSettingsVersions(
+  studyId: string,
+  page: number,
+): Promise<Page<AnalysisSettingsDto>> {
+  return apiFetch<Page<AnalysisSettingsDto>>(analysisSettingsVersionsKey(studyId, page));
+}
+
+export function useAnalysisSettingsVersions(studyId: string | null, page: number) {
+  return useSWR<Page<AnalysisSettingsDto>>(
+    studyId === null ? null : analysisSettingsVersionsKey(studyId, page),
+    () => getAnalysisSettingsVersions(studyId ?? '', page),
+    { keepPreviousData: true },
+  );
+}

@@ -1,0 +1,110 @@
+import type { AnalysisSettingsDto } from '@gyre/shared';
+import { Flex, Pagination, Skeleton, Tag, Typography } from 'antd';
+import { useState } from 'react';
+import { GYRE_COLORS } from '../../../app/theme';
+import { EmptyState, ErrorState } from '../../../components/page-states';
+import { formatDateTime } from '../../../lib/format';
+import {
+  useAnalysisSettingsVersions,
+  VERSIONS_PAGE_SIZE,
+} from '../api/get-analysis-settings-versions';
+import { PersonName } from './person-name';
+import { settingChangeText } from './settings-words';
+
+function Version({
+  version,
+  current,
+  meId,
+}: {
+  version: AnalysisSettingsDto;
+  current: boolean;
+  meId: string;
+}) {
+  return (
+    <section
+      aria-label={`Version ${version.version}`}
+      style={{ padding: '12px 0', borderBottom: `1px solid ${GYRE_COLORS.line}` }}
+    >
+      <Flex gap={8} wrap align="baseline">
+        <Typography.Text strong>Version {version.version}</Typography.Text>
+        {current && <Tag color={GYRE_COLORS.primary}>current</Tag>}
+        <Typography.Text type="secondary" className="gyre-figures">
+          {formatDateTime(version.createdAt)} · by{' '}
+          <PersonName userId={version.createdById} meId={meId} studyId={version.studyId} />
+        </Typography.Text>
+      </Flex>
+      <Typography.Paragraph style={{ margin: '4px 0' }}>
+        <q>{version.reason}</q>
+      </Typography.Paragraph>
+      {version.changes.length === 0 ? (
+        <Typography.Text type="secondary">
+          {version.version === 1
+            ? "The study's first settings."
+            : 'No setting differs from the version before.'}
+        </Typography.Text>
+      ) : (
+        <ul
+          aria-label={`Changes in version ${version.version}`}
+          className="gyre-figures"
+          style={{ margin: 0, paddingLeft: 18 }}
+        >
+          {version.changes.map((change) => (
+            <li key={change.field}>{settingChangeText(change)}</li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}
+
+/** Every settings version, newest first, each with its reason and what it changed. */
+export function SettingsVersions({
+  studyId,
+  currentVersion,
+  meId,
+}: {
+  studyId: string;
+  currentVersion: number | null;
+  meId: string;
+}) {
+  const [page, setPage] = useState(1);
+  const versions = useAnalysisSettingsVersions(studyId, page);
+  if (versions.error !== undefined) {
+    return (
+      <ErrorState
+        title="The versions could not be loaded"
+        error={versions.error}
+        onRetry={() => void versions.mutate()}
+      />
+    );
+  }
+  if (versions.data === undefined) return <Skeleton active paragraph={{ rows: 6 }} />;
+  if (versions.data.items.length === 0) {
+    return <EmptyState description="No settings version yet." />;
+  }
+  return (
+    <>
+      <section aria-label="Settings versions">
+        {versions.data.items.map((version) => (
+          <Version
+            key={version.id}
+            version={version}
+            current={version.version === currentVersion}
+            meId={meId}
+          />
+        ))}
+      </section>
+      {versions.data.total > VERSIONS_PAGE_SIZE && (
+        <Pagination
+          style={{ marginTop: 12 }}
+          current={page}
+          pageSize={VERSIONS_PAGE_SIZE}
+          total={versions.data.total}
+          onChange={setPage}
+          showSizeChanger={false}
+          size="small"
+        />
+      )}
+    </>
+  );
+}

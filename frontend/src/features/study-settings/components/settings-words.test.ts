@@ -1,0 +1,27 @@
+import { describe, expect, it } from 'vitest';
+import { settingChangeText, settingValueText } from './settings-words';
+
+describe('settings in words', () => {
+  it('gives each kind of value its unit', () => {
+    expect(settingValueText('postWindowS', [0.2, 0.8])).toBe('0.20 to 0.80 s');
+    expect(settingValueText('bandHz', [8, 12.5])).toBe('8.00 to 12.50 Hz');
+    expect(settingValueText('rejectionThresholdUv', 150)).toBe('150 µV');
+    expect(settingValueText('flagThresholdHz', -0.25)).toBe('Δf ≤ -0.25 Hz');
+    expect(settingValueText('morletCycles', 7)).toBe('7 cycles');
+  });
+
+  it('names the automatic band and "every onset" instead of showing null', () => {
+    expect(settingValueText('bandHz', null)).toBe("visit's IAF ± 2 Hz (8–13 Hz without one)");
+    expect(settingValueText('onsetLabel', null)).toBe('every onset');
+    expect(settingValueText('onsetLabel', 'S  1')).toBe('“S  1”');
+  });
+
+  it('reads a change as before → after', () => {
+    expect(
+      settingChangeText({ field: 'roi', before: ['O1', 'O2', 'Pz'], after: ['O1', 'Pz'] }),
+    ).toBe('Region of interest: O1, O2, Pz → O1, Pz');
+    expect(settingChangeText({ field: 'method', before: 'filter', after: 'morlet' })).toBe(
+      'Narrow-band method: zero-phase band-pass → Morlet wavelet',
+    );
+  });
+});
