@@ -39,10 +39,41 @@ export interface AuditEntryView {
 
 /** `GET /api/audit/verify`. */
 export interface AuditVerifyResult {
+  /** The chain holds and agrees with every signed checkpoint. */
   intact: boolean;
   /** Entries checked, in sequence order. */
   checked: number;
-  /** The first entry whose stored hash, link or sequence number does not hold. */
+  /**
+   * The first entry whose stored hash, link or sequence number does not hold, or (when the
+   * chain itself holds) the first entry a signed checkpoint shows was deleted or rewritten.
+   */
   firstBroken: { seq: number; reason: string } | null;
   lastHash: string | null;
+  /** The trail against the signed checkpoints kept outside the database. */
+  anchors: AuditAnchorsCheck;
+}
+
+/** One signed checkpoint of the audit chain: its newest entry when the line was written. */
+export interface AuditCheckpointView {
+  /** Line number in the anchor file (1 = first). */
+  line: number;
+  seq: number;
+  hash: string;
+  at: string;
+}
+
+/** The checks of `GET /api/audit/verify` against the anchor file (`audit-anchors.jsonl`). */
+export interface AuditAnchorsCheck {
+  /** Every line is signed with Gyre's anchor key, links to the line before, and matches the table. */
+  intact: boolean;
+  /** Lines of the anchor file read. */
+  checkpoints: number;
+  /** The newest correctly signed checkpoint. */
+  latest: AuditCheckpointView | null;
+  /** Entries written after the newest checkpoint (not anchored yet). */
+  unanchored: number;
+  /** SHA-256 (hex) of the public anchor key (SubjectPublicKeyInfo DER) the lines were checked with. */
+  keyFingerprint: string | null;
+  /** Each finding in plain words; empty when intact. */
+  problems: string[];
 }

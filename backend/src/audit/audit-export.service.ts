@@ -1,13 +1,18 @@
 import { Injectable } from '@nestjs/common';
 import type { Response } from 'express';
 import { Caller } from '../auth/decorators';
+import { pipeline } from 'node:stream/promises';
+import { AuditAnchorService } from './audit-anchor.service';
 import { csvHeader, csvLine } from './audit-csv';
 import { AuditService } from './audit.service';
 import { AuditQueryDto } from './dto/audit-query.dto';
 
 @Injectable()
 export class AuditExportService {
-  constructor(private readonly audit: AuditService) {}
+  constructor(
+    private readonly audit: AuditService,
+    private readonly anchors: AuditAnchorService,
+  ) {}
 
   /** Records the export first (so it is in the trail even if the download breaks), then streams. */
   async streamCsv(caller: Caller, query: AuditQueryDto, response: Response): Promise<void> {
@@ -33,5 +38,33 @@ export class AuditExportService {
       }
     }
     response.end();
+  }
+
+  /**
+   * The signed checkpoints as stored (JSON Lines, byte for byte, so each line's link to the one
+   * before can be recomputed), beside the CSV whose columns stay as they are. Audited first.
+   */
+  async streamAnchors(caller: Caller, response: Response): Promise<void> {
+    await this.audit.record({
+      actor: caller.user,
+      action: 'export',
+      objectType: 'AuditEntry',
+      objectId: null,
+      after: { format: 'anchors-jsonl' },
+      clientIp: caller.clientIp,
+    });
+    response.status(200);
+    response.setHeader('Content-Type', 'application/x-ndjson; charset=utf-8');
+    response.setHeader(
+      'Content-Disposition',
+      `attachment; filename="gyre-audit-anchors-${new Date().toISOString().slice(0, 10)}.jsonl"`,
+    );
+    response.setHeader('X-Gyre-Anchor-Key-Sha256', this.anchors.keyFingerprint());
+    const file = this.anchors.openAnchorFile();
+    if (file === null) {
+      response.end();
+      return;
+    }
+    await pipeline(file, response);
   }
 }

@@ -10,6 +10,7 @@ import {
 import type { Response } from 'express';
 import type { AuditEntryView, AuditVerifyResult, Page } from '@gyre/shared';
 import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
+import { AuditAnchorService } from './audit-anchor.service';
 import { AuditExportService } from './audit-export.service';
 import { AuditService } from './audit.service';
 import { AuditQueryDto } from './dto/audit-query.dto';
@@ -23,6 +24,7 @@ export class AuditController {
   constructor(
     private readonly audit: AuditService,
     private readonly exporter: AuditExportService,
+    private readonly anchors: AuditAnchorService,
   ) {}
 
   @Get()
@@ -38,7 +40,10 @@ export class AuditController {
 
   @Get('verify')
   @RequirePermission('read', 'AuditEntry')
-  @ApiOperation({ summary: 'Whether the hash chain is intact, and the first broken entry' })
+  @ApiOperation({
+    summary:
+      'Whether the hash chain is intact and agrees with every signed checkpoint (truncation, re-hashing), and the first broken entry',
+  })
   @ApiOkResponse({ type: AuditVerifyResponseDto })
   verify(): Promise<AuditVerifyResult> {
     return this.audit.verify();
@@ -55,5 +60,31 @@ export class AuditController {
     @Res() response: Response,
   ): Promise<void> {
     await this.exporter.streamCsv(caller, query, response);
+  }
+
+  @Get('anchors.jsonl')
+  @RequirePermission('export', 'AuditEntry')
+  @ApiOperation({
+    summary:
+      'The signed checkpoints of the chain (audit-anchors.jsonl as stored; the download is audited)',
+  })
+  @ApiProduces('application/x-ndjson')
+  @ApiOkResponse({
+    description: 'JSON Lines, one Ed25519-signed checkpoint per line, oldest first',
+  })
+  async exportAnchors(@CurrentCaller() caller: Caller, @Res() response: Response): Promise<void> {
+    await this.exporter.streamAnchors(caller, response);
+  }
+
+  @Get('anchor-key.pem')
+  @RequirePermission('read', 'AuditEntry')
+  @ApiOperation({ summary: 'The public key (Ed25519, SPKI PEM) that checks the anchor lines' })
+  @ApiProduces('application/x-pem-file')
+  @ApiOkResponse({ description: 'PEM text' })
+  anchorKey(@Res() response: Response): void {
+    response.status(200);
+    response.setHeader('Content-Type', 'application/x-pem-file; charset=utf-8');
+    response.setHeader('X-Gyre-Anchor-Key-Sha256', this.anchors.keyFingerprint());
+    response.send(this.anchors.publicKeyPem());
   }
 }

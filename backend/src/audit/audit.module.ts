@@ -1,6 +1,7 @@
 import { Global, Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditEntry } from './audit-entry.entity';
+import { AuditAnchorService } from './audit-anchor.service';
 import { AuditController } from './audit.controller';
 import { AuditExportService } from './audit-export.service';
 import { AuditService } from './audit.service';
@@ -10,7 +11,7 @@ import { AuditService } from './audit.service';
 @Module({
   imports: [TypeOrmModule.forFeature([AuditEntry])],
   controllers: [AuditController],
-  providers: [AuditService, AuditExportService],
+  providers: [AuditService, AuditExportService, AuditAnchorService],
   exports: [AuditService],
 })
 export class AuditModule {}

@@ -16,8 +16,11 @@ import { toPage } from '../common/pagination/page';
 import { sqliteHandleOf } from '../common/database/sqlite-handle';
 import { nowIso } from '../common/time';
 import { canonicalJson, chainHash, ChainedContent, GENESIS_HASH } from './audit-chain';
+import { AuditAnchorService } from './audit-anchor.service';
+import { ChainWalk, contentOf } from './audit-chain-walk';
 import { AuditEntry } from './audit-entry.entity';
 import { AuditError } from './audit.errors';
+import { combineVerify } from './audit-verify';
 import { AuditQueryDto } from './dto/audit-query.dto';
 
 /** Who did it. An `AuthUser` fits; `null` for the system or an unknown caller. */
@@ -62,6 +65,7 @@ export class AuditService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @InjectRepository(AuditEntry) private readonly entries: Repository<AuditEntry>,
+    private readonly anchors: AuditAnchorService,
   ) {
     this.append = (input) => {
       const db = sqliteHandleOf(this.dataSource);
@@ -102,7 +106,9 @@ export class AuditService {
 
   /** Appends one entry and returns it. */
   async record(input: AuditRecordInput): Promise<AuditEntryView> {
-    return toView(this.append(input));
+    const row = this.append(input);
+    this.anchors.noteAppended(row.seq);
+    return toView(row);
   }
 
   async list(ability: AppAbility, query: AuditQueryDto): Promise<Page<AuditEntryView>> {
@@ -126,11 +132,13 @@ export class AuditService {
     }
   }
 
-  /** Recomputes every hash in sequence order and names the first entry that does not hold. */
+  /**
+   * Recomputes every hash in sequence order and names the first entry that does not hold, then
+   * holds the trail against every signed checkpoint of the anchor file (truncation, re-hashing).
+   */
   async verify(): Promise<AuditVerifyResult> {
-    let previous = GENESIS_HASH;
-    let expectedSeq = 1;
-    let checked = 0;
+    const anchors = await this.anchors.check();
+    const walk = new ChainWalk();
     for (let afterSeq = 0; ;) {
       const batch = await this.entries
         .createQueryBuilder('e')
@@ -138,32 +146,11 @@ export class AuditService {
         .orderBy('e.seq', 'ASC')
         .take(1000)
         .getMany();
-      for (const row of batch) {
-        const broken = (reason: string): AuditVerifyResult => ({
-          intact: false,
-          checked,
-          firstBroken: { seq: row.seq, reason },
-          lastHash: previous,
-        });
-        if (row.seq !== expectedSeq) {
-          return broken(
-            `sequence jumps from ${expectedSeq - 1} to ${row.seq}: entries are missing`,
-          );
-        }
-        if (row.prevHash !== previous) {
-          return broken('its previous-hash link does not match the entry before it');
-        }
-        if (chainHash(row.prevHash, contentOf(row)) !== row.hash) {
-          return broken('its content does not match its hash: the entry was altered');
-        }
-        previous = row.hash;
-        expectedSeq += 1;
-        checked += 1;
-      }
+      if (!batch.every((row) => walk.push(row))) break;
       if (batch.length < 1000) break;
       afterSeq = batch[batch.length - 1].seq;
     }
-    return { intact: true, checked, firstBroken: null, lastHash: checked === 0 ? null : previous };
+    return combineVerify(walk.result(), anchors);
   }
 }
 
@@ -188,24 +175,6 @@ function filtersOf(query: AuditQueryDto): FindOptionsWhere<AuditEntry> {
   } else if (from !== undefined) where.at = MoreThanOrEqual(from);
   else if (to !== undefined) where.at = LessThanOrEqual(to);
   return where;
-}
-
-function contentOf(row: ChainedContent): ChainedContent {
-  return {
-    seq: row.seq,
-    at: row.at,
-    actorId: row.actorId,
-    actorEmail: row.actorEmail,
-    action: row.action,
-    objectType: row.objectType,
-    objectId: row.objectId,
-    studyId: row.studyId,
-    siteId: row.siteId,
-    before: row.before,
-    after: row.after,
-    reason: row.reason,
-    clientIp: row.clientIp,
-  };
 }
 
 function parseJson(text: string | null): unknown {

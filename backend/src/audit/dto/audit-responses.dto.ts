@@ -1,5 +1,11 @@
 import { ApiProperty } from '@nestjs/swagger';
-import type { AuditEntryView, AuditVerifyResult, Page } from '@gyre/shared';
+import type {
+  AuditAnchorsCheck,
+  AuditCheckpointView,
+  AuditEntryView,
+  AuditVerifyResult,
+  Page,
+} from '@gyre/shared';
 
 export class AuditEntryResponseDto implements AuditEntryView {
   @ApiProperty() seq: number;
@@ -31,9 +37,26 @@ class BrokenEntryDto {
   @ApiProperty() reason: string;
 }
 
+class CheckpointDto implements AuditCheckpointView {
+  @ApiProperty({ description: 'Line number in the anchor file' }) line: number;
+  @ApiProperty() seq: number;
+  @ApiProperty() hash: string;
+  @ApiProperty() at: string;
+}
+
+class AnchorsCheckDto implements AuditAnchorsCheck {
+  @ApiProperty() intact: boolean;
+  @ApiProperty({ description: 'Lines of the anchor file read' }) checkpoints: number;
+  @ApiProperty({ type: CheckpointDto, nullable: true }) latest: CheckpointDto | null;
+  @ApiProperty({ description: 'Entries after the newest checkpoint' }) unanchored: number;
+  @ApiProperty({ type: String, nullable: true }) keyFingerprint: string | null;
+  @ApiProperty({ type: [String], description: 'Each finding in plain words' }) problems: string[];
+}
+
 export class AuditVerifyResponseDto implements AuditVerifyResult {
   @ApiProperty() intact: boolean;
   @ApiProperty() checked: number;
   @ApiProperty({ type: BrokenEntryDto, nullable: true }) firstBroken: BrokenEntryDto | null;
   @ApiProperty({ type: String, nullable: true }) lastHash: string | null;
+  @ApiProperty({ type: AnchorsCheckDto }) anchors: AnchorsCheckDto;
 }
