@@ -1,0 +1,116 @@
+/**
+ * A small `npm run crash-test` in the suite: the built CLI (dist/robustness/cli/crash-test.js)
+ * SIGKILLs the built server 3 times at seeded moments while clients upload and re-run, restarts
+ * it on the same data folder, lets it settle and checks what is left
+ * (src/robustness/crash/crash-checks.ts); this test reads its JSON report. The CLI runs in a
+ * process of its own because jest's module sandbox makes generating the recordings ~30 times
+ * slower. The full run (20 kills) and its figures are in docs/reliability.md.
+ */
+import { execFileSync, spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import type { CrashTestReport } from '../src/robustness/crash/crash-test';
+import { formatCrashReport } from '../src/robustness/crash/crash-test';
+import type { UploadRaceResult } from '../src/robustness/crash/upload-race-probe';
+
+const REPO = resolve(__dirname, '..', '..');
+
+function newestMtime(path: string): number {
+  if (!existsSync(path)) return 0;
+  const stats = statSync(path);
+  if (!stats.isDirectory()) return stats.mtimeMs;
+  return Math.max(0, ...readdirSync(path).map((entry) => newestMtime(join(path, entry))));
+}
+
+/**
+ * dist/ older than a source (the rule of scripts/build-if-stale.mjs). `npm test` builds before
+ * jest starts, so in the suite this is normally false and the 10–45 s of tsc are saved; after
+ * an edit and a lone `npx jest test/crash-restart` it is true and dist is rebuilt.
+ */
+function distIsStale(): boolean {
+  const built = Math.min(
+    newestMtime(join(REPO, 'backend/dist/main.js')) || 0,
+    newestMtime(join(REPO, 'shared/dist/index.js')) || 0,
+  );
+  const sources = Math.max(
+    ...['backend/src', 'backend/tsconfig.json', 'backend/tsconfig.build.json', 'shared/src'].map(
+      (p) => newestMtime(join(REPO, p)),
+    ),
+  );
+  return built === 0 || sources > built;
+}
+
+describe('a server killed 3 times during uploads and computations', () => {
+  let report: CrashTestReport;
+
+  beforeAll(() => {
+    if (distIsStale()) {
+      execFileSync('npm', ['run', 'build', '-w', 'shared'], { cwd: REPO, stdio: 'ignore' });
+      execFileSync('npx', ['tsc', '-p', 'backend/tsconfig.build.json'], {
+        cwd: REPO,
+        stdio: 'inherit',
+      });
+    }
+    const out = mkdtempSync(join(tmpdir(), 'gyre-crash-report-'));
+    const json = join(out, 'report.json');
+    // Exit code 1 means a check failed: the report says which, and the tests below judge it.
+    const run = spawnSync(
+      process.execPath,
+      [
+        join(REPO, 'backend/dist/robustness/cli/crash-test.js'),
+        '--kills',
+        '3',
+        '--quick',
+        '--probe-upload-race',
+        '--json',
+        json,
+      ],
+      { encoding: 'utf8', timeout: 150_000 },
+    );
+    if (!existsSync(json))
+      throw new Error(`crash test gave no report:\n${run.stdout}\n${run.stderr}`);
+    report = JSON.parse(readFileSync(json, 'utf8')) as CrashTestReport;
+    rmSync(out, { recursive: true, force: true });
+  }, 170_000);
+
+  it('kills the server while work is in progress', () => {
+    expect(report.kills).toHaveLength(3);
+    // Kills that found nothing running would test nothing.
+    const inProgress = report.kills.reduce(
+      (n, k) => n + k.jobsRunningAtKill + k.uploadsInFlight,
+      0,
+    );
+    expect(inProgress).toBeGreaterThan(0);
+    expect(report.uploads.byStatus['201'] ?? 0).toBeGreaterThanOrEqual(2);
+  });
+
+  it('leaves nothing transient, no orphan, every accepted upload ready and the audit chain intact', () => {
+    // Known bug (docs/reliability.md, "Crash test"): a kill between moving an accepted file into
+    // uploads/ and committing its acceptance leaves the file of a recording then rejected as
+    // interrupted. Its window is milliseconds, so only some runs hit it; the race test below
+    // shows the same bug every time. Remove this filter together with that test's `.failing`.
+    const knownBug =
+      /^orphan file uploads\/[0-9a-f]{64}\.edf \(its checksum belongs to \S+ rejected\)$/;
+    const problems = report.check.problems.filter((p) => !knownBug.test(p));
+    // The command keeps its data folder after any problem; only the known one: not needed.
+    if (problems.length === 0) rmSync(report.dataDir, { recursive: true, force: true });
+    // On failure the whole report is the message: the problems, the seed and the kept data folder.
+    expect(problems.length === 0 ? 'none' : formatCrashReport(report, 'jest')).toBe('none');
+    expect(report.check.finalStates.ready ?? 0).toBeGreaterThanOrEqual(2);
+    expect(report.check.auditEntriesChecked).toBeGreaterThan(0);
+  });
+
+  it('accepts one of two concurrent uploads of a kind to one visit and refuses the other', () => {
+    const race = report.probe as UploadRaceResult;
+    expect(race).toMatchObject({ collided: true, statuses: [201, 409] });
+    expect(race.refused?.state).toBe('rejected');
+  });
+
+  // Known bug (docs/reliability.md, "Crash test"): the refused upload's file was moved into
+  // uploads/ before the database refused it, and stays there, owned by a rejected recording.
+  // Passes once fixed: then drop `.failing` (and the filter above).
+  it.failing('keeps no file of the refused concurrent upload', () => {
+    expect((report.probe as UploadRaceResult).refused?.fileKept).toBe(false);
+  });
+});
