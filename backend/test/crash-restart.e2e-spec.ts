@@ -86,14 +86,9 @@ describe('a server killed 3 times during uploads and computations', () => {
   });
 
   it('leaves nothing transient, no orphan, every accepted upload ready and the audit chain intact', () => {
-    // Known bug (docs/reliability.md, "Crash test"): a kill between moving an accepted file into
-    // uploads/ and committing its acceptance leaves the file of a recording then rejected as
-    // interrupted. Its window is milliseconds, so only some runs hit it; the race test below
-    // shows the same bug every time. Remove this filter together with that test's `.failing`.
-    const knownBug =
-      /^orphan file uploads\/[0-9a-f]{64}\.edf \(its checksum belongs to \S+ rejected\)$/;
-    const problems = report.check.problems.filter((p) => !knownBug.test(p));
-    // The command keeps its data folder after any problem; only the known one: not needed.
+    // A kill between storing an accepted file and committing its acceptance once left the file
+    // behind; the restart now removes a stored file no accepted recording names.
+    const problems = report.check.problems;
     if (problems.length === 0) rmSync(report.dataDir, { recursive: true, force: true });
     // On failure the whole report is the message: the problems, the seed and the kept data folder.
     expect(problems.length === 0 ? 'none' : formatCrashReport(report, 'jest')).toBe('none');
@@ -107,10 +102,9 @@ describe('a server killed 3 times during uploads and computations', () => {
     expect(race.refused?.state).toBe('rejected');
   });
 
-  // Known bug (docs/reliability.md, "Crash test"): the refused upload's file was moved into
-  // uploads/ before the database refused it, and stays there, owned by a rejected recording.
-  // Passes once fixed: then drop `.failing` (and the filter above).
-  it.failing('keeps no file of the refused concurrent upload', () => {
+  // The refused upload's file was moved into uploads/ before the database refused it; it is
+  // now removed when the transaction fails.
+  it('keeps no file of the refused concurrent upload', () => {
     expect((report.probe as UploadRaceResult).refused?.fileKept).toBe(false);
   });
 });

@@ -285,19 +285,40 @@ describe('Review and Participants in Chromium, on a real server', () => {
     expect(flag.current?.raiseReason).toBe(FLAG_REASON);
     await screenshot(page, 'review-analyst-flagged');
 
-    // A new settings version (post window to +0.9 s) re-runs the visit; each result names it.
+    // A new study settings version (post window to +0.9 s) is saved on its own screen and
+    // re-runs nothing; Review then says what the new version would change, and re-runs on request.
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Study settings' })
+      .click();
     const settings = page.getByRole('form', { name: 'Analysis settings' });
     await settings.getByLabel('Post end').fill('0.9');
-    await settings.getByRole('button', { name: 'Save version 2 and re-run' }).click();
-    await settings.getByText('Say why the settings change.').waitFor();
     await settings.getByLabel('Reason for the change').fill('Longer post window after the pilot');
-    await settings.getByRole('button', { name: 'Save version 2 and re-run' }).click();
+    await settings.getByRole('button', { name: 'Save version 2' }).click();
+    await page.getByText('version 2', { exact: false }).first().waitFor();
+    await expect(
+      page.getByRole('note', { name: 'Research use caution' }).innerText(),
+    ).resolves.toContain(CAUTION);
+    await screenshot(page, 'study-settings-analyst');
+    // Saving the same values again is refused in words.
+    await settings.getByLabel('Reason for the change').fill('Saving the same values once more');
+    await settings.getByRole('button', { name: 'Save version 3' }).click();
+    await page.getByText('Nothing changed', { exact: false }).first().waitFor();
+    const unchanged = await api<RecordingResultsDto>(
+      gyre.baseUrl,
+      analystToken,
+      'GET',
+      `/api/recordings/${recordings['V1-task'].id}/results`,
+    );
+    expect(unchanged.run.settingsVersion).toBe(1);
+    expect(unchanged.run.staleSettings).toEqual(['post window 0.2–0.8 s → 0.2–0.9 s']);
+
+    await page.goto(`${gyre.baseUrl}/review/${visit.id}`);
+    const stale = page.getByLabel('Computed with older settings').first();
+    await stale.getByText('post window 0.2–0.8 s → 0.2–0.9 s', { exact: false }).waitFor();
+    await stale.getByRole('button', { name: 'Re-run with the current settings' }).click();
     await page
       .getByTestId('settings-version-task')
-      .getByText('version 2')
-      .waitFor({ timeout: 240_000 });
-    await page
-      .getByTestId('settings-version-resting')
       .getByText('version 2')
       .waitFor({ timeout: 240_000 });
     const rerun = await api<RecordingResultsDto>(

@@ -44,6 +44,7 @@ export class ComputationsService implements OnApplicationBootstrap, OnModuleDest
   private pumping: Promise<void> | null = null;
   private pumpAgain = false;
   private wakeTimer: NodeJS.Timeout | null = null;
+  private wakeAt = 0;
   private readonly inFlight = new Set<Promise<void>>();
 
   constructor(
@@ -57,8 +58,8 @@ export class ComputationsService implements OnApplicationBootstrap, OnModuleDest
   ) {}
 
   async onApplicationBootstrap(): Promise<void> {
-    await this.recordings.recoverComputations(await this.queue.recover());
-    await this.recordings.requeueOrphans();
+    await this.queue.recover();
+    await this.recordings.reconcileAfterRestart();
     this.pump();
   }
 
@@ -86,7 +87,12 @@ export class ComputationsService implements OnApplicationBootstrap, OnModuleDest
         this.pumpAgain = false;
         while (!this.stopping && this.running < this.pool.analysisThreads) {
           const job = await this.queue.claim<ComputationPayload>(ANALYSIS_LANE);
-          if (job === null) break;
+          if (job === null) {
+            // Jobs released to wait for their visit's rest come due later: look again then.
+            const dueInMs = await this.queue.nextDueInMs(ANALYSIS_LANE);
+            if (dueInMs !== null) this.wakeIn(Math.max(dueInMs, 50));
+            break;
+          }
           if (await this.recordings.waitsForRest(job.payload.recordingId)) {
             await this.queue.release(job.id, REST_WAIT_MS);
             this.wakeIn(REST_WAIT_MS);
@@ -233,8 +239,13 @@ export class ComputationsService implements OnApplicationBootstrap, OnModuleDest
     };
   }
 
+  /** One timer, always set for the earliest wake-up anyone asked for. */
   private wakeIn(ms: number): void {
-    if (this.wakeTimer !== null || this.stopping) return;
+    if (this.stopping) return;
+    const at = Date.now() + ms;
+    if (this.wakeTimer !== null && this.wakeAt <= at) return;
+    if (this.wakeTimer !== null) clearTimeout(this.wakeTimer);
+    this.wakeAt = at;
     this.wakeTimer = setTimeout(() => {
       this.wakeTimer = null;
       this.pump();

@@ -59,4 +59,6 @@ export interface JobQueue {
   latestBySubject(subjectIds: readonly string[]): Promise<Map<string, QueuedJob>>;
   /** Jobs queued or running, in one lane or all. */
   activeCount(lane?: string): Promise<number>;
+  /** When the lane's earliest waiting (released) job becomes due, ms from now; null if none waits. */
+  nextDueInMs(lane: string): Promise<number | null>;
 }

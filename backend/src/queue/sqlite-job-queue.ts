@@ -151,6 +151,17 @@ export class SqliteJobQueue implements JobQueue {
     return latest;
   }
 
+  async nextDueInMs(lane: string): Promise<number | null> {
+    const row = await this.dataSource
+      .getRepository(QueueJob)
+      .createQueryBuilder('j')
+      .select('MIN(j.runAfter)', 'runAfter')
+      .where('j.lane = :lane AND j.state = :state', { lane, state: 'queued' })
+      .getRawOne<{ runAfter: string | null }>();
+    if (row === undefined || row.runAfter === null) return null;
+    return Math.max(0, Date.parse(row.runAfter) - Date.now());
+  }
+
   activeCount(lane?: string): Promise<number> {
     return this.dataSource.getRepository(QueueJob).count({
       where: {

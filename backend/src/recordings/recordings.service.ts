@@ -1,6 +1,6 @@
 import { createHash, randomUUID } from 'node:crypto';
 import { createReadStream } from 'node:fs';
-import { mkdir, rename, rm, stat, unlink } from 'node:fs/promises';
+import { mkdir, readdir, rename, rm, stat, unlink } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { Readable } from 'node:stream';
 import { Inject, Injectable, Logger } from '@nestjs/common';
@@ -32,7 +32,7 @@ import { APP_CONFIG } from '../config/config.module';
 import { WorkerPoolService } from '../jobs/worker-pool.service';
 import type { RecordingFacts } from '../jobs/worker/worker-tasks';
 import { JOB_QUEUE } from '../queue/job-queue';
-import type { FailOutcome, JobQueue, QueuedJob, RecoveredJob } from '../queue/job-queue';
+import type { FailOutcome, JobQueue, QueuedJob } from '../queue/job-queue';
 import type { Visit } from '../visits/visit.entity';
 import { RecordingListQueryDto } from './dto/recording-list-query.dto';
 import { RecordingEventsService } from './recording-events.service';
@@ -427,57 +427,53 @@ export class RecordingsService {
     );
   }
 
-  /** After a restart: recordings whose job the stopped server left running. */
-  async recoverComputations(recovered: readonly RecoveredJob[]): Promise<void> {
-    await this.writes.run(async (tx) => {
-      for (const { job, willRetry } of recovered) {
-        const payload = job.payload as ComputationPayload;
-        const row = await tx.getRepository(Recording).findOneBy({ id: payload.recordingId });
-        if (row === null || row.state !== 'computing') continue;
-        await this.lifecycle.transition(
-          tx,
-          row,
-          willRetry ? 'queued' : 'failed',
-          { actor: null, action: willRetry ? 'attempt-failed' : 'fail', reason: job.error },
-          { failureMessage: job.error },
-        );
-      }
-    });
-  }
-
   /**
-   * After a restart: a recording left queued without a live job (its job finished or failed
-   * but the recording's move was lost) gets a fresh job, so nothing waits for ever.
+   * After a restart (the queue has already settled the jobs a stopped server left running):
+   * every recording still waiting or computing gets back in line with its job. A computing
+   * recording follows its job (queued again, or failed after the last attempt); one whose job
+   * finished or vanished without it, and a queued one without a live job, get a fresh job.
    */
-  async requeueOrphans(): Promise<number> {
+  async reconcileAfterRestart(): Promise<void> {
     const waiting = await this.dataSource
       .getRepository(Recording)
       .find({ where: { state: In(['queued', 'computing']) } });
-    if (waiting.length === 0) return 0;
+    if (waiting.length === 0) return;
     const jobs = await this.queue.latestBySubject(waiting.map((r) => r.id));
-    const orphans = waiting.filter((r) => {
-      const job = jobs.get(r.id);
-      return job === undefined || job.state === 'done' || job.state === 'failed';
-    });
+    let requeued = 0;
     await this.writes.run(async (tx) => {
-      for (const row of orphans) {
-        const fresh = await tx.getRepository(Recording).findOneByOrFail({ id: row.id });
-        if (fresh.state === 'computing') {
-          await this.lifecycle.transition(tx, fresh, 'queued', {
+      for (const stale of waiting) {
+        const row = await tx.getRepository(Recording).findOneByOrFail({ id: stale.id });
+        const job = jobs.get(row.id);
+        const live = job !== undefined && (job.state === 'queued' || job.state === 'running');
+        const reason = job?.error ?? 'the server stopped during the computation';
+        if (row.state === 'computing' && job?.state === 'failed') {
+          await this.lifecycle.transition(
+            tx,
+            row,
+            'failed',
+            { actor: null, action: 'fail', reason },
+            { failureMessage: reason },
+          );
+          continue;
+        }
+        if (row.state === 'computing') {
+          await this.lifecycle.transition(tx, row, 'queued', {
             actor: null,
             action: 'attempt-failed',
-            reason: 'the server stopped during the computation',
+            reason,
           });
         }
-        await this.queue.enqueue<ComputationPayload>(tx, {
-          lane: ANALYSIS_LANE,
-          subjectId: row.id,
-          payload: { recordingId: row.id, trigger: 'retry', requestedById: null, reason: null },
-        });
+        if (!live) {
+          await this.queue.enqueue<ComputationPayload>(tx, {
+            lane: ANALYSIS_LANE,
+            subjectId: row.id,
+            payload: { recordingId: row.id, trigger: 'retry', requestedById: null, reason: null },
+          });
+          requeued += 1;
+        }
       }
     });
-    if (orphans.length > 0) this.logger.warn(`Queued ${orphans.length} recording(s) again`);
-    return orphans.length;
+    if (requeued > 0) this.logger.warn(`Queued ${requeued} recording(s) again after a restart`);
   }
 
   async views(rows: Recording[]): Promise<RecordingDto[]> {
@@ -489,9 +485,19 @@ export class RecordingsService {
     });
   }
 
-  /** Uploads cut short by a restart: their temporary files are gone with the request. */
+  /**
+   * Uploads cut short by a restart: their temporary files are gone with the request, and a
+   * stored file that no accepted recording names (the stop fell between storing the file and
+   * the transaction that accepts it) is removed.
+   */
   async recoverInterruptedUploads(tempDir: string): Promise<void> {
     await rm(tempDir, { recursive: true, force: true });
+    const stored = await readdir(this.config.uploadsDir).catch(() => [] as string[]);
+    for (const name of stored.filter((n) => n.endsWith('.edf'))) {
+      if (await this.removeIfUnreferenced(name)) {
+        this.logger.warn(`Removed ${name}: no accepted recording names it (interrupted upload)`);
+      }
+    }
     const stale = await this.dataSource
       .getRepository(Recording)
       .find({ where: { state: In(['received', 'validating']) } });
@@ -510,7 +516,7 @@ export class RecordingsService {
           {
             rejectionJson: JSON.stringify({
               message:
-                'The upload was interrupted by a server restart before the file was checked; upload it again.',
+                'The upload was interrupted by a server restart before it was accepted; upload it again.',
               field: null,
               found: null,
               expected: null,
@@ -741,6 +747,8 @@ export class RecordingsService {
         return accepted;
       });
     } catch (error) {
+      // Nothing of a refused upload stays: the file goes unless another recording names it.
+      if (!exists) await this.removeIfUnreferenced(storedFile);
       // Another upload of this kind was accepted for the visit meanwhile.
       if (!isUniqueViolation(error)) throw error;
       const rejection: RecordingRejection = {
@@ -762,6 +770,16 @@ export class RecordingsService {
     }
     const [view] = await this.views([queued]);
     return view;
+  }
+
+  /** Deletes a stored file that no accepted (non-rejected) recording names; true if deleted. */
+  private async removeIfUnreferenced(storedFile: string): Promise<boolean> {
+    const named = await this.dataSource
+      .getRepository(Recording)
+      .count({ where: { storedFile, state: Not('rejected') } });
+    if (named > 0) return false;
+    await unlink(join(this.config.uploadsDir, storedFile)).catch(() => undefined);
+    return true;
   }
 
   private async queueComputation(

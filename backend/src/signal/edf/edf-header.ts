@@ -12,6 +12,9 @@ import { EdfFormatError } from './edf-format-error';
 import { parseEdfInteger, parseEdfNumber } from './edf-numbers';
 import type { EdfHeader, EdfHeaderInfo, EdfSignalHeader } from './edf.types';
 
+/** The longest data record the reader accepts: 31 days (common practice: records last seconds). */
+export const MAX_RECORDING_S = 31 * 86_400;
+
 /** Fixed part of the header (Kemp et al. 1992). */
 export const EDF_FIXED_HEADER_BYTES = 256;
 /** Header bytes per signal (Kemp et al. 1992). */
@@ -328,6 +331,14 @@ export function readEdfHeader(headerBytes: Uint8Array, fileSizeBytes: number): E
   const recordDurationS = parseEdfNumber(fixedField(headerBytes, 'recordDuration'), durationName);
   if (recordDurationS <= 0) {
     throw new EdfFormatError(durationName, `${recordDurationS} s`, 'more than 0 s');
+  }
+  // Finite but absurd (9.9e307 s) makes every time in the file infinite: a broken header.
+  if (recordDurationS > MAX_RECORDING_S) {
+    throw new EdfFormatError(
+      durationName,
+      `${recordDurationS} s`,
+      `at most ${MAX_RECORDING_S} s (${MAX_RECORDING_S / 86_400} days)`,
+    );
   }
 
   const signalHeaders = parseSignalHeaders(headerBytes, signalCount, recordDurationS);

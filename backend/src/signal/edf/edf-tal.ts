@@ -70,11 +70,16 @@ export function parseTals(bytes: Uint8Array, where: string): Tal[] {
     const sign = bytes[pos];
     if (sign !== PLUS && sign !== MINUS) fail(show(sign), "'+' or '-' starting a TAL onset");
     pos++;
-    const onsetS = Number(readDecimal('onset')) * (sign === MINUS ? -1 : 1);
+    const onsetText = readDecimal('onset');
+    const onsetS = Number(onsetText) * (sign === MINUS ? -1 : 1);
+    // 400 digits are a valid decimal and an infinite time: a broken file, not a long one.
+    if (!Number.isFinite(onsetS)) fail(`'${onsetText.slice(0, 20)}…'`, 'a finite onset');
     let durationS: number | null = null;
     if (bytes[pos] === DURATION_MARK) {
       pos++;
-      durationS = Number(readDecimal('duration'));
+      const durationText = readDecimal('duration');
+      durationS = Number(durationText);
+      if (!Number.isFinite(durationS)) fail(`'${durationText.slice(0, 20)}…'`, 'a finite duration');
     }
     if (bytes[pos] !== TEXT_END) fail(show(bytes[pos]), '0x14 after the onset/duration');
     pos++;
