@@ -28,7 +28,7 @@ describe('analysis settings', () => {
     reason: 'Pilot review: narrower window after onset',
   };
 
-  it('starts at version 1 with the defaults of METHOD.md §2–3', async () => {
+  it('starts at version 1 with the defaults of docs/method.md §2–3', async () => {
     const response = await request(t.url)
       .get(path)
       .set(await t.authHeader('monitor'));

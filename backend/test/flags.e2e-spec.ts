@@ -58,7 +58,7 @@ describe('flags, reports and trajectory', () => {
     const status = response.body as VisitFlagDto;
     expect(status.current).toBeNull();
     expect(status.history).toEqual([]);
-    // Generated −0.6 Hz dip, below the default −0.2 Hz threshold (METHOD.md §3).
+    // Generated −0.6 Hz dip, below the default −0.2 Hz threshold (docs/method.md §3).
     expect(status.suggestion).toMatchObject({ suggestsSlowing: true, flagThresholdHz: -0.2 });
     expect(status.suggestion?.roiDeltaFHz).toBeLessThan(-0.2);
     expect(await t.dataSource.query(`SELECT count(*) AS n FROM "flag"`)).toEqual([{ n: 0 }]);

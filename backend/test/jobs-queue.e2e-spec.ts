@@ -159,7 +159,7 @@ describe('job queue', () => {
     // Generated truth: the resting alpha peak is at 9.5 Hz.
     expect(latestRest.pafHz).toBeCloseTo(9.5, 0);
     expect(latestTask.settingsVersion).toBe(2);
-    // METHOD.md §2: without a band in the settings, the task band is the visit's IAF ± 2 Hz.
+    // docs/method.md §2: without a band in the settings, the task band is the visit's IAF ± 2 Hz.
     const iaf = latestRest.pafHz ?? latestRest.cogHz ?? Number.NaN;
     expect(latestTask.bandSource).toBe('iaf');
     expect(latestTask.bandHz[0]).toBeCloseTo(iaf - 2, 12);

@@ -260,7 +260,7 @@ describe('visit report sign-off', () => {
       meaning: SIGNATURE_MEANING,
       fingerprint: draftFingerprint,
     };
-    // Separation of duties (DESIGN.md): admins never sign.
+    // Separation of duties (docs/user-guide.md): admins never sign.
     expect((await sign(body, 'admin')).status).toBe(403);
     expect((await sign(body, 'coordinator')).status).toBe(403);
     // Another study's analyst does not even see the report.
@@ -404,7 +404,7 @@ describe('visit report sign-off', () => {
     expect((await pdf(`/api/reports/${reportId}/file`, 'coordinatorB')).status).toBe(404);
   });
 
-  it('answers each role as DESIGN.md says: 403 never allowed, 404 outside their study or site', async () => {
+  it('answers each role as the role table says: 403 never allowed, 404 outside their study or site', async () => {
     const expected: Array<[UserKey, number, number, number]> = [
       // [user, sign-off state, preview, signed file]
       ['analyst', 200, 200, 200],

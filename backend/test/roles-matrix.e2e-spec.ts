@@ -4,7 +4,7 @@ import { startTestApp, TestApp } from './helpers/test-app';
 
 /**
  * Role × endpoint matrix for studies, sites, users, participants, visits, audit and mail.
- * Expected statuses follow DESIGN.md's role table: 403 where the role may never act, 404 where
+ * Expected statuses follow the role table of docs/user-guide.md ("Who does what"): 403 where the role may never act, 404 where
  * the row lies outside the user's study or site (it is never loaded), 2xx where allowed.
  */
 type Method = 'get' | 'post' | 'patch' | 'delete';

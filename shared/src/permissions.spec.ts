@@ -9,7 +9,7 @@ import {
 } from './permissions';
 import { PARTICIPANT_CODE_PATTERN } from './study-model';
 
-// Expected answers come from DESIGN.md's role table ("what they do" / "what they may not do").
+// Expected answers come from the role table of docs/user-guide.md ("Who does what") ("what they do" / "what they may not do").
 const STUDY = 'study-1';
 const OTHER_STUDY = 'study-2';
 const SITE = 'site-a';

@@ -83,7 +83,7 @@ export function subject<T extends ScopedRow>(
 }
 
 /**
- * The rules of DESIGN.md's role table. Scoped subjects carry `studyId` and, below the study,
+ * The rules of the role table of docs/user-guide.md ("Who does what"). Scoped subjects carry `studyId` and, below the study,
  * `siteId` columns; `Study` rows are matched on `id`, `Site` rows on `id`/`studyId`.
  */
 export function defineRulesFor(user: AbilityUser): AppRule[] {

@@ -351,7 +351,7 @@ export interface ChannelQualityDto {
   phaseSlipShare: number | null;
 }
 
-/** Quality checks shown with every result (METHOD.md §6). */
+/** Quality checks shown with every result (docs/method.md §6). */
 export interface QualityDto {
   durationS: number;
   sampleRatesHz: number[];

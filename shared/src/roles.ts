@@ -1,4 +1,4 @@
-/** The five roles of a Gyre installation (see DESIGN.md, "The job, and the people in it"). */
+/** The five roles of a Gyre installation (see docs/user-guide.md, "Who does what"). */
 export const ROLES = ['technician', 'analyst', 'monitor', 'coordinator', 'admin'] as const;
 export type Role = (typeof ROLES)[number];
 

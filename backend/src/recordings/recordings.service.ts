@@ -493,7 +493,8 @@ export class RecordingsService {
   async recoverInterruptedUploads(tempDir: string): Promise<void> {
     await rm(tempDir, { recursive: true, force: true });
     const stored = await readdir(this.config.uploadsDir).catch(() => [] as string[]);
-    for (const name of stored.filter((n) => n.endsWith('.edf'))) {
+    // Only Gyre's own stored files (named by their SHA-256); anything else is not ours to remove.
+    for (const name of stored.filter((n) => /^[0-9a-f]{64}\.edf$/.test(n))) {
       if (await this.removeIfUnreferenced(name)) {
         this.logger.warn(`Removed ${name}: no accepted recording names it (interrupted upload)`);
       }

@@ -1,6 +1,6 @@
 import type { ThemeConfig } from 'antd';
 
-/** Gyre's look (DESIGN.md "Look"): slate-teal primary, amber for flags and warnings. */
+/** Gyre's look (docs/architecture.md): slate-teal primary, amber for flags and warnings. */
 export const GYRE_COLORS = {
   primary: '#24525A',
   amber: '#C77C02',

@@ -1,6 +1,6 @@
 import { Alert } from 'antd';
 
-/** The caution text of DESIGN.md, word for word. */
+/** The research-use caution, word for word as docs/user-guide.md gives it. */
 export const RESEARCH_CAUTION =
   'Research use only. Not a diagnostic device: do not use these results for clinical decisions. Follow your study protocol, local regulations and licensed clinicians.';
 

@@ -74,7 +74,7 @@ describe('frequencyTrack and phaseFromFrequency', () => {
         }
         return sum / count;
       };
-      // Windows of Gyre METHOD.md §3.
+      // Windows of docs/method.md §3.
       expect(mean(-0.5, 0)).toBeCloseTo(9.8, 12);
       expect(mean(0.2, 0.8)).toBeCloseTo(9.8 + deltaFHz, 12);
       expect(mean(DEFAULT_DIP_SHAPE.fallEndS, 2)).toBeCloseTo(9.8, 12);

@@ -4,7 +4,7 @@
  *
  * Instantaneous frequency is the phase derivative over 2π (Boashash 1992): the generator
  * sets f between samples n and n+1 and accumulates phase φ[n+1] = φ[n] + 2π·f[n+½]/fs, so
- * (φ[n+1] − φ[n])·fs/(2π) — the estimator of Gyre METHOD.md §2 — gives f back exactly.
+ * (φ[n+1] − φ[n])·fs/(2π) — the estimator of docs/method.md §2 — gives f back exactly.
  */
 
 /** Shape of the post-onset frequency change: raised-cosine ramps around a flat plateau. */
@@ -20,7 +20,7 @@ export interface DipShape {
 }
 
 /**
- * The full change over Gyre's post window (+0.2 to +0.8 s, METHOD.md §3) and none in its
+ * The full change over Gyre's post window (+0.2 to +0.8 s, docs/method.md §3) and none in its
  * baseline window (−0.5 to 0 s), so the generated Δf (post − baseline) is exactly Δf.
  */
 export const DEFAULT_DIP_SHAPE: Readonly<DipShape> = Object.freeze({

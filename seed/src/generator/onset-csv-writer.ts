@@ -1,5 +1,5 @@
 /**
- * Writes stimulus onsets as the CSV Gyre reads (`onset_s,label`, Gyre METHOD.md §1), with
+ * Writes stimulus onsets as the CSV Gyre reads (`onset_s,label`, docs/method.md §1), with
  * RFC 4180 quoting for a label that holds a comma, a quote or a line break.
  */
 export function writeOnsetCsv(onsets: ReadonlyArray<{ onsetS: number; label: string }>): string {

@@ -10,7 +10,7 @@ import { scipyReference, ScratchFolder } from './testing/scipy-reference';
 // Every recording here is generated data; the references are numpy/scipy measurements
 // (scipy_reference.py) and the EDF/EDF+ specifications (Kemp et al. 1992; Kemp & Olivan 2003).
 
-/** Gyre's default posterior region of interest (Gyre METHOD.md §1). */
+/** Gyre's default posterior region of interest (docs/method.md §1). */
 const ROI = ['O1', 'O2', 'Oz', 'POz', 'PO3', 'PO4', 'PO7', 'PO8', 'Pz', 'P3', 'P4'];
 
 interface EdfSummary {
@@ -156,7 +156,7 @@ describe('generateTaskRecording (generated data)', () => {
       channel: 'Fp1',
       windows_s: gaps,
     }).max_abs_uv;
-    // Background and frontal alpha alone stay far below Gyre's ±100 µV rejection (METHOD.md §3).
+    // Background and frontal alpha alone stay far below Gyre's ±100 µV rejection (docs/method.md §3).
     expect(Math.max(...inside)).toBeLessThan(50);
     expect(between.filter((v) => v > 60).length).toBeGreaterThan(5);
   });

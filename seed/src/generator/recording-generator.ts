@@ -27,7 +27,7 @@ export const STIMULUS_LABEL = 'Stimulus';
 const PHYSICAL_RANGE_UV = 800;
 /** Share of the background that is common to all channels (reference and volume conduction). */
 const SHARED_BACKGROUND_SHARE = 0.3;
-/** Epoch window of Gyre's default settings (METHOD.md §3): task blinks stay outside it. */
+/** Epoch window of Gyre's default settings (docs/method.md §3): task blinks stay outside it. */
 const EPOCH_WINDOW_S: readonly [number, number] = [-1, 2];
 
 export interface RecordingOptions {

@@ -55,7 +55,7 @@ describe('buildDemoScenario (the invented demo study)', () => {
       for (const v of p.visits) {
         if (p.profile === 'onset-slowing') expect(v.deltaFHz).toBeLessThanOrEqual(-0.4);
         if (p.profile === 'stable') expect(v.deltaFHz).toBeGreaterThan(-0.15);
-        // Slowed alpha stays inside the default 8–13 Hz band (Gyre METHOD.md §2).
+        // Slowed alpha stays inside the default 8–13 Hz band (docs/method.md §2).
         expect(v.iafHz + v.deltaFHz).toBeGreaterThan(8.5);
         expect(v.iafHz).toBeLessThan(11.5);
       }

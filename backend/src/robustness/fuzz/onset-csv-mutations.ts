@@ -1,5 +1,5 @@
 /**
- * Onset CSVs (`onset_s,label[,duration_s]`, Gyre's METHOD.md §1; quoting as RFC 4180) built
+ * Onset CSVs (`onset_s,label[,duration_s]`, Gyre's docs/method.md §1; quoting as RFC 4180) built
  * beside a base recording, and their mutations. The server receives the CSV as bytes and
  * decodes it as UTF-8 (invalid sequences become U+FFFD); byte-level mutations go through the
  * same decoding, so the parser sees exactly what it would see behind the upload.

@@ -49,7 +49,7 @@ describe('normaliseChannelLabel (ACNS Guideline 2, 2016, 10-10 names)', () => {
 });
 
 describe('region of interest', () => {
-  it('is the posterior set of Gyre METHOD.md §1', () => {
+  it('is the posterior set of docs/method.md §1', () => {
     expect([...DEFAULT_POSTERIOR_ROI]).toEqual([
       'O1',
       'O2',

@@ -1,7 +1,7 @@
 import { normaliseChannelLabel } from './channel-labels';
 
 /**
- * Default posterior region of interest for alpha (Gyre METHOD.md §1; 10-10 names
+ * Default posterior region of interest for alpha (docs/method.md §1; 10-10 names
  * per ACNS Guideline 2, 2016).
  */
 export const DEFAULT_POSTERIOR_ROI: readonly string[] = Object.freeze([

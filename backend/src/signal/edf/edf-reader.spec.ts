@@ -74,7 +74,7 @@ describe('readEdf on a plain EDF file written byte by byte', () => {
   it('agrees with edfdecoder 0.1.2, an independent decoder, on the physical values', () => {
     const bytes = plainEdf();
     const decoder = new EdfDecoder();
-    decoder.setInput(bytes.slice().buffer); // edfdecoder needs a real ArrayBuffer (STACK.md)
+    decoder.setInput(bytes.slice().buffer); // edfdecoder needs a real ArrayBuffer (its own documentation)
     decoder.decode();
     const out = decoder.getOutput();
     expect(out).not.toBeNull();
@@ -229,7 +229,7 @@ describe('readEdfHeader while an upload streams', () => {
 
 describe('warnings', () => {
   it('warns (does not fail) when no EEG channel of the region of interest is present', () => {
-    // Gyre METHOD.md §1: posterior region of interest; missing channels are a warning.
+    // docs/method.md §1: posterior region of interest; missing channels are a warning.
     const parts = plainEdfParts();
     parts.signals[0].label = 'EEG Fp1-REF';
     parts.signals[1].label = 'ECG';

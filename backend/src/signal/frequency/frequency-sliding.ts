@@ -125,12 +125,12 @@ export interface FrequencySlidingResult {
   sampleRateHz: number;
   bandHz: [number, number];
   medianWindowsSamples: number[];
-  /** Share of raw values outside `bandHz` (phase slips, METHOD.md §6). */
+  /** Share of raw values outside `bandHz` (phase slips, docs/method.md §6). */
   outOfBandShare: number;
 }
 
 /**
- * "Frequency sliding" of one channel (METHOD.md §2): zero-phase narrow-band analytic
+ * "Frequency sliding" of one channel (docs/method.md §2): zero-phase narrow-band analytic
  * signal in one spectral multiplication (Marple 1999), phase-difference frequency
  * (Boashash 1992), then the median across running medians of 10 window lengths
  * (Cohen 2014, "Fluctuations in oscillation frequency control spike timing and

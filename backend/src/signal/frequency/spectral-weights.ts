@@ -1,7 +1,7 @@
 /**
  * Real, non-negative frequency responses applied by one spectral multiplication.
  * A real response has zero phase, so the filtered time course is not shifted
- * (METHOD.md §2: a phase delay would shift the whole frequency time course).
+ * (docs/method.md §2: a phase delay would shift the whole frequency time course).
  */
 export interface SpectralWeight {
   /** Frequencies outside [lo, hi] get weight 0; only bins inside are evaluated. */

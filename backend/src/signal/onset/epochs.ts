@@ -24,7 +24,7 @@ export interface TrialScreenOptions {
 }
 
 /**
- * Reasons that drop a trial on every channel (METHOD.md §3): the epoch starts or ends
+ * Reasons that drop a trial on every channel (docs/method.md §3): the epoch starts or ends
  * within `edgeGuardS` of the recording's edges (the transform's edge artefacts live
  * there; a gap of EDF+D counts as an edge too), or it overlaps an artefact span. Null
  * keeps the trial.
@@ -49,7 +49,7 @@ export function screenTrials(
 
 /**
  * Whether the raw epoch exceeds ±`limit` (same unit as the samples) after its mean is
- * removed (common practice: ±100 µV; METHOD.md §3).
+ * removed (common practice: ±100 µV; docs/method.md §3).
  */
 export function epochExceedsAmplitude(
   samples: Float32Array | Float64Array,

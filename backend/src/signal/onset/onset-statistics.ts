@@ -7,7 +7,7 @@ import { seededUniform } from './random';
 import { wilcoxonSignedRank, WilcoxonMethod } from './wilcoxon';
 
 export interface BootstrapOptions {
-  /** Resamples (default `BOOTSTRAP_RESAMPLES`, METHOD.md §3). */
+  /** Resamples (default `BOOTSTRAP_RESAMPLES`, docs/method.md §3). */
   resamples?: number;
   /**
    * Seed of the generator (default `BOOTSTRAP_SEED`): every caller that leaves it out gets
@@ -74,7 +74,7 @@ export interface OnsetStatistics {
 }
 
 /**
- * Baseline, post and Δf over trials (METHOD.md §3), with the bootstrap interval of
+ * Baseline, post and Δf over trials (docs/method.md §3), with the bootstrap interval of
  * the mean Δf (Efron & Tibshirani 1993) and the Wilcoxon signed-rank test.
  */
 export function onsetStatistics(

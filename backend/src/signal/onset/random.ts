@@ -1,7 +1,7 @@
 /**
  * Seeded uniform generator on [0, 1) ("mulberry32", a public-domain 32-bit generator;
  * common practice, constants from memory). Fixed seeds make a rerun give the same
- * bootstrap interval (METHOD.md §3). Each call owns its own state.
+ * bootstrap interval (docs/method.md §3). Each call owns its own state.
  */
 export function seededUniform(seed: number): () => number {
   let state = seed | 0;

@@ -13,7 +13,7 @@ function csvError(text: string): OnsetCsvError {
   throw new Error('expected an OnsetCsvError');
 }
 
-describe('parseOnsetCsv (Gyre METHOD.md §1: onset_s,label[,duration_s])', () => {
+describe('parseOnsetCsv (docs/method.md §1: onset_s,label[,duration_s])', () => {
   it('reads onsets with and without a duration column', () => {
     expect(parseOnsetCsv('onset_s,label\n1.5,flash\n2,tone\n', options)).toEqual([
       { onsetS: 1.5, label: 'flash', durationS: null, line: 2 },

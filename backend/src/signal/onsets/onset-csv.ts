@@ -1,6 +1,6 @@
 /**
  * Stimulus onsets from a CSV file: header row `onset_s,label` or
- * `onset_s,label,duration_s`, then one onset per row (Gyre METHOD.md §1). Fields follow
+ * `onset_s,label,duration_s`, then one onset per row (docs/method.md §1). Fields follow
  * RFC 4180 quoting, so a label may hold a comma when quoted (common practice).
  */
 
@@ -52,6 +52,9 @@ const HEADERS = [
 
 /** Splits one CSV line into fields (RFC 4180 quotes; "" inside quotes is one quote). */
 function splitCsvLine(text: string, line: number): string[] {
+  // Most lines hold no quote: one native split instead of a string built a character at a
+  // time (measured: a 4 MiB CSV took 1–2 s that way).
+  if (!text.includes('"')) return text.split(',');
   const fields: string[] = [];
   let field = '';
   let i = 0;

@@ -12,7 +12,7 @@ export interface AnalysisComputationOptions {
   welchSegmentS?: number;
   /** Overlap of consecutive Welch segments, 0…1 (default 0.5, Welch 1967). */
   welchOverlapFraction?: number;
-  /** Where the resting alpha peak is searched, Hz (default 7–13, METHOD.md §4). */
+  /** Where the resting alpha peak is searched, Hz (default 7–13, docs/method.md §4). */
   alphaSearchHz?: readonly [number, number];
   /** Band of the centre of gravity, Hz (default: the search window). */
   cogBandHz?: readonly [number, number];

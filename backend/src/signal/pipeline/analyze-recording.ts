@@ -165,7 +165,7 @@ function countDrops(reasons: readonly (EpochDropReason | null)[]): DropCounts {
 }
 
 /**
- * The whole computation for one recording (METHOD.md §2–§4, §6): per channel the
+ * The whole computation for one recording (docs/method.md §2–§4, §6): per channel the
  * frequency sliding on the continuous recording, the epochs around each onset with
  * their rejection reasons, baseline/post/Δf with bootstrap interval (Efron & Tibshirani
  * 1993) and Wilcoxon test, the same over the region of interest, the resting spectrum

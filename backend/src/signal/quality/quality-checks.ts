@@ -158,7 +158,7 @@ export interface ChannelQuality {
 }
 
 /**
- * Flat and saturation checks of one channel (METHOD.md §6). Saturated: rail runs of at least
+ * Flat and saturation checks of one channel (docs/method.md §6). Saturated: rail runs of at least
  * `saturationMinRunSamples` cover more than `saturatedAboveShare` of the samples.
  */
 export function channelQuality(

@@ -1,7 +1,7 @@
 import { PowerSpectrum } from './welch';
 
 export interface AlphaPeakOptions {
-  /** Where the peak is searched, Hz (default 7–13, METHOD.md §4). */
+  /** Where the peak is searched, Hz (default 7–13, docs/method.md §4). */
   searchHz?: readonly [number, number];
   /** Range of the 1/f background fit, Hz (default 2–40, capped below Nyquist). */
   backgroundFitHz?: readonly [number, number];
@@ -68,7 +68,7 @@ export function fitBackground(
 }
 
 /**
- * Peak alpha frequency (METHOD.md §4): the highest bin in `searchHz`, refined by a
+ * Peak alpha frequency (docs/method.md §4): the highest bin in `searchHz`, refined by a
  * parabola through the log power of it and its two neighbours (vertex offset
  * δ = ½·(y₋ − y₊)/(y₋ − 2y₀ + y₊) bins; common practice). Gyre's "clear peak" rule:
  * the highest bin must be a local maximum inside the window (not on its edge) and

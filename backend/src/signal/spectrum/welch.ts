@@ -2,7 +2,7 @@ import { dftPlan } from '../fft/dft-any-length';
 
 export interface WelchOptions {
   sampleRateHz: number;
-  /** Segment length in s (default 4: 0.25 Hz resolution, METHOD.md §4). */
+  /** Segment length in s (default 4: 0.25 Hz resolution, docs/method.md §4). */
   segmentS?: number;
   /** Overlap of consecutive segments as a fraction of a segment (default 0.5). */
   overlapFraction?: number;

@@ -80,7 +80,7 @@ def electrode(label):
 
 
 def welch(x, fs):
-    # Welch 1967 with 4 s Hann windows and 50 % overlap, as Gyre METHOD.md section 4.
+    # Welch 1967 with 4 s Hann windows and 50 % overlap, as docs/method.md section 4.
     return signal.welch(x, fs=fs, window='hann', nperseg=int(4 * fs), noverlap=int(2 * fs))
 
 

@@ -68,7 +68,7 @@ describe('FlagPanel', () => {
     expect(suggestion).toHaveTextContent('Does not suggest a slowing flag');
     expect(decision).toHaveTextContent('Slowing flag raised');
     expect(decision).toHaveTextContent('Slower after onset than at the last visit');
-    // The decision box is amber (#C77C02, DESIGN.md "Look") while a flag is raised.
+    // The decision box is amber (#C77C02, Gyre's look) while a flag is raised.
     expect(decision).toHaveStyle({ borderColor: '#C77C02' });
     expect(suggestion).not.toHaveStyle({ borderColor: '#C77C02' });
   });

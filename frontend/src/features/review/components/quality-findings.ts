@@ -32,7 +32,7 @@ function lineNoiseWarning(quality: QualityDto): string | null {
 }
 
 /**
- * The quality checks of METHOD.md §6 in plain words. The limits that turn a value into a
+ * The quality checks of docs/method.md §6 in plain words. The limits that turn a value into a
  * warning are common practice for reviewing alpha recordings, not published rules; the
  * server's own warnings are shown beside these, word for word.
  */

@@ -8,7 +8,7 @@ export const ROLE_LABELS: Record<Role, string> = {
   admin: 'Administrator',
 };
 
-/** What each role does, in one line (DESIGN.md's role table). */
+/** What each role does, in one line (the role table of docs/user-guide.md ("Who does what")). */
 export const ROLE_DUTIES: Record<Role, string> = {
   technician: 'Registers visits and uploads recordings at one site.',
   analyst: 'Reviews results of every site, raises or clears slowing flags, signs reports.',
