@@ -302,8 +302,14 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await screenshot(page, 'study-settings-analyst');
     // Saving the same values again is refused in words.
     await settings.getByLabel('Reason for the change').fill('Saving the same values once more');
+    const before = problems.length;
     await settings.getByRole('button', { name: 'Save version 3' }).click();
     await page.getByText('Nothing changed', { exact: false }).first().waitFor();
+    // The refusal is a 409 answer, which Chromium logs as a failed load; nothing else may.
+    expect(problems.slice(before)).toEqual([
+      'error: Failed to load resource: the server responded with a status of 409 (Conflict)',
+    ]);
+    problems.length = before;
     const unchanged = await api<RecordingResultsDto>(
       gyre.baseUrl,
       analystToken,

@@ -202,17 +202,10 @@ describe('every screen of this part in Chromium, on a real server', () => {
     visitId = new URL(page.url()).searchParams.get('visit') ?? '';
     expect(visitId).not.toBe('');
 
+    // A broken file first (refused in plain words), then the good one: once a visit has its
+    // resting recording, a second resting file is an explicit replacement, not an upload.
     const dropzoneInput = page.locator('input[type=file][accept*=".edf"]');
-    await dropzoneInput.setInputFiles(writeRestingEdf(files));
-    await page
-      .getByText('Received and checked; the computation is queued.')
-      .waitFor({ timeout: 60_000 });
     const table = page.locator('.ant-card', { hasText: 'Recordings of this visit' });
-    await table.locator('[data-state="ready"]').waitFor({ timeout: 120_000 });
-    await expect(
-      table.getByText(/EDF\+C · 60\.0 s · 6 channels · 256\.00 Hz/).count(),
-    ).resolves.toBe(1);
-
     await dropzoneInput.setInputFiles(writeTruncatedEdf(files));
     const refused = page.getByRole('list', { name: 'Uploads' }).getByRole('alert');
     await refused.waitFor({ timeout: 60_000 });
@@ -221,6 +214,15 @@ describe('every screen of this part in Chromium, on a real server', () => {
     // The EDF spec ties the file size to the header's record count; the reader names the field.
     expect(refusal.toLowerCase()).toMatch(/record/);
     await table.locator('[data-state="rejected"]').waitFor();
+
+    await dropzoneInput.setInputFiles(writeRestingEdf(files));
+    await page
+      .getByText('Received and checked; the computation is queued.')
+      .waitFor({ timeout: 60_000 });
+    await table.locator('[data-state="ready"]').waitFor({ timeout: 120_000 });
+    await expect(
+      table.getByText(/EDF\+C · 60\.0 s · 6 channels · 256\.00 Hz/).count(),
+    ).resolves.toBe(1);
     await screenshot(page, 'intake-technician');
     // The refusal itself is a 422 answer, which Chromium logs as a failed load; nothing else may.
     expect(problems).toEqual([
