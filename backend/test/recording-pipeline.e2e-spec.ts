@@ -137,6 +137,21 @@ describe('recording pipeline', () => {
       // Generated truth: the frequency dips by 0.4 Hz in the post window.
       expect(Math.abs((a.run.roiDeltaFHz ?? 0) - DIP_HZ)).toBeLessThan(0.05);
     });
+
+    it('says on the trajectory when a task band could not follow a resting IAF', async () => {
+      const lone = await newVisit('V3b');
+      const task = await accepted(lone, 'task', syntheticTaskEdf({ durationS: 30, seed: 42 }));
+      await waitForState(t, 'technician', task.id, ['ready']);
+      const response = await request(t.url)
+        .get(`/api/participants/${t.seed.participants.A1.id}/trajectory`)
+        .set(await t.authHeader('analyst'));
+      expect(response.status).toBe(200);
+      const visits = response.body.visits as Array<{ label: string; doubts: string[] }>;
+      expect(visits.find((v) => v.label === 'V3b')?.doubts).toEqual([
+        'Δf in the 8–13 Hz band: the visit has no resting IAF to follow.',
+      ]);
+      expect(visits.find((v) => v.label === 'V2')?.doubts).toEqual([]);
+    });
   });
 
   describe('kind and replacement', () => {

@@ -442,6 +442,12 @@ export interface TrajectoryVisitDto {
   cogChangeHz: number | null;
   deltaFChangeHz: number | null;
   flagged: boolean;
+  /**
+   * Why a number of this visit may be doubtful, in words: region-of-interest channels left
+   * out, no region-of-interest channel at all, a task band that could not follow a resting
+   * IAF. Empty when nothing is in doubt.
+   */
+  doubts: string[];
 }
 
 export interface TrajectoryDto {

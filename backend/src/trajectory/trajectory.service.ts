@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import type { TrajectoryDto, TrajectoryVisitDto } from '@gyre/shared';
-import { AnalysisRunsService } from '../analysis/analysis-runs.service';
+import type { AnalysisRun } from '../analysis/analysis-run.entity';
+import { AnalysisRunsService, roiUsageOf } from '../analysis/analysis-runs.service';
 import type { Caller } from '../auth/decorators';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { FlagsService } from '../flags/flags.service';
@@ -77,6 +78,7 @@ export class TrajectoryService {
       cogChangeHz: change('cogHz', r.cogHz),
       deltaFChangeHz: change('deltaFHz', r.deltaFHz),
       flagged: flagged.has(r.visit.id),
+      doubts: doubtsOf(runs.filter((run) => run.visitId === r.visit.id)),
     }));
     return {
       participantId,
@@ -84,4 +86,29 @@ export class TrajectoryService {
       slopesHzPerYear: { paf: slope('pafHz'), cog: slope('cogHz'), deltaF: slope('deltaFHz') },
     };
   }
+}
+
+/** What makes a visit's numbers doubtful, as every surface that shows them must say. */
+function doubtsOf(runs: readonly AnalysisRun[]): string[] {
+  const doubts: string[] = [];
+  for (const run of runs) {
+    const what = run.kind === 'task' ? 'Δf' : 'PAF and CoG';
+    const usage = roiUsageOf(run);
+    // A partial region is partial because of its doubtful channels; names a default region
+    // lacks only count when nothing else explains it (then the study named them itself).
+    const notMissing = usage.leftOut.filter((o) => o.reason !== 'missing');
+    const doubtful = notMissing.length > 0 ? notMissing : usage.leftOut;
+    if (usage.status === 'none') {
+      doubts.push(`No ${what}: no region-of-interest channel remains.`);
+    } else if (usage.status === 'partial') {
+      const names = doubtful.map((o) => `${o.label} (${o.reason})`).join(', ');
+      doubts.push(
+        `${what} from ${usage.used.length} of ${usage.wanted.length} region-of-interest channels; left out: ${names}.`,
+      );
+    }
+    if (run.kind === 'task' && run.bandSource === 'default') {
+      doubts.push('Δf in the 8–13 Hz band: the visit has no resting IAF to follow.');
+    }
+  }
+  return doubts;
 }

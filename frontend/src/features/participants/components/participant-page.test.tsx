@@ -56,6 +56,11 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
     expect(rows[2]).toHaveTextContent('10.10 Hz-0.20 Hz');
     expect(rows[2]).toHaveTextContent('-0.25 Hz-0.15 Hz');
     expect(within(rows[2]).getByText('flagged')).toBeInTheDocument();
+    // A doubtful number says so in its row; the first visit has nothing in doubt.
+    expect(within(rows[1]).getByText('nothing')).toBeInTheDocument();
+    expect(within(rows[2]).getByRole('list', { name: 'Doubts about Month 6' })).toHaveTextContent(
+      'left out: EEG Pz-REF (saturated)',
+    );
     // The third visit has no results yet but still opens in Review.
     expect(rows[3]).toHaveTextContent('Month 12');
     expect(within(rows[3]).getByRole('link', { name: 'Review Month 12' })).toHaveAttribute(

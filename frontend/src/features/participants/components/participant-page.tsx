@@ -218,6 +218,24 @@ export function ParticipantPage() {
                   <span style={{ color: 'rgba(29,43,47,0.55)' }}>none</span>
                 ),
             },
+            {
+              // A doubtful number says so beside it, not only on Review.
+              key: 'doubts',
+              title: 'In doubt',
+              render: (_, row) =>
+                (row.numbers?.doubts.length ?? 0) === 0 ? (
+                  <span style={{ color: 'rgba(29,43,47,0.55)' }}>nothing</span>
+                ) : (
+                  <ul
+                    aria-label={`Doubts about ${row.label}`}
+                    style={{ margin: 0, paddingLeft: 16, color: GYRE_COLORS.amber }}
+                  >
+                    {row.numbers?.doubts.map((doubt) => (
+                      <li key={doubt}>{doubt}</li>
+                    ))}
+                  </ul>
+                ),
+            },
           ]}
         />
       </Card>

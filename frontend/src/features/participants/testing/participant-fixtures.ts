@@ -49,6 +49,7 @@ export const TRAJECTORY: TrajectoryDto = {
       cogChangeHz: 0,
       deltaFChangeHz: 0,
       flagged: false,
+      doubts: [],
     },
     {
       visitId: 'v-2',
@@ -61,6 +62,7 @@ export const TRAJECTORY: TrajectoryDto = {
       cogChangeHz: -0.08,
       deltaFChangeHz: -0.154,
       flagged: true,
+      doubts: ['Δf from 2 of 3 region-of-interest channels; left out: EEG Pz-REF (saturated).'],
     },
   ],
   slopesHzPerYear: { paf: -0.4, cog: -0.16, deltaF: -0.3 },
