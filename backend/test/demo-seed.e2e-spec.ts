@@ -13,6 +13,7 @@ import request from 'supertest';
 import type { ReportDto, RecordingDto, TrajectoryDto, VisitFlagDto } from '@gyre/shared';
 import { buildDemoScenario } from '../../seed/src/scenario/demo-scenario';
 import { DemoSeedResult, seedDemo } from '../../seed/src/seeder/demo-seeder';
+import { Accounts } from '../src/accounts/accounts.service';
 import { AuditService } from '../src/audit/audit.service';
 import { PasswordHasher } from '../src/auth/password-hasher.service';
 import { DemoSeedService } from '../src/demo/demo-seed.service';
@@ -44,6 +45,7 @@ beforeAll(async () => {
     t.dataSource,
     t.app.get(AuditService),
     new PasswordHasher(t.config),
+    t.app.get(Accounts),
   );
   seeded = await seedDemo({
     baseUrl: t.url,
@@ -211,6 +213,7 @@ describe('demo seed (small version, generated data)', () => {
       t.dataSource,
       t.app.get(AuditService),
       new PasswordHasher(t.config),
+      t.app.get(Accounts),
     );
     const again = await seedDemo({
       baseUrl: t.url,

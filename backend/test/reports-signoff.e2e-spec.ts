@@ -28,7 +28,7 @@ import { MAX_BACKOFF_MS, MAX_SEND_ATTEMPTS, OutboxService } from '../src/mail/ou
 import { RESEARCH_CAUTION } from '../src/report-document/report-wording';
 import { readPdfText } from '../src/report-document/testing/read-pdf-text';
 import { ReportRevision } from '../src/signoff/report-revision.entity';
-import { User } from '../src/users/user.entity';
+import { User } from '../src/accounts/user.entity';
 import { SEED_PASSWORD, UserKey } from './helpers/seed';
 import { CaughtMail, readMails, waitForMail } from './helpers/mail-catcher';
 import { startTestApp, TEST_PUBLIC_URL, TestApp } from './helpers/test-app';

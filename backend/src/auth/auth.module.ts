@@ -3,12 +3,11 @@ import { APP_GUARD } from '@nestjs/core';
 import { JwtModule } from '@nestjs/jwt';
 import { PassportModule } from '@nestjs/passport';
 import { ThrottlerModule } from '@nestjs/throttler';
-import { TypeOrmModule } from '@nestjs/typeorm';
+import { AccountsModule } from '../accounts/accounts.module';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import { SitesModule } from '../sites/sites.module';
 import { StudiesModule } from '../studies/studies.module';
-import { User } from '../users/user.entity';
 import { AccessTokens } from './access-tokens.service';
 import { AuthThrottlerGuard } from './auth-throttler.guard';
 import { AuthController } from './auth.controller';
@@ -44,7 +43,7 @@ export const AUTH_THROTTLE_LIMIT = 60;
       // The library's headers are suffixed with the throttler's name (`Retry-After-auth`).
       setHeaders: false,
     }),
-    TypeOrmModule.forFeature([User]),
+    AccountsModule,
     StudiesModule,
     SitesModule,
   ],

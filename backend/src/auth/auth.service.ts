@@ -1,7 +1,8 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { InjectRepository } from '@nestjs/typeorm';
-import { EntityManager, Repository } from 'typeorm';
+import { EntityManager } from 'typeorm';
 import { MeResponse, packRulesFor, SessionResponse } from '@gyre/shared';
+import { Accounts } from '../accounts/accounts.service';
+import type { User } from '../accounts/user.entity';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
@@ -14,7 +15,6 @@ import { toSiteView } from '../sites/site-view';
 import { SitesService } from '../sites/sites.service';
 import { StudiesService } from '../studies/studies.service';
 import { toStudyView } from '../studies/study-view';
-import { User } from '../users/user.entity';
 import { toUserView } from '../users/user-view';
 import { ACCESS_TOKEN_LIFETIME_S, AccessTokens } from './access-tokens.service';
 import { AuthError } from './auth.errors';
@@ -51,7 +51,7 @@ const WRONG_CREDENTIALS = 'E-mail or password is wrong.';
 export class AuthService {
   constructor(
     @Inject(APP_CONFIG) private readonly config: AppConfig,
-    @InjectRepository(User) private readonly users: Repository<User>,
+    private readonly accounts: Accounts,
     private readonly writes: WriteTransactions,
     private readonly hasher: PasswordHasher,
     private readonly accessTokens: AccessTokens,
@@ -78,7 +78,7 @@ export class AuthService {
       this.throttles.admit(manager, email, clientIp),
     );
     if (admission.kind === 'refused') throw throttledError(admission.retryAfterMs);
-    const user = await this.users.findOneBy({ email });
+    const user = await this.accounts.byEmail(email);
     const usable =
       user !== null && user.state === 'active' && user.passwordHash !== null ? user : null;
     const passwordRight =
@@ -127,11 +127,7 @@ export class AuthService {
     return this.writes.run(async (manager) => {
       await this.throttles.succeeded(manager, admission);
       const at = nowIso();
-      await manager.update(
-        User,
-        { id: usable.id },
-        { failedSignIns: 0, lockedUntil: null, lastSignInAt: at },
-      );
+      await this.accounts.recordSignIn(usable.id, at, manager);
       const refresh = await this.refreshTokens.issue(manager, usable.id);
       await this.audit.record({
         actor: usable,
@@ -186,7 +182,7 @@ export class AuthService {
     }
     const outcome = await this.writes.run(async (manager) => {
       const rotation = await this.refreshTokens.rotate(manager, secret);
-      const user = await manager.findOneBy(User, { id: rotation.userId });
+      const user = await this.accounts.findById(rotation.userId, manager);
       if (rotation.kind === 'reused') {
         await this.audit.record({
           actor: user ?? { id: rotation.userId, email: null },
@@ -236,7 +232,7 @@ export class AuthService {
     await this.writes.run(async (manager) => {
       const userId = await this.refreshTokens.revokeBySecret(manager, secret);
       if (userId === null) return;
-      const user = await manager.findOneBy(User, { id: userId });
+      const user = await this.accounts.findById(userId, manager);
       await this.audit.record({
         actor: user ?? { id: userId, email: null },
         action: 'sign-out',
@@ -248,7 +244,7 @@ export class AuthService {
   }
 
   async me(authUser: AuthUser): Promise<MeResponse> {
-    const user = await this.users.findOneByOrFail({ id: authUser.id });
+    const user = await this.accounts.byId(authUser.id);
     const study = user.studyId === null ? null : await this.studies.findById(user.studyId);
     const site = user.siteId === null ? null : await this.sites.findById(user.siteId);
     return {
@@ -265,7 +261,7 @@ export class AuthService {
     newPassword: string,
     clientIp: string | null,
   ): Promise<void> {
-    const user = await this.users.findOneByOrFail({ id: authUser.id });
+    const user = await this.accounts.byId(authUser.id);
     if (
       user.passwordHash === null ||
       !(await this.hasher.verify(currentPassword, user.passwordHash))
@@ -295,7 +291,7 @@ export class AuthService {
   /** Always answers the same, whether or not the address belongs to an account. */
   async requestPasswordReset(emailInput: string, clientIp: string | null): Promise<void> {
     const email = emailInput.trim().toLowerCase();
-    const user = await this.users.findOneBy({ email });
+    const user = await this.accounts.byEmail(email);
     if (user === null || user.state !== 'active') {
       await this.audit.record({
         actor: { id: null, email },
@@ -345,7 +341,7 @@ export class AuthService {
   ): Promise<void> {
     await this.writes.run(async (manager) => {
       const userId = await this.oneTimeTokens.consume(manager, token, 'password_reset');
-      const user = await manager.findOneByOrFail(User, { id: userId });
+      const user = await this.accounts.byId(userId, manager);
       assertPasswordAcceptable(newPassword, { field: 'newPassword', email: user.email });
       await this.setPassword(manager, user.id, await this.hasher.hash(newPassword));
       await this.audit.record({
@@ -367,7 +363,7 @@ export class AuthService {
   ): Promise<void> {
     await this.writes.run(async (manager) => {
       const userId = await this.oneTimeTokens.consume(manager, token, 'invitation');
-      const user = await manager.findOneByOrFail(User, { id: userId });
+      const user = await this.accounts.byId(userId, manager);
       if (user.state !== 'invited') {
         throw new GyreException(
           ErrorKind.BadInput,
@@ -378,22 +374,19 @@ export class AuthService {
       }
       assertPasswordAcceptable(password, { field: 'password', email: user.email });
       const passwordHash = await this.hasher.hash(password);
-      const at = nowIso();
-      const changes = {
-        state: 'active' as const,
-        name: name?.trim() ?? user.name,
-        passwordHash,
-        passwordChangedAt: at,
-        updatedAt: at,
-      };
-      await manager.update(User, { id: user.id }, changes);
+      const activatedName = name?.trim() ?? user.name;
+      await this.accounts.activateInvited(
+        user.id,
+        { name: activatedName, passwordHash, at: nowIso() },
+        manager,
+      );
       await this.audit.record({
         actor: user,
         action: 'invitation-accepted',
         objectType: 'User',
         objectId: user.id,
         before: { state: user.state, name: user.name },
-        after: { state: changes.state, name: changes.name },
+        after: { state: 'active', name: activatedName },
         clientIp,
       });
     });
@@ -404,12 +397,7 @@ export class AuthService {
     userId: string,
     passwordHash: string,
   ): Promise<void> {
-    const at = nowIso();
-    await manager.update(
-      User,
-      { id: userId },
-      { passwordHash, passwordChangedAt: at, updatedAt: at, failedSignIns: 0, lockedUntil: null },
-    );
+    await this.accounts.setPasswordHash(userId, passwordHash, nowIso(), manager);
     await this.refreshTokens.revokeAllOfUser(manager, userId, 'password-change');
   }
 

@@ -1,12 +1,12 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { PassportStrategy } from '@nestjs/passport';
-import { InjectRepository } from '@nestjs/typeorm';
+import { InjectEntityManager } from '@nestjs/typeorm';
 import { ExtractJwt, Strategy } from 'passport-jwt';
-import { Repository } from 'typeorm';
+import { EntityManager } from 'typeorm';
+import { Accounts } from '../accounts/accounts.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
-import { User } from '../users/user.entity';
 import { AuthError } from './auth.errors';
 import { AuthUser } from './auth-user';
 import { ACCESS_TOKEN_AUDIENCE, ACCESS_TOKEN_ISSUER } from './access-tokens.service';
@@ -21,7 +21,8 @@ import { RefreshTokens } from './refresh-tokens.service';
 export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
   constructor(
     @Inject(APP_CONFIG) config: AppConfig,
-    @InjectRepository(User) private readonly users: Repository<User>,
+    private readonly accounts: Accounts,
+    @InjectEntityManager() private readonly manager: EntityManager,
     private readonly refreshTokens: RefreshTokens,
   ) {
     super({
@@ -39,9 +40,9 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
     if (typeof payload !== 'object' || payload === null) return false;
     const { sub, sid, typ } = payload as Record<string, unknown>;
     if (typeof sub !== 'string' || typeof sid !== 'string' || typ !== 'access') return false;
-    const user = await this.users.findOneBy({ id: sub });
+    const user = await this.accounts.findById(sub);
     if (user === null || user.state !== 'active') return false;
-    if (!(await this.refreshTokens.isLive(this.users.manager, user.id, sid))) {
+    if (!(await this.refreshTokens.isLive(this.manager, user.id, sid))) {
       throw new GyreException(
         ErrorKind.Unauthenticated,
         AuthError.SessionEnded,

@@ -5,7 +5,7 @@ import { OutboxMessage } from '../mail/outbox-message.entity';
 import { Participant } from '../participants/participant.entity';
 import { Site } from '../sites/site.entity';
 import { Study } from '../studies/study.entity';
-import { User } from '../users/user.entity';
+import { User } from '../accounts/user.entity';
 import { Visit } from '../visits/visit.entity';
 import { Recording } from '../recordings/recording.entity';
 import { QueueJob } from '../queue/queue-job.entity';

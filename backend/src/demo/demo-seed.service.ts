@@ -3,11 +3,12 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import type { UserView } from '@gyre/shared';
+import { Accounts } from '../accounts/accounts.service';
+import type { User } from '../accounts/user.entity';
 import { AuditService } from '../audit/audit.service';
 import { assertPasswordAcceptable } from '../auth/password-policy';
 import { PasswordHasher } from '../auth/password-hasher.service';
 import { nowIso } from '../common/time';
-import { User } from '../users/user.entity';
 import { toUserView } from '../users/user-view';
 
 export interface FirstAdminInput {
@@ -32,6 +33,7 @@ export class DemoSeedService {
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly audit: AuditService,
     private readonly hasher: PasswordHasher,
+    private readonly accounts: Accounts,
   ) {}
 
   /** Creates an active admin when there is no user at all; audited as done by the system. */
@@ -40,7 +42,7 @@ export class DemoSeedService {
     assertPasswordAcceptable(input.password, { field: 'password', email });
     const passwordHash = await this.hasher.hash(input.password);
     return this.dataSource.transaction(async (manager) => {
-      const existingUsers = await manager.count(User);
+      const existingUsers = await this.accounts.count(manager);
       if (existingUsers > 0) return { created: false, existingUsers };
       const at = nowIso();
       const user: User = {
@@ -59,7 +61,7 @@ export class DemoSeedService {
         createdAt: at,
         updatedAt: at,
       };
-      await manager.insert(User, user);
+      await this.accounts.insert(user, manager);
       const view = toUserView(user);
       await this.audit.record({
         actor: null,

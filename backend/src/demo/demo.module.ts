@@ -1,10 +1,9 @@
 import { DynamicModule, Module } from '@nestjs/common';
-import { TypeOrmModule } from '@nestjs/typeorm';
+import { AccountsModule } from '../accounts/accounts.module';
 import { AuditModule } from '../audit/audit.module';
 import { PasswordHasher } from '../auth/password-hasher.service';
 import { AppConfigModule } from '../config/config.module';
 import { DatabaseModule } from '../database/database.module';
-import { User } from '../users/user.entity';
 import { DemoSeedService } from './demo-seed.service';
 
 /**
@@ -16,12 +15,7 @@ export class DemoModule {
   static forRoot(env: Record<string, unknown> = process.env): DynamicModule {
     return {
       module: DemoModule,
-      imports: [
-        AppConfigModule.forRoot(env),
-        DatabaseModule,
-        AuditModule,
-        TypeOrmModule.forFeature([User]),
-      ],
+      imports: [AppConfigModule.forRoot(env), DatabaseModule, AuditModule, AccountsModule],
       providers: [DemoSeedService, PasswordHasher],
       exports: [DemoSeedService],
     };

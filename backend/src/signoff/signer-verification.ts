@@ -1,4 +1,6 @@
 import { Injectable } from '@nestjs/common';
+import { Accounts } from '../accounts/accounts.service';
+import type { User } from '../accounts/user.entity';
 import { AuditService } from '../audit/audit.service';
 import { LOCKOUT_MS, MAX_FAILED_SIGN_INS } from '../auth/auth.service';
 import type { Caller } from '../auth/decorators';
@@ -6,8 +8,6 @@ import { PasswordHasher } from '../auth/password-hasher.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { isoAfter, nowIso } from '../common/time';
-import { User } from '../users/user.entity';
-import { UsersService } from '../users/users.service';
 import { SignoffError } from './signoff.errors';
 
 /**
@@ -21,24 +21,25 @@ export class SignerVerification {
     private readonly writes: WriteTransactions,
     private readonly hasher: PasswordHasher,
     private readonly audit: AuditService,
-    private readonly users: UsersService,
+    private readonly accounts: Accounts,
   ) {}
 
   async verify(caller: Caller, password: string, reportId: string): Promise<User> {
-    const user = await this.writes.run((manager) => this.users.findById(caller.user.id, manager));
+    const user = await this.writes.run((manager) =>
+      this.accounts.findById(caller.user.id, manager),
+    );
     if (user === null || user.state !== 'active' || user.passwordHash === null) {
       throw wrongPassword();
     }
     if (user.lockedUntil !== null && user.lockedUntil > nowIso()) throw locked(user.lockedUntil);
     if (await this.hasher.verify(password, user.passwordHash)) {
       if (user.failedSignIns > 0) {
-        await this.writes.run((m) => m.update(User, { id: user.id }, { failedSignIns: 0 }));
+        await this.writes.run((m) => this.accounts.clearFailedSignIns(user.id, m));
       }
       return user;
     }
     const lockedUntil = await this.writes.run(async (manager) => {
-      await manager.increment(User, { id: user.id }, 'failedSignIns', 1);
-      const fresh = await this.users.byId(user.id, manager);
+      const failedSignIns = await this.accounts.addFailedSignIn(user.id, manager);
       await this.audit.record({
         actor: caller.user,
         action: 'sign-refused',
@@ -47,9 +48,9 @@ export class SignerVerification {
         reason: 'wrong password at signing',
         clientIp: caller.clientIp,
       });
-      if (fresh.failedSignIns < MAX_FAILED_SIGN_INS) return null;
+      if (failedSignIns < MAX_FAILED_SIGN_INS) return null;
       const until = isoAfter(LOCKOUT_MS);
-      await manager.update(User, { id: user.id }, { failedSignIns: 0, lockedUntil: until });
+      await this.accounts.lockUntil(user.id, until, manager);
       await this.audit.record({
         actor: null,
         action: 'account-locked',

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { AccountsModule } from '../accounts/accounts.module';
 import { AnalysisModule } from '../analysis/analysis.module';
 import { AuthModule } from '../auth/auth.module';
 import { FlagsModule } from '../flags/flags.module';
@@ -25,6 +26,7 @@ import { VisitReportContent } from './visit-report-content';
 /** Report sign-off, signed revisions, their PDFs and the coordinator e-mail (issue 7). */
 @Module({
   imports: [
+    AccountsModule,
     AuthModule,
     AnalysisModule,
     RecordingsModule,

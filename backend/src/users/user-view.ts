@@ -1,5 +1,5 @@
 import type { UserView } from '@gyre/shared';
-import { User } from './user.entity';
+import { User } from '../accounts/user.entity';
 
 /** The only way a user leaves the server: no hash, no lockout counters. */
 export function toUserView(user: User): UserView {

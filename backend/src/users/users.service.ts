@@ -1,8 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
-import { InjectRepository } from '@nestjs/typeorm';
-import { EntityManager, FindOptionsWhere, In, Repository } from 'typeorm';
+import { EntityManager, FindOptionsWhere } from 'typeorm';
 import { membershipOf, type Page, type Role, type UserView } from '@gyre/shared';
+import { Accounts } from '../accounts/accounts.service';
+import { User } from '../accounts/user.entity';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { aRole } from '../auth/role-wording';
@@ -23,7 +24,6 @@ import { OutboxService } from '../mail/outbox.service';
 import { SitesService } from '../sites/sites.service';
 import { StudiesService } from '../studies/studies.service';
 import { InviteUserDto, UpdateUserDto, UserQueryDto } from './dto/user.dto';
-import { User } from './user.entity';
 import { toUserView } from './user-view';
 import { UsersError } from './users.errors';
 
@@ -31,7 +31,7 @@ import { UsersError } from './users.errors';
 export class UsersService {
   constructor(
     @Inject(APP_CONFIG) private readonly config: AppConfig,
-    @InjectRepository(User) private readonly users: Repository<User>,
+    private readonly accounts: Accounts,
     private readonly writes: WriteTransactions,
     private readonly audit: AuditService,
     private readonly outbox: OutboxService,
@@ -55,7 +55,7 @@ export class UsersService {
             { ...base, name: containsText(query.q) },
             { ...base, email: containsText(query.q.toLowerCase()) },
           ];
-    const rows = await this.users.findAndCount({
+    const rows = await this.accounts.findPage({
       where: filters.flatMap((filter) => scopedWhere<User>(caller.ability, 'read', 'User', filter)),
       order: { [query.sort ?? 'email']: window.order, id: 'ASC' },
       skip: window.skip,
@@ -74,7 +74,7 @@ export class UsersService {
     const user = await this.writes
       .run(async (manager) => {
         // Checked first so that the usual case is a clean 409, not a logged constraint error.
-        if (await manager.existsBy(User, { email: dto.email })) throw emailTaken(dto.email);
+        if (await this.accounts.emailTaken(dto.email, manager)) throw emailTaken(dto.email);
         const membership = await this.checkMembership(
           manager,
           dto.role,
@@ -96,7 +96,7 @@ export class UsersService {
           createdAt: at,
           updatedAt: at,
         };
-        await manager.insert(User, created);
+        await this.accounts.insert(created, manager);
         await this.audit.record({
           actor: caller.user,
           action: 'invite',
@@ -184,7 +184,7 @@ export class UsersService {
         state: dto.state ?? current.state,
         updatedAt: nowIso(),
       };
-      await manager.save(User, updated);
+      await this.accounts.save(updated, manager);
       const roleChanged =
         updated.role !== current.role ||
         updated.studyId !== current.studyId ||
@@ -265,37 +265,14 @@ export class UsersService {
     return { studyId, siteId };
   }
 
-  /** For other modules (unscoped): the user or null; `manager` reads inside their transaction. */
-  findById(id: string, manager?: EntityManager): Promise<User | null> {
-    return this.repo(manager).findOneBy({ id });
-  }
-
-  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
-  byId(id: string, manager?: EntityManager): Promise<User> {
-    return this.repo(manager).findOneByOrFail({ id });
-  }
-
   /** For other modules, unscoped: display names by user id (unknown ids are left out). */
-  async namesOf(ids: string[], manager?: EntityManager): Promise<Map<string, string>> {
-    const unique = [...new Set(ids)];
-    if (unique.length === 0) return new Map();
-    const users = await this.repo(manager).find({
-      where: { id: In(unique) },
-      select: { id: true, name: true },
-    });
-    return new Map(users.map((u) => [u.id, u.name]));
+  namesOf(ids: string[], manager?: EntityManager): Promise<Map<string, string>> {
+    return this.accounts.namesOf(ids, manager);
   }
 
   /** For other modules, unscoped: the active coordinators of one site, by e-mail address. */
   activeCoordinatorsOf(studyId: string, siteId: string, manager?: EntityManager): Promise<User[]> {
-    return this.repo(manager).find({
-      where: { role: 'coordinator', studyId, siteId, state: 'active' },
-      order: { email: 'ASC' },
-    });
-  }
-
-  private repo(manager: EntityManager | undefined): Repository<User> {
-    return manager?.getRepository(User) ?? this.users;
+    return this.accounts.activeCoordinatorsOf(studyId, siteId, manager);
   }
 
   private async findInScope(
@@ -303,9 +280,9 @@ export class UsersService {
     action: 'read' | 'update' | 'invite',
     id: string,
   ): Promise<User> {
-    const user = await this.users.findOne({
-      where: scopedWhere<User>(caller.ability, action, 'User', { id }),
-    });
+    const user = await this.accounts.findOneWhere(
+      scopedWhere<User>(caller.ability, action, 'User', { id }),
+    );
     if (user === null) {
       throw new GyreException(ErrorKind.NotFound, UsersError.NotFound, `No user ${id}`, { id });
     }

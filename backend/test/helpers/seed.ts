@@ -5,7 +5,7 @@ import type { Role } from '@gyre/shared';
 import { Participant } from '../../src/participants/participant.entity';
 import { Site } from '../../src/sites/site.entity';
 import { Study } from '../../src/studies/study.entity';
-import { User } from '../../src/users/user.entity';
+import { User } from '../../src/accounts/user.entity';
 import { Visit } from '../../src/visits/visit.entity';
 
 /** The password of every seeded account (generated test data; passes the password policy). */

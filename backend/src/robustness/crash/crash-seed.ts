@@ -9,7 +9,7 @@ import type { DataSource } from 'typeorm';
 import { Participant } from '../../participants/participant.entity';
 import { Site } from '../../sites/site.entity';
 import { Study } from '../../studies/study.entity';
-import { User } from '../../users/user.entity';
+import { User } from '../../accounts/user.entity';
 import { Visit } from '../../visits/visit.entity';
 
 /** Password of every crash-test account (generated; passes the password policy). */
