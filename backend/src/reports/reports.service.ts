@@ -75,6 +75,16 @@ export class ReportsService {
     return report;
   }
 
+  /** Inside the signing or mailing transaction: the report's new state (signed, then sent). */
+  async setState(
+    manager: EntityManager,
+    reportId: string,
+    state: 'signed' | 'sent',
+    at: string = nowIso(),
+  ): Promise<void> {
+    await manager.getRepository(Report).update({ id: reportId }, { state, updatedAt: at });
+  }
+
   async list(caller: Caller, query: ReportListQueryDto): Promise<Page<ReportDto>> {
     const window = pageWindowOf(query, 'desc');
     const filters: Partial<Record<'state' | 'siteId' | 'participantId', string>> = {};

@@ -8,7 +8,6 @@ import { nowIso } from '../common/time';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import { OutboxService } from '../mail/outbox.service';
-import { Report } from '../reports/report.entity';
 import { ReportsService } from '../reports/reports.service';
 import { UsersService } from '../users/users.service';
 import { ReportNotification } from './report-notification.entity';
@@ -140,7 +139,7 @@ export class ReportNotifications implements OnModuleInit {
       });
       const reportSent = report.state === 'signed' && latest?.id === revisionId;
       if (reportSent) {
-        await manager.update(Report, { id: report.id }, { state: 'sent', updatedAt: nowIso() });
+        await this.reports.setState(manager, report.id, 'sent');
       }
       await this.audit.record({
         actor: null,

@@ -10,7 +10,7 @@ import { WriteTransactions } from '../common/database/write-transactions.service
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
 import { VisitReportModel } from '../report-document/visit-report-model';
-import { Report } from '../reports/report.entity';
+import type { Report } from '../reports/report.entity';
 import { ReportsService, toReportDto } from '../reports/reports.service';
 import { SignReportDto } from './dto/sign-report.dto';
 import { ReportFiles } from './report-files';
@@ -181,7 +181,7 @@ export class SignoffService {
         sentAt: null,
       });
       await manager.insert(ReportRevision, row);
-      await manager.update(Report, { id: report.id }, { state: 'signed', updatedAt: signedAt });
+      await this.reports.setState(manager, report.id, 'signed', signedAt);
       const [view] = await this.views.of(manager, [row]);
       await this.audit.record({
         actor: caller.user,
