@@ -5,13 +5,15 @@
  * folder, uploads one generated resting and one task recording, waits for their results, then
  * has N concurrent clients (default 50) read the heaviest answers in a loop for S seconds each
  * (default 20): a task recording's results, the participants list and a trajectory. Prints
- * requests, errors and latency percentiles per route. Needs a built backend.
+ * requests, errors and latency percentiles per route, then times a backup of the folder while
+ * the server runs. Needs a built backend.
  */
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Page, ParticipantView, RecordingDto } from '@gyre/shared';
 import { DataSource } from 'typeorm';
+import { createBackup } from '../../backup/backup';
 import { sqliteOptions } from '../../database/database-options';
 import { seedCrashData } from '../crash/crash-seed';
 import { GyreClient } from '../crash/gyre-client';
@@ -139,6 +141,16 @@ async function main(): Promise<number> {
         `  ${f.route}: ${f.requests} requests (${(f.requests / wallS).toFixed(0)}/s), ${f.errors} errors, p50 ${f.p50Ms} ms, p99 ${f.p99Ms} ms, max ${f.maxMs} ms`,
       );
     }
+    // A backup of the folder while the server runs, for the backup figure beside the load.
+    const backupDir = join(tmpdir(), `gyre-load-backup-${process.pid}`);
+    const backupStarted = performance.now();
+    const backup = await createBackup({ dataDir, outDir: backupDir });
+    const backupMs = performance.now() - backupStarted;
+    const backupBytes = backup.manifest.files.reduce((sum, f) => sum + f.bytes, 0);
+    console.log(
+      `  backup while serving: ${backup.manifest.files.length} files, ${(backupBytes / 1e6).toFixed(1)} MB in ${Math.round(backupMs)} ms`,
+    );
+    rmSync(backupDir, { recursive: true, force: true });
     return figures.some((f) => f.errors > 0) ? 1 : 0;
   } finally {
     await dataSource.destroy();
