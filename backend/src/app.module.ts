@@ -22,6 +22,7 @@ import { RecordingsModule } from './recordings/recordings.module';
 import { FlagsModule } from './flags/flags.module';
 import { TrajectoryModule } from './trajectory/trajectory.module';
 import { SignoffModule } from './signoff/signoff.module';
+import { WorkerTokensModule } from './worker-tokens/worker-tokens.module';
 
 @Module({})
 export class AppModule implements NestModule {
@@ -52,6 +53,7 @@ export class AppModule implements NestModule {
         FlagsModule,
         TrajectoryModule,
         SignoffModule,
+        WorkerTokensModule,
       ],
     };
   }

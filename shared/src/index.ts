@@ -7,3 +7,4 @@ export * from './audit';
 export * from './mail';
 export * from './recordings';
 export * from './signoff';
+export * from './worker-tokens';

@@ -42,6 +42,11 @@ export const SUBJECTS = [
   'Report',
   'AuditEntry',
   'Outbox',
+  'WorkerToken',
+  /** What a worker process fetches to compute a job (the stored recording, its settings). */
+  'JobInput',
+  /** What a worker process posts back when a job is done. */
+  'JobResult',
 ] as const;
 export type SubjectName = (typeof SUBJECTS)[number];
 
@@ -166,6 +171,7 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
       can('manage', ['Study', 'Site', 'User']);
       can(['read', 'export'], 'AuditEntry');
       can('read', 'Outbox');
+      can('manage', 'WorkerToken');
       // Separation of duties: whoever manages accounts never signs findings.
       cannot('sign', 'Report');
       cannot(['create', 'update'], 'Flag');
@@ -175,6 +181,21 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
       throw new Error(`Unknown role ${JSON.stringify(user.role satisfies never)}`);
   }
   return rules;
+}
+
+/**
+ * A worker token's rules: it is no user and has no role, study or site. It may fetch what a
+ * job needs and post what the job produced, nothing else; no user's rules name these subjects.
+ */
+export function defineWorkerRules(): AppRule[] {
+  return [
+    { action: 'read', subject: 'JobInput' },
+    { action: 'create', subject: 'JobResult' },
+  ];
+}
+
+export function defineWorkerAbility(): AppAbility {
+  return createMongoAbility<AppAbility>(defineWorkerRules());
 }
 
 export function defineAbilityFor(user: AbilityUser): AppAbility {

@@ -13,8 +13,19 @@ export interface AuthUser {
   siteId: string | null;
 }
 
-/** What the guards attach to an Express request. */
+/**
+ * A worker process authenticated with a worker token (docs/security.md, "Worker tokens"). It
+ * is no user: it has no role, study or site, and only the rules of `defineWorkerRules`.
+ */
+export interface WorkerPrincipal {
+  tokenId: string;
+  /** The token's name, for logs and the audit trail. */
+  name: string;
+}
+
+/** What the guards attach to an Express request: a user or a worker, never both. */
 export interface GyreRequest extends Request {
   user?: AuthUser;
+  worker?: WorkerPrincipal;
   ability?: AppAbility;
 }

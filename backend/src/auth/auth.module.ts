@@ -8,6 +8,7 @@ import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import { SitesModule } from '../sites/sites.module';
 import { StudiesModule } from '../studies/studies.module';
+import { WorkerTokensModule } from '../worker-tokens/worker-tokens.module';
 import { AccessTokens } from './access-tokens.service';
 import { AuthThrottlerGuard } from './auth-throttler.guard';
 import { AuthController } from './auth.controller';
@@ -46,6 +47,8 @@ export const AUTH_THROTTLE_LIMIT = 60;
     AccountsModule,
     StudiesModule,
     SitesModule,
+    // The sign-in guard checks worker tokens (`gyre_wt_…` bearers) with its WorkerTokenAuth.
+    WorkerTokensModule,
   ],
   controllers: [AuthController],
   providers: [

@@ -3,7 +3,7 @@ import type { Action, AppAbility, SubjectName } from '@gyre/shared';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { clientAddressOf } from '../common/http/client-address';
 import { AuthError } from './auth.errors';
-import { AuthUser, GyreRequest } from './auth-user';
+import { AuthUser, GyreRequest, WorkerPrincipal } from './auth-user';
 
 export const REQUIRED_PERMISSION_KEY = 'gyre:requiredPermission';
 export const SIGNED_IN_ONLY_KEY = 'gyre:signedInOnly';
@@ -46,6 +46,24 @@ export const CurrentUser = createParamDecorator(
 /** The signed-in user's CASL ability. */
 export const CurrentAbility = createParamDecorator(
   (_data: unknown, context: ExecutionContext): AppAbility => signedIn(requestOf(context)).ability,
+);
+
+/**
+ * The worker token's holder, on routes that require a worker subject (`JobInput`,
+ * `JobResult`); 401 when the caller is a user or nobody.
+ */
+export const CurrentWorker = createParamDecorator(
+  (_data: unknown, context: ExecutionContext): WorkerPrincipal => {
+    const request = requestOf(context);
+    if (request.worker === undefined) {
+      throw new GyreException(
+        ErrorKind.Unauthenticated,
+        AuthError.SignInRequired,
+        'This route is for worker processes: send a worker token.',
+      );
+    }
+    return request.worker;
+  },
 );
 
 /** Who is calling and from where: what services need for scoping and for the audit trail. */

@@ -3,12 +3,22 @@ import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
 import { IS_PUBLIC_KEY } from '../common/decorators/public.decorator';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { WorkerTokenAuth } from '../worker-tokens/worker-token-auth.service';
+import { workerTokenInHeader } from '../worker-tokens/worker-token-secret';
 import { AuthError } from './auth.errors';
+import { GyreRequest } from './auth-user';
 
-/** The global sign-in guard: every route needs a valid access token unless it is `@Public()`. */
+/**
+ * The global sign-in guard: every route needs a valid access token unless it is `@Public()`.
+ * A `gyre_wt_` bearer is a worker token instead: checked here (401 when unknown or revoked) and
+ * attached as `request.worker`, never as a user; PermissionsGuard then gives it the worker's rules.
+ */
 @Injectable()
 export class JwtAuthGuard extends AuthGuard('jwt') {
-  constructor(private readonly reflector: Reflector) {
+  constructor(
+    private readonly reflector: Reflector,
+    private readonly workerTokens: WorkerTokenAuth,
+  ) {
     super();
   }
 
@@ -18,7 +28,15 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
       context.getClass(),
     ]);
     if (isPublic === true) return true;
+    const request = context.switchToHttp().getRequest<GyreRequest>();
+    const workerToken = workerTokenInHeader(request.headers.authorization);
+    if (workerToken !== null) return this.signInWorker(request, workerToken);
     return super.canActivate(context);
+  }
+
+  private async signInWorker(request: GyreRequest, token: string): Promise<boolean> {
+    request.worker = await this.workerTokens.authenticate(token);
+    return true;
   }
 
   override handleRequest<TUser>(error: unknown, user: TUser | false): TUser {

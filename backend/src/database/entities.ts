@@ -17,6 +17,7 @@ import { Report } from '../reports/report.entity';
 import { ReportRevision } from '../signoff/report-revision.entity';
 import { ReportNotification } from '../signoff/report-notification.entity';
 import { SignInThrottle } from '../auth/sign-in-throttle.entity';
+import { WorkerToken } from '../worker-tokens/worker-token.entity';
 
 /** Every TypeORM entity, listed once; feature modules add theirs here (append only). */
 // A constructor type rather than `Function`, which the lint rules refuse.
@@ -40,4 +41,5 @@ export const ENTITIES: (new () => object)[] = [
   ReportNotification,
   VisitAnalysisOverride,
   SignInThrottle,
+  WorkerToken,
 ];

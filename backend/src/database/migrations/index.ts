@@ -6,6 +6,7 @@ import { RecordingsAndAnalysis1764633800000 } from './1764633800000-recordings-a
 import { ReportSignoff1764633900000 } from './1764633900000-report-signoff';
 import { RecordingPipeline1764700000000 } from './1764700000000-recording-pipeline';
 import { SessionRevocation1764700100000 } from './1764700100000-session-revocation';
+import { WorkerTokens1764700200000 } from './1764700200000-worker-tokens';
 
 /** Every migration in order; add new ones at the end (see DEVELOPERS.md). */
 export const MIGRATIONS = [
@@ -17,4 +18,5 @@ export const MIGRATIONS = [
   ReportSignoff1764633900000,
   RecordingPipeline1764700000000,
   SessionRevocation1764700100000,
+  WorkerTokens1764700200000,
 ];

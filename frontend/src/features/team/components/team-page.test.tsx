@@ -18,6 +18,7 @@ function handlers(onInvite?: (body: unknown) => void) {
     http.get('/api/users', () => HttpResponse.json(page([technician]))),
     http.get('/api/studies', () => HttpResponse.json(page([STUDY]))),
     http.get('/api/sites', () => HttpResponse.json(page([SITE]))),
+    http.get('/api/worker-tokens', () => HttpResponse.json(page([]))),
     http.post('/api/users/invitations', async ({ request }) => {
       const body = await request.json();
       onInvite?.(body);

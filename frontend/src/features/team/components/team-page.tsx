@@ -18,6 +18,7 @@ import { PageHeader } from '../../../components/page-header';
 import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
+import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
 import { useResendInvitation } from '../api/resend-invitation';
 import { useSites } from '../api/sites';
@@ -27,6 +28,7 @@ import { AccountStateForm } from './account-state-form';
 import { EditUserForm } from './edit-user-form';
 import { InviteUserForm } from './invite-user-form';
 import { ROLE_LABELS } from './role-labels';
+import { WorkerTokensSection } from './worker-tokens-section';
 
 const STATE_LOOK: Record<UserState, { label: string; color: string }> = {
   invited: { label: 'Invited', color: '#C77C02' },
@@ -42,9 +44,10 @@ type Dialog =
   | { kind: 'state'; user: UserView; target: 'active' | 'deactivated' }
   | null;
 
-/** Team (admin): accounts, their role and site, invitations and deactivation. */
+/** Team (admin): accounts, their role and site, invitations and deactivation; worker tokens. */
 export function TeamPage() {
   const { me } = useSession();
+  const ability = useAppAbility();
   const { message } = App.useApp();
   const [filters, setFilters] = useState<UserFilters>({});
   const [page, setPage] = useState(1);
@@ -226,6 +229,7 @@ export function TeamPage() {
           />
         )}
       </Card>
+      {ability.can('manage', 'WorkerToken') && <WorkerTokensSection />}
       <InviteUserForm
         open={dialog?.kind === 'invite'}
         onClose={() => setDialog(null)}
