@@ -7,14 +7,16 @@
  *   - Gyre: read the EDF, then per channel band-pass + analytic signal (one FFT pair),
  *     instantaneous frequency, and the median across 10 running medians;
  *   - scripts/bench_scipy.py: the same steps with scipy.fft and scipy.ndimage.median_filter,
- * one after the other, both single-threaded, and prints wall time per stage, peak
- * memory and the ratio Gyre / scipy. With `--repeat R` (default 2) both sides run R
- * times in turn and each stage keeps its fastest run, as the machine may be shared. Reading the EDF is reported but left out of the
- * totals (the two readers do different work: Gyre's validates the whole file).
+ * one after the other, both single-threaded, and prints wall and CPU time per stage
+ * (CPU time of the whole process, so a loaded shared machine disturbs it less than the
+ * wall clock), peak memory and the ratios Gyre / scipy. With `--repeat R` (default 2)
+ * both sides run R times in turn and each stage keeps its fastest run, as the machine
+ * may be shared. Reading the EDF is reported but left out of the totals (the two
+ * readers do different work: Gyre's validates the whole file).
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { readEdf } from '../edf/edf-reader';
@@ -50,6 +52,7 @@ interface GyreMeasurement {
   samplesPerChannel: number;
   readEdfS: number;
   stagesS: Stages;
+  stagesCpuS: Stages;
   peakRssMb: number;
 }
 
@@ -59,6 +62,7 @@ interface ScipyMeasurement {
   channels: number;
   readEdfS: number;
   stagesS: Stages;
+  stagesCpuS: Stages;
   peakRssMb: number;
 }
 
@@ -106,6 +110,11 @@ function measureGyre(path: string, checkPath: string): GyreMeasurement {
   const recording = readEdf(readFileSync(path));
   const readEdfS = (performance.now() - t0) / 1000;
   const stages: Stages = { bandPassAnalytic: 0, frequency: 0, median: 0 };
+  const cpu: Stages = { bandPassAnalytic: 0, frequency: 0, median: 0 };
+  const cpuS = (): number => {
+    const u = process.cpuUsage();
+    return (u.user + u.system) / 1e6;
+  };
   const workspace = new FrequencySlidingWorkspace();
   // Caller-owned outputs, reused by every channel of the same length (no per-channel garbage).
   let raw = new Float64Array(0);
@@ -118,15 +127,22 @@ function measureGyre(path: string, checkPath: string): GyreMeasurement {
       filtered = new Float64Array(signal.samples.length - 1);
     }
     const a = performance.now();
+    const ca = cpuS();
     const z = narrowBandAnalytic(signal.samples, options, workspace);
     const b = performance.now();
+    const cb = cpuS();
     phaseDifferenceFrequency(z, { sampleRateHz: signal.sampleRateHz }, raw);
     const c = performance.now();
+    const cc = cpuS();
     medianFilterFrequency(raw, windows, workspace, filtered);
     const d = performance.now();
+    const cd = cpuS();
     stages.bandPassAnalytic += (b - a) / 1000;
     stages.frequency += (c - b) / 1000;
     stages.median += (d - c) / 1000;
+    cpu.bandPassAnalytic += cb - ca;
+    cpu.frequency += cc - cb;
+    cpu.median += cd - cc;
     if (index === 0) writeFileSync(checkPath, new Uint8Array(filtered.buffer));
   });
   return {
@@ -134,6 +150,7 @@ function measureGyre(path: string, checkPath: string): GyreMeasurement {
     samplesPerChannel: recording.signals[0].samples.length,
     readEdfS,
     stagesS: stages,
+    stagesCpuS: cpu,
     peakRssMb: process.resourceUsage().maxRSS / 1024,
   };
 }
@@ -147,6 +164,13 @@ function runChild(args: string[]): string {
     throw new Error(`bench child ${args.join(' ')} failed:\n${child.stderr}`);
   }
   return child.stdout;
+}
+
+/** The 1, 5 and 15 min load averages: figures from a shared machine need them beside. */
+function loadAverage(): string {
+  return loadavg()
+    .map((x) => x.toFixed(2))
+    .join(' ');
 }
 
 function format(seconds: number): string {
@@ -207,46 +231,65 @@ function runCase(minutes: number, channels: number, fs: number, dir: string, rep
     gyreRuns.push(JSON.parse(runChild(['--child-measure', path, gyreCheck])) as GyreMeasurement);
     scipyRuns.push(runScipy());
   }
-  const fastest = <T extends { stagesS: Stages; readEdfS: number; peakRssMb: number }>(
+  const fastestStages = (all: Stages[]): Stages => ({
+    bandPassAnalytic: Math.min(...all.map((x) => x.bandPassAnalytic)),
+    frequency: Math.min(...all.map((x) => x.frequency)),
+    median: Math.min(...all.map((x) => x.median)),
+  });
+  const fastest = <
+    T extends { stagesS: Stages; stagesCpuS: Stages; readEdfS: number; peakRssMb: number },
+  >(
     runs: T[],
   ): T => ({
     ...runs[0],
     readEdfS: Math.min(...runs.map((x) => x.readEdfS)),
     peakRssMb: Math.max(...runs.map((x) => x.peakRssMb)),
-    stagesS: {
-      bandPassAnalytic: Math.min(...runs.map((x) => x.stagesS.bandPassAnalytic)),
-      frequency: Math.min(...runs.map((x) => x.stagesS.frequency)),
-      median: Math.min(...runs.map((x) => x.stagesS.median)),
-    },
+    stagesS: fastestStages(runs.map((x) => x.stagesS)),
+    stagesCpuS: fastestStages(runs.map((x) => x.stagesCpuS)),
   });
   const gyre = fastest(gyreRuns);
   const scipy = fastest(scipyRuns);
-  const totals = (runs: { stagesS: Stages }[]): string =>
-    runs
-      .map((x) => (x.stagesS.bandPassAnalytic + x.stagesS.frequency + x.stagesS.median).toFixed(2))
-      .join(', ');
-  console.log(`runs (total s): Gyre ${totals(gyreRuns)}; scipy ${totals(scipyRuns)}`);
-  const rows: [string, number, number][] = [
-    ['band-pass + analytic', gyre.stagesS.bandPassAnalytic, scipy.stagesS.bandPassAnalytic],
-    ['instantaneous freq.', gyre.stagesS.frequency, scipy.stagesS.frequency],
-    ['10-window median', gyre.stagesS.median, scipy.stagesS.median],
-  ];
-  const gyreTotal = rows.reduce((s, r) => s + r[1], 0);
-  const scipyTotal = rows.reduce((s, r) => s + r[2], 0);
+  const sum = (x: Stages): number => x.bandPassAnalytic + x.frequency + x.median;
+  const totals = (runs: { stagesS: Stages; stagesCpuS: Stages }[]): string =>
+    runs.map((x) => `${sum(x.stagesS).toFixed(2)}/${sum(x.stagesCpuS).toFixed(2)}`).join(', ');
   console.log(
-    `stage                   Gyre (s)  scipy (s)  Gyre/scipy   [numpy ${scipy.numpy}, scipy ${scipy.scipy}]`,
+    `runs (total wall/CPU s): Gyre ${totals(gyreRuns)}; scipy ${totals(scipyRuns)}` +
+      ` [numpy ${scipy.numpy}, scipy ${scipy.scipy}; load average ${loadAverage()}]`,
   );
-  for (const [name, g, s] of [
-    ...rows,
-    ['total', gyreTotal, scipyTotal] as [string, number, number],
-  ]) {
-    console.log(
-      `${name.padEnd(22)}${format(g)}  ${format(s)}   ${(g / s).toFixed(2).padStart(8)}×`,
-    );
+  const stageNames: [keyof Stages, string][] = [
+    ['bandPassAnalytic', 'band-pass + analytic'],
+    ['frequency', 'instantaneous freq.'],
+    ['median', '10-window median'],
+  ];
+  const rows: [string, number, number, number, number][] = [
+    ...stageNames.map(([key, name]): [string, number, number, number, number] => [
+      name,
+      gyre.stagesS[key],
+      scipy.stagesS[key],
+      gyre.stagesCpuS[key],
+      scipy.stagesCpuS[key],
+    ]),
+    ['total', sum(gyre.stagesS), sum(scipy.stagesS), sum(gyre.stagesCpuS), sum(scipy.stagesCpuS)],
+  ];
+  const columns = [
+    'wall Gyre (s)',
+    'scipy (s)',
+    'Gyre/scipy',
+    'CPU Gyre (s)',
+    'scipy (s)',
+    'Gyre/scipy',
+  ];
+  console.log(`${'stage'.padEnd(22)}${columns.map((c) => c.padStart(14)).join('')}`);
+  for (const [name, g, s, gc, sc] of rows) {
+    const ratio = (a: number, b: number): string => `${(a / b).toFixed(2)}×`;
+    const cells = [format(g), format(s), ratio(g, s), format(gc), format(sc), ratio(gc, sc)];
+    console.log(`${name.padEnd(22)}${cells.map((c) => c.padStart(14)).join('')}`);
   }
-  console.log(`read EDF (not in total)${format(gyre.readEdfS)}  ${format(scipy.readEdfS)}`);
   console.log(
-    `peak memory             ${gyre.peakRssMb.toFixed(0).padStart(5)} MB  ${scipy.peakRssMb.toFixed(0).padStart(6)} MB`,
+    `${'read EDF, not in total'.padEnd(22)}${format(gyre.readEdfS).padStart(14)}${format(scipy.readEdfS).padStart(14)}`,
+  );
+  console.log(
+    `${'peak memory (MB)'.padEnd(22)}${gyre.peakRssMb.toFixed(0).padStart(14)}${scipy.peakRssMb.toFixed(0).padStart(14)}`,
   );
   console.log(
     `check: channel 1 final frequency, max |Gyre − scipy| 1 s away from the edges = ${compareCheck(gyreCheck, scipyCheck, fs).toExponential(2)} Hz`,

@@ -6,7 +6,7 @@ import {
   medianWindowLengths,
 } from './frequency-sliding';
 import { medianAcross, TEN_INPUT_NETWORK } from './median-across';
-import { ArgsortWorkspace, argsortFloat64 } from './radix-argsort';
+import { ArgsortWorkspace, argsortFloat64, rankFloat64 } from './radix-argsort';
 import { runningMedian, runningMedians, RunningMedianWorkspace } from './running-median';
 
 interface MedianFixture {
@@ -209,5 +209,155 @@ describe('argsortFloat64', () => {
       return x - y || a - b;
     });
     expect(Array.from(order)).toEqual(expected);
+  });
+});
+
+describe('running median, randomized against sorting every window', () => {
+  // A seeded generator (the one above), so that a failure names a case that can be rerun.
+  let seed = 20240301;
+  const random = (): number => {
+    seed = (seed * 1103515245 + 12345) % 2147483648;
+    return seed / 2147483648;
+  };
+  const int = (lo: number, hi: number): number => lo + Math.floor(random() * (hi - lo + 1));
+
+  /**
+   * The definition: sort each mirrored window, take its middle element. A typed array's
+   * default sort is numeric with NaN last (ECMAScript, TypedArray SortCompare), the order
+   * the running median documents (numpy.sort's too).
+   */
+  function windowMedians(x: Float64Array, k: number): Float64Array {
+    const n = x.length;
+    const h = (k - 1) / 2;
+    const reflect = (i: number): number => {
+      const p = 2 * n;
+      const j = ((i % p) + p) % p;
+      return j < n ? j : p - 1 - j;
+    };
+    const out = new Float64Array(n);
+    const w = new Float64Array(k);
+    for (let i = 0; i < n; i++) {
+      for (let j = -h; j <= h; j++) w[j + h] = x[reflect(i + j)];
+      out[i] = w.sort()[h];
+    }
+    return out;
+  }
+
+  /** Inputs with continuous values, many ties, long plateaus, ramps, outliers and NaN. */
+  function generate(kind: number, n: number): Float64Array {
+    const x = new Float64Array(n);
+    let level = 10;
+    for (let i = 0; i < n; i++) {
+      switch (kind) {
+        case 0: // continuous, both signs (high words differ in every bit)
+          x[i] = (random() - 0.5) * 10 ** int(-3, 3);
+          break;
+        case 1: // four levels: most windows hold ties
+          x[i] = int(0, 3);
+          break;
+        case 2: // plateaus of random length, at the same few levels
+          if (random() < 0.05) level = int(8, 12) + (random() < 0.5 ? 0 : 0.5);
+          x[i] = level;
+          break;
+        case 3: // a ramp with repeats: ties between neighbours
+          x[i] = Math.floor(i / int(1, 4));
+          break;
+        case 4: // frequencies around 10 Hz with rare phase slips and values equal in
+          // the high 32 bits (the radix sort's tie runs)
+          x[i] =
+            random() < 0.03
+              ? (random() - 0.5) * 500
+              : 10 + Math.floor(random() * 64) * 2 ** -40 + (random() < 0.3 ? 0 : random());
+          break;
+        default: // NaN here and there
+          x[i] = random() < 0.1 ? NaN : int(-5, 5);
+      }
+    }
+    return x;
+  }
+
+  const same = (a: number, b: number): boolean => a === b || (Number.isNaN(a) && Number.isNaN(b));
+
+  it('gives the median of every window exactly, for 300 random cases', () => {
+    const ws = new RunningMedianWorkspace();
+    for (let c = 0; c < 300; c++) {
+      const kind = c % 6;
+      const n = random() < 0.1 ? int(1, 5) : int(6, 400);
+      // Odd windows up to past twice the input, where the mirroring wraps around.
+      const count = int(1, 4);
+      const windows = Array.from({ length: count }, () => 2 * int(0, Math.min(110, n + 2)) + 1);
+      const chunkSamples = random() < 0.2 ? int(1, 8) : int(9, n + 50);
+      const x = generate(kind, n);
+      const outputs = windows.map(() => new Float64Array(n));
+      runningMedians(x, { windowsSamples: windows, chunkSamples }, ws, outputs);
+      windows.forEach((k, w) => {
+        const expected = windowMedians(x, k);
+        const bad = expected.findIndex((v, i) => !same(outputs[w][i], v));
+        // The case is named so that a failure can be reproduced.
+        expect({ case: c, kind, n, k, chunkSamples, firstDifference: bad }).toEqual({
+          case: c,
+          kind,
+          n,
+          k,
+          chunkSamples,
+          firstDifference: -1,
+        });
+      });
+    }
+  });
+
+  it('fuses the median across ten windows like numpy.median of the sorted windows', () => {
+    const ten = medianWindowLengths({ sampleRateHz: 500 });
+    for (const kind of [0, 1, 2, 4]) {
+      const n = int(300, 700);
+      const x = generate(kind, n);
+      const perWindow = ten.map((k) => windowMedians(x, k));
+      // numpy.median of an even count: the mean of the two middle values.
+      const expected = x.map((_, i) => {
+        const column = Float64Array.from(perWindow, (m) => m[i]).sort();
+        return (column[4] + column[5]) / 2;
+      });
+      const fused = medianFilterFrequency(x, ten, new FrequencySlidingWorkspace());
+      expect(expected.findIndex((v, i) => fused[i] !== v)).toBe(-1);
+    }
+  });
+});
+
+describe('rankFloat64', () => {
+  it('ranks like a stable comparison sort with NaN last, for special values of both signs', () => {
+    // Generated: zeros of both signs, infinities, subnormals, NaNs with the sign bit set
+    // and clear, values sharing high words, repeats.
+    const bits = new DataView(new ArrayBuffer(8));
+    bits.setUint32(0, 0xfff80000);
+    bits.setUint32(4, 1);
+    const negativeNaN = bits.getFloat64(0);
+    let seed = 3;
+    const random = (): number => {
+      seed = (seed * 1103515245 + 12345) % 2147483648;
+      return seed / 2147483648;
+    };
+    const pool = [0, -0, Infinity, -Infinity, 5e-324, -5e-324, NaN, negativeNaN, 1, -1, 2.5];
+    for (const n of [1, 2, 33, 500, 3000]) {
+      const values = Float64Array.from({ length: n }, () => {
+        const r = random();
+        if (r < 0.3) return pool[Math.floor(random() * pool.length)];
+        if (r < 0.6) return 3 + Math.floor(random() * 50) * 2 ** -45;
+        return (random() - 0.5) * 1e6;
+      });
+      const rank = new Int32Array(n);
+      const sorted = new Float64Array(n);
+      rankFloat64(values, rank, sorted, new ArgsortWorkspace());
+      const expected = Array.from(values.keys()).sort((a, b) => {
+        const [x, y] = [values[a], values[b]];
+        if (Number.isNaN(x) || Number.isNaN(y))
+          return Number(Number.isNaN(x)) - Number(Number.isNaN(y)) || a - b;
+        // −0 and +0 compare equal; the rank orders them by sign, so compare them that way.
+        return x - y || Number(Object.is(y, -0)) - Number(Object.is(x, -0)) || a - b;
+      });
+      const expectedRank = new Array<number>(n);
+      expected.forEach((i, r) => (expectedRank[i] = r));
+      expect(Array.from(rank)).toEqual(expectedRank);
+      expect(expected.every((i, r) => Object.is(sorted[r], values[i]))).toBe(true);
+    }
   });
 });
