@@ -149,6 +149,18 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
         call: get(`/api/recordings/${recordingId}/results`),
       },
       {
+        name: 'GET /recordings/:id/results/raster',
+        expect: READ_RESULT,
+        call: get(`/api/recordings/${recordingId}/results/raster`),
+      },
+      {
+        name: 'GET /recordings/:id/results/curves',
+        expect: READ_RESULT,
+        call: get(
+          `/api/recordings/${recordingId}/results/curves?channel=${encodeURIComponent('EEG O1-REF')}`,
+        ),
+      },
+      {
         name: 'GET /recordings/:id/runs',
         expect: READ_RESULT,
         call: get(`/api/recordings/${recordingId}/runs`),
@@ -279,7 +291,7 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
         !signOff.test(p),
     );
     const covered = new Set(routes.map((r) => r.name.split(' ')[1].replace(/:(\w+)/g, '{$1}')));
-    expect(mine.length).toBe(20);
+    expect(mine.length).toBe(22);
     for (const path of mine) {
       const short = path
         .replace('/api', '')

@@ -317,13 +317,66 @@ export interface TaskResultsDto {
   baselineWindowS: [number, number];
   postWindowS: [number, number];
   roi: OnsetCurveDto;
-  channels: OnsetCurveDto[];
-  /** ROI trial raster: trials × time (at most 500 points), Hz; null = dropped/undefined. */
-  raster: { timeS: number[]; trials: Array<Array<number | null>>; trialOnsetsS: number[] };
-  /** Per-trial Δf of the ROI, Hz. */
-  trialDeltaFHz: Array<number | null>;
+  /**
+   * Channels that have an onset curve of their own (file labels). The screen shows one curve
+   * at a time, so each is fetched when picked: `GET …/results/curves?channel=` (OnsetCurveDto).
+   */
+  curveChannels: string[];
+  /**
+   * Size of the region of interest's trial raster (kept trials × time points, at most 500);
+   * the raster itself and the per-trial detail come from `GET …/results/raster`.
+   */
+  raster: { trials: number; points: number };
   epochs: { total: number; kept: number; dropped: Record<string, number> };
 }
+
+/**
+ * `GET /api/recordings/:id/results/raster?runId=`: the region of interest's trial raster and
+ * each trial's Δf, for the Review raster chart (fetched only when it is shown).
+ */
+export interface TrialRasterDto {
+  /** Seconds relative to onset, one per column. */
+  timeS: number[];
+  /** Onset of each row (kept trial), s from the recording start. */
+  trialOnsetsS: number[];
+  /** Per-trial Δf of the region of interest, Hz; null = undefined. */
+  trialDeltaFHz: Array<number | null>;
+  trials: number;
+  points: number;
+  /**
+   * Instantaneous frequency, Hz, trials × points row after row (`valuesHz[trial * points +
+   * point]`); null = dropped or undefined.
+   */
+  valuesHz: Array<number | null>;
+}
+
+/**
+ * Decimal places of the series in the results answers over HTTP (`GET …/results`,
+ * `…/results/raster`, `…/results/curves`): the one place where this rule is written. The
+ * stored run keeps every value at full precision (the visit report and the numbers' hash read
+ * that); headline numbers, the per-channel table and the quality checks are never rounded.
+ * Each precision is finer than anything a screen shows or a reader could act on.
+ */
+export const RESULT_SERIES_DECIMALS = {
+  /** Curve and raster time axes, s: 0.1 ms, against samples ≥ 1 ms apart (≤ 1 kHz). */
+  timeS: 4,
+  /** Onset curves' mean and 95 % CI, Hz: 1e-4 Hz; Review shows 0.01 Hz. */
+  curveHz: 4,
+  /** Raster cells, Hz: 0.01 Hz on a colour scale spanning the ≥ 1 Hz band, legend to 0.1 Hz. */
+  rasterHz: 2,
+  /** Per-trial Δf, Hz: 1e-4 Hz, as the curves. */
+  trialDeltaFHz: 4,
+  /** Trial onsets, s from the recording start: 0.1 ms. */
+  trialOnsetsS: 4,
+  /** Rest spectrum frequencies, Hz: 1e-4 Hz (Welch bins are 0.25 Hz apart by default). */
+  spectrumFrequencyHz: 4,
+} as const;
+
+/**
+ * Significant digits of the rest spectrum's power in the HTTP answer: 4 (relative error
+ * ≤ 5e-4, far below a pixel on the spectrum's axis, which spans decades).
+ */
+export const SPECTRUM_POWER_SIGNIFICANT_DIGITS = 4;
 
 export interface RestResultsDto {
   frequencyHz: number[];

@@ -1,11 +1,14 @@
-import { Controller, Get, Param, Query } from '@nestjs/common';
-import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { AnalysisRunDto, Page, QualityDto, RecordingResultsDto } from '@gyre/shared';
+import { Controller, Get, Param, Query, Req, Res } from '@nestjs/common';
+import { ApiBearerAuth, ApiNotFoundResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import type { Request, Response } from 'express';
+import type { AnalysisRunDto, Page, QualityDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { PageQueryDto } from '../common/pagination/page-query.dto';
 import { AnalysisRunsService } from './analysis-runs.service';
+import { ChannelCurveQueryDto } from './dto/channel-curve-query.dto';
 import { ResultsQueryDto } from './dto/results-query.dto';
+import { sendEncoded } from './encoded-body';
 
 @ApiTags('results')
 @ApiBearerAuth()
@@ -13,18 +16,57 @@ import { ResultsQueryDto } from './dto/results-query.dto';
 export class AnalysisResultsController {
   constructor(private readonly runs: AnalysisRunsService) {}
 
+  // The results routes send bodies serialised and compressed once per run (see
+  // AnalysisRunsService.resultsBody), so they write the response themselves.
   @Get('results')
   @RequirePermission('read', 'Result')
   @ApiOkResponse({
     description:
-      'Onset curve (per channel and ROI, with CI), trial raster (≤ 500 points), rest spectrum with PAF/CoG, quality checks',
+      "RecordingResultsDto: the region of interest onset curve with CI, rest spectrum with PAF/CoG, per-channel table, quality checks; series rounded as RESULT_SERIES_DECIMALS says. The raster and the channels' curves have routes of their own.",
   })
-  results(
+  async results(
     @CurrentCaller() caller: Caller,
     @Param('recordingId') recordingId: string,
     @Query() query: ResultsQueryDto,
-  ): Promise<RecordingResultsDto> {
-    return this.runs.results(caller, recordingId, query.runId);
+    @Req() request: Request,
+    @Res() response: Response,
+  ): Promise<void> {
+    sendEncoded(request, response, await this.runs.resultsBody(caller, recordingId, query.runId));
+  }
+
+  @Get('results/raster')
+  @RequirePermission('read', 'Result')
+  @ApiOkResponse({
+    description:
+      "TrialRasterDto: the region of interest's trial raster (≤ 500 points) and per-trial Δf",
+  })
+  @ApiNotFoundResponse({ description: 'No such run, or a run without task results' })
+  async raster(
+    @CurrentCaller() caller: Caller,
+    @Param('recordingId') recordingId: string,
+    @Query() query: ResultsQueryDto,
+    @Req() request: Request,
+    @Res() response: Response,
+  ): Promise<void> {
+    sendEncoded(request, response, await this.runs.rasterBody(caller, recordingId, query.runId));
+  }
+
+  @Get('results/curves')
+  @RequirePermission('read', 'Result')
+  @ApiOkResponse({ description: "OnsetCurveDto: one channel's onset curve with CI" })
+  @ApiNotFoundResponse({ description: 'No such run, or no curve for that channel' })
+  async channelCurve(
+    @CurrentCaller() caller: Caller,
+    @Param('recordingId') recordingId: string,
+    @Query() query: ChannelCurveQueryDto,
+    @Req() request: Request,
+    @Res() response: Response,
+  ): Promise<void> {
+    sendEncoded(
+      request,
+      response,
+      await this.runs.channelCurveBody(caller, recordingId, query.channel, query.runId),
+    );
   }
 
   @Get('runs')

@@ -4,7 +4,6 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, In } from 'typeorm';
 import type {
   AnalysisRunDto,
-  OnsetCurveDto,
   Page,
   QualityDto,
   RecordingResultsDto,
@@ -19,13 +18,16 @@ import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
 import type { AnalyzeOutcome, RunSummary } from '../jobs/worker/worker-tasks';
 import { Recording } from '../recordings/recording.entity';
-import { RecordingsService } from '../recordings/recordings.service';
+import { CURRENT_STATES, RecordingsService } from '../recordings/recordings.service';
 import type { AnalysisSettings as SettingsValues } from '../signal/pipeline/analysis-settings';
 import { GYRE_VERSION } from '../version';
 import { AnalysisError } from './analysis.errors';
 import { AnalysisRun } from './analysis-run.entity';
 import { AnalysisSettings } from './analysis-settings.entity';
+import { encodeJson, type EncodedBody } from './encoded-body';
 import { decodeResultSeries, encodeResultSeries } from './result-series-codec';
+import { ResultsBodyCache } from './results-body-cache';
+import { channelCurveOf, curveOf, roundedResults, trialRasterOf } from './results-http-shape';
 import { staleSettingsPhrases } from './settings-differences';
 import { parseStoredSettings, settingsJson } from './settings-values';
 import { VisitAnalysisOverridesService } from './visit-analysis-overrides.service';
@@ -54,6 +56,20 @@ export interface StoredRun {
   cogHz: number | null;
 }
 
+/** A current run's headline numbers (see `currentRunNumbersOfVisits`). */
+export interface RunNumbers {
+  id: string;
+  visitId: string;
+  kind: AnalysisRun['kind'];
+  bandSource: AnalysisRun['bandSource'];
+  pafHz: number | null;
+  cogHz: number | null;
+  roiDeltaFHz: number | null;
+  roiUsage: RoiUsageDto;
+}
+
+type RunNumbersRow = Omit<RunNumbers, 'roiUsage'> & { roiUsage: string };
+
 /**
  * Analysis runs and their results. Results live in SQLite: headline numbers in columns, the
  * summary as JSON and the curves as one packed Float64 blob per run. Each run names its
@@ -65,6 +81,7 @@ export class AnalysisRunsService {
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly recordings: RecordingsService,
     private readonly overrides: VisitAnalysisOverridesService,
+    private readonly bodies: ResultsBodyCache,
   ) {}
 
   /**
@@ -182,6 +199,34 @@ export class AnalysisRunsService {
     return this.dataSource.getRepository(AnalysisRun).find({ where: { id: In(runIds) } });
   }
 
+  /**
+   * The headline numbers of each visit's current runs, without curves or summary (what
+   * trajectories read): one query, the current recordings joined to their latest runs, in
+   * upload order. Reading whole rows here once pulled every run's packed curves (about
+   * 0.6 MB for a 64-channel task) into each trajectory request.
+   */
+  async currentRunNumbersOfVisits(visitIds: readonly string[]): Promise<RunNumbers[]> {
+    if (visitIds.length === 0) return [];
+    const rows: RunNumbersRow[] = await this.dataSource
+      .getRepository(AnalysisRun)
+      .createQueryBuilder('run')
+      .innerJoin(Recording, 'recording', 'recording.latestRunId = run.id')
+      .where('recording.visitId IN (:...visitIds)', { visitIds: [...visitIds] })
+      .andWhere('recording.state IN (:...states)', { states: [...CURRENT_STATES] })
+      .select('run.id', 'id')
+      .addSelect('run.visitId', 'visitId')
+      .addSelect('run.kind', 'kind')
+      .addSelect('run.bandSource', 'bandSource')
+      .addSelect('run.pafHz', 'pafHz')
+      .addSelect('run.cogHz', 'cogHz')
+      .addSelect('run.roiDeltaFHz', 'roiDeltaFHz')
+      // SQLite's JSON1 json_extract: only the region-of-interest usage leaves the summary.
+      .addSelect("json_extract(run.summaryJson, '$.roiUsage')", 'roiUsage')
+      .orderBy('recording.createdAt', 'ASC')
+      .getRawMany();
+    return rows.map((row) => ({ ...row, roiUsage: JSON.parse(row.roiUsage) as RoiUsageDto }));
+  }
+
   async listForRecording(
     caller: Caller,
     recordingId: string,
@@ -200,8 +245,76 @@ export class AnalysisRunsService {
     return toPage(found, window, (run) => toRunDto(run, stale.get(run.id) ?? []));
   }
 
-  /** Full results of the recording's current run, or of `runId`. */
-  async results(caller: Caller, recordingId: string, runId?: string): Promise<RecordingResultsDto> {
+  /**
+   * `GET …/results`: the results of the recording's current run, or of `runId`, shaped for
+   * the screens (results-http-shape.ts), serialised and compressed once per run and notice.
+   * Per request: the caller's access to the recording and the run, and the stale-settings
+   * notice (the study's settings may change after the run); both happen before the cache.
+   */
+  async resultsBody(caller: Caller, recordingId: string, runId?: string): Promise<EncodedBody> {
+    const { recording, run } = await this.runInScope(caller, recordingId, runId);
+    const stale = (await this.staleness([run])).get(run.id) ?? [];
+    return this.bodies.get(`${run.id} results ${JSON.stringify(stale)}`, async () => {
+      const full = await this.storedRun(run.id);
+      return encodeJson(roundedResults(toResultsDto(full, recording, stale)));
+    });
+  }
+
+  /** `GET …/results/raster`: the region of interest's trial raster and per-trial Δf. */
+  async rasterBody(caller: Caller, recordingId: string, runId?: string): Promise<EncodedBody> {
+    const { run } = await this.runInScope(caller, recordingId, runId);
+    return this.bodies.get(`${run.id} raster`, async () => {
+      const full = await this.storedRun(run.id);
+      const raster = trialRasterOf(summaryOf(full), decodeResultSeries(full.series));
+      if (raster === null) {
+        throw new GyreException(
+          ErrorKind.NotFound,
+          AnalysisError.NoTaskResults,
+          `Run ${run.id} of recording ${recordingId} has no trial raster (a resting recording, or no region-of-interest channel).`,
+          { recordingId, runId: run.id },
+        );
+      }
+      return encodeJson(raster);
+    });
+  }
+
+  /** `GET …/results/curves?channel=`: one channel's onset curve. */
+  async channelCurveBody(
+    caller: Caller,
+    recordingId: string,
+    channel: string,
+    runId?: string,
+  ): Promise<EncodedBody> {
+    const { run } = await this.runInScope(caller, recordingId, runId);
+    return this.bodies.get(`${run.id} curve ${channel}`, async () => {
+      const full = await this.storedRun(run.id);
+      const summary = summaryOf(full);
+      const curve = channelCurveOf(summary, decodeResultSeries(full.series), channel);
+      if (curve === null) {
+        throw new GyreException(
+          ErrorKind.NotFound,
+          AnalysisError.ChannelCurveNotFound,
+          `channel: run ${run.id} has no onset curve for "${channel}"; it has ${
+            summary.task === null || summary.task.curveChannels.length === 0
+              ? 'none'
+              : summary.task.curveChannels.map((c) => `"${c}"`).join(', ')
+          }.`,
+          { field: 'channel', channel, runId: run.id },
+        );
+      }
+      return encodeJson(curve);
+    });
+  }
+
+  /**
+   * The recording and the run a results route names, both checked against the caller's
+   * scope on every request (404 otherwise). The run is read without its curves.
+   */
+  private async runInScope(
+    caller: Caller,
+    recordingId: string,
+    runId: string | undefined,
+  ): Promise<{ recording: Recording; run: AnalysisRun }> {
     const recording = await this.recordings.findInScope(caller, recordingId, 'read', 'Result');
     const wanted = runId ?? recording.latestRunId;
     const run =
@@ -212,6 +325,7 @@ export class AnalysisRunsService {
               recordingId,
               id: wanted,
             }),
+            select: { id: true, visitId: true, studyId: true, kind: true, settingsJson: true },
           });
     if (run === null) {
       throw new GyreException(
@@ -223,8 +337,12 @@ export class AnalysisRunsService {
         { recordingId, runId: runId ?? null },
       );
     }
-    const stale = await this.staleness([run]);
-    return toResultsDto(run, recording, stale.get(run.id) ?? []);
+    return { recording, run };
+  }
+
+  /** A run with everything stored (curves included), for building a body once. */
+  private storedRun(runId: string): Promise<AnalysisRun> {
+    return this.dataSource.getRepository(AnalysisRun).findOneByOrFail({ id: runId });
   }
 
   /** Quality checks only: what technicians see beside the processing state. */
@@ -325,52 +443,35 @@ export function toRunDto(run: AnalysisRun, staleSettings: string[]): AnalysisRun
   };
 }
 
-/** NaN (no value) becomes null in JSON. */
-function numbers(values: Float64Array | undefined): Array<number | null> {
-  if (values === undefined) return [];
-  return Array.from(values, (v) => (Number.isFinite(v) ? v : null));
-}
-
 function plain(values: Float64Array | undefined): number[] {
   return values === undefined ? [] : Array.from(values);
 }
 
-function curve(series: Record<string, Float64Array>, prefix: string, name: string): OnsetCurveDto {
-  return {
-    name,
-    meanHz: numbers(series[`${prefix}:mean`]),
-    ciLowHz: numbers(series[`${prefix}:ciLow`]),
-    ciHighHz: numbers(series[`${prefix}:ciHigh`]),
-  };
+function summaryOf(run: Pick<AnalysisRun, 'summaryJson'>): RunSummary {
+  return JSON.parse(run.summaryJson) as RunSummary;
 }
 
+/**
+ * A run's results at full precision, as stored: what the visit report reads. The results
+ * route sends these with rounded series (results-http-shape.ts); the trial raster and the
+ * channels' curves have routes of their own.
+ */
 export function toResultsDto(
   run: AnalysisRun,
   recording: Recording,
   staleSettings: string[],
 ): RecordingResultsDto {
-  const summary = JSON.parse(run.summaryJson) as RunSummary;
+  const summary = summaryOf(run);
   const series = decodeResultSeries(run.series);
   let task: RecordingResultsDto['task'] = null;
   if (summary.task !== null) {
-    const raster = series.raster ?? new Float64Array(0);
-    const points = summary.task.rasterPoints;
-    const trials: Array<Array<number | null>> = [];
-    for (let t = 0; t < summary.task.rasterTrials; t++) {
-      trials.push(numbers(raster.subarray(t * points, (t + 1) * points)));
-    }
     task = {
       timeS: plain(series.timeS),
       baselineWindowS: summary.task.baselineWindowS,
       postWindowS: summary.task.postWindowS,
-      roi: curve(series, 'roi', 'ROI'),
-      channels: summary.task.curveChannels.map((label) => curve(series, `channel:${label}`, label)),
-      raster: {
-        timeS: plain(series['raster:timeS']),
-        trials,
-        trialOnsetsS: summary.task.trialOnsetsS,
-      },
-      trialDeltaFHz: numbers(series.trialDeltaFHz),
+      roi: curveOf(series, 'roi', 'ROI'),
+      curveChannels: summary.task.curveChannels,
+      raster: { trials: summary.task.rasterTrials, points: summary.task.rasterPoints },
       epochs: summary.task.epochs,
     };
   }

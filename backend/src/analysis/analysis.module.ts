@@ -6,6 +6,7 @@ import { AnalysisResultsController } from './analysis-results.controller';
 import { AnalysisRunsService } from './analysis-runs.service';
 import { AnalysisSettingsController } from './analysis-settings.controller';
 import { AnalysisSettingsService } from './analysis-settings.service';
+import { ResultsBodyCache } from './results-body-cache';
 import { VisitAnalysisOverrideController } from './visit-analysis-override.controller';
 import { VisitAnalysisOverridesService } from './visit-analysis-overrides.service';
 
@@ -17,7 +18,13 @@ import { VisitAnalysisOverridesService } from './visit-analysis-overrides.servic
     AnalysisResultsController,
     VisitAnalysisOverrideController,
   ],
-  providers: [AnalysisSettingsService, AnalysisRunsService, VisitAnalysisOverridesService],
+  providers: [
+    AnalysisSettingsService,
+    AnalysisRunsService,
+    VisitAnalysisOverridesService,
+    // One cache per process, built here so Nest does not try to inject its byte bound.
+    { provide: ResultsBodyCache, useFactory: () => new ResultsBodyCache() },
+  ],
   exports: [AnalysisSettingsService, AnalysisRunsService, VisitAnalysisOverridesService],
 })
 export class AnalysisModule {}

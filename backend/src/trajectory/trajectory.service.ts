@@ -1,7 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import type { TrajectoryDto, TrajectoryVisitDto } from '@gyre/shared';
-import type { AnalysisRun } from '../analysis/analysis-run.entity';
-import { AnalysisRunsService, roiUsageOf } from '../analysis/analysis-runs.service';
+import { AnalysisRunsService, type RunNumbers } from '../analysis/analysis-runs.service';
 import type { Caller } from '../auth/decorators';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { FlagsService } from '../flags/flags.service';
@@ -39,7 +38,8 @@ export class TrajectoryService {
     }
     const visits = await this.visits.ofParticipant(participantId);
     const visitIds = visits.map((v) => v.id);
-    const runs = await this.runs.currentRunsOfVisits(visitIds);
+    // Headline columns only: whole rows would carry every run's packed curves.
+    const runs = await this.runs.currentRunNumbersOfVisits(visitIds);
     const flags = await this.flags.forVisits(visitIds);
     const flagged = new Set(flags.filter((f) => f.state === 'raised').map((f) => f.visitId));
 
@@ -89,11 +89,11 @@ export class TrajectoryService {
 }
 
 /** What makes a visit's numbers doubtful, as every surface that shows them must say. */
-function doubtsOf(runs: readonly AnalysisRun[]): string[] {
+function doubtsOf(runs: readonly RunNumbers[]): string[] {
   const doubts: string[] = [];
   for (const run of runs) {
     const what = run.kind === 'task' ? 'Δf' : 'PAF and CoG';
-    const usage = roiUsageOf(run);
+    const usage = run.roiUsage;
     // A partial region is partial because of its doubtful channels; names a default region
     // lacks only count when nothing else explains it (then the study named them itself).
     const notMissing = usage.leftOut.filter((o) => o.reason !== 'missing');

@@ -1,28 +1,36 @@
 /**
- * `npm run load [-- --clients N] [--seconds N]`
+ * `npm run load [-- --clients N] [--seconds N] [--participants N]`
  *
- * A load figure for docs/reliability.md, not a test: starts the built server on a fresh data
- * folder, uploads one generated resting and one task recording, waits for their results, then
- * has N concurrent clients (default 50) read the heaviest answers in a loop for S seconds each
- * (default 20): a task recording's results, the participants list and a trajectory. Prints
- * requests, errors and latency percentiles per route, then times a backup of the folder while
- * the server runs. Needs a built backend.
+ * A load figure for docs/reliability.md and docs/performance.md, not a test: starts the built
+ * server on a fresh data folder, gives one participant three visits, each with a generated
+ * 64-channel resting and task recording, waits until every result is computed, then drives
+ * each route in turn with autocannon: N concurrent connections (default 50) for S seconds
+ * (default 20), sending what a browser sends (a bearer token, `Accept-Encoding: gzip, deflate,
+ * br`). Prints per route the requests, errors, p50/p99/max latency and bytes on the wire, then
+ * times a backup of the folder while the server runs. Client and server share the machine's
+ * cores; the load average is printed beside the figures. Needs a built backend.
  */
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { copyFileSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { request as httpRequest } from 'node:http';
+import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { Page, ParticipantView, RecordingDto } from '@gyre/shared';
+import autocannon from 'autocannon';
+import type { Page, ParticipantView, RecordingDto, RecordingResultsDto } from '@gyre/shared';
 import { DataSource } from 'typeorm';
 import { createBackup } from '../../backup/backup';
 import { sqliteOptions } from '../../database/database-options';
-import { seedCrashData } from '../crash/crash-seed';
-import { GyreClient } from '../crash/gyre-client';
-import { QUICK_SIZES, restingUpload, taskUpload } from '../crash/recording-files';
+import { CRASH_PASSWORD, seedCrashData } from '../crash/crash-seed';
 import { sleep, startServer, stopServer } from '../crash/server-process';
-import { Rng } from '../seeded-random';
 import { machineDescription } from './fuzz';
+import { LABELS_64, rest64Edf, task64Edf } from './load-recordings';
 
 const JWT_SECRET = 'gyre-load-run-secret-0123456789abcdefghijklmnop';
+const BROWSER_ENCODINGS = 'gzip, deflate, br';
+const VISITS = [
+  { label: 'V1', date: '2026-01-15', peakHz: 10.2 },
+  { label: 'V2', date: '2026-07-15', peakHz: 10.0 },
+  { label: 'V3', date: '2027-01-15', peakHz: 9.8 },
+];
 
 interface RouteFigures {
   route: string;
@@ -31,6 +39,27 @@ interface RouteFigures {
   p50Ms: number;
   p99Ms: number;
   maxMs: number;
+  /** Bytes a response took on the wire, headers included (autocannon's throughput / requests). */
+  wireBytes: number;
+  /** The server process's CPU time per request, ms (null where /proc is not there). */
+  serverCpuMs: number | null;
+}
+
+/**
+ * CPU time (user + system) a process has used, ms, from /proc/<pid>/stat (proc(5): fields 14
+ * and 15, in clock ticks of 1/100 s on Linux); null elsewhere. Unlike latency, it hardly
+ * depends on what else the machine runs.
+ */
+function cpuMsOf(pid: number | undefined): number | null {
+  if (pid === undefined) return null;
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    // The command name (field 2) may hold spaces: count fields after its closing parenthesis.
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    return (Number(fields[11]) + Number(fields[12])) * 10;
+  } catch {
+    return null;
+  }
 }
 
 function option(argv: readonly string[], name: string, fallback: number): number {
@@ -41,106 +70,229 @@ function option(argv: readonly string[], name: string, fallback: number): number
   return value;
 }
 
-function percentile(sorted: readonly number[], share: number): number {
-  if (sorted.length === 0) return 0;
-  return sorted[Math.min(sorted.length - 1, Math.floor(share * sorted.length))];
+function load(): string {
+  return loadavg()
+    .map((v) => v.toFixed(2))
+    .join(', ');
 }
 
-async function upload(client: GyreClient, visitId: string, form: FormData): Promise<RecordingDto> {
-  const response = await client.call<RecordingDto>(
+async function api<T>(
+  url: string,
+  method: 'GET' | 'POST',
+  path: string,
+  token: string | null,
+  body?: { json?: unknown; form?: FormData },
+): Promise<{ status: number; body: T }> {
+  const headers: Record<string, string> = {};
+  if (token !== null) headers.Authorization = `Bearer ${token}`;
+  if (body?.json !== undefined) headers['Content-Type'] = 'application/json';
+  const response = await fetch(`${url}${path}`, {
+    method,
+    headers,
+    body: body?.json !== undefined ? JSON.stringify(body.json) : body?.form,
+  });
+  return { status: response.status, body: (await response.json()) as T };
+}
+
+async function signIn(url: string, email: string): Promise<string> {
+  const response = await api<{ accessToken: string }>(url, 'POST', '/api/auth/sign-in', null, {
+    json: { email, password: CRASH_PASSWORD },
+  });
+  if (response.status !== 200) throw new Error(`sign-in of ${email}: HTTP ${response.status}`);
+  return response.body.accessToken;
+}
+
+async function uploadEdf(
+  url: string,
+  token: string,
+  visitId: string,
+  kind: 'resting' | 'task',
+  bytes: Uint8Array,
+): Promise<RecordingDto> {
+  const form = new FormData();
+  form.append('kind', kind);
+  form.append('file', new Blob([new Uint8Array(bytes)]), `${kind}.edf`);
+  const response = await api<RecordingDto>(
+    url,
     'POST',
     `/api/visits/${visitId}/recordings`,
-    'technician',
-    { form },
+    token,
+    {
+      form,
+    },
   );
-  if (response.status !== 201 || response.body === null) {
-    throw new Error(`upload: HTTP ${response.status}`);
-  }
+  if (response.status !== 201) throw new Error(`upload ${kind}: HTTP ${response.status}`);
   return response.body;
+}
+
+/** Waits until every recording is ready and stays so (a resting IAF may re-run its task). */
+async function allReady(url: string, token: string, ids: readonly string[]): Promise<void> {
+  let settledRounds = 0;
+  for (;;) {
+    const states = await Promise.all(
+      ids.map(
+        async (id) => (await api<RecordingDto>(url, 'GET', `/api/recordings/${id}`, token)).body,
+      ),
+    );
+    const bad = states.find((r) => r.state === 'failed' || r.state === 'rejected');
+    if (bad !== undefined) throw new Error(`recording ${bad.id} ${bad.state}`);
+    settledRounds = states.every((r) => r.state === 'ready') ? settledRounds + 1 : 0;
+    if (settledRounds === 3) return;
+    await sleep(500);
+  }
+}
+
+/** One GET as a browser asks it: the body's bytes as sent (still encoded) and its encoding. */
+function wireSize(
+  url: string,
+  path: string,
+  token: string,
+  acceptEncoding: string,
+): Promise<{ status: number; bytes: number; encoding: string }> {
+  return new Promise((done, fail) => {
+    const request = httpRequest(
+      `${url}${path}`,
+      { headers: { Authorization: `Bearer ${token}`, 'Accept-Encoding': acceptEncoding } },
+      (response) => {
+        let bytes = 0;
+        response.on('data', (chunk: Buffer) => (bytes += chunk.length));
+        response.on('end', () =>
+          done({
+            status: response.statusCode ?? 0,
+            bytes,
+            encoding: String(response.headers['content-encoding'] ?? 'identity'),
+          }),
+        );
+      },
+    );
+    request.on('error', fail);
+    request.end();
+  });
+}
+
+async function drive(
+  url: string,
+  path: string,
+  token: string,
+  connections: number,
+  seconds: number,
+  serverPid: number | undefined,
+): Promise<RouteFigures> {
+  const cpuBefore = cpuMsOf(serverPid);
+  const result = await autocannon({
+    url: `${url}${path}`,
+    connections,
+    duration: seconds,
+    headers: { authorization: `Bearer ${token}`, 'accept-encoding': BROWSER_ENCODINGS },
+  });
+  const requests = result['2xx'] + result.non2xx;
+  const cpuAfter = cpuMsOf(serverPid);
+  return {
+    route: path.replace(/[0-9a-f-]{36}/g, ':id').replace(/channel=[^&]+/, 'channel=…'),
+    requests,
+    errors: result.errors + result.non2xx,
+    p50Ms: result.latency.p50,
+    p99Ms: result.latency.p99,
+    maxMs: result.latency.max,
+    wireBytes: requests === 0 ? 0 : Math.round(result.throughput.total / requests),
+    serverCpuMs:
+      cpuBefore === null || cpuAfter === null || requests === 0
+        ? null
+        : (cpuAfter - cpuBefore) / requests,
+  };
 }
 
 async function main(): Promise<number> {
   const argv = process.argv.slice(2);
   const clients = option(argv, '--clients', 50);
   const seconds = option(argv, '--seconds', 20);
+  const participantCount = option(argv, '--participants', 24);
   const dataDir = mkdtempSync(join(tmpdir(), 'gyre-load-'));
   const server = await startServer(dataDir, JWT_SECRET, join(dataDir, 'server.log'));
+  server.child.once('exit', (code, signal) => {
+    if (signal !== 'SIGTERM') console.error(`load: the server stopped (exit ${code}, ${signal})`);
+  });
   const dataSource = new DataSource({
     ...sqliteOptions(join(dataDir, 'gyre.sqlite')),
     migrationsRun: false,
   });
   await dataSource.initialize();
   try {
-    const seed = await seedCrashData(dataSource, 1);
-    const client = new GyreClient(server.url, seed.emails);
-    await client.connect(server.url);
-    const rng = new Rng(20260115);
-    const visitId = seed.visitIds[0];
-    const files = [restingUpload(rng, QUICK_SIZES, 1), taskUpload(rng, QUICK_SIZES, 2)];
-    let task: RecordingDto | null = null;
-    for (const file of files) {
-      const form = new FormData();
-      form.append('kind', file.kind);
-      form.append('file', new Blob([new Uint8Array(file.bytes)]), `${file.kind}.edf`);
-      if (file.onsetsCsv !== null) form.append('onsets', new Blob([file.onsetsCsv]), 'onsets.csv');
-      const accepted = await upload(client, visitId, form);
-      if (file.kind === 'task') task = accepted;
-    }
-    if (task === null) throw new Error('no task recording');
-    for (;;) {
-      const now = await client.call<RecordingDto>('GET', `/api/recordings/${task.id}`, 'analyst');
-      if (now.body?.state === 'ready') break;
-      if (now.body?.state === 'failed' || now.body?.state === 'rejected') {
-        throw new Error(`task recording ${now.body.state}`);
-      }
-      await sleep(200);
-    }
-    const participants = await client.call<Page<ParticipantView>>(
+    const seed = await seedCrashData(dataSource, participantCount);
+    const technician = await signIn(server.url, seed.emails.technician);
+    const analyst = await signIn(server.url, seed.emails.analyst);
+    const participants = await api<Page<ParticipantView>>(
+      server.url,
       'GET',
       '/api/participants',
-      'analyst',
+      analyst,
     );
-    const participantId = participants.body?.items[0]?.id ?? '';
+    const participantId = participants.body.items[0]?.id ?? '';
+    const visitIds = [seed.visitIds[0]];
+    for (const visit of VISITS.slice(1)) {
+      const created = await api<{ id: string }>(server.url, 'POST', '/api/visits', technician, {
+        json: { participantId, label: visit.label, visitDate: visit.date },
+      });
+      if (created.status !== 201) throw new Error(`visit ${visit.label}: HTTP ${created.status}`);
+      visitIds.push(created.body.id);
+    }
+    // Every file first: generating one takes seconds, long enough for the server to close an
+    // idle keep-alive connection just as the next upload starts on it (EPIPE).
+    const files = VISITS.map((visit, i) => ({
+      rest: rest64Edf({ durationS: 90, seed: 100 + i, peakHz: visit.peakHz }),
+      task: task64Edf({ durationS: 120, seed: 200 + i, baseFrequencyHz: visit.peakHz }),
+    }));
+    const prepared = performance.now();
+    const uploaded: RecordingDto[] = [];
+    for (const [i, file] of files.entries()) {
+      uploaded.push(await uploadEdf(server.url, technician, visitIds[i], 'resting', file.rest));
+      uploaded.push(await uploadEdf(server.url, technician, visitIds[i], 'task', file.task));
+    }
+    await allReady(
+      server.url,
+      analyst,
+      uploaded.map((r) => r.id),
+    );
+    const task = uploaded[1];
+    console.log(
+      `load: ${participantCount} participants; ${uploaded.length} recordings of ${LABELS_64.length} channels computed in ${((performance.now() - prepared) / 1000).toFixed(1)} s`,
+    );
+
+    const resultsPath = `/api/recordings/${task.id}/results`;
+    const results = await api<RecordingResultsDto>(server.url, 'GET', resultsPath, analyst);
+    const channel = results.body.task?.curveChannels[0];
     const routes = [
-      `/api/recordings/${task.id}/results`,
+      resultsPath,
+      `/api/recordings/${task.id}/results/raster`,
+      ...(channel === undefined
+        ? []
+        : [`/api/recordings/${task.id}/results/curves?channel=${encodeURIComponent(channel)}`]),
       '/api/participants',
       `/api/participants/${participantId}/trajectory`,
     ];
-    const times = new Map<string, number[]>(routes.map((r) => [r, []]));
-    const errors = new Map<string, number>(routes.map((r) => [r, 0]));
-    const until = performance.now() + seconds * 1000;
-    const started = performance.now();
-    await Promise.all(
-      Array.from({ length: clients }, async (_, c) => {
-        for (let i = c; performance.now() < until; i++) {
-          const route = routes[i % routes.length];
-          const t0 = performance.now();
-          const response = await client.call('GET', route, 'analyst');
-          times.get(route)?.push(performance.now() - t0);
-          if (response.status !== 200) errors.set(route, (errors.get(route) ?? 0) + 1);
-        }
-      }),
-    );
-    const wallS = (performance.now() - started) / 1000;
-    const figures: RouteFigures[] = routes.map((route) => {
-      const sorted = [...(times.get(route) ?? [])].sort((a, b) => a - b);
-      return {
-        route: route.replace(/[0-9a-f-]{36}/g, ':id'),
-        requests: sorted.length,
-        errors: errors.get(route) ?? 0,
-        p50Ms: Math.round(percentile(sorted, 0.5)),
-        p99Ms: Math.round(percentile(sorted, 0.99)),
-        maxMs: Math.round(sorted.at(-1) ?? 0),
-      };
-    });
-    console.log(
-      `load: ${clients} clients for ${seconds} s (${wallS.toFixed(1)} s wall) on ${machineDescription()}`,
-    );
-    for (const f of figures) {
+    console.log(`sizes of one answer (body bytes; load average ${load()}):`);
+    for (const path of routes) {
+      const plain = await wireSize(server.url, path, analyst, 'identity');
+      const gzip = await wireSize(server.url, path, analyst, 'gzip');
+      const browser = await wireSize(server.url, path, analyst, BROWSER_ENCODINGS);
       console.log(
-        `  ${f.route}: ${f.requests} requests (${(f.requests / wallS).toFixed(0)}/s), ${f.errors} errors, p50 ${f.p50Ms} ms, p99 ${f.p99Ms} ms, max ${f.maxMs} ms`,
+        `  ${path.replace(/[0-9a-f-]{36}/g, ':id')}: HTTP ${plain.status}, ${plain.bytes} B as JSON, ${gzip.bytes} B ${gzip.encoding}, ${browser.bytes} B ${browser.encoding}`,
       );
     }
+
+    console.log(
+      `autocannon: ${clients} connections for ${seconds} s per route, on ${machineDescription()}`,
+    );
+    const figures: RouteFigures[] = [];
+    for (const path of routes) {
+      const before = load();
+      const f = await drive(server.url, path, analyst, clients, seconds, server.child.pid);
+      figures.push(f);
+      console.log(
+        `  ${f.route}: ${f.requests} requests (${(f.requests / seconds).toFixed(0)}/s), ${f.errors} errors, p50 ${f.p50Ms} ms, p99 ${f.p99Ms} ms, max ${f.maxMs} ms, ${f.wireBytes} B/response on the wire, server CPU ${f.serverCpuMs === null ? 'unknown' : `${f.serverCpuMs.toFixed(2)} ms`}/request; load average before ${before}, after ${load()}`,
+      );
+    }
+
     // A backup of the folder while the server runs, for the backup figure beside the load.
     const backupDir = join(tmpdir(), `gyre-load-backup-${process.pid}`);
     const backupStarted = performance.now();
@@ -152,6 +304,12 @@ async function main(): Promise<number> {
     );
     rmSync(backupDir, { recursive: true, force: true });
     return figures.some((f) => f.errors > 0) ? 1 : 0;
+  } catch (error) {
+    // The server's own log says why a request failed; the data folder goes, the log stays.
+    const kept = join(tmpdir(), `gyre-load-server-${process.pid}.log`);
+    copyFileSync(join(dataDir, 'server.log'), kept);
+    console.error(`load: the server's log is in ${kept}`);
+    throw error;
   } finally {
     await dataSource.destroy();
     await stopServer(server, 'SIGTERM');
@@ -162,7 +320,11 @@ async function main(): Promise<number> {
 main().then(
   (code) => process.exit(code),
   (error: unknown) => {
-    console.error(`load: ${error instanceof Error ? error.message : String(error)}`);
+    // fetch names the network failure only in its cause (ECONNRESET, ECONNREFUSED, …).
+    const cause = error instanceof Error && error.cause instanceof Error ? error.cause : null;
+    console.error(
+      `load: ${error instanceof Error ? error.message : String(error)}${cause === null ? '' : ` (${cause.message})`}`,
+    );
     process.exit(1);
   },
 );

@@ -66,18 +66,31 @@ describe('rest spectrum spec', () => {
 });
 
 describe('raster matrix', () => {
-  it('packs trials row by row and turns missing cells into NaN', () => {
+  it('reads the rows of the flat raster and turns missing cells into NaN', () => {
     const matrix = rasterMatrix({
       timeS: [-1, 0, 1],
-      trials: [
-        [9, 10, 11],
-        [null, 12, null],
-      ],
       trialOnsetsS: [5, 9],
+      trialDeltaFHz: [-0.2, null],
+      trials: 2,
+      points: 3,
+      valuesHz: [9, 10, 11, null, 12, null],
     });
     expect(matrix.rows).toBe(2);
     expect(matrix.columns).toBe(3);
     expect(matrix.xRange).toEqual([-1, 1]);
     expect(Array.from(matrix.values)).toEqual([9, 10, 11, Number.NaN, 12, Number.NaN]);
+  });
+
+  it('refuses a raster whose values do not fill trials × points, instead of drawing it shifted', () => {
+    expect(() =>
+      rasterMatrix({
+        timeS: [-1, 0, 1],
+        trialOnsetsS: [5, 9],
+        trialDeltaFHz: [-0.2, null],
+        trials: 2,
+        points: 3,
+        valuesHz: [9, 10, 11, null, 12],
+      }),
+    ).toThrow('The raster holds 5 values, expected 2 × 3.');
   });
 });

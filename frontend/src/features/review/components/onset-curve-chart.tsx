@@ -1,15 +1,18 @@
-import type { TaskResultsDto } from '@gyre/shared';
-import { Flex, Select, Typography } from 'antd';
+import type { OnsetCurveDto, TaskResultsDto } from '@gyre/shared';
+import { Flex, Select, Skeleton, Typography } from 'antd';
 import { useMemo, useState } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
+import { ErrorState } from '../../../components/page-states';
 import { formatHz } from '../../../lib/format';
 import { NO_ROI_CHANNEL_REMAINS } from '../../../lib/roi-usage';
+import { useChannelCurve } from '../api/get-channel-curve';
 import {
   BASELINE_COLOUR,
   MEAN_COLOUR,
   onsetCurvePoints,
   onsetCurveSpec,
   POST_COLOUR,
+  type OnsetCurvePoint,
 } from './onset-curve-spec';
 
 const ROI = '__roi__';
@@ -45,24 +48,35 @@ function Swatch({
   );
 }
 
-/** The onset curve of the region of interest, or of one channel the analyst picks. */
+const NO_POINTS: OnsetCurvePoint[] = [];
+
+/**
+ * The onset curve of the region of interest, or of one channel the analyst picks: the
+ * results carry the region's curve, and a channel's is asked for when it is picked.
+ */
 export function OnsetCurveChart({
+  recordingId,
+  runId,
   task,
   roiLabel,
   roiAvailable = true,
 }: {
+  recordingId: string;
+  runId: string;
   task: TaskResultsDto;
   roiLabel: string;
   /** False when no region-of-interest channel remains: the channels' curves only. */
   roiAvailable?: boolean;
 }) {
-  const [series, setSeries] = useState<string>(
-    roiAvailable ? ROI : (task.channels[0]?.name ?? ROI),
+  const [series, setSeries] = useState<string>(roiAvailable ? ROI : (task.curveChannels[0] ?? ROI));
+  const picked = series === ROI ? null : series;
+  const channelCurve = useChannelCurve(recordingId, runId, picked);
+  const curve: OnsetCurveDto | undefined = picked === null ? task.roi : channelCurve.data;
+  const seriesName = picked === null ? `Mean, ${roiLabel}` : `Mean, ${picked}`;
+  const points = useMemo(
+    () => (curve === undefined ? NO_POINTS : onsetCurvePoints(task.timeS, curve)),
+    [task.timeS, curve],
   );
-  const curve =
-    series === ROI ? task.roi : (task.channels.find((c) => c.name === series) ?? task.roi);
-  const seriesName = series === ROI ? `Mean, ${roiLabel}` : `Mean, ${curve.name}`;
-  const points = useMemo(() => onsetCurvePoints(task.timeS, curve), [task.timeS, curve]);
   const spec = useMemo(
     () =>
       onsetCurveSpec({
@@ -111,11 +125,21 @@ export function OnsetCurveChart({
                   label: `Region of interest: ${NO_ROI_CHANNEL_REMAINS}`,
                   disabled: true,
                 },
-            ...task.channels.map((c) => ({ value: c.name, label: c.name })),
+            ...task.curveChannels.map((name) => ({ value: name, label: name })),
           ]}
         />
       </Flex>
-      {points.length === 0 ? (
+      {picked !== null && channelCurve.error !== undefined ? (
+        <ErrorState
+          title={`The curve of ${picked} could not be loaded`}
+          error={channelCurve.error}
+          onRetry={() => void channelCurve.mutate()}
+        />
+      ) : curve === undefined ? (
+        <div aria-busy="true" aria-label={`Loading the curve of ${picked ?? roiLabel}`}>
+          <Skeleton active paragraph={{ rows: 5 }} />
+        </div>
+      ) : points.length === 0 ? (
         <Typography.Text type="secondary">
           No curve: no trial was kept for this series.
         </Typography.Text>

@@ -238,12 +238,19 @@ export function ReviewPage({
                         ) : (
                           <>
                             <OnsetCurveChart
+                              recordingId={recording.id}
+                              runId={results.run.id}
                               task={results.task}
                               roiLabel={roiLabelOf(results)}
                               roiAvailable={results.run.roiUsage.status !== 'none'}
                             />
                             <div style={{ marginTop: 24 }}>
-                              <TrialRaster task={results.task} bandHz={results.run.bandHz} />
+                              <TrialRaster
+                                recordingId={recording.id}
+                                runId={results.run.id}
+                                task={results.task}
+                                bandHz={results.run.bandHz}
+                              />
                             </div>
                             <Descriptions
                               size="small"

@@ -1,19 +1,17 @@
-import type { TaskResultsDto } from '@gyre/shared';
-import { Typography } from 'antd';
+import type { TaskResultsDto, TrialRasterDto } from '@gyre/shared';
+import { Skeleton, Typography } from 'antd';
 import { useMemo } from 'react';
 import { HeatmapCanvas, type HeatmapMatrix } from '../../../components/charts/heatmap-canvas';
+import { ErrorState } from '../../../components/page-states';
+import { useTrialRaster } from '../api/get-trial-raster';
 
-/** Packs the raster rows into one array; a null cell (dropped, undefined) becomes NaN. */
-export function rasterMatrix(raster: TaskResultsDto['raster']): HeatmapMatrix {
-  const rows = raster.trials.length;
-  const columns = raster.timeS.length;
-  const values = new Float64Array(rows * columns).fill(Number.NaN);
-  raster.trials.forEach((trial, row) => {
-    for (let column = 0; column < columns; column += 1) {
-      const value = trial[column];
-      if (value !== null && value !== undefined) values[row * columns + column] = value;
-    }
-  });
+/** The raster's rows in one array; a null cell (dropped, undefined) becomes NaN. */
+export function rasterMatrix(raster: TrialRasterDto): HeatmapMatrix {
+  const { trials: rows, points: columns } = raster;
+  const values = Float64Array.from(raster.valuesHz, (v) => v ?? Number.NaN);
+  if (values.length !== rows * columns) {
+    throw new Error(`The raster holds ${values.length} values, expected ${rows} × ${columns}.`);
+  }
   return {
     values,
     rows,
@@ -22,14 +20,8 @@ export function rasterMatrix(raster: TaskResultsDto['raster']): HeatmapMatrix {
   };
 }
 
-/** Trials × time, colour = instantaneous frequency, on the run's band. */
-export function TrialRaster({ task, bandHz }: { task: TaskResultsDto; bandHz: [number, number] }) {
-  const matrix = useMemo(() => rasterMatrix(task.raster), [task.raster]);
-  if (matrix.rows === 0 || matrix.columns === 0) {
-    return (
-      <Typography.Text type="secondary">No trial was kept, so there is no raster.</Typography.Text>
-    );
-  }
+function RasterCanvas({ raster, bandHz }: { raster: TrialRasterDto; bandHz: [number, number] }) {
+  const matrix = useMemo(() => rasterMatrix(raster), [raster]);
   return (
     <HeatmapCanvas
       label="Trial raster"
@@ -43,4 +35,46 @@ export function TrialRaster({ task, bandHz }: { task: TaskResultsDto; bandHz: [n
       heightPx={Math.min(360, Math.max(200, matrix.rows * 4 + 48))}
     />
   );
+}
+
+/**
+ * Trials × time, colour = instantaneous frequency, on the run's band. The raster is the
+ * heaviest part of a run's results, so it is asked for here, when the chart is shown, and
+ * not with the results.
+ */
+export function TrialRaster({
+  recordingId,
+  runId,
+  task,
+  bandHz,
+}: {
+  recordingId: string;
+  runId: string;
+  task: TaskResultsDto;
+  bandHz: [number, number];
+}) {
+  const empty = task.raster.trials === 0 || task.raster.points === 0;
+  const raster = useTrialRaster(empty ? null : recordingId, empty ? null : runId);
+  if (empty) {
+    return (
+      <Typography.Text type="secondary">No trial was kept, so there is no raster.</Typography.Text>
+    );
+  }
+  if (raster.error !== undefined) {
+    return (
+      <ErrorState
+        title="The trial raster could not be loaded"
+        error={raster.error}
+        onRetry={() => void raster.mutate()}
+      />
+    );
+  }
+  if (raster.data === undefined) {
+    return (
+      <div aria-busy="true" aria-label="Loading the trial raster">
+        <Skeleton active paragraph={{ rows: 4 }} />
+      </div>
+    );
+  }
+  return <RasterCanvas raster={raster.data} bandHz={bandHz} />;
 }

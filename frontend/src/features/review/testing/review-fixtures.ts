@@ -1,11 +1,13 @@
 import type {
   AnalysisRunDto,
   AnalysisSettingsDto,
+  OnsetCurveDto,
   ParticipantView,
   RecordingDto,
   RecordingResultsDto,
   ReportDto,
   RoiUsageDto,
+  TrialRasterDto,
   VisitAnalysisOverrideDto,
   VisitFlagDto,
   VisitView,
@@ -214,17 +216,33 @@ export const TASK_RESULTS: RecordingResultsDto = {
     baselineWindowS: [-0.5, 0],
     postWindowS: [0.2, 0.8],
     roi: curve('ROI', 0),
-    channels: [curve('O1', 0.05)],
-    raster: {
-      timeS,
-      trials: [timeS.map(() => 9), timeS.map(() => 10), timeS.map(() => null), timeS.map(() => 12)],
-      trialOnsetsS: [10, 20, 30, 40],
-    },
-    trialDeltaFHz: [-0.3, -0.2, null, -0.4],
+    curveChannels: ['EEG O1-REF', 'EEG O2-REF'],
+    raster: { trials: 4, points: timeS.length },
     epochs: { total: 4, kept: 3, dropped: { amplitude: 1 } },
   },
   rest: null,
   quality,
+};
+
+/** `GET /api/recordings/rec-task/results/raster`: 4 trials × 8 points, one trial all dropped. */
+export const TASK_RASTER: TrialRasterDto = {
+  timeS,
+  trialOnsetsS: [10, 20, 30, 40],
+  trialDeltaFHz: [-0.3, -0.2, null, -0.4],
+  trials: 4,
+  points: timeS.length,
+  valuesHz: [
+    ...timeS.map(() => 9),
+    ...timeS.map(() => 10),
+    ...timeS.map(() => null),
+    ...timeS.map(() => 12),
+  ],
+};
+
+/** `GET /api/recordings/rec-task/results/curves?channel=`: each channel's own curve. */
+export const CHANNEL_CURVES: Record<string, OnsetCurveDto> = {
+  'EEG O1-REF': curve('EEG O1-REF', 0.05),
+  'EEG O2-REF': curve('EEG O2-REF', -0.4),
 };
 
 const frequencyHz = Array.from({ length: 81 }, (_, i) => i * 0.5);

@@ -1,8 +1,10 @@
 import type {
   AnalysisSettingsDto,
+  OnsetCurveDto,
   RecordingDto,
   RecordingResultsDto,
   ReportSignOffDto,
+  TrialRasterDto,
   VisitAnalysisOverrideDto,
   VisitFlagDto,
 } from '@gyre/shared';
@@ -11,6 +13,7 @@ import { http, HttpResponse } from 'msw';
 import { STUDY } from '../../../test/fixtures';
 import { server } from '../../../test/msw-server';
 import {
+  CHANNEL_CURVES,
   NO_FLAG,
   NO_OVERRIDE,
   PARTICIPANT,
@@ -18,6 +21,7 @@ import {
   REPORT,
   REST_RESULTS,
   SETTINGS,
+  TASK_RASTER,
   TASK_RESULTS,
   VISIT,
 } from './review-fixtures';
@@ -26,6 +30,10 @@ export interface ReviewServed {
   recordings?: RecordingDto[];
   task?: RecordingResultsDto;
   rest?: RecordingResultsDto;
+  /** The task's trial raster; `null` leaves it to the test's own handler. */
+  raster?: TrialRasterDto | null;
+  /** Channel curves by label (default CHANNEL_CURVES); an unknown label answers 404. */
+  curves?: Record<string, OnsetCurveDto>;
   /** `null` leaves the flag to the test's own handler. */
   flag?: VisitFlagDto | null;
   override?: VisitAnalysisOverrideDto;
@@ -35,6 +43,13 @@ export interface ReviewServed {
 /** Every request the Review screen makes for one visit, answered from the fixtures. */
 export function serveReview(served: ReviewServed = {}) {
   const recordings = served.recordings ?? RECORDINGS;
+  if (served.raster !== null) {
+    server.use(
+      http.get('/api/recordings/rec-task/results/raster', () =>
+        HttpResponse.json(served.raster ?? TASK_RASTER),
+      ),
+    );
+  }
   if (served.flag !== null) {
     server.use(
       http.get(`/api/visits/${VISIT.id}/flag`, () => HttpResponse.json(served.flag ?? NO_FLAG)),
@@ -57,6 +72,20 @@ export function serveReview(served: ReviewServed = {}) {
     http.get('/api/recordings/rec-task/results', () =>
       HttpResponse.json(served.task ?? TASK_RESULTS),
     ),
+    http.get('/api/recordings/rec-task/results/curves', ({ request }) => {
+      const channel = new URL(request.url).searchParams.get('channel') ?? '';
+      const curve = (served.curves ?? CHANNEL_CURVES)[channel];
+      return curve === undefined
+        ? HttpResponse.json(
+            {
+              statusCode: 404,
+              code: 'ANALYSIS_CHANNEL_CURVE_NOT_FOUND',
+              message: `no curve for "${channel}"`,
+            },
+            { status: 404 },
+          )
+        : HttpResponse.json(curve);
+    }),
     http.get('/api/recordings/rec-resting/results', () =>
       HttpResponse.json(served.rest ?? REST_RESULTS),
     ),
