@@ -1,7 +1,7 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { RouterProvider } from 'react-router-dom';
-import { AppProvider } from './app/provider';
+import { ThemeAndDataProvider } from './app/provider';
 import { createRouter } from './app/router';
 import './app/fonts.css';
 import './app/global.css';
@@ -11,8 +11,8 @@ if (root === null) throw new Error('Gyre: #root element missing from index.html'
 
 createRoot(root).render(
   <StrictMode>
-    <AppProvider>
+    <ThemeAndDataProvider>
       <RouterProvider router={createRouter()} />
-    </AppProvider>
+    </ThemeAndDataProvider>
   </StrictMode>,
 );

@@ -1,34 +1,27 @@
 import type { Action, SubjectName } from '@gyre/shared';
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
-import { NotFoundPage } from '../components/not-found-page';
-import { RequireAbility } from '../components/require-ability';
-import { ForgotPasswordPage } from '../features/auth/components/forgot-password-page';
 import { SignInRoute } from '../features/auth/components/sign-in-route';
-import { TokenPasswordPage } from '../features/auth/components/token-password-page';
-import { HomePage } from '../features/home/home-page';
-import { IntakePage } from '../features/intake/components/intake-page';
-import { LedgerPage } from '../features/ledger/components/ledger-page';
-import { ReportsPage } from '../features/reports/components/reports-page';
-import { ParticipantPage } from '../features/participants/components/participant-page';
-import { ParticipantsPage } from '../features/participants/components/participants-page';
-import { ReviewPage } from '../features/review/components/review-page';
-import { ReportSignOff } from '../features/signoff/components/report-sign-off';
-import { SignedReportsPage } from '../features/signoff/components/signed-reports-page';
-import { StudySettingsPage } from '../features/study-settings/components/study-settings-page';
-import { OutboxPage } from '../features/team/components/outbox-page';
-import { TeamPage } from '../features/team/components/team-page';
 import { paths } from './paths';
-import { SessionGate } from './session-gate';
+import { FirstScreenLoading, RouteError, RouteShell } from './route-states';
+
+/**
+ * Only the sign-in page is part of the first download. Everything behind it (the session
+ * gate with its rules and the app frame, each screen, the chart library) is fetched when a
+ * route needs it, through React Router's `lazy`: the router fetches every matched level at
+ * once and keeps the current screen until the next one is ready. The chart library is
+ * fetched only when a chart is about to be drawn (components/charts/plot-figure.tsx):
+ * fetched beside a screen's own code, it slowed Review down on a 2-core machine (bench:client).
+ */
 
 /**
  * A signed-in screen: its path, what the rules must allow for it to open (otherwise the
- * "not available for your role" page shows), and its element.
+ * "not available for your role" page shows), and how to load its element.
  */
 export interface ScreenRoute {
   path: string;
   screen: string;
   requires: readonly [Action, SubjectName];
-  element: React.ReactNode;
+  load: () => Promise<React.ReactNode>;
 }
 
 /** Screens of this part of the client. */
@@ -37,38 +30,66 @@ const SCREENS: ScreenRoute[] = [
     path: paths.intake,
     screen: 'Intake',
     requires: ['upload', 'Recording'],
-    element: <IntakePage />,
+    load: async () => {
+      const { IntakePage } = await import('../features/intake/components/intake-page');
+      return <IntakePage />;
+    },
   },
   {
     path: paths.ledger,
     screen: 'The Ledger',
     requires: ['read', 'AuditEntry'],
-    element: <LedgerPage />,
+    load: async () => {
+      const { LedgerPage } = await import('../features/ledger/components/ledger-page');
+      return <LedgerPage />;
+    },
   },
   {
     path: paths.reports,
     screen: 'Reports',
     requires: ['read', 'Report'],
-    element: <ReportsPage />,
+    load: async () => {
+      const { ReportsPage } = await import('../features/reports/components/reports-page');
+      return <ReportsPage />;
+    },
   },
   {
     path: paths.reportRevisions,
     screen: 'Signed report revisions',
     requires: ['read', 'Report'],
-    element: <SignedReportsPage />,
+    load: async () => {
+      const { SignedReportsPage } =
+        await import('../features/signoff/components/signed-reports-page');
+      return <SignedReportsPage />;
+    },
   },
   {
     path: paths.studySettings,
     screen: 'Study settings',
     requires: ['read', 'AnalysisSettings'],
-    element: <StudySettingsPage />,
+    load: async () => {
+      const { StudySettingsPage } =
+        await import('../features/study-settings/components/study-settings-page');
+      return <StudySettingsPage />;
+    },
   },
-  { path: paths.team, screen: 'Team', requires: ['update', 'User'], element: <TeamPage /> },
+  {
+    path: paths.team,
+    screen: 'Team',
+    requires: ['update', 'User'],
+    load: async () => {
+      const { TeamPage } = await import('../features/team/components/team-page');
+      return <TeamPage />;
+    },
+  },
   {
     path: paths.outbox,
     screen: 'The outbox',
     requires: ['read', 'Outbox'],
-    element: <OutboxPage />,
+    load: async () => {
+      const { OutboxPage } = await import('../features/team/components/outbox-page');
+      return <OutboxPage />;
+    },
   },
 ];
 
@@ -81,49 +102,114 @@ const REVIEW_AND_PARTICIPANT_SCREENS: ScreenRoute[] = [
     path: paths.review(),
     screen: 'Review',
     requires: ['read', 'Result'],
-    element: (
-      <ReviewPage
-        reportPanel={(visitId, watch) => <ReportSignOff visitId={visitId} watch={watch} />}
-      />
-    ),
+    load: async () => {
+      const [{ ReviewPage }, { ReportSignOff }] = await Promise.all([
+        import('../features/review/components/review-page'),
+        import('../features/signoff/components/report-sign-off'),
+      ]);
+      return (
+        <ReviewPage
+          reportPanel={(visitId, watch) => <ReportSignOff visitId={visitId} watch={watch} />}
+        />
+      );
+    },
   },
   {
     path: paths.participants,
     screen: 'Participants',
     requires: ['read', 'Result'],
-    element: <ParticipantsPage />,
+    load: async () => {
+      const { ParticipantsPage } =
+        await import('../features/participants/components/participants-page');
+      return <ParticipantsPage />;
+    },
   },
   {
     path: paths.participant(),
     screen: 'The participant trajectory',
     requires: ['read', 'Result'],
-    element: <ParticipantPage />,
+    load: async () => {
+      const { ParticipantPage } =
+        await import('../features/participants/components/participant-page');
+      return <ParticipantPage />;
+    },
   },
 ];
 
-function guarded({ path, screen, requires, element }: ScreenRoute): RouteObject {
+function guarded({ path, screen, requires, load }: ScreenRoute): RouteObject {
   return {
     path,
-    element: (
-      <RequireAbility action={requires[0]} subject={requires[1]} screen={screen}>
-        {element}
-      </RequireAbility>
-    ),
+    lazy: async () => {
+      const [{ RequireAbility }, element] = await Promise.all([
+        import('../components/require-ability'),
+        load(),
+      ]);
+      return {
+        element: (
+          <RequireAbility action={requires[0]} subject={requires[1]} screen={screen}>
+            {element}
+          </RequireAbility>
+        ),
+      };
+    },
   };
 }
 
 export const routes: RouteObject[] = [
-  { path: paths.signIn, element: <SignInRoute /> },
-  { path: paths.forgotPassword, element: <ForgotPasswordPage /> },
-  { path: paths.resetPassword, element: <TokenPasswordPage purpose="reset" /> },
-  { path: paths.acceptInvite, element: <TokenPasswordPage purpose="invitation" /> },
   {
-    path: paths.home,
-    element: <SessionGate />,
+    element: <RouteShell />,
+    hydrateFallbackElement: <FirstScreenLoading />,
+    errorElement: <RouteError />,
     children: [
-      { index: true, element: <HomePage /> },
-      ...[...SCREENS, ...REVIEW_AND_PARTICIPANT_SCREENS].map(guarded),
-      { path: '*', element: <NotFoundPage /> },
+      { path: paths.signIn, element: <SignInRoute /> },
+      {
+        path: paths.forgotPassword,
+        lazy: async () => {
+          const { ForgotPasswordPage } =
+            await import('../features/auth/components/forgot-password-page');
+          return { element: <ForgotPasswordPage /> };
+        },
+      },
+      {
+        path: paths.resetPassword,
+        lazy: async () => {
+          const { TokenPasswordPage } =
+            await import('../features/auth/components/token-password-page');
+          return { element: <TokenPasswordPage purpose="reset" /> };
+        },
+      },
+      {
+        path: paths.acceptInvite,
+        lazy: async () => {
+          const { TokenPasswordPage } =
+            await import('../features/auth/components/token-password-page');
+          return { element: <TokenPasswordPage purpose="invitation" /> };
+        },
+      },
+      {
+        path: paths.home,
+        lazy: async () => {
+          const { SessionGate } = await import('./session-gate');
+          return { element: <SessionGate /> };
+        },
+        children: [
+          {
+            index: true,
+            lazy: async () => {
+              const { HomePage } = await import('../features/home/home-page');
+              return { element: <HomePage /> };
+            },
+          },
+          ...[...SCREENS, ...REVIEW_AND_PARTICIPANT_SCREENS].map(guarded),
+          {
+            path: '*',
+            lazy: async () => {
+              const { NotFoundPage } = await import('../components/not-found-page');
+              return { element: <NotFoundPage /> };
+            },
+          },
+        ],
+      },
     ],
   },
 ];

@@ -20,6 +20,16 @@ import { signInPath } from './paths';
  * abilities, and sends anyone without a session to sign-in and back to where they were.
  */
 export function SessionGate() {
+  // antd's App (message, modal, notification) starts here rather than around the whole
+  // client, so the sign-in page does not download it (app/provider.tsx).
+  return (
+    <App>
+      <SignedInScreens />
+    </App>
+  );
+}
+
+function SignedInScreens() {
   // Someone who never signed in here, or signed out, goes straight to sign-in.
   const [askServer] = useState(() => getAccessToken() !== null || mightHaveSession());
   const { data: me, error, isLoading, mutate: reloadMe } = useMe(askServer);

@@ -1,4 +1,4 @@
-import { Card, Typography } from 'antd';
+import { Typography } from 'antd';
 import { GyreMark } from '../../../components/gyre-mark';
 import { ResearchCaution } from '../../../components/research-caution';
 
@@ -26,12 +26,20 @@ export function AuthLayout({ title, children }: { title: string; children: React
             </Typography.Text>
           </div>
         </div>
-        <Card>
+        {/* A plain card: antd's Card brings its tabs and menus into the first download. */}
+        <section
+          style={{
+            background: '#FFFFFF',
+            border: '1px solid #DCE5E6',
+            borderRadius: 8,
+            padding: 24,
+          }}
+        >
           <Typography.Title level={1} style={{ marginTop: 0, fontSize: 20 }}>
             {title}
           </Typography.Title>
           {children}
-        </Card>
+        </section>
         <div style={{ marginTop: 16 }}>
           <ResearchCaution />
         </div>

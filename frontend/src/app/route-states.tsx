@@ -1,0 +1,66 @@
+import { Alert, Button, Skeleton } from 'antd';
+import { Outlet, useNavigation, useRouteError } from 'react-router-dom';
+
+/**
+ * The root of every route: the screen, and a thin bar at the top of the window while the
+ * router fetches the next screen's code. The screen being left stays until the next one is
+ * ready, so nothing flashes in between.
+ */
+export function RouteShell() {
+  const navigation = useNavigation();
+  return (
+    <>
+      {navigation.state === 'loading' ? (
+        <div role="progressbar" aria-label="Opening the screen" className="gyre-route-progress" />
+      ) : null}
+      <Outlet />
+    </>
+  );
+}
+
+/**
+ * What the window shows while a signed-in screen's code arrives on a fresh load: the outline
+ * of the app frame (its header band, then grey rows), never another screen.
+ */
+export function FirstScreenLoading() {
+  return (
+    <div role="status" aria-busy="true" aria-label="Opening Gyre" style={{ minHeight: '100vh' }}>
+      <div style={{ height: 60, background: '#FFFFFF', borderBottom: '1px solid #DCE5E6' }} />
+      <div style={{ maxWidth: 1440, margin: '0 auto', padding: '28px 32px' }}>
+        <Skeleton active title paragraph={{ rows: 6 }} />
+      </div>
+    </div>
+  );
+}
+
+/**
+ * A screen whose code could not be fetched (the connection dropped, or Gyre was updated while
+ * this window was open and the old files are gone): reloading fetches the current ones. Built
+ * only from pieces of the first download, so it shows even when nothing else arrives.
+ */
+export function RouteError() {
+  const error = useRouteError();
+  const detail = error instanceof Error ? error.message : null;
+  return (
+    <div style={{ maxWidth: 640, margin: '64px auto', padding: '0 16px' }}>
+      <Alert
+        type="error"
+        showIcon
+        title="Gyre could not open this screen"
+        description={
+          <>
+            <p style={{ marginTop: 0 }}>
+              Reload the page to try again. If it keeps happening, tell your administrator.
+            </p>
+            {detail === null ? null : <p style={{ marginBottom: 0 }}>{detail}</p>}
+          </>
+        }
+        action={
+          <Button type="primary" onClick={() => window.location.reload()}>
+            Reload
+          </Button>
+        }
+      />
+    </div>
+  );
+}
