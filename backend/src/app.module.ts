@@ -23,6 +23,7 @@ import { FlagsModule } from './flags/flags.module';
 import { TrajectoryModule } from './trajectory/trajectory.module';
 import { SignoffModule } from './signoff/signoff.module';
 import { WorkerTokensModule } from './worker-tokens/worker-tokens.module';
+import { RemoteWorkersModule } from './remote-workers/remote-workers.module';
 
 @Module({})
 export class AppModule implements NestModule {
@@ -54,6 +55,7 @@ export class AppModule implements NestModule {
         TrajectoryModule,
         SignoffModule,
         WorkerTokensModule,
+        RemoteWorkersModule,
       ],
     };
   }

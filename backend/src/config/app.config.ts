@@ -25,9 +25,28 @@ export interface AppConfig {
   logLevel: string;
   /** Express's `trust proxy`: false (the default) believes no X-Forwarded-For at all. */
   trustProxy: TrustProxy;
+  /** Null: computations run in this process; set: see {@link RemoteConfig}. */
+  remote: RemoteConfig | null;
+  /** The largest analysis result a remote worker may post, in bytes. */
+  workerResultMaxBytes: number;
+}
+
+/** Computations on BullMQ and Redis, by remote workers (docs/scale-out.md). */
+export interface RemoteConfig {
+  redisUrl: string;
+  /** Jobs handed to Redis and not yet finished, at most: the rest wait in SQLite, `queued`. */
+  dispatchLimit: number;
+  /** How often running jobs are compared with Redis (lost or failed ones are settled), ms. */
+  checkIntervalMs: number;
 }
 
 const DEFAULT_UPLOAD_MAX_BYTES = 2 * 1024 ** 3;
+// Enough for every worker of a few machines to hold one job and have the next one waiting;
+// more would only show recordings as `computing` while they wait in Redis.
+const DEFAULT_REMOTE_DISPATCH_LIMIT = 32;
+const DEFAULT_REMOTE_CHECK_INTERVAL_MS = 30_000;
+// A 60-minute task recording's curves and raster are a few MB; this leaves a wide margin.
+const DEFAULT_WORKER_RESULT_MAX_BYTES = 256 * 1024 ** 2;
 const PLACEHOLDER_SECRETS = ['secret', 'changeme', 'change-me', 'jwt-secret', 'password', 'test'];
 
 /** Resolves validated variables into Gyre's configuration, creating the data folder. */
@@ -53,6 +72,15 @@ export function buildAppConfig(env: EnvironmentVariables): AppConfig {
     uploadMaxBytes: env.UPLOAD_MAX_BYTES ?? DEFAULT_UPLOAD_MAX_BYTES,
     logLevel: env.LOG_LEVEL ?? (nodeEnv === 'test' ? 'warn' : 'log'),
     trustProxy: trustProxyOf(env.TRUST_PROXY),
+    remote:
+      env.REDIS_URL === undefined
+        ? null
+        : {
+            redisUrl: env.REDIS_URL,
+            dispatchLimit: env.REMOTE_DISPATCH_LIMIT ?? DEFAULT_REMOTE_DISPATCH_LIMIT,
+            checkIntervalMs: env.REMOTE_CHECK_INTERVAL_MS ?? DEFAULT_REMOTE_CHECK_INTERVAL_MS,
+          },
+    workerResultMaxBytes: env.WORKER_RESULT_MAX_BYTES ?? DEFAULT_WORKER_RESULT_MAX_BYTES,
   };
 }
 

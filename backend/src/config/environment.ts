@@ -87,6 +87,37 @@ export class EnvironmentVariables {
   @IsString()
   @Validate(TrustProxyFormat)
   TRUST_PROXY?: string;
+
+  /**
+   * Set: computations go to BullMQ on this Redis and remote workers (`npm run worker`) compute
+   * them; unset: the SQLite queue and the in-process worker threads (docs/scale-out.md).
+   */
+  @IsOptional()
+  @IsUrl({ protocols: ['redis', 'rediss'], require_tld: false, require_protocol: true })
+  REDIS_URL?: string;
+
+  /** Computations handed to Redis and not yet finished, at most (with REDIS_URL). */
+  @IsOptional()
+  @Transform(toInt)
+  @IsInt()
+  @Min(1)
+  @Max(10000)
+  REMOTE_DISPATCH_LIMIT?: number;
+
+  /** How often the server compares its running jobs with Redis's (with REDIS_URL), ms. */
+  @IsOptional()
+  @Transform(toInt)
+  @IsInt()
+  @Min(200)
+  @Max(3_600_000)
+  REMOTE_CHECK_INTERVAL_MS?: number;
+
+  /** The largest analysis result a worker may post, in bytes. */
+  @IsOptional()
+  @Transform(toInt)
+  @IsInt()
+  @Min(1024)
+  WORKER_RESULT_MAX_BYTES?: number;
 }
 
 /** Thrown when the environment is invalid: one line per bad variable, each naming it. */
@@ -130,4 +161,8 @@ class EnvironmentVariablesKeys implements Record<keyof EnvironmentVariables, und
   UPLOAD_MAX_BYTES = undefined;
   LOG_LEVEL = undefined;
   TRUST_PROXY = undefined;
+  REDIS_URL = undefined;
+  REMOTE_DISPATCH_LIMIT = undefined;
+  REMOTE_CHECK_INTERVAL_MS = undefined;
+  WORKER_RESULT_MAX_BYTES = undefined;
 }

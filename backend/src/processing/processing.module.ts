@@ -4,21 +4,31 @@ import { JobsModule } from '../jobs/jobs.module';
 import { QueueModule } from '../queue/queue.module';
 import { RecordingsModule } from '../recordings/recordings.module';
 import { VisitsModule } from '../visits/visits.module';
+import { ComputationSteps } from './computation-steps.service';
 import { ComputationsService } from './computations.service';
 import { OverrideRerunsListener } from './override-reruns.listener';
+import { RemoteComputations } from './remote-computations.service';
 import { RestFollowListener } from './rest-follow.listener';
 import { RunsController } from './runs.controller';
 import { RunsService } from './runs.service';
 
 /**
- * Runs computations: takes jobs from the queue's analysis lane into the worker pool, stores
- * their runs through analysis/, moves recordings through recordings/, and recomputes what a
- * changed resting IAF or visit override makes out of date.
+ * Runs computations: takes jobs from the queue's analysis lane into the worker pool (or, with
+ * REDIS_URL, hands them to BullMQ for remote workers), stores their runs through analysis/,
+ * moves recordings through recordings/, and recomputes what a changed resting IAF or visit
+ * override makes out of date.
  */
 @Module({
   imports: [QueueModule, JobsModule, RecordingsModule, AnalysisModule, VisitsModule],
   controllers: [RunsController],
-  providers: [ComputationsService, RunsService, RestFollowListener, OverrideRerunsListener],
-  exports: [ComputationsService],
+  providers: [
+    ComputationsService,
+    ComputationSteps,
+    RemoteComputations,
+    RunsService,
+    RestFollowListener,
+    OverrideRerunsListener,
+  ],
+  exports: [ComputationsService, ComputationSteps, RemoteComputations],
 })
 export class ProcessingModule {}

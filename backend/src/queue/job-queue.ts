@@ -40,6 +40,15 @@ export interface RecoveredJob {
   willRetry: boolean;
 }
 
+/** What `recover` leaves alone. */
+export interface RecoverOptions {
+  /**
+   * Running jobs that are still being computed elsewhere (by remote workers, whose queue
+   * outlives this process): they stay `running`.
+   */
+  stillRunning?: ReadonlySet<string>;
+}
+
 /**
  * The job queue behind one interface, knowing nothing of what jobs do. `enqueue` writes inside
  * the producer's transaction, so a job exists exactly when the change that asked for it commits
@@ -54,7 +63,11 @@ export interface JobQueue {
   complete(tx: EntityManager, jobId: string): Promise<void>;
   fail(tx: EntityManager, jobId: string, error: string): Promise<FailOutcome>;
   release(jobId: string, delayMs: number): Promise<void>;
-  recover(): Promise<RecoveredJob[]>;
+  recover(options?: RecoverOptions): Promise<RecoveredJob[]>;
+  /** One job by id, inside a transaction when one is given (so a check and a write agree). */
+  byId<P>(jobId: string, tx?: EntityManager): Promise<QueuedJob<P> | null>;
+  /** The lane's running jobs, oldest first. */
+  running<P>(lane: string): Promise<Array<QueuedJob<P>>>;
   /** The newest job of each subject. */
   latestBySubject(subjectIds: readonly string[]): Promise<Map<string, QueuedJob>>;
   /** Jobs queued or running, in one lane or all. */

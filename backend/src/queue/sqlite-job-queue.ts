@@ -6,7 +6,14 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, In } from 'typeorm';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { nowIso } from '../common/time';
-import type { EnqueueRequest, FailOutcome, JobQueue, QueuedJob, RecoveredJob } from './job-queue';
+import type {
+  EnqueueRequest,
+  FailOutcome,
+  JobQueue,
+  QueuedJob,
+  RecoveredJob,
+  RecoverOptions,
+} from './job-queue';
 import { QueueJob } from './queue-job.entity';
 
 const DEFAULT_MAX_ATTEMPTS = 3;
@@ -121,9 +128,11 @@ export class SqliteJobQueue implements JobQueue {
     });
   }
 
-  async recover(): Promise<RecoveredJob[]> {
+  async recover(options: RecoverOptions = {}): Promise<RecoveredJob[]> {
+    const keep = options.stillRunning ?? new Set<string>();
     return this.writes.run(async (tx) => {
-      const stuck = await tx.getRepository(QueueJob).find({ where: { state: 'running' } });
+      const running = await tx.getRepository(QueueJob).find({ where: { state: 'running' } });
+      const stuck = running.filter((row) => !keep.has(row.id));
       const recovered: RecoveredJob[] = [];
       for (const row of stuck) {
         const willRetry = row.attempts < row.maxAttempts;
@@ -137,6 +146,20 @@ export class SqliteJobQueue implements JobQueue {
       if (stuck.length > 0) this.logger.warn(`Recovered ${stuck.length} interrupted job(s)`);
       return recovered;
     });
+  }
+
+  async byId<P>(jobId: string, tx?: EntityManager): Promise<QueuedJob<P> | null> {
+    const manager = tx ?? this.dataSource.manager;
+    const row = await manager.getRepository(QueueJob).findOneBy({ id: jobId });
+    return row === null ? null : toQueuedJob<P>(row);
+  }
+
+  async running<P>(lane: string): Promise<Array<QueuedJob<P>>> {
+    const rows = await this.dataSource.getRepository(QueueJob).find({
+      where: { lane, state: 'running' },
+      order: { startedAt: 'ASC', id: 'ASC' },
+    });
+    return rows.map((row) => toQueuedJob<P>(row));
   }
 
   async latestBySubject(subjectIds: readonly string[]): Promise<Map<string, QueuedJob>> {

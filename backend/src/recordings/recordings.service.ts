@@ -372,6 +372,16 @@ export class RecordingsService {
     return input;
   }
 
+  /**
+   * What a computation of a `computing` recording needs (handing a remote computation over
+   * again, serving its file to a worker); null when the recording is not computing.
+   */
+  async computingInput(recordingId: string): Promise<ComputationInput | null> {
+    const row = await this.dataSource.getRepository(Recording).findOneBy({ id: recordingId });
+    if (row === null || row.state !== 'computing' || row.storedFile === null) return null;
+    return toComputationInput(row, this.config.uploadsDir);
+  }
+
   /** Inside the processing transaction: the computation's numbers are now the recording's. */
   async finishComputing(
     tx: EntityManager,
@@ -446,6 +456,8 @@ export class RecordingsService {
         const job = jobs.get(row.id);
         const live = job !== undefined && (job.state === 'queued' || job.state === 'running');
         const reason = job?.error ?? 'the server stopped during the computation';
+        // Still running after the queue's recovery: a remote worker computes it (REDIS_URL).
+        if (row.state === 'computing' && job?.state === 'running') continue;
         if (row.state === 'computing' && job?.state === 'failed') {
           await this.lifecycle.transition(
             tx,

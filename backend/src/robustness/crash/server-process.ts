@@ -42,6 +42,8 @@ export async function startServer(
   jwtSecret: string,
   logFile: string,
   timeoutMs = 60_000,
+  /** More environment variables (e.g. REDIS_URL for the remote-worker tests). */
+  extraEnv: Record<string, string> = {},
 ): Promise<ServerProcess> {
   const port = await freePort();
   const launcher = `require('reflect-metadata');
@@ -55,6 +57,7 @@ createApp().then((app) => app.listen(${port}, '127.0.0.1')).catch((e) => { conso
       DATA_DIR: dataDir,
       JWT_SECRET: jwtSecret,
       LOG_LEVEL: 'log',
+      ...extraEnv,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });

@@ -1,0 +1,366 @@
+/**
+ * The shape a worker's posted `summary` must have: the signal core's `RunSummary`, field for
+ * field (each class `implements` its part, so a change of the core's type fails to compile
+ * here until the check follows it). Validated by class-validator with unknown fields refused,
+ * so a 400 names the exact path that is wrong (`summary.quality.channels.3.flat`).
+ */
+import { Type } from 'class-transformer';
+import {
+  ArrayMaxSize,
+  IsArray,
+  IsBoolean,
+  IsIn,
+  IsInt,
+  IsNumber,
+  IsObject,
+  IsString,
+  MaxLength,
+  Min,
+  ValidateBy,
+  ValidateIf,
+  ValidateNested,
+  ValidationOptions,
+} from 'class-validator';
+import type {
+  ChannelQualityDto,
+  ChannelStatsDto,
+  QualityDto,
+  RoiChannelOmission,
+  RoiOmissionReason,
+  RoiUsageDto,
+} from '@gyre/shared';
+import type { AnalysisBandSource } from '../../signal/pipeline/analysis-settings';
+import type { RunSummary } from '../../signal/pipeline/run-summary';
+
+const finite = { allowNaN: false, allowInfinity: false };
+/** Generous ceilings: a 256-channel montage, a few hours of trials, long warning lists. */
+const MAX_LABEL = 256;
+const MAX_TEXT = 4000;
+const MAX_CHANNELS = 1024;
+const MAX_WARNINGS = 2000;
+const MAX_TRIALS = 200_000;
+
+const BAND_SOURCES = [
+  'settings',
+  'iaf',
+  'default',
+] as const satisfies readonly AnalysisBandSource[];
+const OMISSION_REASONS = [
+  'missing',
+  'flat',
+  'saturated',
+  'sample-rate',
+  'excluded',
+] as const satisfies readonly RoiOmissionReason[];
+const ROI_STATUSES = [
+  'complete',
+  'partial',
+  'none',
+] as const satisfies readonly RoiUsageDto['status'][];
+
+function compose(...decorators: PropertyDecorator[]): PropertyDecorator {
+  return (target, key) => decorators.forEach((decorator) => decorator(target, key));
+}
+
+/** A finite number, or null (a missing value). */
+const NullableNumber = (): PropertyDecorator =>
+  compose(
+    ValidateIf((_o, value) => value !== null),
+    IsNumber(finite),
+  );
+
+/** `[low, high]` of finite numbers. */
+const Pair = (): PropertyDecorator =>
+  compose(IsArray(), ArrayMaxSize(2), IsNumber(finite, { each: true }), ValidateBy(pairOf2));
+
+const pairOf2 = {
+  name: 'pair',
+  validator: {
+    validate: (value: unknown): boolean => Array.isArray(value) && value.length === 2,
+    defaultMessage: (): string => '$property must hold exactly two numbers',
+  },
+};
+
+const Labels = (max = MAX_CHANNELS): PropertyDecorator =>
+  compose(
+    IsArray(),
+    ArrayMaxSize(max),
+    IsString({ each: true }),
+    MaxLength(MAX_LABEL, { each: true }),
+  );
+
+const Numbers = (max: number): PropertyDecorator =>
+  compose(IsArray(), ArrayMaxSize(max), IsNumber(finite, { each: true }));
+
+const Nested = (type: () => new () => object, options: ValidationOptions = {}): PropertyDecorator =>
+  compose(IsObject(options), ValidateNested(options), Type(type));
+
+/** A plain object of finite counts (`epochs.dropped`: reason → trials). */
+const CountRecord = (): PropertyDecorator =>
+  ValidateBy({
+    name: 'countRecord',
+    validator: {
+      validate: (value: unknown): boolean =>
+        typeof value === 'object' &&
+        value !== null &&
+        !Array.isArray(value) &&
+        Object.keys(value).length <= 100 &&
+        Object.values(value).every((n) => Number.isInteger(n) && (n as number) >= 0),
+      defaultMessage: (): string => '$property must map reasons to trial counts',
+    },
+  });
+
+class RoiChannelOmissionDto implements RoiChannelOmission {
+  @IsString()
+  @MaxLength(MAX_LABEL)
+  label: string;
+
+  @IsIn(OMISSION_REASONS)
+  reason: RoiOmissionReason;
+}
+
+class RoiUsageWireDto implements RoiUsageDto {
+  @Labels()
+  wanted: string[];
+
+  @Labels()
+  used: string[];
+
+  @IsArray()
+  @ArrayMaxSize(MAX_CHANNELS)
+  @ValidateNested({ each: true })
+  @Type(() => RoiChannelOmissionDto)
+  leftOut: RoiChannelOmissionDto[];
+
+  @IsIn(ROI_STATUSES)
+  status: RoiUsageDto['status'];
+}
+
+class ChannelStatsWireDto implements ChannelStatsDto {
+  @IsString()
+  @MaxLength(MAX_LABEL)
+  label: string;
+
+  @ValidateIf((_o, value) => value !== null)
+  @IsString()
+  @MaxLength(MAX_LABEL)
+  canonical: string | null;
+
+  @IsBoolean()
+  inRoi: boolean;
+
+  @NullableNumber()
+  baselineHz: number | null;
+
+  @NullableNumber()
+  postHz: number | null;
+
+  @NullableNumber()
+  deltaFHz: number | null;
+
+  @ValidateIf((_o, value) => value !== null)
+  @Pair()
+  ciHz: [number, number] | null;
+
+  @NullableNumber()
+  pValue: number | null;
+
+  @ValidateIf((_o, value) => value !== null)
+  @IsInt()
+  @Min(0)
+  trials: number | null;
+}
+
+class RoiStatsDto implements NonNullable<RunSummary['roi']> {
+  @NullableNumber()
+  baselineHz: number | null;
+
+  @NullableNumber()
+  postHz: number | null;
+
+  @NullableNumber()
+  deltaFHz: number | null;
+
+  @ValidateIf((_o, value) => value !== null)
+  @Pair()
+  ciHz: [number, number] | null;
+
+  @NullableNumber()
+  pValue: number | null;
+
+  @IsInt()
+  @Min(0)
+  trialsKept: number;
+
+  @IsInt()
+  @Min(0)
+  trialsTotal: number;
+}
+
+class EpochCountsDto {
+  @IsInt()
+  @Min(0)
+  total: number;
+
+  @IsInt()
+  @Min(0)
+  kept: number;
+
+  @CountRecord()
+  dropped: Record<string, number>;
+}
+
+class TaskSummaryDto implements NonNullable<RunSummary['task']> {
+  @Pair()
+  baselineWindowS: [number, number];
+
+  @Pair()
+  postWindowS: [number, number];
+
+  @Nested(() => EpochCountsDto)
+  epochs: EpochCountsDto;
+
+  @Numbers(MAX_TRIALS)
+  trialOnsetsS: number[];
+
+  @Labels()
+  curveChannels: string[];
+
+  @IsInt()
+  @Min(0)
+  rasterTrials: number;
+
+  @IsInt()
+  @Min(0)
+  rasterPoints: number;
+}
+
+class RestSummaryDto implements NonNullable<RunSummary['rest']> {
+  @NullableNumber()
+  pafHz: number | null;
+
+  @NullableNumber()
+  cogHz: number | null;
+
+  @NullableNumber()
+  prominenceDb: number | null;
+
+  @ValidateIf((_o, value) => value !== null)
+  @IsString()
+  @MaxLength(MAX_TEXT)
+  noPeakReason: string | null;
+
+  @Pair()
+  alphaWindowHz: [number, number];
+}
+
+class ChannelQualityWireDto implements ChannelQualityDto {
+  @IsString()
+  @MaxLength(MAX_LABEL)
+  label: string;
+
+  @NullableNumber()
+  standardDeviationUv: number | null;
+
+  @IsBoolean()
+  flat: boolean;
+
+  @NullableNumber()
+  saturatedShare: number | null;
+
+  @IsBoolean()
+  saturated: boolean;
+
+  @NullableNumber()
+  lineNoiseRatio50Hz: number | null;
+
+  @NullableNumber()
+  lineNoiseRatio60Hz: number | null;
+
+  @NullableNumber()
+  phaseSlipShare: number | null;
+}
+
+class QualityWireDto implements QualityDto {
+  @IsNumber(finite)
+  durationS: number;
+
+  @Numbers(MAX_CHANNELS)
+  sampleRatesHz: number[];
+
+  @Labels()
+  roiChannelsFound: string[];
+
+  @Labels()
+  roiChannelsMissing: string[];
+
+  @Labels()
+  flatChannels: string[];
+
+  @Labels()
+  saturatedChannels: string[];
+
+  @NullableNumber()
+  lineNoiseRatio50Hz: number | null;
+
+  @NullableNumber()
+  lineNoiseRatio60Hz: number | null;
+
+  @NullableNumber()
+  epochsDroppedShare: number | null;
+
+  @NullableNumber()
+  phaseSlipShare: number | null;
+
+  @NullableNumber()
+  alphaPeakProminenceDb: number | null;
+
+  @IsArray()
+  @ArrayMaxSize(MAX_CHANNELS)
+  @ValidateNested({ each: true })
+  @Type(() => ChannelQualityWireDto)
+  channels: ChannelQualityWireDto[];
+
+  @IsArray()
+  @ArrayMaxSize(MAX_WARNINGS)
+  @IsString({ each: true })
+  @MaxLength(MAX_TEXT, { each: true })
+  warnings: string[];
+}
+
+/** `summary` of a posted result. */
+export class RunSummaryDto implements RunSummary {
+  @Pair()
+  bandHz: [number, number];
+
+  @IsIn(BAND_SOURCES)
+  bandSource: AnalysisBandSource;
+
+  @Nested(() => RoiUsageWireDto)
+  roiUsage: RoiUsageWireDto;
+
+  @IsArray()
+  @ArrayMaxSize(MAX_CHANNELS)
+  @ValidateNested({ each: true })
+  @Type(() => ChannelStatsWireDto)
+  channels: ChannelStatsWireDto[];
+
+  @ValidateIf((_o, value) => value !== null)
+  @Nested(() => RoiStatsDto)
+  roi: RoiStatsDto | null;
+
+  @ValidateIf((_o, value) => value !== null)
+  @Nested(() => TaskSummaryDto)
+  task: TaskSummaryDto | null;
+
+  @ValidateIf((_o, value) => value !== null)
+  @Nested(() => RestSummaryDto)
+  rest: RestSummaryDto | null;
+
+  @Nested(() => QualityWireDto)
+  quality: QualityWireDto;
+
+  @ValidateIf((_o, value) => value !== null)
+  @IsBoolean()
+  suggestsSlowing: boolean | null;
+}

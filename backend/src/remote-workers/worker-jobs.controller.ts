@@ -1,0 +1,116 @@
+import {
+  Body,
+  Controller,
+  Get,
+  HttpCode,
+  Param,
+  ParseIntPipe,
+  ParseUUIDPipe,
+  Post,
+  Res,
+  StreamableFile,
+} from '@nestjs/common';
+import {
+  ApiBearerAuth,
+  ApiConflictResponse,
+  ApiConsumes,
+  ApiOkResponse,
+  ApiOperation,
+  ApiTags,
+} from '@nestjs/swagger';
+import type { Response } from 'express';
+import type { WorkerPrincipal } from '../auth/auth-user';
+import { CurrentWorker, RequirePermission } from '../auth/decorators';
+import {
+  WorkerFailureAnswerDto,
+  WorkerFailureDto,
+  WorkerProgressDto,
+  WorkerResultAnswerDto,
+} from './dto/worker-job.dto';
+import type { RemoteTask } from './remote-job';
+import { RESULT_CONTENT_TYPE } from './result-wire';
+import { WorkerJobsService } from './worker-jobs.service';
+
+const attemptPipe = new ParseIntPipe({ errorHttpStatusCode: 400 });
+
+/**
+ * The worker API (with REDIS_URL): what `npm run worker` calls with a worker token. Routes
+ * name one attempt of a job; any attempt that is not the job's current one is answered 409.
+ */
+@ApiTags('worker')
+@ApiBearerAuth()
+@ApiConflictResponse({ description: 'The attempt is no longer the job’s current one' })
+@Controller('worker/jobs/:jobId/:attempt')
+export class WorkerJobsController {
+  constructor(private readonly jobs: WorkerJobsService) {}
+
+  @Get('input')
+  @RequirePermission('read', 'JobInput')
+  @ApiOperation({ summary: 'The task to compute: settings, IAF, onsets, the file’s SHA-256' })
+  input(
+    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @Param('attempt', attemptPipe) attempt: number,
+  ): Promise<RemoteTask> {
+    return this.jobs.task({ jobId, attempt });
+  }
+
+  @Get('file')
+  @RequirePermission('read', 'JobInput')
+  @ApiOperation({ summary: 'The stored recording (EDF); its SHA-256 is in X-Gyre-Sha256' })
+  async file(
+    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @Param('attempt', attemptPipe) attempt: number,
+    @Res({ passthrough: true }) response: Response,
+  ): Promise<StreamableFile> {
+    const file = await this.jobs.file({ jobId, attempt });
+    response.setHeader('X-Gyre-Sha256', file.sha256);
+    return new StreamableFile(file.stream, {
+      type: 'application/octet-stream',
+      length: file.sizeBytes,
+    });
+  }
+
+  @Post('progress')
+  @HttpCode(204)
+  @RequirePermission('create', 'JobResult')
+  @ApiOperation({ summary: 'How far the computation is (percent)' })
+  async progress(
+    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @Param('attempt', attemptPipe) attempt: number,
+    @Body() body: WorkerProgressDto,
+  ): Promise<void> {
+    await this.jobs.progress({ jobId, attempt }, body.percent);
+  }
+
+  @Post('result')
+  @HttpCode(200)
+  @RequirePermission('create', 'JobResult')
+  @ApiConsumes(RESULT_CONTENT_TYPE)
+  @ApiOperation({
+    summary: 'The computation’s result: summary as JSON, series as base64 float64 (LE)',
+  })
+  @ApiOkResponse({ type: WorkerResultAnswerDto })
+  result(
+    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @Param('attempt', attemptPipe) attempt: number,
+    @Body() body: unknown,
+    @CurrentWorker() worker: WorkerPrincipal,
+  ): Promise<WorkerResultAnswerDto> {
+    return this.jobs.result({ jobId, attempt }, body, worker);
+  }
+
+  @Post('failure')
+  @HttpCode(200)
+  @RequirePermission('create', 'JobResult')
+  @ApiOperation({ summary: 'The computation failed: the attempt counts' })
+  @ApiOkResponse({ type: WorkerFailureAnswerDto })
+  async failure(
+    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @Param('attempt', attemptPipe) attempt: number,
+    @Body() body: WorkerFailureDto,
+    @CurrentWorker() worker: WorkerPrincipal,
+  ): Promise<WorkerFailureAnswerDto> {
+    await this.jobs.failure({ jobId, attempt }, body.message, worker);
+    return { recorded: true };
+  }
+}
