@@ -145,6 +145,25 @@ def welch_case(fs, seconds, seed):
     }
 
 
+def rfft_cases():
+    """numpy.fft.rfft at the lengths Welch's segments take (4 s at 250, 256, 312.5 and 500 Hz),
+    a prime length and an even length whose half is prime (Gyre's Bluestein fallback), and an
+    odd length with small factors."""
+    rng = np.random.default_rng(20240307)
+    cases = []
+    for n in [1000, 2000, 1024, 1250, 1009, 1006, 375]:
+        t = np.arange(n)
+        x = rounded(rng.standard_normal(n) * 5 + 20 * np.sin(2 * np.pi * 10.3 * t / n) + 3)
+        spectrum = np.fft.rfft(x)
+        cases.append({
+            "size": n,
+            "input": stable(x),
+            "re": stable(spectrum.real),
+            "im": stable(spectrum.imag),
+        })
+    return {"source": "numpy.fft.rfft (numpy %s)" % np.__version__, "cases": cases}
+
+
 def wilcoxon_cases():
     rng = np.random.default_rng(20240305)
     inputs = {
@@ -190,6 +209,7 @@ def main():
     write(args.out, "welch-250hz.json", welch_case(250.0, 30, 20240304))
     write(args.out, "welch-256hz.json", welch_case(256.0, 20, 20240306))
     write(args.out, "wilcoxon.json", wilcoxon_cases())
+    write(args.out, "rfft.json", rfft_cases())
 
 
 if __name__ == "__main__":

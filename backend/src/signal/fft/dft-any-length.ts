@@ -1,22 +1,35 @@
+import { checkLength, ComplexDft, DftScratch } from './complex-dft';
 import { fftPlan, FftPlan, isPowerOfTwo, nextPowerOfTwo } from './fft-plan';
+import { MixedRadixFftPlan, radixFactors } from './mixed-radix-fft';
 
-/** Scratch buffers of one DFT call; create one per call site, never share between threads. */
-export interface DftScratch {
-  a: Float64Array;
-  b: Float64Array;
+/** A power-of-two length: fft.js's radix-4 transform, no work buffers. */
+class PowerOfTwoDft implements ComplexDft {
+  readonly size: number;
+  private readonly plan: FftPlan;
+
+  constructor(size: number) {
+    this.size = size;
+    this.plan = fftPlan(size);
+  }
+
+  createScratch(): DftScratch {
+    return { a: new Float64Array(0), b: new Float64Array(0) };
+  }
+
+  forward(input: Float64Array, output: Float64Array): void {
+    this.plan.forward(input, output);
+  }
 }
 
 /**
- * A forward DFT of any length n. Powers of two go straight to fft.js; other lengths
- * use Bluestein's chirp-z identity nk = (n² + k² − (k − n)²)/2, which turns the DFT
- * into a circular convolution of power-of-two length M ≥ 2n − 1 (a standard FFT
- * technique; common practice).
- * Welch's 4 s segments are 1000 or 2000 samples long, not powers of two.
+ * A forward DFT of a length with a large prime factor, by Bluestein's chirp-z identity
+ * nk = (n² + k² − (k − n)²)/2, which turns the DFT into a circular convolution of
+ * power-of-two length M ≥ 2n − 1 (a standard FFT technique; common practice). It costs
+ * three FFTs of M, so `dftPlan` uses it only where the mixed-radix plan cannot go.
  */
-export class DftPlan {
+export class BluesteinDft implements ComplexDft {
   readonly size: number;
-  private readonly direct: FftPlan | null;
-  private readonly inner: FftPlan | null;
+  private readonly inner: FftPlan;
   /** Chirp w[k] = e^(−iπk²/n), interleaved. */
   private readonly chirp: Float64Array;
   /** DFT of the convolution kernel conj(w) wrapped to length M, interleaved. */
@@ -27,14 +40,6 @@ export class DftPlan {
       throw new RangeError(`DFT size: expected a positive integer, got ${size}`);
     }
     this.size = size;
-    if (isPowerOfTwo(size)) {
-      this.direct = fftPlan(size);
-      this.inner = null;
-      this.chirp = new Float64Array(0);
-      this.kernelSpectrum = new Float64Array(0);
-      return;
-    }
-    this.direct = null;
     const m = nextPowerOfTwo(2 * size - 1);
     const inner = fftPlan(m);
     this.inner = inner;
@@ -62,25 +67,20 @@ export class DftPlan {
   }
 
   createScratch(): DftScratch {
-    const m = this.inner ? this.inner.size : this.size;
+    const m = this.inner.size;
     return { a: new Float64Array(2 * m), b: new Float64Array(2 * m) };
   }
 
   /** Forward complex DFT of interleaved `input` (length 2n) into `output` (length 2n). */
   forward(input: Float64Array, output: Float64Array, scratch: DftScratch): void {
     const n = this.size;
-    if (input.length !== 2 * n || output.length !== 2 * n) {
-      throw new RangeError(
-        `DFT buffers: expected length ${2 * n}, got ${input.length} and ${output.length}`,
-      );
-    }
-    if (this.direct) {
-      this.direct.forward(input, output);
-      return;
-    }
-    const inner = this.inner as FftPlan;
+    checkLength(input, 2 * n, 'input');
+    checkLength(output, 2 * n, 'output');
+    const inner = this.inner;
     const m = inner.size;
     const { a, b } = scratch;
+    checkLength(a, 2 * m, 'scratch');
+    checkLength(b, 2 * m, 'scratch');
     const w = this.chirp;
     a.fill(0);
     for (let k = 0; k < n; k++) {
@@ -113,13 +113,19 @@ export class DftPlan {
   }
 }
 
-const dftPlans = new Map<number, DftPlan>();
+const dftPlans = new Map<number, ComplexDft>();
 
-/** The cached any-length plan for `size`. */
-export function dftPlan(size: number): DftPlan {
+/**
+ * The cached forward DFT plan for any length: fft.js for powers of two, the mixed-radix
+ * plan when every prime factor is small (Welch's 1000 and 2000 samples are 2^a·5^3),
+ * Bluestein otherwise.
+ */
+export function dftPlan(size: number): ComplexDft {
   let plan = dftPlans.get(size);
   if (!plan) {
-    plan = new DftPlan(size);
+    if (isPowerOfTwo(size)) plan = new PowerOfTwoDft(size);
+    else if (radixFactors(size) !== null) plan = new MixedRadixFftPlan(size);
+    else plan = new BluesteinDft(size);
     dftPlans.set(size, plan);
   }
   return plan;

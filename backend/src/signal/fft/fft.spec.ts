@@ -1,7 +1,9 @@
-import { dftPlan } from './dft-any-length';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { BluesteinDft, dftPlan } from './dft-any-length';
 import { fftPlan, nextPowerOfTwo } from './fft-plan';
 import { BandDftPlan, BandDftScratch, bandSubSize, PhaseSink, PhaseSource } from './band-dft';
-import { mixedRadixLength, mixedRadixPlan } from './mixed-radix-fft';
+import { MixedRadixFftPlan, mixedRadixLength, radixFactors } from './mixed-radix-fft';
 
 /** Generated test signal (deterministic). */
 function generated(n: number, seed: number): Float64Array {
@@ -92,34 +94,30 @@ describe('FFT plans', () => {
     );
   });
 
-  // Against the DFT definition, for lengths that are not powers of two (Bluestein path).
-  it.each([7, 100, 1000])('matches the DFT definition at any length (N = %i)', (n) => {
-    const x = toComplex(generated(n, 5));
-    for (let i = 0; i < n; i++) x[2 * i + 1] = Math.cos(i);
-    const plan = dftPlan(n);
-    const out = new Float64Array(2 * n);
-    plan.forward(x, out, plan.createScratch());
-    const expected = naiveDft(x);
-    expect(maxDiff(out, expected)).toBeLessThan(maxAbs(expected) * 1e-12);
-  });
+  // Against the DFT definition at lengths of every plan kind: fft.js (1024), mixed radix
+  // (12 = 4·3, 100, 1000 = 4·2·5³, 2000, 1250 = 2·5⁴, 7, 29·4 with a generic radix) and
+  // Bluestein (37·8 and the prime 1009).
+  it.each([1, 2, 7, 12, 100, 116, 296, 1000, 1009, 1024, 1250, 2000])(
+    'matches the DFT definition at any length (N = %i)',
+    (n) => {
+      const x = toComplex(generated(n, 5));
+      for (let i = 0; i < n; i++) x[2 * i + 1] = Math.cos(i);
+      const plan = dftPlan(n);
+      const out = new Float64Array(2 * n);
+      plan.forward(x, out, plan.createScratch());
+      const expected = naiveDft(x);
+      expect(maxDiff(out, expected)).toBeLessThan(maxAbs(expected) * 1e-12);
+    },
+  );
 
-  // Against the DFT definition for lengths p·2^a (one Cooley–Tukey step over fft.js).
-  it.each([12, 20, 28, 192, 320, 448])('matches the DFT definition for mixed-radix N = %i', (n) => {
-    const real = generated(n, 9);
-    const x = toComplex(real);
-    for (let i = 0; i < n; i++) x[2 * i + 1] = Math.sin(0.3 * i);
-    const plan = mixedRadixPlan(n);
-    const scratch = plan.createScratch();
-    const out = new Float64Array(2 * n);
-    plan.forward(x, out, scratch);
-    const expected = naiveDft(x);
-    expect(maxDiff(out, expected)).toBeLessThan(maxAbs(expected) * 1e-12);
-    const half = new Float64Array(2 * n);
-    plan.forwardReal(real, half, scratch);
-    const expectedReal = naiveDft(toComplex(real));
-    expect(maxDiff(half.subarray(0, n + 2), expectedReal.subarray(0, n + 2))).toBeLessThan(
-      maxAbs(expectedReal) * 1e-12,
-    );
+  it('chooses the plan by the prime factors of the length', () => {
+    expect(radixFactors(2000)).toEqual([4, 4, 5, 5, 5]);
+    expect(radixFactors(1000)).toEqual([4, 2, 5, 5, 5]);
+    expect(radixFactors(1250)).toEqual([2, 5, 5, 5, 5]);
+    expect(radixFactors(29 * 4)).toEqual([4, 29]);
+    expect(radixFactors(37 * 8)).toBeNull();
+    expect(dftPlan(2000)).toBeInstanceOf(MixedRadixFftPlan);
+    expect(dftPlan(1009)).toBeInstanceOf(BluesteinDft);
   });
 
   it('picks the shortest p·2^a length that holds the samples', () => {
@@ -127,6 +125,98 @@ describe('FFT plans', () => {
     expect(mixedRadixLength(1803334)).toBe(1835008); // 7·2^18
     expect(mixedRadixLength(4096)).toBe(4096);
     expect(mixedRadixLength(4097)).toBe(5120); // 5·2^10
+  });
+});
+
+interface RfftFixture {
+  source: string;
+  cases: { size: number; input: number[]; re: number[]; im: number[] }[];
+}
+
+function rfftFixture(): RfftFixture {
+  const path = join(__dirname, '../../../test/fixtures/scipy/rfft.json');
+  return JSON.parse(readFileSync(path, 'utf8')) as RfftFixture;
+}
+
+/** Bins 0 … ⌊N/2⌋ of the any-length DFT of a real input (imaginary part zero), interleaved. */
+function realInputDft(x: Float64Array): Float64Array {
+  const n = x.length;
+  const plan = dftPlan(n);
+  const out = new Float64Array(2 * n);
+  plan.forward(toComplex(x), out, plan.createScratch());
+  return out.slice(0, 2 * (Math.floor(n / 2) + 1));
+}
+
+describe('any-length DFT of a real input (what Welch transforms)', () => {
+  // Reference: numpy.fft.rfft on the fixture inputs (backend/scripts/scipy_reference.py).
+  // 1000, 2000 and 1250 (Welch's 4 s at 250, 500 and 312.5 Hz) and 375 go through the
+  // mixed-radix plan, 1024 through fft.js, 1009 (prime) and 1006 (= 2·503) through Bluestein.
+  it.each(rfftFixture().cases.map((c) => [c.size, c] as const))(
+    'matches numpy.fft.rfft at N = %i',
+    (n, fixture) => {
+      const out = realInputDft(Float64Array.from(fixture.input));
+      expect(fixture.re.length).toBe(Math.floor(n / 2) + 1);
+      expect(out.length).toBe(2 * fixture.re.length);
+      let peak = 0;
+      fixture.re.forEach((re, k) => (peak = Math.max(peak, Math.hypot(re, fixture.im[k]))));
+      fixture.re.forEach((re, k) => {
+        expect(Math.abs(out[2 * k] - re)).toBeLessThanOrEqual(peak * 1e-12);
+        expect(Math.abs(out[2 * k + 1] - fixture.im[k])).toBeLessThanOrEqual(peak * 1e-12);
+      });
+    },
+  );
+
+  // Closed form: c + A·cos(2πk0·t/N + φ) has X[0] = c·N, X[k0] = (A·N/2)·e^(iφ), every
+  // other bin up to N/2 zero.
+  it.each([
+    [2000, 41],
+    [1000, 499],
+    [1250, 3],
+    [1024, 200],
+    [1009, 40],
+    [375, 187],
+  ])('puts a cosine at an exact bin into that bin alone (N = %i, k0 = %i)', (n, k0) => {
+    const c = 1.5;
+    const a = 2;
+    const phase = 0.7;
+    const x = Float64Array.from(
+      { length: n },
+      (_, t) => c + a * Math.cos((2 * Math.PI * ((k0 * t) % n)) / n + phase),
+    );
+    const out = realInputDft(x);
+    const expected = new Float64Array(out.length);
+    expected[0] = c * n;
+    expected[2 * k0] = ((a * n) / 2) * Math.cos(phase);
+    expected[2 * k0 + 1] = ((a * n) / 2) * Math.sin(phase);
+    expect(maxDiff(out, expected)).toBeLessThan(a * n * 1e-13);
+  });
+
+  // Parseval's theorem Σ|x[n]|² = (1/N)·Σ|X[k]|² at the mixed-radix and Bluestein lengths.
+  it.each([2000, 1000, 1250, 1009])('keeps the energy (Parseval, N = %i)', (n) => {
+    const x = toComplex(generated(n, 21));
+    for (let i = 0; i < n; i++) x[2 * i + 1] = Math.sin(0.01 * i * i);
+    const plan = dftPlan(n);
+    const spectrum = new Float64Array(2 * n);
+    plan.forward(x, spectrum, plan.createScratch());
+    let timeEnergy = 0;
+    for (const v of x) timeEnergy += v * v;
+    let freqEnergy = 0;
+    for (const v of spectrum) freqEnergy += v * v;
+    expect(Math.abs(freqEnergy / n - timeEnergy) / timeEnergy).toBeLessThan(1e-13);
+  });
+
+  it('refuses buffers of the wrong length instead of returning wrong bins', () => {
+    for (const n of [2000, 1009]) {
+      const plan = dftPlan(n);
+      const scratch = plan.createScratch();
+      expect(() =>
+        plan.forward(new Float64Array(2 * n - 2), new Float64Array(2 * n), scratch),
+      ).toThrow(new RegExp(`input: expected length ${2 * n}, got ${2 * n - 2}`));
+      expect(() => plan.forward(new Float64Array(2 * n), new Float64Array(n), scratch)).toThrow(
+        new RegExp(`output: expected length ${2 * n}, got ${n}`),
+      );
+    }
+    expect(() => dftPlan(0)).toThrow(/positive integer/);
   });
 });
 

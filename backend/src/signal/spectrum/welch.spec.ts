@@ -59,6 +59,33 @@ describe('Welch power spectrum against scipy.signal.welch', () => {
     });
   });
 
+  // Closed form for a cosine A·cos(2πk0·t/N) at an exact bin of the segment length N, Hann
+  // window w[t] = ½ − ½·cos(2πt/N): |X[k0]| = A·N/4, |X[k0 ± 1]| = A·N/8, Σw² = 3N/8, so the
+  // one-sided density is A²N/(3·fs) at k0, A²N/(12·fs) beside it and 0 elsewhere, in every
+  // segment. Seven segments: three pairs and one transformed alone.
+  it.each([
+    [500, 41], // N = 2000 (mixed radix 2^4·5^3)
+    [312.5, 400], // N = 1250 (2·5^4)
+    [252.25, 44], // N = 1009, a prime (Bluestein)
+  ])('matches the closed form for a cosine at an exact bin (fs = %f Hz, k0 = %i)', (fs, k0) => {
+    const n = Math.round(4 * fs);
+    const a = 7;
+    const step = n - Math.floor(n / 2);
+    const x = Float64Array.from(
+      { length: n + 6 * step },
+      (_, t) => 30 + a * Math.cos((2 * Math.PI * ((k0 * t) % n)) / n + 0.4),
+    );
+    const spectrum = welchPowerSpectrum(x, { sampleRateHz: fs });
+    expect(spectrum.segmentCount).toBe(7);
+    const peak = (a * a * n) / (3 * fs);
+    const expected = new Float64Array(spectrum.powerPerHz.length);
+    expected[k0] = peak;
+    expected[k0 - 1] = expected[k0 + 1] = (a * a * n) / (12 * fs);
+    spectrum.powerPerHz.forEach((p, k) => {
+      expect(Math.abs(p - expected[k])).toBeLessThanOrEqual(peak * 1e-12);
+    });
+  });
+
   it('says what is missing when the recording is shorter than one segment', () => {
     expect(() => welchPowerSpectrum(new Float64Array(100), { sampleRateHz: 250 })).toThrow(
       /at least one segment of 1000 samples \(4 s\), got 100/,

@@ -39,7 +39,9 @@ export function welchPowerSpectrum(
   if (!(overlapFraction >= 0 && overlapFraction < 1)) {
     throw new RangeError(`overlapFraction: expected a value in [0, 1), got ${overlapFraction}`);
   }
-  if (segment < 2) throw new RangeError(`segmentS: ${segmentS} s gives fewer than 2 samples`);
+  if (!Number.isFinite(segment) || segment < 2) {
+    throw new RangeError(`segmentS: ${segmentS} s gives fewer than 2 samples`);
+  }
   if (samples.length < segment) {
     throw new RangeError(
       `samples: Welch needs at least one segment of ${segment} samples (${segmentS} s), got ${samples.length}`,
@@ -61,28 +63,22 @@ export function welchPowerSpectrum(
   const output = new Float64Array(2 * segment);
   const segmentCount = Math.floor((samples.length - segment) / step) + 1;
 
-  // Two real segments share one complex transform: x = a + i·b, then
-  // A[k] = (X[k] + conj X[n−k])/2 and B[k] = (X[k] − conj X[n−k])/(2i) (common practice).
+  // Two real segments a, b share one complex transform Z of a + i·b (common practice):
+  // A[k] = (Z[k] + conj Z[n−k])/2 and B[k] = (Z[k] − conj Z[n−k])/(2i), so
+  // |A[k]|² + |B[k]|² = (|Z[k]|² + |Z[n−k]|²)/2, which also holds for a last segment
+  // alone (b = 0, B = 0).
   for (let s = 0; s < segmentCount; s += 2) {
-    const paired = s + 1 < segmentCount;
     fillSegment(samples, s * step, segment, window, input, 0);
-    if (paired) fillSegment(samples, (s + 1) * step, segment, window, input, 1);
+    if (s + 1 < segmentCount) fillSegment(samples, (s + 1) * step, segment, window, input, 1);
     else for (let i = 0; i < segment; i++) input[2 * i + 1] = 0;
     plan.forward(input, output, scratch);
     for (let k = 0; k < bins; k++) {
       const j = k === 0 ? 0 : segment - k;
-      const xr = output[2 * k];
-      const xi = output[2 * k + 1];
-      const yr = output[2 * j];
-      const yi = output[2 * j + 1];
-      const ar = 0.5 * (xr + yr);
-      const ai = 0.5 * (xi - yi);
-      power[k] += ar * ar + ai * ai;
-      if (paired) {
-        const br = 0.5 * (xi + yi);
-        const bi = 0.5 * (yr - xr);
-        power[k] += br * br + bi * bi;
-      }
+      const zr = output[2 * k];
+      const zi = output[2 * k + 1];
+      const cr = output[2 * j];
+      const ci = output[2 * j + 1];
+      power[k] += 0.5 * (zr * zr + zi * zi + cr * cr + ci * ci);
     }
   }
   const scale = 1 / (fs * windowPower * segmentCount);
