@@ -73,8 +73,15 @@ export type {
   AnalysisComputationOptions,
 } from './pipeline/analysis-computation';
 
-// The analysis and its results.
-export { AnalysisInputError, analyzeRecording } from './pipeline/analyze-recording';
+// The analysis and its results: the whole run (`analyzeRecording`), or its three steps for a
+// run whose channels are analysed in parts (plan, channels, merge; the same numbers).
+export { AnalysisInputError } from './pipeline/analysis-input-error';
+export { analyzeRecording } from './pipeline/analyze-recording';
+export { analysedSignalIndices, outlineOf, planAnalysis } from './pipeline/analysis-plan';
+export type { AnalysisPlan, PlannedChannel, RecordingOutline } from './pipeline/analysis-plan';
+export { analyzeChannels, channelPartBuffers } from './pipeline/analyze-channels';
+export type { ChannelPart, KeptEpochs, RecordingPart } from './pipeline/analyze-channels';
+export { mergeChannelParts } from './pipeline/merge-channel-parts';
 export type {
   AnalysisAnnotation,
   AnalysisContext,
@@ -94,11 +101,14 @@ export type {
   RoiUsage,
 } from './pipeline/analysis.types';
 export {
+  analysedChannelSamples,
   analyzeEdfRecording,
+  edfRecordingPart,
   isAnalysedSignal,
+  planEdfAnalysis,
   readRecordingForAnalysis,
 } from './pipeline/analyze-edf-recording';
-export type { AnalysisRunRequest } from './pipeline/analyze-edf-recording';
+export type { AnalysisRunRequest, ChannelRange } from './pipeline/analyze-edf-recording';
 export { toAnalyzeOutcome } from './pipeline/run-summary';
 export type { AnalyzeOutcome, ResultSeries, RunSummary } from './pipeline/run-summary';
 

@@ -16,7 +16,9 @@
  * hash and decode chunk by chunk from disk, then `analyzeEdfRecording`). The `validate-…`
  * pair does the same for the upload check (`readEdf` of the bytes, or `readEdfFile`
  * streamed with no signal decoded, as the worker's validation reads). Both use Gyre's
- * default settings without an IAF. The recording is generated test data.
+ * default settings without an IAF. The recording is generated test data. The server now
+ * runs the streamed path in parts, one per analysis thread (batches of channels per pass):
+ * `jobs/bench/measure-analysis-parts.ts` measures that, on the file `generate` writes.
  */
 import { createHash } from 'node:crypto';
 import { createReadStream, readFileSync, writeFileSync } from 'node:fs';

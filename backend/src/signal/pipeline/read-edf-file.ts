@@ -20,6 +20,12 @@ export interface ReadEdfFileOptions {
   chunkBytes?: number;
   /** Receives every chunk of the file in order, even after a format error (e.g. to hash it). */
   onChunk?: (chunk: Uint8Array) => void;
+  /**
+   * Also count the digital values out of range of the signals left out, so the warnings are
+   * those of reading every signal (default true). A reader that reads one file several
+   * times needs them only once: counting walks every sample of the file.
+   */
+  warnAboutLeftOut?: boolean;
 }
 
 /** A file read to its end; `finish()` gives the recording or throws the reader's error. */
@@ -72,7 +78,9 @@ export async function readEdfFile(
         try {
           reader.push(chunk);
           const info = reader.headerInfo;
-          if (info && counter === null) counter = RangeCounter.forLeftOut(info, selectSignal);
+          if (info && counter === null && options.warnAboutLeftOut !== false) {
+            counter = RangeCounter.forLeftOut(info, selectSignal);
+          }
           counter?.count(chunk, position);
         } catch (error) {
           failure = { error };
