@@ -6,52 +6,20 @@
  * process of its own because jest's module sandbox makes generating the recordings ~30 times
  * slower. The full run (20 kills) and its figures are in docs/reliability.md.
  */
-import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { buildDistIfStale, REPO } from './helpers/built-dist';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import type { CrashTestReport } from '../src/robustness/crash/crash-test';
 import { formatCrashReport } from '../src/robustness/crash/crash-test';
 import type { UploadRaceResult } from '../src/robustness/crash/upload-race-probe';
-
-const REPO = resolve(__dirname, '..', '..');
-
-function newestMtime(path: string): number {
-  if (!existsSync(path)) return 0;
-  const stats = statSync(path);
-  if (!stats.isDirectory()) return stats.mtimeMs;
-  return Math.max(0, ...readdirSync(path).map((entry) => newestMtime(join(path, entry))));
-}
-
-/**
- * dist/ older than a source (the rule of scripts/build-if-stale.mjs). `npm test` builds before
- * jest starts, so in the suite this is normally false and the 10–45 s of tsc are saved; after
- * an edit and a lone `npx jest test/crash-restart` it is true and dist is rebuilt.
- */
-function distIsStale(): boolean {
-  const built = Math.min(
-    newestMtime(join(REPO, 'backend/dist/main.js')) || 0,
-    newestMtime(join(REPO, 'shared/dist/index.js')) || 0,
-  );
-  const sources = Math.max(
-    ...['backend/src', 'backend/tsconfig.json', 'backend/tsconfig.build.json', 'shared/src'].map(
-      (p) => newestMtime(join(REPO, p)),
-    ),
-  );
-  return built === 0 || sources > built;
-}
 
 describe('a server killed 3 times during uploads and computations', () => {
   let report: CrashTestReport;
 
   beforeAll(() => {
-    if (distIsStale()) {
-      execFileSync('npm', ['run', 'build', '-w', 'shared'], { cwd: REPO, stdio: 'ignore' });
-      execFileSync('npx', ['tsc', '-p', 'backend/tsconfig.build.json'], {
-        cwd: REPO,
-        stdio: 'inherit',
-      });
-    }
+    buildDistIfStale('backend/dist/main.js');
     const out = mkdtempSync(join(tmpdir(), 'gyre-crash-report-'));
     const json = join(out, 'report.json');
     // Exit code 1 means a check failed: the report says which, and the tests below judge it.

@@ -7,35 +7,13 @@
  * crash test, because jest's module sandbox makes generating recordings much slower. The
  * throughput figures of `npm run bench:workers` are in docs/scale-out.md.
  */
-import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { buildDistIfStale, REPO } from './helpers/built-dist';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import { REDIS_SERVER } from '../src/remote-workers/redis-server-process';
 import type { ScaleReport } from '../src/remote-workers/scale/scale-scenario';
-
-const REPO = resolve(__dirname, '..', '..');
-
-function newestMtime(path: string): number {
-  if (!existsSync(path)) return 0;
-  const stats = statSync(path);
-  if (!stats.isDirectory()) return stats.mtimeMs;
-  return Math.max(0, ...readdirSync(path).map((entry) => newestMtime(join(path, entry))));
-}
-
-/** dist/ older than a source (the rule of scripts/build-if-stale.mjs): rebuild before running. */
-function distIsStale(): boolean {
-  const built = Math.min(
-    newestMtime(join(REPO, 'backend/dist/remote-workers/scale/scale-cli.js')) || 0,
-    newestMtime(join(REPO, 'shared/dist/index.js')) || 0,
-  );
-  const sources = Math.max(
-    ...['backend/src', 'backend/tsconfig.json', 'backend/tsconfig.build.json', 'shared/src'].map(
-      (p) => newestMtime(join(REPO, p)),
-    ),
-  );
-  return built === 0 || sources > built;
-}
 
 describe('twenty recordings computed by two worker processes, one of them killed mid-job', () => {
   let report: ScaleReport;
@@ -45,13 +23,7 @@ describe('twenty recordings computed by two worker processes, one of them killed
     if (!existsSync(REDIS_SERVER)) {
       throw new Error(`${REDIS_SERVER} is missing: apt-get install redis-server (as .ci/run does)`);
     }
-    if (distIsStale()) {
-      execFileSync('npm', ['run', 'build', '-w', 'shared'], { cwd: REPO, stdio: 'ignore' });
-      execFileSync('npx', ['tsc', '-p', 'backend/tsconfig.build.json'], {
-        cwd: REPO,
-        stdio: 'inherit',
-      });
-    }
+    buildDistIfStale('backend/dist/remote-workers/scale/scale-cli.js');
     const out = mkdtempSync(join(tmpdir(), 'gyre-scale-report-'));
     const json = join(out, 'report.json');
     const run = spawnSync(
