@@ -222,7 +222,8 @@ describe('the fuzz runner itself', () => {
     const summary = await runFuzz({
       seed: 1,
       indices: [0, 1, 2, 3, 4],
-      hangMs: 1500,
+      // Long enough for a 256 MB heap to overflow on a loaded CI machine (it did not at 1.5 s).
+      hangMs: 5000,
       injectFaults: { hang: [1], heap: [2], exception: [3] },
       onCase: (c) => seen.push(c.index),
     });
