@@ -11,6 +11,7 @@ import { AuthModule } from './auth/auth.module';
 import { UsersModule } from './users/users.module';
 import { StudiesModule } from './studies/studies.module';
 import { SitesModule } from './sites/sites.module';
+import { ScheduleModule } from './schedule/schedule.module';
 import { ParticipantsModule } from './participants/participants.module';
 import { VisitsModule } from './visits/visits.module';
 import { AnalysisModule } from './analysis/analysis.module';
@@ -24,6 +25,9 @@ import { TrajectoryModule } from './trajectory/trajectory.module';
 import { SignoffModule } from './signoff/signoff.module';
 import { WorkerTokensModule } from './worker-tokens/worker-tokens.module';
 import { RemoteWorkersModule } from './remote-workers/remote-workers.module';
+import { VisitReviewsModule } from './visit-reviews/visit-reviews.module';
+import { WorklistModule } from './worklist/worklist.module';
+import { StudyExportsModule } from './study-exports/study-exports.module';
 
 @Module({})
 export class AppModule implements NestModule {
@@ -43,6 +47,7 @@ export class AppModule implements NestModule {
         UsersModule,
         StudiesModule,
         SitesModule,
+        ScheduleModule,
         ParticipantsModule,
         VisitsModule,
         AnalysisModule,
@@ -56,6 +61,9 @@ export class AppModule implements NestModule {
         SignoffModule,
         WorkerTokensModule,
         RemoteWorkersModule,
+        VisitReviewsModule,
+        WorklistModule,
+        StudyExportsModule,
       ],
     };
   }

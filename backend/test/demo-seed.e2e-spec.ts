@@ -10,7 +10,7 @@
  */
 import { statSync, readFileSync } from 'node:fs';
 import request from 'supertest';
-import type { ReportDto, RecordingDto, TrajectoryDto, VisitFlagDto } from '@gyre/shared';
+import type { ReportDto, RecordingDto, TrajectoryDto, VisitFlagDto, VisitView } from '@gyre/shared';
 import { buildDemoScenario } from '../../seed/src/scenario/demo-scenario';
 import { DemoSeedResult, seedDemo } from '../../seed/src/seeder/demo-seeder';
 import { Accounts } from '../src/accounts/accounts.service';
@@ -111,6 +111,22 @@ describe('demo seed (small version, generated data)', () => {
         });
       }
     }
+  });
+
+  it('registers every visit on its planned visit, with the late Month 4 visit marked', async () => {
+    const technician = await tokenOf('technician', 'cedar');
+    const c101 = seeded.participants.find((p) => p.code === 'LAF-C101');
+    const response = await request(t.url)
+      .get(`/api/visits?participantId=${c101?.participantId ?? ''}`)
+      .set('Authorization', `Bearer ${technician}`);
+    expect(response.status).toBe(200);
+    const visits = (response.body as { items: VisitView[] }).items;
+    // LAF-C101: enrolled 2024-01-15; Month 4 is day 121 ± 21 and was done on day 151.
+    expect(visits.map((v) => [v.label, v.schedule.studyDay, v.schedule.window])).toEqual([
+      ['Baseline', 0, 'in'],
+      ['Month 4', 151, 'late'],
+      ['Month 12', expect.any(Number), 'in'],
+    ]);
   });
 
   it('shows the rejected upload with its reason to the technician of its site', async () => {

@@ -126,6 +126,28 @@ const READ_CASES: [string, Case][] = [
     },
   ],
   [
+    'GET /api/studies/:id/planned-visits (study A)',
+    {
+      method: 'get',
+      path: (s) => `/api/studies/${s.studies.A.id}/planned-visits`,
+      expect: everyone(200, { technicianB: 404, analystB: 404, monitorB: 404, coordinatorB: 404 }),
+    },
+  ],
+  [
+    'GET /api/studies/:id/due (study A)',
+    {
+      method: 'get',
+      path: (s) => `/api/studies/${s.studies.A.id}/due`,
+      expect: everyone(200, {
+        admin: 403,
+        technicianB: 404,
+        analystB: 404,
+        monitorB: 404,
+        coordinatorB: 404,
+      }),
+    },
+  ],
+  [
     'GET /api/mail/outbox',
     { method: 'get', path: () => '/api/mail/outbox', expect: everyone(403, { admin: 200 }) },
   ],
@@ -152,6 +174,15 @@ const WRITE_CASES: [string, Case][] = [
       path: (s) => `/api/studies/${s.studies.A.id}`,
       body: () => ({ description: `updated ${fresh()}` }),
       expect: everyone(403, { admin: 200 }),
+    },
+  ],
+  [
+    'POST /api/studies/:id/groups (study A)',
+    {
+      method: 'post',
+      path: (s) => `/api/studies/${s.studies.A.id}/groups`,
+      body: () => ({ name: `Arm ${fresh()}` }),
+      expect: everyone(403, { admin: 201 }),
     },
   ],
   [

@@ -189,6 +189,9 @@ describe('every screen of this part in Chromium, on a real server', () => {
     await dialog.getByRole('button', { name: 'Register participant' }).click();
     await dialog.getByText(/A code is 3–24 capital letters/).waitFor();
     await dialog.getByLabel('Participant code').fill('ac-0042');
+    await dialog.getByLabel('Enrolment date').click();
+    await dialog.getByLabel('Enrolment date').fill('3 Feb 2025');
+    await dialog.getByLabel('Enrolment date').press('Enter');
     await dialog.getByRole('button', { name: 'Register participant' }).click();
     await dialog.waitFor({ state: 'hidden' });
     await page.getByRole('button', { name: 'Register a new visit' }).click();

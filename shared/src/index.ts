@@ -8,3 +8,5 @@ export * from './mail';
 export * from './recordings';
 export * from './signoff';
 export * from './worker-tokens';
+export * from './worklist';
+export * from './visit-schedule';

@@ -47,6 +47,16 @@ export const SUBJECTS = [
   'JobInput',
   /** What a worker process posts back when a job is done. */
   'JobResult',
+  /** A study's planned visits (its visit schedule). */
+  'PlannedVisit',
+  /** A study's groups or arms. */
+  'StudyGroup',
+  /** The "visit reviewed" act of an analyst (visit-reviews). */
+  'VisitReview',
+  /** The home screen's list of what waits for the caller (worklist). */
+  'Worklist',
+  /** A study's overview: group courses, completion matrix, site quality (study-overview). */
+  'StudyOverview',
 ] as const;
 export type SubjectName = (typeof SUBJECTS)[number];
 
@@ -113,20 +123,28 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
       can('read', 'Study', { id: study });
       can('read', 'Site', { id: site.siteId, studyId: study });
       can('read', 'User', self);
+      can('read', ['PlannedVisit', 'StudyGroup'], { studyId: study });
       can(['read', 'create', 'update'], ['Participant', 'Visit'], site);
       can(['read', 'create', 'upload', 'update', 'retry'], 'Recording', site);
+      can('read', 'Worklist', site);
       break;
     }
     case 'analyst': {
       const study = { studyId: required(user.studyId, 'studyId', user) };
       can('read', 'Study', { id: study.studyId });
       can('read', ['Site', 'Participant', 'Visit', 'Recording', 'Result'], study);
+      can('read', ['PlannedVisit', 'StudyGroup'], study);
       can('read', 'User', self);
       can('retry', 'Recording', study);
       can(['read', 'create', 'update'], 'AnalysisSettings', study);
       can(['read', 'create', 'rerun'], 'AnalysisRun', study);
       can(['read', 'create', 'update'], 'Flag', study);
       can(['read', 'create', 'update', 'sign', 'export'], 'Report', study);
+      can(['read', 'create'], 'VisitReview', study);
+      can('read', 'Worklist', study);
+      can('read', 'StudyOverview', study);
+      // Study results export for statisticians (study-exports/).
+      can('export', 'Result', study);
       // Recordings are evidence: an analyst reviews them but never removes one.
       cannot('delete', 'Recording');
       break;
@@ -152,6 +170,10 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
         study,
       );
       can('export', ['AuditEntry', 'Report'], study);
+      can('read', ['PlannedVisit', 'StudyGroup'], study);
+      can('read', ['VisitReview', 'Worklist'], study);
+      can('read', 'StudyOverview', study);
+      can('export', 'Result', study);
       break;
     }
     case 'coordinator': {
@@ -161,6 +183,7 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
       can('read', 'Site', { id: site.siteId, studyId: study });
       can('read', 'User', self);
       can('read', ['Participant', 'Visit'], site);
+      can('read', ['PlannedVisit', 'StudyGroup'], { studyId: study });
       can(['read', 'export'], 'Report', {
         ...site,
         state: { $in: [...REPORT_STATES_FOR_COORDINATOR] },
@@ -169,9 +192,15 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
     }
     case 'admin': {
       can('manage', ['Study', 'Site', 'User']);
+      // The study's schedule and groups are study set-up, like its sites.
+      can('manage', ['PlannedVisit', 'StudyGroup']);
       can(['read', 'export'], 'AuditEntry');
       can('read', 'Outbox');
+      // Study results exports (study-exports/): an admin may hand them to a statistician.
+      can('export', 'Result');
       can('manage', 'WorkerToken');
+      // The study overview's aggregate numbers, completion and site quality (study-overview/).
+      can('read', 'StudyOverview');
       // Separation of duties: whoever manages accounts never signs findings.
       cannot('sign', 'Report');
       cannot(['create', 'update'], 'Flag');

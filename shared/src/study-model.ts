@@ -1,3 +1,5 @@
+import type { VisitScheduleStatus } from './visit-schedule';
+
 /**
  * A participant code: upper-case letters and digits in hyphen-separated groups, with at least
  * one digit, 3–24 characters (e.g. `AC-0042`). A personal name can never match it.
@@ -6,11 +8,19 @@ export const PARTICIPANT_CODE_PATTERN = /^(?=.{3,24}$)(?=[^\d]*\d)[A-Z0-9]+(?:-[
 /** Study and site codes: upper-case letters, digits and hyphens, 2–32 characters. */
 export const STUDY_CODE_PATTERN = /^[A-Z0-9](?:[A-Z0-9-]{0,30}[A-Z0-9])?$/;
 
+/** Defaults of the study's trend settings (see {@link StudyView}). */
+export const DEFAULT_TREND_MIN_VISITS = 3;
+export const DEFAULT_TREND_MIN_SPAN_DAYS = 90;
+
 export interface StudyView {
   id: string;
   code: string;
   name: string;
   description: string;
+  /** A participant's trend slope is shown from this many visits with a value (≥ 2). */
+  trendMinVisits: number;
+  /** … and when those visits span at least this many days. */
+  trendMinSpanDays: number;
   createdAt: string;
   updatedAt: string;
 }
@@ -29,6 +39,10 @@ export interface ParticipantView {
   studyId: string;
   siteId: string;
   code: string;
+  /** `YYYY-MM-DD`; day 0 of the visit schedule. Null for participants registered before it existed. */
+  enrolmentDate: string | null;
+  /** The participant's group (arm) in the study, if any. */
+  groupId: string | null;
   createdAt: string;
   updatedAt: string;
 }
@@ -38,9 +52,13 @@ export interface VisitView {
   participantId: string;
   studyId: string;
   siteId: string;
+  /** The planned visit's name when one was picked; otherwise as registered. */
   label: string;
   /** `YYYY-MM-DD`. */
   visitDate: string;
+  plannedVisitId: string | null;
+  /** Where the visit falls in the study's schedule (computed by `visitScheduleStatus`). */
+  schedule: VisitScheduleStatus;
   createdAt: string;
   updatedAt: string;
 }

@@ -18,6 +18,9 @@ import { ReportRevision } from '../signoff/report-revision.entity';
 import { ReportNotification } from '../signoff/report-notification.entity';
 import { SignInThrottle } from '../auth/sign-in-throttle.entity';
 import { WorkerToken } from '../worker-tokens/worker-token.entity';
+import { PlannedVisit } from '../schedule/planned-visit.entity';
+import { StudyGroup } from '../schedule/study-group.entity';
+import { VisitReview } from '../visit-reviews/visit-review.entity';
 
 /** Every TypeORM entity, listed once; feature modules add theirs here (append only). */
 // A constructor type rather than `Function`, which the lint rules refuse.
@@ -42,4 +45,7 @@ export const ENTITIES: (new () => object)[] = [
   VisitAnalysisOverride,
   SignInThrottle,
   WorkerToken,
+  PlannedVisit,
+  StudyGroup,
+  VisitReview,
 ];

@@ -7,6 +7,8 @@ export function toParticipantView(participant: Participant): ParticipantView {
     studyId: participant.studyId,
     siteId: participant.siteId,
     code: participant.code,
+    enrolmentDate: participant.enrolmentDate,
+    groupId: participant.groupId,
     createdAt: participant.createdAt,
     updatedAt: participant.updatedAt,
   };

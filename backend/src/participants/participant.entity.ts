@@ -15,6 +15,14 @@ export class Participant {
   @Column('varchar')
   code: string;
 
+  /** `YYYY-MM-DD`, day 0 of the visit schedule; null for rows from before the schedule. */
+  @Column('varchar', { nullable: true })
+  enrolmentDate: string | null;
+
+  /** The participant's group (arm) in the same study. */
+  @Column('varchar', { nullable: true })
+  groupId: string | null;
+
   @Column('varchar')
   createdAt: string;
 

@@ -1,12 +1,13 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { ScheduleModule } from '../schedule/schedule.module';
 import { SitesModule } from '../sites/sites.module';
 import { Participant } from './participant.entity';
 import { ParticipantsController } from './participants.controller';
 import { ParticipantsService } from './participants.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Participant]), SitesModule],
+  imports: [TypeOrmModule.forFeature([Participant]), SitesModule, ScheduleModule],
   controllers: [ParticipantsController],
   providers: [ParticipantsService],
   exports: [ParticipantsService],

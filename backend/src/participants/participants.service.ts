@@ -3,6 +3,7 @@ import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import { EntityManager, FindOptionsWhere, In, Repository } from 'typeorm';
 import {
+  isCalendarDate,
   subject,
   type Action,
   type Page,
@@ -19,6 +20,7 @@ import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { containsText } from '../common/pagination/text-filter';
 import { nowIso } from '../common/time';
+import { StudyGroupsService } from '../schedule/study-groups.service';
 import { SitesService } from '../sites/sites.service';
 import {
   CreateParticipantDto,
@@ -34,6 +36,7 @@ export class ParticipantsService {
   constructor(
     @InjectRepository(Participant) private readonly participants: Repository<Participant>,
     private readonly sites: SitesService,
+    private readonly groups: StudyGroupsService,
     private readonly writes: WriteTransactions,
     private readonly audit: AuditService,
   ) {}
@@ -43,6 +46,7 @@ export class ParticipantsService {
     const filter: FindOptionsWhere<Participant> = {};
     if (query.siteId !== undefined) filter.siteId = query.siteId;
     if (query.q !== undefined) filter.code = containsText(query.q.toUpperCase());
+    if (query.groupId !== undefined) filter.groupId = query.groupId;
     const rows = await this.participants.findAndCount({
       where: scopedWhere<Participant>(caller.ability, 'read', 'Participant', filter),
       order: { [query.sort ?? 'code']: window.order, id: 'ASC' },
@@ -77,6 +81,8 @@ export class ParticipantsService {
       studyId: site.studyId,
       siteId: site.id,
       code: dto.code,
+      enrolmentDate: enrolmentDateOf(dto.enrolmentDate ?? null),
+      groupId: await this.groupOfStudy(site.studyId, dto.groupId ?? null),
       createdAt: at,
       updatedAt: at,
     };
@@ -85,12 +91,20 @@ export class ParticipantsService {
 
   async update(caller: Caller, id: string, dto: UpdateParticipantDto): Promise<ParticipantView> {
     const current = await this.findInScope(caller, 'update', id);
-    return this.save(
-      caller,
-      current,
-      { ...current, code: dto.code, updatedAt: nowIso() },
-      dto.reason,
-    );
+    const next: Participant = {
+      ...current,
+      code: dto.code ?? current.code,
+      enrolmentDate:
+        dto.enrolmentDate === undefined
+          ? current.enrolmentDate
+          : enrolmentDateOf(dto.enrolmentDate),
+      groupId:
+        dto.groupId === undefined
+          ? current.groupId
+          : await this.groupOfStudy(current.studyId, dto.groupId),
+      updatedAt: nowIso(),
+    };
+    return this.save(caller, current, next, dto.reason);
   }
 
   private async save(
@@ -136,6 +150,21 @@ export class ParticipantsService {
     }
   }
 
+  /** `groupId` if it names a group of study `studyId` (400 naming it otherwise). */
+  private async groupOfStudy(studyId: string, groupId: string | null): Promise<string | null> {
+    if (groupId === null) return null;
+    const group = await this.groups.findById(groupId);
+    if (group === null || group.studyId !== studyId) {
+      throw new GyreException(
+        ErrorKind.BadInput,
+        ParticipantsError.GroupNotInStudy,
+        `groupId: ${groupId} is not a group of the participant's study`,
+        { field: 'groupId', value: groupId },
+      );
+    }
+    return group.id;
+  }
+
   async findInScope(caller: Caller, action: 'read' | 'update', id: string): Promise<Participant> {
     const participant = await this.participants.findOne({
       where: scopedWhere<Participant>(caller.ability, action, 'Participant', { id }),
@@ -159,6 +188,22 @@ export class ParticipantsService {
     });
   }
 
+  /**
+   * For other modules: every participant matching `where` that the caller may `action` a
+   * `subjectName` of (that subject's scope applied to the participant rows), by code.
+   */
+  listInScopeOf(
+    caller: Caller,
+    action: Action,
+    subjectName: SubjectName,
+    where: FindOptionsWhere<Participant>,
+  ): Promise<Participant[]> {
+    return this.participants.find({
+      where: scopedWhere<Participant>(caller.ability, action, subjectName, where),
+      order: { code: 'ASC' },
+    });
+  }
+
   /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
   byId(id: string, manager?: EntityManager): Promise<Participant> {
     return this.repo(manager).findOneByOrFail({ id });
@@ -173,6 +218,20 @@ export class ParticipantsService {
   private repo(manager: EntityManager | undefined): Repository<Participant> {
     return manager?.getRepository(Participant) ?? this.participants;
   }
+}
+
+/** A real calendar day (the pattern alone lets 2026-02-30 through), or null. */
+function enrolmentDateOf(value: string | null): string | null {
+  if (value === null) return null;
+  if (!isCalendarDate(value)) {
+    throw new GyreException(
+      ErrorKind.BadInput,
+      ParticipantsError.BadDate,
+      `enrolmentDate: ${JSON.stringify(value)} is not a calendar date (YYYY-MM-DD)`,
+      { field: 'enrolmentDate', value },
+    );
+  }
+  return value;
 }
 
 function notFound(id: string, field: string): GyreException {

@@ -2,7 +2,12 @@ import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import { EntityManager, FindOptionsWhere, Repository } from 'typeorm';
-import type { Page, StudyView } from '@gyre/shared';
+import {
+  DEFAULT_TREND_MIN_SPAN_DAYS,
+  DEFAULT_TREND_MIN_VISITS,
+  type Page,
+  type StudyView,
+} from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
@@ -55,6 +60,8 @@ export class StudiesService {
       code: dto.code,
       name: dto.name.trim(),
       description: dto.description?.trim() ?? '',
+      trendMinVisits: dto.trendMinVisits ?? DEFAULT_TREND_MIN_VISITS,
+      trendMinSpanDays: dto.trendMinSpanDays ?? DEFAULT_TREND_MIN_SPAN_DAYS,
       createdAt: at,
       updatedAt: at,
     };
@@ -68,6 +75,8 @@ export class StudiesService {
       code: dto.code ?? current.code,
       name: dto.name?.trim() ?? current.name,
       description: dto.description?.trim() ?? current.description,
+      trendMinVisits: dto.trendMinVisits ?? current.trendMinVisits,
+      trendMinSpanDays: dto.trendMinSpanDays ?? current.trendMinSpanDays,
       updatedAt: nowIso(),
     };
     return this.save(caller, current, next);

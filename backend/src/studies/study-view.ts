@@ -7,6 +7,8 @@ export function toStudyView(study: Study): StudyView {
     code: study.code,
     name: study.name,
     description: study.description,
+    trendMinVisits: study.trendMinVisits,
+    trendMinSpanDays: study.trendMinSpanDays,
     createdAt: study.createdAt,
     updatedAt: study.updatedAt,
   };

@@ -14,6 +14,14 @@ export class Study {
   @Column('text')
   description: string;
 
+  /** A trend slope is shown from this many visits with a value… */
+  @Column('integer')
+  trendMinVisits: number;
+
+  /** …spanning at least this many days. */
+  @Column('integer')
+  trendMinSpanDays: number;
+
   @Column('varchar')
   createdAt: string;
 

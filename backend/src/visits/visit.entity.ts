@@ -15,8 +15,13 @@ export class Visit {
   @Column('varchar')
   siteId: string;
 
+  /** The planned visit's name when one was picked (so every screen keeps showing it). */
   @Column('varchar')
   label: string;
+
+  /** The study's planned visit this visit was registered on; null for an unscheduled visit. */
+  @Column('varchar', { nullable: true })
+  plannedVisitId: string | null;
 
   /** Calendar date, `YYYY-MM-DD`. */
   @Column('varchar')

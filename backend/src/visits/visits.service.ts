@@ -21,10 +21,13 @@ import { assertUnique, isUniqueViolation } from '../common/errors/unique-violati
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
+import { Participant } from '../participants/participant.entity';
 import { ParticipantsService } from '../participants/participants.service';
+import { PlannedVisit } from '../schedule/planned-visit.entity';
+import { PlannedVisitsService } from '../schedule/planned-visits.service';
 import { CreateVisitDto, UpdateVisitDto, VisitQueryDto } from './dto/visit.dto';
 import { Visit } from './visit.entity';
-import { toVisitView } from './visit-view';
+import { toVisitView, type VisitScheduleContext } from './visit-view';
 import { VisitsError } from './visits.errors';
 
 @Injectable()
@@ -32,6 +35,7 @@ export class VisitsService {
   constructor(
     @InjectRepository(Visit) private readonly visits: Repository<Visit>,
     private readonly participants: ParticipantsService,
+    private readonly plannedVisits: PlannedVisitsService,
     private readonly writes: WriteTransactions,
     private readonly audit: AuditService,
   ) {}
@@ -41,6 +45,7 @@ export class VisitsService {
     const filter: FindOptionsWhere<Visit> = {};
     if (query.participantId !== undefined) filter.participantId = query.participantId;
     if (query.siteId !== undefined) filter.siteId = query.siteId;
+    if (query.plannedVisitId !== undefined) filter.plannedVisitId = query.plannedVisitId;
     if (query.from !== undefined && query.to !== undefined) {
       filter.visitDate = Between(query.from, query.to);
     } else if (query.from !== undefined) filter.visitDate = MoreThanOrEqual(query.from);
@@ -51,11 +56,41 @@ export class VisitsService {
       skip: window.skip,
       take: window.take,
     });
-    return toPage(rows, window, toVisitView);
+    const views = await this.viewsOf(rows[0]);
+    return toPage([views, rows[1]], window, (view) => view);
   }
 
   async get(caller: Caller, id: string): Promise<VisitView> {
-    return toVisitView(await this.findInScope(caller, 'read', id));
+    return this.viewOf(await this.findInScope(caller, 'read', id));
+  }
+
+  /** For other modules: the visits' views with their schedule status, in the same order. */
+  async viewsOf(visits: Visit[], manager?: EntityManager): Promise<VisitView[]> {
+    const participants = new Map(
+      (
+        await this.participants.byIds([...new Set(visits.map((v) => v.participantId))], manager)
+      ).map((p) => [p.id, p]),
+    );
+    const planned = new Map(
+      (
+        await this.plannedVisits.byIds(
+          visits.flatMap((v) => (v.plannedVisitId === null ? [] : [v.plannedVisitId])),
+          manager,
+        )
+      ).map((p) => [p.id, p]),
+    );
+    return visits.map((visit) =>
+      toVisitView(visit, {
+        enrolmentDate: participants.get(visit.participantId)?.enrolmentDate ?? null,
+        planned: visit.plannedVisitId === null ? null : (planned.get(visit.plannedVisitId) ?? null),
+      }),
+    );
+  }
+
+  /** For other modules: one visit's view with its schedule status. */
+  async viewOf(visit: Visit, manager?: EntityManager): Promise<VisitView> {
+    const [view] = await this.viewsOf([visit], manager);
+    return view;
   }
 
   async create(caller: Caller, dto: CreateVisitDto): Promise<VisitView> {
@@ -64,28 +99,81 @@ export class VisitsService {
     if (!caller.ability.can('create', subject('Visit', scope))) {
       throw notFound(dto.participantId, 'participantId');
     }
+    if (dto.plannedVisitId !== undefined && dto.unscheduled === true) {
+      throw new GyreException(
+        ErrorKind.BadInput,
+        VisitsError.PlannedVisitRequired,
+        'plannedVisitId: give a planned visit or unscheduled: true, not both',
+        { field: 'plannedVisitId' },
+      );
+    }
+    const planned =
+      dto.plannedVisitId === undefined
+        ? null
+        : await this.plannedVisitOfStudy(participant.studyId, dto.plannedVisitId);
+    if (planned === null && dto.unscheduled !== true) {
+      const schedule = await this.plannedVisits.ofStudy(participant.studyId);
+      if (schedule.length > 0) {
+        throw new GyreException(
+          ErrorKind.BadInput,
+          VisitsError.PlannedVisitRequired,
+          `plannedVisitId: the study has a visit schedule (${schedule.map((p) => p.name).join(', ')}); pick its planned visit, or send unscheduled: true for a visit outside it`,
+          { field: 'plannedVisitId', plannedVisits: schedule.map((p) => p.name) },
+        );
+      }
+    }
     const at = nowIso();
     const visit: Visit = {
       id: randomUUID(),
       participantId: participant.id,
       ...scope,
-      label: dto.label,
+      label: labelFor(planned, dto.label),
+      plannedVisitId: planned?.id ?? null,
       visitDate: calendarDate(dto.visitDate),
       createdAt: at,
       updatedAt: at,
     };
-    return this.save(caller, null, visit, undefined);
+    return this.save(caller, null, visit, undefined, {
+      enrolmentDate: participant.enrolmentDate,
+      planned,
+    });
   }
 
   async update(caller: Caller, id: string, dto: UpdateVisitDto): Promise<VisitView> {
     const current = await this.findInScope(caller, 'update', id);
+    const participant = await this.participants.byId(current.participantId);
+    const plannedVisitId =
+      dto.plannedVisitId === undefined ? current.plannedVisitId : dto.plannedVisitId;
+    const planned =
+      plannedVisitId === null
+        ? null
+        : await this.plannedVisitOfStudy(current.studyId, plannedVisitId);
     const next: Visit = {
       ...current,
-      label: dto.label ?? current.label,
+      // A visit taken out of the schedule keeps its name unless a new label is given.
+      label: planned === null ? (dto.label ?? current.label) : labelFor(planned, dto.label),
+      plannedVisitId: planned?.id ?? null,
       visitDate: dto.visitDate === undefined ? current.visitDate : calendarDate(dto.visitDate),
       updatedAt: nowIso(),
     };
-    return this.save(caller, current, next, dto.reason);
+    return this.save(caller, current, next, dto.reason, {
+      enrolmentDate: participant.enrolmentDate,
+      planned,
+    });
+  }
+
+  /** The planned visit if it belongs to study `studyId` (400 naming it otherwise). */
+  private async plannedVisitOfStudy(studyId: string, id: string): Promise<PlannedVisit> {
+    const planned = await this.plannedVisits.findById(id);
+    if (planned === null || planned.studyId !== studyId) {
+      throw new GyreException(
+        ErrorKind.BadInput,
+        VisitsError.PlannedVisitNotInStudy,
+        `plannedVisitId: ${id} is not a planned visit of the participant's study`,
+        { field: 'plannedVisitId', value: id },
+      );
+    }
+    return planned;
   }
 
   private async save(
@@ -93,9 +181,13 @@ export class VisitsService {
     before: Visit | null,
     visit: Visit,
     reason: string | undefined,
+    context: VisitScheduleContext,
   ): Promise<VisitView> {
     try {
       return await this.writes.run(async (manager) => {
+        if (visit.plannedVisitId !== null) {
+          await assertPlannedVisitFree(manager, visit, context.planned?.name ?? '');
+        }
         await assertUnique(
           manager,
           Visit,
@@ -103,7 +195,7 @@ export class VisitsService {
           visit.id,
         );
         await manager.save(Visit, visit);
-        const view = toVisitView(visit);
+        const view = toVisitView(visit, context);
         await this.audit.record({
           actor: caller.user,
           action: before === null ? 'create' : 'update',
@@ -111,7 +203,7 @@ export class VisitsService {
           objectId: visit.id,
           studyId: visit.studyId,
           siteId: visit.siteId,
-          before: before === null ? undefined : toVisitView(before),
+          before: before === null ? undefined : await this.viewOf(before, manager),
           after: view,
           reason: reason ?? null,
           clientIp: caller.clientIp,
@@ -177,6 +269,57 @@ export class VisitsService {
   private repo(manager: EntityManager | undefined): Repository<Visit> {
     return manager?.getRepository(Visit) ?? this.visits;
   }
+}
+
+/**
+ * A visit on a planned visit is called by its name, so every screen that shows labels keeps
+ * working; a different label sent with it is refused rather than silently replaced.
+ */
+function labelFor(planned: PlannedVisit | null, label: string | undefined): string {
+  if (planned === null) {
+    if (label === undefined) {
+      throw new GyreException(
+        ErrorKind.BadInput,
+        VisitsError.LabelRequired,
+        'label: an unscheduled visit needs a label (unique for the participant)',
+        { field: 'label' },
+      );
+    }
+    return label;
+  }
+  if (label !== undefined && label.toLowerCase() !== planned.name.toLowerCase()) {
+    throw new GyreException(
+      ErrorKind.BadInput,
+      VisitsError.LabelIsPlannedName,
+      `label: a visit on planned visit ${planned.name} is labelled ${planned.name}, not ${JSON.stringify(label)}`,
+      { field: 'label', value: label, expected: planned.name },
+    );
+  }
+  return planned.name;
+}
+
+/** One visit per participant and planned visit: 409 naming the visit that has it. */
+async function assertPlannedVisitFree(
+  manager: EntityManager,
+  visit: Visit,
+  plannedName: string,
+): Promise<void> {
+  const other = await manager.findOne(Visit, {
+    where: { participantId: visit.participantId, plannedVisitId: visit.plannedVisitId ?? '' },
+  });
+  if (other === null || other.id === visit.id) return;
+  const participant = await manager.findOneBy(Participant, { id: visit.participantId });
+  throw new GyreException(
+    ErrorKind.Conflict,
+    VisitsError.PlannedVisitTaken,
+    `plannedVisitId: ${participant?.code ?? 'the participant'} already has a visit on planned visit ${plannedName} (${other.label}, ${other.visitDate})`,
+    {
+      field: 'plannedVisitId',
+      value: visit.plannedVisitId,
+      visitId: other.id,
+      visitDate: other.visitDate,
+    },
+  );
 }
 
 /** `YYYY-MM-DD` that names a real day (the pattern alone lets 2026-02-30 through). */

@@ -53,15 +53,25 @@ export interface Seed {
 export async function seedDatabase(dataSource: DataSource): Promise<Seed> {
   const at = new Date().toISOString();
   const stamp = { createdAt: at, updatedAt: at };
+  // The trend settings' defaults (columns added by VisitScheduleAndGroups1764700300000).
+  const trend = { trendMinVisits: 3, trendMinSpanDays: 90 };
   const studies = {
     A: {
       id: randomUUID(),
       code: 'ALPHA',
       name: 'Study A (ageing cohort)',
       description: '',
+      ...trend,
       ...stamp,
     },
-    B: { id: randomUUID(), code: 'BETA', name: 'Study B (drug trial)', description: '', ...stamp },
+    B: {
+      id: randomUUID(),
+      code: 'BETA',
+      name: 'Study B (drug trial)',
+      description: '',
+      ...trend,
+      ...stamp,
+    },
   };
   const sites: Record<SiteKey, Site> = {
     A1: { id: randomUUID(), studyId: studies.A.id, code: 'NORTH', name: 'Site A1', ...stamp },
@@ -108,6 +118,8 @@ export async function seedDatabase(dataSource: DataSource): Promise<Seed> {
       studyId: site.studyId,
       siteId: site.id,
       code: `${key}-0001`,
+      enrolmentDate: null,
+      groupId: null,
       ...stamp,
     };
     visits[key] = {
@@ -116,16 +128,26 @@ export async function seedDatabase(dataSource: DataSource): Promise<Seed> {
       studyId: site.studyId,
       siteId: site.id,
       label: 'V1',
+      plannedVisitId: null,
       visitDate: '2026-01-15',
       ...stamp,
     };
   }
   await dataSource.transaction(async (manager) => {
-    await manager.insert(Study, Object.values(studies));
+    // Only the columns every schema version has, so that migration tests can seed a
+    // database written by an older version; later columns keep their defaults.
+    const insert = <T extends object>(entity: new () => T, columns: string[], values: T[]) =>
+      manager.createQueryBuilder().insert().into(entity, columns).values(values).execute();
+    const base = ['id', 'createdAt', 'updatedAt'];
+    await insert(Study, [...base, 'code', 'name', 'description'], Object.values(studies));
     await manager.insert(Site, Object.values(sites));
     await manager.insert(User, rows);
-    await manager.insert(Participant, Object.values(participants));
-    await manager.insert(Visit, Object.values(visits));
+    await insert(Participant, [...base, 'studyId', 'siteId', 'code'], Object.values(participants));
+    await insert(
+      Visit,
+      [...base, 'participantId', 'studyId', 'siteId', 'label', 'visitDate'],
+      Object.values(visits),
+    );
   });
   return { studies, sites, users, participants, visits };
 }

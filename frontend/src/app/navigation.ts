@@ -30,6 +30,12 @@ export const NAV_ENTRIES: readonly NavEntry[] = [
   { path: paths.ledger, label: 'Ledger', roles: ['monitor', 'admin'], can: ['read', 'AuditEntry'] },
   { path: paths.reports, label: 'Reports', roles: ['coordinator'], can: ['read', 'Report'] },
   { path: paths.team, label: 'Team', roles: ['admin'], can: ['update', 'User'] },
+  {
+    path: paths.studySetup,
+    label: 'Study set-up',
+    roles: ['admin'],
+    can: ['update', 'PlannedVisit'],
+  },
   { path: paths.outbox, label: 'Outbox', roles: ['admin'], can: ['read', 'Outbox'] },
 ];
 

@@ -15,6 +15,8 @@ export const paths = {
   reportRevisions: '/reports/revisions',
   /** The study's analysis settings, version by version. */
   studySettings: '/study-settings',
+  /** An admin's set-up of each study: visit schedule, groups, trend settings. */
+  studySetup: '/study-setup',
   team: '/team',
   outbox: '/outbox',
 } as const;

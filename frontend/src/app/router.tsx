@@ -74,6 +74,16 @@ const SCREENS: ScreenRoute[] = [
     },
   },
   {
+    path: paths.studySetup,
+    screen: 'Study set-up',
+    requires: ['update', 'PlannedVisit'],
+    load: async () => {
+      const { StudySetupPage } =
+        await import('../features/study-settings/components/study-setup-page');
+      return <StudySetupPage />;
+    },
+  },
+  {
     path: paths.team,
     screen: 'Team',
     requires: ['update', 'User'],

@@ -6,6 +6,8 @@ export const STUDY = {
   code: 'ALPHA-AGE',
   name: 'Alpha in ageing',
   description: '',
+  trendMinVisits: 3,
+  trendMinSpanDays: 90,
   createdAt: '2025-01-06T09:00:00.000Z',
   updatedAt: '2025-01-06T09:00:00.000Z',
 };

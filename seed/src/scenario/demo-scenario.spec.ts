@@ -91,6 +91,46 @@ describe('buildDemoScenario (the invented demo study)', () => {
     expect(new Set(sitesSigned)).toEqual(new Set(scenario.sites.map((s) => s.key)));
   });
 
+  it('registers every visit on a planned visit of the schedule, one per planned visit', () => {
+    const names = scenario.schedule.map((p) => p.name);
+    expect(names).toEqual(['Baseline', 'Month 4', 'Month 8', 'Month 12']);
+    expect(scenario.groups).toHaveLength(2);
+    for (const participant of scenario.participants) {
+      const labels = participant.visits.map((v) => v.label);
+      expect(new Set(labels).size).toBe(labels.length);
+      for (const label of labels) expect(names).toContain(label);
+      // The baseline is on the enrolment day: study day 0.
+      expect(participant.visits[0]).toMatchObject({
+        label: 'Baseline',
+        date: participant.enrolmentDate,
+      });
+      expect(scenario.groups.map((g) => g.key)).toContain(participant.groupKey);
+    }
+    for (const group of scenario.groups) {
+      expect(scenario.participants.filter((p) => p.groupKey === group.key).length).toBe(6);
+    }
+  });
+
+  it('puts all but two visits inside their window, and those two outside it (day counts by hand)', () => {
+    const outside: string[] = [];
+    for (const participant of scenario.participants) {
+      for (const visit of participant.visits) {
+        const planned = scenario.schedule.find((p) => p.name === visit.label);
+        const studyDay = days(participant.enrolmentDate, visit.date);
+        const offset = studyDay - (planned?.targetDay ?? NaN);
+        const inWindow =
+          offset >= -(planned?.windowBeforeDays ?? 0) && offset <= (planned?.windowAfterDays ?? 0);
+        if (!inWindow) outside.push(`${participant.code} ${visit.label} ${offset}`);
+      }
+    }
+    expect(outside).toEqual(['LAF-C101 Month 4 30', 'LAF-A202 Month 4 -28']);
+    // LAF-C101 enrolled on 2024-01-15; Month 4 (day 121) + 30 days = day 151 = 2024-06-14
+    // (Python: date(2024, 1, 15) + timedelta(151)).
+    const c101 = scenario.participants.find((p) => p.code === 'LAF-C101');
+    expect(c101?.enrolmentDate).toBe('2024-01-15');
+    expect(c101?.visits.find((v) => v.label === 'Month 4')?.date).toBe('2024-06-14');
+  });
+
   it('is the same every time it is built', () => {
     expect(buildDemoScenario('full')).toEqual(scenario);
   });
@@ -101,6 +141,11 @@ describe('buildDemoScenario (the invented demo study)', () => {
     expect(new Set(small.participants.map((p) => p.siteKey)).size).toBe(2);
     expect(new Set(small.participants.map((p) => p.profile)).size).toBe(3);
     expect(small.participants.every((p) => p.visits.length === 3)).toBe(true);
+    // Each visit on its planned visit, spanning the year (trends need ≥ 90 days).
+    for (const p of small.participants) {
+      expect(p.visits.map((v) => v.label)).toEqual(['Baseline', 'Month 4', 'Month 12']);
+      expect(days(p.visits[0].date, p.visits[2].date)).toBeGreaterThan(350);
+    }
     expect(small.recording.restDurationS).toBeLessThan(scenario.recording.restDurationS);
     for (const target of [small.malformedUpload, small.flag, ...small.signedReports]) {
       const participant = small.participants.find((p) => p.code === target.participantCode);

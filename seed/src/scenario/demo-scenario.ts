@@ -25,7 +25,23 @@ export interface DemoAccount {
 /** How a participant's alpha behaves over the study. */
 export type DemoProfile = 'drifting' | 'onset-slowing' | 'stable';
 
+/** One visit of the study's schedule (days counted from enrolment, the enrolment date = day 0). */
+export interface DemoPlannedVisit {
+  name: string;
+  targetDay: number;
+  windowBeforeDays: number;
+  windowAfterDays: number;
+}
+
+/** A group (arm) of the demo study. */
+export interface DemoGroup {
+  key: string;
+  name: string;
+  description: string;
+}
+
 export interface DemoVisit {
+  /** The planned visit's name (the visit is registered on it). */
   label: string;
   /** Visit date, ISO `YYYY-MM-DD`. */
   date: string;
@@ -43,6 +59,9 @@ export interface DemoVisit {
 export interface DemoParticipant {
   code: string;
   siteKey: string;
+  /** `YYYY-MM-DD`, day 0 of the schedule (the baseline visit's day). */
+  enrolmentDate: string;
+  groupKey: string;
   profile: DemoProfile;
   /** Generated drift of the resting IAF, in Hz per year (0 = stable). */
   iafTrendHzPerYear: number;
@@ -57,6 +76,9 @@ export interface DemoScenario {
   seedKey: string;
   study: { name: string; code: string; description: string };
   sites: DemoSite[];
+  /** The study's visit schedule, in order. */
+  schedule: DemoPlannedVisit[];
+  groups: DemoGroup[];
   accounts: DemoAccount[];
   participants: DemoParticipant[];
   recording: { sampleRateHz: number; restDurationS: number; taskTrialCount: number };
@@ -141,19 +163,47 @@ function p(
   };
 }
 
-/** Visit schedules over one year, in days after enrolment (before a few days' jitter). */
-const SCHEDULES: Record<3 | 4, Array<{ label: string; day: number }>> = {
-  3: [
-    { label: 'Baseline', day: 0 },
-    { label: 'Month 6', day: 182 },
-    { label: 'Month 12', day: 365 },
-  ],
-  4: [
-    { label: 'Baseline', day: 0 },
-    { label: 'Month 4', day: 121 },
-    { label: 'Month 8', day: 243 },
-    { label: 'Month 12', day: 365 },
-  ],
+/**
+ * The study's schedule: a baseline on the enrolment day (up to two weeks later), then visits
+ * every four months with a three-week window either side, and four weeks at Month 12.
+ */
+const SCHEDULE: DemoPlannedVisit[] = [
+  { name: 'Baseline', targetDay: 0, windowBeforeDays: 0, windowAfterDays: 14 },
+  { name: 'Month 4', targetDay: 121, windowBeforeDays: 21, windowAfterDays: 21 },
+  { name: 'Month 8', targetDay: 243, windowBeforeDays: 21, windowAfterDays: 21 },
+  { name: 'Month 12', targetDay: 365, windowBeforeDays: 28, windowAfterDays: 28 },
+];
+
+/** Two invented arms; participants alternate between them in each site's list. */
+const GROUPS: DemoGroup[] = [
+  {
+    key: 'paced',
+    name: 'Arm A · paced breathing',
+    description: 'Ten minutes of paced breathing each evening (invented for the demo).',
+  },
+  {
+    key: 'usual',
+    name: 'Arm B · usual routine',
+    description: 'No change to the daily routine (invented for the demo).',
+  },
+];
+
+/**
+ * Which planned visits each participant attended: four visits, or three with Month 8 missed.
+ * Days are the target days before a few days' jitter.
+ */
+const SCHEDULES: Record<3 | 4, string[]> = {
+  3: ['Baseline', 'Month 4', 'Month 12'],
+  4: ['Baseline', 'Month 4', 'Month 8', 'Month 12'],
+};
+
+/**
+ * Visits deliberately outside their window, in days from the target, so the mark shows:
+ * LAF-C101 came a month late to Month 4 (both versions), LAF-A202 four weeks early (full).
+ */
+const OUT_OF_WINDOW: Record<string, { visit: string; daysFromTarget: number }> = {
+  'LAF-C101': { visit: 'Month 4', daysFromTarget: 30 },
+  'LAF-A202': { visit: 'Month 4', daysFromTarget: -28 },
 };
 
 const FIRST_ENROLMENT_UTC = Date.UTC(2024, 0, 15);
@@ -167,7 +217,9 @@ export function buildDemoScenario(size: DemoSize = 'full'): DemoScenario {
     size === 'full'
       ? PARTICIPANTS
       : PARTICIPANTS.filter((q) => SMALL_PARTICIPANTS.includes(q.code));
-  const participants = plans.map((plan) => buildParticipant(plan, size));
+  const participants = plans.map((plan) =>
+    buildParticipant(plan, size, PARTICIPANTS.indexOf(plan)),
+  );
   const accounts: DemoAccount[] = [
     {
       role: 'admin',
@@ -211,6 +263,8 @@ export function buildDemoScenario(size: DemoSize = 'full'): DemoScenario {
         'Invented demo study with generated recordings: resting IAF and post-onset alpha slowing over one year at two sites.',
     },
     sites: SITES.map((s) => ({ ...s })),
+    schedule: SCHEDULE.map((v) => ({ ...v })),
+    groups: GROUPS.map((g) => ({ ...g })),
     accounts,
     participants,
     recording:
@@ -220,7 +274,7 @@ export function buildDemoScenario(size: DemoSize = 'full'): DemoScenario {
     malformedUpload:
       size === 'full'
         ? { participantCode: 'LAF-A203', visitLabel: 'Month 8', kind: 'task' }
-        : { participantCode: 'LAF-A201', visitLabel: 'Month 6', kind: 'task' },
+        : { participantCode: 'LAF-A201', visitLabel: 'Month 4', kind: 'task' },
     flag: {
       // A participant with clear onset slowing, present in both versions.
       participantCode: 'LAF-C102',
@@ -235,13 +289,22 @@ export function buildDemoScenario(size: DemoSize = 'full'): DemoScenario {
   };
 }
 
-function buildParticipant(plan: ParticipantPlan, size: DemoSize): DemoParticipant {
+function buildParticipant(plan: ParticipantPlan, size: DemoSize, index: number): DemoParticipant {
   const rng = SeededRandom.derive(DEMO_SEED_KEY, `participant-${plan.code}`);
   const enrolmentMs = FIRST_ENROLMENT_UTC + plan.enrolmentDay * DAY_MS;
-  const schedule = size === 'full' ? SCHEDULES[plan.visitCount] : SCHEDULES[3];
-  const visits = schedule.map(({ label, day }, index): DemoVisit => {
-    // Visits happen within a week of their target day, at a morning slot.
-    const actualDay = index === 0 ? 0 : day + Math.round(rng.between(-6, 6));
+  const attended = size === 'full' ? SCHEDULES[plan.visitCount] : SCHEDULES[3];
+  const schedule = attended.map((label) => {
+    const planned = SCHEDULE.find((p) => p.name === label);
+    if (planned === undefined) throw new Error(`No planned visit ${label}`);
+    return { label, day: planned.targetDay };
+  });
+  const late = OUT_OF_WINDOW[plan.code] as { visit: string; daysFromTarget: number } | undefined;
+  const visits = schedule.map(({ label, day }, visitIndex): DemoVisit => {
+    // Visits happen within a week of their target day, at a morning slot (the jitter is drawn
+    // for the moved visit too, so the other visits' numbers stay as they were).
+    const jitter = visitIndex === 0 ? 0 : Math.round(rng.between(-6, 6));
+    const actualDay =
+      visitIndex === 0 ? 0 : late?.visit === label ? day + late.daysFromTarget : day + jitter;
     const dateMs = enrolmentMs + actualDay * DAY_MS;
     const date = isoDate(dateMs);
     const hour = 8 + Math.floor(rng.between(0, 4));
@@ -269,6 +332,9 @@ function buildParticipant(plan: ParticipantPlan, size: DemoSize): DemoParticipan
   return {
     code: plan.code,
     siteKey: plan.siteKey,
+    enrolmentDate: isoDate(enrolmentMs),
+    // Alternate arms down each site's list (C101 A, C102 B, …).
+    groupKey: GROUPS[index % GROUPS.length].key,
     profile: plan.profile,
     iafTrendHzPerYear: plan.iafTrendHzPerYear,
     restAlphaUv: round(rng.between(24, 32), 1),

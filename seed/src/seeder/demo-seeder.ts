@@ -158,6 +158,28 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
     });
     siteIds.set(site.key, created.id);
   }
+  // The study's schedule and groups (study set-up, like its sites).
+  const plannedVisitIds = new Map<string, string>();
+  for (const [position, planned] of scenario.schedule.entries()) {
+    const created = await asAdmin.post<IdOnly>(`/api/studies/${study.id}/planned-visits`, {
+      ...planned,
+      position,
+    });
+    plannedVisitIds.set(planned.name, created.id);
+  }
+  const groupIds = new Map<string, string>();
+  for (const group of scenario.groups) {
+    const created = await asAdmin.post<IdOnly>(`/api/studies/${study.id}/groups`, {
+      name: group.name,
+      description: group.description,
+    });
+    groupIds.set(group.key, created.id);
+  }
+  const idIn = (ids: Map<string, string>, key: string, what: string): string => {
+    const id = ids.get(key);
+    if (id === undefined) throw new Error(`The scenario names an unknown ${what} '${key}'`);
+    return id;
+  };
   const siteIdOf = (key: string): string => {
     const id = siteIds.get(key);
     if (id === undefined) throw new Error(`The scenario names an unknown site '${key}'`);
@@ -201,7 +223,11 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
     const technician = technicians.get(participant.siteKey);
     if (technician === undefined)
       throw new Error(`No technician for site '${participant.siteKey}'`);
-    const created = await technician.post<IdOnly>('/api/participants', { code: participant.code });
+    const created = await technician.post<IdOnly>('/api/participants', {
+      code: participant.code,
+      enrolmentDate: participant.enrolmentDate,
+      groupId: idIn(groupIds, participant.groupKey, 'group'),
+    });
     const seeded: SeededParticipant = {
       code: participant.code,
       participantId: created.id,
@@ -209,9 +235,10 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
       visits: [],
     };
     for (const visit of participant.visits) {
+      // Each visit is registered on its planned visit, whose name becomes its label.
       const visitRow = await technician.post<IdOnly>('/api/visits', {
         participantId: created.id,
-        label: visit.label,
+        plannedVisitId: idIn(plannedVisitIds, visit.label, 'planned visit'),
         visitDate: visit.date,
       });
       const files = generateVisitRecordings(scenario, participant, visit);

@@ -7,6 +7,8 @@ import { ReportSignoff1764633900000 } from './1764633900000-report-signoff';
 import { RecordingPipeline1764700000000 } from './1764700000000-recording-pipeline';
 import { SessionRevocation1764700100000 } from './1764700100000-session-revocation';
 import { WorkerTokens1764700200000 } from './1764700200000-worker-tokens';
+import { VisitScheduleAndGroups1764700300000 } from './1764700300000-visit-schedule-and-groups';
+import { VisitReviews1764700400000 } from './1764700400000-visit-reviews';
 
 /** Every migration in order; add new ones at the end (see DEVELOPERS.md). */
 export const MIGRATIONS = [
@@ -19,4 +21,6 @@ export const MIGRATIONS = [
   RecordingPipeline1764700000000,
   SessionRevocation1764700100000,
   WorkerTokens1764700200000,
+  VisitScheduleAndGroups1764700300000,
+  VisitReviews1764700400000,
 ];

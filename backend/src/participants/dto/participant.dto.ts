@@ -1,7 +1,20 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import { IsIn, IsOptional, IsString, IsUUID, Matches, MaxLength } from 'class-validator';
-import { PARTICIPANT_CODE_PATTERN, type Page, type ParticipantView } from '@gyre/shared';
+import {
+  IsIn,
+  IsOptional,
+  IsString,
+  IsUUID,
+  Matches,
+  MaxLength,
+  ValidateIf,
+} from 'class-validator';
+import {
+  CALENDAR_DATE_PATTERN,
+  PARTICIPANT_CODE_PATTERN,
+  type Page,
+  type ParticipantView,
+} from '@gyre/shared';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 const CODE_MESSAGE =
@@ -9,6 +22,10 @@ const CODE_MESSAGE =
 
 const trimmed = ({ value }: { value: unknown }): unknown =>
   typeof value === 'string' ? value.trim() : value;
+const DATE_MESSAGE = 'enrolmentDate must be a calendar date written YYYY-MM-DD';
+/** `null` clears the field; a missing field leaves it as it is. */
+const givenAndNotNull = (_: object, value: unknown): boolean =>
+  value !== null && value !== undefined;
 
 export class CreateParticipantDto {
   @ApiPropertyOptional({ description: 'Defaults to your own site (technicians)' })
@@ -21,14 +38,42 @@ export class CreateParticipantDto {
   @IsString()
   @Matches(PARTICIPANT_CODE_PATTERN, { message: CODE_MESSAGE })
   code: string;
+
+  @ApiPropertyOptional({
+    example: '2026-03-02',
+    description: 'Day 0 of the visit schedule (YYYY-MM-DD)',
+  })
+  @IsOptional()
+  @Matches(CALENDAR_DATE_PATTERN, { message: DATE_MESSAGE })
+  enrolmentDate?: string;
+
+  @ApiPropertyOptional({ description: 'A group (arm) of the same study' })
+  @IsOptional()
+  @IsUUID()
+  groupId?: string;
 }
 
 export class UpdateParticipantDto {
-  @ApiProperty({ example: 'AC-0043', pattern: PARTICIPANT_CODE_PATTERN.source })
+  @ApiPropertyOptional({ example: 'AC-0043', pattern: PARTICIPANT_CODE_PATTERN.source })
+  @IsOptional()
   @Transform(trimmed)
   @IsString()
   @Matches(PARTICIPANT_CODE_PATTERN, { message: CODE_MESSAGE })
-  code: string;
+  code?: string;
+
+  @ApiPropertyOptional({
+    example: '2026-03-02',
+    nullable: true,
+    description: 'YYYY-MM-DD; null clears it',
+  })
+  @ValidateIf(givenAndNotNull)
+  @Matches(CALENDAR_DATE_PATTERN, { message: DATE_MESSAGE })
+  enrolmentDate?: string | null;
+
+  @ApiPropertyOptional({ nullable: true, description: 'A group of the same study; null clears it' })
+  @ValidateIf(givenAndNotNull)
+  @IsUUID()
+  groupId?: string | null;
 
   @ApiPropertyOptional({ description: 'Why the code changes; kept in the audit trail' })
   @IsOptional()
@@ -50,6 +95,11 @@ export class ParticipantQueryDto extends PageQueryDto {
   @IsUUID()
   siteId?: string;
 
+  @ApiPropertyOptional({ description: 'Only the participants of this group' })
+  @IsOptional()
+  @IsUUID()
+  groupId?: string;
+
   @ApiPropertyOptional({ description: 'Part of the code' })
   @IsOptional()
   @IsString()
@@ -62,6 +112,9 @@ export class ParticipantResponseDto implements ParticipantView {
   @ApiProperty() studyId: string;
   @ApiProperty() siteId: string;
   @ApiProperty({ example: 'AC-0042' }) code: string;
+  @ApiProperty({ type: String, nullable: true, example: '2026-03-02' })
+  enrolmentDate: string | null;
+  @ApiProperty({ type: String, nullable: true }) groupId: string | null;
   @ApiProperty() createdAt: string;
   @ApiProperty() updatedAt: string;
 }

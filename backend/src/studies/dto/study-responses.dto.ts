@@ -6,6 +6,8 @@ export class StudyResponseDto implements StudyView {
   @ApiProperty({ example: 'ALPHA-AGE' }) code: string;
   @ApiProperty() name: string;
   @ApiProperty() description: string;
+  @ApiProperty({ example: 3 }) trendMinVisits: number;
+  @ApiProperty({ example: 90 }) trendMinSpanDays: number;
   @ApiProperty() createdAt: string;
   @ApiProperty() updatedAt: string;
 }

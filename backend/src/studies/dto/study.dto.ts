@@ -1,6 +1,22 @@
 import { ApiProperty, ApiPropertyOptional, PartialType } from '@nestjs/swagger';
-import { IsIn, IsNotEmpty, IsOptional, IsString, Matches, MaxLength } from 'class-validator';
-import { STUDY_CODE_PATTERN, type Page, type StudyView } from '@gyre/shared';
+import {
+  IsIn,
+  IsInt,
+  IsNotEmpty,
+  IsOptional,
+  IsString,
+  Matches,
+  Max,
+  MaxLength,
+  Min,
+} from 'class-validator';
+import {
+  DEFAULT_TREND_MIN_SPAN_DAYS,
+  DEFAULT_TREND_MIN_VISITS,
+  STUDY_CODE_PATTERN,
+  type Page,
+  type StudyView,
+} from '@gyre/shared';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 import { StudyResponseDto } from './study-responses.dto';
 
@@ -22,6 +38,26 @@ export class CreateStudyDto {
   @IsString()
   @MaxLength(4000)
   description?: string;
+
+  @ApiPropertyOptional({
+    default: DEFAULT_TREND_MIN_VISITS,
+    description: 'A participant trend slope is shown from this many visits with a value (2–50)',
+  })
+  @IsOptional()
+  @IsInt()
+  @Min(2)
+  @Max(50)
+  trendMinVisits?: number;
+
+  @ApiPropertyOptional({
+    default: DEFAULT_TREND_MIN_SPAN_DAYS,
+    description: '…when those visits span at least this many days (0–3650)',
+  })
+  @IsOptional()
+  @IsInt()
+  @Min(0)
+  @Max(3650)
+  trendMinSpanDays?: number;
 }
 
 export class UpdateStudyDto extends PartialType(CreateStudyDto) {}

@@ -1,6 +1,7 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
 import {
+  IsBoolean,
   IsIn,
   IsNotEmpty,
   IsOptional,
@@ -8,8 +9,15 @@ import {
   IsUUID,
   Matches,
   MaxLength,
+  ValidateIf,
 } from 'class-validator';
-import type { Page, VisitView } from '@gyre/shared';
+import {
+  VISIT_WINDOWS,
+  type Page,
+  type VisitScheduleStatus,
+  type VisitView,
+  type VisitWindow,
+} from '@gyre/shared';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 const trimmed = ({ value }: { value: unknown }): unknown =>
@@ -21,12 +29,32 @@ export class CreateVisitDto {
   @IsUUID()
   participantId: string;
 
-  @ApiProperty({ example: 'V1', description: 'Unique per participant' })
+  @ApiPropertyOptional({
+    description:
+      "The study's planned visit this visit is; required when the study has a schedule, unless unscheduled is true",
+  })
+  @IsOptional()
+  @IsUUID()
+  plannedVisitId?: string;
+
+  @ApiPropertyOptional({
+    description: 'true: a visit outside the schedule (then label is required)',
+  })
+  @IsOptional()
+  @IsBoolean()
+  unscheduled?: boolean;
+
+  @ApiPropertyOptional({
+    example: 'V1',
+    description:
+      "Unique per participant; required for an unscheduled visit, else the planned visit's name",
+  })
+  @IsOptional()
   @Transform(trimmed)
   @IsString()
   @IsNotEmpty()
   @MaxLength(40)
-  label: string;
+  label?: string;
 
   @ApiProperty({ example: '2026-03-14', description: 'Calendar date, YYYY-MM-DD' })
   @Matches(DATE_PATTERN, { message: 'visitDate must be a calendar date written YYYY-MM-DD' })
@@ -34,6 +62,14 @@ export class CreateVisitDto {
 }
 
 export class UpdateVisitDto {
+  @ApiPropertyOptional({
+    nullable: true,
+    description: 'Move the visit to another planned visit; null makes it unscheduled',
+  })
+  @ValidateIf((_: object, value: unknown) => value !== null && value !== undefined)
+  @IsUUID()
+  plannedVisitId?: string | null;
+
   @ApiPropertyOptional({ example: 'V2' })
   @IsOptional()
   @Transform(trimmed)
@@ -72,6 +108,11 @@ export class VisitQueryDto extends PageQueryDto {
   @IsUUID()
   siteId?: string;
 
+  @ApiPropertyOptional()
+  @IsOptional()
+  @IsUUID()
+  plannedVisitId?: string;
+
   @ApiPropertyOptional({ description: 'Visits on or after, YYYY-MM-DD' })
   @IsOptional()
   @Matches(DATE_PATTERN, { message: 'from must be YYYY-MM-DD' })
@@ -83,6 +124,16 @@ export class VisitQueryDto extends PageQueryDto {
   to?: string;
 }
 
+export class VisitScheduleStatusDto implements VisitScheduleStatus {
+  @ApiProperty({ type: String, nullable: true }) plannedVisitId: string | null;
+  @ApiProperty({ type: String, nullable: true }) plannedVisitName: string | null;
+  @ApiProperty({ type: Number, nullable: true, description: 'visitDate − enrolmentDate, days' })
+  studyDay: number | null;
+  @ApiProperty({ type: Number, nullable: true }) targetDay: number | null;
+  @ApiProperty({ type: Number, nullable: true }) daysFromTarget: number | null;
+  @ApiProperty({ enum: VISIT_WINDOWS }) window: VisitWindow;
+}
+
 export class VisitResponseDto implements VisitView {
   @ApiProperty() id: string;
   @ApiProperty() participantId: string;
@@ -90,6 +141,8 @@ export class VisitResponseDto implements VisitView {
   @ApiProperty() siteId: string;
   @ApiProperty() label: string;
   @ApiProperty({ example: '2026-03-14' }) visitDate: string;
+  @ApiProperty({ type: String, nullable: true }) plannedVisitId: string | null;
+  @ApiProperty({ type: VisitScheduleStatusDto }) schedule: VisitScheduleStatus;
   @ApiProperty() createdAt: string;
   @ApiProperty() updatedAt: string;
 }

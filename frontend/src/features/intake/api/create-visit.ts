@@ -2,11 +2,18 @@ import type { VisitView } from '@gyre/shared';
 import { useCallback } from 'react';
 import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
+import { isDueKey } from './due';
 import { visitsKey } from './visits';
 
+/**
+ * A visit on a planned visit (`plannedVisitId`; it takes the planned visit's name), or an
+ * unscheduled one (`unscheduled: true` with a `label`; a study without a schedule needs only the label).
+ */
 export interface CreateVisitBody {
   participantId: string;
-  label: string;
+  plannedVisitId?: string;
+  unscheduled?: boolean;
+  label?: string;
   /** `YYYY-MM-DD`. */
   visitDate: string;
 }
@@ -22,6 +29,7 @@ export function useCreateVisit() {
     async (body: CreateVisitBody) => {
       const created = await createVisit(body);
       await mutate(visitsKey(body.participantId));
+      await mutate(isDueKey(created.studyId));
       return created;
     },
     [mutate],

@@ -1,21 +1,33 @@
-import { Button, Card, Col, Form, Row, Select, Space } from 'antd';
+import { subject } from '@gyre/shared';
+import { Button, Card, Col, Form, Row, Select, Space, Typography } from 'antd';
+import dayjs from 'dayjs';
 import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { PageHeader } from '../../../components/page-header';
 import { ErrorState, LoadingState } from '../../../components/page-states';
+import {
+  studyDayText,
+  visitWindowText,
+  VisitWindowTag,
+} from '../../../components/visit-window-tag';
 import { formatDate } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
+import { useDue } from '../api/due';
 import { useParticipants } from '../api/participants';
+import { useGroups, usePlannedVisits } from '../api/study-schedule';
 import { useVisits } from '../api/visits';
+import { DueCard } from './due-card';
 import { NewParticipantForm } from './new-participant-form';
 import { NewVisitForm } from './new-visit-form';
+import { ParticipantDetailsForm } from './participant-details-form';
 import { RecordingDropzone } from './recording-dropzone';
 import { RecordingsTable } from './recordings-table';
 
 /**
- * Intake (technician): pick participant and visit, drop the visit's files, follow each
- * recording from upload through the checks to the end of its computation.
+ * Intake (technician): what is due at the site, then pick participant and visit, drop the
+ * visit's files, follow each recording from upload through the checks to the end of its
+ * computation.
  */
 export function IntakePage() {
   const { me } = useSession();
@@ -30,6 +42,12 @@ export function IntakePage() {
   const visits = useVisits(knownParticipantId);
   const [visitFormOpen, setVisitFormOpen] = useState(false);
   const [participantFormOpen, setParticipantFormOpen] = useState(false);
+  const [detailsFormOpen, setDetailsFormOpen] = useState(false);
+  const studyId = me.study?.id ?? null;
+  const schedule = usePlannedVisits(studyId);
+  const groups = useGroups(studyId);
+  // The technician's own calendar day decides what is due "today".
+  const due = useDue(studyId, dayjs().format('YYYY-MM-DD'));
 
   const choose = (next: { participant?: string | null; visit?: string | null }) => {
     const params = new URLSearchParams(search);
@@ -65,6 +83,10 @@ export function IntakePage() {
   const visitList = visits.data?.items ?? [];
   const visit = visitList.find((v) => v.id === visitId) ?? null;
   const canAddParticipant = ability.can('create', 'Participant') && me.site !== null;
+  const canEditParticipant =
+    participant !== null && ability.can('update', subject('Participant', participant));
+  const groupName = (id: string | null) =>
+    id === null ? 'no group' : (groups.data?.find((g) => g.id === id)?.name ?? '…');
 
   return (
     <>
@@ -73,6 +95,14 @@ export function IntakePage() {
         description="Register a visit, upload its resting and task recordings, and follow their checks."
       />
       <Space orientation="vertical" size={16} style={{ width: '100%' }}>
+        {studyId !== null && (
+          <DueCard
+            due={due.data}
+            error={due.error}
+            onRetry={() => void due.mutate()}
+            onChoose={(id) => choose({ participant: id, visit: null })}
+          />
+        )}
         <Card title="Participant and visit">
           <Form layout="vertical" component="div">
             <Row gutter={24}>
@@ -96,15 +126,39 @@ export function IntakePage() {
                     style={{ width: '100%' }}
                   />
                 </Form.Item>
-                {canAddParticipant && (
-                  <Button
-                    type="link"
-                    style={{ paddingInline: 0 }}
-                    onClick={() => setParticipantFormOpen(true)}
+                {participant !== null && (
+                  <Typography.Paragraph
+                    type="secondary"
+                    aria-label="Enrolment and group"
+                    style={{ margin: '0 0 4px' }}
                   >
-                    Register a new participant
-                  </Button>
+                    {participant.enrolmentDate === null
+                      ? 'No enrolment date yet'
+                      : `Enrolled ${formatDate(participant.enrolmentDate)}`}
+                    {' · '}
+                    {groupName(participant.groupId)}
+                  </Typography.Paragraph>
                 )}
+                <Space wrap size={16}>
+                  {canAddParticipant && (
+                    <Button
+                      type="link"
+                      style={{ paddingInline: 0 }}
+                      onClick={() => setParticipantFormOpen(true)}
+                    >
+                      Register a new participant
+                    </Button>
+                  )}
+                  {canEditParticipant && (
+                    <Button
+                      type="link"
+                      style={{ paddingInline: 0 }}
+                      onClick={() => setDetailsFormOpen(true)}
+                    >
+                      Change enrolment date or group
+                    </Button>
+                  )}
+                </Space>
               </Col>
               <Col xs={24} md={12}>
                 <Form.Item label="Visit" htmlFor="intake-visit" style={{ marginBottom: 8 }}>
@@ -123,11 +177,22 @@ export function IntakePage() {
                     onChange={(id: string) => choose({ visit: id })}
                     options={visitList.map((v) => ({
                       value: v.id,
-                      label: `${v.label} · ${formatDate(v.visitDate)}`,
+                      label:
+                        v.schedule.window === 'early' || v.schedule.window === 'late'
+                          ? `${v.label} · ${formatDate(v.visitDate)} · ${visitWindowText(v.schedule)}`
+                          : `${v.label} · ${formatDate(v.visitDate)}`,
                     }))}
                     style={{ width: '100%' }}
                   />
                 </Form.Item>
+                {visit !== null && (
+                  <Space wrap size={8} style={{ marginBottom: 4 }} aria-label="Visit schedule">
+                    <VisitWindowTag schedule={visit.schedule} />
+                    <Typography.Text type="secondary">
+                      {studyDayText(visit.schedule)}
+                    </Typography.Text>
+                  </Space>
+                )}
                 {participant !== null && (
                   <Button
                     type="link"
@@ -163,7 +228,9 @@ export function IntakePage() {
           open={visitFormOpen}
           participantId={participant.id}
           participantCode={participant.code}
-          existingLabels={visitList.map((v) => v.label)}
+          enrolmentDate={participant.enrolmentDate}
+          schedule={schedule.data ?? []}
+          visits={visitList}
           onClose={() => setVisitFormOpen(false)}
           onCreated={(created) => {
             setVisitFormOpen(false);
@@ -176,11 +243,21 @@ export function IntakePage() {
           open={participantFormOpen}
           siteId={me.site.id}
           siteName={me.site.name}
+          groups={groups.data ?? []}
           onClose={() => setParticipantFormOpen(false)}
           onCreated={(created) => {
             setParticipantFormOpen(false);
             choose({ participant: created.id, visit: null });
           }}
+        />
+      )}
+      {participant !== null && canEditParticipant && (
+        <ParticipantDetailsForm
+          open={detailsFormOpen}
+          participant={participant}
+          groups={groups.data ?? []}
+          onClose={() => setDetailsFormOpen(false)}
+          onSaved={() => setDetailsFormOpen(false)}
         />
       )}
     </>

@@ -1,33 +1,51 @@
-import { PARTICIPANT_CODE_PATTERN, type ParticipantView } from '@gyre/shared';
+import { PARTICIPANT_CODE_PATTERN, type ParticipantView, type StudyGroupView } from '@gyre/shared';
 import { Form, Input, Modal, Typography } from 'antd';
+import type { Dayjs } from 'dayjs';
 import { useState } from 'react';
 import { ApiError } from '../../../lib/api-client';
 import { useCreateParticipant } from '../api/create-participant';
+import { ParticipantScheduleFields } from './participant-details-fields';
 
-/** Registers a participant by pseudonymous code at the technician's site; never a name. */
+interface Values {
+  code: string;
+  enrolmentDate: Dayjs;
+  groupId?: string;
+}
+
+/**
+ * Registers a participant by pseudonymous code at the technician's site (never a name), with
+ * the enrolment date the visit schedule counts from and, if the study has groups, a group.
+ */
 export function NewParticipantForm({
   open,
   siteId,
   siteName,
+  groups,
   onClose,
   onCreated,
 }: {
   open: boolean;
   siteId: string;
   siteName: string;
+  groups: StudyGroupView[];
   onClose: () => void;
   onCreated: (participant: ParticipantView) => void;
 }) {
-  const [form] = Form.useForm<{ code: string }>();
+  const [form] = Form.useForm<Values>();
   const createParticipant = useCreateParticipant();
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
-  const submit = async ({ code }: { code: string }) => {
+  const submit = async ({ code, enrolmentDate, groupId }: Values) => {
     setBusy(true);
     setError(null);
     try {
-      const participant = await createParticipant({ code: code.trim(), siteId });
+      const participant = await createParticipant({
+        code: code.trim(),
+        siteId,
+        enrolmentDate: enrolmentDate.format('YYYY-MM-DD'),
+        ...(groupId === undefined ? {} : { groupId }),
+      });
       form.resetFields();
       onCreated(participant);
     } catch (caught) {
@@ -47,7 +65,7 @@ export function NewParticipantForm({
       onCancel={onClose}
       destroyOnHidden
     >
-      <Form<{ code: string }> form={form} layout="vertical" requiredMark={false} onFinish={submit}>
+      <Form<Values> form={form} layout="vertical" requiredMark={false} onFinish={submit}>
         <Form.Item
           label="Participant code"
           name="code"
@@ -64,6 +82,7 @@ export function NewParticipantForm({
         >
           <Input autoFocus />
         </Form.Item>
+        <ParticipantScheduleFields groups={groups} requireEnrolment />
         {error !== null && (
           <Typography.Paragraph type="danger" role="alert">
             {error}

@@ -1,28 +1,49 @@
-import type { VisitView } from '@gyre/shared';
-import { DatePicker, Form, Input, Modal, Typography } from 'antd';
+import { visitScheduleStatus, type PlannedVisitView, type VisitView } from '@gyre/shared';
+import { DatePicker, Form, Input, Modal, Select, Space, Typography } from 'antd';
 import dayjs, { type Dayjs } from 'dayjs';
 import { useState } from 'react';
+import { studyDayText, VisitWindowTag } from '../../../components/visit-window-tag';
 import { ApiError } from '../../../lib/api-client';
-import { useCreateVisit } from '../api/create-visit';
+import { formatDate } from '../../../lib/format';
+import { useCreateVisit, type CreateVisitBody } from '../api/create-visit';
+
+/** The Select's value for a visit outside the schedule. */
+export const UNSCHEDULED = 'unscheduled';
 
 interface Values {
-  label: string;
-  visitDate: Dayjs;
+  plannedVisit?: string;
+  label?: string;
+  visitDate?: Dayjs;
 }
 
-/** Registers a visit: a label unique for the participant (e.g. "V2") and the date it took place. */
+/** "day 84, −14/+14 days" */
+function windowWords(planned: PlannedVisitView): string {
+  return `day ${planned.targetDay}, −${planned.windowBeforeDays}/+${planned.windowAfterDays} days`;
+}
+
+/**
+ * Registers a visit. When the study has a schedule the visit is one of its planned visits
+ * (each once per participant), or explicitly "unscheduled" with a label of its own; the form
+ * shows at once whether the date falls inside the planned visit's window.
+ */
 export function NewVisitForm({
   open,
   participantId,
   participantCode,
-  existingLabels,
+  enrolmentDate,
+  schedule,
+  visits,
   onClose,
   onCreated,
 }: {
   open: boolean;
   participantId: string;
   participantCode: string;
-  existingLabels: string[];
+  enrolmentDate: string | null;
+  /** The study's planned visits, in order (empty: the study has no schedule). */
+  schedule: PlannedVisitView[];
+  /** The participant's visits so far. */
+  visits: VisitView[];
   onClose: () => void;
   onCreated: (visit: VisitView) => void;
 }) {
@@ -30,16 +51,38 @@ export function NewVisitForm({
   const createVisit = useCreateVisit();
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  const pick = Form.useWatch('plannedVisit', form);
+  const date = Form.useWatch('visitDate', form);
+  const hasSchedule = schedule.length > 0;
+  const planned = schedule.find((p) => p.id === pick) ?? null;
+  const needsLabel = !hasSchedule || pick === UNSCHEDULED;
+  const done = new Map(
+    visits.flatMap((v) => (v.plannedVisitId === null ? [] : [[v.plannedVisitId, v] as const])),
+  );
+  const status =
+    planned !== null && dayjs.isDayjs(date)
+      ? visitScheduleStatus({
+          visitDate: date.format('YYYY-MM-DD'),
+          enrolmentDate,
+          planned,
+        })
+      : null;
 
   const submit = async (values: Values) => {
     setBusy(true);
     setError(null);
+    const visitDate = (values.visitDate as Dayjs).format('YYYY-MM-DD');
+    const body: CreateVisitBody =
+      values.plannedVisit !== undefined && values.plannedVisit !== UNSCHEDULED
+        ? { participantId, plannedVisitId: values.plannedVisit, visitDate }
+        : {
+            participantId,
+            ...(hasSchedule ? { unscheduled: true } : {}),
+            label: (values.label ?? '').trim(),
+            visitDate,
+          };
     try {
-      const visit = await createVisit({
-        participantId,
-        label: values.label.trim(),
-        visitDate: values.visitDate.format('YYYY-MM-DD'),
-      });
+      const visit = await createVisit(body);
       form.resetFields();
       onCreated(visit);
     } catch (caught) {
@@ -60,28 +103,61 @@ export function NewVisitForm({
       destroyOnHidden
     >
       <Form<Values> form={form} layout="vertical" requiredMark={false} onFinish={submit}>
-        <Form.Item
-          label="Visit label"
-          name="label"
-          extra="As your protocol names it, e.g. V1, V2, Month 6."
-          rules={[
-            { required: true, whitespace: true, message: 'Give the visit a label.' },
-            { max: 40, message: 'A label has at most 40 characters.' },
-            {
-              validator: async (_rule, value: unknown) => {
-                if (typeof value !== 'string') return;
-                const wanted = value.trim().toLowerCase();
-                if (existingLabels.some((label) => label.toLowerCase() === wanted)) {
-                  throw new Error(
-                    `${participantCode} already has a visit labelled ${value.trim()}.`,
-                  );
-                }
+        {hasSchedule && (
+          <Form.Item
+            label="Planned visit"
+            name="plannedVisit"
+            extra="The visit of the study's schedule this is. Each planned visit happens once per participant."
+            rules={[{ required: true, message: 'Choose the planned visit, or "Unscheduled".' }]}
+          >
+            <Select
+              autoFocus
+              placeholder="Choose a planned visit"
+              options={[
+                ...schedule.map((p) => {
+                  const taken = done.get(p.id);
+                  return {
+                    value: p.id,
+                    disabled: taken !== undefined,
+                    label:
+                      taken === undefined
+                        ? `${p.name} · ${windowWords(p)}`
+                        : `${p.name} · done on ${formatDate(taken.visitDate)}`,
+                  };
+                }),
+                { value: UNSCHEDULED, label: 'Unscheduled visit (outside the schedule)' },
+              ]}
+            />
+          </Form.Item>
+        )}
+        {needsLabel && (
+          <Form.Item
+            label="Visit label"
+            name="label"
+            extra={
+              hasSchedule
+                ? 'A name for this extra visit, e.g. "Repeat rest".'
+                : 'As your protocol names it, e.g. V1, V2, Month 6.'
+            }
+            rules={[
+              { required: true, whitespace: true, message: 'Give the visit a label.' },
+              { max: 40, message: 'A label has at most 40 characters.' },
+              {
+                validator: async (_rule, value: unknown) => {
+                  if (typeof value !== 'string') return;
+                  const wanted = value.trim().toLowerCase();
+                  if (visits.some((v) => v.label.toLowerCase() === wanted)) {
+                    throw new Error(
+                      `${participantCode} already has a visit labelled ${value.trim()}.`,
+                    );
+                  }
+                },
               },
-            },
-          ]}
-        >
-          <Input autoFocus />
-        </Form.Item>
+            ]}
+          >
+            <Input autoFocus={!hasSchedule} />
+          </Form.Item>
+        )}
         <Form.Item
           label="Visit date"
           name="visitDate"
@@ -98,10 +174,23 @@ export function NewVisitForm({
         >
           <DatePicker
             format="D MMM YYYY"
-            disabledDate={(date) => date.isAfter(dayjs(), 'day')}
+            disabledDate={(d) => d.isAfter(dayjs(), 'day')}
             style={{ width: '100%' }}
           />
         </Form.Item>
+        {status !== null && (
+          <div role="status" aria-label="Window status" style={{ marginBottom: 16 }}>
+            <Space wrap size={8}>
+              <VisitWindowTag schedule={status} />
+              <Typography.Text type="secondary">{studyDayText(status)}</Typography.Text>
+            </Space>
+            {(status.window === 'early' || status.window === 'late') && (
+              <Typography.Paragraph type="secondary" style={{ margin: '8px 0 0' }}>
+                The visit can still be registered; it is marked as outside its window.
+              </Typography.Paragraph>
+            )}
+          </div>
+        )}
         {error !== null && (
           <Typography.Paragraph type="danger" role="alert">
             {error}

@@ -4,7 +4,7 @@ import { describe, expect, it, vi } from 'vitest';
 import { meFor } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
-import { PARTICIPANT, TRAJECTORY, VISITS } from '../testing/participant-fixtures';
+import { GROUPS, PARTICIPANT, TRAJECTORY, VISITS } from '../testing/participant-fixtures';
 
 // jsdom has no canvas for the chart library: a stand-in shows which marks would be drawn.
 vi.mock(
@@ -17,6 +17,7 @@ installMswServer();
 function serve() {
   server.use(
     http.get(`/api/participants/${PARTICIPANT.id}`, () => HttpResponse.json(PARTICIPANT)),
+    http.get(`/api/studies/${PARTICIPANT.studyId}/groups`, () => HttpResponse.json(GROUPS)),
     http.get(`/api/participants/${PARTICIPANT.id}/trajectory`, () => HttpResponse.json(TRAJECTORY)),
     http.get('/api/visits', ({ request }) => {
       expect(new URL(request.url).searchParams.get('participantId')).toBe(PARTICIPANT.id);
@@ -71,6 +72,22 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
       'href',
       '/review/v-1',
     );
+  });
+
+  it('shows the enrolment date, the group and each visit against its window, marking the late one', async () => {
+    serve();
+    renderApp(`/participants/${PARTICIPANT.id}`, meFor('analyst'));
+    const enrolment = await screen.findByLabelText('Enrolment', {}, { timeout: 15_000 });
+    expect(enrolment).toHaveTextContent('Enrolment date10 Jan 2024');
+    expect(await within(enrolment).findByText('Arm B')).toBeInTheDocument();
+    const rows = within(screen.getByRole('table', { name: 'Visits' })).getAllByRole('row');
+    // Enrolled 2024-01-10: 2024-07-12 is day 184, 2025-01-15 day 371 (through 29 February 2024;
+    // Python: date(2025, 1, 15) - date(2024, 1, 10) = 371 days). Month 12 allows 365 ± 3.
+    expect(rows[1]).toHaveTextContent('In window');
+    expect(rows[1]).toHaveTextContent('Day 0 (target 0)');
+    expect(rows[2]).toHaveTextContent('Day 184 (target 182)');
+    expect(within(rows[3]).getByLabelText('Schedule: Late by 6 days')).toBeInTheDocument();
+    expect(rows[3]).toHaveTextContent('Day 371 (target 365)');
   });
 
   it('shows an empty trajectory in words when no visit has results', async () => {

@@ -1,21 +1,26 @@
-import type { TrajectoryVisitDto, VisitView } from '@gyre/shared';
-import { Button, Card, Descriptions, Table, Tag } from 'antd';
+import type { TrajectoryVisitDto, VisitScheduleStatus, VisitView } from '@gyre/shared';
+import { Button, Card, Descriptions, Space, Table, Tag, Typography } from 'antd';
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { GYRE_COLORS } from '../../../app/theme';
 import { PageHeader } from '../../../components/page-header';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
+import { studyDayText, VisitWindowTag } from '../../../components/visit-window-tag';
 import { formatDate, formatHz } from '../../../lib/format';
+import { useGroups } from '../api/get-groups';
 import { useParticipant } from '../api/get-participant';
 import { useParticipantVisits } from '../api/get-participant-visits';
 import { useTrajectory } from '../api/get-trajectory';
+import { ParticipantDetails } from './participant-details';
 import { TrajectoryCharts } from './trajectory-charts';
 
 export interface VisitRow {
   visitId: string;
   label: string;
   date: string;
+  /** Null for a visit the trajectory knows but the visit list did not return. */
+  schedule: VisitScheduleStatus | null;
   numbers: TrajectoryVisitDto | null;
 }
 
@@ -26,11 +31,12 @@ export function visitRows(visits: VisitView[], trajectory: TrajectoryVisitDto[])
     visitId: v.id,
     label: v.label,
     date: v.visitDate,
+    schedule: v.schedule,
     numbers: byId.get(v.id) ?? null,
   }));
   for (const t of trajectory) {
     if (!visits.some((v) => v.id === t.visitId)) {
-      rows.push({ visitId: t.visitId, label: t.label, date: t.date, numbers: t });
+      rows.push({ visitId: t.visitId, label: t.label, date: t.date, schedule: null, numbers: t });
     }
   }
   return rows.sort((a, b) => a.date.localeCompare(b.date));
@@ -71,6 +77,7 @@ export function ParticipantPage() {
   const participant = useParticipant(participantId);
   const trajectory = useTrajectory(participantId);
   const visits = useParticipantVisits(participantId);
+  const groups = useGroups(participant.data?.studyId ?? null);
 
   const failed = participant.error ?? trajectory.error ?? visits.error;
   if (failed !== undefined) {
@@ -123,6 +130,9 @@ export function ParticipantPage() {
           </Link>
         }
       />
+      <Card style={{ marginBottom: 20 }}>
+        <ParticipantDetails participant={participant.data} groups={groups.data ?? []} />
+      </Card>
       <Card title="Trajectory" style={{ marginBottom: 20 }}>
         {withResults.length === 0 ? (
           <EmptyState description="No visit has computed results yet, so there is no trajectory to draw." />
@@ -174,6 +184,21 @@ export function ParticipantPage() {
               defaultSortOrder: 'ascend',
               sorter: (a, b) => a.date.localeCompare(b.date),
               render: (_, row) => formatDate(row.date),
+            },
+            {
+              key: 'schedule',
+              title: 'Schedule',
+              render: (_, row) =>
+                row.schedule === null ? (
+                  '—'
+                ) : (
+                  <Space orientation="vertical" size={2}>
+                    <VisitWindowTag schedule={row.schedule} />
+                    <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+                      {studyDayText(row.schedule)}
+                    </Typography.Text>
+                  </Space>
+                ),
             },
             {
               key: 'paf',

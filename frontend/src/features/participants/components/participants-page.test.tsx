@@ -5,7 +5,8 @@ import { describe, expect, it } from 'vitest';
 import { meFor, SITE } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
-import { participant } from '../testing/participant-fixtures';
+import { PHONE_WIDTH_PX, setViewportWidth } from '../../../test/viewport';
+import { GROUPS, participant } from '../testing/participant-fixtures';
 
 installMswServer();
 
@@ -17,7 +18,12 @@ const ALL = Array.from({ length: 45 }, (_, i) => ({
 }));
 
 /** A stand-in for the server's list: it filters, sorts and pages as the query asks. */
+function serveGroups() {
+  server.use(http.get(`/api/studies/${SITE.studyId}/groups`, () => HttpResponse.json(GROUPS)));
+}
+
 function serveParticipants(requests: URLSearchParams[]) {
+  serveGroups();
   server.use(
     http.get('/api/sites', () =>
       HttpResponse.json({ items: [SITE, OTHER_SITE], total: 2, page: 1, pageSize: 200 }),
@@ -92,6 +98,21 @@ describe('Participants', { timeout: 60_000 }, () => {
     expect(codesShown()[0]).toBe('AC-0005');
   });
 
+  it('shows enrolment date and group, and keeps them at phone width', async () => {
+    setViewportWidth(PHONE_WIDTH_PX);
+    serveParticipants([]);
+    renderApp('/participants', meFor('analyst'));
+    expect(await screen.findByText('AC-0001', {}, { timeout: 15_000 })).toBeInTheDocument();
+    const headers = screen.getAllByRole('columnheader').map((h) => h.textContent);
+    expect(headers).toEqual(['Participant', 'Site', 'Enrolment', 'Group']);
+    // Even-numbered participants are enrolled on 2024-01-10: AC-0002 in Arm B, AC-0004 in Arm A.
+    const row = (code: string) => screen.getByText(code).closest('tr') as HTMLElement;
+    await waitFor(() => expect(row('AC-0002')).toHaveTextContent('Arm B'));
+    expect(row('AC-0002')).toHaveTextContent('10 Jan 2024');
+    expect(row('AC-0004')).toHaveTextContent('Arm A');
+    expect(row('AC-0001')).toHaveTextContent('—');
+  });
+
   it('says so when a search finds nobody', async () => {
     serveParticipants([]);
     renderApp('/participants?search=ZZ-9', meFor('monitor'));
@@ -103,6 +124,7 @@ describe('Participants', { timeout: 60_000 }, () => {
   it('shows a failed load with a retry that works', async () => {
     // Every request fails until the user asks again, whatever SWR retries on its own.
     let userRetried = false;
+    serveGroups();
     server.use(
       http.get('/api/sites', () =>
         HttpResponse.json({ items: [SITE], total: 1, page: 1, pageSize: 200 }),

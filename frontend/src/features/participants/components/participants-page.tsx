@@ -8,6 +8,8 @@ import { PageHeader } from '../../../components/page-header';
 import { ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { formatDate } from '../../../lib/format';
+import { useSession } from '../../../lib/session/session-context';
+import { useGroups } from '../api/get-groups';
 import { useSites } from '../api/get-sites';
 import {
   PARTICIPANT_SORTS,
@@ -39,6 +41,10 @@ export function ParticipantsPage() {
   const [searchText, setSearchText] = useState(query.search);
   const participants = useParticipants(query);
   const sites = useSites();
+  const { me } = useSession();
+  const groups = useGroups(me.study?.id ?? null);
+  const groupName = (groupId: string | null) =>
+    groupId === null ? '—' : (groups.data?.find((g) => g.id === groupId)?.name ?? '…');
   const siteCode = (siteId: string) => sites.data?.find((site) => site.id === siteId)?.code ?? '…';
 
   const update = (change: Partial<ParticipantQuery>) => {
@@ -159,8 +165,19 @@ export function ParticipantsPage() {
                 render: (_, row) => siteCode(row.siteId),
               },
               {
+                key: 'enrolmentDate',
+                title: 'Enrolment',
+                render: (_, row) => formatDate(row.enrolmentDate),
+              },
+              {
+                key: 'group',
+                title: 'Group',
+                render: (_, row) => groupName(row.groupId),
+              },
+              {
                 key: 'createdAt',
-                title: 'Enrolled in Gyre',
+                title: 'Registered in Gyre',
+                responsive: ['md'],
                 sorter: true,
                 sortOrder: sortOrder('createdAt'),
                 render: (_, row) => formatDate(row.createdAt),
@@ -168,6 +185,7 @@ export function ParticipantsPage() {
               {
                 key: 'updatedAt',
                 title: 'Last change',
+                responsive: ['md'],
                 render: (_, row) => formatDate(row.updatedAt),
               },
             ]}

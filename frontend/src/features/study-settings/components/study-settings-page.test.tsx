@@ -7,6 +7,7 @@ import { meFor, STUDY } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
 import { PHONE_WIDTH_PX, setViewportWidth } from '../../../test/viewport';
+import { serveSchedule } from '../testing/schedule-fixtures';
 import { VERSION_1, VERSION_2 } from '../testing/settings-fixtures';
 
 installMswServer();
@@ -22,6 +23,7 @@ const page = (items: AnalysisSettingsDto[]): Page<AnalysisSettingsDto> => ({
 /** The study's settings as the server holds them; POSTs answer with `answer`. */
 function serveSettings(answer?: (change: AnalysisSettingsChange) => Response) {
   const state = { versions: [VERSION_2, VERSION_1], posted: [] as AnalysisSettingsChange[] };
+  serveSchedule();
   server.use(
     http.get(base, () => HttpResponse.json(state.versions[0])),
     http.get(`${base}/versions`, ({ request }) => {
@@ -145,6 +147,26 @@ describe('Study settings', { timeout: 60_000 }, () => {
     expect(screen.queryByRole('form', { name: 'Analysis settings' })).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: /Save version/ })).not.toBeInTheDocument();
     expect(screen.getByText(/Read-only/)).toBeInTheDocument();
+  });
+
+  it('shows the visit schedule, groups and trend settings read-only', async () => {
+    serveSettings();
+    await openSettings('monitor');
+    const schedule = await screen.findByRole('region', { name: 'Visit schedule' });
+    const rows = await within(schedule).findAllByRole('row');
+    expect(rows.slice(1).map((row) => row.textContent)).toEqual([
+      'Baselineday 0−0 / +7 days',
+      'Week 12day 84−14 / +14 days',
+      'Week 26day 182−14 / +14 days',
+    ]);
+    expect(within(schedule).queryByRole('button', { name: 'Add planned visit' })).toBeNull();
+    const groups = screen.getByRole('region', { name: 'Groups' });
+    expect(await within(groups).findByText('Arm A')).toBeInTheDocument();
+    expect(within(groups).queryByRole('button', { name: /Delete/ })).toBeNull();
+    const trend = screen.getByRole('region', { name: 'Trend settings' });
+    expect(trend).toHaveTextContent('Visits needed for a trend3 visits');
+    expect(trend).toHaveTextContent('Days those visits must span90 days');
+    expect(within(trend).queryByRole('button')).toBeNull();
   });
 
   it('lays the current settings out one per line at phone width', async () => {

@@ -10,10 +10,14 @@ import { useAnalysisSettings } from '../api/get-analysis-settings';
 import { SettingsForm } from './settings-form';
 import { SettingsSummary } from './settings-summary';
 import { SettingsVersions } from './settings-versions';
+import { GroupsSection } from './groups-section';
+import { TrendSettingsSection } from './trend-settings-section';
+import { VisitScheduleSection } from './visit-schedule-section';
 
 /**
  * Study settings (analyst edits, monitor reads): the analysis settings in force, every
- * version with what it changed and why, and the form for a new version.
+ * version with what it changed and why, and the form for a new version; below, the study's
+ * visit schedule, groups and trend settings, which an admin sets up (Study set-up).
  */
 export function StudySettingsPage() {
   const { me } = useSession();
@@ -110,6 +114,20 @@ export function StudySettingsPage() {
           Read-only: the study&apos;s analysts change these settings.
         </Typography.Paragraph>
       )}
+      <Row gutter={[20, 20]} style={{ marginTop: 20 }}>
+        <Col xs={24} xl={14}>
+          <VisitScheduleSection studyId={studyId} canManage={false} />
+        </Col>
+        <Col xs={24} xl={10}>
+          <div style={{ display: 'grid', gap: 20 }}>
+            <GroupsSection studyId={studyId} canManage={false} />
+            {me.study !== null && <TrendSettingsSection study={me.study} canManage={false} />}
+          </div>
+        </Col>
+      </Row>
+      <Typography.Paragraph type="secondary" style={{ marginTop: 16 }}>
+        The visit schedule, groups and trend settings are set up by an administrator.
+      </Typography.Paragraph>
     </>
   );
 }

@@ -1,0 +1,88 @@
+import { ApiProperty, ApiPropertyOptional, PartialType } from '@nestjs/swagger';
+import { Transform } from 'class-transformer';
+import { IsInt, IsNotEmpty, IsOptional, IsString, Max, MaxLength, Min } from 'class-validator';
+import type { PlannedVisitView, StudyGroupView } from '@gyre/shared';
+
+const trimmed = ({ value }: { value: unknown }): unknown =>
+  typeof value === 'string' ? value.trim() : value;
+
+/** About 30 years: a schedule day beyond it is a typing error, not a protocol. */
+const MAX_DAY = 11_000;
+
+export class CreatePlannedVisitDto {
+  @ApiProperty({
+    example: 'Week 12',
+    description: 'Unique within the study; at most 40 characters',
+  })
+  @Transform(trimmed)
+  @IsString()
+  @IsNotEmpty()
+  @MaxLength(40)
+  name: string;
+
+  @ApiProperty({ example: 84, description: 'Days after enrolment (enrolment = day 0)' })
+  @IsInt()
+  @Min(0)
+  @Max(MAX_DAY)
+  targetDay: number;
+
+  @ApiProperty({ example: 14, description: 'Days before the target day still in window' })
+  @IsInt()
+  @Min(0)
+  @Max(MAX_DAY)
+  windowBeforeDays: number;
+
+  @ApiProperty({ example: 14, description: 'Days after the target day still in window' })
+  @IsInt()
+  @Min(0)
+  @Max(MAX_DAY)
+  windowAfterDays: number;
+
+  @ApiPropertyOptional({ description: 'Order in the schedule; default: after the last one' })
+  @IsOptional()
+  @IsInt()
+  @Min(0)
+  @Max(1000)
+  position?: number;
+}
+
+export class UpdatePlannedVisitDto extends PartialType(CreatePlannedVisitDto) {}
+
+export class CreateStudyGroupDto {
+  @ApiProperty({ example: 'Arm A', description: 'Unique within the study; at most 60 characters' })
+  @Transform(trimmed)
+  @IsString()
+  @IsNotEmpty()
+  @MaxLength(60)
+  name: string;
+
+  @ApiPropertyOptional({ example: 'Active training, twice a week' })
+  @IsOptional()
+  @Transform(trimmed)
+  @IsString()
+  @MaxLength(2000)
+  description?: string;
+}
+
+export class UpdateStudyGroupDto extends PartialType(CreateStudyGroupDto) {}
+
+export class PlannedVisitResponseDto implements PlannedVisitView {
+  @ApiProperty() id: string;
+  @ApiProperty() studyId: string;
+  @ApiProperty({ example: 'Week 12' }) name: string;
+  @ApiProperty({ example: 84 }) targetDay: number;
+  @ApiProperty({ example: 14 }) windowBeforeDays: number;
+  @ApiProperty({ example: 14 }) windowAfterDays: number;
+  @ApiProperty() position: number;
+  @ApiProperty() createdAt: string;
+  @ApiProperty() updatedAt: string;
+}
+
+export class StudyGroupResponseDto implements StudyGroupView {
+  @ApiProperty() id: string;
+  @ApiProperty() studyId: string;
+  @ApiProperty({ example: 'Arm A' }) name: string;
+  @ApiProperty() description: string;
+  @ApiProperty() createdAt: string;
+  @ApiProperty() updatedAt: string;
+}
