@@ -3,6 +3,7 @@ import { Link } from 'react-router-dom';
 import { navEntriesFor } from '../../app/navigation';
 import { useAppAbility } from '../../lib/session/ability';
 import { useSession } from '../../lib/session/session-context';
+import { Worklist } from './components/worklist';
 
 const WHAT_EACH_SCREEN_IS_FOR: Record<string, string> = {
   Intake: 'Register visits and upload resting and task recordings; follow their checks.',
@@ -15,11 +16,15 @@ const WHAT_EACH_SCREEN_IS_FOR: Record<string, string> = {
   Outbox: 'E-mail Gyre has sent or is about to send.',
 };
 
-/** The start screen after sign-in: the screens of the user's role, one line each. */
+/**
+ * The start screen after sign-in: the worklist for those who have one (analysts, monitors,
+ * technicians), then the screens of the user's role, one line each.
+ */
 export function HomePage() {
   const { me } = useSession();
   const ability = useAppAbility();
   const entries = navEntriesFor(me.user.role, ability);
+  const hasWorklist = ability.can('read', 'Worklist');
   return (
     <>
       <Typography.Title level={2} style={{ marginTop: 0 }}>
@@ -30,12 +35,25 @@ export function HomePage() {
         frequency at rest, and whether the rhythm slows after stimulus onset in the task.
         {me.study !== null && ` You work in ${me.study.name} (${me.study.code}).`}
       </Typography.Paragraph>
+      {hasWorklist && (
+        <div style={{ marginBottom: 24 }}>
+          <Worklist />
+        </div>
+      )}
+      {hasWorklist && (
+        <Typography.Title level={4} style={{ marginTop: 0 }}>
+          Your screens
+        </Typography.Title>
+      )}
       <Row gutter={[16, 16]}>
         {entries.map((entry) => (
           <Col key={entry.path} xs={24} md={12} xl={8}>
             <Link to={entry.path} style={{ display: 'block', height: '100%' }}>
-              <Card hoverable style={{ height: '100%' }}>
-                <Typography.Title level={4} style={{ marginTop: 0, color: '#24525A' }}>
+              <Card hoverable size={hasWorklist ? 'small' : 'medium'} style={{ height: '100%' }}>
+                <Typography.Title
+                  level={hasWorklist ? 5 : 4}
+                  style={{ marginTop: 0, color: '#24525A' }}
+                >
                   {entry.label}
                 </Typography.Title>
                 <Typography.Text type="secondary">

@@ -17,6 +17,8 @@ import { useVisitFlag } from '../api/get-visit-flag';
 import { useVisitOverride } from '../api/get-visit-override';
 import { useVisitRecordings } from '../api/get-visit-recordings';
 import { useVisitReport } from '../api/get-visit-report';
+import { useVisitReview } from '../api/get-visit-review';
+import { useMarkVisitReviewed } from '../api/mark-visit-reviewed';
 import { useRaiseFlag } from '../api/raise-flag';
 import { useSaveVisitOverride } from '../api/save-visit-override';
 import { channelOptionsOf } from './channel-names';
@@ -29,6 +31,7 @@ import { PersonName } from './person-name';
 import { QualityChecks } from './quality-checks';
 import { RecordingStateNotice } from './recording-state-notice';
 import { RestSpectrumChart } from './rest-spectrum-chart';
+import { ReviewMark } from './review-mark';
 import { RunNotices } from './run-notices';
 import { RunSummary } from './run-summary';
 import { IN_PROGRESS, useShownResults } from './shown-results';
@@ -140,6 +143,8 @@ export function ReviewPage({
   const raiseFlag = useRaiseFlag(visitId);
   const clearFlag = useClearFlag(visitId);
   const saveOverride = useSaveVisitOverride(visitId);
+  const review = useVisitReview(visitId, ability.can('read', 'VisitReview'));
+  const markReviewed = useMarkVisitReviewed(visitId);
   const [overrideOpen, setOverrideOpen] = useState(false);
 
   const task = recordings.data === undefined ? null : recordingOfKind(recordings.data, 'task');
@@ -151,6 +156,12 @@ export function ReviewPage({
   useEffect(() => {
     if (taskRunId !== null) void reloadFlag();
   }, [taskRunId, reloadFlag]);
+  // Whether the visit counts as reviewed follows its current runs and recordings' states.
+  const runsNow = [task, rest].map((r) => `${r?.id}:${r?.state}:${r?.latestRunId}`).join(' ');
+  const reloadReview = review.mutate;
+  useEffect(() => {
+    void reloadReview();
+  }, [runsNow, reloadReview]);
 
   const canRerun = ability.can('rerun', 'AnalysisRun');
   const canChangeOverride = ability.can('update', 'AnalysisSettings') && canRerun;
@@ -356,6 +367,34 @@ export function ReviewPage({
             </Col>
             <Col xs={24} xl={8}>
               <Flex vertical gap={20}>
+                {ability.can('read', 'VisitReview') && (
+                  <Card title="Review of this visit" aria-label="Review of this visit">
+                    {review.error !== undefined ? (
+                      <ErrorState
+                        title="The review state could not be loaded"
+                        error={review.error}
+                        onRetry={() => void review.mutate()}
+                      />
+                    ) : review.data === undefined ? (
+                      <Skeleton active paragraph={{ rows: 1 }} />
+                    ) : (
+                      <ReviewMark
+                        state={review.data}
+                        meId={me.user.id}
+                        onMark={async (fingerprint) => {
+                          try {
+                            await markReviewed(fingerprint);
+                            message.success('The visit is marked reviewed.');
+                          } catch (error) {
+                            // Results may have moved on: show the state as it is now.
+                            await review.mutate();
+                            throw error;
+                          }
+                        }}
+                      />
+                    )}
+                  </Card>
+                )}
                 <Card title="Slowing flag" aria-label="Slowing flag">
                   {flag.error !== undefined ? (
                     <ErrorState

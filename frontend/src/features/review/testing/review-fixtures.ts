@@ -10,6 +10,7 @@ import type {
   TrialRasterDto,
   VisitAnalysisOverrideDto,
   VisitFlagDto,
+  VisitReviewStateDto,
   VisitView,
 } from '@gyre/shared';
 import { STUDY, SITE } from '../../../test/fixtures';
@@ -21,6 +22,8 @@ export const PARTICIPANT: ParticipantView = {
   studyId: STUDY.id,
   siteId: SITE.id,
   code: 'AC-0042',
+  enrolmentDate: null,
+  groupId: null,
   createdAt: '2025-01-06T09:00:00.000Z',
   updatedAt: '2025-01-06T09:00:00.000Z',
 };
@@ -32,6 +35,15 @@ export const VISIT: VisitView = {
   siteId: SITE.id,
   label: 'Baseline visit',
   visitDate: '2025-02-03',
+  plannedVisitId: null,
+  schedule: {
+    plannedVisitId: null,
+    plannedVisitName: null,
+    studyDay: null,
+    targetDay: null,
+    daysFromTarget: null,
+    window: 'unplanned',
+  },
   createdAt: '2025-02-03T09:00:00.000Z',
   updatedAt: '2025-02-03T09:00:00.000Z',
 };
@@ -316,4 +328,16 @@ export const REPORT: ReportDto = {
   state: 'draft',
   createdAt: '2025-02-03T10:05:00.000Z',
   updatedAt: '2025-02-03T10:05:00.000Z',
+};
+
+/** The visit's results, not yet reviewed by anyone (fingerprint invented). */
+export const NOT_REVIEWED: VisitReviewStateDto = {
+  visitId: VISIT.id,
+  currentFingerprint: '5'.repeat(64),
+  currentRunIds: ['resting:run-rest', 'task:run-task'],
+  latest: null,
+  reviewed: false,
+  changedSinceReview: false,
+  canReview: true,
+  cannotReviewReason: null,
 };

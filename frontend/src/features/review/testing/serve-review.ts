@@ -7,6 +7,7 @@ import type {
   TrialRasterDto,
   VisitAnalysisOverrideDto,
   VisitFlagDto,
+  VisitReviewStateDto,
 } from '@gyre/shared';
 import { SIGNATURE_MEANING } from '@gyre/shared';
 import { http, HttpResponse } from 'msw';
@@ -16,6 +17,7 @@ import {
   CHANNEL_CURVES,
   NO_FLAG,
   NO_OVERRIDE,
+  NOT_REVIEWED,
   PARTICIPANT,
   RECORDINGS,
   REPORT,
@@ -38,6 +40,8 @@ export interface ReviewServed {
   flag?: VisitFlagDto | null;
   override?: VisitAnalysisOverrideDto;
   settings?: AnalysisSettingsDto;
+  /** `null` leaves the review state to the test's own handler. */
+  review?: VisitReviewStateDto | null;
 }
 
 /** Every request the Review screen makes for one visit, answered from the fixtures. */
@@ -47,6 +51,13 @@ export function serveReview(served: ReviewServed = {}) {
     server.use(
       http.get('/api/recordings/rec-task/results/raster', () =>
         HttpResponse.json(served.raster ?? TASK_RASTER),
+      ),
+    );
+  }
+  if (served.review !== null) {
+    server.use(
+      http.get(`/api/visits/${VISIT.id}/review`, () =>
+        HttpResponse.json(served.review ?? NOT_REVIEWED),
       ),
     );
   }

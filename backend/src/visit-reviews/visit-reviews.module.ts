@@ -1,0 +1,13 @@
+import { Module } from '@nestjs/common';
+import { RecordingsModule } from '../recordings/recordings.module';
+import { VisitsModule } from '../visits/visits.module';
+import { VisitReviewsController } from './visit-reviews.controller';
+import { VisitReviewsService } from './visit-reviews.service';
+
+@Module({
+  imports: [RecordingsModule, VisitsModule],
+  controllers: [VisitReviewsController],
+  providers: [VisitReviewsService],
+  exports: [VisitReviewsService],
+})
+export class VisitReviewsModule {}

@@ -1,0 +1,210 @@
+import { randomUUID } from 'node:crypto';
+import { Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource, Repository } from 'typeorm';
+import { subject } from '@gyre/shared';
+import type { VisitReviewDto, VisitReviewStateDto } from '@gyre/shared';
+import { AuditService } from '../audit/audit.service';
+import type { Caller } from '../auth/decorators';
+import { WriteTransactions } from '../common/database/write-transactions.service';
+import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { nowIso } from '../common/time';
+import type { Recording } from '../recordings/recording.entity';
+import { RecordingsService } from '../recordings/recordings.service';
+import type { Visit } from '../visits/visit.entity';
+import { VisitsService } from '../visits/visits.service';
+import { reviewFingerprintOf } from './review-fingerprint';
+import { VisitReview } from './visit-review.entity';
+import { VisitReviewsError } from './visit-reviews.errors';
+
+const COMPUTING: ReadonlySet<Recording['state']> = new Set(['queued', 'computing']);
+
+/**
+ * "Visit reviewed": an analyst records that they have looked at the visit's current results.
+ * The act names the runs it covered by their fingerprint; when the visit's results change (a
+ * new run, a replaced recording), the fingerprint differs and the visit is no longer reviewed.
+ */
+@Injectable()
+export class VisitReviewsService {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly writes: WriteTransactions,
+    private readonly audit: AuditService,
+    private readonly visits: VisitsService,
+    private readonly recordings: RecordingsService,
+  ) {}
+
+  async state(caller: Caller, visitId: string): Promise<VisitReviewStateDto> {
+    const visit = await this.visitInScope(caller, 'read', visitId);
+    return this.stateOf(caller, visit);
+  }
+
+  async markReviewed(
+    caller: Caller,
+    visitId: string,
+    seenFingerprint: string,
+  ): Promise<VisitReviewStateDto> {
+    const visit = await this.visitInScope(caller, 'create', visitId);
+    await this.writes.run(async (manager) => {
+      // Read again inside the write transaction: nothing can change the runs meanwhile.
+      const current = await this.recordings.currentOfVisits([visitId]);
+      const now = reviewFingerprintOf(current);
+      if (now === null) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          VisitReviewsError.NoResults,
+          `Visit ${visitId} has no results to review yet.`,
+          { visitId },
+        );
+      }
+      if (now.fingerprint !== seenFingerprint) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          VisitReviewsError.ResultsChanged,
+          `fingerprint: the visit's results have changed since you loaded them (found ${seenFingerprint}, now ${now.fingerprint}); review them again.`,
+          { field: 'fingerprint', found: seenFingerprint, expected: now.fingerprint },
+        );
+      }
+      const computing = current.filter((r) => COMPUTING.has(r.state));
+      if (computing.length > 0) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          VisitReviewsError.Computing,
+          `The ${computing.map((r) => r.kind).join(' and ')} recording of visit ${visitId} is being computed; review when it is done.`,
+          { visitId, recordingIds: computing.map((r) => r.id) },
+        );
+      }
+      const latest = await this.latestOf(visitId, manager.getRepository(VisitReview));
+      if (latest !== null && latest.fingerprint === now.fingerprint) {
+        throw new GyreException(
+          ErrorKind.Conflict,
+          VisitReviewsError.AlreadyReviewed,
+          `${latest.reviewedByName} reviewed these results of visit ${visitId} at ${latest.reviewedAt}; nothing has changed since.`,
+          { reviewId: latest.id, reviewedAt: latest.reviewedAt },
+        );
+      }
+      const row = Object.assign(new VisitReview(), {
+        id: randomUUID(),
+        visitId,
+        participantId: visit.participantId,
+        studyId: visit.studyId,
+        siteId: visit.siteId,
+        reviewedById: caller.user.id,
+        reviewedByName: caller.user.name,
+        reviewedAt: nowIso(),
+        fingerprint: now.fingerprint,
+        runIdsJson: JSON.stringify(now.runIds),
+      });
+      await manager.getRepository(VisitReview).insert(row);
+      await this.audit.record({
+        actor: caller.user,
+        action: 'review',
+        objectType: 'VisitReview',
+        objectId: row.id,
+        studyId: visit.studyId,
+        siteId: visit.siteId,
+        before: latest === null ? null : toVisitReviewDto(latest),
+        after: toVisitReviewDto(row),
+        clientIp: caller.clientIp,
+      });
+    });
+    return this.stateOf(caller, visit);
+  }
+
+  /**
+   * For other modules (the worklist), unscoped: the newest review of each visit among
+   * `visitIds`, or of every visit of `studyIds` when `visitIds` is null. One query; SQLite
+   * takes the bare columns of an aggregate query from the row that holds MAX()
+   * (sqlite.org/lang_select.html, "bare columns in an aggregate query").
+   */
+  async latestByVisit(filter: {
+    studyIds: readonly string[];
+    visitIds?: readonly string[];
+  }): Promise<Map<string, VisitReviewDto>> {
+    const query = this.dataSource
+      .getRepository(VisitReview)
+      .createQueryBuilder('review')
+      .select('review.visitId', 'visitId')
+      .addSelect('MAX(review.reviewedAt)', 'reviewedAt')
+      .addSelect('review.id', 'id')
+      .addSelect('review.reviewedById', 'reviewedById')
+      .addSelect('review.reviewedByName', 'reviewedByName')
+      .addSelect('review.fingerprint', 'fingerprint')
+      .addSelect('review.runIdsJson', 'runIdsJson')
+      .where('review.studyId IN (:...studyIds)', { studyIds: [...filter.studyIds] })
+      .groupBy('review.visitId');
+    if (filter.visitIds !== undefined) {
+      if (filter.visitIds.length === 0) return new Map();
+      query.andWhere('review.visitId IN (:...visitIds)', { visitIds: [...filter.visitIds] });
+    }
+    const rows: VisitReview[] = await query.getRawMany();
+    return new Map(rows.map((row) => [row.visitId, toVisitReviewDto(row)]));
+  }
+
+  private async stateOf(caller: Caller, visit: Visit): Promise<VisitReviewStateDto> {
+    const current = await this.recordings.currentOfVisits([visit.id]);
+    const now = reviewFingerprintOf(current);
+    const latest = await this.latestOf(visit.id, this.dataSource.getRepository(VisitReview));
+    const reviewed = latest !== null && now !== null && latest.fingerprint === now.fingerprint;
+    const mayReview = caller.ability.can('create', subject('VisitReview', visit));
+    const computing = current.some((r) => COMPUTING.has(r.state));
+    const cannotReviewReason = !mayReview
+      ? 'Your role does not mark visits reviewed.'
+      : now === null
+        ? 'This visit has no results to review yet.'
+        : reviewed
+          ? 'These results are reviewed; nothing has changed since.'
+          : computing
+            ? 'A recording of this visit is being computed; review when it is done.'
+            : null;
+    return {
+      visitId: visit.id,
+      currentFingerprint: now?.fingerprint ?? null,
+      currentRunIds: now?.runIds ?? [],
+      latest: latest === null ? null : toVisitReviewDto(latest),
+      reviewed,
+      changedSinceReview: latest !== null && !reviewed,
+      canReview: cannotReviewReason === null,
+      cannotReviewReason,
+    };
+  }
+
+  private latestOf(
+    visitId: string,
+    repository: Repository<VisitReview>,
+  ): Promise<VisitReview | null> {
+    return repository.findOne({
+      where: { visitId },
+      order: { reviewedAt: 'DESC', id: 'DESC' },
+    });
+  }
+
+  private async visitInScope(
+    caller: Caller,
+    action: 'read' | 'create',
+    visitId: string,
+  ): Promise<Visit> {
+    const visit = await this.visits.inScopeOf(caller, action, 'VisitReview', visitId);
+    if (visit === null) {
+      throw new GyreException(
+        ErrorKind.NotFound,
+        VisitReviewsError.VisitNotFound,
+        `No visit ${visitId}.`,
+        { visitId },
+      );
+    }
+    return visit;
+  }
+}
+
+export function toVisitReviewDto(row: VisitReview): VisitReviewDto {
+  return {
+    id: row.id,
+    visitId: row.visitId,
+    reviewedById: row.reviewedById,
+    reviewedByName: row.reviewedByName,
+    reviewedAt: row.reviewedAt,
+    fingerprint: row.fingerprint,
+    runIds: JSON.parse(row.runIdsJson) as string[],
+  };
+}

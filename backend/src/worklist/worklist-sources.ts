@@ -1,0 +1,188 @@
+import { Injectable } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource, In } from 'typeorm';
+import type { RecordingKind, RecordingState, ReportState } from '@gyre/shared';
+import { AnalysisRun } from '../analysis/analysis-run.entity';
+import { applyScope } from '../auth/access-scope';
+import type { Caller } from '../auth/decorators';
+import { Participant } from '../participants/participant.entity';
+import { Recording } from '../recordings/recording.entity';
+import { toRecordingDto } from '../recordings/recording.view';
+import { CURRENT_STATES } from '../recordings/recordings.service';
+import { Report } from '../reports/report.entity';
+import { ReportRevision } from '../signoff/report-revision.entity';
+import { Visit } from '../visits/visit.entity';
+
+/** The visit columns every worklist item shows. */
+export interface VisitFacts {
+  visitId: string;
+  visitLabel: string;
+  visitDate: string;
+  participantId: string;
+  participantCode: string;
+  siteId: string;
+}
+
+/** A current recording with the headline of the run behind its numbers. */
+export interface CurrentRecordingRow extends VisitFacts {
+  recordingId: string;
+  kind: RecordingKind;
+  state: RecordingState;
+  latestRunId: string | null;
+  updatedAt: string;
+  failureMessage: string | null;
+  runCreatedAt: string | null;
+  suggestsSlowing: boolean;
+  roiDeltaFHz: number | null;
+}
+
+export interface ReportRow {
+  visitId: string;
+  state: ReportState;
+  createdAt: string;
+  lastSignedAt: string | null;
+  lastRevision: number | null;
+}
+
+/** A technician's recording that is not superseded (current, in its checks, or rejected). */
+export interface UploadRow extends VisitFacts {
+  recordingId: string;
+  kind: RecordingKind;
+  state: RecordingState;
+  createdAt: string;
+  updatedAt: string;
+  failureMessage: string | null;
+  rejection: string | null;
+  hasWarnings: boolean;
+}
+
+/**
+ * The worklist's reads: a fixed number of narrow queries, each over the caller's scope, with
+ * only the columns the list shows (never a run's curves or summary), so the cost grows with
+ * the number of rows, not with a query per visit. The rows belong to recordings/, analysis/,
+ * reports/ and signoff/; this only reads them.
+ */
+@Injectable()
+export class WorklistSources {
+  constructor(@InjectDataSource() private readonly dataSource: DataSource) {}
+
+  /** Every current recording in the caller's scope, with its run's headline. One query. */
+  async currentRecordings(caller: Caller): Promise<CurrentRecordingRow[]> {
+    const query = this.dataSource
+      .getRepository(Recording)
+      .createQueryBuilder('r')
+      .innerJoin(Visit, 'v', 'v.id = r.visitId')
+      .innerJoin(Participant, 'p', 'p.id = v.participantId')
+      .leftJoin(AnalysisRun, 'run', 'run.id = r.latestRunId')
+      .select('r.id', 'recordingId')
+      .addSelect('r.kind', 'kind')
+      .addSelect('r.state', 'state')
+      .addSelect('r.latestRunId', 'latestRunId')
+      .addSelect('r.updatedAt', 'updatedAt')
+      .addSelect('r.failureMessage', 'failureMessage')
+      .addSelect('run.createdAt', 'runCreatedAt')
+      .addSelect('run.suggestsSlowing', 'suggestsSlowing')
+      .addSelect('run.roiDeltaFHz', 'roiDeltaFHz')
+      .addSelect(VISIT_COLUMNS)
+      .where('r.state IN (:...states)', { states: [...CURRENT_STATES] });
+    applyScope(query, 'r', caller.ability, 'read', 'Recording');
+    const rows: Array<
+      Omit<CurrentRecordingRow, 'suggestsSlowing'> & { suggestsSlowing: number | null }
+    > = await query.getRawMany();
+    return rows.map((row) => ({ ...row, suggestsSlowing: row.suggestsSlowing === 1 }));
+  }
+
+  /** Every report in scope with its newest signature, if any. One query. */
+  async reports(caller: Caller): Promise<ReportRow[]> {
+    const query = this.dataSource
+      .getRepository(Report)
+      .createQueryBuilder('rep')
+      .leftJoin(ReportRevision, 'rev', 'rev.reportId = rep.id')
+      .select('rep.visitId', 'visitId')
+      .addSelect('rep.state', 'state')
+      .addSelect('rep.createdAt', 'createdAt')
+      .addSelect('MAX(rev.signedAt)', 'lastSignedAt')
+      .addSelect('MAX(rev.revision)', 'lastRevision')
+      .groupBy('rep.id');
+    applyScope(query, 'rep', caller.ability, 'read', 'Report');
+    return query.getRawMany();
+  }
+
+  /** A technician's recordings that are not superseded, in their site. One query. */
+  async uploads(caller: Caller): Promise<UploadRow[]> {
+    const query = this.dataSource
+      .getRepository(Recording)
+      .createQueryBuilder('r')
+      .innerJoin(Visit, 'v', 'v.id = r.visitId')
+      .innerJoin(Participant, 'p', 'p.id = v.participantId')
+      .select('r.id', 'recordingId')
+      .addSelect('r.kind', 'kind')
+      .addSelect('r.state', 'state')
+      .addSelect('r.createdAt', 'createdAt')
+      .addSelect('r.updatedAt', 'updatedAt')
+      .addSelect('r.failureMessage', 'failureMessage')
+      // SQLite's JSON1 functions: only the message leaves the rejection, only a yes/no the
+      // warnings (their wording comes from the recording's own view, for the few that have any).
+      .addSelect("json_extract(r.rejectionJson, '$.message')", 'rejection')
+      .addSelect(
+        `(r.kindConfirmed = 1
+          OR (r.resultWarningsJson IS NOT NULL AND json_array_length(r.resultWarningsJson) > 0)
+          OR (r.resultWarningsJson IS NULL AND r.factsJson IS NOT NULL
+              AND json_array_length(r.factsJson, '$.warnings') > 0))`,
+        'hasWarnings',
+      )
+      .addSelect(VISIT_COLUMNS)
+      .where('r.state != :superseded', { superseded: 'superseded' });
+    applyScope(query, 'r', caller.ability, 'read', 'Recording');
+    const rows: Array<Omit<UploadRow, 'hasWarnings'> & { hasWarnings: number }> =
+      await query.getRawMany();
+    return rows.map((row) => ({ ...row, hasWarnings: row.hasWarnings === 1 }));
+  }
+
+  /** The visits in the caller's scope dated on or before `date` (`YYYY-MM-DD`). One query. */
+  async visitsUpTo(caller: Caller, date: string): Promise<VisitFacts[]> {
+    const query = this.dataSource
+      .getRepository(Visit)
+      .createQueryBuilder('v')
+      .innerJoin(Participant, 'p', 'p.id = v.participantId')
+      .select(VISIT_COLUMNS)
+      .where('v.visitDate <= :date', { date });
+    applyScope(query, 'v', caller.ability, 'read', 'Visit');
+    return query.getRawMany();
+  }
+
+  /** The warnings of these recordings, worded as the recording's own view words them. */
+  async warningsOf(recordingIds: readonly string[]): Promise<Map<string, string[]>> {
+    const out = new Map<string, string[]>();
+    for (let i = 0; i < recordingIds.length; i += CHUNK) {
+      const rows = await this.dataSource.getRepository(Recording).find({
+        where: { id: In(recordingIds.slice(i, i + CHUNK)) },
+        // Not the onset list (thousands of onsets for a long task): the view needs only these.
+        select: {
+          id: true,
+          kind: true,
+          kindConfirmed: true,
+          resultWarningsJson: true,
+          factsJson: true,
+        },
+      });
+      for (const row of rows) {
+        const narrow = { ...row, csvOnsetsJson: null, rejectionJson: null, roiUsageJson: null };
+        out.set(row.id, toRecordingDto(narrow, null).warnings);
+      }
+    }
+    return out;
+  }
+}
+
+/** Bound parameters per IN (…) list, well under SQLite's limit of 32,766. */
+export const CHUNK = 500;
+
+const VISIT_COLUMNS = [
+  'v.id AS visitId',
+  'v.label AS visitLabel',
+  'v.visitDate AS visitDate',
+  'v.participantId AS participantId',
+  'v.siteId AS siteId',
+  'p.code AS participantCode',
+];

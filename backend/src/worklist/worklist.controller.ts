@@ -1,0 +1,24 @@
+import { Controller, Get, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import type { WorklistDto } from '@gyre/shared';
+import { CurrentCaller, RequirePermission } from '../auth/decorators';
+import type { Caller } from '../auth/decorators';
+import { WorklistQueryDto } from './dto/worklist-query.dto';
+import { WorklistService } from './worklist.service';
+
+@ApiTags('worklist')
+@ApiBearerAuth()
+@Controller('worklist')
+export class WorklistController {
+  constructor(private readonly worklist: WorklistService) {}
+
+  @Get()
+  @RequirePermission('read', 'Worklist')
+  @ApiOkResponse({
+    description:
+      "What waits for the caller: analysts and monitors the study's review work, technicians their site's uploads; each section with its true count",
+  })
+  get(@CurrentCaller() caller: Caller, @Query() query: WorklistQueryDto): Promise<WorklistDto> {
+    return this.worklist.forCaller(caller, query);
+  }
+}

@@ -1,0 +1,181 @@
+import type { WorklistItem, WorklistSection, WorklistSort } from '@gyre/shared';
+import { Badge, Card, Col, Flex, Pagination, Row, Segmented, Skeleton, Typography } from 'antd';
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { paths } from '../../../app/paths';
+import { GYRE_COLORS } from '../../../app/theme';
+import { ErrorState } from '../../../components/page-states';
+import { ResearchCaution } from '../../../components/research-caution';
+import { formatDate, formatDateTime } from '../../../lib/format';
+import { useWorklist } from '../api/get-worklist';
+
+/** Items a section card shows per page. */
+export const WORKLIST_PAGE = 8;
+
+const SORT_OPTIONS: { value: WorklistSort; label: string }[] = [
+  { value: 'oldest', label: 'Oldest first' },
+  { value: 'newest', label: 'Newest first' },
+  { value: 'participant', label: 'By participant' },
+];
+
+/** Where an item leads: the visit's Review, or Intake with the participant and visit chosen. */
+export function linkOf(item: WorklistItem): string {
+  if (item.link.screen === 'review') return paths.review(item.link.visitId);
+  const search = new URLSearchParams({
+    participant: item.link.participantId,
+    visit: item.link.visitId,
+  });
+  return `${paths.intake}?${search.toString()}`;
+}
+
+function ItemRow({ item }: { item: WorklistItem }) {
+  const sinceIsDay = item.since.length === 10;
+  return (
+    <li style={{ padding: '8px 0', borderBottom: `1px solid ${GYRE_COLORS.line}` }}>
+      <Flex vertical gap={2} style={{ minWidth: 0 }}>
+        <Flex wrap gap={8} justify="space-between" align="baseline">
+          <Link to={linkOf(item)} style={{ fontWeight: 600 }}>
+            {item.participantCode} · {item.visitLabel}
+          </Link>
+          <Typography.Text
+            type="secondary"
+            className="gyre-figures"
+            style={{ fontSize: 12 }}
+            title={sinceIsDay ? undefined : formatDateTime(item.since)}
+          >
+            {sinceIsDay ? 'visit of ' : 'since '}
+            {formatDate(item.since)}
+          </Typography.Text>
+        </Flex>
+        <Typography.Text style={{ overflowWrap: 'anywhere' }}>{item.what}</Typography.Text>
+      </Flex>
+    </li>
+  );
+}
+
+/**
+ * One section: its title with the true count, the first page from the whole list, and the
+ * next pages asked of the server for this section alone.
+ */
+function SectionCard({ section, sort }: { section: WorklistSection; sort: WorklistSort }) {
+  const [page, setPage] = useState(1);
+  const paged = useWorklist(
+    { sort, section: section.key, limit: WORKLIST_PAGE, offset: (page - 1) * WORKLIST_PAGE },
+    page > 1,
+  );
+  const shown = page > 1 ? paged.data?.sections[0] : section;
+  return (
+    <Card
+      size="small"
+      aria-label={section.title}
+      title={
+        <Flex gap={8} align="center">
+          <span>{section.title}</span>
+          <Badge
+            count={section.total}
+            showZero
+            overflowCount={9999}
+            style={
+              section.total > 0
+                ? { backgroundColor: GYRE_COLORS.amber }
+                : { backgroundColor: GYRE_COLORS.line, color: '#33474B' }
+            }
+            aria-label={`${section.total} items`}
+          />
+        </Flex>
+      }
+      style={{ height: '100%' }}
+    >
+      {section.total === 0 ? (
+        <Typography.Text type="secondary">Nothing waits here.</Typography.Text>
+      ) : paged.error !== undefined && page > 1 ? (
+        <ErrorState
+          title="This page could not be loaded"
+          error={paged.error}
+          onRetry={() => void paged.mutate()}
+        />
+      ) : shown === undefined ? (
+        <Skeleton active paragraph={{ rows: 3 }} />
+      ) : (
+        <>
+          <ul style={{ listStyle: 'none', margin: 0, padding: 0 }}>
+            {shown.items.map((item) => (
+              <ItemRow key={item.key} item={item} />
+            ))}
+          </ul>
+          {section.total > WORKLIST_PAGE && (
+            <Pagination
+              size="small"
+              simple
+              align="end"
+              current={page}
+              pageSize={WORKLIST_PAGE}
+              total={shown.total}
+              onChange={setPage}
+              style={{ marginTop: 8 }}
+            />
+          )}
+        </>
+      )}
+    </Card>
+  );
+}
+
+/**
+ * The worklist on the home screen: analysts see what waits for review, decision and signature
+ * in the study; monitors the same list to follow it; technicians their site's uploads that
+ * need attention. Each item links to the screen where it is dealt with.
+ */
+export function Worklist() {
+  const [sort, setSort] = useState<WorklistSort>('oldest');
+  const list = useWorklist({ sort, limit: WORKLIST_PAGE });
+  if (list.error !== undefined) {
+    return (
+      <ErrorState
+        title="The worklist could not be loaded"
+        error={list.error}
+        onRetry={() => void list.mutate()}
+      />
+    );
+  }
+  const data = list.data;
+  const waiting = data?.sections.reduce((sum, s) => sum + s.total, 0) ?? 0;
+  return (
+    <section aria-label="Worklist">
+      {data?.kind === 'review' && <ResearchCaution />}
+      <Flex wrap gap={12} justify="space-between" align="center" style={{ marginBottom: 12 }}>
+        <Typography.Title level={3} style={{ margin: 0 }}>
+          {data?.kind === 'uploads' ? 'Uploads that need attention' : 'Worklist'}
+        </Typography.Title>
+        <Segmented<WorklistSort>
+          aria-label="Order"
+          options={SORT_OPTIONS}
+          value={sort}
+          onChange={setSort}
+        />
+      </Flex>
+      {data === undefined ? (
+        <Skeleton active paragraph={{ rows: 6 }} />
+      ) : (
+        <>
+          <Typography.Paragraph type="secondary">
+            {waiting === 0
+              ? 'Nothing is waiting.'
+              : data.kind === 'uploads'
+                ? "Your site's uploads that were refused, carry warnings, failed to compute, and visits still missing a recording."
+                : data.readOnly
+                  ? 'What waits for the analysts in the study. You follow it here; marking visits reviewed is for analysts.'
+                  : 'What waits for you in the study. Open an item to review it.'}
+          </Typography.Paragraph>
+          <Row gutter={[16, 16]}>
+            {data.sections.map((section) => (
+              <Col key={section.key} xs={24} lg={12}>
+                <SectionCard key={`${section.key}-${sort}`} section={section} sort={data.sort} />
+              </Col>
+            ))}
+          </Row>
+        </>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,18 @@
+import type { VisitReviewStateDto } from '@gyre/shared';
+import useSWR from 'swr';
+import { apiFetch } from '../../../lib/api-client';
+
+/** `GET /api/visits/:visitId/review`: whether the current results are reviewed, by whom, when. */
+export const visitReviewKey = (visitId: string) =>
+  `/api/visits/${encodeURIComponent(visitId)}/review`;
+
+export function getVisitReview(visitId: string): Promise<VisitReviewStateDto> {
+  return apiFetch<VisitReviewStateDto>(visitReviewKey(visitId));
+}
+
+/** Asks only when the rules let the viewer read reviews (analysts and monitors). */
+export function useVisitReview(visitId: string, allowed: boolean) {
+  return useSWR<VisitReviewStateDto>(allowed ? visitReviewKey(visitId) : null, () =>
+    getVisitReview(visitId),
+  );
+}
