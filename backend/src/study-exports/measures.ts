@@ -1,0 +1,99 @@
+import type { ExportRecording } from './export-model';
+
+/** The measures of the exports (every one in Hz). */
+export const MEASURES = {
+  paf: 'Peak alpha frequency of the region of interest (resting recording).',
+  cog: 'Centre of gravity of alpha power in the region of interest (resting recording).',
+  delta_f:
+    'Δf: mean instantaneous frequency after onset minus before onset (task recording); negative = slowing.',
+  baseline_f:
+    'Mean instantaneous frequency in the baseline window before onset (task, per channel).',
+  post_f: 'Mean instantaneous frequency in the post-onset window (task, per channel).',
+} as const;
+export type Measure = keyof typeof MEASURES;
+
+/** One measured value: the region of interest's or one channel's. */
+export interface MeasureRow {
+  measure: Measure;
+  scope: 'roi' | 'channel';
+  /** The file's channel label; null for the region of interest. */
+  channel: string | null;
+  channelCanonical: string | null;
+  value: number | null;
+  ciLow: number | null;
+  ciHigh: number | null;
+  pValue: number | null;
+  trialsKept: number | null;
+  trialsTotal: number | null;
+  channelInRoi: boolean | null;
+  channelFlat: boolean | null;
+  channelSaturated: boolean | null;
+}
+
+const NO_EXTRAS = {
+  channel: null,
+  channelCanonical: null,
+  ciLow: null,
+  ciHigh: null,
+  pValue: null,
+  trialsKept: null,
+  trialsTotal: null,
+  channelInRoi: null,
+  channelFlat: null,
+  channelSaturated: null,
+} as const;
+
+/**
+ * The rows of one recording. The region of interest's rows are always written, with an empty
+ * value when there is none (no clear peak, no channel left), so a missing number is seen
+ * beside its reason; channel rows are written for task recordings, one per channel and measure.
+ */
+export function measuresOf(recording: ExportRecording): MeasureRow[] {
+  const { run } = recording;
+  if (recording.kind === 'resting') {
+    return [
+      { ...NO_EXTRAS, measure: 'paf', scope: 'roi', value: run.pafHz },
+      { ...NO_EXTRAS, measure: 'cog', scope: 'roi', value: run.cogHz },
+    ];
+  }
+  const rows: MeasureRow[] = [
+    {
+      ...NO_EXTRAS,
+      measure: 'delta_f',
+      scope: 'roi',
+      value: run.roiDeltaFHz,
+      ciLow: run.roiCiHz?.[0] ?? null,
+      ciHigh: run.roiCiHz?.[1] ?? null,
+      pValue: run.roiPValue,
+      trialsKept: run.trialsKept,
+      trialsTotal: run.trialsTotal,
+    },
+  ];
+  const quality = new Map(recording.quality.channels.map((c) => [c.label, c]));
+  for (const channel of recording.channels) {
+    const q = quality.get(channel.label);
+    const base = {
+      ...NO_EXTRAS,
+      scope: 'channel' as const,
+      channel: channel.label,
+      channelCanonical: channel.canonical,
+      channelInRoi: channel.inRoi,
+      channelFlat: q?.flat ?? null,
+      channelSaturated: q?.saturated ?? null,
+    };
+    rows.push(
+      {
+        ...base,
+        measure: 'delta_f',
+        value: channel.deltaFHz,
+        ciLow: channel.ciHz?.[0] ?? null,
+        ciHigh: channel.ciHz?.[1] ?? null,
+        pValue: channel.pValue,
+        trialsKept: channel.trials,
+      },
+      { ...base, measure: 'baseline_f', value: channel.baselineHz, trialsKept: channel.trials },
+      { ...base, measure: 'post_f', value: channel.postHz, trialsKept: channel.trials },
+    );
+  }
+  return rows;
+}

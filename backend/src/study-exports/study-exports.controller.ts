@@ -1,0 +1,64 @@
+import { Controller, Get, Param, ParseUUIDPipe, Res } from '@nestjs/common';
+import {
+  ApiBearerAuth,
+  ApiForbiddenResponse,
+  ApiOkResponse,
+  ApiOperation,
+  ApiProduces,
+  ApiTags,
+} from '@nestjs/swagger';
+import type { Response } from 'express';
+import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
+import { StudyExportsService } from './study-exports.service';
+
+@ApiTags('study-exports')
+@ApiBearerAuth()
+@ApiForbiddenResponse({ description: 'Only analysts and monitors (their study) and admins export' })
+@Controller('studies/:studyId')
+export class StudyExportsController {
+  constructor(private readonly exports: StudyExportsService) {}
+
+  @Get('results.csv')
+  @RequirePermission('export', 'Result')
+  @ApiOperation({
+    summary:
+      "The study's current results, one row per participant × visit × recording × measure (audited)",
+  })
+  @ApiProduces('text/csv')
+  @ApiOkResponse({ description: 'text/csv (RFC 4180); columns in results-dictionary.csv' })
+  async results(
+    @CurrentCaller() caller: Caller,
+    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Res() response: Response,
+  ): Promise<void> {
+    await this.exports.resultsCsv(caller, studyId, response);
+  }
+
+  @Get('results-dictionary.csv')
+  @RequirePermission('export', 'Result')
+  @ApiOperation({ summary: 'The data dictionary of results.csv: one row per column' })
+  @ApiProduces('text/csv')
+  @ApiOkResponse({ description: 'text/csv: column, level, type, unit, description, levels' })
+  async dictionary(
+    @CurrentCaller() caller: Caller,
+    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Res() response: Response,
+  ): Promise<void> {
+    await this.exports.dictionaryCsv(caller, studyId, response);
+  }
+
+  @Get('export.zip')
+  @RequirePermission('export', 'Result')
+  @ApiOperation({
+    summary: "The study's current results as an EEG-BIDS derivatives folder, zipped (audited)",
+  })
+  @ApiProduces('application/zip')
+  @ApiOkResponse({ description: 'application/zip, streamed' })
+  async zip(
+    @CurrentCaller() caller: Caller,
+    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Res() response: Response,
+  ): Promise<void> {
+    await this.exports.exportZip(caller, studyId, response);
+  }
+}

@@ -1,0 +1,533 @@
+/**
+ * Study results exports on the real app (real SQLite file, real analyses of generated
+ * recordings): results.csv parsed with csv-parse (RFC 4180), export.zip read with python3's
+ * zipfile (outside the project), every number compared with what `GET
+ * /api/recordings/:id/results` gives for the same run, the data dictionary and the BIDS
+ * sidecars against the columns, file names and dataset_description.json against the BIDS
+ * specification's rules, access per role, and one audit entry per download.
+ *
+ * Tolerance of the number checks: none. Each exported number must be the exact decimal string
+ * the results API's JSON writes for it (ECMAScript Number::toString, which JSON.stringify
+ * uses); a missing value is the empty field in the CSV and `n/a` in the TSVs.
+ */
+import { execFileSync } from 'node:child_process';
+import { createHash, randomUUID } from 'node:crypto';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, relative } from 'node:path';
+import { parse } from 'csv-parse/sync';
+import request from 'supertest';
+import type { RecordingDto, RecordingResultsDto } from '@gyre/shared';
+import { Visit } from '../src/visits/visit.entity';
+import { REPO } from './helpers/built-dist';
+import type { UserKey } from './helpers/seed';
+import { startTestApp, TestApp } from './helpers/test-app';
+import {
+  INVENTED_PATIENT_NAME,
+  syntheticRestEdf,
+  syntheticTaskEdf,
+  upload,
+  waitForState,
+} from './recordings-fixtures';
+
+type Row = Record<string, string>;
+
+/** The body of a download as bytes (supertest's own parsers left out). */
+function binary(
+  res: request.Response,
+  callback: (error: Error | null, body: Buffer) => void,
+): void {
+  const chunks: Buffer[] = [];
+  res.on('data', (chunk: Buffer) => chunks.push(chunk));
+  res.on('end', () => callback(null, Buffer.concat(chunks)));
+}
+
+/** The exact text JSON writes for a number; '' (CSV) or 'n/a' (TSV) for none. */
+function text(value: number | null | undefined, missing: string): string {
+  return value === null || value === undefined ? missing : JSON.stringify(value);
+}
+
+/** What the results API says for one exported row. */
+function expectedOf(results: RecordingResultsDto, row: Row) {
+  const run = results.run;
+  if (row.scope === 'roi') {
+    const value =
+      row.measure === 'paf' ? run.pafHz : row.measure === 'cog' ? run.cogHz : run.roiDeltaFHz;
+    const task = row.measure === 'delta_f';
+    return {
+      value,
+      ci_low: task ? (run.roiCiHz?.[0] ?? null) : null,
+      ci_high: task ? (run.roiCiHz?.[1] ?? null) : null,
+      p_value: task ? run.roiPValue : null,
+      trials_kept: task ? run.trialsKept : null,
+      trials_total: task ? run.trialsTotal : null,
+    };
+  }
+  const channel = results.channels.find((c) => c.label === row.channel);
+  if (channel === undefined) throw new Error(`no channel ${row.channel} in the results`);
+  const value =
+    row.measure === 'delta_f'
+      ? channel.deltaFHz
+      : row.measure === 'baseline_f'
+        ? channel.baselineHz
+        : channel.postHz;
+  const delta = row.measure === 'delta_f';
+  return {
+    value,
+    ci_low: delta ? (channel.ciHz?.[0] ?? null) : null,
+    ci_high: delta ? (channel.ciHz?.[1] ?? null) : null,
+    p_value: delta ? channel.pValue : null,
+    trials_kept: channel.trials,
+    trials_total: null,
+  };
+}
+
+/** Checks one exported row's numbers and provenance against the results API, exactly. */
+function expectRowMatches(results: RecordingResultsDto, row: Row, missing: string): number {
+  const expected = expectedOf(results, row);
+  for (const [column, value] of Object.entries(expected)) {
+    expect({ column, text: row[column] }).toEqual({ column, text: text(value, missing) });
+  }
+  const run = results.run;
+  expect(row.run_id).toBe(run.id);
+  expect(row.settings_version).toBe(text(run.settingsVersion, missing));
+  expect(row.code_version).toBe(run.codeVersion);
+  expect(row.input_sha256).toBe(run.inputChecksumSha256);
+  expect(row.input_sha256).toBe(results.source.checksumSha256);
+  expect(row.band_low_hz).toBe(text(run.bandHz[0], missing));
+  expect(row.band_high_hz).toBe(text(run.bandHz[1], missing));
+  expect(row.band_source).toBe(run.bandSource);
+  expect(row.roi_status).toBe(run.roiUsage.status);
+  expect(row.alpha_peak_prominence_db).toBe(text(results.rest?.prominenceDb, missing));
+  const stale = run.staleSettings.length === 0 ? missing : run.staleSettings.join('; ');
+  expect(row.stale_settings).toBe(stale);
+  // Numbers compared: value, CI, p, two trial counts, settings version, band, prominence.
+  return 11;
+}
+
+/** BIDS entity order (specification, Appendix "Entity table"): the entities used here. */
+const ENTITY_ORDER = ['sub', 'ses', 'task', 'acq', 'ce', 'rec', 'dir', 'run', 'desc'];
+
+/** Checks a BIDS file name: key-value entities in the table's order, alphanumeric labels. */
+function expectBidsName(name: string): { entities: Record<string, string>; suffix: string } {
+  const stem = name.replace(/\.(tsv|json)$/, '');
+  const parts = stem.split('_');
+  const suffix = parts.pop()!;
+  expect(suffix).toMatch(/^[a-zA-Z0-9]+$/);
+  const entities: Record<string, string> = {};
+  let last = -1;
+  for (const part of parts) {
+    const [key, label, ...rest] = part.split('-');
+    expect(rest).toEqual([]);
+    // Common principles, "Entities": a label is alphanumeric.
+    expect(label).toMatch(/^[a-zA-Z0-9]+$/);
+    const at = ENTITY_ORDER.indexOf(key);
+    expect(at).toBeGreaterThan(last);
+    last = at;
+    entities[key] = label;
+  }
+  return { entities, suffix };
+}
+
+function listFiles(dir: string): string[] {
+  return readdirSync(dir).flatMap((name) => {
+    const path = join(dir, name);
+    return statSync(path).isDirectory() ? listFiles(path) : [path];
+  });
+}
+
+const parseTsv = (content: string): Row[] =>
+  parse(content, { delimiter: '\t', columns: true, quote: '"', relax_quotes: false });
+
+describe('study results exports', () => {
+  let t: TestApp;
+  let studyA: string;
+  let monthSix: string;
+  const recordingIds: string[] = [];
+  const results = new Map<string, RecordingResultsDto>();
+  let workDir: string;
+
+  async function compute(
+    visitId: string,
+    user: UserKey,
+    kind: 'resting' | 'task',
+    seed: number,
+  ): Promise<void> {
+    const bytes =
+      kind === 'resting'
+        ? syntheticRestEdf({ peakHz: 9.5 + seed / 10, seed })
+        : syntheticTaskEdf({ durationS: 60, seed });
+    const response = await upload(t, user, visitId, { kind, bytes });
+    expect(response.status).toBe(201);
+    const id = (response.body as RecordingDto).id;
+    await waitForState(t, user, id, ['ready']);
+    recordingIds.push(id);
+  }
+
+  async function download(path: string, user: UserKey): Promise<request.Response> {
+    return request(t.url)
+      .get(path)
+      .set(await t.authHeader(user))
+      .buffer(true)
+      .parse(binary);
+  }
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    workDir = mkdtempSync(join(tmpdir(), 'gyre-exports-test-'));
+    studyA = t.seed.studies.A.id;
+    const admin = await t.authHeader('admin');
+    // The study's schedule: a group whose name starts like a formula, and a planned visit.
+    const group = await request(t.url)
+      .post(`/api/studies/${studyA}/groups`)
+      .set(admin)
+      .send({ name: '+Arm B, "open"' });
+    expect(group.status).toBe(201);
+    const planned = await request(t.url)
+      .post(`/api/studies/${studyA}/planned-visits`)
+      .set(admin)
+      .send({ name: 'Month 6', targetDay: 180, windowBeforeDays: 14, windowAfterDays: 14 });
+    expect(planned.status).toBe(201);
+    const participant = await request(t.url)
+      .patch(`/api/participants/${t.seed.participants.A1.id}`)
+      .set(await t.authHeader('technician'))
+      .send({
+        enrolmentDate: '2026-01-10',
+        groupId: (group.body as { id: string }).id,
+        reason: 'Enrolment recorded from the site file',
+      });
+    expect(participant.status).toBe(200);
+    // A second visit of A1-0001, on the planned visit (generated test data).
+    const at = new Date().toISOString();
+    const second: Visit = {
+      ...t.seed.visits.A1,
+      id: randomUUID(),
+      label: 'Month 6',
+      plannedVisitId: (planned.body as { id: string }).id,
+      visitDate: '2026-07-20',
+      createdAt: at,
+      updatedAt: at,
+    };
+    await t.dataSource.getRepository(Visit).insert(second);
+    monthSix = second.id;
+
+    await compute(t.seed.visits.A1.id, 'technician', 'resting', 1);
+    await compute(t.seed.visits.A1.id, 'technician', 'task', 2);
+    // Month 6 has a task recording only: its Δf falls back to 8–13 Hz (a doubt marker).
+    await compute(monthSix, 'technician', 'task', 3);
+    await compute(t.seed.visits.A2.id, 'technicianA2', 'resting', 4);
+    // Study B has numbers too, which no export of study A may hold.
+    await compute(t.seed.visits.B1.id, 'technicianB', 'resting', 5);
+
+    // A newer settings version makes every run of study A "computed with older settings".
+    const settingsPath = `/api/studies/${studyA}/analysis-settings`;
+    const analyst = await t.authHeader('analyst');
+    const current = await request(t.url).get(settingsPath).set(analyst);
+    expect(current.status).toBe(200);
+    const values = current.body as Record<string, unknown>;
+    const newer = await request(t.url)
+      .post(settingsPath)
+      .set(analyst)
+      .send({
+        bandHz: values.bandHz,
+        method: values.method,
+        morletCycles: values.morletCycles,
+        epochWindowS: values.epochWindowS,
+        baselineWindowS: values.baselineWindowS,
+        postWindowS: [0.35, 0.95],
+        rejectionThresholdUv: values.rejectionThresholdUv,
+        flagThresholdHz: values.flagThresholdHz,
+        roi: values.roi,
+        onsetLabel: values.onsetLabel,
+        reason: 'Pilot review: later window after onset',
+      });
+    expect(newer.status).toBe(201);
+
+    for (const id of recordingIds) {
+      const response = await request(t.url).get(`/api/recordings/${id}/results`).set(analyst);
+      if (response.status === 200) results.set(id, response.body as RecordingResultsDto);
+    }
+  }, 240_000);
+
+  afterAll(async () => {
+    rmSync(workDir, { recursive: true, force: true });
+    await t.close();
+  });
+
+  it('results.csv: every number equals the results API, doubts and schedule as columns', async () => {
+    const response = await download(`/api/studies/${studyA}/results.csv`, 'analyst');
+    expect(response.status).toBe(200);
+    expect(response.headers['content-type']).toMatch(/^text\/csv/);
+    expect(response.headers['content-disposition']).toMatch(
+      new RegExp(
+        `^attachment; filename="gyre-${t.seed.studies.A.code}-results-\\d{4}-\\d{2}-\\d{2}\\.csv"$`,
+      ),
+    );
+    expect(response.headers['cache-control']).toBe('no-store');
+    const body = response.body as Buffer;
+    // RFC 4180: CRLF line ends.
+    expect(body.toString('utf8').split('\r\n')[0]).toMatch(/^study_code,site_code,/);
+    const rows: Row[] = parse(body, { columns: true, record_delimiter: '\r\n' });
+    const studyARecordings = recordingIds.slice(0, 4);
+    expect(new Set(rows.map((r) => r.recording_id))).toEqual(new Set(studyARecordings));
+    let compared = 0;
+    for (const row of rows) {
+      const api = results.get(row.recording_id)!;
+      compared += expectRowMatches(api, row, '');
+    }
+    // Resting: paf and cog; task: ROI Δf + 3 per channel of the 4-channel files.
+    expect(rows).toHaveLength(2 + (1 + 3 * 4) + (1 + 3 * 4) + 2);
+    expect(compared).toBe(rows.length * 11);
+    // The schedule's columns (shared visitScheduleStatus: day 0 = 2026-01-10; 2026-07-20 is day 191).
+    const month = rows.filter((r) => r.visit_label === 'Month 6');
+    expect(month.length).toBeGreaterThan(0);
+    for (const row of month) {
+      expect(row).toMatchObject({
+        planned_visit: 'Month 6',
+        study_day: '191',
+        days_from_target: '11',
+        visit_window: 'in',
+        enrolment_date: '2026-01-10',
+        // A leading "+" is guarded against spreadsheet formulas; the quotes and comma survive.
+        group: `'+Arm B, "open"`,
+        band_source: 'default',
+        missing_resting_iaf: 'true',
+      });
+    }
+    const a2 = rows.filter((r) => r.participant_code === 'A2-0001');
+    const a2Site = t.seed.sites.A2.code;
+    expect(a2.map((r) => [r.site_code, r.group, r.visit_window])).toEqual([
+      [a2Site, '', 'unplanned'],
+      [a2Site, '', 'unplanned'],
+    ]);
+    // Every task run was computed with the older post window: the marker is on each of its
+    // rows (a resting run does not use that window, so its rows carry none).
+    const task = rows.filter((r) => r.recording_kind === 'task');
+    expect(task.every((r) => /post window/i.test(r.stale_settings))).toBe(true);
+    expect(rows.filter((r) => r.recording_kind === 'resting').map((r) => r.stale_settings)).toEqual(
+      ['', '', '', ''],
+    );
+    // The default region names a channel the generated files lack: a partial region.
+    const partial = rows.filter((r) => r.roi_status === 'partial');
+    expect(partial.every((r) => /\((missing|flat|saturated)\)/.test(r.roi_channels_left_out))).toBe(
+      true,
+    );
+    expect(body.toString('utf8')).not.toContain(INVENTED_PATIENT_NAME);
+    expect(body.toString('utf8')).not.toContain('B1-0001');
+    // The header names the payload's checksum; the audit entry repeats it (below).
+    expect(response.headers['x-content-sha256']).toBe(
+      createHash('sha256').update(body).digest('hex'),
+    );
+  });
+
+  it('results-dictionary.csv describes every column of results.csv, in order', async () => {
+    const csv = await download(`/api/studies/${studyA}/results.csv`, 'monitor');
+    const header = (csv.body as Buffer).toString('utf8').split('\r\n')[0].split(',');
+    const dictionary = await download(`/api/studies/${studyA}/results-dictionary.csv`, 'monitor');
+    expect(dictionary.status).toBe(200);
+    const entries: Row[] = parse(dictionary.body as Buffer, { columns: true });
+    expect(entries.map((e) => e.column)).toEqual(header);
+    for (const entry of entries) {
+      expect(entry.description.length).toBeGreaterThan(10);
+      expect(['visit', 'recording', 'measure']).toContain(entry.level);
+    }
+    expect(entries.find((e) => e.column === 'value')?.unit).toBe('Hz');
+  });
+
+  it('export.zip: a BIDS derivatives folder whose numbers equal the results API', async () => {
+    const response = await download(`/api/studies/${studyA}/export.zip`, 'admin');
+    expect(response.status).toBe(200);
+    expect(response.headers['content-type']).toBe('application/zip');
+    expect(response.headers['content-disposition']).toMatch(
+      new RegExp(
+        `^attachment; filename="gyre-${t.seed.studies.A.code}-derivatives-\\d{4}-\\d{2}-\\d{2}\\.zip"$`,
+      ),
+    );
+    expect(response.headers['cache-control']).toBe('no-store');
+    const zipPath = join(workDir, 'export.zip');
+    writeFileSync(zipPath, response.body as Buffer);
+    const out = join(workDir, 'unzipped');
+    // python3's zipfile (outside the project): CRCs checked, then every member extracted.
+    const names = JSON.parse(
+      execFileSync('python3', [
+        '-c',
+        [
+          'import json, sys, zipfile',
+          'z = zipfile.ZipFile(sys.argv[1])',
+          'assert z.testzip() is None',
+          'z.extractall(sys.argv[2])',
+          'print(json.dumps(z.namelist()))',
+        ].join('\n'),
+        zipPath,
+        out,
+      ]).toString('utf8'),
+    ) as string[];
+    const root = join(out, `gyre-${t.seed.studies.A.code}-derivatives`);
+    const files = listFiles(root).map((p) => relative(root, p).split('\\').join('/'));
+    expect(names.length).toBe(files.length);
+
+    // dataset_description.json (Derivatives, "Derived dataset and pipeline description").
+    const description = JSON.parse(
+      readFileSync(join(root, 'dataset_description.json'), 'utf8'),
+    ) as Record<string, unknown>;
+    const version = (
+      JSON.parse(readFileSync(join(REPO, 'backend', 'package.json'), 'utf8')) as {
+        version: string;
+      }
+    ).version;
+    expect(description.DatasetType).toBe('derivative');
+    expect(typeof description.Name).toBe('string');
+    expect(description.BIDSVersion).toMatch(/^\d+\.\d+\.\d+$/);
+    expect(description.GeneratedBy).toEqual([
+      expect.objectContaining({ Name: 'Gyre', Version: version }),
+    ]);
+
+    // participants.tsv maps each participant code to its subject label, case-insensitively unique.
+    const participants = parseTsv(readFileSync(join(root, 'participants.tsv'), 'utf8'));
+    expect(participants.map((p) => [p.participant_id, p.participant_code])).toEqual([
+      ['sub-A10001', 'A1-0001'],
+      ['sub-A20001', 'A2-0001'],
+    ]);
+    const sessions = parseTsv(
+      readFileSync(join(root, 'sub-A10001/sub-A10001_sessions.tsv'), 'utf8'),
+    );
+    expect(sessions.map((s) => [s.session_id, s.visit_label, s.planned_visit])).toEqual([
+      ['ses-V1', 'V1', 'n/a'],
+      ['ses-Month6', 'Month 6', 'Month 6'],
+    ]);
+    // No formula guard in the TSVs: the group's name as typed.
+    expect(parseTsv(readFileSync(join(root, 'participants.tsv'), 'utf8'))[0].group).toBe(
+      '+Arm B, "open"',
+    );
+
+    let measureFiles = 0;
+    let compared = 0;
+    const labels = new Set<string>();
+    for (const file of files) {
+      const top = [
+        'dataset_description.json',
+        'README.md',
+        'participants.tsv',
+        'participants.json',
+      ];
+      if (top.includes(file)) continue;
+      const parts = file.split('/');
+      const name = parts[parts.length - 1];
+      const { entities, suffix } = expectBidsName(name);
+      // The folders repeat the file's own entities (Common principles, "Filesystem structure").
+      expect(parts[0]).toBe(`sub-${entities.sub}`);
+      labels.add(`sub ${entities.sub.toLowerCase()}`);
+      if (suffix === 'sessions') {
+        expect(parts).toHaveLength(2);
+        continue;
+      }
+      expect(parts).toEqual([`sub-${entities.sub}`, `ses-${entities.ses}`, 'eeg', name]);
+      expect(suffix).toBe('measures');
+      expect(Object.keys(entities)).toEqual(['sub', 'ses', 'task', 'desc']);
+      if (!name.endsWith('.tsv')) continue;
+      measureFiles += 1;
+      const content = readFileSync(join(root, file), 'utf8');
+      const rows = parseTsv(content);
+      // Tabular files: a missing value is "n/a", never an empty cell.
+      for (const row of rows) expect(Object.values(row)).not.toContain('');
+      const sidecar = JSON.parse(
+        readFileSync(join(root, file.replace(/\.tsv$/, '.json')), 'utf8'),
+      ) as Record<string, { Description?: string; Units?: string }>;
+      for (const column of Object.keys(rows[0])) {
+        expect({ column, described: typeof sidecar[column]?.Description }).toEqual({
+          column,
+          described: 'string',
+        });
+      }
+      for (const column of ['value', 'ci_low', 'ci_high', 'band_low_hz', 'band_high_hz']) {
+        expect(sidecar[column].Units).toBe('Hz');
+      }
+      for (const row of rows) {
+        const api = results.get(row.recording_id)!;
+        expect(api).toBeDefined();
+        expect(entities.task).toBe(api.run.kind === 'resting' ? 'rest' : 'stimulus');
+        compared += expectRowMatches(api, row, 'n/a');
+      }
+    }
+    expect(measureFiles).toBe(4);
+    expect(compared).toBe((2 + 13 + 13 + 2) * 11);
+    // Every TSV at any level has its sidecar, and each sidecar describes every column.
+    for (const file of files.filter((f) => f.endsWith('.tsv'))) {
+      const header = readFileSync(join(root, file), 'utf8').split('\n')[0].split('\t');
+      const sidecar = JSON.parse(readFileSync(join(root, file.replace(/\.tsv$/, '.json')), 'utf8'));
+      expect(Object.keys(sidecar).sort()).toEqual([...header].sort());
+    }
+    for (const file of files) {
+      expect(readFileSync(join(root, file), 'utf8')).not.toContain(INVENTED_PATIENT_NAME);
+    }
+    expect(files.some((f) => f.includes('B10001'))).toBe(false);
+
+    // The manifest checksum the header names is that of the files received.
+    const manifest = createHash('sha256');
+    for (const name of names.filter((n) => !n.endsWith('/'))) {
+      const digest = createHash('sha256')
+        .update(readFileSync(join(out, name)))
+        .digest('hex');
+      manifest.update(`${digest}  ${name}\n`);
+    }
+    expect(response.headers['x-content-manifest-sha256']).toBe(manifest.digest('hex'));
+  });
+
+  it('refuses technicians and coordinators (403), other studies (404) and bad ids (400)', async () => {
+    for (const user of ['technician', 'coordinator'] as const) {
+      for (const path of ['results.csv', 'export.zip', 'results-dictionary.csv']) {
+        const response = await request(t.url)
+          .get(`/api/studies/${studyA}/${path}`)
+          .set(await t.authHeader(user));
+        expect([user, path, response.status]).toEqual([user, path, 403]);
+      }
+    }
+    const other = await request(t.url)
+      .get(`/api/studies/${t.seed.studies.B.id}/results.csv`)
+      .set(await t.authHeader('analyst'));
+    expect(other.status).toBe(404);
+    const bad = await request(t.url)
+      .get('/api/studies/not-a-study/export.zip')
+      .set(await t.authHeader('analyst'));
+    expect(bad.status).toBe(400);
+  });
+
+  it('writes one audit entry per download, naming who, which export, counts and checksum', async () => {
+    const before = (await t.dataSource.query(
+      `SELECT COUNT(*) AS n FROM "audit_entry" WHERE "action" = 'export' AND "objectType" = 'Study'`,
+    )) as Array<{ n: number }>;
+    const csv = await download(`/api/studies/${studyA}/results.csv`, 'monitor');
+    const zip = await download(`/api/studies/${studyA}/export.zip`, 'analyst');
+    const entries = (await t.dataSource.query(
+      `SELECT "actorId", "objectId", "studyId", "after" FROM "audit_entry"
+       WHERE "action" = 'export' AND "objectType" = 'Study' ORDER BY "seq" DESC LIMIT 2`,
+    )) as Array<{ actorId: string; objectId: string; studyId: string; after: string }>;
+    const after = (
+      (await t.dataSource.query(
+        `SELECT COUNT(*) AS n FROM "audit_entry" WHERE "action" = 'export' AND "objectType" = 'Study'`,
+      )) as Array<{ n: number }>
+    )[0].n;
+    expect(after - before[0].n).toBe(2);
+    const [zipEntry, csvEntry] = entries;
+    const csvRows = parse(csv.body as Buffer, { columns: true }) as Row[];
+    expect(csvEntry).toMatchObject({
+      actorId: t.seed.users.monitor.id,
+      objectId: studyA,
+      studyId: studyA,
+    });
+    expect(JSON.parse(csvEntry.after)).toMatchObject({
+      export: 'results.csv',
+      rows: csvRows.length,
+      sha256: createHash('sha256')
+        .update(csv.body as Buffer)
+        .digest('hex'),
+    });
+    expect(zipEntry).toMatchObject({ actorId: t.seed.users.analyst.id, objectId: studyA });
+    expect(JSON.parse(zipEntry.after)).toMatchObject({
+      export: 'export.zip',
+      rows: csvRows.length,
+      manifestSha256: zip.headers['x-content-manifest-sha256'],
+    });
+    expect(JSON.parse(zipEntry.after).files).toBeGreaterThan(8);
+  });
+});
