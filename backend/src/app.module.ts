@@ -20,6 +20,7 @@ import { JobsModule } from './jobs/jobs.module';
 import { QueueModule } from './queue/queue.module';
 import { ProcessingModule } from './processing/processing.module';
 import { RecordingsModule } from './recordings/recordings.module';
+import { BulkUploadsModule } from './bulk-uploads/bulk-uploads.module';
 import { FlagsModule } from './flags/flags.module';
 import { TrajectoryModule } from './trajectory/trajectory.module';
 import { SignoffModule } from './signoff/signoff.module';
@@ -55,6 +56,7 @@ export class AppModule implements NestModule {
         QueueModule,
         JobsModule,
         RecordingsModule,
+        BulkUploadsModule,
         ProcessingModule,
         FlagsModule,
         TrajectoryModule,

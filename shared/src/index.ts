@@ -10,3 +10,4 @@ export * from './signoff';
 export * from './worker-tokens';
 export * from './worklist';
 export * from './visit-schedule';
+export * from './bulk-uploads';

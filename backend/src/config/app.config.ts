@@ -22,6 +22,9 @@ export interface AppConfig {
   publicUrl: string;
   /** The largest recording accepted, in bytes (inclusive). */
   uploadMaxBytes: number;
+  /** Bulk upload: most manifest rows, and most bytes of all its files together. */
+  bulkUploadMaxRows: number;
+  bulkUploadMaxBytes: number;
   logLevel: string;
   /** Express's `trust proxy`: false (the default) believes no X-Forwarded-For at all. */
   trustProxy: TrustProxy;
@@ -41,6 +44,9 @@ export interface RemoteConfig {
 }
 
 const DEFAULT_UPLOAD_MAX_BYTES = 2 * 1024 ** 3;
+// A study day's worth of visits at a site; the bytes stay within one request's patience.
+const DEFAULT_BULK_UPLOAD_MAX_ROWS = 200;
+const DEFAULT_BULK_UPLOAD_MAX_BYTES = 8 * 1024 ** 3;
 // Enough for every worker of a few machines to hold one job and have the next one waiting;
 // more would only show recordings as `computing` while they wait in Redis.
 const DEFAULT_REMOTE_DISPATCH_LIMIT = 32;
@@ -70,6 +76,8 @@ export function buildAppConfig(env: EnvironmentVariables): AppConfig {
     smtpUrl: env.SMTP_URL ?? null,
     publicUrl: (env.PUBLIC_URL ?? `http://localhost:${port}`).replace(/\/+$/, ''),
     uploadMaxBytes: env.UPLOAD_MAX_BYTES ?? DEFAULT_UPLOAD_MAX_BYTES,
+    bulkUploadMaxRows: env.BULK_UPLOAD_MAX_ROWS ?? DEFAULT_BULK_UPLOAD_MAX_ROWS,
+    bulkUploadMaxBytes: env.BULK_UPLOAD_MAX_BYTES ?? DEFAULT_BULK_UPLOAD_MAX_BYTES,
     logLevel: env.LOG_LEVEL ?? (nodeEnv === 'test' ? 'warn' : 'log'),
     trustProxy: trustProxyOf(env.TRUST_PROXY),
     remote:

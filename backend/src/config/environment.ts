@@ -78,6 +78,20 @@ export class EnvironmentVariables {
   @Min(1024)
   UPLOAD_MAX_BYTES?: number;
 
+  /** Bulk upload: most manifest rows in one request. */
+  @IsOptional()
+  @Transform(toInt)
+  @IsInt()
+  @Min(1)
+  BULK_UPLOAD_MAX_ROWS?: number;
+
+  /** Bulk upload: most bytes of all files of one request together. */
+  @IsOptional()
+  @Transform(toInt)
+  @IsInt()
+  @Min(1024)
+  BULK_UPLOAD_MAX_BYTES?: number;
+
   @IsOptional()
   @IsIn(['error', 'warn', 'log', 'debug', 'verbose'])
   LOG_LEVEL?: string;
@@ -159,6 +173,8 @@ class EnvironmentVariablesKeys implements Record<keyof EnvironmentVariables, und
   SMTP_URL = undefined;
   PUBLIC_URL = undefined;
   UPLOAD_MAX_BYTES = undefined;
+  BULK_UPLOAD_MAX_ROWS = undefined;
+  BULK_UPLOAD_MAX_BYTES = undefined;
   LOG_LEVEL = undefined;
   TRUST_PROXY = undefined;
   REDIS_URL = undefined;

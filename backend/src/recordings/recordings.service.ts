@@ -48,6 +48,23 @@ import {
 import { RecordingsError } from './recordings.errors';
 import { kindMismatch, kindWarning } from './kind-check';
 import { formError, StoredUpload } from './upload/upload-receiver';
+import type { ReceivedFile } from './upload/multipart-upload';
+
+/** A file that passed the upload checks, ready to become a recording. */
+export interface AcceptedFileCheck {
+  ok: true;
+  file: ReceivedFile;
+  kind: RecordingKind;
+  onsetsCsv: Buffer | null;
+  facts: RecordingFacts;
+  /** The file looks like the other kind and the kind was confirmed. */
+  kindConfirmed: boolean;
+  /** The standing warning of a confirmed kind. */
+  warning: string | null;
+}
+
+/** What `RecordingsService.checkFile` found. */
+export type FileCheck = AcceptedFileCheck | { ok: false; code: RecordingsError; message: string };
 
 /** States in which a recording is the visit's current one of its kind. */
 export const CURRENT_STATES: readonly RecordingState[] = ['queued', 'computing', 'ready', 'failed'];
@@ -603,37 +620,7 @@ export class RecordingsService {
     visit: Visit,
     upload: StoredUpload,
   ): Promise<Recording> {
-    const now = new Date().toISOString();
-    const row = Object.assign(new Recording(), {
-      id: randomUUID(),
-      studyId: visit.studyId,
-      siteId: visit.siteId,
-      participantId: visit.participantId,
-      visitId: visit.id,
-      kind: upload.kind,
-      state: 'received' as const,
-      checksumSha256: upload.file.sha256,
-      sizeBytes: upload.file.sizeBytes,
-      storedFile: null,
-      factsJson: null,
-      csvOnsetsJson: null,
-      onsetsChecksumSha256:
-        upload.onsetsCsv === null
-          ? null
-          : createHash('sha256').update(upload.onsetsCsv).digest('hex'),
-      rejectionJson: null,
-      kindConfirmed: false,
-      replacesId: upload.replaces?.recordingId ?? null,
-      replacementReason: upload.replaces?.reason ?? null,
-      supersededById: null,
-      latestRunId: null,
-      roiUsageJson: null,
-      resultWarningsJson: null,
-      failureMessage: null,
-      uploadedById: caller.user.id,
-      createdAt: now,
-      updatedAt: now,
-    });
+    const row = receivedRow(caller, visit, upload);
     await this.writes.run(async (tx) => {
       const duplicate = await tx.getRepository(Recording).findOne({
         where: { visitId: visit.id, checksumSha256: row.checksumSha256, state: Not('rejected') },
@@ -819,9 +806,214 @@ export class RecordingsService {
     });
   }
 
+  // ---- Bulk upload (bulk-uploads/): the same checks and writes, split so that nothing of a
+  // refused batch is created. The bulk module decides; this module still writes every row.
+
+  /**
+   * Checks a received file exactly as an upload is checked (the validation lane, then the
+   * kind check) without creating a recording or writing anything.
+   */
+  async checkFile(
+    file: ReceivedFile,
+    kind: RecordingKind,
+    onsetsCsv: Buffer | null,
+    confirmKind: boolean,
+  ): Promise<FileCheck> {
+    const outcome = await this.pool
+      .validate({
+        filePath: file.tempPath,
+        kind,
+        onsetsCsv: onsetsCsv === null ? null : onsetsCsv.toString('utf8'),
+      })
+      .catch((error: unknown) => ({
+        ok: false as const,
+        message: `The file could not be checked: ${error instanceof Error ? error.message : String(error)}`,
+      }));
+    if (!outcome.ok) return { ok: false, code: RecordingsError.Rejected, message: outcome.message };
+    const mismatch = kindMismatch(kind, outcome.facts.stimulusOnsetCount);
+    if (mismatch !== null && !confirmKind) {
+      return {
+        ok: false,
+        code: RecordingsError.KindUnconfirmed,
+        message: mismatch.rejection.message,
+      };
+    }
+    return {
+      ok: true,
+      file,
+      kind,
+      onsetsCsv,
+      facts: outcome.facts,
+      kindConfirmed: mismatch !== null,
+      warning: mismatch === null ? null : kindWarning(kind, outcome.facts.stimulusOnsetCount),
+    };
+  }
+
+  /**
+   * Why a file of `kind` cannot join the visit without a replacement (the same file is
+   * already there, or the visit has a current recording of the kind); null when it can.
+   */
+  async conflictWithVisit(
+    visitId: string,
+    kind: RecordingKind,
+    sha256: string,
+  ): Promise<string | null> {
+    const duplicate = await this.dataSource.getRepository(Recording).findOne({
+      where: { visitId, checksumSha256: sha256, state: Not('rejected') },
+    });
+    if (duplicate !== null) return duplicateError(duplicate.id, sha256).message;
+    const current = await this.dataSource.getRepository(Recording).findOne({
+      where: { visitId, kind, state: In([...CURRENT_STATES]) },
+    });
+    return current === null
+      ? null
+      : `The visit already has a current ${kind} recording (${current.id}, ${current.state}); a bulk upload does not replace recordings: replace it with a single upload, with a reason.`;
+  }
+
+  /**
+   * Moves a checked file to `uploads/<checksum>.edf` (named by content: an identical stored
+   * file is kept). Returns whether this call put it there, so a rollback can take it away.
+   */
+  async storeCheckedFile(check: AcceptedFileCheck): Promise<boolean> {
+    const target = join(this.config.uploadsDir, `${check.file.sha256}.edf`);
+    await mkdir(this.config.uploadsDir, { recursive: true });
+    const exists = await stat(target).then(
+      () => true,
+      () => false,
+    );
+    if (!exists) await rename(check.file.tempPath, target);
+    return !exists;
+  }
+
+  /**
+   * Inside the caller's transaction: a checked file becomes the visit's queued recording with
+   * its job, through the same moves and audit entries as a single upload (upload, validate,
+   * accept). Its file must be stored (`storeCheckedFile`) before the transaction commits.
+   */
+  async createAccepted(
+    tx: EntityManager,
+    caller: Caller,
+    visit: Pick<Visit, 'id' | 'studyId' | 'siteId' | 'participantId'>,
+    check: AcceptedFileCheck,
+  ): Promise<Recording> {
+    const upload: StoredUpload = {
+      file: check.file,
+      onsetsCsv: check.onsetsCsv,
+      kind: check.kind,
+      confirmKind: check.kindConfirmed,
+      replaces: null,
+    };
+    const row = receivedRow(caller, visit, upload);
+    await this.lifecycle.create(tx, row, {
+      actor: caller.user,
+      action: 'upload',
+      clientIp: caller.clientIp,
+      after: {
+        kind: row.kind,
+        visitId: row.visitId,
+        checksumSha256: row.checksumSha256,
+        sizeBytes: row.sizeBytes,
+        onsetsChecksumSha256: row.onsetsChecksumSha256,
+        replacesId: null,
+        bulk: true,
+      },
+    });
+    await this.lifecycle.transition(tx, row, 'validating', {
+      actor: caller.user,
+      action: 'validate',
+      clientIp: caller.clientIp,
+    });
+    const { csvOnsets, ...rest } = check.facts;
+    const accepted = await this.lifecycle.transition(
+      tx,
+      row,
+      'queued',
+      {
+        actor: caller.user,
+        action: 'accept',
+        clientIp: caller.clientIp,
+        reason: check.warning,
+        after: {
+          durationS: check.facts.durationS,
+          channels: check.facts.channelLabels.length,
+          stimulusOnsetCount: check.facts.stimulusOnsetCount,
+          csvOnsetCount: csvOnsets?.length ?? null,
+          kindConfirmed: check.kindConfirmed,
+        },
+      },
+      {
+        storedFile: `${row.checksumSha256}.edf`,
+        factsJson: JSON.stringify(rest),
+        csvOnsetsJson: csvOnsets === null ? null : JSON.stringify(csvOnsets),
+        kindConfirmed: check.kindConfirmed,
+      },
+    );
+    await this.queue.enqueue<ComputationPayload>(tx, {
+      lane: ANALYSIS_LANE,
+      subjectId: row.id,
+      payload: {
+        recordingId: row.id,
+        trigger: 'upload',
+        requestedById: caller.user.id,
+        reason: null,
+      },
+    });
+    return accepted;
+  }
+
+  /** After a bulk transaction rolled back: the stored files it put there and nobody names. */
+  async discardStoredFiles(sha256s: readonly string[]): Promise<void> {
+    for (const sha of sha256s) await this.removeIfUnreferenced(`${sha}.edf`);
+  }
+
+  /** After a bulk transaction committed: listeners hear of the new queued recordings. */
+  async announceAccepted(ids: readonly string[]): Promise<void> {
+    await this.announce(ids);
+    if (ids.length > 0) this.events.emit(RecordingEvents.ComputationQueued);
+  }
+
   private emit(row: Recording, error: string | null): void {
     this.stateEvents.emit({ recordingId: row.id, state: row.state, progressPercent: null, error });
   }
+}
+
+/** A new recording row, `received`, of this upload to this visit. */
+function receivedRow(
+  caller: Caller,
+  visit: Pick<Visit, 'id' | 'studyId' | 'siteId' | 'participantId'>,
+  upload: StoredUpload,
+): Recording {
+  const now = new Date().toISOString();
+  return Object.assign(new Recording(), {
+    id: randomUUID(),
+    studyId: visit.studyId,
+    siteId: visit.siteId,
+    participantId: visit.participantId,
+    visitId: visit.id,
+    kind: upload.kind,
+    state: 'received' as const,
+    checksumSha256: upload.file.sha256,
+    sizeBytes: upload.file.sizeBytes,
+    storedFile: null,
+    factsJson: null,
+    csvOnsetsJson: null,
+    onsetsChecksumSha256:
+      upload.onsetsCsv === null
+        ? null
+        : createHash('sha256').update(upload.onsetsCsv).digest('hex'),
+    rejectionJson: null,
+    kindConfirmed: false,
+    replacesId: upload.replaces?.recordingId ?? null,
+    replacementReason: upload.replaces?.reason ?? null,
+    supersededById: null,
+    latestRunId: null,
+    roiUsageJson: null,
+    resultWarningsJson: null,
+    failureMessage: null,
+    uploadedById: caller.user.id,
+    createdAt: now,
+    updatedAt: now,
+  });
 }
 
 function duplicateError(recordingId: string, checksumSha256: string): GyreException {

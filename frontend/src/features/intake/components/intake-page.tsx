@@ -17,6 +17,7 @@ import { useDue } from '../api/due';
 import { useParticipants } from '../api/participants';
 import { useGroups, usePlannedVisits } from '../api/study-schedule';
 import { useVisits } from '../api/visits';
+import { BulkUploadPanel } from './bulk-upload-panel';
 import { DueCard } from './due-card';
 import { NewParticipantForm } from './new-participant-form';
 import { NewVisitForm } from './new-visit-form';
@@ -221,6 +222,9 @@ export function IntakePage() {
             />
             <RecordingsTable visitId={visit.id} />
           </>
+        )}
+        {studyId !== null && ability.can('upload', 'Recording') && (
+          <BulkUploadPanel studyId={studyId} />
         )}
       </Space>
       {participant !== null && (

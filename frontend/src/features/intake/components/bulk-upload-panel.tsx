@@ -1,0 +1,228 @@
+import type { BulkRowStatus, BulkUploadReport, BulkUploadRowReport } from '@gyre/shared';
+import { BULK_MANIFEST_COLUMNS } from '@gyre/shared';
+import { Alert, Button, Card, Flex, Progress, Table, Tag, Typography, Upload } from 'antd';
+import type { TableColumnsType, UploadFile } from 'antd';
+import { useState } from 'react';
+import { ApiError } from '../../../lib/api-client';
+import { reportOfError, useBulkUpload } from '../api/bulk-upload';
+
+const MANIFEST_NAME = 'manifest.csv';
+
+const STATUS_TAG: Record<BulkRowStatus, { color: string; text: string }> = {
+  ok: { color: 'green', text: 'ready' },
+  warning: { color: 'gold', text: 'warning' },
+  error: { color: 'red', text: 'error' },
+};
+
+const COLUMNS: TableColumnsType<BulkUploadRowReport> = [
+  { title: 'Row', dataIndex: 'row', width: 56 },
+  { title: 'Participant', dataIndex: 'participantCode' },
+  { title: 'Planned visit', dataIndex: 'plannedVisit' },
+  { title: 'Kind', dataIndex: 'kind' },
+  {
+    title: 'File',
+    dataIndex: 'file',
+    render: (_: string, row) =>
+      row.onsetsFile === null ? row.file : `${row.file} + ${row.onsetsFile}`,
+  },
+  {
+    title: 'Status',
+    dataIndex: 'status',
+    render: (status: BulkRowStatus) => (
+      <Tag color={STATUS_TAG[status].color}>{STATUS_TAG[status].text}</Tag>
+    ),
+  },
+  {
+    title: 'Message',
+    key: 'message',
+    render: (_: unknown, row) => (
+      <Flex vertical gap={2}>
+        {row.errors.map((text) => (
+          <Typography.Text key={`e-${text}`} type="danger">
+            {text}
+          </Typography.Text>
+        ))}
+        {row.warnings.map((text) => (
+          <Typography.Text key={`w-${text}`} type="warning">
+            {text}
+          </Typography.Text>
+        ))}
+        {row.errors.length + row.warnings.length === 0 &&
+          (row.visit === 'new' ? 'creates the visit' : 'adds to the existing visit')}
+      </Flex>
+    ),
+  },
+];
+
+/** What a report is about: the manifest and the files, by name and size. */
+function selectionOf(manifest: File | null, files: File[]): string {
+  return [manifest?.name ?? '', ...files.map((f) => `${f.name}:${f.size}`)].join('|');
+}
+const EMPTY_SELECTION = selectionOf(null, []);
+
+const fileOf = (item: UploadFile | undefined): File | null =>
+  (item?.originFileObj as File | undefined) ?? null;
+
+/**
+ * Bulk upload (technician): drop many recordings with their CSV manifest (picked, or the
+ * `manifest.csv` among the dropped files), check every row without importing, then import all
+ * of them at once. The server imports every row or none; this panel only shows its report.
+ */
+export function BulkUploadPanel({ studyId }: { studyId: string }) {
+  const send = useBulkUpload();
+  const [dropped, setDropped] = useState<UploadFile[]>([]);
+  const [picked, setPicked] = useState<UploadFile[]>([]);
+  const [report, setReport] = useState<BulkUploadReport | null>(null);
+  // The selection the last report is about; a change asks for a new check before importing.
+  const [reportFor, setReportFor] = useState<string | null>(null);
+  const [busy, setBusy] = useState<'check' | 'import' | null>(null);
+  const [percent, setPercent] = useState(0);
+  const [problem, setProblem] = useState<string | null>(null);
+
+  const detected = dropped.find((f) => f.name.toLowerCase() === MANIFEST_NAME);
+  const manifest = fileOf(picked[0]) ?? fileOf(detected);
+  const files = dropped
+    // A dropped manifest.csv is never sent as a recording, even beside a picked manifest.
+    .filter((f) => f !== detected)
+    .map(fileOf)
+    .filter((f): f is File => f !== null);
+  const selection = selectionOf(manifest, files);
+  const current = report !== null && reportFor === selection ? report : null;
+  const clean =
+    current !== null &&
+    current.dryRun &&
+    current.summary.errors === 0 &&
+    current.strayFiles.length === 0;
+
+  const run = async (dryRun: boolean) => {
+    if (manifest === null) return;
+    setBusy(dryRun ? 'check' : 'import');
+    setProblem(null);
+    setPercent(0);
+    try {
+      const answer = await send(
+        { studyId, manifest, files, dryRun },
+        { onProgress: (p) => setPercent(Math.round(p.percent)) },
+      );
+      setReport(answer);
+      setReportFor(answer.imported ? EMPTY_SELECTION : selection);
+      if (answer.imported) {
+        setDropped([]);
+        setPicked([]);
+      }
+    } catch (error) {
+      const refused = reportOfError(error);
+      if (refused !== null) {
+        setReport(refused);
+        setReportFor(selection);
+      } else {
+        setReport(null);
+        setProblem(error instanceof ApiError ? error.message : String(error));
+      }
+    } finally {
+      setBusy(null);
+    }
+  };
+
+  return (
+    <Card title="Bulk upload">
+      <Flex vertical gap={12}>
+        <Typography.Paragraph type="secondary" style={{ margin: 0 }}>
+          Many recordings at once, described by a CSV manifest with the columns{' '}
+          {BULK_MANIFEST_COLUMNS.join(', ')} (see the user guide). Check first: every row is
+          reported on its own, and the import takes every row or none.
+        </Typography.Paragraph>
+        <Upload.Dragger
+          multiple
+          accept=".edf,.rec,.csv"
+          fileList={dropped}
+          beforeUpload={() => false}
+          onChange={({ fileList }) => setDropped(fileList)}
+          aria-label="Recordings, onset CSVs and manifest"
+        >
+          <p>Drop the recordings, their onset CSVs and manifest.csv here, or click to choose</p>
+        </Upload.Dragger>
+        <Flex wrap gap={8} align="center">
+          <Upload
+            accept=".csv"
+            maxCount={1}
+            fileList={picked}
+            beforeUpload={() => false}
+            onChange={({ fileList }) => setPicked(fileList.slice(-1))}
+          >
+            <Button>Choose the manifest</Button>
+          </Upload>
+          <Typography.Text type={manifest === null ? 'secondary' : undefined}>
+            {manifest === null
+              ? 'No manifest yet: choose one or drop a file named manifest.csv'
+              : `Manifest: ${manifest.name}, ${files.length} file${files.length === 1 ? '' : 's'}`}
+          </Typography.Text>
+        </Flex>
+        <Flex wrap gap={8}>
+          <Button
+            onClick={() => void run(true)}
+            disabled={manifest === null || busy !== null}
+            loading={busy === 'check'}
+          >
+            Check (dry run)
+          </Button>
+          <Button
+            type="primary"
+            onClick={() => void run(false)}
+            disabled={!clean || busy !== null}
+            loading={busy === 'import'}
+          >
+            Import
+          </Button>
+        </Flex>
+        {busy !== null && <Progress percent={percent} size="small" aria-label="Sending" />}
+        {problem !== null && <Alert type="error" showIcon title={problem} />}
+        {current !== null && <ReportView report={current} />}
+      </Flex>
+    </Card>
+  );
+}
+
+function ReportView({ report }: { report: BulkUploadReport }) {
+  const { summary } = report;
+  const counts = `${summary.rows} rows: ${summary.ok} ready, ${summary.warnings} with a warning, ${summary.errors} with an error; ${summary.newVisits} new visit${summary.newVisits === 1 ? '' : 's'}.`;
+  const failed = summary.errors > 0 || report.strayFiles.length > 0;
+  return (
+    <Flex vertical gap={8}>
+      <Alert
+        type={report.imported ? 'success' : failed ? 'error' : 'info'}
+        showIcon
+        title={
+          report.imported
+            ? `Imported: ${summary.rows} recordings queued. ${counts}`
+            : failed
+              ? `Nothing was imported. ${counts} Correct the rows (or the files) and check again.`
+              : `Checked, nothing imported yet. ${counts} Import when ready.`
+        }
+      />
+      {report.strayFiles.length > 0 && (
+        <Alert
+          type="error"
+          showIcon
+          title="Files the manifest does not name"
+          description={
+            <ul style={{ margin: 0, paddingInlineStart: 18 }}>
+              {report.strayFiles.map((stray) => (
+                <li key={stray.file}>{stray.message}</li>
+              ))}
+            </ul>
+          }
+        />
+      )}
+      <Table<BulkUploadRowReport>
+        aria-label="Manifest rows"
+        size="small"
+        rowKey="row"
+        columns={COLUMNS}
+        dataSource={report.rows}
+        pagination={false}
+        scroll={{ x: 760 }}
+      />
+    </Flex>
+  );
+}
