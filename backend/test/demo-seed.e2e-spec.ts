@@ -10,7 +10,15 @@
  */
 import { statSync, readFileSync } from 'node:fs';
 import request from 'supertest';
-import type { ReportDto, RecordingDto, TrajectoryDto, VisitFlagDto, VisitView } from '@gyre/shared';
+import type {
+  ReportDto,
+  RecordingDto,
+  TrajectoryDto,
+  VisitFlagDto,
+  VisitReviewStateDto,
+  VisitView,
+  WorklistDto,
+} from '@gyre/shared';
 import { buildDemoScenario } from '../../seed/src/scenario/demo-scenario';
 import { DemoSeedResult, seedDemo } from '../../seed/src/seeder/demo-seeder';
 import { Accounts } from '../src/accounts/accounts.service';
@@ -64,8 +72,9 @@ afterAll(async () => {
 describe('demo seed (small version, generated data)', () => {
   it('seeds every upload, computes all but the one deliberately broken file', () => {
     expect(seeded.status).toBe('seeded');
-    // 3 participants × 3 visits × 2 recordings, plus the cut-off task file.
-    expect(seeded.recordingStates).toEqual({ ready: 18, rejected: 1 });
+    // 3 participants × 3 visits × 2 recordings, plus the cut-off task file, plus the resting
+    // retake that replaced (superseded) a reviewed visit's first take.
+    expect(seeded.recordingStates).toEqual({ ready: 18, rejected: 1, superseded: 1 });
   });
 
   it("gives back each participant's known answer: PAF within 0.1 Hz, Δf within 0.05 Hz, the IAF trend's sign", async () => {
@@ -160,6 +169,49 @@ describe('demo seed (small version, generated data)', () => {
     expect(flag.current?.raiseReason).toBe(buildDemoScenario('small').flag.reason);
   });
 
+  it('leaves reviewed and unreviewed visits on the worklist, one of them changed since its review', async () => {
+    const scenario = buildDemoScenario('small');
+    const analyst = await tokenOf('analyst');
+    expect(seeded.reviewedVisitIds).toHaveLength(scenario.reviewedVisits.length);
+    const replaced = seeded.replacedAfterReviewVisitId;
+    expect(replaced).not.toBeNull();
+    for (const visitId of seeded.reviewedVisitIds) {
+      const response = await request(t.url)
+        .get(`/api/visits/${visitId}/review`)
+        .set('Authorization', `Bearer ${analyst}`);
+      expect(response.status).toBe(200);
+      const state = response.body as VisitReviewStateDto;
+      expect(state.latest?.reviewedByName).toBe('Demo analyst');
+      // The replaced visit's review named the first take's run; the others still hold.
+      expect({ visitId, reviewed: state.reviewed, changed: state.changedSinceReview }).toEqual(
+        visitId === replaced
+          ? { visitId, reviewed: false, changed: true }
+          : { visitId, reviewed: true, changed: false },
+      );
+    }
+    const response = await request(t.url)
+      .get('/api/worklist?limit=50')
+      .set('Authorization', `Bearer ${analyst}`);
+    expect(response.status).toBe(200);
+    const unreviewed = (response.body as WorklistDto).sections.find((s) => s.key === 'unreviewed');
+    const allVisits = seeded.participants.flatMap((p) => p.visits.map((v) => v.visitId));
+    const expected = allVisits.filter(
+      (id) => id === replaced || !seeded.reviewedVisitIds.includes(id),
+    );
+    // 9 visits, 5 reviewed, one of those changed since: 5 wait.
+    expect(unreviewed?.total).toBe(9 - 5 + 1);
+    expect(new Set(unreviewed?.items.map((i) => i.visitId))).toEqual(new Set(expected));
+    const changed = unreviewed?.items.find((i) => i.visitId === replaced);
+    expect(changed?.what).toMatch(
+      /^Results changed since Demo analyst reviewed them on \d{4}-\d{2}-\d{2}$/,
+    );
+    // The worklist carries each visit's window: LAF-C101's Month 4 is the late one.
+    const late = unreviewed?.items.find(
+      (i) => i.participantCode === 'LAF-C101' && i.visitLabel === 'Month 4',
+    );
+    expect(late?.schedule).toMatchObject({ window: 'late', studyDay: 151, targetDay: 121 });
+  });
+
   it("gives each site's coordinator the signed report of their site, and an e-mail about it", async () => {
     expect(seeded.signedVisitIds).toHaveLength(2);
     for (const siteKey of ['cedar', 'amber']) {
@@ -193,7 +245,7 @@ describe('demo seed (small version, generated data)', () => {
       .get('/api/recordings?pageSize=200')
       .set('Authorization', `Bearer ${analyst}`);
     const recordings = (response.body as { items: RecordingDto[] }).items;
-    expect(recordings).toHaveLength(19);
+    expect(recordings).toHaveLength(20);
     for (const participant of seeded.participants) {
       const expected = technicianIds.get(participant.truth.siteKey);
       for (const recording of recordings.filter(
@@ -243,6 +295,6 @@ describe('demo seed (small version, generated data)', () => {
     const response = await request(t.url)
       .get('/api/recordings?pageSize=200')
       .set('Authorization', `Bearer ${analyst}`);
-    expect((response.body as { total: number }).total).toBe(19);
+    expect((response.body as { total: number }).total).toBe(20);
   });
 });

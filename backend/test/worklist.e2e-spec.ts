@@ -320,6 +320,12 @@ describe('worklist over a few hundred visits', () => {
   const VISITS = 400;
   const REVIEWED = 150;
   const SUGGESTING = 120;
+  /**
+   * Enrolment of the even participants. Python's calendar arithmetic:
+   * `(date(2026, 1, 1) - date(2025, 10, 1)).days == 92`, so their visit on 2026-01-01 is day 92,
+   * 8 days after Month 3's target day 84 and past its 7-day window: late by 8.
+   */
+  const ENROLLED = '2025-10-01';
 
   /** Visits of study B written straight into the database: two ready recordings with runs each. */
   beforeAll(async () => {
@@ -329,21 +335,35 @@ describe('worklist over a few hundred visits', () => {
     const uploader = t.seed.users.technicianB.id;
     const reviewer = { id: t.seed.users.analystB.id, name: await nameOf(t, 'analystB') };
     const settingsId = randomUUID();
+    const plannedId = randomUUID();
     // The runs name a job and a settings version that are not written here: only the columns
     // the worklist reads matter, so the foreign keys are off while these rows go in.
     await t.dataSource.query('PRAGMA foreign_keys = OFF');
     await t.dataSource.transaction(async (tx) => {
+      await tx.query(
+        `INSERT INTO "planned_visit" ("id", "studyId", "name", "targetDay", "windowBeforeDays", "windowAfterDays", "position", "createdAt", "updatedAt") VALUES (?, ?, 'Month 3', 84, 7, 7, 0, ?, ?)`,
+        [plannedId, studyId, '2025-09-01T00:00:00.000Z', '2025-09-01T00:00:00.000Z'],
+      );
       for (let i = 0; i < VISITS; i++) {
         const participantId = randomUUID();
         const visitId = randomUUID();
         const at = new Date(Date.UTC(2026, 0, 1, 0, i)).toISOString();
         await tx.query(
-          `INSERT INTO "participant" ("id", "studyId", "siteId", "code", "createdAt", "updatedAt") VALUES (?, ?, ?, ?, ?, ?)`,
-          [participantId, studyId, site.id, `BX-${String(i).padStart(4, '0')}`, at, at],
+          `INSERT INTO "participant" ("id", "studyId", "siteId", "code", "enrolmentDate", "createdAt", "updatedAt") VALUES (?, ?, ?, ?, ?, ?, ?)`,
+          [
+            participantId,
+            studyId,
+            site.id,
+            `BX-${String(i).padStart(4, '0')}`,
+            i % 2 === 0 ? ENROLLED : null,
+            at,
+            at,
+          ],
         );
+        // Even visits are the planned "Month 3"; odd ones are unscheduled.
         await tx.query(
-          `INSERT INTO "visit" ("id", "participantId", "studyId", "siteId", "label", "visitDate", "createdAt", "updatedAt") VALUES (?, ?, ?, ?, 'V1', '2026-01-01', ?, ?)`,
-          [visitId, participantId, studyId, site.id, at, at],
+          `INSERT INTO "visit" ("id", "participantId", "studyId", "siteId", "label", "visitDate", "plannedVisitId", "createdAt", "updatedAt") VALUES (?, ?, ?, ?, 'V1', '2026-01-01', ?, ?, ?)`,
+          [visitId, participantId, studyId, site.id, i % 2 === 0 ? plannedId : null, at, at],
         );
         const runIds: string[] = [];
         for (const kind of ['resting', 'task'] as const) {
@@ -426,6 +446,18 @@ describe('worklist over a few hundred visits', () => {
     expect(section(list, 'unreviewed').items).toHaveLength(10);
     const codes = section(list, 'unreviewed').items.map((i) => i.participantCode);
     expect(codes).toEqual([...Array(10).keys()].map((i) => `BX-${String(i).padStart(4, '0')}`));
+    // Each item carries its visit's window status, from the same queries.
+    const [planned, unscheduled] = section(list, 'unreviewed').items;
+    expect(planned.schedule).toEqual({
+      plannedVisitId: expect.any(String),
+      plannedVisitName: 'Month 3',
+      studyDay: 92,
+      targetDay: 84,
+      daysFromTarget: 8,
+      window: 'late',
+    });
+    expect(unscheduled.schedule).toMatchObject({ plannedVisitId: null, window: 'unplanned' });
+    expect(section(list, 'suggestions').items[0].schedule.window).toBe('late');
 
     const newest = await worklist(t, 'analystB', {
       sort: 'newest',

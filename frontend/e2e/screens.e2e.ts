@@ -207,7 +207,8 @@ describe('every screen of this part in Chromium, on a real server', () => {
 
     // A broken file first (refused in plain words), then the good one: once a visit has its
     // resting recording, a second resting file is an explicit replacement, not an upload.
-    const dropzoneInput = page.locator('input[type=file][accept*=".edf"]');
+    // The visit's own drop zone (Intake also has a bulk-upload input for many files).
+    const dropzoneInput = page.locator('input[type=file][aria-label^="Drop "]');
     const table = page.locator('.ant-card', { hasText: 'Recordings of this visit' });
     await dropzoneInput.setInputFiles(writeTruncatedEdf(files));
     const refused = page.getByRole('list', { name: 'Uploads' }).getByRole('alert');
@@ -358,7 +359,15 @@ describe('every screen of this part in Chromium, on a real server', () => {
     await page.getByRole('link', { name: 'Forgot your password?' }).click();
     await page.getByLabel('E-mail').fill(PEOPLE.coordinator.email);
     await page.getByRole('button', { name: 'Send the link' }).click();
-    await page.getByText('Check your e-mail').waitFor();
+    // Twice in a loaded full run this did not show within 30 s (alone it shows at once):
+    // a picture of the screen if it happens again.
+    await page
+      .getByText('Check your e-mail')
+      .waitFor({ timeout: 60_000 })
+      .catch(async (error: unknown) => {
+        await screenshot(page, 'forgot-password-failed');
+        throw error;
+      });
     await screenshot(page, 'forgot-password');
     const token = await resetToken(gyre.dataDir, PEOPLE.coordinator.email);
     await page.goto(`${gyre.baseUrl}/reset-password?token=${encodeURIComponent(token)}`, {
@@ -370,6 +379,132 @@ describe('every screen of this part in Chromium, on a real server', () => {
     await page.getByRole('button', { name: 'Save the new password' }).click();
     await page.getByText('Your password is changed. Sign in with the new one.').waitFor();
     await signIn(page, PEOPLE.coordinator.email, 'amber-harbour-lantern-7');
+    expect(problems).toEqual([]);
+  });
+
+  /**
+   * What sticks out of the window sideways: the innermost elements whose right edge passes
+   * the window's width (empty when the page fits). Scroll boxes (wide tables) clip their
+   * content, so only what widens the page itself counts.
+   */
+  async function overflowsSideways(page: Page): Promise<string[]> {
+    return page.evaluate(() => {
+      const width = document.documentElement.clientWidth;
+      if (document.documentElement.scrollWidth <= width) return [];
+      const clipped = (el: Element): boolean => {
+        for (let up = el.parentElement; up !== null; up = up.parentElement) {
+          const style = getComputedStyle(up);
+          if (style.overflowX !== 'visible') return true;
+        }
+        return false;
+      };
+      return [...document.body.querySelectorAll('*')]
+        .filter((el) => el.getBoundingClientRect().right > width + 1 && !clipped(el))
+        .filter((el) => ![...el.children].some((c) => c.getBoundingClientRect().right > width + 1))
+        .slice(0, 5)
+        .map(
+          (el) =>
+            `${el.tagName.toLowerCase()}.${el.className}: ${(el.textContent ?? '').slice(0, 40)}`,
+        );
+    });
+  }
+
+  const PHONE = { width: 390, height: 844 };
+
+  it("the admin's Study set-up shows the visit schedule and takes a new planned visit", async () => {
+    await api(gyre.baseUrl, adminToken, 'POST', `/api/studies/${study.id}/planned-visits`, {
+      name: 'Baseline',
+      targetDay: 0,
+      windowBeforeDays: 0,
+      windowAfterDays: 14,
+      position: 0,
+    });
+    const { page, problems } = await newPage();
+    await signIn(page, ADMIN.email);
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Study set-up' })
+      .click();
+    // The only study may already be chosen; choosing it again changes nothing.
+    await page.locator('#setup-study').click();
+    await page
+      .locator('.ant-select-item-option[title="ALPHA-AGE · Alpha in ageing (invented)"]')
+      .click();
+    const schedule = page.getByRole('region', { name: 'Visit schedule' });
+    await schedule.getByRole('row', { name: /Baseline/ }).waitFor();
+    await schedule.getByRole('button', { name: 'Add planned visit' }).click();
+    const dialog = page.getByRole('dialog');
+    await dialog.getByLabel('Name').fill('Month 6');
+    await dialog.getByLabel('Target day after enrolment').fill('182');
+    await dialog.getByLabel('Window before').fill('14');
+    await dialog.getByLabel('Window after').fill('14');
+    await dialog.getByRole('button', { name: 'Save planned visit' }).click();
+    await dialog.waitFor({ state: 'hidden' });
+    const month6 = schedule.getByRole('row', { name: /Month 6/ });
+    await month6.waitFor();
+    await expect(month6.innerText()).resolves.toContain('day 182');
+    // The confirmation fades out on its own; the pictures show the screen without it.
+    await page.getByText('Month 6 saved.').waitFor({ state: 'hidden' });
+    const rows = await schedule.getByRole('row').allInnerTexts();
+    // The header row, then the planned visits in schedule order.
+    expect(rows).toHaveLength(3);
+    expect(rows[1]).toMatch(/^Baseline\s+day 0\b/);
+    expect(rows[2]).toMatch(/^Month 6\s+day 182\b/);
+    await screenshot(page, 'study-setup-admin');
+    await page.setViewportSize(PHONE);
+    await schedule.getByRole('row', { name: /Month 6/ }).waitFor();
+    expect(await overflowsSideways(page)).toEqual([]);
+    await screenshot(page, 'study-setup-admin-phone');
+    expect(problems).toEqual([]);
+  });
+
+  it('an analyst works from the worklist: opens Review from it, marks the visit reviewed, and it leaves the list', async () => {
+    const { page, problems } = await newPage();
+    await signIn(page, PEOPLE.analyst.email);
+    const list = page.getByRole('region', { name: 'Worklist' });
+    // Cards and badges are named by aria-label (a generic element has no role name to find).
+    const unreviewed = list.locator('[aria-label="Results not reviewed"]');
+    // One visit has results (the resting recording) and nobody has reviewed them.
+    await unreviewed.locator('[aria-label="1 items"]').waitFor();
+    await expect(list.locator('[aria-label="0 items"]').count()).resolves.toBe(4);
+    const item = unreviewed.getByRole('listitem').filter({ hasText: 'AC-0042 · V1' });
+    await expect(item.innerText()).resolves.toContain(
+      'Results of the resting recording not reviewed yet',
+    );
+    // The visit was registered before the study had a schedule: unscheduled.
+    await item.locator('[aria-label="Schedule: Unscheduled"]').waitFor();
+    await expect(
+      page.getByRole('note', { name: 'Research use caution' }).innerText(),
+    ).resolves.toContain(CAUTION);
+    await screenshot(page, 'home-analyst-worklist');
+    await page.setViewportSize(PHONE);
+    expect(await overflowsSideways(page)).toEqual([]);
+    await screenshot(page, 'home-analyst-worklist-phone');
+    await page.setViewportSize({ width: 1280, height: 800 });
+
+    await item.getByRole('link', { name: 'AC-0042 · V1' }).click();
+    await page.waitForURL(`${gyre.baseUrl}/review/${visitId}`);
+    await page.getByRole('heading', { name: 'Review · AC-0042 · V1' }).waitFor();
+    await page.locator('[aria-label="Schedule: Unscheduled"]').waitFor();
+    await page.getByText('No one has marked this visit reviewed yet.').waitFor();
+    await page.getByRole('button', { name: 'Mark reviewed' }).click();
+    await page.getByText('The visit is marked reviewed.').waitFor();
+    await page.getByRole('button', { name: 'Mark reviewed' }).waitFor({ state: 'detached' });
+    await screenshot(page, 'review-analyst-reviewed');
+    // Opened at phone width (a chart keeps its old width for a moment after a resize).
+    await page.setViewportSize(PHONE);
+    await page.reload({ waitUntil: 'networkidle' });
+    await page.getByRole('heading', { name: 'Review · AC-0042 · V1' }).waitFor();
+    await page.getByText(/^Reviewed$/).waitFor();
+    expect(await overflowsSideways(page)).toEqual([]);
+    await screenshot(page, 'review-analyst-phone');
+    await page.setViewportSize({ width: 1280, height: 800 });
+
+    await page.goto(`${gyre.baseUrl}/`, { waitUntil: 'networkidle' });
+    await list.locator('[aria-label="0 items"]').nth(4).waitFor();
+    await expect(unreviewed.locator('[aria-label="0 items"]').count()).resolves.toBe(1);
+    await expect(unreviewed.getByText('Nothing waits here.').count()).resolves.toBe(1);
+    await page.getByText('Nothing is waiting.').waitFor();
     expect(problems).toEqual([]);
   });
 });

@@ -117,6 +117,90 @@ describe('row-level rules (this row, in or out of scope)', () => {
   });
 });
 
+describe('study-level work: reviews, worklist, schedule, groups, results export', () => {
+  // From docs/user-guide.md: "Who does what", "Results exports" (analysts, monitors and admins),
+  // "The worklist" and "Marking a visit reviewed" (analysts act, monitors follow read-only),
+  // "Study set-up" (admins set up the schedule and groups; others read them).
+  type Case = [AbilityUser['role'], Action, SubjectName, boolean];
+  const roles = ['technician', 'analyst', 'monitor', 'coordinator', 'admin'] as const;
+  const table = (
+    action: Action,
+    subjectName: SubjectName,
+    allowed: readonly AbilityUser['role'][],
+  ): Case[] => roles.map((role) => [role, action, subjectName, allowed.includes(role)]);
+  const cases: Case[] = [
+    ...table('create', 'VisitReview', ['analyst']),
+    ...table('read', 'VisitReview', ['analyst', 'monitor']),
+    ...table('update', 'VisitReview', []),
+    ...table('delete', 'VisitReview', []),
+    // The technician's worklist is their site's uploads; coordinators and admins have none.
+    ...table('read', 'Worklist', ['technician', 'analyst', 'monitor']),
+    ...table('read', 'PlannedVisit', roles),
+    ...table('create', 'PlannedVisit', ['admin']),
+    ...table('update', 'PlannedVisit', ['admin']),
+    ...table('delete', 'PlannedVisit', ['admin']),
+    ...table('read', 'StudyGroup', roles),
+    ...table('create', 'StudyGroup', ['admin']),
+    ...table('update', 'StudyGroup', ['admin']),
+    ...table('delete', 'StudyGroup', ['admin']),
+    ...table('export', 'Result', ['analyst', 'monitor', 'admin']),
+  ];
+  it.each(cases)('%s may %s %s: %s', (role, action, subjectName, expected) => {
+    expect(defineAbilityFor(users[role]).can(action, subjectName)).toBe(expected);
+  });
+
+  it('an analyst marks reviewed, and a monitor reads, visits of their own study only', () => {
+    const analyst = defineAbilityFor(users.analyst);
+    expect(analyst.can('create', row('VisitReview', { siteId: OTHER_SITE }))).toBe(true);
+    expect(analyst.can('create', row('VisitReview', { studyId: OTHER_STUDY }))).toBe(false);
+    const monitor = defineAbilityFor(users.monitor);
+    expect(monitor.can('read', row('VisitReview'))).toBe(true);
+    expect(monitor.can('read', row('VisitReview', { studyId: OTHER_STUDY }))).toBe(false);
+    expect(monitor.can('create', row('VisitReview'))).toBe(false);
+  });
+
+  it("a technician's worklist is their own site's; an analyst's is the whole study", () => {
+    const technician = defineAbilityFor(users.technician);
+    expect(technician.can('read', row('Worklist'))).toBe(true);
+    expect(technician.can('read', row('Worklist', { siteId: OTHER_SITE }))).toBe(false);
+    const analyst = defineAbilityFor(users.analyst);
+    expect(analyst.can('read', row('Worklist', { siteId: OTHER_SITE }))).toBe(true);
+    expect(analyst.can('read', row('Worklist', { studyId: OTHER_STUDY }))).toBe(false);
+  });
+
+  it("site roles read their study's schedule and groups, not another study's", () => {
+    for (const role of ['technician', 'coordinator', 'analyst', 'monitor'] as const) {
+      const ability = defineAbilityFor(users[role]);
+      for (const name of ['PlannedVisit', 'StudyGroup'] as const) {
+        // Schedule rows belong to the study, not a site.
+        expect({ role, name, own: ability.can('read', row(name, { siteId: null })) }).toEqual({
+          role,
+          name,
+          own: true,
+        });
+        expect({
+          role,
+          name,
+          other: ability.can('read', row(name, { studyId: OTHER_STUDY, siteId: null })),
+        }).toEqual({ role, name, other: false });
+      }
+    }
+    const admin = defineAbilityFor(users.admin);
+    expect(admin.can('update', row('PlannedVisit', { studyId: OTHER_STUDY }))).toBe(true);
+  });
+
+  it("exports the results of the caller's own study only (admins: any study)", () => {
+    for (const role of ['analyst', 'monitor'] as const) {
+      const ability = defineAbilityFor(users[role]);
+      expect(ability.can('export', row('Result'))).toBe(true);
+      expect(ability.can('export', row('Result', { studyId: OTHER_STUDY }))).toBe(false);
+    }
+    expect(
+      defineAbilityFor(users.admin).can('export', row('Result', { studyId: OTHER_STUDY })),
+    ).toBe(true);
+  });
+});
+
 describe('rules for the client', () => {
   it('packed rules unpack to an ability that answers the same', () => {
     for (const user of Object.values(users)) {

@@ -1,4 +1,5 @@
 import type { RecordingKind } from './recordings';
+import type { VisitScheduleStatus } from './visit-schedule';
 
 /*
  * The worklist (`GET /api/worklist`) and the "visit reviewed" act
@@ -45,6 +46,8 @@ export interface WorklistItem {
   visitLabel: string;
   /** `YYYY-MM-DD`. */
   visitDate: string;
+  /** The visit's place in the study's schedule, as its visit view has it (window status). */
+  schedule: VisitScheduleStatus;
   siteId: string;
   /** Set for items about one recording (failed, rejected, with warnings, a missing kind). */
   kind: RecordingKind | null;

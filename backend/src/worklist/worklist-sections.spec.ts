@@ -15,6 +15,14 @@ const facts = (n: number): VisitFacts => ({
   participantId: `p${n}`,
   participantCode: `GY-${n}`,
   siteId: 's1',
+  schedule: {
+    plannedVisitId: null,
+    plannedVisitName: null,
+    studyDay: null,
+    targetDay: null,
+    daysFromTarget: null,
+    window: 'unplanned',
+  },
 });
 
 function rec(n: number, kind: 'resting' | 'task', extra: Partial<CurrentRecordingRow> = {}) {

@@ -56,6 +56,7 @@ function item(
     visitId: facts.visitId,
     visitLabel: facts.visitLabel,
     visitDate: facts.visitDate,
+    schedule: facts.schedule,
     siteId: facts.siteId,
     kind: extra.kind ?? null,
     recordingId: extra.recordingId ?? null,

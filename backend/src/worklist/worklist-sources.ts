@@ -1,7 +1,13 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, In } from 'typeorm';
-import type { RecordingKind, RecordingState, ReportState } from '@gyre/shared';
+import {
+  visitScheduleStatus,
+  type RecordingKind,
+  type RecordingState,
+  type ReportState,
+  type VisitScheduleStatus,
+} from '@gyre/shared';
 import { AnalysisRun } from '../analysis/analysis-run.entity';
 import { applyScope } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
@@ -10,6 +16,7 @@ import { Recording } from '../recordings/recording.entity';
 import { toRecordingDto } from '../recordings/recording.view';
 import { CURRENT_STATES } from '../recordings/recordings.service';
 import { Report } from '../reports/report.entity';
+import { PlannedVisit } from '../schedule/planned-visit.entity';
 import { ReportRevision } from '../signoff/report-revision.entity';
 import { Visit } from '../visits/visit.entity';
 
@@ -21,6 +28,8 @@ export interface VisitFacts {
   participantId: string;
   participantCode: string;
   siteId: string;
+  /** The visit's window status, computed as its visit view computes it (`toVisitView`). */
+  schedule: VisitScheduleStatus;
 }
 
 /** A current recording with the headline of the run behind its numbers. */
@@ -73,6 +82,7 @@ export class WorklistSources {
       .createQueryBuilder('r')
       .innerJoin(Visit, 'v', 'v.id = r.visitId')
       .innerJoin(Participant, 'p', 'p.id = v.participantId')
+      .leftJoin(PlannedVisit, 'pv', 'pv.id = v.plannedVisitId')
       .leftJoin(AnalysisRun, 'run', 'run.id = r.latestRunId')
       .select('r.id', 'recordingId')
       .addSelect('r.kind', 'kind')
@@ -87,9 +97,12 @@ export class WorklistSources {
       .where('r.state IN (:...states)', { states: [...CURRENT_STATES] });
     applyScope(query, 'r', caller.ability, 'read', 'Recording');
     const rows: Array<
-      Omit<CurrentRecordingRow, 'suggestsSlowing'> & { suggestsSlowing: number | null }
+      RawVisit<Omit<CurrentRecordingRow, 'suggestsSlowing'>> & { suggestsSlowing: number | null }
     > = await query.getRawMany();
-    return rows.map((row) => ({ ...row, suggestsSlowing: row.suggestsSlowing === 1 }));
+    return rows.map((row) => ({
+      ...withSchedule(row),
+      suggestsSlowing: row.suggestsSlowing === 1,
+    }));
   }
 
   /** Every report in scope with its newest signature, if any. One query. */
@@ -115,6 +128,7 @@ export class WorklistSources {
       .createQueryBuilder('r')
       .innerJoin(Visit, 'v', 'v.id = r.visitId')
       .innerJoin(Participant, 'p', 'p.id = v.participantId')
+      .leftJoin(PlannedVisit, 'pv', 'pv.id = v.plannedVisitId')
       .select('r.id', 'recordingId')
       .addSelect('r.kind', 'kind')
       .addSelect('r.state', 'state')
@@ -134,9 +148,9 @@ export class WorklistSources {
       .addSelect(VISIT_COLUMNS)
       .where('r.state != :superseded', { superseded: 'superseded' });
     applyScope(query, 'r', caller.ability, 'read', 'Recording');
-    const rows: Array<Omit<UploadRow, 'hasWarnings'> & { hasWarnings: number }> =
+    const rows: Array<RawVisit<Omit<UploadRow, 'hasWarnings'>> & { hasWarnings: number }> =
       await query.getRawMany();
-    return rows.map((row) => ({ ...row, hasWarnings: row.hasWarnings === 1 }));
+    return rows.map((row) => ({ ...withSchedule(row), hasWarnings: row.hasWarnings === 1 }));
   }
 
   /** The visits in the caller's scope dated on or before `date` (`YYYY-MM-DD`). One query. */
@@ -145,10 +159,12 @@ export class WorklistSources {
       .getRepository(Visit)
       .createQueryBuilder('v')
       .innerJoin(Participant, 'p', 'p.id = v.participantId')
+      .leftJoin(PlannedVisit, 'pv', 'pv.id = v.plannedVisitId')
       .select(VISIT_COLUMNS)
       .where('v.visitDate <= :date', { date });
     applyScope(query, 'v', caller.ability, 'read', 'Visit');
-    return query.getRawMany();
+    const rows: RawVisit<VisitFacts>[] = await query.getRawMany();
+    return rows.map(withSchedule);
   }
 
   /** The warnings of these recordings, worded as the recording's own view words them. */
@@ -185,4 +201,55 @@ const VISIT_COLUMNS = [
   'v.participantId AS participantId',
   'v.siteId AS siteId',
   'p.code AS participantCode',
+  // What the window status needs (as `toVisitView` gets it): the participant's enrolment date
+  // and the planned visit, joined in the same query (`pv`, left join: unplanned visits).
+  'p.enrolmentDate AS enrolmentDate',
+  'pv.id AS plannedId',
+  'pv.name AS plannedName',
+  'pv.targetDay AS plannedTargetDay',
+  'pv.windowBeforeDays AS plannedBefore',
+  'pv.windowAfterDays AS plannedAfter',
 ];
+
+/** The extra raw columns behind a row's `schedule`. */
+interface ScheduleColumns {
+  enrolmentDate: string | null;
+  plannedId: string | null;
+  plannedName: string | null;
+  plannedTargetDay: number | null;
+  plannedBefore: number | null;
+  plannedAfter: number | null;
+}
+
+/** A raw row as the query returns it: the visit columns without `schedule`, plus its inputs. */
+type RawVisit<T extends VisitFacts> = Omit<T, 'schedule'> & ScheduleColumns;
+
+/** The row with `schedule` computed by the shared function and its raw inputs dropped. */
+function withSchedule<R extends ScheduleColumns & { visitDate: string }>(
+  raw: R,
+): Omit<R, keyof ScheduleColumns> & { schedule: VisitScheduleStatus } {
+  const {
+    enrolmentDate,
+    plannedId,
+    plannedName,
+    plannedTargetDay,
+    plannedBefore,
+    plannedAfter,
+    ...rest
+  } = raw;
+  const schedule = visitScheduleStatus({
+    visitDate: raw.visitDate,
+    enrolmentDate,
+    planned:
+      plannedId === null || plannedName === null
+        ? null
+        : {
+            id: plannedId,
+            name: plannedName,
+            targetDay: Number(plannedTargetDay),
+            windowBeforeDays: Number(plannedBefore),
+            windowAfterDays: Number(plannedAfter),
+          },
+  });
+  return { ...rest, schedule };
+}

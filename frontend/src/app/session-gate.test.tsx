@@ -2,7 +2,8 @@ import type { MeResponse, Role } from '@gyre/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
-import { describe, expect, it } from 'vitest';
+import { beforeEach, describe, expect, it } from 'vitest';
+import { reviewWorklist } from '../features/home/testing/worklist-fixtures';
 import { getAccessToken } from '../lib/api-client';
 import { mightHaveSession } from '../lib/session/session-hint';
 import { meFor } from '../test/fixtures';
@@ -10,6 +11,12 @@ import { installMswServer, server } from '../test/msw-server';
 import { renderApp } from '../test/render-app';
 
 installMswServer();
+
+// The home screen asks for the worklist of analysts, monitors and technicians: answer it, so no
+// request goes unhandled (these tests are about the session, not the list).
+beforeEach(() => {
+  server.use(http.get('/api/worklist', () => HttpResponse.json(reviewWorklist(false))));
+});
 
 const unauthenticated = () =>
   HttpResponse.json(

@@ -28,7 +28,7 @@ export function VisitWindowTag({ schedule }: { schedule: VisitScheduleStatus }) 
   return (
     <Tag
       color={out ? GYRE_COLORS.amber : undefined}
-      bordered={!out}
+      variant={out ? 'filled' : undefined}
       style={{ marginInlineEnd: 0 }}
       aria-label={`Schedule: ${visitWindowText(schedule)}`}
     >

@@ -48,6 +48,28 @@ export function generateVisitRecordings(
 }
 
 /**
+ * The same visit's resting block recorded a second time (its own random streams, the same
+ * generated truth), as a technician sends it to replace the first take.
+ */
+export function generateRetakeResting(
+  scenario: DemoScenario,
+  participant: DemoParticipant,
+  visit: DemoVisit,
+): GeneratedRecording {
+  const key = `${scenario.seedKey}/${participant.code}/${visit.label}`;
+  const { sampleRateHz, restDurationS } = scenario.recording;
+  return generateRestingRecording({
+    seedKey: `${key}/resting/retake`,
+    startDate: visit.restStart,
+    patientId: `${participant.code} X X X`,
+    sampleRateHz,
+    durationS: restDurationS,
+    iafHz: visit.iafHz,
+    alphaAmplitudeUv: participant.restAlphaUv,
+  });
+}
+
+/**
  * A copy cut off in the middle of its last data record, as an interrupted transfer leaves
  * it: the header's record count no longer agrees with the file size (Kemp et al. 1992).
  */

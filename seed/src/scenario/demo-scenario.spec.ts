@@ -1,6 +1,6 @@
 import { scipyReference, ScratchFolder } from '../generator/testing/scipy-reference';
 import { buildDemoScenario, DemoRole } from './demo-scenario';
-import { generateVisitRecordings, truncatedCopy } from './demo-recordings';
+import { generateRetakeResting, generateVisitRecordings, truncatedCopy } from './demo-recordings';
 
 const DAY_MS = 86_400_000;
 const days = (from: string, to: string): number => (Date.parse(to) - Date.parse(from)) / DAY_MS;
@@ -91,6 +91,39 @@ describe('buildDemoScenario (the invented demo study)', () => {
     expect(new Set(sitesSigned)).toEqual(new Set(scenario.sites.map((s) => s.key)));
   });
 
+  it('reviews some visits of each site and not others, in both versions, and replaces one reviewed resting file', () => {
+    for (const version of [scenario, buildDemoScenario('small')]) {
+      const visitsOf = (code: string) =>
+        version.participants.find((p) => p.code === code)?.visits ?? [];
+      for (const target of version.reviewedVisits) {
+        expect(visitsOf(target.participantCode).some((v) => v.label === target.visitLabel)).toBe(
+          true,
+        );
+      }
+      const key = (t: { participantCode: string; visitLabel: string }) =>
+        `${t.participantCode}/${t.visitLabel}`;
+      const reviewed = new Set(version.reviewedVisits.map(key));
+      expect(reviewed.size).toBe(version.reviewedVisits.length);
+      // Every site has reviewed and unreviewed visits, so its worklist shows both.
+      for (const site of version.sites) {
+        const all = version.participants
+          .filter((p) => p.siteKey === site.key)
+          .flatMap((p) => p.visits.map((v) => `${p.code}/${v.label}`));
+        const done = all.filter((k) => reviewed.has(k)).length;
+        expect({ site: site.key, done: done > 0, left: done < all.length }).toEqual({
+          site: site.key,
+          done: true,
+          left: true,
+        });
+      }
+      // The replaced one is reviewed first, and touches neither the flag nor a signed report.
+      const retake = version.replacedAfterReview;
+      expect(reviewed.has(key(retake))).toBe(true);
+      expect([version.flag, ...version.signedReports].map(key)).not.toContain(key(retake));
+      expect(retake.reason.length).toBeGreaterThan(20);
+    }
+  });
+
   it('registers every visit on a planned visit of the schedule, one per planned visit', () => {
     const names = scenario.schedule.map((p) => p.name);
     expect(names).toEqual(['Baseline', 'Month 4', 'Month 8', 'Month 12']);
@@ -172,6 +205,30 @@ describe('generateVisitRecordings and truncatedCopy (generated data)', () => {
     });
     expect(summary.patient).toBe(`${participant.code} X X X`);
     expect(summary.record_count).toBe(scenario.recording.restDurationS);
+  });
+
+  it('records a second take of the resting block: other samples, the same header layout and the same IAF (scipy.signal.welch)', () => {
+    const retake = generateRetakeResting(scenario, participant, visit);
+    expect(retake.truth).toEqual(resting.truth);
+    expect(Buffer.from(retake.edf).equals(Buffer.from(resting.edf))).toBe(false);
+    const file = scratch.write('retake.edf', retake.edf);
+    const first = scipyReference<{ record_count: number; sample_rate_hz: number }>({
+      op: 'edf_summary',
+      edf: scratch.write('rest-first.edf', resting.edf),
+    });
+    const second = scipyReference<{ record_count: number; sample_rate_hz: number }>({
+      op: 'edf_summary',
+      edf: file,
+    });
+    expect(second.record_count).toBe(first.record_count);
+    expect(second.sample_rate_hz).toBe(first.sample_rate_hz);
+    // The posterior ROI's Welch peak lands on the generated IAF (as the generator's own test).
+    const spectra = scipyReference<{ roi_paf_hz: number }>({
+      op: 'spectra',
+      edf: file,
+      roi: ['O1', 'O2', 'Oz', 'P3', 'P4', 'Pz', 'POz', 'PO3', 'PO4', 'PO7', 'PO8'],
+    });
+    expect(Math.abs(spectra.roi_paf_hz - visit.iafHz)).toBeLessThan(0.1);
   });
 
   it('cuts the copy in its last record, so the size disagrees with the header (Kemp et al. 1992)', () => {

@@ -88,6 +88,16 @@ export interface DemoScenario {
   flag: { participantCode: string; visitLabel: string; reason: string };
   /** Visits whose report the analyst signs, so each site's coordinator has one to open. */
   signedReports: Array<{ participantCode: string; visitLabel: string }>;
+  /**
+   * Visits the analyst marks reviewed once everything is computed, so the worklist holds both
+   * reviewed and unreviewed visits.
+   */
+  reviewedVisits: Array<{ participantCode: string; visitLabel: string }>;
+  /**
+   * One reviewed visit whose resting recording is then re-recorded and replaced by its site's
+   * technician: its results change, so it is back on the worklist as "changed since review".
+   */
+  replacedAfterReview: { participantCode: string; visitLabel: string; reason: string };
 }
 
 export type DemoSize = 'full' | 'small';
@@ -286,6 +296,20 @@ export function buildDemoScenario(size: DemoSize = 'full'): DemoScenario {
       { participantCode: 'LAF-C102', visitLabel: 'Month 12' },
       { participantCode: 'LAF-A201', visitLabel: 'Month 12' },
     ],
+    // Present in both versions: each site has reviewed and unreviewed visits.
+    reviewedVisits: [
+      { participantCode: 'LAF-C101', visitLabel: 'Baseline' },
+      { participantCode: 'LAF-C102', visitLabel: 'Baseline' },
+      { participantCode: 'LAF-C102', visitLabel: 'Month 4' },
+      { participantCode: 'LAF-A201', visitLabel: 'Baseline' },
+      { participantCode: 'LAF-A201', visitLabel: 'Month 12' },
+    ],
+    replacedAfterReview: {
+      participantCode: 'LAF-C102',
+      visitLabel: 'Month 4',
+      reason:
+        'Resting block recorded again the same day: an electrode lost contact in the first take (demo).',
+    },
   };
 }
 

@@ -3,8 +3,9 @@
  * its people would: the admin sets up the study, sites and invitations; each invited person
  * activates their account from the e-mail; each site's technician registers participants
  * and visits and uploads both recordings of every visit (multipart, as the Intake screen
- * does); the server validates and computes them; the analyst raises one slowing flag and
- * signs one visit report per site.
+ * does); the server validates and computes them; the analyst raises one slowing flag, signs
+ * one visit report per site and marks a few visits reviewed; one reviewed visit's resting
+ * recording is then replaced, so its results change since the review.
  * No result is written by the seeder: every number comes out of Gyre's own pipeline.
  */
 import { join } from 'node:path';
@@ -14,7 +15,11 @@ import type {
   DemoScenario,
   DemoVisit,
 } from '../scenario/demo-scenario';
-import { generateVisitRecordings, truncatedCopy } from '../scenario/demo-recordings';
+import {
+  generateRetakeResting,
+  generateVisitRecordings,
+  truncatedCopy,
+} from '../scenario/demo-recordings';
 import { waitForLinkToken } from './captured-mail';
 import {
   DemoCredential,
@@ -74,6 +79,10 @@ export interface DemoSeedResult {
   flaggedVisitId: string | null;
   /** Visits whose report the analyst signed. */
   signedVisitIds: string[];
+  /** Visits the analyst marked reviewed (the replaced one included). */
+  reviewedVisitIds: string[];
+  /** The reviewed visit whose resting recording was replaced afterwards. */
+  replacedAfterReviewVisitId: string | null;
   /** Recordings by state when seeding ended. */
   recordingStates: Record<string, number>;
   timingsMs: { accounts: number; uploads: number; results: number; total: number };
@@ -90,6 +99,12 @@ interface SignOffStatus {
   cannotSignReason: string | null;
 }
 
+interface ReviewState {
+  currentFingerprint: string | null;
+  canReview: boolean;
+  cannotReviewReason: string | null;
+}
+
 interface RecordingSummary {
   id: string;
   state: string;
@@ -97,7 +112,7 @@ interface RecordingSummary {
   failureMessage: string | null;
 }
 
-const SETTLED = new Set(['ready', 'rejected', 'failed']);
+const SETTLED = new Set(['ready', 'rejected', 'failed', 'superseded']);
 const POLL_MS = 1000;
 const PROGRESS_EVERY_MS = 10_000;
 
@@ -140,6 +155,8 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
       rejectedRecordingId: null,
       flaggedVisitId: null,
       signedVisitIds: [],
+      reviewedVisitIds: [],
+      replacedAfterReviewVisitId: null,
       recordingStates: {},
       timingsMs: { accounts: 0, uploads: 0, results: 0, total: Date.now() - startedAt },
     };
@@ -291,8 +308,17 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
   let recordingStates: Record<string, number> = {};
   let flaggedVisitId: string | null = null;
   const signedVisitIds: string[] = [];
+  const reviewedVisitIds: string[] = [];
+  let replacedAfterReviewVisitId: string | null = null;
+  const visitOf = (target: { participantCode: string; visitLabel: string }, what: string) => {
+    const participant = participants.find((p) => p.code === target.participantCode);
+    const visit = participant?.visits.find((v) => v.label === target.visitLabel);
+    if (participant === undefined || visit === undefined)
+      throw new Error(`The scenario ${what} a visit it does not have`);
+    return { participant, visit };
+  };
   if (options.waitForResults ?? true) {
-    recordingStates = await waitUntilSettled(asAnalyst, {
+    await waitUntilSettled(asAnalyst, {
       expected: uploadCount,
       timeoutMs: options.resultTimeoutMs ?? 15 * 60_000,
       log,
@@ -337,6 +363,58 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
       signedVisitIds.push(visit.visitId);
       log(`${target.participantCode} ${target.visitLabel}: report signed by the analyst`);
     }
+    // The analyst marks a few visits reviewed (Review's "Mark reviewed"): the fingerprint of
+    // the results on screen goes with the act, as the Review screen sends it.
+    for (const target of scenario.reviewedVisits) {
+      const { visit } = visitOf(target, 'reviews');
+      const state = await asAnalyst.get<ReviewState>(`/api/visits/${visit.visitId}/review`);
+      if (!state.canReview || state.currentFingerprint === null) {
+        throw new Error(
+          `${target.participantCode} ${target.visitLabel}: the visit cannot be marked reviewed: ${state.cannotReviewReason ?? 'no reason given'}`,
+        );
+      }
+      await asAnalyst.post(`/api/visits/${visit.visitId}/review`, {
+        fingerprint: state.currentFingerprint,
+      });
+      reviewedVisitIds.push(visit.visitId);
+    }
+    log(`${reviewedVisitIds.length} visits marked reviewed by the analyst`);
+    // Then the site's technician replaces one reviewed visit's resting recording with a
+    // second take (Intake's replace): new results, so the review no longer holds.
+    const retake = scenario.replacedAfterReview;
+    const { participant, visit } = visitOf(retake, 'replaces a recording of');
+    if (!reviewedVisitIds.includes(visit.visitId)) {
+      throw new Error('The scenario replaces a recording of a visit it does not review first');
+    }
+    const technician = technicians.get(participant.truth.siteKey);
+    if (technician === undefined)
+      throw new Error(`No technician for site '${participant.truth.siteKey}'`);
+    const file = generateRetakeResting(scenario, participant.truth, visit.truth);
+    const replacement = await technician.upload<IdOnly>(visit.visitId, {
+      kind: 'resting',
+      fileName: `${participant.code}_${visit.label.replace(/\s+/g, '-').toLowerCase()}_resting-retake.edf`,
+      edf: file.edf,
+      replaces: { recordingId: visit.restingRecordingId, reason: retake.reason },
+    });
+    uploadCount++;
+    replacedAfterReviewVisitId = visit.visitId;
+    log(`${retake.participantCode} ${retake.visitLabel}: resting recording replaced after review`);
+    // The visit's task is recomputed when the new take moves the resting IAF (once its run
+    // lands), so settle, give that recomputation a moment to be queued, and settle again.
+    const waitOptions = {
+      expected: uploadCount,
+      timeoutMs: options.resultTimeoutMs ?? 15 * 60_000,
+      log,
+    };
+    await waitUntilSettled(asAnalyst, waitOptions);
+    await new Promise((resolve) => setTimeout(resolve, 3 * POLL_MS));
+    recordingStates = await waitUntilSettled(asAnalyst, waitOptions);
+    const replaced = await asAnalyst.get<RecordingSummary>(`/api/recordings/${replacement.id}`);
+    if (replaced.state !== 'ready') {
+      throw new Error(
+        `${retake.participantCode} ${retake.visitLabel}: the replacing resting recording is ${replaced.state}`,
+      );
+    }
   }
   const resultsMs = Date.now() - resultsStartedAt;
   return {
@@ -348,6 +426,8 @@ export async function seedDemo(options: SeedDemoOptions): Promise<DemoSeedResult
     rejectedRecordingId,
     flaggedVisitId,
     signedVisitIds,
+    reviewedVisitIds,
+    replacedAfterReviewVisitId,
     recordingStates,
     timingsMs: {
       accounts: accountsMs,

@@ -27,6 +27,8 @@ export interface UploadInput {
   fileName: string;
   edf: Uint8Array;
   onsetCsv?: { fileName: string; text: string } | null;
+  /** The visit's current recording of this kind that the file replaces, and why. */
+  replaces?: { recordingId: string; reason: string } | null;
 }
 
 interface RequestBody {
@@ -69,6 +71,13 @@ export class GyreClient {
           '\r\n',
       );
     parts.push(head('name="kind"', null), Buffer.from(`${input.kind}\r\n`));
+    if (input.replaces) {
+      parts.push(head('name="replaces"', null), Buffer.from(`${input.replaces.recordingId}\r\n`));
+      parts.push(
+        head('name="replacementReason"', null),
+        Buffer.from(`${input.replaces.reason}\r\n`, 'utf8'),
+      );
+    }
     parts.push(
       head(`name="file"; filename="${input.fileName}"`, 'application/octet-stream'),
       Buffer.from(input.edf.buffer, input.edf.byteOffset, input.edf.byteLength),

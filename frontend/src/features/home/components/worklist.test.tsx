@@ -36,6 +36,10 @@ describe('the home worklist', { timeout: 30_000 }, () => {
     expect(within(unreviewed).getByLabelText('2 items')).toBeInTheDocument();
     const link = within(unreviewed).getByRole('link', { name: 'GY-0001 · Month 6' });
     expect(link).toHaveAttribute('href', '/review/visit-1');
+    // Each item carries its visit's window status: day 190 against target 182 ± 7 is late by 8.
+    const [first, second] = within(unreviewed).getAllByRole('listitem');
+    expect(within(first).getByLabelText('Schedule: Late by 8 days')).toBeInTheDocument();
+    expect(within(second).getByLabelText('Schedule: In window')).toBeInTheDocument();
     expect(
       within(list).getByText(
         'The task result suggests slowing (ROI Δf −0.45 Hz); no flag decision yet',

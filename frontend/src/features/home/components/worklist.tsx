@@ -6,6 +6,7 @@ import { paths } from '../../../app/paths';
 import { GYRE_COLORS } from '../../../app/theme';
 import { ErrorState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
+import { VisitWindowTag } from '../../../components/visit-window-tag';
 import { formatDate, formatDateTime } from '../../../lib/format';
 import { useWorklist } from '../api/get-worklist';
 
@@ -47,7 +48,12 @@ function ItemRow({ item }: { item: WorklistItem }) {
             {formatDate(item.since)}
           </Typography.Text>
         </Flex>
-        <Typography.Text style={{ overflowWrap: 'anywhere' }}>{item.what}</Typography.Text>
+        <Flex wrap gap={8} align="baseline">
+          <VisitWindowTag schedule={item.schedule} />
+          <Typography.Text style={{ overflowWrap: 'anywhere', flex: '1 1 12em', minWidth: 0 }}>
+            {item.what}
+          </Typography.Text>
+        </Flex>
       </Flex>
     </li>
   );

@@ -12,6 +12,15 @@ export function worklistItem(n: number, extra: Partial<WorklistItem> = {}): Work
     visitId: `visit-${n}`,
     visitLabel: 'Month 6',
     visitDate: '2025-02-03',
+    schedule: {
+      plannedVisitId: 'pv-month-6',
+      plannedVisitName: 'Month 6',
+      // Month 6 (target day 182, ±7 days): odd visits on day 190 (late by 8), even on day 184.
+      studyDay: n % 2 === 1 ? 190 : 184,
+      targetDay: 182,
+      daysFromTarget: n % 2 === 1 ? 8 : 2,
+      window: n % 2 === 1 ? 'late' : 'in',
+    },
     siteId: SITE.id,
     kind: null,
     recordingId: null,

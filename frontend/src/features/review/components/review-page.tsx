@@ -4,6 +4,7 @@ import { useEffect, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { PageHeader } from '../../../components/page-header';
+import { VisitWindowTag } from '../../../components/visit-window-tag';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { formatDate } from '../../../lib/format';
@@ -202,7 +203,12 @@ export function ReviewPage({
       <ResearchCaution />
       <PageHeader
         title={`Review · ${code} · ${visit.data.label}`}
-        description={`Visit of ${formatDate(visit.data.visitDate)}`}
+        description={
+          <Flex component="span" wrap gap={8} align="center">
+            <span>Visit of {formatDate(visit.data.visitDate)}</span>
+            <VisitWindowTag schedule={visit.data.schedule} />
+          </Flex>
+        }
         extra={
           <>
             {report.data !== undefined && report.data !== null && (
