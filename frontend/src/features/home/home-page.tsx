@@ -8,6 +8,9 @@ import { Worklist } from './components/worklist';
 const WHAT_EACH_SCREEN_IS_FOR: Record<string, string> = {
   Intake: 'Register visits and upload resting and task recordings; follow their checks.',
   Participants: 'Participants of the study and the course of their alpha rhythm over visits.',
+  'Study overview':
+    'The whole study: group courses by planned visit, what is done, and quality by site.',
+  'Study set-up': 'Planned visits and their windows, groups, and when a trend is shown.',
   'Study settings':
     'The analysis settings of the study, every version with what it changed and why.',
   Ledger: 'The audit trail: who changed what, when and why, with its integrity check.',

@@ -155,7 +155,7 @@ describe('Study settings', { timeout: 60_000 }, () => {
     const schedule = await screen.findByRole('region', { name: 'Visit schedule' });
     const rows = await within(schedule).findAllByRole('row');
     expect(rows.slice(1).map((row) => row.textContent)).toEqual([
-      'Baselineday 0−0 / +7 days',
+      'Baselineday 0up to 7 days after',
       'Week 12day 84−14 / +14 days',
       'Week 26day 182−14 / +14 days',
     ]);

@@ -17,9 +17,14 @@ import { EmptyState, ErrorState } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
 import { usePlannedVisits, useScheduleWrites, type PlannedVisitInput } from '../api/study-schedule';
 
-/** "−14 / +14 days" */
+/** "−14 / +14 days"; a side without slack reads "on the day" ("up to 14 days after"). */
 export function windowText(p: Pick<PlannedVisitView, 'windowBeforeDays' | 'windowAfterDays'>) {
-  return `−${p.windowBeforeDays} / +${p.windowAfterDays} days`;
+  const before = p.windowBeforeDays;
+  const after = p.windowAfterDays;
+  if (before === 0 && after === 0) return 'on the day';
+  if (before === 0) return `up to ${after} days after`;
+  if (after === 0) return `up to ${before} days before`;
+  return `−${before} / +${after} days`;
 }
 
 /**
