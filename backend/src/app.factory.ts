@@ -35,6 +35,10 @@ export async function createApp(options: CreateAppOptions = {}): Promise<NestExp
   const config = app.get<AppConfig>(APP_CONFIG);
   // X-Forwarded-For is believed only from the proxies TRUST_PROXY names (default: none).
   app.set('trust proxy', config.trustProxy);
+  // No ETag on API answers: they are `no-store` (nothing may keep them to revalidate), and
+  // hashing every JSON body cost CPU on each request. The static client keeps its own ETags
+  // (express.static, client-assets.ts).
+  app.set('etag', false);
   // gzip/br for JSON and the static client alike, so registered before both; results bodies
   // come compressed already (they name their Content-Encoding) and pass through untouched.
   // Under 8 KB a body leaves as it is: compressing a 5 KB list cost about 0.4 ms of CPU, a

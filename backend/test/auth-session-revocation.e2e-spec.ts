@@ -100,6 +100,54 @@ describe('ending a session refuses its access tokens at once', () => {
     await expectEnded(session.token);
   });
 
+  it('a session ended or an account changed by any writer shows at the very next request, however warm', async () => {
+    // Nothing keeps sign-in checks between requests: rows changed straight in the database,
+    // as the lock trigger or another process changes them, without any service call, count
+    // at once after a burst of answered requests.
+    const warm = async (token: string): Promise<void> => {
+      const answers = await Promise.all(Array.from({ length: 10 }, () => me(token)));
+      expect(answers.map((a) => a.status)).toEqual(Array(10).fill(200));
+    };
+    const ended = await signIn('monitorB');
+    const other = await signIn('monitorB');
+    await warm(ended.token);
+    const familyOf = (token: string): string =>
+      (
+        JSON.parse(Buffer.from(token.split('.')[1], 'base64url').toString('utf8')) as {
+          sid: string;
+        }
+      ).sid;
+    await t.dataSource.query(
+      `UPDATE "refresh_token" SET "revokedAt" = ?, "revokedReason" = 'test' WHERE "familyId" = ?`,
+      [new Date().toISOString(), familyOf(ended.token)],
+    );
+    await expectEnded(ended.token);
+    expect((await me(other.token)).status).toBe(200);
+
+    // The user's site as every request reads it: the rights follow the row at once.
+    const moved = await signIn('coordinatorA2');
+    const codes = async (): Promise<string[]> => {
+      const list = await request(t.url)
+        .get('/api/participants')
+        .set('Authorization', `Bearer ${moved.token}`);
+      expect(list.status).toBe(200);
+      return (list.body as { items: { code: string }[] }).items.map((p) => p.code);
+    };
+    await warm(moved.token);
+    expect(await codes()).toEqual([t.seed.participants.A2.code]);
+    await t.dataSource.query(`UPDATE "user" SET "siteId" = ? WHERE "id" = ?`, [
+      t.seed.sites.A1.id,
+      t.seed.users.coordinatorA2.id,
+    ]);
+    expect(await codes()).toEqual([t.seed.participants.A1.code]);
+    await t.dataSource.query(`UPDATE "user" SET "state" = 'deactivated' WHERE "id" = ?`, [
+      t.seed.users.coordinatorA2.id,
+    ]);
+    const refused = await me(moved.token);
+    expect(refused.status).toBe(401);
+    expect(refused.body.code).toBe('AUTH_TOKEN_INVALID');
+  });
+
   it('a change of name only keeps the session (control)', async () => {
     const session = await signIn('coordinatorB');
     const change = await patchUser('coordinatorB', { name: 'Coordinator B (renamed)' });

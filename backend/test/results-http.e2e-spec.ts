@@ -6,6 +6,7 @@
  * every request, and no-store on study data. Recordings are generated (load-recordings.ts,
  * recordings-fixtures.ts).
  */
+import { randomUUID } from 'node:crypto';
 import { request as httpRequest, type IncomingHttpHeaders } from 'node:http';
 import { brotliDecompressSync, gunzipSync } from 'node:zlib';
 import request from 'supertest';
@@ -354,6 +355,8 @@ describe('results over HTTP', () => {
         const answer = await get(path, 'analyst', encoding);
         expect([path, encoding, answer.status]).toEqual([path, encoding, 200]);
         expect(answer.headers['cache-control']).toBe('no-store');
+        // Nothing may keep the answer, so nothing revalidates it: no ETag is computed.
+        expect(answer.headers.etag).toBeUndefined();
       }
     }
   });
@@ -410,5 +413,72 @@ describe('results over HTTP', () => {
     expect(after.run.staleSettings.join(' ')).toContain('post window');
     // Everything else is the same run's numbers.
     expect({ ...after, run: { ...after.run, staleSettings: [] } }).toEqual(before);
+  });
+
+  it('shows a settings version or visit override written by any writer at the very next request, however warm the caches', async () => {
+    const path = `/api/recordings/${task.id}/results`;
+    const notice = async (): Promise<string[]> => {
+      // Several reads, so that every cache on the way has the answer before the change.
+      const answers = await Promise.all(
+        ['analyst', 'monitor', 'analyst'].map((user) => get(path, user as UserKey, 'br')),
+      );
+      const notices = answers.map((a) => jsonOf<RecordingResultsDto>(a).run.staleSettings);
+      expect(notices[1]).toEqual(notices[0]);
+      expect(notices[2]).toEqual(notices[0]);
+      return notices[0];
+    };
+    const run = await t.dataSource.getRepository(AnalysisRun).findOneByOrFail({
+      id: task.latestRunId ?? '',
+    });
+    const used = JSON.parse(run.settingsJson) as Record<string, unknown>;
+    // Rows written straight into the tables, as another process or a migration would: no
+    // service call, no event. Versions and overrides are only ever added.
+    let version = (
+      (await t.dataSource.query(
+        `SELECT max("version") AS "v" FROM "analysis_settings" WHERE "studyId" = ?`,
+        [run.studyId],
+      )) as { v: number }[]
+    )[0].v;
+    const addVersion = async (values: Record<string, unknown>): Promise<void> => {
+      version += 1;
+      await t.dataSource.query(
+        `INSERT INTO "analysis_settings" ("id", "studyId", "version", "valuesJson", "reason", "createdById", "createdAt")
+         VALUES (?, ?, ?, ?, 'written straight into the table', NULL, ?)`,
+        [randomUUID(), run.studyId, version, JSON.stringify(values), new Date().toISOString()],
+      );
+    };
+    const threshold = `rejection threshold ${String(used.rejectionThresholdUv)} µV → 150 µV`;
+    await notice();
+    // Another rejection threshold: the very next answer names it.
+    await addVersion({ ...used, rejectionThresholdUv: 150 });
+    expect(await notice()).toEqual([threshold]);
+    // The run's own settings again: nothing is stale, at once.
+    await addVersion(used);
+    expect(await notice()).toEqual([]);
+    // A visit override (its own region of interest) over that version: the next answer names it.
+    await t.dataSource.query(
+      `INSERT INTO "visit_analysis_override" ("id", "visitId", "studyId", "siteId", "revision", "valuesJson", "reason", "createdById", "createdAt")
+       VALUES (?, ?, ?, ?, 1, ?, 'written straight into the table', ?, ?)`,
+      [
+        randomUUID(),
+        run.visitId,
+        run.studyId,
+        run.siteId,
+        JSON.stringify({ roi: ['O1', 'O2'], bandHz: null, onsetLabel: null }),
+        t.seed.users.analyst.id,
+        new Date().toISOString(),
+      ],
+    );
+    const overridden = await notice();
+    expect(overridden).toHaveLength(1);
+    expect(overridden[0]).toMatch(/^region of interest .* → O1, O2$/);
+    // The runs list reads the same notice.
+    const runs = await request(t.url)
+      .get(`/api/recordings/${task.id}/runs`)
+      .set(await auth('analyst'));
+    const listed = (runs.body as { items: { id: string; staleSettings: string[] }[] }).items.find(
+      (r) => r.id === run.id,
+    );
+    expect(listed?.staleSettings).toEqual(overridden);
   });
 });

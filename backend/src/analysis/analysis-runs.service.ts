@@ -10,14 +10,16 @@ import type {
   RoiUsageDto,
   RunTrigger,
 } from '@gyre/shared';
-import { scopedWhere } from '../auth/access-scope';
+import { scopedWhere, scopeSql } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
+import { SqliteReads } from '../common/database/sqlite-reads.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { PageQueryDto, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
 import type { AnalyzeOutcome, RunSummary } from '../jobs/worker/worker-tasks';
 import { Recording } from '../recordings/recording.entity';
+import { RecordingsError } from '../recordings/recordings.errors';
 import { CURRENT_STATES, RecordingsService } from '../recordings/recordings.service';
 import type { AnalysisSettings as SettingsValues } from '../signal/pipeline/analysis-settings';
 import { GYRE_VERSION } from '../version';
@@ -28,9 +30,8 @@ import { encodeJson, type EncodedBody } from './encoded-body';
 import { decodeResultSeries, encodeResultSeries } from './result-series-codec';
 import { ResultsBodyCache } from './results-body-cache';
 import { channelCurveOf, curveOf, roundedResults, trialRasterOf } from './results-http-shape';
-import { staleSettingsPhrases } from './settings-differences';
-import { parseStoredSettings, settingsJson } from './settings-values';
-import { VisitAnalysisOverridesService } from './visit-analysis-overrides.service';
+import { SettingsStaleness, type StalenessInput } from './settings-staleness';
+import { settingsJson } from './settings-values';
 
 export interface StoreRunInput {
   jobId: string;
@@ -68,7 +69,31 @@ export interface RunNumbers {
   roiUsage: RoiUsageDto;
 }
 
-type RunNumbersRow = Omit<RunNumbers, 'roiUsage'> & { roiUsage: string };
+/** Runs whose region-of-interest usage is kept parsed: a few per visit of a few hundred visits. */
+const KEPT_ROI_USAGES = 4096;
+
+/** What the results answer shows of its recording (`source`). */
+export type ResultsSource = Pick<
+  Recording,
+  'id' | 'kind' | 'createdAt' | 'checksumSha256' | 'replacesId' | 'replacementReason'
+>;
+
+/** A results route's recording, read with its scope check. */
+type ScopedRecording = ResultsSource & Pick<Recording, 'latestRunId'>;
+
+/** A results route's run without its curves or summary: what the notice and the key need. */
+type RunHead = StalenessInput;
+
+/** The run's columns beside its recording's in runInScope's row (null: no such run in scope). */
+type RunHeadColumns =
+  | {
+      runId: string;
+      runVisitId: string;
+      runStudyId: string;
+      runKind: RunHead['kind'];
+      runSettingsJson: string;
+    }
+  | { runId: null; runVisitId: null; runStudyId: null; runKind: null; runSettingsJson: null };
 
 /**
  * Analysis runs and their results. Results live in SQLite: headline numbers in columns, the
@@ -77,11 +102,15 @@ type RunNumbersRow = Omit<RunNumbers, 'roiUsage'> & { roiUsage: string };
  */
 @Injectable()
 export class AnalysisRunsService {
+  /** Region-of-interest usage by run id (see roiUsageOfRuns). */
+  private readonly roiUsageKept = new Map<string, RoiUsageDto>();
+
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly recordings: RecordingsService,
-    private readonly overrides: VisitAnalysisOverridesService,
     private readonly bodies: ResultsBodyCache,
+    private readonly reads: SqliteReads,
+    private readonly stale: SettingsStaleness,
   ) {}
 
   /**
@@ -201,30 +230,59 @@ export class AnalysisRunsService {
 
   /**
    * The headline numbers of each visit's current runs, without curves or summary (what
-   * trajectories read): one query, the current recordings joined to their latest runs, in
-   * upload order. Reading whole rows here once pulled every run's packed curves (about
-   * 0.6 MB for a 64-channel task) into each trajectory request.
+   * trajectories read): one prepared statement, the current recordings joined to their latest
+   * runs, in upload order. Reading whole rows here once pulled every run's packed curves
+   * (about 0.6 MB for a 64-channel task) into each trajectory request.
    */
-  async currentRunNumbersOfVisits(visitIds: readonly string[]): Promise<RunNumbers[]> {
-    if (visitIds.length === 0) return [];
-    const rows: RunNumbersRow[] = await this.dataSource
-      .getRepository(AnalysisRun)
-      .createQueryBuilder('run')
-      .innerJoin(Recording, 'recording', 'recording.latestRunId = run.id')
-      .where('recording.visitId IN (:...visitIds)', { visitIds: [...visitIds] })
-      .andWhere('recording.state IN (:...states)', { states: [...CURRENT_STATES] })
-      .select('run.id', 'id')
-      .addSelect('run.visitId', 'visitId')
-      .addSelect('run.kind', 'kind')
-      .addSelect('run.bandSource', 'bandSource')
-      .addSelect('run.pafHz', 'pafHz')
-      .addSelect('run.cogHz', 'cogHz')
-      .addSelect('run.roiDeltaFHz', 'roiDeltaFHz')
-      // SQLite's JSON1 json_extract: only the region-of-interest usage leaves the summary.
-      .addSelect("json_extract(run.summaryJson, '$.roiUsage')", 'roiUsage')
-      .orderBy('recording.createdAt', 'ASC')
-      .getRawMany();
-    return rows.map((row) => ({ ...row, roiUsage: JSON.parse(row.roiUsage) as RoiUsageDto }));
+  currentRunNumbersOfVisits(visitIds: readonly string[]): Promise<RunNumbers[]> {
+    if (visitIds.length === 0) return Promise.resolve([]);
+    // The lists travel as JSON arrays (SQLite's json_each), so one statement serves any length.
+    const rows = this.reads.all<Omit<RunNumbers, 'roiUsage'>>(
+      `SELECT run."id" AS "id", run."visitId" AS "visitId", run."kind" AS "kind",
+          run."bandSource" AS "bandSource", run."pafHz" AS "pafHz", run."cogHz" AS "cogHz",
+          run."roiDeltaFHz" AS "roiDeltaFHz"
+        FROM "recording" recording
+        INNER JOIN "analysis_run" run ON run."id" = recording."latestRunId"
+        WHERE recording."visitId" IN (SELECT value FROM json_each(?))
+          AND recording."state" IN (SELECT value FROM json_each(?))
+        ORDER BY recording."createdAt" ASC, recording."id" ASC`,
+      [JSON.stringify(visitIds), JSON.stringify(CURRENT_STATES)],
+    );
+    const usage = this.roiUsageOfRuns(rows.map((row) => row.id));
+    return Promise.resolve(
+      rows.map((row) => ({ ...row, roiUsage: usage.get(row.id) as RoiUsageDto })),
+    );
+  }
+
+  /**
+   * Which region-of-interest channels each run used, from its summary. Parsing a 64-channel
+   * summary (json_extract reads the whole text) was most of a trajectory request's CPU, so
+   * each run's answer is kept: a stored run never changes (runs are only ever inserted), so
+   * the kept value is that of the row for good. Kept values are frozen: shared, never changed.
+   */
+  private roiUsageOfRuns(runIds: readonly string[]): Map<string, RoiUsageDto> {
+    const out = new Map<string, RoiUsageDto>();
+    const missing: string[] = [];
+    for (const id of runIds) {
+      const kept = this.roiUsageKept.get(id);
+      if (kept === undefined) missing.push(id);
+      else out.set(id, kept);
+    }
+    if (missing.length === 0) return out;
+    const rows = this.reads.all<{ id: string; roiUsage: string }>(
+      `SELECT "id", json_extract("summaryJson", '$.roiUsage') AS "roiUsage"
+        FROM "analysis_run" WHERE "id" IN (SELECT value FROM json_each(?))`,
+      [JSON.stringify(missing)],
+    );
+    for (const row of rows) {
+      const usage = deepFreeze(JSON.parse(row.roiUsage) as RoiUsageDto);
+      if (this.roiUsageKept.size >= KEPT_ROI_USAGES) {
+        this.roiUsageKept.delete(this.roiUsageKept.keys().next().value as string);
+      }
+      this.roiUsageKept.set(row.id, usage);
+      out.set(row.id, usage);
+    }
+    return out;
   }
 
   async listForRecording(
@@ -250,11 +308,14 @@ export class AnalysisRunsService {
    * the screens (results-http-shape.ts), serialised and compressed once per run and notice.
    * Per request: the caller's access to the recording and the run, and the stale-settings
    * notice (the study's settings may change after the run); both happen before the cache.
+   * The notice is part of the key; so is what the answer shows of the recording, whose
+   * replacement reason may be written after the run.
    */
   async resultsBody(caller: Caller, recordingId: string, runId?: string): Promise<EncodedBody> {
-    const { recording, run } = await this.runInScope(caller, recordingId, runId);
+    const { recording, run } = this.runInScope(caller, recordingId, runId);
     const stale = (await this.staleness([run])).get(run.id) ?? [];
-    return this.bodies.get(`${run.id} results ${JSON.stringify(stale)}`, async () => {
+    const key = `${run.id} results ${JSON.stringify([stale, sourceOf(recording)])}`;
+    return this.bodies.get(key, async () => {
       const full = await this.storedRun(run.id);
       return encodeJson(roundedResults(toResultsDto(full, recording, stale)));
     });
@@ -262,7 +323,7 @@ export class AnalysisRunsService {
 
   /** `GET …/results/raster`: the region of interest's trial raster and per-trial Δf. */
   async rasterBody(caller: Caller, recordingId: string, runId?: string): Promise<EncodedBody> {
-    const { run } = await this.runInScope(caller, recordingId, runId);
+    const { run } = this.runInScope(caller, recordingId, runId);
     return this.bodies.get(`${run.id} raster`, async () => {
       const full = await this.storedRun(run.id);
       const raster = trialRasterOf(summaryOf(full), decodeResultSeries(full.series));
@@ -285,7 +346,7 @@ export class AnalysisRunsService {
     channel: string,
     runId?: string,
   ): Promise<EncodedBody> {
-    const { run } = await this.runInScope(caller, recordingId, runId);
+    const { run } = this.runInScope(caller, recordingId, runId);
     return this.bodies.get(`${run.id} curve ${channel}`, async () => {
       const full = await this.storedRun(run.id);
       const summary = summaryOf(full);
@@ -308,26 +369,42 @@ export class AnalysisRunsService {
 
   /**
    * The recording and the run a results route names, both checked against the caller's
-   * scope on every request (404 otherwise). The run is read without its curves.
+   * scope on every request (404 otherwise), as `RecordingsService.findInScope` and
+   * `scopedWhere` check them, in one prepared statement (the hot path of every results
+   * route). The run is read without its curves or summary.
    */
-  private async runInScope(
+  private runInScope(
     caller: Caller,
     recordingId: string,
     runId: string | undefined,
-  ): Promise<{ recording: Recording; run: AnalysisRun }> {
-    const recording = await this.recordings.findInScope(caller, recordingId, 'read', 'Result');
-    const wanted = runId ?? recording.latestRunId;
-    const run =
-      wanted === null
-        ? null
-        : await this.dataSource.getRepository(AnalysisRun).findOne({
-            where: scopedWhere<AnalysisRun>(caller.ability, 'read', 'Result', {
-              recordingId,
-              id: wanted,
-            }),
-            select: { id: true, visitId: true, studyId: true, kind: true, settingsJson: true },
-          });
-    if (run === null) {
+  ): { recording: ScopedRecording; run: RunHead } {
+    const recordingScope = scopeSql(caller.ability, 'read', 'Result', 'recording');
+    const runScope = scopeSql(caller.ability, 'read', 'Result', 'run');
+    const row = this.reads.one<ScopedRecording & RunHeadColumns>(
+      `SELECT recording."id" AS "id", recording."kind" AS "kind",
+          recording."createdAt" AS "createdAt", recording."checksumSha256" AS "checksumSha256",
+          recording."replacesId" AS "replacesId",
+          recording."replacementReason" AS "replacementReason",
+          recording."latestRunId" AS "latestRunId",
+          run."id" AS "runId", run."visitId" AS "runVisitId", run."studyId" AS "runStudyId",
+          run."kind" AS "runKind", run."settingsJson" AS "runSettingsJson"
+        FROM "recording" recording
+        LEFT JOIN "analysis_run" run
+          ON run."recordingId" = recording."id"
+          AND run."id" = coalesce(?, recording."latestRunId")
+          AND ${runScope.sql}
+        WHERE recording."id" = ? AND ${recordingScope.sql}`,
+      [runId ?? null, ...runScope.params, recordingId, ...recordingScope.params],
+    );
+    if (row === null) {
+      throw new GyreException(
+        ErrorKind.NotFound,
+        RecordingsError.NotFound,
+        `No recording ${recordingId}.`,
+        { recordingId },
+      );
+    }
+    if (row.runId === null) {
       throw new GyreException(
         ErrorKind.NotFound,
         runId === undefined ? AnalysisError.NoResultsYet : AnalysisError.RunNotFound,
@@ -337,6 +414,22 @@ export class AnalysisRunsService {
         { recordingId, runId: runId ?? null },
       );
     }
+    const recording: ScopedRecording = {
+      id: row.id,
+      kind: row.kind,
+      createdAt: row.createdAt,
+      checksumSha256: row.checksumSha256,
+      replacesId: row.replacesId,
+      replacementReason: row.replacementReason,
+      latestRunId: row.latestRunId,
+    };
+    const run: RunHead = {
+      id: row.runId,
+      visitId: row.runVisitId,
+      studyId: row.runStudyId,
+      kind: row.runKind,
+      settingsJson: row.runSettingsJson,
+    };
     return { recording, run };
   }
 
@@ -356,22 +449,12 @@ export class AnalysisRunsService {
     return run === null ? null : (JSON.parse(run.summaryJson) as RunSummary).quality;
   }
 
-  /** For each run: what the visit's current settings would compute differently, in words. */
-  async staleness(runs: readonly AnalysisRun[]): Promise<Map<string, string[]>> {
-    const out = new Map<string, string[]>();
-    const byVisit = new Map<string, SettingsValues>();
-    for (const run of runs) {
-      let current = byVisit.get(run.visitId);
-      if (current === undefined) {
-        current = (await this.overrides.effectiveFor(run.studyId, run.visitId)).settings;
-        byVisit.set(run.visitId, current);
-      }
-      out.set(
-        run.id,
-        staleSettingsPhrases(run.kind, parseStoredSettings(run.settingsJson), current),
-      );
-    }
-    return out;
+  /**
+   * For each run: what the visit's current settings would compute differently, in words
+   * (read live on every call; see settings-staleness.ts).
+   */
+  staleness(runs: readonly StalenessInput[]): Promise<Map<string, string[]>> {
+    return this.stale.forRuns(runs);
   }
 }
 
@@ -443,6 +526,25 @@ export function toRunDto(run: AnalysisRun, staleSettings: string[]): AnalysisRun
   };
 }
 
+function deepFreeze<T>(value: T): T {
+  if (typeof value === 'object' && value !== null) {
+    for (const inner of Object.values(value)) deepFreeze(inner);
+    Object.freeze(value);
+  }
+  return value;
+}
+
+function sourceOf(recording: ResultsSource): RecordingResultsDto['source'] {
+  return {
+    recordingId: recording.id,
+    kind: recording.kind,
+    uploadedAt: recording.createdAt,
+    checksumSha256: recording.checksumSha256,
+    replacesId: recording.replacesId,
+    replacementReason: recording.replacementReason,
+  };
+}
+
 function plain(values: Float64Array | undefined): number[] {
   return values === undefined ? [] : Array.from(values);
 }
@@ -458,7 +560,7 @@ function summaryOf(run: Pick<AnalysisRun, 'summaryJson'>): RunSummary {
  */
 export function toResultsDto(
   run: AnalysisRun,
-  recording: Recording,
+  recording: ResultsSource,
   staleSettings: string[],
 ): RecordingResultsDto {
   const summary = summaryOf(run);
@@ -489,14 +591,7 @@ export function toResultsDto(
         };
   return {
     run: toRunDto(run, staleSettings),
-    source: {
-      recordingId: recording.id,
-      kind: recording.kind,
-      uploadedAt: recording.createdAt,
-      checksumSha256: recording.checksumSha256,
-      replacesId: recording.replacesId,
-      replacementReason: recording.replacementReason,
-    },
+    source: sourceOf(recording),
     channels: summary.channels,
     task,
     rest,

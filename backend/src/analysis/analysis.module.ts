@@ -7,6 +7,7 @@ import { AnalysisRunsService } from './analysis-runs.service';
 import { AnalysisSettingsController } from './analysis-settings.controller';
 import { AnalysisSettingsService } from './analysis-settings.service';
 import { ResultsBodyCache } from './results-body-cache';
+import { SettingsStaleness } from './settings-staleness';
 import { VisitAnalysisOverrideController } from './visit-analysis-override.controller';
 import { VisitAnalysisOverridesService } from './visit-analysis-overrides.service';
 
@@ -22,6 +23,7 @@ import { VisitAnalysisOverridesService } from './visit-analysis-overrides.servic
     AnalysisSettingsService,
     AnalysisRunsService,
     VisitAnalysisOverridesService,
+    SettingsStaleness,
     // One cache per process, built here so Nest does not try to inject its byte bound.
     { provide: ResultsBodyCache, useFactory: () => new ResultsBodyCache() },
   ],

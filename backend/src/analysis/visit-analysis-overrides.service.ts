@@ -170,7 +170,12 @@ function normalised(values: VisitAnalysisOverrideValues): VisitAnalysisOverrideV
 }
 
 function valuesOfOverride(row: VisitAnalysisOverride): VisitAnalysisOverrideValues {
-  return normalised(JSON.parse(row.valuesJson) as VisitAnalysisOverrideValues);
+  return valuesOfOverrideJson(row.valuesJson);
+}
+
+/** An override row's stored values, as `effectiveFor` lays them over the study's settings. */
+export function valuesOfOverrideJson(valuesJson: string): VisitAnalysisOverrideValues {
+  return normalised(JSON.parse(valuesJson) as VisitAnalysisOverrideValues);
 }
 
 function toOverrideDto(

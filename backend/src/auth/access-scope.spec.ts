@@ -5,7 +5,8 @@ import { DataSource } from 'typeorm';
 import { defineAbilityFor } from '@gyre/shared';
 import { GyreException } from '../common/errors/gyre.exception';
 import { Participant } from '../participants/participant.entity';
-import { applyScope, membershipScope, scopedWhere } from './access-scope';
+import { sqliteHandleOf } from '../common/database/sqlite-handle';
+import { applyScope, membershipScope, scopedWhere, scopeSql } from './access-scope';
 
 // A real SQLite file with just the participant table: the scope must work in SQL, not in JS.
 describe('row scope in the query', () => {
@@ -23,9 +24,11 @@ describe('row scope in the query', () => {
       entities: [Participant],
     });
     await db.initialize();
-    await db.query(
-      `CREATE TABLE "participant" ("id" varchar PRIMARY KEY, "studyId" varchar, "siteId" varchar, "code" varchar, "createdAt" varchar, "updatedAt" varchar)`,
-    );
+    // Every column the entity maps (others add columns), untyped: only the scope matters here.
+    const columns = db
+      .getMetadata(Participant)
+      .columns.map((c) => `"${c.databaseName}"${c.isPrimary ? ' varchar PRIMARY KEY' : ''}`);
+    await db.query(`CREATE TABLE "participant" (${columns.join(', ')})`);
     const at = '2026-01-01T00:00:00.000Z';
     for (const [id, studyId, siteId] of [
       ['p1', 'S1', 'A'],
@@ -90,6 +93,59 @@ describe('row scope in the query', () => {
 
   it('no rule at all is a 403, never an unfiltered query', () => {
     expect(() => scopedWhere<Participant>(admin, 'read', 'Participant')).toThrow(GyreException);
+    expect(() => scopeSql(admin, 'read', 'Participant', 'p')).toThrow(GyreException);
+  });
+
+  it('scopeSql: the same rows as scopedWhere, in raw SQL with bound values', () => {
+    const idsWhere = (ability: typeof tech, extra = '', extraParams: string[] = []): string[] => {
+      const scope = scopeSql(ability, 'read', 'Participant', 'p');
+      return (
+        sqliteHandleOf(db)
+          .prepare(`SELECT "id" FROM "participant" p WHERE ${scope.sql}${extra}`)
+          .all(...scope.params, ...extraParams) as { id: string }[]
+      )
+        .map((row) => row.id)
+        .sort();
+    };
+    expect(idsWhere(tech)).toEqual(['p1']);
+    expect(idsWhere(analyst)).toEqual(['p1', 'p2']);
+    // An id outside the scope finds nothing.
+    expect(idsWhere(tech, ` AND p."id" = ?`, ['p2'])).toEqual([]);
+    // Values are bound, never written into the text.
+    const scope = scopeSql(tech, 'read', 'Participant', 'p');
+    expect(scope.sql).toBe('((p."studyId" = ? AND p."siteId" = ?))');
+    expect(scope.params).toEqual(['S1', 'A']);
+    // A rule without conditions is the whole table.
+    expect(scopeSql(admin, 'read', 'Study', 's')).toEqual({ sql: '1', params: [] });
+  });
+
+  it('scopeSql: $in conditions (a coordinator sees signed and sent reports of the site only)', () => {
+    const coordinator = defineAbilityFor({
+      id: 'u4',
+      role: 'coordinator',
+      studyId: 'S1',
+      siteId: 'A',
+    });
+    const handle = sqliteHandleOf(db);
+    handle
+      .prepare(
+        `CREATE TABLE IF NOT EXISTS "report_scope" ("id" varchar PRIMARY KEY, "studyId" varchar, "siteId" varchar, "state" varchar)`,
+      )
+      .run();
+    const rows: [string, string, string, string][] = [
+      ['r1', 'S1', 'A', 'signed'],
+      ['r2', 'S1', 'A', 'draft'],
+      ['r3', 'S1', 'A', 'sent'],
+      ['r4', 'S1', 'B', 'signed'],
+    ];
+    for (const row of rows) {
+      handle.prepare(`INSERT INTO "report_scope" VALUES (?, ?, ?, ?)`).run(...row);
+    }
+    const scope = scopeSql(coordinator, 'read', 'Report', 'r');
+    const found = handle
+      .prepare(`SELECT "id" FROM "report_scope" r WHERE ${scope.sql} ORDER BY "id"`)
+      .all(...scope.params) as { id: string }[];
+    expect(found.map((row) => row.id)).toEqual(['r1', 'r3']);
   });
 
   it('membershipScope gives the plain study/site of a user', () => {

@@ -142,6 +142,52 @@ export function applyScope<T extends ObjectLiteral>(
   );
 }
 
+/** A condition for raw SQL: its text with `?` placeholders and the values, in order. */
+export interface ScopeSql {
+  sql: string;
+  params: (string | number | null)[];
+}
+
+const COLUMN_NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
+
+/**
+ * For raw SQL (`SqliteReads`): `((alias."f1" = ? AND …) OR (…))` with its values, or `1`
+ * when the scope is the whole table; the same rules and the same 404 as `scopedWhere`.
+ */
+export function scopeSql(
+  ability: AppAbility,
+  action: Action,
+  subjectName: SubjectName,
+  alias: string,
+): ScopeSql {
+  const branches = scopeConditionsOf(ability, action, subjectName);
+  if (branches.some((branch) => Object.keys(branch).length === 0)) return { sql: '1', params: [] };
+  const params: (string | number | null)[] = [];
+  const bind = (value: unknown): string => {
+    if (typeof value === 'boolean') params.push(value ? 1 : 0);
+    else if (typeof value === 'string' || typeof value === 'number') params.push(value);
+    else throw new Error(`Unsupported value in a scope for SQL: ${JSON.stringify(value)}`);
+    return '?';
+  };
+  const ors = branches.map((branch) => {
+    const ands = Object.entries(branch).map(([field, value]) => {
+      if (!COLUMN_NAME.test(field) || !COLUMN_NAME.test(alias)) {
+        throw new Error(`Not a column: ${alias}.${field}`);
+      }
+      const column = `${alias}."${field}"`;
+      if (value === null) return `${column} IS NULL`;
+      if (typeof value === 'object') {
+        return value.$in.length === 0
+          ? '0'
+          : `${column} IN (${value.$in.map((v) => bind(v)).join(', ')})`;
+      }
+      return `${column} = ${bind(value)}`;
+    });
+    return `(${ands.join(' AND ')})`;
+  });
+  return { sql: `(${ors.join(' OR ')})`, params };
+}
+
 /**
  * The simple `{ studyId, siteId? }` scope of a user's membership, for code that only needs
  * "which study and site does this user belong to" (admins: no restriction).

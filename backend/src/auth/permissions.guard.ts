@@ -1,6 +1,11 @@
 import { CanActivate, ExecutionContext, Injectable } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
-import { defineAbilityFor, defineWorkerAbility, type AppAbility } from '@gyre/shared';
+import {
+  defineAbilityFor,
+  defineWorkerAbility,
+  type AbilityUser,
+  type AppAbility,
+} from '@gyre/shared';
 import { IS_PUBLIC_KEY } from '../common/decorators/public.decorator';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { AuthError } from './auth.errors';
@@ -56,6 +61,32 @@ export class PermissionsGuard implements CanActivate {
   }
 }
 
+/** Distinct users whose abilities are kept; past it, the oldest goes. */
+const KEPT_ABILITIES = 1000;
+const abilities = new Map<string, AppAbility>();
+const WORKER_ABILITY = defineWorkerAbility();
+
+/**
+ * The CASL ability of a user, built once per distinct (id, role, study, site): the rules
+ * depend on nothing else (`AbilityUser`), so a kept ability can never be out of date; a user
+ * whose role or site changes has another key (and a new sign-in). Nothing mutates abilities.
+ */
+export function abilityOf(user: AbilityUser): AppAbility {
+  const key = `${user.id}\n${user.role}\n${user.studyId ?? ''}\n${user.siteId ?? ''}`;
+  let ability = abilities.get(key);
+  if (ability === undefined) {
+    ability = defineAbilityFor({
+      id: user.id,
+      role: user.role,
+      studyId: user.studyId,
+      siteId: user.siteId,
+    });
+    if (abilities.size >= KEPT_ABILITIES) abilities.delete(abilities.keys().next().value as string);
+    abilities.set(key, ability);
+  }
+  return ability;
+}
+
 interface CallerAbility {
   kind: 'user' | 'worker';
   ability: AppAbility;
@@ -68,7 +99,7 @@ function callerOf(request: GyreRequest): CallerAbility {
   if (request.worker !== undefined) {
     return {
       kind: 'worker',
-      ability: defineWorkerAbility(),
+      ability: WORKER_ABILITY,
       who: 'A worker token',
       details: { principal: 'worker' },
     };
@@ -78,7 +109,7 @@ function callerOf(request: GyreRequest): CallerAbility {
   }
   return {
     kind: 'user',
-    ability: defineAbilityFor(request.user),
+    ability: abilityOf(request.user),
     who: capitalise(aRole(request.user.role)),
     details: { role: request.user.role },
   };

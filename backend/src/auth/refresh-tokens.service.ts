@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Inject, Injectable, Optional } from '@nestjs/common';
 import { EntityManager, IsNull } from 'typeorm';
+import { SqliteReads } from '../common/database/sqlite-reads.service';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { isoAfter, nowIso } from '../common/time';
 import { AuthError } from './auth.errors';
@@ -40,6 +41,7 @@ export type RotationOutcome =
 @Injectable()
 export class RefreshTokens {
   constructor(
+    private readonly reads: SqliteReads,
     @Optional()
     @Inject(REFRESH_REUSE_GRACE)
     private readonly reuseGraceMs: number = REFRESH_REUSE_GRACE_MS,
@@ -89,9 +91,18 @@ export class RefreshTokens {
     return { kind: 'rotated', userId: token.userId, ...next };
   }
 
-  /** Whether the session (refresh family) an access token names is still open. */
-  isLive(manager: EntityManager, userId: string, familyId: string): Promise<boolean> {
-    return manager.exists(RefreshToken, { where: { userId, familyId, revokedAt: IsNull() } });
+  /**
+   * Whether the session (refresh family) an access token names is still open: read live on
+   * every request (a prepared statement), so that ending a session refuses its access tokens
+   * at the next request, whoever ended it (this service, or the lock trigger in SQLite).
+   */
+  isLive(userId: string, familyId: string): boolean {
+    return (
+      this.reads.one<{ live: number }>(
+        `SELECT 1 AS "live" FROM "refresh_token" WHERE "familyId" = ? AND "userId" = ? AND "revokedAt" IS NULL LIMIT 1`,
+        [familyId, userId],
+      ) !== null
+    );
   }
 
   /** Sign-out: the family of the presented token (used or not). Returns its user, if known. */

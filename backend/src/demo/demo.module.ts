@@ -2,6 +2,7 @@ import { DynamicModule, Module } from '@nestjs/common';
 import { AccountsModule } from '../accounts/accounts.module';
 import { AuditModule } from '../audit/audit.module';
 import { PasswordHasher } from '../auth/password-hasher.service';
+import { CommonDatabaseModule } from '../common/database/common-database.module';
 import { AppConfigModule } from '../config/config.module';
 import { DatabaseModule } from '../database/database.module';
 import { DemoSeedService } from './demo-seed.service';
@@ -15,7 +16,13 @@ export class DemoModule {
   static forRoot(env: Record<string, unknown> = process.env): DynamicModule {
     return {
       module: DemoModule,
-      imports: [AppConfigModule.forRoot(env), DatabaseModule, AuditModule, AccountsModule],
+      imports: [
+        AppConfigModule.forRoot(env),
+        DatabaseModule,
+        CommonDatabaseModule,
+        AuditModule,
+        AccountsModule,
+      ],
       providers: [DemoSeedService, PasswordHasher],
       exports: [DemoSeedService],
     };

@@ -10,6 +10,10 @@ let parameterCount = 0;
 export function containsText(q: string): FindOperator<string> {
   // Unique per call: two filters in one query (code OR name) must not share a parameter.
   const name = `containsText${++parameterCount}`;
-  const pattern = `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-  return Raw((column) => `${column} LIKE :${name} ESCAPE '\\'`, { [name]: pattern });
+  return Raw((column) => `${column} LIKE :${name} ESCAPE '\\'`, { [name]: likePattern(q) });
+}
+
+/** The LIKE pattern of `containsText`, for raw SQL: `column LIKE ? ESCAPE '\'`. */
+export function likePattern(q: string): string {
+  return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 }

@@ -1,5 +1,6 @@
 /**
- * `npm run load [-- --clients N] [--seconds N] [--participants N]`
+ * `npm run load [-- --clients N] [--seconds N] [--participants N] [--routes NAME,…]
+ * [--cpu-prof DIR]`
  *
  * A load figure for docs/reliability.md and docs/performance.md, not a test: starts the built
  * server on a fresh data folder, gives one participant three visits, each with a generated
@@ -9,11 +10,15 @@
  * br`). Prints per route the requests, errors, p50/p99/max latency and bytes on the wire, then
  * times a backup of the folder while the server runs. Client and server share the machine's
  * cores; the load average is printed beside the figures. Needs a built backend.
+ *
+ * `--routes` drives only the named routes (results, raster, curves, participants, trajectory);
+ * `--cpu-prof DIR` records the server's CPU profile over the whole run and leaves it in DIR (a
+ * `.cpuprofile` for Chrome DevTools' Performance panel; see server-cpu-profile.ts).
  */
-import { copyFileSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { request as httpRequest } from 'node:http';
 import { loadavg, tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import autocannon from 'autocannon';
 import type { Page, ParticipantView, RecordingDto, RecordingResultsDto } from '@gyre/shared';
 import { DataSource } from 'typeorm';
@@ -26,6 +31,8 @@ import { LABELS_64, rest64Edf, task64Edf } from './load-recordings';
 
 const JWT_SECRET = 'gyre-load-run-secret-0123456789abcdefghijklmnop';
 const BROWSER_ENCODINGS = 'gzip, deflate, br';
+const ROUTE_NAMES = ['results', 'raster', 'curves', 'participants', 'trajectory'] as const;
+type RouteName = (typeof ROUTE_NAMES)[number];
 const VISITS = [
   { label: 'V1', date: '2026-01-15', peakHz: 10.2 },
   { label: 'V2', date: '2026-07-15', peakHz: 10.0 },
@@ -68,6 +75,36 @@ function option(argv: readonly string[], name: string, fallback: number): number
   const value = Number(argv[at + 1]);
   if (!Number.isSafeInteger(value) || value < 1) throw new Error(`${name}: a positive integer`);
   return value;
+}
+
+function textOption(argv: readonly string[], name: string): string | null {
+  const at = argv.indexOf(name);
+  if (at === -1) return null;
+  const value = argv[at + 1];
+  if (value === undefined || value.startsWith('--')) throw new Error(`${name}: a value`);
+  return value;
+}
+
+function routesOption(argv: readonly string[]): Set<RouteName> {
+  const text = textOption(argv, '--routes');
+  if (text === null) return new Set(ROUTE_NAMES);
+  const names = text.split(',').map((n) => n.trim());
+  const unknown = names.filter((n) => !(ROUTE_NAMES as readonly string[]).includes(n));
+  if (unknown.length > 0) {
+    throw new Error(`--routes: unknown ${unknown.join(', ')}; known: ${ROUTE_NAMES.join(', ')}`);
+  }
+  return new Set(names as RouteName[]);
+}
+
+/** The environment of a profiled server (see server-cpu-profile.ts). */
+function profiledServerEnv(dir: string | null): Record<string, string> {
+  if (dir === null) return {};
+  mkdirSync(dir, { recursive: true });
+  return {
+    // Quoted: NODE_OPTIONS splits on spaces otherwise.
+    NODE_OPTIONS: `--require="${join(__dirname, 'server-cpu-profile.js')}"`,
+    GYRE_CPU_PROFILE_DIR: resolve(dir),
+  };
 }
 
 function load(): string {
@@ -207,10 +244,20 @@ async function main(): Promise<number> {
   const clients = option(argv, '--clients', 50);
   const seconds = option(argv, '--seconds', 20);
   const participantCount = option(argv, '--participants', 24);
+  const wanted = routesOption(argv);
+  const profileDir = textOption(argv, '--cpu-prof');
   const dataDir = mkdtempSync(join(tmpdir(), 'gyre-load-'));
-  const server = await startServer(dataDir, JWT_SECRET, join(dataDir, 'server.log'));
+  const server = await startServer(
+    dataDir,
+    JWT_SECRET,
+    join(dataDir, 'server.log'),
+    undefined,
+    profiledServerEnv(profileDir),
+  );
   server.child.once('exit', (code, signal) => {
-    if (signal !== 'SIGTERM') console.error(`load: the server stopped (exit ${code}, ${signal})`);
+    // A profiled server exits normally after its shutdown hooks (server-cpu-profile.ts).
+    const stopped = signal === 'SIGTERM' || (profileDir !== null && code === 0);
+    if (!stopped) console.error(`load: the server stopped (exit ${code}, ${signal})`);
   });
   const dataSource = new DataSource({
     ...sqliteOptions(join(dataDir, 'gyre.sqlite')),
@@ -261,15 +308,20 @@ async function main(): Promise<number> {
     const resultsPath = `/api/recordings/${task.id}/results`;
     const results = await api<RecordingResultsDto>(server.url, 'GET', resultsPath, analyst);
     const channel = results.body.task?.curveChannels[0];
-    const routes = [
-      resultsPath,
-      `/api/recordings/${task.id}/results/raster`,
-      ...(channel === undefined
-        ? []
-        : [`/api/recordings/${task.id}/results/curves?channel=${encodeURIComponent(channel)}`]),
-      '/api/participants',
-      `/api/participants/${participantId}/trajectory`,
-    ];
+    const paths: Record<RouteName, string | null> = {
+      results: resultsPath,
+      raster: `/api/recordings/${task.id}/results/raster`,
+      curves:
+        channel === undefined
+          ? null
+          : `/api/recordings/${task.id}/results/curves?channel=${encodeURIComponent(channel)}`,
+      participants: '/api/participants',
+      trajectory: `/api/participants/${participantId}/trajectory`,
+    };
+    const routes = ROUTE_NAMES.flatMap((name) => {
+      const path = paths[name];
+      return wanted.has(name) && path !== null ? [path] : [];
+    });
     console.log(`sizes of one answer (body bytes; load average ${load()}):`);
     for (const path of routes) {
       const plain = await wireSize(server.url, path, analyst, 'identity');
@@ -314,6 +366,7 @@ async function main(): Promise<number> {
     await dataSource.destroy();
     await stopServer(server, 'SIGTERM');
     rmSync(dataDir, { recursive: true, force: true });
+    if (profileDir !== null) console.log(`load: the server's CPU profile is in ${profileDir}`);
   }
 }
 
