@@ -29,6 +29,7 @@ import { RemoteWorkersModule } from './remote-workers/remote-workers.module';
 import { VisitReviewsModule } from './visit-reviews/visit-reviews.module';
 import { WorklistModule } from './worklist/worklist.module';
 import { StudyExportsModule } from './study-exports/study-exports.module';
+import { StudyOverviewModule } from './study-overview/study-overview.module';
 
 @Module({})
 export class AppModule implements NestModule {
@@ -66,6 +67,7 @@ export class AppModule implements NestModule {
         VisitReviewsModule,
         WorklistModule,
         StudyExportsModule,
+        StudyOverviewModule,
       ],
     };
   }

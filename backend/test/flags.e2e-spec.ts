@@ -180,14 +180,42 @@ describe('flags, reports and trajectory', () => {
     expect(v1.pafChangeHz).toBe(0);
     expect(v2.pafChangeHz).toBeCloseTo((v2.pafHz ?? 0) - (v1.pafHz ?? 0), 12);
     expect(v2.deltaFHz).toBeLessThan(-0.5);
+    // The study's rule (3 visits over 90 days) gives no slope from two visits, and says why.
+    expect(trajectory.trendRule).toEqual({ minVisits: 3, minSpanDays: 90 });
+    expect(trajectory.trends.paf).toEqual({
+      slopeHzPerYear: null,
+      reason: 'too-few-visits',
+      visits: 2,
+      spanDays: 182,
+    });
+    expect(trajectory.slopesHzPerYear.paf).toBeNull();
+    // With the study's rule at two visits, the slope appears.
+    const studyId = t.seed.studies.A.id;
+    const admin = await t.authHeader('admin');
+    await request(t.url)
+      .patch(`/api/studies/${studyId}`)
+      .set(admin)
+      .send({ trendMinVisits: 2 })
+      .expect(200);
+    const allowed = (
+      await request(t.url)
+        .get(`/api/participants/${t.seed.participants.A1.id}/trajectory`)
+        .set(await t.authHeader('monitor'))
+    ).body as TrajectoryDto;
+    await request(t.url)
+      .patch(`/api/studies/${studyId}`)
+      .set(admin)
+      .send({ trendMinVisits: 3 })
+      .expect(200);
+    expect(allowed.trends.paf.reason).toBeNull();
     // Two points: the Theil–Sen slope is the slope of the line through them;
     // 2026-01-15 → 2026-07-16 is 182 days (calendar), years of 365.25 days.
     const years = 182 / 365.25;
-    expect(trajectory.slopesHzPerYear.paf).toBeCloseTo(
+    expect(allowed.slopesHzPerYear.paf).toBeCloseTo(
       ((v2.pafHz ?? 0) - (v1.pafHz ?? 0)) / years,
       10,
     );
-    expect(trajectory.slopesHzPerYear.cog).toBeCloseTo(
+    expect(allowed.trends.cog.slopeHzPerYear).toBeCloseTo(
       ((v2.cogHz ?? 0) - (v1.cogHz ?? 0)) / years,
       10,
     );

@@ -11,3 +11,4 @@ export * from './worker-tokens';
 export * from './worklist';
 export * from './visit-schedule';
 export * from './bulk-uploads';
+export * from './study-overview';

@@ -503,9 +503,30 @@ export interface TrajectoryVisitDto {
   doubts: string[];
 }
 
+/**
+ * Why a trend has no slope: fewer visits with a value than the study's `trendMinVisits`, or
+ * those visits span fewer days than its `trendMinSpanDays`.
+ */
+export type TrendReason = 'too-few-visits' | 'span-too-short';
+
+/** One measure's trend over a participant's visits and whether the study's rule allows it. */
+export interface TrendDto {
+  /** Theil–Sen slope over visit dates, Hz per year; null when the rule does not allow one. */
+  slopeHzPerYear: number | null;
+  /** Null when a slope is given. */
+  reason: TrendReason | null;
+  /** Visits with a value of this measure. */
+  visits: number;
+  /** Days from the first to the last of those visits (0 with fewer than two). */
+  spanDays: number;
+}
+
 export interface TrajectoryDto {
   participantId: string;
   visits: TrajectoryVisitDto[];
-  /** Theil–Sen slopes over visit dates, Hz per year; null with fewer than two visits. */
+  /** The study's rule: a slope needs this many visits with a value spanning this many days. */
+  trendRule: { minVisits: number; minSpanDays: number };
+  trends: { paf: TrendDto; cog: TrendDto; deltaF: TrendDto };
+  /** The trends' slopes (null where the rule gives none); kept for older readers. */
   slopesHzPerYear: { paf: number | null; cog: number | null; deltaF: number | null };
 }

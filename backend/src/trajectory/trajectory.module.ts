@@ -1,14 +1,12 @@
 import { Module } from '@nestjs/common';
 import { AnalysisModule } from '../analysis/analysis.module';
-import { FlagsModule } from '../flags/flags.module';
-import { ParticipantsModule } from '../participants/participants.module';
-import { VisitsModule } from '../visits/visits.module';
+import { TrajectoryInputs } from './trajectory-inputs';
 import { TrajectoryController } from './trajectory.controller';
 import { TrajectoryService } from './trajectory.service';
 
 @Module({
-  imports: [AnalysisModule, FlagsModule, ParticipantsModule, VisitsModule],
+  imports: [AnalysisModule],
   controllers: [TrajectoryController],
-  providers: [TrajectoryService],
+  providers: [TrajectoryService, TrajectoryInputs],
 })
 export class TrajectoryModule {}

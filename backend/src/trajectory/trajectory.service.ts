@@ -1,33 +1,30 @@
 import { Injectable } from '@nestjs/common';
-import type { TrajectoryDto, TrajectoryVisitDto } from '@gyre/shared';
+import type { TrajectoryDto, TrajectoryVisitDto, TrendDto } from '@gyre/shared';
 import { AnalysisRunsService, type RunNumbers } from '../analysis/analysis-runs.service';
 import type { Caller } from '../auth/decorators';
 import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { FlagsService } from '../flags/flags.service';
-import { ParticipantsService } from '../participants/participants.service';
-import { VisitsService } from '../visits/visits.service';
-import { theilSenSlope, yearsBetween } from './theil-sen';
 import { TrajectoryError } from './trajectory.errors';
+import { TrajectoryInputs } from './trajectory-inputs';
+import { trendOf } from './trend-rule';
 
 type Metric = 'pafHz' | 'cogHz' | 'deltaFHz';
 
 /**
  * A participant's course over visits (docs/method.md §5): PAF and CoG of the current resting
  * numbers and Δf of the current task numbers per visit (never a superseded recording's),
- * change from the first visit with a value, Theil–Sen slope in Hz per year over visit dates,
- * and the visits an analyst flagged.
+ * change from the first visit with a value, Theil–Sen slope in Hz per year over visit dates
+ * where the study's trend rule allows one (trend-rule.ts), and the visits an analyst flagged.
  */
 @Injectable()
 export class TrajectoryService {
   constructor(
     private readonly runs: AnalysisRunsService,
-    private readonly participants: ParticipantsService,
-    private readonly visits: VisitsService,
-    private readonly flags: FlagsService,
+    // Participant, visits, flags and trend rule by prepared statements (a hot route).
+    private readonly inputs: TrajectoryInputs,
   ) {}
 
   async forParticipant(caller: Caller, participantId: string): Promise<TrajectoryDto> {
-    const participant = await this.participants.inScopeOf(caller, 'read', 'Result', participantId);
+    const participant = this.inputs.participantInScope(caller, participantId);
     if (participant === null) {
       throw new GyreException(
         ErrorKind.NotFound,
@@ -36,12 +33,11 @@ export class TrajectoryService {
         { participantId },
       );
     }
-    const visits = await this.visits.ofParticipant(participantId);
+    const visits = this.inputs.visitsOf(participantId);
     const visitIds = visits.map((v) => v.id);
     // Headline columns only: whole rows would carry every run's packed curves.
     const runs = await this.runs.currentRunNumbersOfVisits(visitIds);
-    const flags = await this.flags.forVisits(visitIds);
-    const flagged = new Set(flags.filter((f) => f.state === 'raised').map((f) => f.visitId));
+    const flagged = this.inputs.raisedFlagVisitIds(visitIds);
 
     const rows = visits.map((visit) => {
       const rest = runs.find((r) => r.visitId === visit.id && r.kind === 'resting');
@@ -58,15 +54,16 @@ export class TrajectoryService {
     const baseline = { pafHz: first('pafHz'), cogHz: first('cogHz'), deltaFHz: first('deltaFHz') };
     const change = (metric: Metric, value: number | null): number | null =>
       value === null || baseline[metric] === null ? null : value - baseline[metric];
-    const firstDate = visits[0]?.visitDate;
-    const slope = (metric: Metric): number | null => {
-      if (firstDate === undefined) return null;
-      const points = rows.flatMap((r) => {
-        const y = r[metric];
-        return y === null ? [] : [{ x: yearsBetween(firstDate, r.visit.visitDate), y }];
-      });
-      return theilSenSlope(points);
-    };
+    const rule = this.inputs.trendRuleOf(participant.studyId);
+    const trend = (metric: Metric): TrendDto =>
+      trendOf(
+        rows.flatMap((r) => {
+          const value = r[metric];
+          return value === null ? [] : [{ date: r.visit.visitDate, value }];
+        }),
+        rule,
+      );
+    const trends = { paf: trend('pafHz'), cog: trend('cogHz'), deltaF: trend('deltaFHz') };
     const out: TrajectoryVisitDto[] = rows.map((r) => ({
       visitId: r.visit.id,
       label: r.visit.label,
@@ -83,7 +80,13 @@ export class TrajectoryService {
     return {
       participantId,
       visits: out,
-      slopesHzPerYear: { paf: slope('pafHz'), cog: slope('cogHz'), deltaF: slope('deltaFHz') },
+      trendRule: rule,
+      trends,
+      slopesHzPerYear: {
+        paf: trends.paf.slopeHzPerYear,
+        cog: trends.cog.slopeHzPerYear,
+        deltaF: trends.deltaF.slopeHzPerYear,
+      },
     };
   }
 }

@@ -22,6 +22,12 @@ export const NAV_ENTRIES: readonly NavEntry[] = [
     can: ['read', 'Result'],
   },
   {
+    path: paths.studyOverview,
+    label: 'Study overview',
+    roles: ['analyst', 'monitor', 'admin'],
+    can: ['read', 'StudyOverview'],
+  },
+  {
     path: paths.studySettings,
     label: 'Study settings',
     roles: ['analyst', 'monitor'],

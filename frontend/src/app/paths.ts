@@ -17,6 +17,8 @@ export const paths = {
   studySettings: '/study-settings',
   /** An admin's set-up of each study: visit schedule, groups, trend settings. */
   studySetup: '/study-setup',
+  /** Group courses over the planned visits, completion and site quality (`?study=` for admins). */
+  studyOverview: '/study-overview',
   team: '/team',
   outbox: '/outbox',
 } as const;

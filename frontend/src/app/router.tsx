@@ -84,6 +84,16 @@ const SCREENS: ScreenRoute[] = [
     },
   },
   {
+    path: paths.studyOverview,
+    screen: 'Study overview',
+    requires: ['read', 'StudyOverview'],
+    load: async () => {
+      const { StudyOverviewPage } =
+        await import('../features/study-overview/components/study-overview-page');
+      return <StudyOverviewPage />;
+    },
+  },
+  {
     path: paths.team,
     screen: 'Team',
     requires: ['update', 'User'],

@@ -4,7 +4,13 @@ import { describe, expect, it, vi } from 'vitest';
 import { meFor } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
-import { GROUPS, PARTICIPANT, TRAJECTORY, VISITS } from '../testing/participant-fixtures';
+import {
+  GROUPS,
+  PARTICIPANT,
+  TRAJECTORY,
+  TRAJECTORY_TOO_FEW,
+  VISITS,
+} from '../testing/participant-fixtures';
 
 // jsdom has no canvas for the chart library: a stand-in shows which marks would be drawn.
 vi.mock(
@@ -48,7 +54,7 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
     expect(
       (await within(onset).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
     ).toBe('lineX lineY line point line');
-    expect(screen.getByText('PAF (trend -0.40 Hz/year)')).toBeInTheDocument();
+    expect(screen.getByText('PAF (-0.40 Hz/year over 2 visits (184 days))')).toBeInTheDocument();
 
     const rows = within(screen.getByRole('table', { name: 'Visits' })).getAllByRole('row');
     expect(rows).toHaveLength(4);
@@ -88,6 +94,32 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
     expect(rows[2]).toHaveTextContent('Day 184 (target 182)');
     expect(within(rows[3]).getByLabelText('Schedule: Late by 6 days')).toBeInTheDocument();
     expect(rows[3]).toHaveTextContent('Day 371 (target 365)');
+  });
+
+  it("draws no trend line where the study's rule gives no slope, and says why in words", async () => {
+    serve();
+    server.use(
+      http.get(`/api/participants/${PARTICIPANT.id}/trajectory`, () =>
+        HttpResponse.json(TRAJECTORY_TOO_FEW),
+      ),
+    );
+    renderApp(`/participants/${PARTICIPANT.id}`, meFor('analyst'));
+    const alpha = await screen.findByRole(
+      'figure',
+      { name: 'Alpha frequency trajectory' },
+      { timeout: 15_000 },
+    );
+    // Line and points per series, no dashed trend line.
+    expect(
+      (await within(alpha).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
+    ).toBe('lineX line point line point');
+    expect(
+      screen.getByText('PAF (no trend: 2 visits with a value, the study needs 3)'),
+    ).toBeInTheDocument();
+    expect(screen.queryByText('Theil–Sen trend')).toBeNull();
+    expect(screen.getAllByText('no trend: 2 visits with a value, the study needs 3')).toHaveLength(
+      3,
+    );
   });
 
   it('shows an empty trajectory in words when no visit has results', async () => {

@@ -1,4 +1,9 @@
-import type { TrajectoryVisitDto, VisitScheduleStatus, VisitView } from '@gyre/shared';
+import type {
+  TrajectoryDto,
+  TrajectoryVisitDto,
+  VisitScheduleStatus,
+  VisitView,
+} from '@gyre/shared';
 import { Button, Card, Descriptions, Space, Table, Tag, Typography } from 'antd';
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
@@ -13,7 +18,7 @@ import { useParticipant } from '../api/get-participant';
 import { useParticipantVisits } from '../api/get-participant-visits';
 import { useTrajectory } from '../api/get-trajectory';
 import { ParticipantDetails } from './participant-details';
-import { TrajectoryCharts } from './trajectory-charts';
+import { TrajectoryCharts, trendText } from './trajectory-charts';
 
 export interface VisitRow {
   visitId: string;
@@ -145,14 +150,11 @@ export function ParticipantPage() {
               className="gyre-figures"
               column={{ xs: 1, md: 3 }}
               items={(['paf', 'cog', 'deltaF'] as const).map((key) => {
-                const slope = trajectory.data?.slopesHzPerYear[key] ?? null;
+                const data = trajectory.data as TrajectoryDto;
                 return {
                   key,
                   label: `${key === 'paf' ? 'PAF' : key === 'cog' ? 'CoG' : 'Δf'} trend (Theil–Sen)`,
-                  children:
-                    slope === null
-                      ? 'needs two visits'
-                      : `${slope > 0 ? '+' : ''}${slope.toFixed(2)} Hz/year`,
+                  children: trendText(data.trends[key], data.trendRule),
                 };
               })}
             />

@@ -1,12 +1,25 @@
-import type { TrajectoryDto } from '@gyre/shared';
+import type { TrajectoryDto, TrendDto } from '@gyre/shared';
 import { Col, Row, Typography } from 'antd';
 import { useMemo } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
 import { PlotFigure } from '../../../components/charts/plot-figure';
 import { alphaFrequencySpec, onsetChangeSpec, SERIES_COLOUR } from './trajectory-spec';
 
-function slopeText(slope: number | null): string {
-  return slope === null ? '—' : `${slope > 0 ? '+' : ''}${slope.toFixed(2)} Hz/year`;
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+/**
+ * A trend in words: the slope when the study's rule allows one, else why there is none
+ * (too few visits with a value, or too short a span), with the actual count or span.
+ */
+export function trendText(trend: TrendDto, rule: TrajectoryDto['trendRule']): string {
+  if (trend.slopeHzPerYear !== null) {
+    const slope = trend.slopeHzPerYear;
+    return `${slope > 0 ? '+' : ''}${slope.toFixed(2)} Hz/year over ${plural(trend.visits, 'visit', 'visits')} (${plural(trend.spanDays, 'day', 'days')})`;
+  }
+  if (trend.reason === 'too-few-visits') {
+    return `no trend: ${plural(trend.visits, 'visit', 'visits')} with a value, the study needs ${rule.minVisits}`;
+  }
+  return `no trend: the span is too short (${plural(trend.spanDays, 'day', 'days')}, the study needs ${rule.minSpanDays})`;
 }
 
 function Key({ colour, text, dashed = false }: { colour: string; text: string; dashed?: boolean }) {
@@ -31,7 +44,7 @@ function Key({ colour, text, dashed = false }: { colour: string; text: string; d
 export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryDto }) {
   const alpha = useMemo(() => alphaFrequencySpec(trajectory), [trajectory]);
   const onset = useMemo(() => onsetChangeSpec(trajectory), [trajectory]);
-  const { slopesHzPerYear } = trajectory;
+  const { trends, trendRule } = trajectory;
   const anyFlagged = trajectory.visits.some((v) => v.flagged);
   return (
     <Row gutter={[24, 24]}>
@@ -40,16 +53,18 @@ export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryDto }) 
           Individual alpha frequency at rest
         </Typography.Title>
         <div style={{ fontSize: 13, marginBottom: 6 }} className="gyre-figures">
-          <Key colour={SERIES_COLOUR.PAF} text={`PAF (trend ${slopeText(slopesHzPerYear.paf)})`} />
-          <Key colour={SERIES_COLOUR.CoG} text={`CoG (trend ${slopeText(slopesHzPerYear.cog)})`} />
-          <Key colour="rgba(29,43,47,0.6)" text="Theil–Sen trend" dashed />
+          <Key colour={SERIES_COLOUR.PAF} text={`PAF (${trendText(trends.paf, trendRule)})`} />
+          <Key colour={SERIES_COLOUR.CoG} text={`CoG (${trendText(trends.cog, trendRule)})`} />
+          {(trends.paf.slopeHzPerYear !== null || trends.cog.slopeHzPerYear !== null) && (
+            <Key colour="rgba(29,43,47,0.6)" text="Theil–Sen trend" dashed />
+          )}
           {anyFlagged && <Key colour={GYRE_COLORS.amber} text="Flagged visit" dashed />}
         </div>
         <PlotFigure
           label="Alpha frequency trajectory"
           spec={alpha}
           heightPx={280}
-          caption="Peak alpha frequency and centre of gravity of each visit's resting recording, with robust (Theil–Sen) trend lines."
+          caption={`Peak alpha frequency and centre of gravity of each visit's resting recording. A robust (Theil–Sen) trend line is drawn only from ${trendRule.minVisits} visits spanning at least ${trendRule.minSpanDays} days (the study's rule).`}
         />
       </Col>
       <Col xs={24} xl={12}>
@@ -57,10 +72,7 @@ export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryDto }) 
           Onset slowing in the task
         </Typography.Title>
         <div style={{ fontSize: 13, marginBottom: 6 }} className="gyre-figures">
-          <Key
-            colour={SERIES_COLOUR.Δf}
-            text={`ROI Δf (trend ${slopeText(slopesHzPerYear.deltaF)})`}
-          />
+          <Key colour={SERIES_COLOUR.Δf} text={`ROI Δf (${trendText(trends.deltaF, trendRule)})`} />
           {anyFlagged && <Key colour={GYRE_COLORS.amber} text="Flagged visit" dashed />}
         </div>
         <PlotFigure

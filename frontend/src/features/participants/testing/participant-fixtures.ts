@@ -1,7 +1,23 @@
-import type { ParticipantView, TrajectoryDto, VisitView } from '@gyre/shared';
+import {
+  visitScheduleStatus,
+  type PlannedVisitWindow,
+  type StudyGroupView,
+  type TrajectoryDto,
+  type ParticipantView,
+  type VisitView,
+} from '@gyre/shared';
 import { SITE, STUDY } from '../../../test/fixtures';
 
-// Generated test data: invented participants and one participant's three visits.
+// Generated test data: invented participants and one participant's three visits, two groups.
+
+export const GROUPS: StudyGroupView[] = ['Arm A', 'Arm B'].map((name, i) => ({
+  id: `g-${i + 1}`,
+  studyId: STUDY.id,
+  name,
+  description: '',
+  createdAt: '2025-01-06T09:00:00.000Z',
+  updatedAt: '2025-01-06T09:00:00.000Z',
+}));
 
 export function participant(index: number): ParticipantView {
   return {
@@ -9,12 +25,39 @@ export function participant(index: number): ParticipantView {
     studyId: STUDY.id,
     siteId: SITE.id,
     code: `AC-${String(index).padStart(4, '0')}`,
+    enrolmentDate: index % 2 === 0 ? '2024-01-10' : null,
+    groupId: index % 2 === 0 ? GROUPS[index % 4 === 0 ? 0 : 1].id : null,
     createdAt: `2025-01-${String((index % 28) + 1).padStart(2, '0')}T09:00:00.000Z`,
     updatedAt: '2025-03-01T09:00:00.000Z',
   };
 }
 
 export const PARTICIPANT = participant(42);
+
+/** Month 12 has a narrow window (±3 days), so its visit on day 371 is late. */
+const PLANNED: Record<string, PlannedVisitWindow> = {
+  Baseline: {
+    id: 'pv-0',
+    name: 'Baseline',
+    targetDay: 0,
+    windowBeforeDays: 0,
+    windowAfterDays: 14,
+  },
+  'Month 6': {
+    id: 'pv-6',
+    name: 'Month 6',
+    targetDay: 182,
+    windowBeforeDays: 14,
+    windowAfterDays: 14,
+  },
+  'Month 12': {
+    id: 'pv-12',
+    name: 'Month 12',
+    targetDay: 365,
+    windowBeforeDays: 3,
+    windowAfterDays: 3,
+  },
+};
 
 function visit(id: string, label: string, visitDate: string): VisitView {
   return {
@@ -24,6 +67,12 @@ function visit(id: string, label: string, visitDate: string): VisitView {
     siteId: SITE.id,
     label,
     visitDate,
+    plannedVisitId: PLANNED[label].id,
+    schedule: visitScheduleStatus({
+      visitDate,
+      enrolmentDate: PARTICIPANT.enrolmentDate,
+      planned: PLANNED[label],
+    }),
     createdAt: `${visitDate}T08:00:00.000Z`,
     updatedAt: `${visitDate}T08:00:00.000Z`,
   };
@@ -65,5 +114,24 @@ export const TRAJECTORY: TrajectoryDto = {
       doubts: ['Δf from 2 of 3 region-of-interest channels; left out: EEG Pz-REF (saturated).'],
     },
   ],
+  // A study whose rule allows a trend from two visits 90 days apart (these are 184 days apart).
+  trendRule: { minVisits: 2, minSpanDays: 90 },
+  trends: {
+    paf: { slopeHzPerYear: -0.4, reason: null, visits: 2, spanDays: 184 },
+    cog: { slopeHzPerYear: -0.16, reason: null, visits: 2, spanDays: 184 },
+    deltaF: { slopeHzPerYear: -0.3, reason: null, visits: 2, spanDays: 184 },
+  },
   slopesHzPerYear: { paf: -0.4, cog: -0.16, deltaF: -0.3 },
+};
+
+/** The same two visits under the default rule (3 visits over 90 days): no slope, and why. */
+export const TRAJECTORY_TOO_FEW: TrajectoryDto = {
+  ...TRAJECTORY,
+  trendRule: { minVisits: 3, minSpanDays: 90 },
+  trends: {
+    paf: { slopeHzPerYear: null, reason: 'too-few-visits', visits: 2, spanDays: 184 },
+    cog: { slopeHzPerYear: null, reason: 'too-few-visits', visits: 2, spanDays: 184 },
+    deltaF: { slopeHzPerYear: null, reason: 'too-few-visits', visits: 2, spanDays: 184 },
+  },
+  slopesHzPerYear: { paf: null, cog: null, deltaF: null },
 };

@@ -1,0 +1,26 @@
+import { Controller, Get, Param, ParseUUIDPipe } from '@nestjs/common';
+import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import type { StudyOverviewDto } from '@gyre/shared';
+import { CurrentCaller, RequirePermission } from '../auth/decorators';
+import type { Caller } from '../auth/decorators';
+import { StudyOverviewService } from './study-overview.service';
+
+@ApiTags('study-overview')
+@ApiBearerAuth()
+@Controller('studies/:studyId/overview')
+export class StudyOverviewController {
+  constructor(private readonly overview: StudyOverviewService) {}
+
+  @Get()
+  @RequirePermission('read', 'StudyOverview')
+  @ApiOkResponse({
+    description:
+      'Per planned visit: each participant’s PAF, CoG and Δf, group and site means with 95 % Student t intervals, the completion matrix and the site quality comparison',
+  })
+  get(
+    @CurrentCaller() caller: Caller,
+    @Param('studyId', ParseUUIDPipe) studyId: string,
+  ): StudyOverviewDto {
+    return this.overview.overview(caller, studyId);
+  }
+}

@@ -1,0 +1,64 @@
+import { OVERVIEW_MEASURES, type StudyOverviewDto } from '@gyre/shared';
+import { Col, Row, Typography } from 'antd';
+import { useMemo } from 'react';
+import { PlotFigure } from '../../../components/charts/plot-figure';
+import { MEASURE_WORDS, overviewSpec, splitEntries, type OverviewSplit } from './overview-spec';
+
+function Key({ colour, text, faint = false }: { colour: string; text: string; faint?: boolean }) {
+  return (
+    <span style={{ marginRight: 16, whiteSpace: 'nowrap' }}>
+      <span
+        aria-hidden="true"
+        style={{
+          display: 'inline-block',
+          width: 18,
+          borderTop: `${faint ? 1 : 3}px solid ${colour}`,
+          opacity: faint ? 0.4 : 1,
+          verticalAlign: 'middle',
+          marginRight: 6,
+        }}
+      />
+      {text}
+    </span>
+  );
+}
+
+/** PAF, CoG and Δf over the planned visits: group (or site) means with 95 % CI, participants faint. */
+export function OverviewCharts({
+  overview,
+  split,
+}: {
+  overview: StudyOverviewDto;
+  split: OverviewSplit;
+}) {
+  const specs = useMemo(
+    () => OVERVIEW_MEASURES.map((m) => ({ measure: m, spec: overviewSpec(overview, m, split) })),
+    [overview, split],
+  );
+  const entries = splitEntries(overview, split);
+  return (
+    <>
+      <div style={{ fontSize: 13, marginBottom: 8 }}>
+        {entries.map((e) => (
+          <Key key={e.key ?? 'none'} colour={e.colour} text={`${e.name}: mean and 95 % CI`} />
+        ))}
+        <Key colour="#1D2B2F" text="Each participant" faint />
+      </div>
+      <Row gutter={[24, 24]}>
+        {specs.map(({ measure, spec }) => (
+          <Col xs={24} xl={8} key={measure}>
+            <Typography.Title level={5} style={{ marginTop: 0 }}>
+              {MEASURE_WORDS[measure].title}
+            </Typography.Title>
+            <PlotFigure
+              label={`${MEASURE_WORDS[measure].title} by ${split}`}
+              spec={spec}
+              heightPx={260}
+              caption={`Each ${split === 'group' ? 'group' : 'site'}'s mean ${MEASURE_WORDS[measure].axis} per planned visit with its 95 % confidence interval (Student t; none from a single value), over every participant's course drawn faint.`}
+            />
+          </Col>
+        ))}
+      </Row>
+    </>
+  );
+}

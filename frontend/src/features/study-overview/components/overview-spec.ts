@@ -1,0 +1,158 @@
+import type { OverviewMeasure, OverviewStat, StudyOverviewDto } from '@gyre/shared';
+import { CHART_PALETTE, GYRE_COLORS } from '../../../app/theme';
+import {
+  axisWithUnit,
+  gyreView,
+  type MarkSpec,
+  type PlotSpec,
+} from '../../../components/charts/plot-spec';
+
+export type OverviewSplit = 'group' | 'site';
+
+export const MEASURE_WORDS: Record<OverviewMeasure, { title: string; axis: string }> = {
+  paf: { title: 'Peak alpha frequency at rest', axis: 'PAF' },
+  cog: { title: 'Alpha centre of gravity at rest', axis: 'CoG' },
+  deltaF: { title: 'Onset Δf in the task', axis: 'ROI Δf (post − baseline)' },
+};
+
+/** A group or site as the overview shows it, with its colour; `key` null = no group. */
+export interface SplitEntry {
+  key: string | null;
+  name: string;
+  colour: string;
+}
+
+export function splitEntries(overview: StudyOverviewDto, split: OverviewSplit): SplitEntry[] {
+  const named =
+    split === 'group'
+      ? overview.groups.map((g) => ({ key: g.id as string | null, name: g.name }))
+      : overview.sites.map((s) => ({ key: s.id as string | null, name: s.name }));
+  if (split === 'group' && overview.participants.some((p) => p.groupId === null)) {
+    named.push({ key: null, name: 'No group' });
+  }
+  return named.map((entry, i) => ({ ...entry, colour: CHART_PALETTE[i % CHART_PALETTE.length] }));
+}
+
+export function statsOf(overview: StudyOverviewDto, split: OverviewSplit): OverviewStat[] {
+  return split === 'group' ? overview.byGroup : overview.bySite;
+}
+
+interface CoursePoint {
+  participant: string;
+  visit: string;
+  value: number;
+}
+
+interface MeanPoint {
+  visit: string;
+  mean: number;
+  ciLow: number | null;
+  ciHigh: number | null;
+  n: number;
+  name: string;
+}
+
+const hz = (v: number) => `${v.toFixed(2)} Hz`;
+
+/**
+ * One measure over the planned visits: every participant's course as a faint line, and per
+ * group (or site) the mean with its 95 % confidence band (Student t) and points.
+ */
+export function overviewSpec(
+  overview: StudyOverviewDto,
+  measure: OverviewMeasure,
+  split: OverviewSplit,
+): PlotSpec {
+  const names = overview.plannedVisits.map((p) => p.name);
+  const courses: CoursePoint[] = overview.participants.flatMap((p) =>
+    p.cells.flatMap((cell, i) => {
+      const value = cell[measure];
+      return value === null ? [] : [{ participant: p.id, visit: names[i], value }];
+    }),
+  );
+  const stats = statsOf(overview, split).filter((s) => s.measure === measure);
+  const marks: MarkSpec[] = [];
+  if (courses.length > 0) {
+    marks.push({
+      type: 'line',
+      data: courses,
+      encode: { x: 'visit', y: 'value', series: 'participant' },
+      style: { stroke: GYRE_COLORS.ink, strokeOpacity: 0.14, lineWidth: 1 },
+      tooltip: false,
+    });
+  }
+  for (const entry of splitEntries(overview, split)) {
+    const means: MeanPoint[] = overview.plannedVisits.flatMap((pv) => {
+      const s = stats.find((x) => x.plannedVisitId === pv.id && x.key === entry.key);
+      return s === undefined || s.mean === null
+        ? []
+        : [
+            {
+              visit: pv.name,
+              mean: s.mean,
+              ciLow: s.ciLow,
+              ciHigh: s.ciHigh,
+              n: s.n,
+              name: entry.name,
+            },
+          ];
+    });
+    if (means.length === 0) continue;
+    const band = means.filter((m) => m.ciLow !== null && m.ciHigh !== null);
+    if (band.length > 0) {
+      marks.push({
+        type: 'area',
+        data: band,
+        encode: { x: 'visit', y: 'ciLow', y1: 'ciHigh' },
+        style: { fill: entry.colour, fillOpacity: 0.16 },
+        tooltip: false,
+      });
+    }
+    marks.push(
+      {
+        type: 'line',
+        data: means,
+        encode: { x: 'visit', y: 'mean' },
+        style: { stroke: entry.colour, lineWidth: 2.5 },
+        tooltip: false,
+      },
+      {
+        type: 'point',
+        data: means,
+        encode: { x: 'visit', y: 'mean', shape: 'point', size: 5 },
+        style: { fill: entry.colour, stroke: GYRE_COLORS.paper, lineWidth: 1.5 },
+        tooltip: {
+          title: (d: MeanPoint) => `${d.name}, ${d.visit} (n = ${d.n})`,
+          items: [
+            { channel: 'y', name: 'Mean', valueFormatter: hz },
+            (d: MeanPoint) => ({
+              name: '95 % CI',
+              value:
+                d.ciLow === null || d.ciHigh === null
+                  ? 'needs two values'
+                  : `${hz(d.ciLow)} to ${hz(d.ciHigh)}`,
+            }),
+          ],
+        },
+      },
+    );
+  }
+  if (measure === 'deltaF') {
+    marks.unshift({
+      type: 'lineY',
+      data: [0],
+      style: { stroke: GYRE_COLORS.ink, lineWidth: 1, strokeOpacity: 0.6 },
+      tooltip: false,
+    });
+  }
+  return gyreView({
+    padding: 'auto',
+    scale: { x: { type: 'point', domain: names }, y: { nice: true, zero: false } },
+    axis: {
+      x: { ...axisWithUnit('Planned visit', null), labelAutoRotate: false, labelAutoHide: true },
+      y: axisWithUnit(MEASURE_WORDS[measure].axis, 'Hz', { labelFormatter: (v) => v.toFixed(2) }),
+    },
+    legend: false,
+    children: marks,
+  });
+}

@@ -1,0 +1,166 @@
+import { Alert, Card, Form, Segmented, Select } from 'antd';
+import { useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import { PageHeader } from '../../../components/page-header';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
+import { ResearchCaution } from '../../../components/research-caution';
+import { useAppAbility } from '../../../lib/session/ability';
+import { useSession } from '../../../lib/session/session-context';
+import { StudyExportLinks } from '../../exports/components/study-export-links';
+import { useStudies } from '../../study-settings/api/studies';
+import { useStudyOverview } from '../api/get-study-overview';
+import { CompletionMatrix } from './completion-matrix';
+import { GroupMeansTable } from './group-means-table';
+import { OverviewCharts } from './overview-charts';
+import type { OverviewSplit } from './overview-spec';
+import { SiteQualityTable } from './site-quality-table';
+
+/** Admins pick a study (`?study=`); everyone else sees their own. */
+function useChosenStudy(): {
+  studyId: string | null;
+  picker: React.ReactNode;
+  loading: boolean;
+} {
+  const { me } = useSession();
+  const own = me.study?.id ?? null;
+  const [search, setSearch] = useSearchParams();
+  const studies = useStudies(own === null);
+  if (own !== null) return { studyId: own, picker: null, loading: false };
+  const items = studies.data?.items ?? [];
+  const chosen = search.get('study');
+  const studyId =
+    items.find((s) => s.id === chosen)?.id ?? (items.length === 1 ? items[0].id : null);
+  const picker = (
+    <Card style={{ marginBottom: 20 }}>
+      <Form layout="vertical" component="div">
+        <Form.Item label="Study" htmlFor="overview-study" style={{ marginBottom: 0 }}>
+          <Select
+            id="overview-study"
+            placeholder="Choose a study"
+            value={studyId ?? undefined}
+            onChange={(id: string) => setSearch({ study: id }, { replace: true })}
+            options={items.map((s) => ({ value: s.id, label: `${s.code} · ${s.name}` }))}
+            style={{ maxWidth: 480, width: '100%' }}
+          />
+        </Form.Item>
+      </Form>
+    </Card>
+  );
+  return { studyId, picker, loading: studies.data === undefined && studies.error === undefined };
+}
+
+/**
+ * The study overview (analysts, monitors, admins): courses of PAF, CoG and Δf over the planned
+ * visits with group or site means and 95 % CIs, the completion matrix and site quality.
+ */
+export function StudyOverviewPage() {
+  const { studyId, picker, loading } = useChosenStudy();
+  const overview = useStudyOverview(studyId);
+  const canExport = useAppAbility().can('export', 'Result');
+  const [split, setSplit] = useState<OverviewSplit>('group');
+
+  const header = (
+    <>
+      <ResearchCaution />
+      <PageHeader
+        title="Study overview"
+        description="Each participant's course over the planned visits, group and site means with their 95 % confidence intervals, what is done per visit, and how the sites' recordings compare."
+      />
+      {picker}
+    </>
+  );
+  if (loading) {
+    return (
+      <>
+        {header}
+        <LoadingState label="Loading the studies" />
+      </>
+    );
+  }
+  if (studyId === null) {
+    return (
+      <>
+        {header}
+        <EmptyState description="Choose a study to see its overview." />
+      </>
+    );
+  }
+  if (overview.error !== undefined) {
+    return (
+      <>
+        {header}
+        <ErrorState
+          title="The overview could not be loaded"
+          error={overview.error}
+          onRetry={() => void overview.mutate()}
+        />
+      </>
+    );
+  }
+  if (overview.data === undefined) {
+    return (
+      <>
+        {header}
+        <LoadingState label="Loading the overview" rows={12} />
+      </>
+    );
+  }
+  const data = overview.data;
+  return (
+    <>
+      {header}
+      {canExport && (
+        <Card title="Results exports" style={{ marginBottom: 20 }}>
+          <StudyExportLinks studyId={studyId} />
+        </Card>
+      )}
+      {data.notes.length > 0 && (
+        <Alert
+          type="info"
+          showIcon
+          style={{ marginBottom: 20 }}
+          title="About these numbers"
+          description={
+            <ul aria-label="About these numbers" style={{ margin: 0, paddingLeft: 18 }}>
+              {data.notes.map((note) => (
+                <li key={note}>{note}</li>
+              ))}
+            </ul>
+          }
+        />
+      )}
+      <Card
+        title="Courses over the planned visits"
+        style={{ marginBottom: 20 }}
+        extra={
+          <Segmented<OverviewSplit>
+            aria-label="Means by"
+            value={split}
+            onChange={setSplit}
+            options={[
+              { value: 'group', label: 'By group' },
+              { value: 'site', label: 'By site' },
+            ]}
+          />
+        }
+      >
+        {data.plannedVisits.length === 0 ? (
+          <EmptyState description="The study has no planned visits yet, so there is no course to draw." />
+        ) : (
+          <>
+            <OverviewCharts overview={data} split={split} />
+            <div style={{ marginTop: 20 }}>
+              <GroupMeansTable overview={data} split={split} />
+            </div>
+          </>
+        )}
+      </Card>
+      <Card title="Completion" style={{ marginBottom: 20 }}>
+        <CompletionMatrix overview={data} />
+      </Card>
+      <Card title="Site quality">
+        <SiteQualityTable sites={data.siteQuality} />
+      </Card>
+    </>
+  );
+}
