@@ -187,7 +187,12 @@ export function IntakePage() {
                   />
                 </Form.Item>
                 {visit !== null && (
-                  <Space wrap size={8} style={{ marginBottom: 4 }} aria-label="Visit schedule">
+                  <Space
+                    wrap
+                    size={8}
+                    style={{ display: 'flex', marginBottom: 4 }}
+                    aria-label="Visit schedule"
+                  >
                     <VisitWindowTag schedule={visit.schedule} />
                     <Typography.Text type="secondary">
                       {studyDayText(visit.schedule)}
