@@ -1,5 +1,5 @@
 import { OVERVIEW_MEASURES, type StudyOverviewDto } from '@gyre/shared';
-import { Col, Row, Typography } from 'antd';
+import { Col, Empty, Row, Typography } from 'antd';
 import { useMemo } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
 import { MEASURE_WORDS, overviewSpec, splitEntries, type OverviewSplit } from './overview-spec';
@@ -36,6 +36,8 @@ export function OverviewCharts({
     [overview, split],
   );
   const entries = splitEntries(overview, split);
+  const hasValues = (measure: (typeof OVERVIEW_MEASURES)[number]): boolean =>
+    overview.participants.some((p) => p.cells.some((cell) => cell[measure] !== null));
   return (
     <>
       <div style={{ fontSize: 13, marginBottom: 8 }}>
@@ -50,12 +52,19 @@ export function OverviewCharts({
             <Typography.Title level={5} style={{ marginTop: 0 }}>
               {MEASURE_WORDS[measure].title}
             </Typography.Title>
-            <PlotFigure
-              label={`${MEASURE_WORDS[measure].title} by ${split}`}
-              spec={spec}
-              heightPx={260}
-              caption={`Each ${split === 'group' ? 'group' : 'site'}'s mean ${MEASURE_WORDS[measure].axis} per planned visit with its 95 % confidence interval (Student t; none from a single value), over every participant's course drawn faint.`}
-            />
+            {hasValues(measure) ? (
+              <PlotFigure
+                label={`${MEASURE_WORDS[measure].title} by ${split}`}
+                spec={spec}
+                heightPx={260}
+                caption={`Each ${split === 'group' ? 'group' : 'site'}'s mean ${MEASURE_WORDS[measure].axis} per planned visit with its 95 % confidence interval (Student t; none from a single value), over every participant's course drawn faint.`}
+              />
+            ) : (
+              <Empty
+                image={Empty.PRESENTED_IMAGE_SIMPLE}
+                description="No values yet on a planned visit."
+              />
+            )}
           </Col>
         ))}
       </Row>
