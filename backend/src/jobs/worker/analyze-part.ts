@@ -2,7 +2,11 @@ import { createHash } from 'node:crypto';
 import { isDeepStrictEqual } from 'node:util';
 import { threadId } from 'node:worker_threads';
 import type { AnalysisPlan } from '../../signal/pipeline/analysis-plan';
-import { analyzeChannels, ChannelPart } from '../../signal/pipeline/analyze-channels';
+import {
+  analyzeChannels,
+  ChannelAnalysisWorkspace,
+  ChannelPart,
+} from '../../signal/pipeline/analyze-channels';
 import {
   AnalysisRunRequest,
   ChannelRange,
@@ -10,6 +14,7 @@ import {
   planEdfAnalysis,
   readRecordingForAnalysis,
 } from '../../signal/pipeline/analyze-edf-recording';
+import { SampleArena } from '../../signal/pipeline/read-edf-file';
 import { partWork, workDone } from './analysis-parts';
 import type { AnalyzePartTask, AnalyzeTask, PartOutcome } from './worker-tasks';
 
@@ -29,7 +34,9 @@ export function runRequest(task: AnalyzeTask): AnalysisRunRequest {
  * (`analyzeChannels`) against the plan the part makes from the same file. The lead part
  * hashes the file during its first pass and fails before using anything it read when the
  * file is not the one the run names; it also keeps the reader's warnings for the whole file.
- * `onProgress` receives the share of the part done, 0…1.
+ * Every batch decodes into the same sample buffers and is analysed in the same workspace,
+ * so only the first batch touches fresh memory. `onProgress` receives the share of the
+ * part done, 0…1.
  */
 export async function analyzePart(
   task: Omit<AnalyzePartTask, 'progressPort'>,
@@ -41,6 +48,8 @@ export async function analyzePart(
   let plan: AnalysisPlan | null = null;
   let readerWarnings: string[] | null = null;
   const channels: ChannelPart[] = [];
+  const samples = new SampleArena();
+  const workspace = new ChannelAnalysisWorkspace();
   for (const [pass, batch] of batches.entries()) {
     const first = pass === 0;
     const hash = task.lead && first ? createHash('sha256') : null;
@@ -49,6 +58,7 @@ export async function analyzePart(
       onChunk: hash ? (chunk): void => void hash.update(chunk) : undefined,
       // Out-of-range samples of every signal are counted once, by the lead's first pass.
       warnAboutLeftOut: task.lead && first,
+      allocateSamples: samples.allocate,
     });
     if (hash) {
       const actual = hash.digest('hex');
@@ -72,6 +82,7 @@ export async function analyzePart(
     onProgress(workDone(pass + 1, before) / total);
     const analysed = analyzeChannels(edfRecordingPart(recording, plan, range), plan, {
       onChannel: (done) => onProgress(workDone(pass + 1, before + done) / total),
+      workspace,
     });
     channels.push(...analysed);
   }

@@ -22,6 +22,11 @@ export interface ReadEdfOptions {
    * `signals`, which saves their memory (e.g. decode the region of interest only).
    */
   selectSignal?: (signal: EdfSignalHeader, fileIndex: number) => boolean;
+  /**
+   * Buffers for the decoded signals' samples, one per length, in file order (default: new
+   * Float32Arrays). Decoding overwrites every sample, so reused buffers need no clearing.
+   */
+  allocateSamples?: (lengths: readonly number[]) => Float32Array[];
 }
 
 const littleEndianHost = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
@@ -50,6 +55,7 @@ export class EdfStreamReader {
   private decoded: DecodedSignal[] = [];
   private signalOffsets: number[] = [];
   private pending: Uint8Array | null = null;
+  private pendingWords: Int16Array | null = null;
   private pendingBytes = 0;
   private recordIndex = 0;
   private recordStartsS = new Float64Array(0);
@@ -158,14 +164,28 @@ export class EdfStreamReader {
       offset += 2 * s.samplesPerRecord;
     }
     // Sizes below were checked against the file size by readEdfHeader before allocating.
-    signalHeaders.forEach((s, i) => {
-      if (annotationSignalIndices.includes(i)) return;
-      if (this.options.selectSignal && !this.options.selectSignal(s, i)) return;
+    const chosen = signalHeaders.flatMap((s, i) =>
+      annotationSignalIndices.includes(i) ||
+      (this.options.selectSignal && !this.options.selectSignal(s, i))
+        ? []
+        : [i],
+    );
+    const lengths = chosen.map((i) => header.recordCount * signalHeaders[i].samplesPerRecord);
+    const buffers = this.options.allocateSamples
+      ? this.options.allocateSamples(lengths)
+      : lengths.map((length) => new Float32Array(length));
+    chosen.forEach((i, k) => {
+      const s = signalHeaders[i];
+      if (buffers[k]?.length !== lengths[k]) {
+        throw new RangeError(
+          `allocateSamples: expected ${lengths[k]} samples for signal ${i + 1}, got ${buffers[k]?.length}`,
+        );
+      }
       this.decoded.push({
         fileIndex: i,
         header: s,
         byteOffset: this.signalOffsets[i],
-        samples: new Float32Array(header.recordCount * s.samplesPerRecord),
+        samples: buffers[k],
         gain: (s.physicalMax - s.physicalMin) / (s.digitalMax - s.digitalMin),
         outOfRange: 0,
       });
@@ -183,22 +203,31 @@ export class EdfStreamReader {
       this.pendingBytes += take;
       pos = take;
       if (this.pendingBytes < recordBytes) return;
-      this.decodeRecord(this.pending);
+      this.decodeRecord(this.pending, 0, this.pendingWords);
       this.pendingBytes = 0;
     }
+    // One 16-bit view of the whole piece, not one per record and signal.
+    const words = wordsOf(bytes);
     while (bytes.byteLength - pos >= recordBytes) {
-      this.decodeRecord(bytes.subarray(pos, pos + recordBytes));
+      this.decodeRecord(bytes, pos, words);
       pos += recordBytes;
     }
     if (pos < bytes.byteLength) {
-      this.pending ??= new Uint8Array(recordBytes);
+      if (!this.pending) {
+        this.pending = new Uint8Array(recordBytes);
+        this.pendingWords = wordsOf(this.pending);
+      }
       this.pending.set(bytes.subarray(pos));
       this.pendingBytes = bytes.byteLength - pos;
     }
   }
 
-  /** Physical value = (digital − dmin)·(pmax − pmin)/(dmax − dmin) + pmin (Kemp et al. 1992). */
-  private decodeRecord(record: Uint8Array): void {
+  /**
+   * Decodes the record at byte `offset` of `bytes`; `words` is null or the 16-bit view of
+   * `bytes` from its first byte (`wordsOf`).
+   * Physical value = (digital − dmin)·(pmax − pmin)/(dmax − dmin) + pmin (Kemp et al. 1992).
+   */
+  private decodeRecord(bytes: Uint8Array, offset: number, words: Int16Array | null): void {
     const info = this.info as EdfHeaderInfo;
     const r = this.recordIndex;
     for (const d of this.decoded) {
@@ -206,18 +235,18 @@ export class EdfStreamReader {
       const { digitalMin: dmin, digitalMax: dmax, physicalMin: pmin } = d.header;
       const { samples, gain } = d;
       const out = r * spr;
-      const start = record.byteOffset + d.byteOffset;
+      const start = offset + d.byteOffset;
       let outOfRange = 0;
       // 16-bit little-endian two's complement (Kemp et al. 1992): read in place when aligned.
-      if (littleEndianHost && start % 2 === 0) {
-        const words = new Int16Array(record.buffer, start, spr);
+      if (words !== null && start % 2 === 0) {
+        const first = start >> 1;
         for (let k = 0; k < spr; k++) {
-          const v = words[k];
+          const v = words[first + k];
           if (v < dmin || v > dmax) outOfRange++;
           samples[out + k] = (v - dmin) * gain + pmin;
         }
       } else {
-        const view = new DataView(record.buffer, start, 2 * spr);
+        const view = new DataView(bytes.buffer, bytes.byteOffset + start, 2 * spr);
         for (let k = 0; k < spr; k++) {
           const v = view.getInt16(2 * k, true);
           if (v < dmin || v > dmax) outOfRange++;
@@ -226,7 +255,9 @@ export class EdfStreamReader {
       }
       d.outOfRange += outOfRange;
     }
-    this.readRecordAnnotations(record, r, info);
+    if (info.annotationSignalIndices.length > 0) {
+      this.readRecordAnnotations(bytes.subarray(offset, offset + info.recordBytes), r, info);
+    }
     this.recordIndex++;
   }
 
@@ -262,6 +293,13 @@ export class EdfStreamReader {
       }
     }
   }
+}
+
+/** The 16-bit little-endian view of `bytes` from its first byte, when it can be read in place. */
+function wordsOf(bytes: Uint8Array): Int16Array | null {
+  return littleEndianHost && bytes.byteOffset % 2 === 0
+    ? new Int16Array(bytes.buffer, bytes.byteOffset, bytes.byteLength >> 1)
+    : null;
 }
 
 function concat(parts: Uint8Array[], length: number): Uint8Array {

@@ -7,7 +7,8 @@ const TWO_PI = 2 * Math.PI;
  * (Boashash 1992, "Estimating and interpreting the instantaneous frequency of a
  * signal", Proc. IEEE 80:520–568). It equals the phase difference of the unwrapped
  * phase without unwrapping. Value n belongs between samples n and n+1: its time is
- * (n + 0.5)/fs (see `frequencyTimeS`).
+ * (n + 0.5)/fs (see `frequencyTimeS`). `output` may be a view of z.re from its start:
+ * value k is written after re[k] and re[k + 1] are read.
  */
 export function phaseDifferenceFrequency(
   z: ComplexSeries,

@@ -100,7 +100,8 @@ export function epochPointCount(
  * Frequency epochs cut from a continuous frequency series (trials × points, row-major).
  * Value j of the series belongs to time firstTimeS + j/fs (a sample midpoint); point i of
  * an epoch to onset + epochWindowS[0] + i/fs, taken from the nearest value. Points that fall
- * outside the series are NaN (screenTrials drops such epochs anyway).
+ * outside the series are NaN (screenTrials drops such epochs anyway). Writes into `output`
+ * (length trials × points) when given, e.g. a buffer reused from channel to channel.
  */
 export function cutFrequencyEpochs(
   frequencyHz: Float64Array,
@@ -110,16 +111,30 @@ export function cutFrequencyEpochs(
     onsetsS: readonly number[];
     epochWindowS: readonly [number, number];
   },
+  output?: Float64Array,
 ): Float64Array {
   const fs = options.sampleRateHz;
   const points = epochPointCount(options.epochWindowS, fs);
-  const out = new Float64Array(options.onsetsS.length * points);
-  options.onsetsS.forEach((t, trial) => {
+  const trials = options.onsetsS.length;
+  const out = output ?? new Float64Array(trials * points);
+  if (out.length !== trials * points) {
+    throw new RangeError(`output: expected length ${trials * points}, got ${out.length}`);
+  }
+  const n = frequencyHz.length;
+  for (let trial = 0; trial < trials; trial++) {
+    const t = options.onsetsS[trial];
     const j0 = Math.round((t + options.epochWindowS[0] - options.firstTimeS) * fs);
-    for (let i = 0; i < points; i++) {
-      const j = j0 + i;
-      out[trial * points + i] = j >= 0 && j < frequencyHz.length ? frequencyHz[j] : NaN;
+    const row = trial * points;
+    if (!Number.isFinite(j0)) {
+      out.fill(NaN, row, row + points);
+      continue;
     }
-  });
+    // Points [from, to) of the epoch lie inside the series; the others are NaN.
+    const from = Math.min(points, Math.max(0, -j0));
+    const to = Math.max(from, Math.min(points, n - j0));
+    out.fill(NaN, row, row + from);
+    out.set(frequencyHz.subarray(j0 + from, j0 + to), row + from);
+    out.fill(NaN, row + to, row + points);
+  }
   return out;
 }

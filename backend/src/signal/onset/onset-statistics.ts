@@ -159,8 +159,29 @@ export interface OnsetCurve {
 }
 
 /**
+ * Buffers `onsetCurve` reuses from call to call, so a channel loop does not touch fresh
+ * memory (a page fault per 4 KiB) for every channel. One caller's; never shared between
+ * concurrent calls.
+ */
+export class OnsetCurveScratch {
+  private binned = new Float64Array(0);
+  private raster = new Float32Array(0);
+
+  binnedFor(length: number): Float64Array {
+    if (this.binned.length < length) this.binned = new Float64Array(length);
+    return this.binned.subarray(0, length);
+  }
+
+  rasterFor(length: number): Float32Array {
+    if (this.raster.length < length) this.raster = new Float32Array(length);
+    return this.raster.subarray(0, length);
+  }
+}
+
+/**
  * Mean onset curve with a pointwise band and the trial raster, binned by averaging
- * consecutive points so that at most `maxPoints` remain (for display).
+ * consecutive points so that at most `maxPoints` remain (for display). With `scratch`,
+ * the raster is a view of its buffer, overwritten by the next call with it.
  */
 export function onsetCurve(
   epochs: Float64Array,
@@ -171,20 +192,21 @@ export function onsetCurve(
     sampleRateHz: number;
     maxPoints?: number;
   },
+  scratch?: OnsetCurveScratch,
 ): OnsetCurve {
   const { points, trials, sampleRateHz } = options;
   const maxPoints = options.maxPoints ?? 500;
   const factor = Math.max(1, Math.ceil(points / maxPoints));
   const bins = Math.ceil(points / factor);
   const n = trials.length;
-  const raster = new Float32Array(n * bins);
+  const raster = scratch ? scratch.rasterFor(n * bins) : new Float32Array(n * bins);
   const timesS = new Float64Array(bins);
   for (let b = 0; b < bins; b++) {
     const first = b * factor;
     const last = Math.min(points, first + factor);
     timesS[b] = options.epochWindowS[0] + (first + last - 1) / 2 / sampleRateHz;
   }
-  const binned = new Float64Array(n * bins);
+  const binned = scratch ? scratch.binnedFor(n * bins) : new Float64Array(n * bins);
   trials.forEach((trial, k) => {
     for (let b = 0; b < bins; b++) {
       const first = b * factor;

@@ -3,7 +3,11 @@
  * from another channel, so a recording's channels can be analysed in several parts (on
  * several threads) and merged in channel order by `mergeChannelParts` without changing a bit.
  */
-import { FrequencySlidingWorkspace, frequencySliding } from '../frequency/frequency-sliding';
+import {
+  FrequencySlidingWorkspace,
+  frequencySlidingInWorkspace,
+} from '../frequency/frequency-sliding';
+import { OnsetCurveScratch } from '../onset/onset-statistics';
 import { cutFrequencyEpochs, epochExceedsAmplitude, epochPointCount } from '../onset/epochs';
 import {
   channelQuality,
@@ -51,6 +55,24 @@ export interface ChannelPart {
 }
 
 /**
+ * Buffers `analyzeChannels` reuses from channel to channel, and from call to call when the
+ * caller keeps it (one batch of channels after another): the analytic signal, the frequency
+ * series, the epochs and the curve's scratch of a 60-minute channel are tens of MB, and fresh
+ * memory costs a page fault per 4 KiB on first touch. One caller's; never shared between
+ * concurrent calls.
+ */
+export class ChannelAnalysisWorkspace {
+  readonly sliding = new FrequencySlidingWorkspace();
+  readonly curve = new OnsetCurveScratch();
+  private epochs = new Float64Array(0);
+
+  epochsFor(length: number): Float64Array {
+    if (this.epochs.length < length) this.epochs = new Float64Array(length);
+    return this.epochs.subarray(0, length);
+  }
+}
+
+/**
  * Analyses the channels of `part` as `plan` says (docs/method.md §2, §3, §6): the Welch
  * spectrum (Welch 1967) with the line-noise and flat/saturation checks and, for a task run,
  * the frequency sliding on the continuous recording, each epoch's rejection reason and the
@@ -59,7 +81,7 @@ export interface ChannelPart {
 export function analyzeChannels(
   part: RecordingPart,
   plan: AnalysisPlan,
-  options: { onChannel?: (done: number) => void } = {},
+  options: { onChannel?: (done: number) => void; workspace?: ChannelAnalysisWorkspace } = {},
 ): ChannelPart[] {
   if (part.channels.length !== part.signals.length) {
     throw new AnalysisInputError(
@@ -68,7 +90,7 @@ export function analyzeChannels(
     );
   }
   const { settings, computation } = plan;
-  const workspace = new FrequencySlidingWorkspace();
+  const workspace = options.workspace ?? new ChannelAnalysisWorkspace();
   return part.channels.map((index, done) => {
     const signal = part.signals[done];
     const planned = plan.channels[index];
@@ -110,7 +132,7 @@ export function analyzeChannels(
       roiEpochs: null,
     };
     if (plan.kind === 'task') {
-      const sliding = frequencySliding(
+      const sliding = frequencySlidingInWorkspace(
         signal.samples,
         {
           sampleRateHz: fs,
@@ -120,7 +142,7 @@ export function analyzeChannels(
           morletCycles: settings.morletCycles,
           morletCentreHz: plan.morletCentreHz ?? undefined,
         },
-        workspace,
+        workspace.sliding,
       );
       channel.medianWindowsSamples = sliding.medianWindowsSamples;
       quality.phaseSlipShare = sliding.outOfBandShare;
@@ -138,15 +160,28 @@ export function analyzeChannels(
         return exceeds ? ('amplitude' as const) : null;
       });
       const kept = reasons.flatMap((r, trial) => (r === null ? [trial] : []));
-      const epochs = cutFrequencyEpochs(sliding.frequencyHz, {
-        sampleRateHz: fs,
-        firstTimeS: sliding.firstTimeS,
-        onsetsS: plan.dataOnsetsS,
-        epochWindowS: settings.epochWindowS,
-      });
-      channel.onsets = summariseOnsets(epochs, kept, reasons, fs, settings, computation).summary;
+      const points = epochPointCount(settings.epochWindowS, fs);
+      const epochs = cutFrequencyEpochs(
+        sliding.frequencyHz,
+        {
+          sampleRateHz: fs,
+          firstTimeS: sliding.firstTimeS,
+          onsetsS: plan.dataOnsetsS,
+          epochWindowS: settings.epochWindowS,
+        },
+        workspace.epochsFor(plan.dataOnsetsS.length * points),
+      );
+      channel.onsets = summariseOnsets(
+        epochs,
+        kept,
+        reasons,
+        fs,
+        settings,
+        computation,
+        workspace.curve,
+      ).summary;
       if (planned.roiCandidate) {
-        channel.roiEpochs = keptEpochs(epochs, kept, epochPointCount(settings.epochWindowS, fs));
+        channel.roiEpochs = keptEpochs(epochs, kept, points);
       }
     }
     options.onChannel?.(done + 1);

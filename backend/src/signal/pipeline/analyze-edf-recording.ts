@@ -14,7 +14,7 @@ import type { AnalysisSettings } from './analysis-settings';
 import type { AnalysisResult, OnsetInput, RecordingKindChoice } from './analysis.types';
 import type { RecordingPart } from './analyze-channels';
 import { analyzeRecording } from './analyze-recording';
-import { EdfFileRead, readEdfFile } from './read-edf-file';
+import { EdfFileRead, readEdfFile, ReadEdfFileOptions } from './read-edf-file';
 import { AnalyzeOutcome, toAnalyzeOutcome } from './run-summary';
 
 /**
@@ -41,7 +41,8 @@ export interface ChannelRange {
 /**
  * Reads a file for analysis, streamed from disk: only the analysed signals are decoded (with
  * `channels`, only those analysed channels), and every chunk goes to `onChunk` (e.g. to hash
- * it) even when the file turns out malformed. `warnAboutLeftOut` as `readEdfFile`'s.
+ * it) even when the file turns out malformed. `warnAboutLeftOut` and `allocateSamples` as
+ * `readEdfFile`'s.
  */
 export function readRecordingForAnalysis(
   path: string,
@@ -49,6 +50,8 @@ export function readRecordingForAnalysis(
     onChunk?: (chunk: Uint8Array) => void;
     channels?: ChannelRange;
     warnAboutLeftOut?: boolean;
+    /** Buffers for the decoded samples (e.g. a `SampleArena` reused batch after batch). */
+    allocateSamples?: ReadEdfFileOptions['allocateSamples'];
   } = {},
 ): Promise<EdfFileRead> {
   const range = options.channels;
@@ -66,6 +69,7 @@ export function readRecordingForAnalysis(
       isAnalysedSignal(signal, index, all) && inRange(signal, all),
     onChunk: options.onChunk,
     warnAboutLeftOut: options.warnAboutLeftOut,
+    allocateSamples: options.allocateSamples,
   });
 }
 

@@ -10,7 +10,7 @@ import {
   int16le,
   plainEdfParts,
 } from '../edf/testing/hand-built-edf';
-import { readEdfFile } from './read-edf-file';
+import { readEdfFile, SampleArena } from './read-edf-file';
 
 // Files are hand-built byte by byte to the EDF/EDF+ layout (Kemp et al. 1992; Kemp &
 // Olivan 2003), generated test data; the reference is `readEdf` on the whole file.
@@ -73,6 +73,40 @@ describe('readEdfFile (streamed from disk)', () => {
       );
     },
   );
+
+  it('decodes into a SampleArena reused read after read, every sample overwritten', async () => {
+    const bytes = outOfRangeEdf();
+    const path = write('arena.edf', bytes);
+    const whole = readEdf(bytes);
+    const arena = new SampleArena();
+    const first = (await readEdfFile(path, { chunkBytes: 6, allocateSamples: arena.allocate }))
+      .finish()
+      .signals.map((s) => s.samples);
+    expect(first.map((s) => Array.from(s))).toEqual(
+      whole.signals.map((s) => Array.from(s.samples)),
+    );
+    // The next read gets the same memory: poison it, then read only ECG into it.
+    const block = first[0].buffer;
+    new Float32Array(block).fill(Number.NaN);
+    const onlyEcg = (s: { label: string }): boolean => s.label === 'ECG';
+    const second = (
+      await readEdfFile(path, { selectSignal: onlyEcg, allocateSamples: arena.allocate })
+    ).finish();
+    expect(second.signals[0].samples.buffer).toBe(block);
+    expect(Array.from(second.signals[0].samples)).toEqual(Array.from(whole.signals[2].samples));
+    expect(second.warnings).toEqual(whole.warnings);
+  });
+
+  it('refuses sample buffers of the wrong length', async () => {
+    const path = write('wrong-length.edf', outOfRangeEdf());
+    const read = await readEdfFile(path, {
+      allocateSamples: (lengths) => lengths.map((n) => new Float32Array(n + 1)),
+    });
+    // O1 has 4 samples per record over 3 records (Kemp et al. 1992: recordCount × spr).
+    expect(() => read.finish()).toThrow(
+      /allocateSamples: expected 12 samples for signal 1, got 13/,
+    );
+  });
 
   it('keeps the EDF+ annotations and record times', async () => {
     const bytes = edfPlus();

@@ -2,6 +2,8 @@ import { open } from 'node:fs/promises';
 import { EdfStreamReader, type ReadEdfOptions } from '../edf/edf-stream-reader';
 import type { EdfHeaderInfo, EdfRecording, EdfSignalHeader } from '../edf/edf.types';
 
+const littleEndianHost = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+
 /** Bytes read from disk at a time: even, so a 16-bit sample never straddles two chunks. */
 export const DEFAULT_EDF_CHUNK_BYTES = 1 << 20;
 
@@ -26,6 +28,29 @@ export interface ReadEdfFileOptions {
    * times needs them only once: counting walks every sample of the file.
    */
   warnAboutLeftOut?: boolean;
+  /** Buffers for the decoded samples, as `ReadEdfOptions.allocateSamples` (e.g. a `SampleArena`). */
+  allocateSamples?: ReadEdfOptions['allocateSamples'];
+}
+
+/**
+ * Sample buffers that one reader after another reuses: each `allocate` hands out views of
+ * one block, grown to the largest request seen, so reading a file in several batches of
+ * channels touches the same memory again instead of fresh pages (a page fault per 4 KiB on
+ * first touch). What one `allocate` handed out is valid until the next.
+ */
+export class SampleArena {
+  private block = new Float32Array(0);
+
+  readonly allocate = (lengths: readonly number[]): Float32Array[] => {
+    const total = lengths.reduce((sum, length) => sum + length, 0);
+    if (this.block.length < total) this.block = new Float32Array(total);
+    let offset = 0;
+    return lengths.map((length) => {
+      const view = this.block.subarray(offset, offset + length);
+      offset += length;
+      return view;
+    });
+  };
 }
 
 /** A file read to its end; `finish()` gives the recording or throws the reader's error. */
@@ -64,7 +89,10 @@ export async function readEdfFile(
           return choose(signal, index, ordinary);
         }
       : undefined;
-    const reader: EdfStreamReader = new EdfStreamReader(size, { selectSignal });
+    const reader: EdfStreamReader = new EdfStreamReader(size, {
+      selectSignal,
+      allocateSamples: options.allocateSamples,
+    });
     const buffer = new Uint8Array(chunkBytes);
     let counter: RangeCounter | null = null;
     let failure: { error: unknown } | null = null;
@@ -116,6 +144,8 @@ function ordinarySignalsOf(info: EdfHeaderInfo): EdfSignalHeader[] {
  */
 class RangeCounter {
   private readonly signalOfWord: Int32Array;
+  /** Word index (in a record) where the signal of each word's run ends. */
+  private readonly runEnd: Int32Array;
   private readonly counts: number[];
   private readonly digitalMin: Int32Array;
   private readonly digitalMax: Int32Array;
@@ -128,10 +158,12 @@ class RangeCounter {
     this.digitalMin = Int32Array.from(info.signalHeaders, (s) => s.digitalMin);
     this.digitalMax = Int32Array.from(info.signalHeaders, (s) => s.digitalMax);
     this.signalOfWord = new Int32Array(info.recordBytes / 2);
+    this.runEnd = new Int32Array(info.recordBytes / 2);
     let word = 0;
     info.signalHeaders.forEach((s, i) => {
       const ordinary = !info.annotationSignalIndices.includes(i);
       this.signalOfWord.fill(ordinary ? i : -1, word, word + s.samplesPerRecord);
+      this.runEnd.fill(word + s.samplesPerRecord, word, word + s.samplesPerRecord);
       word += s.samplesPerRecord;
     });
   }
@@ -156,6 +188,13 @@ class RangeCounter {
     const dataBytes = this.info.recordBytes * this.info.header.recordCount;
     const from = Math.max(position, headerBytes);
     const to = Math.min(position + chunk.byteLength, headerBytes + dataBytes);
+    if (to <= from) return;
+    const start = chunk.byteOffset + from - position;
+    const whole = (from - headerBytes) % 2 === 0 && (to - from) % 2 === 0;
+    if (littleEndianHost && whole && start % 2 === 0) {
+      this.countWords(new Int16Array(chunk.buffer, start, (to - from) / 2), from - headerBytes);
+      return;
+    }
     const words = this.signalOfWord;
     const recordWords = words.length;
     const { counts, digitalMin, digitalMax } = this;
@@ -167,6 +206,36 @@ class RangeCounter {
         if (v < digitalMin[s] || v > digitalMax[s]) counts[s]++;
       }
       w = w + 1 === recordWords ? 0 : w + 1;
+    }
+  }
+
+  /**
+   * The same count over 16-bit samples read in place (little-endian host, aligned), one
+   * signal's contiguous run of a record at a time: `dataOffset` is the first word's byte
+   * offset in the data records.
+   */
+  private countWords(samples: Int16Array, dataOffset: number): void {
+    const words = this.signalOfWord;
+    const runEnd = this.runEnd;
+    const recordWords = words.length;
+    const { counts, digitalMin, digitalMax } = this;
+    let w = (dataOffset / 2) % recordWords;
+    for (let k = 0; k < samples.length;) {
+      const take = Math.min(runEnd[w] - w, samples.length - k);
+      const s = words[w];
+      if (s >= 0) {
+        const lo = digitalMin[s];
+        const hi = digitalMax[s];
+        let outside = 0;
+        for (let i = k; i < k + take; i++) {
+          const v = samples[i];
+          if (v < lo || v > hi) outside++;
+        }
+        counts[s] += outside;
+      }
+      k += take;
+      w += take;
+      if (w === recordWords) w = 0;
     }
   }
 

@@ -1,5 +1,10 @@
 import { epochPointCount, epochPointRange, EpochDropReason } from '../onset/epochs';
-import { onsetCurve, onsetStatistics, trialWindowMeans } from '../onset/onset-statistics';
+import {
+  onsetCurve,
+  OnsetCurveScratch,
+  onsetStatistics,
+  trialWindowMeans,
+} from '../onset/onset-statistics';
 import type { AnalysisComputation } from './analysis-computation';
 import { AnalysisSettings, BOOTSTRAP_RESAMPLES, BOOTSTRAP_SEED } from './analysis-settings';
 import type { DropCounts, OnsetResult } from './analysis.types';
@@ -7,7 +12,8 @@ import type { DropCounts, OnsetResult } from './analysis.types';
 /**
  * Baseline, post and Δf over the kept trials of frequency epochs (trials × points) with
  * the bootstrap interval (Efron & Tibshirani 1993) and the Wilcoxon test, the mean curve
- * and the raster (docs/method.md §3): one channel's or the region of interest's.
+ * and the raster (docs/method.md §3): one channel's or the region of interest's. With
+ * `scratch` the raster is a view of its buffer (see `onsetCurve`).
  */
 export function summariseOnsets(
   epochs: Float64Array,
@@ -16,6 +22,7 @@ export function summariseOnsets(
   sampleRateHz: number,
   settings: Readonly<AnalysisSettings>,
   computation: AnalysisComputation,
+  scratch?: OnsetCurveScratch,
 ): { summary: OnsetResult; raster: Float32Array } {
   const { epochWindowS } = settings;
   const points = epochPointCount(epochWindowS, sampleRateHz);
@@ -36,13 +43,11 @@ export function summariseOnsets(
     seed: BOOTSTRAP_SEED,
     flagThresholdHz: settings.flagThresholdHz,
   });
-  const curve = onsetCurve(epochs, {
-    points,
-    trials: kept,
-    epochWindowS,
-    sampleRateHz,
-    maxPoints: computation.maxCurvePoints,
-  });
+  const curve = onsetCurve(
+    epochs,
+    { points, trials: kept, epochWindowS, sampleRateHz, maxPoints: computation.maxCurvePoints },
+    scratch,
+  );
   return {
     summary: {
       ...stats,
