@@ -12,3 +12,5 @@ export * from './worklist';
 export * from './visit-schedule';
 export * from './bulk-uploads';
 export * from './study-overview';
+export * from './number-format';
+export * from './chart-ticks';

@@ -109,10 +109,10 @@ describe('renderVisitReport', () => {
     // PAF and CoG to 0.01 Hz (10.213 → 10.21, 10.087 → 10.09).
     expect(text).toContain(`Peak alpha frequency (PAF) ${rest.pafHz!.toFixed(2)} Hz`);
     expect(text).toContain(`Centre of gravity (CoG) ${rest.cogHz!.toFixed(2)} Hz`);
-    // Δf and its CI to 0.001 Hz with the typographic minus; p to 0.001.
-    expect(text).toContain(`Δf (post − baseline) ${signed(task.deltaFHz!, 3)} Hz`);
+    // Δf and its CI to 0.01 Hz with the typographic minus, as on screen; p to 0.001.
+    expect(text).toContain(`Δf (post − baseline) ${signed(task.deltaFHz!, 2)} Hz`);
     expect(text).toContain(
-      `95 % CI of mean Δf ${signed(task.ciHz![0], 3)} to ${signed(task.ciHz![1], 3)} Hz`,
+      `95 % CI of mean Δf ${signed(task.ciHz![0], 2)} to ${signed(task.ciHz![1], 2)} Hz`,
     );
     expect(text).toContain(`Wilcoxon signed-rank p ${task.pValue!.toFixed(3)}`);
     expect(text).toContain(`Trials ${task.trialsKept} of ${task.trialsTotal} kept`);
@@ -267,7 +267,7 @@ describe('renderVisitReport', () => {
   it('marks a headline number that rests on part of the region of interest on its own row', async () => {
     const draft = draftPages.join(' ');
     expect(section(draft, TASK_HEADING, 'Quality checks')).toContain(
-      'Δf (post − baseline) \u22120.287 Hz (negative = slowing); from 3 of 5 region-of-interest ' +
+      'Δf (post − baseline) \u22120.29 Hz (negative = slowing); from 3 of 5 region-of-interest ' +
         'channels',
     );
     expect(section(draft, REST_HEADING, TASK_HEADING)).not.toContain('region-of-interest channels');
@@ -372,9 +372,10 @@ describe('renderVisitReport', () => {
     const text = await renderText(
       sampleVisitReportModel({ task: { ...base.task!, deltaFHz: -0.0004, ciHz: [-0.0003, 0.2] } }),
     );
-    expect(text).toContain('Δf (post − baseline) 0.000 Hz (negative = slowing)');
-    expect(text).toContain('95 % CI of mean Δf 0.000 to +0.200 Hz');
-    expect(text).not.toContain('\u22120.000');
+    expect(text).toContain('Δf (post − baseline) 0.00 Hz (negative = slowing)');
+    expect(text).toContain('95 % CI of mean Δf 0.00 to +0.20 Hz');
+    expect(text).not.toContain('\u22120.00');
+    expect(text).not.toContain('+0.00');
     expect(draftPages.join(' ')).not.toMatch(/(^|[\s(])-\d/);
   });
 
@@ -418,6 +419,36 @@ describe('renderVisitReport', () => {
         leftOut: [{ label: 'Oz', reason: 'unplugged' as 'flat' }, partial.leftOut[1]],
       }),
     ).rejects.toThrow('Report field task.roiUsage.leftOut[0].reason: found "unplugged"');
+  });
+
+  it('keeps the Task heading on the page of its chart, however far down the section starts', async () => {
+    // The section starts lower as the rest section's ROI note grows; one of these lengths
+    // left the heading at the foot of page 1 and the chart on page 2 (issue 15).
+    const base = sampleVisitReportModel();
+    for (const extraChannels of [0, 6, 12, 18, 24, 30, 36]) {
+      const leftOut = [
+        ...base.rest!.roiUsage.leftOut,
+        ...Array.from({ length: extraChannels }, (_, i) => ({
+          label: `X${i + 1}`,
+          reason: 'flat' as const,
+        })),
+      ];
+      const roiUsage = {
+        ...base.rest!.roiUsage,
+        wanted: [...base.rest!.roiUsage.used, ...leftOut.map((c) => c.label)],
+        leftOut,
+        status: leftOut.length === 0 ? ('complete' as const) : ('partial' as const),
+      };
+      const pdf = await renderVisitReport(
+        sampleVisitReportModel({ rest: { ...base.rest!, roiUsage } }),
+      );
+      const pages = (await readPdfText(pdf)).pages.map(squash);
+      const headingPage = pages.findIndex((p) => p.includes(TASK_HEADING));
+      // The onset curve's axis title and legend are drawn with the chart.
+      const chartPage = pages.findIndex((p) => p.includes('Time from stimulus onset (s)'));
+      expect({ extraChannels, headingPage }).toEqual({ extraChannels, headingPage: chartPage });
+      expect(pages[chartPage]).toContain('95 % CI (bootstrap)');
+    }
   });
 
   it('refuses a replacement reason without the recording it replaced', async () => {

@@ -1,15 +1,8 @@
 import PDFDocument from 'pdfkit';
-import type { RoiUsageDto } from '@gyre/shared';
+import { formatQuantity, formatQuantityRange, type RoiUsageDto } from '@gyre/shared';
 import { BODY_WIDTH_PT, PAGE, REPORT_COLORS, ReportCanvas } from './report-canvas';
 import { ReportFonts } from './report-fonts';
-import {
-  formatCiHz,
-  formatDeltaHz,
-  formatHz,
-  formatNumber,
-  formatPValue,
-  formatUtc,
-} from './report-numbers';
+import { formatCiHz, formatDeltaHz, formatHz, formatPValue, formatUtc } from './report-numbers';
 import { drawOnsetCurvePlot, drawSpectrumPlot } from './report-plots';
 import {
   droppedWords,
@@ -74,8 +67,10 @@ export async function renderVisitReport(
   const canvas = new ReportCanvas(doc, fonts);
 
   drawTitle(canvas, model);
-  drawRest(canvas, model.rest);
-  drawTask(canvas, model.task);
+  // A section's heading, numbers and plot stay on one page: when they do not fit below the
+  // cursor, the section starts a new page (they always fit a fresh one).
+  canvas.keepTogether((c) => drawRest(c, model.rest));
+  canvas.keepTogether((c) => drawTask(c, model.task));
   drawQuality(canvas, model);
   drawFlags(canvas, model);
   drawProvenance(canvas, model);
@@ -160,10 +155,10 @@ function drawRest(canvas: ReportCanvas, rest: RestSection | null): void {
       'Centre of gravity (CoG)',
       rest.cogHz === null ? 'not available' : `${formatHz(rest.cogHz)}${note}`,
     ],
-    ['Alpha window', `${formatHz(rest.alphaWindowHz[0])} to ${formatHz(rest.alphaWindowHz[1])}`],
+    ['Alpha window', formatQuantityRange(rest.alphaWindowHz, 'frequencyHz')],
     [
       'Peak prominence',
-      rest.prominenceDb === null ? 'no clear peak' : `${formatNumber(rest.prominenceDb, 1)} dB`,
+      rest.prominenceDb === null ? 'no clear peak' : formatQuantity(rest.prominenceDb, 'decibel'),
     ],
   ]);
   drawRoiAndSource(canvas, rest.roiUsage, rest.source);
@@ -199,7 +194,7 @@ function drawTask(canvas: ReportCanvas, task: TaskSection | null): void {
     ['95 % CI of mean Δf', task.ciHz === null ? 'not available' : formatCiHz(task.ciHz)],
     ['Wilcoxon signed-rank p', task.pValue === null ? 'not available' : formatPValue(task.pValue)],
     ['Trials', trials],
-    ['Band', `${formatHz(task.bandHz[0])} to ${formatHz(task.bandHz[1])}`],
+    ['Band', formatQuantityRange(task.bandHz, 'frequencyHz')],
     [
       'Windows',
       `baseline ${windowWords(task.baselineWindowS)}, post ${windowWords(task.postWindowS)}`,
@@ -241,8 +236,9 @@ function drawNoRoi(
   canvas.paragraph(sourceWords(source, false), { sizePt: 9, color: REPORT_COLORS.muted });
 }
 
-function windowWords([fromS, toS]: [number, number]): string {
-  return `${formatNumber(fromS, 1)} to ${formatNumber(toS, 1)} s`;
+/** A window relative to onset, signed as on screen: `−0.5 to 0.0 s`, `+0.2 to +0.8 s`. */
+function windowWords(window: [number, number]): string {
+  return formatQuantityRange(window, 'timeFromOnsetS');
 }
 
 function drawQuality(canvas: ReportCanvas, model: VisitReportModel): void {

@@ -1,3 +1,4 @@
+import PDFDocument from 'pdfkit';
 import { FontRole, ReportFonts } from './report-fonts';
 
 /** Gyre's colours (the client's theme tokens and chart palette, frontend/src/app/theme.ts). */
@@ -58,6 +59,41 @@ export class ReportCanvas {
   /** Starts a new page when `heightPt` does not fit below the cursor. */
   ensureSpace(heightPt: number): void {
     if (this.doc.y + heightPt > this.bottomPt) this.doc.addPage();
+  }
+
+  /**
+   * Draws a block whole on one page: when it would not fit below the cursor, it starts on a
+   * new page. Its height is measured by drawing it first on a scratch document from the top
+   * of a fresh page (the same code and fonts, so the same line breaks). A block taller than
+   * a page is drawn where it is.
+   */
+  keepTogether(draw: (canvas: ReportCanvas) => void): void {
+    const measured = this.measure(draw);
+    if (measured.pages === 1 && this.doc.y + measured.heightPt > this.bottomPt) {
+      this.doc.addPage();
+    }
+    draw(this);
+  }
+
+  /** Height of a block drawn from the top of a fresh page, and how many pages it took. */
+  measure(draw: (canvas: ReportCanvas) => void): { heightPt: number; pages: number } {
+    const scratch = new PDFDocument({
+      size: 'A4',
+      bufferPages: true,
+      margins: {
+        top: PAGE.marginTopPt,
+        bottom: PAGE.marginBottomPt,
+        left: PAGE.marginLeftPt,
+        right: PAGE.marginRightPt,
+      },
+    });
+    this.fonts.registerWith(scratch);
+    const top = scratch.y;
+    draw(new ReportCanvas(scratch, this.fonts));
+    const pages = scratch.bufferedPageRange().count;
+    const heightPt = scratch.y - top;
+    scratch.end();
+    return { heightPt, pages };
   }
 
   widthOf(text: string, style: TextStyle = {}): number {

@@ -1,41 +1,58 @@
+import {
+  formatDeltaHz as sharedDeltaHz,
+  formatHz as sharedHz,
+  formatNumber as sharedNumber,
+  formatPValue as sharedPValue,
+  formatQuantityRange,
+  formatShareAsPercent,
+  formatSlopeHzPerYear as sharedSlope,
+  UNIT_SPACE,
+} from '@gyre/shared';
 import dayjs from 'dayjs';
 import utc from 'dayjs/plugin/utc';
 
 dayjs.extend(utc);
 
-/** The typographic minus (U+2212), as in the client, so that signs line up in tabular figures. */
-const MINUS = '\u2212';
+/*
+ * The report's numbers come from @gyre/shared's number-format.ts, the formatter the client's
+ * screens use: the same quantity has the same precision, sign and unit on screen and on paper.
+ */
 
-/** Frequencies to 0.01 Hz: the Welch grid is 0.25 Hz, interpolation refines it below that. */
-export function formatHz(valueHz: number, decimals = 2): string {
-  return `${signed(valueHz, decimals, false)} Hz`;
+/** Frequencies to 0.01 Hz (the precision table in shared/src/number-format.ts). */
+export function formatHz(valueHz: number): string {
+  return sharedHz(valueHz);
 }
 
-/** A change in Hz to 0.001 Hz with its sign always shown (+ or −): slowing must read as such. */
+/** A change in Hz with its sign always shown (+ or −): slowing must read as such. */
 export function formatDeltaHz(valueHz: number): string {
-  return `${signed(valueHz, 3, true)} Hz`;
+  return sharedDeltaHz(valueHz);
 }
 
-export function formatCiHz([lowHz, highHz]: [number, number]): string {
-  return `${signed(lowHz, 3, true)} to ${signed(highHz, 3, true)} Hz`;
+export function formatCiHz(range: [number, number]): string {
+  return formatQuantityRange(range, 'deltaFHz');
 }
 
-/** p to three decimals; below 0.001 as "< 0.001" (common practice). */
+export function formatSlopeHzPerYear(value: number): string {
+  return sharedSlope(value);
+}
+
+/** p to three decimals; below 0.001 as "< 0.001". */
 export function formatPValue(p: number): string {
-  return p < 0.001 ? '< 0.001' : p.toFixed(3);
+  return sharedPValue(p);
 }
 
-export function formatPercent(share: number, decimals = 1): string {
-  return `${signed(share * 100, decimals, false)} %`;
+/** A share in [0, 1] as a percentage to 0.1 %. */
+export function formatPercent(share: number): string {
+  return formatShareAsPercent(share);
 }
 
 export function formatSeconds(valueS: number, decimals = 1): string {
-  return `${signed(valueS, decimals, false)} s`;
+  return `${sharedNumber(valueS, decimals)}${UNIT_SPACE}s`;
 }
 
 /** A plain number with the typographic minus. */
-export function formatNumber(value: number, decimals: number): string {
-  return signed(value, decimals, false);
+export function formatNumber(value: number, decimals: number, signed = false): string {
+  return sharedNumber(value, decimals, { signed });
 }
 
 /** ISO 8601 → "2026-12-01 22:31:05 UTC": signatures state their time zone. */
@@ -43,12 +60,4 @@ export function formatUtc(iso: string): string {
   const parsed = dayjs.utc(iso);
   if (!parsed.isValid()) throw new Error(`Not an ISO 8601 date-time: found "${iso}".`);
   return `${parsed.format('YYYY-MM-DD HH:mm:ss')} UTC`;
-}
-
-/** Rounds first, then signs: a value that rounds to zero prints without a sign, never −0.00. */
-function signed(value: number, decimals: number, alwaysSign: boolean): string {
-  const text = Math.abs(value).toFixed(decimals);
-  const isZero = Number(text) === 0;
-  if (value < 0 && !isZero) return `${MINUS}${text}`;
-  return alwaysSign && !isZero ? `+${text}` : text;
 }

@@ -1,6 +1,7 @@
 import { PAGE, REPORT_COLORS, ReportCanvas } from './report-canvas';
+import { formatQuantityRange, MIN_AXIS_SPAN_HZ } from '@gyre/shared';
 import { formatHz } from './report-numbers';
-import { linearScale, logScale, niceLinearDomain, Scale, tickLabel } from './plot-scales';
+import { logScale, niceLinearScale, Scale } from './plot-scales';
 import { RestSection, TaskSection } from './visit-report-model';
 
 interface Box {
@@ -32,11 +33,11 @@ export function drawSpectrumPlot(canvas: ReportCanvas, rest: RestSection, height
     return;
   }
   const inner = innerBox(box);
-  const x = linearScale(
-    [fromHz, toHz],
-    [inner.xPt, inner.xPt + inner.widthPt],
-    niceLinearDomain(fromHz, toHz, 6).ticks.filter((t) => t >= fromHz && t <= toHz),
-  );
+  // The display range as it is, ticks at a nice step inside it.
+  const x = niceLinearScale(fromHz, toHz, [inner.xPt, inner.xPt + inner.widthPt], {
+    count: 6,
+    nice: false,
+  });
   const powers = points.map((p) => p.power);
   const y = logScale(Math.min(...powers), Math.max(...powers), [
     inner.yPt + inner.heightPt,
@@ -71,7 +72,7 @@ export function drawSpectrumPlot(canvas: ReportCanvas, rest: RestSection, height
   if (rest.pafHz !== null) legend.push([`PAF ${formatHz(rest.pafHz)}`, REPORT_COLORS.amber, false]);
   if (rest.cogHz !== null) legend.push([`CoG ${formatHz(rest.cogHz)}`, REPORT_COLORS.second, true]);
   legend.push([
-    `alpha window ${rest.alphaWindowHz[0]}–${rest.alphaWindowHz[1]} Hz`,
+    `alpha window ${formatQuantityRange(rest.alphaWindowHz, 'frequencyHz')}`,
     REPORT_COLORS.band,
     false,
   ]);
@@ -94,12 +95,22 @@ export function drawOnsetCurvePlot(canvas: ReportCanvas, task: TaskSection, heig
     return;
   }
   const inner = innerBox(box);
+  // Time widened to whole steps (−1.0 to +2.0 s for the usual epoch), signed like the
+  // windows; frequency at a nice step with distinct labels. The screen's onset curve has the
+  // same axes (shared/src/chart-ticks.ts).
   const t0 = curve.timeS[0];
   const t1 = curve.timeS[curve.timeS.length - 1];
-  const xTicks = niceLinearDomain(t0, t1, 6).ticks.filter((t) => t >= t0 - 1e-9 && t <= t1 + 1e-9);
-  const x = linearScale([t0, t1], [inner.xPt, inner.xPt + inner.widthPt], xTicks);
-  const yNice = niceLinearDomain(Math.min(...values), Math.max(...values), 5);
-  const y = linearScale(yNice.domain, [inner.yPt + inner.heightPt, inner.yPt], yNice.ticks);
+  const x = niceLinearScale(t0, t1, [inner.xPt, inner.xPt + inner.widthPt], {
+    count: 6,
+    minDecimals: 1,
+    signed: true,
+  });
+  const y = niceLinearScale(
+    Math.min(...values),
+    Math.max(...values),
+    [inner.yPt + inner.heightPt, inner.yPt],
+    { count: 5, minSpan: MIN_AXIS_SPAN_HZ },
+  );
   const { doc } = canvas;
 
   doc.save();
@@ -143,9 +154,8 @@ export function drawOnsetCurvePlot(canvas: ReportCanvas, task: TaskSection, heig
   canvas.doc.y = box.yPt + box.heightPt + 6;
 }
 
-function windowText([fromS, toS]: [number, number]): string {
-  const f = (v: number) => v.toString().replace(/-/g, '\u2212');
-  return `${f(fromS)} to ${f(toS)} s`;
+function windowText(window: [number, number]): string {
+  return formatQuantityRange(window, 'timeFromOnsetS');
 }
 
 /** Contiguous runs where both series have values (a null breaks the line, never bridges it). */
@@ -227,11 +237,11 @@ function verticalMarker(
 function gridLines(canvas: ReportCanvas, inner: Box, x: Scale, y: Scale): void {
   const { doc } = canvas;
   doc.lineWidth(0.4).strokeColor(REPORT_COLORS.line);
-  for (const tick of x.ticks) {
-    doc.moveTo(x.toPt(tick), inner.yPt).lineTo(x.toPt(tick), inner.yPt + inner.heightPt);
+  for (const { value } of x.ticks) {
+    doc.moveTo(x.toPt(value), inner.yPt).lineTo(x.toPt(value), inner.yPt + inner.heightPt);
   }
-  for (const tick of y.ticks) {
-    doc.moveTo(inner.xPt, y.toPt(tick)).lineTo(inner.xPt + inner.widthPt, y.toPt(tick));
+  for (const { value } of y.ticks) {
+    doc.moveTo(inner.xPt, y.toPt(value)).lineTo(inner.xPt + inner.widthPt, y.toPt(value));
   }
   doc.stroke();
 }
@@ -254,9 +264,8 @@ function axes(
     .strokeColor(REPORT_COLORS.ink)
     .stroke();
   const style = { sizePt: 7.5, color: REPORT_COLORS.muted } as const;
-  for (const tick of x.ticks) {
-    const label = tickLabel(tick);
-    const px = x.toPt(tick);
+  for (const { value, label } of x.ticks) {
+    const px = x.toPt(value);
     doc
       .moveTo(px, bottom)
       .lineTo(px, bottom + 3)
@@ -265,9 +274,8 @@ function axes(
     doc.stroke();
     canvas.textAt(label, px - canvas.widthOf(label, style) / 2, bottom + 5, style);
   }
-  for (const tick of y.ticks) {
-    const label = tickLabel(tick);
-    const py = y.toPt(tick);
+  for (const { value, label } of y.ticks) {
+    const py = y.toPt(value);
     doc
       .moveTo(inner.xPt - 3, py)
       .lineTo(inner.xPt, py)

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { CHART_PALETTE } from '../../app/theme';
-import { MISSING_CELL_RGB, niceTicks, rampRgb } from './frequency-colour-scale';
+import { MISSING_CELL_RGB, rampRgb } from './frequency-colour-scale';
 
 const rgbOf = (hex: string) => [1, 3, 5].map((i) => Number.parseInt(hex.slice(i, i + 2), 16));
 
@@ -21,11 +21,5 @@ describe('frequency colour ramp', () => {
 
   it('gives missing cells their own grey', () => {
     expect(rampRgb(Number.NaN, [8, 13])).toEqual([...MISSING_CELL_RGB]);
-  });
-
-  it('picks round ticks 1, 2 or 5 × 10^k apart', () => {
-    expect(niceTicks([8, 13], 5)).toEqual([8, 9, 10, 11, 12, 13]);
-    expect(niceTicks([-1, 2], 6)).toEqual([-1, -0.5, 0, 0.5, 1, 1.5, 2]);
-    expect(niceTicks([0, 45], 4)).toEqual([0, 20, 40]);
   });
 });

@@ -45,21 +45,7 @@ export function rampRgb(
 /** A CSS gradient of the same ramp, for the legend. */
 export function rampCssGradient(direction = 'to right'): string {
   const stops = FREQUENCY_RAMP.map(
-    (colour, i) => `${colour} ${((i / (FREQUENCY_RAMP.length - 1)) * 100).toFixed(0)}%`,
+    (colour, i) => `${colour} ${Math.round((i / (FREQUENCY_RAMP.length - 1)) * 100)}%`,
   );
   return `linear-gradient(${direction}, ${stops.join(', ')})`;
-}
-
-/** Evenly spaced "nice" ticks across a domain (1, 2 or 5 × 10^k apart). */
-export function niceTicks(domain: readonly [number, number], approxCount = 5): number[] {
-  const [low, high] = domain;
-  if (!(high > low)) return [low];
-  const rough = (high - low) / Math.max(1, approxCount);
-  const magnitude = 10 ** Math.floor(Math.log10(rough));
-  const step = [1, 2, 5, 10].map((m) => m * magnitude).find((s) => s >= rough) ?? rough;
-  const ticks: number[] = [];
-  for (let t = Math.ceil(low / step - 1e-9) * step; t <= high + 1e-9; t += step) {
-    ticks.push(Math.abs(t) < step * 1e-9 ? 0 : t);
-  }
-  return ticks;
 }

@@ -7,7 +7,9 @@ import type { PlotSpec } from './plot-spec';
  * {@link PlotFigure} so the first page of the app stays small.
  */
 export default function G2Plot({ spec, height }: { spec: PlotSpec; height: number }) {
+  // The tick labels ride along for the page, not for G2.
+  const { axisLabels: _labels, ...g2Spec } = spec;
   // PlotSpec is a narrow, plain-data view of G2's spec; the library's own type is much wider.
-  const config = { ...spec, height, autoFit: true } as unknown as CommonConfig;
+  const config = { ...g2Spec, height, autoFit: true } as unknown as CommonConfig;
   return <Base {...config} />;
 }

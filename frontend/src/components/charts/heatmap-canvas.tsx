@@ -1,6 +1,8 @@
+import { linearAxis, UNIT_SPACE } from '@gyre/shared';
 import { useEffect, useRef, useState } from 'react';
 import { GYRE_COLORS } from '../../app/theme';
-import { niceTicks, rampCssGradient, rampRgb } from './frequency-colour-scale';
+import { rampCssGradient, rampRgb } from './frequency-colour-scale';
+import { xTickCount } from './plot-spec';
 
 export interface HeatmapMatrix {
   /** Row-major values, `rows × columns` long; NaN where there is no value. */
@@ -24,7 +26,7 @@ export function HeatmapCanvas({
   xTitle,
   yTitle,
   legendTitle,
-  formatLegend,
+  legendUnit,
   verticalMarkers = [],
   heightPx = 280,
 }: {
@@ -34,7 +36,8 @@ export function HeatmapCanvas({
   xTitle: string;
   yTitle: string;
   legendTitle: string;
-  formatLegend: (value: number) => string;
+  /** The unit written after each legend label, e.g. "Hz". */
+  legendUnit: string;
   /** x positions of dashed reference lines (e.g. stimulus onset at 0 s). */
   verticalMarkers?: number[];
   heightPx?: number;
@@ -84,14 +87,24 @@ export function HeatmapCanvas({
   const xMin = xFirst - halfCell;
   const xMax = xLast + halfCell;
   const xToPx = (x: number) => ((x - xMin) / (xMax - xMin)) * plotWidth;
-  const xTicks = niceTicks([xMin, xMax], 6).filter((t) => t >= xMin && t <= xMax);
-  const yTicks = niceTicks([1, Math.max(1, matrix.rows)], 4).filter(
-    (t) => Number.isInteger(t) && t >= 1 && t <= matrix.rows,
-  );
+  // Ticks from shared/src/chart-ticks.ts: inside the drawn span, distinct labels.
+  const xTicks = linearAxis(xMin, xMax, {
+    count: xTickCount(widthPx, 56),
+    nice: false,
+    minDecimals: 1,
+    signed: true,
+  }).ticks;
+  // Trial numbers: at most rows − 1 intervals keeps the step whole.
+  const yTicks = linearAxis(1, Math.max(2, matrix.rows), {
+    count: Math.max(1, Math.min(matrix.rows - 1, Math.floor(plotHeight / 40))),
+    nice: false,
+  }).ticks.filter((t) => Number.isInteger(t.value) && t.value <= matrix.rows);
   const rowToPx = (trialNumber: number) => ((trialNumber - 0.5) / matrix.rows) * plotHeight;
-  const legendTicks = niceTicks(colourDomain, 5).filter(
-    (t) => t >= colourDomain[0] && t <= colourDomain[1],
-  );
+  const legendTicks = linearAxis(colourDomain[0], colourDomain[1], {
+    count: 5,
+    nice: false,
+    minDecimals: 1,
+  }).ticks;
   const legendSpan = colourDomain[1] - colourDomain[0] || 1;
 
   return (
@@ -135,18 +148,18 @@ export function HeatmapCanvas({
               />
             ))}
             {xTicks.map((t) => (
-              <g key={t} transform={`translate(${xToPx(t)},${plotHeight})`}>
+              <g key={t.value} transform={`translate(${xToPx(t.value)},${plotHeight})`}>
                 <line y2={5} stroke={GYRE_COLORS.ink} />
                 <text y={18} textAnchor="middle">
-                  {Number(t.toFixed(2))}
+                  {t.label}
                 </text>
               </g>
             ))}
             {yTicks.map((t) => (
-              <g key={t} transform={`translate(0,${rowToPx(t)})`}>
+              <g key={t.value} transform={`translate(0,${rowToPx(t.value)})`}>
                 <line x2={-5} stroke={GYRE_COLORS.ink} />
                 <text x={-8} dy="0.32em" textAnchor="end">
-                  {t}
+                  {t.label}
                 </text>
               </g>
             ))}
@@ -162,7 +175,7 @@ export function HeatmapCanvas({
       <div
         role="group"
         aria-label={`${legendTitle} colour legend`}
-        style={{ marginLeft: MARGIN.left, marginTop: 4, maxWidth: 360 }}
+        style={{ marginLeft: MARGIN.left, marginRight: MARGIN.right, marginTop: 4, maxWidth: 360 }}
       >
         <div style={{ fontSize: 12, marginBottom: 4 }}>{legendTitle}</div>
         <div
@@ -171,12 +184,12 @@ export function HeatmapCanvas({
         />
         <div className="gyre-figures" style={{ position: 'relative', height: 18, fontSize: 12 }}>
           {legendTicks.map((t) => {
-            const at = (t - colourDomain[0]) / legendSpan;
+            const at = (t.value - colourDomain[0]) / legendSpan;
             // End labels align inwards so that none spills past the bar.
             const shift = at <= 0.001 ? '0' : at >= 0.999 ? '-100%' : '-50%';
             return (
               <span
-                key={t}
+                key={t.value}
                 style={{
                   position: 'absolute',
                   left: `${at * 100}%`,
@@ -185,7 +198,7 @@ export function HeatmapCanvas({
                   whiteSpace: 'nowrap',
                 }}
               >
-                {formatLegend(t)}
+                {`${t.label}${UNIT_SPACE}${legendUnit}`}
               </span>
             );
           })}

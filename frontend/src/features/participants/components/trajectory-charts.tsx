@@ -1,9 +1,12 @@
 import type { TrajectoryDto, TrendDto } from '@gyre/shared';
 import { Col, Row, Typography } from 'antd';
-import { useMemo } from 'react';
+import { useCallback } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
 import { PlotFigure } from '../../../components/charts/plot-figure';
+import { formatSlopeHzPerYear } from '../../../lib/format';
 import { alphaFrequencySpec, onsetChangeSpec, SERIES_COLOUR } from './trajectory-spec';
+
+const CHART_HEIGHT_PX = 280;
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
@@ -13,8 +16,7 @@ const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one :
  */
 export function trendText(trend: TrendDto, rule: TrajectoryDto['trendRule']): string {
   if (trend.slopeHzPerYear !== null) {
-    const slope = trend.slopeHzPerYear;
-    return `${slope > 0 ? '+' : ''}${slope.toFixed(2)} Hz/year over ${plural(trend.visits, 'visit', 'visits')} (${plural(trend.spanDays, 'day', 'days')})`;
+    return `${formatSlopeHzPerYear(trend.slopeHzPerYear)} over ${plural(trend.visits, 'visit', 'visits')} (${plural(trend.spanDays, 'day', 'days')})`;
   }
   if (trend.reason === 'too-few-visits') {
     return `no trend: ${plural(trend.visits, 'visit', 'visits')} with a value, the study needs ${rule.minVisits}`;
@@ -24,7 +26,8 @@ export function trendText(trend: TrendDto, rule: TrajectoryDto['trendRule']): st
 
 function Key({ colour, text, dashed = false }: { colour: string; text: string; dashed?: boolean }) {
   return (
-    <span style={{ marginRight: 16, whiteSpace: 'nowrap' }}>
+    // Long keys wrap inside the container instead of pushing past it on a narrow screen.
+    <span style={{ display: 'inline-block', maxWidth: '100%', marginRight: 16 }}>
       <span
         aria-hidden="true"
         style={{
@@ -42,8 +45,14 @@ function Key({ colour, text, dashed = false }: { colour: string; text: string; d
 
 /** Two panels: resting PAF and CoG, and the task's onset Δf, across the visit dates. */
 export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryDto }) {
-  const alpha = useMemo(() => alphaFrequencySpec(trajectory), [trajectory]);
-  const onset = useMemo(() => onsetChangeSpec(trajectory), [trajectory]);
+  const alpha = useCallback(
+    (widthPx: number) => alphaFrequencySpec(trajectory, { widthPx, heightPx: CHART_HEIGHT_PX }),
+    [trajectory],
+  );
+  const onset = useCallback(
+    (widthPx: number) => onsetChangeSpec(trajectory, { widthPx, heightPx: CHART_HEIGHT_PX }),
+    [trajectory],
+  );
   const { trends, trendRule } = trajectory;
   const anyFlagged = trajectory.visits.some((v) => v.flagged);
   return (
@@ -63,7 +72,7 @@ export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryDto }) 
         <PlotFigure
           label="Alpha frequency trajectory"
           spec={alpha}
-          heightPx={280}
+          heightPx={CHART_HEIGHT_PX}
           caption={`Peak alpha frequency and centre of gravity of each visit's resting recording. A robust (Theil–Sen) trend line is drawn only from ${trendRule.minVisits} visits spanning at least ${trendRule.minSpanDays} days (the study's rule).`}
         />
       </Col>
@@ -78,7 +87,7 @@ export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryDto }) 
         <PlotFigure
           label="Onset change trajectory"
           spec={onset}
-          heightPx={280}
+          heightPx={CHART_HEIGHT_PX}
           caption="Change of the mean instantaneous frequency after onset (post − baseline) at each visit; below zero means the rhythm slowed."
         />
       </Col>

@@ -1,12 +1,24 @@
-import type { TrajectoryDto, TrajectoryVisitDto } from '@gyre/shared';
-import dayjs from 'dayjs';
+import {
+  dateAxis,
+  formatUtcDay,
+  linearAxis,
+  MIN_AXIS_SPAN_HZ,
+  type TrajectoryDto,
+  type TrajectoryVisitDto,
+} from '@gyre/shared';
 import { CHART_PALETTE, GYRE_COLORS } from '../../../app/theme';
 import {
   axisWithUnit,
   gyreView,
+  labelsOf,
+  linearScaleOf,
+  timeScaleOf,
+  xTickCount,
+  yTickCount,
   type MarkSpec,
   type PlotSpec,
 } from '../../../components/charts/plot-spec';
+import { formatDeltaHz, formatHz } from '../../../lib/format';
 import { theilSenLine } from './theil-sen-line';
 
 export const SERIES_COLOUR = {
@@ -31,7 +43,15 @@ const PICK: Record<TrajectorySeries, (v: TrajectoryVisitDto) => number | null> =
   Δf: (v) => v.deltaFHz,
 };
 
-/** The visits where a series has a value, on a millisecond time axis (dayjs parses the date). */
+/**
+ * A visit date (`YYYY-MM-DD`) as milliseconds at UTC midnight: the axis's ticks are UTC
+ * days, so a date lands on its own tick in every time zone.
+ */
+export function visitDateMs(date: string): number {
+  return Date.parse(/^\d{4}-\d{2}-\d{2}$/.test(date) ? `${date}T00:00:00Z` : date);
+}
+
+/** The visits where a series has a value, on a millisecond time axis (UTC). */
 export function seriesPoints(
   visits: TrajectoryVisitDto[],
   series: TrajectorySeries,
@@ -42,8 +62,8 @@ export function seriesPoints(
     return [
       {
         series,
-        timeMs: dayjs(visit.date).valueOf(),
-        date: dayjs(visit.date).toDate(),
+        timeMs: visitDateMs(visit.date),
+        date: new Date(visitDateMs(visit.date)),
         valueHz: value,
         label: visit.label,
         flagged: visit.flagged,
@@ -52,7 +72,7 @@ export function seriesPoints(
   });
 }
 
-const dateLabel = (ms: number) => dayjs(ms).format('D MMM YYYY');
+const dateLabel = (ms: number) => formatUtcDay(ms);
 
 function seriesMarks(points: TrajectoryPoint[], slopeHzPerYear: number | null): MarkSpec[] {
   if (points.length === 0) return [];
@@ -79,7 +99,11 @@ function seriesMarks(points: TrajectoryPoint[], slopeHzPerYear: number | null): 
         title: (d: TrajectoryPoint) =>
           `${d.label}, ${dateLabel(d.timeMs)}${d.flagged ? ' (flagged)' : ''}`,
         items: [
-          { channel: 'y', name: series, valueFormatter: (v: number) => `${v.toFixed(2)} Hz` },
+          {
+            channel: 'y',
+            name: series,
+            valueFormatter: (v: number) => (series === 'Δf' ? formatDeltaHz(v) : formatHz(v)),
+          },
         ],
       },
     },
@@ -98,7 +122,7 @@ function seriesMarks(points: TrajectoryPoint[], slopeHzPerYear: number | null): 
 }
 
 function flaggedMarks(visits: TrajectoryVisitDto[]): MarkSpec[] {
-  const flagged = visits.filter((v) => v.flagged).map((v) => dayjs(v.date).toDate());
+  const flagged = visits.filter((v) => v.flagged).map((v) => new Date(visitDateMs(v.date)));
   if (flagged.length === 0) return [];
   return [
     {
@@ -114,7 +138,7 @@ function flaggedMarks(visits: TrajectoryVisitDto[]): MarkSpec[] {
 }
 
 function timeDomain(visits: TrajectoryVisitDto[]): [number, number] {
-  const times = visits.map((v) => dayjs(v.date).valueOf());
+  const times = visits.map((v) => visitDateMs(v.date));
   const first = Math.min(...times);
   const last = Math.max(...times);
   // A month either side keeps the first and last visit off the plot's edge.
@@ -122,49 +146,96 @@ function timeDomain(visits: TrajectoryVisitDto[]): [number, number] {
   return [first - pad, last + pad];
 }
 
-function view(visits: TrajectoryVisitDto[], yTitle: string, children: MarkSpec[]): PlotSpec {
+/** Every value a panel draws, so that its y axis covers the trend line's ends too. */
+function panelValues(marks: MarkSpec[]): number[] {
+  return marks
+    .flatMap((mark) =>
+      Array.isArray(mark.data)
+        ? (mark.data as unknown[]).flatMap((d) =>
+            typeof d === 'object' && d !== null && 'valueHz' in d ? [Number(d.valueHz)] : [],
+          )
+        : [],
+    )
+    .filter(Number.isFinite);
+}
+
+/**
+ * A panel over the visit dates. Ticks from shared/src/chart-ticks.ts: calendar ticks that
+ * name each month or year once, and Hz at a nice step with distinct labels.
+ */
+function view(
+  visits: TrajectoryVisitDto[],
+  yTitle: string,
+  children: MarkSpec[],
+  size: ChartSize,
+  includeZero = false,
+): PlotSpec {
+  const [fromMs, toMs] = timeDomain(visits);
+  const x = dateAxis(fromMs, toMs, { count: xTickCount(size.widthPx, 84) });
+  const values = panelValues(children);
+  if (includeZero) values.push(0);
+  const y = linearAxis(Math.min(...values), Math.max(...values), {
+    count: yTickCount(size.heightPx),
+    minSpan: MIN_AXIS_SPAN_HZ,
+  });
   return gyreView({
     padding: 'auto',
-    scale: {
-      x: { type: 'time', domain: timeDomain(visits).map((ms) => new Date(ms)), nice: false },
-      y: { nice: true, zero: false },
-    },
+    scale: { x: timeScaleOf(x), y: linearScaleOf(y) },
     axis: {
-      x: {
-        ...axisWithUnit('Visit date', null, {
-          labelFormatter: (v) => dayjs(v).format('MMM YYYY'),
-        }),
-        labelAutoRotate: false,
-        labelAutoHide: true,
-      },
-      y: axisWithUnit(yTitle, 'Hz', { labelFormatter: (v) => v.toFixed(2) }),
+      x: axisWithUnit('Visit date', null, { ticks: x }),
+      y: axisWithUnit(yTitle, 'Hz', { ticks: y }),
     },
+    axisLabels: { x: labelsOf(x), y: labelsOf(y) },
     legend: false,
     children,
   });
 }
 
+export interface ChartSize {
+  widthPx: number;
+  heightPx: number;
+}
+
+const DEFAULT_SIZE: ChartSize = { widthPx: 640, heightPx: 280 };
+
 /** PAF and CoG over the visit dates, with their Theil–Sen trends and flagged visits marked. */
-export function alphaFrequencySpec(trajectory: TrajectoryDto): PlotSpec {
+export function alphaFrequencySpec(
+  trajectory: TrajectoryDto,
+  size: ChartSize = DEFAULT_SIZE,
+): PlotSpec {
   const { visits, slopesHzPerYear } = trajectory;
-  return view(visits, 'Resting alpha frequency', [
-    ...flaggedMarks(visits),
-    ...seriesMarks(seriesPoints(visits, 'PAF'), slopesHzPerYear.paf),
-    ...seriesMarks(seriesPoints(visits, 'CoG'), slopesHzPerYear.cog),
-  ]);
+  return view(
+    visits,
+    'Resting alpha frequency',
+    [
+      ...flaggedMarks(visits),
+      ...seriesMarks(seriesPoints(visits, 'PAF'), slopesHzPerYear.paf),
+      ...seriesMarks(seriesPoints(visits, 'CoG'), slopesHzPerYear.cog),
+    ],
+    size,
+  );
 }
 
 /** Task Δf over the visit dates with the zero line (below zero = slowing after onset). */
-export function onsetChangeSpec(trajectory: TrajectoryDto): PlotSpec {
+export function onsetChangeSpec(
+  trajectory: TrajectoryDto,
+  size: ChartSize = DEFAULT_SIZE,
+): PlotSpec {
   const { visits, slopesHzPerYear } = trajectory;
-  return view(visits, 'Onset Δf (post − baseline)', [
-    ...flaggedMarks(visits),
-    {
-      type: 'lineY',
-      data: [0],
-      style: { stroke: GYRE_COLORS.ink, lineWidth: 1, strokeOpacity: 0.6 },
-      tooltip: false,
-    },
-    ...seriesMarks(seriesPoints(visits, 'Δf'), slopesHzPerYear.deltaF),
-  ]);
+  return view(
+    visits,
+    'Onset Δf (post − baseline)',
+    [
+      ...flaggedMarks(visits),
+      {
+        type: 'lineY',
+        data: [0],
+        style: { stroke: GYRE_COLORS.ink, lineWidth: 1, strokeOpacity: 0.6 },
+        tooltip: false,
+      },
+      ...seriesMarks(seriesPoints(visits, 'Δf'), slopesHzPerYear.deltaF),
+    ],
+    size,
+    true,
+  );
 }

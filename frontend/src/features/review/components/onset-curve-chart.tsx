@@ -1,9 +1,9 @@
 import type { OnsetCurveDto, TaskResultsDto } from '@gyre/shared';
 import { Flex, Select, Skeleton, Typography } from 'antd';
-import { useMemo, useState } from 'react';
+import { useCallback, useMemo, useState } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
 import { ErrorState } from '../../../components/page-states';
-import { formatHz } from '../../../lib/format';
+import { formatHz, formatQuantity, formatQuantityRange } from '../../../lib/format';
 import { NO_ROI_CHANNEL_REMAINS } from '../../../lib/roi-usage';
 import { useChannelCurve } from '../api/get-channel-curve';
 import {
@@ -17,10 +17,12 @@ import {
 
 const ROI = '__roi__';
 
-function windowText([start, end]: [number, number]): string {
-  const signed = (v: number) => (v > 0 ? `+${v.toFixed(1)}` : v.toFixed(1));
-  return `${signed(start)} to ${signed(end)} s`;
+/** A window relative to onset, signed: `−0.5 to 0.0 s`, `+0.2 to +0.8 s`. */
+function windowText(window: [number, number]): string {
+  return formatQuantityRange(window, 'timeFromOnsetS');
 }
+
+const CHART_HEIGHT_PX = 300;
 
 function Swatch({
   colour,
@@ -77,13 +79,15 @@ export function OnsetCurveChart({
     () => (curve === undefined ? NO_POINTS : onsetCurvePoints(task.timeS, curve)),
     [task.timeS, curve],
   );
-  const spec = useMemo(
-    () =>
+  const spec = useCallback(
+    (widthPx: number) =>
       onsetCurveSpec({
         points,
         baselineWindowS: task.baselineWindowS,
         postWindowS: task.postWindowS,
         seriesName,
+        widthPx,
+        heightPx: CHART_HEIGHT_PX,
       }),
     [points, task.baselineWindowS, task.postWindowS, seriesName],
   );
@@ -94,20 +98,22 @@ export function OnsetCurveChart({
   return (
     <div>
       <Flex justify="space-between" align="center" wrap gap={12} style={{ marginBottom: 8 }}>
-        <Flex gap={16} wrap style={{ fontSize: 13 }}>
-          <span>
+        {/* The chart's key: the windows are named here, not inside the plot, where their
+            labels would collide on a narrow screen. */}
+        <Flex gap={16} wrap style={{ fontSize: 13 }} className="gyre-figures">
+          <span data-gyre-key="mean">
             <Swatch colour={MEAN_COLOUR} line />
             {seriesName}
           </span>
-          <span>
+          <span data-gyre-key="band">
             <Swatch colour={MEAN_COLOUR} opacity={0.25} />
             95 % confidence band
           </span>
-          <span>
+          <span data-gyre-key="baseline" style={{ whiteSpace: 'nowrap' }}>
             <Swatch colour={BASELINE_COLOUR} opacity={0.3} />
             Baseline {windowText(task.baselineWindowS)}
           </span>
-          <span>
+          <span data-gyre-key="post" style={{ whiteSpace: 'nowrap' }}>
             <Swatch colour={POST_COLOUR} opacity={0.3} />
             Post {windowText(task.postWindowS)}
           </span>
@@ -147,11 +153,12 @@ export function OnsetCurveChart({
         <PlotFigure
           label="Onset curve"
           spec={spec}
-          heightPx={300}
+          heightPx={CHART_HEIGHT_PX}
           caption={
             <>
-              Mean instantaneous frequency from {points[0].timeS.toFixed(1)} s to{' '}
-              {points[points.length - 1].timeS.toFixed(1)} s around stimulus onset. Baseline mean{' '}
+              Mean instantaneous frequency from {formatQuantity(points[0].timeS, 'timeFromOnsetS')}{' '}
+              to {formatQuantity(points[points.length - 1].timeS, 'timeFromOnsetS')} around stimulus
+              onset. Baseline mean{' '}
               <span className="gyre-figures">{formatHz(meanOf(task.baselineWindowS))}</span>, post
               mean <span className="gyre-figures">{formatHz(meanOf(task.postWindowS))}</span> (curve
               averages; the table's Δf is averaged over trials).

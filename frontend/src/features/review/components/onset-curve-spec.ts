@@ -1,6 +1,15 @@
-import type { OnsetCurveDto } from '@gyre/shared';
+import { linearAxis, MIN_AXIS_SPAN_HZ, type OnsetCurveDto } from '@gyre/shared';
 import { CHART_PALETTE, GYRE_COLORS } from '../../../app/theme';
-import { axisWithUnit, gyreView, type PlotSpec } from '../../../components/charts/plot-spec';
+import {
+  axisWithUnit,
+  gyreView,
+  labelsOf,
+  linearScaleOf,
+  xTickCount,
+  yTickCount,
+  type PlotSpec,
+} from '../../../components/charts/plot-spec';
+import { formatHz, formatQuantity } from '../../../lib/format';
 
 export interface OnsetCurvePoint {
   timeS: number;
@@ -29,34 +38,53 @@ export const BASELINE_COLOUR = CHART_PALETTE[2];
 export const POST_COLOUR = CHART_PALETTE[4];
 export const MEAN_COLOUR = CHART_PALETTE[0];
 
-const hz = (value: number) => `${value.toFixed(2)} Hz`;
+const hz = (value: number) => formatHz(value);
+
+/** Room above the plot area for the "Onset" label, so the curve can never cross it. */
+const ONSET_LABEL_ROOM_PX = 22;
 
 /**
  * Mean instantaneous frequency around onset with its 95 % CI band, the baseline and post
- * windows shaded behind it and a dashed line at onset (0 s).
+ * windows shaded behind it (named in the legend beside the chart, so their labels never
+ * collide at narrow widths) and a dashed line at onset (0 s), labelled above the plot area.
+ * Ticks from shared/src/chart-ticks.ts: the time axis widened to whole steps (−1.0 to +2.0 s
+ * for the usual epoch), signed like the windows; the frequency axis with distinct labels.
  */
 export function onsetCurveSpec(options: {
   points: OnsetCurvePoint[];
   baselineWindowS: [number, number];
   postWindowS: [number, number];
   seriesName: string;
+  widthPx?: number;
+  heightPx?: number;
 }): PlotSpec {
   const { points, baselineWindowS, postWindowS, seriesName } = options;
+  const widthPx = options.widthPx ?? 640;
+  const heightPx = options.heightPx ?? 300;
   const band = points.filter((p) => p.ciLowHz !== null && p.ciHighHz !== null);
   const first = points[0]?.timeS ?? -1;
   const last = points[points.length - 1]?.timeS ?? 2;
+  const x = linearAxis(first, last, {
+    count: xTickCount(widthPx, 56),
+    minDecimals: 1,
+    signed: true,
+  });
+  const values = points.flatMap((p) =>
+    [p.meanHz, p.ciLowHz, p.ciHighHz].filter((v): v is number => v !== null && Number.isFinite(v)),
+  );
+  const y = linearAxis(Math.min(...values), Math.max(...values), {
+    count: yTickCount(heightPx - ONSET_LABEL_ROOM_PX),
+    minSpan: MIN_AXIS_SPAN_HZ,
+  });
   return gyreView({
     padding: 'auto',
-    scale: {
-      x: { type: 'linear', domain: [first, last], nice: false },
-      y: { nice: true, zero: false },
-    },
+    marginTop: ONSET_LABEL_ROOM_PX,
+    scale: { x: linearScaleOf(x), y: linearScaleOf(y) },
     axis: {
-      x: axisWithUnit('Time from onset', 's', { labelFormatter: (v) => v.toFixed(1) }),
-      y: axisWithUnit('Mean instantaneous frequency', 'Hz', {
-        labelFormatter: (v) => v.toFixed(1),
-      }),
+      x: axisWithUnit('Time from onset', 's', { ticks: x }),
+      y: axisWithUnit('Mean instantaneous frequency', 'Hz', { ticks: y }),
     },
+    axisLabels: { x: labelsOf(x), y: labelsOf(y) },
     legend: false,
     interaction: { tooltip: { shared: true } },
     children: [
@@ -75,16 +103,6 @@ export function onsetCurveSpec(options: {
           },
         },
         style: { fillOpacity: 0.14 },
-        labels: [
-          {
-            text: 'window',
-            position: 'top-left',
-            dx: 4,
-            dy: 4,
-            fill: GYRE_COLORS.ink,
-            fontSize: 11,
-          },
-        ],
         tooltip: false,
       },
       {
@@ -105,7 +123,7 @@ export function onsetCurveSpec(options: {
         encode: { x: 'timeS', y: 'meanHz' },
         style: { stroke: MEAN_COLOUR, lineWidth: 2 },
         tooltip: {
-          title: (d: OnsetCurvePoint) => `${d.timeS.toFixed(3)} s`,
+          title: (d: OnsetCurvePoint) => formatQuantity(d.timeS, 'sampleTimeS'),
           items: [{ channel: 'y', name: seriesName, valueFormatter: hz }],
         },
       },
@@ -113,12 +131,14 @@ export function onsetCurveSpec(options: {
         type: 'lineX',
         data: [0],
         style: { stroke: GYRE_COLORS.ink, lineDash: [4, 3], lineWidth: 1.5 },
+        // Above the plot area (in the view's top margin): no curve or band reaches there.
         labels: [
           {
             text: 'Onset',
-            position: 'bottom-right',
-            dx: 4,
-            dy: -4,
+            position: 'top',
+            dy: -6,
+            textAlign: 'center',
+            textBaseline: 'bottom',
             fill: GYRE_COLORS.ink,
             fontSize: 11,
           },

@@ -1,8 +1,8 @@
 import type { RestResultsDto } from '@gyre/shared';
 import { Flex, Typography } from 'antd';
-import { useMemo } from 'react';
+import { useCallback, useMemo } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
-import { formatHz } from '../../../lib/format';
+import { formatHz, formatHzRange, formatQuantity } from '../../../lib/format';
 import { COG_COLOUR, PAF_COLOUR, restSpectrumSpec, spectrumPoints } from './rest-spectrum-spec';
 
 function DashKey({ colour }: { colour: string }) {
@@ -20,19 +20,23 @@ function DashKey({ colour }: { colour: string }) {
   );
 }
 
+const CHART_HEIGHT_PX = 280;
+
 /** The resting power spectrum with the individual alpha frequency marked two ways. */
 export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsDto; roiLabel: string }) {
   const points = useMemo(
     () => spectrumPoints(rest.frequencyHz, rest.powerUv2PerHz),
     [rest.frequencyHz, rest.powerUv2PerHz],
   );
-  const spec = useMemo(
-    () =>
+  const spec = useCallback(
+    (widthPx: number) =>
       restSpectrumSpec({
         points,
         alphaWindowHz: rest.alphaWindowHz,
         pafHz: rest.pafHz,
         cogHz: rest.cogHz,
+        widthPx,
+        heightPx: CHART_HEIGHT_PX,
       }),
     [points, rest.alphaWindowHz, rest.pafHz, rest.cogHz],
   );
@@ -53,11 +57,10 @@ export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsDto; ro
           CoG {formatHz(rest.cogHz)}
         </span>
         {rest.prominenceDb !== null && (
-          <span>Peak prominence {rest.prominenceDb.toFixed(1)} dB</span>
+          <span>Peak prominence {formatQuantity(rest.prominenceDb, 'decibel')}</span>
         )}
         <Typography.Text type="secondary">
-          Alpha window {rest.alphaWindowHz[0].toFixed(1)}–{rest.alphaWindowHz[1].toFixed(1)} Hz ·{' '}
-          {roiLabel}
+          Alpha window {formatHzRange(rest.alphaWindowHz)} · {roiLabel}
         </Typography.Text>
       </Flex>
       {points.length === 0 ? (
@@ -66,7 +69,7 @@ export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsDto; ro
         <PlotFigure
           label="Rest spectrum"
           spec={spec}
-          heightPx={280}
+          heightPx={CHART_HEIGHT_PX}
           caption={
             rest.pafHz === null
               ? 'Welch power spectrum of the resting recording. No clear alpha peak stands out of the background, so no PAF is given.'

@@ -1,10 +1,17 @@
+import { linearAxis, logAxis } from '@gyre/shared';
 import { CHART_PALETTE, GYRE_COLORS } from '../../../app/theme';
 import {
   axisWithUnit,
   gyreView,
+  labelsOf,
+  linearScaleOf,
+  logScaleOf,
+  xTickCount,
+  yTickCount,
   type MarkSpec,
   type PlotSpec,
 } from '../../../components/charts/plot-spec';
+import { formatHz, formatPowerUv2PerHz } from '../../../lib/format';
 
 export interface SpectrumPoint {
   frequencyHz: number;
@@ -30,29 +37,44 @@ export function spectrumPoints(
   return points;
 }
 
-/** Plain decimals on the log axis (0.02, 5, 100), never "1.0e+2". */
-export function powerLabel(value: number): string {
-  return String(Number(value.toPrecision(2)));
-}
-
-function marker(frequencyHz: number, colour: string, text: string, position: string): MarkSpec {
+/**
+ * A dashed vertical line at PAF or CoG. It carries no label inside the plot: the key above the
+ * chart names both lines with their values, and two labels at nearly the same frequency
+ * would cover each other and the curve on a narrow screen.
+ */
+function marker(frequencyHz: number, colour: string): MarkSpec {
   return {
     type: 'lineX',
     data: [frequencyHz],
     style: { stroke: colour, lineWidth: 1.5, lineDash: [5, 3] },
-    labels: [{ text, position, dx: 4, fill: colour, fontSize: 11, fontWeight: 600 }],
     tooltip: false,
   };
 }
 
-/** Power spectral density (log scale) with the alpha window shaded and PAF and CoG marked. */
+/**
+ * Power spectral density (log scale) with the alpha window shaded and PAF and CoG marked.
+ * Ticks from shared/src/chart-ticks.ts: frequency at a nice step inside the shown range,
+ * power at 1-2-5 or whole decades, all in one notation.
+ */
 export function restSpectrumSpec(options: {
   points: SpectrumPoint[];
   alphaWindowHz: [number, number];
   pafHz: number | null;
   cogHz: number | null;
+  widthPx?: number;
+  heightPx?: number;
 }): PlotSpec {
   const { points, alphaWindowHz, pafHz, cogHz } = options;
+  const widthPx = options.widthPx ?? 640;
+  const heightPx = options.heightPx ?? 280;
+  const x = linearAxis(points[0]?.frequencyHz ?? 1, points[points.length - 1]?.frequencyHz ?? 40, {
+    count: xTickCount(widthPx, 48),
+    nice: false,
+  });
+  const powers = points.map((p) => p.powerUv2PerHz);
+  const y = logAxis(Math.min(...powers), Math.max(...powers), {
+    maxTicks: yTickCount(heightPx) + 1,
+  });
   const children: MarkSpec[] = [
     {
       type: 'rangeX',
@@ -67,21 +89,13 @@ export function restSpectrumSpec(options: {
       encode: { x: 'frequencyHz', y: 'powerUv2PerHz' },
       style: { stroke: SPECTRUM_COLOUR, lineWidth: 2 },
       tooltip: {
-        title: (d: SpectrumPoint) => `${d.frequencyHz.toFixed(2)} Hz`,
-        items: [
-          {
-            channel: 'y',
-            name: 'Power',
-            valueFormatter: (v: number) => `${v.toPrecision(3)} µV²/Hz`,
-          },
-        ],
+        title: (d: SpectrumPoint) => formatHz(d.frequencyHz),
+        items: [{ channel: 'y', name: 'Power', valueFormatter: formatPowerUv2PerHz }],
       },
     },
   ];
-  if (pafHz !== null)
-    children.push(marker(pafHz, PAF_COLOUR, `PAF ${pafHz.toFixed(2)} Hz`, 'top-left'));
-  if (cogHz !== null)
-    children.push(marker(cogHz, COG_COLOUR, `CoG ${cogHz.toFixed(2)} Hz`, 'bottom-right'));
+  if (pafHz !== null) children.push(marker(pafHz, PAF_COLOUR));
+  if (cogHz !== null) children.push(marker(cogHz, COG_COLOUR));
   if (pafHz === null && points.length > 0) {
     // Placed just above the spectrum's highest point, so it never hides the curve.
     const top = Math.max(...points.map((p) => p.powerUv2PerHz));
@@ -107,18 +121,12 @@ export function restSpectrumSpec(options: {
   }
   return gyreView({
     padding: 'auto',
-    scale: {
-      x: {
-        type: 'linear',
-        nice: false,
-        domain: [points[0]?.frequencyHz ?? 1, points[points.length - 1]?.frequencyHz ?? 40],
-      },
-      y: { type: 'log' },
-    },
+    scale: { x: linearScaleOf(x), y: logScaleOf(y) },
     axis: {
-      x: axisWithUnit('Frequency', 'Hz', { labelFormatter: (v) => v.toFixed(0) }),
-      y: axisWithUnit('Power (log scale)', 'µV²/Hz', { labelFormatter: powerLabel }),
+      x: axisWithUnit('Frequency', 'Hz', { ticks: x }),
+      y: axisWithUnit('Power (log scale)', 'µV²/Hz', { ticks: y }),
     },
+    axisLabels: { x: labelsOf(x), y: labelsOf(y) },
     legend: false,
     children,
   });

@@ -30,7 +30,7 @@ function RasterCanvas({ raster, bandHz }: { raster: TrialRasterDto; bandHz: [num
       xTitle="Time from onset (s)"
       yTitle="Trial"
       legendTitle="Instantaneous frequency (Hz)"
-      formatLegend={(v) => `${v.toFixed(1)} Hz`}
+      legendUnit="Hz"
       verticalMarkers={[0]}
       heightPx={Math.min(360, Math.max(200, matrix.rows * 4 + 48))}
     />

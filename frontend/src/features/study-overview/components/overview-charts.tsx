@@ -4,9 +4,11 @@ import { useMemo } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
 import { MEASURE_WORDS, overviewSpec, splitEntries, type OverviewSplit } from './overview-spec';
 
+const CHART_HEIGHT_PX = 260;
+
 function Key({ colour, text, faint = false }: { colour: string; text: string; faint?: boolean }) {
   return (
-    <span style={{ marginRight: 16, whiteSpace: 'nowrap' }}>
+    <span style={{ display: 'inline-block', maxWidth: '100%', marginRight: 16 }}>
       <span
         aria-hidden="true"
         style={{
@@ -32,7 +34,11 @@ export function OverviewCharts({
   split: OverviewSplit;
 }) {
   const specs = useMemo(
-    () => OVERVIEW_MEASURES.map((m) => ({ measure: m, spec: overviewSpec(overview, m, split) })),
+    () =>
+      OVERVIEW_MEASURES.map((m) => ({
+        measure: m,
+        spec: overviewSpec(overview, m, split, CHART_HEIGHT_PX),
+      })),
     [overview, split],
   );
   const entries = splitEntries(overview, split);
@@ -56,7 +62,7 @@ export function OverviewCharts({
               <PlotFigure
                 label={`${MEASURE_WORDS[measure].title} by ${split}`}
                 spec={spec}
-                heightPx={260}
+                heightPx={CHART_HEIGHT_PX}
                 caption={`Each ${split === 'group' ? 'group' : 'site'}'s mean ${MEASURE_WORDS[measure].axis} per planned visit with its 95 % confidence interval (Student t; none from a single value), over every participant's course drawn faint.`}
               />
             ) : (

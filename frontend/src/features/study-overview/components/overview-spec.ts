@@ -1,11 +1,21 @@
-import type { OverviewMeasure, OverviewStat, StudyOverviewDto } from '@gyre/shared';
+import {
+  linearAxis,
+  MIN_AXIS_SPAN_HZ,
+  type OverviewMeasure,
+  type OverviewStat,
+  type StudyOverviewDto,
+} from '@gyre/shared';
 import { CHART_PALETTE, GYRE_COLORS } from '../../../app/theme';
 import {
   axisWithUnit,
   gyreView,
+  labelsOf,
+  linearScaleOf,
+  yTickCount,
   type MarkSpec,
   type PlotSpec,
 } from '../../../components/charts/plot-spec';
+import { formatDeltaHz, formatHz, formatQuantityRange } from '../../../lib/format';
 
 export type OverviewSplit = 'group' | 'site';
 
@@ -52,8 +62,6 @@ interface MeanPoint {
   name: string;
 }
 
-const hz = (v: number) => `${v.toFixed(2)} Hz`;
-
 /**
  * One measure over the planned visits: every participant's course as a faint line, and per
  * group (or site) the mean with its 95 % confidence band (Student t) and points.
@@ -62,7 +70,11 @@ export function overviewSpec(
   overview: StudyOverviewDto,
   measure: OverviewMeasure,
   split: OverviewSplit,
+  heightPx = 260,
 ): PlotSpec {
+  // Δf is a change: signed like everywhere else; PAF and CoG are plain frequencies.
+  const quantity = measure === 'deltaF' ? 'deltaFHz' : 'frequencyHz';
+  const hz = measure === 'deltaF' ? formatDeltaHz : formatHz;
   const names = overview.plannedVisits.map((p) => p.name);
   const courses: CoursePoint[] = overview.participants.flatMap((p) =>
     p.cells.flatMap((cell, i) => {
@@ -130,7 +142,7 @@ export function overviewSpec(
               value:
                 d.ciLow === null || d.ciHigh === null
                   ? 'needs two values'
-                  : `${hz(d.ciLow)} to ${hz(d.ciHigh)}`,
+                  : formatQuantityRange([d.ciLow, d.ciHigh], quantity),
             }),
           ],
         },
@@ -145,13 +157,24 @@ export function overviewSpec(
       tooltip: false,
     });
   }
+  // Ticks from shared/src/chart-ticks.ts over everything drawn: courses, means and bands.
+  const drawn = [
+    ...courses.map((c) => c.value),
+    ...stats.flatMap((s) => [s.mean, s.ciLow, s.ciHigh]),
+    ...(measure === 'deltaF' ? [0] : []),
+  ].filter((v): v is number => v !== null && Number.isFinite(v));
+  const y = linearAxis(Math.min(...drawn), Math.max(...drawn), {
+    count: yTickCount(heightPx),
+    minSpan: MIN_AXIS_SPAN_HZ,
+  });
   return gyreView({
     padding: 'auto',
-    scale: { x: { type: 'point', domain: names }, y: { nice: true, zero: false } },
+    scale: { x: { type: 'point', domain: names }, y: linearScaleOf(y) },
     axis: {
       x: { ...axisWithUnit('Planned visit', null), labelAutoRotate: false, labelAutoHide: true },
-      y: axisWithUnit(MEASURE_WORDS[measure].axis, 'Hz', { labelFormatter: (v) => v.toFixed(2) }),
+      y: axisWithUnit(MEASURE_WORDS[measure].axis, 'Hz', { ticks: y }),
     },
+    axisLabels: { x: names, y: labelsOf(y) },
     legend: false,
     children: marks,
   });
