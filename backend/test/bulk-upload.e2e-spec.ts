@@ -238,6 +238,8 @@ describe('bulk upload with a CSV manifest', () => {
         .set(await t.authHeader('technician'));
       expect(got.status).toBe(200);
       expect(got.body.visitId).toBe(row.visitId);
+      // The name the file had in the upload, as the manifest named it.
+      expect(got.body.fileName).toBe(row.file);
       expect(['queued', 'computing', 'ready']).toContain(got.body.state);
     }
     // Rows 1–2 share the Baseline visit, rows 3–4 the Week 4 one, on its planned visit.

@@ -34,6 +34,28 @@ describe('invitations, password reset and the outbox (real local SMTP server)', 
     const mail = await waitForMail(t.config.mailDir, { to: email, subject: /invited/i });
     expect(mail.text).toContain(`${TEST_PUBLIC_URL}/accept-invite?token=`);
     const token = tokenFromMail(mail, '/accept-invite');
+    // The expiry reads as a date-time with its zone, never a raw ISO stamp. Expected words
+    // from ICU (Intl, en-GB, UTC), not from Gyre's own formatter.
+    const [{ expiresAt }] = (await t.dataSource.query(
+      `SELECT "expiresAt" FROM "one_time_token" WHERE "userId" = ?`,
+      [response.body.id],
+    )) as { expiresAt: string }[];
+    const part = (type: string) =>
+      new Intl.DateTimeFormat('en-GB', {
+        timeZone: 'UTC',
+        day: 'numeric',
+        month: 'long',
+        year: 'numeric',
+        hour: '2-digit',
+        minute: '2-digit',
+        hourCycle: 'h23',
+      })
+        .formatToParts(new Date(expiresAt))
+        .find((p) => p.type === type)?.value;
+    expect(mail.text).toContain(
+      `expires on ${part('day')} ${part('month')} ${part('year')}, ${part('hour')}:${part('minute')} UTC.`,
+    );
+    expect(mail.text).not.toMatch(/\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/);
 
     // Only the token's hash is stored.
     const stored = (await t.dataSource.query(`SELECT "tokenHash" FROM "one_time_token"`)) as {
@@ -45,7 +67,7 @@ describe('invitations, password reset and the outbox (real local SMTP server)', 
     // Signing in before accepting fails.
     const password = 'slate-teal-amber-0042';
     expect((await request(t.url).post('/api/auth/sign-in').send({ email, password })).status).toBe(
-      401,
+      422,
     );
 
     const weak = await request(t.url)
@@ -163,7 +185,7 @@ describe('invitations, password reset and the outbox (real local SMTP server)', 
   });
 
   it('password reset: same answer for unknown e-mail, link works once, old sessions end', async () => {
-    const before = readMails(t.config.mailDir).length;
+    const before = (await readMails(t.config.mailDir)).length;
     const unknown = await request(t.url)
       .post('/api/auth/password-reset')
       .send({ email: 'ghost@gyre.test' });
@@ -178,7 +200,7 @@ describe('invitations, password reset and the outbox (real local SMTP server)', 
     const mail = await waitForMail(t.config.mailDir, { to: email, subject: /reset/i });
     await t.mailIdle();
     // Only the known address received anything.
-    expect(readMails(t.config.mailDir).length).toBe(before + 1);
+    expect((await readMails(t.config.mailDir)).length).toBe(before + 1);
     const token = tokenFromMail(mail, '/reset-password');
     const newPassword = 'reset-rhythm-2026-gyre';
     const confirm = await request(t.url)

@@ -36,9 +36,9 @@ import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './reco
 
 const sha256 = (bytes: Uint8Array): string => createHash('sha256').update(bytes).digest('hex');
 const squash = (text: string): string => text.replace(/\s+/g, ' ').trim();
-/** The report prints signed changes with the typographic minus (report-numbers.ts). */
+/** The report prints signed changes with the typographic minus, to 0.01 Hz as on screen. */
 const signedHz = (value: number): string =>
-  `${value < 0 ? '\u2212' : '+'}${Math.abs(value).toFixed(3)}`;
+  `${value < 0 ? '\u2212' : '+'}${Math.abs(value).toFixed(2)}`;
 
 /** superagent's parser for a binary body (it buffers only text types by itself). */
 const binary = (
@@ -85,8 +85,8 @@ describe('visit report sign-off', () => {
       .post(`/api/visits/${visitId}/report/sign`)
       .set(await as(user))
       .send(body);
-  const mailsTo = (address: string): CaughtMail[] =>
-    readMails(mailDir).filter((m) => m.to.toLowerCase().includes(address.toLowerCase()));
+  const mailsTo = async (address: string): Promise<CaughtMail[]> =>
+    (await readMails(mailDir)).filter((m) => m.to.toLowerCase().includes(address.toLowerCase()));
 
   beforeAll(async () => {
     mailDir = mkdtempSync(join(tmpdir(), 'gyre-signoff-mail-'));
@@ -186,7 +186,7 @@ describe('visit report sign-off', () => {
     const text = squash(pages.join(' '));
     const rest = restResults.rest!;
     const run = taskResults.run;
-    // The rounding the report states: PAF/CoG to 0.01 Hz, Δf and CI to 0.001 Hz, p to 0.001.
+    // The rounding the report states: PAF/CoG, Δf and CI to 0.01 Hz, p to 0.001.
     expect(text).toContain(`Peak alpha frequency (PAF) ${rest.pafHz!.toFixed(2)} Hz`);
     expect(text).toContain(`Centre of gravity (CoG) ${rest.cogHz!.toFixed(2)} Hz`);
     expect(text).toContain(`Δf (post − baseline) ${signedHz(run.roiDeltaFHz!)} Hz`);
@@ -240,7 +240,7 @@ describe('visit report sign-off', () => {
     const status = await signOff();
     expect(status.report.state).toBe('draft');
     expect(status.revisions).toEqual([]);
-    expect(readMails(mailDir)).toEqual([]);
+    expect(await readMails(mailDir)).toEqual([]);
   });
 
   it('refuses a fingerprint other than the current draft (the visit changed since preview)', async () => {
@@ -313,20 +313,27 @@ describe('visit report sign-off', () => {
     await t.mailIdle();
     for (const mail of [first, second]) {
       expect(mail.text).toContain(`${TEST_PUBLIC_URL}/reports/revisions?revision=${revision1.id}`);
-      // No health data in the mail: no participant code, no number of the report.
-      expect(mail.text).not.toContain('A1-0001');
+      // Which report: the participant's pseudonymous code, the visit, the study and the site,
+      // with the signing time in words and its zone; no number of the report, no raw ISO stamp.
+      expect(squash(mail.text)).toContain(
+        // The seed's visit V1 of 2026-01-15 in study ALPHA.
+        'The visit report of participant A1-0001, visit V1 of 15 January 2026',
+      );
+      expect(squash(mail.text)).toContain('(study ALPHA, Site A1), was signed in Gyre on ');
+      expect(mail.text).toMatch(/signed in Gyre on \d{1,2} [A-Z][a-z]+ \d{4}, \d{2}:\d{2} UTC\./);
+      expect(mail.text).not.toMatch(/\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/);
       expect(mail.text).not.toContain(restResults.rest!.pafHz!.toFixed(2));
       // No attachment: a single text part (RFC 2045: no multipart body).
       expect(mail.raw).not.toMatch(/^content-type:\s*multipart/im);
       expect(mail.raw).not.toMatch(/application\/pdf/i);
-      expect(mail.subject).toBe('Gyre: a visit report of Site A1 was signed');
+      expect(mail.subject).toBe('Gyre: report signed for A1-0001, visit V1 (Site A1)');
     }
     // Exactly the two active coordinators of A1: one message each, one recipient each.
-    expect(readMails(mailDir)).toHaveLength(2);
+    expect(await readMails(mailDir)).toHaveLength(2);
     expect(first.to).not.toContain(',');
-    expect(mailsTo(invitedCoordinator.email)).toEqual([]);
-    expect(mailsTo('coordinatora2@gyre.test')).toEqual([]);
-    expect(mailsTo('coordinatorb@gyre.test')).toEqual([]);
+    expect(await mailsTo(invitedCoordinator.email)).toEqual([]);
+    expect(await mailsTo('coordinatora2@gyre.test')).toEqual([]);
+    expect(await mailsTo('coordinatorb@gyre.test')).toEqual([]);
   });
 
   it('marks the revision and the report sent as soon as the last message is delivered', async () => {
@@ -516,7 +523,7 @@ describe('visit report sign-off', () => {
     expect(sha256(latest.body as Buffer)).toBe(revision2.pdfSha256);
     await waitForMail(mailDir, { to: secondCoordinator.email, subject: /signed/ });
     await t.mailIdle();
-    expect(mailsTo(secondCoordinator.email)).toHaveLength(2);
+    expect(await mailsTo(secondCoordinator.email)).toHaveLength(2);
   });
 
   it('keeps the message queued while the SMTP server is down and delivers it exactly once after it is back', async () => {
@@ -526,7 +533,7 @@ describe('visit report sign-off', () => {
       .send({ reason: 'Re-read: the dip is within the noise of this visit (test)' });
     expect(cleared.status).toBe(201);
     await smtp.stop();
-    const before = readMails(mailDir).length;
+    const before = (await readMails(mailDir)).length;
     const status = await signOff();
     const response = await sign({
       password: SEED_PASSWORD,
@@ -544,7 +551,7 @@ describe('visit report sign-off', () => {
       expect(message.lastError).toMatch(/ECONNREFUSED|connect/i);
       expect(message.textBody).toContain(revision3.id);
     }
-    expect(readMails(mailDir)).toHaveLength(before);
+    expect(await readMails(mailDir)).toHaveLength(before);
     expect((await signOff()).revisions[0]).toMatchObject({ id: revision3.id, state: 'signed' });
 
     // A long outage: past MAX_SEND_ATTEMPTS the message still waits (an unreachable server
@@ -579,7 +586,7 @@ describe('visit report sign-off', () => {
     await t.mailIdle();
     sender.kick();
     await t.mailIdle();
-    const delivered = readMails(mailDir).slice(before);
+    const delivered = (await readMails(mailDir)).slice(before);
     expect(delivered.map((m) => m.to).sort()).toEqual([
       'coordinator@gyre.test',
       secondCoordinator.email,

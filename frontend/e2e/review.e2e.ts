@@ -11,6 +11,7 @@ import type {
   VisitFlagDto,
   VisitView,
 } from '@gyre/shared';
+import { randomUUID } from 'node:crypto';
 import {
   api,
   createFirstAdmin,
@@ -79,7 +80,11 @@ const ANALYST = { email: 'ava.analyst@gyre.test', name: 'Ava Analyst' };
 const MONITOR = { email: 'milo.monitor@gyre.test', name: 'Milo Monitor' };
 const FLAG_REASON = 'Alpha slows after onset over the ROI; the interval excludes zero';
 
-const formatHz = (value: number | null) => (value === null ? '—' : `${value.toFixed(2)} Hz`);
+/** Hz as the screens write it (shared/src/number-format.ts): U+2212 minus, no-break space. */
+const formatHz = (value: number | null) =>
+  value === null
+    ? '—'
+    : `${value < 0 && Math.abs(value) >= 0.005 ? '\u2212' : ''}${Math.abs(value).toFixed(2)}\u00a0Hz`;
 
 describe('Review and Participants in Chromium, on a real server', () => {
   let gyre: RunningGyre;
@@ -418,6 +423,97 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await expectDrawn(page, 'Alpha frequency trajectory', 3000);
     await screenshot(page, 'participant-trajectory-monitor');
     expect(problems).toEqual([]);
+    await page.close();
+  });
+  it('lists visits, latest values, flags and report per participant; Review fits a phone and a missing visit says so', async () => {
+    const page = await browser.context.newPage();
+    const problems = watchConsole(page);
+    // Same spaces and minus as the screen: the formatter writes U+2212 and a no-break space.
+    const plain = (text: string) => text.replace(/\s/g, ' ').replace(/\u2212/g, '-');
+    const trajectory = await api<TrajectoryDto>(
+      gyre.baseUrl,
+      analystToken,
+      'GET',
+      `/api/participants/${participant.id}/trajectory`,
+    );
+    const v2 = trajectory.visits.find((v) => v.label === 'V2');
+    expect(v2?.pafHz).not.toBeNull();
+    expect(v2?.deltaFHz).not.toBeNull();
+
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await signIn(page, ANALYST.email, '/participants');
+    const row = page.getByRole('row').filter({ hasText: participant.code });
+    await row.waitFor();
+    const cells = (await row.getByRole('cell').allInnerTexts()).map(plain);
+    // Site by its full name; 2 visits; V2's PAF and Δf as the trajectory API gives them;
+    // the flag raised on V1 in the first test; V2's report drafted, never signed.
+    expect(cells.slice(0, 4)).toEqual([participant.code, 'East clinic', '—', '2']);
+    expect(cells[4]).toBe(plain(`${formatHz(v2!.pafHz)} (V2)`));
+    expect(cells[5]).toBe(plain(`${v2!.deltaFHz! >= 0 ? '+' : ''}${formatHz(v2!.deltaFHz)} (V2)`));
+    expect(cells[6]).toBe('1 open');
+    expect(cells[7]).toBe('V2: Draft, not signed');
+    await expect(
+      page.getByLabel('Search participant codes').getAttribute('placeholder'),
+    ).resolves.toBe(`Search by code, e.g. ${participant.code}`);
+    // The site filter from the keyboard: Tab from the search, open with the arrow, Enter.
+    await page.getByLabel('Search participant codes').focus();
+    await page.keyboard.press('Tab');
+    await page.keyboard.press('Tab');
+    await expect(
+      page.evaluate(() => document.activeElement?.getAttribute('aria-label')),
+    ).resolves.toBe('Site');
+    await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('Enter');
+    await page.waitForURL(/[?&]site=/);
+    await row.waitFor();
+    await screenshot(page, 'participants-columns-1440');
+
+    await page.setViewportSize({ width: 390, height: 844 });
+    await row.waitFor();
+    const listWidth = await page.evaluate(() => [
+      document.documentElement.scrollWidth,
+      window.innerWidth,
+    ]);
+    expect(listWidth[0]).toBeLessThanOrEqual(listWidth[1]);
+    await screenshot(page, 'participants-columns-390');
+
+    // Review at phone width: nothing sideways, and the chip and the card name one state.
+    await page.goto(`${gyre.baseUrl}/review/${visits[1].id}`);
+    const chip = page.getByTestId('report-state-chip');
+    const card = page.getByTestId('report-state-card');
+    await chip.waitFor();
+    await card.waitFor();
+    await expectDrawn(page, 'Onset curve', 2000);
+    const chipText = await chip.innerText();
+    const cardText = await card.innerText();
+    expect(chipText).toBe(`Report: ${cardText}`);
+    expect(cardText).toBe('Draft, not signed yet');
+    const reviewWidth = await page.evaluate(() => [
+      document.documentElement.scrollWidth,
+      window.innerWidth,
+    ]);
+    expect(reviewWidth[0]).toBeLessThanOrEqual(reviewWidth[1]);
+    // Card titles wrap instead of being cut.
+    const cut = await page.evaluate(() =>
+      [...document.querySelectorAll('.ant-card-head-title')]
+        .filter((title) => title.scrollWidth > title.clientWidth + 1)
+        .map((title) => title.textContent),
+    );
+    expect(cut).toEqual([]);
+    await screenshot(page, 'review-390');
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await chip.waitFor();
+    await screenshot(page, 'review-1440');
+
+    // A visit that does not exist: said in words, a way back, nothing to try again.
+    await page.goto(`${gyre.baseUrl}/review/${randomUUID()}`);
+    await page.getByText('This visit does not exist or you cannot open it').waitFor();
+    await expect(page.getByRole('button', { name: 'Try again' }).count()).resolves.toBe(0);
+    await page.getByRole('link', { name: 'Back to the start' }).waitFor();
+    await screenshot(page, 'review-missing-visit');
+    // The 404 is Chromium's failed load of the visit; nothing else may be logged.
+    expect(problems.filter((p) => !p.includes('404'))).toEqual([]);
     await page.close();
   });
 });

@@ -35,6 +35,25 @@ export interface AuditEntryView {
   clientIp: string | null;
   prevHash: string;
   hash: string;
+  /**
+   * What the entry is about, in the reader's words (`GET /api/audit` only; never part of the
+   * hash). Each name is given only when the reader may read the row it comes from.
+   */
+  context?: AuditEntryContext;
+}
+
+/** The names and links behind an audit entry's ids, resolved for the reader's scope. */
+export interface AuditEntryContext {
+  /** The acting user's display name; null for the system or a user out of the reader's scope. */
+  actorName: string | null;
+  participantId: string | null;
+  participantCode: string | null;
+  visitId: string | null;
+  visitLabel: string | null;
+  /** `task` or `resting` when the entry is about a recording or a run. */
+  recordingKind: string | null;
+  /** Display names of the users the entry names (its object, `…ById` fields), by user id. */
+  people: Record<string, string>;
 }
 
 /** `GET /api/audit/verify`. */

@@ -153,6 +153,11 @@ export interface RecordingDto {
   state: RecordingState;
   checksumSha256: string;
   sizeBytes: number;
+  /**
+   * The uploaded file's name as the technician's computer gave it; null when none was sent
+   * or the recording predates kept names. Only staff in the recording's scope see it.
+   */
+  fileName: string | null;
   /** Progress of the current or last job, 0–100; null before any job. */
   progressPercent: number | null;
   facts: RecordingFactsDto | null;

@@ -1,3 +1,4 @@
+import type { ReportState } from './recordings';
 import type { VisitScheduleStatus } from './visit-schedule';
 
 /**
@@ -45,6 +46,39 @@ export interface ParticipantView {
   groupId: string | null;
   createdAt: string;
   updatedAt: string;
+}
+
+/** A visit's latest value of one measure in the participants list. */
+export interface LatestValue {
+  /** Hz. */
+  hz: number;
+  visitId: string;
+  visitLabel: string;
+}
+
+/**
+ * One row of `GET /api/participants`: the participant with what the list shows of its visits.
+ * Result, flag and report fields are null when the caller's role may not read those.
+ */
+export interface ParticipantListItem extends ParticipantView {
+  /** The site's full name (as every other screen names it). */
+  siteName: string;
+  groupName: string | null;
+  visitCount: number;
+  /** PAF of the newest visit (by date) whose current resting recording has one. */
+  latestPaf: LatestValue | null;
+  /** Region Δf of the newest visit (by date) whose current task recording has one. */
+  latestDeltaF: LatestValue | null;
+  /** Flags raised and not cleared over all visits; null: the role does not read flags. */
+  openFlags: number | null;
+  /** The newest visit by date; null before the first visit. */
+  latestVisit: {
+    id: string;
+    label: string;
+    visitDate: string;
+    /** Null: no report yet, or none the caller may read. */
+    report: { state: ReportState; latestRevision: number | null } | null;
+  } | null;
 }
 
 export interface VisitView {

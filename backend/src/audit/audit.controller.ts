@@ -4,11 +4,11 @@ import {
   ApiForbiddenResponse,
   ApiOkResponse,
   ApiOperation,
-  ApiProduces,
   ApiTags,
 } from '@nestjs/swagger';
 import type { Response } from 'express';
 import type { AuditEntryView, AuditVerifyResult, Page } from '@gyre/shared';
+import { ApiFile } from '../openapi/api-responses';
 import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
 import { AuditAnchorService } from './audit-anchor.service';
 import { AuditExportService } from './audit-export.service';
@@ -52,8 +52,7 @@ export class AuditController {
   @Get('export.csv')
   @RequirePermission('export', 'AuditEntry')
   @ApiOperation({ summary: 'The filtered entries as CSV (the export itself is audited)' })
-  @ApiProduces('text/csv')
-  @ApiOkResponse({ description: 'text/csv, one line per entry, oldest first' })
+  @ApiFile('text/csv', 'text/csv, one line per entry, oldest first')
   async export(
     @CurrentCaller() caller: Caller,
     @Query() query: AuditQueryDto,
@@ -68,10 +67,10 @@ export class AuditController {
     summary:
       'The signed checkpoints of the chain (audit-anchors.jsonl as stored; the download is audited)',
   })
-  @ApiProduces('application/x-ndjson')
-  @ApiOkResponse({
-    description: 'JSON Lines, one Ed25519-signed checkpoint per line, oldest first',
-  })
+  @ApiFile(
+    'application/x-ndjson',
+    'JSON Lines, one Ed25519-signed checkpoint per line, oldest first',
+  )
   async exportAnchors(@CurrentCaller() caller: Caller, @Res() response: Response): Promise<void> {
     await this.exporter.streamAnchors(caller, response);
   }
@@ -79,8 +78,7 @@ export class AuditController {
   @Get('anchor-key.pem')
   @RequirePermission('read', 'AuditEntry')
   @ApiOperation({ summary: 'The public key (Ed25519, SPKI PEM) that checks the anchor lines' })
-  @ApiProduces('application/x-pem-file')
-  @ApiOkResponse({ description: 'PEM text' })
+  @ApiFile('application/x-pem-file', 'PEM text')
   anchorKey(@Res() response: Response): void {
     response.status(200);
     response.setHeader('Content-Type', 'application/x-pem-file; charset=utf-8');

@@ -2,6 +2,7 @@ import { Global, Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditEntry } from './audit-entry.entity';
 import { AuditAnchorService } from './audit-anchor.service';
+import { AuditContextReads } from './audit-context.reads';
 import { AuditController } from './audit.controller';
 import { AuditExportService } from './audit-export.service';
 import { AuditService } from './audit.service';
@@ -11,7 +12,7 @@ import { AuditService } from './audit.service';
 @Module({
   imports: [TypeOrmModule.forFeature([AuditEntry])],
   controllers: [AuditController],
-  providers: [AuditService, AuditExportService, AuditAnchorService],
+  providers: [AuditService, AuditExportService, AuditAnchorService, AuditContextReads],
   exports: [AuditService],
 })
 export class AuditModule {}

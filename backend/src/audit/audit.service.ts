@@ -1,25 +1,28 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import {
+  And,
   Between,
   DataSource,
+  Equal,
   FindOptionsWhere,
   LessThanOrEqual,
   MoreThanOrEqual,
+  Raw,
   Repository,
 } from 'typeorm';
 import type { AppAbility, AuditEntryView, AuditVerifyResult, Page } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { sqliteHandleOf } from '../common/database/sqlite-handle';
 import { nowIso } from '../common/time';
 import { canonicalJson, chainHash, ChainedContent, GENESIS_HASH } from './audit-chain';
 import { AuditAnchorService } from './audit-anchor.service';
+import { AuditContextReads } from './audit-context.reads';
 import { ChainWalk, contentOf } from './audit-chain-walk';
 import { AuditEntry } from './audit-entry.entity';
-import { AuditError } from './audit.errors';
+import { AuditError, auditError } from './audit.errors';
 import { combineVerify } from './audit-verify';
 import { AuditQueryDto } from './dto/audit-query.dto';
 
@@ -66,6 +69,7 @@ export class AuditService {
     @InjectDataSource() private readonly dataSource: DataSource,
     @InjectRepository(AuditEntry) private readonly entries: Repository<AuditEntry>,
     private readonly anchors: AuditAnchorService,
+    private readonly contexts: AuditContextReads,
   ) {
     this.append = (input) => {
       const db = sqliteHandleOf(this.dataSource);
@@ -119,7 +123,10 @@ export class AuditService {
       skip: window.skip,
       take: window.take,
     });
-    return toPage(rows, window, toView);
+    const page = toPage(rows, window, toView);
+    // Names and links for this page: a fixed number of reads, under the reader's own scope.
+    const contexts = this.contexts.contextsFor(ability, page.items);
+    return { ...page, items: page.items.map((item, i) => ({ ...item, context: contexts[i] })) };
   }
 
   /** Every matching entry, oldest first, in pages of 500 so memory stays flat. */
@@ -154,22 +161,41 @@ export class AuditService {
   }
 }
 
+/** Tables of rows below a visit that audit entries name by id (joined through the visit's index). */
+const VISIT_CHILD_TABLES = ['recording', 'analysis_run', 'flag', 'report', 'visit_review'];
+
+/** The ids of a participant (`:participantId`), its visits and every row below them. */
+const PARTICIPANT_OBJECT_IDS = [
+  'SELECT :participantId',
+  'SELECT v."id" FROM "visit" v WHERE v."participantId" = :participantId',
+  ...VISIT_CHILD_TABLES.map(
+    (table) =>
+      `SELECT t."id" FROM "${table}" t JOIN "visit" v ON v."id" = t."visitId" WHERE v."participantId" = :participantId`,
+  ),
+].join(' UNION ALL ');
+
 function filtersOf(query: AuditQueryDto): FindOptionsWhere<AuditEntry> {
   const where: FindOptionsWhere<AuditEntry> = {};
   if (query.actorId !== undefined) where.actorId = query.actorId;
   if (query.action !== undefined) where.action = query.action;
   if (query.objectType !== undefined) where.objectType = query.objectType;
-  if (query.objectId !== undefined) where.objectId = query.objectId;
+  if (query.participantId !== undefined) {
+    // Entries about the participant, its visits and everything below them (object ids are
+    // UUIDs, unique across tables, so matching the id alone is enough).
+    const about = Raw((column) => `${column} IN (${PARTICIPANT_OBJECT_IDS})`, {
+      participantId: query.participantId,
+    });
+    where.objectId = query.objectId === undefined ? about : And(Equal(query.objectId), about);
+  } else if (query.objectId !== undefined) where.objectId = query.objectId;
   const from = query.from === undefined ? undefined : new Date(query.from).toISOString();
   const to = query.to === undefined ? undefined : new Date(query.to).toISOString();
   if (from !== undefined && to !== undefined) {
     if (from > to) {
-      throw new GyreException(
-        ErrorKind.BadInput,
-        AuditError.BadTimeRange,
-        `from (${query.from}) is after to (${query.to})`,
-        { field: 'from', from: query.from, to: query.to },
-      );
+      throw auditError(AuditError.BadTimeRange, `from (${query.from}) is after to (${query.to})`, {
+        field: 'from',
+        from: query.from,
+        to: query.to,
+      });
     }
     where.at = Between(from, to);
   } else if (from !== undefined) where.at = MoreThanOrEqual(from);

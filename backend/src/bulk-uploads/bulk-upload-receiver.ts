@@ -7,12 +7,11 @@ import { finished, pipeline } from 'node:stream/promises';
 import { Inject, Injectable } from '@nestjs/common';
 import busboy from 'busboy';
 import type { Request } from 'express';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import type { ReceivedFile } from '../recordings/upload/multipart-upload';
 import { IdentifyingFieldsBlanker } from '../recordings/upload/identifying-fields-blanker';
-import { BulkUploadsError } from './bulk-uploads.errors';
+import { BulkUploadsError, bulkUploadsError } from './bulk-uploads.errors';
 
 const MAX_MANIFEST_BYTES = 1024 * 1024;
 const MAX_ONSETS_CSV_BYTES = 4 * 1024 * 1024;
@@ -61,19 +60,14 @@ export class BulkUploadReceiver {
       request.unpipe();
       request.resume();
       if (error instanceof TooLarge) {
-        throw new GyreException(
-          ErrorKind.PayloadTooLarge,
-          BulkUploadsError.TooLarge,
-          error.message,
-          {
-            part: error.part,
-            limitBytes: error.limitBytes,
-            setting: error.setting,
-          },
-        );
+        throw bulkUploadsError(BulkUploadsError.TooLarge, error.message, {
+          part: error.part,
+          limitBytes: error.limitBytes,
+          setting: error.setting,
+        });
       }
       if (error instanceof FormInvalid) {
-        throw new GyreException(ErrorKind.BadInput, BulkUploadsError.FormInvalid, error.message);
+        throw bulkUploadsError(BulkUploadsError.FormInvalid, error.message);
       }
       throw error;
     }
@@ -207,7 +201,8 @@ export class BulkUploadReceiver {
         writes.push(
           writeBlanked(stream, path, totalMeter(), this.config.uploadMaxBytes, name).then(
             (file) => {
-              received.recordings.set(name, file);
+              // The name the file had, shown in Intake (recordings keep it, row-scoped).
+              received.recordings.set(name, { ...file, originalName: name });
             },
             stop,
           ),

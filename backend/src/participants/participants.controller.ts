@@ -8,7 +8,7 @@ import {
   ApiOkResponse,
   ApiTags,
 } from '@nestjs/swagger';
-import type { Page, ParticipantView } from '@gyre/shared';
+import type { Page, ParticipantListItem, ParticipantView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
 import {
   CreateParticipantDto,
@@ -32,7 +32,7 @@ export class ParticipantsController {
   list(
     @CurrentCaller() caller: Caller,
     @Query() query: ParticipantQueryDto,
-  ): Promise<Page<ParticipantView>> {
+  ): Promise<Page<ParticipantListItem>> {
     return this.participants.list(caller, query);
   }
 

@@ -3,13 +3,14 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { ScheduleModule } from '../schedule/schedule.module';
 import { SitesModule } from '../sites/sites.module';
 import { Participant } from './participant.entity';
+import { ParticipantListExtras } from './participant-list-extras';
 import { ParticipantsController } from './participants.controller';
 import { ParticipantsService } from './participants.service';
 
 @Module({
   imports: [TypeOrmModule.forFeature([Participant]), SitesModule, ScheduleModule],
   controllers: [ParticipantsController],
-  providers: [ParticipantsService],
+  providers: [ParticipantsService, ParticipantListExtras],
   exports: [ParticipantsService],
 })
 export class ParticipantsModule {}

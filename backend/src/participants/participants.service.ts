@@ -7,6 +7,7 @@ import {
   subject,
   type Action,
   type Page,
+  type ParticipantListItem,
   type ParticipantView,
   type SubjectName,
 } from '@gyre/shared';
@@ -31,8 +32,9 @@ import {
   UpdateParticipantDto,
 } from './dto/participant.dto';
 import { Participant } from './participant.entity';
+import { ParticipantListExtras } from './participant-list-extras';
 import { toParticipantView } from './participant-view';
-import { ParticipantsError } from './participants.errors';
+import { ParticipantsError, participantsError } from './participants.errors';
 
 @Injectable()
 export class ParticipantsService {
@@ -46,10 +48,14 @@ export class ParticipantsService {
     private readonly writes: WriteTransactions,
     private readonly audit: AuditService,
     private readonly reads: SqliteReads,
+    private readonly listExtras: ParticipantListExtras,
   ) {}
 
-  /** A hot route: prepared statements for the page and its count (sql-rows.ts). */
-  list(caller: Caller, query: ParticipantQueryDto): Promise<Page<ParticipantView>> {
+  /**
+   * A hot route: prepared statements for the page and its count (sql-rows.ts), then a fixed
+   * number more for what each row shows of its visits (participant-list-extras.ts).
+   */
+  list(caller: Caller, query: ParticipantQueryDto): Promise<Page<ParticipantListItem>> {
     const window = pageWindowOf(query);
     const scope = scopeSql(caller.ability, 'read', 'Participant', 'p');
     const where = [scope.sql];
@@ -84,8 +90,17 @@ export class ParticipantsService {
       },
       window,
     );
+    const participants = found.map((r) => rows.hydrate(r));
+    const extras = this.listExtras.of(
+      caller,
+      participants.map((p) => p.id),
+    );
     return Promise.resolve(
-      toPage([found.map((r) => rows.hydrate(r)), total], window, toParticipantView),
+      toPage([participants, total], window, (participant): ParticipantListItem => {
+        const more = extras.get(participant.id);
+        if (more === undefined) throw new Error(`Participant ${participant.id} has no site row`);
+        return { ...toParticipantView(participant), ...more };
+      }),
     );
   }
 
@@ -96,8 +111,7 @@ export class ParticipantsService {
   async create(caller: Caller, dto: CreateParticipantDto): Promise<ParticipantView> {
     const siteId = dto.siteId ?? caller.user.siteId;
     if (siteId === null) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw participantsError(
         ParticipantsError.SiteRequired,
         'siteId: required for your role (you belong to no single site)',
         { field: 'siteId' },
@@ -172,8 +186,7 @@ export class ParticipantsService {
       });
     } catch (error) {
       if (isUniqueViolation(error)) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw participantsError(
           ParticipantsError.CodeTaken,
           `code: the study already has a participant ${participant.code}`,
           { field: 'code', value: participant.code },
@@ -188,8 +201,7 @@ export class ParticipantsService {
     if (groupId === null) return null;
     const group = await this.groups.findById(groupId);
     if (group === null || group.studyId !== studyId) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw participantsError(
         ParticipantsError.GroupNotInStudy,
         `groupId: ${groupId} is not a group of the participant's study`,
         { field: 'groupId', value: groupId },
@@ -257,8 +269,7 @@ export class ParticipantsService {
 function enrolmentDateOf(value: string | null): string | null {
   if (value === null) return null;
   if (!isCalendarDate(value)) {
-    throw new GyreException(
-      ErrorKind.BadInput,
+    throw participantsError(
       ParticipantsError.BadDate,
       `enrolmentDate: ${JSON.stringify(value)} is not a calendar date (YYYY-MM-DD)`,
       { field: 'enrolmentDate', value },

@@ -2,10 +2,9 @@ import { Injectable } from '@nestjs/common';
 import type { EntityManager } from 'typeorm';
 import type { RecordingState } from '@gyre/shared';
 import { AuditActor, AuditService } from '../audit/audit.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
 import { Recording } from './recording.entity';
-import { RecordingsError } from './recordings.errors';
+import { RecordingsError, recordingsError } from './recordings.errors';
 
 /**
  * Every move a recording's state may make, and nothing else. `queued` is re-entered from
@@ -55,8 +54,7 @@ export class RecordingLifecycle {
   ): Promise<Recording> {
     const from = recording.state;
     if (!canTransition(from, to)) {
-      throw new GyreException(
-        ErrorKind.Conflict,
+      throw recordingsError(
         RecordingsError.IllegalTransition,
         `A ${from} recording cannot become ${to}.`,
         { recordingId: recording.id, from, to },
@@ -68,8 +66,7 @@ export class RecordingLifecycle {
       .update({ id: recording.id, state: from }, update);
     if (result.affected !== 1) {
       const now = await tx.getRepository(Recording).findOneBy({ id: recording.id });
-      throw new GyreException(
-        ErrorKind.Conflict,
+      throw recordingsError(
         RecordingsError.IllegalTransition,
         `Recording ${recording.id} is no longer ${from} (now ${now?.state ?? 'missing'}).`,
         { recordingId: recording.id, from, to, now: now?.state ?? null },

@@ -38,6 +38,15 @@ export class Recording {
   @Column('integer')
   sizeBytes: number;
 
+  /**
+   * The uploaded file's name as the technician's computer gave it (last path segment), or
+   * null (none sent, or uploaded before names were kept). It may hold personal data: it is
+   * read only in the recording's row scope, and kept out of the audit trail. The EDF
+   * header's patient field is never stored (blanked on the way in).
+   */
+  @Column('varchar', { length: 255, nullable: true })
+  fileName: string | null;
+
   /** File name under the uploads folder, null while received and once rejected. */
   @Column('varchar', { length: 80, nullable: true })
   storedFile: string | null;

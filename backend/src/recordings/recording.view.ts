@@ -58,6 +58,7 @@ export function toRecordingDto(row: Recording, latestJob: JobDto | null): Record
     state: row.state,
     checksumSha256: row.checksumSha256,
     sizeBytes: row.sizeBytes,
+    fileName: row.fileName,
     progressPercent: latestJob?.progressPercent ?? null,
     facts,
     rejection:

@@ -8,15 +8,10 @@ import {
   Req,
   Sse,
   StreamableFile,
+  HttpStatus,
 } from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiBody,
-  ApiConsumes,
-  ApiCreatedResponse,
-  ApiOkResponse,
-  ApiTags,
-} from '@nestjs/swagger';
+import { ApiBearerAuth, ApiBody, ApiConsumes, ApiTags } from '@nestjs/swagger';
+import { ApiFile, ApiResult } from '../openapi/api-responses';
 import type { Request } from 'express';
 import { map, Observable } from 'rxjs';
 import type { Page, RecordingDto } from '@gyre/shared';
@@ -65,9 +60,10 @@ export class RecordingsController {
       },
     },
   })
-  @ApiCreatedResponse({
+  @ApiResult('RecordingDto', {
     description:
       'Accepted and queued. 422 RECORDING_REJECTED (details.recording) for a bad file, 422 RECORDING_KIND_UNCONFIRMED when the file looks like the other kind, 409 RECORDING_KIND_TAKEN when the visit has a current recording of the kind (send replaces), 409 for a duplicate, 413 beyond UPLOAD_MAX_BYTES',
+    status: HttpStatus.CREATED,
   })
   async upload(
     @CurrentCaller() caller: Caller,
@@ -81,8 +77,9 @@ export class RecordingsController {
 
   @Get('recordings')
   @RequirePermission('read', 'Recording')
-  @ApiOkResponse({
+  @ApiResult('RecordingDto', {
     description: 'Recordings in scope; filter by visit, participant, site, state, kind',
+    page: true,
   })
   list(
     @CurrentCaller() caller: Caller,
@@ -93,7 +90,7 @@ export class RecordingsController {
 
   @Get('recordings/:recordingId')
   @RequirePermission('read', 'Recording')
-  @ApiOkResponse({
+  @ApiResult('RecordingDto', {
     description: 'State, progress of the current job, validation facts or rejection',
   })
   get(@CurrentCaller() caller: Caller, @Param('recordingId') id: string): Promise<RecordingDto> {
@@ -102,10 +99,10 @@ export class RecordingsController {
 
   @Get('recordings/:recordingId/file')
   @RequirePermission('read', 'Recording')
-  @ApiOkResponse({
-    description:
-      'The stored copy (patient field blanked), current or superseded; 404 once rejected',
-  })
+  @ApiFile(
+    'application/octet-stream',
+    'The stored copy (patient field blanked), current or superseded; 404 once rejected',
+  )
   async file(
     @CurrentCaller() caller: Caller,
     @Param('recordingId') id: string,
@@ -120,9 +117,10 @@ export class RecordingsController {
 
   @Sse('recordings/:recordingId/events')
   @RequirePermission('read', 'Recording')
-  @ApiOkResponse({
-    description: 'Server-Sent Events `recording`: state and progress until a final state',
-  })
+  @ApiFile(
+    'text/event-stream',
+    'Server-Sent Events `recording`: state and progress until a final state',
+  )
   async events(
     @CurrentCaller() caller: Caller,
     @Param('recordingId') id: string,
@@ -133,7 +131,10 @@ export class RecordingsController {
 
   @Post('recordings/:recordingId/retry')
   @RequirePermission('retry', 'Recording')
-  @ApiCreatedResponse({ description: 'Queues a failed recording again (audited)' })
+  @ApiResult('RecordingDto', {
+    description: 'Queues a failed recording again (audited)',
+    status: HttpStatus.CREATED,
+  })
   retry(@CurrentCaller() caller: Caller, @Param('recordingId') id: string): Promise<RecordingDto> {
     return this.recordings.retry(caller, id);
   }

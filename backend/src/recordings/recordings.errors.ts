@@ -1,3 +1,5 @@
+import { ErrorKind, errorFactory } from '../common/errors/gyre.exception';
+
 /** Error codes of uploads and recordings. */
 export enum RecordingsError {
   VisitNotFound = 'RECORDING_VISIT_NOT_FOUND',
@@ -17,3 +19,24 @@ export enum RecordingsError {
   IllegalTransition = 'RECORDING_ILLEGAL_TRANSITION',
   FileMissing = 'RECORDING_FILE_MISSING',
 }
+
+/** The one place each code gets its kind (and so its HTTP status, http-exception.filter.ts). */
+export const RECORDINGS_ERROR_KINDS = {
+  [RecordingsError.VisitNotFound]: ErrorKind.NotFound,
+  [RecordingsError.NotFound]: ErrorKind.NotFound,
+  [RecordingsError.Duplicate]: ErrorKind.Conflict,
+  [RecordingsError.TooLarge]: ErrorKind.PayloadTooLarge,
+  [RecordingsError.FormInvalid]: ErrorKind.BadInput,
+  [RecordingsError.Rejected]: ErrorKind.Unprocessable,
+  [RecordingsError.KindUnconfirmed]: ErrorKind.Unprocessable,
+  [RecordingsError.KindTaken]: ErrorKind.Conflict,
+  [RecordingsError.ReplacementInvalid]: ErrorKind.Conflict,
+  [RecordingsError.NotRetryable]: ErrorKind.Conflict,
+  [RecordingsError.NotComputable]: ErrorKind.Conflict,
+  [RecordingsError.AlreadyQueued]: ErrorKind.Conflict,
+  [RecordingsError.IllegalTransition]: ErrorKind.Conflict,
+  [RecordingsError.FileMissing]: ErrorKind.NotFound,
+} as const satisfies Record<RecordingsError, ErrorKind>;
+
+/** A GyreException of this module: the kind comes from RECORDINGS_ERROR_KINDS. */
+export const recordingsError = errorFactory(RECORDINGS_ERROR_KINDS);

@@ -12,7 +12,7 @@ export const RecordingEvents = {
   Superseded: 'recordings.superseded',
 } as const;
 
-export interface RecordingSuperseded {
+interface RecordingSuperseded {
   visitId: string;
   kind: RecordingKind;
 }

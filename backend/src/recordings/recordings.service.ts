@@ -23,7 +23,7 @@ import type { AuditActor } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
@@ -45,7 +45,7 @@ import {
   ComputationPayload,
   RecordingEvents,
 } from './recordings.events';
-import { RecordingsError } from './recordings.errors';
+import { RecordingsError, recordingsError } from './recordings.errors';
 import { kindMismatch, kindWarning } from './kind-check';
 import { formError, StoredUpload } from './upload/upload-receiver';
 import type { ReceivedFile } from './upload/multipart-upload';
@@ -153,25 +153,18 @@ export class RecordingsService {
       if (!outcome.ok) {
         const { ok: _ok, ...rejection } = outcome;
         const rejected = await this.reject(caller, validating, rejection);
-        throw new GyreException(
-          ErrorKind.Unprocessable,
-          RecordingsError.Rejected,
-          rejection.message,
-          {
-            ...rejection,
-            recording: rejected,
-          },
-        );
+        throw recordingsError(RecordingsError.Rejected, rejection.message, {
+          ...rejection,
+          recording: rejected,
+        });
       }
       const mismatch = kindMismatch(upload.kind, outcome.facts.stimulusOnsetCount);
       if (mismatch !== null && !upload.confirmKind) {
         const rejected = await this.reject(caller, validating, mismatch.rejection);
-        throw new GyreException(
-          ErrorKind.Unprocessable,
-          RecordingsError.KindUnconfirmed,
-          mismatch.rejection.message,
-          { ...mismatch.details, recording: rejected },
-        );
+        throw recordingsError(RecordingsError.KindUnconfirmed, mismatch.rejection.message, {
+          ...mismatch.details,
+          recording: rejected,
+        });
       }
       return await this.accept(caller, validating, upload, outcome.facts, mismatch !== null);
     } finally {
@@ -217,8 +210,7 @@ export class RecordingsService {
     const path = row.storedFile === null ? null : join(this.config.uploadsDir, row.storedFile);
     const found = path === null ? null : await stat(path).catch(() => null);
     if (path === null || found === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
+      throw recordingsError(
         RecordingsError.FileMissing,
         `Recording ${id} has no stored file (${row.state === 'rejected' ? 'it was rejected: only its checksum and reason are kept' : 'not accepted yet'}).`,
         { recordingId: id, state: row.state },
@@ -264,8 +256,7 @@ export class RecordingsService {
   async retry(caller: Caller, id: string): Promise<RecordingDto> {
     const row = await this.findInScope(caller, id, 'retry');
     if (row.state !== 'failed') {
-      throw new GyreException(
-        ErrorKind.Conflict,
+      throw recordingsError(
         RecordingsError.NotRetryable,
         `Only a failed recording can be retried; this one is ${row.state}.`,
         { state: row.state },
@@ -293,16 +284,14 @@ export class RecordingsService {
       for (const stale of recordings) {
         const row = await tx.getRepository(Recording).findOneByOrFail({ id: stale.id });
         if (row.state === 'queued' || row.state === 'computing') {
-          throw new GyreException(
-            ErrorKind.Conflict,
+          throw recordingsError(
             RecordingsError.AlreadyQueued,
             `Recording ${row.id} is already ${row.state}.`,
             { recordingId: row.id, state: row.state },
           );
         }
         if (row.state !== 'ready' && row.state !== 'failed') {
-          throw new GyreException(
-            ErrorKind.Conflict,
+          throw recordingsError(
             RecordingsError.NotComputable,
             `Recording ${row.id} is ${row.state}: ${row.state === 'superseded' ? 'a newer recording replaced it' : 'there is no accepted file to compute'}.`,
             { recordingId: row.id, state: row.state },
@@ -328,7 +317,7 @@ export class RecordingsService {
       where: scopedWhere<Recording>(caller.ability, action, subjectName, { id }),
     });
     if (row === null) {
-      throw new GyreException(ErrorKind.NotFound, RecordingsError.NotFound, `No recording ${id}.`, {
+      throw recordingsError(RecordingsError.NotFound, `No recording ${id}.`, {
         recordingId: id,
       });
     }
@@ -592,22 +581,19 @@ export class RecordingsService {
     if (current === null && upload.replaces === null) return;
     if (current === null || upload.replaces === null) {
       throw current === null
-        ? new GyreException(
-            ErrorKind.Conflict,
+        ? recordingsError(
             RecordingsError.ReplacementInvalid,
             `replaces: recording ${upload.replaces?.recordingId} is not this visit's current ${upload.kind} recording (there is none).`,
             { field: 'replaces', recordingId: upload.replaces?.recordingId ?? null },
           )
-        : new GyreException(
-            ErrorKind.Conflict,
+        : recordingsError(
             RecordingsError.KindTaken,
             `This visit already has a ${upload.kind} recording (${current.id}, ${current.state}). Replace it explicitly, with a reason, or upload to another visit.`,
             { kind: upload.kind, recordingId: current.id },
           );
     }
     if (current.id !== upload.replaces.recordingId) {
-      throw new GyreException(
-        ErrorKind.Conflict,
+      throw recordingsError(
         RecordingsError.ReplacementInvalid,
         `replaces: recording ${upload.replaces.recordingId} found, the visit's current ${upload.kind} recording ${current.id} expected.`,
         { field: 'replaces', recordingId: upload.replaces.recordingId, currentId: current.id },
@@ -758,7 +744,7 @@ export class RecordingsService {
         expected: 'one current recording of each kind per visit',
       };
       const rejected = await this.reject(caller, row, rejection);
-      throw new GyreException(ErrorKind.Conflict, RecordingsError.KindTaken, rejection.message, {
+      throw recordingsError(RecordingsError.KindTaken, rejection.message, {
         kind: row.kind,
         recording: rejected,
       });
@@ -994,6 +980,7 @@ function receivedRow(
     state: 'received' as const,
     checksumSha256: upload.file.sha256,
     sizeBytes: upload.file.sizeBytes,
+    fileName: upload.file.originalName ?? null,
     storedFile: null,
     factsJson: null,
     csvOnsetsJson: null,
@@ -1017,8 +1004,7 @@ function receivedRow(
 }
 
 function duplicateError(recordingId: string, checksumSha256: string): GyreException {
-  return new GyreException(
-    ErrorKind.Conflict,
+  return recordingsError(
     RecordingsError.Duplicate,
     `This file (SHA-256 ${checksumSha256}) is already recording ${recordingId} of this visit.`,
     { recordingId, checksumSha256 },

@@ -4,8 +4,7 @@ import { join } from 'node:path';
 import { Inject, Injectable } from '@nestjs/common';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { SignoffError } from './signoff.errors';
+import { SignoffError, signoffError } from './signoff.errors';
 
 export function sha256Hex(bytes: Uint8Array): string {
   return createHash('sha256').update(bytes).digest('hex');
@@ -50,8 +49,7 @@ export class ReportFiles {
     const bytes = await readFile(this.pathOf(sha256));
     const actual = sha256Hex(bytes);
     if (actual !== sha256) {
-      throw new GyreException(
-        ErrorKind.Unavailable,
+      throw signoffError(
         SignoffError.FileCorrupted,
         `The stored report file does not match its recorded SHA-256 (recorded ${sha256}, found ${actual}); it is not served.`,
         { recordedSha256: sha256, actualSha256: actual },

@@ -45,7 +45,12 @@ export class ReportNotifications implements OnModuleInit {
   async queueFor(
     manager: EntityManager,
     revision: ReportRevision,
-    context: { site: { name: string }; study: { code: string } },
+    context: {
+      site: { name: string };
+      study: { code: string };
+      participant: { code: string };
+      visit: { label: string; visitDate: string };
+    },
   ): Promise<string[]> {
     const coordinators = await this.users.activeCoordinatorsOf(
       revision.studyId,
@@ -58,7 +63,11 @@ export class ReportNotifications implements OnModuleInit {
         name: coordinator.name,
         siteName: context.site.name,
         studyCode: context.study.code,
+        participantCode: context.participant.code,
+        visitLabel: context.visit.label,
+        visitDate: context.visit.visitDate,
         revision: revision.revision,
+        signedAt: revision.signedAt,
         link,
       });
       const outboxMessageId = await this.outbox.enqueue(manager, coordinator.email, content);

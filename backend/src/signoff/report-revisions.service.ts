@@ -6,7 +6,6 @@ import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { RevisionListQueryDto } from './dto/revision-list-query.dto';
 import { ReportFiles } from './report-files';
@@ -14,7 +13,7 @@ import { ReportNotifications } from './report-notifications';
 import { ReportRevision } from './report-revision.entity';
 import { revisionFileName, RevisionViews } from './revision-view';
 import type { PdfFile } from './signoff.service';
-import { SignoffError } from './signoff.errors';
+import { SignoffError, signoffError } from './signoff.errors';
 
 /**
  * Signed revisions for reading and download. Scoped as reports are (a revision row carries
@@ -74,8 +73,7 @@ export class ReportRevisionsService {
       order: { revision: 'DESC' },
     });
     if (row === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
+      throw signoffError(
         SignoffError.NotSignedYet,
         `Report ${reportId} has no signed revision to download.`,
         { reportId },
@@ -112,8 +110,7 @@ export class ReportRevisionsService {
       where: scopedWhere<ReportRevision>(caller.ability, action, 'Report', where),
     });
     if (row === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
+      throw signoffError(
         SignoffError.RevisionNotFound,
         `No signed report revision ${revisionId}.`,
         { revisionId },

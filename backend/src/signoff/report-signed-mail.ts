@@ -1,9 +1,9 @@
-import type { MailContent } from '../mail/mail-templates';
+import { mailDate, mailDateTime, type MailContent } from '../mail/mail-templates';
 
 /**
- * The coordinator's message when a report of their site is signed: a link into Gyre and
- * nothing else. No participant code, no result, no attachment: all of that stays behind
- * the sign-in.
+ * The coordinator's message when a report of their site is signed: which report (the
+ * participant's pseudonymous code, the visit, the study and site) and a link into Gyre. No
+ * result and no attachment: the numbers stay behind the sign-in.
  */
 export const REPORT_SIGNED_KIND = 'report_signed';
 
@@ -11,16 +11,25 @@ export function reportSignedMail(options: {
   name: string;
   siteName: string;
   studyCode: string;
+  participantCode: string;
+  visitLabel: string;
+  /** The visit's calendar day, YYYY-MM-DD. */
+  visitDate: string;
   revision: number;
+  /** When it was signed (ISO instant). */
+  signedAt: string;
   link: string;
 }): MailContent {
+  const which = `${options.participantCode}, visit ${options.visitLabel}`;
   return {
     kind: REPORT_SIGNED_KIND,
-    subject: `Gyre: a visit report of ${options.siteName} was signed`,
+    subject: `Gyre: report signed for ${which} (${options.siteName})`,
     text: [
       `Hello ${options.name},`,
       '',
-      `A visit report of your site (${options.siteName}, study ${options.studyCode}) was signed in Gyre` +
+      `The visit report of participant ${options.participantCode}, visit ${options.visitLabel} ` +
+        `of ${mailDate(options.visitDate)} (study ${options.studyCode}, ${options.siteName}), ` +
+        `was signed in Gyre on ${mailDateTime(options.signedAt)}` +
         (options.revision > 1 ? ` as revision ${options.revision}.` : '.'),
       'Open and download it in Gyre (you will be asked to sign in):',
       '',

@@ -6,9 +6,9 @@ import { LOCKOUT_MS, MAX_FAILED_SIGN_INS } from '../auth/auth.service';
 import type { Caller } from '../auth/decorators';
 import { PasswordHasher } from '../auth/password-hasher.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { GyreException } from '../common/errors/gyre.exception';
 import { isoAfter, nowIso } from '../common/time';
-import { SignoffError } from './signoff.errors';
+import { SignoffError, signoffError } from './signoff.errors';
 
 /**
  * The signer proves again who they are: their password, entered at signing (21 CFR Part 11
@@ -71,8 +71,7 @@ export class SignerVerification {
 // 422, not 401: the session is fine, only the re-entered password is wrong (a 401 would make
 // the client think its session expired).
 function wrongPassword(): GyreException {
-  return new GyreException(
-    ErrorKind.Unprocessable,
+  return signoffError(
     SignoffError.WrongPassword,
     'password: does not match your password; the report was not signed.',
     { field: 'password' },
@@ -80,8 +79,7 @@ function wrongPassword(): GyreException {
 }
 
 function locked(lockedUntil: string): GyreException {
-  return new GyreException(
-    ErrorKind.Locked,
+  return signoffError(
     SignoffError.AccountLocked,
     `Too many wrong passwords: your account is locked until ${lockedUntil}.`,
     { lockedUntil },

@@ -3,6 +3,7 @@ import {
   Controller,
   Get,
   HttpCode,
+  HttpStatus,
   Param,
   Post,
   Query,
@@ -10,16 +11,9 @@ import {
   StreamableFile,
 } from '@nestjs/common';
 import type { Response } from 'express';
-import {
-  ApiBearerAuth,
-  ApiConflictResponse,
-  ApiCreatedResponse,
-  ApiOkResponse,
-  ApiOperation,
-  ApiProduces,
-  ApiTags,
-} from '@nestjs/swagger';
+import { ApiBearerAuth, ApiConflictResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import type { Page, ReportRevisionDto, ReportSignOffDto } from '@gyre/shared';
+import { ApiFile, ApiResult } from '../openapi/api-responses';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { RevisionListQueryDto } from './dto/revision-list-query.dto';
@@ -42,6 +36,7 @@ export class SignoffController {
   @ApiOperation({
     summary: 'Sign-off state: draft fingerprint, pending revision, signed revisions',
   })
+  @ApiResult('ReportSignOffDto', { description: "The visit's sign-off state" })
   status(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
@@ -52,7 +47,7 @@ export class SignoffController {
   @Get('visits/:visitId/report/preview')
   @RequirePermission('read', 'Result')
   @ApiOperation({ summary: 'The draft PDF as it would be signed now (marked DRAFT, not stored)' })
-  @ApiProduces('application/pdf')
+  @ApiFile('application/pdf', 'The draft report, marked DRAFT')
   async preview(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
@@ -67,7 +62,10 @@ export class SignoffController {
   @ApiOperation({
     summary: 'Sign the report: password again, the meaning, the previewed fingerprint',
   })
-  @ApiCreatedResponse({ description: 'The new signed revision' })
+  @ApiResult('ReportRevisionDto', {
+    description: 'The new signed revision',
+    status: HttpStatus.CREATED,
+  })
   @ApiConflictResponse({ description: 'Already signed and unchanged, or changed since preview' })
   sign(
     @CurrentCaller() caller: Caller,
@@ -79,7 +77,10 @@ export class SignoffController {
 
   @Get('report-revisions')
   @RequirePermission('read', 'Report')
-  @ApiOkResponse({ description: 'Signed revisions in scope (coordinators: their site only)' })
+  @ApiResult('ReportRevisionDto', {
+    description: 'Signed revisions in scope (coordinators: their site only)',
+    page: true,
+  })
   list(
     @CurrentCaller() caller: Caller,
     @Query() query: RevisionListQueryDto,
@@ -89,6 +90,7 @@ export class SignoffController {
 
   @Get('report-revisions/:revisionId')
   @RequirePermission('read', 'Report')
+  @ApiResult('ReportRevisionDto', { description: 'One signed revision' })
   get(
     @CurrentCaller() caller: Caller,
     @Param('revisionId') revisionId: string,
@@ -99,7 +101,7 @@ export class SignoffController {
   @Get('report-revisions/:revisionId/file')
   @RequirePermission('export', 'Report')
   @ApiOperation({ summary: "A signed revision's PDF, checked against its SHA-256" })
-  @ApiProduces('application/pdf')
+  @ApiFile('application/pdf', 'The signed PDF as stored')
   async revisionFile(
     @CurrentCaller() caller: Caller,
     @Param('revisionId') revisionId: string,
@@ -111,7 +113,7 @@ export class SignoffController {
   @Get('reports/:reportId/file')
   @RequirePermission('export', 'Report')
   @ApiOperation({ summary: 'The newest signed revision of a report as PDF' })
-  @ApiProduces('application/pdf')
+  @ApiFile('application/pdf', 'The signed PDF as stored')
   async reportFile(
     @CurrentCaller() caller: Caller,
     @Param('reportId') reportId: string,

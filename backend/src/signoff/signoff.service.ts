@@ -7,7 +7,6 @@ import type { Action, ReportRevisionDto, ReportSignOffDto } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
 import { VisitReportModel } from '../report-document/visit-report-model';
 import type { Report } from '../reports/report.entity';
@@ -19,7 +18,7 @@ import { ReportNotifications } from './report-notifications';
 import { ReportRevision } from './report-revision.entity';
 import { revisionFileName, RevisionViews } from './revision-view';
 import { SignerVerification } from './signer-verification';
-import { SignoffError } from './signoff.errors';
+import { SignoffError, signoffError } from './signoff.errors';
 import { ReportContent, VisitReportContent } from './visit-report-content';
 
 export interface PdfFile {
@@ -120,8 +119,7 @@ export class SignoffService {
 
   async sign(caller: Caller, visitId: string, input: SignReportDto): Promise<ReportRevisionDto> {
     if (input.meaning.trim() !== SIGNATURE_MEANING) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw signoffError(
         SignoffError.WrongMeaning,
         `meaning: found ${JSON.stringify(input.meaning)}, expected ${JSON.stringify(SIGNATURE_MEANING)}`,
         { field: 'meaning', found: input.meaning, expected: SIGNATURE_MEANING },
@@ -151,8 +149,7 @@ export class SignoffService {
       const now = await this.content.build(manager, report);
       const latestNow = (await this.revisionsOf(manager, report.id))[0] ?? null;
       if ((latestNow?.id ?? null) !== (latest?.id ?? null)) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw signoffError(
           SignoffError.AlreadySigned,
           `Someone signed revision ${latestNow?.revision} of this report meanwhile; review it again.`,
           { revision: latestNow?.revision ?? null },
@@ -198,7 +195,12 @@ export class SignoffService {
         reason: `electronic signature, meaning: ${SIGNATURE_MEANING}`,
         clientIp: caller.clientIp,
       });
-      await this.notifications.queueFor(manager, row, { site: now.site, study: now.study });
+      await this.notifications.queueFor(manager, row, {
+        site: now.site,
+        study: now.study,
+        participant: now.participant,
+        visit: now.visit,
+      });
       return view;
     });
     this.notifications.send();
@@ -219,12 +221,9 @@ export class SignoffService {
   private async reportInScope(caller: Caller, visitId: string, action: Action): Promise<Report> {
     const report = await this.reports.inScopeForVisit(caller, action, visitId);
     if (report === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        SignoffError.ReportNotFound,
-        `No report for visit ${visitId}.`,
-        { visitId },
-      );
+      throw signoffError(SignoffError.ReportNotFound, `No report for visit ${visitId}.`, {
+        visitId,
+      });
     }
     return report;
   }
@@ -236,23 +235,20 @@ function assertSignable(
   fingerprint: string,
 ): void {
   if (!content.hasResults) {
-    throw new GyreException(
-      ErrorKind.Conflict,
+    throw signoffError(
       SignoffError.NothingToSign,
       'No recording of this visit has a result yet: there is nothing to sign.',
     );
   }
   if (latest !== null && latest.contentFingerprint === content.fingerprint) {
-    throw new GyreException(
-      ErrorKind.Conflict,
+    throw signoffError(
       SignoffError.AlreadySigned,
       `Revision ${latest.revision} is signed and nothing has changed since; a signed report is not signed again.`,
       { revision: latest.revision, revisionId: latest.id },
     );
   }
   if (content.fingerprint !== fingerprint) {
-    throw new GyreException(
-      ErrorKind.Conflict,
+    throw signoffError(
       SignoffError.ContentChanged,
       'fingerprint: the visit changed since this draft was previewed (new results or a flag); preview it again before signing.',
       { field: 'fingerprint', found: fingerprint, expected: content.fingerprint },

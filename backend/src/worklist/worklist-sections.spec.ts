@@ -110,7 +110,7 @@ describe('review sections', () => {
     expect(keys(out.suggestions)).toEqual(['v2', 'v5']);
     // −0.456 Hz to two decimals with a true minus sign.
     expect(out.suggestions?.[0].what).toBe(
-      'The task result suggests slowing (ROI Δf −0.46 Hz); no flag decision yet',
+      'The task result suggests slowing (ROI Δf −0.46\u00a0Hz); no flag decision yet',
     );
   });
 
@@ -227,12 +227,12 @@ describe('sorting and wording', () => {
     expect(sortItems(items, 'participant').map((i) => i.visitId)).toEqual(['v1', 'v2', 'v3']);
   });
 
-  it('writes Hz with a true minus sign, and no sign for zero', () => {
-    expect([signedHz(-0.456), signedHz(0.2), signedHz(-0.001), signedHz(0)]).toEqual([
-      '−0.46 Hz',
-      '+0.20 Hz',
-      '0.00 Hz',
-      '0.00 Hz',
+  it('writes Hz with a true minus sign, and no sign for what rounds to zero', () => {
+    expect([signedHz(-0.456), signedHz(0.2), signedHz(-0.001), signedHz(0.004)]).toEqual([
+      '−0.46\u00a0Hz',
+      '+0.20\u00a0Hz',
+      '0.00\u00a0Hz',
+      '0.00\u00a0Hz',
     ]);
   });
 });

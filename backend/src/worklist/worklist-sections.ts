@@ -5,6 +5,7 @@ import type {
   WorklistSectionKey,
   WorklistSort,
 } from '@gyre/shared';
+import { formatDeltaHz } from '@gyre/shared';
 import type { Flag } from '../flags/flag.entity';
 import { reviewFingerprintOf } from '../visit-reviews/review-fingerprint';
 import type { CurrentRecordingRow, ReportRow, UploadRow, VisitFacts } from './worklist-sources';
@@ -69,10 +70,9 @@ function item(
 
 const day = (iso: string): string => iso.slice(0, 10);
 
-/** Hz with a true minus sign and two decimals (the suggestion's headline number). */
+/** The suggestion's headline Δf, written as on every screen (shared number-format.ts). */
 export function signedHz(value: number): string {
-  const text = Math.abs(value).toFixed(2);
-  return `${value < 0 && Number(text) !== 0 ? '−' : value > 0 ? '+' : ''}${text} Hz`;
+  return formatDeltaHz(value);
 }
 
 /**

@@ -1,5 +1,6 @@
 import { Controller, Get, Query } from '@nestjs/common';
-import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { WorklistDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
@@ -14,7 +15,7 @@ export class WorklistController {
 
   @Get()
   @RequirePermission('read', 'Worklist')
-  @ApiOkResponse({
+  @ApiResult('WorklistDto', {
     description:
       "What waits for the caller: analysts and monitors the study's review work, technicians their site's uploads; each section with its true count",
   })

@@ -7,7 +7,7 @@ import {
   type WorklistSectionKey,
 } from '@gyre/shared';
 import type { Caller } from '../auth/decorators';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { WorklistError, worklistError } from './worklist.errors';
 import { nowIso } from '../common/time';
 import { FlagsService } from '../flags/flags.service';
 import type { Flag } from '../flags/flag.entity';
@@ -40,9 +40,8 @@ export class WorklistService {
     const keys: readonly WorklistSectionKey[] =
       kind === 'review' ? REVIEW_SECTIONS : UPLOAD_SECTIONS;
     if (query.section !== undefined && !keys.includes(query.section)) {
-      throw new GyreException(
-        ErrorKind.BadInput,
-        'WORKLIST_SECTION_NOT_YOURS',
+      throw worklistError(
+        WorklistError.SectionNotYours,
         `section: "${query.section}" is not a section of your worklist; expected one of ${keys.join(', ')}`,
         { field: 'section', found: query.section, expected: keys },
       );

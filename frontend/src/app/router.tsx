@@ -123,13 +123,14 @@ const REVIEW_AND_PARTICIPANT_SCREENS: ScreenRoute[] = [
     screen: 'Review',
     requires: ['read', 'Result'],
     load: async () => {
-      const [{ ReviewPage }, { ReportSignOff }] = await Promise.all([
+      const [{ ReviewPage }, { ReportSignOff, ReportStatusTag }] = await Promise.all([
         import('../features/review/components/review-page'),
         import('../features/signoff/components/report-sign-off'),
       ]);
       return (
         <ReviewPage
           reportPanel={(visitId, watch) => <ReportSignOff visitId={visitId} watch={watch} />}
+          reportStatus={(visitId) => <ReportStatusTag visitId={visitId} />}
         />
       );
     },

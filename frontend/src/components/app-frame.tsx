@@ -1,7 +1,9 @@
-import { Grid, Layout, Menu, Typography } from 'antd';
+import { Button, Drawer, Grid, Layout, Menu } from 'antd';
 import type { MenuProps } from 'antd';
+import { useState } from 'react';
 import { Link, Outlet, useLocation } from 'react-router-dom';
 import { GyreMark } from './gyre-mark';
+import { MenuGlyph } from './state-icons';
 import { paths } from '../app/paths';
 
 export interface NavItem {
@@ -9,7 +11,21 @@ export interface NavItem {
   label: string;
 }
 
-/** The frame around every signed-in screen: product name, navigation, content. */
+/** The id of the main landmark, which the skip link moves the focus to. */
+export const MAIN_ID = 'main';
+
+/** Moves the focus into the main landmark (a router-free stand-in for following `#main`). */
+function skipToMain(event: React.MouseEvent<HTMLAnchorElement>) {
+  event.preventDefault();
+  document.getElementById(MAIN_ID)?.focus();
+}
+
+/**
+ * The frame around every signed-in screen: a skip link, the header (product name, navigation,
+ * who is signed in) and the main landmark. From antd's `lg` breakpoint up the menu runs along
+ * the header; below it (phones, narrow tablets) a menu button opens it in a drawer, so no entry
+ * is ever squeezed out of sight.
+ */
 export function AppFrame({
   navItems = [],
   aside,
@@ -18,8 +34,9 @@ export function AppFrame({
   aside?: React.ReactNode;
 }) {
   const location = useLocation();
-  // Below `md` (a phone) the menu takes its own row, so it is never squeezed out by the user menu.
-  const wide = Grid.useBreakpoint().md !== false;
+  // Before its first measurement antd answers `undefined`: treated as wide.
+  const wide = Grid.useBreakpoint().lg !== false;
+  const [drawerOpen, setDrawerOpen] = useState(false);
   const selected = navItems
     .filter((item) => location.pathname.startsWith(item.path))
     .map((item) => item.path);
@@ -29,41 +46,79 @@ export function AppFrame({
   }));
   return (
     <Layout style={{ minHeight: '100vh' }}>
+      <a href={`#${MAIN_ID}`} className="gyre-skip-link" onClick={skipToMain}>
+        Skip to main content
+      </a>
       <Layout.Header
         style={{
           display: 'flex',
           alignItems: 'center',
           gap: wide ? 24 : 8,
           borderBottom: '1px solid #DCE5E6',
-          ...(wide
-            ? {}
-            : { flexWrap: 'wrap', height: 'auto', lineHeight: 1.5, padding: '8px 12px 0' }),
+          ...(wide ? {} : { padding: '0 12px' }),
         }}
       >
-        <Link
-          to={paths.home}
-          style={{ display: 'flex', alignItems: 'center', gap: 10 }}
-          aria-label="Gyre home"
-        >
+        {!wide && (
+          <Button
+            type="text"
+            aria-label="Open the menu"
+            aria-expanded={drawerOpen}
+            icon={<MenuGlyph />}
+            onClick={() => setDrawerOpen(true)}
+            style={{ flexShrink: 0 }}
+          />
+        )}
+        <Link to={paths.home} className="gyre-brand" aria-label="Gyre home">
           <GyreMark />
-          <Typography.Text strong style={{ fontSize: 19, letterSpacing: 0.4, color: '#24525A' }}>
-            Gyre
-          </Typography.Text>
+          <span className="gyre-brand-name">Gyre</span>
         </Link>
-        <nav
-          aria-label="Main"
-          style={wide ? { flex: 1, minWidth: 0 } : { flex: '1 1 100%', minWidth: 0, order: 3 }}
+        {wide && (
+          <nav aria-label="Main" style={{ flex: 1, minWidth: 0 }}>
+            <Menu mode="horizontal" selectedKeys={selected} items={items} style={{ border: 0 }} />
+          </nav>
+        )}
+        <div
+          style={{
+            marginLeft: 'auto',
+            minWidth: 0,
+            display: 'flex',
+            justifyContent: 'flex-end',
+            ...(wide ? {} : { flex: '1 1 0' }),
+          }}
         >
-          <Menu mode="horizontal" selectedKeys={selected} items={items} style={{ border: 0 }} />
-        </nav>
-        {wide ? aside : <div style={{ marginLeft: 'auto' }}>{aside}</div>}
+          {aside}
+        </div>
       </Layout.Header>
+      {!wide && (
+        <Drawer
+          title="Menu"
+          placement="left"
+          size={280}
+          open={drawerOpen}
+          onClose={() => setDrawerOpen(false)}
+          styles={{ body: { padding: 8 } }}
+        >
+          <nav aria-label="Main">
+            <Menu
+              mode="inline"
+              selectedKeys={selected}
+              items={items}
+              style={{ border: 0 }}
+              onClick={() => setDrawerOpen(false)}
+            />
+          </nav>
+        </Drawer>
+      )}
       <Layout.Content
+        id={MAIN_ID}
+        tabIndex={-1}
         style={{
           padding: wide ? '28px 32px' : '16px 12px',
           maxWidth: 1440,
           width: '100%',
+          minWidth: 0,
           margin: '0 auto',
+          outline: 'none',
         }}
       >
         <Outlet />

@@ -1,5 +1,8 @@
 import { Button, Card, Empty, Result, Skeleton } from 'antd';
+import { Link } from 'react-router-dom';
+import { paths } from '../app/paths';
 import { ApiError } from '../lib/api-client';
+import { LostIcon } from './state-icons';
 
 /** The grey outline of a screen while its data loads. */
 export function LoadingState({ rows = 6, label = 'Loading' }: { rows?: number; label?: string }) {
@@ -19,16 +22,64 @@ export function TableSkeleton() {
   );
 }
 
-/** A failed load in plain words, with the way to try again. */
+/**
+ * Whether asking again may help: the server was not reached, timed out, was too busy or
+ * failed itself (network, 408, 429, 5xx). A 4xx answer says what is wrong with the request —
+ * not found, not allowed, bad input — and the same request would get the same answer.
+ */
+export function isRetryable(error: unknown): boolean {
+  if (!(error instanceof ApiError)) return true;
+  return error.status === 0 || error.status === 408 || error.status === 429 || error.status >= 500;
+}
+
+/** A 404: the thing does not exist, or it is outside the user's scope (Gyre does not say which). */
+export function isNotFound(error: unknown): boolean {
+  return error instanceof ApiError && error.status === 404;
+}
+
+/** Where a not-found state leads back to. */
+export interface WayBack {
+  to: string;
+  label: string;
+}
+
+/**
+ * A failed load in plain words. "Try again" only when trying again can help (isRetryable);
+ * with `notFoundTitle`, a 404 says the thing does not exist or cannot be opened and offers a
+ * way back instead.
+ */
 export function ErrorState({
   error,
   onRetry,
   title = 'This could not be loaded',
+  notFoundTitle,
+  back = { to: paths.home, label: 'Back to the start' },
 }: {
   error: unknown;
   onRetry?: () => void;
   title?: string;
+  /**
+   * For a screen's own subject (a visit, a participant): on 404, this title and the way back
+   * replace the error. Parts of a screen leave it out and show `title` without a retry.
+   */
+  notFoundTitle?: string;
+  /** The way back offered with `notFoundTitle` (default: the start page). */
+  back?: WayBack;
 }) {
+  if (isNotFound(error) && notFoundTitle !== undefined) {
+    return (
+      <Result
+        icon={<LostIcon />}
+        title={notFoundTitle}
+        subTitle="It may have been mistyped in the address, or it belongs to a study or site outside your role."
+        extra={
+          <Link to={back.to}>
+            <Button type="primary">{back.label}</Button>
+          </Link>
+        }
+      />
+    );
+  }
   const message =
     error instanceof ApiError
       ? error.message
@@ -39,7 +90,8 @@ export function ErrorState({
       title={title}
       subTitle={<span role="alert">{message}</span>}
       extra={
-        onRetry && (
+        onRetry !== undefined &&
+        isRetryable(error) && (
           <Button type="primary" onClick={onRetry}>
             Try again
           </Button>

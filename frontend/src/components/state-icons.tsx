@@ -1,4 +1,7 @@
-/** Gyre's own pictures for "not for you" and "not here", drawn inline in its colours. */
+/**
+ * Gyre's own pictures for "not for you" and "not here", and two small glyphs, drawn inline in
+ * its colours (hand-drawn: @ant-design/icons is not a direct dependency of the client).
+ */
 
 export function LockedIcon({ size = 72 }: { size?: number }) {
   return (
@@ -30,6 +33,30 @@ export function LostIcon({ size = 72 }: { size?: number }) {
         strokeLinecap="round"
       />
       <circle cx="38" cy="36" r="2.5" fill="#C77C02" />
+    </svg>
+  );
+}
+
+/** Three bars: the button that opens the menu on narrow screens. */
+export function MenuGlyph({ size = 18 }: { size?: number }) {
+  return (
+    <svg width={size} height={size} viewBox="0 0 18 18" aria-hidden="true" focusable="false">
+      <path
+        d="M2 4h14M2 9h14M2 14h14"
+        stroke="currentColor"
+        strokeWidth="1.8"
+        strokeLinecap="round"
+      />
+    </svg>
+  );
+}
+
+/** A magnifier for search buttons (they carry their own aria-label). */
+export function SearchGlyph({ size = 14 }: { size?: number }) {
+  return (
+    <svg width={size} height={size} viewBox="0 0 16 16" aria-hidden="true" focusable="false">
+      <circle cx="7" cy="7" r="4.8" fill="none" stroke="currentColor" strokeWidth="1.8" />
+      <path d="M10.6 10.6 14 14" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" />
     </svg>
   );
 }

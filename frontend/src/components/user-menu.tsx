@@ -1,4 +1,4 @@
-import { Button, Flex, Tag, Typography } from 'antd';
+import { Button, Flex, Grid, Tag, Typography } from 'antd';
 
 const ROLE_LABELS: Record<string, string> = {
   technician: 'Technician',
@@ -8,7 +8,10 @@ const ROLE_LABELS: Record<string, string> = {
   admin: 'Administrator',
 };
 
-/** Who is signed in, in which role and where, and the way out. */
+/**
+ * Who is signed in, in which role and where, and the way out. A long name or place is cut
+ * with an ellipsis (the whole text in its tooltip); on phones the role joins the place line.
+ */
 export function UserMenu({
   name,
   role,
@@ -23,20 +26,35 @@ export function UserMenu({
   onSignOut: () => void;
   signingOut?: boolean;
 }) {
+  const wide = Grid.useBreakpoint().md !== false;
+  const roleLabel = ROLE_LABELS[role] ?? role;
+  const second = wide ? place : [roleLabel, place].filter(Boolean).join(' · ');
   return (
-    <Flex align="center" gap={12}>
-      <Flex vertical align="flex-end" style={{ lineHeight: 1.25 }}>
-        <Typography.Text strong>{name}</Typography.Text>
-        {place !== null && (
-          <Typography.Text type="secondary" style={{ fontSize: 12 }}>
-            {place}
+    <Flex align="center" gap={wide ? 12 : 8} style={{ minWidth: 0 }}>
+      <Flex
+        vertical
+        align="flex-end"
+        style={{ lineHeight: 1.25, minWidth: 0, maxWidth: wide ? 260 : '100%' }}
+      >
+        <Typography.Text strong ellipsis={{ tooltip: name }} style={{ maxWidth: '100%' }}>
+          {name}
+        </Typography.Text>
+        {second !== null && second.length > 0 && (
+          <Typography.Text
+            type="secondary"
+            ellipsis={{ tooltip: second }}
+            style={{ fontSize: 12, maxWidth: '100%' }}
+          >
+            {second}
           </Typography.Text>
         )}
       </Flex>
-      <Tag color="#24525A" variant="outlined" style={{ marginInlineEnd: 0 }}>
-        {ROLE_LABELS[role] ?? role}
-      </Tag>
-      <Button onClick={onSignOut} loading={signingOut}>
+      {wide && (
+        <Tag color="#24525A" variant="outlined" style={{ marginInlineEnd: 0 }}>
+          {roleLabel}
+        </Tag>
+      )}
+      <Button onClick={onSignOut} loading={signingOut} style={{ flexShrink: 0 }}>
         Sign out
       </Button>
     </Flex>

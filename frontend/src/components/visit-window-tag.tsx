@@ -27,7 +27,7 @@ export function VisitWindowTag({ schedule }: { schedule: VisitScheduleStatus }) 
   const out = schedule.window === 'early' || schedule.window === 'late';
   return (
     <Tag
-      color={out ? GYRE_COLORS.amber : undefined}
+      color={out ? GYRE_COLORS.amberText : undefined}
       variant={out ? 'filled' : undefined}
       style={{ marginInlineEnd: 0 }}
       aria-label={`Schedule: ${visitWindowText(schedule)}`}

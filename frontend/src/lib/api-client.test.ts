@@ -144,6 +144,71 @@ describe('silent renewal', () => {
       code: 'AUTH_WRONG_CREDENTIALS',
     });
   });
+
+  it('keeps the session on a wrong current password (422, as the server answers every wrong password)', async () => {
+    setAccessToken('still-good');
+    let ended = 0;
+    const unsubscribe = onSessionEnded(() => (ended += 1));
+    server.use(
+      http.post('/api/auth/password', () =>
+        HttpResponse.json(
+          {
+            statusCode: 422,
+            code: 'AUTH_CURRENT_PASSWORD_WRONG',
+            message: 'currentPassword: does not match your password',
+            details: { field: 'currentPassword' },
+          },
+          { status: 422 },
+        ),
+      ),
+    );
+    // No refresh handler: an attempt to renew would be an unhandled request and fail the test.
+    await expect(
+      apiSend('/api/auth/password', 'POST', { currentPassword: 'x', newPassword: 'y' }),
+    ).rejects.toMatchObject({ status: 422, code: 'AUTH_CURRENT_PASSWORD_WRONG' });
+    expect(getAccessToken()).toBe('still-good');
+    expect(ended).toBe(0);
+    unsubscribe();
+  });
+});
+
+describe('validation problems', () => {
+  it('reads the { field, reason } items of a VALIDATION_FAILED answer', async () => {
+    server.use(
+      http.post('http://localhost:3000/api/participants', () =>
+        HttpResponse.json(
+          {
+            statusCode: 400,
+            code: 'VALIDATION_FAILED',
+            message: 'code must be a string; siteId: expected a UUID, found "x"',
+            details: {
+              problems: [
+                { field: 'code', reason: 'code must be a string' },
+                { field: 'siteId', reason: 'siteId: expected a UUID, found "x"' },
+              ],
+            },
+          },
+          { status: 400 },
+        ),
+      ),
+    );
+    const error = (await apiSend('http://localhost:3000/api/participants', 'POST', {}).catch(
+      (e: unknown) => e,
+    )) as ApiError;
+    expect(error).toBeInstanceOf(ApiError);
+    expect(error.message).toBe('code must be a string; siteId: expected a UUID, found "x"');
+    expect(error.problems).toEqual([
+      { field: 'code', reason: 'code must be a string' },
+      { field: 'siteId', reason: 'siteId: expected a UUID, found "x"' },
+    ]);
+  });
+
+  it('has none for other errors or a malformed details field', () => {
+    expect(new ApiError(404, 'VISIT_NOT_FOUND', 'No visit').problems).toEqual([]);
+    expect(
+      new ApiError(400, 'VALIDATION_FAILED', 'x', { problems: ['old text'] }).problems,
+    ).toEqual([]);
+  });
 });
 
 describe('apiUpload', () => {

@@ -1,4 +1,4 @@
-import type { ErrorBody } from '@gyre/shared';
+import type { ErrorBody, ValidationProblem } from '@gyre/shared';
 import { forgetSession, mightHaveSession } from './session/session-hint';
 
 /** An error the API answered with, typed after the server's `{ statusCode, code, message, details }`. */
@@ -19,6 +19,19 @@ export class ApiError extends Error {
 
   get isForbidden(): boolean {
     return this.status === 403;
+  }
+
+  /** A `VALIDATION_FAILED` answer's `{ field, reason }` items (none for other errors). */
+  get problems(): ValidationProblem[] {
+    const problems = this.details?.problems;
+    if (!Array.isArray(problems)) return [];
+    return problems.filter(
+      (p): p is ValidationProblem =>
+        typeof p === 'object' &&
+        p !== null &&
+        typeof (p as ValidationProblem).field === 'string' &&
+        typeof (p as ValidationProblem).reason === 'string',
+    );
   }
 }
 

@@ -12,10 +12,6 @@ export function setViewportWidth(px: number): void {
   widthPx = px;
 }
 
-export function viewportWidth(): number {
-  return widthPx;
-}
-
 /** Whether a media query of `min-width`/`max-width` conditions holds at the current width. */
 export function matchesWidthQuery(query: string): boolean {
   const conditions = [...query.matchAll(/\((min|max)-width:\s*([\d.]+)px\)/g)];

@@ -35,6 +35,15 @@ export class AuditQueryDto extends PageQueryDto {
   objectId?: string;
 
   @ApiPropertyOptional({
+    description:
+      'Only entries about this participant: the participant itself, its visits and their recordings, runs, flags, reports and reviews',
+  })
+  @IsOptional()
+  @IsString()
+  @MaxLength(64)
+  participantId?: string;
+
+  @ApiPropertyOptional({
     description: 'ISO 8601 instant, inclusive',
     example: '2026-01-01T00:00:00Z',
   })

@@ -1,11 +1,28 @@
 import { ApiProperty } from '@nestjs/swagger';
 import type {
+  AuditEntryContext,
   AuditAnchorsCheck,
   AuditCheckpointView,
   AuditEntryView,
   AuditVerifyResult,
   Page,
 } from '@gyre/shared';
+
+class AuditEntryContextDto implements AuditEntryContext {
+  @ApiProperty({ type: String, nullable: true, description: 'Null: the system, or out of scope' })
+  actorName: string | null;
+  @ApiProperty({ type: String, nullable: true }) participantId: string | null;
+  @ApiProperty({ type: String, nullable: true, example: 'A1-0001' }) participantCode: string | null;
+  @ApiProperty({ type: String, nullable: true }) visitId: string | null;
+  @ApiProperty({ type: String, nullable: true, example: 'V1' }) visitLabel: string | null;
+  @ApiProperty({ type: String, nullable: true, example: 'resting' }) recordingKind: string | null;
+  @ApiProperty({
+    type: 'object',
+    additionalProperties: { type: 'string' },
+    description: 'Display names of the users the entry names, by id (only those in scope)',
+  })
+  people: Record<string, string>;
+}
 
 export class AuditEntryResponseDto implements AuditEntryView {
   @ApiProperty() seq: number;
@@ -23,6 +40,12 @@ export class AuditEntryResponseDto implements AuditEntryView {
   @ApiProperty({ type: String, nullable: true }) clientIp: string | null;
   @ApiProperty() prevHash: string;
   @ApiProperty({ description: 'SHA-256 of prevHash + canonical JSON of the entry' }) hash: string;
+  @ApiProperty({
+    type: AuditEntryContextDto,
+    required: false,
+    description: 'Names and links behind the ids, for the reader (not part of the hash)',
+  })
+  context?: AuditEntryContextDto;
 }
 
 export class AuditPageDto implements Page<AuditEntryView> {

@@ -9,6 +9,7 @@ import { SessionRevocation1764700100000 } from './1764700100000-session-revocati
 import { WorkerTokens1764700200000 } from './1764700200000-worker-tokens';
 import { VisitScheduleAndGroups1764700300000 } from './1764700300000-visit-schedule-and-groups';
 import { VisitReviews1764700400000 } from './1764700400000-visit-reviews';
+import { RecordingFileName1764700600000 } from './1764700600000-recording-file-name';
 
 /** Every migration in order; add new ones at the end (see DEVELOPERS.md). */
 export const MIGRATIONS = [
@@ -23,4 +24,5 @@ export const MIGRATIONS = [
   WorkerTokens1764700200000,
   VisitScheduleAndGroups1764700300000,
   VisitReviews1764700400000,
+  RecordingFileName1764700600000,
 ];

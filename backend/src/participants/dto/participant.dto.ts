@@ -12,8 +12,12 @@ import {
 import {
   CALENDAR_DATE_PATTERN,
   PARTICIPANT_CODE_PATTERN,
+  REPORT_STATES,
+  type LatestValue,
   type Page,
+  type ParticipantListItem,
   type ParticipantView,
+  type ReportState,
 } from '@gyre/shared';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
@@ -119,8 +123,42 @@ export class ParticipantResponseDto implements ParticipantView {
   @ApiProperty() updatedAt: string;
 }
 
-export class ParticipantPageDto implements Page<ParticipantView> {
-  @ApiProperty({ type: [ParticipantResponseDto] }) items: ParticipantView[];
+class LatestValueDto implements LatestValue {
+  @ApiProperty({ description: 'Hz' }) hz: number;
+  @ApiProperty() visitId: string;
+  @ApiProperty() visitLabel: string;
+}
+
+class ListReportDto {
+  @ApiProperty({ enum: REPORT_STATES }) state: ReportState;
+  @ApiProperty({ type: Number, nullable: true }) latestRevision: number | null;
+}
+
+class LatestVisitDto {
+  @ApiProperty() id: string;
+  @ApiProperty() label: string;
+  @ApiProperty({ example: '2026-03-02' }) visitDate: string;
+  @ApiProperty({ type: ListReportDto, nullable: true }) report: ListReportDto | null;
+}
+
+export class ParticipantListItemDto extends ParticipantResponseDto implements ParticipantListItem {
+  @ApiProperty() siteName: string;
+  @ApiProperty({ type: String, nullable: true }) groupName: string | null;
+  @ApiProperty() visitCount: number;
+  @ApiProperty({ type: LatestValueDto, nullable: true }) latestPaf: LatestValue | null;
+  @ApiProperty({ type: LatestValueDto, nullable: true }) latestDeltaF: LatestValue | null;
+  @ApiProperty({
+    type: Number,
+    nullable: true,
+    description: 'Raised flags; null when your role does not read flags',
+  })
+  openFlags: number | null;
+  @ApiProperty({ type: LatestVisitDto, nullable: true })
+  latestVisit: LatestVisitDto | null;
+}
+
+export class ParticipantPageDto implements Page<ParticipantListItem> {
+  @ApiProperty({ type: [ParticipantListItemDto] }) items: ParticipantListItem[];
   @ApiProperty() total: number;
   @ApiProperty() page: number;
   @ApiProperty() pageSize: number;

@@ -14,6 +14,11 @@ export interface ReceivedFile {
   /** SHA-256 (hex) of the bytes written, i.e. of the blanked copy. */
   sha256: string;
   sizeBytes: number;
+  /**
+   * The file name the client sent (its last path segment, at most 255 characters), or null
+   * when it sent none. Shown to staff in scope; never read for anything else.
+   */
+  originalName?: string | null;
 }
 
 export interface ReceivedUpload {
@@ -160,7 +165,7 @@ export async function receiveUpload(
       writes.push(
         writeRecording(stream, path, options).then(
           (file) => {
-            recording = file;
+            recording = { ...file, originalName: plainFileName(info.filename) };
           },
           (error: Error) => failWrite(error),
         ),
@@ -223,6 +228,16 @@ export async function receiveUpload(
   }
   return { fields, recording, onsetsCsv };
 }
+
+/** The last segment of a client's file name (a browser may send a path), trimmed and capped. */
+export function plainFileName(name: string | undefined): string | null {
+  const last = (name ?? '').replace(/\\/g, '/').split('/').pop() ?? '';
+  const trimmed = last.trim();
+  return trimmed === '' ? null : trimmed.slice(0, MAX_FILE_NAME_LENGTH);
+}
+
+/** The longest file name kept (the column is varchar(255)). */
+const MAX_FILE_NAME_LENGTH = 255;
 
 /** C0 controls and DEL; RFC 5987 `filename*` can smuggle CR/LF past the header syntax. */
 function hasControlCharacter(text: string): boolean {

@@ -4,10 +4,10 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { Request } from 'express';
 import type { RecordingKind } from '@gyre/shared';
 import { RECORDING_KINDS } from '@gyre/shared';
-import { ErrorKind, GyreException } from '../../common/errors/gyre.exception';
+import { GyreException } from '../../common/errors/gyre.exception';
 import type { AppConfig } from '../../config/app.config';
 import { APP_CONFIG } from '../../config/config.module';
-import { RecordingsError } from '../recordings.errors';
+import { RecordingsError, recordingsError } from '../recordings.errors';
 import {
   ReceivedFile,
   receiveUpload,
@@ -59,15 +59,10 @@ export class UploadReceiver {
       request.unpipe();
       request.resume();
       if (error instanceof UploadTooLargeError) {
-        throw new GyreException(
-          ErrorKind.PayloadTooLarge,
-          RecordingsError.TooLarge,
-          error.message,
-          {
-            field: error.part,
-            limitBytes: error.limitBytes,
-          },
-        );
+        throw recordingsError(RecordingsError.TooLarge, error.message, {
+          field: error.part,
+          limitBytes: error.limitBytes,
+        });
       }
       if (error instanceof UploadFormError)
         throw formError(error.field, error.found, error.expected);
@@ -131,8 +126,7 @@ function replacementOf(
 }
 
 export function formError(field: string, found: string, expected: string): GyreException {
-  return new GyreException(
-    ErrorKind.BadInput,
+  return recordingsError(
     RecordingsError.FormInvalid,
     `${field}: ${found} found, ${expected} expected`,
     { field, found, expected },

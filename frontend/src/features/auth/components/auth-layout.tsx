@@ -9,12 +9,15 @@ export function AuthLayout({ title, children }: { title: string; children: React
       style={{
         minHeight: '100vh',
         display: 'grid',
-        placeItems: 'center',
-        padding: 24,
+        // One column of at most 420 px that may shrink: a phone never scrolls sideways.
+        gridTemplateColumns: 'minmax(0, 420px)',
+        justifyContent: 'center',
+        alignContent: 'center',
+        padding: '24px 16px',
         background: 'linear-gradient(160deg, #F4F7F7 0%, #E3ECEC 100%)',
       }}
     >
-      <div style={{ width: 420, maxWidth: '100%' }}>
+      <div style={{ minWidth: 0 }}>
         <div style={{ display: 'flex', alignItems: 'center', gap: 12, marginBottom: 20 }}>
           <GyreMark size={40} />
           <div>

@@ -83,7 +83,7 @@ function SectionCard({ section, sort }: { section: WorklistSection; sort: Workli
             overflowCount={9999}
             style={
               section.total > 0
-                ? { backgroundColor: GYRE_COLORS.amber }
+                ? { backgroundColor: GYRE_COLORS.amberText }
                 : { backgroundColor: GYRE_COLORS.line, color: '#33474B' }
             }
             aria-label={`${section.total} items`}

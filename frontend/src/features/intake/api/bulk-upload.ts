@@ -2,6 +2,7 @@ import type { BulkUploadReport } from '@gyre/shared';
 import { useCallback } from 'react';
 import { useSWRConfig } from 'swr';
 import { ApiError, apiUpload, type UploadOptions } from '../../../lib/api-client';
+import { isRecordingsKey } from './recordings';
 
 /** The 422 of a bulk upload with a failing row: nothing was imported, the report says why. */
 export const BULK_ROWS_INVALID = 'BULK_UPLOAD_ROWS_INVALID';
@@ -50,10 +51,11 @@ export function useBulkUpload() {
       if (report.imported) {
         await mutate(
           (key) =>
-            typeof key === 'string' &&
-            (key.startsWith('/api/visits') ||
-              key.startsWith('/api/recordings') ||
-              key.includes('/due')),
+            isRecordingsKey(key) ||
+            (typeof key === 'string' &&
+              (key.startsWith('/api/visits') ||
+                key.startsWith('/api/recordings') ||
+                key.includes('/due'))),
         );
       }
       return report;

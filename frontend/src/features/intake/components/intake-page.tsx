@@ -5,6 +5,7 @@ import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { PageHeader } from '../../../components/page-header';
 import { ErrorState, LoadingState } from '../../../components/page-states';
+import { ResearchCaution } from '../../../components/research-caution';
 import {
   studyDayText,
   visitWindowText,
@@ -22,8 +23,7 @@ import { DueCard } from './due-card';
 import { NewParticipantForm } from './new-participant-form';
 import { NewVisitForm } from './new-visit-form';
 import { ParticipantDetailsForm } from './participant-details-form';
-import { RecordingDropzone } from './recording-dropzone';
-import { RecordingsTable } from './recordings-table';
+import { VisitIntake } from './visit-intake';
 
 /**
  * Intake (technician): what is due at the site, then pick participant and visit, drop the
@@ -96,6 +96,8 @@ export function IntakePage() {
         description="Register a visit, upload its resting and task recordings, and follow their checks."
       />
       <Space orientation="vertical" size={16} style={{ width: '100%' }}>
+        {/* Intake shows computed states and quality warnings: research use, not diagnosis. */}
+        <ResearchCaution />
         {studyId !== null && (
           <DueCard
             due={due.data}
@@ -220,13 +222,11 @@ export function IntakePage() {
           )}
         </Card>
         {participant !== null && visit !== null && (
-          <>
-            <RecordingDropzone
-              visitId={visit.id}
-              visitName={`${participant.code}, ${visit.label}`}
-            />
-            <RecordingsTable visitId={visit.id} />
-          </>
+          <VisitIntake
+            key={visit.id}
+            visitId={visit.id}
+            visitName={`${participant.code}, ${visit.label}`}
+          />
         )}
         {studyId !== null && ability.can('upload', 'Recording') && (
           <BulkUploadPanel studyId={studyId} />

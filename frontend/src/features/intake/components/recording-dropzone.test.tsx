@@ -80,9 +80,8 @@ describe('Intake uploads', { timeout: 60_000 }, () => {
       }),
     );
     await userEvent.click(send);
-    expect(
-      await within(uploads).findByText(/Received and checked; the computation is queued\./),
-    ).toHaveTextContent('The confirmed kind stays on the recording as a warning.');
+    const line = (await within(uploads).findByText('Received and checked.')).closest('li');
+    expect(line).toHaveTextContent('The confirmed kind stays on the recording as a warning.');
     expect(sent).toEqual([
       { kind: 'resting', file: 'a file' },
       { kind: 'resting', confirmKind: 'true', file: 'a file' },
@@ -137,9 +136,9 @@ describe('Intake uploads', { timeout: 60_000 }, () => {
     await userEvent.clear(reason);
     await userEvent.paste(' Electrode O1 came loose halfway ');
     await userEvent.click(replace);
-    expect(await within(uploads).findByText(/Received and checked/)).toHaveTextContent(
-      'It replaces the earlier recording, which stays listed as superseded.',
-    );
+    expect(
+      (await within(uploads).findByText('Received and checked.')).closest('li'),
+    ).toHaveTextContent('It replaces the earlier recording, which stays listed as superseded.');
     expect(sent[1]).toEqual({
       kind: 'resting',
       replaces: 'r-old',

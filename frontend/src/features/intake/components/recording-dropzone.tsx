@@ -1,4 +1,9 @@
-import type { KindMismatchDetails, KindTakenDetails, RecordingKind } from '@gyre/shared';
+import type {
+  KindMismatchDetails,
+  KindTakenDetails,
+  RecordingDto,
+  RecordingKind,
+} from '@gyre/shared';
 import { RECORDING_KINDS } from '@gyre/shared';
 import { Button, Card, Flex, Form, Grid, Segmented, Typography, Upload } from 'antd';
 import type { UploadFile, UploadProps } from 'antd';
@@ -44,8 +49,34 @@ export function kindTakenOf(details: Record<string, unknown> | null): KindTakenD
   return { kind: details.kind, recordingId: details.recordingId };
 }
 
-/** Drop one or more EDF/EDF+ files (and, for a task, an onset CSV); each shows its progress. */
-export function RecordingDropzone({ visitId, visitName }: { visitId: string; visitName: string }) {
+/** The id of the rejected recording a 422 carries in `details.recording`, when it does. */
+function rejectedRecordingId(details: Record<string, unknown> | null): string | undefined {
+  const recording = details?.recording;
+  return typeof recording === 'object' &&
+    recording !== null &&
+    'id' in recording &&
+    typeof recording.id === 'string'
+    ? recording.id
+    : undefined;
+}
+
+/**
+ * Drop one or more EDF/EDF+ files (and, for a task, an onset CSV); each shows its upload
+ * progress, the server's answer, then its recording's state live (from `recordings`).
+ */
+export function RecordingDropzone({
+  visitId,
+  visitName,
+  recordings,
+  onDismissRecording,
+}: {
+  visitId: string;
+  visitName: string;
+  /** The visit's recordings as the screen follows them live. */
+  recordings: readonly RecordingDto[];
+  /** Hides a rejected recording from the list below too. */
+  onDismissRecording: (recordingId: string) => void;
+}) {
   const upload = useUploadRecording();
   const screens = Grid.useBreakpoint();
   const [kind, setKind] = useState<RecordingKind>('resting');
@@ -88,7 +119,7 @@ export function RecordingDropzone({ visitId, visitName }: { visitId: string; vis
       },
       { signal: controller.signal, onProgress: ({ percent }) => update(item.uid, { percent }) },
     ).then(
-      () => update(item.uid, { status: 'accepted', percent: 100 }),
+      (created) => update(item.uid, { status: 'accepted', percent: 100, recordingId: created.id }),
       (caught: unknown) => {
         const mismatch =
           caught instanceof ApiError && caught.code === KIND_UNCONFIRMED
@@ -106,6 +137,7 @@ export function RecordingDropzone({ visitId, visitName }: { visitId: string; vis
           update(item.uid, {
             status: 'rejected',
             rejection: rejectionFromDetails(caught.details, caught.message),
+            recordingId: rejectedRecordingId(caught.details),
           });
         } else {
           update(item.uid, {
@@ -245,6 +277,11 @@ export function RecordingDropzone({ visitId, visitName }: { visitId: string; vis
               visitId={visitId}
               onResend={(next) => void send(next)?.catch(() => undefined)}
               onDismiss={() => update(item.uid, { status: 'dismissed' })}
+              recording={recordings.find((r) => r.id === item.recordingId)}
+              onClear={() => {
+                setItems((all) => all.filter((other) => other.uid !== item.uid));
+                if (item.recordingId !== undefined) onDismissRecording(item.recordingId);
+              }}
             />
           ))}
         </ul>

@@ -7,8 +7,8 @@ import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-
 import { ApiError } from '../../../lib/api-client';
 import { formatBytes, formatDateTime, formatHz, formatSeconds } from '../../../lib/format';
 import { useDownloadRecording } from '../api/download-recording';
-import { useRecordings } from '../api/recordings';
 import { useRetryRecording } from '../api/retry-recording';
+import type { useLiveRecordings } from '../hooks/use-live-recordings';
 import { KIND_LABELS } from './kind-labels';
 import { recordingNotes } from './recording-notes';
 import { RecordingStateTag } from './recording-state-tag';
@@ -23,6 +23,19 @@ const DOWNLOADABLE: ReadonlySet<RecordingDto['state']> = new Set([
   'superseded',
 ]);
 
+/** The name the technician's file had; older recordings were stored without it. */
+function FileName({ recording }: { recording: RecordingDto }) {
+  return recording.fileName === null ? (
+    <Typography.Text type="secondary" italic>
+      File name not kept
+    </Typography.Text>
+  ) : (
+    <Typography.Text strong style={{ color: 'inherit', overflowWrap: 'anywhere' }}>
+      {recording.fileName}
+    </Typography.Text>
+  );
+}
+
 function FileFacts({ recording }: { recording: RecordingDto }) {
   const facts = recording.facts;
   if (facts === null) {
@@ -30,7 +43,7 @@ function FileFacts({ recording }: { recording: RecordingDto }) {
   }
   const rates = [...new Set(facts.sampleRatesHz)];
   return (
-    <Typography.Text className="gyre-figures" style={{ color: 'inherit' }}>
+    <Typography.Text className="gyre-figures" style={{ color: 'inherit', fontSize: 12 }}>
       {facts.format} · {formatSeconds(facts.durationS)} · {facts.channelLabels.length} channels ·{' '}
       {rates.map((rate) => formatHz(rate)).join(', ')} · {formatBytes(recording.sizeBytes)}
       {facts.csvOnsetCount !== null && ` · ${facts.csvOnsetCount} onsets from CSV`}
@@ -95,19 +108,28 @@ function Replacement({ recording, all }: { recording: RecordingDto; all: Recordi
 
 function Progression({ recording, all }: { recording: RecordingDto; all: RecordingDto[] }) {
   let main: React.ReactNode = null;
-  if (recording.state === 'queued' || recording.state === 'computing') {
+  if (recording.state === 'queued') {
     main = (
-      <Progress
-        percent={Math.round(recording.progressPercent ?? 0)}
-        size="small"
-        status="active"
-        aria-label={`Computation progress of the ${recording.kind} recording`}
-      />
+      <Typography.Text type="secondary">
+        Checked and kept; waiting for a free computation slot.
+      </Typography.Text>
     );
+  } else if (recording.state === 'computing') {
+    main =
+      recording.progressPercent === null ? (
+        <Typography.Text type="secondary">Computing…</Typography.Text>
+      ) : (
+        <Progress
+          percent={Math.round(recording.progressPercent)}
+          size="small"
+          status="active"
+          aria-label={`Computation progress of the ${recording.kind} recording`}
+        />
+      );
   } else if (recording.state === 'received' || recording.state === 'validating') {
     main = <Typography.Text type="secondary">The file is being checked.</Typography.Text>;
   } else if (recording.state === 'rejected' && recording.rejection !== null) {
-    return <RejectionText rejection={recording.rejection} />;
+    return <RejectionText rejection={recording.rejection} sizeBytes={recording.sizeBytes} />;
   } else if (recording.state === 'failed') {
     main = (
       <Typography.Text>{recording.failureMessage ?? 'The computation stopped.'}</Typography.Text>
@@ -124,15 +146,30 @@ function Progression({ recording, all }: { recording: RecordingDto; all: Recordi
   );
 }
 
-/** The visit's recordings with their state, asked again while any is on its way. */
-export function RecordingsTable({ visitId }: { visitId: string }) {
-  const { data, error, isLoading, mutate } = useRecordings(visitId);
+/**
+ * The visit's recordings with their state, followed live while any is on its way (the caller
+ * owns the live list: `useLiveRecordings`). A rejected row can be dismissed from this view.
+ */
+export function RecordingsTable({
+  recordings,
+  dismissed,
+  onDismiss,
+}: {
+  recordings: ReturnType<typeof useLiveRecordings>;
+  /** Rejected recordings this user dismissed from the view (the server keeps them). */
+  dismissed: ReadonlySet<string>;
+  onDismiss: (recordingId: string) => void;
+}) {
+  const { data, error, isLoading, mutate } = recordings;
+  const [showDismissed, setShowDismissed] = useState(false);
   const retry = useRetryRecording();
   const download = useDownloadRecording();
   const [downloading, setDownloading] = useState<string | null>(null);
   const { message } = App.useApp();
   const screens = Grid.useBreakpoint();
   const all = data?.items ?? [];
+  const hidden = all.filter((r) => r.state === 'rejected' && dismissed.has(r.id));
+  const shown = showDismissed ? all : all.filter((r) => !hidden.includes(r));
   // Below `lg` the upload time moves under the kind, so a narrow screen still tells them apart.
   const wide = screens.lg === true;
 
@@ -159,6 +196,15 @@ export function RecordingsTable({ visitId }: { visitId: string }) {
           onClick={() => void startDownload(recording)}
         >
           Download
+        </Button>
+      )}
+      {recording.state === 'rejected' && !dismissed.has(recording.id) && (
+        <Button
+          size="small"
+          aria-label={`Dismiss the rejected ${recording.fileName ?? `${recording.kind} recording`}`}
+          onClick={() => onDismiss(recording.id)}
+        >
+          Dismiss
         </Button>
       )}
       {recording.state === 'failed' && (
@@ -202,6 +248,7 @@ export function RecordingsTable({ visitId }: { visitId: string }) {
                   </Flex>
                   {actions(recording, 'row')}
                 </Flex>
+                <FileName recording={recording} />
                 <Typography.Text type="secondary" className="gyre-figures" style={{ fontSize: 12 }}>
                   Uploaded {formatDateTime(recording.createdAt)}
                 </Typography.Text>
@@ -233,7 +280,13 @@ export function RecordingsTable({ visitId }: { visitId: string }) {
           {
             title: 'File',
             key: 'facts',
-            render: (_, recording) => <FileFacts recording={recording} />,
+            width: 240,
+            render: (_, recording) => (
+              <Flex vertical gap={2}>
+                <FileName recording={recording} />
+                <FileFacts recording={recording} />
+              </Flex>
+            ),
           },
           {
             title: 'Progress, warnings or reason',
@@ -269,7 +322,7 @@ export function RecordingsTable({ visitId }: { visitId: string }) {
           size={wide ? 'middle' : 'small'}
           loading={isLoading && data !== undefined}
           columns={columns}
-          dataSource={all}
+          dataSource={shown}
           pagination={false}
           // A superseded recording stays listed for the record, but set back.
           onRow={(recording) =>
@@ -285,6 +338,17 @@ export function RecordingsTable({ visitId }: { visitId: string }) {
             ),
           }}
         />
+      )}
+      {hidden.length > 0 && (
+        <Button
+          type="link"
+          style={{ paddingInline: 0, marginTop: 8 }}
+          onClick={() => setShowDismissed((on) => !on)}
+        >
+          {showDismissed
+            ? 'Hide dismissed rejected uploads'
+            : `Show ${hidden.length} dismissed rejected upload${hidden.length === 1 ? '' : 's'}`}
+        </Button>
       )}
     </Card>
   );

@@ -1,8 +1,20 @@
 import type { RecordingRejection } from '@gyre/shared';
 import { Typography } from 'antd';
+import { rejectionAdvice } from './rejection-advice';
 
-/** The reader's message as it gave it, then the field, what was found and what was expected. */
-export function RejectionText({ rejection }: { rejection: RecordingRejection }) {
+/**
+ * Why a file was refused, in plain words with what to do, then the server's exact words: its
+ * message and the field, what was found and what was expected.
+ */
+export function RejectionText({
+  rejection,
+  sizeBytes = null,
+}: {
+  rejection: RecordingRejection;
+  /** The uploaded file's size, to say how long it should have been. */
+  sizeBytes?: number | null;
+}) {
+  const advice = rejectionAdvice(rejection, sizeBytes);
   const parts = [
     rejection.field !== null ? `Field: ${rejection.field}` : null,
     rejection.found !== null ? `found ${rejection.found}` : null,
@@ -10,15 +22,26 @@ export function RejectionText({ rejection }: { rejection: RecordingRejection }) 
   ].filter((part): part is string => part !== null);
   return (
     <>
-      <Typography.Text>{rejection.message}</Typography.Text>
-      {parts.length > 0 && (
-        <>
-          <br />
+      <Typography.Text>{advice.problem}</Typography.Text>{' '}
+      <Typography.Text strong style={{ color: 'inherit' }}>
+        {advice.action}
+      </Typography.Text>
+      <details style={{ marginTop: 4, fontSize: 12 }}>
+        <summary>
           <Typography.Text type="secondary" style={{ fontSize: 12 }}>
-            {parts.join(' · ')}
+            Details from the file check
           </Typography.Text>
-        </>
-      )}
+        </summary>
+        <Typography.Text type="secondary" style={{ fontSize: 12, wordBreak: 'break-word' }}>
+          {rejection.message}
+          {parts.length > 0 && (
+            <>
+              <br />
+              {parts.join(' · ')}
+            </>
+          )}
+        </Typography.Text>
+      </details>
     </>
   );
 }

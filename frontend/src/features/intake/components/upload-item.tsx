@@ -1,6 +1,7 @@
 import type {
   KindMismatchDetails,
   KindTakenDetails,
+  RecordingDto,
   RecordingKind,
   RecordingRejection,
 } from '@gyre/shared';
@@ -10,6 +11,8 @@ import { GYRE_COLORS } from '../../../app/theme';
 import { formatBytes, formatDateTime } from '../../../lib/format';
 import { useRecordings } from '../api/recordings';
 import { KIND_LABELS } from './kind-labels';
+import { recordingNotes } from './recording-notes';
+import { RecordingStateTag } from './recording-state-tag';
 import { RejectionText } from './rejection-text';
 
 export const REPLACEMENT_REASON_MIN_LENGTH = 10;
@@ -38,6 +41,8 @@ export interface UploadItem {
   message?: string;
   mismatch?: KindMismatchDetails;
   taken?: KindTakenDetails;
+  /** The recording the server made of it (accepted, or kept as rejected evidence). */
+  recordingId?: string;
 }
 
 export type Resend = (next: UploadItem) => void;
@@ -120,7 +125,8 @@ function KindTaken({
 }) {
   const [replacing, setReplacing] = useState(false);
   const [form] = Form.useForm<{ reason: string }>();
-  const recordings = useRecordings(visitId);
+  // Read from the cache the screen keeps live; no timer of its own.
+  const recordings = useRecordings(visitId, { refreshInterval: 0 });
   const taken = item.taken;
   if (taken === undefined) return null;
   const earlier = recordings.data?.items.find((r) => r.id === taken.recordingId) ?? null;
@@ -189,17 +195,82 @@ function KindTaken({
   );
 }
 
+/** An accepted upload's recording as it goes on: queued, computing (with percent), then done. */
+function AcceptedState({ item, recording }: { item: UploadItem; recording?: RecordingDto }) {
+  const notes = recording === undefined ? [] : recordingNotes(recording);
+  let now: React.ReactNode = null;
+  if (recording?.state === 'queued') {
+    now = 'The computation is queued; it starts when a computation slot is free.';
+  } else if (recording?.state === 'computing') {
+    now =
+      recording.progressPercent === null ? (
+        'Computing…'
+      ) : (
+        <Progress
+          percent={Math.round(recording.progressPercent)}
+          size="small"
+          status="active"
+          aria-label={`Computation of ${item.name}`}
+        />
+      );
+  } else if (recording?.state === 'ready') {
+    now = notes.length > 0 ? 'Computed, with warnings:' : 'Computed: the results are ready.';
+  } else if (recording?.state === 'failed') {
+    now = `The computation failed: ${recording.failureMessage ?? 'no reason given'}. Retry it in the list below.`;
+  } else if (recording?.state === 'superseded') {
+    now = 'A newer upload replaced it.';
+  }
+  return (
+    <div aria-live="polite">
+      <Flex gap={8} align="center" wrap>
+        <Typography.Text type="success">Received and checked.</Typography.Text>
+        {recording !== undefined && <RecordingStateTag recording={recording} />}
+      </Flex>
+      {recording === undefined && (
+        <Typography.Text type="secondary">The computation is queued.</Typography.Text>
+      )}
+      {now !== null && <div>{now}</div>}
+      {notes.length > 0 && (
+        <ul
+          aria-label={`Warnings about ${item.name}`}
+          style={{ margin: '4px 0 0', paddingLeft: 18, color: GYRE_COLORS.amber }}
+        >
+          {notes.map((note) => (
+            <li key={note}>{note}</li>
+          ))}
+        </ul>
+      )}
+      {item.replaces !== null && (
+        <Typography.Text type="secondary">
+          It replaces the earlier recording, which stays listed as superseded.{' '}
+        </Typography.Text>
+      )}
+      {item.confirmKind && (
+        <Typography.Text type="secondary">
+          The confirmed kind stays on the recording as a warning.
+        </Typography.Text>
+      )}
+    </div>
+  );
+}
+
 /** One line of the upload list: progress, the server's answer, and any choice it asks for. */
 export function UploadItemView({
   item,
   visitId,
   onResend,
   onDismiss,
+  recording,
+  onClear,
 }: {
   item: UploadItem;
   visitId: string;
   onResend: Resend;
   onDismiss: () => void;
+  /** The recording made of this upload, as the screen follows it live. */
+  recording?: RecordingDto;
+  /** Takes a refused upload off the list (and its rejected recording off the view). */
+  onClear: () => void;
 }) {
   return (
     <li
@@ -222,26 +293,29 @@ export function UploadItemView({
           aria-label={`Upload of ${item.name}`}
         />
       )}
-      {item.status === 'accepted' && (
-        <Typography.Text type="success">
-          Received and checked; the computation is queued.
-          {item.replaces !== null &&
-            ' It replaces the earlier recording, which stays listed as superseded.'}
-          {item.confirmKind && ' The confirmed kind stays on the recording as a warning.'}
-        </Typography.Text>
-      )}
+      {item.status === 'accepted' && <AcceptedState item={item} recording={recording} />}
       {item.status === 'rejected' && item.rejection !== undefined && (
         <div role="alert">
           <Typography.Text type="danger" strong>
             Not accepted.{' '}
           </Typography.Text>
-          <RejectionText rejection={item.rejection} />
+          <RejectionText rejection={item.rejection} sizeBytes={item.sizeBytes} />
         </div>
       )}
       {item.status === 'error' && (
         <Typography.Text type="danger" role="alert">
           {item.message}
         </Typography.Text>
+      )}
+      {(item.status === 'rejected' || item.status === 'error') && (
+        <Button
+          size="small"
+          style={{ marginTop: 6 }}
+          aria-label={`Dismiss ${item.name}`}
+          onClick={onClear}
+        >
+          Dismiss
+        </Button>
       )}
       {item.status === 'kind-unconfirmed' && <KindMismatch item={item} onResend={onResend} />}
       {item.status === 'kind-taken' && (

@@ -105,6 +105,7 @@ export function recording(change: Partial<RecordingDto>): RecordingDto {
     state: 'ready',
     checksumSha256: 'a'.repeat(64),
     sizeBytes: 1_234_567,
+    fileName: 'AC-0042-V1-resting.edf',
     progressPercent: 100,
     facts: null,
     rejection: null,
@@ -143,6 +144,13 @@ export function useIntakeHandlers(
     http.get('/api/participants', () => HttpResponse.json(page([participant]))),
     http.get('/api/visits', () => HttpResponse.json(page([visit]))),
     http.get('/api/recordings', () => HttpResponse.json(page(recordings()))),
+    // No live stream unless a test serves one: Intake then falls back to asking again.
+    http.get('/api/recordings/:id/events', () =>
+      HttpResponse.json(
+        { statusCode: 404, code: 'NOT_SERVED', message: 'No stream in this test.', details: null },
+        { status: 404 },
+      ),
+    ),
   );
 }
 

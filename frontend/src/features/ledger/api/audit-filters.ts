@@ -4,6 +4,8 @@ export interface AuditFilters {
   action?: string;
   objectType?: string;
   objectId?: string;
+  /** Entries about this participant, its visits and what belongs to them. */
+  participantId?: string;
   /** ISO 8601 instants, inclusive. */
   from?: string;
   to?: string;
@@ -14,6 +16,7 @@ export const AUDIT_FILTER_NAMES = [
   'action',
   'objectType',
   'objectId',
+  'participantId',
   'from',
   'to',
 ] as const;

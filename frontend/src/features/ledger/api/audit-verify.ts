@@ -9,6 +9,7 @@ export function getAuditVerify(): Promise<AuditVerifyResult> {
   return apiFetch<AuditVerifyResult>(auditVerifyKey);
 }
 
-export function useAuditVerify() {
-  return useSWR<AuditVerifyResult>(auditVerifyKey, getAuditVerify);
+/** `onChecked` runs after every answer, also when it equals the one before (a repeated check). */
+export function useAuditVerify(onChecked?: (result: AuditVerifyResult) => void) {
+  return useSWR<AuditVerifyResult>(auditVerifyKey, getAuditVerify, { onSuccess: onChecked });
 }

@@ -1,117 +1,135 @@
 import type { AuditEntryView } from '@gyre/shared';
-import { Descriptions, Table, Typography } from 'antd';
+import { Collapse, Descriptions, Table, Typography } from 'antd';
+import { NO_VALUE } from '../../../lib/format';
+import { changedFields, type ChangedField } from '../lib/entry-diff';
 
-interface ChangeRow {
-  field: string;
-  before: unknown;
-  after: unknown;
-  changed: boolean;
-}
+const breakAnywhere = { wordBreak: 'break-all' } as const;
+/** Words stay whole; only an unbroken run longer than the cell (an id) is broken. */
+const wrapLong = { overflowWrap: 'anywhere' } as const;
+const jsonStyle = {
+  ...breakAnywhere,
+  whiteSpace: 'pre-wrap',
+  margin: 0,
+  fontSize: 12,
+  maxHeight: 320,
+  overflow: 'auto',
+} as const;
 
-const isRecord = (value: unknown): value is Record<string, unknown> =>
-  typeof value === 'object' && value !== null && !Array.isArray(value);
-
-function show(value: unknown): string {
-  if (value === undefined) return '(none)';
-  if (value === null) return '(empty)';
-  if (typeof value === 'string') return value;
-  return JSON.stringify(value);
-}
-
-/** Field by field, what an entry's object was before and after the change. */
-export function changeRows(before: unknown, after: unknown): ChangeRow[] {
-  if (!isRecord(before) && !isRecord(after)) {
-    if (before === null && after === null) return [];
-    return [
-      {
-        field: '(value)',
-        before,
-        after,
-        changed: JSON.stringify(before) !== JSON.stringify(after),
-      },
-    ];
-  }
-  const old = isRecord(before) ? before : {};
-  const next = isRecord(after) ? after : {};
-  const fields = [...new Set([...Object.keys(old), ...Object.keys(next)])];
-  return fields.map((field) => ({
-    field,
-    before: old[field],
-    after: next[field],
-    changed: JSON.stringify(old[field]) !== JSON.stringify(next[field]),
-  }));
-}
-
-/** The expanded view of one Ledger entry: before/after, reason, and its place in the chain. */
+/**
+ * The details of one Ledger entry: the fields it changed (labels, units, names), its reason and
+ * address, and behind "Recorded data" the JSON and hashes exactly as kept, for auditors.
+ */
 export function EntryChanges({ entry }: { entry: AuditEntryView }) {
-  const rows = changeRows(entry.before, entry.after);
+  const rows = changedFields(entry.before, entry.after, entry.context?.people);
   return (
-    <div style={{ padding: '4px 8px 8px' }}>
+    <div className="gyre-ledger-details">
       {rows.length === 0 ? (
-        <Typography.Paragraph type="secondary">
-          This entry records no field values.
-        </Typography.Paragraph>
+        <Typography.Paragraph type="secondary">This entry changed no field.</Typography.Paragraph>
       ) : (
-        <Table<ChangeRow>
-          size="small"
-          rowKey="field"
-          pagination={false}
-          dataSource={rows}
-          aria-label={`Before and after of entry ${entry.seq}`}
-          columns={[
-            { title: 'Field', dataIndex: 'field', width: 200 },
-            {
-              title: 'Before',
-              dataIndex: 'before',
-              render: (value: unknown) => <Typography.Text code>{show(value)}</Typography.Text>,
-            },
-            {
-              title: 'After',
-              dataIndex: 'after',
-              render: (value: unknown, row) => (
-                <Typography.Text
-                  code
-                  strong={row.changed}
-                  style={row.changed ? { color: '#24525A' } : undefined}
-                >
-                  {show(value)}
-                </Typography.Text>
-              ),
-            },
-          ]}
-          rowClassName={(row) => (row.changed ? 'gyre-changed' : '')}
-        />
+        <div style={{ overflowX: 'auto' }}>
+          <Table<ChangedField>
+            size="small"
+            rowKey="path"
+            pagination={false}
+            dataSource={rows}
+            aria-label={`Changes in entry ${entry.seq}`}
+            tableLayout="fixed"
+            columns={[
+              { title: 'Field', dataIndex: 'label', width: '30%' },
+              {
+                title: 'Before',
+                dataIndex: 'before',
+                render: (value: string) => <span style={wrapLong}>{value}</span>,
+              },
+              {
+                title: 'After',
+                dataIndex: 'after',
+                render: (value: string) => (
+                  <Typography.Text strong style={wrapLong}>
+                    {value}
+                  </Typography.Text>
+                ),
+              },
+            ]}
+          />
+        </div>
       )}
       <Descriptions
         size="small"
-        column={2}
+        column={1}
         style={{ marginTop: 12 }}
         items={[
-          { key: 'reason', label: 'Reason', children: entry.reason ?? '—', span: 2 },
+          { key: 'reason', label: 'Reason', children: entry.reason ?? NO_VALUE },
+          { key: 'ip', label: 'From address', children: entry.clientIp ?? NO_VALUE },
+        ]}
+      />
+      <Collapse
+        size="small"
+        ghost
+        style={{ marginTop: 8 }}
+        items={[
           {
-            key: 'object',
-            label: 'Object id',
-            children: <Typography.Text code>{entry.objectId ?? '—'}</Typography.Text>,
-          },
-          { key: 'ip', label: 'From address', children: entry.clientIp ?? '—' },
-          {
-            key: 'hash',
-            label: 'Hash',
-            span: 2,
+            key: 'recorded',
+            label: 'Recorded data',
             children: (
-              <Typography.Text code style={{ fontSize: 12 }}>
-                {entry.hash}
-              </Typography.Text>
-            ),
-          },
-          {
-            key: 'prev',
-            label: 'Links to',
-            span: 2,
-            children: (
-              <Typography.Text code style={{ fontSize: 12 }}>
-                {entry.prevHash}
-              </Typography.Text>
+              <Descriptions
+                size="small"
+                column={1}
+                layout="vertical"
+                items={[
+                  {
+                    key: 'object',
+                    label: `Object (${entry.objectType})`,
+                    children: (
+                      <Typography.Text code style={breakAnywhere}>
+                        {entry.objectId ?? NO_VALUE}
+                      </Typography.Text>
+                    ),
+                  },
+                  {
+                    key: 'action',
+                    label: 'Action',
+                    children: <Typography.Text code>{entry.action}</Typography.Text>,
+                  },
+                  {
+                    key: 'actor',
+                    label: 'Actor',
+                    children: (
+                      <Typography.Text code style={breakAnywhere}>
+                        {entry.actorEmail ?? 'system'} {entry.actorId ?? ''}
+                      </Typography.Text>
+                    ),
+                  },
+                  {
+                    key: 'before',
+                    label: 'Before',
+                    children: <pre style={jsonStyle}>{JSON.stringify(entry.before, null, 2)}</pre>,
+                  },
+                  {
+                    key: 'after',
+                    label: 'After',
+                    children: <pre style={jsonStyle}>{JSON.stringify(entry.after, null, 2)}</pre>,
+                  },
+                  {
+                    key: 'hash',
+                    label: 'Hash',
+                    children: (
+                      <Typography.Text code style={{ ...breakAnywhere, fontSize: 12 }}>
+                        {entry.hash}
+                      </Typography.Text>
+                    ),
+                  },
+                  {
+                    key: 'prev',
+                    label: 'Links to',
+                    children: (
+                      <Typography.Text code style={{ ...breakAnywhere, fontSize: 12 }}>
+                        {entry.prevHash}
+                      </Typography.Text>
+                    ),
+                  },
+                ]}
+              />
             ),
           },
         ]}

@@ -1,29 +1,58 @@
 import { AUDIT_ACTIONS } from '@gyre/shared';
-import { DatePicker, Flex, Form, Input, Select } from 'antd';
-import dayjs, { type Dayjs } from 'dayjs';
+import { DatePicker, Flex, Form, Grid, Input, Select } from 'antd';
+import dayjs from 'dayjs';
+import { useState } from 'react';
+import { useAppAbility } from '../../../lib/session/ability';
 import { useAuditPeople } from '../api/audit-people';
 import type { AuditFilters } from '../api/audit-filters';
+import { useLedgerParticipant, useLedgerParticipants } from '../api/ledger-participants';
 
 /** Verbs written by feature modules beside the account verbs listed in shared/. */
-const FEATURE_ACTIONS = ['upload', 'reject', 'rerun', 'raise', 'clear', 'sign', 'send', 'read'];
+const FEATURE_ACTIONS = [
+  'upload',
+  'validate',
+  'accept',
+  'reject',
+  'compute',
+  'ready',
+  'fail',
+  'supersede',
+  'rerun',
+  'retry',
+  'recompute',
+  'download',
+  'raise',
+  'clear',
+  'review',
+  'sign',
+  'notify',
+  'sent',
+  'revoke',
+];
 const ACTIONS = [...new Set([...AUDIT_ACTIONS, ...FEATURE_ACTIONS])].sort();
 
-const OBJECT_TYPES = [
-  'AnalysisRun',
-  'AnalysisSettings',
-  'AuditEntry',
-  'Flag',
-  'Participant',
-  'Recording',
-  'Report',
-  'Session',
-  'Site',
-  'Study',
-  'User',
-  'Visit',
+/** What an entry can be about, in words (the value is the recorded object type). */
+const OBJECT_TYPES: [string, string][] = [
+  ['AnalysisRun', 'Analysis run'],
+  ['AnalysisSettings', 'Analysis settings'],
+  ['AuditEntry', 'Ledger'],
+  ['Flag', 'Slowing flag'],
+  ['Participant', 'Participant'],
+  ['PlannedVisit', 'Planned visit'],
+  ['Recording', 'Recording'],
+  ['Report', 'Report'],
+  ['Session', 'Sign-in session'],
+  ['Site', 'Site'],
+  ['Study', 'Study'],
+  ['StudyGroup', 'Study group'],
+  ['User', 'Account'],
+  ['Visit', 'Visit'],
+  ['VisitAnalysisOverride', 'Visit analysis settings'],
+  ['VisitReview', 'Visit review'],
+  ['WorkerToken', 'Worker token'],
 ];
 
-/** Person, action, object and date range; every change applies at once. */
+/** Person, participant, action, object and dates; every change applies at once. */
 export function LedgerFilters({
   filters,
   onChange,
@@ -31,17 +60,28 @@ export function LedgerFilters({
   filters: AuditFilters;
   onChange: (filters: AuditFilters) => void;
 }) {
+  const ability = useAppAbility();
+  // Side by side from the small breakpoint up; one under the other, full width, on a phone.
+  const narrow = Grid.useBreakpoint().sm !== true;
+  const item = { width: narrow ? '100%' : 220, marginBottom: 8 } as const;
+  const canReadParticipants = ability.can('read', 'Participant');
   const people = useAuditPeople();
+  const [participantSearch, setParticipantSearch] = useState('');
+  const participants = useLedgerParticipants(participantSearch, canReadParticipants);
+  const chosen = useLedgerParticipant(filters.participantId, canReadParticipants);
   const set = (change: Partial<AuditFilters>) => onChange({ ...filters, ...change });
-  const range: [Dayjs, Dayjs] | null =
-    filters.from !== undefined && filters.to !== undefined
-      ? [dayjs(filters.from), dayjs(filters.to)]
-      : null;
+  const participantOptions = (participants.data?.items ?? []).map((p) => ({
+    value: p.id,
+    label: p.code,
+  }));
+  if (chosen.data !== undefined && !participantOptions.some((o) => o.value === chosen.data?.id)) {
+    participantOptions.unshift({ value: chosen.data.id, label: chosen.data.code });
+  }
 
   return (
     <Form layout="vertical" component="div" style={{ marginBottom: 8 }}>
       <Flex gap={12} wrap>
-        <Form.Item label="Person" htmlFor="ledger-person" style={{ width: 240, marginBottom: 8 }}>
+        <Form.Item label="Person" htmlFor="ledger-person" style={item}>
           <Select
             id="ledger-person"
             allowClear
@@ -59,7 +99,29 @@ export function LedgerFilters({
             }))}
           />
         </Form.Item>
-        <Form.Item label="Action" htmlFor="ledger-action" style={{ width: 170, marginBottom: 8 }}>
+        {canReadParticipants && (
+          <Form.Item label="Participant" htmlFor="ledger-participant" style={item}>
+            <Select
+              id="ledger-participant"
+              allowClear
+              showSearch={{ filterOption: false, onSearch: setParticipantSearch }}
+              placeholder="Any participant (type a code)"
+              loading={participants.isLoading}
+              value={filters.participantId}
+              onChange={(participantId: string | undefined) => {
+                setParticipantSearch('');
+                set({ participantId });
+              }}
+              notFoundContent={
+                participants.error !== undefined
+                  ? 'The participants could not be loaded'
+                  : 'No participant with that code'
+              }
+              options={participantOptions}
+            />
+          </Form.Item>
+        )}
+        <Form.Item label="Action" htmlFor="ledger-action" style={item}>
           <Select
             id="ledger-action"
             allowClear
@@ -70,43 +132,47 @@ export function LedgerFilters({
             options={ACTIONS.map((action) => ({ value: action, label: action }))}
           />
         </Form.Item>
-        <Form.Item label="Object" htmlFor="ledger-object" style={{ width: 170, marginBottom: 8 }}>
+        <Form.Item label="About" htmlFor="ledger-object" style={item}>
           <Select
             id="ledger-object"
             allowClear
-            showSearch
-            placeholder="Any object"
+            showSearch={{ optionFilterProp: 'label' }}
+            placeholder="Anything"
             value={filters.objectType}
             onChange={(objectType: string | undefined) => set({ objectType })}
-            options={OBJECT_TYPES.map((type) => ({ value: type, label: type }))}
+            options={OBJECT_TYPES.map(([value, label]) => ({ value, label }))}
           />
         </Form.Item>
-        <Form.Item
-          label="Object id"
-          htmlFor="ledger-object-id"
-          style={{ width: 170, marginBottom: 8 }}
-        >
-          <Input.Search
+        <Form.Item label="Object id" htmlFor="ledger-object-id" style={item}>
+          <Input
             id="ledger-object-id"
             allowClear
-            placeholder="Any"
+            placeholder="Any (Enter to apply)"
             defaultValue={filters.objectId}
-            onSearch={(objectId) => set({ objectId: objectId.trim() || undefined })}
+            onPressEnter={(event) =>
+              set({ objectId: event.currentTarget.value.trim() || undefined })
+            }
+            onClear={() => set({ objectId: undefined })}
           />
         </Form.Item>
-        <Form.Item label="Date range" style={{ marginBottom: 8 }}>
-          <DatePicker.RangePicker
+        <Form.Item label="From date" htmlFor="ledger-from" style={item}>
+          <DatePicker
+            id="ledger-from"
+            aria-label="From date"
             format="D MMM YYYY"
-            value={range}
-            aria-label="Date range"
-            onChange={(dates) => {
-              const [start, end] = dates ?? [null, null];
-              set(
-                start !== null && end !== null
-                  ? { from: start.startOf('day').toISOString(), to: end.endOf('day').toISOString() }
-                  : { from: undefined, to: undefined },
-              );
-            }}
+            style={{ width: '100%' }}
+            value={filters.from !== undefined ? dayjs(filters.from) : null}
+            onChange={(date) => set({ from: date ? date.startOf('day').toISOString() : undefined })}
+          />
+        </Form.Item>
+        <Form.Item label="To date" htmlFor="ledger-to" style={item}>
+          <DatePicker
+            id="ledger-to"
+            aria-label="To date"
+            format="D MMM YYYY"
+            style={{ width: '100%' }}
+            value={filters.to !== undefined ? dayjs(filters.to) : null}
+            onChange={(date) => set({ to: date ? date.endOf('day').toISOString() : undefined })}
           />
         </Form.Item>
       </Flex>

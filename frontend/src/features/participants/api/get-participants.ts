@@ -1,4 +1,4 @@
-import type { Page, ParticipantView } from '@gyre/shared';
+import type { Page, ParticipantListItem } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
 
@@ -27,13 +27,14 @@ export const participantsKey = (query: ParticipantQuery) =>
     siteId: query.siteId,
   });
 
-export function getParticipants(query: ParticipantQuery): Promise<Page<ParticipantView>> {
-  return apiFetch<Page<ParticipantView>>(participantsKey(query));
+/** Each row carries its site and group names, visits, latest values, flags and report. */
+export function getParticipants(query: ParticipantQuery): Promise<Page<ParticipantListItem>> {
+  return apiFetch<Page<ParticipantListItem>>(participantsKey(query));
 }
 
 /** Keeps the last page on screen while the next one loads, so the table does not jump. */
 export function useParticipants(query: ParticipantQuery) {
-  return useSWR<Page<ParticipantView>>(participantsKey(query), () => getParticipants(query), {
+  return useSWR<Page<ParticipantListItem>>(participantsKey(query), () => getParticipants(query), {
     keepPreviousData: true,
   });
 }

@@ -54,14 +54,16 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
     expect(
       (await within(onset).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
     ).toBe('lineX lineY line point line');
-    expect(screen.getByText('PAF (-0.40 Hz/year over 2 visits (184 days))')).toBeInTheDocument();
+    expect(
+      screen.getByText('PAF (\u22120.40 Hz/year over 2 visits (184 days))'),
+    ).toBeInTheDocument();
 
     const rows = within(screen.getByRole('table', { name: 'Visits' })).getAllByRole('row');
     expect(rows).toHaveLength(4);
     // Hz to two decimals; the first visit is where the change is measured from.
     expect(rows[1]).toHaveTextContent('10.30 Hzfirst value');
-    expect(rows[2]).toHaveTextContent('10.10 Hz-0.20 Hz');
-    expect(rows[2]).toHaveTextContent('-0.25 Hz-0.15 Hz');
+    expect(rows[2]).toHaveTextContent('10.10 Hz\u22120.20 Hz');
+    expect(rows[2]).toHaveTextContent('\u22120.25 Hz\u22120.15 Hz');
     expect(within(rows[2]).getByText('flagged')).toBeInTheDocument();
     // A doubtful number says so in its row; the first visit has nothing in doubt.
     expect(within(rows[1]).getByText('nothing')).toBeInTheDocument();

@@ -12,7 +12,7 @@ import { PageHeader } from '../../../components/page-header';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { studyDayText, VisitWindowTag } from '../../../components/visit-window-tag';
-import { formatDate, formatHz } from '../../../lib/format';
+import { formatDate, formatDeltaHz, formatHz } from '../../../lib/format';
 import { useGroups } from '../api/get-groups';
 import { useParticipant } from '../api/get-participant';
 import { useParticipantVisits } from '../api/get-participant-visits';
@@ -47,10 +47,10 @@ export function visitRows(visits: VisitView[], trajectory: TrajectoryVisitDto[])
   return rows.sort((a, b) => a.date.localeCompare(b.date));
 }
 
-/** A change from the first visit, signed like every number on screen: "+0.12 Hz", "-0.30 Hz". */
+/** A change from the first visit, signed like every number on screen: "+0.12 Hz", "−0.30 Hz". */
 export function formatChange(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return value > 0 ? `+${formatHz(value)}` : formatHz(value);
+  return formatDeltaHz(value);
 }
 
 function valueWithChange(
@@ -63,7 +63,7 @@ function valueWithChange(
     <span>
       {formatHz(value)}
       <br />
-      <span style={{ color: 'rgba(29,43,47,0.6)', fontSize: 12 }}>
+      <span style={{ color: GYRE_COLORS.inkSoft, fontSize: 12 }}>
         {isFirst ? 'first value' : formatChange(change)}
       </span>
     </span>
@@ -165,6 +165,7 @@ export function ParticipantPage() {
         <Table<VisitRow>
           aria-label="Visits"
           rowKey="visitId"
+          scroll={{ x: 'max-content' }}
           size="middle"
           pagination={false}
           dataSource={rows}
@@ -240,9 +241,9 @@ export function ParticipantPage() {
               title: 'Slowing flag',
               render: (_, row) =>
                 row.numbers?.flagged === true ? (
-                  <Tag color={GYRE_COLORS.amber}>flagged</Tag>
+                  <Tag color={GYRE_COLORS.amberText}>flagged</Tag>
                 ) : (
-                  <span style={{ color: 'rgba(29,43,47,0.55)' }}>none</span>
+                  <span style={{ color: GYRE_COLORS.inkSoft }}>none</span>
                 ),
             },
             {
@@ -251,11 +252,11 @@ export function ParticipantPage() {
               title: 'In doubt',
               render: (_, row) =>
                 (row.numbers?.doubts.length ?? 0) === 0 ? (
-                  <span style={{ color: 'rgba(29,43,47,0.55)' }}>nothing</span>
+                  <span style={{ color: GYRE_COLORS.inkSoft }}>nothing</span>
                 ) : (
                   <ul
                     aria-label={`Doubts about ${row.label}`}
-                    style={{ margin: 0, paddingLeft: 16, color: GYRE_COLORS.amber }}
+                    style={{ margin: 0, paddingLeft: 16, color: GYRE_COLORS.amberText }}
                   >
                     {row.numbers?.doubts.map((doubt) => (
                       <li key={doubt}>{doubt}</li>

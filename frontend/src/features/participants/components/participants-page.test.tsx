@@ -6,24 +6,18 @@ import { meFor, SITE } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
 import { PHONE_WIDTH_PX, setViewportWidth } from '../../../test/viewport';
-import { GROUPS, participant } from '../testing/participant-fixtures';
+import { participantRow } from '../testing/participant-fixtures';
 
 installMswServer();
 
 const OTHER_SITE = { ...SITE, id: 'site-b', code: 'SOUTH', name: 'South clinic' };
 // Generated test data: 45 participants, every fifth at the second site.
-const ALL = Array.from({ length: 45 }, (_, i) => ({
-  ...participant(i + 1),
-  siteId: (i + 1) % 5 === 0 ? OTHER_SITE.id : SITE.id,
-}));
+const ALL = Array.from({ length: 45 }, (_, i) =>
+  participantRow(i + 1, (i + 1) % 5 === 0 ? OTHER_SITE : SITE),
+);
 
 /** A stand-in for the server's list: it filters, sorts and pages as the query asks. */
-function serveGroups() {
-  server.use(http.get(`/api/studies/${SITE.studyId}/groups`, () => HttpResponse.json(GROUPS)));
-}
-
 function serveParticipants(requests: URLSearchParams[]) {
-  serveGroups();
   server.use(
     http.get('/api/sites', () =>
       HttpResponse.json({ items: [SITE, OTHER_SITE], total: 2, page: 1, pageSize: 200 }),
@@ -67,7 +61,7 @@ describe('Participants', { timeout: 60_000 }, () => {
     expect(codesShown()).toHaveLength(20);
 
     // Sorted by code ascending at first, so one click asks for descending.
-    await userEvent.click(screen.getByText('Participant'));
+    await userEvent.click(screen.getByRole('columnheader', { name: 'Participant' }));
     await waitFor(() => expect(codesShown()[0]).toBe('AC-0045'));
     expect(requests.at(-1)?.get('sort')).toBe('code');
     expect(requests.at(-1)?.get('order')).toBe('desc');
@@ -84,33 +78,83 @@ describe('Participants', { timeout: 60_000 }, () => {
     expect(requests.at(-1)?.get('page')).toBe('1');
   });
 
-  it("filters by site on the server and shows each participant's site", async () => {
+  it('filters by site from the keyboard and names each site in full', async () => {
     const requests: URLSearchParams[] = [];
     serveParticipants(requests);
     renderApp('/participants', meFor('monitor'));
     expect(await screen.findByText('AC-0001', {}, { timeout: 15_000 })).toBeInTheDocument();
-    await waitFor(() => expect(screen.getAllByText(SITE.code).length).toBeGreaterThan(0));
-    await userEvent.click(screen.getByRole('button', { name: /filter/i }));
-    await userEvent.click(await screen.findByText(`${OTHER_SITE.code} · ${OTHER_SITE.name}`));
-    await userEvent.click(screen.getByRole('button', { name: 'OK' }));
+    const row = (code: string) => screen.getByText(code).closest('tr') as HTMLElement;
+    expect(row('AC-0001')).toHaveTextContent(SITE.name);
+    expect(row('AC-0005')).toHaveTextContent(OTHER_SITE.name);
+    expect(screen.queryByText(SITE.code)).not.toBeInTheDocument();
+    // The search hint is a code of this study, not an invented one.
+    expect(screen.getByLabelText('Search participant codes')).toHaveAttribute(
+      'placeholder',
+      'Search by code, e.g. AC-0001',
+    );
+    // Tab from the search field reaches the site filter.
+    screen.getByLabelText('Search participant codes').focus();
+    await userEvent.tab(); // the search button
+    await userEvent.tab();
+    const siteFilter = screen.getByRole('combobox', { name: 'Site' });
+    expect(siteFilter).toHaveFocus();
+    // (Choosing from the open list by keyboard is checked in Chromium: e2e/participants.e2e.ts.)
+    await userEvent.click(siteFilter);
+    await userEvent.click(await screen.findByTitle(OTHER_SITE.name));
     await waitFor(() => expect(requests.at(-1)?.get('siteId')).toBe(OTHER_SITE.id));
     await waitFor(() => expect(codesShown()).toHaveLength(9));
     expect(codesShown()[0]).toBe('AC-0005');
   });
 
-  it('shows enrolment date and group, and keeps them at phone width', async () => {
+  it('shows visits, latest values, open flags and the report, and fits a phone', async () => {
     setViewportWidth(PHONE_WIDTH_PX);
     serveParticipants([]);
     renderApp('/participants', meFor('analyst'));
     expect(await screen.findByText('AC-0001', {}, { timeout: 15_000 })).toBeInTheDocument();
     const headers = screen.getAllByRole('columnheader').map((h) => h.textContent);
-    expect(headers).toEqual(['Participant', 'Site', 'Enrolment', 'Group']);
-    // Even-numbered participants are enrolled on 2024-01-10: AC-0002 in Arm B, AC-0004 in Arm A.
-    const row = (code: string) => screen.getByText(code).closest('tr') as HTMLElement;
-    await waitFor(() => expect(row('AC-0002')).toHaveTextContent('Arm B'));
-    expect(row('AC-0002')).toHaveTextContent('10 Jan 2024');
-    expect(row('AC-0004')).toHaveTextContent('Arm A');
-    expect(row('AC-0001')).toHaveTextContent('—');
+    expect(headers).toEqual([
+      'Participant',
+      'Site',
+      'Group',
+      'Visits',
+      'Latest PAF',
+      'Latest Δf',
+      'Open flags',
+      'Latest visit: report',
+    ]);
+    const cells = (code: string) =>
+      within(screen.getByText(code).closest('tr') as HTMLElement)
+        .getAllByRole('cell')
+        // The formatter puts a no-break space before units: compare as plain spaces.
+        .map((cell) => (cell.textContent ?? '').replace(/\s/g, ' '));
+    // AC-0007 (participantRow(7)): 4 visits, PAF 9.07 Hz and Δf −0.07 Hz at Month 18, one
+    // open flag, revision 1 sent; Δf is written with a true minus sign (U+2212).
+    expect(cells('AC-0007')).toEqual([
+      'AC-0007',
+      SITE.name,
+      '—',
+      '4',
+      '9.07 Hz (Month 18)',
+      '\u22120.07 Hz (Month 18)',
+      '1 open',
+      'Month 18: Revision 1 sent',
+    ]);
+    // AC-0003: no visit yet. AC-0002: Arm B, a draft never signed.
+    expect(cells('AC-0003')).toEqual([
+      'AC-0003',
+      SITE.name,
+      '—',
+      '0',
+      '—',
+      '—',
+      '0',
+      'No visit yet',
+    ]);
+    expect(cells('AC-0002')).toContain('Month 12: Draft, not signed');
+    expect(cells('AC-0002')).toContain('Arm B');
+    // The table scrolls inside its own container instead of widening the page.
+    const table = screen.getByRole('table');
+    expect(table.closest('.ant-table-content, .ant-table-body')).not.toBeNull();
   });
 
   it('says so when a search finds nobody', async () => {
@@ -124,7 +168,6 @@ describe('Participants', { timeout: 60_000 }, () => {
   it('shows a failed load with a retry that works', async () => {
     // Every request fails until the user asks again, whatever SWR retries on its own.
     let userRetried = false;
-    serveGroups();
     server.use(
       http.get('/api/sites', () =>
         HttpResponse.json({ items: [SITE], total: 1, page: 1, pageSize: 200 }),

@@ -1,5 +1,5 @@
-import type { ParticipantView } from '@gyre/shared';
-import { Card, Input, Table } from 'antd';
+import type { ParticipantListItem } from '@gyre/shared';
+import { Card, Flex, Input, Select, Table } from 'antd';
 import type { TablePaginationConfig, TableProps } from 'antd';
 import { useEffect, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
@@ -7,9 +7,8 @@ import { paths } from '../../../app/paths';
 import { PageHeader } from '../../../components/page-header';
 import { ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
-import { formatDate } from '../../../lib/format';
-import { useSession } from '../../../lib/session/session-context';
-import { useGroups } from '../api/get-groups';
+import { formatDate, formatDeltaHz, formatHz } from '../../../lib/format';
+import { useAppAbility } from '../../../lib/session/ability';
 import { useSites } from '../api/get-sites';
 import {
   PARTICIPANT_SORTS,
@@ -17,6 +16,7 @@ import {
   type ParticipantQuery,
   type ParticipantSort,
 } from '../api/get-participants';
+import { FlagsCell, LatestCell, ReportCell } from './participant-columns';
 
 const PAGE_SIZES = [20, 50, 100];
 
@@ -41,11 +41,14 @@ export function ParticipantsPage() {
   const [searchText, setSearchText] = useState(query.search);
   const participants = useParticipants(query);
   const sites = useSites();
-  const { me } = useSession();
-  const groups = useGroups(me.study?.id ?? null);
-  const groupName = (groupId: string | null) =>
-    groupId === null ? '—' : (groups.data?.find((g) => g.id === groupId)?.name ?? '…');
-  const siteCode = (siteId: string) => sites.data?.find((site) => site.id === siteId)?.code ?? '…';
+  const ability = useAppAbility();
+  // The hint shows a real code of the study: the first one the unfiltered list gave.
+  const [exampleCode, setExampleCode] = useState<string | null>(null);
+  const firstCode = participants.data?.items[0]?.code;
+  // Set during render (React's pattern for state derived from what arrived), kept afterwards.
+  if (exampleCode === null && query.search === '' && firstCode !== undefined) {
+    setExampleCode(firstCode);
+  }
 
   const update = (change: Partial<ParticipantQuery>) => {
     const next = { ...query, ...change };
@@ -72,12 +75,11 @@ export function ParticipantsPage() {
   const sortOrder = (column: ParticipantSort) =>
     query.sort === column ? (query.order === 'asc' ? 'ascend' : 'descend') : null;
 
-  const onChange: TableProps<ParticipantView>['onChange'] = (
+  const onChange: TableProps<ParticipantListItem>['onChange'] = (
     pagination: TablePaginationConfig,
-    filters,
+    _filters,
     sorter,
   ) => {
-    const site = filters.site?.[0];
     const single = Array.isArray(sorter) ? sorter[0] : sorter;
     const column = single?.columnKey as ParticipantSort | undefined;
     const ordered = single?.order !== undefined && single.order !== null;
@@ -86,9 +88,6 @@ export function ParticipantsPage() {
       pageSize: pagination.pageSize ?? query.pageSize,
       sort: ordered && column !== undefined ? column : 'code',
       order: ordered && single.order === 'descend' ? 'desc' : 'asc',
-      siteId: typeof site === 'string' ? site : null,
-      // A new filter starts again from the first page.
-      ...((typeof site === 'string' ? site : null) === query.siteId ? {} : { page: 1 }),
     });
   };
 
@@ -100,15 +99,29 @@ export function ParticipantsPage() {
         description="Everyone enrolled in your study, by pseudonymous code. Open one to follow their alpha rhythm across visits."
       />
       <Card>
-        <Input.Search
-          aria-label="Search participant codes"
-          placeholder="Search by code, e.g. AC-0042"
-          allowClear
-          value={searchText}
-          onChange={(event) => setSearchText(event.target.value)}
-          onSearch={(value) => update({ search: value.trim(), page: 1 })}
-          style={{ maxWidth: 360, marginBottom: 16 }}
-        />
+        <Flex wrap gap={12} style={{ marginBottom: 16 }}>
+          <Input.Search
+            aria-label="Search participant codes"
+            placeholder={
+              exampleCode === null ? 'Search by code' : `Search by code, e.g. ${exampleCode}`
+            }
+            allowClear
+            value={searchText}
+            onChange={(event) => setSearchText(event.target.value)}
+            onSearch={(value) => update({ search: value.trim(), page: 1 })}
+            style={{ flex: '1 1 220px', maxWidth: 360 }}
+          />
+          <Select
+            aria-label="Site"
+            value={query.siteId ?? ''}
+            onChange={(value: string) => update({ siteId: value === '' ? null : value, page: 1 })}
+            options={[
+              { value: '', label: 'All sites' },
+              ...(sites.data ?? []).map((site) => ({ value: site.id, label: site.name })),
+            ]}
+            style={{ flex: '1 1 180px', maxWidth: 280 }}
+          />
+        </Flex>
         {participants.error !== undefined && participants.data === undefined ? (
           <ErrorState
             title="The participants could not be loaded"
@@ -118,9 +131,11 @@ export function ParticipantsPage() {
         ) : participants.data === undefined ? (
           <LoadingState label="Loading participants" rows={8} />
         ) : (
-          <Table<ParticipantView>
+          <Table<ParticipantListItem>
             aria-label="Participants"
             rowKey="id"
+            // Wide rows scroll inside the card, never the page (390 px phones).
+            scroll={{ x: 'max-content' }}
             loading={participants.isValidating}
             dataSource={participants.data.items}
             onChange={onChange}
@@ -156,37 +171,72 @@ export function ParticipantsPage() {
               {
                 key: 'site',
                 title: 'Site',
-                filters: (sites.data ?? []).map((site) => ({
-                  text: `${site.code} · ${site.name}`,
-                  value: site.id,
-                })),
-                filterMultiple: false,
-                filteredValue: query.siteId === null ? null : [query.siteId],
-                render: (_, row) => siteCode(row.siteId),
-              },
-              {
-                key: 'enrolmentDate',
-                title: 'Enrolment',
-                render: (_, row) => formatDate(row.enrolmentDate),
+                render: (_, row) => row.siteName,
               },
               {
                 key: 'group',
                 title: 'Group',
-                render: (_, row) => groupName(row.groupId),
+                render: (_, row) => row.groupName ?? '—',
+              },
+              {
+                key: 'visits',
+                title: 'Visits',
+                align: 'right',
+                render: (_, row) => <span className="gyre-figures">{row.visitCount}</span>,
+              },
+              ...(ability.can('read', 'Result')
+                ? [
+                    {
+                      key: 'paf',
+                      title: 'Latest PAF',
+                      render: (_: unknown, row: ParticipantListItem) => (
+                        <LatestCell value={row.latestPaf} format={formatHz} />
+                      ),
+                    },
+                    {
+                      key: 'deltaF',
+                      title: 'Latest Δf',
+                      render: (_: unknown, row: ParticipantListItem) => (
+                        <LatestCell value={row.latestDeltaF} format={formatDeltaHz} />
+                      ),
+                    },
+                  ]
+                : []),
+              ...(ability.can('read', 'Flag')
+                ? [
+                    {
+                      key: 'flags',
+                      title: 'Open flags',
+                      render: (_: unknown, row: ParticipantListItem) => (
+                        <FlagsCell count={row.openFlags} />
+                      ),
+                    },
+                  ]
+                : []),
+              ...(ability.can('read', 'Report')
+                ? [
+                    {
+                      key: 'report',
+                      title: 'Latest visit: report',
+                      render: (_: unknown, row: ParticipantListItem) => (
+                        <ReportCell latest={row.latestVisit} />
+                      ),
+                    },
+                  ]
+                : []),
+              {
+                key: 'enrolmentDate',
+                title: 'Enrolment',
+                responsive: ['md'],
+                render: (_, row) => formatDate(row.enrolmentDate),
               },
               {
                 key: 'createdAt',
                 title: 'Registered in Gyre',
-                responsive: ['md'],
+                responsive: ['lg'],
                 sorter: true,
                 sortOrder: sortOrder('createdAt'),
                 render: (_, row) => formatDate(row.createdAt),
-              },
-              {
-                key: 'updatedAt',
-                title: 'Last change',
-                responsive: ['md'],
-                render: (_, row) => formatDate(row.updatedAt),
               },
             ]}
           />

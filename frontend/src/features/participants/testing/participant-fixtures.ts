@@ -3,6 +3,7 @@ import {
   type PlannedVisitWindow,
   type StudyGroupView,
   type TrajectoryDto,
+  type ParticipantListItem,
   type ParticipantView,
   type VisitView,
 } from '@gyre/shared';
@@ -33,6 +34,52 @@ export function participant(index: number): ParticipantView {
 }
 
 export const PARTICIPANT = participant(42);
+
+/**
+ * A row of the participants list: every third participant has no visit yet; the others have
+ * `index % 4 + 1` visits, a PAF of 9 + index/100 Hz at their latest visit, a Δf of
+ * −index/100 Hz, an open flag when the index is a multiple of 7, and a report that is signed,
+ * sent or a draft in turn.
+ */
+export function participantRow(
+  index: number,
+  site: { id: string; name: string } = SITE,
+): ParticipantListItem {
+  const base = { ...participant(index), siteId: site.id };
+  const group = GROUPS.find((g) => g.id === base.groupId)?.name ?? null;
+  if (index % 3 === 0) {
+    return {
+      ...base,
+      siteName: site.name,
+      groupName: group,
+      visitCount: 0,
+      latestPaf: null,
+      latestDeltaF: null,
+      openFlags: 0,
+      latestVisit: null,
+    };
+  }
+  const visits = (index % 4) + 1;
+  const label = `Month ${(visits - 1) * 6}`;
+  const visitId = `v-${index}-${visits}`;
+  const states = ['signed', 'sent', 'draft'] as const;
+  const state = states[index % 3];
+  return {
+    ...base,
+    siteName: site.name,
+    groupName: group,
+    visitCount: visits,
+    latestPaf: { hz: 9 + index / 100, visitId, visitLabel: label },
+    latestDeltaF: { hz: -index / 100, visitId, visitLabel: label },
+    openFlags: index % 7 === 0 ? 1 : 0,
+    latestVisit: {
+      id: visitId,
+      label,
+      visitDate: '2025-06-01',
+      report: { state, latestRevision: state === 'draft' ? null : 1 },
+    },
+  };
+}
 
 /** Month 12 has a narrow window (±3 days), so its visit on day 371 is late. */
 const PLANNED: Record<string, PlannedVisitWindow> = {

@@ -3,7 +3,7 @@ import { Tag } from 'antd';
 
 const LOOK: Record<ReportState, { label: string; color: string }> = {
   draft: { label: 'Draft', color: 'default' },
-  signed: { label: 'Signed', color: '#24525A' },
+  signed: { label: 'Signed', color: 'processing' },
   sent: { label: 'Sent', color: 'success' },
 };
 

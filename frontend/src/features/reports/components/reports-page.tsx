@@ -91,7 +91,7 @@ export function ReportsPage() {
       render: (at: string) => <span className="gyre-figures">{formatDateTime(at)}</span>,
     },
     {
-      title: 'File',
+      title: 'PDF',
       key: 'file',
       width: 150,
       render: (_, report) => {
@@ -103,7 +103,7 @@ export function ReportsPage() {
             loading={downloading === report.id}
             aria-label={`Download the report of ${name}`}
           >
-            Download PDF
+            Download
           </Button>
         ) : (
           <Typography.Text type="secondary">Not signed yet</Typography.Text>
@@ -157,6 +157,7 @@ export function ReportsPage() {
             size="middle"
             loading={isLoading && data !== undefined}
             columns={columns}
+            scroll={{ x: 'max-content' }}
             dataSource={data?.items ?? []}
             pagination={{
               current: page,

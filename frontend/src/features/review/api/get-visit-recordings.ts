@@ -3,12 +3,18 @@ import type { Page, RecordingDto } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
 
-/** `GET /api/recordings?visitId=`: the visit's resting and task recordings, newest first. */
-export const visitRecordingsKey = (visitId: string) =>
+const visitRecordingsPath = (visitId: string) =>
   withQuery('/api/recordings', { visitId, pageSize: 200, sort: 'createdAt', order: 'desc' });
 
+/**
+ * `GET /api/recordings?visitId=`: the visit's resting and task recordings, newest first. The
+ * cached value is an array, so the key says so: Intake caches the same address as a page.
+ */
+export const visitRecordingsKey = (visitId: string) =>
+  ['review/visit-recordings', visitRecordingsPath(visitId)] as const;
+
 export async function getVisitRecordings(visitId: string): Promise<RecordingDto[]> {
-  const page = await apiFetch<Page<RecordingDto>>(visitRecordingsKey(visitId));
+  const page = await apiFetch<Page<RecordingDto>>(visitRecordingsPath(visitId));
   return page.items;
 }
 

@@ -1,8 +1,9 @@
 import type { ChannelQualityDto } from '@gyre/shared';
 import { Table, Tag } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
+import { formatNumber, formatShareAsPercent } from '../../../lib/format';
 
-const ratio = (value: number | null) => (value === null ? '—' : value.toFixed(2));
+const ratio = (value: number | null) => formatNumber(value, 2);
 const byNumber =
   (pick: (row: ChannelQualityDto) => number | null) =>
   (a: ChannelQualityDto, b: ChannelQualityDto) =>
@@ -36,12 +37,12 @@ export function ChannelQualityTable({
             <span>
               {row.label}
               {row.flat && (
-                <Tag color={GYRE_COLORS.amber} style={{ marginLeft: 8 }}>
+                <Tag color={GYRE_COLORS.amberText} style={{ marginLeft: 8 }}>
                   flat
                 </Tag>
               )}
               {row.saturated && (
-                <Tag color={GYRE_COLORS.amber} style={{ marginLeft: 8 }}>
+                <Tag color={GYRE_COLORS.amberText} style={{ marginLeft: 8 }}>
                   clipped
                 </Tag>
               )}
@@ -54,7 +55,9 @@ export function ChannelQualityTable({
           align: 'right',
           sorter: byNumber((r) => r.standardDeviationUv),
           render: (_, row) =>
-            row.standardDeviationUv === null ? '—' : `${row.standardDeviationUv.toFixed(1)} µV`,
+            row.standardDeviationUv === null
+              ? '—'
+              : `${formatNumber(row.standardDeviationUv, 1)}\u00a0µV`,
         },
         {
           key: 'line50',
@@ -75,8 +78,7 @@ export function ChannelQualityTable({
           title: 'Phase slips',
           align: 'right',
           sorter: byNumber((r) => r.phaseSlipShare),
-          render: (_, row) =>
-            row.phaseSlipShare === null ? '—' : `${(row.phaseSlipShare * 100).toFixed(1)} %`,
+          render: (_, row) => formatShareAsPercent(row.phaseSlipShare),
         },
       ]}
     />

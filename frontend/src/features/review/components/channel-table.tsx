@@ -2,7 +2,7 @@ import type { ChannelStatsDto, RoiUsageDto } from '@gyre/shared';
 import { Alert, Table, Tag } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
-import { formatHz } from '../../../lib/format';
+import { formatDeltaHzRange, formatHz, formatPValue } from '../../../lib/format';
 import {
   NO_ROI_CHANNEL_REMAINS,
   leftOutText,
@@ -12,14 +12,8 @@ import {
   usedInRoi,
 } from '../../../lib/roi-usage';
 
-/** p-values to three decimals, and "< 0.001" below that (common practice in reporting). */
-export function formatPValue(value: number | null): string {
-  if (value === null || !Number.isFinite(value)) return '—';
-  return value < 0.001 ? '< 0.001' : value.toFixed(3);
-}
-
 export function formatCi(ci: [number, number] | null): string {
-  return ci === null ? '—' : `${ci[0].toFixed(2)} to ${ci[1].toFixed(2)} Hz`;
+  return formatDeltaHzRange(ci);
 }
 
 /** Sorts nulls last whichever way the column is sorted by the analyst. */
@@ -78,14 +72,14 @@ export function ChannelTable({
         <span>
           {row.canonical ?? row.label}
           {row.canonical !== null && row.canonical !== row.label ? (
-            <span style={{ color: 'rgba(29,43,47,0.55)', marginLeft: 6 }}>({row.label})</span>
+            <span style={{ color: GYRE_COLORS.inkSoft, marginLeft: 6 }}>({row.label})</span>
           ) : null}
           {usedInRoi(roiUsage, row.label, row.canonical) ? (
             <Tag color={GYRE_COLORS.primary} style={{ marginLeft: 8 }}>
               ROI
             </Tag>
           ) : omission !== null ? (
-            <Tag color={GYRE_COLORS.amber} style={{ marginLeft: 8 }}>
+            <Tag color={GYRE_COLORS.amberText} style={{ marginLeft: 8 }}>
               left out of ROI: {omissionWords(omission.reason)}
             </Tag>
           ) : null}

@@ -45,7 +45,7 @@ function SuggestionBox({ suggestion }: { suggestion: FlagSuggestion | null }) {
         {text}
       </div>
       {roiNote !== null && (
-        <div style={{ marginTop: 4, color: GYRE_COLORS.amber }} data-testid="suggestion-roi">
+        <div style={{ marginTop: 4, color: GYRE_COLORS.amberText }} data-testid="suggestion-roi">
           {roiNote}
         </div>
       )}
@@ -82,7 +82,7 @@ function DecisionBox({ current, who }: { current: FlagDto | null; who: PersonRen
           'No slowing flag has been raised for this visit.'
         ) : raised ? (
           <>
-            <Tag color={GYRE_COLORS.amber}>Slowing flag raised</Tag>
+            <Tag color={GYRE_COLORS.amberText}>Slowing flag raised</Tag>
             by {who(current.raisedById)}, {formatDateTime(current.raisedAt)}:{' '}
             <q>{current.raiseReason}</q>
           </>
@@ -156,7 +156,7 @@ function FlagForm({
         htmlType="submit"
         loading={saving}
         type={raised ? 'default' : 'primary'}
-        style={raised ? undefined : { background: GYRE_COLORS.amber }}
+        style={raised ? undefined : { background: GYRE_COLORS.amberText }}
       >
         {action}
       </Button>
@@ -196,7 +196,7 @@ export function FlagPanel({
             items={earlier.flatMap((f) => [
               {
                 key: `${f.id}-raised`,
-                color: GYRE_COLORS.amber,
+                color: GYRE_COLORS.amberText,
                 content: (
                   <>
                     {formatDateTime(f.raisedAt)} raised by {who(f.raisedById)}: “{f.raiseReason}”

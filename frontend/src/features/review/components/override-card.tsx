@@ -2,12 +2,10 @@ import type { AnalysisSettingsDto, VisitAnalysisOverrideDto } from '@gyre/shared
 import { Button, Descriptions, Flex, Typography } from 'antd';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../app/paths';
-import { formatDateTime } from '../../../lib/format';
+import { formatDateTime, formatHzRange } from '../../../lib/format';
 
 const bandText = (band: [number, number] | null) =>
-  band === null
-    ? "visit's IAF ± 2 Hz (8–13 Hz without one)"
-    : `${band[0].toFixed(2)} to ${band[1].toFixed(2)} Hz`;
+  band === null ? "visit's IAF ± 2 Hz (8–13 Hz without one)" : formatHzRange(band);
 
 /**
  * The visit's own analysis choices (or that it follows the study's settings), the way to

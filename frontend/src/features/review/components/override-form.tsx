@@ -9,6 +9,7 @@ import { useState } from 'react';
 import { ApiError } from '../../../lib/api-client';
 import { ANALYSIS_OVERRIDE_UNCHANGED } from '../api/save-visit-override';
 import type { ChannelOption } from './channel-names';
+import { formatHzRange } from '../../../lib/format';
 
 export const OVERRIDE_REASON_MIN_LENGTH = 10;
 
@@ -62,7 +63,7 @@ const studyBandText = (study: StudyValues | undefined) =>
     ? "The study's band"
     : study.bandHz === null
       ? "The study's: the visit's IAF ± 2 Hz (8–13 Hz without one)"
-      : `The study's: ${study.bandHz[0].toFixed(2)} to ${study.bandHz[1].toFixed(2)} Hz`;
+      : `The study's: ${formatHzRange(study.bandHz)}`;
 
 function numberRule(test: (value: number, get: (name: 'bandLowHz') => unknown) => string | null) {
   return (({ getFieldValue }: { getFieldValue: (name: 'bandLowHz') => unknown }) => ({

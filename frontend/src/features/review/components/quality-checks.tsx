@@ -53,7 +53,7 @@ export function QualityChecks({
                 row.value
               ) : (
                 <span>
-                  <Tag color={GYRE_COLORS.amber}>check</Tag>
+                  <Tag color={GYRE_COLORS.amberText}>check</Tag>
                   {row.value}
                 </span>
               ),

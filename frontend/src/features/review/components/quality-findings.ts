@@ -1,5 +1,6 @@
 import type { QualityDto, RoiUsageDto } from '@gyre/shared';
 import { NO_ROI_CHANNEL_REMAINS, roiUsageSentence } from '../../../lib/roi-usage';
+import { formatNumber, formatSeconds, formatShareAsPercent } from '../../../lib/format';
 
 export interface QualityFinding {
   check: string;
@@ -9,11 +10,13 @@ export interface QualityFinding {
 }
 
 const list = (names: string[]) => names.join(', ');
-const percent = (share: number) => `${(share * 100).toFixed(1)} %`;
-const ratio = (value: number | null) => (value === null ? '—' : value.toFixed(2));
+const percent = (share: number) => formatShareAsPercent(share);
+const ratio = (value: number | null) => formatNumber(value, 2);
 const rates = (ratesHz: number[]) => {
   const distinct = [...new Set(ratesHz)].sort((a, b) => a - b);
-  return distinct.length === 0 ? '—' : distinct.map((r) => `${r.toFixed(0)} Hz`).join(', ');
+  return distinct.length === 0
+    ? '—'
+    : distinct.map((r) => `${formatNumber(r, 0)}\u00a0Hz`).join(', ');
 };
 
 /** Mains power this many times its neighbours' is worth a look (common practice). */
@@ -28,7 +31,7 @@ function lineNoiseWarning(quality: QualityDto): string | null {
   );
   if (worst.length === 0) return null;
   const [lineHz, value] = worst.sort((a, b) => b[1] - a[1])[0];
-  return `Strong mains noise at ${lineHz} Hz (${value.toFixed(1)} times the neighbouring power): the alpha band-pass removes it, but it often means poor electrode contact or ungrounded equipment.`;
+  return `Strong mains noise at ${lineHz} Hz (${formatNumber(value, 1)} times the neighbouring power): the alpha band-pass removes it, but it often means poor electrode contact or ungrounded equipment.`;
 }
 
 /**
@@ -46,7 +49,8 @@ export function qualityFindings(
   const findings: QualityFinding[] = [
     {
       check: 'Duration',
-      value: minutes >= 1 ? `${minutes.toFixed(1)} min` : `${quality.durationS.toFixed(1)} s`,
+      value:
+        minutes >= 1 ? `${formatNumber(minutes, 1)}\u00a0min` : formatSeconds(quality.durationS),
       warning:
         quality.durationS < 60
           ? 'The recording is shorter than a minute, so the estimates rest on little data.'
@@ -133,7 +137,7 @@ export function qualityFindings(
       value:
         quality.alphaPeakProminenceDb === null
           ? 'no clear peak'
-          : `${quality.alphaPeakProminenceDb.toFixed(1)} dB over the background`,
+          : `${formatNumber(quality.alphaPeakProminenceDb, 1)}\u00a0dB over the background`,
       warning:
         quality.alphaPeakProminenceDb === null
           ? 'No alpha peak stands out of the background, so the PAF is not given; the CoG still is.'

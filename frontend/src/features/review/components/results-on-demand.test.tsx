@@ -90,12 +90,13 @@ describe('the trial raster, loaded by its chart', { timeout: 30_000 }, () => {
       http.get(RASTER_PATH, () =>
         fail
           ? HttpResponse.json(
+              // A server failure: worth trying again (a 404 would not be; page-states.tsx).
               {
-                statusCode: 404,
-                code: 'ANALYSIS_RUN_NOT_FOUND',
+                statusCode: 503,
+                code: 'UNAVAILABLE',
                 message: 'No run run-task of recording rec-task.',
               },
-              { status: 404 },
+              { status: 503 },
             )
           : HttpResponse.json(TASK_RASTER),
       ),

@@ -82,7 +82,7 @@ describe('Review: what the numbers rest on', { timeout: 60_000 }, () => {
       'Suggests a slowing flag',
     );
     expect(screen.getByTestId('roi-delta-f')).toHaveTextContent(
-      '-0.31 Hz' + 'from EEG O1-REF, EEG Pz-REF only',
+      '\u22120.31 Hz' + 'from EEG O1-REF, EEG Pz-REF only',
     );
   });
 

@@ -1,4 +1,5 @@
-import type { Role } from '@gyre/shared';
+import type { ReportSignOffDto, Role } from '@gyre/shared';
+import { SIGNATURE_MEANING } from '@gyre/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
@@ -7,7 +8,7 @@ import { installCanvasMock } from '../../../components/charts/testing/canvas-moc
 import { meFor } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
-import { NO_FLAG, PARTICIPANT, VISIT } from '../testing/review-fixtures';
+import { NO_FLAG, PARTICIPANT, recording, REPORT, VISIT } from '../testing/review-fixtures';
 import { serveReview } from '../testing/serve-review';
 
 // jsdom has no canvas for the chart library: a stand-in shows which marks would be drawn.
@@ -38,7 +39,7 @@ describe('Review', { timeout: 60_000 }, () => {
     await openReview('analyst');
     expect(screen.getByRole('note', { name: 'Research use caution' })).toBeInTheDocument();
     // −0.3125 Hz to two decimals (the rounding of Number.prototype.toFixed).
-    expect(screen.getByTestId('roi-delta-f')).toHaveTextContent('-0.31 Hz');
+    expect(screen.getByTestId('roi-delta-f')).toHaveTextContent('\u22120.31 Hz');
     expect(await screen.findByTestId('rest-paf')).toHaveTextContent('PAF 10.24 Hz');
     const onset = screen.getByRole('figure', { name: 'Onset curve' });
     expect(
@@ -59,7 +60,13 @@ describe('Review', { timeout: 60_000 }, () => {
     expect(
       screen.getByRole('group', { name: 'Instantaneous frequency (Hz) colour legend' }),
     ).toHaveTextContent('8.0 Hz');
-    expect(screen.getByText('Report: draft')).toBeInTheDocument();
+    // The header chip and the report card read the same sign-off answer.
+    expect(await screen.findByTestId('report-state-chip')).toHaveTextContent(
+      'Report: Draft, not signed yet',
+    );
+    expect(await screen.findByTestId('report-state-card')).toHaveTextContent(
+      'Draft, not signed yet',
+    );
   });
 
   it("gives the analyst the flag form and the visit's own choices, but no study-wide settings form", async () => {
@@ -203,6 +210,93 @@ describe('Review', { timeout: 60_000 }, () => {
     expect(
       await screen.findByText(`Review · ${PARTICIPANT.code} · ${VISIT.label}`),
     ).toBeInTheDocument();
+  });
+
+  it('says one report state in the header chip and the card: a new revision after a sent one', async () => {
+    serveVisit();
+    const sent = {
+      id: 'rev-1',
+      revision: 1,
+      state: 'sent',
+      signerName: 'Ana Lyst',
+      signedAt: '2025-03-01T10:00:00.000Z',
+      meaning: SIGNATURE_MEANING,
+    } as ReportSignOffDto['revisions'][number];
+    server.use(
+      http.get(`/api/visits/${VISIT.id}/report`, () =>
+        HttpResponse.json({ ...REPORT, state: 'sent' }),
+      ),
+      http.get(`/api/visits/${VISIT.id}/report/sign-off`, () =>
+        HttpResponse.json({
+          report: { ...REPORT, state: 'sent' },
+          meaning: SIGNATURE_MEANING,
+          draftFingerprint: 'f'.repeat(64),
+          pendingRevision: 2,
+          canSign: true,
+          cannotSignReason: null,
+          revisions: [sent],
+        } satisfies ReportSignOffDto),
+      ),
+    );
+    renderApp(`/review/${VISIT.id}`, meFor('analyst'));
+    const words = 'Revision 2 awaits signing (revision 1 sent)';
+    expect(
+      await screen.findByTestId('report-state-chip', {}, { timeout: 15_000 }),
+    ).toHaveTextContent(`Report: ${words}`);
+    expect(
+      await screen.findByTestId('report-state-card', {}, { timeout: 15_000 }),
+    ).toHaveTextContent(words);
+    expect(screen.queryByText(/Report: sent/)).not.toBeInTheDocument();
+  });
+
+  it('shows one state notice per recording while it is computed again', async () => {
+    serveReview({
+      recordings: [
+        { ...recording('task', 'run-task'), state: 'queued' },
+        { ...recording('resting', 'run-rest'), state: 'computing', progressPercent: 40 },
+      ],
+    });
+    renderApp(`/review/${VISIT.id}`, meFor('analyst'));
+    const task = await screen.findByLabelText('Task results', {}, { timeout: 15_000 });
+    await within(task).findByTestId('roi-delta-f', {}, { timeout: 15_000 });
+    const notices = within(task).getAllByRole('status', { name: 'Recording state' });
+    expect(notices).toHaveLength(1);
+    expect(notices[0]).toHaveTextContent(
+      'Waiting for its turn to be computed again; the previous results stay below until then.',
+    );
+    expect(task).not.toHaveTextContent('Computing again');
+    const rest = screen.getByLabelText('Rest results');
+    await waitFor(() =>
+      expect(within(rest).getAllByRole('status', { name: 'Recording state' })).toHaveLength(1),
+    );
+    expect(
+      within(rest)
+        .getByRole('status', { name: 'Recording state' })
+        .textContent?.replace(/\s/g, ' '),
+    ).toContain('Computing again: 40 % done; these are the previous results.');
+  });
+
+  it('says a missing visit does not exist, with a way back and no "Try again"', async () => {
+    serveVisit();
+    server.use(
+      http.get(`/api/visits/${VISIT.id}`, () =>
+        HttpResponse.json(
+          { statusCode: 404, code: 'VISIT_NOT_FOUND', message: 'No visit.', details: null },
+          { status: 404 },
+        ),
+      ),
+    );
+    renderApp(`/review/${VISIT.id}`, meFor('analyst'));
+    expect(
+      await screen.findByText(
+        'This visit does not exist or you cannot open it',
+        {},
+        { timeout: 15_000 },
+      ),
+    ).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Try again' })).not.toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Back to the start' })).toHaveAttribute('href', '/');
+    expect(screen.getByRole('note', { name: 'Research use caution' })).toBeInTheDocument();
   });
 
   it('is not available to a technician, who may not see results', async () => {

@@ -1,5 +1,5 @@
 import type { RecordingDto, RecordingKind, RecordingResultsDto } from '@gyre/shared';
-import { Alert, App, Button, Card, Col, Descriptions, Flex, Row, Skeleton, Tabs, Tag } from 'antd';
+import { App, Button, Card, Col, Descriptions, Flex, Row, Skeleton, Tabs, Tag } from 'antd';
 import { useEffect, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
@@ -111,8 +111,7 @@ function ResultsOf({
     <>
       {IN_PROGRESS.has(recording.state) && (
         <div style={{ marginBottom: 12 }}>
-          <Alert type="info" showIcon title="Computing again; these are the previous results." />
-          <RecordingStateNotice recording={recording} />
+          <RecordingStateNotice recording={recording} previousShown />
         </div>
       )}
       {children(results.data, recording)}
@@ -120,14 +119,20 @@ function ResultsOf({
   );
 }
 
+/** Card titles wrap at phone width instead of being cut with an ellipsis. */
+const WRAPPING_TITLE = { title: { whiteSpace: 'normal', overflowWrap: 'anywhere' } } as const;
+
 /**
  * `reportPanel` draws the report card's body (the app passes the sign-off feature's panel);
  * `watch` changes whenever the visit's flag does, so the panel can reload.
  */
 export function ReviewPage({
   reportPanel,
+  reportStatus,
 }: {
   reportPanel?: (visitId: string, watch: unknown) => React.ReactNode;
+  /** The header's report chip (the app passes the sign-off feature's, read from the same data as the panel). */
+  reportStatus?: (visitId: string) => React.ReactNode;
 } = {}) {
   const { visitId = '' } = useParams();
   const { me } = useSession();
@@ -176,6 +181,8 @@ export function ReviewPage({
         <ResearchCaution />
         <ErrorState
           title="This visit could not be loaded"
+          notFoundTitle="This visit does not exist or you cannot open it"
+          back={{ to: paths.home, label: 'Back to the start' }}
           error={visit.error}
           onRetry={() => void visit.mutate()}
         />
@@ -210,16 +217,12 @@ export function ReviewPage({
           </Flex>
         }
         extra={
-          <>
-            {report.data !== undefined && report.data !== null && (
-              <Tag color={report.data.state === 'draft' ? 'default' : '#24525A'}>
-                Report: {report.data.state}
-              </Tag>
-            )}
+          <Flex wrap gap={8} align="center">
+            {report.data !== undefined && report.data !== null && reportStatus?.(visitId)}
             <Link to={paths.participant(visit.data.participantId)}>
               <Button>Trajectory of {code}</Button>
             </Link>
-          </>
+          </Flex>
         }
       />
       {recordings.error !== undefined ? (
@@ -233,10 +236,14 @@ export function ReviewPage({
       ) : (
         <>
           <VisitSources task={task} rest={rest} all={recordings.data} />
-          <Row gutter={[20, 20]}>
+          <Row gutter={[{ xs: 0, xl: 20 }, 20]}>
             <Col xs={24} xl={16}>
               <Flex vertical gap={20}>
-                <Card title="Onset: task recording" aria-label="Task results">
+                <Card
+                  styles={WRAPPING_TITLE}
+                  title="Onset: task recording"
+                  aria-label="Task results"
+                >
                   <ResultsOf recording={task} kindName="task">
                     {(results, recording) => (
                       <>
@@ -302,6 +309,7 @@ export function ReviewPage({
                   </ResultsOf>
                 </Card>
                 <Card
+                  styles={WRAPPING_TITLE}
                   title="Individual alpha frequency: resting recording"
                   aria-label="Rest results"
                 >
@@ -326,14 +334,18 @@ export function ReviewPage({
                     )}
                   </ResultsOf>
                 </Card>
-                <Card title="Per channel: task" aria-label="Per-channel results">
+                <Card
+                  styles={WRAPPING_TITLE}
+                  title="Per channel: task"
+                  aria-label="Per-channel results"
+                >
                   <ResultsOf recording={task} kindName="task">
                     {(results) => (
                       <ChannelTable channels={results.channels} roiUsage={results.run.roiUsage} />
                     )}
                   </ResultsOf>
                 </Card>
-                <Card title="Quality checks" aria-label="Quality checks">
+                <Card styles={WRAPPING_TITLE} title="Quality checks" aria-label="Quality checks">
                   <Tabs
                     items={[
                       {
@@ -374,7 +386,11 @@ export function ReviewPage({
             <Col xs={24} xl={8}>
               <Flex vertical gap={20}>
                 {ability.can('read', 'VisitReview') && (
-                  <Card title="Review of this visit" aria-label="Review of this visit">
+                  <Card
+                    styles={WRAPPING_TITLE}
+                    title="Review of this visit"
+                    aria-label="Review of this visit"
+                  >
                     {review.error !== undefined ? (
                       <ErrorState
                         title="The review state could not be loaded"
@@ -401,7 +417,7 @@ export function ReviewPage({
                     )}
                   </Card>
                 )}
-                <Card title="Slowing flag" aria-label="Slowing flag">
+                <Card styles={WRAPPING_TITLE} title="Slowing flag" aria-label="Slowing flag">
                   {flag.error !== undefined ? (
                     <ErrorState
                       title="The flag could not be loaded"
@@ -432,7 +448,11 @@ export function ReviewPage({
                   )}
                 </Card>
                 {canReadSettings && (
-                  <Card title="This visit's analysis choices" aria-label="Visit analysis choices">
+                  <Card
+                    styles={WRAPPING_TITLE}
+                    title="This visit's analysis choices"
+                    aria-label="Visit analysis choices"
+                  >
                     {override.error !== undefined ? (
                       <ErrorState
                         title="The visit's choices could not be loaded"
@@ -451,7 +471,7 @@ export function ReviewPage({
                     )}
                   </Card>
                 )}
-                <Card title="Report" aria-label="Report">
+                <Card styles={WRAPPING_TITLE} title="Report" aria-label="Report">
                   {report.error !== undefined ? (
                     <ErrorState
                       title="The report could not be loaded"

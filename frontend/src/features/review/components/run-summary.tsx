@@ -1,9 +1,9 @@
 import type { AnalysisRunDto } from '@gyre/shared';
 import { Descriptions, Tag, Typography } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
-import { formatDateTime, formatHz } from '../../../lib/format';
+import { formatDateTime, formatHz, formatHzRange, formatPValue } from '../../../lib/format';
 import { NO_ROI_CHANNEL_REMAINS } from '../../../lib/roi-usage';
-import { formatCi, formatPValue } from './channel-table';
+import { formatCi } from './channel-table';
 import { TRIGGER_WORDS } from './run-words';
 
 const BAND_SOURCE: Record<AnalysisRunDto['bandSource'], string> = {
@@ -16,7 +16,7 @@ const BAND_SOURCE: Record<AnalysisRunDto['bandSource'], string> = {
 function RoiDeltaF({ run }: { run: AnalysisRunDto }) {
   if (run.roiUsage.status === 'none') {
     return (
-      <Typography.Text data-testid="roi-delta-f" style={{ color: GYRE_COLORS.amber }}>
+      <Typography.Text data-testid="roi-delta-f" style={{ color: GYRE_COLORS.amberText }}>
         — ({NO_ROI_CHANNEL_REMAINS})
       </Typography.Text>
     );
@@ -25,7 +25,7 @@ function RoiDeltaF({ run }: { run: AnalysisRunDto }) {
     <span data-testid="roi-delta-f">
       {formatHz(run.roiDeltaFHz)}
       {run.roiUsage.status === 'partial' && (
-        <Tag color={GYRE_COLORS.amber} style={{ marginLeft: 8 }}>
+        <Tag color={GYRE_COLORS.amberText} style={{ marginLeft: 8 }}>
           from {run.roiUsage.used.join(', ')} only
         </Tag>
       )}
@@ -35,7 +35,7 @@ function RoiDeltaF({ run }: { run: AnalysisRunDto }) {
 
 /** The headline numbers of a run, and the settings they were computed with. */
 export function RunSummary({ run }: { run: AnalysisRunDto }) {
-  const band = `${run.bandHz[0].toFixed(2)}–${run.bandHz[1].toFixed(2)} Hz (${BAND_SOURCE[run.bandSource]})`;
+  const band = `${formatHzRange(run.bandHz)} (${BAND_SOURCE[run.bandSource]})`;
   const items =
     run.kind === 'task'
       ? [

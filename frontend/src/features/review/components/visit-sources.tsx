@@ -10,7 +10,7 @@ const KIND_NAMES: Record<RecordingKind, string> = { task: 'task', resting: 'rest
 const OTHER_KIND: Record<RecordingKind, RecordingKind> = { task: 'resting', resting: 'task' };
 
 function Doubt({ children }: { children: React.ReactNode }) {
-  return <div style={{ color: GYRE_COLORS.amber }}>{children}</div>;
+  return <div style={{ color: GYRE_COLORS.amberText }}>{children}</div>;
 }
 
 /** Which earlier recording this one replaced, and why. */

@@ -87,6 +87,7 @@ export function recording(kind: 'task' | 'resting', runId: string): RecordingDto
     state: 'ready',
     checksumSha256: 'a'.repeat(64),
     sizeBytes: 1_000_000,
+    fileName: `${kind}.edf`,
     progressPercent: 100,
     facts: null,
     rejection: null,

@@ -1,4 +1,4 @@
-import type { ReportRevisionDto, ReportState } from '@gyre/shared';
+import type { ReportRevisionDto } from '@gyre/shared';
 import { App, Button, Flex, List, Skeleton, Tag, Typography } from 'antd';
 import { useEffect, useState } from 'react';
 import { ErrorState } from '../../../components/page-states';
@@ -7,13 +7,10 @@ import { formatDateTime } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSignOff } from '../api/get-sign-off';
 import { downloadRevision } from '../api/report-revisions';
-import { SignReportDialog } from './sign-report-dialog';
+import { reportStatusOf } from './report-status';
 
-const STATE_LOOK: Record<ReportState, { label: string; color: string }> = {
-  draft: { label: 'Draft', color: 'default' },
-  signed: { label: 'Signed', color: '#24525A' },
-  sent: { label: 'Sent to coordinators', color: 'success' },
-};
+export { ReportStatusTag } from './report-status';
+import { SignReportDialog } from './sign-report-dialog';
 
 /** One signed revision with its signature and a download. */
 function RevisionItem({ revision }: { revision: ReportRevisionDto }) {
@@ -39,7 +36,7 @@ function RevisionItem({ revision }: { revision: ReportRevisionDto }) {
           onClick={() => void download()}
           aria-label={`Download revision ${revision.revision}`}
         >
-          PDF
+          Download
         </Button>,
       ]}
     >
@@ -91,7 +88,8 @@ export function ReportSignOff({ visitId, watch }: { visitId: string; watch?: unk
 
   // The report is in the user's scope (the server answered it): the type-level rule decides.
   const maySign = ability.can('sign', 'Report');
-  const look = STATE_LOOK[data.report.state];
+  // The same words as Review's header chip (reportStatusOf): one state, one wording.
+  const status = reportStatusOf(data);
   const open = async (mode: 'preview' | 'sign') => {
     await mutate();
     setDialog(mode);
@@ -100,12 +98,14 @@ export function ReportSignOff({ visitId, watch }: { visitId: string; watch?: unk
   return (
     <Flex vertical gap={12}>
       <div>
-        <Tag color={look.color}>{look.label}</Tag>
-        {data.pendingRevision !== null
-          ? data.revisions.length === 0
-            ? 'Not signed yet.'
-            : `Changed since revision ${data.revisions[0].revision}: revision ${data.pendingRevision} awaits signing.`
-          : data.cannotSignReason}
+        <Tag color={status.color} style={{ whiteSpace: 'normal' }} data-testid="report-state-card">
+          {status.words}
+        </Tag>
+        {data.pendingRevision === null && data.cannotSignReason !== null && (
+          <Typography.Paragraph type="secondary" style={{ margin: '8px 0 0' }}>
+            {data.cannotSignReason}
+          </Typography.Paragraph>
+        )}
       </div>
       <Flex gap={8} wrap>
         <Button disabled={data.draftFingerprint === null} onClick={() => void open('preview')}>

@@ -122,7 +122,7 @@ describe('ReportSignOff', () => {
       }),
     );
     renderWith('analyst', <ReportSignOff visitId={VISIT} />);
-    expect(await screen.findByText('Not signed yet.')).toBeInTheDocument();
+    expect(await screen.findByText('Draft, not signed yet')).toBeInTheDocument();
     await user.click(screen.getByRole('button', { name: 'Preview and sign revision 1' }));
 
     const dialog = await screen.findByRole('dialog');
@@ -220,7 +220,7 @@ describe('ReportSignOff', () => {
     );
     renderWith('monitor', <ReportSignOff visitId={VISIT} />);
     expect(
-      await screen.findByText('Changed since revision 1: revision 2 awaits signing.'),
+      await screen.findByText('Revision 2 awaits signing (revision 1 sent)'),
     ).toBeInTheDocument();
     expect(screen.getByRole('button', { name: 'Preview draft' })).toBeEnabled();
     expect(screen.queryByRole('button', { name: /sign/i })).not.toBeInTheDocument();
@@ -258,11 +258,13 @@ describe('SignedReports', () => {
     const linked = await screen.findByRole('region', { name: 'The report you were sent' });
     expect(linked).toHaveTextContent('AC-0042, V2');
     expect(linked).toHaveTextContent('revision 1');
-    const rows = await screen.findAllByRole('button', { name: /Download AC-0042 V2 revision/ });
+    const rows = await screen.findAllByRole('button', {
+      name: /Download PDF: AC-0042 V2 revision/,
+    });
     expect(rows.map((b) => b.getAttribute('aria-label'))).toEqual([
-      'Download AC-0042 V2 revision 1',
-      'Download AC-0042 V2 revision 2',
-      'Download AC-0042 V2 revision 1',
+      'Download PDF: AC-0042 V2 revision 1',
+      'Download PDF: AC-0042 V2 revision 2',
+      'Download PDF: AC-0042 V2 revision 1',
     ]);
     await user.click(
       within(linked).getByRole('button', { name: 'Download AC-0042 V2 revision 1' }),

@@ -59,7 +59,7 @@ function LinkedRevision({ revisionId }: { revisionId: string }) {
         size="small"
         loading={busy === data.id}
         onClick={() => void download(data)}
-        aria-label={`Download ${nameOf(data)}`}
+        aria-label={`Download PDF: ${nameOf(data)}`}
       >
         Download PDF
       </Button>
@@ -116,7 +116,7 @@ export function SignedReports() {
           size="small"
           loading={busy === r.id}
           onClick={() => void download(r)}
-          aria-label={`Download ${nameOf(r)}`}
+          aria-label={`Download PDF: ${nameOf(r)}`}
         >
           Download PDF
         </Button>
@@ -137,6 +137,7 @@ export function SignedReports() {
         ) : (
           <Table<ReportRevisionDto>
             rowKey="id"
+            scroll={{ x: 'max-content' }}
             size="middle"
             loading={isLoading}
             columns={columns}

@@ -1,6 +1,8 @@
 import { OVERVIEW_MEASURES, type OverviewStat, type StudyOverviewDto } from '@gyre/shared';
 import { Table } from 'antd';
+import { ScrollRegion } from '../../../components/scroll-region';
 import { splitEntries, statsOf, type OverviewSplit } from './overview-spec';
+import { formatNumber } from '../../../lib/format';
 
 interface Row {
   id: string;
@@ -9,7 +11,7 @@ interface Row {
   stats: Partial<Record<OverviewStat['measure'], OverviewStat>>;
 }
 
-const hz = (v: number) => v.toFixed(2);
+const hz = (v: number) => formatNumber(v, 2);
 
 function statText(s: OverviewStat | undefined): string {
   if (s === undefined || s.mean === null) return '—';
@@ -41,26 +43,29 @@ export function GroupMeansTable({
     })),
   );
   return (
-    <Table<Row>
-      aria-label={`Means by ${split}`}
-      rowKey="id"
-      size="small"
-      pagination={false}
-      scroll={{ x: 'max-content' }}
-      dataSource={rows}
-      columns={[
-        { key: 'name', title: split === 'group' ? 'Group' : 'Site', dataIndex: 'name' },
-        { key: 'visit', title: 'Planned visit', dataIndex: 'visit' },
-        ...OVERVIEW_MEASURES.map((m) => ({
-          key: m,
-          title: m === 'paf' ? 'PAF' : m === 'cog' ? 'CoG' : 'Δf',
-          render: (_: unknown, row: Row) => (
-            <span className="gyre-figures" style={{ whiteSpace: 'nowrap' }}>
-              {statText(row.stats[m])}
-            </span>
-          ),
-        })),
-      ]}
-    />
+    <ScrollRegion label={`Means by ${split}, table`}>
+      <Table<Row>
+        aria-label={`Means by ${split}`}
+        rowKey="id"
+        size="small"
+        pagination={false}
+        tableLayout="auto"
+        style={{ width: 'max-content', minWidth: '100%', maxWidth: 'none' }}
+        dataSource={rows}
+        columns={[
+          { key: 'name', title: split === 'group' ? 'Group' : 'Site', dataIndex: 'name' },
+          { key: 'visit', title: 'Planned visit', dataIndex: 'visit' },
+          ...OVERVIEW_MEASURES.map((m) => ({
+            key: m,
+            title: m === 'paf' ? 'PAF' : m === 'cog' ? 'CoG' : 'Δf',
+            render: (_: unknown, row: Row) => (
+              <span className="gyre-figures" style={{ whiteSpace: 'nowrap' }}>
+                {statText(row.stats[m])}
+              </span>
+            ),
+          })),
+        ]}
+      />
+    </ScrollRegion>
   );
 }

@@ -1,68 +1,75 @@
 import type { SiteQuality } from '@gyre/shared';
 import { Table, Typography } from 'antd';
+import { ScrollRegion } from '../../../components/scroll-region';
+import { formatNumber, formatShareAsPercent } from '../../../lib/format';
 
-const share = (v: number | null) => (v === null ? '—' : `${(v * 100).toFixed(1)} %`);
-const ratio = (v: number | null) => (v === null ? '—' : v.toFixed(2));
+const share = (v: number | null) => formatShareAsPercent(v);
+const ratio = (v: number | null) => formatNumber(v, 2);
 
 /** Per site: rejection rate and the quality figures of its current runs, for monitors. */
 export function SiteQualityTable({ sites }: { sites: SiteQuality[] }) {
   return (
     <>
-      <Table<SiteQuality>
-        aria-label="Site quality"
-        rowKey="siteId"
-        size="small"
-        pagination={false}
-        scroll={{ x: 'max-content' }}
-        dataSource={sites}
-        locale={{ emptyText: 'No site to compare yet.' }}
-        columns={[
-          { key: 'site', title: 'Site', render: (_, s) => s.siteName },
-          {
-            key: 'rejection',
-            title: 'Rejected uploads',
-            render: (_, s) => (
-              <span className="gyre-figures">
-                {share(s.rejectionRate)} ({s.rejected} of {s.uploads})
-              </span>
-            ),
-          },
-          {
-            key: 'epochs',
-            title: 'Epochs dropped',
-            render: (_, s) => <span className="gyre-figures">{share(s.epochsDroppedShare)}</span>,
-          },
-          {
-            key: 'line',
-            title: 'Line noise 50 / 60 Hz',
-            render: (_, s) => (
-              <span className="gyre-figures">
-                {ratio(s.lineNoiseRatio50Hz)} / {ratio(s.lineNoiseRatio60Hz)}
-              </span>
-            ),
-          },
-          {
-            key: 'slips',
-            title: 'Phase slips',
-            render: (_, s) => <span className="gyre-figures">{share(s.phaseSlipShare)}</span>,
-          },
-          {
-            key: 'roi',
-            title: 'ROI channels lost',
-            render: (_, s) => (
-              <span className="gyre-figures">
-                {s.roiChannelsLost === null ? '—' : `${s.roiChannelsLost.toFixed(1)} per run`}
-                {s.runsWithoutRoi > 0 && ` · ${s.runsWithoutRoi} without any`}
-              </span>
-            ),
-          },
-          {
-            key: 'runs',
-            title: 'Runs',
-            render: (_, s) => <span className="gyre-figures">{s.runs}</span>,
-          },
-        ]}
-      />
+      <ScrollRegion label="Site quality table">
+        <Table<SiteQuality>
+          aria-label="Site quality"
+          rowKey="siteId"
+          size="small"
+          pagination={false}
+          tableLayout="auto"
+          style={{ width: 'max-content', minWidth: '100%', maxWidth: 'none' }}
+          dataSource={sites}
+          locale={{ emptyText: 'No site to compare yet.' }}
+          columns={[
+            { key: 'site', title: 'Site', render: (_, s) => s.siteName },
+            {
+              key: 'rejection',
+              title: 'Rejected uploads',
+              render: (_, s) => (
+                <span className="gyre-figures">
+                  {share(s.rejectionRate)} ({s.rejected} of {s.uploads})
+                </span>
+              ),
+            },
+            {
+              key: 'epochs',
+              title: 'Epochs dropped',
+              render: (_, s) => <span className="gyre-figures">{share(s.epochsDroppedShare)}</span>,
+            },
+            {
+              key: 'line',
+              title: 'Line noise 50 / 60 Hz',
+              render: (_, s) => (
+                <span className="gyre-figures">
+                  {ratio(s.lineNoiseRatio50Hz)} / {ratio(s.lineNoiseRatio60Hz)}
+                </span>
+              ),
+            },
+            {
+              key: 'slips',
+              title: 'Phase slips',
+              render: (_, s) => <span className="gyre-figures">{share(s.phaseSlipShare)}</span>,
+            },
+            {
+              key: 'roi',
+              title: 'ROI channels lost',
+              render: (_, s) => (
+                <span className="gyre-figures">
+                  {s.roiChannelsLost === null
+                    ? '—'
+                    : `${formatNumber(s.roiChannelsLost, 1)} per run`}
+                  {s.runsWithoutRoi > 0 && ` · ${s.runsWithoutRoi} without any`}
+                </span>
+              ),
+            },
+            {
+              key: 'runs',
+              title: 'Runs',
+              render: (_, s) => <span className="gyre-figures">{s.runs}</span>,
+            },
+          ]}
+        />
+      </ScrollRegion>
       <Typography.Paragraph type="secondary" style={{ fontSize: 13, marginTop: 12 }}>
         Rejected uploads: files refused at upload among every file uploaded at the site (replaced
         ones included). Over the current runs (docs/method.md, quality checks): epochs dropped is

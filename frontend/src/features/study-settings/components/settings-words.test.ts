@@ -6,7 +6,7 @@ describe('settings in words', () => {
     expect(settingValueText('postWindowS', [0.2, 0.8])).toBe('0.20 to 0.80 s');
     expect(settingValueText('bandHz', [8, 12.5])).toBe('8.00 to 12.50 Hz');
     expect(settingValueText('rejectionThresholdUv', 150)).toBe('150 µV');
-    expect(settingValueText('flagThresholdHz', -0.25)).toBe('Δf ≤ -0.25 Hz');
+    expect(settingValueText('flagThresholdHz', -0.25)).toBe('Δf ≤ −0.25 Hz');
     expect(settingValueText('morletCycles', 7)).toBe('7 cycles');
   });
 

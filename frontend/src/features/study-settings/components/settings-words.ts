@@ -1,4 +1,5 @@
 import type { AnalysisSettingsValues, SettingsFieldChange } from '@gyre/shared';
+import { formatNumber } from '../../../lib/format';
 
 type Field = keyof AnalysisSettingsValues;
 
@@ -21,9 +22,9 @@ const isPair = (value: unknown): value is [number, number] =>
   value.length === 2 &&
   value.every((n) => typeof n === 'number' && Number.isFinite(n));
 
-const fixed = (value: number, decimals: number) => value.toFixed(decimals);
+const fixed = (value: number, decimals: number) => formatNumber(value, decimals);
 
-/** One setting's value in words with its unit, e.g. `0.20 to 0.80 s`, `100 µV`, `Δf ≤ -0.20 Hz`. */
+/** One setting's value in words with its unit, e.g. `0.20 to 0.80 s`, `100 µV`, `Δf ≤ −0.20 Hz`. */
 export function settingValueText(field: Field, value: unknown): string {
   switch (field) {
     case 'bandHz':

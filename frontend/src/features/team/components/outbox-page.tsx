@@ -3,14 +3,17 @@ import { Card, Segmented, Table, Tag, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
 import { PageHeader } from '../../../components/page-header';
+import { ScrollRegion } from '../../../components/scroll-region';
 import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { formatDateTime } from '../../../lib/format';
 import { useOutbox } from '../api/outbox';
+import { GYRE_COLORS } from '../../../app/theme';
 
 const STATE_LOOK: Record<OutboxState, { label: string; color: string }> = {
-  queued: { label: 'Queued', color: 'blue' },
+  // Status colours of the theme: each reads at ≥ 4.5:1 on its tint (app/theme.test.ts).
+  queued: { label: 'Queued', color: 'processing' },
   sent: { label: 'Sent', color: 'success' },
-  failed: { label: 'Failed', color: '#C77C02' },
+  failed: { label: 'Failed', color: 'error' },
 };
 
 const columns: TableColumnsType<OutboxMessageView> = [
@@ -20,8 +23,8 @@ const columns: TableColumnsType<OutboxMessageView> = [
     width: 190,
     render: (at: string) => <span className="gyre-figures">{formatDateTime(at)}</span>,
   },
-  { title: 'To', dataIndex: 'to', width: 240, ellipsis: true },
-  { title: 'Subject', dataIndex: 'subject', ellipsis: true },
+  { title: 'To', dataIndex: 'to' },
+  { title: 'Subject', dataIndex: 'subject' },
   {
     title: 'State',
     dataIndex: 'state',
@@ -45,7 +48,7 @@ const columns: TableColumnsType<OutboxMessageView> = [
       message.state === 'sent' ? (
         <span className="gyre-figures">{formatDateTime(message.sentAt)}</span>
       ) : message.lastError !== null ? (
-        <Typography.Text style={{ color: '#C77C02' }}>
+        <Typography.Text style={{ color: GYRE_COLORS.amberText }}>
           {message.lastError}
           {message.nextAttemptAt !== null && ` Next try ${formatDateTime(message.nextAttemptAt)}.`}
         </Typography.Text>
@@ -96,28 +99,32 @@ export function OutboxPage() {
             title="The outbox could not be loaded"
           />
         ) : (
-          <Table<OutboxMessageView>
-            rowKey="id"
-            size="middle"
-            loading={isLoading && data !== undefined}
-            columns={columns}
-            dataSource={data?.items ?? []}
-            pagination={{
-              current: page,
-              pageSize: PAGE_SIZE,
-              total: data?.total ?? 0,
-              showSizeChanger: false,
-              hideOnSinglePage: true,
-              onChange: setPage,
-            }}
-            locale={{
-              emptyText: isLoading ? (
-                <TableSkeleton />
-              ) : (
-                <EmptyState description="No e-mail yet." />
-              ),
-            }}
-          />
+          <ScrollRegion label="Messages">
+            <Table<OutboxMessageView>
+              rowKey="id"
+              size="middle"
+              loading={isLoading && data !== undefined}
+              columns={columns}
+              tableLayout="auto"
+              style={{ width: 'max-content', minWidth: '100%', maxWidth: 'none' }}
+              dataSource={data?.items ?? []}
+              pagination={{
+                current: page,
+                pageSize: PAGE_SIZE,
+                total: data?.total ?? 0,
+                showSizeChanger: false,
+                hideOnSinglePage: true,
+                onChange: setPage,
+              }}
+              locale={{
+                emptyText: isLoading ? (
+                  <TableSkeleton />
+                ) : (
+                  <EmptyState description="No e-mail yet." />
+                ),
+              }}
+            />
+          </ScrollRegion>
         )}
       </Card>
     </>

@@ -1,20 +1,9 @@
 import { ROLES, type Role, type UserState, type UserView } from '@gyre/shared';
-import {
-  App,
-  Button,
-  Card,
-  Flex,
-  Input,
-  Segmented,
-  Select,
-  Space,
-  Table,
-  Tag,
-  Typography,
-} from 'antd';
+import { App, Button, Card, Flex, Segmented, Select, Space, Table, Tag, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
 import { PageHeader } from '../../../components/page-header';
+import { SearchInput } from '../../../components/search-input';
 import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
@@ -29,9 +18,10 @@ import { EditUserForm } from './edit-user-form';
 import { InviteUserForm } from './invite-user-form';
 import { ROLE_LABELS } from './role-labels';
 import { WorkerTokensSection } from './worker-tokens-section';
+import { GYRE_COLORS } from '../../../app/theme';
 
 const STATE_LOOK: Record<UserState, { label: string; color: string }> = {
-  invited: { label: 'Invited', color: '#C77C02' },
+  invited: { label: 'Invited', color: GYRE_COLORS.amberText },
   active: { label: 'Active', color: 'success' },
   deactivated: { label: 'Deactivated', color: 'default' },
 };
@@ -170,18 +160,19 @@ export function TeamPage() {
       />
       <Card>
         <Flex gap={16} wrap style={{ marginBottom: 16 }}>
-          <Input.Search
+          <SearchInput
             allowClear
             placeholder="Name or e-mail"
             aria-label="Search by name or e-mail"
-            style={{ width: 260 }}
+            searchLabel="Search accounts"
+            style={{ width: 260, maxWidth: '100%' }}
             onSearch={(q) => filter({ q: q.trim() || undefined })}
           />
           <Select
             allowClear
             placeholder="Any role"
             aria-label="Role"
-            style={{ width: 180 }}
+            style={{ width: 180, maxWidth: '100%' }}
             value={filters.role}
             onChange={(role: Role | undefined) => filter({ role })}
             options={ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }))}
@@ -210,6 +201,7 @@ export function TeamPage() {
             size="middle"
             loading={isLoading && data !== undefined}
             columns={columns}
+            scroll={{ x: 'max-content' }}
             dataSource={data?.items ?? []}
             pagination={{
               current: page,

@@ -106,11 +106,7 @@ export function WorkerTokensSection() {
       role="region"
       aria-label="Worker tokens"
       style={{ marginTop: 24 }}
-      extra={
-        <Button onClick={() => setCreating(true)} aria-label="Create a worker token">
-          Create a token
-        </Button>
-      }
+      extra={<Button onClick={() => setCreating(true)}>Create a worker token</Button>}
     >
       <Typography.Paragraph type="secondary">
         Computing machines fetch queued recordings and post their results with a worker token. A
@@ -142,6 +138,7 @@ export function WorkerTokensSection() {
           size="middle"
           loading={isLoading && data !== undefined}
           columns={columns}
+          scroll={{ x: 'max-content' }}
           dataSource={data?.items ?? []}
           pagination={{
             current: page,

@@ -1,0 +1,8 @@
+import { CURRENT_STATES } from '../recordings/recordings.service';
+import { CURRENT_RECORDING_STATES } from './participant-list-extras';
+
+describe('participants list: current recordings', () => {
+  it('counts the same recording states as current as the recordings module does', () => {
+    expect([...CURRENT_RECORDING_STATES].sort()).toEqual([...CURRENT_STATES].sort());
+  });
+});

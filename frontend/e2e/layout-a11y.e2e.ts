@@ -1,0 +1,405 @@
+import AxeBuilder from '@axe-core/playwright';
+import type { Locator, Page } from 'playwright-core';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { openBrowser, screenshot } from './support/browser';
+import { startGyre, type RunningGyre } from './support/gyre-server';
+import { signInThroughPage } from './support/sign-in-page';
+import { setUpInventedStudy, type InventedStudy } from './support/study-data';
+
+/**
+ * Every screen of every role at a phone's width (390 px) and a desktop's (1440 px): the page
+ * never scrolls sideways, and axe-core finds nothing serious or critical under WCAG 2.0/2.1
+ * A and AA. Plus the keyboard: the skip link comes first, the phone menu opens, the
+ * Participants site filter opens without a mouse.
+ */
+
+// Generated test accounts of an invented study. The analyst's long name checks the ellipsis.
+const PEOPLE: InventedStudy['people'] = {
+  admin: { email: 'ines.admin@gyre.test', name: 'Ines Admin' },
+  technician: { email: 'tomas.tech@gyre.test', name: 'Tomas Tech' },
+  analyst: {
+    email: 'annemarie.analyst@gyre.test',
+    name: 'Annemarie Vandenberghe-Oosterhuis',
+  },
+  monitor: { email: 'mina.monitor@gyre.test', name: 'Mina Monitor' },
+  coordinator: { email: 'carl.coord@gyre.test', name: 'Carl Coordinator' },
+};
+
+/** The axe-core rule sets of WCAG 2.0 and 2.1, levels A and AA (axe-core's tag names). */
+const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'];
+/** Per role: a fresh load, a wait, a width check and axe for each screen twice, on a busy machine. */
+const SCREENS_TIMEOUT_MS = 480_000;
+const WIDTHS = [
+  { width: 1440, height: 900 },
+  { width: 390, height: 844 },
+] as const;
+
+interface Screen {
+  name: string;
+  path: () => string;
+  /** An element of this screen itself, shown once its data is in (lazy routes keep the old one). */
+  ready: (page: Page) => Locator;
+}
+
+describe('layout and accessibility of every screen, on a real server', () => {
+  let gyre: RunningGyre;
+  let data: InventedStudy;
+  const browsers: Awaited<ReturnType<typeof openBrowser>>[] = [];
+
+  async function newPage(): Promise<Page> {
+    const browser = await openBrowser();
+    browsers.push(browser);
+    return browser.context.newPage();
+  }
+
+  const heading = (name: string | RegExp) => (page: Page) =>
+    page.getByRole('heading', { name, exact: typeof name === 'string' ? true : undefined });
+
+  const screens = {
+    signIn: {
+      name: 'Sign-in',
+      path: () => '/sign-in',
+      ready: (page) => page.getByRole('button', { name: 'Sign in' }),
+    },
+    forgot: {
+      name: 'Forgot password',
+      path: () => '/forgot-password',
+      ready: (page) => page.getByRole('button', { name: 'Send the link' }),
+    },
+    home: { name: 'Home', path: () => '/', ready: heading(/^Welcome, /) },
+    intake: {
+      name: 'Intake',
+      path: () => `/intake?participant=${data.participant.id}&visit=${data.visit.id}`,
+      ready: (page) =>
+        page.getByText(`Upload recordings for ${data.participant.code}, ${data.visit.label}`),
+    },
+    review: {
+      name: 'Review',
+      path: () => `/review/${data.visit.id}`,
+      ready: (page) => page.getByTestId('roi-delta-f'),
+    },
+    participants: {
+      name: 'Participants',
+      path: () => '/participants',
+      ready: (page) => page.getByRole('link', { name: data.participant.code }),
+    },
+    participant: {
+      name: 'Participant trajectory',
+      path: () => `/participants/${data.participant.id}`,
+      ready: (page) => page.getByRole('table', { name: 'Visits' }),
+    },
+    ledger: {
+      name: 'Ledger',
+      path: () => '/ledger',
+      ready: (page) => page.getByText('The trail is intact'),
+    },
+    reports: {
+      name: 'Reports',
+      path: () => '/reports',
+      ready: (page) => page.getByRole('row').filter({ hasText: data.participant.code }),
+    },
+    signedReports: {
+      name: 'Signed report revisions',
+      path: () => '/reports/revisions',
+      ready: (page) => page.getByRole('row').filter({ hasText: data.participant.code }),
+    },
+    team: {
+      name: 'Team',
+      path: () => '/team',
+      ready: (page) => page.getByText(PEOPLE.monitor.email),
+    },
+    outbox: {
+      name: 'Outbox',
+      path: () => '/outbox',
+      ready: (page) => page.getByText('You are invited to Gyre'),
+    },
+    studySettings: {
+      name: 'Study settings',
+      path: () => '/study-settings',
+      ready: (page) => page.locator('[aria-label="Versions"]'),
+    },
+    studySetup: {
+      name: 'Study set-up',
+      path: () => `/study-setup?study=${data.study.id}`,
+      ready: (page) =>
+        page.getByRole('region', { name: 'Visit schedule' }).getByRole('row', { name: /Baseline/ }),
+    },
+    overview: {
+      name: 'Study overview',
+      path: () => '/study-overview',
+      ready: (page) => page.locator('[aria-label="Site quality"]'),
+    },
+    adminOverview: {
+      name: 'Study overview',
+      path: () => `/study-overview?study=${data.study.id}`,
+      ready: (page) => page.locator('[aria-label="Site quality"]'),
+    },
+    notFound: {
+      name: 'Not found',
+      path: () => '/no/such/screen',
+      ready: (page) => page.getByText('No such page'),
+    },
+  } satisfies Record<string, Screen>;
+
+  /** What the page has no business showing once a screen is ready: skeletons and spinners. */
+  async function settle(page: Page): Promise<void> {
+    await page
+      .waitForFunction(
+        () =>
+          document.querySelectorAll('.ant-skeleton-active, .ant-spin-spinning').length === 0 &&
+          document.querySelector('.gyre-route-progress') === null,
+        undefined,
+        { timeout: 15_000, polling: 200 },
+      )
+      .catch(() => undefined);
+  }
+
+  /** The innermost elements that stick out past the window's right edge (for the message). */
+  async function widest(page: Page): Promise<string[]> {
+    return page.evaluate(() => {
+      const width = window.innerWidth;
+      const clipped = (el: Element): boolean => {
+        for (let up = el.parentElement; up !== null; up = up.parentElement) {
+          if (getComputedStyle(up).overflowX !== 'visible') return true;
+        }
+        return false;
+      };
+      return [...document.body.querySelectorAll('*')]
+        .filter((el) => el.getBoundingClientRect().right > width + 1 && !clipped(el))
+        .filter((el) => ![...el.children].some((c) => c.getBoundingClientRect().right > width + 1))
+        .slice(0, 4)
+        .map((el) => {
+          const cls = typeof el.className === 'string' ? el.className.split(' ')[0] : '';
+          const right = Math.round(el.getBoundingClientRect().right);
+          return `${el.tagName.toLowerCase()}.${cls} (right edge ${right} px) "${(el.textContent ?? '').slice(0, 30)}"`;
+        });
+    });
+  }
+
+  /**
+   * Opens each screen by its address at both widths (a fresh load, so charts are drawn at the
+   * width they are shown at), then checks the page width and runs axe-core.
+   */
+  async function checkScreens(page: Page, role: string, list: Screen[]): Promise<void> {
+    for (const size of WIDTHS) {
+      await page.setViewportSize(size);
+      for (const screen of list) {
+        const label = `${screen.name} (${role}) at ${size.width} px`;
+        await page.goto(`${gyre.baseUrl}${screen.path()}`, { waitUntil: 'load' });
+        await screen.ready(page).first().waitFor({ timeout: 30_000 });
+        await settle(page);
+        const fit = await page.evaluate(() => ({
+          page: document.documentElement.scrollWidth,
+          window: window.innerWidth,
+        }));
+        expect
+          .soft(
+            fit.page,
+            `${label}: the page is ${fit.page} px wide in a ${fit.window} px window; sticking out: ${(await widest(page)).join('; ')}`,
+          )
+          .toBeLessThanOrEqual(fit.window);
+        const result = await new AxeBuilder({ page }).withTags(WCAG_TAGS).analyze();
+        const serious = result.violations
+          .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+          .map(
+            (v) =>
+              `${v.id} (${v.impact}): ${v.nodes
+                .slice(0, 4)
+                .map((node) => node.target.join(' '))
+                .join(' | ')}${v.nodes.length > 4 ? ` and ${v.nodes.length - 4} more` : ''}`,
+          );
+        expect.soft(serious, `axe on ${label}`).toEqual([]);
+        if (size.width === 390) {
+          await screenshot(page, `a11y-${role}-${screen.name.toLowerCase().replace(/\W+/g, '-')}`);
+        }
+      }
+    }
+  }
+
+  beforeAll(async () => {
+    gyre = await startGyre();
+    data = await setUpInventedStudy(gyre, PEOPLE);
+  }, 600_000);
+
+  afterEach(async () => {
+    for (const browser of browsers.splice(0)) await browser.close();
+  });
+
+  afterAll(async () => {
+    for (const browser of browsers.splice(0)) await browser.close();
+    await gyre?.stop();
+  });
+
+  it(
+    'before sign-in: sign-in and forgotten password',
+    async () => {
+      const page = await newPage();
+      await checkScreens(page, 'visitor', [screens.signIn, screens.forgot]);
+    },
+    SCREENS_TIMEOUT_MS,
+  );
+
+  it(
+    "the technician's screens",
+    async () => {
+      const page = await newPage();
+      await signInThroughPage(page, gyre.baseUrl, PEOPLE.technician.email, '/');
+      await checkScreens(page, 'technician', [screens.home, screens.intake, screens.notFound]);
+    },
+    SCREENS_TIMEOUT_MS,
+  );
+
+  it(
+    "the analyst's screens, the skip link, the phone menu and a long name",
+    async () => {
+      const page = await newPage();
+      await signInThroughPage(page, gyre.baseUrl, PEOPLE.analyst.email, '/');
+      await checkScreens(page, 'analyst', [
+        screens.home,
+        screens.review,
+        screens.participants,
+        screens.participant,
+        screens.overview,
+        screens.studySettings,
+        screens.reports,
+      ]);
+
+      for (const size of WIDTHS) {
+        await page.setViewportSize(size);
+        await page.goto(`${gyre.baseUrl}/`, { waitUntil: 'load' });
+        await screens.home.ready(page).waitFor();
+        // Landmarks: the header (banner) and main, each once.
+        await expect(page.getByRole('banner').count()).resolves.toBe(1);
+        await expect(page.getByRole('main').count()).resolves.toBe(1);
+        // From a fresh load, the first Tab lands on the skip link; following it focuses main.
+        await page.keyboard.press('Tab');
+        const first = await page.evaluate(() => document.activeElement?.textContent ?? '');
+        expect(first, `first Tab at ${size.width} px`).toBe('Skip to main content');
+        await expect(
+          page.getByRole('link', { name: 'Skip to main content' }).isVisible(),
+        ).resolves.toBe(true);
+        await page.keyboard.press('Enter');
+        await expect(page.evaluate(() => document.activeElement?.tagName)).resolves.toBe('MAIN');
+        // "Gyre" stays on one line: one client rect for its text (one per line box).
+        const brandLines = await page.locator('.gyre-brand-name').evaluate((el) => {
+          const range = document.createRange();
+          range.selectNodeContents(el);
+          return range.getClientRects().length;
+        });
+        expect(brandLines, `lines of "Gyre" at ${size.width} px`).toBe(1);
+        // The long name is cut with an ellipsis on a phone, yet shows a readable part of it.
+        const name = page
+          .getByRole('banner')
+          .locator('.ant-typography', { hasText: PEOPLE.analyst.name })
+          .first();
+        const box = await name.evaluate((el) => ({
+          shown: el.clientWidth,
+          whole: el.scrollWidth,
+          overflow: getComputedStyle(el).textOverflow,
+        }));
+        if (size.width === 390) {
+          expect(box.overflow).toBe('ellipsis');
+          expect(box.shown).toBeGreaterThanOrEqual(60);
+        }
+      }
+
+      // At 1440 px the menu runs along the header; at 390 px a button opens it in a drawer.
+      await page.setViewportSize(WIDTHS[0]);
+      await page.goto(`${gyre.baseUrl}/`, { waitUntil: 'load' });
+      await screens.home.ready(page).waitFor();
+      const desktopNav = page.getByRole('navigation', { name: 'Main' });
+      await desktopNav.getByRole('link', { name: 'Participants' }).waitFor();
+      await expect(page.getByRole('button', { name: 'Open the menu' }).count()).resolves.toBe(0);
+
+      await page.setViewportSize(WIDTHS[1]);
+      const opener = page.getByRole('button', { name: 'Open the menu' });
+      await opener.waitFor();
+      await expect(opener.getAttribute('aria-expanded')).resolves.toBe('false');
+      await opener.focus();
+      await page.keyboard.press('Enter');
+      const drawerNav = page.getByRole('dialog').getByRole('navigation', { name: 'Main' });
+      const entry = drawerNav.getByRole('link', { name: 'Participants' });
+      await entry.waitFor();
+      await expect(entry.isVisible()).resolves.toBe(true);
+      await screenshot(page, 'a11y-analyst-phone-menu-open');
+      await entry.click();
+      await screens.participants.ready(page).first().waitFor();
+      await page.getByRole('dialog').waitFor({ state: 'hidden' });
+      expect(new URL(page.url()).pathname).toBe('/participants');
+    },
+    SCREENS_TIMEOUT_MS,
+  );
+
+  it(
+    "the monitor's screens and the Participants site filter by keyboard",
+    async () => {
+      const page = await newPage();
+      await signInThroughPage(page, gyre.baseUrl, PEOPLE.monitor.email, '/');
+      await checkScreens(page, 'monitor', [
+        screens.home,
+        screens.participants,
+        screens.participant,
+        screens.review,
+        screens.ledger,
+        screens.overview,
+        screens.studySettings,
+      ]);
+
+      await page.setViewportSize(WIDTHS[0]);
+      await page.goto(`${gyre.baseUrl}/participants`, { waitUntil: 'load' });
+      await screens.participants.ready(page).first().waitFor();
+      // Tab from the top of the page until the focus is on the Site column's filter button.
+      let onFilter = false;
+      for (let presses = 0; presses < 40 && !onFilter; presses++) {
+        await page.keyboard.press('Tab');
+        onFilter = await page.evaluate(() => {
+          const active = document.activeElement;
+          const th = active?.closest('th');
+          return (
+            active?.closest('.ant-table-filter-trigger') !== null &&
+            th !== null &&
+            th !== undefined &&
+            (th.textContent ?? '').includes('Site')
+          );
+        });
+      }
+      expect(onFilter, 'Tab reaches the Site filter of the Participants table').toBe(true);
+      await page.keyboard.press('Enter');
+      const dropdown = page.locator('.ant-table-filter-dropdown');
+      await dropdown.waitFor({ timeout: 5000 });
+      await dropdown.getByText(`${data.site.code} · ${data.site.name}`).waitFor();
+    },
+    SCREENS_TIMEOUT_MS,
+  );
+
+  it(
+    "the coordinator's screens",
+    async () => {
+      const page = await newPage();
+      await signInThroughPage(page, gyre.baseUrl, PEOPLE.coordinator.email, '/');
+      await checkScreens(page, 'coordinator', [
+        screens.home,
+        screens.reports,
+        screens.signedReports,
+      ]);
+    },
+    SCREENS_TIMEOUT_MS,
+  );
+
+  it(
+    "the admin's screens",
+    async () => {
+      const page = await newPage();
+      await signInThroughPage(page, gyre.baseUrl, PEOPLE.admin.email, '/');
+      await checkScreens(page, 'admin', [
+        screens.home,
+        screens.team,
+        screens.outbox,
+        screens.ledger,
+        screens.studySetup,
+        screens.adminOverview,
+      ]);
+    },
+    SCREENS_TIMEOUT_MS,
+  );
+});
