@@ -22,6 +22,9 @@ module.exports = {
     // NestJS 12 ships ESM only: jest needs it as CommonJS.
     '^.+\\.m?js$': swc,
   },
-  transformIgnorePatterns: ['/node_modules/(?!(@nestjs)/)'],
+  // So are d3-array, d3-scale and their d3 dependencies (shared/src/chart-ticks.ts).
+  transformIgnorePatterns: [
+    '/node_modules/(?!(@nestjs|d3-array|d3-scale|internmap|d3-interpolate|d3-color|d3-format|d3-time|d3-time-format)/)',
+  ],
   testTimeout: 60000,
 };

@@ -1,10 +1,12 @@
 // `npm test`: every check of every workspace, then one closing line `N passed, N failed`.
+// Its lint steps (eslint, prettier, knip) are exactly `npm run lint`'s (package.json).
 // Lint, format and type checks count as one check each; test runners count their tests.
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { buildIfStale } from './build-if-stale.mjs';
+import { ensureOsPackages } from './os-packages.mjs';
 
 const root = resolve(import.meta.dirname, '..');
 const reports = mkdtempSync(join(tmpdir(), 'gyre-test-reports-'));
@@ -68,6 +70,9 @@ function vitestSuite(name, args, cwd) {
   results.push({ name, passed, failed });
 }
 
+// Chromium, numpy/scipy and redis-server: installed here when we may, or the exact command.
+if (!ensureOsPackages()) process.exit(1);
+
 try {
   buildIfStale();
   results.push({ name: 'build', passed: 1, failed: 0 });
@@ -77,6 +82,12 @@ try {
 
 check('eslint', 'npx', ['eslint', '--max-warnings=0', '.']);
 check('prettier', 'npx', ['prettier', '--check', '.']);
+// Unused files, exports and dependencies of every workspace (knip.json).
+check('knip', 'npx', ['knip', '--no-progress']);
+// Generated files must match what generates them: the numpy/scipy reference fixtures and the
+// OpenAPI schemas of the shared API types.
+check('scipy fixtures', 'bash', ['backend/scripts/check-fixtures.sh']);
+check('OpenAPI schemas', 'node', ['backend/scripts/api-schemas.mjs', '--check']);
 for (const workspace of ['shared', 'backend', 'frontend', 'seed']) {
   check(`tsc ${workspace}`, 'npx', ['tsc', '--noEmit', '-p', `${workspace}/tsconfig.json`]);
 }

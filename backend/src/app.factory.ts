@@ -4,16 +4,20 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import type { Request, Response } from 'express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
+import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
 import { AppModule } from './app.module';
 import { AppConfig } from './config/app.config';
 import { APP_CONFIG } from './config/config.module';
 import { HttpExceptionFilter } from './common/errors/http-exception.filter';
+import { validationExceptionFactory } from './common/errors/validation-problems';
 import { rejectDeepBodies } from './common/http/json-depth';
 import { noStore } from './common/http/no-store';
+import { UuidParamsPipe } from './common/http/uuid-params.pipe';
 import { restrictUmask } from './config/data-dir-permissions';
 import { serveClient } from './client-assets';
 import { GYRE_VERSION } from './version';
+import { withSharedSchemas } from './openapi/api-responses';
 
 const LEVELS: LogLevel[] = ['fatal', 'error', 'warn', 'log', 'debug', 'verbose'];
 const COMPRESSION_THRESHOLD_BYTES = 8 * 1024;
@@ -65,9 +69,17 @@ export async function createApp(options: CreateAppOptions = {}): Promise<NestExp
   app.useBodyParser('json');
   app.useBodyParser('urlencoded', { extended: true });
   app.use(rejectDeepBodies);
+  // The refresh cookie (auth.controller.ts) is the only cookie Gyre reads; unsigned.
+  app.use(cookieParser());
   app.setGlobalPrefix('api');
   app.useGlobalPipes(
-    new ValidationPipe({ whitelist: true, forbidNonWhitelisted: true, transform: true }),
+    new UuidParamsPipe(),
+    new ValidationPipe({
+      whitelist: true,
+      forbidNonWhitelisted: true,
+      transform: true,
+      exceptionFactory: validationExceptionFactory,
+    }),
   );
   app.useGlobalFilters(new HttpExceptionFilter());
   app.enableShutdownHooks();
@@ -87,16 +99,18 @@ function compressible(request: Request, response: Response): boolean {
 }
 
 function setUpOpenApi(app: INestApplication): void {
-  const document = SwaggerModule.createDocument(
-    app,
-    new DocumentBuilder()
-      .setTitle('Gyre API')
-      .setDescription(
-        'Alpha-frequency review for clinical-research EEG studies. Research use only.',
-      )
-      .setVersion(GYRE_VERSION)
-      .addBearerAuth()
-      .build(),
+  const document = withSharedSchemas(
+    SwaggerModule.createDocument(
+      app,
+      new DocumentBuilder()
+        .setTitle('Gyre API')
+        .setDescription(
+          'Alpha-frequency review for clinical-research EEG studies. Research use only.',
+        )
+        .setVersion(GYRE_VERSION)
+        .addBearerAuth()
+        .build(),
+    ),
   );
   SwaggerModule.setup('api/docs', app, document, { jsonDocumentUrl: 'api/docs/openapi.json' });
 }

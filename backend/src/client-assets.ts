@@ -1,4 +1,4 @@
-// express.static with setHeaders rather than @nestjs/serve-static: that module's fallback sends index.html for any unmatched GET (an unknown /assets file would get the page) and it has to be imported into AppModule.
+// express.static, not @nestjs/serve-static (dependency removed): its fallback answers index.html to every unmatched GET (a missing /assets file would get the page, not 404), it serves source maps, and it cannot give the page no-cache beside immutable assets.
 import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import express, {
@@ -23,7 +23,7 @@ const DEFAULT_FOLDERS: ClientFolders = {
 };
 
 /** Vite names every file in assets/ after a hash of its content: a new build, new names. */
-export const HASHED_ASSET_CACHE = 'public, max-age=31536000, immutable';
+const HASHED_ASSET_CACHE = 'public, max-age=31536000, immutable';
 /** index.html names the current assets, so the browser must ask whether it changed each time. */
 export const PAGE_CACHE = 'no-cache';
 
@@ -59,7 +59,11 @@ export function serveClient(
   server.use(
     '/assets',
     refuseSourceMaps,
-    express.static(join(clientDir, 'assets'), { index: false, immutable: true, maxAge: '1y' }),
+    express.static(join(clientDir, 'assets'), {
+      index: false,
+      cacheControl: false,
+      setHeaders: (response) => response.setHeader('Cache-Control', HASHED_ASSET_CACHE),
+    }),
     notFound,
   );
   server.use((request: Request, response: Response, next: NextFunction) => {

@@ -196,7 +196,7 @@ describe('ending a session refuses its access tokens at once', () => {
     const wrong = await request(t.url)
       .post('/api/auth/sign-in')
       .send({ email: t.seed.users.analyst.email, password: 'not-my-password-6' });
-    expect(wrong.status).toBe(401);
+    expect(wrong.status).toBe(422);
     expect(wrong.body.code).toBe('AUTH_WRONG_CREDENTIALS');
     const right = await request(t.url)
       .post('/api/auth/sign-in')

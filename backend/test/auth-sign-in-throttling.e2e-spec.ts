@@ -52,9 +52,9 @@ describe('throttling of failed sign-ins', () => {
     });
     expect(known.map(shape)).toEqual(unknown.map(shape));
     // The first failures are answered plainly, then the wait starts; no 423 ever.
-    expect(known.slice(0, pairFree + 1).every((r) => r.status === 401)).toBe(true);
+    expect(known.slice(0, pairFree + 1).every((r) => r.status === 422)).toBe(true);
     expect(known[0].body).toEqual({
-      statusCode: 401,
+      statusCode: 422,
       code: 'AUTH_WRONG_CREDENTIALS',
       message: 'E-mail or password is wrong.',
       details: null,
@@ -66,7 +66,7 @@ describe('throttling of failed sign-ins', () => {
     const timed = async (address: string, email: string): Promise<number> => {
       const started = process.hrtime.bigint();
       const response = await signInFrom(address, email, 'wrong-password-timing');
-      expect(response.status).toBe(401);
+      expect(response.status).toBe(422);
       return Number(process.hrtime.bigint() - started) / 1e6;
     };
     const known: number[] = [];
@@ -100,9 +100,9 @@ describe('throttling of failed sign-ins', () => {
     const email = emailOf('technicianB');
     const address = '203.0.113.77';
     for (let i = 0; i < pairFree; i += 1) {
-      expect((await signInFrom(address, email, `guess-${i}`)).status).toBe(401);
+      expect((await signInFrom(address, email, `guess-${i}`)).status).toBe(422);
     }
-    expect((await signInFrom(address, email, 'guess-a')).status).toBe(401);
+    expect((await signInFrom(address, email, 'guess-a')).status).toBe(422);
     const first = await signInFrom(address, email, SEED_PASSWORD);
     expect(first.status).toBe(429);
     expect(first.body.code).toBe('AUTH_SIGN_IN_THROTTLED');
@@ -110,14 +110,14 @@ describe('throttling of failed sign-ins', () => {
     expect(first.body.message).toBe('Too many failed sign-ins: wait 1 s before trying again.');
     expect(first.body.details).toEqual({ retryAfterS: 1 });
     await sleep(1100);
-    expect((await signInFrom(address, email, 'guess-b')).status).toBe(401);
+    expect((await signInFrom(address, email, 'guess-b')).status).toBe(422);
     const second = await signInFrom(address, email, 'guess-c');
     expect(second.status).toBe(429);
     expect(second.headers['retry-after']).toBe('2');
     await sleep(2100);
     // Once the wait is over, the right password works and the count starts again.
     expect((await signInFrom(address, email, SEED_PASSWORD)).status).toBe(200);
-    expect((await signInFrom(address, email, 'guess-d')).status).toBe(401);
+    expect((await signInFrom(address, email, 'guess-d')).status).toBe(422);
   });
 
   it('one address trying many accounts is slowed too (password spraying)', async () => {
@@ -125,7 +125,7 @@ describe('throttling of failed sign-ins', () => {
     const address = '203.0.113.88';
     for (let i = 0; i <= free; i += 1) {
       expect((await signInFrom(address, `sprayed-${i}@gyre.test`, 'Summer2026!x')).status).toBe(
-        401,
+        422,
       );
     }
     const next = await signInFrom(address, 'sprayed-next@gyre.test', 'Summer2026!x');
@@ -140,7 +140,7 @@ describe('throttling of failed sign-ins', () => {
     const email = emailOf('coordinator');
     for (let i = 0; i <= pairFree; i += 1) {
       const address = `2001:db8:5:7::${(i + 1).toString(16)}`;
-      expect((await signInFrom(address, email, `guess-v6-${i}`)).status).toBe(401);
+      expect((await signInFrom(address, email, `guess-v6-${i}`)).status).toBe(422);
     }
     const sameNetwork = await signInFrom('2001:db8:5:7:ffff::1', email, 'guess-v6-next');
     expect(sameNetwork.status).toBe(429);
@@ -164,7 +164,7 @@ describe('throttling of failed sign-ins', () => {
     await sleep(wait * 1000 + 100);
     expect((await signInFrom('192.0.2.202', email, SEED_PASSWORD)).status).toBe(200);
     // The owner's sign-in does not wipe the attackers' count: the next failure waits longer.
-    expect((await signInFrom('198.18.1.1', email, 'guess-after-owner')).status).toBe(401);
+    expect((await signInFrom('198.18.1.1', email, 'guess-after-owner')).status).toBe(422);
     const after = await signInFrom('198.18.1.2', email, 'guess-after-owner-2');
     expect(after.status).toBe(429);
     expect(Number(after.headers['retry-after'])).toBeGreaterThan(wait);
@@ -178,7 +178,7 @@ describe('throttling of failed sign-ins', () => {
       ),
     );
     const statuses = responses.map((r) => r.status).sort();
-    expect(statuses.filter((s) => s === 401)).toHaveLength(pairFree + 1);
+    expect(statuses.filter((s) => s === 422)).toHaveLength(pairFree + 1);
     expect(statuses.filter((s) => s === 429)).toHaveLength(4);
   });
 
@@ -189,7 +189,7 @@ describe('throttling of failed sign-ins', () => {
     for (let i = 0; i < pairFree + 3; i += 1) {
       statuses.push((await signInFrom(address, user.email, `guess-${i}`)).status);
     }
-    const failures = statuses.filter((s) => s === 401).length;
+    const failures = statuses.filter((s) => s === 422).length;
     const rows = (await t.dataSource.query(
       `SELECT "action", "objectId", "studyId", "siteId", "after", "reason", "clientIp"
          FROM "audit_entry" WHERE "clientIp" = ? ORDER BY "seq"`,

@@ -62,8 +62,8 @@ describe('sign-in, tokens and sessions', () => {
     it('refuses a wrong password and an unknown e-mail with the same answer', async () => {
       const wrong = await signIn(t.seed.users.monitor.email, 'not-the-password-at-all');
       const unknown = await signIn('nobody@gyre.test', 'not-the-password-at-all');
-      expect(wrong.status).toBe(401);
-      expect(unknown.status).toBe(401);
+      expect(wrong.status).toBe(422);
+      expect(unknown.status).toBe(422);
       expect(wrong.body.code).toBe('AUTH_WRONG_CREDENTIALS');
       expect(unknown.body).toEqual(wrong.body);
     });
@@ -83,7 +83,7 @@ describe('sign-in, tokens and sessions', () => {
       const email = t.seed.users.coordinatorB.email;
       for (let attempt = 1; attempt <= 5; attempt += 1) {
         const wrong = await signIn(email, `wrong-password-${attempt}`);
-        expect(wrong.status).toBe(401);
+        expect(wrong.status).toBe(422);
         expect(wrong.body.code).toBe('AUTH_WRONG_CREDENTIALS');
       }
       expect((await signIn(email, SEED_PASSWORD)).status).toBe(200);
@@ -99,7 +99,7 @@ describe('sign-in, tokens and sessions', () => {
       for (let attempt = 1; attempt <= 4; attempt += 1) await signIn(email, 'wrong-password-xx');
       expect((await signIn(email, SEED_PASSWORD)).status).toBe(200);
       for (let attempt = 1; attempt <= 4; attempt += 1) {
-        expect((await signIn(email, 'wrong-password-yy')).status).toBe(401);
+        expect((await signIn(email, 'wrong-password-yy')).status).toBe(422);
       }
       expect((await signIn(email, SEED_PASSWORD)).status).toBe(200);
     });
@@ -267,8 +267,29 @@ describe('sign-in, tokens and sessions', () => {
       for (const c of [cookie, otherDevice]) {
         expect((await request(t.url).post('/api/auth/refresh').set('Cookie', c)).status).toBe(401);
       }
-      expect((await signIn(email, SEED_PASSWORD)).status).toBe(401);
+      expect((await signIn(email, SEED_PASSWORD)).status).toBe(422);
       expect((await signIn(email, newPassword)).status).toBe(200);
+    });
+
+    it('refuses a wrong current password with 422, as sign-in and signing do, and keeps the session', async () => {
+      // One status for every wrong password (sign-in here, signing in reports-signoff):
+      // 422, never 401, which the client would take for an expired session.
+      const token = await t.tokenFor('monitor');
+      const response = await request(t.url)
+        .post('/api/auth/password')
+        .set('Authorization', `Bearer ${token}`)
+        .send({ currentPassword: 'not-my-password-at-all', newPassword: 'amber-window-77-slate' });
+      expect(response.status).toBe(422);
+      expect(response.body).toMatchObject({
+        statusCode: 422,
+        code: 'AUTH_CURRENT_PASSWORD_WRONG',
+        details: { field: 'currentPassword' },
+      });
+      const wrongSignIn = await signIn(t.seed.users.monitor.email, 'not-my-password-at-all');
+      expect(wrongSignIn.status).toBe(response.status);
+      const me = await request(t.url).get('/api/auth/me').set('Authorization', `Bearer ${token}`);
+      expect(me.status).toBe(200);
+      expect((await signIn(t.seed.users.monitor.email, SEED_PASSWORD)).status).toBe(200);
     });
 
     it('refuses a short or common new password, naming the field', async () => {
@@ -301,7 +322,7 @@ describe('sign-in, tokens and sessions', () => {
         .get('/api/auth/me')
         .set('Authorization', `Bearer ${session.body.accessToken as string}`);
       expect(me.status).toBe(401);
-      expect((await signIn(email, SEED_PASSWORD)).status).toBe(401);
+      expect((await signIn(email, SEED_PASSWORD)).status).toBe(422);
     });
   });
 

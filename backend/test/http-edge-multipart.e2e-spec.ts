@@ -9,6 +9,7 @@ import { request as httpRequest } from 'node:http';
 import { join } from 'node:path';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { syntheticTaskEdf } from './recordings-fixtures';
+import { seededUniform } from '../src/signal/onset/random';
 
 interface RawResponse {
   status: number;
@@ -157,15 +158,10 @@ describe('malformed multipart uploads (RFC 7578)', () => {
   });
 
   it('random bytes as the body', async () => {
-    let x = 0x2545f491;
-    // Generated noise (xorshift32), the same on every run.
+    // Generated noise (the backend's one seeded generator), the same on every run.
+    const random = seededUniform(0x2545f491);
     const noise = Buffer.alloc(64 * 1024);
-    for (let i = 0; i < noise.byteLength; i++) {
-      x ^= x << 13;
-      x ^= x >>> 17;
-      x ^= x << 5;
-      noise[i] = x & 0xff;
-    }
+    for (let i = 0; i < noise.byteLength; i++) noise[i] = Math.floor(random() * 256);
     await expectRefused(
       `multipart/form-data; boundary=${BOUNDARY}`,
       noise,

@@ -313,7 +313,7 @@ describe('worker tokens', () => {
       const signIn = await request(t.url)
         .post('/api/auth/sign-in')
         .send({ email: t.seed.users.admin.email, password: 'x'.repeat(3) });
-      expect(signIn.status).toBe(401);
+      expect(signIn.status).toBe(422);
       const me = await request(t.url)
         .get('/api/auth/me')
         .set(await t.authHeader('admin'));

@@ -102,7 +102,7 @@ describe('worklist and the visit-reviewed act', () => {
     expect(visitsIn(list, 'unreviewed')).toEqual([visitA1]);
     // The generated task dips −0.6 Hz, past the default −0.2 Hz threshold (docs/method.md §3).
     expect(visitsIn(list, 'suggestions')).toEqual([visitA1]);
-    expect(section(list, 'suggestions').items[0].what).toMatch(/ROI Δf −0\.\d\d Hz/);
+    expect(section(list, 'suggestions').items[0].what).toMatch(/ROI Δf −0\.\d\d\u00a0Hz/);
     expect(visitsIn(list, 'awaitingSignature')).toEqual([visitA1]);
     expect(section(list, 'changedSinceSigning').total).toBe(0);
     expect(section(list, 'failed').total).toBe(0);

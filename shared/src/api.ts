@@ -7,6 +7,16 @@ export interface ErrorBody {
   details: Record<string, unknown> | null;
 }
 
+/**
+ * One thing wrong with a request's body, query or route parameters: `field` is its path
+ * (`email`, `items.0.name`, `visitId`), `reason` the message naming what was expected.
+ * A `VALIDATION_FAILED` answer carries them as `details.problems`.
+ */
+export interface ValidationProblem {
+  field: string;
+  reason: string;
+}
+
 /** `GET /api/health`. */
 export interface HealthReport {
   status: 'ok' | 'degraded' | 'down';

@@ -8,10 +8,6 @@ export const SITE_ROLES: readonly Role[] = ['technician', 'coordinator'];
 /** Roles whose members belong to one study; an admin manages the whole installation. */
 export const STUDY_ROLES: readonly Role[] = ['technician', 'analyst', 'monitor', 'coordinator'];
 
-export function isRole(value: unknown): value is Role {
-  return typeof value === 'string' && (ROLES as readonly string[]).includes(value);
-}
-
 /** Whether a member of `role` must be bound to a site (`true`), a study only, or neither. */
 export function membershipOf(role: Role): 'site' | 'study' | 'installation' {
   if (SITE_ROLES.includes(role)) return 'site';

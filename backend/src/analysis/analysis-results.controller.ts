@@ -1,5 +1,6 @@
 import { Controller, Get, Param, Query, Req, Res } from '@nestjs/common';
-import { ApiBearerAuth, ApiNotFoundResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiNotFoundResponse, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { Request, Response } from 'express';
 import type { AnalysisRunDto, Page, QualityDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
@@ -20,7 +21,7 @@ export class AnalysisResultsController {
   // AnalysisRunsService.resultsBody), so they write the response themselves.
   @Get('results')
   @RequirePermission('read', 'Result')
-  @ApiOkResponse({
+  @ApiResult('RecordingResultsDto', {
     description:
       "RecordingResultsDto: the region of interest onset curve with CI, rest spectrum with PAF/CoG, per-channel table, quality checks; series rounded as RESULT_SERIES_DECIMALS says. The raster and the channels' curves have routes of their own.",
   })
@@ -36,7 +37,7 @@ export class AnalysisResultsController {
 
   @Get('results/raster')
   @RequirePermission('read', 'Result')
-  @ApiOkResponse({
+  @ApiResult('TrialRasterDto', {
     description:
       "TrialRasterDto: the region of interest's trial raster (≤ 500 points) and per-trial Δf",
   })
@@ -53,7 +54,7 @@ export class AnalysisResultsController {
 
   @Get('results/curves')
   @RequirePermission('read', 'Result')
-  @ApiOkResponse({ description: "OnsetCurveDto: one channel's onset curve with CI" })
+  @ApiResult('OnsetCurveDto', { description: "OnsetCurveDto: one channel's onset curve with CI" })
   @ApiNotFoundResponse({ description: 'No such run, or no curve for that channel' })
   async channelCurve(
     @CurrentCaller() caller: Caller,
@@ -71,8 +72,9 @@ export class AnalysisResultsController {
 
   @Get('runs')
   @RequirePermission('read', 'AnalysisRun')
-  @ApiOkResponse({
+  @ApiResult('AnalysisRunDto', {
     description: 'Runs of the recording with settings version, code version, checksum',
+    page: true,
   })
   list(
     @CurrentCaller() caller: Caller,
@@ -84,7 +86,10 @@ export class AnalysisResultsController {
 
   @Get('quality')
   @RequirePermission('read', 'Recording')
-  @ApiOkResponse({ description: "The latest run's quality checks (null before a result exists)" })
+  @ApiResult('QualityDto', {
+    description: "The latest run's quality checks (null before a result exists)",
+    nullable: true,
+  })
   quality(
     @CurrentCaller() caller: Caller,
     @Param('recordingId') recordingId: string,

@@ -13,17 +13,16 @@ import type {
 import { scopedWhere, scopeSql } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { SqliteReads } from '../common/database/sqlite-reads.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { PageQueryDto, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
 import type { AnalyzeOutcome, RunSummary } from '../jobs/worker/worker-tasks';
 import { Recording } from '../recordings/recording.entity';
-import { RecordingsError } from '../recordings/recordings.errors';
+import { RecordingsError, recordingsError } from '../recordings/recordings.errors';
 import { CURRENT_STATES, RecordingsService } from '../recordings/recordings.service';
 import type { AnalysisSettings as SettingsValues } from '../signal/pipeline/analysis-settings';
 import { GYRE_VERSION } from '../version';
-import { AnalysisError } from './analysis.errors';
+import { AnalysisError, analysisError } from './analysis.errors';
 import { AnalysisRun } from './analysis-run.entity';
 import { AnalysisSettings } from './analysis-settings.entity';
 import { encodeJson, type EncodedBody } from './encoded-body';
@@ -328,8 +327,7 @@ export class AnalysisRunsService {
       const full = await this.storedRun(run.id);
       const raster = trialRasterOf(summaryOf(full), decodeResultSeries(full.series));
       if (raster === null) {
-        throw new GyreException(
-          ErrorKind.NotFound,
+        throw analysisError(
           AnalysisError.NoTaskResults,
           `Run ${run.id} of recording ${recordingId} has no trial raster (a resting recording, or no region-of-interest channel).`,
           { recordingId, runId: run.id },
@@ -352,8 +350,7 @@ export class AnalysisRunsService {
       const summary = summaryOf(full);
       const curve = channelCurveOf(summary, decodeResultSeries(full.series), channel);
       if (curve === null) {
-        throw new GyreException(
-          ErrorKind.NotFound,
+        throw analysisError(
           AnalysisError.ChannelCurveNotFound,
           `channel: run ${run.id} has no onset curve for "${channel}"; it has ${
             summary.task === null || summary.task.curveChannels.length === 0
@@ -397,16 +394,12 @@ export class AnalysisRunsService {
       [runId ?? null, ...runScope.params, recordingId, ...recordingScope.params],
     );
     if (row === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        RecordingsError.NotFound,
-        `No recording ${recordingId}.`,
-        { recordingId },
-      );
+      throw recordingsError(RecordingsError.NotFound, `No recording ${recordingId}.`, {
+        recordingId,
+      });
     }
     if (row.runId === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
+      throw analysisError(
         runId === undefined ? AnalysisError.NoResultsYet : AnalysisError.RunNotFound,
         runId === undefined
           ? `Recording ${recordingId} has no results yet.`

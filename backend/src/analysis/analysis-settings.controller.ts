@@ -1,5 +1,6 @@
-import { Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
-import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Get, Param, Post, Query, HttpStatus } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { AnalysisSettingsDto, Page } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
@@ -15,7 +16,7 @@ export class AnalysisSettingsController {
 
   @Get()
   @RequirePermission('read', 'AnalysisSettings')
-  @ApiOkResponse({ description: "The study's current settings version" })
+  @ApiResult('AnalysisSettingsDto', { description: "The study's current settings version" })
   current(
     @CurrentCaller() caller: Caller,
     @Param('studyId') studyId: string,
@@ -25,7 +26,10 @@ export class AnalysisSettingsController {
 
   @Get('versions')
   @RequirePermission('read', 'AnalysisSettings')
-  @ApiOkResponse({ description: 'Every settings version, newest first by default' })
+  @ApiResult('AnalysisSettingsDto', {
+    description: 'Every settings version, newest first by default',
+    page: true,
+  })
   versions(
     @CurrentCaller() caller: Caller,
     @Param('studyId') studyId: string,
@@ -36,7 +40,10 @@ export class AnalysisSettingsController {
 
   @Post()
   @RequirePermission('create', 'AnalysisSettings')
-  @ApiCreatedResponse({ description: 'A new settings version (audited); earlier runs keep theirs' })
+  @ApiResult('AnalysisSettingsDto', {
+    description: 'A new settings version (audited); earlier runs keep theirs',
+    status: HttpStatus.CREATED,
+  })
   change(
     @CurrentCaller() caller: Caller,
     @Param('studyId') studyId: string,

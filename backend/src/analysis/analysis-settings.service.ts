@@ -7,7 +7,6 @@ import type { AnalysisSettingsDto, Page } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { PageQueryDto, pageWindowOf } from '../common/pagination/page-query.dto';
 import { nowIso } from '../common/time';
 import {
@@ -15,7 +14,7 @@ import {
   DEFAULT_ANALYSIS_SETTINGS,
 } from '../signal/pipeline/analysis-settings';
 import { StudiesService } from '../studies/studies.service';
-import { AnalysisError } from './analysis.errors';
+import { AnalysisError, analysisError } from './analysis.errors';
 import { AnalysisSettings } from './analysis-settings.entity';
 import { settingsProblems } from './analysis-settings.rules';
 import { AnalysisSettingsChangeDto } from './dto/analysis-settings-change.dto';
@@ -74,21 +73,15 @@ export class AnalysisSettingsService {
     const { reason, ...values } = change;
     const problems = settingsProblems(values);
     if (problems.length > 0) {
-      throw new GyreException(
-        ErrorKind.BadInput,
-        AnalysisError.SettingsInvalid,
-        problems.join('; '),
-        {
-          problems,
-        },
-      );
+      throw analysisError(AnalysisError.SettingsInvalid, problems.join('; '), {
+        problems,
+      });
     }
     return this.writes.run(async (manager) => {
       const previous = await this.ensureCurrent(manager, studyId);
       const changes = settingsFieldChanges(valuesOf(previous), values);
       if (changes.length === 0) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw analysisError(
           AnalysisError.SettingsUnchanged,
           `Nothing changed: these are the values of version ${previous.version}.`,
           { version: previous.version },
@@ -166,14 +159,9 @@ export class AnalysisSettingsService {
       () => false,
     );
     if (!visible || !caller.ability.can(action, subject('AnalysisSettings', { studyId }))) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        AnalysisError.StudyNotFound,
-        `No study ${studyId}.`,
-        {
-          studyId,
-        },
-      );
+      throw analysisError(AnalysisError.StudyNotFound, `No study ${studyId}.`, {
+        studyId,
+      });
     }
   }
 }

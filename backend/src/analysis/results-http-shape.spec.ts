@@ -1,18 +1,10 @@
 import { roundSignificant, roundTo, trialRasterOf } from './results-http-shape';
 import type { RunSummary } from '../jobs/worker/worker-tasks';
-
-/** A seeded uniform sequence (Park–Miller minimal standard generator, 1988). */
-function uniform(seed: number): () => number {
-  let state = seed;
-  return () => {
-    state = (state * 48271) % 2147483647;
-    return state / 2147483647;
-  };
-}
+import { seededUniform } from '../signal/onset/random';
 
 describe('rounding of the results series', () => {
   it('rounds as ECMAScript Number.prototype.toFixed does (exact decimal rounding of the double)', () => {
-    const next = uniform(20260115);
+    const next = seededUniform(20260115);
     for (let i = 0; i < 20_000; i++) {
       const value = (next() - 0.5) * 40;
       for (const decimals of [2, 4]) {
@@ -24,7 +16,7 @@ describe('rounding of the results series', () => {
   });
 
   it('writes at most the documented decimals in JSON and stays within half a unit', () => {
-    const next = uniform(7);
+    const next = seededUniform(7);
     for (let i = 0; i < 5_000; i++) {
       const value = 8 + next() * 5;
       const rounded = roundTo(value, 4) as number;

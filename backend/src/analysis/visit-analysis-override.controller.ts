@@ -1,5 +1,6 @@
 import { Body, Controller, Get, Param, Put } from '@nestjs/common';
-import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { VisitAnalysisOverrideDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
@@ -14,7 +15,9 @@ export class VisitAnalysisOverrideController {
 
   @Get()
   @RequirePermission('read', 'AnalysisSettings')
-  @ApiOkResponse({ description: "The visit's own analysis choices (revision 0: none)" })
+  @ApiResult('VisitAnalysisOverrideDto', {
+    description: "The visit's own analysis choices (revision 0: none)",
+  })
   get(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
@@ -24,7 +27,7 @@ export class VisitAnalysisOverrideController {
 
   @Put()
   @RequirePermission('update', 'AnalysisSettings')
-  @ApiOkResponse({
+  @ApiResult('VisitAnalysisOverrideDto', {
     description:
       'A new revision (audited, reason required) and a re-run of the visit; 409 ANALYSIS_OVERRIDE_UNCHANGED when nothing changes',
   })

@@ -8,10 +8,9 @@ import type { VisitAnalysisOverrideDto, VisitAnalysisOverrideValues } from '@gyr
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
 import { VisitsService } from '../visits/visits.service';
-import { AnalysisError } from './analysis.errors';
+import { AnalysisError, analysisError } from './analysis.errors';
 import { settingsProblems } from './analysis-settings.rules';
 import { AnalysisSettingsService, valuesOf } from './analysis-settings.service';
 import { AnalysisSettings } from './analysis-settings.entity';
@@ -62,21 +61,15 @@ export class VisitAnalysisOverridesService {
     const study = valuesOf(await this.settings.currentFor(visit.studyId));
     const problems = settingsProblems(withOverride(study, values));
     if (problems.length > 0) {
-      throw new GyreException(
-        ErrorKind.BadInput,
-        AnalysisError.OverrideInvalid,
-        problems.join('; '),
-        {
-          problems,
-        },
-      );
+      throw analysisError(AnalysisError.OverrideInvalid, problems.join('; '), {
+        problems,
+      });
     }
     const row = await this.writes.run(async (tx) => {
       const previous = await this.latest(visitId, tx.getRepository(VisitAnalysisOverride));
       const before = previous === null ? NO_OVERRIDE : valuesOfOverride(previous);
       if (sameValue(before, normalised(values))) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw analysisError(
           AnalysisError.OverrideUnchanged,
           'Nothing changed: the visit already uses these choices.',
           { visitId, revision: previous?.revision ?? 0 },
@@ -146,14 +139,9 @@ export class VisitAnalysisOverridesService {
     visitId: string,
   ): void {
     if (!caller.ability.can(action, subject('AnalysisSettings', { studyId }))) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        AnalysisError.StudyNotFound,
-        `No visit ${visitId}.`,
-        {
-          visitId,
-        },
-      );
+      throw analysisError(AnalysisError.StudyNotFound, `No visit ${visitId}.`, {
+        visitId,
+      });
     }
   }
 }

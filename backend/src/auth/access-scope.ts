@@ -10,8 +10,7 @@ import {
   SelectQueryBuilder,
 } from 'typeorm';
 import type { Action, AppAbility, SubjectName } from '@gyre/shared';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { AuthError } from './auth.errors';
+import { AuthError, authError } from './auth.errors';
 
 /**
  * Row-level scoping inside the query. The user's CASL rules for (action, subject) become a
@@ -43,12 +42,10 @@ export function scopeConditionsOf(
     branches.push(validated(conditions, action, subjectName));
   }
   if (branches.length === 0) {
-    throw new GyreException(
-      ErrorKind.Forbidden,
-      AuthError.Forbidden,
-      `You may not ${action} ${subjectName}.`,
-      { action, subject: subjectName },
-    );
+    throw authError(AuthError.Forbidden, `You may not ${action} ${subjectName}.`, {
+      action,
+      subject: subjectName,
+    });
   }
   return branches;
 }

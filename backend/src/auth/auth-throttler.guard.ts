@@ -1,8 +1,7 @@
 import { ExecutionContext, Injectable } from '@nestjs/common';
 import { ThrottlerGuard, type ThrottlerLimitDetail } from '@nestjs/throttler';
 import type { Response } from 'express';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { AuthError } from './auth.errors';
+import { AuthError, authError } from './auth.errors';
 
 /**
  * The per-address limit on `/api/auth/*`, answering like every other Gyre error: 429 with a
@@ -17,8 +16,7 @@ export class AuthThrottlerGuard extends ThrottlerGuard {
   ): Promise<void> {
     const retryAfterS = Math.max(1, Math.ceil(detail.timeToBlockExpire));
     context.switchToHttp().getResponse<Response>().setHeader('Retry-After', String(retryAfterS));
-    throw new GyreException(
-      ErrorKind.TooManyRequests,
+    throw authError(
       AuthError.TooManyRequests,
       `Too many requests from this address: wait ${retryAfterS} s before trying again.`,
       { retryAfterS },

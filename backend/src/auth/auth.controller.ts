@@ -13,7 +13,6 @@ import type { Request, Response } from 'express';
 import type { MeResponse, SessionResponse } from '@gyre/shared';
 import { Public } from '../common/decorators/public.decorator';
 import { GyreException } from '../common/errors/gyre.exception';
-import { readCookie } from '../common/http/cookies';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import { AuthThrottlerGuard } from './auth-throttler.guard';
@@ -75,7 +74,7 @@ export class AuthController {
     @ClientIp() clientIp: string | null,
     @Res({ passthrough: true }) response: Response,
   ): Promise<SessionResponse> {
-    const secret = readCookie(request, REFRESH_COOKIE);
+    const secret = refreshCookieOf(request);
     try {
       return this.withCookie(response, await this.auth.refresh(secret, clientIp));
     } catch (error) {
@@ -95,7 +94,7 @@ export class AuthController {
     @ClientIp() clientIp: string | null,
     @Res({ passthrough: true }) response: Response,
   ): Promise<void> {
-    await this.auth.signOut(readCookie(request, REFRESH_COOKIE), clientIp);
+    await this.auth.signOut(refreshCookieOf(request), clientIp);
     this.clearCookie(response);
   }
 
@@ -188,4 +187,10 @@ export class AuthController {
 function setRetryAfter(response: Response, error: unknown): void {
   const seconds = error instanceof GyreException ? error.details?.retryAfterS : undefined;
   if (typeof seconds === 'number') response.setHeader('Retry-After', String(seconds));
+}
+
+/** The refresh cookie as cookie-parser (app.factory.ts) read it; anything but a string is none. */
+function refreshCookieOf(request: Request): string | null {
+  const value: unknown = (request.cookies as Record<string, unknown> | undefined)?.[REFRESH_COOKIE];
+  return typeof value === 'string' ? value : null;
 }

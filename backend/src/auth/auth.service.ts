@@ -5,7 +5,7 @@ import { Accounts } from '../accounts/accounts.service';
 import type { User } from '../accounts/user.entity';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
@@ -17,7 +17,7 @@ import { StudiesService } from '../studies/studies.service';
 import { toStudyView } from '../studies/study-view';
 import { toUserView } from '../users/user-view';
 import { ACCESS_TOKEN_LIFETIME_S, AccessTokens } from './access-tokens.service';
-import { AuthError } from './auth.errors';
+import { AuthError, authError } from './auth.errors';
 import { AuthUser } from './auth-user';
 import { OneTimeTokens } from './one-time-tokens.service';
 import { assertPasswordAcceptable } from './password-policy';
@@ -102,11 +102,7 @@ export class AuthService {
         });
         await this.recordThrottling(admission, email, user, clientIp);
       });
-      throw new GyreException(
-        ErrorKind.Unauthenticated,
-        AuthError.WrongCredentials,
-        WRONG_CREDENTIALS,
-      );
+      throw authError(AuthError.WrongCredentials, WRONG_CREDENTIALS);
     }
     if (usable.lockedUntil !== null && usable.lockedUntil > nowIso()) {
       // Only someone who knows the password learns of the lock.
@@ -174,11 +170,7 @@ export class AuthService {
 
   async refresh(secret: string | null, clientIp: string | null): Promise<IssuedSession> {
     if (secret === null) {
-      throw new GyreException(
-        ErrorKind.Unauthenticated,
-        AuthError.RefreshMissing,
-        'No session cookie: sign in.',
-      );
+      throw authError(AuthError.RefreshMissing, 'No session cookie: sign in.');
     }
     const outcome = await this.writes.run(async (manager) => {
       const rotation = await this.refreshTokens.rotate(manager, secret);
@@ -208,18 +200,13 @@ export class AuthService {
     });
     // Thrown outside the transaction so that the revocation above is committed.
     if (outcome.kind === 'reused') {
-      throw new GyreException(
-        ErrorKind.Unauthenticated,
+      throw authError(
         AuthError.RefreshReused,
         'This session token was already used; all sessions of that sign-in are now ended. Sign in again.',
       );
     }
     if (outcome.kind === 'inactive') {
-      throw new GyreException(
-        ErrorKind.Unauthenticated,
-        AuthError.RefreshInvalid,
-        'The account is not active.',
-      );
+      throw authError(AuthError.RefreshInvalid, 'The account is not active.');
     }
     return {
       response: this.session(outcome.user, outcome.familyId),
@@ -266,8 +253,7 @@ export class AuthService {
       user.passwordHash === null ||
       !(await this.hasher.verify(currentPassword, user.passwordHash))
     ) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw authError(
         AuthError.CurrentPasswordWrong,
         'currentPassword: does not match your password',
         { field: 'currentPassword' },
@@ -365,8 +351,7 @@ export class AuthService {
       const userId = await this.oneTimeTokens.consume(manager, token, 'invitation');
       const user = await this.accounts.byId(userId, manager);
       if (user.state !== 'invited') {
-        throw new GyreException(
-          ErrorKind.BadInput,
+        throw authError(
           AuthError.OneTimeTokenUsed,
           `token: this account is already ${user.state}`,
           { field: 'token' },
@@ -419,8 +404,7 @@ const THROTTLE_REASON: Record<SignInThrottleScope, string> = {
 
 function throttledError(retryAfterMs: number): GyreException {
   const retryAfterS = retryAfterSeconds(retryAfterMs);
-  return new GyreException(
-    ErrorKind.TooManyRequests,
+  return authError(
     AuthError.SignInThrottled,
     `Too many failed sign-ins: wait ${retryAfterS} s before trying again.`,
     { retryAfterS },
@@ -428,8 +412,7 @@ function throttledError(retryAfterMs: number): GyreException {
 }
 
 function lockedError(lockedUntil: string): GyreException {
-  return new GyreException(
-    ErrorKind.Locked,
+  return authError(
     AuthError.AccountLocked,
     `Too many wrong passwords: the account is locked until ${lockedUntil}.`,
     { lockedUntil },

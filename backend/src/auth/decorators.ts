@@ -1,8 +1,7 @@
 import { createParamDecorator, ExecutionContext, SetMetadata } from '@nestjs/common';
 import type { Action, AppAbility, SubjectName } from '@gyre/shared';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { clientAddressOf } from '../common/http/client-address';
-import { AuthError } from './auth.errors';
+import { AuthError, authError } from './auth.errors';
 import { AuthUser, GyreRequest, WorkerPrincipal } from './auth-user';
 
 export const REQUIRED_PERMISSION_KEY = 'gyre:requiredPermission';
@@ -33,7 +32,7 @@ function requestOf(context: ExecutionContext): GyreRequest {
 
 function signedIn(request: GyreRequest): { user: AuthUser; ability: AppAbility } {
   if (request.user === undefined || request.ability === undefined) {
-    throw new GyreException(ErrorKind.Unauthenticated, AuthError.SignInRequired, 'Sign in first.');
+    throw authError(AuthError.SignInRequired, 'Sign in first.');
   }
   return { user: request.user, ability: request.ability };
 }
@@ -41,11 +40,6 @@ function signedIn(request: GyreRequest): { user: AuthUser; ability: AppAbility }
 /** The signed-in user; only on routes behind the global guard. */
 export const CurrentUser = createParamDecorator(
   (_data: unknown, context: ExecutionContext): AuthUser => signedIn(requestOf(context)).user,
-);
-
-/** The signed-in user's CASL ability. */
-export const CurrentAbility = createParamDecorator(
-  (_data: unknown, context: ExecutionContext): AppAbility => signedIn(requestOf(context)).ability,
 );
 
 /**
@@ -56,8 +50,7 @@ export const CurrentWorker = createParamDecorator(
   (_data: unknown, context: ExecutionContext): WorkerPrincipal => {
     const request = requestOf(context);
     if (request.worker === undefined) {
-      throw new GyreException(
-        ErrorKind.Unauthenticated,
+      throw authError(
         AuthError.SignInRequired,
         'This route is for worker processes: send a worker token.',
       );

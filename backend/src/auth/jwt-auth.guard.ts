@@ -2,10 +2,10 @@ import { ExecutionContext, Injectable } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
 import { IS_PUBLIC_KEY } from '../common/decorators/public.decorator';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { GyreException } from '../common/errors/gyre.exception';
 import { WorkerTokenAuth } from '../worker-tokens/worker-token-auth.service';
 import { workerTokenInHeader } from '../worker-tokens/worker-token-secret';
-import { AuthError } from './auth.errors';
+import { AuthError, authError } from './auth.errors';
 import { GyreRequest } from './auth-user';
 
 /**
@@ -43,8 +43,7 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
     if (error !== null && error !== undefined && !(error instanceof Error)) throw error;
     if (error instanceof GyreException) throw error;
     if (user === false || user === null || user === undefined) {
-      throw new GyreException(
-        ErrorKind.Unauthenticated,
+      throw authError(
         AuthError.TokenInvalid,
         'Sign-in is missing, expired or invalid: sign in again.',
       );

@@ -3,10 +3,9 @@ import { Inject, Injectable } from '@nestjs/common';
 import { PassportStrategy } from '@nestjs/passport';
 import { ExtractJwt, Strategy } from 'passport-jwt';
 import { Accounts } from '../accounts/accounts.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
-import { AuthError } from './auth.errors';
+import { AuthError, authError } from './auth.errors';
 import { AuthUser } from './auth-user';
 import { ACCESS_TOKEN_AUDIENCE, ACCESS_TOKEN_ISSUER } from './access-tokens.service';
 import { RefreshTokens } from './refresh-tokens.service';
@@ -48,8 +47,7 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
     const user = this.accounts.signedInFacts(sub);
     if (user === null || user.state !== 'active') return false;
     if (!this.refreshTokens.isLive(user.id, sid)) {
-      throw new GyreException(
-        ErrorKind.Unauthenticated,
+      throw authError(
         AuthError.SessionEnded,
         'This session has ended (signed out, password or role changed, or account locked): sign in again.',
       );

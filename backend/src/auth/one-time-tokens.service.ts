@@ -1,9 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { EntityManager, IsNull } from 'typeorm';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { isoAfter, nowIso } from '../common/time';
-import { AuthError } from './auth.errors';
+import { AuthError, authError } from './auth.errors';
 import { OneTimeToken, OneTimeTokenPurpose } from './one-time-token.entity';
 import { hashTokenSecret, newTokenSecret } from './token-secrets';
 
@@ -48,24 +47,19 @@ export class OneTimeTokens {
     });
     const what = purpose === 'invitation' ? 'invitation' : 'password-reset link';
     if (token === null) {
-      throw new GyreException(
-        ErrorKind.BadInput,
-        AuthError.OneTimeTokenInvalid,
-        `token: this ${what} is not valid`,
-        { field: 'token' },
-      );
+      throw authError(AuthError.OneTimeTokenInvalid, `token: this ${what} is not valid`, {
+        field: 'token',
+      });
     }
     if (token.usedAt !== null) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw authError(
         AuthError.OneTimeTokenUsed,
         `token: this ${what} was already used or replaced by a newer one`,
         { field: 'token' },
       );
     }
     if (token.expiresAt <= nowIso()) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw authError(
         AuthError.OneTimeTokenExpired,
         `token: this ${what} expired at ${token.expiresAt}`,
         { field: 'token', expiresAt: token.expiresAt },
@@ -77,12 +71,9 @@ export class OneTimeTokens {
       { usedAt: nowIso() },
     );
     if (affected !== 1) {
-      throw new GyreException(
-        ErrorKind.BadInput,
-        AuthError.OneTimeTokenUsed,
-        `token: this ${what} was already used`,
-        { field: 'token' },
-      );
+      throw authError(AuthError.OneTimeTokenUsed, `token: this ${what} was already used`, {
+        field: 'token',
+      });
     }
     return token.userId;
   }

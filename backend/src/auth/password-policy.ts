@@ -1,6 +1,5 @@
 import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH } from '@gyre/shared';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { AuthError } from './auth.errors';
+import { AuthError, authError } from './auth.errors';
 import { COMMON_PASSWORDS } from './common-passwords';
 
 /**
@@ -12,15 +11,10 @@ export function assertPasswordAcceptable(
   context: { field: string; email?: string },
 ): void {
   const refuse = (reason: string): never => {
-    throw new GyreException(
-      ErrorKind.BadInput,
-      AuthError.PasswordTooWeak,
-      `${context.field}: ${reason}`,
-      {
-        field: context.field,
-        reason,
-      },
-    );
+    throw authError(AuthError.PasswordTooWeak, `${context.field}: ${reason}`, {
+      field: context.field,
+      reason,
+    });
   };
   const length = [...password].length;
   if (length < PASSWORD_MIN_LENGTH) {

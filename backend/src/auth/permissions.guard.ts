@@ -7,8 +7,7 @@ import {
   type AppAbility,
 } from '@gyre/shared';
 import { IS_PUBLIC_KEY } from '../common/decorators/public.decorator';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { AuthError } from './auth.errors';
+import { AuthError, authError } from './auth.errors';
 import { GyreRequest } from './auth-user';
 import { REQUIRED_PERMISSION_KEY, RequiredPermission, SIGNED_IN_ONLY_KEY } from './decorators';
 import { aRole, capitalise } from './role-wording';
@@ -41,8 +40,7 @@ export class PermissionsGuard implements CanActivate {
       ) {
         return true;
       }
-      throw new GyreException(
-        ErrorKind.Forbidden,
+      throw authError(
         caller.kind === 'user' ? AuthError.RouteWithoutPermission : AuthError.Forbidden,
         caller.kind === 'user'
           ? 'This route declares no permission and is therefore closed.'
@@ -50,8 +48,7 @@ export class PermissionsGuard implements CanActivate {
       );
     }
     if (!caller.ability.can(required.action, required.subject)) {
-      throw new GyreException(
-        ErrorKind.Forbidden,
+      throw authError(
         AuthError.Forbidden,
         `${caller.who} may not ${required.action} ${required.subject}.`,
         { action: required.action, subject: required.subject, ...caller.details },
@@ -105,7 +102,7 @@ function callerOf(request: GyreRequest): CallerAbility {
     };
   }
   if (request.user === undefined) {
-    throw new GyreException(ErrorKind.Unauthenticated, AuthError.SignInRequired, 'Sign in first.');
+    throw authError(AuthError.SignInRequired, 'Sign in first.');
   }
   return {
     kind: 'user',

@@ -2,9 +2,8 @@ import { randomUUID } from 'node:crypto';
 import { Inject, Injectable, Optional } from '@nestjs/common';
 import { EntityManager, IsNull } from 'typeorm';
 import { SqliteReads } from '../common/database/sqlite-reads.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { isoAfter, nowIso } from '../common/time';
-import { AuthError } from './auth.errors';
+import { AuthError, authError } from './auth.errors';
 import { RefreshToken } from './refresh-token.entity';
 import { hashTokenSecret, newTokenSecret, openSuccessor, sealSuccessor } from './token-secrets';
 
@@ -159,9 +158,5 @@ export class RefreshTokens {
 }
 
 function invalid(): never {
-  throw new GyreException(
-    ErrorKind.Unauthenticated,
-    AuthError.RefreshInvalid,
-    'The session has ended or was revoked: sign in again.',
-  );
+  throw authError(AuthError.RefreshInvalid, 'The session has ended or was revoked: sign in again.');
 }

@@ -6,13 +6,6 @@ import { dirname, join, posix, relative, sep } from 'node:path';
 export const DIR_MODE = 0o700;
 export const FILE_MODE = 0o600;
 
-export interface CopiedFile {
-  /** Relative to the backup (or data) folder, with `/` separators. */
-  path: string;
-  bytes: number;
-  sha256: string;
-}
-
 /** Creates a folder (and its missing parents inside `root`) owner-only. */
 export async function ownerOnlyDir(path: string): Promise<void> {
   await mkdir(path, { recursive: true, mode: DIR_MODE });

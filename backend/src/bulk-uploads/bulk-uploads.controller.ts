@@ -8,23 +8,16 @@ import {
   Query,
   Req,
   Res,
+  HttpStatus,
 } from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiBody,
-  ApiConsumes,
-  ApiCreatedResponse,
-  ApiOkResponse,
-  ApiQuery,
-  ApiTags,
-} from '@nestjs/swagger';
+import { ApiBearerAuth, ApiBody, ApiConsumes, ApiQuery, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { Request, Response } from 'express';
 import type { BulkUploadReport } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { BulkUploadReceiver } from './bulk-upload-receiver';
-import { BulkUploadsError } from './bulk-uploads.errors';
+import { BulkUploadsError, bulkUploadsError } from './bulk-uploads.errors';
 import { BulkUploadsService } from './bulk-uploads.service';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
@@ -68,11 +61,12 @@ export class BulkUploadsController {
       },
     },
   })
-  @ApiCreatedResponse({
+  @ApiResult('BulkUploadReport', {
     description:
       'Every row imported (visits, queued recordings, jobs) in one transaction. 422 BULK_UPLOAD_ROWS_INVALID (details.report) when any row fails: nothing imported. 422 BULK_UPLOAD_TOO_MANY_ROWS beyond BULK_UPLOAD_MAX_ROWS, 413 BULK_UPLOAD_TOO_LARGE beyond BULK_UPLOAD_MAX_BYTES or UPLOAD_MAX_BYTES, 400 for a bad form or manifest',
+    status: HttpStatus.CREATED,
   })
-  @ApiOkResponse({ description: 'Dry run: the per-row report, nothing imported' })
+  @ApiResult('BulkUploadReport', { description: 'Dry run: the per-row report, nothing imported' })
   async upload(
     @CurrentCaller() caller: Caller,
     @Param('studyId', ParseUUIDPipe) studyId: string,
@@ -81,8 +75,7 @@ export class BulkUploadsController {
     @Res({ passthrough: true }) response: Response,
   ): Promise<BulkUploadReport> {
     if (dryRun !== undefined && dryRun !== 'true' && dryRun !== 'false') {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw bulkUploadsError(
         BulkUploadsError.FormInvalid,
         `dryRun: '${dryRun}' found, 'true' or 'false' expected`,
         { field: 'dryRun' },

@@ -1,3 +1,5 @@
+import { ErrorKind, errorFactory } from '../common/errors/gyre.exception';
+
 /** Error codes of bulk uploads. */
 export enum BulkUploadsError {
   /** The multipart form is not what a bulk upload sends (400 naming the part). */
@@ -13,3 +15,16 @@ export enum BulkUploadsError {
   /** Another upload changed a visit while the import was written: nothing was imported (409). */
   Conflict = 'BULK_UPLOAD_CONFLICT',
 }
+
+/** The one place each code gets its kind (and so its HTTP status, http-exception.filter.ts). */
+export const BULK_UPLOADS_ERROR_KINDS = {
+  [BulkUploadsError.FormInvalid]: ErrorKind.BadInput,
+  [BulkUploadsError.ManifestInvalid]: ErrorKind.BadInput,
+  [BulkUploadsError.TooManyRows]: ErrorKind.Unprocessable,
+  [BulkUploadsError.TooLarge]: ErrorKind.PayloadTooLarge,
+  [BulkUploadsError.RowsInvalid]: ErrorKind.Unprocessable,
+  [BulkUploadsError.Conflict]: ErrorKind.Conflict,
+} as const satisfies Record<BulkUploadsError, ErrorKind>;
+
+/** A GyreException of this module: the kind comes from BULK_UPLOADS_ERROR_KINDS. */
+export const bulkUploadsError = errorFactory(BULK_UPLOADS_ERROR_KINDS);

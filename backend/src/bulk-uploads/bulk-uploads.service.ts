@@ -16,7 +16,6 @@ import {
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
 import { nowIso } from '../common/time';
 import { Participant } from '../participants/participant.entity';
@@ -28,7 +27,7 @@ import { StudiesService } from '../studies/studies.service';
 import { Visit } from '../visits/visit.entity';
 import { toVisitView } from '../visits/visit-view';
 import type { ReceivedBulkUpload } from './bulk-upload-receiver';
-import { BulkUploadsError } from './bulk-uploads.errors';
+import { BulkUploadsError, bulkUploadsError } from './bulk-uploads.errors';
 import { parseManifest, type ManifestRow } from './manifest';
 
 /** A row that passed every check, with what the import needs. */
@@ -75,8 +74,7 @@ export class BulkUploadsService {
     const report = reportOf(studyId, options.dryRun, planned.reports, planned.strays);
     if (report.summary.errors > 0 || report.strayFiles.length > 0) {
       if (options.dryRun) return report;
-      throw new GyreException(
-        ErrorKind.Unprocessable,
+      throw bulkUploadsError(
         BulkUploadsError.RowsInvalid,
         `Nothing was imported: ${report.summary.errors} of ${report.summary.rows} rows failed${report.strayFiles.length > 0 ? `, ${report.strayFiles.length} uploaded file(s) are not in the manifest` : ''}. See details.report.`,
         { report },
@@ -405,8 +403,7 @@ export class BulkUploadsService {
         row.report.visitId = row.visit?.id ?? null;
       }
       if (isUniqueViolation(error)) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw bulkUploadsError(
           BulkUploadsError.Conflict,
           'Nothing was imported: another upload created one of these visits or recordings meanwhile. Check again (dry run) and retry.',
         );

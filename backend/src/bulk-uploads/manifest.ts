@@ -4,8 +4,8 @@ import {
   BULK_MANIFEST_REQUIRED_COLUMNS,
   type BulkManifestColumn,
 } from '@gyre/shared';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { BulkUploadsError } from './bulk-uploads.errors';
+import { GyreException } from '../common/errors/gyre.exception';
+import { BulkUploadsError, bulkUploadsError } from './bulk-uploads.errors';
 
 /** One data row of a manifest: its 1-based number and its cells (trimmed, '' when empty). */
 export interface ManifestRow {
@@ -55,8 +55,7 @@ export function parseManifest(bytes: Buffer, maxRows: number): ManifestRow[] {
   if (rows.length === 0)
     throw invalid('manifest: a header without rows found, at least one row expected');
   if (rows.length > maxRows) {
-    throw new GyreException(
-      ErrorKind.Unprocessable,
+    throw bulkUploadsError(
       BulkUploadsError.TooManyRows,
       `manifest: ${rows.length} rows found, at most ${maxRows} accepted in one bulk upload (BULK_UPLOAD_MAX_ROWS)`,
       { rows: rows.length, limit: maxRows, setting: 'BULK_UPLOAD_MAX_ROWS' },
@@ -75,5 +74,5 @@ export function parseManifest(bytes: Buffer, maxRows: number): ManifestRow[] {
 }
 
 function invalid(message: string): GyreException {
-  return new GyreException(ErrorKind.BadInput, BulkUploadsError.ManifestInvalid, message);
+  return bulkUploadsError(BulkUploadsError.ManifestInvalid, message);
 }

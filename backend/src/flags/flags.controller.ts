@@ -1,5 +1,6 @@
-import { Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
-import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Get, Param, Post, Query, HttpStatus } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { FlagDto, Page, VisitFlagDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
@@ -15,14 +16,19 @@ export class FlagsController {
 
   @Get('flags')
   @RequirePermission('read', 'Flag')
-  @ApiOkResponse({ description: 'Flags in scope; filter by state, participant, site' })
+  @ApiResult('FlagDto', {
+    description: 'Flags in scope; filter by state, participant, site',
+    page: true,
+  })
   list(@CurrentCaller() caller: Caller, @Query() query: FlagListQueryDto): Promise<Page<FlagDto>> {
     return this.flags.list(caller, query);
   }
 
   @Get('visits/:visitId/flag')
   @RequirePermission('read', 'Flag')
-  @ApiOkResponse({ description: "The visit's flag, its history and the computation's suggestion" })
+  @ApiResult('VisitFlagDto', {
+    description: "The visit's flag, its history and the computation's suggestion",
+  })
   forVisit(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
@@ -32,7 +38,10 @@ export class FlagsController {
 
   @Post('visits/:visitId/flag/raise')
   @RequirePermission('create', 'Flag')
-  @ApiCreatedResponse({ description: 'Raises the slowing flag (reason ≥ 10 characters, audited)' })
+  @ApiResult('VisitFlagDto', {
+    description: 'Raises the slowing flag (reason ≥ 10 characters, audited)',
+    status: HttpStatus.CREATED,
+  })
   raise(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
@@ -43,7 +52,10 @@ export class FlagsController {
 
   @Post('visits/:visitId/flag/clear')
   @RequirePermission('update', 'Flag')
-  @ApiCreatedResponse({ description: 'Clears the raised flag (reason ≥ 10 characters, audited)' })
+  @ApiResult('VisitFlagDto', {
+    description: 'Clears the raised flag (reason ≥ 10 characters, audited)',
+    status: HttpStatus.CREATED,
+  })
   clear(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,

@@ -9,7 +9,6 @@ import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
@@ -17,7 +16,7 @@ import type { Visit } from '../visits/visit.entity';
 import { VisitsService } from '../visits/visits.service';
 import { FlagListQueryDto } from './dto/flag-list-query.dto';
 import { Flag } from './flag.entity';
-import { FlagsError } from './flags.errors';
+import { FlagsError, flagsError } from './flags.errors';
 
 /**
  * Slowing flags on visits. Only an analyst raises or clears one, with a reason; the
@@ -68,8 +67,7 @@ export class FlagsService {
     await this.writes.run(async (manager) => {
       const raised = await manager.getRepository(Flag).findOneBy({ visitId, state: 'raised' });
       if (raised !== null) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw flagsError(
           FlagsError.AlreadyRaised,
           `Visit ${visitId} already has a raised slowing flag (${raised.id}); clear it first.`,
           { flagId: raised.id },
@@ -113,8 +111,7 @@ export class FlagsService {
     await this.writes.run(async (manager) => {
       const raised = await manager.getRepository(Flag).findOneBy({ visitId, state: 'raised' });
       if (raised === null) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw flagsError(
           FlagsError.NotRaised,
           `Visit ${visitId} has no raised slowing flag to clear.`,
           { visitId },
@@ -180,12 +177,7 @@ export class FlagsService {
   ): Promise<Visit> {
     const visit = await this.visits.inScopeOf(caller, action, 'Flag', visitId);
     if (visit === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        FlagsError.VisitNotFound,
-        `No visit ${visitId}.`,
-        { visitId },
-      );
+      throw flagsError(FlagsError.VisitNotFound, `No visit ${visitId}.`, { visitId });
     }
     return visit;
   }

@@ -1,5 +1,6 @@
 import { Controller, Get, Res } from '@nestjs/common';
-import { ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { Response } from 'express';
 import { HealthReport } from '@gyre/shared';
 import { Public } from '../common/decorators/public.decorator';
@@ -12,7 +13,7 @@ export class HealthController {
 
   @Public()
   @Get()
-  @ApiOkResponse({ description: 'Database reachability, migration state and version' })
+  @ApiResult('HealthReport', { description: 'Database reachability, migration state and version' })
   async get(@Res({ passthrough: true }) response: Response): Promise<HealthReport> {
     const report = await this.health.report();
     if (report.status === 'down') response.status(503);

@@ -1,5 +1,6 @@
-import { Body, Controller, Param, Post } from '@nestjs/common';
-import { ApiBearerAuth, ApiCreatedResponse, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Param, Post, HttpStatus } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { JobDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
@@ -14,8 +15,9 @@ export class RunsController {
 
   @Post('recordings/:recordingId/runs')
   @RequirePermission('rerun', 'AnalysisRun')
-  @ApiCreatedResponse({
+  @ApiResult('JobDto', {
     description: 'Queues the recording again with the current settings (audited)',
+    status: HttpStatus.CREATED,
   })
   rerunRecording(
     @CurrentCaller() caller: Caller,
@@ -27,8 +29,10 @@ export class RunsController {
 
   @Post('visits/:visitId/runs')
   @RequirePermission('rerun', 'AnalysisRun')
-  @ApiCreatedResponse({
+  @ApiResult('JobDto', {
     description: 'Queues every current ready or failed recording of the visit (audited)',
+    array: true,
+    status: HttpStatus.CREATED,
   })
   rerunVisit(
     @CurrentCaller() caller: Caller,

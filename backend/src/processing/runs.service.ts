@@ -1,11 +1,10 @@
 import { Injectable } from '@nestjs/common';
 import type { JobDto } from '@gyre/shared';
 import type { Caller } from '../auth/decorators';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { toJobDto } from '../recordings/recording.view';
 import { RecordingsService } from '../recordings/recordings.service';
 import { VisitsService } from '../visits/visits.service';
-import { ProcessingError } from './processing.errors';
+import { ProcessingError, processingError } from './processing.errors';
 
 /** Analyst re-runs: one recording, or every current recording of a visit. */
 @Injectable()
@@ -39,21 +38,15 @@ export class RunsService {
   async rerunVisit(caller: Caller, visitId: string, reason: string | null): Promise<JobDto[]> {
     const visit = await this.visits.findInScope(caller, 'read', visitId);
     if (!caller.ability.can('rerun', 'AnalysisRun')) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        ProcessingError.VisitNotFound,
-        `No visit ${visitId}.`,
-        {
-          visitId,
-        },
-      );
+      throw processingError(ProcessingError.VisitNotFound, `No visit ${visitId}.`, {
+        visitId,
+      });
     }
     const recordings = (await this.recordings.currentOfVisits([visit.id])).filter(
       (r) => r.state === 'ready' || r.state === 'failed',
     );
     if (recordings.length === 0) {
-      throw new GyreException(
-        ErrorKind.Conflict,
+      throw processingError(
         ProcessingError.NothingToCompute,
         `Visit ${visitId} has no ready or failed recording to compute again.`,
         { visitId },

@@ -1,7 +1,6 @@
 import { json } from 'express';
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { RemoteWorkersError } from './remote-workers.errors';
+import { RemoteWorkersError, remoteWorkersError } from './remote-workers.errors';
 import { RESULT_CONTENT_TYPE } from './result-wire';
 
 /**
@@ -16,8 +15,7 @@ export function resultBodyParser(limitBytes: number): RequestHandler {
       const type = (error as { type?: unknown }).type;
       if (type === 'entity.too.large') {
         return next(
-          new GyreException(
-            ErrorKind.PayloadTooLarge,
+          remoteWorkersError(
             RemoteWorkersError.ResultTooLarge,
             `The result is larger than WORKER_RESULT_MAX_BYTES (${limitBytes} bytes).`,
             { limitBytes },
@@ -26,8 +24,7 @@ export function resultBodyParser(limitBytes: number): RequestHandler {
       }
       const reason = error instanceof Error ? error.message : String(error);
       return next(
-        new GyreException(
-          ErrorKind.BadInput,
+        remoteWorkersError(
           RemoteWorkersError.ResultInvalid,
           `The result is not valid JSON: ${reason}`,
         ),

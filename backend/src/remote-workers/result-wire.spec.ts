@@ -3,14 +3,11 @@ import { spawnSync } from 'node:child_process';
 import type { RunSummary } from '../signal/pipeline/run-summary';
 import { base64ToFloat64, encodeResultBody, float64ToBase64, parseResultBody } from './result-wire';
 import { parseRemoteJobId, remoteJobId } from './remote-job';
+import { seededUniform } from '../signal/onset/random';
 
 /** Seeded values of every kind: ordinary, tiny, huge, negative zero, subnormal, NaN. */
 function awkwardValues(): Float64Array {
-  let state = 20260115;
-  const next = (): number => {
-    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
-    return state / 2 ** 32;
-  };
+  const next = seededUniform(20260115);
   const values = Array.from(
     { length: 200 },
     () => (next() - 0.5) * 10 ** Math.floor(next() * 40 - 20),

@@ -18,6 +18,7 @@ import {
   ApiOperation,
   ApiTags,
 } from '@nestjs/swagger';
+import { ApiFile, ApiResult } from '../openapi/api-responses';
 import type { Response } from 'express';
 import type { WorkerPrincipal } from '../auth/auth-user';
 import { CurrentWorker, RequirePermission } from '../auth/decorators';
@@ -47,6 +48,7 @@ export class WorkerJobsController {
   @Get('input')
   @RequirePermission('read', 'JobInput')
   @ApiOperation({ summary: 'The task to compute: settings, IAF, onsets, the file’s SHA-256' })
+  @ApiResult('RemoteTask', { description: 'The attempt’s task' })
   input(
     @Param('jobId', ParseUUIDPipe) jobId: string,
     @Param('attempt', attemptPipe) attempt: number,
@@ -57,6 +59,7 @@ export class WorkerJobsController {
   @Get('file')
   @RequirePermission('read', 'JobInput')
   @ApiOperation({ summary: 'The stored recording (EDF); its SHA-256 is in X-Gyre-Sha256' })
+  @ApiFile('application/octet-stream', 'The EDF file as stored (patient field blanked)')
   async file(
     @Param('jobId', ParseUUIDPipe) jobId: string,
     @Param('attempt', attemptPipe) attempt: number,

@@ -2,7 +2,7 @@ import { createReadStream } from 'node:fs';
 import type { ReadStream } from 'node:fs';
 import { Inject, Injectable, Logger } from '@nestjs/common';
 import type { WorkerPrincipal } from '../auth/auth-user';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { GyreException } from '../common/errors/gyre.exception';
 import { ComputationSteps } from '../processing/computation-steps.service';
 import { ComputationsService } from '../processing/computations.service';
 import { RemoteComputations } from '../processing/remote-computations.service';
@@ -13,7 +13,7 @@ import { RecordingsService } from '../recordings/recordings.service';
 import { GYRE_VERSION } from '../version';
 import type { WorkerResultAnswerDto } from './dto/worker-job.dto';
 import type { AttemptRef, RemoteTask } from './remote-job';
-import { RemoteWorkersError } from './remote-workers.errors';
+import { RemoteWorkersError, remoteWorkersError } from './remote-workers.errors';
 import { parseResultBody } from './result-wire';
 
 /** Progress reaches the queue table at most this often per job (SSE listeners get each post). */
@@ -84,8 +84,7 @@ export class WorkerJobsService {
     this.assertRemote();
     const parsed = parseResultBody(body);
     if (!parsed.ok) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw remoteWorkersError(
         RemoteWorkersError.ResultInvalid,
         `The result is not one Gyre can store: ${parsed.problems.join('; ')}`,
         { problems: parsed.problems },
@@ -135,8 +134,7 @@ export class WorkerJobsService {
 
   private assertRemote(): void {
     if (!this.remote.enabled) {
-      throw new GyreException(
-        ErrorKind.NotFound,
+      throw remoteWorkersError(
         RemoteWorkersError.NotRemote,
         'This server computes in its own process (REDIS_URL is not set): it has no jobs for workers.',
       );
@@ -145,19 +143,13 @@ export class WorkerJobsService {
 }
 
 function jobNotFound(ref: AttemptRef): GyreException {
-  return new GyreException(
-    ErrorKind.NotFound,
-    RemoteWorkersError.JobNotFound,
-    `No job ${ref.jobId}.`,
-    {
-      ...ref,
-    },
-  );
+  return remoteWorkersError(RemoteWorkersError.JobNotFound, `No job ${ref.jobId}.`, {
+    ...ref,
+  });
 }
 
 function notCurrent(ref: AttemptRef, why: string): GyreException {
-  return new GyreException(
-    ErrorKind.Conflict,
+  return remoteWorkersError(
     RemoteWorkersError.AttemptNotCurrent,
     `Attempt ${ref.attempt} of job ${ref.jobId} is not current: ${why}.`,
     { ...ref },
@@ -169,8 +161,7 @@ function handedOverAgain(ref: AttemptRef): GyreException {
 }
 
 function versionMismatch(workerVersion: string): GyreException {
-  return new GyreException(
-    ErrorKind.Unprocessable,
+  return remoteWorkersError(
     RemoteWorkersError.VersionMismatch,
     `The worker runs Gyre ${workerVersion} and the server ${GYRE_VERSION}: results are only taken from the same version.`,
     { workerVersion, serverVersion: GYRE_VERSION },

@@ -1,5 +1,6 @@
 import { Controller, Get, Param, Query } from '@nestjs/common';
-import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { Page, ReportDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
@@ -14,7 +15,10 @@ export class ReportsController {
 
   @Get('reports')
   @RequirePermission('read', 'Report')
-  @ApiOkResponse({ description: 'Reports in scope (coordinators: signed reports of their site)' })
+  @ApiResult('ReportDto', {
+    description: 'Reports in scope (coordinators: signed reports of their site)',
+    page: true,
+  })
   list(
     @CurrentCaller() caller: Caller,
     @Query() query: ReportListQueryDto,
@@ -24,7 +28,7 @@ export class ReportsController {
 
   @Get('visits/:visitId/report')
   @RequirePermission('read', 'Report')
-  @ApiOkResponse({ description: "The visit's report (a draft until signing exists)" })
+  @ApiResult('ReportDto', { description: "The visit's report (a draft until signing exists)" })
   forVisit(@CurrentCaller() caller: Caller, @Param('visitId') visitId: string): Promise<ReportDto> {
     return this.reports.forVisit(caller, visitId);
   }

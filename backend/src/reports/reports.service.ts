@@ -7,7 +7,6 @@ import type { Action, Page, ReportDto } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
@@ -16,7 +15,7 @@ import type { VisitResultsChanged } from '../analysis/analysis.events';
 import { WriteTransactions } from '../common/database/write-transactions.service';
 import { ReportListQueryDto } from './dto/report-list-query.dto';
 import { Report } from './report.entity';
-import { ReportsError } from './reports.errors';
+import { ReportsError, reportsError } from './reports.errors';
 
 /** The visit a report belongs to, with the columns its scope needs. */
 type ReportVisit = Pick<VisitResultsChanged, 'visitId' | 'participantId' | 'studyId' | 'siteId'>;
@@ -111,14 +110,9 @@ export class ReportsService {
       where: scopedWhere<Report>(caller.ability, 'read', 'Report', { visitId }),
     });
     if (report === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        ReportsError.NotFound,
-        `No report for visit ${visitId}.`,
-        {
-          visitId,
-        },
-      );
+      throw reportsError(ReportsError.NotFound, `No report for visit ${visitId}.`, {
+        visitId,
+      });
     }
     return toReportDto(report);
   }

@@ -64,8 +64,3 @@ export function caseSeed(seed: number, index: number): number {
   h ^= h >>> 16;
   return h | 0;
 }
-
-/** A seed for a run when none is given: printed, so the run can be repeated. */
-export function freshSeed(): number {
-  return Math.floor(Math.random() * 0x7fffffff);
-}

@@ -7,13 +7,13 @@ import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { DuplicateRowError, isUniqueViolation } from '../common/errors/unique-violation';
 import { nowIso } from '../common/time';
 import { StudiesService } from '../studies/studies.service';
 import { CreatePlannedVisitDto, UpdatePlannedVisitDto } from './dto/schedule.dto';
 import { PlannedVisit } from './planned-visit.entity';
-import { ScheduleError } from './schedule.errors';
+import { StudiesError, studiesError } from '../studies/studies.errors';
+import { ScheduleError, scheduleError } from './schedule.errors';
 import { toPlannedVisitView } from './schedule-views';
 
 /** A study's visit schedule: the admin writes it, everyone in the study reads it. */
@@ -95,8 +95,7 @@ export class PlannedVisitsService {
       if (users.length > 0) {
         const named = users.slice(0, 5).map((u) => u.code);
         const more = users.length > named.length ? ` and ${users.length - named.length} more` : '';
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw scheduleError(
           ScheduleError.PlannedVisitInUse,
           `Planned visit ${current.name} is in use: ${users.length} visit(s) were registered on it (${named.join(', ')}${more})`,
           { plannedVisitId: id, visits: users.length, participantCodes: named },
@@ -162,8 +161,7 @@ export class PlannedVisitsService {
       });
     } catch (error) {
       if (isUniqueViolation(error)) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw scheduleError(
           ScheduleError.PlannedVisitNameTaken,
           `name: the study's schedule already has a planned visit ${name}`,
           { field: 'name', value: name },
@@ -180,9 +178,8 @@ export class PlannedVisitsService {
   ): Promise<void> {
     await this.studies.findInScope(caller, 'read', studyId);
     if (!caller.ability.can(action, subject('PlannedVisit', { studyId }))) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        'STUDY_NOT_FOUND',
+      throw studiesError(
+        StudiesError.NotFound,
         `No study ${studyId} whose schedule you may change`,
         { id: studyId },
       );
@@ -199,8 +196,7 @@ export class PlannedVisitsService {
       where: scopedWhere<PlannedVisit>(caller.ability, action, 'PlannedVisit', { id, studyId }),
     });
     if (row === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
+      throw scheduleError(
         ScheduleError.PlannedVisitNotFound,
         `No planned visit ${id} in study ${studyId}`,
         { field: 'id', id },

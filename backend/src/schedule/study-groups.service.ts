@@ -7,13 +7,13 @@ import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
 import { nowIso } from '../common/time';
 import { StudiesService } from '../studies/studies.service';
 import { CreateStudyGroupDto, UpdateStudyGroupDto } from './dto/schedule.dto';
 import { assertNameFree } from './planned-visits.service';
-import { ScheduleError } from './schedule.errors';
+import { StudiesError, studiesError } from '../studies/studies.errors';
+import { ScheduleError, scheduleError } from './schedule.errors';
 import { toStudyGroupView } from './schedule-views';
 import { StudyGroup } from './study-group.entity';
 
@@ -83,8 +83,7 @@ export class StudyGroupsService {
         const named = members.slice(0, 5).map((m) => m.code);
         const more =
           members.length > named.length ? ` and ${members.length - named.length} more` : '';
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw scheduleError(
           ScheduleError.GroupInUse,
           `Group ${current.name} is in use: ${members.length} participant(s) belong to it (${named.join(', ')}${more})`,
           { groupId: id, participants: members.length, participantCodes: named },
@@ -135,8 +134,7 @@ export class StudyGroupsService {
       });
     } catch (error) {
       if (isUniqueViolation(error)) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw scheduleError(
           ScheduleError.GroupNameTaken,
           `name: the study already has a group ${row.name}`,
           { field: 'name', value: row.name },
@@ -153,12 +151,9 @@ export class StudyGroupsService {
   ): Promise<void> {
     await this.studies.findInScope(caller, 'read', studyId);
     if (!caller.ability.can(action, subject('StudyGroup', { studyId }))) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        'STUDY_NOT_FOUND',
-        `No study ${studyId} whose groups you may change`,
-        { id: studyId },
-      );
+      throw studiesError(StudiesError.NotFound, `No study ${studyId} whose groups you may change`, {
+        id: studyId,
+      });
     }
   }
 
@@ -172,12 +167,10 @@ export class StudyGroupsService {
       where: scopedWhere<StudyGroup>(caller.ability, action, 'StudyGroup', { id, studyId }),
     });
     if (row === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        ScheduleError.GroupNotFound,
-        `No group ${id} in study ${studyId}`,
-        { field: 'id', id },
-      );
+      throw scheduleError(ScheduleError.GroupNotFound, `No group ${id} in study ${studyId}`, {
+        field: 'id',
+        id,
+      });
     }
     return row;
   }

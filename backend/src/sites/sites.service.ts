@@ -7,7 +7,7 @@ import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { GyreException } from '../common/errors/gyre.exception';
 import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
@@ -17,7 +17,7 @@ import { StudiesService } from '../studies/studies.service';
 import { CreateSiteDto, SiteQueryDto, UpdateSiteDto } from './dto/site.dto';
 import { Site } from './site.entity';
 import { toSiteView } from './site-view';
-import { SitesError } from './sites.errors';
+import { SitesError, sitesError } from './sites.errors';
 
 @Injectable()
 export class SitesService {
@@ -90,8 +90,7 @@ export class SitesService {
         [id, id],
       )) as { participants: number; users: number }[];
       if (participants > 0 || users > 0) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw sitesError(
           SitesError.InUse,
           `Site ${site.code} still has ${participants} participant(s) and ${users} user(s)`,
           { participants, users },
@@ -133,8 +132,7 @@ export class SitesService {
       });
     } catch (error) {
       if (isUniqueViolation(error)) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw sitesError(
           SitesError.CodeTaken,
           `code: this study already has a site with code ${site.code}`,
           { field: 'code', value: site.code },
@@ -177,5 +175,5 @@ export class SitesService {
 }
 
 function notFound(id: string, field: string): GyreException {
-  return new GyreException(ErrorKind.NotFound, SitesError.NotFound, `No site ${id}`, { field, id });
+  return sitesError(SitesError.NotFound, `No site ${id}`, { field, id });
 }

@@ -12,14 +12,13 @@ import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { containsText } from '../common/pagination/text-filter';
 import { nowIso } from '../common/time';
 import { CreateStudyDto, StudyQueryDto, UpdateStudyDto } from './dto/study.dto';
-import { StudiesError } from './studies.errors';
+import { StudiesError, studiesError } from './studies.errors';
 import { Study } from './study.entity';
 import { toStudyView } from './study-view';
 
@@ -103,15 +102,10 @@ export class StudiesService {
       });
     } catch (error) {
       if (isUniqueViolation(error)) {
-        throw new GyreException(
-          ErrorKind.Conflict,
-          StudiesError.CodeTaken,
-          `code: a study with code ${study.code} exists`,
-          {
-            field: 'code',
-            value: study.code,
-          },
-        );
+        throw studiesError(StudiesError.CodeTaken, `code: a study with code ${study.code} exists`, {
+          field: 'code',
+          value: study.code,
+        });
       }
       throw error;
     }
@@ -123,7 +117,7 @@ export class StudiesService {
       where: scopedWhere<Study>(caller.ability, action, 'Study', { id }),
     });
     if (study === null) {
-      throw new GyreException(ErrorKind.NotFound, StudiesError.NotFound, `No study ${id}`, { id });
+      throw studiesError(StudiesError.NotFound, `No study ${id}`, { id });
     }
     return study;
   }

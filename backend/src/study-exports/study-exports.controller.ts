@@ -1,12 +1,6 @@
 import { Controller, Get, Param, ParseUUIDPipe, Res } from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiForbiddenResponse,
-  ApiOkResponse,
-  ApiOperation,
-  ApiProduces,
-  ApiTags,
-} from '@nestjs/swagger';
+import { ApiBearerAuth, ApiForbiddenResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { ApiFile } from '../openapi/api-responses';
 import type { Response } from 'express';
 import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
 import { StudyExportsService } from './study-exports.service';
@@ -24,8 +18,7 @@ export class StudyExportsController {
     summary:
       "The study's current results, one row per participant × visit × recording × measure (audited)",
   })
-  @ApiProduces('text/csv')
-  @ApiOkResponse({ description: 'text/csv (RFC 4180); columns in results-dictionary.csv' })
+  @ApiFile('text/csv', 'text/csv (RFC 4180); columns in results-dictionary.csv')
   async results(
     @CurrentCaller() caller: Caller,
     @Param('studyId', ParseUUIDPipe) studyId: string,
@@ -37,8 +30,7 @@ export class StudyExportsController {
   @Get('results-dictionary.csv')
   @RequirePermission('export', 'Result')
   @ApiOperation({ summary: 'The data dictionary of results.csv: one row per column' })
-  @ApiProduces('text/csv')
-  @ApiOkResponse({ description: 'text/csv: column, level, type, unit, description, levels' })
+  @ApiFile('text/csv', 'text/csv: column, level, type, unit, description, levels')
   async dictionary(
     @CurrentCaller() caller: Caller,
     @Param('studyId', ParseUUIDPipe) studyId: string,
@@ -52,8 +44,7 @@ export class StudyExportsController {
   @ApiOperation({
     summary: "The study's current results as an EEG-BIDS derivatives folder, zipped (audited)",
   })
-  @ApiProduces('application/zip')
-  @ApiOkResponse({ description: 'application/zip, streamed' })
+  @ApiFile('application/zip', 'application/zip, streamed')
   async zip(
     @CurrentCaller() caller: Caller,
     @Param('studyId', ParseUUIDPipe) studyId: string,

@@ -1,5 +1,6 @@
 import { Controller, Get, Param, ParseUUIDPipe } from '@nestjs/common';
-import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { StudyOverviewDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
@@ -13,7 +14,7 @@ export class StudyOverviewController {
 
   @Get()
   @RequirePermission('read', 'StudyOverview')
-  @ApiOkResponse({
+  @ApiResult('StudyOverviewDto', {
     description:
       'Per planned visit: each participant’s PAF, CoG and Δf, group and site means with 95 % Student t intervals, the completion matrix and the site quality comparison',
   })

@@ -10,10 +10,9 @@ import {
   type StudyOverviewDto,
 } from '@gyre/shared';
 import type { Caller } from '../auth/decorators';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { reviewFingerprintOf } from '../visit-reviews/review-fingerprint';
 import { meanWithInterval } from './group-stats';
-import { StudyOverviewError } from './study-overview.errors';
+import { StudyOverviewError, studyOverviewError } from './study-overview.errors';
 import {
   StudyOverviewSources,
   type LiveRecordingRow,
@@ -46,12 +45,9 @@ export class StudyOverviewService {
       !caller.ability.can('read', subject('StudyOverview', { studyId })) ||
       !this.sources.studyExists(studyId)
     ) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        StudyOverviewError.StudyNotFound,
-        `No study ${studyId}.`,
-        { studyId },
-      );
+      throw studyOverviewError(StudyOverviewError.StudyNotFound, `No study ${studyId}.`, {
+        studyId,
+      });
     }
     const planned = this.sources.plannedVisits(studyId);
     const groups = this.sources.groups(studyId);

@@ -1,5 +1,6 @@
 import { Controller, Get, Param } from '@nestjs/common';
-import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { TrajectoryDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
@@ -13,7 +14,7 @@ export class TrajectoryController {
 
   @Get()
   @RequirePermission('read', 'Result')
-  @ApiOkResponse({
+  @ApiResult('TrajectoryDto', {
     description:
       'PAF, CoG and Δf per visit, change from the first visit, Theil–Sen slopes (Hz/year), flagged visits',
   })

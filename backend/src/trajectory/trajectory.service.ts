@@ -2,8 +2,7 @@ import { Injectable } from '@nestjs/common';
 import type { TrajectoryDto, TrajectoryVisitDto, TrendDto } from '@gyre/shared';
 import { AnalysisRunsService, type RunNumbers } from '../analysis/analysis-runs.service';
 import type { Caller } from '../auth/decorators';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { TrajectoryError } from './trajectory.errors';
+import { TrajectoryError, trajectoryError } from './trajectory.errors';
 import { TrajectoryInputs } from './trajectory-inputs';
 import { trendOf } from './trend-rule';
 
@@ -26,8 +25,7 @@ export class TrajectoryService {
   async forParticipant(caller: Caller, participantId: string): Promise<TrajectoryDto> {
     const participant = this.inputs.participantInScope(caller, participantId);
     if (participant === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
+      throw trajectoryError(
         TrajectoryError.ParticipantNotFound,
         `No participant ${participantId}.`,
         { participantId },

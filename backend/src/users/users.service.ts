@@ -11,7 +11,7 @@ import { OneTimeTokens } from '../auth/one-time-tokens.service';
 import { RefreshTokens } from '../auth/refresh-tokens.service';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
@@ -25,7 +25,7 @@ import { SitesService } from '../sites/sites.service';
 import { StudiesService } from '../studies/studies.service';
 import { InviteUserDto, UpdateUserDto, UserQueryDto } from './dto/user.dto';
 import { toUserView } from './user-view';
-import { UsersError } from './users.errors';
+import { UsersError, usersError } from './users.errors';
 
 @Injectable()
 export class UsersService {
@@ -122,14 +122,9 @@ export class UsersService {
   async resendInvitation(caller: Caller, id: string): Promise<UserView> {
     const user = await this.findInScope(caller, 'invite', id);
     if (user.state !== 'invited') {
-      throw new GyreException(
-        ErrorKind.Conflict,
-        UsersError.NotInvited,
-        `The account is ${user.state}, not invited`,
-        {
-          state: user.state,
-        },
-      );
+      throw usersError(UsersError.NotInvited, `The account is ${user.state}, not invited`, {
+        state: user.state,
+      });
     }
     await this.writes.run(async (manager) => {
       await this.sendInvitation(manager, user);
@@ -154,8 +149,7 @@ export class UsersService {
       current.id === caller.user.id &&
       (dto.state === 'deactivated' || (dto.role !== undefined && dto.role !== current.role))
     ) {
-      throw new GyreException(
-        ErrorKind.Conflict,
+      throw usersError(
         UsersError.SelfLockout,
         'You cannot deactivate yourself or change your own role; ask another admin',
       );
@@ -169,8 +163,7 @@ export class UsersService {
         dto.siteId !== undefined ? dto.siteId : current.siteId,
       );
       if (dto.state === 'active' && current.state === 'invited') {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw usersError(
           UsersError.NotInvited,
           'state: an invited account becomes active only when the invitation is accepted',
           { field: 'state' },
@@ -239,16 +232,11 @@ export class UsersService {
   ): Promise<{ studyId: string | null; siteId: string | null }> {
     const kind = membershipOf(role);
     const refuse = (field: string, message: string, value: unknown): never => {
-      throw new GyreException(
-        ErrorKind.BadInput,
-        UsersError.MembershipInvalid,
-        `${field}: ${message}`,
-        {
-          field,
-          value,
-          role,
-        },
-      );
+      throw usersError(UsersError.MembershipInvalid, `${field}: ${message}`, {
+        field,
+        value,
+        role,
+      });
     };
     if (kind === 'installation') return { studyId: null, siteId: null };
     if (studyId === null) {
@@ -284,20 +272,15 @@ export class UsersService {
       scopedWhere<User>(caller.ability, action, 'User', { id }),
     );
     if (user === null) {
-      throw new GyreException(ErrorKind.NotFound, UsersError.NotFound, `No user ${id}`, { id });
+      throw usersError(UsersError.NotFound, `No user ${id}`, { id });
     }
     return user;
   }
 }
 
 function emailTaken(email: string): GyreException {
-  return new GyreException(
-    ErrorKind.Conflict,
-    UsersError.EmailTaken,
-    `email: ${email} already has an account`,
-    {
-      field: 'email',
-      value: email,
-    },
-  );
+  return usersError(UsersError.EmailTaken, `email: ${email} already has an account`, {
+    field: 'email',
+    value: email,
+  });
 }

@@ -1,5 +1,6 @@
-import { Body, Controller, Get, Param, Post } from '@nestjs/common';
-import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Get, Param, Post, HttpStatus } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import type { VisitReviewStateDto } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
@@ -14,7 +15,7 @@ export class VisitReviewsController {
 
   @Get()
   @RequirePermission('read', 'VisitReview')
-  @ApiOkResponse({
+  @ApiResult('VisitReviewStateDto', {
     description: "Whether the visit's current results are reviewed, by whom and when",
   })
   state(
@@ -26,9 +27,10 @@ export class VisitReviewsController {
 
   @Post()
   @RequirePermission('create', 'VisitReview')
-  @ApiCreatedResponse({
+  @ApiResult('VisitReviewStateDto', {
     description:
       'Marks the results the analyst saw (their fingerprint) reviewed, audited; 409 when there are none, they changed meanwhile or they are reviewed already',
+    status: HttpStatus.CREATED,
   })
   markReviewed(
     @CurrentCaller() caller: Caller,

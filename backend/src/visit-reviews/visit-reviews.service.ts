@@ -7,7 +7,6 @@ import type { VisitReviewDto, VisitReviewStateDto } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
 import type { Recording } from '../recordings/recording.entity';
 import { RecordingsService } from '../recordings/recordings.service';
@@ -15,7 +14,7 @@ import type { Visit } from '../visits/visit.entity';
 import { VisitsService } from '../visits/visits.service';
 import { reviewFingerprintOf } from './review-fingerprint';
 import { VisitReview } from './visit-review.entity';
-import { VisitReviewsError } from './visit-reviews.errors';
+import { VisitReviewsError, visitReviewsError } from './visit-reviews.errors';
 
 const COMPUTING: ReadonlySet<Recording['state']> = new Set(['queued', 'computing']);
 
@@ -50,16 +49,14 @@ export class VisitReviewsService {
       const current = await this.recordings.currentOfVisits([visitId]);
       const now = reviewFingerprintOf(current);
       if (now === null) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw visitReviewsError(
           VisitReviewsError.NoResults,
           `Visit ${visitId} has no results to review yet.`,
           { visitId },
         );
       }
       if (now.fingerprint !== seenFingerprint) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw visitReviewsError(
           VisitReviewsError.ResultsChanged,
           `fingerprint: the visit's results have changed since you loaded them (found ${seenFingerprint}, now ${now.fingerprint}); review them again.`,
           { field: 'fingerprint', found: seenFingerprint, expected: now.fingerprint },
@@ -67,8 +64,7 @@ export class VisitReviewsService {
       }
       const computing = current.filter((r) => COMPUTING.has(r.state));
       if (computing.length > 0) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw visitReviewsError(
           VisitReviewsError.Computing,
           `The ${computing.map((r) => r.kind).join(' and ')} recording of visit ${visitId} is being computed; review when it is done.`,
           { visitId, recordingIds: computing.map((r) => r.id) },
@@ -76,8 +72,7 @@ export class VisitReviewsService {
       }
       const latest = await this.latestOf(visitId, manager.getRepository(VisitReview));
       if (latest !== null && latest.fingerprint === now.fingerprint) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw visitReviewsError(
           VisitReviewsError.AlreadyReviewed,
           `${latest.reviewedByName} reviewed these results of visit ${visitId} at ${latest.reviewedAt}; nothing has changed since.`,
           { reviewId: latest.id, reviewedAt: latest.reviewedAt },
@@ -186,12 +181,7 @@ export class VisitReviewsService {
   ): Promise<Visit> {
     const visit = await this.visits.inScopeOf(caller, action, 'VisitReview', visitId);
     if (visit === null) {
-      throw new GyreException(
-        ErrorKind.NotFound,
-        VisitReviewsError.VisitNotFound,
-        `No visit ${visitId}.`,
-        { visitId },
-      );
+      throw visitReviewsError(VisitReviewsError.VisitNotFound, `No visit ${visitId}.`, { visitId });
     }
     return visit;
   }

@@ -3,10 +3,10 @@ import {
   ApiBearerAuth,
   ApiForbiddenResponse,
   ApiNotFoundResponse,
-  ApiOkResponse,
   ApiPropertyOptional,
   ApiTags,
 } from '@nestjs/swagger';
+import { ApiResult } from '../openapi/api-responses';
 import { IsOptional, IsUUID, Matches } from 'class-validator';
 import { CALENDAR_DATE_PATTERN, type DueListView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
@@ -33,7 +33,7 @@ export class DueVisitsController {
 
   @Get()
   @RequirePermission('read', 'Visit')
-  @ApiOkResponse({
+  @ApiResult('DueListView', {
     description: 'Per participant in your scope, the planned visits due or overdue',
   })
   @ApiNotFoundResponse({ description: 'No such study in your scope' })

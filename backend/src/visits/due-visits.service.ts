@@ -4,13 +4,12 @@ import { In, Not, IsNull, Repository, type FindOptionsWhere } from 'typeorm';
 import { dueVisits, isCalendarDate, type DueListView, type DueParticipantView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
 import { Participant } from '../participants/participant.entity';
 import { ParticipantsService } from '../participants/participants.service';
 import { PlannedVisitsService } from '../schedule/planned-visits.service';
 import { StudiesService } from '../studies/studies.service';
 import { Visit } from './visit.entity';
-import { VisitsError } from './visits.errors';
+import { VisitsError, visitsError } from './visits.errors';
 
 /**
  * What is due in a study on a day: per participant in the caller's scope, the planned visits
@@ -33,8 +32,7 @@ export class DueVisitsService {
     await this.studies.findInScope(caller, 'read', studyId);
     const asOf = query.asOf ?? new Date().toISOString().slice(0, 10);
     if (!isCalendarDate(asOf)) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw visitsError(
         VisitsError.BadDate,
         `asOf: ${JSON.stringify(asOf)} is not a calendar date (YYYY-MM-DD)`,
         { field: 'asOf', value: asOf },

@@ -16,7 +16,7 @@ import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { GyreException } from '../common/errors/gyre.exception';
 import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
@@ -28,7 +28,8 @@ import { PlannedVisitsService } from '../schedule/planned-visits.service';
 import { CreateVisitDto, UpdateVisitDto, VisitQueryDto } from './dto/visit.dto';
 import { Visit } from './visit.entity';
 import { toVisitView, type VisitScheduleContext } from './visit-view';
-import { VisitsError } from './visits.errors';
+import { ParticipantsError, participantsError } from '../participants/participants.errors';
+import { VisitsError, visitsError } from './visits.errors';
 
 @Injectable()
 export class VisitsService {
@@ -100,8 +101,7 @@ export class VisitsService {
       throw notFound(dto.participantId, 'participantId');
     }
     if (dto.plannedVisitId !== undefined && dto.unscheduled === true) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw visitsError(
         VisitsError.PlannedVisitRequired,
         'plannedVisitId: give a planned visit or unscheduled: true, not both',
         { field: 'plannedVisitId' },
@@ -114,8 +114,7 @@ export class VisitsService {
     if (planned === null && dto.unscheduled !== true) {
       const schedule = await this.plannedVisits.ofStudy(participant.studyId);
       if (schedule.length > 0) {
-        throw new GyreException(
-          ErrorKind.BadInput,
+        throw visitsError(
           VisitsError.PlannedVisitRequired,
           `plannedVisitId: the study has a visit schedule (${schedule.map((p) => p.name).join(', ')}); pick its planned visit, or send unscheduled: true for a visit outside it`,
           { field: 'plannedVisitId', plannedVisits: schedule.map((p) => p.name) },
@@ -166,8 +165,7 @@ export class VisitsService {
   private async plannedVisitOfStudy(studyId: string, id: string): Promise<PlannedVisit> {
     const planned = await this.plannedVisits.findById(id);
     if (planned === null || planned.studyId !== studyId) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw visitsError(
         VisitsError.PlannedVisitNotInStudy,
         `plannedVisitId: ${id} is not a planned visit of the participant's study`,
         { field: 'plannedVisitId', value: id },
@@ -212,8 +210,7 @@ export class VisitsService {
       });
     } catch (error) {
       if (isUniqueViolation(error)) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw visitsError(
           VisitsError.LabelTaken,
           `label: the participant already has a visit ${visit.label}`,
           { field: 'label', value: visit.label },
@@ -278,8 +275,7 @@ export class VisitsService {
 function labelFor(planned: PlannedVisit | null, label: string | undefined): string {
   if (planned === null) {
     if (label === undefined) {
-      throw new GyreException(
-        ErrorKind.BadInput,
+      throw visitsError(
         VisitsError.LabelRequired,
         'label: an unscheduled visit needs a label (unique for the participant)',
         { field: 'label' },
@@ -288,8 +284,7 @@ function labelFor(planned: PlannedVisit | null, label: string | undefined): stri
     return label;
   }
   if (label !== undefined && label.toLowerCase() !== planned.name.toLowerCase()) {
-    throw new GyreException(
-      ErrorKind.BadInput,
+    throw visitsError(
       VisitsError.LabelIsPlannedName,
       `label: a visit on planned visit ${planned.name} is labelled ${planned.name}, not ${JSON.stringify(label)}`,
       { field: 'label', value: label, expected: planned.name },
@@ -309,8 +304,7 @@ async function assertPlannedVisitFree(
   });
   if (other === null || other.id === visit.id) return;
   const participant = await manager.findOneBy(Participant, { id: visit.participantId });
-  throw new GyreException(
-    ErrorKind.Conflict,
+  throw visitsError(
     VisitsError.PlannedVisitTaken,
     `plannedVisitId: ${participant?.code ?? 'the participant'} already has a visit on planned visit ${plannedName} (${other.label}, ${other.visitDate})`,
     {
@@ -327,8 +321,7 @@ function calendarDate(value: string): string {
   // dayjs rolls an impossible day over (2026-02-30 → 03-02), so a round trip exposes it.
   const parsed = dayjs(value);
   if (!parsed.isValid() || parsed.format('YYYY-MM-DD') !== value) {
-    throw new GyreException(
-      ErrorKind.BadInput,
+    throw visitsError(
       VisitsError.BadDate,
       `visitDate: ${JSON.stringify(value)} is not a calendar date (YYYY-MM-DD)`,
       { field: 'visitDate', value },
@@ -338,12 +331,11 @@ function calendarDate(value: string): string {
 }
 
 function notFound(id: string, field: string): GyreException {
-  return new GyreException(
-    ErrorKind.NotFound,
-    field === 'participantId' ? 'PARTICIPANT_NOT_FOUND' : VisitsError.NotFound,
-    field === 'participantId'
-      ? `participantId: no participant ${id} in your scope`
-      : `No visit ${id}`,
-    { field, id },
-  );
+  return field === 'participantId'
+    ? participantsError(
+        ParticipantsError.NotFound,
+        `participantId: no participant ${id} in your scope`,
+        { field, id },
+      )
+    : visitsError(VisitsError.NotFound, `No visit ${id}`, { field, id });
 }

@@ -3,11 +3,11 @@ import { InjectRepository } from '@nestjs/typeorm';
 import { Repository } from 'typeorm';
 import type { WorkerPrincipal } from '../auth/auth-user';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
 import { WorkerToken } from './worker-token.entity';
 import { parseWorkerToken, secretMatches } from './worker-token-secret';
-import { WorkerTokensError } from './worker-tokens.errors';
+import { WorkerTokensError, workerTokensError } from './worker-tokens.errors';
 
 /**
  * "Last used" is written at most once a minute per token: a worker polling several times a
@@ -47,5 +47,5 @@ export class WorkerTokenAuth {
 }
 
 function invalid(message: string): GyreException {
-  return new GyreException(ErrorKind.Unauthenticated, WorkerTokensError.Invalid, message);
+  return workerTokensError(WorkerTokensError.Invalid, message);
 }

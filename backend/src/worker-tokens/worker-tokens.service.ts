@@ -11,7 +11,7 @@ import { Accounts } from '../accounts/accounts.service';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
+import { GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { nowIso } from '../common/time';
@@ -23,7 +23,7 @@ import {
 import { WorkerToken } from './worker-token.entity';
 import { newWorkerToken } from './worker-token-secret';
 import { toWorkerTokenView } from './worker-token-view';
-import { WorkerTokensError } from './worker-tokens.errors';
+import { WorkerTokensError, workerTokensError } from './worker-tokens.errors';
 
 /** The audit trail's object type for worker tokens (installation-wide: no study or site). */
 const OBJECT_TYPE = 'WorkerToken';
@@ -70,8 +70,7 @@ export class WorkerTokensService {
 
   async create(caller: Caller, dto: CreateWorkerTokenDto): Promise<CreatedWorkerTokenView> {
     if (dto.name.toLowerCase() === LOCAL_WORKER_TOKEN_NAME) {
-      throw new GyreException(
-        ErrorKind.Conflict,
+      throw workerTokensError(
         WorkerTokensError.NameReserved,
         `name: "${LOCAL_WORKER_TOKEN_NAME}" is the server's own token; choose another name`,
         { field: 'name', value: dto.name },
@@ -103,16 +102,10 @@ export class WorkerTokensService {
     const revoked = await this.writes.run(async (manager) => {
       const current = await manager.findOneBy(WorkerToken, { id });
       if (current === null) {
-        throw new GyreException(
-          ErrorKind.NotFound,
-          WorkerTokensError.NotFound,
-          `No worker token ${id}`,
-          { id },
-        );
+        throw workerTokensError(WorkerTokensError.NotFound, `No worker token ${id}`, { id });
       }
       if (current.revokedAt !== null) {
-        throw new GyreException(
-          ErrorKind.Conflict,
+        throw workerTokensError(
           WorkerTokensError.AlreadyRevoked,
           `The worker token "${current.name}" was already revoked on ${current.revokedAt}`,
           { id, revokedAt: current.revokedAt },
@@ -256,8 +249,7 @@ export class WorkerTokensService {
 }
 
 function nameTaken(name: string): GyreException {
-  return new GyreException(
-    ErrorKind.Conflict,
+  return workerTokensError(
     WorkerTokensError.NameTaken,
     `name: a live worker token is already called "${name}"; revoke it or choose another name`,
     { field: 'name', value: name },

@@ -1,5 +1,6 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { type AddressObject, simpleParser } from 'mailparser';
 
 /** One message as the fake SMTP server stored it, headers parsed and the text body decoded. */
 export interface CaughtMail {
@@ -12,14 +13,16 @@ export interface CaughtMail {
 }
 
 /** Every `.eml` under the mail folder, oldest first. */
-export function readMails(mailDir: string): CaughtMail[] {
+export async function readMails(mailDir: string): Promise<CaughtMail[]> {
   let names: string[];
   try {
     names = readdirSync(mailDir).filter((name) => name.endsWith('.eml'));
   } catch {
     return [];
   }
-  return names.sort().map((name) => parseEml(name, readFileSync(join(mailDir, name), 'utf8')));
+  return Promise.all(
+    names.sort().map((name) => parseEml(name, readFileSync(join(mailDir, name), 'utf8'))),
+  );
 }
 
 /** Polls the mail folder until a message to `to` arrives (the real SMTP round trip). */
@@ -30,7 +33,7 @@ export async function waitForMail(
 ): Promise<CaughtMail> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
-    const found = readMails(mailDir).find(
+    const found = (await readMails(mailDir)).find(
       (mail) =>
         mail.to.toLowerCase().includes(match.to.toLowerCase()) &&
         (match.subject === undefined || match.subject.test(mail.subject)),
@@ -52,33 +55,19 @@ export function tokenFromMail(mail: CaughtMail, route: string): string {
   return decodeURIComponent(match[1]);
 }
 
-/** Minimal RFC 5322 / MIME reading: unfolded headers; 7bit, quoted-printable or base64 body. */
-function parseEml(file: string, raw: string): CaughtMail {
-  const split = raw.search(/\r?\n\r?\n/);
-  const headerText = raw.slice(0, split).replace(/\r?\n[ \t]+/g, ' ');
-  const body = raw.slice(split).replace(/^\r?\n\r?\n/, '');
-  const headers = new Map<string, string>();
-  for (const line of headerText.split(/\r?\n/)) {
-    const index = line.indexOf(':');
-    if (index > 0)
-      headers.set(line.slice(0, index).trim().toLowerCase(), line.slice(index + 1).trim());
-  }
-  const encoding = (headers.get('content-transfer-encoding') ?? '7bit').toLowerCase();
-  let text = body;
-  if (encoding === 'quoted-printable') {
-    const bytes = body
-      .replace(/=\r?\n/g, '')
-      .replace(/=([0-9A-Fa-f]{2})/g, (_m, hex: string) => String.fromCharCode(parseInt(hex, 16)));
-    text = Buffer.from(bytes, 'latin1').toString('utf8');
-  } else if (encoding === 'base64') {
-    text = Buffer.from(body.replace(/\s+/g, ''), 'base64').toString('utf8');
-  }
+/** One `.eml` read by mailparser (headers decoded, any transfer encoding, the text part). */
+async function parseEml(file: string, raw: string): Promise<CaughtMail> {
+  const parsed = await simpleParser(raw);
+  const addresses = (value: AddressObject | AddressObject[] | undefined): string =>
+    (Array.isArray(value) ? value : value === undefined ? [] : [value])
+      .map((address) => address.text)
+      .join(', ');
   return {
     file,
-    to: headers.get('to') ?? '',
-    from: headers.get('from') ?? '',
-    subject: headers.get('subject') ?? '',
-    text: text.replace(/\r\n/g, '\n'),
+    to: addresses(parsed.to),
+    from: addresses(parsed.from),
+    subject: parsed.subject ?? '',
+    text: (parsed.text ?? '').replace(/\r\n/g, '\n'),
     raw,
   };
 }

@@ -29,6 +29,12 @@ export class GyreException extends Error {
   }
 }
 
-export function assertUnreachable(value: never): never {
-  throw new Error(`Unhandled case: ${String(value)}`);
+/**
+ * A module's thrower: `errorFactory(X_ERROR_KINDS)` where X_ERROR_KINDS is the module's one
+ * `{ … } satisfies Record<XError, ErrorKind>`, so a code's kind is written once.
+ */
+export function errorFactory<Code extends string>(
+  kinds: Readonly<Record<Code, ErrorKind>>,
+): (code: Code, message: string, details?: Record<string, unknown>) => GyreException {
+  return (code, message, details) => new GyreException(kinds[code], code, message, details);
 }

@@ -8,34 +8,21 @@ import {
 } from '@nestjs/common';
 import type { Response } from 'express';
 import { ErrorBody } from '@gyre/shared';
-import { assertUnreachable, ErrorKind, GyreException } from './gyre.exception';
+import { ErrorKind, GyreException } from './gyre.exception';
 
-export function statusForKind(kind: ErrorKind): HttpStatus {
-  switch (kind) {
-    case ErrorKind.BadInput:
-      return HttpStatus.BAD_REQUEST;
-    case ErrorKind.Unprocessable:
-      return HttpStatus.UNPROCESSABLE_ENTITY;
-    case ErrorKind.Unauthenticated:
-      return HttpStatus.UNAUTHORIZED;
-    case ErrorKind.Forbidden:
-      return HttpStatus.FORBIDDEN;
-    case ErrorKind.NotFound:
-      return HttpStatus.NOT_FOUND;
-    case ErrorKind.Conflict:
-      return HttpStatus.CONFLICT;
-    case ErrorKind.PayloadTooLarge:
-      return HttpStatus.PAYLOAD_TOO_LARGE;
-    case ErrorKind.TooManyRequests:
-      return HttpStatus.TOO_MANY_REQUESTS;
-    case ErrorKind.Locked:
-      return HttpStatus.LOCKED;
-    case ErrorKind.Unavailable:
-      return HttpStatus.SERVICE_UNAVAILABLE;
-    default:
-      return assertUnreachable(kind);
-  }
-}
+/** The HTTP status of each kind of failure (one entry per kind, checked by the compiler). */
+export const STATUS_FOR_KIND = {
+  [ErrorKind.BadInput]: HttpStatus.BAD_REQUEST,
+  [ErrorKind.Unprocessable]: HttpStatus.UNPROCESSABLE_ENTITY,
+  [ErrorKind.Unauthenticated]: HttpStatus.UNAUTHORIZED,
+  [ErrorKind.Forbidden]: HttpStatus.FORBIDDEN,
+  [ErrorKind.NotFound]: HttpStatus.NOT_FOUND,
+  [ErrorKind.Conflict]: HttpStatus.CONFLICT,
+  [ErrorKind.PayloadTooLarge]: HttpStatus.PAYLOAD_TOO_LARGE,
+  [ErrorKind.TooManyRequests]: HttpStatus.TOO_MANY_REQUESTS,
+  [ErrorKind.Locked]: HttpStatus.LOCKED,
+  [ErrorKind.Unavailable]: HttpStatus.SERVICE_UNAVAILABLE,
+} as const satisfies Record<ErrorKind, HttpStatus>;
 
 const CODE_FOR_STATUS: Partial<Record<number, string>> = {
   400: 'BAD_REQUEST',
@@ -69,7 +56,7 @@ export class HttpExceptionFilter implements ExceptionFilter {
   private toBody(exception: unknown): ErrorBody {
     if (exception instanceof GyreException) {
       return {
-        statusCode: statusForKind(exception.kind),
+        statusCode: STATUS_FOR_KIND[exception.kind],
         code: exception.code,
         message: exception.message,
         details: exception.details ?? null,
@@ -80,15 +67,6 @@ export class HttpExceptionFilter implements ExceptionFilter {
       const raw = exception.getResponse();
       const messages =
         typeof raw === 'object' && raw !== null && 'message' in raw ? raw.message : raw;
-      // ValidationPipe answers with a list of messages, one per field problem.
-      if (Array.isArray(messages)) {
-        return {
-          statusCode,
-          code: 'VALIDATION_FAILED',
-          message: messages.join('; '),
-          details: { problems: messages },
-        };
-      }
       return {
         statusCode,
         code: CODE_FOR_STATUS[statusCode] ?? (statusCode >= 500 ? 'INTERNAL' : 'HTTP_ERROR'),

@@ -1,6 +1,5 @@
 import type { NextFunction, Request, Response } from 'express';
-import { ErrorKind, GyreException } from '../errors/gyre.exception';
-import { HttpEdgeError } from './http-edge.errors';
+import { HttpEdgeError, httpEdgeError } from './http-edge.errors';
 
 /** Deepest array/object nesting a body may have: Gyre's own need 3; 5 000 overflowed validation. */
 export const MAX_BODY_DEPTH = 32;
@@ -26,8 +25,7 @@ export function rejectDeepBodies(request: Request, _response: Response, next: Ne
     return;
   }
   next(
-    new GyreException(
-      ErrorKind.BadInput,
+    httpEdgeError(
       HttpEdgeError.BodyTooDeep,
       `request body: arrays/objects nested more than ${MAX_BODY_DEPTH} levels deep found, at most ${MAX_BODY_DEPTH} levels expected`,
       { field: 'body', maxDepth: MAX_BODY_DEPTH },

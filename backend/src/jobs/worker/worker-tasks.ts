@@ -9,7 +9,7 @@ import type { ChannelPart } from '../../signal/pipeline/analyze-channels';
 import type { ChannelRange } from '../../signal/pipeline/analyze-edf-recording';
 
 /** A run's results are the signal core's own types, so the worker and the command line agree. */
-export type { AnalyzeOutcome, ResultSeries, RunSummary } from '../../signal/pipeline/run-summary';
+export type { AnalyzeOutcome, RunSummary } from '../../signal/pipeline/run-summary';
 
 export type RecordingKindName = 'resting' | 'task';
 

@@ -13,12 +13,14 @@
  *
  * `--routes` drives only the named routes (results, raster, curves, participants, trajectory);
  * `--cpu-prof DIR` records the server's CPU profile over the whole run and leaves it in DIR (a
- * `.cpuprofile` for Chrome DevTools' Performance panel; see server-cpu-profile.ts).
+ * `.cpuprofile` for Chrome DevTools' Performance panel; see server-cpu-profile.ts). The flags are
+ * read by node:util parseArgs (`--flag value` or `--flag=value`); `--help` prints the usage.
  */
 import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { request as httpRequest } from 'node:http';
 import { loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
+import { parseArgs } from 'node:util';
 import autocannon from 'autocannon';
 import type { Page, ParticipantView, RecordingDto, RecordingResultsDto } from '@gyre/shared';
 import { DataSource } from 'typeorm';
@@ -69,31 +71,64 @@ function cpuMsOf(pid: number | undefined): number | null {
   }
 }
 
-function option(argv: readonly string[], name: string, fallback: number): number {
-  const at = argv.indexOf(name);
-  if (at === -1) return fallback;
-  const value = Number(argv[at + 1]);
-  if (!Number.isSafeInteger(value) || value < 1) throw new Error(`${name}: a positive integer`);
+const USAGE =
+  'usage: npm run load [-- --clients N] [--seconds N] [--participants N] [--routes NAME,…] ' +
+  `[--cpu-prof DIR]; routes: ${ROUTE_NAMES.join(', ')}`;
+
+/** What `npm run load` was asked for; null when --help printed the usage. */
+export interface LoadArguments {
+  clients: number;
+  seconds: number;
+  participants: number;
+  routes: Set<RouteName>;
+  cpuProfileDir: string | null;
+}
+
+function positiveInteger(name: string, text: string | undefined, fallback: number): number {
+  if (text === undefined) return fallback;
+  const value = Number(text);
+  if (!Number.isSafeInteger(value) || value < 1) {
+    throw new Error(`--${name}: a positive integer, got "${text}"`);
+  }
   return value;
 }
 
-function textOption(argv: readonly string[], name: string): string | null {
-  const at = argv.indexOf(name);
-  if (at === -1) return null;
-  const value = argv[at + 1];
-  if (value === undefined || value.startsWith('--')) throw new Error(`${name}: a value`);
-  return value;
-}
-
-function routesOption(argv: readonly string[]): Set<RouteName> {
-  const text = textOption(argv, '--routes');
-  if (text === null) return new Set(ROUTE_NAMES);
+function routesOf(text: string | undefined): Set<RouteName> {
+  if (text === undefined) return new Set(ROUTE_NAMES);
   const names = text.split(',').map((n) => n.trim());
   const unknown = names.filter((n) => !(ROUTE_NAMES as readonly string[]).includes(n));
   if (unknown.length > 0) {
     throw new Error(`--routes: unknown ${unknown.join(', ')}; known: ${ROUTE_NAMES.join(', ')}`);
   }
   return new Set(names as RouteName[]);
+}
+
+/** The command line, read by node:util parseArgs (unknown options and missing values refused). */
+export function parseLoadArguments(argv: readonly string[]): LoadArguments | null {
+  const { values } = parseArgs({
+    args: [...argv],
+    options: {
+      clients: { type: 'string' },
+      seconds: { type: 'string' },
+      participants: { type: 'string' },
+      routes: { type: 'string' },
+      'cpu-prof': { type: 'string' },
+      help: { type: 'boolean' },
+    },
+    strict: true,
+    allowPositionals: false,
+  });
+  if (values.help === true) {
+    console.log(USAGE);
+    return null;
+  }
+  return {
+    clients: positiveInteger('clients', values.clients, 50),
+    seconds: positiveInteger('seconds', values.seconds, 20),
+    participants: positiveInteger('participants', values.participants, 24),
+    routes: routesOf(values.routes),
+    cpuProfileDir: values['cpu-prof'] ?? null,
+  };
 }
 
 /** The environment of a profiled server (see server-cpu-profile.ts). */
@@ -240,12 +275,15 @@ async function drive(
 }
 
 async function main(): Promise<number> {
-  const argv = process.argv.slice(2);
-  const clients = option(argv, '--clients', 50);
-  const seconds = option(argv, '--seconds', 20);
-  const participantCount = option(argv, '--participants', 24);
-  const wanted = routesOption(argv);
-  const profileDir = textOption(argv, '--cpu-prof');
+  const parsed = parseLoadArguments(process.argv.slice(2));
+  if (parsed === null) return 0;
+  const {
+    clients,
+    seconds,
+    participants: participantCount,
+    routes: wanted,
+    cpuProfileDir: profileDir,
+  } = parsed;
   const dataDir = mkdtempSync(join(tmpdir(), 'gyre-load-'));
   const server = await startServer(
     dataDir,
@@ -370,14 +408,16 @@ async function main(): Promise<number> {
   }
 }
 
-main().then(
-  (code) => process.exit(code),
-  (error: unknown) => {
-    // fetch names the network failure only in its cause (ECONNRESET, ECONNREFUSED, …).
-    const cause = error instanceof Error && error.cause instanceof Error ? error.cause : null;
-    console.error(
-      `load: ${error instanceof Error ? error.message : String(error)}${cause === null ? '' : ` (${cause.message})`}`,
-    );
-    process.exit(1);
-  },
-);
+if (require.main === module) {
+  main().then(
+    (code) => process.exit(code),
+    (error: unknown) => {
+      // fetch names the network failure only in its cause (ECONNRESET, ECONNREFUSED, …).
+      const cause = error instanceof Error && error.cause instanceof Error ? error.cause : null;
+      console.error(
+        `load: ${error instanceof Error ? error.message : String(error)}${cause === null ? '' : ` (${cause.message})`}`,
+      );
+      process.exit(1);
+    },
+  );
+}

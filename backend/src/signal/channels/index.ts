@@ -1,3 +1,3 @@
 export { canonicalElectrodeName, normaliseChannelLabel } from './channel-labels';
-export { DEFAULT_POSTERIOR_ROI, roiChannelIndices, roiChannels } from './region-of-interest';
+export { DEFAULT_POSTERIOR_ROI, roiChannels } from './region-of-interest';
 export type { RoiChannel } from './region-of-interest';

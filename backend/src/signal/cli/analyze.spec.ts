@@ -187,4 +187,25 @@ describe('analyze CLI', () => {
     expect(unknown.code).toBe(2);
     expect(unknown.stderr).toMatch(/unknown setting\(s\) epochS/);
   });
+
+  it('parses with node:util parseArgs: --help, unknown options, missing values, one file', async () => {
+    const help = await run(['--help']);
+    expect(help.code).toBe(0);
+    expect(help.stdout).toMatch(/^usage: analyze FILE\.edf \[--onsets FILE\.csv\]/);
+    const unknown = await run([edfPath, '--bogus']);
+    expect(unknown.code).toBe(2);
+    expect(unknown.stderr).toMatch(/^analyze: Unknown option '--bogus'/);
+    expect(unknown.stderr).toContain('usage: analyze');
+    const missing = await run([edfPath, '--iaf']);
+    expect(missing.code).toBe(2);
+    expect(missing.stderr).toMatch(/--iaf/);
+    const two = await run([edfPath, edfPath]);
+    expect(two.code).toBe(2);
+    expect(two.stderr).toMatch(/one recording expected/);
+    expect((await run([])).stderr).toMatch(/no recording given/);
+    // --name=value is parseArgs' other spelling of the same option.
+    const r = await report([edfPath, '--kind=resting', '--band=8,12']);
+    expect(r.kind).toBe('rest');
+    expect(r.settings.bandHz).toEqual([8, 12]);
+  });
 });

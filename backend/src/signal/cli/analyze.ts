@@ -15,6 +15,7 @@
  * A bad file or setting ends with exit code 1, a bad option with 2; the reason on stderr.
  */
 import { readFileSync } from 'node:fs';
+import { parseArgs } from 'node:util';
 import { EdfFormatError } from '../edf/edf-format-error';
 import { OnsetCsvError, parseOnsetCsv } from '../onsets/onset-csv';
 import {
@@ -53,87 +54,89 @@ function parseNumberList(flag: string, text: string, count: number): number[] {
   return values;
 }
 
+/** The options node:util parseArgs reads; each value is checked below. */
+const OPTIONS = {
+  onsets: { type: 'string' },
+  'onset-label': { type: 'string' },
+  kind: { type: 'string' },
+  iaf: { type: 'string' },
+  band: { type: 'string' },
+  method: { type: 'string' },
+  roi: { type: 'string' },
+  settings: { type: 'string' },
+  full: { type: 'boolean' },
+  help: { type: 'boolean' },
+} as const;
+
+/** Thrown for --help: the usage goes to stdout and the exit code is 0. */
+class HelpRequested extends Error {}
+
+/** parseArgs' own refusals (unknown option, missing value) as a usage error. */
+function parsed(
+  argv: readonly string[],
+): ReturnType<typeof parseArgs<{ options: typeof OPTIONS; allowPositionals: true }>> {
+  try {
+    return parseArgs({ args: [...argv], options: OPTIONS, allowPositionals: true, strict: true });
+  } catch (error) {
+    const code = (error as { code?: unknown }).code;
+    if (typeof code === 'string' && code.startsWith('ERR_PARSE_ARGS')) {
+      throw new UsageError(`${(error as Error).message}\n${USAGE}`);
+    }
+    throw error;
+  }
+}
+
 export function parseArguments(argv: readonly string[]): CliArguments {
-  let file: string | null = null;
-  const args: Omit<CliArguments, 'file'> = {
-    onsetsFile: null,
-    settingsFile: null,
+  const { values, positionals } = parsed(argv);
+  if (values.help === true) throw new HelpRequested(USAGE);
+  if (positionals.length > 1) {
+    throw new UsageError(`one recording expected, got "${positionals[0]}" and "${positionals[1]}"`);
+  }
+  const file = positionals[0];
+  if (file === undefined) throw new UsageError(`no recording given\n${USAGE}`);
+  const args: CliArguments = {
+    file,
+    onsetsFile: values.onsets ?? null,
+    settingsFile: values.settings ?? null,
     kind: 'auto',
     iafHz: null,
     overrides: {},
-    full: false,
+    full: values.full === true,
   };
-  for (let i = 0; i < argv.length; i++) {
-    const arg = argv[i];
-    const value = (): string => {
-      const v = argv[++i];
-      if (v === undefined) throw new UsageError(`${arg}: a value is missing`);
-      return v;
-    };
-    switch (arg) {
-      case '--onsets':
-        args.onsetsFile = value();
-        break;
-      case '--settings':
-        args.settingsFile = value();
-        break;
-      case '--onset-label':
-        args.overrides.onsetLabel = value();
-        break;
-      case '--kind': {
-        const kind = value();
-        // The server says 'resting'; 'rest' is the signal core's word for the same.
-        if (kind === 'resting' || kind === 'rest') args.kind = 'rest';
-        else if (kind === 'task' || kind === 'auto') args.kind = kind;
-        else throw new UsageError(`--kind: expected task, resting or auto, got "${kind}"`);
-        break;
-      }
-      case '--band': {
-        const [lo, hi] = parseNumberList('--band', value(), 2);
-        if (!(lo > 0 && hi > lo)) {
-          throw new UsageError(`--band: expected 0 < LO < HI, got ${lo},${hi}`);
-        }
-        args.overrides.bandHz = [lo, hi];
-        break;
-      }
-      case '--iaf': {
-        const [iaf] = parseNumberList('--iaf', value(), 1);
-        if (!(iaf > 0)) throw new UsageError(`--iaf: expected a positive frequency, got ${iaf}`);
-        args.iafHz = iaf;
-        break;
-      }
-      case '--method': {
-        const method = value();
-        if (method !== 'filter' && method !== 'morlet') {
-          throw new UsageError(`--method: expected filter or morlet, got "${method}"`);
-        }
-        args.overrides.method = method;
-        break;
-      }
-      case '--roi': {
-        const names = value()
-          .split(',')
-          .map((n) => n.trim())
-          .filter((n) => n !== '');
-        if (names.length === 0) throw new UsageError('--roi: expected at least one channel name');
-        args.overrides.roi = names;
-        break;
-      }
-      case '--full':
-        args.full = true;
-        break;
-      case '--help':
-        throw new UsageError(USAGE);
-      default:
-        if (arg.startsWith('--')) throw new UsageError(`unknown option ${arg}\n${USAGE}`);
-        if (file !== null) {
-          throw new UsageError(`one recording expected, got "${file}" and "${arg}"`);
-        }
-        file = arg;
-    }
+  if (values['onset-label'] !== undefined) args.overrides.onsetLabel = values['onset-label'];
+  if (values.kind !== undefined) {
+    const kind = values.kind;
+    // The server says 'resting'; 'rest' is the signal core's word for the same.
+    if (kind === 'resting' || kind === 'rest') args.kind = 'rest';
+    else if (kind === 'task' || kind === 'auto') args.kind = kind;
+    else throw new UsageError(`--kind: expected task, resting or auto, got "${kind}"`);
   }
-  if (file === null) throw new UsageError(`no recording given\n${USAGE}`);
-  return { file, ...args };
+  if (values.band !== undefined) {
+    const [lo, hi] = parseNumberList('--band', values.band, 2);
+    if (!(lo > 0 && hi > lo)) throw new UsageError(`--band: expected 0 < LO < HI, got ${lo},${hi}`);
+    args.overrides.bandHz = [lo, hi];
+  }
+  if (values.iaf !== undefined) {
+    const [iaf] = parseNumberList('--iaf', values.iaf, 1);
+    if (!(iaf > 0)) throw new UsageError(`--iaf: expected a positive frequency, got ${iaf}`);
+    args.iafHz = iaf;
+  }
+  if (values.method !== undefined) {
+    const method = values.method;
+    if (method !== 'filter' && method !== 'morlet') {
+      throw new UsageError(`--method: expected filter or morlet, got "${method}"`);
+    }
+    args.overrides.method = method;
+  }
+  if (values.roi !== undefined) {
+    const names = values.roi
+      .split(',')
+      .map((n) => n.trim())
+      .filter((n) => n !== '');
+    if (names.length === 0) throw new UsageError('--roi: expected at least one channel name');
+    args.overrides.roi = names;
+  }
+  return args;
 }
 
 function readText(path: string): string {
@@ -218,6 +221,10 @@ export async function main(argv: readonly string[]): Promise<number> {
     process.stdout.write(toJson(report) + '\n');
     return 0;
   } catch (error) {
+    if (error instanceof HelpRequested) {
+      process.stdout.write(`${USAGE}\n`);
+      return 0;
+    }
     if (
       error instanceof UsageError ||
       error instanceof EdfFormatError ||

@@ -20,6 +20,7 @@ import {
   type RawFixedFields,
   type RawSignalFields,
 } from './testing/hand-built-edf';
+import { seededUniform } from '../onset/random';
 
 type Parts = { fixed: RawFixedFields; signals: RawSignalFields[]; data: number[] };
 
@@ -460,12 +461,8 @@ describe('robustness (generated inputs)', () => {
   });
 
   it('random byte changes never give anything but a result or an EdfFormatError', () => {
-    // Generated test data: a fixed-seed linear congruential generator (Numerical Recipes constants).
-    let seed = 12345;
-    const random = (): number => {
-      seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0;
-      return seed / 2 ** 32;
-    };
+    // Generated test data: the backend's one seeded generator, fixed seed.
+    const random = seededUniform(12345);
     const sources = [plainEdf(), edfPlus(), edfPlus(undefined, 'EDF+D')];
     let failures = 0;
     for (let trial = 0; trial < 3000; trial++) {

@@ -2,6 +2,7 @@ import { EdfFormatError } from './edf-format-error';
 import { readEdf } from './edf-reader';
 import { writeEdf, type EdfWriteSignal } from './edf-writer';
 import { edfPlus, plainEdf, plainEdfParts } from './testing/hand-built-edf';
+import { seededUniform } from '../onset/random';
 
 /** Kemp et al. 1992: physical = (digital − dmin)·(pmax − pmin)/(dmax − dmin) + pmin. */
 const physical = (d: number): number => ((d + 2048) * 400) / 4095 - 200;
@@ -56,12 +57,8 @@ describe('writeEdf against files written byte by byte to the specification', () 
 });
 
 describe('writeEdf then readEdf', () => {
-  // Generated test data: a fixed-seed linear congruential generator.
-  let seed = 7;
-  const random = (): number => {
-    seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0;
-    return seed / 2 ** 32;
-  };
+  // Generated test data: the backend's one seeded generator, fixed seed.
+  const random = seededUniform(7);
 
   it('keeps every sample within half a quantisation step', () => {
     const n = 256 * 4;

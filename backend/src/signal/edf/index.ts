@@ -7,7 +7,7 @@ export type {
   EdfSignalHeader,
 } from './edf.types';
 export { EdfFormatError } from './edf-format-error';
-export { EDF_ANNOTATIONS_LABEL, readEdfHeader, requiredHeaderBytes } from './edf-header';
+export { EDF_ANNOTATIONS_LABEL, readEdfHeader } from './edf-header';
 export { readEdf } from './edf-reader';
 export type { ReadEdfOptions } from './edf-reader';
 export { writeEdf } from './edf-writer';

@@ -8,6 +8,7 @@ import {
 import { medianAcross, TEN_INPUT_NETWORK } from './median-across';
 import { ArgsortWorkspace, argsortFloat64, rankFloat64 } from './radix-argsort';
 import { runningMedian, runningMedians, RunningMedianWorkspace } from './running-median';
+import { seededUniform } from '../onset/random';
 
 interface MedianFixture {
   input: number[];
@@ -71,11 +72,7 @@ describe('running median', () => {
 
   it('agrees with sorting every window, for short inputs, ties and windows longer than the input', () => {
     // Generated inputs: small integers plus fractions, so many values tie.
-    let seed = 5;
-    const random = (): number => {
-      seed = (seed * 1103515245 + 12345) % 2147483648;
-      return seed / 2147483648;
-    };
+    const random = seededUniform(5);
     const ws = new RunningMedianWorkspace();
     for (const n of [1, 2, 3, 10, 37, 256]) {
       for (const k of [1, 3, 5, 9, 21, 51, 201]) {
@@ -131,11 +128,7 @@ describe('running median', () => {
 describe('running median in chunks', () => {
   // Generated input with ties and outliers; values are compared exactly, because a median
   // selects one of the inputs (the chunking must not change a single value).
-  let seed = 11;
-  const random = (): number => {
-    seed = (seed * 1103515245 + 12345) % 2147483648;
-    return seed / 2147483648;
-  };
+  const random = seededUniform(11);
   const n = 3001;
   const x = Float64Array.from({ length: n }, (_, i) =>
     random() < 0.02 ? 40 * random() : 10 + Math.sin(i / 50) + Math.round(random() * 8) / 8,

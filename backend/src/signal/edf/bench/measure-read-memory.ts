@@ -18,6 +18,7 @@ import { readEdf } from '../edf-reader';
 import { EdfStreamReader } from '../edf-stream-reader';
 import type { EdfRecording } from '../edf.types';
 import { writeEdf, type EdfWriteSignal } from '../edf-writer';
+import { seededUniform } from '../../onset/random';
 
 const CHANNELS_64 = [
   'Fp1',
@@ -93,13 +94,12 @@ const peakRssBytes = (): number => process.resourceUsage().maxRSS * 1024;
 
 function generate(path: string): void {
   const n = SAMPLE_RATE_HZ * DURATION_S;
-  let seed = 1;
+  const random = seededUniform(1);
   const signals: EdfWriteSignal[] = CHANNELS_64.map((name, c) => {
     const samples = new Float32Array(n);
     for (let i = 0; i < n; i++) {
-      seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0;
       samples[i] =
-        20 * Math.sin((2 * Math.PI * 10 * i) / SAMPLE_RATE_HZ + c) + (seed / 2 ** 32 - 0.5) * 10;
+        20 * Math.sin((2 * Math.PI * 10 * i) / SAMPLE_RATE_HZ + c) + (random() - 0.5) * 10;
     }
     return {
       label: `EEG ${name}-REF`,
