@@ -12,7 +12,7 @@ export const RecordingEvents = {
   Superseded: 'recordings.superseded',
 } as const;
 
-interface RecordingSuperseded {
+export interface RecordingSuperseded {
   visitId: string;
   kind: RecordingKind;
 }

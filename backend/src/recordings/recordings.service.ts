@@ -44,6 +44,7 @@ import {
   ComputationInput,
   ComputationPayload,
   RecordingEvents,
+  type RecordingSuperseded,
 } from './recordings.events';
 import { RecordingsError, recordingsError } from './recordings.errors';
 import { kindMismatch, kindWarning } from './kind-check';
@@ -752,7 +753,10 @@ export class RecordingsService {
     await this.announce([...superseded, queued.id]);
     this.events.emit(RecordingEvents.ComputationQueued);
     if (superseded.length > 0) {
-      this.events.emit(RecordingEvents.Superseded, { visitId: row.visitId, kind: row.kind });
+      this.events.emit(RecordingEvents.Superseded, {
+        visitId: row.visitId,
+        kind: row.kind,
+      } satisfies RecordingSuperseded);
     }
     const [view] = await this.views([queued]);
     return view;
