@@ -223,7 +223,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     await page.getByText('Received and checked.').waitFor({ timeout: 60_000 });
     await table.locator('[data-state="ready"]').waitFor({ timeout: 120_000 });
     await expect(
-      table.getByText(/EDF\+C · 60\.0 s · 6 channels · 256\.00 Hz/).count(),
+      table.getByText(/EDF\+C · 60\.0\ss · 6 channels · 256\.00\sHz/).count(),
     ).resolves.toBe(1);
     await screenshot(page, 'intake-technician');
     // The refusal itself is a 422 answer, which Chromium logs as a failed load; nothing else may.
