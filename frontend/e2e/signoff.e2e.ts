@@ -224,7 +224,7 @@ describe('Report sign-off in Chromium, on a real server', () => {
     await sent.getByText('WC-0011, Baseline').waitFor();
     const [download] = await Promise.all([
       page.waitForEvent('download'),
-      sent.getByRole('button', { name: /^Download WC-0011 Baseline revision 1$/ }).click(),
+      sent.getByRole('button', { name: /^Download PDF: WC-0011 Baseline revision 1$/ }).click(),
     ]);
     const saved = await download.path();
     const bytes = readFileSync(saved);
