@@ -267,7 +267,7 @@ describe('SignedReports', () => {
       'Download PDF: AC-0042 V2 revision 1',
     ]);
     await user.click(
-      within(linked).getByRole('button', { name: 'Download AC-0042 V2 revision 1' }),
+      within(linked).getByRole('button', { name: 'Download PDF: AC-0042 V2 revision 1' }),
     );
     await waitFor(() => expect(downloads).toEqual(['rev-1']));
     expect(click).toHaveBeenCalledTimes(1);
