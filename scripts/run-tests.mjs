@@ -3,7 +3,7 @@
 // Lint, format and type checks count as one check each; test runners count their tests.
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { buildIfStale } from './build-if-stale.mjs';
 import { ensureOsPackages } from './os-packages.mjs';
@@ -24,14 +24,21 @@ function run(command, args, cwd = root) {
   return outcome.status === 0;
 }
 
+/** Seconds since `startedMs`, for the closing table (where CI time goes). */
+function secondsSince(startedMs) {
+  return (performance.now() - startedMs) / 1000;
+}
+
 function check(name, command, args, cwd) {
+  const started = performance.now();
   const ok = run(command, args, cwd);
-  results.push({ name, passed: ok ? 1 : 0, failed: ok ? 0 : 1 });
+  results.push({ name, passed: ok ? 1 : 0, failed: ok ? 0 : 1, seconds: secondsSince(started) });
 }
 
 /** Runs a jest or vitest suite with its JSON report and counts its tests. */
 function suite(name, command, args, cwd) {
   const reportFile = join(reports, `${name.replace(/\W+/g, '-')}.json`);
+  const started = performance.now();
   const ok = run(command, [...args, '--json', `--outputFile=${reportFile}`], cwd);
   let passed = 0;
   let failed = 0;
@@ -42,11 +49,12 @@ function suite(name, command, args, cwd) {
   }
   // A runner that failed without a failed test (a suite that did not load, no tests found) still fails.
   if (!ok && failed === 0) failed = 1;
-  results.push({ name, passed, failed });
+  results.push({ name, passed, failed, seconds: secondsSince(started) });
 }
 
 function vitestSuite(name, args, cwd) {
   const reportFile = join(reports, `${name.replace(/\W+/g, '-')}.json`);
+  const started = performance.now();
   const ok = run(
     'npx',
     [
@@ -67,17 +75,18 @@ function vitestSuite(name, args, cwd) {
     failed = report.numFailedTests ?? 0;
   }
   if (!ok && failed === 0) failed = 1;
-  results.push({ name, passed, failed });
+  results.push({ name, passed, failed, seconds: secondsSince(started) });
 }
 
 // Chromium, numpy/scipy and redis-server: installed here when we may, or the exact command.
 if (!ensureOsPackages()) process.exit(1);
 
+const buildStarted = performance.now();
 try {
   buildIfStale();
-  results.push({ name: 'build', passed: 1, failed: 0 });
+  results.push({ name: 'build', passed: 1, failed: 0, seconds: secondsSince(buildStarted) });
 } catch {
-  results.push({ name: 'build', passed: 0, failed: 1 });
+  results.push({ name: 'build', passed: 0, failed: 1, seconds: secondsSince(buildStarted) });
 }
 
 check('eslint', 'npx', ['eslint', '--max-warnings=0', '.']);
@@ -102,12 +111,18 @@ vitestSuite(
 );
 
 rmSync(reports, { recursive: true, force: true });
-console.log('\nSummary:');
+console.log('\nSummary (seconds per step, then the load average at the end):');
 for (const result of results) {
   console.log(
-    `  ${result.failed === 0 ? 'ok  ' : 'FAIL'} ${result.name}: ${result.passed} passed, ${result.failed} failed`,
+    `  ${result.failed === 0 ? 'ok  ' : 'FAIL'} ${result.seconds.toFixed(0).padStart(5)} s  ${result.name}: ${result.passed} passed, ${result.failed} failed`,
   );
 }
+const totalSeconds = results.reduce((sum, r) => sum + r.seconds, 0);
+console.log(
+  `  ${totalSeconds.toFixed(0)} s in all; load average ${loadavg()
+    .map((v) => v.toFixed(2))
+    .join(' ')}`,
+);
 const passed = results.reduce((sum, r) => sum + r.passed, 0);
 const failed = results.reduce((sum, r) => sum + r.failed, 0);
 console.log(`${passed} passed, ${failed} failed`);

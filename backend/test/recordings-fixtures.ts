@@ -4,10 +4,9 @@
  * (src/signal/synthetic) and written with its EDF writer; the patient names are invented.
  */
 import request from 'supertest';
-import type { RecordingDto, RecordingKind, RecordingState } from '@gyre/shared';
-import { writeEdf } from '../src/signal/edf';
-import type { EdfAnnotation } from '../src/signal/edf';
+import type { RecordingView, RecordingKind, RecordingState } from '@gyre/shared';
 import {
+  syntheticEdf,
   syntheticRestRecording,
   syntheticTaskRecording,
 } from '../src/signal/synthetic/synthetic-eeg';
@@ -59,20 +58,13 @@ export function syntheticTaskEdf(options: TaskFileOptions = {}): Uint8Array {
     baseFrequencyHz: options.baseFrequencyHz,
     seed: options.seed ?? 7,
   });
-  return writeEdf({
+  return syntheticEdf(recording, {
     startDate: '2026-01-15T09:30:00',
     patientId: options.patientId ?? INVENTED_PATIENT_FIELD,
-    signals: recording.signals.map((s) => ({
-      label: s.label,
-      sampleRateHz: s.sampleRateHz,
-      ...(options.physicalRange === 'hug' ? huggingRange(s.samples) : FIXED_RANGE),
-      samples: s.samples,
-    })),
-    annotations: options.annotate === false ? [] : (recording.annotations as EdfAnnotation[]),
+    annotate: options.annotate !== false,
+    signalHeader: (s) => (options.physicalRange === 'hug' ? huggingRange(s.samples) : {}),
   });
 }
-
-const FIXED_RANGE = { physicalMin: -500, physicalMax: 500 };
 
 /** A physical range 0.01 % wider than the largest absolute sample, on both sides. */
 function huggingRange(samples: Float32Array): { physicalMin: number; physicalMax: number } {
@@ -92,16 +84,9 @@ export function syntheticRestEdf(
     peakHz: options.peakHz ?? 9.5,
     seed: options.seed ?? 3,
   });
-  return writeEdf({
+  return syntheticEdf(recording, {
     startDate: '2026-01-15T09:00:00',
     patientId: INVENTED_PATIENT_FIELD,
-    signals: recording.signals.map((s) => ({
-      label: s.label,
-      sampleRateHz: s.sampleRateHz,
-      physicalMin: -500,
-      physicalMax: 500,
-      samples: s.samples,
-    })),
   });
 }
 
@@ -150,16 +135,16 @@ export async function waitForState(
   recordingId: string,
   states: readonly RecordingState[],
   timeoutMs = 90_000,
-): Promise<RecordingDto> {
+): Promise<RecordingView> {
   const until = Date.now() + timeoutMs;
-  let last: RecordingDto | null = null;
+  let last: RecordingView | null = null;
   while (Date.now() < until) {
     const response = await request(t.url)
       .get(`/api/recordings/${recordingId}`)
       .set(await t.authHeader(user));
     if (response.status !== 200)
       throw new Error(`GET recording: ${response.status} ${JSON.stringify(response.body)}`);
-    last = response.body as RecordingDto;
+    last = response.body as RecordingView;
     if (states.includes(last.state)) return last;
     await new Promise((resolve) => setTimeout(resolve, 150));
   }

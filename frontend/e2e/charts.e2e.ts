@@ -1,7 +1,7 @@
 import type { Locator, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, screenshot, watchConsole } from './support/browser';
-import { startGyre, type RunningGyre } from './support/gyre-server';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { screenshot, watchConsole } from './support/browser';
+import { gyreInChromium } from './support/gyre-server';
 import { signInThroughPage } from './support/sign-in-page';
 import { setUpInventedStudy, type InventedStudy } from './support/study-data';
 
@@ -43,29 +43,21 @@ async function expectInside(page: Page, figure: Locator): Promise<void> {
 }
 
 describe('chart axes and labels in Chromium, on a real server', () => {
-  let gyre: RunningGyre;
-  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  const run = gyreInChromium();
   let invented: InventedStudy;
 
   beforeAll(async () => {
-    gyre = await startGyre();
-    browser = await openBrowser();
-    invented = await setUpInventedStudy(gyre, PEOPLE);
+    invented = await setUpInventedStudy(run.gyre, PEOPLE);
   }, 600_000);
-
-  afterAll(async () => {
-    await browser?.close();
-    await gyre?.stop();
-  });
 
   for (const width of [390, 1440]) {
     it(`Review at ${width} px: distinct tick labels, −1.0 s labelled, window names apart`, async () => {
-      const page = await browser.context.newPage();
+      const page = await run.browser.context.newPage();
       const problems = watchConsole(page);
       await page.setViewportSize({ width, height: 900 });
       await signInThroughPage(
         page,
-        gyre.baseUrl,
+        run.gyre.baseUrl,
         PEOPLE.analyst.email,
         `/review/${invented.visit.id}`,
       );
@@ -110,11 +102,11 @@ describe('chart axes and labels in Chromium, on a real server', () => {
   }
 
   it('Participant at 390 px: date ticks name each month or year once', async () => {
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     await page.setViewportSize({ width: 390, height: 900 });
     await signInThroughPage(
       page,
-      gyre.baseUrl,
+      run.gyre.baseUrl,
       PEOPLE.analyst.email,
       `/participants/${invented.participant.id}`,
     );

@@ -2,9 +2,9 @@ import { readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, watchConsole } from './support/browser';
-import { startGyre, type RunningGyre } from './support/gyre-server';
+import { describe, expect, it } from 'vitest';
+import { watchConsole } from './support/browser';
+import { gyreInChromium } from './support/gyre-server';
 
 const CLIENT_DIR = resolve(import.meta.dirname, '..', 'dist');
 
@@ -30,27 +30,16 @@ function recordScripts(page: Page): string[] {
 }
 
 describe('what the sign-in page downloads, in Chromium', () => {
-  let gyre: RunningGyre;
-  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  const run = gyreInChromium();
   const manifest = JSON.parse(
     readFileSync(join(CLIENT_DIR, '.vite', 'manifest.json'), 'utf8'),
   ) as Manifest;
 
-  beforeAll(async () => {
-    gyre = await startGyre();
-    browser = await openBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await gyre?.stop();
-  });
-
   it('stays within 250 kB of gzipped JavaScript, without charts or the signed-in frame', async () => {
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
     const scripts = recordScripts(page);
-    await page.goto(`${gyre.baseUrl}/sign-in`, { waitUntil: 'networkidle' });
+    await page.goto(`${run.gyre.baseUrl}/sign-in`, { waitUntil: 'networkidle' });
     await page.getByRole('button', { name: 'Sign in' }).waitFor();
 
     const files = [...new Set(scripts)];
@@ -80,20 +69,20 @@ describe('what the sign-in page downloads, in Chromium', () => {
   it('caches the hashed build for a year, revalidates the page, and serves no source maps', async () => {
     const entry = Object.values(manifest).find((chunk) => chunk.isEntry === true);
     expect(entry).toBeDefined();
-    const page = await fetch(`${gyre.baseUrl}/review/some-visit`, {
+    const page = await fetch(`${run.gyre.baseUrl}/review/some-visit`, {
       headers: { accept: 'text/html' },
     });
     expect(page.status).toBe(200);
     // RFC 9111 §5.2.2.4 (no-cache); RFC 9111 §5.2.2.1 with RFC 8246 (a year, immutable).
     expect(page.headers.get('cache-control')).toBe('no-cache');
     expect(await page.text()).toContain(`/${entry?.file}`);
-    const script = await fetch(`${gyre.baseUrl}/${entry?.file}`);
+    const script = await fetch(`${run.gyre.baseUrl}/${entry?.file}`);
     expect(script.status).toBe(200);
     expect(script.headers.get('cache-control')).toBe('public, max-age=31536000, immutable');
     expect(await script.text()).not.toContain('sourceMappingURL');
-    const map = await fetch(`${gyre.baseUrl}/${entry?.file}.map`);
+    const map = await fetch(`${run.gyre.baseUrl}/${entry?.file}.map`);
     expect(map.status).toBe(404);
-    const manifestAnswer = await fetch(`${gyre.baseUrl}/.vite/manifest.json`);
+    const manifestAnswer = await fetch(`${run.gyre.baseUrl}/.vite/manifest.json`);
     expect(await manifestAnswer.text()).not.toContain('"file"');
   });
 });

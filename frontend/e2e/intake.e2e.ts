@@ -3,17 +3,12 @@ import { tmpdir } from 'node:os';
 import { basename, join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { ParticipantView, RecordingDto, SiteView, StudyView, VisitView } from '@gyre/shared';
-import {
-  api,
-  createFirstAdmin,
-  E2E_PASSWORD,
-  inviteAndAccept,
-  signInApi,
-} from './support/accounts';
+import type { ParticipantView, RecordingView, VisitView } from '@gyre/shared';
+import { E2E_PASSWORD } from './support/accounts';
 import { openBrowser, screenshot, watchConsole } from './support/browser';
 import { writeRestingEdf, writeTruncatedEdf } from './support/edf-files';
 import { startGyre, type RunningGyre } from './support/gyre-server';
+import { addParticipant, addVisit, setUpStudy } from './support/study-data';
 
 // Generated test accounts of an invented study.
 const ADMIN = { email: 'ida.admin@gyre.test', name: 'Ida Admin', password: E2E_PASSWORD };
@@ -39,7 +34,7 @@ describe('Intake as a technician uses it, in Chromium on a real server', () => {
   }
 
   /** A resting recording uploaded through the API, as another technician's upload would be. */
-  async function uploadByApi(visitId: string, path: string): Promise<RecordingDto> {
+  async function uploadByApi(visitId: string, path: string): Promise<RecordingView> {
     const form = new FormData();
     form.append('kind', 'resting');
     form.append('file', new Blob([readFileSync(path)]), basename(path));
@@ -49,44 +44,24 @@ describe('Intake as a technician uses it, in Chromium on a real server', () => {
       body: form,
     });
     expect(response.status).toBe(201);
-    return (await response.json()) as RecordingDto;
+    return (await response.json()) as RecordingView;
   }
 
   beforeAll(async () => {
     files = mkdtempSync(join(tmpdir(), 'gyre-e2e-intake-'));
     gyre = await startGyre();
-    await createFirstAdmin(gyre.dataDir, ADMIN);
-    const adminToken = await signInApi(gyre.baseUrl, ADMIN.email, ADMIN.password);
-    const study = await api<StudyView>(gyre.baseUrl, adminToken, 'POST', '/api/studies', {
-      code: 'ALPHA-LIVE',
-      name: 'Alpha followed live (invented)',
+    const team = await setUpStudy(gyre, {
+      admin: ADMIN,
+      study: { code: 'ALPHA-LIVE', name: 'Alpha followed live (invented)' },
+      members: { technician: TECHNICIAN },
     });
-    const site = await api<SiteView>(gyre.baseUrl, adminToken, 'POST', '/api/sites', {
-      studyId: study.id,
-      code: 'EAST',
-      name: 'East clinic',
+    technicianToken = team.tokenOf('technician');
+    participant = await addParticipant(gyre, technicianToken, {
+      code: 'AC-0077',
+      enrolmentDate: '2025-02-03',
     });
-    await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
-      ...TECHNICIAN,
-      role: 'technician',
-      studyId: study.id,
-      siteId: site.id,
-    });
-    technicianToken = await signInApi(gyre.baseUrl, TECHNICIAN.email, E2E_PASSWORD);
-    participant = await api<ParticipantView>(
-      gyre.baseUrl,
-      technicianToken,
-      'POST',
-      '/api/participants',
-      { code: 'AC-0077', enrolmentDate: '2025-02-03' },
-    );
     const visit = (label: string, visitDate: string) =>
-      api<VisitView>(gyre.baseUrl, technicianToken, 'POST', '/api/visits', {
-        participantId: participant.id,
-        unscheduled: true,
-        label,
-        visitDate,
-      });
+      addVisit(gyre, technicianToken, participant, { label, visitDate });
     visit1 = await visit('V1', '2025-02-03');
     visit2 = await visit('V2', '2025-05-05');
   });

@@ -1,16 +1,11 @@
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type { ParticipantView, SiteView, StudyView, VisitView } from '@gyre/shared';
-import {
-  api,
-  createFirstAdmin,
-  E2E_PASSWORD,
-  inviteAndAccept,
-  signInApi,
-} from './support/accounts';
-import { openBrowser, screenshot, watchConsole } from './support/browser';
-import { startGyre, type RunningGyre } from './support/gyre-server';
+import { api, E2E_PASSWORD } from './support/accounts';
+import { screenshot, watchConsole } from './support/browser';
+import { gyreInChromium } from './support/gyre-server';
 import { signInThroughPage } from './support/sign-in-page';
+import { addParticipant, addVisit, setUpStudy } from './support/study-data';
 
 // Generated test accounts of an invented study.
 const ADMIN = { email: 'lea.admin@gyre.test', name: 'Lea Admin', password: E2E_PASSWORD };
@@ -22,55 +17,24 @@ const FLAG_REASON = 'ROI slowing in the task window of both sessions';
 /** A zone with a non-zero offset, so a missing conversion would show. */
 const ZONE = 'Europe/Berlin';
 
+/** The invented study this file's tests run on (support/study-data.ts builds it). */
+const INVENTED_STUDY = {
+  admin: ADMIN,
+  study: { code: 'ALPHA-LEDGER', name: 'Alpha ledger (invented)' },
+  members: { technician: TECHNICIAN, analyst: ANALYST, monitor: MONITOR },
+};
+
 describe('The Ledger as a monitor reads it, in Chromium on a real server', () => {
-  let gyre: RunningGyre;
-  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  const run = gyreInChromium((gyre) => setUpStudy(gyre, INVENTED_STUDY));
   let flagged: ParticipantView;
   let flaggedVisit: VisitView;
   let other: ParticipantView;
 
   beforeAll(async () => {
-    gyre = await startGyre();
-    browser = await openBrowser();
-    await createFirstAdmin(gyre.dataDir, ADMIN);
-    const adminToken = await signInApi(gyre.baseUrl, ADMIN.email, ADMIN.password);
-    const study = await api<StudyView>(gyre.baseUrl, adminToken, 'POST', '/api/studies', {
-      code: 'ALPHA-LEDGER',
-      name: 'Alpha ledger (invented)',
-    });
-    const site = await api<SiteView>(gyre.baseUrl, adminToken, 'POST', '/api/sites', {
-      studyId: study.id,
-      code: 'EAST',
-      name: 'East clinic',
-    });
-    await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
-      ...TECHNICIAN,
-      role: 'technician',
-      studyId: study.id,
-      siteId: site.id,
-    });
-    for (const [person, role] of [
-      [ANALYST, 'analyst'],
-      [MONITOR, 'monitor'],
-    ] as const) {
-      await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
-        ...person,
-        role,
-        studyId: study.id,
-      });
-    }
-    const techToken = await signInApi(gyre.baseUrl, TECHNICIAN.email, E2E_PASSWORD);
+    const techToken = run.prepared.tokenOf('technician');
     const newParticipant = async (code: string, label: string) => {
-      const participant = await api<ParticipantView>(
-        gyre.baseUrl,
-        techToken,
-        'POST',
-        '/api/participants',
-        { code },
-      );
-      const visit = await api<VisitView>(gyre.baseUrl, techToken, 'POST', '/api/visits', {
-        participantId: participant.id,
-        unscheduled: true,
+      const participant = await addParticipant(run.gyre, techToken, { code });
+      const visit = await addVisit(run.gyre, techToken, participant, {
         label,
         visitDate: '2026-11-30',
       });
@@ -78,40 +42,47 @@ describe('The Ledger as a monitor reads it, in Chromium on a real server', () =>
     };
     ({ participant: other } = await newParticipant('EC-0002', 'V1'));
     // Another study's set-up in between: entries a monitor of this study may not read.
-    const otherStudy = await api<StudyView>(gyre.baseUrl, adminToken, 'POST', '/api/studies', {
-      code: 'BETA-LEDGER',
-      name: 'Beta ledger (invented)',
-    });
-    const otherSite = await api<SiteView>(gyre.baseUrl, adminToken, 'POST', '/api/sites', {
-      studyId: otherStudy.id,
-      code: 'SOUTH',
-      name: 'South clinic',
-    });
-    await api(gyre.baseUrl, adminToken, 'POST', '/api/users/invitations', {
+    const otherStudy = await api<StudyView>(
+      run.gyre.baseUrl,
+      run.prepared.adminToken,
+      'POST',
+      '/api/studies',
+      {
+        code: 'BETA-LEDGER',
+        name: 'Beta ledger (invented)',
+      },
+    );
+    const otherSite = await api<SiteView>(
+      run.gyre.baseUrl,
+      run.prepared.adminToken,
+      'POST',
+      '/api/sites',
+      {
+        studyId: otherStudy.id,
+        code: 'SOUTH',
+        name: 'South clinic',
+      },
+    );
+    await api(run.gyre.baseUrl, run.prepared.adminToken, 'POST', '/api/users/invitations', {
       ...OTHER_TECHNICIAN,
       role: 'technician',
       studyId: otherStudy.id,
       siteId: otherSite.id,
     });
     ({ participant: flagged, visit: flaggedVisit } = await newParticipant('EC-0001', 'V2'));
-    const analystToken = await signInApi(gyre.baseUrl, ANALYST.email, E2E_PASSWORD);
-    await api(gyre.baseUrl, analystToken, 'POST', `/api/visits/${flaggedVisit.id}/flag/raise`, {
+    const analystToken = run.prepared.tokenOf('analyst');
+    await api(run.gyre.baseUrl, analystToken, 'POST', `/api/visits/${flaggedVisit.id}/flag/raise`, {
       reason: FLAG_REASON,
     });
   });
 
-  afterAll(async () => {
-    await browser?.close();
-    await gyre?.stop();
-  });
-
   async function monitorPage(): Promise<{ page: Page; problems: string[] }> {
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
-    const cdp = await browser.context.newCDPSession(page);
+    const cdp = await run.browser.context.newCDPSession(page);
     await cdp.send('Emulation.setTimezoneOverride', { timezoneId: ZONE });
     await page.setViewportSize({ width: 1440, height: 900 });
-    await signInThroughPage(page, gyre.baseUrl, MONITOR.email, '/ledger');
+    await signInThroughPage(page, run.gyre.baseUrl, MONITOR.email, '/ledger');
     await page.getByText('The trail is intact').waitFor();
     return { page, problems };
   }

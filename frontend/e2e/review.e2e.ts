@@ -1,75 +1,19 @@
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type {
   ParticipantView,
-  RecordingDto,
-  RecordingKind,
-  RecordingResultsDto,
-  SiteView,
-  StudyView,
-  TrajectoryDto,
-  VisitFlagDto,
+  RecordingView,
+  RecordingResultsView,
+  TrajectoryView,
+  VisitFlagView,
   VisitView,
 } from '@gyre/shared';
 import { randomUUID } from 'node:crypto';
-import {
-  api,
-  createFirstAdmin,
-  E2E_PASSWORD,
-  inviteAndAccept,
-  signInApi,
-} from './support/accounts';
-import { edfWriter, seededNoise } from './support/edf-files';
+import { api, E2E_PASSWORD } from './support/accounts';
+import { addParticipant, addVisit, setUpStudy, uploadComputed } from './support/study-data';
 import { signInThroughPage } from './support/sign-in-page';
-import { openBrowser, screenshot, watchConsole } from './support/browser';
-import { startGyre, type RunningGyre } from './support/gyre-server';
-
-const SAMPLE_RATE_HZ = 256;
-const CHANNELS = ['O1', 'O2', 'Oz', 'Pz', 'P3', 'P4'];
-
-/**
- * Generated test data: 20 µV alpha on six posterior 10-10 channels over ±3 µV noise. Its
- * frequency is `alphaHz`, lowered by `dipHz` from +0.2 to +0.8 s after each onset (a smooth
- * dip), so the task has a known slowing; the phase is the running integral of the frequency.
- */
-function writeRecording(options: {
-  kind: RecordingKind;
-  alphaHz: number;
-  dipHz: number;
-  durationS: number;
-  startDate: string;
-}): Uint8Array {
-  const n = SAMPLE_RATE_HZ * options.durationS;
-  const onsetsS: number[] = [];
-  if (options.kind === 'task') for (let t = 5; t <= options.durationS - 5; t += 4) onsetsS.push(t);
-  const frequencyHz = new Float64Array(n).fill(options.alphaHz);
-  for (const onset of onsetsS) {
-    for (
-      let i = Math.floor((onset + 0.1) * SAMPLE_RATE_HZ);
-      i < (onset + 0.9) * SAMPLE_RATE_HZ;
-      i++
-    ) {
-      const u = (i / SAMPLE_RATE_HZ - onset - 0.1) / 0.8;
-      frequencyHz[i] -= options.dipHz * Math.sin(Math.PI * u) ** 2;
-    }
-  }
-  const noise = seededNoise(options.kind === 'task' ? 7 : 11);
-  const signals = CHANNELS.map((label, channel) => {
-    const samples = new Float32Array(n);
-    let phase = channel * 0.7;
-    for (let i = 0; i < n; i++) {
-      samples[i] = 20 * Math.sin(phase) + 3 * noise();
-      phase += (2 * Math.PI * frequencyHz[i]) / SAMPLE_RATE_HZ;
-    }
-    return { label, sampleRateHz: SAMPLE_RATE_HZ, physicalMin: -500, physicalMax: 500, samples };
-  });
-  return edfWriter().writeEdf({
-    format: 'EDF+C',
-    startDate: options.startDate,
-    signals,
-    annotations: onsetsS.map((onsetS) => ({ onsetS, durationS: null, text: 'stimulus' })),
-  });
-}
+import { screenshot, watchConsole } from './support/browser';
+import { gyreInChromium } from './support/gyre-server';
 
 const CAUTION =
   'Research use only. Not a diagnostic device: do not use these results for clinical decisions. Follow your study protocol, local regulations and licensed clinicians.';
@@ -86,48 +30,22 @@ const formatHz = (value: number | null) =>
     ? '—'
     : `${value < 0 && Math.abs(value) >= 0.005 ? '\u2212' : ''}${Math.abs(value).toFixed(2)}\u00a0Hz`;
 
+/** The invented study this file's tests run on (support/study-data.ts builds it). */
+const INVENTED_STUDY = {
+  admin: ADMIN,
+  study: { code: 'ALPHA-REVIEW', name: 'Alpha review (invented)' },
+  members: { technician: TECHNICIAN, analyst: ANALYST, monitor: MONITOR },
+};
+
 describe('Review and Participants in Chromium, on a real server', () => {
-  let gyre: RunningGyre;
-  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  const run = gyreInChromium((gyre) => setUpStudy(gyre, INVENTED_STUDY));
   let analystToken: string;
   let participant: ParticipantView;
   const visits: VisitView[] = [];
-  const recordings: Record<string, RecordingDto> = {};
-
-  async function upload(token: string, visit: VisitView, kind: RecordingKind, bytes: Uint8Array) {
-    const form = new FormData();
-    form.append('kind', kind);
-    form.append('file', new Blob([new Uint8Array(bytes)]), `${visit.label}-${kind}.edf`);
-    const response = await fetch(`${gyre.baseUrl}/api/visits/${visit.id}/recordings`, {
-      method: 'POST',
-      headers: { authorization: `Bearer ${token}` },
-      body: form,
-    });
-    const text = await response.text();
-    if (!response.ok) throw new Error(`upload answered ${response.status}: ${text}`);
-    return JSON.parse(text) as RecordingDto;
-  }
-
-  async function waitReady(token: string, recording: RecordingDto): Promise<RecordingDto> {
-    const deadline = Date.now() + 240_000;
-    for (;;) {
-      const now = await api<RecordingDto>(
-        gyre.baseUrl,
-        token,
-        'GET',
-        `/api/recordings/${recording.id}`,
-      );
-      if (now.state === 'ready') return now;
-      if (now.state === 'rejected' || now.state === 'failed') {
-        throw new Error(`${recording.kind} recording ${now.state}: ${JSON.stringify(now)}`);
-      }
-      if (Date.now() > deadline) throw new Error(`${recording.kind} recording still ${now.state}`);
-      await new Promise((wait) => setTimeout(wait, 500));
-    }
-  }
+  const recordings: Record<string, RecordingView> = {};
 
   const signIn = (page: Page, email: string, next: string) =>
-    signInThroughPage(page, gyre.baseUrl, email, next);
+    signInThroughPage(page, run.gyre.baseUrl, email, next);
 
   /** Pixels of a canvas that are drawn on (alpha > 0), read back from the page. */
   async function drawnPixels(page: Page, figure: string): Promise<number> {
@@ -151,84 +69,42 @@ describe('Review and Participants in Chromium, on a real server', () => {
   }
 
   beforeAll(async () => {
-    gyre = await startGyre();
-    browser = await openBrowser();
-    await createFirstAdmin(gyre.dataDir, ADMIN);
-    const adminToken = await signInApi(gyre.baseUrl, ADMIN.email, ADMIN.password);
-    const study = await api<StudyView>(gyre.baseUrl, adminToken, 'POST', '/api/studies', {
-      code: 'ALPHA-REVIEW',
-      name: 'Alpha review (invented)',
-    });
-    const site = await api<SiteView>(gyre.baseUrl, adminToken, 'POST', '/api/sites', {
-      studyId: study.id,
-      code: 'EAST',
-      name: 'East clinic',
-    });
-    await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
-      ...TECHNICIAN,
-      role: 'technician',
-      studyId: study.id,
-      siteId: site.id,
-    });
-    for (const [person, role] of [
-      [ANALYST, 'analyst'],
-      [MONITOR, 'monitor'],
-    ] as const) {
-      await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
-        ...person,
-        role,
-        studyId: study.id,
-      });
-    }
-    const techToken = await signInApi(gyre.baseUrl, TECHNICIAN.email, E2E_PASSWORD);
-    analystToken = await signInApi(gyre.baseUrl, ANALYST.email, E2E_PASSWORD);
-    participant = await api<ParticipantView>(gyre.baseUrl, techToken, 'POST', '/api/participants', {
-      code: 'EC-0007',
-    });
+    const techToken = run.prepared.tokenOf('technician');
+    analystToken = run.prepared.tokenOf('analyst');
+    participant = await addParticipant(run.gyre, techToken, { code: 'EC-0007' });
     // Two visits a year apart; at the second the alpha rhythm runs slower and slows more.
-    for (const [label, visitDate, alphaHz, dipHz] of [
-      ['V1', '2024-03-04', 10.2, 0.5],
-      ['V2', '2025-03-10', 9.9, 0.7],
+    for (const [label, visitDate, alphaHz, deltaFHz] of [
+      ['V1', '2024-03-04', 10.2, -0.5],
+      ['V2', '2025-03-10', 9.9, -0.7],
     ] as const) {
-      const visit = await api<VisitView>(gyre.baseUrl, techToken, 'POST', '/api/visits', {
-        participantId: participant.id,
-        label,
-        visitDate,
-      });
+      const visit = await addVisit(run.gyre, techToken, participant, { label, visitDate });
       visits.push(visit);
-      const startDate = `${visitDate}T09:30:00`;
-      const rest = await upload(
-        techToken,
-        visit,
-        'resting',
-        writeRecording({ kind: 'resting', alphaHz, dipHz: 0, durationS: 60, startDate }),
-      );
-      recordings[`${label}-resting`] = await waitReady(techToken, rest);
-      const task = await upload(
-        techToken,
-        visit,
-        'task',
-        writeRecording({ kind: 'task', alphaHz, dipHz, durationS: 120, startDate }),
-      );
-      recordings[`${label}-task`] = await waitReady(techToken, task);
+      const alpha = { alphaHz, startDate: `${visitDate}T09:30:00` } as const;
+      recordings[`${label}-resting`] = await uploadComputed(run.gyre, techToken, visit, {
+        ...alpha,
+        kind: 'resting',
+        deltaFHz: 0,
+        durationS: 60,
+      });
+      recordings[`${label}-task`] = await uploadComputed(run.gyre, techToken, visit, {
+        ...alpha,
+        kind: 'task',
+        deltaFHz,
+        durationS: 120,
+      });
     }
   }, 600_000);
 
-  afterAll(async () => {
-    await browser?.close();
-    await gyre?.stop();
-  });
-
   it('an analyst reviews a visit: every chart drawn, the numbers those of the API, and raises a flag', async () => {
     const visit = visits[0];
-    const task = await api<RecordingResultsDto>(
-      gyre.baseUrl,
+    const task = await api<RecordingResultsView>(
+      run.gyre.baseUrl,
       analystToken,
       'GET',
       `/api/recordings/${recordings['V1-task'].id}/results`,
     );
-    const rest = await api<RecordingResultsDto>(
-      gyre.baseUrl,
+    const rest = await api<RecordingResultsView>(
+      run.gyre.baseUrl,
       analystToken,
       'GET',
       `/api/recordings/${recordings['V1-resting'].id}/results`,
@@ -236,7 +112,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
     expect(task.task).not.toBeNull();
     expect(rest.rest).not.toBeNull();
 
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
     await signIn(page, ANALYST.email, `/review/${visit.id}`);
     await page.getByText(`Review · ${participant.code} · ${visit.label}`).waitFor();
@@ -280,8 +156,8 @@ describe('Review and Participants in Chromium, on a real server', () => {
     const decision = page.getByRole('region', { name: "Analyst's decision" });
     await decision.getByText('Slowing flag raised').waitFor();
     await expect(decision.innerText()).resolves.toContain(FLAG_REASON);
-    const flag = await api<VisitFlagDto>(
-      gyre.baseUrl,
+    const flag = await api<VisitFlagView>(
+      run.gyre.baseUrl,
       analystToken,
       'GET',
       `/api/visits/${visit.id}/flag`,
@@ -315,8 +191,8 @@ describe('Review and Participants in Chromium, on a real server', () => {
       'error: Failed to load resource: the server responded with a status of 409 (Conflict)',
     ]);
     problems.length = before;
-    const unchanged = await api<RecordingResultsDto>(
-      gyre.baseUrl,
+    const unchanged = await api<RecordingResultsView>(
+      run.gyre.baseUrl,
       analystToken,
       'GET',
       `/api/recordings/${recordings['V1-task'].id}/results`,
@@ -324,7 +200,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
     expect(unchanged.run.settingsVersion).toBe(1);
     expect(unchanged.run.staleSettings).toEqual(['post window 0.2–0.8 s → 0.2–0.9 s']);
 
-    await page.goto(`${gyre.baseUrl}/review/${visit.id}`);
+    await page.goto(`${run.gyre.baseUrl}/review/${visit.id}`);
     const stale = page.getByLabel('Computed with older settings').first();
     await stale.getByText('post window 0.2–0.8 s → 0.2–0.9 s', { exact: false }).waitFor();
     await stale.getByRole('button', { name: 'Re-run with the current settings' }).click();
@@ -332,8 +208,8 @@ describe('Review and Participants in Chromium, on a real server', () => {
       .getByTestId('settings-version-task')
       .getByText('version 2')
       .waitFor({ timeout: 240_000 });
-    const rerun = await api<RecordingResultsDto>(
-      gyre.baseUrl,
+    const rerun = await api<RecordingResultsView>(
+      run.gyre.baseUrl,
       analystToken,
       'GET',
       `/api/recordings/${recordings['V1-task'].id}/results`,
@@ -362,8 +238,8 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await page.getByText(`Participant ${participant.code}`).waitFor();
     await expectDrawn(page, 'Alpha frequency trajectory', 3000);
     await expectDrawn(page, 'Onset change trajectory', 3000);
-    const trajectory = await api<TrajectoryDto>(
-      gyre.baseUrl,
+    const trajectory = await api<TrajectoryView>(
+      run.gyre.baseUrl,
       analystToken,
       'GET',
       `/api/participants/${participant.id}/trajectory`,
@@ -381,7 +257,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
   });
 
   it('a monitor sees the same screens read-only', async () => {
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
     await signIn(page, MONITOR.email, `/review/${visits[0].id}`);
     await page.getByText(`Review · ${participant.code} · V1`).waitFor();
@@ -426,12 +302,12 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await page.close();
   });
   it('lists visits, latest values, flags and report per participant; Review fits a phone and a missing visit says so', async () => {
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
     // Same spaces and minus as the screen: the formatter writes U+2212 and a no-break space.
     const plain = (text: string) => text.replace(/\s/g, ' ').replace(/\u2212/g, '-');
-    const trajectory = await api<TrajectoryDto>(
-      gyre.baseUrl,
+    const trajectory = await api<TrajectoryView>(
+      run.gyre.baseUrl,
       analystToken,
       'GET',
       `/api/participants/${participant.id}/trajectory`,
@@ -479,7 +355,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await screenshot(page, 'participants-columns-390');
 
     // Review at phone width: nothing sideways, and the chip and the card name one state.
-    await page.goto(`${gyre.baseUrl}/review/${visits[1].id}`);
+    await page.goto(`${run.gyre.baseUrl}/review/${visits[1].id}`);
     const chip = page.getByTestId('report-state-chip');
     const card = page.getByTestId('report-state-card');
     await chip.waitFor();
@@ -507,7 +383,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await screenshot(page, 'review-1440');
 
     // A visit that does not exist: said in words, a way back, nothing to try again.
-    await page.goto(`${gyre.baseUrl}/review/${randomUUID()}`);
+    await page.goto(`${run.gyre.baseUrl}/review/${randomUUID()}`);
     await page.getByText('This visit does not exist or you cannot open it').waitFor();
     await expect(page.getByRole('button', { name: 'Try again' }).count()).resolves.toBe(0);
     await page.getByRole('link', { name: 'Back to the start' }).waitFor();

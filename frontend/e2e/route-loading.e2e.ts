@@ -1,8 +1,8 @@
 import type { CDPSession, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { createFirstAdmin, E2E_PASSWORD } from './support/accounts';
-import { openBrowser, watchConsole } from './support/browser';
-import { startGyre, type RunningGyre } from './support/gyre-server';
+import { watchConsole } from './support/browser';
+import { gyreInChromium } from './support/gyre-server';
 import { signInThroughPage } from './support/sign-in-page';
 
 // Generated test account of an empty installation.
@@ -41,24 +41,16 @@ new MutationObserver(() => {
 }).observe(document, { childList: true, subtree: true });`;
 
 describe('screens whose code is still on its way, in Chromium', () => {
-  let gyre: RunningGyre;
-  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  const run = gyreInChromium();
 
   beforeAll(async () => {
-    gyre = await startGyre();
-    browser = await openBrowser();
-    await createFirstAdmin(gyre.dataDir, ADMIN);
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await gyre?.stop();
+    await createFirstAdmin(run.gyre.dataDir, ADMIN);
   });
 
   it('keeps the screen being left, under a progress bar, until the next one is ready', async () => {
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
-    await signInThroughPage(page, gyre.baseUrl, ADMIN.email, '/');
+    await signInThroughPage(page, run.gyre.baseUrl, ADMIN.email, '/');
     await page.getByText(/^Welcome, /).waitFor();
     await slowNetwork(page);
     await page
@@ -76,14 +68,14 @@ describe('screens whose code is still on its way, in Chromium', () => {
   });
 
   it('opens a deep link through a loading outline, never the sign-in form or another page', async () => {
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
-    await signInThroughPage(page, gyre.baseUrl, ADMIN.email, '/');
+    await signInThroughPage(page, run.gyre.baseUrl, ADMIN.email, '/');
     await page.getByText(/^Welcome, /).waitFor();
     await slowNetwork(page);
     await page.addInitScript(STATES);
     // A full load: the session is renewed with the refresh cookie, the code fetched again.
-    await page.goto(`${gyre.baseUrl}/ledger`);
+    await page.goto(`${run.gyre.baseUrl}/ledger`);
     await page.getByRole('heading', { name: 'Ledger', level: 2 }).waitFor();
     await page.getByRole('note', { name: 'Research use caution' }).waitFor();
     const seen = await page.evaluate('window.gyreSeen');

@@ -5,7 +5,7 @@ import type { Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import {
   SIGNATURE_MEANING,
-  type ReportSignOffDto,
+  type ReportSignOffView,
   type SiteView,
   type StudyView,
 } from '@gyre/shared';
@@ -296,7 +296,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
   it('a coordinator downloads the signed report from Reports and cannot open Review', async () => {
     // The analyst signs the visit's report through the API (the sign-off screen is elsewhere).
     const analystToken = await signInApi(gyre.baseUrl, PEOPLE.analyst.email, E2E_PASSWORD);
-    const signOff = await api<ReportSignOffDto>(
+    const signOff = await api<ReportSignOffView>(
       gyre.baseUrl,
       analystToken,
       'GET',

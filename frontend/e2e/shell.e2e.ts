@@ -1,29 +1,17 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import { openBrowser, screenshot, watchConsole } from './support/browser';
-import { startGyre, type RunningGyre } from './support/gyre-server';
+import { describe, expect, it } from 'vitest';
+import { screenshot, watchConsole } from './support/browser';
+import { gyreInChromium } from './support/gyre-server';
 
 const CAUTION =
   'Research use only. Not a diagnostic device: do not use these results for clinical decisions. Follow your study protocol, local regulations and licensed clinicians.';
 
 describe('the built app in Chromium', () => {
-  let gyre: RunningGyre;
-  let browser: { context: BrowserContext; close: () => Promise<void> };
-
-  beforeAll(async () => {
-    gyre = await startGyre();
-    browser = await openBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await gyre?.stop();
-  });
+  const run = gyreInChromium();
 
   it('serves the shell with the caution, in IBM Plex Sans, without console errors', async () => {
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
-    const response = await page.goto(`${gyre.baseUrl}/sign-in`, { waitUntil: 'networkidle' });
+    const response = await page.goto(`${run.gyre.baseUrl}/sign-in`, { waitUntil: 'networkidle' });
     expect(response?.status()).toBe(200);
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
@@ -50,9 +38,9 @@ describe('the built app in Chromium', () => {
   });
 
   it('falls back to the client for deep links and asks a visitor to sign in first', async () => {
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
-    const response = await page.goto(`${gyre.baseUrl}/no/such/screen`, {
+    const response = await page.goto(`${run.gyre.baseUrl}/no/such/screen`, {
       waitUntil: 'networkidle',
     });
     expect(response?.status()).toBe(200);
@@ -64,10 +52,10 @@ describe('the built app in Chromium', () => {
   });
 
   it('keeps /api answering JSON, not the client page', async () => {
-    const health = await fetch(`${gyre.baseUrl}/api/health`);
+    const health = await fetch(`${run.gyre.baseUrl}/api/health`);
     expect(health.headers.get('content-type')).toContain('application/json');
     expect(await health.json()).toMatchObject({ status: 'ok', database: { reachable: true } });
-    const missing = await fetch(`${gyre.baseUrl}/api/does-not-exist`, {
+    const missing = await fetch(`${run.gyre.baseUrl}/api/does-not-exist`, {
       headers: { accept: 'text/html' },
     });
     expect(missing.status).toBe(404);

@@ -2,75 +2,19 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type {
   Page as ListPage,
-  ParticipantView,
-  RecordingDto,
-  RecordingKind,
-  ReportRevisionDto,
-  ReportSignOffDto,
-  SiteView,
-  StudyView,
+  ReportRevisionView,
+  ReportSignOffView,
   VisitView,
 } from '@gyre/shared';
 import { waitForMail } from '../../backend/test/helpers/mail-catcher';
-import {
-  api,
-  createFirstAdmin,
-  E2E_PASSWORD,
-  inviteAndAccept,
-  signInApi,
-} from './support/accounts';
-import { edfWriter } from './support/edf-files';
+import { api, E2E_PASSWORD, signInApi } from './support/accounts';
+import { addParticipant, addVisit, setUpStudy, uploadComputed } from './support/study-data';
 import { signInThroughPage } from './support/sign-in-page';
-import { openBrowser, screenshot, watchConsole } from './support/browser';
-import { startGyre, type RunningGyre } from './support/gyre-server';
-
-const SAMPLE_RATE_HZ = 256;
-
-/**
- * Generated test data: 20 µV alpha at 10 Hz on four posterior 10-10 channels over ±3 µV of
- * noise; in the task recording the frequency dips by 0.6 Hz from +0.1 to +0.9 s after each
- * onset (a smooth dip), its phase the running integral of the frequency.
- */
-function writeRecording(kind: RecordingKind, durationS: number): Uint8Array {
-  const n = SAMPLE_RATE_HZ * durationS;
-  const onsetsS: number[] = [];
-  if (kind === 'task') for (let t = 4; t <= durationS - 4; t += 3) onsetsS.push(t);
-  const frequencyHz = new Float64Array(n).fill(10);
-  for (const onset of onsetsS) {
-    for (
-      let i = Math.floor((onset + 0.1) * SAMPLE_RATE_HZ);
-      i < (onset + 0.9) * SAMPLE_RATE_HZ;
-      i++
-    ) {
-      const u = (i / SAMPLE_RATE_HZ - onset - 0.1) / 0.8;
-      frequencyHz[i] -= 0.6 * Math.sin(Math.PI * u) ** 2;
-    }
-  }
-  // Numerical Recipes' LCG constants (from memory), scaled to −1..1.
-  let state = kind === 'task' ? 5 : 9;
-  const noise = () => {
-    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
-    return state / 2 ** 31 - 1;
-  };
-  const signals = ['O1', 'O2', 'Oz', 'Pz'].map((label, channel) => {
-    const samples = new Float32Array(n);
-    let phase = channel * 0.7;
-    for (let i = 0; i < n; i++) {
-      samples[i] = 20 * Math.sin(phase) + 3 * noise();
-      phase += (2 * Math.PI * frequencyHz[i]) / SAMPLE_RATE_HZ;
-    }
-    return { label, sampleRateHz: SAMPLE_RATE_HZ, physicalMin: -500, physicalMax: 500, samples };
-  });
-  return edfWriter().writeEdf({
-    format: 'EDF+C',
-    startDate: '2025-04-07T09:30:00',
-    signals,
-    annotations: onsetsS.map((onsetS) => ({ onsetS, durationS: null, text: 'stimulus' })),
-  });
-}
+import { screenshot, watchConsole } from './support/browser';
+import { gyreInChromium } from './support/gyre-server';
 
 // Generated test accounts of an invented study.
 const ADMIN = { email: 'ida.admin@gyre.test', name: 'Ida Admin', password: E2E_PASSWORD };
@@ -79,100 +23,46 @@ const ANALYST = { email: 'anja.analyst@gyre.test', name: 'Anja Analyst' };
 const COORDINATOR = { email: 'cai.coordinator@gyre.test', name: 'Cai Coordinator' };
 const MEANING = 'reviewed and approved for the study record';
 
+/** The invented study this file's tests run on (support/study-data.ts builds it). */
+const INVENTED_STUDY = {
+  admin: ADMIN,
+  study: { code: 'ALPHA-SIGN', name: 'Alpha sign-off (invented)' },
+  members: { technician: TECHNICIAN, coordinator: COORDINATOR, analyst: ANALYST },
+};
+
 describe('Report sign-off in Chromium, on a real server', () => {
-  let gyre: RunningGyre;
-  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  const run = gyreInChromium((gyre) => setUpStudy(gyre, INVENTED_STUDY));
   let visit: VisitView;
   let analystToken: string;
 
-  async function upload(token: string, kind: RecordingKind, bytes: Uint8Array) {
-    const form = new FormData();
-    form.append('kind', kind);
-    form.append('file', new Blob([new Uint8Array(bytes)]), `${kind}.edf`);
-    const response = await fetch(`${gyre.baseUrl}/api/visits/${visit.id}/recordings`, {
-      method: 'POST',
-      headers: { authorization: `Bearer ${token}` },
-      body: form,
-    });
-    const text = await response.text();
-    if (!response.ok) throw new Error(`upload answered ${response.status}: ${text}`);
-    const recording = JSON.parse(text) as RecordingDto;
-    const deadline = Date.now() + 240_000;
-    for (;;) {
-      const now = await api<RecordingDto>(
-        gyre.baseUrl,
-        token,
-        'GET',
-        `/api/recordings/${recording.id}`,
-      );
-      if (now.state === 'ready') return;
-      if (now.state === 'rejected' || now.state === 'failed' || Date.now() > deadline) {
-        throw new Error(`${kind} recording ${now.state}: ${JSON.stringify(now)}`);
-      }
-      await new Promise((wait) => setTimeout(wait, 500));
-    }
-  }
-
   const signIn = (page: Page, email: string, next: string) =>
-    signInThroughPage(page, gyre.baseUrl, email, next);
+    signInThroughPage(page, run.gyre.baseUrl, email, next);
 
   beforeAll(async () => {
-    gyre = await startGyre();
-    browser = await openBrowser();
-    await createFirstAdmin(gyre.dataDir, ADMIN);
-    const adminToken = await signInApi(gyre.baseUrl, ADMIN.email, ADMIN.password);
-    const study = await api<StudyView>(gyre.baseUrl, adminToken, 'POST', '/api/studies', {
-      code: 'ALPHA-SIGN',
-      name: 'Alpha sign-off (invented)',
-    });
-    const site = await api<SiteView>(gyre.baseUrl, adminToken, 'POST', '/api/sites', {
-      studyId: study.id,
-      code: 'WEST',
-      name: 'West clinic',
-    });
-    for (const [person, role] of [
-      [TECHNICIAN, 'technician'],
-      [COORDINATOR, 'coordinator'],
-    ] as const) {
-      await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
-        ...person,
-        role,
-        studyId: study.id,
-        siteId: site.id,
-      });
-    }
-    await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
-      ...ANALYST,
-      role: 'analyst',
-      studyId: study.id,
-    });
-    const techToken = await signInApi(gyre.baseUrl, TECHNICIAN.email, E2E_PASSWORD);
-    analystToken = await signInApi(gyre.baseUrl, ANALYST.email, E2E_PASSWORD);
-    const participant = await api<ParticipantView>(
-      gyre.baseUrl,
-      techToken,
-      'POST',
-      '/api/participants',
-      {
-        code: 'WC-0011',
-      },
-    );
-    visit = await api<VisitView>(gyre.baseUrl, techToken, 'POST', '/api/visits', {
-      participantId: participant.id,
+    const techToken = run.prepared.tokenOf('technician');
+    analystToken = run.prepared.tokenOf('analyst');
+    const participant = await addParticipant(run.gyre, techToken, { code: 'WC-0011' });
+    visit = await addVisit(run.gyre, techToken, participant, {
       label: 'Baseline',
       visitDate: '2025-04-07',
     });
-    await upload(techToken, 'resting', writeRecording('resting', 40));
-    await upload(techToken, 'task', writeRecording('task', 40));
+    // 10 Hz alpha slowing by 0.6 Hz after a stimulus every 3 s (study-data.ts, generated).
+    for (const kind of ['resting', 'task'] as const) {
+      await uploadComputed(run.gyre, techToken, visit, {
+        kind,
+        alphaHz: 10,
+        deltaFHz: -0.6,
+        durationS: 40,
+        startDate: '2025-04-07T09:30:00',
+        channels: ['O1', 'O2', 'Oz', 'Pz'],
+        firstOnsetS: 4,
+        everyS: 3,
+      });
+    }
   }, 600_000);
 
-  afterAll(async () => {
-    await browser?.close();
-    await gyre?.stop();
-  });
-
   it('an analyst previews the draft PDF in the dialog, confirms the meaning, re-enters the password and signs', async () => {
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
     await signIn(page, ANALYST.email, `/review/${visit.id}`);
     const panel = page.locator('[aria-label="Report"]');
@@ -196,8 +86,8 @@ describe('Report sign-off in Chromium, on a real server', () => {
     await page.getByText('Signed: revision 1.', { exact: false }).waitFor();
     await panel.getByRole('button', { name: 'Download revision 1' }).waitFor();
     await screenshot(page, 'signoff-signed');
-    const status = await api<ReportSignOffDto>(
-      gyre.baseUrl,
+    const status = await api<ReportSignOffView>(
+      run.gyre.baseUrl,
       analystToken,
       'GET',
       `/api/visits/${visit.id}/report/sign-off`,
@@ -211,14 +101,14 @@ describe('Report sign-off in Chromium, on a real server', () => {
 
   it('the coordinator follows the e-mailed link and downloads the signed PDF, byte for byte', async () => {
     const mail = await waitForMail(
-      join(gyre.dataDir, 'mail'),
+      join(run.gyre.dataDir, 'mail'),
       { to: COORDINATOR.email, subject: /signed/ },
       30_000,
     );
     const link = /https?:\/\/\S+\/reports\/revisions\?revision=[\w-]+/.exec(mail.text)?.[0];
     expect(link).toBeDefined();
     const next = new URL(link ?? '').pathname + new URL(link ?? '').search;
-    const page = await browser.context.newPage();
+    const page = await run.browser.context.newPage();
     await signIn(page, COORDINATOR.email, next);
     const sent = page.getByRole('region', { name: 'The report you were sent' });
     await sent.getByText('WC-0011, Baseline').waitFor();
@@ -228,9 +118,9 @@ describe('Report sign-off in Chromium, on a real server', () => {
     ]);
     const saved = await download.path();
     const bytes = readFileSync(saved);
-    const coordinatorToken = await signInApi(gyre.baseUrl, COORDINATOR.email, E2E_PASSWORD);
-    const revisions = await api<ListPage<ReportRevisionDto>>(
-      gyre.baseUrl,
+    const coordinatorToken = await signInApi(run.gyre.baseUrl, COORDINATOR.email, E2E_PASSWORD);
+    const revisions = await api<ListPage<ReportRevisionView>>(
+      run.gyre.baseUrl,
       coordinatorToken,
       'GET',
       '/api/report-revisions',

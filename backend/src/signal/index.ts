@@ -128,3 +128,29 @@ export type {
   ChannelQualityThresholds,
   ConverterRange,
 } from './quality/quality-checks';
+
+// The one seeded random-number module, and generated recordings with known answers (tests,
+// benchmarks, browser tests and the demo data; nothing here is measured EEG).
+export { fnv1a32, mixSeed, SeededRandom, seededNormal, seededUniform } from './random/random';
+export {
+  syntheticEdf,
+  syntheticRestRecording,
+  syntheticTaskFrequencyHz,
+  syntheticTaskRecording,
+} from './synthetic/synthetic-eeg';
+export type {
+  SyntheticEdfOptions,
+  SyntheticRestOptions,
+  SyntheticTaskOptions,
+} from './synthetic/synthetic-eeg';
+export {
+  DEFAULT_DIP_SHAPE,
+  dipWeight,
+  frequencyTrack,
+  phaseFromFrequency,
+} from './synthetic/alpha-rhythm';
+export type { DipShape, FrequencyTrackOptions } from './synthetic/alpha-rhythm';
+export { addPinkNoise, fillSlowNoise } from './synthetic/background-noise';
+export type { PinkNoiseOptions, SlowNoiseOptions } from './synthetic/background-noise';
+export { addBlinks, BLINK_DURATION_S, blinkShape } from './synthetic/eye-blinks';
+export type { Blink } from './synthetic/eye-blinks';

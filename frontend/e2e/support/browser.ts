@@ -1,15 +1,17 @@
 import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
 export const SCREENSHOT_DIR = resolve(import.meta.dirname, '..', '..', '..', 'test-results');
 
-/** Debian's Chromium, headless, kept off the (closed) network, with a fresh profile. */
-export async function openBrowser(): Promise<{
+export interface OpenBrowser {
   context: BrowserContext;
   close: () => Promise<void>;
-}> {
+}
+
+/** Debian's Chromium, headless, kept off the (closed) network, with a fresh profile. */
+export async function openBrowser(): Promise<OpenBrowser> {
   const profile = mkdtempSync(join(tmpdir(), 'gyre-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
@@ -47,8 +49,31 @@ export function watchConsole(page: Page): string[] {
   return problems;
 }
 
+/** The user guide's pictures (docs/user-guide.md shows them), written by the layout test. */
+export const USER_GUIDE_IMAGE_DIR = resolve(
+  import.meta.dirname,
+  '..',
+  '..',
+  '..',
+  'docs',
+  'user-guide',
+);
+
+/** A full-page picture of the screen in test-results/ (for a person reading a failure). */
 export async function screenshot(page: Page, name: string): Promise<string> {
-  mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  return capture(page, join(SCREENSHOT_DIR, `${name}.png`), { fullPage: true });
+}
+
+/**
+ * A picture for the user guide, docs/user-guide/`name`.png: what the window shows (not the
+ * whole page), so each stays small (under 150 KB at 1280 × 800).
+ */
+export async function userGuideImage(page: Page, name: string): Promise<string> {
+  return capture(page, join(USER_GUIDE_IMAGE_DIR, `${name}.png`), { fullPage: false });
+}
+
+async function capture(page: Page, file: string, options: { fullPage: boolean }): Promise<string> {
+  mkdirSync(dirname(file), { recursive: true });
   // Let fades settle so the picture shows the screen, not a transition (endless spinners aside).
   await page
     .waitForFunction(
@@ -64,7 +89,6 @@ export async function screenshot(page: Page, name: string): Promise<string> {
       { timeout: 3000 },
     )
     .catch(() => undefined);
-  const file = join(SCREENSHOT_DIR, `${name}.png`);
-  await page.screenshot({ path: file, fullPage: true });
+  await page.screenshot({ path: file, fullPage: options.fullPage });
   return file;
 }

@@ -1,68 +1,75 @@
 import { writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { join } from 'node:path';
+import type * as SignalCoreModule from '@gyre/backend/signal';
 
 const require = createRequire(import.meta.url);
 
-interface EdfWriteSignal {
-  label: string;
-  sampleRateHz: number;
-  physicalMin: number;
-  physicalMax: number;
-  samples: Float32Array;
-}
-interface EdfWriter {
-  writeEdf(spec: {
-    format?: 'EDF' | 'EDF+C';
-    startDate: string;
-    signals: EdfWriteSignal[];
-    annotations?: Array<{ onsetS: number; durationS: number | null; text: string }>;
-  }): Uint8Array;
-}
+type SignalCore = typeof SignalCoreModule;
 
 /**
- * The signal core's own EDF/EDF+ writer (Kemp et al. 1992; Kemp & Olivan 2003), through its
- * public entry `@gyre/backend/signal` as built (CommonJS, hence `require`).
+ * The signal core through its public entry `@gyre/backend/signal` as built (CommonJS, hence
+ * `require`): its EDF/EDF+ writer (Kemp et al. 1992; Kemp & Olivan 2003) and its generated
+ * recordings, the same generator the backend's tests and the demo data use.
  */
-export function edfWriter(): EdfWriter {
-  return require('@gyre/backend/signal') as EdfWriter;
+export function signalCore(): SignalCore {
+  return require('@gyre/backend/signal') as SignalCore;
 }
 
-/** A small deterministic generator, so every run writes the same bytes. */
-export function seededNoise(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    // Numerical Recipes' LCG constants (from memory), scaled to −1..1.
-    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
-    return state / 2 ** 31 - 1;
-  };
+const SAMPLE_RATE_HZ = 256;
+const POSTERIOR_CHANNELS = ['O1', 'O2', 'Oz', 'Pz', 'P3', 'P4'];
+
+/**
+ * Generated test data (the signal core's `syntheticTaskRecording`): 20 µV alpha at `alphaHz`
+ * on posterior 10-10 channels over 2 µV (SD) of seeded white noise, 256 Hz, as EDF+C. A task
+ * recording has a "stimulus" annotation every `everyS` s from `firstOnsetS` and its alpha
+ * changes by `deltaFHz` from +0.2 to +0.8 s after each (raised-cosine ramps of 0.2 s).
+ */
+export function writeAlphaRecording(options: {
+  kind: 'resting' | 'task';
+  alphaHz: number;
+  /** Frequency change after each onset, Hz (negative: slowing); ignored at rest. */
+  deltaFHz: number;
+  durationS: number;
+  startDate: string;
+  channels?: readonly string[];
+  firstOnsetS?: number;
+  everyS?: number;
+}): Uint8Array {
+  const onsetsS: number[] = [];
+  const first = options.firstOnsetS ?? 5;
+  if (options.kind === 'task') {
+    for (let t = first; t <= options.durationS - first; t += options.everyS ?? 4) onsetsS.push(t);
+  }
+  const core = signalCore();
+  const recording = core.syntheticTaskRecording({
+    sampleRateHz: SAMPLE_RATE_HZ,
+    durationS: options.durationS,
+    channelLabels: options.channels ?? POSTERIOR_CHANNELS,
+    onsetsS,
+    baseFrequencyHz: options.alphaHz,
+    dipHz: options.deltaFHz,
+    seed: options.kind === 'task' ? 7 : 11,
+  });
+  return core.syntheticEdf(recording, { startDate: options.startDate });
 }
 
 /**
- * Generated test data: an eyes-closed resting EDF+ recording, a 10 Hz alpha tone of 20 µV on
- * occipital and parietal 10-10 channels over ±3 µV of noise, 256 Hz, `durationS` long.
+ * Generated test data: an eyes-closed resting EDF+ recording, a 10 Hz alpha rhythm on
+ * occipital and parietal 10-10 channels (`writeAlphaRecording`), `durationS` long.
  */
 export function writeRestingEdf(
   dir: string,
   options: { durationS?: number; name?: string } = {},
 ): string {
-  const sampleRateHz = 256;
-  const durationS = options.durationS ?? 60;
-  const n = sampleRateHz * durationS;
-  const noise = seededNoise(42);
-  const signals = ['O1', 'O2', 'Oz', 'Pz', 'P3', 'P4'].map((label, channel) => {
-    const samples = new Float32Array(n);
-    for (let i = 0; i < n; i++) {
-      samples[i] = 20 * Math.sin((2 * Math.PI * 10 * i) / sampleRateHz + channel) + 3 * noise();
-    }
-    return { label, sampleRateHz, physicalMin: -500, physicalMax: 500, samples };
-  });
-  const bytes = edfWriter().writeEdf({
-    format: 'EDF+C',
-    startDate: '2025-02-03T09:30:00',
-    signals,
-  });
   const file = join(dir, options.name ?? 'resting-v1.edf');
+  const bytes = writeAlphaRecording({
+    kind: 'resting',
+    alphaHz: 10,
+    deltaFHz: 0,
+    durationS: options.durationS ?? 60,
+    startDate: '2025-02-03T09:30:00',
+  });
   writeFileSync(file, bytes);
   return file;
 }
@@ -72,7 +79,7 @@ export function writeRestingEdf(
  * data records than the file holds (EDF spec: header bytes + records × record size = file size).
  */
 export function writeTruncatedEdf(dir: string): string {
-  const whole = edfWriter().writeEdf({
+  const whole = signalCore().writeEdf({
     format: 'EDF+C',
     startDate: '2025-02-03T09:40:00',
     signals: [

@@ -3,6 +3,8 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
+import { afterAll, beforeAll } from 'vitest';
+import { openBrowser, type OpenBrowser } from './browser';
 
 const REPO_ROOT = resolve(import.meta.dirname, '..', '..', '..');
 
@@ -72,6 +74,51 @@ export async function startGyre(env: Record<string, string> = {}): Promise<Runni
         await exited;
       }
       rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+export interface GyreInChromium<T> {
+  /** The file's server; read it inside hooks and tests (it starts in `beforeAll`). */
+  readonly gyre: RunningGyre;
+  readonly browser: OpenBrowser;
+  /** What `prepare` made on the fresh server (e.g. an invented study). */
+  readonly prepared: T;
+}
+
+/**
+ * For one test file: a fresh server and a headless Chromium, then `prepare` on the server,
+ * before the file's own hooks and tests; both stopped after them. Call it once at the top of
+ * the `describe`.
+ */
+export function gyreInChromium<T = undefined>(
+  prepare?: (gyre: RunningGyre) => Promise<T>,
+): GyreInChromium<T> {
+  let gyre: RunningGyre | undefined;
+  let browser: OpenBrowser | undefined;
+  let prepared: { value: T } | undefined;
+  beforeAll(async () => {
+    gyre = await startGyre();
+    browser = await openBrowser();
+    prepared = { value: (await prepare?.(gyre)) as T };
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await gyre?.stop();
+  });
+  const started = <V>(value: V | undefined): V => {
+    if (value === undefined) throw new Error('the server and browser start in beforeAll');
+    return value;
+  };
+  return {
+    get gyre() {
+      return started(gyre);
+    },
+    get browser() {
+      return started(browser);
+    },
+    get prepared() {
+      return started(prepared).value;
     },
   };
 }

@@ -1,59 +1,102 @@
 import type {
   ParticipantView,
-  RecordingDto,
+  RecordingView,
   RecordingKind,
-  ReportSignOffDto,
+  ReportSignOffView,
+  Role,
   SiteView,
   StudyView,
   VisitView,
 } from '@gyre/shared';
 import { SIGNATURE_MEANING } from '@gyre/shared';
 import { api, createFirstAdmin, E2E_PASSWORD, inviteAndAccept, signInApi } from './accounts';
-import { edfWriter, seededNoise } from './edf-files';
+import { writeAlphaRecording } from './edf-files';
 import type { RunningGyre } from './gyre-server';
 
-const SAMPLE_RATE_HZ = 256;
-const CHANNELS = ['O1', 'O2', 'Oz', 'Pz', 'P3', 'P4'];
+/**
+ * The one builder of the browser tests' invented studies: each test file says who and what
+ * its study holds, and these functions make it through the API as the product's users would.
+ */
+
+export type Person = { email: string; name: string };
+
+/** Roles that work at one site; the others see the whole study. */
+const SITE_ROLES: ReadonlySet<Role> = new Set<Role>(['technician', 'coordinator']);
+
+export interface StudyTeam {
+  study: StudyView;
+  site: SiteView;
+  adminToken: string;
+  /** The access token of the member in `role`, signed in through the API. */
+  tokenOf: (role: Role) => string;
+}
 
 /**
- * Generated test data: 20 µV alpha at `alphaHz` on six posterior 10-10 channels over ±3 µV
- * noise, 256 Hz, as EDF+C (Kemp & Olivan 2003). A task recording has a "stimulus" annotation
- * every 4 s and a smooth dip of `dipHz` from +0.1 to +0.9 s after each; the phase is the
- * running integral of the frequency.
+ * An empty installation opened by its first admin (`admin`), a study with one site, and each
+ * member invited in their role and signed up with the mailed token (site roles at the site).
  */
-export function writeAlphaRecording(options: {
-  kind: RecordingKind;
-  alphaHz: number;
-  dipHz: number;
-  durationS: number;
-  startDate: string;
-}): Uint8Array {
-  const n = SAMPLE_RATE_HZ * options.durationS;
-  const onsetsS: number[] = [];
-  if (options.kind === 'task') for (let t = 5; t <= options.durationS - 5; t += 4) onsetsS.push(t);
-  const frequencyHz = new Float64Array(n).fill(options.alphaHz);
-  for (const onset of onsetsS) {
-    const from = Math.floor((onset + 0.1) * SAMPLE_RATE_HZ);
-    for (let i = from; i < (onset + 0.9) * SAMPLE_RATE_HZ; i++) {
-      const u = (i / SAMPLE_RATE_HZ - onset - 0.1) / 0.8;
-      frequencyHz[i] -= options.dipHz * Math.sin(Math.PI * u) ** 2;
-    }
-  }
-  const noise = seededNoise(options.kind === 'task' ? 7 : 11);
-  const signals = CHANNELS.map((label, channel) => {
-    const samples = new Float32Array(n);
-    let phase = channel * 0.7;
-    for (let i = 0; i < n; i++) {
-      samples[i] = 20 * Math.sin(phase) + 3 * noise();
-      phase += (2 * Math.PI * frequencyHz[i]) / SAMPLE_RATE_HZ;
-    }
-    return { label, sampleRateHz: SAMPLE_RATE_HZ, physicalMin: -500, physicalMax: 500, samples };
+export async function setUpStudy(
+  gyre: RunningGyre,
+  options: {
+    admin: Person;
+    study: { code: string; name: string };
+    /** Default: East clinic. */
+    site?: { code: string; name: string };
+    /** One person per role, invited in this order. */
+    members: Partial<Record<Role, Person>>;
+  },
+): Promise<StudyTeam> {
+  await createFirstAdmin(gyre.dataDir, { ...options.admin, password: E2E_PASSWORD });
+  const adminToken = await signInApi(gyre.baseUrl, options.admin.email, E2E_PASSWORD);
+  const study = await api<StudyView>(
+    gyre.baseUrl,
+    adminToken,
+    'POST',
+    '/api/studies',
+    options.study,
+  );
+  const site = await api<SiteView>(gyre.baseUrl, adminToken, 'POST', '/api/sites', {
+    studyId: study.id,
+    ...(options.site ?? { code: 'EAST', name: 'East clinic' }),
   });
-  return edfWriter().writeEdf({
-    format: 'EDF+C',
-    startDate: options.startDate,
-    signals,
-    annotations: onsetsS.map((onsetS) => ({ onsetS, durationS: null, text: 'stimulus' })),
+  const tokens = new Map<Role, string>();
+  for (const [role, person] of Object.entries(options.members) as Array<[Role, Person]>) {
+    await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
+      ...person,
+      role,
+      studyId: study.id,
+      ...(SITE_ROLES.has(role) ? { siteId: site.id } : {}),
+    });
+    tokens.set(role, await signInApi(gyre.baseUrl, person.email, E2E_PASSWORD));
+  }
+  const tokenOf = (role: Role): string => {
+    const token = tokens.get(role);
+    if (token === undefined) throw new Error(`the study has no ${role}`);
+    return token;
+  };
+  return { study, site, adminToken, tokenOf };
+}
+
+/** A participant enrolled by `token`'s technician. */
+export function addParticipant(
+  gyre: RunningGyre,
+  token: string,
+  participant: { code: string; enrolmentDate?: string },
+): Promise<ParticipantView> {
+  return api<ParticipantView>(gyre.baseUrl, token, 'POST', '/api/participants', participant);
+}
+
+/** A visit of `participant`: a planned one (`plannedVisitId`), else unscheduled with `label`. */
+export function addVisit(
+  gyre: RunningGyre,
+  token: string,
+  participant: ParticipantView,
+  visit: { visitDate: string; label?: string; plannedVisitId?: string },
+): Promise<VisitView> {
+  return api<VisitView>(gyre.baseUrl, token, 'POST', '/api/visits', {
+    participantId: participant.id,
+    ...(visit.plannedVisitId === undefined ? { unscheduled: true } : {}),
+    ...visit,
   });
 }
 
@@ -64,7 +107,7 @@ export async function uploadRecording(
   visit: VisitView,
   kind: RecordingKind,
   bytes: Uint8Array,
-): Promise<RecordingDto> {
+): Promise<RecordingView> {
   const form = new FormData();
   form.append('kind', kind);
   form.append('file', new Blob([new Uint8Array(bytes)]), `${visit.label}-${kind}.edf`);
@@ -75,19 +118,36 @@ export async function uploadRecording(
   });
   const text = await response.text();
   if (!response.ok) throw new Error(`upload answered ${response.status}: ${text}`);
-  return JSON.parse(text) as RecordingDto;
+  return JSON.parse(text) as RecordingView;
+}
+
+/** Uploads a generated recording (`writeAlphaRecording`) and waits until it is computed. */
+export async function uploadComputed(
+  gyre: RunningGyre,
+  token: string,
+  visit: VisitView,
+  recording: Parameters<typeof writeAlphaRecording>[0],
+): Promise<RecordingView> {
+  const uploaded = await uploadRecording(
+    gyre.baseUrl,
+    token,
+    visit,
+    recording.kind,
+    writeAlphaRecording(recording),
+  );
+  return waitUntilReady(gyre.baseUrl, token, uploaded);
 }
 
 /** Asks for the recording until it is ready (throws if it is rejected or fails). */
 export async function waitUntilReady(
   baseUrl: string,
   token: string,
-  recording: RecordingDto,
+  recording: RecordingView,
   timeoutMs = 240_000,
-): Promise<RecordingDto> {
+): Promise<RecordingView> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
-    const now = await api<RecordingDto>(baseUrl, token, 'GET', `/api/recordings/${recording.id}`);
+    const now = await api<RecordingView>(baseUrl, token, 'GET', `/api/recordings/${recording.id}`);
     if (now.state === 'ready') return now;
     if (now.state === 'rejected' || now.state === 'failed') {
       throw new Error(`${recording.kind} recording ${now.state}: ${JSON.stringify(now)}`);
@@ -96,8 +156,6 @@ export async function waitUntilReady(
     await new Promise((wait) => setTimeout(wait, 500));
   }
 }
-
-export type Person = { email: string; name: string };
 
 export interface InventedStudy {
   study: StudyView;
@@ -116,25 +174,17 @@ export async function setUpInventedStudy(
   gyre: RunningGyre,
   people: InventedStudy['people'],
 ): Promise<InventedStudy> {
-  await createFirstAdmin(gyre.dataDir, { ...people.admin, password: E2E_PASSWORD });
-  const adminToken = await signInApi(gyre.baseUrl, people.admin.email, E2E_PASSWORD);
-  const study = await api<StudyView>(gyre.baseUrl, adminToken, 'POST', '/api/studies', {
-    code: 'ALPHA-LAYOUT',
-    name: 'Alpha layout check (invented)',
+  const { study, site, adminToken, tokenOf } = await setUpStudy(gyre, {
+    admin: people.admin,
+    study: { code: 'ALPHA-LAYOUT', name: 'Alpha layout check (invented)' },
+    site: { code: 'WEST', name: 'West clinic' },
+    members: {
+      technician: people.technician,
+      analyst: people.analyst,
+      monitor: people.monitor,
+      coordinator: people.coordinator,
+    },
   });
-  const site = await api<SiteView>(gyre.baseUrl, adminToken, 'POST', '/api/sites', {
-    studyId: study.id,
-    code: 'WEST',
-    name: 'West clinic',
-  });
-  for (const role of ['technician', 'analyst', 'monitor', 'coordinator'] as const) {
-    await inviteAndAccept(gyre.baseUrl, gyre.dataDir, adminToken, {
-      ...people[role],
-      role,
-      studyId: study.id,
-      ...(role === 'technician' || role === 'coordinator' ? { siteId: site.id } : {}),
-    });
-  }
   const baseline = await api<{ id: string }>(
     gyre.baseUrl,
     adminToken,
@@ -148,39 +198,32 @@ export async function setUpInventedStudy(
       position: 0,
     },
   );
-  const techToken = await signInApi(gyre.baseUrl, people.technician.email, E2E_PASSWORD);
-  const participant = await api<ParticipantView>(
-    gyre.baseUrl,
-    techToken,
-    'POST',
-    '/api/participants',
-    { code: 'LW-0031', enrolmentDate: '2025-04-01' },
-  );
-  const visit = await api<VisitView>(gyre.baseUrl, techToken, 'POST', '/api/visits', {
-    participantId: participant.id,
+  const techToken = tokenOf('technician');
+  const participant = await addParticipant(gyre, techToken, {
+    code: 'LW-0031',
+    enrolmentDate: '2025-04-01',
+  });
+  const visit = await addVisit(gyre, techToken, participant, {
     plannedVisitId: baseline.id,
     visitDate: '2025-04-07',
   });
   const startDate = '2025-04-07T10:00:00';
-  const rest = await uploadRecording(
-    gyre.baseUrl,
-    techToken,
-    visit,
-    'resting',
-    writeAlphaRecording({ kind: 'resting', alphaHz: 10.1, dipHz: 0, durationS: 60, startDate }),
-  );
-  await waitUntilReady(gyre.baseUrl, techToken, rest);
-  const task = await uploadRecording(
-    gyre.baseUrl,
-    techToken,
-    visit,
-    'task',
-    writeAlphaRecording({ kind: 'task', alphaHz: 10.1, dipHz: 0.5, durationS: 120, startDate }),
-  );
-  await waitUntilReady(gyre.baseUrl, techToken, task);
+  const alpha = { alphaHz: 10.1, startDate } as const;
+  await uploadComputed(gyre, techToken, visit, {
+    ...alpha,
+    kind: 'resting',
+    deltaFHz: 0,
+    durationS: 60,
+  });
+  await uploadComputed(gyre, techToken, visit, {
+    ...alpha,
+    kind: 'task',
+    deltaFHz: -0.5,
+    durationS: 120,
+  });
 
-  const analystToken = await signInApi(gyre.baseUrl, people.analyst.email, E2E_PASSWORD);
-  const signOff = await api<ReportSignOffDto>(
+  const analystToken = tokenOf('analyst');
+  const signOff = await api<ReportSignOffView>(
     gyre.baseUrl,
     analystToken,
     'GET',

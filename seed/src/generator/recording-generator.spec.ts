@@ -1,4 +1,4 @@
-import { frequencyTrack } from './alpha-rhythm';
+import { frequencyTrack } from '@gyre/backend/signal';
 import { DEMO_MONTAGE } from './montage';
 import {
   generateRestingRecording,

@@ -1,24 +1,31 @@
 /**
  * Synthetic EDF+ recordings for the demo study: an eyes-closed resting recording and a
  * stimulus task recording, with a known IAF and a known post-onset frequency change.
- * Deterministic: the same options (and seed key) give the same bytes.
+ * Deterministic: the same options (and seed key) give the same bytes. The pieces (frequency
+ * track, pink noise, blinks, the seeded generator) are the signal core's own generators
+ * (`@gyre/backend/signal`), shared with the backend's and the browser's tests.
  *
  * Each EEG channel is the sum of
  * - a 1/f background (`addPinkNoise`), partly shared by all channels;
  * - an alpha rhythm: amplitude envelope × sin(φ), φ integrating a known frequency track
- *   (`alpha-rhythm.ts`): IAF + the electrode's offset + a small shared wander
+ *   (`frequencyTrack`): IAF + the electrode's offset + a small shared wander
  *   + Δf · dipWeight(t − onset) after each stimulus;
  * - eye-blink-like deflections, scaled by the electrode's blink gain;
  * - 50 Hz line noise.
  */
-import { writeEdf } from '@gyre/backend/signal';
-import type { EdfAnnotation } from '@gyre/backend/signal';
-import { frequencyTrack, phaseFromFrequency } from './alpha-rhythm';
-import { addPinkNoise, fillSlowNoise } from './background-noise';
-import { addBlinks, Blink, BLINK_DURATION_S } from './eye-blinks';
+import {
+  addBlinks,
+  addPinkNoise,
+  BLINK_DURATION_S,
+  fillSlowNoise,
+  frequencyTrack,
+  phaseFromFrequency,
+  SeededRandom,
+  writeEdf,
+} from '@gyre/backend/signal';
+import type { Blink, EdfAnnotation } from '@gyre/backend/signal';
 import { DEMO_MONTAGE, edfLabel, MontageChannel } from './montage';
 import { writeOnsetCsv } from './onset-csv-writer';
-import { SeededRandom } from './prng';
 
 export const DEFAULT_SAMPLE_RATE_HZ = 250;
 /** Annotation text of each stimulus onset, in the EDF+ file and the CSV. */

@@ -3,7 +3,7 @@
  * institutions, places or brands. The numbers are the generated truth each participant's
  * recordings are built from, so the demo (and its test) can say what Gyre should find.
  */
-import { SeededRandom } from '../generator/prng';
+import { SeededRandom } from '@gyre/backend/signal';
 
 export type DemoRole = 'technician' | 'analyst' | 'monitor' | 'coordinator' | 'admin';
 

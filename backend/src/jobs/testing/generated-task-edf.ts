@@ -4,8 +4,8 @@
  */
 import { createHash } from 'node:crypto';
 import { writeFileSync } from 'node:fs';
-import { readEdfHeader, writeEdf } from '../../signal/edf';
-import { syntheticTaskRecording } from '../../signal/synthetic/synthetic-eeg';
+import { readEdfHeader } from '../../signal/edf';
+import { syntheticEdf, syntheticTaskRecording } from '../../signal/synthetic/synthetic-eeg';
 
 export interface GeneratedTaskEdf {
   path: string;
@@ -37,18 +37,9 @@ export function writeGeneratedTaskEdf(
     seed: options.seed ?? 3,
   });
   const outOfRange = new Set(options.outOfRange ?? []);
-  const bytes = writeEdf({
-    format: 'EDF+C',
+  const bytes = syntheticEdf(generated, {
     startDate: '2024-05-06T09:00:00',
-    signals: generated.signals.map((s) => ({
-      label: s.label,
-      sampleRateHz: s.sampleRateHz,
-      physicalMin: -500,
-      physicalMax: 500,
-      digitalMax: outOfRange.has(s.label) ? 32000 : undefined,
-      samples: s.samples,
-    })),
-    annotations: generated.annotations,
+    signalHeader: (s) => (outOfRange.has(s.label) ? { digitalMax: 32000 } : {}),
   });
   if (outOfRange.size > 0) {
     // 16-bit little-endian samples, signal after signal within each record (Kemp et al. 1992).

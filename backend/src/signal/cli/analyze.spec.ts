@@ -2,7 +2,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { writeEdf } from '../edf/edf-writer';
-import { bootstrapMeanInterval } from '../onset/onset-statistics';
+import { bootstrapMeanInterval } from '../trials/onset-statistics';
 import { BOOTSTRAP_RESAMPLES, BOOTSTRAP_SEED } from '../pipeline/analysis-settings';
 import type { RunSummary } from '../pipeline/run-summary';
 import { syntheticTaskRecording } from '../synthetic/synthetic-eeg';

@@ -8,7 +8,7 @@ import {
 import { medianAcross, TEN_INPUT_NETWORK } from './median-across';
 import { ArgsortWorkspace, argsortFloat64, rankFloat64 } from './radix-argsort';
 import { runningMedian, runningMedians, RunningMedianWorkspace } from './running-median';
-import { seededUniform } from '../onset/random';
+import { seededUniform } from '../random/random';
 
 interface MedianFixture {
   input: number[];

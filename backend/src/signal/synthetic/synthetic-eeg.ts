@@ -1,28 +1,18 @@
-import { seededUniform } from '../onset/random';
-import { AnalysisRecording } from '../pipeline/analysis.types';
+import { writeEdf } from '../edf';
+import type { EdfWriteSignal } from '../edf';
+import { seededNormal } from '../random/random';
+import type { AnalysisRecording, AnalysisSignal } from '../pipeline/analysis.types';
+import { dipWeight, phaseFromFrequency } from './alpha-rhythm';
+import type { DipShape } from './alpha-rhythm';
 
 /**
- * Generated recordings with known answers, for tests, the benchmark and demo data.
+ * Generated recordings with known answers, for tests, the benchmark, the browser tests and
+ * (through its pieces: alpha-rhythm.ts, background-noise.ts, eye-blinks.ts) the demo data.
  * Nothing here is measured EEG.
  */
 
-/** Standard normal values from a seeded uniform generator (Box–Muller, common practice). */
-export function seededNormal(seed: number): () => number {
-  const uniform = seededUniform(seed);
-  let spare: number | null = null;
-  return () => {
-    if (spare !== null) {
-      const v = spare;
-      spare = null;
-      return v;
-    }
-    const u = 1 - uniform();
-    const v = uniform();
-    const r = Math.sqrt(-2 * Math.log(u));
-    spare = r * Math.sin(2 * Math.PI * v);
-    return r * Math.cos(2 * Math.PI * v);
-  };
-}
+// Standard normal values from the one seeded generator (Box–Muller): kept here for callers.
+export { seededNormal };
 
 export interface SyntheticTaskOptions {
   sampleRateHz: number;
@@ -45,21 +35,19 @@ export interface SyntheticTaskOptions {
   onsetText?: string;
 }
 
-/** Frequency course of the synthetic task: base + dip·shape(t − nearest onset). */
-export function syntheticTaskFrequencyHz(tS: number, options: SyntheticTaskOptions): number {
-  const base = options.baseFrequencyHz ?? 10;
-  const dip = options.dipHz ?? -0.6;
+/** The dip of `syntheticTaskRecording` as a raised-cosine `DipShape` (alpha-rhythm.ts). */
+function taskDipShape(options: SyntheticTaskOptions): DipShape {
   const [w0, w1] = options.dipWindowS ?? [0.2, 0.8];
   const ramp = options.rampS ?? 0.2;
-  let shape = 0;
-  for (const onset of options.onsetsS) {
-    const u = tS - onset;
-    if (u <= w0 - ramp || u >= w1 + ramp) continue;
-    if (u < w0) shape = Math.max(shape, 0.5 - 0.5 * Math.cos((Math.PI * (u - (w0 - ramp))) / ramp));
-    else if (u <= w1) shape = 1;
-    else shape = Math.max(shape, 0.5 + 0.5 * Math.cos((Math.PI * (u - w1)) / ramp));
-  }
-  return base + dip * shape;
+  return { riseStartS: w0 - ramp, plateauStartS: w0, plateauEndS: w1, fallEndS: w1 + ramp };
+}
+
+/** Frequency course of the synthetic task: base + dip·shape(t − nearest onset). */
+export function syntheticTaskFrequencyHz(tS: number, options: SyntheticTaskOptions): number {
+  const shape = taskDipShape(options);
+  let weight = 0;
+  for (const onset of options.onsetsS) weight = Math.max(weight, dipWeight(tS - onset, shape));
+  return (options.baseFrequencyHz ?? 10) + (options.dipHz ?? -0.6) * weight;
 }
 
 /**
@@ -70,15 +58,13 @@ export function syntheticTaskFrequencyHz(tS: number, options: SyntheticTaskOptio
 export function syntheticTaskRecording(options: SyntheticTaskOptions): AnalysisRecording {
   const fs = options.sampleRateHz;
   const n = Math.round(options.durationS * fs);
-  const phase = new Float64Array(n);
-  let acc = 0;
   const sorted = [...options.onsetsS].sort((a, b) => a - b);
   const course = { ...options, onsetsS: sorted };
-  for (let i = 0; i < n; i++) {
-    phase[i] = acc;
-    // Midpoint rule: the phase advance over one sample uses the frequency between samples.
-    acc += (2 * Math.PI * syntheticTaskFrequencyHz((i + 0.5) / fs, course)) / fs;
-  }
+  // Midpoint rule: the phase advance over one sample uses the frequency between samples.
+  const track = new Float64Array(Math.max(0, n - 1));
+  for (let i = 0; i < track.length; i++)
+    track[i] = syntheticTaskFrequencyHz((i + 0.5) / fs, course);
+  const phase = phaseFromFrequency(track, { sampleRateHz: fs, startPhaseRad: 0 });
   const normal = seededNormal(options.seed ?? 1);
   const amplitude = options.alphaAmplitudeUv ?? 20;
   const noise = options.noiseUv ?? 2;
@@ -146,4 +132,37 @@ export function syntheticRestRecording(options: SyntheticRestOptions): AnalysisR
     };
   });
   return { signals, annotations: [], durationS: n / fs };
+}
+
+export interface SyntheticEdfOptions {
+  /** Local start time, ISO `YYYY-MM-DDTHH:mm:ss`. */
+  startDate: string;
+  /** EDF+ patient field; default all unknown (`X X X X`). */
+  patientId?: string;
+  /** Write the recording's annotations as EDF+ TALs (default true). */
+  annotate?: boolean;
+  /** Header fields of one signal other than the generated ±500 µV range. */
+  signalHeader?: (signal: AnalysisSignal) => Partial<EdfWriteSignal>;
+}
+
+/** A generated recording written as an EDF+C file (Kemp & Olivan 2003). */
+export function syntheticEdf(
+  recording: AnalysisRecording,
+  options: SyntheticEdfOptions,
+): Uint8Array {
+  return writeEdf({
+    format: 'EDF+C',
+    startDate: options.startDate,
+    patientId: options.patientId ?? 'X X X X',
+    signals: recording.signals.map((s) => ({
+      label: s.label,
+      sampleRateHz: s.sampleRateHz,
+      physicalMin: s.physicalMin ?? -500,
+      physicalMax: s.physicalMax ?? 500,
+      physicalDimension: s.physicalDimension,
+      samples: s.samples,
+      ...options.signalHeader?.(s),
+    })),
+    annotations: options.annotate === false ? [] : recording.annotations,
+  });
 }

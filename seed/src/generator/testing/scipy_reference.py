@@ -124,14 +124,6 @@ def op_spectra(req):
     return out
 
 
-def op_psd_slope(req):
-    x = np.fromfile(req['raw'], dtype='<f8')
-    f, p = welch(x, req['fs'])
-    sel = (f >= req['band'][0]) & (f <= req['band'][1])
-    slope = np.polyfit(np.log10(f[sel]), np.log10(p[sel]), 1)[0]
-    return {'slope': float(slope), 'rms': float(np.sqrt(np.mean(x ** 2)))}
-
-
 def instantaneous_frequency(x, fs, band):
     # Zero-phase band-pass (scipy.signal.sosfiltfilt, Butterworth), analytic signal
     # (scipy.signal.hilbert), f[n] = arg(z[n+1] conj z[n]) fs / 2 pi (Boashash 1992),
@@ -193,7 +185,6 @@ OPS = {
     'window_max': op_window_max,
     'edf_summary': op_edf_summary,
     'spectra': op_spectra,
-    'psd_slope': op_psd_slope,
     'onset_delta_f': op_onset_delta_f,
     'hilbert_track': op_hilbert_track,
 }

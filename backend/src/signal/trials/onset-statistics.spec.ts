@@ -1,5 +1,5 @@
 import { onsetCurve, OnsetCurveScratch } from './onset-statistics';
-import { seededUniform } from './random';
+import { seededUniform } from '../random/random';
 
 describe('onsetCurve', () => {
   const curveOf = (scratch?: OnsetCurveScratch): ReturnType<typeof onsetCurve> =>

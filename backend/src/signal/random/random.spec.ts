@@ -1,14 +1,14 @@
 import { execFileSync } from 'node:child_process';
-import { fnv1a32, SeededRandom } from './prng';
+import { fnv1a32, mixSeed, SeededRandom, seededNormal, seededUniform } from './random';
 
 describe('SeededRandom', () => {
   it('gives the same sequence for the same key and a different one for another key', () => {
     const a = new SeededRandom('demo/a');
     const b = new SeededRandom('demo/a');
     const c = new SeededRandom('demo/b');
-    const seqA = Array.from({ length: 100 }, () => a.nextUint32());
-    const seqB = Array.from({ length: 100 }, () => b.nextUint32());
-    const seqC = Array.from({ length: 100 }, () => c.nextUint32());
+    const seqA = Array.from({ length: 100 }, () => a.uniform());
+    const seqB = Array.from({ length: 100 }, () => b.uniform());
+    const seqC = Array.from({ length: 100 }, () => c.uniform());
     expect(seqB).toEqual(seqA);
     expect(seqC.filter((v, i) => v === seqA[i]).length).toBeLessThan(2);
   });
@@ -50,6 +50,35 @@ describe('SeededRandom', () => {
     expect(Math.abs(sum / n)).toBeLessThan(0.012);
     expect(Math.abs(sumSq / n - 1)).toBeLessThan(0.015);
     expect(Math.abs(inside / n - 0.682689)).toBeLessThan(0.005);
+  });
+});
+
+describe('one generator underneath', () => {
+  it('draws the bootstrap stream: a number seed gives seededUniform(seed) and seededNormal(seed) exactly', () => {
+    const uniform = seededUniform(20240506);
+    const fromClass = new SeededRandom(20240506);
+    for (let i = 0; i < 1000; i++) expect(fromClass.uniform()).toBe(uniform());
+    const normal = seededNormal(7);
+    const normalFromClass = new SeededRandom(7);
+    for (let i = 0; i < 1000; i++) expect(normalFromClass.normal()).toBe(normal());
+  });
+
+  it('draws integers over the whole closed range, each about equally often (closed form: n/6 each)', () => {
+    const rng = new SeededRandom('moments/int');
+    const counts = new Map<number, number>();
+    for (let i = 0; i < 60_000; i++) {
+      const k = rng.int(1, 6);
+      counts.set(k, (counts.get(k) ?? 0) + 1);
+    }
+    expect([...counts.keys()].sort()).toEqual([1, 2, 3, 4, 5, 6]);
+    // Binomial standard deviation sqrt(60000·(1/6)·(5/6)) ≈ 91: 500 is above 5 of them.
+    for (const count of counts.values()) expect(Math.abs(count - 10_000)).toBeLessThan(500);
+  });
+
+  it('gives neighbouring items unrelated seeds (mixSeed)', () => {
+    const seeds = Array.from({ length: 1000 }, (_, i) => mixSeed(42, i));
+    expect(new Set(seeds).size).toBe(1000);
+    expect(mixSeed(42, 3)).toBe(mixSeed(42, 3));
   });
 });
 

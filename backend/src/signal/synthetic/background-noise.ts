@@ -1,4 +1,4 @@
-import { SeededRandom } from './prng';
+import type { SeededRandom } from '../random/random';
 
 export interface PinkNoiseOptions {
   sampleRateHz: number;

@@ -3,7 +3,7 @@ import {
   BOOTSTRAP_SEED,
   DEFAULT_ANALYSIS_SETTINGS,
 } from '../pipeline/analysis-settings';
-import { seededUniform } from './random';
+import { seededUniform } from '../random/random';
 import { wilcoxonSignedRank, WilcoxonMethod } from './wilcoxon';
 
 export interface BootstrapOptions {
