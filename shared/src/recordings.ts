@@ -50,7 +50,7 @@ export interface RoiChannelOmission {
  * `partial`: some left out (see `leftOut`); `none`: no channel remains, so there is no
  * region-of-interest result at all.
  */
-export interface RoiUsageDto {
+export interface RoiUsageView {
   wanted: string[];
   used: string[];
   leftOut: RoiChannelOmission[];
@@ -113,8 +113,8 @@ export interface RecordingRejection {
 }
 
 /** What validation learnt about an accepted file (no patient data: that field is blanked). */
-export interface RecordingFactsDto {
-  format: 'EDF' | 'EDF+C' | 'EDF+D';
+export interface RecordingFactsView {
+  format: 'EDF' | 'EDF+C' | 'EDF+D' | 'BDF' | 'BDF+C' | 'BDF+D';
   durationS: number;
   recordCount: number;
   recordDurationS: number;
@@ -128,7 +128,7 @@ export interface RecordingFactsDto {
   warnings: string[];
 }
 
-export interface JobDto {
+export interface JobView {
   id: string;
   recordingId: string;
   state: JobState;
@@ -143,7 +143,7 @@ export interface JobDto {
   finishedAt: string | null;
 }
 
-export interface RecordingDto {
+export interface RecordingView {
   id: string;
   studyId: string;
   siteId: string;
@@ -160,10 +160,10 @@ export interface RecordingDto {
   fileName: string | null;
   /** Progress of the current or last job, 0–100; null before any job. */
   progressPercent: number | null;
-  facts: RecordingFactsDto | null;
+  facts: RecordingFactsView | null;
   rejection: RecordingRejection | null;
   failureMessage: string | null;
-  latestJob: JobDto | null;
+  latestJob: JobView | null;
   latestRunId: string | null;
   /** The kind was confirmed by the technician against what the file holds. */
   kindConfirmed: boolean;
@@ -174,7 +174,7 @@ export interface RecordingDto {
    */
   warnings: string[];
   /** The latest run's region-of-interest usage; null before any run. */
-  roiUsage: RoiUsageDto | null;
+  roiUsage: RoiUsageView | null;
   /** The earlier recording this one replaced, and why. */
   replacesId: string | null;
   replacementReason: string | null;
@@ -217,7 +217,7 @@ export interface AnalysisSettingsChange extends AnalysisSettingsValues {
   reason: string;
 }
 
-export interface AnalysisSettingsDto extends AnalysisSettingsValues {
+export interface AnalysisSettingsView extends AnalysisSettingsValues {
   id: string;
   studyId: string;
   version: number;
@@ -228,7 +228,7 @@ export interface AnalysisSettingsDto extends AnalysisSettingsValues {
   createdAt: string;
 }
 
-export interface AnalysisRunDto {
+export interface AnalysisRunView {
   id: string;
   recordingId: string;
   visitId: string;
@@ -253,7 +253,7 @@ export interface AnalysisRunDto {
   /** What started the run (automatic re-runs say why). */
   trigger: RunTrigger;
   /** Which region-of-interest channels the numbers come from. */
-  roiUsage: RoiUsageDto;
+  roiUsage: RoiUsageView;
   /** The visit override in force when the run was made, if any (its revision). */
   overrideRevision: number | null;
   /**
@@ -280,7 +280,7 @@ export interface VisitAnalysisOverrideChange extends VisitAnalysisOverrideValues
   reason: string;
 }
 
-export interface VisitAnalysisOverrideDto extends VisitAnalysisOverrideValues {
+export interface VisitAnalysisOverrideView extends VisitAnalysisOverrideValues {
   visitId: string;
   /** 1 for the first override of the visit, +1 per change; 0 = none (study settings only). */
   revision: number;
@@ -297,14 +297,14 @@ export interface SettingsFieldChange {
 }
 
 /** Mean instantaneous frequency around onset, for one channel or the ROI. */
-export interface OnsetCurveDto {
+export interface OnsetCurveView {
   name: string;
   meanHz: Array<number | null>;
   ciLowHz: Array<number | null>;
   ciHighHz: Array<number | null>;
 }
 
-export interface ChannelStatsDto {
+export interface ChannelStatsView {
   label: string;
   canonical: string | null;
   inRoi: boolean;
@@ -316,15 +316,15 @@ export interface ChannelStatsDto {
   trials: number | null;
 }
 
-export interface TaskResultsDto {
+export interface TaskResultsView {
   /** Seconds relative to onset, one per curve point. */
   timeS: number[];
   baselineWindowS: [number, number];
   postWindowS: [number, number];
-  roi: OnsetCurveDto;
+  roi: OnsetCurveView;
   /**
    * Channels that have an onset curve of their own (file labels). The screen shows one curve
-   * at a time, so each is fetched when picked: `GET …/results/curves?channel=` (OnsetCurveDto).
+   * at a time, so each is fetched when picked: `GET …/results/curves?channel=` (OnsetCurveView).
    */
   curveChannels: string[];
   /**
@@ -339,7 +339,7 @@ export interface TaskResultsDto {
  * `GET /api/recordings/:id/results/raster?runId=`: the region of interest's trial raster and
  * each trial's Δf, for the Review raster chart (fetched only when it is shown).
  */
-export interface TrialRasterDto {
+export interface TrialRasterView {
   /** Seconds relative to onset, one per column. */
   timeS: number[];
   /** Onset of each row (kept trial), s from the recording start. */
@@ -383,7 +383,7 @@ export const RESULT_SERIES_DECIMALS = {
  */
 export const SPECTRUM_POWER_SIGNIFICANT_DIGITS = 4;
 
-export interface RestResultsDto {
+export interface RestResultsView {
   frequencyHz: number[];
   /** ROI power spectral density, µV²/Hz. */
   powerUv2PerHz: number[];
@@ -397,7 +397,7 @@ export interface RestResultsDto {
   alphaWindowHz: [number, number];
 }
 
-export interface ChannelQualityDto {
+export interface ChannelQualityView {
   label: string;
   standardDeviationUv: number | null;
   flat: boolean;
@@ -410,7 +410,7 @@ export interface ChannelQualityDto {
 }
 
 /** Quality checks shown with every result (docs/method.md §6). */
-export interface QualityDto {
+export interface QualityView {
   durationS: number;
   sampleRatesHz: number[];
   roiChannelsFound: string[];
@@ -423,12 +423,12 @@ export interface QualityDto {
   epochsDroppedShare: number | null;
   phaseSlipShare: number | null;
   alphaPeakProminenceDb: number | null;
-  channels: ChannelQualityDto[];
+  channels: ChannelQualityView[];
   warnings: string[];
 }
 
-export interface RecordingResultsDto {
-  run: AnalysisRunDto;
+export interface RecordingResultsView {
+  run: AnalysisRunView;
   /** The recording the numbers come from (a visit may hold superseded recordings too). */
   source: {
     recordingId: string;
@@ -438,13 +438,13 @@ export interface RecordingResultsDto {
     replacesId: string | null;
     replacementReason: string | null;
   };
-  channels: ChannelStatsDto[];
-  task: TaskResultsDto | null;
-  rest: RestResultsDto | null;
-  quality: QualityDto;
+  channels: ChannelStatsView[];
+  task: TaskResultsView | null;
+  rest: RestResultsView | null;
+  quality: QualityView;
 }
 
-export interface FlagDto {
+export interface FlagView {
   id: string;
   visitId: string;
   state: FlagState;
@@ -464,21 +464,21 @@ export interface FlagSuggestion {
   roiCiHz: [number, number] | null;
   flagThresholdHz: number;
   /** The region-of-interest channels behind the suggestion; `status: 'none'` = no suggestion possible. */
-  roiUsage: RoiUsageDto;
+  roiUsage: RoiUsageView;
 }
 
-export interface VisitFlagDto {
+export interface VisitFlagView {
   visitId: string;
-  current: FlagDto | null;
+  current: FlagView | null;
   suggestion: FlagSuggestion | null;
-  history: FlagDto[];
+  history: FlagView[];
 }
 
 export interface FlagChange {
   reason: string;
 }
 
-export interface ReportDto {
+export interface ReportView {
   id: string;
   visitId: string;
   participantId: string;
@@ -488,7 +488,7 @@ export interface ReportDto {
   updatedAt: string;
 }
 
-export interface TrajectoryVisitDto {
+export interface TrajectoryVisitView {
   visitId: string;
   label: string;
   date: string;
@@ -515,7 +515,7 @@ export interface TrajectoryVisitDto {
 export type TrendReason = 'too-few-visits' | 'span-too-short';
 
 /** One measure's trend over a participant's visits and whether the study's rule allows it. */
-export interface TrendDto {
+export interface TrendView {
   /** Theil–Sen slope over visit dates, Hz per year; null when the rule does not allow one. */
   slopeHzPerYear: number | null;
   /** Null when a slope is given. */
@@ -526,12 +526,12 @@ export interface TrendDto {
   spanDays: number;
 }
 
-export interface TrajectoryDto {
+export interface TrajectoryView {
   participantId: string;
-  visits: TrajectoryVisitDto[];
+  visits: TrajectoryVisitView[];
   /** The study's rule: a slope needs this many visits with a value spanning this many days. */
   trendRule: { minVisits: number; minSpanDays: number };
-  trends: { paf: TrendDto; cog: TrendDto; deltaF: TrendDto };
+  trends: { paf: TrendView; cog: TrendView; deltaF: TrendView };
   /** The trends' slopes (null where the rule gives none); kept for older readers. */
   slopesHzPerYear: { paf: number | null; cog: number | null; deltaF: number | null };
 }

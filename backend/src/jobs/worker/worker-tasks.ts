@@ -23,7 +23,7 @@ export interface ValidateTask {
 
 /** What the header and the reader tell about a file that passed. */
 export interface RecordingFacts {
-  format: 'EDF' | 'EDF+C' | 'EDF+D';
+  format: 'EDF' | 'EDF+C' | 'EDF+D' | 'BDF' | 'BDF+C' | 'BDF+D';
   durationS: number;
   recordCount: number;
   recordDurationS: number;

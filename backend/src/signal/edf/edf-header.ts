@@ -1,8 +1,12 @@
 /**
- * EDF/EDF+ header parsing and validation, usable on the header bytes alone while an
- * upload streams (`readEdfHeader`). Layout from Kemp et al. 1992 ("A simple format for
- * exchange of digitized polygraphic recordings"); EDF+ meanings of the reserved,
- * patient and recording fields from Kemp & Olivan 2003.
+ * EDF/EDF+ and BDF/BDF+ header parsing and validation, usable on the header bytes alone
+ * while an upload streams (`readEdfHeader`). Layout from Kemp et al. 1992 ("A simple format
+ * for exchange of digitized polygraphic recordings"); EDF+ meanings of the reserved,
+ * patient and recording fields from Kemp & Olivan 2003. BDF is BioSemi's 24-bit variant of
+ * the same layout (BioSemi, "BDF file format", biosemi.com/faq/file_format.htm): version
+ * field 0xFF followed by `BIOSEMI`, reserved field `24BIT`, 3-byte samples. BDF+ is to BDF
+ * what EDF+ is to EDF (van Beelen, "BDF+ format description", teuniz.net/edfbrowser):
+ * reserved field `BDF+C` or `BDF+D`, TALs in a `BDF Annotations` signal.
  *
  * Every size the header claims is checked against the real byte length before the
  * reader allocates anything, so a lying header cannot make it allocate gigabytes.
@@ -21,9 +25,20 @@ export const EDF_FIXED_HEADER_BYTES = 256;
 export const EDF_BYTES_PER_SIGNAL_HEADER = 256;
 /** Label of EDF+ annotation signals (Kemp & Olivan 2003). */
 export const EDF_ANNOTATIONS_LABEL = 'EDF Annotations';
-/** Digital values are 16-bit two's complement integers (Kemp et al. 1992). */
-const INT16_MIN = -32768;
-const INT16_MAX = 32767;
+/** Label of BDF+ annotation signals (van Beelen, BDF+ format description). */
+export const BDF_ANNOTATIONS_LABEL = 'BDF Annotations';
+/** The 7 characters after the 0xFF byte of a BDF version field (BioSemi BDF format). */
+const BDF_IDENTIFICATION = 'BIOSEMI';
+
+/**
+ * The two families of the format: EDF stores 16-bit samples (Kemp et al. 1992), BDF 24-bit
+ * ones (BioSemi BDF format); the digital range follows from the width.
+ */
+const FAMILIES = {
+  EDF: { sampleBytes: 2, digitalMin: -32768, digitalMax: 32767, bits: 16 },
+  BDF: { sampleBytes: 3, digitalMin: -8388608, digitalMax: 8388607, bits: 24 },
+} as const;
+type Family = keyof typeof FAMILIES;
 /**
  * The signal-count field is 4 ASCII characters (at most 9999, Kemp et al. 1992); the file
  * size bounds it further. This cap only keeps error messages about absurd counts short.
@@ -207,15 +222,35 @@ export function requiredHeaderBytes(firstBytes: Uint8Array): number {
   return EDF_FIXED_HEADER_BYTES * (1 + parseSignalCount(firstBytes));
 }
 
-function checkVersion(bytes: Uint8Array): void {
-  if (bytes[0] === 0xff && ascii(bytes, 1, 7) === 'BIOSEMI') {
-    throw new EdfFormatError('version', 'BDF (0xFF BIOSEMI, 24-bit)', "EDF version '0'");
+const VERSION_EXPECTED = "'0' (EDF) or 0xFF 'BIOSEMI' (BDF)";
+
+/**
+ * The family the version field names: `0` padded with spaces is EDF (Kemp et al. 1992);
+ * the byte 0xFF followed by `BIOSEMI` is BDF (BioSemi BDF format). The bytes decide, never
+ * the file name.
+ */
+function checkVersion(bytes: Uint8Array): Family {
+  if (bytes[0] === 0xff) {
+    if (ascii(bytes, 1, 7) === BDF_IDENTIFICATION) return 'BDF';
+    throw new EdfFormatError('version', `0xFF followed by ${shown(bytes, 1, 8)}`, VERSION_EXPECTED);
   }
   assertPrintable(bytes, 0, 8, 0);
   const version = fixedField(bytes, 'version');
   if (version.trim() !== '0') {
-    throw new EdfFormatError('version', `'${version.trim()}'`, "'0'");
+    throw new EdfFormatError('version', `'${version.trim()}'`, VERSION_EXPECTED);
   }
+  return 'EDF';
+}
+
+/** Bytes as quoted text, with bytes outside printable ASCII as \\xNN, for error messages. */
+function shown(bytes: Uint8Array, from: number, to: number): string {
+  let text = '';
+  for (let i = from; i < to; i++) {
+    const b = bytes[i];
+    text +=
+      b >= 0x20 && b <= 0x7e ? String.fromCharCode(b) : `\\x${b.toString(16).padStart(2, '0')}`;
+  }
+  return `'${text}'`;
 }
 
 function parseSignalCount(bytes: Uint8Array): number {
@@ -241,10 +276,11 @@ export function checkFixedHeader(headerBytes: Uint8Array, fileSizeBytes: number)
       `at least ${EDF_FIXED_HEADER_BYTES} bytes (the fixed header)`,
     );
   }
-  checkVersion(headerBytes);
+  const family = checkVersion(headerBytes);
   const signalCount = parseSignalCount(headerBytes);
   const expectedHeaderBytes = EDF_FIXED_HEADER_BYTES * (1 + signalCount);
-  assertPrintable(headerBytes, 0, EDF_FIXED_HEADER_BYTES, signalCount);
+  // BDF's first byte is 0xFF by definition; every other header byte is ASCII in both.
+  assertPrintable(headerBytes, family === 'BDF' ? 1 : 0, EDF_FIXED_HEADER_BYTES, signalCount);
 
   const headerBytesField = parseEdfInteger(fixedField(headerBytes, 'headerBytes'), 'header bytes');
   if (headerBytesField !== expectedHeaderBytes) {
@@ -275,6 +311,7 @@ export function checkFixedHeader(headerBytes: Uint8Array, fileSizeBytes: number)
 export function readEdfHeader(headerBytes: Uint8Array, fileSizeBytes: number): EdfHeaderInfo {
   const warnings: string[] = [];
   const expectedHeaderBytes = checkFixedHeader(headerBytes, fileSizeBytes);
+  const family = checkVersion(headerBytes);
   const signalCount = expectedHeaderBytes / EDF_BYTES_PER_SIGNAL_HEADER - 1;
   if (headerBytes.byteLength < expectedHeaderBytes) {
     throw new EdfFormatError(
@@ -286,46 +323,32 @@ export function readEdfHeader(headerBytes: Uint8Array, fileSizeBytes: number): E
   assertPrintable(headerBytes, EDF_FIXED_HEADER_BYTES, expectedHeaderBytes, signalCount);
 
   const reserved = fixedField(headerBytes, 'reserved').trimEnd();
-  let format: EdfHeader['format'] = 'EDF';
-  if (reserved.startsWith('EDF+C')) format = 'EDF+C';
-  else if (reserved.startsWith('EDF+D')) format = 'EDF+D';
-  else if (reserved.startsWith('EDF+')) {
-    throw new EdfFormatError(
-      'reserved',
-      `'${reserved}'`,
-      "'EDF+C' or 'EDF+D' (EDF+) or spaces (EDF)",
-    );
-  } else if (reserved.length > 0) {
-    warnings.push(`Reserved header field is not blank ('${reserved}'); read as plain EDF.`);
-  }
-  const isEdfPlus = format !== 'EDF';
+  const format = formatOf(family, reserved, warnings);
+  const isPlus = isPlusFormat(format);
 
   const patientId = fixedField(headerBytes, 'patientId').trimEnd();
   const recordingId = fixedField(headerBytes, 'recordingId').trimEnd();
-  if (isEdfPlus && patientId.trim().split(/\s+/).length < 4) {
+  if (isPlus && patientId.trim().split(/\s+/).length < 4) {
     warnings.push(
-      'EDF+ patient field does not have the four subfields (code sex birthdate name) of Kemp & Olivan 2003.',
+      `${family}+ patient field does not have the four subfields (code sex birthdate name) of Kemp & Olivan 2003.`,
     );
   }
   const startDate = parseStartDate(
     fixedField(headerBytes, 'startDate'),
     fixedField(headerBytes, 'startTime'),
-    isEdfPlus,
+    isPlus,
     recordingId,
     warnings,
   );
 
   const recordCountName = FIXED_FIELDS.recordCount[0];
-  const recordCount = parseEdfInteger(fixedField(headerBytes, 'recordCount'), recordCountName);
-  if (recordCount === -1) {
+  const recordCountField = parseEdfInteger(fixedField(headerBytes, 'recordCount'), recordCountName);
+  if (recordCountField < 1 && recordCountField !== -1) {
     throw new EdfFormatError(
       recordCountName,
-      '-1 (unknown length, allowed only while recording)',
-      'a known record count (files of unknown length are not supported)',
+      String(recordCountField),
+      'at least 1 (or -1 while recording)',
     );
-  }
-  if (recordCount < 1) {
-    throw new EdfFormatError(recordCountName, String(recordCount), 'at least 1');
   }
   const durationName = FIXED_FIELDS.recordDuration[0];
   const recordDurationS = parseEdfNumber(fixedField(headerBytes, 'recordDuration'), durationName);
@@ -341,27 +364,41 @@ export function readEdfHeader(headerBytes: Uint8Array, fileSizeBytes: number): E
     );
   }
 
-  const signalHeaders = parseSignalHeaders(headerBytes, signalCount, recordDurationS);
+  const annotationsLabel = family === 'BDF' ? BDF_ANNOTATIONS_LABEL : EDF_ANNOTATIONS_LABEL;
+  const signalHeaders = parseSignalHeaders(
+    headerBytes,
+    signalCount,
+    recordDurationS,
+    annotationsLabel,
+  );
   const annotationSignalIndices: number[] = [];
   signalHeaders.forEach((s, i) => {
-    if (s.label === EDF_ANNOTATIONS_LABEL) annotationSignalIndices.push(i);
+    if (s.label === annotationsLabel) annotationSignalIndices.push(i);
   });
-  if (isEdfPlus && annotationSignalIndices.length === 0) {
+  if (isPlus && annotationSignalIndices.length === 0) {
     throw new EdfFormatError(
-      `'${EDF_ANNOTATIONS_LABEL}' signal`,
+      `'${annotationsLabel}' signal`,
       'none',
       `at least one in ${format} (it holds the time-keeping TAL of each data record)`,
     );
   }
-  if (!isEdfPlus && annotationSignalIndices.length > 0) {
-    warnings.push(`Plain EDF file has an '${EDF_ANNOTATIONS_LABEL}' signal; read as EDF+ TALs.`);
+  if (!isPlus && annotationSignalIndices.length > 0) {
+    warnings.push(`Plain ${format} file has an '${annotationsLabel}' signal; read as TALs.`);
   }
   for (const [i, s] of signalHeaders.entries()) {
     if (annotationSignalIndices.includes(i)) continue;
-    validateOrdinarySignal(s, i);
+    validateOrdinarySignal(s, i, family);
   }
 
-  const recordBytes = 2 * signalHeaders.reduce((sum, s) => sum + s.samplesPerRecord, 0);
+  const { sampleBytes } = FAMILIES[family];
+  const recordBytes = sampleBytes * signalHeaders.reduce((sum, s) => sum + s.samplesPerRecord, 0);
+  let recordCount = recordCountField;
+  if (recordCountField === -1) {
+    recordCount = recordCountFromSize(fileSizeBytes, expectedHeaderBytes, recordBytes);
+    warnings.push(
+      `The number of data records is -1 (the file was closed while recording); ${recordCount} records of ${recordBytes} bytes were counted from the file size.`,
+    );
+  }
   checkFileSize(fileSizeBytes, expectedHeaderBytes, recordBytes, recordCount);
 
   const ordinaryLabels = signalHeaders
@@ -374,7 +411,8 @@ export function readEdfHeader(headerBytes: Uint8Array, fileSizeBytes: number): E
   }
 
   const header: EdfHeader = {
-    version: fixedField(headerBytes, 'version').trim(),
+    version:
+      family === 'BDF' ? `0xFF ${BDF_IDENTIFICATION}` : fixedField(headerBytes, 'version').trim(),
     patientId,
     recordingId,
     startDate,
@@ -385,13 +423,74 @@ export function readEdfHeader(headerBytes: Uint8Array, fileSizeBytes: number): E
     recordDurationS,
     signalCount,
   };
-  return { header, signalHeaders, annotationSignalIndices, recordBytes, warnings };
+  return { header, signalHeaders, annotationSignalIndices, recordBytes, sampleBytes, warnings };
+}
+
+/** True for the formats with annotations and record times: EDF+C/D and BDF+C/D. */
+export function isPlusFormat(format: EdfHeader['format']): boolean {
+  return format.endsWith('+C') || format.endsWith('+D');
+}
+
+/**
+ * The format the reserved field names within the version's family. EDF: `EDF+C`/`EDF+D`
+ * (Kemp & Olivan 2003), otherwise plain EDF (other text only warns, as in files written
+ * before EDF+). BDF: `24BIT` (BioSemi BDF format) or `BDF+C`/`BDF+D` (BDF+), nothing else,
+ * and neither of these in a file whose version says EDF: its samples would be misread.
+ */
+function formatOf(family: Family, reserved: string, warnings: string[]): EdfHeader['format'] {
+  const name = FIXED_FIELDS.reserved[0];
+  if (family === 'BDF') {
+    if (reserved.startsWith('24BIT')) return 'BDF';
+    if (reserved.startsWith('BDF+C')) return 'BDF+C';
+    if (reserved.startsWith('BDF+D')) return 'BDF+D';
+    throw new EdfFormatError(
+      name,
+      `'${reserved}' in a BDF file (version 0xFF 'BIOSEMI')`,
+      "'24BIT' (BDF) or 'BDF+C' / 'BDF+D' (BDF+)",
+    );
+  }
+  if (reserved.startsWith('EDF+C')) return 'EDF+C';
+  if (reserved.startsWith('EDF+D')) return 'EDF+D';
+  if (reserved.startsWith('EDF+')) {
+    throw new EdfFormatError(name, `'${reserved}'`, "'EDF+C' or 'EDF+D' (EDF+) or spaces (EDF)");
+  }
+  if (reserved.startsWith('24BIT') || reserved.startsWith('BDF+')) {
+    throw new EdfFormatError(
+      name,
+      `'${reserved}' in an EDF file (version '0')`,
+      "'EDF+C', 'EDF+D' or spaces, or the BDF version field 0xFF 'BIOSEMI' for 24-bit samples",
+    );
+  }
+  if (reserved.length > 0) {
+    warnings.push(`Reserved header field is not blank ('${reserved}'); read as plain EDF.`);
+  }
+  return 'EDF';
+}
+
+/**
+ * The record count of a file whose header says -1, which EDF+ allows while the file is still
+ * being recorded (Kemp & Olivan 2003): the bytes after the header, when they are a whole
+ * number of data records (at least one). Anything else is refused, naming both numbers.
+ */
+function recordCountFromSize(
+  fileSizeBytes: number,
+  headerBytes: number,
+  recordBytes: number,
+): number {
+  const dataBytes = fileSizeBytes - headerBytes;
+  if (dataBytes > 0 && dataBytes % recordBytes === 0) return dataBytes / recordBytes;
+  throw new EdfFormatError(
+    FIXED_FIELDS.recordCount[0],
+    `-1 (unknown, written while recording) with ${dataBytes} bytes after the header`,
+    `bytes after the header that are a whole number (at least 1) of data records of ${recordBytes} bytes`,
+  );
 }
 
 function parseSignalHeaders(
   bytes: Uint8Array,
   signalCount: number,
   recordDurationS: number,
+  annotationsLabel: string,
 ): EdfSignalHeader[] {
   const columns: string[][] = [];
   let offset = EDF_FIXED_HEADER_BYTES;
@@ -406,7 +505,7 @@ function parseSignalHeaders(
     const label = columns[0][i].trim();
     const name = (field: number): string =>
       `signal ${i + 1} ('${label}') ${SIGNAL_FIELDS[field][0]}`;
-    const isAnnotation = label === EDF_ANNOTATIONS_LABEL;
+    const isAnnotation = label === annotationsLabel;
     const samplesPerRecord = parseEdfInteger(columns[8][i], name(8));
     if (samplesPerRecord <= 0) {
       throw new EdfFormatError(name(8), String(samplesPerRecord), 'at least 1');
@@ -436,17 +535,18 @@ function parseSignalHeaders(
   return signals;
 }
 
-function validateOrdinarySignal(s: EdfSignalHeader, index: number): void {
+function validateOrdinarySignal(s: EdfSignalHeader, index: number, family: Family): void {
   const prefix = `signal ${index + 1} ('${s.label}')`;
+  const { digitalMin: lowest, digitalMax: highest, bits } = FAMILIES[family];
   for (const [name, value] of [
     ['digital minimum', s.digitalMin],
     ['digital maximum', s.digitalMax],
   ] as const) {
-    if (value < INT16_MIN || value > INT16_MAX) {
+    if (value < lowest || value > highest) {
       throw new EdfFormatError(
         `${prefix} ${name}`,
         String(value),
-        `${INT16_MIN}–${INT16_MAX} (16-bit)`,
+        `${lowest}–${highest} (${bits}-bit ${family})`,
       );
     }
   }

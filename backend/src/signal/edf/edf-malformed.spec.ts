@@ -20,7 +20,7 @@ import {
   type RawFixedFields,
   type RawSignalFields,
 } from './testing/hand-built-edf';
-import { seededUniform } from '../onset/random';
+import { seededUniform } from '../random/random';
 
 type Parts = { fixed: RawFixedFields; signals: RawSignalFields[]; data: number[] };
 
@@ -80,18 +80,26 @@ const cases: Case[] = [
     source: 'Kemp et al. 1992: 8 ascii version of this data format (0)',
     bytes: () => plainWith((p) => (p.fixed.version = '1')),
     field: /^version$/,
-    message: /'1' found, '0' expected/,
+    message: /'1' found, '0' \(EDF\) or 0xFF 'BIOSEMI' \(BDF\) expected/,
   },
   {
-    name: 'BDF file (0xFF BIOSEMI)',
-    source: 'Kemp et al. 1992 version field; BDF is a 24-bit variant (common practice)',
+    name: 'BDF version field (0xFF BIOSEMI) with a blank reserved field',
+    source: "BioSemi BDF format: a BDF file's reserved field is '24BIT'",
     bytes: () => {
       const b = plainEdf();
       b.set([0xff, ...field('BIOSEMI', 7)], 0);
       return b;
     },
-    field: /^version$/,
-    message: /BDF/,
+    field: /^reserved$/,
+    message:
+      /^reserved: '' in a BDF file .* found, '24BIT' \(BDF\) or 'BDF\+C' \/ 'BDF\+D' \(BDF\+\) expected$/,
+  },
+  {
+    name: "EDF version field ('0') with the BDF reserved field '24BIT'",
+    source: "Kemp et al. 1992 version '0' means 16-bit EDF; '24BIT' belongs to BDF (BioSemi)",
+    bytes: () => plainWith((p) => (p.fixed.reserved = '24BIT')),
+    field: /^reserved$/,
+    message: /'24BIT' in an EDF file \(version '0'\) found/,
   },
   {
     name: 'header length does not match the signal count',
@@ -133,18 +141,24 @@ const cases: Case[] = [
     message: /'two' found, an integer expected/,
   },
   {
-    name: 'record count −1 (unknown length)',
-    source: 'Kemp & Olivan 2003: −1 only while recording; the final count must be written',
-    bytes: () => plainWith((p) => (p.fixed.recordCount = '-1')),
-    field: /number of data records/,
-    message: /unknown length.*not supported/,
+    name: 'record count −1 and bytes after the header that are not whole records',
+    source:
+      'Kemp & Olivan 2003: −1 while recording; the count follows from the size only if it divides',
+    bytes: () =>
+      plainWith((p) => {
+        p.fixed.recordCount = '-1';
+        p.data.push(1, 2, 3, 4, 5); // 3 records of 12 bytes + 5: 41 bytes after the header
+      }),
+    field: /^number of data records$/,
+    message:
+      /^number of data records: -1 \(unknown, written while recording\) with 41 bytes after the header found, .* data records of 12 bytes expected$/,
   },
   {
     name: 'record count 0',
     source: 'Kemp et al. 1992: 8 ascii number of data records',
     bytes: () => plainWith((p) => (p.fixed.recordCount = '0')),
     field: /number of data records/,
-    message: /0 found, at least 1 expected/,
+    message: /0 found, at least 1 \(or -1 while recording\) expected/,
   },
   {
     name: 'record count larger than the file holds',

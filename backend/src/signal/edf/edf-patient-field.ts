@@ -1,6 +1,7 @@
 /**
  * Blanking of identifying header fields before a file is stored.
- * Header layout from Kemp et al. 1992; EDF+ subfields from Kemp & Olivan 2003.
+ * Header layout from Kemp et al. 1992 (the same in BDF, BioSemi BDF format); EDF+ subfields
+ * from Kemp & Olivan 2003, which BDF+ keeps (van Beelen, BDF+ format description).
  */
 import { EdfFormatError } from './edf-format-error';
 
@@ -9,8 +10,10 @@ const RECORDING_OFFSET = 88;
 const FIELD_WIDTH = 80;
 const RESERVED_OFFSET = 192;
 
-function isEdfPlusHeader(bytes: Uint8Array): boolean {
-  return String.fromCharCode(...bytes.subarray(RESERVED_OFFSET, RESERVED_OFFSET + 4)) === 'EDF+';
+/** EDF+ (reserved field `EDF+…`) or BDF+ (`BDF+…`): the patient and recording fields have subfields. */
+function isPlusHeader(bytes: Uint8Array): boolean {
+  const start = String.fromCharCode(...bytes.subarray(RESERVED_OFFSET, RESERVED_OFFSET + 4));
+  return start === 'EDF+' || start === 'BDF+';
 }
 
 function writeField(bytes: Uint8Array, offset: number, text: string): void {
@@ -30,13 +33,13 @@ function assertHeader(bytes: Uint8Array): void {
 
 /**
  * Writes IN PLACE over the local patient identification (header bytes 8..87):
- * EDF+ gets `X X X X` (code, sex, birthdate and name all unknown, Kemp & Olivan 2003)
- * padded with spaces, so the file stays valid EDF+; plain EDF gets 80 spaces.
+ * EDF+ and BDF+ get `X X X X` (code, sex, birthdate and name all unknown, Kemp & Olivan
+ * 2003) padded with spaces, so the file stays valid EDF+/BDF+; plain EDF and BDF get 80 spaces.
  * The recording field (bytes 88..167) is left as is: see `blankRecordingField`.
  */
 export function blankPatientField(bytes: Uint8Array): void {
   assertHeader(bytes);
-  writeField(bytes, PATIENT_OFFSET, isEdfPlusHeader(bytes) ? 'X X X X' : '');
+  writeField(bytes, PATIENT_OFFSET, isPlusHeader(bytes) ? 'X X X X' : '');
 }
 
 /** `dd-MMM-yyyy` with an English month abbreviation in capitals (Kemp & Olivan 2003). */
@@ -45,15 +48,15 @@ const STARTDATE_SUBFIELD =
 
 /**
  * Writes IN PLACE over the local recording identification (header bytes 88..167),
- * which can name the hospital (admin code), technician and equipment. EDF+ gets
+ * which can name the hospital (admin code), technician and equipment. EDF+ and BDF+ get
  * `Startdate <date> X X X`: the mandatory `Startdate dd-MMM-yyyy` subfield, which holds
  * the year after 2084 (Kemp & Olivan 2003), is kept when it is a date and becomes `X`
  * (unknown) otherwise, so free text there is not kept either; the three code subfields
- * become `X` and any additional subfields are dropped. Plain EDF gets spaces.
+ * become `X` and any additional subfields are dropped. Plain EDF and BDF get spaces.
  */
 export function blankRecordingField(bytes: Uint8Array): void {
   assertHeader(bytes);
-  if (!isEdfPlusHeader(bytes)) {
+  if (!isPlusHeader(bytes)) {
     writeField(bytes, RECORDING_OFFSET, '');
     return;
   }

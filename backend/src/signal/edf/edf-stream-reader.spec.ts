@@ -39,7 +39,9 @@ describe('EdfStreamReader (file in pieces; Kemp et al. 1992 record layout)', () 
     const bytes = plainEdf();
     bytes[0] = '9'.charCodeAt(0); // Kemp et al. 1992: version must be '0'
     const reader = new EdfStreamReader(bytes.length);
-    expect(() => reader.push(bytes.subarray(0, 256))).toThrow(/version: '9' found, '0' expected/);
+    expect(() => reader.push(bytes.subarray(0, 256))).toThrow(
+      /version: '9' found, '0' \(EDF\) or 0xFF 'BIOSEMI' \(BDF\) expected/,
+    );
   });
 
   it('fails early when the announced size cannot hold the header', () => {

@@ -1,10 +1,16 @@
 /**
- * EDF/EDF+ decoding from bytes that arrive in pieces (an upload or a file stream), so
- * the whole file never needs to be in memory: peak memory is the Float32 output plus
- * one data record. Layout from Kemp et al. 1992; TALs and EDF+C/D timing from Kemp &
- * Olivan 2003. `readEdf` uses the same code with the whole file as one piece.
+ * EDF/EDF+ and BDF/BDF+ decoding from bytes that arrive in pieces (an upload or a file
+ * stream), so the whole file never needs to be in memory: peak memory is the Float32 output
+ * plus one data record. Layout from Kemp et al. 1992; TALs and EDF+C/D timing from Kemp &
+ * Olivan 2003; BDF's 24-bit samples from BioSemi's BDF format and BDF+ from its description
+ * (see edf-header.ts). `readEdf` uses the same code with the whole file as one piece.
  */
-import { checkFixedHeader, EDF_FIXED_HEADER_BYTES, readEdfHeader } from './edf-header';
+import {
+  checkFixedHeader,
+  EDF_FIXED_HEADER_BYTES,
+  isPlusFormat,
+  readEdfHeader,
+} from './edf-header';
 import { EdfFormatError } from './edf-format-error';
 import { parseTals } from './edf-tal';
 import type {
@@ -41,7 +47,7 @@ interface DecodedSignal {
 }
 
 /**
- * Decodes an EDF/EDF+ file pushed in order, in pieces of any size. The header is
+ * Decodes an EDF/EDF+ or BDF/BDF+ file (told apart by its version field) pushed in order, in pieces of any size. The header is
  * validated (`readEdfHeader`) as soon as its bytes are in, so a bad upload fails early.
  * Each method throws `EdfFormatError` on a file that breaks the specification.
  */
@@ -118,12 +124,9 @@ export class EdfStreamReader {
       }
       return { ...d.header, samples: d.samples };
     });
-    if (header.format !== 'EDF') checkRecordStarts(this.recordStartsS, info);
-    if (
-      header.format === 'EDF' &&
-      info.annotationSignalIndices.length > 0 &&
-      this.annotations.length === 0
-    ) {
+    const isPlus = isPlusFormat(header.format);
+    if (isPlus) checkRecordStarts(this.recordStartsS, info);
+    if (!isPlus && info.annotationSignalIndices.length > 0 && this.annotations.length === 0) {
       warnings.push('The annotation signal holds no annotations.');
     }
     return {
@@ -157,11 +160,11 @@ export class EdfStreamReader {
 
   private start(info: EdfHeaderInfo): void {
     this.info = info;
-    const { header, signalHeaders, annotationSignalIndices } = info;
+    const { header, signalHeaders, annotationSignalIndices, sampleBytes } = info;
     let offset = 0;
     for (const s of signalHeaders) {
       this.signalOffsets.push(offset);
-      offset += 2 * s.samplesPerRecord;
+      offset += sampleBytes * s.samplesPerRecord;
     }
     // Sizes below were checked against the file size by readEdfHeader before allocating.
     const chosen = signalHeaders.flatMap((s, i) =>
@@ -195,7 +198,8 @@ export class EdfStreamReader {
   }
 
   private takeRecordBytes(bytes: Uint8Array): void {
-    const recordBytes = (this.info as EdfHeaderInfo).recordBytes;
+    const { recordBytes, sampleBytes } = this.info as EdfHeaderInfo;
+    const sixteenBit = sampleBytes === 2;
     let pos = 0;
     if (this.pendingBytes > 0 && this.pending) {
       const take = Math.min(recordBytes - this.pendingBytes, bytes.byteLength);
@@ -206,8 +210,8 @@ export class EdfStreamReader {
       this.decodeRecord(this.pending, 0, this.pendingWords);
       this.pendingBytes = 0;
     }
-    // One 16-bit view of the whole piece, not one per record and signal.
-    const words = wordsOf(bytes);
+    // One 16-bit view of the whole piece, not one per record and signal (EDF only).
+    const words = sixteenBit ? wordsOf(bytes) : null;
     while (bytes.byteLength - pos >= recordBytes) {
       this.decodeRecord(bytes, pos, words);
       pos += recordBytes;
@@ -215,7 +219,7 @@ export class EdfStreamReader {
     if (pos < bytes.byteLength) {
       if (!this.pending) {
         this.pending = new Uint8Array(recordBytes);
-        this.pendingWords = wordsOf(this.pending);
+        this.pendingWords = sixteenBit ? wordsOf(this.pending) : null;
       }
       this.pending.set(bytes.subarray(pos));
       this.pendingBytes = bytes.byteLength - pos;
@@ -230,6 +234,16 @@ export class EdfStreamReader {
   private decodeRecord(bytes: Uint8Array, offset: number, words: Int16Array | null): void {
     const info = this.info as EdfHeaderInfo;
     const r = this.recordIndex;
+    if (info.sampleBytes === 3) decode24(this.decoded, bytes, offset, r);
+    else this.decode16(bytes, offset, words, r);
+    if (info.annotationSignalIndices.length > 0) {
+      this.readRecordAnnotations(bytes.subarray(offset, offset + info.recordBytes), r, info);
+    }
+    this.recordIndex++;
+  }
+
+  /** The 16-bit samples of record `r` (EDF), read in place when aligned. */
+  private decode16(bytes: Uint8Array, offset: number, words: Int16Array | null, r: number): void {
     for (const d of this.decoded) {
       const spr = d.header.samplesPerRecord;
       const { digitalMin: dmin, digitalMax: dmax, physicalMin: pmin } = d.header;
@@ -255,10 +269,6 @@ export class EdfStreamReader {
       }
       d.outOfRange += outOfRange;
     }
-    if (info.annotationSignalIndices.length > 0) {
-      this.readRecordAnnotations(bytes.subarray(offset, offset + info.recordBytes), r, info);
-    }
-    this.recordIndex++;
   }
 
   /**
@@ -266,14 +276,15 @@ export class EdfStreamReader {
    * time-keeping TAL: onset = record start, first text empty (Kemp & Olivan 2003).
    */
   private readRecordAnnotations(record: Uint8Array, r: number, info: EdfHeaderInfo): void {
-    const isEdfPlus = info.header.format !== 'EDF';
+    const isPlus = isPlusFormat(info.header.format);
     for (const [n, signalIndex] of info.annotationSignalIndices.entries()) {
       const start = this.signalOffsets[signalIndex];
-      const length = 2 * info.signalHeaders[signalIndex].samplesPerRecord;
+      // An annotation signal's bytes are sampleBytes per "sample" in BDF+ too.
+      const length = info.sampleBytes * info.signalHeaders[signalIndex].samplesPerRecord;
       const where = `record ${r + 1}, signal ${signalIndex + 1}`;
       const tals = parseTals(record.subarray(start, start + length), where);
       const timeKeeping = n === 0 && tals.length > 0 && tals[0].texts[0] === '' ? tals[0] : null;
-      if (n === 0 && isEdfPlus) {
+      if (n === 0 && isPlus) {
         if (!timeKeeping) {
           const first = tals[0];
           throw new EdfFormatError(
@@ -292,6 +303,28 @@ export class EdfStreamReader {
         }
       }
     }
+  }
+}
+
+/**
+ * The 24-bit samples of record `r` of a BDF file at byte `offset` of `bytes`: three bytes,
+ * least significant first, two's complement (BioSemi BDF format), sign-extended by the
+ * shift pair. Physical value as in `decodeRecord`.
+ */
+function decode24(decoded: DecodedSignal[], bytes: Uint8Array, offset: number, r: number): void {
+  for (const d of decoded) {
+    const spr = d.header.samplesPerRecord;
+    const { digitalMin: dmin, digitalMax: dmax, physicalMin: pmin } = d.header;
+    const { samples, gain } = d;
+    const out = r * spr;
+    let at = offset + d.byteOffset;
+    let outOfRange = 0;
+    for (let k = 0; k < spr; k++, at += 3) {
+      const v = ((bytes[at] | (bytes[at + 1] << 8) | (bytes[at + 2] << 16)) << 8) >> 8;
+      if (v < dmin || v > dmax) outOfRange++;
+      samples[out + k] = (v - dmin) * gain + pmin;
+    }
+    d.outOfRange += outOfRange;
   }
 }
 
@@ -314,7 +347,10 @@ function concat(parts: Uint8Array[], length: number): Uint8Array {
   return out.subarray(0, pos);
 }
 
-/** EDF+C records are contiguous; EDF+D records may have gaps but not overlap (Kemp & Olivan 2003). */
+/**
+ * EDF+C/BDF+C records are contiguous; EDF+D/BDF+D records may have gaps but not overlap
+ * (Kemp & Olivan 2003).
+ */
 function checkRecordStarts(recordStartsS: Float64Array, info: EdfHeaderInfo): void {
   const { recordDurationS, format } = info.header;
   // Timing differences below half the shortest sample interval move no sample.
@@ -323,15 +359,15 @@ function checkRecordStarts(recordStartsS: Float64Array, info: EdfHeaderInfo): vo
   for (let r = 1; r < recordStartsS.length; r++) {
     const start = recordStartsS[r];
     const contiguous = recordStartsS[0] + r * recordDurationS;
-    if (format === 'EDF+C' && Math.abs(start - contiguous) > toleranceS) {
+    if (format.endsWith('+C') && Math.abs(start - contiguous) > toleranceS) {
       throw new EdfFormatError(
         `time-keeping TAL (record ${r + 1})`,
         `start ${start} s`,
-        `${contiguous} s, as EDF+C records are contiguous`,
+        `${contiguous} s, as ${format} records are contiguous`,
       );
     }
     const previousEnd = recordStartsS[r - 1] + recordDurationS;
-    if (format === 'EDF+D' && start < previousEnd - toleranceS) {
+    if (format.endsWith('+D') && start < previousEnd - toleranceS) {
       throw new EdfFormatError(
         `time-keeping TAL (record ${r + 1})`,
         `start ${start} s`,

@@ -2,7 +2,7 @@ import { EdfFormatError } from './edf-format-error';
 import { readEdf } from './edf-reader';
 import { writeEdf, type EdfWriteSignal } from './edf-writer';
 import { edfPlus, plainEdf, plainEdfParts } from './testing/hand-built-edf';
-import { seededUniform } from '../onset/random';
+import { seededUniform } from '../random/random';
 
 /** Kemp et al. 1992: physical = (digital − dmin)·(pmax − pmin)/(dmax − dmin) + pmin. */
 const physical = (d: number): number => ((d + 2048) * 400) / 4095 - 200;

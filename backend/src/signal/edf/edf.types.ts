@@ -1,11 +1,12 @@
 /**
- * Types of a decoded EDF/EDF+ recording (Kemp et al. 1992; Kemp & Olivan 2003).
+ * Types of a decoded EDF/EDF+ or BDF/BDF+ recording (Kemp et al. 1992; Kemp & Olivan 2003;
+ * BioSemi's BDF format and its BDF+ extension: the same header, 24-bit samples).
  * Imported by the DSP code and the server: keep the names stable.
  */
 
 /** Main header (the first 256 bytes), with the EDF+ meaning of the reserved field. */
 export interface EdfHeader {
-  /** Version field, "0" in every valid EDF/EDF+ file. */
+  /** Version field: "0" in every valid EDF/EDF+ file, "0xFF BIOSEMI" in a BDF/BDF+ file. */
   version: string;
   /** Local patient identification (EDF+: `code sex birthdate name`), trailing spaces removed. */
   patientId: string;
@@ -15,10 +16,16 @@ export interface EdfHeader {
   startDate: string;
   /** Header length in bytes, 256 × (1 + signalCount). */
   headerBytes: number;
-  /** The 44-byte reserved field (EDF+: starts with `EDF+C` or `EDF+D`), trailing spaces removed. */
+  /**
+   * The 44-byte reserved field (EDF+: starts with `EDF+C` or `EDF+D`; BDF: `24BIT`; BDF+:
+   * `BDF+C` or `BDF+D`), trailing spaces removed.
+   */
   reserved: string;
-  format: 'EDF' | 'EDF+C' | 'EDF+D';
-  /** Number of data records (−1, "unknown", is rejected). */
+  format: 'EDF' | 'EDF+C' | 'EDF+D' | 'BDF' | 'BDF+C' | 'BDF+D';
+  /**
+   * Number of data records; when the field says −1 ("still recording"), the count the file's
+   * size holds (see `readEdfHeader`).
+   */
   recordCount: number;
   recordDurationS: number;
   /** All signals in the file, including `EDF Annotations` signals. */
@@ -78,9 +85,11 @@ export interface EdfHeaderInfo {
   header: EdfHeader;
   /** Every signal in file order, annotation signals included. */
   signalHeaders: EdfSignalHeader[];
-  /** Indices into `signalHeaders` of the `EDF Annotations` signals. */
+  /** Indices into `signalHeaders` of the `EDF Annotations` (BDF+: `BDF Annotations`) signals. */
   annotationSignalIndices: number[];
-  /** Bytes in one data record: 2 × Σ samplesPerRecord. */
+  /** Bytes in one data record: sampleBytes × Σ samplesPerRecord. */
   recordBytes: number;
+  /** Bytes per sample: 2 in EDF/EDF+ (16-bit), 3 in BDF/BDF+ (24-bit), annotation signals too. */
+  sampleBytes: 2 | 3;
   warnings: string[];
 }

@@ -5,7 +5,7 @@
  * (`analyzeChannels`) and to its merge (`mergeChannelParts`).
  */
 import { normaliseChannelLabel, roiChannels } from '../channels';
-import { DataSegmentS, EpochDropReason, screenTrials } from '../onset/epochs';
+import { DataSegmentS, EpochDropReason, screenTrials } from '../trials/epochs';
 import { artefactRegExp, stimulusAnnotations } from '../onsets/stimulus-annotations';
 import {
   AnalysisComputation,

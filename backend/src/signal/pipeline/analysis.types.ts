@@ -1,5 +1,5 @@
-import type { RoiUsageDto } from '@gyre/shared';
-import { WilcoxonMethod } from '../onset/wilcoxon';
+import type { RoiUsageView } from '@gyre/shared';
+import { WilcoxonMethod } from '../trials/wilcoxon';
 import { ChannelQuality } from '../quality/quality-checks';
 import { NoPeakReason } from '../spectrum/alpha-peak';
 import type { AnalysisComputation } from './analysis-computation';
@@ -61,10 +61,10 @@ export interface AnalysisContext {
 
 /**
  * Which region-of-interest channels a result comes from and why others were left out
- * (the API's `RoiUsageDto`). The signal core never says 'excluded': that is the server's
+ * (the API's `RoiUsageView`). The signal core never says 'excluded': that is the server's
  * word for a channel a visit override removed from the settings' `roi`.
  */
-export type RoiUsage = RoiUsageDto;
+export type RoiUsage = RoiUsageView;
 
 export interface DropCounts {
   edge: number;

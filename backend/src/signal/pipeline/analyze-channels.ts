@@ -7,8 +7,8 @@ import {
   FrequencySlidingWorkspace,
   frequencySlidingInWorkspace,
 } from '../frequency/frequency-sliding';
-import { OnsetCurveScratch } from '../onset/onset-statistics';
-import { cutFrequencyEpochs, epochExceedsAmplitude, epochPointCount } from '../onset/epochs';
+import { OnsetCurveScratch } from '../trials/onset-statistics';
+import { cutFrequencyEpochs, epochExceedsAmplitude, epochPointCount } from '../trials/epochs';
 import {
   channelQuality,
   ChannelQuality,

@@ -7,7 +7,7 @@
 import { medianOf } from '../quality/quality-checks';
 import { alphaPeak, centreOfGravity } from '../spectrum/alpha-peak';
 import { meanSpectrum, PowerSpectrum } from '../spectrum/welch';
-import { epochPointCount } from '../onset/epochs';
+import { epochPointCount } from '../trials/epochs';
 import type { AnalysisPlan } from './analysis-plan';
 import { BOOTSTRAP_RESAMPLES, BOOTSTRAP_SEED } from './analysis-settings';
 import type {

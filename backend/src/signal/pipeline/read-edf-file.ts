@@ -4,7 +4,10 @@ import type { EdfHeaderInfo, EdfRecording, EdfSignalHeader } from '../edf/edf.ty
 
 const littleEndianHost = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
 
-/** Bytes read from disk at a time: even, so a 16-bit sample never straddles two chunks. */
+/**
+ * Bytes read from disk at a time: even, so a 16-bit EDF sample never straddles two chunks (a
+ * 24-bit BDF sample may: the range counter carries its first bytes over).
+ */
 export const DEFAULT_EDF_CHUNK_BYTES = 1 << 20;
 
 export interface ReadEdfFileOptions {
@@ -61,7 +64,7 @@ export interface EdfFileRead {
 }
 
 /**
- * Reads an EDF/EDF+ file from disk in chunks through `EdfStreamReader`, so the file's
+ * Reads an EDF/EDF+ or BDF/BDF+ file from disk in chunks through `EdfStreamReader`, so the file's
  * bytes are never held whole: with `selectSignal` only the chosen signals' samples are
  * kept. The result is the one `readEdf(whole file, options)` gives, errors included
  * (a format error is kept and rethrown by `finish()`, after the whole file was read and
@@ -139,11 +142,14 @@ function ordinarySignalsOf(info: EdfHeaderInfo): EdfSignalHeader[] {
 
 /**
  * Digital values outside [digitalMin, digitalMax] per ordinary signal, counted from the
- * raw 16-bit little-endian samples (Kemp et al. 1992) when some signals are not decoded,
- * so that the warnings name them as reading every signal would.
+ * raw 16-bit (EDF, Kemp et al. 1992) or 24-bit (BDF, BioSemi BDF format) little-endian
+ * samples when some signals are not decoded, so that the warnings name them as reading
+ * every signal would. A "word" is one sample of the record, 2 or 3 bytes.
  */
 class RangeCounter {
   private readonly signalOfWord: Int32Array;
+  /** The first bytes of a 24-bit sample the previous chunk ended in, least significant first. */
+  private carried = 0;
   /** Word index (in a record) where the signal of each word's run ends. */
   private readonly runEnd: Int32Array;
   private readonly counts: number[];
@@ -157,8 +163,8 @@ class RangeCounter {
     this.counts = info.signalHeaders.map(() => 0);
     this.digitalMin = Int32Array.from(info.signalHeaders, (s) => s.digitalMin);
     this.digitalMax = Int32Array.from(info.signalHeaders, (s) => s.digitalMax);
-    this.signalOfWord = new Int32Array(info.recordBytes / 2);
-    this.runEnd = new Int32Array(info.recordBytes / 2);
+    this.signalOfWord = new Int32Array(info.recordBytes / info.sampleBytes);
+    this.runEnd = new Int32Array(info.recordBytes / info.sampleBytes);
     let word = 0;
     info.signalHeaders.forEach((s, i) => {
       const ordinary = !info.annotationSignalIndices.includes(i);
@@ -189,6 +195,10 @@ class RangeCounter {
     const from = Math.max(position, headerBytes);
     const to = Math.min(position + chunk.byteLength, headerBytes + dataBytes);
     if (to <= from) return;
+    if (this.info.sampleBytes === 3) {
+      this.count24(chunk, from - position, to - position, from - headerBytes);
+      return;
+    }
     const start = chunk.byteOffset + from - position;
     const whole = (from - headerBytes) % 2 === 0 && (to - from) % 2 === 0;
     if (littleEndianHost && whole && start % 2 === 0) {
@@ -207,6 +217,38 @@ class RangeCounter {
       }
       w = w + 1 === recordWords ? 0 : w + 1;
     }
+  }
+
+  /**
+   * The count over 24-bit samples (BDF) in `chunk[at, end)`, whose first byte is byte
+   * `dataOffset` of the data records; a sample cut by the chunk's end is finished by the next.
+   */
+  private count24(chunk: Uint8Array, at: number, end: number, dataOffset: number): void {
+    const words = this.signalOfWord;
+    const recordWords = words.length;
+    const { counts, digitalMin, digitalMax } = this;
+    const check = (w: number, v: number): void => {
+      const s = words[w];
+      if (s >= 0 && (v < digitalMin[s] || v > digitalMax[s])) counts[s]++;
+    };
+    let w = Math.floor(dataOffset / 3) % recordWords;
+    let part = dataOffset % 3;
+    if (part > 0) {
+      let v = this.carried;
+      for (; part < 3 && at < end; part++) v |= chunk[at++] << (8 * part);
+      if (part < 3) {
+        this.carried = v;
+        return;
+      }
+      check(w, (v << 8) >> 8);
+      w = w + 1 === recordWords ? 0 : w + 1;
+    }
+    for (; at + 3 <= end; at += 3) {
+      check(w, ((chunk[at] | (chunk[at + 1] << 8) | (chunk[at + 2] << 16)) << 8) >> 8);
+      w = w + 1 === recordWords ? 0 : w + 1;
+    }
+    this.carried = 0;
+    for (let k = 0; at < end; k++) this.carried |= chunk[at++] << (8 * k);
   }
 
   /**

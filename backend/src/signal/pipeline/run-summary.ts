@@ -3,7 +3,7 @@
  * command line prints it. Plain data and Float64Arrays only, so it crosses a thread boundary
  * by structured clone (series by transfer).
  */
-import type { ChannelStatsDto, QualityDto, RoiUsageDto } from '@gyre/shared';
+import type { ChannelStatsView, QualityView, RoiUsageView } from '@gyre/shared';
 import type { AnalysisBandSource } from './analysis-settings';
 import type { AnalysisResult, OnsetResult } from './analysis.types';
 
@@ -21,8 +21,8 @@ export interface RunSummary {
   bandHz: [number, number];
   bandSource: AnalysisBandSource;
   /** Which region-of-interest channels the numbers come from, and why others were left out. */
-  roiUsage: RoiUsageDto;
-  channels: ChannelStatsDto[];
+  roiUsage: RoiUsageView;
+  channels: ChannelStatsView[];
   /** Task recordings: the region of interest's statistics over trials; null without a region. */
   roi: {
     baselineHz: number | null;
@@ -52,7 +52,7 @@ export interface RunSummary {
     noPeakReason: string | null;
     alphaWindowHz: [number, number];
   } | null;
-  quality: QualityDto;
+  quality: QualityView;
   suggestsSlowing: boolean | null;
 }
 
@@ -129,7 +129,7 @@ export function toAnalyzeOutcome(
     };
   }
   const used = new Set(result.roiUsage.used);
-  const channels: ChannelStatsDto[] =
+  const channels: ChannelStatsView[] =
     result.channels.length > 0
       ? result.channels.map((c) => ({
           label: c.label,
@@ -154,7 +154,7 @@ export function toAnalyzeOutcome(
           trials: null,
         }));
   const qc = result.qc;
-  const quality: QualityDto = {
+  const quality: QualityView = {
     durationS: qc.durationS,
     sampleRatesHz: [...qc.sampleRatesHz],
     roiChannelsFound: [...qc.roiChannelsFound],

@@ -1,10 +1,10 @@
-import { epochPointCount, epochPointRange, EpochDropReason } from '../onset/epochs';
+import { epochPointCount, epochPointRange, EpochDropReason } from '../trials/epochs';
 import {
   onsetCurve,
   OnsetCurveScratch,
   onsetStatistics,
   trialWindowMeans,
-} from '../onset/onset-statistics';
+} from '../trials/onset-statistics';
 import type { AnalysisComputation } from './analysis-computation';
 import { AnalysisSettings, BOOTSTRAP_RESAMPLES, BOOTSTRAP_SEED } from './analysis-settings';
 import type { DropCounts, OnsetResult } from './analysis.types';

@@ -18,7 +18,7 @@ import { readEdf } from '../edf-reader';
 import { EdfStreamReader } from '../edf-stream-reader';
 import type { EdfRecording } from '../edf.types';
 import { writeEdf, type EdfWriteSignal } from '../edf-writer';
-import { seededUniform } from '../../onset/random';
+import { seededUniform } from '../../random/random';
 
 const CHANNELS_64 = [
   'Fp1',

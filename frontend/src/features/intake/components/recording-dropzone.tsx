@@ -1,7 +1,7 @@
 import type {
   KindMismatchDetails,
   KindTakenDetails,
-  RecordingDto,
+  RecordingView,
   RecordingKind,
 } from '@gyre/shared';
 import { RECORDING_KINDS } from '@gyre/shared';
@@ -12,8 +12,9 @@ import { ApiError } from '../../../lib/api-client';
 import { KIND_TAKEN, KIND_UNCONFIRMED, useUploadRecording } from '../api/upload-recording';
 import { rejectionFromDetails } from './rejection-text';
 import { UploadItemView, type UploadItem } from './upload-item';
+import { GYRE_COLORS } from '../../../app/theme';
 
-const EDF_NAME = /\.(edf|rec)$/i;
+const EDF_NAME = /\.(edf|bdf|rec)$/i;
 const CSV_NAME = /\.csv$/i;
 
 function isKind(value: unknown): value is RecordingKind {
@@ -61,7 +62,7 @@ function rejectedRecordingId(details: Record<string, unknown> | null): string | 
 }
 
 /**
- * Drop one or more EDF/EDF+ files (and, for a task, an onset CSV); each shows its upload
+ * Drop one or more EDF/EDF+ or BDF/BDF+ files (and, for a task, an onset CSV); each shows its upload
  * progress, the server's answer, then its recording's state live (from `recordings`).
  */
 export function RecordingDropzone({
@@ -73,7 +74,7 @@ export function RecordingDropzone({
   visitId: string;
   visitName: string;
   /** The visit's recordings as the screen follows them live. */
-  recordings: readonly RecordingDto[];
+  recordings: readonly RecordingView[];
   /** Hides a rejected recording from the list below too. */
   onDismissRecording: (recordingId: string) => void;
 }) {
@@ -158,10 +159,10 @@ export function RecordingDropzone({
       sizeBytes: file.size,
       kind,
       rejection: {
-        message: `${file.name} is not an EDF or EDF+ file, so it was not sent.`,
+        message: `${file.name} is not an EDF, EDF+, BDF or BDF+ file, so it was not sent.`,
         field: 'file name',
         found: file.name.includes('.') ? `.${file.name.split('.').pop() ?? ''}` : 'no extension',
-        expected: '.edf',
+        expected: '.edf or .bdf',
       },
     });
     return Upload.LIST_IGNORE;
@@ -252,15 +253,15 @@ export function RecordingDropzone({
       <Upload.Dragger
         name="file"
         multiple
-        accept=".edf,.EDF,.rec"
+        accept=".edf,.EDF,.bdf,.BDF,.rec"
         showUploadList={false}
         beforeUpload={beforeUpload}
         customRequest={customRequest}
-        aria-label={`Drop ${kind} EDF files here or press Enter to choose them`}
+        aria-label={`Drop ${kind} EDF or BDF files here or press Enter to choose them`}
       >
         <div style={{ padding: '12px 0' }}>
-          <Typography.Title level={4} style={{ margin: 0, color: '#24525A' }}>
-            Drop {kind === 'resting' ? 'resting' : 'task'} EDF or EDF+ files here
+          <Typography.Title level={4} style={{ margin: 0, color: GYRE_COLORS.primary }}>
+            Drop {kind === 'resting' ? 'resting' : 'task'} EDF, EDF+, BDF or BDF+ files here
           </Typography.Title>
           <Typography.Text type="secondary">
             or click to choose them. Each file is checked before Gyre keeps it; the patient field is

@@ -55,7 +55,7 @@ describe('rejectionAdvice', () => {
     );
   });
 
-  it('tells a file longer than its header, a BDF file and an onset CSV with a resting file apart', () => {
+  it('tells a file longer than its header, a file of another format and an onset CSV with a resting file apart', () => {
     expect(
       rejectionAdvice({
         message: 'x',
@@ -70,10 +70,12 @@ describe('rejectionAdvice', () => {
       rejectionAdvice({
         message: 'x',
         field: 'version',
-        found: 'BDF (0xFF BIOSEMI, 24-bit)',
-        expected: "EDF version '0'",
-      }).action,
-    ).toBe('Export the recording as EDF or EDF+ from the recorder and upload that file.');
+        found: "0xFF followed by 'BIOSEMX'",
+        expected: "'0' (EDF) or 0xFF 'BIOSEMI' (BDF)",
+      }).problem,
+    ).toBe(
+      "This file does not start like an EDF or BDF file (version 0xFF followed by 'BIOSEMX').",
+    );
     expect(
       rejectionAdvice({
         message: 'x',

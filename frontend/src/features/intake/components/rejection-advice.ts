@@ -104,21 +104,18 @@ export function rejectionAdvice(
     }
   }
   if (field === 'version') {
-    return found.startsWith('BDF')
-      ? {
-          problem: 'This is a BDF file (24-bit samples), not an EDF file.',
-          action: 'Export the recording as EDF or EDF+ from the recorder and upload that file.',
-        }
-      : {
-          problem: `This file does not start like an EDF file (version ${found}, not '0').`,
-          action:
-            'Check that you chose the EDF or EDF+ export of the recording, not another format, and upload it.',
-        };
+    return {
+      problem: `This file does not start like an EDF or BDF file (version ${found}).`,
+      action:
+        'Check that you chose the EDF, EDF+, BDF or BDF+ export of the recording, not another format, and upload it.',
+    };
   }
   if (field === 'reserved') {
     return {
-      problem: 'The header says neither EDF nor EDF+.',
-      action: 'Export the recording as EDF or EDF+ from the recorder and upload that file.',
+      problem: found.includes('BDF file')
+        ? 'The header starts like a BDF file but says neither BDF (24BIT) nor BDF+.'
+        : 'The header says neither EDF nor EDF+.',
+      action: 'Export the recording again as EDF, EDF+, BDF or BDF+ and upload that file.',
     };
   }
   if (field === 'signals') {
