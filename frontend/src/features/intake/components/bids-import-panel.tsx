@@ -1,0 +1,281 @@
+import type { BidsImportFilePreview, BidsImportPreview } from '@gyre/shared';
+import { formatNumber } from '@gyre/shared';
+import { Alert, Button, Card, Checkbox, Flex, Input, Progress, Table, Tag, Typography } from 'antd';
+import type { TableColumnsType } from 'antd';
+import { useRef, useState } from 'react';
+import { ApiError } from '../../../lib/api-client';
+import { pathOf, previewOfError, useBidsImport, type BidsSource } from '../api/bids-import';
+import { KIND_LABELS } from './kind-labels';
+
+const NBSP = '\u00a0';
+
+const COLUMNS: TableColumnsType<BidsImportFilePreview> = [
+  { title: 'File', dataIndex: 'path', render: (path: string) => path.split('/').at(-1) },
+  {
+    title: 'Participant',
+    key: 'participant',
+    render: (_: unknown, f) =>
+      f.participantCode === null ? (
+        `sub-${f.subject}`
+      ) : (
+        <Flex gap={4} wrap>
+          {f.participantCode}
+          {f.participant === 'new' && <Tag>new</Tag>}
+        </Flex>
+      ),
+  },
+  {
+    title: 'Visit',
+    key: 'visit',
+    render: (_: unknown, f) =>
+      f.plannedVisit === null ? (
+        f.session === null ? (
+          '—'
+        ) : (
+          `ses-${f.session}`
+        )
+      ) : (
+        <Flex gap={4} wrap>
+          {f.plannedVisit}
+          {f.visitDate !== null && ` (${f.visitDate})`}
+          {f.visit === 'new' && <Tag>new</Tag>}
+        </Flex>
+      ),
+  },
+  { title: 'Kind', dataIndex: 'kind', render: (kind: 'resting' | 'task') => KIND_LABELS[kind] },
+  {
+    title: 'Onsets',
+    key: 'onsets',
+    render: (_: unknown, f) =>
+      f.onsetCount === null
+        ? '—'
+        : `${formatNumber(f.onsetCount, 0)}${f.conditions.length > 0 ? ` (${f.conditions.join(', ')})` : ''}`,
+  },
+  {
+    title: 'Channels left out',
+    key: 'channels',
+    render: (_: unknown, f) =>
+      f.channelsLeftOut.length === 0
+        ? 'none'
+        : f.channelsLeftOut
+            .map((c) => (c.reason === null ? c.label : `${c.label}: ${c.reason}`))
+            .join('; '),
+  },
+  {
+    title: 'Line noise',
+    key: 'line',
+    render: (_: unknown, f) =>
+      f.lineFrequencyHz === null
+        ? '50 and 60 Hz'
+        : `${formatNumber(f.lineFrequencyHz, 0)}${NBSP}Hz`,
+  },
+  {
+    title: 'Problems',
+    key: 'problems',
+    render: (_: unknown, f) => (
+      <Flex vertical gap={2}>
+        {f.problems.map((text) => (
+          <Typography.Text key={`p-${text}`} type="danger">
+            {text}
+          </Typography.Text>
+        ))}
+        {f.warnings.map((text) => (
+          <Typography.Text key={`w-${text}`} type="warning">
+            {text}
+          </Typography.Text>
+        ))}
+        {f.problems.length + f.warnings.length === 0 && 'none'}
+      </Flex>
+    ),
+  },
+];
+
+/** What a preview is about: the files (path and size) and the choices sent with them. */
+function selectionOf(source: BidsSource | null, create: boolean, visitDate: string): string {
+  if (source === null) return '';
+  const files = source.kind === 'zip' ? [source.file] : source.files;
+  return [create, visitDate, ...files.map((f) => `${pathOf(f)}:${f.size}`)].join('|');
+}
+
+/**
+ * EEG-BIDS import (technician): a BIDS session folder or its zip. The server maps every
+ * recording to a participant and planned visit and checks it (dry run); the preview is shown
+ * for confirmation, and Import stores every file or none.
+ */
+export function BidsImportPanel({ studyId }: { studyId: string }) {
+  const send = useBidsImport();
+  const folderInput = useRef<HTMLInputElement>(null);
+  const zipInput = useRef<HTMLInputElement>(null);
+  const [source, setSource] = useState<BidsSource | null>(null);
+  const [createParticipants, setCreateParticipants] = useState(false);
+  const [visitDate, setVisitDate] = useState('');
+  const [preview, setPreview] = useState<BidsImportPreview | null>(null);
+  const [previewFor, setPreviewFor] = useState<string | null>(null);
+  const [busy, setBusy] = useState<'check' | 'import' | null>(null);
+  const [percent, setPercent] = useState(0);
+  const [problem, setProblem] = useState<string | null>(null);
+
+  const selection = selectionOf(source, createParticipants, visitDate);
+  const current = preview !== null && previewFor === selection ? preview : null;
+  const confirmable =
+    current !== null &&
+    current.dryRun &&
+    current.summary.withProblems === 0 &&
+    current.problems.length === 0;
+
+  const run = async (dryRun: boolean) => {
+    if (source === null) return;
+    setBusy(dryRun ? 'check' : 'import');
+    setProblem(null);
+    setPercent(0);
+    try {
+      const answer = await send(
+        { studyId, source, createParticipants, visitDate, dryRun },
+        { onProgress: (p) => setPercent(Math.round(p.percent)) },
+      );
+      setPreview(answer);
+      setPreviewFor(answer.imported ? '' : selection);
+      if (answer.imported) setSource(null);
+    } catch (error) {
+      const refused = previewOfError(error);
+      setPreview(refused);
+      setPreviewFor(refused === null ? null : selection);
+      if (refused === null) setProblem(error instanceof ApiError ? error.message : String(error));
+    } finally {
+      setBusy(null);
+    }
+  };
+
+  const described =
+    source === null
+      ? 'Nothing chosen yet'
+      : source.kind === 'zip'
+        ? `Zip: ${source.file.name}`
+        : `Folder: ${formatNumber(source.files.length, 0)} file${source.files.length === 1 ? '' : 's'}`;
+
+  return (
+    <Card title="EEG-BIDS import">
+      <Flex vertical gap={12}>
+        <Typography.Paragraph type="secondary" style={{ margin: 0 }}>
+          A BIDS session folder (sub-…/ses-…/eeg/ with *_eeg.edf or *_eeg.bdf, *_events.tsv,
+          *_channels.tsv, *_eeg.json) or its zip. Subjects become participant codes, sessions
+          planned visits. Check first: nothing is stored until you confirm, and the import takes
+          every file or none.
+        </Typography.Paragraph>
+        <input
+          ref={(element) => {
+            folderInput.current = element;
+            // Not in React's attribute types: the browser's folder picker.
+            element?.setAttribute('webkitdirectory', '');
+          }}
+          type="file"
+          multiple
+          hidden
+          aria-label="BIDS folder"
+          onChange={(event) => {
+            const files = [...(event.target.files ?? [])];
+            setSource(files.length === 0 ? null : { kind: 'folder', files });
+            event.target.value = '';
+          }}
+        />
+        <input
+          ref={zipInput}
+          type="file"
+          accept=".zip"
+          hidden
+          aria-label="BIDS zip"
+          onChange={(event) => {
+            const file = event.target.files?.[0];
+            setSource(file === undefined ? null : { kind: 'zip', file });
+            event.target.value = '';
+          }}
+        />
+        <Flex wrap gap={8} align="center">
+          <Button onClick={() => folderInput.current?.click()}>Choose a folder</Button>
+          <Button onClick={() => zipInput.current?.click()}>Choose a zip</Button>
+          <Typography.Text type={source === null ? 'secondary' : undefined}>
+            {described}
+          </Typography.Text>
+        </Flex>
+        <Flex wrap gap={16} align="center">
+          <Checkbox
+            checked={createParticipants}
+            onChange={(event) => setCreateParticipants(event.target.checked)}
+          >
+            Add unknown subjects as new participants of my site
+          </Checkbox>
+          <label>
+            <Typography.Text>Visit date when the folder has no scans.tsv </Typography.Text>
+            <Input
+              type="date"
+              value={visitDate}
+              onChange={(event) => setVisitDate(event.target.value)}
+              style={{ width: 170 }}
+              aria-label="Visit date for new visits"
+            />
+          </label>
+        </Flex>
+        <Flex wrap gap={8}>
+          <Button
+            onClick={() => void run(true)}
+            disabled={source === null || busy !== null}
+            loading={busy === 'check'}
+          >
+            Check (preview)
+          </Button>
+          <Button
+            type="primary"
+            onClick={() => void run(false)}
+            disabled={!confirmable || busy !== null}
+            loading={busy === 'import'}
+          >
+            Confirm import
+          </Button>
+        </Flex>
+        {busy !== null && <Progress percent={percent} size="small" aria-label="Sending" />}
+        {problem !== null && <Alert type="error" showIcon title={problem} />}
+        {current !== null && <PreviewView preview={current} />}
+      </Flex>
+    </Card>
+  );
+}
+
+function PreviewView({ preview }: { preview: BidsImportPreview }) {
+  const { summary } = preview;
+  const plural = (n: number, word: string) => `${formatNumber(n, 0)} ${word}${n === 1 ? '' : 's'}`;
+  const counts = `${plural(summary.files, 'recording')}, ${formatNumber(summary.withProblems, 0)} with a problem; ${plural(summary.newParticipants, 'new participant')}, ${plural(summary.newVisits, 'new visit')}.`;
+  const failed = summary.withProblems > 0 || preview.problems.length > 0;
+  return (
+    <Flex vertical gap={8}>
+      <Alert
+        type={preview.imported ? 'success' : failed ? 'error' : 'info'}
+        showIcon
+        title={
+          preview.imported
+            ? `Imported: ${counts}`
+            : failed
+              ? `Nothing was imported. ${counts} Correct the folder and check again.`
+              : `Checked, nothing stored yet. ${counts} Confirm to import.`
+        }
+        description={
+          preview.problems.length > 0 ? (
+            <ul style={{ margin: 0, paddingInlineStart: 18 }}>
+              {preview.problems.map((text) => (
+                <li key={text}>{text}</li>
+              ))}
+            </ul>
+          ) : undefined
+        }
+      />
+      <Table<BidsImportFilePreview>
+        aria-label="BIDS recordings"
+        size="small"
+        rowKey="path"
+        columns={COLUMNS}
+        dataSource={preview.files}
+        pagination={false}
+        scroll={{ x: 960 }}
+      />
+    </Flex>
+  );
+}
