@@ -21,6 +21,7 @@ import { QueueModule } from './queue/queue.module';
 import { ProcessingModule } from './processing/processing.module';
 import { RecordingsModule } from './recordings/recordings.module';
 import { BulkUploadsModule } from './bulk-uploads/bulk-uploads.module';
+import { BidsImportModule } from './bids-import/bids-import.module';
 import { FlagsModule } from './flags/flags.module';
 import { TrajectoryModule } from './trajectory/trajectory.module';
 import { SignoffModule } from './signoff/signoff.module';
@@ -30,6 +31,7 @@ import { VisitReviewsModule } from './visit-reviews/visit-reviews.module';
 import { WorklistModule } from './worklist/worklist.module';
 import { StudyExportsModule } from './study-exports/study-exports.module';
 import { StudyOverviewModule } from './study-overview/study-overview.module';
+import { CalibrationModule } from './calibration/calibration.module';
 
 @Module({})
 export class AppModule implements NestModule {
@@ -58,6 +60,7 @@ export class AppModule implements NestModule {
         JobsModule,
         RecordingsModule,
         BulkUploadsModule,
+        BidsImportModule,
         ProcessingModule,
         FlagsModule,
         TrajectoryModule,
@@ -68,6 +71,7 @@ export class AppModule implements NestModule {
         WorklistModule,
         StudyExportsModule,
         StudyOverviewModule,
+        CalibrationModule,
       ],
     };
   }

@@ -1,6 +1,6 @@
 /** Versioned analysis settings per study: defaults, validation, new versions, audit. */
 import request from 'supertest';
-import type { AnalysisSettingsDto } from '@gyre/shared';
+import type { AnalysisSettingsView } from '@gyre/shared';
 import { startTestApp, TestApp } from './helpers/test-app';
 
 describe('analysis settings', () => {
@@ -89,7 +89,7 @@ describe('analysis settings', () => {
     const analyst = await t.authHeader('analyst');
     const response = await request(t.url).post(path).set(analyst).send(valid);
     expect(response.status).toBe(201);
-    const created = response.body as AnalysisSettingsDto;
+    const created = response.body as AnalysisSettingsView;
     expect(created).toMatchObject({
       version: 2,
       bandHz: [7.5, 12.5],
@@ -132,6 +132,6 @@ describe('analysis settings', () => {
       .get(`${path}/versions`)
       .query({ order: 'asc' })
       .set(analyst);
-    expect(oldest.body.items.map((s: AnalysisSettingsDto) => s.version)).toEqual([1, 2]);
+    expect(oldest.body.items.map((s: AnalysisSettingsView) => s.version)).toEqual([1, 2]);
   });
 });

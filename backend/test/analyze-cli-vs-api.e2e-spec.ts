@@ -9,7 +9,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import request from 'supertest';
-import type { RecordingDto, RecordingResultsDto } from '@gyre/shared';
+import type { RecordingView, RecordingResultsView } from '@gyre/shared';
 import type { RunSummary } from '../src/signal/pipeline/run-summary';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
@@ -37,18 +37,18 @@ describe('npm run analyze against the API', () => {
     const taskUp = await upload(t, 'technician', visitId, { kind: 'task', bytes: task });
     expect([restUp.status, taskUp.status]).toEqual([201, 201]);
     await t.computationsIdle();
-    const restReady = await waitForState(t, 'technician', (restUp.body as RecordingDto).id, [
+    const restReady = await waitForState(t, 'technician', (restUp.body as RecordingView).id, [
       'ready',
     ]);
-    const taskReady = await waitForState(t, 'technician', (taskUp.body as RecordingDto).id, [
+    const taskReady = await waitForState(t, 'technician', (taskUp.body as RecordingView).id, [
       'ready',
     ]);
     const analyst = await t.authHeader('analyst');
     const restResults = (
       await request(t.url).get(`/api/recordings/${restReady.id}/results`).set(analyst)
-    ).body as RecordingResultsDto;
+    ).body as RecordingResultsView;
     const api = (await request(t.url).get(`/api/recordings/${taskReady.id}/results`).set(analyst))
-      .body as RecordingResultsDto;
+      .body as RecordingResultsView;
     const iaf = restResults.run.pafHz as number;
     expect(api.run.bandSource).toBe('iaf');
 

@@ -1,7 +1,8 @@
 import request from 'supertest';
-import { defineAbilityFor, type AuditEntryView } from '@gyre/shared';
+import { defineAbilityFor } from '@gyre/shared';
 import { AuditContextReads } from '../src/audit/audit-context.reads';
-import { SqliteReads } from '../src/common/database/sqlite-reads.service';
+import { SqliteReadsService } from '../src/common/database/sqlite-reads.service';
+import { auditEntries } from './helpers/audit-entries';
 import { startTestApp, TestApp } from './helpers/test-app';
 
 /**
@@ -63,20 +64,8 @@ describe('audit trail for readers (names, links, participant filter)', () => {
     await t.close();
   });
 
-  const entries = async (
-    user: 'monitor' | 'monitorB' | 'admin',
-    query: Record<string, string | number> = {},
-  ) => {
-    const response = await request(t.url)
-      .get('/api/audit')
-      .query(query)
-      .set(await t.authHeader(user));
-    expect(response.status).toBe(200);
-    return response.body as { items: AuditEntryView[]; total: number };
-  };
-
   it('names the participant, visit and actor of a flag entry for a monitor of the study', async () => {
-    const { items } = await entries('monitor', { objectType: 'Flag', action: 'raise' });
+    const { items } = await auditEntries(t, 'monitor', { objectType: 'Flag', action: 'raise' });
     expect(items).toHaveLength(1);
     const [flag] = items;
     flagId = flag.objectId as string;
@@ -95,7 +84,10 @@ describe('audit trail for readers (names, links, participant filter)', () => {
   });
 
   it('names the visit and its participant for a visit entry', async () => {
-    const { items } = await entries('monitor', { objectType: 'Visit', objectId: secondVisitId });
+    const { items } = await auditEntries(t, 'monitor', {
+      objectType: 'Visit',
+      objectId: secondVisitId,
+    });
     expect(items).toHaveLength(1);
     expect(items[0].context).toMatchObject({
       actorName: 'Seeded technician',
@@ -107,7 +99,10 @@ describe('audit trail for readers (names, links, participant filter)', () => {
   });
 
   it("does not name an actor out of the monitor's scope; an admin sees the name", async () => {
-    const monitorView = await entries('monitor', { objectType: 'User', objectId: invitedId });
+    const monitorView = await auditEntries(t, 'monitor', {
+      objectType: 'User',
+      objectId: invitedId,
+    });
     expect(monitorView.items).toHaveLength(1);
     const [invite] = monitorView.items;
     expect(invite.action).toBe('invite');
@@ -115,12 +110,12 @@ describe('audit trail for readers (names, links, participant filter)', () => {
     expect(invite.context?.actorName).toBeNull();
     // The invited user belongs to study A: the monitor may read that name.
     expect(invite.context?.people).toEqual({ [invitedId]: 'Ledger Newcomer' });
-    const adminView = await entries('admin', { objectType: 'User', objectId: invitedId });
+    const adminView = await auditEntries(t, 'admin', { objectType: 'User', objectId: invitedId });
     expect(adminView.items[0].context?.actorName).toBe('Seeded admin');
   });
 
   it('gives an admin no participant code or visit label (admins do not read participants)', async () => {
-    const { items } = await entries('admin', { objectType: 'Flag', objectId: flagId });
+    const { items } = await auditEntries(t, 'admin', { objectType: 'Flag', objectId: flagId });
     expect(items).toHaveLength(1);
     expect(items[0].context).toMatchObject({
       actorName: 'Seeded analyst',
@@ -132,7 +127,7 @@ describe('audit trail for readers (names, links, participant filter)', () => {
   });
 
   it('filters by participant: its visits and the flag on its visit, nothing of another participant', async () => {
-    const { items, total } = await entries('monitor', {
+    const { items, total } = await auditEntries(t, 'monitor', {
       participantId: t.seed.participants.A1.id,
       order: 'asc',
     });
@@ -144,12 +139,12 @@ describe('audit trail for readers (names, links, participant filter)', () => {
     ]);
     expect(items.every((e) => e.context?.participantCode === 'A1-0001')).toBe(true);
 
-    const a2 = await entries('monitor', { participantId: t.seed.participants.A2.id });
+    const a2 = await auditEntries(t, 'monitor', { participantId: t.seed.participants.A2.id });
     expect(a2.total).toBe(1);
     expect(a2.items[0].context?.participantCode).toBe('A2-0001');
 
     // Combined with another filter, the participant filter narrows it.
-    const flagsOnly = await entries('monitor', {
+    const flagsOnly = await auditEntries(t, 'monitor', {
       participantId: t.seed.participants.A1.id,
       objectType: 'Flag',
     });
@@ -157,11 +152,11 @@ describe('audit trail for readers (names, links, participant filter)', () => {
   });
 
   it('a monitor of another study gets nothing about a participant outside it', async () => {
-    const outside = await entries('monitorB', { participantId: t.seed.participants.A1.id });
+    const outside = await auditEntries(t, 'monitorB', { participantId: t.seed.participants.A1.id });
     expect(outside.total).toBe(0);
     expect(outside.items).toEqual([]);
     // Nor does the unfiltered page of study B name anything of study A.
-    const page = await entries('monitorB', { pageSize: 100 });
+    const page = await auditEntries(t, 'monitorB', { pageSize: 100 });
     const named = page.items.flatMap((e) => [
       e.context?.participantCode,
       e.context?.visitLabel,
@@ -172,10 +167,10 @@ describe('audit trail for readers (names, links, participant filter)', () => {
   });
 
   it('resolves a page in a fixed number of reads, however many entries it has', async () => {
-    const { items } = await entries('admin', { pageSize: 100 });
+    const { items } = await auditEntries(t, 'admin', { pageSize: 100 });
     expect(new Set(items.map((e) => e.objectType)).size).toBeGreaterThanOrEqual(3);
     const contexts = t.app.get(AuditContextReads);
-    const reads = t.app.get(SqliteReads);
+    const reads = t.app.get(SqliteReadsService);
     const ability = defineAbilityFor(t.seed.users.monitor);
     const spy = jest.spyOn(reads, 'all');
     try {

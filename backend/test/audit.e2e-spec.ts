@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import request from 'supertest';
 import type { AuditEntryView } from '@gyre/shared';
+import { auditEntries } from './helpers/audit-entries';
 import { startTestApp, TestApp } from './helpers/test-app';
 
 /** hash = SHA-256(prevHash ‖ canonical JSON), recomputed here independently of the server. */
@@ -36,18 +37,6 @@ describe('audit trail', () => {
     await t.close();
   });
 
-  const entries = async (
-    user: 'monitor' | 'monitorB' | 'admin',
-    query: Record<string, string | number> = {},
-  ) => {
-    const response = await request(t.url)
-      .get('/api/audit')
-      .query(query)
-      .set(await t.authHeader(user));
-    expect(response.status).toBe(200);
-    return response.body as { items: AuditEntryView[]; total: number };
-  };
-
   it('a create and an update each write an entry with actor, before, after, reason and address', async () => {
     const technician = await t.authHeader('technician');
     const created = await request(t.url)
@@ -61,7 +50,7 @@ describe('audit trail', () => {
       .send({ code: 'AU-0002', reason: 'transcription error' });
     expect(updated.status).toBe(200);
 
-    const { items } = await entries('monitor', {
+    const { items } = await auditEntries(t, 'monitor', {
       objectId: created.body.id as string,
       order: 'asc',
     });
@@ -82,7 +71,7 @@ describe('audit trail', () => {
   });
 
   it('each hash is SHA-256 of the previous hash and the entry’s canonical JSON (recomputed here)', async () => {
-    const { items } = await entries('admin', { order: 'asc', pageSize: 200 });
+    const { items } = await auditEntries(t, 'admin', { order: 'asc', pageSize: 200 });
     expect(items.length).toBeGreaterThan(3);
     for (let i = 0; i < items.length; i += 1) {
       const entry = items[i];
@@ -101,7 +90,7 @@ describe('audit trail', () => {
       .set(await t.authHeader('admin'))
       .send({ role: 'coordinator', reason: 'moves to coordination' });
     expect(response.status).toBe(200);
-    const { items } = await entries('admin', {
+    const { items } = await auditEntries(t, 'admin', {
       action: 'role-change',
       objectId: t.seed.users.technicianA2.id,
     });
@@ -112,9 +101,9 @@ describe('audit trail', () => {
   });
 
   it('a monitor sees only entries of their own study; an admin sees all', async () => {
-    const forA = await entries('monitor', { pageSize: 200 });
-    const forB = await entries('monitorB', { pageSize: 200 });
-    const all = await entries('admin', { pageSize: 200 });
+    const forA = await auditEntries(t, 'monitor', { pageSize: 200 });
+    const forB = await auditEntries(t, 'monitorB', { pageSize: 200 });
+    const all = await auditEntries(t, 'admin', { pageSize: 200 });
     expect(forA.items.every((e) => e.studyId === t.seed.studies.A.id)).toBe(true);
     expect(forB.items.every((e) => e.studyId === t.seed.studies.B.id)).toBe(true);
     expect(forA.total).toBeGreaterThan(0);
@@ -122,17 +111,17 @@ describe('audit trail', () => {
   });
 
   it('filters by actor, action, object type and time range, and paginates', async () => {
-    const actor = await entries('admin', { actorId: t.seed.users.technician.id });
+    const actor = await auditEntries(t, 'admin', { actorId: t.seed.users.technician.id });
     expect(actor.items.every((e) => e.actorId === t.seed.users.technician.id)).toBe(true);
-    const byType = await entries('admin', { objectType: 'Participant', action: 'create' });
+    const byType = await auditEntries(t, 'admin', { objectType: 'Participant', action: 'create' });
     expect(byType.items.every((e) => e.objectType === 'Participant' && e.action === 'create')).toBe(
       true,
     );
-    const future = await entries('admin', { from: '2999-01-01T00:00:00Z' });
+    const future = await auditEntries(t, 'admin', { from: '2999-01-01T00:00:00Z' });
     expect(future.total).toBe(0);
-    const past = await entries('admin', { to: '2000-01-01T00:00:00Z' });
+    const past = await auditEntries(t, 'admin', { to: '2000-01-01T00:00:00Z' });
     expect(past.total).toBe(0);
-    const page = await entries('admin', { pageSize: 2, page: 1 });
+    const page = await auditEntries(t, 'admin', { pageSize: 2, page: 1 });
     expect(page.items).toHaveLength(2);
     const bad = await request(t.url)
       .get('/api/audit')
@@ -160,7 +149,7 @@ describe('audit trail', () => {
     );
     expect(lines.length).toBeGreaterThan(1);
     expect(lines.slice(1).every((line) => line.split(',')[5] === 'Participant')).toBe(true);
-    const { items } = await entries('monitor', { action: 'export' });
+    const { items } = await auditEntries(t, 'monitor', { action: 'export' });
     expect(items[0].actorId).toBe(t.seed.users.monitor.id);
     expect(items[0].objectType).toBe('AuditEntry');
     expect((items[0].after as { filters: { objectType: string } }).filters.objectType).toBe(

@@ -22,12 +22,14 @@ import {
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
-import type { AuditVerifyResult, RecordingDto, RecordingResultsDto, VisitView } from '@gyre/shared';
+import type { AuditVerifyResult, RecordingView, RecordingResultsView } from '@gyre/shared';
 import { createBackup } from '../src/backup/backup';
 import type { BackupManifest } from '../src/backup/backup-manifest';
 import { restoreBackup, verifyBackup } from '../src/backup/restore';
 import { ComputationsService } from '../src/processing/computations.service';
 import { SEED_PASSWORD } from './helpers/seed';
+import { binaryBody } from './helpers/binary-body';
+import { newVisit } from './helpers/new-visit';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
 
@@ -50,15 +52,7 @@ function tree(root: string, under = ''): Map<string, { sha256: string; mode: num
 }
 
 async function download(url: string, path: string, auth: { Authorization: string }) {
-  const response = await request(url)
-    .get(path)
-    .set(auth)
-    .buffer(true)
-    .parse((res, done) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+  const response = await request(url).get(path).set(auth).buffer(true).parse(binaryBody);
   expect(response.status).toBe(200);
   return response.body as Buffer;
 }
@@ -74,7 +68,7 @@ async function signIn(url: string, email: string): Promise<{ Authorization: stri
 async function recordingsOf(url: string, auth: { Authorization: string }) {
   const response = await request(url).get('/api/recordings').query({ pageSize: 100 }).set(auth);
   expect(response.status).toBe(200);
-  return new Map((response.body.items as RecordingDto[]).map((r) => [r.id, r]));
+  return new Map((response.body.items as RecordingView[]).map((r) => [r.id, r]));
 }
 
 async function verifyOf(url: string, auth: { Authorization: string }) {
@@ -113,15 +107,6 @@ describe('backup and restore', () => {
     rmSync(work, { recursive: true, force: true });
   });
 
-  async function newVisit(label: string): Promise<string> {
-    const response = await request(t.url)
-      .post('/api/visits')
-      .set(await t.authHeader('technician'))
-      .send({ participantId: t.seed.participants.A1.id, label, visitDate: '2026-03-02' });
-    expect(response.status).toBe(201);
-    return (response.body as VisitView).id;
-  }
-
   const restFile = syntheticRestEdf({ durationS: 40, peakHz: 9.5, seed: 11 });
   const restFile2 = syntheticRestEdf({ durationS: 40, peakHz: 10.2, seed: 12 });
   const taskFile = (seed: number) => syntheticTaskEdf({ durationS: 40, seed });
@@ -129,30 +114,30 @@ describe('backup and restore', () => {
   let backupDir: string;
   let manifest: BackupManifest;
   let restoredDir: string;
-  let baseline: RecordingDto[];
+  let baseline: RecordingView[];
 
   it(
     'takes a consistent backup while uploads and computations run; Gyre starts on the restored ' +
       'folder with the same recordings, the same files and an intact audit chain',
     async () => {
       // Recordings computed before the backup: they must come back exactly as they were.
-      const visit = await newVisit('V2');
+      const visit = await newVisit(t, 'V2');
       const rest = await upload(t, 'technician', visit, { kind: 'resting', bytes: restFile });
       const task = await upload(t, 'technician', visit, { kind: 'task', bytes: taskFile(21) });
       expect([rest.status, task.status]).toEqual([201, 201]);
       baseline = [
-        await waitForState(t, 'technician', (rest.body as RecordingDto).id, ['ready'], 240_000),
-        await waitForState(t, 'technician', (task.body as RecordingDto).id, ['ready'], 240_000),
+        await waitForState(t, 'technician', (rest.body as RecordingView).id, ['ready'], 240_000),
+        await waitForState(t, 'technician', (task.body as RecordingView).id, ['ready'], 240_000),
       ];
 
       // More uploads, and the backup taken while they are received and computed. One kind per
       // visit, so no task waits for a rest: two waiting tasks can outrun ComputationsService's
       // single wake-up timer (a queue matter, not the backup's).
       const visits = [
-        await newVisit('V3'),
-        await newVisit('V4'),
-        await newVisit('V5'),
-        await newVisit('V6'),
+        await newVisit(t, 'V3'),
+        await newVisit(t, 'V4'),
+        await newVisit(t, 'V5'),
+        await newVisit(t, 'V6'),
       ];
       const uploads = [
         upload(t, 'technician', visits[0], { kind: 'task', bytes: taskFile(30) }),
@@ -205,7 +190,7 @@ describe('backup and restore', () => {
             .get(`/api/recordings/${recording.id}/results`)
             .set(analystOfT);
           expect(response.status).toBe(200);
-          return response.body as RecordingResultsDto;
+          return response.body as RecordingResultsView;
         }),
       );
       expect(await verifyOf(t.url, await t.authHeader('admin'))).toMatchObject({ intact: true });
@@ -254,7 +239,7 @@ describe('backup and restore', () => {
             .get(`/api/recordings/${recording.id}/results`)
             .set(analyst);
           expect(is.status).toBe(200);
-          expect(is.body as RecordingResultsDto).toEqual(baselineResults[i]);
+          expect(is.body as RecordingResultsView).toEqual(baselineResults[i]);
         }
         // Recordings caught mid-computation are picked up again and finish.
         expect(

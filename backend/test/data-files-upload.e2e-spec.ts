@@ -6,8 +6,10 @@
 import { createHash } from 'node:crypto';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { blankPatientField, blankRecordingField } from '../src/signal/edf';
+import { acceptedUpload } from './helpers/accepted-upload';
+import { countOf } from './helpers/row-count';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { INVENTED_PATIENT_NAME, syntheticTaskEdf, upload } from './recordings-fixtures';
 
@@ -29,13 +31,6 @@ function withRecordingField(field: string): Buffer {
 
 const ORIGINAL = withRecordingField(`Startdate 15-JAN-2026 ${HOSPITAL} ${TECHNICIAN} ${EQUIPMENT}`);
 
-async function countOf(t: TestApp, table: string): Promise<number> {
-  const rows = (await t.dataSource.query(`SELECT count(*) AS n FROM "${table}"`)) as Array<{
-    n: number;
-  }>;
-  return Number(rows[0].n);
-}
-
 describe('UPLOAD_MAX_BYTES is the largest size accepted (common practice: a limit is inclusive)', () => {
   let t: TestApp;
   beforeAll(async () => {
@@ -53,7 +48,7 @@ describe('UPLOAD_MAX_BYTES is the largest size accepted (common practice: a limi
       bytes: ORIGINAL,
     });
     expect(response.status).toBe(201);
-    expect((response.body as RecordingDto).sizeBytes).toBe(ORIGINAL.byteLength);
+    expect((response.body as RecordingView).sizeBytes).toBe(ORIGINAL.byteLength);
   });
 
   it('an onset CSV larger than UPLOAD_MAX_BYTES (but within its own 4 MiB) arrives whole, not cut at that limit', async () => {
@@ -66,7 +61,7 @@ describe('UPLOAD_MAX_BYTES is the largest size accepted (common practice: a limi
       onsetsCsv: csv,
     });
     expect(response.status).toBe(201);
-    expect((response.body as RecordingDto).facts?.csvOnsetCount).toBe(2);
+    expect((response.body as RecordingView).facts?.csvOnsetCount).toBe(2);
   });
 
   it('refuses one byte more with 413 naming the limit, and keeps nothing', async () => {
@@ -92,16 +87,11 @@ describe('UPLOAD_MAX_BYTES is the largest size accepted (common practice: a limi
 
 describe('the stored copy carries no identifying recording field (EDF+, Kemp & Olivan 2003)', () => {
   let t: TestApp;
-  let accepted: RecordingDto;
+  let accepted: RecordingView;
 
   beforeAll(async () => {
     t = await startTestApp();
-    const response = await upload(t, 'technician', t.seed.visits.A1.id, {
-      kind: 'task',
-      bytes: ORIGINAL,
-    });
-    expect(response.status).toBe(201);
-    accepted = response.body as RecordingDto;
+    accepted = await acceptedUpload(t, { kind: 'task', bytes: ORIGINAL });
   });
   afterAll(async () => {
     await t.close();

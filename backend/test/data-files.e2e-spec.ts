@@ -18,10 +18,11 @@ import {
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { waitForMail } from './helpers/mail-catcher';
+import { acceptedUpload } from './helpers/accepted-upload';
 import { startTestApp, TestApp } from './helpers/test-app';
-import { syntheticTaskEdf, upload } from './recordings-fixtures';
+import { syntheticTaskEdf } from './recordings-fixtures';
 
 const modeOf = (path: string): number => statSync(path).mode & 0o777;
 const octal = (mode: number): string => mode.toString(8).padStart(3, '0');
@@ -30,7 +31,7 @@ describe('file and folder modes in DATA_DIR', () => {
   let t: TestApp;
   let dataDir: string;
   let outside: string;
-  let recording: RecordingDto;
+  let recording: RecordingView;
 
   beforeAll(async () => {
     // A data folder as an older Gyre (umask 022) left it: folders 755, files 644.
@@ -59,12 +60,10 @@ describe('file and folder modes in DATA_DIR', () => {
 
     // JWT_SECRET empty: the secret is read from DATA_DIR/secrets/jwt-secret.
     t = await startTestApp({ env: { DATA_DIR: dataDir, JWT_SECRET: '' } });
-    const response = await upload(t, 'technician', t.seed.visits.A1.id, {
+    recording = await acceptedUpload(t, {
       kind: 'task',
       bytes: syntheticTaskEdf({ durationS: 10, channels: ['EEG O1-REF'], onsetsS: [3, 6] }),
     });
-    expect(response.status).toBe(201);
-    recording = response.body as RecordingDto;
     const reset = await request(t.url)
       .post('/api/auth/password-reset')
       .send({ email: t.seed.users.analyst.email });

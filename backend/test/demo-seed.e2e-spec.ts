@@ -11,19 +11,19 @@
 import { statSync, readFileSync } from 'node:fs';
 import request from 'supertest';
 import type {
-  ReportDto,
-  RecordingDto,
-  TrajectoryDto,
-  VisitFlagDto,
-  VisitReviewStateDto,
+  ReportView,
+  RecordingView,
+  TrajectoryView,
+  VisitFlagView,
+  VisitReviewStateView,
   VisitView,
-  WorklistDto,
+  WorklistView,
 } from '@gyre/shared';
 import { buildDemoScenario } from '../../seed/src/scenario/demo-scenario';
 import { DemoSeedResult, seedDemo } from '../../seed/src/seeder/demo-seeder';
-import { Accounts } from '../src/accounts/accounts.service';
+import { AccountsService } from '../src/accounts/accounts.service';
 import { AuditService } from '../src/audit/audit.service';
-import { PasswordHasher } from '../src/auth/password-hasher.service';
+import { PasswordHasherService } from '../src/auth/password-hasher.service';
 import { DemoSeedService } from '../src/demo/demo-seed.service';
 import { waitForMail } from './helpers/mail-catcher';
 import { startTestApp, TestApp } from './helpers/test-app';
@@ -52,8 +52,8 @@ beforeAll(async () => {
   const demo = new DemoSeedService(
     t.dataSource,
     t.app.get(AuditService),
-    new PasswordHasher(t.config),
-    t.app.get(Accounts),
+    new PasswordHasherService(t.config),
+    t.app.get(AccountsService),
   );
   seeded = await seedDemo({
     baseUrl: t.url,
@@ -84,7 +84,7 @@ describe('demo seed (small version, generated data)', () => {
         .get(`/api/participants/${participant.participantId}/trajectory`)
         .set('Authorization', `Bearer ${analyst}`);
       expect(response.status).toBe(200);
-      const trajectory = response.body as TrajectoryDto;
+      const trajectory = response.body as TrajectoryView;
       expect(trajectory.visits).toHaveLength(participant.visits.length);
       for (const visit of participant.visits) {
         const measured = trajectory.visits.find((v) => v.visitId === visit.visitId);
@@ -148,7 +148,7 @@ describe('demo seed (small version, generated data)', () => {
       .get(`/api/recordings/${seeded.rejectedRecordingId}`)
       .set('Authorization', `Bearer ${technician}`);
     expect(response.status).toBe(200);
-    const recording = response.body as RecordingDto;
+    const recording = response.body as RecordingView;
     expect(recording.state).toBe('rejected');
     expect(recording.kind).toBe('task');
     expect(recording.rejection?.message ?? '').not.toBe('');
@@ -164,7 +164,7 @@ describe('demo seed (small version, generated data)', () => {
       .get(`/api/visits/${seeded.flaggedVisitId}/flag`)
       .set('Authorization', `Bearer ${monitor}`);
     expect(response.status).toBe(200);
-    const flag = response.body as VisitFlagDto;
+    const flag = response.body as VisitFlagView;
     expect(flag.current?.state).toBe('raised');
     expect(flag.current?.raiseReason).toBe(buildDemoScenario('small').flag.reason);
   });
@@ -180,7 +180,7 @@ describe('demo seed (small version, generated data)', () => {
         .get(`/api/visits/${visitId}/review`)
         .set('Authorization', `Bearer ${analyst}`);
       expect(response.status).toBe(200);
-      const state = response.body as VisitReviewStateDto;
+      const state = response.body as VisitReviewStateView;
       expect(state.latest?.reviewedByName).toBe('Demo analyst');
       // The replaced visit's review named the first take's run; the others still hold.
       expect({ visitId, reviewed: state.reviewed, changed: state.changedSinceReview }).toEqual(
@@ -193,7 +193,7 @@ describe('demo seed (small version, generated data)', () => {
       .get('/api/worklist?limit=50')
       .set('Authorization', `Bearer ${analyst}`);
     expect(response.status).toBe(200);
-    const unreviewed = (response.body as WorklistDto).sections.find((s) => s.key === 'unreviewed');
+    const unreviewed = (response.body as WorklistView).sections.find((s) => s.key === 'unreviewed');
     const allVisits = seeded.participants.flatMap((p) => p.visits.map((v) => v.visitId));
     const expected = allVisits.filter(
       (id) => id === replaced || !seeded.reviewedVisitIds.includes(id),
@@ -220,7 +220,7 @@ describe('demo seed (small version, generated data)', () => {
         .get('/api/reports')
         .set('Authorization', `Bearer ${coordinator}`);
       expect(response.status).toBe(200);
-      const reports = (response.body as { items: ReportDto[] }).items;
+      const reports = (response.body as { items: ReportView[] }).items;
       expect(reports).toHaveLength(1);
       expect(['signed', 'sent']).toContain(reports[0].state);
       expect(seeded.signedVisitIds).toContain(reports[0].visitId);
@@ -244,7 +244,7 @@ describe('demo seed (small version, generated data)', () => {
     const response = await request(t.url)
       .get('/api/recordings?pageSize=200')
       .set('Authorization', `Bearer ${analyst}`);
-    const recordings = (response.body as { items: RecordingDto[] }).items;
+    const recordings = (response.body as { items: RecordingView[] }).items;
     expect(recordings).toHaveLength(20);
     for (const participant of seeded.participants) {
       const expected = technicianIds.get(participant.truth.siteKey);
@@ -280,8 +280,8 @@ describe('demo seed (small version, generated data)', () => {
     const demo = new DemoSeedService(
       t.dataSource,
       t.app.get(AuditService),
-      new PasswordHasher(t.config),
-      t.app.get(Accounts),
+      new PasswordHasherService(t.config),
+      t.app.get(AccountsService),
     );
     const again = await seedDemo({
       baseUrl: t.url,

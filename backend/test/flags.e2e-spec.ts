@@ -4,7 +4,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
-import type { RecordingDto, ReportDto, TrajectoryDto, VisitFlagDto } from '@gyre/shared';
+import type { RecordingView, ReportView, TrajectoryView, VisitFlagView } from '@gyre/shared';
 import { Visit } from '../src/visits/visit.entity';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
@@ -24,8 +24,8 @@ describe('flags, reports and trajectory', () => {
       bytes: syntheticTaskEdf({ durationS: 60, seed }),
     });
     expect([rest.status, task.status]).toEqual([201, 201]);
-    await waitForState(t, 'technician', (rest.body as RecordingDto).id, ['ready']);
-    await waitForState(t, 'technician', (task.body as RecordingDto).id, ['ready']);
+    await waitForState(t, 'technician', (rest.body as RecordingView).id, ['ready']);
+    await waitForState(t, 'technician', (task.body as RecordingView).id, ['ready']);
   }
 
   beforeAll(async () => {
@@ -55,7 +55,7 @@ describe('flags, reports and trajectory', () => {
       .get(`/api/visits/${visit1}/flag`)
       .set(await t.authHeader('analyst'));
     expect(response.status).toBe(200);
-    const status = response.body as VisitFlagDto;
+    const status = response.body as VisitFlagView;
     expect(status.current).toBeNull();
     expect(status.history).toEqual([]);
     // Generated −0.6 Hz dip, below the default −0.2 Hz threshold (docs/method.md §3).
@@ -83,7 +83,7 @@ describe('flags, reports and trajectory', () => {
       .set(analyst)
       .send({ reason: 'Consistent slowing on O1, O2 and Pz' });
     expect(raised.status).toBe(201);
-    expect((raised.body as VisitFlagDto).current).toMatchObject({
+    expect((raised.body as VisitFlagView).current).toMatchObject({
       state: 'raised',
       raiseReason: 'Consistent slowing on O1, O2 and Pz',
     });
@@ -97,14 +97,14 @@ describe('flags, reports and trajectory', () => {
     const trajectory = await request(t.url)
       .get(`/api/participants/${t.seed.participants.A1.id}/trajectory`)
       .set(analyst);
-    expect((trajectory.body as TrajectoryDto).visits.map((v) => v.flagged)).toEqual([true, false]);
+    expect((trajectory.body as TrajectoryView).visits.map((v) => v.flagged)).toEqual([true, false]);
 
     const cleared = await request(t.url)
       .post(`/api/visits/${visit1}/flag/clear`)
       .set(analyst)
       .send({ reason: 'Artefact on review of the raw trace' });
     expect(cleared.status).toBe(201);
-    const after = cleared.body as VisitFlagDto;
+    const after = cleared.body as VisitFlagView;
     expect(after.current).toBeNull();
     expect(after.history[0]).toMatchObject({
       state: 'cleared',
@@ -150,7 +150,7 @@ describe('flags, reports and trajectory', () => {
     const analyst = await t.authHeader('analyst');
     const report = await request(t.url).get(`/api/visits/${visit1}/report`).set(analyst);
     expect(report.status).toBe(200);
-    expect((report.body as ReportDto).state).toBe('draft');
+    expect((report.body as ReportView).state).toBe('draft');
     const list = await request(t.url).get('/api/reports').query({ state: 'draft' }).set(analyst);
     expect(list.body.total).toBe(2);
     const coordinator = await request(t.url)
@@ -168,7 +168,7 @@ describe('flags, reports and trajectory', () => {
       .get(`/api/participants/${t.seed.participants.A1.id}/trajectory`)
       .set(await t.authHeader('monitor'));
     expect(response.status).toBe(200);
-    const trajectory = response.body as TrajectoryDto;
+    const trajectory = response.body as TrajectoryView;
     expect(trajectory.visits.map((v) => [v.label, v.date])).toEqual([
       ['V1', '2026-01-15'],
       ['V2', '2026-07-16'],
@@ -201,7 +201,7 @@ describe('flags, reports and trajectory', () => {
       await request(t.url)
         .get(`/api/participants/${t.seed.participants.A1.id}/trajectory`)
         .set(await t.authHeader('monitor'))
-    ).body as TrajectoryDto;
+    ).body as TrajectoryView;
     await request(t.url)
       .patch(`/api/studies/${studyId}`)
       .set(admin)

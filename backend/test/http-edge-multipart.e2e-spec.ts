@@ -7,9 +7,10 @@
 import { existsSync, readdirSync } from 'node:fs';
 import { request as httpRequest } from 'node:http';
 import { join } from 'node:path';
+import { countOf } from './helpers/row-count';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { syntheticTaskEdf } from './recordings-fixtures';
-import { seededUniform } from '../src/signal/onset/random';
+import { seededUniform } from '../src/signal/random/random';
 
 interface RawResponse {
   status: number;
@@ -100,12 +101,7 @@ describe('malformed multipart uploads (RFC 7578)', () => {
     await t.close();
   });
 
-  const count = async (table: string): Promise<number> =>
-    Number(
-      (
-        (await t.dataSource.query(`SELECT count(*) AS n FROM "${table}"`)) as Array<{ n: number }>
-      )[0].n,
-    );
+  const count = (table: string): Promise<number> => countOf(t, table);
 
   /** Sends the body and checks the 400 and that nothing at all was kept. */
   async function expectRefused(

@@ -7,6 +7,7 @@ import { join } from 'node:path';
 import request from 'supertest';
 import { MAX_BODY_DEPTH } from '../src/common/http/json-depth';
 import { MAX_PAGE } from '../src/common/pagination/page-query.dto';
+import { countOf } from './helpers/row-count';
 import { startTestApp, TestApp } from './helpers/test-app';
 
 /** `levels` arrays nested in one another around a number: `[[…[1]…]]`. */
@@ -21,12 +22,7 @@ describe('HTTP edge', () => {
     await t.close();
   });
 
-  const count = async (table: string): Promise<number> =>
-    Number(
-      (
-        (await t.dataSource.query(`SELECT count(*) AS n FROM "${table}"`)) as Array<{ n: number }>
-      )[0].n,
-    );
+  const count = (table: string): Promise<number> => countOf(t, table);
 
   describe(`JSON nesting deeper than ${MAX_BODY_DEPTH} levels (common practice: bound recursion on untrusted input)`, () => {
     it('POST /api/auth/sign-in with a 39 KB body of nested arrays answers 400 naming the depth, and writes nothing', async () => {

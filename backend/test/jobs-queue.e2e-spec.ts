@@ -7,14 +7,15 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import request from 'supertest';
-import type { AnalysisRunDto, JobDto, RecordingDto } from '@gyre/shared';
+import type { AnalysisRunView, JobView, RecordingView } from '@gyre/shared';
+import { currentSettings } from './helpers/analysis-settings';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
 
 describe('job queue', () => {
   let t: TestApp;
-  let broken: RecordingDto;
-  let healthy: RecordingDto;
+  let broken: RecordingView;
+  let healthy: RecordingView;
 
   beforeAll(async () => {
     t = await startTestApp();
@@ -27,8 +28,8 @@ describe('job queue', () => {
       bytes: syntheticTaskEdf({ durationS: 30, seed: 32 }),
     });
     expect([a.status, b.status]).toEqual([201, 201]);
-    broken = await waitForState(t, 'technician', (a.body as RecordingDto).id, ['ready']);
-    healthy = await waitForState(t, 'technicianA2', (b.body as RecordingDto).id, ['ready']);
+    broken = await waitForState(t, 'technician', (a.body as RecordingView).id, ['ready']);
+    healthy = await waitForState(t, 'technicianA2', (b.body as RecordingView).id, ['ready']);
   });
   afterAll(async () => {
     await t.close();
@@ -112,23 +113,11 @@ describe('job queue', () => {
       bytes: syntheticRestEdf({ durationS: 60, peakHz: 9.5 }),
     });
     expect(rest.status).toBe(201);
-    await waitForState(t, 'technician', (rest.body as RecordingDto).id, ['ready']);
+    await waitForState(t, 'technician', (rest.body as RecordingView).id, ['ready']);
     // The task follows the new resting IAF by itself; wait for that before re-running.
     await t.computationsIdle();
     const analyst = await t.authHeader('analyst');
-    const current = await request(t.url)
-      .get(`/api/studies/${t.seed.studies.A.id}/analysis-settings`)
-      .set(analyst);
-    const {
-      id: _id,
-      studyId: _s,
-      version: _v,
-      createdById: _c,
-      createdAt: _a,
-      reason: _r,
-      changes: _d,
-      ...values
-    } = current.body;
+    const { values } = await currentSettings(t, t.seed.studies.A.id);
     const changed = await request(t.url)
       .post(`/api/studies/${t.seed.studies.A.id}/analysis-settings`)
       .set(analyst)
@@ -145,16 +134,16 @@ describe('job queue', () => {
       .set(analyst)
       .send({ reason: 'settings v2' });
     expect(rerun.status).toBe(201);
-    const jobs = rerun.body as JobDto[];
+    const jobs = rerun.body as JobView[];
     expect(jobs.map((j) => j.trigger)).toEqual(['rerun', 'rerun']);
     for (const job of jobs) await waitForState(t, 'analyst', job.recordingId, ['ready']);
 
     const taskRuns = await request(t.url).get(`/api/recordings/${broken.id}/runs`).set(analyst);
-    const latestTask = (taskRuns.body.items as AnalysisRunDto[])[0];
+    const latestTask = (taskRuns.body.items as AnalysisRunView[])[0];
     const restRuns = await request(t.url)
-      .get(`/api/recordings/${(rest.body as RecordingDto).id}/runs`)
+      .get(`/api/recordings/${(rest.body as RecordingView).id}/runs`)
       .set(analyst);
-    const latestRest = (restRuns.body.items as AnalysisRunDto[])[0];
+    const latestRest = (restRuns.body.items as AnalysisRunView[])[0];
     expect(latestRest.settingsVersion).toBe(2);
     // Generated truth: the resting alpha peak is at 9.5 Hz.
     expect(latestRest.pafHz).toBeCloseTo(9.5, 0);

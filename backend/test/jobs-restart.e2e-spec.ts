@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import request from 'supertest';
 import { DataSource } from 'typeorm';
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { sqliteOptions } from '../src/database/database-options';
 import { Seed, SEED_PASSWORD, seedDatabase } from './helpers/seed';
 import { INVENTED_PATIENT_NAME, syntheticTaskEdf } from './recordings-fixtures';
@@ -127,13 +127,13 @@ describe('a server killed mid-job', () => {
       .field('kind', 'task')
       .attach('file', Buffer.from(bytes), 'long.edf');
     expect(uploaded.status).toBe(201);
-    const id = (uploaded.body as RecordingDto).id;
+    const id = (uploaded.body as RecordingView).id;
 
-    let seen: RecordingDto | null = null;
+    let seen: RecordingView | null = null;
     const until = Date.now() + 30_000;
     while (Date.now() < until) {
       seen = (await request(server.url).get(`/api/recordings/${id}`).set(auth))
-        .body as RecordingDto;
+        .body as RecordingView;
       if (seen.state !== 'queued') break;
       await sleep(50);
     }
@@ -153,11 +153,11 @@ describe('a server killed mid-job', () => {
     expect(await dataSource.query(`SELECT count(*) AS n FROM "analysis_run"`)).toEqual([{ n: 0 }]);
 
     server = await startServer(dataDir, log);
-    let done: RecordingDto | null = null;
+    let done: RecordingView | null = null;
     const deadline = Date.now() + 120_000;
     while (Date.now() < deadline) {
       done = (await request(server.url).get(`/api/recordings/${id}`).set(auth))
-        .body as RecordingDto;
+        .body as RecordingView;
       if (done.state === 'ready' || done.state === 'failed') break;
       await sleep(250);
     }

@@ -4,35 +4,23 @@
  * held two current resting recordings keeps the newest, and the foreign keys hold.
  */
 import { randomUUID } from 'node:crypto';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { DataSource } from 'typeorm';
-import { sqliteOptions } from '../src/database/database-options';
-import { MIGRATIONS } from '../src/database/migrations';
+import type { DataSource } from 'typeorm';
 import { RecordingPipeline1764700000000 } from '../src/database/migrations/1764700000000-recording-pipeline';
 import { parseStoredSettings } from '../src/analysis/settings-values';
 import { DEFAULT_ANALYSIS_SETTINGS } from '../src/signal/pipeline/analysis-settings';
+import { MigrationDatabase } from './helpers/migration-database';
 import { seedDatabase } from './helpers/seed';
 
 describe('migration RecordingPipeline1764700000000', () => {
-  let folder: string;
+  let db: MigrationDatabase;
   let dataSource: DataSource;
 
   beforeAll(async () => {
-    folder = mkdtempSync(join(tmpdir(), 'gyre-migration-'));
-    const before = MIGRATIONS.indexOf(RecordingPipeline1764700000000);
-    dataSource = new DataSource({
-      ...sqliteOptions(join(folder, 'gyre.sqlite')),
-      migrations: MIGRATIONS.slice(0, before),
-      migrationsRun: false,
-    });
-    await dataSource.initialize();
-    await dataSource.runMigrations({ transaction: 'each' });
+    db = await MigrationDatabase.before(RecordingPipeline1764700000000);
+    dataSource = db.dataSource;
   });
   afterAll(async () => {
-    await dataSource.destroy();
-    rmSync(folder, { recursive: true, force: true });
+    await db.close();
   });
 
   it('carries the old rows over and supersedes the older of two current resting recordings', async () => {
@@ -78,11 +66,7 @@ describe('migration RecordingPipeline1764700000000', () => {
       [runId, task, visit.id, visit.participantId, visit.studyId, visit.siteId, jobId, settingsId],
     );
 
-    dataSource.setOptions({ migrations: MIGRATIONS });
-    await dataSource.destroy();
-    await dataSource.initialize();
-    expect(await dataSource.showMigrations()).toBe(true);
-    await dataSource.runMigrations({ transaction: 'each' });
+    expect(await db.migrate()).toBe(true);
 
     const rows = (await q(
       `SELECT "id", "state", "supersededById", "latestRunId" FROM "recording" ORDER BY "createdAt"`,

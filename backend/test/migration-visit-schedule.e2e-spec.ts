@@ -4,35 +4,23 @@
  * defaults, the constraints hold, and the migration can be undone.
  */
 import { randomUUID } from 'node:crypto';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { DataSource } from 'typeorm';
-import { sqliteOptions } from '../src/database/database-options';
-import { MIGRATIONS } from '../src/database/migrations';
+import type { DataSource } from 'typeorm';
 import { VisitScheduleAndGroups1764700300000 } from '../src/database/migrations/1764700300000-visit-schedule-and-groups';
+import { MigrationDatabase } from './helpers/migration-database';
 import { seedDatabase } from './helpers/seed';
 
 describe('migration VisitScheduleAndGroups1764700300000', () => {
-  let folder: string;
+  let db: MigrationDatabase;
   let dataSource: DataSource;
-  const index = MIGRATIONS.indexOf(VisitScheduleAndGroups1764700300000);
-  const q = (sql: string, params: unknown[] = []): Promise<unknown> =>
-    dataSource.query(sql, params);
+  let index: number;
+  const q = (sql: string, params: unknown[] = []): Promise<unknown> => db.query(sql, params);
 
   beforeAll(async () => {
-    folder = mkdtempSync(join(tmpdir(), 'gyre-migration-'));
-    dataSource = new DataSource({
-      ...sqliteOptions(join(folder, 'gyre.sqlite')),
-      migrations: MIGRATIONS.slice(0, index),
-      migrationsRun: false,
-    });
-    await dataSource.initialize();
-    await dataSource.runMigrations({ transaction: 'each' });
+    db = await MigrationDatabase.before(VisitScheduleAndGroups1764700300000);
+    ({ dataSource, index } = db);
   });
   afterAll(async () => {
-    await dataSource.destroy();
-    rmSync(folder, { recursive: true, force: true });
+    await db.close();
   });
 
   it('keeps the old rows, adds empty columns and defaults, and holds its constraints', async () => {
@@ -40,11 +28,7 @@ describe('migration VisitScheduleAndGroups1764700300000', () => {
     const seed = await seedDatabase(dataSource);
     const before = await q(`SELECT * FROM "visit" ORDER BY "id"`);
 
-    dataSource.setOptions({ migrations: MIGRATIONS.slice(0, index + 1) });
-    await dataSource.destroy();
-    await dataSource.initialize();
-    expect(await dataSource.showMigrations()).toBe(true);
-    await dataSource.runMigrations({ transaction: 'each' });
+    expect(await db.migrate(index + 1)).toBe(true);
 
     expect(
       await q(`SELECT "code", "trendMinVisits", "trendMinSpanDays" FROM "study" ORDER BY "code"`),

@@ -1,4 +1,5 @@
 import request from 'supertest';
+import generated from '../src/openapi/shared-schemas.generated.json';
 import { startTestApp, TestApp } from './helpers/test-app';
 
 interface MediaType {
@@ -9,6 +10,7 @@ interface ResponseObject {
   content?: Record<string, MediaType>;
 }
 interface Operation {
+  requestBody?: unknown;
   responses: Record<string, ResponseObject>;
 }
 interface OpenApiDocument {
@@ -80,6 +82,41 @@ describe('the OpenAPI description types every success body', () => {
     expect(untyped).toEqual([]);
   });
 
+  it('types every JSON success body with the generated shared API types, never a class of its own', () => {
+    const bodies = Object.values(document.paths).flatMap((item) =>
+      Object.entries(item)
+        .filter(([method]) => METHODS.has(method))
+        .flatMap(([, operation]) =>
+          Object.entries(operation.responses)
+            .filter(([status]) => /^2\d\d$/.test(status))
+            .map(([, response]) => response.content?.['application/json']?.schema)
+            .filter((schema) => schema !== undefined),
+        ),
+    );
+    expect(bodies.length).toBeGreaterThan(50);
+    const names = [...referencesIn(bodies, new Set<string>())].map((reference) =>
+      reference.replace('#/components/schemas/', ''),
+    );
+    const generatedNames = new Set(Object.keys(generated.schemas));
+    expect(names.filter((name) => !generatedNames.has(name))).toEqual([]);
+    // Every other schema of the document is a request body's class or one it nests.
+    const requestBodies = Object.values(document.paths).flatMap((item) =>
+      Object.values(item).map((operation) => operation.requestBody),
+    );
+    const reached = new Set<string>();
+    let pending = [...referencesIn(requestBodies, new Set<string>())];
+    while (pending.length > 0) {
+      const name = pending.pop()!.replace('#/components/schemas/', '');
+      if (reached.has(name)) continue;
+      reached.add(name);
+      pending = [...pending, ...referencesIn(document.components.schemas[name], new Set())];
+    }
+    const strays = Object.keys(document.components.schemas).filter(
+      (name) => !generatedNames.has(name) && !reached.has(name),
+    );
+    expect(strays).toEqual([]);
+  });
+
   it('resolves every $ref to a schema of the document', () => {
     const references = [...referencesIn(document, new Set<string>())];
     expect(references.length).toBeGreaterThan(50);
@@ -93,7 +130,7 @@ describe('the OpenAPI description types every success body', () => {
   });
 
   it('documents shared API types with their fields, e.g. the results of a recording', () => {
-    const results = document.components.schemas.RecordingResultsDto as {
+    const results = document.components.schemas.RecordingResultsView as {
       properties: Record<string, unknown>;
     };
     expect(Object.keys(results.properties)).toEqual(

@@ -9,7 +9,7 @@
 import { createHash, randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type { Page, ParticipantListItem } from '@gyre/shared';
-import { SqliteReads } from '../src/common/database/sqlite-reads.service';
+import { SqliteReadsService } from '../src/common/database/sqlite-reads.service';
 import type { UserKey } from './helpers/seed';
 import { startTestApp, TestApp } from './helpers/test-app';
 
@@ -254,7 +254,7 @@ describe('participants list', () => {
   });
 
   it('reads a fixed number of statements per page, whatever its size (never one per row)', async () => {
-    const reads = t.app.get(SqliteReads);
+    const reads = t.app.get(SqliteReadsService);
     const all = jest.spyOn(reads, 'all');
     const one = jest.spyOn(reads, 'one');
     const statementsFor = async (pageSize: string) => {

@@ -4,14 +4,14 @@
  * Every recording is generated (recordings-fixtures.ts).
  */
 import request from 'supertest';
-import type { Page, RecordingDto } from '@gyre/shared';
+import type { Page, RecordingView } from '@gyre/shared';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { INVENTED_PATIENT_NAME, syntheticRestEdf, upload } from './recordings-fixtures';
 
 describe('recording file names', () => {
   let t: TestApp;
-  let accepted: RecordingDto;
-  let rejected: RecordingDto;
+  let accepted: RecordingView;
+  let rejected: RecordingView;
 
   beforeAll(async () => {
     t = await startTestApp();
@@ -22,7 +22,7 @@ describe('recording file names', () => {
       fileName: 'C:\\exports\\A1-0001 V1 rest.edf',
     });
     expect(good.status).toBe(201);
-    accepted = good.body as RecordingDto;
+    accepted = good.body as RecordingView;
     const whole = syntheticRestEdf({ durationS: 20, seed: 72 });
     // EDF spec (Kemp et al. 1992): header bytes + records × record size = file size; cut short.
     // As a task: the visit's resting slot is taken; the reader refuses the file before any kind check.
@@ -32,7 +32,7 @@ describe('recording file names', () => {
       fileName: 'rest-cut.edf',
     });
     expect(bad.status).toBe(422);
-    rejected = (bad.body as { details: { recording: RecordingDto } }).details.recording;
+    rejected = (bad.body as { details: { recording: RecordingView } }).details.recording;
   });
   afterAll(async () => {
     await t.close();
@@ -47,7 +47,7 @@ describe('recording file names', () => {
       .query({ visitId: t.seed.visits.A1.id })
       .set(await t.authHeader('technician'));
     expect(listed.status).toBe(200);
-    const names = (listed.body as Page<RecordingDto>).items.map((r) => r.fileName).sort();
+    const names = (listed.body as Page<RecordingView>).items.map((r) => r.fileName).sort();
     expect(names).toEqual(['A1-0001 V1 rest.edf', 'rest-cut.edf']);
     // The EDF header's patient field is blanked on the way in and never shown.
     expect(JSON.stringify(listed.body)).not.toContain(INVENTED_PATIENT_NAME);
@@ -64,7 +64,7 @@ describe('recording file names', () => {
         .query({ visitId: t.seed.visits.A1.id })
         .set(await t.authHeader(outsider));
       expect(list.status).toBe(200);
-      expect((list.body as Page<RecordingDto>).items).toEqual([]);
+      expect((list.body as Page<RecordingView>).items).toEqual([]);
     }
     const analyst = await request(t.url)
       .get(`/api/recordings/${accepted.id}`)

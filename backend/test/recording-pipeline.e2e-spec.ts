@@ -7,17 +7,19 @@
  */
 import request from 'supertest';
 import type {
-  AnalysisRunDto,
+  AnalysisRunView,
   AuditEntryView,
-  JobDto,
-  RecordingDto,
-  RecordingResultsDto,
-  VisitView,
+  JobView,
+  RecordingView,
+  RecordingResultsView,
 } from '@gyre/shared';
-import { WriteTransactions } from '../src/common/database/write-transactions.service';
+import { WriteTransactionsService } from '../src/common/database/write-transactions.service';
 import { GyreException } from '../src/common/errors/gyre.exception';
 import { Recording } from '../src/recordings/recording.entity';
 import { RECORDING_TRANSITIONS, RecordingLifecycle } from '../src/recordings/recording-lifecycle';
+import { currentSettings } from './helpers/analysis-settings';
+import { binaryBody } from './helpers/binary-body';
+import { newVisit } from './helpers/new-visit';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
 
@@ -42,35 +44,26 @@ describe('recording pipeline', () => {
     await t.close();
   });
 
-  async function newVisit(label: string): Promise<string> {
-    const response = await request(t.url)
-      .post('/api/visits')
-      .set(await t.authHeader('technician'))
-      .send({ participantId: t.seed.participants.A1.id, label, visitDate: '2026-03-02' });
-    expect(response.status).toBe(201);
-    return (response.body as VisitView).id;
-  }
-
   async function accepted(visitId: string, kind: 'resting' | 'task', bytes: Uint8Array) {
     const response = await upload(t, 'technician', visitId, { kind, bytes });
     expect(response.status).toBe(201);
-    return response.body as RecordingDto;
+    return response.body as RecordingView;
   }
 
-  async function results(recordingId: string): Promise<RecordingResultsDto> {
+  async function results(recordingId: string): Promise<RecordingResultsView> {
     const response = await request(t.url)
       .get(`/api/recordings/${recordingId}/results`)
       .set(await t.authHeader('analyst'));
     expect(response.status).toBe(200);
-    return response.body as RecordingResultsDto;
+    return response.body as RecordingResultsView;
   }
 
-  async function runsOf(recordingId: string): Promise<AnalysisRunDto[]> {
+  async function runsOf(recordingId: string): Promise<AnalysisRunView[]> {
     const response = await request(t.url)
       .get(`/api/recordings/${recordingId}/runs`)
       .set(await t.authHeader('analyst'));
     expect(response.status).toBe(200);
-    return response.body.items as AnalysisRunDto[];
+    return response.body.items as AnalysisRunView[];
   }
 
   async function auditOf(objectId: string): Promise<AuditEntryView[]> {
@@ -83,11 +76,11 @@ describe('recording pipeline', () => {
   }
 
   describe('upload order', () => {
-    let restFirst: { rest: RecordingDto; task: RecordingDto };
-    let taskFirst: { rest: RecordingDto; task: RecordingDto };
+    let restFirst: { rest: RecordingView; task: RecordingView };
+    let taskFirst: { rest: RecordingView; task: RecordingView };
 
     beforeAll(async () => {
-      const v2 = await newVisit('V2');
+      const v2 = await newVisit(t, 'V2');
       const rest2 = await accepted(v2, 'resting', restFile);
       const task2 = await accepted(v2, 'task', taskFile);
       await t.computationsIdle();
@@ -96,7 +89,7 @@ describe('recording pipeline', () => {
         task: await waitForState(t, 'technician', task2.id, ['ready']),
       };
 
-      const v3 = await newVisit('V3');
+      const v3 = await newVisit(t, 'V3');
       const task3 = await accepted(v3, 'task', taskFile);
       await waitForState(t, 'technician', task3.id, ['ready']);
       const rest3 = await accepted(v3, 'resting', restFile);
@@ -139,7 +132,7 @@ describe('recording pipeline', () => {
     });
 
     it('says on the trajectory when a task band could not follow a resting IAF', async () => {
-      const lone = await newVisit('V3b');
+      const lone = await newVisit(t, 'V3b');
       const task = await accepted(lone, 'task', syntheticTaskEdf({ durationS: 30, seed: 42 }));
       await waitForState(t, 'technician', task.id, ['ready']);
       const response = await request(t.url)
@@ -156,16 +149,16 @@ describe('recording pipeline', () => {
 
   describe('kind and replacement', () => {
     let visitId: string;
-    let rest: RecordingDto;
+    let rest: RecordingView;
 
     beforeAll(async () => {
-      visitId = await newVisit('V4');
+      visitId = await newVisit(t, 'V4');
       rest = await accepted(visitId, 'resting', restFile);
       await waitForState(t, 'technician', rest.id, ['ready']);
     }, 120_000);
 
     it('refuses a file with stimulus annotations uploaded as resting, naming what it found', async () => {
-      const other = await newVisit('V5');
+      const other = await newVisit(t, 'V5');
       const response = await upload(t, 'technician', other, { kind: 'resting', bytes: taskFile });
       expect(response.status).toBe(422);
       expect(response.body.code).toBe('RECORDING_KIND_UNCONFIRMED');
@@ -180,13 +173,13 @@ describe('recording pipeline', () => {
         confirmKind: true,
       });
       expect(confirmed.status).toBe(201);
-      const dto = confirmed.body as RecordingDto;
+      const dto = confirmed.body as RecordingView;
       expect(dto.kindConfirmed).toBe(true);
       expect(dto.warnings.join(' ')).toMatch(/confirmed the kind/);
     });
 
     it('refuses a task file without any onset unless the kind is confirmed', async () => {
-      const other = await newVisit('V6');
+      const other = await newVisit(t, 'V6');
       const bare = syntheticTaskEdf({ durationS: 30, annotate: false, seed: 44 });
       const response = await upload(t, 'technician', other, { kind: 'task', bytes: bare });
       expect(response.status).toBe(422);
@@ -227,7 +220,7 @@ describe('recording pipeline', () => {
         replaces: { recordingId: rest.id, reason: 'electrode gel dried during the first run' },
       });
       expect(replaced.status).toBe(201);
-      const next = replaced.body as RecordingDto;
+      const next = replaced.body as RecordingView;
       expect(next.replacesId).toBe(rest.id);
       await waitForState(t, 'technician', next.id, ['ready']);
 
@@ -240,11 +233,7 @@ describe('recording pipeline', () => {
         .get(`/api/recordings/${rest.id}/file`)
         .set(await t.authHeader('analyst'))
         .buffer(true)
-        .parse((res, done) => {
-          const chunks: Buffer[] = [];
-          res.on('data', (c: Buffer) => chunks.push(c));
-          res.on('end', () => done(null, Buffer.concat(chunks)));
-        });
+        .parse(binaryBody);
       expect(file.status).toBe(200);
       expect((file.body as Buffer).length).toBe(rest.sizeBytes);
 
@@ -260,7 +249,7 @@ describe('recording pipeline', () => {
   });
 
   it('keeps every region-of-interest channel of a file whose physical range hugs its data', async () => {
-    const visitId = await newVisit('V7');
+    const visitId = await newVisit(t, 'V7');
     const hugging = syntheticTaskEdf({ durationS: 60, seed: 47, physicalRange: 'hug' });
     const task = await accepted(visitId, 'task', hugging);
     const ready = await waitForState(t, 'technician', task.id, ['ready']);
@@ -279,19 +268,7 @@ describe('recording pipeline', () => {
   it('refuses a settings version with unchanged values and re-runs without a new run or revision', async () => {
     const analyst = await t.authHeader('analyst');
     const studyId = t.seed.studies.A.id;
-    const current = await request(t.url)
-      .get(`/api/studies/${studyId}/analysis-settings`)
-      .set(analyst);
-    const {
-      id: _i,
-      studyId: _s,
-      version,
-      createdById: _c,
-      createdAt: _a,
-      reason: _r,
-      changes: _d,
-      ...values
-    } = current.body;
+    const { version, values } = await currentSettings(t, studyId);
     const same = await request(t.url)
       .post(`/api/studies/${studyId}/analysis-settings`)
       .set(analyst)
@@ -303,7 +280,7 @@ describe('recording pipeline', () => {
       .set(analyst);
     expect(after.body.version).toBe(version);
 
-    const visitId = await newVisit('V8');
+    const visitId = await newVisit(t, 'V8');
     const task = await accepted(visitId, 'task', syntheticTaskEdf({ durationS: 30, seed: 48 }));
     await waitForState(t, 'technician', task.id, ['ready']);
     const state = async () =>
@@ -317,7 +294,7 @@ describe('recording pipeline', () => {
       .set(analyst)
       .send({ reason: 'check that nothing moves' });
     expect(rerun.status).toBe(201);
-    expect((rerun.body as JobDto).trigger).toBe('rerun');
+    expect((rerun.body as JobView).trigger).toBe('rerun');
     await waitForState(t, 'analyst', task.id, ['ready']);
     await t.computationsIdle();
     expect(await runsOf(task.id)).toHaveLength(1);
@@ -335,11 +312,11 @@ describe('recording pipeline', () => {
     });
 
     it('refuses an illegal move and a move from a state the row no longer has, writing nothing', async () => {
-      const visitId = await newVisit('V9');
+      const visitId = await newVisit(t, 'V9');
       const task = await accepted(visitId, 'task', syntheticTaskEdf({ durationS: 30, seed: 49 }));
       await waitForState(t, 'technician', task.id, ['ready']);
       const lifecycle = t.app.get(RecordingLifecycle);
-      const writes = t.app.get(WriteTransactions);
+      const writes = t.app.get(WriteTransactionsService);
       const repository = t.dataSource.getRepository(Recording);
       const auditCount = (await auditOf(task.id)).length;
 

@@ -6,7 +6,8 @@
  * Recordings are generated (see recordings-fixtures.ts).
  */
 import request from 'supertest';
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
+import { currentSettings } from './helpers/analysis-settings';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { UserKey } from './helpers/seed';
 import { syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
@@ -61,26 +62,12 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
       bytes: syntheticTaskEdf({ durationS: 30, seed: 51 }),
     });
     expect(uploaded.status).toBe(201);
-    recordingId = (uploaded.body as RecordingDto).id;
+    recordingId = (uploaded.body as RecordingView).id;
     await waitForState(t, 'technician', recordingId, ['ready']);
     const visit = t.seed.visits.A1.id;
     const study = t.seed.studies.A.id;
     const participant = t.seed.participants.A1.id;
-    const settings = (
-      await request(t.url)
-        .get(`/api/studies/${study}/analysis-settings`)
-        .set(await t.authHeader('analyst'))
-    ).body;
-    const {
-      id: _i,
-      studyId: _s,
-      version: _v,
-      createdById: _c,
-      createdAt: _a,
-      reason: _r,
-      changes: _d,
-      ...values
-    } = settings;
+    const { values } = await currentSettings(t, study);
     // Each allowed call adds a version: a new threshold each time (identical values are refused).
     let settingsCalls = 0;
     const get = (path: string) => (auth: Record<string, string>) =>
@@ -338,13 +325,13 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
         .get('/api/recordings')
         .set(await t.authHeader(who));
       expect(list.status).toBe(200);
-      expect(list.body.items.map((r: RecordingDto) => r.id)).not.toContain(recordingId);
+      expect(list.body.items.map((r: RecordingView) => r.id)).not.toContain(recordingId);
       expect(list.body.total).toBe(0);
     }
     const own = await request(t.url)
       .get('/api/recordings')
       .set(await t.authHeader('technician'));
-    expect(own.body.items.map((r: RecordingDto) => r.id)).toContain(recordingId);
+    expect(own.body.items.map((r: RecordingView) => r.id)).toContain(recordingId);
     // A filter cannot widen the scope.
     const widened = await request(t.url)
       .get('/api/recordings')

@@ -6,10 +6,11 @@ import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import request from 'supertest';
-import type { RecordingDto, RecordingResultsDto } from '@gyre/shared';
+import type { RecordingView, RecordingResultsView } from '@gyre/shared';
 import { DEFAULT_ANALYSIS_SETTINGS } from '../src/signal/pipeline/analysis-settings';
 import { blankPatientField, readEdf } from '../src/signal/edf';
 import { analyzeRecording } from '../src/signal/pipeline/analyze-recording';
+import { acceptedUpload } from './helpers/accepted-upload';
 import { startTestApp, TestApp } from './helpers/test-app';
 import {
   INVENTED_PATIENT_NAME,
@@ -25,16 +26,11 @@ const sha256 = (bytes: Uint8Array): string => createHash('sha256').update(bytes)
 describe('recording uploads', () => {
   let t: TestApp;
   const original = syntheticTaskEdf({ durationS: 60, seed: 11 });
-  let accepted: RecordingDto;
+  let accepted: RecordingView;
 
   beforeAll(async () => {
     t = await startTestApp();
-    const response = await upload(t, 'technician', t.seed.visits.A1.id, {
-      kind: 'task',
-      bytes: original,
-    });
-    expect(response.status).toBe(201);
-    accepted = response.body as RecordingDto;
+    accepted = await acceptedUpload(t, { kind: 'task', bytes: original });
   });
   afterAll(async () => {
     await t.close();
@@ -74,7 +70,7 @@ describe('recording uploads', () => {
       .get(`/api/recordings/${accepted.id}/results`)
       .set(await t.authHeader('analyst'));
     expect(response.status).toBe(200);
-    const results = response.body as RecordingResultsDto;
+    const results = response.body as RecordingResultsView;
     // The same settings and no IAF (the visit has no resting recording): the same numbers.
     const direct = analyzeRecording(readEdf(original), DEFAULT_ANALYSIS_SETTINGS, {
       kind: 'task',
@@ -137,14 +133,14 @@ describe('recording uploads', () => {
       onsetsCsv: csv,
     });
     expect(response.status).toBe(201);
-    const dto = response.body as RecordingDto;
+    const dto = response.body as RecordingView;
     expect(dto.facts?.csvOnsetCount).toBe(taskOnsets(40).length);
     const ready = await waitForState(t, 'technician', dto.id, ['ready', 'failed']);
     expect(ready.state).toBe('ready');
     const results = await request(t.url)
       .get(`/api/recordings/${dto.id}/results`)
       .set(await t.authHeader('analyst'));
-    expect((results.body as RecordingResultsDto).run.trialsTotal).toBe(taskOnsets(40).length);
+    expect((results.body as RecordingResultsView).run.trialsTotal).toBe(taskOnsets(40).length);
   });
 
   it('refuses an onset CSV beside a resting recording (400) and an unknown kind (400)', async () => {
@@ -171,7 +167,7 @@ describe('recording uploads', () => {
     const bytes = syntheticRestEdf({ durationS: 30, seed: 5 });
     const response = await upload(t, 'technician', t.seed.visits.A1.id, { kind: 'resting', bytes });
     expect(response.status).toBe(201);
-    const id = (response.body as RecordingDto).id;
+    const id = (response.body as RecordingView).id;
     const events = await request(t.url)
       .get(`/api/recordings/${id}/events`)
       .set(await t.authHeader('technician'))
@@ -205,7 +201,7 @@ describe('recording uploads', () => {
       .get('/api/recordings')
       .query({ kind: 'resting' })
       .set(await t.authHeader('analyst'));
-    expect(resting.body.items.every((r: RecordingDto) => r.kind === 'resting')).toBe(true);
+    expect(resting.body.items.every((r: RecordingView) => r.kind === 'resting')).toBe(true);
     expect(resting.body.total).toBe(1);
   });
 

@@ -15,10 +15,10 @@ import type {
   AuditEntryView,
   OutboxMessageView,
   Page,
-  RecordingDto,
-  RecordingResultsDto,
-  ReportRevisionDto,
-  ReportSignOffDto,
+  RecordingView,
+  RecordingResultsView,
+  ReportRevisionView,
+  ReportSignOffView,
 } from '@gyre/shared';
 import { SIGNATURE_MEANING } from '@gyre/shared';
 import { sqliteHandleOf } from '../src/common/database/sqlite-handle';
@@ -31,6 +31,7 @@ import { ReportRevision } from '../src/signoff/report-revision.entity';
 import { User } from '../src/accounts/user.entity';
 import { SEED_PASSWORD, UserKey } from './helpers/seed';
 import { CaughtMail, readMails, waitForMail } from './helpers/mail-catcher';
+import { binaryBody } from './helpers/binary-body';
 import { startTestApp, TEST_PUBLIC_URL, TestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
 
@@ -40,17 +41,6 @@ const squash = (text: string): string => text.replace(/\s+/g, ' ').trim();
 const signedHz = (value: number): string =>
   `${value < 0 ? '\u2212' : '+'}${Math.abs(value).toFixed(2)}`;
 
-/** superagent's parser for a binary body (it buffers only text types by itself). */
-const binary = (
-  response: NodeJS.ReadableStream,
-  done: (error: Error | null, body: Buffer) => void,
-): void => {
-  const chunks: Buffer[] = [];
-  response.on('data', (chunk: Buffer) => chunks.push(chunk));
-  response.on('end', () => done(null, Buffer.concat(chunks)));
-};
-const binaryParser = binary as unknown as Parameters<request.Test['parse']>[0];
-
 describe('visit report sign-off', () => {
   let t: TestApp;
   let smtp: FakeSmtpServer;
@@ -58,28 +48,28 @@ describe('visit report sign-off', () => {
   let mailDir: string;
   let visitId: string;
   let reportId: string;
-  let restResults: RecordingResultsDto;
-  let taskResults: RecordingResultsDto;
-  let revision1: ReportRevisionDto;
+  let restResults: RecordingResultsView;
+  let taskResults: RecordingResultsView;
+  let revision1: ReportRevisionView;
   let revision1Pdf: Buffer;
-  let revision2: ReportRevisionDto;
+  let revision2: ReportRevisionView;
   const secondCoordinator = { email: 'second.coordinator@gyre.test', name: 'Second Coordinator' };
   const invitedCoordinator = { email: 'invited.coordinator@gyre.test' };
 
   const as = (user: UserKey) => t.authHeader(user);
-  const signOff = async (user: UserKey = 'analyst'): Promise<ReportSignOffDto> => {
+  const signOff = async (user: UserKey = 'analyst'): Promise<ReportSignOffView> => {
     const response = await request(t.url)
       .get(`/api/visits/${visitId}/report/sign-off`)
       .set(await as(user));
     expect(response.status).toBe(200);
-    return response.body as ReportSignOffDto;
+    return response.body as ReportSignOffView;
   };
   const pdf = async (path: string, user: UserKey): Promise<request.Response> =>
     request(t.url)
       .get(path)
       .set(await as(user))
       .buffer(true)
-      .parse(binaryParser);
+      .parse(binaryBody);
   const sign = async (body: Record<string, unknown>, user: UserKey = 'analyst') =>
     request(t.url)
       .post(`/api/visits/${visitId}/report/sign`)
@@ -137,7 +127,7 @@ describe('visit report sign-off', () => {
     });
     expect([rest.status, task.status]).toEqual([201, 201]);
     for (const response of [rest, task]) {
-      const done = await waitForState(t, 'technician', (response.body as RecordingDto).id, [
+      const done = await waitForState(t, 'technician', (response.body as RecordingView).id, [
         'ready',
         'failed',
       ]);
@@ -148,9 +138,9 @@ describe('visit report sign-off', () => {
         await request(t.url)
           .get(`/api/recordings/${recordingId}/results`)
           .set(await as('analyst'))
-      ).body as RecordingResultsDto;
-    restResults = await results((rest.body as RecordingDto).id);
-    taskResults = await results((task.body as RecordingDto).id);
+      ).body as RecordingResultsView;
+    restResults = await results((rest.body as RecordingView).id);
+    taskResults = await results((task.body as RecordingView).id);
   });
 
   afterAll(async () => {
@@ -275,7 +265,7 @@ describe('visit report sign-off', () => {
       fingerprint: draftFingerprint,
     });
     expect(response.status).toBe(201);
-    revision1 = response.body as ReportRevisionDto;
+    revision1 = response.body as ReportRevisionView;
     expect(revision1).toMatchObject({
       reportId,
       revision: 1,
@@ -365,7 +355,7 @@ describe('visit report sign-off', () => {
       .get('/api/report-revisions')
       .query({ visitId })
       .set(await as('analyst'));
-    expect((list.body as Page<ReportRevisionDto>).items[0]).toMatchObject({
+    expect((list.body as Page<ReportRevisionView>).items[0]).toMatchObject({
       id: revision1.id,
       state: 'sent',
     });
@@ -377,7 +367,7 @@ describe('visit report sign-off', () => {
       .get('/api/report-revisions')
       .set(await as('coordinator'));
     expect(list.status).toBe(200);
-    expect((list.body as Page<ReportRevisionDto>).items.map((r) => r.id)).toEqual([revision1.id]);
+    expect((list.body as Page<ReportRevisionView>).items.map((r) => r.id)).toEqual([revision1.id]);
     const byReport = await pdf(`/api/reports/${reportId}/file`, 'coordinator');
     expect(byReport.status).toBe(200);
     expect(byReport.headers['content-disposition']).toBe(
@@ -404,7 +394,7 @@ describe('visit report sign-off', () => {
     const other = await request(t.url)
       .get('/api/report-revisions')
       .set(await as('coordinatorA2'));
-    expect((other.body as Page<ReportRevisionDto>).total).toBe(0);
+    expect((other.body as Page<ReportRevisionView>).total).toBe(0);
     expect((await pdf(`/api/report-revisions/${revision1.id}/file`, 'coordinatorA2')).status).toBe(
       404,
     );
@@ -504,7 +494,7 @@ describe('visit report sign-off', () => {
       fingerprint: status.draftFingerprint,
     });
     expect(response.status).toBe(201);
-    revision2 = response.body as ReportRevisionDto;
+    revision2 = response.body as ReportRevisionView;
     expect(revision2).toMatchObject({ revision: 2, supersedesId: revision1.id });
     expect(revision2.pdfSha256).not.toBe(revision1.pdfSha256);
     const second = await pdf(`/api/report-revisions/${revision2.id}/file`, 'coordinator');
@@ -517,7 +507,7 @@ describe('visit report sign-off', () => {
     const list = await request(t.url)
       .get('/api/report-revisions')
       .set(await as('coordinator'));
-    expect((list.body as Page<ReportRevisionDto>).items.map((r) => r.revision)).toEqual([2, 1]);
+    expect((list.body as Page<ReportRevisionView>).items.map((r) => r.revision)).toEqual([2, 1]);
     // The report file route serves the newest signed revision.
     const latest = await pdf(`/api/reports/${reportId}/file`, 'coordinator');
     expect(sha256(latest.body as Buffer)).toBe(revision2.pdfSha256);
@@ -541,7 +531,7 @@ describe('visit report sign-off', () => {
       fingerprint: status.draftFingerprint,
     });
     expect(response.status).toBe(201);
-    const revision3 = response.body as ReportRevisionDto;
+    const revision3 = response.body as ReportRevisionView;
     await t.mailIdle();
     const outbox = t.dataSource.getRepository(OutboxMessage);
     const waiting = await outbox.find({ where: { kind: 'report_signed', state: 'queued' } });

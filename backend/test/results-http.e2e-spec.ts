@@ -13,18 +13,19 @@ import request from 'supertest';
 import {
   RESULT_SERIES_DECIMALS,
   SPECTRUM_POWER_SIGNIFICANT_DIGITS,
-  type OnsetCurveDto,
-  type RecordingDto,
-  type RecordingResultsDto,
-  type TrialRasterDto,
+  type OnsetCurveView,
+  type RecordingView,
+  type RecordingResultsView,
+  type TrialRasterView,
 } from '@gyre/shared';
 import { AnalysisRun } from '../src/analysis/analysis-run.entity';
-import { toResultsDto } from '../src/analysis/analysis-runs.service';
+import { toResultsView } from '../src/analysis/analysis-runs.service';
 import { decodeResultSeries } from '../src/analysis/result-series-codec';
 import { ResultsBodyCache } from '../src/analysis/results-body-cache';
 import { Recording } from '../src/recordings/recording.entity';
 import { LABELS_64, task64Edf } from '../src/robustness/cli/load-recordings';
 import type { UserKey } from './helpers/seed';
+import { currentSettings } from './helpers/analysis-settings';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { syntheticRestEdf, upload, waitForState } from './recordings-fixtures';
 
@@ -108,8 +109,8 @@ const BROWSER = 'gzip, deflate, br';
 
 describe('results over HTTP', () => {
   let t: TestApp;
-  let task: RecordingDto;
-  let rest: RecordingDto;
+  let task: RecordingView;
+  let rest: RecordingView;
   let auth: (user: UserKey) => Promise<Record<string, string>>;
 
   beforeAll(async () => {
@@ -122,13 +123,13 @@ describe('results over HTTP', () => {
       bytes: syntheticRestEdf({ durationS: 60, peakHz: 10, seed: 71 }),
     });
     expect(restUp.status).toBe(201);
-    rest = await waitForState(t, 'technician', (restUp.body as RecordingDto).id, ['ready']);
+    rest = await waitForState(t, 'technician', (restUp.body as RecordingView).id, ['ready']);
     const taskUp = await upload(t, 'technician', visitId, {
       kind: 'task',
       bytes: task64Edf({ durationS: 60, seed: 72, baseFrequencyHz: 10, dipHz: -0.5 }),
     });
     expect(taskUp.status).toBe(201);
-    task = await waitForState(t, 'technician', (taskUp.body as RecordingDto).id, ['ready']);
+    task = await waitForState(t, 'technician', (taskUp.body as RecordingView).id, ['ready']);
     await t.computationsIdle();
     task = await waitForState(t, 'technician', task.id, ['ready']);
   }, 180_000);
@@ -156,13 +157,13 @@ describe('results over HTTP', () => {
     const plain = await get(path, 'analyst', 'identity');
     expect(plain.headers['content-encoding']).toBeUndefined();
     expect(plain.headers['content-type']).toBe('application/json; charset=utf-8');
-    const results = jsonOf<RecordingResultsDto>(plain);
-    expect(jsonOf<RecordingResultsDto>(gzip)).toEqual(results);
+    const results = jsonOf<RecordingResultsView>(plain);
+    expect(jsonOf<RecordingResultsView>(gzip)).toEqual(results);
     // What a browser asks for: brotli, smaller still, the same JSON.
     const browser = await get(path, 'analyst', BROWSER);
     expect(browser.headers['content-encoding']).toBe('br');
     expect(browser.body.length).toBeLessThanOrEqual(gzip.body.length);
-    expect(jsonOf<RecordingResultsDto>(browser)).toEqual(results);
+    expect(jsonOf<RecordingResultsView>(browser)).toEqual(results);
     // All 64 channels are in the table and each has a curve of its own to ask for.
     expect(results.channels).toHaveLength(64);
     expect(results.task?.curveChannels).toEqual(LABELS_64);
@@ -170,7 +171,7 @@ describe('results over HTTP', () => {
   });
 
   it('rounds the series as RESULT_SERIES_DECIMALS says and keeps the stored run at full precision for the report', async () => {
-    const results = jsonOf<RecordingResultsDto>(
+    const results = jsonOf<RecordingResultsView>(
       await get(`/api/recordings/${task.id}/results`, 'analyst', 'gzip'),
     );
     const stored = await storedSeries(task.latestRunId);
@@ -187,7 +188,7 @@ describe('results over HTTP', () => {
       .getRepository(AnalysisRun)
       .findOneByOrFail({ id: task.latestRunId ?? '' });
     const recording = await t.dataSource.getRepository(Recording).findOneByOrFail({ id: task.id });
-    const forReport = toResultsDto(run, recording, []);
+    const forReport = toResultsView(run, recording, []);
     expect(forReport.task?.roi.meanHz).toEqual(
       Array.from(stored['roi:mean'], (v) => (Number.isFinite(v) ? v : null)),
     );
@@ -198,7 +199,7 @@ describe('results over HTTP', () => {
   });
 
   it('rounds the rest spectrum: frequencies to 4 decimals, power to 4 significant digits', async () => {
-    const results = jsonOf<RecordingResultsDto>(
+    const results = jsonOf<RecordingResultsView>(
       await get(`/api/recordings/${rest.id}/results`, 'analyst', 'gzip'),
     );
     const stored = await storedSeries(rest.latestRunId);
@@ -225,7 +226,7 @@ describe('results over HTTP', () => {
     const answer = await get(`/api/recordings/${task.id}/results/raster`, 'analyst', 'gzip');
     expect(answer.status).toBe(200);
     expect(answer.headers['content-encoding']).toBe('gzip');
-    const raster = jsonOf<TrialRasterDto>(answer);
+    const raster = jsonOf<TrialRasterView>(answer);
     const stored = await storedSeries(task.latestRunId);
     expect(raster.trialOnsetsS).toHaveLength(raster.trials);
     expect(raster.points).toBe(raster.timeS.length);
@@ -235,7 +236,7 @@ describe('results over HTTP', () => {
     expectRounded(raster.valuesHz, stored.raster, RESULT_SERIES_DECIMALS.rasterHz);
     expectRounded(raster.timeS, stored['raster:timeS'], RESULT_SERIES_DECIMALS.timeS);
     expectRounded(raster.trialDeltaFHz, stored.trialDeltaFHz, RESULT_SERIES_DECIMALS.trialDeltaFHz);
-    const results = jsonOf<RecordingResultsDto>(
+    const results = jsonOf<RecordingResultsView>(
       await get(`/api/recordings/${task.id}/results`, 'analyst', 'gzip'),
     );
     expect(results.task?.raster).toEqual({ trials: raster.trials, points: raster.points });
@@ -260,7 +261,7 @@ describe('results over HTTP', () => {
     const path = `/api/recordings/${task.id}/results/curves?channel=${encodeURIComponent(channel)}`;
     const answer = await get(path, 'analyst', 'gzip');
     expect(answer.status).toBe(200);
-    const curve = jsonOf<OnsetCurveDto>(answer);
+    const curve = jsonOf<OnsetCurveView>(answer);
     const stored = await storedSeries(task.latestRunId);
     expect(curve.name).toBe(channel);
     expectRounded(curve.meanHz, stored[`channel:${channel}:mean`], RESULT_SERIES_DECIMALS.curveHz);
@@ -387,28 +388,16 @@ describe('results over HTTP', () => {
 
   it('says on the cached results when the study settings have changed since the run', async () => {
     const path = `/api/recordings/${task.id}/results`;
-    const before = jsonOf<RecordingResultsDto>(await get(path, 'analyst', 'gzip'));
+    const before = jsonOf<RecordingResultsView>(await get(path, 'analyst', 'gzip'));
     expect(before.run.staleSettings).toEqual([]);
     const studyId = t.seed.studies.A.id;
-    const current = await request(t.url)
-      .get(`/api/studies/${studyId}/analysis-settings`)
-      .set(await auth('analyst'));
-    const {
-      id: _i,
-      studyId: _s,
-      version: _v,
-      createdById: _c,
-      createdAt: _a,
-      reason: _r,
-      changes: _d,
-      ...values
-    } = current.body;
+    const { values } = await currentSettings(t, studyId);
     const saved = await request(t.url)
       .post(`/api/studies/${studyId}/analysis-settings`)
       .set(await auth('analyst'))
       .send({ ...values, postWindowS: [0.3, 0.9], reason: 'A longer post window for the pilot' });
     expect(saved.status).toBe(201);
-    const after = jsonOf<RecordingResultsDto>(await get(path, 'analyst', 'gzip'));
+    const after = jsonOf<RecordingResultsView>(await get(path, 'analyst', 'gzip'));
     expect(after.run.id).toBe(before.run.id);
     expect(after.run.staleSettings.join(' ')).toContain('post window');
     // Everything else is the same run's numbers.
@@ -422,7 +411,7 @@ describe('results over HTTP', () => {
       const answers = await Promise.all(
         ['analyst', 'monitor', 'analyst'].map((user) => get(path, user as UserKey, 'br')),
       );
-      const notices = answers.map((a) => jsonOf<RecordingResultsDto>(a).run.staleSettings);
+      const notices = answers.map((a) => jsonOf<RecordingResultsView>(a).run.staleSettings);
       expect(notices[1]).toEqual(notices[0]);
       expect(notices[2]).toEqual(notices[0]);
       return notices[0];

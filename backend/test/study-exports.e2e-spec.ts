@@ -17,10 +17,11 @@ import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { parse } from 'csv-parse/sync';
 import request from 'supertest';
-import type { RecordingDto, RecordingResultsDto } from '@gyre/shared';
+import type { RecordingView, RecordingResultsView } from '@gyre/shared';
 import { Visit } from '../src/visits/visit.entity';
 import { REPO } from './helpers/built-dist';
 import type { UserKey } from './helpers/seed';
+import { binaryBody } from './helpers/binary-body';
 import { startTestApp, TestApp } from './helpers/test-app';
 import {
   INVENTED_PATIENT_NAME,
@@ -32,23 +33,13 @@ import {
 
 type Row = Record<string, string>;
 
-/** The body of a download as bytes (supertest's own parsers left out). */
-function binary(
-  res: request.Response,
-  callback: (error: Error | null, body: Buffer) => void,
-): void {
-  const chunks: Buffer[] = [];
-  res.on('data', (chunk: Buffer) => chunks.push(chunk));
-  res.on('end', () => callback(null, Buffer.concat(chunks)));
-}
-
 /** The exact text JSON writes for a number; '' (CSV) or 'n/a' (TSV) for none. */
 function text(value: number | null | undefined, missing: string): string {
   return value === null || value === undefined ? missing : JSON.stringify(value);
 }
 
 /** What the results API says for one exported row. */
-function expectedOf(results: RecordingResultsDto, row: Row) {
+function expectedOf(results: RecordingResultsView, row: Row) {
   const run = results.run;
   if (row.scope === 'roi') {
     const value =
@@ -83,7 +74,7 @@ function expectedOf(results: RecordingResultsDto, row: Row) {
 }
 
 /** Checks one exported row's numbers and provenance against the results API, exactly. */
-function expectRowMatches(results: RecordingResultsDto, row: Row, missing: string): number {
+function expectRowMatches(results: RecordingResultsView, row: Row, missing: string): number {
   const expected = expectedOf(results, row);
   for (const [column, value] of Object.entries(expected)) {
     expect({ column, text: row[column] }).toEqual({ column, text: text(value, missing) });
@@ -144,7 +135,7 @@ describe('study results exports', () => {
   let studyA: string;
   let monthSix: string;
   const recordingIds: string[] = [];
-  const results = new Map<string, RecordingResultsDto>();
+  const results = new Map<string, RecordingResultsView>();
   let workDir: string;
 
   async function compute(
@@ -159,7 +150,7 @@ describe('study results exports', () => {
         : syntheticTaskEdf({ durationS: 60, seed });
     const response = await upload(t, user, visitId, { kind, bytes });
     expect(response.status).toBe(201);
-    const id = (response.body as RecordingDto).id;
+    const id = (response.body as RecordingView).id;
     await waitForState(t, user, id, ['ready']);
     recordingIds.push(id);
   }
@@ -169,7 +160,7 @@ describe('study results exports', () => {
       .get(path)
       .set(await t.authHeader(user))
       .buffer(true)
-      .parse(binary);
+      .parse(binaryBody);
   }
 
   beforeAll(async () => {
@@ -245,7 +236,7 @@ describe('study results exports', () => {
 
     for (const id of recordingIds) {
       const response = await request(t.url).get(`/api/recordings/${id}/results`).set(analyst);
-      if (response.status === 200) results.set(id, response.body as RecordingResultsDto);
+      if (response.status === 200) results.set(id, response.body as RecordingResultsView);
     }
   }, 240_000);
 

@@ -8,7 +8,7 @@
 import { createHash, randomUUID } from 'node:crypto';
 import { execFileSync } from 'node:child_process';
 import request from 'supertest';
-import type { OverviewCell, OverviewStat, StudyOverviewDto } from '@gyre/shared';
+import type { OverviewCell, OverviewStat, StudyOverviewView } from '@gyre/shared';
 import { defineAbilityFor } from '@gyre/shared';
 import type { Caller } from '../src/auth/decorators';
 import { StudyOverviewService } from '../src/study-overview/study-overview.service';
@@ -265,15 +265,17 @@ describe('study overview', () => {
         participantId: p,
         siteId: site,
       });
+      // A ready resting recording computed under the current settings (unless said otherwise).
+      const rest = (
+        visit: Awaited<ReturnType<typeof V>>,
+        pafHz: number,
+        cogHz: number,
+        more: { settingsId?: string; quality?: Record<string, number> } = {},
+      ) => w.recording(visit, 'resting', 'ready', { pafHz, cogHz, settingsId: current, ...more });
       // P1 (A1, Arm 1): Baseline computed; Month 6 reviewed.
       const p1 = await w.participant(A1, 'OV-01', g1);
       const p1v1 = await V(p1, A1, pv1, '2026-01-02');
-      await w.recording(p1v1, 'resting', 'ready', {
-        pafHz: 10.0,
-        cogHz: 9.8,
-        settingsId: current,
-        quality: { lineNoiseRatio50Hz: 0.2 },
-      });
+      await rest(p1v1, 10.0, 9.8, { quality: { lineNoiseRatio50Hz: 0.2 } });
       await w.recording(p1v1, 'task', 'ready', {
         deltaFHz: -0.2,
         settingsId: current,
@@ -281,28 +283,16 @@ describe('study overview', () => {
         roi: { status: 'partial', wanted: 4, used: 3 },
       });
       const p1v2 = await V(p1, A1, pv2, '2026-07-01');
-      const r = await w.recording(p1v2, 'resting', 'ready', {
-        pafHz: 9.8,
-        cogHz: 9.7,
-        settingsId: current,
-      });
+      const r = await rest(p1v2, 9.8, 9.7);
       await w.review(p1v2, [{ kind: 'resting', runId: r.runId }], analyst);
       // P2 (A1, Arm 1): Baseline signed; Month 6 signed, then a newer run.
       const p2 = await w.participant(A1, 'OV-02', g1);
       const p2v1 = await V(p2, A1, pv1, '2026-01-03');
-      const r2 = await w.recording(p2v1, 'resting', 'ready', {
-        pafHz: 10.4,
-        cogHz: 10.1,
-        settingsId: current,
-      });
+      const r2 = await rest(p2v1, 10.4, 10.1);
       await w.signedReport(p2v1, analyst, w.next());
       const p2v2 = await V(p2, A1, pv2, '2026-07-02');
       await w.signedReport(p2v2, analyst, w.next());
-      await w.recording(p2v2, 'resting', 'ready', {
-        pafHz: 10.1,
-        cogHz: 10.0,
-        settingsId: current,
-      });
+      await rest(p2v2, 10.1, 10.0);
       s.p2v1Run = r2.runId as string;
       // P3 (A1, Arm 2): Baseline uploaded (queued, no run yet); a superseded upload; Month 6 missing.
       const p3 = await w.participant(A1, 'OV-03', g2);
@@ -312,12 +302,7 @@ describe('study overview', () => {
       // P4 (A2, Arm 1): Baseline computed with Δf in the default band; Month 6 registered, no recording.
       const p4 = await w.participant(A2, 'OV-04', g1);
       const p4v1 = await V(p4, A2, pv1, '2026-01-05');
-      await w.recording(p4v1, 'resting', 'ready', {
-        pafHz: 9.6,
-        cogHz: 9.5,
-        settingsId: current,
-        quality: { lineNoiseRatio50Hz: 1.0 },
-      });
+      await rest(p4v1, 9.6, 9.5, { quality: { lineNoiseRatio50Hz: 1.0 } });
       await w.recording(p4v1, 'task', 'ready', {
         deltaFHz: -0.5,
         bandSource: 'default',
@@ -330,11 +315,7 @@ describe('study overview', () => {
       // P5 (A2, no group): Baseline from an older settings version; one unplanned visit.
       const p5 = await w.participant(A2, 'OV-05', null);
       const p5v1 = await V(p5, A2, pv1, '2026-01-06');
-      await w.recording(p5v1, 'resting', 'ready', {
-        pafHz: 9.9,
-        cogHz: 9.6,
-        settingsId: old,
-      });
+      await rest(p5v1, 9.9, 9.6, { settingsId: old });
       await V(p5, A2, null, '2026-03-01');
       Object.assign(s, { p1, p2, p3, p4, p5 });
     });
@@ -349,7 +330,7 @@ describe('study overview', () => {
       .get(`/api/studies/${studyId}/overview`)
       .set(await t.authHeader(user));
 
-  const cell = (o: StudyOverviewDto, participantId: string, pv: string): OverviewCell => {
+  const cell = (o: StudyOverviewView, participantId: string, pv: string): OverviewCell => {
     const found = o.participants
       .find((p) => p.id === participantId)
       ?.cells.find((c) => c.plannedVisitId === pv);
@@ -367,7 +348,7 @@ describe('study overview', () => {
   it('fills the completion matrix with the five states as docs/user-guide.md defines them', async () => {
     const response = await get('monitor');
     expect(response.status).toBe(200);
-    const o = response.body as StudyOverviewDto;
+    const o = response.body as StudyOverviewView;
     expect(o.plannedVisits.map((p) => p.name)).toEqual(['Baseline', 'Month 6']);
     const states = (id: string) => [cell(o, id, s.pv1).state, cell(o, id, s.pv2).state];
     expect(states(s.p1)).toEqual(['computed', 'reviewed']);
@@ -387,7 +368,7 @@ describe('study overview', () => {
   });
 
   it('says which numbers are doubtful, per visit and study-wide', async () => {
-    const o = (await get('analyst')).body as StudyOverviewDto;
+    const o = (await get('analyst')).body as StudyOverviewView;
     expect(cell(o, s.p4, s.pv1).doubts).toEqual(
       expect.arrayContaining([
         expect.stringMatching(/no resting IAF/),
@@ -408,7 +389,7 @@ describe('study overview', () => {
   });
 
   it('gives n, mean and the 95 % Student t interval per group and site, as scipy does', async () => {
-    const o = (await get('admin')).body as StudyOverviewDto;
+    const o = (await get('admin')).body as StudyOverviewView;
     // Arm 1 at Baseline: P1 10.0, P2 10.4, P4 9.6 (P4's PAF itself is not in doubt, its Δf is).
     const arm1 = stat(o.byGroup, 'paf', s.pv1, s.g1);
     const [mean, low, high] = scipyInterval([10.0, 10.4, 9.6]);
@@ -438,7 +419,7 @@ describe('study overview', () => {
   });
 
   it('compares site quality: rejection rate, epochs dropped, line noise, phase slips, ROI channels lost', async () => {
-    const o = (await get('monitor')).body as StudyOverviewDto;
+    const o = (await get('monitor')).body as StudyOverviewView;
     const site = (id: string) => o.siteQuality.find((q) => q.siteId === id);
     // A1: 6 overview uploads + the seed's none; P3's superseded one counts as an upload.
     expect(site(s.A1)).toMatchObject({
@@ -543,15 +524,15 @@ describe('study overview over a few hundred participants', () => {
     const url = `/api/studies/${t.seed.studies.B.id}/overview`;
     await request(t.url).get(url).set(header); // warm the statements and the token
     const times: number[] = [];
-    let body: StudyOverviewDto | null = null;
+    let body: StudyOverviewView | null = null;
     for (let i = 0; i < 5; i++) {
       const started = process.hrtime.bigint();
       const response = await request(t.url).get(url).set(header);
       times.push(Number(process.hrtime.bigint() - started) / 1e6);
       expect(response.status).toBe(200);
-      body = response.body as StudyOverviewDto;
+      body = response.body as StudyOverviewView;
     }
-    const o = body as StudyOverviewDto;
+    const o = body as StudyOverviewView;
     // 300 seeded here + the seed's one participant of site B1.
     expect(o.participants).toHaveLength(PARTICIPANTS + 1);
     const states = o.participants.flatMap((p) => p.cells.map((c) => c.state));

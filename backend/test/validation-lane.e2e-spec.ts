@@ -2,7 +2,7 @@
  * Validation has a lane of its own: an upload is checked and answered while every analysis
  * thread is busy with long computations. Recordings are generated (recordings-fixtures.ts).
  */
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { writeEdf } from '../src/signal/edf';
 import { syntheticTaskRecording } from '../src/signal/synthetic/synthetic-eeg';
@@ -88,8 +88,8 @@ describe('validation lane', () => {
       bytes: long(52),
     });
     expect([first.status, second.status]).toEqual([201, 201]);
-    const a = first.body as RecordingDto;
-    const b = second.body as RecordingDto;
+    const a = first.body as RecordingView;
+    const b = second.body as RecordingView;
     await waitForState(t, 'technician', a.id, ['computing']);
     await waitForState(t, 'technicianA2', b.id, ['computing']);
 

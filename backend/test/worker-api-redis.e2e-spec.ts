@@ -28,6 +28,7 @@ import {
   RESULT_CONTENT_TYPE,
 } from '../src/remote-workers/result-wire';
 import { GYRE_VERSION } from '../src/version';
+import { binaryBody } from './helpers/binary-body';
 import { startTestApp, TEST_JWT_SECRET, TEST_PUBLIC_URL, TestApp } from './helpers/test-app';
 import { syntheticRestEdf, upload } from './recordings-fixtures';
 
@@ -185,13 +186,7 @@ describe('the worker API with REDIS_URL', () => {
       kind: 'resting',
       gyreVersion: GYRE_VERSION,
     });
-    const file = await asWorker('get', `${job.id}/1/file`)
-      .buffer(true)
-      .parse((res, done) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (chunk: Buffer) => chunks.push(chunk));
-        res.on('end', () => done(null, Buffer.concat(chunks)));
-      });
+    const file = await asWorker('get', `${job.id}/1/file`).buffer(true).parse(binaryBody);
     expect(file.status).toBe(200);
     const bytes = file.body as Buffer;
     // SHA-256 (FIPS 180-4) of what was served is the checksum the task names.

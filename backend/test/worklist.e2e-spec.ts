@@ -7,9 +7,9 @@
 import { createHash, randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type {
-  RecordingDto,
-  VisitReviewStateDto,
-  WorklistDto,
+  RecordingView,
+  VisitReviewStateView,
+  WorklistView,
   WorklistSection,
   WorklistSectionKey,
 } from '@gyre/shared';
@@ -21,22 +21,22 @@ async function worklist(
   t: TestApp,
   user: UserKey,
   query: Record<string, string | number> = {},
-): Promise<WorklistDto> {
+): Promise<WorklistView> {
   const response = await request(t.url)
     .get('/api/worklist')
     .query(query)
     .set(await t.authHeader(user));
   expect(response.status).toBe(200);
-  return response.body as WorklistDto;
+  return response.body as WorklistView;
 }
 
-function section(list: WorklistDto, key: WorklistSectionKey): WorklistSection {
+function section(list: WorklistView, key: WorklistSectionKey): WorklistSection {
   const found = list.sections.find((s) => s.key === key);
   if (found === undefined) throw new Error(`no section ${key}`);
   return found;
 }
 
-const visitsIn = (list: WorklistDto, key: WorklistSectionKey): string[] =>
+const visitsIn = (list: WorklistView, key: WorklistSectionKey): string[] =>
   section(list, key).items.map((i) => i.visitId);
 
 /**
@@ -65,7 +65,7 @@ describe('worklist and the visit-reviewed act', () => {
   let t: TestApp;
   let visitA1: string;
   let visitA2: string;
-  let restA1: RecordingDto;
+  let restA1: RecordingView;
 
   beforeAll(async () => {
     t = await startTestApp();
@@ -80,8 +80,8 @@ describe('worklist and the visit-reviewed act', () => {
       bytes: syntheticTaskEdf({ durationS: 60, seed: 41 }),
     });
     expect([rest.status, task.status]).toEqual([201, 201]);
-    restA1 = await waitForState(t, 'technician', (rest.body as RecordingDto).id, ['ready']);
-    await waitForState(t, 'technician', (task.body as RecordingDto).id, ['ready']);
+    restA1 = await waitForState(t, 'technician', (rest.body as RecordingView).id, ['ready']);
+    await waitForState(t, 'technician', (task.body as RecordingView).id, ['ready']);
     await t.computationsIdle();
   }, 120_000);
   afterAll(async () => {
@@ -131,7 +131,7 @@ describe('worklist and the visit-reviewed act', () => {
       .get(`/api/visits/${visitA1}/review`)
       .set(await t.authHeader('monitor'));
     expect(state.status).toBe(200);
-    const seen = state.body as VisitReviewStateDto;
+    const seen = state.body as VisitReviewStateView;
     expect(seen).toMatchObject({ reviewed: false, canReview: false, latest: null });
     expect(seen.cannotReviewReason).toBe('Your role does not mark visits reviewed.');
     const post = await request(t.url)
@@ -183,7 +183,7 @@ describe('worklist and the visit-reviewed act', () => {
   it('marks the visit reviewed (audited with the fingerprint): off the list, and not twice', async () => {
     const analyst = await t.authHeader('analyst');
     const before = (await request(t.url).get(`/api/visits/${visitA1}/review`).set(analyst))
-      .body as VisitReviewStateDto;
+      .body as VisitReviewStateView;
     const expected = await fingerprintFromDb(t, visitA1);
     expect(before).toMatchObject({ currentFingerprint: expected, canReview: true });
     expect(before.currentRunIds.map((id) => id.split(':')[0])).toEqual(['resting', 'task']);
@@ -193,7 +193,7 @@ describe('worklist and the visit-reviewed act', () => {
       .set(analyst)
       .send({ fingerprint: expected });
     expect(marked.status).toBe(201);
-    const after = marked.body as VisitReviewStateDto;
+    const after = marked.body as VisitReviewStateView;
     expect(after).toMatchObject({
       reviewed: true,
       changedSinceReview: false,
@@ -239,14 +239,14 @@ describe('worklist and the visit-reviewed act', () => {
       replaces: { recordingId: restA1.id, reason: 'Electrode O2 came loose in the first take' },
     });
     expect(replaced.status).toBe(201);
-    await waitForState(t, 'technician', (replaced.body as RecordingDto).id, ['ready']);
+    await waitForState(t, 'technician', (replaced.body as RecordingView).id, ['ready']);
     await t.computationsIdle();
 
     const state = (
       await request(t.url)
         .get(`/api/visits/${visitA1}/review`)
         .set(await t.authHeader('analyst'))
-    ).body as VisitReviewStateDto;
+    ).body as VisitReviewStateView;
     expect(state).toMatchObject({ reviewed: false, changedSinceReview: true, canReview: true });
     expect(state.currentFingerprint).toBe(await fingerprintFromDb(t, visitA1));
     expect(state.currentFingerprint).not.toBe(state.latest?.fingerprint);

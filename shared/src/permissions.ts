@@ -57,6 +57,8 @@ export const SUBJECTS = [
   'Worklist',
   /** A study's overview: group courses, completion matrix, site quality (study-overview). */
   'StudyOverview',
+  /** A site's calibration run: Gyre's check of its own computation (calibration/). */
+  'Calibration',
 ] as const;
 export type SubjectName = (typeof SUBJECTS)[number];
 
@@ -127,6 +129,7 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
       can(['read', 'create', 'update'], ['Participant', 'Visit'], site);
       can(['read', 'create', 'upload', 'update', 'retry'], 'Recording', site);
       can('read', 'Worklist', site);
+      can(['read', 'create'], 'Calibration', site);
       break;
     }
     case 'analyst': {
@@ -143,6 +146,7 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
       can(['read', 'create'], 'VisitReview', study);
       can('read', 'Worklist', study);
       can('read', 'StudyOverview', study);
+      can('read', 'Calibration', study);
       // Study results export for statisticians (study-exports/).
       can('export', 'Result', study);
       // Recordings are evidence: an analyst reviews them but never removes one.
@@ -173,6 +177,7 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
       can('read', ['PlannedVisit', 'StudyGroup'], study);
       can('read', ['VisitReview', 'Worklist'], study);
       can('read', 'StudyOverview', study);
+      can('read', 'Calibration', study);
       can('export', 'Result', study);
       break;
     }
@@ -201,6 +206,8 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
       can('manage', 'WorkerToken');
       // The study overview's aggregate numbers, completion and site quality (study-overview/).
       can('read', 'StudyOverview');
+      // A site's calibration run (calibration/): any site's, like its set-up.
+      can(['read', 'create'], 'Calibration');
       // Separation of duties: whoever manages accounts never signs findings.
       cannot('sign', 'Report');
       cannot(['create', 'update'], 'Flag');

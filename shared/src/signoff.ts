@@ -2,7 +2,7 @@
  * API types of report sign-off (21 CFR Part 11 §11.50, §11.200 in spirit): signed revisions,
  * the sign-off state of a visit's report, and the signing request.
  */
-import type { ReportDto } from './recordings';
+import type { ReportView } from './recordings';
 
 /** The one meaning a Gyre signature has; the signer confirms it word for word. */
 export const SIGNATURE_MEANING = 'reviewed and approved for the study record';
@@ -11,7 +11,7 @@ export const SIGNATURE_MEANING = 'reviewed and approved for the study record';
 export const REVISION_STATES = ['signed', 'sent'] as const;
 export type RevisionState = (typeof REVISION_STATES)[number];
 
-export interface ReportRevisionDto {
+export interface ReportRevisionView {
   id: string;
   reportId: string;
   visitId: string;
@@ -37,8 +37,8 @@ export interface ReportRevisionDto {
 }
 
 /** `GET /api/visits/:visitId/report/sign-off`: what an analyst needs before signing. */
-export interface ReportSignOffDto {
-  report: ReportDto;
+export interface ReportSignOffView {
+  report: ReportView;
   meaning: string;
   /** SHA-256 over the draft's content; send it back when signing. Null: nothing analysed yet. */
   draftFingerprint: string | null;
@@ -49,7 +49,7 @@ export interface ReportSignOffDto {
   /** Why signing is not possible now, in words; null when it is. */
   cannotSignReason: string | null;
   /** Signed revisions, newest first. */
-  revisions: ReportRevisionDto[];
+  revisions: ReportRevisionView[];
 }
 
 /** `POST /api/visits/:visitId/report/sign`. */

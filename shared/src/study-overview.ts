@@ -97,7 +97,7 @@ export interface SiteQuality {
   runsWithoutRoi: number;
 }
 
-export interface StudyOverviewDto {
+export interface StudyOverviewView {
   studyId: string;
   plannedVisits: OverviewPlannedVisit[];
   groups: Array<{ id: string; name: string }>;

@@ -67,7 +67,7 @@ export interface WorklistSection {
   items: WorklistItem[];
 }
 
-export interface WorklistDto {
+export interface WorklistView {
   /** `review`: analysts and monitors (the study); `uploads`: technicians (their site). */
   kind: 'review' | 'uploads';
   /** True when the caller may not mark visits reviewed (monitors): the list is to read. */
@@ -91,7 +91,7 @@ export interface WorklistQuery {
 }
 
 /** One "visit reviewed" act: who reviewed which current results, when. */
-export interface VisitReviewDto {
+export interface VisitReviewView {
   id: string;
   visitId: string;
   reviewedById: string;
@@ -105,14 +105,14 @@ export interface VisitReviewDto {
 }
 
 /** `GET /api/visits/:visitId/review`: what the Review screen shows about the act. */
-export interface VisitReviewStateDto {
+export interface VisitReviewStateView {
   visitId: string;
   /** Fingerprint of the visit's current results; null when it has none. */
   currentFingerprint: string | null;
   /** The current runs, as `kind:runId`, sorted. */
   currentRunIds: string[];
   /** The latest review of the visit, whether or not it still holds. */
-  latest: VisitReviewDto | null;
+  latest: VisitReviewView | null;
   /** True while the latest review's fingerprint equals the current one. */
   reviewed: boolean;
   /** True when the visit was reviewed but its results have changed since. */

@@ -1,6 +1,6 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
-import { Accounts } from './accounts.service';
+import { AccountsService } from './accounts.service';
 import { User } from './user.entity';
 
 /**
@@ -9,7 +9,7 @@ import { User } from './user.entity';
  */
 @Module({
   imports: [TypeOrmModule.forFeature([User])],
-  providers: [Accounts],
-  exports: [Accounts],
+  providers: [AccountsService],
+  exports: [AccountsService],
 })
 export class AccountsModule {}

@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import { EntityManager, FindOptionsOrder, FindOptionsWhere, In, Repository } from 'typeorm';
-import { SqliteReads } from '../common/database/sqlite-reads.service';
+import { SqliteReadsService } from '../common/database/sqlite-reads.service';
 import { User } from './user.entity';
 
 /** What every request's sign-in check needs of its user. */
@@ -22,10 +22,10 @@ export interface Activation {
  * accounts through these methods only. Unscoped; `tx` runs inside the caller's write transaction.
  */
 @Injectable()
-export class Accounts {
+export class AccountsService {
   constructor(
     @InjectRepository(User) private readonly users: Repository<User>,
-    private readonly reads: SqliteReads,
+    private readonly reads: SqliteReadsService,
   ) {}
 
   byEmail(email: string, tx?: EntityManager): Promise<User | null> {

@@ -1,50 +1,25 @@
 import { Column, Entity, PrimaryColumn } from 'typeorm';
 import type { Role, UserState } from '@gyre/shared';
 
-/** A person who signs in. Never returned by a handler: see `UserResponseDto`. */
+/** A person who signs in. Never returned by a handler: see `UserView` (users/user-view.ts). */
 @Entity('user')
 export class User {
-  @PrimaryColumn('varchar')
-  id: string;
+  @PrimaryColumn('varchar') id: string;
 
   /** Stored lower-cased; unique. */
-  @Column('varchar')
-  email: string;
-
-  @Column('varchar')
-  name: string;
-
-  @Column('varchar')
-  role: Role;
-
-  @Column({ type: 'varchar', nullable: true })
-  studyId: string | null;
-
-  @Column({ type: 'varchar', nullable: true })
-  siteId: string | null;
+  @Column('varchar') email: string;
+  @Column('varchar') name: string;
+  @Column('varchar') role: Role;
+  @Column({ type: 'varchar', nullable: true }) studyId: string | null;
+  @Column({ type: 'varchar', nullable: true }) siteId: string | null;
 
   /** bcrypt hash; null while the invitation is not yet accepted. */
-  @Column({ type: 'varchar', nullable: true })
-  passwordHash: string | null;
-
-  @Column('varchar')
-  state: UserState;
-
-  @Column('integer')
-  failedSignIns: number;
-
-  @Column({ type: 'varchar', nullable: true })
-  lockedUntil: string | null;
-
-  @Column({ type: 'varchar', nullable: true })
-  lastSignInAt: string | null;
-
-  @Column({ type: 'varchar', nullable: true })
-  passwordChangedAt: string | null;
-
-  @Column('varchar')
-  createdAt: string;
-
-  @Column('varchar')
-  updatedAt: string;
+  @Column({ type: 'varchar', nullable: true }) passwordHash: string | null;
+  @Column('varchar') state: UserState;
+  @Column('integer') failedSignIns: number;
+  @Column({ type: 'varchar', nullable: true }) lockedUntil: string | null;
+  @Column({ type: 'varchar', nullable: true }) lastSignInAt: string | null;
+  @Column({ type: 'varchar', nullable: true }) passwordChangedAt: string | null;
+  @Column('varchar') createdAt: string;
+  @Column('varchar') updatedAt: string;
 }

@@ -1,15 +1,15 @@
-import { Controller, Get, Param, Query, Req, Res } from '@nestjs/common';
+import { Controller, Get, Param, Query, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiNotFoundResponse, ApiTags } from '@nestjs/swagger';
 import { ApiResult } from '../openapi/api-responses';
-import type { Request, Response } from 'express';
-import type { AnalysisRunDto, Page, QualityDto } from '@gyre/shared';
+import type { Response } from 'express';
+import type { AnalysisRunView, Page, QualityView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { PageQueryDto } from '../common/pagination/page-query.dto';
 import { AnalysisRunsService } from './analysis-runs.service';
 import { ChannelCurveQueryDto } from './dto/channel-curve-query.dto';
 import { ResultsQueryDto } from './dto/results-query.dto';
-import { sendEncoded } from './encoded-body';
+import { sendEncoded, type EncodedBody } from './encoded-body';
 
 @ApiTags('results')
 @ApiBearerAuth()
@@ -18,61 +18,57 @@ export class AnalysisResultsController {
   constructor(private readonly runs: AnalysisRunsService) {}
 
   // The results routes send bodies serialised and compressed once per run (see
-  // AnalysisRunsService.resultsBody), so they write the response themselves.
+  // AnalysisRunsService.resultsBody), so they write the response themselves (`send`).
   @Get('results')
   @RequirePermission('read', 'Result')
-  @ApiResult('RecordingResultsDto', {
+  @ApiResult('RecordingResultsView', {
     description:
-      "RecordingResultsDto: the region of interest onset curve with CI, rest spectrum with PAF/CoG, per-channel table, quality checks; series rounded as RESULT_SERIES_DECIMALS says. The raster and the channels' curves have routes of their own.",
+      "RecordingResultsView: the region of interest onset curve with CI, rest spectrum with PAF/CoG, per-channel table, quality checks; series rounded as RESULT_SERIES_DECIMALS says. The raster and the channels' curves have routes of their own.",
   })
   async results(
     @CurrentCaller() caller: Caller,
     @Param('recordingId') recordingId: string,
     @Query() query: ResultsQueryDto,
-    @Req() request: Request,
     @Res() response: Response,
   ): Promise<void> {
-    sendEncoded(request, response, await this.runs.resultsBody(caller, recordingId, query.runId));
+    await send(response, this.runs.resultsBody(caller, recordingId, query.runId));
   }
 
   @Get('results/raster')
   @RequirePermission('read', 'Result')
-  @ApiResult('TrialRasterDto', {
+  @ApiResult('TrialRasterView', {
     description:
-      "TrialRasterDto: the region of interest's trial raster (≤ 500 points) and per-trial Δf",
+      "TrialRasterView: the region of interest's trial raster (≤ 500 points) and per-trial Δf",
   })
   @ApiNotFoundResponse({ description: 'No such run, or a run without task results' })
   async raster(
     @CurrentCaller() caller: Caller,
     @Param('recordingId') recordingId: string,
     @Query() query: ResultsQueryDto,
-    @Req() request: Request,
     @Res() response: Response,
   ): Promise<void> {
-    sendEncoded(request, response, await this.runs.rasterBody(caller, recordingId, query.runId));
+    await send(response, this.runs.rasterBody(caller, recordingId, query.runId));
   }
 
   @Get('results/curves')
   @RequirePermission('read', 'Result')
-  @ApiResult('OnsetCurveDto', { description: "OnsetCurveDto: one channel's onset curve with CI" })
+  @ApiResult('OnsetCurveView', { description: "OnsetCurveView: one channel's onset curve with CI" })
   @ApiNotFoundResponse({ description: 'No such run, or no curve for that channel' })
   async channelCurve(
     @CurrentCaller() caller: Caller,
     @Param('recordingId') recordingId: string,
     @Query() query: ChannelCurveQueryDto,
-    @Req() request: Request,
     @Res() response: Response,
   ): Promise<void> {
-    sendEncoded(
-      request,
+    await send(
       response,
-      await this.runs.channelCurveBody(caller, recordingId, query.channel, query.runId),
+      this.runs.channelCurveBody(caller, recordingId, query.channel, query.runId),
     );
   }
 
   @Get('runs')
   @RequirePermission('read', 'AnalysisRun')
-  @ApiResult('AnalysisRunDto', {
+  @ApiResult('AnalysisRunView', {
     description: 'Runs of the recording with settings version, code version, checksum',
     page: true,
   })
@@ -80,20 +76,25 @@ export class AnalysisResultsController {
     @CurrentCaller() caller: Caller,
     @Param('recordingId') recordingId: string,
     @Query() query: PageQueryDto,
-  ): Promise<Page<AnalysisRunDto>> {
+  ): Promise<Page<AnalysisRunView>> {
     return this.runs.listForRecording(caller, recordingId, query);
   }
 
   @Get('quality')
   @RequirePermission('read', 'Recording')
-  @ApiResult('QualityDto', {
+  @ApiResult('QualityView', {
     description: "The latest run's quality checks (null before a result exists)",
     nullable: true,
   })
   quality(
     @CurrentCaller() caller: Caller,
     @Param('recordingId') recordingId: string,
-  ): Promise<QualityDto | null> {
+  ): Promise<QualityView | null> {
     return this.runs.quality(caller, recordingId);
   }
+}
+
+/** Sends a body encoded once, in the encoding the request accepts (its `Accept-Encoding`). */
+async function send(response: Response, body: Promise<EncodedBody>): Promise<void> {
+  sendEncoded(response.req, response, await body);
 }

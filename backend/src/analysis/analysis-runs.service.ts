@@ -3,23 +3,24 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, In } from 'typeorm';
 import type {
-  AnalysisRunDto,
+  AnalysisRunView,
   Page,
-  QualityDto,
-  RecordingResultsDto,
-  RoiUsageDto,
+  QualityView,
+  RecordingResultsView,
+  RoiUsageView,
   RunTrigger,
 } from '@gyre/shared';
 import { scopedWhere, scopeSql } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
-import { SqliteReads } from '../common/database/sqlite-reads.service';
+import { SqliteReadsService } from '../common/database/sqlite-reads.service';
+import { currentRunHeads, type CurrentRunHead } from './current-run-heads.reads';
 import { PageQueryDto, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
 import type { AnalyzeOutcome, RunSummary } from '../jobs/worker/worker-tasks';
 import { Recording } from '../recordings/recording.entity';
 import { RecordingsError, recordingsError } from '../recordings/recordings.errors';
-import { CURRENT_STATES, RecordingsService } from '../recordings/recordings.service';
+import { RecordingsService } from '../recordings/recordings.service';
 import type { AnalysisSettings as SettingsValues } from '../signal/pipeline/analysis-settings';
 import { GYRE_VERSION } from '../version';
 import { AnalysisError, analysisError } from './analysis.errors';
@@ -50,22 +51,15 @@ export interface StoredRun {
   stored: boolean;
   /** False when the numbers equal those of the recording's previous run. */
   numbersChanged: boolean;
-  roiUsage: RoiUsageDto;
+  roiUsage: RoiUsageView;
   warnings: string[];
   pafHz: number | null;
   cogHz: number | null;
 }
 
 /** A current run's headline numbers (see `currentRunNumbersOfVisits`). */
-export interface RunNumbers {
-  id: string;
-  visitId: string;
-  kind: AnalysisRun['kind'];
-  bandSource: AnalysisRun['bandSource'];
-  pafHz: number | null;
-  cogHz: number | null;
-  roiDeltaFHz: number | null;
-  roiUsage: RoiUsageDto;
+export interface RunNumbers extends CurrentRunHead {
+  roiUsage: RoiUsageView;
 }
 
 /** Runs whose region-of-interest usage is kept parsed: a few per visit of a few hundred visits. */
@@ -102,13 +96,13 @@ type RunHeadColumns =
 @Injectable()
 export class AnalysisRunsService {
   /** Region-of-interest usage by run id (see roiUsageOfRuns). */
-  private readonly roiUsageKept = new Map<string, RoiUsageDto>();
+  private readonly roiUsageKept = new Map<string, RoiUsageView>();
 
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly recordings: RecordingsService,
     private readonly bodies: ResultsBodyCache,
-    private readonly reads: SqliteReads,
+    private readonly reads: SqliteReadsService,
     private readonly stale: SettingsStaleness,
   ) {}
 
@@ -234,22 +228,10 @@ export class AnalysisRunsService {
    * (about 0.6 MB for a 64-channel task) into each trajectory request.
    */
   currentRunNumbersOfVisits(visitIds: readonly string[]): Promise<RunNumbers[]> {
-    if (visitIds.length === 0) return Promise.resolve([]);
-    // The lists travel as JSON arrays (SQLite's json_each), so one statement serves any length.
-    const rows = this.reads.all<Omit<RunNumbers, 'roiUsage'>>(
-      `SELECT run."id" AS "id", run."visitId" AS "visitId", run."kind" AS "kind",
-          run."bandSource" AS "bandSource", run."pafHz" AS "pafHz", run."cogHz" AS "cogHz",
-          run."roiDeltaFHz" AS "roiDeltaFHz"
-        FROM "recording" recording
-        INNER JOIN "analysis_run" run ON run."id" = recording."latestRunId"
-        WHERE recording."visitId" IN (SELECT value FROM json_each(?))
-          AND recording."state" IN (SELECT value FROM json_each(?))
-        ORDER BY recording."createdAt" ASC, recording."id" ASC`,
-      [JSON.stringify(visitIds), JSON.stringify(CURRENT_STATES)],
-    );
+    const rows = currentRunHeads(this.reads, { visitIds });
     const usage = this.roiUsageOfRuns(rows.map((row) => row.id));
     return Promise.resolve(
-      rows.map((row) => ({ ...row, roiUsage: usage.get(row.id) as RoiUsageDto })),
+      rows.map((row) => ({ ...row, roiUsage: usage.get(row.id) as RoiUsageView })),
     );
   }
 
@@ -259,8 +241,8 @@ export class AnalysisRunsService {
    * each run's answer is kept: a stored run never changes (runs are only ever inserted), so
    * the kept value is that of the row for good. Kept values are frozen: shared, never changed.
    */
-  private roiUsageOfRuns(runIds: readonly string[]): Map<string, RoiUsageDto> {
-    const out = new Map<string, RoiUsageDto>();
+  private roiUsageOfRuns(runIds: readonly string[]): Map<string, RoiUsageView> {
+    const out = new Map<string, RoiUsageView>();
     const missing: string[] = [];
     for (const id of runIds) {
       const kept = this.roiUsageKept.get(id);
@@ -274,7 +256,7 @@ export class AnalysisRunsService {
       [JSON.stringify(missing)],
     );
     for (const row of rows) {
-      const usage = deepFreeze(JSON.parse(row.roiUsage) as RoiUsageDto);
+      const usage = deepFreeze(JSON.parse(row.roiUsage) as RoiUsageView);
       if (this.roiUsageKept.size >= KEPT_ROI_USAGES) {
         this.roiUsageKept.delete(this.roiUsageKept.keys().next().value as string);
       }
@@ -288,7 +270,7 @@ export class AnalysisRunsService {
     caller: Caller,
     recordingId: string,
     query: PageQueryDto,
-  ): Promise<Page<AnalysisRunDto>> {
+  ): Promise<Page<AnalysisRunView>> {
     await this.recordings.findInScope(caller, recordingId, 'read', 'AnalysisRun');
     const window = pageWindowOf(query, 'desc');
     const found = await this.dataSource.getRepository(AnalysisRun).findAndCount({
@@ -299,7 +281,7 @@ export class AnalysisRunsService {
       take: window.take,
     });
     const stale = await this.staleness(found[0]);
-    return toPage(found, window, (run) => toRunDto(run, stale.get(run.id) ?? []));
+    return toPage(found, window, (run) => toRunView(run, stale.get(run.id) ?? []));
   }
 
   /**
@@ -316,7 +298,7 @@ export class AnalysisRunsService {
     const key = `${run.id} results ${JSON.stringify([stale, sourceOf(recording)])}`;
     return this.bodies.get(key, async () => {
       const full = await this.storedRun(run.id);
-      return encodeJson(roundedResults(toResultsDto(full, recording, stale)));
+      return encodeJson(roundedResults(toResultsView(full, recording, stale)));
     });
   }
 
@@ -432,7 +414,7 @@ export class AnalysisRunsService {
   }
 
   /** Quality checks only: what technicians see beside the processing state. */
-  async quality(caller: Caller, recordingId: string): Promise<QualityDto | null> {
+  async quality(caller: Caller, recordingId: string): Promise<QualityView | null> {
     const recording = await this.recordings.findInScope(caller, recordingId, 'read', 'Recording');
     if (recording.latestRunId === null) return null;
     const run = await this.dataSource.getRepository(AnalysisRun).findOne({
@@ -483,11 +465,11 @@ const RUN_COLUMNS = {
   createdAt: true,
 } as const;
 
-export function roiUsageOf(run: Pick<AnalysisRun, 'summaryJson'>): RoiUsageDto {
+export function roiUsageOf(run: Pick<AnalysisRun, 'summaryJson'>): RoiUsageView {
   return (JSON.parse(run.summaryJson) as RunSummary).roiUsage;
 }
 
-export function toRunDto(run: AnalysisRun, staleSettings: string[]): AnalysisRunDto {
+export function toRunView(run: AnalysisRun, staleSettings: string[]): AnalysisRunView {
   return {
     id: run.id,
     recordingId: run.recordingId,
@@ -527,7 +509,7 @@ function deepFreeze<T>(value: T): T {
   return value;
 }
 
-function sourceOf(recording: ResultsSource): RecordingResultsDto['source'] {
+function sourceOf(recording: ResultsSource): RecordingResultsView['source'] {
   return {
     recordingId: recording.id,
     kind: recording.kind,
@@ -551,14 +533,14 @@ function summaryOf(run: Pick<AnalysisRun, 'summaryJson'>): RunSummary {
  * route sends these with rounded series (results-http-shape.ts); the trial raster and the
  * channels' curves have routes of their own.
  */
-export function toResultsDto(
+export function toResultsView(
   run: AnalysisRun,
   recording: ResultsSource,
   staleSettings: string[],
-): RecordingResultsDto {
+): RecordingResultsView {
   const summary = summaryOf(run);
   const series = decodeResultSeries(run.series);
-  let task: RecordingResultsDto['task'] = null;
+  let task: RecordingResultsView['task'] = null;
   if (summary.task !== null) {
     task = {
       timeS: plain(series.timeS),
@@ -570,7 +552,7 @@ export function toResultsDto(
       epochs: summary.task.epochs,
     };
   }
-  const rest: RecordingResultsDto['rest'] =
+  const rest: RecordingResultsView['rest'] =
     summary.rest === null
       ? null
       : {
@@ -583,7 +565,7 @@ export function toResultsDto(
           alphaWindowHz: summary.rest.alphaWindowHz,
         };
   return {
-    run: toRunDto(run, staleSettings),
+    run: toRunView(run, staleSettings),
     source: sourceOf(recording),
     channels: summary.channels,
     task,

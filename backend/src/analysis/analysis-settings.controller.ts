@@ -1,7 +1,7 @@
 import { Body, Controller, Get, Param, Post, Query, HttpStatus } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { ApiResult } from '../openapi/api-responses';
-import type { AnalysisSettingsDto, Page } from '@gyre/shared';
+import type { AnalysisSettingsView, Page } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { PageQueryDto } from '../common/pagination/page-query.dto';
@@ -16,17 +16,17 @@ export class AnalysisSettingsController {
 
   @Get()
   @RequirePermission('read', 'AnalysisSettings')
-  @ApiResult('AnalysisSettingsDto', { description: "The study's current settings version" })
+  @ApiResult('AnalysisSettingsView', { description: "The study's current settings version" })
   current(
     @CurrentCaller() caller: Caller,
     @Param('studyId') studyId: string,
-  ): Promise<AnalysisSettingsDto> {
+  ): Promise<AnalysisSettingsView> {
     return this.settings.current(caller, studyId);
   }
 
   @Get('versions')
   @RequirePermission('read', 'AnalysisSettings')
-  @ApiResult('AnalysisSettingsDto', {
+  @ApiResult('AnalysisSettingsView', {
     description: 'Every settings version, newest first by default',
     page: true,
   })
@@ -34,13 +34,13 @@ export class AnalysisSettingsController {
     @CurrentCaller() caller: Caller,
     @Param('studyId') studyId: string,
     @Query() query: PageQueryDto,
-  ): Promise<Page<AnalysisSettingsDto>> {
+  ): Promise<Page<AnalysisSettingsView>> {
     return this.settings.versions(caller, studyId, query);
   }
 
   @Post()
   @RequirePermission('create', 'AnalysisSettings')
-  @ApiResult('AnalysisSettingsDto', {
+  @ApiResult('AnalysisSettingsView', {
     description: 'A new settings version (audited); earlier runs keep theirs',
     status: HttpStatus.CREATED,
   })
@@ -48,7 +48,7 @@ export class AnalysisSettingsController {
     @CurrentCaller() caller: Caller,
     @Param('studyId') studyId: string,
     @Body() change: AnalysisSettingsChangeDto,
-  ): Promise<AnalysisSettingsDto> {
+  ): Promise<AnalysisSettingsView> {
     return this.settings.change(caller, studyId, change);
   }
 }

@@ -3,10 +3,10 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@gyre/shared';
-import type { AnalysisSettingsDto, Page } from '@gyre/shared';
+import type { AnalysisSettingsView, Page } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { PageQueryDto, pageWindowOf } from '../common/pagination/page-query.dto';
 import { nowIso } from '../common/time';
 import {
@@ -30,23 +30,23 @@ import { parseStoredSettings, settingsJson } from './settings-values';
 export class AnalysisSettingsService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
     private readonly studies: StudiesService,
   ) {}
 
-  async current(caller: Caller, studyId: string): Promise<AnalysisSettingsDto> {
+  async current(caller: Caller, studyId: string): Promise<AnalysisSettingsView> {
     await this.studyInScope(caller, studyId, 'read');
     const current = await this.currentFor(studyId);
     const previous = await this.byVersion(studyId, current.version - 1);
-    return toSettingsDto(current, previous);
+    return toSettingsView(current, previous);
   }
 
   async versions(
     caller: Caller,
     studyId: string,
     query: PageQueryDto,
-  ): Promise<Page<AnalysisSettingsDto>> {
+  ): Promise<Page<AnalysisSettingsView>> {
     await this.studyInScope(caller, studyId, 'read');
     await this.currentFor(studyId);
     const window = pageWindowOf(query, 'desc');
@@ -56,9 +56,9 @@ export class AnalysisSettingsService {
       skip: window.skip,
       take: window.take,
     });
-    const items: AnalysisSettingsDto[] = [];
+    const items: AnalysisSettingsView[] = [];
     for (const row of rows) {
-      items.push(toSettingsDto(row, await this.byVersion(studyId, row.version - 1)));
+      items.push(toSettingsView(row, await this.byVersion(studyId, row.version - 1)));
     }
     return { items, total, page: window.page, pageSize: window.pageSize };
   }
@@ -68,7 +68,7 @@ export class AnalysisSettingsService {
     caller: Caller,
     studyId: string,
     change: AnalysisSettingsChangeDto,
-  ): Promise<AnalysisSettingsDto> {
+  ): Promise<AnalysisSettingsView> {
     await this.studyInScope(caller, studyId, 'create');
     const { reason, ...values } = change;
     const problems = settingsProblems(values);
@@ -109,7 +109,7 @@ export class AnalysisSettingsService {
         reason: row.reason,
         clientIp: caller.clientIp,
       });
-      return toSettingsDto(row, previous);
+      return toSettingsView(row, previous);
     });
   }
 
@@ -177,10 +177,10 @@ function pick(
   return Object.fromEntries(changes.map((c) => [c.field, values[c.field]]));
 }
 
-export function toSettingsDto(
+export function toSettingsView(
   row: AnalysisSettings,
   previous: AnalysisSettings | null,
-): AnalysisSettingsDto {
+): AnalysisSettingsView {
   const values = valuesOf(row);
   return {
     id: row.id,

@@ -1,6 +1,6 @@
 import { roundSignificant, roundTo, trialRasterOf } from './results-http-shape';
 import type { RunSummary } from '../jobs/worker/worker-tasks';
-import { seededUniform } from '../signal/onset/random';
+import { seededUniform } from '../signal/random/random';
 
 describe('rounding of the results series', () => {
   it('rounds as ECMAScript Number.prototype.toFixed does (exact decimal rounding of the double)', () => {

@@ -2,14 +2,14 @@
  * What the results routes send: the stored run's numbers shaped for what the screens draw.
  * Series are rounded as `RESULT_SERIES_DECIMALS` says (the one place the rule is written);
  * the raster and each channel's curve have routes of their own. The stored run is never
- * touched: the visit report reads `toResultsDto` at full precision.
+ * touched: the visit report reads `toResultsView` at full precision.
  */
 import {
   RESULT_SERIES_DECIMALS,
   SPECTRUM_POWER_SIGNIFICANT_DIGITS,
-  type OnsetCurveDto,
-  type RecordingResultsDto,
-  type TrialRasterDto,
+  type OnsetCurveView,
+  type RecordingResultsView,
+  type TrialRasterView,
 } from '@gyre/shared';
 import type { RunSummary } from '../jobs/worker/worker-tasks';
 
@@ -44,7 +44,7 @@ function roundedAxis(values: ArrayLike<number>, decimals: number, name: string):
   });
 }
 
-export function roundedCurve(curve: OnsetCurveDto): OnsetCurveDto {
+export function roundedCurve(curve: OnsetCurveView): OnsetCurveView {
   const d = RESULT_SERIES_DECIMALS.curveHz;
   return {
     name: curve.name,
@@ -55,7 +55,7 @@ export function roundedCurve(curve: OnsetCurveDto): OnsetCurveDto {
 }
 
 /** The results answer: the full-precision DTO with its series rounded. */
-export function roundedResults(full: RecordingResultsDto): RecordingResultsDto {
+export function roundedResults(full: RecordingResultsView): RecordingResultsView {
   const task = full.task;
   const rest = full.rest;
   return {
@@ -92,7 +92,7 @@ export function channelCurveOf(
   summary: RunSummary,
   series: Record<string, Float64Array>,
   channel: string,
-): OnsetCurveDto | null {
+): OnsetCurveView | null {
   if (summary.task === null || !summary.task.curveChannels.includes(channel)) return null;
   return roundedCurve(curveOf(series, `channel:${channel}`, channel));
 }
@@ -101,7 +101,7 @@ export function channelCurveOf(
 export function trialRasterOf(
   summary: RunSummary,
   series: Record<string, Float64Array>,
-): TrialRasterDto | null {
+): TrialRasterView | null {
   if (summary.task === null) return null;
   const { rasterTrials, rasterPoints } = summary.task;
   const values = series.raster ?? new Float64Array(0);
@@ -142,7 +142,7 @@ export function curveOf(
   series: Record<string, Float64Array>,
   prefix: string,
   name: string,
-): OnsetCurveDto {
+): OnsetCurveView {
   return {
     name,
     meanHz: numbers(series[`${prefix}:mean`]),

@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { SqliteReads } from '../common/database/sqlite-reads.service';
+import { SqliteReadsService } from '../common/database/sqlite-reads.service';
 import type { AnalysisSettings as SettingsValues } from '../signal/pipeline/analysis-settings';
 import type { AnalysisRun } from './analysis-run.entity';
 import { staleSettingsPhrases } from './settings-differences';
@@ -39,7 +39,7 @@ export class SettingsStaleness {
   private readonly phrases = new Map<string, string[]>();
 
   constructor(
-    private readonly reads: SqliteReads,
+    private readonly reads: SqliteReadsService,
     private readonly overrides: VisitAnalysisOverridesService,
   ) {}
 

@@ -1,7 +1,7 @@
 import { Body, Controller, Get, Param, Put } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { ApiResult } from '../openapi/api-responses';
-import type { VisitAnalysisOverrideDto } from '@gyre/shared';
+import type { VisitAnalysisOverrideView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { VisitAnalysisOverrideChangeDto } from './dto/visit-analysis-override-change.dto';
@@ -15,19 +15,19 @@ export class VisitAnalysisOverrideController {
 
   @Get()
   @RequirePermission('read', 'AnalysisSettings')
-  @ApiResult('VisitAnalysisOverrideDto', {
+  @ApiResult('VisitAnalysisOverrideView', {
     description: "The visit's own analysis choices (revision 0: none)",
   })
   get(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
-  ): Promise<VisitAnalysisOverrideDto> {
+  ): Promise<VisitAnalysisOverrideView> {
     return this.overrides.get(caller, visitId);
   }
 
   @Put()
   @RequirePermission('update', 'AnalysisSettings')
-  @ApiResult('VisitAnalysisOverrideDto', {
+  @ApiResult('VisitAnalysisOverrideView', {
     description:
       'A new revision (audited, reason required) and a re-run of the visit; 409 ANALYSIS_OVERRIDE_UNCHANGED when nothing changes',
   })
@@ -35,7 +35,7 @@ export class VisitAnalysisOverrideController {
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
     @Body() change: VisitAnalysisOverrideChangeDto,
-  ): Promise<VisitAnalysisOverrideDto> {
+  ): Promise<VisitAnalysisOverrideView> {
     return this.overrides.change(caller, visitId, change);
   }
 }

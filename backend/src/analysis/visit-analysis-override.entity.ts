@@ -1,4 +1,5 @@
-import { Column, Entity, PrimaryColumn, Unique } from 'typeorm';
+import { Column, Entity, Unique } from 'typeorm';
+import { StudySiteColumns } from '../common/database/scoped-columns';
 
 /**
  * One revision of a visit's own analysis choices (region of interest, band, onset label) over
@@ -7,31 +8,11 @@ import { Column, Entity, PrimaryColumn, Unique } from 'typeorm';
  */
 @Entity('visit_analysis_override')
 @Unique('UQ_visit_analysis_override_revision', ['visitId', 'revision'])
-export class VisitAnalysisOverride {
-  @PrimaryColumn('varchar', { length: 36 })
-  id: string;
-
-  @Column('varchar', { length: 36 })
-  visitId: string;
-
-  @Column('varchar', { length: 36 })
-  studyId: string;
-
-  @Column('varchar', { length: 36 })
-  siteId: string;
-
-  @Column('integer')
-  revision: number;
-
-  @Column('text')
-  valuesJson: string;
-
-  @Column('text')
-  reason: string;
-
-  @Column('varchar', { length: 36 })
-  createdById: string;
-
-  @Column('varchar', { length: 30 })
-  createdAt: string;
+export class VisitAnalysisOverride extends StudySiteColumns {
+  @Column('varchar', { length: 36 }) visitId: string;
+  @Column('integer') revision: number;
+  @Column('text') valuesJson: string;
+  @Column('text') reason: string;
+  @Column('varchar', { length: 36 }) createdById: string;
+  @Column('varchar', { length: 30 }) createdAt: string;
 }

@@ -4,10 +4,10 @@ import { EventEmitter2 } from '@nestjs/event-emitter';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import { subject } from '@gyre/shared';
-import type { VisitAnalysisOverrideDto, VisitAnalysisOverrideValues } from '@gyre/shared';
+import type { VisitAnalysisOverrideView, VisitAnalysisOverrideValues } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { nowIso } from '../common/time';
 import { VisitsService } from '../visits/visits.service';
 import { AnalysisError, analysisError } from './analysis.errors';
@@ -37,24 +37,24 @@ export interface EffectiveSettings {
 export class VisitAnalysisOverridesService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
     private readonly settings: AnalysisSettingsService,
     private readonly visits: VisitsService,
     private readonly events: EventEmitter2,
   ) {}
 
-  async get(caller: Caller, visitId: string): Promise<VisitAnalysisOverrideDto> {
+  async get(caller: Caller, visitId: string): Promise<VisitAnalysisOverrideView> {
     const visit = await this.visits.findInScope(caller, 'read', visitId);
     this.assertMay(caller, 'read', visit.studyId, visitId);
-    return toOverrideDto(visitId, await this.latest(visitId));
+    return toOverrideView(visitId, await this.latest(visitId));
   }
 
   async change(
     caller: Caller,
     visitId: string,
     change: VisitAnalysisOverrideChangeDto,
-  ): Promise<VisitAnalysisOverrideDto> {
+  ): Promise<VisitAnalysisOverrideView> {
     const visit = await this.visits.findInScope(caller, 'read', visitId);
     this.assertMay(caller, 'update', visit.studyId, visitId);
     const { reason, ...values } = change;
@@ -108,7 +108,7 @@ export class VisitAnalysisOverridesService {
       reason: row.reason,
     };
     await this.events.emitAsync(AnalysisEvents.VisitOverrideChanged, event);
-    return toOverrideDto(visitId, row);
+    return toOverrideView(visitId, row);
   }
 
   /** The settings a computation of this visit uses now. */
@@ -166,10 +166,10 @@ export function valuesOfOverrideJson(valuesJson: string): VisitAnalysisOverrideV
   return normalised(JSON.parse(valuesJson) as VisitAnalysisOverrideValues);
 }
 
-function toOverrideDto(
+function toOverrideView(
   visitId: string,
   row: VisitAnalysisOverride | null,
-): VisitAnalysisOverrideDto {
+): VisitAnalysisOverrideView {
   if (row === null) {
     return {
       visitId,

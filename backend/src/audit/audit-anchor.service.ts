@@ -12,7 +12,7 @@ import { createReadStream } from 'node:fs';
 import type { Readable } from 'node:stream';
 import { DataSource } from 'typeorm';
 import type { AuditAnchorsCheck } from '@gyre/shared';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { nowIso } from '../common/time';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
@@ -63,7 +63,7 @@ export class AuditAnchorService
     // Injected so that TypeORM has opened the file and run the migrations before we read it.
     @InjectDataSource() _dataSource: DataSource,
     // Absent in contexts without it (the first-admin command); anchors then write directly.
-    @Optional() private readonly writes?: WriteTransactions,
+    @Optional() private readonly writes?: WriteTransactionsService,
   ) {
     ({ anchorFile: this.anchorFile, keyFile: this.keyFile } = anchorPaths(config.dataDir));
   }

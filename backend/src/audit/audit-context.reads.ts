@@ -3,7 +3,7 @@
 import { Injectable } from '@nestjs/common';
 import type { Action, AppAbility, AuditEntryContext, SubjectName } from '@gyre/shared';
 import { scopeSql, type ScopeSql } from '../auth/access-scope';
-import { SqliteReads } from '../common/database/sqlite-reads.service';
+import { SqliteReadsService } from '../common/database/sqlite-reads.service';
 
 /** The entry fields the context is read from. */
 export interface ContextSource {
@@ -29,6 +29,14 @@ const VISIT_CHILD_TABLES: Record<string, { table: string; participant: boolean; 
   AnalysisRun: { table: 'analysis_run', participant: true, kind: true },
   VisitReview: { table: 'visit_review', participant: false, kind: false },
 };
+
+/** What names a row of each subject an entry can point at: a visit's label, a code, a name. */
+const NAME_COLUMNS = {
+  Visit: { table: 'visit', column: 'label' },
+  Participant: { table: 'participant', column: 'code' },
+  User: { table: 'user', column: 'name' },
+} as const;
+type NamedSubject = keyof typeof NAME_COLUMNS;
 
 /** Object types whose objectId is a visit's id (an override is keyed by its visit). */
 const VISIT_ID_TYPES = new Set(['Visit', 'VisitAnalysisOverride']);
@@ -67,7 +75,7 @@ function scopeOrNull(
  */
 @Injectable()
 export class AuditContextReads {
-  constructor(private readonly reads: SqliteReads) {}
+  constructor(private readonly reads: SqliteReadsService) {}
 
   contextsFor(ability: AppAbility, entries: readonly ContextSource[]): AuditEntryContext[] {
     const links = this.links(entries);
@@ -86,27 +94,9 @@ export class AuditContextReads {
         participantIds.add(entry.objectId);
       }
     }
-    const visits = this.named(
-      ability,
-      'Visit',
-      `SELECT v."id" AS "id", v."label" AS "name" FROM "visit" v`,
-      'v',
-      visitIds,
-    );
-    const participants = this.named(
-      ability,
-      'Participant',
-      `SELECT p."id" AS "id", p."code" AS "name" FROM "participant" p`,
-      'p',
-      participantIds,
-    );
-    const users = this.named(
-      ability,
-      'User',
-      `SELECT u."id" AS "id", u."name" AS "name" FROM "user" u`,
-      'u',
-      userIds,
-    );
+    const visits = this.named(ability, 'Visit', visitIds);
+    const participants = this.named(ability, 'Participant', participantIds);
+    const users = this.named(ability, 'User', userIds);
     return entries.map((entry) => {
       const link = entry.objectId === null ? undefined : links.get(entry.objectId);
       const participantId =
@@ -173,18 +163,14 @@ export class AuditContextReads {
   }
 
   /** id → name of the rows among `ids` the reader may read. */
-  private named(
-    ability: AppAbility,
-    subject: SubjectName,
-    select: string,
-    alias: string,
-    ids: Set<string>,
-  ): Map<string, string> {
+  private named(ability: AppAbility, subject: NamedSubject, ids: Set<string>): Map<string, string> {
     if (ids.size === 0) return new Map();
-    const scope = scopeOrNull(ability, 'read', subject, alias);
+    const scope = scopeOrNull(ability, 'read', subject, 't');
     if (scope === null) return new Map();
+    const { table, column } = NAME_COLUMNS[subject];
     const rows = this.reads.all<{ id: string; name: string }>(
-      `${select} WHERE ${alias}."id" IN (SELECT value FROM json_each(?)) AND ${scope.sql}`,
+      `SELECT t."id" AS "id", t."${column}" AS "name" FROM "${table}" t
+        WHERE t."id" IN (SELECT value FROM json_each(?)) AND ${scope.sql}`,
       [JSON.stringify([...ids]), ...scope.params],
     );
     return new Map(rows.map((row) => [row.id, row.name]));

@@ -6,49 +6,21 @@ import { Column, Entity, PrimaryColumn } from 'typeorm';
  */
 @Entity('audit_entry')
 export class AuditEntry {
-  @PrimaryColumn('integer')
-  seq: number;
-
-  @Column('varchar')
-  at: string;
-
-  @Column({ type: 'varchar', nullable: true })
-  actorId: string | null;
-
-  @Column({ type: 'varchar', nullable: true })
-  actorEmail: string | null;
-
-  @Column('varchar')
-  action: string;
-
-  @Column('varchar')
-  objectType: string;
-
-  @Column({ type: 'varchar', nullable: true })
-  objectId: string | null;
-
-  @Column({ type: 'varchar', nullable: true })
-  studyId: string | null;
-
-  @Column({ type: 'varchar', nullable: true })
-  siteId: string | null;
+  @PrimaryColumn('integer') seq: number;
+  @Column('varchar') at: string;
+  @Column({ type: 'varchar', nullable: true }) actorId: string | null;
+  @Column({ type: 'varchar', nullable: true }) actorEmail: string | null;
+  @Column('varchar') action: string;
+  @Column('varchar') objectType: string;
+  @Column({ type: 'varchar', nullable: true }) objectId: string | null;
+  @Column({ type: 'varchar', nullable: true }) studyId: string | null;
+  @Column({ type: 'varchar', nullable: true }) siteId: string | null;
 
   /** Canonical JSON text, or null. */
-  @Column({ type: 'text', nullable: true })
-  before: string | null;
-
-  @Column({ type: 'text', nullable: true })
-  after: string | null;
-
-  @Column({ type: 'text', nullable: true })
-  reason: string | null;
-
-  @Column({ type: 'varchar', nullable: true })
-  clientIp: string | null;
-
-  @Column('varchar')
-  prevHash: string;
-
-  @Column('varchar')
-  hash: string;
+  @Column({ type: 'text', nullable: true }) before: string | null;
+  @Column({ type: 'text', nullable: true }) after: string | null;
+  @Column({ type: 'text', nullable: true }) reason: string | null;
+  @Column({ type: 'varchar', nullable: true }) clientIp: string | null;
+  @Column('varchar') prevHash: string;
+  @Column('varchar') hash: string;
 }

@@ -1,24 +1,16 @@
 import { Controller, Get, Query, Res } from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiForbiddenResponse,
-  ApiOkResponse,
-  ApiOperation,
-  ApiTags,
-} from '@nestjs/swagger';
+import { ApiOperation } from '@nestjs/swagger';
 import type { Response } from 'express';
 import type { AuditEntryView, AuditVerifyResult, Page } from '@gyre/shared';
-import { ApiFile } from '../openapi/api-responses';
+import { ApiFile, ApiResult } from '../openapi/api-responses';
 import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
+import { ScopedController } from '../common/http/scoped-controller';
 import { AuditAnchorService } from './audit-anchor.service';
 import { AuditExportService } from './audit-export.service';
 import { AuditService } from './audit.service';
 import { AuditQueryDto } from './dto/audit-query.dto';
-import { AuditPageDto, AuditVerifyResponseDto } from './dto/audit-responses.dto';
 
-@ApiTags('audit')
-@ApiBearerAuth()
-@ApiForbiddenResponse({ description: 'Only monitors (their study) and admins read the trail' })
+@ScopedController('audit', 'Only monitors (their study) and admins read the trail')
 @Controller('audit')
 export class AuditController {
   constructor(
@@ -30,7 +22,7 @@ export class AuditController {
   @Get()
   @RequirePermission('read', 'AuditEntry')
   @ApiOperation({ summary: 'Audit entries, filtered by actor, action, object and time range' })
-  @ApiOkResponse({ type: AuditPageDto })
+  @ApiResult('AuditEntryView', { description: 'The entries, newest first', page: true })
   list(
     @CurrentCaller() caller: Caller,
     @Query() query: AuditQueryDto,
@@ -44,7 +36,7 @@ export class AuditController {
     summary:
       'Whether the hash chain is intact and agrees with every signed checkpoint (truncation, re-hashing), and the first broken entry',
   })
-  @ApiOkResponse({ type: AuditVerifyResponseDto })
+  @ApiResult('AuditVerifyResult', { description: 'The chain and checkpoint check' })
   verify(): Promise<AuditVerifyResult> {
     return this.audit.verify();
   }

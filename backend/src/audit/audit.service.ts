@@ -59,7 +59,7 @@ interface Row extends ChainedContent {
 /**
  * The audit trail. Appends run as one synchronous SQLite transaction that reads the last hash
  * and inserts the next entry, so concurrent requests cannot fork the chain; when called inside
- * a `WriteTransactions.run`, the entry commits or rolls back with the change it describes.
+ * a `WriteTransactionsService.run`, the entry commits or rolls back with the change it describes.
  */
 @Injectable()
 export class AuditService {

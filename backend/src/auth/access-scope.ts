@@ -148,7 +148,7 @@ export interface ScopeSql {
 const COLUMN_NAME = /^[A-Za-z_][A-Za-z0-9_]*$/;
 
 /**
- * For raw SQL (`SqliteReads`): `((alias."f1" = ? AND …) OR (…))` with its values, or `1`
+ * For raw SQL (`SqliteReadsService`): `((alias."f1" = ? AND …) OR (…))` with its values, or `1`
  * when the scope is the whole table; the same rules and the same 404 as `scopedWhere`.
  */
 export function scopeSql(

@@ -7,7 +7,7 @@ export const ACCESS_TOKEN_AUDIENCE = 'gyre-api';
 export const ACCESS_TOKEN_LIFETIME_S = 15 * 60;
 
 @Injectable()
-export class AccessTokens {
+export class AccessTokensService {
   constructor(private readonly jwt: JwtService) {}
 
   /** `sid` names the session (refresh family): the token is refused once that session ends. */

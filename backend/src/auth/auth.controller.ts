@@ -4,7 +4,6 @@ import {
   ApiBearerAuth,
   ApiCookieAuth,
   ApiNoContentResponse,
-  ApiOkResponse,
   ApiOperation,
   ApiTags,
   ApiTooManyRequestsResponse,
@@ -15,6 +14,7 @@ import { Public } from '../common/decorators/public.decorator';
 import { GyreException } from '../common/errors/gyre.exception';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
+import { ApiResult } from '../openapi/api-responses';
 import { AuthThrottlerGuard } from './auth-throttler.guard';
 import { AuthService, IssuedSession } from './auth.service';
 import type { AuthUser } from './auth-user';
@@ -26,7 +26,6 @@ import {
   PasswordResetRequestDto,
   SignInDto,
 } from './dto/auth.dto';
-import { MeResponseDto, SessionResponseDto } from './dto/auth-responses.dto';
 import { REFRESH_TOKEN_LIFETIME_MS } from './refresh-tokens.service';
 
 export const REFRESH_COOKIE = 'gyre_refresh';
@@ -49,7 +48,7 @@ export class AuthController {
   @Post('sign-in')
   @HttpCode(200)
   @ApiOperation({ summary: 'Sign in with e-mail and password; sets the refresh cookie' })
-  @ApiOkResponse({ type: SessionResponseDto })
+  @ApiResult('SessionResponse', { description: 'The access token and the user' })
   async signIn(
     @Body() body: SignInDto,
     @ClientIp() clientIp: string | null,
@@ -68,7 +67,7 @@ export class AuthController {
   @HttpCode(200)
   @ApiCookieAuth(REFRESH_COOKIE)
   @ApiOperation({ summary: 'A new access token for the refresh cookie, which is rotated' })
-  @ApiOkResponse({ type: SessionResponseDto })
+  @ApiResult('SessionResponse', { description: 'The access token and the user' })
   async refresh(
     @Req() request: Request,
     @ClientIp() clientIp: string | null,
@@ -104,7 +103,9 @@ export class AuthController {
   @ApiOperation({
     summary: 'The signed-in user, their study and site, and their packed CASL rules',
   })
-  @ApiOkResponse({ type: MeResponseDto })
+  @ApiResult('MeResponse', {
+    description: 'CASL rules in packRules form: unpack with abilityFromPackedRules',
+  })
   me(@CurrentUser() user: AuthUser): Promise<MeResponse> {
     return this.auth.me(user);
   }

@@ -9,21 +9,21 @@ import { APP_CONFIG } from '../config/config.module';
 import { SitesModule } from '../sites/sites.module';
 import { StudiesModule } from '../studies/studies.module';
 import { WorkerTokensModule } from '../worker-tokens/worker-tokens.module';
-import { AccessTokens } from './access-tokens.service';
+import { AccessTokensService } from './access-tokens.service';
 import { AuthThrottlerGuard } from './auth-throttler.guard';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
 import { JwtAuthGuard } from './jwt-auth.guard';
 import { JwtStrategy } from './jwt.strategy';
-import { OneTimeTokens } from './one-time-tokens.service';
-import { PasswordHasher } from './password-hasher.service';
+import { OneTimeTokensService } from './one-time-tokens.service';
+import { PasswordHasherService } from './password-hasher.service';
 import { PermissionsGuard } from './permissions.guard';
 import {
   REFRESH_REUSE_GRACE,
   REFRESH_REUSE_GRACE_MS,
-  RefreshTokens,
+  RefreshTokensService,
 } from './refresh-tokens.service';
-import { SignInThrottles } from './sign-in-throttle.service';
+import { SignInThrottlesService } from './sign-in-throttle.service';
 
 /** Requests per minute per client address on `/api/auth/*`. */
 export const AUTH_THROTTLE_LIMIT = 60;
@@ -47,17 +47,17 @@ export const AUTH_THROTTLE_LIMIT = 60;
     AccountsModule,
     StudiesModule,
     SitesModule,
-    // The sign-in guard checks worker tokens (`gyre_wt_…` bearers) with its WorkerTokenAuth.
+    // The sign-in guard checks worker tokens (`gyre_wt_…` bearers) with its WorkerTokenAuthService.
     WorkerTokensModule,
   ],
   controllers: [AuthController],
   providers: [
     AuthService,
-    AccessTokens,
-    RefreshTokens,
-    OneTimeTokens,
-    PasswordHasher,
-    SignInThrottles,
+    AccessTokensService,
+    RefreshTokensService,
+    OneTimeTokensService,
+    PasswordHasherService,
+    SignInThrottlesService,
     AuthThrottlerGuard,
     { provide: REFRESH_REUSE_GRACE, useValue: REFRESH_REUSE_GRACE_MS },
     JwtStrategy,
@@ -65,6 +65,6 @@ export const AUTH_THROTTLE_LIMIT = 60;
     { provide: APP_GUARD, useClass: JwtAuthGuard },
     { provide: APP_GUARD, useClass: PermissionsGuard },
   ],
-  exports: [PasswordHasher, OneTimeTokens, RefreshTokens, AccessTokens],
+  exports: [PasswordHasherService, OneTimeTokensService, RefreshTokensService, AccessTokensService],
 })
 export class AuthModule {}

@@ -1,10 +1,10 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { EntityManager } from 'typeorm';
 import { MeResponse, packRulesFor, SessionResponse } from '@gyre/shared';
-import { Accounts } from '../accounts/accounts.service';
+import { AccountsService } from '../accounts/accounts.service';
 import type { User } from '../accounts/user.entity';
 import { AuditService } from '../audit/audit.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
 import type { AppConfig } from '../config/app.config';
@@ -16,20 +16,20 @@ import { SitesService } from '../sites/sites.service';
 import { StudiesService } from '../studies/studies.service';
 import { toStudyView } from '../studies/study-view';
 import { toUserView } from '../users/user-view';
-import { ACCESS_TOKEN_LIFETIME_S, AccessTokens } from './access-tokens.service';
+import { ACCESS_TOKEN_LIFETIME_S, AccessTokensService } from './access-tokens.service';
 import { AuthError, authError } from './auth.errors';
 import { AuthUser } from './auth-user';
-import { OneTimeTokens } from './one-time-tokens.service';
+import { OneTimeTokensService } from './one-time-tokens.service';
 import { assertPasswordAcceptable } from './password-policy';
-import { PasswordHasher } from './password-hasher.service';
-import { RefreshTokens } from './refresh-tokens.service';
+import { PasswordHasherService } from './password-hasher.service';
+import { RefreshTokensService } from './refresh-tokens.service';
 import type { SignInThrottleScope } from './sign-in-throttle.entity';
 import {
   newlyThrottled,
   retryAfterSeconds,
   SIGN_IN_THROTTLE_POLICIES,
   SignInReservation,
-  SignInThrottles,
+  SignInThrottlesService,
 } from './sign-in-throttle.service';
 
 /**
@@ -51,13 +51,13 @@ const WRONG_CREDENTIALS = 'E-mail or password is wrong.';
 export class AuthService {
   constructor(
     @Inject(APP_CONFIG) private readonly config: AppConfig,
-    private readonly accounts: Accounts,
-    private readonly writes: WriteTransactions,
-    private readonly hasher: PasswordHasher,
-    private readonly accessTokens: AccessTokens,
-    private readonly refreshTokens: RefreshTokens,
-    private readonly oneTimeTokens: OneTimeTokens,
-    private readonly throttles: SignInThrottles,
+    private readonly accounts: AccountsService,
+    private readonly writes: WriteTransactionsService,
+    private readonly hasher: PasswordHasherService,
+    private readonly accessTokens: AccessTokensService,
+    private readonly refreshTokens: RefreshTokensService,
+    private readonly oneTimeTokens: OneTimeTokensService,
+    private readonly throttles: SignInThrottlesService,
     private readonly audit: AuditService,
     private readonly outbox: OutboxService,
     private readonly studies: StudiesService,

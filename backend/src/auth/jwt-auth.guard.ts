@@ -3,7 +3,7 @@ import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
 import { IS_PUBLIC_KEY } from '../common/decorators/public.decorator';
 import { GyreException } from '../common/errors/gyre.exception';
-import { WorkerTokenAuth } from '../worker-tokens/worker-token-auth.service';
+import { WorkerTokenAuthService } from '../worker-tokens/worker-token-auth.service';
 import { workerTokenInHeader } from '../worker-tokens/worker-token-secret';
 import { AuthError, authError } from './auth.errors';
 import { GyreRequest } from './auth-user';
@@ -17,7 +17,7 @@ import { GyreRequest } from './auth-user';
 export class JwtAuthGuard extends AuthGuard('jwt') {
   constructor(
     private readonly reflector: Reflector,
-    private readonly workerTokens: WorkerTokenAuth,
+    private readonly workerTokens: WorkerTokenAuthService,
   ) {
     super();
   }

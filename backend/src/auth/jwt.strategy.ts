@@ -2,13 +2,13 @@ import { createSecretKey } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { PassportStrategy } from '@nestjs/passport';
 import { ExtractJwt, Strategy } from 'passport-jwt';
-import { Accounts } from '../accounts/accounts.service';
+import { AccountsService } from '../accounts/accounts.service';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import { AuthError, authError } from './auth.errors';
 import { AuthUser } from './auth-user';
 import { ACCESS_TOKEN_AUDIENCE, ACCESS_TOKEN_ISSUER } from './access-tokens.service';
-import { RefreshTokens } from './refresh-tokens.service';
+import { RefreshTokensService } from './refresh-tokens.service';
 
 /**
  * Verifies the bearer token (HS256 only: `alg: none` and every other algorithm are refused),
@@ -19,8 +19,8 @@ import { RefreshTokens } from './refresh-tokens.service';
 export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
   constructor(
     @Inject(APP_CONFIG) config: AppConfig,
-    private readonly accounts: Accounts,
-    private readonly refreshTokens: RefreshTokens,
+    private readonly accounts: AccountsService,
+    private readonly refreshTokens: RefreshTokensService,
   ) {
     super({
       jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),

@@ -13,7 +13,7 @@ export const ONE_TIME_TOKEN_LIFETIME_MS: Record<OneTimeTokenPurpose, number> = {
 
 /** Invitation and password-reset tokens: e-mailed once, stored as hashes, usable once. */
 @Injectable()
-export class OneTimeTokens {
+export class OneTimeTokensService {
   /** Issues a token; any earlier unused token of the same purpose for the user stops working. */
   async issue(
     manager: EntityManager,

@@ -8,7 +8,7 @@ import { APP_CONFIG } from '../config/config.module';
  * that the suites stay quick on two cores.
  */
 @Injectable()
-export class PasswordHasher implements OnModuleInit {
+export class PasswordHasherService implements OnModuleInit {
   readonly cost: number;
   private dummyHash: Promise<string> | null = null;
 

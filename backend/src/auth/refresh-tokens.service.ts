@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Inject, Injectable, Optional } from '@nestjs/common';
 import { EntityManager, IsNull } from 'typeorm';
-import { SqliteReads } from '../common/database/sqlite-reads.service';
+import { SqliteReadsService } from '../common/database/sqlite-reads.service';
 import { isoAfter, nowIso } from '../common/time';
 import { AuthError, authError } from './auth.errors';
 import { RefreshToken } from './refresh-token.entity';
@@ -35,12 +35,12 @@ export type RotationOutcome =
 /**
  * Refresh tokens rotate on every use. A token presented again after the grace period means
  * it was copied: the whole family (every token descended from that sign-in) is revoked.
- * All methods take the manager of a `WriteTransactions.run` so that check and update are one.
+ * All methods take the manager of a `WriteTransactionsService.run` so that check and update are one.
  */
 @Injectable()
-export class RefreshTokens {
+export class RefreshTokensService {
   constructor(
-    private readonly reads: SqliteReads,
+    private readonly reads: SqliteReadsService,
     @Optional()
     @Inject(REFRESH_REUSE_GRACE)
     private readonly reuseGraceMs: number = REFRESH_REUSE_GRACE_MS,

@@ -6,19 +6,11 @@ export type SignInThrottleScope = 'account' | 'address' | 'pair';
 @Entity('sign_in_throttle')
 export class SignInThrottle {
   /** SHA-256 of the scope and the e-mail and/or address, so the table holds no addresses. */
-  @PrimaryColumn('varchar', { length: 64 })
-  key: string;
-
-  @Column('varchar', { length: 10 })
-  scope: SignInThrottleScope;
-
-  @Column('integer')
-  failures: number;
-
-  @Column('varchar', { length: 30 })
-  lastFailureAt: string;
+  @PrimaryColumn('varchar', { length: 64 }) key: string;
+  @Column('varchar', { length: 10 }) scope: SignInThrottleScope;
+  @Column('integer') failures: number;
+  @Column('varchar', { length: 30 }) lastFailureAt: string;
 
   /** No attempt under this key is evaluated before this instant. */
-  @Column('varchar', { length: 30 })
-  blockedUntil: string;
+  @Column('varchar', { length: 30 }) blockedUntil: string;
 }

@@ -57,7 +57,7 @@ export type SignInAdmission = SignInReservation | { kind: 'refused'; retryAfterM
  * user id, so known and unknown accounts are throttled alike.
  */
 @Injectable()
-export class SignInThrottles {
+export class SignInThrottlesService {
   async admit(
     manager: EntityManager,
     email: string,

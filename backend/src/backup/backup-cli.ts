@@ -7,7 +7,8 @@
  */
 import { join, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { BackupError, createBackup } from './backup';
+import { createBackup } from './backup';
+import { runCommand } from './run-command';
 
 const USAGE =
   'Usage: npm run backup [-- --out DIR] [--data-dir DIR] [--include-mail]\n' +
@@ -59,21 +60,4 @@ async function main(argv: string[]): Promise<number> {
   return 0;
 }
 
-main(process.argv.slice(2)).then(
-  (code) => {
-    process.exitCode = code;
-  },
-  (error: unknown) => {
-    if (error instanceof BackupError) {
-      process.stderr.write(
-        `Backup ${error.kind}:\n${error.problems.map((p) => `  - ${p}\n`).join('')}`,
-      );
-      process.exitCode = error.kind === 'refused' ? 3 : 1;
-      return;
-    }
-    process.stderr.write(
-      `Backup failed: ${error instanceof Error ? error.message : String(error)}\n`,
-    );
-    process.exitCode = 1;
-  },
-);
+runCommand('Backup', () => main(process.argv.slice(2)));

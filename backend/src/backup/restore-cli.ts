@@ -8,8 +8,8 @@
  */
 import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { BackupError } from './backup';
 import { restoreBackup } from './restore';
+import { runCommand } from './run-command';
 
 const USAGE =
   'Usage: npm run restore -- BACKUP_DIR --data-dir NEWDIR\n' +
@@ -68,21 +68,4 @@ async function main(argv: string[]): Promise<number> {
   return audit.intact ? 0 : 4;
 }
 
-main(process.argv.slice(2)).then(
-  (code) => {
-    process.exitCode = code;
-  },
-  (error: unknown) => {
-    if (error instanceof BackupError) {
-      process.stderr.write(
-        `Restore ${error.kind}:\n${error.problems.map((p) => `  - ${p}\n`).join('')}`,
-      );
-      process.exitCode = error.kind === 'refused' ? 3 : 1;
-      return;
-    }
-    process.stderr.write(
-      `Restore failed: ${error instanceof Error ? error.message : String(error)}\n`,
-    );
-    process.exitCode = 1;
-  },
-);
+runCommand('Restore', () => main(process.argv.slice(2)));

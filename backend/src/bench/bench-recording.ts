@@ -6,8 +6,7 @@
  * it holds never count in the measuring process.
  */
 import { writeFileSync } from 'node:fs';
-import { writeEdf } from '../signal/edf/edf-writer';
-import { syntheticTaskRecording } from '../signal/synthetic/synthetic-eeg';
+import { syntheticEdf, syntheticTaskRecording } from '../signal/synthetic/synthetic-eeg';
 
 /** 64 labels of the 10-10 system (ACNS 2016); the posterior region of interest is among them. */
 export const LABELS_64: readonly string[] = (
@@ -44,17 +43,7 @@ export function benchRecordingBytes(spec: BenchRecordingSpec): Uint8Array {
     onsetsS: benchOnsetsS(durationS),
     seed: spec.seed ?? 42,
   });
-  return writeEdf({
-    startDate: '2026-01-15T09:30:00',
-    signals: recording.signals.map((s) => ({
-      label: s.label,
-      sampleRateHz: s.sampleRateHz,
-      physicalMin: -500,
-      physicalMax: 500,
-      samples: s.samples,
-    })),
-    annotations: recording.annotations,
-  });
+  return syntheticEdf(recording, { startDate: '2026-01-15T09:30:00' });
 }
 
 if (require.main === module) {

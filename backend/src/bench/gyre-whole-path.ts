@@ -14,7 +14,7 @@
 import { existsSync, mkdtempSync, openAsBlob, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { AnalysisRunDto, Page, RecordingDto, RecordingState } from '@gyre/shared';
+import type { AnalysisRunView, Page, RecordingView, RecordingState } from '@gyre/shared';
 import { DataSource } from 'typeorm';
 import { AuditEntry } from '../audit/audit-entry.entity';
 import { sqliteOptions } from '../database/database-options';
@@ -138,7 +138,7 @@ export async function measureGyreWholePath(edfPath: string): Promise<GyreRun> {
     const clientCpu0 = process.cpuUsage();
     sampler.start();
     const sentAt = wallClockMs();
-    const answer = await client.call<RecordingDto>(
+    const answer = await client.call<RecordingView>(
       'POST',
       `/api/visits/${visitIds[0]}/recordings`,
       'technician',
@@ -156,7 +156,7 @@ export async function measureGyreWholePath(edfPath: string): Promise<GyreRun> {
         throw new Error(`the recording became ${state}`);
       }
       await sleep(STATE_POLL_INTERVAL_MS);
-      const now = await client.call<RecordingDto>('GET', `/api/recordings/${id}`, 'analyst');
+      const now = await client.call<RecordingView>('GET', `/api/recordings/${id}`, 'analyst');
       polls++;
       if (now.status !== 200 || now.body === null) {
         throw new Error(`GET /api/recordings/${id}: HTTP ${now.status}`);
@@ -172,11 +172,11 @@ export async function measureGyreWholePath(edfPath: string): Promise<GyreRun> {
     const probePolls = 40;
     const probe0 = processCpuS(pid);
     for (let i = 0; i < probePolls; i++) {
-      await client.call<RecordingDto>('GET', `/api/recordings/${id}`, 'analyst');
+      await client.call<RecordingView>('GET', `/api/recordings/${id}`, 'analyst');
     }
     const cpuPerPollS = (processCpuS(pid) - probe0) / probePolls;
 
-    const runs = await client.call<Page<AnalysisRunDto>>(
+    const runs = await client.call<Page<AnalysisRunView>>(
       'GET',
       `/api/recordings/${id}/runs`,
       'analyst',

@@ -15,7 +15,7 @@ import {
 } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { isUniqueViolation } from '../common/errors/unique-violation';
 import { nowIso } from '../common/time';
 import { Participant } from '../participants/participant.entity';
@@ -54,7 +54,7 @@ export class BulkUploadsService {
     private readonly studies: StudiesService,
     private readonly plannedVisits: PlannedVisitsService,
     private readonly recordings: RecordingsService,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
   ) {}
 

@@ -21,6 +21,8 @@ import { WorkerToken } from '../worker-tokens/worker-token.entity';
 import { PlannedVisit } from '../schedule/planned-visit.entity';
 import { StudyGroup } from '../schedule/study-group.entity';
 import { VisitReview } from '../visit-reviews/visit-review.entity';
+import { CalibrationRun } from '../calibration/calibration-run.entity';
+import { BidsImportFile } from '../bids-import/bids-import-file.entity';
 
 /** Every TypeORM entity, listed once; feature modules add theirs here (append only). */
 // A constructor type rather than `Function`, which the lint rules refuse.
@@ -48,4 +50,6 @@ export const ENTITIES: (new () => object)[] = [
   PlannedVisit,
   StudyGroup,
   VisitReview,
+  BidsImportFile,
+  CalibrationRun,
 ];

@@ -3,11 +3,11 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import type { UserView } from '@gyre/shared';
-import { Accounts } from '../accounts/accounts.service';
+import { AccountsService } from '../accounts/accounts.service';
 import type { User } from '../accounts/user.entity';
 import { AuditService } from '../audit/audit.service';
 import { assertPasswordAcceptable } from '../auth/password-policy';
-import { PasswordHasher } from '../auth/password-hasher.service';
+import { PasswordHasherService } from '../auth/password-hasher.service';
 import { nowIso } from '../common/time';
 import { toUserView } from '../users/user-view';
 
@@ -32,8 +32,8 @@ export class DemoSeedService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly audit: AuditService,
-    private readonly hasher: PasswordHasher,
-    private readonly accounts: Accounts,
+    private readonly hasher: PasswordHasherService,
+    private readonly accounts: AccountsService,
   ) {}
 
   /** Creates an active admin when there is no user at all; audited as done by the system. */

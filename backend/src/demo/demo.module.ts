@@ -1,7 +1,7 @@
 import { DynamicModule, Module } from '@nestjs/common';
 import { AccountsModule } from '../accounts/accounts.module';
 import { AuditModule } from '../audit/audit.module';
-import { PasswordHasher } from '../auth/password-hasher.service';
+import { PasswordHasherService } from '../auth/password-hasher.service';
 import { CommonDatabaseModule } from '../common/database/common-database.module';
 import { AppConfigModule } from '../config/config.module';
 import { DatabaseModule } from '../database/database.module';
@@ -23,7 +23,7 @@ export class DemoModule {
         AuditModule,
         AccountsModule,
       ],
-      providers: [DemoSeedService, PasswordHasher],
+      providers: [DemoSeedService, PasswordHasherService],
       exports: [DemoSeedService],
     };
   }

@@ -1,7 +1,7 @@
 import { Body, Controller, Get, Param, Post, Query, HttpStatus } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { ApiResult } from '../openapi/api-responses';
-import type { FlagDto, Page, VisitFlagDto } from '@gyre/shared';
+import type { FlagView, Page, VisitFlagView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { FlagChangeDto } from './dto/flag-change.dto';
@@ -16,29 +16,29 @@ export class FlagsController {
 
   @Get('flags')
   @RequirePermission('read', 'Flag')
-  @ApiResult('FlagDto', {
+  @ApiResult('FlagView', {
     description: 'Flags in scope; filter by state, participant, site',
     page: true,
   })
-  list(@CurrentCaller() caller: Caller, @Query() query: FlagListQueryDto): Promise<Page<FlagDto>> {
+  list(@CurrentCaller() caller: Caller, @Query() query: FlagListQueryDto): Promise<Page<FlagView>> {
     return this.flags.list(caller, query);
   }
 
   @Get('visits/:visitId/flag')
   @RequirePermission('read', 'Flag')
-  @ApiResult('VisitFlagDto', {
+  @ApiResult('VisitFlagView', {
     description: "The visit's flag, its history and the computation's suggestion",
   })
   forVisit(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
-  ): Promise<VisitFlagDto> {
+  ): Promise<VisitFlagView> {
     return this.flags.forVisit(caller, visitId);
   }
 
   @Post('visits/:visitId/flag/raise')
   @RequirePermission('create', 'Flag')
-  @ApiResult('VisitFlagDto', {
+  @ApiResult('VisitFlagView', {
     description: 'Raises the slowing flag (reason ≥ 10 characters, audited)',
     status: HttpStatus.CREATED,
   })
@@ -46,13 +46,13 @@ export class FlagsController {
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
     @Body() body: FlagChangeDto,
-  ): Promise<VisitFlagDto> {
+  ): Promise<VisitFlagView> {
     return this.flags.raise(caller, visitId, body.reason);
   }
 
   @Post('visits/:visitId/flag/clear')
   @RequirePermission('update', 'Flag')
-  @ApiResult('VisitFlagDto', {
+  @ApiResult('VisitFlagView', {
     description: 'Clears the raised flag (reason ≥ 10 characters, audited)',
     status: HttpStatus.CREATED,
   })
@@ -60,7 +60,7 @@ export class FlagsController {
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
     @Body() body: FlagChangeDto,
-  ): Promise<VisitFlagDto> {
+  ): Promise<VisitFlagView> {
     return this.flags.clear(caller, visitId, body.reason);
   }
 }

@@ -2,13 +2,13 @@ import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, FindOptionsWhere, In } from 'typeorm';
-import type { FlagDto, FlagSuggestion, Page, VisitFlagDto } from '@gyre/shared';
+import type { FlagView, FlagSuggestion, Page, VisitFlagView } from '@gyre/shared';
 import { AnalysisRunsService, roiUsageOf } from '../analysis/analysis-runs.service';
 import { parseStoredSettings } from '../analysis/settings-values';
 import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
@@ -26,13 +26,13 @@ import { FlagsError, flagsError } from './flags.errors';
 export class FlagsService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
     private readonly runs: AnalysisRunsService,
     private readonly visits: VisitsService,
   ) {}
 
-  async forVisit(caller: Caller, visitId: string): Promise<VisitFlagDto> {
+  async forVisit(caller: Caller, visitId: string): Promise<VisitFlagView> {
     await this.visitInScope(caller, visitId, 'read');
     const history = await this.dataSource
       .getRepository(Flag)
@@ -40,13 +40,13 @@ export class FlagsService {
     const current = history.find((f) => f.state === 'raised') ?? null;
     return {
       visitId,
-      current: current === null ? null : toFlagDto(current),
+      current: current === null ? null : toFlagView(current),
       suggestion: await this.suggestion(visitId),
-      history: history.map(toFlagDto),
+      history: history.map(toFlagView),
     };
   }
 
-  async list(caller: Caller, query: FlagListQueryDto): Promise<Page<FlagDto>> {
+  async list(caller: Caller, query: FlagListQueryDto): Promise<Page<FlagView>> {
     const window = pageWindowOf(query, 'desc');
     const filters: Partial<Record<'state' | 'participantId' | 'siteId', string>> = {};
     for (const key of ['state', 'participantId', 'siteId'] as const) {
@@ -59,10 +59,10 @@ export class FlagsService {
       skip: window.skip,
       take: window.take,
     });
-    return toPage(found, window, toFlagDto);
+    return toPage(found, window, toFlagView);
   }
 
-  async raise(caller: Caller, visitId: string, reason: string): Promise<VisitFlagDto> {
+  async raise(caller: Caller, visitId: string, reason: string): Promise<VisitFlagView> {
     const visit = await this.visitInScope(caller, visitId, 'create');
     await this.writes.run(async (manager) => {
       const raised = await manager.getRepository(Flag).findOneBy({ visitId, state: 'raised' });
@@ -98,7 +98,7 @@ export class FlagsService {
         studyId: visit.studyId,
         siteId: visit.siteId,
         before: { visitId, state: null },
-        after: { ...toFlagDto(flag), suggestion },
+        after: { ...toFlagView(flag), suggestion },
         reason,
         clientIp: caller.clientIp,
       });
@@ -106,7 +106,7 @@ export class FlagsService {
     return this.forVisit(caller, visitId);
   }
 
-  async clear(caller: Caller, visitId: string, reason: string): Promise<VisitFlagDto> {
+  async clear(caller: Caller, visitId: string, reason: string): Promise<VisitFlagView> {
     const visit = await this.visitInScope(caller, visitId, 'update');
     await this.writes.run(async (manager) => {
       const raised = await manager.getRepository(Flag).findOneBy({ visitId, state: 'raised' });
@@ -117,7 +117,7 @@ export class FlagsService {
           { visitId },
         );
       }
-      const before = toFlagDto(raised);
+      const before = toFlagView(raised);
       const changes = {
         state: 'cleared' as const,
         clearedById: caller.user.id,
@@ -133,7 +133,7 @@ export class FlagsService {
         studyId: visit.studyId,
         siteId: visit.siteId,
         before,
-        after: toFlagDto(Object.assign(raised, changes)),
+        after: toFlagView(Object.assign(raised, changes)),
         reason,
         clientIp: caller.clientIp,
       });
@@ -183,7 +183,7 @@ export class FlagsService {
   }
 }
 
-export function toFlagDto(flag: Flag): FlagDto {
+export function toFlagView(flag: Flag): FlagView {
   return {
     id: flag.id,
     visitId: flag.visitId,

@@ -1,8 +1,8 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { DEFAULT_ANALYSIS_SETTINGS } from '../signal/pipeline/analysis-settings';
 import { bitExact } from '../signal/pipeline/testing/bit-exact';
+import { defaultAnalyzeTask } from './default-analyze-task';
 import { writeGeneratedTaskEdf } from './testing/generated-task-edf';
 import { WorkerPoolService } from './worker-pool.service';
 import { PartReport, runAnalysis } from './worker/run-analysis';
@@ -24,14 +24,7 @@ describe('WorkerPoolService.analyze: one recording on every analysis thread', ()
       durationS: 120,
       seed,
     });
-    return {
-      filePath: file.path,
-      checksumSha256: file.checksumSha256,
-      kind: 'task',
-      csvOnsets: null,
-      settings: { ...DEFAULT_ANALYSIS_SETTINGS },
-      iafHz: null,
-    };
+    return defaultAnalyzeTask(file);
   };
   const task = taskFor('a', 1);
 

@@ -11,7 +11,7 @@ export const MAIL_FROM = 'Gyre <no-reply@gyre.invalid>';
  * started with the application and keeps messages under `data/mail/`.
  */
 @Injectable()
-export class MailTransport implements OnModuleInit, OnModuleDestroy {
+export class MailTransportService implements OnModuleInit, OnModuleDestroy {
   private readonly logger = new Logger('Mail');
   private transporter: Promise<Transporter> | null = null;
   private fakeServer: FakeSmtpServer | null = null;

@@ -1,28 +1,18 @@
-import { Controller, Get, Query } from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiForbiddenResponse,
-  ApiOkResponse,
-  ApiOperation,
-  ApiTags,
-} from '@nestjs/swagger';
+import { Controller, Query } from '@nestjs/common';
+import { ApiOperation } from '@nestjs/swagger';
 import type { OutboxMessageView, Page } from '@gyre/shared';
-import { RequirePermission } from '../auth/decorators';
+import { ListRoute } from '../common/http/resource-routes';
+import { ScopedController } from '../common/http/scoped-controller';
 import { OutboxQueryDto } from './dto/outbox-query.dto';
-import { OutboxPageDto } from './dto/outbox-responses.dto';
 import { OutboxService } from './outbox.service';
 
-@ApiTags('mail')
-@ApiBearerAuth()
+@ScopedController('mail', 'Admins only')
 @Controller('mail')
 export class MailController {
   constructor(private readonly outbox: OutboxService) {}
 
-  @Get('outbox')
-  @RequirePermission('read', 'Outbox')
+  @ListRoute('Outbox', 'OutboxMessageView', { path: 'outbox', description: 'The messages' })
   @ApiOperation({ summary: 'Outgoing e-mail and its delivery state (admins)' })
-  @ApiOkResponse({ type: OutboxPageDto })
-  @ApiForbiddenResponse({ description: 'Admins only' })
   list(@Query() query: OutboxQueryDto): Promise<Page<OutboxMessageView>> {
     return this.outbox.list(query);
   }

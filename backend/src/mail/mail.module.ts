@@ -1,7 +1,7 @@
 import { Global, Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { MailController } from './mail.controller';
-import { MailTransport } from './mail-transport.service';
+import { MailTransportService } from './mail-transport.service';
 import { OutboxMessage } from './outbox-message.entity';
 import { OutboxService } from './outbox.service';
 
@@ -10,7 +10,7 @@ import { OutboxService } from './outbox.service';
 @Module({
   imports: [TypeOrmModule.forFeature([OutboxMessage])],
   controllers: [MailController],
-  providers: [MailTransport, OutboxService],
-  exports: [OutboxService, MailTransport],
+  providers: [MailTransportService, OutboxService],
+  exports: [OutboxService, MailTransportService],
 })
 export class MailModule {}

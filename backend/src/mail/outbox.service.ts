@@ -3,12 +3,12 @@ import { Injectable, Logger, OnModuleDestroy, OnModuleInit } from '@nestjs/commo
 import { InjectRepository } from '@nestjs/typeorm';
 import { EntityManager, FindOptionsWhere, In, IsNull, LessThanOrEqual, Repository } from 'typeorm';
 import type { OutboxMessageView, Page } from '@gyre/shared';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { isoAfter, nowIso } from '../common/time';
 import { MailContent } from './mail-templates';
-import { MailTransport } from './mail-transport.service';
+import { MailTransportService } from './mail-transport.service';
 import { OutboxMessage } from './outbox-message.entity';
 import { OutboxQueryDto } from './dto/outbox-query.dto';
 
@@ -53,8 +53,8 @@ export class OutboxService implements OnModuleInit, OnModuleDestroy {
 
   constructor(
     @InjectRepository(OutboxMessage) private readonly messages: Repository<OutboxMessage>,
-    private readonly writes: WriteTransactions,
-    private readonly transport: MailTransport,
+    private readonly writes: WriteTransactionsService,
+    private readonly transport: MailTransportService,
   ) {}
 
   onModuleInit(): void {

@@ -5,7 +5,10 @@ import {
   type ReferenceObject,
   type SchemaObject,
 } from '@nestjs/swagger';
-import { SHARED_SCHEMAS, type SharedSchemaName } from './shared-schemas.generated';
+import generated from './shared-schemas.generated.json';
+
+/** The name of one of the shared API types (shared-schemas.generated.json, by the compiler). */
+export type SharedSchemaName = keyof typeof generated.schemas;
 
 interface ResponseOptions {
   description: string;
@@ -69,7 +72,7 @@ export function withSharedSchemas(document: OpenAPIObject): OpenAPIObject {
   document.components = {
     ...document.components,
     schemas: {
-      ...(SHARED_SCHEMAS as unknown as Record<string, SchemaObject>),
+      ...(generated.schemas as Record<SharedSchemaName, SchemaObject>),
       ...document.components?.schemas,
     },
   };

@@ -1,34 +1,25 @@
-import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiConflictResponse,
-  ApiCreatedResponse,
-  ApiForbiddenResponse,
-  ApiNotFoundResponse,
-  ApiOkResponse,
-  ApiTags,
-} from '@nestjs/swagger';
+import { Body, Controller, Param, Query } from '@nestjs/common';
 import type { Page, ParticipantListItem, ParticipantView } from '@gyre/shared';
-import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
+import { CurrentCaller, type Caller } from '../auth/decorators';
+import { CreateRoute, ListRoute, ReadRoute, UpdateRoute } from '../common/http/resource-routes';
+import { ScopedController } from '../common/http/scoped-controller';
 import {
   CreateParticipantDto,
-  ParticipantPageDto,
   ParticipantQueryDto,
-  ParticipantResponseDto,
   UpdateParticipantDto,
 } from './dto/participant.dto';
 import { ParticipantsService } from './participants.service';
 
-@ApiTags('participants')
-@ApiBearerAuth()
-@ApiForbiddenResponse({ description: 'The role may never do this' })
+const NOT_FOUND = 'No such participant in your scope';
+
+@ScopedController('participants')
 @Controller('participants')
 export class ParticipantsController {
   constructor(private readonly participants: ParticipantsService) {}
 
-  @Get()
-  @RequirePermission('read', 'Participant')
-  @ApiOkResponse({ type: ParticipantPageDto })
+  @ListRoute('Participant', 'ParticipantListItem', {
+    description: "The participants in your scope, each with its visits' latest numbers and flags",
+  })
   list(
     @CurrentCaller() caller: Caller,
     @Query() query: ParticipantQueryDto,
@@ -36,21 +27,18 @@ export class ParticipantsController {
     return this.participants.list(caller, query);
   }
 
-  @Get(':id')
-  @RequirePermission('read', 'Participant')
-  @ApiOkResponse({ type: ParticipantResponseDto })
-  @ApiNotFoundResponse({ description: 'No such participant in your scope' })
-  get(
-    @CurrentCaller() caller: Caller,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<ParticipantView> {
+  @ReadRoute('Participant', 'ParticipantView', {
+    description: 'One participant',
+    notFound: NOT_FOUND,
+  })
+  get(@CurrentCaller() caller: Caller, @Param('id') id: string): Promise<ParticipantView> {
     return this.participants.get(caller, id);
   }
 
-  @Post()
-  @RequirePermission('create', 'Participant')
-  @ApiCreatedResponse({ type: ParticipantResponseDto })
-  @ApiConflictResponse({ description: 'The code is taken in this study' })
+  @CreateRoute('Participant', 'ParticipantView', {
+    description: 'The new participant (audited)',
+    conflict: 'The code is taken in this study',
+  })
   create(
     @CurrentCaller() caller: Caller,
     @Body() body: CreateParticipantDto,
@@ -58,13 +46,13 @@ export class ParticipantsController {
     return this.participants.create(caller, body);
   }
 
-  @Patch(':id')
-  @RequirePermission('update', 'Participant')
-  @ApiOkResponse({ type: ParticipantResponseDto })
-  @ApiNotFoundResponse({ description: 'No such participant in your scope' })
+  @UpdateRoute('Participant', 'ParticipantView', {
+    description: 'The changed participant',
+    notFound: NOT_FOUND,
+  })
   update(
     @CurrentCaller() caller: Caller,
-    @Param('id', ParseUUIDPipe) id: string,
+    @Param('id') id: string,
     @Body() body: UpdateParticipantDto,
   ): Promise<ParticipantView> {
     return this.participants.update(caller, id, body);

@@ -13,17 +13,17 @@ import {
 } from '@gyre/shared';
 import { scopedWhere, scopeSql } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
-import { AuditService } from '../audit/audit.service';
+import { AuditedWrites } from '../audit/audited-writes';
 import { SqlEntityRows, sqlPage } from '../common/database/sql-rows';
-import { SqliteReads, type SqlValue } from '../common/database/sqlite-reads.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
-import { ErrorKind, GyreException } from '../common/errors/gyre.exception';
-import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
+import { SqliteReadsService, type SqlValue } from '../common/database/sqlite-reads.service';
+import type { GyreException } from '../common/errors/gyre.exception';
+import { assertUnique } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { likePattern } from '../common/pagination/text-filter';
 import { nowIso } from '../common/time';
 import { StudyGroupsService } from '../schedule/study-groups.service';
+import { SitesError, sitesError } from '../sites/sites.errors';
 import { SitesService } from '../sites/sites.service';
 import {
   CreateParticipantDto,
@@ -45,9 +45,8 @@ export class ParticipantsService {
     @InjectRepository(Participant) private readonly participants: Repository<Participant>,
     private readonly sites: SitesService,
     private readonly groups: StudyGroupsService,
-    private readonly writes: WriteTransactions,
-    private readonly audit: AuditService,
-    private readonly reads: SqliteReads,
+    private readonly audited: AuditedWrites,
+    private readonly reads: SqliteReadsService,
     private readonly listExtras: ParticipantListExtras,
   ) {}
 
@@ -154,46 +153,29 @@ export class ParticipantsService {
     return this.save(caller, current, next, dto.reason);
   }
 
-  private async save(
+  private save(
     caller: Caller,
     before: Participant | null,
     participant: Participant,
     reason: string | undefined,
   ): Promise<ParticipantView> {
-    try {
-      return await this.writes.run(async (manager) => {
-        await assertUnique(
-          manager,
-          Participant,
-          { studyId: participant.studyId, code: participant.code },
-          participant.id,
-        );
-        await manager.save(Participant, participant);
-        const view = toParticipantView(participant);
-        await this.audit.record({
-          actor: caller.user,
-          action: before === null ? 'create' : 'update',
-          objectType: 'Participant',
-          objectId: participant.id,
-          studyId: participant.studyId,
-          siteId: participant.siteId,
-          before: before === null ? undefined : toParticipantView(before),
-          after: view,
-          reason: reason ?? null,
-          clientIp: caller.clientIp,
-        });
-        return view;
-      });
-    } catch (error) {
-      if (isUniqueViolation(error)) {
-        throw participantsError(
+    return this.audited.save(caller, {
+      entity: Participant,
+      objectType: 'Participant',
+      before,
+      row: participant,
+      reason,
+      scope: (row) => ({ studyId: row.studyId, siteId: row.siteId }),
+      check: (manager, row) =>
+        assertUnique(manager, Participant, { studyId: row.studyId, code: row.code }, row.id),
+      view: toParticipantView,
+      duplicate: (row) =>
+        participantsError(
           ParticipantsError.CodeTaken,
-          `code: the study already has a participant ${participant.code}`,
-          { field: 'code', value: participant.code },
-        );
-      }
-      throw error;
-    }
+          `code: the study already has a participant ${row.code}`,
+          { field: 'code', value: row.code },
+        ),
+    });
   }
 
   /** `groupId` if it names a group of study `studyId` (400 naming it otherwise). */
@@ -279,10 +261,7 @@ function enrolmentDateOf(value: string | null): string | null {
 }
 
 function notFound(id: string, field: string): GyreException {
-  return new GyreException(
-    ErrorKind.NotFound,
-    field === 'siteId' ? 'SITE_NOT_FOUND' : ParticipantsError.NotFound,
-    field === 'siteId' ? `siteId: no site ${id} in your scope` : `No participant ${id}`,
-    { field, id },
-  );
+  return field === 'siteId'
+    ? sitesError(SitesError.NotFound, `siteId: no site ${id} in your scope`, { field, id })
+    : participantsError(ParticipantsError.NotFound, `No participant ${id}`, { field, id });
 }

@@ -9,7 +9,7 @@ import { AnalysisRunsService } from '../analysis/analysis-runs.service';
 import { AnalysisSettings } from '../analysis/analysis-settings.entity';
 import { valuesOf } from '../analysis/analysis-settings.service';
 import { VisitAnalysisOverridesService } from '../analysis/visit-analysis-overrides.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import type { AnalyzeOutcome } from '../jobs/worker/worker-tasks';
 import { JOB_QUEUE } from '../queue/job-queue';
 import type { JobQueue, QueuedJob } from '../queue/job-queue';
@@ -54,7 +54,7 @@ export type FinishOutcome =
  * transaction, so a late or repeated answer changes nothing.
  */
 @Injectable()
-export class ComputationSteps {
+export class ComputationStepsService {
   private readonly logger = new Logger('Computations');
 
   constructor(
@@ -63,7 +63,7 @@ export class ComputationSteps {
     private readonly recordings: RecordingsService,
     private readonly overrides: VisitAnalysisOverridesService,
     private readonly runs: AnalysisRunsService,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly events: EventEmitter2,
   ) {}
 

@@ -16,8 +16,8 @@ import {
   RecordingEvents,
 } from '../recordings/recordings.events';
 import type { AttemptRef } from '../remote-workers/remote-job';
-import { ComputationSteps } from './computation-steps.service';
-import { RemoteComputations } from './remote-computations.service';
+import { ComputationStepsService } from './computation-steps.service';
+import { RemoteComputationsService } from './remote-computations.service';
 
 /** How long a task job waits before looking again for its visit's resting result. */
 const REST_WAIT_MS = 1000;
@@ -66,9 +66,9 @@ export class ComputationsService implements OnApplicationBootstrap, OnModuleDest
   constructor(
     @Inject(JOB_QUEUE) private readonly queue: JobQueue,
     private readonly recordings: RecordingsService,
-    private readonly steps: ComputationSteps,
+    private readonly steps: ComputationStepsService,
     private readonly pool: WorkerPoolService,
-    private readonly remote: RemoteComputations,
+    private readonly remote: RemoteComputationsService,
   ) {}
 
   async onApplicationBootstrap(): Promise<void> {

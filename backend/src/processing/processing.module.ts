@@ -4,10 +4,10 @@ import { JobsModule } from '../jobs/jobs.module';
 import { QueueModule } from '../queue/queue.module';
 import { RecordingsModule } from '../recordings/recordings.module';
 import { VisitsModule } from '../visits/visits.module';
-import { ComputationSteps } from './computation-steps.service';
+import { ComputationStepsService } from './computation-steps.service';
 import { ComputationsService } from './computations.service';
 import { OverrideRerunsListener } from './override-reruns.listener';
-import { RemoteComputations } from './remote-computations.service';
+import { RemoteComputationsService } from './remote-computations.service';
 import { RestFollowListener } from './rest-follow.listener';
 import { RunsController } from './runs.controller';
 import { RunsService } from './runs.service';
@@ -23,12 +23,12 @@ import { RunsService } from './runs.service';
   controllers: [RunsController],
   providers: [
     ComputationsService,
-    ComputationSteps,
-    RemoteComputations,
+    ComputationStepsService,
+    RemoteComputationsService,
     RunsService,
     RestFollowListener,
     OverrideRerunsListener,
   ],
-  exports: [ComputationsService, ComputationSteps, RemoteComputations],
+  exports: [ComputationsService, ComputationStepsService, RemoteComputationsService],
 })
 export class ProcessingModule {}

@@ -33,8 +33,8 @@ export type RemoteState =
  * computation, so nothing here decides a job's or a recording's state.
  */
 @Injectable()
-export class RemoteComputations implements OnModuleDestroy {
-  private readonly logger = new Logger('RemoteComputations');
+export class RemoteComputationsService implements OnModuleDestroy {
+  private readonly logger = new Logger('RemoteComputationsService');
   private readonly settings: RemoteConfig | null;
   private queue: Queue<RemoteJobData> | null = null;
   private events: QueueEvents | null = null;

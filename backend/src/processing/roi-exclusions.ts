@@ -1,4 +1,4 @@
-import type { RoiUsageDto } from '@gyre/shared';
+import type { RoiUsageView } from '@gyre/shared';
 import { canonicalElectrodeName } from '../signal/channels/channel-labels';
 
 /**
@@ -7,10 +7,10 @@ import { canonicalElectrodeName } from '../signal/channels/channel-labels';
  * that the number rests on fewer channels than the study asks for, and why.
  */
 export function withExclusions(
-  usage: RoiUsageDto,
+  usage: RoiUsageView,
   studyRoi: readonly string[],
   effectiveRoi: readonly string[],
-): { usage: RoiUsageDto; warnings: string[] } {
+): { usage: RoiUsageView; warnings: string[] } {
   const canonical = (name: string): string => canonicalElectrodeName(name) ?? name;
   const kept = new Set(effectiveRoi.map(canonical));
   const excluded = studyRoi.filter((name) => !kept.has(canonical(name)));

@@ -1,7 +1,7 @@
 import { Body, Controller, Param, Post, HttpStatus } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { ApiResult } from '../openapi/api-responses';
-import type { JobDto } from '@gyre/shared';
+import type { JobView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { RerunDto } from './dto/rerun.dto';
@@ -15,7 +15,7 @@ export class RunsController {
 
   @Post('recordings/:recordingId/runs')
   @RequirePermission('rerun', 'AnalysisRun')
-  @ApiResult('JobDto', {
+  @ApiResult('JobView', {
     description: 'Queues the recording again with the current settings (audited)',
     status: HttpStatus.CREATED,
   })
@@ -23,13 +23,13 @@ export class RunsController {
     @CurrentCaller() caller: Caller,
     @Param('recordingId') recordingId: string,
     @Body() body: RerunDto,
-  ): Promise<JobDto> {
+  ): Promise<JobView> {
     return this.runs.rerunRecording(caller, recordingId, body.reason ?? null);
   }
 
   @Post('visits/:visitId/runs')
   @RequirePermission('rerun', 'AnalysisRun')
-  @ApiResult('JobDto', {
+  @ApiResult('JobView', {
     description: 'Queues every current ready or failed recording of the visit (audited)',
     array: true,
     status: HttpStatus.CREATED,
@@ -38,7 +38,7 @@ export class RunsController {
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
     @Body() body: RerunDto,
-  ): Promise<JobDto[]> {
+  ): Promise<JobView[]> {
     return this.runs.rerunVisit(caller, visitId, body.reason ?? null);
   }
 }

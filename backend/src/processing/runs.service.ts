@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
-import type { JobDto } from '@gyre/shared';
+import type { JobView } from '@gyre/shared';
 import type { Caller } from '../auth/decorators';
-import { toJobDto } from '../recordings/recording.view';
+import { toJobView } from '../recordings/recording-view';
 import { RecordingsService } from '../recordings/recordings.service';
 import { VisitsService } from '../visits/visits.service';
 import { ProcessingError, processingError } from './processing.errors';
@@ -18,7 +18,7 @@ export class RunsService {
     caller: Caller,
     recordingId: string,
     reason: string | null,
-  ): Promise<JobDto> {
+  ): Promise<JobView> {
     const recording = await this.recordings.findInScope(
       caller,
       recordingId,
@@ -31,11 +31,11 @@ export class RunsService {
       reason,
       clientIp: caller.clientIp,
     });
-    return toJobDto(job);
+    return toJobView(job);
   }
 
   /** Every current recording of the visit that is ready or failed. */
-  async rerunVisit(caller: Caller, visitId: string, reason: string | null): Promise<JobDto[]> {
+  async rerunVisit(caller: Caller, visitId: string, reason: string | null): Promise<JobView[]> {
     const visit = await this.visits.findInScope(caller, 'read', visitId);
     if (!caller.ability.can('rerun', 'AnalysisRun')) {
       throw processingError(ProcessingError.VisitNotFound, `No visit ${visitId}.`, {
@@ -58,6 +58,6 @@ export class RunsService {
       reason,
       clientIp: caller.clientIp,
     });
-    return jobs.map(toJobDto);
+    return jobs.map(toJobView);
   }
 }

@@ -4,7 +4,7 @@ import { randomUUID } from 'node:crypto';
 import { Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, In } from 'typeorm';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { nowIso } from '../common/time';
 import type {
   EnqueueRequest,
@@ -25,7 +25,7 @@ export class SqliteJobQueue implements JobQueue {
 
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
   ) {}
 
   async enqueue<P>(tx: EntityManager, request: EnqueueRequest<P>): Promise<QueuedJob<P>> {

@@ -14,7 +14,7 @@ import { ApiBearerAuth, ApiBody, ApiConsumes, ApiTags } from '@nestjs/swagger';
 import { ApiFile, ApiResult } from '../openapi/api-responses';
 import type { Request } from 'express';
 import { map, Observable } from 'rxjs';
-import type { Page, RecordingDto } from '@gyre/shared';
+import type { Page, RecordingView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { VisitsService } from '../visits/visits.service';
@@ -60,7 +60,7 @@ export class RecordingsController {
       },
     },
   })
-  @ApiResult('RecordingDto', {
+  @ApiResult('RecordingView', {
     description:
       'Accepted and queued. 422 RECORDING_REJECTED (details.recording) for a bad file, 422 RECORDING_KIND_UNCONFIRMED when the file looks like the other kind, 409 RECORDING_KIND_TAKEN when the visit has a current recording of the kind (send replaces), 409 for a duplicate, 413 beyond UPLOAD_MAX_BYTES',
     status: HttpStatus.CREATED,
@@ -69,7 +69,7 @@ export class RecordingsController {
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
     @Req() request: Request,
-  ): Promise<RecordingDto> {
+  ): Promise<RecordingView> {
     // The visit is found in the caller's scope before a byte of the body is read.
     const visit = await this.visits.findInScope(caller, 'read', visitId);
     return this.recordings.upload(caller, visit, await this.uploads.receive(request));
@@ -77,23 +77,23 @@ export class RecordingsController {
 
   @Get('recordings')
   @RequirePermission('read', 'Recording')
-  @ApiResult('RecordingDto', {
+  @ApiResult('RecordingView', {
     description: 'Recordings in scope; filter by visit, participant, site, state, kind',
     page: true,
   })
   list(
     @CurrentCaller() caller: Caller,
     @Query() query: RecordingListQueryDto,
-  ): Promise<Page<RecordingDto>> {
+  ): Promise<Page<RecordingView>> {
     return this.recordings.list(caller, query);
   }
 
   @Get('recordings/:recordingId')
   @RequirePermission('read', 'Recording')
-  @ApiResult('RecordingDto', {
+  @ApiResult('RecordingView', {
     description: 'State, progress of the current job, validation facts or rejection',
   })
-  get(@CurrentCaller() caller: Caller, @Param('recordingId') id: string): Promise<RecordingDto> {
+  get(@CurrentCaller() caller: Caller, @Param('recordingId') id: string): Promise<RecordingView> {
     return this.recordings.get(caller, id);
   }
 
@@ -131,11 +131,11 @@ export class RecordingsController {
 
   @Post('recordings/:recordingId/retry')
   @RequirePermission('retry', 'Recording')
-  @ApiResult('RecordingDto', {
+  @ApiResult('RecordingView', {
     description: 'Queues a failed recording again (audited)',
     status: HttpStatus.CREATED,
   })
-  retry(@CurrentCaller() caller: Caller, @Param('recordingId') id: string): Promise<RecordingDto> {
+  retry(@CurrentCaller() caller: Caller, @Param('recordingId') id: string): Promise<RecordingView> {
     return this.recordings.retry(caller, id);
   }
 }

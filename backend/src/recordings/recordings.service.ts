@@ -11,7 +11,7 @@ import { DataSource, EntityManager, FindOptionsWhere, In, Not } from 'typeorm';
 import { SETTLED_RECORDING_STATES } from '@gyre/shared';
 import type {
   Page,
-  RecordingDto,
+  RecordingView,
   RecordingEvent,
   RecordingKind,
   RecordingRejection,
@@ -22,7 +22,7 @@ import { AuditService } from '../audit/audit.service';
 import type { AuditActor } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
@@ -38,7 +38,7 @@ import { RecordingListQueryDto } from './dto/recording-list-query.dto';
 import { RecordingEventsService } from './recording-events.service';
 import { RecordingLifecycle } from './recording-lifecycle';
 import { Recording } from './recording.entity';
-import { toJobDto, toRecordingDto } from './recording.view';
+import { toJobView, toRecordingView } from './recording-view';
 import {
   ANALYSIS_LANE,
   ComputationInput,
@@ -110,7 +110,7 @@ export class RecordingsService {
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
     @Inject(JOB_QUEUE) private readonly queue: JobQueue,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly lifecycle: RecordingLifecycle,
     private readonly audit: AuditService,
     private readonly pool: WorkerPoolService,
@@ -118,7 +118,7 @@ export class RecordingsService {
     private readonly events: EventEmitter2,
   ) {}
 
-  async upload(caller: Caller, visit: Visit, upload: StoredUpload): Promise<RecordingDto> {
+  async upload(caller: Caller, visit: Visit, upload: StoredUpload): Promise<RecordingView> {
     const tempPath = upload.file.tempPath;
     try {
       if (upload.onsetsCsv !== null && upload.kind !== 'task') {
@@ -173,7 +173,7 @@ export class RecordingsService {
     }
   }
 
-  async list(caller: Caller, query: RecordingListQueryDto): Promise<Page<RecordingDto>> {
+  async list(caller: Caller, query: RecordingListQueryDto): Promise<Page<RecordingView>> {
     const window = pageWindowOf(query, 'desc');
     const filters: Partial<
       Record<'visitId' | 'participantId' | 'siteId' | 'state' | 'kind', string>
@@ -197,7 +197,7 @@ export class RecordingsService {
     return toPage([views, total], window, (v) => v);
   }
 
-  async get(caller: Caller, id: string): Promise<RecordingDto> {
+  async get(caller: Caller, id: string): Promise<RecordingView> {
     const [view] = await this.views([await this.findInScope(caller, id, 'read')]);
     return view;
   }
@@ -254,7 +254,7 @@ export class RecordingsService {
   }
 
   /** A failed recording computed again with the current settings (technician or analyst). */
-  async retry(caller: Caller, id: string): Promise<RecordingDto> {
+  async retry(caller: Caller, id: string): Promise<RecordingView> {
     const row = await this.findInScope(caller, id, 'retry');
     if (row.state !== 'failed') {
       throw recordingsError(
@@ -495,12 +495,12 @@ export class RecordingsService {
     if (requeued > 0) this.logger.warn(`Queued ${requeued} recording(s) again after a restart`);
   }
 
-  async views(rows: Recording[]): Promise<RecordingDto[]> {
+  async views(rows: Recording[]): Promise<RecordingView[]> {
     if (rows.length === 0) return [];
     const jobs = await this.queue.latestBySubject(rows.map((r) => r.id));
     return rows.map((row) => {
       const job = jobs.get(row.id) as QueuedJob<ComputationPayload> | undefined;
-      return toRecordingDto(row, job === undefined ? null : toJobDto(job));
+      return toRecordingView(row, job === undefined ? null : toJobView(job));
     });
   }
 
@@ -636,7 +636,7 @@ export class RecordingsService {
     caller: Caller,
     row: Recording,
     rejection: RecordingRejection,
-  ): Promise<RecordingDto> {
+  ): Promise<RecordingView> {
     const rejected = await this.writes.run((tx) =>
       this.lifecycle.transition(
         tx,
@@ -663,7 +663,7 @@ export class RecordingsService {
     upload: StoredUpload,
     facts: RecordingFacts,
     kindConfirmed: boolean,
-  ): Promise<RecordingDto> {
+  ): Promise<RecordingView> {
     const storedFile = `${row.checksumSha256}.edf`;
     const target = join(this.config.uploadsDir, storedFile);
     await mkdir(this.config.uploadsDir, { recursive: true });

@@ -3,7 +3,7 @@ import { spawnSync } from 'node:child_process';
 import type { RunSummary } from '../signal/pipeline/run-summary';
 import { base64ToFloat64, encodeResultBody, float64ToBase64, parseResultBody } from './result-wire';
 import { parseRemoteJobId, remoteJobId } from './remote-job';
-import { seededUniform } from '../signal/onset/random';
+import { seededUniform } from '../signal/random/random';
 
 /** Seeded values of every kind: ordinary, tiny, huge, negative zero, subnormal, NaN. */
 function awkwardValues(): Float64Array {

@@ -5,7 +5,6 @@ import {
   HttpCode,
   Param,
   ParseIntPipe,
-  ParseUUIDPipe,
   Post,
   Res,
   StreamableFile,
@@ -14,7 +13,6 @@ import {
   ApiBearerAuth,
   ApiConflictResponse,
   ApiConsumes,
-  ApiOkResponse,
   ApiOperation,
   ApiTags,
 } from '@nestjs/swagger';
@@ -22,12 +20,8 @@ import { ApiFile, ApiResult } from '../openapi/api-responses';
 import type { Response } from 'express';
 import type { WorkerPrincipal } from '../auth/auth-user';
 import { CurrentWorker, RequirePermission } from '../auth/decorators';
-import {
-  WorkerFailureAnswerDto,
-  WorkerFailureDto,
-  WorkerProgressDto,
-  WorkerResultAnswerDto,
-} from './dto/worker-job.dto';
+import type { WorkerFailureView, WorkerResultView } from './dto/worker-answers';
+import { WorkerFailureDto, WorkerProgressDto } from './dto/worker-job.dto';
 import type { RemoteTask } from './remote-job';
 import { RESULT_CONTENT_TYPE } from './result-wire';
 import { WorkerJobsService } from './worker-jobs.service';
@@ -50,7 +44,7 @@ export class WorkerJobsController {
   @ApiOperation({ summary: 'The task to compute: settings, IAF, onsets, the file’s SHA-256' })
   @ApiResult('RemoteTask', { description: 'The attempt’s task' })
   input(
-    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @Param('jobId') jobId: string,
     @Param('attempt', attemptPipe) attempt: number,
   ): Promise<RemoteTask> {
     return this.jobs.task({ jobId, attempt });
@@ -61,7 +55,7 @@ export class WorkerJobsController {
   @ApiOperation({ summary: 'The stored recording (EDF); its SHA-256 is in X-Gyre-Sha256' })
   @ApiFile('application/octet-stream', 'The EDF file as stored (patient field blanked)')
   async file(
-    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @Param('jobId') jobId: string,
     @Param('attempt', attemptPipe) attempt: number,
     @Res({ passthrough: true }) response: Response,
   ): Promise<StreamableFile> {
@@ -78,7 +72,7 @@ export class WorkerJobsController {
   @RequirePermission('create', 'JobResult')
   @ApiOperation({ summary: 'How far the computation is (percent)' })
   async progress(
-    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @Param('jobId') jobId: string,
     @Param('attempt', attemptPipe) attempt: number,
     @Body() body: WorkerProgressDto,
   ): Promise<void> {
@@ -92,13 +86,13 @@ export class WorkerJobsController {
   @ApiOperation({
     summary: 'The computation’s result: summary as JSON, series as base64 float64 (LE)',
   })
-  @ApiOkResponse({ type: WorkerResultAnswerDto })
+  @ApiResult('WorkerResultView', { description: 'What the server did with the result' })
   result(
-    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @Param('jobId') jobId: string,
     @Param('attempt', attemptPipe) attempt: number,
     @Body() body: unknown,
     @CurrentWorker() worker: WorkerPrincipal,
-  ): Promise<WorkerResultAnswerDto> {
+  ): Promise<WorkerResultView> {
     return this.jobs.result({ jobId, attempt }, body, worker);
   }
 
@@ -106,13 +100,13 @@ export class WorkerJobsController {
   @HttpCode(200)
   @RequirePermission('create', 'JobResult')
   @ApiOperation({ summary: 'The computation failed: the attempt counts' })
-  @ApiOkResponse({ type: WorkerFailureAnswerDto })
+  @ApiResult('WorkerFailureView', { description: 'The failure is recorded' })
   async failure(
-    @Param('jobId', ParseUUIDPipe) jobId: string,
+    @Param('jobId') jobId: string,
     @Param('attempt', attemptPipe) attempt: number,
     @Body() body: WorkerFailureDto,
     @CurrentWorker() worker: WorkerPrincipal,
-  ): Promise<WorkerFailureAnswerDto> {
+  ): Promise<WorkerFailureView> {
     await this.jobs.failure({ jobId, attempt }, body.message, worker);
     return { recorded: true };
   }

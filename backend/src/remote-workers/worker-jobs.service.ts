@@ -3,15 +3,15 @@ import type { ReadStream } from 'node:fs';
 import { Inject, Injectable, Logger } from '@nestjs/common';
 import type { WorkerPrincipal } from '../auth/auth-user';
 import { GyreException } from '../common/errors/gyre.exception';
-import { ComputationSteps } from '../processing/computation-steps.service';
+import { ComputationStepsService } from '../processing/computation-steps.service';
 import { ComputationsService } from '../processing/computations.service';
-import { RemoteComputations } from '../processing/remote-computations.service';
+import { RemoteComputationsService } from '../processing/remote-computations.service';
 import { JOB_QUEUE } from '../queue/job-queue';
 import type { JobQueue, QueuedJob } from '../queue/job-queue';
 import type { ComputationPayload } from '../recordings/recordings.events';
 import { RecordingsService } from '../recordings/recordings.service';
 import { GYRE_VERSION } from '../version';
-import type { WorkerResultAnswerDto } from './dto/worker-job.dto';
+import type { WorkerResultView } from './dto/worker-answers';
 import type { AttemptRef, RemoteTask } from './remote-job';
 import { RemoteWorkersError, remoteWorkersError } from './remote-workers.errors';
 import { parseResultBody } from './result-wire';
@@ -34,9 +34,9 @@ export class WorkerJobsService {
   constructor(
     @Inject(JOB_QUEUE) private readonly queue: JobQueue,
     private readonly recordings: RecordingsService,
-    private readonly steps: ComputationSteps,
+    private readonly steps: ComputationStepsService,
     private readonly computations: ComputationsService,
-    private readonly remote: RemoteComputations,
+    private readonly remote: RemoteComputationsService,
   ) {}
 
   /** What the worker computes (the data the attempt was dispatched with). */
@@ -76,11 +76,7 @@ export class WorkerJobsService {
    * Gyre version, 409 when the attempt is not current; the same attempt's result again is
    * answered with what was stored and writes nothing.
    */
-  async result(
-    ref: AttemptRef,
-    body: unknown,
-    worker: WorkerPrincipal,
-  ): Promise<WorkerResultAnswerDto> {
+  async result(ref: AttemptRef, body: unknown, worker: WorkerPrincipal): Promise<WorkerResultView> {
     this.assertRemote();
     const parsed = parseResultBody(body);
     if (!parsed.ok) {

@@ -1,6 +1,6 @@
 import PDFDocument from 'pdfkit';
-import { formatQuantity, formatQuantityRange, type RoiUsageDto } from '@gyre/shared';
-import { BODY_WIDTH_PT, PAGE, REPORT_COLORS, ReportCanvas } from './report-canvas';
+import { formatQuantity, formatQuantityRange, type RoiUsageView } from '@gyre/shared';
+import { BODY_WIDTH_PT, PAGE, PAGE_SETUP, REPORT_COLORS, ReportCanvas } from './report-canvas';
 import { ReportFonts } from './report-fonts';
 import { formatCiHz, formatDeltaHz, formatHz, formatPValue, formatUtc } from './report-numbers';
 import { drawOnsetCurvePlot, drawSpectrumPlot } from './report-plots';
@@ -43,14 +43,7 @@ export async function renderVisitReport(
   assertValidModel(model);
   const fonts = ReportFonts.load(options.fontsDir);
   const doc = new PDFDocument({
-    size: 'A4',
-    bufferPages: true,
-    margins: {
-      top: PAGE.marginTopPt,
-      bottom: PAGE.marginBottomPt,
-      left: PAGE.marginLeftPt,
-      right: PAGE.marginRightPt,
-    },
+    ...PAGE_SETUP,
     lang: 'en',
     info: {
       Title: `Visit report, participant ${model.participantCode}, visit ${model.visit.label}`,
@@ -210,7 +203,11 @@ function drawTask(canvas: ReportCanvas, task: TaskSection | null): void {
 }
 
 /** Which channels the numbers rest on, right below them; amber when some were left out. */
-function drawRoiAndSource(canvas: ReportCanvas, usage: RoiUsageDto, source: RecordingSource): void {
+function drawRoiAndSource(
+  canvas: ReportCanvas,
+  usage: RoiUsageView,
+  source: RecordingSource,
+): void {
   canvas.gap(2);
   canvas.paragraph(roiUsageWords(usage), {
     sizePt: 9,
@@ -224,7 +221,7 @@ function drawRoiAndSource(canvas: ReportCanvas, usage: RoiUsageDto, source: Reco
 /** No channel left: the reasons in the warning colour, and no number or plot at all. */
 function drawNoRoi(
   canvas: ReportCanvas,
-  usage: RoiUsageDto,
+  usage: RoiUsageView,
   whatIsMissing: string,
   source: RecordingSource,
 ): void {

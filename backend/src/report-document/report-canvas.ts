@@ -27,6 +27,18 @@ export const PAGE = {
 
 export const BODY_WIDTH_PT = PAGE.widthPt - PAGE.marginLeftPt - PAGE.marginRightPt;
 
+/** pdfkit's page setup for a report page (and for the scratch page blocks are measured on). */
+export const PAGE_SETUP = {
+  size: 'A4',
+  bufferPages: true,
+  margins: {
+    top: PAGE.marginTopPt,
+    bottom: PAGE.marginBottomPt,
+    left: PAGE.marginLeftPt,
+    right: PAGE.marginRightPt,
+  },
+} as const;
+
 export interface TextStyle {
   role?: FontRole;
   sizePt?: number;
@@ -77,16 +89,7 @@ export class ReportCanvas {
 
   /** Height of a block drawn from the top of a fresh page, and how many pages it took. */
   measure(draw: (canvas: ReportCanvas) => void): { heightPt: number; pages: number } {
-    const scratch = new PDFDocument({
-      size: 'A4',
-      bufferPages: true,
-      margins: {
-        top: PAGE.marginTopPt,
-        bottom: PAGE.marginBottomPt,
-        left: PAGE.marginLeftPt,
-        right: PAGE.marginRightPt,
-      },
-    });
+    const scratch = new PDFDocument({ ...PAGE_SETUP });
     this.fonts.registerWith(scratch);
     const top = scratch.y;
     draw(new ReportCanvas(scratch, this.fonts));

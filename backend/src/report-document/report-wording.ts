@@ -1,4 +1,4 @@
-import type { RoiOmissionReason, RoiUsageDto } from '@gyre/shared';
+import type { RoiOmissionReason, RoiUsageView } from '@gyre/shared';
 import { formatNumber, formatPercent, formatSeconds, formatUtc } from './report-numbers';
 import { QualitySection, RecordingSource, RestSection, TaskSection } from './visit-report-model';
 
@@ -57,7 +57,7 @@ export const ROI_OMISSION_WORDS: Record<RoiOmissionReason, string> = {
 };
 
 /** "Oz — saturated (…); POz — not in the file", or a note when nothing was asked for. */
-function leftOutWords(usage: RoiUsageDto): string {
+function leftOutWords(usage: RoiUsageView): string {
   if (usage.leftOut.length === 0) return 'the settings name no channel for it';
   return usage.leftOut
     .map((omission) => `${omission.label} — ${ROI_OMISSION_WORDS[omission.reason]}`)
@@ -69,7 +69,7 @@ function leftOutWords(usage: RoiUsageDto): string {
  * O1, O2, Pz (3 of 5 wanted). Left out: Oz — saturated (…); POz — not in the file."
  * For status `none` see `noRoiWords`.
  */
-export function roiUsageWords(usage: RoiUsageDto): string {
+export function roiUsageWords(usage: RoiUsageView): string {
   if (usage.status === 'complete' && usage.leftOut.length > 0) {
     // The default set's names the montage lacks: listed, not a doubt about the number.
     const absent = usage.leftOut.map((omission) => omission.label);
@@ -84,7 +84,7 @@ export function roiUsageWords(usage: RoiUsageDto): string {
 }
 
 /** Printed instead of any number when no region-of-interest channel remains. */
-export function noRoiWords(usage: RoiUsageDto, whatIsMissing: string): string {
+export function noRoiWords(usage: RoiUsageView, whatIsMissing: string): string {
   return (
     `No region-of-interest channel remains: ${leftOutWords(usage)}. ` +
     `No ${whatIsMissing} is reported.`
@@ -106,7 +106,7 @@ export function sourceWords(source: RecordingSource, hasNumbers = true): string 
 }
 
 /** Beside a headline number resting on part of the ROI: "; from 3 of 5 … channels". */
-export function partialRoiNote(usage: RoiUsageDto): string {
+export function partialRoiNote(usage: RoiUsageView): string {
   if (usage.status !== 'partial') return '';
   return `; from ${usage.used.length} of ${usage.wanted.length} region-of-interest channels`;
 }

@@ -1,4 +1,4 @@
-import type { RoiUsageDto } from '@gyre/shared';
+import type { RoiUsageView } from '@gyre/shared';
 import { ROI_OMISSION_WORDS } from './report-wording';
 import { RecordingSource, VisitReportModel } from './visit-report-model';
 
@@ -32,33 +32,16 @@ export function assertValidModel(model: VisitReportModel): void {
   if (model.rest !== null) {
     const { frequencyHz, powerUv2PerHz } = model.rest.spectrum;
     sameLength('rest.spectrum.powerUv2PerHz', powerUv2PerHz.length, frequencyHz.length);
-    optionalFinite('rest.pafHz', model.rest.pafHz);
-    optionalFinite('rest.cogHz', model.rest.cogHz);
-    optionalFinite('rest.prominenceDb', model.rest.prominenceDb);
-    checkRoiUsage('rest.roiUsage', model.rest.roiUsage);
-    checkSource('rest.source', model.rest.source);
-    if (model.rest.roiUsage.status === 'none') {
-      nullWithoutRoi('rest.pafHz', model.rest.pafHz);
-      nullWithoutRoi('rest.cogHz', model.rest.cogHz);
-      nullWithoutRoi('rest.prominenceDb', model.rest.prominenceDb);
-    }
+    const { pafHz, cogHz, prominenceDb } = model.rest;
+    checkHeadlines('rest', model.rest, { pafHz, cogHz, prominenceDb });
   }
   if (model.task !== null) {
     const curve = model.task.onsetCurve;
     sameLength('task.onsetCurve.meanHz', curve.meanHz.length, curve.timeS.length);
     sameLength('task.onsetCurve.ciLowHz', curve.ciLowHz.length, curve.timeS.length);
     sameLength('task.onsetCurve.ciHighHz', curve.ciHighHz.length, curve.timeS.length);
-    optionalFinite('task.deltaFHz', model.task.deltaFHz);
-    optionalFinite('task.ciHz[0]', model.task.ciHz?.[0] ?? null);
-    optionalFinite('task.ciHz[1]', model.task.ciHz?.[1] ?? null);
-    optionalFinite('task.pValue', model.task.pValue);
-    checkRoiUsage('task.roiUsage', model.task.roiUsage);
-    checkSource('task.source', model.task.source);
-    if (model.task.roiUsage.status === 'none') {
-      nullWithoutRoi('task.deltaFHz', model.task.deltaFHz);
-      nullWithoutRoi('task.ciHz', model.task.ciHz);
-      nullWithoutRoi('task.pValue', model.task.pValue);
-    }
+    const { deltaFHz, ciHz, pValue } = model.task;
+    checkHeadlines('task', model.task, { deltaFHz, ciHz, pValue });
   }
   if (model.flagSuggestion !== null) {
     optionalFinite('flagSuggestion.flagThresholdHz', model.flagSuggestion.flagThresholdHz);
@@ -77,10 +60,32 @@ export function assertValidModel(model: VisitReportModel): void {
   }
 }
 
-const STATUSES: ReadonlyArray<RoiUsageDto['status']> = ['complete', 'partial', 'none'];
+/**
+ * A section's headline numbers: each finite or null (a pair checked number by number), its
+ * region of interest and source, and every number null when no region-of-interest channel
+ * remains.
+ */
+function checkHeadlines(
+  section: 'rest' | 'task',
+  of: { roiUsage: RoiUsageView; source: RecordingSource },
+  values: Record<string, number | readonly number[] | null>,
+): void {
+  for (const [name, value] of Object.entries(values)) {
+    if (Array.isArray(value))
+      value.forEach((v, i) => optionalFinite(`${section}.${name}[${i}]`, v));
+    else optionalFinite(`${section}.${name}`, value as number | null);
+  }
+  checkRoiUsage(`${section}.roiUsage`, of.roiUsage);
+  checkSource(`${section}.source`, of.source);
+  if (of.roiUsage.status === 'none') {
+    for (const [name, value] of Object.entries(values)) nullWithoutRoi(`${section}.${name}`, value);
+  }
+}
+
+const STATUSES: ReadonlyArray<RoiUsageView['status']> = ['complete', 'partial', 'none'];
 
 /** The printed "n of m wanted" and the status must agree with the channel lists. */
-function checkRoiUsage(field: string, usage: RoiUsageDto): void {
+function checkRoiUsage(field: string, usage: RoiUsageView): void {
   if (!STATUSES.includes(usage.status)) {
     throw new ReportModelError(
       `${field}.status`,

@@ -1,4 +1,4 @@
-import type { RoiUsageDto } from '@gyre/shared';
+import type { RoiUsageView } from '@gyre/shared';
 
 /**
  * Everything a visit report prints, as plain data: no entities, no I/O. The service that
@@ -60,7 +60,7 @@ export interface RestSection {
   /** Frequencies drawn on the spectrum plot; default [1, 30] Hz. */
   displayRangeHz?: [number, number];
   /** Which region-of-interest channels the numbers rest on. */
-  roiUsage: RoiUsageDto;
+  roiUsage: RoiUsageView;
   source: RecordingSource;
 }
 
@@ -88,7 +88,7 @@ export interface TaskSection {
     ciHighHz: Array<number | null>;
   };
   /** Which region-of-interest channels the numbers rest on. */
-  roiUsage: RoiUsageDto;
+  roiUsage: RoiUsageView;
   source: RecordingSource;
 }
 

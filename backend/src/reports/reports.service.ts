@@ -3,7 +3,7 @@ import { Injectable, Logger } from '@nestjs/common';
 import { OnEvent } from '@nestjs/event-emitter';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, FindOptionsWhere } from 'typeorm';
-import type { Action, Page, ReportDto } from '@gyre/shared';
+import type { Action, Page, ReportView } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
@@ -12,7 +12,7 @@ import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
 import { AnalysisEvents } from '../analysis/analysis.events';
 import type { VisitResultsChanged } from '../analysis/analysis.events';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { ReportListQueryDto } from './dto/report-list-query.dto';
 import { Report } from './report.entity';
 import { ReportsError, reportsError } from './reports.errors';
@@ -31,7 +31,7 @@ export class ReportsService {
 
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
   ) {}
 
@@ -68,7 +68,7 @@ export class ReportsService {
       studyId: report.studyId,
       siteId: report.siteId,
       before: null,
-      after: toReportDto(report),
+      after: toReportView(report),
       reason: 'first result of the visit computed',
     });
     return report;
@@ -84,7 +84,7 @@ export class ReportsService {
     await manager.getRepository(Report).update({ id: reportId }, { state, updatedAt: at });
   }
 
-  async list(caller: Caller, query: ReportListQueryDto): Promise<Page<ReportDto>> {
+  async list(caller: Caller, query: ReportListQueryDto): Promise<Page<ReportView>> {
     const window = pageWindowOf(query, 'desc');
     const filters: Partial<Record<'state' | 'siteId' | 'participantId', string>> = {};
     for (const key of ['state', 'siteId', 'participantId'] as const) {
@@ -102,10 +102,10 @@ export class ReportsService {
       skip: window.skip,
       take: window.take,
     });
-    return toPage(found, window, toReportDto);
+    return toPage(found, window, toReportView);
   }
 
-  async forVisit(caller: Caller, visitId: string): Promise<ReportDto> {
+  async forVisit(caller: Caller, visitId: string): Promise<ReportView> {
     const report = await this.dataSource.getRepository(Report).findOne({
       where: scopedWhere<Report>(caller.ability, 'read', 'Report', { visitId }),
     });
@@ -114,7 +114,7 @@ export class ReportsService {
         visitId,
       });
     }
-    return toReportDto(report);
+    return toReportView(report);
   }
 
   /** For other modules: the visit's report if the caller may `action` it, else null (their 404). */
@@ -130,7 +130,7 @@ export class ReportsService {
   }
 }
 
-export function toReportDto(row: Report): ReportDto {
+export function toReportView(row: Report): ReportView {
   return {
     id: row.id,
     visitId: row.visitId,

@@ -2,19 +2,23 @@ import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import { EntityManager, In, Repository } from 'typeorm';
-import { subject, type PlannedVisitView } from '@gyre/shared';
+import type { PlannedVisitView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
-import { AuditService } from '../audit/audit.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
-import { DuplicateRowError, isUniqueViolation } from '../common/errors/unique-violation';
+import { AuditedWrites } from '../audit/audited-writes';
 import { nowIso } from '../common/time';
 import { StudiesService } from '../studies/studies.service';
 import { CreatePlannedVisitDto, UpdatePlannedVisitDto } from './dto/schedule.dto';
 import { PlannedVisit } from './planned-visit.entity';
-import { StudiesError, studiesError } from '../studies/studies.errors';
 import { ScheduleError, scheduleError } from './schedule.errors';
 import { toPlannedVisitView } from './schedule-views';
+import {
+  assertNameFree,
+  assertStudyWritable,
+  codesInUse,
+  findStudyRow,
+  studyRowScope,
+} from './study-rows';
 
 /** A study's visit schedule: the admin writes it, everyone in the study reads it. */
 @Injectable()
@@ -22,8 +26,7 @@ export class PlannedVisitsService {
   constructor(
     @InjectRepository(PlannedVisit) private readonly plannedVisits: Repository<PlannedVisit>,
     private readonly studies: StudiesService,
-    private readonly writes: WriteTransactions,
-    private readonly audit: AuditService,
+    private readonly audited: AuditedWrites,
   ) {}
 
   /** The schedule in order (position, then target day). */
@@ -86,33 +89,28 @@ export class PlannedVisitsService {
   ): Promise<void> {
     await this.studyForWrite(caller, 'delete', studyId);
     const current = await this.findInStudy(caller, 'delete', studyId, id);
-    await this.writes.run(async (manager) => {
-      const users = (await manager.query(
-        `SELECT p."code" AS "code" FROM "visit" v JOIN "participant" p ON p."id" = v."participantId"
-          WHERE v."plannedVisitId" = ? ORDER BY p."code"`,
-        [id],
-      )) as { code: string }[];
-      if (users.length > 0) {
-        const named = users.slice(0, 5).map((u) => u.code);
-        const more = users.length > named.length ? ` and ${users.length - named.length} more` : '';
-        throw scheduleError(
-          ScheduleError.PlannedVisitInUse,
-          `Planned visit ${current.name} is in use: ${users.length} visit(s) were registered on it (${named.join(', ')}${more})`,
-          { plannedVisitId: id, visits: users.length, participantCodes: named },
+    await this.audited.remove(caller, {
+      entity: PlannedVisit,
+      objectType: 'PlannedVisit',
+      row: current,
+      reason,
+      scope: studyRowScope,
+      view: toPlannedVisitView,
+      check: async (manager) => {
+        const users = await codesInUse(
+          manager,
+          `SELECT p."code" AS "code" FROM "visit" v JOIN "participant" p ON p."id" = v."participantId"
+            WHERE v."plannedVisitId" = ? ORDER BY p."code"`,
+          id,
         );
-      }
-      await manager.delete(PlannedVisit, { id });
-      await this.audit.record({
-        actor: caller.user,
-        action: 'delete',
-        objectType: 'PlannedVisit',
-        objectId: id,
-        studyId: current.studyId,
-        siteId: null,
-        before: toPlannedVisitView(current),
-        reason: reason ?? null,
-        clientIp: caller.clientIp,
-      });
+        if (users.count > 0) {
+          throw scheduleError(
+            ScheduleError.PlannedVisitInUse,
+            `Planned visit ${current.name} is in use: ${users.count} visit(s) were registered on it (${users.listed})`,
+            { plannedVisitId: id, visits: users.count, participantCodes: users.named },
+          );
+        }
+      },
     });
   }
 
@@ -133,76 +131,49 @@ export class PlannedVisitsService {
     return this.repo(manager).findOneBy({ id });
   }
 
-  private async save(
+  private save(
     caller: Caller,
     before: PlannedVisit | null,
     build: (manager: EntityManager) => Promise<PlannedVisit>,
   ): Promise<PlannedVisitView> {
-    let name = before?.name ?? '';
-    try {
-      return await this.writes.run(async (manager) => {
-        const row = await build(manager);
-        name = row.name;
-        await assertNameFree(manager, 'planned_visit', row.studyId, row.name, row.id);
-        await manager.save(PlannedVisit, row);
-        const view = toPlannedVisitView(row);
-        await this.audit.record({
-          actor: caller.user,
-          action: before === null ? 'create' : 'update',
-          objectType: 'PlannedVisit',
-          objectId: row.id,
-          studyId: row.studyId,
-          siteId: null,
-          before: before === null ? undefined : toPlannedVisitView(before),
-          after: view,
-          clientIp: caller.clientIp,
-        });
-        return view;
-      });
-    } catch (error) {
-      if (isUniqueViolation(error)) {
-        throw scheduleError(
+    return this.audited.save(caller, {
+      entity: PlannedVisit,
+      objectType: 'PlannedVisit',
+      before,
+      row: build,
+      scope: studyRowScope,
+      check: (manager, row) => assertNameFree(manager, 'planned_visit', row),
+      view: toPlannedVisitView,
+      duplicate: (row) =>
+        scheduleError(
           ScheduleError.PlannedVisitNameTaken,
-          `name: the study's schedule already has a planned visit ${name}`,
-          { field: 'name', value: name },
-        );
-      }
-      throw error;
-    }
+          `name: the study's schedule already has a planned visit ${row.name}`,
+          { field: 'name', value: row.name },
+        ),
+    });
   }
 
-  private async studyForWrite(
+  private studyForWrite(
     caller: Caller,
     action: 'create' | 'update' | 'delete',
     studyId: string,
   ): Promise<void> {
-    await this.studies.findInScope(caller, 'read', studyId);
-    if (!caller.ability.can(action, subject('PlannedVisit', { studyId }))) {
-      throw studiesError(
-        StudiesError.NotFound,
-        `No study ${studyId} whose schedule you may change`,
-        { id: studyId },
-      );
-    }
+    return assertStudyWritable(this.studies, caller, 'PlannedVisit', action, studyId, 'schedule');
   }
 
-  private async findInStudy(
+  private findInStudy(
     caller: Caller,
     action: 'read' | 'update' | 'delete',
     studyId: string,
     id: string,
   ): Promise<PlannedVisit> {
-    const row = await this.plannedVisits.findOne({
-      where: scopedWhere<PlannedVisit>(caller.ability, action, 'PlannedVisit', { id, studyId }),
-    });
-    if (row === null) {
-      throw scheduleError(
+    return findStudyRow(this.plannedVisits, caller, 'PlannedVisit', action, { id, studyId }, () =>
+      scheduleError(
         ScheduleError.PlannedVisitNotFound,
         `No planned visit ${id} in study ${studyId}`,
         { field: 'id', id },
-      );
-    }
-    return row;
+      ),
+    );
   }
 
   private repo(manager: EntityManager | undefined): Repository<PlannedVisit> {
@@ -216,22 +187,4 @@ async function nextPosition(manager: EntityManager, studyId: string): Promise<nu
     [studyId],
   )) as { next: number }[];
   return next;
-}
-
-/**
- * Names are unique per study without regard to case (the index uses NOCASE); looking first
- * turns the usual duplicate into a clean 409 (the index stays the backstop).
- */
-export async function assertNameFree(
-  manager: EntityManager,
-  table: 'planned_visit' | 'study_group',
-  studyId: string,
-  name: string,
-  id: string,
-): Promise<void> {
-  const rows = (await manager.query(
-    `SELECT 1 FROM "${table}" WHERE "studyId" = ? AND "name" = ? COLLATE NOCASE AND "id" <> ? LIMIT 1`,
-    [studyId, name, id],
-  )) as unknown[];
-  if (rows.length > 0) throw new DuplicateRowError('duplicate');
 }

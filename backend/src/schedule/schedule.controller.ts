@@ -1,42 +1,22 @@
-import {
-  Body,
-  Controller,
-  Delete,
-  Get,
-  HttpCode,
-  Param,
-  ParseUUIDPipe,
-  Patch,
-  Post,
-  Query,
-} from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiConflictResponse,
-  ApiCreatedResponse,
-  ApiForbiddenResponse,
-  ApiNoContentResponse,
-  ApiNotFoundResponse,
-  ApiOkResponse,
-  ApiTags,
-} from '@nestjs/swagger';
+import { Body, Controller, Param, Query } from '@nestjs/common';
+import { ApiNotFoundResponse } from '@nestjs/swagger';
 import type { PlannedVisitView, StudyGroupView } from '@gyre/shared';
-import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
+import { CurrentCaller, type Caller } from '../auth/decorators';
 import { ReasonQueryDto } from '../common/dto/reason-query.dto';
+import { CreateRoute, DeleteRoute, ListRoute, UpdateRoute } from '../common/http/resource-routes';
+import { ScopedController } from '../common/http/scoped-controller';
 import {
   CreatePlannedVisitDto,
   CreateStudyGroupDto,
-  PlannedVisitResponseDto,
-  StudyGroupResponseDto,
   UpdatePlannedVisitDto,
   UpdateStudyGroupDto,
 } from './dto/schedule.dto';
 import { PlannedVisitsService } from './planned-visits.service';
 import { StudyGroupsService } from './study-groups.service';
 
-@ApiTags('schedule')
-@ApiBearerAuth()
-@ApiForbiddenResponse({ description: 'The role may never do this' })
+const NAME_TAKEN = 'The name is taken in this study';
+
+@ScopedController('schedule')
 @ApiNotFoundResponse({ description: 'No such study (or row) in your scope' })
 @Controller('studies/:studyId')
 export class ScheduleController {
@@ -45,99 +25,102 @@ export class ScheduleController {
     private readonly groups: StudyGroupsService,
   ) {}
 
-  @Get('planned-visits')
-  @RequirePermission('read', 'PlannedVisit')
-  @ApiOkResponse({ type: [PlannedVisitResponseDto] })
+  @ListRoute('PlannedVisit', 'PlannedVisitView', {
+    path: 'planned-visits',
+    description: "The study's planned visits in schedule order",
+    array: true,
+  })
   listPlannedVisits(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Param('studyId') studyId: string,
   ): Promise<PlannedVisitView[]> {
     return this.plannedVisits.list(caller, studyId);
   }
 
-  @Post('planned-visits')
-  @RequirePermission('create', 'PlannedVisit')
-  @ApiCreatedResponse({ type: PlannedVisitResponseDto })
-  @ApiConflictResponse({ description: 'The name is taken in this study' })
+  @CreateRoute('PlannedVisit', 'PlannedVisitView', {
+    path: 'planned-visits',
+    description: 'The new planned visit (audited)',
+    conflict: NAME_TAKEN,
+  })
   createPlannedVisit(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Param('studyId') studyId: string,
     @Body() body: CreatePlannedVisitDto,
   ): Promise<PlannedVisitView> {
     return this.plannedVisits.create(caller, studyId, body);
   }
 
-  @Patch('planned-visits/:id')
-  @RequirePermission('update', 'PlannedVisit')
-  @ApiOkResponse({ type: PlannedVisitResponseDto })
-  @ApiConflictResponse({ description: 'The name is taken in this study' })
+  @UpdateRoute('PlannedVisit', 'PlannedVisitView', {
+    path: 'planned-visits/:id',
+    description: 'The changed planned visit',
+    conflict: NAME_TAKEN,
+  })
   updatePlannedVisit(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
-    @Param('id', ParseUUIDPipe) id: string,
+    @Param('studyId') studyId: string,
+    @Param('id') id: string,
     @Body() body: UpdatePlannedVisitDto,
   ): Promise<PlannedVisitView> {
     return this.plannedVisits.update(caller, studyId, id, body);
   }
 
-  @Delete('planned-visits/:id')
-  @HttpCode(204)
-  @RequirePermission('delete', 'PlannedVisit')
-  @ApiNoContentResponse()
-  @ApiConflictResponse({ description: 'Visits were registered on it' })
+  @DeleteRoute('PlannedVisit', {
+    path: 'planned-visits/:id',
+    conflict: 'Visits were registered on it',
+  })
   removePlannedVisit(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
-    @Param('id', ParseUUIDPipe) id: string,
+    @Param('studyId') studyId: string,
+    @Param('id') id: string,
     @Query() query: ReasonQueryDto,
   ): Promise<void> {
     return this.plannedVisits.remove(caller, studyId, id, query.reason);
   }
 
-  @Get('groups')
-  @RequirePermission('read', 'StudyGroup')
-  @ApiOkResponse({ type: [StudyGroupResponseDto] })
+  @ListRoute('StudyGroup', 'StudyGroupView', {
+    path: 'groups',
+    description: "The study's groups (arms)",
+    array: true,
+  })
   listGroups(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Param('studyId') studyId: string,
   ): Promise<StudyGroupView[]> {
     return this.groups.list(caller, studyId);
   }
 
-  @Post('groups')
-  @RequirePermission('create', 'StudyGroup')
-  @ApiCreatedResponse({ type: StudyGroupResponseDto })
-  @ApiConflictResponse({ description: 'The name is taken in this study' })
+  @CreateRoute('StudyGroup', 'StudyGroupView', {
+    path: 'groups',
+    description: 'The new group (audited)',
+    conflict: NAME_TAKEN,
+  })
   createGroup(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Param('studyId') studyId: string,
     @Body() body: CreateStudyGroupDto,
   ): Promise<StudyGroupView> {
     return this.groups.create(caller, studyId, body);
   }
 
-  @Patch('groups/:id')
-  @RequirePermission('update', 'StudyGroup')
-  @ApiOkResponse({ type: StudyGroupResponseDto })
-  @ApiConflictResponse({ description: 'The name is taken in this study' })
+  @UpdateRoute('StudyGroup', 'StudyGroupView', {
+    path: 'groups/:id',
+    description: 'The changed group',
+    conflict: NAME_TAKEN,
+  })
   updateGroup(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
-    @Param('id', ParseUUIDPipe) id: string,
+    @Param('studyId') studyId: string,
+    @Param('id') id: string,
     @Body() body: UpdateStudyGroupDto,
   ): Promise<StudyGroupView> {
     return this.groups.update(caller, studyId, id, body);
   }
 
-  @Delete('groups/:id')
-  @HttpCode(204)
-  @RequirePermission('delete', 'StudyGroup')
-  @ApiNoContentResponse()
-  @ApiConflictResponse({ description: 'Participants belong to it' })
+  @DeleteRoute('StudyGroup', { path: 'groups/:id', conflict: 'Participants belong to it' })
   removeGroup(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
-    @Param('id', ParseUUIDPipe) id: string,
+    @Param('studyId') studyId: string,
+    @Param('id') id: string,
     @Query() query: ReasonQueryDto,
   ): Promise<void> {
     return this.groups.remove(caller, studyId, id, query.reason);

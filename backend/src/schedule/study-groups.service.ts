@@ -2,20 +2,23 @@ import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import { EntityManager, Repository } from 'typeorm';
-import { subject, type StudyGroupView } from '@gyre/shared';
+import type { StudyGroupView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
-import { AuditService } from '../audit/audit.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
-import { isUniqueViolation } from '../common/errors/unique-violation';
+import { AuditedWrites } from '../audit/audited-writes';
 import { nowIso } from '../common/time';
 import { StudiesService } from '../studies/studies.service';
 import { CreateStudyGroupDto, UpdateStudyGroupDto } from './dto/schedule.dto';
-import { assertNameFree } from './planned-visits.service';
-import { StudiesError, studiesError } from '../studies/studies.errors';
 import { ScheduleError, scheduleError } from './schedule.errors';
 import { toStudyGroupView } from './schedule-views';
 import { StudyGroup } from './study-group.entity';
+import {
+  assertNameFree,
+  assertStudyWritable,
+  codesInUse,
+  findStudyRow,
+  studyRowScope,
+} from './study-rows';
 
 /** A study's groups or arms: the admin writes them, everyone in the study reads them. */
 @Injectable()
@@ -23,8 +26,7 @@ export class StudyGroupsService {
   constructor(
     @InjectRepository(StudyGroup) private readonly groups: Repository<StudyGroup>,
     private readonly studies: StudiesService,
-    private readonly writes: WriteTransactions,
-    private readonly audit: AuditService,
+    private readonly audited: AuditedWrites,
   ) {}
 
   async list(caller: Caller, studyId: string): Promise<StudyGroupView[]> {
@@ -74,33 +76,27 @@ export class StudyGroupsService {
   ): Promise<void> {
     await this.studyForWrite(caller, 'delete', studyId);
     const current = await this.findInStudy(caller, 'delete', studyId, id);
-    await this.writes.run(async (manager) => {
-      const members = (await manager.query(
-        `SELECT "code" FROM "participant" WHERE "groupId" = ? ORDER BY "code"`,
-        [id],
-      )) as { code: string }[];
-      if (members.length > 0) {
-        const named = members.slice(0, 5).map((m) => m.code);
-        const more =
-          members.length > named.length ? ` and ${members.length - named.length} more` : '';
-        throw scheduleError(
-          ScheduleError.GroupInUse,
-          `Group ${current.name} is in use: ${members.length} participant(s) belong to it (${named.join(', ')}${more})`,
-          { groupId: id, participants: members.length, participantCodes: named },
+    await this.audited.remove(caller, {
+      entity: StudyGroup,
+      objectType: 'StudyGroup',
+      row: current,
+      reason,
+      scope: studyRowScope,
+      view: toStudyGroupView,
+      check: async (manager) => {
+        const members = await codesInUse(
+          manager,
+          `SELECT "code" FROM "participant" WHERE "groupId" = ? ORDER BY "code"`,
+          id,
         );
-      }
-      await manager.delete(StudyGroup, { id });
-      await this.audit.record({
-        actor: caller.user,
-        action: 'delete',
-        objectType: 'StudyGroup',
-        objectId: id,
-        studyId: current.studyId,
-        siteId: null,
-        before: toStudyGroupView(current),
-        reason: reason ?? null,
-        clientIp: caller.clientIp,
-      });
+        if (members.count > 0) {
+          throw scheduleError(
+            ScheduleError.GroupInUse,
+            `Group ${current.name} is in use: ${members.count} participant(s) belong to it (${members.listed})`,
+            { groupId: id, participants: members.count, participantCodes: members.named },
+          );
+        }
+      },
     });
   }
 
@@ -109,69 +105,47 @@ export class StudyGroupsService {
     return (manager?.getRepository(StudyGroup) ?? this.groups).findOneBy({ id });
   }
 
-  private async save(
+  private save(
     caller: Caller,
     before: StudyGroup | null,
     row: StudyGroup,
   ): Promise<StudyGroupView> {
-    try {
-      return await this.writes.run(async (manager) => {
-        await assertNameFree(manager, 'study_group', row.studyId, row.name, row.id);
-        await manager.save(StudyGroup, row);
-        const view = toStudyGroupView(row);
-        await this.audit.record({
-          actor: caller.user,
-          action: before === null ? 'create' : 'update',
-          objectType: 'StudyGroup',
-          objectId: row.id,
-          studyId: row.studyId,
-          siteId: null,
-          before: before === null ? undefined : toStudyGroupView(before),
-          after: view,
-          clientIp: caller.clientIp,
-        });
-        return view;
-      });
-    } catch (error) {
-      if (isUniqueViolation(error)) {
-        throw scheduleError(
+    return this.audited.save(caller, {
+      entity: StudyGroup,
+      objectType: 'StudyGroup',
+      before,
+      row,
+      scope: studyRowScope,
+      check: (manager, group) => assertNameFree(manager, 'study_group', group),
+      view: toStudyGroupView,
+      duplicate: (group) =>
+        scheduleError(
           ScheduleError.GroupNameTaken,
-          `name: the study already has a group ${row.name}`,
-          { field: 'name', value: row.name },
-        );
-      }
-      throw error;
-    }
+          `name: the study already has a group ${group.name}`,
+          { field: 'name', value: group.name },
+        ),
+    });
   }
 
-  private async studyForWrite(
+  private studyForWrite(
     caller: Caller,
     action: 'create' | 'update' | 'delete',
     studyId: string,
   ): Promise<void> {
-    await this.studies.findInScope(caller, 'read', studyId);
-    if (!caller.ability.can(action, subject('StudyGroup', { studyId }))) {
-      throw studiesError(StudiesError.NotFound, `No study ${studyId} whose groups you may change`, {
-        id: studyId,
-      });
-    }
+    return assertStudyWritable(this.studies, caller, 'StudyGroup', action, studyId, 'groups');
   }
 
-  private async findInStudy(
+  private findInStudy(
     caller: Caller,
     action: 'read' | 'update' | 'delete',
     studyId: string,
     id: string,
   ): Promise<StudyGroup> {
-    const row = await this.groups.findOne({
-      where: scopedWhere<StudyGroup>(caller.ability, action, 'StudyGroup', { id, studyId }),
-    });
-    if (row === null) {
-      throw scheduleError(ScheduleError.GroupNotFound, `No group ${id} in study ${studyId}`, {
+    return findStudyRow(this.groups, caller, 'StudyGroup', action, { id, studyId }, () =>
+      scheduleError(ScheduleError.GroupNotFound, `No group ${id} in study ${studyId}`, {
         field: 'id',
         id,
-      });
-    }
-    return row;
+      }),
+    );
   }
 }

@@ -1,17 +1,17 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, FindOptionsWhere } from 'typeorm';
-import type { Page, ReportRevisionDto } from '@gyre/shared';
+import type { Page, ReportRevisionView } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { RevisionListQueryDto } from './dto/revision-list-query.dto';
-import { ReportFiles } from './report-files';
-import { ReportNotifications } from './report-notifications';
+import { ReportFilesService } from './report-files.service';
+import { ReportNotificationsService } from './report-notifications.service';
 import { ReportRevision } from './report-revision.entity';
-import { revisionFileName, RevisionViews } from './revision-view';
+import { revisionFileName, RevisionViewsService } from './revision-views.service';
 import type { PdfFile } from './signoff.service';
 import { SignoffError, signoffError } from './signoff.errors';
 
@@ -24,14 +24,14 @@ import { SignoffError, signoffError } from './signoff.errors';
 export class ReportRevisionsService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
-    private readonly files: ReportFiles,
-    private readonly notifications: ReportNotifications,
-    private readonly views: RevisionViews,
+    private readonly files: ReportFilesService,
+    private readonly notifications: ReportNotificationsService,
+    private readonly views: RevisionViewsService,
   ) {}
 
-  async list(caller: Caller, query: RevisionListQueryDto): Promise<Page<ReportRevisionDto>> {
+  async list(caller: Caller, query: RevisionListQueryDto): Promise<Page<ReportRevisionView>> {
     await this.notifications.markDelivered();
     const window = pageWindowOf(query, 'desc');
     const filters: FindOptionsWhere<ReportRevision> = {};
@@ -54,7 +54,7 @@ export class ReportRevisionsService {
     };
   }
 
-  async get(caller: Caller, revisionId: string): Promise<ReportRevisionDto> {
+  async get(caller: Caller, revisionId: string): Promise<ReportRevisionView> {
     const row = await this.inScope(caller, 'read', { id: revisionId }, revisionId);
     const [view] = await this.views.of(this.dataSource.manager, [row]);
     return view;

@@ -12,7 +12,7 @@ import {
 } from '@nestjs/common';
 import type { Response } from 'express';
 import { ApiBearerAuth, ApiConflictResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
-import type { Page, ReportRevisionDto, ReportSignOffDto } from '@gyre/shared';
+import type { Page, ReportRevisionView, ReportSignOffView } from '@gyre/shared';
 import { ApiFile, ApiResult } from '../openapi/api-responses';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
@@ -36,11 +36,11 @@ export class SignoffController {
   @ApiOperation({
     summary: 'Sign-off state: draft fingerprint, pending revision, signed revisions',
   })
-  @ApiResult('ReportSignOffDto', { description: "The visit's sign-off state" })
+  @ApiResult('ReportSignOffView', { description: "The visit's sign-off state" })
   status(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
-  ): Promise<ReportSignOffDto> {
+  ): Promise<ReportSignOffView> {
     return this.signoff.status(caller, visitId);
   }
 
@@ -62,7 +62,7 @@ export class SignoffController {
   @ApiOperation({
     summary: 'Sign the report: password again, the meaning, the previewed fingerprint',
   })
-  @ApiResult('ReportRevisionDto', {
+  @ApiResult('ReportRevisionView', {
     description: 'The new signed revision',
     status: HttpStatus.CREATED,
   })
@@ -71,30 +71,30 @@ export class SignoffController {
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
     @Body() body: SignReportDto,
-  ): Promise<ReportRevisionDto> {
+  ): Promise<ReportRevisionView> {
     return this.signoff.sign(caller, visitId, body);
   }
 
   @Get('report-revisions')
   @RequirePermission('read', 'Report')
-  @ApiResult('ReportRevisionDto', {
+  @ApiResult('ReportRevisionView', {
     description: 'Signed revisions in scope (coordinators: their site only)',
     page: true,
   })
   list(
     @CurrentCaller() caller: Caller,
     @Query() query: RevisionListQueryDto,
-  ): Promise<Page<ReportRevisionDto>> {
+  ): Promise<Page<ReportRevisionView>> {
     return this.revisions.list(caller, query);
   }
 
   @Get('report-revisions/:revisionId')
   @RequirePermission('read', 'Report')
-  @ApiResult('ReportRevisionDto', { description: 'One signed revision' })
+  @ApiResult('ReportRevisionView', { description: 'One signed revision' })
   get(
     @CurrentCaller() caller: Caller,
     @Param('revisionId') revisionId: string,
-  ): Promise<ReportRevisionDto> {
+  ): Promise<ReportRevisionView> {
     return this.revisions.get(caller, revisionId);
   }
 

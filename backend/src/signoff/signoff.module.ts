@@ -11,17 +11,17 @@ import { SitesModule } from '../sites/sites.module';
 import { StudiesModule } from '../studies/studies.module';
 import { UsersModule } from '../users/users.module';
 import { VisitsModule } from '../visits/visits.module';
-import { ReportFiles } from './report-files';
+import { ReportFilesService } from './report-files.service';
 import { ReportNotification } from './report-notification.entity';
-import { ReportNotifications } from './report-notifications';
+import { ReportNotificationsService } from './report-notifications.service';
 import { ReportRevision } from './report-revision.entity';
-import { ReportRendering } from './report-rendering';
+import { ReportRenderingService } from './report-rendering.service';
 import { ReportRevisionsService } from './report-revisions.service';
-import { RevisionViews } from './revision-view';
-import { SignerVerification } from './signer-verification';
+import { RevisionViewsService } from './revision-views.service';
+import { SignerVerificationService } from './signer-verification.service';
 import { SignoffController } from './signoff.controller';
 import { SignoffService } from './signoff.service';
-import { VisitReportContent } from './visit-report-content';
+import { VisitReportContentService } from './visit-report-content.service';
 
 /** Report sign-off, signed revisions, their PDFs and the coordinator e-mail (issue 7). */
 @Module({
@@ -43,12 +43,12 @@ import { VisitReportContent } from './visit-report-content';
   providers: [
     SignoffService,
     ReportRevisionsService,
-    ReportNotifications,
-    ReportFiles,
-    ReportRendering,
-    SignerVerification,
-    VisitReportContent,
-    RevisionViews,
+    ReportNotificationsService,
+    ReportFilesService,
+    ReportRenderingService,
+    SignerVerificationService,
+    VisitReportContentService,
+    RevisionViewsService,
   ],
   exports: [SignoffService],
 })

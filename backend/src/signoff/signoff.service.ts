@@ -3,23 +3,23 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager } from 'typeorm';
 import { SIGNATURE_MEANING, subject } from '@gyre/shared';
-import type { Action, ReportRevisionDto, ReportSignOffDto } from '@gyre/shared';
+import type { Action, ReportRevisionView, ReportSignOffView } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { nowIso } from '../common/time';
 import { VisitReportModel } from '../report-document/visit-report-model';
 import type { Report } from '../reports/report.entity';
-import { ReportsService, toReportDto } from '../reports/reports.service';
+import { ReportsService, toReportView } from '../reports/reports.service';
 import { SignReportDto } from './dto/sign-report.dto';
-import { ReportFiles } from './report-files';
-import { ReportRendering } from './report-rendering';
-import { ReportNotifications } from './report-notifications';
+import { ReportFilesService } from './report-files.service';
+import { ReportRenderingService } from './report-rendering.service';
+import { ReportNotificationsService } from './report-notifications.service';
 import { ReportRevision } from './report-revision.entity';
-import { revisionFileName, RevisionViews } from './revision-view';
-import { SignerVerification } from './signer-verification';
+import { revisionFileName, RevisionViewsService } from './revision-views.service';
+import { SignerVerificationService } from './signer-verification.service';
 import { SignoffError, signoffError } from './signoff.errors';
-import { ReportContent, VisitReportContent } from './visit-report-content';
+import { ReportContent, VisitReportContentService } from './visit-report-content.service';
 
 export interface PdfFile {
   bytes: Buffer;
@@ -41,18 +41,18 @@ export interface PdfFile {
 export class SignoffService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
-    private readonly content: VisitReportContent,
-    private readonly files: ReportFiles,
-    private readonly signer: SignerVerification,
-    private readonly notifications: ReportNotifications,
-    private readonly renderer: ReportRendering,
+    private readonly content: VisitReportContentService,
+    private readonly files: ReportFilesService,
+    private readonly signer: SignerVerificationService,
+    private readonly notifications: ReportNotificationsService,
+    private readonly renderer: ReportRenderingService,
     private readonly reports: ReportsService,
-    private readonly views: RevisionViews,
+    private readonly views: RevisionViewsService,
   ) {}
 
-  async status(caller: Caller, visitId: string): Promise<ReportSignOffDto> {
+  async status(caller: Caller, visitId: string): Promise<ReportSignOffView> {
     await this.notifications.markDelivered();
     const report = await this.reportInScope(caller, visitId, 'read');
     const content = await this.content.build(this.dataSource.manager, report);
@@ -68,7 +68,7 @@ export class SignoffService {
           ? 'Your role does not sign reports.'
           : null;
     return {
-      report: toReportDto(report),
+      report: toReportView(report),
       meaning: SIGNATURE_MEANING,
       draftFingerprint: content.hasResults ? content.fingerprint : null,
       pendingRevision: content.hasResults && changed ? (latest?.revision ?? 0) + 1 : null,
@@ -117,7 +117,7 @@ export class SignoffService {
     };
   }
 
-  async sign(caller: Caller, visitId: string, input: SignReportDto): Promise<ReportRevisionDto> {
+  async sign(caller: Caller, visitId: string, input: SignReportDto): Promise<ReportRevisionView> {
     if (input.meaning.trim() !== SIGNATURE_MEANING) {
       throw signoffError(
         SignoffError.WrongMeaning,
@@ -187,9 +187,9 @@ export class SignoffService {
         objectId: report.id,
         studyId: report.studyId,
         siteId: report.siteId,
-        before: toReportDto(before),
+        before: toReportView(before),
         after: {
-          ...toReportDto({ ...before, state: 'signed', updatedAt: signedAt }),
+          ...toReportView({ ...before, state: 'signed', updatedAt: signedAt }),
           revision: view,
         },
         reason: `electronic signature, meaning: ${SIGNATURE_MEANING}`,

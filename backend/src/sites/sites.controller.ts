@@ -1,82 +1,56 @@
-import {
-  Body,
-  Controller,
-  Delete,
-  Get,
-  HttpCode,
-  Param,
-  ParseUUIDPipe,
-  Patch,
-  Post,
-  Query,
-} from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiConflictResponse,
-  ApiCreatedResponse,
-  ApiForbiddenResponse,
-  ApiNoContentResponse,
-  ApiNotFoundResponse,
-  ApiOkResponse,
-  ApiTags,
-} from '@nestjs/swagger';
+import { Body, Controller, Param, Query } from '@nestjs/common';
 import type { Page, SiteView } from '@gyre/shared';
-import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
+import { CurrentCaller, type Caller } from '../auth/decorators';
 import { ReasonQueryDto } from '../common/dto/reason-query.dto';
-import { SiteResponseDto } from '../studies/dto/study-responses.dto';
-import { CreateSiteDto, SitePageDto, SiteQueryDto, UpdateSiteDto } from './dto/site.dto';
+import {
+  CreateRoute,
+  DeleteRoute,
+  ListRoute,
+  ReadRoute,
+  UpdateRoute,
+} from '../common/http/resource-routes';
+import { ScopedController } from '../common/http/scoped-controller';
+import { CreateSiteDto, SiteQueryDto, UpdateSiteDto } from './dto/site.dto';
 import { SitesService } from './sites.service';
 
-@ApiTags('sites')
-@ApiBearerAuth()
-@ApiForbiddenResponse({ description: 'The role may never do this' })
+const NOT_FOUND = 'No such site in your scope';
+
+@ScopedController('sites')
 @Controller('sites')
 export class SitesController {
   constructor(private readonly sites: SitesService) {}
 
-  @Get()
-  @RequirePermission('read', 'Site')
-  @ApiOkResponse({ type: SitePageDto })
+  @ListRoute('Site', 'SiteView', { description: 'The sites in your scope' })
   list(@CurrentCaller() caller: Caller, @Query() query: SiteQueryDto): Promise<Page<SiteView>> {
     return this.sites.list(caller, query);
   }
 
-  @Get(':id')
-  @RequirePermission('read', 'Site')
-  @ApiOkResponse({ type: SiteResponseDto })
-  @ApiNotFoundResponse({ description: 'No such site in your scope' })
-  get(@CurrentCaller() caller: Caller, @Param('id', ParseUUIDPipe) id: string): Promise<SiteView> {
+  @ReadRoute('Site', 'SiteView', { description: 'One site', notFound: NOT_FOUND })
+  get(@CurrentCaller() caller: Caller, @Param('id') id: string): Promise<SiteView> {
     return this.sites.get(caller, id);
   }
 
-  @Post()
-  @RequirePermission('create', 'Site')
-  @ApiCreatedResponse({ type: SiteResponseDto })
-  @ApiConflictResponse({ description: 'The study already has a site with this code' })
+  @CreateRoute('Site', 'SiteView', {
+    description: 'The new site (audited)',
+    conflict: 'The study already has a site with this code',
+  })
   create(@CurrentCaller() caller: Caller, @Body() body: CreateSiteDto): Promise<SiteView> {
     return this.sites.create(caller, body);
   }
 
-  @Patch(':id')
-  @RequirePermission('update', 'Site')
-  @ApiOkResponse({ type: SiteResponseDto })
-  @ApiNotFoundResponse({ description: 'No such site in your scope' })
+  @UpdateRoute('Site', 'SiteView', { description: 'The changed site', notFound: NOT_FOUND })
   update(
     @CurrentCaller() caller: Caller,
-    @Param('id', ParseUUIDPipe) id: string,
+    @Param('id') id: string,
     @Body() body: UpdateSiteDto,
   ): Promise<SiteView> {
     return this.sites.update(caller, id, body);
   }
 
-  @Delete(':id')
-  @HttpCode(204)
-  @RequirePermission('delete', 'Site')
-  @ApiNoContentResponse()
-  @ApiConflictResponse({ description: 'The site still has participants or users' })
+  @DeleteRoute('Site', { conflict: 'The site still has participants or users' })
   remove(
     @CurrentCaller() caller: Caller,
-    @Param('id', ParseUUIDPipe) id: string,
+    @Param('id') id: string,
     @Query() query: ReasonQueryDto,
   ): Promise<void> {
     return this.sites.remove(caller, id, query.reason);

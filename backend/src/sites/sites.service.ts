@@ -6,7 +6,7 @@ import { subject, type Page, type SiteView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditService } from '../audit/audit.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { GyreException } from '../common/errors/gyre.exception';
 import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
@@ -24,7 +24,7 @@ export class SitesService {
   constructor(
     @InjectRepository(Site) private readonly sites: Repository<Site>,
     private readonly studies: StudiesService,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
   ) {}
 

@@ -10,9 +10,8 @@ import {
 } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
-import { AuditService } from '../audit/audit.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
-import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
+import { AuditedWrites } from '../audit/audited-writes';
+import { assertUnique } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { containsText } from '../common/pagination/text-filter';
@@ -26,8 +25,7 @@ import { toStudyView } from './study-view';
 export class StudiesService {
   constructor(
     @InjectRepository(Study) private readonly studies: Repository<Study>,
-    private readonly writes: WriteTransactions,
-    private readonly audit: AuditService,
+    private readonly audited: AuditedWrites,
   ) {}
 
   async list(caller: Caller, query: StudyQueryDto): Promise<Page<StudyView>> {
@@ -81,34 +79,21 @@ export class StudiesService {
     return this.save(caller, current, next);
   }
 
-  private async save(caller: Caller, before: Study | null, study: Study): Promise<StudyView> {
-    try {
-      return await this.writes.run(async (manager) => {
-        await assertUnique(manager, Study, { code: study.code }, study.id);
-        await manager.save(Study, study);
-        const view = toStudyView(study);
-        await this.audit.record({
-          actor: caller.user,
-          action: before === null ? 'create' : 'update',
-          objectType: 'Study',
-          objectId: study.id,
-          studyId: study.id,
-          siteId: null,
-          before: before === null ? undefined : toStudyView(before),
-          after: view,
-          clientIp: caller.clientIp,
-        });
-        return view;
-      });
-    } catch (error) {
-      if (isUniqueViolation(error)) {
-        throw studiesError(StudiesError.CodeTaken, `code: a study with code ${study.code} exists`, {
+  private save(caller: Caller, before: Study | null, study: Study): Promise<StudyView> {
+    return this.audited.save(caller, {
+      entity: Study,
+      objectType: 'Study',
+      before,
+      row: study,
+      scope: (row) => ({ studyId: row.id, siteId: null }),
+      check: (manager, row) => assertUnique(manager, Study, { code: row.code }, row.id),
+      view: toStudyView,
+      duplicate: (row) =>
+        studiesError(StudiesError.CodeTaken, `code: a study with code ${row.code} exists`, {
           field: 'code',
-          value: study.code,
-        });
-      }
-      throw error;
-    }
+          value: row.code,
+        }),
+    });
   }
 
   /** Row-level scope inside the query: a study outside it is reported as not found. */

@@ -2,29 +2,16 @@ import { Column, Entity, PrimaryColumn } from 'typeorm';
 
 @Entity('study')
 export class Study {
-  @PrimaryColumn('varchar')
-  id: string;
-
-  @Column('varchar')
-  code: string;
-
-  @Column('varchar')
-  name: string;
-
-  @Column('text')
-  description: string;
+  @PrimaryColumn('varchar') id: string;
+  @Column('varchar') code: string;
+  @Column('varchar') name: string;
+  @Column('text') description: string;
 
   /** A trend slope is shown from this many visits with a value… */
-  @Column('integer')
-  trendMinVisits: number;
+  @Column('integer') trendMinVisits: number;
 
   /** …spanning at least this many days. */
-  @Column('integer')
-  trendMinSpanDays: number;
-
-  @Column('varchar')
-  createdAt: string;
-
-  @Column('varchar')
-  updatedAt: string;
+  @Column('integer') trendMinSpanDays: number;
+  @Column('varchar') createdAt: string;
+  @Column('varchar') updatedAt: string;
 }

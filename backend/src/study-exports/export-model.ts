@@ -1,17 +1,17 @@
 import type {
-  AnalysisRunDto,
-  ChannelStatsDto,
-  QualityDto,
+  AnalysisRunView,
+  ChannelStatsView,
+  QualityView,
   RecordingKind,
   RecordingState,
-  RestResultsDto,
+  RestResultsView,
 } from '@gyre/shared';
 import type { ScheduleColumns } from './schedule-columns';
 
 /**
  * What an export holds, read once per download: the study's participants and visits in the
  * caller's scope and, per visit, the numbers of its current recordings exactly as the results
- * API gives them (`toResultsDto`), without curves. Both exports are written from this.
+ * API gives them (`toResultsView`), without curves. Both exports are written from this.
  */
 export interface StudyExportModel {
   study: { id: string; code: string; name: string };
@@ -49,8 +49,8 @@ export interface ExportRecording {
   recordingId: string;
   kind: RecordingKind;
   state: RecordingState;
-  run: AnalysisRunDto;
-  channels: ChannelStatsDto[];
-  rest: Pick<RestResultsDto, 'pafHz' | 'cogHz' | 'prominenceDb' | 'noPeakReason'> | null;
-  quality: QualityDto;
+  run: AnalysisRunView;
+  channels: ChannelStatsView[];
+  rest: Pick<RestResultsView, 'pafHz' | 'cogHz' | 'prominenceDb' | 'noPeakReason'> | null;
+  quality: QualityView;
 }

@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
-import { AnalysisRunsService, toResultsDto } from '../analysis/analysis-runs.service';
+import { AnalysisRunsService, toResultsView } from '../analysis/analysis-runs.service';
 import { applyScope } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { FlagsService } from '../flags/flags.service';
@@ -27,7 +27,7 @@ const VISIT_BATCH = 25;
  * The exports' reads, all in the caller's scope for exporting results (`export Result`, applied
  * to the participant and visit rows as the read routes apply theirs). Participants, visits and
  * sites are read here in one narrow query each (as worklist/ does); the numbers come from their
- * owner, analysis/ (`currentRunsOfVisits`, `staleness`, `toResultsDto`: the results API's own
+ * owner, analysis/ (`currentRunsOfVisits`, `staleness`, `toResultsView`: the results API's own
  * path), so a superseded recording never counts. Nothing is written.
  */
 @Injectable()
@@ -141,7 +141,7 @@ export class StudyExportSources {
     return current.flatMap((recording) => {
       const run = recording.latestRunId === null ? undefined : runById.get(recording.latestRunId);
       if (run === undefined) return [];
-      const results = toResultsDto(run, recording, stale.get(run.id) ?? []);
+      const results = toResultsView(run, recording, stale.get(run.id) ?? []);
       return [
         {
           visitId: recording.visitId,

@@ -1,13 +1,12 @@
-import { Controller, Get, Param, ParseUUIDPipe, Res } from '@nestjs/common';
-import { ApiBearerAuth, ApiForbiddenResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { Controller, Get, Param, Res } from '@nestjs/common';
+import { ApiOperation } from '@nestjs/swagger';
 import { ApiFile } from '../openapi/api-responses';
 import type { Response } from 'express';
 import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
+import { ScopedController } from '../common/http/scoped-controller';
 import { StudyExportsService } from './study-exports.service';
 
-@ApiTags('study-exports')
-@ApiBearerAuth()
-@ApiForbiddenResponse({ description: 'Only analysts and monitors (their study) and admins export' })
+@ScopedController('study-exports', 'Only analysts and monitors (their study) and admins export')
 @Controller('studies/:studyId')
 export class StudyExportsController {
   constructor(private readonly exports: StudyExportsService) {}
@@ -21,7 +20,7 @@ export class StudyExportsController {
   @ApiFile('text/csv', 'text/csv (RFC 4180); columns in results-dictionary.csv')
   async results(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Param('studyId') studyId: string,
     @Res() response: Response,
   ): Promise<void> {
     await this.exports.resultsCsv(caller, studyId, response);
@@ -33,7 +32,7 @@ export class StudyExportsController {
   @ApiFile('text/csv', 'text/csv: column, level, type, unit, description, levels')
   async dictionary(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Param('studyId') studyId: string,
     @Res() response: Response,
   ): Promise<void> {
     await this.exports.dictionaryCsv(caller, studyId, response);
@@ -47,7 +46,7 @@ export class StudyExportsController {
   @ApiFile('application/zip', 'application/zip, streamed')
   async zip(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Param('studyId') studyId: string,
     @Res() response: Response,
   ): Promise<void> {
     await this.exports.exportZip(caller, studyId, response);

@@ -1,9 +1,10 @@
 import { Injectable } from '@nestjs/common';
-import type { RecordingKind, RecordingState, ReportState } from '@gyre/shared';
+import type { RecordingKind, RecordingState } from '@gyre/shared';
 import { scopeSql } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
-import { SqliteReads } from '../common/database/sqlite-reads.service';
+import { SqliteReadsService } from '../common/database/sqlite-reads.service';
 import { CURRENT_STATES } from '../recordings/recordings.service';
+import { reportHeads, type ReportHead } from '../signoff/report-heads.reads';
 
 export interface PlannedVisitRow {
   id: string;
@@ -79,12 +80,6 @@ export interface ReviewRow {
   fingerprint: string;
 }
 
-export interface ReportRow {
-  visitId: string;
-  state: ReportState;
-  lastSignedAt: string | null;
-}
-
 /**
  * The overview's reads: a fixed number of prepared statements over one study, each limited to
  * the caller's `read StudyOverview` scope (row conditions on studyId/siteId, as scopeSql turns
@@ -97,7 +92,7 @@ export class StudyOverviewSources {
   /** Quality figures by run id (see qualityOfRuns). */
   private readonly qualityKept = new Map<string, Readonly<RunQuality>>();
 
-  constructor(private readonly reads: SqliteReads) {}
+  constructor(private readonly reads: SqliteReadsService) {}
 
   studyExists(studyId: string): boolean {
     return (
@@ -244,16 +239,9 @@ export class StudyOverviewSources {
     );
   }
 
-  /** Every report of the study with its newest signature, if any. */
-  reports(caller: Caller, studyId: string): ReportRow[] {
-    const scope = this.scope(caller, 'rep');
-    return this.reads.all(
-      `SELECT rep."visitId" AS "visitId", rep."state" AS "state",
-          MAX(rev."signedAt") AS "lastSignedAt"
-        FROM "report" rep LEFT JOIN "report_revision" rev ON rev."reportId" = rep."id"
-        WHERE rep."studyId" = ? AND ${scope.sql} GROUP BY rep."id"`,
-      [studyId, ...scope.params],
-    );
+  /** Every report of the study with its newest signature, if any (signoff's read). */
+  reports(caller: Caller, studyId: string): ReportHead[] {
+    return reportHeads(this.reads, this.scope(caller, 'rep'), { studyId });
   }
 
   /** The study's newest settings version (null before the first). */

@@ -1,7 +1,7 @@
-import { Controller, Get, Param, ParseUUIDPipe } from '@nestjs/common';
+import { Controller, Get, Param } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { ApiResult } from '../openapi/api-responses';
-import type { StudyOverviewDto } from '@gyre/shared';
+import type { StudyOverviewView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { StudyOverviewService } from './study-overview.service';
@@ -14,14 +14,11 @@ export class StudyOverviewController {
 
   @Get()
   @RequirePermission('read', 'StudyOverview')
-  @ApiResult('StudyOverviewDto', {
+  @ApiResult('StudyOverviewView', {
     description:
       'Per planned visit: each participant’s PAF, CoG and Δf, group and site means with 95 % Student t intervals, the completion matrix and the site quality comparison',
   })
-  get(
-    @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
-  ): StudyOverviewDto {
+  get(@CurrentCaller() caller: Caller, @Param('studyId') studyId: string): StudyOverviewView {
     return this.overview.overview(caller, studyId);
   }
 }

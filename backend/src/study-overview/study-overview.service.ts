@@ -7,16 +7,16 @@ import {
   type OverviewParticipant,
   type OverviewStat,
   type SiteQuality,
-  type StudyOverviewDto,
+  type StudyOverviewView,
 } from '@gyre/shared';
 import type { Caller } from '../auth/decorators';
+import type { ReportHead } from '../signoff/report-heads.reads';
 import { reviewFingerprintOf } from '../visit-reviews/review-fingerprint';
 import { meanWithInterval } from './group-stats';
 import { StudyOverviewError, studyOverviewError } from './study-overview.errors';
 import {
   StudyOverviewSources,
   type LiveRecordingRow,
-  type ReportRow,
   type VisitRow,
 } from './study-overview-sources';
 
@@ -40,7 +40,7 @@ export const DOUBT = {
 export class StudyOverviewService {
   constructor(private readonly sources: StudyOverviewSources) {}
 
-  overview(caller: Caller, studyId: string): StudyOverviewDto {
+  overview(caller: Caller, studyId: string): StudyOverviewView {
     if (
       !caller.ability.can('read', subject('StudyOverview', { studyId })) ||
       !this.sources.studyExists(studyId)
@@ -103,7 +103,7 @@ export class StudyOverviewService {
 interface CellContext {
   recordingsOf: Map<string, LiveRecordingRow[]>;
   reviews: Map<string, string>;
-  reports: Map<string, ReportRow>;
+  reports: Map<string, ReportHead>;
   newestSettings: string | null;
   overrides: Map<string, number>;
 }

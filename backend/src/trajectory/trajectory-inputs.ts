@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { scopeSql } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
-import { SqliteReads } from '../common/database/sqlite-reads.service';
+import { SqliteReadsService } from '../common/database/sqlite-reads.service';
 import type { Visit } from '../visits/visit.entity';
 import type { TrendRule } from './trend-rule';
 
@@ -16,7 +16,7 @@ export type TrajectoryVisit = Pick<Visit, 'id' | 'label' | 'visitDate'>;
  */
 @Injectable()
 export class TrajectoryInputs {
-  constructor(private readonly reads: SqliteReads) {}
+  constructor(private readonly reads: SqliteReadsService) {}
 
   /**
    * The participant if the caller may read its results, else null: the rows

@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import type { TrajectoryDto, TrajectoryVisitDto, TrendDto } from '@gyre/shared';
+import type { TrajectoryView, TrajectoryVisitView, TrendView } from '@gyre/shared';
 import { AnalysisRunsService, type RunNumbers } from '../analysis/analysis-runs.service';
 import type { Caller } from '../auth/decorators';
 import { TrajectoryError, trajectoryError } from './trajectory.errors';
@@ -22,7 +22,7 @@ export class TrajectoryService {
     private readonly inputs: TrajectoryInputs,
   ) {}
 
-  async forParticipant(caller: Caller, participantId: string): Promise<TrajectoryDto> {
+  async forParticipant(caller: Caller, participantId: string): Promise<TrajectoryView> {
     const participant = this.inputs.participantInScope(caller, participantId);
     if (participant === null) {
       throw trajectoryError(
@@ -53,7 +53,7 @@ export class TrajectoryService {
     const change = (metric: Metric, value: number | null): number | null =>
       value === null || baseline[metric] === null ? null : value - baseline[metric];
     const rule = this.inputs.trendRuleOf(participant.studyId);
-    const trend = (metric: Metric): TrendDto =>
+    const trend = (metric: Metric): TrendView =>
       trendOf(
         rows.flatMap((r) => {
           const value = r[metric];
@@ -62,7 +62,7 @@ export class TrajectoryService {
         rule,
       );
     const trends = { paf: trend('pafHz'), cog: trend('cogHz'), deltaF: trend('deltaFHz') };
-    const out: TrajectoryVisitDto[] = rows.map((r) => ({
+    const out: TrajectoryVisitView[] = rows.map((r) => ({
       visitId: r.visit.id,
       label: r.visit.label,
       date: r.visit.visitDate,

@@ -1,4 +1,4 @@
-import type { TrendDto } from '@gyre/shared';
+import type { TrendView } from '@gyre/shared';
 import { theilSenSlope, yearsBetween } from './theil-sen';
 
 /** The study's rule for drawing a trend (study settings `trendMinVisits`, `trendMinSpanDays`). */
@@ -22,7 +22,7 @@ function dayNumber(date: string): number {
 export function trendOf(
   points: ReadonlyArray<{ date: string; value: number }>,
   rule: TrendRule,
-): TrendDto {
+): TrendView {
   const days = points.map((p) => dayNumber(p.date));
   const spanDays = points.length < 2 ? 0 : Math.max(...days) - Math.min(...days);
   const visits = points.length;

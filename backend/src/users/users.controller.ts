@@ -1,46 +1,35 @@
-import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiConflictResponse,
-  ApiCreatedResponse,
-  ApiForbiddenResponse,
-  ApiNotFoundResponse,
-  ApiOkResponse,
-  ApiOperation,
-  ApiTags,
-} from '@nestjs/swagger';
+import { Body, Controller, HttpStatus, Param, Post, Query } from '@nestjs/common';
+import { ApiConflictResponse, ApiOperation } from '@nestjs/swagger';
 import type { Page, UserView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
-import { UserResponseDto } from '../auth/dto/auth-responses.dto';
-import { InviteUserDto, UpdateUserDto, UserPageDto, UserQueryDto } from './dto/user.dto';
+import { ListRoute, ReadRoute, UpdateRoute } from '../common/http/resource-routes';
+import { ScopedController } from '../common/http/scoped-controller';
+import { ApiResult } from '../openapi/api-responses';
+import { InviteUserDto, UpdateUserDto, UserQueryDto } from './dto/user.dto';
 import { UsersService } from './users.service';
 
-@ApiTags('users')
-@ApiBearerAuth()
-@ApiForbiddenResponse({ description: 'The role may never do this' })
+@ScopedController('users')
 @Controller('users')
 export class UsersController {
   constructor(private readonly users: UsersService) {}
 
-  @Get()
-  @RequirePermission('read', 'User')
-  @ApiOkResponse({ type: UserPageDto })
+  @ListRoute('User', 'UserView', { description: 'The accounts in your scope' })
   list(@CurrentCaller() caller: Caller, @Query() query: UserQueryDto): Promise<Page<UserView>> {
     return this.users.list(caller, query);
   }
 
-  @Get(':id')
-  @RequirePermission('read', 'User')
-  @ApiOkResponse({ type: UserResponseDto })
-  @ApiNotFoundResponse({ description: 'No such user in your scope' })
-  get(@CurrentCaller() caller: Caller, @Param('id', ParseUUIDPipe) id: string): Promise<UserView> {
+  @ReadRoute('User', 'UserView', {
+    description: 'One account',
+    notFound: 'No such user in your scope',
+  })
+  get(@CurrentCaller() caller: Caller, @Param('id') id: string): Promise<UserView> {
     return this.users.get(caller, id);
   }
 
   @Post('invitations')
   @RequirePermission('invite', 'User')
   @ApiOperation({ summary: 'Creates an invited account and e-mails a single-use link' })
-  @ApiCreatedResponse({ type: UserResponseDto })
+  @ApiResult('UserView', { description: 'The invited account', status: HttpStatus.CREATED })
   @ApiConflictResponse({ description: 'The e-mail already has an account' })
   invite(@CurrentCaller() caller: Caller, @Body() body: InviteUserDto): Promise<UserView> {
     return this.users.invite(caller, body);
@@ -49,21 +38,16 @@ export class UsersController {
   @Post(':id/invitation')
   @RequirePermission('invite', 'User')
   @ApiOperation({ summary: 'Sends the invitation again with a new link' })
-  @ApiCreatedResponse({ type: UserResponseDto })
-  resend(
-    @CurrentCaller() caller: Caller,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<UserView> {
+  @ApiResult('UserView', { description: 'The invited account', status: HttpStatus.CREATED })
+  resend(@CurrentCaller() caller: Caller, @Param('id') id: string): Promise<UserView> {
     return this.users.resendInvitation(caller, id);
   }
 
-  @Patch(':id')
-  @RequirePermission('update', 'User')
+  @UpdateRoute('User', 'UserView', { description: 'The changed account' })
   @ApiOperation({ summary: 'Name, role and membership, or deactivation (ends every session)' })
-  @ApiOkResponse({ type: UserResponseDto })
   update(
     @CurrentCaller() caller: Caller,
-    @Param('id', ParseUUIDPipe) id: string,
+    @Param('id') id: string,
     @Body() body: UpdateUserDto,
   ): Promise<UserView> {
     return this.users.update(caller, id, body);

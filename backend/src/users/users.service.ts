@@ -2,15 +2,15 @@ import { randomUUID } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { EntityManager, FindOptionsWhere } from 'typeorm';
 import { membershipOf, type Page, type Role, type UserView } from '@gyre/shared';
-import { Accounts } from '../accounts/accounts.service';
+import { AccountsService } from '../accounts/accounts.service';
 import { User } from '../accounts/user.entity';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { aRole } from '../auth/role-wording';
-import { OneTimeTokens } from '../auth/one-time-tokens.service';
-import { RefreshTokens } from '../auth/refresh-tokens.service';
+import { OneTimeTokensService } from '../auth/one-time-tokens.service';
+import { RefreshTokensService } from '../auth/refresh-tokens.service';
 import { AuditService } from '../audit/audit.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
@@ -31,12 +31,12 @@ import { UsersError, usersError } from './users.errors';
 export class UsersService {
   constructor(
     @Inject(APP_CONFIG) private readonly config: AppConfig,
-    private readonly accounts: Accounts,
-    private readonly writes: WriteTransactions,
+    private readonly accounts: AccountsService,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
     private readonly outbox: OutboxService,
-    private readonly oneTimeTokens: OneTimeTokens,
-    private readonly refreshTokens: RefreshTokens,
+    private readonly oneTimeTokens: OneTimeTokensService,
+    private readonly refreshTokens: RefreshTokensService,
     private readonly studies: StudiesService,
     private readonly sites: SitesService,
   ) {}

@@ -1,4 +1,5 @@
-import { Column, Entity, Index, PrimaryColumn } from 'typeorm';
+import { Column, Entity, Index } from 'typeorm';
+import { VisitColumns } from '../common/database/scoped-columns';
 
 /**
  * One "visit reviewed" act: an analyst looked at the visit's current results and said so.
@@ -8,37 +9,16 @@ import { Column, Entity, Index, PrimaryColumn } from 'typeorm';
 @Entity('visit_review')
 @Index('IDX_visit_review_visit', ['visitId', 'reviewedAt'])
 @Index('IDX_visit_review_study', ['studyId', 'visitId'])
-export class VisitReview {
-  @PrimaryColumn('varchar', { length: 36 })
-  id: string;
-
-  @Column('varchar', { length: 36 })
-  visitId: string;
-
-  @Column('varchar', { length: 36 })
-  participantId: string;
-
-  @Column('varchar', { length: 36 })
-  studyId: string;
-
-  @Column('varchar', { length: 36 })
-  siteId: string;
-
-  @Column('varchar', { length: 36 })
-  reviewedById: string;
+export class VisitReview extends VisitColumns {
+  @Column('varchar', { length: 36 }) reviewedById: string;
 
   /** The reviewer's name when they reviewed (kept even if the account is renamed). */
-  @Column('varchar', { length: 200 })
-  reviewedByName: string;
-
-  @Column('varchar', { length: 30 })
-  reviewedAt: string;
+  @Column('varchar', { length: 200 }) reviewedByName: string;
+  @Column('varchar', { length: 30 }) reviewedAt: string;
 
   /** SHA-256 (hex) over `runIds`. */
-  @Column('varchar', { length: 64 })
-  fingerprint: string;
+  @Column('varchar', { length: 64 }) fingerprint: string;
 
   /** JSON list of the runs reviewed, `kind:runId`, sorted. */
-  @Column('text')
-  runIdsJson: string;
+  @Column('text') runIdsJson: string;
 }

@@ -1,7 +1,7 @@
 import { Body, Controller, Get, Param, Post, HttpStatus } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { ApiResult } from '../openapi/api-responses';
-import type { VisitReviewStateDto } from '@gyre/shared';
+import type { VisitReviewStateView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { MarkReviewedDto } from './dto/mark-reviewed.dto';
@@ -15,19 +15,19 @@ export class VisitReviewsController {
 
   @Get()
   @RequirePermission('read', 'VisitReview')
-  @ApiResult('VisitReviewStateDto', {
+  @ApiResult('VisitReviewStateView', {
     description: "Whether the visit's current results are reviewed, by whom and when",
   })
   state(
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
-  ): Promise<VisitReviewStateDto> {
+  ): Promise<VisitReviewStateView> {
     return this.reviews.state(caller, visitId);
   }
 
   @Post()
   @RequirePermission('create', 'VisitReview')
-  @ApiResult('VisitReviewStateDto', {
+  @ApiResult('VisitReviewStateView', {
     description:
       'Marks the results the analyst saw (their fingerprint) reviewed, audited; 409 when there are none, they changed meanwhile or they are reviewed already',
     status: HttpStatus.CREATED,
@@ -36,7 +36,7 @@ export class VisitReviewsController {
     @CurrentCaller() caller: Caller,
     @Param('visitId') visitId: string,
     @Body() body: MarkReviewedDto,
-  ): Promise<VisitReviewStateDto> {
+  ): Promise<VisitReviewStateView> {
     return this.reviews.markReviewed(caller, visitId, body.fingerprint);
   }
 }

@@ -3,10 +3,10 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, Repository } from 'typeorm';
 import { subject } from '@gyre/shared';
-import type { VisitReviewDto, VisitReviewStateDto } from '@gyre/shared';
+import type { VisitReviewView, VisitReviewStateView } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { nowIso } from '../common/time';
 import type { Recording } from '../recordings/recording.entity';
 import { RecordingsService } from '../recordings/recordings.service';
@@ -27,13 +27,13 @@ const COMPUTING: ReadonlySet<Recording['state']> = new Set(['queued', 'computing
 export class VisitReviewsService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
     private readonly visits: VisitsService,
     private readonly recordings: RecordingsService,
   ) {}
 
-  async state(caller: Caller, visitId: string): Promise<VisitReviewStateDto> {
+  async state(caller: Caller, visitId: string): Promise<VisitReviewStateView> {
     const visit = await this.visitInScope(caller, 'read', visitId);
     return this.stateOf(caller, visit);
   }
@@ -42,7 +42,7 @@ export class VisitReviewsService {
     caller: Caller,
     visitId: string,
     seenFingerprint: string,
-  ): Promise<VisitReviewStateDto> {
+  ): Promise<VisitReviewStateView> {
     const visit = await this.visitInScope(caller, 'create', visitId);
     await this.writes.run(async (manager) => {
       // Read again inside the write transaction: nothing can change the runs meanwhile.
@@ -98,8 +98,8 @@ export class VisitReviewsService {
         objectId: row.id,
         studyId: visit.studyId,
         siteId: visit.siteId,
-        before: latest === null ? null : toVisitReviewDto(latest),
-        after: toVisitReviewDto(row),
+        before: latest === null ? null : toVisitReviewView(latest),
+        after: toVisitReviewView(row),
         clientIp: caller.clientIp,
       });
     });
@@ -115,7 +115,7 @@ export class VisitReviewsService {
   async latestByVisit(filter: {
     studyIds: readonly string[];
     visitIds?: readonly string[];
-  }): Promise<Map<string, VisitReviewDto>> {
+  }): Promise<Map<string, VisitReviewView>> {
     const query = this.dataSource
       .getRepository(VisitReview)
       .createQueryBuilder('review')
@@ -133,10 +133,10 @@ export class VisitReviewsService {
       query.andWhere('review.visitId IN (:...visitIds)', { visitIds: [...filter.visitIds] });
     }
     const rows: VisitReview[] = await query.getRawMany();
-    return new Map(rows.map((row) => [row.visitId, toVisitReviewDto(row)]));
+    return new Map(rows.map((row) => [row.visitId, toVisitReviewView(row)]));
   }
 
-  private async stateOf(caller: Caller, visit: Visit): Promise<VisitReviewStateDto> {
+  private async stateOf(caller: Caller, visit: Visit): Promise<VisitReviewStateView> {
     const current = await this.recordings.currentOfVisits([visit.id]);
     const now = reviewFingerprintOf(current);
     const latest = await this.latestOf(visit.id, this.dataSource.getRepository(VisitReview));
@@ -156,7 +156,7 @@ export class VisitReviewsService {
       visitId: visit.id,
       currentFingerprint: now?.fingerprint ?? null,
       currentRunIds: now?.runIds ?? [],
-      latest: latest === null ? null : toVisitReviewDto(latest),
+      latest: latest === null ? null : toVisitReviewView(latest),
       reviewed,
       changedSinceReview: latest !== null && !reviewed,
       canReview: cannotReviewReason === null,
@@ -187,7 +187,7 @@ export class VisitReviewsService {
   }
 }
 
-export function toVisitReviewDto(row: VisitReview): VisitReviewDto {
+export function toVisitReviewView(row: VisitReview): VisitReviewView {
   return {
     id: row.id,
     visitId: row.visitId,

@@ -3,33 +3,19 @@ import { Column, Entity, PrimaryColumn } from 'typeorm';
 /** One visit of a participant; `studyId`/`siteId` are copied from the participant for scoping. */
 @Entity('visit')
 export class Visit {
-  @PrimaryColumn('varchar')
-  id: string;
-
-  @Column('varchar')
-  participantId: string;
-
-  @Column('varchar')
-  studyId: string;
-
-  @Column('varchar')
-  siteId: string;
+  @PrimaryColumn('varchar') id: string;
+  @Column('varchar') participantId: string;
+  @Column('varchar') studyId: string;
+  @Column('varchar') siteId: string;
 
   /** The planned visit's name when one was picked (so every screen keeps showing it). */
-  @Column('varchar')
-  label: string;
+  @Column('varchar') label: string;
 
   /** The study's planned visit this visit was registered on; null for an unscheduled visit. */
-  @Column('varchar', { nullable: true })
-  plannedVisitId: string | null;
+  @Column('varchar', { nullable: true }) plannedVisitId: string | null;
 
   /** Calendar date, `YYYY-MM-DD`. */
-  @Column('varchar')
-  visitDate: string;
-
-  @Column('varchar')
-  createdAt: string;
-
-  @Column('varchar')
-  updatedAt: string;
+  @Column('varchar') visitDate: string;
+  @Column('varchar') createdAt: string;
+  @Column('varchar') updatedAt: string;
 }

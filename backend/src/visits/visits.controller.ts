@@ -1,61 +1,43 @@
-import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiConflictResponse,
-  ApiCreatedResponse,
-  ApiForbiddenResponse,
-  ApiNotFoundResponse,
-  ApiOkResponse,
-  ApiTags,
-} from '@nestjs/swagger';
+import { Body, Controller, Param, Query } from '@nestjs/common';
 import type { Page, VisitView } from '@gyre/shared';
-import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
-import {
-  CreateVisitDto,
-  UpdateVisitDto,
-  VisitPageDto,
-  VisitQueryDto,
-  VisitResponseDto,
-} from './dto/visit.dto';
+import { CurrentCaller, type Caller } from '../auth/decorators';
+import { CreateRoute, ListRoute, ReadRoute, UpdateRoute } from '../common/http/resource-routes';
+import { ScopedController } from '../common/http/scoped-controller';
+import { CreateVisitDto, UpdateVisitDto, VisitQueryDto } from './dto/visit.dto';
 import { VisitsService } from './visits.service';
 
-@ApiTags('visits')
-@ApiBearerAuth()
-@ApiForbiddenResponse({ description: 'The role may never do this' })
+const NOT_FOUND = 'No such visit in your scope';
+
+@ScopedController('visits')
 @Controller('visits')
 export class VisitsController {
   constructor(private readonly visits: VisitsService) {}
 
-  @Get()
-  @RequirePermission('read', 'Visit')
-  @ApiOkResponse({ type: VisitPageDto })
+  @ListRoute('Visit', 'VisitView', { description: 'The visits in your scope' })
   list(@CurrentCaller() caller: Caller, @Query() query: VisitQueryDto): Promise<Page<VisitView>> {
     return this.visits.list(caller, query);
   }
 
-  @Get(':id')
-  @RequirePermission('read', 'Visit')
-  @ApiOkResponse({ type: VisitResponseDto })
-  @ApiNotFoundResponse({ description: 'No such visit in your scope' })
-  get(@CurrentCaller() caller: Caller, @Param('id', ParseUUIDPipe) id: string): Promise<VisitView> {
+  @ReadRoute('Visit', 'VisitView', {
+    description: 'One visit with its schedule window',
+    notFound: NOT_FOUND,
+  })
+  get(@CurrentCaller() caller: Caller, @Param('id') id: string): Promise<VisitView> {
     return this.visits.get(caller, id);
   }
 
-  @Post()
-  @RequirePermission('create', 'Visit')
-  @ApiCreatedResponse({ type: VisitResponseDto })
-  @ApiConflictResponse({ description: 'The participant already has a visit with this label' })
+  @CreateRoute('Visit', 'VisitView', {
+    description: 'The new visit (audited)',
+    conflict: 'The participant already has a visit with this label',
+  })
   create(@CurrentCaller() caller: Caller, @Body() body: CreateVisitDto): Promise<VisitView> {
     return this.visits.create(caller, body);
   }
 
-  @Patch(':id')
-  @RequirePermission('update', 'Visit')
-  @ApiOkResponse({ type: VisitResponseDto })
-  @ApiNotFoundResponse({ description: 'No such visit in your scope' })
+  @UpdateRoute('Visit', 'VisitView', { description: 'The changed visit', notFound: NOT_FOUND })
   update(
     @CurrentCaller() caller: Caller,
-    @Param('id', ParseUUIDPipe) id: string,
+    @Param('id') id: string,
     @Body() body: UpdateVisitDto,
   ): Promise<VisitView> {
     return this.visits.update(caller, id, body);

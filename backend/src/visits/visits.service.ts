@@ -14,10 +14,9 @@ import {
 import { subject, type Action, type Page, type SubjectName, type VisitView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
-import { AuditService } from '../audit/audit.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { AuditedWrites } from '../audit/audited-writes';
 import { GyreException } from '../common/errors/gyre.exception';
-import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
+import { assertUnique } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
@@ -37,8 +36,7 @@ export class VisitsService {
     @InjectRepository(Visit) private readonly visits: Repository<Visit>,
     private readonly participants: ParticipantsService,
     private readonly plannedVisits: PlannedVisitsService,
-    private readonly writes: WriteTransactions,
-    private readonly audit: AuditService,
+    private readonly audited: AuditedWrites,
   ) {}
 
   async list(caller: Caller, query: VisitQueryDto): Promise<Page<VisitView>> {
@@ -174,50 +172,40 @@ export class VisitsService {
     return planned;
   }
 
-  private async save(
+  private save(
     caller: Caller,
     before: Visit | null,
     visit: Visit,
     reason: string | undefined,
     context: VisitScheduleContext,
   ): Promise<VisitView> {
-    try {
-      return await this.writes.run(async (manager) => {
-        if (visit.plannedVisitId !== null) {
-          await assertPlannedVisitFree(manager, visit, context.planned?.name ?? '');
+    return this.audited.save(caller, {
+      entity: Visit,
+      objectType: 'Visit',
+      before,
+      row: visit,
+      reason,
+      scope: (row) => ({ studyId: row.studyId, siteId: row.siteId }),
+      check: async (manager, row) => {
+        if (row.plannedVisitId !== null) {
+          await assertPlannedVisitFree(manager, row, context.planned?.name ?? '');
         }
         await assertUnique(
           manager,
           Visit,
-          { participantId: visit.participantId, label: visit.label },
-          visit.id,
+          { participantId: row.participantId, label: row.label },
+          row.id,
         );
-        await manager.save(Visit, visit);
-        const view = toVisitView(visit, context);
-        await this.audit.record({
-          actor: caller.user,
-          action: before === null ? 'create' : 'update',
-          objectType: 'Visit',
-          objectId: visit.id,
-          studyId: visit.studyId,
-          siteId: visit.siteId,
-          before: before === null ? undefined : await this.viewOf(before, manager),
-          after: view,
-          reason: reason ?? null,
-          clientIp: caller.clientIp,
-        });
-        return view;
-      });
-    } catch (error) {
-      if (isUniqueViolation(error)) {
-        throw visitsError(
+      },
+      view: (row) => toVisitView(row, context),
+      beforeView: (row, manager) => this.viewOf(row, manager),
+      duplicate: (row) =>
+        visitsError(
           VisitsError.LabelTaken,
-          `label: the participant already has a visit ${visit.label}`,
-          { field: 'label', value: visit.label },
-        );
-      }
-      throw error;
-    }
+          `label: the participant already has a visit ${row.label}`,
+          { field: 'label', value: row.label },
+        ),
+    });
   }
 
   /** For other modules (recordings): the visit if the caller may act on it, else 404. */

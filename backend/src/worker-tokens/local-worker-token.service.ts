@@ -14,7 +14,7 @@ export const LOCAL_WORKER_TOKEN_FILE = 'worker-token';
  * file that leaks is worth nothing after the next restart (docs/security.md, "Worker tokens").
  */
 @Injectable()
-export class LocalWorkerToken implements OnApplicationBootstrap {
+export class LocalWorkerTokenService implements OnApplicationBootstrap {
   private readonly logger = new Logger('WorkerTokens');
   readonly file: string;
 

@@ -2,7 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import { Repository } from 'typeorm';
 import type { WorkerPrincipal } from '../auth/auth-user';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { GyreException } from '../common/errors/gyre.exception';
 import { nowIso } from '../common/time';
 import { WorkerToken } from './worker-token.entity';
@@ -20,10 +20,10 @@ const UNKNOWN_ID_HASH = '0'.repeat(64);
 
 /** Checks a presented worker token against the database on every request (revocation is immediate). */
 @Injectable()
-export class WorkerTokenAuth {
+export class WorkerTokenAuthService {
   constructor(
     @InjectRepository(WorkerToken) private readonly tokens: Repository<WorkerToken>,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
   ) {}
 
   /** The worker the token names; 401 when it is malformed, unknown or revoked. */

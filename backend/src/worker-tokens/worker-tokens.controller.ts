@@ -1,46 +1,33 @@
-import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Query } from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiConflictResponse,
-  ApiCreatedResponse,
-  ApiForbiddenResponse,
-  ApiNotFoundResponse,
-  ApiOkResponse,
-  ApiOperation,
-  ApiTags,
-} from '@nestjs/swagger';
+import { Body, Controller, HttpCode, Param, Post, Query } from '@nestjs/common';
+import { ApiConflictResponse, ApiNotFoundResponse, ApiOperation } from '@nestjs/swagger';
 import type { CreatedWorkerTokenView, Page, WorkerTokenView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission, type Caller } from '../auth/decorators';
+import { CreateRoute, ListRoute } from '../common/http/resource-routes';
+import { ScopedController } from '../common/http/scoped-controller';
+import { ApiResult } from '../openapi/api-responses';
 import {
-  CreatedWorkerTokenResponseDto,
   CreateWorkerTokenDto,
   RevokeWorkerTokenDto,
-  WorkerTokenPageDto,
   WorkerTokenQueryDto,
-  WorkerTokenResponseDto,
 } from './dto/worker-token.dto';
 import { WorkerTokensService } from './worker-tokens.service';
 
-@ApiTags('worker-tokens')
-@ApiBearerAuth()
-@ApiForbiddenResponse({ description: 'Admins only' })
+@ScopedController('worker-tokens', 'Admins only')
 @Controller('worker-tokens')
 export class WorkerTokensController {
   constructor(private readonly tokens: WorkerTokensService) {}
 
-  @Get()
-  @RequirePermission('read', 'WorkerToken')
+  @ListRoute('WorkerToken', 'WorkerTokenView', { description: 'The worker tokens' })
   @ApiOperation({ summary: 'Worker tokens, newest first (never their secrets)' })
-  @ApiOkResponse({ type: WorkerTokenPageDto })
   list(@Query() query: WorkerTokenQueryDto): Promise<Page<WorkerTokenView>> {
     return this.tokens.list(query);
   }
 
-  @Post()
-  @RequirePermission('create', 'WorkerToken')
+  @CreateRoute('WorkerToken', 'CreatedWorkerTokenView', {
+    description: 'The new token with its secret',
+    conflict: 'A live token has this name, or the name is reserved',
+  })
   @ApiOperation({ summary: 'Creates a worker token; its secret is in this answer only' })
-  @ApiCreatedResponse({ type: CreatedWorkerTokenResponseDto })
-  @ApiConflictResponse({ description: 'A live token has this name, or the name is reserved' })
   create(
     @CurrentCaller() caller: Caller,
     @Body() body: CreateWorkerTokenDto,
@@ -52,12 +39,12 @@ export class WorkerTokensController {
   @HttpCode(200)
   @RequirePermission('update', 'WorkerToken')
   @ApiOperation({ summary: 'Revokes a worker token: it is refused from the next request on' })
-  @ApiOkResponse({ type: WorkerTokenResponseDto })
+  @ApiResult('WorkerTokenView', { description: 'The revoked token' })
   @ApiNotFoundResponse({ description: 'No such worker token' })
   @ApiConflictResponse({ description: 'Already revoked' })
   revoke(
     @CurrentCaller() caller: Caller,
-    @Param('id', ParseUUIDPipe) id: string,
+    @Param('id') id: string,
     @Body() body: RevokeWorkerTokenDto,
   ): Promise<WorkerTokenView> {
     return this.tokens.revoke(caller, id, body);

@@ -1,9 +1,9 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { AccountsModule } from '../accounts/accounts.module';
-import { LocalWorkerToken } from './local-worker-token.service';
+import { LocalWorkerTokenService } from './local-worker-token.service';
 import { WorkerToken } from './worker-token.entity';
-import { WorkerTokenAuth } from './worker-token-auth.service';
+import { WorkerTokenAuthService } from './worker-token-auth.service';
 import { WorkerTokensController } from './worker-tokens.controller';
 import { WorkerTokensService } from './worker-tokens.service';
 
@@ -14,7 +14,7 @@ import { WorkerTokensService } from './worker-tokens.service';
 @Module({
   imports: [TypeOrmModule.forFeature([WorkerToken]), AccountsModule],
   controllers: [WorkerTokensController],
-  providers: [WorkerTokensService, WorkerTokenAuth, LocalWorkerToken],
-  exports: [WorkerTokenAuth],
+  providers: [WorkerTokensService, WorkerTokenAuthService, LocalWorkerTokenService],
+  exports: [WorkerTokenAuthService],
 })
 export class WorkerTokensModule {}

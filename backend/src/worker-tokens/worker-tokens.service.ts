@@ -7,10 +7,10 @@ import {
   type Page,
   type WorkerTokenView,
 } from '@gyre/shared';
-import { Accounts } from '../accounts/accounts.service';
+import { AccountsService } from '../accounts/accounts.service';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
@@ -40,9 +40,9 @@ export const LOCAL_ROTATION_REASON =
 export class WorkerTokensService {
   constructor(
     @InjectRepository(WorkerToken) private readonly tokens: Repository<WorkerToken>,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
-    private readonly accounts: Accounts,
+    private readonly accounts: AccountsService,
   ) {}
 
   async list(query: WorkerTokenQueryDto): Promise<Page<WorkerTokenView>> {

@@ -1,4 +1,4 @@
-import type { VisitReviewDto } from '@gyre/shared';
+import type { VisitReviewView } from '@gyre/shared';
 import type { Flag } from '../flags/flag.entity';
 import { reviewFingerprintOf } from '../visit-reviews/review-fingerprint';
 import { reviewSections, signedHz, sortItems, uploadSections } from './worklist-sections';
@@ -41,7 +41,7 @@ function rec(n: number, kind: 'resting' | 'task', extra: Partial<CurrentRecordin
   } satisfies CurrentRecordingRow;
 }
 
-function reviewOf(rows: CurrentRecordingRow[], at = '2026-02-02T00:00:00.000Z'): VisitReviewDto {
+function reviewOf(rows: CurrentRecordingRow[], at = '2026-02-02T00:00:00.000Z'): VisitReviewView {
   const now = reviewFingerprintOf(rows)!;
   return {
     id: 'rv',

@@ -1,6 +1,6 @@
 import type {
   RecordingKind,
-  VisitReviewDto,
+  VisitReviewView,
   WorklistItem,
   WorklistSectionKey,
   WorklistSort,
@@ -8,7 +8,8 @@ import type {
 import { formatDeltaHz } from '@gyre/shared';
 import type { Flag } from '../flags/flag.entity';
 import { reviewFingerprintOf } from '../visit-reviews/review-fingerprint';
-import type { CurrentRecordingRow, ReportRow, UploadRow, VisitFacts } from './worklist-sources';
+import type { ReportHead } from '../signoff/report-heads.reads';
+import type { CurrentRecordingRow, UploadRow, VisitFacts } from './worklist-sources';
 
 /** Every item of every section, before sorting and paging. */
 export type SectionItems = Partial<Record<WorklistSectionKey, WorklistItem[]>>;
@@ -28,8 +29,8 @@ const KIND_WORD: Record<RecordingKind, string> = { resting: 'resting', task: 'ta
 
 export interface ReviewInput {
   recordings: CurrentRecordingRow[];
-  reports: ReportRow[];
-  reviews: Map<string, VisitReviewDto>;
+  reports: Omit<ReportHead, 'participantId'>[];
+  reviews: Map<string, VisitReviewView>;
   /** Flags of the visits whose task run suggests slowing, any order. */
   flags: Flag[];
 }

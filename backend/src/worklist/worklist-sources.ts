@@ -1,23 +1,22 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, In } from 'typeorm';
+import { DataSource, In, type SelectQueryBuilder } from 'typeorm';
 import {
   visitScheduleStatus,
   type RecordingKind,
   type RecordingState,
-  type ReportState,
   type VisitScheduleStatus,
 } from '@gyre/shared';
 import { AnalysisRun } from '../analysis/analysis-run.entity';
-import { applyScope } from '../auth/access-scope';
+import { applyScope, scopeSql } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
+import { SqliteReadsService } from '../common/database/sqlite-reads.service';
 import { Participant } from '../participants/participant.entity';
 import { Recording } from '../recordings/recording.entity';
-import { toRecordingDto } from '../recordings/recording.view';
+import { toRecordingView } from '../recordings/recording-view';
 import { CURRENT_STATES } from '../recordings/recordings.service';
-import { Report } from '../reports/report.entity';
 import { PlannedVisit } from '../schedule/planned-visit.entity';
-import { ReportRevision } from '../signoff/report-revision.entity';
+import { reportHeads, type ReportHead } from '../signoff/report-heads.reads';
 import { Visit } from '../visits/visit.entity';
 
 /** The visit columns every worklist item shows. */
@@ -45,14 +44,6 @@ export interface CurrentRecordingRow extends VisitFacts {
   roiDeltaFHz: number | null;
 }
 
-export interface ReportRow {
-  visitId: string;
-  state: ReportState;
-  createdAt: string;
-  lastSignedAt: string | null;
-  lastRevision: number | null;
-}
-
 /** A technician's recording that is not superseded (current, in its checks, or rejected). */
 export interface UploadRow extends VisitFacts {
   recordingId: string;
@@ -69,24 +60,19 @@ export interface UploadRow extends VisitFacts {
  * The worklist's reads: a fixed number of narrow queries, each over the caller's scope, with
  * only the columns the list shows (never a run's curves or summary), so the cost grows with
  * the number of rows, not with a query per visit. The rows belong to recordings/, analysis/,
- * reports/ and signoff/; this only reads them.
+ * reports/ and signoff/ (whose `reportHeads` gives the reports); this only reads them.
  */
 @Injectable()
 export class WorklistSources {
-  constructor(@InjectDataSource() private readonly dataSource: DataSource) {}
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly reads: SqliteReadsService,
+  ) {}
 
   /** Every current recording in the caller's scope, with its run's headline. One query. */
   async currentRecordings(caller: Caller): Promise<CurrentRecordingRow[]> {
-    const query = this.dataSource
-      .getRepository(Recording)
-      .createQueryBuilder('r')
-      .innerJoin(Visit, 'v', 'v.id = r.visitId')
-      .innerJoin(Participant, 'p', 'p.id = v.participantId')
-      .leftJoin(PlannedVisit, 'pv', 'pv.id = v.plannedVisitId')
+    const query = this.recordingsWithVisits()
       .leftJoin(AnalysisRun, 'run', 'run.id = r.latestRunId')
-      .select('r.id', 'recordingId')
-      .addSelect('r.kind', 'kind')
-      .addSelect('r.state', 'state')
       .addSelect('r.latestRunId', 'latestRunId')
       .addSelect('r.updatedAt', 'updatedAt')
       .addSelect('r.failureMessage', 'failureMessage')
@@ -105,33 +91,14 @@ export class WorklistSources {
     }));
   }
 
-  /** Every report in scope with its newest signature, if any. One query. */
-  async reports(caller: Caller): Promise<ReportRow[]> {
-    const query = this.dataSource
-      .getRepository(Report)
-      .createQueryBuilder('rep')
-      .leftJoin(ReportRevision, 'rev', 'rev.reportId = rep.id')
-      .select('rep.visitId', 'visitId')
-      .addSelect('rep.state', 'state')
-      .addSelect('rep.createdAt', 'createdAt')
-      .addSelect('MAX(rev.signedAt)', 'lastSignedAt')
-      .addSelect('MAX(rev.revision)', 'lastRevision')
-      .groupBy('rep.id');
-    applyScope(query, 'rep', caller.ability, 'read', 'Report');
-    return query.getRawMany();
+  /** Every report in scope with its newest signature, if any (signoff's read). One query. */
+  reports(caller: Caller): ReportHead[] {
+    return reportHeads(this.reads, scopeSql(caller.ability, 'read', 'Report', 'rep'));
   }
 
   /** A technician's recordings that are not superseded, in their site. One query. */
   async uploads(caller: Caller): Promise<UploadRow[]> {
-    const query = this.dataSource
-      .getRepository(Recording)
-      .createQueryBuilder('r')
-      .innerJoin(Visit, 'v', 'v.id = r.visitId')
-      .innerJoin(Participant, 'p', 'p.id = v.participantId')
-      .leftJoin(PlannedVisit, 'pv', 'pv.id = v.plannedVisitId')
-      .select('r.id', 'recordingId')
-      .addSelect('r.kind', 'kind')
-      .addSelect('r.state', 'state')
+    const query = this.recordingsWithVisits()
       .addSelect('r.createdAt', 'createdAt')
       .addSelect('r.updatedAt', 'updatedAt')
       .addSelect('r.failureMessage', 'failureMessage')
@@ -167,6 +134,19 @@ export class WorklistSources {
     return rows.map(withSchedule);
   }
 
+  /** Recordings (`r`) with their visit (`v`), participant (`p`) and planned visit (`pv`). */
+  private recordingsWithVisits(): SelectQueryBuilder<Recording> {
+    return this.dataSource
+      .getRepository(Recording)
+      .createQueryBuilder('r')
+      .innerJoin(Visit, 'v', 'v.id = r.visitId')
+      .innerJoin(Participant, 'p', 'p.id = v.participantId')
+      .leftJoin(PlannedVisit, 'pv', 'pv.id = v.plannedVisitId')
+      .select('r.id', 'recordingId')
+      .addSelect('r.kind', 'kind')
+      .addSelect('r.state', 'state');
+  }
+
   /** The warnings of these recordings, worded as the recording's own view words them. */
   async warningsOf(recordingIds: readonly string[]): Promise<Map<string, string[]>> {
     const out = new Map<string, string[]>();
@@ -184,7 +164,7 @@ export class WorklistSources {
       });
       for (const row of rows) {
         const narrow = { ...row, csvOnsetsJson: null, rejectionJson: null, roiUsageJson: null };
-        out.set(row.id, toRecordingDto(narrow, null).warnings);
+        out.set(row.id, toRecordingView(narrow, null).warnings);
       }
     }
     return out;

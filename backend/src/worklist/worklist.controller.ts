@@ -1,7 +1,7 @@
 import { Controller, Get, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { ApiResult } from '../openapi/api-responses';
-import type { WorklistDto } from '@gyre/shared';
+import type { WorklistView } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
 import { WorklistQueryDto } from './dto/worklist-query.dto';
@@ -15,11 +15,11 @@ export class WorklistController {
 
   @Get()
   @RequirePermission('read', 'Worklist')
-  @ApiResult('WorklistDto', {
+  @ApiResult('WorklistView', {
     description:
       "What waits for the caller: analysts and monitors the study's review work, technicians their site's uploads; each section with its true count",
   })
-  get(@CurrentCaller() caller: Caller, @Query() query: WorklistQueryDto): Promise<WorklistDto> {
+  get(@CurrentCaller() caller: Caller, @Query() query: WorklistQueryDto): Promise<WorklistView> {
     return this.worklist.forCaller(caller, query);
   }
 }

@@ -3,7 +3,7 @@ import {
   REVIEW_SECTIONS,
   UPLOAD_SECTIONS,
   WORKLIST_DEFAULT_LIMIT,
-  type WorklistDto,
+  type WorklistView,
   type WorklistSectionKey,
 } from '@gyre/shared';
 import type { Caller } from '../auth/decorators';
@@ -35,7 +35,7 @@ export class WorklistService {
     private readonly flags: FlagsService,
   ) {}
 
-  async forCaller(caller: Caller, query: WorklistQueryDto): Promise<WorklistDto> {
+  async forCaller(caller: Caller, query: WorklistQueryDto): Promise<WorklistView> {
     const kind = caller.ability.can('read', 'VisitReview') ? 'review' : 'uploads';
     const keys: readonly WorklistSectionKey[] =
       kind === 'review' ? REVIEW_SECTIONS : UPLOAD_SECTIONS;

@@ -1,3 +1,4 @@
+import { applyDecorators } from '@nestjs/common';
 import { ApiProperty } from '@nestjs/swagger';
 import {
   ArrayMaxSize,
@@ -16,15 +17,26 @@ import { ANALYSIS_METHODS } from '@gyre/shared';
 import type { AnalysisMethod, AnalysisSettingsChange } from '@gyre/shared';
 
 export const finite = { allowNaN: false, allowInfinity: false };
-export const pair = (): PropertyDecorator => {
-  const decorators = [
+export const pair = (): PropertyDecorator =>
+  applyDecorators(IsArray(), ArrayMinSize(2), ArrayMaxSize(2), IsNumber(finite, { each: true }));
+
+/** A region of interest: 1 to 64 channel labels of the 10-10 system (O1, Pz, …). */
+export const roiLabels = (): PropertyDecorator =>
+  applyDecorators(
     IsArray(),
-    ArrayMinSize(2),
-    ArrayMaxSize(2),
-    IsNumber(finite, { each: true }),
-  ];
-  return (target, key) => decorators.forEach((d) => d(target, key));
-};
+    ArrayMinSize(1),
+    ArrayMaxSize(64),
+    IsString({ each: true }),
+    Matches(/^[A-Za-z]{1,2}([1-9]|10|z|Z)$/, { each: true }),
+  );
+
+/** The annotation text that marks a stimulus onset; null = the study's or any. */
+export const onsetLabel = (): PropertyDecorator =>
+  applyDecorators(IsOptional(), IsString(), MaxLength(200));
+
+/** Why the change is made, kept in the audit trail: 10 to 2,000 characters. */
+export const changeReason = (): PropertyDecorator =>
+  applyDecorators(IsString(), MinLength(10), MaxLength(2000));
 
 /** A new version of a study's analysis settings; every field is given, with a reason. */
 export class AnalysisSettingsChangeDto implements AnalysisSettingsChange {
@@ -67,22 +79,14 @@ export class AnalysisSettingsChangeDto implements AnalysisSettingsChange {
   flagThresholdHz: number;
 
   @ApiProperty({ type: [String], example: ['O1', 'O2', 'Oz', 'Pz'] })
-  @IsArray()
-  @ArrayMinSize(1)
-  @ArrayMaxSize(64)
-  @IsString({ each: true })
-  @Matches(/^[A-Za-z]{1,2}([1-9]|10|z|Z)$/, { each: true })
+  @roiLabels()
   roi: string[];
 
   @ApiProperty({ nullable: true, example: null })
-  @IsOptional()
-  @IsString()
-  @MaxLength(200)
+  @onsetLabel()
   onsetLabel: string | null;
 
   @ApiProperty({ minLength: 10, example: 'Narrower band after the pilot review' })
-  @IsString()
-  @MinLength(10)
-  @MaxLength(2000)
+  @changeReason()
   reason: string;
 }

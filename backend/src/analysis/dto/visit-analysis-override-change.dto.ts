@@ -1,27 +1,13 @@
 import { ApiProperty } from '@nestjs/swagger';
-import {
-  ArrayMaxSize,
-  ArrayMinSize,
-  IsArray,
-  IsOptional,
-  IsString,
-  Matches,
-  MaxLength,
-  MinLength,
-  ValidateIf,
-} from 'class-validator';
+import { ValidateIf } from 'class-validator';
 import type { VisitAnalysisOverrideChange } from '@gyre/shared';
-import { pair } from './analysis-settings-change.dto';
+import { changeReason, onsetLabel, pair, roiLabels } from './analysis-settings-change.dto';
 
 /** A visit's own region of interest, band and onset label (null = the study's), with a reason. */
 export class VisitAnalysisOverrideChangeDto implements VisitAnalysisOverrideChange {
   @ApiProperty({ type: [String], nullable: true, example: ['O1', 'Pz'] })
   @ValidateIf((o: VisitAnalysisOverrideChangeDto) => o.roi !== null)
-  @IsArray()
-  @ArrayMinSize(1)
-  @ArrayMaxSize(64)
-  @IsString({ each: true })
-  @Matches(/^[A-Za-z]{1,2}([1-9]|10|z|Z)$/, { each: true })
+  @roiLabels()
   roi: string[] | null;
 
   @ApiProperty({ type: [Number], nullable: true, example: null })
@@ -30,14 +16,10 @@ export class VisitAnalysisOverrideChangeDto implements VisitAnalysisOverrideChan
   bandHz: [number, number] | null;
 
   @ApiProperty({ nullable: true, example: null })
-  @IsOptional()
-  @IsString()
-  @MaxLength(200)
+  @onsetLabel()
   onsetLabel: string | null;
 
   @ApiProperty({ minLength: 10, example: 'O1 saturated in this session; use the parietal set' })
-  @IsString()
-  @MinLength(10)
-  @MaxLength(2000)
+  @changeReason()
   reason: string;
 }

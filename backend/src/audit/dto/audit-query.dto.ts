@@ -1,20 +1,13 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { IsIn, IsISO8601, IsOptional, IsString, MaxLength } from 'class-validator';
+import { IsISO8601, IsOptional, IsString, MaxLength } from 'class-validator';
+import { IdText, OneOf } from '../../common/dto/query-filters';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 export const AUDIT_SORT_FIELDS = ['seq', 'at', 'action', 'objectType'] as const;
 
 export class AuditQueryDto extends PageQueryDto {
-  @ApiPropertyOptional({ enum: AUDIT_SORT_FIELDS, default: 'seq' })
-  @IsOptional()
-  @IsIn(AUDIT_SORT_FIELDS)
-  sort?: (typeof AUDIT_SORT_FIELDS)[number];
-
-  @ApiPropertyOptional({ description: 'Only entries by this user id' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(64)
-  actorId?: string;
+  @OneOf(AUDIT_SORT_FIELDS, { default: 'seq' }) sort?: (typeof AUDIT_SORT_FIELDS)[number];
+  @IdText({ description: 'Only entries by this user id' }) actorId?: string;
 
   @ApiPropertyOptional({ example: 'update' })
   @IsOptional()
@@ -28,19 +21,12 @@ export class AuditQueryDto extends PageQueryDto {
   @MaxLength(40)
   objectType?: string;
 
-  @ApiPropertyOptional()
-  @IsOptional()
-  @IsString()
-  @MaxLength(64)
-  objectId?: string;
+  @IdText() objectId?: string;
 
-  @ApiPropertyOptional({
+  @IdText({
     description:
       'Only entries about this participant: the participant itself, its visits and their recordings, runs, flags, reports and reviews',
   })
-  @IsOptional()
-  @IsString()
-  @MaxLength(64)
   participantId?: string;
 
   @ApiPropertyOptional({

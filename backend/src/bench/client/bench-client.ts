@@ -14,7 +14,7 @@
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { chromium } from 'playwright-core';
 import { DataSource } from 'typeorm';
 import { sqliteOptions } from '../../database/database-options';
@@ -26,6 +26,7 @@ import { sleep, startServer, stopServer } from '../../robustness/crash/server-pr
 import { Rng } from '../../robustness/seeded-random';
 import { reviewCold, signInCold, type PageLoad } from './client-timings';
 import { firstLoadOf, type FirstLoad } from './first-load';
+import { exitWith } from '../../robustness/cli/exit-with';
 
 const JWT_SECRET = 'gyre-client-bench-secret-0123456789abcdefghijkl';
 const CLIENT_DIR = resolve(__dirname, '..', '..', '..', '..', 'frontend', 'dist');
@@ -80,7 +81,7 @@ async function computedVisit(client: GyreClient, visitId: string): Promise<void>
   for (let settled = 0; settled < 2;) {
     const states = await Promise.all(
       ids.map(async (id) => {
-        const now = await client.call<RecordingDto>('GET', `/api/recordings/${id}`, 'analyst');
+        const now = await client.call<RecordingView>('GET', `/api/recordings/${id}`, 'analyst');
         return now.body?.state ?? `HTTP ${now.status}`;
       }),
     );
@@ -153,12 +154,4 @@ async function main(): Promise<number> {
   }
 }
 
-if (require.main === module) {
-  main().then(
-    (code) => process.exit(code),
-    (error: unknown) => {
-      console.error(error);
-      process.exit(1);
-    },
-  );
-}
+if (require.main === module) exitWith(main);

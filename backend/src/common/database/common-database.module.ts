@@ -1,7 +1,10 @@
 import { Global, Module } from '@nestjs/common';
-import { SqliteReads } from './sqlite-reads.service';
-import { WriteTransactions } from './write-transactions.service';
+import { SqliteReadsService } from './sqlite-reads.service';
+import { WriteTransactionsService } from './write-transactions.service';
 
 @Global()
-@Module({ providers: [WriteTransactions, SqliteReads], exports: [WriteTransactions, SqliteReads] })
+@Module({
+  providers: [WriteTransactionsService, SqliteReadsService],
+  exports: [WriteTransactionsService, SqliteReadsService],
+})
 export class CommonDatabaseModule {}

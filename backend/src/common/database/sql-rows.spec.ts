@@ -5,14 +5,14 @@ import { DataSource } from 'typeorm';
 import { Participant } from '../../participants/participant.entity';
 import { pageWindowOf } from '../pagination/page-query.dto';
 import { SqlEntityRows, sqlPage } from './sql-rows';
-import { SqliteReads } from './sqlite-reads.service';
+import { SqliteReadsService } from './sqlite-reads.service';
 
 // A real SQLite file: the page and its count must come from SQL as TypeORM's findAndCount
 // gives them (the reference here), for every page including one past the end.
 describe('pages of entity rows by prepared statements', () => {
   let dir: string;
   let db: DataSource;
-  let reads: SqliteReads;
+  let reads: SqliteReadsService;
   let rows: SqlEntityRows<Participant>;
 
   beforeAll(async () => {
@@ -40,7 +40,7 @@ describe('pages of entity rows by prepared statements', () => {
         updatedAt: '2026-02-01T00:00:00.000Z',
       });
     }
-    reads = new SqliteReads(db);
+    reads = new SqliteReadsService(db);
     rows = new SqlEntityRows<Participant>(db.getMetadata(Participant), db.driver, 'p');
   });
   afterAll(async () => {

@@ -1,9 +1,9 @@
 import type { Driver, EntityMetadata } from 'typeorm';
 import type { PageWindow } from '../pagination/page-query.dto';
-import type { SqliteReads, SqlValue } from './sqlite-reads.service';
+import type { SqliteReadsService, SqlValue } from './sqlite-reads.service';
 
 /**
- * Entity rows read by prepared statements (`SqliteReads`) on hot list routes, as TypeORM
+ * Entity rows read by prepared statements (`SqliteReadsService`) on hot list routes, as TypeORM
  * would have read them: every column the entity maps, converted by the driver's own rules
  * (`prepareHydratedValue`), so a column added to the entity is read here too.
  */
@@ -49,7 +49,7 @@ export interface SqlPageQuery {
  * materialise and sort a subquery: ten times the time of the two statements.)
  */
 export function sqlPage(
-  reads: SqliteReads,
+  reads: SqliteReadsService,
   query: SqlPageQuery,
   window: PageWindow,
 ): [Record<string, unknown>[], number] {

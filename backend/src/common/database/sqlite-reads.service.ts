@@ -15,11 +15,11 @@ const MAX_STATEMENTS = 256;
  * Reads on the hot paths (every request's session check, the results routes' scope checks),
  * as prepared better-sqlite3 statements on TypeORM's own connection: the same database, the
  * same transaction state, none of the query builder's cost (about 0.1–0.2 ms of CPU per query
- * under load, most of a light request's). Reads only: writes go through WriteTransactions.
+ * under load, most of a light request's). Reads only: writes go through WriteTransactionsService.
  * Every row is read when asked, never kept, so nothing here can be stale.
  */
 @Injectable()
-export class SqliteReads {
+export class SqliteReadsService {
   private readonly statements = new Map<string, Statement>();
   /** The connection the statements belong to (a reconnected data source has another). */
   private handle: SqliteHandle | null = null;

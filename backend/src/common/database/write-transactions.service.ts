@@ -8,7 +8,7 @@ import { DataSource, EntityManager } from 'typeorm';
  * savepoints of one another; SQLite has one writer anyway, so queueing costs nothing.
  */
 @Injectable()
-export class WriteTransactions {
+export class WriteTransactionsService {
   private tail: Promise<unknown> = Promise.resolve();
 
   constructor(@InjectDataSource() private readonly dataSource: DataSource) {}

@@ -1,6 +1,7 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
 import { IsIn, IsInt, IsOptional, Max, Min } from 'class-validator';
+import { IdText } from '../dto/query-filters';
 
 export const MAX_PAGE_SIZE = 200;
 /** The last page whose offset, (page − 1) × pageSize, is still a safe integer for SQLite. */
@@ -28,6 +29,12 @@ export class PageQueryDto {
   @IsOptional()
   @IsIn(['asc', 'desc'])
   order?: 'asc' | 'desc';
+}
+
+/** A page of a list that study members see by participant and site (their scope's rows). */
+export class ScopedPageQueryDto extends PageQueryDto {
+  @IdText() participantId?: string;
+  @IdText() siteId?: string;
 }
 
 export interface PageWindow {

@@ -10,6 +10,8 @@ import { WorkerTokens1764700200000 } from './1764700200000-worker-tokens';
 import { VisitScheduleAndGroups1764700300000 } from './1764700300000-visit-schedule-and-groups';
 import { VisitReviews1764700400000 } from './1764700400000-visit-reviews';
 import { RecordingFileName1764700600000 } from './1764700600000-recording-file-name';
+import { CalibrationRuns1764700800000 } from './1764700800000-calibration-runs';
+import { BidsImportFiles1764700700000 } from './1764700700000-bids-import-files';
 
 /** Every migration in order; add new ones at the end (see DEVELOPERS.md). */
 export const MIGRATIONS = [
@@ -25,4 +27,6 @@ export const MIGRATIONS = [
   VisitScheduleAndGroups1764700300000,
   VisitReviews1764700400000,
   RecordingFileName1764700600000,
+  BidsImportFiles1764700700000,
+  CalibrationRuns1764700800000,
 ];

@@ -15,11 +15,9 @@
  * from a stream, outside the figures, to give the run its checksum. Prints one JSON line
  * with the load average before and after (the machine may be shared).
  */
-import { createHash } from 'node:crypto';
-import { createReadStream } from 'node:fs';
 import { loadavg } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { DEFAULT_ANALYSIS_SETTINGS } from '../../signal/pipeline/analysis-settings';
+import { defaultAnalyzeTaskOfFile } from '../default-analyze-task';
 import { WorkerPoolService } from '../worker-pool.service';
 import type { PartReport } from '../worker/run-analysis';
 
@@ -29,9 +27,7 @@ async function main(): Promise<void> {
   if (!path || !(Number.isInteger(threads) && threads >= 1)) {
     throw new Error('usage: measure-analysis-parts.js FILE.edf --threads N (N ≥ 1)');
   }
-  const hash = createHash('sha256');
-  for await (const chunk of createReadStream(path)) hash.update(chunk as Buffer);
-  const checksumSha256 = hash.digest('hex');
+  const task = await defaultAnalyzeTaskOfFile(path);
   const pool = new WorkerPoolService(threads);
   const load = (): number[] => loadavg().map((v) => Number(v.toFixed(2)));
   const loadBefore = load();
@@ -39,18 +35,9 @@ async function main(): Promise<void> {
   const cpu0 = process.cpuUsage();
   const t0 = performance.now();
   const parts: PartReport[] = [];
-  const outcome = await pool.analyze(
-    {
-      filePath: path,
-      checksumSha256,
-      kind: 'task',
-      csvOnsets: null,
-      settings: DEFAULT_ANALYSIS_SETTINGS,
-      iafHz: null,
-    },
-    () => undefined,
-    { onPart: (report) => parts.push(report) },
-  );
+  const outcome = await pool.analyze(task, () => undefined, {
+    onPart: (report) => parts.push(report),
+  });
   const wallS = (performance.now() - t0) / 1000;
   const cpu = process.cpuUsage(cpu0);
   const loadAfter = load();

@@ -17,11 +17,9 @@
  * and the merge. CPU is the process's (user + system), so run it on a quiet machine.
  * Prints one JSON document with the load average before and after.
  */
-import { createHash } from 'node:crypto';
-import { createReadStream } from 'node:fs';
 import { loadavg } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { DEFAULT_ANALYSIS_SETTINGS } from '../../signal/pipeline/analysis-settings';
+import { defaultAnalyzeTaskOfFile } from '../default-analyze-task';
 import { runAnalysis } from '../worker/run-analysis';
 
 /** [module under dist/, exported function] of every timed stage, in pipeline order. */
@@ -34,11 +32,11 @@ const STAGES: ReadonlyArray<readonly [string, string]> = [
   ['signal/frequency/instantaneous-frequency', 'phaseDifferenceFrequency'],
   ['signal/frequency/running-median', 'runningMedianChunks'],
   ['signal/frequency/median-across', 'medianAcross'],
-  ['signal/onset/epochs', 'epochExceedsAmplitude'],
-  ['signal/onset/epochs', 'cutFrequencyEpochs'],
+  ['signal/trials/epochs', 'epochExceedsAmplitude'],
+  ['signal/trials/epochs', 'cutFrequencyEpochs'],
   ['signal/pipeline/summarise-onsets', 'summariseOnsets'],
-  ['signal/onset/onset-statistics', 'onsetStatistics'],
-  ['signal/onset/onset-statistics', 'onsetCurve'],
+  ['signal/trials/onset-statistics', 'onsetStatistics'],
+  ['signal/trials/onset-statistics', 'onsetCurve'],
   ['signal/pipeline/merge-channel-parts', 'mergeChannelParts'],
   ['signal/pipeline/run-summary', 'toAnalyzeOutcome'],
 ];
@@ -94,26 +92,13 @@ async function main(): Promise<void> {
   if (!path || !(Number.isInteger(parts) && parts >= 1)) {
     throw new Error('usage: measure-analysis-stages.js FILE.edf [--parts N] (N ≥ 1, default 2)');
   }
-  const hash = createHash('sha256');
-  for await (const chunk of createReadStream(path)) hash.update(chunk as Buffer);
-  const checksumSha256 = hash.digest('hex');
+  const task = await defaultAnalyzeTaskOfFile(path);
   const figures = instrument();
   const load = (): number[] => loadavg().map((v) => Number(v.toFixed(2)));
   const loadBefore = load();
   const start = usageNow();
   const t0 = performance.now();
-  const outcome = await runAnalysis(
-    {
-      filePath: path,
-      checksumSha256,
-      kind: 'task',
-      csvOnsets: null,
-      settings: DEFAULT_ANALYSIS_SETTINGS,
-      iafHz: null,
-    },
-    () => undefined,
-    { parts },
-  );
+  const outcome = await runAnalysis(task, () => undefined, { parts });
   const wallS = (performance.now() - t0) / 1000;
   const end = usageNow();
   const cpuS = (end.cpuMs - start.cpuMs) / 1000;

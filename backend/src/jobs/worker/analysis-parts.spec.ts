@@ -5,12 +5,11 @@ import {
   analyzeEdfRecording,
   readRecordingForAnalysis,
 } from '../../signal/pipeline/analyze-edf-recording';
-import { DEFAULT_ANALYSIS_SETTINGS } from '../../signal/pipeline/analysis-settings';
 import { bitExact } from '../../signal/pipeline/testing/bit-exact';
+import { defaultAnalyzeTask } from '../default-analyze-task';
 import { writeGeneratedTaskEdf } from '../testing/generated-task-edf';
 import { layoutParts } from './analysis-parts';
 import { runAnalysis } from './run-analysis';
-import type { AnalyzeTask } from './worker-tasks';
 
 const MIB = 2 ** 20;
 
@@ -72,14 +71,7 @@ describe('runAnalysis in parts', () => {
     durationS: 50,
     outOfRange: ['Oz', 'ECG'],
   });
-  const task: AnalyzeTask = {
-    filePath: file.path,
-    checksumSha256: file.checksumSha256,
-    kind: 'task',
-    csvOnsets: null,
-    settings: { ...DEFAULT_ANALYSIS_SETTINGS },
-    iafHz: null,
-  };
+  const task = defaultAnalyzeTask(file);
 
   /** The command line's path: one read of every analysed channel, one analysis. */
   async function wholeFile(): Promise<unknown> {

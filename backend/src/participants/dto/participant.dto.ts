@@ -1,24 +1,8 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import {
-  IsIn,
-  IsOptional,
-  IsString,
-  IsUUID,
-  Matches,
-  MaxLength,
-  ValidateIf,
-} from 'class-validator';
-import {
-  CALENDAR_DATE_PATTERN,
-  PARTICIPANT_CODE_PATTERN,
-  REPORT_STATES,
-  type LatestValue,
-  type Page,
-  type ParticipantListItem,
-  type ParticipantView,
-  type ReportState,
-} from '@gyre/shared';
+import { IsOptional, IsString, IsUUID, Matches, MaxLength, ValidateIf } from 'class-validator';
+import { CALENDAR_DATE_PATTERN, PARTICIPANT_CODE_PATTERN } from '@gyre/shared';
+import { IdUuid, OneOf, SearchText } from '../../common/dto/query-filters';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 const CODE_MESSAGE =
@@ -89,77 +73,10 @@ export class UpdateParticipantDto {
 export const PARTICIPANT_SORT_FIELDS = ['code', 'createdAt'] as const;
 
 export class ParticipantQueryDto extends PageQueryDto {
-  @ApiPropertyOptional({ enum: PARTICIPANT_SORT_FIELDS, default: 'code' })
-  @IsOptional()
-  @IsIn(PARTICIPANT_SORT_FIELDS)
+  @OneOf(PARTICIPANT_SORT_FIELDS, { default: 'code' })
   sort?: (typeof PARTICIPANT_SORT_FIELDS)[number];
 
-  @ApiPropertyOptional()
-  @IsOptional()
-  @IsUUID()
-  siteId?: string;
-
-  @ApiPropertyOptional({ description: 'Only the participants of this group' })
-  @IsOptional()
-  @IsUUID()
-  groupId?: string;
-
-  @ApiPropertyOptional({ description: 'Part of the code' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(24)
-  q?: string;
-}
-
-export class ParticipantResponseDto implements ParticipantView {
-  @ApiProperty() id: string;
-  @ApiProperty() studyId: string;
-  @ApiProperty() siteId: string;
-  @ApiProperty({ example: 'AC-0042' }) code: string;
-  @ApiProperty({ type: String, nullable: true, example: '2026-03-02' })
-  enrolmentDate: string | null;
-  @ApiProperty({ type: String, nullable: true }) groupId: string | null;
-  @ApiProperty() createdAt: string;
-  @ApiProperty() updatedAt: string;
-}
-
-class LatestValueDto implements LatestValue {
-  @ApiProperty({ description: 'Hz' }) hz: number;
-  @ApiProperty() visitId: string;
-  @ApiProperty() visitLabel: string;
-}
-
-class ListReportDto {
-  @ApiProperty({ enum: REPORT_STATES }) state: ReportState;
-  @ApiProperty({ type: Number, nullable: true }) latestRevision: number | null;
-}
-
-class LatestVisitDto {
-  @ApiProperty() id: string;
-  @ApiProperty() label: string;
-  @ApiProperty({ example: '2026-03-02' }) visitDate: string;
-  @ApiProperty({ type: ListReportDto, nullable: true }) report: ListReportDto | null;
-}
-
-export class ParticipantListItemDto extends ParticipantResponseDto implements ParticipantListItem {
-  @ApiProperty() siteName: string;
-  @ApiProperty({ type: String, nullable: true }) groupName: string | null;
-  @ApiProperty() visitCount: number;
-  @ApiProperty({ type: LatestValueDto, nullable: true }) latestPaf: LatestValue | null;
-  @ApiProperty({ type: LatestValueDto, nullable: true }) latestDeltaF: LatestValue | null;
-  @ApiProperty({
-    type: Number,
-    nullable: true,
-    description: 'Raised flags; null when your role does not read flags',
-  })
-  openFlags: number | null;
-  @ApiProperty({ type: LatestVisitDto, nullable: true })
-  latestVisit: LatestVisitDto | null;
-}
-
-export class ParticipantPageDto implements Page<ParticipantListItem> {
-  @ApiProperty({ type: [ParticipantListItemDto] }) items: ParticipantListItem[];
-  @ApiProperty() total: number;
-  @ApiProperty() page: number;
-  @ApiProperty() pageSize: number;
+  @IdUuid() siteId?: string;
+  @IdUuid({ description: 'Only the participants of this group' }) groupId?: string;
+  @SearchText('Part of the code', 24) q?: string;
 }

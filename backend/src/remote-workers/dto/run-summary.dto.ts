@@ -22,12 +22,12 @@ import {
   ValidationOptions,
 } from 'class-validator';
 import type {
-  ChannelQualityDto,
-  ChannelStatsDto,
-  QualityDto,
+  ChannelQualityView,
+  ChannelStatsView,
+  QualityView,
   RoiChannelOmission,
   RoiOmissionReason,
-  RoiUsageDto,
+  RoiUsageView,
 } from '@gyre/shared';
 import type { AnalysisBandSource } from '../../signal/pipeline/analysis-settings';
 import type { RunSummary } from '../../signal/pipeline/run-summary';
@@ -56,7 +56,7 @@ const ROI_STATUSES = [
   'complete',
   'partial',
   'none',
-] as const satisfies readonly RoiUsageDto['status'][];
+] as const satisfies readonly RoiUsageView['status'][];
 
 function compose(...decorators: PropertyDecorator[]): PropertyDecorator {
   return (target, key) => decorators.forEach((decorator) => decorator(target, key));
@@ -119,7 +119,7 @@ class RoiChannelOmissionDto implements RoiChannelOmission {
   reason: RoiOmissionReason;
 }
 
-class RoiUsageWireDto implements RoiUsageDto {
+class RoiUsageWireDto implements RoiUsageView {
   @Labels()
   wanted: string[];
 
@@ -133,10 +133,29 @@ class RoiUsageWireDto implements RoiUsageDto {
   leftOut: RoiChannelOmissionDto[];
 
   @IsIn(ROI_STATUSES)
-  status: RoiUsageDto['status'];
+  status: RoiUsageView['status'];
 }
 
-class ChannelStatsWireDto implements ChannelStatsDto {
+/** The onset statistics a channel and the region of interest both report. */
+class OnsetStatsDto {
+  @NullableNumber()
+  baselineHz: number | null;
+
+  @NullableNumber()
+  postHz: number | null;
+
+  @NullableNumber()
+  deltaFHz: number | null;
+
+  @ValidateIf((_o, value) => value !== null)
+  @Pair()
+  ciHz: [number, number] | null;
+
+  @NullableNumber()
+  pValue: number | null;
+}
+
+class ChannelStatsWireDto extends OnsetStatsDto implements ChannelStatsView {
   @IsString()
   @MaxLength(MAX_LABEL)
   label: string;
@@ -149,45 +168,13 @@ class ChannelStatsWireDto implements ChannelStatsDto {
   @IsBoolean()
   inRoi: boolean;
 
-  @NullableNumber()
-  baselineHz: number | null;
-
-  @NullableNumber()
-  postHz: number | null;
-
-  @NullableNumber()
-  deltaFHz: number | null;
-
-  @ValidateIf((_o, value) => value !== null)
-  @Pair()
-  ciHz: [number, number] | null;
-
-  @NullableNumber()
-  pValue: number | null;
-
   @ValidateIf((_o, value) => value !== null)
   @IsInt()
   @Min(0)
   trials: number | null;
 }
 
-class RoiStatsDto implements NonNullable<RunSummary['roi']> {
-  @NullableNumber()
-  baselineHz: number | null;
-
-  @NullableNumber()
-  postHz: number | null;
-
-  @NullableNumber()
-  deltaFHz: number | null;
-
-  @ValidateIf((_o, value) => value !== null)
-  @Pair()
-  ciHz: [number, number] | null;
-
-  @NullableNumber()
-  pValue: number | null;
-
+class RoiStatsDto extends OnsetStatsDto implements NonNullable<RunSummary['roi']> {
   @IsInt()
   @Min(0)
   trialsKept: number;
@@ -254,7 +241,7 @@ class RestSummaryDto implements NonNullable<RunSummary['rest']> {
   alphaWindowHz: [number, number];
 }
 
-class ChannelQualityWireDto implements ChannelQualityDto {
+class ChannelQualityWireDto implements ChannelQualityView {
   @IsString()
   @MaxLength(MAX_LABEL)
   label: string;
@@ -281,7 +268,7 @@ class ChannelQualityWireDto implements ChannelQualityDto {
   phaseSlipShare: number | null;
 }
 
-class QualityWireDto implements QualityDto {
+class QualityWireDto implements QualityView {
   @IsNumber(finite)
   durationS: number;
 

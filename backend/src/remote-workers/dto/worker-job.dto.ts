@@ -18,21 +18,3 @@ export class WorkerFailureDto {
   @MaxLength(4000)
   message: string;
 }
-
-/** What the server did with a posted result. */
-export class WorkerResultAnswerDto {
-  @ApiProperty({ nullable: true, type: String, description: 'The run that holds the numbers' })
-  runId: string | null;
-
-  @ApiProperty({ description: 'False when the computation reproduced the current numbers' })
-  newRun: boolean;
-
-  @ApiProperty({ description: 'True when this attempt’s result had been stored before' })
-  duplicate: boolean;
-}
-
-/** What the server did with a posted failure. */
-export class WorkerFailureAnswerDto {
-  @ApiProperty({ example: true })
-  recorded: boolean;
-}

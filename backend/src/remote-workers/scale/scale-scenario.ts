@@ -12,7 +12,7 @@ import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { DataSource } from 'typeorm';
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { sqliteOptions } from '../../database/database-options';
 import { CRASH_PASSWORD, seedCrashData } from '../../robustness/crash/crash-seed';
 import { GyreClient } from '../../robustness/crash/gyre-client';
@@ -153,7 +153,7 @@ export async function runScaleScenario(options: ScaleOptions): Promise<ScaleRepo
         if (response.status !== 201 || response.body === null) {
           throw new Error(`upload ${upload.description}: HTTP ${response.status}`);
         }
-        recordingIds.push((response.body as RecordingDto).id);
+        recordingIds.push((response.body as RecordingView).id);
       }
     }
     const uploadS = (performance.now() - uploadFrom) / 1000;

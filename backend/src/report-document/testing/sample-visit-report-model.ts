@@ -1,8 +1,8 @@
-import type { RoiUsageDto } from '@gyre/shared';
+import type { RoiUsageView } from '@gyre/shared';
 import { RecordingSource, VisitReportModel } from '../visit-report-model';
 
 /** Every wanted channel used: the ROI of the synthetic study. */
-export const SAMPLE_COMPLETE_ROI: RoiUsageDto = {
+export const SAMPLE_COMPLETE_ROI: RoiUsageView = {
   wanted: ['O1', 'O2', 'Oz', 'Pz'],
   used: ['O1', 'O2', 'Oz', 'Pz'],
   leftOut: [],
@@ -10,7 +10,7 @@ export const SAMPLE_COMPLETE_ROI: RoiUsageDto = {
 };
 
 /** Three of five wanted channels used; one saturated, one not in the file. */
-export const SAMPLE_PARTIAL_ROI: RoiUsageDto = {
+export const SAMPLE_PARTIAL_ROI: RoiUsageView = {
   wanted: ['O1', 'O2', 'Oz', 'Pz', 'POz'],
   used: ['O1', 'O2', 'Pz'],
   leftOut: [
@@ -21,7 +21,7 @@ export const SAMPLE_PARTIAL_ROI: RoiUsageDto = {
 };
 
 /** No wanted channel left, one for each reason. */
-export const SAMPLE_NO_ROI: RoiUsageDto = {
+export const SAMPLE_NO_ROI: RoiUsageView = {
   wanted: ['O1', 'O2', 'Oz', 'Pz', 'POz'],
   used: [],
   leftOut: [

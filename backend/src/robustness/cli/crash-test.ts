@@ -15,6 +15,7 @@ import { machineDescription } from './fuzz';
 import { formatCrashReport, runCrashTest } from '../crash/crash-test';
 import { FULL_SIZES, QUICK_SIZES } from '../crash/recording-files';
 import { uploadRaceProbe } from '../crash/upload-race-probe';
+import { exitWith } from './exit-with';
 
 /** Fixed by default, so two runs of `npm run crash-test` follow the same schedule. */
 export const DEFAULT_CRASH_SEED = 20260115;
@@ -62,12 +63,4 @@ async function main(): Promise<number> {
   return report.check.problems.length === 0 ? 0 : 1;
 }
 
-if (require.main === module) {
-  main().then(
-    (code) => process.exit(code),
-    (error: unknown) => {
-      console.error(error);
-      process.exit(1);
-    },
-  );
-}
+if (require.main === module) exitWith(main);

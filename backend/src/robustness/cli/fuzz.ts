@@ -14,6 +14,7 @@ import { join } from 'node:path';
 import { buildCase } from '../fuzz/fuzz-cases';
 import { formatSummary } from '../fuzz/fuzz-report';
 import { rangeOf, runFuzz } from '../fuzz/fuzz-runner';
+import { exitWith } from './exit-with';
 
 /** The default seed: a fixed one, so that two runs of `npm run fuzz` are the same run. */
 export const DEFAULT_FUZZ_SEED = 20260115;
@@ -116,12 +117,4 @@ async function main(): Promise<number> {
   return summary.violations.length === 0 ? 0 : 1;
 }
 
-if (require.main === module) {
-  main().then(
-    (code) => process.exit(code),
-    (error: unknown) => {
-      console.error(error);
-      process.exit(1);
-    },
-  );
-}
+if (require.main === module) exitWith(main);

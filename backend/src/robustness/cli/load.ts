@@ -22,7 +22,7 @@ import { loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import autocannon from 'autocannon';
-import type { Page, ParticipantView, RecordingDto, RecordingResultsDto } from '@gyre/shared';
+import type { Page, ParticipantView, RecordingView, RecordingResultsView } from '@gyre/shared';
 import { DataSource } from 'typeorm';
 import { createBackup } from '../../backup/backup';
 import { sqliteOptions } from '../../database/database-options';
@@ -180,11 +180,11 @@ async function uploadEdf(
   visitId: string,
   kind: 'resting' | 'task',
   bytes: Uint8Array,
-): Promise<RecordingDto> {
+): Promise<RecordingView> {
   const form = new FormData();
   form.append('kind', kind);
   form.append('file', new Blob([new Uint8Array(bytes)]), `${kind}.edf`);
-  const response = await api<RecordingDto>(
+  const response = await api<RecordingView>(
     url,
     'POST',
     `/api/visits/${visitId}/recordings`,
@@ -203,7 +203,7 @@ async function allReady(url: string, token: string, ids: readonly string[]): Pro
   for (;;) {
     const states = await Promise.all(
       ids.map(
-        async (id) => (await api<RecordingDto>(url, 'GET', `/api/recordings/${id}`, token)).body,
+        async (id) => (await api<RecordingView>(url, 'GET', `/api/recordings/${id}`, token)).body,
       ),
     );
     const bad = states.find((r) => r.state === 'failed' || r.state === 'rejected');
@@ -328,7 +328,7 @@ async function main(): Promise<number> {
       task: task64Edf({ durationS: 120, seed: 200 + i, baseFrequencyHz: visit.peakHz }),
     }));
     const prepared = performance.now();
-    const uploaded: RecordingDto[] = [];
+    const uploaded: RecordingView[] = [];
     for (const [i, file] of files.entries()) {
       uploaded.push(await uploadEdf(server.url, technician, visitIds[i], 'resting', file.rest));
       uploaded.push(await uploadEdf(server.url, technician, visitIds[i], 'task', file.task));
@@ -344,7 +344,7 @@ async function main(): Promise<number> {
     );
 
     const resultsPath = `/api/recordings/${task.id}/results`;
-    const results = await api<RecordingResultsDto>(server.url, 'GET', resultsPath, analyst);
+    const results = await api<RecordingResultsView>(server.url, 'GET', resultsPath, analyst);
     const channel = results.body.task?.curveChannels[0];
     const paths: Record<RouteName, string | null> = {
       results: resultsPath,

@@ -6,7 +6,7 @@
  * a kill has no answer: its visit slot is never used again, and its fate is read from the
  * database at the end.
  */
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { caseSeed, Rng } from '../seeded-random';
 import { GyreClient } from './gyre-client';
 import {
@@ -184,7 +184,7 @@ export class CrashWorkload {
     });
     this.uploadsInFlight -= 1;
     const body = response.body as
-      (RecordingDto & { details?: { recording?: RecordingDto } }) | null;
+      (RecordingView & { details?: { recording?: RecordingView } }) | null;
     const recordingId =
       response.status === 201 ? (body?.id ?? null) : (body?.details?.recording?.id ?? null);
     this.figures.uploads.push({

@@ -2,7 +2,7 @@
  * The few API calls the crash test makes, with Node's own fetch (the built CLI has no
  * supertest). A request cut off by a kill ends in a network error, reported as status 0.
  */
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { CRASH_PASSWORD, CrashRole } from './crash-seed';
 
 export interface ApiResponse<T = unknown> {
@@ -72,7 +72,7 @@ export class GyreClient {
       onsetsCsv: string | null;
       replaces?: { recordingId: string; reason: string };
     },
-  ): Promise<ApiResponse<RecordingDto & { details?: { recording?: RecordingDto } }>> {
+  ): Promise<ApiResponse<RecordingView & { details?: { recording?: RecordingView } }>> {
     const form = new FormData();
     form.append('kind', input.kind);
     if (input.replaces) {

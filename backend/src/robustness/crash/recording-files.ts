@@ -5,8 +5,8 @@
  * in one), and a bad file. Every file differs (its own generator seed), so each upload is a
  * new stored file. Nothing here is measured EEG; the patient field is left unknown (`X X X X`).
  */
-import { writeEdf } from '../../signal/edf';
 import {
+  syntheticEdf,
   syntheticRestRecording,
   syntheticTaskRecording,
 } from '../../signal/synthetic/synthetic-eeg';
@@ -51,16 +51,7 @@ export function restingUpload(rng: Rng, sizes: UploadSizes, seed: number): Gener
   });
   return {
     kind: 'resting',
-    bytes: writeEdf({
-      startDate: '2026-01-15T09:00:00',
-      signals: recording.signals.map((s) => ({
-        label: s.label,
-        sampleRateHz: s.sampleRateHz,
-        physicalMin: -500,
-        physicalMax: 500,
-        samples: s.samples,
-      })),
-    }),
+    bytes: syntheticEdf(recording, { startDate: '2026-01-15T09:00:00' }),
     onsetsCsv: null,
     expect: 'accepted',
     description: `resting ${durationS} s, peak ${peakHz} Hz`,
@@ -82,17 +73,7 @@ export function taskUpload(rng: Rng, sizes: UploadSizes, seed: number): Generate
   const asCsv = rng.bool(0.3);
   return {
     kind: 'task',
-    bytes: writeEdf({
-      startDate: '2026-01-15T09:30:00',
-      signals: recording.signals.map((s) => ({
-        label: s.label,
-        sampleRateHz: s.sampleRateHz,
-        physicalMin: -500,
-        physicalMax: 500,
-        samples: s.samples,
-      })),
-      annotations: asCsv ? [] : (recording.annotations ?? []).map((a) => ({ ...a })),
-    }),
+    bytes: syntheticEdf(recording, { startDate: '2026-01-15T09:30:00', annotate: !asCsv }),
     onsetsCsv: asCsv ? `onset_s,label\n${onsetsS.map((t) => `${t},stimulus`).join('\n')}\n` : null,
     expect: 'accepted',
     description: `task ${durationS} s, onsets ${asCsv ? 'in a CSV' : 'annotated'}`,

@@ -7,7 +7,7 @@
  */
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import type { ProbeContext } from './crash-test';
 import { Rng } from '../seeded-random';
 import { restingUpload } from './recording-files';
@@ -39,7 +39,7 @@ export async function uploadRaceProbe(context: ProbeContext): Promise<UploadRace
       (r) => r.status === 409 && COLLISION.test((r.body as { message?: string })?.message ?? ''),
     );
     if (lost === undefined) continue;
-    const id = (lost.body as { details?: { recording?: RecordingDto } }).details?.recording?.id;
+    const id = (lost.body as { details?: { recording?: RecordingView } }).details?.recording?.id;
     const [row] = (await context.dataSource.query(
       `SELECT "state", "checksumSha256" FROM "recording" WHERE "id" = ?`,
       [id ?? ''],

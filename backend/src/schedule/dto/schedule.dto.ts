@@ -1,7 +1,6 @@
 import { ApiProperty, ApiPropertyOptional, PartialType } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
 import { IsInt, IsNotEmpty, IsOptional, IsString, Max, MaxLength, Min } from 'class-validator';
-import type { PlannedVisitView, StudyGroupView } from '@gyre/shared';
 
 const trimmed = ({ value }: { value: unknown }): unknown =>
   typeof value === 'string' ? value.trim() : value;
@@ -65,24 +64,3 @@ export class CreateStudyGroupDto {
 }
 
 export class UpdateStudyGroupDto extends PartialType(CreateStudyGroupDto) {}
-
-export class PlannedVisitResponseDto implements PlannedVisitView {
-  @ApiProperty() id: string;
-  @ApiProperty() studyId: string;
-  @ApiProperty({ example: 'Week 12' }) name: string;
-  @ApiProperty({ example: 84 }) targetDay: number;
-  @ApiProperty({ example: 14 }) windowBeforeDays: number;
-  @ApiProperty({ example: 14 }) windowAfterDays: number;
-  @ApiProperty() position: number;
-  @ApiProperty() createdAt: string;
-  @ApiProperty() updatedAt: string;
-}
-
-export class StudyGroupResponseDto implements StudyGroupView {
-  @ApiProperty() id: string;
-  @ApiProperty() studyId: string;
-  @ApiProperty({ example: 'Arm A' }) name: string;
-  @ApiProperty() description: string;
-  @ApiProperty() createdAt: string;
-  @ApiProperty() updatedAt: string;
-}

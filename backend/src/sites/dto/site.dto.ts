@@ -1,16 +1,8 @@
-import { ApiProperty, ApiPropertyOptional, OmitType, PartialType } from '@nestjs/swagger';
-import {
-  IsIn,
-  IsNotEmpty,
-  IsOptional,
-  IsString,
-  IsUUID,
-  Matches,
-  MaxLength,
-} from 'class-validator';
-import { STUDY_CODE_PATTERN, type Page, type SiteView } from '@gyre/shared';
+import { ApiProperty, OmitType, PartialType } from '@nestjs/swagger';
+import { IsNotEmpty, IsString, IsUUID, Matches, MaxLength } from 'class-validator';
+import { STUDY_CODE_PATTERN } from '@gyre/shared';
+import { IdUuid, OneOf, SearchText } from '../../common/dto/query-filters';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
-import { SiteResponseDto } from '../../studies/dto/study-responses.dto';
 
 export class CreateSiteDto {
   @ApiProperty()
@@ -36,26 +28,7 @@ export class UpdateSiteDto extends PartialType(OmitType(CreateSiteDto, ['studyId
 export const SITE_SORT_FIELDS = ['code', 'name', 'createdAt'] as const;
 
 export class SiteQueryDto extends PageQueryDto {
-  @ApiPropertyOptional({ enum: SITE_SORT_FIELDS, default: 'code' })
-  @IsOptional()
-  @IsIn(SITE_SORT_FIELDS)
-  sort?: (typeof SITE_SORT_FIELDS)[number];
-
-  @ApiPropertyOptional()
-  @IsOptional()
-  @IsUUID()
-  studyId?: string;
-
-  @ApiPropertyOptional({ description: 'Part of the code or name' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(100)
-  q?: string;
-}
-
-export class SitePageDto implements Page<SiteView> {
-  @ApiProperty({ type: [SiteResponseDto] }) items: SiteView[];
-  @ApiProperty() total: number;
-  @ApiProperty() page: number;
-  @ApiProperty() pageSize: number;
+  @OneOf(SITE_SORT_FIELDS, { default: 'code' }) sort?: (typeof SITE_SORT_FIELDS)[number];
+  @IdUuid() studyId?: string;
+  @SearchText('Part of the code or name') q?: string;
 }

@@ -1,6 +1,5 @@
 import { ApiProperty, ApiPropertyOptional, PartialType } from '@nestjs/swagger';
 import {
-  IsIn,
   IsInt,
   IsNotEmpty,
   IsOptional,
@@ -14,11 +13,9 @@ import {
   DEFAULT_TREND_MIN_SPAN_DAYS,
   DEFAULT_TREND_MIN_VISITS,
   STUDY_CODE_PATTERN,
-  type Page,
-  type StudyView,
 } from '@gyre/shared';
+import { OneOf, SearchText } from '../../common/dto/query-filters';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
-import { StudyResponseDto } from './study-responses.dto';
 
 export class CreateStudyDto {
   @ApiProperty({ example: 'ALPHA-AGE', pattern: STUDY_CODE_PATTERN.source })
@@ -65,21 +62,6 @@ export class UpdateStudyDto extends PartialType(CreateStudyDto) {}
 export const STUDY_SORT_FIELDS = ['code', 'name', 'createdAt'] as const;
 
 export class StudyQueryDto extends PageQueryDto {
-  @ApiPropertyOptional({ enum: STUDY_SORT_FIELDS, default: 'code' })
-  @IsOptional()
-  @IsIn(STUDY_SORT_FIELDS)
-  sort?: (typeof STUDY_SORT_FIELDS)[number];
-
-  @ApiPropertyOptional({ description: 'Part of the code or name' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(100)
-  q?: string;
-}
-
-export class StudyPageDto implements Page<StudyView> {
-  @ApiProperty({ type: [StudyResponseDto] }) items: StudyView[];
-  @ApiProperty() total: number;
-  @ApiProperty() page: number;
-  @ApiProperty() pageSize: number;
+  @OneOf(STUDY_SORT_FIELDS, { default: 'code' }) sort?: (typeof STUDY_SORT_FIELDS)[number];
+  @SearchText('Part of the code or name') q?: string;
 }

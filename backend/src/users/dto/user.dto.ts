@@ -10,16 +10,9 @@ import {
   MaxLength,
   ValidateIf,
 } from 'class-validator';
-import {
-  ROLES,
-  USER_STATES,
-  type Page,
-  type Role,
-  type UserState,
-  type UserView,
-} from '@gyre/shared';
+import { ROLES, USER_STATES, type Role, type UserState } from '@gyre/shared';
+import { IdUuid, OneOf, SearchText } from '../../common/dto/query-filters';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
-import { UserResponseDto } from '../../auth/dto/auth-responses.dto';
 
 const lowerTrimmed = ({ value }: { value: unknown }): unknown =>
   typeof value === 'string' ? value.trim().toLowerCase() : value;
@@ -95,41 +88,10 @@ export class UpdateUserDto {
 export const USER_SORT_FIELDS = ['email', 'name', 'role', 'createdAt', 'lastSignInAt'] as const;
 
 export class UserQueryDto extends PageQueryDto {
-  @ApiPropertyOptional({ enum: USER_SORT_FIELDS, default: 'email' })
-  @IsOptional()
-  @IsIn(USER_SORT_FIELDS)
-  sort?: (typeof USER_SORT_FIELDS)[number];
-
-  @ApiPropertyOptional({ enum: ROLES })
-  @IsOptional()
-  @IsIn(ROLES)
-  role?: Role;
-
-  @ApiPropertyOptional({ enum: USER_STATES })
-  @IsOptional()
-  @IsIn(USER_STATES)
-  state?: UserState;
-
-  @ApiPropertyOptional()
-  @IsOptional()
-  @IsUUID()
-  studyId?: string;
-
-  @ApiPropertyOptional()
-  @IsOptional()
-  @IsUUID()
-  siteId?: string;
-
-  @ApiPropertyOptional({ description: 'Part of the name or e-mail' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(100)
-  q?: string;
-}
-
-export class UserPageDto implements Page<UserView> {
-  @ApiProperty({ type: [UserResponseDto] }) items: UserView[];
-  @ApiProperty() total: number;
-  @ApiProperty() page: number;
-  @ApiProperty() pageSize: number;
+  @OneOf(USER_SORT_FIELDS, { default: 'email' }) sort?: (typeof USER_SORT_FIELDS)[number];
+  @OneOf(ROLES) role?: Role;
+  @OneOf(USER_STATES) state?: UserState;
+  @IdUuid() studyId?: string;
+  @IdUuid() siteId?: string;
+  @SearchText('Part of the name or e-mail') q?: string;
 }

@@ -1,8 +1,7 @@
-import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { ApiProperty, ApiPropertyOptional, PartialType, PickType } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
 import {
   IsBoolean,
-  IsIn,
   IsNotEmpty,
   IsOptional,
   IsString,
@@ -11,13 +10,7 @@ import {
   MaxLength,
   ValidateIf,
 } from 'class-validator';
-import {
-  VISIT_WINDOWS,
-  type Page,
-  type VisitScheduleStatus,
-  type VisitView,
-  type VisitWindow,
-} from '@gyre/shared';
+import { IdUuid, OneOf } from '../../common/dto/query-filters';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 const trimmed = ({ value }: { value: unknown }): unknown =>
@@ -61,7 +54,10 @@ export class CreateVisitDto {
   visitDate: string;
 }
 
-export class UpdateVisitDto {
+/** Label and date as on creation, each optional; the planned visit may also be cleared. */
+export class UpdateVisitDto extends PartialType(
+  PickType(CreateVisitDto, ['label', 'visitDate'] as const),
+) {
   @ApiPropertyOptional({
     nullable: true,
     description: 'Move the visit to another planned visit; null makes it unscheduled',
@@ -69,19 +65,6 @@ export class UpdateVisitDto {
   @ValidateIf((_: object, value: unknown) => value !== null && value !== undefined)
   @IsUUID()
   plannedVisitId?: string | null;
-
-  @ApiPropertyOptional({ example: 'V2' })
-  @IsOptional()
-  @Transform(trimmed)
-  @IsString()
-  @IsNotEmpty()
-  @MaxLength(40)
-  label?: string;
-
-  @ApiPropertyOptional({ example: '2026-03-15' })
-  @IsOptional()
-  @Matches(DATE_PATTERN, { message: 'visitDate must be a calendar date written YYYY-MM-DD' })
-  visitDate?: string;
 
   @ApiPropertyOptional({ description: 'Why; kept in the audit trail' })
   @IsOptional()
@@ -93,25 +76,10 @@ export class UpdateVisitDto {
 export const VISIT_SORT_FIELDS = ['visitDate', 'label', 'createdAt'] as const;
 
 export class VisitQueryDto extends PageQueryDto {
-  @ApiPropertyOptional({ enum: VISIT_SORT_FIELDS, default: 'visitDate' })
-  @IsOptional()
-  @IsIn(VISIT_SORT_FIELDS)
-  sort?: (typeof VISIT_SORT_FIELDS)[number];
-
-  @ApiPropertyOptional()
-  @IsOptional()
-  @IsUUID()
-  participantId?: string;
-
-  @ApiPropertyOptional()
-  @IsOptional()
-  @IsUUID()
-  siteId?: string;
-
-  @ApiPropertyOptional()
-  @IsOptional()
-  @IsUUID()
-  plannedVisitId?: string;
+  @OneOf(VISIT_SORT_FIELDS, { default: 'visitDate' }) sort?: (typeof VISIT_SORT_FIELDS)[number];
+  @IdUuid() participantId?: string;
+  @IdUuid() siteId?: string;
+  @IdUuid() plannedVisitId?: string;
 
   @ApiPropertyOptional({ description: 'Visits on or after, YYYY-MM-DD' })
   @IsOptional()
@@ -122,34 +90,4 @@ export class VisitQueryDto extends PageQueryDto {
   @IsOptional()
   @Matches(DATE_PATTERN, { message: 'to must be YYYY-MM-DD' })
   to?: string;
-}
-
-export class VisitScheduleStatusDto implements VisitScheduleStatus {
-  @ApiProperty({ type: String, nullable: true }) plannedVisitId: string | null;
-  @ApiProperty({ type: String, nullable: true }) plannedVisitName: string | null;
-  @ApiProperty({ type: Number, nullable: true, description: 'visitDate − enrolmentDate, days' })
-  studyDay: number | null;
-  @ApiProperty({ type: Number, nullable: true }) targetDay: number | null;
-  @ApiProperty({ type: Number, nullable: true }) daysFromTarget: number | null;
-  @ApiProperty({ enum: VISIT_WINDOWS }) window: VisitWindow;
-}
-
-export class VisitResponseDto implements VisitView {
-  @ApiProperty() id: string;
-  @ApiProperty() participantId: string;
-  @ApiProperty() studyId: string;
-  @ApiProperty() siteId: string;
-  @ApiProperty() label: string;
-  @ApiProperty({ example: '2026-03-14' }) visitDate: string;
-  @ApiProperty({ type: String, nullable: true }) plannedVisitId: string | null;
-  @ApiProperty({ type: VisitScheduleStatusDto }) schedule: VisitScheduleStatus;
-  @ApiProperty() createdAt: string;
-  @ApiProperty() updatedAt: string;
-}
-
-export class VisitPageDto implements Page<VisitView> {
-  @ApiProperty({ type: [VisitResponseDto] }) items: VisitView[];
-  @ApiProperty() total: number;
-  @ApiProperty() page: number;
-  @ApiProperty() pageSize: number;
 }

@@ -3,7 +3,7 @@ import { Inject, Injectable, OnModuleInit } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, In } from 'typeorm';
 import { AuditService } from '../audit/audit.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { nowIso } from '../common/time';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
@@ -20,11 +20,11 @@ import { REPORT_SIGNED_KIND, reportSignedMail, revisionLink } from './report-sig
  * every message of the revision is delivered.
  */
 @Injectable()
-export class ReportNotifications implements OnModuleInit {
+export class ReportNotificationsService implements OnModuleInit {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
-    private readonly writes: WriteTransactions,
+    private readonly writes: WriteTransactionsService,
     private readonly outbox: OutboxService,
     private readonly audit: AuditService,
     private readonly reports: ReportsService,

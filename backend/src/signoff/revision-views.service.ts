@@ -1,19 +1,19 @@
 import { Injectable } from '@nestjs/common';
 import { EntityManager } from 'typeorm';
-import type { ReportRevisionDto } from '@gyre/shared';
+import type { ReportRevisionView } from '@gyre/shared';
 import { ParticipantsService } from '../participants/participants.service';
 import { VisitsService } from '../visits/visits.service';
 import { ReportRevision } from './report-revision.entity';
 
 @Injectable()
-export class RevisionViews {
+export class RevisionViewsService {
   constructor(
     private readonly participants: ParticipantsService,
     private readonly visits: VisitsService,
   ) {}
 
   /** Response views of revisions, with the participant code and visit they belong to. */
-  async of(manager: EntityManager, rows: ReportRevision[]): Promise<ReportRevisionDto[]> {
+  async of(manager: EntityManager, rows: ReportRevision[]): Promise<ReportRevisionView[]> {
     if (rows.length === 0) return [];
     const participants = await this.participants.byIds(
       [...new Set(rows.map((r) => r.participantId))],

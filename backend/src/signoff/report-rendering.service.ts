@@ -4,7 +4,7 @@ import { VisitReportModel } from '../report-document/visit-report-model';
 
 /** The report renderer's worker thread, closed with the application. */
 @Injectable()
-export class ReportRendering implements OnModuleDestroy {
+export class ReportRenderingService implements OnModuleDestroy {
   private readonly renderer = new ReportRenderer();
 
   render(model: VisitReportModel): Promise<Buffer> {

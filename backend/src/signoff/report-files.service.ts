@@ -15,7 +15,7 @@ export function sha256Hex(bytes: Uint8Array): string {
  * once (temporary file, then rename), and checked against the name on every read.
  */
 @Injectable()
-export class ReportFiles {
+export class ReportFilesService {
   readonly dir: string;
 
   constructor(@Inject(APP_CONFIG) config: AppConfig) {

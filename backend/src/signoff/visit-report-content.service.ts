@@ -1,10 +1,10 @@
 import { createHash } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { EntityManager } from 'typeorm';
-import type { QualityDto, RecordingResultsDto } from '@gyre/shared';
+import type { QualityView, RecordingResultsView } from '@gyre/shared';
 import type { AnalysisSettings as AnalysisSettingsValues } from '../signal/pipeline/analysis-settings';
 import type { AnalysisRun } from '../analysis/analysis-run.entity';
-import { AnalysisRunsService, toResultsDto } from '../analysis/analysis-runs.service';
+import { AnalysisRunsService, toResultsView } from '../analysis/analysis-runs.service';
 import { parseStoredSettings } from '../analysis/settings-values';
 import type { Recording } from '../recordings/recording.entity';
 import { RecordingsService } from '../recordings/recordings.service';
@@ -59,7 +59,7 @@ export interface ReportContent {
  * transaction, what is signed is exactly what was checked.
  */
 @Injectable()
-export class VisitReportContent {
+export class VisitReportContentService {
   constructor(
     private readonly runs: AnalysisRunsService,
     private readonly recordings: RecordingsService,
@@ -83,7 +83,7 @@ export class VisitReportContent {
     const used = runs
       .map((run) => {
         const recording = current.find((r) => r.id === run.recordingId) as Recording;
-        return { run, recording, results: toResultsDto(run, recording, []) };
+        return { run, recording, results: toResultsView(run, recording, []) };
       })
       .sort((a, b) => (a.run.kind < b.run.kind ? -1 : 1));
     const rest = used.find((u) => u.run.kind === 'resting');
@@ -146,7 +146,7 @@ function sourceOf(recording: Recording): RecordingSource {
   };
 }
 
-function restSection(results: RecordingResultsDto, recording: Recording): RestSection {
+function restSection(results: RecordingResultsView, recording: Recording): RestSection {
   const roiUsage = results.run.roiUsage;
   const rest = results.rest;
   if (rest === null || roiUsage.status === 'none') {
@@ -174,7 +174,7 @@ function restSection(results: RecordingResultsDto, recording: Recording): RestSe
 }
 
 function taskSection(
-  results: RecordingResultsDto,
+  results: RecordingResultsView,
   recording: Recording,
   settings: AnalysisSettingsValues,
 ): TaskSection {
@@ -217,7 +217,7 @@ function taskSection(
   };
 }
 
-function qualitySection(kind: AnalysisRun['kind'], quality: QualityDto): QualitySection {
+function qualitySection(kind: AnalysisRun['kind'], quality: QualityView): QualitySection {
   return {
     kind,
     durationS: quality.durationS,

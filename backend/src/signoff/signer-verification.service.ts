@@ -1,11 +1,11 @@
 import { Injectable } from '@nestjs/common';
-import { Accounts } from '../accounts/accounts.service';
+import { AccountsService } from '../accounts/accounts.service';
 import type { User } from '../accounts/user.entity';
 import { AuditService } from '../audit/audit.service';
 import { LOCKOUT_MS, MAX_FAILED_SIGN_INS } from '../auth/auth.service';
 import type { Caller } from '../auth/decorators';
-import { PasswordHasher } from '../auth/password-hasher.service';
-import { WriteTransactions } from '../common/database/write-transactions.service';
+import { PasswordHasherService } from '../auth/password-hasher.service';
+import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { GyreException } from '../common/errors/gyre.exception';
 import { isoAfter, nowIso } from '../common/time';
 import { SignoffError, signoffError } from './signoff.errors';
@@ -16,12 +16,12 @@ import { SignoffError, signoffError } from './signoff.errors';
  * passwords count toward the same lockout as sign-in (five, then fifteen minutes).
  */
 @Injectable()
-export class SignerVerification {
+export class SignerVerificationService {
   constructor(
-    private readonly writes: WriteTransactions,
-    private readonly hasher: PasswordHasher,
+    private readonly writes: WriteTransactionsService,
+    private readonly hasher: PasswordHasherService,
     private readonly audit: AuditService,
-    private readonly accounts: Accounts,
+    private readonly accounts: AccountsService,
   ) {}
 
   async verify(caller: Caller, password: string, reportId: string): Promise<User> {

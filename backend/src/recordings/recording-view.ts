@@ -1,9 +1,9 @@
 import type {
-  JobDto,
-  RecordingDto,
-  RecordingFactsDto,
+  JobView,
+  RecordingView,
+  RecordingFactsView,
   RecordingRejection,
-  RoiUsageDto,
+  RoiUsageView,
 } from '@gyre/shared';
 import type { RecordingFacts } from '../jobs/worker/worker-tasks';
 import type { QueuedJob } from '../queue/job-queue';
@@ -11,7 +11,7 @@ import { Recording } from './recording.entity';
 import type { ComputationPayload } from './recordings.events';
 import { kindWarning } from './kind-check';
 
-export function toJobDto(job: QueuedJob<ComputationPayload>): JobDto {
+export function toJobView(job: QueuedJob<ComputationPayload>): JobView {
   return {
     id: job.id,
     recordingId: job.payload.recordingId,
@@ -27,7 +27,7 @@ export function toJobDto(job: QueuedJob<ComputationPayload>): JobDto {
   };
 }
 
-export function factsOf(row: Recording): RecordingFactsDto | null {
+export function factsOf(row: Recording): RecordingFactsView | null {
   if (row.factsJson === null) return null;
   const facts = JSON.parse(row.factsJson) as Omit<RecordingFacts, 'csvOnsets'>;
   const csv = row.csvOnsetsJson === null ? null : (JSON.parse(row.csvOnsetsJson) as unknown[]);
@@ -35,7 +35,7 @@ export function factsOf(row: Recording): RecordingFactsDto | null {
 }
 
 /** What a technician should know about the recording while the participant may still be there. */
-function warningsOf(row: Recording, facts: RecordingFactsDto | null): string[] {
+function warningsOf(row: Recording, facts: RecordingFactsView | null): string[] {
   const warnings: string[] = [];
   if (row.kindConfirmed) warnings.push(kindWarning(row.kind, facts?.stimulusOnsetCount ?? 0));
   if (row.resultWarningsJson !== null) {
@@ -46,7 +46,7 @@ function warningsOf(row: Recording, facts: RecordingFactsDto | null): string[] {
   return warnings;
 }
 
-export function toRecordingDto(row: Recording, latestJob: JobDto | null): RecordingDto {
+export function toRecordingView(row: Recording, latestJob: JobView | null): RecordingView {
   const facts = factsOf(row);
   return {
     id: row.id,
@@ -68,7 +68,7 @@ export function toRecordingDto(row: Recording, latestJob: JobDto | null): Record
     latestRunId: row.latestRunId,
     kindConfirmed: row.kindConfirmed,
     warnings: warningsOf(row, facts),
-    roiUsage: row.roiUsageJson === null ? null : (JSON.parse(row.roiUsageJson) as RoiUsageDto),
+    roiUsage: row.roiUsageJson === null ? null : (JSON.parse(row.roiUsageJson) as RoiUsageView),
     replacesId: row.replacesId,
     replacementReason: row.replacementReason,
     supersededById: row.supersededById,
