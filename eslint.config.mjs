@@ -4,6 +4,42 @@ import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
 import prettier from 'eslint-config-prettier';
 import globals from 'globals';
+import { readdirSync } from 'node:fs';
+
+// Import boundaries (core `no-restricted-imports`, no plugin).
+// 1. Nothing outside backend/ reaches into the server's sources or build: only its package
+//    entry points (`@gyre/backend/signal`, …) are public.
+const backendInternals = {
+  regex: String.raw`(^|/)backend/(src|dist)(/|$)|^@gyre/backend/(src|dist)(/|$)`,
+  message: 'Import the public entry (e.g. @gyre/backend/signal), not backend/src or backend/dist.',
+};
+// 2. In the client a feature (frontend/src/features/X) never imports another feature; what two
+//    features share lives in frontend/src/components or frontend/src/lib. The rule sees the
+//    import text only, so there is one block per feature and folder depth: from a file `depth`
+//    folders below features/X, `'../'.repeat(depth)` is features/ itself.
+const featureRoot = 'frontend/src/features';
+const features = readdirSync(new URL(featureRoot, import.meta.url), { withFileTypes: true })
+  .filter((entry) => entry.isDirectory())
+  .map((entry) => entry.name);
+const featureBoundaries = features.flatMap((feature) =>
+  [1, 2, 3, 4].map((depth) => ({
+    files: [`${featureRoot}/${feature}/${'*/'.repeat(depth - 1)}*.{ts,tsx}`],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            backendInternals,
+            {
+              regex: String.raw`^(\.\./){${depth}}(?!${feature}/)[^./][^/]*(/|$)|(^|/)features/(?!${feature}/)`,
+              message: `A feature does not import another feature: move what ${feature} shares to frontend/src/components or frontend/src/lib.`,
+            },
+          ],
+        },
+      ],
+    },
+  })),
+);
 
 export default tseslint.config(
   {
@@ -44,35 +80,28 @@ export default tseslint.config(
     },
   },
   {
-    // Findings of the two rules above in client files other engineers are rebuilding now
-    // (issue 15); listed in issue 16 for their owners to fix. Remove each line once fixed.
-    files: [
-      'frontend/src/app/session-gate.tsx',
-      'frontend/src/features/auth/components/forgot-password-page.tsx',
-      'frontend/src/features/auth/components/sign-in-page.tsx',
-      'frontend/src/features/auth/components/sign-in-route.tsx',
-      'frontend/src/features/auth/components/token-password-page.tsx',
-      'frontend/src/features/intake/components/new-participant-form.tsx',
-      'frontend/src/features/intake/components/new-visit-form.tsx',
-      'frontend/src/features/intake/components/participant-details-form.tsx',
-      'frontend/src/features/review/components/flag-panel.tsx',
-      'frontend/src/features/review/components/override-form.tsx',
-      'frontend/src/features/review/components/review-mark.tsx',
-      'frontend/src/features/study-settings/components/groups-section.tsx',
-      'frontend/src/features/study-settings/components/settings-form.tsx',
-      'frontend/src/features/study-settings/components/trend-settings-section.tsx',
-      'frontend/src/features/study-settings/components/visit-schedule-section.tsx',
-      'frontend/src/features/team/components/account-state-form.tsx',
-      'frontend/src/features/team/components/create-worker-token-form.tsx',
-      'frontend/src/features/team/components/edit-user-form.tsx',
-      'frontend/src/features/team/components/invite-user-form.tsx',
-      'frontend/src/features/team/components/revoke-worker-token-form.tsx',
-    ],
+    ignores: ['backend/**'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [backendInternals] }] },
+  },
+  {
+    // The shared client pieces stand below every feature.
+    files: ['frontend/src/components/**/*.{ts,tsx}', 'frontend/src/lib/**/*.{ts,tsx}'],
     rules: {
-      '@typescript-eslint/no-floating-promises': 'off',
-      '@typescript-eslint/no-misused-promises': 'off',
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            backendInternals,
+            {
+              regex: String.raw`(^|/)features/`,
+              message: 'Shared components and lib do not import a feature.',
+            },
+          ],
+        },
+      ],
     },
   },
+  ...featureBoundaries,
   {
     files: ['backend/**/*.ts'],
     rules: {

@@ -34,6 +34,12 @@ export const NAV_ENTRIES: readonly NavEntry[] = [
     can: ['read', 'AnalysisSettings'],
   },
   { path: paths.ledger, label: 'Ledger', roles: ['monitor', 'admin'], can: ['read', 'AuditEntry'] },
+  {
+    path: paths.siteCheck,
+    label: 'Site check',
+    roles: ['technician', 'analyst', 'monitor', 'admin'],
+    can: ['read', 'Calibration'],
+  },
   { path: paths.reports, label: 'Reports', roles: ['coordinator'], can: ['read', 'Report'] },
   { path: paths.team, label: 'Team', roles: ['admin'], can: ['update', 'User'] },
   {

@@ -19,6 +19,8 @@ export const paths = {
   studySetup: '/study-setup',
   /** Group courses over the planned visits, completion and site quality (`?study=` for admins). */
   studyOverview: '/study-overview',
+  /** Each site's calibration run: Gyre's check of its own computation. */
+  siteCheck: '/site-check',
   team: '/team',
   outbox: '/outbox',
 } as const;

@@ -1,5 +1,6 @@
 import { Alert, Button, Skeleton } from 'antd';
 import { Outlet, useNavigation, useRouteError } from 'react-router-dom';
+import { GYRE_COLORS } from './theme';
 
 /**
  * The root of every route: the screen, and a thin bar at the top of the window while the
@@ -25,7 +26,13 @@ export function RouteShell() {
 export function FirstScreenLoading() {
   return (
     <div role="status" aria-busy="true" aria-label="Opening Gyre" style={{ minHeight: '100vh' }}>
-      <div style={{ height: 60, background: '#FFFFFF', borderBottom: '1px solid #DCE5E6' }} />
+      <div
+        style={{
+          height: 60,
+          background: GYRE_COLORS.paper,
+          borderBottom: `1px solid ${GYRE_COLORS.line}`,
+        }}
+      />
       <div style={{ maxWidth: 1440, margin: '0 auto', padding: '28px 32px' }}>
         <Skeleton active title paragraph={{ rows: 6 }} />
       </div>

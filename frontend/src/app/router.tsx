@@ -94,6 +94,15 @@ const SCREENS: ScreenRoute[] = [
     },
   },
   {
+    path: paths.siteCheck,
+    screen: 'Site check',
+    requires: ['read', 'Calibration'],
+    load: async () => {
+      const { SiteCheckPage } = await import('../features/calibration/components/site-check-page');
+      return <SiteCheckPage />;
+    },
+  },
+  {
     path: paths.team,
     screen: 'Team',
     requires: ['update', 'User'],
@@ -217,8 +226,11 @@ export const routes: RouteObject[] = [
           {
             index: true,
             lazy: async () => {
-              const { HomePage } = await import('../features/home/home-page');
-              return { element: <HomePage /> };
+              const [{ HomePage }, { FailedCalibrationNotice }] = await Promise.all([
+                import('../features/home/home-page'),
+                import('../features/calibration/components/failed-calibration-notice'),
+              ]);
+              return { element: <HomePage notices={<FailedCalibrationNotice />} /> };
             },
           },
           ...[...SCREENS, ...REVIEW_AND_PARTICIPANT_SCREENS].map(guarded),

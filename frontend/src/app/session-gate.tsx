@@ -49,7 +49,8 @@ function SignedInScreens() {
       onSessionEnded(() => {
         // Forget every cached answer: the next person to sign in must not see them.
         void mutate(() => true, undefined, { revalidate: false });
-        navigate(signInPath(hereRef.current, 'expired'), { replace: true });
+        // Fire and forget: the listener cannot wait, and the new screen reports its own state.
+        void navigate(signInPath(hereRef.current, 'expired'), { replace: true });
       }),
     [mutate, navigate],
   );
@@ -72,7 +73,7 @@ function SignedInScreens() {
               }
               await mutate(() => true, undefined, { revalidate: false });
               message.success('You are signed out.');
-              navigate(signInPath(undefined, 'signed-out'), { replace: true });
+              await navigate(signInPath(undefined, 'signed-out'), { replace: true });
             },
           }
         : null,

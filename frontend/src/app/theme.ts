@@ -8,8 +8,16 @@ export const GYRE_COLORS = {
   amberText: '#8A5300',
   ink: '#1D2B2F',
   mist: '#F4F7F7',
+  /** The deeper mist: the sign-in backdrop's far end and the round of Gyre's pictures. */
+  mistDeep: '#E3ECEC',
+  /** The warm light of Gyre's mark and pictures, on the primary. */
+  cream: '#F3EBDD',
+  /** The tint behind a raised flag. */
+  amberBg: '#FDF5E6',
   paper: '#FFFFFF',
   line: '#DCE5E6',
+  /** Text on a line-grey badge (≥ 4.5:1 on `line`). */
+  inkOnLine: '#33474B',
   /** Secondary text: solid, so it keeps ≥ 4.5:1 on paper, mist and the info tint (WCAG 1.4.3). */
   inkSoft: '#4F5F63',
   /** Descriptions and hints (antd derives them at 45 % of the ink, about 2.7:1 on white). */

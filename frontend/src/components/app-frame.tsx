@@ -5,6 +5,7 @@ import { Link, Outlet, useLocation } from 'react-router-dom';
 import { GyreMark } from './gyre-mark';
 import { MenuGlyph } from './state-icons';
 import { paths } from '../app/paths';
+import { GYRE_COLORS } from '../app/theme';
 
 export interface NavItem {
   path: string;
@@ -54,7 +55,7 @@ export function AppFrame({
           display: 'flex',
           alignItems: 'center',
           gap: wide ? 24 : 8,
-          borderBottom: '1px solid #DCE5E6',
+          borderBottom: `1px solid ${GYRE_COLORS.line}`,
           ...(wide ? {} : { padding: '0 12px' }),
         }}
       >

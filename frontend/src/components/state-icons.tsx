@@ -3,20 +3,22 @@
  * its colours (hand-drawn: @ant-design/icons is not a direct dependency of the client).
  */
 
+import { GYRE_COLORS } from '../app/theme';
+
 export function LockedIcon({ size = 72 }: { size?: number }) {
   return (
     <svg width={size} height={size} viewBox="0 0 72 72" aria-hidden="true" focusable="false">
-      <circle cx="36" cy="36" r="35" fill="#E3ECEC" />
-      <rect x="22" y="33" width="28" height="21" rx="4" fill="#24525A" />
+      <circle cx="36" cy="36" r="35" fill={GYRE_COLORS.mistDeep} />
+      <rect x="22" y="33" width="28" height="21" rx="4" fill={GYRE_COLORS.primary} />
       <path
         d="M27 33v-6a9 9 0 0 1 18 0v6"
         fill="none"
-        stroke="#24525A"
+        stroke={GYRE_COLORS.primary}
         strokeWidth="4"
         strokeLinecap="round"
       />
-      <circle cx="36" cy="42" r="3" fill="#F3EBDD" />
-      <rect x="34.6" y="43" width="2.8" height="6" rx="1.4" fill="#F3EBDD" />
+      <circle cx="36" cy="42" r="3" fill={GYRE_COLORS.cream} />
+      <rect x="34.6" y="43" width="2.8" height="6" rx="1.4" fill={GYRE_COLORS.cream} />
     </svg>
   );
 }
@@ -24,15 +26,15 @@ export function LockedIcon({ size = 72 }: { size?: number }) {
 export function LostIcon({ size = 72 }: { size?: number }) {
   return (
     <svg width={size} height={size} viewBox="0 0 72 72" aria-hidden="true" focusable="false">
-      <circle cx="36" cy="36" r="35" fill="#E3ECEC" />
+      <circle cx="36" cy="36" r="35" fill={GYRE_COLORS.mistDeep} />
       <path
         d="M36 16a20 20 0 1 0 20 20 14 14 0 0 0-14-14 9 9 0 0 0-9 9 5 5 0 0 0 5 5"
         fill="none"
-        stroke="#24525A"
+        stroke={GYRE_COLORS.primary}
         strokeWidth="4"
         strokeLinecap="round"
       />
-      <circle cx="38" cy="36" r="2.5" fill="#C77C02" />
+      <circle cx="38" cy="36" r="2.5" fill={GYRE_COLORS.amber} />
     </svg>
   );
 }

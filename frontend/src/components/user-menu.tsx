@@ -1,4 +1,5 @@
 import { Button, Flex, Grid, Tag, Typography } from 'antd';
+import { GYRE_COLORS } from '../app/theme';
 
 const ROLE_LABELS: Record<string, string> = {
   technician: 'Technician',
@@ -50,7 +51,7 @@ export function UserMenu({
         )}
       </Flex>
       {wide && (
-        <Tag color="#24525A" variant="outlined" style={{ marginInlineEnd: 0 }}>
+        <Tag color={GYRE_COLORS.primary} variant="outlined" style={{ marginInlineEnd: 0 }}>
           {roleLabel}
         </Tag>
       )}

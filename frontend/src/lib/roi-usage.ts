@@ -1,4 +1,4 @@
-import type { RoiChannelOmission, RoiOmissionReason, RoiUsageDto } from '@gyre/shared';
+import type { RoiChannelOmission, RoiOmissionReason, RoiUsageView } from '@gyre/shared';
 
 /** Said, in these words, wherever a number would need a region-of-interest channel. */
 export const NO_ROI_CHANNEL_REMAINS = 'No region-of-interest channel remains';
@@ -24,7 +24,7 @@ export function leftOutText(leftOut: RoiChannelOmission[]): string {
  * The region-of-interest usage in one sentence; null when every wanted channel was used
  * (nothing to say).
  */
-export function roiUsageSentence(usage: RoiUsageDto): string | null {
+export function roiUsageSentence(usage: RoiUsageView): string | null {
   if (usage.status === 'complete') return null;
   if (usage.status === 'none') {
     return usage.leftOut.length === 0
@@ -35,14 +35,14 @@ export function roiUsageSentence(usage: RoiUsageDto): string | null {
 }
 
 /** Whether a channel (by its file label or its 10-10 name) is one the run averaged. */
-export function usedInRoi(usage: RoiUsageDto, label: string, canonical: string | null): boolean {
+export function usedInRoi(usage: RoiUsageView, label: string, canonical: string | null): boolean {
   const used = new Set(usage.used.map((name) => name.toLowerCase()));
   return used.has(label.toLowerCase()) || (canonical !== null && used.has(canonical.toLowerCase()));
 }
 
 /** The omission of a channel (by file label or 10-10 name), if the run left it out. */
 export function omissionOf(
-  usage: RoiUsageDto,
+  usage: RoiUsageView,
   label: string,
   canonical: string | null,
 ): RoiChannelOmission | null {

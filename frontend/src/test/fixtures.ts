@@ -1,4 +1,4 @@
-import { packRulesFor, type MeResponse, type Role } from '@gyre/shared';
+import { packRulesFor, type AnalysisSettingsView, type MeResponse, type Role } from '@gyre/shared';
 
 // Generated test data: an invented study with two sites and one user per role.
 export const STUDY = {
@@ -51,3 +51,24 @@ export function meFor(role: Role): MeResponse {
     rules: packRulesFor({ id: user.id, role, studyId, siteId }),
   };
 }
+
+/** Version 1 of the study's analysis settings: the defaults Gyre writes (generated test data). */
+export const DEFAULT_SETTINGS: AnalysisSettingsView = {
+  id: 'set-1',
+  studyId: STUDY.id,
+  version: 1,
+  changes: [],
+  reason: 'Defaults written by Gyre',
+  createdById: null,
+  createdAt: '2025-01-06T09:00:00.000Z',
+  bandHz: null,
+  method: 'filter',
+  morletCycles: 7,
+  epochWindowS: [-1, 2],
+  baselineWindowS: [-0.5, 0],
+  postWindowS: [0.2, 0.8],
+  rejectionThresholdUv: 100,
+  flagThresholdHz: -0.2,
+  roi: ['O1', 'O2', 'Pz'],
+  onsetLabel: null,
+};

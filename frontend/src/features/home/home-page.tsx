@@ -4,6 +4,7 @@ import { navEntriesFor } from '../../app/navigation';
 import { useAppAbility } from '../../lib/session/ability';
 import { useSession } from '../../lib/session/session-context';
 import { Worklist } from './components/worklist';
+import { GYRE_COLORS } from '../../app/theme';
 
 const WHAT_EACH_SCREEN_IS_FOR: Record<string, string> = {
   Intake: 'Register visits and upload resting and task recordings; follow their checks.',
@@ -14,6 +15,7 @@ const WHAT_EACH_SCREEN_IS_FOR: Record<string, string> = {
   'Study settings':
     'The analysis settings of the study, every version with what it changed and why.',
   Ledger: 'The audit trail: who changed what, when and why, with its integrity check.',
+  'Site check': "Each site's calibration run: Gyre computing a recording with known answers.",
   Reports: 'Signed visit reports of your site, ready to download.',
   Team: 'Users, roles, sites and invitations.',
   Outbox: 'E-mail Gyre has sent or is about to send.',
@@ -23,7 +25,8 @@ const WHAT_EACH_SCREEN_IS_FOR: Record<string, string> = {
  * The start screen after sign-in: the worklist for those who have one (analysts, monitors,
  * technicians), then the screens of the user's role, one line each.
  */
-export function HomePage() {
+/** `notices`: what the app puts above the worklist (a failed calibration, app/router.tsx). */
+export function HomePage({ notices }: { notices?: React.ReactNode }) {
   const { me } = useSession();
   const ability = useAppAbility();
   const entries = navEntriesFor(me.user.role, ability);
@@ -38,6 +41,7 @@ export function HomePage() {
         frequency at rest, and whether the rhythm slows after stimulus onset in the task.
         {me.study !== null && ` You work in ${me.study.name} (${me.study.code}).`}
       </Typography.Paragraph>
+      {notices}
       {hasWorklist && (
         <div style={{ marginBottom: 24 }}>
           <Worklist />
@@ -55,7 +59,7 @@ export function HomePage() {
               <Card hoverable size={hasWorklist ? 'small' : 'medium'} style={{ height: '100%' }}>
                 <Typography.Title
                   level={hasWorklist ? 5 : 4}
-                  style={{ marginTop: 0, color: '#24525A' }}
+                  style={{ marginTop: 0, color: GYRE_COLORS.primary }}
                 >
                   {entry.label}
                 </Typography.Title>

@@ -1,6 +1,7 @@
 import { Typography } from 'antd';
 import { GyreMark } from '../../../components/gyre-mark';
 import { ResearchCaution } from '../../../components/research-caution';
+import { GYRE_COLORS } from '../../../app/theme';
 
 /** The frame of every screen before sign-in: mark, name, one card, the caution. */
 export function AuthLayout({ title, children }: { title: string; children: React.ReactNode }) {
@@ -14,14 +15,14 @@ export function AuthLayout({ title, children }: { title: string; children: React
         justifyContent: 'center',
         alignContent: 'center',
         padding: '24px 16px',
-        background: 'linear-gradient(160deg, #F4F7F7 0%, #E3ECEC 100%)',
+        background: `linear-gradient(160deg, ${GYRE_COLORS.mist} 0%, ${GYRE_COLORS.mistDeep} 100%)`,
       }}
     >
       <div style={{ minWidth: 0 }}>
         <div style={{ display: 'flex', alignItems: 'center', gap: 12, marginBottom: 20 }}>
           <GyreMark size={40} />
           <div>
-            <Typography.Title level={2} style={{ margin: 0, color: '#24525A' }}>
+            <Typography.Title level={2} style={{ margin: 0, color: GYRE_COLORS.primary }}>
               Gyre
             </Typography.Title>
             <Typography.Text type="secondary">
@@ -32,8 +33,8 @@ export function AuthLayout({ title, children }: { title: string; children: React
         {/* A plain card: antd's Card brings its tabs and menus into the first download. */}
         <section
           style={{
-            background: '#FFFFFF',
-            border: '1px solid #DCE5E6',
+            background: GYRE_COLORS.paper,
+            border: `1px solid ${GYRE_COLORS.line}`,
             borderRadius: 8,
             padding: 24,
           }}

@@ -1,29 +1,23 @@
-import { Button, Form, Input, Result, Typography } from 'antd';
+import { Button, Form, Result, Typography } from 'antd';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../app/paths';
-import { ApiError } from '../../../lib/api-client';
+import { useSubmission } from '../../../lib/use-submission';
 import { requestPasswordReset } from '../api/request-password-reset';
 import { AuthLayout } from './auth-layout';
+import { EmailField } from '../../../components/email-field';
+import { FormError } from '../../../components/modal-form';
 
 /** Asks for a reset link; says the same whether or not the address has an account. */
 export function ForgotPasswordPage() {
   const [sentTo, setSentTo] = useState<string | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, run } = useSubmission('The request failed. Try again.');
 
-  const submit = async ({ email }: { email: string }) => {
-    setBusy(true);
-    setError(null);
-    try {
+  const submit = ({ email }: { email: string }) =>
+    run(async () => {
       await requestPasswordReset(email);
       setSentTo(email);
-    } catch (caught) {
-      setError(caught instanceof ApiError ? caught.message : 'The request failed. Try again.');
-    } finally {
-      setBusy(false);
-    }
-  };
+    });
 
   return (
     <AuthLayout title="Reset your password">
@@ -41,21 +35,8 @@ export function ForgotPasswordPage() {
             password.
           </Typography.Paragraph>
           <Form<{ email: string }> layout="vertical" requiredMark={false} onFinish={submit}>
-            <Form.Item
-              label="E-mail"
-              name="email"
-              rules={[
-                { required: true, message: 'Enter your e-mail address.' },
-                { type: 'email', message: 'This is not an e-mail address.' },
-              ]}
-            >
-              <Input autoComplete="username" autoFocus />
-            </Form.Item>
-            {error !== null && (
-              <Typography.Paragraph type="danger" role="alert">
-                {error}
-              </Typography.Paragraph>
-            )}
+            <EmailField whose="your" />
+            <FormError error={error} />
             <Button type="primary" htmlType="submit" block loading={busy}>
               Send the link
             </Button>

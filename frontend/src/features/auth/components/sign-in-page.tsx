@@ -1,9 +1,10 @@
 import { Alert, Button, Form, Input, Typography } from 'antd';
-import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../app/paths';
-import { ApiError } from '../../../lib/api-client';
+import { useSubmission } from '../../../lib/use-submission';
 import { AuthLayout } from './auth-layout';
+import { EmailField } from '../../../components/email-field';
+import { FormError } from '../../../components/modal-form';
 
 export interface SignInValues {
   email: string;
@@ -19,20 +20,9 @@ export function SignInPage({
   /** Why the user is here, e.g. their session ended. */
   notice?: string;
 }) {
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, run } = useSubmission('Sign-in failed. Try again.');
 
-  const submit = async (values: SignInValues) => {
-    setBusy(true);
-    setError(null);
-    try {
-      await onSignIn(values);
-    } catch (caught) {
-      setError(caught instanceof ApiError ? caught.message : 'Sign-in failed. Try again.');
-    } finally {
-      setBusy(false);
-    }
-  };
+  const submit = (values: SignInValues) => run(() => onSignIn(values));
 
   return (
     <AuthLayout title="Sign in">
@@ -40,16 +30,7 @@ export function SignInPage({
         <Alert type="info" showIcon title={notice} style={{ marginBottom: 16 }} />
       )}
       <Form<SignInValues> layout="vertical" requiredMark={false} onFinish={submit}>
-        <Form.Item
-          label="E-mail"
-          name="email"
-          rules={[
-            { required: true, message: 'Enter your e-mail address.' },
-            { type: 'email', message: 'This is not an e-mail address.' },
-          ]}
-        >
-          <Input autoComplete="username" autoFocus />
-        </Form.Item>
+        <EmailField whose="your" />
         <Form.Item
           label="Password"
           name="password"
@@ -57,11 +38,7 @@ export function SignInPage({
         >
           <Input.Password autoComplete="current-password" />
         </Form.Item>
-        {error !== null && (
-          <Typography.Paragraph type="danger" role="alert">
-            {error}
-          </Typography.Paragraph>
-        )}
+        <FormError error={error} />
         <Button type="primary" htmlType="submit" block loading={busy}>
           Sign in
         </Button>

@@ -25,7 +25,7 @@ export function SignInRoute() {
         await signIn(values);
         // Drop anything cached from an earlier session before the first screen loads.
         await mutate(() => true, undefined, { revalidate: false });
-        navigate(isSafeReturnPath(next) ? next : paths.home, { replace: true });
+        await navigate(isSafeReturnPath(next) ? next : paths.home, { replace: true });
       }}
     />
   );

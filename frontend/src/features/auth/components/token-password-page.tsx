@@ -1,8 +1,7 @@
 import { Alert, Button, Form, Input, Typography } from 'antd';
-import { useState } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { paths, signInPath } from '../../../app/paths';
-import { ApiError } from '../../../lib/api-client';
+import { useSubmission } from '../../../lib/use-submission';
 import { acceptInvitation } from '../api/accept-invitation';
 import { resetPassword } from '../api/reset-password';
 import { AuthLayout } from './auth-layout';
@@ -22,8 +21,7 @@ export function TokenPasswordPage({ purpose }: { purpose: 'reset' | 'invitation'
   const [search] = useSearchParams();
   const navigate = useNavigate();
   const token = search.get('token');
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, run } = useSubmission('That did not work. Try again.');
   const title = purpose === 'reset' ? 'Choose a new password' : 'Join your study on Gyre';
 
   if (token === null || token.length === 0) {
@@ -42,13 +40,11 @@ export function TokenPasswordPage({ purpose }: { purpose: 'reset' | 'invitation'
     );
   }
 
-  const submit = async (values: Values) => {
-    setBusy(true);
-    setError(null);
-    try {
+  const submit = (values: Values) =>
+    run(async () => {
       if (purpose === 'reset') {
         await resetPassword({ token, newPassword: values.password });
-        navigate(signInPath(undefined, 'password-reset'), { replace: true });
+        await navigate(signInPath(undefined, 'password-reset'), { replace: true });
       } else {
         const name = values.name?.trim();
         await acceptInvitation({
@@ -56,14 +52,9 @@ export function TokenPasswordPage({ purpose }: { purpose: 'reset' | 'invitation'
           password: values.password,
           ...(name !== undefined && name.length > 0 ? { name } : {}),
         });
-        navigate(signInPath(undefined, 'invitation-accepted'), { replace: true });
+        await navigate(signInPath(undefined, 'invitation-accepted'), { replace: true });
       }
-    } catch (caught) {
-      setError(caught instanceof ApiError ? caught.message : 'That did not work. Try again.');
-    } finally {
-      setBusy(false);
-    }
-  };
+    });
 
   return (
     <AuthLayout title={title}>

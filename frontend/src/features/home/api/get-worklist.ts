@@ -1,4 +1,4 @@
-import type { WorklistDto, WorklistQuery } from '@gyre/shared';
+import type { WorklistView, WorklistQuery } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch } from '../../../lib/api-client';
 
@@ -12,13 +12,13 @@ export function worklistKey(query: WorklistQuery): string {
   return text === '' ? '/api/worklist' : `/api/worklist?${text}`;
 }
 
-export function getWorklist(query: WorklistQuery): Promise<WorklistDto> {
-  return apiFetch<WorklistDto>(worklistKey(query));
+export function getWorklist(query: WorklistQuery): Promise<WorklistView> {
+  return apiFetch<WorklistView>(worklistKey(query));
 }
 
 /** Asks only when `enabled`; refreshes every half minute while the home screen is open. */
 export function useWorklist(query: WorklistQuery, enabled = true) {
-  return useSWR<WorklistDto>(enabled ? worklistKey(query) : null, () => getWorklist(query), {
+  return useSWR<WorklistView>(enabled ? worklistKey(query) : null, () => getWorklist(query), {
     refreshInterval: 30_000,
     keepPreviousData: true,
   });

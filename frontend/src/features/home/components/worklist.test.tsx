@@ -1,4 +1,4 @@
-import type { Role, WorklistDto } from '@gyre/shared';
+import type { Role, WorklistView } from '@gyre/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
@@ -11,7 +11,7 @@ import { reviewWorklist, UPLOADS_WORKLIST, worklistItem } from '../testing/workl
 installMswServer();
 
 /** Answers `GET /api/worklist` with `answer(query)` and records every query asked. */
-function serveWorklist(answer: (query: URLSearchParams) => WorklistDto) {
+function serveWorklist(answer: (query: URLSearchParams) => WorklistView) {
   const asked: URLSearchParams[] = [];
   server.use(
     http.get('/api/worklist', ({ request }) => {

@@ -40,8 +40,7 @@ function ItemRow({ item }: { item: WorklistItem }) {
           </Link>
           <Typography.Text
             type="secondary"
-            className="gyre-figures"
-            style={{ fontSize: 12 }}
+            className="gyre-figures gyre-caption"
             title={sinceIsDay ? undefined : formatDateTime(item.since)}
           >
             {sinceIsDay ? 'visit of ' : 'since '}
@@ -84,7 +83,7 @@ function SectionCard({ section, sort }: { section: WorklistSection; sort: Workli
             style={
               section.total > 0
                 ? { backgroundColor: GYRE_COLORS.amberText }
-                : { backgroundColor: GYRE_COLORS.line, color: '#33474B' }
+                : { backgroundColor: GYRE_COLORS.line, color: GYRE_COLORS.inkOnLine }
             }
             aria-label={`${section.total} items`}
           />

@@ -1,4 +1,4 @@
-import type { WorklistDto, WorklistItem, WorklistSection } from '@gyre/shared';
+import type { WorklistView, WorklistItem, WorklistSection } from '@gyre/shared';
 import { SITE } from '../../../test/fixtures';
 
 // Generated test data: invented participants and visits.
@@ -40,7 +40,7 @@ export function section(
   return { key, title, total, items };
 }
 
-export function reviewWorklist(readOnly: boolean, unreviewedTotal = 2): WorklistDto {
+export function reviewWorklist(readOnly: boolean, unreviewedTotal = 2): WorklistView {
   return {
     kind: 'review',
     readOnly,
@@ -68,7 +68,7 @@ export function reviewWorklist(readOnly: boolean, unreviewedTotal = 2): Worklist
   };
 }
 
-export const UPLOADS_WORKLIST: WorklistDto = {
+export const UPLOADS_WORKLIST: WorklistView = {
   kind: 'uploads',
   readOnly: false,
   sort: 'oldest',

@@ -1,7 +1,6 @@
 import type { ParticipantView } from '@gyre/shared';
-import { useCallback } from 'react';
-import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
+import { useWrite } from '../../../lib/use-write';
 import { isDueKey } from './due';
 import { participantsKey } from './participants';
 
@@ -19,14 +18,8 @@ export function createParticipant(body: CreateParticipantBody): Promise<Particip
 }
 
 export function useCreateParticipant() {
-  const { mutate } = useSWRConfig();
-  return useCallback(
-    async (body: CreateParticipantBody) => {
-      const created = await createParticipant(body);
-      await mutate(participantsKey);
-      await mutate(isDueKey(created.studyId));
-      return created;
-    },
-    [mutate],
-  );
+  return useWrite(createParticipant, async (mutate, created) => {
+    await mutate(participantsKey);
+    await mutate(isDueKey(created.studyId));
+  });
 }

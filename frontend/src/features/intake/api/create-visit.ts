@@ -1,7 +1,6 @@
 import type { VisitView } from '@gyre/shared';
-import { useCallback } from 'react';
-import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
+import { useWrite } from '../../../lib/use-write';
 import { isDueKey } from './due';
 import { visitsKey } from './visits';
 
@@ -24,14 +23,8 @@ export function createVisit(body: CreateVisitBody): Promise<VisitView> {
 }
 
 export function useCreateVisit() {
-  const { mutate } = useSWRConfig();
-  return useCallback(
-    async (body: CreateVisitBody) => {
-      const created = await createVisit(body);
-      await mutate(visitsKey(body.participantId));
-      await mutate(isDueKey(created.studyId));
-      return created;
-    },
-    [mutate],
-  );
+  return useWrite(createVisit, async (mutate, created, body) => {
+    await mutate(visitsKey(body.participantId));
+    await mutate(isDueKey(created.studyId));
+  });
 }

@@ -1,5 +1,5 @@
 import { SETTLED_RECORDING_STATES } from '@gyre/shared';
-import type { Page, RecordingDto, RecordingState } from '@gyre/shared';
+import type { Page, RecordingView, RecordingState } from '@gyre/shared';
 import useSWR from 'swr';
 import type { SWRConfiguration } from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
@@ -28,8 +28,8 @@ export function isRecordingsKey(key: unknown): boolean {
   return Array.isArray(key) && key[0] === RECORDINGS_PAGE_KEY;
 }
 
-export function getRecordings(visitId: string): Promise<Page<RecordingDto>> {
-  return apiFetch<Page<RecordingDto>>(recordingsPath(visitId));
+export function getRecordings(visitId: string): Promise<Page<RecordingView>> {
+  return apiFetch<Page<RecordingView>>(recordingsPath(visitId));
 }
 
 export function isSettled(state: RecordingState): boolean {
@@ -42,9 +42,9 @@ export function isSettled(state: RecordingState): boolean {
  */
 export function useRecordings(
   visitId: string | null,
-  options: Pick<SWRConfiguration<Page<RecordingDto>>, 'refreshInterval'> = {},
+  options: Pick<SWRConfiguration<Page<RecordingView>>, 'refreshInterval'> = {},
 ) {
-  return useSWR<Page<RecordingDto>>(
+  return useSWR<Page<RecordingView>>(
     visitId === null ? null : recordingsKey(visitId),
     () => getRecordings(visitId ?? ''),
     {

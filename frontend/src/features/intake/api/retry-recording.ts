@@ -1,22 +1,16 @@
-import type { RecordingDto } from '@gyre/shared';
-import { useCallback } from 'react';
-import { useSWRConfig } from 'swr';
+import type { RecordingView } from '@gyre/shared';
 import { apiSend } from '../../../lib/api-client';
+import { useWrite } from '../../../lib/use-write';
 import { recordingsKey } from './recordings';
 
 /** `POST /api/recordings/:id/retry`: queues a failed computation again. */
-export function retryRecording(recordingId: string): Promise<RecordingDto> {
-  return apiSend<RecordingDto>(`/api/recordings/${encodeURIComponent(recordingId)}/retry`, 'POST');
+export function retryRecording(recordingId: string): Promise<RecordingView> {
+  return apiSend<RecordingView>(`/api/recordings/${encodeURIComponent(recordingId)}/retry`, 'POST');
 }
 
 export function useRetryRecording() {
-  const { mutate } = useSWRConfig();
-  return useCallback(
-    async (recording: RecordingDto) => {
-      const updated = await retryRecording(recording.id);
-      await mutate(recordingsKey(recording.visitId));
-      return updated;
-    },
-    [mutate],
+  return useWrite(
+    (recording: RecordingView) => retryRecording(recording.id),
+    (mutate, _updated, recording) => mutate(recordingsKey(recording.visitId)),
   );
 }

@@ -1,4 +1,4 @@
-import type { RecordingDto, RecordingKind, UploadRecordingFields } from '@gyre/shared';
+import type { RecordingView, RecordingKind, UploadRecordingFields } from '@gyre/shared';
 import { useCallback } from 'react';
 import { useSWRConfig } from 'swr';
 import { apiUpload, type UploadOptions } from '../../../lib/api-client';
@@ -40,7 +40,7 @@ export function uploadFieldsOf(input: UploadRecordingInput): UploadRecordingFiel
 export function uploadRecording(
   input: UploadRecordingInput,
   options: UploadOptions = {},
-): Promise<RecordingDto> {
+): Promise<RecordingView> {
   const form = new FormData();
   // Text fields first, so the server knows the kind before the file streams in.
   for (const [name, value] of Object.entries(uploadFieldsOf(input))) {
@@ -48,7 +48,7 @@ export function uploadRecording(
   }
   if (input.onsets) form.append('onsets', input.onsets, input.onsets.name);
   form.append('file', input.file, input.file.name);
-  return apiUpload<RecordingDto>(
+  return apiUpload<RecordingView>(
     `/api/visits/${encodeURIComponent(input.visitId)}/recordings`,
     form,
     options,

@@ -134,7 +134,7 @@ export function BulkUploadPanel({ studyId }: { studyId: string }) {
         </Typography.Paragraph>
         <Upload.Dragger
           multiple
-          accept=".edf,.rec,.csv"
+          accept=".edf,.bdf,.rec,.csv"
           fileList={dropped}
           beforeUpload={() => false}
           onChange={({ fileList }) => setDropped(fileList)}
@@ -177,13 +177,13 @@ export function BulkUploadPanel({ studyId }: { studyId: string }) {
         </Flex>
         {busy !== null && <Progress percent={percent} size="small" aria-label="Sending" />}
         {problem !== null && <Alert type="error" showIcon title={problem} />}
-        {current !== null && <ReportView report={current} />}
+        {current !== null && <BulkReportSummary report={current} />}
       </Flex>
     </Card>
   );
 }
 
-function ReportView({ report }: { report: BulkUploadReport }) {
+function BulkReportSummary({ report }: { report: BulkUploadReport }) {
   const { summary } = report;
   const counts = `${summary.rows} rows: ${summary.ok} ready, ${summary.warnings} with a warning, ${summary.errors} with an error; ${summary.newVisits} new visit${summary.newVisits === 1 ? '' : 's'}.`;
   const failed = summary.errors > 0 || report.strayFiles.length > 0;

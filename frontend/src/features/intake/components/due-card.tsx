@@ -77,7 +77,7 @@ export function DueCard({
                         >
                           {dueText(item)}
                         </Tag>
-                        <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+                        <Typography.Text type="secondary" className="gyre-caption">
                           window {formatDate(item.opens)} – {formatDate(item.closes)}
                         </Typography.Text>
                       </Space>

@@ -1,4 +1,4 @@
-import type { RecordingDto, RecordingEvent } from '@gyre/shared';
+import type { RecordingView, RecordingEvent } from '@gyre/shared';
 import { act, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
@@ -27,7 +27,7 @@ const visit2 = { ...visit, id: 'v-2', label: 'V2', visitDate: '2025-05-05' };
 // Whole screens render slowly in jsdom on a shared 2-core machine.
 describe('Intake, live', { timeout: 90_000 }, () => {
   it("shows exactly the chosen visit's recordings, never the previous visit's while the next loads", async () => {
-    const byVisit: Record<string, RecordingDto[]> = {
+    const byVisit: Record<string, RecordingView[]> = {
       'v-1': [recording({ id: 'r-a', fileName: 'first-visit-rest.edf' })],
       'v-2': [recording({ id: 'r-b', visitId: 'v-2', fileName: 'second-visit-rest.edf' })],
     };

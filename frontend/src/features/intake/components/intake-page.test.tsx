@@ -224,7 +224,9 @@ describe('Intake', { timeout: 60_000 }, () => {
       target: { files: [new File(['a,b'], 'onsets.xlsx')] },
     });
     expect(
-      await screen.findByText('onsets.xlsx is not an EDF or EDF+ file, so it was not sent.'),
+      await screen.findByText(
+        'onsets.xlsx is not an EDF, EDF+, BDF or BDF+ file, so it was not sent.',
+      ),
     ).toBeInTheDocument();
   });
 

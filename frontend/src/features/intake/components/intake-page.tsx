@@ -18,6 +18,7 @@ import { useDue } from '../api/due';
 import { useParticipants } from '../api/participants';
 import { useGroups, usePlannedVisits } from '../api/study-schedule';
 import { useVisits } from '../api/visits';
+import { BidsImportPanel } from './bids-import-panel';
 import { BulkUploadPanel } from './bulk-upload-panel';
 import { DueCard } from './due-card';
 import { NewParticipantForm } from './new-participant-form';
@@ -95,7 +96,7 @@ export function IntakePage() {
         title="Intake"
         description="Register a visit, upload its resting and task recordings, and follow their checks."
       />
-      <Space orientation="vertical" size={16} style={{ width: '100%' }}>
+      <Space orientation="vertical" size={16} className="gyre-fill-width">
         {/* Intake shows computed states and quality warnings: research use, not diagnosis. */}
         <ResearchCaution />
         {studyId !== null && (
@@ -126,7 +127,7 @@ export function IntakePage() {
                     value={participant?.id}
                     onChange={(id: string) => choose({ participant: id, visit: null })}
                     options={participants.data.items.map((p) => ({ value: p.id, label: p.code }))}
-                    style={{ width: '100%' }}
+                    className="gyre-fill-width"
                   />
                 </Form.Item>
                 {participant !== null && (
@@ -185,7 +186,7 @@ export function IntakePage() {
                           ? `${v.label} · ${formatDate(v.visitDate)} · ${visitWindowText(v.schedule)}`
                           : `${v.label} · ${formatDate(v.visitDate)}`,
                     }))}
-                    style={{ width: '100%' }}
+                    className="gyre-fill-width"
                   />
                 </Form.Item>
                 {visit !== null && (
@@ -230,6 +231,9 @@ export function IntakePage() {
         )}
         {studyId !== null && ability.can('upload', 'Recording') && (
           <BulkUploadPanel studyId={studyId} />
+        )}
+        {studyId !== null && ability.can('upload', 'Recording') && (
+          <BidsImportPanel studyId={studyId} />
         )}
       </Space>
       {participant !== null && (

@@ -1,9 +1,8 @@
 import { visitScheduleStatus, type PlannedVisitView, type VisitView } from '@gyre/shared';
-import { DatePicker, Form, Input, Modal, Select, Space, Typography } from 'antd';
+import { DatePicker, Form, Input, Select, Space, Typography } from 'antd';
 import dayjs, { type Dayjs } from 'dayjs';
-import { useState } from 'react';
+import { ModalForm } from '../../../components/modal-form';
 import { studyDayText, VisitWindowTag } from '../../../components/visit-window-tag';
-import { ApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../lib/format';
 import { useCreateVisit, type CreateVisitBody } from '../api/create-visit';
 
@@ -49,8 +48,6 @@ export function NewVisitForm({
 }) {
   const [form] = Form.useForm<Values>();
   const createVisit = useCreateVisit();
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
   const pick = Form.useWatch('plannedVisit', form);
   const date = Form.useWatch('visitDate', form);
   const hasSchedule = schedule.length > 0;
@@ -69,8 +66,6 @@ export function NewVisitForm({
       : null;
 
   const submit = async (values: Values) => {
-    setBusy(true);
-    setError(null);
     const visitDate = (values.visitDate as Dayjs).format('YYYY-MM-DD');
     const body: CreateVisitBody =
       values.plannedVisit !== undefined && values.plannedVisit !== UNSCHEDULED
@@ -81,122 +76,109 @@ export function NewVisitForm({
             label: (values.label ?? '').trim(),
             visitDate,
           };
-    try {
-      const visit = await createVisit(body);
-      form.resetFields();
-      onCreated(visit);
-    } catch (caught) {
-      setError(caught instanceof ApiError ? caught.message : 'The visit could not be saved.');
-    } finally {
-      setBusy(false);
-    }
+    const visit = await createVisit(body);
+    form.resetFields();
+    onCreated(visit);
   };
 
   return (
-    <Modal
+    <ModalForm<Values>
       open={open}
+      form={form}
       title={`New visit for ${participantCode}`}
       okText="Register visit"
-      onOk={() => form.submit()}
-      okButtonProps={{ loading: busy }}
-      onCancel={onClose}
-      destroyOnHidden
+      failureText="The visit could not be saved."
+      onSubmit={submit}
+      onClose={onClose}
     >
-      <Form<Values> form={form} layout="vertical" requiredMark={false} onFinish={submit}>
-        {hasSchedule && (
-          <Form.Item
-            label="Planned visit"
-            name="plannedVisit"
-            extra="The visit of the study's schedule this is. Each planned visit happens once per participant."
-            rules={[{ required: true, message: 'Choose the planned visit, or "Unscheduled".' }]}
-          >
-            <Select
-              autoFocus
-              placeholder="Choose a planned visit"
-              options={[
-                ...schedule.map((p) => {
-                  const taken = done.get(p.id);
-                  return {
-                    value: p.id,
-                    disabled: taken !== undefined,
-                    label:
-                      taken === undefined
-                        ? `${p.name} · ${windowWords(p)}`
-                        : `${p.name} · done on ${formatDate(taken.visitDate)}`,
-                  };
-                }),
-                { value: UNSCHEDULED, label: 'Unscheduled visit (outside the schedule)' },
-              ]}
-            />
-          </Form.Item>
-        )}
-        {needsLabel && (
-          <Form.Item
-            label="Visit label"
-            name="label"
-            extra={
-              hasSchedule
-                ? 'A name for this extra visit, e.g. "Repeat rest".'
-                : 'As your protocol names it, e.g. V1, V2, Month 6.'
-            }
-            rules={[
-              { required: true, whitespace: true, message: 'Give the visit a label.' },
-              { max: 40, message: 'A label has at most 40 characters.' },
-              {
-                validator: async (_rule, value: unknown) => {
-                  if (typeof value !== 'string') return;
-                  const wanted = value.trim().toLowerCase();
-                  if (visits.some((v) => v.label.toLowerCase() === wanted)) {
-                    throw new Error(
-                      `${participantCode} already has a visit labelled ${value.trim()}.`,
-                    );
-                  }
-                },
-              },
-            ]}
-          >
-            <Input autoFocus={!hasSchedule} />
-          </Form.Item>
-        )}
+      {hasSchedule && (
         <Form.Item
-          label="Visit date"
-          name="visitDate"
+          label="Planned visit"
+          name="plannedVisit"
+          extra="The visit of the study's schedule this is. Each planned visit happens once per participant."
+          rules={[{ required: true, message: 'Choose the planned visit, or "Unscheduled".' }]}
+        >
+          <Select
+            autoFocus
+            placeholder="Choose a planned visit"
+            options={[
+              ...schedule.map((p) => {
+                const taken = done.get(p.id);
+                return {
+                  value: p.id,
+                  disabled: taken !== undefined,
+                  label:
+                    taken === undefined
+                      ? `${p.name} · ${windowWords(p)}`
+                      : `${p.name} · done on ${formatDate(taken.visitDate)}`,
+                };
+              }),
+              { value: UNSCHEDULED, label: 'Unscheduled visit (outside the schedule)' },
+            ]}
+          />
+        </Form.Item>
+      )}
+      {needsLabel && (
+        <Form.Item
+          label="Visit label"
+          name="label"
+          extra={
+            hasSchedule
+              ? 'A name for this extra visit, e.g. "Repeat rest".'
+              : 'As your protocol names it, e.g. V1, V2, Month 6.'
+          }
           rules={[
-            { required: true, message: 'Choose the date of the visit.' },
+            { required: true, whitespace: true, message: 'Give the visit a label.' },
+            { max: 40, message: 'A label has at most 40 characters.' },
             {
               validator: async (_rule, value: unknown) => {
-                if (dayjs.isDayjs(value) && value.isAfter(dayjs(), 'day')) {
-                  throw new Error('The visit date cannot be in the future.');
+                if (typeof value !== 'string') return;
+                const wanted = value.trim().toLowerCase();
+                if (visits.some((v) => v.label.toLowerCase() === wanted)) {
+                  throw new Error(
+                    `${participantCode} already has a visit labelled ${value.trim()}.`,
+                  );
                 }
               },
             },
           ]}
         >
-          <DatePicker
-            format="D MMM YYYY"
-            disabledDate={(d) => d.isAfter(dayjs(), 'day')}
-            style={{ width: '100%' }}
-          />
+          <Input autoFocus={!hasSchedule} />
         </Form.Item>
-        {status !== null && (
-          <div role="status" aria-label="Window status" style={{ marginBottom: 16 }}>
-            <Space wrap size={8}>
-              <VisitWindowTag schedule={status} />
-              <Typography.Text type="secondary">{studyDayText(status)}</Typography.Text>
-            </Space>
-            {(status.window === 'early' || status.window === 'late') && (
-              <Typography.Paragraph type="secondary" style={{ margin: '8px 0 0' }}>
-                The visit can still be registered; it is marked as outside its window.
-              </Typography.Paragraph>
-            )}
-          </div>
-        )}
-        {error !== null && (
-          <Typography.Paragraph type="danger" role="alert">
-            {error}
-          </Typography.Paragraph>
-        )}
-      </Form>
-    </Modal>
+      )}
+      <Form.Item
+        label="Visit date"
+        name="visitDate"
+        rules={[
+          { required: true, message: 'Choose the date of the visit.' },
+          {
+            validator: async (_rule, value: unknown) => {
+              if (dayjs.isDayjs(value) && value.isAfter(dayjs(), 'day')) {
+                throw new Error('The visit date cannot be in the future.');
+              }
+            },
+          },
+        ]}
+      >
+        <DatePicker
+          format="D MMM YYYY"
+          disabledDate={(d) => d.isAfter(dayjs(), 'day')}
+          className="gyre-fill-width"
+        />
+      </Form.Item>
+      {status !== null && (
+        <div role="status" aria-label="Window status" style={{ marginBottom: 16 }}>
+          <Space wrap size={8}>
+            <VisitWindowTag schedule={status} />
+            <Typography.Text type="secondary">{studyDayText(status)}</Typography.Text>
+          </Space>
+          {(status.window === 'early' || status.window === 'late') && (
+            <Typography.Paragraph type="secondary" style={{ margin: '8px 0 0' }}>
+              The visit can still be registered; it is marked as outside its window.
+            </Typography.Paragraph>
+          )}
+        </div>
+      )}
+    </ModalForm>
   );
 }

@@ -30,7 +30,7 @@ export function ParticipantScheduleFields({
         <DatePicker
           format="D MMM YYYY"
           disabledDate={(d) => d.isAfter(dayjs(), 'day')}
-          style={{ width: '100%' }}
+          className="gyre-fill-width"
         />
       </Form.Item>
       {groups.length > 0 && (

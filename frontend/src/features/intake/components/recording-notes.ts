@@ -1,4 +1,4 @@
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { NO_ROI_CHANNEL_REMAINS, roiUsageSentence } from '../../../lib/roi-usage';
 
 /**
@@ -6,7 +6,7 @@ import { NO_ROI_CHANNEL_REMAINS, roiUsageSentence } from '../../../lib/roi-usage
  * room: the server's standing warnings, the reader's, and the region-of-interest usage of the
  * latest run (in the words Review uses), each once.
  */
-export function recordingNotes(recording: RecordingDto): string[] {
+export function recordingNotes(recording: RecordingView): string[] {
   const notes: string[] = [];
   const usage = recording.roiUsage;
   const serverNotes = [...recording.warnings, ...(recording.facts?.warnings ?? [])];
@@ -22,6 +22,6 @@ export function recordingNotes(recording: RecordingDto): string[] {
   return notes;
 }
 
-export function hasStandingWarnings(recording: RecordingDto): boolean {
+export function hasStandingWarnings(recording: RecordingView): boolean {
   return recordingNotes(recording).length > 0;
 }

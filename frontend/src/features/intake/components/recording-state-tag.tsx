@@ -1,4 +1,4 @@
-import type { RecordingDto, RecordingState } from '@gyre/shared';
+import type { RecordingView, RecordingState } from '@gyre/shared';
 import { Tag } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
 import { hasStandingWarnings } from './recording-notes';
@@ -15,7 +15,7 @@ const LOOK: Record<RecordingState, { label: string; color: string }> = {
 };
 
 /** The state in one word; a ready recording with something to say is "ready with warnings". */
-export function RecordingStateTag({ recording }: { recording: RecordingDto }) {
+export function RecordingStateTag({ recording }: { recording: RecordingView }) {
   if (recording.state === 'ready' && hasStandingWarnings(recording)) {
     return (
       <Tag color={GYRE_COLORS.amber} data-state="ready-with-warnings">

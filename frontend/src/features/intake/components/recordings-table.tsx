@@ -1,4 +1,4 @@
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { App, Button, Card, Flex, Grid, Progress, Table, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
@@ -15,7 +15,7 @@ import { RecordingStateTag } from './recording-state-tag';
 import { RejectionText } from './rejection-text';
 
 /** States whose stored file can be downloaded (a rejected file is not kept). */
-const DOWNLOADABLE: ReadonlySet<RecordingDto['state']> = new Set([
+const DOWNLOADABLE: ReadonlySet<RecordingView['state']> = new Set([
   'queued',
   'computing',
   'ready',
@@ -24,7 +24,7 @@ const DOWNLOADABLE: ReadonlySet<RecordingDto['state']> = new Set([
 ]);
 
 /** The name the technician's file had; older recordings were stored without it. */
-function FileName({ recording }: { recording: RecordingDto }) {
+function FileName({ recording }: { recording: RecordingView }) {
   return recording.fileName === null ? (
     <Typography.Text type="secondary" italic>
       File name not kept
@@ -36,7 +36,7 @@ function FileName({ recording }: { recording: RecordingDto }) {
   );
 }
 
-function FileFacts({ recording }: { recording: RecordingDto }) {
+function FileFacts({ recording }: { recording: RecordingView }) {
   const facts = recording.facts;
   if (facts === null) {
     return <Typography.Text type="secondary">{formatBytes(recording.sizeBytes)}</Typography.Text>;
@@ -55,7 +55,7 @@ function FileFacts({ recording }: { recording: RecordingDto }) {
 }
 
 /** The standing warnings, always in view: the participant may still be in the room. */
-function Notes({ recording }: { recording: RecordingDto }) {
+function Notes({ recording }: { recording: RecordingView }) {
   const notes = recordingNotes(recording);
   if (notes.length === 0) return null;
   return (
@@ -70,7 +70,7 @@ function Notes({ recording }: { recording: RecordingDto }) {
   );
 }
 
-function Replacement({ recording, all }: { recording: RecordingDto; all: RecordingDto[] }) {
+function Replacement({ recording, all }: { recording: RecordingView; all: RecordingView[] }) {
   if (recording.state === 'superseded') {
     const newer = all.find((r) => r.id === recording.supersededById) ?? null;
     return (
@@ -106,7 +106,7 @@ function Replacement({ recording, all }: { recording: RecordingDto; all: Recordi
   );
 }
 
-function Progression({ recording, all }: { recording: RecordingDto; all: RecordingDto[] }) {
+function Progression({ recording, all }: { recording: RecordingView; all: RecordingView[] }) {
   let main: React.ReactNode = null;
   if (recording.state === 'queued') {
     main = (
@@ -173,7 +173,7 @@ export function RecordingsTable({
   // Below `lg` the upload time moves under the kind, so a narrow screen still tells them apart.
   const wide = screens.lg === true;
 
-  const startDownload = async (recording: RecordingDto) => {
+  const startDownload = async (recording: RecordingView) => {
     setDownloading(recording.id);
     try {
       await download(recording);
@@ -186,7 +186,7 @@ export function RecordingsTable({
     }
   };
 
-  const actions = (recording: RecordingDto, direction: 'row' | 'column') => (
+  const actions = (recording: RecordingView, direction: 'row' | 'column') => (
     <Flex vertical={direction === 'column'} gap={6} align="flex-start">
       {DOWNLOADABLE.has(recording.state) && (
         <Button
@@ -224,7 +224,7 @@ export function RecordingsTable({
     </Flex>
   );
 
-  const kindAndState = (recording: RecordingDto) => (
+  const kindAndState = (recording: RecordingView) => (
     <>
       <Typography.Text strong style={{ color: 'inherit' }}>
         {KIND_LABELS[recording.kind]}
@@ -234,7 +234,7 @@ export function RecordingsTable({
   );
 
   // A phone gets one column per recording, its words at full width; wider screens a table.
-  const columns: TableColumnsType<RecordingDto> =
+  const columns: TableColumnsType<RecordingView> =
     screens.md === false
       ? [
           {
@@ -249,7 +249,7 @@ export function RecordingsTable({
                   {actions(recording, 'row')}
                 </Flex>
                 <FileName recording={recording} />
-                <Typography.Text type="secondary" className="gyre-figures" style={{ fontSize: 12 }}>
+                <Typography.Text type="secondary" className="gyre-figures gyre-caption">
                   Uploaded {formatDateTime(recording.createdAt)}
                 </Typography.Text>
                 <Progression recording={recording} all={all} />
@@ -266,11 +266,7 @@ export function RecordingsTable({
               <Flex vertical gap={4} align="flex-start">
                 {kindAndState(recording)}
                 {!wide && (
-                  <Typography.Text
-                    type="secondary"
-                    className="gyre-figures"
-                    style={{ fontSize: 12 }}
-                  >
+                  <Typography.Text type="secondary" className="gyre-figures gyre-caption">
                     {formatDateTime(recording.createdAt)}
                   </Typography.Text>
                 )}
@@ -317,7 +313,7 @@ export function RecordingsTable({
           title="The recordings could not be loaded"
         />
       ) : (
-        <Table<RecordingDto>
+        <Table<RecordingView>
           rowKey="id"
           size={wide ? 'middle' : 'small'}
           loading={isLoading && data !== undefined}

@@ -28,7 +28,7 @@ export function RejectionText({
       </Typography.Text>
       <details style={{ marginTop: 4, fontSize: 12 }}>
         <summary>
-          <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+          <Typography.Text type="secondary" className="gyre-caption">
             Details from the file check
           </Typography.Text>
         </summary>

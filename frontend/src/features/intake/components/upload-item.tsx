@@ -1,7 +1,7 @@
 import type {
   KindMismatchDetails,
   KindTakenDetails,
-  RecordingDto,
+  RecordingView,
   RecordingKind,
   RecordingRejection,
 } from '@gyre/shared';
@@ -73,7 +73,7 @@ function KindMismatch({ item, onResend }: { item: UploadItem; onResend: Resend }
         </Typography.Text>
         <Typography.Text>{plainSentence(item.message ?? '')}</Typography.Text>
         <br />
-        <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+        <Typography.Text type="secondary" className="gyre-caption">
           Chosen: {lower(item.kind)} · found {mismatch.found} · expected {mismatch.expected}
         </Typography.Text>
       </div>
@@ -196,7 +196,7 @@ function KindTaken({
 }
 
 /** An accepted upload's recording as it goes on: queued, computing (with percent), then done. */
-function AcceptedState({ item, recording }: { item: UploadItem; recording?: RecordingDto }) {
+function AcceptedState({ item, recording }: { item: UploadItem; recording?: RecordingView }) {
   const notes = recording === undefined ? [] : recordingNotes(recording);
   let now: React.ReactNode = null;
   if (recording?.state === 'queued') {
@@ -268,7 +268,7 @@ export function UploadItemView({
   onResend: Resend;
   onDismiss: () => void;
   /** The recording made of this upload, as the screen follows it live. */
-  recording?: RecordingDto;
+  recording?: RecordingView;
   /** Takes a refused upload off the list (and its rejected recording off the view). */
   onClear: () => void;
 }) {

@@ -1,4 +1,4 @@
-import type { Page, RecordingDto, RecordingEvent, RecordingState } from '@gyre/shared';
+import type { Page, RecordingView, RecordingEvent, RecordingState } from '@gyre/shared';
 import { useEffect, useMemo, useState } from 'react';
 import { useSWRConfig } from 'swr';
 import { followRecording } from '../api/recording-events';
@@ -15,7 +15,7 @@ export const MAX_STREAMS = 3;
 export type LiveMode = 'idle' | 'stream' | 'polling';
 
 /** A recording as the list gave it, with the newest state and progress the stream sent. */
-function withLiveState(recording: RecordingDto, event: RecordingEvent | undefined): RecordingDto {
+function withLiveState(recording: RecordingView, event: RecordingEvent | undefined): RecordingView {
   // A settled row is the server's last word; the stream only runs ahead of unsettled ones.
   if (event === undefined || isSettled(recording.state)) return recording;
   return {
@@ -95,7 +95,7 @@ export function useLiveRecordings(visitId: string) {
     if (polling) void mutate();
   }, [polling, mutate]);
 
-  const data = useMemo<Page<RecordingDto> | undefined>(
+  const data = useMemo<Page<RecordingView> | undefined>(
     () =>
       list.data === undefined
         ? undefined

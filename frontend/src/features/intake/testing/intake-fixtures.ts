@@ -3,7 +3,7 @@ import type {
   Page,
   ParticipantView,
   PlannedVisitView,
-  RecordingDto,
+  RecordingView,
   StudyGroupView,
   VisitView,
 } from '@gyre/shared';
@@ -94,7 +94,7 @@ export const page = <T>(items: T[]): Page<T> => ({
   pageSize: 200,
 });
 
-export function recording(change: Partial<RecordingDto>): RecordingDto {
+export function recording(change: Partial<RecordingView>): RecordingView {
   return {
     id: 'r-1',
     studyId: STUDY.id,
@@ -134,7 +134,7 @@ export const NOTHING_DUE: DueListView = {
 
 /** The participant, the visit and the recordings `recordings()` answers at each ask. */
 export function useIntakeHandlers(
-  recordings: () => RecordingDto[],
+  recordings: () => RecordingView[],
   due: DueListView = NOTHING_DUE,
 ) {
   server.use(

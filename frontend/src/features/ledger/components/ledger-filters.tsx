@@ -160,7 +160,7 @@ export function LedgerFilters({
             id="ledger-from"
             aria-label="From date"
             format="D MMM YYYY"
-            style={{ width: '100%' }}
+            className="gyre-fill-width"
             value={filters.from !== undefined ? dayjs(filters.from) : null}
             onChange={(date) => set({ from: date ? date.startOf('day').toISOString() : undefined })}
           />
@@ -170,7 +170,7 @@ export function LedgerFilters({
             id="ledger-to"
             aria-label="To date"
             format="D MMM YYYY"
-            style={{ width: '100%' }}
+            className="gyre-fill-width"
             value={filters.to !== undefined ? dayjs(filters.to) : null}
             onChange={(date) => set({ to: date ? date.endOf('day').toISOString() : undefined })}
           />

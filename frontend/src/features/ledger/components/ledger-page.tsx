@@ -35,6 +35,8 @@ function screenOpener(ability: AppAbility): (screen: LedgerScreen) => boolean {
         return ability.can('update', 'User');
       case 'studySetup':
         return ability.can('update', 'PlannedVisit');
+      case 'siteCheck':
+        return ability.can('read', 'Calibration');
     }
   };
 }

@@ -49,6 +49,28 @@ describe('entrySentence', () => {
     expect(sentence.target).toEqual({ label: 'A1-0001 · V2', to: '/review/v-1' });
   });
 
+  it("reads a calibration run's start and outcome with the site, linked to Site check", () => {
+    const start = entrySentence(
+      entry({ action: 'start', objectType: 'Calibration', after: { siteCode: 'NORTH' } }),
+      everywhere,
+    );
+    expect(sentenceText(start)).toBe('Ana Lyst started a calibration run of site NORTH');
+    expect(start.target).toEqual({ label: 'site NORTH', to: '/site-check' });
+    const failed = entrySentence(
+      entry({
+        action: 'fail',
+        objectType: 'Calibration',
+        actorId: null,
+        actorEmail: null,
+        after: { siteCode: 'NORTH', error: 'The computation failed: stored file changed' },
+      }),
+      everywhere,
+    );
+    expect(sentenceText(failed)).toBe(
+      'The system found the calibration run failed for site NORTH: The computation failed: stored file changed',
+    );
+  });
+
   it('does not link where the viewer may not go', () => {
     const sentence = entrySentence(entry({ action: 'raise', objectType: 'Flag' }), () => false);
     expect(sentence.target?.to).toBeNull();

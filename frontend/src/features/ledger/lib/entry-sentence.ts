@@ -3,7 +3,8 @@ import { paths } from '../../../app/paths';
 import { changedFields } from './entry-diff';
 
 /** Screens an entry can link to; the page says which of them the viewer may open. */
-export type LedgerScreen = 'review' | 'participant' | 'studySettings' | 'team' | 'studySetup';
+export type LedgerScreen =
+  'review' | 'participant' | 'studySettings' | 'team' | 'studySetup' | 'siteCheck';
 
 /** An entry as one sentence: "‹actor› ‹text› ‹target›: ‹detail›". */
 export interface EntrySentence {
@@ -94,6 +95,13 @@ const USER_PHRASES: Record<string, string> = {
   create: 'created the account of',
   update: 'changed the account of',
   'role-change': 'changed the role of',
+};
+
+/** A site's calibration run (calibration/): started by a person, judged by the system. */
+const CALIBRATION_PHRASES: Record<string, string> = {
+  start: 'started a calibration run of',
+  pass: 'found the calibration run passed for',
+  fail: 'found the calibration run failed for',
 };
 
 const SETUP_NOUNS: Record<string, string> = {
@@ -241,6 +249,21 @@ export function entrySentence(
       if (entry.action === 'create') return sentence('created a worker token', null);
       if (entry.action === 'revoke') return sentence('revoked a worker token', null);
       break;
+    case 'Calibration': {
+      const phrase = CALIBRATION_PHRASES[entry.action];
+      if (phrase !== undefined) {
+        const code = text(field(entry.after, 'siteCode'));
+        return sentence(
+          phrase,
+          {
+            label: code === null ? 'a site' : `site ${code}`,
+            to: link('siteCheck', paths.siteCheck),
+          },
+          text(field(entry.after, 'error')),
+        );
+      }
+      break;
+    }
     case 'AuditEntry':
       if (entry.action === 'export') {
         return sentence(

@@ -1,4 +1,4 @@
-import type { TrajectoryDto } from '@gyre/shared';
+import type { TrajectoryView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch } from '../../../lib/api-client';
 
@@ -6,10 +6,10 @@ import { apiFetch } from '../../../lib/api-client';
 export const trajectoryKey = (participantId: string) =>
   `/api/participants/${encodeURIComponent(participantId)}/trajectory`;
 
-export function getTrajectory(participantId: string): Promise<TrajectoryDto> {
-  return apiFetch<TrajectoryDto>(trajectoryKey(participantId));
+export function getTrajectory(participantId: string): Promise<TrajectoryView> {
+  return apiFetch<TrajectoryView>(trajectoryKey(participantId));
 }
 
 export function useTrajectory(participantId: string) {
-  return useSWR<TrajectoryDto>(trajectoryKey(participantId), () => getTrajectory(participantId));
+  return useSWR<TrajectoryView>(trajectoryKey(participantId), () => getTrajectory(participantId));
 }

@@ -23,9 +23,9 @@ export function LatestCell({
 }) {
   if (value === null) return <span aria-label="no value">{NO_VALUE}</span>;
   return (
-    <span className="gyre-figures" style={{ whiteSpace: 'nowrap' }}>
+    <span className="gyre-figures gyre-nowrap">
       {format(value.hz)}{' '}
-      <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+      <Typography.Text type="secondary" className="gyre-caption">
         ({value.visitLabel})
       </Typography.Text>
     </span>

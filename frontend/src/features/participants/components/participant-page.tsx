@@ -1,6 +1,6 @@
 import type {
-  TrajectoryDto,
-  TrajectoryVisitDto,
+  TrajectoryView,
+  TrajectoryVisitView,
   VisitScheduleStatus,
   VisitView,
 } from '@gyre/shared';
@@ -26,11 +26,11 @@ export interface VisitRow {
   date: string;
   /** Null for a visit the trajectory knows but the visit list did not return. */
   schedule: VisitScheduleStatus | null;
-  numbers: TrajectoryVisitDto | null;
+  numbers: TrajectoryVisitView | null;
 }
 
 /** Every visit, with the trajectory's numbers where the visit has results. */
-export function visitRows(visits: VisitView[], trajectory: TrajectoryVisitDto[]): VisitRow[] {
+export function visitRows(visits: VisitView[], trajectory: TrajectoryVisitView[]): VisitRow[] {
   const byId = new Map(trajectory.map((t) => [t.visitId, t]));
   const rows: VisitRow[] = visits.map((v) => ({
     visitId: v.id,
@@ -150,7 +150,7 @@ export function ParticipantPage() {
               className="gyre-figures"
               column={{ xs: 1, md: 3 }}
               items={(['paf', 'cog', 'deltaF'] as const).map((key) => {
-                const data = trajectory.data as TrajectoryDto;
+                const data = trajectory.data as TrajectoryView;
                 return {
                   key,
                   label: `${key === 'paf' ? 'PAF' : key === 'cog' ? 'CoG' : 'Δf'} trend (Theil–Sen)`,
@@ -197,7 +197,7 @@ export function ParticipantPage() {
                 ) : (
                   <Space orientation="vertical" size={2}>
                     <VisitWindowTag schedule={row.schedule} />
-                    <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+                    <Typography.Text type="secondary" className="gyre-caption">
                       {studyDayText(row.schedule)}
                     </Typography.Text>
                   </Space>

@@ -1,4 +1,4 @@
-import type { TrajectoryDto, TrendDto } from '@gyre/shared';
+import type { TrajectoryView, TrendView } from '@gyre/shared';
 import { Col, Row, Typography } from 'antd';
 import { useCallback } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
@@ -14,7 +14,7 @@ const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one :
  * A trend in words: the slope when the study's rule allows one, else why there is none
  * (too few visits with a value, or too short a span), with the actual count or span.
  */
-export function trendText(trend: TrendDto, rule: TrajectoryDto['trendRule']): string {
+export function trendText(trend: TrendView, rule: TrajectoryView['trendRule']): string {
   if (trend.slopeHzPerYear !== null) {
     return `${formatSlopeHzPerYear(trend.slopeHzPerYear)} over ${plural(trend.visits, 'visit', 'visits')} (${plural(trend.spanDays, 'day', 'days')})`;
   }
@@ -44,7 +44,7 @@ function Key({ colour, text, dashed = false }: { colour: string; text: string; d
 }
 
 /** Two panels: resting PAF and CoG, and the task's onset Δf, across the visit dates. */
-export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryDto }) {
+export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryView }) {
   const alpha = useCallback(
     (widthPx: number) => alphaFrequencySpec(trajectory, { widthPx, heightPx: CHART_HEIGHT_PX }),
     [trajectory],

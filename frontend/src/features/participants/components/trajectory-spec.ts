@@ -3,8 +3,8 @@ import {
   formatUtcDay,
   linearAxis,
   MIN_AXIS_SPAN_HZ,
-  type TrajectoryDto,
-  type TrajectoryVisitDto,
+  type TrajectoryView,
+  type TrajectoryVisitView,
 } from '@gyre/shared';
 import { CHART_PALETTE, GYRE_COLORS } from '../../../app/theme';
 import {
@@ -37,7 +37,7 @@ export interface TrajectoryPoint {
   flagged: boolean;
 }
 
-const PICK: Record<TrajectorySeries, (v: TrajectoryVisitDto) => number | null> = {
+const PICK: Record<TrajectorySeries, (v: TrajectoryVisitView) => number | null> = {
   PAF: (v) => v.pafHz,
   CoG: (v) => v.cogHz,
   Δf: (v) => v.deltaFHz,
@@ -53,7 +53,7 @@ export function visitDateMs(date: string): number {
 
 /** The visits where a series has a value, on a millisecond time axis (UTC). */
 export function seriesPoints(
-  visits: TrajectoryVisitDto[],
+  visits: TrajectoryVisitView[],
   series: TrajectorySeries,
 ): TrajectoryPoint[] {
   return visits.flatMap((visit) => {
@@ -121,7 +121,7 @@ function seriesMarks(points: TrajectoryPoint[], slopeHzPerYear: number | null): 
   return marks;
 }
 
-function flaggedMarks(visits: TrajectoryVisitDto[]): MarkSpec[] {
+function flaggedMarks(visits: TrajectoryVisitView[]): MarkSpec[] {
   const flagged = visits.filter((v) => v.flagged).map((v) => new Date(visitDateMs(v.date)));
   if (flagged.length === 0) return [];
   return [
@@ -137,7 +137,7 @@ function flaggedMarks(visits: TrajectoryVisitDto[]): MarkSpec[] {
   ];
 }
 
-function timeDomain(visits: TrajectoryVisitDto[]): [number, number] {
+function timeDomain(visits: TrajectoryVisitView[]): [number, number] {
   const times = visits.map((v) => visitDateMs(v.date));
   const first = Math.min(...times);
   const last = Math.max(...times);
@@ -164,7 +164,7 @@ function panelValues(marks: MarkSpec[]): number[] {
  * name each month or year once, and Hz at a nice step with distinct labels.
  */
 function view(
-  visits: TrajectoryVisitDto[],
+  visits: TrajectoryVisitView[],
   yTitle: string,
   children: MarkSpec[],
   size: ChartSize,
@@ -200,7 +200,7 @@ const DEFAULT_SIZE: ChartSize = { widthPx: 640, heightPx: 280 };
 
 /** PAF and CoG over the visit dates, with their Theil–Sen trends and flagged visits marked. */
 export function alphaFrequencySpec(
-  trajectory: TrajectoryDto,
+  trajectory: TrajectoryView,
   size: ChartSize = DEFAULT_SIZE,
 ): PlotSpec {
   const { visits, slopesHzPerYear } = trajectory;
@@ -218,7 +218,7 @@ export function alphaFrequencySpec(
 
 /** Task Δf over the visit dates with the zero line (below zero = slowing after onset). */
 export function onsetChangeSpec(
-  trajectory: TrajectoryDto,
+  trajectory: TrajectoryView,
   size: ChartSize = DEFAULT_SIZE,
 ): PlotSpec {
   const { visits, slopesHzPerYear } = trajectory;

@@ -2,7 +2,7 @@ import {
   visitScheduleStatus,
   type PlannedVisitWindow,
   type StudyGroupView,
-  type TrajectoryDto,
+  type TrajectoryView,
   type ParticipantListItem,
   type ParticipantView,
   type VisitView,
@@ -131,7 +131,7 @@ export const VISITS: VisitView[] = [
   visit('v-3', 'Month 12', '2025-01-15'),
 ];
 
-export const TRAJECTORY: TrajectoryDto = {
+export const TRAJECTORY: TrajectoryView = {
   participantId: PARTICIPANT.id,
   visits: [
     {
@@ -172,7 +172,7 @@ export const TRAJECTORY: TrajectoryDto = {
 };
 
 /** The same two visits under the default rule (3 visits over 90 days): no slope, and why. */
-export const TRAJECTORY_TOO_FEW: TrajectoryDto = {
+export const TRAJECTORY_TOO_FEW: TrajectoryView = {
   ...TRAJECTORY,
   trendRule: { minVisits: 3, minSpanDays: 90 },
   trends: {

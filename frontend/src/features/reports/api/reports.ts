@@ -1,4 +1,4 @@
-import type { Page, ReportDto, ReportState } from '@gyre/shared';
+import type { Page, ReportView, ReportState } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
 
@@ -7,12 +7,12 @@ export function reportsKey(state: ReportState | null, page: number, pageSize: nu
   return withQuery('/api/reports', { state, page, pageSize, sort: 'updatedAt', order: 'desc' });
 }
 
-export function getReports(key: string): Promise<Page<ReportDto>> {
-  return apiFetch<Page<ReportDto>>(key);
+export function getReports(key: string): Promise<Page<ReportView>> {
+  return apiFetch<Page<ReportView>>(key);
 }
 
 export function useReports(state: ReportState | null, page: number, pageSize: number) {
-  return useSWR<Page<ReportDto>>(reportsKey(state, page, pageSize), getReports, {
+  return useSWR<Page<ReportView>>(reportsKey(state, page, pageSize), getReports, {
     keepPreviousData: true,
   });
 }

@@ -1,4 +1,4 @@
-import type { Page, ReportDto } from '@gyre/shared';
+import type { Page, ReportView } from '@gyre/shared';
 import { screen, within } from '@testing-library/react';
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it } from 'vitest';
@@ -10,7 +10,7 @@ import { renderApp } from '../../../test/render-app';
 installMswServer();
 
 // Generated test data.
-const report = (id: string, state: ReportDto['state']): ReportDto => ({
+const report = (id: string, state: ReportView['state']): ReportView => ({
   id,
   visitId: `visit-${id}`,
   participantId: 'p-1',
@@ -21,7 +21,7 @@ const report = (id: string, state: ReportDto['state']): ReportDto => ({
 });
 const page = <T,>(items: T[]): Page<T> => ({ items, total: items.length, page: 1, pageSize: 200 });
 
-function handlers(reports: ReportDto[]) {
+function handlers(reports: ReportView[]) {
   server.use(
     http.get('/api/reports', () => HttpResponse.json(page(reports))),
     http.get('/api/participants', () =>

@@ -1,12 +1,11 @@
-import type { ReportDto, ReportState } from '@gyre/shared';
+import type { ReportView, ReportState } from '@gyre/shared';
 import { subject } from '@gyre/shared';
-import { App, Button, Card, Segmented, Table, Typography } from 'antd';
+import { App, Button, Card, Segmented, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { PageHeader } from '../../../components/page-header';
-import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { ApiError } from '../../../lib/api-client';
 import { formatDate, formatDateTime } from '../../../lib/format';
@@ -16,11 +15,12 @@ import { downloadReport } from '../api/download-report';
 import { useReportContext } from '../api/report-context';
 import { useReports } from '../api/reports';
 import { ReportStateTag } from './report-state-tag';
+import { PagedTable } from '../../../components/paged-table';
 
 const PAGE_SIZE = 20;
 
 /** A report has a file once it is signed; a draft has none yet. */
-export function hasFile(report: ReportDto): boolean {
+export function hasFile(report: ReportView): boolean {
   return report.state === 'signed' || report.state === 'sent';
 }
 
@@ -43,7 +43,7 @@ export function ReportsPage() {
     subject('Report', { state: 'draft', studyId: me.user.studyId, siteId: me.user.siteId }),
   );
 
-  const download = async (report: ReportDto, name: string) => {
+  const download = async (report: ReportView, name: string) => {
     setDownloading(report.id);
     try {
       await downloadReport(report.id, `gyre-report-${name}.pdf`);
@@ -56,7 +56,7 @@ export function ReportsPage() {
     }
   };
 
-  const columns: TableColumnsType<ReportDto> = [
+  const columns: TableColumnsType<ReportView> = [
     {
       title: 'Participant',
       dataIndex: 'participantId',
@@ -145,43 +145,19 @@ export function ReportsPage() {
         }
       />
       <Card>
-        {error !== undefined ? (
-          <ErrorState
-            error={error}
-            onRetry={() => void mutate()}
-            title="The reports could not be loaded"
-          />
-        ) : (
-          <Table<ReportDto>
-            rowKey="id"
-            size="middle"
-            loading={isLoading && data !== undefined}
-            columns={columns}
-            scroll={{ x: 'max-content' }}
-            dataSource={data?.items ?? []}
-            pagination={{
-              current: page,
-              pageSize: PAGE_SIZE,
-              total: data?.total ?? 0,
-              showSizeChanger: false,
-              hideOnSinglePage: true,
-              onChange: setPage,
-            }}
-            locale={{
-              emptyText: isLoading ? (
-                <TableSkeleton />
-              ) : (
-                <EmptyState
-                  description={
-                    state === 'all'
-                      ? 'No reports yet. A report appears here once an analyst signs a visit.'
-                      : `No ${state} reports.`
-                  }
-                />
-              ),
-            }}
-          />
-        )}
+        <PagedTable<ReportView>
+          query={{ data, error, isLoading, mutate }}
+          loadErrorTitle="The reports could not be loaded"
+          emptyText={
+            state === 'all'
+              ? 'No reports yet. A report appears here once an analyst signs a visit.'
+              : `No ${state} reports.`
+          }
+          columns={columns}
+          page={page}
+          pageSize={PAGE_SIZE}
+          onPageChange={setPage}
+        />
       </Card>
     </>
   );

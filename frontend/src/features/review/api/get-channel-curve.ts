@@ -1,4 +1,4 @@
-import type { OnsetCurveDto } from '@gyre/shared';
+import type { OnsetCurveView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
 
@@ -13,13 +13,13 @@ export function getChannelCurve(
   recordingId: string,
   runId: string,
   channel: string,
-): Promise<OnsetCurveDto> {
-  return apiFetch<OnsetCurveDto>(channelCurveKey(recordingId, runId, channel));
+): Promise<OnsetCurveView> {
+  return apiFetch<OnsetCurveView>(channelCurveKey(recordingId, runId, channel));
 }
 
 /** Asked when the analyst picks the channel (`null` asks nothing); a run never changes. */
 export function useChannelCurve(recordingId: string, runId: string, channel: string | null) {
-  return useSWR<OnsetCurveDto>(
+  return useSWR<OnsetCurveView>(
     channel === null ? null : channelCurveKey(recordingId, runId, channel),
     () => getChannelCurve(recordingId, runId, channel ?? ''),
     { revalidateIfStale: false },

@@ -1,4 +1,4 @@
-import type { RecordingResultsDto } from '@gyre/shared';
+import type { RecordingResultsView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
 
@@ -9,13 +9,13 @@ export const recordingResultsKey = (recordingId: string, runId: string) =>
 export function getRecordingResults(
   recordingId: string,
   runId: string,
-): Promise<RecordingResultsDto> {
-  return apiFetch<RecordingResultsDto>(recordingResultsKey(recordingId, runId));
+): Promise<RecordingResultsView> {
+  return apiFetch<RecordingResultsView>(recordingResultsKey(recordingId, runId));
 }
 
 /** Asked by run, so that a new run is a new cache entry and old results never linger under it. */
 export function useRecordingResults(recordingId: string | null, runId: string | null) {
-  return useSWR<RecordingResultsDto>(
+  return useSWR<RecordingResultsView>(
     recordingId === null || runId === null ? null : recordingResultsKey(recordingId, runId),
     () => getRecordingResults(recordingId ?? '', runId ?? ''),
   );

@@ -1,4 +1,4 @@
-import type { VisitAnalysisOverrideDto } from '@gyre/shared';
+import type { VisitAnalysisOverrideView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch } from '../../../lib/api-client';
 
@@ -6,13 +6,13 @@ import { apiFetch } from '../../../lib/api-client';
 export const visitOverrideKey = (visitId: string) =>
   `/api/visits/${encodeURIComponent(visitId)}/analysis-override`;
 
-export function getVisitOverride(visitId: string): Promise<VisitAnalysisOverrideDto> {
-  return apiFetch<VisitAnalysisOverrideDto>(visitOverrideKey(visitId));
+export function getVisitOverride(visitId: string): Promise<VisitAnalysisOverrideView> {
+  return apiFetch<VisitAnalysisOverrideView>(visitOverrideKey(visitId));
 }
 
 /** Asks only when `allowed` (the rules let the user read analysis settings). */
 export function useVisitOverride(visitId: string, allowed: boolean) {
-  return useSWR<VisitAnalysisOverrideDto>(allowed ? visitOverrideKey(visitId) : null, () =>
+  return useSWR<VisitAnalysisOverrideView>(allowed ? visitOverrideKey(visitId) : null, () =>
     getVisitOverride(visitId),
   );
 }

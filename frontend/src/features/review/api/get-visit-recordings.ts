@@ -1,5 +1,5 @@
 import { SETTLED_RECORDING_STATES } from '@gyre/shared';
-import type { Page, RecordingDto } from '@gyre/shared';
+import type { Page, RecordingView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
 
@@ -13,16 +13,16 @@ const visitRecordingsPath = (visitId: string) =>
 export const visitRecordingsKey = (visitId: string) =>
   ['review/visit-recordings', visitRecordingsPath(visitId)] as const;
 
-export async function getVisitRecordings(visitId: string): Promise<RecordingDto[]> {
-  const page = await apiFetch<Page<RecordingDto>>(visitRecordingsPath(visitId));
+export async function getVisitRecordings(visitId: string): Promise<RecordingView[]> {
+  const page = await apiFetch<Page<RecordingView>>(visitRecordingsPath(visitId));
   return page.items;
 }
 
-const inProgress = (r: RecordingDto) => !SETTLED_RECORDING_STATES.includes(r.state);
+const inProgress = (r: RecordingView) => !SETTLED_RECORDING_STATES.includes(r.state);
 
 /** Polls while a recording is still on its way to `ready`, so a re-run shows up by itself. */
 export function useVisitRecordings(visitId: string) {
-  return useSWR<RecordingDto[]>(visitRecordingsKey(visitId), () => getVisitRecordings(visitId), {
+  return useSWR<RecordingView[]>(visitRecordingsKey(visitId), () => getVisitRecordings(visitId), {
     refreshInterval: (recordings) => (recordings?.some(inProgress) ? 2000 : 0),
   });
 }

@@ -1,4 +1,4 @@
-import type { ReportDto } from '@gyre/shared';
+import type { ReportView } from '@gyre/shared';
 import useSWR from 'swr';
 import { ApiError, apiFetch } from '../../../lib/api-client';
 
@@ -6,9 +6,9 @@ import { ApiError, apiFetch } from '../../../lib/api-client';
 export const visitReportKey = (visitId: string) =>
   `/api/visits/${encodeURIComponent(visitId)}/report`;
 
-export async function getVisitReport(visitId: string): Promise<ReportDto | null> {
+export async function getVisitReport(visitId: string): Promise<ReportView | null> {
   try {
-    return await apiFetch<ReportDto>(visitReportKey(visitId));
+    return await apiFetch<ReportView>(visitReportKey(visitId));
   } catch (error) {
     if (error instanceof ApiError && error.status === 404) return null;
     throw error;
@@ -16,5 +16,5 @@ export async function getVisitReport(visitId: string): Promise<ReportDto | null>
 }
 
 export function useVisitReport(visitId: string) {
-  return useSWR<ReportDto | null>(visitReportKey(visitId), () => getVisitReport(visitId));
+  return useSWR<ReportView | null>(visitReportKey(visitId), () => getVisitReport(visitId));
 }

@@ -1,4 +1,4 @@
-import type { VisitReviewStateDto } from '@gyre/shared';
+import type { VisitReviewStateView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch } from '../../../lib/api-client';
 
@@ -6,13 +6,13 @@ import { apiFetch } from '../../../lib/api-client';
 export const visitReviewKey = (visitId: string) =>
   `/api/visits/${encodeURIComponent(visitId)}/review`;
 
-export function getVisitReview(visitId: string): Promise<VisitReviewStateDto> {
-  return apiFetch<VisitReviewStateDto>(visitReviewKey(visitId));
+export function getVisitReview(visitId: string): Promise<VisitReviewStateView> {
+  return apiFetch<VisitReviewStateView>(visitReviewKey(visitId));
 }
 
 /** Asks only when the rules let the viewer read reviews (analysts and monitors). */
 export function useVisitReview(visitId: string, allowed: boolean) {
-  return useSWR<VisitReviewStateDto>(allowed ? visitReviewKey(visitId) : null, () =>
+  return useSWR<VisitReviewStateView>(allowed ? visitReviewKey(visitId) : null, () =>
     getVisitReview(visitId),
   );
 }

@@ -1,12 +1,12 @@
-import type { JobDto, RecordingDto } from '@gyre/shared';
+import type { JobView, RecordingView } from '@gyre/shared';
 import { useCallback } from 'react';
 import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
 import { visitRecordingsKey } from './get-visit-recordings';
 
 /** `POST /api/recordings/:recordingId/runs`: computes one recording again with the current settings. */
-export function rerunRecording(recordingId: string, reason: string | null): Promise<JobDto> {
-  return apiSend<JobDto>(
+export function rerunRecording(recordingId: string, reason: string | null): Promise<JobView> {
+  return apiSend<JobView>(
     `/api/recordings/${encodeURIComponent(recordingId)}/runs`,
     'POST',
     reason === null ? {} : { reason },
@@ -16,7 +16,7 @@ export function rerunRecording(recordingId: string, reason: string | null): Prom
 export function useRerunRecording() {
   const { mutate } = useSWRConfig();
   return useCallback(
-    async (recording: RecordingDto, reason: string | null) => {
+    async (recording: RecordingView, reason: string | null) => {
       const job = await rerunRecording(recording.id, reason);
       await mutate(visitRecordingsKey(recording.visitId));
       return job;

@@ -1,7 +1,6 @@
-import type { VisitAnalysisOverrideChange, VisitAnalysisOverrideDto } from '@gyre/shared';
-import { useCallback } from 'react';
-import { useSWRConfig } from 'swr';
+import type { VisitAnalysisOverrideChange, VisitAnalysisOverrideView } from '@gyre/shared';
 import { apiSend } from '../../../lib/api-client';
+import { useWrite } from '../../../lib/use-write';
 import { visitRecordingsKey } from './get-visit-recordings';
 import { visitOverrideKey } from './get-visit-override';
 
@@ -15,20 +14,17 @@ export const ANALYSIS_OVERRIDE_UNCHANGED = 'ANALYSIS_OVERRIDE_UNCHANGED';
 export function saveVisitOverride(
   visitId: string,
   change: VisitAnalysisOverrideChange,
-): Promise<VisitAnalysisOverrideDto> {
-  return apiSend<VisitAnalysisOverrideDto>(visitOverrideKey(visitId), 'PUT', change);
+): Promise<VisitAnalysisOverrideView> {
+  return apiSend<VisitAnalysisOverrideView>(visitOverrideKey(visitId), 'PUT', change);
 }
 
 export function useSaveVisitOverride(visitId: string) {
-  const { mutate } = useSWRConfig();
-  return useCallback(
-    async (change: VisitAnalysisOverrideChange) => {
-      const saved = await saveVisitOverride(visitId, change);
+  return useWrite(
+    (change: VisitAnalysisOverrideChange) => saveVisitOverride(visitId, change),
+    async (mutate, saved) => {
       await mutate(visitOverrideKey(visitId), saved, { revalidate: false });
       // The re-run shows up in the recordings' states.
       await mutate(visitRecordingsKey(visitId));
-      return saved;
     },
-    [mutate, visitId],
   );
 }

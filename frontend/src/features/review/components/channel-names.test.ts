@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { canonicalChannelName, channelOptionsOf } from './channel-names';
+import { normaliseChannelLabel as canonicalChannelName } from '@gyre/shared';
+import { channelOptionsOf } from './channel-names';
 
 describe('10-10 channel names (ACNS Guideline 2, 2016)', () => {
   it.each([

@@ -1,24 +1,21 @@
-import type { ChannelQualityDto } from '@gyre/shared';
+import type { ChannelQualityView } from '@gyre/shared';
 import { Table, Tag } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
+import { numberColumn } from '../../../components/number-column';
 import { formatNumber, formatShareAsPercent } from '../../../lib/format';
 
 const ratio = (value: number | null) => formatNumber(value, 2);
-const byNumber =
-  (pick: (row: ChannelQualityDto) => number | null) =>
-  (a: ChannelQualityDto, b: ChannelQualityDto) =>
-    (pick(a) ?? Number.POSITIVE_INFINITY) - (pick(b) ?? Number.POSITIVE_INFINITY);
 
 /** Each channel's signal checks: amplitude spread, flat or clipped signal, line noise, phase slips. */
 export function ChannelQualityTable({
   channels,
   label,
 }: {
-  channels: ChannelQualityDto[];
+  channels: ChannelQualityView[];
   label: string;
 }) {
   return (
-    <Table<ChannelQualityDto>
+    <Table<ChannelQualityView>
       aria-label={label}
       rowKey="label"
       size="small"
@@ -49,37 +46,33 @@ export function ChannelQualityTable({
             </span>
           ),
         },
-        {
-          key: 'sd',
-          title: 'SD',
-          align: 'right',
-          sorter: byNumber((r) => r.standardDeviationUv),
-          render: (_, row) =>
+        numberColumn<ChannelQualityView>(
+          'SD',
+          'sd',
+          (r) => r.standardDeviationUv,
+          (row) =>
             row.standardDeviationUv === null
               ? '—'
               : `${formatNumber(row.standardDeviationUv, 1)}\u00a0µV`,
-        },
-        {
-          key: 'line50',
-          title: 'Line noise 50 Hz',
-          align: 'right',
-          sorter: byNumber((r) => r.lineNoiseRatio50Hz),
-          render: (_, row) => ratio(row.lineNoiseRatio50Hz),
-        },
-        {
-          key: 'line60',
-          title: 'Line noise 60 Hz',
-          align: 'right',
-          sorter: byNumber((r) => r.lineNoiseRatio60Hz),
-          render: (_, row) => ratio(row.lineNoiseRatio60Hz),
-        },
-        {
-          key: 'slips',
-          title: 'Phase slips',
-          align: 'right',
-          sorter: byNumber((r) => r.phaseSlipShare),
-          render: (_, row) => formatShareAsPercent(row.phaseSlipShare),
-        },
+        ),
+        numberColumn<ChannelQualityView>(
+          'Line noise 50 Hz',
+          'line50',
+          (r) => r.lineNoiseRatio50Hz,
+          (row) => ratio(row.lineNoiseRatio50Hz),
+        ),
+        numberColumn<ChannelQualityView>(
+          'Line noise 60 Hz',
+          'line60',
+          (r) => r.lineNoiseRatio60Hz,
+          (row) => ratio(row.lineNoiseRatio60Hz),
+        ),
+        numberColumn<ChannelQualityView>(
+          'Phase slips',
+          'slips',
+          (r) => r.phaseSlipShare,
+          (row) => formatShareAsPercent(row.phaseSlipShare),
+        ),
       ]}
     />
   );

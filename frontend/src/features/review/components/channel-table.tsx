@@ -1,7 +1,8 @@
-import type { ChannelStatsDto, RoiUsageDto } from '@gyre/shared';
+import type { ChannelStatsView, RoiUsageView } from '@gyre/shared';
 import { Alert, Table, Tag } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
+import { numberColumn } from '../../../components/number-column';
 import { formatDeltaHzRange, formatHz, formatPValue } from '../../../lib/format';
 import {
   NO_ROI_CHANNEL_REMAINS,
@@ -16,20 +17,8 @@ export function formatCi(ci: [number, number] | null): string {
   return formatDeltaHzRange(ci);
 }
 
-/** Sorts nulls last whichever way the column is sorted by the analyst. */
-function byNumber(pick: (row: ChannelStatsDto) => number | null) {
-  return (a: ChannelStatsDto, b: ChannelStatsDto) => {
-    const x = pick(a);
-    const y = pick(b);
-    if (x === null && y === null) return 0;
-    if (x === null) return 1;
-    if (y === null) return -1;
-    return x - y;
-  };
-}
-
 /** Which region-of-interest channels the numbers come from, above the table. */
-function RoiCaption({ usage }: { usage: RoiUsageDto }) {
+function RoiCaption({ usage }: { usage: RoiUsageView }) {
   if (usage.status === 'complete') return null;
   return (
     <Alert
@@ -59,10 +48,10 @@ export function ChannelTable({
   channels,
   roiUsage,
 }: {
-  channels: ChannelStatsDto[];
-  roiUsage: RoiUsageDto;
+  channels: ChannelStatsView[];
+  roiUsage: RoiUsageView;
 }) {
-  const name: TableColumnsType<ChannelStatsDto>[number] = {
+  const name: TableColumnsType<ChannelStatsView>[number] = {
     title: 'Channel',
     key: 'label',
     sorter: (a, b) => (a.canonical ?? a.label).localeCompare(b.canonical ?? b.label),
@@ -89,48 +78,38 @@ export function ChannelTable({
   };
   const hzColumn = (
     title: string,
-    key: keyof ChannelStatsDto,
-    pick: (row: ChannelStatsDto) => number | null,
+    key: keyof ChannelStatsView,
+    pick: (row: ChannelStatsView) => number | null,
     defaultSortOrder?: 'ascend',
-  ): TableColumnsType<ChannelStatsDto>[number] => ({
-    title,
-    key,
-    align: 'right',
-    sorter: byNumber(pick),
-    defaultSortOrder,
-    render: (_, row) => formatHz(pick(row)),
-  });
-  const columns: TableColumnsType<ChannelStatsDto> = [
+  ) => numberColumn(title, key, pick, (row) => formatHz(pick(row)), defaultSortOrder);
+  const columns: TableColumnsType<ChannelStatsView> = [
     name,
     hzColumn('Baseline', 'baselineHz', (r) => r.baselineHz),
     hzColumn('Post', 'postHz', (r) => r.postHz),
     hzColumn('Δf', 'deltaFHz', (r) => r.deltaFHz, 'ascend'),
-    {
-      title: '95 % CI of Δf',
-      key: 'ciHz',
-      align: 'right',
-      sorter: byNumber((r) => r.ciHz?.[0] ?? null),
-      render: (_, row) => formatCi(row.ciHz),
-    },
-    {
-      title: 'p (Wilcoxon)',
-      key: 'pValue',
-      align: 'right',
-      sorter: byNumber((r) => r.pValue),
-      render: (_, row) => formatPValue(row.pValue),
-    },
-    {
-      title: 'Trials kept',
-      key: 'trials',
-      align: 'right',
-      sorter: byNumber((r) => r.trials),
-      render: (_, row) => (row.trials === null ? '—' : String(row.trials)),
-    },
+    numberColumn(
+      '95 % CI of Δf',
+      'ciHz',
+      (r) => r.ciHz?.[0] ?? null,
+      (row) => formatCi(row.ciHz),
+    ),
+    numberColumn(
+      'p (Wilcoxon)',
+      'pValue',
+      (r) => r.pValue,
+      (row) => formatPValue(row.pValue),
+    ),
+    numberColumn(
+      'Trials kept',
+      'trials',
+      (r) => r.trials,
+      (row) => (row.trials === null ? '—' : String(row.trials)),
+    ),
   ];
   return (
     <>
       <RoiCaption usage={roiUsage} />
-      <Table<ChannelStatsDto>
+      <Table<ChannelStatsView>
         aria-label="Per-channel task results"
         rowKey="label"
         size="small"

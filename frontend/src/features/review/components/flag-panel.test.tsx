@@ -1,4 +1,4 @@
-import type { VisitFlagDto } from '@gyre/shared';
+import type { VisitFlagView } from '@gyre/shared';
 import { render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
@@ -6,7 +6,7 @@ import { ApiError } from '../../../lib/api-client';
 import { NO_FLAG } from '../testing/review-fixtures';
 import { FlagPanel } from './flag-panel';
 
-const RAISED: VisitFlagDto = {
+const RAISED: VisitFlagView = {
   ...NO_FLAG,
   suggestion: {
     ...NO_FLAG.suggestion!,
@@ -27,7 +27,7 @@ const RAISED: VisitFlagDto = {
   },
 };
 
-function renderPanel(flag: VisitFlagDto, canChange = true) {
+function renderPanel(flag: VisitFlagView, canChange = true) {
   const onRaise = vi.fn(async () => undefined);
   const onClear = vi.fn(async () => undefined);
   render(

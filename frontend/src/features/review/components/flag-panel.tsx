@@ -1,9 +1,8 @@
-import type { FlagChange, FlagDto, FlagSuggestion, VisitFlagDto } from '@gyre/shared';
+import type { FlagChange, FlagView, FlagSuggestion, VisitFlagView } from '@gyre/shared';
 import { Alert, Button, Flex, Form, Input, Tag, Timeline, Typography } from 'antd';
-import { useState } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
-import { ApiError } from '../../../lib/api-client';
 import { formatDateTime, formatHz } from '../../../lib/format';
+import { useSubmission } from '../../../lib/use-submission';
 import { NO_ROI_CHANNEL_REMAINS, leftOutText, roiUsageSentence } from '../../../lib/roi-usage';
 import { formatCi } from './channel-table';
 
@@ -38,7 +37,7 @@ function SuggestionBox({ suggestion }: { suggestion: FlagSuggestion | null }) {
         padding: '10px 12px',
       }}
     >
-      <Typography.Text type="secondary" style={{ fontSize: 12, letterSpacing: 0.3 }}>
+      <Typography.Text type="secondary" className="gyre-caption-caps">
         COMPUTATION&apos;S SUGGESTION
       </Typography.Text>
       <div className="gyre-figures" style={{ marginTop: 4 }}>
@@ -62,19 +61,19 @@ const plainPerson =
     userId === meId ? 'you' : 'another analyst';
 
 /** The analyst's decision: amber while a flag is raised. */
-function DecisionBox({ current, who }: { current: FlagDto | null; who: PersonRenderer }) {
+function DecisionBox({ current, who }: { current: FlagView | null; who: PersonRenderer }) {
   const raised = current !== null && current.state === 'raised';
   return (
     <section
       aria-label="Analyst's decision"
       style={{
         border: `1px solid ${raised ? GYRE_COLORS.amber : GYRE_COLORS.line}`,
-        background: raised ? '#FDF5E6' : GYRE_COLORS.paper,
+        background: raised ? GYRE_COLORS.amberBg : GYRE_COLORS.paper,
         borderRadius: 6,
         padding: '10px 12px',
       }}
     >
-      <Typography.Text type="secondary" style={{ fontSize: 12, letterSpacing: 0.3 }}>
+      <Typography.Text type="secondary" className="gyre-caption-caps">
         ANALYST&apos;S DECISION
       </Typography.Text>
       <div style={{ marginTop: 4 }}>
@@ -107,8 +106,7 @@ function FlagForm({
   onSubmit: (change: FlagChange) => Promise<void>;
 }) {
   const [form] = Form.useForm<{ reason: string }>();
-  const [saving, setSaving] = useState(false);
-  const [failure, setFailure] = useState<string | null>(null);
+  const { busy: saving, error: failure, run } = useSubmission('The flag could not be saved.');
   const action = raised ? 'Clear the flag' : 'Raise a slowing flag';
   return (
     <Form
@@ -117,18 +115,12 @@ function FlagForm({
       layout="vertical"
       requiredMark={false}
       aria-label={action}
-      onFinish={async ({ reason }) => {
-        setSaving(true);
-        setFailure(null);
-        try {
+      onFinish={({ reason }) =>
+        run(async () => {
           await onSubmit({ reason: reason.trim() });
           form.resetFields();
-        } catch (error) {
-          setFailure(error instanceof ApiError ? error.message : 'The flag could not be saved.');
-        } finally {
-          setSaving(false);
-        }
-      }}
+        })
+      }
     >
       <Form.Item
         name="reason"
@@ -173,7 +165,7 @@ export function FlagPanel({
   onClear,
   renderPerson,
 }: {
-  flag: VisitFlagDto;
+  flag: VisitFlagView;
   meId: string;
   renderPerson?: PersonRenderer;
   canChange: boolean;

@@ -1,4 +1,4 @@
-import type { OnsetCurveDto, TaskResultsDto } from '@gyre/shared';
+import type { OnsetCurveView, TaskResultsView } from '@gyre/shared';
 import { Flex, Select, Skeleton, Typography } from 'antd';
 import { useCallback, useMemo, useState } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
@@ -65,7 +65,7 @@ export function OnsetCurveChart({
 }: {
   recordingId: string;
   runId: string;
-  task: TaskResultsDto;
+  task: TaskResultsView;
   roiLabel: string;
   /** False when no region-of-interest channel remains: the channels' curves only. */
   roiAvailable?: boolean;
@@ -73,7 +73,7 @@ export function OnsetCurveChart({
   const [series, setSeries] = useState<string>(roiAvailable ? ROI : (task.curveChannels[0] ?? ROI));
   const picked = series === ROI ? null : series;
   const channelCurve = useChannelCurve(recordingId, runId, picked);
-  const curve: OnsetCurveDto | undefined = picked === null ? task.roi : channelCurve.data;
+  const curve: OnsetCurveView | undefined = picked === null ? task.roi : channelCurve.data;
   const seriesName = picked === null ? `Mean, ${roiLabel}` : `Mean, ${picked}`;
   const points = useMemo(
     () => (curve === undefined ? NO_POINTS : onsetCurvePoints(task.timeS, curve)),
@@ -109,11 +109,11 @@ export function OnsetCurveChart({
             <Swatch colour={MEAN_COLOUR} opacity={0.25} />
             95 % confidence band
           </span>
-          <span data-gyre-key="baseline" style={{ whiteSpace: 'nowrap' }}>
+          <span data-gyre-key="baseline" className="gyre-nowrap">
             <Swatch colour={BASELINE_COLOUR} opacity={0.3} />
             Baseline {windowText(task.baselineWindowS)}
           </span>
-          <span data-gyre-key="post" style={{ whiteSpace: 'nowrap' }}>
+          <span data-gyre-key="post" className="gyre-nowrap">
             <Swatch colour={POST_COLOUR} opacity={0.3} />
             Post {windowText(task.postWindowS)}
           </span>

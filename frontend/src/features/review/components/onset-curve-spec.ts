@@ -1,4 +1,4 @@
-import { linearAxis, MIN_AXIS_SPAN_HZ, type OnsetCurveDto } from '@gyre/shared';
+import { linearAxis, MIN_AXIS_SPAN_HZ, type OnsetCurveView } from '@gyre/shared';
 import { CHART_PALETTE, GYRE_COLORS } from '../../../app/theme';
 import {
   axisWithUnit,
@@ -19,7 +19,7 @@ export interface OnsetCurvePoint {
 }
 
 /** Pairs the curve with its time axis, leaving out points where the mean is undefined. */
-export function onsetCurvePoints(timeS: number[], curve: OnsetCurveDto): OnsetCurvePoint[] {
+export function onsetCurvePoints(timeS: number[], curve: OnsetCurveView): OnsetCurvePoint[] {
   const points: OnsetCurvePoint[] = [];
   timeS.forEach((t, i) => {
     const mean = curve.meanHz[i];

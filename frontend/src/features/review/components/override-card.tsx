@@ -1,4 +1,4 @@
-import type { AnalysisSettingsDto, VisitAnalysisOverrideDto } from '@gyre/shared';
+import type { AnalysisSettingsView, VisitAnalysisOverrideView } from '@gyre/shared';
 import { Button, Descriptions, Flex, Typography } from 'antd';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../app/paths';
@@ -17,8 +17,8 @@ export function OverrideCard({
   canChange,
   onChange,
 }: {
-  override: VisitAnalysisOverrideDto;
-  study: AnalysisSettingsDto | undefined;
+  override: VisitAnalysisOverrideView;
+  study: AnalysisSettingsView | undefined;
   canChange: boolean;
   onChange: () => void;
 }) {

@@ -1,15 +1,14 @@
 import type {
   AnalysisSettingsValues,
   VisitAnalysisOverrideChange,
-  VisitAnalysisOverrideDto,
+  VisitAnalysisOverrideView,
 } from '@gyre/shared';
-import { Alert, Col, Form, Input, InputNumber, Modal, Radio, Row, Select, Typography } from 'antd';
-import type { FormRule } from 'antd';
-import { useState } from 'react';
-import { ApiError } from '../../../lib/api-client';
+import { Alert, Form, Input, Modal, Radio, Select, Typography } from 'antd';
+import { useSubmission } from '../../../lib/use-submission';
 import { ANALYSIS_OVERRIDE_UNCHANGED } from '../api/save-visit-override';
 import type { ChannelOption } from './channel-names';
 import { formatHzRange } from '../../../lib/format';
+import { BandEdgeFields } from '../../../components/band-edge-fields';
 
 export const OVERRIDE_REASON_MIN_LENGTH = 10;
 
@@ -29,7 +28,7 @@ export interface OverrideFormValues {
 type StudyValues = Pick<AnalysisSettingsValues, 'roi' | 'bandHz' | 'onsetLabel'>;
 
 export function overrideFormValuesOf(
-  override: VisitAnalysisOverrideDto,
+  override: VisitAnalysisOverrideView,
   study: StudyValues | undefined,
 ): OverrideFormValues {
   const band = override.bandHz ?? study?.bandHz ?? [8, 13];
@@ -65,16 +64,6 @@ const studyBandText = (study: StudyValues | undefined) =>
       ? "The study's: the visit's IAF ± 2 Hz (8–13 Hz without one)"
       : `The study's: ${formatHzRange(study.bandHz)}`;
 
-function numberRule(test: (value: number, get: (name: 'bandLowHz') => unknown) => string | null) {
-  return (({ getFieldValue }: { getFieldValue: (name: 'bandLowHz') => unknown }) => ({
-    validator: async (_rule: unknown, value: number | null) => {
-      if (value === null || value === undefined) return;
-      const problem = test(value, getFieldValue);
-      if (problem !== null) throw new Error(problem);
-    },
-  })) as FormRule;
-}
-
 /**
  * The visit's own region of interest, band and onset label over the study's settings, with a
  * reason; saving computes the visit's recordings again.
@@ -89,17 +78,25 @@ export function OverrideForm({
   onSaved,
 }: {
   open: boolean;
-  override: VisitAnalysisOverrideDto;
+  override: VisitAnalysisOverrideView;
   study: StudyValues | undefined;
   /** The file's channels, by their 10-10 names. */
   channelOptions: ChannelOption[];
-  onSave: (change: VisitAnalysisOverrideChange) => Promise<VisitAnalysisOverrideDto>;
+  onSave: (change: VisitAnalysisOverrideChange) => Promise<VisitAnalysisOverrideView>;
   onClose: () => void;
-  onSaved: (saved: VisitAnalysisOverrideDto) => void;
+  onSaved: (saved: VisitAnalysisOverrideView) => void;
 }) {
   const [form] = Form.useForm<OverrideFormValues>();
-  const [saving, setSaving] = useState(false);
-  const [failure, setFailure] = useState<{ unchanged: boolean; message: string } | null>(null);
+  const {
+    busy: saving,
+    error,
+    errorCode,
+    run,
+  } = useSubmission("The visit's choices could not be saved.");
+  const failure =
+    error === null
+      ? null
+      : { unchanged: errorCode === ANALYSIS_OVERRIDE_UNCHANGED, message: error };
   const roiMode = Form.useWatch('roiMode', form);
   const bandMode = Form.useWatch('bandMode', form);
   const onsetMode = Form.useWatch('onsetMode', form);
@@ -112,27 +109,10 @@ export function OverrideForm({
       .map((name) => ({ value: name, label: `${name} (not in this visit's files)` })),
   ];
 
-  const submit = async (values: OverrideFormValues) => {
-    setSaving(true);
-    setFailure(null);
-    try {
+  const submit = (values: OverrideFormValues) =>
+    run(async () => {
       onSaved(await onSave(overrideChangeOf({ ...initial, ...values })));
-    } catch (error) {
-      setFailure(
-        error instanceof ApiError && error.code === ANALYSIS_OVERRIDE_UNCHANGED
-          ? { unchanged: true, message: error.message }
-          : {
-              unchanged: false,
-              message:
-                error instanceof ApiError
-                  ? error.message
-                  : "The visit's choices could not be saved.",
-            },
-      );
-    } finally {
-      setSaving(false);
-    }
-  };
+    });
 
   return (
     <Modal
@@ -191,41 +171,7 @@ export function OverrideForm({
             ]}
           />
         </Form.Item>
-        {bandMode === 'visit' && (
-          <Row gutter={12}>
-            <Col xs={24} sm={12}>
-              <Form.Item
-                name="bandLowHz"
-                label="Band low edge"
-                rules={[
-                  { required: true, message: 'Enter the low edge in Hz.' },
-                  numberRule((v) => (v < 1 ? 'The low edge must be at least 1 Hz.' : null)),
-                ]}
-              >
-                <InputNumber suffix="Hz" step={0.5} style={{ width: '100%' }} />
-              </Form.Item>
-            </Col>
-            <Col xs={24} sm={12}>
-              <Form.Item
-                name="bandHighHz"
-                label="Band high edge"
-                dependencies={['bandLowHz']}
-                rules={[
-                  { required: true, message: 'Enter the high edge in Hz.' },
-                  numberRule((v, get) => {
-                    if (v > 40) return 'The high edge must be at most 40 Hz.';
-                    const low = get('bandLowHz');
-                    return typeof low === 'number' && v - low < 1
-                      ? 'The band must be at least 1 Hz wide (high edge above the low edge).'
-                      : null;
-                  }),
-                ]}
-              >
-                <InputNumber suffix="Hz" step={0.5} style={{ width: '100%' }} />
-              </Form.Item>
-            </Col>
-          </Row>
-        )}
+        {bandMode === 'visit' && <BandEdgeFields />}
         <Form.Item name="onsetMode" label="Onsets">
           <Radio.Group
             options={[

@@ -1,6 +1,6 @@
 import { subject } from '@gyre/shared';
 import { useAppAbility } from '../../../lib/session/ability';
-import { useUser } from '../api/get-user';
+import { useUser } from '../../../lib/users';
 
 /**
  * A person of the study by name when the rules let the viewer read them (a monitor), "you"

@@ -1,4 +1,4 @@
-import type { QualityDto, RoiUsageDto } from '@gyre/shared';
+import type { QualityView, RoiUsageView } from '@gyre/shared';
 import { Alert, Flex, Table, Tag } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
 import { ChannelQualityTable } from './channel-quality-table';
@@ -10,9 +10,9 @@ export function QualityChecks({
   kind,
   roiUsage,
 }: {
-  quality: QualityDto;
+  quality: QualityView;
   kind: 'task' | 'resting';
-  roiUsage?: RoiUsageDto;
+  roiUsage?: RoiUsageView;
 }) {
   const findings = qualityFindings(quality, kind, roiUsage);
   const warnings = [

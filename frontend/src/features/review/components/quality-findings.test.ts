@@ -1,8 +1,8 @@
-import type { QualityDto } from '@gyre/shared';
+import type { QualityView } from '@gyre/shared';
 import { describe, expect, it } from 'vitest';
 import { LINE_NOISE_WARNING_RATIO, qualityFindings } from './quality-findings';
 
-const clean: QualityDto = {
+const clean: QualityView = {
   durationS: 180,
   sampleRatesHz: [250],
   roiChannelsFound: ['O1', 'O2', 'Oz', 'Pz'],
@@ -18,7 +18,7 @@ const clean: QualityDto = {
   warnings: [],
 };
 
-const lineNoise = (quality: QualityDto) =>
+const lineNoise = (quality: QualityView) =>
   qualityFindings(quality, 'resting').find((f) => f.check.startsWith('Line noise'));
 
 describe('qualityFindings: line noise', () => {

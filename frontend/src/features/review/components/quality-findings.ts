@@ -1,4 +1,4 @@
-import type { QualityDto, RoiUsageDto } from '@gyre/shared';
+import type { QualityView, RoiUsageView } from '@gyre/shared';
 import { NO_ROI_CHANNEL_REMAINS, roiUsageSentence } from '../../../lib/roi-usage';
 import { formatNumber, formatSeconds, formatShareAsPercent } from '../../../lib/format';
 
@@ -22,7 +22,7 @@ const rates = (ratesHz: number[]) => {
 /** Mains power this many times its neighbours' is worth a look (common practice). */
 export const LINE_NOISE_WARNING_RATIO = 10;
 
-function lineNoiseWarning(quality: QualityDto): string | null {
+function lineNoiseWarning(quality: QualityView): string | null {
   const worst = [
     [50, quality.lineNoiseRatio50Hz],
     [60, quality.lineNoiseRatio60Hz],
@@ -40,10 +40,10 @@ function lineNoiseWarning(quality: QualityDto): string | null {
  * server's own warnings are shown beside these, word for word.
  */
 export function qualityFindings(
-  quality: QualityDto,
+  quality: QualityView,
   kind: 'task' | 'resting',
   /** The run's region-of-interest usage: what was found is not always what was used. */
-  roiUsage?: RoiUsageDto,
+  roiUsage?: RoiUsageView,
 ): QualityFinding[] {
   const minutes = quality.durationS / 60;
   const findings: QualityFinding[] = [

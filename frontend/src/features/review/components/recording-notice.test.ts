@@ -1,10 +1,10 @@
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { describe, expect, it } from 'vitest';
 import { recordingNoticeOf } from './recording-state-notice';
 
 // Generated test data: one recording in each state.
-const recording = (state: RecordingDto['state'], extra: Partial<RecordingDto> = {}) =>
-  ({ id: 'rec-1', state, progressPercent: null, ...extra }) as RecordingDto;
+const recording = (state: RecordingView['state'], extra: Partial<RecordingView> = {}) =>
+  ({ id: 'rec-1', state, progressPercent: null, ...extra }) as RecordingView;
 
 describe('one recording state notice', () => {
   it('while computed again over the previous results, says both things in one notice', () => {

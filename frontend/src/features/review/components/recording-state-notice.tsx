@@ -1,4 +1,4 @@
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { Alert, Flex, Progress } from 'antd';
 import { formatPercent } from '../../../lib/format';
 
@@ -16,7 +16,7 @@ export interface RecordingNotice {
  * again, and the notice says so (instead of a second notice saying "computing again").
  */
 export function recordingNoticeOf(
-  recording: RecordingDto,
+  recording: RecordingView,
   previousShown = false,
 ): RecordingNotice | null {
   const again = previousShown ? ' again' : '';
@@ -63,7 +63,7 @@ export function RecordingStateNotice({
   recording,
   previousShown = false,
 }: {
-  recording: RecordingDto;
+  recording: RecordingView;
   previousShown?: boolean;
 }) {
   const notice = recordingNoticeOf(recording, previousShown);

@@ -1,4 +1,4 @@
-import type { RestResultsDto } from '@gyre/shared';
+import type { RestResultsView } from '@gyre/shared';
 import { Flex, Typography } from 'antd';
 import { useCallback, useMemo } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
@@ -23,7 +23,7 @@ function DashKey({ colour }: { colour: string }) {
 const CHART_HEIGHT_PX = 280;
 
 /** The resting power spectrum with the individual alpha frequency marked two ways. */
-export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsDto; roiLabel: string }) {
+export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsView; roiLabel: string }) {
   const points = useMemo(
     () => spectrumPoints(rest.frequencyHz, rest.powerUv2PerHz),
     [rest.frequencyHz, rest.powerUv2PerHz],

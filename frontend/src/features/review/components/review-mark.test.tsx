@@ -1,5 +1,5 @@
 import { AbilityProvider } from '@casl/react';
-import type { Role, VisitReviewStateDto } from '@gyre/shared';
+import type { Role, VisitReviewStateView } from '@gyre/shared';
 import { render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
@@ -9,7 +9,7 @@ import { meFor } from '../../../test/fixtures';
 import { NOT_REVIEWED } from '../testing/review-fixtures';
 import { ReviewMark } from './review-mark';
 
-const REVIEWED_BY_OTHER: VisitReviewStateDto = {
+const REVIEWED_BY_OTHER: VisitReviewStateView = {
   ...NOT_REVIEWED,
   latest: {
     id: 'review-1',
@@ -25,7 +25,7 @@ const REVIEWED_BY_OTHER: VisitReviewStateDto = {
   cannotReviewReason: 'These results are reviewed; nothing has changed since.',
 };
 
-const CHANGED: VisitReviewStateDto = {
+const CHANGED: VisitReviewStateView = {
   ...REVIEWED_BY_OTHER,
   currentFingerprint: '6'.repeat(64),
   currentRunIds: ['resting:run-rest-2', 'task:run-task'],
@@ -35,7 +35,7 @@ const CHANGED: VisitReviewStateDto = {
   cannotReviewReason: null,
 };
 
-function renderMark(role: Role, state: VisitReviewStateDto, onMark = vi.fn(async () => {})) {
+function renderMark(role: Role, state: VisitReviewStateView, onMark = vi.fn(async () => {})) {
   const me = meFor(role);
   render(
     <AbilityProvider value={abilityFromRules(me.rules)}>

@@ -1,9 +1,9 @@
 import { Can } from '@casl/react';
-import type { AppAbility, VisitReviewStateDto } from '@gyre/shared';
+import type { AppAbility, VisitReviewStateView } from '@gyre/shared';
 import { Alert, Button, Flex, Tag, Typography } from 'antd';
-import { useState } from 'react';
-import { ApiError } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
+import { useSubmission } from '../../../lib/use-submission';
+import { GYRE_COLORS } from '../../../app/theme';
 
 /**
  * The "visit reviewed" act: who reviewed the visit's results and when, whether they have
@@ -15,12 +15,15 @@ export function ReviewMark({
   meId,
   onMark,
 }: {
-  state: VisitReviewStateDto;
+  state: VisitReviewStateView;
   meId: string;
   onMark: (fingerprint: string) => Promise<void>;
 }) {
-  const [saving, setSaving] = useState(false);
-  const [failure, setFailure] = useState<string | null>(null);
+  const {
+    busy: saving,
+    error: failure,
+    run,
+  } = useSubmission('The visit could not be marked reviewed.');
   const latest = state.latest;
   const who = latest === null ? '' : latest.reviewedById === meId ? 'you' : latest.reviewedByName;
   return (
@@ -29,7 +32,7 @@ export function ReviewMark({
         <Typography.Text>No one has marked this visit reviewed yet.</Typography.Text>
       ) : state.reviewed ? (
         <div>
-          <Tag color="#24525A">Reviewed</Tag>
+          <Tag color={GYRE_COLORS.primary}>Reviewed</Tag>
           by {who}, {formatDateTime(latest.reviewedAt)}
         </div>
       ) : (
@@ -45,17 +48,7 @@ export function ReviewMark({
           <Button
             type="primary"
             loading={saving}
-            onClick={async () => {
-              setSaving(true);
-              setFailure(null);
-              try {
-                await onMark(state.currentFingerprint ?? '');
-              } catch (error) {
-                setFailure(error instanceof ApiError ? error.message : String(error));
-              } finally {
-                setSaving(false);
-              }
-            }}
+            onClick={() => run(() => onMark(state.currentFingerprint ?? ''))}
           >
             Mark reviewed
           </Button>

@@ -1,8 +1,8 @@
 import type {
-  RecordingDto,
-  RecordingResultsDto,
+  RecordingView,
+  RecordingResultsView,
   VisitAnalysisOverrideChange,
-  VisitFlagDto,
+  VisitFlagView,
 } from '@gyre/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
@@ -36,13 +36,13 @@ installMswServer();
 installCanvasMock();
 
 function taskWith(
-  change: Partial<RecordingResultsDto['run']>,
-  rest: Partial<RecordingResultsDto> = {},
+  change: Partial<RecordingResultsView['run']>,
+  rest: Partial<RecordingResultsView> = {},
 ) {
   return { ...TASK_RESULTS, ...rest, run: { ...TASK_RESULTS.run, ...change } };
 }
 
-function flagWith(suggestion: Partial<NonNullable<VisitFlagDto['suggestion']>>): VisitFlagDto {
+function flagWith(suggestion: Partial<NonNullable<VisitFlagView['suggestion']>>): VisitFlagView {
   return { ...NO_FLAG, suggestion: { ...NO_FLAG.suggestion!, ...suggestion } };
 }
 
@@ -212,13 +212,13 @@ describe('Review: what the numbers rest on', { timeout: 60_000 }, () => {
   });
 
   it('names the superseded recording and why, the confirmed kind, and an automatic recomputation', async () => {
-    const current: RecordingDto = {
+    const current: RecordingView = {
       ...RECORDINGS[0],
       replacesId: 'rec-task-old',
       replacementReason: 'Electrode O1 came loose',
       kindConfirmed: true,
     };
-    const superseded: RecordingDto = {
+    const superseded: RecordingView = {
       ...RECORDINGS[0],
       id: 'rec-task-old',
       state: 'superseded',
@@ -272,7 +272,7 @@ describe('Review: what the numbers rest on', { timeout: 60_000 }, () => {
 });
 
 describe('recordingOfKind', () => {
-  const at = (id: string, state: RecordingDto['state'], createdAt: string): RecordingDto => ({
+  const at = (id: string, state: RecordingView['state'], createdAt: string): RecordingView => ({
     ...RECORDINGS[0],
     id,
     state,

@@ -1,4 +1,4 @@
-import type { ReportSignOffDto, Role } from '@gyre/shared';
+import type { ReportSignOffView, Role } from '@gyre/shared';
 import { SIGNATURE_MEANING } from '@gyre/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
@@ -221,7 +221,7 @@ describe('Review', { timeout: 60_000 }, () => {
       signerName: 'Ana Lyst',
       signedAt: '2025-03-01T10:00:00.000Z',
       meaning: SIGNATURE_MEANING,
-    } as ReportSignOffDto['revisions'][number];
+    } as ReportSignOffView['revisions'][number];
     server.use(
       http.get(`/api/visits/${VISIT.id}/report`, () =>
         HttpResponse.json({ ...REPORT, state: 'sent' }),
@@ -235,7 +235,7 @@ describe('Review', { timeout: 60_000 }, () => {
           canSign: true,
           cannotSignReason: null,
           revisions: [sent],
-        } satisfies ReportSignOffDto),
+        } satisfies ReportSignOffView),
       ),
     );
     renderApp(`/review/${VISIT.id}`, meFor('analyst'));

@@ -1,4 +1,4 @@
-import type { RecordingDto, RecordingKind, RecordingResultsDto } from '@gyre/shared';
+import type { RecordingView, RecordingKind, RecordingResultsView } from '@gyre/shared';
 import { App, Button, Card, Col, Descriptions, Flex, Row, Skeleton, Tabs, Tag } from 'antd';
 import { useEffect, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
@@ -40,7 +40,7 @@ import { TrialRaster } from './trial-raster';
 import { VisitSources } from './visit-sources';
 
 /** A visit's current recording of a kind: the one a newer upload has not replaced. */
-const CURRENT: ReadonlySet<RecordingDto['state']> = new Set([
+const CURRENT: ReadonlySet<RecordingView['state']> = new Set([
   'queued',
   'computing',
   'ready',
@@ -53,9 +53,9 @@ const CURRENT: ReadonlySet<RecordingDto['state']> = new Set([
  * another exists.
  */
 export function recordingOfKind(
-  recordings: RecordingDto[],
+  recordings: RecordingView[],
   kind: RecordingKind,
-): RecordingDto | null {
+): RecordingView | null {
   const ofKind = recordings
     .filter((r) => r.kind === kind)
     .sort((a, b) => b.createdAt.localeCompare(a.createdAt));
@@ -68,7 +68,7 @@ export function recordingOfKind(
   );
 }
 
-function roiLabelOf(results: RecordingResultsDto): string {
+function roiLabelOf(results: RecordingResultsView): string {
   const usage = results.run.roiUsage;
   return usage.used.length === 0 ? 'ROI: no channel' : `ROI: ${usage.used.join(', ')}`;
 }
@@ -82,9 +82,9 @@ function ResultsOf({
   kindName,
   children,
 }: {
-  recording: RecordingDto | null;
+  recording: RecordingView | null;
   kindName: string;
-  children: (results: RecordingResultsDto, recording: RecordingDto) => React.ReactNode;
+  children: (results: RecordingResultsView, recording: RecordingView) => React.ReactNode;
 }) {
   const { showable, results } = useShownResults(recording);
   if (recording === null) {

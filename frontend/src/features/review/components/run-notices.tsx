@@ -1,4 +1,4 @@
-import type { RecordingDto, RecordingResultsDto } from '@gyre/shared';
+import type { RecordingView, RecordingResultsView } from '@gyre/shared';
 import { Alert, Button, Flex } from 'antd';
 import { NO_ROI_CHANNEL_REMAINS, leftOutText, roiUsageSentence } from '../../../lib/roi-usage';
 import { useRerunRecording } from '../api/rerun-recording';
@@ -26,8 +26,8 @@ export function RunNotices({
   canRerun,
   onChooseChannels,
 }: {
-  results: RecordingResultsDto;
-  recording: RecordingDto;
+  results: RecordingResultsView;
+  recording: RecordingView;
   canRerun: boolean;
   /** Opens the visit's override form; absent for someone who may not change it. */
   onChooseChannels?: () => void;

@@ -1,4 +1,4 @@
-import type { AnalysisRunDto } from '@gyre/shared';
+import type { AnalysisRunView } from '@gyre/shared';
 import { Descriptions, Tag, Typography } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
 import { formatDateTime, formatHz, formatHzRange, formatPValue } from '../../../lib/format';
@@ -6,14 +6,14 @@ import { NO_ROI_CHANNEL_REMAINS } from '../../../lib/roi-usage';
 import { formatCi } from './channel-table';
 import { TRIGGER_WORDS } from './run-words';
 
-const BAND_SOURCE: Record<AnalysisRunDto['bandSource'], string> = {
+const BAND_SOURCE: Record<AnalysisRunView['bandSource'], string> = {
   settings: 'study setting',
   iaf: "visit's resting IAF ± 2 Hz",
   default: 'default 8–13 Hz',
 };
 
 /** The ROI Δf, never without saying when its region is incomplete or empty. */
-function RoiDeltaF({ run }: { run: AnalysisRunDto }) {
+function RoiDeltaF({ run }: { run: AnalysisRunView }) {
   if (run.roiUsage.status === 'none') {
     return (
       <Typography.Text data-testid="roi-delta-f" style={{ color: GYRE_COLORS.amberText }}>
@@ -34,7 +34,7 @@ function RoiDeltaF({ run }: { run: AnalysisRunDto }) {
 }
 
 /** The headline numbers of a run, and the settings they were computed with. */
-export function RunSummary({ run }: { run: AnalysisRunDto }) {
+export function RunSummary({ run }: { run: AnalysisRunView }) {
   const band = `${formatHzRange(run.bandHz)} (${BAND_SOURCE[run.bandSource]})`;
   const items =
     run.kind === 'task'

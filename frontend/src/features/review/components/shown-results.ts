@@ -1,8 +1,8 @@
-import type { RecordingDto } from '@gyre/shared';
+import type { RecordingView } from '@gyre/shared';
 import { useRecordingResults } from '../api/get-recording-results';
 
 /** States in which a recording is on its way; its last results stay on screen meanwhile. */
-export const IN_PROGRESS: ReadonlySet<RecordingDto['state']> = new Set([
+export const IN_PROGRESS: ReadonlySet<RecordingView['state']> = new Set([
   'received',
   'validating',
   'queued',
@@ -10,7 +10,7 @@ export const IN_PROGRESS: ReadonlySet<RecordingDto['state']> = new Set([
 ]);
 
 /** The results Review shows for a recording: its latest run's, while ready or recomputing. */
-export function useShownResults(recording: RecordingDto | null) {
+export function useShownResults(recording: RecordingView | null) {
   const showable =
     recording !== null &&
     recording.latestRunId !== null &&

@@ -1,4 +1,4 @@
-import type { TaskResultsDto, TrialRasterDto } from '@gyre/shared';
+import type { TaskResultsView, TrialRasterView } from '@gyre/shared';
 import { Skeleton, Typography } from 'antd';
 import { useMemo } from 'react';
 import { HeatmapCanvas, type HeatmapMatrix } from '../../../components/charts/heatmap-canvas';
@@ -6,7 +6,7 @@ import { ErrorState } from '../../../components/page-states';
 import { useTrialRaster } from '../api/get-trial-raster';
 
 /** The raster's rows in one array; a null cell (dropped, undefined) becomes NaN. */
-export function rasterMatrix(raster: TrialRasterDto): HeatmapMatrix {
+export function rasterMatrix(raster: TrialRasterView): HeatmapMatrix {
   const { trials: rows, points: columns } = raster;
   const values = Float64Array.from(raster.valuesHz, (v) => v ?? Number.NaN);
   if (values.length !== rows * columns) {
@@ -20,7 +20,7 @@ export function rasterMatrix(raster: TrialRasterDto): HeatmapMatrix {
   };
 }
 
-function RasterCanvas({ raster, bandHz }: { raster: TrialRasterDto; bandHz: [number, number] }) {
+function RasterCanvas({ raster, bandHz }: { raster: TrialRasterView; bandHz: [number, number] }) {
   const matrix = useMemo(() => rasterMatrix(raster), [raster]);
   return (
     <HeatmapCanvas
@@ -50,7 +50,7 @@ export function TrialRaster({
 }: {
   recordingId: string;
   runId: string;
-  task: TaskResultsDto;
+  task: TaskResultsView;
   bandHz: [number, number];
 }) {
   const empty = task.raster.trials === 0 || task.raster.points === 0;

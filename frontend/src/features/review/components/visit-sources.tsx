@@ -1,4 +1,4 @@
-import type { RecordingDto, RecordingKind, RecordingResultsDto } from '@gyre/shared';
+import type { RecordingView, RecordingKind, RecordingResultsView } from '@gyre/shared';
 import { Flex, Typography } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
 import { formatDateTime } from '../../../lib/format';
@@ -20,10 +20,10 @@ function Replaced({
   reason,
   all,
 }: {
-  recording: RecordingDto;
+  recording: RecordingView;
   replacesId: string | null;
   reason: string | null;
-  all: RecordingDto[];
+  all: RecordingView[];
 }) {
   if (replacesId === null) return null;
   const earlier = all.find((r) => r.id === replacesId) ?? null;
@@ -47,8 +47,8 @@ function SourceLine({
   all,
 }: {
   kind: RecordingKind;
-  recording: RecordingDto | null;
-  all: RecordingDto[];
+  recording: RecordingView | null;
+  all: RecordingView[];
 }) {
   const { showable, results } = useShownResults(recording);
   const label = kind === 'task' ? 'Task' : 'Resting';
@@ -59,7 +59,7 @@ function SourceLine({
       </div>
     );
   }
-  const data: RecordingResultsDto | undefined = showable ? results.data : undefined;
+  const data: RecordingResultsView | undefined = showable ? results.data : undefined;
   return (
     <div data-testid={`source-${kind}`}>
       {data === undefined ? (
@@ -107,9 +107,9 @@ export function VisitSources({
   rest,
   all,
 }: {
-  task: RecordingDto | null;
-  rest: RecordingDto | null;
-  all: RecordingDto[];
+  task: RecordingView | null;
+  rest: RecordingView | null;
+  all: RecordingView[];
 }) {
   return (
     <section
@@ -122,7 +122,7 @@ export function VisitSources({
         marginBottom: 20,
       }}
     >
-      <Typography.Text type="secondary" style={{ fontSize: 12, letterSpacing: 0.3 }}>
+      <Typography.Text type="secondary" className="gyre-caption-caps">
         WHERE THESE NUMBERS COME FROM
       </Typography.Text>
       <Flex vertical gap={8} style={{ marginTop: 4 }}>

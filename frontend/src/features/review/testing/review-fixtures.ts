@@ -1,19 +1,19 @@
 import type {
-  AnalysisRunDto,
-  AnalysisSettingsDto,
-  OnsetCurveDto,
+  AnalysisRunView,
+  AnalysisSettingsView,
+  OnsetCurveView,
   ParticipantView,
-  RecordingDto,
-  RecordingResultsDto,
-  ReportDto,
-  RoiUsageDto,
-  TrialRasterDto,
-  VisitAnalysisOverrideDto,
-  VisitFlagDto,
-  VisitReviewStateDto,
+  RecordingView,
+  RecordingResultsView,
+  ReportView,
+  RoiUsageView,
+  TrialRasterView,
+  VisitAnalysisOverrideView,
+  VisitFlagView,
+  VisitReviewStateView,
   VisitView,
 } from '@gyre/shared';
-import { STUDY, SITE } from '../../../test/fixtures';
+import { DEFAULT_SETTINGS, STUDY, SITE } from '../../../test/fixtures';
 
 // Generated test data: one invented visit with a task and a resting recording.
 
@@ -49,7 +49,7 @@ export const VISIT: VisitView = {
 };
 
 /** Every region-of-interest channel used (the file's labels, as the server reports them). */
-export const COMPLETE_ROI: RoiUsageDto = {
+export const COMPLETE_ROI: RoiUsageView = {
   wanted: ['O1', 'O2', 'Pz'],
   used: ['EEG O1-REF', 'EEG O2-REF', 'EEG Pz-REF'],
   leftOut: [],
@@ -57,7 +57,7 @@ export const COMPLETE_ROI: RoiUsageDto = {
 };
 
 /** O2 flat, so the region averages O1 and Pz only. */
-export const PARTIAL_ROI: RoiUsageDto = {
+export const PARTIAL_ROI: RoiUsageView = {
   wanted: ['O1', 'O2', 'Pz'],
   used: ['EEG O1-REF', 'EEG Pz-REF'],
   leftOut: [{ label: 'EEG O2-REF', reason: 'flat' }],
@@ -65,7 +65,7 @@ export const PARTIAL_ROI: RoiUsageDto = {
 };
 
 /** No region channel left: O1 and Pz saturated, O2 flat. */
-export const NO_ROI: RoiUsageDto = {
+export const NO_ROI: RoiUsageView = {
   wanted: ['O1', 'O2', 'Pz'],
   used: [],
   leftOut: [
@@ -76,7 +76,7 @@ export const NO_ROI: RoiUsageDto = {
   status: 'none',
 };
 
-export function recording(kind: 'task' | 'resting', runId: string): RecordingDto {
+export function recording(kind: 'task' | 'resting', runId: string): RecordingView {
   return {
     id: `rec-${kind}`,
     studyId: STUDY.id,
@@ -106,12 +106,12 @@ export function recording(kind: 'task' | 'resting', runId: string): RecordingDto
   };
 }
 
-export const RECORDINGS: RecordingDto[] = [
+export const RECORDINGS: RecordingView[] = [
   recording('task', 'run-task'),
   recording('resting', 'run-rest'),
 ];
 
-function run(kind: 'task' | 'resting'): AnalysisRunDto {
+function run(kind: 'task' | 'resting'): AnalysisRunView {
   return {
     id: kind === 'task' ? 'run-task' : 'run-rest',
     recordingId: `rec-${kind}`,
@@ -140,7 +140,7 @@ function run(kind: 'task' | 'resting'): AnalysisRunDto {
   };
 }
 
-function source(kind: 'task' | 'resting'): RecordingResultsDto['source'] {
+function source(kind: 'task' | 'resting'): RecordingResultsView['source'] {
   return {
     recordingId: `rec-${kind}`,
     kind,
@@ -175,7 +175,7 @@ const curve = (name: string, shift: number) => ({
   ciHighHz: timeS.map((t) => (t > 0.1 && t < 1 ? 9.9 : 10.2) + shift),
 });
 
-export const TASK_RESULTS: RecordingResultsDto = {
+export const TASK_RESULTS: RecordingResultsView = {
   run: run('task'),
   source: source('task'),
   channels: [
@@ -238,7 +238,7 @@ export const TASK_RESULTS: RecordingResultsDto = {
 };
 
 /** `GET /api/recordings/rec-task/results/raster`: 4 trials × 8 points, one trial all dropped. */
-export const TASK_RASTER: TrialRasterDto = {
+export const TASK_RASTER: TrialRasterView = {
   timeS,
   trialOnsetsS: [10, 20, 30, 40],
   trialDeltaFHz: [-0.3, -0.2, null, -0.4],
@@ -253,13 +253,13 @@ export const TASK_RASTER: TrialRasterDto = {
 };
 
 /** `GET /api/recordings/rec-task/results/curves?channel=`: each channel's own curve. */
-export const CHANNEL_CURVES: Record<string, OnsetCurveDto> = {
+export const CHANNEL_CURVES: Record<string, OnsetCurveView> = {
   'EEG O1-REF': curve('EEG O1-REF', 0.05),
   'EEG O2-REF': curve('EEG O2-REF', -0.4),
 };
 
 const frequencyHz = Array.from({ length: 81 }, (_, i) => i * 0.5);
-export const REST_RESULTS: RecordingResultsDto = {
+export const REST_RESULTS: RecordingResultsView = {
   run: run('resting'),
   source: source('resting'),
   channels: [],
@@ -276,27 +276,9 @@ export const REST_RESULTS: RecordingResultsDto = {
   quality,
 };
 
-export const SETTINGS: AnalysisSettingsDto = {
-  id: 'set-1',
-  studyId: STUDY.id,
-  version: 1,
-  changes: [],
-  reason: 'Defaults written by Gyre',
-  createdById: null,
-  createdAt: '2025-01-06T09:00:00.000Z',
-  bandHz: null,
-  method: 'filter',
-  morletCycles: 7,
-  epochWindowS: [-1, 2],
-  baselineWindowS: [-0.5, 0],
-  postWindowS: [0.2, 0.8],
-  rejectionThresholdUv: 100,
-  flagThresholdHz: -0.2,
-  roi: ['O1', 'O2', 'Pz'],
-  onsetLabel: null,
-};
+export const SETTINGS: AnalysisSettingsView = DEFAULT_SETTINGS;
 
-export const NO_FLAG: VisitFlagDto = {
+export const NO_FLAG: VisitFlagView = {
   visitId: VISIT.id,
   current: null,
   suggestion: {
@@ -310,7 +292,7 @@ export const NO_FLAG: VisitFlagDto = {
   history: [],
 };
 
-export const NO_OVERRIDE: VisitAnalysisOverrideDto = {
+export const NO_OVERRIDE: VisitAnalysisOverrideView = {
   visitId: VISIT.id,
   revision: 0,
   roi: null,
@@ -321,7 +303,7 @@ export const NO_OVERRIDE: VisitAnalysisOverrideDto = {
   updatedAt: null,
 };
 
-export const REPORT: ReportDto = {
+export const REPORT: ReportView = {
   id: 'rep-1',
   visitId: VISIT.id,
   participantId: PARTICIPANT.id,
@@ -332,7 +314,7 @@ export const REPORT: ReportDto = {
 };
 
 /** The visit's results, not yet reviewed by anyone (fingerprint invented). */
-export const NOT_REVIEWED: VisitReviewStateDto = {
+export const NOT_REVIEWED: VisitReviewStateView = {
   visitId: VISIT.id,
   currentFingerprint: '5'.repeat(64),
   currentRunIds: ['resting:run-rest', 'task:run-task'],

@@ -1,13 +1,13 @@
 import type {
-  AnalysisSettingsDto,
-  OnsetCurveDto,
-  RecordingDto,
-  RecordingResultsDto,
-  ReportSignOffDto,
-  TrialRasterDto,
-  VisitAnalysisOverrideDto,
-  VisitFlagDto,
-  VisitReviewStateDto,
+  AnalysisSettingsView,
+  OnsetCurveView,
+  RecordingView,
+  RecordingResultsView,
+  ReportSignOffView,
+  TrialRasterView,
+  VisitAnalysisOverrideView,
+  VisitFlagView,
+  VisitReviewStateView,
 } from '@gyre/shared';
 import { SIGNATURE_MEANING } from '@gyre/shared';
 import { http, HttpResponse } from 'msw';
@@ -29,19 +29,19 @@ import {
 } from './review-fixtures';
 
 export interface ReviewServed {
-  recordings?: RecordingDto[];
-  task?: RecordingResultsDto;
-  rest?: RecordingResultsDto;
+  recordings?: RecordingView[];
+  task?: RecordingResultsView;
+  rest?: RecordingResultsView;
   /** The task's trial raster; `null` leaves it to the test's own handler. */
-  raster?: TrialRasterDto | null;
+  raster?: TrialRasterView | null;
   /** Channel curves by label (default CHANNEL_CURVES); an unknown label answers 404. */
-  curves?: Record<string, OnsetCurveDto>;
+  curves?: Record<string, OnsetCurveView>;
   /** `null` leaves the flag to the test's own handler. */
-  flag?: VisitFlagDto | null;
-  override?: VisitAnalysisOverrideDto;
-  settings?: AnalysisSettingsDto;
+  flag?: VisitFlagView | null;
+  override?: VisitAnalysisOverrideView;
+  settings?: AnalysisSettingsView;
   /** `null` leaves the review state to the test's own handler. */
-  review?: VisitReviewStateDto | null;
+  review?: VisitReviewStateView | null;
 }
 
 /** Every request the Review screen makes for one visit, answered from the fixtures. */
@@ -117,7 +117,7 @@ export function serveReview(served: ReviewServed = {}) {
         canSign: true,
         cannotSignReason: null,
         revisions: [],
-      } satisfies ReportSignOffDto),
+      } satisfies ReportSignOffView),
     ),
   );
 }

@@ -1,4 +1,4 @@
-import type { ReportSignOffDto } from '@gyre/shared';
+import type { ReportSignOffView } from '@gyre/shared';
 import useSWR from 'swr';
 import { ApiError, apiFetch } from '../../../lib/api-client';
 
@@ -7,9 +7,9 @@ export const signOffKey = (visitId: string) =>
   `/api/visits/${encodeURIComponent(visitId)}/report/sign-off`;
 
 /** A visit without a report yet answers 404: shown as "nothing to sign". */
-export async function getSignOff(visitId: string): Promise<ReportSignOffDto | null> {
+export async function getSignOff(visitId: string): Promise<ReportSignOffView | null> {
   try {
-    return await apiFetch<ReportSignOffDto>(signOffKey(visitId));
+    return await apiFetch<ReportSignOffView>(signOffKey(visitId));
   } catch (error) {
     if (error instanceof ApiError && error.status === 404) return null;
     throw error;
@@ -17,5 +17,5 @@ export async function getSignOff(visitId: string): Promise<ReportSignOffDto | nu
 }
 
 export function useSignOff(visitId: string) {
-  return useSWR<ReportSignOffDto | null>(signOffKey(visitId), () => getSignOff(visitId));
+  return useSWR<ReportSignOffView | null>(signOffKey(visitId), () => getSignOff(visitId));
 }

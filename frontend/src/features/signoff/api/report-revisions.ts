@@ -1,4 +1,4 @@
-import type { Page, ReportRevisionDto } from '@gyre/shared';
+import type { Page, ReportRevisionView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiDownload, apiFetch, saveBlob, withQuery } from '../../../lib/api-client';
 
@@ -7,12 +7,12 @@ export function reportRevisionsKey(page: number, pageSize: number): string {
   return withQuery('/api/report-revisions', { page, pageSize, sort: 'signedAt', order: 'desc' });
 }
 
-export function getReportRevisions(key: string): Promise<Page<ReportRevisionDto>> {
-  return apiFetch<Page<ReportRevisionDto>>(key);
+export function getReportRevisions(key: string): Promise<Page<ReportRevisionView>> {
+  return apiFetch<Page<ReportRevisionView>>(key);
 }
 
 export function useReportRevisions(page: number, pageSize: number) {
-  return useSWR<Page<ReportRevisionDto>>(reportRevisionsKey(page, pageSize), getReportRevisions, {
+  return useSWR<Page<ReportRevisionView>>(reportRevisionsKey(page, pageSize), getReportRevisions, {
     keepPreviousData: true,
   });
 }
@@ -22,13 +22,14 @@ export const reportRevisionKey = (revisionId: string) =>
   `/api/report-revisions/${encodeURIComponent(revisionId)}`;
 
 export function useReportRevision(revisionId: string | null) {
-  return useSWR<ReportRevisionDto>(revisionId === null ? null : reportRevisionKey(revisionId), () =>
-    apiFetch<ReportRevisionDto>(reportRevisionKey(revisionId ?? '')),
+  return useSWR<ReportRevisionView>(
+    revisionId === null ? null : reportRevisionKey(revisionId),
+    () => apiFetch<ReportRevisionView>(reportRevisionKey(revisionId ?? '')),
   );
 }
 
 /** `GET /api/report-revisions/:id/file`: the signed PDF, saved under the server's file name. */
-export async function downloadRevision(revision: ReportRevisionDto): Promise<void> {
+export async function downloadRevision(revision: ReportRevisionView): Promise<void> {
   const { blob, fileName } = await apiDownload(`${reportRevisionKey(revision.id)}/file`);
   saveBlob(blob, fileName ?? `gyre-report-${revision.participantCode}-r${revision.revision}.pdf`);
 }

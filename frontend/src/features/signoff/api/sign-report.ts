@@ -1,4 +1,4 @@
-import type { ReportRevisionDto, SignReportRequest } from '@gyre/shared';
+import type { ReportRevisionView, SignReportRequest } from '@gyre/shared';
 import { useCallback } from 'react';
 import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
@@ -8,8 +8,8 @@ import { signOffKey } from './get-sign-off';
 export function signReport(
   visitId: string,
   request: SignReportRequest,
-): Promise<ReportRevisionDto> {
-  return apiSend<ReportRevisionDto>(
+): Promise<ReportRevisionView> {
+  return apiSend<ReportRevisionView>(
     `/api/visits/${encodeURIComponent(visitId)}/report/sign`,
     'POST',
     request,

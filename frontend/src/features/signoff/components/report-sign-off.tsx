@@ -1,4 +1,4 @@
-import type { ReportRevisionDto } from '@gyre/shared';
+import type { ReportRevisionView } from '@gyre/shared';
 import { App, Button, Flex, List, Skeleton, Tag, Typography } from 'antd';
 import { useEffect, useState } from 'react';
 import { ErrorState } from '../../../components/page-states';
@@ -11,9 +11,10 @@ import { reportStatusOf } from './report-status';
 
 export { ReportStatusTag } from './report-status';
 import { SignReportDialog } from './sign-report-dialog';
+import { GYRE_COLORS } from '../../../app/theme';
 
 /** One signed revision with its signature and a download. */
-function RevisionItem({ revision }: { revision: ReportRevisionDto }) {
+function RevisionItem({ revision }: { revision: ReportRevisionView }) {
   const { message } = App.useApp();
   const [busy, setBusy] = useState(false);
   const download = async () => {
@@ -44,7 +45,7 @@ function RevisionItem({ revision }: { revision: ReportRevisionDto }) {
         title={
           <span>
             Revision {revision.revision}{' '}
-            <Tag color={revision.state === 'sent' ? 'success' : '#24525A'}>
+            <Tag color={revision.state === 'sent' ? 'success' : GYRE_COLORS.primary}>
               {revision.state === 'sent' ? 'Sent' : 'Signed'}
             </Tag>
           </span>

@@ -1,17 +1,17 @@
-import type { ReportRevisionDto, ReportSignOffDto } from '@gyre/shared';
+import type { ReportRevisionView, ReportSignOffView } from '@gyre/shared';
 import { SIGNATURE_MEANING } from '@gyre/shared';
 import { describe, expect, it } from 'vitest';
 import { reportStatusOf } from './report-status';
 
 // Generated test data: a report with up to two signed revisions.
-const revision = (n: number, state: ReportRevisionDto['state']): ReportRevisionDto =>
-  ({ id: `rev-${n}`, revision: n, state }) as ReportRevisionDto;
+const revision = (n: number, state: ReportRevisionView['state']): ReportRevisionView =>
+  ({ id: `rev-${n}`, revision: n, state }) as ReportRevisionView;
 
 const signOff = (
   pendingRevision: number | null,
-  revisions: ReportRevisionDto[],
-  state: ReportSignOffDto['report']['state'],
-): ReportSignOffDto => ({
+  revisions: ReportRevisionView[],
+  state: ReportSignOffView['report']['state'],
+): ReportSignOffView => ({
   report: {
     id: 'report-1',
     visitId: 'visit-1',

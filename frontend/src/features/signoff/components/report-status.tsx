@@ -1,4 +1,4 @@
-import type { ReportSignOffDto } from '@gyre/shared';
+import type { ReportSignOffView } from '@gyre/shared';
 import { Tag } from 'antd';
 import { useSignOff } from '../api/get-sign-off';
 import { GYRE_COLORS } from '../../../app/theme';
@@ -15,7 +15,7 @@ export interface ReportStatus {
  * says whether a newer draft awaits signing. Review's header chip and its report card both
  * show this, so they cannot disagree.
  */
-export function reportStatusOf(signOff: ReportSignOffDto): ReportStatus {
+export function reportStatusOf(signOff: ReportSignOffView): ReportStatus {
   const latest = signOff.revisions[0];
   const pending = signOff.pendingRevision;
   if (latest === undefined) {
@@ -32,7 +32,7 @@ export function reportStatusOf(signOff: ReportSignOffDto): ReportStatus {
   }
   return latest.state === 'sent'
     ? { words: `Revision ${latest.revision} sent to coordinators`, color: 'success' }
-    : { words: `Revision ${latest.revision} signed, not yet sent`, color: '#24525A' };
+    : { words: `Revision ${latest.revision} signed, not yet sent`, color: GYRE_COLORS.primary };
 }
 
 /** The report chip of Review's header; nothing while loading or when the role may not read it. */

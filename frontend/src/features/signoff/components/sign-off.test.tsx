@@ -1,4 +1,4 @@
-import type { Page, ReportRevisionDto, ReportSignOffDto, Role } from '@gyre/shared';
+import type { Page, ReportRevisionView, ReportSignOffView, Role } from '@gyre/shared';
 import { SIGNATURE_MEANING } from '@gyre/shared';
 import { AbilityProvider } from '@casl/react';
 import { render, screen, waitFor, within } from '@testing-library/react';
@@ -22,7 +22,7 @@ const VISIT = 'visit-1';
 const FINGERPRINT = 'f'.repeat(64);
 const PDF_BYTES = new TextEncoder().encode('%PDF-1.7 generated test bytes');
 
-const revision = (n: number, state: ReportRevisionDto['state'] = 'sent'): ReportRevisionDto => ({
+const revision = (n: number, state: ReportRevisionView['state'] = 'sent'): ReportRevisionView => ({
   id: `rev-${n}`,
   reportId: 'report-1',
   visitId: VISIT,
@@ -43,7 +43,7 @@ const revision = (n: number, state: ReportRevisionDto['state'] = 'sent'): Report
   sentAt: state === 'sent' ? `2025-03-0${n}T10:01:00.000Z` : null,
 });
 
-const signOff = (overrides: Partial<ReportSignOffDto> = {}): ReportSignOffDto => ({
+const signOff = (overrides: Partial<ReportSignOffView> = {}): ReportSignOffView => ({
   report: {
     id: 'report-1',
     visitId: VISIT,
@@ -228,7 +228,7 @@ describe('ReportSignOff', () => {
 });
 
 describe('SignedReports', () => {
-  const page = (items: ReportRevisionDto[]): Page<ReportRevisionDto> => ({
+  const page = (items: ReportRevisionView[]): Page<ReportRevisionView> => ({
     items,
     total: items.length,
     page: 1,

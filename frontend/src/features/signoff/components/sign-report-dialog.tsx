@@ -1,4 +1,4 @@
-import type { ReportRevisionDto, ReportSignOffDto } from '@gyre/shared';
+import type { ReportRevisionView, ReportSignOffView } from '@gyre/shared';
 import { Alert, Button, Checkbox, Flex, Form, Input, Modal, Spin, Typography } from 'antd';
 import { useEffect, useId, useMemo, useState } from 'react';
 import useSWR from 'swr';
@@ -6,6 +6,7 @@ import { RESEARCH_CAUTION } from '../../../components/research-caution';
 import { ApiError } from '../../../lib/api-client';
 import { fetchReportPreview, reportPreviewPath } from '../api/preview-report';
 import { useSignReport } from '../api/sign-report';
+import { GYRE_COLORS } from '../../../app/theme';
 
 interface SignFormValues {
   password: string;
@@ -47,11 +48,11 @@ export function SignReportDialog({
   onStale,
 }: {
   visitId: string;
-  signOff: ReportSignOffDto;
+  signOff: ReportSignOffView;
   /** False: a preview only (e.g. for a monitor), without the signing form. */
   canSign: boolean;
   onClose: () => void;
-  onSigned: (revision: ReportRevisionDto) => void;
+  onSigned: (revision: ReportRevisionView) => void;
   /** The server said the visit changed: reload the sign-off state. */
   onStale: () => Promise<unknown>;
 }) {
@@ -108,7 +109,7 @@ export function SignReportDialog({
       <div
         style={{
           height: '58vh',
-          border: '1px solid #DCE5E6',
+          border: `1px solid ${GYRE_COLORS.line}`,
           borderRadius: 6,
           overflow: 'hidden',
           marginBottom: 16,

@@ -1,19 +1,20 @@
-import type { ReportRevisionDto } from '@gyre/shared';
-import { Alert, App, Button, Card, Table, Tag, Typography } from 'antd';
+import type { ReportRevisionView } from '@gyre/shared';
+import { Alert, App, Button, Card, Tag, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import { EmptyState, ErrorState } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
 import { formatDate, formatDateTime } from '../../../lib/format';
 import { downloadRevision, useReportRevision, useReportRevisions } from '../api/report-revisions';
+import { PagedTable } from '../../../components/paged-table';
+import { GYRE_COLORS } from '../../../app/theme';
 
 const PAGE_SIZE = 20;
 
 function useDownload() {
   const { message } = App.useApp();
   const [busy, setBusy] = useState<string | null>(null);
-  const download = async (revision: ReportRevisionDto) => {
+  const download = async (revision: ReportRevisionView) => {
     setBusy(revision.id);
     try {
       await downloadRevision(revision);
@@ -26,7 +27,7 @@ function useDownload() {
   return { busy, download };
 }
 
-const nameOf = (r: ReportRevisionDto) =>
+const nameOf = (r: ReportRevisionView) =>
   `${r.participantCode} ${r.visitLabel} revision ${r.revision}`;
 
 /** The revision an e-mail linked to (`/reports?revision=…`), with its download up front. */
@@ -78,7 +79,7 @@ export function SignedReports() {
   const { data, error, isLoading, mutate } = useReportRevisions(page, PAGE_SIZE);
   const { busy, download } = useDownload();
 
-  const columns: TableColumnsType<ReportRevisionDto> = [
+  const columns: TableColumnsType<ReportRevisionView> = [
     { title: 'Participant', dataIndex: 'participantCode' },
     {
       title: 'Visit',
@@ -104,8 +105,12 @@ export function SignedReports() {
       title: 'State',
       dataIndex: 'state',
       width: 90,
-      render: (state: ReportRevisionDto['state']) =>
-        state === 'sent' ? <Tag color="success">Sent</Tag> : <Tag color="#24525A">Signed</Tag>,
+      render: (state: ReportRevisionView['state']) =>
+        state === 'sent' ? (
+          <Tag color="success">Sent</Tag>
+        ) : (
+          <Tag color={GYRE_COLORS.primary}>Signed</Tag>
+        ),
     },
     {
       title: 'File',
@@ -128,36 +133,16 @@ export function SignedReports() {
     <>
       {linked !== null && <LinkedRevision revisionId={linked} />}
       <Card>
-        {error !== undefined ? (
-          <ErrorState
-            error={error}
-            onRetry={() => void mutate()}
-            title="The signed reports could not be loaded"
-          />
-        ) : (
-          <Table<ReportRevisionDto>
-            rowKey="id"
-            scroll={{ x: 'max-content' }}
-            size="middle"
-            loading={isLoading}
-            columns={columns}
-            dataSource={data?.items ?? []}
-            rowClassName={(r) => (r.id === linked ? 'ant-table-row-selected' : '')}
-            pagination={{
-              current: page,
-              pageSize: PAGE_SIZE,
-              total: data?.total ?? 0,
-              showSizeChanger: false,
-              hideOnSinglePage: true,
-              onChange: setPage,
-            }}
-            locale={{
-              emptyText: (
-                <EmptyState description="No signed reports yet. A report appears here once an analyst signs a visit." />
-              ),
-            }}
-          />
-        )}
+        <PagedTable<ReportRevisionView>
+          query={{ data, error, isLoading, mutate }}
+          loadErrorTitle="The signed reports could not be loaded"
+          emptyText="No signed reports yet. A report appears here once an analyst signs a visit."
+          columns={columns}
+          page={page}
+          pageSize={PAGE_SIZE}
+          onPageChange={setPage}
+          rowClassName={(r) => (r.id === linked ? 'ant-table-row-selected' : '')}
+        />
       </Card>
     </>
   );

@@ -1,4 +1,4 @@
-import type { StudyOverviewDto } from '@gyre/shared';
+import type { StudyOverviewView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch } from '../../../lib/api-client';
 
@@ -6,12 +6,12 @@ import { apiFetch } from '../../../lib/api-client';
 export const studyOverviewKey = (studyId: string) =>
   `/api/studies/${encodeURIComponent(studyId)}/overview`;
 
-export function getStudyOverview(studyId: string): Promise<StudyOverviewDto> {
-  return apiFetch<StudyOverviewDto>(studyOverviewKey(studyId));
+export function getStudyOverview(studyId: string): Promise<StudyOverviewView> {
+  return apiFetch<StudyOverviewView>(studyOverviewKey(studyId));
 }
 
 export function useStudyOverview(studyId: string | null) {
-  return useSWR<StudyOverviewDto>(studyId === null ? null : studyOverviewKey(studyId), () =>
+  return useSWR<StudyOverviewView>(studyId === null ? null : studyOverviewKey(studyId), () =>
     getStudyOverview(studyId ?? ''),
   );
 }

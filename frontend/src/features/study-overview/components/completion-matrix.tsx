@@ -1,4 +1,4 @@
-import type { CompletionState, OverviewCell, StudyOverviewDto } from '@gyre/shared';
+import type { CompletionState, OverviewCell, StudyOverviewView } from '@gyre/shared';
 import { Table, Typography } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
 
@@ -44,7 +44,7 @@ interface Row {
 }
 
 /** Participants × planned visits, each cell the visit's state in words (scrolls sideways on a phone). */
-export function CompletionMatrix({ overview }: { overview: StudyOverviewDto }) {
+export function CompletionMatrix({ overview }: { overview: StudyOverviewView }) {
   const siteName = new Map(overview.sites.map((s) => [s.id, s.name]));
   const groupName = new Map(overview.groups.map((g) => [g.id, g.name]));
   const rows: Row[] = overview.participants.map((p) => ({
@@ -81,7 +81,7 @@ export function CompletionMatrix({ overview }: { overview: StudyOverviewDto }) {
             title: 'Participant',
             fixed: 'left',
             render: (_, row) => (
-              <span style={{ whiteSpace: 'nowrap' }}>
+              <span className="gyre-nowrap">
                 <span className="gyre-figures">{row.code}</span>
                 <Typography.Text type="secondary" style={{ display: 'block', fontSize: 12 }}>
                   {row.where}
@@ -92,7 +92,7 @@ export function CompletionMatrix({ overview }: { overview: StudyOverviewDto }) {
           ...overview.plannedVisits.map((pv, i) => ({
             key: pv.id,
             title: (
-              <span style={{ whiteSpace: 'nowrap' }}>
+              <span className="gyre-nowrap">
                 {pv.name}
                 <Typography.Text type="secondary" style={{ display: 'block', fontSize: 12 }}>
                   day {pv.targetDay} · {counts[i]} present

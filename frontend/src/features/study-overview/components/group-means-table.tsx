@@ -1,4 +1,4 @@
-import { OVERVIEW_MEASURES, type OverviewStat, type StudyOverviewDto } from '@gyre/shared';
+import { OVERVIEW_MEASURES, type OverviewStat, type StudyOverviewView } from '@gyre/shared';
 import { Table } from 'antd';
 import { ScrollRegion } from '../../../components/scroll-region';
 import { splitEntries, statsOf, type OverviewSplit } from './overview-spec';
@@ -25,7 +25,7 @@ export function GroupMeansTable({
   overview,
   split,
 }: {
-  overview: StudyOverviewDto;
+  overview: StudyOverviewView;
   split: OverviewSplit;
 }) {
   const stats = statsOf(overview, split);
@@ -59,9 +59,7 @@ export function GroupMeansTable({
             key: m,
             title: m === 'paf' ? 'PAF' : m === 'cog' ? 'CoG' : 'Δf',
             render: (_: unknown, row: Row) => (
-              <span className="gyre-figures" style={{ whiteSpace: 'nowrap' }}>
-                {statText(row.stats[m])}
-              </span>
+              <span className="gyre-figures gyre-nowrap">{statText(row.stats[m])}</span>
             ),
           })),
         ]}

@@ -1,8 +1,9 @@
-import { OVERVIEW_MEASURES, type StudyOverviewDto } from '@gyre/shared';
+import { OVERVIEW_MEASURES, type StudyOverviewView } from '@gyre/shared';
 import { Col, Empty, Row, Typography } from 'antd';
 import { useMemo } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
 import { MEASURE_WORDS, overviewSpec, splitEntries, type OverviewSplit } from './overview-spec';
+import { GYRE_COLORS } from '../../../app/theme';
 
 const CHART_HEIGHT_PX = 260;
 
@@ -30,7 +31,7 @@ export function OverviewCharts({
   overview,
   split,
 }: {
-  overview: StudyOverviewDto;
+  overview: StudyOverviewView;
   split: OverviewSplit;
 }) {
   const specs = useMemo(
@@ -50,7 +51,7 @@ export function OverviewCharts({
         {entries.map((e) => (
           <Key key={e.key ?? 'none'} colour={e.colour} text={`${e.name}: mean and 95 % CI`} />
         ))}
-        <Key colour="#1D2B2F" text="Each participant" faint />
+        <Key colour={GYRE_COLORS.ink} text="Each participant" faint />
       </div>
       <Row gutter={[24, 24]}>
         {specs.map(({ measure, spec }) => (

@@ -3,7 +3,7 @@ import {
   MIN_AXIS_SPAN_HZ,
   type OverviewMeasure,
   type OverviewStat,
-  type StudyOverviewDto,
+  type StudyOverviewView,
 } from '@gyre/shared';
 import { CHART_PALETTE, GYRE_COLORS } from '../../../app/theme';
 import {
@@ -32,7 +32,7 @@ export interface SplitEntry {
   colour: string;
 }
 
-export function splitEntries(overview: StudyOverviewDto, split: OverviewSplit): SplitEntry[] {
+export function splitEntries(overview: StudyOverviewView, split: OverviewSplit): SplitEntry[] {
   const named =
     split === 'group'
       ? overview.groups.map((g) => ({ key: g.id as string | null, name: g.name }))
@@ -43,7 +43,7 @@ export function splitEntries(overview: StudyOverviewDto, split: OverviewSplit): 
   return named.map((entry, i) => ({ ...entry, colour: CHART_PALETTE[i % CHART_PALETTE.length] }));
 }
 
-export function statsOf(overview: StudyOverviewDto, split: OverviewSplit): OverviewStat[] {
+export function statsOf(overview: StudyOverviewView, split: OverviewSplit): OverviewStat[] {
   return split === 'group' ? overview.byGroup : overview.bySite;
 }
 
@@ -67,7 +67,7 @@ interface MeanPoint {
  * group (or site) the mean with its 95 % confidence band (Student t) and points.
  */
 export function overviewSpec(
-  overview: StudyOverviewDto,
+  overview: StudyOverviewView,
   measure: OverviewMeasure,
   split: OverviewSplit,
   heightPx = 260,

@@ -6,14 +6,14 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/page-s
 import { ResearchCaution } from '../../../components/research-caution';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
-import { StudyExportLinks } from '../../exports/components/study-export-links';
-import { useStudies } from '../../study-settings/api/studies';
+import { useStudies } from '../../../lib/studies';
 import { useStudyOverview } from '../api/get-study-overview';
 import { CompletionMatrix } from './completion-matrix';
 import { GroupMeansTable } from './group-means-table';
 import { OverviewCharts } from './overview-charts';
 import type { OverviewSplit } from './overview-spec';
 import { SiteQualityTable } from './site-quality-table';
+import { StudyExportLinks } from './study-export-links';
 
 /** Admins pick a study (`?study=`); everyone else sees their own. */
 function useChosenStudy(): {

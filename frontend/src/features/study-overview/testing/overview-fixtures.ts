@@ -1,4 +1,4 @@
-import type { OverviewCell, StudyOverviewDto } from '@gyre/shared';
+import type { OverviewCell, StudyOverviewView } from '@gyre/shared';
 import { SITE, STUDY } from '../../../test/fixtures';
 
 // Generated test data: two planned visits, two groups, two sites, three participants.
@@ -15,7 +15,7 @@ const cell = (plannedVisitId: string, extra: Partial<OverviewCell>): OverviewCel
   ...extra,
 });
 
-export const OVERVIEW: StudyOverviewDto = {
+export const OVERVIEW: StudyOverviewView = {
   studyId: STUDY.id,
   plannedVisits: [
     { id: 'pv-0', name: 'Baseline', targetDay: 0 },

@@ -1,4 +1,4 @@
-import type { AnalysisSettingsChange, AnalysisSettingsDto } from '@gyre/shared';
+import type { AnalysisSettingsChange, AnalysisSettingsView } from '@gyre/shared';
 import { useCallback } from 'react';
 import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
@@ -15,8 +15,8 @@ export const ANALYSIS_SETTINGS_UNCHANGED = 'ANALYSIS_SETTINGS_UNCHANGED';
 export function createAnalysisSettings(
   studyId: string,
   change: AnalysisSettingsChange,
-): Promise<AnalysisSettingsDto> {
-  return apiSend<AnalysisSettingsDto>(analysisSettingsKey(studyId), 'POST', change);
+): Promise<AnalysisSettingsView> {
+  return apiSend<AnalysisSettingsView>(analysisSettingsKey(studyId), 'POST', change);
 }
 
 export function useCreateAnalysisSettings() {

@@ -1,4 +1,4 @@
-import type { AnalysisSettingsDto, Page } from '@gyre/shared';
+import type { AnalysisSettingsView, Page } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
 import { analysisSettingsKey } from './get-analysis-settings';
@@ -20,12 +20,12 @@ export const isAnalysisSettingsVersionsKey = (studyId: string) => (key: unknown)
 export function getAnalysisSettingsVersions(
   studyId: string,
   page: number,
-): Promise<Page<AnalysisSettingsDto>> {
-  return apiFetch<Page<AnalysisSettingsDto>>(analysisSettingsVersionsKey(studyId, page));
+): Promise<Page<AnalysisSettingsView>> {
+  return apiFetch<Page<AnalysisSettingsView>>(analysisSettingsVersionsKey(studyId, page));
 }
 
 export function useAnalysisSettingsVersions(studyId: string | null, page: number) {
-  return useSWR<Page<AnalysisSettingsDto>>(
+  return useSWR<Page<AnalysisSettingsView>>(
     studyId === null ? null : analysisSettingsVersionsKey(studyId, page),
     () => getAnalysisSettingsVersions(studyId ?? '', page),
     { keepPreviousData: true },

@@ -1,4 +1,4 @@
-import type { AnalysisSettingsDto } from '@gyre/shared';
+import type { AnalysisSettingsView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch } from '../../../lib/api-client';
 
@@ -6,12 +6,12 @@ import { apiFetch } from '../../../lib/api-client';
 export const analysisSettingsKey = (studyId: string) =>
   `/api/studies/${encodeURIComponent(studyId)}/analysis-settings`;
 
-export function getAnalysisSettings(studyId: string): Promise<AnalysisSettingsDto> {
-  return apiFetch<AnalysisSettingsDto>(analysisSettingsKey(studyId));
+export function getAnalysisSettings(studyId: string): Promise<AnalysisSettingsView> {
+  return apiFetch<AnalysisSettingsView>(analysisSettingsKey(studyId));
 }
 
 export function useAnalysisSettings(studyId: string | null) {
-  return useSWR<AnalysisSettingsDto>(studyId === null ? null : analysisSettingsKey(studyId), () =>
+  return useSWR<AnalysisSettingsView>(studyId === null ? null : analysisSettingsKey(studyId), () =>
     getAnalysisSettings(studyId ?? ''),
   );
 }

@@ -1,6 +1,6 @@
 import type { PlannedVisitView, StudyGroupView } from '@gyre/shared';
-import { useCallback } from 'react';
-import useSWR, { useSWRConfig } from 'swr';
+import { useMemo } from 'react';
+import useSWR, { useSWRConfig, type ScopedMutator } from 'swr';
 import { apiFetch, apiSend } from '../../../lib/api-client';
 
 const studyPath = (studyId: string) => `/api/studies/${encodeURIComponent(studyId)}`;
@@ -36,54 +36,43 @@ export interface GroupInput {
   description: string;
 }
 
+/** Save (`POST` a new item, `PATCH` one by id) and `DELETE` under one list's address. */
+function listWrites<Item, Input>(key: string, mutate: ScopedMutator) {
+  const itemPath = (id: string) => `${key}/${encodeURIComponent(id)}`;
+  return {
+    save: async (id: string | null, input: Input) => {
+      const saved = await apiSend<Item>(
+        id === null ? key : itemPath(id),
+        id === null ? 'POST' : 'PATCH',
+        input,
+      );
+      await mutate(key);
+      return saved;
+    },
+    remove: async (id: string) => {
+      await apiSend<void>(itemPath(id), 'DELETE');
+      await mutate(key);
+    },
+  };
+}
+
 /**
  * Writes of the schedule and the groups (admin): `POST`, `PATCH` and `DELETE` under
  * `/api/studies/:studyId/planned-visits` and `/groups`; each asks for its list again.
  */
 export function useScheduleWrites(studyId: string) {
   const { mutate } = useSWRConfig();
-  return {
-    savePlannedVisit: useCallback(
-      async (id: string | null, input: PlannedVisitInput) => {
-        const key = plannedVisitsKey(studyId);
-        const saved = await apiSend<PlannedVisitView>(
-          id === null ? key : `${key}/${encodeURIComponent(id)}`,
-          id === null ? 'POST' : 'PATCH',
-          input,
-        );
-        await mutate(key);
-        return saved;
-      },
-      [mutate, studyId],
-    ),
-    deletePlannedVisit: useCallback(
-      async (id: string) => {
-        const key = plannedVisitsKey(studyId);
-        await apiSend<void>(`${key}/${encodeURIComponent(id)}`, 'DELETE');
-        await mutate(key);
-      },
-      [mutate, studyId],
-    ),
-    saveGroup: useCallback(
-      async (id: string | null, input: GroupInput) => {
-        const key = groupsKey(studyId);
-        const saved = await apiSend<StudyGroupView>(
-          id === null ? key : `${key}/${encodeURIComponent(id)}`,
-          id === null ? 'POST' : 'PATCH',
-          input,
-        );
-        await mutate(key);
-        return saved;
-      },
-      [mutate, studyId],
-    ),
-    deleteGroup: useCallback(
-      async (id: string) => {
-        const key = groupsKey(studyId);
-        await apiSend<void>(`${key}/${encodeURIComponent(id)}`, 'DELETE');
-        await mutate(key);
-      },
-      [mutate, studyId],
-    ),
-  };
+  return useMemo(() => {
+    const plannedVisits = listWrites<PlannedVisitView, PlannedVisitInput>(
+      plannedVisitsKey(studyId),
+      mutate,
+    );
+    const groups = listWrites<StudyGroupView, GroupInput>(groupsKey(studyId), mutate);
+    return {
+      savePlannedVisit: plannedVisits.save,
+      deletePlannedVisit: plannedVisits.remove,
+      saveGroup: groups.save,
+      deleteGroup: groups.remove,
+    };
+  }, [mutate, studyId]);
 }

@@ -1,110 +1,39 @@
 import type { StudyGroupView } from '@gyre/shared';
-import { App, Button, Card, Form, Input, Modal, Popconfirm, Space, Table, Typography } from 'antd';
-import { useState } from 'react';
-import { EmptyState, ErrorState } from '../../../components/page-states';
-import { ApiError } from '../../../lib/api-client';
+import { Form, Input } from 'antd';
+import { ModalForm } from '../../../components/modal-form';
 import { useGroups, useScheduleWrites, type GroupInput } from '../api/study-schedule';
+import { EditableListSection } from './editable-list-section';
 
 /** The study's groups or arms: admins add, rename and delete them (not while in use). */
 export function GroupsSection({ studyId, canManage }: { studyId: string; canManage: boolean }) {
-  const groups = useGroups(studyId);
   const writes = useScheduleWrites(studyId);
-  const { message } = App.useApp();
-  const [editing, setEditing] = useState<StudyGroupView | 'new' | null>(null);
-
-  const remove = async (group: StudyGroupView) => {
-    try {
-      await writes.deleteGroup(group.id);
-      message.success(`${group.name} deleted.`);
-    } catch (caught) {
-      message.error(
-        caught instanceof ApiError ? caught.message : 'The group could not be deleted.',
-      );
-    }
-  };
-
   return (
-    <Card
+    <EditableListSection<StudyGroupView, GroupInput>
       title="Groups"
-      role="region"
-      aria-label="Groups"
-      extra={
-        canManage && (
-          <Button type="primary" onClick={() => setEditing('new')}>
-            Add group
-          </Button>
-        )
-      }
-    >
-      {groups.error !== undefined ? (
-        <ErrorState
-          title="The groups could not be loaded"
-          error={groups.error}
-          onRetry={() => void groups.mutate()}
-        />
-      ) : groups.data !== undefined && groups.data.length === 0 ? (
-        <EmptyState description="The study has no groups or arms." />
-      ) : (
-        <Table<StudyGroupView>
-          aria-label="Study groups"
-          rowKey="id"
-          size="middle"
-          pagination={false}
-          loading={groups.data === undefined}
-          dataSource={groups.data ?? []}
-          scroll={{ x: 'max-content' }}
-          columns={[
-            { key: 'name', title: 'Group', render: (_, g) => g.name },
-            {
-              key: 'description',
-              title: 'Description',
-              responsive: ['md'],
-              render: (_, g) => g.description || '—',
-            },
-            ...(canManage
-              ? [
-                  {
-                    key: 'actions',
-                    title: 'Actions',
-                    render: (_: unknown, g: StudyGroupView) => (
-                      <Space size={4} wrap>
-                        <Button
-                          size="small"
-                          onClick={() => setEditing(g)}
-                          aria-label={`Change ${g.name}`}
-                        >
-                          Change
-                        </Button>
-                        <Popconfirm
-                          title={`Delete ${g.name}?`}
-                          description="Only a group no participant belongs to can be deleted."
-                          okText="Delete"
-                          onConfirm={() => remove(g)}
-                        >
-                          <Button size="small" danger aria-label={`Delete ${g.name}`}>
-                            Delete
-                          </Button>
-                        </Popconfirm>
-                      </Space>
-                    ),
-                  },
-                ]
-              : []),
-          ]}
-        />
+      addText="Add group"
+      tableLabel="Study groups"
+      list={useGroups(studyId)}
+      loadErrorTitle="The groups could not be loaded"
+      emptyText="The study has no groups or arms."
+      columns={[
+        { key: 'name', title: 'Group', render: (_, g) => g.name },
+        {
+          key: 'description',
+          title: 'Description',
+          responsive: ['md'],
+          render: (_, g) => g.description || '—',
+        },
+      ]}
+      canManage={canManage}
+      deleteDescription="Only a group no participant belongs to can be deleted."
+      deletedText={(g) => `${g.name} deleted.`}
+      deleteFailureText="The group could not be deleted."
+      onDelete={writes.deleteGroup}
+      onSave={writes.saveGroup}
+      renderForm={({ item, onClose, onSave }) => (
+        <GroupForm group={item} onClose={onClose} onSave={onSave} />
       )}
-      {canManage && editing !== null && (
-        <GroupForm
-          group={editing === 'new' ? null : editing}
-          onClose={() => setEditing(null)}
-          onSave={async (input) => {
-            const saved = await writes.saveGroup(editing === 'new' ? null : editing.id, input);
-            message.success(`${saved.name} saved.`);
-            setEditing(null);
-          }}
-        />
-      )}
-    </Card>
+    />
   );
 }
 
@@ -117,56 +46,30 @@ function GroupForm({
   onClose: () => void;
   onSave: (input: GroupInput) => Promise<void>;
 }) {
-  const [form] = Form.useForm<GroupInput>();
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-  const submit = async (values: GroupInput) => {
-    setBusy(true);
-    setError(null);
-    try {
-      await onSave({ name: values.name.trim(), description: (values.description ?? '').trim() });
-    } catch (caught) {
-      setError(caught instanceof ApiError ? caught.message : 'The group could not be saved.');
-    } finally {
-      setBusy(false);
-    }
-  };
   return (
-    <Modal
-      open
+    <ModalForm<GroupInput>
       title={group === null ? 'New group' : `Change ${group.name}`}
       okText="Save group"
-      onOk={() => form.submit()}
-      okButtonProps={{ loading: busy }}
-      onCancel={onClose}
-      destroyOnHidden
+      failureText="The group could not be saved."
+      initialValues={group ?? { description: '' }}
+      onSubmit={(values) =>
+        onSave({ name: values.name.trim(), description: (values.description ?? '').trim() })
+      }
+      onClose={onClose}
     >
-      <Form<GroupInput>
-        form={form}
-        layout="vertical"
-        requiredMark={false}
-        onFinish={submit}
-        initialValues={group ?? { description: '' }}
+      <Form.Item
+        label="Name"
+        name="name"
+        rules={[
+          { required: true, whitespace: true, message: 'Give the group a name.' },
+          { max: 60, message: 'A name has at most 60 characters.' },
+        ]}
       >
-        <Form.Item
-          label="Name"
-          name="name"
-          rules={[
-            { required: true, whitespace: true, message: 'Give the group a name.' },
-            { max: 60, message: 'A name has at most 60 characters.' },
-          ]}
-        >
-          <Input autoFocus />
-        </Form.Item>
-        <Form.Item label="Description" name="description" rules={[{ max: 2000 }]}>
-          <Input.TextArea autoSize={{ minRows: 2 }} />
-        </Form.Item>
-        {error !== null && (
-          <Typography.Paragraph type="danger" role="alert">
-            {error}
-          </Typography.Paragraph>
-        )}
-      </Form>
-    </Modal>
+        <Input autoFocus />
+      </Form.Item>
+      <Form.Item label="Description" name="description" rules={[{ max: 2000 }]}>
+        <Input.TextArea autoSize={{ minRows: 2 }} />
+      </Form.Item>
+    </ModalForm>
   );
 }

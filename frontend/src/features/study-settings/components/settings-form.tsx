@@ -1,4 +1,4 @@
-import type { AnalysisSettingsChange, AnalysisSettingsDto } from '@gyre/shared';
+import type { AnalysisSettingsChange, AnalysisSettingsView } from '@gyre/shared';
 import {
   Alert,
   Button,
@@ -13,8 +13,7 @@ import {
   Typography,
 } from 'antd';
 import type { FormRule } from 'antd';
-import { useState } from 'react';
-import { ApiError } from '../../../lib/api-client';
+import { useSubmission } from '../../../lib/use-submission';
 import { ANALYSIS_SETTINGS_UNCHANGED } from '../api/create-analysis-settings';
 import {
   changeOf,
@@ -22,6 +21,7 @@ import {
   REASON_MIN_LENGTH,
   type SettingsFormValues,
 } from './settings-form-values';
+import { BandEdgeFields } from '../../../components/band-edge-fields';
 
 type Values = SettingsFormValues;
 type Getter = (name: keyof Values) => unknown;
@@ -48,7 +48,10 @@ function check(
 const seconds = { suffix: 's', step: 0.1, style: { width: '100%' } } as const;
 
 /** What went wrong with the last save: the server's refusal, or "nothing changed". */
-type Failure = { kind: 'unchanged'; message: string } | { kind: 'error'; message: string };
+interface Failure {
+  kind: 'unchanged' | 'error';
+  message: string;
+}
 
 /**
  * Changes the study's analysis settings: a new version, with a reason. Nothing is computed
@@ -58,38 +61,26 @@ export function SettingsForm({
   current,
   onSave,
 }: {
-  current: AnalysisSettingsDto;
+  current: AnalysisSettingsView;
   onSave: (change: AnalysisSettingsChange) => Promise<void>;
 }) {
   const [form] = Form.useForm<Values>();
-  const [saving, setSaving] = useState(false);
-  const [failure, setFailure] = useState<Failure | null>(null);
+  const { busy: saving, error, errorCode, run } = useSubmission('The settings could not be saved.');
+  const failure: Failure | null =
+    error === null
+      ? null
+      : { kind: errorCode === ANALYSIS_SETTINGS_UNCHANGED ? 'unchanged' : 'error', message: error };
   const bandMode = Form.useWatch('bandMode', form);
   const method = Form.useWatch('method', form);
 
-  const submit = async () => {
-    setSaving(true);
-    setFailure(null);
-    try {
+  const submit = () =>
+    run(async () => {
       // Every value, also of fields hidden now (the wavelet cycles, a fixed band's edges):
       // a settings version is complete, whatever the form shows.
       const values: Values = { ...formValuesOf(current), ...form.getFieldsValue(true) };
       await onSave(changeOf(values));
       form.setFieldValue('reason', '');
-    } catch (error) {
-      setFailure(
-        error instanceof ApiError && error.code === ANALYSIS_SETTINGS_UNCHANGED
-          ? { kind: 'unchanged', message: error.message }
-          : {
-              kind: 'error',
-              message:
-                error instanceof ApiError ? error.message : 'The settings could not be saved.',
-            },
-      );
-    } finally {
-      setSaving(false);
-    }
-  };
+    });
 
   const windowRule = (label: string, startField: keyof Values, isEnd: boolean) =>
     check((value, get) => {
@@ -124,41 +115,7 @@ export function SettingsForm({
           ]}
         />
       </Form.Item>
-      {bandMode === 'fixed' && (
-        <Row gutter={12}>
-          <Col xs={24} sm={12}>
-            <Form.Item
-              name="bandLowHz"
-              label="Band low edge"
-              rules={[
-                required('the low edge in Hz'),
-                check((v) => (v < 1 ? 'The low edge must be at least 1 Hz.' : null)),
-              ]}
-            >
-              <InputNumber suffix="Hz" step={0.5} style={{ width: '100%' }} />
-            </Form.Item>
-          </Col>
-          <Col xs={24} sm={12}>
-            <Form.Item
-              name="bandHighHz"
-              label="Band high edge"
-              dependencies={['bandLowHz']}
-              rules={[
-                required('the high edge in Hz'),
-                check((v, get) => {
-                  if (v > 40) return 'The high edge must be at most 40 Hz.';
-                  const low = get('bandLowHz');
-                  return low !== null && v - low < 1
-                    ? 'The band must be at least 1 Hz wide (high edge above the low edge).'
-                    : null;
-                }),
-              ]}
-            >
-              <InputNumber suffix="Hz" step={0.5} style={{ width: '100%' }} />
-            </Form.Item>
-          </Col>
-        </Row>
-      )}
+      {bandMode === 'fixed' && <BandEdgeFields />}
       <Row gutter={12}>
         <Col xs={24} sm={method === 'morlet' ? 14 : 24}>
           <Form.Item name="method" label="Narrow-band method">
@@ -180,7 +137,7 @@ export function SettingsForm({
                 check((v) => (v < 3 || v > 20 ? 'Use 3 to 20 cycles.' : null)),
               ]}
             >
-              <InputNumber step={1} style={{ width: '100%' }} />
+              <InputNumber step={1} className="gyre-fill-width" />
             </Form.Item>
           </Col>
         )}
@@ -284,7 +241,7 @@ export function SettingsForm({
               ),
             ]}
           >
-            <InputNumber suffix="µV" step={10} style={{ width: '100%' }} />
+            <InputNumber suffix="µV" step={10} className="gyre-fill-width" />
           </Form.Item>
         </Col>
         <Col xs={24} sm={12}>
@@ -298,7 +255,7 @@ export function SettingsForm({
               ),
             ]}
           >
-            <InputNumber suffix="Hz" step={0.05} style={{ width: '100%' }} />
+            <InputNumber suffix="Hz" step={0.05} className="gyre-fill-width" />
           </Form.Item>
         </Col>
       </Row>

@@ -1,4 +1,4 @@
-import type { AnalysisSettingsDto, AnalysisSettingsValues } from '@gyre/shared';
+import type { AnalysisSettingsView, AnalysisSettingsValues } from '@gyre/shared';
 import { Descriptions } from 'antd';
 import { SETTING_NAMES, settingValueText } from './settings-words';
 
@@ -16,7 +16,7 @@ const SHOWN: (keyof AnalysisSettingsValues)[] = [
 ];
 
 /** The settings of one version, each with its unit. */
-export function SettingsSummary({ settings }: { settings: AnalysisSettingsDto }) {
+export function SettingsSummary({ settings }: { settings: AnalysisSettingsView }) {
   return (
     <Descriptions
       size="small"

@@ -1,4 +1,4 @@
-import type { AnalysisSettingsDto } from '@gyre/shared';
+import type { AnalysisSettingsView } from '@gyre/shared';
 import { Flex, Pagination, Skeleton, Tag, Typography } from 'antd';
 import { useState } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
@@ -16,7 +16,7 @@ function Version({
   current,
   meId,
 }: {
-  version: AnalysisSettingsDto;
+  version: AnalysisSettingsView;
   current: boolean;
   meId: string;
 }) {

@@ -1,4 +1,4 @@
-import type { AnalysisSettingsChange, AnalysisSettingsDto, Page } from '@gyre/shared';
+import type { AnalysisSettingsChange, AnalysisSettingsView, Page } from '@gyre/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
@@ -13,7 +13,7 @@ import { VERSION_1, VERSION_2 } from '../testing/settings-fixtures';
 installMswServer();
 
 const base = `/api/studies/${STUDY.id}/analysis-settings`;
-const page = (items: AnalysisSettingsDto[]): Page<AnalysisSettingsDto> => ({
+const page = (items: AnalysisSettingsView[]): Page<AnalysisSettingsView> => ({
   items,
   total: items.length,
   page: 1,
@@ -106,7 +106,7 @@ describe('Study settings', { timeout: 60_000 }, () => {
   it('saves a new version and shows it at the top of the list', async () => {
     const state = serveSettings((change) => {
       const { reason, ...values } = change;
-      const created: AnalysisSettingsDto = {
+      const created: AnalysisSettingsView = {
         ...VERSION_2,
         ...values,
         id: 'set-3',

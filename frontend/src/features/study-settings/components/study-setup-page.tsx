@@ -3,7 +3,7 @@ import { useSearchParams } from 'react-router-dom';
 import { useAppAbility } from '../../../lib/session/ability';
 import { PageHeader } from '../../../components/page-header';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
-import { useStudies, useStudy } from '../api/studies';
+import { useStudies, useStudy } from '../../../lib/studies';
 import { GroupsSection } from './groups-section';
 import { TrendSettingsSection } from './trend-settings-section';
 import { VisitScheduleSection } from './visit-schedule-section';

@@ -1,7 +1,6 @@
 import type { StudyView } from '@gyre/shared';
 import { App, Button, Card, Descriptions, Form, InputNumber, Space, Typography } from 'antd';
-import { useState } from 'react';
-import { ApiError } from '../../../lib/api-client';
+import { useSubmission } from '../../../lib/use-submission';
 import { useUpdateTrendSettings, type TrendSettings } from '../api/studies';
 
 /**
@@ -17,24 +16,14 @@ export function TrendSettingsSection({
 }) {
   const update = useUpdateTrendSettings();
   const { message } = App.useApp();
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, run } = useSubmission('The trend settings could not be saved.');
   const [form] = Form.useForm<TrendSettings>();
 
-  const submit = async (values: TrendSettings) => {
-    setBusy(true);
-    setError(null);
-    try {
+  const submit = (values: TrendSettings) =>
+    run(async () => {
       await update(study.id, values);
       message.success('Trend settings saved.');
-    } catch (caught) {
-      setError(
-        caught instanceof ApiError ? caught.message : 'The trend settings could not be saved.',
-      );
-    } finally {
-      setBusy(false);
-    }
-  };
+    });
 
   return (
     <Card title="Trend settings" role="region" aria-label="Trend settings">

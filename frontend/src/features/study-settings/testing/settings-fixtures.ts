@@ -1,29 +1,12 @@
-import type { AnalysisSettingsDto } from '@gyre/shared';
-import { STUDY } from '../../../test/fixtures';
+import type { AnalysisSettingsView } from '@gyre/shared';
+import { DEFAULT_SETTINGS } from '../../../test/fixtures';
 
 // Generated test data: an invented study's settings history of two versions.
 
-export const VERSION_1: AnalysisSettingsDto = {
-  id: 'set-1',
-  studyId: STUDY.id,
-  version: 1,
-  changes: [],
-  reason: 'Defaults written by Gyre',
-  createdById: null,
-  createdAt: '2025-01-06T09:00:00.000Z',
-  bandHz: null,
-  method: 'filter',
-  morletCycles: 7,
-  epochWindowS: [-1, 2],
-  baselineWindowS: [-0.5, 0],
-  postWindowS: [0.2, 0.8],
-  rejectionThresholdUv: 100,
-  flagThresholdHz: -0.2,
-  roi: ['O1', 'O2', 'Pz'],
-  onsetLabel: null,
-};
+/** Version 1: Gyre's defaults. */
+export const VERSION_1: AnalysisSettingsView = DEFAULT_SETTINGS;
 
-export const VERSION_2: AnalysisSettingsDto = {
+export const VERSION_2: AnalysisSettingsView = {
   ...VERSION_1,
   id: 'set-2',
   version: 2,

@@ -1,7 +1,6 @@
 import type { Role, UserView } from '@gyre/shared';
-import { useCallback } from 'react';
-import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
+import { useWrite } from '../../../lib/use-write';
 import { isUsersKey } from './users';
 
 export interface InviteBody {
@@ -18,13 +17,5 @@ export function inviteUser(body: InviteBody): Promise<UserView> {
 }
 
 export function useInviteUser() {
-  const { mutate } = useSWRConfig();
-  return useCallback(
-    async (body: InviteBody) => {
-      const invited = await inviteUser(body);
-      await mutate(isUsersKey);
-      return invited;
-    },
-    [mutate],
-  );
+  return useWrite(inviteUser, (mutate) => mutate(isUsersKey));
 }

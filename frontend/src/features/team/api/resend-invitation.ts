@@ -1,7 +1,6 @@
 import type { UserView } from '@gyre/shared';
-import { useCallback } from 'react';
-import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
+import { useWrite } from '../../../lib/use-write';
 import { isUsersKey } from './users';
 
 /** `POST /api/users/:id/invitation`: e-mails the invitation again with a new link. */
@@ -10,13 +9,5 @@ export function resendInvitation(id: string): Promise<UserView> {
 }
 
 export function useResendInvitation() {
-  const { mutate } = useSWRConfig();
-  return useCallback(
-    async (id: string) => {
-      const user = await resendInvitation(id);
-      await mutate(isUsersKey);
-      return user;
-    },
-    [mutate],
-  );
+  return useWrite(resendInvitation, (mutate) => mutate(isUsersKey));
 }

@@ -1,7 +1,7 @@
 import type { CreatedWorkerTokenView } from '@gyre/shared';
 import { Alert, Button, Form, Input, Modal, Typography } from 'antd';
 import { useState } from 'react';
-import { ApiError } from '../../../lib/api-client';
+import { ModalForm } from '../../../components/modal-form';
 import { useCreateWorkerToken } from '../api/create-worker-token';
 
 /**
@@ -12,26 +12,11 @@ export function CreateWorkerTokenForm({ open, onClose }: { open: boolean; onClos
   const [form] = Form.useForm<{ name: string }>();
   const create = useCreateWorkerToken();
   const [created, setCreated] = useState<CreatedWorkerTokenView | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
 
   const close = () => {
     setCreated(null);
-    setError(null);
     form.resetFields();
     onClose();
-  };
-
-  const submit = async ({ name }: { name: string }) => {
-    setBusy(true);
-    setError(null);
-    try {
-      setCreated(await create(name.trim()));
-    } catch (caught) {
-      setError(caught instanceof ApiError ? caught.message : 'The token could not be created.');
-    } finally {
-      setBusy(false);
-    }
   };
 
   if (created !== null) {
@@ -76,38 +61,33 @@ export function CreateWorkerTokenForm({ open, onClose }: { open: boolean; onClos
   }
 
   return (
-    <Modal
+    <ModalForm<{ name: string }>
       key="name"
       open={open}
+      form={form}
       title="Create a worker token"
       okText="Create the token"
-      onOk={() => form.submit()}
-      okButtonProps={{ loading: busy }}
-      onCancel={close}
-      destroyOnHidden
+      intro={
+        <Typography.Paragraph>
+          A worker token lets a computing machine fetch queued recordings and post their results. It
+          cannot sign in, and it reads no participants, results or accounts.
+        </Typography.Paragraph>
+      }
+      failureText="The token could not be created."
+      onSubmit={async ({ name }) => setCreated(await create(name.trim()))}
+      onClose={close}
     >
-      <Typography.Paragraph>
-        A worker token lets a computing machine fetch queued recordings and post their results. It
-        cannot sign in, and it reads no participants, results or accounts.
-      </Typography.Paragraph>
-      <Form<{ name: string }> form={form} layout="vertical" requiredMark={false} onFinish={submit}>
-        <Form.Item
-          label="Name"
-          name="name"
-          extra="Say which machine will use it, e.g. “compute node 2”."
-          rules={[
-            { required: true, whitespace: true, message: 'Name the token.' },
-            { max: 100, message: 'Keep the name under 100 characters.' },
-          ]}
-        >
-          <Input autoFocus autoComplete="off" />
-        </Form.Item>
-        {error !== null && (
-          <Typography.Paragraph type="danger" role="alert">
-            {error}
-          </Typography.Paragraph>
-        )}
-      </Form>
-    </Modal>
+      <Form.Item
+        label="Name"
+        name="name"
+        extra="Say which machine will use it, e.g. “compute node 2”."
+        rules={[
+          { required: true, whitespace: true, message: 'Name the token.' },
+          { max: 100, message: 'Keep the name under 100 characters.' },
+        ]}
+      >
+        <Input autoFocus autoComplete="off" />
+      </Form.Item>
+    </ModalForm>
   );
 }

@@ -1,13 +1,12 @@
 import type { OutboxMessageView, OutboxState } from '@gyre/shared';
-import { Card, Segmented, Table, Tag, Typography } from 'antd';
+import { Card, Segmented, Tag, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
 import { PageHeader } from '../../../components/page-header';
-import { ScrollRegion } from '../../../components/scroll-region';
-import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { formatDateTime } from '../../../lib/format';
 import { useOutbox } from '../api/outbox';
 import { GYRE_COLORS } from '../../../app/theme';
+import { PagedTable } from '../../../components/paged-table';
 
 const STATE_LOOK: Record<OutboxState, { label: string; color: string }> = {
   // Status colours of the theme: each reads at ≥ 4.5:1 on its tint (app/theme.test.ts).
@@ -92,40 +91,16 @@ export function OutboxPage() {
         }
       />
       <Card>
-        {error !== undefined ? (
-          <ErrorState
-            error={error}
-            onRetry={() => void mutate()}
-            title="The outbox could not be loaded"
-          />
-        ) : (
-          <ScrollRegion label="Messages">
-            <Table<OutboxMessageView>
-              rowKey="id"
-              size="middle"
-              loading={isLoading && data !== undefined}
-              columns={columns}
-              tableLayout="auto"
-              style={{ width: 'max-content', minWidth: '100%', maxWidth: 'none' }}
-              dataSource={data?.items ?? []}
-              pagination={{
-                current: page,
-                pageSize: PAGE_SIZE,
-                total: data?.total ?? 0,
-                showSizeChanger: false,
-                hideOnSinglePage: true,
-                onChange: setPage,
-              }}
-              locale={{
-                emptyText: isLoading ? (
-                  <TableSkeleton />
-                ) : (
-                  <EmptyState description="No e-mail yet." />
-                ),
-              }}
-            />
-          </ScrollRegion>
-        )}
+        <PagedTable<OutboxMessageView>
+          query={{ data, error, isLoading, mutate }}
+          loadErrorTitle="The outbox could not be loaded"
+          emptyText="No e-mail yet."
+          columns={columns}
+          page={page}
+          pageSize={PAGE_SIZE}
+          onPageChange={setPage}
+          scrollLabel="Messages"
+        />
       </Card>
     </>
   );

@@ -1,10 +1,9 @@
 import { ROLES, type Role, type UserState, type UserView } from '@gyre/shared';
-import { App, Button, Card, Flex, Segmented, Select, Space, Table, Tag, Typography } from 'antd';
+import { App, Button, Card, Flex, Segmented, Select, Space, Tag, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
 import { PageHeader } from '../../../components/page-header';
 import { SearchInput } from '../../../components/search-input';
-import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
@@ -19,6 +18,7 @@ import { InviteUserForm } from './invite-user-form';
 import { ROLE_LABELS } from './role-labels';
 import { WorkerTokensSection } from './worker-tokens-section';
 import { GYRE_COLORS } from '../../../app/theme';
+import { PagedTable } from '../../../components/paged-table';
 
 const STATE_LOOK: Record<UserState, { label: string; color: string }> = {
   invited: { label: 'Invited', color: GYRE_COLORS.amberText },
@@ -189,37 +189,15 @@ export function TeamPage() {
             ]}
           />
         </Flex>
-        {error !== undefined ? (
-          <ErrorState
-            error={error}
-            onRetry={() => void mutate()}
-            title="The accounts could not be loaded"
-          />
-        ) : (
-          <Table<UserView>
-            rowKey="id"
-            size="middle"
-            loading={isLoading && data !== undefined}
-            columns={columns}
-            scroll={{ x: 'max-content' }}
-            dataSource={data?.items ?? []}
-            pagination={{
-              current: page,
-              pageSize: PAGE_SIZE,
-              total: data?.total ?? 0,
-              showSizeChanger: false,
-              hideOnSinglePage: true,
-              onChange: setPage,
-            }}
-            locale={{
-              emptyText: isLoading ? (
-                <TableSkeleton />
-              ) : (
-                <EmptyState description="No account matches." />
-              ),
-            }}
-          />
-        )}
+        <PagedTable<UserView>
+          query={{ data, error, isLoading, mutate }}
+          loadErrorTitle="The accounts could not be loaded"
+          emptyText="No account matches."
+          columns={columns}
+          page={page}
+          pageSize={PAGE_SIZE}
+          onPageChange={setPage}
+        />
       </Card>
       {ability.can('manage', 'WorkerToken') && <WorkerTokensSection />}
       <InviteUserForm

@@ -1,12 +1,12 @@
 import type { WorkerTokenState, WorkerTokenView } from '@gyre/shared';
-import { App, Button, Card, Segmented, Table, Tag, Tooltip, Typography } from 'antd';
+import { App, Button, Card, Segmented, Tag, Tooltip, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
-import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { formatDateTime } from '../../../lib/format';
 import { useWorkerTokens } from '../api/worker-tokens';
 import { CreateWorkerTokenForm } from './create-worker-token-form';
 import { RevokeWorkerTokenForm } from './revoke-worker-token-form';
+import { PagedTable } from '../../../components/paged-table';
 
 const PAGE_SIZE = 10;
 
@@ -126,37 +126,15 @@ export function WorkerTokensSection() {
           { label: 'All', value: 'all' },
         ]}
       />
-      {error !== undefined ? (
-        <ErrorState
-          error={error}
-          onRetry={() => void mutate()}
-          title="The worker tokens could not be loaded"
-        />
-      ) : (
-        <Table<WorkerTokenView>
-          rowKey="id"
-          size="middle"
-          loading={isLoading && data !== undefined}
-          columns={columns}
-          scroll={{ x: 'max-content' }}
-          dataSource={data?.items ?? []}
-          pagination={{
-            current: page,
-            pageSize: PAGE_SIZE,
-            total: data?.total ?? 0,
-            showSizeChanger: false,
-            hideOnSinglePage: true,
-            onChange: setPage,
-          }}
-          locale={{
-            emptyText: isLoading ? (
-              <TableSkeleton />
-            ) : (
-              <EmptyState description={shown === 'revoked' ? 'No revoked token.' : 'No token.'} />
-            ),
-          }}
-        />
-      )}
+      <PagedTable<WorkerTokenView>
+        query={{ data, error, isLoading, mutate }}
+        loadErrorTitle="The worker tokens could not be loaded"
+        emptyText={shown === 'revoked' ? 'No revoked token.' : 'No token.'}
+        columns={columns}
+        page={page}
+        pageSize={PAGE_SIZE}
+        onPageChange={setPage}
+      />
       <CreateWorkerTokenForm open={creating} onClose={() => setCreating(false)} />
       {revoking !== null && (
         <RevokeWorkerTokenForm

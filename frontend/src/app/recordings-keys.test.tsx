@@ -2,12 +2,13 @@ import { render, screen } from '@testing-library/react';
 import { http, HttpResponse } from 'msw';
 import { SWRConfig } from 'swr';
 import { describe, expect, it } from 'vitest';
-import { setAccessToken } from '../../../lib/api-client';
-import { installMswServer, server } from '../../../test/msw-server';
-// Test only: Review's hook reads the same address; the two must not share a cache entry.
-import { useVisitRecordings } from '../../review/api/get-visit-recordings';
-import { page, recording } from '../testing/intake-fixtures';
-import { useRecordings } from './recordings';
+// Two features' hooks read one address; the two must not share a cache entry. Only the app,
+// which holds both in one SWR cache, may see both.
+import { useRecordings } from '../features/intake/api/recordings';
+import { page, recording } from '../features/intake/testing/intake-fixtures';
+import { useVisitRecordings } from '../features/review/api/get-visit-recordings';
+import { setAccessToken } from '../lib/api-client';
+import { installMswServer, server } from '../test/msw-server';
 
 installMswServer();
 
