@@ -268,6 +268,19 @@ describe('EEG-BIDS import', () => {
       ['oddball', 60, []],
       ['rest', 50, [{ label: 'EEG O2-REF', reason: 'electrode bridged' }]],
     ]);
+    // The sidecar's PowerLineFrequency travels with each recording (EEG-BIDS `*_eeg.json`).
+    const listed = await request(t.url)
+      .get(`/api/recordings?visitId=${visitId}`)
+      .set(await t.authHeader('analyst'));
+    expect(listed.status).toBe(200);
+    expect(
+      (listed.body.items as Array<{ kind: string; lineFrequencyHz: number | null }>)
+        .map((r) => [r.kind, r.lineFrequencyHz])
+        .sort(),
+    ).toEqual([
+      ['resting', 50],
+      ['task', 60],
+    ]);
     // The bad channel leaves the visit's region of interest, with the file's reason.
     const override = await request(t.url)
       .get(`/api/visits/${visitId}/analysis-override`)

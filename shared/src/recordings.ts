@@ -158,6 +158,11 @@ export interface RecordingView {
    * or the recording predates kept names. Only staff in the recording's scope see it.
    */
   fileName: string | null;
+  /**
+   * The power line frequency the file's source declared (EEG-BIDS `PowerLineFrequency`): Review
+   * then applies that line-noise check alone. Null when not declared (both checks apply).
+   */
+  lineFrequencyHz: 50 | 60 | null;
   /** Progress of the current or last job, 0–100; null before any job. */
   progressPercent: number | null;
   facts: RecordingFactsView | null;

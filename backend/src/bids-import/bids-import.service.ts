@@ -279,7 +279,13 @@ export class BidsImportService {
             newVisits.set(visitKey(file), visit);
           }
           visitIdOf.set(visitKey(file), visit);
-          const recording = await this.recordings.createAccepted(tx, caller, visit, file.check);
+          const recording = await this.recordings.createAccepted(
+            tx,
+            caller,
+            visit,
+            file.check,
+            file.preview.lineFrequencyHz,
+          );
           recordingIds.push(recording.id);
           file.preview.recordingId = recording.id;
           file.preview.visitId = visit.id;

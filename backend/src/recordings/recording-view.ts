@@ -59,6 +59,7 @@ export function toRecordingView(row: Recording, latestJob: JobView | null): Reco
     checksumSha256: row.checksumSha256,
     sizeBytes: row.sizeBytes,
     fileName: row.fileName,
+    lineFrequencyHz: row.lineFrequencyHz,
     progressPercent: latestJob?.progressPercent ?? null,
     facts,
     rejection:

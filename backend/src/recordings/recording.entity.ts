@@ -26,6 +26,9 @@ export class Recording extends VisitColumns {
    */
   @Column('varchar', { length: 255, nullable: true }) fileName: string | null;
 
+  /** 50 or 60 (Hz) when the file's source declared it (EEG-BIDS `PowerLineFrequency`), else null. */
+  @Column('integer', { nullable: true }) lineFrequencyHz: 50 | 60 | null;
+
   /** File name under the uploads folder, null while received and once rejected. */
   @Column('varchar', { length: 80, nullable: true }) storedFile: string | null;
 

@@ -885,6 +885,8 @@ export class RecordingsService {
     caller: Caller,
     visit: Pick<Visit, 'id' | 'studyId' | 'siteId' | 'participantId'>,
     check: AcceptedFileCheck,
+    /** What the file's source declared of the power line (EEG-BIDS sidecar), when it did. */
+    lineFrequencyHz: 50 | 60 | null = null,
   ): Promise<Recording> {
     const upload: StoredUpload = {
       file: check.file,
@@ -894,6 +896,7 @@ export class RecordingsService {
       replaces: null,
     };
     const row = receivedRow(caller, visit, upload);
+    row.lineFrequencyHz = lineFrequencyHz;
     await this.lifecycle.create(tx, row, {
       actor: caller.user,
       action: 'upload',
@@ -904,6 +907,7 @@ export class RecordingsService {
         checksumSha256: row.checksumSha256,
         sizeBytes: row.sizeBytes,
         onsetsChecksumSha256: row.onsetsChecksumSha256,
+        lineFrequencyHz,
         replacesId: null,
         bulk: true,
       },
@@ -985,6 +989,7 @@ function receivedRow(
     checksumSha256: upload.file.sha256,
     sizeBytes: upload.file.sizeBytes,
     fileName: upload.file.originalName ?? null,
+    lineFrequencyHz: null,
     storedFile: null,
     factsJson: null,
     csvOnsetsJson: null,

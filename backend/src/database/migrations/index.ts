@@ -11,6 +11,7 @@ import { VisitScheduleAndGroups1764700300000 } from './1764700300000-visit-sched
 import { VisitReviews1764700400000 } from './1764700400000-visit-reviews';
 import { RecordingFileName1764700600000 } from './1764700600000-recording-file-name';
 import { CalibrationRuns1764700800000 } from './1764700800000-calibration-runs';
+import { RecordingLineFrequency1764700900000 } from './1764700900000-recording-line-frequency';
 import { BidsImportFiles1764700700000 } from './1764700700000-bids-import-files';
 
 /** Every migration in order; add new ones at the end (see DEVELOPERS.md). */
@@ -29,4 +30,5 @@ export const MIGRATIONS = [
   RecordingFileName1764700600000,
   BidsImportFiles1764700700000,
   CalibrationRuns1764700800000,
+  RecordingLineFrequency1764700900000,
 ];

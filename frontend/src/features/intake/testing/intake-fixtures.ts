@@ -106,6 +106,7 @@ export function recording(change: Partial<RecordingView>): RecordingView {
     checksumSha256: 'a'.repeat(64),
     sizeBytes: 1_234_567,
     fileName: 'AC-0042-V1-resting.edf',
+    lineFrequencyHz: null,
     progressPercent: 100,
     facts: null,
     rejection: null,

@@ -3,6 +3,7 @@ import { Table, Tag } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
 import { numberColumn } from '../../../components/number-column';
 import { formatNumber, formatShareAsPercent } from '../../../lib/format';
+import { checkedLineFrequencies } from './quality-findings';
 
 const ratio = (value: number | null) => formatNumber(value, 2);
 
@@ -10,10 +11,21 @@ const ratio = (value: number | null) => formatNumber(value, 2);
 export function ChannelQualityTable({
   channels,
   label,
+  lineFrequencyHz = null,
 }: {
   channels: ChannelQualityView[];
   label: string;
+  /** The declared power line frequency: only its column is shown. */
+  lineFrequencyHz?: 50 | 60 | null;
 }) {
+  const lineColumns = checkedLineFrequencies(lineFrequencyHz).map((hz) =>
+    numberColumn<ChannelQualityView>(
+      `Line noise ${hz} Hz`,
+      `line${hz}`,
+      (r) => (hz === 50 ? r.lineNoiseRatio50Hz : r.lineNoiseRatio60Hz),
+      (row) => ratio(hz === 50 ? row.lineNoiseRatio50Hz : row.lineNoiseRatio60Hz),
+    ),
+  );
   return (
     <Table<ChannelQualityView>
       aria-label={label}
@@ -55,18 +67,7 @@ export function ChannelQualityTable({
               ? '—'
               : `${formatNumber(row.standardDeviationUv, 1)}\u00a0µV`,
         ),
-        numberColumn<ChannelQualityView>(
-          'Line noise 50 Hz',
-          'line50',
-          (r) => r.lineNoiseRatio50Hz,
-          (row) => ratio(row.lineNoiseRatio50Hz),
-        ),
-        numberColumn<ChannelQualityView>(
-          'Line noise 60 Hz',
-          'line60',
-          (r) => r.lineNoiseRatio60Hz,
-          (row) => ratio(row.lineNoiseRatio60Hz),
-        ),
+        ...lineColumns,
         numberColumn<ChannelQualityView>(
           'Phase slips',
           'slips',

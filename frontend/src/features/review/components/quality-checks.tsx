@@ -9,12 +9,15 @@ export function QualityChecks({
   quality,
   kind,
   roiUsage,
+  lineFrequencyHz = null,
 }: {
   quality: QualityView;
   kind: 'task' | 'resting';
   roiUsage?: RoiUsageView;
+  /** The power line frequency the recording's source declared: only that check applies. */
+  lineFrequencyHz?: 50 | 60 | null;
 }) {
-  const findings = qualityFindings(quality, kind, roiUsage);
+  const findings = qualityFindings(quality, kind, roiUsage, lineFrequencyHz);
   const warnings = [
     ...quality.warnings,
     ...findings.flatMap((f) => (f.warning === null ? [] : [f.warning])),
@@ -62,6 +65,7 @@ export function QualityChecks({
       />
       <ChannelQualityTable
         channels={quality.channels}
+        lineFrequencyHz={lineFrequencyHz}
         label={`Channel checks, ${kind === 'task' ? 'task' : 'resting'} recording`}
       />
     </Flex>

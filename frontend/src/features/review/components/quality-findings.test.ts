@@ -38,6 +38,22 @@ describe('qualityFindings: line noise', () => {
     ).toContain('60 Hz');
     expect(lineNoise({ ...clean, lineNoiseRatio50Hz: 9.99 })?.warning).toBeNull();
   });
+
+  // EEG-BIDS `*_eeg.json` PowerLineFrequency names the mains of the recording site: only that
+  // frequency's check applies.
+  it('applies only the declared line frequency when the source declared one', () => {
+    const noisy50 = { ...clean, lineNoiseRatio50Hz: 21.67, lineNoiseRatio60Hz: 0.98 };
+    const declared60 = qualityFindings(noisy50, 'resting', undefined, 60).find((f) =>
+      f.check.startsWith('Line noise'),
+    );
+    expect(declared60?.check).toBe("Line noise (60 Hz, as the file's source declared)");
+    expect(declared60?.value).toBe('0.98 (median power ratio over channels)');
+    expect(declared60?.warning).toBeNull();
+    const declared50 = qualityFindings(noisy50, 'resting', undefined, 50).find((f) =>
+      f.check.startsWith('Line noise'),
+    );
+    expect(declared50?.warning).toContain('50 Hz (21.7 times');
+  });
 });
 
 describe('qualityFindings: region of interest', () => {

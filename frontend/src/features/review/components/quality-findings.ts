@@ -22,13 +22,23 @@ const rates = (ratesHz: number[]) => {
 /** Mains power this many times its neighbours' is worth a look (common practice). */
 export const LINE_NOISE_WARNING_RATIO = 10;
 
-function lineNoiseWarning(quality: QualityView): string | null {
-  const worst = [
-    [50, quality.lineNoiseRatio50Hz],
-    [60, quality.lineNoiseRatio60Hz],
-  ].filter(
-    (entry): entry is [number, number] => entry[1] !== null && entry[1] >= LINE_NOISE_WARNING_RATIO,
-  );
+/** The line frequencies to check: the declared one alone, or both when none was declared. */
+export function checkedLineFrequencies(lineFrequencyHz: 50 | 60 | null): Array<50 | 60> {
+  return lineFrequencyHz === null ? [50, 60] : [lineFrequencyHz];
+}
+
+const lineRatio = (
+  quality: { lineNoiseRatio50Hz: number | null; lineNoiseRatio60Hz: number | null },
+  hz: 50 | 60,
+) => (hz === 50 ? quality.lineNoiseRatio50Hz : quality.lineNoiseRatio60Hz);
+
+function lineNoiseWarning(quality: QualityView, lineFrequencyHz: 50 | 60 | null): string | null {
+  const worst = checkedLineFrequencies(lineFrequencyHz)
+    .map((hz) => [hz, lineRatio(quality, hz)])
+    .filter(
+      (entry): entry is [number, number] =>
+        entry[1] !== null && entry[1] >= LINE_NOISE_WARNING_RATIO,
+    );
   if (worst.length === 0) return null;
   const [lineHz, value] = worst.sort((a, b) => b[1] - a[1])[0];
   return `Strong mains noise at ${lineHz} Hz (${formatNumber(value, 1)} times the neighbouring power): the alpha band-pass removes it, but it often means poor electrode contact or ungrounded equipment.`;
@@ -44,6 +54,8 @@ export function qualityFindings(
   kind: 'task' | 'resting',
   /** The run's region-of-interest usage: what was found is not always what was used. */
   roiUsage?: RoiUsageView,
+  /** The power line frequency the recording's source declared (EEG-BIDS), if any. */
+  lineFrequencyHz: 50 | 60 | null = null,
 ): QualityFinding[] {
   const minutes = quality.durationS / 60;
   const findings: QualityFinding[] = [
@@ -105,11 +117,17 @@ export function qualityFindings(
           ? null
           : `${list(quality.saturatedChannels)} reached the amplifier's limits: parts of the signal are clipped.`,
     },
-    {
-      check: 'Line noise (50 Hz / 60 Hz)',
-      value: `${ratio(quality.lineNoiseRatio50Hz)} / ${ratio(quality.lineNoiseRatio60Hz)} (median power ratio over channels)`,
-      warning: lineNoiseWarning(quality),
-    },
+    lineFrequencyHz === null
+      ? {
+          check: 'Line noise (50 Hz / 60 Hz)',
+          value: `${ratio(quality.lineNoiseRatio50Hz)} / ${ratio(quality.lineNoiseRatio60Hz)} (median power ratio over channels)`,
+          warning: lineNoiseWarning(quality, null),
+        }
+      : {
+          check: `Line noise (${lineFrequencyHz} Hz, as the file's source declared)`,
+          value: `${ratio(lineRatio(quality, lineFrequencyHz))} (median power ratio over channels)`,
+          warning: lineNoiseWarning(quality, lineFrequencyHz),
+        },
   ];
   if (kind === 'task') {
     findings.push(

@@ -353,11 +353,12 @@ export function ReviewPage({
                         label: 'Task',
                         children: (
                           <ResultsOf recording={task} kindName="task">
-                            {(results) => (
+                            {(results, recording) => (
                               <QualityChecks
                                 quality={results.quality}
                                 kind="task"
                                 roiUsage={results.run.roiUsage}
+                                lineFrequencyHz={recording.lineFrequencyHz}
                               />
                             )}
                           </ResultsOf>
@@ -368,11 +369,12 @@ export function ReviewPage({
                         label: 'Rest',
                         children: (
                           <ResultsOf recording={rest} kindName="resting">
-                            {(results) => (
+                            {(results, recording) => (
                               <QualityChecks
                                 quality={results.quality}
                                 kind="resting"
                                 roiUsage={results.run.roiUsage}
+                                lineFrequencyHz={recording.lineFrequencyHz}
                               />
                             )}
                           </ResultsOf>

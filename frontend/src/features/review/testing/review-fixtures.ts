@@ -88,6 +88,7 @@ export function recording(kind: 'task' | 'resting', runId: string): RecordingVie
     checksumSha256: 'a'.repeat(64),
     sizeBytes: 1_000_000,
     fileName: `${kind}.edf`,
+    lineFrequencyHz: null,
     progressPercent: 100,
     facts: null,
     rejection: null,
