@@ -35,7 +35,7 @@ export const SETTLED_RECORDING_STATES: readonly RecordingState[] = [
 /**
  * Why a region-of-interest channel did not contribute to a result: not in the file, flat,
  * saturated (runs at the converter's rail), another sampling rate than the rest of the region,
- * or left out by the analyst's visit override.
+ * or left out by the visit's override (an analyst's choice, or an imported file's bad-channel list).
  */
 export type RoiOmissionReason = 'missing' | 'flat' | 'saturated' | 'sample-rate' | 'excluded';
 

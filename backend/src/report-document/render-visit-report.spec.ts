@@ -318,7 +318,7 @@ describe('renderVisitReport', () => {
     const task = section(text, TASK_HEADING, 'Quality checks');
     expect(task).toContain(
       'No region-of-interest channel remains: O1 — flat; O2 — saturated (runs at the ' +
-        "converter's limit); Oz — another sampling rate; Pz — left out by the analyst's visit " +
+        "converter's limit); Oz — another sampling rate; Pz — left out by this visit's " +
         'setting; POz — not in the file. No Δf is reported.',
     );
     expect(task).toContain('Analysed recording e41b07d2, uploaded 2026-11-20 10:02:47 UTC;');
@@ -347,7 +347,7 @@ describe('renderVisitReport', () => {
     const rest = section(text, REST_HEADING, TASK_HEADING);
     expect(rest).toContain(
       'No region-of-interest channel remains: O1 — flat; O2 — saturated (runs at the ' +
-        "converter's limit); Oz — another sampling rate; Pz — left out by the analyst's visit " +
+        "converter's limit); Oz — another sampling rate; Pz — left out by this visit's " +
         'setting; POz — not in the file. No PAF or CoG is reported.',
     );
     expect(rest).toContain('Analysed recording 7a3e9c10, uploaded 2026-11-20 09:14:02 UTC.');

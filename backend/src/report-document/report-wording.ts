@@ -53,7 +53,7 @@ export const ROI_OMISSION_WORDS: Record<RoiOmissionReason, string> = {
   flat: 'flat',
   saturated: "saturated (runs at the converter's limit)",
   'sample-rate': 'another sampling rate',
-  excluded: "left out by the analyst's visit setting",
+  excluded: "left out by this visit's setting",
 };
 
 /** "Oz — saturated (…); POz — not in the file", or a note when nothing was asked for. */
