@@ -15,5 +15,4 @@ export * from './bids-import';
 export * from './study-overview';
 export * from './number-format';
 export * from './chart-ticks';
-export * from './channel-labels';
 export * from './calibration';

@@ -1,16 +1,7 @@
-import { Form, Modal, Typography, type FormInstance } from 'antd';
+import { Form, Modal, type FormInstance } from 'antd';
 import type { ReactNode } from 'react';
 import { useSubmission } from '../lib/use-submission';
-
-/** A failed save's message under a form's fields, announced to screen readers. */
-export function FormError({ error }: { error: string | null }) {
-  if (error === null) return null;
-  return (
-    <Typography.Paragraph type="danger" role="alert">
-      {error}
-    </Typography.Paragraph>
-  );
-}
+import { FormError } from './form-error';
 
 /**
  * A dialog holding one form: OK submits it and spins while `onSubmit` runs; a refusal shows the

@@ -1,5 +1,5 @@
 /**
- * Kept here, beside the client's copy in shared/src/channel-labels.ts: the signal core loads
+ * Kept here, beside the client's copy in frontend/src/lib/channel-labels.ts: the signal core loads
  * nothing of `@gyre/shared` at run time (signal-boundary.spec.ts), so the seeder, the command
  * line and the workers stay free of the client's chart packages.
  *

@@ -6,7 +6,7 @@ import { useSubmission } from '../../../lib/use-submission';
 import { requestPasswordReset } from '../api/request-password-reset';
 import { AuthLayout } from './auth-layout';
 import { EmailField } from '../../../components/email-field';
-import { FormError } from '../../../components/modal-form';
+import { FormError } from '../../../components/form-error';
 
 /** Asks for a reset link; says the same whether or not the address has an account. */
 export function ForgotPasswordPage() {

@@ -4,7 +4,7 @@ import { paths } from '../../../app/paths';
 import { useSubmission } from '../../../lib/use-submission';
 import { AuthLayout } from './auth-layout';
 import { EmailField } from '../../../components/email-field';
-import { FormError } from '../../../components/modal-form';
+import { FormError } from '../../../components/form-error';
 
 export interface SignInValues {
   email: string;

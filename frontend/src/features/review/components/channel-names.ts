@@ -4,7 +4,7 @@
  * `EEG O1-REF`, `o1-A1` or `EEG Oz`. The server reads labels by the same rules
  * (`normaliseChannelLabel` of @gyre/shared, one copy for both).
  */
-import { normaliseChannelLabel } from '@gyre/shared';
+import { normaliseChannelLabel } from '../../../lib/channel-labels';
 
 export interface ChannelOption {
   /** The 10-10 name sent to the server. */

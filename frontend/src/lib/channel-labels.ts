@@ -2,8 +2,9 @@
  * Channel labels of the 10-10 system (ACNS Guideline 2, 2016: "Guidelines for
  * standard electrode position nomenclature"). Recording systems write the same
  * electrode as `EEG O1-REF`, `O1`, `o1-A1` or `EEG Oz`; Gyre matches them by a
- * canonical 10-10 name. One copy for the server's signal core and the client's channel
- * pickers.
+ * canonical 10-10 name. The client's copy of the signal core's rules
+ * (backend/src/signal/channels/channel-labels.ts): the client cannot load the server's code,
+ * and in `@gyre/shared` it would weigh on every page, sign-in included (first-load budget).
  */
 
 /** Electrode-name prefixes of the 10-10 system (ACNS 2016, Guideline 2, Fig. 1). */
