@@ -135,6 +135,10 @@ describe('Intake as a technician uses it, in Chromium on a real server', () => {
     await page.locator('#intake-visit').click();
     await page.getByTitle(/^V2 · /).click();
     await page.getByText('Upload recordings for AC-0077, V2').waitFor();
+    // The visit list has closed (its closing animation done) before any width is measured.
+    await page.locator('.ant-select-dropdown:not(.ant-select-dropdown-hidden)').waitFor({
+      state: 'detached',
+    });
     await table.getByText('ac-0077-v2-rest.edf').waitFor();
     await expect(table.getByText('ac-0077-v1-rest.edf').count()).resolves.toBe(0);
     await expect(uploads.count()).resolves.toBe(0);

@@ -49,15 +49,15 @@ export function watchConsole(page: Page): string[] {
   return problems;
 }
 
-/** The user guide's pictures (docs/user-guide.md shows them), written by the layout test. */
-export const USER_GUIDE_IMAGE_DIR = resolve(
-  import.meta.dirname,
-  '..',
-  '..',
-  '..',
-  'docs',
-  'user-guide',
-);
+/**
+ * The user guide's pictures (docs/user-guide.md shows them), written by the layout test. They
+ * show the day the test ran, so a plain run writes them beside the other screenshots and only
+ * `GYRE_UPDATE_GUIDE=1` replaces the committed ones in docs/user-guide/.
+ */
+const USER_GUIDE_IMAGE_DIR =
+  process.env.GYRE_UPDATE_GUIDE === '1'
+    ? resolve(import.meta.dirname, '..', '..', '..', 'docs', 'user-guide')
+    : join(SCREENSHOT_DIR, 'user-guide');
 
 /** A full-page picture of the screen in test-results/ (for a person reading a failure). */
 export async function screenshot(page: Page, name: string): Promise<string> {
@@ -65,7 +65,7 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 }
 
 /**
- * A picture for the user guide, docs/user-guide/`name`.png: what the window shows (not the
+ * A picture for the user guide, `name`.png (see USER_GUIDE_IMAGE_DIR): what the window shows (not the
  * whole page), so each stays small (under 150 KB at 1280 × 800).
  */
 export async function userGuideImage(page: Page, name: string): Promise<string> {
