@@ -25,6 +25,9 @@ describe('analysis settings', () => {
     flagThresholdHz: -0.25,
     roi: ['O1', 'O2', 'Oz'],
     onsetLabel: 'stimulus',
+    amplitudeGatePercentile: 20,
+    cycleDisagreementHz: 0.15,
+    compareConditions: ['faces', 'houses'],
     reason: 'Pilot review: narrower window after onset',
   };
 

@@ -16,3 +16,4 @@ export * from './study-overview';
 export * from './number-format';
 export * from './chart-ticks';
 export * from './calibration';
+export * from './analysis-depth';

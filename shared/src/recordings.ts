@@ -1,3 +1,9 @@
+import type {
+  AmplitudeGateView,
+  ConditionDifferenceView,
+  ConditionStatsView,
+  CycleEstimateView,
+} from './analysis-depth';
 /**
  * API types of recordings, background jobs, analysis settings, runs and results,
  * slowing flags, draft reports and participant trajectories.
@@ -215,6 +221,15 @@ export interface AnalysisSettingsValues {
   roi: string[];
   /** Which onsets to use (annotation text / CSV label); null = every onset. */
   onsetLabel: string | null;
+  /**
+   * Instantaneous-frequency samples whose analytic amplitude is under this percentile of the
+   * channel's envelope are left out before the median and the epoch means; null = off.
+   */
+  amplitudeGatePercentile: number | null;
+  /** Review warns when the cycle-by-cycle and the phase-based Δf differ by more, Hz. */
+  cycleDisagreementHz: number;
+  /** The two conditions (onset labels) whose Δf difference is reported; null = the first two. */
+  compareConditions: [string, string] | null;
 }
 
 /** `POST /api/studies/:studyId/analysis-settings`: a new version. */
@@ -319,6 +334,11 @@ export interface ChannelStatsView {
   ciHz: [number, number] | null;
   pValue: number | null;
   trials: number | null;
+  /** Resting recordings: this channel's own peak and centre of gravity (scalp maps), Hz. */
+  pafHz: number | null;
+  cogHz: number | null;
+  /** Task recordings: samples the amplitude gate left out; null when not computed. */
+  amplitudeGate: AmplitudeGateView | null;
 }
 
 export interface TaskResultsView {
@@ -338,6 +358,14 @@ export interface TaskResultsView {
    */
   raster: { trials: number; points: number };
   epochs: { total: number; kept: number; dropped: Record<string, number> };
+  /** Δf per condition (onset label), in order of first appearance; empty without labels. */
+  conditions: ConditionStatsView[];
+  /** Region-of-interest onset curve of each condition, named by its label. */
+  conditionCurves: OnsetCurveView[];
+  /** The difference of two conditions' Δf; null with fewer than two conditions. */
+  conditionDifference: ConditionDifferenceView | null;
+  /** The cycle-by-cycle cross-check of the region of interest's Δf. */
+  cycles: CycleEstimateView | null;
 }
 
 /**

@@ -550,6 +550,10 @@ export function toResultsView(
       curveChannels: summary.task.curveChannels,
       raster: { trials: summary.task.rasterTrials, points: summary.task.rasterPoints },
       epochs: summary.task.epochs,
+      conditions: [],
+      conditionCurves: [],
+      conditionDifference: null,
+      cycles: null,
     };
   }
   const rest: RecordingResultsView['rest'] =

@@ -53,5 +53,19 @@ export function settingsProblems(values: AnalysisSettingsValues): string[] {
   }
   const unknown = values.roi.filter((name) => canonicalElectrodeName(name) === null);
   if (unknown.length > 0) problem('roi', unknown, '10-10 electrode names (ACNS 2016)');
+  const gate = values.amplitudeGatePercentile;
+  if (gate !== null && !(gate >= 1 && gate <= 90)) {
+    problem('amplitudeGatePercentile', gate, 'off (null) or a percentile from 1 to 90');
+  }
+  if (!(values.cycleDisagreementHz > 0 && values.cycleDisagreementHz <= 2)) {
+    problem('cycleDisagreementHz', values.cycleDisagreementHz, '0 < difference ≤ 2 Hz');
+  }
+  const pair = values.compareConditions;
+  if (pair !== null) {
+    const [first, second] = pair.map((label) => label.trim());
+    if (first === '' || second === '' || first.toLowerCase() === second.toLowerCase()) {
+      problem('compareConditions', pair, 'two different, non-empty onset labels');
+    }
+  }
   return problems;
 }

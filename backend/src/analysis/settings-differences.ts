@@ -12,6 +12,9 @@ const FIELDS: readonly (keyof AnalysisSettings)[] = [
   'flagThresholdHz',
   'roi',
   'onsetLabel',
+  'amplitudeGatePercentile',
+  'cycleDisagreementHz',
+  'compareConditions',
 ];
 
 /** The fields a computation of this kind reads: a resting spectrum only needs its channels. */
@@ -31,6 +34,9 @@ const NAMES: Record<keyof AnalysisSettings, string> = {
   flagThresholdHz: 'suggestion threshold',
   roi: 'region of interest',
   onsetLabel: 'onset label',
+  amplitudeGatePercentile: 'amplitude gate',
+  cycleDisagreementHz: 'estimate disagreement warning',
+  compareConditions: 'conditions compared',
 };
 
 /** Every field whose value differs, with both values. */
@@ -63,23 +69,34 @@ export function staleSettingsPhrases(
     );
 }
 
+/** What a null value of a field means, in words. */
+const NULL_WORDS: Partial<Record<keyof AnalysisSettings, string>> = {
+  bandHz: 'from the IAF',
+  onsetLabel: 'every onset',
+  amplitudeGatePercentile: 'off',
+  compareConditions: 'the first two',
+};
+
+const UNITS: Partial<Record<keyof AnalysisSettings, string>> = {
+  rejectionThresholdUv: ' µV',
+  flagThresholdHz: ' Hz',
+  cycleDisagreementHz: ' Hz',
+};
+
 export function sameValue(a: unknown, b: unknown): boolean {
   return JSON.stringify(a) === JSON.stringify(b);
 }
 
 function describe(field: keyof AnalysisSettings, value: unknown): string {
-  if (value === null) {
-    return field === 'bandHz' ? 'from the IAF' : field === 'onsetLabel' ? 'every onset' : 'none';
-  }
+  if (value === null) return NULL_WORDS[field] ?? 'none';
   if (Array.isArray(value) && field === 'roi') return value.join(', ');
+  if (Array.isArray(value) && field === 'compareConditions') return value.join(' vs ');
   if (Array.isArray(value) && value.length === 2) {
     const unit = field === 'bandHz' ? ' Hz' : ' s';
     return `${formatNumber(value[0] as number)}–${formatNumber(value[1] as number)}${unit}`;
   }
   if (typeof value === 'number') {
-    const unit =
-      field === 'rejectionThresholdUv' ? ' µV' : field === 'flagThresholdHz' ? ' Hz' : '';
-    return `${formatNumber(value)}${unit}`;
+    return `${field === 'amplitudeGatePercentile' ? 'percentile ' : ''}${formatNumber(value)}${UNITS[field] ?? ''}`;
   }
   return String(value);
 }

@@ -71,4 +71,7 @@ export const DEFAULT_SETTINGS: AnalysisSettingsView = {
   flagThresholdHz: -0.2,
   roi: ['O1', 'O2', 'Pz'],
   onsetLabel: null,
+  amplitudeGatePercentile: null,
+  cycleDisagreementHz: 0.1,
+  compareConditions: null,
 };

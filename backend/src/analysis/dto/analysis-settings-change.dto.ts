@@ -86,6 +86,34 @@ export class AnalysisSettingsChangeDto implements AnalysisSettingsChange {
   @onsetLabel()
   onsetLabel: string | null;
 
+  @ApiProperty({
+    nullable: true,
+    example: null,
+    description:
+      'Envelope percentile (1–90) under which instantaneous-frequency samples are left out; null = off',
+  })
+  @ValidateIf((o: AnalysisSettingsChangeDto) => o.amplitudeGatePercentile !== null)
+  @IsNumber(finite)
+  amplitudeGatePercentile: number | null;
+
+  @ApiProperty({ example: 0.1, description: 'Warn when the two Δf estimates differ by more, Hz' })
+  @IsNumber(finite)
+  cycleDisagreementHz: number;
+
+  @ApiProperty({
+    type: [String],
+    nullable: true,
+    example: null,
+    description: 'Two onset labels whose Δf difference is reported; null = the first two found',
+  })
+  @ValidateIf((o: AnalysisSettingsChangeDto) => o.compareConditions !== null)
+  @IsArray()
+  @ArrayMinSize(2)
+  @ArrayMaxSize(2)
+  @IsString({ each: true })
+  @MaxLength(200, { each: true })
+  compareConditions: [string, string] | null;
+
   @ApiProperty({ minLength: 10, example: 'Narrower band after the pilot review' })
   @changeReason()
   reason: string;

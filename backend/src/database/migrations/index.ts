@@ -11,6 +11,7 @@ import { VisitScheduleAndGroups1764700300000 } from './1764700300000-visit-sched
 import { VisitReviews1764700400000 } from './1764700400000-visit-reviews';
 import { RecordingFileName1764700600000 } from './1764700600000-recording-file-name';
 import { CalibrationRuns1764700800000 } from './1764700800000-calibration-runs';
+import { AnalysisDepthSettings1764701000000 } from './1764701000000-analysis-depth-settings';
 import { RecordingLineFrequency1764700900000 } from './1764700900000-recording-line-frequency';
 import { BidsImportFiles1764700700000 } from './1764700700000-bids-import-files';
 
@@ -31,4 +32,5 @@ export const MIGRATIONS = [
   BidsImportFiles1764700700000,
   CalibrationRuns1764700800000,
   RecordingLineFrequency1764700900000,
+  AnalysisDepthSettings1764701000000,
 ];

@@ -23,6 +23,7 @@ import {
 } from 'class-validator';
 import type {
   ChannelQualityView,
+  AmplitudeGateView,
   ChannelStatsView,
   QualityView,
   RoiChannelOmission,
@@ -155,6 +156,19 @@ class OnsetStatsDto {
   pValue: number | null;
 }
 
+class AmplitudeGateDto implements AmplitudeGateView {
+  @NullableNumber()
+  percentile: number | null;
+
+  @IsInt()
+  @Min(0)
+  excludedSamples: number;
+
+  @IsInt()
+  @Min(0)
+  totalSamples: number;
+}
+
 class ChannelStatsWireDto extends OnsetStatsDto implements ChannelStatsView {
   @IsString()
   @MaxLength(MAX_LABEL)
@@ -172,6 +186,17 @@ class ChannelStatsWireDto extends OnsetStatsDto implements ChannelStatsView {
   @IsInt()
   @Min(0)
   trials: number | null;
+
+  @NullableNumber()
+  pafHz: number | null;
+
+  @NullableNumber()
+  cogHz: number | null;
+
+  @ValidateIf((_o, value) => value !== null)
+  @ValidateNested()
+  @Type(() => AmplitudeGateDto)
+  amplitudeGate: AmplitudeGateView | null;
 }
 
 class RoiStatsDto extends OnsetStatsDto implements NonNullable<RunSummary['roi']> {

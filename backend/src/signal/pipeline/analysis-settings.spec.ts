@@ -35,6 +35,9 @@ const API_KEYS: Record<keyof AnalysisSettingsValues, true> = {
   flagThresholdHz: true,
   roi: true,
   onsetLabel: true,
+  amplitudeGatePercentile: true,
+  cycleDisagreementHz: true,
+  compareConditions: true,
 };
 
 describe('AnalysisSettings is the API settings type', () => {

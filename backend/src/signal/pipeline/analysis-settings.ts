@@ -31,6 +31,15 @@ export interface AnalysisSettings {
   roi: string[];
   /** Only onsets with this annotation text / CSV label (case-insensitive); null = every onset. */
   onsetLabel: string | null;
+  /**
+   * Instantaneous-frequency samples whose analytic amplitude is under this percentile of the
+   * channel's envelope are left out before the median and the epoch means; null = off.
+   */
+  amplitudeGatePercentile: number | null;
+  /** A warning is raised when the cycle-by-cycle and phase-based Δf differ by more, Hz. */
+  cycleDisagreementHz: number;
+  /** The two conditions (onset labels) whose Δf difference is reported; null = the first two. */
+  compareConditions: [string, string] | null;
 }
 
 /** Alpha band when neither the settings nor a resting IAF give one (common practice). */
@@ -57,6 +66,9 @@ export const DEFAULT_ANALYSIS_SETTINGS: Readonly<AnalysisSettings> = Object.free
   flagThresholdHz: -0.2,
   roi: [...DEFAULT_POSTERIOR_ROI],
   onsetLabel: null,
+  amplitudeGatePercentile: null,
+  cycleDisagreementHz: 0.1,
+  compareConditions: null,
 } satisfies AnalysisSettings);
 
 /** Where a run's band came from. */
@@ -91,5 +103,9 @@ export function copyAnalysisSettings(settings: Readonly<AnalysisSettings>): Anal
     baselineWindowS: [settings.baselineWindowS[0], settings.baselineWindowS[1]],
     postWindowS: [settings.postWindowS[0], settings.postWindowS[1]],
     roi: [...settings.roi],
+    compareConditions:
+      settings.compareConditions === null
+        ? null
+        : [settings.compareConditions[0], settings.compareConditions[1]],
   };
 }

@@ -141,6 +141,9 @@ export function toAnalyzeOutcome(
           ciHz: c.ciHz,
           pValue: c.pValue,
           trials: c.trialsKept,
+          pafHz: null,
+          cogHz: null,
+          amplitudeGate: null,
         }))
       : result.qc.channels.map((c) => ({
           label: c.label,
@@ -152,6 +155,9 @@ export function toAnalyzeOutcome(
           ciHz: null,
           pValue: null,
           trials: null,
+          pafHz: null,
+          cogHz: null,
+          amplitudeGate: null,
         }));
   const qc = result.qc;
   const quality: QualityView = {

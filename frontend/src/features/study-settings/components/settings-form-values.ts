@@ -17,6 +17,9 @@ export interface SettingsFormValues {
   flagThresholdHz: number | null;
   roi: string[];
   onsetLabel: string;
+  amplitudeGatePercentile: number | null;
+  cycleDisagreementHz: number | null;
+  compareConditions: [string, string] | null;
   reason: string;
 }
 
@@ -39,6 +42,9 @@ export function formValuesOf(settings: AnalysisSettingsValues): SettingsFormValu
     flagThresholdHz: settings.flagThresholdHz,
     roi: settings.roi,
     onsetLabel: settings.onsetLabel ?? '',
+    amplitudeGatePercentile: settings.amplitudeGatePercentile,
+    cycleDisagreementHz: settings.cycleDisagreementHz,
+    compareConditions: settings.compareConditions,
     reason: '',
   };
 }
@@ -67,6 +73,9 @@ export function changeOf(values: SettingsFormValues): AnalysisSettingsChange {
     flagThresholdHz: num(values.flagThresholdHz, 'flagThresholdHz'),
     roi: values.roi,
     onsetLabel: values.onsetLabel.trim() === '' ? null : values.onsetLabel.trim(),
+    amplitudeGatePercentile: values.amplitudeGatePercentile,
+    cycleDisagreementHz: num(values.cycleDisagreementHz, 'cycleDisagreementHz'),
+    compareConditions: values.compareConditions,
     reason: values.reason.trim(),
   };
 }

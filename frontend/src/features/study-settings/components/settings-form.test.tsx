@@ -96,6 +96,9 @@ describe('SettingsForm', { timeout: 60_000 }, () => {
         flagThresholdHz: -0.2,
         roi: ['O1', 'O2', 'Pz'],
         onsetLabel: null,
+        amplitudeGatePercentile: null,
+        cycleDisagreementHz: 0.1,
+        compareConditions: null,
         reason: 'Narrower band after the pilot',
       }),
     );

@@ -15,6 +15,9 @@ export const SETTING_NAMES: Record<Field, string> = {
   flagThresholdHz: 'Suggest a flag at',
   roi: 'Region of interest',
   onsetLabel: 'Onset label',
+  amplitudeGatePercentile: 'Amplitude gate',
+  cycleDisagreementHz: 'Warn when the estimates differ by',
+  compareConditions: 'Conditions compared',
 };
 
 const isPair = (value: unknown): value is [number, number] =>
