@@ -101,7 +101,10 @@ for (const workspace of ['shared', 'backend', 'frontend', 'seed']) {
   check(`tsc ${workspace}`, 'npx', ['tsc', '--noEmit', '-p', `${workspace}/tsconfig.json`]);
 }
 suite('shared jest', 'npx', ['jest', '--ci'], join(root, 'shared'));
-suite('backend jest', 'npx', ['jest', '--ci'], join(root, 'backend'));
+// Two workers: on a 2-core machine jest would run every suite in one process one after
+// another, while an API suite mostly waits (sockets, timers, worker threads); measured in
+// docs/performance.md ("Test run time").
+suite('backend jest', 'npx', ['jest', '--ci', '--maxWorkers=2'], join(root, 'backend'));
 suite('seed jest', 'npx', ['jest', '--ci'], join(root, 'seed'));
 vitestSuite('frontend vitest', [], join(root, 'frontend'));
 vitestSuite(

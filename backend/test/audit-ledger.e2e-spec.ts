@@ -3,7 +3,7 @@ import { defineAbilityFor } from '@gyre/shared';
 import { AuditContextReads } from '../src/audit/audit-context.reads';
 import { SqliteReadsService } from '../src/common/database/sqlite-reads.service';
 import { auditEntries } from './helpers/audit-entries';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 /**
  * The Ledger as a monitor reads it: each entry's participant code, visit label and people's
@@ -11,12 +11,11 @@ import { startTestApp, TestApp } from './helpers/test-app';
  * expected names are the seeded rows' own values (test/helpers/seed.ts), not the server's.
  */
 describe('audit trail for readers (names, links, participant filter)', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let secondVisitId: string;
   let flagId: string;
   let invitedId: string;
   beforeAll(async () => {
-    t = await startTestApp();
     // Technician at A1: a second visit of participant A1-0001.
     const visit = await request(t.url)
       .post('/api/visits')
@@ -59,9 +58,6 @@ describe('audit trail for readers (names, links, participant filter)', () => {
       });
     expect(invited.status).toBe(201);
     invitedId = invited.body.id as string;
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   it('names the participant, visit and actor of a flag entry for a monitor of the study', async () => {

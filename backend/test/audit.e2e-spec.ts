@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import request from 'supertest';
 import type { AuditEntryView } from '@gyre/shared';
 import { auditEntries } from './helpers/audit-entries';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 /** hash = SHA-256(prevHash ‖ canonical JSON), recomputed here independently of the server. */
 function expectedHash(
@@ -29,13 +29,7 @@ function expectedHash(
 }
 
 describe('audit trail', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   it('a create and an update each write an entry with actor, before, after, reason and address', async () => {
     const technician = await t.authHeader('technician');

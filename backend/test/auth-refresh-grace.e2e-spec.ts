@@ -8,7 +8,7 @@ import { createHash } from 'node:crypto';
 import request from 'supertest';
 import { REFRESH_REUSE_GRACE_MS } from '../src/auth/refresh-tokens.service';
 import { SEED_PASSWORD, UserKey } from './helpers/seed';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 const REFRESH_COOKIE = 'gyre_refresh';
 
@@ -25,13 +25,7 @@ const hashOf = (cookie: string): string =>
   createHash('sha256').update(secretOf(cookie)).digest('hex');
 
 describe('two refreshes at once, and a replay after the grace period', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   const signIn = async (user: UserKey): Promise<string> => {
     const response = await request(t.url)

@@ -10,7 +10,7 @@ import request from 'supertest';
 import { SIGNATURE_MEANING } from '@gyre/shared';
 import { Report } from '../src/reports/report.entity';
 import { SEED_PASSWORD, UserKey } from './helpers/seed';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 const REFRESH_COOKIE = 'gyre_refresh';
 
@@ -20,13 +20,7 @@ interface Session {
 }
 
 describe('ending a session refuses its access tokens at once', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   const signIn = async (user: UserKey, password = SEED_PASSWORD): Promise<Session> => {
     const response = await request(t.url)

@@ -12,7 +12,7 @@ import {
   SIGN_IN_THROTTLE_POLICIES,
 } from '../src/auth/sign-in-throttle.service';
 import { SEED_PASSWORD, UserKey } from './helpers/seed';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 const median = (values: number[]): number => {
@@ -21,13 +21,7 @@ const median = (values: number[]): number => {
 };
 
 describe('throttling of failed sign-ins', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp({ env: { TRUST_PROXY: 'loopback' } });
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp({ env: { TRUST_PROXY: 'loopback' } });
 
   const signInFrom = (address: string, email: string, password: string) =>
     request(t.url)

@@ -4,7 +4,7 @@ import { abilityFromPackedRules, type PackedRules } from '@gyre/shared';
 import { accessPayload, forgeJwt } from './helpers/jwt-forge';
 import { REFRESH_REUSE_GRACE_MS } from '../src/auth/refresh-tokens.service';
 import { SEED_PASSWORD } from './helpers/seed';
-import { startTestApp, TEST_JWT_SECRET, TestApp } from './helpers/test-app';
+import { TEST_JWT_SECRET, useTestApp } from './helpers/test-app';
 
 const REFRESH_COOKIE = 'gyre_refresh';
 
@@ -20,13 +20,7 @@ function refreshCookieOf(response: request.Response): { pair: string; attributes
 }
 
 describe('sign-in, tokens and sessions', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   const signIn = (email: string, password: string) =>
     request(t.url).post('/api/auth/sign-in').send({ email, password });
@@ -368,13 +362,7 @@ describe('sign-in, tokens and sessions', () => {
 });
 
 describe('throttling of /api/auth/*', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp({ seed: false });
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp({ seed: false });
 
   it('answers 429 once an address exceeds 60 requests a minute', async () => {
     const statuses: number[] = [];
@@ -409,13 +397,7 @@ describe('throttling of /api/auth/*', () => {
 
 // Common practice: messages built from a role read as English ("an analyst", not "a analyst").
 describe('messages that name a role', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   it('a refused permission says "An analyst may not …"', async () => {
     const response = await request(t.url)

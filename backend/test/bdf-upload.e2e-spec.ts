@@ -20,7 +20,7 @@ import {
   bdfTalBytes,
   int24le,
 } from '../src/signal/edf/testing/hand-built-bdf';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import {
   INVENTED_PATIENT_FIELD,
   INVENTED_PATIENT_NAME,
@@ -80,11 +80,10 @@ function restingBdfPlus(): Buffer {
 const ORIGINAL = restingBdfPlus();
 
 describe('a BDF+ recording through the upload API', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let accepted: RecordingView;
 
   beforeAll(async () => {
-    t = await startTestApp();
     const response = await upload(t, 'technician', t.seed.visits.A1.id, {
       kind: 'resting',
       bytes: ORIGINAL,
@@ -92,9 +91,6 @@ describe('a BDF+ recording through the upload API', () => {
     });
     expect(response.status).toBe(201);
     accepted = response.body as RecordingView;
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   it('is told apart from EDF by its bytes and described as BDF+C', () => {

@@ -7,13 +7,14 @@
  * units, status, status_description), `*_eeg.json` (TaskName, PowerLineFrequency, …) and
  * `*_scans.tsv` (filename, acq_time).
  */
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { zipSync } from 'fflate';
 import request from 'supertest';
 import type { BidsImportFilePreview, BidsImportPreview } from '@gyre/shared';
 import { assembleBdf, plainBdfParts } from '../src/signal/edf/testing/hand-built-bdf';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { rowCounts, sqlRows, uploadFolder } from './helpers/sqlite-rows';
+import { type TestApp, useTestApp } from './helpers/test-app';
 import type { UserKey } from './helpers/seed';
 import {
   INVENTED_PATIENT_NAME,
@@ -63,33 +64,19 @@ async function send(
   return req;
 }
 
-function sql<T>(t: TestApp, text: string): T[] {
-  return (
-    t.dataSource.driver as unknown as {
-      databaseConnection: { prepare(s: string): { all(): T[] } };
-    }
-  ).databaseConnection
-    .prepare(text)
-    .all();
-}
-
 /** Everything an import writes: rows of each table and files in the upload folder. */
-function footprint(t: TestApp): Record<string, unknown> {
-  const count = (table: string): number =>
-    sql<{ n: number }>(t, `SELECT count(*) AS n FROM ${table}`)[0].n;
-  const tmp = join(t.config.uploadsDir, 'tmp');
+function footprint(t: TestApp) {
   return {
-    participants: count('participant'),
-    visits: count('visit'),
-    recordings: count('recording'),
-    jobs: count('job'),
-    overrides: count('visit_analysis_override'),
-    bidsFiles: count('bids_import_file'),
-    audit: count('audit_entry WHERE actorId IS NOT NULL'),
-    stored: existsSync(t.config.uploadsDir)
-      ? readdirSync(t.config.uploadsDir).filter((f) => f !== 'tmp')
-      : [],
-    temporary: existsSync(tmp) ? readdirSync(tmp) : [],
+    ...rowCounts(t, {
+      participants: 'participant',
+      visits: 'visit',
+      recordings: 'recording',
+      jobs: 'job',
+      overrides: 'visit_analysis_override',
+      bidsFiles: 'bids_import_file',
+      audit: 'audit_entry WHERE actorId IS NOT NULL',
+    }),
+    ...uploadFolder(t),
   };
 }
 
@@ -156,10 +143,9 @@ const fileOf = (preview: BidsImportPreview, task: string): BidsImportFilePreview
   preview.files.find((f) => f.task === task) as BidsImportFilePreview;
 
 describe('EEG-BIDS import', () => {
-  let t: TestApp;
+  const t = useTestApp();
 
   beforeAll(async () => {
-    t = await startTestApp();
     const admin = await t.authHeader('admin');
     for (const [name, targetDay] of [
       ['Baseline', 0],
@@ -171,9 +157,6 @@ describe('EEG-BIDS import', () => {
         .send({ name, targetDay, windowBeforeDays: 3, windowAfterDays: 3 });
       expect(res.status).toBe(201);
     }
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   const good = session('A10001', 'baseline', 41);
@@ -223,7 +206,7 @@ describe('EEG-BIDS import', () => {
     expect(res.status).toBe(201);
     const preview = res.body as BidsImportPreview;
     expect(preview.imported).toBe(true);
-    const recordings = sql<{
+    const recordings = sqlRows<{
       id: string;
       kind: string;
       state: string;
@@ -251,7 +234,7 @@ describe('EEG-BIDS import', () => {
     expect(stored.includes(Buffer.from(INVENTED_PATIENT_NAME))).toBe(false);
 
     const visitId = recordings[0].visitId;
-    const visit = sql<{ label: string; visitDate: string; participantId: string }>(
+    const visit = sqlRows<{ label: string; visitDate: string; participantId: string }>(
       t,
       `SELECT label, visitDate, participantId FROM visit WHERE id = '${visitId}'`,
     )[0];
@@ -260,7 +243,7 @@ describe('EEG-BIDS import', () => {
       visitDate: '2026-01-02',
       participantId: t.seed.participants.A1.id,
     });
-    const rows = sql<{ task: string; lineFrequencyHz: number | null; badChannelsJson: string }>(
+    const rows = sqlRows<{ task: string; lineFrequencyHz: number | null; badChannelsJson: string }>(
       t,
       `SELECT task, lineFrequencyHz, badChannelsJson FROM bids_import_file ORDER BY task`,
     );
@@ -289,7 +272,7 @@ describe('EEG-BIDS import', () => {
     expect(override.body.roi).not.toContain('O2');
     expect(override.body.roi).toContain('O1');
     expect(override.body.reason).toBe('EEG-BIDS channels.tsv marks bad: O2 (electrode bridged)');
-    const audit = sql<{ action: string }>(
+    const audit = sqlRows<{ action: string }>(
       t,
       `SELECT action FROM audit_entry WHERE objectId IN ('${t.seed.studies.A.id}', '${visitId}') ORDER BY seq`,
     ).map((a) => a.action);
@@ -375,7 +358,7 @@ describe('EEG-BIDS import', () => {
   });
 
   it('a zip with a new subject, participants allowed to be created: imported', async () => {
-    const before = footprint(t) as { participants: number; recordings: number };
+    const before = footprint(t);
     const res = await send(t, 'technician', session('A1NEW7', 'baseline', 101, 'export'), {
       asZip: true,
       createParticipants: true,
@@ -384,10 +367,10 @@ describe('EEG-BIDS import', () => {
     const preview = res.body as BidsImportPreview;
     expect(preview.summary).toMatchObject({ files: 2, newParticipants: 1, newVisits: 1 });
     expect(preview.files.every((f) => f.participantCode === 'A1NEW7')).toBe(true);
-    const after = footprint(t) as { participants: number; recordings: number };
+    const after = footprint(t);
     expect(after.participants).toBe(before.participants + 1);
     expect(after.recordings).toBe(before.recordings + 2);
-    const created = sql<{ siteId: string }>(
+    const created = sqlRows<{ siteId: string }>(
       t,
       `SELECT siteId FROM participant WHERE code = 'A1NEW7'`,
     );

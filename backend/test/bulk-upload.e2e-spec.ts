@@ -2,10 +2,9 @@
  * Bulk upload with a CSV manifest, through the real API on a temporary DATA_DIR (real SQLite
  * file, the real validation lane). Every recording is generated (recordings-fixtures.ts).
  */
-import { existsSync, readdirSync } from 'node:fs';
-import { join } from 'node:path';
 import request from 'supertest';
 import type { BulkUploadReport, BulkUploadRowReport } from '@gyre/shared';
+import { rowCounts, sqlRows, uploadFolder } from './helpers/sqlite-rows';
 import { startTestApp, TestApp } from './helpers/test-app';
 import type { UserKey } from './helpers/seed';
 import { syntheticRestEdf, syntheticTaskEdf } from './recordings-fixtures';
@@ -35,38 +34,21 @@ async function bulk(
 }
 
 /** Everything an import writes: rows of each table and files in the upload folder. */
-function footprint(t: TestApp): Record<string, unknown> {
-  const count = (table: string): number =>
-    (
-      t.dataSource.driver as unknown as {
-        databaseConnection: { prepare(s: string): { get(): { n: number } } };
-      }
-    ).databaseConnection
-      .prepare(`SELECT count(*) AS n FROM ${table}`)
-      .get().n;
-  const tmp = join(t.config.uploadsDir, 'tmp');
+function footprint(t: TestApp) {
   return {
-    recordings: count('recording'),
-    visits: count('visit'),
-    jobs: count('job'),
-    // Entries someone's action wrote (the computations' own moves have no actor).
-    audit: count('audit_entry WHERE actorId IS NOT NULL'),
-    stored: existsSync(t.config.uploadsDir)
-      ? readdirSync(t.config.uploadsDir)
-          .filter((f) => f !== 'tmp')
-          .sort()
-      : [],
-    temporary: existsSync(tmp) ? readdirSync(tmp) : [],
+    ...rowCounts(t, {
+      recordings: 'recording',
+      visits: 'visit',
+      jobs: 'job',
+      // Entries someone's action wrote (the computations' own moves have no actor).
+      audit: 'audit_entry WHERE actorId IS NOT NULL',
+    }),
+    ...uploadFolder(t),
   };
 }
 
 function maxSeq(t: TestApp): number {
-  const db = (
-    t.dataSource.driver as unknown as {
-      databaseConnection: { prepare(s: string): { get(): { n: number | null } } };
-    }
-  ).databaseConnection;
-  return db.prepare('SELECT max(seq) AS n FROM audit_entry').get().n ?? 0;
+  return sqlRows<{ n: number | null }>(t, 'SELECT max(seq) AS n FROM audit_entry')[0].n ?? 0;
 }
 
 const rowOf = (report: BulkUploadReport, row: number): BulkUploadRowReport =>
@@ -214,17 +196,12 @@ describe('bulk upload with a CSV manifest', () => {
 
   it('imports every row in one go: N recordings and jobs, the new visits, the audit entries', async () => {
     const lastSeq = maxSeq(t);
-    const before = footprint(t) as {
-      recordings: number;
-      visits: number;
-      jobs: number;
-      audit: number;
-    };
+    const before = footprint(t);
     const res = await bulk(t, 'technician', goodManifest, goodFiles);
     expect(res.status).toBe(201);
     const report = res.body as BulkUploadReport;
     expect(report.imported).toBe(true);
-    const after = footprint(t) as typeof before & { stored: string[]; temporary: string[] };
+    const after = footprint(t);
     expect(after.recordings - before.recordings).toBe(4);
     expect(after.jobs - before.jobs).toBe(4);
     expect(after.visits - before.visits).toBe(2);
@@ -351,10 +328,7 @@ describe('bulk upload limits', () => {
     expect(res.body.message).toContain('3 rows found, at most 2');
   });
 
-  const tmpFiles = (): string[] => {
-    const tmp = join(t.config.uploadsDir, 'tmp');
-    return existsSync(tmp) ? readdirSync(tmp) : [];
-  };
+  const tmpFiles = (): string[] => uploadFolder(t).temporary;
 
   it('refuses more bytes than BULK_UPLOAD_MAX_BYTES with 413 naming the limit, leaving no file', async () => {
     // 12 s × 4 channels × 256 Hz × 2 bytes = 24,576 data bytes (+ header) per file: each is

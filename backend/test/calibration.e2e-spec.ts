@@ -10,19 +10,15 @@ import request from 'supertest';
 import type { AuditEntryView, CalibrationRunView, Page } from '@gyre/shared';
 import { DEFAULT_ANALYSIS_SETTINGS } from '../src/signal/pipeline/analysis-settings';
 import type { UserKey } from './helpers/seed';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 describe('calibration runs', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let studyA: string;
   let siteA1: string;
   beforeAll(async () => {
-    t = await startTestApp();
     studyA = t.seed.studies.A.id;
     siteA1 = t.seed.sites.A1.id;
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   const as = async (user: UserKey) => t.authHeader(user);

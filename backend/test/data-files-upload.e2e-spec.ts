@@ -10,7 +10,7 @@ import type { RecordingView } from '@gyre/shared';
 import { blankPatientField, blankRecordingField } from '../src/signal/edf';
 import { acceptedUpload } from './helpers/accepted-upload';
 import { countOf } from './helpers/row-count';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import { INVENTED_PATIENT_NAME, syntheticTaskEdf, upload } from './recordings-fixtures';
 
 const sha256 = (bytes: Uint8Array): string => createHash('sha256').update(bytes).digest('hex');
@@ -32,14 +32,8 @@ function withRecordingField(field: string): Buffer {
 const ORIGINAL = withRecordingField(`Startdate 15-JAN-2026 ${HOSPITAL} ${TECHNICIAN} ${EQUIPMENT}`);
 
 describe('UPLOAD_MAX_BYTES is the largest size accepted (common practice: a limit is inclusive)', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    // The limit is set to exactly the size of the file.
-    t = await startTestApp({ env: { UPLOAD_MAX_BYTES: String(ORIGINAL.byteLength) } });
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  // The limit is set to exactly the size of the file.
+  const t = useTestApp({ env: { UPLOAD_MAX_BYTES: String(ORIGINAL.byteLength) } });
 
   it('accepts a recording of exactly UPLOAD_MAX_BYTES', async () => {
     expect(t.config.uploadMaxBytes).toBe(ORIGINAL.byteLength);
@@ -86,15 +80,11 @@ describe('UPLOAD_MAX_BYTES is the largest size accepted (common practice: a limi
 });
 
 describe('the stored copy carries no identifying recording field (EDF+, Kemp & Olivan 2003)', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let accepted: RecordingView;
 
   beforeAll(async () => {
-    t = await startTestApp();
     accepted = await acceptedUpload(t, { kind: 'task', bytes: ORIGINAL });
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   it('stores the recording field as Startdate <date> X X X, the patient field as X X X X', () => {

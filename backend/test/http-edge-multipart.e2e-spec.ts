@@ -8,7 +8,7 @@ import { existsSync, readdirSync } from 'node:fs';
 import { request as httpRequest } from 'node:http';
 import { join } from 'node:path';
 import { countOf } from './helpers/row-count';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import { syntheticTaskEdf } from './recordings-fixtures';
 import { seededUniform } from '../src/signal/random/random';
 
@@ -89,16 +89,12 @@ const EDF = Buffer.from(
 );
 
 describe('malformed multipart uploads (RFC 7578)', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let path: string;
   let headers: Record<string, string>;
   beforeAll(async () => {
-    t = await startTestApp();
     path = `/api/visits/${t.seed.visits.A1.id}/recordings`;
     headers = await t.authHeader('technician');
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   const count = (table: string): Promise<number> => countOf(t, table);

@@ -12,7 +12,7 @@ import { createApp } from '../src/app.factory';
 import { validateEnvironment, EnvironmentError } from '../src/config/environment';
 import { buildAppConfig } from '../src/config/app.config';
 import { SEED_PASSWORD } from './helpers/seed';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { type TestApp, useTestApp } from './helpers/test-app';
 
 const FORGED = '203.0.113.77';
 const LOOPBACK = ['127.0.0.1', '::ffff:127.0.0.1', '::1'];
@@ -27,13 +27,7 @@ async function lastAudited(t: TestApp, action: string): Promise<string | null> {
 }
 
 describe('without TRUST_PROXY (the default)', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   it('a forged X-Forwarded-For does not change the audited address of a sign-in', async () => {
     const response = await request(t.url)
@@ -69,13 +63,7 @@ describe('without TRUST_PROXY (the default)', () => {
 });
 
 describe('with TRUST_PROXY=127.0.0.1 (a proxy on this machine)', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp({ env: { TRUST_PROXY: '127.0.0.1' } });
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp({ env: { TRUST_PROXY: '127.0.0.1' } });
 
   it('the address the proxy forwards is the audited client address', async () => {
     const response = await request(t.url)

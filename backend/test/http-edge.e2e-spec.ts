@@ -8,19 +8,13 @@ import request from 'supertest';
 import { MAX_BODY_DEPTH } from '../src/common/http/json-depth';
 import { MAX_PAGE } from '../src/common/pagination/page-query.dto';
 import { countOf } from './helpers/row-count';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 /** `levels` arrays nested in one another around a number: `[[…[1]…]]`. */
 const nestedArrays = (levels: number): string => `${'['.repeat(levels)}1${']'.repeat(levels)}`;
 
 describe('HTTP edge', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   const count = (table: string): Promise<number> => countOf(t, table);
 

@@ -1,16 +1,10 @@
 import request from 'supertest';
 import { readMails, tokenFromMail, waitForMail } from './helpers/mail-catcher';
 import { SEED_PASSWORD } from './helpers/seed';
-import { startTestApp, TEST_PUBLIC_URL, TestApp } from './helpers/test-app';
+import { TEST_PUBLIC_URL, useTestApp } from './helpers/test-app';
 
 describe('invitations, password reset and the outbox (real local SMTP server)', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   const invite = async (body: Record<string, unknown>) =>
     request(t.url)
@@ -228,14 +222,8 @@ describe('invitations, password reset and the outbox (real local SMTP server)', 
 });
 
 describe('outbox retries when SMTP is unreachable', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    // Port 9 on loopback: nothing listens there, so every attempt fails to connect.
-    t = await startTestApp({ env: { SMTP_URL: 'smtp://127.0.0.1:9' } });
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  // Port 9 on loopback: nothing listens there, so every attempt fails to connect.
+  const t = useTestApp({ env: { SMTP_URL: 'smtp://127.0.0.1:9' } });
 
   it('keeps the message queued with the error, one attempt made and a later next attempt', async () => {
     const response = await request(t.url)

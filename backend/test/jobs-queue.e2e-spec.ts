@@ -9,16 +9,15 @@ import { join } from 'node:path';
 import request from 'supertest';
 import type { AnalysisRunView, JobView, RecordingView } from '@gyre/shared';
 import { currentSettings } from './helpers/analysis-settings';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
 
 describe('job queue', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let broken: RecordingView;
   let healthy: RecordingView;
 
   beforeAll(async () => {
-    t = await startTestApp();
     const a = await upload(t, 'technician', t.seed.visits.A1.id, {
       kind: 'task',
       bytes: syntheticTaskEdf({ durationS: 30, seed: 31 }),
@@ -30,9 +29,6 @@ describe('job queue', () => {
     expect([a.status, b.status]).toEqual([201, 201]);
     broken = await waitForState(t, 'technician', (a.body as RecordingView).id, ['ready']);
     healthy = await waitForState(t, 'technicianA2', (b.body as RecordingView).id, ['ready']);
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   it('fails one recording after 3 attempts while another computes to ready', async () => {

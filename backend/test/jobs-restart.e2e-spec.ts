@@ -56,7 +56,8 @@ createApp().then((app) => app.listen(${port}, '127.0.0.1')).catch((e) => { conso
   child.stdout?.on('data', (chunk: Buffer) => log.push(chunk.toString('utf8')));
   child.stderr?.on('data', (chunk: Buffer) => log.push(chunk.toString('utf8')));
   const url = `http://127.0.0.1:${port}`;
-  const until = Date.now() + 30_000;
+  // Generous: under `npm test` another jest worker may hold the other core meanwhile.
+  const until = Date.now() + 90_000;
   while (Date.now() < until) {
     if (child.exitCode !== null) throw new Error(`server exited: ${log.join('')}`);
     const health = await request(url)

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import generated from '../src/openapi/shared-schemas.generated.json';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 interface MediaType {
   schema?: Record<string, unknown>;
@@ -44,16 +44,12 @@ function referencesIn(node: unknown, found: Set<string>): Set<string> {
 // OpenAPI 3.0.3, "Responses Object": each response describes its body through `content`, and
 // a `$ref` must resolve inside the document ("Reference Object").
 describe('the OpenAPI description types every success body', () => {
-  let t: TestApp;
+  const t = useTestApp({ seed: false });
   let document: OpenApiDocument;
   beforeAll(async () => {
-    t = await startTestApp({ seed: false });
     const response = await request(t.url).get('/api/docs/openapi.json');
     expect(response.status).toBe(200);
     document = response.body as OpenApiDocument;
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   it('gives every 2xx response with a body a schema of its shape', () => {

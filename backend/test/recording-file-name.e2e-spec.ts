@@ -5,16 +5,16 @@
  */
 import request from 'supertest';
 import type { Page, RecordingView } from '@gyre/shared';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { sqlRows } from './helpers/sqlite-rows';
+import { useTestApp } from './helpers/test-app';
 import { INVENTED_PATIENT_NAME, syntheticRestEdf, upload } from './recordings-fixtures';
 
 describe('recording file names', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let accepted: RecordingView;
   let rejected: RecordingView;
 
   beforeAll(async () => {
-    t = await startTestApp();
     const good = await upload(t, 'technician', t.seed.visits.A1.id, {
       kind: 'resting',
       bytes: syntheticRestEdf({ durationS: 20, seed: 71 }),
@@ -33,9 +33,6 @@ describe('recording file names', () => {
     });
     expect(bad.status).toBe(422);
     rejected = (bad.body as { details: { recording: RecordingView } }).details.recording;
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   it('keeps the last segment of the uploaded name on accepted and rejected recordings', async () => {
@@ -73,12 +70,7 @@ describe('recording file names', () => {
   });
 
   it('keeps the file name out of the audit trail', async () => {
-    const db = (
-      t.dataSource.driver as unknown as {
-        databaseConnection: { prepare(s: string): { all(): Array<Record<string, unknown>> } };
-      }
-    ).databaseConnection;
-    const rows = db.prepare('SELECT * FROM audit_entry').all();
+    const rows = sqlRows<Record<string, unknown>>(t, 'SELECT * FROM audit_entry');
     expect(rows.length).toBeGreaterThan(0);
     expect(JSON.stringify(rows)).not.toContain('rest-cut.edf');
     expect(JSON.stringify(rows)).not.toContain('A1-0001 V1 rest.edf');

@@ -20,7 +20,7 @@ import { RECORDING_TRANSITIONS, RecordingLifecycle } from '../src/recordings/rec
 import { currentSettings } from './helpers/analysis-settings';
 import { binaryBody } from './helpers/binary-body';
 import { newVisit } from './helpers/new-visit';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
 
 /** The participant's alpha runs near 8.4 Hz and slows by 0.4 Hz after each onset (generated). */
@@ -35,14 +35,7 @@ const taskFile = syntheticTaskEdf({
 const restFile = syntheticRestEdf({ durationS: 60, peakHz: BASE_HZ, seed: 43 });
 
 describe('recording pipeline', () => {
-  let t: TestApp;
-
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   async function accepted(visitId: string, kind: 'resting' | 'task', bytes: Uint8Array) {
     const response = await upload(t, 'technician', visitId, { kind, bytes });

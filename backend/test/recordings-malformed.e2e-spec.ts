@@ -11,7 +11,7 @@ import request from 'supertest';
 import type { RecordingView } from '@gyre/shared';
 import { blankPatientField } from '../src/signal/edf';
 import { countOf } from './helpers/row-count';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import { syntheticTaskEdf, upload } from './recordings-fixtures';
 
 /** Generated valid file: 10 s, 2 EEG channels + the EDF+ annotation signal, onsets at 3 and 6 s. */
@@ -169,13 +169,9 @@ const CASES: Case[] = [
 ];
 
 describe('malformed uploads', () => {
-  let t: TestApp;
+  const t = useTestApp();
   beforeAll(async () => {
-    t = await startTestApp();
     await t.authHeader('technician'); // the sign-in writes its own audit entry; do it first
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   const count = (table: string): Promise<number> => countOf(t, table);

@@ -11,7 +11,7 @@ import { DEFAULT_ANALYSIS_SETTINGS } from '../src/signal/pipeline/analysis-setti
 import { blankPatientField, readEdf } from '../src/signal/edf';
 import { analyzeRecording } from '../src/signal/pipeline/analyze-recording';
 import { acceptedUpload } from './helpers/accepted-upload';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import {
   INVENTED_PATIENT_NAME,
   syntheticRestEdf,
@@ -24,16 +24,12 @@ import {
 const sha256 = (bytes: Uint8Array): string => createHash('sha256').update(bytes).digest('hex');
 
 describe('recording uploads', () => {
-  let t: TestApp;
+  const t = useTestApp();
   const original = syntheticTaskEdf({ durationS: 60, seed: 11 });
   let accepted: RecordingView;
 
   beforeAll(async () => {
-    t = await startTestApp();
     accepted = await acceptedUpload(t, { kind: 'task', bytes: original });
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   it('accepts a generated EDF+ task recording, queues it and computes it to ready', async () => {
@@ -216,13 +212,7 @@ describe('recording uploads', () => {
 });
 
 describe('upload size limit', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp({ env: { UPLOAD_MAX_BYTES: '65536' } });
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp({ env: { UPLOAD_MAX_BYTES: '65536' } });
 
   it('answers 413 beyond UPLOAD_MAX_BYTES and keeps no row and no file', async () => {
     const bytes = syntheticTaskEdf({ durationS: 60 }); // about 125 kB

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import type { Seed, UserKey } from './helpers/seed';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 /**
  * Role × endpoint matrix for studies, sites, users, participants, visits, audit and mail.
@@ -259,13 +259,7 @@ const WRITE_CASES: [string, Case][] = [
 ];
 
 describe('role × endpoint matrix', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   const call = async (c: Case, user: UserKey) => {
     const req = request(t.url)
@@ -284,13 +278,7 @@ describe('role × endpoint matrix', () => {
 });
 
 describe('scoped lists contain only rows in scope', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   const codes = async (user: UserKey, path: string, field = 'code') => {
     const response = await request(t.url)

@@ -1,15 +1,9 @@
 import request from 'supertest';
 import { createApp } from '../src/app.factory';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 describe('server shell on a real SQLite file', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp({ seed: false });
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp({ seed: false });
 
   it('GET /api/health answers ok with every migration applied, without sign-in', async () => {
     const response = await request(t.url).get('/api/health');

@@ -3,7 +3,7 @@
  * thread is busy with long computations. Recordings are generated (recordings-fixtures.ts).
  */
 import type { RecordingView } from '@gyre/shared';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import { writeEdf } from '../src/signal/edf';
 import { syntheticTaskRecording } from '../src/signal/synthetic/synthetic-eeg';
 import { syntheticTaskEdf, taskOnsets, upload, waitForState } from './recordings-fixtures';
@@ -45,14 +45,7 @@ const LABELS = [
 ];
 
 describe('validation lane', () => {
-  let t: TestApp;
-
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t.close();
-  });
+  const t = useTestApp();
 
   it('answers an upload while two long analyses hold both analysis threads', async () => {
     // One generated channel under 32 labels: generating 32 would take longer than the test.

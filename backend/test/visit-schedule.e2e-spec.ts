@@ -17,9 +17,9 @@ import type {
   VisitView,
 } from '@gyre/shared';
 import type { UserKey } from './helpers/seed';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
-let t: TestApp;
+const t = useTestApp();
 const as = async (user: UserKey) => t.authHeader(user);
 let studyA: string;
 let studyB: string;
@@ -30,12 +30,8 @@ let armA: StudyGroupView;
 let armB: StudyGroupView;
 
 beforeAll(async () => {
-  t = await startTestApp();
   studyA = t.seed.studies.A.id;
   studyB = t.seed.studies.B.id;
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const plannedUrl = (study: string) => `/api/studies/${study}/planned-visits`;

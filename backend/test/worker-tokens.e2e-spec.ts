@@ -17,7 +17,7 @@ import request from 'supertest';
 import type { AuditEntryView, CreatedWorkerTokenView, Page, WorkerTokenView } from '@gyre/shared';
 import { REQUIRED_PERMISSION_KEY, type RequiredPermission } from '../src/auth/decorators';
 import { IS_PUBLIC_KEY } from '../src/common/decorators/public.decorator';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { startTestApp, TestApp, useTestApp } from './helpers/test-app';
 import type { UserKey } from './helpers/seed';
 import { syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
 
@@ -33,17 +33,13 @@ function secretPartOf(token: string): string {
 }
 
 describe('worker tokens', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let adminName: string;
   beforeAll(async () => {
-    t = await startTestApp();
     const me = await request(t.url)
       .get('/api/auth/me')
       .set(await t.authHeader('admin'));
     adminName = (me.body as { user: { name: string } }).user.name;
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   const create = async (name: string, user: UserKey = 'admin') =>

@@ -33,6 +33,11 @@ export interface AuditedSave<Row, View> extends AuditedRow<Row> {
   duplicate: (row: Row) => Error;
 }
 
+export interface AuditedInsert<Row> extends AuditedRow<Row> {
+  row: Row;
+  view: (row: Row) => unknown;
+}
+
 export interface AuditedRemoval<Row> extends AuditedRow<Row> {
   row: Row;
   view: (row: Row) => unknown;
@@ -70,16 +75,9 @@ export class AuditedWrites {
             : spec.beforeView === undefined
               ? spec.view(spec.before)
               : await spec.beforeView(spec.before, manager);
-        await this.audit.record({
-          actor: caller.user,
-          action: spec.before === null ? 'create' : 'update',
-          objectType: spec.objectType,
-          objectId: row.id,
-          ...spec.scope(row),
+        await this.entry(caller, spec, row, spec.before === null ? 'create' : 'update', {
           before,
           after: view,
-          reason: spec.reason ?? null,
-          clientIp: caller.clientIp,
         });
         return view;
       });
@@ -87,6 +85,19 @@ export class AuditedWrites {
       if (built !== undefined && isUniqueViolation(error)) throw spec.duplicate(built);
       throw error;
     }
+  }
+
+  /**
+   * Inside a transaction the caller already holds (an import writing many rows at once):
+   * inserts a new row and its `create` entry, the entry its module's own create writes.
+   */
+  async insertIn<Row extends ObjectLiteral & { id: string }>(
+    manager: EntityManager,
+    caller: Caller,
+    spec: AuditedInsert<Row>,
+  ): Promise<void> {
+    await manager.insert(spec.entity, spec.row as DeepPartial<Row>);
+    await this.entry(caller, spec, spec.row, 'create', { after: spec.view(spec.row) });
   }
 
   /** Deletes the row once `check` lets it go. */
@@ -97,16 +108,27 @@ export class AuditedWrites {
     await this.writes.run(async (manager) => {
       await spec.check(manager);
       await manager.delete(spec.entity, { id: spec.row.id });
-      await this.audit.record({
-        actor: caller.user,
-        action: 'delete',
-        objectType: spec.objectType,
-        objectId: spec.row.id,
-        ...spec.scope(spec.row),
-        before: spec.view(spec.row),
-        reason: spec.reason ?? null,
-        clientIp: caller.clientIp,
-      });
+      await this.entry(caller, spec, spec.row, 'delete', { before: spec.view(spec.row) });
+    });
+  }
+
+  /** The entry of one row's change: the caller, the row's scope and the spec's reason. */
+  private async entry<Row extends { id: string }>(
+    caller: Caller,
+    spec: AuditedRow<Row>,
+    row: Row,
+    action: 'create' | 'update' | 'delete',
+    change: { before?: unknown; after?: unknown },
+  ): Promise<void> {
+    await this.audit.record({
+      actor: caller.user,
+      action,
+      objectType: spec.objectType,
+      objectId: row.id,
+      ...spec.scope(row),
+      ...change,
+      reason: spec.reason ?? null,
+      clientIp: caller.clientIp,
     });
   }
 }

@@ -1,34 +1,25 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { DataSource } from 'typeorm';
+import type { DataSource } from 'typeorm';
 import { defineAbilityFor } from '@gyre/shared';
 import { GyreException } from '../common/errors/gyre.exception';
 import { Participant } from '../participants/participant.entity';
 import { sqliteHandleOf } from '../common/database/sqlite-handle';
+import {
+  participantTable,
+  type ParticipantTable,
+} from '../common/database/testing/participant-table';
 import { applyScope, membershipScope, scopedWhere, scopeSql } from './access-scope';
 
 // A real SQLite file with just the participant table: the scope must work in SQL, not in JS.
 describe('row scope in the query', () => {
-  let dir: string;
+  let table: ParticipantTable;
   let db: DataSource;
   const tech = defineAbilityFor({ id: 'u1', role: 'technician', studyId: 'S1', siteId: 'A' });
   const analyst = defineAbilityFor({ id: 'u2', role: 'analyst', studyId: 'S1', siteId: null });
   const admin = defineAbilityFor({ id: 'u3', role: 'admin', studyId: null, siteId: null });
 
   beforeAll(async () => {
-    dir = mkdtempSync(join(tmpdir(), 'gyre-scope-'));
-    db = new DataSource({
-      type: 'better-sqlite3',
-      database: join(dir, 'scope.sqlite'),
-      entities: [Participant],
-    });
-    await db.initialize();
-    // Every column the entity maps (others add columns), untyped: only the scope matters here.
-    const columns = db
-      .getMetadata(Participant)
-      .columns.map((c) => `"${c.databaseName}"${c.isPrimary ? ' varchar PRIMARY KEY' : ''}`);
-    await db.query(`CREATE TABLE "participant" (${columns.join(', ')})`);
+    table = await participantTable('scope');
+    db = table.db;
     const at = '2026-01-01T00:00:00.000Z';
     for (const [id, studyId, siteId] of [
       ['p1', 'S1', 'A'],
@@ -46,8 +37,7 @@ describe('row scope in the query', () => {
     }
   });
   afterAll(async () => {
-    await db.destroy();
-    rmSync(dir, { recursive: true, force: true });
+    await table.close();
   });
 
   const ids = (rows: Participant[]) => rows.map((row) => row.id).sort();

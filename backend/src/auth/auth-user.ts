@@ -13,6 +13,18 @@ export interface AuthUser {
   siteId: string | null;
 }
 
+/** The signed-in facts of a user row (a `User`, or the sign-in read of one), nothing more. */
+export function toAuthUser(user: AuthUser): AuthUser {
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    role: user.role,
+    studyId: user.studyId,
+    siteId: user.siteId,
+  };
+}
+
 /**
  * A worker process authenticated with a worker token (docs/security.md, "Worker tokens"). It
  * is no user: it has no role, study or site, and only the rules of `defineWorkerRules`.

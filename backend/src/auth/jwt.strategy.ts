@@ -6,7 +6,7 @@ import { AccountsService } from '../accounts/accounts.service';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
 import { AuthError, authError } from './auth.errors';
-import { AuthUser } from './auth-user';
+import { AuthUser, toAuthUser } from './auth-user';
 import { ACCESS_TOKEN_AUDIENCE, ACCESS_TOKEN_ISSUER } from './access-tokens.service';
 import { RefreshTokensService } from './refresh-tokens.service';
 
@@ -52,13 +52,6 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
         'This session has ended (signed out, password or role changed, or account locked): sign in again.',
       );
     }
-    return {
-      id: user.id,
-      email: user.email,
-      name: user.name,
-      role: user.role,
-      studyId: user.studyId,
-      siteId: user.siteId,
-    };
+    return toAuthUser(user);
   }
 }

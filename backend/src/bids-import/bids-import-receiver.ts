@@ -3,15 +3,16 @@ import { createWriteStream } from 'node:fs';
 import { mkdir, unlink } from 'node:fs/promises';
 import { join } from 'node:path';
 import { PassThrough, Readable, Transform } from 'node:stream';
-import { finished, pipeline } from 'node:stream/promises';
+import { pipeline } from 'node:stream/promises';
 import { Inject, Injectable } from '@nestjs/common';
 import busboy from 'busboy';
 import type { Request } from 'express';
 import { Unzip, UnzipInflate } from 'fflate';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
+import { removeTempFiles, type MultiFileReceiver } from '../common/http/multi-file-import';
 import { IdentifyingFieldsBlanker } from '../recordings/upload/identifying-fields-blanker';
-import type { ReceivedFile } from '../recordings/upload/multipart-upload';
+import { parseBody, type ReceivedFile } from '../recordings/upload/multipart-upload';
 import { BidsImportError, bidsImportError } from './bids-import.errors';
 import { safeRelativePath } from './bids-paths';
 
@@ -54,7 +55,7 @@ class Refusal extends Error {
  * body and the unzipped bytes, UPLOAD_MAX_BYTES each recording. On failure nothing is left.
  */
 @Injectable()
-export class BidsImportReceiver {
+export class BidsImportReceiver implements MultiFileReceiver<ReceivedBidsUpload> {
   constructor(@Inject(APP_CONFIG) private readonly config: AppConfig) {}
 
   async receive(request: Request): Promise<ReceivedBidsUpload> {
@@ -84,10 +85,8 @@ export class BidsImportReceiver {
   }
 
   /** Removes every temporary file of a received upload. */
-  async discard(received: ReceivedBidsUpload): Promise<void> {
-    for (const file of received.recordings.values()) {
-      await unlink(file.tempPath).catch(() => undefined);
-    }
+  discard(received: ReceivedBidsUpload): Promise<void> {
+    return removeTempFiles(received.recordings.values());
   }
 
   private async parse(request: Request, received: ReceivedBidsUpload): Promise<void> {
@@ -212,17 +211,7 @@ export class BidsImportReceiver {
         );
       }
     });
-    request.once('close', () => {
-      if (!request.complete) parser.destroy(new Error('the request ended before its body did'));
-    });
-    request.pipe(parser);
-    let parserError: Error | null = null;
-    try {
-      await finished(parser);
-    } catch (error) {
-      request.unpipe(parser);
-      parserError = error instanceof Error ? error : new Error(String(error));
-    }
+    const parserError = await parseBody(request, parser);
     // A zip adds the writes of its entries while it is read: wait for those too.
     for (let i = 0; i < writes.length; i++) await writes[i];
     if (failure !== null) throw failure;

@@ -1,20 +1,12 @@
-import {
-  Controller,
-  HttpCode,
-  HttpStatus,
-  Param,
-  ParseUUIDPipe,
-  Post,
-  Query,
-  Req,
-  Res,
-} from '@nestjs/common';
+import { Controller, HttpCode, HttpStatus, Param, Post, Query, Req, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiConsumes, ApiQuery, ApiTags } from '@nestjs/swagger';
 import type { Request, Response } from 'express';
 import type { BidsImportPreview } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
+import { runMultiFileImport } from '../common/http/multi-file-import';
 import { ApiResult } from '../openapi/api-responses';
+import { StudiesService } from '../studies/studies.service';
 import { BidsImportReceiver } from './bids-import-receiver';
 import { BidsImportError, bidsImportError } from './bids-import.errors';
 import { BidsImportService } from './bids-import.service';
@@ -26,6 +18,7 @@ export class BidsImportController {
   constructor(
     private readonly bids: BidsImportService,
     private readonly receiver: BidsImportReceiver,
+    private readonly studies: StudiesService,
   ) {}
 
   @Post()
@@ -69,29 +62,19 @@ export class BidsImportController {
     status: HttpStatus.CREATED,
   })
   @ApiResult('BidsImportPreview', { description: 'Dry run: the preview, nothing stored' })
-  async import(
+  import(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Param('studyId') studyId: string,
     @Query('dryRun') dryRun: string | undefined,
     @Req() request: Request,
     @Res({ passthrough: true }) response: Response,
   ): Promise<BidsImportPreview> {
-    if (dryRun !== undefined && dryRun !== 'true' && dryRun !== 'false') {
-      throw bidsImportError(
-        BidsImportError.FormInvalid,
-        `dryRun: '${dryRun}' found, 'true' or 'false' expected`,
-        { field: 'dryRun' },
-      );
-    }
-    // The study is found in the caller's scope before a byte of the body is read.
-    await this.bids.assertStudy(caller, studyId);
-    const received = await this.receiver.receive(request);
-    try {
-      const preview = await this.bids.run(caller, studyId, received, dryRun === 'true');
-      if (preview.dryRun) response.status(200);
-      return preview;
-    } finally {
-      await this.receiver.discard(received);
-    }
+    return runMultiFileImport(request, response, dryRun, {
+      receiver: this.receiver,
+      badDryRun: (message) =>
+        bidsImportError(BidsImportError.FormInvalid, message, { field: 'dryRun' }),
+      assertStudy: () => this.studies.findInScope(caller, 'read', studyId),
+      run: (received, dry) => this.bids.run(caller, studyId, received, dry),
+    });
   }
 }

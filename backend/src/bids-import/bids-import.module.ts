@@ -4,6 +4,7 @@ import { RecordingsModule } from '../recordings/recordings.module';
 import { ScheduleModule } from '../schedule/schedule.module';
 import { SitesModule } from '../sites/sites.module';
 import { StudiesModule } from '../studies/studies.module';
+import { VisitsModule } from '../visits/visits.module';
 import { BidsImportController } from './bids-import.controller';
 import { BidsImportReceiver } from './bids-import-receiver';
 import { BidsImportService } from './bids-import.service';
@@ -14,7 +15,14 @@ import { BidsImportService } from './bids-import.service';
  * module (its bulk entry points); this module maps, checks and decides.
  */
 @Module({
-  imports: [AnalysisModule, RecordingsModule, ScheduleModule, SitesModule, StudiesModule],
+  imports: [
+    AnalysisModule,
+    RecordingsModule,
+    ScheduleModule,
+    SitesModule,
+    StudiesModule,
+    VisitsModule,
+  ],
   controllers: [BidsImportController],
   providers: [BidsImportService, BidsImportReceiver],
 })

@@ -17,6 +17,7 @@ import {
   VisitAnalysisOverridesService,
 } from '../analysis/visit-analysis-overrides.service';
 import { AuditService } from '../audit/audit.service';
+import { AuditedWrites } from '../audit/audited-writes';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { isUniqueViolation } from '../common/errors/unique-violation';
@@ -26,11 +27,10 @@ import { toParticipantView } from '../participants/participant-view';
 import type { AcceptedFileCheck } from '../recordings/recordings.service';
 import { RecordingsService } from '../recordings/recordings.service';
 import { PlannedVisitsService } from '../schedule/planned-visits.service';
-import { normaliseChannelLabel } from '../signal/channels/channel-labels';
+import { normaliseChannelLabel } from '@gyre/shared/channel-labels';
 import { SitesService } from '../sites/sites.service';
-import { StudiesService } from '../studies/studies.service';
 import { Visit } from '../visits/visit.entity';
-import { toVisitView } from '../visits/visit-view';
+import { VisitsService } from '../visits/visits.service';
 import { BidsImportFile } from './bids-import-file.entity';
 import { planImport, type PlannedFile } from './bids-import-plan';
 import type { ReceivedBidsUpload } from './bids-import-receiver';
@@ -58,21 +58,17 @@ interface RoiChange {
 export class BidsImportService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
-    private readonly studies: StudiesService,
     private readonly sites: SitesService,
     private readonly plannedVisits: PlannedVisitsService,
     private readonly recordings: RecordingsService,
+    private readonly visits: VisitsService,
     private readonly analysisSettings: AnalysisSettingsService,
     private readonly overrides: VisitAnalysisOverridesService,
     private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
+    private readonly audited: AuditedWrites,
     private readonly events: EventEmitter2,
   ) {}
-
-  /** The study in the caller's scope (404 otherwise), before any byte of the body is read. */
-  async assertStudy(caller: Caller, studyId: string): Promise<void> {
-    await this.studies.findInScope(caller, 'read', studyId);
-  }
 
   async run(
     caller: Caller,
@@ -380,23 +376,19 @@ export class BidsImportService {
       createdAt: at,
       updatedAt: at,
     };
-    await tx.getRepository(Participant).insert(participant);
     // The same entry as ParticipantsService writes for a new participant.
-    await this.audit.record({
-      actor: caller.user,
-      action: 'create',
+    await this.audited.insertIn(tx, caller, {
+      entity: Participant,
       objectType: 'Participant',
-      objectId: participant.id,
-      studyId,
-      siteId,
-      after: toParticipantView(participant),
+      row: participant,
+      scope: () => ({ studyId, siteId }),
+      view: toParticipantView,
       reason: 'EEG-BIDS import',
-      clientIp: caller.clientIp,
     });
     return participant;
   }
 
-  private async createVisit(
+  private createVisit(
     tx: EntityManager,
     caller: Caller,
     participant: Participant,
@@ -406,32 +398,12 @@ export class BidsImportService {
     if (planned === null || file.preview.visitDate === null) {
       throw new Error(`${file.preview.path}: mapped without a planned visit or date`);
     }
-    const at = nowIso();
-    const visit: Visit = {
-      id: randomUUID(),
-      participantId: participant.id,
-      studyId: participant.studyId,
-      siteId: participant.siteId,
-      label: planned.name,
-      plannedVisitId: planned.id,
+    return this.visits.insertPlanned(tx, caller, {
+      participant,
+      planned,
       visitDate: file.preview.visitDate,
-      createdAt: at,
-      updatedAt: at,
-    };
-    await tx.getRepository(Visit).insert(visit);
-    // The same entry as VisitsService writes for a new visit.
-    await this.audit.record({
-      actor: caller.user,
-      action: 'create',
-      objectType: 'Visit',
-      objectId: visit.id,
-      studyId: visit.studyId,
-      siteId: visit.siteId,
-      after: toVisitView(visit, { enrolmentDate: participant.enrolmentDate, planned }),
       reason: 'EEG-BIDS import',
-      clientIp: caller.clientIp,
     });
-    return visit;
   }
 
   /** A new revision of the visit's analysis choices without the bad channels (audited). */

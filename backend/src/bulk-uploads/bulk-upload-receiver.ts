@@ -3,13 +3,14 @@ import { createWriteStream } from 'node:fs';
 import { mkdir, unlink } from 'node:fs/promises';
 import { basename, join } from 'node:path';
 import { PassThrough, Readable, Transform } from 'node:stream';
-import { finished, pipeline } from 'node:stream/promises';
+import { pipeline } from 'node:stream/promises';
 import { Inject, Injectable } from '@nestjs/common';
 import busboy from 'busboy';
 import type { Request } from 'express';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
-import type { ReceivedFile } from '../recordings/upload/multipart-upload';
+import { removeTempFiles, type MultiFileReceiver } from '../common/http/multi-file-import';
+import { parseBody, type ReceivedFile } from '../recordings/upload/multipart-upload';
 import { IdentifyingFieldsBlanker } from '../recordings/upload/identifying-fields-blanker';
 import { BulkUploadsError, bulkUploadsError } from './bulk-uploads.errors';
 
@@ -50,7 +51,7 @@ class FormInvalid extends Error {}
  * together (413 naming the limit). On any failure every temporary file is removed.
  */
 @Injectable()
-export class BulkUploadReceiver {
+export class BulkUploadReceiver implements MultiFileReceiver<ReceivedBulkUpload> {
   constructor(@Inject(APP_CONFIG) private readonly config: AppConfig) {}
 
   async receive(request: Request): Promise<ReceivedBulkUpload> {
@@ -74,10 +75,8 @@ export class BulkUploadReceiver {
   }
 
   /** Removes every temporary file of a received upload. */
-  async discard(received: ReceivedBulkUpload): Promise<void> {
-    for (const file of received.recordings.values()) {
-      await unlink(file.tempPath).catch(() => undefined);
-    }
+  discard(received: ReceivedBulkUpload): Promise<void> {
+    return removeTempFiles(received.recordings.values());
   }
 
   private async parse(request: Request): Promise<ReceivedBulkUpload> {
@@ -224,17 +223,7 @@ export class BulkUploadReceiver {
       fail(new FormInvalid('fields: a form field found, only file parts expected')),
     );
 
-    request.once('close', () => {
-      if (!request.complete) parser.destroy(new Error('the request ended before its body did'));
-    });
-    request.pipe(parser);
-    let parserError: Error | null = null;
-    try {
-      await finished(parser);
-    } catch (error) {
-      request.unpipe(parser);
-      parserError = error instanceof Error ? error : new Error(String(error));
-    }
+    const parserError = await parseBody(request, parser);
     await Promise.all(writes);
     const problem =
       failure ??

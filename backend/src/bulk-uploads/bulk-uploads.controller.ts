@@ -1,14 +1,13 @@
 import {
   Controller,
   HttpCode,
+  HttpStatus,
   Inject,
   Param,
-  ParseUUIDPipe,
   Post,
   Query,
   Req,
   Res,
-  HttpStatus,
 } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiConsumes, ApiQuery, ApiTags } from '@nestjs/swagger';
 import { ApiResult } from '../openapi/api-responses';
@@ -16,6 +15,8 @@ import type { Request, Response } from 'express';
 import type { BulkUploadReport } from '@gyre/shared';
 import { CurrentCaller, RequirePermission } from '../auth/decorators';
 import type { Caller } from '../auth/decorators';
+import { runMultiFileImport } from '../common/http/multi-file-import';
+import { StudiesService } from '../studies/studies.service';
 import { BulkUploadReceiver } from './bulk-upload-receiver';
 import { BulkUploadsError, bulkUploadsError } from './bulk-uploads.errors';
 import { BulkUploadsService } from './bulk-uploads.service';
@@ -29,6 +30,7 @@ export class BulkUploadsController {
   constructor(
     private readonly bulk: BulkUploadsService,
     private readonly receiver: BulkUploadReceiver,
+    private readonly studies: StudiesService,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
   ) {}
 
@@ -67,32 +69,23 @@ export class BulkUploadsController {
     status: HttpStatus.CREATED,
   })
   @ApiResult('BulkUploadReport', { description: 'Dry run: the per-row report, nothing imported' })
-  async upload(
+  upload(
     @CurrentCaller() caller: Caller,
-    @Param('studyId', ParseUUIDPipe) studyId: string,
+    @Param('studyId') studyId: string,
     @Query('dryRun') dryRun: string | undefined,
     @Req() request: Request,
     @Res({ passthrough: true }) response: Response,
   ): Promise<BulkUploadReport> {
-    if (dryRun !== undefined && dryRun !== 'true' && dryRun !== 'false') {
-      throw bulkUploadsError(
-        BulkUploadsError.FormInvalid,
-        `dryRun: '${dryRun}' found, 'true' or 'false' expected`,
-        { field: 'dryRun' },
-      );
-    }
-    // The study is found in the caller's scope before a byte of the body is read.
-    await this.bulk.assertStudy(caller, studyId);
-    const received = await this.receiver.receive(request);
-    try {
-      const report = await this.bulk.run(caller, studyId, received, {
-        dryRun: dryRun === 'true',
-        maxRows: this.config.bulkUploadMaxRows,
-      });
-      if (report.dryRun) response.status(200);
-      return report;
-    } finally {
-      await this.receiver.discard(received);
-    }
+    return runMultiFileImport(request, response, dryRun, {
+      receiver: this.receiver,
+      badDryRun: (message) =>
+        bulkUploadsError(BulkUploadsError.FormInvalid, message, { field: 'dryRun' }),
+      assertStudy: () => this.studies.findInScope(caller, 'read', studyId),
+      run: (received, dry) =>
+        this.bulk.run(caller, studyId, received, {
+          dryRun: dry,
+          maxRows: this.config.bulkUploadMaxRows,
+        }),
+    });
   }
 }

@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { RecordingsModule } from '../recordings/recordings.module';
 import { ScheduleModule } from '../schedule/schedule.module';
 import { StudiesModule } from '../studies/studies.module';
+import { VisitsModule } from '../visits/visits.module';
 import { BulkUploadReceiver } from './bulk-upload-receiver';
 import { BulkUploadsController } from './bulk-uploads.controller';
 import { BulkUploadsService } from './bulk-uploads.service';
@@ -11,7 +12,7 @@ import { BulkUploadsService } from './bulk-uploads.service';
  * are still written by the recordings module (its bulk entry points); this module decides.
  */
 @Module({
-  imports: [RecordingsModule, ScheduleModule, StudiesModule],
+  imports: [RecordingsModule, ScheduleModule, StudiesModule, VisitsModule],
   controllers: [BulkUploadsController],
   providers: [BulkUploadsService, BulkUploadReceiver],
 })

@@ -1,4 +1,3 @@
-import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, In } from 'typeorm';
@@ -17,15 +16,13 @@ import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { isUniqueViolation } from '../common/errors/unique-violation';
-import { nowIso } from '../common/time';
 import { Participant } from '../participants/participant.entity';
 import type { AcceptedFileCheck } from '../recordings/recordings.service';
 import { RecordingsService } from '../recordings/recordings.service';
 import type { PlannedVisit } from '../schedule/planned-visit.entity';
 import { PlannedVisitsService } from '../schedule/planned-visits.service';
-import { StudiesService } from '../studies/studies.service';
 import { Visit } from '../visits/visit.entity';
-import { toVisitView } from '../visits/visit-view';
+import { VisitsService } from '../visits/visits.service';
 import type { ReceivedBulkUpload } from './bulk-upload-receiver';
 import { BulkUploadsError, bulkUploadsError } from './bulk-uploads.errors';
 import { parseManifest, type ManifestRow } from './manifest';
@@ -51,17 +48,12 @@ interface PlannedRow {
 export class BulkUploadsService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
-    private readonly studies: StudiesService,
     private readonly plannedVisits: PlannedVisitsService,
     private readonly recordings: RecordingsService,
+    private readonly visits: VisitsService,
     private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
   ) {}
-
-  /** The study in the caller's scope (404 otherwise), before any byte of the body is read. */
-  async assertStudy(caller: Caller, studyId: string): Promise<void> {
-    await this.studies.findInScope(caller, 'read', studyId);
-  }
 
   async run(
     caller: Caller,
@@ -332,33 +324,11 @@ export class BulkUploadsService {
             const key = `${row.participant.id}|${row.planned.id}`;
             visit = created.get(key) ?? null;
             if (visit === null) {
-              const at = nowIso();
-              visit = {
-                id: randomUUID(),
-                participantId: row.participant.id,
-                studyId: row.participant.studyId,
-                siteId: row.participant.siteId,
-                label: row.planned.name,
-                plannedVisitId: row.planned.id,
+              visit = await this.visits.insertPlanned(tx, caller, {
+                participant: row.participant,
+                planned: row.planned,
                 visitDate: row.visitDate,
-                createdAt: at,
-                updatedAt: at,
-              };
-              await tx.getRepository(Visit).insert(visit);
-              // The same entry as VisitsService writes for a new visit.
-              await this.audit.record({
-                actor: caller.user,
-                action: 'create',
-                objectType: 'Visit',
-                objectId: visit.id,
-                studyId: visit.studyId,
-                siteId: visit.siteId,
-                after: toVisitView(visit, {
-                  enrolmentDate: row.participant.enrolmentDate,
-                  planned: row.planned,
-                }),
                 reason: 'bulk upload',
-                clientIp: caller.clientIp,
               });
               created.set(key, visit);
             }

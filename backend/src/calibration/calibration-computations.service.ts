@@ -18,6 +18,7 @@ import { WorkerPoolService } from '../jobs/worker-pool.service';
 import type { AnalyzeOutcome } from '../jobs/worker/worker-tasks';
 import { JOB_QUEUE } from '../queue/job-queue';
 import type { JobQueue, QueuedJob } from '../queue/job-queue';
+import { LanePump } from '../queue/lane-pump';
 import type { AnalysisSettings } from '../signal/pipeline/analysis-settings';
 import { calibrationFilePaths } from './calibration-files';
 import { compareCalibration } from './calibration-comparison';
@@ -42,9 +43,12 @@ type RunEnd = { checks: CalibrationCheckView[] } | { error: string };
 @Injectable()
 export class CalibrationComputationsService implements OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger('Calibration');
-  private pumping: Promise<void> | null = null;
-  private pumpAgain = false;
   private stopping = false;
+  private readonly lanePump = new LanePump({
+    drain: () => this.drain(),
+    stopping: () => this.stopping,
+    onError: (error) => this.logger.error(`Calibration pump failed: ${String(error)}`),
+  });
 
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
@@ -64,30 +68,21 @@ export class CalibrationComputationsService implements OnApplicationBootstrap, O
 
   async onModuleDestroy(): Promise<void> {
     this.stopping = true;
-    await this.pumping;
+    await this.lanePump.settled();
   }
 
   @OnEvent(CALIBRATION_QUEUED)
   pump(): void {
-    if (this.stopping) return;
-    if (this.pumping !== null) {
-      this.pumpAgain = true;
-      return;
+    this.lanePump.run();
+  }
+
+  /** One run at a time until the lane is empty. */
+  private async drain(): Promise<void> {
+    let job = await this.queue.claim<CalibrationPayload>(CALIBRATION_LANE);
+    while (job !== null && !this.stopping) {
+      await this.execute(job);
+      job = this.stopping ? null : await this.queue.claim<CalibrationPayload>(CALIBRATION_LANE);
     }
-    this.pumping = (async () => {
-      do {
-        this.pumpAgain = false;
-        let job = await this.queue.claim<CalibrationPayload>(CALIBRATION_LANE);
-        while (job !== null && !this.stopping) {
-          await this.execute(job);
-          job = this.stopping ? null : await this.queue.claim<CalibrationPayload>(CALIBRATION_LANE);
-        }
-      } while (this.pumpAgain && !this.stopping);
-    })()
-      .catch((error: unknown) => this.logger.error(`Calibration pump failed: ${String(error)}`))
-      .finally(() => {
-        this.pumping = null;
-      });
   }
 
   private async execute(job: QueuedJob<CalibrationPayload>): Promise<void> {

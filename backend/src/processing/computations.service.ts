@@ -9,6 +9,7 @@ import { OnEvent } from '@nestjs/event-emitter';
 import { WorkerPoolService } from '../jobs/worker-pool.service';
 import { JOB_QUEUE } from '../queue/job-queue';
 import type { JobQueue, QueuedJob } from '../queue/job-queue';
+import { LanePump } from '../queue/lane-pump';
 import { RecordingsService } from '../recordings/recordings.service';
 import {
   ANALYSIS_LANE,
@@ -52,8 +53,11 @@ export class ComputationsService implements OnApplicationBootstrap, OnModuleDest
   private readonly logger = new Logger('Computations');
   private running = 0;
   private stopping = false;
-  private pumping: Promise<void> | null = null;
-  private pumpAgain = false;
+  private readonly lanePump = new LanePump({
+    drain: () => this.drain(),
+    stopping: () => this.stopping,
+    onError: (error) => this.logger.error(`Queue pump failed: ${String(error)}`),
+  });
   private wakeTimer: NodeJS.Timeout | null = null;
   private wakeAt = 0;
   private readonly inFlight = new Set<Promise<void>>();
@@ -98,36 +102,26 @@ export class ComputationsService implements OnApplicationBootstrap, OnModuleDest
 
   /** Starts queued jobs while there is room (free threads, or the dispatch limit). Safe any time. */
   pump(): void {
-    if (this.stopping) return;
-    if (this.pumping !== null) {
-      this.pumpAgain = true;
-      return;
+    this.lanePump.run();
+  }
+
+  private async drain(): Promise<void> {
+    while (!this.stopping && (await this.hasRoom())) {
+      const job = await this.queue.claim<ComputationPayload>(ANALYSIS_LANE);
+      if (job === null) {
+        // Jobs released to wait for their visit's rest come due later: look again then.
+        const dueInMs = await this.queue.nextDueInMs(ANALYSIS_LANE);
+        if (dueInMs !== null) this.wakeIn(Math.max(dueInMs, 50));
+        return;
+      }
+      if (await this.recordings.waitsForRest(job.payload.recordingId)) {
+        await this.queue.release(job.id, REST_WAIT_MS);
+        this.wakeIn(REST_WAIT_MS);
+        continue;
+      }
+      if (this.remote.enabled) this.track(this.dispatch(job), job.id);
+      else this.track(this.execute(job));
     }
-    this.pumping = (async () => {
-      do {
-        this.pumpAgain = false;
-        while (!this.stopping && (await this.hasRoom())) {
-          const job = await this.queue.claim<ComputationPayload>(ANALYSIS_LANE);
-          if (job === null) {
-            // Jobs released to wait for their visit's rest come due later: look again then.
-            const dueInMs = await this.queue.nextDueInMs(ANALYSIS_LANE);
-            if (dueInMs !== null) this.wakeIn(Math.max(dueInMs, 50));
-            break;
-          }
-          if (await this.recordings.waitsForRest(job.payload.recordingId)) {
-            await this.queue.release(job.id, REST_WAIT_MS);
-            this.wakeIn(REST_WAIT_MS);
-            continue;
-          }
-          if (this.remote.enabled) this.track(this.dispatch(job), job.id);
-          else this.track(this.execute(job));
-        }
-      } while (this.pumpAgain && !this.stopping);
-    })()
-      .catch((error: unknown) => this.logger.error(`Queue pump failed: ${String(error)}`))
-      .finally(() => {
-        this.pumping = null;
-      });
   }
 
   /** Resolves once the analysis lane has nothing queued or running (tests, orderly shutdowns). */

@@ -1,5 +1,5 @@
 import type { RoiUsageView } from '@gyre/shared';
-import { canonicalElectrodeName } from '../signal/channels/channel-labels';
+import { canonicalElectrodeName } from '@gyre/shared/channel-labels';
 
 /**
  * The signal core only knows the region of interest it was given. Channels the study's region

@@ -5,10 +5,9 @@ import { EntityManager, FindOptionsWhere, Repository } from 'typeorm';
 import { subject, type Page, type SiteView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
-import { AuditService } from '../audit/audit.service';
-import { WriteTransactionsService } from '../common/database/write-transactions.service';
+import { AuditedWrites, type AuditScope } from '../audit/audited-writes';
 import { GyreException } from '../common/errors/gyre.exception';
-import { assertUnique, isUniqueViolation } from '../common/errors/unique-violation';
+import { assertUnique } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { containsText } from '../common/pagination/text-filter';
@@ -24,8 +23,7 @@ export class SitesService {
   constructor(
     @InjectRepository(Site) private readonly sites: Repository<Site>,
     private readonly studies: StudiesService,
-    private readonly writes: WriteTransactionsService,
-    private readonly audit: AuditService,
+    private readonly audited: AuditedWrites,
   ) {}
 
   async list(caller: Caller, query: SiteQueryDto): Promise<Page<SiteView>> {
@@ -83,63 +81,50 @@ export class SitesService {
   /** Only an empty site can go: participants and accounts keep theirs for the trail. */
   async remove(caller: Caller, id: string, reason: string | undefined): Promise<void> {
     const site = await this.findInScope(caller, 'delete', id);
-    await this.writes.run(async (manager) => {
-      const [{ participants, users }] = (await manager.query(
-        `SELECT (SELECT COUNT(*) FROM "participant" WHERE "siteId" = ?) AS participants,
-                (SELECT COUNT(*) FROM "user" WHERE "siteId" = ?) AS users`,
-        [id, id],
-      )) as { participants: number; users: number }[];
-      if (participants > 0 || users > 0) {
-        throw sitesError(
-          SitesError.InUse,
-          `Site ${site.code} still has ${participants} participant(s) and ${users} user(s)`,
-          { participants, users },
-        );
-      }
-      await manager.delete(Site, { id });
-      await this.audit.record({
-        actor: caller.user,
-        action: 'delete',
-        objectType: 'Site',
-        objectId: id,
-        studyId: site.studyId,
-        siteId: site.id,
-        before: toSiteView(site),
-        reason: reason ?? null,
-        clientIp: caller.clientIp,
-      });
+    await this.audited.remove(caller, {
+      entity: Site,
+      objectType: 'Site',
+      row: site,
+      reason,
+      scope: siteScope,
+      view: toSiteView,
+      check: async (manager) => {
+        const [{ participants, users }] = (await manager.query(
+          `SELECT (SELECT COUNT(*) FROM "participant" WHERE "siteId" = ?) AS participants,
+                  (SELECT COUNT(*) FROM "user" WHERE "siteId" = ?) AS users`,
+          [id, id],
+        )) as { participants: number; users: number }[];
+        if (participants > 0 || users > 0) {
+          throw sitesError(
+            SitesError.InUse,
+            `Site ${site.code} still has ${participants} participant(s) and ${users} user(s)`,
+            { participants, users },
+          );
+        }
+      },
     });
   }
 
-  private async save(caller: Caller, before: Site | null, site: Site): Promise<SiteView> {
-    try {
-      return await this.writes.run(async (manager) => {
-        await assertUnique(manager, Site, { studyId: site.studyId, code: site.code }, site.id);
-        await manager.save(Site, site);
-        const view = toSiteView(site);
-        await this.audit.record({
-          actor: caller.user,
-          action: before === null ? 'create' : 'update',
-          objectType: 'Site',
-          objectId: site.id,
-          studyId: site.studyId,
-          siteId: site.id,
-          before: before === null ? undefined : toSiteView(before),
-          after: view,
-          clientIp: caller.clientIp,
-        });
-        return view;
-      });
-    } catch (error) {
-      if (isUniqueViolation(error)) {
-        throw sitesError(
+  private save(caller: Caller, before: Site | null, site: Site): Promise<SiteView> {
+    return this.audited.save(caller, {
+      entity: Site,
+      objectType: 'Site',
+      before,
+      row: site,
+      scope: siteScope,
+      check: (manager, row) =>
+        assertUnique(manager, Site, { studyId: row.studyId, code: row.code }, row.id),
+      view: toSiteView,
+      duplicate: (row) =>
+        sitesError(
           SitesError.CodeTaken,
-          `code: this study already has a site with code ${site.code}`,
-          { field: 'code', value: site.code },
-        );
-      }
-      throw error;
-    }
+          `code: this study already has a site with code ${row.code}`,
+          {
+            field: 'code',
+            value: row.code,
+          },
+        ),
+    });
   }
 
   async findInScope(
@@ -176,4 +161,9 @@ export class SitesService {
 
 function notFound(id: string, field: string): GyreException {
   return sitesError(SitesError.NotFound, `No site ${id}`, { field, id });
+}
+
+/** A site's audit entries belong to its study and to the site itself. */
+function siteScope(site: Site): AuditScope {
+  return { studyId: site.studyId, siteId: site.id };
 }

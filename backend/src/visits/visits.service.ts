@@ -14,7 +14,8 @@ import {
 import { subject, type Action, type Page, type SubjectName, type VisitView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
-import { AuditedWrites } from '../audit/audited-writes';
+import { BlindingService } from '../blinding/blinding.service';
+import { AuditedWrites, type AuditScope } from '../audit/audited-writes';
 import { GyreException } from '../common/errors/gyre.exception';
 import { assertUnique } from '../common/errors/unique-violation';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
@@ -37,6 +38,7 @@ export class VisitsService {
     private readonly participants: ParticipantsService,
     private readonly plannedVisits: PlannedVisitsService,
     private readonly audited: AuditedWrites,
+    private readonly blinding: BlindingService,
   ) {}
 
   async list(caller: Caller, query: VisitQueryDto): Promise<Page<VisitView>> {
@@ -49,6 +51,9 @@ export class VisitsService {
       filter.visitDate = Between(query.from, query.to);
     } else if (query.from !== undefined) filter.visitDate = MoreThanOrEqual(query.from);
     else if (query.to !== undefined) filter.visitDate = LessThanOrEqual(query.to);
+    // Blinded review: an analyst's lists hold only the visits they recorded their decision on.
+    const unblinded = await this.blinding.unblindedVisitIds(caller);
+    if (unblinded !== null) filter.id = In(unblinded);
     const rows = await this.visits.findAndCount({
       where: scopedWhere<Visit>(caller.ability, 'read', 'Visit', filter),
       order: { [query.sort ?? 'visitDate']: window.order, id: 'ASC' },
@@ -60,7 +65,10 @@ export class VisitsService {
   }
 
   async get(caller: Caller, id: string): Promise<VisitView> {
-    return this.viewOf(await this.findInScope(caller, 'read', id));
+    const visit = await this.findInScope(caller, 'read', id);
+    // Blinded review: an analyst reads the visit's date and names only after their decision.
+    await this.blinding.assertVisible(caller, visit);
+    return this.viewOf(visit);
   }
 
   /** For other modules: the visits' views with their schedule status, in the same order. */
@@ -119,17 +127,12 @@ export class VisitsService {
         );
       }
     }
-    const at = nowIso();
-    const visit: Visit = {
-      id: randomUUID(),
-      participantId: participant.id,
-      ...scope,
-      label: labelFor(planned, dto.label),
-      plannedVisitId: planned?.id ?? null,
-      visitDate: calendarDate(dto.visitDate),
-      createdAt: at,
-      updatedAt: at,
-    };
+    const visit = newVisit(
+      participant,
+      planned,
+      labelFor(planned, dto.label),
+      calendarDate(dto.visitDate),
+    );
     return this.save(caller, null, visit, undefined, {
       enrolmentDate: participant.enrolmentDate,
       planned,
@@ -159,6 +162,29 @@ export class VisitsService {
     });
   }
 
+  /**
+   * For the importers (bulk upload, EEG-BIDS import), inside their transaction `tx`: a new
+   * visit of `participant` on `planned` and the same audit entry `create` writes. They have
+   * checked scope, date and uniqueness for the whole import before.
+   */
+  async insertPlanned(
+    tx: EntityManager,
+    caller: Caller,
+    input: { participant: Participant; planned: PlannedVisit; visitDate: string; reason: string },
+  ): Promise<Visit> {
+    const { participant, planned } = input;
+    const visit = newVisit(participant, planned, planned.name, input.visitDate);
+    await this.audited.insertIn(tx, caller, {
+      entity: Visit,
+      objectType: 'Visit',
+      row: visit,
+      scope: visitScope,
+      view: (row) => toVisitView(row, { enrolmentDate: participant.enrolmentDate, planned }),
+      reason: input.reason,
+    });
+    return visit;
+  }
+
   /** The planned visit if it belongs to study `studyId` (400 naming it otherwise). */
   private async plannedVisitOfStudy(studyId: string, id: string): Promise<PlannedVisit> {
     const planned = await this.plannedVisits.findById(id);
@@ -185,7 +211,7 @@ export class VisitsService {
       before,
       row: visit,
       reason,
-      scope: (row) => ({ studyId: row.studyId, siteId: row.siteId }),
+      scope: visitScope,
       check: async (manager, row) => {
         if (row.plannedVisitId !== null) {
           await assertPlannedVisitFree(manager, row, context.planned?.name ?? '');
@@ -326,4 +352,30 @@ function notFound(id: string, field: string): GyreException {
         { field, id },
       )
     : visitsError(VisitsError.NotFound, `No visit ${id}`, { field, id });
+}
+
+/** A new visit row of `participant`, in its study and site. */
+function newVisit(
+  participant: Participant,
+  planned: PlannedVisit | null,
+  label: string,
+  visitDate: string,
+): Visit {
+  const at = nowIso();
+  return {
+    id: randomUUID(),
+    participantId: participant.id,
+    studyId: participant.studyId,
+    siteId: participant.siteId,
+    label,
+    plannedVisitId: planned?.id ?? null,
+    visitDate,
+    createdAt: at,
+    updatedAt: at,
+  };
+}
+
+/** A visit's audit entries belong to its study and site. */
+function visitScope(visit: Visit): AuditScope {
+  return { studyId: visit.studyId, siteId: visit.siteId };
 }

@@ -54,7 +54,7 @@ export async function seedDatabase(dataSource: DataSource): Promise<Seed> {
   const at = new Date().toISOString();
   const stamp = { createdAt: at, updatedAt: at };
   // The trend settings' defaults (columns added by VisitScheduleAndGroups1764700300000).
-  const trend = { trendMinVisits: 3, trendMinSpanDays: 90 };
+  const trend = { trendMinVisits: 3, trendMinSpanDays: 90, blindedReview: false };
   const studies = {
     A: {
       id: randomUUID(),
@@ -136,8 +136,16 @@ export async function seedDatabase(dataSource: DataSource): Promise<Seed> {
   await dataSource.transaction(async (manager) => {
     // Only the columns every schema version has, so that migration tests can seed a
     // database written by an older version; later columns keep their defaults.
+    // updateEntity(false): TypeORM would read defaulted columns back and merge them into
+    // `values` by position, which SQLite does not keep (study A came back as study B).
     const insert = <T extends object>(entity: new () => T, columns: string[], values: T[]) =>
-      manager.createQueryBuilder().insert().into(entity, columns).values(values).execute();
+      manager
+        .createQueryBuilder()
+        .insert()
+        .into(entity, columns)
+        .values(values)
+        .updateEntity(false)
+        .execute();
     const base = ['id', 'createdAt', 'updatedAt'];
     await insert(Study, [...base, 'code', 'name', 'description'], Object.values(studies));
     await manager.insert(Site, Object.values(sites));

@@ -94,6 +94,28 @@ export async function startTestApp(options: StartTestAppOptions = {}): Promise<T
   };
 }
 
+/**
+ * The app of one `describe` block: started before its tests (`beforeAll`) and closed after
+ * them (`afterAll`). The tests read it through the returned object as they would the app
+ * itself (`t.url`, `t.authHeader(…)`); reading it outside a test throws.
+ */
+export function useTestApp(options: StartTestAppOptions = {}): TestApp {
+  let started: TestApp | null = null;
+  beforeAll(async () => {
+    started = await startTestApp(options);
+  });
+  afterAll(async () => {
+    await started?.close();
+    started = null;
+  });
+  return new Proxy({} as TestApp, {
+    get: (_target, key: keyof TestApp) => {
+      if (started === null) throw new Error('The test app runs only inside its tests and hooks');
+      return started[key];
+    },
+  });
+}
+
 function emptySeed(): Seed {
   return new Proxy({} as Seed, {
     get: () => {

@@ -1,32 +1,21 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { DataSource } from 'typeorm';
+import type { DataSource } from 'typeorm';
 import { Participant } from '../../participants/participant.entity';
 import { pageWindowOf } from '../pagination/page-query.dto';
 import { SqlEntityRows, sqlPage } from './sql-rows';
 import { SqliteReadsService } from './sqlite-reads.service';
+import { participantTable, type ParticipantTable } from './testing/participant-table';
 
 // A real SQLite file: the page and its count must come from SQL as TypeORM's findAndCount
 // gives them (the reference here), for every page including one past the end.
 describe('pages of entity rows by prepared statements', () => {
-  let dir: string;
+  let table: ParticipantTable;
   let db: DataSource;
   let reads: SqliteReadsService;
   let rows: SqlEntityRows<Participant>;
 
   beforeAll(async () => {
-    dir = mkdtempSync(join(tmpdir(), 'gyre-sql-rows-'));
-    db = new DataSource({
-      type: 'better-sqlite3',
-      database: join(dir, 'rows.sqlite'),
-      entities: [Participant],
-    });
-    await db.initialize();
-    const columns = db
-      .getMetadata(Participant)
-      .columns.map((c) => `"${c.databaseName}"${c.isPrimary ? ' varchar PRIMARY KEY' : ''}`);
-    await db.query(`CREATE TABLE "participant" (${columns.join(', ')})`);
+    table = await participantTable('sql-rows');
+    db = table.db;
     // 23 rows, some sharing a creation time, so the order needs its tie-break on id.
     for (let i = 0; i < 23; i += 1) {
       await db.getRepository(Participant).insert({
@@ -44,8 +33,7 @@ describe('pages of entity rows by prepared statements', () => {
     rows = new SqlEntityRows<Participant>(db.getMetadata(Participant), db.driver, 'p');
   });
   afterAll(async () => {
-    await db.destroy();
-    rmSync(dir, { recursive: true, force: true });
+    await table.close();
   });
 
   it.each([

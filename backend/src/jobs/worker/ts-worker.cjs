@@ -1,20 +1,7 @@
 'use strict';
-// Entry of the worker threads when the server runs from TypeScript source (jest).
-// Compiles `.ts` on require with @swc/core, then loads the real worker module. Built
+// Entry of the worker threads when the server runs from TypeScript source (jest): `.ts` is
+// compiled on require (register-typescript.cjs), then the real worker module loads. Built
 // code never uses this file: `worker-file.ts` points piscina at dist/.../analysis.worker.js.
-const { readFileSync } = require('node:fs');
-const swc = require('@swc/core');
-
-if (!require.extensions['.ts']) {
-  require.extensions['.ts'] = function compileTypeScript(module, filename) {
-    const { code } = swc.transformSync(readFileSync(filename, 'utf8'), {
-      filename,
-      jsc: { parser: { syntax: 'typescript' }, target: 'es2022' },
-      module: { type: 'commonjs' },
-      sourceMaps: 'inline',
-    });
-    module._compile(code, filename);
-  };
-}
+require('./register-typescript.cjs');
 
 module.exports = require('./analysis.worker.ts');
