@@ -6,7 +6,9 @@ const backend = `http://127.0.0.1:${process.env.GYRE_API_PORT ?? '3000'}`;
 export default defineConfig({
   plugins: [react()],
   // The shared package is CommonJS (it serves Nest too); let the bundler convert it.
-  optimizeDeps: { include: ['@gyre/shared'] },
+  optimizeDeps: {
+    include: ['@gyre/shared', '@gyre/shared/channel-labels', '@gyre/shared/palette'],
+  },
   server: {
     port: 5173,
     proxy: { '/api': backend },

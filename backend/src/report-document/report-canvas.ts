@@ -1,16 +1,16 @@
+import { CHART_COLORS, GYRE_COLORS } from '@gyre/shared/palette';
 import PDFDocument from 'pdfkit';
 import { FontRole, ReportFonts } from './report-fonts';
 
-/** Gyre's colours (the client's theme tokens and chart palette, frontend/src/app/theme.ts). */
+/** The PDF's colours by role, from Gyre's one palette (the client's theme reads it too). */
 export const REPORT_COLORS = {
-  primary: '#24525A',
-  amber: '#C77C02',
-  ink: '#1D2B2F',
-  muted: '#5A6B6F',
-  line: '#DCE5E6',
-  mist: '#F4F7F7',
-  band: '#5B8C85',
-  second: '#3E6FA3',
+  primary: GYRE_COLORS.primary,
+  amber: GYRE_COLORS.amber,
+  ink: GYRE_COLORS.ink,
+  muted: GYRE_COLORS.inkMuted,
+  line: GYRE_COLORS.line,
+  band: CHART_COLORS.sage,
+  second: CHART_COLORS.blue,
 } as const;
 
 /** A4 in PostScript points (1/72 in): 210 × 297 mm. */

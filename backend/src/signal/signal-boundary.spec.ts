@@ -4,12 +4,13 @@ import * as ts from 'typescript';
 
 /**
  * The signal core stands alone (common practice for a computational core inside a server):
- * it imports only itself, Node's built-ins, its own numeric packages and, as types only,
- * the API vocabulary of `@gyre/shared`. Nothing from the rest of the backend, so the seeder,
+ * it imports only itself, Node's built-ins, its own numeric packages, the dependency-free
+ * 10-10 label rules of `@gyre/shared/channel-labels` and, as types only, the API vocabulary of
+ * `@gyre/shared`. Nothing from the rest of the backend, so the seeder,
  * the browser tests and the command line can use it through `@gyre/backend/signal`.
  */
 const SIGNAL_ROOT = __dirname;
-const PACKAGES = new Set(['fft.js']);
+const PACKAGES = new Set(['fft.js', '@gyre/shared/channel-labels']);
 /** Independent decoders and parsers the tests check against (spec files and testing/ only). */
 const TEST_PACKAGES = new Set(['edfdecoder', 'typescript']);
 const isTestFile = (file: string): boolean =>
@@ -102,6 +103,12 @@ describe('signal core boundary', () => {
     ).toMatch(/leaves the signal core/);
     expect(violation(file, { specifier: '../edf', typeOnly: false })).toBeNull();
     expect(violation(file, { specifier: '@gyre/shared', typeOnly: false })).toMatch(/types only/);
+    expect(
+      violation(file, { specifier: '@gyre/shared/channel-labels', typeOnly: false }),
+    ).toBeNull();
+    expect(violation(file, { specifier: '@gyre/shared/palette', typeOnly: false })).toMatch(
+      /not a dependency/,
+    );
     expect(violation(file, { specifier: '@nestjs/common', typeOnly: false })).toMatch(
       /not a dependency/,
     );

@@ -25,7 +25,7 @@ export function RouteShell() {
  */
 export function FirstScreenLoading() {
   return (
-    <div role="status" aria-busy="true" aria-label="Opening Gyre" style={{ minHeight: '100vh' }}>
+    <div role="status" aria-busy="true" aria-label="Opening Gyre" className="gyre-full-height">
       <div
         style={{
           height: 60,

@@ -85,14 +85,14 @@ function SignedInScreens() {
   }
   if (error !== undefined) {
     return (
-      <div style={{ padding: 48 }}>
+      <div className="gyre-screen-padding">
         <ErrorState error={error} onRetry={() => void reloadMe()} title="Gyre could not start" />
       </div>
     );
   }
   if (isLoading || me === undefined || ability === null || session === null) {
     return (
-      <div style={{ padding: 48 }}>
+      <div className="gyre-screen-padding">
         <LoadingState label="Signing you in" />
       </div>
     );

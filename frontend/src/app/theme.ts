@@ -1,41 +1,8 @@
 import type { ThemeConfig } from 'antd';
+import { GYRE_COLORS } from '@gyre/shared/palette';
 
-/** Gyre's look (docs/architecture.md): slate-teal primary, amber for flags and warnings. */
-export const GYRE_COLORS = {
-  primary: '#24525A',
-  amber: '#C77C02',
-  /** Amber for text and tags with amber words (the brand amber reads 3:1 on its own tint). */
-  amberText: '#8A5300',
-  ink: '#1D2B2F',
-  mist: '#F4F7F7',
-  /** The deeper mist: the sign-in backdrop's far end and the round of Gyre's pictures. */
-  mistDeep: '#E3ECEC',
-  /** The warm light of Gyre's mark and pictures, on the primary. */
-  cream: '#F3EBDD',
-  /** The tint behind a raised flag. */
-  amberBg: '#FDF5E6',
-  paper: '#FFFFFF',
-  line: '#DCE5E6',
-  /** Text on a line-grey badge (≥ 4.5:1 on `line`). */
-  inkOnLine: '#33474B',
-  /** Secondary text: solid, so it keeps ≥ 4.5:1 on paper, mist and the info tint (WCAG 1.4.3). */
-  inkSoft: '#4F5F63',
-  /** Descriptions and hints (antd derives them at 45 % of the ink, about 2.7:1 on white). */
-  inkMuted: '#55666A',
-  /** The tint of informational notices, and their border. */
-  infoBg: '#EAF2F3',
-  infoBorder: '#BCD2D5',
-  /** Status colours dark enough for text on their own light tint (tags) and under white (buttons). */
-  success: '#2E7D32',
-  successBg: '#EDF7EE',
-  successBorder: '#B7DDB9',
-  error: '#B3261E',
-  errorBg: '#FDEDEC',
-  errorBorder: '#F2B8B5',
-} as const;
-
-/** One palette for every chart, so a series keeps its colour from screen to screen. */
-export const CHART_PALETTE = ['#24525A', '#C77C02', '#5B8C85', '#8E5572', '#3E6FA3', '#9AA63B'];
+/** Gyre's colours live in `@gyre/shared/palette`, where the PDF reads them too. */
+export { CHART_PALETTE, GYRE_COLORS } from '@gyre/shared/palette';
 
 export const gyreTheme: ThemeConfig = {
   token: {

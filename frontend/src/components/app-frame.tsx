@@ -46,7 +46,7 @@ export function AppFrame({
     label: <Link to={item.path}>{item.label}</Link>,
   }));
   return (
-    <Layout style={{ minHeight: '100vh' }}>
+    <Layout className="gyre-full-height">
       <a href={`#${MAIN_ID}`} className="gyre-skip-link" onClick={skipToMain}>
         Skip to main content
       </a>
@@ -66,7 +66,7 @@ export function AppFrame({
             aria-expanded={drawerOpen}
             icon={<MenuGlyph />}
             onClick={() => setDrawerOpen(true)}
-            style={{ flexShrink: 0 }}
+            className="gyre-no-shrink"
           />
         )}
         <Link to={paths.home} className="gyre-brand" aria-label="Gyre home">

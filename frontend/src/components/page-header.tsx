@@ -11,9 +11,9 @@ export function PageHeader({
   extra?: React.ReactNode;
 }) {
   return (
-    <Flex justify="space-between" align="flex-end" gap={16} wrap style={{ marginBottom: 20 }}>
+    <Flex justify="space-between" align="flex-end" gap={16} wrap className="gyre-below-md">
       <div>
-        <Typography.Title level={2} style={{ margin: 0 }}>
+        <Typography.Title level={2} className="gyre-flush">
           {title}
         </Typography.Title>
         {description !== undefined && (

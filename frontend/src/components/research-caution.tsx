@@ -13,7 +13,7 @@ export function ResearchCaution() {
       type="warning"
       showIcon
       title={RESEARCH_CAUTION}
-      style={{ marginBottom: 16 }}
+      className="gyre-below"
     />
   );
 }

@@ -31,7 +31,7 @@ export function UserMenu({
   const roleLabel = ROLE_LABELS[role] ?? role;
   const second = wide ? place : [roleLabel, place].filter(Boolean).join(' · ');
   return (
-    <Flex align="center" gap={wide ? 12 : 8} style={{ minWidth: 0 }}>
+    <Flex align="center" gap={wide ? 12 : 8} className="gyre-shrinkable">
       <Flex
         vertical
         align="flex-end"
@@ -51,11 +51,11 @@ export function UserMenu({
         )}
       </Flex>
       {wide && (
-        <Tag color={GYRE_COLORS.primary} variant="outlined" style={{ marginInlineEnd: 0 }}>
+        <Tag color={GYRE_COLORS.primary} variant="outlined">
           {roleLabel}
         </Tag>
       )}
-      <Button onClick={onSignOut} loading={signingOut} style={{ flexShrink: 0 }}>
+      <Button onClick={onSignOut} loading={signingOut} className="gyre-no-shrink">
         Sign out
       </Button>
     </Flex>

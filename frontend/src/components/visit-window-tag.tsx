@@ -29,7 +29,6 @@ export function VisitWindowTag({ schedule }: { schedule: VisitScheduleStatus }) 
     <Tag
       color={out ? GYRE_COLORS.amberText : undefined}
       variant={out ? 'filled' : undefined}
-      style={{ marginInlineEnd: 0 }}
       aria-label={`Schedule: ${visitWindowText(schedule)}`}
     >
       {visitWindowText(schedule)}

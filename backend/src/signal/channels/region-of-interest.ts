@@ -1,4 +1,4 @@
-import { normaliseChannelLabel } from './channel-labels';
+import { normaliseChannelLabel } from '@gyre/shared/channel-labels';
 
 /**
  * Default posterior region of interest for alpha (docs/method.md §1; 10-10 names

@@ -108,7 +108,7 @@ export function HeatmapCanvas({
   const legendSpan = colourDomain[1] - colourDomain[0] || 1;
 
   return (
-    <figure aria-label={label} style={{ margin: 0 }}>
+    <figure aria-label={label} className="gyre-flush">
       <div ref={frameRef} style={{ position: 'relative', height: heightPx, width: '100%' }}>
         <canvas
           ref={canvasRef}

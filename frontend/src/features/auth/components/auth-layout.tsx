@@ -44,7 +44,7 @@ export function AuthLayout({ title, children }: { title: string; children: React
           </Typography.Title>
           {children}
         </section>
-        <div style={{ marginTop: 16 }}>
+        <div className="gyre-above">
           <ResearchCaution />
         </div>
       </div>

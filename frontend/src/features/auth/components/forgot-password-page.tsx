@@ -41,7 +41,7 @@ export function ForgotPasswordPage() {
               Send the link
             </Button>
           </Form>
-          <Typography.Paragraph style={{ marginTop: 16, marginBottom: 0 }}>
+          <Typography.Paragraph className="gyre-flush gyre-above">
             <Link to={paths.signIn}>Back to sign-in</Link>
           </Typography.Paragraph>
         </>

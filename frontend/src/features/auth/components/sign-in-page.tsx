@@ -26,9 +26,7 @@ export function SignInPage({
 
   return (
     <AuthLayout title="Sign in">
-      {notice !== undefined && (
-        <Alert type="info" showIcon title={notice} style={{ marginBottom: 16 }} />
-      )}
+      {notice !== undefined && <Alert type="info" showIcon title={notice} className="gyre-below" />}
       <Form<SignInValues> layout="vertical" requiredMark={false} onFinish={submit}>
         <EmailField whose="your" />
         <Form.Item
@@ -43,7 +41,7 @@ export function SignInPage({
           Sign in
         </Button>
       </Form>
-      <Typography.Paragraph style={{ marginTop: 16, marginBottom: 0 }}>
+      <Typography.Paragraph className="gyre-flush gyre-above">
         <Link to={paths.forgotPassword}>Forgot your password?</Link>
       </Typography.Paragraph>
     </AuthLayout>

@@ -33,7 +33,7 @@ export function TokenPasswordPage({ purpose }: { purpose: 'reset' | 'invitation'
           title="This link is incomplete"
           description="Open the link from your e-mail again, or copy the whole address into the browser."
         />
-        <Typography.Paragraph style={{ marginTop: 16, marginBottom: 0 }}>
+        <Typography.Paragraph className="gyre-flush gyre-above">
           <Link to={paths.signIn}>Back to sign-in</Link>
         </Typography.Paragraph>
       </AuthLayout>

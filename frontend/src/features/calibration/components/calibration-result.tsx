@@ -23,7 +23,7 @@ export function CalibrationResult({ run }: { run: CalibrationRunView }) {
         <Alert
           type="error"
           showIcon
-          style={{ marginBottom: 12 }}
+          className="gyre-below-sm"
           title={`The calibration of site ${run.siteCode} failed`}
           description={
             run.error ??
@@ -59,7 +59,7 @@ export function CalibrationResult({ run }: { run: CalibrationRunView }) {
       <Descriptions
         size="small"
         column={{ xs: 1, md: 2 }}
-        style={{ marginTop: 12 }}
+        className="gyre-above-sm"
         items={[
           {
             key: 'by',

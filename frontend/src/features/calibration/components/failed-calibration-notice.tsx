@@ -19,7 +19,7 @@ export function FailedCalibrationNotice() {
       type="error"
       showIcon
       role="alert"
-      style={{ marginBottom: 24 }}
+      className="gyre-below-lg"
       title={
         failed.length === 1
           ? `The newest calibration run of site ${codes} failed`

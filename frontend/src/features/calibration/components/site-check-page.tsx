@@ -53,9 +53,9 @@ function SiteCheckCard({
           )}
         </Flex>
       }
-      style={{ marginBottom: 16 }}
+      className="gyre-below"
     >
-      {error !== null && <Alert type="error" showIcon style={{ marginBottom: 12 }} title={error} />}
+      {error !== null && <Alert type="error" showIcon className="gyre-below-sm" title={error} />}
       {run === undefined ? (
         <Typography.Text type="secondary">
           No calibration run yet.{canRun && ' Run one to check this installation.'}

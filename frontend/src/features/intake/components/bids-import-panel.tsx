@@ -156,7 +156,7 @@ export function BidsImportPanel({ studyId }: { studyId: string }) {
   return (
     <Card title="EEG-BIDS import">
       <Flex vertical gap={12}>
-        <Typography.Paragraph type="secondary" style={{ margin: 0 }}>
+        <Typography.Paragraph type="secondary" className="gyre-flush">
           A BIDS session folder (sub-…/ses-…/eeg/ with *_eeg.edf or *_eeg.bdf, *_events.tsv,
           *_channels.tsv, *_eeg.json) or its zip. Subjects become participant codes, sessions
           planned visits. Check first: nothing is stored until you confirm, and the import takes
@@ -259,7 +259,7 @@ function PreviewView({ preview }: { preview: BidsImportPreview }) {
         }
         description={
           preview.problems.length > 0 ? (
-            <ul style={{ margin: 0, paddingInlineStart: 18 }}>
+            <ul className="gyre-compact-list">
               {preview.problems.map((text) => (
                 <li key={text}>{text}</li>
               ))}

@@ -127,7 +127,7 @@ export function BulkUploadPanel({ studyId }: { studyId: string }) {
   return (
     <Card title="Bulk upload">
       <Flex vertical gap={12}>
-        <Typography.Paragraph type="secondary" style={{ margin: 0 }}>
+        <Typography.Paragraph type="secondary" className="gyre-flush">
           Many recordings at once, described by a CSV manifest with the columns{' '}
           {BULK_MANIFEST_COLUMNS.join(', ')} (see the user guide). Check first: every row is
           reported on its own, and the import takes every row or none.
@@ -206,7 +206,7 @@ function BulkReportSummary({ report }: { report: BulkUploadReport }) {
           showIcon
           title="Files the manifest does not name"
           description={
-            <ul style={{ margin: 0, paddingInlineStart: 18 }}>
+            <ul className="gyre-compact-list">
               {report.strayFiles.map((stray) => (
                 <li key={stray.file}>{stray.message}</li>
               ))}

@@ -71,10 +71,7 @@ export function DueCard({
                     {participant.due.map((item) => (
                       <Space key={item.plannedVisitId} wrap size={8}>
                         <span>{item.plannedVisitName}</span>
-                        <Tag
-                          color={item.status === 'overdue' ? GYRE_COLORS.amber : undefined}
-                          style={{ marginInlineEnd: 0 }}
-                        >
+                        <Tag color={item.status === 'overdue' ? GYRE_COLORS.amber : undefined}>
                           {dueText(item)}
                         </Tag>
                         <Typography.Text type="secondary" className="gyre-caption">
@@ -90,7 +87,7 @@ export function DueCard({
         />
       )}
       {due !== undefined && due.withoutEnrolmentDate > 0 && (
-        <Typography.Paragraph type="secondary" style={{ margin: '12px 0 0' }}>
+        <Typography.Paragraph type="secondary" className="gyre-flush gyre-above-sm">
           {due.withoutEnrolmentDate} participant{due.withoutEnrolmentDate === 1 ? ' has' : 's have'}{' '}
           no enrolment date, so nothing can be due for them. Add it under the participant.
         </Typography.Paragraph>

@@ -114,7 +114,7 @@ export function IntakePage() {
                 <Form.Item
                   label="Participant"
                   htmlFor="intake-participant"
-                  style={{ marginBottom: 8 }}
+                  className="gyre-below-xs"
                 >
                   <Select
                     id="intake-participant"
@@ -147,7 +147,7 @@ export function IntakePage() {
                   {canAddParticipant && (
                     <Button
                       type="link"
-                      style={{ paddingInline: 0 }}
+                      className="gyre-inline-link"
                       onClick={() => setParticipantFormOpen(true)}
                     >
                       Register a new participant
@@ -156,7 +156,7 @@ export function IntakePage() {
                   {canEditParticipant && (
                     <Button
                       type="link"
-                      style={{ paddingInline: 0 }}
+                      className="gyre-inline-link"
                       onClick={() => setDetailsFormOpen(true)}
                     >
                       Change enrolment date or group
@@ -165,7 +165,7 @@ export function IntakePage() {
                 </Space>
               </Col>
               <Col xs={24} md={12}>
-                <Form.Item label="Visit" htmlFor="intake-visit" style={{ marginBottom: 8 }}>
+                <Form.Item label="Visit" htmlFor="intake-visit" className="gyre-below-xs">
                   <Select
                     id="intake-visit"
                     disabled={participant === null}
@@ -205,7 +205,7 @@ export function IntakePage() {
                 {participant !== null && (
                   <Button
                     type="link"
-                    style={{ paddingInline: 0 }}
+                    className="gyre-inline-link"
                     onClick={() => setVisitFormOpen(true)}
                   >
                     Register a new visit

@@ -167,13 +167,13 @@ export function NewVisitForm({
         />
       </Form.Item>
       {status !== null && (
-        <div role="status" aria-label="Window status" style={{ marginBottom: 16 }}>
+        <div role="status" aria-label="Window status" className="gyre-below">
           <Space wrap size={8}>
             <VisitWindowTag schedule={status} />
             <Typography.Text type="secondary">{studyDayText(status)}</Typography.Text>
           </Space>
           {(status.window === 'early' || status.window === 'late') && (
-            <Typography.Paragraph type="secondary" style={{ margin: '8px 0 0' }}>
+            <Typography.Paragraph type="secondary" className="gyre-flush gyre-above-xs">
               The visit can still be registered; it is marked as outside its window.
             </Typography.Paragraph>
           )}

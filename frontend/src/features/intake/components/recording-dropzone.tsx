@@ -89,12 +89,18 @@ export function RecordingDropzone({
 
   const onsetsFile = onsets[0]?.originFileObj ?? null;
 
+  /** A file refused in the browser: listed with its reason, never sent. */
   const refuseBeforeSending = (
-    item: Omit<UploadItem, 'file' | 'onsets' | 'confirmKind' | 'replaces' | 'percent' | 'status'>,
+    file: { uid: string; name: string; size: number },
+    rejection: NonNullable<UploadItem['rejection']>,
   ) =>
     setItems((all) => [
       {
-        ...item,
+        uid: file.uid,
+        name: file.name,
+        sizeBytes: file.size,
+        kind,
+        rejection,
         file: null,
         onsets: null,
         confirmKind: false,
@@ -153,17 +159,11 @@ export function RecordingDropzone({
 
   const beforeUpload: UploadProps['beforeUpload'] = (file) => {
     if (EDF_NAME.test(file.name)) return true;
-    refuseBeforeSending({
-      uid: file.uid,
-      name: file.name,
-      sizeBytes: file.size,
-      kind,
-      rejection: {
-        message: `${file.name} is not an EDF, EDF+, BDF or BDF+ file, so it was not sent.`,
-        field: 'file name',
-        found: file.name.includes('.') ? `.${file.name.split('.').pop() ?? ''}` : 'no extension',
-        expected: '.edf or .bdf',
-      },
+    refuseBeforeSending(file, {
+      message: `${file.name} is not an EDF, EDF+, BDF or BDF+ file, so it was not sent.`,
+      field: 'file name',
+      found: file.name.includes('.') ? `.${file.name.split('.').pop() ?? ''}` : 'no extension',
+      expected: '.edf or .bdf',
     });
     return Upload.LIST_IGNORE;
   };
@@ -202,7 +202,7 @@ export function RecordingDropzone({
     <Card title={`Upload recordings for ${visitName}`}>
       <Form layout="vertical" component="div">
         <Flex gap={32} wrap align="flex-start">
-          <Form.Item label="Kind of recording" style={{ marginBottom: 12 }}>
+          <Form.Item label="Kind of recording" className="gyre-below-sm">
             <Segmented<RecordingKind>
               value={kind}
               onChange={setKind}
@@ -218,7 +218,7 @@ export function RecordingDropzone({
             <Form.Item
               label="Onset CSV (optional)"
               extra="Without a CSV, the onsets come from the file's EDF+ annotations."
-              style={{ marginBottom: 12 }}
+              className="gyre-below-sm"
             >
               <Upload
                 accept=".csv,text/csv"
@@ -226,17 +226,11 @@ export function RecordingDropzone({
                 fileList={onsets}
                 beforeUpload={(file) => {
                   if (!CSV_NAME.test(file.name)) {
-                    refuseBeforeSending({
-                      uid: file.uid,
-                      name: file.name,
-                      sizeBytes: file.size,
-                      kind,
-                      rejection: {
-                        message: `${file.name} is not a CSV file, so it was not kept as the onset list.`,
-                        field: 'onset file name',
-                        found: file.name,
-                        expected: 'a name ending in .csv',
-                      },
+                    refuseBeforeSending(file, {
+                      message: `${file.name} is not a CSV file, so it was not kept as the onset list.`,
+                      field: 'onset file name',
+                      found: file.name,
+                      expected: 'a name ending in .csv',
                     });
                     return Upload.LIST_IGNORE;
                   }
@@ -270,7 +264,7 @@ export function RecordingDropzone({
         </div>
       </Upload.Dragger>
       {items.length > 0 && (
-        <ul aria-label="Uploads" style={{ listStyle: 'none', padding: 0, margin: '16px 0 0' }}>
+        <ul aria-label="Uploads" className="gyre-bare-list gyre-above">
           {items.map((item) => (
             <UploadItemView
               key={item.uid}

@@ -30,7 +30,7 @@ function FileName({ recording }: { recording: RecordingView }) {
       File name not kept
     </Typography.Text>
   ) : (
-    <Typography.Text strong style={{ color: 'inherit', overflowWrap: 'anywhere' }}>
+    <Typography.Text strong className="gyre-inherit-colour gyre-wrap-anywhere">
       {recording.fileName}
     </Typography.Text>
   );
@@ -43,7 +43,7 @@ function FileFacts({ recording }: { recording: RecordingView }) {
   }
   const rates = [...new Set(facts.sampleRatesHz)];
   return (
-    <Typography.Text className="gyre-figures" style={{ color: 'inherit', fontSize: 12 }}>
+    <Typography.Text className="gyre-figures gyre-inherit-colour gyre-caption">
       {facts.format} · {formatSeconds(facts.durationS)} · {facts.channelLabels.length} channels ·{' '}
       {rates.map((rate) => formatHz(rate)).join(', ')} · {formatBytes(recording.sizeBytes)}
       {facts.csvOnsetCount !== null && ` · ${facts.csvOnsetCount} onsets from CSV`}
@@ -226,7 +226,7 @@ export function RecordingsTable({
 
   const kindAndState = (recording: RecordingView) => (
     <>
-      <Typography.Text strong style={{ color: 'inherit' }}>
+      <Typography.Text strong className="gyre-inherit-colour">
         {KIND_LABELS[recording.kind]}
       </Typography.Text>
       <RecordingStateTag recording={recording} />
@@ -338,7 +338,7 @@ export function RecordingsTable({
       {hidden.length > 0 && (
         <Button
           type="link"
-          style={{ paddingInline: 0, marginTop: 8 }}
+          className="gyre-inline-link gyre-above-xs"
           onClick={() => setShowDismissed((on) => !on)}
         >
           {showDismissed

@@ -23,7 +23,7 @@ export function RejectionText({
   return (
     <>
       <Typography.Text>{advice.problem}</Typography.Text>{' '}
-      <Typography.Text strong style={{ color: 'inherit' }}>
+      <Typography.Text strong className="gyre-inherit-colour">
         {advice.action}
       </Typography.Text>
       <details style={{ marginTop: 4, fontSize: 12 }}>
@@ -32,7 +32,7 @@ export function RejectionText({
             Details from the file check
           </Typography.Text>
         </summary>
-        <Typography.Text type="secondary" style={{ fontSize: 12, wordBreak: 'break-word' }}>
+        <Typography.Text type="secondary" className="gyre-caption gyre-wrap-anywhere">
           {rejection.message}
           {parts.length > 0 && (
             <>

@@ -77,7 +77,7 @@ function KindMismatch({ item, onResend }: { item: UploadItem; onResend: Resend }
           Chosen: {lower(item.kind)} · found {mismatch.found} · expected {mismatch.expected}
         </Typography.Text>
       </div>
-      <Flex vertical gap={8} align="flex-start" style={{ marginTop: 8 }}>
+      <Flex vertical gap={8} align="flex-start" className="gyre-above-xs">
         <Button
           onClick={() =>
             onResend({
@@ -143,7 +143,7 @@ function KindTaken({
         </Typography.Text>
       </div>
       {!replacing ? (
-        <Flex gap={8} wrap style={{ marginTop: 8 }}>
+        <Flex gap={8} wrap className="gyre-above-xs">
           <Button onClick={() => setReplacing(true)}>Replace it</Button>
           <Button type="text" onClick={onDismiss}>
             Keep the earlier recording
@@ -154,7 +154,7 @@ function KindTaken({
           form={form}
           layout="vertical"
           requiredMark={false}
-          style={{ marginTop: 8 }}
+          className="gyre-above-xs"
           aria-label={`Why replace the ${lower(taken.kind)} recording`}
           onFinish={({ reason }) =>
             onResend({
@@ -278,7 +278,7 @@ export function UploadItemView({
       data-upload-status={item.status}
     >
       <Flex justify="space-between" gap={16} wrap>
-        <Typography.Text strong style={{ wordBreak: 'break-all' }}>
+        <Typography.Text strong className="gyre-break-all">
           {item.name}
         </Typography.Text>
         <Typography.Text type="secondary" className="gyre-figures">

@@ -55,7 +55,7 @@ export function ChainStatus() {
         title="The integrity of the trail could not be checked."
         description={error instanceof Error ? error.message : undefined}
         action={again}
-        style={{ marginBottom: 16 }}
+        className="gyre-below"
       />
     );
   }
@@ -68,8 +68,7 @@ export function ChainStatus() {
         title="The trail is intact"
         description={`${entriesWord(data.checked)} checked: each one's hash matches its content and links to the entry before it.${when}`}
         action={again}
-        className="gyre-ledger-chain"
-        style={{ marginBottom: 16 }}
+        className="gyre-ledger-chain gyre-below"
       />
     );
   }
@@ -85,8 +84,7 @@ export function ChainStatus() {
           : 'The chain does not hold. Tell your administrator.'
       }${when}`}
       action={again}
-      className="gyre-ledger-chain"
-      style={{ marginBottom: 16 }}
+      className="gyre-ledger-chain gyre-below"
     />
   );
 }

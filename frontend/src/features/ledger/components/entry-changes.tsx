@@ -26,7 +26,7 @@ export function EntryChanges({ entry }: { entry: AuditEntryView }) {
       {rows.length === 0 ? (
         <Typography.Paragraph type="secondary">This entry changed no field.</Typography.Paragraph>
       ) : (
-        <div style={{ overflowX: 'auto' }}>
+        <div className="gyre-scroll-region">
           <Table<ChangedField>
             size="small"
             rowKey="path"
@@ -57,7 +57,7 @@ export function EntryChanges({ entry }: { entry: AuditEntryView }) {
       <Descriptions
         size="small"
         column={1}
-        style={{ marginTop: 12 }}
+        className="gyre-above-sm"
         items={[
           { key: 'reason', label: 'Reason', children: entry.reason ?? NO_VALUE },
           { key: 'ip', label: 'From address', children: entry.clientIp ?? NO_VALUE },
@@ -66,7 +66,7 @@ export function EntryChanges({ entry }: { entry: AuditEntryView }) {
       <Collapse
         size="small"
         ghost
-        style={{ marginTop: 8 }}
+        className="gyre-above-xs"
         items={[
           {
             key: 'recorded',
@@ -114,7 +114,7 @@ export function EntryChanges({ entry }: { entry: AuditEntryView }) {
                     key: 'hash',
                     label: 'Hash',
                     children: (
-                      <Typography.Text code style={{ ...breakAnywhere, fontSize: 12 }}>
+                      <Typography.Text code className="gyre-break-all gyre-caption">
                         {entry.hash}
                       </Typography.Text>
                     ),
@@ -123,7 +123,7 @@ export function EntryChanges({ entry }: { entry: AuditEntryView }) {
                     key: 'prev',
                     label: 'Links to',
                     children: (
-                      <Typography.Text code style={{ ...breakAnywhere, fontSize: 12 }}>
+                      <Typography.Text code className="gyre-break-all gyre-caption">
                         {entry.prevHash}
                       </Typography.Text>
                     ),

@@ -36,9 +36,7 @@ export function LedgerEntry({
         <Typography.Text type="secondary" className="gyre-figures" style={{ fontSize: 13 }}>
           #{entry.seq} · <time dateTime={entry.at}>{formatLedgerTime(entry.at)}</time>
         </Typography.Text>
-        <Tag color={warn ? GYRE_COLORS.amberText : undefined} style={{ marginInlineEnd: 0 }}>
-          {entry.action}
-        </Tag>
+        <Tag color={warn ? GYRE_COLORS.amberText : undefined}>{entry.action}</Tag>
       </Flex>
       <Typography.Paragraph style={{ margin: '4px 0 0' }} data-testid="ledger-sentence">
         <Typography.Text strong type={sentence.bySystem ? 'secondary' : undefined}>
@@ -60,7 +58,7 @@ export function LedgerEntry({
       <Button
         type="link"
         size="small"
-        style={{ paddingInline: 0 }}
+        className="gyre-inline-link"
         aria-expanded={open}
         aria-controls={detailsId}
         onClick={() => setOpen(!open)}

@@ -79,7 +79,7 @@ export function LedgerFilters({
   }
 
   return (
-    <Form layout="vertical" component="div" style={{ marginBottom: 8 }}>
+    <Form layout="vertical" component="div" className="gyre-below-xs">
       <Flex gap={12} wrap>
         <Form.Item label="Person" htmlFor="ledger-person" style={item}>
           <Select

@@ -105,7 +105,7 @@ export function LedgerPage() {
       <ChainStatus />
       <Card>
         <LedgerFilters filters={filters} onChange={applyFilters} />
-        <Typography.Paragraph type="secondary" style={{ marginBottom: 8 }}>
+        <Typography.Paragraph type="secondary" className="gyre-below-xs">
           {timeZoneNote()}.
         </Typography.Paragraph>
         {hidden > 0 && (
@@ -114,7 +114,7 @@ export function LedgerPage() {
             showIcon
             role="note"
             aria-label="Why entry numbers jump"
-            style={{ marginBottom: 12 }}
+            className="gyre-below-sm"
             title={
               filtered
                 ? 'Entry numbers jump where entries do not match the filters or are outside your access.'
@@ -141,10 +141,7 @@ export function LedgerPage() {
           )
         ) : (
           <Spin spinning={isLoading}>
-            <ol
-              aria-label="Ledger entries, newest first"
-              style={{ listStyle: 'none', margin: 0, padding: 0 }}
-            >
+            <ol aria-label="Ledger entries, newest first" className="gyre-bare-list">
               {items.map((entry, i) => {
                 const gap = hiddenBetween(entry, items[i + 1]);
                 return (
@@ -167,7 +164,7 @@ export function LedgerPage() {
                 );
               })}
             </ol>
-            <Flex justify="space-between" align="center" wrap gap={8} style={{ marginTop: 12 }}>
+            <Flex justify="space-between" align="center" wrap gap={8} className="gyre-above-sm">
               <Typography.Text type="secondary">{entriesWord(data?.total ?? 0)}</Typography.Text>
               <Pagination
                 current={page}

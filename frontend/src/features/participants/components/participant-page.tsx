@@ -63,9 +63,9 @@ function valueWithChange(
     <span>
       {formatHz(value)}
       <br />
-      <span style={{ color: GYRE_COLORS.inkSoft, fontSize: 12 }}>
+      <Typography.Text type="secondary" className="gyre-caption">
         {isFirst ? 'first value' : formatChange(change)}
-      </span>
+      </Typography.Text>
     </span>
   );
 }
@@ -135,10 +135,10 @@ export function ParticipantPage() {
           </Link>
         }
       />
-      <Card style={{ marginBottom: 20 }}>
+      <Card className="gyre-below-md">
         <ParticipantDetails participant={participant.data} groups={groups.data ?? []} />
       </Card>
-      <Card title="Trajectory" style={{ marginBottom: 20 }}>
+      <Card title="Trajectory" className="gyre-below-md">
         {withResults.length === 0 ? (
           <EmptyState description="No visit has computed results yet, so there is no trajectory to draw." />
         ) : (
@@ -146,8 +146,7 @@ export function ParticipantPage() {
             <TrajectoryCharts trajectory={trajectory.data} />
             <Descriptions
               size="small"
-              style={{ marginTop: 16 }}
-              className="gyre-figures"
+              className="gyre-above gyre-figures"
               column={{ xs: 1, md: 3 }}
               items={(['paf', 'cog', 'deltaF'] as const).map((key) => {
                 const data = trajectory.data as TrajectoryView;
@@ -243,7 +242,7 @@ export function ParticipantPage() {
                 row.numbers?.flagged === true ? (
                   <Tag color={GYRE_COLORS.amberText}>flagged</Tag>
                 ) : (
-                  <span style={{ color: GYRE_COLORS.inkSoft }}>none</span>
+                  <Typography.Text type="secondary">none</Typography.Text>
                 ),
             },
             {
@@ -252,7 +251,7 @@ export function ParticipantPage() {
               title: 'In doubt',
               render: (_, row) =>
                 (row.numbers?.doubts.length ?? 0) === 0 ? (
-                  <span style={{ color: GYRE_COLORS.inkSoft }}>nothing</span>
+                  <Typography.Text type="secondary">nothing</Typography.Text>
                 ) : (
                   <ul
                     aria-label={`Doubts about ${row.label}`}

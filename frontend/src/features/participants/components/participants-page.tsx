@@ -99,7 +99,7 @@ export function ParticipantsPage() {
         description="Everyone enrolled in your study, by pseudonymous code. Open one to follow their alpha rhythm across visits."
       />
       <Card>
-        <Flex wrap gap={12} style={{ marginBottom: 16 }}>
+        <Flex wrap gap={12} className="gyre-below">
           <Input.Search
             aria-label="Search participant codes"
             placeholder={

@@ -2,6 +2,7 @@ import type { TrajectoryView, TrendView } from '@gyre/shared';
 import { Col, Row, Typography } from 'antd';
 import { useCallback } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
+import { LegendKey } from '../../../components/charts/legend-key';
 import { PlotFigure } from '../../../components/charts/plot-figure';
 import { formatSlopeHzPerYear } from '../../../lib/format';
 import { alphaFrequencySpec, onsetChangeSpec, SERIES_COLOUR } from './trajectory-spec';
@@ -24,25 +25,6 @@ export function trendText(trend: TrendView, rule: TrajectoryView['trendRule']): 
   return `no trend: the span is too short (${plural(trend.spanDays, 'day', 'days')}, the study needs ${rule.minSpanDays})`;
 }
 
-function Key({ colour, text, dashed = false }: { colour: string; text: string; dashed?: boolean }) {
-  return (
-    // Long keys wrap inside the container instead of pushing past it on a narrow screen.
-    <span style={{ display: 'inline-block', maxWidth: '100%', marginRight: 16 }}>
-      <span
-        aria-hidden="true"
-        style={{
-          display: 'inline-block',
-          width: 18,
-          borderTop: `${dashed ? '2px dashed' : '3px solid'} ${colour}`,
-          verticalAlign: 'middle',
-          marginRight: 6,
-        }}
-      />
-      {text}
-    </span>
-  );
-}
-
 /** Two panels: resting PAF and CoG, and the task's onset Δf, across the visit dates. */
 export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryView }) {
   const alpha = useCallback(
@@ -58,16 +40,24 @@ export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryView })
   return (
     <Row gutter={[24, 24]}>
       <Col xs={24} xl={12}>
-        <Typography.Title level={5} style={{ marginTop: 0 }}>
+        <Typography.Title level={5} className="gyre-flush-top">
           Individual alpha frequency at rest
         </Typography.Title>
-        <div style={{ fontSize: 13, marginBottom: 6 }} className="gyre-figures">
-          <Key colour={SERIES_COLOUR.PAF} text={`PAF (${trendText(trends.paf, trendRule)})`} />
-          <Key colour={SERIES_COLOUR.CoG} text={`CoG (${trendText(trends.cog, trendRule)})`} />
+        <div className="gyre-chart-legend gyre-figures">
+          <LegendKey
+            colour={SERIES_COLOUR.PAF}
+            text={`PAF (${trendText(trends.paf, trendRule)})`}
+          />
+          <LegendKey
+            colour={SERIES_COLOUR.CoG}
+            text={`CoG (${trendText(trends.cog, trendRule)})`}
+          />
           {(trends.paf.slopeHzPerYear !== null || trends.cog.slopeHzPerYear !== null) && (
-            <Key colour="rgba(29,43,47,0.6)" text="Theil–Sen trend" dashed />
+            <LegendKey colour="rgba(29,43,47,0.6)" text="Theil–Sen trend" stroke="dashed" />
           )}
-          {anyFlagged && <Key colour={GYRE_COLORS.amber} text="Flagged visit" dashed />}
+          {anyFlagged && (
+            <LegendKey colour={GYRE_COLORS.amber} text="Flagged visit" stroke="dashed" />
+          )}
         </div>
         <PlotFigure
           label="Alpha frequency trajectory"
@@ -77,12 +67,17 @@ export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryView })
         />
       </Col>
       <Col xs={24} xl={12}>
-        <Typography.Title level={5} style={{ marginTop: 0 }}>
+        <Typography.Title level={5} className="gyre-flush-top">
           Onset slowing in the task
         </Typography.Title>
-        <div style={{ fontSize: 13, marginBottom: 6 }} className="gyre-figures">
-          <Key colour={SERIES_COLOUR.Δf} text={`ROI Δf (${trendText(trends.deltaF, trendRule)})`} />
-          {anyFlagged && <Key colour={GYRE_COLORS.amber} text="Flagged visit" dashed />}
+        <div className="gyre-chart-legend gyre-figures">
+          <LegendKey
+            colour={SERIES_COLOUR.Δf}
+            text={`ROI Δf (${trendText(trends.deltaF, trendRule)})`}
+          />
+          {anyFlagged && (
+            <LegendKey colour={GYRE_COLORS.amber} text="Flagged visit" stroke="dashed" />
+          )}
         </div>
         <PlotFigure
           label="Onset change trajectory"

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { normaliseChannelLabel as canonicalChannelName } from '../../../lib/channel-labels';
+import { normaliseChannelLabel as canonicalChannelName } from '@gyre/shared/channel-labels';
 import { channelOptionsOf } from './channel-names';
 
 describe('10-10 channel names (ACNS Guideline 2, 2016)', () => {

@@ -2,9 +2,9 @@
  * 10-10 electrode names (ACNS Guideline 2, 2016, "Guidelines for standard electrode position
  * nomenclature"): the visit override names channels this way, while files label them
  * `EEG O1-REF`, `o1-A1` or `EEG Oz`. The server reads labels by the same rules
- * (`normaliseChannelLabel` of @gyre/shared, one copy for both).
+ * (`normaliseChannelLabel` of `@gyre/shared/channel-labels`, one copy for both).
  */
-import { normaliseChannelLabel } from '../../../lib/channel-labels';
+import { normaliseChannelLabel } from '@gyre/shared/channel-labels';
 
 export interface ChannelOption {
   /** The 10-10 name sent to the server. */

@@ -99,11 +99,11 @@ export function ReportSignOff({ visitId, watch }: { visitId: string; watch?: unk
   return (
     <Flex vertical gap={12}>
       <div>
-        <Tag color={status.color} style={{ whiteSpace: 'normal' }} data-testid="report-state-card">
+        <Tag color={status.color} className="gyre-wrapping" data-testid="report-state-card">
           {status.words}
         </Tag>
         {data.pendingRevision === null && data.cannotSignReason !== null && (
-          <Typography.Paragraph type="secondary" style={{ margin: '8px 0 0' }}>
+          <Typography.Paragraph type="secondary" className="gyre-flush gyre-above-xs">
             {data.cannotSignReason}
           </Typography.Paragraph>
         )}

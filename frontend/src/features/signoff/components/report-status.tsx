@@ -41,7 +41,7 @@ export function ReportStatusTag({ visitId }: { visitId: string }) {
   if (data === undefined || data === null) return null;
   const status = reportStatusOf(data);
   return (
-    <Tag color={status.color} data-testid="report-state-chip" style={{ whiteSpace: 'normal' }}>
+    <Tag color={status.color} data-testid="report-state-chip" className="gyre-wrapping">
       Report: {status.words}
     </Tag>
   );

@@ -105,7 +105,7 @@ export function SignReportDialog({
       }
       footer={null}
     >
-      <Alert type="warning" showIcon title={RESEARCH_CAUTION} style={{ marginBottom: 12 }} />
+      <Alert type="warning" showIcon title={RESEARCH_CAUTION} className="gyre-below-sm" />
       <div
         style={{
           height: '58vh',
@@ -179,7 +179,7 @@ export function SignReportDialog({
             <Input.Password autoComplete="current-password" style={{ maxWidth: 360 }} />
           </Form.Item>
           {failure !== null && (
-            <Alert type="error" showIcon title={failure} style={{ marginBottom: 12 }} />
+            <Alert type="error" showIcon title={failure} className="gyre-below-sm" />
           )}
           <Flex gap={8} justify="end">
             <Button onClick={onClose}>Cancel</Button>

@@ -39,7 +39,7 @@ function LinkedRevision({ revisionId }: { revisionId: string }) {
       <Alert
         type="error"
         showIcon
-        style={{ marginBottom: 16 }}
+        className="gyre-below"
         title="The report of this link is not available to you"
         description={error instanceof ApiError ? error.message : undefined}
       />
@@ -47,7 +47,7 @@ function LinkedRevision({ revisionId }: { revisionId: string }) {
   }
   if (data === undefined) return null;
   return (
-    <Card role="region" style={{ marginBottom: 16 }} aria-label="The report you were sent">
+    <Card role="region" className="gyre-below" aria-label="The report you were sent">
       <Typography.Text strong>
         {data.participantCode}, {data.visitLabel} ({formatDate(data.visitDate)}), revision{' '}
         {data.revision}

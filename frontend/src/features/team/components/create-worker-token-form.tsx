@@ -41,9 +41,9 @@ export function CreateWorkerTokenForm({ open, onClose }: { open: boolean; onClos
           showIcon
           title="Copy this token now: it will not be shown again."
           description="Gyre keeps only a hash of it. If it is lost, revoke it and create another."
-          style={{ marginBottom: 16 }}
+          className="gyre-below"
         />
-        <Typography.Paragraph style={{ wordBreak: 'break-all' }}>
+        <Typography.Paragraph className="gyre-break-all">
           <Typography.Text
             code
             copyable={{ text: created.secret, tooltips: ['Copy the token', 'Copied'] }}

@@ -159,7 +159,7 @@ export function TeamPage() {
         }
       />
       <Card>
-        <Flex gap={16} wrap style={{ marginBottom: 16 }}>
+        <Flex gap={16} wrap className="gyre-below">
           <SearchInput
             allowClear
             placeholder="Name or e-mail"

@@ -105,7 +105,7 @@ export function WorkerTokensSection() {
       title="Worker tokens"
       role="region"
       aria-label="Worker tokens"
-      style={{ marginTop: 24 }}
+      className="gyre-above-lg"
       extra={<Button onClick={() => setCreating(true)}>Create a worker token</Button>}
     >
       <Typography.Paragraph type="secondary">
@@ -119,7 +119,7 @@ export function WorkerTokensSection() {
           setPage(1);
         }}
         aria-label="Show tokens"
-        style={{ marginBottom: 16 }}
+        className="gyre-below"
         options={[
           { label: 'Live', value: 'live' },
           { label: 'Revoked', value: 'revoked' },

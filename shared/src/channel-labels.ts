@@ -1,7 +1,8 @@
 /**
- * Kept here, beside the client's copy in frontend/src/lib/channel-labels.ts: the signal core loads
- * nothing of `@gyre/shared` at run time (signal-boundary.spec.ts), so the seeder, the command
- * line and the workers stay free of the client's chart packages.
+ * The one copy of Gyre's 10-10 label rules, for the signal core, the server, the seeder and
+ * the client. A subpath of its own (`@gyre/shared/channel-labels`) that imports nothing: the
+ * signal core loads nothing else of `@gyre/shared` at run time (signal-boundary.spec.ts), and
+ * the client's lazily loaded review code takes only these few functions.
  *
  * Channel labels of the 10-10 system (ACNS Guideline 2, 2016: "Guidelines for
  * standard electrode position nomenclature"). Recording systems write the same
