@@ -15,6 +15,7 @@ import argparse
 import json
 import os
 import sys
+import warnings
 
 import numpy as np
 import scipy
@@ -121,6 +122,28 @@ def median_case():
     }
 
 
+def nan_median_case():
+    """Running medians that leave NaN out (the amplitude gate's), NaN written as null."""
+    rng = np.random.default_rng(20261202)
+    n = 600
+    x = np.round(10 + np.cumsum(rng.standard_normal(n)) * 0.05 + rng.standard_normal(n) * 0.4, 2)
+    x = rounded(x)
+    x[rng.random(n) < 0.3] = np.nan  # scattered gaps, some windows of an even count
+    x[200:260] = np.nan  # a gap longer than the short windows: all-NaN windows
+    x[0:3] = np.nan  # a gap at the mirrored edge
+    windows = [1, 5, 27, 49, 71]
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", RuntimeWarning)  # all-NaN windows give NaN, as wanted
+        filtered = [scipy.ndimage.generic_filter(x, np.nanmedian, size=w, mode="reflect") for w in windows]
+    nullable = lambda values: [None if np.isnan(v) else v for v in stable(values)]
+    return {
+        "source": "scipy.ndimage.generic_filter(numpy.nanmedian, mode='reflect') (scipy %s)" % scipy.__version__,
+        "input": nullable(x),
+        "windowsSamples": windows,
+        "filtered": [nullable(f) for f in filtered],
+    }
+
+
 def welch_case(fs, seconds, seed):
     rng = np.random.default_rng(seed)
     n = int(fs * seconds)
@@ -206,6 +229,7 @@ def main():
     write(args.out, "hilbert.json", hilbert_case())
     write(args.out, "unwrap.json", unwrap_case())
     write(args.out, "median-filter.json", median_case())
+    write(args.out, "nan-median-filter.json", nan_median_case())
     write(args.out, "welch-250hz.json", welch_case(250.0, 30, 20240304))
     write(args.out, "welch-256hz.json", welch_case(256.0, 20, 20240306))
     write(args.out, "wilcoxon.json", wilcoxon_cases())

@@ -4,6 +4,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, In } from 'typeorm';
 import type {
   AnalysisRunView,
+  ChannelStatsView,
   Page,
   QualityView,
   RecordingResultsView,
@@ -29,7 +30,13 @@ import { AnalysisSettings } from './analysis-settings.entity';
 import { encodeJson, type EncodedBody } from './encoded-body';
 import { decodeResultSeries, encodeResultSeries } from './result-series-codec';
 import { ResultsBodyCache } from './results-body-cache';
-import { channelCurveOf, curveOf, roundedResults, trialRasterOf } from './results-http-shape';
+import {
+  channelCurveOf,
+  curveOf,
+  roundedResults,
+  taskDepthOf,
+  trialRasterOf,
+} from './results-http-shape';
 import { SettingsStaleness, type StalenessInput } from './settings-staleness';
 import { settingsJson } from './settings-values';
 
@@ -524,6 +531,16 @@ function plain(values: Float64Array | undefined): number[] {
   return values === undefined ? [] : Array.from(values);
 }
 
+/** A stored channel row; rows stored before PAF/CoG and the amplitude gate lack those keys. */
+function channelOf(channel: ChannelStatsView): ChannelStatsView {
+  return {
+    ...channel,
+    pafHz: channel.pafHz ?? null,
+    cogHz: channel.cogHz ?? null,
+    amplitudeGate: channel.amplitudeGate ?? null,
+  };
+}
+
 function summaryOf(run: Pick<AnalysisRun, 'summaryJson'>): RunSummary {
   return JSON.parse(run.summaryJson) as RunSummary;
 }
@@ -550,10 +567,7 @@ export function toResultsView(
       curveChannels: summary.task.curveChannels,
       raster: { trials: summary.task.rasterTrials, points: summary.task.rasterPoints },
       epochs: summary.task.epochs,
-      conditions: [],
-      conditionCurves: [],
-      conditionDifference: null,
-      cycles: null,
+      ...taskDepthOf(summary.task, series),
     };
   }
   const rest: RecordingResultsView['rest'] =
@@ -571,7 +585,7 @@ export function toResultsView(
   return {
     run: toRunView(run, staleSettings),
     source: sourceOf(recording),
-    channels: summary.channels,
+    channels: summary.channels.map(channelOf),
     task,
     rest,
     quality: summary.quality,

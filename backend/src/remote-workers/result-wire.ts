@@ -127,6 +127,9 @@ function sizeProblems(summary: RunSummary, series: ResultSeries): string[] {
       for (const channel of summary.task.curveChannels) {
         expect(`channel:${channel}:${part}`, points, 'named in summary.task.curveChannels');
       }
+      for (const condition of summary.task.conditionCurves) {
+        expect(`condition:${condition}:${part}`, points, 'named in summary.task.conditionCurves');
+      }
     }
     const { rasterTrials, rasterPoints } = summary.task;
     expect('raster', rasterTrials * rasterPoints, 'summary.task.rasterTrials × rasterPoints');

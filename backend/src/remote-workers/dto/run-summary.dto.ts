@@ -14,6 +14,7 @@ import {
   IsNumber,
   IsObject,
   IsString,
+  Max,
   MaxLength,
   Min,
   ValidateBy,
@@ -25,6 +26,10 @@ import type {
   ChannelQualityView,
   AmplitudeGateView,
   ChannelStatsView,
+  ConditionDifferenceView,
+  ConditionPairSource,
+  ConditionStatsView,
+  CycleEstimateView,
   QualityView,
   RoiChannelOmission,
   RoiOmissionReason,
@@ -53,6 +58,11 @@ const OMISSION_REASONS = [
   'sample-rate',
   'excluded',
 ] as const satisfies readonly RoiOmissionReason[];
+const CONDITION_PAIR_SOURCES = [
+  'settings',
+  'request',
+  'first-two',
+] as const satisfies readonly ConditionPairSource[];
 const ROI_STATUSES = [
   'complete',
   'partial',
@@ -137,8 +147,8 @@ class RoiUsageWireDto implements RoiUsageView {
   status: RoiUsageView['status'];
 }
 
-/** The onset statistics a channel and the region of interest both report. */
-class OnsetStatsDto {
+/** Baseline, post, Δf and its interval: every Δf estimate reports them. */
+class DeltaFEstimateDto {
   @NullableNumber()
   baselineHz: number | null;
 
@@ -151,7 +161,10 @@ class OnsetStatsDto {
   @ValidateIf((_o, value) => value !== null)
   @Pair()
   ciHz: [number, number] | null;
+}
 
+/** The onset statistics a channel and the region of interest both report. */
+class OnsetStatsDto extends DeltaFEstimateDto {
   @NullableNumber()
   pValue: number | null;
 }
@@ -209,6 +222,74 @@ class RoiStatsDto extends OnsetStatsDto implements NonNullable<RunSummary['roi']
   trialsTotal: number;
 }
 
+class ConditionStatsDto extends OnsetStatsDto implements ConditionStatsView {
+  @IsString()
+  @MaxLength(MAX_LABEL)
+  label: string;
+
+  @IsInt()
+  @Min(0)
+  trialsKept: number;
+
+  @IsInt()
+  @Min(0)
+  trialsTotal: number;
+}
+
+class ConditionDifferenceDto implements ConditionDifferenceView {
+  @IsString()
+  @MaxLength(MAX_LABEL)
+  first: string;
+
+  @IsString()
+  @MaxLength(MAX_LABEL)
+  second: string;
+
+  @IsIn(CONDITION_PAIR_SOURCES)
+  chosenBy: ConditionPairSource;
+
+  @NullableNumber()
+  differenceHz: number | null;
+
+  @ValidateIf((_o, value) => value !== null)
+  @Pair()
+  ciHz: [number, number] | null;
+
+  @NullableNumber()
+  pValue: number | null;
+
+  @IsInt()
+  @Min(1)
+  permutations: number;
+
+  @IsInt()
+  seed: number;
+}
+
+class CycleEstimateDto extends DeltaFEstimateDto implements CycleEstimateView {
+  @IsInt()
+  @Min(0)
+  trialsUsed: number;
+
+  @IsInt()
+  @Min(0)
+  trialsTotal: number;
+
+  @ValidateIf((_o, value) => value !== null)
+  @IsNumber(finite)
+  @Min(0)
+  @Max(1)
+  burstCycleShare: number | null;
+
+  @ValidateIf((_o, value) => value !== null)
+  @IsNumber(finite)
+  @Min(0)
+  disagreementHz: number | null;
+
+  @IsBoolean()
+  disagrees: boolean;
+}
+
 class EpochCountsDto {
   @IsInt()
   @Min(0)
@@ -245,6 +326,23 @@ class TaskSummaryDto implements NonNullable<RunSummary['task']> {
   @IsInt()
   @Min(0)
   rasterPoints: number;
+
+  @IsArray()
+  @ArrayMaxSize(MAX_TRIALS)
+  @ValidateNested({ each: true })
+  @Type(() => ConditionStatsDto)
+  conditions: ConditionStatsDto[];
+
+  @ValidateIf((_o, value) => value !== null)
+  @Nested(() => ConditionDifferenceDto)
+  conditionDifference: ConditionDifferenceDto | null;
+
+  @Labels()
+  conditionCurves: string[];
+
+  @ValidateIf((_o, value) => value !== null)
+  @Nested(() => CycleEstimateDto)
+  cycles: CycleEstimateDto | null;
 }
 
 class RestSummaryDto implements NonNullable<RunSummary['rest']> {

@@ -7,12 +7,24 @@ import { BOOTSTRAP_RESAMPLES, BOOTSTRAP_SEED } from '../pipeline/analysis-settin
 import type { RunSummary } from '../pipeline/run-summary';
 import { syntheticTaskRecording } from '../synthetic/synthetic-eeg';
 import { main } from './analyze';
+import type { ConditionDifferenceView, CycleEstimateView } from '@gyre/shared';
 
 interface Report {
   kind: string;
   iafHz: number | null;
   settings: { bandHz: number[] | null; method: string; roi: string[]; onsetLabel: string | null };
   computation: { bootstrapSeed: number; morletCentreHz: number | null };
+  conditions?: {
+    label: string;
+    deltaFHz: number | null;
+    ciHz: [number, number] | null;
+    pValue: number | null;
+    trialsKept: number;
+    trialsTotal: number;
+  }[];
+  conditionDifference?: ConditionDifferenceView | null;
+  deltaFHz?: number | null;
+  cycleByCycle?: CycleEstimateView | null;
   summary: RunSummary;
   series?: Record<string, (number | null)[]>;
 }
@@ -130,6 +142,63 @@ describe('analyze CLI', () => {
     expect(fromCsv.summary.roi?.trialsKept).toBe(5);
   });
 
+  it('reports every condition and the difference of the first two without a flag', async () => {
+    const r = await report([edfPath]);
+    // Both labels dip by the generated −0.6 Hz: each condition's Δf is near it and their
+    // difference near 0 (by construction).
+    expect(r.conditions?.map((c) => [c.label, c.trialsKept, c.trialsTotal])).toEqual([
+      ['go', 10, 10],
+      ['nogo', 10, 10],
+    ]);
+    for (const c of r.conditions ?? []) {
+      expect(Math.abs((c.deltaFHz as number) + 0.6)).toBeLessThan(0.05);
+      expect(c.ciHz).toHaveLength(2);
+      expect(c.pValue).toBeLessThan(0.01);
+    }
+    const difference = r.conditionDifference;
+    expect(difference).toMatchObject({ first: 'go', second: 'nogo', chosenBy: 'first-two' });
+    expect(Math.abs(difference?.differenceHz as number)).toBeLessThan(0.05);
+    // C(20, 10) = 184756 splits: 5000 random ones.
+    expect(difference?.permutations).toBe(5000);
+    expect(difference?.pValue).toBeGreaterThan(0.05);
+    expect(r.summary.task?.conditions.map((c) => c.deltaFHz)).toEqual(
+      r.conditions?.map((c) => c.deltaFHz),
+    );
+  });
+
+  it('compares the conditions --compare names, else those of the settings file', async () => {
+    const requested = await report([edfPath, '--compare', 'NOGO,go']);
+    expect(requested.conditionDifference).toMatchObject({
+      first: 'nogo',
+      second: 'go',
+      chosenBy: 'request',
+    });
+    const settingsPath = join(dir, 'compare.json');
+    writeFileSync(settingsPath, JSON.stringify({ compareConditions: ['nogo', 'go'] }));
+    const fromSettings = await report([edfPath, '--settings', settingsPath]);
+    expect(fromSettings.conditionDifference).toMatchObject({ first: 'nogo', chosenBy: 'settings' });
+    expect(fromSettings.conditionDifference?.differenceHz).toBe(
+      requested.conditionDifference?.differenceHz,
+    );
+    const oneLabel = await report([edfPath, '--onset-label', 'go']);
+    expect(oneLabel.conditions?.map((c) => c.label)).toEqual(['go']);
+    expect(oneLabel.conditionDifference).toBeNull();
+    expect((await report([edfPath, '--kind', 'resting'])).conditions).toBeUndefined();
+  });
+
+  it('exits 2 naming an unknown --compare label and the labels found', async () => {
+    const unknown = await run([edfPath, '--compare', 'go,click']);
+    expect(unknown.code).toBe(2);
+    expect(unknown.stdout).toBe('');
+    expect(unknown.stderr).toBe(
+      'analyze: --compare: no onsets labelled "click"; conditions found: "go", "nogo"\n',
+    );
+    const one = await run([edfPath, '--compare', 'go']);
+    expect(one.code).toBe(2);
+    expect(one.stderr).toMatch(/--compare: expected two different onset labels as A,B, got "go"/);
+    expect((await run([edfPath, '--compare', 'go,GO'])).code).toBe(2);
+  });
+
   it('takes the band from --band, else from --iaf (IAF ± 2 Hz)', async () => {
     const banded = await report([edfPath, '--band', '7.5,12.5', '--iaf', '10']);
     expect(banded.summary.bandHz).toEqual([7.5, 12.5]);
@@ -157,11 +226,49 @@ describe('analyze CLI', () => {
     );
   });
 
+  it('gives the cycle-by-cycle Δf beside the phase-based one without a flag', async () => {
+    const r = await report([edfPath]);
+    expect(r.deltaFHz).toBe(r.summary.roi?.deltaFHz);
+    expect(r.cycleByCycle).toEqual(r.summary.task?.cycles);
+    // Generated sinusoidal alpha, Δf = −0.6 Hz by construction: both estimates find it.
+    expect(Math.abs((r.cycleByCycle?.deltaFHz as number) + 0.6)).toBeLessThan(0.05);
+    expect(r.cycleByCycle?.disagreementHz).toBeCloseTo(
+      Math.abs((r.cycleByCycle?.deltaFHz as number) - (r.deltaFHz as number)),
+      12,
+    );
+    expect(r.cycleByCycle?.trialsTotal).toBe(20);
+  });
+
+  it('takes --amplitude-gate and --cycle-disagreement into the settings', async () => {
+    const r = await report([edfPath, '--amplitude-gate', '25', '--cycle-disagreement', '0.3']);
+    expect(r.settings).toMatchObject({ amplitudeGatePercentile: 25, cycleDisagreementHz: 0.3 });
+    const o1 = r.summary.channels[0].amplitudeGate;
+    expect(o1?.percentile).toBe(25);
+    // A quarter of the values lie under the 25th percentile of their own envelope.
+    expect(Math.abs((o1?.excludedSamples ?? 0) / (o1?.totalSamples ?? 1) - 0.25)).toBeLessThan(
+      1e-3,
+    );
+    const off = await report([edfPath, '--amplitude-gate', 'off']);
+    expect(off.settings).toMatchObject({ amplitudeGatePercentile: null });
+    expect(off.summary.channels[0].amplitudeGate).toBeNull();
+    const badGate = await run([edfPath, '--amplitude-gate', '95']);
+    expect(badGate.code).toBe(2);
+    expect(badGate.stderr).toMatch(/--amplitude-gate: expected a percentile from 1 to 90 or off/);
+    const badHz = await run([edfPath, '--cycle-disagreement', '0']);
+    expect(badHz.code).toBe(2);
+    expect(badHz.stderr).toMatch(/--cycle-disagreement: expected 0 < HZ ≤ 2, got 0/);
+  });
+
   it('reads a resting recording as such with --kind resting', async () => {
     const r = await report([edfPath, '--kind', 'resting']);
     expect(r.kind).toBe('rest');
     expect(r.summary.roi).toBeNull();
     expect(r.summary.rest?.alphaWindowHz).toEqual([7, 13]);
+    // Each channel's own peak: the generated alpha is 10 Hz outside the dips (0.25 Hz bins).
+    for (const channel of r.summary.channels) {
+      expect(Math.abs((channel.pafHz as number) - 10)).toBeLessThanOrEqual(0.25);
+      expect(channel.cogHz).not.toBeNull();
+    }
   });
 
   it('exits 1 with the reader message for a bad file', async () => {

@@ -3,7 +3,8 @@
  *
  *   npm run analyze -- FILE.edf [--onsets FILE.csv] [--onset-label TEXT]
  *     [--kind task|resting|auto] [--iaf HZ] [--band LO,HI] [--method filter|morlet]
- *     [--roi NAME,NAME,…] [--settings FILE.json] [--full]
+ *     [--roi NAME,NAME,…] [--compare A,B] [--amplitude-gate PERCENTILE|off]
+ *     [--cycle-disagreement HZ] [--settings FILE.json] [--full]
  *
  * The settings start as Gyre's defaults (`DEFAULT_ANALYSIS_SETTINGS`), then the fields of
  * `--settings` (a JSON object with `AnalysisSettings` fields, e.g. a study's settings version),
@@ -12,6 +13,13 @@
  * `RunSummary` the server stores, to the bit, for the same file, settings and IAF.
  * Without --onset-label every annotation (time-keeping and artefact annotations aside)
  * counts as an onset. Without --kind the kind is inferred: onsets present → task.
+ * A task's output lists every condition (onset label) with its Δf, interval, p and trials
+ * under `conditions`, and the difference of two of them under `conditionDifference`: the
+ * settings' `compareConditions`, else the first two found; `--compare A,B` names them.
+ * Beside the region's phase-based `deltaFHz` it gives `cycleByCycle`, the cycle-by-cycle
+ * estimate (docs/method.md, "Cycle-by-cycle cross-check"). `--amplitude-gate` sets the
+ * settings' `amplitudeGatePercentile` (1–90, or off), `--cycle-disagreement` their
+ * `cycleDisagreementHz` (above 0, at most 2 Hz), as the server's settings rules allow.
  * A bad file or setting ends with exit code 1, a bad option with 2; the reason on stderr.
  */
 import { readFileSync } from 'node:fs';
@@ -27,12 +35,14 @@ import type { OnsetInput, RecordingKindChoice } from '../pipeline/analysis.types
 import { analyzeEdfRecording, readRecordingForAnalysis } from '../pipeline/analyze-edf-recording';
 import { AnalysisInputError } from '../pipeline/analyze-recording';
 import type { EdfFileRead } from '../pipeline/read-edf-file';
+import { chooseConditionPair, conditionKey } from '../trials/condition-statistics';
 
 class UsageError extends Error {}
 
 const USAGE =
   'usage: analyze FILE.edf [--onsets FILE.csv] [--onset-label TEXT] [--kind task|resting|auto] ' +
   '[--iaf HZ] [--band LO,HI] [--method filter|morlet] [--roi NAME,NAME,…] ' +
+  '[--compare A,B] [--amplitude-gate PERCENTILE|off] [--cycle-disagreement HZ] ' +
   '[--settings FILE.json] [--full]';
 
 export interface CliArguments {
@@ -43,6 +53,8 @@ export interface CliArguments {
   iafHz: number | null;
   /** Single flags, applied over the defaults and the settings file. */
   overrides: Partial<AnalysisSettings>;
+  /** --compare: the two conditions whose difference is reported (over the settings' pair). */
+  compare: [string, string] | null;
   full: boolean;
 }
 
@@ -63,6 +75,9 @@ const OPTIONS = {
   band: { type: 'string' },
   method: { type: 'string' },
   roi: { type: 'string' },
+  compare: { type: 'string' },
+  'amplitude-gate': { type: 'string' },
+  'cycle-disagreement': { type: 'string' },
   settings: { type: 'string' },
   full: { type: 'boolean' },
   help: { type: 'boolean' },
@@ -101,6 +116,7 @@ export function parseArguments(argv: readonly string[]): CliArguments {
     kind: 'auto',
     iafHz: null,
     overrides: {},
+    compare: values.compare !== undefined ? comparedPair(values.compare) : null,
     full: values.full === true,
   };
   if (values['onset-label'] !== undefined) args.overrides.onsetLabel = values['onset-label'];
@@ -128,6 +144,25 @@ export function parseArguments(argv: readonly string[]): CliArguments {
     }
     args.overrides.method = method;
   }
+  const gate = values['amplitude-gate'];
+  if (gate !== undefined) {
+    const percentile =
+      gate.trim() === 'off' ? null : parseNumberList('--amplitude-gate', gate, 1)[0];
+    if (percentile !== null && !(percentile >= 1 && percentile <= 90)) {
+      throw new UsageError(
+        `--amplitude-gate: expected a percentile from 1 to 90 or off, got ${gate}`,
+      );
+    }
+    args.overrides.amplitudeGatePercentile = percentile;
+  }
+  const disagreement = values['cycle-disagreement'];
+  if (disagreement !== undefined) {
+    const [hz] = parseNumberList('--cycle-disagreement', disagreement, 1);
+    if (!(hz > 0 && hz <= 2)) {
+      throw new UsageError(`--cycle-disagreement: expected 0 < HZ ≤ 2, got ${disagreement}`);
+    }
+    args.overrides.cycleDisagreementHz = hz;
+  }
   if (values.roi !== undefined) {
     const names = values.roi
       .split(',')
@@ -137,6 +172,31 @@ export function parseArguments(argv: readonly string[]): CliArguments {
     args.overrides.roi = names;
   }
   return args;
+}
+
+/** `--compare A,B`: two different, non-empty onset labels. */
+function comparedPair(text: string): [string, string] {
+  const names = text.split(',').map((n) => n.trim());
+  if (
+    names.length !== 2 ||
+    names.some((n) => n === '') ||
+    conditionKey(names[0]) === conditionKey(names[1])
+  ) {
+    throw new UsageError(`--compare: expected two different onset labels as A,B, got "${text}"`);
+  }
+  return [names[0], names[1]];
+}
+
+/** `--compare` names a condition no onset has: the labels found, for the message. */
+function checkComparedConditions(compare: [string, string] | null, found: readonly string[]): void {
+  if (compare === null) return;
+  const choice = chooseConditionPair(found, null, compare);
+  if (choice.pair !== null) return;
+  const listed = found.length > 0 ? found.map((f) => `"${f}"`).join(', ') : 'none';
+  throw new UsageError(
+    `--compare: no onsets labelled ${choice.unknown.map((u) => `"${u}"`).join(' or ')}; ` +
+      `conditions found: ${listed}`,
+  );
 }
 
 function readText(path: string): string {
@@ -208,13 +268,31 @@ export async function main(argv: readonly string[]): Promise<number> {
       settings,
       iafHz: args.iafHz,
       onsets,
+      compareConditions: args.compare,
     });
+    const task = outcome.summary.task;
+    checkComparedConditions(args.compare, task?.conditions.map((c) => c.label) ?? []);
     const report = {
       file: args.file,
       kind: result.kind,
       iafHz: result.iafHz,
       settings: result.settings,
       computation: result.computation,
+      ...(task !== null
+        ? {
+            conditions: task.conditions.map((c) => ({
+              label: c.label,
+              deltaFHz: c.deltaFHz,
+              ciHz: c.ciHz,
+              pValue: c.pValue,
+              trialsKept: c.trialsKept,
+              trialsTotal: c.trialsTotal,
+            })),
+            conditionDifference: task.conditionDifference,
+            deltaFHz: outcome.summary.roi?.deltaFHz ?? null,
+            cycleByCycle: task.cycles,
+          }
+        : {}),
       summary: outcome.summary,
       ...(args.full ? { series: outcome.series, result } : {}),
     };

@@ -4,6 +4,7 @@ import {
   analyticSignal,
   ComplexSeries,
 } from './analytic-signal';
+import { AmplitudeGateCount, gateByAmplitude, midpointEnvelope } from './amplitude-gate';
 import { phaseDifferenceFrequency } from './instantaneous-frequency';
 import { medianAcross } from './median-across';
 import { RunningMedianWorkspace, runningMedianChunks } from './running-median';
@@ -72,6 +73,11 @@ export interface FrequencySlidingOptions {
   medianWindows?: Omit<MedianWindowOptions, 'sampleRateHz'>;
   /** Mirrored samples at each end before the transform, in s (default: from the filter). */
   edgePaddingS?: number;
+  /**
+   * Values whose envelope is under this percentile of the channel's envelope become NaN
+   * before the median and stay NaN after it (`amplitude-gate.ts`); null or absent = off.
+   */
+  amplitudeGatePercentile?: number | null;
 }
 
 /** The spectral weight (filter or wavelet) the options ask for. */
@@ -100,6 +106,8 @@ export class FrequencySlidingWorkspace {
   analytic: AnalyticWorkspace | null = null;
   private analyticOutput: ComplexSeries | null = null;
   readonly median = new RunningMedianWorkspace();
+  private envelope = new Float64Array(0);
+  private envelopeSorted = new Float64Array(0);
 
   analyticFor(size: number): AnalyticWorkspace {
     if (!this.analytic || this.analytic.size !== size) this.analytic = new AnalyticWorkspace(size);
@@ -116,6 +124,15 @@ export class FrequencySlidingWorkspace {
     }
     return { re: this.analyticOutput.re.subarray(0, n), im: this.analyticOutput.im.subarray(0, n) };
   }
+
+  /** The amplitude gate's envelope and its sorted copy, `n` values each (gate on only). */
+  envelopeFor(n: number): { envelope: Float64Array; sorted: Float64Array } {
+    if (this.envelope.length < n) {
+      this.envelope = new Float64Array(n);
+      this.envelopeSorted = new Float64Array(n);
+    }
+    return { envelope: this.envelope.subarray(0, n), sorted: this.envelopeSorted };
+  }
 }
 
 export interface FrequencySlidingResult {
@@ -128,8 +145,10 @@ export interface FrequencySlidingResult {
   sampleRateHz: number;
   bandHz: [number, number];
   medianWindowsSamples: number[];
-  /** Share of raw values outside `bandHz` (phase slips, docs/method.md §6). */
+  /** Share of raw values outside `bandHz` (phase slips, docs/method.md §6), before any gate. */
   outOfBandShare: number;
+  /** What the amplitude gate left out (NaN in both series); null when the gate is off. */
+  amplitudeGate: AmplitudeGateCount | null;
 }
 
 /**
@@ -176,16 +195,27 @@ function slide(
   const bandHz: [number, number] = [options.bandHz[0], options.bandHz[1]];
   const z = narrowBandAnalytic(samples, options, workspace);
   const n = Math.max(0, z.re.length - 1);
+  const gatePercentile = options.amplitudeGatePercentile ?? null;
+  // The envelope is read before the raw frequency overwrites the analytic signal.
+  const gateBuffers = gatePercentile === null || n === 0 ? null : workspace.envelopeFor(n);
+  if (gateBuffers) midpointEnvelope(z, gateBuffers.envelope);
   const raw = phaseDifferenceFrequency(z, { sampleRateHz: fs }, rawOutput ?? z.re.subarray(0, n));
+  let outside = 0;
+  for (let i = 0; i < raw.length; i++) if (raw[i] < bandHz[0] || raw[i] > bandHz[1]) outside++;
+  let amplitudeGate: AmplitudeGateCount | null = null;
+  if (gatePercentile !== null) {
+    amplitudeGate = gateBuffers
+      ? gateByAmplitude(raw, gateBuffers.envelope, gatePercentile, gateBuffers.sorted)
+      : { percentile: gatePercentile, excludedSamples: 0, totalSamples: 0 };
+  }
   const windows = medianWindowLengths({ sampleRateHz: fs, ...options.medianWindows });
   const frequencyHz = medianFilterFrequency(
     raw,
     windows,
     workspace,
     filteredOutput ?? z.im.subarray(0, n),
+    amplitudeGate !== null,
   );
-  let outside = 0;
-  for (let i = 0; i < raw.length; i++) if (raw[i] < bandHz[0] || raw[i] > bandHz[1]) outside++;
   return {
     frequencyHz,
     rawFrequencyHz: raw,
@@ -194,6 +224,7 @@ function slide(
     bandHz,
     medianWindowsSamples: windows,
     outOfBandShare: raw.length > 0 ? outside / raw.length : 0,
+    amplitudeGate,
   };
 }
 
@@ -223,20 +254,29 @@ export function narrowBandAnalytic(
  * Step 5 of `frequencySliding`: median across the running medians of `windowsSamples`,
  * chunk by chunk (exact: each chunk ranks its own samples plus the window margins),
  * so no full-length series per window is ever held. Writes into `output` when given.
+ * `gated`: the running medians leave NaN (gated values) out, and a value that was NaN
+ * stays NaN (its window always holds itself, so every other value has a median).
  */
 export function medianFilterFrequency(
   raw: Float64Array,
   windowsSamples: readonly number[],
   workspace: FrequencySlidingWorkspace,
   output: Float64Array = new Float64Array(raw.length),
+  gated = false,
 ): Float64Array {
   if (output.length !== raw.length) {
     throw new RangeError(`output: expected length ${raw.length}, got ${output.length}`);
   }
   // No window: medianAcross names the problem as before.
   if (windowsSamples.length === 0) return medianAcross([], output);
-  runningMedianChunks(raw, { windowsSamples }, workspace.median, (start, medians) => {
-    medianAcross(medians, output.subarray(start, start + medians[0].length));
-  });
+  runningMedianChunks(
+    raw,
+    { windowsSamples, skipNaN: gated },
+    workspace.median,
+    (start, medians) => {
+      medianAcross(medians, output.subarray(start, start + medians[0].length));
+    },
+  );
+  if (gated) for (let i = 0; i < raw.length; i++) if (Number.isNaN(raw[i])) output[i] = NaN;
   return output;
 }

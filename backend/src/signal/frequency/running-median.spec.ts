@@ -86,6 +86,37 @@ describe('running median', () => {
     }
   });
 
+  it('leaves NaN out like scipy.ndimage.generic_filter(numpy.nanmedian, mode="reflect")', () => {
+    const nanFixture = JSON.parse(
+      readFileSync(join(__dirname, '../../../test/fixtures/scipy/nan-median-filter.json'), 'utf8'),
+    ) as { input: (number | null)[]; windowsSamples: number[]; filtered: (number | null)[][] };
+    const x = Float64Array.from(nanFixture.input, (v) => v ?? NaN);
+    const ws = new RunningMedianWorkspace();
+    for (const chunkSamples of [7, 2048]) {
+      const outputs = nanFixture.windowsSamples.map(() => new Float64Array(x.length));
+      runningMedians(
+        x,
+        { windowsSamples: nanFixture.windowsSamples, chunkSamples, skipNaN: true },
+        ws,
+        outputs,
+      );
+      outputs.forEach((out, w) => {
+        const expected = nanFixture.filtered[w];
+        out.forEach((v, i) => {
+          const e = expected[i];
+          if (e === null) expect(v).toBeNaN();
+          // The mean of two middle values is rounded to 13 digits in the fixture.
+          else expect(Math.abs(v - e)).toBeLessThanOrEqual(1e-12 * Math.abs(e));
+        });
+      });
+    }
+    // Without NaN, skipping changes nothing: the same values as the plain median.
+    const plain = Float64Array.from(fixture.input);
+    const skipped = fixture.windowsSamples.map(() => new Float64Array(plain.length));
+    runningMedians(plain, { windowsSamples: fixture.windowsSamples, skipNaN: true }, ws, skipped);
+    skipped.forEach((out, i) => expect(Array.from(out)).toEqual(fixture.filtered[i]));
+  });
+
   it('refuses an even window', () => {
     expect(() => runningMedian(new Float64Array(10), { windowSamples: 4 })).toThrow(
       /odd positive integer, got 4/,

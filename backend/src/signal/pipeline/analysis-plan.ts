@@ -7,6 +7,7 @@
 import { normaliseChannelLabel, roiChannels } from '../channels';
 import { DataSegmentS, EpochDropReason, screenTrials } from '../trials/epochs';
 import { artefactRegExp, stimulusAnnotations } from '../onsets/stimulus-annotations';
+import { conditionKey } from '../trials/condition-statistics';
 import {
   AnalysisComputation,
   AnalysisComputationOptions,
@@ -67,6 +68,10 @@ export interface AnalysisPlan {
   channels: PlannedChannel[];
   /** The chosen stimulus onsets in time order, s from the recording start. */
   onsetsS: number[];
+  /** The label (annotation text, CSV label) of each chosen onset: its condition. */
+  onsetLabels: string[];
+  /** The two conditions the caller asked to compare (over the settings' pair); null: none. */
+  requestedConditions: [string, string] | null;
   /** The same onsets in the time of the concatenated samples (gaps of EDF+D left out), s. */
   dataOnsetsS: number[];
   /** Why each trial is dropped on every channel (edge, artefact); null: not (yet) dropped. */
@@ -191,6 +196,10 @@ export function planAnalysis(
     durationS,
     channels,
     onsetsS,
+    onsetLabels: onsets.map((o) => o.label),
+    requestedConditions: context.compareConditions
+      ? [context.compareConditions[0], context.compareConditions[1]]
+      : null,
     dataOnsetsS: onsetsS.map((t) => toDataTimeS(t, segments)),
     trialReasons: screenTrials(onsetsS, {
       recordingDurationS: durationS,
@@ -202,6 +211,12 @@ export function planAnalysis(
     warnings: { channels: channelWarnings, gaps: gapWarnings },
   };
 }
+
+const isConditionPair = (v: unknown): boolean =>
+  Array.isArray(v) &&
+  v.length === 2 &&
+  v.every((x) => typeof x === 'string' && x.trim() !== '') &&
+  conditionKey(v[0] as string) !== conditionKey(v[1] as string);
 
 const isPair = (v: unknown): v is [number, number] =>
   Array.isArray(v) && v.length === 2 && v.every((x) => typeof x === 'number' && Number.isFinite(x));
@@ -243,6 +258,10 @@ function checkSettings(settings: Readonly<AnalysisSettings>, iafHz: number | nul
   }
   if (!Array.isArray(settings.roi) || settings.roi.some((n) => typeof n !== 'string')) {
     fail('roi', text(settings.roi), 'a list of 10-10 channel names');
+  }
+  const pair = settings.compareConditions;
+  if (pair !== null && pair !== undefined && !isConditionPair(pair)) {
+    fail('compareConditions', text(pair), 'null or two different, non-empty onset labels');
   }
   if (iafHz !== null && !(Number.isFinite(iafHz) && iafHz > 0)) {
     fail('iafHz', text(iafHz), 'a positive frequency in Hz or null');

@@ -1,4 +1,10 @@
-import type { RoiUsageView } from '@gyre/shared';
+import type {
+  ConditionDifferenceView,
+  ConditionStatsView,
+  CycleEstimateView,
+  RoiUsageView,
+} from '@gyre/shared';
+import type { AmplitudeGateCount } from '../frequency/amplitude-gate';
 import { WilcoxonMethod } from '../trials/wilcoxon';
 import { ChannelQuality } from '../quality/quality-checks';
 import { NoPeakReason } from '../spectrum/alpha-peak';
@@ -55,6 +61,11 @@ export interface AnalysisContext {
   iafHz: number | null;
   /** Onsets from a CSV; when given, annotations are not used as onsets. */
   onsets?: readonly OnsetInput[];
+  /**
+   * Two conditions (onset labels) a caller asks to compare, over the settings'
+   * `compareConditions` (the command line's --compare): the difference says 'request'.
+   */
+  compareConditions?: readonly [string, string] | null;
   /** Called with the share of work done, 0…1. */
   onProgress?: (fraction: number) => void;
 }
@@ -70,6 +81,8 @@ export interface DropCounts {
   edge: number;
   amplitude: number;
   artefact: number;
+  /** Only when the amplitude gate is on: no frequency value left in a window. */
+  amplitudeGate?: number;
 }
 
 export interface OnsetCurveResult {
@@ -106,6 +119,8 @@ export interface ChannelResult extends OnsetResult {
   electrode: string | null;
   /** True only when the channel contributed to the region-of-interest result. */
   inRoi: boolean;
+  /** What the amplitude gate left out of this channel; null when it is off. */
+  amplitudeGate: AmplitudeGateCount | null;
 }
 
 export interface RoiResult extends OnsetResult {
@@ -117,6 +132,17 @@ export interface RoiResult extends OnsetResult {
   raster: Float32Array;
   rasterTrials: number;
   rasterPoints: number;
+  /** Per condition (onset label, in order of first appearance): the same statistics. */
+  conditions: ConditionResult[];
+  /** Δf of two conditions' difference; null with fewer than two or a named one without trials. */
+  conditionDifference: ConditionDifferenceView | null;
+}
+
+/** The region of interest's statistics over one condition's trials (docs/method.md, "Conditions"). */
+export interface ConditionResult extends ConditionStatsView {
+  /** Per kept trial of the condition: post − baseline, Hz. */
+  trialDeltaFHz: Float64Array;
+  curve: OnsetCurveResult;
 }
 
 export interface RestResult {
@@ -127,6 +153,8 @@ export interface RestResult {
   /** Mean spectrum over the region of interest, 0 … 60 Hz at most. */
   spectrum: { frequencyHz: Float64Array; powerPerHz: Float64Array };
   channels: string[];
+  /** Every channel's own PAF and CoG from its own spectrum (null without one), in file order. */
+  channelPeaks: { label: string; pafHz: number | null; cogHz: number | null }[];
 }
 
 export interface QualityResult {
@@ -175,6 +203,8 @@ export interface AnalysisResult {
   channels: ChannelResult[];
   roi: RoiResult | null;
   rest: RestResult | null;
+  /** Task runs: the region's cycle-by-cycle Δf beside the phase-based one; null without a region. */
+  cycles: CycleEstimateView | null;
   qc: QualityResult;
   warnings: string[];
 }

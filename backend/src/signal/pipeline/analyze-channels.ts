@@ -7,8 +7,16 @@ import {
   FrequencySlidingWorkspace,
   frequencySlidingInWorkspace,
 } from '../frequency/frequency-sliding';
+import type { AmplitudeGateCount } from '../frequency/amplitude-gate';
+import { ChannelCycleTrials, channelCycleTrials, CycleWorkspace } from '../cycles/channel-cycles';
 import { OnsetCurveScratch } from '../trials/onset-statistics';
-import { cutFrequencyEpochs, epochExceedsAmplitude, epochPointCount } from '../trials/epochs';
+import {
+  cutFrequencyEpochs,
+  EpochDropReason,
+  epochExceedsAmplitude,
+  epochPointCount,
+  epochPointRange,
+} from '../trials/epochs';
 import {
   channelQuality,
   ChannelQuality,
@@ -35,6 +43,8 @@ export interface KeptEpochs {
   points: number;
   /** Kept trials × points, Hz, row-major. */
   valuesHz: Float64Array;
+  /** Trials the amplitude gate dropped (no frequency value left in a window), ascending. */
+  gatedTrials: Int32Array;
 }
 
 /** What one channel contributes to a result. Plain data and typed arrays (transferable). */
@@ -52,6 +62,10 @@ export interface ChannelPart {
   unknownUnit: string | null;
   /** Task runs, region-of-interest candidates only: the kept epochs. */
   roiEpochs: KeptEpochs | null;
+  /** Task runs: what the amplitude gate left out; null when it is off. */
+  amplitudeGate: AmplitudeGateCount | null;
+  /** Task runs, region-of-interest candidates only: the cycle-by-cycle frequencies of kept trials. */
+  cycleTrials: ChannelCycleTrials | null;
 }
 
 /**
@@ -64,6 +78,8 @@ export interface ChannelPart {
 export class ChannelAnalysisWorkspace {
   readonly sliding = new FrequencySlidingWorkspace();
   readonly curve = new OnsetCurveScratch();
+  /** Shares the frequency sliding's buffers: the cycles run after the epochs are cut. */
+  readonly cycles = new CycleWorkspace(this.sliding);
   private epochs = new Float64Array(0);
 
   epochsFor(length: number): Float64Array {
@@ -130,6 +146,8 @@ export function analyzeChannels(
       medianWindowsSamples: null,
       unknownUnit: null,
       roiEpochs: null,
+      amplitudeGate: null,
+      cycleTrials: null,
     };
     if (plan.kind === 'task') {
       const sliding = frequencySlidingInWorkspace(
@@ -141,9 +159,11 @@ export function analyzeChannels(
           transitionFraction: computation.transitionFraction,
           morletCycles: settings.morletCycles,
           morletCentreHz: plan.morletCentreHz ?? undefined,
+          amplitudeGatePercentile: settings.amplitudeGatePercentile,
         },
         workspace.sliding,
       );
+      channel.amplitudeGate = sliding.amplitudeGate;
       channel.medianWindowsSamples = sliding.medianWindowsSamples;
       quality.phaseSlipShare = sliding.outOfBandShare;
       const toUv = microvoltsPerUnit(signal.physicalDimension ?? 'uV');
@@ -159,7 +179,6 @@ export function analyzeChannels(
         });
         return exceeds ? ('amplitude' as const) : null;
       });
-      const kept = reasons.flatMap((r, trial) => (r === null ? [trial] : []));
       const points = epochPointCount(settings.epochWindowS, fs);
       const epochs = cutFrequencyEpochs(
         sliding.frequencyHz,
@@ -171,6 +190,10 @@ export function analyzeChannels(
         },
         workspace.epochsFor(plan.dataOnsetsS.length * points),
       );
+      if (sliding.amplitudeGate !== null) {
+        dropGatedEpochs(reasons, epochs, points, fs, settings);
+      }
+      const kept = reasons.flatMap((r, trial) => (r === null ? [trial] : []));
       channel.onsets = summariseOnsets(
         epochs,
         kept,
@@ -181,7 +204,20 @@ export function analyzeChannels(
         workspace.curve,
       ).summary;
       if (planned.roiCandidate) {
-        channel.roiEpochs = keptEpochs(epochs, kept, points);
+        channel.roiEpochs = keptEpochs(epochs, kept, points, reasons);
+        channel.cycleTrials = channelCycleTrials(
+          signal.samples,
+          {
+            sampleRateHz: fs,
+            bandHz: plan.bandHz,
+            transitionFraction: computation.transitionFraction,
+            onsetsS: plan.dataOnsetsS,
+            trials: kept,
+            baselineWindowS: settings.baselineWindowS,
+            postWindowS: settings.postWindowS,
+          },
+          workspace.cycles,
+        );
       }
     }
     options.onChannel?.(done + 1);
@@ -189,12 +225,42 @@ export function analyzeChannels(
   });
 }
 
-function keptEpochs(epochs: Float64Array, kept: readonly number[], points: number): KeptEpochs {
+function keptEpochs(
+  epochs: Float64Array,
+  kept: readonly number[],
+  points: number,
+  reasons: readonly (EpochDropReason | null)[],
+): KeptEpochs {
   const valuesHz = new Float64Array(kept.length * points);
   kept.forEach((trial, k) =>
     valuesHz.set(epochs.subarray(trial * points, (trial + 1) * points), k * points),
   );
-  return { trials: Int32Array.from(kept), points, valuesHz };
+  const gated = reasons.flatMap((r, trial) => (r === 'amplitudeGate' ? [trial] : []));
+  return { trials: Int32Array.from(kept), points, valuesHz, gatedTrials: Int32Array.from(gated) };
+}
+
+/**
+ * With the amplitude gate on, a trial whose baseline or post window kept no frequency value
+ * has no value to compare: it is dropped with the reason 'amplitudeGate' (in `reasons`).
+ */
+function dropGatedEpochs(
+  reasons: (EpochDropReason | null)[],
+  epochs: Float64Array,
+  points: number,
+  sampleRateHz: number,
+  settings: AnalysisPlan['settings'],
+): void {
+  const windows = [settings.baselineWindowS, settings.postWindowS].map((w) =>
+    epochPointRange(settings.epochWindowS, sampleRateHz, w),
+  );
+  reasons.forEach((reason, trial) => {
+    if (reason !== null) return;
+    const empty = windows.some(([from, to]) => {
+      for (let i = from; i < to; i++) if (!Number.isNaN(epochs[trial * points + i])) return false;
+      return true;
+    });
+    if (empty) reasons[trial] = 'amplitudeGate';
+  });
 }
 
 /**
@@ -223,6 +289,8 @@ export function channelPartBuffers(parts: readonly ChannelPart[]): ArrayBuffer[]
     }
     add(part.roiEpochs?.trials);
     add(part.roiEpochs?.valuesHz);
+    add(part.roiEpochs?.gatedTrials);
+    if (part.cycleTrials) for (const view of Object.values(part.cycleTrials)) add(view);
   }
   return [...buffers];
 }

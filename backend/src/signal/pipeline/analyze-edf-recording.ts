@@ -105,6 +105,8 @@ export interface AnalysisRunRequest {
   iafHz: number | null;
   /** Onsets from the CSV that came with the recording; null: the file's annotations. */
   onsets: readonly OnsetInput[] | null;
+  /** Two conditions to compare over the settings' pair (the command line's --compare). */
+  compareConditions?: readonly [string, string] | null;
 }
 
 /** Analysis of a read recording, in the signal core's terms and in Gyre's stored shape. */
@@ -123,6 +125,7 @@ export function analyzeEdfRecording(
       kind: request.kind,
       iafHz: request.iafHz,
       onsets: request.onsets ?? undefined,
+      compareConditions: request.compareConditions ?? null,
       onProgress: options.onProgress,
     },
     options.computation,
@@ -145,7 +148,12 @@ export function planEdfAnalysis(
   return planAnalysis(
     { ...recording, signals },
     request.settings,
-    { kind: request.kind, iafHz: request.iafHz, onsets: request.onsets ?? undefined },
+    {
+      kind: request.kind,
+      iafHz: request.iafHz,
+      onsets: request.onsets ?? undefined,
+      compareConditions: request.compareConditions ?? null,
+    },
     computation,
   );
 }

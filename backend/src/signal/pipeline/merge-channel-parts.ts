@@ -4,6 +4,8 @@
  * the medians, the warnings) runs here in channel order, so a result never depends on how
  * the channels were split.
  */
+import { cycleEstimate } from '../cycles/cycle-estimate';
+import type { ChannelCycleTrials } from '../cycles/channel-cycles';
 import { medianOf } from '../quality/quality-checks';
 import { alphaPeak, centreOfGravity } from '../spectrum/alpha-peak';
 import { meanSpectrum, PowerSpectrum } from '../spectrum/welch';
@@ -20,6 +22,7 @@ import type {
 } from './analysis.types';
 import type { ChannelPart } from './analyze-channels';
 import { decideRoiUsage } from './roi-usage';
+import { summariseConditions } from './summarise-conditions';
 import { summariseOnsets } from './summarise-onsets';
 
 /**
@@ -64,6 +67,13 @@ export function mergeChannelParts(
   const roiPoints = roiRate ? epochPointCount(settings.epochWindowS, roiRate) : 0;
   const roiSum = new Float64Array(kind === 'task' ? onsetCount * roiPoints : 0);
   const roiCount = new Int32Array(onsetCount);
+  // Amplitude gate on: NaN (gated) points are left out point by point, and a trial every
+  // region channel dropped for the gate keeps that reason.
+  const gated = settings.amplitudeGatePercentile !== null;
+  const roiPointCount = new Int32Array(gated ? roiSum.length : 0);
+  const roiGatedCount = new Int32Array(onsetCount);
+  let roiChannelCount = 0;
+  const roiCycles: ChannelCycleTrials[] = [];
   if (kind === 'task') {
     let unknownUnitWarned = false;
     byChannel.forEach((part, index) => {
@@ -81,6 +91,7 @@ export function mergeChannelParts(
         electrode: channel.electrode,
         inRoi: inRoi(index),
         ...part.onsets,
+        amplitudeGate: part.amplitudeGate,
       });
       if (inRoi(index)) {
         const epochs = part.roiEpochs;
@@ -91,23 +102,53 @@ export function mergeChannelParts(
           roiCount[trial]++;
           const offset = trial * roiPoints;
           const row = k * roiPoints;
-          for (let i = 0; i < roiPoints; i++) roiSum[offset + i] += epochs.valuesHz[row + i];
+          if (!gated) {
+            for (let i = 0; i < roiPoints; i++) roiSum[offset + i] += epochs.valuesHz[row + i];
+            return;
+          }
+          for (let i = 0; i < roiPoints; i++) {
+            const v = epochs.valuesHz[row + i];
+            if (Number.isNaN(v)) continue;
+            roiSum[offset + i] += v;
+            roiPointCount[offset + i]++;
+          }
         });
+        for (const trial of epochs.gatedTrials) roiGatedCount[trial]++;
+        roiChannelCount++;
+        if (part.cycleTrials !== null) roiCycles.push(part.cycleTrials);
       }
     });
   }
 
   let roi: RoiResult | null = null;
+  let cycles: AnalysisResult['cycles'] = null;
   if (kind === 'task' && roiRate !== null) {
-    const reasons = plan.trialReasons.map(
-      (r, trial) => r ?? (roiCount[trial] > 0 ? null : ('amplitude' as const)),
-    );
+    const reasons = plan.trialReasons.map((r, trial) => {
+      if (r !== null || roiCount[trial] > 0) return r;
+      return roiGatedCount[trial] === roiChannelCount ? 'amplitudeGate' : 'amplitude';
+    });
     const kept = reasons.flatMap((r, trial) => (r === null ? [trial] : []));
     for (const trial of kept) {
       const offset = trial * roiPoints;
-      for (let i = 0; i < roiPoints; i++) roiSum[offset + i] /= roiCount[trial];
+      if (!gated) {
+        for (let i = 0; i < roiPoints; i++) roiSum[offset + i] /= roiCount[trial];
+        continue;
+      }
+      for (let i = offset; i < offset + roiPoints; i++) {
+        roiSum[i] = roiPointCount[i] > 0 ? roiSum[i] / roiPointCount[i] : NaN;
+      }
     }
     const result = summariseOnsets(roiSum, kept, reasons, roiRate, settings, computation);
+    const byCondition = summariseConditions(
+      roiSum,
+      reasons,
+      plan.onsetLabels,
+      roiRate,
+      settings,
+      computation,
+      plan.requestedConditions,
+    );
+    warnings.push(...byCondition.warnings);
     roi = {
       ...result.summary,
       channels: [...roiDecision.usage.used],
@@ -115,7 +156,23 @@ export function mergeChannelParts(
       raster: result.raster,
       rasterTrials: kept.length,
       rasterPoints: result.summary.curve.timesS.length,
+      conditions: byCondition.conditions,
+      conditionDifference: byCondition.difference,
     };
+    cycles = cycleEstimate(roiCycles, {
+      trials: kept,
+      phaseDeltaFHz: result.summary.deltaFHz,
+      disagreementHz: settings.cycleDisagreementHz,
+      resamples: BOOTSTRAP_RESAMPLES,
+      seed: BOOTSTRAP_SEED,
+    });
+    if (cycles.disagrees && cycles.disagreementHz !== null) {
+      warnings.push(
+        `The cycle-by-cycle Δf differs from the phase-based Δf by ${cycles.disagreementHz.toFixed(2)} Hz ` +
+          `(more than ${settings.cycleDisagreementHz} Hz): the rhythm may not be sinusoidal enough ` +
+          'for the phase-based estimate.',
+      );
+    }
   }
 
   // The resting spectrum averages the region's channels only: never a silent fallback.
@@ -146,6 +203,7 @@ export function mergeChannelParts(
         powerPerHz: restSpectrum.powerPerHz.slice(0, bins),
       },
       channels: roiIndices.map((i) => plan.channels[i].label),
+      channelPeaks: plan.channels.map((c, i) => channelPeak(c.label, spectra[i], computation)),
     };
   }
 
@@ -182,8 +240,27 @@ export function mergeChannelParts(
     channels: channelResults,
     roi,
     rest,
+    cycles,
     qc,
     warnings,
+  };
+}
+
+/** One channel's own PAF and CoG, by the same peak and CoG code as the region's mean spectrum. */
+function channelPeak(
+  label: string,
+  spectrum: PowerSpectrum | null,
+  computation: AnalysisPlan['computation'],
+): RestResult['channelPeaks'][number] {
+  if (spectrum === null) return { label, pafHz: null, cogHz: null };
+  const peak = alphaPeak(spectrum, {
+    searchHz: computation.alphaSearchHz,
+    minProminenceDb: computation.minPeakProminenceDb,
+  });
+  return {
+    label,
+    pafHz: peak.pafHz,
+    cogHz: centreOfGravity(spectrum, { bandHz: computation.cogBandHz }),
   };
 }
 

@@ -3,13 +3,21 @@
  * command line prints it. Plain data and Float64Arrays only, so it crosses a thread boundary
  * by structured clone (series by transfer).
  */
-import type { ChannelStatsView, QualityView, RoiUsageView } from '@gyre/shared';
+import type {
+  ChannelStatsView,
+  ConditionDifferenceView,
+  ConditionStatsView,
+  CycleEstimateView,
+  QualityView,
+  RoiUsageView,
+} from '@gyre/shared';
 import type { AnalysisBandSource } from './analysis-settings';
 import type { AnalysisResult, OnsetResult } from './analysis.types';
 
 /**
  * Named numeric series of one run: `timeS`, `roi:mean|ciLow|ciHigh`,
- * `channel:<label>:mean|ciLow|ciHigh`, `raster:timeS`, `raster` (trials × points,
+ * `channel:<label>:mean|ciLow|ciHigh`, `condition:<label>:mean|ciLow|ciHigh`,
+ * `raster:timeS`, `raster` (trials × points,
  * row-major), `trialDeltaFHz`, `rest:frequencyHz`, `rest:powerUv2PerHz`. NaN stands for
  * "no value".
  */
@@ -43,6 +51,14 @@ export interface RunSummary {
     curveChannels: string[];
     rasterTrials: number;
     rasterPoints: number;
+    /** The region's statistics per condition (onset label); [] in runs stored before them. */
+    conditions: ConditionStatsView[];
+    /** Δf(first) − Δf(second) of two conditions; null (or absent in older runs) without one. */
+    conditionDifference: ConditionDifferenceView | null;
+    /** Labels whose curves are in `series` (`condition:<label>:mean|ciLow|ciHigh`). */
+    conditionCurves: string[];
+    /** The region's cycle-by-cycle Δf beside the phase-based one; null (or absent in older runs) without one. */
+    cycles: CycleEstimateView | null;
   } | null;
   /** Resting recordings: null when no region-of-interest channel remains. */
   rest: {
@@ -64,6 +80,12 @@ export interface AnalyzeOutcome {
 const copy = (values: ArrayLike<number>): Float64Array => Float64Array.from(values);
 
 /**
+ * Curves stored for at most this many conditions (the first with kept trials): labels that
+ * differ per onset ("stim 1", "stim 2", …) must not multiply a run's series.
+ */
+const MAX_CONDITION_CURVES = 32;
+
+/**
  * A result in Gyre's stored shape. Every series is a fresh Float64Array, so each has its own
  * buffer to transfer; `readerWarnings` (the EDF reader's) come first in the quality warnings.
  */
@@ -75,6 +97,7 @@ export function toAnalyzeOutcome(
   let task: RunSummary['task'] = null;
   let roi: RunSummary['roi'] = null;
   const curveChannels: string[] = [];
+  const conditionCurves: string[] = [];
   if (result.kind === 'task' && result.roi !== null) {
     const r = result.roi;
     series.timeS = copy(r.curve.timesS);
@@ -83,6 +106,11 @@ export function toAnalyzeOutcome(
       if (channel.curve.meanHz.length === 0) continue;
       putCurve(series, `channel:${channel.label}`, channel);
       curveChannels.push(channel.label);
+    }
+    for (const condition of r.conditions) {
+      if (condition.trialsKept === 0 || conditionCurves.length >= MAX_CONDITION_CURVES) continue;
+      putCurve(series, `condition:${condition.label}`, condition);
+      conditionCurves.push(condition.label);
     }
     series['raster:timeS'] =
       r.rasterPoints === r.curve.timesS.length
@@ -114,6 +142,19 @@ export function toAnalyzeOutcome(
       curveChannels,
       rasterTrials: r.rasterTrials,
       rasterPoints: r.rasterPoints,
+      conditions: r.conditions.map((c) => ({
+        label: c.label,
+        trialsKept: c.trialsKept,
+        trialsTotal: c.trialsTotal,
+        baselineHz: c.baselineHz,
+        postHz: c.postHz,
+        deltaFHz: c.deltaFHz,
+        ciHz: c.ciHz,
+        pValue: c.pValue,
+      })),
+      conditionDifference: r.conditionDifference ? { ...r.conditionDifference } : null,
+      conditionCurves,
+      cycles: result.cycles ? { ...result.cycles } : null,
     };
   }
   let rest: RunSummary['rest'] = null;
@@ -129,6 +170,7 @@ export function toAnalyzeOutcome(
     };
   }
   const used = new Set(result.roiUsage.used);
+  const restPeaks = new Map(result.rest?.channelPeaks.map((p) => [p.label, p]));
   const channels: ChannelStatsView[] =
     result.channels.length > 0
       ? result.channels.map((c) => ({
@@ -143,7 +185,7 @@ export function toAnalyzeOutcome(
           trials: c.trialsKept,
           pafHz: null,
           cogHz: null,
-          amplitudeGate: null,
+          amplitudeGate: c.amplitudeGate ? { ...c.amplitudeGate } : null,
         }))
       : result.qc.channels.map((c) => ({
           label: c.label,
@@ -155,8 +197,8 @@ export function toAnalyzeOutcome(
           ciHz: null,
           pValue: null,
           trials: null,
-          pafHz: null,
-          cogHz: null,
+          pafHz: restPeaks.get(c.label)?.pafHz ?? null,
+          cogHz: restPeaks.get(c.label)?.cogHz ?? null,
           amplitudeGate: null,
         }));
   const qc = result.qc;
@@ -197,7 +239,7 @@ export function toAnalyzeOutcome(
   };
 }
 
-function putCurve(series: ResultSeries, prefix: string, result: OnsetResult): void {
+function putCurve(series: ResultSeries, prefix: string, result: Pick<OnsetResult, 'curve'>): void {
   series[`${prefix}:mean`] = copy(result.curve.meanHz);
   series[`${prefix}:ciLow`] = copy(result.curve.lowerHz);
   series[`${prefix}:ciHigh`] = copy(result.curve.upperHz);

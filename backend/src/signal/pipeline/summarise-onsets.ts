@@ -53,7 +53,7 @@ export function summariseOnsets(
       ...stats,
       trialsKept: kept.length,
       trialsDropped: reasons.length - kept.length,
-      dropReasons: countDrops(reasons),
+      dropReasons: countDrops(reasons, settings.amplitudeGatePercentile !== null),
       trialBaselineHz: baseline,
       trialPostHz: post,
       curve: {
@@ -67,8 +67,9 @@ export function summariseOnsets(
   };
 }
 
-function countDrops(reasons: readonly (EpochDropReason | null)[]): DropCounts {
+function countDrops(reasons: readonly (EpochDropReason | null)[], gated: boolean): DropCounts {
   const counts: DropCounts = { edge: 0, amplitude: 0, artefact: 0 };
-  for (const r of reasons) if (r) counts[r]++;
+  if (gated) counts.amplitudeGate = 0;
+  for (const r of reasons) if (r) counts[r] = (counts[r] ?? 0) + 1;
   return counts;
 }

@@ -2,6 +2,7 @@ import { writeEdf } from '../edf';
 import type { EdfWriteSignal } from '../edf';
 import { seededNormal } from '../random/random';
 import type { AnalysisRecording, AnalysisSignal } from '../pipeline/analysis.types';
+import { AlphaBurstOptions, alphaBurstEnvelope, alphaWave, AlphaWaveform } from './alpha-bursts';
 import { dipWeight, phaseFromFrequency } from './alpha-rhythm';
 import type { DipShape } from './alpha-rhythm';
 
@@ -33,7 +34,26 @@ export interface SyntheticTaskOptions {
   seed?: number;
   /** Onset annotation text (default 'stimulus'). */
   onsetText?: string;
+  /** Shape of each alpha cycle (default 'sine'; alpha-bursts.ts). */
+  waveform?: AlphaWaveform;
+  /** Alpha in bursts with pauses between them (default: always on; alpha-bursts.ts). */
+  bursts?: AlphaBurstOptions;
 }
+
+/**
+ * The generated task the analysis-depth checks share (amplitude gate, cycle-by-cycle):
+ * 3 channels at 250 Hz for 245 s, 60 onsets 4 s apart from 3 s, 10 Hz slowing to 9.5 Hz
+ * from +0.2 to +0.8 s after each onset (Δf = −0.5 Hz by construction), 3 µV of noise.
+ */
+export const HALF_HERTZ_SLOWING_TASK: Readonly<SyntheticTaskOptions> = Object.freeze({
+  sampleRateHz: 250,
+  durationS: 245,
+  channelLabels: ['O1', 'O2', 'Pz'],
+  onsetsS: Array.from({ length: 60 }, (_, i) => 3 + 4 * i),
+  dipHz: -0.5,
+  noiseUv: 3,
+  seed: 7,
+});
 
 /** The dip of `syntheticTaskRecording` as a raised-cosine `DipShape` (alpha-rhythm.ts). */
 function taskDipShape(options: SyntheticTaskOptions): DipShape {
@@ -68,11 +88,16 @@ export function syntheticTaskRecording(options: SyntheticTaskOptions): AnalysisR
   const normal = seededNormal(options.seed ?? 1);
   const amplitude = options.alphaAmplitudeUv ?? 20;
   const noise = options.noiseUv ?? 2;
+  const waveform = options.waveform ?? 'sine';
+  const envelope = options.bursts ? alphaBurstEnvelope(n, fs, options.bursts) : null;
   const signals = options.channelLabels.map((label, c) => {
     const samples = new Float32Array(n);
     const offset = 0.7 * c;
     const gain = amplitude * (1 - 0.05 * (c % 4));
-    for (let i = 0; i < n; i++) samples[i] = gain * Math.sin(phase[i] + offset) + noise * normal();
+    for (let i = 0; i < n; i++) {
+      const alpha = gain * alphaWave(phase[i] + offset, waveform);
+      samples[i] = (envelope ? alpha * envelope[i] : alpha) + noise * normal();
+    }
     return {
       label,
       sampleRateHz: fs,

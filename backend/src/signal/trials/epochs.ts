@@ -1,4 +1,8 @@
-export type EpochDropReason = 'edge' | 'amplitude' | 'artefact';
+/**
+ * Why an epoch is left out. 'amplitudeGate': with the amplitude gate on, its baseline or
+ * post window kept no frequency value (docs/method.md, "Amplitude gate").
+ */
+export type EpochDropReason = 'edge' | 'amplitude' | 'artefact' | 'amplitudeGate';
 
 /** A span of the recording marked as artefact, in s from the recording start. */
 export interface ArtefactSpan {

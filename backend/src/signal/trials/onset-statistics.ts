@@ -211,9 +211,17 @@ export function onsetCurve(
     for (let b = 0; b < bins; b++) {
       const first = b * factor;
       const last = Math.min(points, first + factor);
+      // NaN (no value: the amplitude gate) is left out; a bin of NaN only stays NaN.
       let sum = 0;
-      for (let i = first; i < last; i++) sum += epochs[trial * points + i];
-      binned[k * bins + b] = sum / (last - first);
+      let count = 0;
+      for (let i = first; i < last; i++) {
+        const v = epochs[trial * points + i];
+        if (!Number.isNaN(v)) {
+          sum += v;
+          count++;
+        }
+      }
+      binned[k * bins + b] = count > 0 ? sum / count : NaN;
       raster[k * bins + b] = binned[k * bins + b];
     }
   });
@@ -222,11 +230,21 @@ export function onsetCurve(
   const upperHz = new Float64Array(bins);
   for (let b = 0; b < bins; b++) {
     let sum = 0;
-    for (let k = 0; k < n; k++) sum += binned[k * bins + b];
-    const mean = n > 0 ? sum / n : NaN;
+    let count = 0;
+    for (let k = 0; k < n; k++) {
+      const v = binned[k * bins + b];
+      if (!Number.isNaN(v)) {
+        sum += v;
+        count++;
+      }
+    }
+    const mean = count > 0 ? sum / count : NaN;
     let ss = 0;
-    for (let k = 0; k < n; k++) ss += (binned[k * bins + b] - mean) ** 2;
-    const sem = n > 1 ? Math.sqrt(ss / (n - 1) / n) : NaN;
+    for (let k = 0; k < n; k++) {
+      const v = binned[k * bins + b];
+      if (!Number.isNaN(v)) ss += (v - mean) ** 2;
+    }
+    const sem = count > 1 ? Math.sqrt(ss / (count - 1) / count) : NaN;
     meanHz[b] = mean;
     lowerHz[b] = mean - 1.96 * sem;
     upperHz[b] = mean + 1.96 * sem;
