@@ -32,6 +32,7 @@ import { WorklistModule } from './worklist/worklist.module';
 import { StudyExportsModule } from './study-exports/study-exports.module';
 import { StudyOverviewModule } from './study-overview/study-overview.module';
 import { CalibrationModule } from './calibration/calibration.module';
+import { BlindedDecisionsModule } from './blinding/blinded-decisions.module';
 
 @Module({})
 export class AppModule implements NestModule {
@@ -72,6 +73,7 @@ export class AppModule implements NestModule {
         StudyExportsModule,
         StudyOverviewModule,
         CalibrationModule,
+        BlindedDecisionsModule,
       ],
     };
   }

@@ -457,7 +457,7 @@ describe('worklist over a few hundred visits', () => {
       window: 'late',
     });
     expect(unscheduled.schedule).toMatchObject({ plannedVisitId: null, window: 'unplanned' });
-    expect(section(list, 'suggestions').items[0].schedule.window).toBe('late');
+    expect(section(list, 'suggestions').items[0].schedule?.window).toBe('late');
 
     const newest = await worklist(t, 'analystB', {
       sort: 'newest',

@@ -22,6 +22,12 @@ export interface StudyView {
   trendMinVisits: number;
   /** … and when those visits span at least this many days. */
   trendMinSpanDays: number;
+  /**
+   * Blinded review: while true, analysts see each visit under its code, without its date,
+   * planned-visit name, group or the participant's other visits, until they record their
+   * decision on it. Admins change it (audited, with a reason).
+   */
+  blindedReview: boolean;
   createdAt: string;
   updatedAt: string;
 }
@@ -95,4 +101,39 @@ export interface VisitView {
   schedule: VisitScheduleStatus;
   createdAt: string;
   updatedAt: string;
+}
+
+/** How a decision on a blinded visit is recorded: a slowing flag raised, or no flag. */
+export const BLINDED_DECISIONS = ['flag', 'noFlag'] as const;
+export type BlindedDecision = (typeof BLINDED_DECISIONS)[number];
+
+/** Body of `POST /api/visits/:visitId/blinding/decision`. */
+export interface BlindedDecisionChange {
+  decision: BlindedDecision;
+  /** Why, in words (10–2000 characters); a raised flag takes it as its reason. */
+  reason: string;
+}
+
+/** The decision an analyst recorded on a blinded visit, which unblinded it for them. */
+export interface BlindedDecisionView {
+  decision: BlindedDecision;
+  reason: string;
+  /** The flag raised (or already raised) with a `flag` decision. */
+  flagId: string | null;
+  decidedAt: string;
+}
+
+/**
+ * `GET /api/visits/:visitId/blinding`: whether the visit's details are hidden from the caller.
+ * Only analysts of a study with blinded review on are ever blinded.
+ */
+export interface VisitBlindingView {
+  visitId: string;
+  studyId: string;
+  /** The visit's blinded-review code (e.g. `B-7KQ2`); null while the study is not blinded. */
+  code: string | null;
+  /** True while the caller sees the visit under its code only. */
+  blinded: boolean;
+  /** The caller's own decision that unblinded the visit for them, if any. */
+  decision: BlindedDecisionView | null;
 }

@@ -33,21 +33,29 @@ export const WORKLIST_MAX_LIMIT = 200;
 /** Where an item leads: the visit's Review screen, or Intake with the visit chosen. */
 export interface WorklistLink {
   screen: 'review' | 'intake';
-  participantId: string;
+  /** Null on a blinded item (the participant leads to their other visits). */
+  participantId: string | null;
   visitId: string;
 }
 
 export interface WorklistItem {
   /** Unique within its section (a visit id, or a recording id for recording items). */
   key: string;
-  participantId: string;
-  participantCode: string;
+  /** Null on a blinded item (see `blindCode`). */
+  participantId: string | null;
+  participantCode: string | null;
   visitId: string;
+  /** The visit's label; on a blinded item its code. */
   visitLabel: string;
-  /** `YYYY-MM-DD`. */
-  visitDate: string;
-  /** The visit's place in the study's schedule, as its visit view has it (window status). */
-  schedule: VisitScheduleStatus;
+  /** `YYYY-MM-DD`; null on a blinded item. */
+  visitDate: string | null;
+  /** The visit's place in the study's schedule, as its visit view has it (window status); null on a blinded item. */
+  schedule: VisitScheduleStatus | null;
+  /**
+   * Set while the visit is blinded for the caller (blinded review): its code; the participant,
+   * date, planned visit and schedule are then left out of the item.
+   */
+  blindCode: string | null;
   siteId: string;
   /** Set for items about one recording (failed, rejected, with warnings, a missing kind). */
   kind: RecordingKind | null;

@@ -23,6 +23,8 @@ import { StudyGroup } from '../schedule/study-group.entity';
 import { VisitReview } from '../visit-reviews/visit-review.entity';
 import { CalibrationRun } from '../calibration/calibration-run.entity';
 import { BidsImportFile } from '../bids-import/bids-import-file.entity';
+import { VisitBlindCode } from '../blinding/visit-blind-code.entity';
+import { VisitUnblinding } from '../blinding/visit-unblinding.entity';
 
 /** Every TypeORM entity, listed once; feature modules add theirs here (append only). */
 // A constructor type rather than `Function`, which the lint rules refuse.
@@ -52,4 +54,6 @@ export const ENTITIES: (new () => object)[] = [
   VisitReview,
   BidsImportFile,
   CalibrationRun,
+  VisitBlindCode,
+  VisitUnblinding,
 ];

@@ -64,46 +64,59 @@ export class FlagsService {
 
   async raise(caller: Caller, visitId: string, reason: string): Promise<VisitFlagView> {
     const visit = await this.visitInScope(caller, visitId, 'create');
-    await this.writes.run(async (manager) => {
-      const raised = await manager.getRepository(Flag).findOneBy({ visitId, state: 'raised' });
-      if (raised !== null) {
-        throw flagsError(
-          FlagsError.AlreadyRaised,
-          `Visit ${visitId} already has a raised slowing flag (${raised.id}); clear it first.`,
-          { flagId: raised.id },
-        );
-      }
-      const suggestion = await this.suggestion(visitId);
-      const flag = Object.assign(new Flag(), {
-        id: randomUUID(),
-        visitId,
-        participantId: visit.participantId,
-        studyId: visit.studyId,
-        siteId: visit.siteId,
-        state: 'raised' as const,
-        raisedById: caller.user.id,
-        raiseReason: reason,
-        raisedAt: nowIso(),
-        suggestionJson: suggestion === null ? null : JSON.stringify(suggestion),
-        clearedById: null,
-        clearReason: null,
-        clearedAt: null,
-      });
-      await manager.getRepository(Flag).insert(flag);
-      await this.audit.record({
-        actor: caller.user,
-        action: 'raise',
-        objectType: 'Flag',
-        objectId: flag.id,
-        studyId: visit.studyId,
-        siteId: visit.siteId,
-        before: { visitId, state: null },
-        after: { ...toFlagView(flag), suggestion },
-        reason,
-        clientIp: caller.clientIp,
-      });
-    });
+    await this.writes.run((manager) => this.raiseIn(manager, caller, visit, reason));
     return this.forVisit(caller, visitId);
+  }
+
+  /**
+   * Raises the flag inside the caller's write transaction `manager` (blinded review records a
+   * decision and the unblinding together); the caller has checked the visit's scope.
+   */
+  async raiseIn(
+    manager: EntityManager,
+    caller: Caller,
+    visit: Visit,
+    reason: string,
+  ): Promise<Flag> {
+    const visitId = visit.id;
+    const raised = await manager.getRepository(Flag).findOneBy({ visitId, state: 'raised' });
+    if (raised !== null) {
+      throw flagsError(
+        FlagsError.AlreadyRaised,
+        `Visit ${visitId} already has a raised slowing flag (${raised.id}); clear it first.`,
+        { flagId: raised.id },
+      );
+    }
+    const suggestion = await this.suggestion(visitId);
+    const flag = Object.assign(new Flag(), {
+      id: randomUUID(),
+      visitId,
+      participantId: visit.participantId,
+      studyId: visit.studyId,
+      siteId: visit.siteId,
+      state: 'raised' as const,
+      raisedById: caller.user.id,
+      raiseReason: reason,
+      raisedAt: nowIso(),
+      suggestionJson: suggestion === null ? null : JSON.stringify(suggestion),
+      clearedById: null,
+      clearReason: null,
+      clearedAt: null,
+    });
+    await manager.getRepository(Flag).insert(flag);
+    await this.audit.record({
+      actor: caller.user,
+      action: 'raise',
+      objectType: 'Flag',
+      objectId: flag.id,
+      studyId: visit.studyId,
+      siteId: visit.siteId,
+      before: { visitId, state: null },
+      after: { ...toFlagView(flag), suggestion },
+      reason,
+      clientIp: caller.clientIp,
+    });
+    return flag;
   }
 
   async clear(caller: Caller, visitId: string, reason: string): Promise<VisitFlagView> {

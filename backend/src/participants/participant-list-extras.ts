@@ -24,7 +24,15 @@ type Extras = Omit<ParticipantListItem, keyof import('@gyre/shared').Participant
 export class ParticipantListExtras {
   constructor(private readonly reads: SqliteReadsService) {}
 
-  of(caller: Caller, participantIds: readonly string[]): Map<string, Extras> {
+  /**
+   * `unblinded`: for an analyst under blinded review, the only visits they may see (those they
+   * recorded their decision on); null for everyone else.
+   */
+  of(
+    caller: Caller,
+    participantIds: readonly string[],
+    unblinded: readonly string[] | null = null,
+  ): Map<string, Extras> {
     const out = new Map<string, Extras>();
     if (participantIds.length === 0) return out;
 
@@ -50,11 +58,12 @@ export class ParticipantListExtras {
     }
 
     // 2. The visits, newest first, read Visit scope.
+    const shown = unblinded === null ? null : new Set(unblinded);
     const visits = visitsOfParticipants(
       this.reads,
       participantIds,
       scopeSql(caller.ability, 'read', 'Visit', 'v'),
-    );
+    ).filter((v) => shown?.has(v.id) ?? true);
     const visitById = new Map(visits.map((v) => [v.id, v]));
     const order = new Map(visits.map((v, index) => [v.id, index]));
     for (const visit of visits) {

@@ -13,6 +13,7 @@ import {
 } from '@gyre/shared';
 import { scopedWhere, scopeSql } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
+import { BlindingService } from '../blinding/blinding.service';
 import { AuditedWrites } from '../audit/audited-writes';
 import { SqlEntityRows, sqlPage } from '../common/database/sql-rows';
 import { SqliteReadsService, type SqlValue } from '../common/database/sqlite-reads.service';
@@ -48,13 +49,14 @@ export class ParticipantsService {
     private readonly audited: AuditedWrites,
     private readonly reads: SqliteReadsService,
     private readonly listExtras: ParticipantListExtras,
+    private readonly blinding: BlindingService,
   ) {}
 
   /**
    * A hot route: prepared statements for the page and its count (sql-rows.ts), then a fixed
    * number more for what each row shows of its visits (participant-list-extras.ts).
    */
-  list(caller: Caller, query: ParticipantQueryDto): Promise<Page<ParticipantListItem>> {
+  async list(caller: Caller, query: ParticipantQueryDto): Promise<Page<ParticipantListItem>> {
     const window = pageWindowOf(query);
     const scope = scopeSql(caller.ability, 'read', 'Participant', 'p');
     const where = [scope.sql];
@@ -93,14 +95,13 @@ export class ParticipantsService {
     const extras = this.listExtras.of(
       caller,
       participants.map((p) => p.id),
+      await this.blinding.unblindedVisitIds(caller),
     );
-    return Promise.resolve(
-      toPage([participants, total], window, (participant): ParticipantListItem => {
-        const more = extras.get(participant.id);
-        if (more === undefined) throw new Error(`Participant ${participant.id} has no site row`);
-        return { ...toParticipantView(participant), ...more };
-      }),
-    );
+    return toPage([participants, total], window, (participant): ParticipantListItem => {
+      const more = extras.get(participant.id);
+      if (more === undefined) throw new Error(`Participant ${participant.id} has no site row`);
+      return { ...toParticipantView(participant), ...more };
+    });
   }
 
   async get(caller: Caller, id: string): Promise<ParticipantView> {

@@ -1,4 +1,5 @@
 import { Module, OnApplicationBootstrap } from '@nestjs/common';
+import { BlindingModule } from '../blinding/blinding.module';
 import { JobsModule } from '../jobs/jobs.module';
 import { QueueModule } from '../queue/queue.module';
 import { VisitsModule } from '../visits/visits.module';
@@ -10,7 +11,7 @@ import { UploadReceiver } from './upload/upload-receiver';
 
 /** Owns recordings: uploads, their state machine, their files and what the API shows of them. */
 @Module({
-  imports: [JobsModule, QueueModule, VisitsModule],
+  imports: [JobsModule, QueueModule, VisitsModule, BlindingModule],
   controllers: [RecordingsController],
   providers: [RecordingsService, RecordingLifecycle, RecordingEventsService, UploadReceiver],
   exports: [RecordingsService],

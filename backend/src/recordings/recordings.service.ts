@@ -19,6 +19,7 @@ import type {
   RunTrigger,
 } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
+import { BlindingService } from '../blinding/blinding.service';
 import type { AuditActor } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
@@ -116,6 +117,7 @@ export class RecordingsService {
     private readonly pool: WorkerPoolService,
     private readonly stateEvents: RecordingEventsService,
     private readonly events: EventEmitter2,
+    private readonly blinding: BlindingService,
   ) {}
 
   async upload(caller: Caller, visit: Visit, upload: StoredUpload): Promise<RecordingView> {
@@ -193,13 +195,26 @@ export class RecordingsService {
       skip: window.skip,
       take: window.take,
     });
-    const views = await this.views(rows);
+    const views = await this.shownTo(caller, await this.views(rows));
     return toPage([views, total], window, (v) => v);
   }
 
   async get(caller: Caller, id: string): Promise<RecordingView> {
-    const [view] = await this.views([await this.findInScope(caller, id, 'read')]);
+    const [view] = await this.shownTo(
+      caller,
+      await this.views([await this.findInScope(caller, id, 'read')]),
+    );
     return view;
+  }
+
+  /** Blinded review: an uploaded file's own name may carry a date, so a blinded analyst gets none. */
+  private async shownTo(caller: Caller, views: RecordingView[]): Promise<RecordingView[]> {
+    const blinded = await this.blinding.blindedCodes(caller, [
+      ...new Set(views.map((v) => v.visitId)),
+    ]);
+    return blinded.size === 0
+      ? views
+      : views.map((v) => (blinded.has(v.visitId) ? { ...v, fileName: null } : v));
   }
 
   /** The stored copy (patient field blanked) of an accepted recording, current or superseded. */

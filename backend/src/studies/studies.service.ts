@@ -59,6 +59,7 @@ export class StudiesService {
       description: dto.description?.trim() ?? '',
       trendMinVisits: dto.trendMinVisits ?? DEFAULT_TREND_MIN_VISITS,
       trendMinSpanDays: dto.trendMinSpanDays ?? DEFAULT_TREND_MIN_SPAN_DAYS,
+      blindedReview: dto.blindedReview ?? false,
       createdAt: at,
       updatedAt: at,
     };
@@ -74,15 +75,29 @@ export class StudiesService {
       description: dto.description?.trim() ?? current.description,
       trendMinVisits: dto.trendMinVisits ?? current.trendMinVisits,
       trendMinSpanDays: dto.trendMinSpanDays ?? current.trendMinSpanDays,
+      blindedReview: dto.blindedReview ?? current.blindedReview,
       updatedAt: nowIso(),
     };
-    return this.save(caller, current, next);
+    if (next.blindedReview !== current.blindedReview && dto.reason === undefined) {
+      throw studiesError(
+        StudiesError.ReasonRequired,
+        `reason: turning blinded review ${next.blindedReview ? 'on' : 'off'} needs a reason of at least 10 characters`,
+        { field: 'reason' },
+      );
+    }
+    return this.save(caller, current, next, dto.reason);
   }
 
-  private save(caller: Caller, before: Study | null, study: Study): Promise<StudyView> {
+  private save(
+    caller: Caller,
+    before: Study | null,
+    study: Study,
+    reason?: string,
+  ): Promise<StudyView> {
     return this.audited.save(caller, {
       entity: Study,
       objectType: 'Study',
+      reason,
       before,
       row: study,
       scope: (row) => ({ studyId: row.id, siteId: null }),

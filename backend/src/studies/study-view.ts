@@ -9,6 +9,7 @@ export function toStudyView(study: Study): StudyView {
     description: study.description,
     trendMinVisits: study.trendMinVisits,
     trendMinSpanDays: study.trendMinSpanDays,
+    blindedReview: study.blindedReview,
     createdAt: study.createdAt,
     updatedAt: study.updatedAt,
   };

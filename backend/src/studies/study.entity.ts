@@ -12,6 +12,9 @@ export class Study {
 
   /** …spanning at least this many days. */
   @Column('integer') trendMinSpanDays: number;
+
+  /** Blinded review: analysts see visits under codes until they record their decision. */
+  @Column('boolean', { default: false }) blindedReview: boolean;
   @Column('varchar') createdAt: string;
   @Column('varchar') updatedAt: string;
 }

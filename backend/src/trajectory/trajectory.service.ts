@@ -2,6 +2,7 @@ import { Injectable } from '@nestjs/common';
 import type { TrajectoryView, TrajectoryVisitView, TrendView } from '@gyre/shared';
 import { AnalysisRunsService, type RunNumbers } from '../analysis/analysis-runs.service';
 import type { Caller } from '../auth/decorators';
+import { BlindingService } from '../blinding/blinding.service';
 import { TrajectoryError, trajectoryError } from './trajectory.errors';
 import { TrajectoryInputs } from './trajectory-inputs';
 import { trendOf } from './trend-rule';
@@ -20,6 +21,7 @@ export class TrajectoryService {
     private readonly runs: AnalysisRunsService,
     // Participant, visits, flags and trend rule by prepared statements (a hot route).
     private readonly inputs: TrajectoryInputs,
+    private readonly blinding: BlindingService,
   ) {}
 
   async forParticipant(caller: Caller, participantId: string): Promise<TrajectoryView> {
@@ -31,7 +33,10 @@ export class TrajectoryService {
         { participantId },
       );
     }
-    const visits = this.inputs.visitsOf(participantId);
+    // Blinded review: an analyst's course holds only the visits they recorded their decision on.
+    const unblinded = await this.blinding.unblindedVisitIds(caller);
+    const shown = unblinded === null ? null : new Set(unblinded);
+    const visits = this.inputs.visitsOf(participantId).filter((v) => shown?.has(v.id) ?? true);
     const visitIds = visits.map((v) => v.id);
     // Headline columns only: whole rows would carry every run's packed curves.
     const runs = await this.runs.currentRunNumbersOfVisits(visitIds);

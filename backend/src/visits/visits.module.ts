@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { BlindingModule } from '../blinding/blinding.module';
 import { ParticipantsModule } from '../participants/participants.module';
 import { ScheduleModule } from '../schedule/schedule.module';
 import { StudiesModule } from '../studies/studies.module';
@@ -10,7 +11,13 @@ import { VisitsController } from './visits.controller';
 import { VisitsService } from './visits.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Visit]), ParticipantsModule, ScheduleModule, StudiesModule],
+  imports: [
+    TypeOrmModule.forFeature([Visit]),
+    ParticipantsModule,
+    ScheduleModule,
+    StudiesModule,
+    BlindingModule,
+  ],
   controllers: [VisitsController, DueVisitsController],
   providers: [VisitsService, DueVisitsService],
   exports: [VisitsService, ParticipantsModule],

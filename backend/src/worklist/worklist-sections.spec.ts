@@ -1,7 +1,13 @@
 import type { VisitReviewView } from '@gyre/shared';
 import type { Flag } from '../flags/flag.entity';
 import { reviewFingerprintOf } from '../visit-reviews/review-fingerprint';
-import { reviewSections, signedHz, sortItems, uploadSections } from './worklist-sections';
+import {
+  reviewSections,
+  shownItem,
+  signedHz,
+  sortItems,
+  uploadSections,
+} from './worklist-sections';
 import type { CurrentRecordingRow, UploadRow, VisitFacts } from './worklist-sources';
 
 // Generated rows: the expectations follow the rules written in the issue ("visits whose
@@ -225,6 +231,34 @@ describe('sorting and wording', () => {
     expect(sortItems(items, 'oldest').map((i) => i.visitId)).toEqual(['v3', 'v2', 'v1']);
     expect(sortItems(items, 'newest').map((i) => i.visitId)).toEqual(['v1', 'v2', 'v3']);
     expect(sortItems(items, 'participant').map((i) => i.visitId)).toEqual(['v1', 'v2', 'v3']);
+  });
+
+  it('shows a blinded visit under its code only, sorted after the others by participant', () => {
+    const items = [3, 1, 2].map(
+      (n) =>
+        reviewSections({
+          recordings: [rec(n, 'resting')],
+          reports: [],
+          reviews: new Map(),
+          flags: [],
+        }).unreviewed![0],
+    );
+    const codes = new Map([['v1', 'B-7KQ2']]);
+    const shown = items.map((i) => shownItem(i, codes));
+    const blinded = shown.find((i) => i.visitId === 'v1');
+    expect(blinded).toMatchObject({
+      blindCode: 'B-7KQ2',
+      visitLabel: 'B-7KQ2',
+      visitDate: null,
+      schedule: null,
+      participantId: null,
+      participantCode: null,
+      link: { screen: 'review', visitId: 'v1', participantId: null },
+    });
+    // Nothing of the visit but its id, its code and what waits is left in the item.
+    expect(JSON.stringify(blinded)).not.toMatch(/GY-1|2026-01-15|"p1"/);
+    expect(shown.find((i) => i.visitId === 'v2')).toEqual(items.find((i) => i.visitId === 'v2'));
+    expect(sortItems(shown, 'participant').map((i) => i.visitId)).toEqual(['v2', 'v3', 'v1']);
   });
 
   it('writes Hz with a true minus sign, and no sign for what rounds to zero', () => {

@@ -6,6 +6,7 @@ import type {
   WorklistSort,
 } from '@gyre/shared';
 import { formatDeltaHz } from '@gyre/shared';
+import { shownVisitFacts } from '../blinding/blinded-visit-facts';
 import type { Flag } from '../flags/flag.entity';
 import { reviewFingerprintOf } from '../visit-reviews/review-fingerprint';
 import type { ReportHead } from '../signoff/report-heads.reads';
@@ -59,6 +60,7 @@ function item(
     visitLabel: facts.visitLabel,
     visitDate: facts.visitDate,
     schedule: facts.schedule,
+    blindCode: null,
     siteId: facts.siteId,
     kind: extra.kind ?? null,
     recordingId: extra.recordingId ?? null,
@@ -309,11 +311,26 @@ export function uploadSections(input: UploadInput): SectionItems {
   return { rejected, warnings, missingKinds, failed };
 }
 
-/** Oldest first (whatever waits longest), newest first, or by participant code then visit date. */
+/**
+ * The item as the caller may see it: under blinded review, a visit blinded for the caller
+ * (`codes`: visit id → code) shows its code only, its link no participant.
+ */
+export function shownItem(item: WorklistItem, codes: ReadonlyMap<string, string>): WorklistItem {
+  const code = codes.get(item.visitId) ?? null;
+  if (code === null) return item;
+  return { ...shownVisitFacts(item, code), link: { ...item.link, participantId: null } };
+}
+
+/**
+ * Oldest first (whatever waits longest), newest first, or by participant code then visit date;
+ * blinded items (no participant, no date) by their code, after the others.
+ */
 export function sortItems(items: WorklistItem[], sort: WorklistSort): WorklistItem[] {
   const byCode = (a: WorklistItem, b: WorklistItem) =>
-    a.participantCode.localeCompare(b.participantCode) ||
-    a.visitDate.localeCompare(b.visitDate) ||
+    Number(a.blindCode !== null) - Number(b.blindCode !== null) ||
+    (a.participantCode ?? '').localeCompare(b.participantCode ?? '') ||
+    (a.visitDate ?? '').localeCompare(b.visitDate ?? '') ||
+    a.visitLabel.localeCompare(b.visitLabel) ||
     a.key.localeCompare(b.key);
   const compare =
     sort === 'participant'

@@ -1,4 +1,5 @@
 import { Module } from '@nestjs/common';
+import { BlindingModule } from '../blinding/blinding.module';
 import { FlagsModule } from '../flags/flags.module';
 import { VisitReviewsModule } from '../visit-reviews/visit-reviews.module';
 import { WorklistController } from './worklist.controller';
@@ -6,7 +7,7 @@ import { WorklistService } from './worklist.service';
 import { WorklistSources } from './worklist-sources';
 
 @Module({
-  imports: [FlagsModule, VisitReviewsModule],
+  imports: [FlagsModule, VisitReviewsModule, BlindingModule],
   controllers: [WorklistController],
   providers: [WorklistService, WorklistSources],
 })

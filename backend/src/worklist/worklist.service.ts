@@ -11,12 +11,14 @@ import { WorklistError, worklistError } from './worklist.errors';
 import { nowIso } from '../common/time';
 import { FlagsService } from '../flags/flags.service';
 import type { Flag } from '../flags/flag.entity';
+import { BlindingService } from '../blinding/blinding.service';
 import { VisitReviewsService } from '../visit-reviews/visit-reviews.service';
 import { WorklistQueryDto } from './dto/worklist-query.dto';
 import {
   reviewSections,
   SECTION_TITLES,
   SectionItems,
+  shownItem,
   sortItems,
   uploadSections,
 } from './worklist-sections';
@@ -33,6 +35,7 @@ export class WorklistService {
     private readonly sources: WorklistSources,
     private readonly reviews: VisitReviewsService,
     private readonly flags: FlagsService,
+    private readonly blinding: BlindingService,
   ) {}
 
   async forCaller(caller: Caller, query: WorklistQueryDto): Promise<WorklistView> {
@@ -47,7 +50,9 @@ export class WorklistService {
       );
     }
     const items =
-      kind === 'review' ? await this.reviewItems(caller) : await this.uploadItems(caller);
+      kind === 'review'
+        ? await this.shown(caller, await this.reviewItems(caller))
+        : await this.uploadItems(caller);
     const sort = query.sort ?? 'oldest';
     const limit = query.limit ?? WORKLIST_DEFAULT_LIMIT;
     const offset = query.offset ?? 0;
@@ -91,6 +96,16 @@ export class WorklistService {
       flags.push(...(await this.flags.forVisits(suggesting.slice(i, i + CHUNK))));
     }
     return reviewSections({ recordings, reports, reviews, flags });
+  }
+
+  /** Blinded review: each item of a visit blinded for the caller under its code (before sorting). */
+  private async shown(caller: Caller, items: SectionItems): Promise<SectionItems> {
+    const all = Object.values(items).flat();
+    const codes = await this.blinding.blindedCodes(caller, [...new Set(all.map((i) => i.visitId))]);
+    if (codes.size === 0) return items;
+    return Object.fromEntries(
+      Object.entries(items).map(([key, list]) => [key, list.map((i) => shownItem(i, codes))]),
+    );
   }
 
   private async uploadItems(caller: Caller): Promise<SectionItems> {

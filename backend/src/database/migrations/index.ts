@@ -14,6 +14,7 @@ import { CalibrationRuns1764700800000 } from './1764700800000-calibration-runs';
 import { AnalysisDepthSettings1764701000000 } from './1764701000000-analysis-depth-settings';
 import { RecordingLineFrequency1764700900000 } from './1764700900000-recording-line-frequency';
 import { BidsImportFiles1764700700000 } from './1764700700000-bids-import-files';
+import { BlindedReview1764701100000 } from './1764701100000-blinded-review';
 
 /** Every migration in order; add new ones at the end (see DEVELOPERS.md). */
 export const MIGRATIONS = [
@@ -33,4 +34,5 @@ export const MIGRATIONS = [
   CalibrationRuns1764700800000,
   RecordingLineFrequency1764700900000,
   AnalysisDepthSettings1764701000000,
+  BlindedReview1764701100000,
 ];

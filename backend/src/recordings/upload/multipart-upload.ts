@@ -261,7 +261,7 @@ function messageOf(error: unknown): string {
  * read the whole form. Unlike `pipeline`, a parser failure does not destroy the request, so
  * the socket stays open for the 400 (the caller drains the rest of the body).
  */
-async function parseBody(request: IncomingMessage, parser: Writable): Promise<Error | null> {
+export async function parseBody(request: IncomingMessage, parser: Writable): Promise<Error | null> {
   request.once('error', (error) => parser.destroy(error));
   request.once('close', () => {
     if (!request.complete) parser.destroy(new Error('the request ended before its body did'));

@@ -1,5 +1,6 @@
 import { ApiProperty, ApiPropertyOptional, PartialType } from '@nestjs/swagger';
 import {
+  IsBoolean,
   IsInt,
   IsNotEmpty,
   IsOptional,
@@ -8,7 +9,9 @@ import {
   Max,
   MaxLength,
   Min,
+  MinLength,
 } from 'class-validator';
+import { Transform } from 'class-transformer';
 import {
   DEFAULT_TREND_MIN_SPAN_DAYS,
   DEFAULT_TREND_MIN_VISITS,
@@ -55,9 +58,28 @@ export class CreateStudyDto {
   @Min(0)
   @Max(3650)
   trendMinSpanDays?: number;
+
+  @ApiPropertyOptional({
+    default: false,
+    description: 'Blinded review: analysts see visits under codes until they record their decision',
+  })
+  @IsOptional()
+  @IsBoolean()
+  blindedReview?: boolean;
 }
 
-export class UpdateStudyDto extends PartialType(CreateStudyDto) {}
+export class UpdateStudyDto extends PartialType(CreateStudyDto) {
+  @ApiPropertyOptional({
+    minLength: 10,
+    description: 'Why (kept in the audit trail); required when blindedReview changes',
+  })
+  @IsOptional()
+  @Transform(({ value }: { value: unknown }) => (typeof value === 'string' ? value.trim() : value))
+  @IsString()
+  @MinLength(10)
+  @MaxLength(2000)
+  reason?: string;
+}
 
 export const STUDY_SORT_FIELDS = ['code', 'name', 'createdAt'] as const;
 

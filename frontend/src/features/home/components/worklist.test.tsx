@@ -86,6 +86,33 @@ describe('the home worklist', { timeout: 30_000 }, () => {
     expect(paged?.get('limit')).toBe('8');
   });
 
+  it('shows a blinded visit under its code only, with the blinded-review notice', async () => {
+    const blinded = worklistItem(3, {
+      participantId: null,
+      participantCode: null,
+      visitLabel: 'B-7KQ2',
+      visitDate: null,
+      schedule: null,
+      blindCode: 'B-7KQ2',
+      link: { screen: 'review', participantId: null, visitId: 'visit-3' },
+    });
+    serveWorklist(() => {
+      const list = reviewWorklist(false);
+      const [first, ...rest] = list.sections;
+      return { ...list, sections: [{ ...first, total: 1, items: [blinded] }, ...rest] };
+    });
+    const list = await openHome('analyst');
+    const unreviewed = await within(list).findByRole('generic', { name: 'Results not reviewed' });
+    const link = within(unreviewed).getByRole('link', { name: 'Visit B-7KQ2' });
+    expect(link).toHaveAttribute('href', '/review/visit-3');
+    expect(within(unreviewed).getByText('Blinded')).toBeInTheDocument();
+    expect(within(unreviewed).queryByText(/GY-0003|Month 6/)).toBeNull();
+    const notice = screen.getByRole('note', { name: 'Blinded review' });
+    expect(notice).toHaveTextContent(
+      'Blinded review: visit details hidden until you record your decision.',
+    );
+  });
+
   it('tells a monitor the list is to follow, not to act on', async () => {
     serveWorklist(() => reviewWorklist(true));
     await openHome('monitor');

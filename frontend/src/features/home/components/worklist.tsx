@@ -1,9 +1,21 @@
 import type { WorklistItem, WorklistSection, WorklistSort } from '@gyre/shared';
-import { Badge, Card, Col, Flex, Pagination, Row, Segmented, Skeleton, Typography } from 'antd';
+import {
+  Badge,
+  Card,
+  Col,
+  Flex,
+  Pagination,
+  Row,
+  Segmented,
+  Skeleton,
+  Tag,
+  Typography,
+} from 'antd';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { GYRE_COLORS } from '../../../app/theme';
+import { BlindedReviewNotice } from '../../../components/blinded-review-notice';
 import { ErrorState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { VisitWindowTag } from '../../../components/visit-window-tag';
@@ -21,7 +33,9 @@ const SORT_OPTIONS: { value: WorklistSort; label: string }[] = [
 
 /** Where an item leads: the visit's Review, or Intake with the participant and visit chosen. */
 export function linkOf(item: WorklistItem): string {
-  if (item.link.screen === 'review') return paths.review(item.link.visitId);
+  if (item.link.screen === 'review' || item.link.participantId === null) {
+    return paths.review(item.link.visitId);
+  }
   const search = new URLSearchParams({
     participant: item.link.participantId,
     visit: item.link.visitId,
@@ -36,7 +50,9 @@ function ItemRow({ item }: { item: WorklistItem }) {
       <Flex vertical gap={2} style={{ minWidth: 0 }}>
         <Flex wrap gap={8} justify="space-between" align="baseline">
           <Link to={linkOf(item)} style={{ fontWeight: 600 }}>
-            {item.participantCode} · {item.visitLabel}
+            {item.blindCode !== null
+              ? `Visit ${item.blindCode}`
+              : `${item.participantCode ?? ''} · ${item.visitLabel}`}
           </Link>
           <Typography.Text
             type="secondary"
@@ -48,7 +64,11 @@ function ItemRow({ item }: { item: WorklistItem }) {
           </Typography.Text>
         </Flex>
         <Flex wrap gap={8} align="baseline">
-          <VisitWindowTag schedule={item.schedule} />
+          {item.schedule !== null ? (
+            <VisitWindowTag schedule={item.schedule} />
+          ) : (
+            <Tag>Blinded</Tag>
+          )}
           <Typography.Text style={{ overflowWrap: 'anywhere', flex: '1 1 12em', minWidth: 0 }}>
             {item.what}
           </Typography.Text>
@@ -145,6 +165,7 @@ export function Worklist() {
   }
   const data = list.data;
   const waiting = data?.sections.reduce((sum, s) => sum + s.total, 0) ?? 0;
+  const blinded = data?.sections.some((s) => s.items.some((i) => i.blindCode !== null)) ?? false;
   return (
     <section aria-label="Worklist">
       {data?.kind === 'review' && <ResearchCaution />}
@@ -172,6 +193,9 @@ export function Worklist() {
                   ? 'What waits for the analysts in the study. You follow it here; marking visits reviewed is for analysts.'
                   : 'What waits for you in the study. Open an item to review it.'}
           </Typography.Paragraph>
+          {blinded && (
+            <BlindedReviewNotice description="Visits you have not decided on show their code only: no date, planned visit, group or participant. Record a flag or “no flag” with a reason in Review to see them." />
+          )}
           <Row gutter={[16, 16]}>
             {data.sections.map((section) => (
               <Col key={section.key} xs={24} lg={12}>

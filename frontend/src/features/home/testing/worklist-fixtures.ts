@@ -21,6 +21,7 @@ export function worklistItem(n: number, extra: Partial<WorklistItem> = {}): Work
       daysFromTarget: n % 2 === 1 ? 8 : 2,
       window: n % 2 === 1 ? 'late' : 'in',
     },
+    blindCode: null,
     siteId: SITE.id,
     kind: null,
     recordingId: null,

@@ -49,6 +49,22 @@ describe('entrySentence', () => {
     expect(sentence.target).toEqual({ label: 'A1-0001 · V2', to: '/review/v-1' });
   });
 
+  it('reads an unblinding with the code, the visit, the decision and its reason', () => {
+    const sentence = entrySentence(
+      entry({
+        action: 'unblind',
+        objectType: 'Visit',
+        after: { code: 'B-7KQ2', blinded: false, decision: 'noFlag', flagId: null },
+        reason: 'PAF steady, nothing to flag',
+      }),
+      everywhere,
+    );
+    expect(sentenceText(sentence)).toBe(
+      'Ana Lyst unblinded visit B-7KQ2 (A1-0001 · V2): for themselves after recording the decision, no flag: PAF steady, nothing to flag',
+    );
+    expect(sentence.target?.to).toBe('/review/v-1');
+  });
+
   it("reads a calibration run's start and outcome with the site, linked to Site check", () => {
     const start = entrySentence(
       entry({ action: 'start', objectType: 'Calibration', after: { siteCode: 'NORTH' } }),

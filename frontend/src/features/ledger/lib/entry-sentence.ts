@@ -195,6 +195,17 @@ export function entrySentence(
     case 'VisitAnalysisOverride':
       return sentence('changed the analysis settings of', visitTarget(), settingsChanges(entry));
     case 'Visit':
+      if (entry.action === 'unblind') {
+        // Blinded review: the decision ("flag" / "noFlag") and its reason, after the visit.
+        const decision = field(entry.after, 'decision') === 'flag' ? 'a flag' : 'no flag';
+        const code = text(field(entry.after, 'code'));
+        const target = visitTarget();
+        return sentence(
+          'unblinded visit',
+          { ...target, label: code === null ? target.label : `${code} (${target.label})` },
+          `for themselves after recording the decision, ${decision}: ${entry.reason ?? ''}`,
+        );
+      }
       if (entry.action === 'create' || entry.action === 'update') {
         return sentence(
           entry.action === 'create' ? 'added the visit' : 'changed the visit',

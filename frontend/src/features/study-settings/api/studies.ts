@@ -9,11 +9,26 @@ export interface TrendSettings {
   trendMinSpanDays: number;
 }
 
+/** The blinded-review switch with the reason the audit trail keeps. */
+export interface BlindedReviewChange {
+  blindedReview: boolean;
+  reason: string;
+}
+
 /** `PATCH /api/studies/:id` with the trend settings (admin). */
 export function useUpdateTrendSettings() {
+  return useStudyPatch<TrendSettings>();
+}
+
+/** `PATCH /api/studies/:id` turning blinded review on or off, with a reason (admin). */
+export function useUpdateBlindedReview() {
+  return useStudyPatch<BlindedReviewChange>();
+}
+
+function useStudyPatch<Change extends object>() {
   const { mutate } = useSWRConfig();
   return useCallback(
-    async (id: string, settings: TrendSettings) => {
+    async (id: string, settings: Change) => {
       const saved = await apiSend<StudyView>(studyKey(id), 'PATCH', settings);
       await mutate(studyKey(id), saved, { revalidate: false });
       await mutate(studiesKey);

@@ -132,6 +132,31 @@ describe('Study set-up (admin)', { timeout: 60_000 }, () => {
     );
   });
 
+  it('turns blinded review on only with a reason', async () => {
+    const state = serveSetup();
+    renderApp('/study-setup', meFor('admin'));
+    const section = await screen.findByRole(
+      'region',
+      { name: 'Blinded review' },
+      { timeout: 15_000 },
+    );
+    const save = within(section).getByRole('button', { name: 'Save blinded review' });
+    expect(save).toBeDisabled();
+    await userEvent.click(within(section).getByRole('switch'));
+    await userEvent.click(save);
+    expect(await within(section).findByText('Give a reason.')).toBeInTheDocument();
+    expect(state.patched).toEqual([]);
+    await userEvent.click(within(section).getByLabelText('Reason for the change'));
+    await userEvent.paste('Analysts must not know the arm');
+    await userEvent.click(save);
+    await waitFor(() =>
+      expect(state.patched).toEqual([
+        { blindedReview: true, reason: 'Analysts must not know the arm' },
+      ]),
+    );
+    expect(await within(section).findByRole('switch')).toBeChecked();
+  });
+
   it('keeps the schedule readable at phone width', async () => {
     setViewportWidth(PHONE_WIDTH_PX);
     serveSetup();

@@ -6,6 +6,7 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/page-s
 import { useStudies, useStudy } from '../../../lib/studies';
 import { GroupsSection } from './groups-section';
 import { TrendSettingsSection } from './trend-settings-section';
+import { BlindedReviewSection } from './blinded-review-section';
 import { VisitScheduleSection } from './visit-schedule-section';
 
 /**
@@ -79,6 +80,9 @@ export function StudySetupPage() {
               <GroupsSection key={studyId} studyId={studyId} canManage={canManage} />
               {study.data !== undefined && (
                 <TrendSettingsSection study={study.data} canManage={canManage} />
+              )}
+              {study.data !== undefined && (
+                <BlindedReviewSection study={study.data} canManage={canManage} />
               )}
             </Space20>
           </Col>

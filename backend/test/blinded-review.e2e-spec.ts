@@ -1,0 +1,399 @@
+/**
+ * Blinded review through the API on a real SQLite file: the study setting (admin, audited with
+ * a reason), what a blinded analyst's worklist and Review answers hold (asserted on the raw
+ * JSON text, so nothing hidden can hide in a field the assertions did not name), the decision
+ * that unblinds a visit for that analyst alone, its audit entry and the monitor's Ledger.
+ * The rules under test are Gyre's own (docs/user-guide.md, "Blinded review"); "the answer holds
+ * none of these strings" is common practice for checking that a field never leaves the server.
+ */
+import { randomUUID } from 'node:crypto';
+import request from 'supertest';
+import type {
+  AuditEntryView,
+  RecordingView,
+  StudyView,
+  VisitBlindingView,
+  WorklistItem,
+  WorklistView,
+} from '@gyre/shared';
+import { auditEntries } from './helpers/audit-entries';
+import { SEED_PASSWORD, type UserKey } from './helpers/seed';
+import { startTestApp, TestApp } from './helpers/test-app';
+import { syntheticRestEdf, upload, waitForState } from './recordings-fixtures';
+
+/** Invented names and dates that only the hidden fields carry (none occurs anywhere else). */
+const PLANNED_NAME = 'Quokka follow-up';
+const GROUP_NAME = 'Heliotrope arm';
+const VISIT_DATE = '2026-01-15';
+const OTHER_VISIT_DATE = '2025-07-21';
+const ENROLMENT_DATE = '2025-07-20';
+const CODE_PATTERN = /^B-[2-9A-HJKMNP-Z]{4}$/;
+
+type Header = { Authorization: string };
+
+describe('blinded review', () => {
+  let t: TestApp;
+  let visitId: string;
+  let otherVisitId: string;
+  let participantCode: string;
+  let restId: string;
+  /** A second analyst of study A, made for this test (the seed has one per study). */
+  let secondAnalyst: Header;
+
+  const as = async (user: UserKey): Promise<Header> => t.authHeader(user);
+
+  async function get(header: Header, path: string, status = 200): Promise<request.Response> {
+    const response = await request(t.url).get(path).set(header);
+    expect({ path, status: response.status }).toEqual({ path, status });
+    return response;
+  }
+
+  async function worklist(header: Header): Promise<WorklistView> {
+    return (await get(header, '/api/worklist')).body as WorklistView;
+  }
+
+  const itemsOf = (list: WorklistView): WorklistItem[] =>
+    list.sections.flatMap((s) => s.items).filter((i) => i.visitId === visitId);
+
+  async function setBlinded(on: boolean, reason?: string): Promise<request.Response> {
+    return request(t.url)
+      .patch(`/api/studies/${t.seed.studies.A.id}`)
+      .set(await as('admin'))
+      .send(reason === undefined ? { blindedReview: on } : { blindedReview: on, reason });
+  }
+
+  /** The raw text of every answer Review reads for the visit, as the analyst gets them. */
+  async function reviewAnswers(header: Header): Promise<string> {
+    const paths = [
+      `/api/worklist`,
+      `/api/visits/${visitId}/blinding`,
+      `/api/recordings?visitId=${visitId}`,
+      `/api/recordings/${restId}`,
+      `/api/recordings/${restId}/results`,
+      `/api/visits/${visitId}/flag`,
+      `/api/visits/${visitId}/review`,
+      `/api/visits/${visitId}/report`,
+      `/api/visits?participantId=${t.seed.participants.A1.id}`,
+    ];
+    const texts: string[] = [];
+    for (const path of paths) texts.push((await get(header, path)).text);
+    return texts.join('\n');
+  }
+
+  function expectNothingHidden(text: string): void {
+    for (const hidden of [
+      VISIT_DATE,
+      OTHER_VISIT_DATE,
+      ENROLMENT_DATE,
+      PLANNED_NAME,
+      GROUP_NAME,
+      participantCode,
+      otherVisitId,
+      'upload-2026-01-15',
+    ]) {
+      expect({ hidden, found: text.includes(hidden) }).toEqual({ hidden, found: false });
+    }
+  }
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    const study = t.seed.studies.A;
+    const participant = t.seed.participants.A1;
+    visitId = t.seed.visits.A1.id;
+    participantCode = participant.code;
+    const at = new Date().toISOString();
+    // The study's schedule and arm, and a second visit of the participant, written straight in.
+    const plannedId = randomUUID();
+    const groupId = randomUUID();
+    otherVisitId = randomUUID();
+    await t.dataSource.query(
+      `INSERT INTO "planned_visit" ("id","studyId","name","targetDay","windowBeforeDays","windowAfterDays","position","createdAt","updatedAt")
+       VALUES (?,?,?,?,?,?,?,?,?)`,
+      [plannedId, study.id, PLANNED_NAME, 180, 14, 14, 1, at, at],
+    );
+    await t.dataSource.query(
+      `INSERT INTO "study_group" ("id","studyId","name","description","createdAt","updatedAt") VALUES (?,?,?,?,?,?)`,
+      [groupId, study.id, GROUP_NAME, '', at, at],
+    );
+    await t.dataSource.query(
+      `UPDATE "participant" SET "groupId" = ?, "enrolmentDate" = ? WHERE "id" = ?`,
+      [groupId, ENROLMENT_DATE, participant.id],
+    );
+    await t.dataSource.query(
+      `UPDATE "visit" SET "plannedVisitId" = ?, "label" = ? WHERE "id" = ?`,
+      [plannedId, PLANNED_NAME, visitId],
+    );
+    await t.dataSource.query(
+      `INSERT INTO "visit" ("id","participantId","studyId","siteId","label","plannedVisitId","visitDate","createdAt","updatedAt")
+       VALUES (?,?,?,?,?,?,?,?,?)`,
+      [
+        otherVisitId,
+        participant.id,
+        study.id,
+        participant.siteId,
+        'Baseline',
+        null,
+        OTHER_VISIT_DATE,
+        at,
+        at,
+      ],
+    );
+    // A second analyst of study A: the seeded analyst's row under a new id and address.
+    const secondId = randomUUID();
+    await t.dataSource.query(
+      `INSERT INTO "user" ("id", "email", "name", "role", "studyId", "siteId", "passwordHash", "state",
+         "failedSignIns", "lockedUntil", "lastSignInAt", "passwordChangedAt", "createdAt", "updatedAt")
+       SELECT ?, ?, "name" || ' Second', "role", "studyId", "siteId", "passwordHash", "state",
+         "failedSignIns", "lockedUntil", "lastSignInAt", "passwordChangedAt", "createdAt", "updatedAt"
+       FROM "user" WHERE "id" = ?`,
+      [secondId, 'second.analyst@example.org', t.seed.users.analyst.id],
+    );
+    const signIn = await request(t.url)
+      .post('/api/auth/sign-in')
+      .send({ email: 'second.analyst@example.org', password: SEED_PASSWORD });
+    expect(signIn.status).toBe(200);
+    secondAnalyst = {
+      Authorization: `Bearer ${(signIn.body as { accessToken: string }).accessToken}`,
+    };
+    // One computed recording, uploaded under a file name that carries the visit date.
+    const rest = await upload(t, 'technician', visitId, {
+      kind: 'resting',
+      bytes: syntheticRestEdf({ peakHz: 10, seed: 7 }),
+      fileName: 'upload-2026-01-15.edf',
+    });
+    expect(rest.status).toBe(201);
+    restId = (rest.body as RecordingView).id;
+    await waitForState(t, 'technician', restId, ['ready']);
+    await t.computationsIdle();
+  }, 120_000);
+  afterAll(async () => {
+    await t.close();
+  });
+
+  it('is off by default: the analyst sees the visit as it is', async () => {
+    const study = (await get(await as('analyst'), `/api/studies/${t.seed.studies.A.id}`))
+      .body as StudyView;
+    expect(study.blindedReview).toBe(false);
+    const [item] = itemsOf(await worklist(await as('analyst')));
+    expect(item).toMatchObject({
+      participantCode,
+      visitLabel: PLANNED_NAME,
+      visitDate: VISIT_DATE,
+      blindCode: null,
+    });
+    const blinding = (await get(await as('analyst'), `/api/visits/${visitId}/blinding`))
+      .body as VisitBlindingView;
+    expect(blinding).toEqual({
+      visitId,
+      studyId: t.seed.studies.A.id,
+      code: null,
+      blinded: false,
+      decision: null,
+    });
+    const recording = (await get(await as('analyst'), `/api/recordings/${restId}`))
+      .body as RecordingView;
+    expect(recording.fileName).toBe('upload-2026-01-15.edf');
+  });
+
+  it('is switched by an admin only, with a reason, and audited', async () => {
+    const noReason = await setBlinded(true);
+    expect(noReason.status).toBe(400);
+    expect(JSON.stringify(noReason.body)).toMatch(/reason/);
+    const byAnalyst = await request(t.url)
+      .patch(`/api/studies/${t.seed.studies.A.id}`)
+      .set(await as('analyst'))
+      .send({ blindedReview: true, reason: 'Analysts should not know the arm' });
+    expect(byAnalyst.status).toBe(403);
+    const on = await setBlinded(true, 'Analysts should not know the arm');
+    expect(on.status).toBe(200);
+    expect((on.body as StudyView).blindedReview).toBe(true);
+    const [entry] = (await auditEntries(t, 'monitor', { objectType: 'Study', action: 'update' }))
+      .items;
+    expect(entry).toMatchObject({
+      objectId: t.seed.studies.A.id,
+      reason: 'Analysts should not know the arm',
+      before: expect.objectContaining({ blindedReview: false }) as unknown,
+      after: expect.objectContaining({ blindedReview: true }) as unknown,
+    });
+  });
+
+  it("hides the visit's date, planned visit, group and other visits from the analyst", async () => {
+    const analyst = await as('analyst');
+    const text = await reviewAnswers(analyst);
+    expectNothingHidden(text);
+    const [item] = itemsOf(await worklist(analyst));
+    expect(item.blindCode).toMatch(CODE_PATTERN);
+    expect(item).toMatchObject({
+      visitLabel: item.blindCode,
+      visitDate: null,
+      schedule: null,
+      participantId: null,
+      participantCode: null,
+      link: { screen: 'review', visitId, participantId: null },
+    });
+    // The participant's list row and course hold none of the visits the analyst has not decided on.
+    const participantId = t.seed.participants.A1.id;
+    for (const path of ['/api/participants', `/api/participants/${participantId}/trajectory`]) {
+      const answer = (await get(analyst, path)).text;
+      for (const hidden of [VISIT_DATE, OTHER_VISIT_DATE, PLANNED_NAME, visitId, otherVisitId]) {
+        expect({ path, hidden, found: answer.includes(hidden) }).toEqual({
+          path,
+          hidden,
+          found: false,
+        });
+      }
+    }
+    // The visit's own view and the sign-off flow (which shows everything) are refused.
+    const visit = await get(analyst, `/api/visits/${visitId}`, 403);
+    expect((visit.body as { code: string }).code).toBe('BLINDING_VISIT_BLINDED');
+    await get(analyst, `/api/visits/${visitId}/report/sign-off`, 403);
+    // The code is stored: the same on every read, and the same for every analyst.
+    const again = itemsOf(await worklist(analyst))[0];
+    const second = itemsOf(await worklist(secondAnalyst))[0];
+    expect([again.blindCode, second.blindCode]).toEqual([item.blindCode, item.blindCode]);
+    const [stored] = (await t.dataSource.query(
+      `SELECT "code" FROM "visit_blind_code" WHERE "visitId" = ?`,
+      [visitId],
+    )) as Array<{ code: string }>;
+    expect(stored.code).toBe(item.blindCode);
+  });
+
+  it('never blinds a technician or a monitor', async () => {
+    const monitor = await worklist(await as('monitor'));
+    expect(itemsOf(monitor)[0]).toMatchObject({
+      participantCode,
+      visitDate: VISIT_DATE,
+      blindCode: null,
+    });
+    const visit = await get(await as('monitor'), `/api/visits/${visitId}`);
+    expect(visit.text).toContain(VISIT_DATE);
+    const technicianVisit = await get(await as('technician'), `/api/visits/${visitId}`);
+    expect(technicianVisit.text).toContain(PLANNED_NAME);
+    const recording = (await get(await as('technician'), `/api/recordings/${restId}`))
+      .body as RecordingView;
+    expect(recording.fileName).toBe('upload-2026-01-15.edf');
+  });
+
+  it('refuses a decision without a reason, and from a monitor', async () => {
+    const short = await request(t.url)
+      .post(`/api/visits/${visitId}/blinding/decision`)
+      .set(await as('analyst'))
+      .send({ decision: 'noFlag', reason: 'fine' });
+    expect(short.status).toBe(400);
+    const wrong = await request(t.url)
+      .post(`/api/visits/${visitId}/blinding/decision`)
+      .set(await as('analyst'))
+      .send({ decision: 'maybe', reason: 'Nothing here to flag at all' });
+    expect(wrong.status).toBe(400);
+    const monitor = await request(t.url)
+      .post(`/api/visits/${visitId}/blinding/decision`)
+      .set(await as('monitor'))
+      .send({ decision: 'noFlag', reason: 'Nothing here to flag at all' });
+    expect(monitor.status).toBe(403);
+    const rows = (await t.dataSource.query(
+      `SELECT COUNT(*) AS n FROM "visit_unblinding"`,
+    )) as Array<{
+      n: number;
+    }>;
+    expect(rows[0].n).toBe(0);
+  });
+
+  it('unblinds the visit for the deciding analyst only, audited, listed in the Ledger', async () => {
+    const analyst = await as('analyst');
+    const code = itemsOf(await worklist(analyst))[0].blindCode;
+    const reason = 'PAF steady, no slowing to flag';
+    const decided = await request(t.url)
+      .post(`/api/visits/${visitId}/blinding/decision`)
+      .set(analyst)
+      .send({ decision: 'noFlag', reason });
+    expect(decided.status).toBe(201);
+    expect(decided.body as VisitBlindingView).toMatchObject({
+      visitId,
+      code,
+      blinded: false,
+      decision: { decision: 'noFlag', reason, flagId: null },
+    });
+    // That analyst now sees everything; the other analyst still sees the code only.
+    const [item] = itemsOf(await worklist(analyst));
+    expect(item).toMatchObject({
+      participantCode,
+      visitLabel: PLANNED_NAME,
+      visitDate: VISIT_DATE,
+      blindCode: null,
+    });
+    expect((await get(analyst, `/api/visits/${visitId}`)).text).toContain(VISIT_DATE);
+    expect(
+      (await get(analyst, `/api/visits?participantId=${t.seed.participants.A1.id}`)).text,
+    ).toContain(visitId);
+    await get(analyst, `/api/visits/${visitId}/report/sign-off`);
+    const course = await get(analyst, `/api/participants/${t.seed.participants.A1.id}/trajectory`);
+    expect(course.text).toContain(visitId);
+    expect(course.text).not.toContain(otherVisitId);
+    expectNothingHidden(await reviewAnswers(secondAnalyst));
+    // A second decision is refused and writes nothing.
+    const twice = await request(t.url)
+      .post(`/api/visits/${visitId}/blinding/decision`)
+      .set(analyst)
+      .send({ decision: 'flag', reason });
+    expect(twice.status).toBe(409);
+    const flags = (await t.dataSource.query(`SELECT COUNT(*) AS n FROM "flag"`)) as Array<{
+      n: number;
+    }>;
+    expect(flags[0].n).toBe(0);
+    // The audit row, and the monitor's Ledger answer with it.
+    const rows = (await t.dataSource.query(
+      `SELECT "actorId", "objectType", "objectId", "reason" FROM "audit_entry" WHERE "action" = 'unblind'`,
+    )) as Array<Record<string, string>>;
+    expect(rows).toEqual([
+      { actorId: t.seed.users.analyst.id, objectType: 'Visit', objectId: visitId, reason },
+    ]);
+    const ledger = await auditEntries(t, 'monitor', { action: 'unblind' });
+    expect(ledger.items).toHaveLength(1);
+    const entry: AuditEntryView = ledger.items[0];
+    expect(entry).toMatchObject({
+      actorId: t.seed.users.analyst.id,
+      objectType: 'Visit',
+      objectId: visitId,
+      reason,
+      after: expect.objectContaining({ code, blinded: false, decision: 'noFlag' }) as unknown,
+    });
+  });
+
+  it('raises the flag with a "flag" decision, in the same transaction as the unblinding', async () => {
+    const decided = await request(t.url)
+      .post(`/api/visits/${visitId}/blinding/decision`)
+      .set(secondAnalyst)
+      .send({ decision: 'flag', reason: 'ROI Δf below the threshold, CI excludes 0' });
+    expect(decided.status).toBe(201);
+    const view = decided.body as VisitBlindingView;
+    expect(view.blinded).toBe(false);
+    const flags = (await t.dataSource.query(
+      `SELECT "id", "raiseReason" FROM "flag" WHERE "visitId" = ?`,
+      [visitId],
+    )) as Array<{ id: string; raiseReason: string }>;
+    expect(flags).toEqual([
+      { id: view.decision?.flagId, raiseReason: 'ROI Δf below the threshold, CI excludes 0' },
+    ]);
+    const actions = (await auditEntries(t, 'monitor', { objectId: flags[0].id })).items.map(
+      (e) => e.action,
+    );
+    expect(actions).toEqual(['raise']);
+  });
+
+  it('shows everything as before once the setting is off', async () => {
+    expect((await setBlinded(false, 'Blinding period of the trial ended')).status).toBe(200);
+    const blinding = (await get(secondAnalyst, `/api/visits/${visitId}/blinding`))
+      .body as VisitBlindingView;
+    expect(blinding).toMatchObject({ code: null, blinded: false });
+    const [item] = itemsOf(await worklist(secondAnalyst));
+    expect(item).toMatchObject({ participantCode, visitDate: VISIT_DATE, blindCode: null });
+    expect((await get(secondAnalyst, `/api/visits/${otherVisitId}`)).text).toContain(
+      OTHER_VISIT_DATE,
+    );
+    const decision = await request(t.url)
+      .post(`/api/visits/${otherVisitId}/blinding/decision`)
+      .set(secondAnalyst)
+      .send({ decision: 'noFlag', reason: 'Nothing here to flag at all' });
+    expect(decision.status).toBe(409);
+  });
+});
