@@ -75,6 +75,31 @@ describe('analysis settings', () => {
       /reason must be longer than or equal to 10 characters/,
     ],
     ['an unknown method', { method: 'wavelet' }, /method must be one of/],
+    [
+      'an amplitude-gate percentile above 90',
+      { amplitudeGatePercentile: 95 },
+      /amplitudeGatePercentile: 95 found, off \(null\) or a percentile from 1 to 90/,
+    ],
+    [
+      'an amplitude-gate percentile that is not a number',
+      { amplitudeGatePercentile: 'high' },
+      /amplitudeGatePercentile must be a number/,
+    ],
+    [
+      'a zero disagreement threshold',
+      { cycleDisagreementHz: 0 },
+      /cycleDisagreementHz: 0 found, 0 < difference ≤ 2 Hz/,
+    ],
+    [
+      'the same condition twice',
+      { compareConditions: ['Faces', 'faces'] },
+      /compareConditions: \["Faces","faces"\] found, two different, non-empty onset labels/,
+    ],
+    [
+      'one condition instead of two',
+      { compareConditions: ['faces'] },
+      /compareConditions must contain at least 2 elements/,
+    ],
   ])('refuses %s (400, naming the field and value)', async (_name, change, message) => {
     const response = await request(t.url)
       .post(path)
@@ -98,6 +123,23 @@ describe('analysis settings', () => {
       bandHz: [7.5, 12.5],
       method: 'morlet',
       roi: ['O1', 'O2', 'Oz'],
+      amplitudeGatePercentile: 20,
+      cycleDisagreementHz: 0.15,
+      compareConditions: ['faces', 'houses'],
+    });
+    expect(created.changes).toEqual(
+      expect.arrayContaining([
+        { field: 'amplitudeGatePercentile', before: null, after: 20 },
+        { field: 'cycleDisagreementHz', before: 0.1, after: 0.15 },
+        { field: 'compareConditions', before: null, after: ['faces', 'houses'] },
+      ]),
+    );
+    const stored = await request(t.url).get(path).set(analyst);
+    expect(stored.body).toMatchObject({
+      version: 2,
+      amplitudeGatePercentile: 20,
+      cycleDisagreementHz: 0.15,
+      compareConditions: ['faces', 'houses'],
     });
     expect(created.createdById).toBe(t.seed.users.analyst.id);
 
@@ -117,11 +159,21 @@ describe('analysis settings', () => {
       reason: valid.reason,
       actorId: t.seed.users.analyst.id,
     });
-    expect(JSON.parse(entry.before)).toMatchObject({ version: 1, bandHz: null, method: 'filter' });
+    expect(JSON.parse(entry.before)).toMatchObject({
+      version: 1,
+      bandHz: null,
+      method: 'filter',
+      amplitudeGatePercentile: null,
+      cycleDisagreementHz: 0.1,
+      compareConditions: null,
+    });
     expect(JSON.parse(entry.after)).toMatchObject({
       version: 2,
       bandHz: [7.5, 12.5],
       method: 'morlet',
+      amplitudeGatePercentile: 20,
+      cycleDisagreementHz: 0.15,
+      compareConditions: ['faces', 'houses'],
     });
 
     const versions = await request(t.url)

@@ -41,6 +41,18 @@ function text(value: number | null | undefined, missing: string): string {
 /** What the results API says for one exported row. */
 function expectedOf(results: RecordingResultsView, row: Row) {
   const run = results.run;
+  if (row.measure === 'delta_f_cycles') {
+    const cycles = results.task?.cycles;
+    if (cycles === null || cycles === undefined) throw new Error('no cycle-by-cycle estimate');
+    return {
+      value: cycles.deltaFHz,
+      ci_low: cycles.ciHz?.[0] ?? null,
+      ci_high: cycles.ciHz?.[1] ?? null,
+      p_value: null,
+      trials_kept: cycles.trialsUsed,
+      trials_total: cycles.trialsTotal,
+    };
+  }
   if (row.scope === 'roi') {
     const value =
       row.measure === 'paf' ? run.pafHz : row.measure === 'cog' ? run.cogHz : run.roiDeltaFHz;
@@ -130,6 +142,58 @@ function listFiles(dir: string): string[] {
 const parseTsv = (content: string): Row[] =>
   parse(content, { delimiter: '\t', columns: true, quote: '"', relax_quotes: false });
 
+/**
+ * Conditions, their difference and the cycle-by-cycle estimate in the contract's shapes
+ * (shared/src/analysis-depth.ts), generated test data written into one stored task run: the
+ * exports must carry whatever the run holds, exactly.
+ */
+const DEPTH = {
+  conditions: [
+    {
+      label: 'Tone',
+      trialsKept: 9,
+      trialsTotal: 10,
+      baselineHz: 10.123456789,
+      postHz: 9.7,
+      deltaFHz: -0.423456789,
+      ciHz: [-0.61, -0.2345678],
+      pValue: 0.0039,
+    },
+    {
+      label: 'Word',
+      trialsKept: 10,
+      trialsTotal: 10,
+      baselineHz: 10.1,
+      postHz: 10.05,
+      deltaFHz: -0.05,
+      ciHz: [-0.2, 0.1],
+      pValue: 0.625,
+    },
+  ],
+  conditionDifference: {
+    first: 'Tone',
+    second: 'Word',
+    chosenBy: 'settings',
+    differenceHz: -0.373456789,
+    ciHz: [-0.6, -0.15],
+    pValue: 0.0048,
+    permutations: 5000,
+    seed: 20190815,
+  },
+  conditionCurves: [],
+  cycles: {
+    baselineHz: 10.08,
+    postHz: 9.9,
+    deltaFHz: -0.18,
+    ciHz: [-0.3, -0.05],
+    trialsUsed: 17,
+    trialsTotal: 19,
+    burstCycleShare: 0.6,
+    disagreementHz: 0.16,
+    disagrees: true,
+  },
+};
+
 describe('study results exports', () => {
   let t: TestApp;
   let studyA: string;
@@ -153,6 +217,29 @@ describe('study results exports', () => {
     const id = (response.body as RecordingView).id;
     await waitForState(t, user, id, ['ready']);
     recordingIds.push(id);
+  }
+
+  async function withDepth(recordingId: string): Promise<void> {
+    const [run] = (await t.dataSource.query(
+      `SELECT run."id", run."summaryJson", run."settingsJson" FROM "analysis_run" run
+       JOIN "recording" r ON r."latestRunId" = run."id" WHERE r."id" = ?`,
+      [recordingId],
+    )) as Array<{ id: string; summaryJson: string; settingsJson: string }>;
+    const summary = JSON.parse(run.summaryJson) as {
+      task: Record<string, unknown>;
+      channels: Array<Record<string, unknown>>;
+    };
+    Object.assign(summary.task, DEPTH);
+    summary.channels.forEach((channel, i) => {
+      channel.amplitudeGate = { percentile: 25, excludedSamples: 250 + i, totalSamples: 1000 };
+    });
+    const settings = JSON.parse(run.settingsJson) as Record<string, unknown>;
+    settings.amplitudeGatePercentile = 25;
+    settings.compareConditions = ['Tone', 'Word'];
+    await t.dataSource.query(
+      `UPDATE "analysis_run" SET "summaryJson" = ?, "settingsJson" = ? WHERE "id" = ?`,
+      [JSON.stringify(summary), JSON.stringify(settings), run.id],
+    );
   }
 
   async function download(path: string, user: UserKey): Promise<request.Response> {
@@ -210,6 +297,10 @@ describe('study results exports', () => {
     // Study B has numbers too, which no export of study A may hold.
     await compute(t.seed.visits.B1.id, 'technicianB', 'resting', 5);
 
+    // The first task run as if computed with the amplitude gate at the 25th percentile and
+    // "Tone" − "Word" compared: its settings, conditions, cross-check and per-channel gate.
+    await withDepth(recordingIds[1]);
+
     // A newer settings version makes every run of study A "computed with older settings".
     const settingsPath = `/api/studies/${studyA}/analysis-settings`;
     const analyst = await t.authHeader('analyst');
@@ -230,6 +321,9 @@ describe('study results exports', () => {
         flagThresholdHz: values.flagThresholdHz,
         roi: values.roi,
         onsetLabel: values.onsetLabel,
+        amplitudeGatePercentile: values.amplitudeGatePercentile,
+        cycleDisagreementHz: values.cycleDisagreementHz,
+        compareConditions: values.compareConditions,
         reason: 'Pilot review: later window after onset',
       });
     expect(newer.status).toBe(201);
@@ -266,8 +360,10 @@ describe('study results exports', () => {
       const api = results.get(row.recording_id)!;
       compared += expectRowMatches(api, row, '');
     }
-    // Resting: paf and cog; task: ROI Δf + 3 per channel of the 4-channel files.
-    expect(rows).toHaveLength(2 + (1 + 3 * 4) + (1 + 3 * 4) + 2);
+    // Resting: paf and cog; task: ROI Δf + 3 per channel of the 4-channel files, and its
+    // cycle-by-cycle Δf when the run has one.
+    expect(rows).toHaveLength(2 + (1 + 3 * 4) + (1 + 3 * 4) + 2 + withCycles());
+    expect(withCycles()).toBeGreaterThanOrEqual(1);
     expect(compared).toBe(rows.length * 11);
     // The schedule's columns (shared visitScheduleStatus: day 0 = 2026-01-10; 2026-07-20 is day 191).
     const month = rows.filter((r) => r.visit_label === 'Month 6');
@@ -303,9 +399,133 @@ describe('study results exports', () => {
     expect(partial.every((r) => /\((missing|flat|saturated)\)/.test(r.roi_channels_left_out))).toBe(
       true,
     );
+    expectDepthColumns(rows, '');
     expect(body.toString('utf8')).not.toContain(INVENTED_PATIENT_NAME);
     expect(body.toString('utf8')).not.toContain('B1-0001');
     // The header names the payload's checksum; the audit entry repeats it (below).
+    expect(response.headers['x-content-sha256']).toBe(
+      createHash('sha256').update(body).digest('hex'),
+    );
+  });
+
+  /** The cross-check, the gate and the depth settings of each recording's rows. */
+  function expectDepthColumns(rows: Row[], missing: string): void {
+    const gated = recordingIds[1];
+    const api = results.get(gated)!;
+    for (const row of rows.filter((r) => r.recording_id === gated)) {
+      expect(row).toMatchObject({
+        amplitude_gate_percentile: '25',
+        cycle_disagreement_threshold_hz: '0.1',
+        compare_conditions: 'Tone; Word',
+        cycle_disagreement_hz: '0.16',
+        cycles_disagree: 'true',
+      });
+    }
+    // Per channel: its own share; the region's Δf row: the shares' total over the used channels.
+    for (const row of rows.filter((r) => r.recording_id === gated && r.scope === 'channel')) {
+      const gate = api.channels.find((c) => c.label === row.channel)!.amplitudeGate!;
+      expect(row.gated_share).toBe(text(gate.excludedSamples / gate.totalSamples, missing));
+    }
+    const used = api.channels.filter((c) => api.run.roiUsage.used.includes(c.label));
+    const excluded = used.reduce((sum, c) => sum + c.amplitudeGate!.excludedSamples, 0);
+    const roiRow = rows.find(
+      (r) => r.recording_id === gated && r.scope === 'roi' && r.measure === 'delta_f',
+    )!;
+    expect(roiRow.gated_share).toBe(text(excluded / (1000 * used.length), missing));
+    const other = rows.filter((r) => r.recording_id !== gated);
+    for (const row of other) {
+      const cycles = results.get(row.recording_id)!.task?.cycles ?? null;
+      expect(row).toMatchObject({
+        amplitude_gate_percentile: missing,
+        cycle_disagreement_threshold_hz: '0.1',
+        compare_conditions: missing,
+        gated_share: missing,
+        cycles_disagree: cycles === null ? missing : String(cycles.disagrees),
+        cycle_disagreement_hz: text(cycles?.disagreementHz, missing),
+      });
+    }
+  }
+
+  /** Study A's task recordings that carry the cycle-by-cycle estimate (one more row each). */
+  function withCycles(): number {
+    return recordingIds.slice(0, 4).filter((id) => (results.get(id)?.task?.cycles ?? null) !== null)
+      .length;
+  }
+
+  /** Checks the conditions table's rows (CSV or TSV) against the results API, exactly. */
+  function expectConditionRows(rows: Row[], missing: string): void {
+    // Every condition of every task recording of study A, once; nothing of study B.
+    const expected = recordingIds
+      .slice(0, 4)
+      .flatMap((id) => (results.get(id)?.task?.conditions ?? []).map((c) => `${id} ${c.label}`));
+    expect(rows.map((r) => `${r.recording_id} ${r.condition}`).sort()).toEqual(expected.sort());
+    for (const row of rows) {
+      const api = results.get(row.recording_id)!;
+      const condition = api.task!.conditions.find((c) => c.label === row.condition)!;
+      const difference = api.task!.conditionDifference;
+      expect(row).toEqual(
+        expect.objectContaining({
+          participant_code: 'A1-0001',
+          run_id: api.run.id,
+          trials_kept: text(condition.trialsKept, missing),
+          trials_total: text(condition.trialsTotal, missing),
+          baseline_f: text(condition.baselineHz, missing),
+          post_f: text(condition.postHz, missing),
+          delta_f: text(condition.deltaFHz, missing),
+          ci_low: text(condition.ciHz?.[0], missing),
+          ci_high: text(condition.ciHz?.[1], missing),
+          p_value: text(condition.pValue, missing),
+          difference_first: difference?.first ?? missing,
+          difference_second: difference?.second ?? missing,
+          difference_chosen_by: difference?.chosenBy ?? missing,
+          difference_delta_f: text(difference?.differenceHz, missing),
+          difference_ci_low: text(difference?.ciHz?.[0], missing),
+          difference_ci_high: text(difference?.ciHz?.[1], missing),
+          difference_p_value: text(difference?.pValue, missing),
+          difference_permutations: text(difference?.permutations, missing),
+          difference_seed: text(difference?.seed, missing),
+        }),
+      );
+    }
+    // The run given two conditions: both rows in their order, each with the pair's difference.
+    const given = rows.filter((r) => r.recording_id === recordingIds[1]);
+    expect(given.map((r) => [r.visit_label, r.condition])).toEqual([
+      ['V1', 'Tone'],
+      ['V1', 'Word'],
+    ]);
+    expect(given[1]).toMatchObject({
+      difference_first: 'Tone',
+      difference_second: 'Word',
+      difference_chosen_by: 'settings',
+      difference_permutations: '5000',
+    });
+    // The numbers are the run's, unrounded (−0.423456789 Hz written as JSON writes it).
+    expect(given[0].delta_f).toBe('-0.423456789');
+  }
+
+  it('conditions.csv: one row per condition, the difference in columns, numbers as the results API', async () => {
+    const response = await download(`/api/studies/${studyA}/conditions.csv`, 'analyst');
+    expect(response.status).toBe(200);
+    expect(response.headers['content-type']).toMatch(/^text\/csv/);
+    expect(response.headers['content-disposition']).toMatch(
+      new RegExp(
+        `^attachment; filename="gyre-${t.seed.studies.A.code}-conditions-\\d{4}-\\d{2}-\\d{2}\\.csv"$`,
+      ),
+    );
+    const body = response.body as Buffer;
+    const rows: Row[] = parse(body, { columns: true, record_delimiter: '\r\n' });
+    expectConditionRows(rows, '');
+    const [entry] = (await t.dataSource.query(
+      `SELECT "actorId", "after" FROM "audit_entry" WHERE "action" = 'export'
+       ORDER BY "seq" DESC LIMIT 1`,
+    )) as Array<{ actorId: string; after: string }>;
+    expect(entry.actorId).toBe(t.seed.users.analyst.id);
+    expect(JSON.parse(entry.after)).toMatchObject({
+      export: 'conditions.csv',
+      rows: rows.length,
+      visits: new Set(rows.map((r) => r.visit_label)).size,
+      sha256: createHash('sha256').update(body).digest('hex'),
+    });
     expect(response.headers['x-content-sha256']).toBe(
       createHash('sha256').update(body).digest('hex'),
     );
@@ -400,6 +620,8 @@ describe('study results exports', () => {
         'README.md',
         'participants.tsv',
         'participants.json',
+        'conditions.tsv',
+        'conditions.json',
       ];
       if (top.includes(file)) continue;
       const parts = file.split('/');
@@ -441,7 +663,16 @@ describe('study results exports', () => {
       }
     }
     expect(measureFiles).toBe(4);
-    expect(compared).toBe((2 + 13 + 13 + 2) * 11);
+    expect(compared).toBe((2 + 13 + 13 + 2 + withCycles()) * 11);
+    // The conditions table at the root, with the BIDS subject and session of each row.
+    const conditions = parseTsv(readFileSync(join(root, 'conditions.tsv'), 'utf8'));
+    for (const row of conditions) {
+      expect([row.participant_id, row.session_id]).toEqual([
+        'sub-A10001',
+        row.visit_label === 'V1' ? 'ses-V1' : 'ses-Month6',
+      ]);
+    }
+    expectConditionRows(conditions, 'n/a');
     // Every TSV at any level has its sidecar, and each sidecar describes every column.
     for (const file of files.filter((f) => f.endsWith('.tsv'))) {
       const header = readFileSync(join(root, file), 'utf8').split('\n')[0].split('\t');
@@ -466,7 +697,12 @@ describe('study results exports', () => {
 
   it('refuses technicians and coordinators (403), other studies (404) and bad ids (400)', async () => {
     for (const user of ['technician', 'coordinator'] as const) {
-      for (const path of ['results.csv', 'export.zip', 'results-dictionary.csv']) {
+      for (const path of [
+        'results.csv',
+        'conditions.csv',
+        'export.zip',
+        'results-dictionary.csv',
+      ]) {
         const response = await request(t.url)
           .get(`/api/studies/${studyA}/${path}`)
           .set(await t.authHeader(user));

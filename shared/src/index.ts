@@ -17,3 +17,5 @@ export * from './number-format';
 export * from './chart-ticks';
 export * from './calibration';
 export * from './analysis-depth';
+export * from './scalp-positions';
+export * from './scalp-map';

@@ -7,8 +7,12 @@
 import {
   RESULT_SERIES_DECIMALS,
   SPECTRUM_POWER_SIGNIFICANT_DIGITS,
+  type ConditionDifferenceView,
+  type ConditionStatsView,
+  type CycleEstimateView,
   type OnsetCurveView,
   type RecordingResultsView,
+  type TaskResultsView,
   type TrialRasterView,
 } from '@gyre/shared';
 import type { RunSummary } from '../jobs/worker/worker-tasks';
@@ -67,6 +71,7 @@ export function roundedResults(full: RecordingResultsView): RecordingResultsView
             ...task,
             timeS: roundedAxis(task.timeS, RESULT_SERIES_DECIMALS.timeS, 'timeS'),
             roi: roundedCurve(task.roi),
+            conditionCurves: task.conditionCurves.map(roundedCurve),
           },
     rest:
       rest === null
@@ -148,5 +153,38 @@ export function curveOf(
     meanHz: numbers(series[`${prefix}:mean`]),
     ciLowHz: numbers(series[`${prefix}:ciLow`]),
     ciHighHz: numbers(series[`${prefix}:ciHigh`]),
+  };
+}
+
+/**
+ * The conditions and cycle-by-cycle parts of a stored task summary. Runs stored before these
+ * were computed lack the keys: each missing one reads as empty / null.
+ */
+interface StoredTaskDepth {
+  conditions?: ConditionStatsView[];
+  conditionDifference?: ConditionDifferenceView | null;
+  /** Labels whose curves are stored as `condition:<label>:mean|ciLow|ciHigh`. */
+  conditionCurves?: string[];
+  cycles?: CycleEstimateView | null;
+}
+
+type TaskDepthView = Pick<
+  TaskResultsView,
+  'conditions' | 'conditionCurves' | 'conditionDifference' | 'cycles'
+>;
+
+/** A task summary's conditions, their curves (full precision) and the cycle-by-cycle estimate. */
+export function taskDepthOf(
+  task: NonNullable<RunSummary['task']>,
+  series: Record<string, Float64Array>,
+): TaskDepthView {
+  const depth = task as NonNullable<RunSummary['task']> & StoredTaskDepth;
+  return {
+    conditions: depth.conditions ?? [],
+    conditionCurves: (depth.conditionCurves ?? []).map((label) =>
+      curveOf(series, `condition:${label}`, label),
+    ),
+    conditionDifference: depth.conditionDifference ?? null,
+    cycles: depth.cycles ?? null,
   };
 }

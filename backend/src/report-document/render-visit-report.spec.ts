@@ -4,7 +4,11 @@ import { ReportRenderer } from './report-renderer';
 import { ReportModelError } from './validate-report-model';
 import { RESEARCH_CAUTION, SIGNATURE_MEANING } from './report-wording';
 import { readPdfText } from './testing/read-pdf-text';
-import { SAMPLE_NO_ROI, sampleVisitReportModel } from './testing/sample-visit-report-model';
+import {
+  SAMPLE_NO_ROI,
+  SAMPLE_TASK_DEPTH,
+  sampleVisitReportModel,
+} from './testing/sample-visit-report-model';
 import { RestSection, TaskSection, VisitReportModel } from './visit-report-model';
 
 // The model is generated (sampleVisitReportModel); every PDF is read back with pdf-parse 2
@@ -459,6 +463,121 @@ describe('renderVisitReport', () => {
     ).rejects.toThrow(
       'Report field rest.source.replacementReason: found "Noisy", expected null when no ' +
         'recording is replaced.',
+    );
+  });
+
+  describe('conditions, the cycle-by-cycle cross-check and the amplitude gate', () => {
+    const DEPTH_HEADING = 'Task: conditions and cross-checks';
+    let text: string;
+    beforeAll(async () => {
+      const base = sampleVisitReportModel();
+      text = await renderText(
+        sampleVisitReportModel({ task: { ...base.task!, depth: SAMPLE_TASK_DEPTH } }),
+      );
+    });
+
+    it('gives Δf, CI, Wilcoxon p and trials per condition, rounded as on screen', () => {
+      const depth = section(text, DEPTH_HEADING, 'Quality checks');
+      // −0.4123 → −0.41, CI −0.5832 → −0.58, −0.2411 → −0.24; p 0.00021 → < 0.001.
+      expect(depth).toContain(
+        'Tone Δf −0.41 Hz; 95 % CI −0.58 to −0.24 Hz; Wilcoxon p < 0.001; 19 of 20 trials kept',
+      );
+      expect(depth).toContain(
+        'Word Δf −0.16 Hz; 95 % CI −0.32 to 0.00 Hz; Wilcoxon p 0.047; 19 of 20 trials kept',
+      );
+    });
+
+    it('labels the difference as one, with its CI and permutation p, and says how the pair was chosen', () => {
+      const depth = section(text, DEPTH_HEADING, 'Quality checks');
+      expect(depth).toContain(
+        'Difference Tone − Word −0.25 Hz; 95 % CI −0.48 to −0.02 Hz; permutation p 0.031',
+      );
+      expect(depth).toContain("the pair named in the study's analysis settings");
+      expect(depth).toContain('permutation test with 5000 label shuffles (seed 20190815)');
+    });
+
+    it('prints the cycle-by-cycle Δf beside the phase-based one, with the disagreement warning', () => {
+      const depth = section(text, DEPTH_HEADING, 'Quality checks');
+      expect(depth).toContain('Δf, phase-based −0.29 Hz');
+      expect(depth).toContain('Δf, cycle-by-cycle −0.14 Hz; 95 % CI −0.29 to +0.01 Hz');
+      expect(depth).toContain('35 of 38 trials with burst cycles in both windows');
+      // |−0.1402 − (−0.2871)| = 0.1469 → 0.15 Hz, above the 0.10 Hz threshold.
+      expect(depth).toContain(
+        'Warning: the cycle-by-cycle and the phase-based Δf differ by 0.15 Hz, more than the ' +
+          "study's threshold of 0.10 Hz.",
+      );
+    });
+
+    it("gives the gate's percentile and the share of the region's samples it left out", () => {
+      // 46 080 of 184 320 samples = 25.0 %.
+      expect(section(text, DEPTH_HEADING, 'Quality checks')).toContain(
+        "Amplitude gate samples under percentile 25 of each channel's envelope; 25.0 % of the " +
+          "region's samples left out",
+      );
+    });
+
+    it('prints no warning when the estimates agree, and no section for a run without these', async () => {
+      const base = sampleVisitReportModel();
+      const agreeing = await renderText(
+        sampleVisitReportModel({
+          task: {
+            ...base.task!,
+            depth: {
+              ...SAMPLE_TASK_DEPTH,
+              cycles: { ...SAMPLE_TASK_DEPTH.cycles!, disagreementHz: 0.05, disagrees: false },
+            },
+          },
+        }),
+      );
+      expect(agreeing).toContain('Δf, cycle-by-cycle');
+      expect(agreeing).not.toContain('Warning: the cycle-by-cycle');
+      expect(draftPages.join(' ')).not.toContain(DEPTH_HEADING);
+    });
+  });
+
+  it('lists the analysis-depth settings in the provenance of each run', async () => {
+    const base = sampleVisitReportModel();
+    const provenance = base.provenance.map((entry) => ({
+      ...entry,
+      depthSettings: {
+        amplitudeGatePercentile: 25,
+        cycleDisagreementHz: 0.15,
+        compareConditions: ['Tone', 'Word'] as [string, string],
+      },
+    }));
+    const text = section(
+      await renderText(sampleVisitReportModel({ provenance })),
+      'Provenance',
+      'Electronic signature',
+    );
+    expect(text).toContain('Amplitude gate percentile 25 of the envelope');
+    expect(text).toContain('Cross-check threshold 0.15 Hz');
+    expect(text).toContain('Conditions compared “Tone” − “Word”');
+    expect(section(draftPages.join(' '), 'Provenance', 'Electronic signature')).toContain(
+      'Amplitude gate off Cross-check threshold 0.10 Hz Conditions compared the first two found',
+    );
+  });
+
+  it('refuses a gate percentile outside 1–90 and a non-finite condition Δf, naming the field', async () => {
+    const base = sampleVisitReportModel();
+    const withDepth = (depth: typeof SAMPLE_TASK_DEPTH) =>
+      renderVisitReport(sampleVisitReportModel({ task: { ...base.task!, depth } }));
+    await expect(
+      withDepth({
+        ...SAMPLE_TASK_DEPTH,
+        amplitudeGate: { ...SAMPLE_TASK_DEPTH.amplitudeGate!, percentile: 95 },
+      }),
+    ).rejects.toThrow(
+      'Report field task.depth.amplitudeGate.percentile: found 95, expected null (off) or a ' +
+        'percentile from 1 to 90.',
+    );
+    await expect(
+      withDepth({
+        ...SAMPLE_TASK_DEPTH,
+        conditions: [{ ...SAMPLE_TASK_DEPTH.conditions[0], deltaFHz: Number.POSITIVE_INFINITY }],
+      }),
+    ).rejects.toThrow(
+      'Report field task.depth.conditions[0].deltaFHz: found Infinity, expected a finite number or null.',
     );
   });
 });

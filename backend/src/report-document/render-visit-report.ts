@@ -4,7 +4,10 @@ import { BODY_WIDTH_PT, PAGE, PAGE_SETUP, REPORT_COLORS, ReportCanvas } from './
 import { ReportFonts } from './report-fonts';
 import { formatCiHz, formatDeltaHz, formatHz, formatPValue, formatUtc } from './report-numbers';
 import { drawOnsetCurvePlot, drawSpectrumPlot } from './report-plots';
+import { drawRestScalpMaps, drawTaskScalpMap } from './report-scalp-map';
+import { drawTaskDepth } from './report-task-depth';
 import {
+  depthSettingsRows,
   droppedWords,
   kindName,
   noPeakWords,
@@ -63,7 +66,10 @@ export async function renderVisitReport(
   // A section's heading, numbers and plot stay on one page: when they do not fit below the
   // cursor, the section starts a new page (they always fit a fresh one).
   canvas.keepTogether((c) => drawRest(c, model.rest));
+  canvas.keepTogether((c) => drawRestScalpMaps(c, model.rest));
   canvas.keepTogether((c) => drawTask(c, model.task));
+  canvas.keepTogether((c) => drawTaskScalpMap(c, model.task));
+  canvas.keepTogether((c) => drawTaskDepth(c, model.task));
   drawQuality(canvas, model);
   drawFlags(canvas, model);
   drawProvenance(canvas, model);
@@ -338,13 +344,14 @@ function drawProvenance(canvas: ReportCanvas, model: VisitReportModel): void {
     return;
   }
   for (const entry of model.provenance) {
-    canvas.ensureSpace(70);
+    canvas.ensureSpace(110);
     canvas.paragraph(kindName(entry.kind), { role: 'medium' });
     canvas.facts([
       ['Analysis run', entry.analysisRunId, 'mono'],
       ['Settings version', String(entry.settingsVersion)],
       ['Code version', entry.codeVersion, 'mono'],
       ['Input SHA-256', entry.inputChecksumSha256, 'mono'],
+      ...depthSettingsRows(entry.depthSettings),
     ]);
     canvas.gap(4);
   }

@@ -1,6 +1,28 @@
 import type { RoiOmissionReason, RoiUsageView } from '@gyre/shared';
-import { formatNumber, formatPercent, formatSeconds, formatUtc } from './report-numbers';
-import { QualitySection, RecordingSource, RestSection, TaskSection } from './visit-report-model';
+import type {
+  ConditionDifferenceView,
+  ConditionPairSource,
+  ConditionStatsView,
+  CycleEstimateView,
+} from '@gyre/shared';
+import {
+  formatCiHz,
+  formatDeltaHz,
+  formatHz,
+  formatNumber,
+  formatPercent,
+  formatPValue,
+  formatSeconds,
+  formatUtc,
+} from './report-numbers';
+import {
+  ProvenanceEntry,
+  QualitySection,
+  RecordingSource,
+  RestSection,
+  TaskDepthSection,
+  TaskSection,
+} from './visit-report-model';
 
 /** Gyre's research-use caution, printed on every page. */
 export const RESEARCH_CAUTION =
@@ -35,6 +57,7 @@ const DROP_WORDS: Record<string, string> = {
   edge: 'too close to the recording edge',
   amplitude: 'amplitude beyond the rejection threshold',
   artefact: 'overlapping an artefact annotation',
+  amplitudeGate: 'no sample left in a window after the amplitude gate',
 };
 
 /** "3 dropped: 2 amplitude beyond …, 1 too close to …" or "none dropped". */
@@ -180,4 +203,97 @@ export function qualitySentences(q: QualitySection): string[] {
   }
   for (const warning of q.warnings) out.push(`Note: ${warning}`);
   return out;
+}
+
+const orMissing = <T>(value: T | null, print: (v: T) => string): string =>
+  value === null ? 'not available' : print(value);
+
+/** One condition's row: "−0.50 Hz; 95 % CI …; Wilcoxon p 0.002; 18 of 20 trials kept". */
+export function conditionWords(condition: ConditionStatsView): string {
+  return (
+    `Δf ${orMissing(condition.deltaFHz, formatDeltaHz)}; ` +
+    `95 % CI ${orMissing(condition.ciHz, formatCiHz)}; ` +
+    `Wilcoxon p ${orMissing(condition.pValue, formatPValue)}; ` +
+    `${condition.trialsKept} of ${condition.trialsTotal} trials kept`
+  );
+}
+
+const PAIR_SOURCE_WORDS: Record<ConditionPairSource, string> = {
+  settings: "named in the study's analysis settings",
+  request: 'named for this computation',
+  'first-two': 'the first two conditions found in the onsets (the settings name no pair)',
+};
+
+/** The difference row's label: it says it is a difference, and its order. */
+export function differenceLabel(difference: ConditionDifferenceView): string {
+  return `Difference ${difference.first} − ${difference.second}`;
+}
+
+/** The difference row: value, bootstrap CI and permutation p. */
+export function differenceWords(difference: ConditionDifferenceView): string {
+  return (
+    `${orMissing(difference.differenceHz, formatDeltaHz)}; ` +
+    `95 % CI ${orMissing(difference.ciHz, formatCiHz)}; ` +
+    `permutation p ${orMissing(difference.pValue, formatPValue)}`
+  );
+}
+
+/** Below the conditions: what the difference is and how its pair was chosen. */
+export function differenceNote(difference: ConditionDifferenceView): string {
+  return (
+    `The difference is mean Δf of “${difference.first}” minus mean Δf of “${difference.second}”, ` +
+    `the pair ${PAIR_SOURCE_WORDS[difference.chosenBy]}. Its CI resamples trials within each ` +
+    `condition (bootstrap); its p is from a permutation test with ` +
+    `${formatNumber(difference.permutations, 0)} label shuffles (seed ${difference.seed}).`
+  );
+}
+
+/** The cycle-by-cycle row: its Δf, CI and how many trials and cycles it rests on. */
+export function cycleWords(cycles: CycleEstimateView): string {
+  const burst =
+    cycles.burstCycleShare === null
+      ? ''
+      : `; ${formatPercent(cycles.burstCycleShare)} of cycles in bursts`;
+  return (
+    `${orMissing(cycles.deltaFHz, formatDeltaHz)}; 95 % CI ${orMissing(cycles.ciHz, formatCiHz)}; ` +
+    `${cycles.trialsUsed} of ${cycles.trialsTotal} trials with burst cycles in both windows${burst}`
+  );
+}
+
+/** The warning printed when the two estimates disagree, or null when they agree. */
+export function disagreementWarning(depth: TaskDepthSection): string | null {
+  const cycles = depth.cycles;
+  if (cycles === null || !cycles.disagrees) return null;
+  return (
+    `Warning: the cycle-by-cycle and the phase-based Δf differ by ` +
+    `${orMissing(cycles.disagreementHz, formatHz)}, more than the study's threshold of ` +
+    `${formatHz(depth.cycleDisagreementHz)}. The rhythm may not be sinusoidal enough for the ` +
+    'phase-based estimate.'
+  );
+}
+
+/** "Percentile 25 of each channel's envelope; 24.8 % of the region's samples left out". */
+export function amplitudeGateWords(gate: NonNullable<TaskDepthSection['amplitudeGate']>): string {
+  const share =
+    gate.totalSamples === 0
+      ? 'no samples counted'
+      : `${formatPercent(gate.excludedSamples / gate.totalSamples)} of the region's samples left out`;
+  return `samples under percentile ${formatNumber(gate.percentile, 0)} of each channel's envelope; ${share}`;
+}
+
+/** The run's analysis-depth settings as provenance rows. */
+export function depthSettingsRows(
+  settings: ProvenanceEntry['depthSettings'],
+): Array<[string, string]> {
+  const pair = settings.compareConditions;
+  return [
+    [
+      'Amplitude gate',
+      settings.amplitudeGatePercentile === null
+        ? 'off'
+        : `percentile ${formatNumber(settings.amplitudeGatePercentile, 0)} of the envelope`,
+    ],
+    ['Cross-check threshold', formatHz(settings.cycleDisagreementHz)],
+    ['Conditions compared', pair === null ? 'the first two found' : `“${pair[0]}” − “${pair[1]}”`],
+  ];
 }

@@ -1,6 +1,6 @@
 import type { RoiUsageView } from '@gyre/shared';
 import { ROI_OMISSION_WORDS } from './report-wording';
-import { RecordingSource, VisitReportModel } from './visit-report-model';
+import { RecordingSource, TaskDepthSection, VisitReportModel } from './visit-report-model';
 
 /** A report model that cannot be drawn faithfully; names the field, what was found and expected. */
 export class ReportModelError extends Error {
@@ -42,7 +42,16 @@ export function assertValidModel(model: VisitReportModel): void {
     sameLength('task.onsetCurve.ciHighHz', curve.ciHighHz.length, curve.timeS.length);
     const { deltaFHz, ciHz, pValue } = model.task;
     checkHeadlines('task', model.task, { deltaFHz, ciHz, pValue });
+    if (model.task.depth !== undefined) checkDepth(model.task.depth);
   }
+  model.provenance.forEach((entry, i) => {
+    const field = `provenance[${i}].depthSettings`;
+    checkGatePercentile(
+      `${field}.amplitudeGatePercentile`,
+      entry.depthSettings.amplitudeGatePercentile,
+    );
+    positive(`${field}.cycleDisagreementHz`, entry.depthSettings.cycleDisagreementHz);
+  });
   if (model.flagSuggestion !== null) {
     optionalFinite('flagSuggestion.flagThresholdHz', model.flagSuggestion.flagThresholdHz);
     if (model.flagSuggestion.suggestsSlowing === true && model.task?.roiUsage.status === 'none') {
@@ -70,11 +79,7 @@ function checkHeadlines(
   of: { roiUsage: RoiUsageView; source: RecordingSource },
   values: Record<string, number | readonly number[] | null>,
 ): void {
-  for (const [name, value] of Object.entries(values)) {
-    if (Array.isArray(value))
-      value.forEach((v, i) => optionalFinite(`${section}.${name}[${i}]`, v));
-    else optionalFinite(`${section}.${name}`, value as number | null);
-  }
+  finiteAll(section, values);
   checkRoiUsage(`${section}.roiUsage`, of.roiUsage);
   checkSource(`${section}.source`, of.source);
   if (of.roiUsage.status === 'none') {
@@ -177,5 +182,71 @@ function sameLength(field: string, found: number, expected: number): void {
 function optionalFinite(field: string, value: number | null): void {
   if (value !== null && !Number.isFinite(value)) {
     throw new ReportModelError(field, String(value), 'a finite number or null');
+  }
+}
+
+/** Conditions, their difference, the cycle-by-cycle estimate and the gate: finite or null. */
+function checkDepth(depth: TaskDepthSection): void {
+  depth.conditions.forEach((c, i) => {
+    const field = `task.depth.conditions[${i}]`;
+    requireText(`${field}.label`, c.label);
+    finiteAll(field, { deltaFHz: c.deltaFHz, ciHz: c.ciHz, pValue: c.pValue });
+    if (c.trialsKept > c.trialsTotal) {
+      throw new ReportModelError(
+        `${field}.trialsKept`,
+        String(c.trialsKept),
+        `at most trialsTotal (${c.trialsTotal})`,
+      );
+    }
+  });
+  const difference = depth.conditionDifference;
+  if (difference !== null) {
+    const field = 'task.depth.conditionDifference';
+    requireText(`${field}.first`, difference.first);
+    requireText(`${field}.second`, difference.second);
+    finiteAll(field, {
+      differenceHz: difference.differenceHz,
+      ciHz: difference.ciHz,
+      pValue: difference.pValue,
+    });
+  }
+  if (depth.cycles !== null) {
+    const { deltaFHz, ciHz, disagreementHz } = depth.cycles;
+    finiteAll('task.depth.cycles', { deltaFHz, ciHz, disagreementHz });
+  }
+  positive('task.depth.cycleDisagreementHz', depth.cycleDisagreementHz);
+  const gate = depth.amplitudeGate;
+  if (gate !== null) {
+    checkGatePercentile('task.depth.amplitudeGate.percentile', gate.percentile);
+    if (!(gate.excludedSamples >= 0 && gate.excludedSamples <= gate.totalSamples)) {
+      throw new ReportModelError(
+        'task.depth.amplitudeGate.excludedSamples',
+        String(gate.excludedSamples),
+        `0 to totalSamples (${gate.totalSamples})`,
+      );
+    }
+  }
+}
+
+function finiteAll(
+  section: string,
+  values: Record<string, number | readonly number[] | null>,
+): void {
+  for (const [name, value] of Object.entries(values)) {
+    if (Array.isArray(value))
+      value.forEach((v, i) => optionalFinite(`${section}.${name}[${i}]`, v));
+    else optionalFinite(`${section}.${name}`, value as number | null);
+  }
+}
+
+function checkGatePercentile(field: string, value: number | null): void {
+  if (value !== null && !(value >= 1 && value <= 90)) {
+    throw new ReportModelError(field, String(value), 'null (off) or a percentile from 1 to 90');
+  }
+}
+
+function positive(field: string, value: number): void {
+  if (!(Number.isFinite(value) && value > 0)) {
+    throw new ReportModelError(field, String(value), 'a finite number above 0');
   }
 }

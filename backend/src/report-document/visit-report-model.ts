@@ -1,4 +1,10 @@
-import type { RoiUsageView } from '@gyre/shared';
+import type {
+  ConditionDifferenceView,
+  ConditionStatsView,
+  CycleEstimateView,
+  RoiUsageView,
+  ScalpChannelValues,
+} from '@gyre/shared';
 
 /**
  * Everything a visit report prints, as plain data: no entities, no I/O. The service that
@@ -62,6 +68,16 @@ export interface RestSection {
   /** Which region-of-interest channels the numbers rest on. */
   roiUsage: RoiUsageView;
   source: RecordingSource;
+  /** Each channel's own PAF and CoG for the scalp maps; absent when no channel has one. */
+  scalpMap?: ScalpMapChannels;
+}
+
+/** The per-channel numbers a section's scalp map draws (report-scalp-map.ts). */
+export interface ScalpMapChannels {
+  channels: ScalpChannelValues[];
+  /** File labels the quality checks found flat or saturated (drawn as left out). */
+  flatChannels: string[];
+  saturatedChannels: string[];
 }
 
 /**
@@ -90,6 +106,31 @@ export interface TaskSection {
   /** Which region-of-interest channels the numbers rest on. */
   roiUsage: RoiUsageView;
   source: RecordingSource;
+  /** Each channel's own Δf for the scalp map; absent for runs without `depth` (see there). */
+  scalpMap?: ScalpMapChannels;
+  /**
+   * Conditions, the cycle-by-cycle cross-check and the amplitude gate; absent when the run
+   * computed none of them (so reports of earlier runs state, and fingerprint, what they did).
+   */
+  depth?: TaskDepthSection;
+}
+
+/** What a task run adds beyond the region of interest's Δf. */
+export interface TaskDepthSection {
+  /** Δf per condition (onset label) in the region of interest; empty without labels. */
+  conditions: ConditionStatsView[];
+  /** Δf(first) − Δf(second); null with fewer than two conditions. */
+  conditionDifference: ConditionDifferenceView | null;
+  /** The cycle-by-cycle estimate beside the phase-based one; null when not computed. */
+  cycles: CycleEstimateView | null;
+  /** The run's threshold above which the two estimates disagree, Hz. */
+  cycleDisagreementHz: number;
+  /** Samples the amplitude gate left out over the region's channels; null with the gate off. */
+  amplitudeGate: {
+    percentile: number;
+    excludedSamples: number;
+    totalSamples: number;
+  } | null;
 }
 
 /** Quality checks of one recording (docs/method.md §6), as the analysis reported them. */
@@ -136,6 +177,12 @@ export interface ProvenanceEntry {
   settingsVersion: number;
   codeVersion: string;
   inputChecksumSha256: string;
+  /** The run's analysis-depth settings (its settings version holds them too). */
+  depthSettings: {
+    amplitudeGatePercentile: number | null;
+    cycleDisagreementHz: number;
+    compareConditions: [string, string] | null;
+  };
 }
 
 export interface SignatureEntry {

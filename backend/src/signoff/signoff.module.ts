@@ -3,6 +3,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { AccountsModule } from '../accounts/accounts.module';
 import { AnalysisModule } from '../analysis/analysis.module';
 import { AuthModule } from '../auth/auth.module';
+import { BlindingModule } from '../blinding/blinding.module';
 import { FlagsModule } from '../flags/flags.module';
 import { ParticipantsModule } from '../participants/participants.module';
 import { RecordingsModule } from '../recordings/recordings.module';
@@ -29,6 +30,7 @@ import { VisitReportContentService } from './visit-report-content.service';
     AccountsModule,
     AuthModule,
     AnalysisModule,
+    BlindingModule,
     RecordingsModule,
     ReportsModule,
     FlagsModule,

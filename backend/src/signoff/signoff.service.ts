@@ -5,6 +5,7 @@ import { DataSource, EntityManager } from 'typeorm';
 import { SIGNATURE_MEANING, subject } from '@gyre/shared';
 import type { Action, ReportRevisionView, ReportSignOffView } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
+import { BlindingService } from '../blinding/blinding.service';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { nowIso } from '../common/time';
@@ -50,6 +51,7 @@ export class SignoffService {
     private readonly renderer: ReportRenderingService,
     private readonly reports: ReportsService,
     private readonly views: RevisionViewsService,
+    private readonly blinding: BlindingService,
   ) {}
 
   async status(caller: Caller, visitId: string): Promise<ReportSignOffView> {
@@ -225,6 +227,8 @@ export class SignoffService {
         visitId,
       });
     }
+    // Reports are signed unblinded: sign-off shows everything, so only after the decision.
+    await this.blinding.assertVisible(caller, { id: report.visitId, studyId: report.studyId });
     return report;
   }
 }

@@ -1,7 +1,12 @@
 import { createHash } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { EntityManager } from 'typeorm';
-import type { QualityView, RecordingResultsView } from '@gyre/shared';
+import type {
+  ChannelStatsView,
+  QualityView,
+  RecordingResultsView,
+  RoiUsageView,
+} from '@gyre/shared';
 import type { AnalysisSettings as AnalysisSettingsValues } from '../signal/pipeline/analysis-settings';
 import type { AnalysisRun } from '../analysis/analysis-run.entity';
 import { AnalysisRunsService, toResultsView } from '../analysis/analysis-runs.service';
@@ -12,6 +17,7 @@ import type { Flag } from '../flags/flag.entity';
 import { FlagsService } from '../flags/flags.service';
 import type { Participant } from '../participants/participant.entity';
 import { ParticipantsService } from '../participants/participants.service';
+import { scalpMapPartOf } from '../report-document/report-scalp-map';
 import type { Report } from '../reports/report.entity';
 import {
   FlagEntry,
@@ -19,6 +25,7 @@ import {
   RecordingSource,
   QualitySection,
   RestSection,
+  TaskDepthSection,
   TaskSection,
   VisitReportModel,
 } from '../report-document/visit-report-model';
@@ -170,6 +177,7 @@ function restSection(results: RecordingResultsView, recording: Recording): RestS
     noPeakReason: rest.noPeakReason,
     alphaWindowHz: rest.alphaWindowHz,
     spectrum: { frequencyHz: rest.frequencyHz, powerUv2PerHz: rest.powerUv2PerHz },
+    ...scalpMapPartOf(results, ['paf', 'cog']),
   };
 }
 
@@ -214,7 +222,52 @@ function taskSection(
       ciLowHz: task.roi.ciLowHz,
       ciHighHz: task.roi.ciHighHz,
     },
+    ...depthOf(results, settings),
+    // Under the rule of `depth`: a report of a run made before the depth fields stays as it was.
+    ...(depthOf(results, settings).depth === undefined ? {} : scalpMapPartOf(results, ['deltaF'])),
   };
+}
+
+/**
+ * The task's conditions, cycle-by-cycle estimate and amplitude gate, under `depth` only when
+ * the run computed any of them: a report of an earlier run keeps its content and fingerprint.
+ */
+function depthOf(
+  results: RecordingResultsView,
+  settings: AnalysisSettingsValues,
+): { depth?: TaskDepthSection } {
+  const task = results.task;
+  if (task === null) return {};
+  const amplitudeGate = gateOverRoi(results.channels, results.run.roiUsage);
+  if (task.conditions.length === 0 && task.cycles === null && amplitudeGate === null) return {};
+  return {
+    depth: {
+      conditions: task.conditions,
+      conditionDifference: task.conditionDifference,
+      cycles: task.cycles,
+      cycleDisagreementHz: settings.cycleDisagreementHz,
+      amplitudeGate,
+    },
+  };
+}
+
+/** The gate's percentile and the samples it left out, summed over the region's channels used. */
+function gateOverRoi(
+  channels: ChannelStatsView[],
+  usage: RoiUsageView,
+): TaskDepthSection['amplitudeGate'] {
+  const used = new Set(usage.used);
+  let percentile: number | null = null;
+  let excludedSamples = 0;
+  let totalSamples = 0;
+  for (const channel of channels) {
+    const gate = channel.amplitudeGate;
+    if (!used.has(channel.label) || gate === null || gate.percentile === null) continue;
+    percentile = gate.percentile;
+    excludedSamples += gate.excludedSamples;
+    totalSamples += gate.totalSamples;
+  }
+  return percentile === null ? null : { percentile, excludedSamples, totalSamples };
 }
 
 function qualitySection(kind: AnalysisRun['kind'], quality: QualityView): QualitySection {
@@ -248,11 +301,17 @@ function flagEntry(flag: Flag, names: Map<string, string>): FlagEntry {
 }
 
 function provenance(run: AnalysisRun): ProvenanceEntry {
+  const settings = parseStoredSettings(run.settingsJson);
   return {
     kind: run.kind,
     analysisRunId: run.id,
     settingsVersion: run.settingsVersion,
     codeVersion: run.codeVersion,
     inputChecksumSha256: run.inputChecksumSha256,
+    depthSettings: {
+      amplitudeGatePercentile: settings.amplitudeGatePercentile,
+      cycleDisagreementHz: settings.cycleDisagreementHz,
+      compareConditions: settings.compareConditions,
+    },
   };
 }

@@ -21,6 +21,7 @@ import type {
   ExportVisit,
   StudyExportModel,
 } from './export-model';
+import { CONDITION_COLUMNS, conditionRows } from './condition-columns';
 import { measuresOf } from './measures';
 import { RESULT_COLUMNS, type ExportColumn, type RowContext } from './results-columns';
 import { tableText, type Cell } from './table-text';
@@ -79,7 +80,7 @@ interface SidecarEntry {
 
 const COLUMN_BY_NAME = new Map(RESULT_COLUMNS.map((c) => [c.name, c]));
 
-function entryOf(column: ExportColumn): SidecarEntry {
+function entryOf<C>(column: ExportColumn<C>): SidecarEntry {
   return {
     Description: column.description,
     ...(column.unit === undefined ? {} : { Units: column.unit }),
@@ -149,6 +150,8 @@ const README = (model: StudyExportModel): string =>
     'visit’s current resting and task recordings, as Gyre’s results screens show them.',
     'participants.tsv and each sub-*/sub-*_sessions.tsv map the folder labels back to the',
     'participant codes and visit labels; every table has a JSON sidecar describing its columns.',
+    'conditions.tsv (when onsets carry labels) gives Δf per condition and, in its difference_*',
+    'columns, the difference of the two compared conditions: a difference, not a condition.',
     'Columns whose description starts with "Doubt:" mark numbers to read with care.',
     '',
   ].join('\n');
@@ -202,6 +205,7 @@ export function* bidsFiles(model: StudyExportModel): Generator<BidsFile> {
   };
   yield { path: 'README.md', content: README(model) };
   const participants = model.participants.filter((p) => labels.subject.has(p.id));
+  yield* conditionFiles(model, labels);
   yield {
     path: 'participants.tsv',
     content: tableText(
@@ -274,6 +278,31 @@ export function* bidsFiles(model: StudyExportModel): Generator<BidsFile> {
       }
     }
   }
+}
+
+/**
+ * `conditions.tsv` / `.json` at the dataset root: the conditions table of conditions.csv with
+ * the BIDS subject and session first; not written when no task run found any condition.
+ */
+function* conditionFiles(model: StudyExportModel, labels: BidsLabels): Generator<BidsFile> {
+  const rows = [...conditionRows(model)].map(({ context, cells }) => [
+    `sub-${labels.subject.get(context.participant.id)!}`,
+    `ses-${labels.session.get(context.visit.id)!}`,
+    ...cells,
+  ]);
+  if (rows.length === 0) return;
+  yield {
+    path: 'conditions.tsv',
+    content: tableText('tsv', rows, {
+      header: ['participant_id', 'session_id', ...CONDITION_COLUMNS.map((c) => c.name)],
+    }),
+  };
+  const own: Record<string, SidecarEntry> = {
+    participant_id: { Description: 'BIDS subject, as in participants.tsv.' },
+    session_id: { Description: "BIDS session, as in the subject's sessions.tsv." },
+  };
+  for (const column of CONDITION_COLUMNS) own[column.name] = entryOf(column);
+  yield { path: 'conditions.json', content: `${JSON.stringify(own, null, 2)}\n` };
 }
 
 /** Data rows of the measures files a model gives (what the audit entry counts). */

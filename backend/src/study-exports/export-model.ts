@@ -1,10 +1,12 @@
 import type {
   AnalysisRunView,
+  AnalysisSettingsValues,
   ChannelStatsView,
   QualityView,
   RecordingKind,
   RecordingState,
   RestResultsView,
+  TaskResultsView,
 } from '@gyre/shared';
 import type { ScheduleColumns } from './schedule-columns';
 
@@ -52,5 +54,14 @@ export interface ExportRecording {
   run: AnalysisRunView;
   channels: ChannelStatsView[];
   rest: Pick<RestResultsView, 'pafHz' | 'cogHz' | 'prominenceDb' | 'noPeakReason'> | null;
+  /** Task recordings: the conditions, their difference and the cycle-by-cycle estimate. */
+  depth: Pick<TaskResultsView, 'conditions' | 'conditionDifference' | 'cycles'> | null;
+  /** The run's analysis-depth settings (provenance beside its settings version). */
+  depthSettings: DepthSettings;
   quality: QualityView;
 }
+
+export type DepthSettings = Pick<
+  AnalysisSettingsValues,
+  'amplitudeGatePercentile' | 'cycleDisagreementHz' | 'compareConditions'
+>;

@@ -1,3 +1,4 @@
+import type { ChannelStatsView } from '@gyre/shared';
 import type { ExportRecording } from './export-model';
 
 /** The measures of the exports (every one in Hz). */
@@ -9,6 +10,8 @@ export const MEASURES = {
   baseline_f:
     'Mean instantaneous frequency in the baseline window before onset (task, per channel).',
   post_f: 'Mean instantaneous frequency in the post-onset window (task, per channel).',
+  delta_f_cycles:
+    'Δf of the cycle-by-cycle cross-check: frequency from the periods between extrema in bursts (task, region of interest).',
 } as const;
 export type Measure = keyof typeof MEASURES;
 
@@ -28,6 +31,8 @@ export interface MeasureRow {
   channelInRoi: boolean | null;
   channelFlat: boolean | null;
   channelSaturated: boolean | null;
+  /** Share of the samples the amplitude gate left out; null when the gate was off. */
+  gatedShare: number | null;
 }
 
 const NO_EXTRAS = {
@@ -41,6 +46,7 @@ const NO_EXTRAS = {
   channelInRoi: null,
   channelFlat: null,
   channelSaturated: null,
+  gatedShare: null,
 } as const;
 
 /**
@@ -67,8 +73,22 @@ export function measuresOf(recording: ExportRecording): MeasureRow[] {
       pValue: run.roiPValue,
       trialsKept: run.trialsKept,
       trialsTotal: run.trialsTotal,
+      gatedShare: roiGatedShare(recording),
     },
   ];
+  const cycles = recording.depth?.cycles ?? null;
+  if (cycles !== null) {
+    rows.push({
+      ...NO_EXTRAS,
+      measure: 'delta_f_cycles',
+      scope: 'roi',
+      value: cycles.deltaFHz,
+      ciLow: cycles.ciHz?.[0] ?? null,
+      ciHigh: cycles.ciHz?.[1] ?? null,
+      trialsKept: cycles.trialsUsed,
+      trialsTotal: cycles.trialsTotal,
+    });
+  }
   const quality = new Map(recording.quality.channels.map((c) => [c.label, c]));
   for (const channel of recording.channels) {
     const q = quality.get(channel.label);
@@ -80,6 +100,7 @@ export function measuresOf(recording: ExportRecording): MeasureRow[] {
       channelInRoi: channel.inRoi,
       channelFlat: q?.flat ?? null,
       channelSaturated: q?.saturated ?? null,
+      gatedShare: gatedShareOf([channel]),
     };
     rows.push(
       {
@@ -96,4 +117,22 @@ export function measuresOf(recording: ExportRecording): MeasureRow[] {
     );
   }
   return rows;
+}
+
+/** Samples the gate left out over these channels, as a share; null when none was gated. */
+function gatedShareOf(channels: readonly ChannelStatsView[]): number | null {
+  let excluded = 0;
+  let total = 0;
+  for (const { amplitudeGate: gate } of channels) {
+    if (gate === null || gate.percentile === null) continue;
+    excluded += gate.excludedSamples;
+    total += gate.totalSamples;
+  }
+  return total === 0 ? null : excluded / total;
+}
+
+/** The gate's share over the region-of-interest channels the run used. */
+function roiGatedShare(recording: ExportRecording): number | null {
+  const used = new Set(recording.run.roiUsage.used);
+  return gatedShareOf(recording.channels.filter((c) => used.has(c.label)));
 }

@@ -18,7 +18,7 @@ export interface RowContext {
  */
 export type ColumnLevel = 'visit' | 'recording' | 'measure';
 
-export interface ExportColumn {
+export interface ExportColumn<Context = RowContext> {
   name: string;
   level: ColumnLevel;
   type: 'text' | 'number' | 'integer' | 'boolean' | 'date' | 'datetime';
@@ -29,7 +29,7 @@ export interface ExportColumn {
   levels?: Record<string, string>;
   /** Text a person typed: the CSV guards it against spreadsheet formulas. */
   freeText?: boolean;
-  value: (row: RowContext) => Cell;
+  value: (row: Context) => Cell;
 }
 
 const joined = (items: readonly string[]): string | null =>
@@ -435,6 +435,59 @@ export const RESULT_COLUMNS: readonly ExportColumn[] = [
     description:
       "The computation's slowing suggestion for a task run (Δf at or below the study's threshold with a CI excluding 0); a research marker, not a finding.",
     value: (r) => r.recording.run.suggestsSlowing,
+  },
+  {
+    name: 'gated_share',
+    level: 'measure',
+    type: 'number',
+    description:
+      "Share (0–1) of the instantaneous-frequency samples the amplitude gate left out: the channel's (channel rows) or over the region's used channels (region-of-interest delta_f row); empty with the gate off.",
+    value: (r) => r.measure.gatedShare,
+  },
+  {
+    name: 'amplitude_gate_percentile',
+    level: 'recording',
+    type: 'number',
+    description:
+      "Setting of the run: samples under this percentile of each channel's alpha envelope were left out before the median and the epoch means; empty = gate off.",
+    value: (r) => r.recording.depthSettings.amplitudeGatePercentile,
+  },
+  {
+    name: 'cycle_disagreement_hz',
+    level: 'recording',
+    type: 'number',
+    unit: 'Hz',
+    description:
+      'Task runs: |Δf cycle-by-cycle − Δf phase-based| of the region of interest; empty when either is missing or the cross-check was not computed.',
+    value: (r) => r.recording.depth?.cycles?.disagreementHz ?? null,
+  },
+  {
+    name: 'cycles_disagree',
+    level: 'recording',
+    type: 'boolean',
+    description:
+      'Doubt: the cycle-by-cycle and the phase-based Δf differ by more than cycle_disagreement_threshold_hz (task runs with the cross-check).',
+    value: (r) => r.recording.depth?.cycles?.disagrees ?? null,
+  },
+  {
+    name: 'cycle_disagreement_threshold_hz',
+    level: 'recording',
+    type: 'number',
+    unit: 'Hz',
+    description: 'Setting of the run: the two Δf estimates disagree above this difference.',
+    value: (r) => r.recording.depthSettings.cycleDisagreementHz,
+  },
+  {
+    name: 'compare_conditions',
+    level: 'recording',
+    type: 'text',
+    description:
+      'Setting of the run: the two conditions (onset labels) whose Δf difference is reported, separated by "; "; empty = the first two found (see conditions.csv).',
+    freeText: true,
+    value: (r) => {
+      const pair = r.recording.depthSettings.compareConditions;
+      return pair === null ? null : pair.join('; ');
+    },
   },
 ];
 

@@ -2,6 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import { AnalysisRunsService, toResultsView } from '../analysis/analysis-runs.service';
+import { parseStoredSettings } from '../analysis/settings-values';
 import { applyScope } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { FlagsService } from '../flags/flags.service';
@@ -142,6 +143,7 @@ export class StudyExportSources {
       const run = recording.latestRunId === null ? undefined : runById.get(recording.latestRunId);
       if (run === undefined) return [];
       const results = toResultsView(run, recording, stale.get(run.id) ?? []);
+      const settings = parseStoredSettings(run.settingsJson);
       return [
         {
           visitId: recording.visitId,
@@ -160,6 +162,19 @@ export class StudyExportSources {
                     prominenceDb: results.rest.prominenceDb,
                     noPeakReason: results.rest.noPeakReason,
                   },
+            depth:
+              results.task === null
+                ? null
+                : {
+                    conditions: results.task.conditions,
+                    conditionDifference: results.task.conditionDifference,
+                    cycles: results.task.cycles,
+                  },
+            depthSettings: {
+              amplitudeGatePercentile: settings.amplitudeGatePercentile,
+              cycleDisagreementHz: settings.cycleDisagreementHz,
+              compareConditions: settings.compareConditions,
+            },
             quality: results.quality,
           },
         },

@@ -26,6 +26,21 @@ export class StudyExportsController {
     await this.exports.resultsCsv(caller, studyId, response);
   }
 
+  @Get('conditions.csv')
+  @RequirePermission('export', 'Result')
+  @ApiOperation({
+    summary:
+      'Δf per condition (onset label) and the difference of the compared pair, one row per visit × task recording × condition (audited)',
+  })
+  @ApiFile('text/csv', 'text/csv (RFC 4180); columns in docs/exports.md')
+  async conditions(
+    @CurrentCaller() caller: Caller,
+    @Param('studyId') studyId: string,
+    @Res() response: Response,
+  ): Promise<void> {
+    await this.exports.conditionsCsv(caller, studyId, response);
+  }
+
   @Get('results-dictionary.csv')
   @RequirePermission('export', 'Result')
   @ApiOperation({ summary: 'The data dictionary of results.csv: one row per column' })

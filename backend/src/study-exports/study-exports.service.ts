@@ -6,6 +6,7 @@ import type { Response } from 'express';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
 import { bidsFiles, measureRowCount } from './bids-layout';
+import { CONDITION_FREE_TEXT, CONDITION_HEADER, conditionRows } from './condition-columns';
 import type { StudyExportModel } from './export-model';
 import { measuresOf } from './measures';
 import {
@@ -87,6 +88,30 @@ export class StudyExportsService {
       if (!response.write(chunk.text)) await drained(response);
     }
     response.end();
+  }
+
+  /** conditions.csv: one row per visit × task recording × condition (audited as results.csv). */
+  async conditionsCsv(caller: Caller, studyId: string, response: Response): Promise<void> {
+    const model = await this.sources.model(caller, studyId);
+    const rows = [...conditionRows(model)];
+    const text = tableText(
+      'csv',
+      rows.map((r) => r.cells),
+      { header: CONDITION_HEADER, freeText: CONDITION_FREE_TEXT },
+    );
+    const sha256 = createHash('sha256').update(text, 'utf8').digest('hex');
+    const fileName = `gyre-${model.study.code}-conditions-${today()}.csv`;
+    await this.record(caller, model, {
+      export: 'conditions.csv',
+      fileName,
+      rows: rows.length,
+      columns: CONDITION_HEADER.length,
+      visits: new Set(rows.map((r) => r.context.visit.id)).size,
+      sha256,
+    });
+    startDownload(response, 'text/csv; charset=utf-8', fileName);
+    response.setHeader('X-Content-SHA256', sha256);
+    response.end(text);
   }
 
   async dictionaryCsv(caller: Caller, studyId: string, response: Response): Promise<void> {

@@ -8,6 +8,7 @@ export const STUDY = {
   description: '',
   trendMinVisits: 3,
   trendMinSpanDays: 90,
+  blindedReview: false,
   createdAt: '2025-01-06T09:00:00.000Z',
   updatedAt: '2025-01-06T09:00:00.000Z',
 };

@@ -1,5 +1,10 @@
 import type { RoiUsageView } from '@gyre/shared';
-import { RecordingSource, VisitReportModel } from '../visit-report-model';
+import {
+  ProvenanceEntry,
+  RecordingSource,
+  TaskDepthSection,
+  VisitReportModel,
+} from '../visit-report-model';
 
 /** Every wanted channel used: the ROI of the synthetic study. */
 export const SAMPLE_COMPLETE_ROI: RoiUsageView = {
@@ -47,6 +52,62 @@ export const SAMPLE_TASK_SOURCE: RecordingSource = {
   uploadedAtIso: '2026-11-20T10:02:47.000Z',
   replacesId: '5c2f8a61-0d7e-4b39-a1c4-8e6f2b9d0a73',
   replacementReason: 'Wrong onset file attached to the first upload',
+};
+
+/** Gyre's defaults: gate off, 0.1 Hz cross-check threshold, the first two conditions. */
+export const SAMPLE_DEPTH_SETTINGS: ProvenanceEntry['depthSettings'] = {
+  amplitudeGatePercentile: null,
+  cycleDisagreementHz: 0.1,
+  compareConditions: null,
+};
+
+/** Two conditions, their difference, a disagreeing cross-check and a 25th-percentile gate. */
+export const SAMPLE_TASK_DEPTH: TaskDepthSection = {
+  conditions: [
+    {
+      label: 'Tone',
+      trialsKept: 19,
+      trialsTotal: 20,
+      baselineHz: 10.12,
+      postHz: 9.71,
+      deltaFHz: -0.4123,
+      ciHz: [-0.5832, -0.2411],
+      pValue: 0.00021,
+    },
+    {
+      label: 'Word',
+      trialsKept: 19,
+      trialsTotal: 20,
+      baselineHz: 10.1,
+      postHz: 9.94,
+      deltaFHz: -0.1619,
+      ciHz: [-0.3204, -0.0035],
+      pValue: 0.0468,
+    },
+  ],
+  conditionDifference: {
+    first: 'Tone',
+    second: 'Word',
+    chosenBy: 'settings',
+    differenceHz: -0.2504,
+    ciHz: [-0.4811, -0.0207],
+    pValue: 0.0312,
+    permutations: 5000,
+    seed: 20190815,
+  },
+  cycles: {
+    baselineHz: 10.08,
+    postHz: 9.94,
+    deltaFHz: -0.1402,
+    ciHz: [-0.2915, 0.0106],
+    trialsUsed: 35,
+    trialsTotal: 38,
+    burstCycleShare: 0.584,
+    disagreementHz: 0.1469,
+    disagrees: true,
+  },
+  cycleDisagreementHz: 0.1,
+  amplitudeGate: { percentile: 25, excludedSamples: 46_080, totalSamples: 184_320 },
 };
 
 /**
@@ -153,6 +214,7 @@ export function sampleVisitReportModel(
         settingsVersion: 3,
         codeVersion: '0.1.0+bee9d0a',
         inputChecksumSha256: 'a3f1c9e2b7d4058c6e1f2a9b3c7d5e8f0a1b2c3d4e5f60718293a4b5c6d7e8f9',
+        depthSettings: SAMPLE_DEPTH_SETTINGS,
       },
       {
         kind: 'task',
@@ -160,6 +222,7 @@ export function sampleVisitReportModel(
         settingsVersion: 3,
         codeVersion: '0.1.0+bee9d0a',
         inputChecksumSha256: 'b4e2d0f3c8e5169d7f2a3b0c4d8e6f9a1b2c3d4e5f6071829304a5b6c7d8e9f0',
+        depthSettings: SAMPLE_DEPTH_SETTINGS,
       },
     ],
     supersedes: null,

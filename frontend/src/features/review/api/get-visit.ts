@@ -9,6 +9,7 @@ export function getVisit(visitId: string): Promise<VisitView> {
   return apiFetch<VisitView>(visitKey(visitId));
 }
 
-export function useVisit(visitId: string) {
-  return useSWR<VisitView>(visitKey(visitId), () => getVisit(visitId));
+/** `enabled` false: not asked (a visit blinded for the caller, or not known yet). */
+export function useVisit(visitId: string, enabled = true) {
+  return useSWR<VisitView>(enabled ? visitKey(visitId) : null, () => getVisit(visitId));
 }

@@ -12,6 +12,7 @@ import {
   roiUsageSentence,
   usedInRoi,
 } from '../../../lib/roi-usage';
+import { AmplitudeGateNote, amplitudeGateColumn, gatePercentileOf } from './amplitude-gate';
 
 export function formatCi(ci: [number, number] | null): string {
   return formatDeltaHzRange(ci);
@@ -106,9 +107,12 @@ export function ChannelTable({
       (row) => (row.trials === null ? '—' : String(row.trials)),
     ),
   ];
+  const gatePercentile = gatePercentileOf(channels);
+  if (gatePercentile !== null) columns.push(amplitudeGateColumn());
   return (
     <>
       <RoiCaption usage={roiUsage} />
+      {gatePercentile !== null && <AmplitudeGateNote percentile={gatePercentile} />}
       <Table<ChannelStatsView>
         aria-label="Per-channel task results"
         rowKey="label"

@@ -1,11 +1,12 @@
 import type { OnsetCurveView, TaskResultsView } from '@gyre/shared';
-import { Flex, Select, Skeleton, Typography } from 'antd';
+import { Flex, Select, Skeleton, Switch, Typography } from 'antd';
 import { useCallback, useMemo, useState } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
 import { ErrorState } from '../../../components/page-states';
 import { formatHz, formatQuantity, formatQuantityRange } from '../../../lib/format';
 import { NO_ROI_CHANNEL_REMAINS } from '../../../lib/roi-usage';
 import { useChannelCurve } from '../api/get-channel-curve';
+import { conditionOverlaysOf } from './conditions-overlay';
 import {
   BASELINE_COLOUR,
   MEAN_COLOUR,
@@ -28,10 +29,12 @@ function Swatch({
   colour,
   opacity = 1,
   line = false,
+  dashed = false,
 }: {
   colour: string;
   opacity?: number;
   line?: boolean;
+  dashed?: boolean;
 }) {
   return (
     <span
@@ -40,7 +43,9 @@ function Swatch({
         display: 'inline-block',
         width: 18,
         height: line ? 3 : 12,
-        background: colour,
+        background: dashed
+          ? `repeating-linear-gradient(90deg, ${colour} 0 6px, transparent 6px 9px)`
+          : colour,
         opacity,
         borderRadius: 2,
         verticalAlign: 'middle',
@@ -79,6 +84,12 @@ export function OnsetCurveChart({
     () => (curve === undefined ? NO_POINTS : onsetCurvePoints(task.timeS, curve)),
     [task.timeS, curve],
   );
+  const [conditionsShown, setConditionsShown] = useState(false);
+  // The conditions' curves are the region of interest's: drawn over its curve only.
+  const overlays = useMemo(
+    () => (conditionsShown && picked === null ? conditionOverlaysOf(task) : []),
+    [conditionsShown, picked, task],
+  );
   const spec = useCallback(
     (widthPx: number) =>
       onsetCurveSpec({
@@ -88,8 +99,9 @@ export function OnsetCurveChart({
         seriesName,
         widthPx,
         heightPx: CHART_HEIGHT_PX,
+        overlays,
       }),
-    [points, task.baselineWindowS, task.postWindowS, seriesName],
+    [points, task.baselineWindowS, task.postWindowS, seriesName, overlays],
   );
   const meanOf = (window: [number, number]) => {
     const inside = points.filter((p) => p.timeS >= window[0] && p.timeS <= window[1]);
@@ -117,7 +129,25 @@ export function OnsetCurveChart({
             <Swatch colour={POST_COLOUR} opacity={0.3} />
             Post {windowText(task.postWindowS)}
           </span>
+          {overlays.map((overlay) => (
+            <span key={overlay.name} data-gyre-key="condition">
+              <Swatch colour={overlay.colour} line dashed={overlay.dashed} />
+              {overlay.name}
+            </span>
+          ))}
         </Flex>
+        {task.conditionCurves.length > 0 && picked === null && (
+          <label style={{ fontSize: 13 }}>
+            <Switch
+              size="small"
+              checked={conditionsShown}
+              onChange={setConditionsShown}
+              aria-label="Show the conditions' curves"
+              style={{ marginRight: 6 }}
+            />
+            Conditions
+          </label>
+        )}
         <Select
           aria-label="Curve shown"
           value={series}

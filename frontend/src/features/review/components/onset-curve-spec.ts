@@ -37,6 +37,27 @@ export function onsetCurvePoints(timeS: number[], curve: OnsetCurveView): OnsetC
 export const BASELINE_COLOUR = CHART_PALETTE[2];
 export const POST_COLOUR = CHART_PALETTE[4];
 export const MEAN_COLOUR = CHART_PALETTE[0];
+/** Conditions' curves take the palette's colours the mean and the windows leave free. */
+const CONDITION_COLOURS = [CHART_PALETTE[1], CHART_PALETTE[3], CHART_PALETTE[5]];
+
+/**
+ * How the `index`-th condition's curve is drawn: the three free colours, solid, then again
+ * dashed, so up to six conditions stay apart (beyond that the key's labels tell them apart).
+ */
+export function conditionStroke(index: number): { colour: string; dashed: boolean } {
+  return {
+    colour: CONDITION_COLOURS[index % CONDITION_COLOURS.length],
+    dashed: Math.floor(index / CONDITION_COLOURS.length) % 2 === 1,
+  };
+}
+
+/** A condition's mean curve drawn over the region of interest's. */
+export interface OnsetCurveOverlay {
+  name: string;
+  colour: string;
+  dashed: boolean;
+  points: OnsetCurvePoint[];
+}
 
 const hz = (value: number) => formatHz(value);
 
@@ -57,8 +78,11 @@ export function onsetCurveSpec(options: {
   seriesName: string;
   widthPx?: number;
   heightPx?: number;
+  /** Conditions' mean curves, each a line of its own colour (no band, to stay readable). */
+  overlays?: OnsetCurveOverlay[];
 }): PlotSpec {
   const { points, baselineWindowS, postWindowS, seriesName } = options;
+  const overlays = options.overlays ?? [];
   const widthPx = options.widthPx ?? 640;
   const heightPx = options.heightPx ?? 300;
   const band = points.filter((p) => p.ciLowHz !== null && p.ciHighHz !== null);
@@ -69,7 +93,7 @@ export function onsetCurveSpec(options: {
     minDecimals: 1,
     signed: true,
   });
-  const values = points.flatMap((p) =>
+  const values = [...points, ...overlays.flatMap((o) => o.points)].flatMap((p) =>
     [p.meanHz, p.ciLowHz, p.ciHighHz].filter((v): v is number => v !== null && Number.isFinite(v)),
   );
   const y = linearAxis(Math.min(...values), Math.max(...values), {
@@ -127,6 +151,19 @@ export function onsetCurveSpec(options: {
           items: [{ channel: 'y', name: seriesName, valueFormatter: hz }],
         },
       },
+      ...overlays.map((overlay) => ({
+        type: 'line' as const,
+        data: overlay.points,
+        encode: { x: 'timeS', y: 'meanHz' },
+        style: {
+          stroke: overlay.colour,
+          lineWidth: 1.5,
+          ...(overlay.dashed ? { lineDash: [6, 3] } : {}),
+        },
+        tooltip: {
+          items: [{ channel: 'y', name: overlay.name, valueFormatter: hz }],
+        },
+      })),
       {
         type: 'lineX',
         data: [0],

@@ -18,12 +18,17 @@ import { useVisitFlag } from '../api/get-visit-flag';
 import { useVisitOverride } from '../api/get-visit-override';
 import { useVisitRecordings } from '../api/get-visit-recordings';
 import { useVisitReport } from '../api/get-visit-report';
+import { useVisitBlinding, useRecordBlindedDecision } from '../api/get-visit-blinding';
 import { useVisitReview } from '../api/get-visit-review';
 import { useMarkVisitReviewed } from '../api/mark-visit-reviewed';
 import { useRaiseFlag } from '../api/raise-flag';
 import { useSaveVisitOverride } from '../api/save-visit-override';
 import { channelOptionsOf } from './channel-names';
+import { BlindedDecisionCard } from './blinded-decision-card';
+import { BlindedReviewHeader } from './blinded-review-header';
 import { ChannelTable } from './channel-table';
+import { ConditionsTable } from './conditions-table';
+import { CycleEstimate } from './cycle-estimate';
 import { FlagPanel } from './flag-panel';
 import { OnsetCurveChart } from './onset-curve-chart';
 import { OverrideCard } from './override-card';
@@ -35,6 +40,7 @@ import { RestSpectrumChart } from './rest-spectrum-chart';
 import { ReviewMark } from './review-mark';
 import { RunNotices } from './run-notices';
 import { RunSummary } from './run-summary';
+import { ScalpMaps } from './scalp-map';
 import { IN_PROGRESS, useShownResults } from './shown-results';
 import { TrialRaster } from './trial-raster';
 import { VisitSources } from './visit-sources';
@@ -139,10 +145,14 @@ export function ReviewPage({
   const ability = useAppAbility();
   const { message } = App.useApp();
   const canReadSettings = ability.can('read', 'AnalysisSettings');
-  const visit = useVisit(visitId);
+  // Blinded review: a visit blinded for the analyst is never asked for (the server refuses it).
+  const blinding = useVisitBlinding(visitId);
+  const blinded = blinding.data?.blinded === true;
+  const visit = useVisit(visitId, blinding.data?.blinded === false);
+  const recordDecision = useRecordBlindedDecision(visitId);
   const participant = useParticipant(visit.data?.participantId);
   const recordings = useVisitRecordings(visitId);
-  const settings = useAnalysisSettings(canReadSettings ? visit.data?.studyId : undefined);
+  const settings = useAnalysisSettings(canReadSettings ? blinding.data?.studyId : undefined);
   const override = useVisitOverride(visitId, canReadSettings);
   const flag = useVisitFlag(visitId);
   const report = useVisitReport(visitId);
@@ -175,7 +185,8 @@ export function ReviewPage({
   const openOverride =
     canChangeOverride && override.data !== undefined ? () => setOverrideOpen(true) : undefined;
 
-  if (visit.error !== undefined) {
+  const loadError = blinding.error ?? visit.error;
+  if (loadError !== undefined) {
     return (
       <>
         <ResearchCaution />
@@ -183,13 +194,13 @@ export function ReviewPage({
           title="This visit could not be loaded"
           notFoundTitle="This visit does not exist or you cannot open it"
           back={{ to: paths.home, label: 'Back to the start' }}
-          error={visit.error}
-          onRetry={() => void visit.mutate()}
+          error={loadError}
+          onRetry={() => void Promise.all([blinding.mutate(), visit.mutate()])}
         />
       </>
     );
   }
-  if (visit.data === undefined) {
+  if (blinding.data === undefined || (!blinded && visit.data === undefined)) {
     return (
       <>
         <ResearchCaution />
@@ -208,23 +219,27 @@ export function ReviewPage({
   return (
     <>
       <ResearchCaution />
-      <PageHeader
-        title={`Review · ${code} · ${visit.data.label}`}
-        description={
-          <Flex component="span" wrap gap={8} align="center">
-            <span>Visit of {formatDate(visit.data.visitDate)}</span>
-            <VisitWindowTag schedule={visit.data.schedule} />
-          </Flex>
-        }
-        extra={
-          <Flex wrap gap={8} align="center">
-            {report.data !== undefined && report.data !== null && reportStatus?.(visitId)}
-            <Link to={paths.participant(visit.data.participantId)}>
-              <Button>Trajectory of {code}</Button>
-            </Link>
-          </Flex>
-        }
-      />
+      {blinded || visit.data === undefined ? (
+        <BlindedReviewHeader blinding={blinding.data} />
+      ) : (
+        <PageHeader
+          title={`Review · ${code} · ${visit.data.label}`}
+          description={
+            <Flex component="span" wrap gap={8} align="center">
+              <span>Visit of {formatDate(visit.data.visitDate)}</span>
+              <VisitWindowTag schedule={visit.data.schedule} />
+            </Flex>
+          }
+          extra={
+            <Flex wrap gap={8} align="center">
+              {report.data !== undefined && report.data !== null && reportStatus?.(visitId)}
+              <Link to={paths.participant(visit.data.participantId)}>
+                <Button>Trajectory of {code}</Button>
+              </Link>
+            </Flex>
+          }
+        />
+      )}
       {recordings.error !== undefined ? (
         <ErrorState
           title="The recordings could not be loaded"
@@ -261,6 +276,11 @@ export function ReviewPage({
                           )
                         ) : (
                           <>
+                            <CycleEstimate
+                              run={results.run}
+                              cycles={results.task.cycles}
+                              thresholdHz={settings.data?.cycleDisagreementHz ?? null}
+                            />
                             <OnsetCurveChart
                               recordingId={recording.id}
                               runId={results.run.id}
@@ -302,6 +322,7 @@ export function ReviewPage({
                                 },
                               ]}
                             />
+                            <ConditionsTable task={results.task} />
                           </>
                         )}
                       </>
@@ -345,6 +366,9 @@ export function ReviewPage({
                     )}
                   </ResultsOf>
                 </Card>
+                <Card styles={WRAPPING_TITLE} title="Scalp maps" aria-label="Scalp maps">
+                  <ScalpMaps rest={rest} task={task} />
+                </Card>
                 <Card styles={WRAPPING_TITLE} title="Quality checks" aria-label="Quality checks">
                   <Tabs
                     items={[
@@ -387,6 +411,9 @@ export function ReviewPage({
             </Col>
             <Col xs={24} xl={8}>
               <Flex vertical gap={20}>
+                {blinded && (
+                  <BlindedDecisionCard blinding={blinding.data} onDecide={recordDecision} />
+                )}
                 {ability.can('read', 'VisitReview') && (
                   <Card
                     styles={WRAPPING_TITLE}
@@ -436,10 +463,10 @@ export function ReviewPage({
                         <PersonName
                           userId={userId}
                           meId={me.user.id}
-                          studyId={visit.data?.studyId ?? ''}
+                          studyId={blinding.data?.studyId ?? ''}
                         />
                       )}
-                      canChange={canFlag}
+                      canChange={canFlag && !blinded}
                       onRaise={async (change) => {
                         await raiseFlag(change);
                       }}
@@ -485,7 +512,11 @@ export function ReviewPage({
                   ) : report.data === null ? (
                     'No report has been drafted for this visit yet.'
                   ) : reportPanel !== undefined ? (
-                    reportPanel(visitId, flag.data)
+                    blinded ? (
+                      'Sign-off opens once you have recorded your decision: reports are signed unblinded.'
+                    ) : (
+                      reportPanel(visitId, flag.data)
+                    )
                   ) : (
                     <span>
                       <Tag>{report.data.state}</Tag> The visit report is a {report.data.state};

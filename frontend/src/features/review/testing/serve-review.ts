@@ -6,6 +6,7 @@ import type {
   ReportSignOffView,
   TrialRasterView,
   VisitAnalysisOverrideView,
+  VisitBlindingView,
   VisitFlagView,
   VisitReviewStateView,
 } from '@gyre/shared';
@@ -42,7 +43,18 @@ export interface ReviewServed {
   settings?: AnalysisSettingsView;
   /** `null` leaves the review state to the test's own handler. */
   review?: VisitReviewStateView | null;
+  /** The visit's blinded-review state (default: not blinded). */
+  blinding?: VisitBlindingView;
 }
+
+/** The caller sees the visit as it is (blinded review off). */
+export const NOT_BLINDED: VisitBlindingView = {
+  visitId: VISIT.id,
+  studyId: VISIT.studyId,
+  code: null,
+  blinded: false,
+  decision: null,
+};
 
 /** Every request the Review screen makes for one visit, answered from the fixtures. */
 export function serveReview(served: ReviewServed = {}) {
@@ -67,6 +79,9 @@ export function serveReview(served: ReviewServed = {}) {
     );
   }
   server.use(
+    http.get(`/api/visits/${VISIT.id}/blinding`, () =>
+      HttpResponse.json(served.blinding ?? NOT_BLINDED),
+    ),
     http.get(`/api/visits/${VISIT.id}`, () => HttpResponse.json(VISIT)),
     http.get(`/api/participants/${PARTICIPANT.id}`, () => HttpResponse.json(PARTICIPANT)),
     http.get('/api/recordings', ({ request }) => {

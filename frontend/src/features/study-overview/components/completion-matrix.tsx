@@ -19,14 +19,14 @@ function CellText({ cell }: { cell: OverviewCell }) {
       <span aria-hidden="true">{words.sign} </span>
       {words.word}
       {cell.changedSinceSigning && (
-        <Typography.Text type="warning" style={{ display: 'block', fontSize: 12 }}>
+        <Typography.Text type="warning" className="gyre-block gyre-caption">
           changed since signing
         </Typography.Text>
       )}
       {cell.doubts.length > 0 && (
         <Typography.Text
           type="warning"
-          style={{ display: 'block', fontSize: 12 }}
+          className="gyre-block gyre-caption"
           title={cell.doubts.join(' ')}
         >
           {cell.doubts.length === 1 ? '1 doubt' : `${cell.doubts.length} doubts`}
@@ -83,7 +83,7 @@ export function CompletionMatrix({ overview }: { overview: StudyOverviewView }) 
             render: (_, row) => (
               <span className="gyre-nowrap">
                 <span className="gyre-figures">{row.code}</span>
-                <Typography.Text type="secondary" style={{ display: 'block', fontSize: 12 }}>
+                <Typography.Text type="secondary" className="gyre-block gyre-caption">
                   {row.where}
                 </Typography.Text>
               </span>
@@ -94,7 +94,7 @@ export function CompletionMatrix({ overview }: { overview: StudyOverviewView }) 
             title: (
               <span className="gyre-nowrap">
                 {pv.name}
-                <Typography.Text type="secondary" style={{ display: 'block', fontSize: 12 }}>
+                <Typography.Text type="secondary" className="gyre-block gyre-caption">
                   day {pv.targetDay} · {counts[i]} present
                 </Typography.Text>
               </span>

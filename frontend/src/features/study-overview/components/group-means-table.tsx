@@ -50,7 +50,7 @@ export function GroupMeansTable({
         size="small"
         pagination={false}
         tableLayout="auto"
-        style={{ width: 'max-content', minWidth: '100%', maxWidth: 'none' }}
+        className="gyre-table-natural-width"
         dataSource={rows}
         columns={[
           { key: 'name', title: split === 'group' ? 'Group' : 'Site', dataIndex: 'name' },

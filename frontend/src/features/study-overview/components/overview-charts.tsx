@@ -1,30 +1,12 @@
 import { OVERVIEW_MEASURES, type StudyOverviewView } from '@gyre/shared';
 import { Col, Empty, Row, Typography } from 'antd';
 import { useMemo } from 'react';
+import { LegendKey } from '../../../components/charts/legend-key';
 import { PlotFigure } from '../../../components/charts/plot-figure';
 import { MEASURE_WORDS, overviewSpec, splitEntries, type OverviewSplit } from './overview-spec';
 import { GYRE_COLORS } from '../../../app/theme';
 
 const CHART_HEIGHT_PX = 260;
-
-function Key({ colour, text, faint = false }: { colour: string; text: string; faint?: boolean }) {
-  return (
-    <span style={{ display: 'inline-block', maxWidth: '100%', marginRight: 16 }}>
-      <span
-        aria-hidden="true"
-        style={{
-          display: 'inline-block',
-          width: 18,
-          borderTop: `${faint ? 1 : 3}px solid ${colour}`,
-          opacity: faint ? 0.4 : 1,
-          verticalAlign: 'middle',
-          marginRight: 6,
-        }}
-      />
-      {text}
-    </span>
-  );
-}
 
 /** PAF, CoG and Δf over the planned visits: group (or site) means with 95 % CI, participants faint. */
 export function OverviewCharts({
@@ -47,16 +29,16 @@ export function OverviewCharts({
     overview.participants.some((p) => p.cells.some((cell) => cell[measure] !== null));
   return (
     <>
-      <div style={{ fontSize: 13, marginBottom: 8 }}>
+      <div className="gyre-chart-legend gyre-below-xs">
         {entries.map((e) => (
-          <Key key={e.key ?? 'none'} colour={e.colour} text={`${e.name}: mean and 95 % CI`} />
+          <LegendKey key={e.key ?? 'none'} colour={e.colour} text={`${e.name}: mean and 95 % CI`} />
         ))}
-        <Key colour={GYRE_COLORS.ink} text="Each participant" faint />
+        <LegendKey colour={GYRE_COLORS.ink} text="Each participant" stroke="faint" />
       </div>
       <Row gutter={[24, 24]}>
         {specs.map(({ measure, spec }) => (
           <Col xs={24} xl={8} key={measure}>
-            <Typography.Title level={5} style={{ marginTop: 0 }}>
+            <Typography.Title level={5} className="gyre-flush-top">
               {MEASURE_WORDS[measure].title}
             </Typography.Title>
             {hasValues(measure) ? (

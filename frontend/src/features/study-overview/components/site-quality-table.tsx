@@ -17,7 +17,7 @@ export function SiteQualityTable({ sites }: { sites: SiteQuality[] }) {
           size="small"
           pagination={false}
           tableLayout="auto"
-          style={{ width: 'max-content', minWidth: '100%', maxWidth: 'none' }}
+          className="gyre-table-natural-width"
           dataSource={sites}
           locale={{ emptyText: 'No site to compare yet.' }}
           columns={[

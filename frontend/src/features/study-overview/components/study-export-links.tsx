@@ -36,7 +36,7 @@ export function StudyExportLinks({ studyId }: { studyId: string }) {
         type="warning"
         showIcon
         title={`${RESEARCH_CAUTION} Exports are for research analysis only, not for diagnosis.`}
-        style={{ marginBottom: 12 }}
+        className="gyre-below-sm"
       />
       <Typography.Paragraph type="secondary">
         Current numbers of every visit, with their settings version, code version, input checksum

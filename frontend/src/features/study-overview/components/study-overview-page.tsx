@@ -31,9 +31,9 @@ function useChosenStudy(): {
   const studyId =
     items.find((s) => s.id === chosen)?.id ?? (items.length === 1 ? items[0].id : null);
   const picker = (
-    <Card style={{ marginBottom: 20 }}>
+    <Card className="gyre-below-md">
       <Form layout="vertical" component="div">
-        <Form.Item label="Study" htmlFor="overview-study" style={{ marginBottom: 0 }}>
+        <Form.Item label="Study" htmlFor="overview-study" className="gyre-flush">
           <Select
             id="overview-study"
             placeholder="Choose a study"
@@ -110,7 +110,7 @@ export function StudyOverviewPage() {
     <>
       {header}
       {canExport && (
-        <Card title="Results exports" style={{ marginBottom: 20 }}>
+        <Card title="Results exports" className="gyre-below-md">
           <StudyExportLinks studyId={studyId} />
         </Card>
       )}
@@ -118,10 +118,10 @@ export function StudyOverviewPage() {
         <Alert
           type="info"
           showIcon
-          style={{ marginBottom: 20 }}
+          className="gyre-below-md"
           title="About these numbers"
           description={
-            <ul aria-label="About these numbers" style={{ margin: 0, paddingLeft: 18 }}>
+            <ul aria-label="About these numbers" className="gyre-compact-list">
               {data.notes.map((note) => (
                 <li key={note}>{note}</li>
               ))}
@@ -131,7 +131,7 @@ export function StudyOverviewPage() {
       )}
       <Card
         title="Courses over the planned visits"
-        style={{ marginBottom: 20 }}
+        className="gyre-below-md"
         extra={
           <Segmented<OverviewSplit>
             aria-label="Means by"
@@ -149,13 +149,13 @@ export function StudyOverviewPage() {
         ) : (
           <>
             <OverviewCharts overview={data} split={split} />
-            <div style={{ marginTop: 20 }}>
+            <div className="gyre-above-md">
               <GroupMeansTable overview={data} split={split} />
             </div>
           </>
         )}
       </Card>
-      <Card title="Completion" style={{ marginBottom: 20 }}>
+      <Card title="Completion" className="gyre-below-md">
         <CompletionMatrix overview={data} />
       </Card>
       <Card title="Site quality">

@@ -17,9 +17,13 @@ export interface SettingsFormValues {
   flagThresholdHz: number | null;
   roi: string[];
   onsetLabel: string;
+  amplitudeGateOn: boolean;
+  /** Kept while the gate is off, so switching it back on shows the last percentile. */
   amplitudeGatePercentile: number | null;
   cycleDisagreementHz: number | null;
-  compareConditions: [string, string] | null;
+  /** The two conditions compared: both empty = the first two found. */
+  compareFirst: string;
+  compareSecond: string;
   reason: string;
 }
 
@@ -42,9 +46,11 @@ export function formValuesOf(settings: AnalysisSettingsValues): SettingsFormValu
     flagThresholdHz: settings.flagThresholdHz,
     roi: settings.roi,
     onsetLabel: settings.onsetLabel ?? '',
+    amplitudeGateOn: settings.amplitudeGatePercentile !== null,
     amplitudeGatePercentile: settings.amplitudeGatePercentile,
     cycleDisagreementHz: settings.cycleDisagreementHz,
-    compareConditions: settings.compareConditions,
+    compareFirst: settings.compareConditions?.[0] ?? '',
+    compareSecond: settings.compareConditions?.[1] ?? '',
     reason: '',
   };
 }
@@ -73,9 +79,17 @@ export function changeOf(values: SettingsFormValues): AnalysisSettingsChange {
     flagThresholdHz: num(values.flagThresholdHz, 'flagThresholdHz'),
     roi: values.roi,
     onsetLabel: values.onsetLabel.trim() === '' ? null : values.onsetLabel.trim(),
-    amplitudeGatePercentile: values.amplitudeGatePercentile,
+    amplitudeGatePercentile: values.amplitudeGateOn
+      ? num(values.amplitudeGatePercentile, 'amplitudeGatePercentile')
+      : null,
     cycleDisagreementHz: num(values.cycleDisagreementHz, 'cycleDisagreementHz'),
-    compareConditions: values.compareConditions,
+    compareConditions: comparedPairOf(values.compareFirst, values.compareSecond),
     reason: values.reason.trim(),
   };
+}
+
+/** Both labels trimmed, or null when both are empty (the form checks "both or neither"). */
+function comparedPairOf(first: string, second: string): [string, string] | null {
+  const pair: [string, string] = [first.trim(), second.trim()];
+  return pair[0] === '' && pair[1] === '' ? null : pair;
 }

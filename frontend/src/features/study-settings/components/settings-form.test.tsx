@@ -1,5 +1,6 @@
 import { render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import { DEFAULT_AMPLITUDE_GATE_PERCENTILE_WHEN_ON } from '@gyre/shared';
 import { describe, expect, it, vi } from 'vitest';
 import { ApiError } from '../../../lib/api-client';
 import { VERSION_1 } from '../testing/settings-fixtures';
@@ -101,6 +102,69 @@ describe('SettingsForm', { timeout: 60_000 }, () => {
         compareConditions: null,
         reason: 'Narrower band after the pilot',
       }),
+    );
+  });
+
+  it('switching the amplitude gate on fills in the default percentile and sends the three depth settings', async () => {
+    const { onSave } = renderForm();
+    expect(screen.queryByLabelText('Envelope percentile')).not.toBeInTheDocument();
+    await userEvent.click(screen.getByRole('switch', { name: 'Amplitude gate' }));
+    expect(screen.getByLabelText('Envelope percentile')).toHaveValue(
+      String(DEFAULT_AMPLITUDE_GATE_PERCENTILE_WHEN_ON),
+    );
+    await replace('Warn when the estimates differ by more than', '0.25');
+    await userEvent.type(screen.getByLabelText('First condition compared'), ' Tone ');
+    await userEvent.type(screen.getByLabelText('Second condition compared'), 'Word');
+    await userEvent.type(screen.getByLabelText('Reason for the change'), 'Gate weak alpha out');
+    await save();
+    await waitFor(() =>
+      expect(onSave).toHaveBeenCalledWith(
+        expect.objectContaining({
+          amplitudeGatePercentile: 25,
+          cycleDisagreementHz: 0.25,
+          compareConditions: ['Tone', 'Word'],
+        }),
+      ),
+    );
+  });
+
+  it('refuses a percentile outside 1–90, a threshold above 2 Hz and one condition without the other', async () => {
+    const { onSave } = renderForm();
+    await userEvent.click(screen.getByRole('switch', { name: 'Amplitude gate' }));
+    await replace('Envelope percentile', '95');
+    await replace('Warn when the estimates differ by more than', '3');
+    await userEvent.type(screen.getByLabelText('Second condition compared'), 'Word');
+    await userEvent.type(screen.getByLabelText('Reason for the change'), 'Trying a strict gate');
+    await save();
+    expect(await screen.findByText('Use a percentile from 1 to 90.')).toBeInTheDocument();
+    expect(screen.getByText('Use a difference above 0 and at most 2 Hz.')).toBeInTheDocument();
+    expect(
+      screen.getByText('Name the first condition too, or leave both empty (the first two found).'),
+    ).toBeInTheDocument();
+    expect(onSave).not.toHaveBeenCalled();
+  });
+
+  it('refuses the same condition twice (labels match case-insensitively)', async () => {
+    const { onSave } = renderForm();
+    await userEvent.type(screen.getByLabelText('First condition compared'), 'Tone');
+    await userEvent.type(screen.getByLabelText('Second condition compared'), 'tone');
+    await userEvent.type(screen.getByLabelText('Reason for the change'), 'Compare tone to tone');
+    await save();
+    expect(await screen.findByText('Name two different conditions.')).toBeInTheDocument();
+    expect(onSave).not.toHaveBeenCalled();
+  });
+
+  it('sends the gate as off when it is switched off again', async () => {
+    const { onSave } = renderForm();
+    const gate = screen.getByRole('switch', { name: 'Amplitude gate' });
+    await userEvent.click(gate);
+    await userEvent.click(gate);
+    await userEvent.type(screen.getByLabelText('Reason for the change'), 'Gate stays off now');
+    await save();
+    await waitFor(() =>
+      expect(onSave).toHaveBeenCalledWith(
+        expect.objectContaining({ amplitudeGatePercentile: null, compareConditions: null }),
+      ),
     );
   });
 

@@ -22,6 +22,7 @@ import {
   type SettingsFormValues,
 } from './settings-form-values';
 import { BandEdgeFields } from '../../../components/band-edge-fields';
+import { DepthSettingsFields } from './depth-settings-fields';
 
 type Values = SettingsFormValues;
 type Getter = (name: keyof Values) => unknown;
@@ -282,6 +283,7 @@ export function SettingsForm({
       >
         <Input maxLength={200} />
       </Form.Item>
+      <DepthSettingsFields />
       <Form.Item
         name="reason"
         label="Reason for the change"

@@ -13,6 +13,9 @@ const SHOWN: (keyof AnalysisSettingsValues)[] = [
   'flagThresholdHz',
   'roi',
   'onsetLabel',
+  'amplitudeGatePercentile',
+  'cycleDisagreementHz',
+  'compareConditions',
 ];
 
 /** The settings of one version, each with its unit. */

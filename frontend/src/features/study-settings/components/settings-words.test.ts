@@ -24,4 +24,18 @@ describe('settings in words', () => {
       'Narrow-band method: zero-phase band-pass → Morlet wavelet',
     );
   });
+
+  it('says the depth settings in words: the gate off or its percentile, Hz, the compared pair', () => {
+    expect(settingValueText('amplitudeGatePercentile', null)).toBe('off');
+    expect(settingValueText('amplitudeGatePercentile', 25)).toBe(
+      "samples under percentile 25 of each channel's envelope left out",
+    );
+    // Unit after a no-break space (shared/src/number-format.ts).
+    expect(settingValueText('cycleDisagreementHz', 0.1)).toBe('0.10\u00A0Hz');
+    expect(settingValueText('compareConditions', null)).toBe('the first two found');
+    expect(settingValueText('compareConditions', ['Tone', 'Word'])).toBe('“Tone” − “Word”');
+    expect(settingChangeText({ field: 'amplitudeGatePercentile', before: null, after: 25 })).toBe(
+      "Amplitude gate: off → samples under percentile 25 of each channel's envelope left out",
+    );
+  });
 });

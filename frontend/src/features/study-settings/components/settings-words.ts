@@ -1,5 +1,5 @@
 import type { AnalysisSettingsValues, SettingsFieldChange } from '@gyre/shared';
-import { formatNumber } from '../../../lib/format';
+import { formatHz, formatNumber } from '../../../lib/format';
 
 type Field = keyof AnalysisSettingsValues;
 
@@ -53,6 +53,18 @@ export function settingValueText(field: Field, value: unknown): string {
       return Array.isArray(value) ? value.join(', ') : String(value);
     case 'onsetLabel':
       return value === null || value === '' ? 'every onset' : `“${String(value)}”`;
+    case 'amplitudeGatePercentile':
+      if (value === null) return 'off';
+      return typeof value === 'number'
+        ? `samples under percentile ${formatNumber(value, 0)} of each channel's envelope left out`
+        : String(value);
+    case 'cycleDisagreementHz':
+      return typeof value === 'number' ? formatHz(value) : String(value);
+    case 'compareConditions':
+      if (value === null) return 'the first two found';
+      return Array.isArray(value) && value.length === 2
+        ? `“${String(value[0])}” − “${String(value[1])}”`
+        : String(value);
     default:
       return JSON.stringify(value satisfies unknown);
   }

@@ -174,8 +174,9 @@ describe('Study settings', { timeout: 60_000 }, () => {
     serveSettings();
     await openSettings('analyst');
     const rows = within(screen.getByLabelText('Current settings')).getAllByRole('row');
-    // Version, nine settings (no wavelet cycles for the band-pass) and the reason.
-    expect(rows).toHaveLength(11);
+    // Version, twelve settings (no wavelet cycles for the band-pass; the last three are the
+    // amplitude gate, the cross-check's threshold and the compared conditions) and the reason.
+    expect(rows).toHaveLength(14);
   });
 
   it('is not open to a technician', async () => {
