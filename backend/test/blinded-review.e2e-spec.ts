@@ -17,6 +17,7 @@ import type {
   WorklistView,
 } from '@gyre/shared';
 import { auditEntries } from './helpers/audit-entries';
+import { binaryBody } from './helpers/binary-body';
 import { SEED_PASSWORD, type UserKey } from './helpers/seed';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { syntheticRestEdf, upload, waitForState } from './recordings-fixtures';
@@ -80,19 +81,104 @@ describe('blinded review', () => {
     return texts.join('\n');
   }
 
+  /** Everything blinded review hides of the visit (participantCode and otherVisitId once set). */
+  const hiddenFacts = (): string[] => [
+    VISIT_DATE,
+    OTHER_VISIT_DATE,
+    ENROLMENT_DATE,
+    PLANNED_NAME,
+    GROUP_NAME,
+    participantCode,
+    otherVisitId,
+    'upload-2026-01-15',
+  ];
+
   function expectNothingHidden(text: string): void {
-    for (const hidden of [
-      VISIT_DATE,
-      OTHER_VISIT_DATE,
-      ENROLMENT_DATE,
-      PLANNED_NAME,
-      GROUP_NAME,
-      participantCode,
-      otherVisitId,
-      'upload-2026-01-15',
-    ]) {
+    for (const hidden of hiddenFacts()) {
       expect({ hidden, found: text.includes(hidden) }).toEqual({ hidden, found: false });
     }
+  }
+
+  /**
+   * Every GET route of the OpenAPI document the app serves, with each path parameter filled
+   * with the blinded visit's ids (its visit, recording, participant, site, study, report) and,
+   * where a route takes one, each id as a query filter too: the raw text of each answer as
+   * `header` gets it, whatever the status. Binary answers are read as bytes; a zip is refused
+   * outright by the assertion (its compressed text could hide anything).
+   */
+  async function sweep(header: Header): Promise<Array<{ path: string; text: string }>> {
+    const doc = (await request(t.url).get('/api/docs/openapi.json')).body as {
+      paths: Record<string, { get?: { parameters?: Array<{ name: string; in: string }> } }>;
+    };
+    const [report] = (await t.dataSource.query(`SELECT "id" FROM "report" WHERE "visitId" = ?`, [
+      visitId,
+    ])) as Array<{ id: string }>;
+    const participant = t.seed.participants.A1;
+    const ids: Record<string, string> = {
+      visitId,
+      recordingId: restId,
+      participantId: participant.id,
+      siteId: participant.siteId,
+      studyId: t.seed.studies.A.id,
+      reportId: report.id,
+      revisionId: randomUUID(),
+    };
+    /** `{id}` by the resource the path names. */
+    const idOf: Record<string, string> = {
+      visits: visitId,
+      participants: participant.id,
+      sites: participant.siteId,
+      studies: t.seed.studies.A.id,
+      users: t.seed.users.analyst.id,
+      recordings: restId,
+    };
+    const answers: Array<{ path: string; text: string }> = [];
+    for (const [template, item] of Object.entries(doc.paths)) {
+      if (item.get === undefined || template.startsWith('/api/worker/')) continue;
+      const path = template.replace(/\{(\w+)\}/g, (_m, name: string) => {
+        const resource = /\/(\w[\w-]*)\/\{id\}/.exec(template)?.[1] ?? '';
+        return name === 'id' ? idOf[resource] : (ids[name] ?? randomUUID());
+      });
+      const filters = (item.get.parameters ?? [])
+        .filter((p) => p.in === 'query' && ids[p.name] !== undefined)
+        .map((p) => `${p.name}=${ids[p.name]}`);
+      for (const query of ['', ...filters]) {
+        const url = query === '' ? path : `${path}?${query}`;
+        const response = await request(t.url)
+          .get(url)
+          .set(header)
+          .buffer(true)
+          .parse(binaryBody)
+          .timeout(20_000);
+        const type = String(response.headers['content-type'] ?? '');
+        if (response.status === 200 && type.includes('zip')) {
+          answers.push({ path: url, text: 'a zip archive was delivered' });
+          continue;
+        }
+        const body = response.body as Buffer;
+        answers.push({ path: url, text: body.toString('utf8') });
+      }
+    }
+    return answers;
+  }
+
+  /**
+   * The study's design (its planned visits and groups, by name) is no fact about any visit:
+   * those two answers may name them, and must hold nothing else of the list.
+   */
+  const DESIGN = /\/studies\/[^/]+\/(planned-visits|groups)$/;
+
+  function expectNoneHolds(
+    answers: Array<{ path: string; text: string }>,
+    hidden: readonly string[],
+  ): void {
+    const found = answers.flatMap(({ path, text }) =>
+      [...hidden, 'a zip archive was delivered']
+        .filter((h) => !(DESIGN.test(path) && (h === PLANNED_NAME || h === GROUP_NAME)))
+        .filter((h) => text.includes(h))
+        .map((h) => `${path} holds ${h}`),
+    );
+    expect(found).toEqual([]);
   }
 
   beforeAll(async () => {
@@ -165,6 +251,22 @@ describe('blinded review', () => {
     restId = (rest.body as RecordingView).id;
     await waitForState(t, 'technician', restId, ['ready']);
     await t.computationsIdle();
+    // The recording was uploaded and computed on the day of the visit, as it would be at a site:
+    // every time stamp of the visit's rows then carries the visit date.
+    const onTheDay = `${VISIT_DATE}T09:30:00.000Z`;
+    for (const table of ['recording', 'job', 'analysis_run', 'report', 'flag', 'visit_review']) {
+      const columns = (
+        (await t.dataSource.query(`PRAGMA table_info("${table}")`)) as Array<{ name: string }>
+      ).map((c) => c.name);
+      const stamps = columns.filter((c) => c.endsWith('At'));
+      const key = columns.includes('visitId') ? 'visitId' : 'recordingId';
+      const ids = key === 'visitId' ? [visitId] : [restId];
+      if (stamps.length === 0 || !columns.includes(key)) continue;
+      await t.dataSource.query(
+        `UPDATE "${table}" SET ${stamps.map((c) => `"${c}" = CASE WHEN "${c}" IS NULL THEN NULL ELSE ? END`).join(', ')} WHERE "${key}" = ?`,
+        [...stamps.map(() => onTheDay), ...ids],
+      );
+    }
   }, 120_000);
   afterAll(async () => {
     await t.close();
@@ -257,6 +359,42 @@ describe('blinded review', () => {
     )) as Array<{ code: string }>;
     expect(stored.code).toBe(item.blindCode);
   });
+
+  it('leaves nothing in any GET answer that ties the blinded visit to its facts', async () => {
+    const answers = await sweep(await as('analyst'));
+    expect(answers.length).toBeGreaterThan(60);
+    expectNoneHolds(answers, hiddenFacts());
+    // The study-wide surfaces say why they are closed and to whom; other roles keep them.
+    const studyId = t.seed.studies.A.id;
+    for (const path of [
+      `/api/studies/${studyId}/overview`,
+      `/api/studies/${studyId}/results.csv`,
+      `/api/studies/${studyId}/conditions.csv`,
+      `/api/studies/${studyId}/export.zip`,
+    ]) {
+      const refused = await get(await as('analyst'), path, 403);
+      expect(refused.body as { code: string; message: string }).toMatchObject({
+        code: 'BLINDING_STUDY_CLOSED',
+        message: expect.stringMatching(
+          /^Blinded review is on for this study: .* closed to analysts/,
+        ) as unknown,
+      });
+      await get(await as('monitor'), path);
+    }
+    const participant = await get(
+      await as('analyst'),
+      `/api/participants/${t.seed.participants.A1.id}`,
+      403,
+    );
+    expect((participant.body as { code: string }).code).toBe('BLINDING_PARTICIPANT_BLINDED');
+    // Times of the visit's rows are counted from its first upload, not dated.
+    const recording = (await get(await as('analyst'), `/api/recordings/${restId}`))
+      .body as RecordingView;
+    expect([recording.createdAt, recording.participantId]).toEqual([
+      '1970-01-01T00:00:00.000Z',
+      null,
+    ]);
+  }, 120_000);
 
   it('never blinds a technician or a monitor', async () => {
     const monitor = await worklist(await as('monitor'));
@@ -358,6 +496,25 @@ describe('blinded review', () => {
       after: expect.objectContaining({ code, blinded: false, decision: 'noFlag' }) as unknown,
     });
   });
+
+  it('after the decision, shows that visit in every GET answer but still none of the others', async () => {
+    const answers = await sweep(await as('analyst'));
+    expect(answers.some((a) => a.text.includes(PLANNED_NAME))).toBe(true);
+    expect(answers.some((a) => a.text.includes(participantCode))).toBe(true);
+    expectNoneHolds(answers, [OTHER_VISIT_DATE, otherVisitId]);
+    await get(await as('analyst'), `/api/participants/${t.seed.participants.A1.id}`);
+    const recording = (await get(await as('analyst'), `/api/recordings/${restId}`))
+      .body as RecordingView;
+    expect(recording.createdAt).toBe(`${VISIT_DATE}T09:30:00.000Z`);
+    // The second analyst has decided nothing yet: still nothing of the visit.
+    expectNoneHolds(await sweep(secondAnalyst), [
+      VISIT_DATE,
+      PLANNED_NAME,
+      GROUP_NAME,
+      participantCode,
+      otherVisitId,
+    ]);
+  }, 120_000);
 
   it('raises the flag with a "flag" decision, in the same transaction as the unblinding', async () => {
     const decided = await request(t.url)

@@ -27,3 +27,29 @@ export function shownVisitFacts<T extends ShownVisitFacts>(facts: T, code: strin
     blindCode: code,
   };
 }
+
+/**
+ * The instant a blinded visit's first upload is shown at: every time stamp of the visit's
+ * recordings, runs, report and worklist items is shown as its distance from that upload,
+ * counted from here, so order and intervals stay and the calendar date does not.
+ */
+export const BLINDED_TIME_ZERO = '1970-01-01T00:00:00.000Z';
+
+/** A time stamp of a blinded visit, as the distance from `origin` (its first upload). */
+export type BlindedClock = (iso: string) => string;
+
+export function blindedClock(origin: string | null): BlindedClock {
+  const zero = origin === null ? Number.NaN : Date.parse(origin);
+  return (iso) => {
+    const at = Date.parse(iso);
+    return Number.isNaN(zero) || Number.isNaN(at)
+      ? BLINDED_TIME_ZERO
+      : new Date(Math.max(0, at - zero)).toISOString();
+  };
+}
+
+/** A visit still blinded for the caller: its code and its clock. */
+export interface BlindedVisit {
+  code: string;
+  clock: BlindedClock;
+}

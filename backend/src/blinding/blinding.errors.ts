@@ -5,6 +5,8 @@ export enum BlindingError {
   VisitNotFound = 'BLINDING_VISIT_NOT_FOUND',
   VisitBlinded = 'BLINDING_VISIT_BLINDED',
   NotBlinded = 'BLINDING_NOT_BLINDED',
+  StudyClosed = 'BLINDING_STUDY_CLOSED',
+  ParticipantBlinded = 'BLINDING_PARTICIPANT_BLINDED',
 }
 
 /** The one place each code gets its kind (and so its HTTP status, http-exception.filter.ts). */
@@ -12,6 +14,8 @@ export const BLINDING_ERROR_KINDS = {
   [BlindingError.VisitNotFound]: ErrorKind.NotFound,
   [BlindingError.VisitBlinded]: ErrorKind.Forbidden,
   [BlindingError.NotBlinded]: ErrorKind.Conflict,
+  [BlindingError.StudyClosed]: ErrorKind.Forbidden,
+  [BlindingError.ParticipantBlinded]: ErrorKind.Forbidden,
 } as const satisfies Record<BlindingError, ErrorKind>;
 
 /** A GyreException of this module: the kind comes from BLINDING_ERROR_KINDS. */

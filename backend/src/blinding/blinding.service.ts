@@ -7,6 +7,7 @@ import { WriteTransactionsService } from '../common/database/write-transactions.
 import { nowIso } from '../common/time';
 import { Study } from '../studies/study.entity';
 import { newBlindCode } from './blind-codes';
+import { blindedClock, type BlindedVisit } from './blinded-visit-facts';
 import { BlindingError, blindingError } from './blinding.errors';
 import { VisitBlindCode } from './visit-blind-code.entity';
 import { VisitUnblinding } from './visit-unblinding.entity';
@@ -74,6 +75,74 @@ export class BlindingService {
       .getRepository(VisitUnblinding)
       .find({ where: { userId: caller.user.id }, select: { visitId: true } });
     return rows.map((row) => row.visitId);
+  }
+
+  /**
+   * For participant pages: null when blinded review does not apply to the caller, else the
+   * only participants of their study they may open (those with a visit they decided on).
+   */
+  async unblindedParticipantIds(caller: Caller): Promise<Set<string> | null> {
+    if (!(await this.appliesTo(caller))) return null;
+    const rows = await this.dataSource
+      .getRepository(VisitUnblinding)
+      .find({ where: { userId: caller.user.id }, select: { participantId: true } });
+    return new Set(rows.map((row) => row.participantId));
+  }
+
+  /**
+   * Refuses (403) a participant's page to an analyst who has decided on none of the
+   * participant's visits: the page would tie still-blinded visits to the participant.
+   */
+  async assertParticipantVisible(caller: Caller, participantId: string): Promise<void> {
+    const open = await this.unblindedParticipantIds(caller);
+    if (open === null || open.has(participantId)) return;
+    throw blindingError(
+      BlindingError.ParticipantBlinded,
+      `Blinded review is on for this study: participant ${participantId} opens for you once you have recorded your decision on one of their visits (on its Review screen).`,
+      { participantId },
+    );
+  }
+
+  /**
+   * Refuses (403) a study-wide surface (overview, exports) to an analyst of a study with
+   * blinded review on: it ties every visit to its date, planned visit, group and participant.
+   */
+  async assertStudyOpen(caller: Caller, studyId: string, surface: string): Promise<void> {
+    if (studyId !== caller.user.studyId || !(await this.appliesTo(caller))) return;
+    throw blindingError(
+      BlindingError.StudyClosed,
+      `Blinded review is on for this study: ${surface} closed to analysts until an admin switches blinded review off (Study set-up). Your worklist and Review stay open.`,
+      { studyId },
+    );
+  }
+
+  /**
+   * The visits among `visitIds` still blinded for the caller, each with its code and the clock
+   * that shows its time stamps as the distance from its first upload (blinded-visit-facts.ts).
+   */
+  async blindedVisits(
+    caller: Caller,
+    visitIds: readonly string[],
+  ): Promise<Map<string, BlindedVisit>> {
+    const codes = await this.blindedCodes(caller, visitIds);
+    const out = new Map<string, BlindedVisit>();
+    const blinded = [...codes.keys()];
+    for (let i = 0; i < blinded.length; i += CHUNK) {
+      const chunk = blinded.slice(i, i + CHUNK);
+      const rows = (await this.dataSource.query(
+        `SELECT "visitId", MIN("createdAt") AS "origin" FROM "recording"
+          WHERE "visitId" IN (${chunk.map(() => '?').join(',')}) GROUP BY "visitId"`,
+        chunk,
+      )) as Array<{ visitId: string; origin: string }>;
+      const origins = new Map(rows.map((row) => [row.visitId, row.origin]));
+      for (const visitId of chunk) {
+        out.set(visitId, {
+          code: codes.get(visitId) ?? '',
+          clock: blindedClock(origins.get(visitId) ?? null),
+        });
+      }
+    }
+    return out;
   }
 
   /** Whether one visit is blinded for the caller. */

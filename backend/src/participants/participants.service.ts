@@ -73,6 +73,12 @@ export class ParticipantsService {
       where.push(`p."groupId" = ?`);
       params.push(query.groupId);
     }
+    // Blinded review: an analyst lists only participants with a visit they decided on.
+    const open = await this.blinding.unblindedParticipantIds(caller);
+    if (open !== null) {
+      where.push(`p."id" IN (SELECT value FROM json_each(?))`);
+      params.push(JSON.stringify([...open]));
+    }
     const sort = PARTICIPANT_SORT_FIELDS.find((field) => field === (query.sort ?? 'code'));
     if (sort === undefined) throw new Error(`Unknown sort ${String(query.sort)}`);
     const rows = (this.rowsSql ??= new SqlEntityRows<Participant>(
@@ -105,7 +111,9 @@ export class ParticipantsService {
   }
 
   async get(caller: Caller, id: string): Promise<ParticipantView> {
-    return toParticipantView(await this.findInScope(caller, 'read', id));
+    const participant = await this.findInScope(caller, 'read', id);
+    await this.blinding.assertParticipantVisible(caller, participant.id);
+    return toParticipantView(participant);
   }
 
   async create(caller: Caller, dto: CreateParticipantDto): Promise<ParticipantView> {

@@ -19,6 +19,8 @@ import type {
   RunTrigger,
 } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
+import type { BlindedClock } from '../blinding/blinded-visit-facts';
+import { blindedRecordingView } from '../blinding/blinded-views';
 import { BlindingService } from '../blinding/blinding.service';
 import type { AuditActor } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
@@ -184,13 +186,16 @@ export class RecordingsService {
       const value = query[key];
       if (value !== undefined) filters[key] = value;
     }
+    const where = { ...filters } as FindOptionsWhere<Recording>;
+    // Blinded review: a participant's recordings list only the visits the analyst decided on.
+    const open =
+      filters.participantId === undefined ? null : await this.blinding.unblindedVisitIds(caller);
+    if (open !== null) {
+      where.visitId =
+        filters.visitId === undefined ? In(open) : In(open.filter((id) => id === filters.visitId));
+    }
     const [rows, total] = await this.dataSource.getRepository(Recording).findAndCount({
-      where: scopedWhere<Recording>(
-        caller.ability,
-        'read',
-        'Recording',
-        filters as FindOptionsWhere<Recording>,
-      ),
+      where: scopedWhere<Recording>(caller.ability, 'read', 'Recording', where),
       order: { [query.sort ?? 'createdAt']: window.order, id: window.order },
       skip: window.skip,
       take: window.take,
@@ -207,14 +212,24 @@ export class RecordingsService {
     return view;
   }
 
-  /** Blinded review: an uploaded file's own name may carry a date, so a blinded analyst gets none. */
+  /** Blinded review: what an analyst may see of recordings of visits blinded for them. */
   private async shownTo(caller: Caller, views: RecordingView[]): Promise<RecordingView[]> {
-    const blinded = await this.blinding.blindedCodes(caller, [
+    const blinded = await this.blinding.blindedVisits(caller, [
       ...new Set(views.map((v) => v.visitId)),
     ]);
-    return blinded.size === 0
-      ? views
-      : views.map((v) => (blinded.has(v.visitId) ? { ...v, fileName: null } : v));
+    if (blinded.size === 0) return views;
+    return views.map((v) => {
+      const clock = blinded.get(v.visitId)?.clock;
+      return clock === undefined ? v : blindedRecordingView(v, clock);
+    });
+  }
+
+  /**
+   * The clock of the recording's visit when it is blinded for the caller (blinded review), for
+   * the results and runs read through this module; null when the caller sees it as it is.
+   */
+  async blindedClockOf(caller: Caller, visitId: string): Promise<BlindedClock | null> {
+    return (await this.blinding.blindedVisits(caller, [visitId])).get(visitId)?.clock ?? null;
   }
 
   /** The stored copy (patient field blanked) of an accepted recording, current or superseded. */

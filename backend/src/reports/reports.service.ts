@@ -2,10 +2,12 @@ import { randomUUID } from 'node:crypto';
 import { Injectable, Logger } from '@nestjs/common';
 import { OnEvent } from '@nestjs/event-emitter';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, EntityManager, FindOptionsWhere } from 'typeorm';
+import { DataSource, EntityManager, FindOptionsWhere, In } from 'typeorm';
 import type { Action, Page, ReportView } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
+import { blindedReportView } from '../blinding/blinded-views';
+import { BlindingService } from '../blinding/blinding.service';
 import type { Caller } from '../auth/decorators';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
@@ -33,6 +35,7 @@ export class ReportsService {
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
+    private readonly blinding: BlindingService,
   ) {}
 
   @OnEvent(AnalysisEvents.VisitResultsChanged, { async: true, promisify: true })
@@ -91,13 +94,12 @@ export class ReportsService {
       const value = query[key];
       if (value !== undefined) filters[key] = value;
     }
+    const where = { ...filters } as FindOptionsWhere<Report>;
+    // Blinded review: an analyst lists only the reports of visits they decided on.
+    const open = await this.blinding.unblindedVisitIds(caller);
+    if (open !== null) where.visitId = In(open);
     const found = await this.dataSource.getRepository(Report).findAndCount({
-      where: scopedWhere<Report>(
-        caller.ability,
-        'read',
-        'Report',
-        filters as FindOptionsWhere<Report>,
-      ),
+      where: scopedWhere<Report>(caller.ability, 'read', 'Report', where),
       order: { [query.sort ?? 'createdAt']: window.order, id: window.order },
       skip: window.skip,
       take: window.take,
@@ -114,7 +116,10 @@ export class ReportsService {
         visitId,
       });
     }
-    return toReportView(report);
+    const clock = (await this.blinding.blindedVisits(caller, [visitId])).get(visitId)?.clock;
+    return clock === undefined
+      ? toReportView(report)
+      : blindedReportView(toReportView(report), clock);
   }
 
   /** For other modules: the visit's report if the caller may `action` it, else null (their 404). */

@@ -1,10 +1,11 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, FindOptionsWhere } from 'typeorm';
+import { DataSource, FindOptionsWhere, In } from 'typeorm';
 import type { Page, ReportRevisionView } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
+import { BlindingService } from '../blinding/blinding.service';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { RevisionListQueryDto } from './dto/revision-list-query.dto';
@@ -29,6 +30,7 @@ export class ReportRevisionsService {
     private readonly files: ReportFilesService,
     private readonly notifications: ReportNotificationsService,
     private readonly views: RevisionViewsService,
+    private readonly blinding: BlindingService,
   ) {}
 
   async list(caller: Caller, query: RevisionListQueryDto): Promise<Page<ReportRevisionView>> {
@@ -39,6 +41,13 @@ export class ReportRevisionsService {
     for (const key of ['visitId', 'participantId', 'siteId', 'reportId'] as const) {
       const value = query[key];
       if (value !== undefined) filters[key] = value;
+    }
+    // Blinded review: an analyst lists only the revisions of visits they decided on.
+    const open = await this.blinding.unblindedVisitIds(caller);
+    if (open !== null) {
+      filters.visitId = In(
+        query.visitId === undefined ? open : open.filter((id) => id === query.visitId),
+      );
     }
     const [rows, total] = await this.dataSource.getRepository(ReportRevision).findAndCount({
       where: scopedWhere<ReportRevision>(caller.ability, 'read', 'Report', filters),
@@ -79,6 +88,7 @@ export class ReportRevisionsService {
         { reportId },
       );
     }
+    await this.blinding.assertVisible(caller, { id: row.visitId, studyId: row.studyId });
     return this.serve(caller, row);
   }
 
@@ -116,6 +126,8 @@ export class ReportRevisionsService {
         { revisionId },
       );
     }
+    // A revision names the visit's participant, date and planned visit (blinded review).
+    await this.blinding.assertVisible(caller, { id: row.visitId, studyId: row.studyId });
     return row;
   }
 }

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { AnalysisModule } from '../analysis/analysis.module';
+import { BlindingModule } from '../blinding/blinding.module';
 import { FlagsModule } from '../flags/flags.module';
 import { RecordingsModule } from '../recordings/recordings.module';
 import { ScheduleModule } from '../schedule/schedule.module';
@@ -10,7 +11,14 @@ import { StudyExportsService } from './study-exports.service';
 
 /** Results exports for statisticians: results.csv with its dictionary, and export.zip (BIDS). */
 @Module({
-  imports: [AnalysisModule, FlagsModule, RecordingsModule, ScheduleModule, StudiesModule],
+  imports: [
+    AnalysisModule,
+    BlindingModule,
+    FlagsModule,
+    RecordingsModule,
+    ScheduleModule,
+    StudiesModule,
+  ],
   controllers: [StudyExportsController],
   providers: [StudyExportsService, StudyExportSources],
 })

@@ -5,6 +5,7 @@ import archiver from 'archiver';
 import type { Response } from 'express';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
+import { BlindingService } from '../blinding/blinding.service';
 import { bidsFiles, measureRowCount } from './bids-layout';
 import { CONDITION_FREE_TEXT, CONDITION_HEADER, conditionRows } from './condition-columns';
 import type { StudyExportModel } from './export-model';
@@ -60,10 +61,17 @@ export class StudyExportsService {
   constructor(
     private readonly sources: StudyExportSources,
     private readonly audit: AuditService,
+    private readonly blinding: BlindingService,
   ) {}
 
+  /** The study's export model; refused (403) to its analysts while blinded review is on. */
+  private async openModel(caller: Caller, studyId: string): Promise<StudyExportModel> {
+    await this.blinding.assertStudyOpen(caller, studyId, 'study exports are');
+    return this.sources.model(caller, studyId);
+  }
+
   async resultsCsv(caller: Caller, studyId: string, response: Response): Promise<void> {
-    const model = await this.sources.model(caller, studyId);
+    const model = await this.openModel(caller, studyId);
     // First pass: what the file holds, for the audit entry (rows and checksum; nothing kept).
     const hash = createHash('sha256');
     let rows = 0;
@@ -92,7 +100,7 @@ export class StudyExportsService {
 
   /** conditions.csv: one row per visit × task recording × condition (audited as results.csv). */
   async conditionsCsv(caller: Caller, studyId: string, response: Response): Promise<void> {
-    const model = await this.sources.model(caller, studyId);
+    const model = await this.openModel(caller, studyId);
     const rows = [...conditionRows(model)];
     const text = tableText(
       'csv',
@@ -122,7 +130,7 @@ export class StudyExportsService {
   }
 
   async exportZip(caller: Caller, studyId: string, response: Response): Promise<void> {
-    const model = await this.sources.model(caller, studyId);
+    const model = await this.openModel(caller, studyId);
     const names = exportNames(model.study.code, today());
     // First pass: the manifest (sha256sum's format, "<hex>  <path>\n" per file, in zip order).
     const manifest = createHash('sha256');

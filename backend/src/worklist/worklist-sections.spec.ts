@@ -1,5 +1,6 @@
 import type { VisitReviewView } from '@gyre/shared';
 import type { Flag } from '../flags/flag.entity';
+import { blindedClock } from '../blinding/blinded-visit-facts';
 import { reviewFingerprintOf } from '../visit-reviews/review-fingerprint';
 import {
   reviewSections,
@@ -243,7 +244,7 @@ describe('sorting and wording', () => {
           flags: [],
         }).unreviewed![0],
     );
-    const codes = new Map([['v1', 'B-7KQ2']]);
+    const codes = new Map([['v1', { code: 'B-7KQ2', clock: blindedClock(items[1].since) }]]);
     const shown = items.map((i) => shownItem(i, codes));
     const blinded = shown.find((i) => i.visitId === 'v1');
     expect(blinded).toMatchObject({
@@ -255,6 +256,8 @@ describe('sorting and wording', () => {
       participantCode: null,
       link: { screen: 'review', visitId: 'v1', participantId: null },
     });
+    // Its waiting time is counted from its first upload, not dated (docs/user-guide.md).
+    expect(blinded?.since).toMatch(/^1970-01-01T/);
     // Nothing of the visit but its id, its code and what waits is left in the item.
     expect(JSON.stringify(blinded)).not.toMatch(/GY-1|2026-01-15|"p1"/);
     expect(shown.find((i) => i.visitId === 'v2')).toEqual(items.find((i) => i.visitId === 'v2'));

@@ -6,7 +6,11 @@ import type {
   WorklistSort,
 } from '@gyre/shared';
 import { formatDeltaHz } from '@gyre/shared';
-import { shownVisitFacts } from '../blinding/blinded-visit-facts';
+import {
+  BLINDED_TIME_ZERO,
+  shownVisitFacts,
+  type BlindedVisit,
+} from '../blinding/blinded-visit-facts';
 import type { Flag } from '../flags/flag.entity';
 import { reviewFingerprintOf } from '../visit-reviews/review-fingerprint';
 import type { ReportHead } from '../signoff/report-heads.reads';
@@ -69,6 +73,12 @@ function item(
     since: extra.since,
     link: { screen, participantId: facts.participantId, visitId: facts.visitId },
   };
+}
+
+/** An intake item about one upload, keyed by its recording. */
+function uploadItem(row: UploadRow, since: string, what: string): WorklistItem {
+  const { recordingId, kind } = row;
+  return item(row, { key: recordingId, kind, recordingId, since, what }, 'intake');
 }
 
 const day = (iso: string): string => iso.slice(0, 10);
@@ -240,47 +250,23 @@ export function uploadSections(input: UploadInput): SectionItems {
         );
         if (!fixed) {
           rejected.push(
-            item(
+            uploadItem(
               row,
-              {
-                key: row.recordingId,
-                kind: row.kind,
-                recordingId: row.recordingId,
-                since: row.updatedAt,
-                what: `The ${KIND_WORD[row.kind]} upload was rejected: ${row.rejection ?? 'no reason recorded'}`,
-              },
-              'intake',
+              row.updatedAt,
+              `The ${KIND_WORD[row.kind]} upload was rejected: ${row.rejection ?? 'no reason recorded'}`,
             ),
           );
         }
       } else if (row.state === 'failed') {
-        failed.push(
-          item(
-            row,
-            {
-              key: row.recordingId,
-              kind: row.kind,
-              recordingId: row.recordingId,
-              since: row.updatedAt,
-              what: failureText(row.kind, row.failureMessage),
-            },
-            'intake',
-          ),
-        );
+        failed.push(uploadItem(row, row.updatedAt, failureText(row.kind, row.failureMessage)));
       }
       const words = input.warnings.get(row.recordingId);
       if (row.hasWarnings && row.state !== 'rejected' && words !== undefined && words.length > 0) {
         warnings.push(
-          item(
+          uploadItem(
             row,
-            {
-              key: row.recordingId,
-              kind: row.kind,
-              recordingId: row.recordingId,
-              since: row.createdAt,
-              what: `${capitalised(KIND_WORD[row.kind])} recording: ${words[0]}${words.length > 1 ? ` (and ${words.length - 1} more)` : ''}`,
-            },
-            'intake',
+            row.createdAt,
+            `${capitalised(KIND_WORD[row.kind])} recording: ${words[0]}${words.length > 1 ? ` (and ${words.length - 1} more)` : ''}`,
           ),
         );
       }
@@ -315,10 +301,18 @@ export function uploadSections(input: UploadInput): SectionItems {
  * The item as the caller may see it: under blinded review, a visit blinded for the caller
  * (`codes`: visit id → code) shows its code only, its link no participant.
  */
-export function shownItem(item: WorklistItem, codes: ReadonlyMap<string, string>): WorklistItem {
-  const code = codes.get(item.visitId) ?? null;
-  if (code === null) return item;
-  return { ...shownVisitFacts(item, code), link: { ...item.link, participantId: null } };
+export function shownItem(
+  item: WorklistItem,
+  blinded: ReadonlyMap<string, BlindedVisit>,
+): WorklistItem {
+  const visit = blinded.get(item.visitId);
+  if (visit === undefined) return item;
+  return {
+    ...shownVisitFacts(item, visit.code),
+    // A time stamp of the visit's own rows would give away its date; a plain date is its date.
+    since: /^\d{4}-\d{2}-\d{2}$/.test(item.since) ? BLINDED_TIME_ZERO : visit.clock(item.since),
+    link: { ...item.link, participantId: null },
+  };
 }
 
 /**

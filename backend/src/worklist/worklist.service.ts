@@ -101,10 +101,12 @@ export class WorklistService {
   /** Blinded review: each item of a visit blinded for the caller under its code (before sorting). */
   private async shown(caller: Caller, items: SectionItems): Promise<SectionItems> {
     const all = Object.values(items).flat();
-    const codes = await this.blinding.blindedCodes(caller, [...new Set(all.map((i) => i.visitId))]);
-    if (codes.size === 0) return items;
+    const blinded = await this.blinding.blindedVisits(caller, [
+      ...new Set(all.map((i) => i.visitId)),
+    ]);
+    if (blinded.size === 0) return items;
     return Object.fromEntries(
-      Object.entries(items).map(([key, list]) => [key, list.map((i) => shownItem(i, codes))]),
+      Object.entries(items).map(([key, list]) => [key, list.map((i) => shownItem(i, blinded))]),
     );
   }
 

@@ -144,4 +144,29 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
       ),
     ).toBeInTheDocument();
   });
+
+  it("explains a participant's page closed by blinded review instead of failing", async () => {
+    serve();
+    server.use(
+      http.get(`/api/participants/${PARTICIPANT.id}`, () =>
+        HttpResponse.json(
+          {
+            statusCode: 403,
+            code: 'BLINDING_PARTICIPANT_BLINDED',
+            message: 'Blinded review is on for this study',
+          },
+          { status: 403 },
+        ),
+      ),
+    );
+    renderApp(`/participants/${PARTICIPANT.id}`, meFor('analyst'));
+    const notice = await screen.findByRole(
+      'note',
+      { name: 'Closed during blinded review' },
+      { timeout: 15_000 },
+    );
+    expect(notice).toHaveTextContent("This participant's page is closed to you");
+    expect(notice).toHaveTextContent('opens once you have recorded your decision');
+    expect(screen.queryByText(PARTICIPANT.code)).toBeNull();
+  });
 });

@@ -9,6 +9,7 @@ import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { GYRE_COLORS } from '../../../app/theme';
 import { PageHeader } from '../../../components/page-header';
+import { BlindedClosedNotice, isBlindedRefusal } from '../../../components/blinded-review-notice';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { studyDayText, VisitWindowTag } from '../../../components/visit-window-tag';
@@ -85,6 +86,17 @@ export function ParticipantPage() {
   const groups = useGroups(participant.data?.studyId ?? null);
 
   const failed = participant.error ?? trajectory.error ?? visits.error;
+  if (isBlindedRefusal(participant.error)) {
+    return (
+      <>
+        <ResearchCaution />
+        <BlindedClosedNotice
+          what="This participant's page"
+          reason="It would tie visits you have not decided on to the participant. It opens once you have recorded your decision (a flag, or no flag, with a reason) on one of their visits in Review; until then your worklist lists their visits under codes."
+        />
+      </>
+    );
+  }
   if (failed !== undefined) {
     return (
       <>

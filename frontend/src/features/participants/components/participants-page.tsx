@@ -4,11 +4,14 @@ import type { TablePaginationConfig, TableProps } from 'antd';
 import { useEffect, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
+import { BlindedReviewNotice } from '../../../components/blinded-review-notice';
 import { PageHeader } from '../../../components/page-header';
 import { ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { formatDate, formatDeltaHz, formatHz } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
+import { useSession } from '../../../lib/session/session-context';
+import { useStudy } from '../../../lib/studies';
 import { useSites } from '../api/get-sites';
 import {
   PARTICIPANT_SORTS,
@@ -42,6 +45,9 @@ export function ParticipantsPage() {
   const participants = useParticipants(query);
   const sites = useSites();
   const ability = useAppAbility();
+  const { me } = useSession();
+  const study = useStudy(me.user.role === 'analyst' ? (me.study?.id ?? null) : null);
+  const blinded = study.data?.blindedReview === true;
   // The hint shows a real code of the study: the first one the unfiltered list gave.
   const [exampleCode, setExampleCode] = useState<string | null>(null);
   const firstCode = participants.data?.items[0]?.code;
@@ -98,6 +104,9 @@ export function ParticipantsPage() {
         title="Participants"
         description="Everyone enrolled in your study, by pseudonymous code. Open one to follow their alpha rhythm across visits."
       />
+      {blinded && (
+        <BlindedReviewNotice description="Only participants with a visit you have recorded your decision on are listed, with those visits alone. The others appear once you decide on one of their visits in Review." />
+      )}
       <Card>
         <Flex wrap gap={12} className="gyre-below">
           <Input.Search

@@ -95,7 +95,9 @@ export function ReportsPage() {
       key: 'file',
       width: 150,
       render: (_, report) => {
-        const name = `${context.participantCode(report.participantId) ?? report.participantId.slice(0, 8)}-${context.visit(report.visitId)?.label ?? report.visitId.slice(0, 8)}`;
+        // No participant while the visit is blinded for the caller (blinded review).
+        const who = report.participantId ?? '';
+        const name = `${context.participantCode(who) ?? who.slice(0, 8)}-${context.visit(report.visitId)?.label ?? report.visitId.slice(0, 8)}`;
         return hasFile(report) ? (
           <Button
             size="small"

@@ -20,7 +20,7 @@ describe('StudyExportLinks', () => {
   });
   afterEach(() => createObjectURL.mockClear());
 
-  it('shows the research caution and downloads both exports with the session token', async () => {
+  it('shows the research caution and downloads each export with the session token', async () => {
     const asked: Array<{ path: string; auth: string | null }> = [];
     server.use(
       http.get('/api/studies/s-1/results.csv', ({ request }) => {
@@ -31,6 +31,10 @@ describe('StudyExportLinks', () => {
             'Content-Disposition': 'attachment; filename="gyre-ALPHA-results-2026-01-01.csv"',
           },
         });
+      }),
+      http.get('/api/studies/s-1/conditions.csv', ({ request }) => {
+        asked.push({ path: 'conditions.csv', auth: request.headers.get('authorization') });
+        return new HttpResponse('study_code\r\n', { headers: { 'Content-Type': 'text/csv' } });
       }),
       http.get('/api/studies/s-1/export.zip', ({ request }) => {
         asked.push({ path: 'export.zip', auth: request.headers.get('authorization') });
@@ -55,9 +59,13 @@ describe('StudyExportLinks', () => {
     await user.click(screen.getByRole('button', { name: 'BIDS derivatives (ZIP)' }));
     await waitFor(() => expect(createObjectURL).toHaveBeenCalledTimes(2));
     expect(createObjectURL.mock.calls[1][0].size).toBe(4);
+    await user.click(screen.getByRole('button', { name: 'Conditions table (CSV)' }));
+    await waitFor(() => expect(createObjectURL).toHaveBeenCalledTimes(3));
+    expect(createObjectURL.mock.calls[2][0].size).toBe('study_code\r\n'.length);
     expect(asked).toEqual([
       { path: 'results.csv', auth: 'Bearer test-access-token' },
       { path: 'export.zip', auth: 'Bearer test-access-token' },
+      { path: 'conditions.csv', auth: 'Bearer test-access-token' },
     ]);
   });
 

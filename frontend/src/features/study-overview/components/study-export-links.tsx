@@ -6,11 +6,12 @@ import { downloadStudyExport, type StudyExportKind } from '../api/study-exports'
 
 const LABELS: Record<StudyExportKind, string> = {
   'results-csv': 'Results table (CSV)',
+  'conditions-csv': 'Conditions table (CSV)',
   'bids-zip': 'BIDS derivatives (ZIP)',
 };
 
 /**
- * The study's two results exports for statisticians, with the research-use caution. Each
+ * The study's results exports for statisticians, with the research-use caution. Each
  * download is recorded in the audit trail by the server. Placed by the study overview.
  */
 export function StudyExportLinks({ studyId }: { studyId: string }) {

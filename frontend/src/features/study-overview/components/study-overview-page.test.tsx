@@ -117,6 +117,32 @@ describe('Study overview', { timeout: 60_000 }, () => {
     ).toBeInTheDocument();
   });
 
+  it('tells a blinded analyst why the overview and its exports are closed', async () => {
+    server.use(
+      http.get('/api/studies/:studyId/overview', () =>
+        HttpResponse.json(
+          {
+            statusCode: 403,
+            code: 'BLINDING_STUDY_CLOSED',
+            message:
+              'Blinded review is on for this study: the study overview is closed to analysts',
+          },
+          { status: 403 },
+        ),
+      ),
+    );
+    renderApp('/study-overview', meFor('analyst'));
+    const notice = await screen.findByRole(
+      'note',
+      { name: 'Closed during blinded review' },
+      { timeout: 15_000 },
+    );
+    expect(notice).toHaveTextContent('closed to you while blinded review is on');
+    expect(notice).toHaveTextContent('Your worklist and Review stay open');
+    expect(screen.queryByRole('region', { name: 'Results exports' })).toBeNull();
+    expect(screen.queryByRole('button', { name: /retry/i })).toBeNull();
+  });
+
   it('is not open to technicians', async () => {
     renderApp('/study-overview', meFor('technician'));
     expect(

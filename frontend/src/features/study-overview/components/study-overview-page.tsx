@@ -2,6 +2,7 @@ import { Alert, Card, Form, Segmented, Select } from 'antd';
 import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { PageHeader } from '../../../components/page-header';
+import { BlindedClosedNotice, isBlindedRefusal } from '../../../components/blinded-review-notice';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { useAppAbility } from '../../../lib/session/ability';
@@ -82,6 +83,17 @@ export function StudyOverviewPage() {
       <>
         {header}
         <EmptyState description="Choose a study to see its overview." />
+      </>
+    );
+  }
+  if (isBlindedRefusal(overview.error)) {
+    return (
+      <>
+        {header}
+        <BlindedClosedNotice
+          what="The study overview, with its results exports,"
+          reason="It ties every visit to its planned visit, group and participant, which blinded review keeps from analysts. Your worklist and Review stay open; an admin can switch blinded review off in Study set-up when the blinded period ends."
+        />
       </>
     );
   }
