@@ -153,7 +153,8 @@ export interface RecordingView {
   id: string;
   studyId: string;
   siteId: string;
-  participantId: string;
+  /** Null while the visit is blinded for the caller (blinded review). */
+  participantId: string | null;
   visitId: string;
   kind: RecordingKind;
   state: RecordingState;
@@ -232,6 +233,12 @@ export interface AnalysisSettingsValues {
   compareConditions: [string, string] | null;
 }
 
+/** The analysis-depth settings a run was computed with (read from its stored settings). */
+export type RunDepthSettings = Pick<
+  AnalysisSettingsValues,
+  'amplitudeGatePercentile' | 'cycleDisagreementHz' | 'compareConditions'
+>;
+
 /** `POST /api/studies/:studyId/analysis-settings`: a new version. */
 export interface AnalysisSettingsChange extends AnalysisSettingsValues {
   reason: string;
@@ -252,7 +259,8 @@ export interface AnalysisRunView {
   id: string;
   recordingId: string;
   visitId: string;
-  participantId: string;
+  /** Null while the visit is blinded for the caller (blinded review). */
+  participantId: string | null;
   kind: RecordingKind;
   settingsId: string;
   settingsVersion: number;
@@ -276,6 +284,11 @@ export interface AnalysisRunView {
   roiUsage: RoiUsageView;
   /** The visit override in force when the run was made, if any (its revision). */
   overrideRevision: number | null;
+  /**
+   * The run's own amplitude gate, cross-check threshold and compared pair: what its numbers
+   * and its `cycles.disagrees` were computed with, whatever the study's settings say now.
+   */
+  depthSettings: RunDepthSettings;
   /**
    * What the study's current settings (with the visit's override) would compute differently
    * from this run, in words ("post window 0.2–0.8 s → 0.3–0.9 s"); empty when nothing would
@@ -367,6 +380,17 @@ export interface TaskResultsView {
   /** The cycle-by-cycle cross-check of the region of interest's Δf. */
   cycles: CycleEstimateView | null;
 }
+
+/**
+ * Why epochs were dropped (the keys of `TaskResultsView.epochs.dropped`), in the words Review
+ * and the visit report both print; an unknown key is shown as it came.
+ */
+export const EPOCH_DROP_WORDS: Readonly<Record<string, string>> = {
+  edge: 'too close to the recording edge',
+  amplitude: 'amplitude beyond the rejection threshold',
+  artefact: 'overlapping an artefact annotation',
+  amplitudeGate: 'no sample left in a window after the amplitude gate',
+};
 
 /**
  * `GET /api/recordings/:id/results/raster?runId=`: the region of interest's trial raster and
@@ -514,7 +538,8 @@ export interface FlagChange {
 export interface ReportView {
   id: string;
   visitId: string;
-  participantId: string;
+  /** Null while the visit is blinded for the caller (blinded review). */
+  participantId: string | null;
   siteId: string;
   state: ReportState;
   createdAt: string;

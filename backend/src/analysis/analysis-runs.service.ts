@@ -9,9 +9,11 @@ import type {
   QualityView,
   RecordingResultsView,
   RoiUsageView,
+  RunDepthSettings,
   RunTrigger,
 } from '@gyre/shared';
 import { scopedWhere, scopeSql } from '../auth/access-scope';
+import { blindedResultsView, blindedRunView } from '../blinding/blinded-views';
 import type { Caller } from '../auth/decorators';
 import { SqliteReadsService } from '../common/database/sqlite-reads.service';
 import { currentRunHeads, type CurrentRunHead } from './current-run-heads.reads';
@@ -38,7 +40,7 @@ import {
   trialRasterOf,
 } from './results-http-shape';
 import { SettingsStaleness, type StalenessInput } from './settings-staleness';
-import { settingsJson } from './settings-values';
+import { parseStoredSettings, settingsJson } from './settings-values';
 
 export interface StoreRunInput {
   jobId: string;
@@ -278,7 +280,7 @@ export class AnalysisRunsService {
     recordingId: string,
     query: PageQueryDto,
   ): Promise<Page<AnalysisRunView>> {
-    await this.recordings.findInScope(caller, recordingId, 'read', 'AnalysisRun');
+    const recording = await this.recordings.findInScope(caller, recordingId, 'read', 'AnalysisRun');
     const window = pageWindowOf(query, 'desc');
     const found = await this.dataSource.getRepository(AnalysisRun).findAndCount({
       where: scopedWhere<AnalysisRun>(caller.ability, 'read', 'AnalysisRun', { recordingId }),
@@ -288,7 +290,11 @@ export class AnalysisRunsService {
       take: window.take,
     });
     const stale = await this.staleness(found[0]);
-    return toPage(found, window, (run) => toRunView(run, stale.get(run.id) ?? []));
+    const clock = await this.recordings.blindedClockOf(caller, recording.visitId);
+    return toPage(found, window, (run) => {
+      const view = toRunView(run, stale.get(run.id) ?? []);
+      return clock === null ? view : blindedRunView(view, clock);
+    });
   }
 
   /**
@@ -302,10 +308,13 @@ export class AnalysisRunsService {
   async resultsBody(caller: Caller, recordingId: string, runId?: string): Promise<EncodedBody> {
     const { recording, run } = this.runInScope(caller, recordingId, runId);
     const stale = (await this.staleness([run])).get(run.id) ?? [];
-    const key = `${run.id} results ${JSON.stringify([stale, sourceOf(recording)])}`;
+    // Blinded review: the analyst's answer shows the visit's times by its blinded clock.
+    const clock = await this.recordings.blindedClockOf(caller, run.visitId);
+    const key = `${run.id} results ${JSON.stringify([stale, sourceOf(recording), clock === null ? '' : clock(recording.createdAt)])}`;
     return this.bodies.get(key, async () => {
       const full = await this.storedRun(run.id);
-      return encodeJson(roundedResults(toResultsView(full, recording, stale)));
+      const view = toResultsView(full, recording, stale);
+      return encodeJson(roundedResults(clock === null ? view : blindedResultsView(view, clock)));
     });
   }
 
@@ -503,8 +512,19 @@ export function toRunView(run: AnalysisRun, staleSettings: string[]): AnalysisRu
     trigger: run.trigger,
     roiUsage: roiUsageOf(run),
     overrideRevision: run.overrideRevision,
+    depthSettings: depthSettingsOf(run),
     staleSettings,
     createdAt: run.createdAt,
+  };
+}
+
+/** The analysis-depth settings of a run's stored settings. */
+function depthSettingsOf(run: Pick<AnalysisRun, 'settingsJson'>): RunDepthSettings {
+  const settings = parseStoredSettings(run.settingsJson);
+  return {
+    amplitudeGatePercentile: settings.amplitudeGatePercentile,
+    cycleDisagreementHz: settings.cycleDisagreementHz,
+    compareConditions: settings.compareConditions,
   };
 }
 

@@ -3,6 +3,8 @@ import type { AnalysisRun } from './analysis-run.entity';
 import { toResultsView } from './analysis-runs.service';
 import { encodeResultSeries } from './result-series-codec';
 import { roundedResults } from './results-http-shape';
+import { settingsJson } from './settings-values';
+import { DEFAULT_ANALYSIS_SETTINGS } from '../signal/pipeline/analysis-settings';
 
 // Generated test data: three conditions, the pair named by the study's settings.
 const condition = (label: string, deltaFHz: number, trialsKept: number): ConditionStatsView => ({
@@ -74,6 +76,13 @@ function storedRun(
     visitId: 'visit-1',
     participantId: 'p-1',
     kind: 'task',
+    // The settings the run was computed with: the pair the difference names, the gate at 25.
+    settingsJson: settingsJson({
+      ...DEFAULT_ANALYSIS_SETTINGS,
+      amplitudeGatePercentile: 25,
+      cycleDisagreementHz: 0.2,
+      compareConditions: ['Houses', 'Faces'],
+    }),
     summaryJson: JSON.stringify(summary),
     series: encodeResultSeries({ timeS: Float64Array.of(-0.5, 0, 0.5), ...series }),
   } as unknown as AnalysisRun;
@@ -111,6 +120,15 @@ describe('results view: conditions, their curves and the cycle-by-cycle estimate
     expect(task?.conditions).toEqual(conditions);
     expect(task?.conditionDifference).toEqual(difference);
     expect(task?.cycles).toEqual(cycles);
+  });
+
+  it("gives the run's own analysis-depth settings, read from its stored settings", () => {
+    // What Review judges the cross-check by, whatever the study's settings say later.
+    expect(toResultsView(run, recording, []).run.depthSettings).toEqual({
+      amplitudeGatePercentile: 25,
+      cycleDisagreementHz: 0.2,
+      compareConditions: ['Houses', 'Faces'],
+    });
   });
 
   it('reads each condition curve from its `condition:<label>:…` series, named by the label', () => {

@@ -504,7 +504,7 @@ describe('renderVisitReport', () => {
       // |−0.1402 − (−0.2871)| = 0.1469 → 0.15 Hz, above the 0.10 Hz threshold.
       expect(depth).toContain(
         'Warning: the cycle-by-cycle and the phase-based Δf differ by 0.15 Hz, more than the ' +
-          "study's threshold of 0.10 Hz.",
+          'threshold of 0.10 Hz in the settings the run was computed with.',
       );
     });
 

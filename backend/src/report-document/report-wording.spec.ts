@@ -47,7 +47,7 @@ describe('analysis-depth wording', () => {
 
   it('warns only when the estimates disagree, naming both the difference and the threshold', () => {
     expect(disagreementWarning(SAMPLE_TASK_DEPTH)).toContain(
-      `differ by 0.15${NBSP}Hz, more than the study's threshold of 0.10${NBSP}Hz`,
+      `differ by 0.15${NBSP}Hz, more than the threshold of 0.10${NBSP}Hz in the settings the run was computed with`,
     );
     const agreeing = { ...SAMPLE_TASK_DEPTH.cycles!, disagrees: false };
     expect(disagreementWarning({ ...SAMPLE_TASK_DEPTH, cycles: agreeing })).toBeNull();

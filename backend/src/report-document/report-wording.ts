@@ -1,4 +1,4 @@
-import type { RoiOmissionReason, RoiUsageView } from '@gyre/shared';
+import { EPOCH_DROP_WORDS, type RoiOmissionReason, type RoiUsageView } from '@gyre/shared';
 import type {
   ConditionDifferenceView,
   ConditionPairSource,
@@ -53,18 +53,11 @@ export function noPeakWords(rest: RestSection): string {
   return `no clear peak: ${NO_PEAK_WORDS[rest.noPeakReason] ?? rest.noPeakReason}`;
 }
 
-const DROP_WORDS: Record<string, string> = {
-  edge: 'too close to the recording edge',
-  amplitude: 'amplitude beyond the rejection threshold',
-  artefact: 'overlapping an artefact annotation',
-  amplitudeGate: 'no sample left in a window after the amplitude gate',
-};
-
 /** "3 dropped: 2 amplitude beyond …, 1 too close to …" or "none dropped". */
 export function droppedWords(task: TaskSection): string {
   const parts = Object.entries(task.droppedByReason)
     .filter(([, count]) => count > 0)
-    .map(([reason, count]) => `${count} ${DROP_WORDS[reason] ?? reason}`);
+    .map(([reason, count]) => `${count} ${EPOCH_DROP_WORDS[reason] ?? reason}`);
   if (parts.length === 0) return 'none dropped';
   const total = Object.values(task.droppedByReason).reduce((sum, n) => sum + n, 0);
   return `${total} dropped (${parts.join('; ')})`;
@@ -266,8 +259,8 @@ export function disagreementWarning(depth: TaskDepthSection): string | null {
   if (cycles === null || !cycles.disagrees) return null;
   return (
     `Warning: the cycle-by-cycle and the phase-based Δf differ by ` +
-    `${orMissing(cycles.disagreementHz, formatHz)}, more than the study's threshold of ` +
-    `${formatHz(depth.cycleDisagreementHz)}. The rhythm may not be sinusoidal enough for the ` +
+    `${orMissing(cycles.disagreementHz, formatHz)}, more than the threshold of ` +
+    `${formatHz(depth.cycleDisagreementHz)} in the settings the run was computed with. The rhythm may not be sinusoidal enough for the ` +
     'phase-based estimate.'
   );
 }

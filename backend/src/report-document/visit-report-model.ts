@@ -3,6 +3,7 @@ import type {
   ConditionStatsView,
   CycleEstimateView,
   RoiUsageView,
+  RunDepthSettings,
   ScalpChannelValues,
 } from '@gyre/shared';
 
@@ -178,11 +179,7 @@ export interface ProvenanceEntry {
   codeVersion: string;
   inputChecksumSha256: string;
   /** The run's analysis-depth settings (its settings version holds them too). */
-  depthSettings: {
-    amplitudeGatePercentile: number | null;
-    cycleDisagreementHz: number;
-    compareConditions: [string, string] | null;
-  };
+  depthSettings: RunDepthSettings;
 }
 
 export interface SignatureEntry {

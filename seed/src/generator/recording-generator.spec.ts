@@ -141,6 +141,27 @@ describe('generateTaskRecording (generated data)', () => {
     }
   });
 
+  it('labels the onsets with the given conditions in turn, in the annotations and the CSV', () => {
+    const labelled = generateTaskRecording({
+      seedKey: 'spec/task-labels',
+      startDate: '2024-05-06T09:30:00',
+      trialCount: 5,
+      iafHz,
+      deltaFHz,
+      alphaAmplitudeUv: 20,
+      onsetLabels: ['Tone', 'Word'],
+    });
+    const expected = ['Tone', 'Word', 'Tone', 'Word', 'Tone'];
+    // Read back by the Python EDF+ reader of scipy_reference.py, not by Gyre's reader.
+    const summary = scipyReference<EdfSummary>({
+      op: 'edf_summary',
+      edf: scratch.write('task-labels.edf', labelled.edf),
+    });
+    expect(summary.annotations.map((a) => a.text)).toEqual(expected);
+    const csvRows = (labelled.onsetCsv ?? '').trim().split('\n').slice(1);
+    expect(csvRows.map((row) => row.split(',')[1])).toEqual(expected);
+  });
+
   it('keeps blinks between trials: Fp1 stays quiet inside every −1…+2 s epoch and blinks outside', () => {
     const epochs = task.onsetsS.map((t) => [t - 1, t + 2]);
     const gaps = task.onsetsS.slice(1).map((t, k) => [task.onsetsS[k] + 2, t - 1]);

@@ -77,6 +77,8 @@ export interface TaskRecordingOptions extends RecordingOptions {
   interOnsetIntervalS?: readonly [number, number];
   /** Time before the first and after the last onset, in s. */
   marginS?: number;
+  /** The onsets' labels (conditions), taken in turn; default: every onset `STIMULUS_LABEL`. */
+  onsetLabels?: readonly string[];
 }
 
 export interface GeneratedRecording {
@@ -165,10 +167,12 @@ export function generateTaskRecording(options: TaskRecordingOptions): GeneratedR
     deltaFHz: options.deltaFHz,
     blinks,
   });
-  const annotations: EdfAnnotation[] = onsetsS.map((onsetS) => ({
+  const labels = options.onsetLabels ?? [STIMULUS_LABEL];
+  const labelled = onsetsS.map((onsetS, k) => ({ onsetS, label: labels[k % labels.length] }));
+  const annotations: EdfAnnotation[] = labelled.map(({ onsetS, label }) => ({
     onsetS,
     durationS: null,
-    text: STIMULUS_LABEL,
+    text: label,
   }));
   return {
     kind: 'task',
@@ -177,7 +181,7 @@ export function generateTaskRecording(options: TaskRecordingOptions): GeneratedR
     sampleRateHz,
     channelLabels: signals.map((s) => s.label),
     onsetsS,
-    onsetCsv: writeOnsetCsv(onsetsS.map((onsetS) => ({ onsetS, label: STIMULUS_LABEL }))),
+    onsetCsv: writeOnsetCsv(labelled),
     truth: { iafHz: options.iafHz, deltaFHz: options.deltaFHz },
   };
 }

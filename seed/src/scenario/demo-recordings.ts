@@ -9,6 +9,9 @@ import {
 } from '../generator/recording-generator';
 import type { DemoParticipant, DemoScenario, DemoVisit } from './demo-scenario';
 
+/** The two conditions every demo task alternates, so Review's conditions table has rows. */
+const DEMO_CONDITIONS = ['Tone', 'Word'] as const;
+
 export interface VisitRecordings {
   resting: GeneratedRecording;
   task: GeneratedRecording;
@@ -43,6 +46,7 @@ export function generateVisitRecordings(
       iafHz: visit.iafHz,
       deltaFHz: visit.deltaFHz,
       alphaAmplitudeUv: participant.taskAlphaUv,
+      onsetLabels: DEMO_CONDITIONS,
     }),
   };
 }

@@ -16,9 +16,9 @@
  * A task's output lists every condition (onset label) with its Δf, interval, p and trials
  * under `conditions`, and the difference of two of them under `conditionDifference`: the
  * settings' `compareConditions`, else the first two found; `--compare A,B` names them.
- * Beside the region's phase-based `deltaFHz` it gives `cycleByCycle`, the cycle-by-cycle
- * estimate (docs/method.md, "Cycle-by-cycle cross-check"). `--amplitude-gate` sets the
- * settings' `amplitudeGatePercentile` (1–90, or off), `--cycle-disagreement` their
+ * Beside `phaseBased`, the region's phase-based estimate, it gives `cycleByCycle`, the
+ * cycle-by-cycle one (docs/method.md, "Cycle-by-cycle cross-check"). `--amplitude-gate` sets
+ * the settings' `amplitudeGatePercentile` (1–90, or off), `--cycle-disagreement` their
  * `cycleDisagreementHz` (above 0, at most 2 Hz), as the server's settings rules allow.
  * A bad file or setting ends with exit code 1, a bad option with 2; the reason on stderr.
  */
@@ -38,6 +38,31 @@ import type { EdfFileRead } from '../pipeline/read-edf-file';
 import { chooseConditionPair, conditionKey } from '../trials/condition-statistics';
 
 class UsageError extends Error {}
+
+/** `--help`: the usage line, then what each option does. */
+const HELP = [
+  'Analyses one EDF/EDF+/BDF recording with the signal core and prints JSON on stdout.',
+  '',
+  "  --onsets FILE.csv          onset_s[,label] rows instead of the file's annotations",
+  '  --onset-label TEXT         only onsets with this label (case-insensitive)',
+  '  --kind task|resting|auto   what the recording is (auto: task when it has onsets)',
+  "  --iaf HZ                   the visit's resting IAF; without --band the band is IAF ± 2 Hz",
+  '  --band LO,HI               a fixed analysis band, Hz',
+  '  --method filter|morlet     band-pass filter or complex Morlet wavelet',
+  '  --roi NAME,NAME,…          region of interest as 10-10 names',
+  '  --compare A,B              report the difference Δf(A) − Δf(B) of these two onset labels',
+  "                             (default: the settings' pair, else the first two labels found)",
+  '  --amplitude-gate P|off     leave out instantaneous-frequency samples under percentile P',
+  "                             (1–90) of each channel's alpha envelope; off by default",
+  '  --cycle-disagreement HZ    warn (cycleByCycle.disagrees) when the cycle-by-cycle and the',
+  '                             phase-based Δf differ by more than HZ (0 < HZ ≤ 2; default 0.1)',
+  "  --settings FILE.json       analysis settings fields over Gyre's defaults (flags win)",
+  '  --full                     also print every series and the whole result',
+  '',
+  'A task prints conditions (label, Δf, CI, p, trials per onset label), conditionDifference,',
+  "phaseBased (the region's Δf) and cycleByCycle, then summary. Exit 1: bad file or",
+  'setting; exit 2: bad option.',
+].join('\n');
 
 const USAGE =
   'usage: analyze FILE.edf [--onsets FILE.csv] [--onset-label TEXT] [--kind task|resting|auto] ' +
@@ -289,7 +314,8 @@ export async function main(argv: readonly string[]): Promise<number> {
               trialsTotal: c.trialsTotal,
             })),
             conditionDifference: task.conditionDifference,
-            deltaFHz: outcome.summary.roi?.deltaFHz ?? null,
+            // The region's phase-based estimate (baseline, post, Δf, CI, p, trials).
+            phaseBased: outcome.summary.roi,
             cycleByCycle: task.cycles,
           }
         : {}),
@@ -300,7 +326,7 @@ export async function main(argv: readonly string[]): Promise<number> {
     return 0;
   } catch (error) {
     if (error instanceof HelpRequested) {
-      process.stdout.write(`${USAGE}\n`);
+      process.stdout.write(`${USAGE}\n\n${HELP}\n`);
       return 0;
     }
     if (

@@ -14,7 +14,7 @@ import { gatedShareOf } from './amplitude-gate';
 import { ChannelTable } from './channel-table';
 import { conditionOverlaysOf } from './conditions-overlay';
 import { ConditionsTable } from './conditions-table';
-import { CycleEstimate, disagreementText } from './cycle-estimate';
+import { CycleEstimate, disagreementText, formatHzLike, thresholdWords } from './cycle-estimate';
 import { OnsetCurveChart } from './onset-curve-chart';
 import { conditionStroke, onsetCurveSpec } from './onset-curve-spec';
 
@@ -108,7 +108,7 @@ describe('the Conditions card', { timeout: 30_000 }, () => {
     const row = screen.getByText('Difference Tone − Word').closest('tr')!;
     expect(row.textContent).toContain(`${MINUS}0.40${NBSP}Hz`);
     expect(row.textContent).toContain(`${MINUS}0.65 to ${MINUS}0.15${NBSP}Hz`);
-    expect(row).toHaveTextContent('0.004 (permutation)');
+    expect(row).toHaveTextContent('0.004(permutation)');
     const note = screen.getByText(/The last row is a difference, not a condition/);
     expect(note).toHaveTextContent('the first two conditions found in the onsets');
     expect(note).toHaveTextContent('5000 label shuffles, fixed seed 20190815');
@@ -128,18 +128,41 @@ describe('the Conditions card', { timeout: 30_000 }, () => {
 });
 
 describe('the cycle-by-cycle cross-check', { timeout: 30_000 }, () => {
-  it('shows both estimates side by side and warns, naming the difference and the threshold', () => {
-    renderIn(<CycleEstimate run={RUN} cycles={CYCLES} thresholdHz={0.1} />);
-    expect(screen.getByTestId('delta-f-both').textContent).toContain(
-      `${MINUS}0.31${NBSP}Hz | ${MINUS}0.21${NBSP}Hz`,
-    );
+  it("shows both estimates side by side and warns, naming the difference and the run's threshold", () => {
+    renderIn(<CycleEstimate run={RUN} cycles={CYCLES} studyThresholdHz={0.1} />);
+    const estimates = screen.getByRole('table', { name: 'Δf by both estimates' });
+    const phase = within(estimates).getByText('Phase-based').closest('tr')!;
+    expect(phase.textContent).toContain(`${MINUS}0.31${NBSP}Hz`);
+    expect(phase.textContent).toContain(`${MINUS}0.45 to ${MINUS}0.18${NBSP}Hz`);
+    expect(phase).toHaveTextContent('3 of 4');
+    const cycles = within(estimates).getByText('Cycle-by-cycle').closest('tr')!;
+    expect(cycles.textContent).toContain(`${MINUS}0.21${NBSP}Hz`);
+    expect(cycles.textContent).toContain(`${MINUS}0.40 to ${MINUS}0.02${NBSP}Hz`);
+    expect(cycles).toHaveTextContent('3 of 3');
     const alert = screen.getByRole('alert');
     expect(alert.textContent).toContain(
-      `differ by 0.15${NBSP}Hz, more than the study's threshold of 0.10${NBSP}Hz`,
+      `differ by 0.15${NBSP}Hz, more than this run's threshold of 0.10${NBSP}Hz`,
     );
+    const card = screen.getByLabelText('Cycle-by-cycle cross-check');
     // 0.625 of the cycles in bursts.
+    expect(card.textContent).toContain(`62.5${NBSP}%`);
+    expect(card.textContent).toContain(
+      `0.10${NBSP}Hz, from the settings this run was computed with`,
+    );
+    expect(card.textContent).not.toContain('now say');
+  });
+
+  it("judges by the run's own threshold and names the study's when it changed since", () => {
+    // The run was computed with 0.1 Hz and disagreed (0.15 Hz); the study now says 0.2 Hz.
+    renderIn(<CycleEstimate run={RUN} cycles={CYCLES} studyThresholdHz={0.2} />);
+    expect(screen.getByRole('alert').textContent).toContain(
+      `more than this run's threshold of 0.10${NBSP}Hz`,
+    );
     expect(screen.getByLabelText('Cycle-by-cycle cross-check').textContent).toContain(
-      `62.5${NBSP}%`,
+      `the study's settings now say 0.20${NBSP}Hz (a re-run would use that)`,
+    );
+    expect(thresholdWords(0.1, null)).toBe(
+      `0.10${NBSP}Hz, from the settings this run was computed with`,
     );
   });
 
@@ -148,18 +171,34 @@ describe('the cycle-by-cycle cross-check', { timeout: 30_000 }, () => {
       <CycleEstimate
         run={RUN}
         cycles={{ ...CYCLES, disagreementHz: 0.05, disagrees: false }}
-        thresholdHz={0.1}
+        studyThresholdHz={0.1}
       />,
     );
     expect(screen.getByLabelText('Cycle-by-cycle cross-check')).toBeInTheDocument();
     expect(screen.queryByRole('alert')).not.toBeInTheDocument();
     unmount();
-    renderIn(<CycleEstimate run={RUN} cycles={null} thresholdHz={0.1} />);
+    renderIn(<CycleEstimate run={RUN} cycles={null} studyThresholdHz={0.1} />);
     expect(screen.queryByLabelText('Cycle-by-cycle cross-check')).not.toBeInTheDocument();
   });
 
-  it('still names the threshold in words while the settings are unknown', () => {
-    expect(disagreementText(CYCLES, null)).toContain("more than the study's threshold.");
+  it('prints a 0.005 Hz threshold and the difference beside it to three decimals', () => {
+    // 0.0056 Hz is above 0.005 Hz; at two decimals both would read 0.01 Hz.
+    expect(disagreementText({ ...CYCLES, disagreementHz: 0.0056 }, 0.005)).toContain(
+      `differ by 0.006${NBSP}Hz, more than this run's threshold of 0.005${NBSP}Hz.`,
+    );
+    expect(formatHzLike(0.15, 0.1)).toBe(`0.15${NBSP}Hz`);
+  });
+
+  it('keeps a run that agreed under its own 0.20 Hz quiet after the study lowered it to 0.10 Hz', () => {
+    const run = { ...RUN, depthSettings: { ...RUN.depthSettings, cycleDisagreementHz: 0.2 } };
+    renderIn(
+      <CycleEstimate run={run} cycles={{ ...CYCLES, disagrees: false }} studyThresholdHz={0.1} />,
+    );
+    expect(screen.queryByRole('alert')).not.toBeInTheDocument();
+    expect(screen.getByLabelText('Cycle-by-cycle cross-check').textContent).toContain(
+      `0.20${NBSP}Hz, from the settings this run was computed with; the study's settings now say 0.10${NBSP}Hz`,
+    );
+    expect(disagreementText(CYCLES, 0.2)).toContain(`this run's threshold of 0.20${NBSP}Hz.`);
   });
 });
 

@@ -6,7 +6,8 @@ import type {
 } from '@gyre/shared';
 import { Card, Table, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
-import { formatDeltaHz, formatDeltaHzRange, formatNumber, formatPValue } from '../../../lib/format';
+import { formatNumber, formatPValue } from '../../../lib/format';
+import { DeltaFWithCi, FiguresTable } from './delta-f-cell';
 
 /** How the two compared conditions were chosen, in words. */
 export const PAIR_SOURCE_WORDS: Record<ConditionPairSource, string> = {
@@ -21,19 +22,22 @@ export function differenceName(difference: ConditionDifferenceView): string {
 }
 
 const columns: TableColumnsType<ConditionStatsView> = [
-  { title: 'Condition', key: 'label', dataIndex: 'label' },
+  {
+    title: 'Condition',
+    key: 'label',
+    render: (_, row) => <span style={{ overflowWrap: 'anywhere' }}>{row.label}</span>,
+  },
   {
     title: 'Trials kept',
     key: 'trials',
     align: 'right',
     render: (_, row) => `${row.trialsKept} of ${row.trialsTotal}`,
   },
-  { title: 'Δf', key: 'deltaF', align: 'right', render: (_, row) => formatDeltaHz(row.deltaFHz) },
   {
-    title: '95 % CI (bootstrap)',
-    key: 'ci',
+    title: 'Δf, 95 % CI (bootstrap)',
+    key: 'deltaF',
     align: 'right',
-    render: (_, row) => formatDeltaHzRange(row.ciHz),
+    render: (_, row) => <DeltaFWithCi deltaFHz={row.deltaFHz} ciHz={row.ciHz} />,
   },
   {
     title: 'p (Wilcoxon)',
@@ -51,13 +55,13 @@ function DifferenceRow({ difference }: { difference: ConditionDifferenceView }) 
         <Typography.Text strong>Difference {differenceName(difference)}</Typography.Text>
       </Table.Summary.Cell>
       <Table.Summary.Cell index={2} align="right">
-        <Typography.Text strong>{formatDeltaHz(difference.differenceHz)}</Typography.Text>
+        <DeltaFWithCi deltaFHz={difference.differenceHz} ciHz={difference.ciHz} strong />
       </Table.Summary.Cell>
       <Table.Summary.Cell index={3} align="right">
-        {formatDeltaHzRange(difference.ciHz)}
-      </Table.Summary.Cell>
-      <Table.Summary.Cell index={4} align="right">
-        {formatPValue(difference.pValue)} (permutation)
+        {formatPValue(difference.pValue)}
+        <Typography.Text type="secondary" style={{ display: 'block', fontSize: 13 }}>
+          (permutation)
+        </Typography.Text>
       </Table.Summary.Cell>
     </Table.Summary.Row>
   );
@@ -90,15 +94,11 @@ export function ConditionsTable({ task }: { task: TaskResultsView }) {
       aria-label="Conditions"
       style={{ marginTop: 16 }}
     >
-      <Table<ConditionStatsView>
+      <FiguresTable<ConditionStatsView>
         aria-label="Δf per condition"
         rowKey="label"
-        size="small"
-        className="gyre-figures"
         columns={columns}
         dataSource={task.conditions}
-        pagination={false}
-        scroll={{ x: 'max-content' }}
         summary={() => (difference === null ? null : <DifferenceRow difference={difference} />)}
       />
       {difference === null ? (

@@ -1,4 +1,9 @@
-import type { RecordingView, RecordingKind, RecordingResultsView } from '@gyre/shared';
+import {
+  EPOCH_DROP_WORDS,
+  type RecordingView,
+  type RecordingKind,
+  type RecordingResultsView,
+} from '@gyre/shared';
 import { App, Button, Card, Col, Descriptions, Flex, Row, Skeleton, Tabs, Tag } from 'antd';
 import { useEffect, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
@@ -279,7 +284,7 @@ export function ReviewPage({
                             <CycleEstimate
                               run={results.run}
                               cycles={results.task.cycles}
-                              thresholdHz={settings.data?.cycleDisagreementHz ?? null}
+                              studyThresholdHz={settings.data?.cycleDisagreementHz ?? null}
                             />
                             <OnsetCurveChart
                               recordingId={recording.id}
@@ -317,7 +322,7 @@ export function ReviewPage({
                                   children:
                                     Object.entries(results.task.epochs.dropped)
                                       .filter(([, n]) => n > 0)
-                                      .map(([why, n]) => `${n} ${why}`)
+                                      .map(([why, n]) => `${n} ${EPOCH_DROP_WORDS[why] ?? why}`)
                                       .join(', ') || 'none',
                                 },
                               ]}

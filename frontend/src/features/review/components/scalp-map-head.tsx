@@ -9,12 +9,15 @@ import type { KeyboardEvent } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
 import { omissionWords } from '../../../lib/roi-usage';
 import { formatDeltaHz, formatHz } from '../../../lib/format';
+import { type PlacedLabel, placeLabels } from './scalp-label-placement';
 
 /** SVG units per unit of the map's disc (the Fpz–T7–Oz–T8 ring has radius 1). */
 const UNIT = 100;
 /** Room for the 9/10 columns, Nz and Iz (the outer radius) with their dots. */
 const VIEW_HALF = (SCALP_OUTER_RADIUS + 0.13) * UNIT;
 const DOT = 7;
+/** The channel names under the dots, in SVG units (13 px at the map's widest, 10 px on a phone). */
+const LABEL_SIZE = 9;
 
 /** What a channel reads as on hover, focus and in the table. */
 export function channelReading(map: ScalpMapModel, channel: ScalpMapChannel): string {
@@ -96,6 +99,28 @@ function ChannelDot({
   );
 }
 
+/** A channel's name beside its dot, where `placeLabels` put it. */
+function ChannelName({ channel, label }: { channel: ScalpMapChannel; label: PlacedLabel }) {
+  return (
+    <g transform={`translate(${channel.point[0] * UNIT} ${0 - channel.point[1] * UNIT})`}>
+      <text
+        x={label.dx}
+        y={label.dy}
+        textAnchor={label.anchor}
+        fontSize={LABEL_SIZE}
+        fill={GYRE_COLORS.ink}
+        // A halo in the page colour keeps a name legible where it touches a neighbour's dot.
+        stroke={GYRE_COLORS.paper}
+        strokeWidth={2.5}
+        paintOrder="stroke"
+        style={{ pointerEvents: 'none' }}
+      >
+        {channel.name}
+      </text>
+    </g>
+  );
+}
+
 /**
  * The head seen from above (nose up, left on the left) with a dot per channel. The picture
  * is one image to assistive technology (its label sums it up; the table beside it lists
@@ -126,13 +151,27 @@ export function ScalpMapHead({
     event.preventDefault();
   };
   const head = SCALP_RING_RADIUS * UNIT;
+  const labels = placeLabels(
+    map.channels.map((c) => ({
+      name: c.name,
+      centre: [c.point[0] * UNIT, -c.point[1] * UNIT] as const,
+    })),
+    DOT,
+    LABEL_SIZE,
+    [-1, 1].map((side) => ({
+      x0: side * 1.04 * head - 0.045 * head,
+      y0: -0.16 * head,
+      x1: side * 1.04 * head + 0.045 * head,
+      y1: 0.16 * head,
+    })),
+  );
   return (
     <svg
       role="img"
       aria-label={label}
       tabIndex={0}
-      viewBox={`${-VIEW_HALF} ${-VIEW_HALF} ${2 * VIEW_HALF} ${2 * VIEW_HALF}`}
-      style={{ width: '100%', maxWidth: 320, height: 'auto', display: 'block' }}
+      viewBox={`${-VIEW_HALF} ${-VIEW_HALF} ${2 * VIEW_HALF} ${2 * VIEW_HALF + LABEL_SIZE + 2}`}
+      style={{ width: '100%', maxWidth: 400, height: 'auto', display: 'block' }}
       onKeyDown={onKeyDown}
       onFocus={() => {
         if (picked === null) step(1);
@@ -155,6 +194,10 @@ export function ScalpMapHead({
           picked={channel.name === picked}
           onPick={() => onPick(channel.name)}
         />
+      ))}
+      {/* The names over every dot, so a later dot never hides an earlier name. */}
+      {map.channels.map((channel, index) => (
+        <ChannelName key={channel.name} channel={channel} label={labels[index]} />
       ))}
     </svg>
   );

@@ -3,7 +3,7 @@ import { Flex, Typography } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
 import { formatDateTime } from '../../../lib/format';
 import { roiUsageSentence } from '../../../lib/roi-usage';
-import { TRIGGER_WORDS } from './run-words';
+import { depthSettingsWords, TRIGGER_WORDS } from './run-words';
 import { useShownResults } from './shown-results';
 
 const KIND_NAMES: Record<RecordingKind, string> = { task: 'task', resting: 'resting' };
@@ -79,6 +79,12 @@ function SourceLine({
           {TRIGGER_WORDS[data.run.trigger]}, settings version {data.run.settingsVersion}
           {data.run.overrideRevision !== null &&
             ` with this visit's own choices (revision ${data.run.overrideRevision})`}
+          {data.run.kind === 'task' && (
+            <span data-testid="depth-settings">
+              {' '}
+              ({depthSettingsWords(data.run.depthSettings)})
+            </span>
+          )}
           .
         </div>
       )}

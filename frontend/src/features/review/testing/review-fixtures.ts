@@ -136,6 +136,11 @@ function run(kind: 'task' | 'resting'): AnalysisRunView {
     trigger: 'upload',
     roiUsage: COMPLETE_ROI,
     overrideRevision: null,
+    depthSettings: {
+      amplitudeGatePercentile: null,
+      cycleDisagreementHz: 0.1,
+      compareConditions: null,
+    },
     staleSettings: [],
     createdAt: '2025-02-03T10:05:00.000Z',
   };
