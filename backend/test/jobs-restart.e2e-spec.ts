@@ -4,87 +4,36 @@
  * started by the same `createApp` as dist/main.js, but bound to 127.0.0.1 (main.js binds
  * every interface). Recordings are generated (see recordings-fixtures.ts).
  */
-import { ChildProcess, execFileSync, spawn } from 'node:child_process';
+import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import request from 'supertest';
 import { DataSource } from 'typeorm';
 import type { RecordingView } from '@gyre/shared';
 import { sqliteOptions } from '../src/database/database-options';
+import {
+  ServerProcess,
+  sleep,
+  startServer,
+  stopServer,
+} from '../src/robustness/crash/server-process';
 import { Seed, SEED_PASSWORD, seedDatabase } from './helpers/seed';
 import { INVENTED_PATIENT_NAME, syntheticTaskEdf } from './recordings-fixtures';
 
 const BACKEND = resolve(__dirname, '..');
 const REPO = resolve(BACKEND, '..');
 const JWT_SECRET = 'gyre-restart-test-secret-0123456789abcdefghijkl';
-
-interface Server {
-  child: ChildProcess;
-  url: string;
-  output: () => string;
-}
-
-async function freePort(): Promise<number> {
-  return new Promise((done, fail) => {
-    const probe = createServer();
-    probe.once('error', fail);
-    probe.listen(0, '127.0.0.1', () => {
-      const port = (probe.address() as { port: number }).port;
-      probe.close(() => done(port));
-    });
-  });
-}
-
-async function startServer(dataDir: string, log: string[]): Promise<Server> {
-  const port = await freePort();
-  const launcher = `require('reflect-metadata');
-const { createApp } = require('./dist/app.factory');
-createApp().then((app) => app.listen(${port}, '127.0.0.1')).catch((e) => { console.error(e); process.exit(1); });`;
-  const child = spawn(process.execPath, ['-e', launcher], {
-    cwd: BACKEND,
-    env: {
-      PATH: process.env.PATH,
-      NODE_ENV: 'production',
-      DATA_DIR: dataDir,
-      JWT_SECRET,
-      LOG_LEVEL: 'verbose',
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  child.stdout?.on('data', (chunk: Buffer) => log.push(chunk.toString('utf8')));
-  child.stderr?.on('data', (chunk: Buffer) => log.push(chunk.toString('utf8')));
-  const url = `http://127.0.0.1:${port}`;
-  // Generous: under `npm test` another jest worker may hold the other core meanwhile.
-  const until = Date.now() + 90_000;
-  while (Date.now() < until) {
-    if (child.exitCode !== null) throw new Error(`server exited: ${log.join('')}`);
-    const health = await request(url)
-      .get('/api/health')
-      .then((r) => r.status)
-      .catch(() => 0);
-    if (health === 200) return { child, url, output: () => log.join('') };
-    await sleep(200);
-  }
-  throw new Error(`server did not start: ${log.join('')}`);
-}
-
-function sleep(ms: number): Promise<void> {
-  return new Promise((done) => setTimeout(done, ms));
-}
-
-async function stop(server: Server, signal: NodeJS.Signals): Promise<void> {
-  if (server.child.exitCode !== null || server.child.signalCode !== null) return;
-  const exited = new Promise((done) => server.child.once('exit', done));
-  server.child.kill(signal);
-  await exited;
-}
+/** Generous: under `npm test` another jest worker may hold the other core meanwhile. */
+const START_TIMEOUT_MS = 90_000;
 
 describe('a server killed mid-job', () => {
   const dataDir = mkdtempSync(join(tmpdir(), 'gyre-restart-'));
-  const log: string[] = [];
-  let server: Server | null = null;
+  const logDir = mkdtempSync(join(tmpdir(), 'gyre-restart-log-'));
+  const logFile = join(logDir, 'server.log');
+  const start = (): Promise<ServerProcess> =>
+    startServer(dataDir, JWT_SECRET, logFile, START_TIMEOUT_MS, { LOG_LEVEL: 'verbose' });
+  let server: ServerProcess | null = null;
   let seed: Seed;
 
   beforeAll(() => {
@@ -96,8 +45,9 @@ describe('a server killed mid-job', () => {
   }, 180_000);
 
   afterAll(async () => {
-    if (server !== null) await stop(server, 'SIGTERM');
+    if (server !== null) await stopServer(server, 'SIGTERM');
     rmSync(dataDir, { recursive: true, force: true });
+    rmSync(logDir, { recursive: true, force: true });
   });
 
   it('uses the compiled worker file from dist/', () => {
@@ -105,7 +55,7 @@ describe('a server killed mid-job', () => {
   });
 
   it('picks the job up again after SIGKILL and completes it on the second attempt', async () => {
-    server = await startServer(dataDir, log);
+    server = await start();
     const dataSource = new DataSource({
       ...sqliteOptions(join(dataDir, 'gyre.sqlite')),
       migrationsRun: false,
@@ -140,7 +90,7 @@ describe('a server killed mid-job', () => {
     }
     expect(seen?.state).toBe('computing');
     await sleep(300);
-    await stop(server, 'SIGKILL');
+    await stopServer(server, 'SIGKILL');
     server = null;
 
     const [stuck] = (await dataSource.query(
@@ -153,7 +103,7 @@ describe('a server killed mid-job', () => {
     expect(stuck).toEqual({ state: 'running', attempts: 1 });
     expect(await dataSource.query(`SELECT count(*) AS n FROM "analysis_run"`)).toEqual([{ n: 0 }]);
 
-    server = await startServer(dataDir, log);
+    server = await start();
     let done: RecordingView | null = null;
     const deadline = Date.now() + 120_000;
     while (Date.now() < deadline) {
@@ -177,7 +127,7 @@ describe('a server killed mid-job', () => {
     expect(runs[0].roiDeltaFHz).toBeCloseTo(-0.6, 1);
     await dataSource.destroy();
 
-    await stop(server, 'SIGTERM');
+    await stopServer(server, 'SIGTERM');
     server = null;
     // The invented patient name never reached the stored copy, the database or the logs.
     const needle = Buffer.from(INVENTED_PATIENT_NAME);
@@ -186,7 +136,7 @@ describe('a server killed mid-job', () => {
     for (const file of readdirSync(dataDir).filter((f) => f.startsWith('gyre.sqlite'))) {
       expect(readFileSync(join(dataDir, file)).includes(needle)).toBe(false);
     }
-    const output = log.join('');
+    const output = readFileSync(logFile, 'utf8');
     expect(output).toContain(`/api/recordings/${id}`); // the logs were captured (verbose level)
     expect(output.includes(INVENTED_PATIENT_NAME)).toBe(false);
   }, 240_000);

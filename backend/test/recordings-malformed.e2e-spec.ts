@@ -10,6 +10,7 @@ import { join } from 'node:path';
 import request from 'supertest';
 import type { RecordingView } from '@gyre/shared';
 import { blankPatientField } from '../src/signal/edf';
+import { signalField, SignalFieldName } from '../src/signal/edf/testing/edf-field-layout';
 import { countOf } from './helpers/row-count';
 import { useTestApp } from './helpers/test-app';
 import { syntheticTaskEdf, upload } from './recordings-fixtures';
@@ -21,32 +22,6 @@ const VALID = syntheticTaskEdf({
   onsetsS: [3, 6],
 });
 const SIGNALS = 3;
-/** Per-signal header fields and widths in file order (Kemp et al. 1992). */
-const SIGNAL_FIELDS: Array<[string, number]> = [
-  ['label', 16],
-  ['transducer', 80],
-  ['dimension', 8],
-  ['physicalMin', 8],
-  ['physicalMax', 8],
-  ['digitalMin', 8],
-  ['digitalMax', 8],
-  ['prefiltering', 80],
-  ['samples', 8],
-  ['reserved', 32],
-];
-
-function signalFieldOffset(field: string, signal: number): number {
-  let offset = 256;
-  for (const [name, width] of SIGNAL_FIELDS) {
-    if (name === field) return offset + width * signal;
-    offset += width * SIGNALS;
-  }
-  throw new Error(field);
-}
-
-function widthOf(field: string): number {
-  return SIGNAL_FIELDS.find(([name]) => name === field)?.[1] ?? 0;
-}
 
 /** A copy of the valid file with an ASCII field overwritten, space padded. */
 function withField(offset: number, width: number, text: string): Uint8Array {
@@ -56,8 +31,10 @@ function withField(offset: number, width: number, text: string): Uint8Array {
   return bytes;
 }
 
-const withSignalField = (field: string, signal: number, text: string): Uint8Array =>
-  withField(signalFieldOffset(field, signal), widthOf(field), text);
+const withSignalField = (field: SignalFieldName, signal: number, text: string): Uint8Array => {
+  const { offset, width } = signalField(field, signal, SIGNALS);
+  return withField(offset, width, text);
+};
 
 /** The first TAL of record 0 starts with '+0' (Kemp & Olivan 2003); break its sign. */
 function withBrokenTal(): Uint8Array {
@@ -139,14 +116,14 @@ const CASES: Case[] = [
   },
   {
     name: 'non-numeric samples per record',
-    bytes: withSignalField('samples', 0, 'many'),
+    bytes: withSignalField('samplesPerRecord', 0, 'many'),
     field: /samples/,
   },
   {
     name: 'a non-ASCII byte in a signal label',
     bytes: (() => {
       const b = Uint8Array.from(VALID);
-      b[signalFieldOffset('label', 0) + 3] = 0xe9;
+      b[signalField('label', 0, SIGNALS).offset + 3] = 0xe9;
       return b;
     })(),
     field: /label|ASCII|printable/i,

@@ -4,7 +4,7 @@
  * back with pdf-parse, and the e-mail delivered over SMTP to Gyre's own fake SMTP server,
  * which this test stops and starts again on the same port for the outage case.
  */
-import { createHash, randomUUID } from 'node:crypto';
+import { createHash } from 'node:crypto';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -29,6 +29,7 @@ import { RESEARCH_CAUTION } from '../src/report-document/report-wording';
 import { readPdfText } from '../src/report-document/testing/read-pdf-text';
 import { ReportRevision } from '../src/signoff/report-revision.entity';
 import { User } from '../src/accounts/user.entity';
+import { newUserRow } from '../src/users/new-user-row';
 import { SEED_PASSWORD, UserKey } from './helpers/seed';
 import { CaughtMail, readMails, waitForMail } from './helpers/mail-catcher';
 import { binaryBody } from './helpers/binary-body';
@@ -86,34 +87,21 @@ describe('visit report sign-off', () => {
     visitId = t.seed.visits.A1.id;
     // A second active coordinator of site A1 and one still invited (generated test data).
     const at = new Date().toISOString();
-    const base = {
+    const coordinatorOfA1 = {
       role: 'coordinator' as const,
       studyId: t.seed.studies.A.id,
       siteId: t.seed.sites.A1.id,
-      failedSignIns: 0,
-      lockedUntil: null,
-      lastSignInAt: null,
-      passwordChangedAt: at,
-      createdAt: at,
-      updatedAt: at,
     };
-    await t.dataSource.getRepository(User).insert([
-      {
-        ...base,
-        id: randomUUID(),
-        ...secondCoordinator,
-        passwordHash: await hash(SEED_PASSWORD, 10),
-        state: 'active',
-      },
-      {
-        ...base,
-        id: randomUUID(),
-        email: invitedCoordinator.email,
-        name: 'Invited Coordinator',
-        passwordHash: null,
-        state: 'invited',
-      },
-    ]);
+    await t.dataSource
+      .getRepository(User)
+      .insert([
+        newUserRow({ ...coordinatorOfA1, ...secondCoordinator }, await hash(SEED_PASSWORD, 10), at),
+        newUserRow(
+          { ...coordinatorOfA1, email: invitedCoordinator.email, name: 'Invited Coordinator' },
+          null,
+          at,
+        ),
+      ]);
 
     const rest = await upload(t, 'technician', visitId, {
       kind: 'resting',

@@ -20,7 +20,12 @@ import type { DataSource } from 'typeorm';
 import { createApp } from '../src/app.factory';
 import { WorkerPoolService } from '../src/jobs/worker-pool.service';
 import type { AnalyzeOutcome } from '../src/jobs/worker/worker-tasks';
-import { ANALYSIS_QUEUE, openRedis, RemoteTask } from '../src/remote-workers/remote-job';
+import {
+  ANALYSIS_QUEUE,
+  analyzeTaskOf,
+  openRedis,
+  RemoteTask,
+} from '../src/remote-workers/remote-job';
 import { RedisServer, startRedisServer } from '../src/remote-workers/redis-server-process';
 import {
   encodeResultBody,
@@ -102,17 +107,7 @@ const auditOf = (recordingId: string, action: string): Promise<number> =>
 async function compute(task: RemoteTask, file: Buffer): Promise<AnalyzeOutcome> {
   const filePath = join(scratch, `${task.jobId}.${task.attempt}.edf`);
   writeFileSync(filePath, file);
-  return pool.analyze(
-    {
-      filePath,
-      checksumSha256: task.checksumSha256,
-      kind: task.kind,
-      csvOnsets: task.csvOnsets,
-      settings: task.settings,
-      iafHz: task.iafHz,
-    },
-    () => undefined,
-  );
+  return pool.analyze(analyzeTaskOf(task, filePath), () => undefined);
 }
 
 function postResult(ref: string, body: unknown): request.Test {

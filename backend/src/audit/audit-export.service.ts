@@ -17,20 +17,10 @@ export class AuditExportService {
   /** Records the export first (so it is in the trail even if the download breaks), then streams. */
   async streamCsv(caller: Caller, query: AuditQueryDto, response: Response): Promise<void> {
     const filters = { ...query, page: undefined, pageSize: undefined };
-    await this.audit.record({
-      actor: caller.user,
-      action: 'export',
-      objectType: 'AuditEntry',
-      objectId: null,
-      after: { format: 'csv', filters },
-      clientIp: caller.clientIp,
+    await this.beginExport(caller, { format: 'csv', filters }, response, {
+      contentType: 'text/csv; charset=utf-8',
+      fileName: `gyre-audit-${today()}.csv`,
     });
-    response.status(200);
-    response.setHeader('Content-Type', 'text/csv; charset=utf-8');
-    response.setHeader(
-      'Content-Disposition',
-      `attachment; filename="gyre-audit-${new Date().toISOString().slice(0, 10)}.csv"`,
-    );
     response.write(csvHeader());
     for await (const entry of this.audit.iterate(caller.ability, query)) {
       if (!response.write(csvLine(entry))) {
@@ -45,20 +35,10 @@ export class AuditExportService {
    * before can be recomputed), beside the CSV whose columns stay as they are. Audited first.
    */
   async streamAnchors(caller: Caller, response: Response): Promise<void> {
-    await this.audit.record({
-      actor: caller.user,
-      action: 'export',
-      objectType: 'AuditEntry',
-      objectId: null,
-      after: { format: 'anchors-jsonl' },
-      clientIp: caller.clientIp,
+    await this.beginExport(caller, { format: 'anchors-jsonl' }, response, {
+      contentType: 'application/x-ndjson; charset=utf-8',
+      fileName: `gyre-audit-anchors-${today()}.jsonl`,
     });
-    response.status(200);
-    response.setHeader('Content-Type', 'application/x-ndjson; charset=utf-8');
-    response.setHeader(
-      'Content-Disposition',
-      `attachment; filename="gyre-audit-anchors-${new Date().toISOString().slice(0, 10)}.jsonl"`,
-    );
     response.setHeader('X-Gyre-Anchor-Key-Sha256', this.anchors.keyFingerprint());
     const file = this.anchors.openAnchorFile();
     if (file === null) {
@@ -67,4 +47,27 @@ export class AuditExportService {
     }
     await pipeline(file, response);
   }
+
+  /** Records the export in the trail, then opens the download (status, type, file name). */
+  private async beginExport(
+    caller: Caller,
+    after: Record<string, unknown>,
+    response: Response,
+    download: { contentType: string; fileName: string },
+  ): Promise<void> {
+    await this.audit.record({
+      actor: caller.user,
+      action: 'export',
+      objectType: 'AuditEntry',
+      objectId: null,
+      after,
+      clientIp: caller.clientIp,
+    });
+    response.status(200);
+    response.setHeader('Content-Type', download.contentType);
+    response.setHeader('Content-Disposition', `attachment; filename="${download.fileName}"`);
+  }
 }
+
+/** Today's date (UTC) for a download's file name. */
+const today = (): string => new Date().toISOString().slice(0, 10);

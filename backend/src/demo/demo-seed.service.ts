@@ -1,14 +1,13 @@
-import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import type { UserView } from '@gyre/shared';
 import { AccountsService } from '../accounts/accounts.service';
-import type { User } from '../accounts/user.entity';
 import { AuditService } from '../audit/audit.service';
 import { assertPasswordAcceptable } from '../auth/password-policy';
 import { PasswordHasherService } from '../auth/password-hasher.service';
 import { nowIso } from '../common/time';
+import { newUserRow } from '../users/new-user-row';
 import { toUserView } from '../users/user-view';
 
 export interface FirstAdminInput {
@@ -45,22 +44,11 @@ export class DemoSeedService {
       const existingUsers = await this.accounts.count(manager);
       if (existingUsers > 0) return { created: false, existingUsers };
       const at = nowIso();
-      const user: User = {
-        id: randomUUID(),
-        email,
-        name: input.name.trim(),
-        role: 'admin',
-        studyId: null,
-        siteId: null,
+      const user = newUserRow(
+        { email, name: input.name.trim(), role: 'admin', studyId: null, siteId: null },
         passwordHash,
-        state: 'active',
-        failedSignIns: 0,
-        lockedUntil: null,
-        lastSignInAt: null,
-        passwordChangedAt: at,
-        createdAt: at,
-        updatedAt: at,
-      };
+        at,
+      );
       await this.accounts.insert(user, manager);
       const view = toUserView(user);
       await this.audit.record({

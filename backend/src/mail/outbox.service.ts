@@ -4,7 +4,7 @@ import { InjectRepository } from '@nestjs/typeorm';
 import { EntityManager, FindOptionsWhere, In, IsNull, LessThanOrEqual, Repository } from 'typeorm';
 import type { OutboxMessageView, Page } from '@gyre/shared';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
-import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { isoAfter, nowIso } from '../common/time';
 import { MailContent } from './mail-templates';
@@ -191,9 +191,7 @@ export class OutboxService implements OnModuleInit, OnModuleDestroy {
     if (query.to !== undefined) where.toAddress = query.to.toLowerCase();
     const rows = await this.messages.findAndCount({
       where,
-      order: { [query.sort ?? 'createdAt']: window.order, id: 'ASC' },
-      skip: window.skip,
-      take: window.take,
+      ...pageSliceOf(window, query.sort ?? 'createdAt'),
     });
     return toPage(rows, window, toOutboxView);
   }

@@ -6,9 +6,10 @@
  */
 import { ChildProcess, spawn } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { createServer, Socket } from 'node:net';
+import { Socket } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { freePort } from '../robustness/crash/server-process';
 
 export const REDIS_SERVER = process.env.GYRE_REDIS_SERVER ?? '/usr/bin/redis-server';
 
@@ -32,17 +33,6 @@ export interface RedisServer {
   dispose(): Promise<void>;
 }
 
-export async function freeTcpPort(): Promise<number> {
-  return new Promise((done, fail) => {
-    const probe = createServer();
-    probe.once('error', fail);
-    probe.listen(0, '127.0.0.1', () => {
-      const port = (probe.address() as { port: number }).port;
-      probe.close(() => done(port));
-    });
-  });
-}
-
 export async function startRedisServer(options: RedisServerOptions = {}): Promise<RedisServer> {
   if (!existsSync(REDIS_SERVER)) {
     throw new Error(
@@ -51,7 +41,7 @@ export async function startRedisServer(options: RedisServerOptions = {}): Promis
   }
   const dir = options.dir ?? mkdtempSync(join(tmpdir(), 'gyre-redis-'));
   mkdirSync(dir, { recursive: true, mode: 0o700 });
-  const port = options.port ?? (await freeTcpPort());
+  const port = options.port ?? (await freePort());
   const args = [
     '--port',
     String(port),

@@ -5,7 +5,7 @@
  */
 import { Redis } from 'ioredis';
 import type { AnalysisSettings } from '../signal/pipeline/analysis-settings';
-import type { RecordingKindName } from '../jobs/worker/worker-tasks';
+import type { AnalyzeTask, RecordingKindName } from '../jobs/worker/worker-tasks';
 
 /** The BullMQ queue computations travel on. */
 export const ANALYSIS_QUEUE = 'gyre-analysis';
@@ -35,6 +35,18 @@ export interface RemoteTask {
   iafHz: number | null;
   /** The server's Gyre version: a worker of another version does not compute (other numbers). */
   gyreVersion: string;
+}
+
+/** The local computation that answers `task` once its file is downloaded to `filePath`. */
+export function analyzeTaskOf(task: RemoteTask, filePath: string): AnalyzeTask {
+  return {
+    filePath,
+    checksumSha256: task.checksumSha256,
+    kind: task.kind,
+    csvOnsets: task.csvOnsets,
+    settings: task.settings,
+    iafHz: task.iafHz,
+  };
 }
 
 /** The BullMQ job's data: the task, and what the server needs to store its result. */

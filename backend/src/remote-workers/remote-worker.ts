@@ -15,7 +15,13 @@ import { Job, Worker } from 'bullmq';
 import type { Redis } from 'ioredis';
 import { WorkerPoolService } from '../jobs/worker-pool.service';
 import { GYRE_VERSION } from '../version';
-import { ANALYSIS_QUEUE, openRedis, parseRemoteJobId, RemoteJobData } from './remote-job';
+import {
+  ANALYSIS_QUEUE,
+  analyzeTaskOf,
+  openRedis,
+  parseRemoteJobId,
+  RemoteJobData,
+} from './remote-job';
 import { encodeResultBody } from './result-wire';
 import { WorkerApiClient, WorkerApiError } from './worker-api-client';
 import type { WorkerSettings } from './worker-settings';
@@ -115,14 +121,7 @@ export class RemoteWorker {
       let outcome;
       try {
         outcome = await this.pool.analyze(
-          {
-            filePath,
-            checksumSha256: task.checksumSha256,
-            kind: task.kind,
-            csvOnsets: task.csvOnsets,
-            settings: task.settings,
-            iafHz: task.iafHz,
-          },
+          analyzeTaskOf(task, filePath),
           this.progressReporter(ref),
         );
       } catch (error) {

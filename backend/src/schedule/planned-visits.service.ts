@@ -3,7 +3,6 @@ import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import { EntityManager, In, Repository } from 'typeorm';
 import type { PlannedVisitView } from '@gyre/shared';
-import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditedWrites } from '../audit/audited-writes';
 import { nowIso } from '../common/time';
@@ -12,41 +11,55 @@ import { CreatePlannedVisitDto, UpdatePlannedVisitDto } from './dto/schedule.dto
 import { PlannedVisit } from './planned-visit.entity';
 import { ScheduleError, scheduleError } from './schedule.errors';
 import { toPlannedVisitView } from './schedule-views';
-import {
-  assertNameFree,
-  assertStudyWritable,
-  codesInUse,
-  findStudyRow,
-  studyRowScope,
-} from './study-rows';
+import { StudyRowKind, StudyRowsService } from './study-rows';
+
+const PLANNED_VISITS: StudyRowKind<PlannedVisit, PlannedVisitView> = {
+  entity: PlannedVisit,
+  subject: 'PlannedVisit',
+  table: 'planned_visit',
+  part: 'schedule',
+  // The schedule in order (position, then target day).
+  order: { position: 'ASC', targetDay: 'ASC', name: 'ASC' },
+  view: toPlannedVisitView,
+  notFound: (studyId, id) =>
+    scheduleError(
+      ScheduleError.PlannedVisitNotFound,
+      `No planned visit ${id} in study ${studyId}`,
+      {
+        field: 'id',
+        id,
+      },
+    ),
+  nameTaken: (row) =>
+    scheduleError(
+      ScheduleError.PlannedVisitNameTaken,
+      `name: the study's schedule already has a planned visit ${row.name}`,
+      { field: 'name', value: row.name },
+    ),
+  usersSql: `SELECT p."code" AS "code" FROM "visit" v JOIN "participant" p ON p."id" = v."participantId"
+    WHERE v."plannedVisitId" = ? ORDER BY p."code"`,
+  inUse: (row, users) =>
+    scheduleError(
+      ScheduleError.PlannedVisitInUse,
+      `Planned visit ${row.name} is in use: ${users.count} visit(s) were registered on it (${users.listed})`,
+      { plannedVisitId: row.id, visits: users.count, participantCodes: users.named },
+    ),
+};
 
 /** A study's visit schedule: the admin writes it, everyone in the study reads it. */
 @Injectable()
-export class PlannedVisitsService {
+export class PlannedVisitsService extends StudyRowsService<PlannedVisit, PlannedVisitView> {
   constructor(
     @InjectRepository(PlannedVisit) private readonly plannedVisits: Repository<PlannedVisit>,
-    private readonly studies: StudiesService,
-    private readonly audited: AuditedWrites,
-  ) {}
-
-  /** The schedule in order (position, then target day). */
-  async list(caller: Caller, studyId: string): Promise<PlannedVisitView[]> {
-    await this.studies.findInScope(caller, 'read', studyId);
-    const rows = await this.plannedVisits.find({
-      where: scopedWhere<PlannedVisit>(caller.ability, 'read', 'PlannedVisit', { studyId }),
-      order: { position: 'ASC', targetDay: 'ASC', name: 'ASC' },
-    });
-    return rows.map(toPlannedVisitView);
+    studies: StudiesService,
+    audited: AuditedWrites,
+  ) {
+    super(plannedVisits, studies, audited, PLANNED_VISITS);
   }
 
-  async create(
-    caller: Caller,
-    studyId: string,
-    dto: CreatePlannedVisitDto,
-  ): Promise<PlannedVisitView> {
-    await this.studyForWrite(caller, 'create', studyId);
+  create(caller: Caller, studyId: string, dto: CreatePlannedVisitDto): Promise<PlannedVisitView> {
     const at = nowIso();
-    return this.save(caller, null, async (manager) => ({
+    return this.createRow(caller, studyId, async (manager) => ({
       id: randomUUID(),
       studyId,
       name: dto.name,
@@ -59,59 +72,21 @@ export class PlannedVisitsService {
     }));
   }
 
-  async update(
+  update(
     caller: Caller,
     studyId: string,
     id: string,
     dto: UpdatePlannedVisitDto,
   ): Promise<PlannedVisitView> {
-    await this.studyForWrite(caller, 'update', studyId);
-    const current = await this.findInStudy(caller, 'update', studyId, id);
-    return this.save(caller, current, () =>
-      Promise.resolve({
-        ...current,
-        name: dto.name ?? current.name,
-        targetDay: dto.targetDay ?? current.targetDay,
-        windowBeforeDays: dto.windowBeforeDays ?? current.windowBeforeDays,
-        windowAfterDays: dto.windowAfterDays ?? current.windowAfterDays,
-        position: dto.position ?? current.position,
-        updatedAt: nowIso(),
-      }),
-    );
-  }
-
-  /** Deletes a planned visit no visit was registered on (409 naming the visits otherwise). */
-  async remove(
-    caller: Caller,
-    studyId: string,
-    id: string,
-    reason: string | undefined,
-  ): Promise<void> {
-    await this.studyForWrite(caller, 'delete', studyId);
-    const current = await this.findInStudy(caller, 'delete', studyId, id);
-    await this.audited.remove(caller, {
-      entity: PlannedVisit,
-      objectType: 'PlannedVisit',
-      row: current,
-      reason,
-      scope: studyRowScope,
-      view: toPlannedVisitView,
-      check: async (manager) => {
-        const users = await codesInUse(
-          manager,
-          `SELECT p."code" AS "code" FROM "visit" v JOIN "participant" p ON p."id" = v."participantId"
-            WHERE v."plannedVisitId" = ? ORDER BY p."code"`,
-          id,
-        );
-        if (users.count > 0) {
-          throw scheduleError(
-            ScheduleError.PlannedVisitInUse,
-            `Planned visit ${current.name} is in use: ${users.count} visit(s) were registered on it (${users.listed})`,
-            { plannedVisitId: id, visits: users.count, participantCodes: users.named },
-          );
-        }
-      },
-    });
+    return this.updateRow(caller, studyId, id, (current) => ({
+      ...current,
+      name: dto.name ?? current.name,
+      targetDay: dto.targetDay ?? current.targetDay,
+      windowBeforeDays: dto.windowBeforeDays ?? current.windowBeforeDays,
+      windowAfterDays: dto.windowAfterDays ?? current.windowAfterDays,
+      position: dto.position ?? current.position,
+      updatedAt: nowIso(),
+    }));
   }
 
   /** For other modules, unscoped: a study's schedule. */
@@ -129,51 +104,6 @@ export class PlannedVisitsService {
   /** For other modules, unscoped: the planned visit or null. */
   findById(id: string, manager?: EntityManager): Promise<PlannedVisit | null> {
     return this.repo(manager).findOneBy({ id });
-  }
-
-  private save(
-    caller: Caller,
-    before: PlannedVisit | null,
-    build: (manager: EntityManager) => Promise<PlannedVisit>,
-  ): Promise<PlannedVisitView> {
-    return this.audited.save(caller, {
-      entity: PlannedVisit,
-      objectType: 'PlannedVisit',
-      before,
-      row: build,
-      scope: studyRowScope,
-      check: (manager, row) => assertNameFree(manager, 'planned_visit', row),
-      view: toPlannedVisitView,
-      duplicate: (row) =>
-        scheduleError(
-          ScheduleError.PlannedVisitNameTaken,
-          `name: the study's schedule already has a planned visit ${row.name}`,
-          { field: 'name', value: row.name },
-        ),
-    });
-  }
-
-  private studyForWrite(
-    caller: Caller,
-    action: 'create' | 'update' | 'delete',
-    studyId: string,
-  ): Promise<void> {
-    return assertStudyWritable(this.studies, caller, 'PlannedVisit', action, studyId, 'schedule');
-  }
-
-  private findInStudy(
-    caller: Caller,
-    action: 'read' | 'update' | 'delete',
-    studyId: string,
-    id: string,
-  ): Promise<PlannedVisit> {
-    return findStudyRow(this.plannedVisits, caller, 'PlannedVisit', action, { id, studyId }, () =>
-      scheduleError(
-        ScheduleError.PlannedVisitNotFound,
-        `No planned visit ${id} in study ${studyId}`,
-        { field: 'id', id },
-      ),
-    );
   }
 
   private repo(manager: EntityManager | undefined): Repository<PlannedVisit> {

@@ -6,28 +6,7 @@
  */
 
 // EDF/EDF+ reading and writing (Kemp et al. 1992; Kemp & Olivan 2003).
-export {
-  blankPatientField,
-  blankRecordingField,
-  EDF_ANNOTATIONS_LABEL,
-  EdfFormatError,
-  EdfStreamReader,
-  readEdf,
-  readEdfHeader,
-  toMicrovolts,
-  writeEdf,
-} from './edf';
-export type {
-  EdfAnnotation,
-  EdfHeader,
-  EdfHeaderInfo,
-  EdfRecording,
-  EdfSignal,
-  EdfSignalHeader,
-  EdfWriteSignal,
-  EdfWriteSpec,
-  ReadEdfOptions,
-} from './edf';
+export * from './edf';
 export { readEdfFile } from './pipeline/read-edf-file';
 export type { EdfFileRead, ReadEdfFileOptions } from './pipeline/read-edf-file';
 

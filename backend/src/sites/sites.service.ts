@@ -8,7 +8,7 @@ import { Caller } from '../auth/decorators';
 import { AuditedWrites, type AuditScope } from '../audit/audited-writes';
 import { GyreException } from '../common/errors/gyre.exception';
 import { assertUnique } from '../common/errors/unique-violation';
-import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { containsText } from '../common/pagination/text-filter';
 import { nowIso } from '../common/time';
@@ -39,9 +39,7 @@ export class SitesService {
           ];
     const rows = await this.sites.findAndCount({
       where: filters.flatMap((filter) => scopedWhere<Site>(caller.ability, 'read', 'Site', filter)),
-      order: { [query.sort ?? 'code']: window.order, id: 'ASC' },
-      skip: window.skip,
-      take: window.take,
+      ...pageSliceOf(window, query.sort ?? 'code'),
     });
     return toPage(rows, window, toSiteView);
   }

@@ -12,7 +12,7 @@ import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditedWrites } from '../audit/audited-writes';
 import { assertUnique } from '../common/errors/unique-violation';
-import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { containsText } from '../common/pagination/text-filter';
 import { nowIso } from '../common/time';
@@ -39,9 +39,7 @@ export class StudiesService {
     );
     const rows = await this.studies.findAndCount({
       where,
-      order: { [query.sort ?? 'code']: window.order, id: 'ASC' },
-      skip: window.skip,
-      take: window.take,
+      ...pageSliceOf(window, query.sort ?? 'code'),
     });
     return toPage(rows, window, toStudyView);
   }

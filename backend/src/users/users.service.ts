@@ -1,4 +1,3 @@
-import { randomUUID } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { EntityManager, FindOptionsWhere } from 'typeorm';
 import { membershipOf, type Page, type Role, type UserView } from '@gyre/shared';
@@ -13,7 +12,7 @@ import { AuditService } from '../audit/audit.service';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
-import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { containsText } from '../common/pagination/text-filter';
 import { nowIso } from '../common/time';
@@ -24,6 +23,7 @@ import { OutboxService } from '../mail/outbox.service';
 import { SitesService } from '../sites/sites.service';
 import { StudiesService } from '../studies/studies.service';
 import { InviteUserDto, UpdateUserDto, UserQueryDto } from './dto/user.dto';
+import { newUserRow } from './new-user-row';
 import { toUserView } from './user-view';
 import { UsersError, usersError } from './users.errors';
 
@@ -57,9 +57,7 @@ export class UsersService {
           ];
     const rows = await this.accounts.findPage({
       where: filters.flatMap((filter) => scopedWhere<User>(caller.ability, 'read', 'User', filter)),
-      order: { [query.sort ?? 'email']: window.order, id: 'ASC' },
-      skip: window.skip,
-      take: window.take,
+      ...pageSliceOf(window, query.sort ?? 'email'),
     });
     return toPage(rows, window, toUserView);
   }
@@ -81,21 +79,11 @@ export class UsersService {
           dto.studyId ?? null,
           dto.siteId ?? null,
         );
-        const created: User = {
-          id: randomUUID(),
-          email: dto.email,
-          name: dto.name.trim(),
-          role: dto.role,
-          ...membership,
-          passwordHash: null,
-          state: 'invited',
-          failedSignIns: 0,
-          lockedUntil: null,
-          lastSignInAt: null,
-          passwordChangedAt: null,
-          createdAt: at,
-          updatedAt: at,
-        };
+        const created = newUserRow(
+          { email: dto.email, name: dto.name.trim(), role: dto.role, ...membership },
+          null,
+          at,
+        );
         await this.accounts.insert(created, manager);
         await this.audit.record({
           actor: caller.user,

@@ -7,6 +7,7 @@ import { Site } from '../../src/sites/site.entity';
 import { Study } from '../../src/studies/study.entity';
 import { User } from '../../src/accounts/user.entity';
 import { Visit } from '../../src/visits/visit.entity';
+import { newUserRow } from '../../src/users/new-user-row';
 
 /** The password of every seeded account (generated test data; passes the password policy). */
 export const SEED_PASSWORD = 'amber-slate-42-rhythm';
@@ -85,21 +86,17 @@ export async function seedDatabase(dataSource: DataSource): Promise<Seed> {
     UserKey,
     (typeof SEED_USERS)[UserKey],
   ][]) {
-    const user: User = {
-      id: randomUUID(),
-      email: `${key.toLowerCase()}@gyre.test`,
-      name: `Seeded ${key}`,
-      role: spec.role,
-      studyId: spec.study === null ? null : studies[spec.study].id,
-      siteId: spec.site === null ? null : sites[spec.site].id,
+    const user = newUserRow(
+      {
+        email: `${key.toLowerCase()}@gyre.test`,
+        name: `Seeded ${key}`,
+        role: spec.role,
+        studyId: spec.study === null ? null : studies[spec.study].id,
+        siteId: spec.site === null ? null : sites[spec.site].id,
+      },
       passwordHash,
-      state: 'active',
-      failedSignIns: 0,
-      lockedUntil: null,
-      lastSignInAt: null,
-      passwordChangedAt: at,
-      ...stamp,
-    };
+      at,
+    );
     rows.push(user);
     users[key] = {
       id: user.id,

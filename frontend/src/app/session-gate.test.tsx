@@ -9,6 +9,7 @@ import { mightHaveSession } from '../lib/session/session-hint';
 import { meFor } from '../test/fixtures';
 import { installMswServer, server } from '../test/msw-server';
 import { renderApp } from '../test/render-app';
+import { errorResponse } from '../test/error-response';
 
 installMswServer();
 
@@ -18,11 +19,7 @@ beforeEach(() => {
   server.use(http.get('/api/worklist', () => HttpResponse.json(reviewWorklist(false))));
 });
 
-const unauthenticated = () =>
-  HttpResponse.json(
-    { statusCode: 401, code: 'AUTH_SIGN_IN_REQUIRED', message: 'Sign in first.', details: null },
-    { status: 401 },
-  );
+const unauthenticated = () => errorResponse(401, 'AUTH_SIGN_IN_REQUIRED', 'Sign in first.');
 
 async function menuLabels(): Promise<string[]> {
   const nav = await screen.findByRole('navigation', { name: 'Main' });

@@ -11,6 +11,7 @@ import {
   setAccessToken,
   withQuery,
 } from './api-client';
+import { errorResponse } from '../test/error-response';
 
 installMswServer();
 
@@ -18,10 +19,7 @@ describe('apiFetch', () => {
   it('turns the API error body into a typed ApiError', async () => {
     server.use(
       http.get('http://localhost:3000/api/visits/7', () =>
-        HttpResponse.json(
-          { statusCode: 404, code: 'VISIT_NOT_FOUND', message: 'Visit 7 not found', details: null },
-          { status: 404 },
-        ),
+        errorResponse(404, 'VISIT_NOT_FOUND', 'Visit 7 not found'),
       ),
     );
     const error = await apiFetch('http://localhost:3000/api/visits/7').catch((e: unknown) => e);
@@ -59,11 +57,7 @@ describe('apiFetch', () => {
 });
 
 describe('silent renewal', () => {
-  const refused = () =>
-    HttpResponse.json(
-      { statusCode: 401, code: 'AUTH_TOKEN_INVALID', message: 'Token expired', details: null },
-      { status: 401 },
-    );
+  const refused = () => errorResponse(401, 'AUTH_TOKEN_INVALID', 'Token expired');
 
   it('renews the token once on a 401 and repeats the request with the new one', async () => {
     const seen: (string | null)[] = [];
@@ -132,12 +126,7 @@ describe('silent renewal', () => {
 
   it('never tries to renew after a refused sign-in', async () => {
     server.use(
-      http.post('/api/auth/sign-in', () =>
-        HttpResponse.json(
-          { statusCode: 401, code: 'AUTH_WRONG_CREDENTIALS', message: 'Wrong', details: null },
-          { status: 401 },
-        ),
-      ),
+      http.post('/api/auth/sign-in', () => errorResponse(401, 'AUTH_WRONG_CREDENTIALS', 'Wrong')),
     );
     // No refresh handler: an attempt to renew would be an unhandled request and fail the test.
     await expect(apiSend('/api/auth/sign-in', 'POST', { email: 'a@b.c' })).rejects.toMatchObject({
@@ -151,14 +140,11 @@ describe('silent renewal', () => {
     const unsubscribe = onSessionEnded(() => (ended += 1));
     server.use(
       http.post('/api/auth/password', () =>
-        HttpResponse.json(
-          {
-            statusCode: 422,
-            code: 'AUTH_CURRENT_PASSWORD_WRONG',
-            message: 'currentPassword: does not match your password',
-            details: { field: 'currentPassword' },
-          },
-          { status: 422 },
+        errorResponse(
+          422,
+          'AUTH_CURRENT_PASSWORD_WRONG',
+          'currentPassword: does not match your password',
+          { field: 'currentPassword' },
         ),
       ),
     );
@@ -176,19 +162,16 @@ describe('validation problems', () => {
   it('reads the { field, reason } items of a VALIDATION_FAILED answer', async () => {
     server.use(
       http.post('http://localhost:3000/api/participants', () =>
-        HttpResponse.json(
+        errorResponse(
+          400,
+          'VALIDATION_FAILED',
+          'code must be a string; siteId: expected a UUID, found "x"',
           {
-            statusCode: 400,
-            code: 'VALIDATION_FAILED',
-            message: 'code must be a string; siteId: expected a UUID, found "x"',
-            details: {
-              problems: [
-                { field: 'code', reason: 'code must be a string' },
-                { field: 'siteId', reason: 'siteId: expected a UUID, found "x"' },
-              ],
-            },
+            problems: [
+              { field: 'code', reason: 'code must be a string' },
+              { field: 'siteId', reason: 'siteId: expected a UUID, found "x"' },
+            ],
           },
-          { status: 400 },
         ),
       ),
     );
@@ -221,14 +204,11 @@ describe('apiUpload', () => {
         const form = await request.formData();
         // jsdom's XMLHttpRequest drops a part's file name on the way, so check a text field.
         kind = form.has('file') ? String(form.get('kind')) : null;
-        return HttpResponse.json(
-          {
-            statusCode: 422,
-            code: 'RECORDING_REJECTED',
-            message: 'Header field "number of signals": found "x", expected a whole number',
-            details: { field: 'number of signals' },
-          },
-          { status: 422 },
+        return errorResponse(
+          422,
+          'RECORDING_REJECTED',
+          'Header field "number of signals": found "x", expected a whole number',
+          { field: 'number of signals' },
         );
       }),
     );

@@ -1,4 +1,10 @@
-import { packRulesFor, type AnalysisSettingsView, type MeResponse, type Role } from '@gyre/shared';
+import {
+  packRulesFor,
+  type AnalysisSettingsValues,
+  type AnalysisSettingsView,
+  type MeResponse,
+  type Role,
+} from '@gyre/shared';
 
 // Generated test data: an invented study with two sites and one user per role.
 export const STUDY = {
@@ -53,15 +59,8 @@ export function meFor(role: Role): MeResponse {
   };
 }
 
-/** Version 1 of the study's analysis settings: the defaults Gyre writes (generated test data). */
-export const DEFAULT_SETTINGS: AnalysisSettingsView = {
-  id: 'set-1',
-  studyId: STUDY.id,
-  version: 1,
-  changes: [],
-  reason: 'Defaults written by Gyre',
-  createdById: null,
-  createdAt: '2025-01-06T09:00:00.000Z',
+/** The values of version 1 of the study's analysis settings: the defaults Gyre writes. */
+export const DEFAULT_SETTINGS_VALUES: AnalysisSettingsValues = {
   bandHz: null,
   method: 'filter',
   morletCycles: 7,
@@ -75,4 +74,16 @@ export const DEFAULT_SETTINGS: AnalysisSettingsView = {
   amplitudeGatePercentile: null,
   cycleDisagreementHz: 0.1,
   compareConditions: null,
+};
+
+/** Version 1 of the study's analysis settings (generated test data). */
+export const DEFAULT_SETTINGS: AnalysisSettingsView = {
+  id: 'set-1',
+  studyId: STUDY.id,
+  version: 1,
+  changes: [],
+  reason: 'Defaults written by Gyre',
+  createdById: null,
+  createdAt: '2025-01-06T09:00:00.000Z',
+  ...DEFAULT_SETTINGS_VALUES,
 };

@@ -45,6 +45,17 @@ export interface PageWindow {
   order: 'ASC' | 'DESC';
 }
 
+/**
+ * The find options of one page: sorted by `column` in the window's order, then by id so that
+ * rows with equal values keep one order and no row shows on two pages.
+ */
+export function pageSliceOf(
+  window: PageWindow,
+  column: string,
+): { order: Record<string, 'ASC' | 'DESC'>; skip: number; take: number } {
+  return { order: { [column]: window.order, id: 'ASC' }, skip: window.skip, take: window.take };
+}
+
 export function pageWindowOf(
   query: PageQueryDto,
   defaultOrder: 'asc' | 'desc' = 'asc',

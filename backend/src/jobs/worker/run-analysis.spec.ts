@@ -3,9 +3,8 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { main } from '../../signal/cli/analyze';
-import { writeEdf } from '../../signal/edf';
 import { DEFAULT_ANALYSIS_SETTINGS } from '../../signal/pipeline/analysis-settings';
-import { syntheticTaskRecording } from '../../signal/synthetic/synthetic-eeg';
+import { syntheticEdf, syntheticTaskRecording } from '../../signal/synthetic/synthetic-eeg';
 import { runAnalysis } from './run-analysis';
 
 /** The CLI's JSON report for `argv` (run in-process). */
@@ -46,21 +45,7 @@ describe('runAnalysis (worker) and the analyze command line', () => {
     seed: 12,
   });
   const path = join(dir, 'task.edf');
-  writeFileSync(
-    path,
-    writeEdf({
-      format: 'EDF+C',
-      startDate: '2024-05-06T09:00:00',
-      signals: generated.signals.map((s) => ({
-        label: s.label,
-        sampleRateHz: s.sampleRateHz,
-        physicalMin: -500,
-        physicalMax: 500,
-        samples: s.samples,
-      })),
-      annotations: generated.annotations,
-    }),
-  );
+  writeFileSync(path, syntheticEdf(generated, { startDate: '2024-05-06T09:00:00' }));
   const checksumSha256 = createHash('sha256').update(readFileSync(path)).digest('hex');
 
   it.each([

@@ -106,6 +106,17 @@ const Numbers = (max: number): PropertyDecorator =>
 const Nested = (type: () => new () => object, options: ValidationOptions = {}): PropertyDecorator =>
   compose(IsObject(options), ValidateNested(options), Type(type));
 
+/** A nested object, or null. */
+const NullableNested = (type: () => new () => object): PropertyDecorator =>
+  compose(
+    ValidateIf((_o, value) => value !== null),
+    Nested(type),
+  );
+
+/** An array of at most `max` nested objects. */
+const NestedList = (type: () => new () => object, max: number): PropertyDecorator =>
+  compose(IsArray(), ArrayMaxSize(max), ValidateNested({ each: true }), Type(type));
+
 /** A plain object of finite counts (`epochs.dropped`: reason → trials). */
 const CountRecord = (): PropertyDecorator =>
   ValidateBy({
@@ -137,10 +148,7 @@ class RoiUsageWireDto implements RoiUsageView {
   @Labels()
   used: string[];
 
-  @IsArray()
-  @ArrayMaxSize(MAX_CHANNELS)
-  @ValidateNested({ each: true })
-  @Type(() => RoiChannelOmissionDto)
+  @NestedList(() => RoiChannelOmissionDto, MAX_CHANNELS)
   leftOut: RoiChannelOmissionDto[];
 
   @IsIn(ROI_STATUSES)
@@ -222,18 +230,11 @@ class RoiStatsDto extends OnsetStatsDto implements NonNullable<RunSummary['roi']
   trialsTotal: number;
 }
 
-class ConditionStatsDto extends OnsetStatsDto implements ConditionStatsView {
+/** The region's statistics over one condition's trials, with the condition's label. */
+class ConditionStatsDto extends RoiStatsDto implements ConditionStatsView {
   @IsString()
   @MaxLength(MAX_LABEL)
   label: string;
-
-  @IsInt()
-  @Min(0)
-  trialsKept: number;
-
-  @IsInt()
-  @Min(0)
-  trialsTotal: number;
 }
 
 class ConditionDifferenceDto implements ConditionDifferenceView {
@@ -327,21 +328,16 @@ class TaskSummaryDto implements NonNullable<RunSummary['task']> {
   @Min(0)
   rasterPoints: number;
 
-  @IsArray()
-  @ArrayMaxSize(MAX_TRIALS)
-  @ValidateNested({ each: true })
-  @Type(() => ConditionStatsDto)
+  @NestedList(() => ConditionStatsDto, MAX_TRIALS)
   conditions: ConditionStatsDto[];
 
-  @ValidateIf((_o, value) => value !== null)
-  @Nested(() => ConditionDifferenceDto)
+  @NullableNested(() => ConditionDifferenceDto)
   conditionDifference: ConditionDifferenceDto | null;
 
   @Labels()
   conditionCurves: string[];
 
-  @ValidateIf((_o, value) => value !== null)
-  @Nested(() => CycleEstimateDto)
+  @NullableNested(() => CycleEstimateDto)
   cycles: CycleEstimateDto | null;
 }
 
@@ -425,10 +421,7 @@ class QualityWireDto implements QualityView {
   @NullableNumber()
   alphaPeakProminenceDb: number | null;
 
-  @IsArray()
-  @ArrayMaxSize(MAX_CHANNELS)
-  @ValidateNested({ each: true })
-  @Type(() => ChannelQualityWireDto)
+  @NestedList(() => ChannelQualityWireDto, MAX_CHANNELS)
   channels: ChannelQualityWireDto[];
 
   @IsArray()
@@ -449,22 +442,16 @@ export class RunSummaryDto implements RunSummary {
   @Nested(() => RoiUsageWireDto)
   roiUsage: RoiUsageWireDto;
 
-  @IsArray()
-  @ArrayMaxSize(MAX_CHANNELS)
-  @ValidateNested({ each: true })
-  @Type(() => ChannelStatsWireDto)
+  @NestedList(() => ChannelStatsWireDto, MAX_CHANNELS)
   channels: ChannelStatsWireDto[];
 
-  @ValidateIf((_o, value) => value !== null)
-  @Nested(() => RoiStatsDto)
+  @NullableNested(() => RoiStatsDto)
   roi: RoiStatsDto | null;
 
-  @ValidateIf((_o, value) => value !== null)
-  @Nested(() => TaskSummaryDto)
+  @NullableNested(() => TaskSummaryDto)
   task: TaskSummaryDto | null;
 
-  @ValidateIf((_o, value) => value !== null)
-  @Nested(() => RestSummaryDto)
+  @NullableNested(() => RestSummaryDto)
   rest: RestSummaryDto | null;
 
   @Nested(() => QualityWireDto)

@@ -3,8 +3,8 @@
  * must stay light at), written by the signal core's EDF+ writer (Kemp & Olivan 2003) from its
  * synthetic generators. Nothing here is measured EEG; the patient field is left unknown.
  */
-import { writeEdf } from '../../signal/edf';
 import {
+  syntheticEdf,
   syntheticRestRecording,
   syntheticTaskRecording,
 } from '../../signal/synthetic/synthetic-eeg';
@@ -19,7 +19,6 @@ export const LABELS_64: readonly string[] = (
   .map((name) => `EEG ${name}-REF`);
 
 const SAMPLE_RATE_HZ = 256;
-const RANGE = { physicalMin: -500, physicalMax: 500 };
 
 /** One stimulus every 4 s from 3 s to the end − 3 s. */
 export function loadOnsets(durationS: number): number[] {
@@ -44,16 +43,7 @@ export function task64Edf(options: {
     dipHz: options.dipHz ?? -0.5,
     seed: options.seed,
   });
-  return writeEdf({
-    startDate: '2026-01-15T09:30:00',
-    signals: recording.signals.map((s) => ({
-      label: s.label,
-      sampleRateHz: s.sampleRateHz,
-      ...RANGE,
-      samples: s.samples,
-    })),
-    annotations: (recording.annotations ?? []).map((a) => ({ ...a })),
-  });
+  return syntheticEdf(recording, { startDate: '2026-01-15T09:30:00' });
 }
 
 /** A 64-channel EDF+C resting recording with its alpha peak at `peakHz`. */
@@ -69,13 +59,5 @@ export function rest64Edf(options: {
     peakHz: options.peakHz,
     seed: options.seed,
   });
-  return writeEdf({
-    startDate: '2026-01-15T09:00:00',
-    signals: recording.signals.map((s) => ({
-      label: s.label,
-      sampleRateHz: s.sampleRateHz,
-      ...RANGE,
-      samples: s.samples,
-    })),
-  });
+  return syntheticEdf(recording, { startDate: '2026-01-15T09:00:00' });
 }

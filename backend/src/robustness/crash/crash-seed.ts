@@ -11,6 +11,7 @@ import { Site } from '../../sites/site.entity';
 import { Study } from '../../studies/study.entity';
 import { User } from '../../accounts/user.entity';
 import { Visit } from '../../visits/visit.entity';
+import { newUserRow } from '../../users/new-user-row';
 
 /** Password of every crash-test account (generated; passes the password policy). */
 export const CRASH_PASSWORD = 'amber-slate-42-rhythm';
@@ -38,22 +39,20 @@ export async function seedCrashData(dataSource: DataSource, visits: number): Pro
   const site: Site = { id: randomUUID(), studyId: study.id, code: 'C1', name: 'Site C1', ...stamp };
   const passwordHash = await hash(CRASH_PASSWORD, 10);
   const roles: CrashRole[] = ['technician', 'analyst', 'monitor'];
-  const users: User[] = roles.map((role) => ({
-    id: randomUUID(),
-    email: `${role}@crash.test`,
-    name: `Crash ${role}`,
-    role,
-    studyId: study.id,
-    // Technicians belong to a site; analysts and monitors see the whole study.
-    siteId: role === 'technician' ? site.id : null,
-    passwordHash,
-    state: 'active',
-    failedSignIns: 0,
-    lockedUntil: null,
-    lastSignInAt: null,
-    passwordChangedAt: at,
-    ...stamp,
-  }));
+  const users: User[] = roles.map((role) =>
+    newUserRow(
+      {
+        email: `${role}@crash.test`,
+        name: `Crash ${role}`,
+        role,
+        studyId: study.id,
+        // Technicians belong to a site; analysts and monitors see the whole study.
+        siteId: role === 'technician' ? site.id : null,
+      },
+      passwordHash,
+      at,
+    ),
+  );
   const participants: Participant[] = [];
   const visitRows: Visit[] = [];
   for (let i = 0; i < visits; i++) {

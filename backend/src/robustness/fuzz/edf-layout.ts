@@ -4,38 +4,7 @@
  * the TAL rules of Kemp & Olivan 2003, deliberately without the reader under test: the
  * fuzzer must not share the reader's idea of the format.
  */
-
-/** Fixed header fields: [name, offset, width] (Kemp et al. 1992). */
-export const FIXED_FIELDS = [
-  ['version', 0, 8],
-  ['patient', 8, 80],
-  ['recording', 88, 80],
-  ['startDate', 168, 8],
-  ['startTime', 176, 8],
-  ['headerBytes', 184, 8],
-  ['reserved', 192, 44],
-  ['recordCount', 236, 8],
-  ['recordDuration', 244, 8],
-  ['signalCount', 252, 4],
-] as const;
-
-export type FixedFieldName = (typeof FIXED_FIELDS)[number][0];
-
-/** Per-signal fields in header order with their widths (Kemp et al. 1992). */
-export const SIGNAL_FIELDS = [
-  ['label', 16],
-  ['transducer', 80],
-  ['dimension', 8],
-  ['physicalMin', 8],
-  ['physicalMax', 8],
-  ['digitalMin', 8],
-  ['digitalMax', 8],
-  ['prefiltering', 80],
-  ['samplesPerRecord', 8],
-  ['reserved', 32],
-] as const;
-
-export type SignalFieldName = (typeof SIGNAL_FIELDS)[number][0];
+import { signalField } from '../../signal/edf/testing/edf-field-layout';
 
 export interface EdfLayout {
   signalCount: number;
@@ -53,26 +22,6 @@ function text(bytes: Uint8Array, offset: number, width: number): string {
   let out = '';
   for (let i = offset; i < offset + width; i++) out += String.fromCharCode(bytes[i]);
   return out.trim();
-}
-
-export function fixedField(name: FixedFieldName): { offset: number; width: number } {
-  const entry = FIXED_FIELDS.find(([n]) => n === name);
-  if (!entry) throw new Error(`unknown field ${name}`);
-  return { offset: entry[1], width: entry[2] };
-}
-
-/** Offset and width of field `name` of signal `index` (0-based) in a file of `signalCount` signals. */
-export function signalField(
-  name: SignalFieldName,
-  index: number,
-  signalCount: number,
-): { offset: number; width: number } {
-  let offset = 256;
-  for (const [n, width] of SIGNAL_FIELDS) {
-    if (n === name) return { offset: offset + index * width, width };
-    offset += width * signalCount;
-  }
-  throw new Error(`unknown field ${name}`);
 }
 
 /** The layout of a valid file (the fuzzer's own base files only). */

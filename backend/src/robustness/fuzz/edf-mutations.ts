@@ -8,15 +8,14 @@
  */
 import type { Rng } from '../seeded-random';
 import {
-  EdfLayout,
   FIXED_FIELDS,
   FixedFieldName,
   fixedField,
   SIGNAL_FIELDS,
   SignalFieldName,
-  signalBytesIn,
   signalField,
-} from './edf-layout';
+} from '../../signal/edf/testing/edf-field-layout';
+import { EdfLayout, signalBytesIn } from './edf-layout';
 
 export interface Mutated {
   bytes: Uint8Array;

@@ -20,7 +20,6 @@ import { loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { readEdf } from '../edf/edf-reader';
-import { writeEdf } from '../edf/edf-writer';
 import {
   defaultEdgePaddingS,
   FrequencySlidingOptions,
@@ -32,7 +31,7 @@ import {
 import { phaseDifferenceFrequency } from '../frequency/instantaneous-frequency';
 import { DEFAULT_TRANSITION_FRACTION } from '../frequency/spectral-weights';
 import { DEFAULT_ANALYSIS_SETTINGS, resolveAnalysisBand } from '../pipeline/analysis-settings';
-import { syntheticTaskRecording } from '../synthetic/synthetic-eeg';
+import { syntheticEdf, syntheticTaskRecording } from '../synthetic/synthetic-eeg';
 
 /** 64 labels of the 10-10 system (ACNS 2016). */
 const LABELS_64 = (
@@ -90,18 +89,7 @@ function writeCase(path: string, minutes: number, channels: number, fs: number):
     onsetsS,
     seed: 42,
   });
-  const bytes = writeEdf({
-    startDate: '2024-03-01T09:00:00',
-    signals: recording.signals.map((s) => ({
-      label: s.label,
-      sampleRateHz: fs,
-      physicalMin: -500,
-      physicalMax: 500,
-      samples: s.samples,
-    })),
-    annotations: recording.annotations,
-  });
-  writeFileSync(path, bytes);
+  writeFileSync(path, syntheticEdf(recording, { startDate: '2024-03-01T09:00:00' }));
 }
 
 /** Child process 2: Gyre's pipeline on the file, stage by stage, single-threaded. */

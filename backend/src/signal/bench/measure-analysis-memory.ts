@@ -24,7 +24,6 @@ import { createHash } from 'node:crypto';
 import { createReadStream, readFileSync, writeFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { readEdf } from '../edf/edf-reader';
-import { writeEdf } from '../edf/edf-writer';
 import { DEFAULT_ANALYSIS_SETTINGS } from '../pipeline/analysis-settings';
 import {
   AnalysisRunRequest,
@@ -32,7 +31,7 @@ import {
   readRecordingForAnalysis,
 } from '../pipeline/analyze-edf-recording';
 import { readEdfFile } from '../pipeline/read-edf-file';
-import { syntheticTaskRecording } from '../synthetic/synthetic-eeg';
+import { syntheticEdf, syntheticTaskRecording } from '../synthetic/synthetic-eeg';
 
 /** 64 labels of the 10-10 system (ACNS 2016). */
 const LABELS_64 = (
@@ -60,17 +59,7 @@ function generate(path: string): void {
     onsetsS,
     seed: 42,
   });
-  const bytes = writeEdf({
-    startDate: '2024-03-01T09:00:00',
-    signals: recording.signals.map((s) => ({
-      label: s.label,
-      sampleRateHz: 500,
-      physicalMin: -500,
-      physicalMax: 500,
-      samples: s.samples,
-    })),
-    annotations: recording.annotations,
-  });
+  const bytes = syntheticEdf(recording, { startDate: '2024-03-01T09:00:00' });
   writeFileSync(path, bytes);
   console.log(`wrote ${path}: ${(bytes.byteLength / 2 ** 20).toFixed(1)} MiB`);
 }

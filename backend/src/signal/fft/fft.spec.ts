@@ -1,5 +1,4 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { readScipyFixture } from '../testing/scipy-fixtures';
 import { BluesteinDft, dftPlan } from './dft-any-length';
 import { fftPlan, nextPowerOfTwo } from './fft-plan';
 import { BandDftPlan, BandDftScratch, bandSubSize, PhaseSink, PhaseSource } from './band-dft';
@@ -133,11 +132,6 @@ interface RfftFixture {
   cases: { size: number; input: number[]; re: number[]; im: number[] }[];
 }
 
-function rfftFixture(): RfftFixture {
-  const path = join(__dirname, '../../../test/fixtures/scipy/rfft.json');
-  return JSON.parse(readFileSync(path, 'utf8')) as RfftFixture;
-}
-
 /** Bins 0 … ⌊N/2⌋ of the any-length DFT of a real input (imaginary part zero), interleaved. */
 function realInputDft(x: Float64Array): Float64Array {
   const n = x.length;
@@ -151,7 +145,7 @@ describe('any-length DFT of a real input (what Welch transforms)', () => {
   // Reference: numpy.fft.rfft on the fixture inputs (backend/scripts/scipy_reference.py).
   // 1000, 2000 and 1250 (Welch's 4 s at 250, 500 and 312.5 Hz) and 375 go through the
   // mixed-radix plan, 1024 through fft.js, 1009 (prime) and 1006 (= 2·503) through Bluestein.
-  it.each(rfftFixture().cases.map((c) => [c.size, c] as const))(
+  it.each(readScipyFixture<RfftFixture>('rfft.json').cases.map((c) => [c.size, c] as const))(
     'matches numpy.fft.rfft at N = %i',
     (n, fixture) => {
       const out = realInputDft(Float64Array.from(fixture.input));

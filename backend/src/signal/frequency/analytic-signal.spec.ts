@@ -1,5 +1,4 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { readScipyFixture, relativeError } from '../testing/scipy-fixtures';
 import { analyticFftSize, analyticSignal, AnalyticWorkspace, envelope } from './analytic-signal';
 import { frequencySliding } from './frequency-sliding';
 import { phaseDifferenceFrequency } from './instantaneous-frequency';
@@ -16,20 +15,7 @@ interface HilbertFixture {
   bandAnalyticIm: number[];
 }
 
-const fixture = JSON.parse(
-  readFileSync(join(__dirname, '../../../test/fixtures/scipy/hilbert.json'), 'utf8'),
-) as HilbertFixture;
-
-/** max |a − b| relative to max |b|: a relative error that ignores zero crossings. */
-function relativeError(actual: ArrayLike<number>, expected: ArrayLike<number>): number {
-  let diff = 0;
-  let scale = 0;
-  for (let i = 0; i < expected.length; i++) {
-    diff = Math.max(diff, Math.abs(actual[i] - expected[i]));
-    scale = Math.max(scale, Math.abs(expected[i]));
-  }
-  return diff / scale;
-}
+const fixture = readScipyFixture<HilbertFixture>('hilbert.json');
 
 describe('analytic signal against scipy.signal.hilbert', () => {
   const x = Float64Array.from(fixture.input);

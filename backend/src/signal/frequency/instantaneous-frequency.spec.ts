@@ -1,5 +1,4 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { readScipyFixture, relativeError } from '../testing/scipy-fixtures';
 import {
   frequencyFromPhase,
   frequencyTimeS,
@@ -17,19 +16,7 @@ interface UnwrapFixture {
   frequencyHz: number[];
 }
 
-const fixture = JSON.parse(
-  readFileSync(join(__dirname, '../../../test/fixtures/scipy/unwrap.json'), 'utf8'),
-) as UnwrapFixture;
-
-function relativeError(actual: ArrayLike<number>, expected: ArrayLike<number>): number {
-  let diff = 0;
-  let scale = 0;
-  for (let i = 0; i < expected.length; i++) {
-    diff = Math.max(diff, Math.abs(actual[i] - expected[i]));
-    scale = Math.max(scale, Math.abs(expected[i]));
-  }
-  return diff / scale;
-}
+const fixture = readScipyFixture<UnwrapFixture>('unwrap.json');
 
 describe('phase and frequency against numpy', () => {
   const z = { re: Float64Array.from(fixture.re), im: Float64Array.from(fixture.im) };

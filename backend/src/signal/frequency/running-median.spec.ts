@@ -1,5 +1,4 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { readScipyFixture } from '../testing/scipy-fixtures';
 import {
   FrequencySlidingWorkspace,
   medianFilterFrequency,
@@ -17,12 +16,14 @@ interface MedianFixture {
   medianAcross: number[];
 }
 
-const fixture = JSON.parse(
-  readFileSync(join(__dirname, '../../../test/fixtures/scipy/median-filter.json'), 'utf8'),
-) as MedianFixture;
+const fixture = readScipyFixture<MedianFixture>('median-filter.json');
 
-/** Median of each centred window by sorting it: the definition, with scipy's 'reflect' edges. */
-function sortedWindowMedian(x: Float64Array, k: number): Float64Array {
+/**
+ * The definition: sort each window, mirrored at the edges like scipy's 'reflect', and take its
+ * middle element. A typed array's default sort is numeric with NaN last (ECMAScript,
+ * TypedArray SortCompare), the order the running median documents (numpy.sort's too).
+ */
+function windowMedians(x: Float64Array, k: number): Float64Array {
   const n = x.length;
   const h = (k - 1) / 2;
   const reflect = (i: number): number => {
@@ -31,11 +32,10 @@ function sortedWindowMedian(x: Float64Array, k: number): Float64Array {
     return j < n ? j : p - 1 - j;
   };
   const out = new Float64Array(n);
+  const w = new Float64Array(k);
   for (let i = 0; i < n; i++) {
-    const w: number[] = [];
-    for (let j = -h; j <= h; j++) w.push(x[reflect(i + j)]);
-    w.sort((a, b) => a - b);
-    out[i] = w[h];
+    for (let j = -h; j <= h; j++) w[j + h] = x[reflect(i + j)];
+    out[i] = w.sort()[h];
   }
   return out;
 }
@@ -80,16 +80,18 @@ describe('running median', () => {
         for (let i = 0; i < n; i++)
           x[i] = Math.floor(random() * 7) - 3 + (random() < 0.5 ? 0 : random());
         expect(Array.from(runningMedian(x, { windowSamples: k }, ws))).toEqual(
-          Array.from(sortedWindowMedian(x, k)),
+          Array.from(windowMedians(x, k)),
         );
       }
     }
   });
 
   it('leaves NaN out like scipy.ndimage.generic_filter(numpy.nanmedian, mode="reflect")', () => {
-    const nanFixture = JSON.parse(
-      readFileSync(join(__dirname, '../../../test/fixtures/scipy/nan-median-filter.json'), 'utf8'),
-    ) as { input: (number | null)[]; windowsSamples: number[]; filtered: (number | null)[][] };
+    const nanFixture = readScipyFixture<{
+      input: (number | null)[];
+      windowsSamples: number[];
+      filtered: (number | null)[][];
+    }>('nan-median-filter.json');
     const x = Float64Array.from(nanFixture.input, (v) => v ?? NaN);
     const ws = new RunningMedianWorkspace();
     for (const chunkSamples of [7, 2048]) {
@@ -177,7 +179,7 @@ describe('running median in chunks', () => {
         outputs,
       );
       windows.forEach((k, i) => {
-        expect(Array.from(outputs[i])).toEqual(Array.from(sortedWindowMedian(x, k)));
+        expect(Array.from(outputs[i])).toEqual(Array.from(windowMedians(x, k)));
       });
     },
   );
@@ -244,28 +246,6 @@ describe('running median, randomized against sorting every window', () => {
     return seed / 2147483648;
   };
   const int = (lo: number, hi: number): number => lo + Math.floor(random() * (hi - lo + 1));
-
-  /**
-   * The definition: sort each mirrored window, take its middle element. A typed array's
-   * default sort is numeric with NaN last (ECMAScript, TypedArray SortCompare), the order
-   * the running median documents (numpy.sort's too).
-   */
-  function windowMedians(x: Float64Array, k: number): Float64Array {
-    const n = x.length;
-    const h = (k - 1) / 2;
-    const reflect = (i: number): number => {
-      const p = 2 * n;
-      const j = ((i % p) + p) % p;
-      return j < n ? j : p - 1 - j;
-    };
-    const out = new Float64Array(n);
-    const w = new Float64Array(k);
-    for (let i = 0; i < n; i++) {
-      for (let j = -h; j <= h; j++) w[j + h] = x[reflect(i + j)];
-      out[i] = w.sort()[h];
-    }
-    return out;
-  }
 
   /** Inputs with continuous values, many ties, long plateaus, ramps, outliers and NaN. */
   function generate(kind: number, n: number): Float64Array {

@@ -5,7 +5,7 @@ import type {
   RoiUsageView,
 } from '@gyre/shared';
 import type { AmplitudeGateCount } from '../frequency/amplitude-gate';
-import { WilcoxonMethod } from '../trials/wilcoxon';
+import type { OnsetStatistics } from '../trials/onset-statistics';
 import { ChannelQuality } from '../quality/quality-checks';
 import { NoPeakReason } from '../spectrum/alpha-peak';
 import type { AnalysisComputation } from './analysis-computation';
@@ -92,18 +92,8 @@ export interface OnsetCurveResult {
   upperHz: Float64Array;
 }
 
-export interface OnsetResult {
-  baselineHz: number | null;
-  postHz: number | null;
-  /** Mean of post − baseline over kept trials, Hz. */
-  deltaFHz: number | null;
-  /** Bootstrap 95 % interval of the mean Δf, Hz. */
-  ciHz: [number, number] | null;
-  /** Two-sided Wilcoxon signed-rank p of the trial Δf values. */
-  pValue: number | null;
-  wilcoxonMethod: WilcoxonMethod | null;
-  /** Δf ≤ the flag threshold and the interval excludes 0 (a suggestion, never a decision). */
-  suggestsSlowing: boolean;
+/** The statistics of the kept trials, with what was kept and dropped and the mean curve. */
+export interface OnsetResult extends OnsetStatistics {
   trialsKept: number;
   trialsDropped: number;
   dropReasons: DropCounts;

@@ -1,4 +1,5 @@
 import { PowerSpectrum } from '../spectrum/welch';
+import type { AnalysisSignal } from '../pipeline/analysis.types';
 
 /** Factor from a signal's physical unit to µV, or null for a unit Gyre does not know. */
 export function microvoltsPerUnit(physicalDimension: string): number | null {
@@ -162,15 +163,7 @@ export interface ChannelQuality {
  * `saturationMinRunSamples` cover more than `saturatedAboveShare` of the samples.
  */
 export function channelQuality(
-  signal: {
-    label: string;
-    samples: Float32Array;
-    physicalDimension?: string;
-    physicalMin?: number;
-    physicalMax?: number;
-    digitalMin?: number;
-    digitalMax?: number;
-  },
+  signal: Omit<AnalysisSignal, 'sampleRateHz' | 'samplesPerRecord'>,
   thresholds: ChannelQualityThresholds = {},
 ): Pick<ChannelQuality, 'label' | 'standardDeviationUv' | 'flat' | 'saturatedShare' | 'saturated'> {
   const t = { ...DEFAULT_QUALITY_THRESHOLDS, ...thresholds };

@@ -1,5 +1,4 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { readScipyFixture } from '../testing/scipy-fixtures';
 import { alphaPeak, centreOfGravity } from './alpha-peak';
 import { PowerSpectrum, welchPowerSpectrum } from './welch';
 
@@ -10,11 +9,6 @@ interface WelchFixture {
   input: number[];
   frequencyHz: number[];
   powerPerHz: number[];
-}
-
-function load(name: string): WelchFixture {
-  const path = join(__dirname, '../../../test/fixtures/scipy', name);
-  return JSON.parse(readFileSync(path, 'utf8')) as WelchFixture;
 }
 
 /** Generated resting-like signal: a tone at `peakHz` over brown-ish noise. */
@@ -43,7 +37,7 @@ describe('Welch power spectrum against scipy.signal.welch', () => {
   it.each(['welch-250hz.json', 'welch-256hz.json'])('matches %s (relative 1e-9)', (name) => {
     // Reference: scipy.signal.welch, Hann, 4 s segments, 50 % overlap, density scaling.
     // 250 Hz gives 1000-sample segments (any-length DFT), 256 Hz gives 1024 (radix-4).
-    const fixture = load(name);
+    const fixture = readScipyFixture<WelchFixture>(name);
     const spectrum = welchPowerSpectrum(Float64Array.from(fixture.input), {
       sampleRateHz: fixture.sampleRateHz,
       segmentS: fixture.segmentS,

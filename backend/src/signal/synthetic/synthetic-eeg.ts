@@ -98,14 +98,7 @@ export function syntheticTaskRecording(options: SyntheticTaskOptions): AnalysisR
       const alpha = gain * alphaWave(phase[i] + offset, waveform);
       samples[i] = (envelope ? alpha * envelope[i] : alpha) + noise * normal();
     }
-    return {
-      label,
-      sampleRateHz: fs,
-      samples,
-      physicalDimension: 'uV',
-      physicalMin: -500,
-      physicalMax: 500,
-    };
+    return generatedSignal(label, fs, samples);
   });
   return {
     signals,
@@ -147,16 +140,25 @@ export function syntheticRestRecording(options: SyntheticRestOptions): AnalysisR
       samples[i] =
         amplitude * envelope * Math.sin(2 * Math.PI * options.peakHz * t + c) + walk + 2 * normal();
     }
-    return {
-      label,
-      sampleRateHz: fs,
-      samples,
-      physicalDimension: 'uV',
-      physicalMin: -500,
-      physicalMax: 500,
-    };
+    return generatedSignal(label, fs, samples);
   });
   return { signals, annotations: [], durationS: n / fs };
+}
+
+/** A generated channel in µV with the ±500 µV range every generated amplitude fits in. */
+function generatedSignal(
+  label: string,
+  sampleRateHz: number,
+  samples: Float32Array,
+): AnalysisSignal {
+  return {
+    label,
+    sampleRateHz,
+    samples,
+    physicalDimension: 'uV',
+    physicalMin: -500,
+    physicalMax: 500,
+  };
 }
 
 export interface SyntheticEdfOptions {

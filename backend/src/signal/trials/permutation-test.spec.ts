@@ -1,5 +1,4 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { readScipyFixture } from '../testing/scipy-fixtures';
 import { meanDifferencePermutationTest } from './permutation-test';
 
 interface PermutationFixture {
@@ -15,9 +14,7 @@ interface PermutationFixture {
   }[];
 }
 
-const fixture = JSON.parse(
-  readFileSync(join(__dirname, '../../../test/fixtures/scipy/condition-permutation.json'), 'utf8'),
-) as PermutationFixture;
+const fixture = readScipyFixture<PermutationFixture>('condition-permutation.json');
 
 const RESAMPLES = 5000;
 const SEED = 20190815;

@@ -1,5 +1,4 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { readScipyFixture } from '../testing/scipy-fixtures';
 import { BOOTSTRAP_RESAMPLES, BOOTSTRAP_SEED } from '../pipeline/analysis-settings';
 import { bootstrapMeanDifferenceInterval } from './two-sample-bootstrap';
 
@@ -15,9 +14,7 @@ interface BootstrapFixture {
   }[];
 }
 
-const fixture = JSON.parse(
-  readFileSync(join(__dirname, '../../../test/fixtures/scipy/condition-bootstrap.json'), 'utf8'),
-) as BootstrapFixture;
+const fixture = readScipyFixture<BootstrapFixture>('condition-bootstrap.json');
 
 /**
  * Monte-Carlo standard deviation of a percentile-interval end from B resamples: the 2.5 %

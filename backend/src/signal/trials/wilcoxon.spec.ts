@@ -1,5 +1,4 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { readScipyFixture } from '../testing/scipy-fixtures';
 import { erfc, normalSurvival } from './normal-distribution';
 import { wilcoxonSignedRank } from './wilcoxon';
 
@@ -7,9 +6,7 @@ interface WilcoxonFixture {
   cases: { name: string; differences: number[]; statistic: number; pValue: number }[];
 }
 
-const fixture = JSON.parse(
-  readFileSync(join(__dirname, '../../../test/fixtures/scipy/wilcoxon.json'), 'utf8'),
-) as WilcoxonFixture;
+const fixture = readScipyFixture<WilcoxonFixture>('wilcoxon.json');
 
 describe('Wilcoxon signed-rank test against scipy.stats.wilcoxon', () => {
   it.each(fixture.cases.map((c) => [c.name, c] as const))('matches scipy for %s', (_name, c) => {

@@ -4,6 +4,7 @@
  * reserved field, TALs). Nothing here uses Gyre's writer or number formatting, so the
  * reader is checked against the specification rather than against the writer.
  */
+import { FIXED_FIELDS, SIGNAL_FIELDS } from './edf-field-layout';
 
 /** Fixed header fields as the literal text to write (padded with spaces to the width). */
 export interface RawFixedFields {
@@ -42,31 +43,10 @@ export function field(text: string, width: number): number[] {
 }
 
 export function rawHeader(fixed: RawFixedFields, signals: RawSignalFields[]): number[] {
-  const bytes: number[] = [
-    ...field(fixed.version, 8),
-    ...field(fixed.patient, 80),
-    ...field(fixed.recording, 80),
-    ...field(fixed.startDate, 8),
-    ...field(fixed.startTime, 8),
-    ...field(fixed.headerBytes, 8),
-    ...field(fixed.reserved, 44),
-    ...field(fixed.recordCount, 8),
-    ...field(fixed.recordDuration, 8),
-    ...field(fixed.signalCount, 4),
-  ];
-  const widths: [keyof RawSignalFields, number][] = [
-    ['label', 16],
-    ['transducer', 80],
-    ['dimension', 8],
-    ['physicalMin', 8],
-    ['physicalMax', 8],
-    ['digitalMin', 8],
-    ['digitalMax', 8],
-    ['prefiltering', 80],
-    ['samplesPerRecord', 8],
-    ['reserved', 32],
-  ];
-  for (const [key, width] of widths) for (const s of signals) bytes.push(...field(s[key], width));
+  const bytes: number[] = [];
+  for (const [name, , width] of FIXED_FIELDS) bytes.push(...field(fixed[name], width));
+  for (const [name, width] of SIGNAL_FIELDS)
+    for (const s of signals) bytes.push(...field(s[name], width));
   return bytes;
 }
 

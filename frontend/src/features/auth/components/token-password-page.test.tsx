@@ -5,6 +5,7 @@ import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { describe, expect, it } from 'vitest';
 import { installMswServer, server } from '../../../test/msw-server';
 import { TokenPasswordPage } from './token-password-page';
+import { errorResponse } from '../../../test/error-response';
 
 installMswServer();
 
@@ -55,14 +56,11 @@ describe('choosing a password from an e-mailed link', () => {
   it("shows the server's reason when the link has expired", async () => {
     server.use(
       http.post('/api/auth/accept-invitation', () =>
-        HttpResponse.json(
-          {
-            statusCode: 400,
-            code: 'AUTH_ONE_TIME_TOKEN_EXPIRED',
-            message: 'token: this link expired at 2025-01-08 09:00 UTC',
-            details: { field: 'token' },
-          },
-          { status: 400 },
+        errorResponse(
+          400,
+          'AUTH_ONE_TIME_TOKEN_EXPIRED',
+          'token: this link expired at 2025-01-08 09:00 UTC',
+          { field: 'token' },
         ),
       ),
     );

@@ -1,10 +1,11 @@
 import { visitScheduleStatus, type PlannedVisitView, type VisitView } from '@gyre/shared';
-import { DatePicker, Form, Input, Select, Space, Typography } from 'antd';
+import { Form, Input, Select, Space, Typography } from 'antd';
 import dayjs, { type Dayjs } from 'dayjs';
 import { ModalForm } from '../../../components/modal-form';
 import { studyDayText, VisitWindowTag } from '../../../components/visit-window-tag';
 import { formatDate } from '../../../lib/format';
 import { useCreateVisit, type CreateVisitBody } from '../api/create-visit';
+import { PastDateField } from './past-date-field';
 
 /** The Select's value for a visit outside the schedule. */
 export const UNSCHEDULED = 'unscheduled';
@@ -146,26 +147,12 @@ export function NewVisitForm({
           <Input autoFocus={!hasSchedule} />
         </Form.Item>
       )}
-      <Form.Item
-        label="Visit date"
+      <PastDateField
         name="visitDate"
-        rules={[
-          { required: true, message: 'Choose the date of the visit.' },
-          {
-            validator: async (_rule, value: unknown) => {
-              if (dayjs.isDayjs(value) && value.isAfter(dayjs(), 'day')) {
-                throw new Error('The visit date cannot be in the future.');
-              }
-            },
-          },
-        ]}
-      >
-        <DatePicker
-          format="D MMM YYYY"
-          disabledDate={(d) => d.isAfter(dayjs(), 'day')}
-          className="gyre-fill-width"
-        />
-      </Form.Item>
+        label="Visit date"
+        noun="visit date"
+        requiredMessage="Choose the date of the visit."
+      />
       {status !== null && (
         <div role="status" aria-label="Window status" className="gyre-below">
           <Space wrap size={8}>

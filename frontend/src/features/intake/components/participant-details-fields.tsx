@@ -1,6 +1,6 @@
 import type { StudyGroupView } from '@gyre/shared';
-import { DatePicker, Form, Select } from 'antd';
-import dayjs from 'dayjs';
+import { Form, Select } from 'antd';
+import { PastDateField } from './past-date-field';
 
 /** The enrolment date and group fields, shared by registering and editing a participant. */
 export function ParticipantScheduleFields({
@@ -12,27 +12,13 @@ export function ParticipantScheduleFields({
 }) {
   return (
     <>
-      <Form.Item
-        label="Enrolment date"
+      <PastDateField
         name="enrolmentDate"
+        label="Enrolment date"
+        noun="enrolment date"
+        requiredMessage={requireEnrolment ? 'Choose the enrolment date.' : null}
         extra="Day 0 of the visit schedule: each planned visit's window is counted from it."
-        rules={[
-          ...(requireEnrolment ? [{ required: true, message: 'Choose the enrolment date.' }] : []),
-          {
-            validator: async (_rule: unknown, value: unknown) => {
-              if (dayjs.isDayjs(value) && value.isAfter(dayjs(), 'day')) {
-                throw new Error('The enrolment date cannot be in the future.');
-              }
-            },
-          },
-        ]}
-      >
-        <DatePicker
-          format="D MMM YYYY"
-          disabledDate={(d) => d.isAfter(dayjs(), 'day')}
-          className="gyre-fill-width"
-        />
-      </Form.Item>
+      />
       {groups.length > 0 && (
         <Form.Item label="Group" name="groupId">
           <Select

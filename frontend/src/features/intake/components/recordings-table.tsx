@@ -13,6 +13,7 @@ import { KIND_LABELS } from './kind-labels';
 import { recordingNotes } from './recording-notes';
 import { RecordingStateTag } from './recording-state-tag';
 import { RejectionText } from './rejection-text';
+import { dateTimeColumn } from '../../../components/table-columns';
 
 /** States whose stored file can be downloaded (a rejected file is not kept). */
 const DOWNLOADABLE: ReadonlySet<RecordingView['state']> = new Set([
@@ -289,13 +290,7 @@ export function RecordingsTable({
             key: 'progress',
             render: (_, recording) => <Progression recording={recording} all={all} />,
           },
-          {
-            title: 'Uploaded',
-            dataIndex: 'createdAt',
-            width: 180,
-            responsive: ['lg'],
-            render: (at: string) => <span className="gyre-figures">{formatDateTime(at)}</span>,
-          },
+          { ...dateTimeColumn<RecordingView>('Uploaded', 'createdAt', 180), responsive: ['lg'] },
           {
             title: '',
             key: 'actions',

@@ -14,6 +14,7 @@ import { meFor, SITE } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { ReportSignOff } from './report-sign-off';
 import { SignedReports } from './signed-reports';
+import { errorResponse } from '../../../test/error-response';
 
 installMswServer();
 
@@ -101,14 +102,11 @@ describe('ReportSignOff', () => {
         const body = (await request.json()) as { password: string };
         bodies.push(body);
         if (body.password !== 'right-password-42') {
-          return HttpResponse.json(
-            {
-              statusCode: 422,
-              code: 'SIGNOFF_WRONG_PASSWORD',
-              message: 'password: does not match your password; the report was not signed.',
-              details: { field: 'password' },
-            },
-            { status: 422 },
+          return errorResponse(
+            422,
+            'SIGNOFF_WRONG_PASSWORD',
+            'password: does not match your password; the report was not signed.',
+            { field: 'password' },
           );
         }
         current = signOff({
@@ -180,14 +178,10 @@ describe('ReportSignOff', () => {
         return previewResponse();
       }),
       http.post(`/api/visits/${VISIT}/report/sign`, () =>
-        HttpResponse.json(
-          {
-            statusCode: 409,
-            code: 'SIGNOFF_CONTENT_CHANGED',
-            message: 'fingerprint: the visit changed since this draft was previewed',
-            details: null,
-          },
-          { status: 409 },
+        errorResponse(
+          409,
+          'SIGNOFF_CONTENT_CHANGED',
+          'fingerprint: the visit changed since this draft was previewed',
         ),
       ),
     );

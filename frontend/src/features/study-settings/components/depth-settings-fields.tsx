@@ -1,25 +1,16 @@
 import { DEFAULT_AMPLITUDE_GATE_PERCENTILE_WHEN_ON } from '@gyre/shared';
-import { Col, Form, Input, InputNumber, Row, Switch, type FormRule } from 'antd';
+import { Col, Form, Input, InputNumber, Row, Switch } from 'antd';
+import { HalfRowNumberField } from '../../../components/half-row-number-field';
+import { checkWhenFilled } from '../../../lib/check-when-filled';
 import type { SettingsFormValues } from './settings-form-values';
 
 type Field = keyof SettingsFormValues;
-
-/** A rule that passes while the field is empty (a `required` rule says that) or the test holds. */
-function rule<T>(test: (value: T, get: (name: Field) => unknown) => string | null): FormRule {
-  return ({ getFieldValue }) => ({
-    validator: async (_rule: unknown, value: T | null | undefined) => {
-      if (value === null || value === undefined) return;
-      const problem = test(value, getFieldValue as (name: Field) => unknown);
-      if (problem !== null) throw new Error(problem);
-    },
-  });
-}
 
 const text = (value: unknown): string => (typeof value === 'string' ? value.trim() : '');
 
 /** Both condition labels or neither, and two different ones (labels match case-insensitively). */
 const pairRule = (other: Field, thisOne: 'first' | 'second') =>
-  rule<string>((value, get) => {
+  checkWhenFilled<string, Field>((value, get) => {
     const mine = text(value);
     const theirs = text(get(other));
     if (mine === '' && theirs !== '') {
@@ -72,18 +63,17 @@ export function DepthSettingsFields() {
           </Form.Item>
         </Col>
         {gateOn && (
-          <Col xs={24} sm={12}>
-            <Form.Item
-              name="amplitudeGatePercentile"
-              label="Envelope percentile"
-              rules={[
-                { required: true, message: 'Enter the envelope percentile.' },
-                rule<number>((v) => (v < 1 || v > 90 ? 'Use a percentile from 1 to 90.' : null)),
-              ]}
-            >
-              <InputNumber step={5} className="gyre-fill-width" />
-            </Form.Item>
-          </Col>
+          <HalfRowNumberField
+            name="amplitudeGatePercentile"
+            label="Envelope percentile"
+            step={5}
+            rules={[
+              { required: true, message: 'Enter the envelope percentile.' },
+              checkWhenFilled<number, Field>((v) =>
+                v < 1 || v > 90 ? 'Use a percentile from 1 to 90.' : null,
+              ),
+            ]}
+          />
         )}
       </Row>
       <Form.Item
@@ -92,7 +82,7 @@ export function DepthSettingsFields() {
         extra="Review warns when the cycle-by-cycle Δf and the phase-based Δf differ by more."
         rules={[
           { required: true, message: 'Enter the disagreement threshold.' },
-          rule<number>((v) =>
+          checkWhenFilled<number, Field>((v) =>
             v <= 0 || v > 2 ? 'Use a difference above 0 and at most 2 Hz.' : null,
           ),
         ]}

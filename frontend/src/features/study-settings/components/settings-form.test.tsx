@@ -3,6 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { DEFAULT_AMPLITUDE_GATE_PERCENTILE_WHEN_ON } from '@gyre/shared';
 import { describe, expect, it, vi } from 'vitest';
 import { ApiError } from '../../../lib/api-client';
+import { DEFAULT_SETTINGS_VALUES } from '../../../test/fixtures';
 import { VERSION_1 } from '../testing/settings-fixtures';
 import { SettingsForm } from './settings-form';
 
@@ -87,19 +88,9 @@ describe('SettingsForm', { timeout: 60_000 }, () => {
     await save();
     await waitFor(() =>
       expect(onSave).toHaveBeenCalledWith({
+        ...DEFAULT_SETTINGS_VALUES,
         bandHz: [8.5, 12.5],
-        method: 'filter',
-        morletCycles: 7,
-        epochWindowS: [-1, 2],
-        baselineWindowS: [-0.5, 0],
         postWindowS: [0.2, 1],
-        rejectionThresholdUv: 100,
-        flagThresholdHz: -0.2,
-        roi: ['O1', 'O2', 'Pz'],
-        onsetLabel: null,
-        amplitudeGatePercentile: null,
-        cycleDisagreementHz: 0.1,
-        compareConditions: null,
         reason: 'Narrower band after the pilot',
       }),
     );

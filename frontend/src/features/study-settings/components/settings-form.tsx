@@ -22,31 +22,26 @@ import {
   type SettingsFormValues,
 } from './settings-form-values';
 import { BandEdgeFields } from '../../../components/band-edge-fields';
+import { HalfRowNumberField } from '../../../components/half-row-number-field';
+import { checkWhenFilled } from '../../../lib/check-when-filled';
 import { DepthSettingsFields } from './depth-settings-fields';
 
 type Values = SettingsFormValues;
-type Getter = (name: keyof Values) => unknown;
 
 const required = (what: string): FormRule => ({ required: true, message: `Enter ${what}.` });
 
 /** A rule comparing this field with others; limits are those the server checks (common practice). */
-function check(
+const check = (
   test: (value: number, get: (name: keyof Values) => number | null) => string | null,
-): FormRule {
-  return ({ getFieldValue }: { getFieldValue: Getter }) => ({
-    validator: async (_rule: unknown, value: number | null) => {
-      if (value === null || value === undefined) return;
-      const get = (name: keyof Values) => {
-        const v = getFieldValue(name);
-        return typeof v === 'number' ? v : null;
-      };
-      const problem = test(value, get);
-      if (problem !== null) throw new Error(problem);
-    },
-  });
-}
+): FormRule =>
+  checkWhenFilled<number, keyof Values>((value, get) =>
+    test(value, (name) => {
+      const v = get(name);
+      return typeof v === 'number' ? v : null;
+    }),
+  );
 
-const seconds = { suffix: 's', step: 0.1, style: { width: '100%' } } as const;
+const seconds = { suffix: 's', step: 0.1 } as const;
 
 /** What went wrong with the last save: the server's refusal, or "nothing changed". */
 interface Failure {
@@ -144,121 +139,92 @@ export function SettingsForm({
         )}
       </Row>
       <Row gutter={12}>
-        <Col xs={24} sm={12}>
-          <Form.Item
-            name="epochStartS"
-            label="Epoch start"
-            rules={[
-              required('the epoch start'),
-              check((v) => (v >= 0 ? 'The epoch must start before onset (below 0 s).' : null)),
-            ]}
-          >
-            <InputNumber {...seconds} />
-          </Form.Item>
-        </Col>
-        <Col xs={24} sm={12}>
-          <Form.Item
-            name="epochEndS"
-            label="Epoch end"
-            dependencies={['epochStartS']}
-            rules={[
-              required('the epoch end'),
-              check((v, get) => {
-                if (v <= 0) return 'The epoch must end after onset (above 0 s).';
-                const start = get('epochStartS');
-                return start !== null && v - start > 20
-                  ? 'An epoch can be at most 20 s long.'
-                  : null;
-              }),
-            ]}
-          >
-            <InputNumber {...seconds} />
-          </Form.Item>
-        </Col>
-        <Col xs={24} sm={12}>
-          <Form.Item
-            name="baselineStartS"
-            label="Baseline start"
-            dependencies={['epochStartS', 'epochEndS']}
-            rules={[
-              required('the baseline start'),
-              windowRule('baseline', 'baselineStartS', false),
-            ]}
-          >
-            <InputNumber {...seconds} />
-          </Form.Item>
-        </Col>
-        <Col xs={24} sm={12}>
-          <Form.Item
-            name="baselineEndS"
-            label="Baseline end"
-            dependencies={['baselineStartS', 'epochStartS', 'epochEndS']}
-            rules={[
-              required('the baseline end'),
-              windowRule('baseline', 'baselineStartS', true),
-              check((v) => (v > 0 ? 'The baseline must end at or before onset (0 s).' : null)),
-            ]}
-          >
-            <InputNumber {...seconds} />
-          </Form.Item>
-        </Col>
-        <Col xs={24} sm={12}>
-          <Form.Item
-            name="postStartS"
-            label="Post start"
-            dependencies={['baselineEndS', 'epochStartS', 'epochEndS']}
-            rules={[
-              required('the post-window start'),
-              windowRule('post window', 'postStartS', false),
-              check((v, get) => {
-                const baselineEnd = get('baselineEndS');
-                return baselineEnd !== null && v < baselineEnd
-                  ? `The post window must start at or after the baseline's end (${baselineEnd} s).`
-                  : null;
-              }),
-            ]}
-          >
-            <InputNumber {...seconds} />
-          </Form.Item>
-        </Col>
-        <Col xs={24} sm={12}>
-          <Form.Item
-            name="postEndS"
-            label="Post end"
-            dependencies={['postStartS', 'epochStartS', 'epochEndS']}
-            rules={[required('the post-window end'), windowRule('post window', 'postStartS', true)]}
-          >
-            <InputNumber {...seconds} />
-          </Form.Item>
-        </Col>
-        <Col xs={24} sm={12}>
-          <Form.Item
-            name="rejectionThresholdUv"
-            label="Reject epochs above"
-            rules={[
-              required('the rejection threshold'),
-              check((v) =>
-                v <= 0 || v > 10_000 ? 'Use a threshold above 0 and at most 10000 µV.' : null,
-              ),
-            ]}
-          >
-            <InputNumber suffix="µV" step={10} className="gyre-fill-width" />
-          </Form.Item>
-        </Col>
-        <Col xs={24} sm={12}>
-          <Form.Item
-            name="flagThresholdHz"
-            label="Suggest a flag at Δf ≤"
-            rules={[
-              required('the flag threshold'),
-              check((v) =>
-                v >= 0 || v < -5 ? 'Use a negative change between −5 and 0 Hz.' : null,
-              ),
-            ]}
-          >
-            <InputNumber suffix="Hz" step={0.05} className="gyre-fill-width" />
-          </Form.Item>
-        </Col>
+        <HalfRowNumberField
+          name="epochStartS"
+          label="Epoch start"
+          {...seconds}
+          rules={[
+            required('the epoch start'),
+            check((v) => (v >= 0 ? 'The epoch must start before onset (below 0 s).' : null)),
+          ]}
+        />
+        <HalfRowNumberField
+          name="epochEndS"
+          label="Epoch end"
+          {...seconds}
+          dependencies={['epochStartS']}
+          rules={[
+            required('the epoch end'),
+            check((v, get) => {
+              if (v <= 0) return 'The epoch must end after onset (above 0 s).';
+              const start = get('epochStartS');
+              return start !== null && v - start > 20 ? 'An epoch can be at most 20 s long.' : null;
+            }),
+          ]}
+        />
+        <HalfRowNumberField
+          name="baselineStartS"
+          label="Baseline start"
+          {...seconds}
+          dependencies={['epochStartS', 'epochEndS']}
+          rules={[required('the baseline start'), windowRule('baseline', 'baselineStartS', false)]}
+        />
+        <HalfRowNumberField
+          name="baselineEndS"
+          label="Baseline end"
+          {...seconds}
+          dependencies={['baselineStartS', 'epochStartS', 'epochEndS']}
+          rules={[
+            required('the baseline end'),
+            windowRule('baseline', 'baselineStartS', true),
+            check((v) => (v > 0 ? 'The baseline must end at or before onset (0 s).' : null)),
+          ]}
+        />
+        <HalfRowNumberField
+          name="postStartS"
+          label="Post start"
+          {...seconds}
+          dependencies={['baselineEndS', 'epochStartS', 'epochEndS']}
+          rules={[
+            required('the post-window start'),
+            windowRule('post window', 'postStartS', false),
+            check((v, get) => {
+              const baselineEnd = get('baselineEndS');
+              return baselineEnd !== null && v < baselineEnd
+                ? `The post window must start at or after the baseline's end (${baselineEnd} s).`
+                : null;
+            }),
+          ]}
+        />
+        <HalfRowNumberField
+          name="postEndS"
+          label="Post end"
+          {...seconds}
+          dependencies={['postStartS', 'epochStartS', 'epochEndS']}
+          rules={[required('the post-window end'), windowRule('post window', 'postStartS', true)]}
+        />
+        <HalfRowNumberField
+          name="rejectionThresholdUv"
+          label="Reject epochs above"
+          suffix="µV"
+          step={10}
+          rules={[
+            required('the rejection threshold'),
+            check((v) =>
+              v <= 0 || v > 10_000 ? 'Use a threshold above 0 and at most 10000 µV.' : null,
+            ),
+          ]}
+        />
+        <HalfRowNumberField
+          name="flagThresholdHz"
+          label="Suggest a flag at Δf ≤"
+          suffix="Hz"
+          step={0.05}
+          rules={[
+            required('the flag threshold'),
+            check((v) => (v >= 0 || v < -5 ? 'Use a negative change between −5 and 0 Hz.' : null)),
+          ]}
+        />
       </Row>
       <Form.Item
         name="roi"

@@ -3,6 +3,26 @@ import { App, Button, Card, Descriptions, Form, InputNumber, Space, Typography }
 import { useSubmission } from '../../../lib/use-submission';
 import { useUpdateTrendSettings, type TrendSettings } from '../api/studies';
 
+/** A trend setting: a whole number of `unit` from `min` to `max` (the server's limits). */
+interface TrendField {
+  name: keyof TrendSettings;
+  label: string;
+  unit: string;
+  min: number;
+  max: number;
+}
+
+const FIELDS: readonly TrendField[] = [
+  { name: 'trendMinVisits', label: 'Visits needed for a trend', unit: 'visits', min: 2, max: 50 },
+  {
+    name: 'trendMinSpanDays',
+    label: 'Days those visits must span',
+    unit: 'days',
+    min: 0,
+    max: 3650,
+  },
+];
+
 /**
  * When a participant's trend slope is shown: from how many visits with a value, spanning how
  * many days. Stored on the study; admins change them, the study's people read them.
@@ -40,26 +60,19 @@ export function TrendSettingsSection({
           }}
         >
           <Space wrap size={16} align="start">
-            <Form.Item
-              label="Visits needed for a trend"
-              name="trendMinVisits"
-              rules={[
-                { required: true, message: 'Give a number of visits.' },
-                { type: 'integer', min: 2, max: 50, message: 'From 2 to 50 visits.' },
-              ]}
-            >
-              <InputNumber precision={0} suffix="visits" />
-            </Form.Item>
-            <Form.Item
-              label="Days those visits must span"
-              name="trendMinSpanDays"
-              rules={[
-                { required: true, message: 'Give a number of days.' },
-                { type: 'integer', min: 0, max: 3650, message: 'From 0 to 3650 days.' },
-              ]}
-            >
-              <InputNumber precision={0} suffix="days" />
-            </Form.Item>
+            {FIELDS.map(({ name, label, unit, min, max }) => (
+              <Form.Item
+                key={name}
+                label={label}
+                name={name}
+                rules={[
+                  { required: true, message: `Give a number of ${unit}.` },
+                  { type: 'integer', min, max, message: `From ${min} to ${max} ${unit}.` },
+                ]}
+              >
+                <InputNumber precision={0} suffix={unit} />
+              </Form.Item>
+            ))}
           </Space>
           <Button type="primary" htmlType="submit" loading={busy}>
             Save trend settings
@@ -74,18 +87,11 @@ export function TrendSettingsSection({
         <Descriptions
           size="small"
           column={{ xs: 1, md: 2 }}
-          items={[
-            {
-              key: 'visits',
-              label: 'Visits needed for a trend',
-              children: `${study.trendMinVisits} visits`,
-            },
-            {
-              key: 'span',
-              label: 'Days those visits must span',
-              children: `${study.trendMinSpanDays} days`,
-            },
-          ]}
+          items={FIELDS.map(({ name, label, unit }) => ({
+            key: name,
+            label,
+            children: `${study[name]} ${unit}`,
+          }))}
         />
       )}
     </Card>

@@ -1,5 +1,5 @@
 import type { OutboxMessageView, OutboxState } from '@gyre/shared';
-import { Card, Segmented, Tag, Typography } from 'antd';
+import { Card, Segmented, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
 import { PageHeader } from '../../../components/page-header';
@@ -7,8 +7,9 @@ import { formatDateTime } from '../../../lib/format';
 import { useOutbox } from '../api/outbox';
 import { GYRE_COLORS } from '../../../app/theme';
 import { PagedTable } from '../../../components/paged-table';
+import { dateTimeColumn, stateTagColumn, type StateLook } from '../../../components/table-columns';
 
-const STATE_LOOK: Record<OutboxState, { label: string; color: string }> = {
+const STATE_LOOK: Record<OutboxState, StateLook> = {
   // Status colours of the theme: each reads at ≥ 4.5:1 on its tint (app/theme.test.ts).
   queued: { label: 'Queued', color: 'processing' },
   sent: { label: 'Sent', color: 'success' },
@@ -16,22 +17,10 @@ const STATE_LOOK: Record<OutboxState, { label: string; color: string }> = {
 };
 
 const columns: TableColumnsType<OutboxMessageView> = [
-  {
-    title: 'Created',
-    dataIndex: 'createdAt',
-    width: 190,
-    render: (at: string) => <span className="gyre-figures">{formatDateTime(at)}</span>,
-  },
+  dateTimeColumn('Created', 'createdAt', 190),
   { title: 'To', dataIndex: 'to' },
   { title: 'Subject', dataIndex: 'subject' },
-  {
-    title: 'State',
-    dataIndex: 'state',
-    width: 110,
-    render: (state: OutboxState) => (
-      <Tag color={STATE_LOOK[state].color}>{STATE_LOOK[state].label}</Tag>
-    ),
-  },
+  stateTagColumn(STATE_LOOK, 110),
   {
     title: 'Attempts',
     dataIndex: 'attempts',

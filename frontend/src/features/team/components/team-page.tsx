@@ -1,11 +1,10 @@
 import { ROLES, type Role, type UserState, type UserView } from '@gyre/shared';
-import { App, Button, Card, Flex, Segmented, Select, Space, Tag, Typography } from 'antd';
+import { App, Button, Card, Flex, Segmented, Select, Space, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState } from 'react';
 import { PageHeader } from '../../../components/page-header';
 import { SearchInput } from '../../../components/search-input';
 import { ApiError } from '../../../lib/api-client';
-import { formatDateTime } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
 import { useResendInvitation } from '../api/resend-invitation';
@@ -19,8 +18,9 @@ import { ROLE_LABELS } from './role-labels';
 import { WorkerTokensSection } from './worker-tokens-section';
 import { GYRE_COLORS } from '../../../app/theme';
 import { PagedTable } from '../../../components/paged-table';
+import { dateTimeColumn, stateTagColumn, type StateLook } from '../../../components/table-columns';
 
-const STATE_LOOK: Record<UserState, { label: string; color: string }> = {
+const STATE_LOOK: Record<UserState, StateLook> = {
   invited: { label: 'Invited', color: GYRE_COLORS.amberText },
   active: { label: 'Active', color: 'success' },
   deactivated: { label: 'Deactivated', color: 'default' },
@@ -81,20 +81,8 @@ export function TeamPage() {
           [studyCode(user.studyId), siteName(user.siteId)].filter(Boolean).join(' · ')
         ),
     },
-    {
-      title: 'State',
-      dataIndex: 'state',
-      width: 120,
-      render: (state: UserState) => (
-        <Tag color={STATE_LOOK[state].color}>{STATE_LOOK[state].label}</Tag>
-      ),
-    },
-    {
-      title: 'Last sign-in',
-      dataIndex: 'lastSignInAt',
-      width: 190,
-      render: (at: string | null) => <span className="gyre-figures">{formatDateTime(at)}</span>,
-    },
+    stateTagColumn(STATE_LOOK, 120),
+    dateTimeColumn('Last sign-in', 'lastSignInAt', 190),
     {
       title: '',
       key: 'actions',
