@@ -21,8 +21,14 @@ const target = resolve(backend, 'src', 'openapi', 'shared-schemas.generated.json
 
 // The API types: every module of shared/src but these. permissions.ts carries CASL's rule types,
 // which are not JSON shapes a schema can describe (the one field that holds them,
-// `MeResponse.rules`, is written by PACKED_RULES); the others hold formatting code.
-const NOT_API_FILES = new Set(['index', 'permissions', 'number-format', 'chart-ticks']);
+// `MeResponse.rules`, is written by PACKED_RULES); the others hold formatting and layout code.
+const NOT_API_FILES = new Set([
+  'index',
+  'permissions',
+  'number-format',
+  'chart-ticks',
+  'scalp-label-placement',
+]);
 const TYPE_FILES = readdirSync(resolve(shared, 'src'))
   .filter((file) => file.endsWith('.ts') && !file.endsWith('.spec.ts'))
   .map((file) => file.slice(0, -'.ts'.length))

@@ -10,12 +10,16 @@ import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type {
   AuditEntryView,
+  Page,
   RecordingView,
+  ReportRevisionView,
+  ReportSignOffView,
   StudyView,
   VisitBlindingView,
   WorklistItem,
   WorklistView,
 } from '@gyre/shared';
+import { SIGNATURE_MEANING } from '@gyre/shared';
 import { auditEntries } from './helpers/audit-entries';
 import { binaryBody } from './helpers/binary-body';
 import { SEED_PASSWORD, type UserKey } from './helpers/seed';
@@ -40,6 +44,8 @@ describe('blinded review', () => {
   let restId: string;
   /** A second analyst of study A, made for this test (the seed has one per study). */
   let secondAnalyst: Header;
+  /** The report revision the first analyst signs once the visit is unblinded for them. */
+  let signedRevisionId: string;
 
   const as = async (user: UserKey): Promise<Header> => t.authHeader(user);
 
@@ -51,6 +57,13 @@ describe('blinded review', () => {
 
   async function worklist(header: Header): Promise<WorklistView> {
     return (await get(header, '/api/worklist')).body as WorklistView;
+  }
+
+  /** The ids of the signed revisions the caller lists for the visit. */
+  async function revisionIds(header: Header): Promise<string[]> {
+    const list = (await get(header, `/api/report-revisions?visitId=${visitId}`))
+      .body as Page<ReportRevisionView>;
+    return list.items.map((r) => r.id);
   }
 
   const itemsOf = (list: WorklistView): WorklistItem[] =>
@@ -516,6 +529,30 @@ describe('blinded review', () => {
     ]);
   }, 120_000);
 
+  it('lists a revision signed by the deciding analyst to no analyst still blinded to its visit', async () => {
+    const analyst = await as('analyst');
+    const { draftFingerprint } = (await get(analyst, `/api/visits/${visitId}/report/sign-off`))
+      .body as ReportSignOffView;
+    const signed = await request(t.url)
+      .post(`/api/visits/${visitId}/report/sign`)
+      .set(analyst)
+      .send({ password: SEED_PASSWORD, meaning: SIGNATURE_MEANING, fingerprint: draftFingerprint });
+    expect(signed.status).toBe(201);
+    signedRevisionId = (signed.body as ReportRevisionView).id;
+    // The deciding analyst lists it; the second analyst, blinded still, gets neither the row nor
+    // its count, with or without the visit as filter.
+    expect(await revisionIds(analyst)).toEqual([signedRevisionId]);
+    for (const query of ['', `?visitId=${visitId}`]) {
+      const list = (await get(secondAnalyst, `/api/report-revisions${query}`))
+        .body as Page<ReportRevisionView>;
+      expect({ query, items: list.items, total: list.total }).toEqual({
+        query,
+        items: [],
+        total: 0,
+      });
+    }
+  });
+
   it('raises the flag with a "flag" decision, in the same transaction as the unblinding', async () => {
     const decided = await request(t.url)
       .post(`/api/visits/${visitId}/blinding/decision`)
@@ -535,6 +572,8 @@ describe('blinded review', () => {
       (e) => e.action,
     );
     expect(actions).toEqual(['raise']);
+    // Decided: the revision the first analyst signed is in this analyst's list now.
+    expect(await revisionIds(secondAnalyst)).toEqual([signedRevisionId]);
   });
 
   it('shows everything as before once the setting is off', async () => {

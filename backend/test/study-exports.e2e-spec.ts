@@ -17,8 +17,9 @@ import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { parse } from 'csv-parse/sync';
 import request from 'supertest';
-import type { RecordingView, RecordingResultsView } from '@gyre/shared';
+import type { AnalysisSettingsView, RecordingView, RecordingResultsView } from '@gyre/shared';
 import { Visit } from '../src/visits/visit.entity';
+import { readPdfText } from '../src/report-document/testing/read-pdf-text';
 import { REPO } from './helpers/built-dist';
 import type { UserKey } from './helpers/seed';
 import { binaryBody } from './helpers/binary-body';
@@ -242,6 +243,30 @@ describe('study results exports', () => {
     );
   }
 
+  /** A new settings version of study A: the current values with `changes` (an analyst's write). */
+  async function changeSettings(changes: Record<string, unknown>, reason: string): Promise<void> {
+    const settingsPath = `/api/studies/${studyA}/analysis-settings`;
+    const analyst = await t.authHeader('analyst');
+    const current = await request(t.url).get(settingsPath).set(analyst);
+    expect(current.status).toBe(200);
+    // The values the API gave, without the version's own fields (the change DTO forbids them).
+    const {
+      id: _id,
+      studyId: _studyId,
+      version: _version,
+      changes: _changes,
+      reason: _reason,
+      createdById: _createdById,
+      createdAt: _createdAt,
+      ...values
+    } = current.body as AnalysisSettingsView;
+    const newer = await request(t.url)
+      .post(settingsPath)
+      .set(analyst)
+      .send({ ...values, ...changes, reason });
+    expect(newer.status).toBe(201);
+  }
+
   async function download(path: string, user: UserKey): Promise<request.Response> {
     return request(t.url)
       .get(path)
@@ -302,32 +327,9 @@ describe('study results exports', () => {
     await withDepth(recordingIds[1]);
 
     // A newer settings version makes every run of study A "computed with older settings".
-    const settingsPath = `/api/studies/${studyA}/analysis-settings`;
-    const analyst = await t.authHeader('analyst');
-    const current = await request(t.url).get(settingsPath).set(analyst);
-    expect(current.status).toBe(200);
-    const values = current.body as Record<string, unknown>;
-    const newer = await request(t.url)
-      .post(settingsPath)
-      .set(analyst)
-      .send({
-        bandHz: values.bandHz,
-        method: values.method,
-        morletCycles: values.morletCycles,
-        epochWindowS: values.epochWindowS,
-        baselineWindowS: values.baselineWindowS,
-        postWindowS: [0.35, 0.95],
-        rejectionThresholdUv: values.rejectionThresholdUv,
-        flagThresholdHz: values.flagThresholdHz,
-        roi: values.roi,
-        onsetLabel: values.onsetLabel,
-        amplitudeGatePercentile: values.amplitudeGatePercentile,
-        cycleDisagreementHz: values.cycleDisagreementHz,
-        compareConditions: values.compareConditions,
-        reason: 'Pilot review: later window after onset',
-      });
-    expect(newer.status).toBe(201);
+    await changeSettings({ postWindowS: [0.35, 0.95] }, 'Pilot review: later window after onset');
 
+    const analyst = await t.authHeader('analyst');
     for (const id of recordingIds) {
       const response = await request(t.url).get(`/api/recordings/${id}/results`).set(analyst);
       if (response.status === 200) results.set(id, response.body as RecordingResultsView);
@@ -756,5 +758,44 @@ describe('study results exports', () => {
       manifestSha256: zip.headers['x-content-manifest-sha256'],
     });
     expect(JSON.parse(zipEntry.after).files).toBeGreaterThan(8);
+  });
+
+  // Last: it adds a settings version of its own.
+  it('names the settings each run was computed with, not those the study holds after a change', async () => {
+    await changeSettings(
+      {
+        amplitudeGatePercentile: 10,
+        cycleDisagreementHz: 0.35,
+        compareConditions: ['Word', 'Tone'],
+      },
+      'Pilot review: stricter gate, wider cross-check',
+    );
+    const now = await request(t.url)
+      .get(`/api/studies/${studyA}/analysis-settings`)
+      .set(await t.authHeader('analyst'));
+    expect(now.body).toMatchObject({
+      amplitudeGatePercentile: 10,
+      cycleDisagreementHz: 0.35,
+      compareConditions: ['Word', 'Tone'],
+    });
+
+    // results.csv: the gated run keeps 25, 0.1 and Tone − Word; the others the defaults they ran with.
+    const csv = await download(`/api/studies/${studyA}/results.csv`, 'analyst');
+    expect(csv.status).toBe(200);
+    const rows: Row[] = parse(csv.body as Buffer, { columns: true, record_delimiter: '\r\n' });
+    expect(rows.length).toBeGreaterThan(0);
+    expectDepthColumns(rows, '');
+    for (const row of rows.filter((r) => r.recording_kind === 'task')) {
+      expect(row.stale_settings).toMatch(/estimate disagreement warning 0\.1 Hz → 0\.35 Hz/);
+    }
+
+    // The visit report of A1-0001's first visit: its provenance names the task run's settings.
+    const preview = await download(`/api/visits/${t.seed.visits.A1.id}/report/preview`, 'analyst');
+    expect(preview.status).toBe(200);
+    const text = (await readPdfText(preview.body as Buffer)).text.replace(/\s+/g, ' ');
+    expect(text).toContain('Amplitude gate percentile 25 of the envelope');
+    expect(text).toContain('Cross-check threshold 0.10 Hz');
+    expect(text).toContain('Conditions compared “Tone” − “Word”');
+    expect(text).not.toMatch(/0\.35 Hz|percentile 10 of|“Word” − “Tone”/);
   });
 });

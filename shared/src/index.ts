@@ -19,3 +19,4 @@ export * from './calibration';
 export * from './analysis-depth';
 export * from './scalp-positions';
 export * from './scalp-map';
+export * from './scalp-label-placement';

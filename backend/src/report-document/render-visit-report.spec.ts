@@ -312,6 +312,17 @@ describe('renderVisitReport', () => {
     expect(text).toContain('It rests on 3 of 5 region-of-interest channels (see Task).');
   });
 
+  /** A section without region-of-interest channels: each channel's reason, its recording, no numbers. */
+  function expectNoRoiSection(section: string, measure: string, recording: string): void {
+    expect(section).toContain(
+      'No region-of-interest channel remains: O1 — flat; O2 — saturated (runs at the ' +
+        "converter's limit); Oz — another sampling rate; Pz — left out by this visit's " +
+        `setting; POz — not in the file. No ${measure} is reported.`,
+    );
+    expect(section).toContain(recording);
+    expect(section).not.toContain('Numbers from');
+  }
+
   it('prints no Δf, no plot and the reasons when no task ROI channel remains', async () => {
     // Stored as false by a caller that coerced "no suggestion": must not read as "no slowing".
     const model = sampleVisitReportModel({
@@ -320,13 +331,11 @@ describe('renderVisitReport', () => {
     });
     const text = await renderText(model);
     const task = section(text, TASK_HEADING, 'Quality checks');
-    expect(task).toContain(
-      'No region-of-interest channel remains: O1 — flat; O2 — saturated (runs at the ' +
-        "converter's limit); Oz — another sampling rate; Pz — left out by this visit's " +
-        'setting; POz — not in the file. No Δf is reported.',
+    expectNoRoiSection(
+      task,
+      'Δf',
+      'Analysed recording e41b07d2, uploaded 2026-11-20 10:02:47 UTC;',
     );
-    expect(task).toContain('Analysed recording e41b07d2, uploaded 2026-11-20 10:02:47 UTC;');
-    expect(task).not.toContain('Numbers from');
     expect(task).not.toMatch(/\d\.\d{3} Hz/);
     expect(task).not.toContain('Δf (post − baseline)');
     expect(task).not.toContain('Wilcoxon');
@@ -349,13 +358,11 @@ describe('renderVisitReport', () => {
   it('prints no PAF, no CoG, no spectrum and the reasons when no rest ROI channel remains', async () => {
     const text = await renderText(sampleVisitReportModel({ rest: noRoiRest() }));
     const rest = section(text, REST_HEADING, TASK_HEADING);
-    expect(rest).toContain(
-      'No region-of-interest channel remains: O1 — flat; O2 — saturated (runs at the ' +
-        "converter's limit); Oz — another sampling rate; Pz — left out by this visit's " +
-        'setting; POz — not in the file. No PAF or CoG is reported.',
+    expectNoRoiSection(
+      rest,
+      'PAF or CoG',
+      'Analysed recording 7a3e9c10, uploaded 2026-11-20 09:14:02 UTC.',
     );
-    expect(rest).toContain('Analysed recording 7a3e9c10, uploaded 2026-11-20 09:14:02 UTC.');
-    expect(rest).not.toContain('Numbers from');
     expect(rest).not.toMatch(/\d\.\d{2} Hz/);
     expect(rest).not.toContain('Peak alpha frequency (PAF)');
     expect(text).not.toContain('Power spectral density');

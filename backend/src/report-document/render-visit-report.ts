@@ -134,15 +134,8 @@ function drawTitle(canvas: ReportCanvas, model: VisitReportModel): void {
 }
 
 function drawRest(canvas: ReportCanvas, rest: RestSection | null): void {
-  canvas.heading('Rest: individual alpha frequency');
-  if (rest === null) {
-    canvas.paragraph('No resting result for this visit.', { color: REPORT_COLORS.muted });
-    return;
-  }
-  if (rest.roiUsage.status === 'none') {
-    drawNoRoi(canvas, rest.roiUsage, 'PAF or CoG', rest.source);
-    return;
-  }
+  const heading = 'Rest: individual alpha frequency';
+  if (!opensWithNumbers(canvas, heading, rest, { kind: 'resting', measure: 'PAF or CoG' })) return;
   // A headline number from part of the ROI says so on its own row, not only further down.
   const note = partialRoiNote(rest.roiUsage);
   canvas.facts([
@@ -160,25 +153,18 @@ function drawRest(canvas: ReportCanvas, rest: RestSection | null): void {
       rest.prominenceDb === null ? 'no clear peak' : formatQuantity(rest.prominenceDb, 'decibel'),
     ],
   ]);
-  drawRoiAndSource(canvas, rest.roiUsage, rest.source);
-  canvas.paragraph(
+  drawBasis(
+    canvas,
+    rest,
     'Welch power spectrum of the region of interest (4 s Hann windows, 50 % overlap); PAF by ' +
       'parabolic interpolation of the highest peak, CoG as Σ f·P(f) / Σ P(f) over the alpha window.',
-    { sizePt: 8, color: REPORT_COLORS.muted },
   );
   drawSpectrumPlot(canvas, rest);
 }
 
 function drawTask(canvas: ReportCanvas, task: TaskSection | null): void {
-  canvas.heading('Task: alpha frequency around stimulus onset');
-  if (task === null) {
-    canvas.paragraph('No task result for this visit.', { color: REPORT_COLORS.muted });
-    return;
-  }
-  if (task.roiUsage.status === 'none') {
-    drawNoRoi(canvas, task.roiUsage, 'Δf', task.source);
-    return;
-  }
+  const heading = 'Task: alpha frequency around stimulus onset';
+  if (!opensWithNumbers(canvas, heading, task, { kind: 'task', measure: 'Δf' })) return;
   const trials =
     task.trialsKept === null || task.trialsTotal === null
       ? 'not available'
@@ -199,44 +185,59 @@ function drawTask(canvas: ReportCanvas, task: TaskSection | null): void {
       `baseline ${windowWords(task.baselineWindowS)}, post ${windowWords(task.postWindowS)}`,
     ],
   ]);
-  drawRoiAndSource(canvas, task.roiUsage, task.source);
-  canvas.paragraph(
+  drawBasis(
+    canvas,
+    task,
     'Instantaneous frequency from the phase of the analytic signal, median-filtered, averaged ' +
       'over the region of interest; confidence interval by bootstrap over trials (2000 resamples).',
-    { sizePt: 8, color: REPORT_COLORS.muted },
   );
   drawOnsetCurvePlot(canvas, task);
 }
 
-/** Which channels the numbers rest on, right below them; amber when some were left out. */
-function drawRoiAndSource(
+/**
+ * What the numbers rest on, right below them: which channels (amber when some were left out),
+ * which recording, and how they were computed (`method`).
+ */
+function drawBasis(
   canvas: ReportCanvas,
-  usage: RoiUsageView,
-  source: RecordingSource,
+  { roiUsage, source }: { roiUsage: RoiUsageView; source: RecordingSource },
+  method: string,
 ): void {
   canvas.gap(2);
-  canvas.paragraph(roiUsageWords(usage), {
+  canvas.paragraph(roiUsageWords(roiUsage), {
     sizePt: 9,
-    color: usage.status === 'complete' ? REPORT_COLORS.ink : REPORT_COLORS.amber,
+    color: roiUsage.status === 'complete' ? REPORT_COLORS.ink : REPORT_COLORS.amber,
   });
   canvas.gap(1);
   canvas.paragraph(sourceWords(source), { sizePt: 9, color: REPORT_COLORS.muted });
   canvas.gap(3);
+  canvas.paragraph(method, { sizePt: 8, color: REPORT_COLORS.muted });
 }
 
-/** No channel left: the reasons in the warning colour, and no number or plot at all. */
-function drawNoRoi(
+/**
+ * A result section's heading, then, when it has no numbers to print, why: no result of its
+ * kind, or no region-of-interest channel left (the reasons in the warning colour, and the
+ * recording; no number or plot at all). True when its numbers follow.
+ */
+function opensWithNumbers<S extends { roiUsage: RoiUsageView; source: RecordingSource }>(
   canvas: ReportCanvas,
-  usage: RoiUsageView,
-  whatIsMissing: string,
-  source: RecordingSource,
-): void {
-  canvas.paragraph(noRoiWords(usage, whatIsMissing), {
+  heading: string,
+  section: S | null,
+  words: { kind: string; measure: string },
+): section is S {
+  canvas.heading(heading);
+  if (section === null) {
+    canvas.paragraph(`No ${words.kind} result for this visit.`, { color: REPORT_COLORS.muted });
+    return false;
+  }
+  if (section.roiUsage.status !== 'none') return true;
+  canvas.paragraph(noRoiWords(section.roiUsage, words.measure), {
     role: 'medium',
     color: REPORT_COLORS.amber,
   });
   canvas.gap(2);
-  canvas.paragraph(sourceWords(source, false), { sizePt: 9, color: REPORT_COLORS.muted });
+  canvas.paragraph(sourceWords(section.source, false), { sizePt: 9, color: REPORT_COLORS.muted });
+  return false;
 }
 
 /** A window relative to onset, signed as on screen: `−0.5 to 0.0 s`, `+0.2 to +0.8 s`. */

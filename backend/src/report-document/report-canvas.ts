@@ -51,6 +51,8 @@ export interface PlacedTextOptions extends TextStyle {
   lineGapPt?: number;
   /** Right-align one line so that it ends at x. */
   alignRight?: boolean;
+  /** One line whose baseline (not its top) is at y. */
+  onBaseline?: boolean;
 }
 
 /**
@@ -128,6 +130,7 @@ export class ReportCanvas {
     const base: PDFKit.Mixins.TextOptions = {
       lineGap: options.lineGapPt ?? 1.5,
       features: ['tnum'],
+      ...(options.onBaseline === true ? { baseline: 'alphabetic' } : {}),
       ...(options.widthPt !== undefined
         ? { width: options.widthPt }
         : { lineBreak: false, width: PAGE.widthPt }),

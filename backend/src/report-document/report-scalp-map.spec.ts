@@ -54,7 +54,8 @@ function fillOperator(hex: string): string {
   return `\n${parts.join(' ')} scn\n`;
 }
 
-async function drawnStream(draw: (canvas: ReportCanvas) => void): Promise<string> {
+/** A one-page PDF, uncompressed so its drawing operators can be read. */
+async function drawnPdf(draw: (canvas: ReportCanvas) => void): Promise<Buffer> {
   const doc = new PDFDocument({ ...PAGE_SETUP, compress: false });
   const fonts = ReportFonts.load();
   fonts.registerWith(doc);
@@ -65,7 +66,11 @@ async function drawnStream(draw: (canvas: ReportCanvas) => void): Promise<string
   });
   draw(new ReportCanvas(doc, fonts));
   doc.end();
-  return (await done).toString('latin1');
+  return done;
+}
+
+async function drawnStream(draw: (canvas: ReportCanvas) => void): Promise<string> {
+  return (await drawnPdf(draw)).toString('latin1');
 }
 
 describe('scalp maps in the visit report', () => {
@@ -113,6 +118,30 @@ describe('scalp maps in the visit report', () => {
     expect(stream).toContain(fillOperator(GYRE_COLORS.line));
     // Colour bar: a shading of its own (PDF §8.7.4.5, axial shading type 2).
     expect(stream).toMatch(/\/ShadingType 2/);
+  });
+});
+
+describe('channel names on the report’s scalp map', () => {
+  // The 19 electrodes of the 10-20 system in their 10-10 names (ACNS 2016, from memory), each
+  // with a value, so no name is also printed in the marks key below the map.
+  const TEN_TWENTY = 'Fp1 Fp2 F7 F3 Fz F4 F8 T7 C3 Cz C4 T8 P7 P3 Pz P4 P8 O1 O2'.split(' ');
+  const values: ScalpMapChannels = {
+    channels: TEN_TWENTY.map((name, i) => channel(name, 9 + i / 10, 9 + i / 10, null)),
+    flatChannels: [],
+    saturatedChannels: [],
+  };
+  const usage: RoiUsageView = { wanted: [], used: TEN_TWENTY, leftOut: [], status: 'complete' };
+  const map = scalpMapOf({ channels: values.channels, roiUsage: usage, quality: values }, 'paf');
+  const draw = (canvas: ReportCanvas) => drawScalpMaps(canvas, 'Rest: scalp maps', [map]);
+
+  it('prints every channel’s name beside its dot', async () => {
+    const words = (await readPdfText(await drawnPdf(draw))).text.split(/\s+/);
+    for (const name of TEN_TWENTY) expect(words).toContain(name);
+  });
+
+  it('sets the names at 6.5 pt, one text object each (PDF 32000-1:2008 §9.3.1: `font size Tf`)', async () => {
+    const stream = await drawnStream(draw);
+    expect(stream.match(/ 6\.5 Tf\n/g)).toHaveLength(TEN_TWENTY.length);
   });
 });
 

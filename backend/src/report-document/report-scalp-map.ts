@@ -1,4 +1,5 @@
 import {
+  placeLabels,
   type ScalpMapChannel,
   type ScalpMapMeasure,
   type ScalpMapModel,
@@ -9,6 +10,7 @@ import {
   SCALP_RING_RADIUS,
   SCALP_SEQUENTIAL_STOPS,
   scalpColourOf,
+  scalpEarBoxes,
   scalpMapOf,
   scalpMarkLines,
 } from '@gyre/shared';
@@ -19,15 +21,18 @@ import type { RestSection, ScalpMapChannels, TaskSection } from './visit-report-
 
 /*
  * Scalp maps in the visit report: the same map as Review's (positions from
- * shared/src/scalp-positions.ts, channels, marks and colour scale from shared/src/scalp-map.ts),
- * drawn as vector paths.
+ * shared/src/scalp-positions.ts, channels, marks and colour scale from shared/src/scalp-map.ts,
+ * where each name goes from shared/src/scalp-label-placement.ts), drawn as vector paths.
  */
 
 /** One unit of the map's disc on paper (the 10-10 ring, where the head is outlined). */
-const RING_PT = 50;
+const RING_PT = 72;
 /** Half the drawing's side in ring radii: room for the 9/10 columns, Nz and Iz. */
 const HALF_VIEW = SCALP_OUTER_RADIUS + 0.11;
-const DOT_PT = 3.8;
+/** Dot and name in the proportions of Review's map (0.07 and 0.09 of the ring's radius). */
+const DOT_PT = 5;
+/** The channel names: 6.5 pt, above 6 pt, the smallest print to read (common practice). */
+const NAME = { sizePt: 6.5, color: REPORT_COLORS.ink } as const;
 const PANEL_GAP_PT = 24;
 const BAR_WIDTH_PT = 120;
 const BAR_HEIGHT_PT = 8;
@@ -83,7 +88,7 @@ function mapsOf(
 /** Maps in a row below the cursor under a title, each with its colour bar and uncoloured channels. */
 export function drawScalpMaps(canvas: ReportCanvas, title: string, maps: ScalpMapModel[]): void {
   const panelWidthPt = 2 * HALF_VIEW * RING_PT;
-  canvas.ensureSpace(2 * HALF_VIEW * RING_PT + 130);
+  canvas.ensureSpace(2 * HALF_VIEW * RING_PT + NAME.sizePt + 130);
   canvas.gap(8);
   canvas.paragraph(title, { role: 'bold', sizePt: 10.5, color: REPORT_COLORS.primary });
   canvas.gap(4);
@@ -99,8 +104,8 @@ export function drawScalpMaps(canvas: ReportCanvas, title: string, maps: ScalpMa
   canvas.doc.y = bottom + 4;
   canvas.paragraph(
     'Scalp maps: each channel at its 10-10 position on a spherical head (Oostenveld & ' +
-      'Praamstra 2001), seen from above, nose up, left on the left. Hollow with a cross: left ' +
-      'out; dashed: asked for but not in the file; grey: no value.',
+      'Praamstra 2001), seen from above, nose up, left on the left, named beside its dot. ' +
+      'Hollow with a cross: left out; dashed: asked for but not in the file; grey: no value.',
     { sizePt: 8, color: REPORT_COLORS.muted },
   );
   canvas.gap(4);
@@ -125,7 +130,8 @@ function drawPanel(canvas: ReportCanvas, map: ScalpMapModel, at: Place): number 
   const cy = top + 14 + HALF_VIEW * RING_PT;
   drawHead(canvas, cx, cy);
   for (const channel of map.channels) drawChannel(canvas, map, channel, cx, cy);
-  let y = cy + HALF_VIEW * RING_PT + 6;
+  drawChannelNames(canvas, map.channels, cx, cy);
+  let y = cy + HALF_VIEW * RING_PT + NAME.sizePt + 4;
   if (map.scale === null) {
     canvas.textAt('No channel has a value: no colour scale.', left, y, {
       ...SMALL,
@@ -150,9 +156,41 @@ function drawHead(canvas: ReportCanvas, cx: number, cy: number): void {
     .lineTo(cx, cy - 1.12 * head)
     .lineTo(cx + 0.1 * head, cy - 0.995 * head)
     .stroke();
-  for (const side of [-1, 1]) {
-    doc.ellipse(cx + side * 1.04 * head, cy, 0.045 * head, 0.16 * head).stroke();
+  for (const ear of scalpEarBoxes(head)) {
+    const [rx, ry] = [(ear.x1 - ear.x0) / 2, (ear.y1 - ear.y0) / 2];
+    doc.ellipse(cx + ear.x0 + rx, cy + ear.y0 + ry, rx, ry).stroke();
   }
+}
+
+/** A channel's dot centre relative to the head's centre, in points (y down). */
+function offsetOf(channel: ScalpMapChannel): readonly [number, number] {
+  return [channel.point[0] * RING_PT, -channel.point[1] * RING_PT];
+}
+
+/**
+ * Each channel's 10-10 name beside its dot, on the side the shared placement picks (off the
+ * other dots, the ears and the names already placed, measured in the report's own font),
+ * drawn over every dot.
+ */
+function drawChannelNames(
+  canvas: ReportCanvas,
+  channels: readonly ScalpMapChannel[],
+  cx: number,
+  cy: number,
+): void {
+  const dots = channels.map((channel) => ({ name: channel.name, centre: offsetOf(channel) }));
+  const head = SCALP_RING_RADIUS * RING_PT;
+  const widthOf = (name: string) => canvas.widthOf(name, NAME);
+  const placed = placeLabels(dots, DOT_PT, NAME.sizePt, scalpEarBoxes(head), widthOf);
+  dots.forEach(({ name, centre }, i) => {
+    const { dx, dy, anchor } = placed[i];
+    const width = widthOf(name);
+    const shift = anchor === 'middle' ? width / 2 : anchor === 'end' ? width : 0;
+    canvas.textAt(name, cx + centre[0] + dx - shift, cy + centre[1] + dy, {
+      ...NAME,
+      onBaseline: true,
+    });
+  });
 }
 
 function drawChannel(
@@ -162,11 +200,12 @@ function drawChannel(
   cx: number,
   cy: number,
 ): void {
+  const [x, y] = offsetOf(channel);
   drawMark(
     canvas,
     channel.mark,
-    cx + channel.point[0] * RING_PT,
-    cy - channel.point[1] * RING_PT,
+    cx + x,
+    cy + y,
     DOT_PT,
     channel.mark === 'value' && map.scale !== null && channel.valueHz !== null
       ? scalpColourOf(channel.valueHz, map.scale)

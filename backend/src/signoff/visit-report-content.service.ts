@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { EntityManager } from 'typeorm';
 import type {
+  AnalysisRunView,
   ChannelStatsView,
   QualityView,
   RecordingResultsView,
@@ -116,7 +117,7 @@ export class VisitReportContentService {
       quality: used.map((u) => qualitySection(u.run.kind, u.results.quality)),
       flags: flags.map((flag) => flagEntry(flag, names)),
       flagSuggestion: task === undefined ? null : suggestion(task.run),
-      provenance: used.map((u) => provenance(u.run)),
+      provenance: used.map((u) => provenance(u.results.run)),
     };
     return {
       body,
@@ -204,6 +205,7 @@ function taskSection(
       source: sourceOf(recording),
     };
   }
+  const depth = depthOf(results);
   return {
     roiUsage: run.roiUsage,
     source: sourceOf(recording),
@@ -222,9 +224,9 @@ function taskSection(
       ciLowHz: task.roi.ciLowHz,
       ciHighHz: task.roi.ciHighHz,
     },
-    ...depthOf(results, settings),
+    ...depth,
     // Under the rule of `depth`: a report of a run made before the depth fields stays as it was.
-    ...(depthOf(results, settings).depth === undefined ? {} : scalpMapPartOf(results, ['deltaF'])),
+    ...(depth.depth === undefined ? {} : scalpMapPartOf(results, ['deltaF'])),
   };
 }
 
@@ -232,10 +234,7 @@ function taskSection(
  * The task's conditions, cycle-by-cycle estimate and amplitude gate, under `depth` only when
  * the run computed any of them: a report of an earlier run keeps its content and fingerprint.
  */
-function depthOf(
-  results: RecordingResultsView,
-  settings: AnalysisSettingsValues,
-): { depth?: TaskDepthSection } {
+function depthOf(results: RecordingResultsView): { depth?: TaskDepthSection } {
   const task = results.task;
   if (task === null) return {};
   const amplitudeGate = gateOverRoi(results.channels, results.run.roiUsage);
@@ -245,7 +244,8 @@ function depthOf(
       conditions: task.conditions,
       conditionDifference: task.conditionDifference,
       cycles: task.cycles,
-      cycleDisagreementHz: settings.cycleDisagreementHz,
+      // The run's own threshold: its `cycles.disagrees` was judged by it (docs/method.md §3).
+      cycleDisagreementHz: results.run.depthSettings.cycleDisagreementHz,
       amplitudeGate,
     },
   };
@@ -300,18 +300,14 @@ function flagEntry(flag: Flag, names: Map<string, string>): FlagEntry {
   };
 }
 
-function provenance(run: AnalysisRun): ProvenanceEntry {
-  const settings = parseStoredSettings(run.settingsJson);
+/** Which run, settings and code a section's numbers come from, with the run's own depth settings. */
+function provenance(run: AnalysisRunView): ProvenanceEntry {
   return {
     kind: run.kind,
     analysisRunId: run.id,
     settingsVersion: run.settingsVersion,
     codeVersion: run.codeVersion,
     inputChecksumSha256: run.inputChecksumSha256,
-    depthSettings: {
-      amplitudeGatePercentile: settings.amplitudeGatePercentile,
-      cycleDisagreementHz: settings.cycleDisagreementHz,
-      compareConditions: settings.compareConditions,
-    },
+    depthSettings: run.depthSettings,
   };
 }

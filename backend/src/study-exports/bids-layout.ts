@@ -88,18 +88,51 @@ function entryOf<C>(column: ExportColumn<C>): SidecarEntry {
   };
 }
 
-function sidecar(own: Record<string, SidecarEntry>, names: readonly string[]): string {
-  const out: Record<string, SidecarEntry> = { ...own };
-  for (const name of names) {
+/** The results.csv columns of these names, in this order. */
+function columnsNamed(names: readonly string[]): ExportColumn[] {
+  return names.map((name) => {
     const column = COLUMN_BY_NAME.get(name);
     if (column === undefined) throw new Error(`export: no column ${name}`);
-    out[name] = entryOf(column);
-  }
-  return `${JSON.stringify(out, null, 2)}\n`;
+    return column;
+  });
 }
 
-const PARTICIPANT_COLUMNS = ['participant_code', 'site_code', 'group', 'enrolment_date'];
-const SESSION_COLUMNS = [
+/**
+ * A TSV table and its JSON sidecar describing every column (Common principles, "Tabular
+ * files"): `keys` are the leading BIDS id columns with their descriptions, then `columns`.
+ */
+function* tableFiles<C>(
+  stem: string,
+  keys: Record<string, string>,
+  columns: readonly ExportColumn<C>[],
+  rows: Cell[][],
+): Generator<BidsFile> {
+  const header = [...Object.keys(keys), ...columns.map((c) => c.name)];
+  yield { path: `${stem}.tsv`, content: tableText('tsv', rows, { header }) };
+  const described: Record<string, SidecarEntry> = {};
+  for (const [name, description] of Object.entries(keys)) {
+    described[name] = { Description: description };
+  }
+  for (const column of columns) described[column.name] = entryOf(column);
+  yield { path: `${stem}.json`, content: `${JSON.stringify(described, null, 2)}\n` };
+}
+
+/** The BIDS id columns of participants.tsv and sessions.tsv, which record the label mapping. */
+const PARTICIPANT_KEY = {
+  participant_id:
+    'BIDS subject: "sub-" and the participant code without its non-alphanumeric characters (see participant_code).',
+};
+const SESSION_KEY = {
+  session_id:
+    'BIDS session: "ses-" and the visit label without its non-alphanumeric characters (see visit_label).',
+};
+const PARTICIPANT_COLUMNS = columnsNamed([
+  'participant_code',
+  'site_code',
+  'group',
+  'enrolment_date',
+]);
+const SESSION_COLUMNS = columnsNamed([
   'visit_label',
   'planned_visit',
   'visit_date',
@@ -107,12 +140,12 @@ const SESSION_COLUMNS = [
   'days_from_target',
   'visit_window',
   'visit_flagged',
-];
+]);
 /** The measures files carry the recording's and the row's columns of results.csv. */
 export const MEASURE_COLUMNS = RESULT_COLUMNS.filter((c) => c.level !== 'visit');
 
-function cells(names: readonly string[], context: RowContext): Cell[] {
-  return names.map((name) => COLUMN_BY_NAME.get(name)!.value(context));
+function cells(columns: readonly ExportColumn[], context: RowContext): Cell[] {
+  return columns.map((column) => column.value(context));
 }
 
 /** A context for visit-level columns, which read the participant and the visit only. */
@@ -206,75 +239,35 @@ export function* bidsFiles(model: StudyExportModel): Generator<BidsFile> {
   yield { path: 'README.md', content: README(model) };
   const participants = model.participants.filter((p) => labels.subject.has(p.id));
   yield* conditionFiles(model, labels);
-  yield {
-    path: 'participants.tsv',
-    content: tableText(
-      'tsv',
-      participants.map((p) => [
-        `sub-${labels.subject.get(p.id)!}`,
-        ...cells(PARTICIPANT_COLUMNS, visitContext(studyCode, p, null)),
-      ]),
-      { header: ['participant_id', ...PARTICIPANT_COLUMNS] },
-    ),
-  };
-  yield {
-    path: 'participants.json',
-    content: sidecar(
-      {
-        participant_id: {
-          Description:
-            'BIDS subject: "sub-" and the participant code without its non-alphanumeric characters (see participant_code).',
-        },
-      },
-      PARTICIPANT_COLUMNS,
-    ),
-  };
+  yield* tableFiles(
+    'participants',
+    PARTICIPANT_KEY,
+    PARTICIPANT_COLUMNS,
+    participants.map((p) => [
+      `sub-${labels.subject.get(p.id)!}`,
+      ...cells(PARTICIPANT_COLUMNS, visitContext(studyCode, p, null)),
+    ]),
+  );
   for (const participant of participants) {
     const sub = labels.subject.get(participant.id)!;
     const own = visits.filter((v) => v.participantId === participant.id);
-    yield {
-      path: `sub-${sub}/sub-${sub}_sessions.tsv`,
-      content: tableText(
-        'tsv',
-        own.map((v) => [
-          `ses-${labels.session.get(v.id)!}`,
-          ...cells(SESSION_COLUMNS, visitContext(studyCode, participant, v)),
-        ]),
-        { header: ['session_id', ...SESSION_COLUMNS] },
-      ),
-    };
-    yield {
-      path: `sub-${sub}/sub-${sub}_sessions.json`,
-      content: sidecar(
-        {
-          session_id: {
-            Description:
-              'BIDS session: "ses-" and the visit label without its non-alphanumeric characters (see visit_label).',
-          },
-        },
-        SESSION_COLUMNS,
-      ),
-    };
+    yield* tableFiles(
+      `sub-${sub}/sub-${sub}_sessions`,
+      SESSION_KEY,
+      SESSION_COLUMNS,
+      own.map((v) => [
+        `ses-${labels.session.get(v.id)!}`,
+        ...cells(SESSION_COLUMNS, visitContext(studyCode, participant, v)),
+      ]),
+    );
     for (const visit of own) {
       const ses = labels.session.get(visit.id)!;
       for (const recording of visit.recordings) {
         const stem = `sub-${sub}/ses-${ses}/eeg/${measuresFileStem(sub, ses, recording)}`;
         const rows = measuresOf(recording).map((measure) =>
-          MEASURE_COLUMNS.map((c) =>
-            c.value({ studyCode, participant, visit, recording, measure }),
-          ),
+          cells(MEASURE_COLUMNS, { studyCode, participant, visit, recording, measure }),
         );
-        yield {
-          path: `${stem}.tsv`,
-          content: tableText('tsv', rows, { header: MEASURE_COLUMNS.map((c) => c.name) }),
-        };
-        yield {
-          path: `${stem}.json`,
-          content: sidecar(
-            {},
-            MEASURE_COLUMNS.map((c) => c.name),
-          ),
-        };
+        yield* tableFiles(stem, {}, MEASURE_COLUMNS, rows);
       }
     }
   }
@@ -291,18 +284,15 @@ function* conditionFiles(model: StudyExportModel, labels: BidsLabels): Generator
     ...cells,
   ]);
   if (rows.length === 0) return;
-  yield {
-    path: 'conditions.tsv',
-    content: tableText('tsv', rows, {
-      header: ['participant_id', 'session_id', ...CONDITION_COLUMNS.map((c) => c.name)],
-    }),
-  };
-  const own: Record<string, SidecarEntry> = {
-    participant_id: { Description: 'BIDS subject, as in participants.tsv.' },
-    session_id: { Description: "BIDS session, as in the subject's sessions.tsv." },
-  };
-  for (const column of CONDITION_COLUMNS) own[column.name] = entryOf(column);
-  yield { path: 'conditions.json', content: `${JSON.stringify(own, null, 2)}\n` };
+  yield* tableFiles(
+    'conditions',
+    {
+      participant_id: 'BIDS subject, as in participants.tsv.',
+      session_id: "BIDS session, as in the subject's sessions.tsv.",
+    },
+    CONDITION_COLUMNS,
+    rows,
+  );
 }
 
 /** Data rows of the measures files a model gives (what the audit entry counts). */

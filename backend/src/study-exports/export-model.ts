@@ -1,6 +1,5 @@
 import type {
   AnalysisRunView,
-  AnalysisSettingsValues,
   ChannelStatsView,
   QualityView,
   RecordingKind,
@@ -56,12 +55,5 @@ export interface ExportRecording {
   rest: Pick<RestResultsView, 'pafHz' | 'cogHz' | 'prominenceDb' | 'noPeakReason'> | null;
   /** Task recordings: the conditions, their difference and the cycle-by-cycle estimate. */
   depth: Pick<TaskResultsView, 'conditions' | 'conditionDifference' | 'cycles'> | null;
-  /** The run's analysis-depth settings (provenance beside its settings version). */
-  depthSettings: DepthSettings;
   quality: QualityView;
 }
-
-export type DepthSettings = Pick<
-  AnalysisSettingsValues,
-  'amplitudeGatePercentile' | 'cycleDisagreementHz' | 'compareConditions'
->;

@@ -49,6 +49,11 @@ const NO_EXTRAS = {
   gatedShare: null,
 } as const;
 
+/** A 95 % interval's ends as the rows' two columns; both null without one. */
+function ciOf(ciHz: readonly [number, number] | null): Pick<MeasureRow, 'ciLow' | 'ciHigh'> {
+  return { ciLow: ciHz?.[0] ?? null, ciHigh: ciHz?.[1] ?? null };
+}
+
 /**
  * The rows of one recording. The region of interest's rows are always written, with an empty
  * value when there is none (no clear peak, no channel left), so a missing number is seen
@@ -68,8 +73,7 @@ export function measuresOf(recording: ExportRecording): MeasureRow[] {
       measure: 'delta_f',
       scope: 'roi',
       value: run.roiDeltaFHz,
-      ciLow: run.roiCiHz?.[0] ?? null,
-      ciHigh: run.roiCiHz?.[1] ?? null,
+      ...ciOf(run.roiCiHz),
       pValue: run.roiPValue,
       trialsKept: run.trialsKept,
       trialsTotal: run.trialsTotal,
@@ -83,8 +87,7 @@ export function measuresOf(recording: ExportRecording): MeasureRow[] {
       measure: 'delta_f_cycles',
       scope: 'roi',
       value: cycles.deltaFHz,
-      ciLow: cycles.ciHz?.[0] ?? null,
-      ciHigh: cycles.ciHz?.[1] ?? null,
+      ...ciOf(cycles.ciHz),
       trialsKept: cycles.trialsUsed,
       trialsTotal: cycles.trialsTotal,
     });
@@ -107,8 +110,7 @@ export function measuresOf(recording: ExportRecording): MeasureRow[] {
         ...base,
         measure: 'delta_f',
         value: channel.deltaFHz,
-        ciLow: channel.ciHz?.[0] ?? null,
-        ciHigh: channel.ciHz?.[1] ?? null,
+        ...ciOf(channel.ciHz),
         pValue: channel.pValue,
         trialsKept: channel.trials,
       },

@@ -450,7 +450,7 @@ export const RESULT_COLUMNS: readonly ExportColumn[] = [
     type: 'number',
     description:
       "Setting of the run: samples under this percentile of each channel's alpha envelope were left out before the median and the epoch means; empty = gate off.",
-    value: (r) => r.recording.depthSettings.amplitudeGatePercentile,
+    value: (r) => r.recording.run.depthSettings.amplitudeGatePercentile,
   },
   {
     name: 'cycle_disagreement_hz',
@@ -475,7 +475,7 @@ export const RESULT_COLUMNS: readonly ExportColumn[] = [
     type: 'number',
     unit: 'Hz',
     description: 'Setting of the run: the two Δf estimates disagree above this difference.',
-    value: (r) => r.recording.depthSettings.cycleDisagreementHz,
+    value: (r) => r.recording.run.depthSettings.cycleDisagreementHz,
   },
   {
     name: 'compare_conditions',
@@ -485,7 +485,7 @@ export const RESULT_COLUMNS: readonly ExportColumn[] = [
       'Setting of the run: the two conditions (onset labels) whose Δf difference is reported, separated by "; "; empty = the first two found (see conditions.csv).',
     freeText: true,
     value: (r) => {
-      const pair = r.recording.depthSettings.compareConditions;
+      const pair = r.recording.run.depthSettings.compareConditions;
       return pair === null ? null : pair.join('; ');
     },
   },

@@ -2,7 +2,6 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import { AnalysisRunsService, toResultsView } from '../analysis/analysis-runs.service';
-import { parseStoredSettings } from '../analysis/settings-values';
 import { applyScope } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { FlagsService } from '../flags/flags.service';
@@ -143,7 +142,6 @@ export class StudyExportSources {
       const run = recording.latestRunId === null ? undefined : runById.get(recording.latestRunId);
       if (run === undefined) return [];
       const results = toResultsView(run, recording, stale.get(run.id) ?? []);
-      const settings = parseStoredSettings(run.settingsJson);
       return [
         {
           visitId: recording.visitId,
@@ -170,11 +168,6 @@ export class StudyExportSources {
                     conditionDifference: results.task.conditionDifference,
                     cycles: results.task.cycles,
                   },
-            depthSettings: {
-              amplitudeGatePercentile: settings.amplitudeGatePercentile,
-              cycleDisagreementHz: settings.cycleDisagreementHz,
-              compareConditions: settings.compareConditions,
-            },
             quality: results.quality,
           },
         },

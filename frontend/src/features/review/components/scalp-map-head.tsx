@@ -1,4 +1,6 @@
 import {
+  type PlacedLabel,
+  placeLabels,
   SCALP_OUTER_RADIUS,
   SCALP_RING_RADIUS,
   type ScalpMapChannel,
@@ -9,7 +11,6 @@ import type { KeyboardEvent } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
 import { omissionWords } from '../../../lib/roi-usage';
 import { formatDeltaHz, formatHz } from '../../../lib/format';
-import { type PlacedLabel, placeLabels } from './scalp-label-placement';
 
 /** SVG units per unit of the map's disc (the Fpz–T7–Oz–T8 ring has radius 1). */
 const UNIT = 100;

@@ -1,8 +1,9 @@
 /**
- * Where each channel's name goes beside its dot on the scalp map: below the dot unless that
- * would cover another dot, an ear or a name already placed; then above, right or left. A
- * greedy pass in the channels' order: hand-written because no installed package places
- * labels, and 64 dots need nothing cleverer.
+ * Where each channel's name goes beside its dot on the scalp map (Review's SVG and the visit
+ * report's PDF): below the dot unless that would cover another dot, an ear or a name already
+ * placed; then above, right or left. A greedy pass in the channels' order: hand-written
+ * because no installed package places labels, and 64 dots need nothing cleverer. Units are
+ * the drawing's own (SVG units or PDF points), y pointing down.
  */
 
 export type LabelSide = 'below' | 'above' | 'right' | 'left';
@@ -16,7 +17,7 @@ export interface LabelBox {
 
 export interface PlacedLabel {
   side: LabelSide;
-  /** The text's anchor point, relative to the dot's centre (SVG units, y down). */
+  /** The text's anchor point on its baseline, relative to the dot's centre (y down). */
   dx: number;
   dy: number;
   anchor: 'middle' | 'start' | 'end';
@@ -40,14 +41,14 @@ function offsetOf(side: LabelSide, dot: number, size: number): PlacedLabel {
   }
 }
 
-/** The box a label's text covers, in the map's coordinates. */
+/** The box a label's text covers, in the map's coordinates; `width` measured, or estimated. */
 export function labelBox(
   centre: readonly [number, number],
   text: string,
   placed: PlacedLabel,
   size: number,
+  width = text.length * size * CHAR_WIDTH,
 ): LabelBox {
-  const width = text.length * size * CHAR_WIDTH;
   const x = centre[0] + placed.dx;
   const baseline = centre[1] + placed.dy;
   const x0 = placed.anchor === 'middle' ? x - width / 2 : placed.anchor === 'start' ? x : x - width;
@@ -65,22 +66,39 @@ function coversCircle(box: LabelBox, centre: readonly [number, number], radius: 
 }
 
 /**
- * One placement per dot, in order. `centres` are the dots' centres (SVG units, y down),
- * `obstacles` boxes no label may cover (the ears). When every side collides, the side that
- * covers the fewest things wins.
+ * The two ears of a head outline of radius `head` centred on 0, as both maps draw them
+ * (ellipses at ±1.04 r, 0.045 r wide and 0.16 r high each side of their centre): boxes no
+ * name may cover.
+ */
+export function scalpEarBoxes(head: number): LabelBox[] {
+  return [-1, 1].map((side) => ({
+    x0: side * 1.04 * head - 0.045 * head,
+    y0: -0.16 * head,
+    x1: side * 1.04 * head + 0.045 * head,
+    y1: 0.16 * head,
+  }));
+}
+
+/**
+ * One placement per dot, in order. `dots` are the names and their dots' centres (y down),
+ * `obstacles` boxes no label may cover (the ears), `textWidth` a name's measured width where
+ * the font's metrics are at hand (the PDF); without it the width is estimated. When every side
+ * collides, the side that covers the fewest things wins.
  */
 export function placeLabels(
   dots: ReadonlyArray<{ name: string; centre: readonly [number, number] }>,
   dot: number,
   size: number,
   obstacles: readonly LabelBox[] = [],
+  textWidth?: (text: string) => number,
 ): PlacedLabel[] {
   const taken: LabelBox[] = [...obstacles];
   return dots.map((current, index) => {
     let best: { placed: PlacedLabel; box: LabelBox; hits: number } | null = null;
+    const width = textWidth?.(current.name);
     for (const side of SIDES) {
       const placed = offsetOf(side, dot, size);
-      const box = labelBox(current.centre, current.name, placed, size);
+      const box = labelBox(current.centre, current.name, placed, size, width);
       const hits =
         dots.filter((other, j) => j !== index && coversCircle(box, other.centre, dot)).length +
         taken.filter((other) => overlaps(box, other)).length;
