@@ -12,6 +12,8 @@ const TECHNICIAN = { email: 'tom.tech@gyre.test', name: 'Tom Tech' };
 const ANALYST = { email: 'ada.analyst@gyre.test', name: 'Ada Analyst' };
 const VISIT_DATE = '2025-04-09';
 const NOTICE = 'Blinded review: visit details hidden until you record your decision.';
+/** A date as the client writes one (lib/format.ts: `D MMM YYYY`), in any month. */
+const ANY_DATE = /\b\d{1,2} (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec) \d{4}\b/;
 
 describe('Blinded review in Chromium, on a real server', () => {
   const run = gyreInChromium((gyre) =>
@@ -59,6 +61,10 @@ describe('Blinded review in Chromium, on a real server', () => {
     const text = await worklist.innerText();
     expect(text).not.toContain('BL-0003');
     expect(text).not.toContain('Month 3');
+    // Its time is counted from the first upload: no date, not even 1 Jan 1970.
+    expect(text).toContain('first upload');
+    expect(text).not.toMatch(ANY_DATE);
+    expect(text).not.toContain('1970');
     await screenshot(page, 'blinded-worklist');
 
     await item.click();
@@ -70,6 +76,16 @@ describe('Blinded review in Chromium, on a real server', () => {
     expect(body).not.toContain('BL-0003');
     expect(body).not.toContain('Month 3');
     expect(body).not.toMatch(/Trajectory of/);
+    // Upload and computation times read as time after the first upload, never as a date.
+    const source = page.getByTestId('source-resting');
+    await source.getByText(/computed/).waitFor();
+    await expect(source.innerText()).resolves.toMatch(
+      /uploaded at first upload .*computed (at first upload|\+\d+\s(s|min) after first upload), after upload/,
+    );
+    const blindedBody = await page.locator('main').innerText();
+    expect(blindedBody).not.toMatch(ANY_DATE);
+    expect(blindedBody).not.toContain('1970');
+    expect(blindedBody).not.toContain(VISIT_DATE);
     const card = page.locator('[aria-label="Blinded decision"]');
     await card.getByLabel('No flag').check();
     await card.getByLabel('Reason').fill('PAF steady at 10 Hz, nothing to flag');
@@ -77,6 +93,14 @@ describe('Blinded review in Chromium, on a real server', () => {
     await card.getByRole('button', { name: 'Record the decision' }).click();
     await page.getByText(`Review · ${participant.code} · ${visit.label}`).waitFor();
     await expect(page.getByRole('note', { name: 'Blinded review' }).count()).resolves.toBe(0);
+    // Now the visit's date and the real upload and computation times show.
+    await page.getByText('Visit of 9 Apr 2025').waitFor();
+    await expect(page.getByTestId('source-resting').innerText()).resolves.toMatch(
+      /uploaded \d{1,2} \w{3} \d{4}, \d\d:\d\d:\d\d .*computed \d{1,2} \w{3} \d{4}, \d\d:\d\d:\d\d after upload/,
+    );
+    const unblindedBody = await page.locator('main').innerText();
+    expect(unblindedBody).not.toContain('after first upload');
+    expect(unblindedBody).not.toContain('1970');
     expect(problems).toEqual([]);
     await page.close();
   }, 600_000);

@@ -36,6 +36,48 @@ export function formatDateTime(value: string | null | undefined): string {
   return date.isValid() ? date.format('D MMM YYYY, HH:mm:ss') : value;
 }
 
+const SECOND_MS = 1000;
+const MINUTE_MS = 60 * SECOND_MS;
+const HOUR_MS = 60 * MINUTE_MS;
+const DAY_MS = 24 * HOUR_MS;
+
+/** A distance in whole units, the largest first; each rounded down. */
+function distanceParts(ms: number): Array<[number, string]> {
+  if (ms < MINUTE_MS) return [[Math.floor(ms / SECOND_MS), 's']];
+  if (ms < HOUR_MS) return [[Math.floor(ms / MINUTE_MS), 'min']];
+  if (ms < DAY_MS) {
+    return [
+      [Math.floor(ms / HOUR_MS), 'h'],
+      [Math.floor((ms % HOUR_MS) / MINUTE_MS), 'min'],
+    ];
+  }
+  return [
+    [Math.floor(ms / DAY_MS), 'd'],
+    [Math.floor((ms % DAY_MS) / HOUR_MS), 'h'],
+  ];
+}
+
+/**
+ * A time stamp of a visit still blinded for the viewer (blinded review). The server sends it as
+ * its distance from the visit's first upload, counted from 1970-01-01T00:00:00Z, so it is
+ * written as that distance and never as a date: `at first upload` under one second, else
+ * `+40 s`, `+12 min`, `+2 h 5 min` or `+3 d 4 h`, then `after first upload`. Seconds only under
+ * a minute, minutes alone under an hour, else the two largest units (a second one of 0 left
+ * out); each is rounded down, so a later time never reads as earlier. Hand-written: dayjs's
+ * duration plugin formats one fixed pattern, not the largest units.
+ */
+export function formatAfterFirstUpload(value: string | null | undefined): string {
+  if (value === null || value === undefined || value === '') return NO_VALUE;
+  const ms = Date.parse(value);
+  if (Number.isNaN(ms)) return NO_VALUE;
+  if (ms < SECOND_MS) return 'at first upload';
+  const distance = distanceParts(ms)
+    .filter(([n]) => n > 0)
+    .map(([n, unit]) => `${sharedNumber(n, 0)}${UNIT_SPACE}${unit}`)
+    .join(' ');
+  return `+${distance} after first upload`;
+}
+
 /** A frequency to two decimals with its unit, e.g. `10.25 Hz`. */
 export function formatHz(value: Maybe): string {
   return sharedHz(value);

@@ -32,8 +32,7 @@ export function AmplitudeGateNote({ percentile }: { percentile: number }) {
   return (
     <Typography.Paragraph
       data-testid="amplitude-gate-note"
-      style={{ fontSize: 13 }}
-      className="gyre-figures"
+      className="gyre-review-small gyre-figures"
     >
       Amplitude gate on: instantaneous-frequency samples under percentile{' '}
       {formatNumber(percentile, 0)} of each channel's alpha envelope were left out before the median

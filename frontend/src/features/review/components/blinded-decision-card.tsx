@@ -4,6 +4,7 @@ import { formatDateTime } from '../../../lib/format';
 import { FormError } from '../../../components/form-error';
 import { useSubmission } from '../../../lib/use-submission';
 import { FLAG_REASON_MIN_LENGTH } from './flag-panel';
+import { reasonRules } from './reason-rules';
 
 const DECISION_WORDS: Record<BlindedDecision, string> = {
   flag: 'Raise a slowing flag',
@@ -31,7 +32,7 @@ export function BlindedDecisionCard({
       styles={{ title: { whiteSpace: 'normal', overflowWrap: 'anywhere' } }}
     >
       {decided !== null ? (
-        <Typography.Paragraph style={{ margin: 0 }}>
+        <Typography.Paragraph className="gyre-flush">
           {DECISION_WORDS[decided.decision]}, recorded {formatDateTime(decided.decidedAt)}:{' '}
           <q>{decided.reason}</q>
         </Typography.Paragraph>
@@ -59,17 +60,7 @@ export function BlindedDecisionCard({
               }))}
             />
           </Form.Item>
-          <Form.Item
-            label="Reason"
-            name="reason"
-            rules={[
-              { required: true, whitespace: true, message: 'Give a reason.' },
-              {
-                min: FLAG_REASON_MIN_LENGTH,
-                message: `At least ${FLAG_REASON_MIN_LENGTH} characters.`,
-              },
-            ]}
-          >
+          <Form.Item label="Reason" name="reason" rules={reasonRules(FLAG_REASON_MIN_LENGTH)}>
             <Input.TextArea rows={3} maxLength={2000} />
           </Form.Item>
           <Typography.Paragraph type="secondary">

@@ -26,7 +26,7 @@ describe('Review under blinded review', { timeout: 180_000 }, () => {
     const asked: string[] = [];
     const sent: BlindedDecisionChange[] = [];
     let blinding = BLINDED;
-    serveReview();
+    serveReview({ timesBlinded: () => blinding.blinded });
     server.use(
       http.get(`/api/visits/${VISIT.id}/blinding`, () => HttpResponse.json(blinding)),
       http.get(`/api/visits/${VISIT.id}`, () => {
@@ -59,6 +59,14 @@ describe('Review under blinded review', { timeout: 180_000 }, () => {
     expect(screen.queryByText(/Trajectory of/)).toBeNull();
     expect(screen.queryByText(PARTICIPANT.code)).toBeNull();
     expect(asked).toEqual([]);
+    // Times of the visit read as time after its first upload, never as a date.
+    const sources = await screen.findByTestId('source-task', {}, { timeout: 15_000 });
+    await waitFor(() =>
+      expect(sources).toHaveTextContent(/computed \+5\s+min after first upload, after upload/),
+    );
+    expect(sources).toHaveTextContent('uploaded at first upload');
+    const main = screen.getByRole('main');
+    expect(main.textContent).not.toMatch(/1970|2025/);
 
     const card = screen.getByRole('generic', { name: 'Blinded decision' });
     await userEvent.click(within(card).getByLabelText('No flag'));
@@ -77,5 +85,8 @@ describe('Review under blinded review', { timeout: 180_000 }, () => {
     expect(sent).toEqual([{ decision: 'noFlag', reason: 'PAF steady, nothing to flag' }]);
     await waitFor(() => expect(asked).toEqual(['visit']));
     expect(screen.queryByRole('note', { name: 'Blinded review' })).toBeNull();
+    // The same times, now as dates.
+    expect(screen.getByTestId('source-task')).toHaveTextContent(/uploaded 3 Feb 2025, \d\d:\d\d/);
+    expect(screen.getByRole('main').textContent).not.toContain('after first upload');
   });
 });

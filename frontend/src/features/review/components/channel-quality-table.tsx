@@ -46,12 +46,12 @@ export function ChannelQualityTable({
             <span>
               {row.label}
               {row.flat && (
-                <Tag color={GYRE_COLORS.amberText} style={{ marginLeft: 8 }}>
+                <Tag color={GYRE_COLORS.amberText} className="gyre-review-beside">
                   flat
                 </Tag>
               )}
               {row.saturated && (
-                <Tag color={GYRE_COLORS.amberText} style={{ marginLeft: 8 }}>
+                <Tag color={GYRE_COLORS.amberText} className="gyre-review-beside">
                   clipped
                 </Tag>
               )}

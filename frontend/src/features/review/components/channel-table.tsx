@@ -25,7 +25,7 @@ function RoiCaption({ usage }: { usage: RoiUsageView }) {
     <Alert
       type="warning"
       showIcon
-      style={{ marginBottom: 12 }}
+      className="gyre-below-sm"
       aria-label="Region of interest of this table"
       title={
         usage.status === 'none'
@@ -65,11 +65,11 @@ export function ChannelTable({
             <span style={{ color: GYRE_COLORS.inkSoft, marginLeft: 6 }}>({row.label})</span>
           ) : null}
           {usedInRoi(roiUsage, row.label, row.canonical) ? (
-            <Tag color={GYRE_COLORS.primary} style={{ marginLeft: 8 }}>
+            <Tag color={GYRE_COLORS.primary} className="gyre-review-beside">
               ROI
             </Tag>
           ) : omission !== null ? (
-            <Tag color={GYRE_COLORS.amberText} style={{ marginLeft: 8 }}>
+            <Tag color={GYRE_COLORS.amberText} className="gyre-review-beside">
               left out of ROI: {omissionWords(omission.reason)}
             </Tag>
           ) : null}

@@ -25,7 +25,7 @@ const columns: TableColumnsType<ConditionStatsView> = [
   {
     title: 'Condition',
     key: 'label',
-    render: (_, row) => <span style={{ overflowWrap: 'anywhere' }}>{row.label}</span>,
+    render: (_, row) => <span className="gyre-wrap-anywhere">{row.label}</span>,
   },
   {
     title: 'Trials kept',
@@ -59,7 +59,7 @@ function DifferenceRow({ difference }: { difference: ConditionDifferenceView }) 
       </Table.Summary.Cell>
       <Table.Summary.Cell index={3} align="right">
         {formatPValue(difference.pValue)}
-        <Typography.Text type="secondary" style={{ display: 'block', fontSize: 13 }}>
+        <Typography.Text type="secondary" className="gyre-block gyre-review-small">
           (permutation)
         </Typography.Text>
       </Table.Summary.Cell>

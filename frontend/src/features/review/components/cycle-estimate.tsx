@@ -91,7 +91,7 @@ export function CycleEstimate({
       size="small"
       title="Cross-check: cycle-by-cycle Δf"
       aria-label="Cycle-by-cycle cross-check"
-      style={{ margin: '12px 0 16px' }}
+      className="gyre-above-sm gyre-below"
     >
       {cycles.disagrees && (
         <Alert
@@ -100,7 +100,7 @@ export function CycleEstimate({
           role="alert"
           title="The two estimates disagree"
           description={disagreementText(cycles, runThresholdHz)}
-          style={{ marginBottom: 12 }}
+          className="gyre-below-sm"
         />
       )}
       <FiguresTable<EstimateRow>
@@ -109,7 +109,10 @@ export function CycleEstimate({
         columns={ESTIMATE_COLUMNS}
         dataSource={estimates}
       />
-      <Typography.Paragraph type="secondary" style={{ fontSize: 13, margin: '8px 0 12px' }}>
+      <Typography.Paragraph
+        type="secondary"
+        className="gyre-review-small gyre-above-xs gyre-below-sm"
+      >
         Cycle-by-cycle trials are those with burst cycles in both the baseline and the post window.
       </Typography.Paragraph>
       <Descriptions

@@ -19,10 +19,10 @@ export function DeltaFWithCi({
 }) {
   return (
     <>
-      <Typography.Text strong={strong} style={{ display: 'block', whiteSpace: 'nowrap' }}>
+      <Typography.Text strong={strong} className="gyre-block gyre-nowrap">
         {formatDeltaHz(deltaFHz)}
       </Typography.Text>
-      <Typography.Text type="secondary" style={{ display: 'block', fontSize: 13 }}>
+      <Typography.Text type="secondary" className="gyre-block gyre-review-small">
         {formatDeltaHzRange(ciHz)}
       </Typography.Text>
     </>

@@ -5,6 +5,7 @@ import { formatDateTime, formatHz } from '../../../lib/format';
 import { useSubmission } from '../../../lib/use-submission';
 import { NO_ROI_CHANNEL_REMAINS, leftOutText, roiUsageSentence } from '../../../lib/roi-usage';
 import { formatCi } from './channel-table';
+import { reasonRules } from './reason-rules';
 
 export const FLAG_REASON_MIN_LENGTH = 10;
 
@@ -40,9 +41,7 @@ function SuggestionBox({ suggestion }: { suggestion: FlagSuggestion | null }) {
       <Typography.Text type="secondary" className="gyre-caption-caps">
         COMPUTATION&apos;S SUGGESTION
       </Typography.Text>
-      <div className="gyre-figures" style={{ marginTop: 4 }}>
-        {text}
-      </div>
+      <div className="gyre-review-above-xxs gyre-figures">{text}</div>
       {roiNote !== null && (
         <div style={{ marginTop: 4, color: GYRE_COLORS.amberText }} data-testid="suggestion-roi">
           {roiNote}
@@ -76,7 +75,7 @@ function DecisionBox({ current, who }: { current: FlagView | null; who: PersonRe
       <Typography.Text type="secondary" className="gyre-caption-caps">
         ANALYST&apos;S DECISION
       </Typography.Text>
-      <div style={{ marginTop: 4 }}>
+      <div className="gyre-review-above-xxs">
         {current === null ? (
           'No slowing flag has been raised for this visit.'
         ) : raised ? (
@@ -125,24 +124,12 @@ function FlagForm({
       <Form.Item
         name="reason"
         label={raised ? 'Why clear it?' : 'Why raise it?'}
-        rules={[
-          { required: true, whitespace: true, message: 'A reason is required.' },
-          {
-            validator: async (_rule, value: string | undefined) => {
-              const length = (value ?? '').trim().length;
-              if (length > 0 && length < FLAG_REASON_MIN_LENGTH) {
-                throw new Error(
-                  `Write at least ${FLAG_REASON_MIN_LENGTH} characters (${length} so far).`,
-                );
-              }
-            },
-          },
-        ]}
+        rules={reasonRules(FLAG_REASON_MIN_LENGTH)}
       >
         <Input.TextArea rows={3} maxLength={2000} />
       </Form.Item>
       {failure !== null && (
-        <Alert type="error" showIcon title={failure} role="alert" style={{ marginBottom: 12 }} />
+        <Alert type="error" showIcon title={failure} role="alert" className="gyre-below-sm" />
       )}
       <Button
         htmlType="submit"
@@ -184,7 +171,7 @@ export function FlagPanel({
         <div>
           <Typography.Text strong>History</Typography.Text>
           <Timeline
-            style={{ marginTop: 12 }}
+            className="gyre-above-sm"
             items={earlier.flatMap((f) => [
               {
                 key: `${f.id}-raised`,

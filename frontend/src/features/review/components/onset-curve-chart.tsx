@@ -39,17 +39,14 @@ function Swatch({
   return (
     <span
       aria-hidden="true"
+      className="gyre-legend-swatch"
       style={{
-        display: 'inline-block',
-        width: 18,
         height: line ? 3 : 12,
         background: dashed
           ? `repeating-linear-gradient(90deg, ${colour} 0 6px, transparent 6px 9px)`
           : colour,
         opacity,
         borderRadius: 2,
-        verticalAlign: 'middle',
-        marginRight: 6,
       }}
     />
   );
@@ -109,10 +106,10 @@ export function OnsetCurveChart({
   };
   return (
     <div>
-      <Flex justify="space-between" align="center" wrap gap={12} style={{ marginBottom: 8 }}>
+      <Flex justify="space-between" align="center" wrap gap={12} className="gyre-below-xs">
         {/* The chart's key: the windows are named here, not inside the plot, where their
             labels would collide on a narrow screen. */}
-        <Flex gap={16} wrap style={{ fontSize: 13 }} className="gyre-figures">
+        <Flex gap={16} wrap className="gyre-review-small gyre-figures">
           <span data-gyre-key="mean">
             <Swatch colour={MEAN_COLOUR} line />
             {seriesName}
@@ -137,7 +134,7 @@ export function OnsetCurveChart({
           ))}
         </Flex>
         {task.conditionCurves.length > 0 && picked === null && (
-          <label style={{ fontSize: 13 }}>
+          <label className="gyre-review-small">
             <Switch
               size="small"
               checked={conditionsShown}

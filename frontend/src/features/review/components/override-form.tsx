@@ -9,6 +9,7 @@ import { ANALYSIS_OVERRIDE_UNCHANGED } from '../api/save-visit-override';
 import type { ChannelOption } from './channel-names';
 import { formatHzRange } from '../../../lib/format';
 import { BandEdgeFields } from '../../../components/band-edge-fields';
+import { reasonRules } from './reason-rules';
 
 export const OVERRIDE_REASON_MIN_LENGTH = 10;
 
@@ -201,19 +202,7 @@ export function OverrideForm({
         <Form.Item
           name="reason"
           label="Why this visit needs its own choices"
-          rules={[
-            { required: true, whitespace: true, message: 'A reason is required.' },
-            {
-              validator: async (_rule, value: string | undefined) => {
-                const length = (value ?? '').trim().length;
-                if (length > 0 && length < OVERRIDE_REASON_MIN_LENGTH) {
-                  throw new Error(
-                    `Write at least ${OVERRIDE_REASON_MIN_LENGTH} characters (${length} so far).`,
-                  );
-                }
-              },
-            },
-          ]}
+          rules={reasonRules(OVERRIDE_REASON_MIN_LENGTH)}
         >
           <Input.TextArea rows={2} maxLength={2000} />
         </Form.Item>

@@ -32,7 +32,7 @@ export function QualityChecks({
           showIcon
           title={`${warnings.length} quality warning${warnings.length === 1 ? '' : 's'}`}
           description={
-            <ul style={{ margin: 0, paddingLeft: 18 }}>
+            <ul className="gyre-compact-list">
               {warnings.map((w) => (
                 <li key={w}>{w}</li>
               ))}

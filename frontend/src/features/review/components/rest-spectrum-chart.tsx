@@ -9,13 +9,8 @@ function DashKey({ colour }: { colour: string }) {
   return (
     <span
       aria-hidden="true"
-      style={{
-        display: 'inline-block',
-        width: 18,
-        borderTop: `2px dashed ${colour}`,
-        verticalAlign: 'middle',
-        marginRight: 6,
-      }}
+      className="gyre-legend-swatch"
+      style={{ borderTop: `2px dashed ${colour}` }}
     />
   );
 }
@@ -42,7 +37,7 @@ export function RestSpectrumChart({ rest, roiLabel }: { rest: RestResultsView; r
   );
   return (
     <div>
-      <Flex gap={24} wrap style={{ marginBottom: 8 }} className="gyre-figures">
+      <Flex gap={24} wrap className="gyre-below-xs gyre-figures">
         <span data-testid="rest-paf">
           <DashKey colour={PAF_COLOUR} />
           PAF{' '}

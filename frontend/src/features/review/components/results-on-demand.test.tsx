@@ -46,6 +46,19 @@ function renderWithData(node: React.ReactNode) {
   );
 }
 
+/** The onset chart of a run with no region-of-interest channel left. */
+function renderWithoutRoi() {
+  renderWithData(
+    <OnsetCurveChart
+      recordingId="rec-task"
+      runId="run-task"
+      task={TASK}
+      roiLabel="ROI: no channel"
+      roiAvailable={false}
+    />,
+  );
+}
+
 function serveCurves() {
   server.use(
     http.get(CURVES_PATH, ({ request }) => {
@@ -138,15 +151,7 @@ describe("a channel's onset curve, asked for when picked", { timeout: 30_000 }, 
 
   it('asks for the first channel at once when no region-of-interest channel remains', async () => {
     serveCurves();
-    renderWithData(
-      <OnsetCurveChart
-        recordingId="rec-task"
-        runId="run-task"
-        task={TASK}
-        roiLabel="ROI: no channel"
-        roiAvailable={false}
-      />,
-    );
+    renderWithoutRoi();
     expect(await screen.findByText('Mean, EEG O1-REF')).toBeInTheDocument();
     await waitFor(() =>
       expect(asked).toEqual([`${CURVES_PATH}?runId=run-task&channel=EEG+O1-REF`]),
@@ -166,15 +171,7 @@ describe("a channel's onset curve, asked for when picked", { timeout: 30_000 }, 
         ),
       ),
     );
-    renderWithData(
-      <OnsetCurveChart
-        recordingId="rec-task"
-        runId="run-task"
-        task={TASK}
-        roiLabel="ROI: no channel"
-        roiAvailable={false}
-      />,
-    );
+    renderWithoutRoi();
     expect(
       await screen.findByText('The curve of EEG O1-REF could not be loaded'),
     ).toBeInTheDocument();

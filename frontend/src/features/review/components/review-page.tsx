@@ -4,13 +4,13 @@ import {
   type RecordingKind,
   type RecordingResultsView,
 } from '@gyre/shared';
-import { App, Button, Card, Col, Descriptions, Flex, Row, Skeleton, Tabs, Tag } from 'antd';
+import { App, Button, Col, Descriptions, Flex, Row, Tabs, Tag } from 'antd';
 import { useEffect, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { PageHeader } from '../../../components/page-header';
 import { VisitWindowTag } from '../../../components/visit-window-tag';
-import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
+import { ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { formatDate } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
@@ -35,20 +35,20 @@ import { ChannelTable } from './channel-table';
 import { ConditionsTable } from './conditions-table';
 import { CycleEstimate } from './cycle-estimate';
 import { FlagPanel } from './flag-panel';
+import { QualityOf, ResultsOf, RunResultsOf } from './kind-results';
 import { OnsetCurveChart } from './onset-curve-chart';
 import { OverrideCard } from './override-card';
 import { OverrideForm } from './override-form';
 import { PersonName } from './person-name';
-import { QualityChecks } from './quality-checks';
-import { RecordingStateNotice } from './recording-state-notice';
 import { RestSpectrumChart } from './rest-spectrum-chart';
+import { LoadedCard, ReviewCard } from './review-card';
 import { ReviewMark } from './review-mark';
-import { RunNotices } from './run-notices';
-import { RunSummary } from './run-summary';
 import { ScalpMaps } from './scalp-map';
-import { IN_PROGRESS, useShownResults } from './shown-results';
+import { useShownResults } from './shown-results';
 import { TrialRaster } from './trial-raster';
 import { VisitSources } from './visit-sources';
+import { VisitTimeProvider } from './visit-time';
+import '../review.css';
 
 /** A visit's current recording of a kind: the one a newer upload has not replaced. */
 const CURRENT: ReadonlySet<RecordingView['state']> = new Set([
@@ -83,55 +83,6 @@ function roiLabelOf(results: RecordingResultsView): string {
   const usage = results.run.roiUsage;
   return usage.used.length === 0 ? 'ROI: no channel' : `ROI: ${usage.used.join(', ')}`;
 }
-
-/**
- * One kind of recording's results, or why there are none yet. While a re-run is on its way
- * the last results stay on screen under a notice, so the analyst never loses the picture.
- */
-function ResultsOf({
-  recording,
-  kindName,
-  children,
-}: {
-  recording: RecordingView | null;
-  kindName: string;
-  children: (results: RecordingResultsView, recording: RecordingView) => React.ReactNode;
-}) {
-  const { showable, results } = useShownResults(recording);
-  if (recording === null) {
-    return <EmptyState description={`No ${kindName} recording for this visit yet.`} />;
-  }
-  if (!showable) {
-    return recording.state === 'ready' ? (
-      <EmptyState description="No computed results yet." />
-    ) : (
-      <RecordingStateNotice recording={recording} />
-    );
-  }
-  if (results.error !== undefined) {
-    return (
-      <ErrorState
-        title={`The ${kindName} results could not be loaded`}
-        error={results.error}
-        onRetry={() => void results.mutate()}
-      />
-    );
-  }
-  if (results.data === undefined) return <Skeleton active paragraph={{ rows: 6 }} />;
-  return (
-    <>
-      {IN_PROGRESS.has(recording.state) && (
-        <div style={{ marginBottom: 12 }}>
-          <RecordingStateNotice recording={recording} previousShown />
-        </div>
-      )}
-      {children(results.data, recording)}
-    </>
-  );
-}
-
-/** Card titles wrap at phone width instead of being cut with an ellipsis. */
-const WRAPPING_TITLE = { title: { whiteSpace: 'normal', overflowWrap: 'anywhere' } } as const;
 
 /**
  * `reportPanel` draws the report card's body (the app passes the sign-off feature's panel);
@@ -189,6 +140,8 @@ export function ReviewPage({
   const canFlag = ability.can('create', 'Flag') && ability.can('update', 'Flag');
   const openOverride =
     canChangeOverride && override.data !== undefined ? () => setOverrideOpen(true) : undefined;
+  // What each results card offers when its run's numbers are in doubt.
+  const rerunChoices = { canRerun, onChooseChannels: openOverride };
 
   const loadError = blinding.error ?? visit.error;
   if (loadError !== undefined) {
@@ -222,7 +175,7 @@ export function ReviewPage({
   );
 
   return (
-    <>
+    <VisitTimeProvider blinded={blinded}>
       <ResearchCaution />
       {blinded || visit.data === undefined ? (
         <BlindedReviewHeader blinding={blinding.data} />
@@ -259,159 +212,108 @@ export function ReviewPage({
           <Row gutter={[{ xs: 0, xl: 20 }, 20]}>
             <Col xs={24} xl={16}>
               <Flex vertical gap={20}>
-                <Card
-                  styles={WRAPPING_TITLE}
-                  title="Onset: task recording"
-                  aria-label="Task results"
-                >
-                  <ResultsOf recording={task} kindName="task">
-                    {(results, recording) => (
+                <ReviewCard title="Onset: task recording" label="Task results">
+                  <RunResultsOf
+                    recording={task}
+                    kind="task"
+                    {...rerunChoices}
+                    drawnOf={(results) => results.task}
+                    nothingDrawn="No onset curves were computed"
+                  >
+                    {(taskPart, results, recording) => (
                       <>
-                        <RunNotices
-                          results={results}
-                          recording={recording}
-                          canRerun={canRerun}
-                          onChooseChannels={openOverride}
+                        <CycleEstimate
+                          run={results.run}
+                          cycles={taskPart.cycles}
+                          studyThresholdHz={settings.data?.cycleDisagreementHz ?? null}
                         />
-                        <RunSummary run={results.run} />
-                        {results.task === null ? (
-                          // With no region channel left, the notice above already says why.
-                          results.run.roiUsage.status !== 'none' && (
-                            <EmptyState description="No onset curves were computed for this run; the quality checks below say what the file held." />
-                          )
-                        ) : (
-                          <>
-                            <CycleEstimate
-                              run={results.run}
-                              cycles={results.task.cycles}
-                              studyThresholdHz={settings.data?.cycleDisagreementHz ?? null}
-                            />
-                            <OnsetCurveChart
-                              recordingId={recording.id}
-                              runId={results.run.id}
-                              task={results.task}
-                              roiLabel={roiLabelOf(results)}
-                              roiAvailable={results.run.roiUsage.status !== 'none'}
-                            />
-                            <div style={{ marginTop: 24 }}>
-                              <TrialRaster
-                                recordingId={recording.id}
-                                runId={results.run.id}
-                                task={results.task}
-                                bandHz={results.run.bandHz}
-                              />
-                            </div>
-                            <Descriptions
-                              size="small"
-                              style={{ marginTop: 16 }}
-                              className="gyre-figures"
-                              items={[
-                                {
-                                  key: 'total',
-                                  label: 'Epochs',
-                                  children: String(results.task.epochs.total),
-                                },
-                                {
-                                  key: 'kept',
-                                  label: 'Kept',
-                                  children: String(results.task.epochs.kept),
-                                },
-                                {
-                                  key: 'dropped',
-                                  label: 'Dropped',
-                                  children:
-                                    Object.entries(results.task.epochs.dropped)
-                                      .filter(([, n]) => n > 0)
-                                      .map(([why, n]) => `${n} ${EPOCH_DROP_WORDS[why] ?? why}`)
-                                      .join(', ') || 'none',
-                                },
-                              ]}
-                            />
-                            <ConditionsTable task={results.task} />
-                          </>
-                        )}
+                        <OnsetCurveChart
+                          recordingId={recording.id}
+                          runId={results.run.id}
+                          task={taskPart}
+                          roiLabel={roiLabelOf(results)}
+                          roiAvailable={results.run.roiUsage.status !== 'none'}
+                        />
+                        <div className="gyre-above-lg">
+                          <TrialRaster
+                            recordingId={recording.id}
+                            runId={results.run.id}
+                            task={taskPart}
+                            bandHz={results.run.bandHz}
+                          />
+                        </div>
+                        <Descriptions
+                          size="small"
+                          className="gyre-above gyre-figures"
+                          items={[
+                            {
+                              key: 'total',
+                              label: 'Epochs',
+                              children: String(taskPart.epochs.total),
+                            },
+                            {
+                              key: 'kept',
+                              label: 'Kept',
+                              children: String(taskPart.epochs.kept),
+                            },
+                            {
+                              key: 'dropped',
+                              label: 'Dropped',
+                              children:
+                                Object.entries(taskPart.epochs.dropped)
+                                  .filter(([, n]) => n > 0)
+                                  .map(([why, n]) => `${n} ${EPOCH_DROP_WORDS[why] ?? why}`)
+                                  .join(', ') || 'none',
+                            },
+                          ]}
+                        />
+                        <ConditionsTable task={taskPart} />
                       </>
                     )}
-                  </ResultsOf>
-                </Card>
-                <Card
-                  styles={WRAPPING_TITLE}
+                  </RunResultsOf>
+                </ReviewCard>
+                <ReviewCard
                   title="Individual alpha frequency: resting recording"
-                  aria-label="Rest results"
+                  label="Rest results"
                 >
-                  <ResultsOf recording={rest} kindName="resting">
-                    {(results, recording) => (
-                      <>
-                        <RunNotices
-                          results={results}
-                          recording={recording}
-                          canRerun={canRerun}
-                          onChooseChannels={openOverride}
-                        />
-                        <RunSummary run={results.run} />
-                        {results.rest === null ? (
-                          results.run.roiUsage.status !== 'none' && (
-                            <EmptyState description="No spectrum was computed for this run; the quality checks below say what the file held." />
-                          )
-                        ) : (
-                          <RestSpectrumChart rest={results.rest} roiLabel={roiLabelOf(results)} />
-                        )}
-                      </>
+                  <RunResultsOf
+                    recording={rest}
+                    kind="resting"
+                    {...rerunChoices}
+                    drawnOf={(results) => results.rest}
+                    nothingDrawn="No spectrum was computed"
+                  >
+                    {(restPart, results) => (
+                      <RestSpectrumChart rest={restPart} roiLabel={roiLabelOf(results)} />
                     )}
-                  </ResultsOf>
-                </Card>
-                <Card
-                  styles={WRAPPING_TITLE}
-                  title="Per channel: task"
-                  aria-label="Per-channel results"
-                >
-                  <ResultsOf recording={task} kindName="task">
+                  </RunResultsOf>
+                </ReviewCard>
+                <ReviewCard title="Per channel: task" label="Per-channel results">
+                  <ResultsOf recording={task} kind="task">
                     {(results) => (
                       <ChannelTable channels={results.channels} roiUsage={results.run.roiUsage} />
                     )}
                   </ResultsOf>
-                </Card>
-                <Card styles={WRAPPING_TITLE} title="Scalp maps" aria-label="Scalp maps">
+                </ReviewCard>
+                <ReviewCard title="Scalp maps" label="Scalp maps">
                   <ScalpMaps rest={rest} task={task} />
-                </Card>
-                <Card styles={WRAPPING_TITLE} title="Quality checks" aria-label="Quality checks">
+                </ReviewCard>
+                <ReviewCard title="Quality checks" label="Quality checks">
                   <Tabs
                     items={[
                       {
                         key: 'task',
                         label: 'Task',
-                        children: (
-                          <ResultsOf recording={task} kindName="task">
-                            {(results, recording) => (
-                              <QualityChecks
-                                quality={results.quality}
-                                kind="task"
-                                roiUsage={results.run.roiUsage}
-                                lineFrequencyHz={recording.lineFrequencyHz}
-                              />
-                            )}
-                          </ResultsOf>
-                        ),
+                        children: <QualityOf recording={task} kind="task" />,
                       },
                       {
                         key: 'rest',
                         label: 'Rest',
-                        children: (
-                          <ResultsOf recording={rest} kindName="resting">
-                            {(results, recording) => (
-                              <QualityChecks
-                                quality={results.quality}
-                                kind="resting"
-                                roiUsage={results.run.roiUsage}
-                                lineFrequencyHz={recording.lineFrequencyHz}
-                              />
-                            )}
-                          </ResultsOf>
-                        ),
+                        children: <QualityOf recording={rest} kind="resting" />,
                       },
                     ]}
                   />
-                </Card>
+                </ReviewCard>
               </Flex>
             </Col>
             <Col xs={24} xl={8}>
@@ -420,22 +322,16 @@ export function ReviewPage({
                   <BlindedDecisionCard blinding={blinding.data} onDecide={recordDecision} />
                 )}
                 {ability.can('read', 'VisitReview') && (
-                  <Card
-                    styles={WRAPPING_TITLE}
+                  <LoadedCard
                     title="Review of this visit"
-                    aria-label="Review of this visit"
+                    label="Review of this visit"
+                    read={review}
+                    failed="The review state could not be loaded"
+                    rows={1}
                   >
-                    {review.error !== undefined ? (
-                      <ErrorState
-                        title="The review state could not be loaded"
-                        error={review.error}
-                        onRetry={() => void review.mutate()}
-                      />
-                    ) : review.data === undefined ? (
-                      <Skeleton active paragraph={{ rows: 1 }} />
-                    ) : (
+                    {(reviewState) => (
                       <ReviewMark
-                        state={review.data}
+                        state={reviewState}
                         meId={me.user.id}
                         onMark={async (fingerprint) => {
                           try {
@@ -449,20 +345,17 @@ export function ReviewPage({
                         }}
                       />
                     )}
-                  </Card>
+                  </LoadedCard>
                 )}
-                <Card styles={WRAPPING_TITLE} title="Slowing flag" aria-label="Slowing flag">
-                  {flag.error !== undefined ? (
-                    <ErrorState
-                      title="The flag could not be loaded"
-                      error={flag.error}
-                      onRetry={() => void flag.mutate()}
-                    />
-                  ) : flag.data === undefined ? (
-                    <Skeleton active />
-                  ) : (
+                <LoadedCard
+                  title="Slowing flag"
+                  label="Slowing flag"
+                  read={flag}
+                  failed="The flag could not be loaded"
+                >
+                  {(flagView) => (
                     <FlagPanel
-                      flag={flag.data}
+                      flag={flagView}
                       meId={me.user.id}
                       renderPerson={(userId) => (
                         <PersonName
@@ -480,55 +373,49 @@ export function ReviewPage({
                       }}
                     />
                   )}
-                </Card>
+                </LoadedCard>
                 {canReadSettings && (
-                  <Card
-                    styles={WRAPPING_TITLE}
+                  <LoadedCard
                     title="This visit's analysis choices"
-                    aria-label="Visit analysis choices"
+                    label="Visit analysis choices"
+                    read={override}
+                    failed="The visit's choices could not be loaded"
+                    rows={2}
                   >
-                    {override.error !== undefined ? (
-                      <ErrorState
-                        title="The visit's choices could not be loaded"
-                        error={override.error}
-                        onRetry={() => void override.mutate()}
-                      />
-                    ) : override.data === undefined ? (
-                      <Skeleton active paragraph={{ rows: 2 }} />
-                    ) : (
+                    {(visitOverride) => (
                       <OverrideCard
-                        override={override.data}
+                        override={visitOverride}
                         study={settings.data}
                         canChange={canChangeOverride}
                         onChange={() => setOverrideOpen(true)}
                       />
                     )}
-                  </Card>
+                  </LoadedCard>
                 )}
-                <Card styles={WRAPPING_TITLE} title="Report" aria-label="Report">
-                  {report.error !== undefined ? (
-                    <ErrorState
-                      title="The report could not be loaded"
-                      error={report.error}
-                      onRetry={() => void report.mutate()}
-                    />
-                  ) : report.data === undefined ? (
-                    <Skeleton active paragraph={{ rows: 1 }} />
-                  ) : report.data === null ? (
-                    'No report has been drafted for this visit yet.'
-                  ) : reportPanel !== undefined ? (
-                    blinded ? (
-                      'Sign-off opens once you have recorded your decision: reports are signed unblinded.'
+                <LoadedCard
+                  title="Report"
+                  label="Report"
+                  read={report}
+                  failed="The report could not be loaded"
+                  rows={1}
+                >
+                  {(visitReport) =>
+                    visitReport === null ? (
+                      'No report has been drafted for this visit yet.'
+                    ) : reportPanel !== undefined ? (
+                      blinded ? (
+                        'Sign-off opens once you have recorded your decision: reports are signed unblinded.'
+                      ) : (
+                        reportPanel(visitId, flag.data)
+                      )
                     ) : (
-                      reportPanel(visitId, flag.data)
+                      <span>
+                        <Tag>{visitReport.state}</Tag> The visit report is a {visitReport.state};
+                        sign-off comes with the report screen.
+                      </span>
                     )
-                  ) : (
-                    <span>
-                      <Tag>{report.data.state}</Tag> The visit report is a {report.data.state};
-                      sign-off comes with the report screen.
-                    </span>
-                  )}
-                </Card>
+                  }
+                </LoadedCard>
               </Flex>
             </Col>
           </Row>
@@ -550,6 +437,6 @@ export function ReviewPage({
           }}
         />
       )}
-    </>
+    </VisitTimeProvider>
   );
 }

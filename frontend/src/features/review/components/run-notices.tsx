@@ -7,7 +7,7 @@ import { REST_CHANGED_NOTICE } from './run-words';
 /** A notice's button, under its words (beside them, long words would be squeezed on a phone). */
 function NoticeAction({ label, onClick }: { label: string; onClick: () => void }) {
   return (
-    <div style={{ marginTop: 8 }}>
+    <div className="gyre-above-xs">
       <Button size="small" onClick={onClick}>
         {label}
       </Button>
@@ -36,7 +36,7 @@ export function RunNotices({
   const { run } = results;
   const usage = run.roiUsage;
   return (
-    <Flex vertical gap={8} style={{ marginBottom: 12 }}>
+    <Flex vertical gap={8} className="gyre-below-sm">
       {usage.status === 'none' && (
         <Alert
           type="warning"
@@ -76,7 +76,7 @@ export function RunNotices({
           title="Computed with older settings: the current ones would compute this differently."
           description={
             <>
-              <ul style={{ margin: 0, paddingLeft: 18 }} className="gyre-figures">
+              <ul className="gyre-compact-list gyre-figures">
                 {run.staleSettings.map((phrase) => (
                   <li key={phrase}>{phrase}</li>
                 ))}

@@ -1,10 +1,11 @@
 import type { AnalysisRunView } from '@gyre/shared';
 import { Descriptions, Tag, Typography } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
-import { formatDateTime, formatHz, formatHzRange, formatPValue } from '../../../lib/format';
+import { formatHz, formatHzRange, formatPValue } from '../../../lib/format';
 import { NO_ROI_CHANNEL_REMAINS } from '../../../lib/roi-usage';
 import { formatCi } from './channel-table';
 import { TRIGGER_WORDS } from './run-words';
+import { useVisitTime } from './visit-time';
 
 const BAND_SOURCE: Record<AnalysisRunView['bandSource'], string> = {
   settings: 'study setting',
@@ -25,7 +26,7 @@ function RoiDeltaF({ run }: { run: AnalysisRunView }) {
     <span data-testid="roi-delta-f">
       {formatHz(run.roiDeltaFHz)}
       {run.roiUsage.status === 'partial' && (
-        <Tag color={GYRE_COLORS.amberText} style={{ marginLeft: 8 }}>
+        <Tag color={GYRE_COLORS.amberText} className="gyre-review-beside">
           from {run.roiUsage.used.join(', ')} only
         </Tag>
       )}
@@ -35,6 +36,7 @@ function RoiDeltaF({ run }: { run: AnalysisRunView }) {
 
 /** The headline numbers of a run, and the settings they were computed with. */
 export function RunSummary({ run }: { run: AnalysisRunView }) {
+  const visitTime = useVisitTime();
   const band = `${formatHzRange(run.bandHz)} (${BAND_SOURCE[run.bandSource]})`;
   const items =
     run.kind === 'task'
@@ -76,7 +78,7 @@ export function RunSummary({ run }: { run: AnalysisRunView }) {
         {
           key: 'computed',
           label: 'Computed',
-          children: `${formatDateTime(run.createdAt)}, ${TRIGGER_WORDS[run.trigger]}`,
+          children: `${visitTime(run.createdAt)}, ${TRIGGER_WORDS[run.trigger]}`,
         },
       ]}
     />

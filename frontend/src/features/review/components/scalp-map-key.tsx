@@ -26,10 +26,7 @@ export function ScalpColourBar({
   const [low, high] = scale.domainHz;
   const title = `${SCALP_MEASURE_NAMES[measure]}, Hz`;
   return (
-    <figure
-      style={{ margin: 0, width: '100%', maxWidth: 320 }}
-      aria-label={`Colour scale: ${title}`}
-    >
+    <figure className="gyre-scalp-scale" aria-label={`Colour scale: ${title}`}>
       <div
         aria-hidden="true"
         style={{
@@ -39,7 +36,7 @@ export function ScalpColourBar({
           background: `linear-gradient(to right, ${gradient})`,
         }}
       />
-      <div style={{ position: 'relative', height: 18 }} className="gyre-figures">
+      <div className="gyre-scalp-scale-ticks gyre-figures">
         {scale.ticks.map((tick) => {
           const at = ((tick.value - low) / (high - low)) * 100;
           return (
@@ -59,7 +56,7 @@ export function ScalpColourBar({
           );
         })}
       </div>
-      <figcaption style={{ fontSize: 12 }}>{title}</figcaption>
+      <figcaption className="gyre-caption">{title}</figcaption>
     </figure>
   );
 }
@@ -67,7 +64,7 @@ export function ScalpColourBar({
 function Symbol({ mark }: { mark: ScalpMarkLine['mark'] }) {
   const arm = 3.5;
   return (
-    <svg aria-hidden="true" width={14} height={14} viewBox="-7 -7 14 14" style={{ flex: 'none' }}>
+    <svg aria-hidden="true" width={14} height={14} viewBox="-7 -7 14 14" className="gyre-no-shrink">
       {mark === 'no-value' && (
         <circle r={5.5} fill={GYRE_COLORS.line} stroke={GYRE_COLORS.inkMuted} />
       )}
@@ -92,15 +89,15 @@ export function ScalpMarksKey({ map }: { map: ScalpMapModel }) {
   const { lines, unplaced } = scalpMarkLines(map, omissionWords);
   if (lines.length === 0 && unplaced === null) return null;
   return (
-    <Flex vertical gap={4} style={{ fontSize: 13 }} data-testid="scalp-marks">
+    <Flex vertical gap={4} className="gyre-review-small" data-testid="scalp-marks">
       {lines.map((line) => (
         <Flex key={line.mark} gap={6} align="center" wrap={false}>
           <Symbol mark={line.mark} />
-          <span style={{ overflowWrap: 'anywhere' }}>{line.text}</span>
+          <span className="gyre-wrap-anywhere">{line.text}</span>
         </Flex>
       ))}
       {unplaced !== null && (
-        <Typography.Text type="secondary" style={{ overflowWrap: 'anywhere' }}>
+        <Typography.Text type="secondary" className="gyre-wrap-anywhere">
           {unplaced}
         </Typography.Text>
       )}

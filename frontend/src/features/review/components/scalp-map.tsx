@@ -99,7 +99,7 @@ export function ScalpMapPanel({
   }
   const pickedChannel = map.channels.find((c) => c.name === picked) ?? null;
   return (
-    <Flex vertical gap={12} style={{ position: 'relative' }}>
+    <Flex vertical gap={12} className="gyre-scalp-maps">
       {maps.length > 1 && (
         <Segmented<ScalpMapMeasure>
           aria-label="Value on the map"

@@ -1,10 +1,10 @@
 import type { RecordingView, RecordingKind, RecordingResultsView } from '@gyre/shared';
 import { Flex, Typography } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
-import { formatDateTime } from '../../../lib/format';
 import { roiUsageSentence } from '../../../lib/roi-usage';
 import { depthSettingsWords, TRIGGER_WORDS } from './run-words';
 import { useShownResults } from './shown-results';
+import { useVisitTime, useVisitTimesBlinded } from './visit-time';
 
 const KIND_NAMES: Record<RecordingKind, string> = { task: 'task', resting: 'resting' };
 const OTHER_KIND: Record<RecordingKind, RecordingKind> = { task: 'resting', resting: 'task' };
@@ -25,6 +25,7 @@ function Replaced({
   reason: string | null;
   all: RecordingView[];
 }) {
+  const visitTime = useVisitTime();
   if (replacesId === null) return null;
   const earlier = all.find((r) => r.id === replacesId) ?? null;
   return (
@@ -33,7 +34,7 @@ function Replaced({
       {earlier !== null && (
         <>
           {' '}
-          uploaded <span className="gyre-figures">{formatDateTime(earlier.createdAt)}</span>
+          uploaded <span className="gyre-figures">{visitTime(earlier.createdAt)}</span>
         </>
       )}
       , now superseded{reason ? <>: “{reason}”</> : '.'}
@@ -51,6 +52,9 @@ function SourceLine({
   all: RecordingView[];
 }) {
   const { showable, results } = useShownResults(recording);
+  const visitTime = useVisitTime();
+  // "+5 min after first upload" needs a comma before "after upload".
+  const afterTime = useVisitTimesBlinded() ? ', ' : ' ';
   const label = kind === 'task' ? 'Task' : 'Resting';
   if (recording === null) {
     return (
@@ -71,11 +75,10 @@ function SourceLine({
         <div>
           <Typography.Text strong>{label}: </Typography.Text>
           the recording uploaded{' '}
-          <span className="gyre-figures">
-            {formatDateTime(data.source.uploadedAt)}
-          </span> (SHA-256{' '}
+          <span className="gyre-figures">{visitTime(data.source.uploadedAt)}</span> (SHA-256{' '}
           <span className="gyre-figures">{data.source.checksumSha256.slice(0, 12)}…</span>),
-          computed <span className="gyre-figures">{formatDateTime(data.run.createdAt)}</span>{' '}
+          computed <span className="gyre-figures">{visitTime(data.run.createdAt)}</span>
+          {afterTime}
           {TRIGGER_WORDS[data.run.trigger]}, settings version {data.run.settingsVersion}
           {data.run.overrideRevision !== null &&
             ` with this visit's own choices (revision ${data.run.overrideRevision})`}

@@ -11,7 +11,7 @@ import type {
   VisitReviewStateView,
 } from '@gyre/shared';
 import { SIGNATURE_MEANING } from '@gyre/shared';
-import { http, HttpResponse } from 'msw';
+import { http, HttpResponse, type JsonBodyType } from 'msw';
 import { STUDY } from '../../../test/fixtures';
 import { server } from '../../../test/msw-server';
 import {
@@ -45,6 +45,19 @@ export interface ReviewServed {
   review?: VisitReviewStateView | null;
   /** The visit's blinded-review state (default: not blinded). */
   blinding?: VisitBlindingView;
+  /**
+   * Asked on each request for recordings and results: true answers as the server does for an
+   * analyst the visit is blinded for, with the times counted from the first upload.
+   */
+  timesBlinded?: () => boolean;
+}
+
+/**
+ * An answer with its times as blinded review sends them: counted from the visit's first upload
+ * (the fixtures' uploads are at 10:00 on 3 Feb 2025, the runs computed at 10:05).
+ */
+function withBlindedTimes<T>(view: T): T {
+  return JSON.parse(JSON.stringify(view).replaceAll('2025-02-03T10:', '1970-01-01T00:')) as T;
 }
 
 /** The caller sees the visit as it is (blinded review off). */
@@ -59,6 +72,8 @@ export const NOT_BLINDED: VisitBlindingView = {
 /** Every request the Review screen makes for one visit, answered from the fixtures. */
 export function serveReview(served: ReviewServed = {}) {
   const recordings = served.recordings ?? RECORDINGS;
+  const answer = <T extends JsonBodyType>(view: T) =>
+    HttpResponse.json(served.timesBlinded?.() === true ? withBlindedTimes(view) : view);
   if (served.raster !== null) {
     server.use(
       http.get('/api/recordings/rec-task/results/raster', () =>
@@ -88,16 +103,9 @@ export function serveReview(served: ReviewServed = {}) {
       if (new URL(request.url).searchParams.get('visitId') !== VISIT.id) {
         return HttpResponse.json({ message: 'another visit' }, { status: 400 });
       }
-      return HttpResponse.json({
-        items: recordings,
-        total: recordings.length,
-        page: 1,
-        pageSize: 200,
-      });
+      return answer({ items: recordings, total: recordings.length, page: 1, pageSize: 200 });
     }),
-    http.get('/api/recordings/rec-task/results', () =>
-      HttpResponse.json(served.task ?? TASK_RESULTS),
-    ),
+    http.get('/api/recordings/rec-task/results', () => answer(served.task ?? TASK_RESULTS)),
     http.get('/api/recordings/rec-task/results/curves', ({ request }) => {
       const channel = new URL(request.url).searchParams.get('channel') ?? '';
       const curve = (served.curves ?? CHANNEL_CURVES)[channel];
@@ -112,9 +120,7 @@ export function serveReview(served: ReviewServed = {}) {
           )
         : HttpResponse.json(curve);
     }),
-    http.get('/api/recordings/rec-resting/results', () =>
-      HttpResponse.json(served.rest ?? REST_RESULTS),
-    ),
+    http.get('/api/recordings/rec-resting/results', () => answer(served.rest ?? REST_RESULTS)),
     http.get(`/api/studies/${STUDY.id}/analysis-settings`, () =>
       HttpResponse.json(served.settings ?? SETTINGS),
     ),
