@@ -1,6 +1,7 @@
 import { Alert, Button, Skeleton } from 'antd';
 import { Outlet, useNavigation, useRouteError } from 'react-router-dom';
 import { GYRE_COLORS } from './theme';
+import '../components/app-frame.css';
 
 /**
  * The root of every route: the screen, and a thin bar at the top of the window while the
@@ -27,13 +28,10 @@ export function FirstScreenLoading() {
   return (
     <div role="status" aria-busy="true" aria-label="Opening Gyre" className="gyre-full-height">
       <div
-        style={{
-          height: 60,
-          background: GYRE_COLORS.paper,
-          borderBottom: `1px solid ${GYRE_COLORS.line}`,
-        }}
+        className="gyre-frame-outline-header"
+        style={{ background: GYRE_COLORS.paper, borderBottom: `1px solid ${GYRE_COLORS.line}` }}
       />
-      <div style={{ maxWidth: 1440, margin: '0 auto', padding: '28px 32px' }}>
+      <div className="gyre-frame-outline-main">
         <Skeleton active title paragraph={{ rows: 6 }} />
       </div>
     </div>
@@ -49,17 +47,17 @@ export function RouteError() {
   const error = useRouteError();
   const detail = error instanceof Error ? error.message : null;
   return (
-    <div style={{ maxWidth: 640, margin: '64px auto', padding: '0 16px' }}>
+    <div className="gyre-route-error">
       <Alert
         type="error"
         showIcon
         title="Gyre could not open this screen"
         description={
           <>
-            <p style={{ marginTop: 0 }}>
+            <p className="gyre-flush-top">
               Reload the page to try again. If it keeps happening, tell your administrator.
             </p>
-            {detail === null ? null : <p style={{ marginBottom: 0 }}>{detail}</p>}
+            {detail === null ? null : <p className="gyre-flush-bottom">{detail}</p>}
           </>
         }
         action={

@@ -1,11 +1,11 @@
-import { Button, Drawer, Grid, Layout, Menu } from 'antd';
+import { Button, Drawer, Flex, Grid, Layout, Menu } from 'antd';
 import type { MenuProps } from 'antd';
 import { useState } from 'react';
 import { Link, Outlet, useLocation } from 'react-router-dom';
 import { GyreMark } from './gyre-mark';
 import { MenuGlyph } from './state-icons';
 import { paths } from '../app/paths';
-import { GYRE_COLORS } from '../app/theme';
+import './app-frame.css';
 
 export interface NavItem {
   path: string;
@@ -46,19 +46,11 @@ export function AppFrame({
     label: <Link to={item.path}>{item.label}</Link>,
   }));
   return (
-    <Layout className="gyre-full-height">
+    <Layout className={wide ? 'gyre-full-height' : 'gyre-full-height gyre-frame-narrow'}>
       <a href={`#${MAIN_ID}`} className="gyre-skip-link" onClick={skipToMain}>
         Skip to main content
       </a>
-      <Layout.Header
-        style={{
-          display: 'flex',
-          alignItems: 'center',
-          gap: wide ? 24 : 8,
-          borderBottom: `1px solid ${GYRE_COLORS.line}`,
-          ...(wide ? {} : { padding: '0 12px' }),
-        }}
-      >
+      <Layout.Header className="gyre-frame-header">
         {!wide && (
           <Button
             type="text"
@@ -74,21 +66,13 @@ export function AppFrame({
           <span className="gyre-brand-name">Gyre</span>
         </Link>
         {wide && (
-          <nav aria-label="Main" style={{ flex: 1, minWidth: 0 }}>
+          <nav aria-label="Main" className="gyre-frame-nav">
             <Menu mode="horizontal" selectedKeys={selected} items={items} style={{ border: 0 }} />
           </nav>
         )}
-        <div
-          style={{
-            marginLeft: 'auto',
-            minWidth: 0,
-            display: 'flex',
-            justifyContent: 'flex-end',
-            ...(wide ? {} : { flex: '1 1 0' }),
-          }}
-        >
+        <Flex justify="flex-end" className="gyre-frame-aside">
           {aside}
-        </div>
+        </Flex>
       </Layout.Header>
       {!wide && (
         <Drawer
@@ -110,18 +94,7 @@ export function AppFrame({
           </nav>
         </Drawer>
       )}
-      <Layout.Content
-        id={MAIN_ID}
-        tabIndex={-1}
-        style={{
-          padding: wide ? '28px 32px' : '16px 12px',
-          maxWidth: 1440,
-          width: '100%',
-          minWidth: 0,
-          margin: '0 auto',
-          outline: 'none',
-        }}
-      >
+      <Layout.Content id={MAIN_ID} tabIndex={-1} className="gyre-frame-main">
         <Outlet />
       </Layout.Content>
     </Layout>

@@ -3,7 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { MemoryRouter } from 'react-router-dom';
 import { describe, expect, it, vi } from 'vitest';
 import { ApiError } from '../lib/api-client';
-import { ErrorState, isRetryable } from './page-states';
+import { ErrorState, isRetryable, pendingState } from './page-states';
 
 const show = (error: unknown, onRetry = vi.fn()) => {
   render(
@@ -81,5 +81,38 @@ describe('page states: which failures offer "Try again"', () => {
     show(new ApiError(502, 'BAD_GATEWAY', 'The server failed.'));
     expect(screen.getByRole('button', { name: 'Try again' })).toBeInTheDocument();
     expect(screen.getByText('The visit could not be loaded')).toBeInTheDocument();
+  });
+});
+
+describe('pendingState: what a screen shows before its read has arrived', () => {
+  const words = {
+    errorTitle: 'The settings could not be loaded',
+    loadingLabel: 'Loading the settings',
+  };
+
+  it('shows the failure with "Try again", which asks again', async () => {
+    const mutate = vi.fn(() => Promise.resolve());
+    render(<>{pendingState({ error: new ApiError(503, 'BUSY', 'Busy.'), mutate }, words)}</>);
+    expect(screen.getByText('The settings could not be loaded')).toBeInTheDocument();
+    await userEvent.click(screen.getByRole('button', { name: 'Try again' }));
+    expect(mutate).toHaveBeenCalledTimes(1);
+  });
+
+  it('shows the failure before stale data kept from an earlier answer', () => {
+    const read = {
+      data: { version: 1 },
+      error: new ApiError(503, 'BUSY', 'Busy.'),
+      mutate: vi.fn(),
+    };
+    render(<>{pendingState(read, words)}</>);
+    expect(screen.getByText('The settings could not be loaded')).toBeInTheDocument();
+  });
+
+  it('shows the outline while nothing has arrived, and nothing once the data is there', () => {
+    const { rerender } = render(<>{pendingState({ mutate: vi.fn() }, words)}</>);
+    expect(screen.getByLabelText('Loading the settings')).toHaveAttribute('aria-busy', 'true');
+    expect(pendingState({ data: { version: 1 }, mutate: vi.fn() }, words)).toBeNull();
+    rerender(<>{pendingState({ data: null, mutate: vi.fn() }, words)}</>);
+    expect(screen.queryByLabelText('Loading the settings')).not.toBeInTheDocument();
   });
 });

@@ -13,6 +13,28 @@ export function LoadingState({ rows = 6, label = 'Loading' }: { rows?: number; l
   );
 }
 
+/** A read as SWR answers it, for `pendingState`. */
+interface PendingRead {
+  data?: unknown;
+  error?: unknown;
+  mutate: () => Promise<unknown>;
+}
+
+/**
+ * What a screen shows in place of a read that has not arrived: its failure (with "Try again"
+ * where that can help) or its outline; null once the data is there.
+ */
+export function pendingState(
+  read: PendingRead,
+  { errorTitle, loadingLabel, rows }: { errorTitle: string; loadingLabel: string; rows?: number },
+): React.ReactNode {
+  if (read.error !== undefined) {
+    return <ErrorState title={errorTitle} error={read.error} onRetry={() => void read.mutate()} />;
+  }
+  if (read.data === undefined) return <LoadingState label={loadingLabel} rows={rows} />;
+  return null;
+}
+
 /** Grey rows inside a table while its first page loads (instead of "nothing here"). */
 export function TableSkeleton() {
   return (

@@ -3,6 +3,7 @@ import { useEffect, useRef, useState } from 'react';
 import { GYRE_COLORS } from '../../app/theme';
 import { rampCssGradient, rampRgb } from './frequency-colour-scale';
 import { xTickCount } from './plot-spec';
+import './charts.css';
 
 export interface HeatmapMatrix {
   /** Row-major values, `rows × columns` long; NaN where there is no value. */
@@ -127,7 +128,7 @@ export function HeatmapCanvas({
         <svg
           width={widthPx}
           height={heightPx}
-          style={{ position: 'absolute', left: 0, top: 0, overflow: 'visible' }}
+          className="gyre-heatmap-axes"
           aria-hidden="true"
           fontFamily="'IBM Plex Sans', system-ui, sans-serif"
           fontSize={12}
@@ -177,12 +178,13 @@ export function HeatmapCanvas({
         aria-label={`${legendTitle} colour legend`}
         style={{ marginLeft: MARGIN.left, marginRight: MARGIN.right, marginTop: 4, maxWidth: 360 }}
       >
-        <div style={{ fontSize: 12, marginBottom: 4 }}>{legendTitle}</div>
+        <div className="gyre-heatmap-legend-title">{legendTitle}</div>
         <div
-          style={{ height: 12, borderRadius: 2, background: rampCssGradient() }}
+          className="gyre-heatmap-ramp"
+          style={{ background: rampCssGradient() }}
           aria-hidden="true"
         />
-        <div className="gyre-figures" style={{ position: 'relative', height: 18, fontSize: 12 }}>
+        <div className="gyre-figures gyre-heatmap-legend-ticks">
           {legendTicks.map((t) => {
             const at = (t.value - colourDomain[0]) / legendSpan;
             // End labels align inwards so that none spills past the bar.
@@ -190,13 +192,8 @@ export function HeatmapCanvas({
             return (
               <span
                 key={t.value}
-                style={{
-                  position: 'absolute',
-                  left: `${at * 100}%`,
-                  transform: `translateX(${shift})`,
-                  top: 2,
-                  whiteSpace: 'nowrap',
-                }}
+                className="gyre-heatmap-legend-tick"
+                style={{ left: `${at * 100}%`, transform: `translateX(${shift})` }}
               >
                 {`${t.label}${UNIT_SPACE}${legendUnit}`}
               </span>

@@ -1,6 +1,7 @@
 import { Skeleton } from 'antd';
 import { lazy, Suspense, useEffect, useMemo, useRef, useState } from 'react';
 import type { PlotSpec } from './plot-spec';
+import './charts.css';
 
 const G2Plot = lazy(() => import('./g2-plot'));
 
@@ -51,7 +52,7 @@ export function PlotFigure({
   const [frameRef, widthPx] = useMeasuredWidth();
   const built = useMemo(() => (typeof spec === 'function' ? spec(widthPx) : spec), [spec, widthPx]);
   return (
-    <figure aria-label={label} style={{ margin: 0, minWidth: 0, maxWidth: '100%' }}>
+    <figure aria-label={label} className="gyre-plot-figure">
       <div
         ref={frameRef}
         style={{ height: heightPx, width: '100%', minWidth: 0, overflow: 'hidden' }}
@@ -68,9 +69,7 @@ export function PlotFigure({
         </Suspense>
       </div>
       {caption === undefined ? null : (
-        <figcaption style={{ marginTop: 8, color: 'rgba(29,43,47,0.72)', fontSize: 13 }}>
-          {caption}
-        </figcaption>
+        <figcaption className="gyre-plot-caption">{caption}</figcaption>
       )}
     </figure>
   );

@@ -4,7 +4,7 @@ import { navEntriesFor } from '../../app/navigation';
 import { useAppAbility } from '../../lib/session/ability';
 import { useSession } from '../../lib/session/session-context';
 import { Worklist } from './components/worklist';
-import { GYRE_COLORS } from '../../app/theme';
+import './home.css';
 
 const WHAT_EACH_SCREEN_IS_FOR: Record<string, string> = {
   Intake: 'Register visits and upload resting and task recordings; follow their checks.',
@@ -33,33 +33,33 @@ export function HomePage({ notices }: { notices?: React.ReactNode }) {
   const hasWorklist = ability.can('read', 'Worklist');
   return (
     <>
-      <Typography.Title level={2} style={{ marginTop: 0 }}>
+      <Typography.Title level={2} className="gyre-flush-top">
         Welcome, {me.user.name}
       </Typography.Title>
-      <Typography.Paragraph type="secondary" style={{ maxWidth: 720 }}>
+      <Typography.Paragraph type="secondary" className="gyre-home-intro">
         Gyre follows each participant&apos;s alpha rhythm from visit to visit: the individual alpha
         frequency at rest, and whether the rhythm slows after stimulus onset in the task.
         {me.study !== null && ` You work in ${me.study.name} (${me.study.code}).`}
       </Typography.Paragraph>
       {notices}
       {hasWorklist && (
-        <div style={{ marginBottom: 24 }}>
+        <div className="gyre-below-lg">
           <Worklist />
         </div>
       )}
       {hasWorklist && (
-        <Typography.Title level={4} style={{ marginTop: 0 }}>
+        <Typography.Title level={4} className="gyre-flush-top">
           Your screens
         </Typography.Title>
       )}
       <Row gutter={[16, 16]}>
         {entries.map((entry) => (
           <Col key={entry.path} xs={24} md={12} xl={8}>
-            <Link to={entry.path} style={{ display: 'block', height: '100%' }}>
-              <Card hoverable size={hasWorklist ? 'small' : 'medium'} style={{ height: '100%' }}>
+            <Link to={entry.path} className="gyre-block gyre-fill-height">
+              <Card hoverable size={hasWorklist ? 'small' : 'medium'} className="gyre-fill-height">
                 <Typography.Title
                   level={hasWorklist ? 5 : 4}
-                  style={{ marginTop: 0, color: GYRE_COLORS.primary }}
+                  className="gyre-flush-top gyre-screen-card-title"
                 >
                   {entry.label}
                 </Typography.Title>

@@ -19,8 +19,9 @@ import { BlindedReviewNotice } from '../../../components/blinded-review-notice';
 import { ErrorState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { VisitWindowTag } from '../../../components/visit-window-tag';
-import { formatDate, formatDateTime } from '../../../lib/format';
+import { formatAfterFirstUpload, formatDate, formatDateTime } from '../../../lib/format';
 import { useWorklist } from '../api/get-worklist';
+import '../home.css';
 
 /** Items a section card shows per page. */
 export const WORKLIST_PAGE = 8;
@@ -46,10 +47,10 @@ export function linkOf(item: WorklistItem): string {
 function ItemRow({ item }: { item: WorklistItem }) {
   const sinceIsDay = item.since.length === 10;
   return (
-    <li style={{ padding: '8px 0', borderBottom: `1px solid ${GYRE_COLORS.line}` }}>
-      <Flex vertical gap={2} style={{ minWidth: 0 }}>
+    <li className="gyre-worklist-item">
+      <Flex vertical gap={2} className="gyre-shrinkable">
         <Flex wrap gap={8} justify="space-between" align="baseline">
-          <Link to={linkOf(item)} style={{ fontWeight: 600 }}>
+          <Link to={linkOf(item)} className="gyre-worklist-link">
             {item.blindCode !== null
               ? `Visit ${item.blindCode}`
               : `${item.participantCode ?? ''} · ${item.visitLabel}`}
@@ -57,10 +58,12 @@ function ItemRow({ item }: { item: WorklistItem }) {
           <Typography.Text
             type="secondary"
             className="gyre-figures gyre-caption"
-            title={sinceIsDay ? undefined : formatDateTime(item.since)}
+            title={sinceIsDay || item.blindCode !== null ? undefined : formatDateTime(item.since)}
           >
-            {sinceIsDay ? 'visit of ' : 'since '}
-            {formatDate(item.since)}
+            {/* Blinded review: the server counts a blinded visit's time from its first upload. */}
+            {item.blindCode !== null
+              ? formatAfterFirstUpload(item.since)
+              : `${sinceIsDay ? 'visit of' : 'since'} ${formatDate(item.since)}`}
           </Typography.Text>
         </Flex>
         <Flex wrap gap={8} align="baseline">
@@ -69,9 +72,7 @@ function ItemRow({ item }: { item: WorklistItem }) {
           ) : (
             <Tag>Blinded</Tag>
           )}
-          <Typography.Text style={{ overflowWrap: 'anywhere', flex: '1 1 12em', minWidth: 0 }}>
-            {item.what}
-          </Typography.Text>
+          <Typography.Text className="gyre-worklist-what">{item.what}</Typography.Text>
         </Flex>
       </Flex>
     </li>
@@ -109,7 +110,7 @@ function SectionCard({ section, sort }: { section: WorklistSection; sort: Workli
           />
         </Flex>
       }
-      style={{ height: '100%' }}
+      className="gyre-fill-height"
     >
       {section.total === 0 ? (
         <Typography.Text type="secondary">Nothing waits here.</Typography.Text>
@@ -123,7 +124,7 @@ function SectionCard({ section, sort }: { section: WorklistSection; sort: Workli
         <Skeleton active paragraph={{ rows: 3 }} />
       ) : (
         <>
-          <ul style={{ listStyle: 'none', margin: 0, padding: 0 }}>
+          <ul className="gyre-bare-list">
             {shown.items.map((item) => (
               <ItemRow key={item.key} item={item} />
             ))}
@@ -137,7 +138,7 @@ function SectionCard({ section, sort }: { section: WorklistSection; sort: Workli
               pageSize={WORKLIST_PAGE}
               total={shown.total}
               onChange={setPage}
-              style={{ marginTop: 8 }}
+              className="gyre-above-xs"
             />
           )}
         </>
@@ -169,8 +170,8 @@ export function Worklist() {
   return (
     <section aria-label="Worklist">
       {data?.kind === 'review' && <ResearchCaution />}
-      <Flex wrap gap={12} justify="space-between" align="center" style={{ marginBottom: 12 }}>
-        <Typography.Title level={3} style={{ margin: 0 }}>
+      <Flex wrap gap={12} justify="space-between" align="center" className="gyre-below-sm">
+        <Typography.Title level={3} className="gyre-flush">
           {data?.kind === 'uploads' ? 'Uploads that need attention' : 'Worklist'}
         </Typography.Title>
         <Segmented<WorklistSort>

@@ -12,7 +12,7 @@ import { ApiError } from '../../../lib/api-client';
 import { KIND_TAKEN, KIND_UNCONFIRMED, useUploadRecording } from '../api/upload-recording';
 import { rejectionFromDetails } from './rejection-text';
 import { UploadItemView, type UploadItem } from './upload-item';
-import { GYRE_COLORS } from '../../../app/theme';
+import '../intake.css';
 
 const EDF_NAME = /\.(edf|bdf|rec)$/i;
 const CSV_NAME = /\.csv$/i;
@@ -253,8 +253,8 @@ export function RecordingDropzone({
         customRequest={customRequest}
         aria-label={`Drop ${kind} EDF or BDF files here or press Enter to choose them`}
       >
-        <div style={{ padding: '12px 0' }}>
-          <Typography.Title level={4} style={{ margin: 0, color: GYRE_COLORS.primary }}>
+        <div className="gyre-dropzone-prompt">
+          <Typography.Title level={4} className="gyre-dropzone-title">
             Drop {kind === 'resting' ? 'resting' : 'task'} EDF, EDF+, BDF or BDF+ files here
           </Typography.Title>
           <Typography.Text type="secondary">

@@ -123,7 +123,8 @@ describe('Intake recordings', { timeout: 60_000 }, () => {
         .map((li) => li.textContent),
     ).toEqual(['Region of interest from O1, Pz only; left out O2 (flat).', CONFIRMED]);
     expect(warned).toBeVisible();
-    expect(warned).toHaveStyle({ color: GYRE_COLORS.amber });
+    // The amber comes from this class (features/intake/intake.css: the theme's colorWarning).
+    expect(warned).toHaveClass('gyre-warning-list');
     expect(
       screen.getByRole('list', { name: 'Warnings about the task recording' }),
     ).toHaveTextContent(

@@ -14,6 +14,7 @@ import { recordingNotes } from './recording-notes';
 import { RecordingStateTag } from './recording-state-tag';
 import { RejectionText } from './rejection-text';
 import { dateTimeColumn } from '../../../components/table-columns';
+import '../intake.css';
 
 /** States whose stored file can be downloaded (a rejected file is not kept). */
 const DOWNLOADABLE: ReadonlySet<RecordingView['state']> = new Set([
@@ -60,10 +61,7 @@ function Notes({ recording }: { recording: RecordingView }) {
   const notes = recordingNotes(recording);
   if (notes.length === 0) return null;
   return (
-    <ul
-      aria-label={`Warnings about the ${recording.kind} recording`}
-      style={{ margin: '4px 0 0', paddingLeft: 18, color: GYRE_COLORS.amber }}
-    >
+    <ul aria-label={`Warnings about the ${recording.kind} recording`} className="gyre-warning-list">
       {notes.map((note) => (
         <li key={note}>{note}</li>
       ))}

@@ -1,6 +1,7 @@
 import type { RecordingRejection } from '@gyre/shared';
 import { Typography } from 'antd';
 import { rejectionAdvice } from './rejection-advice';
+import '../intake.css';
 
 /**
  * Why a file was refused, in plain words with what to do, then the server's exact words: its
@@ -26,7 +27,7 @@ export function RejectionText({
       <Typography.Text strong className="gyre-inherit-colour">
         {advice.action}
       </Typography.Text>
-      <details style={{ marginTop: 4, fontSize: 12 }}>
+      <details className="gyre-check-details">
         <summary>
           <Typography.Text type="secondary" className="gyre-caption">
             Details from the file check

@@ -7,13 +7,13 @@ import type {
 } from '@gyre/shared';
 import { Alert, Button, Checkbox, Flex, Form, Input, Progress, Typography } from 'antd';
 import { useState } from 'react';
-import { GYRE_COLORS } from '../../../app/theme';
 import { formatBytes, formatDateTime } from '../../../lib/format';
 import { useRecordings } from '../api/recordings';
 import { KIND_LABELS } from './kind-labels';
 import { recordingNotes } from './recording-notes';
 import { RecordingStateTag } from './recording-state-tag';
 import { RejectionText } from './rejection-text';
+import '../intake.css';
 
 export const REPLACEMENT_REASON_MIN_LENGTH = 10;
 
@@ -66,9 +66,9 @@ function KindMismatch({ item, onResend }: { item: UploadItem; onResend: Resend }
   if (mismatch === undefined) return null;
   const other = otherKind(item.kind);
   return (
-    <section aria-label={`Kind of ${item.name}`} style={{ marginTop: 6 }}>
+    <section aria-label={`Kind of ${item.name}`} className="gyre-upload-followup">
       <div role="alert">
-        <Typography.Text strong style={{ color: GYRE_COLORS.amber }}>
+        <Typography.Text strong className="gyre-warning-text">
           Not kept yet: this file looks like a {lower(other)} recording.{' '}
         </Typography.Text>
         <Typography.Text>{plainSentence(item.message ?? '')}</Typography.Text>
@@ -131,9 +131,12 @@ function KindTaken({
   if (taken === undefined) return null;
   const earlier = recordings.data?.items.find((r) => r.id === taken.recordingId) ?? null;
   return (
-    <section aria-label={`Replace the ${lower(taken.kind)} recording`} style={{ marginTop: 6 }}>
+    <section
+      aria-label={`Replace the ${lower(taken.kind)} recording`}
+      className="gyre-upload-followup"
+    >
       <div role="alert">
-        <Typography.Text strong style={{ color: GYRE_COLORS.amber }}>
+        <Typography.Text strong className="gyre-warning-text">
           Not sent on: this visit already has a {lower(taken.kind)} recording
           {earlier !== null && <>, uploaded {formatDateTime(earlier.createdAt)}</>}.{' '}
         </Typography.Text>
@@ -231,10 +234,7 @@ function AcceptedState({ item, recording }: { item: UploadItem; recording?: Reco
       )}
       {now !== null && <div>{now}</div>}
       {notes.length > 0 && (
-        <ul
-          aria-label={`Warnings about ${item.name}`}
-          style={{ margin: '4px 0 0', paddingLeft: 18, color: GYRE_COLORS.amber }}
-        >
+        <ul aria-label={`Warnings about ${item.name}`} className="gyre-warning-list">
           {notes.map((note) => (
             <li key={note}>{note}</li>
           ))}
@@ -273,10 +273,7 @@ export function UploadItemView({
   onClear: () => void;
 }) {
   return (
-    <li
-      style={{ padding: '10px 0', borderBottom: `1px solid ${GYRE_COLORS.line}` }}
-      data-upload-status={item.status}
-    >
+    <li className="gyre-upload-item" data-upload-status={item.status}>
       <Flex justify="space-between" gap={16} wrap>
         <Typography.Text strong className="gyre-break-all">
           {item.name}
@@ -310,7 +307,7 @@ export function UploadItemView({
       {(item.status === 'rejected' || item.status === 'error') && (
         <Button
           size="small"
-          style={{ marginTop: 6 }}
+          className="gyre-upload-followup"
           aria-label={`Dismiss ${item.name}`}
           onClick={onClear}
         >
@@ -325,7 +322,7 @@ export function UploadItemView({
         <Alert
           type="info"
           showIcon
-          style={{ marginTop: 6 }}
+          className="gyre-upload-followup"
           title="Not sent; the earlier recording stays the visit's current one."
         />
       )}

@@ -5,6 +5,7 @@ import type {
   VisitView,
 } from '@gyre/shared';
 import { Button, Card, Descriptions, Space, Table, Tag, Typography } from 'antd';
+import type { TableColumnType } from 'antd';
 import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { GYRE_COLORS } from '../../../app/theme';
@@ -72,6 +73,18 @@ function valueWithChange(
 }
 
 type Series = 'pafHz' | 'cogHz' | 'deltaFHz';
+
+/** The table's three number columns: each series beside its change from the first visit. */
+const CHANGE_COLUMNS: {
+  key: string;
+  title: string;
+  series: Series;
+  change: 'pafChangeHz' | 'cogChangeHz' | 'deltaFChangeHz';
+}[] = [
+  { key: 'paf', title: 'PAF (change)', series: 'pafHz', change: 'pafChangeHz' },
+  { key: 'cog', title: 'CoG (change)', series: 'cogHz', change: 'cogChangeHz' },
+  { key: 'deltaF', title: 'Onset Δf (change)', series: 'deltaFHz', change: 'deltaFChangeHz' },
+];
 
 /** The visit each series is measured from: the first, by date, that has a value. */
 function firstWithValue(rows: VisitRow[], series: Series): string | null {
@@ -214,39 +227,17 @@ export function ParticipantPage() {
                   </Space>
                 ),
             },
-            {
-              key: 'paf',
-              title: 'PAF (change)',
+            ...CHANGE_COLUMNS.map(({ key, title, series, change }): TableColumnType<VisitRow> => ({
+              key,
+              title,
               align: 'right',
               render: (_, row) =>
                 valueWithChange(
-                  row.numbers?.pafHz,
-                  row.numbers?.pafChangeHz,
-                  first.pafHz === row.visitId,
+                  row.numbers?.[series],
+                  row.numbers?.[change],
+                  first[series] === row.visitId,
                 ),
-            },
-            {
-              key: 'cog',
-              title: 'CoG (change)',
-              align: 'right',
-              render: (_, row) =>
-                valueWithChange(
-                  row.numbers?.cogHz,
-                  row.numbers?.cogChangeHz,
-                  first.cogHz === row.visitId,
-                ),
-            },
-            {
-              key: 'deltaF',
-              title: 'Onset Δf (change)',
-              align: 'right',
-              render: (_, row) =>
-                valueWithChange(
-                  row.numbers?.deltaFHz,
-                  row.numbers?.deltaFChangeHz,
-                  first.deltaFHz === row.visitId,
-                ),
-            },
+            })),
             {
               key: 'flag',
               title: 'Slowing flag',

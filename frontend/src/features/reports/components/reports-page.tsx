@@ -16,6 +16,7 @@ import { useReportContext } from '../api/report-context';
 import { useReports } from '../api/reports';
 import { ReportStateTag } from './report-state-tag';
 import { PagedTable } from '../../../components/paged-table';
+import { usePagedList } from '../../../components/use-paged-list';
 
 const PAGE_SIZE = 20;
 
@@ -29,13 +30,9 @@ export function ReportsPage() {
   const { me } = useSession();
   const ability = useAppAbility();
   const { message } = App.useApp();
-  const [state, setState] = useState<ReportState | 'all'>('all');
-  const [page, setPage] = useState(1);
-  const { data, error, isLoading, mutate } = useReports(
-    state === 'all' ? null : state,
-    page,
-    PAGE_SIZE,
-  );
+  const list = usePagedList<ReportState | 'all'>(PAGE_SIZE, 'all');
+  const state = list.filter;
+  const reports = useReports(state === 'all' ? null : state, list.page, PAGE_SIZE);
   const context = useReportContext();
   const [downloading, setDownloading] = useState<string | null>(null);
   const seesDrafts = ability.can(
@@ -137,10 +134,7 @@ export function ReportsPage() {
         extra={
           <Segmented<ReportState | 'all'>
             value={state}
-            onChange={(value) => {
-              setState(value);
-              setPage(1);
-            }}
+            onChange={list.setFilter}
             options={options}
             aria-label="Show reports in this state"
           />
@@ -148,7 +142,7 @@ export function ReportsPage() {
       />
       <Card>
         <PagedTable<ReportView>
-          query={{ data, error, isLoading, mutate }}
+          query={reports}
           loadErrorTitle="The reports could not be loaded"
           emptyText={
             state === 'all'
@@ -156,9 +150,7 @@ export function ReportsPage() {
               : `No ${state} reports.`
           }
           columns={columns}
-          page={page}
-          pageSize={PAGE_SIZE}
-          onPageChange={setPage}
+          {...list.paging}
         />
       </Card>
     </>

@@ -7,6 +7,7 @@ import { ApiError } from '../../../lib/api-client';
 import { formatDate, formatDateTime } from '../../../lib/format';
 import { downloadRevision, useReportRevision, useReportRevisions } from '../api/report-revisions';
 import { PagedTable } from '../../../components/paged-table';
+import { usePagedList } from '../../../components/use-paged-list';
 import { GYRE_COLORS } from '../../../app/theme';
 
 const PAGE_SIZE = 20;
@@ -75,8 +76,8 @@ function LinkedRevision({ revisionId }: { revisionId: string }) {
 export function SignedReports() {
   const [params] = useSearchParams();
   const linked = params.get('revision');
-  const [page, setPage] = useState(1);
-  const { data, error, isLoading, mutate } = useReportRevisions(page, PAGE_SIZE);
+  const list = usePagedList(PAGE_SIZE);
+  const revisions = useReportRevisions(list.page, PAGE_SIZE);
   const { busy, download } = useDownload();
 
   const columns: TableColumnsType<ReportRevisionView> = [
@@ -134,13 +135,11 @@ export function SignedReports() {
       {linked !== null && <LinkedRevision revisionId={linked} />}
       <Card>
         <PagedTable<ReportRevisionView>
-          query={{ data, error, isLoading, mutate }}
+          query={revisions}
           loadErrorTitle="The signed reports could not be loaded"
           emptyText="No signed reports yet. A report appears here once an analyst signs a visit."
           columns={columns}
-          page={page}
-          pageSize={PAGE_SIZE}
-          onPageChange={setPage}
+          {...list.paging}
           rowClassName={(r) => (r.id === linked ? 'ant-table-row-selected' : '')}
         />
       </Card>

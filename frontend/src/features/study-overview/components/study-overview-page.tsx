@@ -3,7 +3,7 @@ import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { PageHeader } from '../../../components/page-header';
 import { BlindedClosedNotice, isBlindedRefusal } from '../../../components/blinded-review-notice';
-import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
+import { EmptyState, LoadingState, pendingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
@@ -97,23 +97,16 @@ export function StudyOverviewPage() {
       </>
     );
   }
-  if (overview.error !== undefined) {
+  const pending = pendingState(overview, {
+    errorTitle: 'The overview could not be loaded',
+    loadingLabel: 'Loading the overview',
+    rows: 12,
+  });
+  if (pending !== null || overview.data === undefined) {
     return (
       <>
         {header}
-        <ErrorState
-          title="The overview could not be loaded"
-          error={overview.error}
-          onRetry={() => void overview.mutate()}
-        />
-      </>
-    );
-  }
-  if (overview.data === undefined) {
-    return (
-      <>
-        {header}
-        <LoadingState label="Loading the overview" rows={12} />
+        {pending}
       </>
     );
   }

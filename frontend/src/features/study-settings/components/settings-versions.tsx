@@ -10,6 +10,7 @@ import {
 } from '../api/get-analysis-settings-versions';
 import { PersonName } from './person-name';
 import { settingChangeText } from './settings-words';
+import '../study-settings.css';
 
 function Version({
   version,
@@ -21,10 +22,7 @@ function Version({
   meId: string;
 }) {
   return (
-    <section
-      aria-label={`Version ${version.version}`}
-      style={{ padding: '12px 0', borderBottom: `1px solid ${GYRE_COLORS.line}` }}
-    >
+    <section aria-label={`Version ${version.version}`} className="gyre-settings-version">
       <Flex gap={8} wrap align="baseline">
         <Typography.Text strong>Version {version.version}</Typography.Text>
         {current && <Tag color={GYRE_COLORS.primary}>current</Tag>}
@@ -33,7 +31,7 @@ function Version({
           <PersonName userId={version.createdById} meId={meId} studyId={version.studyId} />
         </Typography.Text>
       </Flex>
-      <Typography.Paragraph style={{ margin: '4px 0' }}>
+      <Typography.Paragraph className="gyre-settings-reason">
         <q>{version.reason}</q>
       </Typography.Paragraph>
       {version.changes.length === 0 ? (
@@ -45,8 +43,7 @@ function Version({
       ) : (
         <ul
           aria-label={`Changes in version ${version.version}`}
-          className="gyre-figures"
-          style={{ margin: 0, paddingLeft: 18 }}
+          className="gyre-figures gyre-compact-list"
         >
           {version.changes.map((change) => (
             <li key={change.field}>{settingChangeText(change)}</li>
@@ -96,7 +93,7 @@ export function SettingsVersions({
       </section>
       {versions.data.total > VERSIONS_PAGE_SIZE && (
         <Pagination
-          style={{ marginTop: 12 }}
+          className="gyre-above-sm"
           current={page}
           pageSize={VERSIONS_PAGE_SIZE}
           total={versions.data.total}

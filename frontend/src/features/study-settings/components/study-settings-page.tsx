@@ -1,7 +1,7 @@
 import type { AnalysisSettingsChange } from '@gyre/shared';
 import { App, Card, Col, Row, Typography } from 'antd';
 import { PageHeader } from '../../../components/page-header';
-import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
+import { EmptyState, pendingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
@@ -50,23 +50,16 @@ export function StudySettingsPage() {
       </>
     );
   }
-  if (settings.error !== undefined) {
+  const pending = pendingState(settings, {
+    errorTitle: 'The settings could not be loaded',
+    loadingLabel: 'Loading the settings',
+    rows: 10,
+  });
+  if (pending !== null || settings.data === undefined) {
     return (
       <>
         {header}
-        <ErrorState
-          title="The settings could not be loaded"
-          error={settings.error}
-          onRetry={() => void settings.mutate()}
-        />
-      </>
-    );
-  }
-  if (settings.data === undefined) {
-    return (
-      <>
-        {header}
-        <LoadingState label="Loading the settings" rows={10} />
+        {pending}
       </>
     );
   }
@@ -88,7 +81,7 @@ export function StudySettingsPage() {
           >
             <SettingsSummary settings={current} />
           </Card>
-          <Card title="Versions" aria-label="Versions" style={{ marginTop: 20 }}>
+          <Card title="Versions" aria-label="Versions" className="gyre-above-md">
             <SettingsVersions
               studyId={studyId}
               currentVersion={current.version}
@@ -110,22 +103,22 @@ export function StudySettingsPage() {
         )}
       </Row>
       {!canChange && (
-        <Typography.Paragraph type="secondary" style={{ marginTop: 16 }}>
+        <Typography.Paragraph type="secondary" className="gyre-above">
           Read-only: the study&apos;s analysts change these settings.
         </Typography.Paragraph>
       )}
-      <Row gutter={[20, 20]} style={{ marginTop: 20 }}>
+      <Row gutter={[20, 20]} className="gyre-above-md">
         <Col xs={24} xl={14}>
           <VisitScheduleSection studyId={studyId} canManage={false} />
         </Col>
         <Col xs={24} xl={10}>
-          <div style={{ display: 'grid', gap: 20 }}>
+          <div className="gyre-stack-md">
             <GroupsSection studyId={studyId} canManage={false} />
             {me.study !== null && <TrendSettingsSection study={me.study} canManage={false} />}
           </div>
         </Col>
       </Row>
-      <Typography.Paragraph type="secondary" style={{ marginTop: 16 }}>
+      <Typography.Paragraph type="secondary" className="gyre-above">
         The visit schedule, groups and trend settings are set up by an administrator.
       </Typography.Paragraph>
     </>

@@ -2,7 +2,7 @@ import { Card, Col, Form, Row, Select } from 'antd';
 import { useSearchParams } from 'react-router-dom';
 import { useAppAbility } from '../../../lib/session/ability';
 import { PageHeader } from '../../../components/page-header';
-import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
+import { EmptyState, pendingState } from '../../../components/page-states';
 import { useStudies, useStudy } from '../../../lib/studies';
 import { GroupsSection } from './groups-section';
 import { TrendSettingsSection } from './trend-settings-section';
@@ -28,32 +28,24 @@ export function StudySetupPage() {
       description="Each study's visit schedule, groups and trend settings."
     />
   );
-  if (studies.error !== undefined) {
+  const pending = pendingState(studies, {
+    errorTitle: 'The studies could not be loaded',
+    loadingLabel: 'Loading the studies',
+  });
+  if (pending !== null || studies.data === undefined) {
     return (
       <>
         {header}
-        <ErrorState
-          title="The studies could not be loaded"
-          error={studies.error}
-          onRetry={() => void studies.mutate()}
-        />
-      </>
-    );
-  }
-  if (studies.data === undefined) {
-    return (
-      <>
-        {header}
-        <LoadingState label="Loading the studies" />
+        {pending}
       </>
     );
   }
   return (
     <>
       {header}
-      <Card style={{ marginBottom: 20 }}>
+      <Card className="gyre-below-md">
         <Form layout="vertical" component="div">
-          <Form.Item label="Study" htmlFor="setup-study" style={{ marginBottom: 0 }}>
+          <Form.Item label="Study" htmlFor="setup-study" className="gyre-flush-bottom">
             <Select
               id="setup-study"
               placeholder="Choose a study"
@@ -76,7 +68,7 @@ export function StudySetupPage() {
             <VisitScheduleSection key={studyId} studyId={studyId} canManage={canManage} />
           </Col>
           <Col xs={24} xl={10}>
-            <Space20>
+            <div className="gyre-stack-md">
               <GroupsSection key={studyId} studyId={studyId} canManage={canManage} />
               {study.data !== undefined && (
                 <TrendSettingsSection study={study.data} canManage={canManage} />
@@ -84,14 +76,10 @@ export function StudySetupPage() {
               {study.data !== undefined && (
                 <BlindedReviewSection study={study.data} canManage={canManage} />
               )}
-            </Space20>
+            </div>
           </Col>
         </Row>
       )}
     </>
   );
-}
-
-function Space20({ children }: { children: React.ReactNode }) {
-  return <div style={{ display: 'grid', gap: 20 }}>{children}</div>;
 }

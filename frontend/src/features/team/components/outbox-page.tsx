@@ -1,12 +1,12 @@
 import type { OutboxMessageView, OutboxState } from '@gyre/shared';
 import { Card, Segmented, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
-import { useState } from 'react';
 import { PageHeader } from '../../../components/page-header';
 import { formatDateTime } from '../../../lib/format';
 import { useOutbox } from '../api/outbox';
 import { GYRE_COLORS } from '../../../app/theme';
 import { PagedTable } from '../../../components/paged-table';
+import { usePagedList } from '../../../components/use-paged-list';
 import { dateTimeColumn, stateTagColumn, type StateLook } from '../../../components/table-columns';
 
 const STATE_LOOK: Record<OutboxState, StateLook> = {
@@ -50,13 +50,8 @@ const PAGE_SIZE = 25;
 
 /** The outbox (admin): what Gyre has e-mailed or is about to, and whether it arrived. */
 export function OutboxPage() {
-  const [state, setState] = useState<OutboxState | 'all'>('all');
-  const [page, setPage] = useState(1);
-  const { data, error, isLoading, mutate } = useOutbox(
-    state === 'all' ? null : state,
-    page,
-    PAGE_SIZE,
-  );
+  const list = usePagedList<OutboxState | 'all'>(PAGE_SIZE, 'all');
+  const messages = useOutbox(list.filter === 'all' ? null : list.filter, list.page, PAGE_SIZE);
   return (
     <>
       <PageHeader
@@ -64,11 +59,8 @@ export function OutboxPage() {
         description="Invitations, reset links and report notices, with their delivery. Bodies are never shown."
         extra={
           <Segmented<OutboxState | 'all'>
-            value={state}
-            onChange={(value) => {
-              setState(value);
-              setPage(1);
-            }}
+            value={list.filter}
+            onChange={list.setFilter}
             aria-label="Show messages in this state"
             options={[
               { label: 'All', value: 'all' },
@@ -81,13 +73,11 @@ export function OutboxPage() {
       />
       <Card>
         <PagedTable<OutboxMessageView>
-          query={{ data, error, isLoading, mutate }}
+          query={messages}
           loadErrorTitle="The outbox could not be loaded"
           emptyText="No e-mail yet."
           columns={columns}
-          page={page}
-          pageSize={PAGE_SIZE}
-          onPageChange={setPage}
+          {...list.paging}
           scrollLabel="Messages"
         />
       </Card>

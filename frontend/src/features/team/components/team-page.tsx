@@ -18,6 +18,7 @@ import { ROLE_LABELS } from './role-labels';
 import { WorkerTokensSection } from './worker-tokens-section';
 import { GYRE_COLORS } from '../../../app/theme';
 import { PagedTable } from '../../../components/paged-table';
+import { usePagedList } from '../../../components/use-paged-list';
 import { dateTimeColumn, stateTagColumn, type StateLook } from '../../../components/table-columns';
 
 const STATE_LOOK: Record<UserState, StateLook> = {
@@ -39,9 +40,9 @@ export function TeamPage() {
   const { me } = useSession();
   const ability = useAppAbility();
   const { message } = App.useApp();
-  const [filters, setFilters] = useState<UserFilters>({});
-  const [page, setPage] = useState(1);
-  const { data, error, isLoading, mutate } = useUsers(filters, page, PAGE_SIZE);
+  const list = usePagedList<UserFilters>(PAGE_SIZE, {});
+  const filters = list.filter;
+  const users = useUsers(filters, list.page, PAGE_SIZE);
   const studies = useStudies();
   const sites = useSites();
   const resend = useResendInvitation();
@@ -52,10 +53,8 @@ export function TeamPage() {
   const siteName = (id: string | null) =>
     id === null ? null : (sites.data?.items.find((s) => s.id === id)?.name ?? id.slice(0, 8));
 
-  const filter = (change: Partial<UserFilters>) => {
-    setFilters((current) => ({ ...current, ...change }));
-    setPage(1);
-  };
+  const filter = (change: Partial<UserFilters>) =>
+    list.setFilter((current) => ({ ...current, ...change }));
 
   const columns: TableColumnsType<UserView> = [
     {
@@ -178,13 +177,11 @@ export function TeamPage() {
           />
         </Flex>
         <PagedTable<UserView>
-          query={{ data, error, isLoading, mutate }}
+          query={users}
           loadErrorTitle="The accounts could not be loaded"
           emptyText="No account matches."
           columns={columns}
-          page={page}
-          pageSize={PAGE_SIZE}
-          onPageChange={setPage}
+          {...list.paging}
         />
       </Card>
       {ability.can('manage', 'WorkerToken') && <WorkerTokensSection />}

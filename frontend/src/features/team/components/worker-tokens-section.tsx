@@ -7,6 +7,7 @@ import { useWorkerTokens } from '../api/worker-tokens';
 import { CreateWorkerTokenForm } from './create-worker-token-form';
 import { RevokeWorkerTokenForm } from './revoke-worker-token-form';
 import { PagedTable } from '../../../components/paged-table';
+import { usePagedList } from '../../../components/use-paged-list';
 
 const PAGE_SIZE = 10;
 
@@ -15,13 +16,9 @@ type Shown = WorkerTokenState | 'all';
 /** Team (admin): the tokens computing machines use to fetch queued work and post results. */
 export function WorkerTokensSection() {
   const { message } = App.useApp();
-  const [shown, setShown] = useState<Shown>('live');
-  const [page, setPage] = useState(1);
-  const { data, error, isLoading, mutate } = useWorkerTokens(
-    shown === 'all' ? null : shown,
-    page,
-    PAGE_SIZE,
-  );
+  const list = usePagedList<Shown>(PAGE_SIZE, 'live');
+  const shown = list.filter;
+  const tokens = useWorkerTokens(shown === 'all' ? null : shown, list.page, PAGE_SIZE);
   const [creating, setCreating] = useState(false);
   const [revoking, setRevoking] = useState<WorkerTokenView | null>(null);
 
@@ -114,10 +111,7 @@ export function WorkerTokensSection() {
       </Typography.Paragraph>
       <Segmented<Shown>
         value={shown}
-        onChange={(value) => {
-          setShown(value);
-          setPage(1);
-        }}
+        onChange={list.setFilter}
         aria-label="Show tokens"
         className="gyre-below"
         options={[
@@ -127,13 +121,11 @@ export function WorkerTokensSection() {
         ]}
       />
       <PagedTable<WorkerTokenView>
-        query={{ data, error, isLoading, mutate }}
+        query={tokens}
         loadErrorTitle="The worker tokens could not be loaded"
         emptyText={shown === 'revoked' ? 'No revoked token.' : 'No token.'}
         columns={columns}
-        page={page}
-        pageSize={PAGE_SIZE}
-        onPageChange={setPage}
+        {...list.paging}
       />
       <CreateWorkerTokenForm open={creating} onClose={() => setCreating(false)} />
       {revoking !== null && (
