@@ -51,6 +51,10 @@ import scipy.ndimage  # noqa: E402
 import scipy.signal  # noqa: E402
 import scipy.stats  # noqa: E402
 
+# Gyre's plateau response: one definition with the fixture generator, in backend/scripts.
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "backend", "scripts"))
+from plateau_weight import plateau_weight  # noqa: E402
+
 
 class Steps:
     """Wall and CPU seconds accumulated per named step."""
@@ -215,17 +219,6 @@ def line_noise(spec, line_hz):
     if line.size == 0 or side.size == 0 or not side.sum() > 0:
         return None
     return float(line.mean() / side.mean())
-
-
-def plateau_weight(f, low, high, transition):
-    low_stop, high_stop = low * (1 - transition), high * (1 + transition)
-    w = np.zeros_like(f)
-    rising = (f > low_stop) & (f < low)
-    w[rising] = 0.5 - 0.5 * np.cos(np.pi * (f[rising] - low_stop) / (low - low_stop))
-    w[(f >= low) & (f <= high)] = 1.0
-    falling = (f > high) & (f < high_stop)
-    w[falling] = 0.5 + 0.5 * np.cos(np.pi * (f[falling] - high) / (high_stop - high))
-    return w
 
 
 def band_pass_analytic(x, fs, p):

@@ -22,6 +22,8 @@ import scipy
 import scipy.fft
 import scipy.ndimage
 
+from plateau_weight import plateau_weight
+
 
 def read_edf(path):
     """Minimal EDF reader (Kemp et al. 1992): ordinary signals as float64 physical values."""
@@ -57,17 +59,6 @@ def read_edf(path):
 def physical(signal):
     _label, _fs, digital, gain, dmin, pmin = signal
     return (digital.reshape(-1).astype(np.float64) - dmin) * gain + pmin
-
-
-def plateau_weight(f, low, high, transition):
-    low_stop, high_stop = low * (1 - transition), high * (1 + transition)
-    w = np.zeros_like(f)
-    rising = (f > low_stop) & (f < low)
-    w[rising] = 0.5 - 0.5 * np.cos(np.pi * (f[rising] - low_stop) / (low - low_stop))
-    w[(f >= low) & (f <= high)] = 1.0
-    falling = (f > high) & (f < high_stop)
-    w[falling] = 0.5 + 0.5 * np.cos(np.pi * (f[falling] - high) / (high_stop - high))
-    return w
 
 
 def main():

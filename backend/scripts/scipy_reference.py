@@ -23,6 +23,8 @@ import scipy.ndimage
 import scipy.signal
 import scipy.stats
 
+from plateau_weight import plateau_weight
+
 SIGNIFICANT_DIGITS = 13
 
 
@@ -34,19 +36,6 @@ def stable(values):
 
 def rounded(values):
     return np.asarray(stable(values), dtype=np.float64).reshape(np.shape(values))
-
-
-def plateau_weight(f, low, high, transition=0.15):
-    """Gyre's plateau response: raised-cosine transition zones of 15 % of the band edges."""
-    low_stop = low * (1 - transition)
-    high_stop = high * (1 + transition)
-    w = np.zeros_like(f)
-    rising = (f > low_stop) & (f < low)
-    w[rising] = 0.5 - 0.5 * np.cos(np.pi * (f[rising] - low_stop) / (low - low_stop))
-    w[(f >= low) & (f <= high)] = 1.0
-    falling = (f > high) & (f < high_stop)
-    w[falling] = 0.5 + 0.5 * np.cos(np.pi * (f[falling] - high) / (high_stop - high))
-    return w
 
 
 def hilbert_case():

@@ -30,6 +30,7 @@ import request from 'supertest';
 import type { AuditVerifyResult } from '@gyre/shared';
 import { openSqliteFile } from '../src/audit/sqlite-file';
 import { startTestApp, TestApp } from './helpers/test-app';
+import { textBody } from './helpers/binary-body';
 
 const KEY_FILE = 'secrets/audit-anchor-ed25519.pem';
 const ANCHOR_FILE = 'audit-anchors.jsonl';
@@ -212,11 +213,7 @@ describe('audit anchors: key, file and checks on an intact trail', () => {
       .get('/api/audit/anchors.jsonl')
       .set(monitor)
       .buffer(true)
-      .parse((res, done) => {
-        let text = '';
-        res.on('data', (chunk: Buffer) => (text += chunk.toString('utf8')));
-        res.on('end', () => done(null, text));
-      });
+      .parse(textBody);
     expect(download.status).toBe(200);
     expect(download.headers['content-type']).toMatch(/^application\/x-ndjson/);
     expect(download.headers['content-disposition']).toMatch(/gyre-audit-anchors-.*\.jsonl/);

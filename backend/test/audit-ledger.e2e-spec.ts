@@ -1,9 +1,10 @@
-import request from 'supertest';
 import { defineAbilityFor } from '@gyre/shared';
 import { AuditContextReads } from '../src/audit/audit-context.reads';
 import { SqliteReadsService } from '../src/common/database/sqlite-reads.service';
 import { auditEntries } from './helpers/audit-entries';
 import { useTestApp } from './helpers/test-app';
+import { getAs, postAs } from './helpers/api-call';
+import { newVisit } from './helpers/new-visit';
 
 /**
  * The Ledger as a monitor reads it: each entry's participant code, visit label and people's
@@ -17,45 +18,22 @@ describe('audit trail for readers (names, links, participant filter)', () => {
   let invitedId: string;
   beforeAll(async () => {
     // Technician at A1: a second visit of participant A1-0001.
-    const visit = await request(t.url)
-      .post('/api/visits')
-      .set(await t.authHeader('technician'))
-      .send({
-        participantId: t.seed.participants.A1.id,
-        unscheduled: true,
-        label: 'V2',
-        visitDate: '2026-03-01',
-      });
-    expect(visit.status).toBe(201);
-    secondVisitId = visit.body.id as string;
+    secondVisitId = await newVisit(t, 'V2', '2026-03-01');
     // Technician at A2: a visit of A2-0001 (another participant of the same study).
-    const other = await request(t.url)
-      .post('/api/visits')
-      .set(await t.authHeader('technicianA2'))
-      .send({
-        participantId: t.seed.participants.A2.id,
-        unscheduled: true,
-        label: 'V2',
-        visitDate: '2026-03-02',
-      });
-    expect(other.status).toBe(201);
+    await newVisit(t, 'V2', '2026-03-02', 'A2');
     // Analyst: a slowing flag on A1-0001's first visit.
-    const raised = await request(t.url)
-      .post(`/api/visits/${t.seed.visits.A1.id}/flag/raise`)
-      .set(await t.authHeader('analyst'))
-      .send({ reason: 'ROI slowing seen in the spectrum' });
+    const raised = await postAs(t, 'analyst', `/api/visits/${t.seed.visits.A1.id}/flag/raise`, {
+      reason: 'ROI slowing seen in the spectrum',
+    });
     expect(raised.status).toBe(201);
     // Admin (no study): invites a technician into study A.
-    const invited = await request(t.url)
-      .post('/api/users/invitations')
-      .set(await t.authHeader('admin'))
-      .send({
-        email: 'ledger-new@gyre.test',
-        name: 'Ledger Newcomer',
-        role: 'technician',
-        studyId: t.seed.studies.A.id,
-        siteId: t.seed.sites.A1.id,
-      });
+    const invited = await postAs(t, 'admin', '/api/users/invitations', {
+      email: 'ledger-new@gyre.test',
+      name: 'Ledger Newcomer',
+      role: 'technician',
+      studyId: t.seed.studies.A.id,
+      siteId: t.seed.sites.A1.id,
+    });
     expect(invited.status).toBe(201);
     invitedId = invited.body.id as string;
   });
@@ -183,10 +161,9 @@ describe('audit trail for readers (names, links, participant filter)', () => {
   });
 
   it('the CSV export honours the participant filter and keeps its raw columns', async () => {
-    const response = await request(t.url)
-      .get('/api/audit/export.csv')
-      .query({ participantId: t.seed.participants.A1.id })
-      .set(await t.authHeader('monitor'));
+    const response = await getAs(t, 'monitor', '/api/audit/export.csv', {
+      participantId: t.seed.participants.A1.id,
+    });
     expect(response.status).toBe(200);
     const lines = response.text.trim().split('\r\n');
     expect(lines[0].startsWith('seq,at,actorId,actorEmail,action,objectType,objectId')).toBe(true);
@@ -195,10 +172,7 @@ describe('audit trail for readers (names, links, participant filter)', () => {
   });
 
   it('refuses a participant filter that is not a string of at most 64 characters (400)', async () => {
-    const response = await request(t.url)
-      .get('/api/audit')
-      .query({ participantId: 'x'.repeat(65) })
-      .set(await t.authHeader('monitor'));
+    const response = await getAs(t, 'monitor', '/api/audit', { participantId: 'x'.repeat(65) });
     expect(response.status).toBe(400);
     expect(JSON.stringify(response.body)).toContain('participantId');
   });

@@ -3,6 +3,7 @@ import request from 'supertest';
 import type { AuditEntryView } from '@gyre/shared';
 import { auditEntries } from './helpers/audit-entries';
 import { useTestApp } from './helpers/test-app';
+import { getAs } from './helpers/api-call';
 
 /** hash = SHA-256(prevHash ‖ canonical JSON), recomputed here independently of the server. */
 function expectedHash(
@@ -117,24 +118,20 @@ describe('audit trail', () => {
     expect(past.total).toBe(0);
     const page = await auditEntries(t, 'admin', { pageSize: 2, page: 1 });
     expect(page.items).toHaveLength(2);
-    const bad = await request(t.url)
-      .get('/api/audit')
-      .query({ from: '2026-02-01T00:00:00Z', to: '2026-01-01T00:00:00Z' })
-      .set(await t.authHeader('admin'));
+    const bad = await getAs(t, 'admin', '/api/audit', {
+      from: '2026-02-01T00:00:00Z',
+      to: '2026-01-01T00:00:00Z',
+    });
     expect(bad.status).toBe(400);
     expect(bad.body.message).toMatch(/from/);
-    const notIso = await request(t.url)
-      .get('/api/audit')
-      .query({ from: 'yesterday' })
-      .set(await t.authHeader('admin'));
+    const notIso = await getAs(t, 'admin', '/api/audit', { from: 'yesterday' });
     expect(notIso.status).toBe(400);
   });
 
   it('exports CSV of the filtered entries, and the export is itself audited', async () => {
-    const response = await request(t.url)
-      .get('/api/audit/export.csv')
-      .query({ objectType: 'Participant' })
-      .set(await t.authHeader('monitor'));
+    const response = await getAs(t, 'monitor', '/api/audit/export.csv', {
+      objectType: 'Participant',
+    });
     expect(response.status).toBe(200);
     expect(response.headers['content-type']).toMatch(/^text\/csv/);
     const lines = response.text.trim().split('\r\n');
@@ -162,9 +159,7 @@ describe('audit trail', () => {
       ),
     );
     expect(results.map((r) => r.status)).toEqual(Array(12).fill(201));
-    const verify = await request(t.url)
-      .get('/api/audit/verify')
-      .set(await t.authHeader('monitor'));
+    const verify = await getAs(t, 'monitor', '/api/audit/verify');
     expect(verify.body.intact).toBe(true);
     const seqs = (await t.dataSource.query(`SELECT "seq" FROM "audit_entry" ORDER BY "seq"`)) as {
       seq: number;
@@ -191,9 +186,7 @@ describe('audit trail', () => {
   });
 
   it('verify names the first altered entry once the trigger is dropped and a row changed', async () => {
-    const before = await request(t.url)
-      .get('/api/audit/verify')
-      .set(await t.authHeader('admin'));
+    const before = await getAs(t, 'admin', '/api/audit/verify');
     expect(before.body).toMatchObject({ intact: true, firstBroken: null });
     const total = before.body.checked as number;
     const victim = Math.floor(total / 2);
@@ -202,9 +195,7 @@ describe('audit trail', () => {
       `UPDATE "audit_entry" SET "reason" = 'quietly edited' WHERE "seq" = ?`,
       [victim],
     );
-    const after = await request(t.url)
-      .get('/api/audit/verify')
-      .set(await t.authHeader('monitor'));
+    const after = await getAs(t, 'monitor', '/api/audit/verify');
     expect(after.body.intact).toBe(false);
     expect(after.body.firstBroken.seq).toBe(victim);
     expect(after.body.firstBroken.reason).toMatch(/altered/);
@@ -214,9 +205,7 @@ describe('audit trail', () => {
   it('verify also finds a deleted entry (sequence gap)', async () => {
     await t.dataSource.query(`DROP TRIGGER "audit_entry_no_delete"`);
     await t.dataSource.query(`DELETE FROM "audit_entry" WHERE "seq" = 2`);
-    const after = await request(t.url)
-      .get('/api/audit/verify')
-      .set(await t.authHeader('admin'));
+    const after = await getAs(t, 'admin', '/api/audit/verify');
     expect(after.body.intact).toBe(false);
     expect(after.body.firstBroken.seq).toBe(3);
     expect(after.body.firstBroken.reason).toMatch(/missing/);

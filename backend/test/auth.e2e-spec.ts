@@ -5,6 +5,7 @@ import { accessPayload, forgeJwt } from './helpers/jwt-forge';
 import { REFRESH_REUSE_GRACE_MS } from '../src/auth/refresh-tokens.service';
 import { SEED_PASSWORD } from './helpers/seed';
 import { TEST_JWT_SECRET, useTestApp } from './helpers/test-app';
+import { getAs, inviteAs, postAs } from './helpers/api-call';
 
 const REFRESH_COOKIE = 'gyre_refresh';
 
@@ -322,9 +323,7 @@ describe('sign-in, tokens and sessions', () => {
 
   describe('GET /api/auth/me', () => {
     it('returns user, study, site and packed rules that unpack to the role’s ability', async () => {
-      const response = await request(t.url)
-        .get('/api/auth/me')
-        .set(await t.authHeader('technician'));
+      const response = await getAs(t, 'technician', '/api/auth/me');
       expect(response.status).toBe(200);
       expect(response.body.user.id).toBe(t.seed.users.technician.id);
       expect(response.body.study.id).toBe(t.seed.studies.A.id);
@@ -336,9 +335,7 @@ describe('sign-in, tokens and sessions', () => {
     });
 
     it('an admin has no study and no site', async () => {
-      const response = await request(t.url)
-        .get('/api/auth/me')
-        .set(await t.authHeader('admin'));
+      const response = await getAs(t, 'admin', '/api/auth/me');
       expect(response.body.study).toBeNull();
       expect(response.body.site).toBeNull();
     });
@@ -400,34 +397,32 @@ describe('messages that name a role', () => {
   const t = useTestApp();
 
   it('a refused permission says "An analyst may not …"', async () => {
-    const response = await request(t.url)
-      .post('/api/users/invitations')
-      .set(await t.authHeader('analyst'))
-      .send({ email: 'new.person@gyre.test', name: 'New Person', role: 'monitor' });
+    const response = await inviteAs(t, 'analyst', 'new.person@gyre.test', 'New Person', 'monitor');
     expect(response.status).toBe(403);
     expect(response.body.message).toBe('An analyst may not invite User.');
   });
 
   it('a missing membership says "an analyst must belong to a study"', async () => {
-    const response = await request(t.url)
-      .post('/api/users/invitations')
-      .set(await t.authHeader('admin'))
-      .send({ email: 'new.analyst@gyre.test', name: 'New Analyst', role: 'analyst' });
+    const response = await inviteAs(t, 'admin', 'new.analyst@gyre.test', 'New Analyst', 'analyst');
     expect(response.status).toBe(400);
     expect(response.body.message).toBe('studyId: an analyst must belong to a study');
   });
 
   it('an admin is "An admin" and a technician stays "A technician"', async () => {
-    const admin = await request(t.url)
-      .post(`/api/visits/${t.seed.visits.A1.id}/report/sign`)
-      .set(await t.authHeader('admin'))
-      .send({ password: 'x', meaning: 'x', fingerprint: 'a'.repeat(64) });
+    const admin = await postAs(t, 'admin', `/api/visits/${t.seed.visits.A1.id}/report/sign`, {
+      password: 'x',
+      meaning: 'x',
+      fingerprint: 'a'.repeat(64),
+    });
     expect(admin.status).toBe(403);
     expect(admin.body.message).toMatch(/^An admin may not /);
-    const technician = await request(t.url)
-      .post('/api/users/invitations')
-      .set(await t.authHeader('technician'))
-      .send({ email: 'new.person@gyre.test', name: 'New Person', role: 'monitor' });
+    const technician = await inviteAs(
+      t,
+      'technician',
+      'new.person@gyre.test',
+      'New Person',
+      'monitor',
+    );
     expect(technician.status).toBe(403);
     expect(technician.body.message).toMatch(/^A technician may not /);
   });

@@ -13,7 +13,7 @@ import { zipSync } from 'fflate';
 import request from 'supertest';
 import type { BidsImportFilePreview, BidsImportPreview } from '@gyre/shared';
 import { assembleBdf, plainBdfParts } from '../src/signal/edf/testing/hand-built-bdf';
-import { rowCounts, sqlRows, uploadFolder } from './helpers/sqlite-rows';
+import { importFootprint, sqlRows } from './helpers/sqlite-rows';
 import { type TestApp, useTestApp } from './helpers/test-app';
 import type { UserKey } from './helpers/seed';
 import {
@@ -64,21 +64,13 @@ async function send(
   return req;
 }
 
-/** Everything an import writes: rows of each table and files in the upload folder. */
-function footprint(t: TestApp) {
-  return {
-    ...rowCounts(t, {
-      participants: 'participant',
-      visits: 'visit',
-      recordings: 'recording',
-      jobs: 'job',
-      overrides: 'visit_analysis_override',
-      bidsFiles: 'bids_import_file',
-      audit: 'audit_entry WHERE actorId IS NOT NULL',
-    }),
-    ...uploadFolder(t),
-  };
-}
+/** Everything an import writes, participants, visit overrides and BIDS file rows included. */
+const footprint = (t: TestApp) =>
+  importFootprint(t, {
+    participants: 'participant',
+    overrides: 'visit_analysis_override',
+    bidsFiles: 'bids_import_file',
+  });
 
 /** `*_channels.tsv`: name, type, units required; status and status_description optional. */
 function channelsTsv(bad: Record<string, string>): string {

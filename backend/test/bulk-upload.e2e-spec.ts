@@ -4,7 +4,7 @@
  */
 import request from 'supertest';
 import type { BulkUploadReport, BulkUploadRowReport } from '@gyre/shared';
-import { rowCounts, sqlRows, uploadFolder } from './helpers/sqlite-rows';
+import { importFootprint, sqlRows, uploadFolder } from './helpers/sqlite-rows';
 import { startTestApp, TestApp } from './helpers/test-app';
 import type { UserKey } from './helpers/seed';
 import { syntheticRestEdf, syntheticTaskEdf } from './recordings-fixtures';
@@ -33,19 +33,7 @@ async function bulk(
   return req;
 }
 
-/** Everything an import writes: rows of each table and files in the upload folder. */
-function footprint(t: TestApp) {
-  return {
-    ...rowCounts(t, {
-      recordings: 'recording',
-      visits: 'visit',
-      jobs: 'job',
-      // Entries someone's action wrote (the computations' own moves have no actor).
-      audit: 'audit_entry WHERE actorId IS NOT NULL',
-    }),
-    ...uploadFolder(t),
-  };
-}
+const footprint = (t: TestApp) => importFootprint(t, {});
 
 function maxSeq(t: TestApp): number {
   return sqlRows<{ n: number | null }>(t, 'SELECT max(seq) AS n FROM audit_entry')[0].n ?? 0;

@@ -8,6 +8,7 @@ import type { RecordingView, ReportView, TrajectoryView, VisitFlagView } from '@
 import { Visit } from '../src/visits/visit.entity';
 import { startTestApp, TestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
+import { getAs, postAs } from './helpers/api-call';
 
 describe('flags, reports and trajectory', () => {
   let t: TestApp;
@@ -51,9 +52,7 @@ describe('flags, reports and trajectory', () => {
   });
 
   it("shows the computation's suggestion and never raises a flag by itself", async () => {
-    const response = await request(t.url)
-      .get(`/api/visits/${visit1}/flag`)
-      .set(await t.authHeader('analyst'));
+    const response = await getAs(t, 'analyst', `/api/visits/${visit1}/flag`);
     expect(response.status).toBe(200);
     const status = response.body as VisitFlagView;
     expect(status.current).toBeNull();
@@ -65,44 +64,38 @@ describe('flags, reports and trajectory', () => {
   });
 
   it('refuses a reason shorter than 10 characters', async () => {
-    const analyst = await t.authHeader('analyst');
     for (const reason of ['', 'too short', '   nine c   ']) {
-      const response = await request(t.url)
-        .post(`/api/visits/${visit1}/flag/raise`)
-        .set(analyst)
-        .send({ reason });
+      const response = await postAs(t, 'analyst', `/api/visits/${visit1}/flag/raise`, { reason });
       expect(response.status).toBe(400);
       expect(response.body.message).toMatch(/reason must be longer than or equal to 10 characters/);
     }
   });
 
   it('raises and clears a flag with reasons, audited with before and after', async () => {
-    const analyst = await t.authHeader('analyst');
-    const raised = await request(t.url)
-      .post(`/api/visits/${visit1}/flag/raise`)
-      .set(analyst)
-      .send({ reason: 'Consistent slowing on O1, O2 and Pz' });
+    const raised = await postAs(t, 'analyst', `/api/visits/${visit1}/flag/raise`, {
+      reason: 'Consistent slowing on O1, O2 and Pz',
+    });
     expect(raised.status).toBe(201);
     expect((raised.body as VisitFlagView).current).toMatchObject({
       state: 'raised',
       raiseReason: 'Consistent slowing on O1, O2 and Pz',
     });
-    const twice = await request(t.url)
-      .post(`/api/visits/${visit1}/flag/raise`)
-      .set(analyst)
-      .send({ reason: 'Raising it a second time' });
+    const twice = await postAs(t, 'analyst', `/api/visits/${visit1}/flag/raise`, {
+      reason: 'Raising it a second time',
+    });
     expect(twice.status).toBe(409);
     expect(twice.body.code).toBe('FLAG_ALREADY_RAISED');
 
-    const trajectory = await request(t.url)
-      .get(`/api/participants/${t.seed.participants.A1.id}/trajectory`)
-      .set(analyst);
+    const trajectory = await getAs(
+      t,
+      'analyst',
+      `/api/participants/${t.seed.participants.A1.id}/trajectory`,
+    );
     expect((trajectory.body as TrajectoryView).visits.map((v) => v.flagged)).toEqual([true, false]);
 
-    const cleared = await request(t.url)
-      .post(`/api/visits/${visit1}/flag/clear`)
-      .set(analyst)
-      .send({ reason: 'Artefact on review of the raw trace' });
+    const cleared = await postAs(t, 'analyst', `/api/visits/${visit1}/flag/clear`, {
+      reason: 'Artefact on review of the raw trace',
+    });
     expect(cleared.status).toBe(201);
     const after = cleared.body as VisitFlagView;
     expect(after.current).toBeNull();
@@ -110,10 +103,9 @@ describe('flags, reports and trajectory', () => {
       state: 'cleared',
       clearReason: 'Artefact on review of the raw trace',
     });
-    const again = await request(t.url)
-      .post(`/api/visits/${visit1}/flag/clear`)
-      .set(analyst)
-      .send({ reason: 'Clearing it a second time' });
+    const again = await postAs(t, 'analyst', `/api/visits/${visit1}/flag/clear`, {
+      reason: 'Clearing it a second time',
+    });
     expect(again.status).toBe(409);
 
     const entries = (await t.dataSource.query(
@@ -133,40 +125,31 @@ describe('flags, reports and trajectory', () => {
   });
 
   it('lists flags with a state filter', async () => {
-    const response = await request(t.url)
-      .get('/api/flags')
-      .query({ state: 'cleared' })
-      .set(await t.authHeader('monitor'));
+    const response = await getAs(t, 'monitor', '/api/flags', { state: 'cleared' });
     expect(response.status).toBe(200);
     expect(response.body.total).toBe(1);
-    const none = await request(t.url)
-      .get('/api/flags')
-      .query({ state: 'raised' })
-      .set(await t.authHeader('monitor'));
+    const none = await getAs(t, 'monitor', '/api/flags', { state: 'raised' });
     expect(none.body.total).toBe(0);
   });
 
   it('keeps one draft report per computed visit, hidden from coordinators until signed', async () => {
-    const analyst = await t.authHeader('analyst');
-    const report = await request(t.url).get(`/api/visits/${visit1}/report`).set(analyst);
+    const report = await getAs(t, 'analyst', `/api/visits/${visit1}/report`);
     expect(report.status).toBe(200);
     expect((report.body as ReportView).state).toBe('draft');
-    const list = await request(t.url).get('/api/reports').query({ state: 'draft' }).set(analyst);
+    const list = await getAs(t, 'analyst', '/api/reports', { state: 'draft' });
     expect(list.body.total).toBe(2);
-    const coordinator = await request(t.url)
-      .get(`/api/visits/${visit1}/report`)
-      .set(await t.authHeader('coordinator'));
+    const coordinator = await getAs(t, 'coordinator', `/api/visits/${visit1}/report`);
     expect(coordinator.status).toBe(404);
-    const coordinatorList = await request(t.url)
-      .get('/api/reports')
-      .set(await t.authHeader('coordinator'));
+    const coordinatorList = await getAs(t, 'coordinator', '/api/reports');
     expect(coordinatorList.body.total).toBe(0);
   });
 
   it("gives the participant's trajectory: values per visit, change from the first, Theil–Sen slope per year", async () => {
-    const response = await request(t.url)
-      .get(`/api/participants/${t.seed.participants.A1.id}/trajectory`)
-      .set(await t.authHeader('monitor'));
+    const response = await getAs(
+      t,
+      'monitor',
+      `/api/participants/${t.seed.participants.A1.id}/trajectory`,
+    );
     expect(response.status).toBe(200);
     const trajectory = response.body as TrajectoryView;
     expect(trajectory.visits.map((v) => [v.label, v.date])).toEqual([
@@ -198,9 +181,7 @@ describe('flags, reports and trajectory', () => {
       .send({ trendMinVisits: 2 })
       .expect(200);
     const allowed = (
-      await request(t.url)
-        .get(`/api/participants/${t.seed.participants.A1.id}/trajectory`)
-        .set(await t.authHeader('monitor'))
+      await getAs(t, 'monitor', `/api/participants/${t.seed.participants.A1.id}/trajectory`)
     ).body as TrajectoryView;
     await request(t.url)
       .patch(`/api/studies/${studyId}`)

@@ -9,6 +9,7 @@ import { MAX_BODY_DEPTH } from '../src/common/http/json-depth';
 import { MAX_PAGE } from '../src/common/pagination/page-query.dto';
 import { countOf } from './helpers/row-count';
 import { useTestApp } from './helpers/test-app';
+import { getAs } from './helpers/api-call';
 
 /** `levels` arrays nested in one another around a number: `[[…[1]…]]`. */
 const nestedArrays = (levels: number): string => `${'['.repeat(levels)}1${']'.repeat(levels)}`;
@@ -116,9 +117,7 @@ describe('HTTP edge', () => {
     });
 
     it('pageSize stays bounded at 200', async () => {
-      const response = await request(t.url)
-        .get('/api/participants?pageSize=1e300')
-        .set(await t.authHeader('technician'));
+      const response = await getAs(t, 'technician', '/api/participants?pageSize=1e300');
       expect(response.status).toBe(400);
       expect(response.body.message).toMatch(/pageSize must not be greater than 200/);
     });
@@ -183,10 +182,7 @@ describe('HTTP edge', () => {
     });
 
     const siteNames = async (q: string): Promise<string[]> => {
-      const response = await request(t.url)
-        .get('/api/sites')
-        .query({ q, studyId })
-        .set(await t.authHeader('admin'));
+      const response = await getAs(t, 'admin', '/api/sites', { q, studyId });
       expect(response.status).toBe(200);
       return (response.body.items as Array<{ name: string }>).map((s) => s.name).sort();
     };
@@ -220,10 +216,7 @@ describe('HTTP edge', () => {
 
     it('code OR name with different values in one query keep their own parameters', async () => {
       // Studies search code and name: both filters in one WHERE must not share a parameter.
-      const response = await request(t.url)
-        .get('/api/studies')
-        .query({ q: 'ALPHA' })
-        .set(await t.authHeader('admin'));
+      const response = await getAs(t, 'admin', '/api/studies', { q: 'ALPHA' });
       expect(response.status).toBe(200);
       expect((response.body.items as Array<{ code: string }>).map((s) => s.code)).toEqual([
         'ALPHA',

@@ -2,15 +2,21 @@ import request from 'supertest';
 import { readMails, tokenFromMail, waitForMail } from './helpers/mail-catcher';
 import { SEED_PASSWORD } from './helpers/seed';
 import { TEST_PUBLIC_URL, useTestApp } from './helpers/test-app';
+import { getAs, inviteAs, postAs } from './helpers/api-call';
 
 describe('invitations, password reset and the outbox (real local SMTP server)', () => {
   const t = useTestApp();
 
   const invite = async (body: Record<string, unknown>) =>
-    request(t.url)
-      .post('/api/users/invitations')
-      .set(await t.authHeader('admin'))
-      .send(body);
+    postAs(t, 'admin', '/api/users/invitations', body);
+
+  /** `first`, then `second` with the same one-time token: taken once (204), then refused (400). */
+  const expectUsedOnce = async (path: string, first: object, second: object) => {
+    expect((await request(t.url).post(path).send(first)).status).toBe(204);
+    const again = await request(t.url).post(path).send(second);
+    expect(again.status).toBe(400);
+    return again;
+  };
 
   it('an invitation is e-mailed, its link accepted once only, and the account can sign in', async () => {
     const email = 'new.technician@gyre.test';
@@ -70,14 +76,11 @@ describe('invitations, password reset and the outbox (real local SMTP server)', 
     expect(weak.status).toBe(400);
     expect(weak.body.code).toBe('AUTH_PASSWORD_TOO_WEAK');
 
-    const accepted = await request(t.url)
-      .post('/api/auth/accept-invitation')
-      .send({ token, password });
-    expect(accepted.status).toBe(204);
-    const again = await request(t.url)
-      .post('/api/auth/accept-invitation')
-      .send({ token, password: 'another-long-password-77' });
-    expect(again.status).toBe(400);
+    const again = await expectUsedOnce(
+      '/api/auth/accept-invitation',
+      { token, password },
+      { token, password: 'another-long-password-77' },
+    );
     expect(again.body.code).toBe('AUTH_ONE_TIME_TOKEN_USED');
 
     const signIn = await request(t.url).post('/api/auth/sign-in').send({ email, password });
@@ -88,10 +91,9 @@ describe('invitations, password reset and the outbox (real local SMTP server)', 
 
   it('the outbox shows the message as sent, without its body, to admins only', async () => {
     await t.mailIdle();
-    const response = await request(t.url)
-      .get('/api/mail/outbox')
-      .query({ to: 'new.technician@gyre.test' })
-      .set(await t.authHeader('admin'));
+    const response = await getAs(t, 'admin', '/api/mail/outbox', {
+      to: 'new.technician@gyre.test',
+    });
     expect(response.status).toBe(200);
     expect(response.body.total).toBe(1);
     const [message] = response.body.items as Record<string, unknown>[];
@@ -197,14 +199,11 @@ describe('invitations, password reset and the outbox (real local SMTP server)', 
     expect((await readMails(t.config.mailDir)).length).toBe(before + 1);
     const token = tokenFromMail(mail, '/reset-password');
     const newPassword = 'reset-rhythm-2026-gyre';
-    const confirm = await request(t.url)
-      .post('/api/auth/password-reset/confirm')
-      .send({ token, newPassword });
-    expect(confirm.status).toBe(204);
-    const reuse = await request(t.url)
-      .post('/api/auth/password-reset/confirm')
-      .send({ token, newPassword: 'another-reset-2026-gyre' });
-    expect(reuse.status).toBe(400);
+    await expectUsedOnce(
+      '/api/auth/password-reset/confirm',
+      { token, newPassword },
+      { token, newPassword: 'another-reset-2026-gyre' },
+    );
     expect((await request(t.url).post('/api/auth/refresh').set('Cookie', cookie)).status).toBe(401);
     expect(
       (await request(t.url).post('/api/auth/sign-in').send({ email, password: newPassword }))
@@ -226,15 +225,10 @@ describe('outbox retries when SMTP is unreachable', () => {
   const t = useTestApp({ env: { SMTP_URL: 'smtp://127.0.0.1:9' } });
 
   it('keeps the message queued with the error, one attempt made and a later next attempt', async () => {
-    const response = await request(t.url)
-      .post('/api/users/invitations')
-      .set(await t.authHeader('admin'))
-      .send({ email: 'unreachable@gyre.test', name: 'Unreachable', role: 'admin' });
+    const response = await inviteAs(t, 'admin', 'unreachable@gyre.test', 'Unreachable', 'admin');
     expect(response.status).toBe(201);
     await t.mailIdle();
-    const outbox = await request(t.url)
-      .get('/api/mail/outbox')
-      .set(await t.authHeader('admin'));
+    const outbox = await getAs(t, 'admin', '/api/mail/outbox');
     const [message] = outbox.body.items as {
       state: string;
       attempts: number;

@@ -12,6 +12,7 @@ import type { Page, ParticipantListItem } from '@gyre/shared';
 import { SqliteReadsService } from '../src/common/database/sqlite-reads.service';
 import type { UserKey } from './helpers/seed';
 import { startTestApp, TestApp } from './helpers/test-app';
+import { newestSettingsId, writeWithoutForeignKeys } from './helpers/sqlite-rows';
 
 const at = (minute: number) => new Date(Date.UTC(2026, 0, 1, 0, minute)).toISOString();
 
@@ -42,16 +43,12 @@ describe('participants list', () => {
     const uploader = t.seed.users.technician.id;
     const analyst = t.seed.users.analyst.id;
     let minute = 1;
-    const settings = (await t.dataSource.query(
-      `SELECT "id" FROM "analysis_settings" WHERE "studyId" = ? ORDER BY "version" DESC LIMIT 1`,
-      [study],
-    )) as Array<{ id: string }>;
+    const newest = await newestSettingsId(t, study);
     // The runs name jobs that are not written here: foreign keys off while these rows go in.
-    await t.dataSource.query('PRAGMA foreign_keys = OFF');
-    await t.dataSource.transaction(async (tx) => {
+    await writeWithoutForeignKeys(t, async (tx) => {
       const q = (sql: string, params: unknown[]) => tx.query(sql, params);
-      const settingsId = settings[0]?.id ?? randomUUID();
-      if (settings.length === 0) {
+      const settingsId = newest ?? randomUUID();
+      if (newest === null) {
         await q(
           `INSERT INTO "analysis_settings" ("id", "studyId", "version", "valuesJson", "reason", "createdAt") VALUES (?, ?, 1, '{}', 'test', ?)`,
           [settingsId, study, at(0)],
@@ -184,7 +181,6 @@ describe('participants list', () => {
       await report(v1, 'draft', 0);
       await report(v3, 'signed', 1);
     });
-    await t.dataSource.query('PRAGMA foreign_keys = ON');
   });
 
   afterAll(async () => {

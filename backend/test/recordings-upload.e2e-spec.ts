@@ -20,6 +20,7 @@ import {
   upload,
   waitForState,
 } from './recordings-fixtures';
+import { textBody } from './helpers/binary-body';
 
 const sha256 = (bytes: Uint8Array): string => createHash('sha256').update(bytes).digest('hex');
 
@@ -168,11 +169,7 @@ describe('recording uploads', () => {
       .get(`/api/recordings/${id}/events`)
       .set(await t.authHeader('technician'))
       .buffer(true)
-      .parse((res, done) => {
-        let text = '';
-        res.on('data', (chunk: Buffer) => (text += chunk.toString('utf8')));
-        res.on('end', () => done(null, text));
-      });
+      .parse(textBody);
     expect(events.status).toBe(200);
     expect(events.headers['content-type']).toMatch(/text\/event-stream/);
     const states = String(events.body)

@@ -13,6 +13,7 @@ import { defineAbilityFor } from '@gyre/shared';
 import type { Caller } from '../src/auth/decorators';
 import { StudyOverviewService } from '../src/study-overview/study-overview.service';
 import { startTestApp, TestApp } from './helpers/test-app';
+import { newestSettingsId, writeWithoutForeignKeys } from './helpers/sqlite-rows';
 
 /** The seeded monitor of study B as the rules see them. */
 function monitorB(t: TestApp) {
@@ -237,17 +238,13 @@ describe('study overview', () => {
     s.A1 = A1;
     s.A2 = A2;
     const analyst = t.seed.users.analyst.id;
-    const newest = (await t.dataSource.query(
-      `SELECT "id" FROM "analysis_settings" WHERE "studyId" = ? ORDER BY "version" DESC LIMIT 1`,
-      [studyId],
-    )) as Array<{ id: string }>;
+    const newest = await newestSettingsId(t, studyId);
     // The runs name jobs (and an old settings version) that are not written here: only the
     // columns the overview reads matter, so the foreign keys are off while these rows go in.
-    await t.dataSource.query('PRAGMA foreign_keys = OFF');
-    await t.dataSource.transaction(async (tx) => {
+    await writeWithoutForeignKeys(t, async (tx) => {
       const w = new Writer(tx, { studyId, siteId: A1, uploader: t.seed.users.technician.id });
-      let current = newest[0]?.id;
-      if (current === undefined) {
+      let current = newest;
+      if (current === null) {
         current = randomUUID();
         await tx.query(
           `INSERT INTO "analysis_settings" ("id", "studyId", "version", "valuesJson", "reason", "createdAt") VALUES (?, ?, 1, '{}', 'test', ?)`,
@@ -319,7 +316,6 @@ describe('study overview', () => {
       await V(p5, A2, null, '2026-03-01');
       Object.assign(s, { p1, p2, p3, p4, p5 });
     });
-    await t.dataSource.query('PRAGMA foreign_keys = ON');
   }, 120_000);
   afterAll(async () => {
     await t.close();
@@ -482,8 +478,7 @@ describe('study overview over a few hundred participants', () => {
       flat: false,
       saturated: false,
     }));
-    await t.dataSource.query('PRAGMA foreign_keys = OFF');
-    await t.dataSource.transaction(async (tx) => {
+    await writeWithoutForeignKeys(t, async (tx) => {
       const w = new Writer(tx, { studyId, siteId: site, uploader: t.seed.users.technicianB.id });
       const groups = [await w.group('Arm 1'), await w.group('Arm 2')];
       const planned: string[] = [];
@@ -513,7 +508,6 @@ describe('study overview over a few hundred participants', () => {
         }
       }
     });
-    await t.dataSource.query('PRAGMA foreign_keys = ON');
   }, 300_000);
   afterAll(async () => {
     await t.close();

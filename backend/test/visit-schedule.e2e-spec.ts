@@ -18,6 +18,7 @@ import type {
 } from '@gyre/shared';
 import type { UserKey } from './helpers/seed';
 import { useTestApp } from './helpers/test-app';
+import { deleteAs, getAs, postAs } from './helpers/api-call';
 
 const t = useTestApp();
 const as = async (user: UserKey) => t.authHeader(user);
@@ -39,26 +40,20 @@ const groupsUrl = (study: string) => `/api/studies/${study}/groups`;
 
 describe('visit schedule and groups', () => {
   it('lets the admin write the schedule and groups, audited', async () => {
-    const post = async (body: object) =>
-      request(t.url)
-        .post(plannedUrl(studyA))
-        .set(await as('admin'))
-        .send(body);
-    const week12Response = await post({
-      name: 'Week 12',
-      targetDay: 84,
-      windowBeforeDays: 14,
-      windowAfterDays: 14,
-    });
+    /** A planned visit: name, target day and the window's days before and after it. */
+    const post = async (name: string, targetDay: number, before: number, after: number) =>
+      postAs(t, 'admin', plannedUrl(studyA), {
+        name,
+        targetDay,
+        windowBeforeDays: before,
+        windowAfterDays: after,
+      });
+    const week12Response = await post('Week 12', 84, 14, 14);
     expect(week12Response.status).toBe(201);
     week12 = week12Response.body as PlannedVisitView;
     expect(week12).toMatchObject({ studyId: studyA, name: 'Week 12', position: 0 });
-    baseline = (
-      await post({ name: 'Baseline', targetDay: 0, windowBeforeDays: 0, windowAfterDays: 7 })
-    ).body as PlannedVisitView;
-    week26 = (
-      await post({ name: 'Week 26', targetDay: 182, windowBeforeDays: 14, windowAfterDays: 14 })
-    ).body as PlannedVisitView;
+    baseline = (await post('Baseline', 0, 0, 7)).body as PlannedVisitView;
+    week26 = (await post('Week 26', 182, 14, 14)).body as PlannedVisitView;
     // Order it: baseline first.
     const moved = await request(t.url)
       .patch(`${plannedUrl(studyA)}/${baseline.id}`)
@@ -69,47 +64,24 @@ describe('visit schedule and groups', () => {
       .patch(`${plannedUrl(studyA)}/${week12.id}`)
       .set(await as('admin'))
       .send({ position: 1 });
-    const duplicate = await post({
-      name: 'week 12',
-      targetDay: 90,
-      windowBeforeDays: 0,
-      windowAfterDays: 0,
-    });
+    const duplicate = await post('week 12', 90, 0, 0);
     expect(duplicate.status).toBe(409);
     expect(duplicate.body).toMatchObject({ code: 'PLANNED_VISIT_NAME_TAKEN' });
     expect(duplicate.body.message).toContain('week 12');
-    const negative = await post({
-      name: 'Week 1',
-      targetDay: -1,
-      windowBeforeDays: 0,
-      windowAfterDays: 0,
-    });
+    const negative = await post('Week 1', -1, 0, 0);
     expect(negative.status).toBe(400);
     expect(negative.body.message).toMatch(/targetDay/);
 
-    armA = (
-      await request(t.url)
-        .post(groupsUrl(studyA))
-        .set(await as('admin'))
-        .send({ name: 'Arm A', description: 'Training' })
-    ).body as StudyGroupView;
-    armB = (
-      await request(t.url)
-        .post(groupsUrl(studyA))
-        .set(await as('admin'))
-        .send({ name: 'Arm B' })
-    ).body as StudyGroupView;
+    armA = (await postAs(t, 'admin', groupsUrl(studyA), { name: 'Arm A', description: 'Training' }))
+      .body as StudyGroupView;
+    armB = (await postAs(t, 'admin', groupsUrl(studyA), { name: 'Arm B' })).body as StudyGroupView;
     expect(armB).toMatchObject({ name: 'Arm B', description: '' });
 
-    const audit = await request(t.url)
-      .get('/api/audit?objectType=PlannedVisit&pageSize=50')
-      .set(await as('admin'));
+    const audit = await getAs(t, 'admin', '/api/audit?objectType=PlannedVisit&pageSize=50');
     const entries = audit.body.items as AuditEntryView[];
     expect(entries.filter((e) => e.action === 'create')).toHaveLength(3);
     expect(entries.filter((e) => e.action === 'update')).toHaveLength(2);
-    const groupAudit = await request(t.url)
-      .get('/api/audit?objectType=StudyGroup')
-      .set(await as('admin'));
+    const groupAudit = await getAs(t, 'admin', '/api/audit?objectType=StudyGroup');
     expect(groupAudit.body.total).toBe(2);
   });
 
@@ -142,13 +114,7 @@ describe('visit schedule and groups', () => {
         code: 'AUTH_FORBIDDEN',
       });
     }
-    expect(
-      (
-        await request(t.url)
-          .get(groupsUrl(studyB))
-          .set(await as('admin'))
-      ).body,
-    ).toEqual([]);
+    expect((await getAs(t, 'admin', groupsUrl(studyB))).body).toEqual([]);
   });
 
   it('stores the trend settings on the study and refuses bad ones', async () => {
@@ -157,9 +123,7 @@ describe('visit schedule and groups', () => {
         .patch(`/api/studies/${studyA}`)
         .set(await as('admin'))
         .send(body);
-    const before = await request(t.url)
-      .get(`/api/studies/${studyA}`)
-      .set(await as('analyst'));
+    const before = await getAs(t, 'analyst', `/api/studies/${studyA}`);
     expect(before.body).toMatchObject({ trendMinVisits: 3, trendMinSpanDays: 90 });
     const changed = await patch({ trendMinVisits: 4, trendMinSpanDays: 120 });
     expect(changed.status).toBe(200);
@@ -193,12 +157,8 @@ describe('visit schedule and groups', () => {
     const written = await create({ code: 'A1-0103', enrolmentDate: '5 Jan 2026' });
     expect(written.status).toBe(400);
     expect(written.body.message).toMatch(/enrolmentDate/);
-    const groupB = (
-      await request(t.url)
-        .post(groupsUrl(studyB))
-        .set(await as('admin'))
-        .send({ name: 'Other arm' })
-    ).body as StudyGroupView;
+    const groupB = (await postAs(t, 'admin', groupsUrl(studyB), { name: 'Other arm' }))
+      .body as StudyGroupView;
     const foreign = await create({ code: 'A1-0104', groupId: groupB.id });
     expect(foreign.status).toBe(400);
     expect(foreign.body).toMatchObject({ code: 'PARTICIPANT_GROUP_NOT_IN_STUDY' });
@@ -225,16 +185,10 @@ describe('visit schedule and groups', () => {
   });
 
   it('registers visits on planned visits with their window status, one per planned visit', async () => {
-    const participant = (
-      await request(t.url)
-        .get('/api/participants?q=A1-0101')
-        .set(await as('technician'))
-    ).body.items[0] as ParticipantView;
+    const participant = (await getAs(t, 'technician', '/api/participants?q=A1-0101')).body
+      .items[0] as ParticipantView;
     const post = async (body: object) =>
-      request(t.url)
-        .post('/api/visits')
-        .set(await as('technician'))
-        .send({ participantId: participant.id, ...body });
+      postAs(t, 'technician', '/api/visits', { participantId: participant.id, ...body });
     const missing = await post({ label: 'V1', visitDate: '2026-01-05' });
     expect(missing.status).toBe(400);
     expect(missing.body).toMatchObject({ code: 'VISIT_PLANNED_VISIT_REQUIRED' });
@@ -285,20 +239,16 @@ describe('visit schedule and groups', () => {
     expect(moved.body.schedule).toMatchObject({ studyDay: 98, window: 'in' });
 
     // A visit whose participant has no enrolment date reads "unknown".
-    const other = await request(t.url)
-      .post('/api/participants')
-      .set(await as('technician'))
-      .send({ code: 'A1-0105' });
-    const unknown = await request(t.url)
-      .post('/api/visits')
-      .set(await as('technician'))
-      .send({ participantId: other.body.id, plannedVisitId: baseline.id, visitDate: '2026-02-02' });
+    const other = await postAs(t, 'technician', '/api/participants', { code: 'A1-0105' });
+    const unknown = await postAs(t, 'technician', '/api/visits', {
+      participantId: other.body.id,
+      plannedVisitId: baseline.id,
+      visitDate: '2026-02-02',
+    });
     expect(unknown.status).toBe(201);
     expect(unknown.body.schedule).toMatchObject({ studyDay: null, window: 'unknown' });
 
-    const list = await request(t.url)
-      .get(`/api/visits?participantId=${participant.id}`)
-      .set(await as('analyst'));
+    const list = await getAs(t, 'analyst', `/api/visits?participantId=${participant.id}`);
     expect((list.body.items as VisitView[]).map((v) => [v.label, v.schedule.window])).toEqual([
       ['Baseline', 'in'],
       ['Extra', 'unplanned'],
@@ -307,31 +257,29 @@ describe('visit schedule and groups', () => {
   });
 
   it('refuses to delete a planned visit or group in use, naming what uses it', async () => {
-    const plannedInUse = await request(t.url)
-      .delete(`${plannedUrl(studyA)}/${week12.id}`)
-      .set(await as('admin'));
+    const plannedInUse = await deleteAs(t, 'admin', `${plannedUrl(studyA)}/${week12.id}`);
     expect(plannedInUse.status).toBe(409);
     expect(plannedInUse.body).toMatchObject({ code: 'PLANNED_VISIT_IN_USE' });
     expect(plannedInUse.body.message).toContain('A1-0101');
-    const groupInUse = await request(t.url)
-      .delete(`${groupsUrl(studyA)}/${armA.id}`)
-      .set(await as('admin'));
+    const groupInUse = await deleteAs(t, 'admin', `${groupsUrl(studyA)}/${armA.id}`);
     expect(groupInUse.status).toBe(409);
     expect(groupInUse.body).toMatchObject({ code: 'STUDY_GROUP_IN_USE' });
     expect(groupInUse.body.message).toContain('A1-0101');
     const spare = (
-      await request(t.url)
-        .post(plannedUrl(studyA))
-        .set(await as('admin'))
-        .send({ name: 'Spare', targetDay: 400, windowBeforeDays: 0, windowAfterDays: 0 })
+      await postAs(t, 'admin', plannedUrl(studyA), {
+        name: 'Spare',
+        targetDay: 400,
+        windowBeforeDays: 0,
+        windowAfterDays: 0,
+      })
     ).body as PlannedVisitView;
-    const removed = await request(t.url)
-      .delete(`${plannedUrl(studyA)}/${spare.id}?reason=not%20in%20the%20protocol`)
-      .set(await as('admin'));
+    const removed = await deleteAs(
+      t,
+      'admin',
+      `${plannedUrl(studyA)}/${spare.id}?reason=not%20in%20the%20protocol`,
+    );
     expect(removed.status).toBe(204);
-    const audit = await request(t.url)
-      .get(`/api/audit?objectType=PlannedVisit&action=delete`)
-      .set(await as('admin'));
+    const audit = await getAs(t, 'admin', `/api/audit?objectType=PlannedVisit&action=delete`);
     expect(audit.body.items[0]).toMatchObject({
       objectId: spare.id,
       reason: 'not in the protocol',
@@ -380,18 +328,46 @@ describe('visit schedule and groups', () => {
     // Baseline closed 2026-01-12 (day 7): 2026-07-01 is 170 days later.
     expect(a2?.due[0]).toMatchObject({ plannedVisitName: 'Baseline', daysOverdue: 170 });
     expect((await due('technicianA2', '2026-07-01')).participants).toHaveLength(1);
-    const other = await request(t.url)
-      .get(`/api/studies/${studyA}/due`)
-      .set(await as('technicianB'));
+    const other = await getAs(t, 'technicianB', `/api/studies/${studyA}/due`);
     expect(other.status).toBe(404);
-    const admin = await request(t.url)
-      .get(`/api/studies/${studyA}/due`)
-      .set(await as('admin'));
+    const admin = await getAs(t, 'admin', `/api/studies/${studyA}/due`);
     expect(admin.status).toBe(403);
-    const bad = await request(t.url)
-      .get(`/api/studies/${studyA}/due?asOf=2026-02-30`)
-      .set(await as('technician'));
+    const bad = await getAs(t, 'technician', `/api/studies/${studyA}/due?asOf=2026-02-30`);
     expect(bad.status).toBe(400);
     expect(bad.body.message).toContain('2026-02-30');
+  });
+
+  it('changes only the fields a PATCH gives (null keeps the value), audited with both sides', async () => {
+    const created = (
+      await postAs(t, 'admin', groupsUrl(studyB), { name: 'Arm P', description: 'Before' })
+    ).body as StudyGroupView;
+    const patch = async (body: object) =>
+      request(t.url)
+        .patch(`${groupsUrl(studyB)}/${created.id}`)
+        .set(await as('admin'))
+        .send(body);
+    const described = await patch({ description: ' After ' });
+    expect(described.status).toBe(200);
+    expect(described.body).toMatchObject({ id: created.id, name: 'Arm P', description: 'After' });
+    const renamed = await patch({ name: 'Arm Q', description: null });
+    expect(renamed.status).toBe(200);
+    expect(renamed.body).toMatchObject({ name: 'Arm Q', description: 'After', studyId: studyB });
+    expect(await patch({ studyId: studyA })).toMatchObject({ status: 400 });
+    // A day not written YYYY-MM-DD is refused by name, in a query and in a body alike.
+    const badDay = await getAs(t, 'technician', '/api/visits', { from: '2026-3-1' });
+    expect(badDay.status).toBe(400);
+    expect(badDay.body.details.problems).toEqual([
+      { field: 'from', reason: 'from must be a calendar date written YYYY-MM-DD' },
+    ]);
+    const audit = await getAs(t, 'admin', '/api/audit', {
+      objectType: 'StudyGroup',
+      action: 'update',
+      order: 'desc',
+    });
+    const entry = (audit.body.items as AuditEntryView[]).find((e) => e.objectId === created.id);
+    expect(entry).toMatchObject({
+      before: { name: 'Arm P', description: 'After' },
+      after: { name: 'Arm Q', description: 'After' },
+    });
   });
 });

@@ -16,6 +16,7 @@ import type {
 import { startTestApp, TestApp } from './helpers/test-app';
 import type { UserKey } from './helpers/seed';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
+import { getAs, postAs } from './helpers/api-call';
 
 async function worklist(
   t: TestApp,
@@ -127,17 +128,14 @@ describe('worklist and the visit-reviewed act', () => {
   });
 
   it('refuses the review to monitors (403), technicians and coordinators, and hides other studies (404)', async () => {
-    const state = await request(t.url)
-      .get(`/api/visits/${visitA1}/review`)
-      .set(await t.authHeader('monitor'));
+    const state = await getAs(t, 'monitor', `/api/visits/${visitA1}/review`);
     expect(state.status).toBe(200);
     const seen = state.body as VisitReviewStateView;
     expect(seen).toMatchObject({ reviewed: false, canReview: false, latest: null });
     expect(seen.cannotReviewReason).toBe('Your role does not mark visits reviewed.');
-    const post = await request(t.url)
-      .post(`/api/visits/${visitA1}/review`)
-      .set(await t.authHeader('monitor'))
-      .send({ fingerprint: seen.currentFingerprint });
+    const post = await postAs(t, 'monitor', `/api/visits/${visitA1}/review`, {
+      fingerprint: seen.currentFingerprint,
+    });
     expect(post.status).toBe(403);
     for (const user of ['technician', 'coordinator'] as const) {
       const denied = await request(t.url)
@@ -145,34 +143,29 @@ describe('worklist and the visit-reviewed act', () => {
         .set(await t.authHeader(user));
       expect([user, denied.status]).toEqual([user, 403]);
     }
-    const otherStudy = await request(t.url)
-      .post(`/api/visits/${visitA1}/review`)
-      .set(await t.authHeader('analystB'))
-      .send({ fingerprint: seen.currentFingerprint });
+    const otherStudy = await postAs(t, 'analystB', `/api/visits/${visitA1}/review`, {
+      fingerprint: seen.currentFingerprint,
+    });
     expect(otherStudy.status).toBe(404);
     expect(otherStudy.body.code).toBe('VISIT_REVIEW_VISIT_NOT_FOUND');
   });
 
   it('refuses a review without results (409) and a malformed or stale fingerprint (400, 409)', async () => {
-    const analyst = await t.authHeader('analyst');
-    const empty = await request(t.url).get(`/api/visits/${visitA2}/review`).set(analyst);
+    const empty = await getAs(t, 'analyst', `/api/visits/${visitA2}/review`);
     expect(empty.body).toMatchObject({ currentFingerprint: null, canReview: false });
-    const none = await request(t.url)
-      .post(`/api/visits/${visitA2}/review`)
-      .set(analyst)
-      .send({ fingerprint: 'a'.repeat(64) });
+    const none = await postAs(t, 'analyst', `/api/visits/${visitA2}/review`, {
+      fingerprint: 'a'.repeat(64),
+    });
     expect(none.status).toBe(409);
     expect(none.body.code).toBe('VISIT_REVIEW_NO_RESULTS');
-    const malformed = await request(t.url)
-      .post(`/api/visits/${visitA1}/review`)
-      .set(analyst)
-      .send({ fingerprint: 'not hex' });
+    const malformed = await postAs(t, 'analyst', `/api/visits/${visitA1}/review`, {
+      fingerprint: 'not hex',
+    });
     expect(malformed.status).toBe(400);
     expect(malformed.body.message).toMatch(/fingerprint must be 64 lower-case hex digits/);
-    const stale = await request(t.url)
-      .post(`/api/visits/${visitA1}/review`)
-      .set(analyst)
-      .send({ fingerprint: 'b'.repeat(64) });
+    const stale = await postAs(t, 'analyst', `/api/visits/${visitA1}/review`, {
+      fingerprint: 'b'.repeat(64),
+    });
     expect(stale.status).toBe(409);
     expect(stale.body.code).toBe('VISIT_REVIEW_RESULTS_CHANGED');
     expect(await t.dataSource.query(`SELECT count(*) AS n FROM "visit_review"`)).toEqual([
@@ -181,17 +174,15 @@ describe('worklist and the visit-reviewed act', () => {
   });
 
   it('marks the visit reviewed (audited with the fingerprint): off the list, and not twice', async () => {
-    const analyst = await t.authHeader('analyst');
-    const before = (await request(t.url).get(`/api/visits/${visitA1}/review`).set(analyst))
+    const before = (await getAs(t, 'analyst', `/api/visits/${visitA1}/review`))
       .body as VisitReviewStateView;
     const expected = await fingerprintFromDb(t, visitA1);
     expect(before).toMatchObject({ currentFingerprint: expected, canReview: true });
     expect(before.currentRunIds.map((id) => id.split(':')[0])).toEqual(['resting', 'task']);
 
-    const marked = await request(t.url)
-      .post(`/api/visits/${visitA1}/review`)
-      .set(analyst)
-      .send({ fingerprint: expected });
+    const marked = await postAs(t, 'analyst', `/api/visits/${visitA1}/review`, {
+      fingerprint: expected,
+    });
     expect(marked.status).toBe(201);
     const after = marked.body as VisitReviewStateView;
     expect(after).toMatchObject({
@@ -224,10 +215,9 @@ describe('worklist and the visit-reviewed act', () => {
     expect(section(list, 'suggestions').total).toBe(0);
     expect(visitsIn(list, 'awaitingSignature')).toEqual([visitA1]);
 
-    const twice = await request(t.url)
-      .post(`/api/visits/${visitA1}/review`)
-      .set(analyst)
-      .send({ fingerprint: expected });
+    const twice = await postAs(t, 'analyst', `/api/visits/${visitA1}/review`, {
+      fingerprint: expected,
+    });
     expect(twice.status).toBe(409);
     expect(twice.body.code).toBe('VISIT_REVIEW_ALREADY_REVIEWED');
   });
@@ -242,11 +232,8 @@ describe('worklist and the visit-reviewed act', () => {
     await waitForState(t, 'technician', (replaced.body as RecordingView).id, ['ready']);
     await t.computationsIdle();
 
-    const state = (
-      await request(t.url)
-        .get(`/api/visits/${visitA1}/review`)
-        .set(await t.authHeader('analyst'))
-    ).body as VisitReviewStateView;
+    const state = (await getAs(t, 'analyst', `/api/visits/${visitA1}/review`))
+      .body as VisitReviewStateView;
     expect(state).toMatchObject({ reviewed: false, changedSinceReview: true, canReview: true });
     expect(state.currentFingerprint).toBe(await fingerprintFromDb(t, visitA1));
     expect(state.currentFingerprint).not.toBe(state.latest?.fingerprint);
@@ -294,22 +281,16 @@ describe('worklist and the visit-reviewed act', () => {
     expect(section(a1, 'rejected').total).toBe(0);
     expect(section(a1, 'missingKinds').total).toBe(0);
 
-    const coordinator = await request(t.url)
-      .get('/api/worklist')
-      .set(await t.authHeader('coordinator'));
+    const coordinator = await getAs(t, 'coordinator', '/api/worklist');
     expect(coordinator.status).toBe(403);
   });
 
   it('checks its query: unknown sort or section 400, a section of another role 400', async () => {
-    const analyst = await t.authHeader('analyst');
     for (const query of [{ sort: 'random' }, { limit: 0 }, { limit: 201 }, { section: 'nope' }]) {
-      const response = await request(t.url).get('/api/worklist').query(query).set(analyst);
+      const response = await getAs(t, 'analyst', '/api/worklist', query);
       expect([query, response.status]).toEqual([query, 400]);
     }
-    const notYours = await request(t.url)
-      .get('/api/worklist')
-      .query({ section: 'unreviewed' })
-      .set(await t.authHeader('technician'));
+    const notYours = await getAs(t, 'technician', '/api/worklist', { section: 'unreviewed' });
     expect(notYours.status).toBe(400);
     expect(notYours.body.code).toBe('WORKLIST_SECTION_NOT_YOURS');
   });

@@ -45,6 +45,9 @@ async function expectInside(page: Page, figure: Locator): Promise<void> {
 describe('chart axes and labels in Chromium, on a real server', () => {
   const run = gyreInChromium();
   let invented: InventedStudy;
+  /** Signs the study's analyst in through the page, landing on `path`. */
+  const signInAsAnalyst = (page: Page, path: string) =>
+    signInThroughPage(page, run.gyre.baseUrl, PEOPLE.analyst.email, path);
 
   beforeAll(async () => {
     invented = await setUpInventedStudy(run.gyre, PEOPLE);
@@ -55,12 +58,7 @@ describe('chart axes and labels in Chromium, on a real server', () => {
       const page = await run.browser.context.newPage();
       const problems = watchConsole(page);
       await page.setViewportSize({ width, height: 900 });
-      await signInThroughPage(
-        page,
-        run.gyre.baseUrl,
-        PEOPLE.analyst.email,
-        `/review/${invented.visit.id}`,
-      );
+      await signInAsAnalyst(page, `/review/${invented.visit.id}`);
       const onset = page.getByRole('figure', { name: 'Onset curve' });
       // The chart's own element, with its ticks, once the lazy chart code has come.
       await onset.locator('[data-gyre-chart][data-x-ticks]').waitFor({ timeout: 60_000 });
@@ -104,12 +102,7 @@ describe('chart axes and labels in Chromium, on a real server', () => {
   it('Participant at 390 px: date ticks name each month or year once', async () => {
     const page = await run.browser.context.newPage();
     await page.setViewportSize({ width: 390, height: 900 });
-    await signInThroughPage(
-      page,
-      run.gyre.baseUrl,
-      PEOPLE.analyst.email,
-      `/participants/${invented.participant.id}`,
-    );
+    await signInAsAnalyst(page, `/participants/${invented.participant.id}`);
     const alpha = page.getByRole('figure', { name: 'Alpha frequency trajectory' });
     await alpha.locator('[data-gyre-chart][data-x-ticks]').waitFor({ timeout: 60_000 });
     const dates = await tickLabels(alpha, 'x');

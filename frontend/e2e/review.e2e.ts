@@ -12,11 +12,10 @@ import { randomUUID } from 'node:crypto';
 import { api, E2E_PASSWORD } from './support/accounts';
 import { addParticipant, addVisit, setUpStudy, uploadComputed } from './support/study-data';
 import { signInThroughPage } from './support/sign-in-page';
-import { screenshot, watchConsole } from './support/browser';
+import { screenshot, watchConsole, openFromMainMenu } from './support/browser';
 import { gyreInChromium } from './support/gyre-server';
+import { RESEARCH_CAUTION } from './support/caution';
 
-const CAUTION =
-  'Research use only. Not a diagnostic device: do not use these results for clinical decisions. Follow your study protocol, local regulations and licensed clinicians.';
 // Generated test accounts of an invented study.
 const ADMIN = { email: 'rae.admin@gyre.test', name: 'Rae Admin', password: E2E_PASSWORD };
 const TECHNICIAN = { email: 'theo.tech@gyre.test', name: 'Theo Tech' };
@@ -118,7 +117,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await page.getByText(`Review · ${participant.code} · ${visit.label}`).waitFor();
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
-    ).resolves.toContain(CAUTION);
+    ).resolves.toContain(RESEARCH_CAUTION);
 
     await expectDrawn(page, 'Onset curve', 5000);
     await expectDrawn(page, 'Trial raster', 5000);
@@ -168,10 +167,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
 
     // A new study settings version (post window to +0.9 s) is saved on its own screen and
     // re-runs nothing; Review then says what the new version would change, and re-runs on request.
-    await page
-      .getByRole('navigation', { name: 'Main' })
-      .getByRole('link', { name: 'Study settings' })
-      .click();
+    await openFromMainMenu(page, 'Study settings');
     const settings = page.getByRole('form', { name: 'Analysis settings' });
     await settings.getByLabel('Post end').fill('0.9');
     await settings.getByLabel('Reason for the change').fill('Longer post window after the pilot');
@@ -179,7 +175,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await page.getByText('version 2', { exact: false }).first().waitFor();
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
-    ).resolves.toContain(CAUTION);
+    ).resolves.toContain(RESEARCH_CAUTION);
     await screenshot(page, 'study-settings-analyst');
     // Saving the same values again is refused in words.
     await settings.getByLabel('Reason for the change').fill('Saving the same values once more');
@@ -228,10 +224,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await screenshot(page, 'review-analyst-rerun');
 
     // Participants: the list, then this participant's trajectory with the flagged visit.
-    await page
-      .getByRole('navigation', { name: 'Main' })
-      .getByRole('link', { name: 'Participants' })
-      .click();
+    await openFromMainMenu(page, 'Participants');
     await page.getByRole('link', { name: participant.code }).waitFor();
     await screenshot(page, 'participants-analyst');
     await page.getByRole('link', { name: participant.code }).click();
@@ -279,14 +272,11 @@ describe('Review and Participants in Chromium, on a real server', () => {
     await expect(page.getByRole('form', { name: 'Analysis settings' }).count()).resolves.toBe(0);
     await expect(page.locator('textarea').count()).resolves.toBe(0);
     await screenshot(page, 'review-monitor');
-    await page
-      .getByRole('navigation', { name: 'Main' })
-      .getByRole('link', { name: 'Participants' })
-      .click();
+    await openFromMainMenu(page, 'Participants');
     await page.getByRole('link', { name: participant.code }).waitFor();
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
-    ).resolves.toContain(CAUTION);
+    ).resolves.toContain(RESEARCH_CAUTION);
     await screenshot(page, 'participants-monitor');
     // Keyboard only: Tab to the participant's link and open it with Enter.
     let focused = '';

@@ -1,7 +1,7 @@
 import type { CDPSession, Page } from 'playwright-core';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { createFirstAdmin, E2E_PASSWORD } from './support/accounts';
-import { watchConsole } from './support/browser';
+import { watchConsole, openFromMainMenu } from './support/browser';
 import { gyreInChromium } from './support/gyre-server';
 import { signInThroughPage } from './support/sign-in-page';
 
@@ -47,16 +47,19 @@ describe('screens whose code is still on its way, in Chromium', () => {
     await createFirstAdmin(run.gyre.dataDir, ADMIN);
   });
 
-  it('keeps the screen being left, under a progress bar, until the next one is ready', async () => {
+  /** A new page signed in as the admin on the start screen, its network slowed from then on. */
+  async function adminOnSlowNetwork() {
     const page = await run.browser.context.newPage();
     const problems = watchConsole(page);
     await signInThroughPage(page, run.gyre.baseUrl, ADMIN.email, '/');
     await page.getByText(/^Welcome, /).waitFor();
     await slowNetwork(page);
-    await page
-      .getByRole('navigation', { name: 'Main' })
-      .getByRole('link', { name: 'Team' })
-      .click();
+    return { page, problems };
+  }
+
+  it('keeps the screen being left, under a progress bar, until the next one is ready', async () => {
+    const { page, problems } = await adminOnSlowNetwork();
+    await openFromMainMenu(page, 'Team');
     const progress = page.getByRole('progressbar', { name: 'Opening the screen' });
     await progress.waitFor();
     // The start screen stays while Team's code arrives: no blank window, no other screen.
@@ -68,11 +71,7 @@ describe('screens whose code is still on its way, in Chromium', () => {
   });
 
   it('opens a deep link through a loading outline, never the sign-in form or another page', async () => {
-    const page = await run.browser.context.newPage();
-    const problems = watchConsole(page);
-    await signInThroughPage(page, run.gyre.baseUrl, ADMIN.email, '/');
-    await page.getByText(/^Welcome, /).waitFor();
-    await slowNetwork(page);
+    const { page, problems } = await adminOnSlowNetwork();
     await page.addInitScript(STATES);
     // A full load: the session is renewed with the refresh cookie, the code fetched again.
     await page.goto(`${run.gyre.baseUrl}/ledger`);

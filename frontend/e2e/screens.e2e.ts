@@ -21,9 +21,7 @@ import {
 import { openBrowser, screenshot, watchConsole } from './support/browser';
 import { writeRestingEdf, writeTruncatedEdf } from './support/edf-files';
 import { startGyre, type RunningGyre } from './support/gyre-server';
-
-const CAUTION =
-  'Research use only. Not a diagnostic device: do not use these results for clinical decisions. Follow your study protocol, local regulations and licensed clinicians.';
+import { RESEARCH_CAUTION } from './support/caution';
 
 // Generated test accounts of an invented study.
 const ADMIN = { email: 'ada.admin@gyre.test', name: 'Ada Admin', password: E2E_PASSWORD };
@@ -149,7 +147,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     await page.getByText('The trail is intact').waitFor();
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
-    ).resolves.toContain(CAUTION);
+    ).resolves.toContain(RESEARCH_CAUTION);
     await screenshot(page, 'ledger-admin');
 
     // The technician opens the link from the fake SMTP server's copy of the message.
@@ -279,7 +277,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     await changes.getByText('Reason for raising').waitFor();
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
-    ).resolves.toContain(CAUTION);
+    ).resolves.toContain(RESEARCH_CAUTION);
     await screenshot(page, 'ledger-monitor');
 
     const download = page.waitForEvent('download');
@@ -325,7 +323,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
-    ).resolves.toContain(CAUTION);
+    ).resolves.toContain(RESEARCH_CAUTION);
     await screenshot(page, 'reports-coordinator');
     await page.goto(`${gyre.baseUrl}/review/${visitId}`, { waitUntil: 'networkidle' });
     await page.getByText('Not available for your role').waitFor();
@@ -470,7 +468,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     await item.locator('[aria-label="Schedule: Unscheduled"]').waitFor();
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
-    ).resolves.toContain(CAUTION);
+    ).resolves.toContain(RESEARCH_CAUTION);
     await screenshot(page, 'home-analyst-worklist');
     await page.setViewportSize(PHONE);
     expect(await overflowsSideways(page)).toEqual([]);
@@ -520,7 +518,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     // The page's caution comes first; the exports card repeats it beside the downloads.
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).first().innerText(),
-    ).resolves.toContain(CAUTION);
+    ).resolves.toContain(RESEARCH_CAUTION);
     await screenshot(page, 'study-overview-analyst');
     await page.setViewportSize(PHONE);
     await page.reload({ waitUntil: 'networkidle' });

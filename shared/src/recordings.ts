@@ -470,14 +470,18 @@ export interface ChannelQualityView {
 export interface QualityView {
   durationS: number;
   sampleRatesHz: number[];
+  /** Region-of-interest channels present in the file (usable or not), file labels. */
   roiChannelsFound: string[];
+  /** Region-of-interest names not in the file. */
   roiChannelsMissing: string[];
   flatChannels: string[];
   saturatedChannels: string[];
   /** Median over channels of the line-noise ratios. */
   lineNoiseRatio50Hz: number | null;
   lineNoiseRatio60Hz: number | null;
+  /** Dropped epochs over all epochs of the region of interest. */
   epochsDroppedShare: number | null;
+  /** Mean over the region of interest of the phase-slip share. */
   phaseSlipShare: number | null;
   alphaPeakProminenceDb: number | null;
   channels: ChannelQualityView[];

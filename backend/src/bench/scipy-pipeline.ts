@@ -9,29 +9,39 @@ import { defaultEdgePaddingS, medianWindowLengths } from '../signal/frequency/fr
 import { MAX_STIMULUS_DURATION_S } from '../signal/onsets/stimulus-annotations';
 import { DEFAULT_ANALYSIS_COMPUTATION } from '../signal/pipeline/analysis-computation';
 import {
+  AnalysisSettings,
   BOOTSTRAP_RESAMPLES,
   BOOTSTRAP_SEED,
+  copyAnalysisSettings,
   DEFAULT_ANALYSIS_SETTINGS,
   resolveAnalysisBand,
 } from '../signal/pipeline/analysis-settings';
-import { DEFAULT_QUALITY_THRESHOLDS } from '../signal/quality/quality-checks';
+import {
+  ChannelQualityThresholds,
+  DEFAULT_QUALITY_THRESHOLDS,
+} from '../signal/quality/quality-checks';
 
 /** The repository root, from backend/src/bench and backend/dist/bench alike. */
 export const REPOSITORY_DIR = resolve(__dirname, '..', '..', '..');
 export const SCIPY_SCRIPT = resolve(REPOSITORY_DIR, 'bench', 'scipy_pipeline.py');
 
+/** The study settings bench/scipy_pipeline.py computes with, as the server stores them. */
+type ScipySettings = Pick<
+  AnalysisSettings,
+  | 'epochWindowS'
+  | 'baselineWindowS'
+  | 'postWindowS'
+  | 'rejectionThresholdUv'
+  | 'flagThresholdHz'
+  | 'roi'
+>;
+
 /** What bench/scipy_pipeline.py reads from `--params`. */
-export interface ScipyParameters {
+export interface ScipyParameters extends ScipySettings, Required<ChannelQualityThresholds> {
   bandHz: [number, number];
   transitionFraction: number;
   edgePaddingS: number;
   medianWindows: number[];
-  epochWindowS: [number, number];
-  baselineWindowS: [number, number];
-  postWindowS: [number, number];
-  rejectionThresholdUv: number;
-  flagThresholdHz: number;
-  roi: string[];
   welchSegmentS: number;
   welchOverlapFraction: number;
   edgeGuardS: number;
@@ -41,9 +51,6 @@ export interface ScipyParameters {
   bootstrapResamples: number;
   bootstrapSeed: number;
   alphaSearchHz: [number, number];
-  flatBelowUv: number;
-  saturationMinRunSamples: number;
-  saturatedAboveShare: number;
 }
 
 /**
@@ -51,9 +58,10 @@ export interface ScipyParameters {
  * no resting IAF, as the benchmark's server computes it: the band is then 8–13 Hz.
  */
 export function scipyParameters(rateHz: number): ScipyParameters {
-  const settings = DEFAULT_ANALYSIS_SETTINGS;
+  const { epochWindowS, baselineWindowS, postWindowS, rejectionThresholdUv, flagThresholdHz, roi } =
+    copyAnalysisSettings(DEFAULT_ANALYSIS_SETTINGS);
   const computation = DEFAULT_ANALYSIS_COMPUTATION;
-  const { bandHz } = resolveAnalysisBand(settings, null);
+  const { bandHz } = resolveAnalysisBand(DEFAULT_ANALYSIS_SETTINGS, null);
   return {
     bandHz,
     transitionFraction: computation.transitionFraction,
@@ -63,12 +71,12 @@ export function scipyParameters(rateHz: number): ScipyParameters {
       transitionFraction: computation.transitionFraction,
     }),
     medianWindows: medianWindowLengths({ sampleRateHz: rateHz }),
-    epochWindowS: [settings.epochWindowS[0], settings.epochWindowS[1]],
-    baselineWindowS: [settings.baselineWindowS[0], settings.baselineWindowS[1]],
-    postWindowS: [settings.postWindowS[0], settings.postWindowS[1]],
-    rejectionThresholdUv: settings.rejectionThresholdUv,
-    flagThresholdHz: settings.flagThresholdHz,
-    roi: [...settings.roi],
+    epochWindowS,
+    baselineWindowS,
+    postWindowS,
+    rejectionThresholdUv,
+    flagThresholdHz,
+    roi,
     welchSegmentS: computation.welchSegmentS,
     welchOverlapFraction: computation.welchOverlapFraction,
     edgeGuardS: computation.edgeGuardS,
@@ -78,9 +86,7 @@ export function scipyParameters(rateHz: number): ScipyParameters {
     bootstrapResamples: BOOTSTRAP_RESAMPLES,
     bootstrapSeed: BOOTSTRAP_SEED,
     alphaSearchHz: [computation.alphaSearchHz[0], computation.alphaSearchHz[1]],
-    flatBelowUv: DEFAULT_QUALITY_THRESHOLDS.flatBelowUv,
-    saturationMinRunSamples: DEFAULT_QUALITY_THRESHOLDS.saturationMinRunSamples,
-    saturatedAboveShare: DEFAULT_QUALITY_THRESHOLDS.saturatedAboveShare,
+    ...DEFAULT_QUALITY_THRESHOLDS,
   };
 }
 

@@ -73,7 +73,6 @@ export type {
   OnsetCurveResult,
   OnsetInput,
   OnsetResult,
-  QualityResult,
   RecordingKindChoice,
   RestResult,
   RoiResult,
@@ -106,6 +105,7 @@ export type {
   ChannelQuality,
   ChannelQualityThresholds,
   ConverterRange,
+  QualityResult,
 } from './quality/quality-checks';
 
 // The one seeded random-number module, and generated recordings with known answers (tests,

@@ -1,5 +1,6 @@
 import { existsSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
+import type { EntityManager } from 'typeorm';
 import type { TestApp } from './test-app';
 
 /**
@@ -36,5 +37,61 @@ export function uploadFolder(t: TestApp): { stored: string[]; temporary: string[
           .sort()
       : [],
     temporary: existsSync(tmp) ? readdirSync(tmp) : [],
+  };
+}
+
+/** The id of the study's newest analysis settings version, or null before there is one. */
+export async function newestSettingsId(t: TestApp, studyId: string): Promise<string | null> {
+  const rows = (await t.dataSource.query(
+    `SELECT "id" FROM "analysis_settings" WHERE "studyId" = ? ORDER BY "version" DESC LIMIT 1`,
+    [studyId],
+  )) as Array<{ id: string }>;
+  return rows[0]?.id ?? null;
+}
+
+/**
+ * Rows written straight into the database in one transaction with SQLite's foreign keys off
+ * (for rows that name jobs or versions a test does not write), and on again after.
+ */
+export async function writeWithoutForeignKeys(
+  t: TestApp,
+  write: (tx: EntityManager) => Promise<void>,
+): Promise<void> {
+  await t.dataSource.query('PRAGMA foreign_keys = OFF');
+  try {
+    await t.dataSource.transaction(write);
+  } finally {
+    await t.dataSource.query('PRAGMA foreign_keys = ON');
+  }
+}
+
+/** `table: text` for each table of the database whose rows hold one of `texts` anywhere. */
+export async function tablesHolding(t: TestApp, texts: string[]): Promise<string[]> {
+  const tables = (await t.dataSource.query(
+    `SELECT "name" FROM "sqlite_master" WHERE "type" = 'table'`,
+  )) as Array<{ name: string }>;
+  const found: string[] = [];
+  for (const { name } of tables) {
+    const rows = JSON.stringify(await t.dataSource.query(`SELECT * FROM "${name}"`));
+    for (const text of texts) if (rows.includes(text)) found.push(`${name}: ${text}`);
+  }
+  return found;
+}
+
+/**
+ * Everything an import writes: the rows of recordings, visits, jobs and the audit entries of
+ * someone's action (the computations' own moves have no actor), of the `more` tables named
+ * like `rowCounts`' own, and the files in the upload folder.
+ */
+export function importFootprint<Name extends string>(t: TestApp, more: Record<Name, string>) {
+  return {
+    ...rowCounts(t, {
+      recordings: 'recording',
+      visits: 'visit',
+      jobs: 'job',
+      audit: 'audit_entry WHERE actorId IS NOT NULL',
+      ...more,
+    }),
+    ...uploadFolder(t),
   };
 }

@@ -92,3 +92,8 @@ async function capture(page: Page, file: string, options: { fullPage: boolean })
   await page.screenshot({ path: file, fullPage: options.fullPage });
   return file;
 }
+
+/** Opens `name` from the app's main menu (the navigation landmark named Main). */
+export async function openFromMainMenu(page: Page, name: string): Promise<void> {
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name }).click();
+}

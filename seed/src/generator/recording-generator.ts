@@ -114,25 +114,16 @@ export function generateRestingRecording(options: RestingRecordingOptions): Gene
     durationS,
     blinksPerMinute: options.blinksPerMinute ?? 4,
   });
-  const signals = synthesiseChannels(options, {
-    seedKey: options.seedKey,
-    durationS,
-    sampleRateHz,
-    onsetsS: [],
-    deltaFHz: 0,
-    blinks,
-  });
-  const annotations: EdfAnnotation[] = [{ onsetS: 0, durationS: durationS, text: 'Eyes closed' }];
-  return {
-    kind: 'resting',
-    edf: encode(options, signals, annotations, sampleRateHz),
-    durationS,
-    sampleRateHz,
-    channelLabels: signals.map((s) => s.label),
-    onsetsS: [],
-    onsetCsv: null,
-    truth: { iafHz: options.iafHz, deltaFHz: null },
-  };
+  return synthesiseRecording(
+    options,
+    { durationS, sampleRateHz, onsetsS: [], deltaFHz: 0, blinks },
+    {
+      kind: 'resting',
+      annotations: [{ onsetS: 0, durationS, text: 'Eyes closed' }],
+      onsetCsv: null,
+      truth: { iafHz: options.iafHz, deltaFHz: null },
+    },
+  );
 }
 
 /** A stimulus task recording: onsets in the EDF+ annotations (and as CSV), alpha changing by `deltaFHz` after each. */
@@ -159,30 +150,36 @@ export function generateTaskRecording(options: TaskRecordingOptions): GeneratedR
     onsetsS,
     blinksPerMinute: options.blinksPerMinute ?? 9,
   });
-  const signals = synthesiseChannels(options, {
-    seedKey: options.seedKey,
-    durationS,
-    sampleRateHz,
-    onsetsS,
-    deltaFHz: options.deltaFHz,
-    blinks,
-  });
   const labels = options.onsetLabels ?? [STIMULUS_LABEL];
   const labelled = onsetsS.map((onsetS, k) => ({ onsetS, label: labels[k % labels.length] }));
-  const annotations: EdfAnnotation[] = labelled.map(({ onsetS, label }) => ({
-    onsetS,
-    durationS: null,
-    text: label,
-  }));
+  return synthesiseRecording(
+    options,
+    { durationS, sampleRateHz, onsetsS, deltaFHz: options.deltaFHz, blinks },
+    {
+      kind: 'task',
+      annotations: labelled.map(({ onsetS, label }) => ({ onsetS, durationS: null, text: label })),
+      onsetCsv: writeOnsetCsv(labelled),
+      truth: { iafHz: options.iafHz, deltaFHz: options.deltaFHz },
+    },
+  );
+}
+
+/** The plan's channels synthesised and written with `annotations` as one EDF+ recording. */
+function synthesiseRecording(
+  options: RecordingOptions,
+  plan: Omit<SignalPlan, 'seedKey'>,
+  file: Pick<GeneratedRecording, 'kind' | 'onsetCsv' | 'truth'> & { annotations: EdfAnnotation[] },
+): GeneratedRecording {
+  const signals = synthesiseChannels(options, { seedKey: options.seedKey, ...plan });
   return {
-    kind: 'task',
-    edf: encode(options, signals, annotations, sampleRateHz),
-    durationS,
-    sampleRateHz,
+    kind: file.kind,
+    edf: encode(options, signals, file.annotations, plan.sampleRateHz),
+    durationS: plan.durationS,
+    sampleRateHz: plan.sampleRateHz,
     channelLabels: signals.map((s) => s.label),
-    onsetsS,
-    onsetCsv: writeOnsetCsv(labelled),
-    truth: { iafHz: options.iafHz, deltaFHz: options.deltaFHz },
+    onsetsS: plan.onsetsS,
+    onsetCsv: file.onsetCsv,
+    truth: file.truth,
   };
 }
 

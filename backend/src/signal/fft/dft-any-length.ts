@@ -81,35 +81,24 @@ export class BluesteinDft implements ComplexDft {
     const { a, b } = scratch;
     checkLength(a, 2 * m, 'scratch');
     checkLength(b, 2 * m, 'scratch');
-    const w = this.chirp;
     a.fill(0);
-    for (let k = 0; k < n; k++) {
-      const xr = input[2 * k];
-      const xi = input[2 * k + 1];
-      const wr = w[2 * k];
-      const wi = w[2 * k + 1];
-      a[2 * k] = xr * wr - xi * wi;
-      a[2 * k + 1] = xr * wi + xi * wr;
-    }
+    multiplyInto(a, input, this.chirp, n);
     inner.forward(a, b);
-    const h = this.kernelSpectrum;
-    for (let k = 0; k < m; k++) {
-      const br = b[2 * k];
-      const bi = b[2 * k + 1];
-      const hr = h[2 * k];
-      const hi = h[2 * k + 1];
-      b[2 * k] = br * hr - bi * hi;
-      b[2 * k + 1] = br * hi + bi * hr;
-    }
+    multiplyInto(b, b, this.kernelSpectrum, m);
     inner.inverse(b, a);
-    for (let k = 0; k < n; k++) {
-      const cr = a[2 * k];
-      const ci = a[2 * k + 1];
-      const wr = w[2 * k];
-      const wi = w[2 * k + 1];
-      output[2 * k] = cr * wr - ci * wi;
-      output[2 * k + 1] = cr * wi + ci * wr;
-    }
+    multiplyInto(output, a, this.chirp, n);
+  }
+}
+
+/** out[k] = x[k]·w[k] for the first `count` interleaved complex values (out may be x). */
+function multiplyInto(out: Float64Array, x: Float64Array, w: Float64Array, count: number): void {
+  for (let k = 0; k < count; k++) {
+    const xr = x[2 * k];
+    const xi = x[2 * k + 1];
+    const wr = w[2 * k];
+    const wi = w[2 * k + 1];
+    out[2 * k] = xr * wr - xi * wi;
+    out[2 * k + 1] = xr * wi + xi * wr;
   }
 }
 

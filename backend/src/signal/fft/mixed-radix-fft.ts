@@ -159,6 +159,19 @@ function rootsOfUnity(r: number): Float64Array {
   return roots;
 }
 
+/** y[at], y[at + 1] = (zr + i·zi)·(wr + i·wi): one butterfly output times its twiddle. */
+function rotateInto(
+  y: Float64Array,
+  at: number,
+  zr: number,
+  zi: number,
+  wr: number,
+  wi: number,
+): void {
+  y[at] = zr * wr - zi * wi;
+  y[at + 1] = zr * wi + zi * wr;
+}
+
 // In every pass, input element j of butterfly (p, q) is at 2·(q + s·(p + j·m)) and output
 // k goes to 2·(q + s·(r·p + k)), multiplied by the twiddle W_n^(p·k).
 
@@ -181,8 +194,7 @@ function pass2({ m, stride: s, twiddle: tw }: Pass, x: Float64Array, y: Float64A
       y[o0 + q + 1] = ai + bi;
       const dr = ar - br;
       const di = ai - bi;
-      y[o1 + q] = dr * w1r - di * w1i;
-      y[o1 + q + 1] = dr * w1i + di * w1r;
+      rotateInto(y, o1 + q, dr, di, w1r, w1i);
     }
   }
 }
@@ -217,14 +229,8 @@ function pass3({ m, stride: s, twiddle: tw }: Pass, x: Float64Array, y: Float64A
       const ui = h * (a1i - a2i);
       y[o0 + q] = a0r + sr;
       y[o0 + q + 1] = a0i + si;
-      const b1r = tr + ui;
-      const b1i = ti - ur;
-      const b2r = tr - ui;
-      const b2i = ti + ur;
-      y[o1 + q] = b1r * w1r - b1i * w1i;
-      y[o1 + q + 1] = b1r * w1i + b1i * w1r;
-      y[o2 + q] = b2r * w2r - b2i * w2i;
-      y[o2 + q + 1] = b2r * w2i + b2i * w2r;
+      rotateInto(y, o1 + q, tr + ui, ti - ur, w1r, w1i);
+      rotateInto(y, o2 + q, tr - ui, ti + ur, w2r, w2i);
     }
   }
 }
@@ -267,18 +273,9 @@ function pass4({ m, stride: s, twiddle: tw }: Pass, x: Float64Array, y: Float64A
       const t3i = a3r - a1r;
       y[o0 + q] = t0r + t2r;
       y[o0 + q + 1] = t0i + t2i;
-      const b1r = t1r + t3r;
-      const b1i = t1i + t3i;
-      const b2r = t0r - t2r;
-      const b2i = t0i - t2i;
-      const b3r = t1r - t3r;
-      const b3i = t1i - t3i;
-      y[o1 + q] = b1r * w1r - b1i * w1i;
-      y[o1 + q + 1] = b1r * w1i + b1i * w1r;
-      y[o2 + q] = b2r * w2r - b2i * w2i;
-      y[o2 + q + 1] = b2r * w2i + b2i * w2r;
-      y[o3 + q] = b3r * w3r - b3i * w3i;
-      y[o3 + q + 1] = b3r * w3i + b3i * w3r;
+      rotateInto(y, o1 + q, t1r + t3r, t1i + t3i, w1r, w1i);
+      rotateInto(y, o2 + q, t0r - t2r, t0i - t2i, w2r, w2i);
+      rotateInto(y, o3 + q, t1r - t3r, t1i - t3i, w3r, w3i);
     }
   }
 }
@@ -343,22 +340,10 @@ function pass5({ m, stride: s, twiddle: tw }: Pass, x: Float64Array, y: Float64A
       const u2i = s2 * b1i - s1 * b2i;
       y[o0 + q] = y0r + a1r + a2r;
       y[o0 + q + 1] = y0i + a1i + a2i;
-      let zr = t1r + u1i;
-      let zi = t1i - u1r;
-      y[o1 + q] = zr * w1r - zi * w1i;
-      y[o1 + q + 1] = zr * w1i + zi * w1r;
-      zr = t2r + u2i;
-      zi = t2i - u2r;
-      y[o2 + q] = zr * w2r - zi * w2i;
-      y[o2 + q + 1] = zr * w2i + zi * w2r;
-      zr = t2r - u2i;
-      zi = t2i + u2r;
-      y[o3 + q] = zr * w3r - zi * w3i;
-      y[o3 + q + 1] = zr * w3i + zi * w3r;
-      zr = t1r - u1i;
-      zi = t1i + u1r;
-      y[o4 + q] = zr * w4r - zi * w4i;
-      y[o4 + q + 1] = zr * w4i + zi * w4r;
+      rotateInto(y, o1 + q, t1r + u1i, t1i - u1r, w1r, w1i);
+      rotateInto(y, o2 + q, t2r + u2i, t2i - u2r, w2r, w2i);
+      rotateInto(y, o3 + q, t2r - u2i, t2i + u2r, w3r, w3i);
+      rotateInto(y, o4 + q, t1r - u1i, t1i + u1r, w4r, w4i);
     }
   }
 }
@@ -417,16 +402,10 @@ function passGeneric(
           jk += k;
           if (jk >= r) jk -= r;
         }
-        let zr = tr + ui;
-        let zi = ti - ur;
-        let w = t0 + 2 * (k - 1);
-        y[o0 + k * span + q] = zr * tw[w] - zi * tw[w + 1];
-        y[o0 + k * span + q + 1] = zr * tw[w + 1] + zi * tw[w];
-        zr = tr - ui;
-        zi = ti + ur;
-        w = t0 + 2 * (r - k - 1);
-        y[o0 + (r - k) * span + q] = zr * tw[w] - zi * tw[w + 1];
-        y[o0 + (r - k) * span + q + 1] = zr * tw[w + 1] + zi * tw[w];
+        const w = t0 + 2 * (k - 1);
+        rotateInto(y, o0 + k * span + q, tr + ui, ti - ur, tw[w], tw[w + 1]);
+        const v = t0 + 2 * (r - k - 1);
+        rotateInto(y, o0 + (r - k) * span + q, tr - ui, ti + ur, tw[v], tw[v + 1]);
       }
     }
   }

@@ -1,46 +1,21 @@
 /**
  * The one vocabulary of analysis settings: the signal core computes with it, the server
  * stores it (one settings version = one `AnalysisSettings`), the worker receives it, the
- * command line and the benchmark build it, and the API sends it (the shared package's
- * `AnalysisSettingsValues` is checked to be the same type in `analysis-settings.spec.ts`).
- * One set of defaults, here.
+ * command line and the benchmark build it, and the API sends it. The type is the shared
+ * package's `AnalysisSettingsValues` (a type import: the signal core takes no run-time code
+ * from `@gyre/shared`); one set of defaults, here.
  */
+import type { AnalysisMethod, AnalysisSettingsValues, BandSource } from '@gyre/shared';
 import { DEFAULT_POSTERIOR_ROI } from '../channels/region-of-interest';
 
-export type NarrowBandMethodName = 'filter' | 'morlet';
+/** Zero-phase plateau band-pass ('filter') or complex Morlet wavelet at the band centre. */
+export type NarrowBandMethodName = AnalysisMethod;
 
-export interface AnalysisSettings {
-  /**
-   * Fixed analysis band, Hz. Null: the participant's resting IAF ± `iafHalfWidthHz` when the
-   * visit has a resting result, else `DEFAULT_ALPHA_BAND_HZ` (see `resolveAnalysisBand`).
-   */
-  bandHz: [number, number] | null;
-  /** Zero-phase plateau band-pass ('filter') or complex Morlet wavelet at the band centre. */
-  method: NarrowBandMethodName;
-  /** Cycles of the Morlet wavelet (method 'morlet'). */
-  morletCycles: number;
-  /** Epoch around each onset, s. */
-  epochWindowS: [number, number];
-  baselineWindowS: [number, number];
-  postWindowS: [number, number];
-  /** An epoch whose raw, mean-removed amplitude exceeds ± this is dropped, µV. */
-  rejectionThresholdUv: number;
-  /** A slowing flag is suggested when the ROI Δf ≤ this (Hz, negative) and its CI excludes 0. */
-  flagThresholdHz: number;
-  /** Region of interest as 10-10 names. */
-  roi: string[];
-  /** Only onsets with this annotation text / CSV label (case-insensitive); null = every onset. */
-  onsetLabel: string | null;
-  /**
-   * Instantaneous-frequency samples whose analytic amplitude is under this percentile of the
-   * channel's envelope are left out before the median and the epoch means; null = off.
-   */
-  amplitudeGatePercentile: number | null;
-  /** A warning is raised when the cycle-by-cycle and phase-based Δf differ by more, Hz. */
-  cycleDisagreementHz: number;
-  /** The two conditions (onset labels) whose Δf difference is reported; null = the first two. */
-  compareConditions: [string, string] | null;
-}
+/**
+ * One settings version. `bandHz` null: the participant's resting IAF ± `IAF_HALF_WIDTH_HZ`
+ * when the visit has a resting result, else `DEFAULT_ALPHA_BAND_HZ` (`resolveAnalysisBand`).
+ */
+export type AnalysisSettings = AnalysisSettingsValues;
 
 /** Alpha band when neither the settings nor a resting IAF give one (common practice). */
 export const DEFAULT_ALPHA_BAND_HZ: readonly [number, number] = [8, 13];
@@ -72,7 +47,7 @@ export const DEFAULT_ANALYSIS_SETTINGS: Readonly<AnalysisSettings> = Object.free
 } satisfies AnalysisSettings);
 
 /** Where a run's band came from. */
-export type AnalysisBandSource = 'settings' | 'iaf' | 'default';
+export type AnalysisBandSource = BandSource;
 
 /**
  * The band one run uses: the settings' fixed band, else the resting IAF ± 2 Hz, else

@@ -6,7 +6,7 @@ import type {
 } from '@gyre/shared';
 import type { AmplitudeGateCount } from '../frequency/amplitude-gate';
 import type { OnsetStatistics } from '../trials/onset-statistics';
-import { ChannelQuality } from '../quality/quality-checks';
+import type { QualityResult } from '../quality/quality-checks';
 import { NoPeakReason } from '../spectrum/alpha-peak';
 import type { AnalysisComputation } from './analysis-computation';
 import type { AnalysisBandSource, AnalysisSettings } from './analysis-settings';
@@ -145,26 +145,6 @@ export interface RestResult {
   channels: string[];
   /** Every channel's own PAF and CoG from its own spectrum (null without one), in file order. */
   channelPeaks: { label: string; pafHz: number | null; cogHz: number | null }[];
-}
-
-export interface QualityResult {
-  durationS: number;
-  sampleRatesHz: number[];
-  /** Region-of-interest channels present in the file (usable or not), file labels. */
-  roiChannelsFound: string[];
-  /** Region-of-interest names not in the file. */
-  roiChannelsMissing: string[];
-  flatChannels: string[];
-  saturatedChannels: string[];
-  /** Median over channels of the line-noise ratios. */
-  lineNoiseRatio50Hz: number | null;
-  lineNoiseRatio60Hz: number | null;
-  /** Dropped epochs over all epochs of the region of interest. */
-  epochsDroppedShare: number | null;
-  /** Mean over the region of interest of the phase-slip share. */
-  phaseSlipShare: number | null;
-  alphaPeakProminenceDb: number | null;
-  channels: ChannelQuality[];
 }
 
 /** The computation knobs of a run with what followed from them. */

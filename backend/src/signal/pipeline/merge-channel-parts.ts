@@ -11,12 +11,12 @@ import { alphaPeak, centreOfGravity } from '../spectrum/alpha-peak';
 import { meanSpectrum, PowerSpectrum } from '../spectrum/welch';
 import { epochPointCount } from '../trials/epochs';
 import type { AnalysisPlan } from './analysis-plan';
+import type { QualityResult } from '../quality/quality-checks';
 import { BOOTSTRAP_RESAMPLES, BOOTSTRAP_SEED } from './analysis-settings';
 import type {
   AnalysisResult,
   ChannelResult,
   ComputationUsed,
-  QualityResult,
   RestResult,
   RoiResult,
 } from './analysis.types';

@@ -1,3 +1,4 @@
+import type { ChannelQualityView, QualityView } from '@gyre/shared';
 import { PowerSpectrum } from '../spectrum/welch';
 import type { AnalysisSignal } from '../pipeline/analysis.types';
 
@@ -145,18 +146,11 @@ export const DEFAULT_QUALITY_THRESHOLDS: Readonly<Required<ChannelQualityThresho
   saturatedAboveShare: SATURATION_MAX_SHARE,
 };
 
-export interface ChannelQuality {
-  label: string;
-  standardDeviationUv: number | null;
-  flat: boolean;
-  /** Share of samples in runs at the converter's rails (see `railRunShare`); null without a range. */
-  saturatedShare: number | null;
-  saturated: boolean;
-  lineNoiseRatio50Hz: number | null;
-  lineNoiseRatio60Hz: number | null;
-  /** Share of raw instantaneous-frequency values outside the band (phase slips). */
-  phaseSlipShare: number | null;
-}
+/** One channel's checks; `saturatedShare` is the share of samples in runs at the converter's rails (`railRunShare`). */
+export type ChannelQuality = ChannelQualityView;
+
+/** The quality checks of a run (docs/method.md §6); the server adds the warnings. */
+export type QualityResult = Omit<QualityView, 'warnings'>;
 
 /**
  * Flat and saturation checks of one channel (docs/method.md §6). Saturated: rail runs of at least
