@@ -1,11 +1,10 @@
-import { Column, Entity, PrimaryColumn } from 'typeorm';
+import { Column, Entity } from 'typeorm';
 import type { Role, UserState } from '@gyre/shared';
+import { ModelRowColumns } from '../common/database/model-columns';
 
 /** A person who signs in. Never returned by a handler: see `UserView` (users/user-view.ts). */
 @Entity('user')
-export class User {
-  @PrimaryColumn('varchar') id: string;
-
+export class User extends ModelRowColumns {
   /** Stored lower-cased; unique. */
   @Column('varchar') email: string;
   @Column('varchar') name: string;
@@ -20,6 +19,4 @@ export class User {
   @Column({ type: 'varchar', nullable: true }) lockedUntil: string | null;
   @Column({ type: 'varchar', nullable: true }) lastSignInAt: string | null;
   @Column({ type: 'varchar', nullable: true }) passwordChangedAt: string | null;
-  @Column('varchar') createdAt: string;
-  @Column('varchar') updatedAt: string;
 }

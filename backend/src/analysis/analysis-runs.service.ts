@@ -17,7 +17,7 @@ import { blindedResultsView, blindedRunView } from '../blinding/blinded-views';
 import type { Caller } from '../auth/decorators';
 import { SqliteReadsService } from '../common/database/sqlite-reads.service';
 import { currentRunHeads, type CurrentRunHead } from './current-run-heads.reads';
-import { PageQueryDto, pageWindowOf } from '../common/pagination/page-query.dto';
+import { PageQueryDto, pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
 import type { AnalyzeOutcome, RunSummary } from '../jobs/worker/worker-tasks';
@@ -285,9 +285,7 @@ export class AnalysisRunsService {
     const found = await this.dataSource.getRepository(AnalysisRun).findAndCount({
       where: scopedWhere<AnalysisRun>(caller.ability, 'read', 'AnalysisRun', { recordingId }),
       select: RUN_COLUMNS,
-      order: { createdAt: window.order, id: window.order },
-      skip: window.skip,
-      take: window.take,
+      ...pageSliceOf(window, 'createdAt', window.order),
     });
     const stale = await this.staleness(found[0]);
     const clock = await this.recordings.blindedClockOf(caller, recording.visitId);

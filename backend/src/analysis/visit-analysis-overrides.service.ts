@@ -87,17 +87,13 @@ export class VisitAnalysisOverridesService {
         createdAt: nowIso(),
       });
       await tx.getRepository(VisitAnalysisOverride).insert(next);
-      await this.audit.record({
-        actor: caller.user,
+      await this.audit.recordBy(caller, visit, {
         action: 'update',
         objectType: 'VisitAnalysisOverride',
         objectId: visitId,
-        studyId: visit.studyId,
-        siteId: visit.siteId,
         before: { revision: previous?.revision ?? 0, ...before },
         after: { revision: next.revision, ...normalised(values) },
         reason: next.reason,
-        clientIp: caller.clientIp,
       });
       return next;
     });

@@ -13,6 +13,7 @@ import {
 } from 'typeorm';
 import type { AppAbility, AuditEntryView, AuditVerifyResult, Page } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
+import type { Caller } from '../auth/decorators';
 import { pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { sqliteHandleOf } from '../common/database/sqlite-handle';
@@ -49,6 +50,15 @@ export interface AuditRecordInput {
   after?: unknown;
   reason?: string | null;
   clientIp?: string | null;
+}
+
+/** A caller's change to a row: the entry without what the caller and the row's scope give. */
+export type CallerChange = Omit<AuditRecordInput, 'actor' | 'studyId' | 'siteId' | 'clientIp'>;
+
+/** The study and site whose members may read an entry: the changed row's (or its visit's). */
+export interface EntryScope {
+  studyId: string | null;
+  siteId: string | null;
 }
 
 interface Row extends ChainedContent {
@@ -113,6 +123,17 @@ export class AuditService {
     const row = this.append(input);
     this.anchors.noteAppended(row.seq);
     return toView(row);
+  }
+
+  /** Appends the entry of `caller`'s change to a row of `scope`: the actor and address are theirs. */
+  recordBy(caller: Caller, scope: EntryScope, change: CallerChange): Promise<AuditEntryView> {
+    return this.record({
+      ...change,
+      actor: caller.user,
+      studyId: scope.studyId,
+      siteId: scope.siteId,
+      clientIp: caller.clientIp,
+    });
   }
 
   async list(ability: AppAbility, query: AuditQueryDto): Promise<Page<AuditEntryView>> {

@@ -1,4 +1,5 @@
-import { Column, Entity, PrimaryColumn } from 'typeorm';
+import { Column, Entity } from 'typeorm';
+import { StudySiteColumns } from '../common/database/scoped-columns';
 
 /**
  * Where an imported recording came from and what its EEG-BIDS sidecars said: the path in the
@@ -6,10 +7,7 @@ import { Column, Entity, PrimaryColumn } from 'typeorm';
  * channels its `*_channels.tsv` marked bad. One row per recording an import created.
  */
 @Entity('bids_import_file')
-export class BidsImportFile {
-  @PrimaryColumn('varchar', { length: 36 })
-  id: string;
-
+export class BidsImportFile extends StudySiteColumns {
   /** One import's rows share it (the audit entry `bids-import` names it). */
   @Column('varchar', { length: 36 })
   importId: string;
@@ -19,12 +17,6 @@ export class BidsImportFile {
 
   @Column('varchar', { length: 36 })
   visitId: string;
-
-  @Column('varchar', { length: 36 })
-  studyId: string;
-
-  @Column('varchar', { length: 36 })
-  siteId: string;
 
   @Column('varchar', { length: 1000 })
   path: string;

@@ -425,17 +425,13 @@ export class BidsImportService {
       createdById: caller.user.id,
       createdAt: nowIso(),
     });
-    await this.audit.record({
-      actor: caller.user,
+    await this.audit.recordBy(caller, visit, {
       action: 'update',
       objectType: 'VisitAnalysisOverride',
       objectId: visit.id,
-      studyId: visit.studyId,
-      siteId: visit.siteId,
       before: { revision: change.previousRevision },
       after: { revision, ...change.values },
       reason: change.reason,
-      clientIp: caller.clientIp,
     });
     return {
       visitId: visit.id,

@@ -1,3 +1,4 @@
+import type { GyreException } from '../common/errors/gyre.exception';
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import type { BlindedDecisionChange, VisitBlindingView } from '@gyre/shared';
@@ -7,7 +8,6 @@ import { WriteTransactionsService } from '../common/database/write-transactions.
 import { nowIso } from '../common/time';
 import { Flag } from '../flags/flag.entity';
 import { FlagsService } from '../flags/flags.service';
-import type { Visit } from '../visits/visit.entity';
 import { VisitsService } from '../visits/visits.service';
 import { BlindingService } from './blinding.service';
 import { BlindingError, blindingError } from './blinding.errors';
@@ -30,7 +30,7 @@ export class BlindedDecisionsService {
   ) {}
 
   async state(caller: Caller, visitId: string): Promise<VisitBlindingView> {
-    const visit = await this.visitInScope(caller, 'read', visitId);
+    const visit = await this.visits.findInScopeOf(caller, 'read', 'Visit', visitId, visitNotFound);
     return this.blinding.viewOf(caller, visit);
   }
 
@@ -39,7 +39,7 @@ export class BlindedDecisionsService {
     visitId: string,
     change: BlindedDecisionChange,
   ): Promise<VisitBlindingView> {
-    const visit = await this.visitInScope(caller, 'create', visitId);
+    const visit = await this.visits.findInScopeOf(caller, 'create', 'Flag', visitId, visitNotFound);
     const codes = await this.blinding.blindedCodes(caller, [visit.id]);
     const code = codes.get(visit.id);
     if (code === undefined) {
@@ -80,36 +80,19 @@ export class BlindedDecisionsService {
         unblindedAt: nowIso(),
       });
       await manager.getRepository(VisitUnblinding).insert(row);
-      await this.audit.record({
-        actor: caller.user,
+      await this.audit.recordBy(caller, visit, {
         action: 'unblind',
         objectType: 'Visit',
         objectId: visitId,
-        studyId: visit.studyId,
-        siteId: visit.siteId,
         before: { code, blinded: true },
         after: { code, blinded: false, decision: change.decision, flagId },
         reason: change.reason,
-        clientIp: caller.clientIp,
       });
     });
     return this.blinding.viewOf(caller, visit);
   }
+}
 
-  private async visitInScope(
-    caller: Caller,
-    action: 'read' | 'create',
-    visitId: string,
-  ): Promise<Visit> {
-    const visit = await this.visits.inScopeOf(
-      caller,
-      action,
-      action === 'read' ? 'Visit' : 'Flag',
-      visitId,
-    );
-    if (visit === null) {
-      throw blindingError(BlindingError.VisitNotFound, `No visit ${visitId}.`, { visitId });
-    }
-    return visit;
-  }
+function visitNotFound(visitId: string): GyreException {
+  return blindingError(BlindingError.VisitNotFound, `No visit ${visitId}.`, { visitId });
 }

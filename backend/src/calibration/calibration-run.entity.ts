@@ -1,5 +1,6 @@
-import { Column, Entity, Index, PrimaryColumn } from 'typeorm';
+import { Column, Entity, Index } from 'typeorm';
 import type { CalibrationState } from '@gyre/shared';
+import { StudySiteColumns } from '../common/database/scoped-columns';
 
 /**
  * One calibration run of a site: Gyre's generated recording computed through the job queue
@@ -9,55 +10,24 @@ import type { CalibrationState } from '@gyre/shared';
 @Entity('calibration_run')
 @Index('IDX_calibration_run_site', ['siteId', 'requestedAt'])
 @Index('IDX_calibration_run_study', ['studyId', 'requestedAt'])
-export class CalibrationRun {
-  @PrimaryColumn('varchar', { length: 36 })
-  id: string;
-
-  @Column('varchar', { length: 36 })
-  studyId: string;
-
-  @Column('varchar', { length: 36 })
-  siteId: string;
-
-  @Column('varchar', { length: 16 })
-  state: CalibrationState;
-
-  @Column('varchar', { length: 64 })
-  signalName: string;
+export class CalibrationRun extends StudySiteColumns {
+  @Column('varchar', { length: 16 }) state: CalibrationState;
+  @Column('varchar', { length: 64 }) signalName: string;
 
   /** The study's settings version computed with, and its values as JSON. */
-  @Column('varchar', { length: 36 })
-  settingsVersionId: string;
-
-  @Column('integer')
-  settingsVersion: number;
-
-  @Column('text')
-  settingsJson: string;
-
-  @Column('varchar', { length: 32 })
-  gyreVersion: string;
+  @Column('varchar', { length: 36 }) settingsVersionId: string;
+  @Column('integer') settingsVersion: number;
+  @Column('text') settingsJson: string;
+  @Column('varchar', { length: 32 }) gyreVersion: string;
 
   /** SHA-256 of the two generated files the computation must read. */
-  @Column('varchar', { length: 64 })
-  restSha256: string;
-
-  @Column('varchar', { length: 64 })
-  taskSha256: string;
+  @Column('varchar', { length: 64 }) restSha256: string;
+  @Column('varchar', { length: 64 }) taskSha256: string;
 
   /** JSON of `CalibrationCheckView[]`; `[]` until the run is finished. */
-  @Column('text')
-  checksJson: string;
-
-  @Column('text', { nullable: true })
-  error: string | null;
-
-  @Column('varchar', { length: 36 })
-  requestedById: string;
-
-  @Column('varchar', { length: 30 })
-  requestedAt: string;
-
-  @Column('varchar', { length: 30, nullable: true })
-  finishedAt: string | null;
+  @Column('text') checksJson: string;
+  @Column('text', { nullable: true }) error: string | null;
+  @Column('varchar', { length: 36 }) requestedById: string;
+  @Column('varchar', { length: 30 }) requestedAt: string;
+  @Column('varchar', { length: 30, nullable: true }) finishedAt: string | null;
 }

@@ -120,20 +120,16 @@ export class CalibrationService {
           payload: { runId: run.id },
           maxAttempts: 2,
         });
-        await this.audit.record({
-          actor: caller.user,
+        await this.audit.recordBy(caller, run, {
           action: 'start',
           objectType: 'Calibration',
           objectId: run.id,
-          studyId: run.studyId,
-          siteId: run.siteId,
           after: {
             siteCode: site.code,
             signalName: run.signalName,
             settingsVersion: run.settingsVersion,
             gyreVersion: run.gyreVersion,
           },
-          clientIp: caller.clientIp,
         });
       });
     } catch (error) {

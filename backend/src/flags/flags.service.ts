@@ -1,7 +1,9 @@
+import type { GyreException } from '../common/errors/gyre.exception';
+import { givenFields } from '../common/given-fields';
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, EntityManager, FindOptionsWhere, In } from 'typeorm';
+import { DataSource, EntityManager, In } from 'typeorm';
 import type { FlagView, FlagSuggestion, Page, VisitFlagView } from '@gyre/shared';
 import { AnalysisRunsService, roiUsageOf } from '../analysis/analysis-runs.service';
 import { parseStoredSettings } from '../analysis/settings-values';
@@ -9,7 +11,7 @@ import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
-import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
 import type { Visit } from '../visits/visit.entity';
@@ -33,7 +35,7 @@ export class FlagsService {
   ) {}
 
   async forVisit(caller: Caller, visitId: string): Promise<VisitFlagView> {
-    await this.visitInScope(caller, visitId, 'read');
+    await this.visits.findInScopeOf(caller, 'read', 'Flag', visitId, visitNotFound);
     const history = await this.dataSource
       .getRepository(Flag)
       .find({ where: { visitId }, order: { raisedAt: 'DESC', id: 'DESC' } });
@@ -48,22 +50,16 @@ export class FlagsService {
 
   async list(caller: Caller, query: FlagListQueryDto): Promise<Page<FlagView>> {
     const window = pageWindowOf(query, 'desc');
-    const filters: Partial<Record<'state' | 'participantId' | 'siteId', string>> = {};
-    for (const key of ['state', 'participantId', 'siteId'] as const) {
-      const value = query[key];
-      if (value !== undefined) filters[key] = value;
-    }
+    const filters = givenFields(query, ['state', 'participantId', 'siteId']);
     const found = await this.dataSource.getRepository(Flag).findAndCount({
-      where: scopedWhere<Flag>(caller.ability, 'read', 'Flag', filters as FindOptionsWhere<Flag>),
-      order: { [query.sort ?? 'raisedAt']: window.order, id: window.order },
-      skip: window.skip,
-      take: window.take,
+      where: scopedWhere<Flag>(caller.ability, 'read', 'Flag', filters),
+      ...pageSliceOf(window, query.sort ?? 'raisedAt', window.order),
     });
     return toPage(found, window, toFlagView);
   }
 
   async raise(caller: Caller, visitId: string, reason: string): Promise<VisitFlagView> {
-    const visit = await this.visitInScope(caller, visitId, 'create');
+    const visit = await this.visits.findInScopeOf(caller, 'create', 'Flag', visitId, visitNotFound);
     await this.writes.run((manager) => this.raiseIn(manager, caller, visit, reason));
     return this.forVisit(caller, visitId);
   }
@@ -104,23 +100,19 @@ export class FlagsService {
       clearedAt: null,
     });
     await manager.getRepository(Flag).insert(flag);
-    await this.audit.record({
-      actor: caller.user,
+    await this.audit.recordBy(caller, visit, {
       action: 'raise',
       objectType: 'Flag',
       objectId: flag.id,
-      studyId: visit.studyId,
-      siteId: visit.siteId,
       before: { visitId, state: null },
       after: { ...toFlagView(flag), suggestion },
       reason,
-      clientIp: caller.clientIp,
     });
     return flag;
   }
 
   async clear(caller: Caller, visitId: string, reason: string): Promise<VisitFlagView> {
-    const visit = await this.visitInScope(caller, visitId, 'update');
+    const visit = await this.visits.findInScopeOf(caller, 'update', 'Flag', visitId, visitNotFound);
     await this.writes.run(async (manager) => {
       const raised = await manager.getRepository(Flag).findOneBy({ visitId, state: 'raised' });
       if (raised === null) {
@@ -138,17 +130,13 @@ export class FlagsService {
         clearedAt: nowIso(),
       };
       await manager.getRepository(Flag).update({ id: raised.id }, changes);
-      await this.audit.record({
-        actor: caller.user,
+      await this.audit.recordBy(caller, visit, {
         action: 'clear',
         objectType: 'Flag',
         objectId: raised.id,
-        studyId: visit.studyId,
-        siteId: visit.siteId,
         before,
         after: toFlagView(Object.assign(raised, changes)),
         reason,
-        clientIp: caller.clientIp,
       });
     });
     return this.forVisit(caller, visitId);
@@ -182,18 +170,10 @@ export class FlagsService {
       roiUsage: roiUsageOf(run),
     };
   }
+}
 
-  private async visitInScope(
-    caller: Caller,
-    visitId: string,
-    action: 'read' | 'create' | 'update',
-  ): Promise<Visit> {
-    const visit = await this.visits.inScopeOf(caller, action, 'Flag', visitId);
-    if (visit === null) {
-      throw flagsError(FlagsError.VisitNotFound, `No visit ${visitId}.`, { visitId });
-    }
-    return visit;
-  }
+function visitNotFound(visitId: string): GyreException {
+  return flagsError(FlagsError.VisitNotFound, `No visit ${visitId}.`, { visitId });
 }
 
 export function toFlagView(flag: Flag): FlagView {

@@ -1,10 +1,9 @@
-import { Column, Entity, PrimaryColumn } from 'typeorm';
+import { Column, Entity } from 'typeorm';
+import { StudyRowColumns } from '../common/database/model-columns';
 
 /** A study participant, known only by a pseudonymous code. */
 @Entity('participant')
-export class Participant {
-  @PrimaryColumn('varchar') id: string;
-  @Column('varchar') studyId: string;
+export class Participant extends StudyRowColumns {
   @Column('varchar') siteId: string;
   @Column('varchar') code: string;
 
@@ -13,6 +12,4 @@ export class Participant {
 
   /** The participant's group (arm) in the same study. */
   @Column('varchar', { nullable: true }) groupId: string | null;
-  @Column('varchar') createdAt: string;
-  @Column('varchar') updatedAt: string;
 }

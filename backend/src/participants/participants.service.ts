@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
-import { EntityManager, FindOptionsWhere, In, Repository } from 'typeorm';
+import { FindOptionsWhere, Repository } from 'typeorm';
 import {
   isCalendarDate,
   subject,
@@ -15,6 +15,7 @@ import { scopedWhere, scopeSql } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { BlindingService } from '../blinding/blinding.service';
 import { AuditedWrites } from '../audit/audited-writes';
+import { ScopedRows } from '../common/database/owned-rows';
 import { SqlEntityRows, sqlPage } from '../common/database/sql-rows';
 import { SqliteReadsService, type SqlValue } from '../common/database/sqlite-reads.service';
 import type { GyreException } from '../common/errors/gyre.exception';
@@ -38,7 +39,7 @@ import { toParticipantView } from './participant-view';
 import { ParticipantsError, participantsError } from './participants.errors';
 
 @Injectable()
-export class ParticipantsService {
+export class ParticipantsService extends ScopedRows<Participant> {
   /** The list's rows as TypeORM reads them (built at the first list). */
   private rowsSql: SqlEntityRows<Participant> | undefined;
 
@@ -50,7 +51,9 @@ export class ParticipantsService {
     private readonly reads: SqliteReadsService,
     private readonly listExtras: ParticipantListExtras,
     private readonly blinding: BlindingService,
-  ) {}
+  ) {
+    super(participants, 'Participant', (id) => notFound(id, 'id'));
+  }
 
   /**
    * A hot route: prepared statements for the page and its count (sql-rows.ts), then a fixed
@@ -201,29 +204,6 @@ export class ParticipantsService {
     return group.id;
   }
 
-  async findInScope(caller: Caller, action: 'read' | 'update', id: string): Promise<Participant> {
-    const participant = await this.participants.findOne({
-      where: scopedWhere<Participant>(caller.ability, action, 'Participant', { id }),
-    });
-    if (participant === null) throw notFound(id, 'id');
-    return participant;
-  }
-
-  /**
-   * For other modules: the participant if the caller may `action` a `subjectName` of it
-   * (that subject's scope, applied to the participant row in the query), else null.
-   */
-  inScopeOf(
-    caller: Caller,
-    action: Action,
-    subjectName: SubjectName,
-    id: string,
-  ): Promise<Participant | null> {
-    return this.participants.findOne({
-      where: scopedWhere<Participant>(caller.ability, action, subjectName, { id }),
-    });
-  }
-
   /**
    * For other modules: every participant matching `where` that the caller may `action` a
    * `subjectName` of (that subject's scope applied to the participant rows), by code.
@@ -238,21 +218,6 @@ export class ParticipantsService {
       where: scopedWhere<Participant>(caller.ability, action, subjectName, where),
       order: { code: 'ASC' },
     });
-  }
-
-  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
-  byId(id: string, manager?: EntityManager): Promise<Participant> {
-    return this.repo(manager).findOneByOrFail({ id });
-  }
-
-  /** For other modules, unscoped: the participants among `ids` (missing ones are left out). */
-  async byIds(ids: string[], manager?: EntityManager): Promise<Participant[]> {
-    if (ids.length === 0) return [];
-    return this.repo(manager).find({ where: { id: In(ids) } });
-  }
-
-  private repo(manager: EntityManager | undefined): Repository<Participant> {
-    return manager?.getRepository(Participant) ?? this.participants;
   }
 }
 

@@ -72,18 +72,7 @@ export class RecordingLifecycle {
         { recordingId: recording.id, from, to, now: now?.state ?? null },
       );
     }
-    await this.audit.record({
-      actor: entry.actor,
-      action: entry.action,
-      objectType: 'Recording',
-      objectId: recording.id,
-      studyId: recording.studyId,
-      siteId: recording.siteId,
-      before: { state: from },
-      after: { state: to, ...(entry.after ?? {}) },
-      reason: entry.reason ?? null,
-      clientIp: entry.clientIp ?? null,
-    });
+    await this.record(recording, entry, { state: from }, to);
     return Object.assign(recording, update);
   }
 
@@ -93,6 +82,16 @@ export class RecordingLifecycle {
       throw new Error(`A new recording starts as received, not ${recording.state}`);
     }
     await tx.getRepository(Recording).insert(recording);
+    await this.record(recording, entry, null, 'received');
+  }
+
+  /** The audit entry of a recording's change: the state it left (null when new) and entered. */
+  private async record(
+    recording: Recording,
+    entry: TransitionEntry,
+    before: { state: RecordingState } | null,
+    state: RecordingState,
+  ): Promise<void> {
     await this.audit.record({
       actor: entry.actor,
       action: entry.action,
@@ -100,8 +99,8 @@ export class RecordingLifecycle {
       objectId: recording.id,
       studyId: recording.studyId,
       siteId: recording.siteId,
-      before: null,
-      after: { state: 'received', ...(entry.after ?? {}) },
+      before,
+      after: { state, ...(entry.after ?? {}) },
       reason: entry.reason ?? null,
       clientIp: entry.clientIp ?? null,
     });

@@ -28,7 +28,7 @@ import type { Caller } from '../auth/decorators';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
-import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
@@ -39,7 +39,7 @@ import type { FailOutcome, JobQueue, QueuedJob } from '../queue/job-queue';
 import type { Visit } from '../visits/visit.entity';
 import { RecordingListQueryDto } from './dto/recording-list-query.dto';
 import { RecordingEventsService } from './recording-events.service';
-import { RecordingLifecycle } from './recording-lifecycle';
+import { RecordingLifecycle, type TransitionEntry } from './recording-lifecycle';
 import { Recording } from './recording.entity';
 import { toJobView, toRecordingView } from './recording-view';
 import {
@@ -196,9 +196,7 @@ export class RecordingsService {
     }
     const [rows, total] = await this.dataSource.getRepository(Recording).findAndCount({
       where: scopedWhere<Recording>(caller.ability, 'read', 'Recording', where),
-      order: { [query.sort ?? 'createdAt']: window.order, id: window.order },
-      skip: window.skip,
-      take: window.take,
+      ...pageSliceOf(window, query.sort ?? 'createdAt', window.order),
     });
     const views = await this.shownTo(caller, await this.views(rows));
     return toPage([views, total], window, (v) => v);
@@ -248,15 +246,11 @@ export class RecordingsService {
       );
     }
     // Who took a copy of a recording is part of the trail, like every change.
-    await this.audit.record({
-      actor: caller.user,
+    await this.audit.recordBy(caller, row, {
       action: 'download',
       objectType: 'Recording',
       objectId: row.id,
-      studyId: row.studyId,
-      siteId: row.siteId,
       after: { checksumSha256: row.checksumSha256, state: row.state },
-      clientIp: caller.clientIp,
     });
     return {
       stream: createReadStream(path),
@@ -643,20 +637,7 @@ export class RecordingsService {
         where: { visitId: visit.id, checksumSha256: row.checksumSha256, state: Not('rejected') },
       });
       if (duplicate !== null) throw duplicateError(duplicate.id, row.checksumSha256);
-      await this.lifecycle.create(tx, row, {
-        actor: caller.user,
-        action: 'upload',
-        clientIp: caller.clientIp,
-        after: {
-          kind: row.kind,
-          visitId: row.visitId,
-          checksumSha256: row.checksumSha256,
-          sizeBytes: row.sizeBytes,
-          onsetsChecksumSha256: row.onsetsChecksumSha256,
-          replacesId: row.replacesId,
-        },
-        reason: row.replacementReason,
-      });
+      await this.lifecycle.create(tx, row, uploadEntry(caller, row));
     });
     this.emit(row, null);
     return row;
@@ -703,7 +684,6 @@ export class RecordingsService {
       () => false,
     );
     if (!exists) await rename(upload.file.tempPath, target);
-    const { csvOnsets, ...rest } = facts;
     const superseded: string[] = [];
     let queued: Recording;
     try {
@@ -727,41 +707,14 @@ export class RecordingsService {
           );
           superseded.push(earlier.id);
         }
-        const accepted = await this.lifecycle.transition(
-          tx,
-          row,
-          'queued',
-          {
-            actor: caller.user,
-            action: 'accept',
-            clientIp: caller.clientIp,
-            reason: kindConfirmed ? kindWarning(row.kind, facts.stimulusOnsetCount) : null,
-            after: {
-              durationS: facts.durationS,
-              channels: facts.channelLabels.length,
-              stimulusOnsetCount: facts.stimulusOnsetCount,
-              csvOnsetCount: csvOnsets?.length ?? null,
-              kindConfirmed,
-            },
-          },
-          {
-            storedFile,
-            factsJson: JSON.stringify(rest),
-            csvOnsetsJson: csvOnsets === null ? null : JSON.stringify(csvOnsets),
-            kindConfirmed,
-          },
-        );
-        await this.queue.enqueue<ComputationPayload>(tx, {
-          lane: ANALYSIS_LANE,
-          subjectId: row.id,
-          payload: {
-            recordingId: row.id,
-            trigger: upload.replaces === null ? 'upload' : 'replacement',
-            requestedById: caller.user.id,
-            reason: upload.replaces?.reason ?? null,
-          },
+        return this.queueAccepted(tx, caller, row, {
+          facts,
+          storedFile,
+          kindConfirmed,
+          warning: kindConfirmed ? kindWarning(row.kind, facts.stimulusOnsetCount) : null,
+          trigger: upload.replaces === null ? 'upload' : 'replacement',
+          reason: upload.replaces?.reason ?? null,
         });
-        return accepted;
       });
     } catch (error) {
       // Nothing of a refused upload stays: the file goes unless another recording names it.
@@ -927,28 +880,42 @@ export class RecordingsService {
     };
     const row = receivedRow(caller, visit, upload);
     row.lineFrequencyHz = lineFrequencyHz;
-    await this.lifecycle.create(tx, row, {
-      actor: caller.user,
-      action: 'upload',
-      clientIp: caller.clientIp,
-      after: {
-        kind: row.kind,
-        visitId: row.visitId,
-        checksumSha256: row.checksumSha256,
-        sizeBytes: row.sizeBytes,
-        onsetsChecksumSha256: row.onsetsChecksumSha256,
-        lineFrequencyHz,
-        replacesId: null,
-        bulk: true,
-      },
-    });
+    await this.lifecycle.create(tx, row, uploadEntry(caller, row, { lineFrequencyHz, bulk: true }));
     await this.lifecycle.transition(tx, row, 'validating', {
       actor: caller.user,
       action: 'validate',
       clientIp: caller.clientIp,
     });
-    const { csvOnsets, ...rest } = check.facts;
-    const accepted = await this.lifecycle.transition(
+    return this.queueAccepted(tx, caller, row, {
+      facts: check.facts,
+      storedFile: `${row.checksumSha256}.edf`,
+      kindConfirmed: check.kindConfirmed,
+      warning: check.warning,
+      trigger: 'upload',
+      reason: null,
+    });
+  }
+
+  /**
+   * Inside `tx`: a validated recording becomes `queued` with its stored file and facts (the
+   * `accept` entry, a kind warning its reason), and its computation joins the analysis lane.
+   */
+  private async queueAccepted(
+    tx: EntityManager,
+    caller: Caller,
+    row: Recording,
+    accepted: {
+      facts: RecordingFacts;
+      storedFile: string;
+      kindConfirmed: boolean;
+      warning: string | null;
+      trigger: 'upload' | 'replacement';
+      reason: string | null;
+    },
+  ): Promise<Recording> {
+    const { csvOnsets, ...rest } = accepted.facts;
+    const { facts, kindConfirmed } = accepted;
+    const queued = await this.lifecycle.transition(
       tx,
       row,
       'queued',
@@ -956,20 +923,20 @@ export class RecordingsService {
         actor: caller.user,
         action: 'accept',
         clientIp: caller.clientIp,
-        reason: check.warning,
+        reason: accepted.warning,
         after: {
-          durationS: check.facts.durationS,
-          channels: check.facts.channelLabels.length,
-          stimulusOnsetCount: check.facts.stimulusOnsetCount,
+          durationS: facts.durationS,
+          channels: facts.channelLabels.length,
+          stimulusOnsetCount: facts.stimulusOnsetCount,
           csvOnsetCount: csvOnsets?.length ?? null,
-          kindConfirmed: check.kindConfirmed,
+          kindConfirmed,
         },
       },
       {
-        storedFile: `${row.checksumSha256}.edf`,
+        storedFile: accepted.storedFile,
         factsJson: JSON.stringify(rest),
         csvOnsetsJson: csvOnsets === null ? null : JSON.stringify(csvOnsets),
-        kindConfirmed: check.kindConfirmed,
+        kindConfirmed,
       },
     );
     await this.queue.enqueue<ComputationPayload>(tx, {
@@ -977,12 +944,12 @@ export class RecordingsService {
       subjectId: row.id,
       payload: {
         recordingId: row.id,
-        trigger: 'upload',
+        trigger: accepted.trigger,
         requestedById: caller.user.id,
-        reason: null,
+        reason: accepted.reason,
       },
     });
-    return accepted;
+    return queued;
   }
 
   /** After a bulk transaction rolled back: the stored files it put there and nobody names. */
@@ -1002,6 +969,32 @@ export class RecordingsService {
 }
 
 /** A new recording row, `received`, of this upload to this visit. */
+/**
+ * The audit entry of an upload: what was stored for which visit, what it replaces and why
+ * (`extra`: what a bulk import adds).
+ */
+function uploadEntry(
+  caller: Caller,
+  row: Recording,
+  extra: Record<string, unknown> = {},
+): TransitionEntry {
+  return {
+    actor: caller.user,
+    action: 'upload',
+    clientIp: caller.clientIp,
+    after: {
+      kind: row.kind,
+      visitId: row.visitId,
+      checksumSha256: row.checksumSha256,
+      sizeBytes: row.sizeBytes,
+      onsetsChecksumSha256: row.onsetsChecksumSha256,
+      ...extra,
+      replacesId: row.replacesId,
+    },
+    reason: row.replacementReason,
+  };
+}
+
 function receivedRow(
   caller: Caller,
   visit: Pick<Visit, 'id' | 'studyId' | 'siteId' | 'participantId'>,

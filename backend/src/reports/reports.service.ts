@@ -9,7 +9,8 @@ import { scopedWhere } from '../auth/access-scope';
 import { blindedReportView } from '../blinding/blinded-views';
 import { BlindingService } from '../blinding/blinding.service';
 import type { Caller } from '../auth/decorators';
-import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { givenFields } from '../common/given-fields';
+import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
 import { AnalysisEvents } from '../analysis/analysis.events';
@@ -89,20 +90,17 @@ export class ReportsService {
 
   async list(caller: Caller, query: ReportListQueryDto): Promise<Page<ReportView>> {
     const window = pageWindowOf(query, 'desc');
-    const filters: Partial<Record<'state' | 'siteId' | 'participantId', string>> = {};
-    for (const key of ['state', 'siteId', 'participantId'] as const) {
-      const value = query[key];
-      if (value !== undefined) filters[key] = value;
-    }
-    const where = { ...filters } as FindOptionsWhere<Report>;
+    const where: FindOptionsWhere<Report> = givenFields(query, [
+      'state',
+      'siteId',
+      'participantId',
+    ]);
     // Blinded review: an analyst lists only the reports of visits they decided on.
     const open = await this.blinding.unblindedVisitIds(caller);
     if (open !== null) where.visitId = In(open);
     const found = await this.dataSource.getRepository(Report).findAndCount({
       where: scopedWhere<Report>(caller.ability, 'read', 'Report', where),
-      order: { [query.sort ?? 'createdAt']: window.order, id: window.order },
-      skip: window.skip,
-      take: window.take,
+      ...pageSliceOf(window, query.sort ?? 'createdAt', window.order),
     });
     return toPage(found, window, toReportView);
   }

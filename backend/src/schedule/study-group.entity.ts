@@ -1,12 +1,9 @@
-import { Column, Entity, PrimaryColumn } from 'typeorm';
+import { Column, Entity } from 'typeorm';
+import { StudyRowColumns } from '../common/database/model-columns';
 
 /** A group or arm of a study; participants belong to at most one. */
 @Entity('study_group')
-export class StudyGroup {
-  @PrimaryColumn('varchar') id: string;
-  @Column('varchar') studyId: string;
+export class StudyGroup extends StudyRowColumns {
   @Column('varchar') name: string;
   @Column('varchar') description: string;
-  @Column('varchar') createdAt: string;
-  @Column('varchar') updatedAt: string;
 }

@@ -1,17 +1,13 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
-import { InjectRepository } from '@nestjs/typeorm';
-import { EntityManager, Repository } from 'typeorm';
 import type { StudyGroupView } from '@gyre/shared';
 import { Caller } from '../auth/decorators';
-import { AuditedWrites } from '../audit/audited-writes';
 import { nowIso } from '../common/time';
-import { StudiesService } from '../studies/studies.service';
-import { CreateStudyGroupDto, UpdateStudyGroupDto } from './dto/schedule.dto';
+import { CreateStudyGroupDto } from './dto/schedule.dto';
 import { ScheduleError, scheduleError } from './schedule.errors';
 import { toStudyGroupView } from './schedule-views';
 import { StudyGroup } from './study-group.entity';
-import { StudyRowKind, StudyRowsService } from './study-rows';
+import { StudyRowKind, StudyRowsServiceFor } from './study-rows';
 
 const STUDY_GROUPS: StudyRowKind<StudyGroup, StudyGroupView> = {
   entity: StudyGroup,
@@ -45,15 +41,7 @@ const STUDY_GROUPS: StudyRowKind<StudyGroup, StudyGroupView> = {
 
 /** A study's groups or arms: the admin writes them, everyone in the study reads them. */
 @Injectable()
-export class StudyGroupsService extends StudyRowsService<StudyGroup, StudyGroupView> {
-  constructor(
-    @InjectRepository(StudyGroup) private readonly groups: Repository<StudyGroup>,
-    studies: StudiesService,
-    audited: AuditedWrites,
-  ) {
-    super(groups, studies, audited, STUDY_GROUPS);
-  }
-
+export class StudyGroupsService extends StudyRowsServiceFor(STUDY_GROUPS) {
   create(caller: Caller, studyId: string, dto: CreateStudyGroupDto): Promise<StudyGroupView> {
     const at = nowIso();
     return this.createRow(caller, studyId, () =>
@@ -66,24 +54,5 @@ export class StudyGroupsService extends StudyRowsService<StudyGroup, StudyGroupV
         updatedAt: at,
       }),
     );
-  }
-
-  update(
-    caller: Caller,
-    studyId: string,
-    id: string,
-    dto: UpdateStudyGroupDto,
-  ): Promise<StudyGroupView> {
-    return this.updateRow(caller, studyId, id, (current) => ({
-      ...current,
-      name: dto.name ?? current.name,
-      description: dto.description ?? current.description,
-      updatedAt: nowIso(),
-    }));
-  }
-
-  /** For other modules, unscoped: the group or null. */
-  findById(id: string, manager?: EntityManager): Promise<StudyGroup | null> {
-    return (manager?.getRepository(StudyGroup) ?? this.groups).findOneBy({ id });
   }
 }

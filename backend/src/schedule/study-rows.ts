@@ -1,22 +1,25 @@
+import { InjectRepository } from '@nestjs/typeorm';
 import type {
   EntityManager,
-  EntityTarget,
   FindOptionsOrder,
   FindOptionsWhere,
   ObjectLiteral,
   Repository,
 } from 'typeorm';
 import { subject } from '@gyre/shared';
-import type { AuditedWrites, AuditScope } from '../audit/audited-writes';
+import { AuditedWrites, type AuditScope } from '../audit/audited-writes';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import type { GyreException } from '../common/errors/gyre.exception';
+import { OwnedRows } from '../common/database/owned-rows';
+import { givenFields } from '../common/given-fields';
+import { nowIso } from '../common/time';
 import { DuplicateRowError } from '../common/errors/unique-violation';
-import type { StudiesService } from '../studies/studies.service';
+import { StudiesService } from '../studies/studies.service';
 import { StudiesError, studiesError } from '../studies/studies.errors';
 
 /** A row of a study's schedule: it belongs to the study (no site) and has a name unique in it. */
-type StudyRow = ObjectLiteral & { id: string; studyId: string; name: string };
+type StudyRow = ObjectLiteral & { id: string; studyId: string; name: string; updatedAt: string };
 
 /** Participant codes that still use a row: how many, the first five, and those as a phrase. */
 interface CodesInUse {
@@ -27,7 +30,7 @@ interface CodesInUse {
 
 /** What tells one kind of schedule row (planned visits, groups) from the other. */
 export interface StudyRowKind<Row extends StudyRow, View> {
-  entity: EntityTarget<Row>;
+  entity: new () => Row;
   subject: 'PlannedVisit' | 'StudyGroup';
   table: 'planned_visit' | 'study_group';
   /** The part of the study these rows are, for the 404 ("… whose schedule you may change"). */
@@ -54,18 +57,20 @@ const studyRowScope = (row: { studyId: string }): AuditScope => ({
  * The scoped reads and audited writes both kinds of schedule row share; each service extends
  * it and builds its own rows from its DTOs.
  */
-export abstract class StudyRowsService<Row extends StudyRow, View> {
-  constructor(
-    private readonly rows: Repository<Row>,
+export abstract class StudyRowsService<Row extends StudyRow, View> extends OwnedRows<Row> {
+  protected constructor(
+    rows: Repository<Row>,
     private readonly studies: StudiesService,
     private readonly audited: AuditedWrites,
     private readonly kind: StudyRowKind<Row, View>,
-  ) {}
+  ) {
+    super(rows);
+  }
 
   /** The study's rows the caller may read, in the kind's order. */
   async list(caller: Caller, studyId: string): Promise<View[]> {
     await this.studies.findInScope(caller, 'read', studyId);
-    const rows = await this.rows.find({
+    const rows = await this.repository.find({
       where: scopedWhere<Row>(caller.ability, 'read', this.kind.subject, {
         studyId,
       } as FindOptionsWhere<Row>),
@@ -84,16 +89,16 @@ export abstract class StudyRowsService<Row extends StudyRow, View> {
     return this.save(caller, null, build);
   }
 
-  /** Replaces row `id` by what `change` makes of it, audited. */
-  protected async updateRow(
+  /** Changes the fields `changes` gives (a PATCH body) of row `id`, audited. */
+  async update(
     caller: Caller,
     studyId: string,
     id: string,
-    change: (current: Row) => Row,
+    changes: Partial<Omit<Row, 'id' | 'studyId' | 'createdAt' | 'updatedAt'>>,
   ): Promise<View> {
     await this.assertWritable(caller, 'update', studyId);
     const current = await this.find(caller, 'update', studyId, id);
-    return this.save(caller, current, change(current));
+    return this.save(caller, current, { ...current, ...givenFields(changes), updatedAt: nowIso() });
   }
 
   /** Deletes the row with its audit entry, unless a participant still uses it (409). */
@@ -142,7 +147,7 @@ export abstract class StudyRowsService<Row extends StudyRow, View> {
     studyId: string,
     id: string,
   ): Promise<Row> {
-    const row = await this.rows.findOne({
+    const row = await this.repository.findOne({
       where: scopedWhere<Row>(caller.ability, action, this.kind.subject, {
         id,
         studyId,
@@ -181,6 +186,23 @@ export abstract class StudyRowsService<Row extends StudyRow, View> {
     )) as unknown[];
     if (rows.length > 0) throw new DuplicateRowError('duplicate');
   }
+}
+
+/**
+ * The base class of one kind's service, its repository injected (a mixin, like NestJS's
+ * mapped types): the service itself only builds its rows from its DTOs.
+ */
+export function StudyRowsServiceFor<Row extends StudyRow, View>(kind: StudyRowKind<Row, View>) {
+  abstract class StudyRowsOfKind extends StudyRowsService<Row, View> {
+    constructor(
+      @InjectRepository(kind.entity) rows: Repository<Row>,
+      studies: StudiesService,
+      audited: AuditedWrites,
+    ) {
+      super(rows, studies, audited, kind);
+    }
+  }
+  return StudyRowsOfKind;
 }
 
 /** The participant codes an SQL query names, ordered; with the first five for a message. */

@@ -1,11 +1,8 @@
-import { Column, Entity, PrimaryColumn } from 'typeorm';
+import { Column, Entity } from 'typeorm';
+import { StudyRowColumns } from '../common/database/model-columns';
 
 @Entity('site')
-export class Site {
-  @PrimaryColumn('varchar') id: string;
-  @Column('varchar') studyId: string;
+export class Site extends StudyRowColumns {
   @Column('varchar') code: string;
   @Column('varchar') name: string;
-  @Column('varchar') createdAt: string;
-  @Column('varchar') updatedAt: string;
 }

@@ -1,16 +1,17 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
-import { EntityManager, FindOptionsWhere, Repository } from 'typeorm';
+import { EntityManager, Repository } from 'typeorm';
 import { subject, type Page, type SiteView } from '@gyre/shared';
-import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditedWrites, type AuditScope } from '../audit/audited-writes';
+import { ScopedRows } from '../common/database/owned-rows';
 import { GyreException } from '../common/errors/gyre.exception';
 import { assertUnique } from '../common/errors/unique-violation';
 import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
-import { containsText } from '../common/pagination/text-filter';
+import { givenFields } from '../common/given-fields';
+import { scopedSearchWhere } from '../common/pagination/list-where';
 import { nowIso } from '../common/time';
 import { StudiesService } from '../studies/studies.service';
 import { CreateSiteDto, SiteQueryDto, UpdateSiteDto } from './dto/site.dto';
@@ -19,26 +20,21 @@ import { toSiteView } from './site-view';
 import { SitesError, sitesError } from './sites.errors';
 
 @Injectable()
-export class SitesService {
+export class SitesService extends ScopedRows<Site> {
   constructor(
     @InjectRepository(Site) private readonly sites: Repository<Site>,
     private readonly studies: StudiesService,
     private readonly audited: AuditedWrites,
-  ) {}
+  ) {
+    super(sites, 'Site', (id) => notFound(id, 'id'));
+  }
 
   async list(caller: Caller, query: SiteQueryDto): Promise<Page<SiteView>> {
     const window = pageWindowOf(query);
-    const base: FindOptionsWhere<Site> =
-      query.studyId === undefined ? {} : { studyId: query.studyId };
-    const filters: FindOptionsWhere<Site>[] =
-      query.q === undefined
-        ? [base]
-        : [
-            { ...base, code: containsText(query.q) },
-            { ...base, name: containsText(query.q) },
-          ];
+    const filter = givenFields(query, ['studyId']);
+    const search = query.q === undefined ? undefined : { code: query.q, name: query.q };
     const rows = await this.sites.findAndCount({
-      where: filters.flatMap((filter) => scopedWhere<Site>(caller.ability, 'read', 'Site', filter)),
+      where: scopedSearchWhere<Site>(caller.ability, 'Site', filter, search),
       ...pageSliceOf(window, query.sort ?? 'code'),
     });
     return toPage(rows, window, toSiteView);
@@ -125,35 +121,9 @@ export class SitesService {
     });
   }
 
-  async findInScope(
-    caller: Caller,
-    action: 'read' | 'update' | 'delete',
-    id: string,
-  ): Promise<Site> {
-    const site = await this.sites.findOne({
-      where: scopedWhere<Site>(caller.ability, action, 'Site', { id }),
-    });
-    if (site === null) throw notFound(id, 'id');
-    return site;
-  }
-
-  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
-  byId(id: string, manager?: EntityManager): Promise<Site> {
-    return this.repo(manager).findOneByOrFail({ id });
-  }
-
-  /** For other modules, unscoped: the site, or null when there is none. */
-  findById(id: string, manager?: EntityManager): Promise<Site | null> {
-    return this.repo(manager).findOneBy({ id });
-  }
-
   /** For other modules, unscoped: whether site `id` exists and belongs to study `studyId`. */
   async existsInStudy(id: string, studyId: string, manager?: EntityManager): Promise<boolean> {
     return (await this.repo(manager).countBy({ id, studyId })) > 0;
-  }
-
-  private repo(manager: EntityManager | undefined): Repository<Site> {
-    return manager?.getRepository(Site) ?? this.sites;
   }
 }
 

@@ -1,20 +1,20 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
-import { EntityManager, FindOptionsWhere, Repository } from 'typeorm';
+import { EntityManager, Repository } from 'typeorm';
 import {
   DEFAULT_TREND_MIN_SPAN_DAYS,
   DEFAULT_TREND_MIN_VISITS,
   type Page,
   type StudyView,
 } from '@gyre/shared';
-import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { AuditedWrites } from '../audit/audited-writes';
+import { ScopedRows } from '../common/database/owned-rows';
 import { assertUnique } from '../common/errors/unique-violation';
 import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
-import { containsText } from '../common/pagination/text-filter';
+import { scopedSearchWhere } from '../common/pagination/list-where';
 import { nowIso } from '../common/time';
 import { CreateStudyDto, StudyQueryDto, UpdateStudyDto } from './dto/study.dto';
 import { StudiesError, studiesError } from './studies.errors';
@@ -22,23 +22,19 @@ import { Study } from './study.entity';
 import { toStudyView } from './study-view';
 
 @Injectable()
-export class StudiesService {
+export class StudiesService extends ScopedRows<Study> {
   constructor(
     @InjectRepository(Study) private readonly studies: Repository<Study>,
     private readonly audited: AuditedWrites,
-  ) {}
+  ) {
+    super(studies, 'Study', (id) => studiesError(StudiesError.NotFound, `No study ${id}`, { id }));
+  }
 
   async list(caller: Caller, query: StudyQueryDto): Promise<Page<StudyView>> {
     const window = pageWindowOf(query);
-    const filters: FindOptionsWhere<Study>[] =
-      query.q === undefined
-        ? [{}]
-        : [{ code: containsText(query.q) }, { name: containsText(query.q) }];
-    const where = filters.flatMap((filter) =>
-      scopedWhere<Study>(caller.ability, 'read', 'Study', filter),
-    );
+    const search = query.q === undefined ? undefined : { code: query.q, name: query.q };
     const rows = await this.studies.findAndCount({
-      where,
+      where: scopedSearchWhere<Study>(caller.ability, 'Study', {}, search),
       ...pageSliceOf(window, query.sort ?? 'code'),
     });
     return toPage(rows, window, toStudyView);
@@ -109,33 +105,8 @@ export class StudiesService {
     });
   }
 
-  /** Row-level scope inside the query: a study outside it is reported as not found. */
-  async findInScope(caller: Caller, action: 'read' | 'update', id: string): Promise<Study> {
-    const study = await this.studies.findOne({
-      where: scopedWhere<Study>(caller.ability, action, 'Study', { id }),
-    });
-    if (study === null) {
-      throw studiesError(StudiesError.NotFound, `No study ${id}`, { id });
-    }
-    return study;
-  }
-
-  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
-  byId(id: string, manager?: EntityManager): Promise<Study> {
-    return this.repo(manager).findOneByOrFail({ id });
-  }
-
-  /** For other modules, unscoped: the study, or null when there is none. */
-  findById(id: string, manager?: EntityManager): Promise<Study | null> {
-    return this.repo(manager).findOneBy({ id });
-  }
-
   /** For other modules, unscoped: whether study `id` exists. */
   async exists(id: string, manager?: EntityManager): Promise<boolean> {
     return (await this.repo(manager).countBy({ id })) > 0;
-  }
-
-  private repo(manager: EntityManager | undefined): Repository<Study> {
-    return manager?.getRepository(Study) ?? this.studies;
   }
 }

@@ -1,8 +1,8 @@
-import { Column, Entity, PrimaryColumn } from 'typeorm';
+import { Column, Entity } from 'typeorm';
+import { ModelRowColumns } from '../common/database/model-columns';
 
 @Entity('study')
-export class Study {
-  @PrimaryColumn('varchar') id: string;
+export class Study extends ModelRowColumns {
   @Column('varchar') code: string;
   @Column('varchar') name: string;
   @Column('text') description: string;
@@ -15,6 +15,4 @@ export class Study {
 
   /** Blinded review: analysts see visits under codes until they record their decision. */
   @Column('boolean', { default: false }) blindedReview: boolean;
-  @Column('varchar') createdAt: string;
-  @Column('varchar') updatedAt: string;
 }

@@ -20,7 +20,7 @@ export class TrajectoryInputs {
 
   /**
    * The participant if the caller may read its results, else null: the rows
-   * `ParticipantsService.inScopeOf(caller, 'read', 'Result', id)` finds.
+   * `ParticipantsService.findInScopeOf(caller, 'read', 'Result', id, …)` finds.
    */
   participantInScope(
     caller: Caller,

@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { EntityManager, FindOptionsWhere } from 'typeorm';
+import { EntityManager } from 'typeorm';
 import { membershipOf, type Page, type Role, type UserView } from '@gyre/shared';
 import { AccountsService } from '../accounts/accounts.service';
 import { User } from '../accounts/user.entity';
@@ -14,7 +14,8 @@ import { GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
 import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
-import { containsText } from '../common/pagination/text-filter';
+import { givenFields } from '../common/given-fields';
+import { scopedSearchWhere } from '../common/pagination/list-where';
 import { nowIso } from '../common/time';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
@@ -43,20 +44,12 @@ export class UsersService {
 
   async list(caller: Caller, query: UserQueryDto): Promise<Page<UserView>> {
     const window = pageWindowOf(query);
-    const base: FindOptionsWhere<User> = {};
-    if (query.role !== undefined) base.role = query.role;
-    if (query.state !== undefined) base.state = query.state;
-    if (query.studyId !== undefined) base.studyId = query.studyId;
-    if (query.siteId !== undefined) base.siteId = query.siteId;
-    const filters =
-      query.q === undefined
-        ? [base]
-        : [
-            { ...base, name: containsText(query.q) },
-            { ...base, email: containsText(query.q.toLowerCase()) },
-          ];
+    const filter = givenFields(query, ['role', 'state', 'studyId', 'siteId']);
+    // E-mail addresses are stored lower-cased; LIKE folds only ASCII letters.
+    const search =
+      query.q === undefined ? undefined : { name: query.q, email: query.q.toLowerCase() };
     const rows = await this.accounts.findPage({
-      where: filters.flatMap((filter) => scopedWhere<User>(caller.ability, 'read', 'User', filter)),
+      where: scopedSearchWhere<User>(caller.ability, 'User', filter, search),
       ...pageSliceOf(window, query.sort ?? 'email'),
     });
     return toPage(rows, window, toUserView);
@@ -85,15 +78,11 @@ export class UsersService {
           at,
         );
         await this.accounts.insert(created, manager);
-        await this.audit.record({
-          actor: caller.user,
+        await this.audit.recordBy(caller, created, {
           action: 'invite',
           objectType: 'User',
           objectId: created.id,
-          studyId: created.studyId,
-          siteId: created.siteId,
           after: toUserView(created),
-          clientIp: caller.clientIp,
         });
         await this.sendInvitation(manager, created);
         return created;
@@ -116,15 +105,11 @@ export class UsersService {
     }
     await this.writes.run(async (manager) => {
       await this.sendInvitation(manager, user);
-      await this.audit.record({
-        actor: caller.user,
+      await this.audit.recordBy(caller, user, {
         action: 'invite',
         objectType: 'User',
         objectId: user.id,
-        studyId: user.studyId,
-        siteId: user.siteId,
         reason: 'invitation sent again; the earlier link no longer works',
-        clientIp: caller.clientIp,
       });
     });
     this.outbox.kick();
@@ -176,18 +161,18 @@ export class UsersService {
         // A session carries its holder's rights: a new role starts with a new sign-in.
         await this.refreshTokens.revokeAllOfUser(manager, current.id, 'role-change');
       }
-      await this.audit.record({
-        actor: caller.user,
-        action: roleChanged ? 'role-change' : 'update',
-        objectType: 'User',
-        objectId: current.id,
-        studyId: updated.studyId ?? current.studyId,
-        siteId: updated.siteId ?? current.siteId,
-        before: toUserView(current),
-        after: toUserView(updated),
-        reason: dto.reason ?? null,
-        clientIp: caller.clientIp,
-      });
+      await this.audit.recordBy(
+        caller,
+        { studyId: updated.studyId ?? current.studyId, siteId: updated.siteId ?? current.siteId },
+        {
+          action: roleChanged ? 'role-change' : 'update',
+          objectType: 'User',
+          objectId: current.id,
+          before: toUserView(current),
+          after: toUserView(updated),
+          reason: dto.reason ?? null,
+        },
+      );
       return updated;
     });
     return toUserView(next);

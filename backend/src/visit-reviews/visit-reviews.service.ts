@@ -1,3 +1,4 @@
+import type { GyreException } from '../common/errors/gyre.exception';
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
@@ -91,16 +92,12 @@ export class VisitReviewsService {
         runIdsJson: JSON.stringify(now.runIds),
       });
       await manager.getRepository(VisitReview).insert(row);
-      await this.audit.record({
-        actor: caller.user,
+      await this.audit.recordBy(caller, visit, {
         action: 'review',
         objectType: 'VisitReview',
         objectId: row.id,
-        studyId: visit.studyId,
-        siteId: visit.siteId,
         before: latest === null ? null : toVisitReviewView(latest),
         after: toVisitReviewView(row),
-        clientIp: caller.clientIp,
       });
     });
     return this.stateOf(caller, visit);
@@ -174,17 +171,14 @@ export class VisitReviewsService {
     });
   }
 
-  private async visitInScope(
-    caller: Caller,
-    action: 'read' | 'create',
-    visitId: string,
-  ): Promise<Visit> {
-    const visit = await this.visits.inScopeOf(caller, action, 'VisitReview', visitId);
-    if (visit === null) {
-      throw visitReviewsError(VisitReviewsError.VisitNotFound, `No visit ${visitId}.`, { visitId });
-    }
-    return visit;
+  /** The visit if the caller may `action` its review, else 404 VISIT_REVIEW_VISIT_NOT_FOUND. */
+  private visitInScope(caller: Caller, action: 'read' | 'create', visitId: string): Promise<Visit> {
+    return this.visits.findInScopeOf(caller, action, 'VisitReview', visitId, visitNotFound);
   }
+}
+
+function visitNotFound(visitId: string): GyreException {
+  return visitReviewsError(VisitReviewsError.VisitNotFound, `No visit ${visitId}.`, { visitId });
 }
 
 export function toVisitReviewView(row: VisitReview): VisitReviewView {

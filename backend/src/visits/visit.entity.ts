@@ -1,11 +1,10 @@
-import { Column, Entity, PrimaryColumn } from 'typeorm';
+import { Column, Entity } from 'typeorm';
+import { StudyRowColumns } from '../common/database/model-columns';
 
 /** One visit of a participant; `studyId`/`siteId` are copied from the participant for scoping. */
 @Entity('visit')
-export class Visit {
-  @PrimaryColumn('varchar') id: string;
+export class Visit extends StudyRowColumns {
   @Column('varchar') participantId: string;
-  @Column('varchar') studyId: string;
   @Column('varchar') siteId: string;
 
   /** The planned visit's name when one was picked (so every screen keeps showing it). */
@@ -16,6 +15,4 @@ export class Visit {
 
   /** Calendar date, `YYYY-MM-DD`. */
   @Column('varchar') visitDate: string;
-  @Column('varchar') createdAt: string;
-  @Column('varchar') updatedAt: string;
 }

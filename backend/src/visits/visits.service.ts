@@ -11,14 +11,16 @@ import {
   MoreThanOrEqual,
   Repository,
 } from 'typeorm';
-import { subject, type Action, type Page, type SubjectName, type VisitView } from '@gyre/shared';
+import { subject, type Page, type VisitView } from '@gyre/shared';
 import { scopedWhere } from '../auth/access-scope';
 import { Caller } from '../auth/decorators';
 import { BlindingService } from '../blinding/blinding.service';
 import { AuditedWrites, type AuditScope } from '../audit/audited-writes';
+import { ScopedRows } from '../common/database/owned-rows';
 import { GyreException } from '../common/errors/gyre.exception';
+import { givenFields } from '../common/given-fields';
 import { assertUnique } from '../common/errors/unique-violation';
-import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
 import { Participant } from '../participants/participant.entity';
@@ -32,21 +34,24 @@ import { ParticipantsError, participantsError } from '../participants/participan
 import { VisitsError, visitsError } from './visits.errors';
 
 @Injectable()
-export class VisitsService {
+export class VisitsService extends ScopedRows<Visit> {
   constructor(
     @InjectRepository(Visit) private readonly visits: Repository<Visit>,
     private readonly participants: ParticipantsService,
     private readonly plannedVisits: PlannedVisitsService,
     private readonly audited: AuditedWrites,
     private readonly blinding: BlindingService,
-  ) {}
+  ) {
+    super(visits, 'Visit', (id) => notFound(id, 'id'));
+  }
 
   async list(caller: Caller, query: VisitQueryDto): Promise<Page<VisitView>> {
     const window = pageWindowOf(query);
-    const filter: FindOptionsWhere<Visit> = {};
-    if (query.participantId !== undefined) filter.participantId = query.participantId;
-    if (query.siteId !== undefined) filter.siteId = query.siteId;
-    if (query.plannedVisitId !== undefined) filter.plannedVisitId = query.plannedVisitId;
+    const filter: FindOptionsWhere<Visit> = givenFields(query, [
+      'participantId',
+      'siteId',
+      'plannedVisitId',
+    ]);
     if (query.from !== undefined && query.to !== undefined) {
       filter.visitDate = Between(query.from, query.to);
     } else if (query.from !== undefined) filter.visitDate = MoreThanOrEqual(query.from);
@@ -56,9 +61,7 @@ export class VisitsService {
     if (unblinded !== null) filter.id = In(unblinded);
     const rows = await this.visits.findAndCount({
       where: scopedWhere<Visit>(caller.ability, 'read', 'Visit', filter),
-      order: { [query.sort ?? 'visitDate']: window.order, id: 'ASC' },
-      skip: window.skip,
-      take: window.take,
+      ...pageSliceOf(window, query.sort ?? 'visitDate'),
     });
     const views = await this.viewsOf(rows[0]);
     return toPage([views, rows[1]], window, (view) => view);
@@ -234,51 +237,12 @@ export class VisitsService {
     });
   }
 
-  /** For other modules (recordings): the visit if the caller may act on it, else 404. */
-  async findInScope(caller: Caller, action: 'read' | 'update', id: string): Promise<Visit> {
-    const visit = await this.visits.findOne({
-      where: scopedWhere<Visit>(caller.ability, action, 'Visit', { id }),
-    });
-    if (visit === null) throw notFound(id, 'id');
-    return visit;
-  }
-
-  /**
-   * For other modules: the visit if the caller may `action` a `subjectName` of it (that
-   * subject's scope, applied to the visit row in the query), else null for their own 404.
-   */
-  inScopeOf(
-    caller: Caller,
-    action: Action,
-    subjectName: SubjectName,
-    id: string,
-  ): Promise<Visit | null> {
-    return this.visits.findOne({
-      where: scopedWhere<Visit>(caller.ability, action, subjectName, { id }),
-    });
-  }
-
-  /** For other modules holding the id (unscoped); `manager` reads inside their transaction. */
-  byId(id: string, manager?: EntityManager): Promise<Visit> {
-    return this.repo(manager).findOneByOrFail({ id });
-  }
-
-  /** For other modules, unscoped: the visits among `ids` (missing ones are left out). */
-  async byIds(ids: string[], manager?: EntityManager): Promise<Visit[]> {
-    if (ids.length === 0) return [];
-    return this.repo(manager).find({ where: { id: In(ids) } });
-  }
-
   /** For other modules, unscoped: a participant's visits by date, then label. */
   ofParticipant(participantId: string): Promise<Visit[]> {
     return this.visits.find({
       where: { participantId },
       order: { visitDate: 'ASC', label: 'ASC' },
     });
-  }
-
-  private repo(manager: EntityManager | undefined): Repository<Visit> {
-    return manager?.getRepository(Visit) ?? this.visits;
   }
 }
 

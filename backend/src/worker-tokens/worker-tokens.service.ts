@@ -13,7 +13,7 @@ import type { Caller } from '../auth/decorators';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { GyreException } from '../common/errors/gyre.exception';
 import { isUniqueViolation } from '../common/errors/unique-violation';
-import { pageWindowOf } from '../common/pagination/page-query.dto';
+import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { nowIso } from '../common/time';
 import {
   CreateWorkerTokenDto,
@@ -55,9 +55,7 @@ export class WorkerTokensService {
           : {};
     const [rows, total] = await this.tokens.findAndCount({
       where,
-      order: { createdAt: window.order, id: 'ASC' },
-      skip: window.skip,
-      take: window.take,
+      ...pageSliceOf(window, 'createdAt'),
     });
     const names = await this.namesFor(rows);
     return {

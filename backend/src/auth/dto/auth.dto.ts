@@ -1,7 +1,8 @@
 import { applyDecorators } from '@nestjs/common';
-import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { IsEmail, IsNotEmpty, IsOptional, IsString, MaxLength } from 'class-validator';
+import { ApiProperty } from '@nestjs/swagger';
+import { IsEmail, IsNotEmpty, IsString, MaxLength } from 'class-validator';
 import { PASSWORD_MIN_LENGTH } from '@gyre/shared';
+import { OptionalNameText } from '../../common/dto/text-fields';
 
 /** An e-mail address (RFC 5321 limits a path to 254 characters). */
 const EmailAddress = (example?: string): PropertyDecorator =>
@@ -50,10 +51,5 @@ export class AcceptInvitationDto {
   @EmailedToken('The token from the invitation e-mail') token: string;
   @NewPassword() password: string;
 
-  @ApiPropertyOptional({ description: 'Replaces the name the admin entered' })
-  @IsOptional()
-  @IsString()
-  @IsNotEmpty()
-  @MaxLength(200)
-  name?: string;
+  @OptionalNameText({ description: 'Replaces the name the admin entered' }) name?: string;
 }

@@ -46,14 +46,16 @@ export interface PageWindow {
 }
 
 /**
- * The find options of one page: sorted by `column` in the window's order, then by id so that
- * rows with equal values keep one order and no row shows on two pages.
+ * The find options of one page: sorted by `column` in the window's order, then by id (`idOrder`,
+ * ascending unless a list says otherwise) so that rows with equal values keep one order and no
+ * row shows on two pages.
  */
 export function pageSliceOf(
   window: PageWindow,
   column: string,
+  idOrder: 'ASC' | 'DESC' = 'ASC',
 ): { order: Record<string, 'ASC' | 'DESC'>; skip: number; take: number } {
-  return { order: { [column]: window.order, id: 'ASC' }, skip: window.skip, take: window.take };
+  return { order: { [column]: window.order, id: idOrder }, skip: window.skip, take: window.take };
 }
 
 export function pageWindowOf(

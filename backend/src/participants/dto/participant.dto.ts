@@ -3,6 +3,7 @@ import { Transform } from 'class-transformer';
 import { IsOptional, IsString, IsUUID, Matches, MaxLength, ValidateIf } from 'class-validator';
 import { CALENDAR_DATE_PATTERN, PARTICIPANT_CODE_PATTERN } from '@gyre/shared';
 import { IdUuid, OneOf, SearchText } from '../../common/dto/query-filters';
+import { CalendarDateText } from '../../common/dto/text-fields';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 const CODE_MESSAGE =
@@ -27,12 +28,11 @@ export class CreateParticipantDto {
   @Matches(PARTICIPANT_CODE_PATTERN, { message: CODE_MESSAGE })
   code: string;
 
-  @ApiPropertyOptional({
+  @CalendarDateText({
     example: '2026-03-02',
     description: 'Day 0 of the visit schedule (YYYY-MM-DD)',
+    optional: true,
   })
-  @IsOptional()
-  @Matches(CALENDAR_DATE_PATTERN, { message: DATE_MESSAGE })
   enrolmentDate?: string;
 
   @ApiPropertyOptional({ description: 'A group (arm) of the same study' })

@@ -1,7 +1,7 @@
 import { ApiProperty, OmitType, PartialType } from '@nestjs/swagger';
-import { IsNotEmpty, IsString, IsUUID, Matches, MaxLength } from 'class-validator';
-import { STUDY_CODE_PATTERN } from '@gyre/shared';
+import { IsUUID } from 'class-validator';
 import { IdUuid, OneOf, SearchText } from '../../common/dto/query-filters';
+import { NameText, StudyCodeText } from '../../common/dto/text-fields';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 export class CreateSiteDto {
@@ -9,17 +9,8 @@ export class CreateSiteDto {
   @IsUUID()
   studyId: string;
 
-  @ApiProperty({ example: 'NORTH', pattern: STUDY_CODE_PATTERN.source })
-  @Matches(STUDY_CODE_PATTERN, {
-    message: 'code must be 2–32 upper-case letters, digits or inner hyphens, e.g. NORTH',
-  })
-  code: string;
-
-  @ApiProperty({ example: 'North Hospital EEG lab' })
-  @IsString()
-  @IsNotEmpty()
-  @MaxLength(200)
-  name: string;
+  @StudyCodeText('NORTH') code: string;
+  @NameText({ example: 'North Hospital EEG lab' }) name: string;
 }
 
 /** A site never moves to another study. */

@@ -1,37 +1,23 @@
-import { ApiProperty, ApiPropertyOptional, PartialType } from '@nestjs/swagger';
+import { ApiPropertyOptional, PartialType } from '@nestjs/swagger';
 import {
   IsBoolean,
   IsInt,
-  IsNotEmpty,
   IsOptional,
   IsString,
-  Matches,
   Max,
   MaxLength,
   Min,
   MinLength,
 } from 'class-validator';
 import { Transform } from 'class-transformer';
-import {
-  DEFAULT_TREND_MIN_SPAN_DAYS,
-  DEFAULT_TREND_MIN_VISITS,
-  STUDY_CODE_PATTERN,
-} from '@gyre/shared';
+import { DEFAULT_TREND_MIN_SPAN_DAYS, DEFAULT_TREND_MIN_VISITS } from '@gyre/shared';
 import { OneOf, SearchText } from '../../common/dto/query-filters';
+import { NameText, StudyCodeText } from '../../common/dto/text-fields';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 export class CreateStudyDto {
-  @ApiProperty({ example: 'ALPHA-AGE', pattern: STUDY_CODE_PATTERN.source })
-  @Matches(STUDY_CODE_PATTERN, {
-    message: 'code must be 2–32 upper-case letters, digits or inner hyphens, e.g. ALPHA-AGE',
-  })
-  code: string;
-
-  @ApiProperty({ example: 'Alpha rhythm in healthy ageing' })
-  @IsString()
-  @IsNotEmpty()
-  @MaxLength(200)
-  name: string;
+  @StudyCodeText('ALPHA-AGE') code: string;
+  @NameText({ example: 'Alpha rhythm in healthy ageing' }) name: string;
 
   @ApiPropertyOptional()
   @IsOptional()

@@ -3,7 +3,6 @@ import { Transform } from 'class-transformer';
 import {
   IsEmail,
   IsIn,
-  IsNotEmpty,
   IsOptional,
   IsString,
   IsUUID,
@@ -12,6 +11,7 @@ import {
 } from 'class-validator';
 import { ROLES, USER_STATES, type Role, type UserState } from '@gyre/shared';
 import { IdUuid, OneOf, SearchText } from '../../common/dto/query-filters';
+import { NameText, OptionalNameText } from '../../common/dto/text-fields';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 const lowerTrimmed = ({ value }: { value: unknown }): unknown =>
@@ -24,11 +24,7 @@ export class InviteUserDto {
   @MaxLength(254)
   email: string;
 
-  @ApiProperty({ example: 'Dana Analyst' })
-  @IsString()
-  @IsNotEmpty()
-  @MaxLength(200)
-  name: string;
+  @NameText({ example: 'Dana Analyst' }) name: string;
 
   @ApiProperty({ enum: ROLES })
   @IsIn(ROLES)
@@ -46,12 +42,7 @@ export class InviteUserDto {
 }
 
 export class UpdateUserDto {
-  @ApiPropertyOptional()
-  @IsOptional()
-  @IsString()
-  @IsNotEmpty()
-  @MaxLength(200)
-  name?: string;
+  @OptionalNameText() name?: string;
 
   @ApiPropertyOptional({ enum: ROLES })
   @IsOptional()

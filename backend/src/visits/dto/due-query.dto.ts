@@ -1,11 +1,12 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { IsOptional, IsUUID, Matches } from 'class-validator';
-import { CALENDAR_DATE_PATTERN } from '@gyre/shared';
+import { IsOptional, IsUUID } from 'class-validator';
+import { CalendarDateText } from '../../common/dto/text-fields';
 
 export class DueQueryDto {
-  @ApiPropertyOptional({ description: 'The day to compute for, YYYY-MM-DD (default: today, UTC)' })
-  @IsOptional()
-  @Matches(CALENDAR_DATE_PATTERN, { message: 'asOf must be a calendar date written YYYY-MM-DD' })
+  @CalendarDateText({
+    description: 'The day to compute for, YYYY-MM-DD (default: today, UTC)',
+    optional: true,
+  })
   asOf?: string;
 
   @ApiPropertyOptional({ description: 'Only this site (inside your scope)' })

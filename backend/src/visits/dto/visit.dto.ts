@@ -6,16 +6,15 @@ import {
   IsOptional,
   IsString,
   IsUUID,
-  Matches,
   MaxLength,
   ValidateIf,
 } from 'class-validator';
 import { IdUuid, OneOf } from '../../common/dto/query-filters';
+import { CalendarDateText } from '../../common/dto/text-fields';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 const trimmed = ({ value }: { value: unknown }): unknown =>
   typeof value === 'string' ? value.trim() : value;
-const DATE_PATTERN = /^\d{4}-\d{2}-\d{2}$/;
 
 export class CreateVisitDto {
   @ApiProperty()
@@ -49,8 +48,7 @@ export class CreateVisitDto {
   @MaxLength(40)
   label?: string;
 
-  @ApiProperty({ example: '2026-03-14', description: 'Calendar date, YYYY-MM-DD' })
-  @Matches(DATE_PATTERN, { message: 'visitDate must be a calendar date written YYYY-MM-DD' })
+  @CalendarDateText({ example: '2026-03-14', description: 'Calendar date, YYYY-MM-DD' })
   visitDate: string;
 }
 
@@ -81,13 +79,9 @@ export class VisitQueryDto extends PageQueryDto {
   @IdUuid() siteId?: string;
   @IdUuid() plannedVisitId?: string;
 
-  @ApiPropertyOptional({ description: 'Visits on or after, YYYY-MM-DD' })
-  @IsOptional()
-  @Matches(DATE_PATTERN, { message: 'from must be YYYY-MM-DD' })
+  @CalendarDateText({ description: 'Visits on or after, YYYY-MM-DD', optional: true })
   from?: string;
 
-  @ApiPropertyOptional({ description: 'Visits on or before, YYYY-MM-DD' })
-  @IsOptional()
-  @Matches(DATE_PATTERN, { message: 'to must be YYYY-MM-DD' })
+  @CalendarDateText({ description: 'Visits on or before, YYYY-MM-DD', optional: true })
   to?: string;
 }
