@@ -192,7 +192,13 @@ export abstract class StudyRowsService<Row extends StudyRow, View> extends Owned
  * The base class of one kind's service, its repository injected (a mixin, like NestJS's
  * mapped types): the service itself only builds its rows from its DTOs.
  */
-export function StudyRowsServiceFor<Row extends StudyRow, View>(kind: StudyRowKind<Row, View>) {
+export function StudyRowsServiceFor<Row extends StudyRow, View>(
+  kind: StudyRowKind<Row, View>,
+): abstract new (
+  rows: Repository<Row>,
+  studies: StudiesService,
+  audited: AuditedWrites,
+) => StudyRowsService<Row, View> {
   abstract class StudyRowsOfKind extends StudyRowsService<Row, View> {
     constructor(
       @InjectRepository(kind.entity) rows: Repository<Row>,
