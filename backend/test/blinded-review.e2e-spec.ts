@@ -10,12 +10,16 @@ import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type {
   AuditEntryView,
+  FlagView,
   Page,
   RecordingView,
   ReportRevisionView,
   ReportSignOffView,
   StudyView,
+  VisitAnalysisOverrideView,
   VisitBlindingView,
+  VisitFlagView,
+  VisitReviewStateView,
   WorklistItem,
   WorklistView,
 } from '@gyre/shared';
@@ -68,6 +72,42 @@ describe('blinded review', () => {
 
   const itemsOf = (list: WorklistView): WorklistItem[] =>
     list.sections.flatMap((s) => s.items).filter((i) => i.visitId === visitId);
+
+  /** Dates every time stamp of the visit's rows in `tables` on the day of the visit. */
+  async function stampOnTheDay(tables: string[]): Promise<void> {
+    const onTheDay = `${VISIT_DATE}T09:30:00.000Z`;
+    for (const table of tables) {
+      const columns = (
+        (await t.dataSource.query(`PRAGMA table_info("${table}")`)) as Array<{ name: string }>
+      ).map((c) => c.name);
+      const stamps = columns.filter((c) => c.endsWith('At'));
+      const key = columns.includes('visitId') ? 'visitId' : 'recordingId';
+      const ids = key === 'visitId' ? [visitId] : [restId];
+      if (stamps.length === 0 || !columns.includes(key)) continue;
+      await t.dataSource.query(
+        `UPDATE "${table}" SET ${stamps.map((c) => `"${c}" = CASE WHEN "${c}" IS NULL THEN NULL ELSE ? END`).join(', ')} WHERE "${key}" = ?`,
+        [...stamps.map(() => onTheDay), ...ids],
+      );
+    }
+  }
+
+  /** Another analyst of study A: the seeded analyst's row under a new id and `email`, signed in. */
+  async function copiedAnalyst(email: string): Promise<Header> {
+    const id = randomUUID();
+    await t.dataSource.query(
+      `INSERT INTO "user" ("id", "email", "name", "role", "studyId", "siteId", "passwordHash", "state",
+         "failedSignIns", "lockedUntil", "lastSignInAt", "passwordChangedAt", "createdAt", "updatedAt")
+       SELECT ?, ?, "name" || ' ' || ?, "role", "studyId", "siteId", "passwordHash", "state",
+         "failedSignIns", "lockedUntil", "lastSignInAt", "passwordChangedAt", "createdAt", "updatedAt"
+       FROM "user" WHERE "id" = ?`,
+      [id, email, email.split('.')[0], t.seed.users.analyst.id],
+    );
+    const signIn = await request(t.url)
+      .post('/api/auth/sign-in')
+      .send({ email, password: SEED_PASSWORD });
+    expect(signIn.status).toBe(200);
+    return { Authorization: `Bearer ${(signIn.body as { accessToken: string }).accessToken}` };
+  }
 
   async function setBlinded(on: boolean, reason?: string): Promise<request.Response> {
     return request(t.url)
@@ -237,23 +277,8 @@ describe('blinded review', () => {
         at,
       ],
     );
-    // A second analyst of study A: the seeded analyst's row under a new id and address.
-    const secondId = randomUUID();
-    await t.dataSource.query(
-      `INSERT INTO "user" ("id", "email", "name", "role", "studyId", "siteId", "passwordHash", "state",
-         "failedSignIns", "lockedUntil", "lastSignInAt", "passwordChangedAt", "createdAt", "updatedAt")
-       SELECT ?, ?, "name" || ' Second', "role", "studyId", "siteId", "passwordHash", "state",
-         "failedSignIns", "lockedUntil", "lastSignInAt", "passwordChangedAt", "createdAt", "updatedAt"
-       FROM "user" WHERE "id" = ?`,
-      [secondId, 'second.analyst@example.org', t.seed.users.analyst.id],
-    );
-    const signIn = await request(t.url)
-      .post('/api/auth/sign-in')
-      .send({ email: 'second.analyst@example.org', password: SEED_PASSWORD });
-    expect(signIn.status).toBe(200);
-    secondAnalyst = {
-      Authorization: `Bearer ${(signIn.body as { accessToken: string }).accessToken}`,
-    };
+    // A second analyst of study A.
+    secondAnalyst = await copiedAnalyst('second.analyst@example.org');
     // One computed recording, uploaded under a file name that carries the visit date.
     const rest = await upload(t, 'technician', visitId, {
       kind: 'resting',
@@ -266,20 +291,7 @@ describe('blinded review', () => {
     await t.computationsIdle();
     // The recording was uploaded and computed on the day of the visit, as it would be at a site:
     // every time stamp of the visit's rows then carries the visit date.
-    const onTheDay = `${VISIT_DATE}T09:30:00.000Z`;
-    for (const table of ['recording', 'job', 'analysis_run', 'report', 'flag', 'visit_review']) {
-      const columns = (
-        (await t.dataSource.query(`PRAGMA table_info("${table}")`)) as Array<{ name: string }>
-      ).map((c) => c.name);
-      const stamps = columns.filter((c) => c.endsWith('At'));
-      const key = columns.includes('visitId') ? 'visitId' : 'recordingId';
-      const ids = key === 'visitId' ? [visitId] : [restId];
-      if (stamps.length === 0 || !columns.includes(key)) continue;
-      await t.dataSource.query(
-        `UPDATE "${table}" SET ${stamps.map((c) => `"${c}" = CASE WHEN "${c}" IS NULL THEN NULL ELSE ? END`).join(', ')} WHERE "${key}" = ?`,
-        [...stamps.map(() => onTheDay), ...ids],
-      );
-    }
+    await stampOnTheDay(['recording', 'job', 'analysis_run', 'report', 'flag', 'visit_review']);
   }, 120_000);
   afterAll(async () => {
     await t.close();
@@ -574,6 +586,63 @@ describe('blinded review', () => {
     expect(actions).toEqual(['raise']);
     // Decided: the revision the first analyst signed is in this analyst's list now.
     expect(await revisionIds(secondAnalyst)).toEqual([signedRevisionId]);
+  });
+
+  it("shows a still-blinded analyst colleagues' flag, review mark and override by the visit's clock", async () => {
+    // A third analyst, blinded still; the first analyst overrides the band and marks the visit
+    // reviewed; the flag is the second analyst's.
+    const third = await copiedAnalyst('third.analyst@example.org');
+    const analyst = await as('analyst');
+    const override = await request(t.url)
+      .put(`/api/visits/${visitId}/analysis-override`)
+      .set(analyst)
+      .send({
+        roi: null,
+        bandHz: [8, 12.5],
+        onsetLabel: null,
+        reason: 'Band widened for this session',
+      });
+    expect(override.status).toBe(200);
+    await t.computationsIdle();
+    const state = (await get(analyst, `/api/visits/${visitId}/review`))
+      .body as VisitReviewStateView;
+    const marked = await request(t.url)
+      .post(`/api/visits/${visitId}/review`)
+      .set(analyst)
+      .send({ fingerprint: state.currentFingerprint });
+    expect(marked.status).toBe(201);
+    // The flag dated on the day of the visit (review marks and overrides are never changed).
+    await stampOnTheDay(['flag']);
+    const flagPath = `/api/visits/${visitId}/flag`;
+    const acts = [
+      flagPath,
+      `/api/visits/${visitId}/review`,
+      `/api/visits/${visitId}/analysis-override`,
+      '/api/flags',
+    ];
+    const shown: string[] = [];
+    for (const path of acts) shown.push((await get(third, path)).text);
+    expectNothingHidden(shown.join('\n') + (await reviewAnswers(third)));
+    // Blinded: the acts keep their order, counted from the first upload; the analyst who decided
+    // sees the dates.
+    const blindedFlag = (await get(third, flagPath)).body as VisitFlagView;
+    expect(blindedFlag.current?.raisedAt).toMatch(/^1970-01-01T/);
+    const openFlag = (await get(analyst, flagPath)).body as VisitFlagView;
+    expect(openFlag.current?.raisedAt).toBe(`${VISIT_DATE}T09:30:00.000Z`);
+    const listed = (await get(third, `/api/flags`)).body as Page<FlagView>;
+    expect(listed.items.find((f) => f.visitId === visitId)?.raisedAt).toMatch(/^1970-01-01T/);
+    const reviewOf = async (header: Header): Promise<string | undefined> =>
+      ((await get(header, `/api/visits/${visitId}/review`)).body as VisitReviewStateView).latest
+        ?.reviewedAt;
+    expect(await reviewOf(third)).toMatch(/^1970-/);
+    expect(await reviewOf(analyst)).not.toMatch(/^1970-/);
+    const overrideOf = async (header: Header): Promise<string | null> =>
+      (
+        (await get(header, `/api/visits/${visitId}/analysis-override`))
+          .body as VisitAnalysisOverrideView
+      ).updatedAt;
+    expect(await overrideOf(third)).toMatch(/^1970-/);
+    expect(await overrideOf(analyst)).not.toMatch(/^1970-/);
   });
 
   it('shows everything as before once the setting is off', async () => {

@@ -1,4 +1,5 @@
 import { Module } from '@nestjs/common';
+import { BlindingModule } from '../blinding/blinding.module';
 import { RecordingsModule } from '../recordings/recordings.module';
 import { StudiesModule } from '../studies/studies.module';
 import { VisitsModule } from '../visits/visits.module';
@@ -13,7 +14,7 @@ import { VisitAnalysisOverridesService } from './visit-analysis-overrides.servic
 
 /** Analysis settings (study versions, visit overrides), runs and their results. */
 @Module({
-  imports: [RecordingsModule, StudiesModule, VisitsModule],
+  imports: [RecordingsModule, StudiesModule, VisitsModule, BlindingModule],
   controllers: [
     AnalysisSettingsController,
     AnalysisResultsController,

@@ -7,6 +7,8 @@ import { subject } from '@gyre/shared';
 import type { VisitAnalysisOverrideView, VisitAnalysisOverrideValues } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
+import { blindedOverrideView } from '../blinding/blinded-views';
+import { BlindingService } from '../blinding/blinding.service';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { nowIso } from '../common/time';
 import { VisitsService } from '../visits/visits.service';
@@ -42,12 +44,13 @@ export class VisitAnalysisOverridesService {
     private readonly settings: AnalysisSettingsService,
     private readonly visits: VisitsService,
     private readonly events: EventEmitter2,
+    private readonly blinding: BlindingService,
   ) {}
 
   async get(caller: Caller, visitId: string): Promise<VisitAnalysisOverrideView> {
     const visit = await this.visits.findInScope(caller, 'read', visitId);
     this.assertMay(caller, 'read', visit.studyId, visitId);
-    return toOverrideView(visitId, await this.latest(visitId));
+    return this.shown(caller, visitId, await this.latest(visitId));
   }
 
   async change(
@@ -104,7 +107,18 @@ export class VisitAnalysisOverridesService {
       reason: row.reason,
     };
     await this.events.emitAsync(AnalysisEvents.VisitOverrideChanged, event);
-    return toOverrideView(visitId, row);
+    return this.shown(caller, visitId, row);
+  }
+
+  /** The override as the caller may see it: by the visit's blinded clock under blinded review. */
+  private async shown(
+    caller: Caller,
+    visitId: string,
+    row: VisitAnalysisOverride | null,
+  ): Promise<VisitAnalysisOverrideView> {
+    const clock = await this.blinding.clockOf(caller, visitId);
+    const view = toOverrideView(visitId, row);
+    return clock === null ? view : blindedOverrideView(view, clock);
   }
 
   /** The settings a computation of this visit uses now. */

@@ -1,9 +1,12 @@
 import type {
   AnalysisRunView,
+  FlagView,
   JobView,
   RecordingResultsView,
   RecordingView,
   ReportView,
+  VisitAnalysisOverrideView,
+  VisitReviewView,
 } from '@gyre/shared';
 import type { BlindedClock } from './blinded-visit-facts';
 
@@ -11,7 +14,8 @@ import type { BlindedClock } from './blinded-visit-facts';
  * The answers Review reads about a visit, as an analyst it is blinded for gets them: no
  * participant, no uploaded file name (it may carry a date), and every time stamp shown by
  * the visit's blinded clock (its distance from the first upload), since upload and
- * computation times give away the visit date. The numbers are untouched.
+ * computation times give away the visit date; so do the times of what colleagues did on the
+ * visit (a flag, a "reviewed" mark, an override). The numbers are untouched.
  */
 export function blindedRecordingView(view: RecordingView, clock: BlindedClock): RecordingView {
   return {
@@ -55,4 +59,26 @@ export function blindedReportView(report: ReportView, clock: BlindedClock): Repo
     createdAt: clock(report.createdAt),
     updatedAt: clock(report.updatedAt),
   };
+}
+
+export function blindedFlagView(flag: FlagView, clock: BlindedClock): FlagView {
+  return {
+    ...flag,
+    raisedAt: clock(flag.raisedAt),
+    clearedAt: flag.clearedAt === null ? null : clock(flag.clearedAt),
+  };
+}
+
+export function blindedVisitReviewView(
+  review: VisitReviewView,
+  clock: BlindedClock,
+): VisitReviewView {
+  return { ...review, reviewedAt: clock(review.reviewedAt) };
+}
+
+export function blindedOverrideView(
+  view: VisitAnalysisOverrideView,
+  clock: BlindedClock,
+): VisitAnalysisOverrideView {
+  return { ...view, updatedAt: view.updatedAt === null ? null : clock(view.updatedAt) };
 }

@@ -7,7 +7,7 @@ import { WriteTransactionsService } from '../common/database/write-transactions.
 import { nowIso } from '../common/time';
 import { Study } from '../studies/study.entity';
 import { newBlindCode } from './blind-codes';
-import { blindedClock, type BlindedVisit } from './blinded-visit-facts';
+import { blindedClock, type BlindedClock, type BlindedVisit } from './blinded-visit-facts';
 import { BlindingError, blindingError } from './blinding.errors';
 import { VisitBlindCode } from './visit-blind-code.entity';
 import { VisitUnblinding } from './visit-unblinding.entity';
@@ -143,6 +143,11 @@ export class BlindingService {
       }
     }
     return out;
+  }
+
+  /** The visit's blinded clock when it is blinded for the caller; null: shown as it is. */
+  async clockOf(caller: Caller, visitId: string): Promise<BlindedClock | null> {
+    return (await this.blindedVisits(caller, [visitId])).get(visitId)?.clock ?? null;
   }
 
   /** Whether one visit is blinded for the caller. */

@@ -10,6 +10,8 @@ import { parseStoredSettings } from '../analysis/settings-values';
 import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
+import { blindedFlagView } from '../blinding/blinded-views';
+import { BlindingService } from '../blinding/blinding.service';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
@@ -32,6 +34,7 @@ export class FlagsService {
     private readonly audit: AuditService,
     private readonly runs: AnalysisRunsService,
     private readonly visits: VisitsService,
+    private readonly blinding: BlindingService,
   ) {}
 
   async forVisit(caller: Caller, visitId: string): Promise<VisitFlagView> {
@@ -40,11 +43,15 @@ export class FlagsService {
       .getRepository(Flag)
       .find({ where: { visitId }, order: { raisedAt: 'DESC', id: 'DESC' } });
     const current = history.find((f) => f.state === 'raised') ?? null;
+    // Blinded review: when colleagues flagged the visit would tell the analyst roughly when it was.
+    const clock = await this.blinding.clockOf(caller, visitId);
+    const shown = (flag: Flag): FlagView =>
+      clock === null ? toFlagView(flag) : blindedFlagView(toFlagView(flag), clock);
     return {
       visitId,
-      current: current === null ? null : toFlagView(current),
+      current: current === null ? null : shown(current),
       suggestion: await this.suggestion(visitId),
-      history: history.map(toFlagView),
+      history: history.map(shown),
     };
   }
 
@@ -55,7 +62,15 @@ export class FlagsService {
       where: scopedWhere<Flag>(caller.ability, 'read', 'Flag', filters),
       ...pageSliceOf(window, query.sort ?? 'raisedAt', window.order),
     });
-    return toPage(found, window, toFlagView);
+    const blinded = await this.blinding.blindedVisits(caller, [
+      ...new Set(found[0].map((flag) => flag.visitId)),
+    ]);
+    return toPage(found, window, (flag) => {
+      const visit = blinded.get(flag.visitId);
+      return visit === undefined
+        ? toFlagView(flag)
+        : blindedFlagView(toFlagView(flag), visit.clock);
+    });
   }
 
   async raise(caller: Caller, visitId: string, reason: string): Promise<VisitFlagView> {

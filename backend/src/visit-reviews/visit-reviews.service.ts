@@ -7,6 +7,8 @@ import { subject } from '@gyre/shared';
 import type { VisitReviewView, VisitReviewStateView } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
+import { blindedVisitReviewView } from '../blinding/blinded-views';
+import { BlindingService } from '../blinding/blinding.service';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
 import { nowIso } from '../common/time';
 import type { Recording } from '../recordings/recording.entity';
@@ -32,6 +34,7 @@ export class VisitReviewsService {
     private readonly audit: AuditService,
     private readonly visits: VisitsService,
     private readonly recordings: RecordingsService,
+    private readonly blinding: BlindingService,
   ) {}
 
   async state(caller: Caller, visitId: string): Promise<VisitReviewStateView> {
@@ -153,12 +156,19 @@ export class VisitReviewsService {
       visitId: visit.id,
       currentFingerprint: now?.fingerprint ?? null,
       currentRunIds: now?.runIds ?? [],
-      latest: latest === null ? null : toVisitReviewView(latest),
+      latest: latest === null ? null : await this.shownReview(caller, latest),
       reviewed,
       changedSinceReview: latest !== null && !reviewed,
       canReview: cannotReviewReason === null,
       cannotReviewReason,
     };
+  }
+
+  /** The mark as the caller may see it: by the visit's blinded clock under blinded review. */
+  private async shownReview(caller: Caller, review: VisitReview): Promise<VisitReviewView> {
+    const clock = await this.blinding.clockOf(caller, review.visitId);
+    const view = toVisitReviewView(review);
+    return clock === null ? view : blindedVisitReviewView(view, clock);
   }
 
   private latestOf(

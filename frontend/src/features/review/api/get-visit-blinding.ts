@@ -3,10 +3,11 @@ import useSWR, { type ScopedMutator } from 'swr';
 import { apiFetch, apiSend } from '../../../lib/api-client';
 import { useWrite } from '../../../lib/use-write';
 import { getRecordingResults, recordingResultsKey } from './get-recording-results';
-import { visitFlagKey } from './get-visit-flag';
+import { getVisitFlag, visitFlagKey } from './get-visit-flag';
+import { getVisitOverride, visitOverrideKey } from './get-visit-override';
 import { getVisitRecordings, visitRecordingsKey } from './get-visit-recordings';
 import { getVisitReport, visitReportKey } from './get-visit-report';
-import { visitReviewKey } from './get-visit-review';
+import { getVisitReview, visitReviewKey } from './get-visit-review';
 
 /** `GET /api/visits/:visitId/blinding`: whether the visit's details are hidden from the caller. */
 export const visitBlindingKey = (visitId: string) =>
@@ -30,13 +31,20 @@ async function fetchUnblinded(visitId: string) {
         : [getRecordingResults(id, latestRunId).then((data) => ({ id, latestRunId, data }))],
     ),
   );
-  return { recordings, report, results };
+  // Colleagues' acts on the visit, also sent by the blinded clock; a read the role may not make
+  // (review mark, visit choices) is left to its own hook.
+  const [flag, review, override] = await Promise.all([
+    getVisitFlag(visitId),
+    getVisitReview(visitId).catch(() => undefined),
+    getVisitOverride(visitId).catch(() => undefined),
+  ]);
+  return { recordings, report, results, flag, review, override };
 }
 
 /**
  * What Review shows of the visit once it is unblinded for the caller, fetched before the switch:
- * the server sent the blinded recordings, results and report with their times counted from
- * the first upload, and these come back with real ones. All are stored with the new blinding
+ * the server sent the blinded recordings, results, report, flag, review mark and visit choices
+ * with their times counted from the first upload, and these come back with real ones. All are stored with the new blinding
  * in one synchronous pass, so the page never writes a blinded time as a date.
  */
 async function storeUnblinded(mutate: ScopedMutator, visitId: string, view: VisitBlindingView) {
@@ -48,10 +56,13 @@ async function storeUnblinded(mutate: ScopedMutator, visitId: string, view: Visi
       mutate(visitRecordingsKey(visitId)),
       mutate(visitReportKey(visitId)),
       mutate((key) => typeof key === 'string' && key.startsWith('/api/recordings/')),
+      mutate(visitFlagKey(visitId)),
+      mutate(visitReviewKey(visitId)),
+      mutate(visitOverrideKey(visitId)),
     ]);
     return;
   }
-  const { recordings, report, results } = refreshed;
+  const { recordings, report, results, flag, review, override } = refreshed;
   await Promise.all([
     mutate(visitBlindingKey(visitId), view, { revalidate: false }),
     mutate(visitRecordingsKey(visitId), recordings, { revalidate: false }),
@@ -59,8 +70,13 @@ async function storeUnblinded(mutate: ScopedMutator, visitId: string, view: Visi
     ...results.map(({ id, latestRunId, data }) =>
       mutate(recordingResultsKey(id, latestRunId), data, { revalidate: false }),
     ),
-    mutate(visitFlagKey(visitId)),
-    mutate(visitReviewKey(visitId)),
+    mutate(visitFlagKey(visitId), flag, { revalidate: false }),
+    review === undefined
+      ? mutate(visitReviewKey(visitId))
+      : mutate(visitReviewKey(visitId), review, { revalidate: false }),
+    override === undefined
+      ? mutate(visitOverrideKey(visitId))
+      : mutate(visitOverrideKey(visitId), override, { revalidate: false }),
   ]);
 }
 

@@ -14,7 +14,7 @@ export function BlindedReviewHeader({ blinding }: { blinding: VisitBlindingView 
         title={`Review · visit ${blinding.code ?? ''}`}
         description={<Tag>Blinded</Tag>}
       />
-      <BlindedReviewNotice description="You see this visit under its code only: no date, planned visit, group or participant. Judge the results, then record a flag or “no flag” with a reason; the details then appear, for you alone. Upload and computation times are given as time after the visit's first upload, such as “+12 min after first upload”, so they give no date away." />
+      <BlindedReviewNotice description="You see this visit under its code only: no date, planned visit, group or participant. Judge the results, then record a flag or “no flag” with a reason; the details then appear, for you alone. Upload, computation, flag and review times are given as time after the visit's first upload, such as “+12 min after first upload”, so they give no date away." />
     </>
   );
 }

@@ -1,7 +1,8 @@
 import type { FlagChange, FlagView, FlagSuggestion, VisitFlagView } from '@gyre/shared';
 import { Alert, Button, Flex, Form, Input, Tag, Timeline, Typography } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
-import { formatDateTime, formatHz } from '../../../lib/format';
+import { formatHz } from '../../../lib/format';
+import { useVisitTime } from './visit-time';
 import { useSubmission } from '../../../lib/use-submission';
 import { NO_ROI_CHANNEL_REMAINS, leftOutText, roiUsageSentence } from '../../../lib/roi-usage';
 import { formatCi } from './channel-table';
@@ -61,6 +62,7 @@ const plainPerson =
 
 /** The analyst's decision: amber while a flag is raised. */
 function DecisionBox({ current, who }: { current: FlagView | null; who: PersonRenderer }) {
+  const formatTime = useVisitTime();
   const raised = current !== null && current.state === 'raised';
   return (
     <section
@@ -81,13 +83,13 @@ function DecisionBox({ current, who }: { current: FlagView | null; who: PersonRe
         ) : raised ? (
           <>
             <Tag color={GYRE_COLORS.amberText}>Slowing flag raised</Tag>
-            by {who(current.raisedById)}, {formatDateTime(current.raisedAt)}:{' '}
+            by {who(current.raisedById)}, {formatTime(current.raisedAt)}:{' '}
             <q>{current.raiseReason}</q>
           </>
         ) : (
           <>
             <Tag>Flag cleared</Tag>
-            by {who(current.clearedById ?? '')}, {formatDateTime(current.clearedAt)}:{' '}
+            by {who(current.clearedById ?? '')}, {formatTime(current.clearedAt)}:{' '}
             <q>{current.clearReason}</q>
           </>
         )}
@@ -159,6 +161,7 @@ export function FlagPanel({
   onRaise: (change: FlagChange) => Promise<void>;
   onClear: (change: FlagChange) => Promise<void>;
 }) {
+  const formatTime = useVisitTime();
   const raised = flag.current?.state === 'raised';
   const who = renderPerson ?? plainPerson(meId);
   const earlier = flag.history.filter((f) => f.id !== flag.current?.id || f.state === 'cleared');
@@ -178,7 +181,7 @@ export function FlagPanel({
                 color: GYRE_COLORS.amberText,
                 content: (
                   <>
-                    {formatDateTime(f.raisedAt)} raised by {who(f.raisedById)}: “{f.raiseReason}”
+                    {formatTime(f.raisedAt)} raised by {who(f.raisedById)}: “{f.raiseReason}”
                   </>
                 ),
               },
@@ -190,7 +193,7 @@ export function FlagPanel({
                       color: 'gray',
                       content: (
                         <>
-                          {formatDateTime(f.clearedAt)} cleared by {who(f.clearedById ?? '')}: “
+                          {formatTime(f.clearedAt)} cleared by {who(f.clearedById ?? '')}: “
                           {f.clearReason ?? ''}”
                         </>
                       ),

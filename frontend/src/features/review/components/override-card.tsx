@@ -2,7 +2,8 @@ import type { AnalysisSettingsView, VisitAnalysisOverrideView } from '@gyre/shar
 import { Button, Descriptions, Flex, Typography } from 'antd';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../app/paths';
-import { formatDateTime, formatHzRange } from '../../../lib/format';
+import { formatHzRange } from '../../../lib/format';
+import { useVisitTime } from './visit-time';
 
 const bandText = (band: [number, number] | null) =>
   band === null ? "visit's IAF ± 2 Hz (8–13 Hz without one)" : formatHzRange(band);
@@ -22,6 +23,7 @@ export function OverrideCard({
   canChange: boolean;
   onChange: () => void;
 }) {
+  const formatTime = useVisitTime();
   const studyNote = study === undefined ? '' : ` (version ${study.version})`;
   return (
     <Flex vertical gap={12}>
@@ -59,7 +61,7 @@ export function OverrideCard({
             {
               key: 'revision',
               label: 'Revision',
-              children: `${override.revision}, ${formatDateTime(override.updatedAt)}`,
+              children: `${override.revision}, ${formatTime(override.updatedAt)}`,
             },
             { key: 'reason', label: 'Why', children: override.reason ?? '—' },
           ]}

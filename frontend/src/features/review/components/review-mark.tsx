@@ -1,9 +1,10 @@
 import { Can } from '@casl/react';
 import type { AppAbility, VisitReviewStateView } from '@gyre/shared';
 import { Alert, Button, Flex, Tag, Typography } from 'antd';
-import { formatDateTime } from '../../../lib/format';
+
 import { useSubmission } from '../../../lib/use-submission';
 import { GYRE_COLORS } from '../../../app/theme';
+import { useVisitTime } from './visit-time';
 
 /**
  * The "visit reviewed" act: who reviewed the visit's results and when, whether they have
@@ -19,6 +20,7 @@ export function ReviewMark({
   meId: string;
   onMark: (fingerprint: string) => Promise<void>;
 }) {
+  const formatTime = useVisitTime();
   const {
     busy: saving,
     error: failure,
@@ -33,14 +35,14 @@ export function ReviewMark({
       ) : state.reviewed ? (
         <div>
           <Tag color={GYRE_COLORS.primary}>Reviewed</Tag>
-          by {who}, {formatDateTime(latest.reviewedAt)}
+          by {who}, {formatTime(latest.reviewedAt)}
         </div>
       ) : (
         <Alert
           type="warning"
           showIcon
           title="Results changed since review"
-          description={`Reviewed by ${who}, ${formatDateTime(latest.reviewedAt)}; the visit's results have changed since, so it waits for review again.`}
+          description={`Reviewed by ${who}, ${formatTime(latest.reviewedAt)}; the visit's results have changed since, so it waits for review again.`}
         />
       )}
       <Can<AppAbility> I="create" a="VisitReview">
