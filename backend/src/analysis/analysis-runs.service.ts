@@ -39,6 +39,7 @@ import {
   taskDepthOf,
   trialRasterOf,
 } from './results-http-shape';
+import { BlindingService } from '../blinding/blinding.service';
 import { SettingsStaleness, type StalenessInput } from './settings-staleness';
 import { parseStoredSettings, settingsJson } from './settings-values';
 
@@ -113,6 +114,7 @@ export class AnalysisRunsService {
     private readonly bodies: ResultsBodyCache,
     private readonly reads: SqliteReadsService,
     private readonly stale: SettingsStaleness,
+    private readonly blinding: BlindingService,
   ) {}
 
   /**
@@ -288,7 +290,7 @@ export class AnalysisRunsService {
       ...pageSliceOf(window, 'createdAt', window.order),
     });
     const stale = await this.staleness(found[0]);
-    const clock = await this.recordings.blindedClockOf(caller, recording.visitId);
+    const clock = await this.blinding.clockOf(caller, recording.visitId);
     return toPage(found, window, (run) => {
       const view = toRunView(run, stale.get(run.id) ?? []);
       return clock === null ? view : blindedRunView(view, clock);
@@ -307,7 +309,7 @@ export class AnalysisRunsService {
     const { recording, run } = this.runInScope(caller, recordingId, runId);
     const stale = (await this.staleness([run])).get(run.id) ?? [];
     // Blinded review: the analyst's answer shows the visit's times by its blinded clock.
-    const clock = await this.recordings.blindedClockOf(caller, run.visitId);
+    const clock = await this.blinding.clockOf(caller, run.visitId);
     const key = `${run.id} results ${JSON.stringify([stale, sourceOf(recording), clock === null ? '' : clock(recording.createdAt)])}`;
     return this.bodies.get(key, async () => {
       const full = await this.storedRun(run.id);

@@ -1,4 +1,3 @@
-import type { GyreException } from '../common/errors/gyre.exception';
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import type { BlindedDecisionChange, VisitBlindingView } from '@gyre/shared';
@@ -12,6 +11,7 @@ import { VisitsService } from '../visits/visits.service';
 import { BlindingService } from './blinding.service';
 import { BlindingError, blindingError } from './blinding.errors';
 import { VisitUnblinding } from './visit-unblinding.entity';
+import type { GyreException } from '../common/errors/gyre.exception';
 
 /**
  * The reads and the one write of Review under blinded review: what the caller may know of a

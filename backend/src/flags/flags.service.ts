@@ -1,5 +1,3 @@
-import type { GyreException } from '../common/errors/gyre.exception';
-import { givenFields } from '../common/given-fields';
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
@@ -13,6 +11,7 @@ import type { Caller } from '../auth/decorators';
 import { blindedFlagView } from '../blinding/blinded-views';
 import { BlindingService } from '../blinding/blinding.service';
 import { WriteTransactionsService } from '../common/database/write-transactions.service';
+import { givenFields } from '../common/given-fields';
 import { pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
 import { nowIso } from '../common/time';
@@ -21,6 +20,7 @@ import { VisitsService } from '../visits/visits.service';
 import { FlagListQueryDto } from './dto/flag-list-query.dto';
 import { Flag } from './flag.entity';
 import { FlagsError, flagsError } from './flags.errors';
+import type { GyreException } from '../common/errors/gyre.exception';
 
 /**
  * Slowing flags on visits. Only an analyst raises or clears one, with a reason; the

@@ -19,7 +19,6 @@ import type {
   RunTrigger,
 } from '@gyre/shared';
 import { AuditService } from '../audit/audit.service';
-import type { BlindedClock } from '../blinding/blinded-visit-facts';
 import { blindedRecordingView } from '../blinding/blinded-views';
 import { BlindingService } from '../blinding/blinding.service';
 import type { AuditActor } from '../audit/audit.service';
@@ -220,14 +219,6 @@ export class RecordingsService {
       const clock = blinded.get(v.visitId)?.clock;
       return clock === undefined ? v : blindedRecordingView(v, clock);
     });
-  }
-
-  /**
-   * The clock of the recording's visit when it is blinded for the caller (blinded review), for
-   * the results and runs read through this module; null when the caller sees it as it is.
-   */
-  async blindedClockOf(caller: Caller, visitId: string): Promise<BlindedClock | null> {
-    return this.blinding.clockOf(caller, visitId);
   }
 
   /** The stored copy (patient field blanked) of an accepted recording, current or superseded. */

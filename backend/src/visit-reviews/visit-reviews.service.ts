@@ -1,4 +1,3 @@
-import type { GyreException } from '../common/errors/gyre.exception';
 import { randomUUID } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
@@ -18,6 +17,7 @@ import { VisitsService } from '../visits/visits.service';
 import { reviewFingerprintOf } from './review-fingerprint';
 import { VisitReview } from './visit-review.entity';
 import { VisitReviewsError, visitReviewsError } from './visit-reviews.errors';
+import type { GyreException } from '../common/errors/gyre.exception';
 
 const COMPUTING: ReadonlySet<Recording['state']> = new Set(['queued', 'computing']);
 
