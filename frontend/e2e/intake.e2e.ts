@@ -8,6 +8,7 @@ import { E2E_PASSWORD } from './support/accounts';
 import { openBrowser, screenshot, watchConsole } from './support/browser';
 import { writeRestingEdf, writeTruncatedEdf } from './support/edf-files';
 import { startGyre, type RunningGyre } from './support/gyre-server';
+import { expectFitsWindow } from './support/page-width';
 import { addParticipant, addVisit, setUpStudy } from './support/study-data';
 
 // Generated test accounts of an invented study.
@@ -148,11 +149,7 @@ describe('Intake as a technician uses it, in Chromium on a real server', () => {
     // 390 px: nothing scrolls sideways, the table, the bulk-upload panel and the due card included.
     await page.setViewportSize({ width: 390, height: 844 });
     await page.getByRole('columnheader', { name: 'Recordings' }).waitFor();
-    const widths = await page.evaluate(() => ({
-      scroll: document.documentElement.scrollWidth,
-      inner: window.innerWidth,
-    }));
-    expect(widths.scroll).toBeLessThanOrEqual(widths.inner);
+    await expectFitsWindow(page, 'Intake at 390 px');
     await screenshot(page, 'intake-live-390');
 
     // The refusal is a 422 answer, which Chromium logs as a failed load; nothing else may.

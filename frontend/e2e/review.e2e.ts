@@ -15,6 +15,7 @@ import { signInThroughPage } from './support/sign-in-page';
 import { screenshot, watchConsole, openFromMainMenu } from './support/browser';
 import { gyreInChromium } from './support/gyre-server';
 import { RESEARCH_CAUTION } from './support/caution';
+import { expectFitsWindow } from './support/page-width';
 
 // Generated test accounts of an invented study.
 const ADMIN = { email: 'rae.admin@gyre.test', name: 'Rae Admin', password: E2E_PASSWORD };
@@ -337,11 +338,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
 
     await page.setViewportSize({ width: 390, height: 844 });
     await row.waitFor();
-    const listWidth = await page.evaluate(() => [
-      document.documentElement.scrollWidth,
-      window.innerWidth,
-    ]);
-    expect(listWidth[0]).toBeLessThanOrEqual(listWidth[1]);
+    await expectFitsWindow(page, 'Participants at 390 px');
     await screenshot(page, 'participants-columns-390');
 
     // Review at phone width: nothing sideways, and the chip and the card name one state.
@@ -355,11 +352,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
     const cardText = await card.innerText();
     expect(chipText).toBe(`Report: ${cardText}`);
     expect(cardText).toBe('Draft, not signed yet');
-    const reviewWidth = await page.evaluate(() => [
-      document.documentElement.scrollWidth,
-      window.innerWidth,
-    ]);
-    expect(reviewWidth[0]).toBeLessThanOrEqual(reviewWidth[1]);
+    await expectFitsWindow(page, 'Review at 390 px');
     // Card titles wrap instead of being cut.
     const cut = await page.evaluate(() =>
       [...document.querySelectorAll('.ant-card-head-title')]

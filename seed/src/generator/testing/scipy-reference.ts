@@ -13,6 +13,8 @@ export function scipyReference<T>(request: Record<string, unknown>): T {
   const out = execFileSync('python3', [SCRIPT], {
     input: JSON.stringify(request),
     maxBuffer: 64 * 1024 * 1024,
+    // Python's error goes into the thrown message (tests match it), not onto the test log.
+    stdio: ['pipe', 'pipe', 'pipe'],
   });
   return JSON.parse(out.toString()) as T;
 }
