@@ -16,7 +16,9 @@ export interface UserView {
   email: string;
   name: string;
   role: Role;
+  /** `null` for admins only. */
   studyId: string | null;
+  /** Set for technicians and coordinators only. */
   siteId: string | null;
   state: UserState;
   lastSignInAt: string | null;

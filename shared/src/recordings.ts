@@ -124,11 +124,16 @@ export interface RecordingFactsView {
   durationS: number;
   recordCount: number;
   recordDurationS: number;
+  /** Ordinary (non-annotation) signals. */
   channelLabels: string[];
   sampleRatesHz: number[];
+  /** Canonical 10-10 names of the region-of-interest channels present (default ROI). */
   roiChannels: string[];
   annotationCount: number;
-  /** Stimulus onsets found (CSV rows, else EDF+ stimulus annotations). */
+  /**
+   * Stimulus onsets found (CSV rows, else EDF+ annotations with text that are not artefact
+   * marks); the upload compares it with the kind chosen.
+   */
   stimulusOnsetCount: number;
   csvOnsetCount: number | null;
   warnings: string[];
@@ -231,6 +236,36 @@ export interface AnalysisSettingsValues {
   cycleDisagreementHz: number;
   /** The two conditions (onset labels) whose Δf difference is reported; null = the first two. */
   compareConditions: [string, string] | null;
+}
+
+/**
+ * Every settings field, in the order the settings page, a version's summary and the list of a
+ * new version's changes show them. Compiles only while it names every field of the settings.
+ */
+export const ANALYSIS_SETTINGS_FIELDS = everyKeyOf<AnalysisSettingsValues>()([
+  'bandHz',
+  'method',
+  'morletCycles',
+  'epochWindowS',
+  'baselineWindowS',
+  'postWindowS',
+  'rejectionThresholdUv',
+  'flagThresholdHz',
+  'roi',
+  'onsetLabel',
+  'amplitudeGatePercentile',
+  'cycleDisagreementHz',
+  'compareConditions',
+]);
+
+/** A list of keys of T that the compiler refuses while one key is missing (it names it). */
+function everyKeyOf<T>() {
+  return <const K extends readonly (keyof T)[]>(
+    keys: K &
+      ([Exclude<keyof T, K[number]>] extends [never]
+        ? unknown
+        : { missing: Exclude<keyof T, K[number]> }),
+  ): K => keys;
 }
 
 /** The analysis-depth settings a run was computed with (read from its stored settings). */

@@ -1,26 +1,14 @@
-import type { RecordingKind, SettingsFieldChange } from '@gyre/shared';
+import {
+  ANALYSIS_SETTINGS_FIELDS,
+  type RecordingKind,
+  type SettingsFieldChange,
+} from '@gyre/shared';
 import type { AnalysisSettings } from '../signal/pipeline/analysis-settings';
-
-const FIELDS: readonly (keyof AnalysisSettings)[] = [
-  'bandHz',
-  'method',
-  'morletCycles',
-  'epochWindowS',
-  'baselineWindowS',
-  'postWindowS',
-  'rejectionThresholdUv',
-  'flagThresholdHz',
-  'roi',
-  'onsetLabel',
-  'amplitudeGatePercentile',
-  'cycleDisagreementHz',
-  'compareConditions',
-];
 
 /** The fields a computation of this kind reads: a resting spectrum only needs its channels. */
 const READ_BY_KIND: Record<RecordingKind, readonly (keyof AnalysisSettings)[]> = {
   resting: ['roi'],
-  task: FIELDS,
+  task: ANALYSIS_SETTINGS_FIELDS,
 };
 
 const NAMES: Record<keyof AnalysisSettings, string> = {
@@ -44,11 +32,13 @@ export function settingsFieldChanges(
   before: AnalysisSettings,
   after: AnalysisSettings,
 ): SettingsFieldChange[] {
-  return FIELDS.filter((field) => !sameValue(before[field], after[field])).map((field) => ({
-    field,
-    before: before[field],
-    after: after[field],
-  }));
+  return ANALYSIS_SETTINGS_FIELDS.filter((field) => !sameValue(before[field], after[field])).map(
+    (field) => ({
+      field,
+      before: before[field],
+      after: after[field],
+    }),
+  );
 }
 
 /**

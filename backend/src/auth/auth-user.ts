@@ -1,17 +1,8 @@
 import type { Request } from 'express';
-import type { AppAbility, Role } from '@gyre/shared';
+import type { AppAbility, UserView } from '@gyre/shared';
 
 /** The signed-in user as every handler sees it (loaded fresh from the database per request). */
-export interface AuthUser {
-  id: string;
-  email: string;
-  name: string;
-  role: Role;
-  /** `null` for admins only. */
-  studyId: string | null;
-  /** Set for technicians and coordinators only. */
-  siteId: string | null;
-}
+export type AuthUser = Pick<UserView, 'id' | 'email' | 'name' | 'role' | 'studyId' | 'siteId'>;
 
 /** The signed-in facts of a user row (a `User`, or the sign-in read of one), nothing more. */
 export function toAuthUser(user: AuthUser): AuthUser {

@@ -2,6 +2,7 @@ import type {
   ConditionDifferenceView,
   ConditionStatsView,
   CycleEstimateView,
+  QualityView,
   RoiUsageView,
   RunDepthSettings,
   ScalpChannelValues,
@@ -135,22 +136,8 @@ export interface TaskDepthSection {
 }
 
 /** Quality checks of one recording (docs/method.md §6), as the analysis reported them. */
-export interface QualitySection {
+export interface QualitySection extends Omit<QualityView, 'channels'> {
   kind: 'resting' | 'task';
-  durationS: number;
-  sampleRatesHz: number[];
-  roiChannelsFound: string[];
-  roiChannelsMissing: string[];
-  flatChannels: string[];
-  saturatedChannels: string[];
-  /** Mean power density within ±1 Hz of the mains frequency over that 2–6 Hz away; ≈1 = none. */
-  lineNoiseRatio50Hz: number | null;
-  lineNoiseRatio60Hz: number | null;
-  epochsDroppedShare: number | null;
-  /** Share of raw instantaneous-frequency samples outside the band. */
-  phaseSlipShare: number | null;
-  alphaPeakProminenceDb: number | null;
-  warnings: string[];
 }
 
 export interface FlagEntry {

@@ -3,6 +3,7 @@
  * only, so they cross the thread boundary by structured clone (arrays by transfer).
  */
 import type { MessagePort } from 'node:worker_threads';
+import type { RecordingFactsView } from '@gyre/shared';
 import type { AnalysisPlan } from '../../signal/pipeline/analysis-plan';
 import type { AnalysisSettings } from '../../signal/pipeline/analysis-settings';
 import type { ChannelPart } from '../../signal/pipeline/analyze-channels';
@@ -21,26 +22,13 @@ export interface ValidateTask {
   onsetsCsv: string | null;
 }
 
-/** What the header and the reader tell about a file that passed. */
-export interface RecordingFacts {
-  format: 'EDF' | 'EDF+C' | 'EDF+D' | 'BDF' | 'BDF+C' | 'BDF+D';
-  durationS: number;
-  recordCount: number;
-  recordDurationS: number;
-  /** Ordinary (non-annotation) signals. */
-  channelLabels: string[];
-  sampleRatesHz: number[];
-  /** Canonical 10-10 names of the region-of-interest channels present (default ROI). */
-  roiChannels: string[];
-  annotationCount: number;
-  /**
-   * Stimulus onsets the file or its CSV offers (CSV rows, else EDF+ annotations with text that
-   * are not artefact marks); the upload compares it with the kind chosen.
-   */
-  stimulusOnsetCount: number;
+/**
+ * What the header and the reader tell about a file that passed: the view the API shows, with the
+ * CSV's onsets themselves where the view has only their count.
+ */
+export interface RecordingFacts extends Omit<RecordingFactsView, 'csvOnsetCount'> {
   /** Stimulus onsets from the CSV, seconds after the recording start; null without a CSV. */
   csvOnsets: Array<{ onsetS: number; label: string }> | null;
-  warnings: string[];
 }
 
 export type ValidateOutcome =
