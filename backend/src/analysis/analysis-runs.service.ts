@@ -16,6 +16,7 @@ import { scopedWhere, scopeSql } from '../auth/access-scope';
 import { blindedResultsView, blindedRunView } from '../blinding/blinded-views';
 import type { Caller } from '../auth/decorators';
 import { SqliteReadsService } from '../common/database/sqlite-reads.service';
+import { KeptById } from '../common/kept-by-id';
 import { currentRunHeads, type CurrentRunHead } from './current-run-heads.reads';
 import { PageQueryDto, pageSliceOf, pageWindowOf } from '../common/pagination/page-query.dto';
 import { toPage } from '../common/pagination/page';
@@ -106,7 +107,7 @@ type RunHeadColumns =
 @Injectable()
 export class AnalysisRunsService {
   /** Region-of-interest usage by run id (see roiUsageOfRuns). */
-  private readonly roiUsageKept = new Map<string, RoiUsageView>();
+  private readonly roiUsageKept = new KeptById<RoiUsageView>(KEPT_ROI_USAGES);
 
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
@@ -253,28 +254,15 @@ export class AnalysisRunsService {
    * the kept value is that of the row for good. Kept values are frozen: shared, never changed.
    */
   private roiUsageOfRuns(runIds: readonly string[]): Map<string, RoiUsageView> {
-    const out = new Map<string, RoiUsageView>();
-    const missing: string[] = [];
-    for (const id of runIds) {
-      const kept = this.roiUsageKept.get(id);
-      if (kept === undefined) missing.push(id);
-      else out.set(id, kept);
-    }
-    if (missing.length === 0) return out;
-    const rows = this.reads.all<{ id: string; roiUsage: string }>(
-      `SELECT "id", json_extract("summaryJson", '$.roiUsage') AS "roiUsage"
-        FROM "analysis_run" WHERE "id" IN (SELECT value FROM json_each(?))`,
-      [JSON.stringify(missing)],
+    return this.roiUsageKept.get(runIds, (missing) =>
+      this.reads
+        .all<{ id: string; roiUsage: string }>(
+          `SELECT "id", json_extract("summaryJson", '$.roiUsage') AS "roiUsage"
+            FROM "analysis_run" WHERE "id" IN (SELECT value FROM json_each(?))`,
+          [JSON.stringify(missing)],
+        )
+        .map((row) => [row.id, deepFreeze(JSON.parse(row.roiUsage) as RoiUsageView)]),
     );
-    for (const row of rows) {
-      const usage = deepFreeze(JSON.parse(row.roiUsage) as RoiUsageView);
-      if (this.roiUsageKept.size >= KEPT_ROI_USAGES) {
-        this.roiUsageKept.delete(this.roiUsageKept.keys().next().value as string);
-      }
-      this.roiUsageKept.set(row.id, usage);
-      out.set(row.id, usage);
-    }
-    return out;
   }
 
   async listForRecording(
@@ -485,6 +473,15 @@ export function roiUsageOf(run: Pick<AnalysisRun, 'summaryJson'>): RoiUsageView 
   return (JSON.parse(run.summaryJson) as RunSummary).roiUsage;
 }
 
+/** The run's confidence interval of the ROI's ΔF, or null when it has none. */
+export function roiCiOf(
+  run: Pick<AnalysisRun, 'roiCiLowHz' | 'roiCiHighHz'>,
+): [number, number] | null {
+  return run.roiCiLowHz === null || run.roiCiHighHz === null
+    ? null
+    : [run.roiCiLowHz, run.roiCiHighHz];
+}
+
 export function toRunView(run: AnalysisRun, staleSettings: string[]): AnalysisRunView {
   return {
     id: run.id,
@@ -499,10 +496,7 @@ export function toRunView(run: AnalysisRun, staleSettings: string[]): AnalysisRu
     bandHz: [run.bandLowHz, run.bandHighHz],
     bandSource: run.bandSource,
     roiDeltaFHz: run.roiDeltaFHz,
-    roiCiHz:
-      run.roiCiLowHz === null || run.roiCiHighHz === null
-        ? null
-        : [run.roiCiLowHz, run.roiCiHighHz],
+    roiCiHz: roiCiOf(run),
     roiPValue: run.roiPValue,
     trialsKept: run.trialsKept,
     trialsTotal: run.trialsTotal,

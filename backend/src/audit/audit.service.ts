@@ -61,6 +61,15 @@ export interface EntryScope {
   siteId: string | null;
 }
 
+/**
+ * The scope of an entry about rows across study `studyId` (an import): its site's members
+ * read it too when every row is at the same site.
+ */
+export function studyEntryScope(studyId: string, siteIds: Iterable<string>): EntryScope {
+  const sites = new Set(siteIds);
+  return { studyId, siteId: sites.size === 1 ? [...sites][0] : null };
+}
+
 interface Row extends ChainedContent {
   prevHash: string;
   hash: string;

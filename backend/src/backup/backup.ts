@@ -2,7 +2,7 @@ import { chmod, readdir, rename, stat, writeFile } from 'node:fs/promises';
 import { closeSync, existsSync, fstatSync, openSync, readSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { ANCHOR_FILE_NAME } from '../audit/audit-anchor-file';
-import { openSqliteFile } from '../audit/sqlite-file';
+import { openSqliteFile, type SqliteFile } from '../audit/sqlite-file';
 import { GYRE_VERSION } from '../version';
 import {
   copyHashed,
@@ -37,6 +37,17 @@ export class BackupError extends Error {
   ) {
     super(problems.join('\n'));
     this.name = 'BackupError';
+  }
+}
+
+/** Throws a `failed` BackupError naming `which` copy when SQLite finds `db` damaged. */
+export function assertIntegrity(db: SqliteFile, which: string): void {
+  const integrity = db.pragma('integrity_check', { simple: true });
+  if (integrity !== 'ok') {
+    throw new BackupError(
+      [`${which} fails PRAGMA integrity_check: ${String(integrity)}`],
+      'failed',
+    );
   }
 }
 
@@ -192,13 +203,7 @@ async function copyDatabase(
   }
   const copy = openSqliteFile(target, { fileMustExist: true });
   try {
-    const integrity = copy.pragma('integrity_check', { simple: true });
-    if (integrity !== 'ok') {
-      throw new BackupError(
-        [`The database copy fails PRAGMA integrity_check: ${String(integrity)}`],
-        'failed',
-      );
-    }
+    assertIntegrity(copy, 'The database copy');
     // One self-contained file, no -wal beside it; Gyre turns WAL on again when it opens it.
     copy.pragma('journal_mode = DELETE');
     const head = copy

@@ -4,7 +4,7 @@ import { basename, dirname, join, resolve } from 'node:path';
 import type { AuditVerifyResult } from '@gyre/shared';
 import { verifyDataDir } from '../audit/audit-verify';
 import { openSqliteFile } from '../audit/sqlite-file';
-import { BackupError } from './backup';
+import { assertIntegrity, BackupError } from './backup';
 import { copyHashed, hashFile, ownerOnlyDir, walkTree } from './backup-files';
 import {
   BackupManifest,
@@ -88,13 +88,7 @@ export async function restoreBackup(options: RestoreOptions): Promise<RestoreRes
     const databaseFile = join(staging, DATABASE_FILE);
     const db = openSqliteFile(databaseFile, { fileMustExist: true });
     try {
-      const integrity = db.pragma('integrity_check', { simple: true });
-      if (integrity !== 'ok') {
-        throw new BackupError(
-          [`The restored database fails PRAGMA integrity_check: ${String(integrity)}`],
-          'failed',
-        );
-      }
+      assertIntegrity(db, 'The restored database');
     } finally {
       db.close();
     }

@@ -16,11 +16,9 @@ import {
   valuesOfOverrideJson,
   VisitAnalysisOverridesService,
 } from '../analysis/visit-analysis-overrides.service';
-import { AuditService } from '../audit/audit.service';
+import { AuditService, studyEntryScope } from '../audit/audit.service';
 import { AuditedWrites } from '../audit/audited-writes';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactionsService } from '../common/database/write-transactions.service';
-import { isUniqueViolation } from '../common/errors/unique-violation';
 import { nowIso } from '../common/time';
 import { Participant } from '../participants/participant.entity';
 import { toParticipantView } from '../participants/participant-view';
@@ -64,7 +62,6 @@ export class BidsImportService {
     private readonly visits: VisitsService,
     private readonly analysisSettings: AnalysisSettingsService,
     private readonly overrides: VisitAnalysisOverridesService,
-    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
     private readonly audited: AuditedWrites,
     private readonly events: EventEmitter2,
@@ -252,11 +249,11 @@ export class BidsImportService {
     roiChanges: RoiChange[],
   ): Promise<void> {
     const importId = randomUUID();
-    const placed: string[] = [];
-    const recordingIds: string[] = [];
     const overrideEvents: VisitOverrideChanged[] = [];
-    try {
-      await this.writes.run(async (tx) => {
+    await this.recordings.acceptInOneTransaction({
+      checks: files.map((f) => f.check),
+      write: async (tx) => {
+        const recordingIds: string[] = [];
         const newParticipants = new Map<string, Participant>();
         const newVisits = new Map<string, Visit>();
         const visitIdOf = new Map<string, Visit>();
@@ -306,14 +303,11 @@ export class BidsImportService {
           if (visit === undefined) continue;
           overrideEvents.push(await this.leaveOutChannels(tx, caller, visit, change));
         }
-        const siteIds = [...new Set([...visitIdOf.values()].map((v) => v.siteId))];
-        await this.audit.record({
-          actor: caller.user,
+        const siteIds = [...visitIdOf.values()].map((v) => v.siteId);
+        await this.audit.recordBy(caller, studyEntryScope(studyId, siteIds), {
           action: 'bids-import',
           objectType: 'Study',
           objectId: studyId,
-          studyId,
-          siteId: siteIds.length === 1 ? siteIds[0] : null,
           after: {
             importId,
             // No paths: a folder's name may say more than the pseudonymous code (as file names
@@ -331,28 +325,21 @@ export class BidsImportService {
               lineFrequencyHz: f.preview.lineFrequencyHz,
             })),
           },
-          clientIp: caller.clientIp,
         });
+        return recordingIds;
+      },
+      rolledBack: () => {
         for (const file of files) {
-          if (await this.recordings.storeCheckedFile(file.check))
-            placed.push(file.check.file.sha256);
+          file.preview.recordingId = null;
+          file.preview.visitId = file.visit?.id ?? null;
         }
-      });
-    } catch (error) {
-      await this.recordings.discardStoredFiles(placed);
-      for (const file of files) {
-        file.preview.recordingId = null;
-        file.preview.visitId = file.visit?.id ?? null;
-      }
-      if (isUniqueViolation(error)) {
-        throw bidsImportError(
+      },
+      conflict: () =>
+        bidsImportError(
           BidsImportError.Conflict,
           'Nothing was imported: another upload created one of these participants, visits or recordings meanwhile. Check again and retry.',
-        );
-      }
-      throw error;
-    }
-    await this.recordings.announceAccepted(recordingIds);
+        ),
+    });
     for (const event of overrideEvents) {
       await this.events.emitAsync(AnalysisEvents.VisitOverrideChanged, event);
     }

@@ -12,10 +12,8 @@ import {
   type BulkUploadStrayFile,
   type RecordingKind,
 } from '@gyre/shared';
-import { AuditService } from '../audit/audit.service';
+import { AuditService, studyEntryScope } from '../audit/audit.service';
 import type { Caller } from '../auth/decorators';
-import { WriteTransactionsService } from '../common/database/write-transactions.service';
-import { isUniqueViolation } from '../common/errors/unique-violation';
 import { Participant } from '../participants/participant.entity';
 import type { AcceptedFileCheck } from '../recordings/recordings.service';
 import { RecordingsService } from '../recordings/recordings.service';
@@ -51,7 +49,6 @@ export class BulkUploadsService {
     private readonly plannedVisits: PlannedVisitsService,
     private readonly recordings: RecordingsService,
     private readonly visits: VisitsService,
-    private readonly writes: WriteTransactionsService,
     private readonly audit: AuditService,
   ) {}
 
@@ -313,10 +310,10 @@ export class BulkUploadsService {
    * a crash before the commit leaves only files that start-up removes (no recording names them).
    */
   private async importAll(caller: Caller, studyId: string, rows: PlannedRow[]): Promise<void> {
-    const placed: string[] = [];
-    const recordingIds: string[] = [];
-    try {
-      await this.writes.run(async (tx) => {
+    await this.recordings.acceptInOneTransaction({
+      checks: rows.map((r) => r.check),
+      write: async (tx) => {
+        const recordingIds: string[] = [];
         const created = new Map<string, Visit>();
         for (const row of rows) {
           let visit = row.visit;
@@ -338,14 +335,11 @@ export class BulkUploadsService {
           row.report.recordingId = recording.id;
           row.report.visitId = visit.id;
         }
-        const siteIds = [...new Set(rows.map((r) => r.participant.siteId))];
-        await this.audit.record({
-          actor: caller.user,
+        const siteIds = rows.map((r) => r.participant.siteId);
+        await this.audit.recordBy(caller, studyEntryScope(studyId, siteIds), {
           action: 'bulk-upload',
           objectType: 'Study',
           objectId: studyId,
-          studyId,
-          siteId: siteIds.length === 1 ? siteIds[0] : null,
           after: {
             rows: rows.map((r) => ({
               row: r.report.row,
@@ -360,27 +354,21 @@ export class BulkUploadsService {
               warnings: r.report.warnings,
             })),
           },
-          clientIp: caller.clientIp,
         });
+        return recordingIds;
+      },
+      rolledBack: () => {
         for (const row of rows) {
-          if (await this.recordings.storeCheckedFile(row.check)) placed.push(row.check.file.sha256);
+          row.report.recordingId = null;
+          row.report.visitId = row.visit?.id ?? null;
         }
-      });
-    } catch (error) {
-      await this.recordings.discardStoredFiles(placed);
-      for (const row of rows) {
-        row.report.recordingId = null;
-        row.report.visitId = row.visit?.id ?? null;
-      }
-      if (isUniqueViolation(error)) {
-        throw bulkUploadsError(
+      },
+      conflict: () =>
+        bulkUploadsError(
           BulkUploadsError.Conflict,
           'Nothing was imported: another upload created one of these visits or recordings meanwhile. Check again (dry run) and retry.',
-        );
-      }
-      throw error;
-    }
-    await this.recordings.announceAccepted(recordingIds);
+        ),
+    });
   }
 }
 

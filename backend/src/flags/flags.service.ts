@@ -3,7 +3,7 @@ import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, EntityManager, In } from 'typeorm';
 import type { FlagView, FlagSuggestion, Page, VisitFlagView } from '@gyre/shared';
-import { AnalysisRunsService, roiUsageOf } from '../analysis/analysis-runs.service';
+import { AnalysisRunsService, roiCiOf, roiUsageOf } from '../analysis/analysis-runs.service';
 import { parseStoredSettings } from '../analysis/settings-values';
 import { AuditService } from '../audit/audit.service';
 import { scopedWhere } from '../auth/access-scope';
@@ -177,10 +177,7 @@ export class FlagsService {
       suggestsSlowing: Boolean(run.suggestsSlowing),
       runId: run.id,
       roiDeltaFHz: run.roiDeltaFHz,
-      roiCiHz:
-        run.roiCiLowHz === null || run.roiCiHighHz === null
-          ? null
-          : [run.roiCiLowHz, run.roiCiHighHz],
+      roiCiHz: roiCiOf(run),
       flagThresholdHz: parseStoredSettings(run.settingsJson).flagThresholdHz,
       roiUsage: roiUsageOf(run),
     };

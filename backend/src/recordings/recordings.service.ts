@@ -835,10 +835,44 @@ export class RecordingsService {
   }
 
   /**
+   * One write transaction for a bulk entry point: `write` creates the accepted recordings
+   * (`createAccepted`) with whatever goes with them and returns their ids; the files of
+   * `checks` are put in place as its last step, so a crash before the commit leaves only files
+   * that start-up removes (no recording names them). On a rollback the files this put there
+   * are removed again, `rolledBack` runs, and a unique violation (another upload created the
+   * same rows meanwhile) becomes `conflict()`; after the commit listeners hear of the
+   * recordings.
+   */
+  async acceptInOneTransaction(options: {
+    checks: readonly AcceptedFileCheck[];
+    write: (tx: EntityManager) => Promise<string[]>;
+    rolledBack: () => void;
+    conflict: () => GyreException;
+  }): Promise<void> {
+    const placed: string[] = [];
+    let recordingIds: string[] = [];
+    try {
+      await this.writes.run(async (tx) => {
+        recordingIds = await options.write(tx);
+        for (const check of options.checks) {
+          if (await this.storeCheckedFile(check)) placed.push(check.file.sha256);
+        }
+      });
+    } catch (error) {
+      for (const sha of placed) await this.removeIfUnreferenced(`${sha}.edf`);
+      options.rolledBack();
+      if (isUniqueViolation(error)) throw options.conflict();
+      throw error;
+    }
+    await this.announce(recordingIds);
+    if (recordingIds.length > 0) this.events.emit(RecordingEvents.ComputationQueued);
+  }
+
+  /**
    * Moves a checked file to `uploads/<checksum>.edf` (named by content: an identical stored
    * file is kept). Returns whether this call put it there, so a rollback can take it away.
    */
-  async storeCheckedFile(check: AcceptedFileCheck): Promise<boolean> {
+  private async storeCheckedFile(check: AcceptedFileCheck): Promise<boolean> {
     const target = join(this.config.uploadsDir, `${check.file.sha256}.edf`);
     await mkdir(this.config.uploadsDir, { recursive: true });
     const exists = await stat(target).then(
@@ -850,9 +884,9 @@ export class RecordingsService {
   }
 
   /**
-   * Inside the caller's transaction: a checked file becomes the visit's queued recording with
-   * its job, through the same moves and audit entries as a single upload (upload, validate,
-   * accept). Its file must be stored (`storeCheckedFile`) before the transaction commits.
+   * Inside the `write` of `acceptInOneTransaction`: a checked file becomes the visit's queued
+   * recording with its job, through the same moves and audit entries as a single upload
+   * (upload, validate, accept); the file itself is stored there before the commit.
    */
   async createAccepted(
     tx: EntityManager,
@@ -941,17 +975,6 @@ export class RecordingsService {
       },
     });
     return queued;
-  }
-
-  /** After a bulk transaction rolled back: the stored files it put there and nobody names. */
-  async discardStoredFiles(sha256s: readonly string[]): Promise<void> {
-    for (const sha of sha256s) await this.removeIfUnreferenced(`${sha}.edf`);
-  }
-
-  /** After a bulk transaction committed: listeners hear of the new queued recordings. */
-  async announceAccepted(ids: readonly string[]): Promise<void> {
-    await this.announce(ids);
-    if (ids.length > 0) this.events.emit(RecordingEvents.ComputationQueued);
   }
 
   private emit(row: Recording, error: string | null): void {

@@ -3,6 +3,7 @@ import type { RecordingKind, RecordingState } from '@gyre/shared';
 import { scopeSql } from '../auth/access-scope';
 import type { Caller } from '../auth/decorators';
 import { SqliteReadsService } from '../common/database/sqlite-reads.service';
+import { KeptById } from '../common/kept-by-id';
 import { CURRENT_STATES } from '../recordings/recordings.service';
 import { reportHeads, type ReportHead } from '../signoff/report-heads.reads';
 
@@ -90,7 +91,7 @@ export interface ReviewRow {
 @Injectable()
 export class StudyOverviewSources {
   /** Quality figures by run id (see qualityOfRuns). */
-  private readonly qualityKept = new Map<string, Readonly<RunQuality>>();
+  private readonly qualityKept = new KeptById<Readonly<RunQuality>>(KEPT_QUALITIES);
 
   constructor(private readonly reads: SqliteReadsService) {}
 
@@ -182,35 +183,22 @@ export class StudyOverviewSources {
    * (runs are only ever inserted), so the kept value is the row's for good.
    */
   private qualityOfRuns(runIds: readonly string[]): Map<string, RunQuality> {
-    const out = new Map<string, RunQuality>();
-    const missing: string[] = [];
-    for (const id of runIds) {
-      const kept = this.qualityKept.get(id);
-      if (kept === undefined) missing.push(id);
-      else out.set(id, kept);
-    }
-    if (missing.length === 0) return out;
-    const rows = this.reads.all<RunQuality & { id: string }>(
-      `SELECT "id",
-          json_extract("summaryJson", '$.quality.epochsDroppedShare') AS "epochsDroppedShare",
-          json_extract("summaryJson", '$.quality.phaseSlipShare') AS "phaseSlipShare",
-          json_extract("summaryJson", '$.quality.lineNoiseRatio50Hz') AS "lineNoiseRatio50Hz",
-          json_extract("summaryJson", '$.quality.lineNoiseRatio60Hz') AS "lineNoiseRatio60Hz",
-          json_extract("summaryJson", '$.roiUsage.status') AS "roiStatus",
-          json_array_length("summaryJson", '$.roiUsage.wanted') AS "roiWanted",
-          json_array_length("summaryJson", '$.roiUsage.used') AS "roiUsed"
-        FROM "analysis_run" WHERE "id" IN (SELECT value FROM json_each(?))`,
-      [JSON.stringify(missing)],
+    return this.qualityKept.get(runIds, (missing) =>
+      this.reads
+        .all<RunQuality & { id: string }>(
+          `SELECT "id",
+              json_extract("summaryJson", '$.quality.epochsDroppedShare') AS "epochsDroppedShare",
+              json_extract("summaryJson", '$.quality.phaseSlipShare') AS "phaseSlipShare",
+              json_extract("summaryJson", '$.quality.lineNoiseRatio50Hz') AS "lineNoiseRatio50Hz",
+              json_extract("summaryJson", '$.quality.lineNoiseRatio60Hz') AS "lineNoiseRatio60Hz",
+              json_extract("summaryJson", '$.roiUsage.status') AS "roiStatus",
+              json_array_length("summaryJson", '$.roiUsage.wanted') AS "roiWanted",
+              json_array_length("summaryJson", '$.roiUsage.used') AS "roiUsed"
+            FROM "analysis_run" WHERE "id" IN (SELECT value FROM json_each(?))`,
+          [JSON.stringify(missing)],
+        )
+        .map(({ id, ...quality }) => [id, Object.freeze(quality)]),
     );
-    for (const { id, ...quality } of rows) {
-      const frozen = Object.freeze(quality);
-      if (this.qualityKept.size >= KEPT_QUALITIES) {
-        this.qualityKept.delete(this.qualityKept.keys().next().value as string);
-      }
-      this.qualityKept.set(id, frozen);
-      out.set(id, frozen);
-    }
-    return out;
   }
 
   /** Every recording ever uploaded per site, and how many of them were rejected. */

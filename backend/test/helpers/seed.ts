@@ -8,6 +8,7 @@ import { Study } from '../../src/studies/study.entity';
 import { User } from '../../src/accounts/user.entity';
 import { Visit } from '../../src/visits/visit.entity';
 import { newUserRow } from '../../src/users/new-user-row';
+import { seededParticipantVisit } from '../../src/robustness/seeded-visit';
 
 /** The password of every seeded account (generated test data; passes the password policy). */
 export const SEED_PASSWORD = 'amber-slate-42-rhythm';
@@ -109,26 +110,9 @@ export async function seedDatabase(dataSource: DataSource): Promise<Seed> {
   const participants = {} as Record<SiteKey, Participant>;
   const visits = {} as Record<SiteKey, Visit>;
   for (const key of Object.keys(sites) as SiteKey[]) {
-    const site = sites[key];
-    participants[key] = {
-      id: randomUUID(),
-      studyId: site.studyId,
-      siteId: site.id,
-      code: `${key}-0001`,
-      enrolmentDate: null,
-      groupId: null,
-      ...stamp,
-    };
-    visits[key] = {
-      id: randomUUID(),
-      participantId: participants[key].id,
-      studyId: site.studyId,
-      siteId: site.id,
-      label: 'V1',
-      plannedVisitId: null,
-      visitDate: '2026-01-15',
-      ...stamp,
-    };
+    const { participant, visit } = seededParticipantVisit(sites[key], `${key}-0001`, stamp);
+    participants[key] = participant;
+    visits[key] = visit;
   }
   await dataSource.transaction(async (manager) => {
     // Only the columns every schema version has, so that migration tests can seed a

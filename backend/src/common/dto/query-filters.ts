@@ -1,6 +1,7 @@
 import { applyDecorators } from '@nestjs/common';
 import { ApiPropertyOptional, type ApiPropertyOptions } from '@nestjs/swagger';
-import { IsIn, IsOptional, IsString, IsUUID, MaxLength } from 'class-validator';
+import { Type } from 'class-transformer';
+import { IsIn, IsInt, IsOptional, IsString, IsUUID, Max, MaxLength, Min } from 'class-validator';
 
 /*
  * The optional query parameters the list routes share, each one decorator: the OpenAPI
@@ -41,5 +42,21 @@ export function SearchText(description: string, maxLength = 100): PropertyDecora
     IsOptional(),
     IsString(),
     MaxLength(maxLength),
+  );
+}
+
+/** A whole number from `minimum` to `maximum` (`?page=`, `?limit=`; `default` documents it). */
+export function WholeNumber(bounds: {
+  minimum: number;
+  maximum: number;
+  default: number;
+}): PropertyDecorator {
+  return applyDecorators(
+    ApiPropertyOptional(bounds),
+    IsOptional(),
+    Type(() => Number),
+    IsInt(),
+    Min(bounds.minimum),
+    Max(bounds.maximum),
   );
 }

@@ -1,7 +1,4 @@
-import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, Max, Min } from 'class-validator';
-import { IdText } from '../dto/query-filters';
+import { IdText, OneOf, WholeNumber } from '../dto/query-filters';
 
 export const MAX_PAGE_SIZE = 200;
 /** The last page whose offset, (page − 1) × pageSize, is still a safe integer for SQLite. */
@@ -9,25 +6,13 @@ export const MAX_PAGE = Math.floor(Number.MAX_SAFE_INTEGER / MAX_PAGE_SIZE);
 
 /** `?page=&pageSize=&order=`; each list adds its own `sort` with the columns it allows. */
 export class PageQueryDto {
-  @ApiPropertyOptional({ minimum: 1, maximum: MAX_PAGE, default: 1 })
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt()
-  @Min(1)
-  @Max(MAX_PAGE)
+  @WholeNumber({ minimum: 1, maximum: MAX_PAGE, default: 1 })
   page?: number;
 
-  @ApiPropertyOptional({ minimum: 1, maximum: MAX_PAGE_SIZE, default: 20 })
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt()
-  @Min(1)
-  @Max(MAX_PAGE_SIZE)
+  @WholeNumber({ minimum: 1, maximum: MAX_PAGE_SIZE, default: 20 })
   pageSize?: number;
 
-  @ApiPropertyOptional({ enum: ['asc', 'desc'], default: 'asc' })
-  @IsOptional()
-  @IsIn(['asc', 'desc'])
+  @OneOf(['asc', 'desc'], { default: 'asc' })
   order?: 'asc' | 'desc';
 }
 

@@ -12,6 +12,7 @@ import { Study } from '../../studies/study.entity';
 import { User } from '../../accounts/user.entity';
 import { Visit } from '../../visits/visit.entity';
 import { newUserRow } from '../../users/new-user-row';
+import { seededParticipantVisit } from '../seeded-visit';
 
 /** Password of every crash-test account (generated; passes the password policy). */
 export const CRASH_PASSWORD = 'amber-slate-42-rhythm';
@@ -56,26 +57,10 @@ export async function seedCrashData(dataSource: DataSource, visits: number): Pro
   const participants: Participant[] = [];
   const visitRows: Visit[] = [];
   for (let i = 0; i < visits; i++) {
-    const participant: Participant = {
-      id: randomUUID(),
-      studyId: study.id,
-      siteId: site.id,
-      code: `C1-${String(i + 1).padStart(4, '0')}`,
-      enrolmentDate: null,
-      groupId: null,
-      ...stamp,
-    };
+    const code = `C1-${String(i + 1).padStart(4, '0')}`;
+    const { participant, visit } = seededParticipantVisit(site, code, stamp);
     participants.push(participant);
-    visitRows.push({
-      id: randomUUID(),
-      participantId: participant.id,
-      studyId: study.id,
-      siteId: site.id,
-      label: 'V1',
-      plannedVisitId: null,
-      visitDate: '2026-01-15',
-      ...stamp,
-    });
+    visitRows.push(visit);
   }
   await dataSource.transaction(async (manager) => {
     await manager.insert(Study, study);

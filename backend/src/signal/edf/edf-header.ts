@@ -506,6 +506,9 @@ function parseSignalHeaders(
     const name = (field: number): string =>
       `signal ${i + 1} ('${label}') ${SIGNAL_FIELDS[field][0]}`;
     const isAnnotation = label === annotationsLabel;
+    // Annotation signals carry TAL bytes, not numbers; their ranges are not used.
+    const range = (field: number, parse: (text: string, name: string) => number): number =>
+      isAnnotation ? Number(columns[field][i].trim()) : parse(columns[field][i], name(field));
     const samplesPerRecord = parseEdfInteger(columns[8][i], name(8));
     if (samplesPerRecord <= 0) {
       throw new EdfFormatError(name(8), String(samplesPerRecord), 'at least 1');
@@ -514,19 +517,10 @@ function parseSignalHeaders(
       label,
       transducer: columns[1][i].trim(),
       physicalDimension: columns[2][i].trim(),
-      // Annotation signals carry TAL bytes, not numbers; their ranges are not used.
-      physicalMin: isAnnotation
-        ? Number(columns[3][i].trim())
-        : parseEdfNumber(columns[3][i], name(3)),
-      physicalMax: isAnnotation
-        ? Number(columns[4][i].trim())
-        : parseEdfNumber(columns[4][i], name(4)),
-      digitalMin: isAnnotation
-        ? Number(columns[5][i].trim())
-        : parseEdfInteger(columns[5][i], name(5)),
-      digitalMax: isAnnotation
-        ? Number(columns[6][i].trim())
-        : parseEdfInteger(columns[6][i], name(6)),
+      physicalMin: range(3, parseEdfNumber),
+      physicalMax: range(4, parseEdfNumber),
+      digitalMin: range(5, parseEdfInteger),
+      digitalMax: range(6, parseEdfInteger),
       prefiltering: columns[7][i].trim(),
       samplesPerRecord,
       sampleRateHz: samplesPerRecord / recordDurationS,

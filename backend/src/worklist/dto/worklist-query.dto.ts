@@ -1,6 +1,6 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, Max, Min } from 'class-validator';
+import { IsInt, IsOptional, Max, Min } from 'class-validator';
 import {
   REVIEW_SECTIONS,
   UPLOAD_SECTIONS,
@@ -9,6 +9,7 @@ import {
   WORKLIST_SORTS,
 } from '@gyre/shared';
 import type { WorklistQuery, WorklistSectionKey, WorklistSort } from '@gyre/shared';
+import { OneOf, WholeNumber } from '../../common/dto/query-filters';
 
 export const WORKLIST_SECTION_KEYS: readonly WorklistSectionKey[] = [
   ...new Set<WorklistSectionKey>([...REVIEW_SECTIONS, ...UPLOAD_SECTIONS]),
@@ -16,17 +17,10 @@ export const WORKLIST_SECTION_KEYS: readonly WorklistSectionKey[] = [
 
 /** `?sort=&limit=&offset=&section=` of `GET /api/worklist`. */
 export class WorklistQueryDto implements WorklistQuery {
-  @ApiPropertyOptional({ enum: WORKLIST_SORTS, default: 'oldest' })
-  @IsOptional()
-  @IsIn(WORKLIST_SORTS)
+  @OneOf(WORKLIST_SORTS, { default: 'oldest' })
   sort?: WorklistSort;
 
-  @ApiPropertyOptional({ minimum: 1, maximum: WORKLIST_MAX_LIMIT, default: WORKLIST_DEFAULT_LIMIT })
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt()
-  @Min(1)
-  @Max(WORKLIST_MAX_LIMIT)
+  @WholeNumber({ minimum: 1, maximum: WORKLIST_MAX_LIMIT, default: WORKLIST_DEFAULT_LIMIT })
   limit?: number;
 
   @ApiPropertyOptional({ minimum: 0, default: 0 })
@@ -37,8 +31,6 @@ export class WorklistQueryDto implements WorklistQuery {
   @Max(1_000_000)
   offset?: number;
 
-  @ApiPropertyOptional({ enum: WORKLIST_SECTION_KEYS })
-  @IsOptional()
-  @IsIn(WORKLIST_SECTION_KEYS)
+  @OneOf(WORKLIST_SECTION_KEYS)
   section?: WorklistSectionKey;
 }
