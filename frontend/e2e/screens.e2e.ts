@@ -75,6 +75,24 @@ describe('every screen of this part in Chromium, on a real server', () => {
     return labels.filter((label) => screens.includes(label));
   }
 
+  /** Each person's main menu among this part's screens, as the start screen shows it. */
+  const HOME_MENU: Record<keyof typeof PEOPLE | 'admin', string[]> = {
+    admin: ['Ledger', 'Team', 'Outbox'],
+    technician: ['Intake'],
+    analyst: ['Participants'],
+    monitor: ['Participants', 'Ledger'],
+    coordinator: ['Reports'],
+  };
+
+  /** A new page signed in as `who`, on a start screen with their menu (shot as `home-<who>`). */
+  async function signedInHome(who: keyof typeof HOME_MENU) {
+    const { page, problems } = await newPage();
+    await signIn(page, who === 'admin' ? ADMIN.email : PEOPLE[who].email);
+    expect(await menu(page)).toEqual(HOME_MENU[who]);
+    await screenshot(page, `home-${who}`);
+    return { page, problems };
+  }
+
   beforeAll(async () => {
     files = mkdtempSync(join(tmpdir(), 'gyre-e2e-files-'));
     gyre = await startGyre();
@@ -110,10 +128,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
   });
 
   it('an admin invites a technician on Team, who accepts from the e-mailed link', async () => {
-    const { page, problems } = await newPage();
-    await signIn(page, ADMIN.email);
-    expect(await menu(page)).toEqual(['Ledger', 'Team', 'Outbox']);
-    await screenshot(page, 'home-admin');
+    const { page, problems } = await signedInHome('admin');
     await page
       .getByRole('navigation', { name: 'Main' })
       .getByRole('link', { name: 'Team' })
@@ -173,10 +188,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
   });
 
   it('a technician uploads an EDF+ file and sees it reach ready; a bad file is refused in plain words', async () => {
-    const { page, problems } = await newPage();
-    await signIn(page, PEOPLE.technician.email);
-    expect(await menu(page)).toEqual(['Intake']);
-    await screenshot(page, 'home-technician');
+    const { page, problems } = await signedInHome('technician');
     await page
       .getByRole('navigation', { name: 'Main' })
       .getByRole('link', { name: 'Intake' })
@@ -253,10 +265,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     await api(gyre.baseUrl, analystToken, 'POST', `/api/visits/${visitId}/flag/raise`, {
       reason: FLAG_REASON,
     });
-    const { page, problems } = await newPage();
-    await signIn(page, PEOPLE.monitor.email);
-    expect(await menu(page)).toEqual(['Participants', 'Ledger']);
-    await screenshot(page, 'home-monitor');
+    const { page, problems } = await signedInHome('monitor');
     await page
       .getByRole('navigation', { name: 'Main' })
       .getByRole('link', { name: 'Ledger' })
@@ -306,10 +315,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
       meaning: SIGNATURE_MEANING,
       fingerprint: signOff.draftFingerprint,
     });
-    const { page, problems } = await newPage();
-    await signIn(page, PEOPLE.coordinator.email);
-    expect(await menu(page)).toEqual(['Reports']);
-    await screenshot(page, 'home-coordinator');
+    const { page, problems } = await signedInHome('coordinator');
     await page
       .getByRole('navigation', { name: 'Main' })
       .getByRole('link', { name: 'Reports' })
@@ -335,10 +341,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
   });
 
   it('an analyst may open Reports by address, not the Ledger; unknown addresses say so', async () => {
-    const { page, problems } = await newPage();
-    await signIn(page, PEOPLE.analyst.email);
-    expect(await menu(page)).toEqual(['Participants']);
-    await screenshot(page, 'home-analyst');
+    const { page, problems } = await signedInHome('analyst');
     await page.goto(`${gyre.baseUrl}/reports`, { waitUntil: 'networkidle' });
     await page.getByRole('heading', { name: 'Reports' }).waitFor();
     await screenshot(page, 'reports-analyst');
@@ -412,6 +415,18 @@ describe('every screen of this part in Chromium, on a real server', () => {
       windowAfterDays: 14,
       position: 0,
     });
+    // A description long enough that it must wrap in the narrow groups column at 1280 px.
+    const group = await api<{ name: string }>(
+      gyre.baseUrl,
+      adminToken,
+      'POST',
+      `/api/studies/${study.id}/groups`,
+      {
+        name: 'Evening practice',
+        description:
+          'Ten minutes of slow breathing each evening for eight weeks, logged in a diary that the site collects at every visit (invented).',
+      },
+    );
     const { page, problems } = await newPage();
     await signIn(page, ADMIN.email);
     await page
@@ -443,6 +458,16 @@ describe('every screen of this part in Chromium, on a real server', () => {
     expect(rows).toHaveLength(3);
     expect(rows[1]).toMatch(/^Baseline\s+day 0\b/);
     expect(rows[2]).toMatch(/^Month 6\s+day 182\b/);
+    // At 1280 px the groups sit in the narrow right column: the description wraps, the page
+    // does not scroll sideways, and the row's actions stay in view.
+    const groupRow = page
+      .getByRole('region', { name: 'Groups' })
+      .getByRole('row', { name: new RegExp(group.name) });
+    await groupRow.waitFor();
+    expect(await overflowsSideways(page)).toEqual([]);
+    const change = await groupRow.getByRole('button', { name: 'Change' }).boundingBox();
+    expect(change).not.toBeNull();
+    expect(change!.x + change!.width).toBeLessThanOrEqual(1280);
     await screenshot(page, 'study-setup-admin');
     await page.setViewportSize(PHONE);
     await schedule.getByRole('row', { name: /Month 6/ }).waitFor();

@@ -3,6 +3,7 @@ import type { TableColumnsType } from 'antd';
 import { useState, type ReactNode } from 'react';
 import { EmptyState, ErrorState } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
+import '../study-settings.css';
 
 interface Named {
   id: string;
@@ -116,7 +117,7 @@ export function EditableListSection<Item extends Named, Input>({
           pagination={false}
           loading={list.data === undefined}
           dataSource={list.data ?? []}
-          scroll={{ x: 'max-content' }}
+          className="gyre-wrapping-table"
           columns={canManage ? [...columns, ...actions] : columns}
         />
       )}

@@ -51,7 +51,7 @@ export function VisitScheduleSection({
           key: 'targetDay',
           title: 'Target day',
           align: 'right',
-          className: 'gyre-figures',
+          className: 'gyre-figures gyre-nowrap',
           render: (_, p) => `day ${p.targetDay}`,
         },
         {
