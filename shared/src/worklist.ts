@@ -62,8 +62,12 @@ export interface WorklistItem {
   recordingId: string | null;
   /** What needs doing or what happened, in a short sentence. */
   what: string;
-  /** Since when the item has been waiting (ISO timestamp or `YYYY-MM-DD` for a visit date). */
-  since: string;
+  /**
+   * Since when the item has been waiting (ISO timestamp or `YYYY-MM-DD` for a visit date).
+   * Under blinded review a time is on the visit's blinded clock (from its first upload), and a
+   * visit date is null: no upload may exist to count from, and the date would give it away.
+   */
+  since: string | null;
   link: WorklistLink;
 }
 

@@ -264,6 +264,24 @@ describe('sorting and wording', () => {
     expect(sortItems(shown, 'participant').map((i) => i.visitId)).toEqual(['v2', 'v3', 'v1']);
   });
 
+  it("leaves a blinded visit's date out, and sorts it after every timed item either way", () => {
+    const timed = reviewSections({
+      recordings: [rec(2, 'resting')],
+      reports: [],
+      reviews: new Map(),
+      flags: [],
+    }).unreviewed![0];
+    // An item waiting since the visit's date (a recording not uploaded yet): there may be no
+    // upload to count from, and the date itself is what blinding hides.
+    const dated = { ...timed, key: 'v1', visitId: 'v1', since: '2026-01-15' };
+    const codes = new Map([['v1', { code: 'B-7KQ2', clock: blindedClock(null) }]]);
+    const shown = [dated, timed].map((i) => shownItem(i, codes));
+    expect(shown[0].since).toBeNull();
+    expect(JSON.stringify(shown[0])).not.toContain('2026-01-15');
+    expect(sortItems(shown, 'oldest').map((i) => i.visitId)).toEqual(['v2', 'v1']);
+    expect(sortItems(shown, 'newest').map((i) => i.visitId)).toEqual(['v2', 'v1']);
+  });
+
   it('writes Hz with a true minus sign, and no sign for what rounds to zero', () => {
     expect([signedHz(-0.456), signedHz(0.2), signedHz(-0.001), signedHz(0.004)]).toEqual([
       '−0.46\u00a0Hz',

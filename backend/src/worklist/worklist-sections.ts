@@ -6,11 +6,7 @@ import type {
   WorklistSort,
 } from '@gyre/shared';
 import { formatDeltaHz } from '@gyre/shared';
-import {
-  BLINDED_TIME_ZERO,
-  shownVisitFacts,
-  type BlindedVisit,
-} from '../blinding/blinded-visit-facts';
+import { shownVisitFacts, type BlindedVisit } from '../blinding/blinded-visit-facts';
 import type { Flag } from '../flags/flag.entity';
 import { reviewFingerprintOf } from '../visit-reviews/review-fingerprint';
 import type { ReportHead } from '../signoff/report-heads.reads';
@@ -310,7 +306,10 @@ export function shownItem(
   return {
     ...shownVisitFacts(item, visit.code),
     // A time stamp of the visit's own rows would give away its date; a plain date is its date.
-    since: /^\d{4}-\d{2}-\d{2}$/.test(item.since) ? BLINDED_TIME_ZERO : visit.clock(item.since),
+    since:
+      item.since === null || /^\d{4}-\d{2}-\d{2}$/.test(item.since)
+        ? null
+        : visit.clock(item.since),
     link: { ...item.link, participantId: null },
   };
 }
@@ -329,10 +328,16 @@ export function sortItems(items: WorklistItem[], sort: WorklistSort): WorklistIt
   const compare =
     sort === 'participant'
       ? byCode
-      : (a: WorklistItem, b: WorklistItem) =>
-          (sort === 'oldest' ? a.since.localeCompare(b.since) : b.since.localeCompare(a.since)) ||
-          byCode(a, b);
+      : (a: WorklistItem, b: WorklistItem) => bySince(a, b, sort === 'newest') || byCode(a, b);
   return [...items].sort(compare);
+}
+
+/** By time, either way; an item without one (a blinded visit's date) after every timed one. */
+function bySince(a: WorklistItem, b: WorklistItem, newestFirst: boolean): number {
+  if (a.since === null || b.since === null) {
+    return Number(a.since === null) - Number(b.since === null);
+  }
+  return newestFirst ? b.since.localeCompare(a.since) : a.since.localeCompare(b.since);
 }
 
 function byVisitId(flags: readonly Flag[]): Map<string, Flag[]> {

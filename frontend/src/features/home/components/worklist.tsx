@@ -45,7 +45,6 @@ export function linkOf(item: WorklistItem): string {
 }
 
 function ItemRow({ item }: { item: WorklistItem }) {
-  const sinceIsDay = item.since.length === 10;
   return (
     <li className="gyre-worklist-item">
       <Flex vertical gap={2} className="gyre-shrinkable">
@@ -55,16 +54,7 @@ function ItemRow({ item }: { item: WorklistItem }) {
               ? `Visit ${item.blindCode}`
               : `${item.participantCode ?? ''} · ${item.visitLabel}`}
           </Link>
-          <Typography.Text
-            type="secondary"
-            className="gyre-figures gyre-caption"
-            title={sinceIsDay || item.blindCode !== null ? undefined : formatDateTime(item.since)}
-          >
-            {/* Blinded review: the server counts a blinded visit's time from its first upload. */}
-            {item.blindCode !== null
-              ? formatAfterFirstUpload(item.since)
-              : `${sinceIsDay ? 'visit of' : 'since'} ${formatDate(item.since)}`}
-          </Typography.Text>
+          <ItemSince item={item} />
         </Flex>
         <Flex wrap gap={8} align="baseline">
           {item.schedule !== null ? (
@@ -76,6 +66,26 @@ function ItemRow({ item }: { item: WorklistItem }) {
         </Flex>
       </Flex>
     </li>
+  );
+}
+
+/**
+ * Since when the item waits. Blinded review: the server counts a blinded visit's time from its
+ * first upload, and leaves its date out (null).
+ */
+function ItemSince({ item }: { item: WorklistItem }) {
+  if (item.since === null) return null;
+  const sinceIsDay = item.since.length === 10;
+  return (
+    <Typography.Text
+      type="secondary"
+      className="gyre-figures gyre-caption"
+      title={sinceIsDay || item.blindCode !== null ? undefined : formatDateTime(item.since)}
+    >
+      {item.blindCode !== null
+        ? formatAfterFirstUpload(item.since)
+        : `${sinceIsDay ? 'visit of' : 'since'} ${formatDate(item.since)}`}
+    </Typography.Text>
   );
 }
 
