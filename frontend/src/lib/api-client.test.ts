@@ -4,6 +4,7 @@ import { server, installMswServer } from '../test/msw-server';
 import {
   ApiError,
   apiFetch,
+  apiFetchOrNull,
   apiSend,
   apiUpload,
   getAccessToken,
@@ -43,6 +44,21 @@ describe('apiFetch', () => {
     await expect(apiFetch('http://localhost:3000/api/health')).resolves.toEqual({ status: 'ok' });
     expect(authorization).toBe('Bearer token-123');
     setAccessToken(null);
+  });
+
+  it('answers null for a 404 when asked for something that may not exist, and fails otherwise', async () => {
+    server.use(
+      http.get('http://localhost:3000/api/visits/7/report', () =>
+        errorResponse(404, 'REPORT_NOT_FOUND', 'No report'),
+      ),
+      http.get('http://localhost:3000/api/visits/8/report', () =>
+        errorResponse(403, 'FORBIDDEN', 'Not yours'),
+      ),
+    );
+    await expect(apiFetchOrNull('http://localhost:3000/api/visits/7/report')).resolves.toBeNull();
+    await expect(apiFetchOrNull('http://localhost:3000/api/visits/8/report')).rejects.toMatchObject(
+      { status: 403, code: 'FORBIDDEN' },
+    );
   });
 
   it('reports a non-JSON failure with its status', async () => {

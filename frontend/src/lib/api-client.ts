@@ -191,6 +191,16 @@ export async function apiFetch<T>(path: string, init: RequestInit = {}): Promise
   return (text.length > 0 ? safeJson(text) : null) as T;
 }
 
+/** `apiFetch` of something that may not exist yet: its 404 answers null instead of failing. */
+export async function apiFetchOrNull<T>(path: string): Promise<T | null> {
+  try {
+    return await apiFetch<T>(path);
+  } catch (error) {
+    if (error instanceof ApiError && error.status === 404) return null;
+    throw error;
+  }
+}
+
 /** `apiFetch` with a JSON body. */
 export function apiSend<T>(
   path: string,

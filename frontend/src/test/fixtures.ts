@@ -3,6 +3,7 @@ import {
   type AnalysisSettingsValues,
   type AnalysisSettingsView,
   type MeResponse,
+  type RecordingView,
   type Role,
 } from '@gyre/shared';
 
@@ -87,3 +88,39 @@ export const DEFAULT_SETTINGS: AnalysisSettingsView = {
   createdAt: '2025-01-06T09:00:00.000Z',
   ...DEFAULT_SETTINGS_VALUES,
 };
+
+/**
+ * A resting recording of participant p-1's visit v-1 at the first site, read and ready with
+ * nothing in doubt; a test names only what differs.
+ */
+export function readyRecording(change: Partial<RecordingView> = {}): RecordingView {
+  return {
+    id: 'r-1',
+    studyId: STUDY.id,
+    siteId: SITE.id,
+    participantId: 'p-1',
+    visitId: 'v-1',
+    kind: 'resting',
+    state: 'ready',
+    checksumSha256: 'a'.repeat(64),
+    sizeBytes: 1_234_567,
+    fileName: 'AC-0042-V1-resting.edf',
+    lineFrequencyHz: null,
+    progressPercent: 100,
+    facts: null,
+    rejection: null,
+    failureMessage: null,
+    latestJob: null,
+    latestRunId: null,
+    kindConfirmed: false,
+    warnings: [],
+    roiUsage: null,
+    replacesId: null,
+    replacementReason: null,
+    supersededById: null,
+    uploadedById: 'user-technician',
+    createdAt: '2025-02-03T10:05:00.000Z',
+    updatedAt: '2025-02-03T10:06:00.000Z',
+    ...change,
+  };
+}

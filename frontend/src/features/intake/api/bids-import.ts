@@ -1,8 +1,6 @@
 import type { BidsImportPreview } from '@gyre/shared';
-import { useCallback } from 'react';
-import { useSWRConfig } from 'swr';
-import { ApiError, apiUpload, type UploadOptions } from '../../../lib/api-client';
-import { isRecordingsKey } from './recordings';
+import type { UploadOptions } from '../../../lib/api-client';
+import { postStudyImport, refusedOutcomeOf, useStudyImport } from './study-import';
 
 /** The 422 of an import with a problem: nothing was stored, the preview says why. */
 const BIDS_FILES_INVALID = 'BIDS_IMPORT_FILES_INVALID';
@@ -26,9 +24,9 @@ export function pathOf(file: File): string {
 
 /** The preview a refused import carries in `details.preview`, when it has that shape. */
 export function previewOfError(error: unknown): BidsImportPreview | null {
-  if (!(error instanceof ApiError) || error.code !== BIDS_FILES_INVALID) return null;
-  const preview = (error.details as { preview?: BidsImportPreview } | null)?.preview;
-  return preview !== undefined && Array.isArray(preview.files) ? preview : null;
+  return refusedOutcomeOf<BidsImportPreview>(error, BIDS_FILES_INVALID, 'preview', (preview) =>
+    Array.isArray(preview.files),
+  );
 }
 
 /**
@@ -36,42 +34,20 @@ export function previewOfError(error: unknown): BidsImportPreview | null {
  * every `files` part named by its path in the folder, or one `archive` part). A dry run answers
  * 200 with the preview; an import 201, or 422 `BIDS_IMPORT_FILES_INVALID` with the preview.
  */
-function bidsImport(
-  input: BidsImportInput,
-  options: UploadOptions = {},
-): Promise<BidsImportPreview> {
+function bidsImport(input: BidsImportInput, options: UploadOptions): Promise<BidsImportPreview> {
   const form = new FormData();
   if (input.createParticipants) form.append('createParticipants', 'true');
   if (input.visitDate !== '') form.append('visitDate', input.visitDate);
   if (input.source.kind === 'zip')
     form.append('archive', input.source.file, input.source.file.name);
   else for (const file of input.source.files) form.append('files', file, pathOf(file));
-  return apiUpload<BidsImportPreview>(
-    `/api/studies/${encodeURIComponent(input.studyId)}/bids-imports${input.dryRun ? '?dryRun=true' : ''}`,
-    form,
-    options,
-  );
+  return postStudyImport(input.studyId, 'bids-imports', form, input.dryRun, options);
 }
+
+/** What an import can add to: participants, visits (and their recordings). */
+const REFRESHED = ['/api/visits', '/api/participants', '/api/recordings'] as const;
 
 /** An EEG-BIDS import; after one, the participant, visit, due and recording lists are read again. */
 export function useBidsImport() {
-  const { mutate } = useSWRConfig();
-  return useCallback(
-    async (input: BidsImportInput, options: UploadOptions = {}) => {
-      const preview = await bidsImport(input, options);
-      if (preview.imported) {
-        await mutate(
-          (key) =>
-            isRecordingsKey(key) ||
-            (typeof key === 'string' &&
-              (key.startsWith('/api/visits') ||
-                key.startsWith('/api/participants') ||
-                key.startsWith('/api/recordings') ||
-                key.includes('/due'))),
-        );
-      }
-      return preview;
-    },
-    [mutate],
-  );
+  return useStudyImport(bidsImport, REFRESHED);
 }

@@ -1,8 +1,6 @@
 import type { BulkUploadReport } from '@gyre/shared';
-import { useCallback } from 'react';
-import { useSWRConfig } from 'swr';
-import { ApiError, apiUpload, type UploadOptions } from '../../../lib/api-client';
-import { isRecordingsKey } from './recordings';
+import type { UploadOptions } from '../../../lib/api-client';
+import { postStudyImport, refusedOutcomeOf, useStudyImport } from './study-import';
 
 /** The 422 of a bulk upload with a failing row: nothing was imported, the report says why. */
 export const BULK_ROWS_INVALID = 'BULK_UPLOAD_ROWS_INVALID';
@@ -17,9 +15,9 @@ export interface BulkUploadInput {
 
 /** The per-row report a refused import carries in `details.report`, when it has that shape. */
 export function reportOfError(error: unknown): BulkUploadReport | null {
-  if (!(error instanceof ApiError) || error.code !== BULK_ROWS_INVALID) return null;
-  const report = (error.details as { report?: BulkUploadReport } | null)?.report;
-  return report !== undefined && Array.isArray(report.rows) ? report : null;
+  return refusedOutcomeOf<BulkUploadReport>(error, BULK_ROWS_INVALID, 'report', (report) =>
+    Array.isArray(report.rows),
+  );
 }
 
 /**
@@ -34,32 +32,13 @@ export function bulkUpload(
   const form = new FormData();
   form.append('manifest', input.manifest, input.manifest.name);
   for (const file of input.files) form.append('files', file, file.name);
-  const query = input.dryRun ? '?dryRun=true' : '';
-  return apiUpload<BulkUploadReport>(
-    `/api/studies/${encodeURIComponent(input.studyId)}/bulk-uploads${query}`,
-    form,
-    options,
-  );
+  return postStudyImport(input.studyId, 'bulk-uploads', form, input.dryRun, options);
 }
+
+/** What a bulk upload can add to: visits (and their recordings). */
+const REFRESHED = ['/api/visits', '/api/recordings'] as const;
 
 /** A bulk upload; after an import, the visit, due and recording lists are read again. */
 export function useBulkUpload() {
-  const { mutate } = useSWRConfig();
-  return useCallback(
-    async (input: BulkUploadInput, options: UploadOptions = {}) => {
-      const report = await bulkUpload(input, options);
-      if (report.imported) {
-        await mutate(
-          (key) =>
-            isRecordingsKey(key) ||
-            (typeof key === 'string' &&
-              (key.startsWith('/api/visits') ||
-                key.startsWith('/api/recordings') ||
-                key.includes('/due'))),
-        );
-      }
-      return report;
-    },
-    [mutate],
-  );
+  return useStudyImport(bulkUpload, REFRESHED);
 }

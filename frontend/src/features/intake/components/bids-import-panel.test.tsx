@@ -1,11 +1,17 @@
 import type { BidsImportFilePreview, BidsImportPreview } from '@gyre/shared';
-import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { fireEvent, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { http, HttpResponse } from 'msw';
+import { HttpResponse } from 'msw';
 import { describe, expect, it, vi } from 'vitest';
 import { meFor, STUDY } from '../../../test/fixtures';
-import { installMswServer, server } from '../../../test/msw-server';
+import { installMswServer } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
+import {
+  checkThenImport,
+  findImportCard,
+  refusedImport,
+  serveStudyImport,
+} from '../testing/import-fixtures';
 import { useIntakeHandlers } from '../testing/intake-fixtures';
 
 installMswServer();
@@ -53,26 +59,11 @@ const preview = (
   ...change,
 });
 
-/** Each request: whether it was a dry run, and its part names in order. */
-function serveImport(answers: Array<() => Response>) {
-  const sent: Array<{ dryRun: boolean; parts: string[] }> = [];
-  server.use(
-    http.post(`/api/studies/${STUDY.id}/bids-imports`, async ({ request }) => {
-      const dryRun = new URL(request.url).searchParams.get('dryRun') === 'true';
-      const form = await request.formData();
-      sent.push({ dryRun, parts: [...form.keys()] });
-      const answer = answers[sent.length - 1];
-      if (answer === undefined) throw new Error(`Request ${sent.length} was not expected`);
-      return answer();
-    }),
-  );
-  return sent;
-}
+const serveImport = (answers: Array<() => Response>) => serveStudyImport('bids-imports', answers);
 
 /** A folder drop: each File carries its path in the folder, as a browser's folder picker sets it. */
 async function chooseFolder(paths: string[]) {
-  const title = await screen.findByText('EEG-BIDS import');
-  const card = title.closest('.ant-card') as HTMLElement;
+  const card = await findImportCard('EEG-BIDS import');
   const input = within(card).getByLabelText('BIDS folder');
   const files = paths.map((path) => {
     const f = new File([new Uint8Array(64)], path.split('/').at(-1) ?? path);
@@ -192,25 +183,11 @@ describe('Intake EEG-BIDS import', { timeout: 60_000 }, () => {
     });
     serveImport([
       () => HttpResponse.json(preview([file({})])),
-      () =>
-        HttpResponse.json(
-          {
-            statusCode: 422,
-            code: 'BIDS_IMPORT_FILES_INVALID',
-            message: 'Nothing was imported',
-            details: { preview: refused },
-          },
-          { status: 422 },
-        ),
+      () => refusedImport('BIDS_IMPORT_FILES_INVALID', 'preview', refused),
     ]);
     renderApp('/intake', meFor('technician'));
     const card = await chooseFolder([`${DIR}/sub-AC0042_ses-baseline_task-rest_eeg.edf`]);
-    await userEvent.click(within(card).getByRole('button', { name: 'Check (preview)' }));
-    await waitFor(
-      () => expect(within(card).getByRole('button', { name: 'Confirm import' })).toBeEnabled(),
-      { timeout: 15_000 },
-    );
-    await userEvent.click(within(card).getByRole('button', { name: 'Confirm import' }));
+    await checkThenImport(card, 'Check (preview)', 'Confirm import');
     expect(
       await within(card).findByText('RECORDING_REJECTED: not an EDF file', {}, { timeout: 15_000 }),
     ).toBeInTheDocument();

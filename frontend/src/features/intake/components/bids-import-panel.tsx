@@ -1,11 +1,13 @@
 import type { BidsImportFilePreview, BidsImportPreview } from '@gyre/shared';
 import { formatNumber } from '@gyre/shared';
-import { Alert, Button, Card, Checkbox, Flex, Input, Progress, Table, Tag, Typography } from 'antd';
+import { Alert, Button, Card, Checkbox, Flex, Input, Table, Tag, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useRef, useState } from 'react';
-import { ApiError } from '../../../lib/api-client';
 import { pathOf, previewOfError, useBidsImport, type BidsSource } from '../api/bids-import';
+import { useCheckedImport } from '../hooks/use-checked-import';
+import { ImportActions } from './import-actions';
 import { KIND_LABELS } from './kind-labels';
+import { ProblemLines } from './problem-lines';
 
 const NBSP = '\u00a0';
 
@@ -73,19 +75,7 @@ const COLUMNS: TableColumnsType<BidsImportFilePreview> = [
     title: 'Problems',
     key: 'problems',
     render: (_: unknown, f) => (
-      <Flex vertical gap={2}>
-        {f.problems.map((text) => (
-          <Typography.Text key={`p-${text}`} type="danger">
-            {text}
-          </Typography.Text>
-        ))}
-        {f.warnings.map((text) => (
-          <Typography.Text key={`w-${text}`} type="warning">
-            {text}
-          </Typography.Text>
-        ))}
-        {f.problems.length + f.warnings.length === 0 && 'none'}
-      </Flex>
+      <ProblemLines errors={f.problems} warnings={f.warnings} fallback="none" />
     ),
   },
 ];
@@ -109,41 +99,24 @@ export function BidsImportPanel({ studyId }: { studyId: string }) {
   const [source, setSource] = useState<BidsSource | null>(null);
   const [createParticipants, setCreateParticipants] = useState(false);
   const [visitDate, setVisitDate] = useState('');
-  const [preview, setPreview] = useState<BidsImportPreview | null>(null);
-  const [previewFor, setPreviewFor] = useState<string | null>(null);
-  const [busy, setBusy] = useState<'check' | 'import' | null>(null);
-  const [percent, setPercent] = useState(0);
-  const [problem, setProblem] = useState<string | null>(null);
 
-  const selection = selectionOf(source, createParticipants, visitDate);
-  const current = preview !== null && previewFor === selection ? preview : null;
+  const checked = useCheckedImport({
+    selection: selectionOf(source, createParticipants, visitDate),
+    refusedOf: previewOfError,
+    onImported: () => setSource(null),
+  });
+  const { current } = checked;
   const confirmable =
     current !== null &&
     current.dryRun &&
     current.summary.withProblems === 0 &&
     current.problems.length === 0;
 
-  const run = async (dryRun: boolean) => {
+  const start = (dryRun: boolean) => {
     if (source === null) return;
-    setBusy(dryRun ? 'check' : 'import');
-    setProblem(null);
-    setPercent(0);
-    try {
-      const answer = await send(
-        { studyId, source, createParticipants, visitDate, dryRun },
-        { onProgress: (p) => setPercent(Math.round(p.percent)) },
-      );
-      setPreview(answer);
-      setPreviewFor(answer.imported ? '' : selection);
-      if (answer.imported) setSource(null);
-    } catch (error) {
-      const refused = previewOfError(error);
-      setPreview(refused);
-      setPreviewFor(refused === null ? null : selection);
-      if (refused === null) setProblem(error instanceof ApiError ? error.message : String(error));
-    } finally {
-      setBusy(null);
-    }
+    void checked.run(dryRun, (options) =>
+      send({ studyId, source, createParticipants, visitDate, dryRun }, options),
+    );
   };
 
   const described =
@@ -215,25 +188,14 @@ export function BidsImportPanel({ studyId }: { studyId: string }) {
             />
           </label>
         </Flex>
-        <Flex wrap gap={8}>
-          <Button
-            onClick={() => void run(true)}
-            disabled={source === null || busy !== null}
-            loading={busy === 'check'}
-          >
-            Check (preview)
-          </Button>
-          <Button
-            type="primary"
-            onClick={() => void run(false)}
-            disabled={!confirmable || busy !== null}
-            loading={busy === 'import'}
-          >
-            Confirm import
-          </Button>
-        </Flex>
-        {busy !== null && <Progress percent={percent} size="small" aria-label="Sending" />}
-        {problem !== null && <Alert type="error" showIcon title={problem} />}
+        <ImportActions
+          checkLabel="Check (preview)"
+          importLabel="Confirm import"
+          canCheck={source !== null}
+          canImport={confirmable}
+          state={checked}
+          onRun={start}
+        />
         {current !== null && <PreviewView preview={current} />}
       </Flex>
     </Card>

@@ -1,11 +1,17 @@
 import type { BulkUploadReport, BulkUploadRowReport } from '@gyre/shared';
-import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { fireEvent, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { http, HttpResponse } from 'msw';
+import { HttpResponse } from 'msw';
 import { describe, expect, it } from 'vitest';
 import { meFor, STUDY } from '../../../test/fixtures';
-import { installMswServer, server } from '../../../test/msw-server';
+import { installMswServer } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
+import {
+  checkThenImport,
+  findImportCard,
+  refusedImport,
+  serveStudyImport,
+} from '../testing/import-fixtures';
 import { useIntakeHandlers } from '../testing/intake-fixtures';
 
 installMswServer();
@@ -42,25 +48,10 @@ const report = (rows: BulkUploadRowReport[], change: Partial<BulkUploadReport> =
   ...change,
 });
 
-/** Each request to the bulk endpoint: whether it was a dry run, and its part names in order. */
-function serveBulk(answers: Array<(dryRun: boolean) => Response>) {
-  const sent: Array<{ dryRun: boolean; parts: string[] }> = [];
-  server.use(
-    http.post(`/api/studies/${STUDY.id}/bulk-uploads`, async ({ request }) => {
-      const dryRun = new URL(request.url).searchParams.get('dryRun') === 'true';
-      const form = await request.formData();
-      sent.push({ dryRun, parts: [...form.keys()] });
-      const answer = answers[sent.length - 1];
-      if (answer === undefined) throw new Error(`Request ${sent.length} was not expected`);
-      return answer(dryRun);
-    }),
-  );
-  return sent;
-}
+const serveBulk = (answers: Array<() => Response>) => serveStudyImport('bulk-uploads', answers);
 
 async function dropIntoPanel(names: string[]) {
-  const title = await screen.findByText('Bulk upload');
-  const card = title.closest('.ant-card') as HTMLElement;
+  const card = await findImportCard('Bulk upload');
   const input = card.querySelector<HTMLInputElement>('input[type=file][multiple]');
   expect(input).not.toBeNull();
   fireEvent.change(input as HTMLInputElement, {
@@ -179,25 +170,11 @@ describe('Intake bulk upload', { timeout: 60_000 }, () => {
     );
     serveBulk([
       () => HttpResponse.json(report([row({})])),
-      () =>
-        HttpResponse.json(
-          {
-            statusCode: 422,
-            code: 'BULK_UPLOAD_ROWS_INVALID',
-            message: 'Nothing was imported',
-            details: { report: failed },
-          },
-          { status: 422 },
-        ),
+      () => refusedImport('BULK_UPLOAD_ROWS_INVALID', 'report', failed),
     ]);
     renderApp('/intake', meFor('technician'));
     const card = await dropIntoPanel(['manifest.csv', 'rest.edf']);
-    await userEvent.click(within(card).getByRole('button', { name: 'Check (dry run)' }));
-    await waitFor(
-      () => expect(within(card).getByRole('button', { name: 'Import' })).toBeEnabled(),
-      { timeout: 15_000 },
-    );
-    await userEvent.click(within(card).getByRole('button', { name: 'Import' }));
+    await checkThenImport(card, 'Check (dry run)', 'Import');
     expect(
       await within(card).findByText('RECORDING_REJECTED: not an EDF file', {}, { timeout: 15_000 }),
     ).toBeInTheDocument();

@@ -1,10 +1,12 @@
 import type { BulkRowStatus, BulkUploadReport, BulkUploadRowReport } from '@gyre/shared';
 import { BULK_MANIFEST_COLUMNS } from '@gyre/shared';
-import { Alert, Button, Card, Flex, Progress, Table, Tag, Typography, Upload } from 'antd';
+import { Alert, Button, Card, Flex, Table, Tag, Typography, Upload } from 'antd';
 import type { TableColumnsType, UploadFile } from 'antd';
 import { useState } from 'react';
-import { ApiError } from '../../../lib/api-client';
 import { reportOfError, useBulkUpload } from '../api/bulk-upload';
+import { useCheckedImport } from '../hooks/use-checked-import';
+import { ImportActions } from './import-actions';
+import { ProblemLines } from './problem-lines';
 
 const MANIFEST_NAME = 'manifest.csv';
 
@@ -36,20 +38,11 @@ const COLUMNS: TableColumnsType<BulkUploadRowReport> = [
     title: 'Message',
     key: 'message',
     render: (_: unknown, row) => (
-      <Flex vertical gap={2}>
-        {row.errors.map((text) => (
-          <Typography.Text key={`e-${text}`} type="danger">
-            {text}
-          </Typography.Text>
-        ))}
-        {row.warnings.map((text) => (
-          <Typography.Text key={`w-${text}`} type="warning">
-            {text}
-          </Typography.Text>
-        ))}
-        {row.errors.length + row.warnings.length === 0 &&
-          (row.visit === 'new' ? 'creates the visit' : 'adds to the existing visit')}
-      </Flex>
+      <ProblemLines
+        errors={row.errors}
+        warnings={row.warnings}
+        fallback={row.visit === 'new' ? 'creates the visit' : 'adds to the existing visit'}
+      />
     ),
   },
 ];
@@ -58,7 +51,6 @@ const COLUMNS: TableColumnsType<BulkUploadRowReport> = [
 function selectionOf(manifest: File | null, files: File[]): string {
   return [manifest?.name ?? '', ...files.map((f) => `${f.name}:${f.size}`)].join('|');
 }
-const EMPTY_SELECTION = selectionOf(null, []);
 
 const fileOf = (item: UploadFile | undefined): File | null =>
   (item?.originFileObj as File | undefined) ?? null;
@@ -72,12 +64,6 @@ export function BulkUploadPanel({ studyId }: { studyId: string }) {
   const send = useBulkUpload();
   const [dropped, setDropped] = useState<UploadFile[]>([]);
   const [picked, setPicked] = useState<UploadFile[]>([]);
-  const [report, setReport] = useState<BulkUploadReport | null>(null);
-  // The selection the last report is about; a change asks for a new check before importing.
-  const [reportFor, setReportFor] = useState<string | null>(null);
-  const [busy, setBusy] = useState<'check' | 'import' | null>(null);
-  const [percent, setPercent] = useState(0);
-  const [problem, setProblem] = useState<string | null>(null);
 
   const detected = dropped.find((f) => f.name.toLowerCase() === MANIFEST_NAME);
   const manifest = fileOf(picked[0]) ?? fileOf(detected);
@@ -86,42 +72,25 @@ export function BulkUploadPanel({ studyId }: { studyId: string }) {
     .filter((f) => f !== detected)
     .map(fileOf)
     .filter((f): f is File => f !== null);
-  const selection = selectionOf(manifest, files);
-  const current = report !== null && reportFor === selection ? report : null;
+  // A change of the selection asks for a new check before importing.
+  const checked = useCheckedImport({
+    selection: selectionOf(manifest, files),
+    refusedOf: reportOfError,
+    onImported: () => {
+      setDropped([]);
+      setPicked([]);
+    },
+  });
+  const { current } = checked;
   const clean =
     current !== null &&
     current.dryRun &&
     current.summary.errors === 0 &&
     current.strayFiles.length === 0;
 
-  const run = async (dryRun: boolean) => {
+  const start = (dryRun: boolean) => {
     if (manifest === null) return;
-    setBusy(dryRun ? 'check' : 'import');
-    setProblem(null);
-    setPercent(0);
-    try {
-      const answer = await send(
-        { studyId, manifest, files, dryRun },
-        { onProgress: (p) => setPercent(Math.round(p.percent)) },
-      );
-      setReport(answer);
-      setReportFor(answer.imported ? EMPTY_SELECTION : selection);
-      if (answer.imported) {
-        setDropped([]);
-        setPicked([]);
-      }
-    } catch (error) {
-      const refused = reportOfError(error);
-      if (refused !== null) {
-        setReport(refused);
-        setReportFor(selection);
-      } else {
-        setReport(null);
-        setProblem(error instanceof ApiError ? error.message : String(error));
-      }
-    } finally {
-      setBusy(null);
-    }
+    void checked.run(dryRun, (options) => send({ studyId, manifest, files, dryRun }, options));
   };
 
   return (
@@ -158,25 +127,14 @@ export function BulkUploadPanel({ studyId }: { studyId: string }) {
               : `Manifest: ${manifest.name}, ${files.length} file${files.length === 1 ? '' : 's'}`}
           </Typography.Text>
         </Flex>
-        <Flex wrap gap={8}>
-          <Button
-            onClick={() => void run(true)}
-            disabled={manifest === null || busy !== null}
-            loading={busy === 'check'}
-          >
-            Check (dry run)
-          </Button>
-          <Button
-            type="primary"
-            onClick={() => void run(false)}
-            disabled={!clean || busy !== null}
-            loading={busy === 'import'}
-          >
-            Import
-          </Button>
-        </Flex>
-        {busy !== null && <Progress percent={percent} size="small" aria-label="Sending" />}
-        {problem !== null && <Alert type="error" showIcon title={problem} />}
+        <ImportActions
+          checkLabel="Check (dry run)"
+          importLabel="Import"
+          canCheck={manifest !== null}
+          canImport={clean}
+          state={checked}
+          onRun={start}
+        />
         {current !== null && <BulkReportSummary report={current} />}
       </Flex>
     </Card>

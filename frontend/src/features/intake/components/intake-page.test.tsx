@@ -3,6 +3,7 @@ import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it } from 'vitest';
+import { failingOnce } from '../../../test/error-response';
 import { meFor, STUDY } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
@@ -266,23 +267,17 @@ describe('Intake', { timeout: 60_000 }, () => {
   });
 
   it('shows an error with a retry when the participants cannot be loaded', async () => {
-    let calls = 0;
     useIntakeHandlers(() => []);
     server.use(
-      http.get('/api/participants', () => {
-        calls += 1;
-        return calls === 1
-          ? HttpResponse.json(
-              {
-                statusCode: 500,
-                code: 'INTERNAL',
-                message: 'Something went wrong on the server; the error has been logged.',
-                details: null,
-              },
-              { status: 500 },
-            )
-          : HttpResponse.json(page([participant]));
-      }),
+      http.get(
+        '/api/participants',
+        failingOnce(
+          500,
+          'INTERNAL',
+          'Something went wrong on the server; the error has been logged.',
+          () => HttpResponse.json(page([participant])),
+        ),
+      ),
     );
     renderApp('/intake', meFor('technician'));
     expect(

@@ -8,7 +8,7 @@ import type {
   VisitView,
 } from '@gyre/shared';
 import { http, HttpResponse } from 'msw';
-import { SITE, STUDY } from '../../../test/fixtures';
+import { readyRecording, SITE, STUDY } from '../../../test/fixtures';
 import { server } from '../../../test/msw-server';
 
 // Generated test data: one invented participant with one visit, a two-visit schedule, two groups.
@@ -95,35 +95,7 @@ export const page = <T>(items: T[]): Page<T> => ({
 });
 
 export function recording(change: Partial<RecordingView>): RecordingView {
-  return {
-    id: 'r-1',
-    studyId: STUDY.id,
-    siteId: SITE.id,
-    participantId: participant.id,
-    visitId: visit.id,
-    kind: 'resting',
-    state: 'ready',
-    checksumSha256: 'a'.repeat(64),
-    sizeBytes: 1_234_567,
-    fileName: 'AC-0042-V1-resting.edf',
-    lineFrequencyHz: null,
-    progressPercent: 100,
-    facts: null,
-    rejection: null,
-    failureMessage: null,
-    latestJob: null,
-    latestRunId: null,
-    kindConfirmed: false,
-    warnings: [],
-    roiUsage: null,
-    replacesId: null,
-    replacementReason: null,
-    supersededById: null,
-    uploadedById: 'user-technician',
-    createdAt: '2025-02-03T10:05:00.000Z',
-    updatedAt: '2025-02-03T10:06:00.000Z',
-    ...change,
-  };
+  return readyRecording({ participantId: participant.id, visitId: visit.id, ...change });
 }
 
 export const NOTHING_DUE: DueListView = {

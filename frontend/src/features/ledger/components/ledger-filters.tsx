@@ -1,6 +1,6 @@
 import { AUDIT_ACTIONS } from '@gyre/shared';
 import { DatePicker, Flex, Form, Grid, Input, Select } from 'antd';
-import dayjs from 'dayjs';
+import dayjs, { type Dayjs } from 'dayjs';
 import { useState } from 'react';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useAuditPeople } from '../api/audit-people';
@@ -156,26 +156,46 @@ export function LedgerFilters({
           />
         </Form.Item>
         <Form.Item label="From date" htmlFor="ledger-from" style={item}>
-          <DatePicker
+          <DayPicker
             id="ledger-from"
-            aria-label="From date"
-            format="D MMM YYYY"
-            className="gyre-fill-width"
-            value={filters.from !== undefined ? dayjs(filters.from) : null}
-            onChange={(date) => set({ from: date ? date.startOf('day').toISOString() : undefined })}
+            label="From date"
+            value={filters.from}
+            onChange={(date) => set({ from: date?.startOf('day').toISOString() })}
           />
         </Form.Item>
         <Form.Item label="To date" htmlFor="ledger-to" style={item}>
-          <DatePicker
+          <DayPicker
             id="ledger-to"
-            aria-label="To date"
-            format="D MMM YYYY"
-            className="gyre-fill-width"
-            value={filters.to !== undefined ? dayjs(filters.to) : null}
-            onChange={(date) => set({ to: date ? date.endOf('day').toISOString() : undefined })}
+            label="To date"
+            value={filters.to}
+            onChange={(date) => set({ to: date?.endOf('day').toISOString() })}
           />
         </Form.Item>
       </Flex>
     </Form>
+  );
+}
+
+/** A day bound of the filters: the ISO instant shown as its day, and the picked day or none. */
+function DayPicker({
+  id,
+  label,
+  value,
+  onChange,
+}: {
+  id: string;
+  label: string;
+  value: string | undefined;
+  onChange: (date: Dayjs | null) => void;
+}) {
+  return (
+    <DatePicker
+      id={id}
+      aria-label={label}
+      format="D MMM YYYY"
+      className="gyre-fill-width"
+      value={value !== undefined ? dayjs(value) : null}
+      onChange={onChange}
+    />
   );
 }

@@ -4,6 +4,7 @@ import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it } from 'vitest';
 import { RESEARCH_CAUTION } from '../../../components/research-caution';
+import { failingOnce } from '../../../test/error-response';
 import { meFor, STUDY } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
@@ -172,22 +173,13 @@ describe('Ledger', () => {
   });
 
   it('shows an error with a retry when the trail cannot be loaded', async () => {
-    let calls = 0;
     server.use(
-      http.get('/api/audit', () => {
-        calls += 1;
-        return calls === 1
-          ? HttpResponse.json(
-              {
-                statusCode: 503,
-                code: 'UNAVAILABLE',
-                message: 'The database is busy; try again.',
-                details: null,
-              },
-              { status: 503 },
-            )
-          : HttpResponse.json(page([flagEntry]));
-      }),
+      http.get(
+        '/api/audit',
+        failingOnce(503, 'UNAVAILABLE', 'The database is busy; try again.', () =>
+          HttpResponse.json(page([flagEntry])),
+        ),
+      ),
       http.get('/api/audit/verify', () =>
         HttpResponse.json({ intact: true, checked: 1, firstBroken: null, lastHash: null }),
       ),

@@ -1,6 +1,7 @@
 import { screen, within } from '@testing-library/react';
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it, vi } from 'vitest';
+import { drawnMarks } from '../../../components/charts/testing/drawn-marks';
 import { meFor } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
@@ -42,18 +43,10 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
     expect(screen.getByRole('note', { name: 'Research use caution' })).toBeInTheDocument();
 
     // Two visits have values: line, points and trend per series, and the flagged visit's line.
-    const alpha = await screen.findByRole(
-      'figure',
-      { name: 'Alpha frequency trajectory' },
-      { timeout: 15_000 },
+    expect(await drawnMarks('Alpha frequency trajectory')).toBe(
+      'lineX line point line line point line',
     );
-    expect(
-      (await within(alpha).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
-    ).toBe('lineX line point line line point line');
-    const onset = screen.getByRole('figure', { name: 'Onset change trajectory' });
-    expect(
-      (await within(onset).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
-    ).toBe('lineX lineY line point line');
+    expect(await drawnMarks('Onset change trajectory')).toBe('lineX lineY line point line');
     expect(
       screen.getByText('PAF (\u22120.40 Hz/year over 2 visits (184 days))'),
     ).toBeInTheDocument();
@@ -106,15 +99,8 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
       ),
     );
     renderApp(`/participants/${PARTICIPANT.id}`, meFor('analyst'));
-    const alpha = await screen.findByRole(
-      'figure',
-      { name: 'Alpha frequency trajectory' },
-      { timeout: 15_000 },
-    );
     // Line and points per series, no dashed trend line.
-    expect(
-      (await within(alpha).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
-    ).toBe('lineX line point line point');
+    expect(await drawnMarks('Alpha frequency trajectory')).toBe('lineX line point line point');
     expect(
       screen.getByText('PAF (no trend: 2 visits with a value, the study needs 3)'),
     ).toBeInTheDocument();

@@ -1,6 +1,6 @@
 import type { TrajectoryView, TrendView } from '@gyre/shared';
 import { Col, Row, Typography } from 'antd';
-import { useCallback } from 'react';
+import { useCallback, type ComponentProps, type ReactNode } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
 import { LegendKey } from '../../../components/charts/legend-key';
 import { PlotFigure } from '../../../components/charts/plot-figure';
@@ -37,55 +37,61 @@ export function TrajectoryCharts({ trajectory }: { trajectory: TrajectoryView })
   );
   const { trends, trendRule } = trajectory;
   const anyFlagged = trajectory.visits.some((v) => v.flagged);
+  const flaggedKey = anyFlagged && (
+    <LegendKey colour={GYRE_COLORS.amber} text="Flagged visit" stroke="dashed" />
+  );
   return (
     <Row gutter={[24, 24]}>
-      <Col xs={24} xl={12}>
-        <Typography.Title level={5} className="gyre-flush-top">
-          Individual alpha frequency at rest
-        </Typography.Title>
-        <div className="gyre-chart-legend gyre-figures">
-          <LegendKey
-            colour={SERIES_COLOUR.PAF}
-            text={`PAF (${trendText(trends.paf, trendRule)})`}
-          />
-          <LegendKey
-            colour={SERIES_COLOUR.CoG}
-            text={`CoG (${trendText(trends.cog, trendRule)})`}
-          />
-          {(trends.paf.slopeHzPerYear !== null || trends.cog.slopeHzPerYear !== null) && (
-            <LegendKey colour="rgba(29,43,47,0.6)" text="Theil–Sen trend" stroke="dashed" />
-          )}
-          {anyFlagged && (
-            <LegendKey colour={GYRE_COLORS.amber} text="Flagged visit" stroke="dashed" />
-          )}
-        </div>
-        <PlotFigure
-          label="Alpha frequency trajectory"
-          spec={alpha}
-          heightPx={CHART_HEIGHT_PX}
-          caption={`Peak alpha frequency and centre of gravity of each visit's resting recording. A robust (Theil–Sen) trend line is drawn only from ${trendRule.minVisits} visits spanning at least ${trendRule.minSpanDays} days (the study's rule).`}
+      <TrajectoryPanel
+        title="Individual alpha frequency at rest"
+        label="Alpha frequency trajectory"
+        spec={alpha}
+        caption={`Peak alpha frequency and centre of gravity of each visit's resting recording. A robust (Theil–Sen) trend line is drawn only from ${trendRule.minVisits} visits spanning at least ${trendRule.minSpanDays} days (the study's rule).`}
+      >
+        <LegendKey colour={SERIES_COLOUR.PAF} text={`PAF (${trendText(trends.paf, trendRule)})`} />
+        <LegendKey colour={SERIES_COLOUR.CoG} text={`CoG (${trendText(trends.cog, trendRule)})`} />
+        {(trends.paf.slopeHzPerYear !== null || trends.cog.slopeHzPerYear !== null) && (
+          <LegendKey colour="rgba(29,43,47,0.6)" text="Theil–Sen trend" stroke="dashed" />
+        )}
+        {flaggedKey}
+      </TrajectoryPanel>
+      <TrajectoryPanel
+        title="Onset slowing in the task"
+        label="Onset change trajectory"
+        spec={onset}
+        caption="Change of the mean instantaneous frequency after onset (post − baseline) at each visit; below zero means the rhythm slowed."
+      >
+        <LegendKey
+          colour={SERIES_COLOUR.Δf}
+          text={`ROI Δf (${trendText(trends.deltaF, trendRule)})`}
         />
-      </Col>
-      <Col xs={24} xl={12}>
-        <Typography.Title level={5} className="gyre-flush-top">
-          Onset slowing in the task
-        </Typography.Title>
-        <div className="gyre-chart-legend gyre-figures">
-          <LegendKey
-            colour={SERIES_COLOUR.Δf}
-            text={`ROI Δf (${trendText(trends.deltaF, trendRule)})`}
-          />
-          {anyFlagged && (
-            <LegendKey colour={GYRE_COLORS.amber} text="Flagged visit" stroke="dashed" />
-          )}
-        </div>
-        <PlotFigure
-          label="Onset change trajectory"
-          spec={onset}
-          heightPx={CHART_HEIGHT_PX}
-          caption="Change of the mean instantaneous frequency after onset (post − baseline) at each visit; below zero means the rhythm slowed."
-        />
-      </Col>
+        {flaggedKey}
+      </TrajectoryPanel>
     </Row>
+  );
+}
+
+/** One half of the trajectory charts: its title, legend keys (the children), and the plot. */
+function TrajectoryPanel({
+  title,
+  label,
+  spec,
+  caption,
+  children,
+}: {
+  title: string;
+  label: string;
+  spec: ComponentProps<typeof PlotFigure>['spec'];
+  caption: string;
+  children: ReactNode;
+}) {
+  return (
+    <Col xs={24} xl={12}>
+      <Typography.Title level={5} className="gyre-flush-top">
+        {title}
+      </Typography.Title>
+      <div className="gyre-chart-legend gyre-figures">{children}</div>
+      <PlotFigure label={label} spec={spec} heightPx={CHART_HEIGHT_PX} caption={caption} />
+    </Col>
   );
 }

@@ -138,20 +138,16 @@ export function OverrideForm({
         initialValues={initial}
         onFinish={submit}
       >
-        <Form.Item name="roiMode" label="Region of interest">
-          <Radio.Group
-            options={[
-              {
-                value: 'study',
-                label:
-                  study === undefined
-                    ? "The study's region of interest"
-                    : `The study's: ${study.roi.join(', ')}`,
-              },
-              { value: 'visit', label: 'Channels chosen for this visit' },
-            ]}
-          />
-        </Form.Item>
+        <StudyOrVisitItem
+          name="roiMode"
+          label="Region of interest"
+          studyLabel={
+            study === undefined
+              ? "The study's region of interest"
+              : `The study's: ${study.roi.join(', ')}`
+          }
+          visitLabel="Channels chosen for this visit"
+        />
         {roiMode === 'visit' && (
           <Form.Item
             name="roi"
@@ -164,31 +160,25 @@ export function OverrideForm({
             <Select mode="multiple" options={options} optionFilterProp="label" />
           </Form.Item>
         )}
-        <Form.Item name="bandMode" label="Alpha band">
-          <Radio.Group
-            options={[
-              { value: 'study', label: studyBandText(study) },
-              { value: 'visit', label: 'A fixed band for this visit' },
-            ]}
-          />
-        </Form.Item>
+        <StudyOrVisitItem
+          name="bandMode"
+          label="Alpha band"
+          studyLabel={studyBandText(study)}
+          visitLabel="A fixed band for this visit"
+        />
         {bandMode === 'visit' && <BandEdgeFields />}
-        <Form.Item name="onsetMode" label="Onsets">
-          <Radio.Group
-            options={[
-              {
-                value: 'study',
-                label:
-                  study === undefined
-                    ? "The study's onset label"
-                    : study.onsetLabel === null
-                      ? "The study's: every onset"
-                      : `The study's: “${study.onsetLabel}”`,
-              },
-              { value: 'visit', label: 'Another onset label for this visit' },
-            ]}
-          />
-        </Form.Item>
+        <StudyOrVisitItem
+          name="onsetMode"
+          label="Onsets"
+          studyLabel={
+            study === undefined
+              ? "The study's onset label"
+              : study.onsetLabel === null
+                ? "The study's: every onset"
+                : `The study's: “${study.onsetLabel}”`
+          }
+          visitLabel="Another onset label for this visit"
+        />
         {onsetMode === 'visit' && (
           <Form.Item
             name="onsetLabel"
@@ -219,5 +209,29 @@ export function OverrideForm({
         )}
       </Form>
     </Modal>
+  );
+}
+
+/** One setting's choice: the study's value (described), or one for this visit only. */
+function StudyOrVisitItem({
+  name,
+  label,
+  studyLabel,
+  visitLabel,
+}: {
+  name: 'roiMode' | 'bandMode' | 'onsetMode';
+  label: string;
+  studyLabel: string;
+  visitLabel: string;
+}) {
+  return (
+    <Form.Item name={name} label={label}>
+      <Radio.Group
+        options={[
+          { value: 'study', label: studyLabel },
+          { value: 'visit', label: visitLabel },
+        ]}
+      />
+    </Form.Item>
   );
 }

@@ -5,6 +5,8 @@ import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it, vi } from 'vitest';
 import { installCanvasMock } from '../../../components/charts/testing/canvas-mock';
+import { drawnMarks } from '../../../components/charts/testing/drawn-marks';
+import { failingOnce } from '../../../test/error-response';
 import { meFor } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
@@ -41,18 +43,8 @@ describe('Review', { timeout: 60_000 }, () => {
     // −0.3125 Hz to two decimals (the rounding of Number.prototype.toFixed).
     expect(screen.getByTestId('roi-delta-f')).toHaveTextContent('\u22120.31 Hz');
     expect(await screen.findByTestId('rest-paf')).toHaveTextContent('PAF 10.24 Hz');
-    const onset = screen.getByRole('figure', { name: 'Onset curve' });
-    expect(
-      (await within(onset).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
-    ).toBe('rangeX area line lineX');
-    const spectrum = await screen.findByRole(
-      'figure',
-      { name: 'Rest spectrum' },
-      { timeout: 15_000 },
-    );
-    expect(
-      (await within(spectrum).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks,
-    ).toBe('rangeX line lineX lineX');
+    expect(await drawnMarks('Onset curve')).toBe('rangeX area line lineX');
+    expect(await drawnMarks('Rest spectrum')).toBe('rangeX line lineX lineX');
     // The raster painted one pixel per cell: 4 trials × 8 time points.
     await waitFor(() => expect(canvas.putImageData).toBeGreaterThan(0));
     expect(canvas.lastImage?.width).toBe(8);
@@ -188,22 +180,11 @@ describe('Review', { timeout: 60_000 }, () => {
 
   it('shows an error with a retry that loads the visit once the server answers', async () => {
     serveVisit();
-    let attempts = 0;
     server.use(
-      http.get(`/api/visits/${VISIT.id}`, () => {
-        attempts += 1;
-        return attempts === 1
-          ? HttpResponse.json(
-              {
-                statusCode: 503,
-                code: 'UNAVAILABLE',
-                message: 'The database is busy.',
-                details: null,
-              },
-              { status: 503 },
-            )
-          : HttpResponse.json(VISIT);
-      }),
+      http.get(
+        `/api/visits/${VISIT.id}`,
+        failingOnce(503, 'UNAVAILABLE', 'The database is busy.', () => HttpResponse.json(VISIT)),
+      ),
     );
     renderApp(`/review/${VISIT.id}`, meFor('analyst'));
     expect(

@@ -13,7 +13,7 @@ import type {
   VisitReviewStateView,
   VisitView,
 } from '@gyre/shared';
-import { DEFAULT_SETTINGS, STUDY, SITE } from '../../../test/fixtures';
+import { DEFAULT_SETTINGS, readyRecording, STUDY, SITE } from '../../../test/fixtures';
 
 // Generated test data: one invented visit with a task and a resting recording.
 
@@ -77,34 +77,18 @@ export const NO_ROI: RoiUsageView = {
 };
 
 export function recording(kind: 'task' | 'resting', runId: string): RecordingView {
-  return {
+  return readyRecording({
     id: `rec-${kind}`,
-    studyId: STUDY.id,
-    siteId: SITE.id,
     participantId: PARTICIPANT.id,
     visitId: VISIT.id,
     kind,
-    state: 'ready',
-    checksumSha256: 'a'.repeat(64),
     sizeBytes: 1_000_000,
     fileName: `${kind}.edf`,
-    lineFrequencyHz: null,
-    progressPercent: 100,
-    facts: null,
-    rejection: null,
-    failureMessage: null,
-    latestJob: null,
     latestRunId: runId,
-    kindConfirmed: false,
-    warnings: [],
     roiUsage: COMPLETE_ROI,
-    replacesId: null,
-    replacementReason: null,
-    supersededById: null,
-    uploadedById: 'user-technician',
     createdAt: '2025-02-03T10:00:00.000Z',
     updatedAt: '2025-02-03T10:05:00.000Z',
-  };
+  });
 }
 
 export const RECORDINGS: RecordingView[] = [

@@ -1,19 +1,14 @@
 import type { ReportSignOffView } from '@gyre/shared';
 import useSWR from 'swr';
-import { ApiError, apiFetch } from '../../../lib/api-client';
+import { apiFetchOrNull } from '../../../lib/api-client';
 
 /** `GET /api/visits/:visitId/report/sign-off`: draft fingerprint, pending revision, revisions. */
 export const signOffKey = (visitId: string) =>
   `/api/visits/${encodeURIComponent(visitId)}/report/sign-off`;
 
 /** A visit without a report yet answers 404: shown as "nothing to sign". */
-export async function getSignOff(visitId: string): Promise<ReportSignOffView | null> {
-  try {
-    return await apiFetch<ReportSignOffView>(signOffKey(visitId));
-  } catch (error) {
-    if (error instanceof ApiError && error.status === 404) return null;
-    throw error;
-  }
+export function getSignOff(visitId: string): Promise<ReportSignOffView | null> {
+  return apiFetchOrNull<ReportSignOffView>(signOffKey(visitId));
 }
 
 export function useSignOff(visitId: string) {

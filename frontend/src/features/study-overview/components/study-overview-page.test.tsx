@@ -2,6 +2,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it, vi } from 'vitest';
+import { drawnMarks } from '../../../components/charts/testing/drawn-marks';
 import { meFor, STUDY } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
@@ -43,12 +44,7 @@ describe('Study overview', { timeout: 60_000 }, () => {
     );
 
     // PAF by group: faint courses, then Arm 1 with a CI band, line and points (Arm 2 has no mean).
-    const paf = await screen.findByRole('figure', {
-      name: 'Peak alpha frequency at rest by group',
-    });
-    expect((await within(paf).findByTestId('g2-plot', {}, { timeout: 15_000 })).dataset.marks).toBe(
-      'line area line point',
-    );
+    expect(await drawnMarks('Peak alpha frequency at rest by group')).toBe('line area line point');
     const means = screen.getByRole('table', { name: 'Means by group' });
     expect(within(means).getAllByRole('row')[1]).toHaveTextContent(
       'Arm 1Baseline10.00 Hz (7.46 to 12.54; n = 2, 1 doubtful)',
