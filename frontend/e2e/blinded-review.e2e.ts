@@ -80,7 +80,7 @@ describe('Blinded review in Chromium, on a real server', () => {
     const source = page.getByTestId('source-resting');
     await source.getByText(/computed/).waitFor();
     await expect(source.innerText()).resolves.toMatch(
-      /uploaded at first upload .*computed (at first upload|\+\d+\s(s|min) after first upload), after upload/,
+      /uploaded at first upload .*computed (at first upload|\+\d+\s(s|min) after first upload), once the file was accepted/,
     );
     const blindedBody = await page.locator('main').innerText();
     expect(blindedBody).not.toMatch(ANY_DATE);
@@ -96,7 +96,7 @@ describe('Blinded review in Chromium, on a real server', () => {
     // Now the visit's date and the real upload and computation times show.
     await page.getByText('Visit of 9 Apr 2025').waitFor();
     await expect(page.getByTestId('source-resting').innerText()).resolves.toMatch(
-      /uploaded \d{1,2} \w{3} \d{4}, \d\d:\d\d:\d\d .*computed \d{1,2} \w{3} \d{4}, \d\d:\d\d:\d\d after upload/,
+      /uploaded \d{1,2} \w{3} \d{4}, \d\d:\d\d:\d\d .*computed \d{1,2} \w{3} \d{4}, \d\d:\d\d:\d\d, once the file was accepted/,
     );
     const unblindedBody = await page.locator('main').innerText();
     expect(unblindedBody).not.toContain('after first upload');

@@ -62,7 +62,9 @@ describe('Review under blinded review', { timeout: 180_000 }, () => {
     // Times of the visit read as time after its first upload, never as a date.
     const sources = await screen.findByTestId('source-task', {}, { timeout: 15_000 });
     await waitFor(() =>
-      expect(sources).toHaveTextContent(/computed \+5\s+min after first upload, after upload/),
+      expect(sources).toHaveTextContent(
+        /computed \+5\s+min after first upload, once the file was accepted/,
+      ),
     );
     expect(sources).toHaveTextContent('uploaded at first upload');
     const main = screen.getByRole('main');

@@ -85,7 +85,7 @@ describe('Review', { timeout: 60_000 }, () => {
     expect(screen.queryByRole('form', { name: 'Analysis settings' })).not.toBeInTheDocument();
     // Every number says where it comes from, and nothing here is doubtful.
     expect(screen.getByTestId('source-task')).toHaveTextContent(
-      'Task: the recording uploaded 3 Feb 2025, 10:00:00 (SHA-256 c0ffeec0ffee…), computed 3 Feb 2025, 10:05:00 after upload, settings version 1 (amplitude gate off; cross-check warning above 0.10 Hz; conditions compared: the first two found).',
+      'Task: the recording uploaded 3 Feb 2025, 10:00:00 (SHA-256 c0ffeec0ffee…), computed 3 Feb 2025, 10:05:00, once the file was accepted, settings version 1 (amplitude gate off; cross-check warning above 0.10 Hz; conditions compared: the first two found).',
     );
     // The run's own analysis-depth settings are part of its provenance, the rest run has none.
     expect(screen.getByTestId('source-resting')).not.toHaveTextContent('amplitude gate');

@@ -3,7 +3,7 @@ import { formatHz, formatNumber } from '../../../lib/format';
 
 /** What started a run, after "Computed …". */
 export const TRIGGER_WORDS: Record<RunTrigger, string> = {
-  upload: 'after upload',
+  upload: 'once the file was accepted',
   rerun: "on an analyst's re-run",
   retry: 'on a retry after a failure',
   'rest-changed': "automatically, because the visit's resting IAF arrived or changed",

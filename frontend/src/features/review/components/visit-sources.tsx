@@ -4,7 +4,7 @@ import { GYRE_COLORS } from '../../../app/theme';
 import { roiUsageSentence } from '../../../lib/roi-usage';
 import { depthSettingsWords, TRIGGER_WORDS } from './run-words';
 import { useShownResults } from './shown-results';
-import { useVisitTime, useVisitTimesBlinded } from './visit-time';
+import { useVisitTime } from './visit-time';
 
 const KIND_NAMES: Record<RecordingKind, string> = { task: 'task', resting: 'resting' };
 const OTHER_KIND: Record<RecordingKind, RecordingKind> = { task: 'resting', resting: 'task' };
@@ -53,8 +53,6 @@ function SourceLine({
 }) {
   const { showable, results } = useShownResults(recording);
   const visitTime = useVisitTime();
-  // "+5 min after first upload" needs a comma before "after upload".
-  const afterTime = useVisitTimesBlinded() ? ', ' : ' ';
   const label = kind === 'task' ? 'Task' : 'Resting';
   if (recording === null) {
     return (
@@ -77,8 +75,7 @@ function SourceLine({
           the recording uploaded{' '}
           <span className="gyre-figures">{visitTime(data.source.uploadedAt)}</span> (SHA-256{' '}
           <span className="gyre-figures">{data.source.checksumSha256.slice(0, 12)}…</span>),
-          computed <span className="gyre-figures">{visitTime(data.run.createdAt)}</span>
-          {afterTime}
+          computed <span className="gyre-figures">{visitTime(data.run.createdAt)}</span>,{' '}
           {TRIGGER_WORDS[data.run.trigger]}, settings version {data.run.settingsVersion}
           {data.run.overrideRevision !== null &&
             ` with this visit's own choices (revision ${data.run.overrideRevision})`}

@@ -21,7 +21,7 @@ export function VisitTimeProvider({
 }
 
 /** Whether the visit's times are counted from its first upload (see VisitTimeProvider). */
-export function useVisitTimesBlinded(): boolean {
+function useVisitTimesBlinded(): boolean {
   return useContext(VisitBlindedContext);
 }
 
