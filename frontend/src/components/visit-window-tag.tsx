@@ -1,10 +1,11 @@
 import type { VisitScheduleStatus } from '@gyre/shared';
 import { Tag } from 'antd';
 import { GYRE_COLORS } from '../app/theme';
+import { formatCount } from '../lib/format';
 
 /** Words for a visit's place in the schedule; the text carries the meaning, colour only helps. */
 export function visitWindowText(schedule: VisitScheduleStatus): string {
-  const days = (n: number) => `${Math.abs(n)} day${Math.abs(n) === 1 ? '' : 's'}`;
+  const days = (n: number) => formatCount(Math.abs(n), 'day');
   switch (schedule.window) {
     case 'in':
       return 'In window';

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  formatCount,
   formatAfterFirstUpload,
   formatBytes,
   formatDeltaHz,
@@ -41,6 +42,17 @@ describe('screen number format', () => {
     expect(formatHzRange([8, 13])).toBe(`8.00 to 13.00${S}Hz`);
     expect(formatDeltaHzRange([-0.4123, 0.02])).toBe(`${M}0.41 to +0.02${S}Hz`);
     expect(formatPValue(0.00001)).toBe(`<${S}0.001`);
+  });
+});
+
+describe('counts with their noun', () => {
+  it('is singular for exactly one, plural otherwise, with the grouped number (common practice)', () => {
+    expect(formatCount(1, 'row')).toBe('1 row');
+    expect(formatCount(0, 'row')).toBe('0 rows');
+    expect(formatCount(2, 'quality warning')).toBe('2 quality warnings');
+    expect(formatCount(1, 'entry', 'entries')).toBe('1 entry');
+    expect(formatCount(12, 'entry', 'entries')).toBe('12 entries');
+    expect(formatCount(1204, 'file')).toMatch(/^1\D?204 files$/);
   });
 });
 

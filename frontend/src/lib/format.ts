@@ -140,6 +140,14 @@ export function formatNumber(
   return sharedNumber(value, decimals, options);
 }
 
+/**
+ * A count with its noun, singular for exactly one: `1 row`, `0 rows`, `1,204 files`. The noun
+ * takes an `s` unless its plural is given (`formatCount(n, 'entry', 'entries')`).
+ */
+export function formatCount(count: number, noun: string, plural = `${noun}s`): string {
+  return `${sharedNumber(count, 0)} ${count === 1 ? noun : plural}`;
+}
+
 /** A p value without its "p": `< 0.001` or three decimals. */
 export function formatPValue(value: Maybe): string {
   return sharedPValue(value);

@@ -8,6 +8,7 @@ import { useCheckedImport } from '../hooks/use-checked-import';
 import { ImportActions } from './import-actions';
 import { KIND_LABELS } from './kind-labels';
 import { ProblemLines } from './problem-lines';
+import { formatCount } from '../../../lib/format';
 
 const NBSP = '\u00a0';
 
@@ -124,7 +125,7 @@ export function BidsImportPanel({ studyId }: { studyId: string }) {
       ? 'Nothing chosen yet'
       : source.kind === 'zip'
         ? `Zip: ${source.file.name}`
-        : `Folder: ${formatNumber(source.files.length, 0)} file${source.files.length === 1 ? '' : 's'}`;
+        : `Folder: ${formatCount(source.files.length, 'file')}`;
 
   return (
     <Card title="EEG-BIDS import">
@@ -204,8 +205,7 @@ export function BidsImportPanel({ studyId }: { studyId: string }) {
 
 function PreviewView({ preview }: { preview: BidsImportPreview }) {
   const { summary } = preview;
-  const plural = (n: number, word: string) => `${formatNumber(n, 0)} ${word}${n === 1 ? '' : 's'}`;
-  const counts = `${plural(summary.files, 'recording')}, ${formatNumber(summary.withProblems, 0)} with a problem; ${plural(summary.newParticipants, 'new participant')}, ${plural(summary.newVisits, 'new visit')}.`;
+  const counts = `${formatCount(summary.files, 'recording')}, ${formatNumber(summary.withProblems, 0)} with a problem; ${formatCount(summary.newParticipants, 'new participant')}, ${formatCount(summary.newVisits, 'new visit')}.`;
   const failed = summary.withProblems > 0 || preview.problems.length > 0;
   return (
     <Flex vertical gap={8}>

@@ -7,6 +7,7 @@ import { reportOfError, useBulkUpload } from '../api/bulk-upload';
 import { useCheckedImport } from '../hooks/use-checked-import';
 import { ImportActions } from './import-actions';
 import { ProblemLines } from './problem-lines';
+import { formatCount } from '../../../lib/format';
 
 const MANIFEST_NAME = 'manifest.csv';
 
@@ -124,7 +125,7 @@ export function BulkUploadPanel({ studyId }: { studyId: string }) {
           <Typography.Text type={manifest === null ? 'secondary' : undefined}>
             {manifest === null
               ? 'No manifest yet: choose one or drop a file named manifest.csv'
-              : `Manifest: ${manifest.name}, ${files.length} file${files.length === 1 ? '' : 's'}`}
+              : `Manifest: ${manifest.name}, ${formatCount(files.length, 'file')}`}
           </Typography.Text>
         </Flex>
         <ImportActions
@@ -143,7 +144,7 @@ export function BulkUploadPanel({ studyId }: { studyId: string }) {
 
 function BulkReportSummary({ report }: { report: BulkUploadReport }) {
   const { summary } = report;
-  const counts = `${summary.rows} rows: ${summary.ok} ready, ${summary.warnings} with a warning, ${summary.errors} with an error; ${summary.newVisits} new visit${summary.newVisits === 1 ? '' : 's'}.`;
+  const counts = `${formatCount(summary.rows, 'row')}: ${summary.ok} ready, ${summary.warnings} with a warning, ${summary.errors} with an error; ${formatCount(summary.newVisits, 'new visit')}.`;
   const failed = summary.errors > 0 || report.strayFiles.length > 0;
   return (
     <Flex vertical gap={8}>

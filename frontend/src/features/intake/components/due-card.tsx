@@ -2,11 +2,11 @@ import type { DueListView, DueVisit } from '@gyre/shared';
 import { Button, Card, List, Space, Tag, Typography } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
 import { ErrorState } from '../../../components/page-states';
-import { formatDate } from '../../../lib/format';
+import { formatCount, formatDate } from '../../../lib/format';
 
 function dueText(item: DueVisit): string {
   if (item.status === 'overdue') {
-    return `Overdue by ${item.daysOverdue} day${item.daysOverdue === 1 ? '' : 's'}`;
+    return `Overdue by ${formatCount(item.daysOverdue, 'day')}`;
   }
   return `Due until ${formatDate(item.closes)}`;
 }
@@ -38,7 +38,7 @@ export function DueCard({
           <Typography.Text type="secondary">
             {due.participants.length === 0
               ? `as of ${formatDate(due.asOf)}`
-              : `${due.participants.length} participant${due.participants.length === 1 ? '' : 's'}, ${overdue} overdue`}
+              : `${formatCount(due.participants.length, 'participant')}, ${overdue} overdue`}
           </Typography.Text>
         )
       }

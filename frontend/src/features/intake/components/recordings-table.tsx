@@ -5,7 +5,13 @@ import { useState } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
 import { EmptyState, ErrorState, TableSkeleton } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
-import { formatBytes, formatDateTime, formatHz, formatSeconds } from '../../../lib/format';
+import {
+  formatBytes,
+  formatCount,
+  formatDateTime,
+  formatHz,
+  formatSeconds,
+} from '../../../lib/format';
 import { useDownloadRecording } from '../api/download-recording';
 import { useRetryRecording } from '../api/retry-recording';
 import type { useLiveRecordings } from '../hooks/use-live-recordings';
@@ -336,7 +342,7 @@ export function RecordingsTable({
         >
           {showDismissed
             ? 'Hide dismissed rejected uploads'
-            : `Show ${hidden.length} dismissed rejected upload${hidden.length === 1 ? '' : 's'}`}
+            : `Show ${formatCount(hidden.length, 'dismissed rejected upload')}`}
         </Button>
       )}
     </Card>

@@ -14,7 +14,7 @@ import { BlindedClosedNotice, isBlindedRefusal } from '../../../components/blind
 import { EmptyState, ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { studyDayText, VisitWindowTag } from '../../../components/visit-window-tag';
-import { formatDate, formatDeltaHz, formatHz } from '../../../lib/format';
+import { formatCount, formatDate, formatDeltaHz, formatHz } from '../../../lib/format';
 import { useGroups } from '../api/get-groups';
 import { useParticipant } from '../api/get-participant';
 import { useParticipantVisits } from '../api/get-participant-visits';
@@ -153,7 +153,7 @@ export function ParticipantPage() {
       <ResearchCaution />
       <PageHeader
         title={`Participant ${code}`}
-        description={`${rows.length} visit${rows.length === 1 ? '' : 's'}; change is measured from the first visit with a value.`}
+        description={`${formatCount(rows.length, 'visit')}; change is measured from the first visit with a value.`}
         extra={
           <Link to={paths.participants}>
             <Button>All participants</Button>

@@ -8,7 +8,7 @@ import { BlindedReviewNotice } from '../../../components/blinded-review-notice';
 import { PageHeader } from '../../../components/page-header';
 import { ErrorState, LoadingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
-import { formatDate, formatDeltaHz, formatHz } from '../../../lib/format';
+import { formatCount, formatDate, formatDeltaHz, formatHz } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
 import { useStudy } from '../../../lib/studies';
@@ -163,7 +163,7 @@ export function ParticipantsPage() {
               total: participants.data.total,
               showSizeChanger: true,
               pageSizeOptions: PAGE_SIZES,
-              showTotal: (total) => `${total} participant${total === 1 ? '' : 's'}`,
+              showTotal: (total) => formatCount(total, 'participant'),
             }}
             columns={[
               {

@@ -3,6 +3,7 @@ import { Alert, Flex, Table, Tag } from 'antd';
 import { GYRE_COLORS } from '../../../app/theme';
 import { ChannelQualityTable } from './channel-quality-table';
 import { qualityFindings, type QualityFinding } from './quality-findings';
+import { formatCount } from '../../../lib/format';
 
 /** The quality checks of one recording, with warnings in plain words. */
 export function QualityChecks({
@@ -30,7 +31,7 @@ export function QualityChecks({
         <Alert
           type="warning"
           showIcon
-          title={`${warnings.length} quality warning${warnings.length === 1 ? '' : 's'}`}
+          title={formatCount(warnings.length, 'quality warning')}
           description={
             <ul className="gyre-compact-list">
               {warnings.map((w) => (
