@@ -45,12 +45,17 @@ function newestMtime(path) {
   return newest;
 }
 
+/** Whether `output` is missing or older than one of `inputs` (paths under the repository). */
+export function isStale(output, inputs) {
+  const outputPath = join(root, output);
+  const builtAt = existsSync(outputPath) ? statSync(outputPath).mtimeMs : 0;
+  const changedAt = Math.max(...inputs.map((input) => newestMtime(join(root, input))));
+  return builtAt === 0 || changedAt > builtAt;
+}
+
 export function buildIfStale({ force = false } = {}) {
   for (const target of targets) {
-    const output = join(root, target.output);
-    const builtAt = existsSync(output) ? statSync(output).mtimeMs : 0;
-    const changedAt = Math.max(...target.inputs.map((input) => newestMtime(join(root, input))));
-    if (force || builtAt === 0 || changedAt > builtAt) {
+    if (force || isStale(target.output, target.inputs)) {
       console.log(`Building ${target.workspace}…`);
       execFileSync('npm', ['run', '-s', 'build', '-w', target.workspace], {
         cwd: root,

@@ -2,11 +2,12 @@
 // The seeder uses the signal core's public API (`@gyre/backend/signal`, from backend/dist: build
 // the backend first, as `npm run seed` does), so its sources and the package entry count too.
 import { execFileSync } from 'node:child_process';
-import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { isStale } from '../scripts/build-if-stale.mjs';
 
 const root = resolve(import.meta.dirname, '..');
-export const SEED_CLI = join(root, 'seed/dist/seed/src/cli/seed-cli.js');
+const OUTPUT = 'seed/dist/seed/src/cli/seed-cli.js';
+export const SEED_CLI = join(root, OUTPUT);
 const INPUTS = [
   'seed/src',
   'seed/tsconfig.json',
@@ -15,17 +16,8 @@ const INPUTS = [
   'backend/package.json',
 ];
 
-function newestMtime(path) {
-  if (!existsSync(path)) return 0;
-  const stats = statSync(path);
-  if (!stats.isDirectory()) return stats.mtimeMs;
-  return Math.max(0, ...readdirSync(path).map((entry) => newestMtime(join(path, entry))));
-}
-
 export function buildSeedIfStale() {
-  const builtAt = existsSync(SEED_CLI) ? statSync(SEED_CLI).mtimeMs : 0;
-  const changedAt = Math.max(...INPUTS.map((input) => newestMtime(join(root, input))));
-  if (builtAt === 0 || changedAt > builtAt) {
+  if (isStale(OUTPUT, INPUTS)) {
     console.log('Building seed…');
     execFileSync(
       process.execPath,

@@ -61,6 +61,19 @@ async function startWith(settings: Record<string, string>, env: Record<string, s
   }
 }
 
+/** Runs `body` on an app started with the anchor `settings`, and closes it even when it fails. */
+async function withAppStartedWith(
+  settings: Record<string, string>,
+  body: (t: TestApp) => Promise<void>,
+): Promise<void> {
+  const t = await startWith(settings);
+  try {
+    await body(t);
+  } finally {
+    await t.close();
+  }
+}
+
 const FREQUENT = { AUDIT_ANCHOR_EVERY_ENTRIES: '5', AUDIT_ANCHOR_EVERY_SECONDS: '1' };
 
 function rawLines(dataDir: string): string[] {
@@ -378,74 +391,65 @@ describe('audit anchors: when checkpoints are written', () => {
   });
 
   it('every N entries (AUDIT_ANCHOR_EVERY_ENTRIES), without waiting for the timer', async () => {
-    const t = await startWith({
-      AUDIT_ANCHOR_EVERY_ENTRIES: '4',
-      AUDIT_ANCHOR_EVERY_SECONDS: '3600',
-    });
-    try {
-      await t.authHeader('technician');
-      await makeEntries(t, 5);
-      const line = await waitFor('an entries checkpoint', () =>
-        lines(t.config.dataDir).find((l) => l.reason === 'entries'),
-      );
-      expect(line.seq).toBeGreaterThanOrEqual(4);
-    } finally {
-      await t.close();
-    }
+    await withAppStartedWith(
+      { AUDIT_ANCHOR_EVERY_ENTRIES: '4', AUDIT_ANCHOR_EVERY_SECONDS: '3600' },
+      async (t) => {
+        await t.authHeader('technician');
+        await makeEntries(t, 5);
+        const line = await waitFor('an entries checkpoint', () =>
+          lines(t.config.dataDir).find((l) => l.reason === 'entries'),
+        );
+        expect(line.seq).toBeGreaterThanOrEqual(4);
+      },
+    );
   });
 
   it('every M seconds (AUDIT_ANCHOR_EVERY_SECONDS) while entries arrive, none when idle', async () => {
-    const t = await startWith({
-      AUDIT_ANCHOR_EVERY_ENTRIES: '1000',
-      AUDIT_ANCHOR_EVERY_SECONDS: '1',
-    });
-    try {
-      await makeEntries(t, 2);
-      const head = await lastSeq(t);
-      // The start itself appends entries (the local worker token), which an earlier interval
-      // checkpoint may have anchored: wait for the one that covers the newest entry.
-      const line = await waitFor('an interval checkpoint', () =>
-        lines(t.config.dataDir).find((l) => l.reason === 'interval' && l.seq === head),
-      );
-      expect(line.seq).toBe(head);
-      const count = lines(t.config.dataDir).length;
-      await new Promise((resolve) => setTimeout(resolve, 2200));
-      expect(lines(t.config.dataDir)).toHaveLength(count);
-    } finally {
-      await t.close();
-    }
+    await withAppStartedWith(
+      { AUDIT_ANCHOR_EVERY_ENTRIES: '1000', AUDIT_ANCHOR_EVERY_SECONDS: '1' },
+      async (t) => {
+        await makeEntries(t, 2);
+        const head = await lastSeq(t);
+        // The start itself appends entries (the local worker token), which an earlier interval
+        // checkpoint may have anchored: wait for the one that covers the newest entry.
+        const line = await waitFor('an interval checkpoint', () =>
+          lines(t.config.dataDir).find((l) => l.reason === 'interval' && l.seq === head),
+        );
+        expect(line.seq).toBe(head);
+        const count = lines(t.config.dataDir).length;
+        await new Promise((resolve) => setTimeout(resolve, 2200));
+        expect(lines(t.config.dataDir)).toHaveLength(count);
+      },
+    );
   });
 
   it('reports a deleted anchor file, and the new file Gyre then starts says why', async () => {
-    const t = await startWith({
-      AUDIT_ANCHOR_EVERY_ENTRIES: '5',
-      AUDIT_ANCHOR_EVERY_SECONDS: '3600',
-    });
-    try {
-      await t.authHeader('admin');
-      unlinkSync(join(t.config.dataDir, ANCHOR_FILE));
-      const missing = await verifyAs(t);
-      expect(missing.intact).toBe(false);
-      expect(missing.anchors.problems).toEqual([
-        expect.stringMatching(/^The anchor file \(audit-anchors\.jsonl\) is missing or empty/),
-      ]);
-      // The next checkpoint (here: after five entries) starts a new file and marks it.
-      await makeEntries(t, 5);
-      const [first] = await waitFor('a new anchor file', () => {
-        const found = lines(t.config.dataDir);
-        return found.length > 0 ? found : undefined;
-      });
-      expect(first).toMatchObject({ n: 1, reason: 'file-missing' });
-      const restarted = await verifyAs(t);
-      expect(restarted.intact).toBe(false);
-      expect(restarted.anchors.problems).toEqual([
-        expect.stringMatching(
-          /^Line 1 of the anchor file: Gyre started a new anchor file on .* because the previous one was missing/,
-        ),
-      ]);
-    } finally {
-      await t.close();
-    }
+    await withAppStartedWith(
+      { AUDIT_ANCHOR_EVERY_ENTRIES: '5', AUDIT_ANCHOR_EVERY_SECONDS: '3600' },
+      async (t) => {
+        await t.authHeader('admin');
+        unlinkSync(join(t.config.dataDir, ANCHOR_FILE));
+        const missing = await verifyAs(t);
+        expect(missing.intact).toBe(false);
+        expect(missing.anchors.problems).toEqual([
+          expect.stringMatching(/^The anchor file \(audit-anchors\.jsonl\) is missing or empty/),
+        ]);
+        // The next checkpoint (here: after five entries) starts a new file and marks it.
+        await makeEntries(t, 5);
+        const [first] = await waitFor('a new anchor file', () => {
+          const found = lines(t.config.dataDir);
+          return found.length > 0 ? found : undefined;
+        });
+        expect(first).toMatchObject({ n: 1, reason: 'file-missing' });
+        const restarted = await verifyAs(t);
+        expect(restarted.intact).toBe(false);
+        expect(restarted.anchors.problems).toEqual([
+          expect.stringMatching(
+            /^Line 1 of the anchor file: Gyre started a new anchor file on .* because the previous one was missing/,
+          ),
+        ]);
+      },
+    );
   });
 
   it('at clean shutdown, anchoring the last entry', async () => {

@@ -103,6 +103,9 @@ describe('sign-in, tokens and sessions', () => {
   describe('access tokens the server must refuse', () => {
     const me = (token: string) =>
       request(t.url).get('/api/auth/me').set('Authorization', `Bearer ${token}`);
+    /** A token signed like the server's (HS256) over `payload`, with `secret`. */
+    const hs256 = (payload: Record<string, unknown>, secret = TEST_JWT_SECRET) =>
+      forgeJwt({ header: { alg: 'HS256', typ: 'JWT' }, payload, secret });
     const sessionIdOf = async (user: 'analyst' | 'monitor'): Promise<string> => {
       const [, payload] = (await t.tokenFor(user)).split('.');
       return (JSON.parse(Buffer.from(payload, 'base64url').toString('utf8')) as { sid: string })
@@ -110,26 +113,20 @@ describe('sign-in, tokens and sessions', () => {
     };
 
     it('accepts a token it signed itself (control for the cases below)', async () => {
-      const token = forgeJwt({
-        header: { alg: 'HS256', typ: 'JWT' },
-        payload: { ...accessPayload(t.seed.users.analyst.id), sid: await sessionIdOf('analyst') },
-        secret: TEST_JWT_SECRET,
+      const token = hs256({
+        ...accessPayload(t.seed.users.analyst.id),
+        sid: await sessionIdOf('analyst'),
       });
       expect((await me(token)).status).toBe(200);
     });
 
     // Common practice: an access token is bound to the session it was issued to.
     it('refuses a well-signed token without a session or with another user’s session', async () => {
-      const withoutSession = forgeJwt({
-        header: { alg: 'HS256', typ: 'JWT' },
-        payload: accessPayload(t.seed.users.analyst.id),
-        secret: TEST_JWT_SECRET,
-      });
+      const withoutSession = hs256(accessPayload(t.seed.users.analyst.id));
       expect((await me(withoutSession)).status).toBe(401);
-      const othersSession = forgeJwt({
-        header: { alg: 'HS256', typ: 'JWT' },
-        payload: { ...accessPayload(t.seed.users.analyst.id), sid: await sessionIdOf('monitor') },
-        secret: TEST_JWT_SECRET,
+      const othersSession = hs256({
+        ...accessPayload(t.seed.users.analyst.id),
+        sid: await sessionIdOf('monitor'),
       });
       const response = await me(othersSession);
       expect(response.status).toBe(401);
@@ -147,20 +144,15 @@ describe('sign-in, tokens and sessions', () => {
     });
 
     it('refuses a token signed with another secret', async () => {
-      const token = forgeJwt({
-        header: { alg: 'HS256', typ: 'JWT' },
-        payload: accessPayload(t.seed.users.admin.id),
-        secret: 'some-other-secret-that-is-long-enough-1234567890',
-      });
+      const token = hs256(
+        accessPayload(t.seed.users.admin.id),
+        'some-other-secret-that-is-long-enough-1234567890',
+      );
       expect((await me(token)).status).toBe(401);
     });
 
     it('refuses an expired token', async () => {
-      const token = forgeJwt({
-        header: { alg: 'HS256', typ: 'JWT' },
-        payload: accessPayload(t.seed.users.analyst.id, -60),
-        secret: TEST_JWT_SECRET,
-      });
+      const token = hs256(accessPayload(t.seed.users.analyst.id, -60));
       expect((await me(token)).status).toBe(401);
     });
 

@@ -6,11 +6,11 @@
  */
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import request from 'supertest';
 import type { AuditEntryView, CalibrationRunView, Page } from '@gyre/shared';
 import { DEFAULT_ANALYSIS_SETTINGS } from '../src/signal/pipeline/analysis-settings';
 import type { UserKey } from './helpers/seed';
 import { useTestApp } from './helpers/test-app';
+import { getAs, postAs } from './helpers/api-call';
 
 describe('calibration runs', () => {
   const t = useTestApp();
@@ -21,7 +21,6 @@ describe('calibration runs', () => {
     siteA1 = t.seed.sites.A1.id;
   });
 
-  const as = async (user: UserKey) => t.authHeader(user);
   /** Until no run of site A1 waits or computes (asked through the API, as the client does). */
   async function calibrationIdle(): Promise<void> {
     for (let i = 0; i < 600; i++) {
@@ -47,9 +46,7 @@ describe('calibration runs', () => {
     ];
     const bodies: unknown[] = [];
     for (const [user, path] of reads) {
-      const response = await request(t.url)
-        .get(path)
-        .set(await as(user));
+      const response = await getAs(t, user, path);
       expect([path, response.status]).toEqual([path, 200]);
       // When the answer was made is no study data.
       const { generatedAt: _when, ...body } = response.body as Record<string, unknown>;
@@ -59,18 +56,14 @@ describe('calibration runs', () => {
   }
 
   async function runsOf(user: UserKey, siteId = siteA1): Promise<CalibrationRunView[]> {
-    const response = await request(t.url)
-      .get(`/api/sites/${siteId}/calibration-runs`)
-      .set(await as(user));
+    const response = await getAs(t, user, `/api/sites/${siteId}/calibration-runs`);
     expect(response.status).toBe(200);
     return response.body as CalibrationRunView[];
   }
 
   it('passes on a correct installation, with every value, versions and who ran it', async () => {
     const before = await studyViews();
-    const started = await request(t.url)
-      .post(`/api/sites/${siteA1}/calibration-runs`)
-      .set(await as('admin'));
+    const started = await postAs(t, 'admin', `/api/sites/${siteA1}/calibration-runs`);
     expect(started.status).toBe(201);
     expect(started.body).toMatchObject({ siteId: siteA1, siteCode: 'NORTH', state: 'queued' });
     await calibrationIdle();
@@ -113,9 +106,11 @@ describe('calibration runs', () => {
   });
 
   it('is kept in the audit trail: who started it, and the outcome with its values', async () => {
-    const response = await request(t.url)
-      .get('/api/audit?objectType=Calibration&sort=seq&order=asc')
-      .set(await as('monitor'));
+    const response = await getAs(
+      t,
+      'monitor',
+      '/api/audit?objectType=Calibration&sort=seq&order=asc',
+    );
     expect(response.status).toBe(200);
     const entries = (response.body as Page<AuditEntryView>).items;
     expect(entries.map((e) => e.action)).toEqual(['start', 'pass']);
@@ -125,36 +120,26 @@ describe('calibration runs', () => {
   });
 
   it('lets a technician run it for their own site only; analysts, monitors and coordinators may not start one', async () => {
-    const otherSite = await request(t.url)
-      .post(`/api/sites/${t.seed.sites.A2.id}/calibration-runs`)
-      .set(await as('technician'));
+    const otherSite = await postAs(
+      t,
+      'technician',
+      `/api/sites/${t.seed.sites.A2.id}/calibration-runs`,
+    );
     expect(otherSite.status).toBe(404);
-    const otherStudy = await request(t.url)
-      .post(`/api/sites/${siteA1}/calibration-runs`)
-      .set(await as('technicianB'));
+    const otherStudy = await postAs(t, 'technicianB', `/api/sites/${siteA1}/calibration-runs`);
     expect(otherStudy.status).toBe(404);
     for (const user of ['analyst', 'monitor', 'coordinator'] as const) {
-      const refused = await request(t.url)
-        .post(`/api/sites/${siteA1}/calibration-runs`)
-        .set(await as(user));
+      const refused = await postAs(t, user, `/api/sites/${siteA1}/calibration-runs`);
       expect([user, refused.status]).toEqual([user, 403]);
     }
-    const coordinatorRead = await request(t.url)
-      .get(`/api/sites/${siteA1}/calibration-runs`)
-      .set(await as('coordinator'));
+    const coordinatorRead = await getAs(t, 'coordinator', `/api/sites/${siteA1}/calibration-runs`);
     expect(coordinatorRead.status).toBe(403);
-    const otherStudyRead = await request(t.url)
-      .get(`/api/sites/${siteA1}/calibration-runs`)
-      .set(await as('analystB'));
+    const otherStudyRead = await getAs(t, 'analystB', `/api/sites/${siteA1}/calibration-runs`);
     expect(otherStudyRead.status).toBe(404);
-    const own = await request(t.url)
-      .post(`/api/sites/${siteA1}/calibration-runs`)
-      .set(await as('technician'));
+    const own = await postAs(t, 'technician', `/api/sites/${siteA1}/calibration-runs`);
     expect(own.status).toBe(201);
     // A second start while the first waits or computes is refused, naming the site.
-    const again = await request(t.url)
-      .post(`/api/sites/${siteA1}/calibration-runs`)
-      .set(await as('admin'));
+    const again = await postAs(t, 'admin', `/api/sites/${siteA1}/calibration-runs`);
     expect(again.status).toBe(409);
     expect(again.body.message).toMatch(/NORTH already has a calibration run/);
     await calibrationIdle();
@@ -164,26 +149,19 @@ describe('calibration runs', () => {
 
   it('stores a run as failed when the settings are mis-set, and shows it to analysts and monitors', async () => {
     // A deliberately wrong fixed band (14–18 Hz) leaves the 10 Hz alpha outside the filter.
-    const changed = await request(t.url)
-      .post(`/api/studies/${studyA}/analysis-settings`)
-      .set(await as('analyst'))
-      .send({
-        ...DEFAULT_ANALYSIS_SETTINGS,
-        bandHz: [14, 18],
-        reason: 'Calibration test: a band that misses alpha',
-      });
+    const changed = await postAs(t, 'analyst', `/api/studies/${studyA}/analysis-settings`, {
+      ...DEFAULT_ANALYSIS_SETTINGS,
+      bandHz: [14, 18],
+      reason: 'Calibration test: a band that misses alpha',
+    });
     expect(changed.status).toBe(201);
     const before = await studyViews();
-    const started = await request(t.url)
-      .post(`/api/sites/${siteA1}/calibration-runs`)
-      .set(await as('technician'));
+    const started = await postAs(t, 'technician', `/api/sites/${siteA1}/calibration-runs`);
     expect(started.status).toBe(201);
     await calibrationIdle();
 
     for (const user of ['analyst', 'monitor'] as const) {
-      const latest = await request(t.url)
-        .get(`/api/calibration-runs/latest?studyId=${studyA}`)
-        .set(await as(user));
+      const latest = await getAs(t, user, `/api/calibration-runs/latest?studyId=${studyA}`);
       expect(latest.status).toBe(200);
       const runs = latest.body as CalibrationRunView[];
       expect(runs.map((r) => [r.siteCode, r.state])).toEqual([['NORTH', 'failed']]);
@@ -196,21 +174,15 @@ describe('calibration runs', () => {
       expect(byKey.taskBaselineHz.passed).toBe(false);
       expect(Math.abs((byKey.taskBaselineHz.computed as number) - 10)).toBeGreaterThan(1);
     }
-    const analystB = await request(t.url)
-      .get('/api/calibration-runs/latest')
-      .set(await as('analystB'));
+    const analystB = await getAs(t, 'analystB', '/api/calibration-runs/latest');
     expect(analystB.body).toEqual([]);
-    const audit = await request(t.url)
-      .get('/api/audit?objectType=Calibration&action=fail')
-      .set(await as('monitor'));
+    const audit = await getAs(t, 'monitor', '/api/audit?objectType=Calibration&action=fail');
     expect((audit.body as Page<AuditEntryView>).items).toHaveLength(1);
     expect(await studyViews()).toEqual(before);
   });
 
   it('answers 400 for a malformed site id, and writes nothing', async () => {
-    const response = await request(t.url)
-      .post('/api/sites/not-a-uuid/calibration-runs')
-      .set(await as('admin'));
+    const response = await postAs(t, 'admin', '/api/sites/not-a-uuid/calibration-runs');
     expect(response.status).toBe(400);
     const rows = (await t.dataSource.query(
       'SELECT COUNT(*) AS n FROM "calibration_run"',

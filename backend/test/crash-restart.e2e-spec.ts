@@ -6,11 +6,8 @@
  * process of its own because jest's module sandbox makes generating the recordings ~30 times
  * slower. The full run (20 kills) and its figures are in docs/reliability.md.
  */
-import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { buildDistIfStale, REPO } from './helpers/built-dist';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { rmSync } from 'node:fs';
+import { builtCliReport } from './helpers/built-dist';
 import type { CrashTestReport } from '../src/robustness/crash/crash-test';
 import { formatCrashReport } from '../src/robustness/crash/crash-test';
 import type { UploadRaceResult } from '../src/robustness/crash/upload-race-probe';
@@ -19,27 +16,12 @@ describe('a server killed 3 times during uploads and computations', () => {
   let report: CrashTestReport;
 
   beforeAll(() => {
-    buildDistIfStale('backend/dist/main.js');
-    const out = mkdtempSync(join(tmpdir(), 'gyre-crash-report-'));
-    const json = join(out, 'report.json');
-    // Exit code 1 means a check failed: the report says which, and the tests below judge it.
-    const run = spawnSync(
-      process.execPath,
-      [
-        join(REPO, 'backend/dist/robustness/cli/crash-test.js'),
-        '--kills',
-        '3',
-        '--quick',
-        '--probe-upload-race',
-        '--json',
-        json,
-      ],
-      { encoding: 'utf8', timeout: 150_000 },
+    report = builtCliReport<CrashTestReport>(
+      'backend/dist/robustness/cli/crash-test.js',
+      ['--kills', '3', '--quick', '--probe-upload-race'],
+      150_000,
+      'the crash test',
     );
-    if (!existsSync(json))
-      throw new Error(`crash test gave no report:\n${run.stdout}\n${run.stderr}`);
-    report = JSON.parse(readFileSync(json, 'utf8')) as CrashTestReport;
-    rmSync(out, { recursive: true, force: true });
   }, 170_000);
 
   it('kills the server while work is in progress', () => {

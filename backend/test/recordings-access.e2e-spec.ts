@@ -74,6 +74,13 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
       request(t.url).get(path).set(auth);
     const post = (path: string, body: object) => (auth: Record<string, string>) =>
       request(t.url).post(path).set(auth).send(body);
+    /** `GET /recordings/:id<tail>` of the uploaded recording for each tail, all answered alike. */
+    const readsOfTheRecording = (tails: string[], expected: Record<UserKey, Expect>) =>
+      tails.map((tail) => ({
+        name: `GET /recordings/:id${tail}`,
+        expect: expected,
+        call: get(`/api/recordings/${recordingId}${tail}`),
+      }));
     let uploads = 0;
     // Uploads go to a visit of their own: the seeded visit already has its task recording.
     const uploadVisit = (
@@ -110,36 +117,8 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
         }),
         call: get('/api/recordings'),
       },
-      {
-        name: 'GET /recordings/:id',
-        expect: READ_RECORDING,
-        call: get(`/api/recordings/${recordingId}`),
-      },
-      {
-        name: 'GET /recordings/:id/file',
-        expect: READ_RECORDING,
-        call: get(`/api/recordings/${recordingId}/file`),
-      },
-      {
-        name: 'GET /recordings/:id/events',
-        expect: READ_RECORDING,
-        call: get(`/api/recordings/${recordingId}/events`),
-      },
-      {
-        name: 'GET /recordings/:id/quality',
-        expect: READ_RECORDING,
-        call: get(`/api/recordings/${recordingId}/quality`),
-      },
-      {
-        name: 'GET /recordings/:id/results',
-        expect: READ_RESULT,
-        call: get(`/api/recordings/${recordingId}/results`),
-      },
-      {
-        name: 'GET /recordings/:id/results/raster',
-        expect: READ_RESULT,
-        call: get(`/api/recordings/${recordingId}/results/raster`),
-      },
+      ...readsOfTheRecording(['', '/file', '/events', '/quality'], READ_RECORDING),
+      ...readsOfTheRecording(['/results', '/results/raster'], READ_RESULT),
       {
         name: 'GET /recordings/:id/results/curves',
         expect: READ_RESULT,
@@ -147,11 +126,7 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
           `/api/recordings/${recordingId}/results/curves?channel=${encodeURIComponent('EEG O1-REF')}`,
         ),
       },
-      {
-        name: 'GET /recordings/:id/runs',
-        expect: READ_RESULT,
-        call: get(`/api/recordings/${recordingId}/runs`),
-      },
+      ...readsOfTheRecording(['/runs'], READ_RESULT),
       {
         name: 'GET /studies/:id/analysis-settings',
         expect: READ_RESULT,

@@ -7,11 +7,8 @@
  * crash test, because jest's module sandbox makes generating recordings much slower. The
  * throughput figures of `npm run bench:workers` are in docs/scale-out.md.
  */
-import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { buildDistIfStale, REPO } from './helpers/built-dist';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { existsSync, rmSync } from 'node:fs';
+import { builtCliReport } from './helpers/built-dist';
 import { REDIS_SERVER } from '../src/remote-workers/redis-server-process';
 import type { ScaleReport } from '../src/remote-workers/scale/scale-scenario';
 
@@ -23,31 +20,12 @@ describe('twenty recordings computed by two worker processes, one of them killed
     if (!existsSync(REDIS_SERVER)) {
       throw new Error(`${REDIS_SERVER} is missing: apt-get install redis-server (as .ci/run does)`);
     }
-    buildDistIfStale('backend/dist/remote-workers/scale/scale-cli.js');
-    const out = mkdtempSync(join(tmpdir(), 'gyre-scale-report-'));
-    const json = join(out, 'report.json');
-    const run = spawnSync(
-      process.execPath,
-      [
-        join(REPO, 'backend/dist/remote-workers/scale/scale-cli.js'),
-        '--quick',
-        '--kill',
-        '--workers',
-        '2',
-        '--visits',
-        '10',
-        '--concurrency',
-        '1',
-        '--json',
-        json,
-      ],
-      { encoding: 'utf8', timeout: 200_000 },
-    );
-    if (!existsSync(json)) {
-      throw new Error(`the scale check gave no report:\n${run.stdout}\n${run.stderr}`);
-    }
-    report = (JSON.parse(readFileSync(json, 'utf8')) as ScaleReport[])[0];
-    rmSync(out, { recursive: true, force: true });
+    report = builtCliReport<ScaleReport[]>(
+      'backend/dist/remote-workers/scale/scale-cli.js',
+      ['--quick', '--kill', '--workers', '2', '--visits', '10', '--concurrency', '1'],
+      200_000,
+      'the scale check',
+    )[0];
   }, 230_000);
 
   it('computes all twenty exactly once: one run, one "compute" and one "ready" entry, one attempt each', () => {

@@ -101,30 +101,15 @@ const READ_CASES: [string, Case][] = [
       }),
     },
   ],
-  [
-    'GET /api/audit',
+  // The audit trail, its check and its export: admins and monitors only.
+  ...['/api/audit', '/api/audit/verify', '/api/audit/export.csv'].map((path): [string, Case] => [
+    `GET ${path}`,
     {
       method: 'get',
-      path: () => '/api/audit',
+      path: () => path,
       expect: everyone(403, { admin: 200, monitor: 200, monitorB: 200 }),
     },
-  ],
-  [
-    'GET /api/audit/verify',
-    {
-      method: 'get',
-      path: () => '/api/audit/verify',
-      expect: everyone(403, { admin: 200, monitor: 200, monitorB: 200 }),
-    },
-  ],
-  [
-    'GET /api/audit/export.csv',
-    {
-      method: 'get',
-      path: () => '/api/audit/export.csv',
-      expect: everyone(403, { admin: 200, monitor: 200, monitorB: 200 }),
-    },
-  ],
+  ]),
   [
     'GET /api/studies/:id/planned-visits (study A)',
     {

@@ -275,6 +275,23 @@ describe('study results exports', () => {
       .parse(binaryBody);
   }
 
+  /** A dated, never-cached download of study A: `gyre-<code>-<name>-YYYY-MM-DD.<ext>`. */
+  function expectStudyDownload(
+    response: request.Response,
+    contentType: RegExp,
+    name: string,
+    extension: 'csv' | 'zip',
+  ): void {
+    expect(response.status).toBe(200);
+    expect(response.headers['content-type']).toMatch(contentType);
+    expect(response.headers['content-disposition']).toMatch(
+      new RegExp(
+        `^attachment; filename="gyre-${t.seed.studies.A.code}-${name}-\\d{4}-\\d{2}-\\d{2}\\.${extension}"$`,
+      ),
+    );
+    expect(response.headers['cache-control']).toBe('no-store');
+  }
+
   beforeAll(async () => {
     t = await startTestApp();
     workDir = mkdtempSync(join(tmpdir(), 'gyre-exports-test-'));
@@ -343,14 +360,7 @@ describe('study results exports', () => {
 
   it('results.csv: every number equals the results API, doubts and schedule as columns', async () => {
     const response = await download(`/api/studies/${studyA}/results.csv`, 'analyst');
-    expect(response.status).toBe(200);
-    expect(response.headers['content-type']).toMatch(/^text\/csv/);
-    expect(response.headers['content-disposition']).toMatch(
-      new RegExp(
-        `^attachment; filename="gyre-${t.seed.studies.A.code}-results-\\d{4}-\\d{2}-\\d{2}\\.csv"$`,
-      ),
-    );
-    expect(response.headers['cache-control']).toBe('no-store');
+    expectStudyDownload(response, /^text\/csv/, 'results', 'csv');
     const body = response.body as Buffer;
     // RFC 4180: CRLF line ends.
     expect(body.toString('utf8').split('\r\n')[0]).toMatch(/^study_code,site_code,/);
@@ -507,13 +517,7 @@ describe('study results exports', () => {
 
   it('conditions.csv: one row per condition, the difference in columns, numbers as the results API', async () => {
     const response = await download(`/api/studies/${studyA}/conditions.csv`, 'analyst');
-    expect(response.status).toBe(200);
-    expect(response.headers['content-type']).toMatch(/^text\/csv/);
-    expect(response.headers['content-disposition']).toMatch(
-      new RegExp(
-        `^attachment; filename="gyre-${t.seed.studies.A.code}-conditions-\\d{4}-\\d{2}-\\d{2}\\.csv"$`,
-      ),
-    );
+    expectStudyDownload(response, /^text\/csv/, 'conditions', 'csv');
     const body = response.body as Buffer;
     const rows: Row[] = parse(body, { columns: true, record_delimiter: '\r\n' });
     expectConditionRows(rows, '');
@@ -549,14 +553,7 @@ describe('study results exports', () => {
 
   it('export.zip: a BIDS derivatives folder whose numbers equal the results API', async () => {
     const response = await download(`/api/studies/${studyA}/export.zip`, 'admin');
-    expect(response.status).toBe(200);
-    expect(response.headers['content-type']).toBe('application/zip');
-    expect(response.headers['content-disposition']).toMatch(
-      new RegExp(
-        `^attachment; filename="gyre-${t.seed.studies.A.code}-derivatives-\\d{4}-\\d{2}-\\d{2}\\.zip"$`,
-      ),
-    );
-    expect(response.headers['cache-control']).toBe('no-store');
+    expectStudyDownload(response, /^application\/zip$/, 'derivatives', 'zip');
     const zipPath = join(workDir, 'export.zip');
     writeFileSync(zipPath, response.body as Buffer);
     const out = join(workDir, 'unzipped');

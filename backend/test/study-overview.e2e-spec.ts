@@ -341,6 +341,15 @@ describe('study overview', () => {
   ): OverviewStat | undefined =>
     list.find((x) => x.measure === measure && x.plannedVisitId === pv && x.key === key);
 
+  /** n, mean (12 digits) and the 95 % interval (9 digits) of `values` as scipy computes them. */
+  const expectScipyInterval = (found: OverviewStat | undefined, values: number[]) => {
+    const [mean, low, high] = scipyInterval(values);
+    expect(found?.n).toBe(values.length);
+    expect(found?.mean).toBeCloseTo(mean, 12);
+    expect(found?.ciLow).toBeCloseTo(low, 9);
+    expect(found?.ciHigh).toBeCloseTo(high, 9);
+  };
+
   it('fills the completion matrix with the five states as docs/user-guide.md defines them', async () => {
     const response = await get('monitor');
     expect(response.status).toBe(200);
@@ -388,58 +397,57 @@ describe('study overview', () => {
     const o = (await get('admin')).body as StudyOverviewView;
     // Arm 1 at Baseline: P1 10.0, P2 10.4, P4 9.6 (P4's PAF itself is not in doubt, its Δf is).
     const arm1 = stat(o.byGroup, 'paf', s.pv1, s.g1);
-    const [mean, low, high] = scipyInterval([10.0, 10.4, 9.6]);
-    expect(arm1?.n).toBe(3);
-    expect(arm1?.mean).toBeCloseTo(mean, 12);
-    expect(arm1?.ciLow).toBeCloseTo(low, 9);
-    expect(arm1?.ciHigh).toBeCloseTo(high, 9);
+    expectScipyInterval(arm1, [10.0, 10.4, 9.6]);
     expect(arm1?.doubtful).toBe(2); // P1 (partial ROI) and P4 carry a doubt
     // Arm 2 at Baseline: nothing computed yet.
     expect(stat(o.byGroup, 'paf', s.pv1, s.g2)).toMatchObject({ n: 0, mean: null, ciLow: null });
     // No group: P5 alone: a mean, no interval.
     expect(stat(o.byGroup, 'cog', s.pv1, null)).toMatchObject({ n: 1, mean: 9.6, ciLow: null });
     // By site, Month 6 PAF at A1: P1 9.8 and P2 10.1.
-    const a1 = stat(o.bySite, 'paf', s.pv2, s.A1);
-    const [m2, lo2, hi2] = scipyInterval([9.8, 10.1]);
-    expect(a1?.n).toBe(2);
-    expect(a1?.mean).toBeCloseTo(m2, 12);
-    expect(a1?.ciLow).toBeCloseTo(lo2, 9);
-    expect(a1?.ciHigh).toBeCloseTo(hi2, 9);
+    expectScipyInterval(stat(o.bySite, 'paf', s.pv2, s.A1), [9.8, 10.1]);
     // Δf at Baseline in Arm 1: P1 −0.2 and P4 −0.5.
-    const [m3, lo3, hi3] = scipyInterval([-0.2, -0.5]);
-    expect(stat(o.byGroup, 'deltaF', s.pv1, s.g1)).toMatchObject({ n: 2 });
-    expect(stat(o.byGroup, 'deltaF', s.pv1, s.g1)?.mean).toBeCloseTo(m3, 12);
-    expect(stat(o.byGroup, 'deltaF', s.pv1, s.g1)?.ciLow).toBeCloseTo(lo3, 9);
-    expect(stat(o.byGroup, 'deltaF', s.pv1, s.g1)?.ciHigh).toBeCloseTo(hi3, 9);
+    expectScipyInterval(stat(o.byGroup, 'deltaF', s.pv1, s.g1), [-0.2, -0.5]);
     expect(cell(o, s.p1, s.pv1)).toMatchObject({ paf: 10.0, cog: 9.8, deltaF: -0.2 });
   });
 
   it('compares site quality: rejection rate, epochs dropped, line noise, phase slips, ROI channels lost', async () => {
     const o = (await get('monitor')).body as StudyOverviewView;
-    const site = (id: string) => o.siteQuality.find((q) => q.siteId === id);
+    /** The site's counts and shares exactly; its two averages to 12 digits. */
+    const expectSite = (id: string, exact: object, lineNoise: number, roiLost: number) => {
+      const site = o.siteQuality.find((q) => q.siteId === id);
+      expect(site).toMatchObject(exact);
+      expect(site?.lineNoiseRatio50Hz).toBeCloseTo(lineNoise, 12);
+      expect(site?.roiChannelsLost).toBeCloseTo(roiLost, 12);
+    };
     // A1: 6 overview uploads + the seed's none; P3's superseded one counts as an upload.
-    expect(site(s.A1)).toMatchObject({
-      uploads: 7,
-      rejected: 0,
-      rejectionRate: 0,
-      runs: 5,
-      epochsDroppedShare: 0.1,
-      phaseSlipShare: 0.02,
-      runsWithoutRoi: 0,
-    });
     // Line noise over runs that report it: (0.2 + 0.4) / 2; ROI channels lost (1 + 0·4) / 5.
-    expect(site(s.A1)?.lineNoiseRatio50Hz).toBeCloseTo(0.3, 12);
-    expect(site(s.A1)?.roiChannelsLost).toBeCloseTo(1 / 5, 12);
-    expect(site(s.A2)).toMatchObject({
-      uploads: 4,
-      rejected: 1,
-      rejectionRate: 0.25,
-      runs: 3,
-      epochsDroppedShare: 0.3,
-      runsWithoutRoi: 1,
-    });
-    expect(site(s.A2)?.lineNoiseRatio50Hz).toBeCloseTo(1.1, 12);
-    expect(site(s.A2)?.roiChannelsLost).toBeCloseTo(4 / 3, 12);
+    expectSite(
+      s.A1,
+      {
+        uploads: 7,
+        rejected: 0,
+        rejectionRate: 0,
+        runs: 5,
+        epochsDroppedShare: 0.1,
+        phaseSlipShare: 0.02,
+        runsWithoutRoi: 0,
+      },
+      0.3,
+      1 / 5,
+    );
+    expectSite(
+      s.A2,
+      {
+        uploads: 4,
+        rejected: 1,
+        rejectionRate: 0.25,
+        runs: 3,
+        epochsDroppedShare: 0.3,
+        runsWithoutRoi: 1,
+      },
+      1.1,
+      4 / 3,
+    );
   });
 
   it('answers 404 outside the caller’s study, 403 to roles without it, 400 for a bad id', async () => {

@@ -31,6 +31,12 @@ const signature = {
   meaning: SIGNATURE_MEANING,
 };
 
+/** The generated model with `changes` made to its task section. */
+function withTask(changes: Partial<TaskSection>): VisitReportModel {
+  const base = sampleVisitReportModel();
+  return sampleVisitReportModel({ task: { ...base.task!, ...changes } });
+}
+
 /** The text of one section: from its heading up to the next section's heading. */
 function section(text: string, heading: string, nextHeading: string): string {
   const start = text.indexOf(heading);
@@ -249,10 +255,9 @@ describe('renderVisitReport', () => {
   });
 
   it('refuses a non-finite headline number and a bad visit date', async () => {
-    const base = sampleVisitReportModel();
-    await expect(
-      renderVisitReport(sampleVisitReportModel({ task: { ...base.task!, deltaFHz: Number.NaN } })),
-    ).rejects.toThrow('Report field task.deltaFHz: found NaN, expected a finite number or null.');
+    await expect(renderVisitReport(withTask({ deltaFHz: Number.NaN }))).rejects.toThrow(
+      'Report field task.deltaFHz: found NaN, expected a finite number or null.',
+    );
     await expect(
       renderVisitReport(sampleVisitReportModel({ visit: { label: 'V1', date: '20/11/2026' } })),
     ).rejects.toThrow('Report field visit.date: found "20/11/2026", expected YYYY-MM-DD.');
@@ -297,12 +302,8 @@ describe('renderVisitReport', () => {
   });
 
   it('says "no reason recorded" when a replacement came without one', async () => {
-    const base = sampleVisitReportModel();
-    const text = await renderText(
-      sampleVisitReportModel({
-        task: { ...base.task!, source: { ...base.task!.source, replacementReason: '  ' } },
-      }),
-    );
+    const { source } = sampleVisitReportModel().task!;
+    const text = await renderText(withTask({ source: { ...source, replacementReason: '  ' } }));
     expect(text).toContain('replaces recording 5c2f8a61 (no reason recorded).');
   });
 
@@ -379,10 +380,7 @@ describe('renderVisitReport', () => {
   });
 
   it('prints a Δf that rounds to zero without a sign, and never a hyphen for minus', async () => {
-    const base = sampleVisitReportModel();
-    const text = await renderText(
-      sampleVisitReportModel({ task: { ...base.task!, deltaFHz: -0.0004, ciHz: [-0.0003, 0.2] } }),
-    );
+    const text = await renderText(withTask({ deltaFHz: -0.0004, ciHz: [-0.0003, 0.2] }));
     expect(text).toContain('Δf (post − baseline) 0.00 Hz (negative = slowing)');
     expect(text).toContain('95 % CI of mean Δf 0.00 to +0.20 Hz');
     expect(text).not.toContain('\u22120.00');
@@ -412,10 +410,9 @@ describe('renderVisitReport', () => {
   });
 
   it('refuses region-of-interest usage whose status or counts disagree with its lists', async () => {
-    const base = sampleVisitReportModel();
     const withUsage = (roiUsage: TaskSection['roiUsage']) =>
-      renderVisitReport(sampleVisitReportModel({ task: { ...base.task!, roiUsage } }));
-    const partial = base.task!.roiUsage;
+      renderVisitReport(withTask({ roiUsage }));
+    const partial = sampleVisitReportModel().task!.roiUsage;
     await expect(withUsage({ ...partial, status: 'complete' })).rejects.toThrow(
       'Report field task.roiUsage.status: found "complete", expected "partial" for 3 used and 2 ' +
         'left out.',
@@ -477,10 +474,7 @@ describe('renderVisitReport', () => {
     const DEPTH_HEADING = 'Task: conditions and cross-checks';
     let text: string;
     beforeAll(async () => {
-      const base = sampleVisitReportModel();
-      text = await renderText(
-        sampleVisitReportModel({ task: { ...base.task!, depth: SAMPLE_TASK_DEPTH } }),
-      );
+      text = await renderText(withTask({ depth: SAMPLE_TASK_DEPTH }));
     });
 
     it('gives Δf, CI, Wilcoxon p and trials per condition, rounded as on screen', () => {
@@ -524,15 +518,11 @@ describe('renderVisitReport', () => {
     });
 
     it('prints no warning when the estimates agree, and no section for a run without these', async () => {
-      const base = sampleVisitReportModel();
       const agreeing = await renderText(
-        sampleVisitReportModel({
-          task: {
-            ...base.task!,
-            depth: {
-              ...SAMPLE_TASK_DEPTH,
-              cycles: { ...SAMPLE_TASK_DEPTH.cycles!, disagreementHz: 0.05, disagrees: false },
-            },
+        withTask({
+          depth: {
+            ...SAMPLE_TASK_DEPTH,
+            cycles: { ...SAMPLE_TASK_DEPTH.cycles!, disagreementHz: 0.05, disagrees: false },
           },
         }),
       );
@@ -566,9 +556,7 @@ describe('renderVisitReport', () => {
   });
 
   it('refuses a gate percentile outside 1–90 and a non-finite condition Δf, naming the field', async () => {
-    const base = sampleVisitReportModel();
-    const withDepth = (depth: typeof SAMPLE_TASK_DEPTH) =>
-      renderVisitReport(sampleVisitReportModel({ task: { ...base.task!, depth } }));
+    const withDepth = (depth: typeof SAMPLE_TASK_DEPTH) => renderVisitReport(withTask({ depth }));
     await expect(
       withDepth({
         ...SAMPLE_TASK_DEPTH,

@@ -1,8 +1,6 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { validateRecording } from '../jobs/worker/validate-recording';
 import { writeEdf } from '../signal/edf';
+import { scratchFolder } from '../signal/testing/scratch-folder';
 import { edfShapes } from './fuzz/edf-corpus';
 import { fixedField } from '../signal/edf/testing/edf-field-layout';
 import { layoutOf, signalBytesIn } from './fuzz/edf-layout';
@@ -13,14 +11,8 @@ import { runFuzz } from './fuzz/fuzz-runner';
 import { CSV_FAMILY_WEIGHTS } from './fuzz/onset-csv-mutations';
 import { caseSeed, Rng } from './seeded-random';
 
-const dir = mkdtempSync(join(tmpdir(), 'gyre-fuzz-spec-'));
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-function fileOf(name: string, bytes: Uint8Array): string {
-  const path = join(dir, name);
-  writeFileSync(path, bytes);
-  return path;
-}
+const { write: fileOf, remove } = scratchFolder('gyre-fuzz-spec-');
+afterAll(remove);
 
 describe('seeded randomness', () => {
   it('gives the same draws for the same seed and unrelated seeds to neighbouring cases', () => {

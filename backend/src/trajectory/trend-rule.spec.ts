@@ -31,37 +31,26 @@ describe('trendOf: the study rule for a trend slope', () => {
     );
   });
 
-  it('gives none at 89 days: span-too-short, with the actual span', () => {
-    const trend = trendOf(
+  it.each([
+    [
+      'at 89 days: span-too-short, with the actual span',
       [
         { date: '2026-01-01', value: 10.0 },
         { date: '2026-02-15', value: 9.9 },
         { date: '2026-03-31', value: 9.7 },
       ],
-      RULE,
-    );
-    expect(trend).toEqual({
-      slopeHzPerYear: null,
-      reason: 'span-too-short',
-      visits: 3,
-      spanDays: 89,
-    });
-  });
-
-  it('gives none with 2 visits however far apart: too-few-visits, with the count', () => {
-    const trend = trendOf(
+      { reason: 'span-too-short', visits: 3, spanDays: 89 },
+    ],
+    [
+      'with 2 visits however far apart: too-few-visits, with the count',
       [
         { date: '2026-01-15', value: 10.0 },
         { date: '2026-07-16', value: 9.0 },
       ],
-      RULE,
-    );
-    expect(trend).toEqual({
-      slopeHzPerYear: null,
-      reason: 'too-few-visits',
-      visits: 2,
-      spanDays: 182,
-    });
+      { reason: 'too-few-visits', visits: 2, spanDays: 182 },
+    ],
+  ])('gives none %s', (_name, points, expected) => {
+    expect(trendOf(points, RULE)).toEqual({ slopeHzPerYear: null, ...expected });
   });
 
   it('names too few visits before a short span (two visits eleven days apart)', () => {

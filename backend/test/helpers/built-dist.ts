@@ -1,5 +1,6 @@
-import { execFileSync } from 'node:child_process';
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { execFileSync, spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 
 /** The repository root, for tests that run the built server or its command lines. */
@@ -34,4 +35,24 @@ export function buildDistIfStale(entry: string): void {
     cwd: REPO,
     stdio: 'inherit',
   });
+}
+
+/**
+ * Runs a built command line (`cli`, a file under the repository, rebuilt first when stale)
+ * with `args` and `--json <file>`, in a process of its own, and answers the JSON report it
+ * wrote. Its exit code is not judged (1 means a check failed): the report says which, and the
+ * tests judge it. `what` names the run when it writes no report.
+ */
+export function builtCliReport<T>(cli: string, args: string[], timeoutMs: number, what: string): T {
+  buildDistIfStale(cli);
+  const out = mkdtempSync(join(tmpdir(), 'gyre-cli-report-'));
+  const json = join(out, 'report.json');
+  const run = spawnSync(process.execPath, [join(REPO, cli), ...args, '--json', json], {
+    encoding: 'utf8',
+    timeout: timeoutMs,
+  });
+  if (!existsSync(json)) throw new Error(`${what} gave no report:\n${run.stdout}\n${run.stderr}`);
+  const report = JSON.parse(readFileSync(json, 'utf8')) as T;
+  rmSync(out, { recursive: true, force: true });
+  return report;
 }

@@ -113,15 +113,39 @@ describe('generateRestingRecording (generated data)', () => {
 describe('generateTaskRecording (generated data)', () => {
   const iafHz = 10.12;
   const deltaFHz = -0.6;
-  const task = generateTaskRecording({
-    seedKey: 'spec/task',
-    startDate: '2024-05-06T09:30:00',
-    trialCount: 48,
-    iafHz,
-    deltaFHz,
-    alphaAmplitudeUv: 20,
-  });
+  /** 48 trials at `iafHz`, slowing by `deltaFHz`, 20 µV alpha; `changes` on top. */
+  const taskRecording = (
+    seedKey: string,
+    changes: Partial<Parameters<typeof generateTaskRecording>[0]> = {},
+  ) =>
+    generateTaskRecording({
+      seedKey,
+      startDate: '2024-05-06T09:30:00',
+      trialCount: 48,
+      iafHz,
+      deltaFHz,
+      alphaAmplitudeUv: 20,
+      ...changes,
+    });
+  const task = taskRecording('spec/task');
   const file = scratch.write('task.edf', task.edf);
+  /** The largest |Fp1| (µV) in each window of the task recording, as numpy reads it. */
+  const fp1MaxUv = (windows: number[][]) =>
+    scipyReference<{ max_abs_uv: number[] }>({
+      op: 'window_max',
+      edf: file,
+      channel: 'Fp1',
+      windows_s: windows,
+    }).max_abs_uv;
+  /** Mean Δf after `onsetsS` over the ROI: scipy band-pass, Hilbert, median filters. */
+  const scipyDeltaFHz = (edf: string, onsetsS: number[]) =>
+    scipyReference<{ mean_delta_f_hz: number }>({
+      op: 'onset_delta_f',
+      edf,
+      roi: ROI,
+      onsets_s: onsetsS,
+      band: [iafHz - 2, iafHz + 2],
+    }).mean_delta_f_hz;
 
   it('writes every onset as an EDF+ annotation and in the CSV, inside the recording (Kemp & Olivan 2003 TALs)', () => {
     const summary = scipyReference<EdfSummary>({ op: 'edf_summary', edf: file });
@@ -142,13 +166,8 @@ describe('generateTaskRecording (generated data)', () => {
   });
 
   it('labels the onsets with the given conditions in turn, in the annotations and the CSV', () => {
-    const labelled = generateTaskRecording({
-      seedKey: 'spec/task-labels',
-      startDate: '2024-05-06T09:30:00',
+    const labelled = taskRecording('spec/task-labels', {
       trialCount: 5,
-      iafHz,
-      deltaFHz,
-      alphaAmplitudeUv: 20,
       onsetLabels: ['Tone', 'Word'],
     });
     const expected = ['Tone', 'Word', 'Tone', 'Word', 'Tone'];
@@ -165,59 +184,26 @@ describe('generateTaskRecording (generated data)', () => {
   it('keeps blinks between trials: Fp1 stays quiet inside every −1…+2 s epoch and blinks outside', () => {
     const epochs = task.onsetsS.map((t) => [t - 1, t + 2]);
     const gaps = task.onsetsS.slice(1).map((t, k) => [task.onsetsS[k] + 2, t - 1]);
-    const inside = scipyReference<{ max_abs_uv: number[] }>({
-      op: 'window_max',
-      edf: file,
-      channel: 'Fp1',
-      windows_s: epochs,
-    }).max_abs_uv;
-    const between = scipyReference<{ max_abs_uv: number[] }>({
-      op: 'window_max',
-      edf: file,
-      channel: 'Fp1',
-      windows_s: gaps,
-    }).max_abs_uv;
+    const inside = fp1MaxUv(epochs);
+    const between = fp1MaxUv(gaps);
     // Background and frontal alpha alone stay far below Gyre's ±100 µV rejection (docs/method.md §3).
     expect(Math.max(...inside)).toBeLessThan(50);
     expect(between.filter((v) => v > 60).length).toBeGreaterThan(5);
   });
 
   it('slows by the generated Δf after onset: scipy band-pass, Hilbert, median filters give it within 0.05 Hz', () => {
-    const { mean_delta_f_hz } = scipyReference<{ mean_delta_f_hz: number }>({
-      op: 'onset_delta_f',
-      edf: file,
-      roi: ROI,
-      onsets_s: task.onsetsS,
-      band: [iafHz - 2, iafHz + 2],
-    });
-    expect(Math.abs(mean_delta_f_hz - deltaFHz)).toBeLessThan(0.05);
+    expect(Math.abs(scipyDeltaFHz(file, task.onsetsS) - deltaFHz)).toBeLessThan(0.05);
   });
 
   it('has no onset change when Δf is 0 (the same measurement within 0.03 Hz of zero)', () => {
-    const stable = generateTaskRecording({
-      seedKey: 'spec/task-stable',
-      startDate: '2024-05-06T09:30:00',
-      trialCount: 48,
-      iafHz,
-      deltaFHz: 0,
-      alphaAmplitudeUv: 20,
-    });
-    const { mean_delta_f_hz } = scipyReference<{ mean_delta_f_hz: number }>({
-      op: 'onset_delta_f',
-      edf: scratch.write('task-stable.edf', stable.edf),
-      roi: ROI,
-      onsets_s: stable.onsetsS,
-      band: [iafHz - 2, iafHz + 2],
-    });
-    expect(Math.abs(mean_delta_f_hz)).toBeLessThan(0.03);
+    const stable = taskRecording('spec/task-stable', { deltaFHz: 0 });
+    const edf = scratch.write('task-stable.edf', stable.edf);
+    expect(Math.abs(scipyDeltaFHz(edf, stable.onsetsS))).toBeLessThan(0.03);
   });
 
   it('follows the designed instantaneous frequency when noise is off (scipy.signal.hilbert vs closed form)', () => {
-    const clean = generateTaskRecording({
-      seedKey: 'spec/task-clean',
-      startDate: '2024-05-06T09:30:00',
+    const clean = taskRecording('spec/task-clean', {
       trialCount: 20,
-      iafHz,
       deltaFHz: -0.8,
       // Large, so 16-bit quantisation (0.024 µV steps) adds little phase noise: raw IF multiplies it by fs/2π.
       alphaAmplitudeUv: 200,
@@ -249,16 +235,8 @@ describe('generateTaskRecording (generated data)', () => {
   });
 
   it('refuses onset intervals shorter than an epoch, naming the field', () => {
-    expect(() =>
-      generateTaskRecording({
-        seedKey: 'spec/bad',
-        startDate: '2024-05-06T09:30:00',
-        trialCount: 5,
-        iafHz,
-        deltaFHz,
-        alphaAmplitudeUv: 20,
-        interOnsetIntervalS: [2, 3],
-      }),
-    ).toThrow(/interOnsetIntervalS: 2 s found, at least 3 s expected/);
+    expect(() => taskRecording('spec/bad', { trialCount: 5, interOnsetIntervalS: [2, 3] })).toThrow(
+      /interOnsetIntervalS: 2 s found, at least 3 s expected/,
+    );
   });
 });

@@ -1,8 +1,6 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { writeEdf } from '../../signal/edf';
 import type { EdfWriteSpec } from '../../signal/edf';
+import { scratchFolder } from '../../signal/testing/scratch-folder';
 import { validateRecording } from './validate-recording';
 
 // Generated EDF+ files (Kemp et al. 1992; Kemp & Olivan 2003): 20 s of a 10 Hz tone on O1, O2.
@@ -25,13 +23,8 @@ const spec = (annotations: EdfWriteSpec['annotations']): EdfWriteSpec => ({
 });
 
 describe('validateRecording', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'gyre-validate-'));
-  afterAll(() => rmSync(dir, { recursive: true, force: true }));
-  const write = (name: string, bytes: Uint8Array): string => {
-    const path = join(dir, name);
-    writeFileSync(path, bytes);
-    return path;
-  };
+  const { write, remove } = scratchFolder('gyre-validate-');
+  afterAll(remove);
   const plain = write('plain.edf', writeEdf(spec([])));
   const annotated = write(
     'annotated.edf',

@@ -1,6 +1,4 @@
 import { createHash } from 'node:crypto';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { readEdf } from '../edf/edf-reader';
 import {
@@ -10,18 +8,14 @@ import {
   int16le,
   plainEdfParts,
 } from '../edf/testing/hand-built-edf';
+import { scratchFolder } from '../testing/scratch-folder';
 import { readEdfFile, SampleArena } from './read-edf-file';
 
 // Files are hand-built byte by byte to the EDF/EDF+ layout (Kemp et al. 1992; Kemp &
 // Olivan 2003), generated test data; the reference is `readEdf` on the whole file.
 describe('readEdfFile (streamed from disk)', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'gyre-read-edf-file-'));
-  afterAll(() => rmSync(dir, { recursive: true, force: true }));
-  const write = (name: string, bytes: Uint8Array): string => {
-    const path = join(dir, name);
-    writeFileSync(path, bytes);
-    return path;
-  };
+  const { dir, write, remove } = scratchFolder('gyre-read-edf-file-');
+  afterAll(remove);
 
   /** Plain EDF with three signals; O1 and ECG hold values outside their digital range. */
   function outOfRangeEdf(): Uint8Array {
