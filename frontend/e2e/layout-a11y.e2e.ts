@@ -239,6 +239,14 @@ describe('layout and accessibility of every screen, on a real server', () => {
     }
   }
 
+  /** A new page signed in as the study's `role`, its screens checked; the page, for more checks. */
+  async function signedInScreens(role: keyof typeof PEOPLE, list: Screen[]): Promise<Page> {
+    const page = await newPage();
+    await signInThroughPage(page, gyre.baseUrl, PEOPLE[role].email, '/');
+    await checkScreens(page, role, list);
+    return page;
+  }
+
   beforeAll(async () => {
     gyre = await startGyre();
     data = await setUpInventedStudy(gyre, PEOPLE);
@@ -282,9 +290,7 @@ describe('layout and accessibility of every screen, on a real server', () => {
     it(
       `the ${role}'s screens`,
       async () => {
-        const page = await newPage();
-        await signInThroughPage(page, gyre.baseUrl, PEOPLE[role].email, '/');
-        await checkScreens(page, role, list);
+        await signedInScreens(role, list);
       },
       SCREENS_TIMEOUT_MS,
     );
@@ -293,9 +299,7 @@ describe('layout and accessibility of every screen, on a real server', () => {
   it(
     "the analyst's screens, the skip link, the phone menu and a long name",
     async () => {
-      const page = await newPage();
-      await signInThroughPage(page, gyre.baseUrl, PEOPLE.analyst.email, '/');
-      await checkScreens(page, 'analyst', [
+      const page = await signedInScreens('analyst', [
         screens.home,
         screens.review,
         screens.participants,
@@ -374,9 +378,7 @@ describe('layout and accessibility of every screen, on a real server', () => {
   it(
     "the monitor's screens and the Participants site filter by keyboard",
     async () => {
-      const page = await newPage();
-      await signInThroughPage(page, gyre.baseUrl, PEOPLE.monitor.email, '/');
-      await checkScreens(page, 'monitor', [
+      const page = await signedInScreens('monitor', [
         screens.home,
         screens.participants,
         screens.participant,

@@ -47,6 +47,15 @@ describe('Review and Participants in Chromium, on a real server', () => {
   const signIn = (page: Page, email: string, next: string) =>
     signInThroughPage(page, run.gyre.baseUrl, email, next);
 
+  /** The results API's answer for one generated recording (`V1-task`, `V1-resting`, …). */
+  const resultsOf = (key: string) =>
+    api<RecordingResultsView>(
+      run.gyre.baseUrl,
+      analystToken,
+      'GET',
+      `/api/recordings/${recordings[key].id}/results`,
+    );
+
   /** Pixels of a canvas that are drawn on (alpha > 0), read back from the page. */
   async function drawnPixels(page: Page, figure: string): Promise<number> {
     return page.getByRole('figure', { name: figure }).evaluate((element) => {
@@ -97,18 +106,8 @@ describe('Review and Participants in Chromium, on a real server', () => {
 
   it('an analyst reviews a visit: every chart drawn, the numbers those of the API, and raises a flag', async () => {
     const visit = visits[0];
-    const task = await api<RecordingResultsView>(
-      run.gyre.baseUrl,
-      analystToken,
-      'GET',
-      `/api/recordings/${recordings['V1-task'].id}/results`,
-    );
-    const rest = await api<RecordingResultsView>(
-      run.gyre.baseUrl,
-      analystToken,
-      'GET',
-      `/api/recordings/${recordings['V1-resting'].id}/results`,
-    );
+    const task = await resultsOf('V1-task');
+    const rest = await resultsOf('V1-resting');
     expect(task.task).not.toBeNull();
     expect(rest.rest).not.toBeNull();
 
@@ -188,12 +187,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
       'error: Failed to load resource: the server responded with a status of 409 (Conflict)',
     ]);
     problems.length = before;
-    const unchanged = await api<RecordingResultsView>(
-      run.gyre.baseUrl,
-      analystToken,
-      'GET',
-      `/api/recordings/${recordings['V1-task'].id}/results`,
-    );
+    const unchanged = await resultsOf('V1-task');
     expect(unchanged.run.settingsVersion).toBe(1);
     expect(unchanged.run.staleSettings).toEqual(['post window 0.2–0.8 s → 0.2–0.9 s']);
 
@@ -205,12 +199,7 @@ describe('Review and Participants in Chromium, on a real server', () => {
       .getByTestId('settings-version-task')
       .getByText('version 2')
       .waitFor({ timeout: 240_000 });
-    const rerun = await api<RecordingResultsView>(
-      run.gyre.baseUrl,
-      analystToken,
-      'GET',
-      `/api/recordings/${recordings['V1-task'].id}/results`,
-    );
+    const rerun = await resultsOf('V1-task');
     expect(rerun.run.settingsVersion).toBe(2);
     expect(rerun.task?.postWindowS).toEqual([0.2, 0.9]);
     await expect(page.getByTestId('roi-delta-f').innerText()).resolves.toBe(

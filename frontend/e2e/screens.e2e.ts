@@ -18,7 +18,7 @@ import {
   resetToken,
   signInApi,
 } from './support/accounts';
-import { openBrowser, screenshot, watchConsole } from './support/browser';
+import { openBrowser, screenshot, watchConsole, openFromMainMenu } from './support/browser';
 import { writeRestingEdf, writeTruncatedEdf } from './support/edf-files';
 import { startGyre, type RunningGyre } from './support/gyre-server';
 import { RESEARCH_CAUTION } from './support/caution';
@@ -129,10 +129,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
 
   it('an admin invites a technician on Team, who accepts from the e-mailed link', async () => {
     const { page, problems } = await signedInHome('admin');
-    await page
-      .getByRole('navigation', { name: 'Main' })
-      .getByRole('link', { name: 'Team' })
-      .click();
+    await openFromMainMenu(page, 'Team');
     await page.getByText(PEOPLE.monitor.email).waitFor();
     await page.getByRole('button', { name: 'Invite someone' }).click();
     const dialog = page.getByRole('dialog');
@@ -189,10 +186,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
 
   it('a technician uploads an EDF+ file and sees it reach ready; a bad file is refused in plain words', async () => {
     const { page, problems } = await signedInHome('technician');
-    await page
-      .getByRole('navigation', { name: 'Main' })
-      .getByRole('link', { name: 'Intake' })
-      .click();
+    await openFromMainMenu(page, 'Intake');
     await page.getByRole('button', { name: 'Register a new participant' }).click();
     let dialog = page.getByRole('dialog');
     await dialog.getByLabel('Participant code').fill('ana lopez');
@@ -266,10 +260,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
       reason: FLAG_REASON,
     });
     const { page, problems } = await signedInHome('monitor');
-    await page
-      .getByRole('navigation', { name: 'Main' })
-      .getByRole('link', { name: 'Ledger' })
-      .click();
+    await openFromMainMenu(page, 'Ledger');
     await page.getByText('The trail is intact').waitFor();
     await page.getByLabel('Action').fill('raise');
     await page.getByTitle('raise', { exact: true }).click();
@@ -316,10 +307,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
       fingerprint: signOff.draftFingerprint,
     });
     const { page, problems } = await signedInHome('coordinator');
-    await page
-      .getByRole('navigation', { name: 'Main' })
-      .getByRole('link', { name: 'Reports' })
-      .click();
+    await openFromMainMenu(page, 'Reports');
     const row = page.getByRole('row').filter({ hasText: 'AC-0042' });
     await row.getByText(/^(Signed|Sent)$/).waitFor();
     const download = page.waitForEvent('download');
@@ -429,10 +417,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     );
     const { page, problems } = await newPage();
     await signIn(page, ADMIN.email);
-    await page
-      .getByRole('navigation', { name: 'Main' })
-      .getByRole('link', { name: 'Study set-up' })
-      .click();
+    await openFromMainMenu(page, 'Study set-up');
     // The only study may already be chosen; choosing it again changes nothing.
     await page.locator('#setup-study').click();
     await page
@@ -528,10 +513,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
   it('an analyst opens the Study overview: completion, site quality and the caution, at desktop and phone width', async () => {
     const { page, problems } = await newPage();
     await signIn(page, PEOPLE.analyst.email);
-    await page
-      .getByRole('navigation', { name: 'Main' })
-      .getByRole('link', { name: 'Study overview' })
-      .click();
+    await openFromMainMenu(page, 'Study overview');
     // antd puts a table's aria-label on its wrapper, so find it by the label itself.
     const matrix = page.locator('[aria-label="Completion matrix"]');
     await matrix.waitFor();
