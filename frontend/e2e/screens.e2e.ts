@@ -22,6 +22,7 @@ import { openBrowser, screenshot, watchConsole, openFromMainMenu } from './suppo
 import { writeRestingEdf, writeTruncatedEdf } from './support/edf-files';
 import { startGyre, type RunningGyre } from './support/gyre-server';
 import { RESEARCH_CAUTION } from './support/caution';
+import { expectFitsWindow } from './support/page-width';
 
 // Generated test accounts of an invented study.
 const ADMIN = { email: 'ada.admin@gyre.test', name: 'Ada Admin', password: E2E_PASSWORD };
@@ -366,33 +367,6 @@ describe('every screen of this part in Chromium, on a real server', () => {
     expect(problems).toEqual([]);
   });
 
-  /**
-   * What sticks out of the window sideways: the innermost elements whose right edge passes
-   * the window's width (empty when the page fits). Scroll boxes (wide tables) clip their
-   * content, so only what widens the page itself counts.
-   */
-  async function overflowsSideways(page: Page): Promise<string[]> {
-    return page.evaluate(() => {
-      const width = document.documentElement.clientWidth;
-      if (document.documentElement.scrollWidth <= width) return [];
-      const clipped = (el: Element): boolean => {
-        for (let up = el.parentElement; up !== null; up = up.parentElement) {
-          const style = getComputedStyle(up);
-          if (style.overflowX !== 'visible') return true;
-        }
-        return false;
-      };
-      return [...document.body.querySelectorAll('*')]
-        .filter((el) => el.getBoundingClientRect().right > width + 1 && !clipped(el))
-        .filter((el) => ![...el.children].some((c) => c.getBoundingClientRect().right > width + 1))
-        .slice(0, 5)
-        .map(
-          (el) =>
-            `${el.tagName.toLowerCase()}.${el.className}: ${(el.textContent ?? '').slice(0, 40)}`,
-        );
-    });
-  }
-
   const PHONE = { width: 390, height: 844 };
 
   it("the admin's Study set-up shows the visit schedule and takes a new planned visit", async () => {
@@ -449,14 +423,14 @@ describe('every screen of this part in Chromium, on a real server', () => {
       .getByRole('region', { name: 'Groups' })
       .getByRole('row', { name: new RegExp(group.name) });
     await groupRow.waitFor();
-    expect(await overflowsSideways(page)).toEqual([]);
+    await expectFitsWindow(page, 'Study set-up at 1280 px');
     const change = await groupRow.getByRole('button', { name: 'Change' }).boundingBox();
     expect(change).not.toBeNull();
     expect(change!.x + change!.width).toBeLessThanOrEqual(1280);
     await screenshot(page, 'study-setup-admin');
     await page.setViewportSize(PHONE);
     await schedule.getByRole('row', { name: /Month 6/ }).waitFor();
-    expect(await overflowsSideways(page)).toEqual([]);
+    await expectFitsWindow(page, 'Study set-up at 390 px');
     await screenshot(page, 'study-setup-admin-phone');
     expect(problems).toEqual([]);
   });
@@ -481,7 +455,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     ).resolves.toContain(RESEARCH_CAUTION);
     await screenshot(page, 'home-analyst-worklist');
     await page.setViewportSize(PHONE);
-    expect(await overflowsSideways(page)).toEqual([]);
+    await expectFitsWindow(page, 'Worklist at 390 px');
     await screenshot(page, 'home-analyst-worklist-phone');
     await page.setViewportSize({ width: 1280, height: 800 });
 
@@ -499,7 +473,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     await page.reload({ waitUntil: 'networkidle' });
     await page.getByRole('heading', { name: 'Review · AC-0042 · V1' }).waitFor();
     await page.getByText(/^Reviewed$/).waitFor();
-    expect(await overflowsSideways(page)).toEqual([]);
+    await expectFitsWindow(page, 'Review at 390 px');
     await screenshot(page, 'review-analyst-phone');
     await page.setViewportSize({ width: 1280, height: 800 });
 
@@ -530,7 +504,7 @@ describe('every screen of this part in Chromium, on a real server', () => {
     await page.setViewportSize(PHONE);
     await page.reload({ waitUntil: 'networkidle' });
     await matrix.waitFor();
-    expect(await overflowsSideways(page)).toEqual([]);
+    await expectFitsWindow(page, 'Study overview at 390 px');
     await screenshot(page, 'study-overview-analyst-phone');
     expect(problems).toEqual([]);
   });
