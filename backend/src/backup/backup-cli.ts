@@ -9,6 +9,7 @@ import { join, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import { createBackup } from './backup';
 import { runCommand } from './run-command';
+import { errorMessage } from '../common/errors/error-message';
 
 const USAGE =
   'Usage: npm run backup [-- --out DIR] [--data-dir DIR] [--include-mail]\n' +
@@ -31,7 +32,7 @@ async function main(argv: string[]): Promise<number> {
       allowPositionals: false,
     }));
   } catch (error) {
-    process.stderr.write(`${error instanceof Error ? error.message : String(error)}\n${USAGE}`);
+    process.stderr.write(`${errorMessage(error)}\n${USAGE}`);
     return 2;
   }
   if (values.help === true) {

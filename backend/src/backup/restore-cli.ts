@@ -10,6 +10,7 @@ import { resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import { restoreBackup } from './restore';
 import { runCommand } from './run-command';
+import { errorMessage } from '../common/errors/error-message';
 
 const USAGE =
   'Usage: npm run restore -- BACKUP_DIR --data-dir NEWDIR\n' +
@@ -26,7 +27,7 @@ async function main(argv: string[]): Promise<number> {
       allowPositionals: true,
     });
   } catch (error) {
-    process.stderr.write(`${error instanceof Error ? error.message : String(error)}\n${USAGE}`);
+    process.stderr.write(`${errorMessage(error)}\n${USAGE}`);
     return 2;
   }
   if (parsed.values.help === true) {

@@ -1,4 +1,5 @@
 import { BackupError } from './backup';
+import { errorMessage } from '../common/errors/error-message';
 
 /**
  * Runs `npm run backup` or `npm run restore`: the exit code `main` gives, or after a
@@ -17,9 +18,7 @@ export function runCommand(name: 'Backup' | 'Restore', main: () => Promise<numbe
         process.exitCode = error.kind === 'refused' ? 3 : 1;
         return;
       }
-      process.stderr.write(
-        `${name} failed: ${error instanceof Error ? error.message : String(error)}\n`,
-      );
+      process.stderr.write(`${name} failed: ${errorMessage(error)}\n`);
       process.exitCode = 1;
     },
   );

@@ -15,9 +15,8 @@ import { existsSync, mkdtempSync, openAsBlob, readFileSync, rmSync } from 'node:
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { AnalysisRunView, Page, RecordingView, RecordingState } from '@gyre/shared';
-import { DataSource } from 'typeorm';
 import { AuditEntry } from '../audit/audit-entry.entity';
-import { sqliteOptions } from '../database/database-options';
+import { openServerDatabase } from '../robustness/crash/server-database';
 import { seedCrashData } from '../robustness/crash/crash-seed';
 import { GyreClient } from '../robustness/crash/gyre-client';
 import { sleep, startServer, stopServer } from '../robustness/crash/server-process';
@@ -29,6 +28,7 @@ import {
   processResidentBytes,
   wallClockMs,
 } from './proc-usage';
+import { errorMessage } from '../common/errors/error-message';
 
 /** How often the server's CPU is read from /proc (costs the server nothing). */
 export const CPU_SAMPLE_INTERVAL_MS = 50;
@@ -84,11 +84,7 @@ export interface GyreRun {
 
 /** First time (ms) the audit trail shows the recording in each state. */
 async function stateTimes(dataDir: string, recordingId: string): Promise<Map<string, number>> {
-  const dataSource = new DataSource({
-    ...sqliteOptions(join(dataDir, 'gyre.sqlite')),
-    migrationsRun: false,
-  });
-  await dataSource.initialize();
+  const dataSource = await openServerDatabase(dataDir);
   try {
     const entries = await dataSource.getRepository(AuditEntry).find({
       where: { objectType: 'Recording', objectId: recordingId },
@@ -106,11 +102,7 @@ async function stateTimes(dataDir: string, recordingId: string): Promise<Map<str
 }
 
 async function seed(dataDir: string): Promise<Awaited<ReturnType<typeof seedCrashData>>> {
-  const dataSource = new DataSource({
-    ...sqliteOptions(join(dataDir, 'gyre.sqlite')),
-    migrationsRun: false,
-  });
-  await dataSource.initialize();
+  const dataSource = await openServerDatabase(dataDir);
   try {
     return await seedCrashData(dataSource, 1);
   } finally {
@@ -222,7 +214,7 @@ export async function measureGyreWholePath(edfPath: string): Promise<GyreRun> {
   } catch (error) {
     // The data folder goes with the run: keep the end of the server's log in the message.
     const log = existsSync(logFile) ? readFileSync(logFile, 'utf8').slice(-4000) : '';
-    const message = error instanceof Error ? error.message : String(error);
+    const message = errorMessage(error);
     throw new Error(`${message}\n--- end of the server log ---\n${log}`, { cause: error });
   } finally {
     await stopServer(server, 'SIGTERM');

@@ -1,20 +1,23 @@
-import { createHash, randomUUID } from 'node:crypto';
-import { createWriteStream } from 'node:fs';
-import { mkdir, unlink } from 'node:fs/promises';
+import { randomUUID } from 'node:crypto';
+import { mkdir } from 'node:fs/promises';
 import { join } from 'node:path';
-import { PassThrough, Readable, Transform } from 'node:stream';
-import { pipeline } from 'node:stream/promises';
+import { PassThrough, Readable } from 'node:stream';
 import { Inject, Injectable } from '@nestjs/common';
 import busboy from 'busboy';
 import type { Request } from 'express';
 import { Unzip, UnzipInflate } from 'fflate';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
-import { removeTempFiles, type MultiFileReceiver } from '../common/http/multi-file-import';
-import { IdentifyingFieldsBlanker } from '../recordings/upload/identifying-fields-blanker';
-import { parseBody, type ReceivedFile } from '../recordings/upload/multipart-upload';
+import {
+  removeTempFiles,
+  sharedByteMeter,
+  type MultiFileReceiver,
+} from '../common/http/multi-file-import';
+import { writeBlankedFile } from '../recordings/upload/blanked-file-writer';
+import { drainRequest, parseBody, type ReceivedFile } from '../recordings/upload/multipart-upload';
 import { BidsImportError, bidsImportError } from './bids-import.errors';
 import { safeRelativePath } from './bids-paths';
+import { errorMessage } from '../common/errors/error-message';
 
 /** A sidecar (TSV, JSON) is small: kept in memory up to this size. */
 const MAX_SIDECAR_BYTES = 4 * 1024 * 1024;
@@ -76,8 +79,7 @@ export class BidsImportReceiver implements MultiFileReceiver<ReceivedBidsUpload>
       }
       return received;
     } catch (error) {
-      request.unpipe();
-      request.resume();
+      drainRequest(request);
       await this.discard(received);
       if (error instanceof Refusal) throw bidsImportError(error.code, error.message, error.details);
       throw error;
@@ -106,7 +108,7 @@ export class BidsImportReceiver implements MultiFileReceiver<ReceivedBidsUpload>
     } catch (error) {
       throw new Refusal(
         BidsImportError.FormInvalid,
-        `Content-Type: '${contentType.slice(0, 200)}' found (${error instanceof Error ? error.message : String(error)}), 'multipart/form-data; boundary=…' expected`,
+        `Content-Type: '${contentType.slice(0, 200)}' found (${errorMessage(error)}), 'multipart/form-data; boundary=…' expected`,
       );
     }
     let failure: Error | null = null;
@@ -115,15 +117,8 @@ export class BidsImportReceiver implements MultiFileReceiver<ReceivedBidsUpload>
       if (!parser.destroyed) parser.destroy(failure);
     };
     const writes: Promise<void>[] = [];
-    let bodyBytes = 0;
     let unzippedBytes = 0;
-    const meter = (): Transform =>
-      new Transform({
-        transform(chunk: Buffer, _encoding, done) {
-          bodyBytes += chunk.byteLength;
-          done(bodyBytes > limit ? tooLarge('files', limit, 'BULK_UPLOAD_MAX_BYTES') : null, chunk);
-        },
-      });
+    const meter = sharedByteMeter(limit, () => tooLarge('files', limit, 'BULK_UPLOAD_MAX_BYTES'));
     /** One file of the folder or zip, by its path. */
     const take = (rawPath: string, stream: Readable): void => {
       const safe = safeRelativePath(rawPath);
@@ -147,7 +142,16 @@ export class BidsImportReceiver implements MultiFileReceiver<ReceivedBidsUpload>
           originalName: path.slice(path.lastIndexOf('/') + 1).slice(0, 255),
         };
         received.recordings.set(path, file);
-        writes.push(writeBlanked(stream, file, this.config.uploadMaxBytes, path).catch(fail));
+        const maxBytes = this.config.uploadMaxBytes;
+        writes.push(
+          writeBlankedFile(stream, tempPath, {
+            maxBytes,
+            tooLarge: () => tooLarge(path, maxBytes, 'UPLOAD_MAX_BYTES'),
+            stopAtLimit: true,
+          }).then((written) => {
+            Object.assign(file, written);
+          }, fail),
+        );
       } else if (SIDECAR_PATH.test(path)) {
         writes.push(
           collect(stream, path).then((bytes) => {
@@ -250,36 +254,6 @@ async function collect(stream: Readable, path: string): Promise<Buffer> {
   return Buffer.concat(chunks);
 }
 
-/** Streams a recording through the blanker and a SHA-256 into its temporary file. */
-async function writeBlanked(
-  stream: Readable,
-  file: ReceivedFile,
-  maxBytes: number,
-  path: string,
-): Promise<void> {
-  const hash = createHash('sha256');
-  const counter = new Transform({
-    transform(chunk: Buffer, _encoding, done) {
-      hash.update(chunk);
-      file.sizeBytes += chunk.byteLength;
-      done(file.sizeBytes > maxBytes ? tooLarge(path, maxBytes, 'UPLOAD_MAX_BYTES') : null, chunk);
-    },
-  });
-  try {
-    await pipeline(
-      stream,
-      new IdentifyingFieldsBlanker(),
-      counter,
-      createWriteStream(file.tempPath, { flags: 'wx', mode: 0o600 }),
-    );
-  } catch (error) {
-    stream.resume();
-    await unlink(file.tempPath).catch(() => undefined);
-    throw error;
-  }
-  file.sha256 = hash.digest('hex');
-}
-
 /**
  * Reads a zip as it streams in (fflate's `Unzip`: local file headers, stored or deflated
  * entries) and hands each file entry to `take` as a stream; directory entries are skipped.
@@ -330,7 +304,7 @@ async function readZip(
         ? error
         : new Refusal(
             BidsImportError.ArchiveInvalid,
-            `archive: ${error instanceof Error ? error.message : String(error)}; a readable zip file expected`,
+            `archive: ${errorMessage(error)}; a readable zip file expected`,
           );
     // Entries still being written end with the refusal, so nothing waits on them.
     for (const out of entries) if (!out.writableFinished) out.destroy(refusal);

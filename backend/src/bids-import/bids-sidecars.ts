@@ -1,5 +1,6 @@
 import { parse } from 'csv-parse/sync';
 import type { BidsBadChannel } from '@gyre/shared';
+import { errorMessage } from '../common/errors/error-message';
 
 /**
  * The sidecar files of an EEG-BIDS recording, read as the BIDS specification describes them
@@ -30,7 +31,7 @@ export function readTsv(
     }) as string[][];
   } catch (error) {
     throw new SidecarError(
-      `${file}: ${error instanceof Error ? error.message : String(error)}; a tab-separated file with one header row expected (BIDS tabular files)`,
+      `${file}: ${errorMessage(error)}; a tab-separated file with one header row expected (BIDS tabular files)`,
     );
   }
   if (records.length === 0)
@@ -133,9 +134,7 @@ export function readEegSidecar(bytes: Buffer, file: string): EegSidecar {
   try {
     json = JSON.parse(bytes.toString('utf8'));
   } catch (error) {
-    throw new SidecarError(
-      `${file}: ${error instanceof Error ? error.message : String(error)}; a JSON object expected`,
-    );
+    throw new SidecarError(`${file}: ${errorMessage(error)}; a JSON object expected`);
   }
   if (json === null || typeof json !== 'object' || Array.isArray(json)) {
     throw new SidecarError(`${file}: a JSON ${typeof json} found, a JSON object expected`);

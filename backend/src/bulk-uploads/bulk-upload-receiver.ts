@@ -1,18 +1,21 @@
-import { createHash, randomUUID } from 'node:crypto';
-import { createWriteStream } from 'node:fs';
+import { randomUUID } from 'node:crypto';
 import { mkdir, unlink } from 'node:fs/promises';
 import { basename, join } from 'node:path';
-import { PassThrough, Readable, Transform } from 'node:stream';
-import { pipeline } from 'node:stream/promises';
+import { Readable } from 'node:stream';
 import { Inject, Injectable } from '@nestjs/common';
 import busboy from 'busboy';
 import type { Request } from 'express';
 import type { AppConfig } from '../config/app.config';
 import { APP_CONFIG } from '../config/config.module';
-import { removeTempFiles, type MultiFileReceiver } from '../common/http/multi-file-import';
-import { parseBody, type ReceivedFile } from '../recordings/upload/multipart-upload';
-import { IdentifyingFieldsBlanker } from '../recordings/upload/identifying-fields-blanker';
+import {
+  removeTempFiles,
+  sharedByteMeter,
+  type MultiFileReceiver,
+} from '../common/http/multi-file-import';
+import { writeBlankedFile } from '../recordings/upload/blanked-file-writer';
+import { drainRequest, parseBody, type ReceivedFile } from '../recordings/upload/multipart-upload';
 import { BulkUploadsError, bulkUploadsError } from './bulk-uploads.errors';
+import { errorMessage } from '../common/errors/error-message';
 
 const MAX_MANIFEST_BYTES = 1024 * 1024;
 const MAX_ONSETS_CSV_BYTES = 4 * 1024 * 1024;
@@ -58,8 +61,7 @@ export class BulkUploadReceiver implements MultiFileReceiver<ReceivedBulkUpload>
     try {
       return await this.parse(request);
     } catch (error) {
-      request.unpipe();
-      request.resume();
+      drainRequest(request);
       if (error instanceof TooLarge) {
         throw bulkUploadsError(BulkUploadsError.TooLarge, error.message, {
           part: error.part,
@@ -107,7 +109,7 @@ export class BulkUploadReceiver implements MultiFileReceiver<ReceivedBulkUpload>
       });
     } catch (error) {
       throw new FormInvalid(
-        `Content-Type: '${contentType.slice(0, 200)}' found (${error instanceof Error ? error.message : String(error)}), 'multipart/form-data; boundary=…' expected`,
+        `Content-Type: '${contentType.slice(0, 200)}' found (${errorMessage(error)}), 'multipart/form-data; boundary=…' expected`,
       );
     }
     const received: ReceivedBulkUpload = {
@@ -117,7 +119,6 @@ export class BulkUploadReceiver implements MultiFileReceiver<ReceivedBulkUpload>
       repeatedNames: [],
     };
     let manifest: Buffer | null = null;
-    let totalBytes = 0;
     let failure: Error | null = null;
     const fail = (error: Error): void => {
       failure ??= error;
@@ -130,15 +131,10 @@ export class BulkUploadReceiver implements MultiFileReceiver<ReceivedBulkUpload>
     const tempPaths: string[] = [];
     const writes: Promise<void>[] = [];
     // Counts every byte of every part against BULK_UPLOAD_MAX_BYTES.
-    const totalMeter = (): Transform =>
-      new Transform({
-        transform(chunk: Buffer, _encoding, done) {
-          totalBytes += chunk.byteLength;
-          if (totalBytes > totalLimit)
-            done(new TooLarge('files', totalLimit, 'BULK_UPLOAD_MAX_BYTES'));
-          else done(null, chunk);
-        },
-      });
+    const totalMeter = sharedByteMeter(
+      totalLimit,
+      () => new TooLarge('files', totalLimit, 'BULK_UPLOAD_MAX_BYTES'),
+    );
 
     parser.on('field', (name: string) =>
       fail(
@@ -198,13 +194,14 @@ export class BulkUploadReceiver implements MultiFileReceiver<ReceivedBulkUpload>
         const path = join(tempDir, `${randomUUID()}.part`);
         tempPaths.push(path);
         writes.push(
-          writeBlanked(stream, path, totalMeter(), this.config.uploadMaxBytes, name).then(
-            (file) => {
-              // The name the file had, shown in Intake (recordings keep it, row-scoped).
-              received.recordings.set(name, { ...file, originalName: name });
-            },
-            stop,
-          ),
+          writeBlankedFile(stream, path, {
+            maxBytes: this.config.uploadMaxBytes,
+            tooLarge: () => new TooLarge(name, this.config.uploadMaxBytes, 'UPLOAD_MAX_BYTES'),
+            meter: totalMeter(),
+          }).then((file) => {
+            // The name the file had, shown in Intake (recordings keep it, row-scoped).
+            received.recordings.set(name, { tempPath: path, ...file, originalName: name });
+          }, stop),
         );
       },
     );
@@ -259,40 +256,6 @@ async function collect(
   if (total > maxBytes)
     throw new FormInvalid(`${part}: ${total} bytes found, ${expected} expected`);
   return Buffer.concat(chunks);
-}
-
-async function writeBlanked(
-  stream: Readable & { truncated?: boolean },
-  path: string,
-  meter: Transform,
-  maxBytes: number,
-  name: string,
-): Promise<ReceivedFile> {
-  const hash = createHash('sha256');
-  let sizeBytes = 0;
-  const counter = new PassThrough();
-  counter.on('data', (chunk: Buffer) => {
-    hash.update(chunk);
-    sizeBytes += chunk.byteLength;
-  });
-  try {
-    await pipeline(
-      stream,
-      meter,
-      new IdentifyingFieldsBlanker(),
-      counter,
-      createWriteStream(path, { flags: 'wx', mode: 0o600 }),
-    );
-  } catch (error) {
-    stream.resume();
-    await unlink(path).catch(() => undefined);
-    throw error;
-  }
-  if (stream.truncated || sizeBytes > maxBytes) {
-    await unlink(path).catch(() => undefined);
-    throw new TooLarge(name, maxBytes, 'UPLOAD_MAX_BYTES');
-  }
-  return { tempPath: path, sha256: hash.digest('hex'), sizeBytes };
 }
 
 /** C0 controls and DEL (RFC 5987 `filename*` can smuggle CR/LF past the header syntax). */

@@ -6,6 +6,7 @@ import {
 } from '@gyre/shared';
 import { GyreException } from '../common/errors/gyre.exception';
 import { BulkUploadsError, bulkUploadsError } from './bulk-uploads.errors';
+import { errorMessage } from '../common/errors/error-message';
 
 /** One data row of a manifest: its 1-based number and its cells (trimmed, '' when empty). */
 export interface ManifestRow {
@@ -29,9 +30,7 @@ export function parseManifest(bytes: Buffer, maxRows: number): ManifestRow[] {
       relax_column_count: false,
     }) as string[][];
   } catch (error) {
-    throw invalid(
-      `manifest: ${error instanceof Error ? error.message : String(error)}; a CSV file (RFC 4180) expected`,
-    );
+    throw invalid(`manifest: ${errorMessage(error)}; a CSV file (RFC 4180) expected`);
   }
   if (records.length === 0)
     throw invalid('manifest: an empty file found, a header and rows expected');

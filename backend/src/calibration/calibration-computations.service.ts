@@ -29,6 +29,7 @@ import {
   CALIBRATION_QUEUED,
   type CalibrationPayload,
 } from './calibration.service';
+import { threadErrorMessage } from '../common/errors/error-message';
 
 /** Either the checks of a finished computation or why it could not be computed. */
 type RunEnd = { checks: CalibrationCheckView[] } | { error: string };
@@ -100,10 +101,7 @@ export class CalibrationComputationsService implements OnApplicationBootstrap, O
     try {
       end = { checks: await this.compute(run) };
     } catch (error) {
-      // Errors cross the thread boundary as text; drop the class name piscina puts in front.
-      end = {
-        error: (error instanceof Error ? error.message : String(error)).replace(/^Error: /, ''),
-      };
+      end = { error: threadErrorMessage(error) };
     }
     if (this.stopping) return;
     await this.store(job, run, end);

@@ -8,6 +8,7 @@ import 'reflect-metadata';
 import { NestFactory } from '@nestjs/core';
 import { DemoModule } from './demo.module';
 import { DemoSeedService, FirstAdminInput } from './demo-seed.service';
+import { errorMessage } from '../common/errors/error-message';
 
 async function readStdin(): Promise<string> {
   const chunks: Buffer[] = [];
@@ -53,7 +54,7 @@ async function main(): Promise<number> {
 main().then(
   (code) => process.exit(code),
   (error: unknown) => {
-    process.stderr.write(`${error instanceof Error ? error.message : String(error)}\n`);
+    process.stderr.write(`${errorMessage(error)}\n`);
     process.exit(1);
   },
 );

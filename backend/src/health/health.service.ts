@@ -3,6 +3,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import { HealthReport } from '@gyre/shared';
 import { GYRE_VERSION } from '../version';
+import { errorMessage } from '../common/errors/error-message';
 
 @Injectable()
 export class HealthService {
@@ -28,7 +29,7 @@ export class HealthService {
         version: GYRE_VERSION,
         database: {
           reachable: false,
-          error: error instanceof Error ? error.message : String(error),
+          error: errorMessage(error),
         },
         migrations: { applied: 0, expected, pending: true },
       };

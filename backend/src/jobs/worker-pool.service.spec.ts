@@ -1,7 +1,6 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { bitExact } from '../signal/pipeline/testing/bit-exact';
+import { scratchFolder } from '../signal/testing/scratch-folder';
 import { defaultAnalyzeTask } from './default-analyze-task';
 import { writeGeneratedTaskEdf } from './testing/generated-task-edf';
 import { WorkerPoolService } from './worker-pool.service';
@@ -12,11 +11,11 @@ import type { AnalyzeTask } from './worker/worker-tasks';
 const SLOW_MS = 180_000;
 
 describe('WorkerPoolService.analyze: one recording on every analysis thread', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'gyre-pool-'));
+  const { dir, remove } = scratchFolder('gyre-pool-');
   const pool = new WorkerPoolService(2);
   afterAll(async () => {
     await pool.onModuleDestroy();
-    rmSync(dir, { recursive: true, force: true });
+    remove();
   });
   const taskFor = (name: string, seed: number): AnalyzeTask => {
     const file = writeGeneratedTaskEdf(join(dir, `${name}.edf`), {

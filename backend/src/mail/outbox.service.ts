@@ -11,6 +11,7 @@ import { MailContent } from './mail-templates';
 import { MailTransportService } from './mail-transport.service';
 import { OutboxMessage } from './outbox-message.entity';
 import { OutboxQueryDto } from './dto/outbox-query.dto';
+import { errorMessage } from '../common/errors/error-message';
 
 /**
  * After this many refusals by the SMTP server (5xx replies) a message is marked `failed` and
@@ -162,7 +163,7 @@ export class OutboxService implements OnModuleInit, OnModuleDestroy {
         }
       }
     } catch (error) {
-      const reason = error instanceof Error ? error.message : String(error);
+      const reason = errorMessage(error);
       const failed = attempts >= MAX_SEND_ATTEMPTS && isPermanentSmtpFailure(error);
       this.logger.warn(
         `Sending ${message.kind} to ${message.toAddress} failed (attempt ${attempts}): ${reason}`,

@@ -19,6 +19,7 @@ import {
 import type { AttemptRef } from '../remote-workers/remote-job';
 import { ComputationStepsService } from './computation-steps.service';
 import { RemoteComputationsService } from './remote-computations.service';
+import { threadErrorMessage } from '../common/errors/error-message';
 
 /** How long a task job waits before looking again for its visit's resting result. */
 const REST_WAIT_MS = 1000;
@@ -190,11 +191,7 @@ export class ComputationsService implements OnApplicationBootstrap, OnModuleDest
     } catch (error) {
       await progress.stop();
       if (this.stopping) return;
-      // Errors cross the thread boundary as text; drop the class name piscina puts in front.
-      const message = (error instanceof Error ? error.message : String(error)).replace(
-        /^Error: /,
-        '',
-      );
+      const message = threadErrorMessage(error);
       await this.steps.failAttempt(ref, message);
     }
   }

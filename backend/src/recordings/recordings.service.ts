@@ -52,6 +52,7 @@ import { RecordingsError, recordingsError } from './recordings.errors';
 import { kindMismatch, kindWarning } from './kind-check';
 import { formError, StoredUpload } from './upload/upload-receiver';
 import type { ReceivedFile } from './upload/multipart-upload';
+import { errorMessage } from '../common/errors/error-message';
 
 /** A file that passed the upload checks, ready to become a recording. */
 export interface AcceptedFileCheck {
@@ -149,7 +150,7 @@ export class RecordingsService {
         })
         .catch((error: unknown) => ({
           ok: false as const,
-          message: `The file could not be checked: ${error instanceof Error ? error.message : String(error)}`,
+          message: `The file could not be checked: ${errorMessage(error)}`,
           field: null,
           found: null,
           expected: null,
@@ -667,14 +668,7 @@ export class RecordingsService {
     kindConfirmed: boolean,
   ): Promise<RecordingView> {
     const storedFile = `${row.checksumSha256}.edf`;
-    const target = join(this.config.uploadsDir, storedFile);
-    await mkdir(this.config.uploadsDir, { recursive: true });
-    // Named by content: the same file in another visit is already there, byte for byte.
-    const exists = await stat(target).then(
-      () => true,
-      () => false,
-    );
-    if (!exists) await rename(upload.file.tempPath, target);
+    const placed = await this.storeByContent(upload.file.tempPath, row.checksumSha256);
     const superseded: string[] = [];
     let queued: Recording;
     try {
@@ -709,7 +703,7 @@ export class RecordingsService {
       });
     } catch (error) {
       // Nothing of a refused upload stays: the file goes unless another recording names it.
-      if (!exists) await this.removeIfUnreferenced(storedFile);
+      if (placed) await this.removeIfUnreferenced(storedFile);
       // Another upload of this kind was accepted for the visit meanwhile.
       if (!isUniqueViolation(error)) throw error;
       const rejection: RecordingRejection = {
@@ -791,7 +785,7 @@ export class RecordingsService {
       })
       .catch((error: unknown) => ({
         ok: false as const,
-        message: `The file could not be checked: ${error instanceof Error ? error.message : String(error)}`,
+        message: `The file could not be checked: ${errorMessage(error)}`,
       }));
     if (!outcome.ok) return { ok: false, code: RecordingsError.Rejected, message: outcome.message };
     const mismatch = kindMismatch(kind, outcome.facts.stimulusOnsetCount);
@@ -855,7 +849,9 @@ export class RecordingsService {
       await this.writes.run(async (tx) => {
         recordingIds = await options.write(tx);
         for (const check of options.checks) {
-          if (await this.storeCheckedFile(check)) placed.push(check.file.sha256);
+          if (await this.storeByContent(check.file.tempPath, check.file.sha256)) {
+            placed.push(check.file.sha256);
+          }
         }
       });
     } catch (error) {
@@ -869,17 +865,18 @@ export class RecordingsService {
   }
 
   /**
-   * Moves a checked file to `uploads/<checksum>.edf` (named by content: an identical stored
-   * file is kept). Returns whether this call put it there, so a rollback can take it away.
+   * Moves a checked file to `uploads/<checksum>.edf`, named by content: the same file in
+   * another visit is already there, byte for byte, and is kept. Returns whether this call put
+   * it there, so a rollback can take it away.
    */
-  private async storeCheckedFile(check: AcceptedFileCheck): Promise<boolean> {
-    const target = join(this.config.uploadsDir, `${check.file.sha256}.edf`);
+  private async storeByContent(tempPath: string, sha256: string): Promise<boolean> {
+    const target = join(this.config.uploadsDir, `${sha256}.edf`);
     await mkdir(this.config.uploadsDir, { recursive: true });
     const exists = await stat(target).then(
       () => true,
       () => false,
     );
-    if (!exists) await rename(check.file.tempPath, target);
+    if (!exists) await rename(tempPath, target);
     return !exists;
   }
 

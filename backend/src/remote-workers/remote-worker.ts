@@ -25,6 +25,7 @@ import {
 import { encodeResultBody } from './result-wire';
 import { WorkerApiClient, WorkerApiError } from './worker-api-client';
 import type { WorkerSettings } from './worker-settings';
+import { threadErrorMessage } from '../common/errors/error-message';
 
 /** Progress goes to the server at most this often per job. */
 const PROGRESS_INTERVAL_MS = 1000;
@@ -125,11 +126,7 @@ export class RemoteWorker {
           this.progressReporter(ref),
         );
       } catch (error) {
-        // Errors cross the thread boundary as text; drop the class name piscina puts in front.
-        const message = (error instanceof Error ? error.message : String(error)).replace(
-          /^Error: /,
-          '',
-        );
+        const message = threadErrorMessage(error);
         await this.postFailure(ref, message, job.id);
         this.log(`finished job ${job.id} in ${seconds()} s: computation failed (${message})`);
         return 'failed';

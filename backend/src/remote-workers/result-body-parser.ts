@@ -2,6 +2,7 @@ import { json } from 'express';
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { RemoteWorkersError, remoteWorkersError } from './remote-workers.errors';
 import { RESULT_CONTENT_TYPE } from './result-wire';
+import { errorMessage } from '../common/errors/error-message';
 
 /**
  * Parses posted results (their own content type, so the API's 100 kB JSON limit does not
@@ -22,7 +23,7 @@ export function resultBodyParser(limitBytes: number): RequestHandler {
           ),
         );
       }
-      const reason = error instanceof Error ? error.message : String(error);
+      const reason = errorMessage(error);
       return next(
         remoteWorkersError(
           RemoteWorkersError.ResultInvalid,

@@ -7,6 +7,7 @@
 import 'reflect-metadata';
 import { RemoteWorker } from './remote-worker';
 import { WORKER_USAGE, workerSettings, WorkerSettingsError } from './worker-settings';
+import { errorMessage } from '../common/errors/error-message';
 
 async function main(): Promise<void> {
   let settings;
@@ -55,9 +56,7 @@ async function main(): Promise<void> {
   try {
     await worker.start();
   } catch (error) {
-    process.stderr.write(
-      `gyre worker: ${error instanceof Error ? error.message : String(error)}\n`,
-    );
+    process.stderr.write(`gyre worker: ${errorMessage(error)}\n`);
     await worker.close(true).catch(() => undefined);
     process.exit(1);
   }

@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { errorMessage } from '../common/errors/error-message';
 
 /** The repository's `fonts/` folder, the same one the client is served from. */
 export const DEFAULT_FONTS_DIR = resolve(__dirname, '..', '..', '..', 'fonts');
@@ -135,7 +136,7 @@ export class ReportFonts {
         try {
           bytes = readFileSync(path);
         } catch (error: unknown) {
-          const why = error instanceof Error ? error.message : String(error);
+          const why = errorMessage(error);
           throw new Error(`Report font missing: expected ${path} (${why}).`, { cause: error });
         }
         fileCache.set(path, bytes);

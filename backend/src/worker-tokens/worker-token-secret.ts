@@ -1,4 +1,5 @@
-import { createHash, randomBytes, randomUUID, timingSafeEqual } from 'node:crypto';
+import { createHash, randomUUID, timingSafeEqual } from 'node:crypto';
+import { hashTokenSecret, newTokenSecret } from '../auth/token-secrets';
 
 /**
  * A worker token reads `gyre_wt_<id>.<secret>`: the prefix says what it is (and lets the
@@ -23,18 +24,18 @@ export interface NewWorkerToken {
 
 export function newWorkerToken(): NewWorkerToken {
   const id = randomUUID();
-  const secret = randomBytes(32).toString('base64url');
-  return { id, token: `${WORKER_TOKEN_PREFIX}${id}.${secret}`, secretHash: hashSecret(secret) };
+  const secret = newTokenSecret();
+  return {
+    id,
+    token: `${WORKER_TOKEN_PREFIX}${id}.${secret}`,
+    secretHash: hashTokenSecret(secret),
+  };
 }
 
 /** The id and secret of a presented token, or null when it is not a well-formed worker token. */
 export function parseWorkerToken(token: string): { id: string; secret: string } | null {
   const match = TOKEN.exec(token);
   return match === null ? null : { id: match[1], secret: match[2] };
-}
-
-function hashSecret(secret: string): string {
-  return createHash('sha256').update(secret, 'utf8').digest('hex');
 }
 
 /** Whether `secret` hashes to `storedHash`, in time that does not depend on where they differ. */

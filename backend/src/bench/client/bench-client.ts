@@ -16,8 +16,7 @@ import { loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import type { RecordingView } from '@gyre/shared';
 import { chromium } from 'playwright-core';
-import { DataSource } from 'typeorm';
-import { sqliteOptions } from '../../database/database-options';
+import { openServerDatabase } from '../../robustness/crash/server-database';
 import { machineDescription } from '../../robustness/cli/fuzz';
 import { CRASH_PASSWORD, seedCrashData } from '../../robustness/crash/crash-seed';
 import { GyreClient } from '../../robustness/crash/gyre-client';
@@ -107,11 +106,7 @@ async function main(): Promise<number> {
     args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--disable-background-networking'],
   });
   try {
-    const dataSource = new DataSource({
-      ...sqliteOptions(join(dataDir, 'gyre.sqlite')),
-      migrationsRun: false,
-    });
-    await dataSource.initialize();
+    const dataSource = await openServerDatabase(dataDir);
     const seed = await seedCrashData(dataSource, 1).finally(() => dataSource.destroy());
     const client = new GyreClient(server.url, seed.emails);
     await client.connect(server.url);

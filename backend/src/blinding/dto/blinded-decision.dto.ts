@@ -1,7 +1,7 @@
 import { ApiProperty } from '@nestjs/swagger';
-import { Transform } from 'class-transformer';
-import { IsIn, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsIn } from 'class-validator';
 import { BLINDED_DECISIONS, type BlindedDecision, type BlindedDecisionChange } from '@gyre/shared';
+import { WrittenReasonText } from '../../common/dto/text-fields';
 
 /** The analyst's decision on a blinded visit, with a written reason as a flag takes. */
 export class BlindedDecisionDto implements BlindedDecisionChange {
@@ -9,10 +9,6 @@ export class BlindedDecisionDto implements BlindedDecisionChange {
   @IsIn(BLINDED_DECISIONS, { message: `decision must be one of ${BLINDED_DECISIONS.join(', ')}` })
   decision: BlindedDecision;
 
-  @ApiProperty({ minLength: 10, example: 'Δf within ±0.1 Hz and the CI includes 0' })
-  @Transform(({ value }: { value: unknown }) => (typeof value === 'string' ? value.trim() : value))
-  @IsString()
-  @MinLength(10)
-  @MaxLength(2000)
+  @WrittenReasonText({ example: 'Δf within ±0.1 Hz and the CI includes 0' })
   reason: string;
 }

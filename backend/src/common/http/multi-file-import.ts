@@ -1,4 +1,5 @@
 import { unlink } from 'node:fs/promises';
+import { Transform } from 'node:stream';
 import type { Request, Response } from 'express';
 
 /** Reads a multi-file import's multipart body; `discard` removes what it left on disk. */
@@ -40,6 +41,21 @@ export async function runMultiFileImport<Received, Result extends { dryRun: bool
   } finally {
     await route.receiver.discard(received);
   }
+}
+
+/**
+ * Meters for the parts of one body: each one passes its bytes on and counts them against one
+ * shared `maxBytes`; the byte past it fails the part with `tooLarge()`.
+ */
+export function sharedByteMeter(maxBytes: number, tooLarge: () => Error): () => Transform {
+  let total = 0;
+  return () =>
+    new Transform({
+      transform(chunk: Buffer, _encoding, done) {
+        total += chunk.byteLength;
+        done(total > maxBytes ? tooLarge() : null, chunk);
+      },
+    });
 }
 
 /** Removes the temporary files a receiver wrote (a file already gone is not an error). */

@@ -1,11 +1,10 @@
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import {
   analyzeEdfRecording,
   readRecordingForAnalysis,
 } from '../../signal/pipeline/analyze-edf-recording';
 import { bitExact } from '../../signal/pipeline/testing/bit-exact';
+import { scratchFolder } from '../../signal/testing/scratch-folder';
 import { defaultAnalyzeTask } from '../default-analyze-task';
 import { writeGeneratedTaskEdf } from '../testing/generated-task-edf';
 import { layoutParts } from './analysis-parts';
@@ -62,8 +61,8 @@ describe('layoutParts', () => {
 });
 
 describe('runAnalysis in parts', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'gyre-parts-'));
-  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+  const { dir, remove } = scratchFolder('gyre-parts-');
+  afterAll(remove);
   // Oz (analysed, in the last part) and ECG (never decoded) hold samples outside their
   // digital range: the lead part alone must still report both, as reading every signal does.
   const file = writeGeneratedTaskEdf(join(dir, 'task.edf'), {

@@ -1,26 +1,10 @@
 import { createHash } from 'node:crypto';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { main } from '../../signal/cli/analyze';
+import { readFileSync } from 'node:fs';
 import { DEFAULT_ANALYSIS_SETTINGS } from '../../signal/pipeline/analysis-settings';
 import { syntheticEdf, syntheticTaskRecording } from '../../signal/synthetic/synthetic-eeg';
+import { analyzeCliReport } from '../../signal/testing/analyze-cli';
+import { scratchFolder } from '../../signal/testing/scratch-folder';
 import { runAnalysis } from './run-analysis';
-
-/** The CLI's JSON report for `argv` (run in-process). */
-async function cliReport(argv: string[]): Promise<Record<string, unknown>> {
-  let stdout = '';
-  const out = jest.spyOn(process.stdout, 'write').mockImplementation((chunk) => {
-    stdout += String(chunk);
-    return true;
-  });
-  try {
-    expect(await main(argv)).toBe(0);
-  } finally {
-    out.mockRestore();
-  }
-  return JSON.parse(stdout) as Record<string, unknown>;
-}
 
 /** JSON as the CLI prints it: typed arrays as arrays, NaN as null. */
 const asJson = (value: unknown): unknown =>
@@ -31,8 +15,8 @@ const asJson = (value: unknown): unknown =>
   );
 
 describe('runAnalysis (worker) and the analyze command line', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'gyre-run-'));
-  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+  const { write, remove } = scratchFolder('gyre-run-');
+  afterAll(remove);
 
   // Generated EDF+ task recording: Δf = −0.6 Hz by construction (see synthetic-eeg.ts), with
   // a non-10-10 signal (ECG) the worker never decodes.
@@ -44,8 +28,7 @@ describe('runAnalysis (worker) and the analyze command line', () => {
     onsetsS,
     seed: 12,
   });
-  const path = join(dir, 'task.edf');
-  writeFileSync(path, syntheticEdf(generated, { startDate: '2024-05-06T09:00:00' }));
+  const path = write('task.edf', syntheticEdf(generated, { startDate: '2024-05-06T09:00:00' }));
   const checksumSha256 = createHash('sha256').update(readFileSync(path)).digest('hex');
 
   it.each([
@@ -64,7 +47,13 @@ describe('runAnalysis (worker) and the analyze command line', () => {
         { filePath: path, checksumSha256, kind: 'task', csvOnsets: null, settings, iafHz },
         (p) => progress.push(p),
       );
-      const cli = await cliReport([path, '--kind', 'task', '--full', ...flags]);
+      const cli = await analyzeCliReport<Record<string, unknown>>([
+        path,
+        '--kind',
+        'task',
+        '--full',
+        ...flags,
+      ]);
       expect(cli.summary).toEqual(asJson(outcome.summary));
       expect(cli.series).toEqual(asJson(outcome.series));
       expect(progress[progress.length - 1]).toBeCloseTo(99, 9);

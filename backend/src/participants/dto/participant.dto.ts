@@ -1,16 +1,13 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { Transform } from 'class-transformer';
-import { IsOptional, IsString, IsUUID, Matches, MaxLength, ValidateIf } from 'class-validator';
+import { IsOptional, IsString, IsUUID, Matches, ValidateIf } from 'class-validator';
 import { CALENDAR_DATE_PATTERN, PARTICIPANT_CODE_PATTERN } from '@gyre/shared';
 import { IdUuid, OneOf, SearchText } from '../../common/dto/query-filters';
-import { CalendarDateText } from '../../common/dto/text-fields';
+import { AuditReasonText, CalendarDateText, Trimmed } from '../../common/dto/text-fields';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 const CODE_MESSAGE =
   'code must be a pseudonymous code: 3–24 upper-case letters and digits in hyphen-separated groups with at least one digit (e.g. AC-0042), never a name';
 
-const trimmed = ({ value }: { value: unknown }): unknown =>
-  typeof value === 'string' ? value.trim() : value;
 const DATE_MESSAGE = 'enrolmentDate must be a calendar date written YYYY-MM-DD';
 /** `null` clears the field; a missing field leaves it as it is. */
 const givenAndNotNull = (_: object, value: unknown): boolean =>
@@ -23,7 +20,7 @@ export class CreateParticipantDto {
   siteId?: string;
 
   @ApiProperty({ example: 'AC-0042', pattern: PARTICIPANT_CODE_PATTERN.source })
-  @Transform(trimmed)
+  @Trimmed()
   @IsString()
   @Matches(PARTICIPANT_CODE_PATTERN, { message: CODE_MESSAGE })
   code: string;
@@ -44,7 +41,7 @@ export class CreateParticipantDto {
 export class UpdateParticipantDto {
   @ApiPropertyOptional({ example: 'AC-0043', pattern: PARTICIPANT_CODE_PATTERN.source })
   @IsOptional()
-  @Transform(trimmed)
+  @Trimmed()
   @IsString()
   @Matches(PARTICIPANT_CODE_PATTERN, { message: CODE_MESSAGE })
   code?: string;
@@ -63,10 +60,7 @@ export class UpdateParticipantDto {
   @IsUUID()
   groupId?: string | null;
 
-  @ApiPropertyOptional({ description: 'Why the code changes; kept in the audit trail' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(2000)
+  @AuditReasonText({ description: 'Why the code changes; kept in the audit trail' })
   reason?: string;
 }
 

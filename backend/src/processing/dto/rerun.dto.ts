@@ -1,10 +1,5 @@
-import { ApiPropertyOptional } from '@nestjs/swagger';
-import { IsOptional, IsString, MaxLength } from 'class-validator';
+import { AuditReasonText } from '../../common/dto/text-fields';
 
 export class RerunDto {
-  @ApiPropertyOptional({ example: 'Settings v3: narrower band' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(2000)
-  reason?: string;
+  @AuditReasonText({ example: 'Settings v3: narrower band' }) reason?: string;
 }

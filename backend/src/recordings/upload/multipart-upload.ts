@@ -1,12 +1,12 @@
-import { createHash, randomUUID } from 'node:crypto';
-import { createWriteStream } from 'node:fs';
+import { randomUUID } from 'node:crypto';
 import { mkdir, unlink } from 'node:fs/promises';
 import type { IncomingMessage } from 'node:http';
 import { join } from 'node:path';
-import { PassThrough, Readable, Writable } from 'node:stream';
-import { finished, pipeline } from 'node:stream/promises';
+import { Readable, Writable } from 'node:stream';
+import { finished } from 'node:stream/promises';
 import busboy from 'busboy';
-import { IdentifyingFieldsBlanker } from './identifying-fields-blanker';
+import { writeBlankedFile } from './blanked-file-writer';
+import { errorMessage } from '../../common/errors/error-message';
 
 /** The recording as it landed in the temporary folder, patient and recording fields blanked. */
 export interface ReceivedFile {
@@ -107,7 +107,7 @@ export async function receiveUpload(
     // busboy refuses a Content-Type without a boundary at once, before reading anything.
     throw new UploadFormError(
       'Content-Type',
-      `'${contentType.slice(0, 200)}' (${messageOf(error)})`,
+      `'${contentType.slice(0, 200)}' (${errorMessage(error)})`,
       "'multipart/form-data; boundary=…' (RFC 7578 §4.1)",
     );
   }
@@ -163,9 +163,13 @@ export async function receiveUpload(
       const path = join(options.tempDir, `${randomUUID()}.part`);
       tempPath = path;
       writes.push(
-        writeRecording(stream, path, options).then(
+        writeBlankedFile(stream, path, {
+          maxBytes: options.maxRecordingBytes,
+          tooLarge: () =>
+            new UploadTooLargeError(options.recordingField, options.maxRecordingBytes),
+        }).then(
           (file) => {
-            recording = { ...file, originalName: plainFileName(info.filename) };
+            recording = { tempPath: path, ...file, originalName: plainFileName(info.filename) };
           },
           (error: Error) => failWrite(error),
         ),
@@ -252,14 +256,19 @@ function isClientError(error: Error | null): boolean {
   return error instanceof UploadFormError || error instanceof UploadTooLargeError;
 }
 
-function messageOf(error: unknown): string {
-  return error instanceof Error ? error.message : String(error);
+/**
+ * After a refused body: stops feeding the parser and drains, not keeps, the rest, so a client
+ * still sending gets the answer, not a reset.
+ */
+export function drainRequest(request: IncomingMessage): void {
+  request.unpipe();
+  request.resume();
 }
 
 /**
  * Feeds the request to the parser; resolves with the parser's error, or null once it has
  * read the whole form. Unlike `pipeline`, a parser failure does not destroy the request, so
- * the socket stays open for the 400 (the caller drains the rest of the body).
+ * the socket stays open for the 400 (the caller drains the rest of the body: `drainRequest`).
  */
 export async function parseBody(request: IncomingMessage, parser: Writable): Promise<Error | null> {
   request.once('error', (error) => parser.destroy(error));
@@ -295,36 +304,6 @@ function malformedBody(error: Error): UploadFormError {
     default:
       return new UploadFormError('multipart body', `'${error.message}'`, expected);
   }
-}
-
-async function writeRecording(
-  stream: Readable & { truncated?: boolean },
-  path: string,
-  options: ReceiveUploadOptions,
-): Promise<ReceivedFile> {
-  const hash = createHash('sha256');
-  let sizeBytes = 0;
-  const meter = new PassThrough();
-  meter.on('data', (chunk: Buffer) => {
-    hash.update(chunk);
-    sizeBytes += chunk.byteLength;
-  });
-  let truncated = false;
-  stream.on('limit', () => {
-    truncated = true;
-  });
-  await pipeline(
-    stream,
-    new IdentifyingFieldsBlanker(),
-    meter,
-    createWriteStream(path, { flags: 'wx', mode: 0o600 }),
-  );
-  // The limit is the largest size accepted: exactly UPLOAD_MAX_BYTES is fine, one more is not.
-  if (truncated || stream.truncated || sizeBytes > options.maxRecordingBytes) {
-    await unlink(path).catch(() => undefined);
-    throw new UploadTooLargeError(options.recordingField, options.maxRecordingBytes);
-  }
-  return { tempPath: path, sha256: hash.digest('hex'), sizeBytes };
 }
 
 async function collectSmallFile(

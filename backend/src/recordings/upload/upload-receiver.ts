@@ -9,6 +9,7 @@ import type { AppConfig } from '../../config/app.config';
 import { APP_CONFIG } from '../../config/config.module';
 import { RecordingsError, recordingsError } from '../recordings.errors';
 import {
+  drainRequest,
   ReceivedFile,
   receiveUpload,
   UploadFormError,
@@ -55,9 +56,7 @@ export class UploadReceiver {
         allowedFields: ['kind', 'confirmKind', 'replaces', 'replacementReason'],
       });
     } catch (error) {
-      // Drain, not keep, the rest: a client still sending then gets the answer, not a reset.
-      request.unpipe();
-      request.resume();
+      drainRequest(request);
       if (error instanceof UploadTooLargeError) {
         throw recordingsError(RecordingsError.TooLarge, error.message, {
           field: error.part,

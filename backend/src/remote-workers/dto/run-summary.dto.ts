@@ -117,6 +117,9 @@ const NullableNested = (type: () => new () => object): PropertyDecorator =>
 const NestedList = (type: () => new () => object, max: number): PropertyDecorator =>
   compose(IsArray(), ArrayMaxSize(max), ValidateNested({ each: true }), Type(type));
 
+/** A count: a whole number, 0 or more (samples, trials, points). */
+const Count = (): PropertyDecorator => compose(IsInt(), Min(0));
+
 /** A plain object of finite counts (`epochs.dropped`: reason → trials). */
 const CountRecord = (): PropertyDecorator =>
   ValidateBy({
@@ -181,12 +184,10 @@ class AmplitudeGateDto implements AmplitudeGateView {
   @NullableNumber()
   percentile: number | null;
 
-  @IsInt()
-  @Min(0)
+  @Count()
   excludedSamples: number;
 
-  @IsInt()
-  @Min(0)
+  @Count()
   totalSamples: number;
 }
 
@@ -204,8 +205,7 @@ class ChannelStatsWireDto extends OnsetStatsDto implements ChannelStatsView {
   inRoi: boolean;
 
   @ValidateIf((_o, value) => value !== null)
-  @IsInt()
-  @Min(0)
+  @Count()
   trials: number | null;
 
   @NullableNumber()
@@ -221,12 +221,10 @@ class ChannelStatsWireDto extends OnsetStatsDto implements ChannelStatsView {
 }
 
 class RoiStatsDto extends OnsetStatsDto implements NonNullable<RunSummary['roi']> {
-  @IsInt()
-  @Min(0)
+  @Count()
   trialsKept: number;
 
-  @IsInt()
-  @Min(0)
+  @Count()
   trialsTotal: number;
 }
 
@@ -268,12 +266,10 @@ class ConditionDifferenceDto implements ConditionDifferenceView {
 }
 
 class CycleEstimateDto extends DeltaFEstimateDto implements CycleEstimateView {
-  @IsInt()
-  @Min(0)
+  @Count()
   trialsUsed: number;
 
-  @IsInt()
-  @Min(0)
+  @Count()
   trialsTotal: number;
 
   @ValidateIf((_o, value) => value !== null)
@@ -292,12 +288,10 @@ class CycleEstimateDto extends DeltaFEstimateDto implements CycleEstimateView {
 }
 
 class EpochCountsDto {
-  @IsInt()
-  @Min(0)
+  @Count()
   total: number;
 
-  @IsInt()
-  @Min(0)
+  @Count()
   kept: number;
 
   @CountRecord()
@@ -320,12 +314,10 @@ class TaskSummaryDto implements NonNullable<RunSummary['task']> {
   @Labels()
   curveChannels: string[];
 
-  @IsInt()
-  @Min(0)
+  @Count()
   rasterTrials: number;
 
-  @IsInt()
-  @Min(0)
+  @Count()
   rasterPoints: number;
 
   @NestedList(() => ConditionStatsDto, MAX_TRIALS)

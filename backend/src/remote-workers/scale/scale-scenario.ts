@@ -13,7 +13,7 @@ import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { DataSource } from 'typeorm';
 import type { RecordingView } from '@gyre/shared';
-import { sqliteOptions } from '../../database/database-options';
+import { openServerDatabase } from '../../robustness/crash/server-database';
 import { CRASH_PASSWORD, seedCrashData } from '../../robustness/crash/crash-seed';
 import { GyreClient } from '../../robustness/crash/gyre-client';
 import { sleep, startServer, stopServer } from '../../robustness/crash/server-process';
@@ -90,11 +90,7 @@ export async function runScaleScenario(options: ScaleOptions): Promise<ScaleRepo
       REMOTE_CHECK_INTERVAL_MS: '2000',
     });
     log(`server ${server.url}, redis ${redis.url}, data ${dataDir}`);
-    dataSource = new DataSource({
-      ...sqliteOptions(join(dataDir, 'gyre.sqlite')),
-      migrationsRun: false,
-    });
-    await dataSource.initialize();
+    dataSource = await openServerDatabase(dataDir);
     const seed = await seedCrashData(dataSource, options.visits);
     const client = new GyreClient(server.url, seed.emails);
     await client.connect(server.url);

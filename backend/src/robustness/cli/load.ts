@@ -23,13 +23,13 @@ import { join, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import autocannon from 'autocannon';
 import type { Page, ParticipantView, RecordingView, RecordingResultsView } from '@gyre/shared';
-import { DataSource } from 'typeorm';
 import { createBackup } from '../../backup/backup';
-import { sqliteOptions } from '../../database/database-options';
+import { openServerDatabase } from '../crash/server-database';
 import { CRASH_PASSWORD, seedCrashData } from '../crash/crash-seed';
 import { sleep, startServer, stopServer } from '../crash/server-process';
 import { machineDescription } from './fuzz';
 import { LABELS_64, rest64Edf, task64Edf } from './load-recordings';
+import { errorMessage } from '../../common/errors/error-message';
 
 const JWT_SECRET = 'gyre-load-run-secret-0123456789abcdefghijklmnop';
 const BROWSER_ENCODINGS = 'gzip, deflate, br';
@@ -297,11 +297,7 @@ async function main(): Promise<number> {
     const stopped = signal === 'SIGTERM' || (profileDir !== null && code === 0);
     if (!stopped) console.error(`load: the server stopped (exit ${code}, ${signal})`);
   });
-  const dataSource = new DataSource({
-    ...sqliteOptions(join(dataDir, 'gyre.sqlite')),
-    migrationsRun: false,
-  });
-  await dataSource.initialize();
+  const dataSource = await openServerDatabase(dataDir);
   try {
     const seed = await seedCrashData(dataSource, participantCount);
     const technician = await signIn(server.url, seed.emails.technician);
@@ -414,9 +410,7 @@ if (require.main === module) {
     (error: unknown) => {
       // fetch names the network failure only in its cause (ECONNRESET, ECONNREFUSED, …).
       const cause = error instanceof Error && error.cause instanceof Error ? error.cause : null;
-      console.error(
-        `load: ${error instanceof Error ? error.message : String(error)}${cause === null ? '' : ` (${cause.message})`}`,
-      );
+      console.error(`load: ${errorMessage(error)}${cause === null ? '' : ` (${cause.message})`}`);
       process.exit(1);
     },
   );

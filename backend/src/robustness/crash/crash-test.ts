@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { DataSource } from 'typeorm';
-import { sqliteOptions } from '../../database/database-options';
+import { openServerDatabase } from './server-database';
 import { Rng } from '../seeded-random';
 import { CheckResult, checkAfterCrashes, countBy, isSettled } from './crash-checks';
 import { seedCrashData } from './crash-seed';
@@ -102,11 +102,7 @@ export async function runCrashTest(options: CrashTestOptions): Promise<CrashTest
   const rng = new Rng(options.seed);
   const visits = options.visits ?? options.kills * 4 + 12;
   let server: ServerProcess | null = await startServer(dataDir, JWT_SECRET, logFile);
-  const dataSource = new DataSource({
-    ...sqliteOptions(join(dataDir, 'gyre.sqlite')),
-    migrationsRun: false,
-  });
-  await dataSource.initialize();
+  const dataSource = await openServerDatabase(dataDir);
   let keep = options.keepData ?? false;
   try {
     const seed = await seedCrashData(dataSource, visits + PROBE_VISITS);

@@ -1,9 +1,6 @@
 import { ApiProperty, ApiPropertyOptional, PartialType } from '@nestjs/swagger';
-import { Transform } from 'class-transformer';
 import { IsInt, IsNotEmpty, IsOptional, IsString, Max, MaxLength, Min } from 'class-validator';
-
-const trimmed = ({ value }: { value: unknown }): unknown =>
-  typeof value === 'string' ? value.trim() : value;
+import { Trimmed } from '../../common/dto/text-fields';
 
 /** About 30 years: a schedule day beyond it is a typing error, not a protocol. */
 const MAX_DAY = 11_000;
@@ -13,7 +10,7 @@ export class CreatePlannedVisitDto {
     example: 'Week 12',
     description: 'Unique within the study; at most 40 characters',
   })
-  @Transform(trimmed)
+  @Trimmed()
   @IsString()
   @IsNotEmpty()
   @MaxLength(40)
@@ -49,7 +46,7 @@ export class UpdatePlannedVisitDto extends PartialType(CreatePlannedVisitDto) {}
 
 export class CreateStudyGroupDto {
   @ApiProperty({ example: 'Arm A', description: 'Unique within the study; at most 60 characters' })
-  @Transform(trimmed)
+  @Trimmed()
   @IsString()
   @IsNotEmpty()
   @MaxLength(60)
@@ -57,7 +54,7 @@ export class CreateStudyGroupDto {
 
   @ApiPropertyOptional({ example: 'Active training, twice a week' })
   @IsOptional()
-  @Transform(trimmed)
+  @Trimmed()
   @IsString()
   @MaxLength(2000)
   description?: string;

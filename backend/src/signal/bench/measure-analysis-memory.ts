@@ -32,13 +32,7 @@ import {
 } from '../pipeline/analyze-edf-recording';
 import { readEdfFile } from '../pipeline/read-edf-file';
 import { syntheticEdf, syntheticTaskRecording } from '../synthetic/synthetic-eeg';
-
-/** 64 labels of the 10-10 system (ACNS 2016). */
-const LABELS_64 = (
-  'Fp1 Fpz Fp2 AF7 AF3 AFz AF4 AF8 F7 F5 F3 F1 Fz F2 F4 F6 F8 FT7 FC5 FC3 FC1 FCz FC2 FC4 ' +
-  'FC6 FT8 T7 C5 C3 C1 Cz C2 C4 C6 T8 TP7 CP5 CP3 CP1 CPz CP2 CP4 CP6 TP8 P7 P5 P3 P1 Pz ' +
-  'P2 P4 P6 P8 PO7 PO3 POz PO4 PO8 O1 Oz O2 Iz F9 F10'
-).split(' ');
+import { TEN_TEN_64 } from '../synthetic/ten-ten-64';
 
 /** A task run with Gyre's default settings and no resting IAF (band 8–13 Hz). */
 const REQUEST: AnalysisRunRequest = {
@@ -55,7 +49,7 @@ function generate(path: string): void {
   const recording = syntheticTaskRecording({
     sampleRateHz: 500,
     durationS,
-    channelLabels: LABELS_64,
+    channelLabels: TEN_TEN_64,
     onsetsS,
     seed: 42,
   });

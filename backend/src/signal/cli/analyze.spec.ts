@@ -1,12 +1,12 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { writeEdf } from '../edf/edf-writer';
 import { bootstrapMeanInterval } from '../trials/onset-statistics';
 import { BOOTSTRAP_RESAMPLES, BOOTSTRAP_SEED } from '../pipeline/analysis-settings';
 import type { RunSummary } from '../pipeline/run-summary';
 import { syntheticTaskRecording } from '../synthetic/synthetic-eeg';
-import { main } from './analyze';
+import { analyzeCliReport, runAnalyzeCli as run } from '../testing/analyze-cli';
+import { scratchFolder } from '../testing/scratch-folder';
 import type { ConditionDifferenceView, CycleEstimateView } from '@gyre/shared';
 
 interface Report {
@@ -29,35 +29,11 @@ interface Report {
   series?: Record<string, (number | null)[]>;
 }
 
-/** Runs the CLI in-process and captures what it writes. */
-async function run(argv: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  let stdout = '';
-  let stderr = '';
-  const out = jest.spyOn(process.stdout, 'write').mockImplementation((chunk) => {
-    stdout += String(chunk);
-    return true;
-  });
-  const err = jest.spyOn(process.stderr, 'write').mockImplementation((chunk) => {
-    stderr += String(chunk);
-    return true;
-  });
-  try {
-    return { code: await main(argv), stdout, stderr };
-  } finally {
-    out.mockRestore();
-    err.mockRestore();
-  }
-}
-
-async function report(argv: string[]): Promise<Report> {
-  const { code, stdout, stderr } = await run(argv);
-  if (code !== 0) throw new Error(`analyze exited with ${code}: ${stderr}`);
-  return JSON.parse(stdout) as Report;
-}
+const report = analyzeCliReport<Report>;
 
 describe('analyze CLI', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'gyre-cli-'));
-  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+  const { dir, remove } = scratchFolder('gyre-cli-');
+  afterAll(remove);
 
   // Generated EDF+ task recording, written to the spec: the frequency is 10 Hz, and 9.4 Hz
   // from +0.2 to +0.8 s after each onset, so Δf = −0.6 Hz by construction.

@@ -11,7 +11,12 @@ import type { AnalysisComputationOptions } from './analysis-computation';
 import { AnalysisInputError } from './analysis-input-error';
 import { AnalysisPlan, analysedSignalIndices, planAnalysis } from './analysis-plan';
 import type { AnalysisSettings } from './analysis-settings';
-import type { AnalysisResult, OnsetInput, RecordingKindChoice } from './analysis.types';
+import type {
+  AnalysisContext,
+  AnalysisResult,
+  OnsetInput,
+  RecordingKindChoice,
+} from './analysis.types';
 import type { RecordingPart } from './analyze-channels';
 import { analyzeRecording } from './analyze-recording';
 import { EdfFileRead, readEdfFile, ReadEdfFileOptions } from './read-edf-file';
@@ -121,13 +126,7 @@ export function analyzeEdfRecording(
   const result = analyzeRecording(
     recording,
     request.settings,
-    {
-      kind: request.kind,
-      iafHz: request.iafHz,
-      onsets: request.onsets ?? undefined,
-      compareConditions: request.compareConditions ?? null,
-      onProgress: options.onProgress,
-    },
+    { ...contextOf(request), onProgress: options.onProgress },
     options.computation,
   );
   return { result, outcome: toAnalyzeOutcome(result, recording.warnings) };
@@ -145,17 +144,7 @@ export function planEdfAnalysis(
 ): AnalysisPlan {
   const ordinary = read.ordinarySignals ?? [];
   const signals = analysedSignalIndices(ordinary.map((s) => s.label)).map((i) => ordinary[i]);
-  return planAnalysis(
-    { ...recording, signals },
-    request.settings,
-    {
-      kind: request.kind,
-      iafHz: request.iafHz,
-      onsets: request.onsets ?? undefined,
-      compareConditions: request.compareConditions ?? null,
-    },
-    computation,
-  );
+  return planAnalysis({ ...recording, signals }, request.settings, contextOf(request), computation);
 }
 
 /** The decoded channels of a recording read with `channels` (a range), as a part of `plan`. */
@@ -174,5 +163,15 @@ export function edfRecordingPart(
   return {
     channels: Array.from({ length: count }, (_, i) => channels.from + i),
     signals: recording.signals,
+  };
+}
+
+/** What a run request tells the analysis about the recording it reads. */
+function contextOf(request: AnalysisRunRequest): AnalysisContext {
+  return {
+    kind: request.kind,
+    iafHz: request.iafHz,
+    onsets: request.onsets ?? undefined,
+    compareConditions: request.compareConditions ?? null,
   };
 }

@@ -1,18 +1,8 @@
 import { ApiPropertyOptional, PartialType } from '@nestjs/swagger';
-import {
-  IsBoolean,
-  IsInt,
-  IsOptional,
-  IsString,
-  Max,
-  MaxLength,
-  Min,
-  MinLength,
-} from 'class-validator';
-import { Transform } from 'class-transformer';
+import { IsBoolean, IsInt, IsOptional, IsString, Max, MaxLength, Min } from 'class-validator';
 import { DEFAULT_TREND_MIN_SPAN_DAYS, DEFAULT_TREND_MIN_VISITS } from '@gyre/shared';
 import { OneOf, SearchText } from '../../common/dto/query-filters';
-import { NameText, StudyCodeText } from '../../common/dto/text-fields';
+import { NameText, StudyCodeText, WrittenReasonText } from '../../common/dto/text-fields';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 export class CreateStudyDto {
@@ -55,15 +45,10 @@ export class CreateStudyDto {
 }
 
 export class UpdateStudyDto extends PartialType(CreateStudyDto) {
-  @ApiPropertyOptional({
-    minLength: 10,
+  @WrittenReasonText({
     description: 'Why (kept in the audit trail); required when blindedReview changes',
+    optional: true,
   })
-  @IsOptional()
-  @Transform(({ value }: { value: unknown }) => (typeof value === 'string' ? value.trim() : value))
-  @IsString()
-  @MinLength(10)
-  @MaxLength(2000)
   reason?: string;
 }
 

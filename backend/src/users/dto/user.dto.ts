@@ -1,17 +1,9 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import {
-  IsEmail,
-  IsIn,
-  IsOptional,
-  IsString,
-  IsUUID,
-  MaxLength,
-  ValidateIf,
-} from 'class-validator';
+import { IsEmail, IsIn, IsOptional, IsUUID, MaxLength, ValidateIf } from 'class-validator';
 import { ROLES, USER_STATES, type Role, type UserState } from '@gyre/shared';
 import { IdUuid, OneOf, SearchText } from '../../common/dto/query-filters';
-import { NameText, OptionalNameText } from '../../common/dto/text-fields';
+import { AuditReasonText, NameText, OptionalNameText } from '../../common/dto/text-fields';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
 
 const lowerTrimmed = ({ value }: { value: unknown }): unknown =>
@@ -69,11 +61,7 @@ export class UpdateUserDto {
   @IsIn(['active', 'deactivated'])
   state?: 'active' | 'deactivated';
 
-  @ApiPropertyOptional({ description: 'Why; kept in the audit trail' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(2000)
-  reason?: string;
+  @AuditReasonText() reason?: string;
 }
 
 export const USER_SORT_FIELDS = ['email', 'name', 'role', 'createdAt', 'lastSignInAt'] as const;

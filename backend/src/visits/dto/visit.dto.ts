@@ -1,5 +1,4 @@
 import { ApiProperty, ApiPropertyOptional, PartialType, PickType } from '@nestjs/swagger';
-import { Transform } from 'class-transformer';
 import {
   IsBoolean,
   IsNotEmpty,
@@ -10,11 +9,8 @@ import {
   ValidateIf,
 } from 'class-validator';
 import { IdUuid, OneOf } from '../../common/dto/query-filters';
-import { CalendarDateText } from '../../common/dto/text-fields';
+import { AuditReasonText, CalendarDateText, Trimmed } from '../../common/dto/text-fields';
 import { PageQueryDto } from '../../common/pagination/page-query.dto';
-
-const trimmed = ({ value }: { value: unknown }): unknown =>
-  typeof value === 'string' ? value.trim() : value;
 
 export class CreateVisitDto {
   @ApiProperty()
@@ -42,7 +38,7 @@ export class CreateVisitDto {
       "Unique per participant; required for an unscheduled visit, else the planned visit's name",
   })
   @IsOptional()
-  @Transform(trimmed)
+  @Trimmed()
   @IsString()
   @IsNotEmpty()
   @MaxLength(40)
@@ -64,11 +60,7 @@ export class UpdateVisitDto extends PartialType(
   @IsUUID()
   plannedVisitId?: string | null;
 
-  @ApiPropertyOptional({ description: 'Why; kept in the audit trail' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(2000)
-  reason?: string;
+  @AuditReasonText() reason?: string;
 }
 
 export const VISIT_SORT_FIELDS = ['visitDate', 'label', 'createdAt'] as const;
