@@ -1,17 +1,13 @@
 /** Versioned analysis settings per study: defaults, validation, new versions, audit. */
-import request from 'supertest';
 import type { AnalysisSettingsView } from '@gyre/shared';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { getAs, postAs } from './helpers/api-call';
+import { useTestApp } from './helpers/test-app';
 
 describe('analysis settings', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let path: string;
-  beforeAll(async () => {
-    t = await startTestApp();
+  beforeAll(() => {
     path = `/api/studies/${t.seed.studies.A.id}/analysis-settings`;
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   const valid = {
@@ -32,9 +28,7 @@ describe('analysis settings', () => {
   };
 
   it('starts at version 1 with the defaults of docs/method.md §2–3', async () => {
-    const response = await request(t.url)
-      .get(path)
-      .set(await t.authHeader('monitor'));
+    const response = await getAs(t, 'monitor', path);
     expect(response.status).toBe(200);
     expect(response.body).toMatchObject({
       version: 1,
@@ -101,21 +95,15 @@ describe('analysis settings', () => {
       /compareConditions must contain at least 2 elements/,
     ],
   ])('refuses %s (400, naming the field and value)', async (_name, change, message) => {
-    const response = await request(t.url)
-      .post(path)
-      .set(await t.authHeader('analyst'))
-      .send({ ...valid, ...change });
+    const response = await postAs(t, 'analyst', path, { ...valid, ...change });
     expect(response.status).toBe(400);
     expect(response.body.message).toMatch(message);
-    const current = await request(t.url)
-      .get(path)
-      .set(await t.authHeader('analyst'));
+    const current = await getAs(t, 'analyst', path);
     expect(current.body.version).toBe(1);
   });
 
   it('adds a version (audited with before, after and reason) and lists versions newest first', async () => {
-    const analyst = await t.authHeader('analyst');
-    const response = await request(t.url).post(path).set(analyst).send(valid);
+    const response = await postAs(t, 'analyst', path, valid);
     expect(response.status).toBe(201);
     const created = response.body as AnalysisSettingsView;
     expect(created).toMatchObject({
@@ -134,7 +122,7 @@ describe('analysis settings', () => {
         { field: 'compareConditions', before: null, after: ['faces', 'houses'] },
       ]),
     );
-    const stored = await request(t.url).get(path).set(analyst);
+    const stored = await getAs(t, 'analyst', path);
     expect(stored.body).toMatchObject({
       version: 2,
       amplitudeGatePercentile: 20,
@@ -176,17 +164,11 @@ describe('analysis settings', () => {
       compareConditions: ['faces', 'houses'],
     });
 
-    const versions = await request(t.url)
-      .get(`${path}/versions`)
-      .query({ pageSize: 1 })
-      .set(analyst);
+    const versions = await getAs(t, 'analyst', `${path}/versions`, { pageSize: 1 });
     expect(versions.status).toBe(200);
     expect(versions.body).toMatchObject({ total: 2, page: 1, pageSize: 1 });
     expect(versions.body.items[0].version).toBe(2);
-    const oldest = await request(t.url)
-      .get(`${path}/versions`)
-      .query({ order: 'asc' })
-      .set(analyst);
+    const oldest = await getAs(t, 'analyst', `${path}/versions`, { order: 'asc' });
     expect(oldest.body.items.map((s: AnalysisSettingsView) => s.version)).toEqual([1, 2]);
   });
 });

@@ -20,6 +20,7 @@ import {
   bdfTalBytes,
   int24le,
 } from '../src/signal/edf/testing/hand-built-bdf';
+import { acceptedUpload } from './helpers/accepted-upload';
 import { useTestApp } from './helpers/test-app';
 import {
   INVENTED_PATIENT_FIELD,
@@ -85,13 +86,7 @@ describe('a BDF+ recording through the upload API', () => {
   let accepted: RecordingView;
 
   beforeAll(async () => {
-    const response = await upload(t, 'technician', t.seed.visits.A1.id, {
-      kind: 'resting',
-      bytes: ORIGINAL,
-      fileName: 'rest.bdf',
-    });
-    expect(response.status).toBe(201);
-    accepted = response.body as RecordingView;
+    accepted = await acceptedUpload(t, { kind: 'resting', bytes: ORIGINAL, fileName: 'rest.bdf' });
   });
 
   it('is told apart from EDF by its bytes and described as BDF+C', () => {

@@ -26,8 +26,9 @@ import type {
 import { SIGNATURE_MEANING } from '@gyre/shared';
 import { auditEntries } from './helpers/audit-entries';
 import { binaryBody } from './helpers/binary-body';
+import { countOf } from './helpers/row-count';
 import { SEED_PASSWORD, type UserKey } from './helpers/seed';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import { syntheticRestEdf, upload, waitForState } from './recordings-fixtures';
 
 /** Invented names and dates that only the hidden fields carry (none occurs anywhere else). */
@@ -41,7 +42,7 @@ const CODE_PATTERN = /^B-[2-9A-HJKMNP-Z]{4}$/;
 type Header = { Authorization: string };
 
 describe('blinded review', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let visitId: string;
   let otherVisitId: string;
   let participantCode: string;
@@ -57,6 +58,15 @@ describe('blinded review', () => {
     const response = await request(t.url).get(path).set(header);
     expect({ path, status: response.status }).toEqual({ path, status });
     return response;
+  }
+
+  /** The caller's blinding decision on a visit (`POST /api/visits/:visitId/blinding/decision`). */
+  function decide(
+    header: Header,
+    body: { decision: string; reason: string },
+    visit = visitId,
+  ): request.Test {
+    return request(t.url).post(`/api/visits/${visit}/blinding/decision`).set(header).send(body);
   }
 
   async function worklist(header: Header): Promise<WorklistView> {
@@ -235,7 +245,6 @@ describe('blinded review', () => {
   }
 
   beforeAll(async () => {
-    t = await startTestApp();
     const study = t.seed.studies.A;
     const participant = t.seed.participants.A1;
     visitId = t.seed.visits.A1.id;
@@ -293,9 +302,6 @@ describe('blinded review', () => {
     // every time stamp of the visit's rows then carries the visit date.
     await stampOnTheDay(['recording', 'job', 'analysis_run', 'report', 'flag', 'visit_review']);
   }, 120_000);
-  afterAll(async () => {
-    await t.close();
-  });
 
   it('is off by default: the analyst sees the visit as it is', async () => {
     const study = (await get(await as('analyst'), `/api/studies/${t.seed.studies.A.id}`))
@@ -438,37 +444,26 @@ describe('blinded review', () => {
   });
 
   it('refuses a decision without a reason, and from a monitor', async () => {
-    const short = await request(t.url)
-      .post(`/api/visits/${visitId}/blinding/decision`)
-      .set(await as('analyst'))
-      .send({ decision: 'noFlag', reason: 'fine' });
+    const short = await decide(await as('analyst'), { decision: 'noFlag', reason: 'fine' });
     expect(short.status).toBe(400);
-    const wrong = await request(t.url)
-      .post(`/api/visits/${visitId}/blinding/decision`)
-      .set(await as('analyst'))
-      .send({ decision: 'maybe', reason: 'Nothing here to flag at all' });
+    const wrong = await decide(await as('analyst'), {
+      decision: 'maybe',
+      reason: 'Nothing here to flag at all',
+    });
     expect(wrong.status).toBe(400);
-    const monitor = await request(t.url)
-      .post(`/api/visits/${visitId}/blinding/decision`)
-      .set(await as('monitor'))
-      .send({ decision: 'noFlag', reason: 'Nothing here to flag at all' });
+    const monitor = await decide(await as('monitor'), {
+      decision: 'noFlag',
+      reason: 'Nothing here to flag at all',
+    });
     expect(monitor.status).toBe(403);
-    const rows = (await t.dataSource.query(
-      `SELECT COUNT(*) AS n FROM "visit_unblinding"`,
-    )) as Array<{
-      n: number;
-    }>;
-    expect(rows[0].n).toBe(0);
+    expect(await countOf(t, 'visit_unblinding')).toBe(0);
   });
 
   it('unblinds the visit for the deciding analyst only, audited, listed in the Ledger', async () => {
     const analyst = await as('analyst');
     const code = itemsOf(await worklist(analyst))[0].blindCode;
     const reason = 'PAF steady, no slowing to flag';
-    const decided = await request(t.url)
-      .post(`/api/visits/${visitId}/blinding/decision`)
-      .set(analyst)
-      .send({ decision: 'noFlag', reason });
+    const decided = await decide(analyst, { decision: 'noFlag', reason });
     expect(decided.status).toBe(201);
     expect(decided.body as VisitBlindingView).toMatchObject({
       visitId,
@@ -494,15 +489,9 @@ describe('blinded review', () => {
     expect(course.text).not.toContain(otherVisitId);
     expectNothingHidden(await reviewAnswers(secondAnalyst));
     // A second decision is refused and writes nothing.
-    const twice = await request(t.url)
-      .post(`/api/visits/${visitId}/blinding/decision`)
-      .set(analyst)
-      .send({ decision: 'flag', reason });
+    const twice = await decide(analyst, { decision: 'flag', reason });
     expect(twice.status).toBe(409);
-    const flags = (await t.dataSource.query(`SELECT COUNT(*) AS n FROM "flag"`)) as Array<{
-      n: number;
-    }>;
-    expect(flags[0].n).toBe(0);
+    expect(await countOf(t, 'flag')).toBe(0);
     // The audit row, and the monitor's Ledger answer with it.
     const rows = (await t.dataSource.query(
       `SELECT "actorId", "objectType", "objectId", "reason" FROM "audit_entry" WHERE "action" = 'unblind'`,
@@ -566,10 +555,10 @@ describe('blinded review', () => {
   });
 
   it('raises the flag with a "flag" decision, in the same transaction as the unblinding', async () => {
-    const decided = await request(t.url)
-      .post(`/api/visits/${visitId}/blinding/decision`)
-      .set(secondAnalyst)
-      .send({ decision: 'flag', reason: 'ROI Δf below the threshold, CI excludes 0' });
+    const decided = await decide(secondAnalyst, {
+      decision: 'flag',
+      reason: 'ROI Δf below the threshold, CI excludes 0',
+    });
     expect(decided.status).toBe(201);
     const view = decided.body as VisitBlindingView;
     expect(view.blinded).toBe(false);
@@ -655,10 +644,11 @@ describe('blinded review', () => {
     expect((await get(secondAnalyst, `/api/visits/${otherVisitId}`)).text).toContain(
       OTHER_VISIT_DATE,
     );
-    const decision = await request(t.url)
-      .post(`/api/visits/${otherVisitId}/blinding/decision`)
-      .set(secondAnalyst)
-      .send({ decision: 'noFlag', reason: 'Nothing here to flag at all' });
+    const decision = await decide(
+      secondAnalyst,
+      { decision: 'noFlag', reason: 'Nothing here to flag at all' },
+      otherVisitId,
+    );
     expect(decision.status).toBe(409);
   });
 });

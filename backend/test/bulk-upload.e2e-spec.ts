@@ -5,7 +5,7 @@
 import request from 'supertest';
 import type { BulkUploadReport, BulkUploadRowReport } from '@gyre/shared';
 import { importFootprint, sqlRows, uploadFolder } from './helpers/sqlite-rows';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { type TestApp, useTestApp } from './helpers/test-app';
 import type { UserKey } from './helpers/seed';
 import { syntheticRestEdf, syntheticTaskEdf } from './recordings-fixtures';
 
@@ -43,7 +43,7 @@ const rowOf = (report: BulkUploadReport, row: number): BulkUploadRowReport =>
   report.rows.find((r) => r.row === row) as BulkUploadRowReport;
 
 describe('bulk upload with a CSV manifest', () => {
-  let t: TestApp;
+  const t = useTestApp();
   // Distinct generated files (seeds differ, so their checksums do).
   const rest1 = syntheticRestEdf({ durationS: 20, seed: 31 });
   const rest2 = syntheticRestEdf({ durationS: 20, seed: 32 });
@@ -54,7 +54,6 @@ describe('bulk upload with a CSV manifest', () => {
   let week4Id: string;
 
   beforeAll(async () => {
-    t = await startTestApp();
     const admin = await t.authHeader('admin');
     const studyA = t.seed.studies.A.id;
     const create = async (name: string, targetDay: number) => {
@@ -77,9 +76,6 @@ describe('bulk upload with a CSV manifest', () => {
         .send({ enrolmentDate: '2026-01-01' });
       expect(res.status).toBe(200);
     }
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   const goodManifest = [
@@ -292,18 +288,12 @@ describe('bulk upload with a CSV manifest', () => {
 });
 
 describe('bulk upload limits', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp({
-      env: {
-        BULK_UPLOAD_MAX_ROWS: '2',
-        BULK_UPLOAD_MAX_BYTES: '100000',
-        UPLOAD_MAX_BYTES: '30000',
-      },
-    });
-  });
-  afterAll(async () => {
-    await t.close();
+  const t = useTestApp({
+    env: {
+      BULK_UPLOAD_MAX_ROWS: '2',
+      BULK_UPLOAD_MAX_BYTES: '100000',
+      UPLOAD_MAX_BYTES: '30000',
+    },
   });
 
   it('refuses more rows than BULK_UPLOAD_MAX_ROWS with 422 naming the limit', async () => {

@@ -26,9 +26,9 @@ import { AuditService } from '../src/audit/audit.service';
 import { PasswordHasherService } from '../src/auth/password-hasher.service';
 import { DemoSeedService } from '../src/demo/demo-seed.service';
 import { waitForMail } from './helpers/mail-catcher';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
-let t: TestApp;
+const t = useTestApp({ seed: false });
 let seeded: DemoSeedResult;
 const tokens = new Map<string, string>();
 
@@ -47,15 +47,15 @@ async function tokenOf(role: string, siteKey: string | null = null): Promise<str
   return token;
 }
 
-beforeAll(async () => {
-  t = await startTestApp({ seed: false });
+/** Runs the demo seeder's small study against this server, its first admin made in-process. */
+function seedSmallDemo(): Promise<DemoSeedResult> {
   const demo = new DemoSeedService(
     t.dataSource,
     t.app.get(AuditService),
     new PasswordHasherService(t.config),
     t.app.get(AccountsService),
   );
-  seeded = await seedDemo({
+  return seedDemo({
     baseUrl: t.url,
     dataDir: t.dataDir,
     signInUrl: t.config.publicUrl,
@@ -63,11 +63,11 @@ beforeAll(async () => {
     createFirstAdmin: (input) => demo.createFirstAdmin(input),
     resultTimeoutMs: 8 * 60_000,
   });
-}, 10 * 60_000);
+}
 
-afterAll(async () => {
-  await t?.close();
-});
+beforeAll(async () => {
+  seeded = await seedSmallDemo();
+}, 10 * 60_000);
 
 describe('demo seed (small version, generated data)', () => {
   it('seeds every upload, computes all but the one deliberately broken file', () => {
@@ -277,19 +277,7 @@ describe('demo seed (small version, generated data)', () => {
   });
 
   it('refuses to seed an installation that already has accounts, and changes nothing', async () => {
-    const demo = new DemoSeedService(
-      t.dataSource,
-      t.app.get(AuditService),
-      new PasswordHasherService(t.config),
-      t.app.get(AccountsService),
-    );
-    const again = await seedDemo({
-      baseUrl: t.url,
-      dataDir: t.dataDir,
-      signInUrl: t.config.publicUrl,
-      scenario: buildDemoScenario('small'),
-      createFirstAdmin: (input) => demo.createFirstAdmin(input),
-    });
+    const again = await seedSmallDemo();
     expect(again.status).toBe('not-empty');
     const analyst = await tokenOf('analyst');
     const response = await request(t.url)

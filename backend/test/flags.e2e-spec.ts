@@ -6,12 +6,12 @@ import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type { RecordingView, ReportView, TrajectoryView, VisitFlagView } from '@gyre/shared';
 import { Visit } from '../src/visits/visit.entity';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
 import { getAs, postAs } from './helpers/api-call';
 
 describe('flags, reports and trajectory', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let visit1: string;
   let visit2: string;
 
@@ -30,7 +30,6 @@ describe('flags, reports and trajectory', () => {
   }
 
   beforeAll(async () => {
-    t = await startTestApp();
     visit1 = t.seed.visits.A1.id;
     // A second, later visit of the same participant (generated test data).
     const at = new Date().toISOString();
@@ -47,9 +46,6 @@ describe('flags, reports and trajectory', () => {
     await computeVisit(visit1, 10, 41);
     await computeVisit(visit2, 9, 42);
   }, 120_000);
-  afterAll(async () => {
-    await t.close();
-  });
 
   it("shows the computation's suggestion and never raises a flag by itself", async () => {
     const response = await getAs(t, 'analyst', `/api/visits/${visit1}/flag`);

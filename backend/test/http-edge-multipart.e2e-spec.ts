@@ -87,6 +87,12 @@ const closing = Buffer.from(`--${BOUNDARY}--${CRLF}`, 'latin1');
 const EDF = Buffer.from(
   syntheticTaskEdf({ durationS: 10, channels: ['EEG O1-REF', 'EEG O2-REF'], onsetsS: [3, 6] }),
 );
+/** The EDF as the form's file part, its file name written into the header as given. */
+const edfPart = (fileName = 'r.edf'): Buffer =>
+  filePart(`Content-Disposition: form-data; name="file"; filename="${fileName}"`, EDF);
+/** The form as a browser sends it: the kind, the file, the closing boundary. */
+const WELL_FORMED_FORM = Buffer.concat([kindPart, edfPart(), closing]);
+const FORM_CONTENT_TYPE = `multipart/form-data; boundary=${BOUNDARY}`;
 
 describe('malformed multipart uploads (RFC 7578)', () => {
   const t = useTestApp();
@@ -139,11 +145,7 @@ describe('malformed multipart uploads (RFC 7578)', () => {
   it('a Content-Type without a boundary parameter (RFC 7578 §4.1)', async () => {
     const response = await expectRefused(
       'multipart/form-data',
-      Buffer.concat([
-        kindPart,
-        filePart('Content-Disposition: form-data; name="file"; filename="r.edf"', EDF),
-        closing,
-      ]),
+      WELL_FORMED_FORM,
       /^Content-Type: .*boundary/i,
     );
     expect(response.body.details.field).toBe('Content-Type');
@@ -154,57 +156,37 @@ describe('malformed multipart uploads (RFC 7578)', () => {
     const random = seededUniform(0x2545f491);
     const noise = Buffer.alloc(64 * 1024);
     for (let i = 0; i < noise.byteLength; i++) noise[i] = Math.floor(random() * 256);
-    await expectRefused(
-      `multipart/form-data; boundary=${BOUNDARY}`,
-      noise,
-      /^multipart body: .*closing boundary/,
-    );
+    await expectRefused(FORM_CONTENT_TYPE, noise, /^multipart body: .*closing boundary/);
   });
 
   it('a body cut off inside the file part, before the closing boundary', async () => {
-    const whole = Buffer.concat([
-      kindPart,
-      filePart('Content-Disposition: form-data; name="file"; filename="r.edf"', EDF),
-      closing,
-    ]);
     await expectRefused(
-      `multipart/form-data; boundary=${BOUNDARY}`,
-      whole.subarray(0, kindPart.byteLength + 2000),
+      FORM_CONTENT_TYPE,
+      WELL_FORMED_FORM.subarray(0, kindPart.byteLength + 2000),
       /^multipart body: a body that ends before its closing boundary found/,
     );
   });
 
   it('a body without its closing boundary line', async () => {
     await expectRefused(
-      `multipart/form-data; boundary=${BOUNDARY}`,
-      Buffer.concat([
-        kindPart,
-        filePart('Content-Disposition: form-data; name="file"; filename="r.edf"', EDF),
-      ]),
+      FORM_CONTENT_TYPE,
+      Buffer.concat([kindPart, edfPart()]),
       /closing boundary/,
     );
   });
 
   it('a file name containing CR LF breaks the part header', async () => {
     await expectRefused(
-      `multipart/form-data; boundary=${BOUNDARY}`,
-      Buffer.concat([
-        kindPart,
-        filePart('Content-Disposition: form-data; name="file"; filename="r\r\nb.edf"', EDF),
-        closing,
-      ]),
+      FORM_CONTENT_TYPE,
+      Buffer.concat([kindPart, edfPart('r\r\nb.edf'), closing]),
       /^multipart body: a malformed part header/,
     );
   });
 
   it('a file name whose CR LF starts another header line leaves no readable file part', async () => {
     const response = await expectRefused(
-      `multipart/form-data; boundary=${BOUNDARY}`,
-      Buffer.concat([
-        kindPart,
-        filePart('Content-Disposition: form-data; name="file"; filename="r\r\nX-Evil: 1.edf"', EDF),
-        closing,
-      ]),
+      FORM_CONTENT_TYPE,
+      Buffer.concat([kindPart, edfPart('r\r\nX-Evil: 1.edf'), closing]),
       /^file part 'file': none with a readable Content-Disposition header found/,
     );
     expect(response.body.details.field).toBe("file part 'file'");
@@ -212,7 +194,7 @@ describe('malformed multipart uploads (RFC 7578)', () => {
 
   it('a file name with CR LF percent-encoded in filename* (RFC 5987) is refused by name', async () => {
     const response = await expectRefused(
-      `multipart/form-data; boundary=${BOUNDARY}`,
+      FORM_CONTENT_TYPE,
       Buffer.concat([
         kindPart,
         filePart(
@@ -229,13 +211,8 @@ describe('malformed multipart uploads (RFC 7578)', () => {
   it('parts beyond the form’s 6 (say, with no readable Content-Disposition) are refused, not dropped', async () => {
     const nameless = part(['Content-Type: text/plain'], 'x');
     const response = await expectRefused(
-      `multipart/form-data; boundary=${BOUNDARY}`,
-      Buffer.concat([
-        ...Array.from({ length: 6 }, () => nameless),
-        kindPart,
-        filePart('Content-Disposition: form-data; name="file"; filename="r.edf"', EDF),
-        closing,
-      ]),
+      FORM_CONTENT_TYPE,
+      Buffer.concat([...Array.from({ length: 6 }, () => nameless), WELL_FORMED_FORM]),
       /^parts: more than 6 parts found/,
     );
     expect(response.body.details.field).toBe('parts');
@@ -244,7 +221,7 @@ describe('malformed multipart uploads (RFC 7578)', () => {
   it('a 4 MB body whose first part header is broken still gets its 400 (the rest is drained, not reset)', async () => {
     const big = Buffer.alloc(4 * 1024 * 1024, 0x41);
     await expectRefused(
-      `multipart/form-data; boundary=${BOUNDARY}`,
+      FORM_CONTENT_TYPE,
       Buffer.concat([
         filePart('Content-Disposition: form-data; name="file"; filename="a\nb.edf"', big),
         closing,
@@ -258,12 +235,8 @@ describe('malformed multipart uploads (RFC 7578)', () => {
     const response = await rawPost(
       t.url,
       path,
-      { ...headers, 'Content-Type': `multipart/form-data; boundary=${BOUNDARY}` },
-      Buffer.concat([
-        kindPart,
-        filePart('Content-Disposition: form-data; name="file"; filename="r.edf"', EDF),
-        closing,
-      ]),
+      { ...headers, 'Content-Type': FORM_CONTENT_TYPE },
+      WELL_FORMED_FORM,
     );
     expect(response.status).toBe(201);
   });

@@ -9,6 +9,7 @@ import { join } from 'node:path';
 import request from 'supertest';
 import type { AnalysisRunView, JobView, RecordingView } from '@gyre/shared';
 import { currentSettings } from './helpers/analysis-settings';
+import { acceptedUpload } from './helpers/accepted-upload';
 import { useTestApp } from './helpers/test-app';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
 
@@ -104,12 +105,11 @@ describe('job queue', () => {
   });
 
   it('re-runs a whole visit with a new settings version, recorded in each run; task band follows the resting IAF', async () => {
-    const rest = await upload(t, 'technician', t.seed.visits.A1.id, {
+    const rest = await acceptedUpload(t, {
       kind: 'resting',
       bytes: syntheticRestEdf({ durationS: 60, peakHz: 9.5 }),
     });
-    expect(rest.status).toBe(201);
-    await waitForState(t, 'technician', (rest.body as RecordingView).id, ['ready']);
+    await waitForState(t, 'technician', rest.id, ['ready']);
     // The task follows the new resting IAF by itself; wait for that before re-running.
     await t.computationsIdle();
     const analyst = await t.authHeader('analyst');
@@ -136,9 +136,7 @@ describe('job queue', () => {
 
     const taskRuns = await request(t.url).get(`/api/recordings/${broken.id}/runs`).set(analyst);
     const latestTask = (taskRuns.body.items as AnalysisRunView[])[0];
-    const restRuns = await request(t.url)
-      .get(`/api/recordings/${(rest.body as RecordingView).id}/runs`)
-      .set(analyst);
+    const restRuns = await request(t.url).get(`/api/recordings/${rest.id}/runs`).set(analyst);
     const latestRest = (restRuns.body.items as AnalysisRunView[])[0];
     expect(latestRest.settingsVersion).toBe(2);
     // Generated truth: the resting alpha peak is at 9.5 Hz.

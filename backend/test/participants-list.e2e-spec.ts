@@ -11,13 +11,13 @@ import request from 'supertest';
 import type { Page, ParticipantListItem } from '@gyre/shared';
 import { SqliteReadsService } from '../src/common/database/sqlite-reads.service';
 import type { UserKey } from './helpers/seed';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import { newestSettingsId, writeWithoutForeignKeys } from './helpers/sqlite-rows';
 
 const at = (minute: number) => new Date(Date.UTC(2026, 0, 1, 0, minute)).toISOString();
 
 describe('participants list', () => {
-  let t: TestApp;
+  const t = useTestApp();
   const ids: Record<string, string> = {};
 
   const list = async (user: UserKey, query: Record<string, string> = {}) => {
@@ -35,7 +35,6 @@ describe('participants list', () => {
   };
 
   beforeAll(async () => {
-    t = await startTestApp();
     const study = t.seed.studies.A.id;
     const p1 = t.seed.participants.A1;
     const p2 = t.seed.participants.A2;
@@ -181,10 +180,6 @@ describe('participants list', () => {
       await report(v1, 'draft', 0);
       await report(v3, 'signed', 1);
     });
-  });
-
-  afterAll(async () => {
-    await t.close();
   });
 
   it('gives an analyst every row of the study with names, counts and latest values', async () => {

@@ -5,6 +5,7 @@
  */
 import request from 'supertest';
 import type { Page, RecordingView } from '@gyre/shared';
+import { acceptedUpload } from './helpers/accepted-upload';
 import { sqlRows } from './helpers/sqlite-rows';
 import { useTestApp } from './helpers/test-app';
 import { INVENTED_PATIENT_NAME, syntheticRestEdf, upload } from './recordings-fixtures';
@@ -15,14 +16,12 @@ describe('recording file names', () => {
   let rejected: RecordingView;
 
   beforeAll(async () => {
-    const good = await upload(t, 'technician', t.seed.visits.A1.id, {
+    accepted = await acceptedUpload(t, {
       kind: 'resting',
       bytes: syntheticRestEdf({ durationS: 20, seed: 71 }),
       // A browser on Windows may send the whole path; only the last segment is the name.
       fileName: 'C:\\exports\\A1-0001 V1 rest.edf',
     });
-    expect(good.status).toBe(201);
-    accepted = good.body as RecordingView;
     const whole = syntheticRestEdf({ durationS: 20, seed: 72 });
     // EDF spec (Kemp et al. 1992): header bytes + records × record size = file size; cut short.
     // As a task: the visit's resting slot is taken; the reader refuses the file before any kind check.

@@ -8,9 +8,10 @@
 import request from 'supertest';
 import type { RecordingView } from '@gyre/shared';
 import { currentSettings } from './helpers/analysis-settings';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { acceptedUpload } from './helpers/accepted-upload';
+import { useTestApp } from './helpers/test-app';
 import { UserKey } from './helpers/seed';
-import { syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
+import { syntheticTaskEdf, waitForState } from './recordings-fixtures';
 
 type Expect = 'ok' | 403 | 404;
 type Who = UserKey | 'anonymous';
@@ -47,7 +48,7 @@ const READ_RESULT = matrix({ analyst: 'ok', analystB: 404, monitor: 'ok', monito
 const ANALYST_ONLY = matrix({ analyst: 'ok', analystB: 404 });
 
 describe('access to recordings, analysis, flags, reports and trajectories', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let recordingId: string;
   let routes: Array<{
     name: string;
@@ -56,13 +57,11 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
   }>;
 
   beforeAll(async () => {
-    t = await startTestApp();
-    const uploaded = await upload(t, 'technician', t.seed.visits.A1.id, {
+    const uploaded = await acceptedUpload(t, {
       kind: 'task',
       bytes: syntheticTaskEdf({ durationS: 30, seed: 51 }),
     });
-    expect(uploaded.status).toBe(201);
-    recordingId = (uploaded.body as RecordingView).id;
+    recordingId = uploaded.id;
     await waitForState(t, 'technician', recordingId, ['ready']);
     const visit = t.seed.visits.A1.id;
     const study = t.seed.studies.A.id;
@@ -236,10 +235,6 @@ describe('access to recordings, analysis, flags, reports and trajectories', () =
     ];
     for (const user of USERS) await t.authHeader(user);
   }, 120_000);
-
-  afterAll(async () => {
-    await t.close();
-  });
 
   it('covers every route of these modules in the OpenAPI description', async () => {
     const docs = await request(t.url).get('/api/docs/openapi.json');

@@ -124,13 +124,7 @@ describe('recording uploads', () => {
       .set(await t.authHeader('technician'))
       .send({ participantId: t.seed.participants.A1.id, label: 'V2', visitDate: '2026-02-01' });
     expect(visit.status).toBe(201);
-    const response = await upload(t, 'technician', visit.body.id as string, {
-      kind: 'task',
-      bytes,
-      onsetsCsv: csv,
-    });
-    expect(response.status).toBe(201);
-    const dto = response.body as RecordingView;
+    const dto = await acceptedUpload(t, { kind: 'task', bytes, onsetsCsv: csv }, visit.body.id);
     expect(dto.facts?.csvOnsetCount).toBe(taskOnsets(40).length);
     const ready = await waitForState(t, 'technician', dto.id, ['ready', 'failed']);
     expect(ready.state).toBe('ready');
@@ -162,9 +156,7 @@ describe('recording uploads', () => {
 
   it('streams the state as Server-Sent Events until a final state', async () => {
     const bytes = syntheticRestEdf({ durationS: 30, seed: 5 });
-    const response = await upload(t, 'technician', t.seed.visits.A1.id, { kind: 'resting', bytes });
-    expect(response.status).toBe(201);
-    const id = (response.body as RecordingView).id;
+    const { id } = await acceptedUpload(t, { kind: 'resting', bytes });
     const events = await request(t.url)
       .get(`/api/recordings/${id}/events`)
       .set(await t.authHeader('technician'))
@@ -227,7 +219,6 @@ describe('upload size limit', () => {
   it('still accepts a file under the limit', async () => {
     const bytes = syntheticTaskEdf({ durationS: 20 });
     expect(bytes.byteLength).toBeLessThan(65536);
-    const response = await upload(t, 'technician', t.seed.visits.A1.id, { kind: 'task', bytes });
-    expect(response.status).toBe(201);
+    await acceptedUpload(t, { kind: 'task', bytes });
   });
 });

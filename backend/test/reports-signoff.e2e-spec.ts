@@ -71,11 +71,15 @@ describe('visit report sign-off', () => {
       .set(await as(user))
       .buffer(true)
       .parse(binaryBody);
-  const sign = async (body: Record<string, unknown>, user: UserKey = 'analyst') =>
+  /** Signs the visit's report as `user`, with the seeded password and Gyre's meaning unless given. */
+  const sign = async (
+    body: { fingerprint: string | null; password?: string; meaning?: string },
+    user: UserKey = 'analyst',
+  ) =>
     request(t.url)
       .post(`/api/visits/${visitId}/report/sign`)
       .set(await as(user))
-      .send(body);
+      .send({ password: SEED_PASSWORD, meaning: SIGNATURE_MEANING, ...body });
   const mailsTo = async (address: string): Promise<CaughtMail[]> =>
     (await readMails(mailDir)).filter((m) => m.to.toLowerCase().includes(address.toLowerCase()));
 
@@ -196,11 +200,7 @@ describe('visit report sign-off', () => {
 
   it('refuses a signature with another meaning, naming the field', async () => {
     const { draftFingerprint } = await signOff();
-    const response = await sign({
-      password: SEED_PASSWORD,
-      meaning: 'looked at it',
-      fingerprint: draftFingerprint,
-    });
+    const response = await sign({ meaning: 'looked at it', fingerprint: draftFingerprint });
     expect(response.status).toBe(400);
     expect(response.body.code).toBe('SIGNOFF_WRONG_MEANING');
     expect(response.body.message).toContain('meaning: found "looked at it", expected');
@@ -208,11 +208,7 @@ describe('visit report sign-off', () => {
 
   it('refuses a wrong password with 422 (the session stays valid) and signs nothing', async () => {
     const { draftFingerprint } = await signOff();
-    const response = await sign({
-      password: 'not-the-password-42',
-      meaning: SIGNATURE_MEANING,
-      fingerprint: draftFingerprint,
-    });
+    const response = await sign({ password: 'not-the-password-42', fingerprint: draftFingerprint });
     expect(response.status).toBe(422);
     expect(response.body.code).toBe('SIGNOFF_WRONG_PASSWORD');
     const status = await signOff();
@@ -222,22 +218,14 @@ describe('visit report sign-off', () => {
   });
 
   it('refuses a fingerprint other than the current draft (the visit changed since preview)', async () => {
-    const response = await sign({
-      password: SEED_PASSWORD,
-      meaning: SIGNATURE_MEANING,
-      fingerprint: 'a'.repeat(64),
-    });
+    const response = await sign({ fingerprint: 'a'.repeat(64) });
     expect(response.status).toBe(409);
     expect(response.body.code).toBe('SIGNOFF_CONTENT_CHANGED');
   });
 
   it('lets no admin, coordinator or analyst of another study sign', async () => {
     const { draftFingerprint } = await signOff();
-    const body = {
-      password: SEED_PASSWORD,
-      meaning: SIGNATURE_MEANING,
-      fingerprint: draftFingerprint,
-    };
+    const body = { fingerprint: draftFingerprint };
     // Separation of duties (docs/user-guide.md): admins never sign.
     expect((await sign(body, 'admin')).status).toBe(403);
     expect((await sign(body, 'coordinator')).status).toBe(403);
@@ -247,11 +235,7 @@ describe('visit report sign-off', () => {
 
   it('signs revision 1: the signed PDF carries name, UTC date and time, meaning, numbers and caution', async () => {
     const { draftFingerprint } = await signOff();
-    const response = await sign({
-      password: SEED_PASSWORD,
-      meaning: SIGNATURE_MEANING,
-      fingerprint: draftFingerprint,
-    });
+    const response = await sign({ fingerprint: draftFingerprint });
     expect(response.status).toBe(201);
     revision1 = response.body as ReportRevisionView;
     expect(revision1).toMatchObject({
@@ -420,11 +404,7 @@ describe('visit report sign-off', () => {
     const { draftFingerprint, canSign } = await signOff();
     expect(canSign).toBe(false);
     // Signing again without a change is refused.
-    const again = await sign({
-      password: SEED_PASSWORD,
-      meaning: SIGNATURE_MEANING,
-      fingerprint: draftFingerprint ?? 'a'.repeat(64),
-    });
+    const again = await sign({ fingerprint: draftFingerprint ?? 'a'.repeat(64) });
     expect(again.status).toBe(409);
     expect(again.body.code).toBe('SIGNOFF_ALREADY_SIGNED');
     // No write route exists on revisions, their files or report files.
@@ -476,11 +456,7 @@ describe('visit report sign-off', () => {
     expect(status.report.state).toBe('sent');
     expect(status).toMatchObject({ canSign: true, pendingRevision: 2 });
     expect(status.draftFingerprint).not.toBe(null);
-    const response = await sign({
-      password: SEED_PASSWORD,
-      meaning: SIGNATURE_MEANING,
-      fingerprint: status.draftFingerprint,
-    });
+    const response = await sign({ fingerprint: status.draftFingerprint });
     expect(response.status).toBe(201);
     revision2 = response.body as ReportRevisionView;
     expect(revision2).toMatchObject({ revision: 2, supersedesId: revision1.id });
@@ -513,11 +489,7 @@ describe('visit report sign-off', () => {
     await smtp.stop();
     const before = (await readMails(mailDir)).length;
     const status = await signOff();
-    const response = await sign({
-      password: SEED_PASSWORD,
-      meaning: SIGNATURE_MEANING,
-      fingerprint: status.draftFingerprint,
-    });
+    const response = await sign({ fingerprint: status.draftFingerprint });
     expect(response.status).toBe(201);
     const revision3 = response.body as ReportRevisionView;
     await t.mailIdle();

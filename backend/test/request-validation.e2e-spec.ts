@@ -5,7 +5,7 @@
  */
 import request from 'supertest';
 import type { UserKey } from './helpers/seed';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 
 const ROLES: UserKey[] = ['admin', 'analyst', 'technician', 'monitor', 'coordinator'];
 const METHODS = ['get', 'post', 'put', 'patch', 'delete'] as const;
@@ -16,11 +16,7 @@ interface OpenApiDocument {
 }
 
 describe('request validation', () => {
-  let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => t.close());
+  const t = useTestApp();
 
   it('a malformed id in any route parameter named id or …Id is a 400 naming it, never a 404', async () => {
     const doc = (await request(t.url).get('/api/docs/openapi.json')).body as OpenApiDocument;

@@ -26,8 +26,9 @@ import { Recording } from '../src/recordings/recording.entity';
 import { LABELS_64, task64Edf } from '../src/robustness/cli/load-recordings';
 import type { UserKey } from './helpers/seed';
 import { currentSettings } from './helpers/analysis-settings';
-import { startTestApp, TestApp } from './helpers/test-app';
-import { syntheticRestEdf, upload, waitForState } from './recordings-fixtures';
+import { acceptedUpload } from './helpers/accepted-upload';
+import { useTestApp } from './helpers/test-app';
+import { syntheticRestEdf, waitForState } from './recordings-fixtures';
 
 interface RawAnswer {
   status: number;
@@ -108,34 +109,33 @@ function expectRounded(
 const BROWSER = 'gzip, deflate, br';
 
 describe('results over HTTP', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let task: RecordingView;
   let rest: RecordingView;
   let auth: (user: UserKey) => Promise<Record<string, string>>;
 
   beforeAll(async () => {
-    t = await startTestApp();
     auth = (user) => t.authHeader(user);
     const visitId = t.seed.visits.A1.id;
     // Rest first and computed, so the task is computed once, in the band around its IAF.
-    const restUp = await upload(t, 'technician', visitId, {
-      kind: 'resting',
-      bytes: syntheticRestEdf({ durationS: 60, peakHz: 10, seed: 71 }),
-    });
-    expect(restUp.status).toBe(201);
-    rest = await waitForState(t, 'technician', (restUp.body as RecordingView).id, ['ready']);
-    const taskUp = await upload(t, 'technician', visitId, {
-      kind: 'task',
-      bytes: task64Edf({ durationS: 60, seed: 72, baseFrequencyHz: 10, dipHz: -0.5 }),
-    });
-    expect(taskUp.status).toBe(201);
-    task = await waitForState(t, 'technician', (taskUp.body as RecordingView).id, ['ready']);
+    const restUp = await acceptedUpload(
+      t,
+      { kind: 'resting', bytes: syntheticRestEdf({ durationS: 60, peakHz: 10, seed: 71 }) },
+      visitId,
+    );
+    rest = await waitForState(t, 'technician', restUp.id, ['ready']);
+    const taskUp = await acceptedUpload(
+      t,
+      {
+        kind: 'task',
+        bytes: task64Edf({ durationS: 60, seed: 72, baseFrequencyHz: 10, dipHz: -0.5 }),
+      },
+      visitId,
+    );
+    task = await waitForState(t, 'technician', taskUp.id, ['ready']);
     await t.computationsIdle();
     task = await waitForState(t, 'technician', task.id, ['ready']);
   }, 180_000);
-  afterAll(async () => {
-    await t.close();
-  });
 
   async function storedSeries(runId: string | null): Promise<Record<string, Float64Array>> {
     const run = await t.dataSource.getRepository(AnalysisRun).findOneByOrFail({ id: runId ?? '' });

@@ -23,7 +23,7 @@ import { readPdfText } from '../src/report-document/testing/read-pdf-text';
 import { REPO } from './helpers/built-dist';
 import type { UserKey } from './helpers/seed';
 import { binaryBody } from './helpers/binary-body';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp } from './helpers/test-app';
 import {
   INVENTED_PATIENT_NAME,
   syntheticRestEdf,
@@ -39,6 +39,14 @@ function text(value: number | null | undefined, missing: string): string {
   return value === null || value === undefined ? missing : JSON.stringify(value);
 }
 
+/** A row's confidence interval and p-value columns, as the results API gives them. */
+function intervalOf(ciHz: [number, number] | null, pValue: number | null) {
+  return { ci_low: ciHz?.[0] ?? null, ci_high: ciHz?.[1] ?? null, p_value: pValue };
+}
+
+/** The same columns for a measure that has no interval or p-value. */
+const NO_INTERVAL = intervalOf(null, null);
+
 /** What the results API says for one exported row. */
 function expectedOf(results: RecordingResultsView, row: Row) {
   const run = results.run;
@@ -47,9 +55,7 @@ function expectedOf(results: RecordingResultsView, row: Row) {
     if (cycles === null || cycles === undefined) throw new Error('no cycle-by-cycle estimate');
     return {
       value: cycles.deltaFHz,
-      ci_low: cycles.ciHz?.[0] ?? null,
-      ci_high: cycles.ciHz?.[1] ?? null,
-      p_value: null,
+      ...intervalOf(cycles.ciHz, null),
       trials_kept: cycles.trialsUsed,
       trials_total: cycles.trialsTotal,
     };
@@ -60,9 +66,7 @@ function expectedOf(results: RecordingResultsView, row: Row) {
     const task = row.measure === 'delta_f';
     return {
       value,
-      ci_low: task ? (run.roiCiHz?.[0] ?? null) : null,
-      ci_high: task ? (run.roiCiHz?.[1] ?? null) : null,
-      p_value: task ? run.roiPValue : null,
+      ...(task ? intervalOf(run.roiCiHz, run.roiPValue) : NO_INTERVAL),
       trials_kept: task ? run.trialsKept : null,
       trials_total: task ? run.trialsTotal : null,
     };
@@ -78,9 +82,7 @@ function expectedOf(results: RecordingResultsView, row: Row) {
   const delta = row.measure === 'delta_f';
   return {
     value,
-    ci_low: delta ? (channel.ciHz?.[0] ?? null) : null,
-    ci_high: delta ? (channel.ciHz?.[1] ?? null) : null,
-    p_value: delta ? channel.pValue : null,
+    ...(delta ? intervalOf(channel.ciHz, channel.pValue) : NO_INTERVAL),
     trials_kept: channel.trials,
     trials_total: null,
   };
@@ -196,7 +198,7 @@ const DEPTH = {
 };
 
 describe('study results exports', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let studyA: string;
   let monthSix: string;
   const recordingIds: string[] = [];
@@ -293,7 +295,6 @@ describe('study results exports', () => {
   }
 
   beforeAll(async () => {
-    t = await startTestApp();
     workDir = mkdtempSync(join(tmpdir(), 'gyre-exports-test-'));
     studyA = t.seed.studies.A.id;
     const admin = await t.authHeader('admin');
@@ -355,7 +356,6 @@ describe('study results exports', () => {
 
   afterAll(async () => {
     rmSync(workDir, { recursive: true, force: true });
-    await t.close();
   });
 
   it('results.csv: every number equals the results API, doubts and schedule as columns', async () => {

@@ -12,7 +12,7 @@ import type { OverviewCell, OverviewStat, StudyOverviewView } from '@gyre/shared
 import { defineAbilityFor } from '@gyre/shared';
 import type { Caller } from '../src/auth/decorators';
 import { StudyOverviewService } from '../src/study-overview/study-overview.service';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { type TestApp, useTestApp } from './helpers/test-app';
 import { newestSettingsId, writeWithoutForeignKeys } from './helpers/sqlite-rows';
 
 /** The seeded monitor of study B as the rules see them. */
@@ -226,11 +226,10 @@ class Writer {
 }
 
 describe('study overview', () => {
-  let t: TestApp;
+  const t = useTestApp();
   const s: Record<string, string> = {};
 
   beforeAll(async () => {
-    t = await startTestApp();
     const studyId = t.seed.studies.A.id;
     const A1 = t.seed.sites.A1.id;
     const A2 = t.seed.sites.A2.id;
@@ -317,9 +316,6 @@ describe('study overview', () => {
       Object.assign(s, { p1, p2, p3, p4, p5 });
     });
   }, 120_000);
-  afterAll(async () => {
-    await t.close();
-  });
 
   const get = async (user: Parameters<TestApp['authHeader']>[0], studyId = s.studyId) =>
     request(t.url)
@@ -463,13 +459,12 @@ describe('study overview', () => {
 });
 
 describe('study overview over a few hundred participants', () => {
-  let t: TestApp;
+  const t = useTestApp();
   const PARTICIPANTS = 300;
   const PLANNED = 3;
 
   /** Study B: 300 participants in two groups, three planned visits, a resting and a task run each. */
   beforeAll(async () => {
-    t = await startTestApp();
     const studyId = t.seed.studies.B.id;
     const site = t.seed.sites.B1.id;
     // A summary about the size of a 64-channel run's (its per-channel statistics), so that the
@@ -517,9 +512,6 @@ describe('study overview over a few hundred participants', () => {
       }
     });
   }, 300_000);
-  afterAll(async () => {
-    await t.close();
-  });
 
   it('answers in bounded time with every participant and cell', async () => {
     const header = await t.authHeader('monitorB');

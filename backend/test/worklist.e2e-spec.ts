@@ -13,7 +13,7 @@ import type {
   WorklistSection,
   WorklistSectionKey,
 } from '@gyre/shared';
-import { startTestApp, TestApp } from './helpers/test-app';
+import { useTestApp, type TestApp } from './helpers/test-app';
 import type { UserKey } from './helpers/seed';
 import { syntheticRestEdf, syntheticTaskEdf, upload, waitForState } from './recordings-fixtures';
 import { getAs, postAs } from './helpers/api-call';
@@ -63,13 +63,12 @@ async function fingerprintFromDb(t: TestApp, visitId: string): Promise<string> {
 }
 
 describe('worklist and the visit-reviewed act', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let visitA1: string;
   let visitA2: string;
   let restA1: RecordingView;
 
   beforeAll(async () => {
-    t = await startTestApp();
     visitA1 = t.seed.visits.A1.id;
     visitA2 = t.seed.visits.A2.id;
     const rest = await upload(t, 'technician', visitA1, {
@@ -85,9 +84,6 @@ describe('worklist and the visit-reviewed act', () => {
     await waitForState(t, 'technician', (task.body as RecordingView).id, ['ready']);
     await t.computationsIdle();
   }, 120_000);
-  afterAll(async () => {
-    await t.close();
-  });
 
   it('lists the computed visit for the analyst: not reviewed, a suggestion, a draft report', async () => {
     const list = await worklist(t, 'analyst');
@@ -297,7 +293,7 @@ describe('worklist and the visit-reviewed act', () => {
 });
 
 describe('worklist over a few hundred visits', () => {
-  let t: TestApp;
+  const t = useTestApp();
   const VISITS = 400;
   const REVIEWED = 150;
   const SUGGESTING = 120;
@@ -310,7 +306,6 @@ describe('worklist over a few hundred visits', () => {
 
   /** Visits of study B written straight into the database: two ready recordings with runs each. */
   beforeAll(async () => {
-    t = await startTestApp();
     const site = t.seed.sites.B1;
     const studyId = t.seed.studies.B.id;
     const uploader = t.seed.users.technicianB.id;
@@ -410,9 +405,6 @@ describe('worklist over a few hundred visits', () => {
     });
     await t.dataSource.query('PRAGMA foreign_keys = ON');
   }, 120_000);
-  afterAll(async () => {
-    await t.close();
-  });
 
   it('counts every visit, sorts oldest first by default, caps the items, and answers quickly', async () => {
     await worklist(t, 'analystB'); // warm the statement cache and the token

@@ -28,8 +28,13 @@ export const ACTIONS = [
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
-export const SUBJECTS = [
-  'Study',
+/**
+ * Everything a study holds: rows that carry the study's `studyId` (and, below the study, a
+ * `siteId`), and the per-study views built from them. A monitor reads all of it ("reads
+ * everything in the study", the role table of docs/user-guide.md), so a subject listed here is
+ * one a monitor of that study can read.
+ */
+const STUDY_SUBJECTS = [
   'Site',
   'User',
   'Participant',
@@ -41,12 +46,6 @@ export const SUBJECTS = [
   'Flag',
   'Report',
   'AuditEntry',
-  'Outbox',
-  'WorkerToken',
-  /** What a worker process fetches to compute a job (the stored recording, its settings). */
-  'JobInput',
-  /** What a worker process posts back when a job is done. */
-  'JobResult',
   /** A study's planned visits (its visit schedule). */
   'PlannedVisit',
   /** A study's groups or arms. */
@@ -59,6 +58,17 @@ export const SUBJECTS = [
   'StudyOverview',
   /** A site's calibration run: Gyre's check of its own computation (calibration/). */
   'Calibration',
+] as const;
+
+export const SUBJECTS = [
+  'Study',
+  ...STUDY_SUBJECTS,
+  'Outbox',
+  'WorkerToken',
+  /** What a worker process fetches to compute a job (the stored recording, its settings). */
+  'JobInput',
+  /** What a worker process posts back when a job is done. */
+  'JobResult',
 ] as const;
 export type SubjectName = (typeof SUBJECTS)[number];
 
@@ -118,14 +128,22 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
     rules.push({ action, subject, inverted: true });
   };
   const self = { id: user.id };
+  /**
+   * What both site roles (technician, coordinator) read: their study, their own site and
+   * account, and the study's schedule and groups. Returns the scope of their site.
+   */
+  const siteRoleScope = (): { studyId: string; siteId: string } => {
+    const studyId = required(user.studyId, 'studyId', user);
+    const site = { studyId, siteId: required(user.siteId, 'siteId', user) };
+    can('read', 'Study', { id: studyId });
+    can('read', 'Site', { id: site.siteId, studyId });
+    can('read', 'User', self);
+    can('read', ['PlannedVisit', 'StudyGroup'], { studyId });
+    return site;
+  };
   switch (user.role) {
     case 'technician': {
-      const study = required(user.studyId, 'studyId', user);
-      const site = { studyId: study, siteId: required(user.siteId, 'siteId', user) };
-      can('read', 'Study', { id: study });
-      can('read', 'Site', { id: site.siteId, studyId: study });
-      can('read', 'User', self);
-      can('read', ['PlannedVisit', 'StudyGroup'], { studyId: study });
+      const site = siteRoleScope();
       can(['read', 'create', 'update'], ['Participant', 'Visit'], site);
       can(['read', 'create', 'upload', 'update', 'retry'], 'Recording', site);
       can('read', 'Worklist', site);
@@ -156,39 +174,14 @@ export function defineRulesFor(user: AbilityUser): AppRule[] {
     case 'monitor': {
       const study = { studyId: required(user.studyId, 'studyId', user) };
       can('read', 'Study', { id: study.studyId });
-      can(
-        'read',
-        [
-          'Site',
-          'User',
-          'Participant',
-          'Visit',
-          'Recording',
-          'AnalysisSettings',
-          'AnalysisRun',
-          'Result',
-          'Flag',
-          'Report',
-          'AuditEntry',
-        ],
-        study,
-      );
+      can('read', [...STUDY_SUBJECTS], study);
       can('export', ['AuditEntry', 'Report'], study);
-      can('read', ['PlannedVisit', 'StudyGroup'], study);
-      can('read', ['VisitReview', 'Worklist'], study);
-      can('read', 'StudyOverview', study);
-      can('read', 'Calibration', study);
       can('export', 'Result', study);
       break;
     }
     case 'coordinator': {
-      const study = required(user.studyId, 'studyId', user);
-      const site = { studyId: study, siteId: required(user.siteId, 'siteId', user) };
-      can('read', 'Study', { id: study });
-      can('read', 'Site', { id: site.siteId, studyId: study });
-      can('read', 'User', self);
+      const site = siteRoleScope();
       can('read', ['Participant', 'Visit'], site);
-      can('read', ['PlannedVisit', 'StudyGroup'], { studyId: study });
       can(['read', 'export'], 'Report', {
         ...site,
         state: { $in: [...REPORT_STATES_FOR_COORDINATOR] },
