@@ -3,6 +3,7 @@ import type { Locator, Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { openBrowser, screenshot, userGuideImage } from './support/browser';
 import { startGyre, type RunningGyre } from './support/gyre-server';
+import { sticksOutSideways } from './support/page-width';
 import { signInThroughPage } from './support/sign-in-page';
 import { setUpInventedStudy, type InventedStudy } from './support/study-data';
 
@@ -71,6 +72,10 @@ describe('layout and accessibility of every screen, on a real server', () => {
 
   const heading = (name: string | RegExp) => (page: Page) =>
     page.getByRole('heading', { name, exact: typeof name === 'string' ? true : undefined });
+  /** A table row of the study's participant. */
+  const participantRow = (page: Page) =>
+    page.getByRole('row').filter({ hasText: data.participant.code });
+  const siteQuality = (page: Page) => page.locator('[aria-label="Site quality"]');
 
   const screens = {
     signIn: {
@@ -113,12 +118,12 @@ describe('layout and accessibility of every screen, on a real server', () => {
     reports: {
       name: 'Reports',
       path: () => '/reports',
-      ready: (page) => page.getByRole('row').filter({ hasText: data.participant.code }),
+      ready: participantRow,
     },
     signedReports: {
       name: 'Signed report revisions',
       path: () => '/reports/revisions',
-      ready: (page) => page.getByRole('row').filter({ hasText: data.participant.code }),
+      ready: participantRow,
     },
     team: {
       name: 'Team',
@@ -144,12 +149,12 @@ describe('layout and accessibility of every screen, on a real server', () => {
     overview: {
       name: 'Study overview',
       path: () => '/study-overview',
-      ready: (page) => page.locator('[aria-label="Site quality"]'),
+      ready: siteQuality,
     },
     adminOverview: {
       name: 'Study overview',
       path: () => `/study-overview?study=${data.study.id}`,
-      ready: (page) => page.locator('[aria-label="Site quality"]'),
+      ready: siteQuality,
     },
     notFound: {
       name: 'Not found',
@@ -171,28 +176,6 @@ describe('layout and accessibility of every screen, on a real server', () => {
       .catch(() => undefined);
   }
 
-  /** The innermost elements that stick out past the window's right edge (for the message). */
-  async function widest(page: Page): Promise<string[]> {
-    return page.evaluate(() => {
-      const width = window.innerWidth;
-      const clipped = (el: Element): boolean => {
-        for (let up = el.parentElement; up !== null; up = up.parentElement) {
-          if (getComputedStyle(up).overflowX !== 'visible') return true;
-        }
-        return false;
-      };
-      return [...document.body.querySelectorAll('*')]
-        .filter((el) => el.getBoundingClientRect().right > width + 1 && !clipped(el))
-        .filter((el) => ![...el.children].some((c) => c.getBoundingClientRect().right > width + 1))
-        .slice(0, 4)
-        .map((el) => {
-          const cls = typeof el.className === 'string' ? el.className.split(' ')[0] : '';
-          const right = Math.round(el.getBoundingClientRect().right);
-          return `${el.tagName.toLowerCase()}.${cls} (right edge ${right} px) "${(el.textContent ?? '').slice(0, 30)}"`;
-        });
-    });
-  }
-
   /**
    * Opens each screen by its address at both widths (a fresh load, so charts are drawn at the
    * width they are shown at), then checks the page width and runs axe-core.
@@ -205,14 +188,11 @@ describe('layout and accessibility of every screen, on a real server', () => {
         await page.goto(`${gyre.baseUrl}${screen.path()}`, { waitUntil: 'load' });
         await screen.ready(page).first().waitFor({ timeout: 30_000 });
         await settle(page);
-        const fit = await page.evaluate(() => ({
-          page: document.documentElement.scrollWidth,
-          window: window.innerWidth,
-        }));
+        const fit = await sticksOutSideways(page);
         expect
           .soft(
             fit.page,
-            `${label}: the page is ${fit.page} px wide in a ${fit.window} px window; sticking out: ${(await widest(page)).join('; ')}`,
+            `${label}: the page is ${fit.page} px wide in a ${fit.window} px window; sticking out: ${fit.out.join('; ')}`,
           )
           .toBeLessThanOrEqual(fit.window);
         const result = await new AxeBuilder({ page }).withTags(WCAG_TAGS).analyze();

@@ -1,9 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { screenshot, watchConsole } from './support/browser';
+import { RESEARCH_CAUTION } from './support/caution';
 import { gyreInChromium } from './support/gyre-server';
-
-const CAUTION =
-  'Research use only. Not a diagnostic device: do not use these results for clinical decisions. Follow your study protocol, local regulations and licensed clinicians.';
 
 describe('the built app in Chromium', () => {
   const run = gyreInChromium();
@@ -15,7 +13,7 @@ describe('the built app in Chromium', () => {
     expect(response?.status()).toBe(200);
     await expect(
       page.getByRole('note', { name: 'Research use caution' }).innerText(),
-    ).resolves.toContain(CAUTION);
+    ).resolves.toContain(RESEARCH_CAUTION);
     await page.evaluate(() => document.fonts.ready);
     const fonts = await page.evaluate(() => {
       const loaded = [...document.fonts]

@@ -2,11 +2,13 @@ import type { Page } from 'playwright-core';
 import { expect } from 'vitest';
 
 /**
- * What sticks out of the window sideways: the innermost elements whose right edge passes the
- * window's width (empty when the page fits). Scroll boxes (wide tables) clip their content, so
- * only what widens the page itself counts.
+ * The page's width against the window's, and what sticks out of the window sideways: the
+ * innermost elements whose right edge passes the window's width (empty when the page fits).
+ * Scroll boxes (wide tables) clip their content, so only what widens the page itself counts.
  */
-function sticksOutSideways(page: Page): Promise<{ page: number; window: number; out: string[] }> {
+export function sticksOutSideways(
+  page: Page,
+): Promise<{ page: number; window: number; out: string[] }> {
   return page.evaluate(() => {
     const width = document.documentElement.clientWidth;
     const fit = { page: document.documentElement.scrollWidth, window: width };

@@ -13,11 +13,16 @@ export function LoadingState({ rows = 6, label = 'Loading' }: { rows?: number; l
   );
 }
 
-/** A read as SWR answers it, for `pendingState`. */
+/** A read as SWR answers it, for `pendingState` and `ReadError`. */
 interface PendingRead {
   data?: unknown;
   error?: unknown;
   mutate: () => Promise<unknown>;
+}
+
+/** The failure of `read` under `title`; "Try again" (where it can help) asks once more. */
+export function ReadError({ read, title }: { read: PendingRead; title: string }) {
+  return <ErrorState title={title} error={read.error} onRetry={() => void read.mutate()} />;
 }
 
 /**
@@ -28,9 +33,7 @@ export function pendingState(
   read: PendingRead,
   { errorTitle, loadingLabel, rows }: { errorTitle: string; loadingLabel: string; rows?: number },
 ): React.ReactNode {
-  if (read.error !== undefined) {
-    return <ErrorState title={errorTitle} error={read.error} onRetry={() => void read.mutate()} />;
-  }
+  if (read.error !== undefined) return <ReadError read={read} title={errorTitle} />;
   if (read.data === undefined) return <LoadingState label={loadingLabel} rows={rows} />;
   return null;
 }

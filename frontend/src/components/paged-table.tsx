@@ -1,7 +1,7 @@
 import type { Page } from '@gyre/shared';
 import { Table, type TableColumnsType, type TableProps } from 'antd';
 import type { ReactNode } from 'react';
-import { EmptyState, ErrorState, TableSkeleton } from './page-states';
+import { EmptyState, ReadError, TableSkeleton } from './page-states';
 import { ScrollRegion } from './scroll-region';
 
 /** What a list hook answers (SWR): one page of rows, its error, and how to ask again. */
@@ -18,7 +18,7 @@ export interface PageQuery<Row> {
  * page. `scrollLabel` puts a wide table in a named, keyboard-scrollable region.
  */
 export function PagedTable<Row extends { id: string }>({
-  query: { data, error, isLoading, mutate },
+  query,
   loadErrorTitle,
   emptyText,
   columns,
@@ -38,9 +38,8 @@ export function PagedTable<Row extends { id: string }>({
   scrollLabel?: string;
   rowClassName?: TableProps<Row>['rowClassName'];
 }) {
-  if (error !== undefined) {
-    return <ErrorState error={error} onRetry={() => void mutate()} title={loadErrorTitle} />;
-  }
+  const { data, error, isLoading } = query;
+  if (error !== undefined) return <ReadError read={query} title={loadErrorTitle} />;
   const table = (
     <Table<Row>
       rowKey="id"

@@ -23,6 +23,11 @@ export function dateTimeColumn<Row>(
   };
 }
 
+/** A state as a tag, in its words and colour. */
+export function StateTag({ look }: { look: StateLook }) {
+  return <Tag color={look.color}>{look.label}</Tag>;
+}
+
 /** A `state` column showing each row's state as a tag, in the words and colours of `looks`. */
 export function stateTagColumn<Row extends { state: State }, State extends string>(
   looks: Record<State, StateLook>,
@@ -32,6 +37,17 @@ export function stateTagColumn<Row extends { state: State }, State extends strin
     title: 'State',
     dataIndex: 'state',
     width,
-    render: (state: State) => <Tag color={looks[state].color}>{looks[state].label}</Tag>,
+    render: (state: State) => <StateTag look={looks[state]} />,
   };
+}
+
+/** The choices of a filter by state: "All", then each state of `looks` in its words and order. */
+export function stateFilterOptions<State extends string>(
+  looks: Record<State, StateLook>,
+): { label: string; value: State | 'all' }[] {
+  const states = Object.entries(looks) as [State, StateLook][];
+  return [
+    { label: 'All', value: 'all' },
+    ...states.map(([value, { label }]) => ({ label, value })),
+  ];
 }

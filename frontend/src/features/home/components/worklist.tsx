@@ -16,7 +16,7 @@ import { Link } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { GYRE_COLORS } from '../../../app/theme';
 import { BlindedReviewNotice } from '../../../components/blinded-review-notice';
-import { ErrorState } from '../../../components/page-states';
+import { ReadError } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { VisitWindowTag } from '../../../components/visit-window-tag';
 import { formatAfterFirstUpload, formatDate, formatDateTime } from '../../../lib/format';
@@ -125,11 +125,7 @@ function SectionCard({ section, sort }: { section: WorklistSection; sort: Workli
       {section.total === 0 ? (
         <Typography.Text type="secondary">Nothing waits here.</Typography.Text>
       ) : paged.error !== undefined && page > 1 ? (
-        <ErrorState
-          title="This page could not be loaded"
-          error={paged.error}
-          onRetry={() => void paged.mutate()}
-        />
+        <ReadError read={paged} title="This page could not be loaded" />
       ) : shown === undefined ? (
         <Skeleton active paragraph={{ rows: 3 }} />
       ) : (
@@ -166,13 +162,7 @@ export function Worklist() {
   const [sort, setSort] = useState<WorklistSort>('oldest');
   const list = useWorklist({ sort, limit: WORKLIST_PAGE });
   if (list.error !== undefined) {
-    return (
-      <ErrorState
-        title="The worklist could not be loaded"
-        error={list.error}
-        onRetry={() => void list.mutate()}
-      />
-    );
+    return <ReadError read={list} title="The worklist could not be loaded" />;
   }
   const data = list.data;
   const waiting = data?.sections.reduce((sum, s) => sum + s.total, 0) ?? 0;

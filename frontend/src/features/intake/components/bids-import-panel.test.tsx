@@ -1,14 +1,15 @@
 import type { BidsImportFilePreview, BidsImportPreview } from '@gyre/shared';
-import { fireEvent, waitFor, within } from '@testing-library/react';
+import { fireEvent, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { HttpResponse } from 'msw';
-import { describe, expect, it, vi } from 'vitest';
+import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { meFor, STUDY } from '../../../test/fixtures';
 import { installMswServer } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
 import {
   checkThenImport,
   findImportCard,
+  importWhenAllowed,
   refusedImport,
   serveStudyImport,
 } from '../testing/import-fixtures';
@@ -75,8 +76,9 @@ async function chooseFolder(paths: string[]) {
 }
 
 describe('Intake EEG-BIDS import', { timeout: 60_000 }, () => {
+  beforeEach(() => useIntakeHandlers(() => []));
+
   it('sends the folder with its paths, shows the preview, and imports only on confirmation', async () => {
-    useIntakeHandlers(() => []);
     const files = [
       file({}),
       file({
@@ -123,11 +125,7 @@ describe('Intake EEG-BIDS import', { timeout: 60_000 }, () => {
     expect(
       within(card).getByText(/Checked, nothing stored yet\. 2 recordings, 0 with a problem/),
     ).toBeInTheDocument();
-    await waitFor(
-      () => expect(within(card).getByRole('button', { name: 'Confirm import' })).toBeEnabled(),
-      { timeout: 15_000 },
-    );
-    await userEvent.click(within(card).getByRole('button', { name: 'Confirm import' }));
+    await importWhenAllowed(card, 'Confirm import');
     expect(
       await within(card).findByText(/Imported: 2 recordings/, {}, { timeout: 15_000 }),
     ).toBeInTheDocument();
@@ -143,7 +141,6 @@ describe('Intake EEG-BIDS import', { timeout: 60_000 }, () => {
   });
 
   it('shows the problems of a preview and keeps confirmation disabled', async () => {
-    useIntakeHandlers(() => []);
     serveImport([
       () =>
         HttpResponse.json(
@@ -177,7 +174,6 @@ describe('Intake EEG-BIDS import', { timeout: 60_000 }, () => {
   });
 
   it('shows the preview a refused import carries (422)', async () => {
-    useIntakeHandlers(() => []);
     const refused = preview([file({ problems: ['RECORDING_REJECTED: not an EDF file'] })], {
       dryRun: false,
     });

@@ -1,14 +1,15 @@
 import type { BulkUploadReport, BulkUploadRowReport } from '@gyre/shared';
-import { fireEvent, waitFor, within } from '@testing-library/react';
+import { fireEvent, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { HttpResponse } from 'msw';
-import { describe, expect, it } from 'vitest';
+import { beforeEach, describe, expect, it } from 'vitest';
 import { meFor, STUDY } from '../../../test/fixtures';
 import { installMswServer } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
 import {
   checkThenImport,
   findImportCard,
+  importWhenAllowed,
   refusedImport,
   serveStudyImport,
 } from '../testing/import-fixtures';
@@ -61,8 +62,9 @@ async function dropIntoPanel(names: string[]) {
 }
 
 describe('Intake bulk upload', { timeout: 60_000 }, () => {
+  beforeEach(() => useIntakeHandlers(() => []));
+
   it('finds manifest.csv among the dropped files, checks, then imports only after a clean check', async () => {
-    useIntakeHandlers(() => []);
     const okRows = [
       row({}),
       row({
@@ -101,11 +103,7 @@ describe('Intake bulk upload', { timeout: 60_000 }, () => {
         /Checked, nothing imported yet\. 2 rows: 1 ready, 1 with a warning, 0 with an error/,
       ),
     ).toBeInTheDocument();
-    await waitFor(
-      () => expect(within(card).getByRole('button', { name: 'Import' })).toBeEnabled(),
-      { timeout: 15_000 },
-    );
-    await userEvent.click(within(card).getByRole('button', { name: 'Import' }));
+    await importWhenAllowed(card, 'Import');
     expect(
       await within(card).findByText(/Imported: 2 recordings queued\./, {}, { timeout: 15_000 }),
     ).toBeInTheDocument();
@@ -119,7 +117,6 @@ describe('Intake bulk upload', { timeout: 60_000 }, () => {
   });
 
   it('shows each failing row and the unlisted files, and keeps Import disabled', async () => {
-    useIntakeHandlers(() => []);
     const rows = [
       row({}),
       row({
@@ -161,7 +158,6 @@ describe('Intake bulk upload', { timeout: 60_000 }, () => {
   });
 
   it('shows the per-row report a refused import carries (422) and keeps Import disabled', async () => {
-    useIntakeHandlers(() => []);
     const failed = report(
       [row({ status: 'error', errors: ['RECORDING_REJECTED: not an EDF file'] })],
       {

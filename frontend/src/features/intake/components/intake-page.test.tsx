@@ -3,7 +3,7 @@ import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { http, HttpResponse } from 'msw';
 import { describe, expect, it } from 'vitest';
-import { failingOnce } from '../../../test/error-response';
+import { errorResponse, failingOnce } from '../../../test/error-response';
 import { meFor, STUDY } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
@@ -184,19 +184,16 @@ describe('Intake', { timeout: 60_000 }, () => {
     useIntakeHandlers(() => []);
     server.use(
       http.post('/api/visits/v-1/recordings', () =>
-        HttpResponse.json(
+        errorResponse(
+          422,
+          'RECORDING_REJECTED',
+          'The header says 10 data records but the file holds 9.',
           {
-            statusCode: 422,
-            code: 'RECORDING_REJECTED',
             message: 'The header says 10 data records but the file holds 9.',
-            details: {
-              message: 'The header says 10 data records but the file holds 9.',
-              field: 'number of data records',
-              found: '10',
-              expected: '9 (from the file size)',
-            },
+            field: 'number of data records',
+            found: '10',
+            expected: '9 (from the file size)',
           },
-          { status: 422 },
         ),
       ),
     );

@@ -6,6 +6,7 @@ import { meFor } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
 import { recording, useIntakeHandlers, visit, visitPath } from '../testing/intake-fixtures';
+import { errorResponse } from '../../../test/error-response';
 
 installMswServer();
 
@@ -42,20 +43,11 @@ async function dropFile(name: string) {
 }
 
 const kindUnconfirmed = () =>
-  HttpResponse.json(
-    {
-      statusCode: 422,
-      code: 'RECORDING_KIND_UNCONFIRMED',
-      message:
-        'kind: this file holds 3 stimulus onsets (EDF+ annotations), so it looks like a task recording, not a resting one. Upload it as task, or confirm that it is a resting recording.',
-      details: {
-        kind: 'resting',
-        onsetCount: 3,
-        found: '3 stimulus onsets',
-        expected: 'no stimulus onsets',
-      },
-    },
-    { status: 422 },
+  errorResponse(
+    422,
+    'RECORDING_KIND_UNCONFIRMED',
+    'kind: this file holds 3 stimulus onsets (EDF+ annotations), so it looks like a task recording, not a resting one. Upload it as task, or confirm that it is a resting recording.',
+    { kind: 'resting', onsetCount: 3, found: '3 stimulus onsets', expected: 'no stimulus onsets' },
   );
 
 // Whole screens render slowly in jsdom on a shared 2-core machine.
@@ -105,14 +97,11 @@ describe('Intake uploads', { timeout: 60_000 }, () => {
     useIntakeHandlers(() => [earlier]);
     const sent = serveUploads([
       () =>
-        HttpResponse.json(
-          {
-            statusCode: 409,
-            code: 'RECORDING_KIND_TAKEN',
-            message: 'This visit already has a resting recording (r-old, ready).',
-            details: { kind: 'resting', recordingId: 'r-old' },
-          },
-          { status: 409 },
+        errorResponse(
+          409,
+          'RECORDING_KIND_TAKEN',
+          'This visit already has a resting recording (r-old, ready).',
+          { kind: 'resting', recordingId: 'r-old' },
         ),
       accepted,
     ]);
@@ -151,15 +140,10 @@ describe('Intake uploads', { timeout: 60_000 }, () => {
     useIntakeHandlers(() => [recording({ id: 'r-old' })]);
     const sent = serveUploads([
       () =>
-        HttpResponse.json(
-          {
-            statusCode: 409,
-            code: 'RECORDING_KIND_TAKEN',
-            message: 'This visit already has a resting recording.',
-            details: { kind: 'resting', recordingId: 'r-old' },
-          },
-          { status: 409 },
-        ),
+        errorResponse(409, 'RECORDING_KIND_TAKEN', 'This visit already has a resting recording.', {
+          kind: 'resting',
+          recordingId: 'r-old',
+        }),
     ]);
     renderApp(visitPath, meFor('technician'));
     const uploads = await dropFile('rest-again.edf');

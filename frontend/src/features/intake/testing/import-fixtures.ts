@@ -1,9 +1,10 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { http, HttpResponse } from 'msw';
+import { http } from 'msw';
 import { expect } from 'vitest';
 import { STUDY } from '../../../test/fixtures';
 import { server } from '../../../test/msw-server';
+import { errorResponse } from '../../../test/error-response';
 
 /** What one request to a study import sent: whether it was a dry run, and its part names in order. */
 export interface SentImport {
@@ -32,10 +33,7 @@ export function serveStudyImport(endpoint: string, answers: Array<() => Response
 
 /** The 422 of an import the server refused: nothing stored, the outcome in `details[field]`. */
 export function refusedImport(code: string, field: string, outcome: unknown): Response {
-  return HttpResponse.json(
-    { statusCode: 422, code, message: 'Nothing was imported', details: { [field]: outcome } },
-    { status: 422 },
-  );
+  return errorResponse(422, code, 'Nothing was imported', { [field]: outcome });
 }
 
 /** The import card titled `title`, once the page shows it (slow in jsdom on a busy machine). */
@@ -44,11 +42,16 @@ export async function findImportCard(title: string): Promise<HTMLElement> {
   return heading.closest('.ant-card') as HTMLElement;
 }
 
-/** Checks the choice, waits until the check allows the import, then starts it. */
-export async function checkThenImport(card: HTMLElement, check: string, confirm: string) {
-  await userEvent.click(within(card).getByRole('button', { name: check }));
+/** Waits until the check allows the import (button `confirm` enabled), then starts it. */
+export async function importWhenAllowed(card: HTMLElement, confirm: string) {
   await waitFor(() => expect(within(card).getByRole('button', { name: confirm })).toBeEnabled(), {
     timeout: 15_000,
   });
   await userEvent.click(within(card).getByRole('button', { name: confirm }));
+}
+
+/** Checks the choice, waits until the check allows the import, then starts it. */
+export async function checkThenImport(card: HTMLElement, check: string, confirm: string) {
+  await userEvent.click(within(card).getByRole('button', { name: check }));
+  await importWhenAllowed(card, confirm);
 }

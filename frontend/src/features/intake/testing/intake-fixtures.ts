@@ -10,6 +10,7 @@ import type {
 import { http, HttpResponse } from 'msw';
 import { readyRecording, SITE, STUDY } from '../../../test/fixtures';
 import { server } from '../../../test/msw-server';
+import { errorResponse } from '../../../test/error-response';
 
 // Generated test data: one invented participant with one visit, a two-visit schedule, two groups.
 
@@ -119,10 +120,7 @@ export function useIntakeHandlers(
     http.get('/api/recordings', () => HttpResponse.json(page(recordings()))),
     // No live stream unless a test serves one: Intake then falls back to asking again.
     http.get('/api/recordings/:id/events', () =>
-      HttpResponse.json(
-        { statusCode: 404, code: 'NOT_SERVED', message: 'No stream in this test.', details: null },
-        { status: 404 },
-      ),
+      errorResponse(404, 'NOT_SERVED', 'No stream in this test.'),
     ),
   );
 }

@@ -1,22 +1,15 @@
-import type { Page, ParticipantView } from '@gyre/shared';
+import type { ParticipantView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
+import { usePage } from '../../../lib/use-page';
 
 /** `GET /api/participants?q=`: the participants the Ledger can be filtered by, by code. */
 export const ledgerParticipantsKey = (search: string) =>
   withQuery('/api/participants', { q: search.trim(), pageSize: 20, sort: 'code', order: 'asc' });
 
-export function getLedgerParticipants(key: string): Promise<Page<ParticipantView>> {
-  return apiFetch<Page<ParticipantView>>(key);
-}
-
 /** Null key (no request) when the viewer may not read participants. */
 export function useLedgerParticipants(search: string, enabled: boolean) {
-  return useSWR<Page<ParticipantView>>(
-    enabled ? ledgerParticipantsKey(search) : null,
-    getLedgerParticipants,
-    { keepPreviousData: true },
-  );
+  return usePage<ParticipantView>(enabled ? ledgerParticipantsKey(search) : null);
 }
 
 /** `GET /api/participants/:id`: the chosen participant's code, when it is not in the list. */

@@ -40,14 +40,16 @@ const hzRange = (value: unknown) =>
   isPair(value) ? formatQuantityRange(value, 'frequencyHz', '–') : plain(value);
 const secondsRange = (value: unknown) =>
   isPair(value) ? formatQuantityRange(value, 'timeFromOnsetS', ' to ') : plain(value);
-const hz = (value: unknown) => (typeof value === 'number' ? formatHz(value) : plain(value));
-const deltaHz = (value: unknown) =>
-  typeof value === 'number' ? formatDeltaHz(value) : plain(value);
-const microvolts = (value: unknown) =>
-  typeof value === 'number' ? formatQuantity(value, 'amplitudeUv') : plain(value);
-const seconds = (value: unknown) =>
-  typeof value === 'number' ? formatSeconds(value) : plain(value);
-const bytes = (value: unknown) => (typeof value === 'number' ? formatBytes(value) : plain(value));
+/** A number written by `format`; anything else as it is. */
+const numberAs =
+  (format: (value: number) => string) =>
+  (value: unknown): string =>
+    typeof value === 'number' ? format(value) : plain(value);
+const hz = numberAs(formatHz);
+const deltaHz = numberAs(formatDeltaHz);
+const microvolts = numberAs((value) => formatQuantity(value, 'amplitudeUv'));
+const seconds = numberAs(formatSeconds);
+const bytes = numberAs(formatBytes);
 const time = (value: unknown) =>
   typeof value === 'string' && value !== '' ? formatLedgerTime(value) : plain(value);
 const person = (value: unknown, people: Record<string, string>) =>

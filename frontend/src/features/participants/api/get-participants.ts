@@ -1,6 +1,6 @@
-import type { Page, ParticipantListItem } from '@gyre/shared';
-import useSWR from 'swr';
-import { apiFetch, withQuery } from '../../../lib/api-client';
+import type { ParticipantListItem } from '@gyre/shared';
+import { withQuery } from '../../../lib/api-client';
+import { usePage } from '../../../lib/use-page';
 
 export const PARTICIPANT_SORTS = ['code', 'createdAt'] as const;
 export type ParticipantSort = (typeof PARTICIPANT_SORTS)[number];
@@ -28,13 +28,6 @@ export const participantsKey = (query: ParticipantQuery) =>
   });
 
 /** Each row carries its site and group names, visits, latest values, flags and report. */
-export function getParticipants(query: ParticipantQuery): Promise<Page<ParticipantListItem>> {
-  return apiFetch<Page<ParticipantListItem>>(participantsKey(query));
-}
-
-/** Keeps the last page on screen while the next one loads, so the table does not jump. */
 export function useParticipants(query: ParticipantQuery) {
-  return useSWR<Page<ParticipantListItem>>(participantsKey(query), () => getParticipants(query), {
-    keepPreviousData: true,
-  });
+  return usePage<ParticipantListItem>(participantsKey(query));
 }

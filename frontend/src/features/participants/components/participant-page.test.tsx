@@ -12,6 +12,7 @@ import {
   TRAJECTORY_TOO_FEW,
   VISITS,
 } from '../testing/participant-fixtures';
+import { errorResponse } from '../../../test/error-response';
 
 // jsdom has no canvas for the chart library: a stand-in shows which marks would be drawn.
 vi.mock(
@@ -135,14 +136,7 @@ describe('Participant trajectory', { timeout: 60_000 }, () => {
     serve();
     server.use(
       http.get(`/api/participants/${PARTICIPANT.id}`, () =>
-        HttpResponse.json(
-          {
-            statusCode: 403,
-            code: 'BLINDING_PARTICIPANT_BLINDED',
-            message: 'Blinded review is on for this study',
-          },
-          { status: 403 },
-        ),
+        errorResponse(403, 'BLINDING_PARTICIPANT_BLINDED', 'Blinded review is on for this study'),
       ),
     );
     renderApp(`/participants/${PARTICIPANT.id}`, meFor('analyst'));

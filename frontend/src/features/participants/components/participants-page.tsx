@@ -6,7 +6,7 @@ import { Link, useSearchParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { BlindedReviewNotice } from '../../../components/blinded-review-notice';
 import { PageHeader } from '../../../components/page-header';
-import { ErrorState, LoadingState } from '../../../components/page-states';
+import { LoadingState, ReadError } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { formatCount, formatDate, formatDeltaHz, formatHz } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
@@ -132,11 +132,7 @@ export function ParticipantsPage() {
           />
         </Flex>
         {participants.error !== undefined && participants.data === undefined ? (
-          <ErrorState
-            title="The participants could not be loaded"
-            error={participants.error}
-            onRetry={() => void participants.mutate()}
-          />
+          <ReadError read={participants} title="The participants could not be loaded" />
         ) : participants.data === undefined ? (
           <LoadingState label="Loading participants" rows={8} />
         ) : (

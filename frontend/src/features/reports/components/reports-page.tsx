@@ -14,11 +14,21 @@ import { useSession } from '../../../lib/session/session-context';
 import { downloadReport } from '../api/download-report';
 import { useReportContext } from '../api/report-context';
 import { useReports } from '../api/reports';
-import { ReportStateTag } from './report-state-tag';
 import { PagedTable } from '../../../components/paged-table';
 import { usePagedList } from '../../../components/use-paged-list';
+import {
+  stateFilterOptions,
+  stateTagColumn,
+  type StateLook,
+} from '../../../components/table-columns';
 
 const PAGE_SIZE = 20;
+
+const STATE_LOOK: Record<ReportState, StateLook> = {
+  draft: { label: 'Draft', color: 'default' },
+  signed: { label: 'Signed', color: 'processing' },
+  sent: { label: 'Sent', color: 'success' },
+};
 
 /** A report has a file once it is signed; a draft has none yet. */
 export function hasFile(report: ReportView): boolean {
@@ -75,12 +85,7 @@ export function ReportsPage() {
         );
       },
     },
-    {
-      title: 'State',
-      dataIndex: 'state',
-      width: 110,
-      render: (value: ReportState) => <ReportStateTag state={value} />,
-    },
+    stateTagColumn(STATE_LOOK, 110),
     {
       title: 'Last change',
       dataIndex: 'updatedAt',
@@ -111,12 +116,9 @@ export function ReportsPage() {
     },
   ];
 
-  const options: { label: string; value: ReportState | 'all' }[] = [
-    { label: 'All', value: 'all' },
-    ...(seesDrafts ? [{ label: 'Draft', value: 'draft' as const }] : []),
-    { label: 'Signed', value: 'signed' },
-    { label: 'Sent', value: 'sent' },
-  ];
+  const options = stateFilterOptions(STATE_LOOK).filter(
+    (option) => seesDrafts || option.value !== 'draft',
+  );
 
   return (
     <>

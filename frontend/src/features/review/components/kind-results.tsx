@@ -1,6 +1,6 @@
 import type { RecordingKind, RecordingResultsView, RecordingView } from '@gyre/shared';
 import { Skeleton } from 'antd';
-import { EmptyState, ErrorState } from '../../../components/page-states';
+import { EmptyState, ReadError } from '../../../components/page-states';
 import { QualityChecks } from './quality-checks';
 import { RecordingStateNotice } from './recording-state-notice';
 import { RunNotices } from './run-notices';
@@ -32,13 +32,7 @@ export function ResultsOf({
     );
   }
   if (results.error !== undefined) {
-    return (
-      <ErrorState
-        title={`The ${kind} results could not be loaded`}
-        error={results.error}
-        onRetry={() => void results.mutate()}
-      />
-    );
+    return <ReadError read={results} title={`The ${kind} results could not be loaded`} />;
   }
   if (results.data === undefined) return <Skeleton active paragraph={{ rows: 6 }} />;
   return (

@@ -2,7 +2,7 @@ import type { OnsetCurveView, TaskResultsView } from '@gyre/shared';
 import { Flex, Select, Skeleton, Switch, Typography } from 'antd';
 import { useCallback, useMemo, useState } from 'react';
 import { PlotFigure } from '../../../components/charts/plot-figure';
-import { ErrorState } from '../../../components/page-states';
+import { ReadError } from '../../../components/page-states';
 import { formatHz, formatQuantity, formatQuantityRange } from '../../../lib/format';
 import { NO_ROI_CHANNEL_REMAINS } from '../../../lib/roi-usage';
 import { useChannelCurve } from '../api/get-channel-curve';
@@ -163,11 +163,7 @@ export function OnsetCurveChart({
         />
       </Flex>
       {picked !== null && channelCurve.error !== undefined ? (
-        <ErrorState
-          title={`The curve of ${picked} could not be loaded`}
-          error={channelCurve.error}
-          onRetry={() => void channelCurve.mutate()}
-        />
+        <ReadError read={channelCurve} title={`The curve of ${picked} could not be loaded`} />
       ) : curve === undefined ? (
         <div aria-busy="true" aria-label={`Loading the curve of ${picked ?? roiLabel}`}>
           <Skeleton active paragraph={{ rows: 5 }} />

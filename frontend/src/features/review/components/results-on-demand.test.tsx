@@ -10,6 +10,7 @@ import { installMswServer, server } from '../../../test/msw-server';
 import { CHANNEL_CURVES, TASK_RASTER, TASK_RESULTS } from '../testing/review-fixtures';
 import { OnsetCurveChart } from './onset-curve-chart';
 import { TrialRaster } from './trial-raster';
+import { errorResponse } from '../../../test/error-response';
 
 vi.mock(
   '../../../components/charts/g2-plot',
@@ -161,14 +162,7 @@ describe("a channel's onset curve, asked for when picked", { timeout: 30_000 }, 
   it('says when a curve could not be loaded, naming the channel', async () => {
     server.use(
       http.get(CURVES_PATH, () =>
-        HttpResponse.json(
-          {
-            statusCode: 404,
-            code: 'ANALYSIS_CHANNEL_CURVE_NOT_FOUND',
-            message: 'no onset curve for "EEG O1-REF"',
-          },
-          { status: 404 },
-        ),
+        errorResponse(404, 'ANALYSIS_CHANNEL_CURVE_NOT_FOUND', 'no onset curve for "EEG O1-REF"'),
       ),
     );
     renderWithoutRoi();

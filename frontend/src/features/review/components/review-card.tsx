@@ -1,5 +1,5 @@
 import { Card, Skeleton } from 'antd';
-import { ErrorState } from '../../../components/page-states';
+import { ReadError } from '../../../components/page-states';
 
 /** Card titles wrap at phone width instead of being cut with an ellipsis. */
 const WRAPPING_TITLE = { title: { whiteSpace: 'normal', overflowWrap: 'anywhere' } } as const;
@@ -51,7 +51,7 @@ export function LoadedCard<T>({
   return (
     <ReviewCard title={title} label={label}>
       {read.error !== undefined ? (
-        <ErrorState title={failed} error={read.error} onRetry={() => void read.mutate()} />
+        <ReadError read={read} title={failed} />
       ) : read.data === undefined ? (
         <Skeleton active paragraph={rows === undefined ? undefined : { rows }} />
       ) : (

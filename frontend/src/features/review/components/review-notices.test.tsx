@@ -26,6 +26,7 @@ import {
 } from '../testing/review-fixtures';
 import { serveReview, type ReviewServed } from '../testing/serve-review';
 import { recordingOfKind } from './review-page';
+import { errorResponse } from '../../../test/error-response';
 
 vi.mock(
   '../../../components/charts/g2-plot',
@@ -93,14 +94,11 @@ describe('Review: what the numbers rest on', { timeout: 60_000 }, () => {
         const change = (await request.json()) as VisitAnalysisOverrideChange;
         puts.push(change);
         if (puts.length === 1) {
-          return HttpResponse.json(
-            {
-              statusCode: 409,
-              code: 'ANALYSIS_OVERRIDE_UNCHANGED',
-              message: 'Nothing changed: the visit already uses these choices.',
-              details: { visitId: VISIT.id, revision: 0 },
-            },
-            { status: 409 },
+          return errorResponse(
+            409,
+            'ANALYSIS_OVERRIDE_UNCHANGED',
+            'Nothing changed: the visit already uses these choices.',
+            { visitId: VISIT.id, revision: 0 },
           );
         }
         const { reason, ...values } = change;

@@ -6,7 +6,7 @@ import { http, HttpResponse } from 'msw';
 import { describe, expect, it, vi } from 'vitest';
 import { installCanvasMock } from '../../../components/charts/testing/canvas-mock';
 import { drawnMarks } from '../../../components/charts/testing/drawn-marks';
-import { failingOnce } from '../../../test/error-response';
+import { errorResponse, failingOnce } from '../../../test/error-response';
 import { meFor } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
@@ -264,12 +264,7 @@ describe('Review', { timeout: 60_000 }, () => {
   it('says a missing visit does not exist, with a way back and no "Try again"', async () => {
     serveVisit();
     server.use(
-      http.get(`/api/visits/${VISIT.id}`, () =>
-        HttpResponse.json(
-          { statusCode: 404, code: 'VISIT_NOT_FOUND', message: 'No visit.', details: null },
-          { status: 404 },
-        ),
-      ),
+      http.get(`/api/visits/${VISIT.id}`, () => errorResponse(404, 'VISIT_NOT_FOUND', 'No visit.')),
     );
     renderApp(`/review/${VISIT.id}`, meFor('analyst'));
     expect(

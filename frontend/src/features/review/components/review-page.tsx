@@ -10,7 +10,7 @@ import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { PageHeader } from '../../../components/page-header';
 import { VisitWindowTag } from '../../../components/visit-window-tag';
-import { ErrorState, LoadingState } from '../../../components/page-states';
+import { ErrorState, LoadingState, ReadError } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
 import { formatDate } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
@@ -198,11 +198,7 @@ export function ReviewPage({
         />
       )}
       {recordings.error !== undefined ? (
-        <ErrorState
-          title="The recordings could not be loaded"
-          error={recordings.error}
-          onRetry={() => void recordings.mutate()}
-        />
+        <ReadError read={recordings} title="The recordings could not be loaded" />
       ) : recordings.data === undefined ? (
         <LoadingState label="Loading the recordings" rows={12} />
       ) : (

@@ -2,7 +2,7 @@ import type { TaskResultsView, TrialRasterView } from '@gyre/shared';
 import { Skeleton, Typography } from 'antd';
 import { useMemo } from 'react';
 import { HeatmapCanvas, type HeatmapMatrix } from '../../../components/charts/heatmap-canvas';
-import { ErrorState } from '../../../components/page-states';
+import { ReadError } from '../../../components/page-states';
 import { useTrialRaster } from '../api/get-trial-raster';
 
 /** The raster's rows in one array; a null cell (dropped, undefined) becomes NaN. */
@@ -61,13 +61,7 @@ export function TrialRaster({
     );
   }
   if (raster.error !== undefined) {
-    return (
-      <ErrorState
-        title="The trial raster could not be loaded"
-        error={raster.error}
-        onRetry={() => void raster.mutate()}
-      />
-    );
+    return <ReadError read={raster} title="The trial raster could not be loaded" />;
   }
   if (raster.data === undefined) {
     return (

@@ -28,6 +28,7 @@ import {
   TASK_RESULTS,
   VISIT,
 } from './review-fixtures';
+import { errorResponse } from '../../../test/error-response';
 
 export interface ReviewServed {
   recordings?: RecordingView[];
@@ -110,14 +111,7 @@ export function serveReview(served: ReviewServed = {}) {
       const channel = new URL(request.url).searchParams.get('channel') ?? '';
       const curve = (served.curves ?? CHANNEL_CURVES)[channel];
       return curve === undefined
-        ? HttpResponse.json(
-            {
-              statusCode: 404,
-              code: 'ANALYSIS_CHANNEL_CURVE_NOT_FOUND',
-              message: `no curve for "${channel}"`,
-            },
-            { status: 404 },
-          )
+        ? errorResponse(404, 'ANALYSIS_CHANNEL_CURVE_NOT_FOUND', `no curve for "${channel}"`)
         : HttpResponse.json(curve);
     }),
     http.get('/api/recordings/rec-resting/results', () => answer(served.rest ?? REST_RESULTS)),

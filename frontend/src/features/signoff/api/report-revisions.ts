@@ -1,20 +1,15 @@
-import type { Page, ReportRevisionView } from '@gyre/shared';
+import type { ReportRevisionView } from '@gyre/shared';
 import useSWR from 'swr';
 import { apiDownload, apiFetch, saveBlob, withQuery } from '../../../lib/api-client';
+import { usePage } from '../../../lib/use-page';
 
 /** `GET /api/report-revisions`: signed revisions in scope (a coordinator: their site's). */
 export function reportRevisionsKey(page: number, pageSize: number): string {
   return withQuery('/api/report-revisions', { page, pageSize, sort: 'signedAt', order: 'desc' });
 }
 
-export function getReportRevisions(key: string): Promise<Page<ReportRevisionView>> {
-  return apiFetch<Page<ReportRevisionView>>(key);
-}
-
 export function useReportRevisions(page: number, pageSize: number) {
-  return useSWR<Page<ReportRevisionView>>(reportRevisionsKey(page, pageSize), getReportRevisions, {
-    keepPreviousData: true,
-  });
+  return usePage<ReportRevisionView>(reportRevisionsKey(page, pageSize));
 }
 
 /** `GET /api/report-revisions/:id`: one revision (the e-mail's link names it). */

@@ -1,40 +1,29 @@
 import type { ReportRevisionView } from '@gyre/shared';
 import { App, Button, Flex, List, Skeleton, Tag, Typography } from 'antd';
 import { useEffect, useState } from 'react';
-import { ErrorState } from '../../../components/page-states';
-import { ApiError } from '../../../lib/api-client';
+import { ReadError } from '../../../components/page-states';
 import { formatDateTime } from '../../../lib/format';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSignOff } from '../api/get-sign-off';
-import { downloadRevision } from '../api/report-revisions';
 import { reportStatusOf } from './report-status';
 
 export { ReportStatusTag } from './report-status';
 import { SignReportDialog } from './sign-report-dialog';
-import { GYRE_COLORS } from '../../../app/theme';
+import { StateTag } from '../../../components/table-columns';
+import { REVISION_STATE_LOOK } from './revision-state-look';
+import { useRevisionDownload } from './use-revision-download';
 
 /** One signed revision with its signature and a download. */
 function RevisionItem({ revision }: { revision: ReportRevisionView }) {
-  const { message } = App.useApp();
-  const [busy, setBusy] = useState(false);
-  const download = async () => {
-    setBusy(true);
-    try {
-      await downloadRevision(revision);
-    } catch (error) {
-      message.error(error instanceof ApiError ? error.message : 'The PDF could not be downloaded.');
-    } finally {
-      setBusy(false);
-    }
-  };
+  const { busy, download } = useRevisionDownload();
   return (
     <List.Item
       actions={[
         <Button
           key="download"
           size="small"
-          loading={busy}
-          onClick={() => void download()}
+          loading={busy === revision.id}
+          onClick={() => void download(revision)}
           aria-label={`Download revision ${revision.revision}`}
         >
           Download
@@ -44,10 +33,7 @@ function RevisionItem({ revision }: { revision: ReportRevisionView }) {
       <List.Item.Meta
         title={
           <span>
-            Revision {revision.revision}{' '}
-            <Tag color={revision.state === 'sent' ? 'success' : GYRE_COLORS.primary}>
-              {revision.state === 'sent' ? 'Sent' : 'Signed'}
-            </Tag>
+            Revision {revision.revision} <StateTag look={REVISION_STATE_LOOK[revision.state]} />
           </span>
         }
         description={
@@ -68,7 +54,8 @@ function RevisionItem({ revision }: { revision: ReportRevisionView }) {
 export function ReportSignOff({ visitId, watch }: { visitId: string; watch?: unknown }) {
   const ability = useAppAbility();
   const { message } = App.useApp();
-  const { data, error, mutate } = useSignOff(visitId);
+  const signOff = useSignOff(visitId);
+  const { data, error, mutate } = signOff;
   const [dialog, setDialog] = useState<'closed' | 'preview' | 'sign'>('closed');
 
   useEffect(() => {
@@ -76,13 +63,7 @@ export function ReportSignOff({ visitId, watch }: { visitId: string; watch?: unk
   }, [watch, mutate]);
 
   if (error !== undefined) {
-    return (
-      <ErrorState
-        title="The report could not be loaded"
-        error={error}
-        onRetry={() => void mutate()}
-      />
-    );
+    return <ReadError read={signOff} title="The report could not be loaded" />;
   }
   if (data === undefined) return <Skeleton active paragraph={{ rows: 2 }} />;
   if (data === null) return <span>No report has been drafted for this visit yet.</span>;

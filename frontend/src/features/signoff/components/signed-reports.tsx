@@ -1,32 +1,17 @@
 import type { ReportRevisionView } from '@gyre/shared';
-import { Alert, App, Button, Card, Tag, Typography } from 'antd';
+import { Alert, Button, Card, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
-import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ApiError } from '../../../lib/api-client';
 import { formatDate, formatDateTime } from '../../../lib/format';
-import { downloadRevision, useReportRevision, useReportRevisions } from '../api/report-revisions';
+import { useReportRevision, useReportRevisions } from '../api/report-revisions';
 import { PagedTable } from '../../../components/paged-table';
 import { usePagedList } from '../../../components/use-paged-list';
-import { GYRE_COLORS } from '../../../app/theme';
+import { stateTagColumn } from '../../../components/table-columns';
+import { REVISION_STATE_LOOK } from './revision-state-look';
+import { useRevisionDownload } from './use-revision-download';
 
 const PAGE_SIZE = 20;
-
-function useDownload() {
-  const { message } = App.useApp();
-  const [busy, setBusy] = useState<string | null>(null);
-  const download = async (revision: ReportRevisionView) => {
-    setBusy(revision.id);
-    try {
-      await downloadRevision(revision);
-    } catch (error) {
-      message.error(error instanceof ApiError ? error.message : 'The PDF could not be downloaded.');
-    } finally {
-      setBusy(null);
-    }
-  };
-  return { busy, download };
-}
 
 const nameOf = (r: ReportRevisionView) =>
   `${r.participantCode} ${r.visitLabel} revision ${r.revision}`;
@@ -34,7 +19,7 @@ const nameOf = (r: ReportRevisionView) =>
 /** The revision an e-mail linked to (`/reports?revision=…`), with its download up front. */
 function LinkedRevision({ revisionId }: { revisionId: string }) {
   const { data, error } = useReportRevision(revisionId);
-  const { busy, download } = useDownload();
+  const { busy, download } = useRevisionDownload();
   if (error !== undefined) {
     return (
       <Alert
@@ -78,7 +63,7 @@ export function SignedReports() {
   const linked = params.get('revision');
   const list = usePagedList(PAGE_SIZE);
   const revisions = useReportRevisions(list.page, PAGE_SIZE);
-  const { busy, download } = useDownload();
+  const { busy, download } = useRevisionDownload();
 
   const columns: TableColumnsType<ReportRevisionView> = [
     { title: 'Participant', dataIndex: 'participantCode' },
@@ -102,17 +87,7 @@ export function SignedReports() {
         </span>
       ),
     },
-    {
-      title: 'State',
-      dataIndex: 'state',
-      width: 90,
-      render: (state: ReportRevisionView['state']) =>
-        state === 'sent' ? (
-          <Tag color="success">Sent</Tag>
-        ) : (
-          <Tag color={GYRE_COLORS.primary}>Signed</Tag>
-        ),
-    },
+    stateTagColumn(REVISION_STATE_LOOK, 90),
     {
       title: 'File',
       key: 'file',

@@ -7,6 +7,7 @@ import { RESEARCH_CAUTION } from '../../../components/research-caution';
 import { setAccessToken } from '../../../lib/api-client';
 import { installMswServer, server } from '../../../test/msw-server';
 import { StudyExportLinks } from './study-export-links';
+import { errorResponse } from '../../../test/error-response';
 
 installMswServer();
 
@@ -72,10 +73,7 @@ describe('StudyExportLinks', () => {
   it('says why when the server refuses', async () => {
     server.use(
       http.get('/api/studies/s-1/export.zip', () =>
-        HttpResponse.json(
-          { statusCode: 403, code: 'AUTH_FORBIDDEN', message: 'You may not export Result.' },
-          { status: 403 },
-        ),
+        errorResponse(403, 'AUTH_FORBIDDEN', 'You may not export Result.'),
       ),
     );
     render(

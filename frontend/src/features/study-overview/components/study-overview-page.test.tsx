@@ -7,6 +7,7 @@ import { meFor, STUDY } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
 import { OVERVIEW } from '../testing/overview-fixtures';
+import { errorResponse } from '../../../test/error-response';
 
 // jsdom has no canvas for the chart library: a stand-in shows which marks would be drawn.
 vi.mock(
@@ -116,14 +117,10 @@ describe('Study overview', { timeout: 60_000 }, () => {
   it('tells a blinded analyst why the overview and its exports are closed', async () => {
     server.use(
       http.get('/api/studies/:studyId/overview', () =>
-        HttpResponse.json(
-          {
-            statusCode: 403,
-            code: 'BLINDING_STUDY_CLOSED',
-            message:
-              'Blinded review is on for this study: the study overview is closed to analysts',
-          },
-          { status: 403 },
+        errorResponse(
+          403,
+          'BLINDING_STUDY_CLOSED',
+          'Blinded review is on for this study: the study overview is closed to analysts',
         ),
       ),
     );

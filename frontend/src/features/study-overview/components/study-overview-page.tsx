@@ -1,10 +1,10 @@
-import { Alert, Card, Form, Segmented, Select } from 'antd';
+import { Alert, Card, Segmented } from 'antd';
 import { useState } from 'react';
-import { useSearchParams } from 'react-router-dom';
 import { PageHeader } from '../../../components/page-header';
 import { BlindedClosedNotice, isBlindedRefusal } from '../../../components/blinded-review-notice';
 import { EmptyState, LoadingState, pendingState } from '../../../components/page-states';
 import { ResearchCaution } from '../../../components/research-caution';
+import { useStudyPicker } from '../../../components/study-picker';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
 import { useStudies } from '../../../lib/studies';
@@ -24,29 +24,9 @@ function useChosenStudy(): {
 } {
   const { me } = useSession();
   const own = me.study?.id ?? null;
-  const [search, setSearch] = useSearchParams();
   const studies = useStudies(own === null);
+  const { studyId, picker } = useStudyPicker('overview-study', studies.data?.items ?? []);
   if (own !== null) return { studyId: own, picker: null, loading: false };
-  const items = studies.data?.items ?? [];
-  const chosen = search.get('study');
-  const studyId =
-    items.find((s) => s.id === chosen)?.id ?? (items.length === 1 ? items[0].id : null);
-  const picker = (
-    <Card className="gyre-below-md">
-      <Form layout="vertical" component="div">
-        <Form.Item label="Study" htmlFor="overview-study" className="gyre-flush">
-          <Select
-            id="overview-study"
-            placeholder="Choose a study"
-            value={studyId ?? undefined}
-            onChange={(id: string) => setSearch({ study: id }, { replace: true })}
-            options={items.map((s) => ({ value: s.id, label: `${s.code} · ${s.name}` }))}
-            style={{ maxWidth: 480, width: '100%' }}
-          />
-        </Form.Item>
-      </Form>
-    </Card>
-  );
   return { studyId, picker, loading: studies.data === undefined && studies.error === undefined };
 }
 

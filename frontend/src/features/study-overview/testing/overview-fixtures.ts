@@ -1,4 +1,4 @@
-import type { OverviewCell, StudyOverviewView } from '@gyre/shared';
+import type { OverviewCell, OverviewStat, StudyOverviewView } from '@gyre/shared';
 import { SITE, STUDY } from '../../../test/fixtures';
 
 // Generated test data: two planned visits, two groups, two sites, three participants.
@@ -14,6 +14,18 @@ const cell = (plannedVisitId: string, extra: Partial<OverviewCell>): OverviewCel
   doubts: [],
   ...extra,
 });
+
+/** Baseline PAF of AC-0001 and AC-0002, who share both a group (Arm 1) and a site. */
+const BASELINE_PAF: Omit<OverviewStat, 'key'> = {
+  measure: 'paf',
+  plannedVisitId: 'pv-0',
+  n: 2,
+  mean: 10.0,
+  sd: 0.283,
+  ciLow: 7.46,
+  ciHigh: 12.54,
+  doubtful: 1,
+};
 
 export const OVERVIEW: StudyOverviewView = {
   studyId: STUDY.id,
@@ -76,17 +88,7 @@ export const OVERVIEW: StudyOverviewView = {
     },
   ],
   byGroup: [
-    {
-      measure: 'paf',
-      plannedVisitId: 'pv-0',
-      key: 'g-1',
-      n: 2,
-      mean: 10.0,
-      sd: 0.283,
-      ciLow: 7.46,
-      ciHigh: 12.54,
-      doubtful: 1,
-    },
+    { ...BASELINE_PAF, key: 'g-1' },
     {
       measure: 'paf',
       plannedVisitId: 'pv-6',
@@ -99,19 +101,7 @@ export const OVERVIEW: StudyOverviewView = {
       doubtful: 0,
     },
   ],
-  bySite: [
-    {
-      measure: 'paf',
-      plannedVisitId: 'pv-0',
-      key: SITE.id,
-      n: 2,
-      mean: 10.0,
-      sd: 0.283,
-      ciLow: 7.46,
-      ciHigh: 12.54,
-      doubtful: 1,
-    },
-  ],
+  bySite: [{ ...BASELINE_PAF, key: SITE.id }],
   siteQuality: [
     {
       siteId: SITE.id,

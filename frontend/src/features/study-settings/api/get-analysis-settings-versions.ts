@@ -1,6 +1,6 @@
-import type { AnalysisSettingsView, Page } from '@gyre/shared';
-import useSWR from 'swr';
-import { apiFetch, withQuery } from '../../../lib/api-client';
+import type { AnalysisSettingsView } from '@gyre/shared';
+import { withQuery } from '../../../lib/api-client';
+import { usePage } from '../../../lib/use-page';
 import { analysisSettingsKey } from './get-analysis-settings';
 
 export const VERSIONS_PAGE_SIZE = 10;
@@ -17,17 +17,8 @@ export const analysisSettingsVersionsKey = (studyId: string, page: number) =>
 export const isAnalysisSettingsVersionsKey = (studyId: string) => (key: unknown) =>
   typeof key === 'string' && key.startsWith(`${analysisSettingsKey(studyId)}/versions`);
 
-export function getAnalysisSettingsVersions(
-  studyId: string,
-  page: number,
-): Promise<Page<AnalysisSettingsView>> {
-  return apiFetch<Page<AnalysisSettingsView>>(analysisSettingsVersionsKey(studyId, page));
-}
-
 export function useAnalysisSettingsVersions(studyId: string | null, page: number) {
-  return useSWR<Page<AnalysisSettingsView>>(
+  return usePage<AnalysisSettingsView>(
     studyId === null ? null : analysisSettingsVersionsKey(studyId, page),
-    () => getAnalysisSettingsVersions(studyId ?? '', page),
-    { keepPreviousData: true },
   );
 }

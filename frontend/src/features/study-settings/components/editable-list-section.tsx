@@ -1,7 +1,7 @@
 import { App, Button, Card, Popconfirm, Space, Table, Typography } from 'antd';
 import type { TableColumnsType } from 'antd';
 import { useState, type ReactNode } from 'react';
-import { EmptyState, ErrorState } from '../../../components/page-states';
+import { EmptyState, ReadError } from '../../../components/page-states';
 import { ApiError } from '../../../lib/api-client';
 import '../study-settings.css';
 
@@ -106,7 +106,7 @@ export function EditableListSection<Item extends Named, Input>({
     >
       {intro !== undefined && <Typography.Paragraph type="secondary">{intro}</Typography.Paragraph>}
       {list.error !== undefined ? (
-        <ErrorState title={loadErrorTitle} error={list.error} onRetry={() => void list.mutate()} />
+        <ReadError read={list} title={loadErrorTitle} />
       ) : list.data !== undefined && list.data.length === 0 ? (
         <EmptyState description={emptyText} />
       ) : (

@@ -2,7 +2,7 @@ import type { AnalysisSettingsView } from '@gyre/shared';
 import { Flex, Pagination, Skeleton, Tag, Typography } from 'antd';
 import { useState } from 'react';
 import { GYRE_COLORS } from '../../../app/theme';
-import { EmptyState, ErrorState } from '../../../components/page-states';
+import { EmptyState, ReadError } from '../../../components/page-states';
 import { formatDateTime } from '../../../lib/format';
 import {
   useAnalysisSettingsVersions,
@@ -67,13 +67,7 @@ export function SettingsVersions({
   const [page, setPage] = useState(1);
   const versions = useAnalysisSettingsVersions(studyId, page);
   if (versions.error !== undefined) {
-    return (
-      <ErrorState
-        title="The versions could not be loaded"
-        error={versions.error}
-        onRetry={() => void versions.mutate()}
-      />
-    );
+    return <ReadError read={versions} title="The versions could not be loaded" />;
   }
   if (versions.data === undefined) return <Skeleton active paragraph={{ rows: 6 }} />;
   if (versions.data.items.length === 0) {

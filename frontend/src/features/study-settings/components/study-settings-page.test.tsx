@@ -9,6 +9,7 @@ import { renderApp } from '../../../test/render-app';
 import { PHONE_WIDTH_PX, setViewportWidth } from '../../../test/viewport';
 import { serveSchedule } from '../testing/schedule-fixtures';
 import { VERSION_1, VERSION_2 } from '../testing/settings-fixtures';
+import { errorResponse } from '../../../test/error-response';
 
 installMswServer();
 
@@ -73,15 +74,9 @@ describe('Study settings', { timeout: 60_000 }, () => {
 
   it('shows "Nothing changed" when the server says the new version equals the current one', async () => {
     const state = serveSettings(() =>
-      HttpResponse.json(
-        {
-          statusCode: 409,
-          code: 'ANALYSIS_SETTINGS_UNCHANGED',
-          message: 'Nothing differs from version 2.',
-          details: { version: 2 },
-        },
-        { status: 409 },
-      ),
+      errorResponse(409, 'ANALYSIS_SETTINGS_UNCHANGED', 'Nothing differs from version 2.', {
+        version: 2,
+      }),
     );
     await openSettings('analyst');
     const form = screen.getByRole('form', { name: 'Analysis settings' });

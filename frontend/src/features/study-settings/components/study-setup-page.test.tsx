@@ -8,6 +8,7 @@ import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
 import { PHONE_WIDTH_PX, setViewportWidth } from '../../../test/viewport';
 import { GROUPS, PLANNED_VISITS, serveSchedule } from '../testing/schedule-fixtures';
+import { errorResponse } from '../../../test/error-response';
 
 installMswServer();
 
@@ -42,15 +43,10 @@ function serveSetup() {
       return HttpResponse.json(created, { status: 201 });
     }),
     http.delete(`${base}/planned-visits/pv-12`, () =>
-      HttpResponse.json(
-        {
-          statusCode: 409,
-          code: 'PLANNED_VISIT_IN_USE',
-          message:
-            'Planned visit Week 12 is in use: 2 visit(s) were registered on it (AC-0001, AC-0002)',
-          details: null,
-        },
-        { status: 409 },
+      errorResponse(
+        409,
+        'PLANNED_VISIT_IN_USE',
+        'Planned visit Week 12 is in use: 2 visit(s) were registered on it (AC-0001, AC-0002)',
       ),
     ),
   );

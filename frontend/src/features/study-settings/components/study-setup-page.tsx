@@ -1,8 +1,8 @@
-import { Card, Col, Form, Row, Select } from 'antd';
-import { useSearchParams } from 'react-router-dom';
+import { Col, Row } from 'antd';
 import { useAppAbility } from '../../../lib/session/ability';
 import { PageHeader } from '../../../components/page-header';
 import { EmptyState, pendingState } from '../../../components/page-states';
+import { useStudyPicker } from '../../../components/study-picker';
 import { useStudies, useStudy } from '../../../lib/studies';
 import { GroupsSection } from './groups-section';
 import { TrendSettingsSection } from './trend-settings-section';
@@ -14,11 +14,8 @@ import { VisitScheduleSection } from './visit-schedule-section';
  * settings. The study's own people see the same on Study settings, read-only.
  */
 export function StudySetupPage() {
-  const [search, setSearch] = useSearchParams();
   const studies = useStudies(true);
-  const chosen = search.get('study');
-  const known = studies.data?.items.some((s) => s.id === chosen) === true ? chosen : null;
-  const studyId = known ?? (studies.data?.items.length === 1 ? studies.data.items[0].id : null);
+  const { studyId, picker } = useStudyPicker('setup-study', studies.data?.items ?? []);
   const study = useStudy(studyId);
   const canManage = useAppAbility().can('update', 'PlannedVisit');
 
@@ -43,23 +40,7 @@ export function StudySetupPage() {
   return (
     <>
       {header}
-      <Card className="gyre-below-md">
-        <Form layout="vertical" component="div">
-          <Form.Item label="Study" htmlFor="setup-study" className="gyre-flush-bottom">
-            <Select
-              id="setup-study"
-              placeholder="Choose a study"
-              value={studyId ?? undefined}
-              onChange={(id: string) => setSearch({ study: id }, { replace: true })}
-              options={studies.data.items.map((s) => ({
-                value: s.id,
-                label: `${s.code} · ${s.name}`,
-              }))}
-              style={{ maxWidth: 480, width: '100%' }}
-            />
-          </Form.Item>
-        </Form>
-      </Card>
+      {picker}
       {studyId === null ? (
         <EmptyState description="Choose a study to set up its schedule and groups." />
       ) : (

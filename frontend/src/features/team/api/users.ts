@@ -1,6 +1,6 @@
-import type { Page, Role, UserState, UserView } from '@gyre/shared';
-import useSWR from 'swr';
-import { apiFetch, withQuery } from '../../../lib/api-client';
+import type { Role, UserState, UserView } from '@gyre/shared';
+import { withQuery } from '../../../lib/api-client';
+import { usePage } from '../../../lib/use-page';
 
 export interface UserFilters {
   role?: Role;
@@ -16,14 +16,8 @@ export function usersKey(filters: UserFilters, page: number, pageSize: number): 
   return withQuery(USERS_PATH, { ...filters, page, pageSize, sort: 'name' });
 }
 
-export function getUsers(key: string): Promise<Page<UserView>> {
-  return apiFetch<Page<UserView>>(key);
-}
-
 export function useUsers(filters: UserFilters, page: number, pageSize: number) {
-  return useSWR<Page<UserView>>(usersKey(filters, page, pageSize), getUsers, {
-    keepPreviousData: true,
-  });
+  return usePage<UserView>(usersKey(filters, page, pageSize));
 }
 
 /** Matches every users list key, whatever its filters, so a change refreshes them all. */

@@ -1,6 +1,6 @@
-import type { Page, WorkerTokenState, WorkerTokenView } from '@gyre/shared';
-import useSWR from 'swr';
-import { apiFetch, withQuery } from '../../../lib/api-client';
+import type { WorkerTokenState, WorkerTokenView } from '@gyre/shared';
+import { withQuery } from '../../../lib/api-client';
+import { usePage } from '../../../lib/use-page';
 
 export const WORKER_TOKENS_PATH = '/api/worker-tokens';
 
@@ -13,14 +13,8 @@ export function workerTokensKey(
   return withQuery(WORKER_TOKENS_PATH, { state, page, pageSize, order: 'desc' });
 }
 
-export function getWorkerTokens(key: string): Promise<Page<WorkerTokenView>> {
-  return apiFetch<Page<WorkerTokenView>>(key);
-}
-
 export function useWorkerTokens(state: WorkerTokenState | null, page: number, pageSize: number) {
-  return useSWR<Page<WorkerTokenView>>(workerTokensKey(state, page, pageSize), getWorkerTokens, {
-    keepPreviousData: true,
-  });
+  return usePage<WorkerTokenView>(workerTokensKey(state, page, pageSize));
 }
 
 /** Matches every worker-token list key, whatever its filter, so a change refreshes them all. */

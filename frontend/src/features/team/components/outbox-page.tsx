@@ -7,7 +7,12 @@ import { useOutbox } from '../api/outbox';
 import { GYRE_COLORS } from '../../../app/theme';
 import { PagedTable } from '../../../components/paged-table';
 import { usePagedList } from '../../../components/use-paged-list';
-import { dateTimeColumn, stateTagColumn, type StateLook } from '../../../components/table-columns';
+import {
+  dateTimeColumn,
+  stateFilterOptions,
+  stateTagColumn,
+  type StateLook,
+} from '../../../components/table-columns';
 
 const STATE_LOOK: Record<OutboxState, StateLook> = {
   // Status colours of the theme: each reads at ≥ 4.5:1 on its tint (app/theme.test.ts).
@@ -62,12 +67,7 @@ export function OutboxPage() {
             value={list.filter}
             onChange={list.setFilter}
             aria-label="Show messages in this state"
-            options={[
-              { label: 'All', value: 'all' },
-              { label: 'Queued', value: 'queued' },
-              { label: 'Sent', value: 'sent' },
-              { label: 'Failed', value: 'failed' },
-            ]}
+            options={stateFilterOptions(STATE_LOOK)}
           />
         }
       />

@@ -19,11 +19,16 @@ import { WorkerTokensSection } from './worker-tokens-section';
 import { GYRE_COLORS } from '../../../app/theme';
 import { PagedTable } from '../../../components/paged-table';
 import { usePagedList } from '../../../components/use-paged-list';
-import { dateTimeColumn, stateTagColumn, type StateLook } from '../../../components/table-columns';
+import {
+  dateTimeColumn,
+  stateFilterOptions,
+  stateTagColumn,
+  type StateLook,
+} from '../../../components/table-columns';
 
 const STATE_LOOK: Record<UserState, StateLook> = {
-  invited: { label: 'Invited', color: GYRE_COLORS.amberText },
   active: { label: 'Active', color: 'success' },
+  invited: { label: 'Invited', color: GYRE_COLORS.amberText },
   deactivated: { label: 'Deactivated', color: 'default' },
 };
 
@@ -168,12 +173,7 @@ export function TeamPage() {
             value={filters.state ?? 'all'}
             onChange={(state) => filter({ state: state === 'all' ? undefined : state })}
             aria-label="Account state"
-            options={[
-              { label: 'All', value: 'all' },
-              { label: 'Active', value: 'active' },
-              { label: 'Invited', value: 'invited' },
-              { label: 'Deactivated', value: 'deactivated' },
-            ]}
+            options={stateFilterOptions(STATE_LOOK)}
           />
         </Flex>
         <PagedTable<UserView>

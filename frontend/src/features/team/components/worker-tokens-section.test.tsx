@@ -13,6 +13,7 @@ import { describe, expect, it } from 'vitest';
 import { meFor, SITE, STUDY } from '../../../test/fixtures';
 import { installMswServer, server } from '../../../test/msw-server';
 import { renderApp } from '../../../test/render-app';
+import { errorResponse } from '../../../test/error-response';
 
 installMswServer();
 
@@ -107,13 +108,10 @@ describe('Team: worker tokens', () => {
     teamHandlers([LOCAL]);
     server.use(
       http.post('/api/worker-tokens', () =>
-        HttpResponse.json(
-          {
-            statusCode: 409,
-            code: 'WORKER_TOKEN_NAME_RESERVED',
-            message: `name: "local worker" is the server's own token; choose another name`,
-          },
-          { status: 409 },
+        errorResponse(
+          409,
+          'WORKER_TOKEN_NAME_RESERVED',
+          `name: "local worker" is the server's own token; choose another name`,
         ),
       ),
     );
