@@ -1,21 +1,17 @@
 import type { Page, StudyView } from '@gyre/shared';
-import useSWR from 'swr';
-import { apiFetch, withQuery } from './api-client';
+import { withQuery } from './api-client';
+import { useRead } from './use-read';
 
 /** `GET /api/studies`: the studies an admin sets up, by code. */
 export const studiesKey = withQuery('/api/studies', { pageSize: 100, sort: 'code' });
 
 export function useStudies(enabled: boolean) {
-  return useSWR<Page<StudyView>>(enabled ? studiesKey : null, () =>
-    apiFetch<Page<StudyView>>(studiesKey),
-  );
+  return useRead<Page<StudyView>>(enabled ? studiesKey : null);
 }
 
 /** `GET /api/studies/:id`. */
 export const studyKey = (id: string) => `/api/studies/${encodeURIComponent(id)}`;
 
 export function useStudy(id: string | null) {
-  return useSWR<StudyView>(id === null ? null : studyKey(id), () =>
-    apiFetch<StudyView>(studyKey(id ?? '')),
-  );
+  return useRead<StudyView>(id === null ? null : studyKey(id));
 }

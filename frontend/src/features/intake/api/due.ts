@@ -1,6 +1,6 @@
 import type { DueListView } from '@gyre/shared';
-import useSWR from 'swr';
-import { apiFetch, withQuery } from '../../../lib/api-client';
+import { withQuery } from '../../../lib/api-client';
+import { useRead } from '../../../lib/use-read';
 
 /** `GET /api/studies/:studyId/due?asOf=`: what is due or overdue at the user's site(s) on a day. */
 export const dueKey = (studyId: string, asOf: string) =>
@@ -11,7 +11,5 @@ export const isDueKey = (studyId: string) => (key: unknown) =>
   typeof key === 'string' && key.startsWith(`/api/studies/${encodeURIComponent(studyId)}/due`);
 
 export function useDue(studyId: string | null, asOf: string) {
-  return useSWR<DueListView>(studyId === null ? null : dueKey(studyId, asOf), () =>
-    apiFetch<DueListView>(dueKey(studyId ?? '', asOf)),
-  );
+  return useRead<DueListView>(studyId === null ? null : dueKey(studyId, asOf));
 }

@@ -16,7 +16,7 @@ import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
 import { useDue } from '../api/due';
 import { useParticipants } from '../api/participants';
-import { useGroups, usePlannedVisits } from '../api/study-schedule';
+import { useGroups, usePlannedVisits } from '../../../lib/study-schedule';
 import { useVisits } from '../api/visits';
 import { BidsImportPanel } from './bids-import-panel';
 import { BulkUploadPanel } from './bulk-upload-panel';

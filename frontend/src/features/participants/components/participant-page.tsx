@@ -15,8 +15,8 @@ import { EmptyState, ErrorState, LoadingState } from '../../../components/page-s
 import { ResearchCaution } from '../../../components/research-caution';
 import { studyDayText, VisitWindowTag } from '../../../components/visit-window-tag';
 import { formatCount, formatDate, formatDeltaHz, formatHz } from '../../../lib/format';
-import { useGroups } from '../api/get-groups';
-import { useParticipant } from '../api/get-participant';
+import { useGroups } from '../../../lib/study-schedule';
+import { useParticipant } from '../../../lib/participant';
 import { useParticipantVisits } from '../api/get-participant-visits';
 import { useTrajectory } from '../api/get-trajectory';
 import { ParticipantDetails } from './participant-details';

@@ -1,6 +1,6 @@
 import type { RecordingResultsView } from '@gyre/shared';
-import useSWR from 'swr';
 import { apiFetch, withQuery } from '../../../lib/api-client';
+import { useRead } from '../../../lib/use-read';
 
 /** `GET /api/recordings/:recordingId/results?runId=`: one run's results (the latest without runId). */
 export const recordingResultsKey = (recordingId: string, runId: string) =>
@@ -15,8 +15,7 @@ export function getRecordingResults(
 
 /** Asked by run, so that a new run is a new cache entry and old results never linger under it. */
 export function useRecordingResults(recordingId: string | null, runId: string | null) {
-  return useSWR<RecordingResultsView>(
+  return useRead<RecordingResultsView>(
     recordingId === null || runId === null ? null : recordingResultsKey(recordingId, runId),
-    () => getRecordingResults(recordingId ?? '', runId ?? ''),
   );
 }

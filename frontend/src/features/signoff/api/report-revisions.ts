@@ -1,7 +1,7 @@
 import type { ReportRevisionView } from '@gyre/shared';
-import useSWR from 'swr';
-import { apiDownload, apiFetch, saveBlob, withQuery } from '../../../lib/api-client';
+import { apiDownload, saveBlob, withQuery } from '../../../lib/api-client';
 import { usePage } from '../../../lib/use-page';
+import { useRead } from '../../../lib/use-read';
 
 /** `GET /api/report-revisions`: signed revisions in scope (a coordinator: their site's). */
 export function reportRevisionsKey(page: number, pageSize: number): string {
@@ -17,10 +17,7 @@ export const reportRevisionKey = (revisionId: string) =>
   `/api/report-revisions/${encodeURIComponent(revisionId)}`;
 
 export function useReportRevision(revisionId: string | null) {
-  return useSWR<ReportRevisionView>(
-    revisionId === null ? null : reportRevisionKey(revisionId),
-    () => apiFetch<ReportRevisionView>(reportRevisionKey(revisionId ?? '')),
-  );
+  return useRead<ReportRevisionView>(revisionId === null ? null : reportRevisionKey(revisionId));
 }
 
 /** `GET /api/report-revisions/:id/file`: the signed PDF, saved under the server's file name. */

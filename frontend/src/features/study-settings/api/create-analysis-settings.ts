@@ -2,7 +2,7 @@ import type { AnalysisSettingsChange, AnalysisSettingsView } from '@gyre/shared'
 import { useCallback } from 'react';
 import { useSWRConfig } from 'swr';
 import { apiSend } from '../../../lib/api-client';
-import { analysisSettingsKey } from './get-analysis-settings';
+import { analysisSettingsKey } from '../../../lib/analysis-settings';
 import { isAnalysisSettingsVersionsKey } from './get-analysis-settings-versions';
 
 /** The answer when a new version would equal the current one (409). */

@@ -1,7 +1,7 @@
 import type { AnalysisSettingsView } from '@gyre/shared';
 import { withQuery } from '../../../lib/api-client';
 import { usePage } from '../../../lib/use-page';
-import { analysisSettingsKey } from './get-analysis-settings';
+import { analysisSettingsKey } from '../../../lib/analysis-settings';
 
 export const VERSIONS_PAGE_SIZE = 10;
 

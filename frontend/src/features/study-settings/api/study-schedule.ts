@@ -1,27 +1,8 @@
 import type { PlannedVisitView, StudyGroupView } from '@gyre/shared';
 import { useMemo } from 'react';
-import useSWR, { useSWRConfig, type ScopedMutator } from 'swr';
-import { apiFetch, apiSend } from '../../../lib/api-client';
-
-const studyPath = (studyId: string) => `/api/studies/${encodeURIComponent(studyId)}`;
-
-/** `GET /api/studies/:studyId/planned-visits`: the visit schedule, in order. */
-export const plannedVisitsKey = (studyId: string) => `${studyPath(studyId)}/planned-visits`;
-
-export function usePlannedVisits(studyId: string | null) {
-  return useSWR<PlannedVisitView[]>(studyId === null ? null : plannedVisitsKey(studyId), () =>
-    apiFetch<PlannedVisitView[]>(plannedVisitsKey(studyId ?? '')),
-  );
-}
-
-/** `GET /api/studies/:studyId/groups`: the study's groups (arms), by name. */
-export const groupsKey = (studyId: string) => `${studyPath(studyId)}/groups`;
-
-export function useGroups(studyId: string | null) {
-  return useSWR<StudyGroupView[]>(studyId === null ? null : groupsKey(studyId), () =>
-    apiFetch<StudyGroupView[]>(groupsKey(studyId ?? '')),
-  );
-}
+import { useSWRConfig, type ScopedMutator } from 'swr';
+import { apiSend } from '../../../lib/api-client';
+import { groupsKey, plannedVisitsKey } from '../../../lib/study-schedule';
 
 export interface PlannedVisitInput {
   name: string;

@@ -1,7 +1,8 @@
 import type { StudyGroupView } from '@gyre/shared';
 import { Form, Input } from 'antd';
 import { ModalForm } from '../../../components/modal-form';
-import { useGroups, useScheduleWrites, type GroupInput } from '../api/study-schedule';
+import { useGroups } from '../../../lib/study-schedule';
+import { useScheduleWrites, type GroupInput } from '../api/study-schedule';
 import { EditableListSection } from './editable-list-section';
 
 /** The study's groups or arms: admins add, rename and delete them (not while in use). */

@@ -6,7 +6,7 @@ import { ResearchCaution } from '../../../components/research-caution';
 import { useAppAbility } from '../../../lib/session/ability';
 import { useSession } from '../../../lib/session/session-context';
 import { useCreateAnalysisSettings } from '../api/create-analysis-settings';
-import { useAnalysisSettings } from '../api/get-analysis-settings';
+import { useAnalysisSettings } from '../../../lib/analysis-settings';
 import { SettingsForm } from './settings-form';
 import { SettingsSummary } from './settings-summary';
 import { SettingsVersions } from './settings-versions';

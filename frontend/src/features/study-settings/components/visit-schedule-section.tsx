@@ -1,7 +1,8 @@
 import type { PlannedVisitView } from '@gyre/shared';
 import { Form, Input, InputNumber, Space } from 'antd';
 import { ModalForm } from '../../../components/modal-form';
-import { usePlannedVisits, useScheduleWrites, type PlannedVisitInput } from '../api/study-schedule';
+import { usePlannedVisits } from '../../../lib/study-schedule';
+import { useScheduleWrites, type PlannedVisitInput } from '../api/study-schedule';
 import { EditableListSection } from './editable-list-section';
 
 /** "−14 / +14 days"; a side without slack reads "on the day" ("up to 14 days after"). */
